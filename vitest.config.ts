@@ -1,0 +1,14 @@
+import { defineConfig } from "vitest/config";
+
+// Vitest gets its own config: the reactRouter() plugin is for the app build, not for tests.
+export default defineConfig({
+  resolve: { tsconfigPaths: true },
+  test: {
+    include: ["tests/**/*.test.ts", "tests/**/*.test.tsx", "app/**/*.test.ts"],
+    globalSetup: ["tests/setup/global-setup.ts"],
+    setupFiles: ["tests/setup/each-file.ts"],
+    testTimeout: 20_000,
+    hookTimeout: 60_000,
+    fileParallelism: false,
+  },
+});

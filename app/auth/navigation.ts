@@ -1,0 +1,26 @@
+import type { Role } from "./roles";
+
+export interface NavItem {
+  to: string;
+  label: string;
+}
+
+/** The pages each role may use, in the order the navigation bar shows them. */
+export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
+  buyer: [
+    { to: "/specs", label: "My specs" },
+    { to: "/team", label: "Team" },
+  ],
+  shop: [
+    { to: "/open-specs", label: "Open specs" },
+    { to: "/team", label: "Team" },
+  ],
+  account_manager: [{ to: "/accounts", label: "My accounts" }],
+  admin: [
+    { to: "/admin/users", label: "Users" },
+    { to: "/admin/organisations", label: "Organisations" },
+    { to: "/team", label: "Operator team" },
+  ],
+};
+
+export const PUBLIC_NAV: NavItem[] = [];

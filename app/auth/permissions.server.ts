@@ -1,0 +1,50 @@
+import { redirect } from "react-router";
+import { Organisation, User } from "~/models/index.server";
+import { forbidden, notFound } from "~/services/errors.server";
+import { HOME_BY_ROLE, type Role } from "./roles";
+import { getSessionUserId, signOutRedirect } from "./session.server";
+
+export type SignedInUser = User & { organisation: Organisation };
+
+/** Only same-site paths are followed after sign-in (no open redirects). */
+export function safeRedirect(to: FormDataEntryValue | string | null | undefined, fallback = "/") {
+  if (typeof to !== "string" || !to.startsWith("/") || to.startsWith("//") || to.startsWith("/\\")) return fallback;
+  return to;
+}
+
+export async function getOptionalUser(request: Request): Promise<SignedInUser | null> {
+  const userId = await getSessionUserId(request);
+  if (!userId) return null;
+  const user = await User.findByPk(userId, { include: [{ model: Organisation, as: "organisation" }] });
+  return user && user.active ? (user as SignedInUser) : null;
+}
+
+/** The signed-in, active user, or a redirect to sign-in that comes back here afterwards. */
+export async function requireUser(request: Request): Promise<SignedInUser> {
+  const user = await getOptionalUser(request);
+  if (user) return user;
+  const url = new URL(request.url);
+  const back = `${url.pathname}${url.search}`;
+  const to = `/sign-in?redirectTo=${encodeURIComponent(back)}`;
+  // A session naming a deactivated or deleted user is dropped, not kept.
+  if (await getSessionUserId(request)) throw await signOutRedirect(request, to);
+  throw redirect(to);
+}
+
+/** The signed-in user if their role is one of `roles`; a 403 page otherwise. */
+export async function requireRole(request: Request, roles: readonly Role[]): Promise<SignedInUser> {
+  const user = await requireUser(request);
+  if (!roles.includes(user.role)) forbidden();
+  return user;
+}
+
+/** Sign-in and sign-up pages send a signed-in user to their home instead. */
+export async function requireAnonymous(request: Request) {
+  const user = await getOptionalUser(request);
+  if (user) throw redirect(HOME_BY_ROLE[user.role]);
+}
+
+/** Records of another organisation are "not found", never "forbidden": their existence stays private. */
+export function assertOwnOrganisation(user: Pick<User, "organisationId">, record: { organisationId: string } | null) {
+  if (!record || record.organisationId !== user.organisationId) notFound();
+}

@@ -1,0 +1,39 @@
+// Roles and organisation kinds: shared by server and client (navigation shows what a role may use).
+export const ROLES = ["buyer", "shop", "account_manager", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ORGANISATION_KINDS = ["buyer", "shop", "operator"] as const;
+export type OrganisationKind = (typeof ORGANISATION_KINDS)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  buyer: "Machine builder",
+  shop: "Fluid-power shop",
+  account_manager: "Account manager",
+  admin: "Administrator",
+};
+
+export const KIND_LABELS: Record<OrganisationKind, string> = {
+  buyer: "Machine builder",
+  shop: "Fluid-power shop",
+  operator: "Tenderflow operator",
+};
+
+/** Which roles an organisation of each kind may hold. */
+export const ROLES_BY_KIND: Record<OrganisationKind, readonly Role[]> = {
+  buyer: ["buyer"],
+  shop: ["shop"],
+  operator: ["account_manager", "admin"],
+};
+
+/** Each role's home page: where sign-in lands. */
+export const HOME_BY_ROLE: Record<Role, string> = {
+  buyer: "/specs",
+  shop: "/open-specs",
+  account_manager: "/accounts",
+  admin: "/admin/users",
+};
+
+/** Roles that see their organisation's team page and invite colleagues. */
+export const TEAM_ROLES = ["buyer", "shop", "admin"] as const satisfies readonly Role[];
+/** Roles that follow buyer accounts (admins see every account). */
+export const ACCOUNT_ROLES = ["account_manager", "admin"] as const satisfies readonly Role[];

@@ -1,0 +1,95 @@
+import { Link, type LinkProps } from "react-router";
+
+// The small set of shared building blocks that give every page the same look.
+
+const tone = {
+  primary: "bg-flow-600 text-white hover:bg-flow-700 disabled:bg-ink-200",
+  secondary: "bg-white text-ink-800 ring-1 ring-ink-200 hover:bg-ink-50",
+  danger: "bg-white text-alarm-600 ring-1 ring-alarm-600/40 hover:bg-alarm-50",
+  quiet: "text-flow-700 hover:underline",
+} as const;
+export type ButtonTone = keyof typeof tone;
+
+const buttonBase =
+  "inline-flex items-center justify-center gap-2 rounded-md px-4 py-2 text-sm font-semibold transition-colors disabled:cursor-not-allowed";
+
+export function Button({
+  tone: t = "primary",
+  className = "",
+  ...props
+}: React.ButtonHTMLAttributes<HTMLButtonElement> & { tone?: ButtonTone }) {
+  return <button className={`${buttonBase} ${tone[t]} ${className}`} {...props} />;
+}
+
+export function ButtonLink({ tone: t = "primary", className = "", ...props }: LinkProps & { tone?: ButtonTone }) {
+  return <Link className={`${buttonBase} ${tone[t]} ${className}`} {...props} />;
+}
+
+export function PageHeader({ title, lead, actions }: { title: string; lead?: React.ReactNode; actions?: React.ReactNode }) {
+  return (
+    <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
+      <div>
+        <h1 className="text-2xl font-bold text-ink-900">{title}</h1>
+        {lead ? <p className="mt-1 max-w-2xl text-ink-600">{lead}</p> : null}
+      </div>
+      {actions ? <div className="flex gap-2">{actions}</div> : null}
+    </div>
+  );
+}
+
+export function Card({ className = "", children }: { className?: string; children: React.ReactNode }) {
+  return <section className={`rounded-lg bg-white p-6 shadow-sm ring-1 ring-ink-100 ${className}`}>{children}</section>;
+}
+
+export function EmptyState({ title, children, action }: { title: string; children: React.ReactNode; action?: React.ReactNode }) {
+  return (
+    <div className="rounded-lg border-2 border-dashed border-ink-200 bg-white px-6 py-12 text-center">
+      <h2 className="text-lg font-semibold text-ink-800">{title}</h2>
+      <div className="mx-auto mt-2 max-w-lg text-ink-600">{children}</div>
+      {action ? <div className="mt-6">{action}</div> : null}
+    </div>
+  );
+}
+
+export function Badge({ children, tone: t = "neutral" }: { children: React.ReactNode; tone?: "neutral" | "good" | "warn" | "bad" }) {
+  const colours = {
+    neutral: "bg-ink-100 text-ink-700",
+    good: "bg-flow-100 text-flow-700",
+    warn: "bg-signal-50 text-signal-700",
+    bad: "bg-alarm-50 text-alarm-600",
+  }[t];
+  return <span className={`inline-block rounded-full px-2.5 py-0.5 text-xs font-semibold ${colours}`}>{children}</span>;
+}
+
+export function Notice({ tone: t = "info", children }: { tone?: "info" | "warn" | "bad" | "good"; children: React.ReactNode }) {
+  const colours = {
+    info: "bg-ink-100 text-ink-800",
+    warn: "bg-signal-50 text-signal-700 ring-1 ring-signal-500/30",
+    bad: "bg-alarm-50 text-alarm-600 ring-1 ring-alarm-600/30",
+    good: "bg-flow-50 text-flow-700 ring-1 ring-flow-500/30",
+  }[t];
+  return (
+    <div role={t === "bad" ? "alert" : "status"} className={`rounded-md px-4 py-3 text-sm ${colours}`}>
+      {children}
+    </div>
+  );
+}
+
+/** Page links that keep the other search parameters. */
+export function Pager({ page, pageCount, search }: { page: number; pageCount: number; search: URLSearchParams }) {
+  if (pageCount <= 1) return null;
+  const href = (p: number) => {
+    const next = new URLSearchParams(search);
+    next.set("page", String(p));
+    return `?${next}`;
+  };
+  return (
+    <nav aria-label="Pages" className="mt-4 flex items-center justify-between text-sm">
+      {page > 1 ? <Link className="text-flow-700 hover:underline" to={href(page - 1)}>← Previous</Link> : <span />}
+      <span className="text-ink-600">
+        Page {page} of {pageCount}
+      </span>
+      {page < pageCount ? <Link className="text-flow-700 hover:underline" to={href(page + 1)}>Next →</Link> : <span />}
+    </nav>
+  );
+}

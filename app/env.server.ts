@@ -1,0 +1,35 @@
+import { z } from "zod";
+
+// The environment is read once, here, and checked at boot: a missing or malformed setting
+// stops the server with a message that names it, instead of failing on the first request.
+const envSchema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, "must be a postgres:// URL"),
+  SESSION_SECRET: z.string().min(32, "must be at least 32 characters (use a long random string)"),
+  APP_URL: z.url().default("http://127.0.0.1:3000"),
+  SMTP_HOST: z.string().min(1).default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().positive().default(1025),
+  SMTP_SECURE: z
+    .enum(["true", "false"])
+    .default("false")
+    .transform((v) => v === "true"),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
+  MAIL_FROM: z.string().min(3).default("Tenderflow <no-reply@tenderflow.test>"),
+  BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(10),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+let cached: Env | undefined;
+
+export function env(): Env {
+  if (cached) return cached;
+  const parsed = envSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Tenderflow cannot start: the environment is incomplete.\n${lines.join("\n")}`);
+  }
+  cached = parsed.data;
+  return cached;
+}

@@ -1,0 +1,21 @@
+import { type RouteConfig, index, prefix, route } from "@react-router/dev/routes";
+
+export default [
+  index("routes/home.tsx"),
+  route("sign-in", "routes/sign-in.tsx"),
+  route("sign-up", "routes/sign-up.tsx"),
+  route("sign-out", "routes/sign-out.tsx"),
+  route("forgot-password", "routes/forgot-password.tsx"),
+  route("reset-password/:token", "routes/reset-password.tsx"),
+  route("join/:token", "routes/join.tsx"),
+  route("specs", "routes/specs.tsx"),
+  route("open-specs", "routes/open-specs.tsx"),
+  route("team", "routes/team.tsx"),
+  route("team/invitations/:invitationId/revoke", "routes/team.revoke-invitation.tsx"),
+  route("accounts", "routes/accounts.tsx"),
+  route("accounts/:organisationId", "routes/account.tsx"),
+  ...prefix("admin", [
+    route("users", "routes/admin.users.tsx"),
+    route("organisations", "routes/admin.organisations.tsx"),
+  ]),
+] satisfies RouteConfig;

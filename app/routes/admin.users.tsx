@@ -1,0 +1,153 @@
+import { parseWithZod } from "@conform-to/zod/v4";
+import { Form, data, useSearchParams } from "react-router";
+import type { Route } from "./+types/admin.users";
+import { requireRole } from "~/auth/permissions.server";
+import { ROLES_BY_KIND, ROLE_LABELS } from "~/auth/roles";
+import { redirectWithToast } from "~/auth/session.server";
+import { Badge, Button, Card, Notice, PageHeader, Pager } from "~/components/ui";
+import { listQuerySchema, userActionSchema } from "~/schemas/admin";
+import { changeRole, listUsers, setActive } from "~/services/admin.server";
+import { FieldErrors } from "~/services/errors.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Users · Tenderflow" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const admin = await requireRole(request, ["admin"]);
+  const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
+  const { users, total, page, pageCount } = await listUsers(query);
+  return {
+    adminId: admin.id,
+    total,
+    page,
+    pageCount,
+    users: users.map((u) => ({
+      id: u.id,
+      name: u.name,
+      email: u.email,
+      role: u.role,
+      active: u.active,
+      organisationName: u.organisation!.name,
+      allowedRoles: ROLES_BY_KIND[u.organisation!.kind],
+      lastSignInAt: u.lastSignInAt?.toISOString() ?? null,
+    })),
+  };
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const admin = await requireRole(request, ["admin"]);
+  const submission = parseWithZod(await request.formData(), { schema: userActionSchema });
+  if (submission.status !== "success") return data({ error: "That change was not understood." }, { status: 400 });
+  const back = new URL(request.url);
+  try {
+    const change = submission.value;
+    if (change.intent === "change-role") {
+      const user = await changeRole(admin, change.userId, change.role);
+      return redirectWithToast(request, `${back.pathname}${back.search}`, `${user.name} is now ${ROLE_LABELS[user.role].toLowerCase()}.`);
+    }
+    const user = await setActive(admin, change.userId, change.active);
+    return redirectWithToast(
+      request,
+      `${back.pathname}${back.search}`,
+      user.active ? `${user.name} can sign in again.` : `${user.name} is deactivated and can no longer sign in.`,
+    );
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return data({ error: error.message }, { status: 400 });
+  }
+}
+
+export default function AdminUsers({ loaderData, actionData }: Route.ComponentProps) {
+  const [searchParams] = useSearchParams();
+  return (
+    <>
+      <PageHeader title="Users" lead={`${loaderData.total} user${loaderData.total === 1 ? "" : "s"} across all organisations.`} />
+      {actionData?.error ? (
+        <div className="mb-4">
+          <Notice tone="bad">{actionData.error}</Notice>
+        </div>
+      ) : null}
+      <Card>
+        <Form method="get" role="search" className="mb-4 flex gap-2">
+          <label htmlFor="q" className="sr-only">
+            Search users
+          </label>
+          <input
+            id="q"
+            name="q"
+            type="search"
+            defaultValue={searchParams.get("q") ?? ""}
+            placeholder="Name, e-mail or organisation"
+            className="w-full max-w-sm rounded-md px-3 py-2 text-sm ring-1 ring-ink-200"
+          />
+          <Button type="submit" tone="secondary">
+            Search
+          </Button>
+        </Form>
+        <div className="overflow-x-auto">
+          <table className="w-full text-left text-sm">
+            <thead className="text-ink-600">
+              <tr>
+                <th className="py-2">Name</th>
+                <th>Organisation</th>
+                <th>Role</th>
+                <th>Status</th>
+                <th>Last signed in</th>
+                <th />
+              </tr>
+            </thead>
+            <tbody>
+              {loaderData.users.map((u) => (
+                <tr key={u.id} className="border-t border-ink-100 align-middle">
+                  <td className="py-2">
+                    <span className="block font-semibold">{u.name}</span>
+                    <span className="block text-xs text-ink-600">{u.email}</span>
+                  </td>
+                  <td>{u.organisationName}</td>
+                  <td>
+                    {u.allowedRoles.length > 1 && u.id !== loaderData.adminId ? (
+                      <Form method="post" className="flex items-center gap-1">
+                        <input type="hidden" name="intent" value="change-role" />
+                        <input type="hidden" name="userId" value={u.id} />
+                        <label className="sr-only" htmlFor={`role-${u.id}`}>
+                          Role of {u.name}
+                        </label>
+                        <select id={`role-${u.id}`} name="role" defaultValue={u.role} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
+                          {u.allowedRoles.map((r) => (
+                            <option key={r} value={r}>
+                              {ROLE_LABELS[r]}
+                            </option>
+                          ))}
+                        </select>
+                        <Button type="submit" tone="secondary" className="px-2 py-1">
+                          Save
+                        </Button>
+                      </Form>
+                    ) : (
+                      ROLE_LABELS[u.role]
+                    )}
+                  </td>
+                  <td>{u.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
+                  <td>{u.lastSignInAt ? new Date(u.lastSignInAt).toLocaleDateString("en-GB") : "Never"}</td>
+                  <td className="text-right">
+                    {u.id !== loaderData.adminId ? (
+                      <Form method="post">
+                        <input type="hidden" name="intent" value="set-active" />
+                        <input type="hidden" name="userId" value={u.id} />
+                        <input type="hidden" name="active" value={u.active ? "false" : "true"} />
+                        <Button type="submit" tone={u.active ? "danger" : "secondary"} className="px-3 py-1">
+                          {u.active ? "Deactivate" : "Reactivate"}
+                        </Button>
+                      </Form>
+                    ) : null}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+        {loaderData.users.length === 0 ? <p className="py-6 text-center text-ink-600">No user matches that search.</p> : null}
+        <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
+      </Card>
+    </>
+  );
+}

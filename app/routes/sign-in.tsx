@@ -1,0 +1,66 @@
+import { getFormProps, useForm } from "@conform-to/react";
+import { parseWithZod } from "@conform-to/zod/v4";
+import { Form, Link, data, useNavigation, useSearchParams } from "react-router";
+import type { Route } from "./+types/sign-in";
+import { authenticator } from "~/auth/authenticator.server";
+import { requireAnonymous, safeRedirect } from "~/auth/permissions.server";
+import { HOME_BY_ROLE } from "~/auth/roles";
+import { signInRedirect } from "~/auth/session.server";
+import { AuthCard } from "~/components/auth-card";
+import { FormErrors, TextField } from "~/components/form-field";
+import { Button } from "~/components/ui";
+import { signInSchema } from "~/schemas/account";
+import { SignInError } from "~/services/accounts.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Sign in · Tenderflow" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  await requireAnonymous(request);
+  return null;
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const submission = parseWithZod(await request.clone().formData(), { schema: signInSchema });
+  if (submission.status !== "success") {
+    return data(submission.reply({ hideFields: ["password"] }), { status: 400 });
+  }
+  try {
+    const user = await authenticator.authenticate("form", request);
+    return signInRedirect(request, user.id, safeRedirect(submission.value.redirectTo, HOME_BY_ROLE[user.role]));
+  } catch (error) {
+    if (!(error instanceof SignInError)) throw error;
+    return data(submission.reply({ formErrors: [error.message], hideFields: ["password"] }), { status: 400 });
+  }
+}
+
+export default function SignIn({ actionData }: Route.ComponentProps) {
+  const [searchParams] = useSearchParams();
+  const navigation = useNavigation();
+  const [form, fields] = useForm({
+    lastResult: actionData,
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: signInSchema }),
+    shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
+  });
+  return (
+    <AuthCard title="Sign in" lead="Welcome back to Tenderflow.">
+      <Form method="post" {...getFormProps(form)} className="space-y-4">
+        <FormErrors id={form.errorId} errors={form.errors} />
+        <input type="hidden" name="redirectTo" value={searchParams.get("redirectTo") ?? ""} />
+        <TextField meta={fields.email} label="E-mail address" type="email" autoComplete="email" />
+        <TextField meta={fields.password} label="Password" type="password" autoComplete="current-password" />
+        <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
+          {navigation.state === "submitting" ? "Signing in…" : "Sign in"}
+        </Button>
+      </Form>
+      <div className="mt-4 flex justify-between text-sm">
+        <Link to="/forgot-password" className="text-flow-700 hover:underline">
+          Forgot your password?
+        </Link>
+        <Link to="/sign-up" className="text-flow-700 hover:underline">
+          New here? Create an account
+        </Link>
+      </div>
+    </AuthCard>
+  );
+}

@@ -1,0 +1,19 @@
+import { z } from "zod";
+import { ORGANISATION_KINDS, ROLES } from "~/auth/roles";
+
+/** Search and paging parameters of the admin tables; bad values fall back instead of failing. */
+export const listQuerySchema = z.object({
+  q: z.string().trim().max(100).optional().catch(undefined),
+  page: z.coerce.number().int().min(1).max(100_000).optional().catch(undefined),
+  kind: z.enum(ORGANISATION_KINDS).optional().catch(undefined),
+});
+
+export const userActionSchema = z.discriminatedUnion("intent", [
+  z.object({ intent: z.literal("change-role"), userId: z.uuid(), role: z.enum(ROLES) }),
+  z.object({ intent: z.literal("set-active"), userId: z.uuid(), active: z.enum(["true", "false"]).transform((v) => v === "true") }),
+]);
+
+export const assignManagerSchema = z.object({
+  organisationId: z.uuid(),
+  managerId: z.union([z.uuid(), z.literal("")]).transform((v) => v || null),
+});

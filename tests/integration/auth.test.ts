@@ -1,0 +1,168 @@
+import { describe, expect, it } from "vitest";
+import * as signIn from "~/routes/sign-in";
+import * as signUp from "~/routes/sign-up";
+import * as signOut from "~/routes/sign-out";
+import * as forgot from "~/routes/forgot-password";
+import * as reset from "~/routes/reset-password";
+import * as specs from "~/routes/specs";
+import { Organisation, User } from "~/models/index.server";
+import { deliverDueMail } from "~/services/mail.server";
+import { linkIn, waitForMail } from "../support/mailbox";
+import { PASSWORD, makeMember, uniqueEmail } from "../support/factories";
+import { Visitor } from "../support/routes";
+
+const signUpFields = (email: string) => ({
+  kind: "buyer",
+  organisationName: "Fenwick Press Tools",
+  name: "Rhea Fenwick",
+  email,
+  password: PASSWORD,
+});
+
+describe("sign up", () => {
+  it("creates the organisation and its first user, signs them in and lands on their home", async () => {
+    const visitor = new Visitor();
+    const email = uniqueEmail("signup");
+    const res = await visitor.post(signUp.action, "/sign-up", signUpFields(email.toUpperCase()));
+    expect(res.status).toBe(302);
+    expect(res.location).toBe("/specs");
+    expect(visitor.signedIn).toBe(true);
+    const user = await User.findOne({ where: { email }, include: [{ model: Organisation, as: "organisation" }] });
+    expect(user?.role).toBe("buyer");
+    expect(user?.organisation?.kind).toBe("buyer");
+    expect(user?.passwordHash).toMatch(/^\$2[aby]\$1\d\$/); // bcrypt, cost >= 10
+    expect((await visitor.get(specs.loader, "/specs")).status).toBe(200);
+  });
+
+  it("refuses a duplicate e-mail with a clear message and creates no second organisation", async () => {
+    const email = uniqueEmail("dupe");
+    await new Visitor().post(signUp.action, "/sign-up", signUpFields(email));
+    const before = await Organisation.count();
+    const res = await new Visitor().post(signUp.action, "/sign-up", { ...signUpFields(email), organisationName: "Another Ltd" });
+    expect(res.status).toBe(400);
+    expect(res.data.error.email[0]).toMatch(/already exists/);
+    expect(await Organisation.count()).toBe(before);
+  });
+
+  it.each([
+    ["empty fields", { kind: "", organisationName: "", name: "", email: "", password: "" }, ["kind", "organisationName", "name", "email", "password"]],
+    ["an overlong company name", { ...signUpFields("long@example.test"), organisationName: "x".repeat(121) }, ["organisationName"]],
+    ["a malformed e-mail", { ...signUpFields("not-an-email"), email: "not-an-email" }, ["email"]],
+    ["a short password", { ...signUpFields("short@example.test"), password: "short" }, ["password"]],
+    ["an unknown kind", { ...signUpFields("kind@example.test"), kind: "admin" }, ["kind"]],
+  ])("gives field errors for %s and stores nothing", async (_label, fields, errored) => {
+    const before = await User.count();
+    const res = await new Visitor().post(signUp.action, "/sign-up", fields as Record<string, string>);
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.data.error).sort()).toEqual([...errored].sort());
+    expect(await User.count()).toBe(before);
+  });
+});
+
+describe("sign in and out", () => {
+  it("signs in with the right password and returns to the address it came from", async () => {
+    const user = await makeMember("shop");
+    const visitor = new Visitor();
+    const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD, redirectTo: "/team" });
+    expect(res.status).toBe(302);
+    expect(res.location).toBe("/team");
+    expect(visitor.signedIn).toBe(true);
+  });
+
+  it("ignores a return address on another site", async () => {
+    const user = await makeMember("shop");
+    const res = await new Visitor().post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD, redirectTo: "//evil.test/x" });
+    expect(res.location).toBe("/open-specs");
+  });
+
+  it("shows an error for a wrong password and starts no session", async () => {
+    const user = await makeMember("buyer");
+    const visitor = new Visitor();
+    const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: "wrong-password-here" });
+    expect(res.status).toBe(400);
+    expect(res.data.error[""]).toEqual(["The e-mail address or password is not right."]);
+    expect(res.data.initialValue.password).toBeUndefined(); // the password is not echoed back
+    expect(visitor.signedIn).toBe(false);
+  });
+
+  it("gives the same answer for an unknown e-mail", async () => {
+    const res = await new Visitor().post(signIn.action, "/sign-in", { email: uniqueEmail("nobody"), password: PASSWORD });
+    expect(res.status).toBe(400);
+    expect(res.data.error[""]).toEqual(["The e-mail address or password is not right."]);
+  });
+
+  it("refuses a deactivated user, and drops the session of one deactivated while signed in", async () => {
+    const user = await makeMember("buyer");
+    const visitor = new Visitor();
+    await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    await user.update({ active: false });
+    const page = await visitor.get(specs.loader, "/specs");
+    expect(page.status).toBe(302);
+    expect(page.location).toBe("/sign-in?redirectTo=%2Fspecs");
+    expect(visitor.signedIn).toBe(false);
+    const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    expect(res.status).toBe(400);
+    expect(res.data.error[""]).toEqual(["This account has been deactivated."]);
+    expect(visitor.signedIn).toBe(false);
+  });
+
+  it("signs out", async () => {
+    const user = await makeMember("buyer");
+    const visitor = new Visitor();
+    await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    const res = await visitor.post(signOut.action, "/sign-out", {});
+    expect(res.location).toBe("/sign-in");
+    expect(visitor.signedIn).toBe(false);
+    expect((await visitor.get(specs.loader, "/specs")).status).toBe(302);
+  });
+
+  it("sends a signed-in user away from the sign-in page to their home", async () => {
+    const user = await makeMember("shop");
+    const visitor = new Visitor();
+    await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    const res = await visitor.get(signIn.loader, "/sign-in");
+    expect(res.location).toBe("/open-specs");
+  });
+});
+
+describe("password reset by e-mail", () => {
+  it("mails a link that sets a new password once", async () => {
+    const user = await makeMember("buyer");
+    const res = await new Visitor().post(forgot.action, "/forgot-password", { email: user.email });
+    expect(res.data.sent).toBe(true);
+    await deliverDueMail();
+    const mail = await waitForMail(user.email, "Reset your Tenderflow password");
+    const link = new URL(linkIn(mail, "/reset-password/"));
+    const token = link.pathname.split("/").pop()!;
+
+    const visitor = new Visitor();
+    expect((await visitor.get(reset.loader, link.pathname, { token })).data.usable).toBe(true);
+    const done = await visitor.post(reset.action, link.pathname, { password: "a-brand-new-password", confirm: "a-brand-new-password" }, { token });
+    expect(done.status).toBe(302);
+    expect(visitor.signedIn).toBe(true);
+
+    // The old password no longer works, the new one does.
+    expect((await new Visitor().post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD })).status).toBe(400);
+    expect((await new Visitor().post(signIn.action, "/sign-in", { email: user.email, password: "a-brand-new-password" })).status).toBe(302);
+
+    // The link works once.
+    expect((await new Visitor().get(reset.loader, link.pathname, { token })).data.usable).toBe(false);
+    const again = await new Visitor().post(reset.action, link.pathname, { password: "yet-another-password", confirm: "yet-another-password" }, { token });
+    expect(again.status).toBe(400);
+    expect(again.data.error[""][0]).toMatch(/expired or was already used/);
+    expect((await new Visitor().post(signIn.action, "/sign-in", { email: user.email, password: "yet-another-password" })).status).toBe(400);
+  });
+
+  it("answers the same for an unknown address and sends nothing", async () => {
+    const email = uniqueEmail("ghost");
+    const res = await new Visitor().post(forgot.action, "/forgot-password", { email });
+    expect(res.data.sent).toBe(true);
+    expect(await deliverDueMail()).toBe(0);
+  });
+
+  it("rejects two different new passwords", async () => {
+    const res = await new Visitor().post(reset.action, "/reset-password/x", { password: "a-brand-new-password", confirm: "something-else-entirely" }, { token: "x".repeat(43) });
+    expect(res.status).toBe(400);
+    expect(res.data.error.confirm).toEqual(["The two passwords differ."]);
+  });
+});

@@ -1,0 +1,37 @@
+// Runs before each test file: a fresh database cloned from the migrated template, and the
+// environment the app reads, set before any app module is imported.
+import { randomBytes } from "node:crypto";
+import pg from "pg";
+import { afterAll, inject } from "vitest";
+
+const dbName = `test_${randomBytes(6).toString("hex")}`;
+const adminUrl = inject("postgresUrl");
+
+const admin = new pg.Client({ connectionString: adminUrl });
+await admin.connect();
+await admin.query(`CREATE DATABASE ${dbName} TEMPLATE ${inject("templateDb")}`);
+await admin.end();
+
+const url = new URL(adminUrl);
+url.pathname = `/${dbName}`;
+Object.assign(process.env, {
+  NODE_ENV: "test",
+  DATABASE_URL: url.toString(),
+  SESSION_SECRET: "test-secret-that-is-long-enough-for-signing-cookies",
+  APP_URL: "http://127.0.0.1:3000",
+  SMTP_HOST: "127.0.0.1",
+  SMTP_PORT: String(inject("smtpPort")),
+  MAILDEV_URL: inject("maildevUrl"),
+  BCRYPT_COST: "10",
+});
+
+afterAll(async () => {
+  // Forks reuse a process across files: drop this file's pool so the next file gets its own.
+  const holder = globalThis as unknown as { __tenderflowDb?: { close(): Promise<void> } };
+  await holder.__tenderflowDb?.close();
+  delete holder.__tenderflowDb;
+  const cleanup = new pg.Client({ connectionString: adminUrl });
+  await cleanup.connect();
+  await cleanup.query(`DROP DATABASE IF EXISTS ${dbName} WITH (FORCE)`);
+  await cleanup.end();
+});

@@ -1,0 +1,61 @@
+// Starts what every test file shares: a throwaway PostgreSQL cluster with a migrated template
+// database (each file clones its own database from it) and a maildev inbox.
+import { mkdtempSync, rmSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { MailDev } from "maildev";
+import pg from "pg";
+import { Sequelize } from "sequelize";
+import type { TestProject } from "vitest/node";
+import { freePort, removeCluster, startCluster, stopCluster } from "../../db/cluster";
+import { migrator } from "../../db/migrator";
+
+export const TEMPLATE_DB = "tenderflow_template";
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    postgresUrl: string;
+    templateDb: string;
+    smtpPort: number;
+    maildevUrl: string;
+  }
+}
+
+export default async function setup(project: TestProject) {
+  const root = mkdtempSync(path.join(os.tmpdir(), "tenderflow-test-"));
+  // PostgreSQL (running as the postgres user) must be able to enter the folder.
+  await import("node:fs").then((fs) => fs.chmodSync(root, 0o755));
+  const cluster = startCluster({ dataDir: path.join(root, "pg"), port: await freePort(), ephemeral: true });
+
+  const admin = new pg.Client({ connectionString: cluster.url() });
+  await admin.connect();
+  await admin.query(`CREATE DATABASE ${TEMPLATE_DB}`);
+  await admin.end();
+  const sequelize = new Sequelize(cluster.url(TEMPLATE_DB), { dialect: "postgres", dialectModule: pg, logging: false });
+  await migrator(sequelize).up();
+  await sequelize.close();
+
+  const smtpPort = await freePort();
+  const webPort = await freePort();
+  const maildev = new MailDev({
+    smtp: smtpPort,
+    ip: "127.0.0.1",
+    web: webPort,
+    webIp: "127.0.0.1",
+    mailDirectory: path.join(root, "mail"),
+    silent: true,
+  } as ConstructorParameters<typeof MailDev>[0]);
+  await maildev.start();
+
+  project.provide("postgresUrl", cluster.url());
+  project.provide("templateDb", TEMPLATE_DB);
+  project.provide("smtpPort", smtpPort);
+  project.provide("maildevUrl", `http://127.0.0.1:${webPort}`);
+
+  return async () => {
+    await maildev.stop();
+    stopCluster(cluster, "immediate");
+    removeCluster(cluster);
+    rmSync(root, { recursive: true, force: true });
+  };
+}

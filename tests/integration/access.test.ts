@@ -1,0 +1,80 @@
+// Each role against each page of the foundation: allowed (200), wrong role (403),
+// another organisation's record (404), signed out (redirect to sign-in with a return address).
+import { beforeAll, describe, expect, it } from "vitest";
+import * as signIn from "~/routes/sign-in";
+import * as specs from "~/routes/specs";
+import * as openSpecs from "~/routes/open-specs";
+import * as team from "~/routes/team";
+import * as accounts from "~/routes/accounts";
+import * as account from "~/routes/account";
+import * as adminUsers from "~/routes/admin.users";
+import * as adminOrgs from "~/routes/admin.organisations";
+import type { Role } from "~/auth/roles";
+import { Organisation, type User } from "~/models/index.server";
+import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
+import { Visitor } from "../support/routes";
+
+type Loader = (args: any) => unknown;
+const PAGES: { path: string; loader: Loader; allowed: Role[] }[] = [
+  { path: "/specs", loader: specs.loader, allowed: ["buyer"] },
+  { path: "/open-specs", loader: openSpecs.loader, allowed: ["shop"] },
+  { path: "/team", loader: team.loader, allowed: ["buyer", "shop", "admin"] },
+  { path: "/accounts", loader: accounts.loader, allowed: ["account_manager", "admin"] },
+  { path: "/admin/users", loader: adminUsers.loader, allowed: ["admin"] },
+  { path: "/admin/organisations", loader: adminOrgs.loader, allowed: ["admin"] },
+];
+
+const visitors = {} as Record<Role, Visitor>;
+const users = {} as Record<Role, User>;
+
+beforeAll(async () => {
+  users.buyer = await makeMember("buyer");
+  users.shop = await makeMember("shop");
+  users.account_manager = await makeOperatorUser("account_manager");
+  users.admin = await makeOperatorUser("admin");
+  for (const role of Object.keys(users) as Role[]) {
+    visitors[role] = new Visitor();
+    await visitors[role].post(signIn.action, "/sign-in", { email: users[role].email, password: PASSWORD });
+  }
+});
+
+describe.each(PAGES)("$path", ({ path, loader, allowed }) => {
+  it.each(["buyer", "shop", "account_manager", "admin"] as Role[])("as %s", async (role) => {
+    const res = await visitors[role].get(loader, path);
+    expect(res.status).toBe(allowed.includes(role) ? 200 : 403);
+  });
+
+  it("signed out: redirects to sign-in and back", async () => {
+    const res = await new Visitor().get(loader, path);
+    expect(res.status).toBe(302);
+    expect(res.location).toBe(`/sign-in?redirectTo=${encodeURIComponent(path)}`);
+  });
+});
+
+describe("records of other organisations", () => {
+  it("an account manager opens their own account, and gets 404 for one they do not follow", async () => {
+    const own = await makeMember("buyer");
+    const other = await makeMember("buyer");
+    await Organisation.update({ accountManagerId: users.account_manager.id }, { where: { id: own.organisationId } });
+    const mine = await visitors.account_manager.get(account.loader, "/accounts/x", { organisationId: own.organisationId });
+    expect(mine.status).toBe(200);
+    expect(mine.data.users.map((u: { email: string }) => u.email)).toEqual([own.email]);
+    const theirs = await visitors.account_manager.get(account.loader, "/accounts/x", { organisationId: other.organisationId });
+    expect(theirs.status).toBe(404);
+    const forged = await visitors.account_manager.get(account.loader, "/accounts/x", { organisationId: "1; drop table users" });
+    expect(forged.status).toBe(404);
+  });
+
+  it("a buyer's team page lists only their own organisation", async () => {
+    const colleague = await makeMember("buyer");
+    const res = await visitors.buyer.get(team.loader, "/team");
+    const emails = res.data.members.map((m: { email: string }) => m.email);
+    expect(emails).toEqual([users.buyer.email]);
+    expect(emails).not.toContain(colleague.email);
+  });
+
+  it("a buyer asking for an account page gets 403, not the account", async () => {
+    const res = await visitors.buyer.get(account.loader, "/accounts/x", { organisationId: users.buyer.organisationId });
+    expect(res.status).toBe(403);
+  });
+});

@@ -9,6 +9,5 @@ export default defineConfig({
     setupFiles: ["tests/setup/each-file.ts"],
     testTimeout: 20_000,
     hookTimeout: 60_000,
-    fileParallelism: false,
   },
 });

@@ -1,0 +1,113 @@
+// `npm start`: the whole local stack in one command. It starts the project's own PostgreSQL
+// cluster (data in .data/), migrates and seeds it, starts maildev for e-mail, builds the app and
+// serves it on http://127.0.0.1:3000, then stops everything it started on Ctrl-C.
+import { randomBytes } from "node:crypto";
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import { MailDev } from "maildev";
+import pg from "pg";
+import { Sequelize } from "sequelize";
+import { ensureDatabase, isRunning, startCluster, stopCluster, type Cluster } from "../db/cluster";
+import { migrator } from "../db/migrator";
+import { DEMO_PASSWORD, DEMO_SIGN_INS, seedDemo } from "../db/seeds/demo";
+import { run, serveBuild, stop } from "./processes";
+
+const root = path.resolve(import.meta.dirname, "..");
+const dataDir = path.join(root, ".data");
+const APP_PORT = Number(process.env.PORT ?? 3000);
+const PG_PORT = Number(process.env.TENDERFLOW_PG_PORT ?? 54329);
+const SMTP_PORT = Number(process.env.TENDERFLOW_SMTP_PORT ?? 1025);
+const MAIL_WEB_PORT = Number(process.env.TENDERFLOW_MAIL_WEB_PORT ?? 1080);
+const step = (text: string) => console.log(`\n▸ ${text}`);
+
+/** A secret made once per checkout, so sessions survive restarts of the local stack. */
+function localSecret(name: string) {
+  const file = path.join(dataDir, name);
+  if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString("hex"), { mode: 0o600 });
+  return readFileSync(file, "utf8").trim();
+}
+
+async function main() {
+  mkdirSync(dataDir, { recursive: true });
+  let cluster: Cluster | undefined;
+  let databaseUrl = process.env.DATABASE_URL;
+  if (databaseUrl) {
+    step("Using the database in DATABASE_URL");
+  } else {
+    step(`Starting PostgreSQL (project cluster in .data/postgres, 127.0.0.1:${PG_PORT})`);
+    const clusterDir = path.join(dataDir, "postgres");
+    if (isRunning(clusterDir)) stopCluster({ dataDir: clusterDir }); // left over from an interrupted run
+    cluster = startCluster({ dataDir: clusterDir, port: PG_PORT });
+    databaseUrl = await ensureDatabase(cluster, "tenderflow", localSecret("db-password"));
+  }
+
+  const db = new Sequelize(databaseUrl, { dialect: "postgres", dialectModule: pg, logging: false });
+  step("Migrating the database");
+  const applied = await migrator(db).up();
+  console.log(applied.length ? `  applied ${applied.map((m) => m.name).join(", ")}` : "  schema is up to date");
+  const seeded = await seedDemo(db);
+  console.log(seeded ? "  demo data loaded" : "  existing data kept");
+  await db.close();
+
+  step(`Starting maildev (SMTP 127.0.0.1:${SMTP_PORT}, inbox http://127.0.0.1:${MAIL_WEB_PORT})`);
+  const maildev = new MailDev({
+    smtp: SMTP_PORT,
+    ip: "127.0.0.1",
+    web: MAIL_WEB_PORT,
+    webIp: "127.0.0.1",
+    mailDirectory: path.join(dataDir, "mail"),
+    silent: true,
+  } as ConstructorParameters<typeof MailDev>[0]);
+  await maildev.start();
+
+  const env = {
+    ...process.env,
+    NODE_ENV: "production",
+    DATABASE_URL: databaseUrl,
+    SESSION_SECRET: process.env.SESSION_SECRET ?? localSecret("session-secret"),
+    APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${APP_PORT}`,
+    SMTP_HOST: "127.0.0.1",
+    SMTP_PORT: String(SMTP_PORT),
+  };
+
+  step("Building the app");
+  await run("node_modules/.bin/react-router", ["build"], env, true);
+
+  step("Serving the app");
+  const app = await serveBuild(APP_PORT, env, (line) => process.stdout.write(`  [app] ${line}`));
+
+  console.log(`
+Tenderflow is running.
+
+  App            http://127.0.0.1:${APP_PORT}
+  Mail inbox     http://127.0.0.1:${MAIL_WEB_PORT}   (every e-mail the app sends lands here)
+
+Demo sign-ins (password for all: ${DEMO_PASSWORD})
+${DEMO_SIGN_INS.map((u) => `  ${u.role.padEnd(16)} ${u.email.padEnd(30)} ${u.name}, ${u.organisation}`).join("\n")}
+
+Press Ctrl-C to stop.`);
+
+  let stopping = false;
+  const shutdown = async () => {
+    if (stopping) return;
+    stopping = true;
+    console.log("\nStopping…");
+    await stop(app);
+    await maildev.stop();
+    if (cluster) stopCluster(cluster);
+    process.exit(0);
+  };
+  process.on("SIGINT", shutdown);
+  process.on("SIGTERM", shutdown);
+  app.on("exit", (code) => {
+    if (!stopping) {
+      console.error(`The app server stopped (exit code ${code}).`);
+      void shutdown();
+    }
+  });
+}
+
+main().catch((error) => {
+  console.error(`\nTenderflow could not start:\n${error instanceof Error ? error.message : error}`);
+  process.exit(1);
+});

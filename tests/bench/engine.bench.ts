@@ -1,0 +1,34 @@
+/**
+ * Sizing-engine throughput on one core: `npx tsx tests/bench/engine.bench.ts`.
+ * Prints designs per second for a mix of axes, through the validating entry point and the
+ * parsed one, next to a JSON round-trip of the same requirements as a baseline.
+ */
+import { parseRequirements, sizeCircuit, sizeCircuitParsed, type RequirementsInput } from "../../app/hydraulics";
+
+const MIX: RequirementsInput[] = [
+  { orientation: "horizontal", massKg: 800, processForceN: 30000, strokeMm: 400, extendSpeedMmS: 120, retractSpeedMmS: 200, mounting: "fixed-fixed", cyclesPerHour: 120, hoursPerDay: 16, supplyHz: 50 },
+  { orientation: "vertical", rodDirection: "down", massKg: 2500, processForceN: 150000, strokeMm: 600, extendSpeedMmS: 80, retractSpeedMmS: 120, mounting: "fixed-pinned", cyclesPerHour: 40, hoursPerDay: 8, supplyHz: 50 },
+  { orientation: "vertical", rodDirection: "up", massKg: 4000, strokeMm: 1200, extendSpeedMmS: 60, retractSpeedMmS: 90, mounting: "pinned-pinned", cyclesPerHour: 20, hoursPerDay: 8, supplyHz: 60 },
+  { orientation: "inclined", inclineDeg: 35, rodDirection: "up", massKg: 1200, strokeMm: 900, extendSpeedMmS: 150, retractSpeedMmS: 150, mounting: "pinned-pinned", cyclesPerHour: 30, hoursPerDay: 12, supplyHz: 50, maxPressureBar: 210 },
+  { orientation: "inclined", inclineDeg: 60, rodDirection: "down", massKg: 300, strokeMm: 250, extendSpeedMmS: 300, retractSpeedMmS: 400, mounting: "fixed-free", cyclesPerHour: 300, hoursPerDay: 20, supplyHz: 60 },
+  { orientation: "horizontal", massKg: 50, strokeMm: 2500, extendSpeedMmS: 500, retractSpeedMmS: 500, mounting: "fixed-free", cyclesPerHour: 10, hoursPerDay: 4, supplyHz: 50 },
+];
+
+function rate(label: string, iterations: number, body: (i: number) => unknown): number {
+  let sink = 0;
+  for (let i = 0; i < Math.min(iterations, 2000); i++) sink += body(i) ? 1 : 0; // warm-up
+  const start = performance.now();
+  for (let i = 0; i < iterations; i++) sink += body(i) ? 1 : 0;
+  const seconds = (performance.now() - start) / 1000;
+  const perSecond = iterations / seconds;
+  console.log(`${label.padEnd(44)} ${Math.round(perSecond).toLocaleString("en-GB").padStart(12)} /s  (${sink === iterations ? "ok" : "?"})`);
+  return perSecond;
+}
+
+const N = 200_000;
+const parsed = MIX.map((r) => parseRequirements(r));
+const baseline = rate("baseline: JSON.parse(JSON.stringify(req))", N, (i) => JSON.parse(JSON.stringify(MIX[i % MIX.length])));
+const full = rate("sizeCircuit (schema parse + sizing)", N, (i) => sizeCircuit(MIX[i % MIX.length]));
+const engine = rate("sizeCircuitParsed (sizing only)", N, (i) => sizeCircuitParsed(parsed[i % parsed.length]));
+console.log(`\nmix of ${MIX.length} axes; target ≥ 50 000 designs/s on one core`);
+console.log(`sizeCircuit is ${(baseline / full).toFixed(1)}× slower than the JSON round-trip baseline; sizeCircuitParsed ${(baseline / engine).toFixed(1)}×`);

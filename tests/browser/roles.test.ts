@@ -1,0 +1,58 @@
+// Smoke test in a real browser: each demo role signs in and sees its own home and navigation.
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { sequelize } from "~/db.server";
+import { DEMO_PASSWORD, seedDemo } from "../../db/seeds/demo";
+import { SCREENSHOTS, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+
+let app: BrowserApp;
+
+beforeAll(async () => {
+  await seedDemo(sequelize);
+  app = await startBrowserApp();
+}, 120_000);
+
+afterAll(async () => {
+  await app?.close();
+});
+
+const ROLES = [
+  { role: "buyer", email: "priya@kestrel-forming.test", path: "/specs", heading: "My specs", nav: ["My specs", "Team"] },
+  { role: "shop", email: "aled@ironbridge-fluid.test", path: "/open-specs", heading: "Open specs", nav: ["Open specs", "Team"] },
+  { role: "account manager", email: "nadia@tenderflow.test", path: "/accounts", heading: "My accounts", nav: ["My accounts"] },
+  { role: "admin", email: "felix@tenderflow.test", path: "/admin/users", heading: "Users", nav: ["Users", "Organisations", "Operator team"] },
+];
+
+describe("each demo role signs in and sees its home", () => {
+  it.each(ROLES)("$role", async ({ role, email, path: home, heading, nav }) => {
+    const page = await app.newPage();
+    await signInAs(page, email, DEMO_PASSWORD);
+    await page.waitForURL(`**${home}`);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe(heading);
+    const links = await page.getByRole("navigation", { name: "Main" }).getByRole("link").allTextContents();
+    expect(links).toEqual(nav);
+    await page.screenshot({ path: path.join(SCREENSHOTS, `home-${role.replace(" ", "-")}.png`), fullPage: true });
+    await page.context().close();
+  });
+
+  it("a wrong password shows the error beside the form and stays signed out", async () => {
+    const page = await app.newPage();
+    await signInAs(page, "priya@kestrel-forming.test", "not-her-password");
+    await expect.poll(() => page.getByRole("alert").textContent()).toContain("not right");
+    expect(new URL(page.url()).pathname).toBe("/sign-in");
+    await page.screenshot({ path: path.join(SCREENSHOTS, "sign-in-wrong-password.png") });
+    await page.goto("/specs");
+    expect(new URL(page.url()).pathname).toBe("/sign-in");
+    await page.context().close();
+  });
+
+  it("a shop opening the admin page sees the 403 page", async () => {
+    const page = await app.newPage();
+    await signInAs(page, "aled@ironbridge-fluid.test", DEMO_PASSWORD);
+    await page.waitForURL("**/open-specs");
+    const response = await page.goto("/admin/users");
+    expect(response?.status()).toBe(403);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Not for your role");
+    await page.context().close();
+  });
+});

@@ -56,9 +56,10 @@ describe("exact definitions", () => {
 });
 
 describe("round trips", () => {
+  // From -100 (above absolute zero for temperatures) to a million.
   it("fromDisplay undoes toDisplay for every quantity", () => {
     fc.assert(
-      fc.property(fc.constantFrom(...(Object.keys(UNITS) as Quantity[])), fc.double({ min: -100, max: 1e6, noNaN: true }) // above absolute zero for temperatures, (q, v) => {
+      fc.property(fc.constantFrom(...(Object.keys(UNITS) as Quantity[])), fc.double({ min: -100, max: 1e6, noNaN: true }), (q, v) => {
         closeTo(fromDisplay(q, toDisplay(q, v, "us"), "us"), v, 1e-9);
       }),
     );

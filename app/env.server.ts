@@ -17,6 +17,8 @@ const envSchema = z.object({
   SMTP_PASSWORD: z.string().optional(),
   MAIL_FROM: z.string().min(3).default("Tenderflow <no-reply@tenderflow.test>"),
   BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(10),
+  /** Live sizing sends a request per pause in typing; this allows brisk typing, not scraping. */
+  SIZING_REQUESTS_PER_MINUTE: z.coerce.number().int().positive().default(240),
 });
 
 export type Env = z.infer<typeof envSchema>;

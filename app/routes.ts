@@ -14,6 +14,10 @@ export default [
   route("team/invitations/:invitationId/revoke", "routes/team.revoke-invitation.tsx"),
   route("accounts", "routes/accounts.tsx"),
   route("accounts/:organisationId", "routes/account.tsx"),
+  ...prefix("api/v1", [
+    route("sizing", "routes/api.v1.sizing.ts"),
+    route("health", "routes/api.v1.health.ts"),
+  ]),
   ...prefix("admin", [
     route("users", "routes/admin.users.tsx"),
     route("organisations", "routes/admin.organisations.tsx"),

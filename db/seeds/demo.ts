@@ -1,7 +1,7 @@
 // Demo data of Tenderflow's own invented scenario: two machine builders, three fluid-power shops
 // and the portal's operator. Every name, company and address here is made up (.test domains).
 import bcrypt from "bcryptjs";
-import type { Sequelize } from "sequelize";
+import { QueryTypes, type Sequelize } from "sequelize";
 
 export const DEMO_PASSWORD = "tenderflow-demo";
 
@@ -67,24 +67,27 @@ export const DEMO_SIGN_INS = DEMO_ORGANISATIONS.flatMap((o) =>
 
 /** Seeds the demo scenario into an empty database; does nothing when organisations exist. */
 export async function seedDemo(sequelize: Sequelize): Promise<boolean> {
-  const [[{ count }]] = (await sequelize.query("SELECT count(*)::int AS count FROM organisations")) as [[{ count: number }], unknown];
+  const [{ count }] = await sequelize.query<{ count: number }>("SELECT count(*)::int AS count FROM organisations", {
+    type: QueryTypes.SELECT,
+  });
   if (count > 0) return false;
   const passwordHash = await bcrypt.hash(DEMO_PASSWORD, 10);
   await sequelize.transaction(async (transaction) => {
     const userIds = new Map<string, string>();
     const orgIds = new Map<string, string>();
     for (const org of DEMO_ORGANISATIONS) {
-      const [[row]] = (await sequelize.query(
+      // INSERT … RETURNING read as a SELECT gives the new rows.
+      const [row] = await sequelize.query<{ id: string }>(
         "INSERT INTO organisations (name, kind, region) VALUES (:name, :kind, :region) RETURNING id",
-        { replacements: org, transaction },
-      )) as [[{ id: string }], unknown];
+        { replacements: { name: org.name, kind: org.kind, region: org.region }, transaction, type: QueryTypes.SELECT },
+      );
       orgIds.set(org.name, row.id);
       for (const user of org.users) {
-        const [[u]] = (await sequelize.query(
+        const [u] = await sequelize.query<{ id: string }>(
           `INSERT INTO users (organisation_id, email, name, password_hash, role)
            VALUES (:organisationId, :email, :name, :passwordHash, :role) RETURNING id`,
-          { replacements: { ...user, organisationId: row.id, passwordHash }, transaction },
-        )) as [[{ id: string }], unknown];
+          { replacements: { ...user, organisationId: row.id, passwordHash }, transaction, type: QueryTypes.SELECT },
+        );
         userIds.set(user.email, u.id);
       }
     }

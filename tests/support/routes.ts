@@ -13,6 +13,7 @@ const ORIGIN = "http://127.0.0.1:3000";
 
 export interface Outcome<T = unknown> {
   status: number;
+  headers: Headers;
   location: string | null;
   setCookie: string | null;
   data: T;
@@ -26,13 +27,13 @@ async function settle(value: unknown): Promise<Outcome<any>> {
   if (value instanceof Response) {
     const type = value.headers.get("Content-Type") ?? "";
     const body = type.includes("json") ? await value.json() : await value.text();
-    return { status: value.status, location: value.headers.get("Location"), setCookie: value.headers.get("Set-Cookie"), data: body };
+    return { status: value.status, headers: value.headers, location: value.headers.get("Location"), setCookie: value.headers.get("Set-Cookie"), data: body };
   }
   if (isDataWithInit(value)) {
     const headers = new Headers(value.init?.headers);
-    return { status: value.init?.status ?? 200, location: headers.get("Location"), setCookie: headers.get("Set-Cookie"), data: value.data };
+    return { status: value.init?.status ?? 200, headers, location: headers.get("Location"), setCookie: headers.get("Set-Cookie"), data: value.data };
   }
-  return { status: 200, location: null, setCookie: null, data: value };
+  return { status: 200, headers: new Headers(), location: null, setCookie: null, data: value };
 }
 
 export async function call<T = any>(fn: RouteFunction, request: Request, params: Record<string, string> = {}): Promise<Outcome<T>> {

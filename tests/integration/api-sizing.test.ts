@@ -1,0 +1,108 @@
+import { describe, expect, it, vi } from "vitest";
+
+// A small allowance so the limit can be reached in a test; set before the app reads its env.
+vi.hoisted(() => {
+  process.env.SIZING_REQUESTS_PER_MINUTE = "12";
+});
+
+import * as sizing from "~/routes/api.v1.sizing";
+import { call } from "../support/routes";
+
+const GOOD = {
+  orientation: "vertical",
+  rodDirection: "down",
+  massKg: 800,
+  processForceN: 20_000,
+  strokeMm: 400,
+  extendSpeedMmS: 80,
+  retractSpeedMmS: 120,
+  mounting: "fixed-pinned",
+  cyclesPerHour: 60,
+  hoursPerDay: 16,
+  supplyHz: 50,
+};
+
+let client = 0;
+/** Each test asks from its own address, so the limit of one test doesn't spill into another. */
+function post(body: unknown, address = `10.0.0.${++client}`) {
+  const request = new Request("http://127.0.0.1:3000/api/v1/sizing", {
+    method: "POST",
+    headers: { "Content-Type": "application/json", "X-Forwarded-For": address },
+    body: typeof body === "string" ? body : JSON.stringify(body),
+  });
+  return call(sizing.action, request);
+}
+
+describe("POST /api/v1/sizing", () => {
+  it("sizes a good request and returns every contract field", async () => {
+    const res = await post(GOOD);
+    expect(res.status).toBe(200);
+    const design = res.data;
+    expect(design.cylinder).toMatchObject({ strokeMm: 400 });
+    for (const field of ["boreMm", "rodMm", "extendForceN", "retractForceN", "bucklingSafetyFactor"]) {
+      expect(typeof design.cylinder[field]).toBe("number");
+    }
+    expect(design.counterbalance.side).toBe("rod"); // rod down: the load overruns on extension
+    expect(design.directionalValve.center).toBe("float");
+    expect(Object.keys(design.pressuresBar)).toEqual(expect.arrayContaining(["extend", "retract", "reliefSetting"]));
+    expect(Object.keys(design.flowsLpm)).toEqual(expect.arrayContaining(["extend", "retract", "pump", "returnMax"]));
+    expect(design.bom.length).toBeGreaterThan(5);
+    expect(design.trail.length).toBeGreaterThan(5);
+    expect(design.circuit.components.length).toBeGreaterThan(5);
+  });
+
+  it.each([
+    ["a wrong type", { ...GOOD, massKg: "heavy" }, "massKg"],
+    ["a missing field", (({ strokeMm: _, ...rest }) => rest)(GOOD), "strokeMm"],
+    ["a value out of range", { ...GOOD, hoursPerDay: 25 }, "hoursPerDay"],
+    ["an unknown enum", { ...GOOD, mounting: "glued" }, "mounting"],
+    ["an inclined axis without its angle", { ...GOOD, orientation: "inclined" }, "inclineDeg"],
+    ["a vertical axis without its rod direction", (({ rodDirection: _, ...rest }) => ({ ...rest, orientation: "vertical" }))(GOOD), "rodDirection"],
+  ])("answers %s with 400 naming the field", async (_label, body, field) => {
+    const res = await post(body);
+    expect(res.status).toBe(400);
+    expect(res.data.error).toBe("invalid_requirements");
+    expect(Object.keys(res.data.fieldErrors)).toContain(field);
+    expect(res.data.fieldErrors[field][0]).toEqual(expect.any(String));
+  });
+
+  it("lists every bad field at once", async () => {
+    const res = await post({ ...GOOD, massKg: -1, strokeMm: 0, supplyHz: 55 });
+    expect(Object.keys(res.data.fieldErrors).sort()).toEqual(["massKg", "strokeMm", "supplyHz"]);
+  });
+
+  it.each([
+    ["malformed JSON", "{ not json"],
+    ["a JSON array", "[1, 2]"],
+    ["JSON null", "null"],
+  ])("answers %s with 400", async (_label, body) => {
+    const res = await post(body);
+    expect(res.status).toBe(400);
+  });
+
+  it("refuses an oversized body", async () => {
+    const res = await post({ ...GOOD, notes: "x".repeat(70_000) });
+    expect(res.status).toBe(413);
+  });
+
+  it("answers GET with 405", async () => {
+    const res = await call(sizing.loader, new Request("http://127.0.0.1:3000/api/v1/sizing"));
+    expect(res.status).toBe(405);
+  });
+
+  it("limits requests per client, with Retry-After, without affecting other clients", async () => {
+    const statuses: number[] = [];
+    for (let i = 0; i < 14; i++) statuses.push((await post(GOOD, "192.0.2.7")).status);
+    expect(statuses.slice(0, 12).every((s) => s === 200)).toBe(true);
+    expect(statuses.slice(12)).toEqual([429, 429]);
+    const limited = await post(GOOD, "192.0.2.7");
+    expect(limited.data.error).toBe("rate_limited");
+    expect(Number(limited.headers.get("Retry-After"))).toBeGreaterThan(0);
+    expect((await post(GOOD, "192.0.2.8")).status).toBe(200);
+  });
+
+  it("counts the address the proxy appended, not the one the client claims", async () => {
+    for (let i = 0; i < 12; i++) await post(GOOD, `198.51.100.${i}, 203.0.113.9`);
+    expect((await post(GOOD, "198.51.100.99, 203.0.113.9")).status).toBe(429);
+  });
+});

@@ -1,0 +1,82 @@
+/**
+ * Every default, margin and rule-of-thumb value the engine uses, in one place, each with
+ * where it comes from. Status tags follow the shared sources note:
+ * [S] seen in a stored public source, [M] from memory (verify before relying on it),
+ * [CP] common practice of the trade (a configurable default, not a law), [D] derived.
+ */
+
+export interface Assumption {
+  readonly value: number;
+  readonly unit: string;
+  readonly source: string;
+}
+
+const a = (value: number, unit: string, source: string): Assumption => ({ value, unit, source });
+
+export const ASSUMPTIONS = {
+  gravity: a(9.80665, "m/s²", "standard gravity (CGPM 1901) [D]"),
+
+  // Efficiencies
+  cylinderEfficiency: a(0.95, "-", "cylinder mechanical efficiency 0.90–0.95, seal friction; common practice [CP]"),
+  volumetricEfficiency: a(0.95, "-", "pump volumetric efficiency 0.90–0.98; Esposito, Fluid Power with Applications, from memory [M]"),
+  overallEfficiency: a(0.85, "-", "pump overall efficiency, gear/vane 0.80–0.90; Esposito, from memory [M]"),
+
+  // Drive
+  motorPoles: a(4, "poles", "4-pole induction motor, the usual power-unit drive; common practice [CP]"),
+  ratedSpeed50Hz: a(1450, "rpm", "4-pole asynchronous speed at 50 Hz (1420–1480 with slip); common practice [CP]"),
+  ratedSpeed60Hz: a(1750, "rpm", "4-pole asynchronous speed at 60 Hz (1720–1780 with slip); common practice [CP]"),
+
+  // Lines (limits chosen inside textbook ranges)
+  suctionVelocityLimit: a(1.0, "m/s", "suction 0.6–1.2 m/s (Esposito, from memory [M]); 1.0 m/s chosen, common practice [CP]"),
+  returnVelocityLimit: a(3.0, "m/s", "return 2–4 m/s (Matthies/Renius, from memory [M]); 3.0 m/s chosen, common practice [CP]"),
+  pressureVelocityLimit: a(5.0, "m/s", "pressure and work lines 3–6 m/s (Matthies/Renius, from memory [M]); 5.0 m/s chosen, common practice [CP]"),
+  pressureLineLengthM: a(1.0, "m", "assumed pump-to-valve run inside a compact power unit; our assumption [CP]"),
+  workLineLengthM: a(2.0, "m", "assumed hose run from the valve to each cylinder port; our assumption [CP]"),
+  returnLineLengthM: a(1.0, "m", "assumed valve-to-tank run through the filter; our assumption [CP]"),
+  suctionLineLengthM: a(0.5, "m", "assumed tank-to-pump suction run; our assumption [CP]"),
+  laminarReynoldsLimit: a(2000, "-", "laminar below Re ≈ 2000 (Engineering Fluid Mechanics, S8 [S]); above it the larger Blasius factor is used"),
+
+  // Fluid: ISO VG 46 at 40 °C
+  viscosityMm2S: a(46, "mm²/s", "ISO 3448 VG 46 mid-point at 40 °C (41.4–50.6) [S]"),
+  densityKgM3: a(870, "kg/m³", "mineral hydraulic oil 860–890 kg/m³; oil data sheets [M]/[CP]"),
+
+  // Valve and filter pressure drops used to work out the pressure left at the cylinder
+  dcvPathDropBar: a(5, "bar", "allowance per directional-valve path at its sized flow; common practice [CP]"),
+  cbvCheckDropBar: a(3, "bar", "allowance for free flow through the counterbalance check (2→1); common practice [CP]"),
+  returnFilterDropBar: a(0.5, "bar", "clean return-filter element 0.3–0.5 bar; common practice [CP] (sources §10)"),
+
+  // Cylinder and buckling
+  elasticModulus: a(210000, "N/mm²", "steel, EN 1993-1-1 §3.2.6; Roloff/Matek, from memory [M]"),
+  bucklingSafetyFactor: a(3.5, "-", "hydraulics 2.5–4, ISO/TS 13725 leaves k to the designer (S4); 3.5 chosen, common practice [CP]"),
+  limitSlenderness: a(89, "-", "λ₀ for E295/E335 rod steel; Roloff/Matek, Dubbel, from memory [M]"),
+  tetmajerA: a(335, "N/mm²", "Tetmajer σK = 335 − 0.62 λ for E295/E335; Roloff/Matek, Dubbel, from memory [M]"),
+  tetmajerB: a(0.62, "N/mm²", "Tetmajer slope for E295/E335; Roloff/Matek, Dubbel, from memory [M]"),
+  pivotLengthAtZeroStrokeMm: a(300, "mm", "pin-to-pin length at zero stroke, rear pivot + rod eye; assumed until a catalogue gives it [CP]"),
+  flangeAllowanceMm: a(150, "mm", "front flange face to rod connection when retracted; assumed [CP]"),
+
+  // Valves and settings
+  reliefMargin: a(0.1, "-", "relief set about 10 % above the highest working pressure; common practice [CP]"),
+  reliefRoundingBar: a(5, "bar", "relief setting rounded up to a whole 5 bar; our convention"),
+  cbvMinimumSettingBar: a(20, "bar", "floor for a very light load, so the valve still closes firmly against surges and the rod's own weight; our convention"),
+  cbvSettingFactor: a(1.3, "-", "counterbalance setting ≈ 1.3 × load-induced pressure (1.2–1.5); valve makers' notes, common practice [CP]"),
+  valveFlowUse: a(0.8, "-", "directional valve used at ≤ 80 % of its typical maximum flow; common practice [CP]"),
+  coilVoltage: a(24, "V DC", "solenoid coil voltage, the usual machine-control supply; common practice [CP]"),
+  highInertiaRatio: a(0.25, "-", "acceleration force ≥ 25 % of the weight component: treat as high-inertia (pilot 3:1); our rule on common-practice classes [CP]"),
+  stableInertiaRatio: a(0.05, "-", "acceleration force < 5 % of the weight component and no process force: stable load (pilot 8:1); our rule [CP]"),
+
+  // Pump speed check
+  speedTolerance: a(0.1, "-", "a stroke more than 10 % faster than asked is flagged; our convention"),
+  pressureNearLimit: a(0.95, "-", "working pressure above 95 % of its limit leaves little reserve; our convention"),
+
+  // Reservoir and heat
+  reservoirMultiple: a(4, "× pump flow per minute", "stationary units 3–5 × pump flow per minute (S14 [S] for the 3× rule); 4× chosen, common practice [CP]"),
+  reservoirRoundingL: a(5, "L", "reservoir volume rounded up to a whole 5 L; our convention"),
+  tankHeatTransfer: a(12, "W/(m²·K)", "tank freely surrounded by air 10–15 W/(m²·K); Matthies/Renius Tafel 8.7 (S7) [S]"),
+  oilTemperatureLimit: a(60, "°C", "pump inlet temperature ≤ 60 °C; ISO 4413 as paraphrased in S6 [S]"),
+  gaugeRangeFactor: a(1.5, "× relief", "gauge full scale at least 1.5 × the relief setting; common practice [CP]"),
+} as const;
+
+export type AssumptionKey = keyof typeof ASSUMPTIONS;
+
+/** Shorthand for reading a value. */
+export const A = ASSUMPTIONS;

@@ -1,0 +1,103 @@
+import type { BomLine, Design } from "./design";
+
+/** One decimal, for specification text. */
+const f1 = (x: number): number => Math.round(x * 10) / 10;
+
+type Line = Design["lines"]["pressure"];
+
+/** Oil held by a hose, L. */
+const hoseVolume = (line: Line): number => ((Math.PI * line.innerDiameterMm ** 2) / 4) * line.lengthM / 1000;
+
+function hose(key: string, item: string, line: Line, rated: string): BomLine {
+  return {
+    key, item, quantity: 1,
+    specification: `SAE J517 -${line.dashSize} (${line.nominalInch} in, DN ${line.dn}, ${line.innerDiameterMm} mm bore), about ${line.lengthM} m, ${rated}`,
+    rating: { value: line.innerDiameterMm, unit: "mm", label: "inner diameter" },
+  };
+}
+
+/** One line per component, with stable keys the bids and exports are keyed on. */
+export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
+  const relief = d.pressuresBar.reliefSetting;
+  const c = d.cylinder;
+  const torqueNm = (9550 * d.motor.ratedKw) / d.pump.speedRpm;
+  const l = d.lines;
+  const hoseVolumeL =
+    hoseVolume(l.pressure) + hoseVolume(l.capWork) + hoseVolume(l.rodWork) + hoseVolume(l.return) + hoseVolume(l.suction);
+  const fillL = Math.ceil(d.reservoir.volumeL + (c.capAreaMm2 * c.strokeMm) / 1e6 + hoseVolumeL);
+  const pressureHose = `rated for at least ${relief} bar working pressure with the burst margin its standard requires`;
+
+  const bom: BomLine[] = [
+    {
+      key: "pump", item: "Fixed-displacement pump", quantity: 1,
+      specification: `${d.pump.displacementCcRev} cm³/rev (ISO 3662 series), ${d.pump.speedRpm} rpm, delivers ${f1(d.flowsLpm.pump)} L/min, rated for at least ${relief} bar`,
+      rating: { value: d.pump.displacementCcRev, unit: "cm³/rev", label: "displacement" },
+    },
+    {
+      key: "motor", item: "Electric motor, 4-pole, foot/flange", quantity: 1,
+      specification: `${d.motor.ratedKw} kW (IEC 60072-1 rating)${d.motor.frame ? `, frame ${d.motor.frame}` : ""}, ${d.requirements.supplyHz} Hz, about ${d.pump.speedRpm} rpm`,
+      rating: { value: d.motor.ratedKw, unit: "kW", label: "rated output" },
+    },
+    {
+      key: "coupling-bellhousing", item: "Bell housing and flexible coupling", quantity: 1,
+      specification: `joins the ${d.motor.ratedKw} kW motor${d.motor.frame ? ` (frame ${d.motor.frame})` : ""} to the pump flange; coupling for at least ${f1(torqueNm)} N·m`,
+      rating: { value: torqueNm, unit: "N·m", label: "coupling torque" },
+    },
+    {
+      key: "reservoir", item: "Reservoir", quantity: 1,
+      specification: `${d.reservoir.volumeL} L usable, baffle between return and suction, return below the minimum oil level, level and temperature gauge, breather`,
+      rating: { value: d.reservoir.volumeL, unit: "L", label: "usable volume" },
+    },
+    {
+      key: "suction-strainer", item: "Suction strainer", quantity: 1,
+      specification: `for ${f1(d.flowsLpm.pump)} L/min with low pressure drop; mesh as the pump maker allows`,
+      rating: { value: d.flowsLpm.pump, unit: "L/min", label: "flow" },
+    },
+    {
+      key: "return-filter", item: "Return-line filter", quantity: 1,
+      specification: `for ${f1(d.returnFilter.ratedFlowLpm)} L/min at ISO VG 46, about 10 µm absolute, bypass valve about 2.5 bar, clogging indicator`,
+      rating: { value: d.returnFilter.ratedFlowLpm, unit: "L/min", label: "rated flow" },
+    },
+    {
+      key: "relief-valve", item: "Pressure-relief valve", quantity: 1,
+      specification: `set to ${relief} bar, passes the full ${f1(d.flowsLpm.pump)} L/min`,
+      rating: { value: relief, unit: "bar", label: "setting" },
+    },
+    {
+      key: "directional-valve", item: "4/3 solenoid directional valve", quantity: 1,
+      specification: `ISO 4401-${d.directionalValve.iso4401Size} (${d.directionalValve.nominalSize}), ${d.directionalValve.center} centre, ${d.directionalValve.coilVoltage} coils, at least ${f1(d.directionalValve.maxPathFlowLpm)} L/min per path and ${relief} bar`,
+      rating: { value: d.directionalValve.maxPathFlowLpm, unit: "L/min", label: "largest path flow" },
+    },
+  ];
+  if (d.counterbalance) {
+    const cb = d.counterbalance;
+    bom.push({
+      key: "counterbalance-valve", item: "Counterbalance valve", quantity: 1,
+      specification: `on the ${cb.side} port, set to ${f1(cb.settingBar)} bar, pilot ratio ${cb.pilotRatio}:1, at least ${f1(cb.flowLpm)} L/min, flange-mounted directly on the cylinder port`,
+      rating: { value: cb.settingBar, unit: "bar", label: "setting" },
+    });
+  }
+  bom.push(
+    {
+      key: "cylinder", item: "Double-acting hydraulic cylinder", quantity: 1,
+      specification: `bore ${c.boreMm} mm / rod ${c.rodMm} mm (ISO 3320), stroke ${c.strokeMm} mm, ${c.series} style, ${d.requirements.mounting} mounting, rated ${c.ratedPressureBar} bar`,
+      rating: { value: c.boreMm, unit: "mm", label: "bore" },
+    },
+    hose("hose-pressure", "Pressure hose, pump to valve", d.lines.pressure, pressureHose),
+    hose("hose-cap", "Work hose, valve A to cap end", d.lines.capWork, pressureHose),
+    hose("hose-rod", "Work hose, valve B to rod end", d.lines.rodWork, pressureHose),
+    hose("hose-return", "Return hose, valve T to filter and tank", d.lines.return, "low-pressure return hose"),
+    hose("hose-suction", "Suction hose, tank to pump", d.lines.suction, "suction hose that will not collapse under vacuum"),
+    {
+      key: "gauge", item: "Pressure gauge with isolator", quantity: 1,
+      specification: `0–${gaugeRangeBar} bar, liquid-filled, on the pump line`,
+      rating: { value: gaugeRangeBar, unit: "bar", label: "full scale" },
+    },
+    {
+      key: "fluid-fill", item: "Hydraulic oil ISO VG 46 (first fill)", quantity: 1,
+      specification: `about ${fillL} L: reservoir, cylinder and hoses`,
+      rating: { value: fillL, unit: "L", label: "volume" },
+    },
+  );
+  return bom;
+}

@@ -1,0 +1,181 @@
+/**
+ * The Design the engine returns. Field names from the sizing contract are fixed; the others
+ * are additions for the design page, exports and reviewers.
+ */
+import type { LineSizing } from "./lines";
+import type { Requirements } from "./requirements";
+import type { Iso4401Size } from "./series";
+import type { TrailEntry } from "./trail";
+import type { CbvSide, DcvCenter, DcvPositions, PortPair } from "./valves";
+import type { Warning } from "./warnings";
+
+export type { DcvPositions, PortPair, DcvCenter, CbvSide, LineSizing, TrailEntry, Warning };
+
+export interface LoadsBreakdown {
+  angleDeg: number;
+  gravityAlongAxisN: number;
+  frictionN: number;
+  processForceN: number;
+  accelExtendN: number;
+  accelRetractN: number;
+  /** force the cylinder must exert in the direction of motion; negative when the load pulls */
+  extendSteadyN: number;
+  extendMovingN: number;
+  extendPressN: number;
+  retractSteadyN: number;
+  retractMovingN: number;
+  overrunningStroke: "extend" | "retract" | null;
+}
+
+export interface BucklingDetails {
+  eulerCase: 1 | 2 | 3 | 4;
+  k: number;
+  lengthMm: number;
+  lengthRule: string;
+  effectiveLengthMm: number;
+  slenderness: number;
+  limitSlenderness: number;
+  regime: "Euler" | "Tetmajer";
+  criticalLoadN: number;
+  compressiveForceN: number;
+  requiredSafetyFactor: number;
+}
+
+export interface CylinderDesign {
+  boreMm: number;
+  rodMm: number;
+  strokeMm: number;
+  extendForceN: number;
+  retractForceN: number;
+  bucklingSafetyFactor: number;
+  // additions
+  series: string;
+  outOfSeries: boolean;
+  ratedPressureBar: number;
+  capAreaMm2: number;
+  annulusAreaMm2: number;
+  areaRatio: number;
+  mechanicalEfficiency: number;
+  /** pressure the forces above are given at: the highest pump working pressure */
+  workingPressureBar: number;
+  buckling: BucklingDetails;
+}
+
+export interface Counterbalance {
+  side: CbvSide;
+  settingBar: number;
+  pilotRatio: number;
+  pilotOpeningBar: number;
+  // additions
+  stroke: "extend" | "retract";
+  loadPressureBar: number;
+  loadClass: string;
+  pilotRatioReason: string;
+  /** heat made by throttling the load while lowering at constant speed */
+  loweringHeatKw: number;
+  flowLpm: number;
+}
+
+export interface HoseLine extends LineSizing {
+  innerDiameterMm: number;
+  velocityMS: number;
+}
+
+export interface CircuitComponent {
+  id: string;
+  kind: "pump" | "motor" | "relief" | "dcv" | "cbv" | "cylinder" | "tank" | "filter" | "gauge" | "strainer";
+  ports: string[];
+  label?: string;
+  values?: Record<string, number | string>;
+}
+
+export interface CircuitConnection {
+  /** "componentId.port" */
+  from: string;
+  to: string;
+  /** what the connection carries, for line styles in the diagram */
+  line: "suction" | "pressure" | "work" | "return" | "pilot" | "shaft";
+}
+
+export interface Circuit {
+  components: CircuitComponent[];
+  connections: CircuitConnection[];
+  /**
+   * Port pairs joined in each position of the 4/3 valve; ports not listed are blocked.
+   * left = solenoid a (extend), right = solenoid b (retract), center = spring-centred neutral.
+   */
+  dcvPositions: DcvPositions;
+}
+
+export interface BomRating {
+  value: number;
+  unit: string;
+  label: string;
+}
+
+export interface BomLine {
+  key: string;
+  item: string;
+  quantity: number;
+  specification: string;
+  rating: BomRating;
+}
+
+export interface Design {
+  engineVersion: string;
+  requirements: Requirements;
+  loads: LoadsBreakdown;
+  cylinder: CylinderDesign;
+  pressuresBar: {
+    extend: number;
+    retract: number;
+    reliefSetting: number;
+    // additions
+    /** highest working pressure allowed at the pump: min(maxPressureBar, rating / 1.1) */
+    workingLimit: number;
+    extendMoving: number;
+    extendPress: number;
+    /** highest pressure the rod side can see in normal work */
+    rodSidePeak: number;
+  };
+  flowsLpm: { extend: number; retract: number; pump: number; returnMax: number };
+  speedsMmS: { extendRequested: number; retractRequested: number; extendActual: number; retractActual: number };
+  pump: {
+    displacementCcRev: number;
+    speedRpm: number;
+    requiredDisplacementCcRev: number;
+    volumetricEfficiency: number;
+    overallEfficiency: number;
+  };
+  motor: { requiredKw: number; ratedKw: number; poles: number; frame: string | null; sizingPressureBar: number };
+  counterbalance: Counterbalance | null;
+  directionalValve: {
+    center: DcvCenter;
+    iso4401Size: Iso4401Size;
+    nominalSize: string;
+    maxPathFlowLpm: number;
+    typicalMaxFlowLpm: number;
+    coilVoltage: string;
+    centerReason: string;
+    neutralPumpFlow: string;
+  };
+  lines: { pressure: HoseLine; return: HoseLine; suction: HoseLine; capWork: HoseLine; rodWork: HoseLine };
+  reservoir: { volumeL: number; surfaceM2: number; dissipationKw: number };
+  returnFilter: { ratedFlowLpm: number };
+  heat: {
+    averageLossKw: number;
+    extendLossKw: number;
+    retractLossKw: number;
+    neutralLossKw: number;
+    extendShare: number;
+    retractShare: number;
+    neutralShare: number;
+    tankDissipationKw: number;
+    coolerKw: number;
+    dailyEnergyKwh: number;
+  };
+  warnings: Warning[];
+  bom: BomLine[];
+  trail: TrailEntry[];
+  circuit: Circuit;
+}

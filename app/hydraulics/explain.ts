@@ -1,0 +1,243 @@
+/**
+ * The calculation trail: each number of the Design with its formula, inputs and source.
+ * Inputs are always a record of name → { value, unit }.
+ */
+import { A } from "./assumptions";
+import type { Design, LineSizing } from "./design";
+import type { Evaluation, SizingContext } from "./evaluate";
+import type { DutyShares } from "./reservoir-heat";
+import { Trail, v, type TrailEntry } from "./trail";
+
+const TEXTBOOK_CYL = "textbook cylinder relation (Esposito, Fluid Power with Applications) [M]; units identity [D]";
+const DW = "Darcy–Weisbach, fluid-mechanics texts (White; Munson) [M]";
+const CONTINUITY = "continuity, Q = A·v [D]";
+
+const LINE_SIZE_SOURCE = `${CONTINUITY}; velocity limits common practice [CP]; SAE J517 dash = ID in 1/16 in [S]`;
+const LINE_LOSS_SOURCE =
+  `${DW}; f = 64/Re laminar, Blasius 0.3164·Re^−0.25 above Re 2000 (Engineering Fluid Mechanics S8 [S]; Matthies/Renius S7 [S]); ν, ρ for ISO 3448 VG 46 at 40 °C [S]/[M]`;
+
+function lineTrail(t: Trail, name: string, l: LineSizing, fluid: { viscosityMm2S: number; densityKgM3: number }): void {
+  t.add(`${name} line inner diameter`, l.innerDiameterMm, "mm",
+    "d_required = 4.607·√(Q / v_max); smallest SAE J517 dash size with nominal ID ≥ d_required",
+    { Q: v(l.flowLpm, "L/min"), v_max: v(l.velocityLimitMS, "m/s"), d_required: v(l.requiredDiameterMm, "mm"), dash: v(l.dashSize, "-") },
+    LINE_SIZE_SOURCE);
+  t.add(`${name} line velocity`, l.velocityMS, "m/s", "v = 21.22·Q / d²",
+    { Q: v(l.flowLpm, "L/min"), d: v(l.innerDiameterMm, "mm") }, CONTINUITY);
+  t.add(`${name} line pressure loss`, l.pressureLossBarPerM, "bar/m", "Re = 1000·v·d/ν; Δp/L = f·(1/d)·ρ·v²/2",
+    { Re: v(l.reynolds, "-"), f: v(l.frictionFactor, "-"), ν: v(fluid.viscosityMm2S, "mm²/s"), ρ: v(fluid.densityKgM3, "kg/m³"), L: v(l.lengthM, "m") },
+    LINE_LOSS_SOURCE);
+}
+
+export function explain(
+  d: Design,
+  ctx: SizingContext,
+  ev: Evaluation,
+  extra: { unloadBar: number; gaugeRangeBar: number; duty: DutyShares },
+): TrailEntry[] {
+  const t = new Trail();
+  const r = d.requirements;
+  const L = d.loads;
+  const c = d.cylinder;
+  const eta = c.mechanicalEfficiency;
+  const g = A.gravity.value;
+  const qp = d.flowsLpm.pump;
+  const phi = c.areaRatio;
+
+  // ---- Loads
+  t.add("axis angle", L.angleDeg, "°", "0° horizontal, 90° vertical, inclineDeg when inclined",
+    { orientation: v(r.orientation, "-") }, "requirements");
+  t.add("weight component along the axis", L.gravityAlongAxisN, "N", "G = m·g·sin θ",
+    { m: v(r.massKg, "kg"), g: v(g, "m/s²"), θ: v(L.angleDeg, "°") }, "statics [D]");
+  t.add("guide friction", L.frictionN, "N", "F_f = μ·m·g·cos θ",
+    { μ: v(r.frictionCoefficient, "-"), m: v(r.massKg, "kg"), θ: v(L.angleDeg, "°") },
+    "Coulomb friction on the guides [D]; μ = 0.1 default is common practice [CP]");
+  t.add("acceleration force, extend", L.accelExtendN, "N", "F_a = m·v/t at the actual extend speed",
+    { m: v(r.massKg, "kg"), v: v(d.speedsMmS.extendActual, "mm/s"), t: v(r.accelTimeS, "s") }, "Newton's second law [D]");
+  t.add("acceleration force, retract", L.accelRetractN, "N", "F_a = m·v/t at the actual retract speed",
+    { m: v(r.massKg, "kg"), v: v(d.speedsMmS.retractActual, "mm/s"), t: v(r.accelTimeS, "s") }, "Newton's second law [D]");
+  const gSign = ctx.loads.extendGravitySign;
+  t.add("extend force needed while accelerating", L.extendMovingN, "N",
+    gSign > 0 ? "F = F_f + G + F_a (rod up: the load is lifted)" : gSign < 0 ? "F = F_f − G + F_a (rod down: the load pulls)" : "F = F_f + F_a",
+    { F_f: v(L.frictionN, "N"), G: v(L.gravityAlongAxisN, "N"), F_a: v(L.accelExtendN, "N") }, "force balance along the axis [D]");
+  t.add("extend force needed while pressing", L.extendPressN, "N",
+    "F = F_process + F_f ± G (acts at the end of the stroke, after acceleration)",
+    { F_process: v(L.processForceN, "N"), F_f: v(L.frictionN, "N"), G: v(L.gravityAlongAxisN, "N") }, "force balance along the axis [D]");
+  t.add("retract force needed while accelerating", L.retractMovingN, "N",
+    gSign < 0 ? "F = F_f + G + F_a (rod down: retracting lifts the load)" : gSign > 0 ? "F = F_f − G + F_a (rod up: the load pulls)" : "F = F_f + F_a",
+    { F_f: v(L.frictionN, "N"), G: v(L.gravityAlongAxisN, "N"), F_a: v(L.accelRetractN, "N") }, "force balance along the axis [D]");
+  t.add("overrunning stroke", L.overrunningStroke ?? "none", "-",
+    "the stroke on which the load moves down (rod down: extend; rod up: retract)",
+    { orientation: v(r.orientation, "-"), rodDirection: v(r.rodDirection ?? "-", "-") }, "sizing contract; ISO 4413 load holding [M]");
+
+  // ---- Cylinder choice
+  t.add("cylinder series", `${ctx.series.name} (${ctx.series.ratedPressureBar} bar)`, "-",
+    `maxPressureBar ≤ 160 → ISO 6020-2 preferred pairings (φ ≈ 1.25 / 2); above → ISO 6022 (φ ≈ 1.6 / 2); thinner rod tried first`,
+    { maxPressureBar: v(r.maxPressureBar, "bar") }, "ISO 3320 sizes; ISO 6020-2 / ISO 6022 pairings from memory [M] (sources §1.2)");
+  t.add("working pressure limit", ctx.workingLimitBar, "bar", "p_max = min(maxPressureBar, p_rated / (1 + relief margin))",
+    { maxPressureBar: v(r.maxPressureBar, "bar"), p_rated: v(ctx.series.ratedPressureBar, "bar"), margin: v(A.reliefMargin.value, "-") },
+    "keeps the relief setting within the cylinder rating; relief margin common practice [CP]");
+  t.add("bore", c.boreMm, "mm",
+    "smallest pair whose pump pressures ≤ p_max, counterbalance setting ≤ rating and buckling SF ≥ 3.5 (losses and back-pressure included)",
+    { p_max: v(ctx.workingLimitBar, "bar"), A1_min_no_losses: v(ctx.minCapAreaMm2, "mm²") }, "ISO 3320 series [M]");
+  t.add("rod", c.rodMm, "mm", "rod of the chosen pair; the thicker rod is taken when the thinner one fails a limit",
+    { bore: v(c.boreMm, "mm") }, "ISO 3320 series [M]");
+  t.add("cap area", c.capAreaMm2, "mm²", "A1 = π·D²/4", { D: v(c.boreMm, "mm") }, "geometry [D]");
+  t.add("annulus area", c.annulusAreaMm2, "mm²", "A3 = π·(D² − d²)/4", { D: v(c.boreMm, "mm"), d: v(c.rodMm, "mm") }, "geometry [D]");
+  t.add("area ratio", phi, "-", "φ = A1 / A3", { A1: v(c.capAreaMm2, "mm²"), A3: v(c.annulusAreaMm2, "mm²") }, "ISO 3320 cl. 6 definition [M]");
+
+  // ---- Flows and pump
+  t.add("extend flow", d.flowsLpm.extend, "L/min", "Q = A1·v·0.06 / 1000",
+    { A1: v(c.capAreaMm2, "mm²"), v: v(r.extendSpeedMmS, "mm/s") }, CONTINUITY);
+  t.add("retract flow", d.flowsLpm.retract, "L/min", "Q = A3·v·0.06 / 1000",
+    { A3: v(c.annulusAreaMm2, "mm²"), v: v(r.retractSpeedMmS, "mm/s") }, CONTINUITY);
+  t.add("drive speed", d.pump.speedRpm, "rpm", "4-pole motor: n_s = 120·f/p less slip",
+    { f: v(r.supplyHz, "Hz"), p: v(A.motorPoles.value, "poles"), n_s: v((120 * r.supplyHz) / A.motorPoles.value, "rpm") },
+    "synchronous speed, electrical-machines textbooks [D]; 1450/1750 rpm nominal common practice [CP]");
+  t.add("pump displacement needed", d.pump.requiredDisplacementCcRev, "cm³/rev", "V = 1000·max(Q_ext, Q_ret) / (n·η_v)",
+    { Q: v(ev.pumpRequiredLpm, "L/min"), n: v(d.pump.speedRpm, "rpm"), η_v: v(d.pump.volumetricEfficiency, "-") },
+    "pump flow relation (Esposito) [M]; fixed pump serves the larger stroke flow");
+  t.add("pump displacement", d.pump.displacementCcRev, "cm³/rev", "next size in the series",
+    { V_needed: v(d.pump.requiredDisplacementCcRev, "cm³/rev") }, "ISO 3662 R10 series [M]");
+  t.add("pump delivery", qp, "L/min", "Q_p = V·n·η_v / 1000",
+    { V: v(d.pump.displacementCcRev, "cm³/rev"), n: v(d.pump.speedRpm, "rpm"), η_v: v(d.pump.volumetricEfficiency, "-") }, "pump flow relation (Esposito) [M]");
+  t.add("actual extend speed", d.speedsMmS.extendActual, "mm/s", "v = Q_p / A1",
+    { Q_p: v(qp, "L/min"), A1: v(c.capAreaMm2, "mm²") }, CONTINUITY);
+  t.add("actual retract speed", d.speedsMmS.retractActual, "mm/s", "v = Q_p / A3",
+    { Q_p: v(qp, "L/min"), A3: v(c.annulusAreaMm2, "mm²") }, CONTINUITY);
+  t.add("largest return flow", d.flowsLpm.returnMax, "L/min", "Q_return = φ·Q_p (retracting empties the cap end)",
+    { φ: v(phi, "-"), Q_p: v(qp, "L/min") }, "continuity [D] (sources §10)");
+
+  // ---- Lines
+  const fluid = ctx.fluid;
+  lineTrail(t, "pressure", d.lines.pressure, fluid);
+  lineTrail(t, "cap work", d.lines.capWork, fluid);
+  lineTrail(t, "rod work", d.lines.rodWork, fluid);
+  lineTrail(t, "return", d.lines.return, fluid);
+  lineTrail(t, "suction", d.lines.suction, fluid);
+
+  const dcv = A.dcvPathDropBar.value;
+  const filter = A.returnFilterDropBar.value;
+  t.add("extend supply losses", ev.extendSupplyLossBar, "bar", "Δp = pressure line + valve P→A + cap line (+ CBV check if cap side)",
+    { dcv_path: v(dcv, "bar"), check: v(ctx.cbvSide === "cap" ? A.cbvCheckDropBar.value : 0, "bar"), Q: v(qp, "L/min") },
+    `${DW}; valve allowances common practice [CP]`);
+  t.add("extend back-pressure", ev.extendBackBar, "bar", "Δp = rod line + valve B→T + return line + filter, at Q_p/φ",
+    { dcv_path: v(dcv, "bar"), filter: v(filter, "bar"), Q: v(qp / phi, "L/min") }, `${DW}; valve and filter allowances common practice [CP]`);
+  t.add("retract supply losses", ev.retractSupplyLossBar, "bar", "Δp = pressure line + valve P→B + rod line (+ CBV check if rod side)",
+    { dcv_path: v(dcv, "bar"), check: v(ctx.cbvSide === "rod" ? A.cbvCheckDropBar.value : 0, "bar"), Q: v(qp, "L/min") },
+    `${DW}; valve allowances common practice [CP]`);
+  t.add("retract back-pressure", ev.retractBackBar, "bar", "Δp = cap line + valve A→T + return line + filter, at φ·Q_p",
+    { dcv_path: v(dcv, "bar"), filter: v(filter, "bar"), Q: v(qp * phi, "L/min") }, `${DW}; valve and filter allowances common practice [CP]`);
+
+  // ---- Counterbalance
+  const cb = d.counterbalance;
+  if (cb) {
+    const outletArea = cb.side === "rod" ? c.annulusAreaMm2 : c.capAreaMm2;
+    t.add("counterbalance side", cb.side, "-", "on the side the load pressurises: rod down → rod side; rod up → cap side",
+      { overrunningStroke: v(cb.stroke, "-") }, "sizing contract; ISO 4413 load holding [M]");
+    t.add("counterbalance load pressure", cb.loadPressureBar, "bar", "p_L = 10·G / A at the valve port (load at rest)",
+      { G: v(L.gravityAlongAxisN, "N"), A: v(outletArea, "mm²") }, "force balance [D]");
+    t.add("counterbalance setting", cb.settingBar, "bar", `p_set = max(1.3·p_L, ${A.cbvMinimumSettingBar.value} bar)`,
+      { p_L: v(cb.loadPressureBar, "bar"), factor: v(A.cbvSettingFactor.value, "-") }, "valve makers' application notes, common practice [CP]");
+    t.add("pilot ratio", cb.pilotRatio, ":1", `3:1 variable or high-inertia, 4.5:1 general, 8:1 stable — ${cb.pilotRatioReason}`,
+      { inertia_ratio: v(ctx.inertiaRatio, "-"), processForce: v(r.processForceN, "N") }, "ratio classes common practice [CP]; class thresholds our rule");
+    t.add("pilot opening pressure", cb.pilotOpeningBar, "bar",
+      cb.side === "rod" ? "p_pilot = (p_set − p_L) / (R + φ) — full balance, vented spring chamber" : "p_pilot = (p_set − p_L) / (R + 1/φ) — full balance, vented spring chamber",
+      { p_set: v(cb.settingBar, "bar"), p_L: v(cb.loadPressureBar, "bar"), R: v(cb.pilotRatio, "-"), φ: v(phi, "-") },
+      "poppet force balance (sources §6) [D]; ignores back-pressure at port 2");
+    t.add("counterbalance heat while lowering", cb.loweringHeatKw, "kW", "P = Δp_CBV·Q / 600, Δp_CBV = p_set − R·p_pilot − p_back",
+      { Δp_CBV: v(ev.cbv!.loweringDropBar, "bar"), Q: v(cb.flowLpm, "L/min") }, "hydraulic power P = p·Q/600 [D]");
+  }
+
+  // ---- Pressures
+  const rodCbv = cb?.side === "rod";
+  const capCbv = cb?.side === "cap";
+  t.add("extend pressure at the cylinder", ev.extendInletBar, "bar",
+    rodCbv ? "p1 = max((10·F_h + p_back·A3)/A1, (10·F_h + p_set·A3)/(A1 + R·A3)), F_h = F·η or F/η" : "p1 = (10·F/η + p_back·A3) / A1",
+    { F: v(L.extendMovingN, "N"), η: v(eta, "-"), A1: v(c.capAreaMm2, "mm²"), A3: v(c.annulusAreaMm2, "mm²"), p_back: v(ev.extendBackBar, "bar") },
+    rodCbv ? "piston force balance with the CBV balance p2 = p_set − R·p1 [D]" : TEXTBOOK_CYL);
+  t.add("extend pump pressure while moving", ev.extendMovingBar, "bar", "p = p1 + supply losses",
+    { p1: v(ev.extendInletBar, "bar"), losses: v(ev.extendSupplyLossBar, "bar") }, "[D]");
+  t.add("extend pump pressure while pressing", ev.extendPressBar, "bar", "p = 10·F_press/(η·A1) at standstill (no flow losses)",
+    { F_press: v(L.extendPressN, "N"), η: v(eta, "-"), A1: v(c.capAreaMm2, "mm²") }, TEXTBOOK_CYL);
+  t.add("extend pump pressure", d.pressuresBar.extend, "bar", "larger of moving and pressing",
+    { moving: v(ev.extendMovingBar, "bar"), pressing: v(ev.extendPressBar, "bar") }, "[D]");
+  t.add("retract pressure at the cylinder", ev.retractInletBar, "bar",
+    capCbv ? "p3 = max((10·F_h + p_back·A1)/A3, (10·F_h + p_set·A1)/(A3 + R·A1)), F_h = F·η or F/η" : "p3 = (10·F/η + p_back·A1) / A3",
+    { F: v(L.retractMovingN, "N"), η: v(eta, "-"), A1: v(c.capAreaMm2, "mm²"), A3: v(c.annulusAreaMm2, "mm²"), p_back: v(ev.retractBackBar, "bar") },
+    capCbv ? "piston force balance with the CBV balance p1 = p_set − R·p3 [D]" : TEXTBOOK_CYL);
+  t.add("retract pump pressure", d.pressuresBar.retract, "bar", "p = p3 + supply losses",
+    { p3: v(ev.retractInletBar, "bar"), losses: v(ev.retractSupplyLossBar, "bar") }, "[D]");
+  t.add("relief setting", d.pressuresBar.reliefSetting, "bar", "p_relief = 1.1·max(p_extend, p_retract), rounded up to 5 bar",
+    { p_extend: v(d.pressuresBar.extend, "bar"), p_retract: v(d.pressuresBar.retract, "bar") }, "about 10 % above working pressure, common practice [CP]");
+  t.add("rod-side peak pressure", d.pressuresBar.rodSidePeak, "bar",
+    rodCbv ? "max(retract inlet, CBV setting — the valve caps the annulus)" : "max(retract inlet, extend back-pressure)",
+    { rating: v(c.ratedPressureBar, "bar"), φ: v(phi, "-") }, "intensification p2 = φ·p1 + F/A3 (sources §6) [D]");
+  t.add("rod-side pressure if the B line were blocked", phi * d.pressuresBar.reliefSetting, "bar", "p2 = φ·p_relief (fault case, not normal work)",
+    { φ: v(phi, "-"), p_relief: v(d.pressuresBar.reliefSetting, "bar") }, "intensification (sources §6) [D]");
+  t.add("extend force at working pressure", c.extendForceN, "N", "F = η·p·A1 / 10",
+    { η: v(eta, "-"), p: v(c.workingPressureBar, "bar"), A1: v(c.capAreaMm2, "mm²") }, TEXTBOOK_CYL);
+  t.add("retract force at working pressure", c.retractForceN, "N", "F = η·p·A3 / 10",
+    { η: v(eta, "-"), p: v(c.workingPressureBar, "bar"), A3: v(c.annulusAreaMm2, "mm²") }, TEXTBOOK_CYL);
+
+  // ---- Buckling
+  const b = c.buckling;
+  t.add("buckling length", b.lengthMm, "mm", b.lengthRule, { stroke: v(r.strokeMm, "mm") }, "simplified, rod stiffness over the whole length; common practice [CP]");
+  t.add("effective buckling length", b.effectiveLengthMm, "mm", `L_K = K·L, Euler case ${b.eulerCase} (K = ${b.k})`,
+    { K: v(b.k, "-"), L: v(b.lengthMm, "mm") }, "Euler cases, Timoshenko & Gere [M]");
+  t.add("rod slenderness", b.slenderness, "-", "λ = 4·L_K / d", { L_K: v(b.effectiveLengthMm, "mm"), d: v(c.rodMm, "mm") }, "solid round rod, i = d/4 [D]");
+  t.add("buckling compressive force", b.compressiveForceN, "N", "max(extend load, pressing load, p_relief·A1/10 stall thrust)",
+    { p_relief: v(d.pressuresBar.reliefSetting, "bar"), A1: v(c.capAreaMm2, "mm²") }, "common practice [CP]; ISO 4413 buckling in any position [M]");
+  t.add("rod critical load", b.criticalLoadN, "N",
+    b.regime === "Euler" ? "F_K = π²·E·I / L_K², I = π·d⁴/64 (λ ≥ λ₀)" : "F_K = (335 − 0.62·λ)·π·d²/4, Tetmajer (λ < λ₀)",
+    { E: v(A.elasticModulus.value, "N/mm²"), d: v(c.rodMm, "mm"), L_K: v(b.effectiveLengthMm, "mm"), λ: v(b.slenderness, "-"), λ0: v(b.limitSlenderness, "-") },
+    b.regime === "Euler" ? "Euler, Timoshenko & Gere [M]; E from EN 1993-1-1 [M]" : "Tetmajer for E295/E335, Roloff/Matek, Dubbel [M]");
+  t.add("buckling safety factor", c.bucklingSafetyFactor, "-", "S = F_K / F", { F_K: v(b.criticalLoadN, "N"), F: v(b.compressiveForceN, "N"), S_required: v(b.requiredSafetyFactor, "-") },
+    "3.5 required, common practice [CP]; ISO/TS 13725 leaves the factor to the designer [S]");
+
+  // ---- Directional valve
+  const dv = d.directionalValve;
+  t.add("directional valve centre", dv.center, "-", `${dv.centerReason}; ${dv.neutralPumpFlow}`,
+    { counterbalance: v(cb ? "yes" : "no", "-") }, "common practice [CP]; Cundiff & Kocher, Fluid Power Circuits and Controls [M]");
+  t.add("largest valve path flow", dv.maxPathFlowLpm, "L/min", "max(Q_p, φ·Q_p, Q_p/φ) over P→A/B and A/B→T",
+    { Q_p: v(qp, "L/min"), φ: v(phi, "-") }, "continuity [D]");
+  t.add("ISO 4401 size", dv.iso4401Size, "-", "smallest size with path flow ≤ 80 % of its typical maximum",
+    { Q: v(dv.maxPathFlowLpm, "L/min"), typical_max: v(dv.typicalMaxFlowLpm, "L/min") }, "ISO 4401 interface sizes [S]; flow ratings and 80 % rule common practice [CP]");
+
+  // ---- Motor
+  const m = d.motor;
+  t.add("motor sizing pressure", m.sizingPressureBar, "bar",
+    dv.center === "float" ? "relief setting: the pump runs over relief in neutral" : "highest working pressure",
+    { p_working: v(c.workingPressureBar, "bar"), p_relief: v(d.pressuresBar.reliefSetting, "bar") }, "[D]");
+  t.add("motor power needed", m.requiredKw, "kW", "P = p·Q_p / (600·η_overall)",
+    { p: v(m.sizingPressureBar, "bar"), Q_p: v(qp, "L/min"), η_overall: v(d.pump.overallEfficiency, "-") }, "hydraulic power (Esposito) [M]; P = p·Q/600 [D]");
+  t.add("motor rating", m.ratedKw, "kW", "next rated output", { P_needed: v(m.requiredKw, "kW") }, "IEC 60072-1 output series [M]");
+
+  // ---- Reservoir, filter, heat
+  t.add("reservoir volume", d.reservoir.volumeL, "L", "V = 4·Q_p, rounded up to 5 L", { Q_p: v(qp, "L/min") },
+    "3–5 × pump flow per minute, common practice [CP] (S14 [S])");
+  t.add("return filter rating", d.returnFilter.ratedFlowLpm, "L/min", "rated for the largest return flow φ·Q_p",
+    { Q_return: v(d.flowsLpm.returnMax, "L/min") }, "common practice [CP] (sources §10)");
+  t.add("tank surface", d.reservoir.surfaceM2, "m²", "A ≈ 6·V^(2/3)", { V: v(d.reservoir.volumeL, "L") }, "cube-like tank [D]/[CP]");
+  t.add("tank heat shed", d.reservoir.dissipationKw, "kW", "Φ = k·A·(60 °C − ambient)",
+    { k: v(A.tankHeatTransfer.value, "W/(m²·K)"), A: v(d.reservoir.surfaceM2, "m²"), ambient: v(r.ambientC, "°C") },
+    "k for a tank in free air, Matthies/Renius Tafel 8.7 (S7) [S]; 60 °C oil limit, ISO 4413 via S6 [S]");
+  const h = d.heat;
+  t.add("share of time extending", h.extendShare, "-", "cycles/h · stroke / v_actual / 3600",
+    { cycles: v(r.cyclesPerHour, "1/h"), t_stroke: v(extra.duty.extendS, "s") }, "[D]");
+  t.add("share of time retracting", h.retractShare, "-", "cycles/h · stroke / v_actual / 3600",
+    { cycles: v(r.cyclesPerHour, "1/h"), t_stroke: v(extra.duty.retractS, "s") }, "[D]");
+  t.add("heat while extending", h.extendLossKw, "kW", "P_shaft − F_steady·v (pump losses, lines, valves, CBV)",
+    { p: v(ev.extendSteadyBar, "bar"), Q_p: v(qp, "L/min"), F_steady: v(L.extendSteadyN, "N"), v: v(d.speedsMmS.extendActual, "mm/s") }, "energy balance [D]");
+  t.add("heat while retracting", h.retractLossKw, "kW", "P_shaft − F_steady·v (pump losses, lines, valves, CBV)",
+    { p: v(ev.retractSteadyBar, "bar"), Q_p: v(qp, "L/min"), F_steady: v(L.retractSteadyN, "N"), v: v(d.speedsMmS.retractActual, "mm/s") }, "energy balance [D]");
+  t.add("heat in neutral", h.neutralLossKw, "kW",
+    dv.center === "float" ? "P = p_relief·Q_p / (600·η): the pump runs over relief" : "P = p_unload·Q_p / (600·η): the pump unloads P→T",
+    { p: v(dv.center === "float" ? d.pressuresBar.reliefSetting : extra.unloadBar, "bar"), Q_p: v(qp, "L/min"), η: v(d.pump.overallEfficiency, "-") }, "P = p·Q/600 [D]");
+  t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over extend, retract and neutral",
+    { extend: v(h.extendLossKw, "kW"), retract: v(h.retractLossKw, "kW"), neutral: v(h.neutralLossKw, "kW"), neutral_share: v(h.neutralShare, "-") }, "duty-cycle average [D]");
+  t.add("cooler duty", h.coolerKw, "kW", "max(0, average heat − tank heat shed)",
+    { average: v(h.averageLossKw, "kW"), shed: v(h.tankDissipationKw, "kW") }, "[D]");
+  t.add("gauge range", extra.gaugeRangeBar, "bar", "next range ≥ 1.5 × relief setting",
+    { p_relief: v(d.pressuresBar.reliefSetting, "bar") }, "common practice [CP]; ranges EN 837-1 [M]");
+  return t.entries;
+}

@@ -1,0 +1,47 @@
+import { A } from "./assumptions";
+
+/** Usable volume = 4 × pump flow per minute (3–5 × is common practice), rounded up to 5 L. */
+export function reservoirVolumeL(pumpFlowLpm: number): number {
+  const step = A.reservoirRoundingL.value;
+  return Math.ceil((A.reservoirMultiple.value * pumpFlowLpm) / step - 1e-9) * step;
+}
+
+/** Cube-like tank: A ≈ 6·V^(2/3), V in m³ [D]/[CP]. */
+export const tankSurfaceM2 = (volumeL: number): number => 6 * Math.cbrt((volumeL / 1000) ** 2);
+
+/** Φ = k·A·ΔT, in kW. */
+export const tankDissipationKw = (surfaceM2: number, ambientC: number): number =>
+  (A.tankHeatTransfer.value * surfaceM2 * Math.max(0, A.oilTemperatureLimit.value - ambientC)) / 1000;
+
+export interface DutyShares {
+  extendS: number;
+  retractS: number;
+  /** share of running time spent moving on each stroke and in neutral */
+  extendShare: number;
+  retractShare: number;
+  neutralShare: number;
+  /** true when the cycles asked for do not fit in an hour */
+  overloaded: boolean;
+}
+
+export function dutyShares(strokeMm: number, extendMmS: number, retractMmS: number, cyclesPerHour: number): DutyShares {
+  const extendS = strokeMm / extendMmS;
+  const retractS = strokeMm / retractMmS;
+  let extendShare = (cyclesPerHour * extendS) / 3600;
+  let retractShare = (cyclesPerHour * retractS) / 3600;
+  const moving = extendShare + retractShare;
+  const overloaded = moving > 1;
+  if (overloaded) {
+    extendShare /= moving;
+    retractShare /= moving;
+  }
+  return { extendS, retractS, extendShare, retractShare, neutralShare: Math.max(0, 1 - extendShare - retractShare), overloaded };
+}
+
+/**
+ * Heat into the oil while a stroke runs at constant speed: shaft power minus the work the
+ * rod does on the load. For a lowering stroke that work is negative, so the load's energy
+ * (throttled in the counterbalance valve) is added.
+ */
+export const strokeHeatKw = (shaftKw: number, steadyForceN: number, speedMmS: number): number =>
+  Math.max(0, shaftKw - (steadyForceN * speedMmS) / 1e6);

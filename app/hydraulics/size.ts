@@ -1,0 +1,297 @@
+/**
+ * The sizing search and the assembly of a Design from the chosen candidate.
+ */
+import { A } from "./assumptions";
+import { buildBom } from "./bom";
+import { eulerLoadN, rodInertiaMm4 } from "./buckling";
+import { buildCircuit } from "./circuit";
+import { cylinderCandidates, cylinderForceN, type CylinderCandidate } from "./cylinder";
+import type { Design } from "./design";
+import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
+import { explain } from "./explain";
+import { lineLossBar } from "./lines";
+import { hydraulicPowerKw, selectMotorKw } from "./pump-motor";
+import type { Requirements } from "./requirements";
+import { dutyShares, reservoirVolumeL, strokeHeatKw, tankDissipationKw, tankSurfaceM2 } from "./reservoir-heat";
+import { FOUR_POLE_FRAMES, GAUGE_RANGES_BAR, nextInSeries } from "./series";
+import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
+import { Warnings } from "./warnings";
+
+export const ENGINE_VERSION = "1.0.0";
+
+/**
+ * Tries bore/rod pairs from the smallest up and keeps the first that meets every limit.
+ * When none does, it keeps the largest pair that meets the pressure limits (or the largest
+ * of all) and the warnings say what is left.
+ */
+export function chooseCylinder(ctx: SizingContext): Evaluation {
+  const list = cylinderCandidates(ctx.series);
+  // Fast pass: skip pairs that cannot meet the force or buckling bounds even with no line losses.
+  for (const cyl of list) {
+    if (cyl.capAreaMm2 < ctx.minCapAreaMm2 || cyl.annulusAreaMm2 < ctx.minAnnulusAreaMm2) continue;
+    if (criticalLoadBoundN(ctx, cyl.rodMm) < A.bucklingSafetyFactor.value * minStallThrustN(ctx, cyl)) continue;
+    const ev = evaluateCandidate(ctx, cyl);
+    if (ev.pressureOk && ev.cbvOk && ev.bucklingOk) return ev;
+  }
+  // Nothing meets every limit: look again for the largest pair that meets the pressures.
+  let pressureFit: Evaluation | undefined;
+  let last: Evaluation | undefined;
+  for (const cyl of list) {
+    if (cyl.capAreaMm2 < ctx.minCapAreaMm2 || cyl.annulusAreaMm2 < ctx.minAnnulusAreaMm2) continue;
+    const ev = evaluateCandidate(ctx, cyl);
+    last = ev;
+    if (ev.pressureOk && ev.cbvOk) {
+      if (ev.bucklingOk) return ev;
+      pressureFit = ev;
+    }
+  }
+  return pressureFit ?? last ?? evaluateCandidate(ctx, list[list.length - 1]);
+}
+
+/**
+ * Lower bound of the stall thrust p_relief·A1/10: the extend pressure is at least the force
+ * term plus the valve allowance in and the valve and filter allowances out (through A3/A1),
+ * and the relief is at least 1.1 × that.
+ */
+function minStallThrustN(ctx: SizingContext, cyl: CylinderCandidate): number {
+  const dcv = A.dcvPathDropBar.value;
+  const back = dcv + A.returnFilterDropBar.value;
+  const extendBar = (10 * ctx.minExtendHydraulicN + back * cyl.annulusAreaMm2) / cyl.capAreaMm2 + dcv;
+  return ((1 + A.reliefMargin.value) * extendBar * cyl.capAreaMm2) / 10;
+}
+
+/** Upper bound of the rod's critical load: neither Euler nor Tetmajer can exceed the larger of the two. */
+function criticalLoadBoundN(ctx: SizingContext, rodMm: number): number {
+  const lk = ctx.buckling.k * ctx.buckling.lengthMm;
+  const euler = eulerLoadN(A.elasticModulus.value, rodInertiaMm4(rodMm), lk);
+  const crushing = (A.tetmajerA.value * Math.PI * rodMm * rodMm) / 4;
+  return Math.max(euler, crushing);
+}
+
+/** Sizes a circuit from requirements that have already passed the schema. */
+export function sizeCircuitParsed(req: Requirements): Design {
+  const ctx = sizingContext(req);
+  const ev = chooseCylinder(ctx);
+  const warnings = new Warnings();
+  const eta = A.cylinderEfficiency.value;
+  const etaO = A.overallEfficiency.value;
+  const { cyl, lines, cbv } = ev;
+  const qp = ev.pumpFlowLpm;
+
+  // Directional valve
+  const centre = chooseDcvCenter(cbv !== null);
+  const maxPathFlowLpm = Math.max(qp, qp * cyl.areaRatio, qp / cyl.areaRatio);
+  const valve = selectIso4401(maxPathFlowLpm);
+
+  // Motor: sized for the pressure the pump runs at for more than a moment.
+  const unloadBar = A.dcvPathDropBar.value + lineLossBar(lines.return, qp, ctx.fluid) + A.returnFilterDropBar.value;
+  const neutralBar = centre.pumpOnReliefInNeutral ? ev.reliefBar : unloadBar;
+  const motorSizingBar = Math.max(ev.workingBar, neutralBar);
+  const motorRequiredKw = hydraulicPowerKw(motorSizingBar, qp) / etaO;
+  const motor = selectMotorKw(motorRequiredKw);
+
+  // Reservoir and heat
+  const volumeL = reservoirVolumeL(qp);
+  const surfaceM2 = tankSurfaceM2(volumeL);
+  const dissipationKw = tankDissipationKw(surfaceM2, req.ambientC);
+  const duty = dutyShares(req.strokeMm, ev.extendActualMmS, ev.retractActualMmS, req.cyclesPerHour);
+  const extendLossKw = strokeHeatKw(hydraulicPowerKw(ev.extendSteadyBar, qp) / etaO, ev.extend.steadyN, ev.extendActualMmS);
+  const retractLossKw = strokeHeatKw(hydraulicPowerKw(ev.retractSteadyBar, qp) / etaO, ev.retract.steadyN, ev.retractActualMmS);
+  const neutralLossKw = hydraulicPowerKw(neutralBar, qp) / etaO;
+  const averageLossKw =
+    duty.extendShare * extendLossKw + duty.retractShare * retractLossKw + duty.neutralShare * neutralLossKw;
+  const coolerKw = Math.max(0, averageLossKw - dissipationKw);
+  const loweringHeatKw = cbv ? hydraulicPowerKw(cbv.loweringDropBar, cbv.flowLpm) : 0;
+
+  const gaugeRangeBar =
+    nextInSeries(GAUGE_RANGES_BAR, ev.reliefBar * A.gaugeRangeFactor.value) ?? GAUGE_RANGES_BAR[GAUGE_RANGES_BAR.length - 1];
+  const workingPressureBar = ev.workingBar;
+  const frame = FOUR_POLE_FRAMES[String(motor.ratedKw)] ?? null;
+
+  const design: Design = {
+    engineVersion: ENGINE_VERSION,
+    requirements: req,
+    loads: {
+      angleDeg: ctx.loads.angleDeg,
+      gravityAlongAxisN: ctx.loads.gravityAlongAxisN,
+      frictionN: ctx.loads.frictionN,
+      processForceN: ctx.loads.processForceN,
+      accelExtendN: ev.accelExtendN,
+      accelRetractN: ev.accelRetractN,
+      extendSteadyN: ev.extend.steadyN,
+      extendMovingN: ev.extend.movingN,
+      extendPressN: ev.pressN,
+      retractSteadyN: ev.retract.steadyN,
+      retractMovingN: ev.retract.movingN,
+      overrunningStroke: ctx.loads.overrunningStroke,
+    },
+    cylinder: {
+      boreMm: cyl.boreMm,
+      rodMm: cyl.rodMm,
+      strokeMm: req.strokeMm,
+      extendForceN: cylinderForceN(workingPressureBar, cyl.capAreaMm2, eta),
+      retractForceN: cylinderForceN(workingPressureBar, cyl.annulusAreaMm2, eta),
+      bucklingSafetyFactor: ev.buckling.safetyFactor,
+      series: cyl.series,
+      outOfSeries: cyl.outOfSeries,
+      ratedPressureBar: ctx.series.ratedPressureBar,
+      capAreaMm2: cyl.capAreaMm2,
+      annulusAreaMm2: cyl.annulusAreaMm2,
+      areaRatio: cyl.areaRatio,
+      mechanicalEfficiency: eta,
+      workingPressureBar,
+      buckling: {
+        eulerCase: ctx.buckling.eulerCase,
+        k: ctx.buckling.k,
+        lengthMm: ctx.buckling.lengthMm,
+        lengthRule: ctx.buckling.rule,
+        effectiveLengthMm: ev.buckling.effectiveLengthMm,
+        slenderness: ev.buckling.slenderness,
+        limitSlenderness: A.limitSlenderness.value,
+        regime: ev.buckling.regime,
+        criticalLoadN: ev.buckling.criticalLoadN,
+        compressiveForceN: ev.compressiveN,
+        requiredSafetyFactor: A.bucklingSafetyFactor.value,
+      },
+    },
+    pressuresBar: {
+      extend: ev.extendBar,
+      retract: ev.retractBar,
+      reliefSetting: ev.reliefBar,
+      workingLimit: ctx.workingLimitBar,
+      extendMoving: ev.extendMovingBar,
+      extendPress: ev.extendPressBar,
+      rodSidePeak: ev.rodSidePeakBar,
+    },
+    flowsLpm: { extend: ev.flowExtendLpm, retract: ev.flowRetractLpm, pump: qp, returnMax: qp * cyl.areaRatio },
+    speedsMmS: {
+      extendRequested: req.extendSpeedMmS,
+      retractRequested: req.retractSpeedMmS,
+      extendActual: ev.extendActualMmS,
+      retractActual: ev.retractActualMmS,
+    },
+    pump: {
+      displacementCcRev: ev.displacementCc,
+      speedRpm: ctx.speedRpm,
+      requiredDisplacementCcRev: ev.requiredDisplacementCc,
+      volumetricEfficiency: A.volumetricEfficiency.value,
+      overallEfficiency: etaO,
+    },
+    motor: { requiredKw: motorRequiredKw, ratedKw: motor.ratedKw, poles: A.motorPoles.value, frame, sizingPressureBar: motorSizingBar },
+    counterbalance: cbv && ctx.pilot
+      ? {
+          side: cbv.side,
+          settingBar: cbv.settingBar,
+          pilotRatio: cbv.ratio,
+          pilotOpeningBar: cbv.pilotOpeningBar,
+          stroke: cbv.side === "rod" ? "extend" : "retract",
+          loadPressureBar: cbv.loadPressureBar,
+          loadClass: ctx.pilot.loadClass,
+          pilotRatioReason: ctx.pilot.reason,
+          loweringHeatKw,
+          flowLpm: cbv.flowLpm,
+        }
+      : null,
+    directionalValve: {
+      center: centre.center,
+      iso4401Size: valve.size,
+      nominalSize: valve.nominal,
+      maxPathFlowLpm,
+      typicalMaxFlowLpm: valve.typicalMaxLpm,
+      coilVoltage: `${A.coilVoltage.value} V DC`,
+      centerReason: centre.reason,
+      neutralPumpFlow: centre.neutralPumpFlow,
+    },
+    lines: { pressure: lines.pressure, return: lines.return, suction: lines.suction, capWork: lines.capWork, rodWork: lines.rodWork },
+    reservoir: { volumeL, surfaceM2, dissipationKw },
+    returnFilter: { ratedFlowLpm: qp * cyl.areaRatio },
+    heat: {
+      averageLossKw,
+      extendLossKw,
+      retractLossKw,
+      neutralLossKw,
+      extendShare: duty.extendShare,
+      retractShare: duty.retractShare,
+      neutralShare: duty.neutralShare,
+      tankDissipationKw: dissipationKw,
+      coolerKw,
+      dailyEnergyKwh: averageLossKw * req.hoursPerDay,
+    },
+    warnings: warnings.list,
+    bom: [],
+    trail: [],
+    circuit: { components: [], connections: [], dcvPositions: dcvPositions(centre.center) },
+  };
+
+  addWarnings(design, ctx, ev, warnings, { duty, motorInSeries: motor.inSeries, valveWithinLimit: valve.withinLimit });
+  design.bom = buildBom(design, gaugeRangeBar);
+  design.circuit = buildCircuit(design, gaugeRangeBar);
+  design.trail = explain(design, ctx, ev, { unloadBar, gaugeRangeBar, duty });
+  return design;
+}
+
+/** One decimal, for messages. */
+const f1 = (x: number): number => Math.round(x * 10) / 10;
+const LINE_NAMES = ["pressure", "return", "suction", "capWork", "rodWork"] as const;
+
+function addWarnings(
+  d: Design,
+  ctx: SizingContext,
+  ev: Evaluation,
+  w: Warnings,
+  extra: { duty: { overloaded: boolean }; motorInSeries: boolean; valveWithinLimit: boolean },
+): void {
+  const c = d.cylinder;
+  if (!ev.pressureOk) {
+    w.add("PRESSURE_LIMIT_EXCEEDED",
+      `Even a ${c.boreMm} mm bore needs ${f1(ev.workingBar)} bar, above the ${f1(ctx.workingLimitBar)} bar working limit. Reduce the load or speeds, or allow a higher pressure.`);
+  } else if (ev.workingBar > A.pressureNearLimit.value * ctx.workingLimitBar) {
+    w.add("PRESSURE_NEAR_LIMIT",
+      `The working pressure of ${f1(ev.workingBar)} bar is within 5 % of the ${f1(ctx.workingLimitBar)} bar limit; there is little reserve for losses this estimate leaves out.`);
+  }
+  if (c.outOfSeries) {
+    w.add("BORE_OUT_OF_SERIES",
+      `The ${c.boreMm}/${c.rodMm} mm cylinder is beyond the ${ctx.series.name} pairing table; it is an ISO 3320 size, so check that a maker offers it.`);
+  }
+  if (!ev.bucklingOk) {
+    w.add("BUCKLING_MARGIN",
+      `The ${c.rodMm} mm rod has a buckling safety factor of ${Math.round(ev.buckling.safetyFactor * 100) / 100} at full extension, below the ${A.bucklingSafetyFactor.value} required. Guide the load, shorten the stroke or choose a stronger mounting.`);
+  }
+  if (ev.rodSidePeakBar > ctx.series.ratedPressureBar + 1e-9) {
+    w.add("ROD_SIDE_INTENSIFICATION",
+      `The rod side can reach ${f1(ev.rodSidePeakBar)} bar, above the cylinder's ${ctx.series.ratedPressureBar} bar rating.`);
+  }
+  const tol = 1 + A.speedTolerance.value;
+  if (d.speedsMmS.extendActual > tol * d.speedsMmS.extendRequested || d.speedsMmS.retractActual > tol * d.speedsMmS.retractRequested) {
+    w.add("PUMP_SPEED_MISMATCH",
+      `A fixed pump gives both strokes the same ${f1(d.flowsLpm.pump)} L/min, so the cylinder extends at ${Math.round(d.speedsMmS.extendActual)} mm/s (asked ${d.speedsMmS.extendRequested}) and retracts at ${Math.round(d.speedsMmS.retractActual)} mm/s (asked ${d.speedsMmS.retractRequested}). Add a flow control if the faster stroke matters.`);
+  }
+  if (!ev.pumpInSeries) {
+    w.add("PUMP_BEYOND_SERIES", `The flow needs more than the largest displacement in the series (${ev.displacementCc} cm³/rev); use several pumps or a larger unit.`);
+  }
+  if (!extra.motorInSeries) {
+    w.add("MOTOR_BEYOND_SERIES", `The drive needs ${f1(d.motor.requiredKw)} kW, more than the largest motor listed.`);
+  }
+  if (!extra.valveWithinLimit) {
+    w.add("VALVE_NEAR_LIMIT",
+      `The largest path flow of ${f1(d.directionalValve.maxPathFlowLpm)} L/min is above 80 % of what an ISO 4401-10 valve typically passes; use a cartridge or logic-element valve block.`);
+  }
+  for (const name of LINE_NAMES) {
+    const line = d.lines[name];
+    if (!line.inRange) {
+      w.add("LINE_SIZE_BEYOND_RANGE", `The ${name} line needs ${f1(line.requiredDiameterMm)} mm, larger than the largest hose listed; use tube or parallel lines.`);
+    }
+  }
+  if (d.directionalValve.center === "float") {
+    w.add("PUMP_ON_RELIEF_IN_NEUTRAL",
+      `With a float centre P is blocked, so the pump runs over the ${d.pressuresBar.reliefSetting} bar relief whenever the valve is in neutral (${Math.round(d.heat.neutralShare * 100)} % of the time). A solenoid-vented relief or unloading valve would save that heat and power.`);
+  }
+  if (extra.duty.overloaded) {
+    w.add("DUTY_CYCLE_OVERLOAD",
+      `At the actual speeds the cycles asked for need more than an hour of movement per hour; the heat is worked out for continuous movement.`);
+  }
+  if (d.heat.coolerKw > 0) {
+    w.add("HEAT_COOLER_NEEDED",
+      `On average ${f1(d.heat.averageLossKw)} kW becomes heat, but a ${d.reservoir.volumeL} L tank sheds only about ${Math.round(d.heat.tankDissipationKw * 100) / 100} kW at ${d.requirements.ambientC} °C ambient with oil at 60 °C. Fit a cooler of at least ${f1(d.heat.coolerKw)} kW.`);
+  }
+}

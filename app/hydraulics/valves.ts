@@ -1,0 +1,161 @@
+import { A } from "./assumptions";
+import { ISO4401_SIZES, type Iso4401Size } from "./series";
+
+// ---- Relief -------------------------------------------------------------------------------
+
+/** Relief about 10 % above the highest working pressure, rounded up to 5 bar [CP]. */
+export function reliefSettingBar(workingBar: number): number {
+  const step = A.reliefRoundingBar.value;
+  return Math.ceil((workingBar * (1 + A.reliefMargin.value)) / step - 1e-9) * step;
+}
+
+// ---- Counterbalance -----------------------------------------------------------------------
+
+export type CbvSide = "rod" | "cap";
+
+/** Setting ≈ 1.3 × the load-induced pressure at the CBV port [CP], with a floor for light loads. */
+export const cbvSettingBar = (loadPressureBar: number): number =>
+  Math.max(A.cbvSettingFactor.value * loadPressureBar, A.cbvMinimumSettingBar.value);
+
+export interface PilotRatioChoice {
+  ratio: number;
+  loadClass: "variable or high-inertia" | "general" | "stable";
+  reason: string;
+}
+
+/**
+ * Pilot ratio for the kind of load (classes are common practice): 3:1 when the load varies
+ * during the lowering stroke or its inertia is high, 8:1 when it is slow and steady, else 4.5:1.
+ * The inertia ratio m·v/t ÷ m·g·sin θ does not depend on the mass.
+ */
+export function choosePilotRatio(inertiaRatio: number, processForceOnLoweringStroke: boolean): PilotRatioChoice {
+  if (processForceOnLoweringStroke || inertiaRatio >= A.highInertiaRatio.value) {
+    return {
+      ratio: 3,
+      loadClass: "variable or high-inertia",
+      reason: processForceOnLoweringStroke
+        ? "a process force acts on the lowering stroke, so the load varies: 3:1 for stability"
+        : `acceleration force is ${(inertiaRatio * 100).toFixed(0)} % of the weight component (≥ ${A.highInertiaRatio.value * 100} %): 3:1 for damping`,
+    };
+  }
+  if (inertiaRatio < A.stableInertiaRatio.value) {
+    return {
+      ratio: 8,
+      loadClass: "stable",
+      reason: `acceleration force is ${(inertiaRatio * 100).toFixed(1)} % of the weight component (< ${A.stableInertiaRatio.value * 100} %), no process force: 8:1 for a steady load`,
+    };
+  }
+  return { ratio: 4.5, loadClass: "general", reason: "ordinary load: 4.5:1, the general-purpose ratio" };
+}
+
+/**
+ * Pilot pressure that opens the CBV, full balance with a vented spring chamber (sources §6):
+ * rod side p₁ = (p_set − p_L)/(R + φ); cap side p₃ = (p_set − p_L)/(R + 1/φ).
+ * areaTerm is φ for a rod-side valve and 1/φ for a cap-side valve.
+ */
+export const pilotOpeningBar = (settingBar: number, loadPressureBar: number, ratio: number, areaTerm: number): number =>
+  Math.max(0, (settingBar - loadPressureBar) / (ratio + areaTerm));
+
+// ---- Cylinder inlet pressure ---------------------------------------------------------------
+
+/**
+ * Hydraulic force the cylinder must produce for a required load force: seal friction adds
+ * to a force the oil drives (F/η) and takes from a load that drives the oil (F·η).
+ */
+export const hydraulicForceN = (requiredN: number, efficiency: number): number =>
+  requiredN >= 0 ? requiredN / efficiency : requiredN * efficiency;
+
+/**
+ * Inlet pressure at the cylinder from the piston force balance
+ * p_in·A_in − p_out·A_out = 10·F_h (p in bar, A in mm², F in N).
+ * With a CBV on the outlet, p_out = p_set − R·p_in while it throttles, so
+ * p_in = (10·F_h + p_set·A_out) / (A_in + R·A_out); once it is wide open the downstream
+ * back-pressure rules instead — the larger of the two is the one that occurs.
+ */
+export function cylinderInletBar(
+  hydraulicN: number,
+  inletAreaMm2: number,
+  outletAreaMm2: number,
+  backPressureBar: number,
+  outletCbv?: { settingBar: number; ratio: number },
+): number {
+  const free = (10 * hydraulicN + backPressureBar * outletAreaMm2) / inletAreaMm2;
+  if (!outletCbv) return Math.max(0, free);
+  const throttling =
+    (10 * hydraulicN + outletCbv.settingBar * outletAreaMm2) / (inletAreaMm2 + outletCbv.ratio * outletAreaMm2);
+  return Math.max(0, free, throttling);
+}
+
+// ---- Directional valve ---------------------------------------------------------------------
+
+export type DcvCenter = "float" | "closed" | "tandem" | "open";
+export type PortPair = [string, string];
+
+export interface DcvPositions {
+  /** solenoid a: P→A, B→T — the cylinder extends (A feeds the cap end) */
+  left: PortPair[];
+  /** spring-centred neutral */
+  center: PortPair[];
+  /** solenoid b: P→B, A→T — the cylinder retracts */
+  right: PortPair[];
+}
+
+export interface DcvCenterChoice {
+  center: DcvCenter;
+  reason: string;
+  /** what the pump's flow does while the valve is in neutral */
+  neutralPumpFlow: string;
+  pumpOnReliefInNeutral: boolean;
+}
+
+export function chooseDcvCenter(hasCbv: boolean): DcvCenterChoice {
+  if (hasCbv) {
+    return {
+      center: "float",
+      reason:
+        "float centre (P blocked, A and B to T): the counterbalance pilot line vents in neutral, so the valve closes fully and holds the load on its poppet; a closed or tandem centre could trap pilot pressure and let the load creep",
+      neutralPumpFlow: "P is blocked, so the fixed pump's whole flow goes over the relief valve in neutral",
+      pumpOnReliefInNeutral: true,
+    };
+  }
+  return {
+    center: "tandem",
+    reason:
+      "tandem centre (P to T, A and B blocked): with no overrunning load the blocked work ports hold the axis, and the fixed pump unloads to tank at low pressure",
+    neutralPumpFlow: "P is joined to T, so the pump's flow returns to tank at low pressure in neutral",
+    pumpOnReliefInNeutral: false,
+  };
+}
+
+const CENTER_PAIRS: Record<DcvCenter, PortPair[]> = {
+  float: [["A", "T"], ["B", "T"]],
+  closed: [],
+  tandem: [["P", "T"]],
+  open: [["P", "T"], ["A", "T"], ["B", "T"]],
+};
+
+function copyPairs(pairs: readonly PortPair[]): PortPair[] {
+  const out: PortPair[] = [];
+  for (const p of pairs) out.push([p[0], p[1]]);
+  return out;
+}
+
+export function dcvPositions(center: DcvCenter): DcvPositions {
+  return {
+    left: [["P", "A"], ["B", "T"]],
+    center: copyPairs(CENTER_PAIRS[center]),
+    right: [["P", "B"], ["A", "T"]],
+  };
+}
+
+/** Smallest ISO 4401 size whose use stays ≤ 80 % of its typical max flow [CP]. */
+export function selectIso4401(maxPathFlowLpm: number): { size: Iso4401Size; nominal: string; typicalMaxLpm: number; withinLimit: boolean } {
+  const use = A.valveFlowUse.value;
+  for (const s of ISO4401_SIZES) {
+    if (maxPathFlowLpm <= use * s.typicalMaxLpm) {
+      return { size: s.size, nominal: s.nominal, typicalMaxLpm: s.typicalMaxLpm, withinLimit: true };
+    }
+  }
+  const last = ISO4401_SIZES[ISO4401_SIZES.length - 1];
+  return { size: last.size, nominal: last.nominal, typicalMaxLpm: last.typicalMaxLpm, withinLimit: false };
+}

@@ -1,0 +1,30 @@
+/** Warning codes are stable: exports and reviewers key on them. */
+export const WARNING_CODES = [
+  "BUCKLING_MARGIN",
+  "ROD_SIDE_INTENSIFICATION",
+  "HEAT_COOLER_NEEDED",
+  "PUMP_SPEED_MISMATCH",
+  "PUMP_ON_RELIEF_IN_NEUTRAL",
+  "PRESSURE_NEAR_LIMIT",
+  "PRESSURE_LIMIT_EXCEEDED",
+  "VALVE_NEAR_LIMIT",
+  "BORE_OUT_OF_SERIES",
+  "LINE_SIZE_BEYOND_RANGE",
+  "PUMP_BEYOND_SERIES",
+  "MOTOR_BEYOND_SERIES",
+  "DUTY_CYCLE_OVERLOAD",
+] as const;
+
+export type WarningCode = (typeof WARNING_CODES)[number];
+
+export interface Warning {
+  code: WarningCode;
+  message: string;
+}
+
+export class Warnings {
+  readonly list: Warning[] = [];
+  add(code: WarningCode, message: string): void {
+    this.list.push({ code, message });
+  }
+}

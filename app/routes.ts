@@ -2,6 +2,7 @@ import { type RouteConfig, index, prefix, route } from "@react-router/dev/routes
 
 export default [
   index("routes/home.tsx"),
+  route("quick-sizing", "routes/quick-sizing.tsx"),
   route("sign-in", "routes/sign-in.tsx"),
   route("sign-up", "routes/sign-up.tsx"),
   route("sign-out", "routes/sign-out.tsx"),
@@ -10,6 +11,7 @@ export default [
   route("join/:token", "routes/join.tsx"),
   route("specs", "routes/specs.tsx"),
   route("open-specs", "routes/open-specs.tsx"),
+  route("settings", "routes/settings.tsx"),
   route("team", "routes/team.tsx"),
   route("team/invitations/:invitationId/revoke", "routes/team.revoke-invitation.tsx"),
   route("accounts", "routes/accounts.tsx"),

@@ -23,4 +23,5 @@ export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
   ],
 };
 
-export const PUBLIC_NAV: NavItem[] = [];
+/** Pages for everyone, signed in or not. */
+export const PUBLIC_NAV: NavItem[] = [{ to: "/quick-sizing", label: "Quick sizing" }];

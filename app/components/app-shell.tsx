@@ -1,5 +1,5 @@
 import { Form, Link, NavLink } from "react-router";
-import { NAV_BY_ROLE } from "~/auth/navigation";
+import { NAV_BY_ROLE, PUBLIC_NAV } from "~/auth/navigation";
 import { ROLE_LABELS, type Role } from "~/auth/roles";
 import { Logo } from "./logo";
 
@@ -10,7 +10,7 @@ export interface ShellUser {
 }
 
 export function AppShell({ user, toast, children }: { user: ShellUser | null; toast: string | null; children: React.ReactNode }) {
-  const items = user ? NAV_BY_ROLE[user.role] : [];
+  const items = [...(user ? NAV_BY_ROLE[user.role] : []), ...PUBLIC_NAV];
   return (
     <div className="flex min-h-screen flex-col">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-white focus:p-2">
@@ -37,12 +37,12 @@ export function AppShell({ user, toast, children }: { user: ShellUser | null; to
           </nav>
           {user ? (
             <div className="flex items-center gap-3 text-sm">
-              <span className="text-right leading-tight">
+              <Link to="/settings" className="rounded-md px-2 py-1 text-right leading-tight hover:bg-ink-800" title="Your settings">
                 <span className="block font-semibold">{user.name}</span>
                 <span className="block text-xs text-ink-200">
                   {ROLE_LABELS[user.role]} · {user.organisationName}
                 </span>
-              </span>
+              </Link>
               <Form method="post" action="/sign-out">
                 <button className="rounded-md px-3 py-1.5 font-semibold text-ink-200 ring-1 ring-ink-600 hover:bg-ink-800 hover:text-white">
                   Sign out

@@ -53,3 +53,8 @@ export const acceptInvitationSchema = z.object({
   name: trimmed(120, "name"),
   password: newPasswordField,
 });
+
+export const settingsSchema = z.object({
+  name: trimmed(120, "name"),
+  unitSystem: z.enum(["metric", "us"], { error: "Choose the units you work in." }),
+});

@@ -215,6 +215,6 @@ export async function teamOf(actor: User) {
   return { members, invitations };
 }
 
-export async function setUnitSystem(actor: User, unitSystem: User["unitSystem"]) {
-  await actor.update({ unitSystem });
+export async function updateSettings(actor: User, settings: { name: string; unitSystem: User["unitSystem"] }) {
+  await actor.update(settings);
 }

@@ -166,3 +166,22 @@ describe("password reset by e-mail", () => {
     expect(res.data.error.confirm).toEqual(["The two passwords differ."]);
   });
 });
+
+describe("settings", () => {
+  it("saves the person's name and unit system, and refuses an unknown system", async () => {
+    const { loader, action } = await import("~/routes/settings");
+    const user = await makeMember("buyer");
+    const visitor = new Visitor();
+    await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    expect((await visitor.get(loader, "/settings")).data.unitSystem).toBe("metric");
+    const saved = await visitor.post(action, "/settings", { name: "Rhea F.", unitSystem: "us" });
+    expect(saved.status).toBe(302);
+    expect((await user.reload()).unitSystem).toBe("us");
+    expect(user.name).toBe("Rhea F.");
+    const bad = await visitor.post(action, "/settings", { name: "", unitSystem: "imperial-ish" });
+    expect(bad.status).toBe(400);
+    expect(Object.keys(bad.data.error).sort()).toEqual(["name", "unitSystem"]);
+    expect((await user.reload()).unitSystem).toBe("us");
+    expect((await new Visitor().get(loader, "/settings")).status).toBe(302);
+  });
+});

@@ -1,0 +1,127 @@
+import { displayValue, type RequirementField } from "~/content/requirement-fields";
+import { unitLabel, type UnitSystem } from "~/units";
+
+// One question about the axis: label, plain help, an example in the person's units, the error
+// beside it. Used by the quick-sizing page and the spec form alike.
+
+export function RequirementInput({
+  field,
+  value,
+  system,
+  errors,
+  onChange,
+  idPrefix = "req",
+}: {
+  field: RequirementField;
+  value: string | undefined;
+  system: UnitSystem;
+  errors?: string[];
+  onChange?: (value: string) => void;
+  idPrefix?: string;
+}) {
+  const id = `${idPrefix}-${field.key}`;
+  const helpId = `${id}-help`;
+  const errorId = `${id}-error`;
+  const invalid = Boolean(errors?.length);
+  const describedBy = invalid ? `${helpId} ${errorId}` : helpId;
+
+  if (field.kind === "choice") {
+    const asCards = field.options.length <= 4 && field.options.some((o) => o.hint);
+    if (!asCards) {
+      return (
+        <div>
+          <label htmlFor={id} className="block text-sm font-semibold text-ink-800">
+            {field.label}
+          </label>
+          <p id={helpId} className="text-xs text-ink-600">
+            {field.help}
+          </p>
+          <select
+            id={id}
+            name={field.key}
+            value={value ?? ""}
+            onChange={(e) => onChange?.(e.target.value)}
+            aria-invalid={invalid || undefined}
+            aria-describedby={describedBy}
+            className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
+          >
+            {value ? null : <option value="">Choose…</option>}
+            {field.options.map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
+          </select>
+          <Errors id={errorId} errors={errors} />
+        </div>
+      );
+    }
+    return (
+      <fieldset aria-describedby={describedBy}>
+        <legend className="text-sm font-semibold text-ink-800">{field.label}</legend>
+        <p id={helpId} className="text-xs text-ink-600">
+          {field.help}
+        </p>
+        <div className="mt-1 grid gap-1.5">
+          {field.options.map((o) => (
+            <label
+              key={o.value}
+              className="flex cursor-pointer items-start gap-2 rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 has-[:checked]:bg-flow-50 has-[:checked]:ring-2 has-[:checked]:ring-flow-600"
+            >
+              <input
+                type="radio"
+                name={field.key}
+                value={o.value}
+                checked={value === o.value}
+                onChange={() => onChange?.(o.value)}
+                className="mt-1 accent-flow-600"
+              />
+              <span>
+                <span className="block font-semibold">{o.label}</span>
+                {o.hint ? <span className="block text-xs text-ink-600">{o.hint}</span> : null}
+              </span>
+            </label>
+          ))}
+        </div>
+        <Errors id={errorId} errors={errors} />
+      </fieldset>
+    );
+  }
+
+  const unit = field.quantity ? unitLabel(field.quantity, system) : null;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-semibold text-ink-800">
+        {field.label}
+      </label>
+      <p id={helpId} className="text-xs text-ink-600">
+        {field.help} <span className="text-ink-400">Example: {displayValue(field, field.example, system)}{unit ? ` ${unit}` : ""}</span>
+      </p>
+      <div className="mt-1 flex rounded-md bg-white ring-1 ring-ink-200 focus-within:ring-2 focus-within:ring-flow-600 has-[[aria-invalid=true]]:ring-alarm-600">
+        <input
+          id={id}
+          name={field.key}
+          type="text"
+          inputMode="decimal"
+          autoComplete="off"
+          value={value ?? ""}
+          onChange={(e) => onChange?.(e.target.value)}
+          aria-invalid={invalid || undefined}
+          aria-describedby={describedBy}
+          className="w-full min-w-0 rounded-md border-0 bg-transparent px-3 py-2 text-sm outline-none"
+        />
+        {unit ? <span className="flex items-center pr-3 text-sm text-ink-600">{unit}</span> : null}
+      </div>
+      <Errors id={errorId} errors={errors} />
+    </div>
+  );
+}
+
+function Errors({ id, errors }: { id: string; errors?: string[] }) {
+  if (!errors?.length) return null;
+  return (
+    <p id={id} className="mt-1 text-xs font-semibold text-alarm-600">
+      {errors.join(" ")}
+    </p>
+  );
+}

@@ -1,0 +1,299 @@
+import { requirementsSchema, type RequirementsInput } from "~/hydraulics";
+import { fromDisplay, roundForDisplay, toDisplay, unitLabel, UNITS, type Quantity, type UnitSystem } from "~/units";
+
+// The questions a person answers about one axis: wording, examples, units and defaults, in one
+// place for the quick-sizing page and the spec form. Values are typed in the person's unit
+// system and handed to the engine in the units its fields name.
+
+export type RequirementKey = keyof RequirementsInput;
+
+interface BaseField {
+  key: RequirementKey;
+  label: string;
+  /** The plain question, shown under the label. */
+  help: string;
+}
+
+export interface NumberField extends BaseField {
+  kind: "number";
+  /** Display unit; none for plain numbers such as a friction coefficient. */
+  quantity?: Quantity;
+  /** An example, in the app's units (converted for display). */
+  example: number;
+  /** Pre-filled value in the app's units, where a sensible one exists. */
+  defaultValue?: number;
+  step?: number;
+}
+
+export interface ChoiceField extends BaseField {
+  kind: "choice";
+  options: { value: string; label: string; hint?: string }[];
+  defaultValue?: string;
+}
+
+export type RequirementField = NumberField | ChoiceField;
+
+export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
+  orientation: {
+    key: "orientation",
+    kind: "choice",
+    label: "Direction of travel",
+    help: "Which way does the load move?",
+    defaultValue: "horizontal",
+    options: [
+      { value: "horizontal", label: "Horizontal", hint: "A feed, a slide, a pusher" },
+      { value: "vertical", label: "Vertical", hint: "A press, a lift, a clamp from above" },
+      { value: "inclined", label: "Inclined", hint: "A tilting deck, a ramp" },
+    ],
+  },
+  inclineDeg: {
+    key: "inclineDeg",
+    kind: "number",
+    label: "Incline angle",
+    help: "How steep is the path, in degrees above horizontal?",
+    example: 30,
+    step: 1,
+  },
+  rodDirection: {
+    key: "rodDirection",
+    kind: "choice",
+    label: "Rod moves when extending",
+    help: "When the rod comes out of the cylinder, does the load go up or down?",
+    options: [
+      { value: "up", label: "Up", hint: "Lifting: the load comes down again when the rod retracts" },
+      { value: "down", label: "Down", hint: "Pressing: the load would run ahead of the rod if nothing held it" },
+    ],
+  },
+  mounting: {
+    key: "mounting",
+    kind: "choice",
+    label: "How the cylinder is held",
+    help: "How are the cylinder body and the rod end fixed? It decides how long the rod can be before it buckles.",
+    defaultValue: "pinned-pinned",
+    options: [
+      { value: "pinned-pinned", label: "Pivots at both ends", hint: "Clevis or trunnion at the back, rod eye at the front" },
+      { value: "fixed-pinned", label: "Flange, rod end pinned", hint: "Flange-mounted body, rod end on a guided pin" },
+      { value: "fixed-fixed", label: "Flange, rod end fixed and guided", hint: "Flange-mounted body, rod end bolted to a guided slide" },
+      { value: "fixed-free", label: "Flange, rod end free", hint: "Flange-mounted body, rod end pushing an unguided load" },
+    ],
+  },
+  massKg: {
+    key: "massKg",
+    kind: "number",
+    label: "Moving mass",
+    help: "Everything that moves with the rod: the load, the tooling and the slide.",
+    quantity: "mass",
+    example: 800,
+  },
+  processForceN: {
+    key: "processForceN",
+    kind: "number",
+    label: "Working force at the end of the stroke",
+    help: "Pressing, clamping or cutting force the rod must push with when extending. 0 if it only moves the load.",
+    quantity: "force",
+    example: 50_000,
+    defaultValue: 0,
+  },
+  frictionCoefficient: {
+    key: "frictionCoefficient",
+    kind: "number",
+    label: "Friction of the guides",
+    help: "Rolling rails about 0.01, greased slides about 0.1, dry steel on steel up to 0.2.",
+    example: 0.1,
+    defaultValue: 0.1,
+    step: 0.01,
+  },
+  strokeMm: {
+    key: "strokeMm",
+    kind: "number",
+    label: "Stroke",
+    help: "How far the rod travels from fully in to fully out.",
+    quantity: "length",
+    example: 500,
+  },
+  extendSpeedMmS: {
+    key: "extendSpeedMmS",
+    kind: "number",
+    label: "Extending speed",
+    help: "How fast the rod comes out.",
+    quantity: "speed",
+    example: 100,
+  },
+  retractSpeedMmS: {
+    key: "retractSpeedMmS",
+    kind: "number",
+    label: "Retracting speed",
+    help: "How fast the rod goes back in.",
+    quantity: "speed",
+    example: 150,
+  },
+  accelTimeS: {
+    key: "accelTimeS",
+    kind: "number",
+    label: "Time to reach speed",
+    help: "Seconds from standstill to full speed. 0.2 s suits most axes.",
+    example: 0.2,
+    defaultValue: 0.2,
+    step: 0.05,
+  },
+  cyclesPerHour: {
+    key: "cyclesPerHour",
+    kind: "number",
+    label: "Cycles per hour",
+    help: "One cycle is one extend and one retract.",
+    example: 60,
+  },
+  hoursPerDay: {
+    key: "hoursPerDay",
+    kind: "number",
+    label: "Hours of work per day",
+    help: "How long the machine runs on a normal day.",
+    example: 16,
+    step: 0.5,
+  },
+  ambientC: {
+    key: "ambientC",
+    kind: "number",
+    label: "Air temperature around the power unit",
+    help: "The warmest the workshop gets in normal work.",
+    quantity: "temperature",
+    example: 25,
+    defaultValue: 25,
+  },
+  supplyHz: {
+    key: "supplyHz",
+    kind: "choice",
+    label: "Mains frequency",
+    help: "50 Hz in Europe and most of the world, 60 Hz in North America.",
+    defaultValue: "50",
+    options: [
+      { value: "50", label: "50 Hz" },
+      { value: "60", label: "60 Hz" },
+    ],
+  },
+  maxPressureBar: {
+    key: "maxPressureBar",
+    kind: "number",
+    label: "Highest working pressure you accept",
+    help: "160 bar suits standard industrial cylinders; lower it if your plant has a limit.",
+    quantity: "pressure",
+    example: 160,
+    defaultValue: 160,
+  },
+};
+
+/** Fields that only apply to some axes. */
+export function fieldApplies(key: RequirementKey, orientation: string | undefined) {
+  if (key === "inclineDeg") return orientation === "inclined";
+  if (key === "rodDirection") return orientation === "vertical" || orientation === "inclined";
+  if (key === "frictionCoefficient") return orientation !== "vertical";
+  return true;
+}
+
+/** What a field shows: a value in the app's units, converted and rounded for the person. */
+export function displayValue(field: NumberField, value: number, system: UnitSystem): string {
+  if (!field.quantity) return String(value);
+  const decimals = UNITS[field.quantity][system].decimals;
+  return String(roundForDisplay(toDisplay(field.quantity, value, system), decimals));
+}
+
+export type FormValues = Partial<Record<RequirementKey, string>>;
+
+/** The pre-filled form: defaults where a sensible one exists, blanks elsewhere. */
+export function defaultFormValues(system: UnitSystem): FormValues {
+  const values: FormValues = {};
+  for (const field of Object.values(REQUIREMENT_FIELDS)) {
+    if (field.defaultValue === undefined) continue;
+    values[field.key] = field.kind === "number" ? displayValue(field, field.defaultValue, system) : field.defaultValue;
+  }
+  return values;
+}
+
+/**
+ * Typed values (strings in the person's units) → the engine's input. Blank fields are left out
+ * so the engine's defaults and "required" messages apply; text that isn't a number is passed on
+ * as text so the engine's schema reports it against the right field.
+ */
+export function toRequirementsInput(values: FormValues, system: UnitSystem): Record<string, unknown> {
+  const input: Record<string, unknown> = {};
+  const orientation = values.orientation;
+  for (const field of Object.values(REQUIREMENT_FIELDS)) {
+    const raw = values[field.key]?.trim();
+    if (!raw || !fieldApplies(field.key, orientation)) continue;
+    if (field.kind === "choice") {
+      input[field.key] = field.key === "supplyHz" ? Number(raw) : raw;
+      continue;
+    }
+    const number = Number(raw.replace(/\s/g, "").replace(",", "."));
+    input[field.key] = Number.isFinite(number) ? (field.quantity ? fromDisplay(field.quantity, number, system) : number) : raw;
+  }
+  return input;
+}
+
+/** Re-expresses typed values when the person switches unit system. */
+export function convertFormValues(values: FormValues, from: UnitSystem, to: UnitSystem): FormValues {
+  if (from === to) return values;
+  const next: FormValues = { ...values };
+  for (const field of Object.values(REQUIREMENT_FIELDS)) {
+    if (field.kind !== "number" || !field.quantity) continue;
+    const number = Number(values[field.key]);
+    if (values[field.key]?.trim() && Number.isFinite(number)) {
+      next[field.key] = displayValue(field, fromDisplay(field.quantity, number, from), to);
+    }
+  }
+  return next;
+}
+
+/** The engine schema's bounds of a numeric field, in the app's units. */
+function schemaBounds(key: RequirementKey): { min: number | null; max: number | null } | null {
+  // Zod 4 keeps the number checks on the innermost type, below .optional() and .default().
+  let type = (requirementsSchema.shape as Record<string, unknown>)[key] as
+    | { _zod: { def: { innerType?: unknown } }; minValue?: number | null; maxValue?: number | null }
+    | undefined;
+  while (type?._zod.def.innerType) type = type._zod.def.innerType as typeof type;
+  if (!type || !("minValue" in type)) return null;
+  return { min: type.minValue ?? null, max: type.maxValue ?? null };
+}
+
+/**
+ * The engine's messages name its own units (millimetres, bar); a person typing US customary
+ * units gets the same rule in their units instead.
+ */
+export function fieldMessages(key: RequirementKey, messages: string[] | undefined, system: UnitSystem): string[] | undefined {
+  const field = REQUIREMENT_FIELDS[key];
+  if (!messages?.length || system === "metric" || field.kind !== "number" || !field.quantity) return messages;
+  const bounds = schemaBounds(key);
+  if (!bounds || bounds.min === null || bounds.max === null) return messages;
+  const show = (v: number) => displayValue(field, v, system);
+  return [`Enter a number between ${show(bounds.min)} and ${show(bounds.max)} ${unitLabel(field.quantity, system)}.`];
+}
+
+/** The axis the quick-sizing page opens with: a downstroking press, in the app's units. */
+export const EXAMPLE_AXIS = {
+  orientation: "vertical",
+  rodDirection: "down",
+  mounting: "pinned-pinned",
+  massKg: 800,
+  processForceN: 50_000,
+  frictionCoefficient: 0.1,
+  strokeMm: 500,
+  extendSpeedMmS: 100,
+  retractSpeedMmS: 150,
+  accelTimeS: 0.2,
+  cyclesPerHour: 60,
+  hoursPerDay: 16,
+  ambientC: 25,
+  supplyHz: 50,
+  maxPressureBar: 160,
+} as const satisfies RequirementsInput;
+
+/** A set of requirements (app units) as form values in the person's units. */
+export function toFormValues(input: Partial<Record<RequirementKey, string | number>>, system: UnitSystem): FormValues {
+  const values: FormValues = {};
+  for (const field of Object.values(REQUIREMENT_FIELDS)) {
+    const value = input[field.key];
+    if (value === undefined) continue;
+    values[field.key] = field.kind === "number" && typeof value === "number" ? displayValue(field, value, system) : String(value);
+  }
+  return values;
+}

@@ -1,0 +1,60 @@
+import { getFormProps, useForm } from "@conform-to/react";
+import { parseWithZod } from "@conform-to/zod/v4";
+import { Form, data } from "react-router";
+import type { Route } from "./+types/settings";
+import { requireUser } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { FieldErrors, TextField } from "~/components/form-field";
+import { Button, Card, PageHeader } from "~/components/ui";
+import { settingsSchema } from "~/schemas/account";
+import { updateSettings } from "~/services/accounts.server";
+import { UNIT_SYSTEMS, UNIT_SYSTEM_LABELS } from "~/units";
+
+export const meta: Route.MetaFunction = () => [{ title: "Your settings · Tenderflow" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  return { name: user.name, email: user.email, unitSystem: user.unitSystem };
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const user = await requireUser(request);
+  const submission = parseWithZod(await request.formData(), { schema: settingsSchema });
+  if (submission.status !== "success") return data(submission.reply(), { status: 400 });
+  await updateSettings(user, submission.value);
+  return redirectWithToast(request, "/settings", "Settings saved.");
+}
+
+export default function Settings({ loaderData, actionData }: Route.ComponentProps) {
+  const [form, fields] = useForm({
+    lastResult: actionData,
+    defaultValue: { name: loaderData.name, unitSystem: loaderData.unitSystem },
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: settingsSchema }),
+    shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
+  });
+  return (
+    <>
+      <PageHeader title="Your settings" lead={`Signed in as ${loaderData.email}.`} />
+      <Card className="max-w-xl">
+        <Form method="post" {...getFormProps(form)} className="space-y-5">
+          <TextField meta={fields.name} label="Your name" autoComplete="name" />
+          <fieldset aria-describedby={fields.unitSystem.errorId}>
+            <legend className="text-sm font-semibold text-ink-800">Units you work in</legend>
+            <p className="text-sm text-ink-600">Every form and circuit shows values in these units. Tenderflow stores them in SI.</p>
+            <div className="mt-2 flex flex-wrap gap-2">
+              {UNIT_SYSTEMS.map((system) => (
+                <label key={system} className="flex cursor-pointer items-center gap-2 rounded-md px-3 py-2 text-sm ring-1 ring-ink-200 has-[:checked]:bg-flow-50 has-[:checked]:ring-2 has-[:checked]:ring-flow-600">
+                  <input type="radio" name={fields.unitSystem.name} value={system} defaultChecked={fields.unitSystem.initialValue === system} className="accent-flow-600" />
+                  {UNIT_SYSTEM_LABELS[system]}
+                </label>
+              ))}
+            </div>
+            <FieldErrors id={fields.unitSystem.errorId} errors={fields.unitSystem.errors} />
+          </fieldset>
+          <Button type="submit">Save settings</Button>
+        </Form>
+      </Card>
+    </>
+  );
+}

@@ -1,0 +1,82 @@
+// `npm run bench`: how fast the engine sizes designs, and what the sizing API adds over a bare
+// JSON route on the same server. Prints figures and ratios measured in this run; asserts nothing
+// (targets belong here, not in timed tests that fail on a slow machine).
+import { mkdtempSync, rmSync, chmodSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import pg from "pg";
+import { Sequelize } from "sequelize";
+import { freePort, removeCluster, startCluster, stopCluster } from "../../db/cluster";
+import { migrator } from "../../db/migrator";
+import { run, serveBuild, stop } from "../../fakes/processes";
+import { REQUESTS } from "./mix";
+
+async function engine() {
+  console.log("\n== Sizing engine (one core, in process) ==");
+  await run("node_modules/.bin/tsx", ["tests/bench/engine.bench.ts"]);
+}
+
+function percentile(sorted: number[], p: number) {
+  return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
+}
+
+async function timeRequests(label: string, count: number, send: (i: number) => Promise<Response>) {
+  for (let i = 0; i < 30; i++) await (await send(i)).arrayBuffer(); // warm-up
+  const times: number[] = [];
+  for (let i = 0; i < count; i++) {
+    const start = performance.now();
+    const response = await send(i);
+    await response.arrayBuffer();
+    if (!response.ok) throw new Error(`${label}: status ${response.status}`);
+    times.push(performance.now() - start);
+  }
+  times.sort((a, b) => a - b);
+  const p50 = percentile(times, 50);
+  console.log(`${label.padEnd(28)} p50 ${p50.toFixed(2)} ms   p95 ${percentile(times, 95).toFixed(2)} ms   (${count} sequential requests)`);
+  return p50;
+}
+
+async function api() {
+  console.log("\n== Sizing API vs a bare JSON route (same server, loopback) ==");
+  const root = mkdtempSync(path.join(os.tmpdir(), "tenderflow-bench-"));
+  chmodSync(root, 0o755);
+  const cluster = startCluster({ dataDir: path.join(root, "pg"), port: await freePort(), ephemeral: true });
+  let server: Awaited<ReturnType<typeof serveBuild>> | undefined;
+  try {
+    const admin = new pg.Client({ connectionString: cluster.url() });
+    await admin.connect();
+    await admin.query("CREATE DATABASE bench");
+    await admin.end();
+    const db = new Sequelize(cluster.url("bench"), { dialect: "postgres", dialectModule: pg, logging: false });
+    await migrator(db).up();
+    await db.close();
+
+    await run("node_modules/.bin/react-router", ["build"], process.env, true);
+    const port = await freePort();
+    server = await serveBuild(port, {
+      ...process.env,
+      DATABASE_URL: cluster.url("bench"),
+      SESSION_SECRET: "benchmark-secret-benchmark-secret-0123",
+      SIZING_REQUESTS_PER_MINUTE: "1000000",
+    });
+    const base = `http://127.0.0.1:${port}`;
+    const count = 400;
+    const bare = await timeRequests("GET /api/v1/health", count, () => fetch(`${base}/api/v1/health`));
+    const sized = await timeRequests("POST /api/v1/sizing", count, (i) =>
+      fetch(`${base}/api/v1/sizing`, {
+        method: "POST",
+        headers: { "Content-Type": "application/json" },
+        body: JSON.stringify(REQUESTS[i % REQUESTS.length]),
+      }),
+    );
+    console.log(`ratio sizing / bare (p50): ${(sized / bare).toFixed(2)}×`);
+  } finally {
+    await stop(server);
+    stopCluster(cluster, "immediate");
+    removeCluster(cluster);
+    rmSync(root, { recursive: true, force: true });
+  }
+}
+
+await engine();
+await api();

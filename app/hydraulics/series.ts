@@ -8,6 +8,9 @@ export const ISO3320_BORES_MM: readonly number[] = [
   8, 10, 12, 16, 20, 25, 32, 40, 50, 63, 80, 100, 125, 160, 200, 250, 320, 400,
 ];
 
+/** ISO 3320 secondary bore diameters, mm [M]; ISO 6022 style pairings use 140 and 180. */
+export const ISO3320_SECONDARY_BORES_MM: readonly number[] = [90, 110, 140, 180, 220, 280, 360];
+
 /** ISO 3320 piston-rod diameters, mm [M]. */
 export const ISO3320_RODS_MM: readonly number[] = [
   4, 5, 6, 8, 10, 12, 14, 16, 18, 20, 22, 25, 28, 32, 36, 40, 45, 50, 56, 63, 70, 80, 90, 100,

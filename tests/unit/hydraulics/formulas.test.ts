@@ -1,0 +1,105 @@
+/** Formulas against textbook values and the check values in the shared sources note. */
+import { describe, expect, it } from "vitest";
+import { checkBuckling, eulerLoadN, rodInertiaMm4 } from "~/hydraulics/buckling";
+import { circleAreaMm2, cylinderForceN } from "~/hydraulics/cylinder";
+import {
+  frictionFactor, lineDiameterMm, lineVelocityMS, pressureLossBarPerM, reynoldsNumber, selectHose,
+} from "~/hydraulics/lines";
+import { hydraulicPowerKw, pumpDeliveryLpm, requiredDisplacementCc, synchronousSpeedRpm } from "~/hydraulics/pump-motor";
+import { tankSurfaceM2 } from "~/hydraulics/reservoir-heat";
+import { pilotOpeningBar, reliefSettingBar } from "~/hydraulics/valves";
+
+describe("Darcy–Weisbach check values (sources §8.3 [D]; 64/Re and Blasius, S7/S8 [S])", () => {
+  it("laminar: Q = 20 L/min, d = 10 mm, ν = 46 → v 4.24, Re 923, f 0.0694, Δp 0.544 bar/m", () => {
+    const fluid = { viscosityMm2S: 46, densityKgM3: 870 };
+    const v = lineVelocityMS(20, 10);
+    const re = reynoldsNumber(v, 10, 46);
+    expect(v).toBeCloseTo(4.24, 2);
+    expect(re).toBeCloseTo(923, 0);
+    expect(frictionFactor(re)).toBeCloseTo(0.0694, 4);
+    expect(pressureLossBarPerM(20, 10, fluid)).toBeCloseTo(0.544, 3);
+  });
+  it("turbulent: Q = 100 L/min, d = 16 mm, ν = 20 → v 8.29, Re 6630, f 0.0351, Δp 0.655 bar/m", () => {
+    const fluid = { viscosityMm2S: 20, densityKgM3: 870 };
+    const v = lineVelocityMS(100, 16);
+    const re = reynoldsNumber(v, 16, 20);
+    expect(v).toBeCloseTo(8.29, 2);
+    expect(re).toBeGreaterThan(6620);
+    expect(re).toBeLessThan(6640);
+    expect(frictionFactor(re)).toBeCloseTo(0.0351, 4);
+    expect(pressureLossBarPerM(100, 16, fluid)).toBeCloseTo(0.655, 3);
+  });
+});
+
+describe("line diameter d = 4.607·√(Q/v) (continuity, sources §8.1 [D])", () => {
+  it("matches the handy identity", () => {
+    for (const [q, v] of [[20, 5], [100, 3], [35, 1], [250, 5]]) {
+      expect(lineDiameterMm(q, v)).toBeCloseTo(4.607 * Math.sqrt(q / v), 2);
+    }
+  });
+  it("40 L/min at 5 m/s needs 13.03 mm → SAE J517 -10 (15.9 mm), since -8 is 12.7 mm", () => {
+    expect(lineDiameterMm(40, 5)).toBeCloseTo(13.03, 2);
+    expect(selectHose(lineDiameterMm(40, 5)).hose.dash).toBe(10);
+  });
+});
+
+describe("Euler buckling (Timoshenko & Gere [M]; E = 210 000 N/mm², EN 1993-1-1 [M])", () => {
+  it("a 40 mm rod over L_K = 1500 mm: I = 125 664 mm⁴, F_K = π²·E·I/L_K² = 115 758 N", () => {
+    // I = π·40⁴/64 = 125 663.7 mm⁴; F_K = 9.8696·210 000·125 663.7/1500² = 115 758 N
+    expect(rodInertiaMm4(40)).toBeCloseTo(125663.7, 0);
+    expect(eulerLoadN(210000, rodInertiaMm4(40), 1500)).toBeCloseTo((Math.PI ** 2 * 210000 * 125663.706) / 1500 ** 2, 0);
+    expect(eulerLoadN(210000, rodInertiaMm4(40), 1500)).toBeGreaterThan(115700);
+    expect(eulerLoadN(210000, rodInertiaMm4(40), 1500)).toBeLessThan(115800);
+  });
+  it("Euler case 1 (K = 2) carries a quarter of case 2 (K = 1) — the n = 0.25/1 form, S18 [S]", () => {
+    const case2 = checkBuckling(40, 1000, 1, 10000);
+    const case1 = checkBuckling(40, 1000, 2, 10000);
+    expect(case1.regime).toBe("Euler");
+    expect(case1.criticalLoadN / case2.criticalLoadN).toBeCloseTo(0.25, 6);
+  });
+  it("below λ₀ = 89 Tetmajer σ_K = 335 − 0.62·λ applies (Roloff/Matek [M])", () => {
+    // d = 50, L_K = 500 → λ = 4·500/50 = 40; σ_K = 335 − 24.8 = 310.2; F_K = 310.2·1963.5 = 609 078 N
+    const r = checkBuckling(50, 500, 1, 100000);
+    expect(r.slenderness).toBeCloseTo(40, 9);
+    expect(r.regime).toBe("Tetmajer");
+    expect(r.criticalLoadN).toBeCloseTo(310.2 * circleAreaMm2(50), 0);
+    expect(r.safetyFactor).toBeCloseTo(6.09, 2);
+  });
+});
+
+describe("pump and motor relations (textbook, Esposito [M]; electrical machines [D])", () => {
+  it("synchronous speed 120·f/p: 4-pole 1500 rpm at 50 Hz, 1800 rpm at 60 Hz", () => {
+    expect(synchronousSpeedRpm(50, 4)).toBe(1500);
+    expect(synchronousSpeedRpm(60, 4)).toBe(1800);
+    expect(synchronousSpeedRpm(50, 2)).toBe(3000);
+  });
+  it("P = p·Q/600: 100 bar at 60 L/min is 10 kW; 1 bar·L/min = 1.667 W", () => {
+    expect(hydraulicPowerKw(100, 60)).toBeCloseTo(10, 9);
+    expect(hydraulicPowerKw(1, 1) * 1000).toBeCloseTo(1.667, 3);
+  });
+  it("Q = V·n·η_v/1000 and its inverse: 20 cm³/rev at 1450 rpm, η_v 0.95 → 27.55 L/min", () => {
+    expect(pumpDeliveryLpm(20, 1450, 0.95)).toBeCloseTo(27.55, 9);
+    expect(requiredDisplacementCc(27.55, 1450, 0.95)).toBeCloseTo(20, 9);
+  });
+});
+
+describe("cylinder, valves, tank (textbook; sources §2, §5, §6, §9)", () => {
+  it("F = p·A/10·η: 100 bar on a 63 mm bore, η 0.95 → 29 614 N", () => {
+    // A = π·63²/4 = 3117.25 mm²; 100·3117.25/10·0.95 = 29 613.9 N
+    expect(cylinderForceN(100, circleAreaMm2(63), 0.95)).toBeCloseTo(29613.9, 0);
+  });
+  it("relief about 10 % above working pressure, rounded up to 5 bar [CP]", () => {
+    expect(reliefSettingBar(100)).toBe(110);
+    expect(reliefSettingBar(131.63)).toBe(145);
+  });
+  it("rod-side CBV opening, sources §6 full balance: p₁ = (p_set − p_L)/(R + φ)", () => {
+    // p_set 130, p_L 100, R 4.5, φ 2 → 30/6.5 = 4.615 bar
+    expect(pilotOpeningBar(130, 100, 4.5, 2)).toBeCloseTo(4.615, 3);
+    // cap side: 1/φ term, φ = 2 → 30/5 = 6 bar
+    expect(pilotOpeningBar(130, 100, 4.5, 0.5)).toBeCloseTo(6, 9);
+  });
+  it("cube-like tank: A ≈ 6·V^(2/3); a 1 m³ tank has 6 m² [D]", () => {
+    expect(tankSurfaceM2(1000)).toBeCloseTo(6, 9);
+    expect(tankSurfaceM2(125)).toBeCloseTo(1.5, 9);
+  });
+});

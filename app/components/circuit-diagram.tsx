@@ -1,0 +1,210 @@
+import { useId } from "react";
+import type { CircuitComponent, CircuitConnection, Design } from "~/hydraulics/design";
+import type { UnitSystem } from "~/units/systems";
+import { centreName, circuitDescription, circuitTitle, numberValue, textValue } from "./circuit-diagram/describe";
+import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
+import { BOX, CBV_HALF_W, DIAMOND, GAUGE_R, MOTOR_R, PUMP_R, RELIEF_BOX, TANK_H, layoutCircuit, type Layout } from "./circuit-diagram/layout";
+import { junctions, pathData, routeConnections, type Route } from "./circuit-diagram/routes";
+import {
+  Caption, CbvSymbol, CylinderSymbol, DASH, DcvSymbol, FilterSymbol, GaugeSymbol, MotorSymbol, PumpSymbol,
+  ReliefSymbol, STROKE, TankSymbol,
+} from "./circuit-diagram/symbols";
+
+/**
+ * The preliminary circuit as an ISO 1219-1 style diagram, drawn from `design.circuit`:
+ * only the components it lists, every connection it lists, and the valve's positions as the
+ * data gives them. Pure rendering (no effects, no browser APIs), so the server and the
+ * exports can render it with renderToStaticMarkup.
+ */
+export function CircuitDiagram({ design, units = "metric", className = "" }: { design: Design; units?: UnitSystem; className?: string }) {
+  const id = useId();
+  const { circuit } = design;
+  const layout = layoutCircuit(circuit);
+  const routes = routeConnections(circuit, layout);
+  const u = displayUnits(units);
+  const titleId = `${id}-title`;
+  const descId = `${id}-desc`;
+  return (
+    <svg
+      role="img"
+      aria-labelledby={`${titleId} ${descId}`}
+      viewBox={`0 0 ${layout.width} ${layout.height}`}
+      xmlns="http://www.w3.org/2000/svg"
+      fontFamily="'Open Sans', ui-sans-serif, system-ui, sans-serif"
+      className={`h-auto w-full text-ink-800 ${className}`}
+      data-circuit-diagram=""
+    >
+      <title id={titleId}>{circuitTitle(circuit)}</title>
+      <desc id={descId}>{circuitDescription(circuit, u)}</desc>
+      <rect x={0} y={0} width={layout.width} height={layout.height} fill="white" />
+      <Legend />
+      <g data-layer="lines">
+        {routes.map((r) => <Line key={`${r.connection.from}>${r.connection.to}`} route={r} />)}
+        {junctions(routes).map((p) => <circle key={`${p.x},${p.y}`} cx={p.x} cy={p.y} r={3} fill="currentColor" data-junction="" />)}
+      </g>
+      <g data-layer="tanks">
+        {routes.filter((r) => r.tankAt !== undefined).map((r) => (
+          <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={tankId(r.connection)} x={r.tankAt!} top={layout.tankY} />
+        ))}
+      </g>
+      <g data-layer="symbols">
+        {circuit.components.map((c) => <ComponentSymbol key={c.id} component={c} layout={layout} design={design} u={u} />)}
+      </g>
+    </svg>
+  );
+}
+
+const tankId = (c: CircuitConnection) => (c.from.startsWith("tank.") ? c.from : c.to).split(".")[0];
+
+/** Line weight and dash by what the line carries. */
+const LINE_STYLE: Record<CircuitConnection["line"], { width: number; dash?: string }> = {
+  pressure: { width: STROKE.heavy },
+  work: { width: STROKE.heavy },
+  return: { width: STROKE.thin },
+  suction: { width: STROKE.thin },
+  pilot: { width: STROKE.thin, dash: DASH.pilot },
+  shaft: { width: 6 },
+};
+
+function Line({ route }: { route: Route }) {
+  const { connection, points } = route;
+  const style = LINE_STYLE[connection.line];
+  const d = pathData(points);
+  return (
+    <>
+      <path
+        d={d} fill="none" stroke="currentColor" strokeWidth={style.width} strokeDasharray={style.dash}
+        strokeLinejoin="round" data-from={connection.from} data-to={connection.to} data-line={connection.line}
+      />
+      {/* a shaft is a double line: a white core inside a wide stroke */}
+      {connection.line === "shaft" ? <path d={d} fill="none" stroke="white" strokeWidth={2.4} aria-hidden="true" /> : null}
+    </>
+  );
+}
+
+function Legend() {
+  const rows: { label: string; line: CircuitConnection["line"] }[] = [
+    { label: "pressure and work lines", line: "pressure" },
+    { label: "return and suction lines", line: "return" },
+    { label: "pilot lines", line: "pilot" },
+    { label: "shaft", line: "shaft" },
+  ];
+  return (
+    <g data-legend="" fontSize={10.5}>
+      {rows.map((row, i) => {
+        const y = 22 + i * 16;
+        const style = LINE_STYLE[row.line];
+        return (
+          <g key={row.label}>
+            <line x1={20} y1={y} x2={56} y2={y} stroke="currentColor" strokeWidth={style.width} strokeDasharray={style.dash} />
+            {row.line === "shaft" ? <line x1={20} y1={y} x2={56} y2={y} stroke="white" strokeWidth={2.4} /> : null}
+            <text x={64} y={y + 3.5} fill="currentColor" className="fill-ink-600">{row.label}</text>
+          </g>
+        );
+      })}
+    </g>
+  );
+}
+
+function ComponentSymbol({ component: c, layout, design, u }: { component: CircuitComponent; layout: Layout; design: Design; u: DisplayUnits }) {
+  const at = layout.at[c.id];
+  if (!at) return null;
+  const v = (key: string, fmt: (x: number) => string) => {
+    const n = numberValue(c, key);
+    return n === undefined ? [] : [fmt(n)];
+  };
+  switch (c.kind) {
+    case "cylinder": {
+      const cyl = layout.cylinder;
+      const bore = numberValue(c, "boreMm");
+      const rod = numberValue(c, "rodMm");
+      const stroke = numberValue(c, "strokeMm");
+      const size = bore !== undefined && rod !== undefined
+        ? [`Ø${u.lengthValue(bore)} / Ø${u.lengthValue(rod)}${stroke !== undefined ? ` × ${u.lengthValue(stroke)}` : ""} ${u.lengthUnit}`]
+        : [];
+      return (
+        <>
+          <CylinderSymbol id={c.id} place={cyl} />
+          <Caption x={(cyl.left + cyl.right) / 2} y={cyl.top - 26} anchor="middle" name="Cylinder, bore / rod × stroke" values={size} />
+        </>
+      );
+    }
+    case "cbv": {
+      const pilotSide = layout.cbv?.pilotSide ?? "left";
+      const captionLeft = pilotSide === "right";
+      return (
+        <>
+          <CbvSymbol id={c.id} centre={at} pilotSide={pilotSide} />
+          <Caption
+            x={captionLeft ? at.x - CBV_HALF_W - 12 : at.x + CBV_HALF_W + 12} y={at.y - 20} anchor={captionLeft ? "end" : "start"}
+            name="Counterbalance valve"
+            values={[...v("settingBar", (p) => `set ${u.pressure(p)}`), ...v("pilotRatio", (r) => `pilot ratio ${r}:1`)]}
+          />
+        </>
+      );
+    }
+    case "dcv": {
+      const size = textValue(c, "iso4401Size");
+      const coil = textValue(c, "coilVoltage");
+      return (
+        <>
+          <DcvSymbol id={c.id} cx={layout.dcv.cx} top={layout.dcv.top} positions={design.circuit.dcvPositions} />
+          <Caption
+            x={layout.dcv.cx + BOX * 1.5 + 44} y={layout.dcv.top + 16} name="4/3 directional valve"
+            values={[size ? `ISO 4401-${size}` : "", centreName(textValue(c, "center")), coil ? `${coil} coils` : ""].filter(Boolean)}
+          />
+        </>
+      );
+    }
+    case "relief":
+      return (
+        <>
+          <ReliefSymbol id={c.id} centre={at} />
+          <Caption x={at.x - RELIEF_BOX / 2 - 22} y={at.y - 6} anchor="end" name="Relief valve" values={v("settingBar", (p) => `set ${u.pressure(p)}`)} />
+        </>
+      );
+    case "pump":
+      return (
+        <>
+          <PumpSymbol id={c.id} centre={at} />
+          <Caption
+            x={at.x + PUMP_R + 14} y={at.y - 8} name="Fixed pump"
+            values={[...v("displacementCcRev", u.displacement), ...v("flowLpm", u.flow)]}
+          />
+        </>
+      );
+    case "motor":
+      return (
+        <>
+          <MotorSymbol id={c.id} centre={at} />
+          <Caption
+            x={at.x - MOTOR_R - 12} y={at.y - 8} anchor="end" name="Motor"
+            values={[...v("ratedKw", u.power), ...v("speedRpm", (n) => `${n} rpm`)]}
+          />
+        </>
+      );
+    case "gauge":
+      return (
+        <>
+          <GaugeSymbol id={c.id} centre={at} />
+          <Caption x={at.x + GAUGE_R + 10} y={at.y - 3} name="Gauge" values={v("rangeBar", (r) => `0–${u.pressure(r)}`)} />
+        </>
+      );
+    case "filter":
+    case "strainer":
+      return (
+        <>
+          <FilterSymbol id={c.id} centre={at} kind={c.kind} />
+          <Caption
+            x={at.x + DIAMOND + 10} y={at.y - 3} name={c.kind === "filter" ? "Return filter" : "Suction strainer"}
+            values={v("ratedFlowLpm", (q) => `rated ${u.flow(q)}`)}
+          />
+        </>
+      );
+    case "tank":
+      // The tank symbols sit at the line ends; the reservoir's caption goes beside the suction tank.
+      return <Caption x={at.x + 28} y={layout.tankY + TANK_H - 2} name="Reservoir" values={v("volumeL", u.volume)} />;
+    default:
+      return null;
+  }
+}

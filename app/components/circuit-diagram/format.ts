@@ -1,0 +1,42 @@
+import { UNITS, formatQuantity, roundForDisplay, toDisplay, type UnitSystem } from "~/units";
+
+/**
+ * Display formatting for the diagram and the design panels. The engine works in the units its
+ * fields name (bar, mm, L/min…); conversions and unit labels come from app/units, so the
+ * diagram, the panels and the forms always agree.
+ */
+export interface DisplayUnits {
+  system: UnitSystem;
+  pressure(bar: number): string;
+  length(mm: number): string;
+  /** a diameter or length as a bare number, for compact forms such as Ø80 / Ø36 × 400 mm */
+  lengthValue(mm: number): string;
+  lengthUnit: string;
+  flow(lpm: number): string;
+  displacement(cm3PerRev: number): string;
+  volume(litres: number): string;
+  power(kw: number): string;
+}
+
+export function displayUnits(system: UnitSystem = "metric"): DisplayUnits {
+  const { decimals, label } = UNITS.diameter[system];
+  return {
+    system,
+    pressure: (bar) => formatQuantity("pressure", bar, system),
+    length: (mm) => formatQuantity("diameter", mm, system),
+    lengthValue: (mm) => String(roundForDisplay(toDisplay("diameter", mm, system), decimals)),
+    lengthUnit: label,
+    flow: (lpm) => formatQuantity("flow", lpm, system),
+    displacement: (cc) => formatQuantity("displacement", cc, system),
+    volume: (l) => formatQuantity("volume", l, system),
+    power: (kw) => formatQuantity("power", kw, system),
+  };
+}
+
+/** Rounds a value of any unit to a sensible number of figures for reading. */
+export function readable(value: number): string {
+  if (!Number.isFinite(value)) return String(value);
+  const abs = Math.abs(value);
+  const digits = Number.isInteger(value) || abs >= 100 ? 0 : abs >= 10 ? 1 : abs >= 1 ? 2 : 3;
+  return Number(value.toFixed(digits)).toLocaleString("en-GB", { maximumFractionDigits: digits });
+}

@@ -1,0 +1,303 @@
+import type { DcvPositions } from "~/hydraulics/design";
+import {
+  BOX, CBV_HALF_H, CBV_HALF_W, CBV_PILOT_DY, DIAMOND, GAUGE_R, MOTOR_R, PUMP_R, RELIEF_BOX, TANK_H, TANK_W,
+  type CylinderPlace, type Point,
+} from "./layout";
+import { blockedPorts, boxDrawing, pairsLabel } from "./valve-positions";
+
+/**
+ * ISO 1219-1 style symbols, drawn in Tenderflow's own line weights. Every symbol strokes in
+ * currentColor, so the diagram takes the ink colour of whatever page or export holds it.
+ */
+
+export const STROKE = { symbol: 1.6, thin: 1.1, heavy: 2 } as const;
+export const DASH = { pilot: "5 3", enclosure: "9 3 2 3", element: "3 2", strainer: "1 2.5" } as const;
+
+const outline = { fill: "none", stroke: "currentColor", strokeWidth: STROKE.symbol } as const;
+const thin = { fill: "none", stroke: "currentColor", strokeWidth: STROKE.thin } as const;
+const pilot = { ...thin, strokeDasharray: DASH.pilot } as const;
+
+const pts = (points: Point[]) => points.map((p) => `${p.x},${p.y}`).join(" ");
+
+/** Filled arrowhead at `to`, pointing away from `from`. */
+function ArrowHead({ from, to, length = 8, half = 3.5 }: { from: Point; to: Point; length?: number; half?: number }) {
+  const dx = to.x - from.x;
+  const dy = to.y - from.y;
+  const d = Math.hypot(dx, dy) || 1;
+  const ux = dx / d;
+  const uy = dy / d;
+  const base = { x: to.x - ux * length, y: to.y - uy * length };
+  const corners = [to, { x: base.x - uy * half, y: base.y + ux * half }, { x: base.x + uy * half, y: base.y - ux * half }];
+  return <polygon points={pts(corners)} fill="currentColor" stroke="none" />;
+}
+
+function Arrow({ from, to }: { from: Point; to: Point }) {
+  return (
+    <>
+      <line x1={from.x} y1={from.y} x2={to.x} y2={to.y} {...thin} />
+      <ArrowHead from={from} to={to} />
+    </>
+  );
+}
+
+/** A compression spring as a zigzag from a to b. */
+function Spring({ a, b, turns = 4, amplitude = 5 }: { a: Point; b: Point; turns?: number; amplitude?: number }) {
+  const dx = b.x - a.x;
+  const dy = b.y - a.y;
+  const d = Math.hypot(dx, dy) || 1;
+  const nx = -dy / d;
+  const ny = dx / d;
+  const points: Point[] = [a];
+  for (let i = 0; i < turns * 2; i++) {
+    const t = (i + 0.5) / (turns * 2);
+    const side = i % 2 === 0 ? 1 : -1;
+    points.push({ x: a.x + dx * t + nx * amplitude * side, y: a.y + dy * t + ny * amplitude * side });
+  }
+  points.push(b);
+  return <polyline points={pts(points)} {...thin} />;
+}
+
+/** The diagonal arrow that marks a spring as adjustable (a setting). */
+function Adjustable({ centre, span = 12 }: { centre: Point; span?: number }) {
+  const from = { x: centre.x - span, y: centre.y + span };
+  const to = { x: centre.x + span, y: centre.y - span };
+  return <Arrow from={from} to={to} />;
+}
+
+// ---- Text ---------------------------------------------------------------------------------
+
+type Anchor = "start" | "middle" | "end";
+
+/** A component's name and its values, one per line. */
+export function Caption({ x, y, anchor = "start", name, values }: { x: number; y: number; anchor?: Anchor; name: string; values: string[] }) {
+  return (
+    <text x={x} y={y} textAnchor={anchor} fontSize={11.5} fill="currentColor" stroke="none">
+      <tspan x={x} className="fill-ink-800" fontWeight={600}>{name}</tspan>
+      {values.map((v, i) => (
+        <tspan key={i} x={x} dy={14} className="fill-flow-700">{v}</tspan>
+      ))}
+    </text>
+  );
+}
+
+/** A port label as the trade marks it (P, T, A, B; 1, 2, 3; cap, rod). */
+export function PortLabel({ x, y, anchor = "middle", port, children }: { x: number; y: number; anchor?: Anchor; port: string; children: string }) {
+  return (
+    <text x={x} y={y} textAnchor={anchor} data-port={port} fontSize={11} fontWeight={700} fill="currentColor" stroke="none" className="fill-ink-600">
+      {children}
+    </text>
+  );
+}
+
+// ---- Actuator -------------------------------------------------------------------------------
+
+/** Double-acting single-rod cylinder: barrel, piston, rod leaving through the rod end. */
+export function CylinderSymbol({ id, place }: { id: string; place: CylinderPlace }) {
+  const { left, right, top, bottom, rodEnd } = place;
+  const midY = (top + bottom) / 2;
+  const pistonX = left + (right - left) * 0.3;
+  const rodHalf = 6;
+  return (
+    <g data-component={id} data-kind="cylinder">
+      <rect x={left} y={top} width={right - left} height={bottom - top} {...outline} />
+      <rect x={pistonX - 3} y={top} width={6} height={bottom - top} fill="currentColor" stroke="none" />
+      {/* the white rod body hides the end wall where the rod passes through the gland */}
+      <rect x={pistonX + 3} y={midY - rodHalf} width={rodEnd - pistonX - 3} height={rodHalf * 2} fill="white" {...{ stroke: "currentColor", strokeWidth: STROKE.symbol }} />
+      <line x1={right} y1={top} x2={right} y2={midY - rodHalf} {...outline} />
+      <line x1={right} y1={midY + rodHalf} x2={right} y2={bottom} {...outline} />
+      <PortLabel x={place.capX - 7} y={bottom + 15} anchor="end" port={`${id}.cap`}>cap</PortLabel>
+      <PortLabel x={place.rodX + 7} y={bottom + 15} anchor="start" port={`${id}.rod`}>rod</PortLabel>
+    </g>
+  );
+}
+
+// ---- Valves ---------------------------------------------------------------------------------
+
+/**
+ * Counterbalance valve: a pilot-assisted, normally closed pressure valve (1 → 2) with its
+ * integral check in parallel (free flow 2 → 1), drawn in a dash-dot enclosure. Inside, the
+ * pressure element's spring is on the far side from the pilots; `pilotSide` says which wall
+ * port 3 is on, so the pilot line runs straight to the opposite work line.
+ */
+export function CbvSymbol({ id, centre, pilotSide }: { id: string; centre: Point; pilotSide: "left" | "right" }) {
+  // Local geometry is drawn with the pilot wall on the left; s mirrors it for the right.
+  const s = pilotSide === "left" ? 1 : -1;
+  const P = (x: number, y: number): Point => ({ x: centre.x + s * x, y: centre.y + y });
+  const L = (...points: [number, number][]) => <polyline points={pts(points.map(([x, y]) => P(x, y)))} {...outline} />;
+  const valveX = -16;
+  const checkX = 44;
+  const half = RELIEF_BOX / 2;
+  const square = [P(valveX - half, -half), P(valveX + half, half)];
+  const ballY = -4;
+  const ballR = 6;
+  const far = (x: number): Anchor => (s * x > 0 ? "start" : "end");
+  return (
+    <g data-component={id} data-kind="cbv">
+      <rect
+        x={centre.x - CBV_HALF_W} y={centre.y - CBV_HALF_H} width={CBV_HALF_W * 2} height={CBV_HALF_H * 2}
+        {...thin} strokeDasharray={DASH.enclosure}
+      />
+      {L([0, -CBV_HALF_H], [0, -40])}
+      {L([0, CBV_HALF_H], [0, 40])}
+      {L([valveX, -40], [checkX, -40])}
+      {L([valveX, 40], [checkX, 40])}
+      {/* pressure element, normally closed: the flow arrow stands off the port line */}
+      {L([valveX, -40], [valveX, -half])}
+      {L([valveX, half], [valveX, 40])}
+      <rect
+        x={Math.min(square[0].x, square[1].x)} y={centre.y - half} width={RELIEF_BOX} height={RELIEF_BOX}
+        {...outline} fill="white"
+      />
+      <Arrow from={P(valveX + 8, -13)} to={P(valveX + 8, 13)} />
+      <Spring a={P(valveX + half, 0)} b={P(valveX + half + 22, 0)} />
+      <Adjustable centre={P(valveX + half + 11, 0)} span={10} />
+      {/* integral check: ball on its seat, free flow from 2 up to 1 */}
+      {L([checkX, 40], [checkX, ballY + 13])}
+      {L([checkX - 8, ballY + 1], [checkX, ballY + 13], [checkX + 8, ballY + 1])}
+      <circle cx={P(checkX, 0).x} cy={centre.y + ballY} r={ballR} {...outline} />
+      {L([checkX, ballY - ballR], [checkX, -40])}
+      {/* pilots on the side opposite the spring: internal from port 1, external from port 3 */}
+      <polyline points={pts([P(valveX, -30), P(-46, -30), P(-46, -6), P(valveX - half, -6)])} {...pilot} />
+      <polyline points={pts([P(-CBV_HALF_W, CBV_PILOT_DY), P(valveX - half, CBV_PILOT_DY)])} {...pilot} />
+      <circle cx={P(0, -40).x} cy={centre.y - 40} r={2.4} fill="currentColor" />
+      <circle cx={P(0, 40).x} cy={centre.y + 40} r={2.4} fill="currentColor" />
+      <PortLabel x={P(7, 0).x} y={centre.y - CBV_HALF_H - 6} anchor={far(7)} port={`${id}.1`}>1</PortLabel>
+      <PortLabel x={P(7, 0).x} y={centre.y + CBV_HALF_H + 15} anchor={far(7)} port={`${id}.2`}>2</PortLabel>
+      <PortLabel x={P(-CBV_HALF_W - 6, 0).x} y={centre.y + CBV_PILOT_DY - 5} anchor={far(-1)} port={`${id}.3`}>3</PortLabel>
+    </g>
+  );
+}
+
+/** Pressure-relief valve: normally closed, spring set, piloted from its inlet (1, top) to tank (2). */
+export function ReliefSymbol({ id, centre }: { id: string; centre: Point }) {
+  const half = RELIEF_BOX / 2;
+  const { x, y } = centre;
+  return (
+    <g data-component={id} data-kind="relief">
+      <rect x={x - half} y={y - half} width={RELIEF_BOX} height={RELIEF_BOX} {...outline} fill="white" />
+      <Arrow from={{ x: x + 8, y: y - 13 }} to={{ x: x + 8, y: y + 13 }} />
+      <Spring a={{ x: x + half, y }} b={{ x: x + half + 24, y }} />
+      <Adjustable centre={{ x: x + half + 12, y }} span={10} />
+      <polyline points={pts([{ x, y: y - half - 8 }, { x: x - half - 12, y: y - half - 8 }, { x: x - half - 12, y }, { x: x - half, y }])} {...pilot} />
+      <circle cx={x} cy={y - half - 8} r={2.4} fill="currentColor" />
+    </g>
+  );
+}
+
+/**
+ * 4/3 directional valve, solenoid operated and spring centred. Each box is drawn from the
+ * port pairs of its position; the work and supply lines meet the centre box.
+ */
+export function DcvSymbol({ id, cx, top, positions }: { id: string; cx: number; top: number; positions: DcvPositions }) {
+  const boxes = [
+    { position: "left", x: cx - BOX * 1.5, pairs: positions.left, style: "arrows" },
+    { position: "center", x: cx - BOX / 2, pairs: positions.center, style: "passages" },
+    { position: "right", x: cx + BOX / 2, pairs: positions.right, style: "arrows" },
+  ] as const;
+  const leftEnd = cx - BOX * 1.5;
+  const rightEnd = cx + BOX * 1.5;
+  const solenoid = { w: 22, h: 26, y: top + 8 };
+  const springY = top + BOX - 16;
+  return (
+    <g data-component={id} data-kind="dcv">
+      {boxes.map(({ position, x, pairs, style }) => {
+        const drawing = boxDrawing(pairs, style);
+        const at = (p: Point): Point => ({ x: x + p.x, y: top + p.y });
+        return (
+          <g key={position} data-position={position} data-paths={pairsLabel(pairs)} data-blocked={blockedPorts(pairs).join(",")}>
+            <rect x={x} y={top} width={BOX} height={BOX} {...outline} />
+            {drawing.arrows.map((a, i) => <Arrow key={`a${i}`} from={at(a.from)} to={at(a.to)} />)}
+            {drawing.passages.map((line, i) => <polyline key={`p${i}`} points={pts(line.map(at))} {...thin} />)}
+            {drawing.dots.map((d, i) => <circle key={`d${i}`} cx={at(d).x} cy={at(d).y} r={2.2} fill="currentColor" />)}
+            {drawing.blocked.map(({ port, at: p }) => {
+              const inward = p.y === 0 ? 11 : -11;
+              const end = at({ x: p.x, y: p.y + inward });
+              return (
+                <g key={port} data-blocked-port={port}>
+                  <line x1={at(p).x} y1={at(p).y} x2={end.x} y2={end.y} {...thin} />
+                  <line x1={end.x - 6} y1={end.y} x2={end.x + 6} y2={end.y} {...outline} />
+                </g>
+              );
+            })}
+          </g>
+        );
+      })}
+      {/* solenoid a drives the left box in (extend), solenoid b the right (retract) */}
+      {[
+        { x: leftEnd - solenoid.w, springTo: leftEnd - 24, from: leftEnd, label: "a", lx: leftEnd - solenoid.w - 5, anchor: "end" as const },
+        { x: rightEnd, springTo: rightEnd + 24, from: rightEnd, label: "b", lx: rightEnd + solenoid.w + 5, anchor: "start" as const },
+      ].map((end) => (
+        <g key={end.label} data-actuator={`solenoid-${end.label}`}>
+          <rect x={end.x} y={solenoid.y} width={solenoid.w} height={solenoid.h} {...outline} />
+          <line x1={end.x} y1={solenoid.y + solenoid.h} x2={end.x + solenoid.w} y2={solenoid.y} {...thin} />
+          <Spring a={{ x: end.from, y: springY }} b={{ x: end.springTo, y: springY }} turns={3} amplitude={5} />
+          <text x={end.lx} y={solenoid.y + 17} textAnchor={end.anchor} fontSize={11} fontStyle="italic" fill="currentColor" className="fill-ink-600">{end.label}</text>
+        </g>
+      ))}
+      <PortLabel x={cx - BOX / 2 + 12} y={top - 6} anchor="end" port={`${id}.A`}>A</PortLabel>
+      <PortLabel x={cx + BOX / 2 - 12} y={top - 6} anchor="start" port={`${id}.B`}>B</PortLabel>
+      <PortLabel x={cx - BOX / 2 + 12} y={top + BOX + 15} anchor="end" port={`${id}.P`}>P</PortLabel>
+      <PortLabel x={cx + BOX / 2 - 12} y={top + BOX + 15} anchor="start" port={`${id}.T`}>T</PortLabel>
+    </g>
+  );
+}
+
+// ---- Power unit -----------------------------------------------------------------------------
+
+/** Fixed-displacement pump: one filled triangle pointing out at the outlet. */
+export function PumpSymbol({ id, centre }: { id: string; centre: Point }) {
+  const { x, y } = centre;
+  const tip = { x, y: y - PUMP_R };
+  return (
+    <g data-component={id} data-kind="pump">
+      <circle cx={x} cy={y} r={PUMP_R} {...outline} fill="white" />
+      <polygon points={pts([tip, { x: x - 8, y: y - PUMP_R + 13 }, { x: x + 8, y: y - PUMP_R + 13 }])} fill="currentColor" />
+    </g>
+  );
+}
+
+export function MotorSymbol({ id, centre }: { id: string; centre: Point }) {
+  return (
+    <g data-component={id} data-kind="motor">
+      <circle cx={centre.x} cy={centre.y} r={MOTOR_R} {...outline} fill="white" />
+      <text x={centre.x} y={centre.y + 6} textAnchor="middle" fontSize={17} fontWeight={700} fill="currentColor">M</text>
+    </g>
+  );
+}
+
+/** Pressure gauge: a circle with a pointer arrow across it. */
+export function GaugeSymbol({ id, centre }: { id: string; centre: Point }) {
+  const r = GAUGE_R;
+  const k = r * 0.8;
+  return (
+    <g data-component={id} data-kind="gauge">
+      <circle cx={centre.x} cy={centre.y} r={r} {...outline} fill="white" />
+      <Arrow from={{ x: centre.x - k, y: centre.y + k }} to={{ x: centre.x + k, y: centre.y - k }} />
+    </g>
+  );
+}
+
+/** Filter or strainer: a diamond across the flow with its element line (dashed or dotted). */
+export function FilterSymbol({ id, centre, kind }: { id: string; centre: Point; kind: "filter" | "strainer" }) {
+  const { x, y } = centre;
+  const d = DIAMOND;
+  return (
+    <g data-component={id} data-kind={kind}>
+      <polygon points={pts([{ x, y: y - d }, { x: x + d, y }, { x, y: y + d }, { x: x - d, y }])} {...outline} fill="white" />
+      <line
+        x1={x - d} y1={y} x2={x + d} y2={y} {...thin}
+        strokeDasharray={kind === "filter" ? DASH.element : DASH.strainer}
+        strokeWidth={kind === "filter" ? STROKE.thin : STROKE.symbol}
+      />
+    </g>
+  );
+}
+
+/** Reservoir at atmospheric pressure: an open-top box; the line ends below its rim. */
+export function TankSymbol({ id, x, top }: { id: string; x: number; top: number }) {
+  return (
+    <g data-component={id} data-kind="tank">
+      <polyline points={pts([{ x: x - TANK_W / 2, y: top }, { x: x - TANK_W / 2, y: top + TANK_H }, { x: x + TANK_W / 2, y: top + TANK_H }, { x: x + TANK_W / 2, y: top }])} {...outline} />
+    </g>
+  );
+}

@@ -1,0 +1,183 @@
+import { CIRCUIT_CAUTIONS } from "~/content/cautions";
+import type { BomLine, Design, TrailEntry, Warning } from "~/hydraulics/design";
+import type { TrailInput } from "~/hydraulics/trail";
+import type { UnitSystem } from "~/units";
+import { centreName } from "./circuit-diagram/describe";
+import { displayUnits, readable } from "./circuit-diagram/format";
+import { Badge, Card, Notice } from "./ui";
+
+/**
+ * The panels beside the circuit diagram: headline sizes, warnings, cautions, the bill of
+ * materials and the calculation trail. They only read a Design, so the design page, the
+ * quick-sizing page and the review step show the same thing.
+ */
+
+const cell = "px-3 py-2 align-top";
+const headCell = `${cell} text-xs font-semibold uppercase tracking-wide text-ink-600`;
+
+/** "3:1", "90°", "12 bar": a value with the engine's unit, "-" meaning no unit. */
+function withUnit(value: number | string, unit: string): string {
+  const shown = typeof value === "number" ? readable(value) : value;
+  if (!unit || unit === "-") return shown;
+  return /^[:°%]/.test(unit) ? `${shown}${unit}` : `${shown} ${unit}`;
+}
+
+// ---- Key sizes ------------------------------------------------------------------------------
+
+export function KeySizes({ design, units = "metric" }: { design: Design; units?: UnitSystem }) {
+  const u = displayUnits(units);
+  const { cylinder: c, pressuresBar: p, counterbalance: cb, directionalValve: dv } = design;
+  const items: { label: string; value: string; detail?: string }[] = [
+    { label: "Bore / rod", value: `Ø${u.lengthValue(c.boreMm)} / Ø${u.lengthValue(c.rodMm)} ${u.lengthUnit}`, detail: `stroke ${u.length(c.strokeMm)}` },
+    { label: "Extend pressure", value: u.pressure(p.extend), detail: "at the pump" },
+    { label: "Retract pressure", value: u.pressure(p.retract), detail: "at the pump" },
+    { label: "Pump flow", value: u.flow(design.flowsLpm.pump), detail: `${u.displacement(design.pump.displacementCcRev)} at ${design.pump.speedRpm} rpm` },
+    { label: "Motor rating", value: u.power(design.motor.ratedKw), detail: `needs ${u.power(design.motor.requiredKw)}` },
+    { label: "Relief setting", value: u.pressure(p.reliefSetting) },
+  ];
+  if (cb) {
+    items.push({ label: "Counterbalance setting", value: u.pressure(cb.settingBar), detail: `${cb.side} side, pilot ratio ${cb.pilotRatio}:1` });
+  }
+  items.push(
+    { label: "Directional valve", value: `ISO 4401-${dv.iso4401Size}`, detail: centreName(dv.center) },
+    { label: "Reservoir", value: u.volume(design.reservoir.volumeL) },
+    { label: "Average heat", value: u.power(design.heat.averageLossKw), detail: design.heat.coolerKw > 0 ? `cooler ${u.power(design.heat.coolerKw)}` : "tank sheds it" },
+  );
+  return (
+    <Card>
+      <h2 className="mb-3 font-semibold text-ink-900">Key sizes</h2>
+      <dl className="grid grid-cols-2 gap-x-6 gap-y-3 sm:grid-cols-3">
+        {items.map((item) => (
+          <div key={item.label} data-key-size={item.label}>
+            <dt className="text-xs text-ink-600">{item.label}</dt>
+            <dd className="text-lg font-semibold text-ink-900">{item.value}</dd>
+            {item.detail ? <dd className="text-xs text-ink-600">{item.detail}</dd> : null}
+          </div>
+        ))}
+      </dl>
+    </Card>
+  );
+}
+
+// ---- Warnings -------------------------------------------------------------------------------
+
+export function WarningsList({ warnings }: { warnings: Warning[] }) {
+  return (
+    <Card>
+      <h2 className="mb-3 font-semibold text-ink-900">
+        Warnings {warnings.length ? <Badge tone="warn">{warnings.length}</Badge> : null}
+      </h2>
+      {warnings.length === 0 ? (
+        <Notice tone="good">No warnings: nothing in this design is flagged for a reviewer beyond the cautions.</Notice>
+      ) : (
+        <ul className="space-y-2">
+          {warnings.map((w, i) => (
+            <li key={`${w.code}-${i}`} data-warning={w.code} className="rounded-md border-l-4 border-signal-500 bg-signal-50 px-4 py-3 text-sm">
+              <code className="block text-xs font-semibold tracking-wide text-signal-700">{w.code}</code>
+              <p className="mt-1 text-ink-800">{w.message}</p>
+            </li>
+          ))}
+        </ul>
+      )}
+    </Card>
+  );
+}
+
+// ---- Cautions -------------------------------------------------------------------------------
+
+export function CautionsPanel() {
+  return (
+    <Card className="border-l-4 border-alarm-600">
+      <h2 className="mb-3 font-semibold text-ink-900">Before anyone builds this</h2>
+      <ul className="list-disc space-y-1.5 pl-5 text-sm text-ink-800 marker:text-alarm-600">
+        {CIRCUIT_CAUTIONS.map((text) => <li key={text}>{text}</li>)}
+      </ul>
+    </Card>
+  );
+}
+
+// ---- Bill of materials ----------------------------------------------------------------------
+
+function rating(line: BomLine): string {
+  return `${withUnit(line.rating.value, line.rating.unit)} ${line.rating.label}`;
+}
+
+export function ComponentTable({ design }: { design: Design }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-left text-sm">
+        <caption className="sr-only">Bill of materials: one line per component</caption>
+        <thead className="border-b border-ink-200">
+          <tr>
+            <th scope="col" className={headCell}>Item</th>
+            <th scope="col" className={`${headCell} text-right`}>Qty</th>
+            <th scope="col" className={headCell}>Specification</th>
+            <th scope="col" className={headCell}>Rating</th>
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-ink-100">
+          {design.bom.map((line) => (
+            <tr key={line.key} data-bom-key={line.key}>
+              <th scope="row" className={`${cell} font-semibold text-ink-900`}>{line.item}</th>
+              <td className={`${cell} text-right tabular-nums`}>{line.quantity}</td>
+              <td className={`${cell} text-ink-700`}>{line.specification}</td>
+              <td className={`${cell} whitespace-nowrap text-ink-700`}>{rating(line)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+// ---- Calculation trail ----------------------------------------------------------------------
+
+function Inputs({ inputs }: { inputs: Record<string, TrailInput> }) {
+  const entries = Object.entries(inputs);
+  if (!entries.length) return <span className="text-ink-400">none</span>;
+  return (
+    <ul className="space-y-0.5">
+      {entries.map(([name, input]) => (
+        <li key={name} className="whitespace-nowrap">
+          <span className="font-mono">{name}</span> = {withUnit(input.value, input.unit)}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/** Every number the engine reached, in the order it reached them, with formula and source. */
+export function CalculationTrail({ trail }: { trail: TrailEntry[] }) {
+  return (
+    <details open className="group">
+      <summary className="cursor-pointer text-sm font-semibold text-flow-700">
+        {trail.length} calculation steps, each with its formula, inputs and source
+      </summary>
+      <div className="mt-3 overflow-x-auto">
+        <table className="w-full text-left text-sm">
+          <caption className="sr-only">Calculation trail</caption>
+          <thead className="border-b border-ink-200">
+            <tr>
+              <th scope="col" className={headCell}>Quantity</th>
+              <th scope="col" className={`${headCell} text-right`}>Value</th>
+              <th scope="col" className={headCell}>Formula</th>
+              <th scope="col" className={headCell}>Inputs</th>
+              <th scope="col" className={headCell}>Source</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-ink-100">
+            {trail.map((entry, i) => (
+              <tr key={i} data-trail-row="">
+                <th scope="row" className={`${cell} font-semibold text-ink-900`}>{entry.quantity}</th>
+                <td className={`${cell} whitespace-nowrap text-right tabular-nums text-flow-700`}>{withUnit(entry.value, entry.unit)}</td>
+                <td className={`${cell} font-mono text-xs text-ink-800`}>{entry.formula}</td>
+                <td className={`${cell} text-xs text-ink-700`}><Inputs inputs={entry.inputs} /></td>
+                <td className={`${cell} text-xs text-ink-600`}>{entry.source}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </details>
+  );
+}

@@ -57,7 +57,7 @@ export const ASSUMPTIONS = {
   // Valves and settings
   reliefMargin: a(0.1, "-", "relief set about 10 % above the highest working pressure; common practice [CP]"),
   reliefRoundingBar: a(5, "bar", "relief setting rounded up to a whole 5 bar; our convention"),
-  cbvMinimumSettingBar: a(20, "bar", "floor for a very light load, so the valve still closes firmly against surges and the rod's own weight; our convention"),
+  cbvLowSettingBar: a(20, "bar", "a counterbalance setting below this is flagged for review: the load is light and the valve must still hold the rod and tooling against surges; our convention"),
   cbvSettingFactor: a(1.3, "-", "counterbalance setting ≈ 1.3 × load-induced pressure (1.2–1.5); valve makers' notes, common practice [CP]"),
   valveFlowUse: a(0.8, "-", "directional valve used at ≤ 80 % of its typical maximum flow; common practice [CP]"),
   coilVoltage: a(24, "V DC", "solenoid coil voltage, the usual machine-control supply; common practice [CP]"),

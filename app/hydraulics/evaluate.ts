@@ -5,7 +5,7 @@
 import { A } from "./assumptions";
 import { EULER_CASES, bucklingLengthMm, checkBuckling, type BucklingResult } from "./buckling";
 import { cylinderSeriesFor, type CylinderCandidate } from "./cylinder";
-import { DEFAULT_FLUID, lineLossBar, sizeLine, type Fluid, type LineSizing } from "./lines";
+import { DEFAULT_FLUID, budgetLossBarPerM, lineLossBar, sizeLine, type Fluid, type LineSizing } from "./lines";
 import {
   accelerationForceN, axisLoads, extendForces, pressForceN, retractForces, type AxisLoads, type StrokeForces,
 } from "./loads";
@@ -124,7 +124,19 @@ export interface Evaluation {
   bucklingOk: boolean;
 }
 
-export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate): Evaluation {
+/**
+ * Loss in a line at a flow. With `budget` the search's monotone bound is used instead (see
+ * budgetLossBarPerM), at the line's sizing flow, which is at least the flow in question.
+ */
+function lineLoss(line: LineSizing, flowLpm: number, fluid: Fluid, budget: boolean): number {
+  return budget ? budgetLossBarPerM(line, fluid) * line.lengthM : lineLossBar(line, flowLpm, fluid);
+}
+
+/**
+ * Evaluates one pair. `budget` = true is the search mode: line losses are bounded from above so
+ * that more flow never makes a pair look better; false gives the actual losses for reporting.
+ */
+export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, budget = false): Evaluation {
   const { req, loads, fluid } = ctx;
   const eta = A.cylinderEfficiency.value;
   const etaV = A.volumetricEfficiency.value;
@@ -161,13 +173,15 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate): E
   const dcv = A.dcvPathDropBar.value;
   const filter = A.returnFilterDropBar.value;
   const check = A.cbvCheckDropBar.value;
+  const pressureLine = lineLoss(lines.pressure, qp, fluid, budget);
   const extendSupplyLossBar =
-    lines.pressure.pressureLossBar + dcv + lineLossBar(lines.capWork, qp, fluid) + (ctx.cbvSide === "cap" ? check : 0);
+    pressureLine + dcv + lineLoss(lines.capWork, qp, fluid, budget) + (ctx.cbvSide === "cap" ? check : 0);
   const extendBackBar =
-    lineLossBar(lines.rodWork, qp / phi, fluid) + dcv + lineLossBar(lines.return, qp / phi, fluid) + filter;
+    lineLoss(lines.rodWork, qp / phi, fluid, budget) + dcv + lineLoss(lines.return, qp / phi, fluid, budget) + filter;
   const retractSupplyLossBar =
-    lines.pressure.pressureLossBar + dcv + lines.rodWork.pressureLossBar + (ctx.cbvSide === "rod" ? check : 0);
-  const retractBackBar = lines.capWork.pressureLossBar + dcv + lines.return.pressureLossBar + filter;
+    pressureLine + dcv + lineLoss(lines.rodWork, qp, fluid, budget) + (ctx.cbvSide === "rod" ? check : 0);
+  const retractBackBar =
+    lineLoss(lines.capWork, qp * phi, fluid, budget) + dcv + lineLoss(lines.return, qp * phi, fluid, budget) + filter;
 
   // Counterbalance on the side the load pressurises; its setting is from the static load.
   let cbv: CbvEvaluation | null = null;
@@ -186,12 +200,18 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate): E
   const rodCbv = cbv && cbv.side === "rod" ? { settingBar: cbv.settingBar, ratio: cbv.ratio } : undefined;
   const capCbv = cbv && cbv.side === "cap" ? { settingBar: cbv.settingBar, ratio: cbv.ratio } : undefined;
 
-  const extendInletBar = cylinderInletBar(hydraulicForceN(extend.movingN, eta), a1, a3, extendBackBar, rodCbv);
+  let extendInletBar = cylinderInletBar(hydraulicForceN(extend.movingN, eta), a1, a3, extendBackBar, rodCbv);
+  let retractInletBar = cylinderInletBar(hydraulicForceN(retract.movingN, eta), a3, a1, retractBackBar, capCbv);
+  if (budget) {
+    // Search only: on a lowering stroke do not credit the load for pushing the oil out through
+    // a wide-open valve, so a heavier load never makes a pair look better.
+    if (rodCbv) extendInletBar = Math.max(extendInletBar, cylinderInletBar(0, a1, a3, extendBackBar));
+    if (capCbv) retractInletBar = Math.max(retractInletBar, cylinderInletBar(0, a3, a1, retractBackBar));
+  }
   const extendMovingBar = extendInletBar + extendSupplyLossBar;
   // Pressing happens at (near) standstill: no flow, so no line or valve losses.
   const extendPressBar = cylinderInletBar(hydraulicForceN(pressN, eta), a1, a3, 0, rodCbv);
   const extendBar = Math.max(extendMovingBar, extendPressBar);
-  const retractInletBar = cylinderInletBar(hydraulicForceN(retract.movingN, eta), a3, a1, retractBackBar, capCbv);
   const retractBar = retractInletBar + retractSupplyLossBar;
   const extendSteadyInlet = cylinderInletBar(hydraulicForceN(extend.steadyN, eta), a1, a3, extendBackBar, rodCbv);
   const retractSteadyInlet = cylinderInletBar(hydraulicForceN(retract.steadyN, eta), a3, a1, retractBackBar, capCbv);

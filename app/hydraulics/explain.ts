@@ -60,7 +60,7 @@ export function explain(
     gSign > 0 ? "F = F_f + G + F_a (rod up: the load is lifted)" : gSign < 0 ? "F = F_f − G + F_a (rod down: the load pulls)" : "F = F_f + F_a",
     { F_f: v(L.frictionN, "N"), G: v(L.gravityAlongAxisN, "N"), F_a: v(L.accelExtendN, "N") }, "force balance along the axis [D]");
   t.add("extend force needed while pressing", L.extendPressN, "N",
-    "F = F_process + F_f ± G (acts at the end of the stroke, after acceleration)",
+    "F = F_process + F_f + G if the weight resists (a weight that helps is not counted); acts at the end of the stroke, after acceleration",
     { F_process: v(L.processForceN, "N"), F_f: v(L.frictionN, "N"), G: v(L.gravityAlongAxisN, "N") }, "force balance along the axis [D]");
   t.add("retract force needed while accelerating", L.retractMovingN, "N",
     gSign < 0 ? "F = F_f + G + F_a (rod down: retracting lifts the load)" : gSign > 0 ? "F = F_f − G + F_a (rod up: the load pulls)" : "F = F_f + F_a",
@@ -136,7 +136,7 @@ export function explain(
       { overrunningStroke: v(cb.stroke, "-") }, "sizing contract; ISO 4413 load holding [M]");
     t.add("counterbalance load pressure", cb.loadPressureBar, "bar", "p_L = 10·G / A at the valve port (load at rest)",
       { G: v(L.gravityAlongAxisN, "N"), A: v(outletArea, "mm²") }, "force balance [D]");
-    t.add("counterbalance setting", cb.settingBar, "bar", `p_set = max(1.3·p_L, ${A.cbvMinimumSettingBar.value} bar)`,
+    t.add("counterbalance setting", cb.settingBar, "bar", "p_set = 1.3·p_L",
       { p_L: v(cb.loadPressureBar, "bar"), factor: v(A.cbvSettingFactor.value, "-") }, "valve makers' application notes, common practice [CP]");
     t.add("pilot ratio", cb.pilotRatio, ":1", `3:1 variable or high-inertia, 4.5:1 general, 8:1 stable — ${cb.pilotRatioReason}`,
       { inertia_ratio: v(ctx.inertiaRatio, "-"), processForce: v(r.processForceN, "N") }, "ratio classes common practice [CP]; class thresholds our rule");

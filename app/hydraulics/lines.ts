@@ -87,3 +87,34 @@ export function sizeLine(flowLpm: number, velocityLimitMS: number, lengthM: numb
 /** Loss in an already sized line at another flow. */
 export const lineLossBar = (line: LineSizing, flowLpm: number, fluid: Fluid): number =>
   pressureLossBarPerM(flowLpm, line.innerDiameterMm, fluid) * line.lengthM;
+
+/**
+ * Loss per metre the sizing search budgets for a line: the larger of its actual loss and the
+ * worst loss any smaller hose reaches at the velocity limit. Stepping up a hose size can lower
+ * the actual loss, so the actual loss alone would let a faster axis pass with a smaller
+ * cylinder; this bound only grows with flow and is never below the actual loss.
+ */
+export function budgetLossBarPerM(line: LineSizing, fluid: Fluid): number {
+  const peaks = peakLossTable(line.velocityLimitMS, fluid);
+  const index = SAE_J517_HOSES.findIndex((h) => h.dash === line.dashSize);
+  return Math.max(line.pressureLossBarPerM, index > 0 ? peaks[index - 1] : 0);
+}
+
+interface PeakTable { velocity: number; viscosity: number; density: number; cumulative: number[] }
+const PEAK_TABLES: PeakTable[] = [];
+
+/** Running maximum, over the hose sizes in order, of the loss at the velocity limit. */
+function peakLossTable(velocityMS: number, fluid: Fluid): number[] {
+  for (const t of PEAK_TABLES) {
+    if (t.velocity === velocityMS && t.viscosity === fluid.viscosityMm2S && t.density === fluid.densityKgM3) return t.cumulative;
+  }
+  const cumulative: number[] = [];
+  let max = 0;
+  for (const hose of SAE_J517_HOSES) {
+    const flowAtLimit = velocityMS * ((Math.PI * hose.nominalIdMm * hose.nominalIdMm) / 4 / 1e6) * 60_000;
+    max = Math.max(max, pressureLossBarPerM(flowAtLimit, hose.nominalIdMm, fluid));
+    cumulative.push(max);
+  }
+  PEAK_TABLES.push({ velocity: velocityMS, viscosity: fluid.viscosityMm2S, density: fluid.densityKgM3, cumulative });
+  return cumulative;
+}

@@ -73,8 +73,10 @@ export function retractForces(loads: AxisLoads, accelN: number): StrokeForces {
 
 /**
  * Force at the end of the extend stroke while pressing: the process force acts once the
- * axis has stopped accelerating, so it is not added to the acceleration force.
+ * axis has stopped accelerating, so it is not added to the acceleration force. A weight that
+ * resists extension adds to it; a weight that helps (rod down) is not counted, since the
+ * counterbalance valve may be holding it back and the press force is the cylinder's to give.
  */
 export function pressForceN(loads: AxisLoads): number {
-  return loads.processForceN + loads.frictionN + loads.extendGravitySign * loads.gravityAlongAxisN;
+  return loads.processForceN + loads.frictionN + Math.max(0, loads.extendGravitySign * loads.gravityAlongAxisN);
 }

@@ -20,7 +20,8 @@ import { Warnings } from "./warnings";
 export const ENGINE_VERSION = "1.0.0";
 
 /**
- * Tries bore/rod pairs from the smallest up and keeps the first that meets every limit.
+ * Tries bore/rod pairs from the smallest up and keeps the first that meets every limit, with
+ * line losses budgeted from above so a faster or heavier axis never gets a smaller cylinder.
  * When none does, it keeps the largest pair that meets the pressure limits (or the largest
  * of all) and the warnings say what is left.
  */
@@ -30,7 +31,7 @@ export function chooseCylinder(ctx: SizingContext): Evaluation {
   for (const cyl of list) {
     if (cyl.capAreaMm2 < ctx.minCapAreaMm2 || cyl.annulusAreaMm2 < ctx.minAnnulusAreaMm2) continue;
     if (criticalLoadBoundN(ctx, cyl.rodMm) < A.bucklingSafetyFactor.value * minStallThrustN(ctx, cyl)) continue;
-    const ev = evaluateCandidate(ctx, cyl);
+    const ev = evaluateCandidate(ctx, cyl, true);
     if (ev.pressureOk && ev.cbvOk && ev.bucklingOk) return ev;
   }
   // Nothing meets every limit: look again for the largest pair that meets the pressures.
@@ -38,14 +39,14 @@ export function chooseCylinder(ctx: SizingContext): Evaluation {
   let last: Evaluation | undefined;
   for (const cyl of list) {
     if (cyl.capAreaMm2 < ctx.minCapAreaMm2 || cyl.annulusAreaMm2 < ctx.minAnnulusAreaMm2) continue;
-    const ev = evaluateCandidate(ctx, cyl);
+    const ev = evaluateCandidate(ctx, cyl, true);
     last = ev;
     if (ev.pressureOk && ev.cbvOk) {
       if (ev.bucklingOk) return ev;
       pressureFit = ev;
     }
   }
-  return pressureFit ?? last ?? evaluateCandidate(ctx, list[list.length - 1]);
+  return pressureFit ?? last ?? evaluateCandidate(ctx, list[list.length - 1], true);
 }
 
 /**
@@ -71,7 +72,8 @@ function criticalLoadBoundN(ctx: SizingContext, rodMm: number): number {
 /** Sizes a circuit from requirements that have already passed the schema. */
 export function sizeCircuitParsed(req: Requirements): Design {
   const ctx = sizingContext(req);
-  const ev = chooseCylinder(ctx);
+  // The search budgets line losses from above; the design reports the actual losses.
+  const ev = evaluateCandidate(ctx, chooseCylinder(ctx).cyl);
   const warnings = new Warnings();
   const eta = A.cylinderEfficiency.value;
   const etaO = A.overallEfficiency.value;
@@ -285,6 +287,10 @@ function addWarnings(
   if (d.directionalValve.center === "float") {
     w.add("PUMP_ON_RELIEF_IN_NEUTRAL",
       `With a float centre P is blocked, so the pump runs over the ${d.pressuresBar.reliefSetting} bar relief whenever the valve is in neutral (${Math.round(d.heat.neutralShare * 100)} % of the time). A solenoid-vented relief or unloading valve would save that heat and power.`);
+  }
+  if (d.counterbalance && d.counterbalance.settingBar < A.cbvLowSettingBar.value) {
+    w.add("CBV_SETTING_LOW",
+      `The counterbalance works out at only ${f1(d.counterbalance.settingBar)} bar because the load is light; set it high enough to hold the rod and tooling and to damp surges.`);
   }
   if (extra.duty.overloaded) {
     w.add("DUTY_CYCLE_OVERLOAD",

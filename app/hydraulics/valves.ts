@@ -13,9 +13,12 @@ export function reliefSettingBar(workingBar: number): number {
 
 export type CbvSide = "rod" | "cap";
 
-/** Setting ≈ 1.3 × the load-induced pressure at the CBV port [CP], with a floor for light loads. */
-export const cbvSettingBar = (loadPressureBar: number): number =>
-  Math.max(A.cbvSettingFactor.value * loadPressureBar, A.cbvMinimumSettingBar.value);
+/**
+ * Setting ≈ 1.3 × the load-induced pressure at the CBV port [CP]. No fixed floor: a floor
+ * would let a heavier load open the valve more easily and so get a smaller cylinder; a very
+ * low setting is flagged instead (CBV_SETTING_LOW).
+ */
+export const cbvSettingBar = (loadPressureBar: number): number => A.cbvSettingFactor.value * loadPressureBar;
 
 export interface PilotRatioChoice {
   ratio: number;

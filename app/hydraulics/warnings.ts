@@ -13,6 +13,7 @@ export const WARNING_CODES = [
   "PUMP_BEYOND_SERIES",
   "MOTOR_BEYOND_SERIES",
   "DUTY_CYCLE_OVERLOAD",
+  "CBV_SETTING_LOW",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

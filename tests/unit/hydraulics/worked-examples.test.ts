@@ -127,13 +127,14 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
 
   it("sizes the bore on the pressing force (textbook F = η·p·A)", () => {
     // G = 1500·9.80665 = 14 709.97 N, friction 0 (vertical guides carry no weight).
-    // Pressing (rod down, weight helps): F = 60 000 − 14 709.97 = 45 290.03 N; F/η = 47 673.7 N.
-    // Ø63: 10·47 673.7/3117.25 = 152.9 bar > 145.45 → rejected. Ø80/36: A1 = 5026.55 mm².
-    // With the CBV the press pressure is the larger of the wide-open value 10·47 673.7/5026.55 =
-    // 94.84 bar and the throttling value (476 737 + 47.70·4008.67)/(5026.55 + 3·4008.67) = 39.17.
+    // Pressing: the ram's weight would help, but it is not counted (the CBV may hold it back),
+    // so F = 60 000 N; F/η = 63 157.9 N.
+    // Ø63: 10·63 157.9/3117.25 = 202.6 bar > 145.45 → rejected. Ø80/36: A1 = 5026.55 mm².
+    // With the CBV the press pressure is the larger of the wide-open value 10·63 157.9/5026.55 =
+    // 125.65 bar and the throttling value (631 579 + 47.70·4008.67)/(5026.55 + 3·4008.67) = 48.25.
     expect(d.cylinder.boreMm).toBe(80);
     expect(d.cylinder.rodMm).toBe(36);
-    expect(d.pressuresBar.extend).toBeCloseTo(94.84, 1);
+    expect(d.pressuresBar.extend).toBeCloseTo(125.65, 1);
   });
 
   it("counterbalance setting, pilot ratio and pilot opening by the full balance (sources §6)", () => {
@@ -177,18 +178,18 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
     //   supply = 0.360 + 5 + rod line 0.720 + 3 (CBV check, free flow 2→1) = 9.079 → 57.99 bar.
     expect(d.pressuresBar.extendMoving).toBeCloseTo(9.15, 1);
     expect(d.pressuresBar.retract).toBeCloseTo(57.99, 1);
-    // Relief = 1.1·94.84 = 104.3 → 105 bar [CP].
-    expect(d.pressuresBar.reliefSetting).toBe(105);
+    // Relief = 1.1·125.65 = 138.2 → 140 bar [CP].
+    expect(d.pressuresBar.reliefSetting).toBe(140);
     // Float centre: P blocked, the pump runs over relief in neutral, so the motor is sized at
-    // 105 bar: P = 105·34.44/600/0.85 = 7.09 kW → 7.5 kW (IEC 60072-1 [M]).
-    expect(d.motor.requiredKw).toBeCloseTo(7.09, 2);
-    expect(d.motor.ratedKw).toBe(7.5);
+    // 140 bar: P = 140·34.4375/600/0.85 = 9.45 kW → 11 kW (IEC 60072-1 [M]).
+    expect(d.motor.requiredKw).toBeCloseTo(9.453, 2);
+    expect(d.motor.ratedKw).toBe(11);
     expect(d.warnings.map((w) => w.code)).toContain("PUMP_ON_RELIEF_IN_NEUTRAL");
     // Largest path flow 43.18 ≤ 48 → ISO 4401-03.
     expect(d.directionalValve.iso4401Size).toBe("03");
     // Buckling: L = 400 + 150 = 550, K = 0.7, L_K = 385, λ = 4·385/36 = 42.8 → Tetmajer,
-    // F_K = (335 − 0.62·42.78)·π·36²/4 = 313 992 N; stall 105·5026.55/10 = 52 779 N; S = 5.95.
-    expect(d.cylinder.bucklingSafetyFactor).toBeCloseTo(5.95, 2);
+    // F_K = (335 − 0.62·42.78)·π·36²/4 = 313 992 N; stall 140·5026.55/10 = 70 372 N; S = 4.46.
+    expect(d.cylinder.bucklingSafetyFactor).toBeCloseTo(4.46, 2);
   });
 });
 

@@ -1,0 +1,33 @@
+/** fast-check generators for axis requirements across the whole accepted range. */
+import fc from "fast-check";
+import type { RequirementsInput } from "~/hydraulics";
+
+const num = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
+
+export const requirementsArb: fc.Arbitrary<RequirementsInput> = fc
+  .record({
+    orientation: fc.constantFrom("horizontal", "vertical", "inclined") as fc.Arbitrary<"horizontal" | "vertical" | "inclined">,
+    inclineDeg: num(1, 89),
+    rodDirection: fc.constantFrom("up", "down") as fc.Arbitrary<"up" | "down">,
+    massKg: num(0, 20000),
+    processForceN: fc.oneof(fc.constant(0), num(0, 300000)),
+    frictionCoefficient: num(0, 0.3),
+    strokeMm: num(20, 3000),
+    extendSpeedMmS: num(5, 600),
+    retractSpeedMmS: num(5, 600),
+    accelTimeS: num(0.05, 2),
+    mounting: fc.constantFrom("fixed-free", "pinned-pinned", "fixed-pinned", "fixed-fixed") as fc.Arbitrary<
+      "fixed-free" | "pinned-pinned" | "fixed-pinned" | "fixed-fixed"
+    >,
+    cyclesPerHour: num(0, 600),
+    hoursPerDay: num(0, 24),
+    ambientC: num(-20, 50),
+    supplyHz: fc.constantFrom(50, 60) as fc.Arbitrary<50 | 60>,
+    maxPressureBar: num(40, 250),
+  })
+  .map((r) => {
+    const out: RequirementsInput = { ...r };
+    if (r.orientation !== "inclined") delete out.inclineDeg;
+    if (r.orientation === "horizontal") delete out.rodDirection;
+    return out;
+  });

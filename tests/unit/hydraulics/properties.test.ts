@@ -1,0 +1,250 @@
+/**
+ * Physical-consistency properties over random axes (fast-check). Each names the rule it
+ * holds the engine to: continuity Q = A·v [D], textbook F = η·p·A, the sizing contract's
+ * overrunning-load rule, and the trade facts about valve ports (common practice).
+ */
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { sizeCircuit, type Design } from "~/hydraulics";
+import { requirementsArb } from "./arbitraries";
+
+const RUNS = { numRuns: 300 };
+const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(1e-9, Math.abs(b));
+
+describe("monotonic sizing", () => {
+  it("a heavier load never gets a smaller bore", () => {
+    fc.assert(
+      fc.property(requirementsArb, fc.double({ min: 1, max: 3, noNaN: true }), (req, factor) => {
+        const light = sizeCircuit(req);
+        const heavy = sizeCircuit({ ...req, massKg: Math.min(500000, req.massKg * factor + 1) });
+        expect(heavy.cylinder.boreMm).toBeGreaterThanOrEqual(light.cylinder.boreMm);
+      }),
+      RUNS,
+    );
+  });
+
+  it("a faster stroke never gets less flow on that stroke, nor a smaller bore", () => {
+    // Q = A·v (continuity [D]). The cap area only grows with the bore. The annulus can shrink
+    // when a faster axis needs a thicker rod (more losses → higher relief → more stall thrust
+    // to resist buckling); only then may the retract flow drop, and the trail says why.
+    fc.assert(
+      fc.property(requirementsArb, fc.double({ min: 1, max: 3, noNaN: true }), fc.boolean(), (req, factor, extend) => {
+        const key = extend ? "extendSpeedMmS" : "retractSpeedMmS";
+        const slow = sizeCircuit(req);
+        const fast = sizeCircuit({ ...req, [key]: Math.min(2000, req[key] * factor) });
+        expect(fast.cylinder.boreMm).toBeGreaterThanOrEqual(slow.cylinder.boreMm);
+        if (extend) {
+          expect(fast.flowsLpm.extend).toBeGreaterThanOrEqual(slow.flowsLpm.extend * (1 - 1e-12));
+        } else if (fast.flowsLpm.retract < slow.flowsLpm.retract * (1 - 1e-12)) {
+          // less retract flow only ever comes with a thicker rod
+          expect(fast.cylinder.rodMm).toBeGreaterThan(slow.cylinder.rodMm);
+        }
+      }),
+      RUNS,
+    );
+  });
+});
+
+describe("consistency of every design", () => {
+  it("flows equal area × speed (continuity [D])", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const d = sizeCircuit(req);
+        const c = d.cylinder;
+        expect(rel(d.flowsLpm.extend, (c.capAreaMm2 * d.speedsMmS.extendRequested * 0.06) / 1000)).toBeLessThan(1e-9);
+        expect(rel(d.flowsLpm.retract, (c.annulusAreaMm2 * d.speedsMmS.retractRequested * 0.06) / 1000)).toBeLessThan(1e-9);
+        // the fixed pump serves the larger stroke flow (unless the series runs out); both strokes get all of it
+        if (!d.warnings.some((w) => w.code === "PUMP_BEYOND_SERIES")) {
+          expect(d.flowsLpm.pump).toBeGreaterThanOrEqual(Math.max(d.flowsLpm.extend, d.flowsLpm.retract) * (1 - 1e-9));
+        }
+        expect(rel(d.flowsLpm.pump, (c.capAreaMm2 * d.speedsMmS.extendActual * 0.06) / 1000)).toBeLessThan(1e-9);
+        expect(rel(d.flowsLpm.pump, (c.annulusAreaMm2 * d.speedsMmS.retractActual * 0.06) / 1000)).toBeLessThan(1e-9);
+        expect(rel(d.flowsLpm.returnMax, d.flowsLpm.pump * c.areaRatio)).toBeLessThan(1e-9);
+        // pump: Q = V·n·η_v/1000 (Esposito [M])
+        expect(rel(d.flowsLpm.pump, (d.pump.displacementCcRev * d.pump.speedRpm * 0.95) / 1000)).toBeLessThan(1e-9);
+      }),
+      RUNS,
+    );
+  });
+
+  it("forces equal pressure × area × efficiency (textbook F = η·p·A)", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const c = sizeCircuit(req).cylinder;
+        const D = c.boreMm, dr = c.rodMm;
+        expect(rel(c.capAreaMm2, (Math.PI * D * D) / 4)).toBeLessThan(1e-12);
+        expect(rel(c.annulusAreaMm2, (Math.PI * (D * D - dr * dr)) / 4)).toBeLessThan(1e-12);
+        expect(rel(c.extendForceN, (c.workingPressureBar * c.capAreaMm2 * 0.95) / 10)).toBeLessThan(1e-9);
+        expect(rel(c.retractForceN, (c.workingPressureBar * c.annulusAreaMm2 * 0.95) / 10)).toBeLessThan(1e-9);
+      }),
+      RUNS,
+    );
+  });
+
+  it("limits hold unless a warning says otherwise (relief +10 % [CP]; buckling SF 3.5 [CP])", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const d = sizeCircuit(req);
+        const codes = new Set(d.warnings.map((w) => w.code));
+        const working = Math.max(d.pressuresBar.extend, d.pressuresBar.retract);
+        if (!codes.has("PRESSURE_LIMIT_EXCEEDED")) {
+          expect(working).toBeLessThanOrEqual(d.pressuresBar.workingLimit + 1e-9);
+          expect(working).toBeLessThanOrEqual(d.requirements.maxPressureBar + 1e-9);
+          expect(d.pressuresBar.reliefSetting).toBeLessThanOrEqual(d.cylinder.ratedPressureBar);
+        }
+        if (!codes.has("BUCKLING_MARGIN")) expect(d.cylinder.bucklingSafetyFactor).toBeGreaterThanOrEqual(3.5);
+        expect(d.pressuresBar.reliefSetting).toBeGreaterThanOrEqual(1.1 * working - 1e-6);
+        expect(d.pressuresBar.reliefSetting).toBeLessThan(1.1 * working + 5 + 1e-9);
+        expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.requiredKw);
+        // hoses at or below their velocity limit, pressure ≤ 5, return ≤ 3, suction ≤ 1 m/s [CP]
+        if (d.lines.pressure.inRange) expect(d.lines.pressure.velocityMS).toBeLessThanOrEqual(5 + 1e-9);
+        if (d.lines.return.inRange) expect(d.lines.return.velocityMS).toBeLessThanOrEqual(3 + 1e-9);
+        if (d.lines.suction.inRange) expect(d.lines.suction.velocityMS).toBeLessThanOrEqual(1 + 1e-9);
+      }),
+      RUNS,
+    );
+  });
+
+  it("every overrunning case has a counterbalance on the side the load pressurises and a float centre (sizing contract)", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const d = sizeCircuit(req);
+        if (req.orientation === "horizontal") {
+          expect(d.counterbalance).toBeNull();
+          expect(d.directionalValve.center).not.toBe("float");
+          return;
+        }
+        expect(d.counterbalance).not.toBeNull();
+        expect(d.counterbalance!.side).toBe(req.rodDirection === "down" ? "rod" : "cap");
+        expect(d.directionalValve.center).toBe("float");
+        expect(d.bom.some((l) => l.key === "counterbalance-valve")).toBe(true);
+        // setting 1.3 × load-induced pressure at its port [CP]
+        expect(d.counterbalance!.settingBar).toBeGreaterThanOrEqual(1.3 * d.counterbalance!.loadPressureBar - 1e-9);
+      }),
+      RUNS,
+    );
+  });
+
+  it("every contract number is finite and every field is filled", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const d = sizeCircuit(req);
+        const numbers = [
+          d.cylinder.boreMm, d.cylinder.rodMm, d.cylinder.strokeMm, d.cylinder.extendForceN, d.cylinder.retractForceN,
+          d.pressuresBar.extend, d.pressuresBar.retract, d.pressuresBar.reliefSetting,
+          d.flowsLpm.extend, d.flowsLpm.retract, d.flowsLpm.pump, d.flowsLpm.returnMax,
+          d.pump.displacementCcRev, d.pump.speedRpm, d.motor.requiredKw, d.motor.ratedKw,
+          d.lines.pressure.innerDiameterMm, d.lines.pressure.velocityMS, d.lines.return.innerDiameterMm,
+          d.lines.return.velocityMS, d.lines.suction.innerDiameterMm, d.lines.suction.velocityMS,
+          d.reservoir.volumeL, d.heat.averageLossKw,
+        ];
+        for (const n of numbers) expect(Number.isFinite(n)).toBe(true);
+        expect(d.cylinder.bucklingSafetyFactor).toBeGreaterThan(0);
+        if (d.counterbalance) {
+          for (const n of [d.counterbalance.settingBar, d.counterbalance.pilotRatio, d.counterbalance.pilotOpeningBar]) {
+            expect(Number.isFinite(n)).toBe(true);
+          }
+        }
+        for (const t of d.trail) {
+          expect(t.quantity.length).toBeGreaterThan(0);
+          expect(t.formula.length).toBeGreaterThan(0);
+          expect(t.source.length).toBeGreaterThan(0);
+          if (typeof t.value === "number") expect(Number.isFinite(t.value) || t.value === Infinity).toBe(true);
+        }
+        expect(new Set(d.bom.map((l) => l.key)).size).toBe(d.bom.length);
+      }),
+      RUNS,
+    );
+  });
+});
+
+describe("the circuit as data (trade facts, common practice)", () => {
+  /** Joins ports that are connected, directly or through a chain, into nets. */
+  function nets(d: Design) {
+    const parent = new Map<string, string>();
+    const find = (x: string): string => {
+      const p = parent.get(x) ?? x;
+      if (p === x) return x;
+      const root = find(p);
+      parent.set(x, root);
+      return root;
+    };
+    for (const c of d.circuit.connections) {
+      if (c.line === "pilot") continue;
+      parent.set(find(c.from), find(c.to));
+    }
+    return find;
+  }
+
+  it("connections reference existing components and ports", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const d = sizeCircuit(req);
+        const ports = new Map(d.circuit.components.map((c) => [c.id, new Set(c.ports)]));
+        const used = new Set<string>();
+        for (const conn of d.circuit.connections) {
+          for (const end of [conn.from, conn.to]) {
+            const [id, port] = end.split(".");
+            expect(ports.has(id), end).toBe(true);
+            expect(ports.get(id)!.has(port), end).toBe(true);
+            used.add(end);
+          }
+        }
+        // every port of every component is connected
+        for (const c of d.circuit.components) for (const p of c.ports) expect(used.has(`${c.id}.${p}`), `${c.id}.${p}`).toBe(true);
+        const kinds = d.circuit.components.map((c) => c.kind);
+        for (const k of ["pump", "motor", "relief", "dcv", "cylinder", "tank", "filter", "gauge"]) expect(kinds).toContain(k);
+        expect(kinds.includes("cbv")).toBe(d.counterbalance !== null);
+      }),
+      RUNS,
+    );
+  });
+
+  it("A feeds the cap end, B the rod end, and the CBV pilot (3) joins the opposite work line", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const d = sizeCircuit(req);
+        const find = nets(d);
+        const cb = d.counterbalance;
+        // with no CBV in a line, the valve port and cylinder port share a net
+        if (cb?.side !== "rod") expect(find("dcv.B")).toBe(find("cylinder.rod"));
+        if (cb?.side !== "cap") expect(find("dcv.A")).toBe(find("cylinder.cap"));
+        if (cb) {
+          const guarded = cb.side === "rod" ? "cylinder.rod" : "cylinder.cap";
+          const valvePort = cb.side === "rod" ? "dcv.B" : "dcv.A";
+          const opposite = cb.side === "rod" ? "cylinder.cap" : "cylinder.rod";
+          expect(find("cbv.1")).toBe(find(guarded)); // 1 to the actuator
+          expect(find("cbv.2")).toBe(find(valvePort)); // 2 to the valve
+          expect(find("cbv.1")).not.toBe(find("cbv.2")); // the valve itself separates them
+          const pilot = d.circuit.connections.find((c) => c.from === "cbv.3" || c.to === "cbv.3")!;
+          const other = pilot.from === "cbv.3" ? pilot.to : pilot.from;
+          expect(find(other)).toBe(find(opposite));
+        }
+        expect(find("pump.outlet")).toBe(find("dcv.P"));
+        expect(find("pump.outlet")).toBe(find("relief.1"));
+        expect(find("relief.2")).toBe(find("tank.return"));
+      }),
+      RUNS,
+    );
+  });
+
+  it("valve positions match the centre: float blocks P and joins A, B to T; tandem joins P to T", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const d = sizeCircuit(req);
+        const key = (pairs: [string, string][]) => pairs.map((p) => [...p].sort().join("-")).sort();
+        const pos = d.circuit.dcvPositions;
+        expect(key(pos.left)).toEqual(["A-P", "B-T"]); // extend: P→A, B→T
+        expect(key(pos.right)).toEqual(["A-T", "B-P"]); // retract: P→B, A→T
+        const centre = key(pos.center);
+        if (d.directionalValve.center === "float") {
+          expect(centre).toEqual(["A-T", "B-T"]);
+          expect(centre.some((p) => p.includes("P"))).toBe(false);
+        } else if (d.directionalValve.center === "tandem") {
+          expect(centre).toEqual(["P-T"]);
+        }
+      }),
+      RUNS,
+    );
+  });
+});

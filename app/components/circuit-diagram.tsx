@@ -43,9 +43,9 @@ export function CircuitDiagram({ design, units = "metric", className = "" }: { d
         {junctions(routes).map((p) => <circle key={`${p.x},${p.y}`} cx={p.x} cy={p.y} r={3} fill="currentColor" data-junction="" />)}
       </g>
       <g data-layer="tanks">
-        {routes.filter((r) => r.tankAt !== undefined).map((r) => (
-          <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={tankId(r.connection)} x={r.tankAt!} top={layout.tankY} />
-        ))}
+        {routes.map((r) =>
+          r.tank ? <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={r.tank.id} x={r.tank.x} top={layout.tankY} /> : null,
+        )}
       </g>
       <g data-layer="symbols">
         {circuit.components.map((c) => <ComponentSymbol key={c.id} component={c} layout={layout} design={design} u={u} />)}
@@ -53,8 +53,6 @@ export function CircuitDiagram({ design, units = "metric", className = "" }: { d
     </svg>
   );
 }
-
-const tankId = (c: CircuitConnection) => (c.from.startsWith("tank.") ? c.from : c.to).split(".")[0];
 
 /** Line weight and dash by what the line carries. */
 const LINE_STYLE: Record<CircuitConnection["line"], { width: number; dash?: string }> = {

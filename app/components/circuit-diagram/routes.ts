@@ -5,8 +5,8 @@ import type { Anchor, Layout, Point } from "./layout";
 export interface Route {
   connection: CircuitConnection;
   points: Point[];
-  /** x of a tank symbol drawn at the end of this line, when it ends at the reservoir */
-  tankAt?: number;
+  /** the tank symbol drawn at the end of this line, when it ends at the reservoir */
+  tank?: { id: string; x: number };
 }
 
 const isVertical = (a: Anchor) => a.dir === "up" || a.dir === "down";
@@ -44,7 +44,8 @@ export function routeConnections(circuit: Circuit, layout: Layout): Route[] {
       const other = layout.ports[fromTank ? connection.to : connection.from];
       if (!other) continue;
       const tankTop: Point = { x: other.x, y: layout.tankY + 6 };
-      routes.push({ connection, points: fromTank ? [tankTop, other] : [other, tankTop], tankAt: other.x });
+      const id = componentOf(fromTank ? connection.from : connection.to);
+      routes.push({ connection, points: fromTank ? [tankTop, other] : [other, tankTop], tank: { id, x: other.x } });
       continue;
     }
     const a = layout.ports[connection.from];

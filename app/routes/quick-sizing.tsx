@@ -1,0 +1,153 @@
+import { useMemo, useState } from "react";
+import { Form } from "react-router";
+import type { Route } from "./+types/quick-sizing";
+import { getOptionalUser } from "~/auth/permissions.server";
+import { CircuitDiagram } from "~/components/circuit-diagram";
+import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
+import { RequirementInput } from "~/components/requirement-input";
+import { Card, Notice, PageHeader } from "~/components/ui";
+import { useLiveSizing } from "~/components/use-live-sizing";
+import {
+  EXAMPLE_AXIS,
+  REQUIREMENT_FIELDS,
+  convertFormValues,
+  fieldApplies,
+  fieldMessages,
+  toFormValues,
+  toRequirementsInput,
+  type FormValues,
+  type RequirementKey,
+} from "~/content/requirement-fields";
+import { RequirementsError, sizeCircuit, type Design } from "~/hydraulics";
+import { UNIT_SYSTEMS, UNIT_SYSTEM_LABELS, type UnitSystem } from "~/units";
+
+export const meta: Route.MetaFunction = () => [
+  { title: "Quick sizing · Tenderflow" },
+  { name: "description", content: "Size a preliminary hydraulic circuit for one axis, no account needed." },
+];
+
+const GROUPS: { title: string; keys: RequirementKey[] }[] = [
+  { title: "The axis", keys: ["orientation", "inclineDeg", "rodDirection", "mounting"] },
+  { title: "Load and motion", keys: ["massKg", "processForceN", "frictionCoefficient", "strokeMm", "extendSpeedMmS", "retractSpeedMmS", "accelTimeS"] },
+  { title: "Duty and site", keys: ["cyclesPerHour", "hoursPerDay", "ambientC", "supplyHz", "maxPressureBar"] },
+];
+const KEYS = GROUPS.flatMap((g) => g.keys);
+
+function size(values: FormValues, system: UnitSystem): { design: Design | null; fieldErrors: Record<string, string[]> } {
+  try {
+    return { design: sizeCircuit(toRequirementsInput(values, system)), fieldErrors: {} };
+  } catch (error) {
+    if (error instanceof RequirementsError) return { design: null, fieldErrors: error.fieldErrors };
+    throw error;
+  }
+}
+
+// Without JavaScript the form is a GET: the loader sizes what the address carries.
+export async function loader({ request }: Route.LoaderArgs) {
+  const params = new URL(request.url).searchParams;
+  const user = await getOptionalUser(request);
+  const asked = params.get("units");
+  const system: UnitSystem = asked === "us" || asked === "metric" ? asked : (user?.unitSystem ?? "metric");
+  const given = KEYS.some((k) => params.has(k));
+  const values: FormValues = given
+    ? Object.fromEntries(KEYS.filter((k) => params.has(k)).map((k) => [k, params.get(k) ?? ""]))
+    : toFormValues(EXAMPLE_AXIS, system);
+  return { system, values, ...size(values, system) };
+}
+
+export default function QuickSizing({ loaderData }: Route.ComponentProps) {
+  const [system, setSystem] = useState<UnitSystem>(loaderData.system);
+  const [values, setValues] = useState<FormValues>(loaderData.values);
+  const input = useMemo(() => toRequirementsInput(values, system), [values, system]);
+  const live = useLiveSizing(input, { design: loaderData.design, fieldErrors: loaderData.fieldErrors });
+  const design = live.design;
+  const hasErrors = Object.keys(live.fieldErrors).length > 0;
+
+  const switchUnits = (next: UnitSystem) => {
+    setValues((v) => convertFormValues(v, system, next));
+    setSystem(next);
+  };
+
+  return (
+    <>
+      <PageHeader
+        title="Quick sizing"
+        lead="Describe one hydraulic axis and see a preliminary circuit at once. No account needed; nothing is saved."
+      />
+      <div className="grid gap-6 lg:grid-cols-[22rem_1fr]">
+        <Form method="get" className="space-y-5" aria-label="Axis requirements" onSubmit={(e) => e.preventDefault()}>
+          <fieldset className="flex gap-1 rounded-lg bg-white p-1 ring-1 ring-ink-100">
+            <legend className="sr-only">Units</legend>
+            {UNIT_SYSTEMS.map((s) => (
+              <label
+                key={s}
+                className="flex-1 cursor-pointer rounded-md px-2 py-1.5 text-center text-xs font-semibold text-ink-600 has-[:checked]:bg-flow-600 has-[:checked]:text-white"
+              >
+                <input type="radio" name="units" value={s} checked={system === s} onChange={() => switchUnits(s)} className="sr-only" />
+                {UNIT_SYSTEM_LABELS[s]}
+              </label>
+            ))}
+          </fieldset>
+          {GROUPS.map((group) => (
+            <Card key={group.title} className="space-y-4 !p-4">
+              <h2 className="font-semibold text-ink-900">{group.title}</h2>
+              {group.keys
+                .filter((key) => fieldApplies(key, values.orientation))
+                .map((key) => (
+                  <RequirementInput
+                    key={key}
+                    field={REQUIREMENT_FIELDS[key]}
+                    value={values[key]}
+                    system={system}
+                    errors={fieldMessages(key, live.fieldErrors[key], system)}
+                    onChange={(value) => setValues((v) => ({ ...v, [key]: value }))}
+                  />
+                ))}
+            </Card>
+          ))}
+          <noscript>
+            <button type="submit" className="w-full rounded-md bg-flow-600 px-4 py-2 font-semibold text-white">
+              Size the circuit
+            </button>
+          </noscript>
+        </Form>
+
+        <div className="min-w-0 space-y-6" aria-live="polite" aria-busy={live.status === "sizing"}>
+          {live.status === "failed" ? <Notice tone="bad">{live.message}</Notice> : null}
+          {hasErrors ? (
+            <Notice tone="warn">
+              {live.message ?? "Some answers need attention (marked beside the field)."}
+              {design ? " The circuit below is from your last complete answers." : ""}
+            </Notice>
+          ) : null}
+          {design ? (
+            <>
+              <Card className={live.status === "sizing" ? "opacity-70 transition-opacity" : "transition-opacity"}>
+                <div className="mb-2 flex items-center justify-between">
+                  <h2 className="font-semibold">Preliminary circuit</h2>
+                  <span className="text-xs text-ink-400">{live.status === "sizing" ? "Updating…" : `Engine ${design.engineVersion}`}</span>
+                </div>
+                <CircuitDiagram design={design} units={system} />
+              </Card>
+              <KeySizes design={design} units={system} />
+              <WarningsList warnings={design.warnings} />
+              <CautionsPanel />
+              <Card>
+                <h2 className="mb-3 font-semibold">Components</h2>
+                <ComponentTable design={design} />
+              </Card>
+              <Card>
+                <h2 className="mb-3 font-semibold">How every number was reached</h2>
+                <CalculationTrail trail={design.trail} />
+              </Card>
+            </>
+          ) : (
+            <Card>
+              <p className="text-ink-600">Answer the questions on the left and the circuit appears here.</p>
+            </Card>
+          )}
+        </div>
+      </div>
+    </>
+  );
+}

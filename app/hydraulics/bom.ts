@@ -1,7 +1,7 @@
 import type { BomLine, Design } from "./design";
+import { num } from "./format";
 
-/** One decimal, for specification text. */
-const f1 = (x: number): number => Math.round(x * 10) / 10;
+
 
 type Line = Design["lines"]["pressure"];
 
@@ -11,7 +11,7 @@ const hoseVolume = (line: Line): number => ((Math.PI * line.innerDiameterMm ** 2
 function hose(key: string, item: string, line: Line, rated: string): BomLine {
   return {
     key, item, quantity: 1,
-    specification: `SAE J517 -${line.dashSize} (${line.nominalInch} in, DN ${line.dn}, ${line.innerDiameterMm} mm bore), about ${line.lengthM} m, ${rated}`,
+    specification: `SAE J517 -${line.dashSize} (${line.nominalInch} in, DN ${line.dn}, ${num(line.innerDiameterMm, 2)} mm bore), about ${num(line.lengthM, 2)} m, ${rated}`,
     rating: { value: line.innerDiameterMm, unit: "mm", label: "inner diameter" },
   };
 }
@@ -30,17 +30,17 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
   const bom: BomLine[] = [
     {
       key: "pump", item: "Fixed-displacement pump", quantity: 1,
-      specification: `${d.pump.displacementCcRev} cm³/rev (ISO 3662 series), ${d.pump.speedRpm} rpm, delivers ${f1(d.flowsLpm.pump)} L/min, rated for at least ${relief} bar`,
+      specification: `${num(d.pump.displacementCcRev, 2)} cm³/rev (ISO 3662 series), ${d.pump.speedRpm} rpm, delivers ${num(d.flowsLpm.pump)} L/min, rated for at least ${relief} bar`,
       rating: { value: d.pump.displacementCcRev, unit: "cm³/rev", label: "displacement" },
     },
     {
       key: "motor", item: "Electric motor, 4-pole, foot/flange", quantity: 1,
-      specification: `${d.motor.ratedKw} kW (IEC 60072-1 rating)${d.motor.frame ? `, frame ${d.motor.frame}` : ""}, ${d.requirements.supplyHz} Hz, about ${d.pump.speedRpm} rpm`,
+      specification: `${num(d.motor.ratedKw, 2)} kW (IEC 60072-1 rating)${d.motor.frame ? `, frame ${d.motor.frame}` : ""}, ${d.requirements.supplyHz} Hz, about ${d.pump.speedRpm} rpm`,
       rating: { value: d.motor.ratedKw, unit: "kW", label: "rated output" },
     },
     {
       key: "coupling-bellhousing", item: "Bell housing and flexible coupling", quantity: 1,
-      specification: `joins the ${d.motor.ratedKw} kW motor${d.motor.frame ? ` (frame ${d.motor.frame})` : ""} to the pump flange; coupling for at least ${f1(torqueNm)} N·m`,
+      specification: `joins the ${num(d.motor.ratedKw, 2)} kW motor${d.motor.frame ? ` (frame ${d.motor.frame})` : ""} to the pump flange; coupling for at least ${num(torqueNm)} N·m`,
       rating: { value: torqueNm, unit: "N·m", label: "coupling torque" },
     },
     {
@@ -50,22 +50,22 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
     },
     {
       key: "suction-strainer", item: "Suction strainer", quantity: 1,
-      specification: `for ${f1(d.flowsLpm.pump)} L/min with low pressure drop; mesh as the pump maker allows`,
+      specification: `for ${num(d.flowsLpm.pump)} L/min with low pressure drop; mesh as the pump maker allows`,
       rating: { value: d.flowsLpm.pump, unit: "L/min", label: "flow" },
     },
     {
       key: "return-filter", item: "Return-line filter", quantity: 1,
-      specification: `for ${f1(d.returnFilter.ratedFlowLpm)} L/min at ISO VG 46, about 10 µm absolute, bypass valve about 2.5 bar, clogging indicator`,
+      specification: `for ${num(d.returnFilter.ratedFlowLpm)} L/min at ISO VG 46, about 10 µm absolute, bypass valve about 2.5 bar, clogging indicator`,
       rating: { value: d.returnFilter.ratedFlowLpm, unit: "L/min", label: "rated flow" },
     },
     {
       key: "relief-valve", item: "Pressure-relief valve", quantity: 1,
-      specification: `set to ${relief} bar, passes the full ${f1(d.flowsLpm.pump)} L/min`,
+      specification: `set to ${relief} bar, passes the full ${num(d.flowsLpm.pump)} L/min`,
       rating: { value: relief, unit: "bar", label: "setting" },
     },
     {
       key: "directional-valve", item: "4/3 solenoid directional valve", quantity: 1,
-      specification: `ISO 4401-${d.directionalValve.iso4401Size} (${d.directionalValve.nominalSize}), ${d.directionalValve.center} centre, ${d.directionalValve.coilVoltage} coils, at least ${f1(d.directionalValve.maxPathFlowLpm)} L/min per path and ${relief} bar`,
+      specification: `ISO 4401-${d.directionalValve.iso4401Size} (${d.directionalValve.nominalSize}), ${d.directionalValve.center} centre, ${d.directionalValve.coilVoltage} coils, at least ${num(d.directionalValve.maxPathFlowLpm)} L/min per path and ${relief} bar`,
       rating: { value: d.directionalValve.maxPathFlowLpm, unit: "L/min", label: "largest path flow" },
     },
   ];
@@ -73,14 +73,14 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
     const cb = d.counterbalance;
     bom.push({
       key: "counterbalance-valve", item: "Counterbalance valve", quantity: 1,
-      specification: `on the ${cb.side} port, set to ${f1(cb.settingBar)} bar, pilot ratio ${cb.pilotRatio}:1, at least ${f1(cb.flowLpm)} L/min, flange-mounted directly on the cylinder port`,
+      specification: `on the ${cb.side} port, set to ${num(cb.settingBar)} bar, pilot ratio ${num(cb.pilotRatio, 2)}:1, at least ${num(cb.flowLpm)} L/min, flange-mounted directly on the cylinder port`,
       rating: { value: cb.settingBar, unit: "bar", label: "setting" },
     });
   }
   bom.push(
     {
       key: "cylinder", item: "Double-acting hydraulic cylinder", quantity: 1,
-      specification: `bore ${c.boreMm} mm / rod ${c.rodMm} mm (ISO 3320), stroke ${c.strokeMm} mm, ${c.series} style, ${d.requirements.mounting} mounting, rated ${c.ratedPressureBar} bar`,
+      specification: `bore ${num(c.boreMm, 2)} mm / rod ${num(c.rodMm, 2)} mm (ISO 3320), stroke ${num(c.strokeMm, 2)} mm, ${c.series} style, ${d.requirements.mounting} mounting, rated ${c.ratedPressureBar} bar`,
       rating: { value: c.boreMm, unit: "mm", label: "bore" },
     },
     hose("hose-pressure", "Pressure hose, pump to valve", d.lines.pressure, pressureHose),

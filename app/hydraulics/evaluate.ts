@@ -100,7 +100,8 @@ export interface Evaluation {
   extend: StrokeForces;
   retract: StrokeForces;
   pressN: number;
-  lines: { pressure: LineSizing; capWork: LineSizing; rodWork: LineSizing; return: LineSizing; suction: LineSizing };
+  /** lines that carry pressure to or from the cylinder (the suction line is sized with the design) */
+  lines: { pressure: LineSizing; capWork: LineSizing; rodWork: LineSizing; return: LineSizing };
   extendSupplyLossBar: number;
   extendBackBar: number;
   retractSupplyLossBar: number;
@@ -122,6 +123,11 @@ export interface Evaluation {
   pressureOk: boolean;
   cbvOk: boolean;
   bucklingOk: boolean;
+}
+
+/** While throttling, p_port1 = p_set − R·p_pilot; the drop is what is left above the back-pressure. */
+function setLoweringDrop(cbv: CbvEvaluation, steadyInletBar: number, backBar: number): void {
+  cbv.loweringDropBar = Math.max(0, cbv.settingBar - cbv.ratio * steadyInletBar - backBar);
 }
 
 /**
@@ -168,7 +174,6 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, bu
     capWork: sizeLine(qp * phi, vp, A.workLineLengthM.value, fluid),
     rodWork: sizeLine(qp, vp, A.workLineLengthM.value, fluid),
     return: sizeLine(qp * phi, A.returnVelocityLimit.value, A.returnLineLengthM.value, fluid),
-    suction: sizeLine(qp, A.suctionVelocityLimit.value, A.suctionLineLengthM.value, fluid),
   };
   const dcv = A.dcvPathDropBar.value;
   const filter = A.returnFilterDropBar.value;
@@ -213,18 +218,16 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, bu
   const extendPressBar = cylinderInletBar(hydraulicForceN(pressN, eta), a1, a3, 0, rodCbv);
   const extendBar = Math.max(extendMovingBar, extendPressBar);
   const retractBar = retractInletBar + retractSupplyLossBar;
-  const extendSteadyInlet = cylinderInletBar(hydraulicForceN(extend.steadyN, eta), a1, a3, extendBackBar, rodCbv);
-  const retractSteadyInlet = cylinderInletBar(hydraulicForceN(retract.steadyN, eta), a3, a1, retractBackBar, capCbv);
-  const extendSteadyBar = extendSteadyInlet + extendSupplyLossBar;
-  const retractSteadyBar = retractSteadyInlet + retractSupplyLossBar;
-
-  if (cbv) {
-    // While throttling, p_port1 = p_set − R·p_pilot; the drop is what is left above the back-pressure.
-    const steadyInlet = cbv.side === "rod" ? extendSteadyInlet : retractSteadyInlet;
-    const back = cbv.side === "rod" ? extendBackBar : retractBackBar;
-    cbv.loweringDropBar = Math.max(0, cbv.settingBar - cbv.ratio * steadyInlet - back);
+  // Constant-speed pressures feed only the heat balance, which the search does not need.
+  let extendSteadyBar = 0;
+  let retractSteadyBar = 0;
+  if (!budget) {
+    const extendSteadyInlet = cylinderInletBar(hydraulicForceN(extend.steadyN, eta), a1, a3, extendBackBar, rodCbv);
+    const retractSteadyInlet = cylinderInletBar(hydraulicForceN(retract.steadyN, eta), a3, a1, retractBackBar, capCbv);
+    extendSteadyBar = extendSteadyInlet + extendSupplyLossBar;
+    retractSteadyBar = retractSteadyInlet + retractSupplyLossBar;
+    if (cbv) setLoweringDrop(cbv, cbv.side === "rod" ? extendSteadyInlet : retractSteadyInlet, cbv.side === "rod" ? extendBackBar : retractBackBar);
   }
-
   const workingBar = Math.max(extendBar, retractBar);
   const reliefBar = reliefSettingBar(workingBar);
   const rodSidePeakBar = Math.max(retractInletBar, cbv?.side === "rod" ? cbv.settingBar : extendBackBar);

@@ -51,6 +51,8 @@ export function selectHose(requiredMm: number): { hose: HoseSize; inRange: boole
 }
 
 export interface LineSizing {
+  /** index of the chosen size in SAE_J517_HOSES */
+  hoseIndex: number;
   flowLpm: number;
   velocityLimitMS: number;
   requiredDiameterMm: number;
@@ -71,14 +73,17 @@ export interface LineSizing {
 /** Sizes a line for its largest flow and reports the loss at that flow. */
 export function sizeLine(flowLpm: number, velocityLimitMS: number, lengthM: number, fluid: Fluid): LineSizing {
   const requiredDiameterMm = lineDiameterMm(flowLpm, velocityLimitMS);
-  const { hose, inRange } = selectHose(requiredDiameterMm);
+  let hoseIndex = 0;
+  while (hoseIndex < SAE_J517_HOSES.length - 1 && SAE_J517_HOSES[hoseIndex].nominalIdMm < requiredDiameterMm) hoseIndex++;
+  const hose = SAE_J517_HOSES[hoseIndex];
+  const inRange = hose.nominalIdMm >= requiredDiameterMm;
   const d = hose.nominalIdMm;
   const velocityMS = lineVelocityMS(flowLpm, d);
   const reynolds = reynoldsNumber(velocityMS, d, fluid.viscosityMm2S);
   const f = frictionFactor(reynolds);
   const perM = (f * (1000 / d) * fluid.densityKgM3 * velocityMS * velocityMS) / 2 / 1e5;
   return {
-    flowLpm, velocityLimitMS, requiredDiameterMm, dashSize: hose.dash, nominalInch: hose.inch, dn: hose.dn,
+    hoseIndex, flowLpm, velocityLimitMS, requiredDiameterMm, dashSize: hose.dash, nominalInch: hose.inch, dn: hose.dn,
     innerDiameterMm: d, velocityMS, reynolds, regime: flowRegime(reynolds), frictionFactor: f,
     pressureLossBarPerM: perM, lengthM, pressureLossBar: perM * lengthM, inRange,
   };
@@ -96,7 +101,7 @@ export const lineLossBar = (line: LineSizing, flowLpm: number, fluid: Fluid): nu
  */
 export function budgetLossBarPerM(line: LineSizing, fluid: Fluid): number {
   const peaks = peakLossTable(line.velocityLimitMS, fluid);
-  const index = SAE_J517_HOSES.findIndex((h) => h.dash === line.dashSize);
+  const index = line.hoseIndex;
   return Math.max(line.pressureLossBarPerM, index > 0 ? peaks[index - 1] : 0);
 }
 

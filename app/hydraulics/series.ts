@@ -68,12 +68,12 @@ export const IEC60072_MOTOR_KW: readonly number[] = [
 ];
 
 /** EN 50347 4-pole TEFC frame for a rated output (sources §4) [M]. */
-export const FOUR_POLE_FRAMES: Readonly<Record<string, string>> = {
-  "0.25": "71", "0.37": "71", "0.55": "80", "0.75": "80", "1.1": "90S", "1.5": "90L",
-  "2.2": "100L", "3": "100L", "4": "112M", "5.5": "132S", "7.5": "132M", "11": "160M",
-  "15": "160L", "18.5": "180M", "22": "180L", "30": "200L", "37": "225S", "45": "225M",
-  "55": "250M", "75": "280S", "90": "280M", "110": "315S", "132": "315M",
-};
+export const FOUR_POLE_FRAMES: ReadonlyMap<number, string> = new Map([
+  [0.25, "71"], [0.37, "71"], [0.55, "80"], [0.75, "80"], [1.1, "90S"], [1.5, "90L"],
+  [2.2, "100L"], [3, "100L"], [4, "112M"], [5.5, "132S"], [7.5, "132M"], [11, "160M"],
+  [15, "160L"], [18.5, "180M"], [22, "180L"], [30, "200L"], [37, "225S"], [45, "225M"],
+  [55, "250M"], [75, "280S"], [90, "280M"], [110, "315S"], [132, "315M"],
+]);
 
 /** ISO 3662 geometric displacements, R10-based, cm³/rev [M]. */
 export const ISO3662_DISPLACEMENTS_CC: readonly number[] = [
@@ -131,6 +131,7 @@ export const GAUGE_RANGES_BAR: readonly number[] = [40, 60, 100, 160, 250, 400, 
 
 /** Smallest series value ≥ x, or undefined when the series ends below x. */
 export function nextInSeries(series: readonly number[], x: number): number | undefined {
-  for (const v of series) if (v >= x - 1e-9) return v;
+  const floor = x - 1e-9; // tolerance so a value that is exactly on the series is kept
+  for (let i = 0; i < series.length; i++) if (series[i] >= floor) return series[i];
   return undefined;
 }

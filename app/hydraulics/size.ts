@@ -9,13 +9,14 @@ import { cylinderCandidates, cylinderForceN, type CylinderCandidate } from "./cy
 import type { Design } from "./design";
 import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
 import { explain } from "./explain";
-import { lineLossBar } from "./lines";
+import { lineLossBar, sizeLine } from "./lines";
 import { hydraulicPowerKw, selectMotorKw } from "./pump-motor";
 import type { Requirements } from "./requirements";
 import { dutyShares, reservoirVolumeL, strokeHeatKw, tankDissipationKw, tankSurfaceM2 } from "./reservoir-heat";
 import { FOUR_POLE_FRAMES, GAUGE_RANGES_BAR, nextInSeries } from "./series";
 import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
+import { num } from "./format";
 
 export const ENGINE_VERSION = "1.0.0";
 
@@ -77,8 +78,10 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const warnings = new Warnings();
   const eta = A.cylinderEfficiency.value;
   const etaO = A.overallEfficiency.value;
-  const { cyl, lines, cbv } = ev;
+  const { cyl, cbv } = ev;
   const qp = ev.pumpFlowLpm;
+  const suction = sizeLine(qp, A.suctionVelocityLimit.value, A.suctionLineLengthM.value, ctx.fluid);
+  const lines = { pressure: ev.lines.pressure, capWork: ev.lines.capWork, rodWork: ev.lines.rodWork, return: ev.lines.return, suction };
 
   // Directional valve
   const centre = chooseDcvCenter(cbv !== null);
@@ -108,7 +111,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const gaugeRangeBar =
     nextInSeries(GAUGE_RANGES_BAR, ev.reliefBar * A.gaugeRangeFactor.value) ?? GAUGE_RANGES_BAR[GAUGE_RANGES_BAR.length - 1];
   const workingPressureBar = ev.workingBar;
-  const frame = FOUR_POLE_FRAMES[String(motor.ratedKw)] ?? null;
+  const frame = FOUR_POLE_FRAMES.get(motor.ratedKw) ?? null;
 
   const design: Design = {
     engineVersion: ENGINE_VERSION,
@@ -232,8 +235,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
   return design;
 }
 
-/** One decimal, for messages. */
-const f1 = (x: number): number => Math.round(x * 10) / 10;
+const f1 = (x: number): string => num(x);
 const LINE_NAMES = ["pressure", "return", "suction", "capWork", "rodWork"] as const;
 
 function addWarnings(
@@ -257,7 +259,7 @@ function addWarnings(
   }
   if (!ev.bucklingOk) {
     w.add("BUCKLING_MARGIN",
-      `The ${c.rodMm} mm rod has a buckling safety factor of ${Math.round(ev.buckling.safetyFactor * 100) / 100} at full extension, below the ${A.bucklingSafetyFactor.value} required. Guide the load, shorten the stroke or choose a stronger mounting.`);
+      `The ${c.rodMm} mm rod has a buckling safety factor of ${num(ev.buckling.safetyFactor, 2)} at full extension, below the ${A.bucklingSafetyFactor.value} required. Guide the load, shorten the stroke or choose a stronger mounting.`);
   }
   if (ev.rodSidePeakBar > ctx.series.ratedPressureBar + 1e-9) {
     w.add("ROD_SIDE_INTENSIFICATION",
@@ -298,6 +300,6 @@ function addWarnings(
   }
   if (d.heat.coolerKw > 0) {
     w.add("HEAT_COOLER_NEEDED",
-      `On average ${f1(d.heat.averageLossKw)} kW becomes heat, but a ${d.reservoir.volumeL} L tank sheds only about ${Math.round(d.heat.tankDissipationKw * 100) / 100} kW at ${d.requirements.ambientC} °C ambient with oil at 60 °C. Fit a cooler of at least ${f1(d.heat.coolerKw)} kW.`);
+      `On average ${f1(d.heat.averageLossKw)} kW becomes heat, but a ${d.reservoir.volumeL} L tank sheds only about ${num(d.heat.tankDissipationKw, 2)} kW at ${d.requirements.ambientC} °C ambient with oil at 60 °C. Fit a cooler of at least ${f1(d.heat.coolerKw)} kW.`);
   }
 }

@@ -1,4 +1,5 @@
 import { A } from "./assumptions";
+import { num } from "./format";
 import { ISO4401_SIZES, type Iso4401Size } from "./series";
 
 // ---- Relief -------------------------------------------------------------------------------
@@ -38,14 +39,14 @@ export function choosePilotRatio(inertiaRatio: number, processForceOnLoweringStr
       loadClass: "variable or high-inertia",
       reason: processForceOnLoweringStroke
         ? "a process force acts on the lowering stroke, so the load varies: 3:1 for stability"
-        : `acceleration force is ${(inertiaRatio * 100).toFixed(0)} % of the weight component (≥ ${A.highInertiaRatio.value * 100} %): 3:1 for damping`,
+        : `acceleration force is ${num(inertiaRatio * 100, 0)} % of the weight component (≥ ${A.highInertiaRatio.value * 100} %): 3:1 for damping`,
     };
   }
   if (inertiaRatio < A.stableInertiaRatio.value) {
     return {
       ratio: 8,
       loadClass: "stable",
-      reason: `acceleration force is ${(inertiaRatio * 100).toFixed(1)} % of the weight component (< ${A.stableInertiaRatio.value * 100} %), no process force: 8:1 for a steady load`,
+      reason: `acceleration force is ${num(inertiaRatio * 100, 1)} % of the weight component (< ${A.stableInertiaRatio.value * 100} %), no process force: 8:1 for a steady load`,
     };
   }
   return { ratio: 4.5, loadClass: "general", reason: "ordinary load: 4.5:1, the general-purpose ratio" };

@@ -1,0 +1,111 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+} from "sequelize";
+import { sequelize } from "~/db.server";
+import type { UnitSystem } from "~/units/systems";
+
+export const SPEC_STATUSES = ["draft", "open", "closed", "awarded", "withdrawn"] as const;
+export type SpecStatus = (typeof SPEC_STATUSES)[number];
+
+export type SpecAnswers = Record<string, Record<string, string>>;
+
+export class Spec extends Model<InferAttributes<Spec>, InferCreationAttributes<Spec>> {
+  declare id: CreationOptional<string>;
+  declare organisationId: string;
+  declare createdById: string;
+  declare title: CreationOptional<string>;
+  declare status: CreationOptional<SpecStatus>;
+  declare answers: CreationOptional<SpecAnswers>;
+  declare unitSystem: CreationOptional<UnitSystem>;
+  declare completedSteps: CreationOptional<string[]>;
+  declare currentRevision: CreationOptional<number>;
+  declare bidDeadline: Date | null;
+  declare retainerPercent: string | null;
+  declare deliveryRegion: string | null;
+  declare publishedAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+Spec.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    organisationId: { type: DataTypes.UUID, allowNull: false },
+    createdById: { type: DataTypes.UUID, allowNull: false },
+    title: { type: DataTypes.STRING(120), allowNull: false, defaultValue: "" },
+    status: { type: DataTypes.ENUM(...SPEC_STATUSES), allowNull: false, defaultValue: "draft" },
+    answers: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
+    completedSteps: { type: DataTypes.ARRAY(DataTypes.STRING(20)), allowNull: false, defaultValue: [] },
+    currentRevision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    bidDeadline: { type: DataTypes.DATE, allowNull: true },
+    retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
+    deliveryRegion: { type: DataTypes.STRING(80), allowNull: true },
+    publishedAt: { type: DataTypes.DATE, allowNull: true },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "specs" },
+);
+
+export interface SpecAxis {
+  name: string;
+  requirements: unknown;
+  design: unknown;
+}
+
+export class SpecRevision extends Model<InferAttributes<SpecRevision>, InferCreationAttributes<SpecRevision>> {
+  declare id: CreationOptional<string>;
+  declare specId: string;
+  declare number: number;
+  declare axes: SpecAxis[];
+  declare answers: SpecAnswers;
+  declare unitSystem: UnitSystem;
+  declare engineVersion: string;
+  declare createdById: string;
+  declare createdAt: CreationOptional<Date>;
+}
+
+SpecRevision.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    specId: { type: DataTypes.UUID, allowNull: false },
+    number: { type: DataTypes.INTEGER, allowNull: false },
+    axes: { type: DataTypes.JSONB, allowNull: false },
+    answers: { type: DataTypes.JSONB, allowNull: false },
+    unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false },
+    engineVersion: { type: DataTypes.STRING(20), allowNull: false },
+    createdById: { type: DataTypes.UUID, allowNull: false },
+    createdAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "spec_revisions", updatedAt: false },
+);
+
+export class SpecAttachment extends Model<InferAttributes<SpecAttachment>, InferCreationAttributes<SpecAttachment>> {
+  declare id: CreationOptional<string>;
+  declare specId: string;
+  declare fileName: string;
+  declare contentType: string;
+  declare sizeBytes: number;
+  declare storageKey: string;
+  declare uploadedById: string;
+  declare createdAt: CreationOptional<Date>;
+}
+
+SpecAttachment.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    specId: { type: DataTypes.UUID, allowNull: false },
+    fileName: { type: DataTypes.STRING(200), allowNull: false },
+    contentType: { type: DataTypes.STRING(100), allowNull: false },
+    sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
+    storageKey: { type: DataTypes.STRING(200), allowNull: false, unique: true },
+    uploadedById: { type: DataTypes.UUID, allowNull: false },
+    createdAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "spec_attachments", updatedAt: false },
+);

@@ -77,7 +77,7 @@ export function explain(
     { maxPressureBar: v(r.maxPressureBar, "bar"), p_rated: v(ctx.series.ratedPressureBar, "bar"), margin: v(A.reliefMargin.value, "-") },
     "keeps the relief setting within the cylinder rating; relief margin common practice [CP]");
   t.add("bore", c.boreMm, "mm",
-    "smallest pair whose pump pressures ≤ p_max, counterbalance setting ≤ rating and buckling SF ≥ 3.5 (losses and back-pressure included)",
+    "smallest pair whose pump pressures ≤ p_max, counterbalance setting ≤ rating and buckling SF ≥ 3.5; valve, filter, CBV and line losses and back-pressure included — in the search each line is budgeted the worst loss any smaller hose reaches at its velocity limit, so more flow or load never yields a smaller cylinder; the pressures reported use the actual losses",
     { p_max: v(ctx.workingLimitBar, "bar"), A1_min_no_losses: v(ctx.minCapAreaMm2, "mm²") }, "ISO 3320 series [M]");
   t.add("rod", c.rodMm, "mm", "rod of the chosen pair; the thicker rod is taken when the thinner one fails a limit",
     { bore: v(c.boreMm, "mm") }, "ISO 3320 series [M]");

@@ -44,10 +44,17 @@ export function pressureLossBarPerM(flowLpm: number, diameterMm: number, fluid: 
   return (f * (1000 / diameterMm) * fluid.densityKgM3 * v * v) / 2 / 1e5;
 }
 
+/** Index of the smallest SAE J517 dash size whose nominal ID is at least the required diameter (the largest if none is). */
+function hoseIndexFor(requiredMm: number): number {
+  let i = 0;
+  while (i < SAE_J517_HOSES.length - 1 && SAE_J517_HOSES[i].nominalIdMm < requiredMm) i++;
+  return i;
+}
+
 /** Smallest SAE J517 dash size whose nominal ID is at least the required diameter. */
 export function selectHose(requiredMm: number): { hose: HoseSize; inRange: boolean } {
-  for (const hose of SAE_J517_HOSES) if (hose.nominalIdMm >= requiredMm) return { hose, inRange: true };
-  return { hose: SAE_J517_HOSES[SAE_J517_HOSES.length - 1], inRange: false };
+  const hose = SAE_J517_HOSES[hoseIndexFor(requiredMm)];
+  return { hose, inRange: hose.nominalIdMm >= requiredMm };
 }
 
 export interface LineSizing {
@@ -73,8 +80,7 @@ export interface LineSizing {
 /** Sizes a line for its largest flow and reports the loss at that flow. */
 export function sizeLine(flowLpm: number, velocityLimitMS: number, lengthM: number, fluid: Fluid): LineSizing {
   const requiredDiameterMm = lineDiameterMm(flowLpm, velocityLimitMS);
-  let hoseIndex = 0;
-  while (hoseIndex < SAE_J517_HOSES.length - 1 && SAE_J517_HOSES[hoseIndex].nominalIdMm < requiredDiameterMm) hoseIndex++;
+  const hoseIndex = hoseIndexFor(requiredDiameterMm);
   const hose = SAE_J517_HOSES[hoseIndex];
   const inRange = hose.nominalIdMm >= requiredDiameterMm;
   const d = hose.nominalIdMm;

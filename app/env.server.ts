@@ -19,6 +19,8 @@ const envSchema = z.object({
   BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(10),
   /** Live sizing sends a request per pause in typing; this allows brisk typing, not scraping. */
   SIZING_REQUESTS_PER_MINUTE: z.coerce.number().int().positive().default(240),
+  /** Folder for uploaded drawings and photos (local-disk storage); relative to the working directory. */
+  UPLOAD_DIR: z.string().min(1).default(".data/uploads"),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -10,6 +10,8 @@ export default [
   route("reset-password/:token", "routes/reset-password.tsx"),
   route("join/:token", "routes/join.tsx"),
   route("specs", "routes/specs.tsx"),
+  route("specs/:specId/attachments", "routes/spec-attachments.tsx"),
+  route("specs/:specId/attachments/:attachmentId", "routes/spec-attachment-download.ts"),
   route("open-specs", "routes/open-specs.tsx"),
   route("settings", "routes/settings.tsx"),
   route("team", "routes/team.tsx"),

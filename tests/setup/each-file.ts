@@ -23,6 +23,7 @@ Object.assign(process.env, {
   SMTP_PORT: String(inject("smtpPort")),
   MAILDEV_URL: inject("maildevUrl"),
   BCRYPT_COST: "10",
+  UPLOAD_DIR: `${(await import("node:os")).tmpdir()}/tenderflow-uploads-${dbName}`,
 });
 
 afterAll(async () => {

@@ -2,7 +2,8 @@ import { displayValue, type RequirementField } from "~/content/requirement-field
 import { unitLabel, type UnitSystem } from "~/units";
 
 // One question about the axis: label, plain help, an example in the person's units, the error
-// beside it. Used by the quick-sizing page and the spec form alike.
+// beside it. Used by the quick-sizing page (controlled, with onChange) and the spec form
+// (uncontrolled: the form owns the values) alike.
 
 export function RequirementInput({
   field,
@@ -39,8 +40,7 @@ export function RequirementInput({
           <select
             id={id}
             name={field.key}
-            value={value ?? ""}
-            onChange={(e) => onChange?.(e.target.value)}
+            {...(onChange ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onChange(e.target.value) } : { defaultValue: value ?? "" })}
             aria-invalid={invalid || undefined}
             aria-describedby={describedBy}
             className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
@@ -72,8 +72,7 @@ export function RequirementInput({
                 type="radio"
                 name={field.key}
                 value={o.value}
-                checked={value === o.value}
-                onChange={() => onChange?.(o.value)}
+                {...(onChange ? { checked: value === o.value, onChange: () => onChange(o.value) } : { defaultChecked: value === o.value })}
                 className="mt-1 accent-flow-600"
               />
               <span>
@@ -104,8 +103,7 @@ export function RequirementInput({
           type="text"
           inputMode="decimal"
           autoComplete="off"
-          value={value ?? ""}
-          onChange={(e) => onChange?.(e.target.value)}
+          {...(onChange ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLInputElement>) => onChange(e.target.value) } : { defaultValue: value ?? "" })}
           aria-invalid={invalid || undefined}
           aria-describedby={describedBy}
           className="w-full min-w-0 rounded-md border-0 bg-transparent px-3 py-2 text-sm outline-none"

@@ -1,0 +1,18 @@
+import type { SpecStatus } from "~/models/spec.server";
+
+// Spec statuses in Tenderflow's own words, shown the same everywhere.
+export const SPEC_STATUS_LABELS: Record<SpecStatus, string> = {
+  draft: "Draft",
+  open: "Open for bids",
+  closed: "Bidding closed",
+  awarded: "Awarded",
+  withdrawn: "Withdrawn",
+};
+
+export const SPEC_STATUS_TONES: Record<SpecStatus, "neutral" | "good" | "warn" | "bad"> = {
+  draft: "neutral",
+  open: "good",
+  closed: "warn",
+  awarded: "good",
+  withdrawn: "bad",
+};

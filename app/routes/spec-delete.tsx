@@ -1,0 +1,23 @@
+import { redirect } from "react-router";
+import type { Route } from "./+types/spec-delete";
+import { requireRole } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { FieldErrors } from "~/services/errors.server";
+import { specOfOwner } from "~/services/spec-access.server";
+import { deleteDraft } from "~/services/specs.server";
+
+export function loader() {
+  return redirect("/specs");
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requireRole(request, ["buyer"]);
+  const spec = await specOfOwner(user, params.specId);
+  try {
+    await deleteDraft(spec);
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return redirectWithToast(request, `/specs/${spec.id}`, error.message);
+  }
+  return redirectWithToast(request, "/specs", `Draft “${spec.title || "untitled"}” deleted.`);
+}

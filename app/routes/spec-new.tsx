@@ -1,0 +1,14 @@
+import { redirect } from "react-router";
+import type { Route } from "./+types/spec-new";
+import { requireRole } from "~/auth/permissions.server";
+import { createDraft } from "~/services/specs.server";
+
+export function loader() {
+  return redirect("/specs");
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const user = await requireRole(request, ["buyer"]);
+  const spec = await createDraft(user);
+  return redirect(`/specs/${spec.id}/edit/machine`);
+}

@@ -1,0 +1,13 @@
+import { redirect } from "react-router";
+import type { Route } from "./+types/spec-resume";
+import { requireRole } from "~/auth/permissions.server";
+import { resumeStep } from "~/content/spec-steps";
+import { specOfOwner } from "~/services/spec-access.server";
+
+// A draft opened again resumes at the first step not yet completed.
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requireRole(request, ["buyer"]);
+  const spec = await specOfOwner(user, params.specId);
+  if (spec.status !== "draft") return redirect(`/specs/${spec.id}`);
+  return redirect(`/specs/${spec.id}/edit/${resumeStep(spec.completedSteps)}`);
+}

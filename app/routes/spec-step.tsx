@@ -1,0 +1,357 @@
+import { getFormProps, useForm } from "@conform-to/react";
+import { parseWithZod } from "@conform-to/zod/v4";
+import { useMemo } from "react";
+import { Form, Link, data, redirect, useNavigation } from "react-router";
+import type { Route } from "./+types/spec-step";
+import { requireRole } from "~/auth/permissions.server";
+import { CircuitDiagram } from "~/components/circuit-diagram";
+import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
+import { RequirementInput } from "~/components/requirement-input";
+import { SpecProgress } from "~/components/spec-progress";
+import { Button, Card, Notice, PageHeader } from "~/components/ui";
+import { useLiveSizing } from "~/components/use-live-sizing";
+import { REQUIREMENT_FIELDS, displayValue, fieldApplies, fieldMessages, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
+import { ENGINE_KEYS_BY_STEP, SPEC_STEPS, isSpecStep, nextStep, previousStep, type FormStepId } from "~/content/spec-steps";
+import { FLUIDS, SUPPLY_VOLTAGES, stepFieldNames, stepSchema } from "~/schemas/spec";
+import { FieldErrors, notFound } from "~/services/errors.server";
+import { specOfOwner } from "~/services/spec-access.server";
+import { allAnswers, designOf, publish, saveStep } from "~/services/specs.server";
+import { UNIT_SYSTEM_LABELS, unitLabel, type Quantity, type UnitSystem } from "~/units";
+
+export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.stepTitle ?? "Spec"} · ${d?.spec.title || "New spec"} · Tenderflow` }];
+
+function othersOf(answers: FormValues, step: FormStepId): FormValues {
+  const mine = new Set(stepFieldNames(step));
+  return Object.fromEntries(Object.entries(answers).filter(([k]) => !mine.has(k)));
+}
+
+async function load(request: Request, params: { specId?: string; step?: string }) {
+  const user = await requireRole(request, ["buyer"]);
+  const spec = await specOfOwner(user, params.specId);
+  if (!isSpecStep(params.step)) notFound("No such step.");
+  return { user, spec, step: params.step };
+}
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { spec, step } = await load(request, params);
+  if (spec.status !== "draft") throw redirect(`/specs/${spec.id}`);
+  const answers = allAnswers(spec);
+  const review = step === "review" ? designOf(spec) : null;
+  return {
+    spec: { id: spec.id, title: spec.title, unitSystem: spec.unitSystem as UnitSystem, completedSteps: spec.completedSteps as string[] },
+    step,
+    stepTitle: SPEC_STEPS.find((s) => s.id === step)!.title,
+    answers,
+    stepAnswers: step === "review" ? {} : (spec.answers[step] ?? {}),
+    review,
+  };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const { user, spec, step } = await load(request, params);
+  const formData = await request.formData();
+  const intent = formData.get("intent");
+
+  if (step === "review") {
+    try {
+      await publish(spec, user, formData.get("cautionsRead") === "on");
+    } catch (error) {
+      if (!(error instanceof FieldErrors)) throw error;
+      return data({ publishError: error.message, result: null }, { status: 400 });
+    }
+    return redirect(`/specs/${spec.id}?published=1`);
+  }
+
+  const submission = parseWithZod(formData, { schema: stepSchema(step, spec.unitSystem, othersOf(allAnswers(spec), step)) });
+  const typed = Object.fromEntries(stepFieldNames(step).map((name) => [name, String(formData.get(name) ?? "")]));
+  if (intent === "back") {
+    // Going back never loses what was typed; the step stays incomplete until it validates.
+    await saveStep(spec, step, typed, submission.status === "success");
+    return redirect(`/specs/${spec.id}/edit/${previousStep(step) ?? step}`);
+  }
+  if (submission.status !== "success") return data({ result: submission.reply(), publishError: null }, { status: 400 });
+  await saveStep(spec, step, typed, true);
+  return redirect(`/specs/${spec.id}/edit/${nextStep(step)}`);
+}
+
+export default function SpecStep({ loaderData, actionData }: Route.ComponentProps) {
+  const { spec, step } = loaderData;
+  const meta = SPEC_STEPS.find((s) => s.id === step)!;
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link to="/specs" className="text-flow-700 hover:underline">
+          ← My specs
+        </Link>
+      </p>
+      <PageHeader title={spec.title || "New spec"} lead={`${meta.title}: ${meta.lead}`} />
+      <SpecProgress specId={spec.id} current={step} completed={spec.completedSteps} />
+      {step === "review" ? (
+        <Review loaderData={loaderData} publishError={actionData?.publishError ?? null} />
+      ) : (
+        <StepForm key={step} loaderData={loaderData} lastResult={actionData?.result ?? null} />
+      )}
+    </>
+  );
+}
+
+type LoaderData = Route.ComponentProps["loaderData"];
+
+function StepForm({ loaderData, lastResult }: { loaderData: LoaderData; lastResult: Parameters<typeof useForm>[0]["lastResult"] }) {
+  const step = loaderData.step as FormStepId;
+  const { spec, answers, stepAnswers } = loaderData;
+  const system = spec.unitSystem;
+  const navigation = useNavigation();
+  const others = useMemo(() => othersOf(answers, step), [answers, step]);
+  const [form, fields] = useForm({
+    lastResult,
+    defaultValue: stepAnswers,
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: stepSchema(step, system, others) }),
+    shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
+  });
+  const current = { ...others, ...(form.value as FormValues | undefined) } as FormValues;
+  const field = (name: string) => (fields as unknown as Record<string, { errors?: string[] }>)[name];
+  const engineKeys = ENGINE_KEYS_BY_STEP[step].filter((k) => fieldApplies(k, current.orientation ?? others.orientation));
+
+  return (
+    <div className={step === "motion" ? "grid gap-6 lg:grid-cols-[1fr_26rem]" : "max-w-2xl"}>
+      <Form method="post" {...getFormProps(form)} className="space-y-5">
+        <Card className="space-y-5">
+          {step === "machine" ? (
+            <>
+              <TextInput name="title" label="Title" help="A short name shops will see, e.g. “Bending press, main ram”." defaultValue={stepAnswers.title} errors={field("title")?.errors} />
+              <TextArea name="purpose" label="What the machine does" help="A sentence or two: what the axis moves and why. Optional, but it helps shops." defaultValue={stepAnswers.purpose} errors={field("purpose")?.errors} />
+            </>
+          ) : null}
+          {engineKeys.map((key: RequirementKey) => (
+            <RequirementInput
+              key={key}
+              field={REQUIREMENT_FIELDS[key]}
+              value={stepAnswers[key] ?? defaultFor(key, system)}
+              system={system}
+              errors={fieldMessages(key, field(key)?.errors, system)}
+            />
+          ))}
+          {step === "duty" ? (
+            <>
+              <Choice name="supplyVoltage" label="Mains voltage" help="The supply at the machine; the motor is quoted for it." options={SUPPLY_VOLTAGES} defaultValue={stepAnswers.supplyVoltage ?? "400 V three-phase"} errors={field("supplyVoltage")?.errors} />
+              <Choice name="fluid" label="Hydraulic fluid" help="Mineral oil grade by ISO 3448. ISO VG 46 suits most indoor machines." options={FLUIDS} defaultValue={stepAnswers.fluid ?? "ISO VG 46"} errors={field("fluid")?.errors} />
+            </>
+          ) : null}
+          {step === "quotation" ? <QuotationFields answers={stepAnswers} field={field} /> : null}
+          <p className="text-xs text-ink-600">
+            Values in {UNIT_SYSTEM_LABELS[system]}. <Link to="/settings" className="text-flow-700 hover:underline">Change your units</Link> for new specs.
+          </p>
+        </Card>
+        <div className="flex justify-between">
+          {previousStep(step) ? (
+            <Button type="submit" name="intent" value="back" tone="secondary" formNoValidate>
+              ← Back
+            </Button>
+          ) : (
+            <span />
+          )}
+          <Button type="submit" name="intent" value="next" disabled={navigation.state === "submitting"}>
+            Save and continue →
+          </Button>
+        </div>
+      </Form>
+      {step === "motion" ? <LivePreview values={current} system={system} /> : null}
+    </div>
+  );
+}
+
+/** A fresh step shows the field's sensible default, in the person's units. */
+function defaultFor(key: RequirementKey, system: UnitSystem): string | undefined {
+  const f = REQUIREMENT_FIELDS[key];
+  if (f.defaultValue === undefined) return undefined;
+  return f.kind === "number" ? displayValue(f, f.defaultValue, system) : f.defaultValue;
+}
+
+function LivePreview({ values, system }: { values: FormValues; system: UnitSystem }) {
+  const input = useMemo(() => toRequirementsInput(values, system), [values, system]);
+  const live = useLiveSizing(input, { design: null, fieldErrors: {} }, 400);
+  return (
+    <aside aria-label="Live preview" aria-live="polite" className="space-y-4 lg:sticky lg:top-4 lg:self-start">
+      <Card className="!p-4">
+        <h2 className="mb-2 font-semibold">Preliminary circuit</h2>
+        {live.design ? (
+          <>
+            <CircuitDiagram design={live.design} units={system} />
+            <div className="mt-3">
+              <KeySizes design={live.design} units={system} />
+            </div>
+          </>
+        ) : (
+          <p className="text-sm text-ink-600">
+            {live.status === "sizing" ? "Sizing…" : "Fill in the load, stroke and speeds and the circuit appears here."}
+          </p>
+        )}
+      </Card>
+    </aside>
+  );
+}
+
+function QuotationFields({ answers, field }: { answers: Record<string, string>; field: (n: string) => { errors?: string[] } | undefined }) {
+  return (
+    <>
+      <TextInput name="unitsWanted" label="Units wanted" help="How many identical axes shops should quote for." inputMode="numeric" defaultValue={answers.unitsWanted ?? "1"} errors={field("unitsWanted")?.errors} />
+      <TextInput name="bidDeadline" label="Bid deadline" help="The last day shops can bid. Example: three weeks from today." type="date" defaultValue={answers.bidDeadline} errors={field("bidDeadline")?.errors} />
+      <TextInput name="dateNeeded" label="Date needed" help="When the units must be delivered." type="date" defaultValue={answers.dateNeeded} errors={field("dateNeeded")?.errors} />
+      <TextInput name="deliveryRegion" label="Delivery region" help="Where the units go, e.g. “UK — West Midlands”." defaultValue={answers.deliveryRegion} errors={field("deliveryRegion")?.errors} />
+      <TextInput name="retainerPercent" label="Retainer for the chosen shop (%)" help="The share of the awarded price you pay up front by card when you award. 20 % is usual." inputMode="decimal" defaultValue={answers.retainerPercent ?? "20"} errors={field("retainerPercent")?.errors} />
+      <TextArea name="notes" label="Notes for the shops" help="Anything else: paint, standards your plant follows, access for installation. Optional." defaultValue={answers.notes} errors={field("notes")?.errors} />
+    </>
+  );
+}
+
+function Review({ loaderData, publishError }: { loaderData: LoaderData; publishError: string | null }) {
+  const { spec, answers, review } = loaderData;
+  const navigation = useNavigation();
+  const design = review?.design ?? null;
+  const incomplete = SPEC_STEPS.filter((s) => s.id !== "review" && !spec.completedSteps.includes(s.id));
+  return (
+    <div className="space-y-6">
+      {publishError ? <Notice tone="bad">{publishError}</Notice> : null}
+      {incomplete.length ? (
+        <Notice tone="warn">
+          Still to complete:{" "}
+          {incomplete.map((s, i) => (
+            <span key={s.id}>
+              {i ? ", " : ""}
+              <Link className="font-semibold underline" to={`/specs/${spec.id}/edit/${s.id}`}>{s.title}</Link>
+            </span>
+          ))}
+          .
+        </Notice>
+      ) : null}
+      {design ? (
+        <>
+          <Card>
+            <h2 className="mb-2 font-semibold">Preliminary circuit</h2>
+            <CircuitDiagram design={design} units={spec.unitSystem} />
+          </Card>
+          <KeySizes design={design} units={spec.unitSystem} />
+          <WarningsList warnings={design.warnings} />
+          <Card>
+            <h2 className="mb-3 font-semibold">Components shops will price</h2>
+            <ComponentTable design={design} />
+          </Card>
+          <Card>
+            <h2 className="mb-3 font-semibold">How every number was reached</h2>
+            <CalculationTrail trail={design.trail} />
+          </Card>
+        </>
+      ) : null}
+      <Card>
+        <h2 className="mb-3 font-semibold">Your answers</h2>
+        <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[16rem_1fr_auto]">
+          {SPEC_STEPS.filter((s) => s.id !== "review").flatMap((s) =>
+            stepFieldNames(s.id as FormStepId)
+              .filter((name) => answers[name as RequirementKey])
+              .map((name) => (
+                <div key={name} className="contents">
+                  <dt className="text-ink-600">{REQUIREMENT_FIELDS[name as RequirementKey]?.label ?? LABELS[name] ?? name}</dt>
+                  <dd className="font-semibold">
+                    {answers[name as RequirementKey]}{" "}
+                    {(() => {
+                      const f = REQUIREMENT_FIELDS[name as RequirementKey];
+                      return f?.kind === "number" && f.quantity ? <UnitOf quantity={f.quantity} system={spec.unitSystem} /> : null;
+                    })()}
+                  </dd>
+                  <dd>
+                    <Link className="text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/${s.id}`} aria-label={`Change ${name}`}>
+                      Change
+                    </Link>
+                  </dd>
+                </div>
+              )),
+          )}
+        </dl>
+      </Card>
+      <CautionsPanel />
+      <Form method="post" className="space-y-4">
+        <label className="flex items-start gap-2 text-sm">
+          <input type="checkbox" name="cautionsRead" className="mt-1 accent-flow-600" required />
+          <span>I have read the cautions above and understand that this circuit is a preliminary design for quotation.</span>
+        </label>
+        <Button type="submit" name="intent" value="publish" disabled={!design || incomplete.length > 0 || navigation.state === "submitting"}>
+          Publish for bids
+        </Button>
+      </Form>
+    </div>
+  );
+}
+
+const LABELS: Record<string, string> = {
+  title: "Title",
+  purpose: "What the machine does",
+  supplyVoltage: "Mains voltage",
+  fluid: "Hydraulic fluid",
+  unitsWanted: "Units wanted",
+  bidDeadline: "Bid deadline",
+  dateNeeded: "Date needed",
+  deliveryRegion: "Delivery region",
+  retainerPercent: "Retainer (%)",
+  notes: "Notes",
+};
+
+function UnitOf({ quantity, system }: { quantity: Quantity; system: UnitSystem }) {
+  return <span className="font-normal text-ink-600">{unitLabel(quantity, system)}</span>;
+}
+
+const inputClass =
+  "mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600";
+
+function Help({ id, help, errors }: { id: string; help: string; errors?: string[] }) {
+  return (
+    <>
+      <p id={`${id}-help`} className="text-xs text-ink-600">
+        {help}
+      </p>
+      {errors?.length ? (
+        <p id={`${id}-error`} className="mt-1 text-xs font-semibold text-alarm-600">
+          {errors.join(" ")}
+        </p>
+      ) : null}
+    </>
+  );
+}
+
+function TextInput({ name, label, help, errors, ...rest }: { name: string; label: string; help: string; errors?: string[] } & React.InputHTMLAttributes<HTMLInputElement>) {
+  const id = `spec-${name}`;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-semibold text-ink-800">{label}</label>
+      <Help id={id} help={help} errors={errors} />
+      <input id={id} name={name} aria-invalid={errors?.length ? true : undefined} aria-describedby={`${id}-help${errors?.length ? ` ${id}-error` : ""}`} className={inputClass} {...rest} />
+    </div>
+  );
+}
+
+function TextArea({ name, label, help, errors, defaultValue }: { name: string; label: string; help: string; errors?: string[]; defaultValue?: string }) {
+  const id = `spec-${name}`;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-semibold text-ink-800">{label}</label>
+      <Help id={id} help={help} errors={errors} />
+      <textarea id={id} name={name} rows={3} defaultValue={defaultValue} aria-invalid={errors?.length ? true : undefined} aria-describedby={`${id}-help${errors?.length ? ` ${id}-error` : ""}`} className={inputClass} />
+    </div>
+  );
+}
+
+function Choice({ name, label, help, options, defaultValue, errors }: { name: string; label: string; help: string; options: readonly string[]; defaultValue?: string; errors?: string[] }) {
+  const id = `spec-${name}`;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-semibold text-ink-800">{label}</label>
+      <Help id={id} help={help} errors={errors} />
+      <select id={id} name={name} defaultValue={defaultValue} aria-invalid={errors?.length ? true : undefined} aria-describedby={`${id}-help`} className={inputClass}>
+        {options.map((o) => (
+          <option key={o} value={o}>{o}</option>
+        ))}
+      </select>
+    </div>
+  );
+}

@@ -1,0 +1,91 @@
+import { Form, Link, useSearchParams } from "react-router";
+import type { Route } from "./+types/spec";
+import { requireUser } from "~/auth/permissions.server";
+import { CircuitDiagram } from "~/components/circuit-diagram";
+import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
+import { Badge, Button, Card, Notice, PageHeader } from "~/components/ui";
+import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES } from "~/content/spec-status";
+import type { Design } from "~/hydraulics";
+import { specForReader } from "~/services/spec-access.server";
+import { revisionsOf } from "~/services/specs.server";
+import type { UnitSystem } from "~/units";
+import type { SpecStatus } from "~/models/spec.server";
+
+export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.title ?? "Spec"} · Tenderflow` }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  const spec = await specForReader(user, params.specId);
+  const revisions = await revisionsOf(spec);
+  const current = revisions[0];
+  return {
+    id: spec.id,
+    title: spec.title,
+    status: spec.status as SpecStatus,
+    isOwner: spec.organisationId === user.organisationId,
+    bidDeadline: spec.bidDeadline?.toISOString() ?? null,
+    deliveryRegion: spec.deliveryRegion,
+    retainerPercent: spec.retainerPercent,
+    revision: current ? { number: current.number, engineVersion: current.engineVersion, createdAt: current.createdAt.toISOString() } : null,
+    design: (current?.axes[0]?.design ?? null) as Design | null,
+    unitSystem: (user.unitSystem ?? "metric") as UnitSystem,
+  };
+}
+
+export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
+  const [params] = useSearchParams();
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link to={d.isOwner ? "/specs" : "/open-specs"} className="text-flow-700 hover:underline">← {d.isOwner ? "My specs" : "Open specs"}</Link>
+      </p>
+      <PageHeader
+        title={d.title || "Untitled draft"}
+        lead={
+          <span className="flex flex-wrap items-center gap-2">
+            <Badge tone={SPEC_STATUS_TONES[d.status]}>{SPEC_STATUS_LABELS[d.status]}</Badge>
+            {d.revision ? <span>Revision {d.revision.number} · engine {d.revision.engineVersion}</span> : null}
+            {d.bidDeadline ? <span>· bids until {new Date(d.bidDeadline).toLocaleDateString("en-GB")}</span> : null}
+            {d.deliveryRegion ? <span>· delivered to {d.deliveryRegion}</span> : null}
+          </span>
+        }
+        actions={
+          d.isOwner && d.status === "draft" ? (
+            <>
+              <Link to={`/specs/${d.id}/edit`} className="rounded-md bg-flow-600 px-4 py-2 text-sm font-semibold text-white">Continue the draft</Link>
+              <Form method="post" action={`/specs/${d.id}/delete`}>
+                <Button tone="danger" type="submit">Delete draft</Button>
+              </Form>
+            </>
+          ) : null
+        }
+      />
+      {params.get("published") ? (
+        <div className="mb-6">
+          <Notice tone="good">Published. Fluid-power shops have been told and can bid until the deadline.</Notice>
+        </div>
+      ) : null}
+      {d.design ? (
+        <div className="space-y-6">
+          <Card>
+            <h2 className="mb-2 font-semibold">Preliminary circuit</h2>
+            <CircuitDiagram design={d.design} units={d.unitSystem} />
+          </Card>
+          <KeySizes design={d.design} units={d.unitSystem} />
+          <WarningsList warnings={d.design.warnings} />
+          <CautionsPanel />
+          <Card>
+            <h2 className="mb-3 font-semibold">Bill of materials</h2>
+            <ComponentTable design={d.design} />
+          </Card>
+          <Card>
+            <h2 className="mb-3 font-semibold">How every number was reached</h2>
+            <CalculationTrail trail={d.design.trail} />
+          </Card>
+        </div>
+      ) : (
+        <Notice>This draft has not been published yet, so it has no frozen design.</Notice>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,81 @@
+import { z } from "zod";
+import { parseRequirements, RequirementsError } from "~/hydraulics";
+import { toRequirementsInput, type FormValues } from "~/content/requirement-fields";
+import { ENGINE_KEYS_BY_STEP, type FormStepId } from "~/content/spec-steps";
+import type { UnitSystem } from "~/units";
+
+// The spec form's schemas, one per step, shared by the server action and the Conform form.
+// The engine's own requirement schema judges the axis fields: each step runs it over every
+// answer given so far and keeps the problems of its own fields, so cross-field rules (an
+// inclined axis needs its angle) hold without a second copy of them.
+
+const text = (max: number, message: string) => z.string({ error: message }).trim().min(1, message).max(max, `Keep it under ${max + 1} characters.`);
+const optionalText = (max: number) => z.string().trim().max(max, `Keep it under ${max + 1} characters.`).optional();
+
+export const SUPPLY_VOLTAGES = ["230 V single-phase", "400 V three-phase", "415 V three-phase", "480 V three-phase", "575 V three-phase", "690 V three-phase"] as const;
+export const FLUIDS = ["ISO VG 32", "ISO VG 46", "ISO VG 68"] as const;
+
+const isoDate = (message: string) => z.string({ error: message }).regex(/^\d{4}-\d{2}-\d{2}$/, message);
+const today = () => new Date().toISOString().slice(0, 10);
+
+const OWN_FIELDS = {
+  machine: {
+    title: text(120, "Give the spec a short title, e.g. “Bending press, main ram”."),
+    purpose: optionalText(2000),
+  },
+  motion: {},
+  duty: {
+    supplyVoltage: z.enum(SUPPLY_VOLTAGES, { error: "Choose the mains voltage at the machine." }),
+    fluid: z.enum(FLUIDS, { error: "Choose a fluid grade (ISO VG 46 if unsure)." }),
+  },
+  quotation: {
+    unitsWanted: z.coerce.number({ error: "Enter how many units you want quoted." }).int("Enter a whole number.").min(1, "At least 1.").max(1000, "At most 1000."),
+    dateNeeded: isoDate("Enter the date you need the units by."),
+    bidDeadline: isoDate("Enter the last day shops can bid."),
+    deliveryRegion: text(80, "Say where the units are delivered, e.g. “UK — West Midlands”."),
+    retainerPercent: z.coerce.number({ error: "Enter the retainer share in percent." }).min(0, "From 0 to 50 %.").max(50, "From 0 to 50 %."),
+    notes: optionalText(4000),
+  },
+} satisfies Record<FormStepId, z.ZodRawShape>;
+
+/** The quotation's dates: a deadline still ahead, and delivery after it. */
+function checkDates(v: Record<string, unknown>, ctx: z.RefinementCtx) {
+  const deadline = typeof v.bidDeadline === "string" ? v.bidDeadline : null;
+  const needed = typeof v.dateNeeded === "string" ? v.dateNeeded : null;
+  if (deadline && deadline <= today()) ctx.addIssue({ code: "custom", path: ["bidDeadline"], message: "The bid deadline must be after today." });
+  if (deadline && needed && needed <= deadline) ctx.addIssue({ code: "custom", path: ["dateNeeded"], message: "The date needed must be after the bid deadline." });
+}
+
+export const quotationSchema = z.object(OWN_FIELDS.quotation).superRefine(checkDates);
+export type QuotationAnswers = z.output<typeof quotationSchema>;
+
+/** The schema of one step, given the person's units and the answers of the other steps. */
+export function stepSchema(step: FormStepId, system: UnitSystem, otherAnswers: FormValues) {
+  const keys = ENGINE_KEYS_BY_STEP[step];
+  // loose(): the engine fields pass through as typed, for the engine's schema to judge.
+  const own = z.looseObject(OWN_FIELDS[step]);
+  return own.superRefine(
+    (values, ctx) => {
+    if (step === "quotation") checkDates(values, ctx);
+    if (!keys.length) return;
+    const typed: FormValues = { ...otherAnswers };
+    for (const key of keys) typed[key] = typeof values[key] === "string" ? (values[key] as string) : undefined;
+    try {
+      parseRequirements(toRequirementsInput(typed, system));
+    } catch (error) {
+      if (!(error instanceof RequirementsError)) throw error;
+      for (const key of keys) {
+        for (const message of error.fieldErrors[key] ?? []) ctx.addIssue({ code: "custom", path: [key], message });
+      }
+    }
+    },
+    // Run even when the step's own fields failed, so every problem shows at once.
+    { when: (payload) => typeof payload.value === "object" && payload.value !== null },
+  );
+}
+
+
+/** The names a step's form posts: its own fields and the engine fields it asks. */
+export function stepFieldNames(step: FormStepId): string[] {
+  return [...Object.keys(OWN_FIELDS[step]), ...ENGINE_KEYS_BY_STEP[step]];
+}

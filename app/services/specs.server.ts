@@ -1,0 +1,142 @@
+import type { Order, WhereOptions } from "sequelize";
+import { ENGINE_VERSION, RequirementsError, sizeCircuit, type Design } from "~/hydraulics";
+import { toRequirementsInput, type FormValues } from "~/content/requirement-fields";
+import { FORM_STEPS, type FormStepId } from "~/content/spec-steps";
+import { quotationSchema } from "~/schemas/spec";
+import { Spec, SpecAttachment, SpecRevision, User, sequelize } from "~/models/index.server";
+import type { SpecStatus } from "~/models/spec.server";
+import { FieldErrors } from "./errors.server";
+import { enqueueMail } from "./mail.server";
+import { env } from "~/env.server";
+
+// Specs of a buyer organisation: drafts saved step by step, then published as revisions.
+
+export async function createDraft(user: User) {
+  return Spec.create({
+    organisationId: user.organisationId,
+    createdById: user.id,
+    unitSystem: user.unitSystem,
+    bidDeadline: null,
+    retainerPercent: null,
+    deliveryRegion: null,
+    publishedAt: null,
+  });
+}
+
+/** Every answer of every step, flat, as typed. */
+export function allAnswers(spec: Spec): FormValues {
+  return Object.assign({}, ...Object.values(spec.answers ?? {}));
+}
+
+/**
+ * Saves one step's answers. `complete` marks the step done (its answers passed the step's
+ * schema); a step left with Back keeps what was typed but stays incomplete.
+ */
+export async function saveStep(spec: Spec, step: FormStepId, answers: Record<string, string>, complete: boolean) {
+  if (spec.status !== "draft") throw new FieldErrors({ "": ["A published spec is changed by revising it."] });
+  const completed = new Set(spec.completedSteps);
+  if (complete) completed.add(step);
+  else completed.delete(step);
+  const title = step === "machine" && answers.title ? answers.title.trim().slice(0, 120) : spec.title;
+  await spec.update({
+    answers: { ...spec.answers, [step]: answers },
+    completedSteps: FORM_STEPS.filter((s) => completed.has(s)),
+    title,
+  });
+}
+
+export async function deleteDraft(spec: Spec) {
+  if (spec.status !== "draft") throw new FieldErrors({ "": ["Only drafts can be deleted."] });
+  await spec.destroy();
+}
+
+/** The preliminary design of a draft's answers, or the problems that keep it from one. */
+export function designOf(spec: Spec): { design: Design | null; fieldErrors: Record<string, string[]> } {
+  try {
+    return { design: sizeCircuit(toRequirementsInput(allAnswers(spec), spec.unitSystem)), fieldErrors: {} };
+  } catch (error) {
+    if (error instanceof RequirementsError) return { design: null, fieldErrors: error.fieldErrors };
+    throw error;
+  }
+}
+
+export const SPEC_SORTS = {
+  updated: [["updatedAt", "DESC"]],
+  deadline: [["bidDeadline", "ASC NULLS LAST"]],
+  title: [["title", "ASC"]],
+} satisfies Record<string, Order>;
+export type SpecSort = keyof typeof SPEC_SORTS;
+
+export async function listSpecs(user: User, query: { status?: SpecStatus; sort?: SpecSort }) {
+  const where: WhereOptions = { organisationId: user.organisationId, ...(query.status ? { status: query.status } : {}) };
+  return Spec.findAll({
+    where,
+    order: [...SPEC_SORTS[query.sort ?? "updated"], ["id", "ASC"]],
+    limit: 200,
+  });
+}
+
+/**
+ * Publishes a completed draft: freezes requirements and design into revision 1, opens it for
+ * bids until its deadline, and queues an e-mail to every active shop user, all in one transaction.
+ */
+export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
+  if (spec.status !== "draft") throw new FieldErrors({ "": ["This spec is already published."] });
+  const missing = FORM_STEPS.filter((s) => !spec.completedSteps.includes(s));
+  if (missing.length) throw new FieldErrors({ "": [`Complete every step first (${missing.join(", ")}).`] });
+  if (!cautionsRead) throw new FieldErrors({ cautionsRead: ["Confirm that you have read the cautions."] });
+  const quotation = quotationSchema.safeParse(spec.answers.quotation ?? {});
+  if (!quotation.success) throw new FieldErrors({ "": ["The quotation step needs another look (the bid deadline may have passed)."] });
+  const { design, fieldErrors } = designOf(spec);
+  if (!design) throw new FieldErrors({ "": [`The axis could not be sized: ${Object.keys(fieldErrors).join(", ")}.`] });
+
+  await sequelize.transaction(async (transaction) => {
+    // Lock the draft so two clicks on Publish make one revision.
+    const locked = await Spec.findByPk(spec.id, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+    if (locked.status !== "draft") throw new FieldErrors({ "": ["This spec is already published."] });
+    await SpecRevision.create(
+      {
+        specId: spec.id,
+        number: 1,
+        axes: [{ name: "Axis 1", requirements: design.requirements, design }],
+        answers: locked.answers,
+        unitSystem: locked.unitSystem,
+        engineVersion: ENGINE_VERSION,
+        createdById: user.id,
+      },
+      { transaction },
+    );
+    const deadline = new Date(`${quotation.data.bidDeadline}T23:59:59Z`);
+    await locked.update(
+      {
+        status: "open",
+        currentRevision: 1,
+        publishedAt: new Date(),
+        bidDeadline: deadline,
+        retainerPercent: String(quotation.data.retainerPercent),
+        deliveryRegion: quotation.data.deliveryRegion,
+      },
+      { transaction },
+    );
+    const shops = await User.findAll({ where: { role: "shop", active: true }, transaction });
+    for (const shop of shops) {
+      await enqueueMail(
+        {
+          to: shop.email,
+          subject: `New spec open for bids: ${locked.title}`,
+          text: `Hello ${shop.name},\n\nA machine builder has published a spec on Tenderflow: "${locked.title}", delivered to ${quotation.data.deliveryRegion}, bids until ${quotation.data.bidDeadline}.\n\nRead it and bid: ${env().APP_URL}/open-specs\n`,
+        },
+        transaction,
+      );
+    }
+  });
+  await spec.reload();
+}
+
+export async function revisionsOf(spec: Spec) {
+  return SpecRevision.findAll({ where: { specId: spec.id }, order: [["number", "DESC"]] });
+}
+
+export async function attachmentCount(spec: Spec) {
+  return SpecAttachment.count({ where: { specId: spec.id } });
+}

@@ -1,0 +1,172 @@
+import { describe, expect, it } from "vitest";
+import * as signIn from "~/routes/sign-in";
+import * as specNew from "~/routes/spec-new";
+import * as resume from "~/routes/spec-resume";
+import * as step from "~/routes/spec-step";
+import * as specPage from "~/routes/spec";
+import * as specList from "~/routes/specs";
+import * as del from "~/routes/spec-delete";
+import { OutboxMail, Spec, SpecRevision, type User } from "~/models/index.server";
+import { deliverDueMail } from "~/services/mail.server";
+import { waitForMail } from "../support/mailbox";
+import { PASSWORD, makeMember } from "../support/factories";
+import { Visitor } from "../support/routes";
+
+async function signedIn(user: User) {
+  const visitor = new Visitor();
+  await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+  return visitor;
+}
+
+const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+
+const ANSWERS = {
+  machine: { intent: "next", title: "Bending press, main ram", purpose: "Presses sheet over a die.", orientation: "vertical", rodDirection: "down", mounting: "pinned-pinned" },
+  motion: { intent: "next", massKg: "800", processForceN: "50000", frictionCoefficient: "0.1", strokeMm: "500", extendSpeedMmS: "100", retractSpeedMmS: "150", accelTimeS: "0.2" },
+  duty: { intent: "next", cyclesPerHour: "60", hoursPerDay: "16", ambientC: "25", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
+  quotation: { intent: "next", unitsWanted: "2", bidDeadline: inDays(21), dateNeeded: inDays(90), deliveryRegion: "UK — West Midlands", retainerPercent: "20", notes: "" },
+};
+
+async function newDraft(visitor: Visitor) {
+  const created = await visitor.post(specNew.action, "/specs/new", {});
+  expect(created.status).toBe(302);
+  const id = created.location!.split("/")[2];
+  return id;
+}
+
+const stepPost = (visitor: Visitor, id: string, name: string, fields: Record<string, string>) =>
+  visitor.post(step.action, `/specs/${id}/edit/${name}`, fields, { specId: id, step: name });
+
+describe("the spec form", () => {
+  it("saves each step, resumes where the buyer left, and publishes with mail to the shops", async () => {
+    const buyer = await makeMember("buyer");
+    const shop = await makeMember("shop");
+    const visitor = await signedIn(buyer);
+    const id = await newDraft(visitor);
+
+    for (const [name, fields] of Object.entries(ANSWERS).slice(0, 2)) {
+      const res = await stepPost(visitor, id, name, fields);
+      expect(res.status).toBe(302);
+    }
+    const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
+    expect(spec.title).toBe("Bending press, main ram");
+    expect(spec.completedSteps).toEqual(["machine", "motion"]);
+    expect(spec.answers.motion.strokeMm).toBe("500");
+
+    // Leaving and coming back resumes at the first step not done.
+    const back = await visitor.get(resume.loader, `/specs/${id}/edit`, { specId: id });
+    expect(back.location).toBe(`/specs/${id}/edit/duty`);
+
+    for (const [name, fields] of Object.entries(ANSWERS).slice(2)) {
+      expect((await stepPost(visitor, id, name, fields)).status).toBe(302);
+    }
+    const review = await visitor.get(step.loader, `/specs/${id}/edit/review`, { specId: id, step: "review" });
+    expect(review.data.review.design.cylinder.strokeMm).toBe(500);
+    expect(review.data.review.design.counterbalance.side).toBe("rod");
+
+    // Publishing needs the cautions read.
+    const refused = await stepPost(visitor, id, "review", { intent: "publish" });
+    expect(refused.status).toBe(400);
+    expect(refused.data.publishError).toMatch(/cautions/);
+    expect((await spec.reload()).status).toBe("draft");
+
+    const published = await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
+    expect(published.status).toBe(302);
+    await spec.reload();
+    expect(spec.status).toBe("open");
+    expect(spec.currentRevision).toBe(1);
+    expect(spec.retainerPercent).toBe("20.00");
+    const revision = await SpecRevision.findOne({ where: { specId: id }, rejectOnEmpty: true });
+    expect(revision.axes).toHaveLength(1);
+    expect(revision.engineVersion).toMatch(/^\d+\.\d+\.\d+$/);
+    expect(await OutboxMail.count({ where: { to: shop.email } })).toBe(1);
+    await deliverDueMail(100);
+    const mail = await waitForMail(shop.email, "New spec open for bids");
+    expect(mail.subject).toContain("Bending press, main ram");
+
+    // A second publish makes no second revision.
+    const again = await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
+    expect(again.status).toBe(400);
+    expect(again.data.publishError).toMatch(/already published/);
+    expect(await SpecRevision.count({ where: { specId: id } })).toBe(1);
+
+    const page = await visitor.get(specPage.loader, `/specs/${id}`, { specId: id });
+    expect(page.data.status).toBe("open");
+    const shopView = await (await signedIn(shop)).get(specPage.loader, `/specs/${id}`, { specId: id });
+    expect(shopView.status).toBe(200);
+  });
+
+  it("returns field errors for bad answers and saves nothing of them", async () => {
+    const visitor = await signedIn(await makeMember("buyer"));
+    const id = await newDraft(visitor);
+    const res = await stepPost(visitor, id, "machine", { intent: "next", title: "", orientation: "inclined", mounting: "glued" });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.data.result.error).sort()).toEqual(["inclineDeg", "mounting", "rodDirection", "title"]);
+    const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
+    expect(spec.answers).toEqual({});
+    expect(spec.completedSteps).toEqual([]);
+
+    const motion = await stepPost(visitor, id, "motion", { ...ANSWERS.motion, strokeMm: "long", massKg: "-3" });
+    expect(Object.keys(motion.data.result.error).sort()).toEqual(["massKg", "strokeMm"]);
+  });
+
+  it("keeps what was typed when the buyer goes back, without marking the step done", async () => {
+    const visitor = await signedIn(await makeMember("buyer"));
+    const id = await newDraft(visitor);
+    await stepPost(visitor, id, "machine", ANSWERS.machine);
+    const res = await stepPost(visitor, id, "motion", { ...ANSWERS.motion, intent: "back", strokeMm: "" });
+    expect(res.location).toBe(`/specs/${id}/edit/machine`);
+    const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
+    expect(spec.answers.motion.massKg).toBe("800");
+    expect(spec.completedSteps).toEqual(["machine"]);
+  });
+
+  it("reads US customary answers in inches and pounds and sizes them in SI", async () => {
+    const buyer = await makeMember("buyer");
+    await buyer.update({ unitSystem: "us" });
+    const visitor = await signedIn(buyer);
+    const id = await newDraft(visitor);
+    await stepPost(visitor, id, "machine", ANSWERS.machine);
+    await stepPost(visitor, id, "motion", { ...ANSWERS.motion, massKg: "1764", processForceN: "11240", strokeMm: "19.69", extendSpeedMmS: "3.94", retractSpeedMmS: "5.91" });
+    await stepPost(visitor, id, "duty", { ...ANSWERS.duty, ambientC: "77", maxPressureBar: "2320" });
+    const review = await visitor.get(step.loader, `/specs/${id}/edit/review`, { specId: id, step: "review" });
+    const req = review.data.review.design.requirements;
+    expect(req.strokeMm).toBeCloseTo(500.1, 0); // 19.69 in × 25.4
+    expect(req.massKg).toBeCloseTo(800.1, 0); // 1764 lb × 0.45359237
+    expect(req.ambientC).toBeCloseTo(25, 5); // (77 − 32) × 5/9
+    expect(req.maxPressureBar).toBeCloseTo(160, 0); // 2320 psi × 0.0689476
+  });
+
+  it("lists, filters and deletes drafts; another organisation sees nothing", async () => {
+    const buyer = await makeMember("buyer");
+    const stranger = await makeMember("buyer");
+    const visitor = await signedIn(buyer);
+    const id = await newDraft(visitor);
+    await stepPost(visitor, id, "machine", ANSWERS.machine);
+    const list = await visitor.get(specList.loader, "/specs");
+    expect(list.data.specs.map((s: { id: string }) => s.id)).toEqual([id]);
+    const open = await visitor.get(specList.loader, "/specs?status=open");
+    expect(open.data.specs).toEqual([]);
+
+    const other = await signedIn(stranger);
+    expect((await other.get(step.loader, "/x", { specId: id, step: "machine" })).status).toBe(404);
+    expect((await other.post(step.action, "/x", ANSWERS.machine, { specId: id, step: "machine" })).status).toBe(404);
+    expect((await other.get(specPage.loader, "/x", { specId: id })).status).toBe(404);
+    expect((await other.post(del.action, "/x", {}, { specId: id })).status).toBe(404);
+    expect((await other.get(specList.loader, "/specs")).data.specs).toEqual([]);
+    const shop = await signedIn(await makeMember("shop"));
+    expect((await shop.get(specPage.loader, "/x", { specId: id })).status).toBe(404); // drafts are private
+
+    expect((await visitor.post(del.action, "/x", {}, { specId: id })).status).toBe(302);
+    expect(await Spec.findByPk(id)).toBeNull();
+  });
+
+  it("rejects an unknown step and a deadline in the past", async () => {
+    const visitor = await signedIn(await makeMember("buyer"));
+    const id = await newDraft(visitor);
+    expect((await visitor.get(step.loader, "/x", { specId: id, step: "payment" })).status).toBe(404);
+    const res = await stepPost(visitor, id, "quotation", { ...ANSWERS.quotation, bidDeadline: "2020-01-01" });
+    expect(res.status).toBe(400);
+    expect(res.data.result.error.bidDeadline[0]).toMatch(/after today/);
+  });
+});

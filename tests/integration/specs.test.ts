@@ -92,8 +92,12 @@ describe("the spec form", () => {
 
     const page = await visitor.get(specPage.loader, `/specs/${id}`, { specId: id });
     expect(page.data.status).toBe("open");
-    const shopView = await (await signedIn(shop)).get(specPage.loader, `/specs/${id}`, { specId: id });
+    const shopVisitor = await signedIn(shop);
+    const shopView = await shopVisitor.get(specPage.loader, `/specs/${id}`, { specId: id });
     expect(shopView.status).toBe(200);
+    const { loader: openSpecs } = await import("~/routes/open-specs");
+    const open = await shopVisitor.get(openSpecs, "/open-specs");
+    expect(open.data.specs.map((s: { id: string }) => s.id)).toContain(id);
   });
 
   it("returns field errors for bad answers and saves nothing of them", async () => {

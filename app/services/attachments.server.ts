@@ -183,7 +183,8 @@ async function receiveForm(request: Request, freeSlots: number) {
   };
 
   try {
-    // The parser stops reading a part as soon as it passes the size limit.
+    // The parser stops reading as soon as a part passes the size limit. One file more than a spec
+    // holds is let through so that it can be refused by name; beyond that the request is refused.
     const fields = await parseFormData(request, { maxFileSize: maxFileBytes, maxFiles: maxFilesPerSpec + 1, maxParts: maxFilesPerSpec + 20 }, handleFile);
     return { fields, staged, errors };
   } catch (error) {

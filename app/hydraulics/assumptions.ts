@@ -60,6 +60,7 @@ export const ASSUMPTIONS = {
   cbvLowSettingBar: a(20, "bar", "a counterbalance setting below this is flagged for review: the load is light and the valve must still hold the rod and tooling against surges; our convention"),
   cbvSettingFactor: a(1.3, "-", "counterbalance setting ≈ 1.3 × load-induced pressure (1.2–1.5); valve makers' notes, common practice [CP]"),
   valveFlowUse: a(0.8, "-", "directional valve used at ≤ 80 % of its typical maximum flow; common practice [CP]"),
+  ventPressureBar: a(5, "bar", "pump pressure in neutral with a pilot-operated relief vented to tank by its solenoid vent valve: about 3–7 bar at rated flow in makers' curves; 5 bar chosen, common practice [CP]"),
   coilVoltage: a(24, "V DC", "solenoid coil voltage, the usual machine-control supply; common practice [CP]"),
   highInertiaRatio: a(0.25, "-", "acceleration force ≥ 25 % of the weight component: treat as high-inertia (pilot 3:1); our rule on common-practice classes [CP]"),
   stableInertiaRatio: a(0.05, "-", "acceleration force < 5 % of the weight component and no process force: stable load (pilot 8:1); our rule [CP]"),

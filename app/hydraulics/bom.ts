@@ -19,6 +19,7 @@ function hose(key: string, item: string, line: Line, rated: string): BomLine {
 /** One line per component, with stable keys the bids and exports are keyed on. */
 export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
   const relief = d.pressuresBar.reliefSetting;
+  const vent = d.reliefVent;
   const c = d.cylinder;
   const torqueNm = (9550 * d.motor.ratedKw) / d.pump.speedRpm;
   const l = d.lines;
@@ -58,17 +59,32 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
       specification: `for ${num(d.returnFilter.ratedFlowLpm)} L/min at ISO VG 46, about 10 µm absolute, bypass valve about 2.5 bar, clogging indicator`,
       rating: { value: d.returnFilter.ratedFlowLpm, unit: "L/min", label: "rated flow" },
     },
-    {
-      key: "relief-valve", item: "Pressure-relief valve", quantity: 1,
-      specification: `set to ${relief} bar, passes the full ${num(d.flowsLpm.pump)} L/min`,
-      rating: { value: relief, unit: "bar", label: "setting" },
-    },
+    vent
+      ? {
+          key: "relief-valve", item: "Pressure-relief valve, pilot-operated, with vent port X", quantity: 1,
+          specification: `set to ${relief} bar, passes the full ${num(d.flowsLpm.pump)} L/min; vented through port X by the relief vent valve (about ${num(vent.ventPressureBar)} bar at the pump in neutral)`,
+          rating: { value: relief, unit: "bar", label: "setting" },
+        }
+      : {
+          key: "relief-valve", item: "Pressure-relief valve", quantity: 1,
+          specification: `set to ${relief} bar, passes the full ${num(d.flowsLpm.pump)} L/min`,
+          rating: { value: relief, unit: "bar", label: "setting" },
+        },
     {
       key: "directional-valve", item: "4/3 solenoid directional valve", quantity: 1,
       specification: `ISO 4401-${d.directionalValve.iso4401Size} (${d.directionalValve.nominalSize}), ${d.directionalValve.center} centre, ${d.directionalValve.coilVoltage} coils, at least ${num(d.directionalValve.maxPathFlowLpm)} L/min per path and ${relief} bar`,
       rating: { value: d.directionalValve.maxPathFlowLpm, unit: "L/min", label: "largest path flow" },
     },
   ];
+  // A line of its own (not folded into the relief's): the vent valve is a separate part with its
+  // own coil and wiring, often mounted on the relief or supplied with it as a solenoid-vented relief.
+  if (vent) {
+    bom.push({
+      key: "relief-vent-valve", item: "Relief vent valve, 2/2 solenoid, normally open", quantity: 1,
+      specification: `on the relief valve's vent port X to tank, ${vent.coilVoltage} coil; de-energised in neutral (the pump circulates at about ${num(vent.ventPressureBar)} bar), energised with solenoid a or b; rated for at least ${relief} bar`,
+      rating: { value: relief, unit: "bar", label: "pressure rating" },
+    });
+  }
   if (d.counterbalance) {
     const cb = d.counterbalance;
     bom.push({

@@ -1,15 +1,25 @@
-import type { Circuit, CircuitComponent, CircuitConnection, Design } from "./design";
+import type { Circuit, CircuitComponent, CircuitConnection, DcvPositions, Design } from "./design";
 import { dcvPositions } from "./valves";
 
-/** Components and connections for the diagram; every port the circuit uses is joined. */
-export function buildCircuit(d: Design, gaugeRangeBar: number): Circuit {
+/**
+ * Components and connections for the diagram; every port the circuit uses is joined. With a
+ * vented relief its vent port X is joined by a pilot line to the vent valve's P, and the vent
+ * valve's T returns to tank [CP].
+ */
+export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPositions = dcvPositions(d.directionalValve.center)): Circuit {
   const cb = d.counterbalance;
+  const vent = d.reliefVent;
   const components: CircuitComponent[] = [
     { id: "tank", kind: "tank", ports: ["suction", "return"], label: "Reservoir", values: { volumeL: d.reservoir.volumeL } },
     { id: "strainer", kind: "strainer", ports: ["inlet", "outlet"], label: "Suction strainer" },
     { id: "motor", kind: "motor", ports: ["shaft"], label: "Motor", values: { ratedKw: d.motor.ratedKw, speedRpm: d.pump.speedRpm } },
     { id: "pump", kind: "pump", ports: ["inlet", "outlet", "shaft"], label: "Pump", values: { displacementCcRev: d.pump.displacementCcRev, flowLpm: d.flowsLpm.pump } },
-    { id: "relief", kind: "relief", ports: ["1", "2"], label: "Relief valve", values: { settingBar: d.pressuresBar.reliefSetting } },
+    vent
+      ? {
+          id: "relief", kind: "relief", ports: ["1", "2", "X"], label: "Relief valve, pilot-operated, solenoid-vented",
+          values: { settingBar: d.pressuresBar.reliefSetting, vented: "yes", ventPressureBar: vent.ventPressureBar },
+        }
+      : { id: "relief", kind: "relief", ports: ["1", "2"], label: "Relief valve", values: { settingBar: d.pressuresBar.reliefSetting } },
     { id: "gauge", kind: "gauge", ports: ["port"], label: "Gauge", values: { rangeBar: gaugeRangeBar } },
     {
       id: "dcv", kind: "dcv", ports: ["P", "T", "A", "B"], label: "4/3 directional valve",
@@ -59,5 +69,16 @@ export function buildCircuit(d: Design, gaugeRangeBar: number): Circuit {
       { from: "dcv.B", to: "cylinder.rod", line: "work" },
     );
   }
-  return { components, connections, dcvPositions: dcvPositions(d.directionalValve.center) };
+  // The vent valve goes last so the work-line connections keep their order for readers.
+  if (vent) {
+    components.push({
+      id: "vent", kind: "vent", ports: ["P", "T"], label: "Relief vent valve, 2/2 solenoid, normally open",
+      values: { ventPressureBar: vent.ventPressureBar, coilVoltage: vent.coilVoltage, normally: "open", energised: "with solenoid a or b" },
+    });
+    connections.push(
+      { from: "relief.X", to: "vent.P", line: "pilot" },
+      { from: "vent.T", to: "tank.return", line: "return" },
+    );
+  }
+  return { components, connections, dcvPositions: positions };
 }

@@ -83,7 +83,7 @@ export interface HoseLine extends LineSizing {
 
 export interface CircuitComponent {
   id: string;
-  kind: "pump" | "motor" | "relief" | "dcv" | "cbv" | "cylinder" | "tank" | "filter" | "gauge" | "strainer";
+  kind: "pump" | "motor" | "relief" | "vent" | "dcv" | "cbv" | "cylinder" | "tank" | "filter" | "gauge" | "strainer";
   ports: string[];
   label?: string;
   values?: Record<string, number | string>;
@@ -105,6 +105,20 @@ export interface Circuit {
    * left = solenoid a (extend), right = solenoid b (retract), center = spring-centred neutral.
    */
   dcvPositions: DcvPositions;
+}
+
+/**
+ * Solenoid venting of the relief valve [CP]: a pilot-operated relief whose vent port X a small
+ * normally open 2/2 solenoid valve opens to tank, so a fixed pump behind a centre that blocks P
+ * circulates at low pressure in neutral instead of running over relief.
+ */
+export interface ReliefVent {
+  /** pump pressure in neutral with the vent open */
+  ventPressureBar: number;
+  valve: string;
+  coilVoltage: string;
+  /** when the vent valve is energised (closed), so that the relief works at its setting */
+  energisedWhen: string;
 }
 
 export interface BomRating {
@@ -149,6 +163,8 @@ export interface Design {
   };
   motor: { requiredKw: number; ratedKw: number; poles: number; frame: string | null; sizingPressureBar: number };
   counterbalance: Counterbalance | null;
+  /** null when the centre unloads the pump itself (tandem) */
+  reliefVent: ReliefVent | null;
   directionalValve: {
     center: DcvCenter;
     iso4401Size: Iso4401Size;
@@ -167,6 +183,8 @@ export interface Design {
     extendLossKw: number;
     retractLossKw: number;
     neutralLossKw: number;
+    /** pump pressure while the valve is in neutral: vent pressure, unloading pressure or relief */
+    neutralPressureBar: number;
     extendShare: number;
     retractShare: number;
     neutralShare: number;

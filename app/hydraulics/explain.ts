@@ -16,6 +16,18 @@ const LINE_SIZE_SOURCE = `${CONTINUITY}; velocity limits common practice [CP]; S
 const LINE_LOSS_SOURCE =
   `${DW}; f = 64/Re laminar, Blasius 0.3164·Re^−0.25 above Re 2000 (Engineering Fluid Mechanics S8 [S]; Matthies/Renius S7 [S]); ν, ρ for ISO 3448 VG 46 at 40 °C [S]/[M]`;
 
+const VENT_FORMULA =
+  "P is blocked in neutral, so the pilot-operated relief is vented: a normally open 2/2 solenoid valve opens its vent port X to tank, de-energised in neutral (the main stage opens at about p_vent) and energised with solenoid a or b (the relief then works at its setting)";
+const VENT_SOURCE =
+  `solenoid-vented relief, common practice [CP]; p_vent ${A.ventPressureBar.value} bar chosen within the 3–7 bar of makers' curves [CP]; unloading a fixed pump behind a float centre, sources §6 [CP] and Cundiff & Kocher, pressure controls (S16) [M]`;
+const MOTOR_AT_RELIEF = "relief setting: the pump runs over relief in neutral";
+const MOTOR_AT_WORKING = "highest working pressure (the pump unloads P→T in neutral)";
+const MOTOR_AT_WORKING_VENTED = "highest working pressure (the vented relief unloads the pump in neutral)";
+const NEUTRAL_VENTED = "P = p_vent·Q_p / (600·η): the vented relief lets the pump circulate to tank";
+const NEUTRAL_VENTED_SOURCE = "P = p·Q/600 [D]; vent pressure common practice [CP]";
+const NEUTRAL_ON_RELIEF = "P = p_relief·Q_p / (600·η): the pump runs over relief";
+const NEUTRAL_UNLOADED = "P = p_unload·Q_p / (600·η): the pump unloads P→T";
+
 function lineTrail(t: Trail, name: string, l: LineSizing, fluid: { viscosityMm2S: number; densityKgM3: number }): void {
   t.add(`${name} line inner diameter`, l.innerDiameterMm, "mm",
     "d_required = 4.607·√(Q / v_max); smallest SAE J517 dash size with nominal ID ≥ d_required",
@@ -32,7 +44,7 @@ export function explain(
   d: Design,
   ctx: SizingContext,
   ev: Evaluation,
-  extra: { unloadBar: number; gaugeRangeBar: number; duty: DutyShares },
+  extra: { pumpOnRelief: boolean; gaugeRangeBar: number; duty: DutyShares },
 ): TrailEntry[] {
   const t = new Trail();
   const r = d.requirements;
@@ -194,8 +206,10 @@ export function explain(
   t.add("buckling safety factor", c.bucklingSafetyFactor, "-", "S = F_K / F", { F_K: v(b.criticalLoadN, "N"), F: v(b.compressiveForceN, "N"), S_required: v(b.requiredSafetyFactor, "-") },
     "3.5 required, common practice [CP]; ISO/TS 13725 leaves the factor to the designer [S]");
 
-  // ---- Directional valve
+  // ---- Directional valve and relief venting
   const dv = d.directionalValve;
+  const h = d.heat;
+  const vent = d.reliefVent;
   t.add("directional valve centre", dv.center, "-", `${dv.centerReason}; ${dv.neutralPumpFlow}`,
     { counterbalance: v(cb ? "yes" : "no", "-") }, "common practice [CP]; Cundiff & Kocher, Fluid Power Circuits and Controls [M]");
   t.add("largest valve path flow", dv.maxPathFlowLpm, "L/min", "max(Q_p, φ·Q_p, Q_p/φ) over P→A/B and A/B→T",
@@ -203,11 +217,17 @@ export function explain(
   t.add("ISO 4401 size", dv.iso4401Size, "-", "smallest size with path flow ≤ 80 % of its typical maximum",
     { Q: v(dv.maxPathFlowLpm, "L/min"), typical_max: v(dv.typicalMaxFlowLpm, "L/min") }, "ISO 4401 interface sizes [S]; flow ratings and 80 % rule common practice [CP]");
 
+  if (vent) {
+    t.add("relief vent pressure", vent.ventPressureBar, "bar", VENT_FORMULA,
+      { center: v(dv.center, "-"), p_relief: v(d.pressuresBar.reliefSetting, "bar"), coil: v(vent.coilVoltage, "-") }, VENT_SOURCE);
+  }
+
   // ---- Motor
   const m = d.motor;
+  const onRelief = extra.pumpOnRelief;
   t.add("motor sizing pressure", m.sizingPressureBar, "bar",
-    dv.center === "float" ? "relief setting: the pump runs over relief in neutral" : "highest working pressure",
-    { p_working: v(c.workingPressureBar, "bar"), p_relief: v(d.pressuresBar.reliefSetting, "bar") }, "[D]");
+    onRelief ? MOTOR_AT_RELIEF : vent ? MOTOR_AT_WORKING_VENTED : MOTOR_AT_WORKING,
+    { p_working: v(c.workingPressureBar, "bar"), p_relief: v(d.pressuresBar.reliefSetting, "bar"), p_neutral: v(h.neutralPressureBar, "bar") }, "[D]");
   t.add("motor power needed", m.requiredKw, "kW", "P = p·Q_p / (600·η_overall)",
     { p: v(m.sizingPressureBar, "bar"), Q_p: v(qp, "L/min"), η_overall: v(d.pump.overallEfficiency, "-") }, "hydraulic power (Esposito) [M]; P = p·Q/600 [D]");
   t.add("motor rating", m.ratedKw, "kW", "next rated output", { P_needed: v(m.requiredKw, "kW") }, "IEC 60072-1 output series [M]");
@@ -221,7 +241,6 @@ export function explain(
   t.add("tank heat shed", d.reservoir.dissipationKw, "kW", "Φ = k·A·(60 °C − ambient)",
     { k: v(A.tankHeatTransfer.value, "W/(m²·K)"), A: v(d.reservoir.surfaceM2, "m²"), ambient: v(r.ambientC, "°C") },
     "k for a tank in free air, Matthies/Renius Tafel 8.7 (S7) [S]; 60 °C oil limit, ISO 4413 via S6 [S]");
-  const h = d.heat;
   t.add("share of time extending", h.extendShare, "-", "cycles/h · stroke / v_actual / 3600",
     { cycles: v(r.cyclesPerHour, "1/h"), t_stroke: v(extra.duty.extendS, "s") }, "[D]");
   t.add("share of time retracting", h.retractShare, "-", "cycles/h · stroke / v_actual / 3600",
@@ -231,8 +250,9 @@ export function explain(
   t.add("heat while retracting", h.retractLossKw, "kW", "P_shaft − F_steady·v (pump losses, lines, valves, CBV)",
     { p: v(ev.retractSteadyBar, "bar"), Q_p: v(qp, "L/min"), F_steady: v(L.retractSteadyN, "N"), v: v(d.speedsMmS.retractActual, "mm/s") }, "energy balance [D]");
   t.add("heat in neutral", h.neutralLossKw, "kW",
-    dv.center === "float" ? "P = p_relief·Q_p / (600·η): the pump runs over relief" : "P = p_unload·Q_p / (600·η): the pump unloads P→T",
-    { p: v(dv.center === "float" ? d.pressuresBar.reliefSetting : extra.unloadBar, "bar"), Q_p: v(qp, "L/min"), η: v(d.pump.overallEfficiency, "-") }, "P = p·Q/600 [D]");
+    vent ? NEUTRAL_VENTED : onRelief ? NEUTRAL_ON_RELIEF : NEUTRAL_UNLOADED,
+    { p: v(h.neutralPressureBar, "bar"), Q_p: v(qp, "L/min"), η: v(d.pump.overallEfficiency, "-") },
+    vent ? NEUTRAL_VENTED_SOURCE : "P = p·Q/600 [D]");
   t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over extend, retract and neutral",
     { extend: v(h.extendLossKw, "kW"), retract: v(h.retractLossKw, "kW"), neutral: v(h.neutralLossKw, "kW"), neutral_share: v(h.neutralShare, "-") }, "duty-cycle average [D]");
   t.add("cooler duty", h.coolerKw, "kW", "max(0, average heat − tank heat shed)",

@@ -18,7 +18,11 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "1.0.0";
+export const ENGINE_VERSION = "1.1.0";
+
+const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
+const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
+const VENT_ENERGISED_WHEN = "with solenoid a or b of the directional valve; de-energised in neutral";
 
 /**
  * Tries bore/rod pairs from the smallest up and keeps the first that meets every limit, with
@@ -89,8 +93,13 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const valve = selectIso4401(maxPathFlowLpm);
 
   // Motor: sized for the pressure the pump runs at for more than a moment.
-  const unloadBar = A.dcvPathDropBar.value + lineLossBar(lines.return, qp, ctx.fluid) + A.returnFilterDropBar.value;
-  const neutralBar = centre.pumpOnReliefInNeutral ? ev.reliefBar : unloadBar;
+  // Neutral: over relief if P is blocked and nothing unloads it; through the vented relief at
+  // its vent pressure [CP]; or P→T through a tandem centre, the valve path, return line and filter.
+  const neutralBar = centre.pumpOnReliefInNeutral
+    ? ev.reliefBar
+    : centre.ventedRelief
+      ? A.ventPressureBar.value
+      : A.dcvPathDropBar.value + lineLossBar(lines.return, qp, ctx.fluid) + A.returnFilterDropBar.value;
   const motorSizingBar = Math.max(ev.workingBar, neutralBar);
   const motorRequiredKw = hydraulicPowerKw(motorSizingBar, qp) / etaO;
   const motor = selectMotorKw(motorRequiredKw);
@@ -197,13 +206,16 @@ export function sizeCircuitParsed(req: Requirements): Design {
           flowLpm: cbv.flowLpm,
         }
       : null,
+    reliefVent: centre.ventedRelief
+      ? { ventPressureBar: A.ventPressureBar.value, valve: VENT_VALVE, coilVoltage: COIL_VOLTAGE, energisedWhen: VENT_ENERGISED_WHEN }
+      : null,
     directionalValve: {
       center: centre.center,
       iso4401Size: valve.size,
       nominalSize: valve.nominal,
       maxPathFlowLpm,
       typicalMaxFlowLpm: valve.typicalMaxLpm,
-      coilVoltage: `${A.coilVoltage.value} V DC`,
+      coilVoltage: COIL_VOLTAGE,
       centerReason: centre.reason,
       neutralPumpFlow: centre.neutralPumpFlow,
     },
@@ -215,6 +227,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
       extendLossKw,
       retractLossKw,
       neutralLossKw,
+      neutralPressureBar: neutralBar,
       extendShare: duty.extendShare,
       retractShare: duty.retractShare,
       neutralShare: duty.neutralShare,
@@ -228,14 +241,16 @@ export function sizeCircuitParsed(req: Requirements): Design {
     circuit: { components: [], connections: [], dcvPositions: dcvPositions(centre.center) },
   };
 
-  addWarnings(design, ctx, ev, warnings, { duty, motorInSeries: motor.inSeries, valveWithinLimit: valve.withinLimit });
+  addWarnings(design, ctx, ev, warnings, { duty, motorInSeries: motor.inSeries, valveWithinLimit: valve.withinLimit, pumpOnRelief: centre.pumpOnReliefInNeutral });
   design.bom = buildBom(design, gaugeRangeBar);
-  design.circuit = buildCircuit(design, gaugeRangeBar);
-  design.trail = explain(design, ctx, ev, { unloadBar, gaugeRangeBar, duty });
+  design.circuit = buildCircuit(design, gaugeRangeBar, design.circuit.dcvPositions);
+  design.trail = explain(design, ctx, ev, { pumpOnRelief: centre.pumpOnReliefInNeutral, gaugeRangeBar, duty });
   return design;
 }
 
 const f1 = (x: number): string => num(x);
+const VENTED_NOTE =
+  `P is blocked in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever solenoid a or b is on, or the axis cannot build pressure. De-energised (neutral, or a control fault) the pump circulates at about ${A.ventPressureBar.value} bar and the counterbalance valve still holds the load.`;
 const LINE_NAMES = ["pressure", "return", "suction", "capWork", "rodWork"] as const;
 
 function addWarnings(
@@ -243,7 +258,7 @@ function addWarnings(
   ctx: SizingContext,
   ev: Evaluation,
   w: Warnings,
-  extra: { duty: { overloaded: boolean }; motorInSeries: boolean; valveWithinLimit: boolean },
+  extra: { duty: { overloaded: boolean }; motorInSeries: boolean; valveWithinLimit: boolean; pumpOnRelief: boolean },
 ): void {
   const c = d.cylinder;
   if (!ev.pressureOk) {
@@ -286,9 +301,12 @@ function addWarnings(
       w.add("LINE_SIZE_BEYOND_RANGE", `The ${name} line needs ${f1(line.requiredDiameterMm)} mm, larger than the largest hose listed; use tube or parallel lines.`);
     }
   }
-  if (d.directionalValve.center === "float") {
+  if (extra.pumpOnRelief) {
     w.add("PUMP_ON_RELIEF_IN_NEUTRAL",
-      `With a float centre P is blocked, so the pump runs over the ${d.pressuresBar.reliefSetting} bar relief whenever the valve is in neutral (${Math.round(d.heat.neutralShare * 100)} % of the time). A solenoid-vented relief or unloading valve would save that heat and power.`);
+      `With a ${d.directionalValve.center} centre P is blocked, so the pump runs over the ${d.pressuresBar.reliefSetting} bar relief whenever the valve is in neutral (${Math.round(d.heat.neutralShare * 100)} % of the time). A solenoid-vented relief or unloading valve would save that heat and power.`);
+  }
+  if (d.reliefVent) {
+    w.add("RELIEF_VENTED_IN_NEUTRAL", VENTED_NOTE);
   }
   if (d.counterbalance && d.counterbalance.settingBar < A.cbvLowSettingBar.value) {
     w.add("CBV_SETTING_LOW",

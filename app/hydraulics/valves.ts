@@ -109,26 +109,43 @@ export interface DcvCenterChoice {
   reason: string;
   /** what the pump's flow does while the valve is in neutral */
   neutralPumpFlow: string;
+  /** the centre blocks P, so a fixed pump would run over relief in neutral unless it is unloaded */
+  pBlockedInNeutral: boolean;
+  /** the relief is solenoid-vented, so the pump circulates to tank at the vent pressure in neutral */
+  ventedRelief: boolean;
+  /** the pump runs over the relief at its setting in neutral (P blocked and nothing unloads it) */
   pumpOnReliefInNeutral: boolean;
 }
 
-export function chooseDcvCenter(hasCbv: boolean): DcvCenterChoice {
-  if (hasCbv) {
-    return {
-      center: "float",
-      reason:
-        "float centre (P blocked, A and B to T): the counterbalance pilot line vents in neutral, so the valve closes fully and holds the load on its poppet; a closed or tandem centre could trap pilot pressure and let the load creep",
-      neutralPumpFlow: "P is blocked, so the fixed pump's whole flow goes over the relief valve in neutral",
-      pumpOnReliefInNeutral: true,
-    };
-  }
-  return {
-    center: "tandem",
-    reason:
-      "tandem centre (P to T, A and B blocked): with no overrunning load the blocked work ports hold the axis, and the fixed pump unloads to tank at low pressure",
-    neutralPumpFlow: "P is joined to T, so the pump's flow returns to tank at low pressure in neutral",
-    pumpOnReliefInNeutral: false,
-  };
+const FLOAT_REASON =
+  "float centre (P blocked, A and B to T): the counterbalance pilot line vents in neutral, so the valve closes fully and holds the load on its poppet; a closed or tandem centre could trap pilot pressure and let the load creep";
+/**
+ * What a solenoid-vented relief does in neutral [CP]: a pilot-operated relief whose vent port X
+ * is opened to tank by a small normally open 2/2 solenoid valve, de-energised in neutral and
+ * energised with either directional-valve solenoid.
+ */
+export const VENTED_NEUTRAL_FLOW =
+  `P is blocked, so the relief is vented instead: its normally open 2/2 vent valve is de-energised in neutral and opens the relief's vent port X to tank, so the pump's flow circulates to tank at about ${A.ventPressureBar.value} bar; the vent valve is energised with solenoid a or b, and the relief then works at its setting`;
+const TANDEM_REASON =
+  "tandem centre (P to T, A and B blocked): with no overrunning load the blocked work ports hold the axis, and the fixed pump unloads to tank at low pressure";
+const TANDEM_NEUTRAL_FLOW = "P is joined to T, so the pump's flow returns to tank at low pressure in neutral";
+
+const FLOAT_CHOICE: Readonly<DcvCenterChoice> = Object.freeze({
+  center: "float", reason: FLOAT_REASON, neutralPumpFlow: VENTED_NEUTRAL_FLOW,
+  pBlockedInNeutral: true, ventedRelief: true, pumpOnReliefInNeutral: false,
+});
+const TANDEM_CHOICE: Readonly<DcvCenterChoice> = Object.freeze({
+  center: "tandem", reason: TANDEM_REASON, neutralPumpFlow: TANDEM_NEUTRAL_FLOW,
+  pBlockedInNeutral: false, ventedRelief: false, pumpOnReliefInNeutral: false,
+});
+
+/**
+ * Float centre where a counterbalance valve needs its pilot vented, else tandem. A centre that
+ * blocks P gets a solenoid-vented relief, so the fixed pump does not run over relief in
+ * neutral (sources §6: "unless it is unloaded (vent or unloading valve)") [CP].
+ */
+export function chooseDcvCenter(hasCbv: boolean): Readonly<DcvCenterChoice> {
+  return hasCbv ? FLOAT_CHOICE : TANDEM_CHOICE;
 }
 
 const CENTER_PAIRS: Record<DcvCenter, PortPair[]> = {
@@ -137,6 +154,10 @@ const CENTER_PAIRS: Record<DcvCenter, PortPair[]> = {
   tandem: [["P", "T"]],
   open: [["P", "T"], ["A", "T"], ["B", "T"]],
 };
+
+/** True when the centre joins P to nothing, so the pump cannot unload through the valve. */
+export const centreBlocksP = (center: DcvCenter): boolean =>
+  !CENTER_PAIRS[center].some((pair) => pair[0] === "P" || pair[1] === "P");
 
 function copyPairs(pairs: readonly PortPair[]): PortPair[] {
   const out: PortPair[] = [];

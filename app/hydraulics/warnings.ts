@@ -5,6 +5,8 @@ export const WARNING_CODES = [
   "HEAT_COOLER_NEEDED",
   "PUMP_SPEED_MISMATCH",
   "PUMP_ON_RELIEF_IN_NEUTRAL",
+  /** a note, not a fault: the relief is vented in neutral and the controls must energise the vent valve */
+  "RELIEF_VENTED_IN_NEUTRAL",
   "PRESSURE_NEAR_LIMIT",
   "PRESSURE_LIMIT_EXCEEDED",
   "VALVE_NEAR_LIMIT",

@@ -27,6 +27,14 @@ describe.each(Object.entries(AXES))("%s", (_name, req) => {
     const keys = d.bom.map((l) => l.key);
     for (const key of BOM_KEYS) expect(keys).toContain(key);
     expect(keys.includes("counterbalance-valve")).toBe(d.counterbalance !== null);
+    // a centre that blocks P gets a solenoid-vented relief, bought as its own line [CP]
+    const blocksP = !d.circuit.dcvPositions.center.some((pair) => pair.includes("P"));
+    expect(keys.includes("relief-vent-valve")).toBe(blocksP);
+    expect(d.reliefVent !== null).toBe(blocksP);
+    if (blocksP) {
+      expect(d.bom.find((l) => l.key === "relief-vent-valve")!.specification).toContain("24 V DC");
+      expect(d.bom.find((l) => l.key === "relief-valve")!.specification).toContain("vented through port X");
+    }
     for (const line of d.bom) {
       expect(line.quantity).toBeGreaterThan(0);
       expect(line.specification.length).toBeGreaterThan(10);
@@ -46,6 +54,11 @@ describe.each(Object.entries(AXES))("%s", (_name, req) => {
     expect(byName.get("bore")!.value).toBe(d.cylinder.boreMm);
     expect(byName.get("relief setting")!.value).toBe(d.pressuresBar.reliefSetting);
     if (d.counterbalance) expect(byName.get("pilot opening pressure")!.formula).toContain("full balance");
+    if (d.reliefVent) {
+      expect(byName.get("relief vent pressure")!.value).toBe(d.reliefVent.ventPressureBar);
+      expect(byName.get("relief vent pressure")!.source).toContain("[CP]");
+      expect(byName.get("heat in neutral")!.inputs.p.value).toBe(d.reliefVent.ventPressureBar);
+    }
     for (const t of d.trail) {
       for (const input of Object.values(t.inputs)) {
         expect(typeof input.unit).toBe("string");

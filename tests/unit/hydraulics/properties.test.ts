@@ -223,6 +223,16 @@ describe("the circuit as data (trade facts, common practice)", () => {
         expect(find("pump.outlet")).toBe(find("dcv.P"));
         expect(find("pump.outlet")).toBe(find("relief.1"));
         expect(find("relief.2")).toBe(find("tank.return"));
+        // a centre that blocks P: the relief's vent port X is piloted to the vent valve, which returns to tank [CP]
+        const blocksP = !d.circuit.dcvPositions.center.some((pair) => pair.includes("P"));
+        const vent = d.circuit.components.find((c) => c.kind === "vent");
+        expect(vent !== undefined).toBe(blocksP);
+        if (vent) {
+          expect(d.circuit.connections).toContainEqual({ from: "relief.X", to: "vent.P", line: "pilot" });
+          expect(find("vent.T")).toBe(find("tank.return"));
+          expect(d.heat.neutralPressureBar).toBeLessThan(d.pressuresBar.reliefSetting);
+          expect(d.warnings.some((w) => w.code === "PUMP_ON_RELIEF_IN_NEUTRAL")).toBe(false);
+        }
       }),
       RUNS,
     );

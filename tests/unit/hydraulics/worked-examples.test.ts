@@ -90,6 +90,7 @@ describe("worked example 1 — horizontal clamp feed, no counterbalance", () => 
     // Tandem centre (no overrunning load): pump unloads P→T, so the motor is sized on the
     // working pressure: P = 131.63·27.55/600/0.85 = 7.11 kW → 7.5 kW.
     expect(d.directionalValve.center).toBe("tandem");
+    expect(d.reliefVent).toBeNull();
     expect(d.motor.requiredKw).toBeCloseTo(7.11, 2);
     expect(d.motor.ratedKw).toBe(7.5);
     // Largest path flow φ·Q_p = 34.33 L/min ≤ 0.8·60 → ISO 4401-03.
@@ -180,11 +181,20 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
     expect(d.pressuresBar.retract).toBeCloseTo(57.99, 1);
     // Relief = 1.1·125.65 = 138.2 → 140 bar [CP].
     expect(d.pressuresBar.reliefSetting).toBe(140);
-    // Float centre: P blocked, the pump runs over relief in neutral, so the motor is sized at
-    // 140 bar: P = 140·34.4375/600/0.85 = 9.45 kW → 11 kW (IEC 60072-1 [M]).
-    expect(d.motor.requiredKw).toBeCloseTo(9.453, 2);
+    // Float centre: P blocked, so the relief is solenoid-vented [CP]: in neutral the pump
+    // circulates to tank at the 5 bar vent pressure [CP], and the motor is sized on the highest
+    // working pressure, the pressing pressure 10·63 157.9/5026.55 = 125.648 bar:
+    //   P = 125.648·34.4375/600/0.85 = 4327.0/600/0.85 = 7.2117/0.85 = 8.484 kW → 11 kW (IEC 60072-1 [M]).
+    expect(d.motor.requiredKw).toBeCloseTo(8.484, 2);
     expect(d.motor.ratedKw).toBe(11);
-    expect(d.warnings.map((w) => w.code)).toContain("PUMP_ON_RELIEF_IN_NEUTRAL");
+    // Neutral heat at the vent pressure: P = 5·34.4375/600/0.85 = 172.19/600/0.85 = 0.3376 kW
+    // (over the 140 bar relief it would be 140·34.4375/600/0.85 = 9.453 kW).
+    expect(d.reliefVent?.ventPressureBar).toBe(5);
+    expect(d.heat.neutralPressureBar).toBe(5);
+    expect(d.heat.neutralLossKw).toBeCloseTo(0.3376, 3);
+    const codes = d.warnings.map((w) => w.code);
+    expect(codes).not.toContain("PUMP_ON_RELIEF_IN_NEUTRAL");
+    expect(codes).toContain("RELIEF_VENTED_IN_NEUTRAL");
     // Largest path flow 43.18 ≤ 48 → ISO 4401-03.
     expect(d.directionalValve.iso4401Size).toBe("03");
     // Buckling: L = 400 + 150 = 550, K = 0.7, L_K = 385, λ = 4·385/36 = 42.8 → Tetmajer,
@@ -250,10 +260,14 @@ describe("worked example 3 — inclined lift, rod up, counterbalance on the cap 
     //   supply = 0.909 + 5 + rod line 1.819 = 7.728 → 15.16 bar.
     expect(d.pressuresBar.extend).toBeCloseTo(80.0, 1);
     expect(d.pressuresBar.retract).toBeCloseTo(15.16, 1);
-    // Relief 1.1·80.00 = 88.0 → 90 bar. Motor at relief (float centre): 90·13.3/600/0.85 = 2.35 kW → 3 kW.
+    // Relief 1.1·80.00 = 88.0 → 90 bar. Float centre with a solenoid-vented relief [CP]: the pump
+    // unloads at 5 bar in neutral, so the motor is sized on the working pressure 80.00 bar:
+    //   P = 80.00·13.3/600/0.85 = 1064/510 = 2.086 kW → 2.2 kW (IEC 60072-1 [M]).
     expect(d.pressuresBar.reliefSetting).toBe(90);
-    expect(d.motor.requiredKw).toBeCloseTo(2.347, 3);
-    expect(d.motor.ratedKw).toBe(3);
+    expect(d.motor.requiredKw).toBeCloseTo(2.086, 2);
+    expect(d.motor.ratedKw).toBe(2.2);
+    // Neutral heat: 5·13.3/600/0.85 = 66.5/510 = 0.1304 kW (over relief: 90·13.3/510 = 2.347 kW).
+    expect(d.heat.neutralLossKw).toBeCloseTo(0.1304, 3);
     // Path flow φ·Q_p = 27.62 L/min → ISO 4401-03.
     expect(d.flowsLpm.returnMax).toBeCloseTo(27.62, 2);
     expect(d.directionalValve.iso4401Size).toBe("03");

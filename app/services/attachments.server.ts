@@ -104,8 +104,9 @@ function toView(row: SpecAttachment): AttachmentView {
   };
 }
 
+// Files of one upload can share a timestamp; their names order them then.
 const rowsOf = (specId: string, transaction?: Transaction) =>
-  SpecAttachment.findAll({ where: { specId }, order: [["createdAt", "ASC"], ["id", "ASC"]], transaction });
+  SpecAttachment.findAll({ where: { specId }, order: [["createdAt", "ASC"], ["fileName", "ASC"], ["id", "ASC"]], transaction });
 
 /** The files of a spec the user may read (its owner; shops once published). */
 export async function listAttachments(user: User, specId: string | undefined): Promise<AttachmentView[]> {

@@ -5,7 +5,7 @@ import * as signIn from "~/routes/sign-in";
 import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
 import { Spec, SpecAttachment, type User } from "~/models/index.server";
-import { ATTACHMENT_LIMITS, cleanFileName, contentDisposition } from "~/services/attachments.server";
+import { ATTACHMENT_LIMITS, cleanFileName, contentDisposition, removeAllAttachments } from "~/services/attachments.server";
 import { PASSWORD, makeMember } from "../support/factories";
 import { Visitor, call } from "../support/routes";
 
@@ -296,6 +296,25 @@ describe("removing files", () => {
 
     expect(await SpecAttachment.count({ where: { specId: spec.id } })).toBe(1);
     expect(await storedFiles()).toEqual(filesBefore);
+  });
+});
+
+describe("deleting a draft's files", () => {
+  it("removes every row and stored file of the owner's spec; another organisation gets a 404", async () => {
+    const buyer = await makeMember("buyer");
+    const spec = await draftOf(buyer);
+    const other = await draftOf(buyer);
+    const owner = await signedIn(buyer);
+    await post(owner, spec.id, uploadForm(pdf("a.pdf"), png("b.png")));
+    await post(owner, other.id, uploadForm(pdf("kept.pdf")));
+    const stranger = await makeMember("buyer");
+    await expect(removeAllAttachments(stranger, spec.id)).rejects.toMatchObject({ init: { status: 404 } });
+
+    await removeAllAttachments(buyer, spec.id);
+    expect(await SpecAttachment.count({ where: { specId: spec.id } })).toBe(0);
+    const kept = await SpecAttachment.findOne({ where: { specId: other.id }, rejectOnEmpty: true });
+    expect(await storedFiles()).toContain(path.join(UPLOAD_DIR, ...kept.storageKey.split("/")));
+    expect(await storedFiles()).toHaveLength((await SpecAttachment.count()));
   });
 });
 

@@ -3,11 +3,11 @@ import type { CircuitComponent, CircuitConnection, Design } from "~/hydraulics/d
 import type { UnitSystem } from "~/units/systems";
 import { centreName, circuitDescription, circuitTitle, numberValue, textValue } from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
-import { BOX, CBV_HALF_W, DIAMOND, GAUGE_R, MOTOR_R, PUMP_R, RELIEF_BOX, TANK_H, layoutCircuit, type Layout } from "./circuit-diagram/layout";
+import { BOX, CBV_HALF_W, DIAMOND, GAUGE_R, MOTOR_R, PUMP_R, RELIEF_BOX, TANK_H, VENT_BOX, layoutCircuit, type Layout } from "./circuit-diagram/layout";
 import { junctions, pathData, routeConnections, type Route } from "./circuit-diagram/routes";
 import {
   Caption, CbvSymbol, CylinderSymbol, DASH, DcvSymbol, FilterSymbol, GaugeSymbol, MotorSymbol, PumpSymbol,
-  ReliefSymbol, STROKE, TankSymbol,
+  ReliefSymbol, STROKE, TankSymbol, VentValveSymbol,
 } from "./circuit-diagram/symbols";
 
 /**
@@ -154,13 +154,31 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         </>
       );
     }
-    case "relief":
+    case "relief": {
+      // a vented relief's caption moves up to leave room for the vent line below it
+      const vented = c.ports.includes("X");
       return (
         <>
-          <ReliefSymbol id={c.id} centre={at} />
-          <Caption x={at.x - RELIEF_BOX / 2 - 22} y={at.y - 6} anchor="end" name="Relief valve" values={v("settingBar", (p) => `set ${u.pressure(p)}`)} />
+          <ReliefSymbol id={c.id} centre={at} vented={vented} />
+          <Caption
+            x={at.x - RELIEF_BOX / 2 - 22} y={vented ? at.y - 14 : at.y - 6} anchor="end" name={vented ? "Relief valve, vented" : "Relief valve"}
+            values={v("settingBar", (p) => `set ${u.pressure(p)}`)}
+          />
         </>
       );
+    }
+    case "vent": {
+      const coil = textValue(c, "coilVoltage");
+      return (
+        <>
+          <VentValveSymbol id={c.id} centre={at} />
+          <Caption
+            x={at.x - 8} y={at.y + VENT_BOX / 2 + 18} anchor="end" name="Vent valve"
+            values={["2/2, normally open", ...v("ventPressureBar", (p) => `vents at ${u.pressure(p)}`), ...(coil ? [`${coil} coil`] : [])]}
+          />
+        </>
+      );
+    }
     case "pump":
       return (
         <>

@@ -111,6 +111,47 @@ describe("CircuitDiagram", () => {
     expect(html).toMatch(/data-port="cylinder.rod"[^>]*>rod</);
   });
 
+  it("draws the solenoid vent valve beside a relief that the data vents: dashed from port X, solid to its own tank", () => {
+    // Float centre blocks P, so the engine vents the relief (common practice); the drawing follows the data.
+    for (const design of [press, lift]) {
+      const vent = design.circuit.components.find((c) => c.kind === "vent")!;
+      expect(vent.ports).toEqual(["P", "T"]);
+      const html = render(design);
+      expect(html).toContain('data-component="vent" data-kind="vent"');
+      for (const port of ["P", "T"]) expect(html).toMatch(new RegExp(`data-port="vent\\.${port}"[^>]*>${port}<`));
+      expect(html).toMatch(/data-port="relief\.X"[^>]*>X</);
+      // ISO 1219-1 style 2/2: a solenoid, a return spring, the normal box open P-T, the energised box blocking both
+      const symbol = html.match(/<g data-component="vent" data-kind="vent">(.*?)<\/g><text/)![1];
+      expect(symbol).toContain('data-actuator="solenoid"');
+      expect(symbol).toMatch(/data-position="normal" data-paths="P-T" data-blocked=""/);
+      expect(symbol).toMatch(/data-position="energised" data-paths="" data-blocked="P,T"/);
+      expect(symbol).toMatch(/<polyline[^>]*points="[^"]+"/); // the spring
+      const ventLine = html.match(/<path[^>]*data-from="relief.X"[^>]*>/)![0];
+      expect(ventLine).toContain('data-to="vent.P"');
+      expect(ventLine).toContain('data-line="pilot"');
+      expect(ventLine).toMatch(/stroke-dasharray="[\d.]+ [\d.]+"/);
+      const toTank = html.match(/<path[^>]*data-from="vent.T"[^>]*>/)![0];
+      expect(toTank).toContain('data-to="tank.return"');
+      expect(toTank).not.toContain("stroke-dasharray");
+      // a tank symbol under the vent valve's T line, at its x
+      const tx = Number(toTank.match(/d="M([\d.]+) /)![1]);
+      expect(html).toMatch(new RegExp(`data-kind="tank"><polyline points="${tx - 20},`));
+      expect(html).toContain("Vent valve");
+      expect(html).toContain("2/2, normally open");
+      expect(html).toContain(`vents at ${design.reliefVent!.ventPressureBar} bar`);
+      const desc = html.match(/<desc[^>]*>(.*?)<\/desc>/)![1];
+      expect(desc).toContain("Normally open 2/2 solenoid vent valve on the relief&#x27;s vent port X");
+    }
+  });
+
+  it("draws no vent valve and no port X when the centre unloads the pump (tandem)", () => {
+    expect(feed.reliefVent).toBeNull();
+    const html = render(feed);
+    expect(html).not.toContain('data-kind="vent"');
+    expect(html).not.toContain('data-port="relief.X"');
+    expect(html).not.toContain("Vent valve");
+  });
+
   it("shows the sized values beside the symbols", () => {
     const html = render(press);
     const { boreMm, rodMm, strokeMm } = press.cylinder;

@@ -44,6 +44,7 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
   const pump = get("pump");
   const motor = get("motor");
   const relief = get("relief");
+  const vent = get("vent");
   const dcv = get("dcv");
   const cbv = get("cbv");
   const cylinder = get("cylinder");
@@ -64,6 +65,13 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
       motor && phrase("driven by an electric motor", n(motor, "ratedKw", (k) => `rated ${u.power(k)}`)),
     ),
     relief && phrase("Relief valve", n(relief, "settingBar", (p) => `set to ${u.pressure(p)}`), "protects the pump line and returns to tank"),
+    vent && [
+      phrase(
+        "Normally open 2/2 solenoid vent valve on the relief's vent port X",
+        n(vent, "ventPressureBar", (p) => `vents the relief to tank in neutral, so the pump circulates at ${u.pressure(p)}`),
+      ),
+      phrase("it is energised with solenoid a or b", textValue(vent, "coilVoltage") && `(${textValue(vent, "coilVoltage")} coil)`),
+    ].join("; "),
     gauge && phrase("Pressure gauge", n(gauge, "rangeBar", (r) => `0 to ${u.pressure(r)}`), "on the pump line"),
     dcv && phrase(
       `${capitalise(centreName(textValue(dcv, "center")))} 4/3 solenoid directional valve`,

@@ -46,6 +46,11 @@ export const CBV_HALF_W = 62;
 export const CBV_HALF_H = 56;
 /** pilot port 3 sits this far below the counterbalance valve's centre */
 export const CBV_PILOT_DY = 12;
+/** Relief vent valve: two position boxes of VENT_BOX, ports under the right (normal) box. */
+export const VENT_BOX = 26;
+const VENT_X = 130;
+/** the relief's vent port X leaves its left wall this far below the centre */
+export const RELIEF_VENT_DY = 12;
 export const TANK_W = 40;
 export const TANK_H = 16;
 
@@ -145,6 +150,16 @@ export function layoutCircuit(circuit: Circuit): Layout {
   put("relief", { x: RELIEF_X, y: reliefCy }, {
     "1": { x: RELIEF_X, y: reliefCy - RELIEF_BOX / 2, dir: "up", channelY: reliefJunctionY },
     "2": { x: RELIEF_X, y: reliefCy + RELIEF_BOX / 2, dir: "down" },
+    // vent port X of a pilot-operated relief, drawn only when the data lists it
+    ...(byKind(circuit.components, "relief")?.ports.includes("X")
+      ? { X: { x: RELIEF_X - RELIEF_BOX / 2, y: reliefCy + RELIEF_VENT_DY, dir: "left" as const } }
+      : {}),
+  });
+  // The vent valve sits below and left of the relief, its normal box over its own tank line.
+  const ventCy = reliefCy + 44;
+  put("vent", { x: VENT_X, y: ventCy }, {
+    P: { x: VENT_X, y: ventCy - VENT_BOX / 2, dir: "up" },
+    T: { x: VENT_X, y: ventCy + VENT_BOX / 2, dir: "down" },
   });
   put("gauge", { x: GAUGE_X, y: gaugeY }, { port: { x: GAUGE_X - GAUGE_R, y: gaugeY, dir: "left" } });
   put("filter", { x: FILTER_X, y: filterCy }, {

@@ -1,6 +1,6 @@
 import type { DcvPositions } from "~/hydraulics/design";
 import {
-  BOX, CBV_HALF_H, CBV_HALF_W, CBV_PILOT_DY, DIAMOND, GAUGE_R, MOTOR_R, PUMP_R, RELIEF_BOX, TANK_H, TANK_W,
+  BOX, CBV_HALF_H, CBV_HALF_W, CBV_PILOT_DY, DIAMOND, GAUGE_R, MOTOR_R, PUMP_R, RELIEF_BOX, RELIEF_VENT_DY, TANK_H, TANK_W, VENT_BOX,
   type CylinderPlace, type Point,
 } from "./layout";
 import { blockedPorts, boxDrawing, pairsLabel } from "./valve-positions";
@@ -168,18 +168,64 @@ export function CbvSymbol({ id, centre, pilotSide }: { id: string; centre: Point
   );
 }
 
-/** Pressure-relief valve: normally closed, spring set, piloted from its inlet (1, top) to tank (2). */
-export function ReliefSymbol({ id, centre }: { id: string; centre: Point }) {
+/**
+ * Pressure-relief valve: normally closed, spring set, piloted from its inlet (1, top) to tank (2).
+ * A vented (pilot-operated) relief also shows its vent port X on the left wall.
+ */
+export function ReliefSymbol({ id, centre, vented = false }: { id: string; centre: Point; vented?: boolean }) {
   const half = RELIEF_BOX / 2;
   const { x, y } = centre;
   return (
-    <g data-component={id} data-kind="relief">
+    <g data-component={id} data-kind="relief" data-vented={vented ? "" : undefined}>
       <rect x={x - half} y={y - half} width={RELIEF_BOX} height={RELIEF_BOX} {...outline} fill="white" />
       <Arrow from={{ x: x + 8, y: y - 13 }} to={{ x: x + 8, y: y + 13 }} />
       <Spring a={{ x: x + half, y }} b={{ x: x + half + 24, y }} />
       <Adjustable centre={{ x: x + half + 12, y }} span={10} />
       <polyline points={pts([{ x, y: y - half - 8 }, { x: x - half - 12, y: y - half - 8 }, { x: x - half - 12, y }, { x: x - half, y }])} {...pilot} />
       <circle cx={x} cy={y - half - 8} r={2.4} fill="currentColor" />
+      {vented ? (
+        <PortLabel x={x - half - 4} y={y + RELIEF_VENT_DY + 13} anchor="end" port={`${id}.X`}>X</PortLabel>
+      ) : null}
+    </g>
+  );
+}
+
+/**
+ * Relief vent valve: a 2/2 solenoid valve, spring return, normally open (ISO 1219-1 style).
+ * `centre` is the middle of the right-hand box, the spring-held (de-energised) position, which
+ * carries the ports: P on top from the relief's vent port X, T below to tank, joined by the
+ * open passage. The left box, pushed in by the solenoid, blocks both.
+ */
+export function VentValveSymbol({ id, centre }: { id: string; centre: Point }) {
+  const b = VENT_BOX;
+  const { x, y } = centre;
+  const top = y - b / 2;
+  const bottom = y + b / 2;
+  const leftBox = x - (3 * b) / 2;
+  const blockedX = x - b;
+  const solenoid = { w: 16, h: 18 };
+  return (
+    <g data-component={id} data-kind="vent">
+      <g data-position="energised" data-paths="" data-blocked="P,T">
+        <rect x={leftBox} y={top} width={b} height={b} {...outline} />
+        {[{ from: top, to: top + 8 }, { from: bottom, to: bottom - 8 }].map((stop, i) => (
+          <g key={i} data-blocked-port={i === 0 ? "P" : "T"}>
+            <line x1={blockedX} y1={stop.from} x2={blockedX} y2={stop.to} {...thin} />
+            <line x1={blockedX - 5} y1={stop.to} x2={blockedX + 5} y2={stop.to} {...outline} />
+          </g>
+        ))}
+      </g>
+      <g data-position="normal" data-paths="P-T" data-blocked="">
+        <rect x={x - b / 2} y={top} width={b} height={b} {...outline} />
+        <Arrow from={{ x, y: top }} to={{ x, y: bottom }} />
+      </g>
+      <g data-actuator="solenoid">
+        <rect x={leftBox - solenoid.w} y={y - solenoid.h / 2} width={solenoid.w} height={solenoid.h} {...outline} />
+        <line x1={leftBox - solenoid.w} y1={y + solenoid.h / 2} x2={leftBox} y2={y - solenoid.h / 2} {...thin} />
+      </g>
+      <Spring a={{ x: x + b / 2, y }} b={{ x: x + b / 2 + 18, y }} turns={3} amplitude={4} />
+      <PortLabel x={x + 5} y={top - 5} anchor="start" port={`${id}.P`}>P</PortLabel>
+      <PortLabel x={x + 5} y={bottom + 13} anchor="start" port={`${id}.T`}>T</PortLabel>
     </g>
   );
 }

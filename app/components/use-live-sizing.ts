@@ -18,10 +18,10 @@ export function useLiveSizing(input: Record<string, unknown>, initial: { design:
   const first = useRef(true);
 
   useEffect(() => {
-    // The server already sized what the page was rendered with.
+    // The server already sized what the page was rendered with (when it had a design).
     if (first.current) {
       first.current = false;
-      return;
+      if (initial.design) return;
     }
     const controller = new AbortController();
     setState((s) => ({ ...s, status: "sizing", message: null }) as LiveSizingState);
@@ -47,6 +47,7 @@ export function useLiveSizing(input: Record<string, unknown>, initial: { design:
       clearTimeout(timer);
       controller.abort();
     };
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the first design only matters once
   }, [body, delayMs]);
 
   return state;

@@ -8,8 +8,9 @@ import {
 import { sequelize } from "~/db.server";
 import type { UnitSystem } from "~/units/systems";
 
-export const SPEC_STATUSES = ["draft", "open", "closed", "awarded", "withdrawn"] as const;
-export type SpecStatus = (typeof SPEC_STATUSES)[number];
+import { SPEC_STATUSES, type SpecStatus } from "~/content/spec-status";
+
+export { SPEC_STATUSES, type SpecStatus };
 
 export type SpecAnswers = Record<string, Record<string, string>>;
 

@@ -10,7 +10,7 @@ import { RequirementInput } from "~/components/requirement-input";
 import { SpecProgress } from "~/components/spec-progress";
 import { Button, Card, Notice, PageHeader } from "~/components/ui";
 import { useLiveSizing } from "~/components/use-live-sizing";
-import { REQUIREMENT_FIELDS, displayValue, fieldApplies, fieldMessages, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
+import { EXAMPLE_AXIS, REQUIREMENT_FIELDS, displayValue, fieldApplies, toFormValues, fieldMessages, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
 import { ENGINE_KEYS_BY_STEP, SPEC_STEPS, isSpecStep, nextStep, previousStep, type FormStepId } from "~/content/spec-steps";
 import { FLUIDS, SUPPLY_VOLTAGES, stepFieldNames, stepSchema } from "~/schemas/spec";
 import { FieldErrors, notFound } from "~/services/errors.server";
@@ -169,8 +169,17 @@ function defaultFor(key: RequirementKey, system: UnitSystem): string | undefined
   return f.kind === "number" ? displayValue(f, f.defaultValue, system) : f.defaultValue;
 }
 
+/** Later steps not answered yet are taken from the example axis, and the preview says so. */
+const PREVIEW_FALLBACK_KEYS = ENGINE_KEYS_BY_STEP.duty;
+
 function LivePreview({ values, system }: { values: FormValues; system: UnitSystem }) {
-  const input = useMemo(() => toRequirementsInput(values, system), [values, system]);
+  const fallback = useMemo(() => toFormValues(EXAMPLE_AXIS, system), [system]);
+  const assumed = PREVIEW_FALLBACK_KEYS.filter((k) => !values[k]);
+  const input = useMemo(() => {
+    const filled = { ...values };
+    for (const k of PREVIEW_FALLBACK_KEYS) if (!filled[k]) filled[k] = fallback[k];
+    return toRequirementsInput(filled, system);
+  }, [values, system, fallback]);
   const live = useLiveSizing(input, { design: null, fieldErrors: {} }, 400);
   return (
     <aside aria-label="Live preview" aria-live="polite" className="space-y-4 lg:sticky lg:top-4 lg:self-start">
@@ -182,6 +191,11 @@ function LivePreview({ values, system }: { values: FormValues; system: UnitSyste
             <div className="mt-3">
               <KeySizes design={live.design} units={system} />
             </div>
+            {assumed.length ? (
+              <p className="mt-2 text-xs text-ink-600">
+                Until you answer the duty step, the preview assumes {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${fallback[k]}`).join(", ")}.
+              </p>
+            ) : null}
           </>
         ) : (
           <p className="text-sm text-ink-600">

@@ -4,12 +4,12 @@ import { requireUser } from "~/auth/permissions.server";
 import { CircuitDiagram } from "~/components/circuit-diagram";
 import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
 import { Badge, Button, Card, Notice, PageHeader } from "~/components/ui";
-import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES } from "~/content/spec-status";
+import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, type SpecStatus } from "~/content/spec-status";
 import type { Design } from "~/hydraulics";
 import { specForReader } from "~/services/spec-access.server";
 import { revisionsOf } from "~/services/specs.server";
 import type { UnitSystem } from "~/units";
-import type { SpecStatus } from "~/models/spec.server";
+
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.title ?? "Spec"} · Tenderflow` }];
 

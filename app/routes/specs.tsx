@@ -2,9 +2,9 @@ import { Form, Link, useSearchParams } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/specs";
 import { requireRole } from "~/auth/permissions.server";
-import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES } from "~/content/spec-status";
+import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, type SpecStatus } from "~/content/spec-status";
 import { Badge, Button, Card, EmptyState, PageHeader } from "~/components/ui";
-import { SPEC_STATUSES, type SpecStatus } from "~/models/spec.server";
+
 import { SPEC_SORTS, listSpecs } from "~/services/specs.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "My specs · Tenderflow" }];

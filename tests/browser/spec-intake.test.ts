@@ -1,0 +1,103 @@
+// A first-time buyer in a real browser: signs up, switches to US units, describes a lift axis
+// step by step while the live preview redraws, and publishes it. A screenshot of every step.
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { SpecRevision, Spec } from "~/models/index.server";
+import { SCREENSHOTS, hydrated, startBrowserApp, type BrowserApp } from "../support/browser";
+
+let app: BrowserApp;
+beforeAll(async () => {
+  app = await startBrowserApp();
+}, 120_000);
+afterAll(async () => {
+  await app?.close();
+});
+
+const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `intake-${name}.png`), fullPage: true });
+const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+
+async function next(page: Page, expectedStep: string) {
+  await page.getByRole("button", { name: "Save and continue →" }).click();
+  await page.waitForURL(`**/edit/${expectedStep}`);
+  await hydrated(page);
+}
+
+describe("spec intake", () => {
+  it("a new buyer describes an axis in US units and publishes it", { timeout: 120_000 }, async () => {
+    const page = await app.newPage();
+    await page.goto("/sign-up");
+    await hydrated(page);
+    await page.getByText("We build machines").click();
+    await page.getByLabel("Company name").fill("Tamsin Lift Works");
+    await page.getByLabel("Your name").fill("Tamsin Hale");
+    await page.getByLabel("Work e-mail address").fill("tamsin@tamsin-lift.test");
+    await page.getByLabel("Password").fill("first-time-buyer");
+    await page.getByRole("button", { name: "Create account" }).click();
+    await page.waitForURL("**/specs");
+    await shot(page, "0-empty");
+
+    await page.goto("/settings");
+    await hydrated(page);
+    await page.getByText("US customary (in, lb, psi)").click();
+    await page.getByRole("button", { name: "Save settings" }).click();
+    await page.waitForURL("**/settings");
+
+    await page.goto("/specs");
+    await page.getByRole("button", { name: "Start a new spec" }).first().click();
+    await page.waitForURL("**/edit/machine");
+    await hydrated(page);
+
+    // A bad answer shows beside its field.
+    await page.getByRole("button", { name: "Save and continue →" }).click();
+    await expect.poll(() => page.getByText("Give the spec a short title").count()).toBe(1);
+    await page.getByLabel("Title").fill("Scissor lift, main cylinder");
+    await page.getByLabel("Vertical").check();
+    await page.getByRole("radio", { name: /^Up/ }).check();
+    await shot(page, "1-machine");
+    await next(page, "motion");
+
+    await page.getByLabel("Moving mass", { exact: true }).fill("2200");
+    await page.getByLabel("Stroke", { exact: true }).fill("30");
+    await page.getByLabel("Extending speed").fill("2");
+    await page.getByLabel("Retracting speed").fill("3");
+    const preview = page.getByRole("complementary", { name: "Live preview" });
+    await expect.poll(() => preview.getByRole("img").count(), { timeout: 8_000 }).toBe(1);
+    const first = await preview.getByRole("img").innerHTML();
+    await page.getByLabel("Moving mass", { exact: true }).fill("9000");
+    await expect.poll(() => preview.getByRole("img").innerHTML(), { timeout: 8_000 }).not.toBe(first);
+    expect(await preview.getByRole("img").innerHTML()).toContain("psi");
+    await shot(page, "2-motion");
+    await next(page, "duty");
+
+    await page.getByLabel("Cycles per hour").fill("12");
+    await page.getByLabel("Hours of work per day").fill("8");
+    await page.getByLabel("60 Hz").check().catch(async () => page.getByLabel("Mains frequency").selectOption("60"));
+    await page.getByLabel("Mains voltage").selectOption("480 V three-phase");
+    await shot(page, "3-duty");
+    await next(page, "quotation");
+
+    await page.getByLabel("Bid deadline").fill(inDays(14));
+    await page.getByLabel("Date needed").fill(inDays(70));
+    await page.getByLabel("Delivery region").fill("US — Ohio");
+    await shot(page, "4-quotation");
+    await next(page, "review");
+
+    await expect.poll(() => page.getByText("Before anyone builds this").count()).toBe(1);
+    await shot(page, "5-review");
+    await page.getByLabel(/I have read the cautions/).check();
+    await page.getByRole("button", { name: "Publish for bids" }).click();
+    await page.waitForURL("**/specs/*?published=1");
+    await expect.poll(() => page.getByText("Open for bids").count()).toBeGreaterThan(0);
+    await shot(page, "6-published");
+
+    const spec = await Spec.findOne({ where: { title: "Scissor lift, main cylinder" }, rejectOnEmpty: true });
+    expect(spec.status).toBe("open");
+    const revision = await SpecRevision.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
+    const requirements = revision.axes[0].requirements as { strokeMm: number; massKg: number; supplyHz: number };
+    expect(requirements.strokeMm).toBeCloseTo(762, 0); // 30 in × 25.4 mm/in
+    expect(requirements.massKg).toBeCloseTo(4082, 0); // 9000 lb × 0.45359237 kg/lb
+    expect(requirements.supplyHz).toBe(60);
+    await page.context().close();
+  });
+});

@@ -40,15 +40,18 @@ export interface BucklingResult {
   safetyFactor: number;
 }
 
+/** Critical load of a solid steel rod: Euler at or above the limit slenderness λ₀, Tetmajer below it. */
+export function criticalLoadN(rodMm: number, effectiveLengthMm: number, slenderness: number): number {
+  return slenderness >= A.limitSlenderness.value
+    ? eulerLoadN(A.elasticModulus.value, rodInertiaMm4(rodMm), effectiveLengthMm)
+    : (A.tetmajerA.value - A.tetmajerB.value * slenderness) * ((Math.PI * rodMm * rodMm) / 4);
+}
+
 /** Buckling of a solid steel rod: Euler above the limit slenderness, Tetmajer below it. */
 export function checkBuckling(rodMm: number, lengthMm: number, k: number, compressiveN: number): BucklingResult {
   const effectiveLengthMm = k * lengthMm;
   const slenderness = (4 * effectiveLengthMm) / rodMm; // λ = L_K / i, i = d/4
-  const areaMm2 = (Math.PI * rodMm * rodMm) / 4;
-  const euler = slenderness >= A.limitSlenderness.value;
-  const criticalLoadN = euler
-    ? eulerLoadN(A.elasticModulus.value, rodInertiaMm4(rodMm), effectiveLengthMm)
-    : (A.tetmajerA.value - A.tetmajerB.value * slenderness) * areaMm2;
-  const safetyFactor = compressiveN > 0 ? criticalLoadN / compressiveN : Number.POSITIVE_INFINITY;
-  return { effectiveLengthMm, slenderness, regime: euler ? "Euler" : "Tetmajer", criticalLoadN, safetyFactor };
+  const critical = criticalLoadN(rodMm, effectiveLengthMm, slenderness);
+  const safetyFactor = compressiveN > 0 ? critical / compressiveN : Number.POSITIVE_INFINITY;
+  return { effectiveLengthMm, slenderness, regime: slenderness >= A.limitSlenderness.value ? "Euler" : "Tetmajer", criticalLoadN: critical, safetyFactor };
 }

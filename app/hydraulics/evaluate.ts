@@ -3,17 +3,17 @@
  * buckling) and whether it meets every limit. The search in size.ts calls this per candidate.
  */
 import { A } from "./assumptions";
-import { EULER_CASES, bucklingLengthMm, checkBuckling, type BucklingResult } from "./buckling";
+import { EULER_CASES, bucklingLengthMm, checkBuckling, criticalLoadN, type BucklingResult } from "./buckling";
 import { cylinderSeriesFor, type CylinderCandidate } from "./cylinder";
-import { DEFAULT_FLUID, budgetLossBarPerM, lineLossBar, sizeLine, type Fluid, type LineSizing } from "./lines";
+import { DEFAULT_FLUID, budgetLossBarPerM, budgetLossBarPerMFor, lineLossBar, sizeLine, type Fluid, type LineSizing } from "./lines";
 import {
   accelerationForceN, axisLoads, extendForces, pressForceN, retractForces, type AxisLoads, type StrokeForces,
 } from "./loads";
-import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
+import { displacementCcFor, motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import type { Requirements } from "./requirements";
 import type { CylinderSeries } from "./series";
 import {
-  cbvSettingBar, choosePilotRatio, cylinderInletBar, hydraulicForceN, pilotOpeningBar, reliefSettingBar,
+  cbvSettingBar, choosePilotRatio, cylinderInletBar, cylinderInletBarCbv, hydraulicForceN, pilotOpeningBar, reliefSettingBar,
   type CbvSide, type PilotRatioChoice,
 } from "./valves";
 
@@ -247,4 +247,87 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, bu
     cbvOk: !cbv || cbv.settingBar <= ctx.series.ratedPressureBar + 1e-9,
     bucklingOk: buckling.safetyFactor >= A.bucklingSafetyFactor.value,
   };
+}
+
+// ---- The search's check ----------------------------------------------------------------------
+
+export const SEARCH_PRESSURE_OK = 1;
+export const SEARCH_CBV_OK = 2;
+export const SEARCH_BUCKLING_OK = 4;
+
+/**
+ * What evaluateCandidate(ctx, cyl, true) decides, as flags (SEARCH_*_OK), with the same
+ * arithmetic in the same order but none of the objects: the search tries several pairs per
+ * design and keeps only the answer. A unit test holds the two to the same flags.
+ */
+export function searchCheck(ctx: SizingContext, cyl: CylinderCandidate): number {
+  const { req, loads, fluid } = ctx;
+  const eta = A.cylinderEfficiency.value;
+  const etaV = A.volumetricEfficiency.value;
+  const a1 = cyl.capAreaMm2;
+  const a3 = cyl.annulusAreaMm2;
+  const phi = cyl.areaRatio;
+
+  const flowExtendLpm = (a1 * req.extendSpeedMmS * 0.06) / 1000;
+  const flowRetractLpm = (a3 * req.retractSpeedMmS * 0.06) / 1000;
+  const needCc = requiredDisplacementCc(Math.max(flowExtendLpm, flowRetractLpm), ctx.speedRpm, etaV);
+  const qp = pumpDeliveryLpm(displacementCcFor(needCc), ctx.speedRpm, etaV);
+  const extendActualMmS = (qp * 1000) / (a1 * 0.06);
+  const retractActualMmS = (qp * 1000) / (a3 * 0.06);
+  const gravityN = loads.extendGravitySign * loads.gravityAlongAxisN;
+  const extendMovingN = loads.frictionN + gravityN + accelerationForceN(req.massKg, extendActualMmS, req.accelTimeS);
+  const retractMovingN = loads.frictionN - gravityN + accelerationForceN(req.massKg, retractActualMmS, req.accelTimeS);
+  const pressN = pressForceN(loads);
+
+  // Budgeted line losses: the pressure and rod lines are sized for Q_p, the cap and return lines for φ·Q_p.
+  const vp = A.pressureVelocityLimit.value;
+  const atPump = budgetLossBarPerMFor(qp, vp, fluid);
+  const pressureLine = atPump * A.pressureLineLengthM.value;
+  const rodWork = atPump * A.workLineLengthM.value;
+  const capWork = budgetLossBarPerMFor(qp * phi, vp, fluid) * A.workLineLengthM.value;
+  const returnLine = budgetLossBarPerMFor(qp * phi, A.returnVelocityLimit.value, fluid) * A.returnLineLengthM.value;
+  const dcv = A.dcvPathDropBar.value;
+  const filter = A.returnFilterDropBar.value;
+  const check = A.cbvCheckDropBar.value;
+  const extendSupplyLossBar = pressureLine + dcv + capWork + (ctx.cbvSide === "cap" ? check : 0);
+  const extendBackBar = rodWork + dcv + returnLine + filter;
+  const retractSupplyLossBar = pressureLine + dcv + rodWork + (ctx.cbvSide === "rod" ? check : 0);
+  const retractBackBar = capWork + dcv + returnLine + filter;
+
+  let flags = SEARCH_CBV_OK;
+  let extendInletBar: number;
+  let retractInletBar: number;
+  let extendPressBar: number;
+  const extendH = hydraulicForceN(extendMovingN, eta);
+  const retractH = hydraulicForceN(retractMovingN, eta);
+  const pressH = hydraulicForceN(pressN, eta);
+  if (ctx.cbvSide && ctx.pilot) {
+    const rod = ctx.cbvSide === "rod";
+    const settingBar = cbvSettingBar((10 * loads.gravityAlongAxisN) / (rod ? a3 : a1));
+    const ratio = ctx.pilot.ratio;
+    if (!(settingBar <= ctx.series.ratedPressureBar + 1e-9)) flags = 0;
+    if (rod) {
+      extendInletBar = Math.max(cylinderInletBarCbv(extendH, a1, a3, extendBackBar, settingBar, ratio), cylinderInletBar(0, a1, a3, extendBackBar));
+      retractInletBar = cylinderInletBar(retractH, a3, a1, retractBackBar);
+      extendPressBar = cylinderInletBarCbv(pressH, a1, a3, 0, settingBar, ratio);
+    } else {
+      extendInletBar = cylinderInletBar(extendH, a1, a3, extendBackBar);
+      retractInletBar = Math.max(cylinderInletBarCbv(retractH, a3, a1, retractBackBar, settingBar, ratio), cylinderInletBar(0, a3, a1, retractBackBar));
+      extendPressBar = cylinderInletBar(pressH, a1, a3, 0);
+    }
+  } else {
+    extendInletBar = cylinderInletBar(extendH, a1, a3, extendBackBar);
+    retractInletBar = cylinderInletBar(retractH, a3, a1, retractBackBar);
+    extendPressBar = cylinderInletBar(pressH, a1, a3, 0);
+  }
+  const extendBar = Math.max(extendInletBar + extendSupplyLossBar, extendPressBar);
+  const workingBar = Math.max(extendBar, retractInletBar + retractSupplyLossBar);
+  if (workingBar <= ctx.workingLimitBar + 1e-9) flags |= SEARCH_PRESSURE_OK;
+
+  const compressiveN = Math.max(extendMovingN, pressN, (reliefSettingBar(workingBar) * a1) / 10);
+  const effectiveLengthMm = ctx.buckling.k * ctx.buckling.lengthMm;
+  const critical = criticalLoadN(cyl.rodMm, effectiveLengthMm, (4 * effectiveLengthMm) / cyl.rodMm);
+  const safetyFactor = compressiveN > 0 ? critical / compressiveN : Number.POSITIVE_INFINITY;
+  if (safetyFactor >= A.bucklingSafetyFactor.value) flags |= SEARCH_BUCKLING_OK;
+  return flags;
 }

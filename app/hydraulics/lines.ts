@@ -37,11 +37,15 @@ export function frictionFactor(re: number): number {
   return Math.max(laminar, 0.3164 / Math.sqrt(Math.sqrt(re)));
 }
 
+/** Darcy–Weisbach Δp/L = f·(1/d)·ρv²/2, in bar per metre, from the friction factor and velocity. */
+const darcyBarPerM = (f: number, diameterMm: number, densityKgM3: number, velocityMS: number): number =>
+  (f * (1000 / diameterMm) * densityKgM3 * velocityMS * velocityMS) / 2 / 1e5;
+
 /** Darcy–Weisbach Δp/L = f·(1/d)·ρv²/2, in bar per metre. */
 export function pressureLossBarPerM(flowLpm: number, diameterMm: number, fluid: Fluid): number {
   const v = lineVelocityMS(flowLpm, diameterMm);
   const f = frictionFactor(reynoldsNumber(v, diameterMm, fluid.viscosityMm2S));
-  return (f * (1000 / diameterMm) * fluid.densityKgM3 * v * v) / 2 / 1e5;
+  return darcyBarPerM(f, diameterMm, fluid.densityKgM3, v);
 }
 
 /** Index of the smallest SAE J517 dash size whose nominal ID is at least the required diameter (the largest if none is). */
@@ -87,7 +91,7 @@ export function sizeLine(flowLpm: number, velocityLimitMS: number, lengthM: numb
   const velocityMS = lineVelocityMS(flowLpm, d);
   const reynolds = reynoldsNumber(velocityMS, d, fluid.viscosityMm2S);
   const f = frictionFactor(reynolds);
-  const perM = (f * (1000 / d) * fluid.densityKgM3 * velocityMS * velocityMS) / 2 / 1e5;
+  const perM = darcyBarPerM(f, d, fluid.densityKgM3, velocityMS);
   return {
     hoseIndex, flowLpm, velocityLimitMS, requiredDiameterMm, dashSize: hose.dash, nominalInch: hose.inch, dn: hose.dn,
     innerDiameterMm: d, velocityMS, reynolds, regime: flowRegime(reynolds), frictionFactor: f,
@@ -109,6 +113,18 @@ export function budgetLossBarPerM(line: LineSizing, fluid: Fluid): number {
   const peaks = peakLossTable(line.velocityLimitMS, fluid);
   const index = line.hoseIndex;
   return Math.max(line.pressureLossBarPerM, index > 0 ? peaks[index - 1] : 0);
+}
+
+/**
+ * The search's budgeted loss per metre for a line sized for `flowLpm` at `velocityLimitMS`:
+ * the same number as budgetLossBarPerM(sizeLine(...)), without building the LineSizing.
+ */
+export function budgetLossBarPerMFor(flowLpm: number, velocityLimitMS: number, fluid: Fluid): number {
+  const index = hoseIndexFor(lineDiameterMm(flowLpm, velocityLimitMS));
+  const d = SAE_J517_HOSES[index].nominalIdMm;
+  const velocityMS = lineVelocityMS(flowLpm, d);
+  const perM = darcyBarPerM(frictionFactor(reynoldsNumber(velocityMS, d, fluid.viscosityMm2S)), d, fluid.densityKgM3, velocityMS);
+  return Math.max(perM, index > 0 ? peakLossTable(velocityLimitMS, fluid)[index - 1] : 0);
 }
 
 interface PeakTable { velocity: number; viscosity: number; density: number; cumulative: number[] }

@@ -23,8 +23,14 @@ export const hydraulicPowerKw = (pressureBar: number, flowLpm: number): number =
 export function selectDisplacementCc(requiredCc: number): { displacementCc: number; inSeries: boolean } {
   const found = nextInSeries(ISO3662_DISPLACEMENTS_CC, requiredCc);
   if (found !== undefined) return { displacementCc: found, inSeries: true };
-  return { displacementCc: ISO3662_DISPLACEMENTS_CC[ISO3662_DISPLACEMENTS_CC.length - 1], inSeries: false };
+  return { displacementCc: LARGEST_DISPLACEMENT_CC, inSeries: false };
 }
+
+const LARGEST_DISPLACEMENT_CC = ISO3662_DISPLACEMENTS_CC[ISO3662_DISPLACEMENTS_CC.length - 1];
+
+/** selectDisplacementCc's displacement alone, for the search (no object per call). */
+export const displacementCcFor = (requiredCc: number): number =>
+  nextInSeries(ISO3662_DISPLACEMENTS_CC, requiredCc) ?? LARGEST_DISPLACEMENT_CC;
 
 /** Next IEC 60072-1 rated output, or the largest when the series runs out. */
 export function selectMotorKw(requiredKw: number): { ratedKw: number; inSeries: boolean } {

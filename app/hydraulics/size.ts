@@ -7,7 +7,10 @@ import { eulerLoadN, rodInertiaMm4 } from "./buckling";
 import { buildCircuit } from "./circuit";
 import { cylinderCandidates, cylinderForceN, type CylinderCandidate } from "./cylinder";
 import type { Design } from "./design";
-import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
+import {
+  SEARCH_BUCKLING_OK, SEARCH_CBV_OK, SEARCH_PRESSURE_OK, evaluateCandidate, searchCheck, sizingContext,
+  type Evaluation, type SizingContext,
+} from "./evaluate";
 import { explain } from "./explain";
 import { lineLossBar, sizeLine } from "./lines";
 import { hydraulicPowerKw, selectMotorKw } from "./pump-motor";
@@ -30,28 +33,29 @@ const VENT_ENERGISED_WHEN = "with solenoid a or b of the directional valve; de-e
  * When none does, it keeps the largest pair that meets the pressure limits (or the largest
  * of all) and the warnings say what is left.
  */
-export function chooseCylinder(ctx: SizingContext): Evaluation {
+export function chooseCylinder(ctx: SizingContext): CylinderCandidate {
   const list = cylinderCandidates(ctx.series);
+  const all = SEARCH_PRESSURE_OK | SEARCH_CBV_OK | SEARCH_BUCKLING_OK;
+  const pressures = SEARCH_PRESSURE_OK | SEARCH_CBV_OK;
   // Fast pass: skip pairs that cannot meet the force or buckling bounds even with no line losses.
   for (const cyl of list) {
     if (cyl.capAreaMm2 < ctx.minCapAreaMm2 || cyl.annulusAreaMm2 < ctx.minAnnulusAreaMm2) continue;
     if (criticalLoadBoundN(ctx, cyl.rodMm) < A.bucklingSafetyFactor.value * minStallThrustN(ctx, cyl)) continue;
-    const ev = evaluateCandidate(ctx, cyl, true);
-    if (ev.pressureOk && ev.cbvOk && ev.bucklingOk) return ev;
+    if (searchCheck(ctx, cyl) === all) return cyl;
   }
   // Nothing meets every limit: look again for the largest pair that meets the pressures.
-  let pressureFit: Evaluation | undefined;
-  let last: Evaluation | undefined;
+  let pressureFit: CylinderCandidate | undefined;
+  let last: CylinderCandidate | undefined;
   for (const cyl of list) {
     if (cyl.capAreaMm2 < ctx.minCapAreaMm2 || cyl.annulusAreaMm2 < ctx.minAnnulusAreaMm2) continue;
-    const ev = evaluateCandidate(ctx, cyl, true);
-    last = ev;
-    if (ev.pressureOk && ev.cbvOk) {
-      if (ev.bucklingOk) return ev;
-      pressureFit = ev;
+    const flags = searchCheck(ctx, cyl);
+    last = cyl;
+    if ((flags & pressures) === pressures) {
+      if (flags === all) return cyl;
+      pressureFit = cyl;
     }
   }
-  return pressureFit ?? last ?? evaluateCandidate(ctx, list[list.length - 1], true);
+  return pressureFit ?? last ?? list[list.length - 1];
 }
 
 /**
@@ -78,7 +82,7 @@ function criticalLoadBoundN(ctx: SizingContext, rodMm: number): number {
 export function sizeCircuitParsed(req: Requirements): Design {
   const ctx = sizingContext(req);
   // The search budgets line losses from above; the design reports the actual losses.
-  const ev = evaluateCandidate(ctx, chooseCylinder(ctx).cyl);
+  const ev = evaluateCandidate(ctx, chooseCylinder(ctx));
   const warnings = new Warnings();
   const eta = A.cylinderEfficiency.value;
   const etaO = A.overallEfficiency.value;

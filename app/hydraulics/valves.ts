@@ -83,10 +83,22 @@ export function cylinderInletBar(
   backPressureBar: number,
   outletCbv?: { settingBar: number; ratio: number },
 ): number {
+  return outletCbv
+    ? cylinderInletBarCbv(hydraulicN, inletAreaMm2, outletAreaMm2, backPressureBar, outletCbv.settingBar, outletCbv.ratio)
+    : Math.max(0, (10 * hydraulicN + backPressureBar * outletAreaMm2) / inletAreaMm2);
+}
+
+/** cylinderInletBar with a CBV on the outlet, its setting and pilot ratio given as numbers. */
+export function cylinderInletBarCbv(
+  hydraulicN: number,
+  inletAreaMm2: number,
+  outletAreaMm2: number,
+  backPressureBar: number,
+  settingBar: number,
+  ratio: number,
+): number {
   const free = (10 * hydraulicN + backPressureBar * outletAreaMm2) / inletAreaMm2;
-  if (!outletCbv) return Math.max(0, free);
-  const throttling =
-    (10 * hydraulicN + outletCbv.settingBar * outletAreaMm2) / (inletAreaMm2 + outletCbv.ratio * outletAreaMm2);
+  const throttling = (10 * hydraulicN + settingBar * outletAreaMm2) / (inletAreaMm2 + ratio * outletAreaMm2);
   return Math.max(0, free, throttling);
 }
 

@@ -14,7 +14,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const user = await requireRole(request, ["buyer"]);
   const spec = await specOfOwner(user, params.specId);
   try {
-    await deleteDraft(spec);
+    await deleteDraft(user, spec);
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;
     return redirectWithToast(request, `/specs/${spec.id}`, error.message);

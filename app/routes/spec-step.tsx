@@ -16,6 +16,8 @@ import { FLUIDS, SUPPLY_VOLTAGES, stepFieldNames, stepSchema } from "~/schemas/s
 import { FieldErrors, notFound } from "~/services/errors.server";
 import { specOfOwner } from "~/services/spec-access.server";
 import { allAnswers, designOf, publish, saveStep } from "~/services/specs.server";
+import { ATTACHMENT_LIMITS, listAttachments } from "~/services/attachments.server";
+import { AttachmentUploader, formatBytes } from "~/components/attachment-uploader";
 import { UNIT_SYSTEM_LABELS, unitLabel, type Quantity, type UnitSystem } from "~/units";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.stepTitle ?? "Spec"} · ${d?.spec.title || "New spec"} · Tenderflow` }];
@@ -33,10 +35,11 @@ async function load(request: Request, params: { specId?: string; step?: string }
 }
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { spec, step } = await load(request, params);
+  const { user, spec, step } = await load(request, params);
   if (spec.status !== "draft") throw redirect(`/specs/${spec.id}`);
   const answers = allAnswers(spec);
   const review = step === "review" ? designOf(spec) : null;
+  const attachments = step === "quotation" || step === "review" ? await listAttachments(user, spec.id) : [];
   return {
     spec: { id: spec.id, title: spec.title, unitSystem: spec.unitSystem as UnitSystem, completedSteps: spec.completedSteps as string[] },
     step,
@@ -44,6 +47,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     answers,
     stepAnswers: step === "review" ? {} : (spec.answers[step] ?? {}),
     review,
+    attachments,
+    attachmentLimits: ATTACHMENT_LIMITS,
   };
 }
 
@@ -116,6 +121,7 @@ function StepForm({ loaderData, lastResult }: { loaderData: LoaderData; lastResu
 
   return (
     <div className={step === "motion" ? "grid gap-6 lg:grid-cols-[1fr_26rem]" : "max-w-2xl"}>
+      <div>
       <Form method="post" {...getFormProps(form)} className="space-y-5">
         <Card className="space-y-5">
           {step === "machine" ? (
@@ -144,19 +150,26 @@ function StepForm({ loaderData, lastResult }: { loaderData: LoaderData; lastResu
             Values in {UNIT_SYSTEM_LABELS[system]}. <Link to="/settings" className="text-flow-700 hover:underline">Change your units</Link> for new specs.
           </p>
         </Card>
-        <div className="flex justify-between">
-          {previousStep(step) ? (
-            <Button type="submit" name="intent" value="back" tone="secondary" formNoValidate>
-              ← Back
-            </Button>
-          ) : (
-            <span />
-          )}
-          <Button type="submit" name="intent" value="next" disabled={navigation.state === "submitting"}>
-            Save and continue →
-          </Button>
-        </div>
       </Form>
+      {step === "quotation" ? (
+        // A form of its own (forms cannot nest); the step's buttons below reach their form by id.
+        <Card className="mt-6">
+          <AttachmentUploader specId={spec.id} attachments={loaderData.attachments} limits={loaderData.attachmentLimits} />
+        </Card>
+      ) : null}
+      <div className="mt-5 flex justify-between">
+        {previousStep(step) ? (
+          <Button type="submit" form={form.id} name="intent" value="back" tone="secondary" formNoValidate>
+            ← Back
+          </Button>
+        ) : (
+          <span />
+        )}
+        <Button type="submit" form={form.id} name="intent" value="next" disabled={navigation.state === "submitting"}>
+          Save and continue →
+        </Button>
+      </div>
+      </div>
       {step === "motion" ? <LivePreview values={current} system={system} /> : null}
     </div>
   );
@@ -167,6 +180,11 @@ function defaultFor(key: RequirementKey, system: UnitSystem): string | undefined
   const f = REQUIREMENT_FIELDS[key];
   if (f.defaultValue === undefined) return undefined;
   return f.kind === "number" ? displayValue(f, f.defaultValue, system) : f.defaultValue;
+}
+
+function unitSuffix(key: RequirementKey, system: UnitSystem) {
+  const f = REQUIREMENT_FIELDS[key];
+  return f.kind === "number" && f.quantity ? ` ${unitLabel(f.quantity, system)}` : key === "supplyHz" ? " Hz" : "";
 }
 
 /** Later steps not answered yet are taken from the example axis, and the preview says so. */
@@ -193,7 +211,7 @@ function LivePreview({ values, system }: { values: FormValues; system: UnitSyste
             </div>
             {assumed.length ? (
               <p className="mt-2 text-xs text-ink-600">
-                Until you answer the duty step, the preview assumes {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${fallback[k]}`).join(", ")}.
+                Until you answer the duty step, the preview assumes {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${fallback[k]}${unitSuffix(k, system)}`).join(", ")}.
               </p>
             ) : null}
           </>
@@ -283,6 +301,20 @@ function Review({ loaderData, publishError }: { loaderData: LoaderData; publishE
               )),
           )}
         </dl>
+      </Card>
+      <Card>
+        <h2 className="mb-3 font-semibold">Drawings and photos</h2>
+        {loaderData.attachments.length ? (
+          <ul className="text-sm">
+            {loaderData.attachments.map((a) => (
+              <li key={a.id}>
+                <a className="text-flow-700 hover:underline" href={a.downloadUrl}>{a.fileName}</a> · {a.kindLabel} · {formatBytes(a.sizeBytes)}
+              </li>
+            ))}
+          </ul>
+        ) : (
+          <p className="text-sm text-ink-600">None attached. <Link className="text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/quotation`}>Add drawings or photos</Link></p>
+        )}
       </Card>
       <CautionsPanel />
       <Form method="post" className="space-y-4">

@@ -7,6 +7,7 @@ import { Spec, SpecAttachment, SpecRevision, User, sequelize } from "~/models/in
 import type { SpecStatus } from "~/models/spec.server";
 import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
+import { removeAllAttachments } from "./attachments.server";
 import { env } from "~/env.server";
 
 // Specs of a buyer organisation: drafts saved step by step, then published as revisions.
@@ -45,8 +46,10 @@ export async function saveStep(spec: Spec, step: FormStepId, answers: Record<str
   });
 }
 
-export async function deleteDraft(spec: Spec) {
+export async function deleteDraft(user: User, spec: Spec) {
   if (spec.status !== "draft") throw new FieldErrors({ "": ["Only drafts can be deleted."] });
+  // Files first: the rows go with the spec, the files on storage would be left behind.
+  await removeAllAttachments(user, spec.id);
   await spec.destroy();
 }
 

@@ -3,7 +3,7 @@
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { SpecRevision, Spec } from "~/models/index.server";
+import { Spec, SpecAttachment, SpecRevision } from "~/models/index.server";
 import { SCREENSHOTS, hydrated, startBrowserApp, type BrowserApp } from "../support/browser";
 
 let app: BrowserApp;
@@ -80,10 +80,18 @@ describe("spec intake", () => {
     await page.getByLabel("Bid deadline").fill(inDays(14));
     await page.getByLabel("Date needed").fill(inDays(70));
     await page.getByLabel("Delivery region").fill("US — Ohio");
+    // A drawing goes up on its own request, outside the step's form, with a progress bar.
+    await page.getByLabel("Drawings and photos").setInputFiles({
+      name: "lift-layout.pdf",
+      mimeType: "application/pdf",
+      buffer: Buffer.from("%PDF-1.7\n1 0 obj << /Type /Catalog >> endobj\ntrailer << /Root 1 0 R >>\n%%EOF\n"),
+    });
+    await expect.poll(() => page.getByRole("link", { name: "lift-layout.pdf" }).count(), { timeout: 8_000 }).toBeGreaterThan(0);
     await shot(page, "4-quotation");
     await next(page, "review");
 
     await expect.poll(() => page.getByText("Before anyone builds this").count()).toBe(1);
+    expect(await page.getByRole("link", { name: "lift-layout.pdf" }).count()).toBe(1);
     await shot(page, "5-review");
     await page.getByLabel(/I have read the cautions/).check();
     await page.getByRole("button", { name: "Publish for bids" }).click();
@@ -98,6 +106,7 @@ describe("spec intake", () => {
     expect(requirements.strokeMm).toBeCloseTo(762, 0); // 30 in × 25.4 mm/in
     expect(requirements.massKg).toBeCloseTo(4082, 0); // 9000 lb × 0.45359237 kg/lb
     expect(requirements.supplyHz).toBe(60);
+    expect(await SpecAttachment.count({ where: { specId: spec.id } })).toBe(1);
     await page.context().close();
   });
 });

@@ -87,8 +87,71 @@ export class RequirementsError extends Error {
 /** Field key used for problems with the request as a whole. */
 export const FORM_ERROR_KEY = "_form";
 
+const finite = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
+const within = (x: unknown, min: number, max: number): x is number => finite(x) && x >= min && x <= max;
+const above = (x: unknown, min: number, max: number): x is number => finite(x) && x > min && x <= max;
+/** A field with a default: absent (or undefined) takes the default, as the schema does. */
+const orDefault = (x: unknown, fallback: number, min: number, max: number): number | undefined =>
+  x === undefined ? fallback : within(x, min, max) ? x : undefined;
+
+/**
+ * The schema's answer for a plain object it accepts, worked out directly: the same checks, the
+ * same defaults, the same keys in the same order, unknown keys dropped. Anything it is not sure
+ * of (a problem, an explicit undefined on an optional field, an unusual object) returns
+ * undefined, and the schema itself decides and words the errors. A property test holds the two
+ * to the same output. It exists because the schema costs more than the sizing search.
+ */
+function acceptedRequirements(input: unknown): Requirements | undefined {
+  if (typeof input !== "object" || input === null) return undefined;
+  const proto = Object.getPrototypeOf(input);
+  if (proto !== Object.prototype && proto !== null) return undefined;
+  const o = input as Record<string, unknown>;
+  const orientation = o.orientation;
+  if (orientation !== "horizontal" && orientation !== "vertical" && orientation !== "inclined") return undefined;
+  const inclineDeg = o.inclineDeg;
+  if (inclineDeg === undefined ? orientation === "inclined" || "inclineDeg" in o : !(finite(inclineDeg) && inclineDeg > 0 && inclineDeg < 90)) {
+    return undefined;
+  }
+  const rodDirection = o.rodDirection;
+  if (rodDirection === undefined ? orientation !== "horizontal" || "rodDirection" in o : rodDirection !== "up" && rodDirection !== "down") {
+    return undefined;
+  }
+  const { massKg, strokeMm, extendSpeedMmS, retractSpeedMmS, mounting, cyclesPerHour, hoursPerDay, supplyHz } = o;
+  if (!within(massKg, 0, 500_000) || !above(strokeMm, 0, 10_000)) return undefined;
+  if (!above(extendSpeedMmS, 0, 2000) || !above(retractSpeedMmS, 0, 2000)) return undefined;
+  if (mounting !== "fixed-free" && mounting !== "pinned-pinned" && mounting !== "fixed-pinned" && mounting !== "fixed-fixed") return undefined;
+  if (!within(cyclesPerHour, 0, 3600) || !within(hoursPerDay, 0, 24) || (supplyHz !== 50 && supplyHz !== 60)) return undefined;
+  const processForceN = orDefault(o.processForceN, 0, 0, 10_000_000);
+  const frictionCoefficient = orDefault(o.frictionCoefficient, 0.1, 0, 1);
+  const accelTime = o.accelTimeS;
+  const accelTimeS = accelTime === undefined ? 0.2 : above(accelTime, 0, 10) ? accelTime : undefined;
+  const ambientC = orDefault(o.ambientC, 25, -30, 55);
+  const maxPressureBar = orDefault(o.maxPressureBar, 160, 20, 250);
+  if (processForceN === undefined || frictionCoefficient === undefined || accelTimeS === undefined) return undefined;
+  if (ambientC === undefined || maxPressureBar === undefined) return undefined;
+  const out: Partial<Requirements> = { orientation };
+  if (inclineDeg !== undefined) out.inclineDeg = inclineDeg as number;
+  if (rodDirection !== undefined) out.rodDirection = rodDirection as "up" | "down";
+  out.massKg = massKg;
+  out.processForceN = processForceN;
+  out.frictionCoefficient = frictionCoefficient;
+  out.strokeMm = strokeMm;
+  out.extendSpeedMmS = extendSpeedMmS;
+  out.retractSpeedMmS = retractSpeedMmS;
+  out.accelTimeS = accelTimeS;
+  out.mounting = mounting;
+  out.cyclesPerHour = cyclesPerHour;
+  out.hoursPerDay = hoursPerDay;
+  out.ambientC = ambientC;
+  out.supplyHz = supplyHz;
+  out.maxPressureBar = maxPressureBar;
+  return out as Requirements;
+}
+
 /** Parses requirements or throws a RequirementsError naming each bad field. */
 export function parseRequirements(input: unknown): Requirements {
+  const accepted = acceptedRequirements(input);
+  if (accepted) return accepted;
   const result = requirementsSchema.safeParse(input);
   if (result.success) return result.data;
   const fieldErrors: Record<string, string[]> = {};

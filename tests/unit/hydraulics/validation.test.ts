@@ -1,8 +1,10 @@
 /** Requirements validation: every kind of bad input names its field, all at once. */
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   FORM_ERROR_KEY, RequirementsError, parseRequirements, requirementsSchema, sizeCircuit, type RequirementsInput,
 } from "~/hydraulics";
+import { requirementsArb } from "./arbitraries";
 
 const GOOD: RequirementsInput = {
   orientation: "horizontal", massKg: 500, strokeMm: 400, extendSpeedMmS: 100, retractSpeedMmS: 150,
@@ -66,5 +68,50 @@ describe("requirements schema", () => {
   it("rejects a request that is not an object under the form key", () => {
     expect(Object.keys(errorsFor("not an axis"))).toEqual([FORM_ERROR_KEY]);
     expect(Object.keys(errorsFor(null))).toEqual([FORM_ERROR_KEY]);
+  });
+});
+
+describe("parseRequirements gives exactly the schema's answer (its fast path for accepted input)", () => {
+  // Values near and across every limit, wrong types, explicit undefined, extra keys.
+  const value = fc.oneof(
+    fc.constantFrom(undefined, null, "", "5", true, NaN, Infinity, -Infinity, -0, 0, 0.1, 1, 10, 20, 24, 50, 60, 89.9, 90, 160, 250, 2000, 3600, 10_000, 500_000, 10_000_000, -1, -30, 55, 1e12),
+    fc.double({ min: -100, max: 3000, noNaN: true }),
+    fc.constantFrom("horizontal", "vertical", "inclined", "up", "down", "fixed-free", "pinned-pinned", "fixed-pinned", "fixed-fixed", "sideways"),
+  );
+  const keys = [...Object.keys(requirementsSchema.shape), "extra"];
+  const perturbed = fc.tuple(requirementsArb, fc.array(fc.tuple(fc.constantFrom(...keys), value, fc.boolean()), { maxLength: 3 })).map(([base, edits]) => {
+    const out: Record<string, unknown> = { ...base };
+    for (const [key, v, remove] of edits) {
+      if (remove) delete out[key];
+      else out[key] = v;
+    }
+    return out;
+  });
+  it("accepts and fills in the same way, keys in the same order, and rejects the same inputs", () => {
+    fc.assert(
+      fc.property(fc.oneof(requirementsArb, perturbed), (input) => {
+        const expected = requirementsSchema.safeParse(input);
+        let got: unknown;
+        try {
+          got = parseRequirements(input);
+        } catch (e) {
+          expect(e).toBeInstanceOf(RequirementsError);
+          expect(expected.success).toBe(false);
+          return;
+        }
+        expect(expected.success).toBe(true);
+        expect(got).toStrictEqual(expected.data);
+        expect(Object.keys(got as object)).toEqual(Object.keys(expected.data!));
+      }),
+      { numRuns: 3000 },
+    );
+  });
+
+  it("leaves odd objects to the schema", () => {
+    const good = { ...GOOD, extra: 1 };
+    expect(parseRequirements(good)).toStrictEqual(requirementsSchema.parse(good));
+    expect(() => parseRequirements(Object.assign(Object.create({ massKg: 5 }), { ...GOOD, massKg: undefined }))).toThrow(RequirementsError);
+    expect(() => parseRequirements([GOOD])).toThrow(RequirementsError);
+    expect(() => parseRequirements({ ...GOOD, orientation: "inclined", rodDirection: "up", inclineDeg: undefined })).toThrow(RequirementsError);
   });
 });

@@ -17,6 +17,7 @@ export default [
   route("specs/:specId/edit", "routes/spec-resume.tsx"),
   route("specs/:specId/edit/:step", "routes/spec-step.tsx"),
   route("specs/:specId/delete", "routes/spec-delete.tsx"),
+  route("specs/:specId/revise", "routes/spec-revise.tsx"),
   route("open-specs", "routes/open-specs.tsx"),
   route("settings", "routes/settings.tsx"),
   route("team", "routes/team.tsx"),

@@ -24,6 +24,8 @@ export class Spec extends Model<InferAttributes<Spec>, InferCreationAttributes<S
   declare unitSystem: CreationOptional<UnitSystem>;
   declare completedSteps: CreationOptional<string[]>;
   declare currentRevision: CreationOptional<number>;
+  /** A published spec whose answers are being edited towards its next revision. */
+  declare revising: CreationOptional<boolean>;
   declare bidDeadline: Date | null;
   declare retainerPercent: string | null;
   declare deliveryRegion: string | null;
@@ -43,6 +45,7 @@ Spec.init(
     unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
     completedSteps: { type: DataTypes.ARRAY(DataTypes.STRING(20)), allowNull: false, defaultValue: [] },
     currentRevision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+    revising: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
     bidDeadline: { type: DataTypes.DATE, allowNull: true },
     retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
     deliveryRegion: { type: DataTypes.STRING(80), allowNull: true },

@@ -3,11 +3,12 @@ import type { Route } from "./+types/spec-resume";
 import { requireRole } from "~/auth/permissions.server";
 import { resumeStep } from "~/content/spec-steps";
 import { specOfOwner } from "~/services/spec-access.server";
+import { isEditable } from "~/services/specs.server";
 
 // A draft opened again resumes at the first step not yet completed.
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireRole(request, ["buyer"]);
   const spec = await specOfOwner(user, params.specId);
-  if (spec.status !== "draft") return redirect(`/specs/${spec.id}`);
+  if (!isEditable(spec)) return redirect(`/specs/${spec.id}`);
   return redirect(`/specs/${spec.id}/edit/${resumeStep(spec.completedSteps)}`);
 }

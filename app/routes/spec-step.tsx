@@ -15,7 +15,7 @@ import { ENGINE_KEYS_BY_STEP, SPEC_STEPS, isSpecStep, nextStep, previousStep, ty
 import { FLUIDS, SUPPLY_VOLTAGES, stepFieldNames, stepSchema } from "~/schemas/spec";
 import { FieldErrors, notFound } from "~/services/errors.server";
 import { specOfOwner } from "~/services/spec-access.server";
-import { allAnswers, designOf, publish, saveStep } from "~/services/specs.server";
+import { allAnswers, designOf, isEditable, publish, saveStep } from "~/services/specs.server";
 import { ATTACHMENT_LIMITS, listAttachments } from "~/services/attachments.server";
 import { AttachmentUploader, formatBytes } from "~/components/attachment-uploader";
 import { UNIT_SYSTEM_LABELS, unitLabel, type Quantity, type UnitSystem } from "~/units";
@@ -36,12 +36,12 @@ async function load(request: Request, params: { specId?: string; step?: string }
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, spec, step } = await load(request, params);
-  if (spec.status !== "draft") throw redirect(`/specs/${spec.id}`);
+  if (!isEditable(spec)) throw redirect(`/specs/${spec.id}`);
   const answers = allAnswers(spec);
   const review = step === "review" ? designOf(spec) : null;
   const attachments = step === "quotation" || step === "review" ? await listAttachments(user, spec.id) : [];
   return {
-    spec: { id: spec.id, title: spec.title, unitSystem: spec.unitSystem as UnitSystem, completedSteps: spec.completedSteps as string[] },
+    spec: { id: spec.id, title: spec.title, revising: spec.revising, nextRevision: spec.currentRevision + 1, unitSystem: spec.unitSystem as UnitSystem, completedSteps: spec.completedSteps as string[] },
     step,
     stepTitle: SPEC_STEPS.find((s) => s.id === step)!.title,
     answers,
@@ -90,6 +90,11 @@ export default function SpecStep({ loaderData, actionData }: Route.ComponentProp
         </Link>
       </p>
       <PageHeader title={spec.title || "New spec"} lead={`${meta.title}: ${meta.lead}`} />
+      {spec.revising ? (
+        <div className="mb-4">
+          <Notice tone="warn">You are preparing revision {spec.nextRevision}. Shops keep seeing the published revision until you publish this one.</Notice>
+        </div>
+      ) : null}
       <SpecProgress specId={spec.id} current={step} completed={spec.completedSteps} />
       {step === "review" ? (
         <Review loaderData={loaderData} publishError={actionData?.publishError ?? null} />
@@ -323,7 +328,7 @@ function Review({ loaderData, publishError }: { loaderData: LoaderData; publishE
           <span>I have read the cautions above and understand that this circuit is a preliminary design for quotation.</span>
         </label>
         <Button type="submit" name="intent" value="publish" disabled={!design || incomplete.length > 0 || navigation.state === "submitting"}>
-          Publish for bids
+          {spec.revising ? `Publish revision ${spec.nextRevision}` : "Publish for bids"}
         </Button>
       </Form>
     </div>

@@ -17,7 +17,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const spec = await specForReader(user, params.specId);
   const revisions = await revisionsOf(spec);
-  const current = revisions[0];
+  // Earlier revisions stay viewable: ?revision=N, the newest by default.
+  const asked = Number(new URL(request.url).searchParams.get("revision"));
+  const current = revisions.find((r) => r.number === asked) ?? revisions[0];
   return {
     id: spec.id,
     title: spec.title,
@@ -27,6 +29,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     deliveryRegion: spec.deliveryRegion,
     retainerPercent: spec.retainerPercent,
     revision: current ? { number: current.number, engineVersion: current.engineVersion, createdAt: current.createdAt.toISOString() } : null,
+    latestRevision: revisions[0]?.number ?? 0,
+    revisions: revisions.map((r) => ({ number: r.number, createdAt: r.createdAt.toISOString() })),
+    revising: spec.revising,
     design: (current?.axes[0]?.design ?? null) as Design | null,
     unitSystem: (user.unitSystem ?? "metric") as UnitSystem,
   };
@@ -50,7 +55,15 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
           </span>
         }
         actions={
-          d.isOwner && d.status === "draft" ? (
+          d.isOwner && d.status === "open" ? (
+            d.revising ? (
+              <Link to={`/specs/${d.id}/edit`} className="rounded-md bg-flow-600 px-4 py-2 text-sm font-semibold text-white">Continue revision {d.latestRevision + 1}</Link>
+            ) : (
+              <Form method="post" action={`/specs/${d.id}/revise`}>
+                <Button type="submit" tone="secondary">Revise this spec</Button>
+              </Form>
+            )
+          ) : d.isOwner && d.status === "draft" ? (
             <>
               <Link to={`/specs/${d.id}/edit`} className="rounded-md bg-flow-600 px-4 py-2 text-sm font-semibold text-white">Continue the draft</Link>
               <Form method="post" action={`/specs/${d.id}/delete`}>
@@ -63,6 +76,26 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
       {params.get("published") ? (
         <div className="mb-6">
           <Notice tone="good">Published. Fluid-power shops have been told and can bid until the deadline.</Notice>
+        </div>
+      ) : null}
+      {d.revisions.length > 1 ? (
+        <nav aria-label="Revisions" className="mb-6 flex flex-wrap items-center gap-2 text-sm">
+          <span className="text-ink-600">Revisions:</span>
+          {d.revisions.map((r) => (
+            <Link
+              key={r.number}
+              to={`?revision=${r.number}`}
+              aria-current={r.number === d.revision?.number ? "page" : undefined}
+              className={`rounded-md px-2 py-1 ring-1 ${r.number === d.revision?.number ? "bg-flow-600 text-white ring-flow-600" : "ring-ink-200 hover:bg-ink-100"}`}
+            >
+              {r.number} · {new Date(r.createdAt).toLocaleDateString("en-GB")}
+            </Link>
+          ))}
+        </nav>
+      ) : null}
+      {d.revision && d.revision.number < d.latestRevision ? (
+        <div className="mb-6">
+          <Notice tone="warn">You are looking at revision {d.revision.number}; revision {d.latestRevision} is the current one.</Notice>
         </div>
       ) : null}
       {d.design ? (

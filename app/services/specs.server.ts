@@ -33,8 +33,11 @@ export function allAnswers(spec: Spec): FormValues {
  * Saves one step's answers. `complete` marks the step done (its answers passed the step's
  * schema); a step left with Back keeps what was typed but stays incomplete.
  */
+/** A draft, or a published spec the buyer is revising, can be edited in the form. */
+export const isEditable = (spec: Spec) => spec.status === "draft" || (spec.status === "open" && spec.revising);
+
 export async function saveStep(spec: Spec, step: FormStepId, answers: Record<string, string>, complete: boolean) {
-  if (spec.status !== "draft") throw new FieldErrors({ "": ["A published spec is changed by revising it."] });
+  if (!isEditable(spec)) throw new FieldErrors({ "": ["A published spec is changed by revising it."] });
   const completed = new Set(spec.completedSteps);
   if (complete) completed.add(step);
   else completed.delete(step);
@@ -84,7 +87,7 @@ export async function listSpecs(user: User, query: { status?: SpecStatus; sort?:
  * bids until its deadline, and queues an e-mail to every active shop user, all in one transaction.
  */
 export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
-  if (spec.status !== "draft") throw new FieldErrors({ "": ["This spec is already published."] });
+  if (!isEditable(spec)) throw new FieldErrors({ "": ["This spec is already published."] });
   const missing = FORM_STEPS.filter((s) => !spec.completedSteps.includes(s));
   if (missing.length) throw new FieldErrors({ "": [`Complete every step first (${missing.join(", ")}).`] });
   if (!cautionsRead) throw new FieldErrors({ cautionsRead: ["Confirm that you have read the cautions."] });
@@ -96,11 +99,13 @@ export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
   await sequelize.transaction(async (transaction) => {
     // Lock the draft so two clicks on Publish make one revision.
     const locked = await Spec.findByPk(spec.id, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
-    if (locked.status !== "draft") throw new FieldErrors({ "": ["This spec is already published."] });
+    if (!isEditable(locked)) throw new FieldErrors({ "": ["This spec is already published."] });
+    const isRevision = locked.status === "open";
+    const number = locked.currentRevision + 1;
     await SpecRevision.create(
       {
         specId: spec.id,
-        number: 1,
+        number,
         axes: [{ name: "Axis 1", requirements: design.requirements, design }],
         answers: locked.answers,
         unitSystem: locked.unitSystem,
@@ -113,8 +118,9 @@ export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
     await locked.update(
       {
         status: "open",
-        currentRevision: 1,
-        publishedAt: new Date(),
+        currentRevision: number,
+        revising: false,
+        publishedAt: isRevision ? locked.publishedAt : new Date(),
         bidDeadline: deadline,
         retainerPercent: String(quotation.data.retainerPercent),
         deliveryRegion: quotation.data.deliveryRegion,
@@ -126,14 +132,22 @@ export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
       await enqueueMail(
         {
           to: shop.email,
-          subject: `New spec open for bids: ${locked.title}`,
-          text: `Hello ${shop.name},\n\nA machine builder has published a spec on Tenderflow: "${locked.title}", delivered to ${quotation.data.deliveryRegion}, bids until ${quotation.data.bidDeadline}.\n\nRead it and bid: ${env().APP_URL}/open-specs\n`,
+          subject: isRevision ? `Spec revised (revision ${number}): ${locked.title}` : `New spec open for bids: ${locked.title}`,
+          text: isRevision
+            ? `Hello ${shop.name},\n\nThe machine builder has published revision ${number} of "${locked.title}" with a fresh preliminary circuit. Bids made against an earlier revision are marked as such. Bids until ${quotation.data.bidDeadline}.\n\nRead it: ${env().APP_URL}/specs/${locked.id}\n`
+            : `Hello ${shop.name},\n\nA machine builder has published a spec on Tenderflow: "${locked.title}", delivered to ${quotation.data.deliveryRegion}, bids until ${quotation.data.bidDeadline}.\n\nRead it and bid: ${env().APP_URL}/open-specs\n`,
         },
         transaction,
       );
     }
   });
   await spec.reload();
+}
+
+/** Starts revising a published spec; shops keep the current revision until the next is published. */
+export async function startRevision(spec: Spec) {
+  if (spec.status !== "open") throw new FieldErrors({ "": ["Only a spec open for bids can be revised."] });
+  if (!spec.revising) await spec.update({ revising: true });
 }
 
 export async function revisionsOf(spec: Spec) {

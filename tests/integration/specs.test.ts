@@ -1,3 +1,4 @@
+import { Op } from "sequelize";
 import { describe, expect, it } from "vitest";
 import * as signIn from "~/routes/sign-in";
 import * as specNew from "~/routes/spec-new";
@@ -6,6 +7,7 @@ import * as step from "~/routes/spec-step";
 import * as specPage from "~/routes/spec";
 import * as specList from "~/routes/specs";
 import * as del from "~/routes/spec-delete";
+import * as revise from "~/routes/spec-revise";
 import { OutboxMail, Spec, SpecRevision, type User } from "~/models/index.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { waitForMail } from "../support/mailbox";
@@ -172,5 +174,51 @@ describe("the spec form", () => {
     const res = await stepPost(visitor, id, "quotation", { ...ANSWERS.quotation, bidDeadline: "2020-01-01" });
     expect(res.status).toBe(400);
     expect(res.data.result.error.bidDeadline[0]).toMatch(/after today/);
+  });
+});
+
+describe("revising a published spec", () => {
+  it("makes revision 2 with a fresh design, keeps revision 1 viewable, and tells the shops", async () => {
+    const buyer = await makeMember("buyer");
+    const shop = await makeMember("shop");
+    const visitor = await signedIn(buyer);
+    const id = await newDraft(visitor);
+    for (const [name, fields] of Object.entries(ANSWERS)) await stepPost(visitor, id, name, fields);
+    await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
+
+    expect((await visitor.post(revise.action, "/x", {}, { specId: id })).location).toBe(`/specs/${id}/edit/machine`);
+    // While revising, shops keep seeing revision 1.
+    const shopVisitor = await signedIn(shop);
+    expect((await shopVisitor.get(specPage.loader, `/specs/${id}`, { specId: id })).data.revision.number).toBe(1);
+
+    await stepPost(visitor, id, "motion", { ...ANSWERS.motion, massKg: "3000", processForceN: "120000" });
+    const published = await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
+    expect(published.status).toBe(302);
+
+    const revisions = await SpecRevision.findAll({ where: { specId: id }, order: [["number", "ASC"]] });
+    expect(revisions.map((r) => r.number)).toEqual([1, 2]);
+    const bore = (r: SpecRevision) => (r.axes[0].design as { cylinder: { boreMm: number } }).cylinder.boreMm;
+    expect(bore(revisions[1])).toBeGreaterThan(bore(revisions[0])); // 120 kN needs a larger bore than 50 kN
+    const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
+    expect(spec.currentRevision).toBe(2);
+    expect(spec.revising).toBe(false);
+
+    const latest = await shopVisitor.get(specPage.loader, `/specs/${id}`, { specId: id });
+    expect(latest.data.revision.number).toBe(2);
+    const older = await shopVisitor.get(specPage.loader, `/specs/${id}?revision=1`, { specId: id });
+    expect(older.data.revision.number).toBe(1);
+    expect(older.data.design.cylinder.boreMm).toBe(bore(revisions[0]));
+    expect(await OutboxMail.count({ where: { to: shop.email, subject: { [Op.like]: "Spec revised (revision 2)%" } } })).toBe(1);
+  });
+
+  it("refuses to revise a draft and edits of a published spec not being revised", async () => {
+    const visitor = await signedIn(await makeMember("buyer"));
+    const id = await newDraft(visitor);
+    expect((await visitor.post(revise.action, "/x", {}, { specId: id })).status).toBe(302);
+    expect((await Spec.findByPk(id, { rejectOnEmpty: true })).revising).toBe(false);
+    for (const [name, fields] of Object.entries(ANSWERS)) await stepPost(visitor, id, name, fields);
+    await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
+    const edit = await visitor.get(step.loader, "/x", { specId: id, step: "motion" });
+    expect(edit.location).toBe(`/specs/${id}`);
   });
 });

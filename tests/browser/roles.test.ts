@@ -46,6 +46,17 @@ describe("each demo role signs in and sees its home", () => {
     await page.context().close();
   });
 
+  it("the demo scenario's published press is open for the shops, with its circuit", async () => {
+    const page = await app.newPage();
+    await signInAs(page, "sofia@northgate-hyd.test", DEMO_PASSWORD);
+    await page.waitForURL("**/open-specs");
+    await page.getByRole("link", { name: "Panel press, main ram" }).click();
+    await page.waitForURL("**/specs/*");
+    await expect.poll(() => page.getByRole("img", { name: /circuit/i }).count()).toBe(1);
+    await page.screenshot({ path: path.join(SCREENSHOTS, "shop-demo-spec.png"), fullPage: true });
+    await page.context().close();
+  });
+
   it("a shop opening the admin page sees the 403 page", async () => {
     const page = await app.newPage();
     await signInAs(page, "aled@ironbridge-fluid.test", DEMO_PASSWORD);

@@ -1,5 +1,6 @@
 import type { BomLine, Design } from "./design";
 import { num } from "./format";
+import { SAE_J517_HOSES } from "./series";
 
 
 
@@ -8,10 +9,17 @@ type Line = Design["lines"]["pressure"];
 /** Oil held by a hose, L. */
 const hoseVolume = (line: Line): number => ((Math.PI * line.innerDiameterMm ** 2) / 4) * line.lengthM / 1000;
 
+/** The size part of a hose specification depends only on the dash size: written once per size. */
+const HOSE_TEXT = SAE_J517_HOSES.map((h) => `SAE J517 -${h.dash} (${h.inch} in, DN ${h.dn}, ${num(h.nominalIdMm, 2)} mm bore), about `);
+
 function hose(key: string, item: string, line: Line, rated: string): BomLine {
+  const size =
+    SAE_J517_HOSES[line.hoseIndex]?.nominalIdMm === line.innerDiameterMm && SAE_J517_HOSES[line.hoseIndex].dash === line.dashSize
+      ? HOSE_TEXT[line.hoseIndex]
+      : `SAE J517 -${line.dashSize} (${line.nominalInch} in, DN ${line.dn}, ${num(line.innerDiameterMm, 2)} mm bore), about `;
   return {
     key, item, quantity: 1,
-    specification: `SAE J517 -${line.dashSize} (${line.nominalInch} in, DN ${line.dn}, ${num(line.innerDiameterMm, 2)} mm bore), about ${num(line.lengthM, 2)} m, ${rated}`,
+    specification: `${size}${num(line.lengthM, 2)} m, ${rated}`,
     rating: { value: line.innerDiameterMm, unit: "mm", label: "inner diameter" },
   };
 }
@@ -20,6 +28,8 @@ function hose(key: string, item: string, line: Line, rated: string): BomLine {
 export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
   const relief = d.pressuresBar.reliefSetting;
   const vent = d.reliefVent;
+  const pumpLpm = num(d.flowsLpm.pump);
+  const motorKw = num(d.motor.ratedKw, 2);
   const c = d.cylinder;
   const torqueNm = (9550 * d.motor.ratedKw) / d.pump.speedRpm;
   const l = d.lines;
@@ -31,17 +41,17 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
   const bom: BomLine[] = [
     {
       key: "pump", item: "Fixed-displacement pump", quantity: 1,
-      specification: `${num(d.pump.displacementCcRev, 2)} cm³/rev (ISO 3662 series), ${d.pump.speedRpm} rpm, delivers ${num(d.flowsLpm.pump)} L/min, rated for at least ${relief} bar`,
+      specification: `${num(d.pump.displacementCcRev, 2)} cm³/rev (ISO 3662 series), ${d.pump.speedRpm} rpm, delivers ${pumpLpm} L/min, rated for at least ${relief} bar`,
       rating: { value: d.pump.displacementCcRev, unit: "cm³/rev", label: "displacement" },
     },
     {
       key: "motor", item: "Electric motor, 4-pole, foot/flange", quantity: 1,
-      specification: `${num(d.motor.ratedKw, 2)} kW (IEC 60072-1 rating)${d.motor.frame ? `, frame ${d.motor.frame}` : ""}, ${d.requirements.supplyHz} Hz, about ${d.pump.speedRpm} rpm`,
+      specification: `${motorKw} kW (IEC 60072-1 rating)${d.motor.frame ? `, frame ${d.motor.frame}` : ""}, ${d.requirements.supplyHz} Hz, about ${d.pump.speedRpm} rpm`,
       rating: { value: d.motor.ratedKw, unit: "kW", label: "rated output" },
     },
     {
       key: "coupling-bellhousing", item: "Bell housing and flexible coupling", quantity: 1,
-      specification: `joins the ${num(d.motor.ratedKw, 2)} kW motor${d.motor.frame ? ` (frame ${d.motor.frame})` : ""} to the pump flange; coupling for at least ${num(torqueNm)} N·m`,
+      specification: `joins the ${motorKw} kW motor${d.motor.frame ? ` (frame ${d.motor.frame})` : ""} to the pump flange; coupling for at least ${num(torqueNm)} N·m`,
       rating: { value: torqueNm, unit: "N·m", label: "coupling torque" },
     },
     {
@@ -51,7 +61,7 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
     },
     {
       key: "suction-strainer", item: "Suction strainer", quantity: 1,
-      specification: `for ${num(d.flowsLpm.pump)} L/min with low pressure drop; mesh as the pump maker allows`,
+      specification: `for ${pumpLpm} L/min with low pressure drop; mesh as the pump maker allows`,
       rating: { value: d.flowsLpm.pump, unit: "L/min", label: "flow" },
     },
     {
@@ -62,12 +72,12 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
     vent
       ? {
           key: "relief-valve", item: "Pressure-relief valve, pilot-operated, with vent port X", quantity: 1,
-          specification: `set to ${relief} bar, passes the full ${num(d.flowsLpm.pump)} L/min; vented through port X by the relief vent valve (about ${num(vent.ventPressureBar)} bar at the pump in neutral)`,
+          specification: `set to ${relief} bar, passes the full ${pumpLpm} L/min; vented through port X by the relief vent valve (about ${num(vent.ventPressureBar)} bar at the pump in neutral)`,
           rating: { value: relief, unit: "bar", label: "setting" },
         }
       : {
           key: "relief-valve", item: "Pressure-relief valve", quantity: 1,
-          specification: `set to ${relief} bar, passes the full ${num(d.flowsLpm.pump)} L/min`,
+          specification: `set to ${relief} bar, passes the full ${pumpLpm} L/min`,
           rating: { value: relief, unit: "bar", label: "setting" },
         },
     {

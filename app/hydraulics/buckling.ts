@@ -18,12 +18,18 @@ export const EULER_CASES: Readonly<Record<Mounting, { eulerCase: 1 | 2 | 3 | 4; 
  */
 export function bucklingLengthMm(mounting: Mounting, strokeMm: number): { lengthMm: number; rule: string } {
   if (mounting === "pinned-pinned") {
-    const l0 = A.pivotLengthAtZeroStrokeMm.value;
-    return { lengthMm: l0 + 2 * strokeMm, rule: `rear pivot + rod eye: L = L₀ + 2·s with L₀ = ${l0} mm assumed` };
+    return { lengthMm: A.pivotLengthAtZeroStrokeMm.value + 2 * strokeMm, rule: PIVOT_RULE };
   }
-  const allowance = A.flangeAllowanceMm.value;
-  return { lengthMm: strokeMm + allowance, rule: `front flange: L = s + ${allowance} mm flange-to-rod-end allowance` };
+  return { lengthMm: strokeMm + A.flangeAllowanceMm.value, rule: FLANGE_RULE };
 }
+
+const PIVOT_RULE = `rear pivot + rod eye: L = L₀ + 2·s with L₀ = ${A.pivotLengthAtZeroStrokeMm.value} mm assumed`;
+const FLANGE_RULE = `front flange: L = s + ${A.flangeAllowanceMm.value} mm flange-to-rod-end allowance`;
+
+/** Trail formula for the effective length, per Euler case. */
+export const EFFECTIVE_LENGTH_FORMULA: Readonly<Record<1 | 2 | 3 | 4, string>> = Object.fromEntries(
+  Object.values(EULER_CASES).map((c) => [c.eulerCase, `L_K = K·L, Euler case ${c.eulerCase} (K = ${c.k})`]),
+) as Record<1 | 2 | 3 | 4, string>;
 
 /** Euler load F_K = π²·E·I / L_K² (N, with E in N/mm², I in mm⁴, L_K in mm). */
 export const eulerLoadN = (elasticModulus: number, inertiaMm4: number, effectiveLengthMm: number): number =>

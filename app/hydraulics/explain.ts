@@ -3,6 +3,7 @@
  * Inputs are always a record of name → { value, unit }.
  */
 import { A } from "./assumptions";
+import { EFFECTIVE_LENGTH_FORMULA, EULER_CASES } from "./buckling";
 import type { Design, LineSizing } from "./design";
 import type { Evaluation, SizingContext } from "./evaluate";
 import type { DutyShares } from "./reservoir-heat";
@@ -27,6 +28,15 @@ const NEUTRAL_VENTED = "P = p_vent·Q_p / (600·η): the vented relief lets the 
 const NEUTRAL_VENTED_SOURCE = "P = p·Q/600 [D]; vent pressure common practice [CP]";
 const NEUTRAL_ON_RELIEF = "P = p_relief·Q_p / (600·η): the pump runs over relief";
 const NEUTRAL_UNLOADED = "P = p_unload·Q_p / (600·η): the pump unloads P→T";
+
+const EULER_K: Readonly<Record<number, number>> = Object.fromEntries(Object.values(EULER_CASES).map((c) => [c.eulerCase, c.k]));
+
+/** "reason; neutral flow", joined once per pair of texts (the engine has two centres). */
+let lastCentre: { reason: string; flow: string; text: string } | undefined;
+function centreFormula(reason: string, flow: string): string {
+  if (lastCentre?.reason !== reason || lastCentre.flow !== flow) lastCentre = { reason, flow, text: `${reason}; ${flow}` };
+  return lastCentre.text;
+}
 
 function lineTrail(t: Trail, name: string, l: LineSizing, fluid: { viscosityMm2S: number; densityKgM3: number }): void {
   t.add(`${name} line inner diameter`, l.innerDiameterMm, "mm",
@@ -194,7 +204,7 @@ export function explain(
   // ---- Buckling
   const b = c.buckling;
   t.add("buckling length", b.lengthMm, "mm", b.lengthRule, { stroke: v(r.strokeMm, "mm") }, "simplified, rod stiffness over the whole length; common practice [CP]");
-  t.add("effective buckling length", b.effectiveLengthMm, "mm", `L_K = K·L, Euler case ${b.eulerCase} (K = ${b.k})`,
+  t.add("effective buckling length", b.effectiveLengthMm, "mm", b.k === EULER_K[b.eulerCase] ? EFFECTIVE_LENGTH_FORMULA[b.eulerCase] : `L_K = K·L, Euler case ${b.eulerCase} (K = ${b.k})`,
     { K: v(b.k, "-"), L: v(b.lengthMm, "mm") }, "Euler cases, Timoshenko & Gere [M]");
   t.add("rod slenderness", b.slenderness, "-", "λ = 4·L_K / d", { L_K: v(b.effectiveLengthMm, "mm"), d: v(c.rodMm, "mm") }, "solid round rod, i = d/4 [D]");
   t.add("buckling compressive force", b.compressiveForceN, "N", "max(extend load, pressing load, p_relief·A1/10 stall thrust)",
@@ -210,7 +220,7 @@ export function explain(
   const dv = d.directionalValve;
   const h = d.heat;
   const vent = d.reliefVent;
-  t.add("directional valve centre", dv.center, "-", `${dv.centerReason}; ${dv.neutralPumpFlow}`,
+  t.add("directional valve centre", dv.center, "-", centreFormula(dv.centerReason, dv.neutralPumpFlow),
     { counterbalance: v(cb ? "yes" : "no", "-") }, "common practice [CP]; Cundiff & Kocher, Fluid Power Circuits and Controls [M]");
   t.add("largest valve path flow", dv.maxPathFlowLpm, "L/min", "max(Q_p, φ·Q_p, Q_p/φ) over P→A/B and A/B→T",
     { Q_p: v(qp, "L/min"), φ: v(phi, "-") }, "continuity [D]");

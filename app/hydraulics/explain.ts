@@ -64,6 +64,13 @@ export function explain(
   const g = A.gravity.value;
   const qp = d.flowsLpm.pump;
   const phi = c.areaRatio;
+  // Inputs that recur across entries are one object each within this design's trail.
+  const vQp = v(qp, "L/min");
+  const vA1 = v(c.capAreaMm2, "mm²");
+  const vA3 = v(c.annulusAreaMm2, "mm²");
+  const vPhi = v(phi, "-");
+  const vEta = v(eta, "-");
+  const vRelief = v(d.pressuresBar.reliefSetting, "bar");
 
   // ---- Loads
   t.add("axis angle", L.angleDeg, "°", "0° horizontal, 90° vertical, inclineDeg when inclined",
@@ -105,13 +112,13 @@ export function explain(
     { bore: v(c.boreMm, "mm") }, "ISO 3320 series [M]");
   t.add("cap area", c.capAreaMm2, "mm²", "A1 = π·D²/4", { D: v(c.boreMm, "mm") }, "geometry [D]");
   t.add("annulus area", c.annulusAreaMm2, "mm²", "A3 = π·(D² − d²)/4", { D: v(c.boreMm, "mm"), d: v(c.rodMm, "mm") }, "geometry [D]");
-  t.add("area ratio", phi, "-", "φ = A1 / A3", { A1: v(c.capAreaMm2, "mm²"), A3: v(c.annulusAreaMm2, "mm²") }, "ISO 3320 cl. 6 definition [M]");
+  t.add("area ratio", phi, "-", "φ = A1 / A3", { A1: vA1, A3: vA3 }, "ISO 3320 cl. 6 definition [M]");
 
   // ---- Flows and pump
   t.add("extend flow", d.flowsLpm.extend, "L/min", "Q = A1·v·0.06 / 1000",
-    { A1: v(c.capAreaMm2, "mm²"), v: v(r.extendSpeedMmS, "mm/s") }, CONTINUITY);
+    { A1: vA1, v: v(r.extendSpeedMmS, "mm/s") }, CONTINUITY);
   t.add("retract flow", d.flowsLpm.retract, "L/min", "Q = A3·v·0.06 / 1000",
-    { A3: v(c.annulusAreaMm2, "mm²"), v: v(r.retractSpeedMmS, "mm/s") }, CONTINUITY);
+    { A3: vA3, v: v(r.retractSpeedMmS, "mm/s") }, CONTINUITY);
   t.add("drive speed", d.pump.speedRpm, "rpm", "4-pole motor: n_s = 120·f/p less slip",
     { f: v(r.supplyHz, "Hz"), p: v(A.motorPoles.value, "poles"), n_s: v((120 * r.supplyHz) / A.motorPoles.value, "rpm") },
     "synchronous speed, electrical-machines textbooks [D]; 1450/1750 rpm nominal common practice [CP]");
@@ -123,11 +130,11 @@ export function explain(
   t.add("pump delivery", qp, "L/min", "Q_p = V·n·η_v / 1000",
     { V: v(d.pump.displacementCcRev, "cm³/rev"), n: v(d.pump.speedRpm, "rpm"), η_v: v(d.pump.volumetricEfficiency, "-") }, "pump flow relation (Esposito) [M]");
   t.add("actual extend speed", d.speedsMmS.extendActual, "mm/s", "v = Q_p / A1",
-    { Q_p: v(qp, "L/min"), A1: v(c.capAreaMm2, "mm²") }, CONTINUITY);
+    { Q_p: vQp, A1: vA1 }, CONTINUITY);
   t.add("actual retract speed", d.speedsMmS.retractActual, "mm/s", "v = Q_p / A3",
-    { Q_p: v(qp, "L/min"), A3: v(c.annulusAreaMm2, "mm²") }, CONTINUITY);
+    { Q_p: vQp, A3: vA3 }, CONTINUITY);
   t.add("largest return flow", d.flowsLpm.returnMax, "L/min", "Q_return = φ·Q_p (retracting empties the cap end)",
-    { φ: v(phi, "-"), Q_p: v(qp, "L/min") }, "continuity [D] (sources §10)");
+    { φ: vPhi, Q_p: vQp }, "continuity [D] (sources §10)");
 
   // ---- Lines
   const fluid = ctx.fluid;
@@ -138,17 +145,18 @@ export function explain(
   lineTrail(t, "suction", d.lines.suction, fluid);
 
   const dcv = A.dcvPathDropBar.value;
+  const vDcv = v(dcv, "bar");
   const filter = A.returnFilterDropBar.value;
   t.add("extend supply losses", ev.extendSupplyLossBar, "bar", "Δp = pressure line + valve P→A + cap line (+ CBV check if cap side)",
-    { dcv_path: v(dcv, "bar"), check: v(ctx.cbvSide === "cap" ? A.cbvCheckDropBar.value : 0, "bar"), Q: v(qp, "L/min") },
+    { dcv_path: vDcv, check: v(ctx.cbvSide === "cap" ? A.cbvCheckDropBar.value : 0, "bar"), Q: vQp },
     `${DW}; valve allowances common practice [CP]`);
   t.add("extend back-pressure", ev.extendBackBar, "bar", "Δp = rod line + valve B→T + return line + filter, at Q_p/φ",
-    { dcv_path: v(dcv, "bar"), filter: v(filter, "bar"), Q: v(qp / phi, "L/min") }, `${DW}; valve and filter allowances common practice [CP]`);
+    { dcv_path: vDcv, filter: v(filter, "bar"), Q: v(qp / phi, "L/min") }, `${DW}; valve and filter allowances common practice [CP]`);
   t.add("retract supply losses", ev.retractSupplyLossBar, "bar", "Δp = pressure line + valve P→B + rod line (+ CBV check if rod side)",
-    { dcv_path: v(dcv, "bar"), check: v(ctx.cbvSide === "rod" ? A.cbvCheckDropBar.value : 0, "bar"), Q: v(qp, "L/min") },
+    { dcv_path: vDcv, check: v(ctx.cbvSide === "rod" ? A.cbvCheckDropBar.value : 0, "bar"), Q: vQp },
     `${DW}; valve allowances common practice [CP]`);
   t.add("retract back-pressure", ev.retractBackBar, "bar", "Δp = cap line + valve A→T + return line + filter, at φ·Q_p",
-    { dcv_path: v(dcv, "bar"), filter: v(filter, "bar"), Q: v(qp * phi, "L/min") }, `${DW}; valve and filter allowances common practice [CP]`);
+    { dcv_path: vDcv, filter: v(filter, "bar"), Q: v(qp * phi, "L/min") }, `${DW}; valve and filter allowances common practice [CP]`);
 
   // ---- Counterbalance
   const cb = d.counterbalance;
@@ -164,7 +172,7 @@ export function explain(
       { inertia_ratio: v(ctx.inertiaRatio, "-"), processForce: v(r.processForceN, "N") }, "ratio classes common practice [CP]; class thresholds our rule");
     t.add("pilot opening pressure", cb.pilotOpeningBar, "bar",
       cb.side === "rod" ? "p_pilot = (p_set − p_L) / (R + φ) — full balance, vented spring chamber" : "p_pilot = (p_set − p_L) / (R + 1/φ) — full balance, vented spring chamber",
-      { p_set: v(cb.settingBar, "bar"), p_L: v(cb.loadPressureBar, "bar"), R: v(cb.pilotRatio, "-"), φ: v(phi, "-") },
+      { p_set: v(cb.settingBar, "bar"), p_L: v(cb.loadPressureBar, "bar"), R: v(cb.pilotRatio, "-"), φ: vPhi },
       "poppet force balance (sources §6) [D]; ignores back-pressure at port 2");
     t.add("counterbalance heat while lowering", cb.loweringHeatKw, "kW", "P = Δp_CBV·Q / 600, Δp_CBV = p_set − R·p_pilot − p_back",
       { Δp_CBV: v(ev.cbv!.loweringDropBar, "bar"), Q: v(cb.flowLpm, "L/min") }, "hydraulic power P = p·Q/600 [D]");
@@ -175,17 +183,17 @@ export function explain(
   const capCbv = cb?.side === "cap";
   t.add("extend pressure at the cylinder", ev.extendInletBar, "bar",
     rodCbv ? "p1 = max((10·F_h + p_back·A3)/A1, (10·F_h + p_set·A3)/(A1 + R·A3)), F_h = F·η or F/η" : "p1 = (10·F/η + p_back·A3) / A1",
-    { F: v(L.extendMovingN, "N"), η: v(eta, "-"), A1: v(c.capAreaMm2, "mm²"), A3: v(c.annulusAreaMm2, "mm²"), p_back: v(ev.extendBackBar, "bar") },
+    { F: v(L.extendMovingN, "N"), η: vEta, A1: vA1, A3: vA3, p_back: v(ev.extendBackBar, "bar") },
     rodCbv ? "piston force balance with the CBV balance p2 = p_set − R·p1 [D]" : TEXTBOOK_CYL);
   t.add("extend pump pressure while moving", ev.extendMovingBar, "bar", "p = p1 + supply losses",
     { p1: v(ev.extendInletBar, "bar"), losses: v(ev.extendSupplyLossBar, "bar") }, "[D]");
   t.add("extend pump pressure while pressing", ev.extendPressBar, "bar", "p = 10·F_press/(η·A1) at standstill (no flow losses)",
-    { F_press: v(L.extendPressN, "N"), η: v(eta, "-"), A1: v(c.capAreaMm2, "mm²") }, TEXTBOOK_CYL);
+    { F_press: v(L.extendPressN, "N"), η: vEta, A1: vA1 }, TEXTBOOK_CYL);
   t.add("extend pump pressure", d.pressuresBar.extend, "bar", "larger of moving and pressing",
     { moving: v(ev.extendMovingBar, "bar"), pressing: v(ev.extendPressBar, "bar") }, "[D]");
   t.add("retract pressure at the cylinder", ev.retractInletBar, "bar",
     capCbv ? "p3 = max((10·F_h + p_back·A1)/A3, (10·F_h + p_set·A1)/(A3 + R·A1)), F_h = F·η or F/η" : "p3 = (10·F/η + p_back·A1) / A3",
-    { F: v(L.retractMovingN, "N"), η: v(eta, "-"), A1: v(c.capAreaMm2, "mm²"), A3: v(c.annulusAreaMm2, "mm²"), p_back: v(ev.retractBackBar, "bar") },
+    { F: v(L.retractMovingN, "N"), η: vEta, A1: vA1, A3: vA3, p_back: v(ev.retractBackBar, "bar") },
     capCbv ? "piston force balance with the CBV balance p1 = p_set − R·p3 [D]" : TEXTBOOK_CYL);
   t.add("retract pump pressure", d.pressuresBar.retract, "bar", "p = p3 + supply losses",
     { p3: v(ev.retractInletBar, "bar"), losses: v(ev.retractSupplyLossBar, "bar") }, "[D]");
@@ -193,13 +201,13 @@ export function explain(
     { p_extend: v(d.pressuresBar.extend, "bar"), p_retract: v(d.pressuresBar.retract, "bar") }, "about 10 % above working pressure, common practice [CP]");
   t.add("rod-side peak pressure", d.pressuresBar.rodSidePeak, "bar",
     rodCbv ? "max(retract inlet, CBV setting — the valve caps the annulus)" : "max(retract inlet, extend back-pressure)",
-    { rating: v(c.ratedPressureBar, "bar"), φ: v(phi, "-") }, "intensification p2 = φ·p1 + F/A3 (sources §6) [D]");
+    { rating: v(c.ratedPressureBar, "bar"), φ: vPhi }, "intensification p2 = φ·p1 + F/A3 (sources §6) [D]");
   t.add("rod-side pressure if the B line were blocked", phi * d.pressuresBar.reliefSetting, "bar", "p2 = φ·p_relief (fault case, not normal work)",
-    { φ: v(phi, "-"), p_relief: v(d.pressuresBar.reliefSetting, "bar") }, "intensification (sources §6) [D]");
+    { φ: vPhi, p_relief: vRelief }, "intensification (sources §6) [D]");
   t.add("extend force at working pressure", c.extendForceN, "N", "F = η·p·A1 / 10",
-    { η: v(eta, "-"), p: v(c.workingPressureBar, "bar"), A1: v(c.capAreaMm2, "mm²") }, TEXTBOOK_CYL);
+    { η: vEta, p: v(c.workingPressureBar, "bar"), A1: vA1 }, TEXTBOOK_CYL);
   t.add("retract force at working pressure", c.retractForceN, "N", "F = η·p·A3 / 10",
-    { η: v(eta, "-"), p: v(c.workingPressureBar, "bar"), A3: v(c.annulusAreaMm2, "mm²") }, TEXTBOOK_CYL);
+    { η: vEta, p: v(c.workingPressureBar, "bar"), A3: vA3 }, TEXTBOOK_CYL);
 
   // ---- Buckling
   const b = c.buckling;
@@ -208,7 +216,7 @@ export function explain(
     { K: v(b.k, "-"), L: v(b.lengthMm, "mm") }, "Euler cases, Timoshenko & Gere [M]");
   t.add("rod slenderness", b.slenderness, "-", "λ = 4·L_K / d", { L_K: v(b.effectiveLengthMm, "mm"), d: v(c.rodMm, "mm") }, "solid round rod, i = d/4 [D]");
   t.add("buckling compressive force", b.compressiveForceN, "N", "max(extend load, pressing load, p_relief·A1/10 stall thrust)",
-    { p_relief: v(d.pressuresBar.reliefSetting, "bar"), A1: v(c.capAreaMm2, "mm²") }, "common practice [CP]; ISO 4413 buckling in any position [M]");
+    { p_relief: vRelief, A1: vA1 }, "common practice [CP]; ISO 4413 buckling in any position [M]");
   t.add("rod critical load", b.criticalLoadN, "N",
     b.regime === "Euler" ? "F_K = π²·E·I / L_K², I = π·d⁴/64 (λ ≥ λ₀)" : "F_K = (335 − 0.62·λ)·π·d²/4, Tetmajer (λ < λ₀)",
     { E: v(A.elasticModulus.value, "N/mm²"), d: v(c.rodMm, "mm"), L_K: v(b.effectiveLengthMm, "mm"), λ: v(b.slenderness, "-"), λ0: v(b.limitSlenderness, "-") },
@@ -223,13 +231,13 @@ export function explain(
   t.add("directional valve centre", dv.center, "-", centreFormula(dv.centerReason, dv.neutralPumpFlow),
     { counterbalance: v(cb ? "yes" : "no", "-") }, "common practice [CP]; Cundiff & Kocher, Fluid Power Circuits and Controls [M]");
   t.add("largest valve path flow", dv.maxPathFlowLpm, "L/min", "max(Q_p, φ·Q_p, Q_p/φ) over P→A/B and A/B→T",
-    { Q_p: v(qp, "L/min"), φ: v(phi, "-") }, "continuity [D]");
+    { Q_p: vQp, φ: vPhi }, "continuity [D]");
   t.add("ISO 4401 size", dv.iso4401Size, "-", "smallest size with path flow ≤ 80 % of its typical maximum",
     { Q: v(dv.maxPathFlowLpm, "L/min"), typical_max: v(dv.typicalMaxFlowLpm, "L/min") }, "ISO 4401 interface sizes [S]; flow ratings and 80 % rule common practice [CP]");
 
   if (vent) {
     t.add("relief vent pressure", vent.ventPressureBar, "bar", VENT_FORMULA,
-      { center: v(dv.center, "-"), p_relief: v(d.pressuresBar.reliefSetting, "bar"), coil: v(vent.coilVoltage, "-") }, VENT_SOURCE);
+      { center: v(dv.center, "-"), p_relief: vRelief, coil: v(vent.coilVoltage, "-") }, VENT_SOURCE);
   }
 
   // ---- Motor
@@ -237,13 +245,13 @@ export function explain(
   const onRelief = extra.pumpOnRelief;
   t.add("motor sizing pressure", m.sizingPressureBar, "bar",
     onRelief ? MOTOR_AT_RELIEF : vent ? MOTOR_AT_WORKING_VENTED : MOTOR_AT_WORKING,
-    { p_working: v(c.workingPressureBar, "bar"), p_relief: v(d.pressuresBar.reliefSetting, "bar"), p_neutral: v(h.neutralPressureBar, "bar") }, "[D]");
+    { p_working: v(c.workingPressureBar, "bar"), p_relief: vRelief, p_neutral: v(h.neutralPressureBar, "bar") }, "[D]");
   t.add("motor power needed", m.requiredKw, "kW", "P = p·Q_p / (600·η_overall)",
-    { p: v(m.sizingPressureBar, "bar"), Q_p: v(qp, "L/min"), η_overall: v(d.pump.overallEfficiency, "-") }, "hydraulic power (Esposito) [M]; P = p·Q/600 [D]");
+    { p: v(m.sizingPressureBar, "bar"), Q_p: vQp, η_overall: v(d.pump.overallEfficiency, "-") }, "hydraulic power (Esposito) [M]; P = p·Q/600 [D]");
   t.add("motor rating", m.ratedKw, "kW", "next rated output", { P_needed: v(m.requiredKw, "kW") }, "IEC 60072-1 output series [M]");
 
   // ---- Reservoir, filter, heat
-  t.add("reservoir volume", d.reservoir.volumeL, "L", "V = 4·Q_p, rounded up to 5 L", { Q_p: v(qp, "L/min") },
+  t.add("reservoir volume", d.reservoir.volumeL, "L", "V = 4·Q_p, rounded up to 5 L", { Q_p: vQp },
     "3–5 × pump flow per minute, common practice [CP] (S14 [S])");
   t.add("return filter rating", d.returnFilter.ratedFlowLpm, "L/min", "rated for the largest return flow φ·Q_p",
     { Q_return: v(d.flowsLpm.returnMax, "L/min") }, "common practice [CP] (sources §10)");
@@ -256,18 +264,18 @@ export function explain(
   t.add("share of time retracting", h.retractShare, "-", "cycles/h · stroke / v_actual / 3600",
     { cycles: v(r.cyclesPerHour, "1/h"), t_stroke: v(extra.duty.retractS, "s") }, "[D]");
   t.add("heat while extending", h.extendLossKw, "kW", "P_shaft − F_steady·v (pump losses, lines, valves, CBV)",
-    { p: v(ev.extendSteadyBar, "bar"), Q_p: v(qp, "L/min"), F_steady: v(L.extendSteadyN, "N"), v: v(d.speedsMmS.extendActual, "mm/s") }, "energy balance [D]");
+    { p: v(ev.extendSteadyBar, "bar"), Q_p: vQp, F_steady: v(L.extendSteadyN, "N"), v: v(d.speedsMmS.extendActual, "mm/s") }, "energy balance [D]");
   t.add("heat while retracting", h.retractLossKw, "kW", "P_shaft − F_steady·v (pump losses, lines, valves, CBV)",
-    { p: v(ev.retractSteadyBar, "bar"), Q_p: v(qp, "L/min"), F_steady: v(L.retractSteadyN, "N"), v: v(d.speedsMmS.retractActual, "mm/s") }, "energy balance [D]");
+    { p: v(ev.retractSteadyBar, "bar"), Q_p: vQp, F_steady: v(L.retractSteadyN, "N"), v: v(d.speedsMmS.retractActual, "mm/s") }, "energy balance [D]");
   t.add("heat in neutral", h.neutralLossKw, "kW",
     vent ? NEUTRAL_VENTED : onRelief ? NEUTRAL_ON_RELIEF : NEUTRAL_UNLOADED,
-    { p: v(h.neutralPressureBar, "bar"), Q_p: v(qp, "L/min"), η: v(d.pump.overallEfficiency, "-") },
+    { p: v(h.neutralPressureBar, "bar"), Q_p: vQp, η: v(d.pump.overallEfficiency, "-") },
     vent ? NEUTRAL_VENTED_SOURCE : "P = p·Q/600 [D]");
   t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over extend, retract and neutral",
     { extend: v(h.extendLossKw, "kW"), retract: v(h.retractLossKw, "kW"), neutral: v(h.neutralLossKw, "kW"), neutral_share: v(h.neutralShare, "-") }, "duty-cycle average [D]");
   t.add("cooler duty", h.coolerKw, "kW", "max(0, average heat − tank heat shed)",
     { average: v(h.averageLossKw, "kW"), shed: v(h.tankDissipationKw, "kW") }, "[D]");
   t.add("gauge range", extra.gaugeRangeBar, "bar", "next range ≥ 1.5 × relief setting",
-    { p_relief: v(d.pressuresBar.reliefSetting, "bar") }, "common practice [CP]; ranges EN 837-1 [M]");
+    { p_relief: vRelief }, "common practice [CP]; ranges EN 837-1 [M]");
   return t.entries;
 }

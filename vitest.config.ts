@@ -7,6 +7,7 @@ export default defineConfig({
     include: ["tests/**/*.test.ts", "tests/**/*.test.tsx", "app/**/*.test.ts"],
     globalSetup: ["tests/setup/global-setup.ts"],
     setupFiles: ["tests/setup/each-file.ts"],
+    reporters: ["default", "./tests/setup/summary-reporter.ts"],
     testTimeout: 20_000,
     hookTimeout: 60_000,
   },

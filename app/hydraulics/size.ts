@@ -254,7 +254,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
 
 const f1 = (x: number): string => num(x);
 const VENTED_NOTE =
-  `P is blocked in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever solenoid a or b is on, or the axis cannot build pressure. De-energised (neutral, or a control fault) the pump circulates at about ${A.ventPressureBar.value} bar and the counterbalance valve still holds the load.`;
+  `P is blocked in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever solenoid a or b is on, or the axis cannot build pressure. De-energised (neutral, or a control fault) the pump circulates at about ${A.ventPressureBar.value} bar.`;
+const VENTED_NOTE_CBV = `${VENTED_NOTE} The counterbalance valve still holds the load then.`;
 const LINE_NAMES = ["pressure", "return", "suction", "capWork", "rodWork"] as const;
 
 function addWarnings(
@@ -310,7 +311,7 @@ function addWarnings(
       `With a ${d.directionalValve.center} centre P is blocked, so the pump runs over the ${d.pressuresBar.reliefSetting} bar relief whenever the valve is in neutral (${Math.round(d.heat.neutralShare * 100)} % of the time). A solenoid-vented relief or unloading valve would save that heat and power.`);
   }
   if (d.reliefVent) {
-    w.add("RELIEF_VENTED_IN_NEUTRAL", VENTED_NOTE);
+    w.add("RELIEF_VENTED_IN_NEUTRAL", d.counterbalance ? VENTED_NOTE_CBV : VENTED_NOTE);
   }
   if (d.counterbalance && d.counterbalance.settingBar < A.cbvLowSettingBar.value) {
     w.add("CBV_SETTING_LOW",

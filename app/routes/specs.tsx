@@ -28,8 +28,6 @@ export async function loader({ request }: Route.LoaderArgs) {
       revision: s.currentRevision,
       bidDeadline: s.bidDeadline?.toISOString() ?? null,
       updatedAt: s.updatedAt.toISOString(),
-      // Bids arrive with the bidding feature; until then every spec has none.
-      bidCount: 0,
     })),
   };
 }
@@ -89,7 +87,6 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
                   <th scope="col" className="py-2">Spec</th>
                   <th scope="col">Status</th>
                   <th scope="col">Bid deadline</th>
-                  <th scope="col">Bids</th>
                   <th scope="col">Last changed</th>
                 </tr>
               </thead>
@@ -104,7 +101,6 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
                     </td>
                     <td><Badge tone={SPEC_STATUS_TONES[s.status]}>{SPEC_STATUS_LABELS[s.status]}</Badge></td>
                     <td>{s.bidDeadline ? new Date(s.bidDeadline).toLocaleDateString("en-GB") : "—"}</td>
-                    <td>{s.status === "draft" ? "—" : s.bidCount}</td>
                     <td>{new Date(s.updatedAt).toLocaleDateString("en-GB")}</td>
                   </tr>
                 ))}

@@ -1,4 +1,4 @@
-import { Link, type LinkProps } from "react-router";
+import { Form, Link, type LinkProps } from "react-router";
 
 // The small set of shared building blocks that give every page the same look.
 
@@ -91,5 +91,28 @@ export function Pager({ page, pageCount, search }: { page: number; pageCount: nu
       </span>
       {page < pageCount ? <Link className="text-flow-700 hover:underline" to={href(page + 1)}>Next →</Link> : <span />}
     </nav>
+  );
+}
+
+/** The search box of a table page: a GET form that keeps its value; extra filters go inside. */
+export function SearchBar({ label, placeholder, value, children }: { label: string; placeholder: string; value: string; children?: React.ReactNode }) {
+  return (
+    <Form method="get" role="search" className="mb-4 flex flex-wrap gap-2">
+      <label htmlFor="q" className="sr-only">
+        {label}
+      </label>
+      <input
+        id="q"
+        name="q"
+        type="search"
+        defaultValue={value}
+        placeholder={placeholder}
+        className="w-full max-w-sm rounded-md px-3 py-2 text-sm ring-1 ring-ink-200"
+      />
+      {children}
+      <Button type="submit" tone="secondary">
+        Search
+      </Button>
+    </Form>
   );
 }

@@ -4,7 +4,7 @@ import type { Route } from "./+types/admin.organisations";
 import { requireRole } from "~/auth/permissions.server";
 import { KIND_LABELS, ORGANISATION_KINDS } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Button, Card, Notice, PageHeader, Pager } from "~/components/ui";
+import { Button, Card, Notice, PageHeader, Pager, SearchBar } from "~/components/ui";
 import { assignManagerSchema, listQuerySchema } from "~/schemas/admin";
 import { assignAccountManager, listAccountManagers, listOrganisations } from "~/services/admin.server";
 import { FieldErrors } from "~/services/errors.server";
@@ -59,18 +59,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
         </div>
       ) : null}
       <Card>
-        <Form method="get" role="search" className="mb-4 flex flex-wrap gap-2">
-          <label htmlFor="q" className="sr-only">
-            Search organisations
-          </label>
-          <input
-            id="q"
-            name="q"
-            type="search"
-            defaultValue={searchParams.get("q") ?? ""}
-            placeholder="Organisation name"
-            className="w-full max-w-xs rounded-md px-3 py-2 text-sm ring-1 ring-ink-200"
-          />
+        <SearchBar label="Search organisations" placeholder="Organisation name" value={searchParams.get("q") ?? ""}>
           <label htmlFor="kind" className="sr-only">
             Kind
           </label>
@@ -82,10 +71,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
               </option>
             ))}
           </select>
-          <Button type="submit" tone="secondary">
-            Search
-          </Button>
-        </Form>
+        </SearchBar>
         <table className="w-full text-left text-sm">
           <thead className="text-ink-600">
             <tr>

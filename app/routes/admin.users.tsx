@@ -4,7 +4,7 @@ import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Badge, Button, Card, Notice, PageHeader, Pager } from "~/components/ui";
+import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar } from "~/components/ui";
 import { listQuerySchema, userActionSchema } from "~/schemas/admin";
 import { changeRole, listUsers, setActive } from "~/services/admin.server";
 import { FieldErrors } from "~/services/errors.server";
@@ -67,22 +67,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
         </div>
       ) : null}
       <Card>
-        <Form method="get" role="search" className="mb-4 flex gap-2">
-          <label htmlFor="q" className="sr-only">
-            Search users
-          </label>
-          <input
-            id="q"
-            name="q"
-            type="search"
-            defaultValue={searchParams.get("q") ?? ""}
-            placeholder="Name, e-mail or organisation"
-            className="w-full max-w-sm rounded-md px-3 py-2 text-sm ring-1 ring-ink-200"
-          />
-          <Button type="submit" tone="secondary">
-            Search
-          </Button>
-        </Form>
+        <SearchBar label="Search users" placeholder="Name, e-mail or organisation" value={searchParams.get("q") ?? ""} />
         <div className="overflow-x-auto">
           <table className="w-full text-left text-sm">
             <thead className="text-ink-600">

@@ -2,8 +2,7 @@ import { useMemo, useState } from "react";
 import { Form } from "react-router";
 import type { Route } from "./+types/quick-sizing";
 import { getOptionalUser } from "~/auth/permissions.server";
-import { CircuitDiagram } from "~/components/circuit-diagram";
-import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
+import { DesignReport } from "~/components/design-report";
 import { RequirementInput } from "~/components/requirement-input";
 import { Card, Notice, PageHeader } from "~/components/ui";
 import { useLiveSizing } from "~/components/use-live-sizing";
@@ -121,26 +120,7 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
             </Notice>
           ) : null}
           {design ? (
-            <>
-              <Card className={live.status === "sizing" ? "opacity-70 transition-opacity" : "transition-opacity"}>
-                <div className="mb-2 flex items-center justify-between">
-                  <h2 className="font-semibold">Preliminary circuit</h2>
-                  <span className="text-xs text-ink-400">{live.status === "sizing" ? "Updating…" : `Engine ${design.engineVersion}`}</span>
-                </div>
-                <CircuitDiagram design={design} units={system} />
-              </Card>
-              <KeySizes design={design} units={system} />
-              <WarningsList warnings={design.warnings} />
-              <CautionsPanel />
-              <Card>
-                <h2 className="mb-3 font-semibold">Components</h2>
-                <ComponentTable design={design} />
-              </Card>
-              <Card>
-                <h2 className="mb-3 font-semibold">How every number was reached</h2>
-                <CalculationTrail trail={design.trail} />
-              </Card>
-            </>
+            <DesignReport design={design} units={system} updating={live.status === "sizing"} />
           ) : (
             <Card>
               <p className="text-ink-600">Answer the questions on the left and the circuit appears here.</p>

@@ -5,7 +5,8 @@ import { Form, Link, data, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/spec-step";
 import { requireRole } from "~/auth/permissions.server";
 import { CircuitDiagram } from "~/components/circuit-diagram";
-import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
+import { CautionsPanel, KeySizes } from "~/components/design-panels";
+import { DesignReport } from "~/components/design-report";
 import { RequirementInput } from "~/components/requirement-input";
 import { SpecProgress } from "~/components/spec-progress";
 import { Button, Card, Notice, PageHeader } from "~/components/ui";
@@ -263,24 +264,7 @@ function Review({ loaderData, publishError }: { loaderData: LoaderData; publishE
           .
         </Notice>
       ) : null}
-      {design ? (
-        <>
-          <Card>
-            <h2 className="mb-2 font-semibold">Preliminary circuit</h2>
-            <CircuitDiagram design={design} units={spec.unitSystem} />
-          </Card>
-          <KeySizes design={design} units={spec.unitSystem} />
-          <WarningsList warnings={design.warnings} />
-          <Card>
-            <h2 className="mb-3 font-semibold">Components shops will price</h2>
-            <ComponentTable design={design} />
-          </Card>
-          <Card>
-            <h2 className="mb-3 font-semibold">How every number was reached</h2>
-            <CalculationTrail trail={design.trail} />
-          </Card>
-        </>
-      ) : null}
+      {design ? <DesignReport design={design} units={spec.unitSystem} componentsTitle="Components shops will price" cautions={false} /> : null}
       <Card>
         <h2 className="mb-3 font-semibold">Your answers</h2>
         <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[16rem_1fr_auto]">

@@ -1,9 +1,8 @@
 import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/spec";
 import { requireUser } from "~/auth/permissions.server";
-import { CircuitDiagram } from "~/components/circuit-diagram";
-import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
-import { Badge, Button, Card, Notice, PageHeader } from "~/components/ui";
+import { DesignReport } from "~/components/design-report";
+import { Badge, Button, Notice, PageHeader } from "~/components/ui";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, type SpecStatus } from "~/content/spec-status";
 import type { Design } from "~/hydraulics";
 import { specForReader } from "~/services/spec-access.server";
@@ -100,21 +99,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
       ) : null}
       {d.design ? (
         <div className="space-y-6">
-          <Card>
-            <h2 className="mb-2 font-semibold">Preliminary circuit</h2>
-            <CircuitDiagram design={d.design} units={d.unitSystem} />
-          </Card>
-          <KeySizes design={d.design} units={d.unitSystem} />
-          <WarningsList warnings={d.design.warnings} />
-          <CautionsPanel />
-          <Card>
-            <h2 className="mb-3 font-semibold">Bill of materials</h2>
-            <ComponentTable design={d.design} />
-          </Card>
-          <Card>
-            <h2 className="mb-3 font-semibold">How every number was reached</h2>
-            <CalculationTrail trail={d.design.trail} />
-          </Card>
+          <DesignReport design={d.design} units={d.unitSystem} componentsTitle="Bill of materials" />
         </div>
       ) : (
         <Notice>This draft has not been published yet, so it has no frozen design.</Notice>

@@ -1,0 +1,48 @@
+import type { Design } from "~/hydraulics";
+import type { UnitSystem } from "~/units";
+import { CircuitDiagram } from "./circuit-diagram";
+import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "./design-panels";
+import { Card } from "./ui";
+
+/**
+ * A design as every page shows it: the circuit, its key sizes, warnings, the cautions, the
+ * components and the calculation trail.
+ */
+export function DesignReport({
+  design,
+  units,
+  updating = false,
+  componentsTitle = "Components",
+  cautions = true,
+}: {
+  design: Design;
+  units: UnitSystem;
+  /** A newer design is on its way (live sizing): the circuit is dimmed. */
+  updating?: boolean;
+  componentsTitle?: string;
+  /** Pages that ask the reader to confirm the cautions show them beside the confirmation instead. */
+  cautions?: boolean;
+}) {
+  return (
+    <>
+      <Card className={`transition-opacity ${updating ? "opacity-70" : ""}`}>
+        <div className="mb-2 flex items-center justify-between">
+          <h2 className="font-semibold">Preliminary circuit</h2>
+          <span className="text-xs text-ink-400">{updating ? "Updating…" : `Engine ${design.engineVersion}`}</span>
+        </div>
+        <CircuitDiagram design={design} units={units} />
+      </Card>
+      <KeySizes design={design} units={units} />
+      <WarningsList warnings={design.warnings} />
+      {cautions ? <CautionsPanel /> : null}
+      <Card>
+        <h2 className="mb-3 font-semibold">{componentsTitle}</h2>
+        <ComponentTable design={design} />
+      </Card>
+      <Card>
+        <h2 className="mb-3 font-semibold">How every number was reached</h2>
+        <CalculationTrail trail={design.trail} />
+      </Card>
+    </>
+  );
+}

@@ -30,6 +30,12 @@ export class Spec extends Model<InferAttributes<Spec>, InferCreationAttributes<S
   declare retainerPercent: string | null;
   declare deliveryRegion: string | null;
   declare publishedAt: Date | null;
+  /** Every bid on the spec is priced in this currency (ISO 4217). */
+  declare currency: CreationOptional<string>;
+  declare unitsWanted: number | null;
+  /** Copied from the current revision's design, for filtering open specs. */
+  declare reliefSettingBar: number | null;
+  declare pumpFlowLpm: number | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -50,6 +56,10 @@ Spec.init(
     retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
     deliveryRegion: { type: DataTypes.STRING(80), allowNull: true },
     publishedAt: { type: DataTypes.DATE, allowNull: true },
+    currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: "EUR" },
+    unitsWanted: { type: DataTypes.INTEGER, allowNull: true },
+    reliefSettingBar: { type: DataTypes.REAL, allowNull: true },
+    pumpFlowLpm: { type: DataTypes.REAL, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

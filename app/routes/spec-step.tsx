@@ -20,6 +20,7 @@ import { allAnswers, designOf, isEditable, publish, saveStep } from "~/services/
 import { ATTACHMENT_LIMITS, listAttachments } from "~/services/attachments.server";
 import { AttachmentUploader, formatBytes } from "~/components/attachment-uploader";
 import { UNIT_SYSTEM_LABELS, unitLabel, type Quantity, type UnitSystem } from "~/units";
+import { CURRENCIES } from "~/content/currencies";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.stepTitle ?? "Spec"} · ${d?.spec.title || "New spec"} · Tenderflow` }];
 
@@ -238,6 +239,7 @@ function QuotationFields({ answers, field }: { answers: Record<string, string>; 
       <TextInput name="bidDeadline" label="Bid deadline" help="The last day shops can bid. Example: three weeks from today." type="date" defaultValue={answers.bidDeadline} errors={field("bidDeadline")?.errors} />
       <TextInput name="dateNeeded" label="Date needed" help="When the units must be delivered." type="date" defaultValue={answers.dateNeeded} errors={field("dateNeeded")?.errors} />
       <TextInput name="deliveryRegion" label="Delivery region" help="Where the units go, e.g. “UK — West Midlands”." defaultValue={answers.deliveryRegion} errors={field("deliveryRegion")?.errors} />
+      <Choice name="currency" label="Currency of the bids" help="Every shop prices its bid in this currency, so bids compare directly." options={CURRENCIES} defaultValue={answers.currency ?? "EUR"} errors={field("currency")?.errors} />
       <TextInput name="retainerPercent" label="Retainer for the chosen shop (%)" help="The share of the awarded price you pay up front by card when you award. 20 % is usual." inputMode="decimal" defaultValue={answers.retainerPercent ?? "20"} errors={field("retainerPercent")?.errors} />
       <TextArea name="notes" label="Notes for the shops" help="Anything else: paint, standards your plant follows, access for installation. Optional." defaultValue={answers.notes} errors={field("notes")?.errors} />
     </>
@@ -328,6 +330,7 @@ const LABELS: Record<string, string> = {
   bidDeadline: "Bid deadline",
   dateNeeded: "Date needed",
   deliveryRegion: "Delivery region",
+  currency: "Currency",
   retainerPercent: "Retainer (%)",
   notes: "Notes",
 };

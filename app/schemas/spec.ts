@@ -3,6 +3,7 @@ import { parseRequirements, RequirementsError } from "~/hydraulics";
 import { toRequirementsInput, type FormValues } from "~/content/requirement-fields";
 import { ENGINE_KEYS_BY_STEP, type FormStepId } from "~/content/spec-steps";
 import type { UnitSystem } from "~/units";
+import { CURRENCIES } from "~/content/currencies";
 
 // The spec form's schemas, one per step, shared by the server action and the Conform form.
 // The engine's own requirement schema judges the axis fields: each step runs it over every
@@ -33,6 +34,8 @@ const OWN_FIELDS = {
     dateNeeded: isoDate("Enter the date you need the units by."),
     bidDeadline: isoDate("Enter the last day shops can bid."),
     deliveryRegion: text(80, "Say where the units are delivered, e.g. “UK — West Midlands”."),
+    // Specs started before the currency was asked are quoted in euros.
+    currency: z.preprocess((v) => (v === "" || v === undefined ? "EUR" : v), z.enum(CURRENCIES, { error: "Choose the currency shops quote in." })),
     retainerPercent: z.coerce.number({ error: "Enter the retainer share in percent." }).min(0, "From 0 to 50 %.").max(50, "From 0 to 50 %."),
     notes: optionalText(4000),
   },

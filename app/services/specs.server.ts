@@ -124,6 +124,10 @@ export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
         bidDeadline: deadline,
         retainerPercent: String(quotation.data.retainerPercent),
         deliveryRegion: quotation.data.deliveryRegion,
+        currency: quotation.data.currency,
+        unitsWanted: quotation.data.unitsWanted,
+        reliefSettingBar: design.pressuresBar.reliefSetting,
+        pumpFlowLpm: design.flowsLpm.pump,
       },
       { transaction },
     );

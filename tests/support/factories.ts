@@ -30,3 +30,26 @@ export async function makeOperatorUser(role: Extract<Role, "admin" | "account_ma
     lastSignInAt: null,
   });
 }
+
+export const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+
+/** Answers of a complete spec (a vertical press ram), per step, as a buyer would type them. */
+export const SPEC_ANSWERS = {
+  machine: { title: "Bending press, main ram", purpose: "Presses sheet over a die.", orientation: "vertical", rodDirection: "down", mounting: "pinned-pinned" },
+  motion: { massKg: "800", processForceN: "50000", frictionCoefficient: "0.1", strokeMm: "500", extendSpeedMmS: "100", retractSpeedMmS: "150", accelTimeS: "0.2" },
+  duty: { cyclesPerHour: "60", hoursPerDay: "16", ambientC: "25", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
+  quotation: { unitsWanted: "2", bidDeadline: inDays(21), dateNeeded: inDays(90), deliveryRegion: "UK — West Midlands", currency: "GBP", retainerPercent: "20", notes: "" },
+};
+
+type SpecOverrides = Partial<{ [K in keyof typeof SPEC_ANSWERS]: Partial<(typeof SPEC_ANSWERS)[K]> }>;
+
+/** A spec published through the app's own services (revision 1, open for bids). */
+export async function makePublishedSpec(buyer: User, overrides: SpecOverrides = {}) {
+  const { createDraft, saveStep, publish } = await import("~/services/specs.server");
+  const spec = await createDraft(buyer);
+  for (const step of Object.keys(SPEC_ANSWERS) as (keyof typeof SPEC_ANSWERS)[]) {
+    await saveStep(spec, step, { ...SPEC_ANSWERS[step], ...overrides[step] } as Record<string, string>, true);
+  }
+  await publish(spec, buyer, true);
+  return spec;
+}

@@ -1,0 +1,116 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+} from "sequelize";
+import { sequelize } from "~/db.server";
+import type { MilestoneKey } from "~/content/job-milestones";
+
+const cents = (name: string) => ({
+  type: DataTypes.BIGINT,
+  allowNull: false,
+  get(this: Model) {
+    return Number(this.getDataValue(name));
+  },
+});
+
+/** An awarded bid being built and delivered. */
+export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job>> {
+  declare id: CreationOptional<string>;
+  declare specId: string;
+  declare bidId: string;
+  declare buyerOrganisationId: string;
+  declare shopOrganisationId: string;
+  declare awardedById: string;
+  declare awardedAt: CreationOptional<Date>;
+  declare currency: string;
+  declare totalCents: number;
+  declare retainerPercent: string;
+  declare retainerCents: number;
+  declare retainerPaidAt: Date | null;
+  /** The latest milestone reached, or null before the first. */
+  declare stage: MilestoneKey | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+Job.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    specId: { type: DataTypes.UUID, allowNull: false, unique: true },
+    bidId: { type: DataTypes.UUID, allowNull: false, unique: true },
+    buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
+    shopOrganisationId: { type: DataTypes.UUID, allowNull: false },
+    awardedById: { type: DataTypes.UUID, allowNull: false },
+    awardedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+    currency: { type: DataTypes.STRING(3), allowNull: false },
+    totalCents: cents("totalCents"),
+    retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
+    retainerCents: cents("retainerCents"),
+    retainerPaidAt: { type: DataTypes.DATE, allowNull: true },
+    stage: { type: DataTypes.STRING(30), allowNull: true },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "jobs" },
+);
+
+export class JobMilestone extends Model<InferAttributes<JobMilestone>, InferCreationAttributes<JobMilestone>> {
+  declare id: CreationOptional<string>;
+  declare jobId: string;
+  declare key: MilestoneKey;
+  declare position: number;
+  declare targetDate: string | null;
+  declare reachedAt: Date | null;
+  declare reachedById: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+JobMilestone.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    jobId: { type: DataTypes.UUID, allowNull: false },
+    key: { type: DataTypes.STRING(30), allowNull: false },
+    position: { type: DataTypes.INTEGER, allowNull: false },
+    targetDate: { type: DataTypes.DATEONLY, allowNull: true },
+    reachedAt: { type: DataTypes.DATE, allowNull: true },
+    reachedById: { type: DataTypes.UUID, allowNull: true },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "job_milestones" },
+);
+
+export type JobEventKind = "awarded" | "milestone_reached" | "milestone_undone" | "target_changed" | "progress_note" | "manager_note" | "retainer_paid";
+
+/** One entry of a job's history: who did what, when. */
+export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttributes<JobEvent>> {
+  declare id: CreationOptional<string>;
+  declare jobId: string;
+  declare userId: string;
+  declare kind: JobEventKind;
+  declare milestone: MilestoneKey | null;
+  declare detail: CreationOptional<Record<string, unknown>>;
+  declare body: CreationOptional<string>;
+  /** "operator": an account manager's internal note, not shown to buyer or shop. */
+  declare visibility: CreationOptional<"all" | "operator">;
+  declare createdAt: CreationOptional<Date>;
+}
+
+JobEvent.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    jobId: { type: DataTypes.UUID, allowNull: false },
+    userId: { type: DataTypes.UUID, allowNull: false },
+    kind: { type: DataTypes.STRING(30), allowNull: false },
+    milestone: { type: DataTypes.STRING(30), allowNull: true },
+    detail: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    body: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+    visibility: { type: DataTypes.ENUM("all", "operator"), allowNull: false, defaultValue: "all" },
+    createdAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "job_events", updatedAt: false },
+);

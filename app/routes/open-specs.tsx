@@ -1,60 +1,183 @@
-import { Link } from "react-router";
+import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/open-specs";
 import { requireRole } from "~/auth/permissions.server";
-import { Card, EmptyState, PageHeader } from "~/components/ui";
-import { listOpenSpecs } from "~/services/specs.server";
+import { Badge, Button, Card, EmptyState, Notice, PageHeader, Pager } from "~/components/ui";
+import { BID_STATUS_LABELS } from "~/content/bid-status";
+import { OPEN_SPEC_SORTS, OPEN_SPEC_SORT_LABELS, readOpenSpecsQuery, type OpenSpecParam } from "~/schemas/open-specs";
+import { listOpenSpecsForShop } from "~/services/open-specs.server";
+import { formatQuantity, unitLabel, type UnitSystem } from "~/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Open specs · Tenderflow" }];
 
+const FILTERS: OpenSpecParam[] = ["q", "region", "deadline", "pressureMin", "pressureMax", "flowMin", "flowMax"];
+
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireRole(request, ["shop"]);
-  const specs = await listOpenSpecs();
+  const user = await requireRole(request, ["shop"]);
+  const { query, problems, typed } = readOpenSpecsQuery(new URL(request.url).searchParams);
+  const { specs, total, page, pageCount } = await listOpenSpecsForShop(user, query);
   return {
-    specs: specs.map((s) => ({
-      id: s.id,
-      title: s.title,
-      region: s.deliveryRegion,
-      revision: s.currentRevision,
-      bidDeadline: s.bidDeadline!.toISOString(),
-    })),
+    specs,
+    total,
+    page,
+    pageCount,
+    problems,
+    typed,
+    filtered: FILTERS.some((key) => typed[key]?.trim()),
+    unitSystem: (user.unitSystem ?? "metric") as UnitSystem,
   };
 }
 
-export default function OpenSpecs({ loaderData }: Route.ComponentProps) {
+const inputClass = "mt-1 block w-full rounded-md px-2 py-1.5 ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600";
+
+function FilterField({
+  name,
+  label,
+  typed,
+  problem,
+  type = "text",
+  placeholder,
+  inputMode,
+}: {
+  name: OpenSpecParam;
+  label: string;
+  typed: string | undefined;
+  problem: string | undefined;
+  type?: "text" | "search" | "date";
+  placeholder?: string;
+  inputMode?: "decimal";
+}) {
   return (
-    <>
-      <PageHeader title="Open specs" lead="Specs from machine builders that are open for bids." />
-      {loaderData.specs.length === 0 ? (
+    <label className="block">
+      <span className="block font-semibold">{label}</span>
+      <input
+        name={name}
+        type={type}
+        defaultValue={typed ?? ""}
+        placeholder={placeholder}
+        inputMode={inputMode}
+        aria-invalid={problem ? true : undefined}
+        aria-describedby={problem ? `${name}-problem` : undefined}
+        className={inputClass}
+      />
+      {problem ? (
+        <span id={`${name}-problem`} className="mt-1 block text-xs font-semibold text-alarm-600">
+          {problem}
+        </span>
+      ) : null}
+    </label>
+  );
+}
+
+export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
+  const [searchParams] = useSearchParams();
+  const pressure = unitLabel("pressure", d.unitSystem);
+  const flow = unitLabel("flow", d.unitSystem);
+  const problems = Object.values(d.problems);
+  if (d.total === 0 && !d.filtered && problems.length === 0) {
+    return (
+      <>
+        <PageHeader title="Open specs" lead="Specs from machine builders that are open for bids." />
         <EmptyState title="No specs are open for bids right now">
           <p>
             When a machine builder publishes a spec, it appears here with its preliminary circuit and bill of materials, and
             you can ask questions and bid line by line. You'll also get an e-mail.
           </p>
         </EmptyState>
-      ) : (
-        <Card>
-          <table className="w-full text-left text-sm">
-            <thead className="text-ink-600">
-              <tr>
-                <th scope="col" className="py-2">Spec</th>
-                <th scope="col">Delivered to</th>
-                <th scope="col">Bids until</th>
-              </tr>
-            </thead>
-            <tbody>
-              {loaderData.specs.map((s) => (
-                <tr key={s.id} className="border-t border-ink-100">
-                  <td className="py-2">
-                    <Link to={`/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">{s.title}</Link>
-                  </td>
-                  <td>{s.region ?? "—"}</td>
-                  <td>{new Date(s.bidDeadline).toLocaleDateString("en-GB")}</td>
-                </tr>
+      </>
+    );
+  }
+  return (
+    <>
+      <PageHeader
+        title="Open specs"
+        lead={`${d.total} spec${d.total === 1 ? "" : "s"} from machine builders ${d.filtered ? "match your filters" : "open for bids"}.`}
+      />
+      {problems.length ? (
+        <div className="mb-4">
+          <Notice tone="bad">
+            {problems.length === 1 ? "One part of the search was left out: " : "Some parts of the search were left out: "}
+            {problems.join(" ")}
+          </Notice>
+        </div>
+      ) : null}
+      <Card>
+        <Form method="get" role="search" className="mb-4 grid gap-3 text-sm sm:grid-cols-2 lg:grid-cols-4">
+          <FilterField name="q" type="search" label="Title contains" typed={d.typed.q} problem={d.problems.q} placeholder="e.g. press" />
+          <FilterField name="region" label="Delivered to" typed={d.typed.region} problem={d.problems.region} placeholder="e.g. Midlands" />
+          <FilterField name="deadline" type="date" label="Bids close by" typed={d.typed.deadline} problem={d.problems.deadline} />
+          <label className="block">
+            <span className="block font-semibold">Sort by</span>
+            <select name="sort" defaultValue={d.typed.sort && !d.problems.sort ? d.typed.sort : "deadline"} className={inputClass}>
+              {OPEN_SPEC_SORTS.map((s) => (
+                <option key={s} value={s}>
+                  {OPEN_SPEC_SORT_LABELS[s]}
+                </option>
               ))}
-            </tbody>
-          </table>
-        </Card>
-      )}
+            </select>
+            {d.problems.sort ? <span className="mt-1 block text-xs font-semibold text-alarm-600">{d.problems.sort}</span> : null}
+          </label>
+          <FilterField name="pressureMin" label={`Relief setting from (${pressure})`} typed={d.typed.pressureMin} problem={d.problems.pressureMin} inputMode="decimal" />
+          <FilterField name="pressureMax" label={`Relief setting up to (${pressure})`} typed={d.typed.pressureMax} problem={d.problems.pressureMax} inputMode="decimal" />
+          <FilterField name="flowMin" label={`Pump flow from (${flow})`} typed={d.typed.flowMin} problem={d.problems.flowMin} inputMode="decimal" />
+          <FilterField name="flowMax" label={`Pump flow up to (${flow})`} typed={d.typed.flowMax} problem={d.problems.flowMax} inputMode="decimal" />
+          <div className="flex items-end gap-3 sm:col-span-2 lg:col-span-4">
+            <Button type="submit" tone="secondary">Apply</Button>
+            {d.filtered || searchParams.size > 0 ? (
+              <Link to="/open-specs" className="text-flow-700 hover:underline">Clear the filters</Link>
+            ) : null}
+          </div>
+        </Form>
+        {d.specs.length === 0 ? (
+          <div className="py-6 text-center text-ink-600">
+            <p className="font-semibold text-ink-800">No open spec matches these filters.</p>
+            <p className="mt-1">Try a wider pressure or flow range, a later closing date or part of a region's name.</p>
+          </div>
+        ) : (
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm">
+              <thead className="text-ink-600">
+                <tr>
+                  <th scope="col" className="py-2">Spec</th>
+                  <th scope="col">Region</th>
+                  <th scope="col" className="text-right">Relief setting</th>
+                  <th scope="col" className="text-right">Pump flow</th>
+                  <th scope="col" className="text-right">Units</th>
+                  <th scope="col" className="pl-4">Currency</th>
+                  <th scope="col">Bids until</th>
+                  <th scope="col"><span className="sr-only">Your bid</span></th>
+                </tr>
+              </thead>
+              <tbody>
+                {d.specs.map((s) => (
+                  <tr key={s.id} className="border-t border-ink-100 align-top">
+                    <td className="py-2 pr-3">
+                      <Link to={`/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">{s.title}</Link>
+                      {s.revision > 1 ? <span className="ml-2 text-xs text-ink-400">revision {s.revision}</span> : null}
+                    </td>
+                    <td className="py-2 pr-3">
+                      <span className="block">{s.deliveryRegion ?? "—"}</span>
+                      {s.buyerRegion ? <span className="block text-xs text-ink-600">Builder in {s.buyerRegion}</span> : null}
+                    </td>
+                    <td className="py-2 text-right tabular-nums">{s.reliefSettingBar === null ? "—" : formatQuantity("pressure", s.reliefSettingBar, d.unitSystem)}</td>
+                    <td className="py-2 text-right tabular-nums">{s.pumpFlowLpm === null ? "—" : formatQuantity("flow", s.pumpFlowLpm, d.unitSystem)}</td>
+                    <td className="py-2 text-right tabular-nums">{s.unitsWanted ?? "—"}</td>
+                    <td className="py-2 pl-4">{s.currency}</td>
+                    <td className="py-2">{new Date(s.bidDeadline).toLocaleDateString("en-GB")}</td>
+                    <td className="py-2 text-right">
+                      {s.ownBidStatus ? (
+                        <span title={`Your bid: ${BID_STATUS_LABELS[s.ownBidStatus]}`}>
+                          <Badge tone="good">You have a bid</Badge>
+                        </span>
+                      ) : null}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+        <Pager page={d.page} pageCount={d.pageCount} search={searchParams} />
+      </Card>
     </>
   );
 }

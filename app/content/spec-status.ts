@@ -18,3 +18,8 @@ export const SPEC_STATUS_TONES: Record<SpecStatus, "neutral" | "good" | "warn" |
   awarded: "good",
   withdrawn: "bad",
 };
+
+/** The status people see: an open spec whose deadline has passed reads as bidding closed. */
+export function shownSpecStatus(status: SpecStatus, bidDeadline: Date | string | null, now = new Date()): SpecStatus {
+  return status === "open" && bidDeadline && new Date(bidDeadline) <= now ? "closed" : status;
+}

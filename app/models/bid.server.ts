@@ -14,7 +14,8 @@ export interface BidLine {
   item: string;
   quantity: number;
   specification: string;
-  unitPriceCents: number;
+  /** null while a draft leaves the line unpriced */
+  unitPriceCents: number | null;
   alternative: boolean;
   alternativeDescription: string;
 }

@@ -2,10 +2,11 @@ import { Form, Link, useSearchParams } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/specs";
 import { requireRole } from "~/auth/permissions.server";
-import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, type SpecStatus } from "~/content/spec-status";
+import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
 import { Badge, Button, Card, EmptyState, PageHeader } from "~/components/ui";
 
 import { SPEC_SORTS, listSpecs } from "~/services/specs.server";
+import { offerCounts } from "~/services/bids.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "My specs · Tenderflow" }];
 
@@ -18,13 +19,15 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireRole(request, ["buyer"]);
   const query = querySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const specs = await listSpecs(user, query);
+  const offers = await offerCounts(specs.filter((s) => s.status !== "draft").map((s) => s.id));
   return {
     organisationName: user.organisation.name,
     filtered: Boolean(query.status),
     specs: specs.map((s) => ({
       id: s.id,
       title: s.title,
-      status: s.status as SpecStatus,
+      status: shownSpecStatus(s.status as SpecStatus, s.bidDeadline),
+      offers: s.status === "draft" ? null : (offers.get(s.id) ?? 0),
       revision: s.currentRevision,
       bidDeadline: s.bidDeadline?.toISOString() ?? null,
       updatedAt: s.updatedAt.toISOString(),
@@ -86,6 +89,7 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
                 <tr>
                   <th scope="col" className="py-2">Spec</th>
                   <th scope="col">Status</th>
+                  <th scope="col" className="text-right pr-4">Offers</th>
                   <th scope="col">Bid deadline</th>
                   <th scope="col">Last changed</th>
                 </tr>
@@ -100,6 +104,9 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
                       {s.revision > 1 ? <span className="ml-2 text-xs text-ink-400">revision {s.revision}</span> : null}
                     </td>
                     <td><Badge tone={SPEC_STATUS_TONES[s.status]}>{SPEC_STATUS_LABELS[s.status]}</Badge></td>
+                    <td className="pr-4 text-right tabular-nums">
+                      {s.offers ? <Link to={`/specs/${s.id}/bids`} className="font-semibold text-flow-700 hover:underline">{s.offers}</Link> : s.offers === 0 ? "0" : "—"}
+                    </td>
                     <td>{s.bidDeadline ? new Date(s.bidDeadline).toLocaleDateString("en-GB") : "—"}</td>
                     <td>{new Date(s.updatedAt).toLocaleDateString("en-GB")}</td>
                   </tr>

@@ -4,6 +4,8 @@ import bcrypt from "bcryptjs";
 import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
 import { ENGINE_VERSION, sizeCircuit } from "~/hydraulics";
 import { toRequirementsInput } from "~/content/requirement-fields";
+import { MILESTONES, TARGET_SHARES, type MilestoneKey } from "~/content/job-milestones";
+import { bidTotals, retainerCents } from "~/services/bid-pricing";
 
 export const DEMO_PASSWORD = "tenderflow-demo";
 
@@ -63,25 +65,61 @@ export const DEMO_ORGANISATIONS: DemoOrganisation[] = [
 ];
 
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+const daysAgo = (days: number) => new Date(Date.now() - days * 86_400_000);
 
-/** Two specs of the scenario: a press open for bids, and a tilting deck still in draft. */
-function demoSpecs() {
+type DemoStatus = "draft" | "open" | "awarded";
+interface DemoSpec {
+  organisation: string;
+  author: string;
+  status: DemoStatus;
+  /** Days since publication (published specs). */
+  publishedDaysAgo?: number;
+  answers: Record<string, Record<string, string>>;
+}
+
+/** The scenario's specs: a press open for bids, two awarded jobs and a tilting deck in draft. */
+function demoSpecs(): DemoSpec[] {
   return [
     {
       organisation: "Kestrel Forming Machines",
       author: "priya@kestrel-forming.test",
-      status: "open" as const,
+      status: "open",
+      publishedDaysAgo: 3,
       answers: {
         machine: { title: "Panel press, main ram", purpose: "Forms steel door panels over a die; the ram comes down onto the blank.", orientation: "vertical", rodDirection: "down", mounting: "pinned-pinned" },
         motion: { massKg: "650", processForceN: "60000", frictionCoefficient: "0.1", strokeMm: "350", extendSpeedMmS: "80", retractSpeedMmS: "120", accelTimeS: "0.2" },
         duty: { cyclesPerHour: "90", hoursPerDay: "16", ambientC: "28", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
-        quotation: { unitsWanted: "2", bidDeadline: inDays(18), dateNeeded: inDays(75), deliveryRegion: "UK — West Midlands", retainerPercent: "20", notes: "Power unit beside the press frame; blue RAL 5010 paint." },
+        quotation: { unitsWanted: "2", bidDeadline: inDays(18), dateNeeded: inDays(75), deliveryRegion: "UK — West Midlands", currency: "GBP", retainerPercent: "20", notes: "Power unit beside the press frame; blue RAL 5010 paint." },
+      },
+    },
+    {
+      organisation: "Kestrel Forming Machines",
+      author: "owen@kestrel-forming.test",
+      status: "awarded",
+      publishedDaysAgo: 30,
+      answers: {
+        machine: { title: "Coil clamp, hold-down cylinder", purpose: "Holds a steel coil on the decoiler mandrel while the band is cut.", orientation: "vertical", rodDirection: "down", mounting: "flange" },
+        motion: { massKg: "60", processForceN: "18000", frictionCoefficient: "0.1", strokeMm: "150", extendSpeedMmS: "60", retractSpeedMmS: "90", accelTimeS: "0.15" },
+        duty: { cyclesPerHour: "30", hoursPerDay: "16", ambientC: "25", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
+        quotation: { unitsWanted: "1", bidDeadline: inDays(-6), dateNeeded: inDays(60), deliveryRegion: "UK — West Midlands", currency: "GBP", retainerPercent: "25", notes: "" },
       },
     },
     {
       organisation: "Marlow Deck Systems",
       author: "tom@marlow-decks.test",
-      status: "draft" as const,
+      status: "awarded",
+      publishedDaysAgo: 75,
+      answers: {
+        machine: { title: "Scissor lift table, main cylinder", purpose: "Raises a loading table with pallets to the mezzanine floor.", orientation: "vertical", rodDirection: "up", mounting: "pinned-pinned" },
+        motion: { massKg: "1800", processForceN: "0", frictionCoefficient: "0.05", strokeMm: "800", extendSpeedMmS: "50", retractSpeedMmS: "60", accelTimeS: "0.3" },
+        duty: { cyclesPerHour: "20", hoursPerDay: "10", ambientC: "20", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 32" },
+        quotation: { unitsWanted: "3", bidDeadline: inDays(-50), dateNeeded: inDays(20), deliveryRegion: "UK — South East", currency: "GBP", retainerPercent: "15", notes: "Indoor warehouse; low noise wanted." },
+      },
+    },
+    {
+      organisation: "Marlow Deck Systems",
+      author: "tom@marlow-decks.test",
+      status: "draft",
       answers: {
         machine: { title: "Tilting deck, lift cylinder", purpose: "Tilts a vehicle deck up to 35° for unloading.", orientation: "inclined", inclineDeg: "35", rodDirection: "up", mounting: "pinned-pinned" },
         motion: { massKg: "4200", processForceN: "0", frictionCoefficient: "0.05", strokeMm: "900", extendSpeedMmS: "40", retractSpeedMmS: "50", accelTimeS: "0.3" },
@@ -90,37 +128,74 @@ function demoSpecs() {
   ];
 }
 
+/** Demo offers: per spec title, each shop's price level (a factor on a list price per line). */
+const DEMO_BIDS: Record<string, { shop: string; author: string; factor: number; status: "draft" | "submitted" | "won" | "not_selected"; leadTimeWeeks: number; revised?: boolean; alternativeOn?: string }[]> = {
+  "Panel press, main ram": [
+    { shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 1.0, status: "submitted", leadTimeWeeks: 12 },
+    { shop: "Northgate Hydraulics", author: "sofia@northgate-hyd.test", factor: 0.93, status: "submitted", leadTimeWeeks: 14, revised: true, alternativeOn: "pump" },
+    { shop: "Coldharbour Power Units", author: "ben@coldharbour-pu.test", factor: 0.9, status: "draft", leadTimeWeeks: 10 },
+  ],
+  "Coil clamp, hold-down cylinder": [
+    { shop: "Coldharbour Power Units", author: "ben@coldharbour-pu.test", factor: 0.95, status: "won", leadTimeWeeks: 8 },
+    { shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 1.05, status: "not_selected", leadTimeWeeks: 9 },
+  ],
+  "Scissor lift table, main cylinder": [
+    { shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 0.97, status: "won", leadTimeWeeks: 10 },
+    { shop: "Northgate Hydraulics", author: "sofia@northgate-hyd.test", factor: 1.02, status: "not_selected", leadTimeWeeks: 11 },
+  ],
+};
+
+/** An invented list price per bill-of-materials line (pounds), for the demo's offers only. */
+function demoListPrice(key: string): number {
+  const known: Record<string, number> = {
+    cylinder: 1850, pump: 640, motor: 720, "coupling-bellhousing": 180, "relief-valve": 210, "relief-vent-valve": 160, "directional-valve": 480,
+    "counterbalance-valve": 290, reservoir: 560, "return-filter": 140, "suction-strainer": 45, gauge: 38, "fluid-fill": 320, "hose-pressure": 85, "hose-return": 70, "hose-cap": 95, "hose-rod": 95, "hose-suction": 60, cooler: 690,
+  };
+  return known[key] ?? 120;
+}
+
+async function insert<T extends object>(sequelize: Sequelize, transaction: Transaction, sql: string, replacements: Record<string, unknown>): Promise<T> {
+  // INSERT … RETURNING read as a SELECT gives the new rows.
+  const [row] = await sequelize.query<T>(sql, { replacements, transaction, type: QueryTypes.SELECT });
+  if (!row) throw new Error(`Nothing inserted: ${sql.slice(0, 40)}`);
+  return row;
+}
+
 async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds: Map<string, string>, orgIds: Map<string, string>) {
   for (const spec of demoSpecs()) {
     const flat = Object.assign({}, ...Object.values(spec.answers)) as Record<string, string>;
-    const published = spec.status === "open";
-    const [row] = await sequelize.query<{ id: string }>(
+    const published = spec.status !== "draft";
+    const design = published ? sizeCircuit(toRequirementsInput(flat, "metric")) : null;
+    const publishedAt = published ? daysAgo(spec.publishedDaysAgo ?? 1) : null;
+    const row = await insert<{ id: string }>(
+      sequelize,
+      transaction,
       `INSERT INTO specs (organisation_id, created_by_id, title, status, answers, unit_system, completed_steps, current_revision,
-         bid_deadline, retainer_percent, delivery_region, published_at)
-       VALUES (:org, :author, :title, :status, :answers, 'metric', :steps, :revision, :deadline, :retainer, :region, :publishedAt) RETURNING id`,
+         bid_deadline, retainer_percent, delivery_region, published_at, currency, units_wanted, relief_setting_bar, pump_flow_lpm)
+       VALUES (:org, :author, :title, :status, :answers, 'metric', :steps, :revision, :deadline, :retainer, :region, :publishedAt,
+         :currency, :units, :relief, :flow) RETURNING id`,
       {
-        replacements: {
-          org: orgIds.get(spec.organisation),
-          author: userIds.get(spec.author),
-          title: flat.title,
-          status: spec.status,
-          answers: JSON.stringify(spec.answers),
-          steps: `{${Object.keys(spec.answers).join(",")}}`,
-          revision: published ? 1 : 0,
-          deadline: flat.bidDeadline ? `${flat.bidDeadline}T23:59:59Z` : null,
-          retainer: flat.retainerPercent ?? null,
-          region: flat.deliveryRegion ?? null,
-          publishedAt: published ? new Date() : null,
-        },
-        transaction,
-        type: QueryTypes.SELECT,
+        org: orgIds.get(spec.organisation),
+        author: userIds.get(spec.author),
+        title: flat.title,
+        status: spec.status,
+        answers: JSON.stringify(spec.answers),
+        steps: `{${Object.keys(spec.answers).join(",")}}`,
+        revision: published ? 1 : 0,
+        deadline: flat.bidDeadline ? `${flat.bidDeadline}T23:59:59Z` : null,
+        retainer: flat.retainerPercent ?? null,
+        region: flat.deliveryRegion ?? null,
+        publishedAt,
+        currency: flat.currency ?? "EUR",
+        units: flat.unitsWanted ? Number(flat.unitsWanted) : null,
+        relief: design?.pressuresBar.reliefSetting ?? null,
+        flow: design?.flowsLpm.pump ?? null,
       },
     );
-    if (!published) continue;
-    const design = sizeCircuit(toRequirementsInput(flat, "metric"));
+    if (!design) continue;
     await sequelize.query(
-      `INSERT INTO spec_revisions (spec_id, number, axes, answers, unit_system, engine_version, created_by_id)
-       VALUES (:spec, 1, :axes, :answers, 'metric', :version, :author)`,
+      `INSERT INTO spec_revisions (spec_id, number, axes, answers, unit_system, engine_version, created_by_id, created_at)
+       VALUES (:spec, 1, :axes, :answers, 'metric', :version, :author, :publishedAt)`,
       {
         replacements: {
           spec: row.id,
@@ -128,10 +203,139 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
           answers: JSON.stringify(spec.answers),
           version: ENGINE_VERSION,
           author: userIds.get(spec.author),
+          publishedAt,
         },
         transaction,
       },
     );
+    const units = Number(flat.unitsWanted ?? 1);
+    for (const offer of DEMO_BIDS[flat.title] ?? []) {
+      const lines = design.bom.map((l) => ({
+        key: l.key,
+        item: l.item,
+        quantity: l.quantity,
+        specification: l.specification,
+        unitPriceCents: Math.round(demoListPrice(l.key) * offer.factor) * 100,
+        alternative: l.key === offer.alternativeOn,
+        alternativeDescription: l.key === offer.alternativeOn ? "Internal gear pump of the same displacement, quieter at 1500 rpm" : "",
+      }));
+      const totals = bidTotals(lines, units);
+      const offered = offer.status !== "draft";
+      const version = offered ? (offer.revised ? 2 : 1) : 0;
+      const submittedAt = offered ? daysAgo(Math.max(1, (spec.publishedDaysAgo ?? 2) - 2)) : null;
+      const bid = await insert<{ id: string }>(
+        sequelize,
+        transaction,
+        `INSERT INTO bids (spec_id, organisation_id, created_by_id, status, spec_revision, version, currency, lines, units, set_total_cents,
+           total_cents, lead_time_weeks, valid_until, terms, notes, submitted_at)
+         VALUES (:spec, :org, :author, :status, 1, :version, :currency, :lines, :units, :set, :total, :lead, :valid, :terms, :notes, :submittedAt) RETURNING id`,
+        {
+          spec: row.id,
+          org: orgIds.get(offer.shop),
+          author: userIds.get(offer.author),
+          status: offer.status,
+          version,
+          currency: flat.currency,
+          lines: JSON.stringify(lines),
+          units,
+          set: totals.setTotalCents,
+          total: totals.totalCents,
+          lead: offer.leadTimeWeeks,
+          valid: inDays(45),
+          terms: "Ex works, 30 days net after delivery; 12 months warranty.",
+          notes: offer.alternativeOn ? "We offer a quieter pump; the catalogue part is available at the same price on request." : "",
+          submittedAt,
+        },
+      );
+      for (let v = 1; v <= version; v++) {
+        const offerRecord = { lines, units, ...totals, currency: flat.currency, leadTimeWeeks: offer.leadTimeWeeks, validUntil: inDays(45), terms: "", notes: "" };
+        if (v < version) offerRecord.leadTimeWeeks += 2;
+        await sequelize.query(
+          `INSERT INTO bid_versions (bid_id, version, event, spec_revision, offer, created_by_id, created_at) VALUES (:bid, :v, 'submitted', 1, :offer, :author, :at)`,
+          { replacements: { bid: bid.id, v, offer: JSON.stringify(offerRecord), author: userIds.get(offer.author), at: submittedAt }, transaction },
+        );
+      }
+      if (offer.status === "won") await seedJob(sequelize, transaction, { specId: row.id, bidId: bid.id, spec, offer, totalCents: totals.totalCents, userIds, orgIds, flat });
+    }
+    if (flat.title === "Panel press, main ram") await seedQuestions(sequelize, transaction, row.id, userIds, orgIds);
+  }
+}
+
+async function seedQuestions(sequelize: Sequelize, transaction: Transaction, specId: string, userIds: Map<string, string>, orgIds: Map<string, string>) {
+  const questions = [
+    { shop: "Ironbridge Fluid Power", by: "aled@ironbridge-fluid.test", body: "Can the counterbalance valve be flanged straight onto the cylinder's rod port, or is there only room for a line-mounted valve?", answer: "Flanged on the port, please: there is 120 mm of clearance beside the cylinder. Drawing 2 shows it." },
+    { shop: "Northgate Hydraulics", by: "sofia@northgate-hyd.test", body: "Is a water-glycol fluid required for fire safety at this site, or is mineral oil acceptable?", answer: null },
+  ];
+  for (const q of questions) {
+    await sequelize.query(
+      `INSERT INTO spec_questions (spec_id, organisation_id, asked_by_id, body, answer, answered_by_id, answered_at)
+       VALUES (:spec, :org, :by, :body, :answer, :answeredBy, :answeredAt)`,
+      {
+        replacements: { spec: specId, org: orgIds.get(q.shop), by: userIds.get(q.by), body: q.body, answer: q.answer, answeredBy: q.answer ? userIds.get("priya@kestrel-forming.test") : null, answeredAt: q.answer ? daysAgo(1) : null },
+        transaction,
+      },
+    );
+  }
+}
+
+/** An awarded job with its milestones: the lift table is under way and late; the clamp awaits its retainer. */
+async function seedJob(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  a: { specId: string; bidId: string; spec: DemoSpec; offer: { shop: string; author: string; leadTimeWeeks: number }; totalCents: number; userIds: Map<string, string>; orgIds: Map<string, string>; flat: Record<string, string> },
+) {
+  const awardedDaysAgo = (a.spec.publishedDaysAgo ?? 1) - 26;
+  const awardedAt = daysAgo(awardedDaysAgo);
+  const underway = a.flat.title.startsWith("Scissor");
+  // Demo progress: the lift table has its retainer, drawings and build done; its test is overdue.
+  const reached: MilestoneKey[] = underway ? ["retainer_received", "drawings_agreed", "in_build"] : [];
+  const buyerAuthor = a.userIds.get(a.spec.author)!;
+  const shopAuthor = a.userIds.get(a.offer.author)!;
+  const job = await insert<{ id: string }>(
+    sequelize,
+    transaction,
+    `INSERT INTO jobs (spec_id, bid_id, buyer_organisation_id, shop_organisation_id, awarded_by_id, awarded_at, currency, total_cents,
+       retainer_percent, retainer_cents, retainer_paid_at, stage)
+     VALUES (:spec, :bid, :buyer, :shop, :by, :at, :currency, :total, :percent, :retainer, :paidAt, :stage) RETURNING id`,
+    {
+      spec: a.specId,
+      bid: a.bidId,
+      buyer: a.orgIds.get(a.spec.organisation),
+      shop: a.orgIds.get(a.offer.shop),
+      by: buyerAuthor,
+      at: awardedAt,
+      currency: a.flat.currency,
+      total: a.totalCents,
+      percent: a.flat.retainerPercent,
+      retainer: retainerCents(a.totalCents, a.flat.retainerPercent),
+      paidAt: underway ? daysAgo(awardedDaysAgo - 2) : null,
+      stage: reached.at(-1) ?? null,
+    },
+  );
+  await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, created_at) VALUES (:job, :by, 'awarded', :at)`, { replacements: { job: job.id, by: buyerAuthor, at: awardedAt }, transaction });
+  const leadDays = a.offer.leadTimeWeeks * 7;
+  for (const [position, m] of MILESTONES.entries()) {
+    const rule = TARGET_SHARES[m.key];
+    const target = new Date(awardedAt.getTime() + (Math.round(leadDays * rule.share) + rule.plusDays) * 86_400_000).toISOString().slice(0, 10);
+    const done = reached.includes(m.key);
+    const reachedAt = done ? new Date(Math.min(Date.now() - 86_400_000, new Date(`${target}T12:00:00Z`).getTime())) : null;
+    const by = m.key === "retainer_received" ? buyerAuthor : shopAuthor;
+    await sequelize.query(
+      `INSERT INTO job_milestones (job_id, key, position, target_date, reached_at, reached_by_id) VALUES (:job, :key, :position, :target, :reachedAt, :by)`,
+      { replacements: { job: job.id, key: m.key, position, target, reachedAt, by: done ? by : null }, transaction },
+    );
+    if (done) {
+      await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, milestone, body, created_at) VALUES (:job, :by, 'milestone_reached', :key, :body, :at)`, {
+        replacements: { job: job.id, by, key: m.key, body: m.key === "in_build" ? "Manifold machined; the tank is at the painter's." : "", at: reachedAt },
+        transaction,
+      });
+    }
+  }
+  if (underway) {
+    await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, body, visibility, created_at) VALUES (:job, :by, 'manager_note', :body, 'operator', :at)`, {
+      replacements: { job: job.id, by: a.userIds.get("nadia@tenderflow.test"), body: "Called Aled: test bench booked for next week, motor delivery slipped.", at: daysAgo(2) },
+      transaction,
+    });
   }
 }
 
@@ -151,7 +355,6 @@ export async function seedDemo(sequelize: Sequelize): Promise<boolean> {
     const userIds = new Map<string, string>();
     const orgIds = new Map<string, string>();
     for (const org of DEMO_ORGANISATIONS) {
-      // INSERT … RETURNING read as a SELECT gives the new rows.
       const [row] = await sequelize.query<{ id: string }>(
         "INSERT INTO organisations (name, kind, region) VALUES (:name, :kind, :region) RETURNING id",
         { replacements: { name: org.name, kind: org.kind, region: org.region }, transaction, type: QueryTypes.SELECT },

@@ -1,0 +1,290 @@
+import { getFormProps, getInputProps, getTextareaProps, useForm } from "@conform-to/react";
+import { parseWithZod } from "@conform-to/zod/v4";
+import { Form, Link, data, useNavigation } from "react-router";
+import type { Route } from "./+types/spec-bid";
+import { requireRole } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { FieldErrors as FieldErrorText, TextField } from "~/components/form-field";
+import { Badge, Button, Card, Notice, PageHeader } from "~/components/ui";
+import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/bid-status";
+import { formatMoney } from "~/content/currencies";
+import { bidSchema } from "~/schemas/bid";
+import { bidTotals, centsToInput, parseMoney } from "~/services/bid-pricing";
+import { bidOfShop, bomOf, historyOf, saveBid, withdrawBid } from "~/services/bids.server";
+import { FieldErrors } from "~/services/errors.server";
+import { specForReader } from "~/services/spec-access.server";
+
+export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Your bid · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requireRole(request, ["shop"]);
+  const spec = await specForReader(user, params.specId);
+  const [bom, bid] = await Promise.all([bomOf(spec), bidOfShop(user, spec)]);
+  const history = bid ? await historyOf(bid) : [];
+  const offered = new Map((bid?.lines ?? []).map((l) => [l.key, l]));
+  return {
+    spec: {
+      id: spec.id,
+      title: spec.title,
+      revision: spec.currentRevision,
+      currency: spec.currency,
+      units: spec.unitsWanted ?? 1,
+      deadline: spec.bidDeadline?.toISOString() ?? null,
+      accepting: spec.status === "open" && !!spec.bidDeadline && spec.bidDeadline > new Date(),
+    },
+    bill: bom.map((l) => ({ key: l.key, item: l.item, quantity: l.quantity, specification: l.specification, rating: l.rating?.label ?? "" })),
+    bid: bid && {
+      status: bid.status as BidStatus,
+      version: bid.version,
+      specRevision: bid.specRevision,
+      totalCents: bid.totalCents,
+      submittedAt: bid.submittedAt?.toISOString() ?? null,
+    },
+    defaults: {
+      lines: bom.map((l) => {
+        const o = offered.get(l.key);
+        return {
+          key: l.key,
+          unitPrice: o?.unitPriceCents != null ? centsToInput(o.unitPriceCents) : "",
+          alternative: o?.alternative ? "on" : undefined,
+          alternativeDescription: o?.alternativeDescription ?? "",
+        };
+      }),
+      leadTimeWeeks: bid?.leadTimeWeeks != null ? String(bid.leadTimeWeeks) : "",
+      validUntil: bid?.validUntil ?? "",
+      terms: bid?.terms ?? "",
+      notes: bid?.notes ?? "",
+    },
+    history: history.map((v) => ({
+      id: v.id,
+      version: v.version,
+      event: v.event,
+      specRevision: v.specRevision,
+      totalCents: v.offer.totalCents,
+      leadTimeWeeks: v.offer.leadTimeWeeks,
+      by: (v as unknown as { createdBy?: { name: string } }).createdBy?.name ?? "",
+      at: v.createdAt.toISOString(),
+    })),
+  };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requireRole(request, ["shop"]);
+  const spec = await specForReader(user, params.specId);
+  const formData = await request.formData();
+  const back = `/specs/${spec.id}/bid`;
+  if (formData.get("intent") === "withdraw") {
+    try {
+      await withdrawBid(user, spec);
+    } catch (error) {
+      if (!(error instanceof FieldErrors)) throw error;
+      return data({ result: null, withdrawError: error.message }, { status: 409 });
+    }
+    return redirectWithToast(request, back, "Your offer has been taken back. You can offer again until the deadline.");
+  }
+  const submission = parseWithZod(formData, { schema: bidSchema });
+  if (submission.status !== "success") return data({ result: submission.reply(), withdrawError: null }, { status: 400 });
+  try {
+    const bid = await saveBid(user, spec, submission.value);
+    return redirectWithToast(
+      request,
+      back,
+      submission.value.intent === "submit" ? `Offer ${bid.version} sent: ${formatMoney(bid.totalCents, bid.currency)}. The buyer has been told.` : "Draft saved. Only your shop can see it.",
+    );
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    const { "": formErrors = [], ...fieldErrors } = error.fieldErrors;
+    return data({ result: submission.reply({ formErrors, fieldErrors }), withdrawError: null }, { status: error.fieldErrors[""] ? 409 : 400 });
+  }
+}
+
+const dateText = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+
+export default function SpecBid({ loaderData: d, actionData }: Route.ComponentProps) {
+  const navigation = useNavigation();
+  const [form, fields] = useForm({
+    lastResult: navigation.state === "idle" ? actionData?.result : null,
+    defaultValue: d.defaults,
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: bidSchema }),
+    shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
+  });
+  const lines = fields.lines.getFieldList();
+  // A preview only: the server prices the bid again from what is sent.
+  const typed = (form.value?.lines ?? d.defaults.lines) as { unitPrice?: string; alternative?: string }[];
+  const cents = d.bill.map((l, i) => ({ quantity: l.quantity, unitPriceCents: parseMoney(typed[i]?.unitPrice ?? "") }));
+  const preview = bidTotals(cents.map((c) => ({ quantity: c.quantity, unitPriceCents: c.unitPriceCents ?? 0 })), d.spec.units);
+  const unpriced = cents.filter((c) => c.unitPriceCents === null).length;
+  const offered = d.bid?.status === "submitted";
+  const money = (c: number) => formatMoney(c, d.spec.currency);
+
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link to={`/specs/${d.spec.id}`} className="text-flow-700 hover:underline">← {d.spec.title}</Link>
+      </p>
+      <PageHeader
+        title="Your bid"
+        lead={
+          <span className="flex flex-wrap items-center gap-2">
+            {d.bid ? <Badge tone={BID_STATUS_TONES[d.bid.status]}>{BID_STATUS_LABELS[d.bid.status]}</Badge> : <Badge tone="neutral">Not started</Badge>}
+            <span>
+              Priced in {d.spec.currency} against revision {d.spec.revision} · {d.spec.units} unit{d.spec.units === 1 ? "" : "s"} wanted
+              {d.spec.deadline ? ` · bids until ${dateText(d.spec.deadline)}` : ""}
+            </span>
+          </span>
+        }
+      />
+      {d.bid && d.bid.specRevision < d.spec.revision ? (
+        <div className="mb-4">
+          <Notice tone="warn">
+            Your offer was made against revision {d.bid.specRevision}; the buyer has since published revision {d.spec.revision}. The lines below are the
+            current bill. Submit again so your offer matches it.
+          </Notice>
+        </div>
+      ) : null}
+      {!d.spec.accepting ? (
+        <div className="mb-4">
+          <Notice tone="warn">This spec no longer takes bids, so your bid can't be changed.</Notice>
+        </div>
+      ) : null}
+      {form.errors?.length || actionData?.withdrawError ? (
+        <div className="mb-4" id={form.errorId} role="alert">
+          <Notice tone="bad">{[...(form.errors ?? []), actionData?.withdrawError].filter(Boolean).join(" ")}</Notice>
+        </div>
+      ) : null}
+
+      <Form method="post" {...getFormProps(form)} className="space-y-6">
+        <fieldset disabled={!d.spec.accepting} className="space-y-6">
+          <Card>
+            <h2 className="mb-1 text-lg font-semibold">Price each line of the bill</h2>
+            <p className="mb-4 text-sm text-ink-600">
+              Enter the price of one item; the line total is that times the quantity. If you would fit a different part, tick “Alternative” and say what it
+              is. Enter 0 for a line included in another.
+            </p>
+            <div className="overflow-x-auto">
+              <table className="w-full min-w-[44rem] text-left text-sm">
+                <thead className="text-ink-600">
+                  <tr>
+                    <th scope="col" className="py-2 pr-3">Line</th>
+                    <th scope="col" className="pr-3 text-right">Qty</th>
+                    <th scope="col" className="w-40 pr-3">Unit price ({d.spec.currency})</th>
+                    <th scope="col" className="pr-3 text-right">Line total</th>
+                    <th scope="col">Alternative</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {lines.map((line, i) => {
+                    const f = line.getFieldset();
+                    const bill = d.bill[i];
+                    const isAlternative = typed[i]?.alternative === "on";
+                    const c = cents[i];
+                    return (
+                      <tr key={line.key} className="border-t border-ink-100 align-top">
+                        <td className="py-2 pr-3">
+                          <input {...getInputProps(f.key, { type: "hidden" })} key={f.key.key} />
+                          <label htmlFor={f.unitPrice.id} className="font-semibold text-ink-900">{bill.item}</label>
+                          <p className="text-ink-600">{bill.specification}</p>
+                        </td>
+                        <td className="py-2 pr-3 text-right tabular-nums">{bill.quantity}</td>
+                        <td className="py-2 pr-3">
+                          <input
+                            {...getInputProps(f.unitPrice, { type: "text" })}
+                            key={f.unitPrice.key}
+                            inputMode="decimal"
+                            placeholder="0.00"
+                            className="block w-full rounded-md bg-white px-2 py-1 text-right tabular-nums ring-1 ring-ink-200 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600"
+                          />
+                          <FieldErrorText id={f.unitPrice.errorId} errors={f.unitPrice.errors} />
+                        </td>
+                        <td className="py-2 pr-3 text-right tabular-nums">{c.unitPriceCents === null ? "—" : money(c.quantity * c.unitPriceCents)}</td>
+                        <td className="py-2">
+                          <label className="flex items-center gap-2">
+                            <input {...getInputProps(f.alternative, { type: "checkbox" })} key={f.alternative.key} />
+                            <span>Alternative</span>
+                          </label>
+                          {isAlternative ? (
+                            <>
+                              <label htmlFor={f.alternativeDescription.id} className="sr-only">What you offer instead of {bill.item}</label>
+                              <textarea
+                                {...getTextareaProps(f.alternativeDescription)}
+                                key={f.alternativeDescription.key}
+                                rows={2}
+                                placeholder="Make, model and why"
+                                className="mt-1 block w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
+                              />
+                              <FieldErrorText id={f.alternativeDescription.errorId} errors={f.alternativeDescription.errors} />
+                            </>
+                          ) : (
+                            <input type="hidden" name={f.alternativeDescription.name} value="" />
+                          )}
+                        </td>
+                      </tr>
+                    );
+                  })}
+                </tbody>
+                <tfoot className="border-t-2 border-ink-200 font-semibold">
+                  <tr>
+                    <td colSpan={3} className="py-2 pr-3 text-right">One set</td>
+                    <td className="py-2 pr-3 text-right tabular-nums" data-testid="set-total">{money(preview.setTotalCents)}</td>
+                    <td />
+                  </tr>
+                  <tr>
+                    <td colSpan={3} className="py-2 pr-3 text-right">× {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}: your offer</td>
+                    <td className="py-2 pr-3 text-right text-base tabular-nums" data-testid="offer-total">{money(preview.totalCents)}</td>
+                    <td className="py-2 text-xs font-normal text-ink-600">{unpriced ? `${unpriced} line${unpriced === 1 ? "" : "s"} not priced yet` : "Every line priced"}</td>
+                  </tr>
+                </tfoot>
+              </table>
+            </div>
+          </Card>
+
+          <Card className="grid gap-5 sm:grid-cols-2">
+            <TextField meta={fields.leadTimeWeeks} label="Lead time (weeks)" hint="From the retainer to dispatch, e.g. 12." inputMode="numeric" />
+            <TextField meta={fields.validUntil} type="date" label="Offer valid until" hint="At least until the bid deadline." />
+            <div className="sm:col-span-2">
+              <label htmlFor={fields.terms.id} className="block text-sm font-semibold text-ink-800">Terms</label>
+              <textarea {...getTextareaProps(fields.terms)} key={fields.terms.key} rows={3} placeholder="Payment, delivery (e.g. ex works), warranty" className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200" />
+              <FieldErrorText id={fields.terms.errorId} errors={fields.terms.errors} />
+            </div>
+            <div className="sm:col-span-2">
+              <label htmlFor={fields.notes.id} className="block text-sm font-semibold text-ink-800">Notes for the buyer</label>
+              <textarea {...getTextareaProps(fields.notes)} key={fields.notes.key} rows={3} placeholder="Anything the buyer should know about your offer" className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200" />
+              <FieldErrorText id={fields.notes.errorId} errors={fields.notes.errors} />
+            </div>
+          </Card>
+
+          <div className="flex flex-wrap items-center gap-3">
+            <Button type="submit" name="intent" value="submit">{offered ? "Send the revised offer" : "Submit the offer"}</Button>
+            {!offered ? (
+              <Button type="submit" name="intent" value="save" tone="secondary">Save as draft</Button>
+            ) : null}
+            <p className="text-sm text-ink-600">The buyer sees your offer once it is submitted; drafts stay with your shop.</p>
+          </div>
+        </fieldset>
+      </Form>
+
+      {offered && d.spec.accepting ? (
+        <Form method="post" className="mt-4">
+          <Button type="submit" name="intent" value="withdraw" tone="danger">Take the offer back</Button>
+        </Form>
+      ) : null}
+
+      {d.history.length ? (
+        <Card className="mt-8">
+          <h2 className="mb-3 text-lg font-semibold">History</h2>
+          <ol className="space-y-2 text-sm">
+            {d.history.map((h) => (
+              <li key={h.id} className="flex flex-wrap gap-x-3">
+                <span className="font-semibold">{h.event === "submitted" ? `Offer ${h.version}` : `Offer ${h.version} taken back`}</span>
+                <span className="tabular-nums">{money(h.totalCents)}</span>
+                {h.leadTimeWeeks ? <span>{h.leadTimeWeeks} weeks</span> : null}
+                <span className="text-ink-600">revision {h.specRevision} · {h.by} · {new Date(h.at).toLocaleString("en-GB")}</span>
+              </li>
+            ))}
+          </ol>
+        </Card>
+      ) : null}
+    </>
+  );
+}

@@ -1,0 +1,254 @@
+import { Form, Link, data, useNavigation, useSearchParams } from "react-router";
+import type { Route } from "./+types/spec-bids";
+import { requireRole } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { Badge, Button, ButtonLink, Card, EmptyState, Notice, PageHeader } from "~/components/ui";
+import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
+import { formatMoney } from "~/content/currencies";
+import { SPEC_STATUS_LABELS, type SpecStatus } from "~/content/spec-status";
+import { awardSchema } from "~/schemas/bid";
+import { awardBid } from "~/services/award.server";
+import { COMPARISON_SORTS, compareBids, type ComparisonSort } from "~/services/bid-comparison";
+import { bomOf, offeredBids } from "~/services/bids.server";
+import { FieldErrors } from "~/services/errors.server";
+import { retainerCents } from "~/services/bid-pricing";
+import { specOfOwner } from "~/services/spec-access.server";
+import { Job } from "~/models/index.server";
+
+export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Bids · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
+
+const SORT_LABELS: Record<ComparisonSort, string> = { total: "Lowest total", lead: "Shortest lead time", valid: "Longest validity", shop: "Shop name" };
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requireRole(request, ["buyer"]);
+  const spec = await specOfOwner(user, params.specId);
+  const url = new URL(request.url);
+  const sortParam = url.searchParams.get("sort") ?? "total";
+  const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam) ? (sortParam as ComparisonSort) : "total";
+  const [bom, bids, job] = await Promise.all([bomOf(spec), offeredBids(user, spec), Job.findOne({ where: { specId: spec.id }, attributes: ["id"] })]);
+  const comparison = compareBids(
+    bom,
+    spec.currentRevision,
+    bids.map((b) => ({
+      id: b.id,
+      shop: (b as unknown as { organisation: { name: string } }).organisation.name,
+      status: b.status,
+      specRevision: b.specRevision,
+      lines: b.lines,
+      setTotalCents: b.setTotalCents,
+      totalCents: b.totalCents,
+      leadTimeWeeks: b.leadTimeWeeks,
+      validUntil: b.validUntil,
+    })),
+    sort,
+  );
+  const choosing = comparison.columns.find((c) => c.id === url.searchParams.get("award") && c.status === "submitted") ?? null;
+  return {
+    spec: { id: spec.id, title: spec.title, status: spec.status as SpecStatus, revision: spec.currentRevision, currency: spec.currency, units: spec.unitsWanted ?? 1, retainerPercent: spec.retainerPercent ?? "0", deadline: spec.bidDeadline?.toISOString() ?? null },
+    sort,
+    comparison,
+    jobId: job?.id ?? null,
+    choosing: choosing && { ...choosing, retainerCents: retainerCents(choosing.totalCents, spec.retainerPercent ?? "0") },
+  };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requireRole(request, ["buyer"]);
+  const spec = await specOfOwner(user, params.specId);
+  const parsed = awardSchema.safeParse(Object.fromEntries(await request.formData()));
+  if (!parsed.success) return data({ error: parsed.error.issues[0]?.message ?? "Confirm the award." }, { status: 400 });
+  try {
+    const job = await awardBid(user, spec.id, parsed.data.bidId);
+    return redirectWithToast(request, `/jobs/${job.id}`, "Awarded. Every bidder has been told; the job and its milestones are below.");
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return data({ error: error.message }, { status: 409 });
+  }
+}
+
+const day = (iso: string) => new Date(`${iso.slice(0, 10)}T12:00:00Z`).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+
+export default function SpecBids({ loaderData: d, actionData }: Route.ComponentProps) {
+  const [params] = useSearchParams();
+  const navigation = useNavigation();
+  const { columns, rows, cheapestCompleteId } = d.comparison;
+  const money = (c: number) => formatMoney(c, d.spec.currency);
+  const cheapest = columns.find((c) => c.id === cheapestCompleteId);
+  const canAward = d.spec.status === "open";
+  const withSort = (sort: string) => {
+    const next = new URLSearchParams(params);
+    next.set("sort", sort);
+    next.delete("award");
+    return `?${next}`;
+  };
+
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link to={`/specs/${d.spec.id}`} className="text-flow-700 hover:underline">← {d.spec.title}</Link>
+      </p>
+      <PageHeader
+        title="Compare the bids"
+        lead={`${columns.length} offer${columns.length === 1 ? "" : "s"} on revision ${d.spec.revision} · ${d.spec.units} unit${d.spec.units === 1 ? "" : "s"} · prices in ${d.spec.currency} · ${SPEC_STATUS_LABELS[d.spec.status]}`}
+        actions={d.jobId ? <ButtonLink to={`/jobs/${d.jobId}`}>Follow the job</ButtonLink> : null}
+      />
+      {actionData?.error ? (
+        <div className="mb-4" role="alert">
+          <Notice tone="bad">{actionData.error}</Notice>
+        </div>
+      ) : null}
+
+      {columns.length === 0 ? (
+        <EmptyState title="No offers yet">
+          <p>Shops have been told about this spec. Their offers appear here side by side as they arrive, and you get an e-mail for each.</p>
+        </EmptyState>
+      ) : (
+        <>
+          {cheapest ? (
+            <div className="mb-4 rounded-lg bg-flow-50 p-4 ring-1 ring-flow-600" data-testid="cheapest-summary">
+              <p className="text-sm font-semibold uppercase tracking-wide text-flow-700">Cheapest complete offer</p>
+              <p className="text-xl font-semibold text-ink-900">
+                {cheapest.shop}: {money(cheapest.totalCents)}
+              </p>
+              <p className="text-sm text-ink-700">
+                Every line of the current bill priced · {cheapest.leadTimeWeeks ?? "?"} weeks · valid until {cheapest.validUntil ? day(cheapest.validUntil) : "—"}
+                {cheapest.alternatives ? ` · ${cheapest.alternatives} alternative part${cheapest.alternatives === 1 ? "" : "s"}` : ""}
+                {cheapest.olderRevision ? ` · made on revision ${cheapest.specRevision}` : ""}
+              </p>
+            </div>
+          ) : (
+            <div className="mb-4">
+              <Notice tone="warn">No offer prices every line of the current bill yet; the totals below are not like for like.</Notice>
+            </div>
+          )}
+
+          {d.choosing ? (
+            <Card className="mb-6 ring-2 ring-flow-600">
+              <h2 className="text-lg font-semibold">Award this spec to {d.choosing.shop}?</h2>
+              <p className="mt-1 text-sm text-ink-700">
+                {money(d.choosing.totalCents)} for {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}, {d.choosing.leadTimeWeeks} weeks. The retainer of{" "}
+                <strong>{money(d.choosing.retainerCents)}</strong> ({Number(d.spec.retainerPercent)} %) is paid by card after the award. Every other bidder is told
+                they were not chosen, and bidding closes. This can't be undone.
+              </p>
+              <Form method="post" className="mt-4 flex flex-wrap items-center gap-4">
+                <input type="hidden" name="bidId" value={d.choosing.id} />
+                <label className="flex items-center gap-2 text-sm">
+                  <input type="checkbox" name="confirm" required />
+                  <span>I award this spec to {d.choosing.shop}.</span>
+                </label>
+                <Button type="submit" disabled={navigation.state !== "idle"}>Confirm the award</Button>
+                <Link to={withSort(d.sort)} className="text-sm text-flow-700 hover:underline">Cancel</Link>
+              </Form>
+            </Card>
+          ) : null}
+
+          <nav aria-label="Sort the offers" className="mb-3 flex flex-wrap items-center gap-2 text-sm">
+            <span className="text-ink-600">Order:</span>
+            {COMPARISON_SORTS.map((s) => (
+              <Link
+                key={s}
+                to={withSort(s)}
+                aria-current={s === d.sort ? "true" : undefined}
+                className={`rounded-md px-2 py-1 ring-1 ${s === d.sort ? "bg-flow-600 text-white ring-flow-600" : "ring-ink-200 hover:bg-ink-100"}`}
+              >
+                {SORT_LABELS[s]}
+              </Link>
+            ))}
+          </nav>
+
+          <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-200">
+            <table className="w-full text-sm" data-testid="comparison">
+              <caption className="sr-only">Offers by line; the lowest price of each line and the cheapest complete offer are marked.</caption>
+              <thead>
+                <tr className="align-bottom">
+                  <th scope="col" className="sticky left-0 z-10 min-w-[16rem] bg-white p-3 text-left">Line</th>
+                  {columns.map((c) => (
+                    <th key={c.id} scope="col" className={`min-w-[11rem] p-3 text-right ${c.cheapestComplete ? "bg-flow-50" : ""}`} data-bid={c.id}>
+                      <span className="block text-base text-ink-900">{c.shop}</span>
+                      <span className="mt-1 flex flex-wrap justify-end gap-1 font-normal">
+                        <Badge tone={BID_STATUS_TONES[c.status]}>{BID_STATUS_LABELS[c.status]}</Badge>
+                        {c.cheapestComplete ? <Badge tone="good">Cheapest complete</Badge> : null}
+                        {c.olderRevision ? <Badge tone="warn">On revision {c.specRevision}</Badge> : null}
+                        {!c.complete ? <Badge tone="warn">Lines missing</Badge> : null}
+                        {c.alternatives ? <Badge tone="neutral">{c.alternatives} alternative{c.alternatives === 1 ? "" : "s"}</Badge> : null}
+                      </span>
+                    </th>
+                  ))}
+                </tr>
+              </thead>
+              <tbody>
+                {rows.map((row) => (
+                  <tr key={row.key} className="border-t border-ink-100 align-top">
+                    <th scope="row" className="sticky left-0 z-10 bg-white p-3 text-left font-normal">
+                      <span className="font-semibold text-ink-900">{row.item}</span>
+                      <span className="text-ink-600"> × {row.quantity}</span>
+                      {!row.inCurrentBill ? <span className="block text-xs text-signal-700">Only in an earlier revision</span> : null}
+                    </th>
+                    {row.cells.map((cell, i) => (
+                      <td key={columns[i].id} className={`p-3 text-right tabular-nums ${cell?.lowest ? "bg-flow-50 font-semibold text-flow-700" : columns[i].cheapestComplete ? "bg-flow-50/40" : ""}`}>
+                        {cell ? (
+                          <>
+                            <span className="block">{money(cell.lineTotalCents)}</span>
+                            {row.quantity > 1 ? <span className="block text-xs font-normal text-ink-600">{money(cell.unitPriceCents)} each</span> : null}
+                            {cell.lowest ? <span className="block text-xs">lowest</span> : null}
+                            {cell.alternative ? (
+                              <span className="mt-1 block text-left text-xs font-normal text-ink-700">
+                                <Badge tone="warn">Alternative</Badge> {cell.alternativeDescription}
+                              </span>
+                            ) : null}
+                          </>
+                        ) : (
+                          <span className="text-ink-400">not priced</span>
+                        )}
+                      </td>
+                    ))}
+                  </tr>
+                ))}
+              </tbody>
+              <tfoot className="border-t-2 border-ink-300">
+                <tr>
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left">Total for {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}</th>
+                  {columns.map((c) => (
+                    <td key={c.id} className={`p-3 text-right text-base font-semibold tabular-nums ${c.cheapestComplete ? "bg-flow-50 text-flow-700" : ""}`}>
+                      {money(c.totalCents)}
+                      {d.spec.units > 1 ? <span className="block text-xs font-normal text-ink-600">{money(c.setTotalCents)} a set</span> : null}
+                    </td>
+                  ))}
+                </tr>
+                <tr className="border-t border-ink-100">
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Lead time</th>
+                  {columns.map((c) => (
+                    <td key={c.id} className={`p-3 text-right ${c.shortestLead ? "font-semibold text-flow-700" : ""}`}>
+                      {c.leadTimeWeeks ? `${c.leadTimeWeeks} weeks` : "—"}
+                      {c.shortestLead ? <span className="block text-xs">shortest</span> : null}
+                    </td>
+                  ))}
+                </tr>
+                <tr className="border-t border-ink-100">
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Valid until</th>
+                  {columns.map((c) => (
+                    <td key={c.id} className="p-3 text-right">{c.validUntil ? day(c.validUntil) : "—"}</td>
+                  ))}
+                </tr>
+                {canAward ? (
+                  <tr className="border-t border-ink-100">
+                    <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Decision</th>
+                    {columns.map((c) => (
+                      <td key={c.id} className="p-3 text-right">
+                        {c.status === "submitted" ? (
+                          <ButtonLink to={`?sort=${d.sort}&award=${c.id}`} tone={c.cheapestComplete ? "primary" : "secondary"} aria-label={`Award to ${c.shop}`}>
+                            Award…
+                          </ButtonLink>
+                        ) : null}
+                      </td>
+                    ))}
+                  </tr>
+                ) : null}
+              </tfoot>
+            </table>
+          </div>
+        </>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,62 @@
+import { Op } from "sequelize";
+import { Bid, Organisation, Spec, User, sequelize, type Job } from "~/models/index.server";
+import { formatMoney } from "~/content/currencies";
+import { FieldErrors, notFound } from "./errors.server";
+import { enqueueMail } from "./mail.server";
+import { openJob } from "./jobs.server";
+import { env } from "~/env.server";
+
+// Awarding: the buyer chooses exactly one offered bid. The spec row is locked for update, so
+// of two racing awards the second waits, then finds the spec awarded and changes nothing.
+
+export async function awardBid(user: User, specId: string, bidId: string): Promise<Job> {
+  return sequelize.transaction(async (transaction) => {
+    const spec = await Spec.findOne({ where: { id: specId, organisationId: user.organisationId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!spec || user.role !== "buyer") notFound("No such spec.");
+    if (spec.status === "awarded") throw new FieldErrors({ "": ["This spec has already been awarded."] });
+    if (spec.status !== "open") throw new FieldErrors({ "": ["Only a spec open for bids can be awarded."] });
+    const bid = await Bid.findOne({ where: { id: bidId, specId: spec.id }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!bid || bid.status !== "submitted") throw new FieldErrors({ bidId: ["That bid is not on offer any more; reload the comparison."] });
+    if (bid.validUntil && bid.validUntil < new Date().toISOString().slice(0, 10)) {
+      throw new FieldErrors({ bidId: [`This offer was valid until ${bid.validUntil}. Ask the shop to renew it first.`] });
+    }
+
+    await spec.update({ status: "awarded", revising: false }, { transaction });
+    await bid.update({ status: "won" }, { transaction });
+    const others = await Bid.findAll({ where: { specId: spec.id, id: { [Op.ne]: bid.id }, status: "submitted" }, transaction });
+    await Bid.update({ status: "not_selected" }, { where: { id: others.map((o) => o.id) }, transaction });
+    const job = await openJob(transaction, { spec, bid, awardedBy: user });
+
+    // Everyone who offered hears the outcome; the account manager hears of the new job.
+    const link = `${env().APP_URL}/specs/${spec.id}`;
+    for (const offer of [bid, ...others]) {
+      const won = offer.id === bid.id;
+      const people = await User.findAll({ where: { organisationId: offer.organisationId, active: true }, transaction });
+      for (const person of people) {
+        await enqueueMail(
+          {
+            to: person.email,
+            subject: won ? `Your bid was chosen: ${spec.title}` : `Not chosen this time: ${spec.title}`,
+            text: won
+              ? `Hello ${person.name},\n\nThe buyer has chosen your bid of ${formatMoney(bid.totalCents, bid.currency)} for "${spec.title}". The job is on Tenderflow with its milestones: ${env().APP_URL}/jobs/${job.id}\n\nThe retainer of ${formatMoney(job.retainerCents, job.currency)} is paid by the buyer through the portal.\n`
+              : `Hello ${person.name},\n\nThank you for bidding on "${spec.title}". The buyer has chosen another offer. ${link}\n`,
+          },
+          transaction,
+        );
+      }
+    }
+    const buyer = await Organisation.findByPk(spec.organisationId, { transaction, rejectOnEmpty: true });
+    const manager = buyer.accountManagerId ? await User.findByPk(buyer.accountManagerId, { transaction }) : null;
+    if (manager?.active) {
+      await enqueueMail(
+        {
+          to: manager.email,
+          subject: `New job for ${buyer.name}: ${spec.title}`,
+          text: `Hello ${manager.name},\n\n${buyer.name} has awarded "${spec.title}" (${formatMoney(bid.totalCents, bid.currency)}). Follow it here: ${env().APP_URL}/jobs/${job.id}\n`,
+        },
+        transaction,
+      );
+    }
+    return job;
+  });
+}

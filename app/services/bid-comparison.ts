@@ -1,0 +1,97 @@
+// The buyer's side-by-side view of offered bids, pure so it is tested without a database:
+// lines down (the current bill first, then lines only older revisions had), bids across,
+// the lowest price per line and the cheapest complete offer marked.
+import type { BomLine } from "~/hydraulics";
+import type { BidLine } from "~/models/bid.server";
+import type { BidStatus } from "~/content/bid-status";
+import { lineTotalCents } from "./bid-pricing";
+
+export interface ComparedBid {
+  id: string;
+  shop: string;
+  status: BidStatus;
+  specRevision: number;
+  lines: BidLine[];
+  setTotalCents: number;
+  totalCents: number;
+  leadTimeWeeks: number | null;
+  validUntil: string | null;
+}
+
+export const COMPARISON_SORTS = ["total", "lead", "valid", "shop"] as const;
+export type ComparisonSort = (typeof COMPARISON_SORTS)[number];
+
+export interface ComparisonColumn extends Omit<ComparedBid, "lines"> {
+  /** Made against an earlier revision of the spec than the current one. */
+  olderRevision: boolean;
+  /** Prices every line of the current bill. */
+  complete: boolean;
+  alternatives: number;
+  cheapestComplete: boolean;
+  shortestLead: boolean;
+}
+
+export interface ComparisonCell {
+  unitPriceCents: number;
+  lineTotalCents: number;
+  alternative: boolean;
+  alternativeDescription: string;
+  lowest: boolean;
+}
+
+export interface ComparisonRow {
+  key: string;
+  item: string;
+  quantity: number;
+  specification: string;
+  inCurrentBill: boolean;
+  cells: (ComparisonCell | null)[];
+}
+
+const SORTERS: Record<ComparisonSort, (a: ComparedBid, b: ComparedBid) => number> = {
+  total: (a, b) => a.totalCents - b.totalCents,
+  lead: (a, b) => (a.leadTimeWeeks ?? Infinity) - (b.leadTimeWeeks ?? Infinity),
+  valid: (a, b) => (b.validUntil ?? "").localeCompare(a.validUntil ?? ""),
+  shop: (a, b) => a.shop.localeCompare(b.shop),
+};
+
+export function compareBids(bom: BomLine[], currentRevision: number, bids: ComparedBid[], sort: ComparisonSort = "total") {
+  const ordered = [...bids].sort((a, b) => SORTERS[sort](a, b) || a.totalCents - b.totalCents || a.id.localeCompare(b.id));
+  const priced = ordered.map((bid) => new Map(bid.lines.filter((l) => l.unitPriceCents !== null).map((l) => [l.key, l])));
+
+  const currentKeys = new Set(bom.map((l) => l.key));
+  const extra = new Map<string, BidLine>();
+  for (const bid of ordered) for (const line of bid.lines) if (!currentKeys.has(line.key) && !extra.has(line.key)) extra.set(line.key, line);
+
+  const rows: ComparisonRow[] = [...bom.map((l) => ({ ...l, inCurrentBill: true })), ...[...extra.values()].map((l) => ({ ...l, inCurrentBill: false }))].map(
+    (line) => {
+      const cells = priced.map((lines) => {
+        const l = lines.get(line.key);
+        if (!l) return null;
+        return { unitPriceCents: l.unitPriceCents!, lineTotalCents: lineTotalCents({ quantity: l.quantity, unitPriceCents: l.unitPriceCents! }), alternative: l.alternative, alternativeDescription: l.alternativeDescription, lowest: false };
+      });
+      const present = cells.filter((c): c is ComparisonCell => c !== null);
+      if (present.length > 1) {
+        const min = Math.min(...present.map((c) => c.lineTotalCents));
+        for (const c of present) c.lowest = c.lineTotalCents === min;
+      }
+      return { key: line.key, item: line.item, quantity: line.quantity, specification: line.specification, inCurrentBill: line.inCurrentBill, cells };
+    },
+  );
+
+  const complete = priced.map((lines) => bom.every((l) => lines.has(l.key)));
+  const completeTotals = ordered.filter((_, i) => complete[i]).map((b) => b.totalCents);
+  const cheapest = completeTotals.length ? Math.min(...completeTotals) : null;
+  const leads = ordered.map((b) => b.leadTimeWeeks).filter((w): w is number => w !== null);
+  const shortest = leads.length ? Math.min(...leads) : null;
+
+  const columns: ComparisonColumn[] = ordered.map(({ lines, ...bid }, i) => ({
+    ...bid,
+    olderRevision: bid.specRevision < currentRevision,
+    complete: complete[i],
+    alternatives: lines.filter((l) => l.alternative).length,
+    cheapestComplete: complete[i] && bid.totalCents === cheapest,
+    shortestLead: ordered.length > 1 && bid.leadTimeWeeks !== null && bid.leadTimeWeeks === shortest,
+  }));
+  return { columns, rows, cheapestCompleteId: columns.find((c) => c.cheapestComplete)?.id ?? null };
+}

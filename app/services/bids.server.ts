@@ -1,0 +1,172 @@
+import { Op, QueryTypes, type Transaction } from "sequelize";
+import type { BomLine, Design } from "~/hydraulics";
+import { Bid, BidVersion, Organisation, Spec, SpecRevision, User, sequelize } from "~/models/index.server";
+import type { BidLine, BidOffer } from "~/models/bid.server";
+import type { BidInput } from "~/schemas/bid";
+import { bidTotals, parseMoney } from "./bid-pricing";
+import { FieldErrors, notFound } from "./errors.server";
+import { enqueueMail } from "./mail.server";
+import { env } from "~/env.server";
+
+// A shop's bid on a spec: one per shop organisation, priced line by line against the bill of
+// materials of the spec's current revision. Every submission and withdrawal is kept as a
+// version. Whether a spec still takes bids is decided inside the writing transaction, against
+// the database clock, with the spec row share-locked so an award (which locks it for update)
+// cannot slip in between.
+
+/** The bill of materials of a spec revision (the current one by default). */
+export async function bomOf(spec: Spec, revision = spec.currentRevision, transaction?: Transaction): Promise<BomLine[]> {
+  const row = await SpecRevision.findOne({ where: { specId: spec.id, number: revision }, transaction });
+  return ((row?.axes[0]?.design ?? null) as Design | null)?.bom ?? [];
+}
+
+/** The acting shop's bid on a spec, or null. */
+export async function bidOfShop(user: User, spec: Spec) {
+  return Bid.findOne({ where: { specId: spec.id, organisationId: user.organisationId } });
+}
+
+export const offerOf = (bid: Bid): BidOffer => ({
+  lines: bid.lines,
+  units: bid.units,
+  setTotalCents: bid.setTotalCents,
+  totalCents: bid.totalCents,
+  currency: bid.currency,
+  leadTimeWeeks: bid.leadTimeWeeks,
+  validUntil: bid.validUntil,
+  terms: bid.terms,
+  notes: bid.notes,
+});
+
+/** Locks the spec for sharing and says whether it takes bids right now (database clock). */
+async function lockOpenSpec(specId: string, transaction: Transaction) {
+  const [row] = await sequelize.query<{ status: string; accepting: boolean; deadline: Date }>(
+    `SELECT status, bid_deadline > now() AS accepting, bid_deadline AS deadline FROM specs WHERE id = :specId FOR SHARE`,
+    { replacements: { specId }, transaction, type: QueryTypes.SELECT },
+  );
+  if (!row) notFound("No such spec.");
+  if (row.status !== "open") throw new FieldErrors({ "": ["This spec no longer takes bids."] });
+  if (!row.accepting) throw new FieldErrors({ "": ["The bid deadline has passed; nothing can be changed any more."] });
+  return row;
+}
+
+/** The bid's lines: the revision's bill, in its order, with the shop's prices and alternatives. */
+function priceLines(bom: BomLine[], input: BidInput["lines"]): BidLine[] {
+  const byKey = new Map(input.map((l) => [l.key, l]));
+  const missing = bom.filter((l) => !byKey.has(l.key));
+  if (missing.length) throw new FieldErrors({ "": ["The bill of materials has changed since you opened the form. Reload the page to price the current bill."] });
+  return bom.map((line) => {
+    const typed = byKey.get(line.key)!;
+    return {
+      key: line.key,
+      item: line.item,
+      quantity: line.quantity,
+      specification: line.specification,
+      unitPriceCents: typed.unitPrice ? parseMoney(typed.unitPrice) : null,
+      alternative: Boolean(typed.alternative),
+      alternativeDescription: typed.alternative ? (typed.alternativeDescription ?? "") : "",
+    };
+  });
+}
+
+/**
+ * Saves a draft or submits the offer (a new version each time), before the deadline only.
+ * Submitting prices the current revision's bill, so a bid made on an older revision is
+ * brought up to date by submitting it again.
+ */
+export async function saveBid(user: User, spec: Spec, input: BidInput): Promise<Bid> {
+  const submitting = input.intent === "submit";
+  const bid = await sequelize.transaction(async (transaction) => {
+    const locked = await lockOpenSpec(spec.id, transaction);
+    const fresh = await Spec.findByPk(spec.id, { transaction, rejectOnEmpty: true });
+    if (input.validUntil && input.validUntil < locked.deadline.toISOString().slice(0, 10)) {
+      throw new FieldErrors({ validUntil: [`Keep the offer valid at least until the bid deadline (${locked.deadline.toISOString().slice(0, 10)}), so the buyer can award it.`] });
+    }
+    const lines = priceLines(await bomOf(fresh, fresh.currentRevision, transaction), input.lines);
+    const units = fresh.unitsWanted ?? 1;
+    const totals = bidTotals(lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })), units);
+
+    // One row per shop and spec: created on the first save, whoever of the shop's people races.
+    await Bid.bulkCreate(
+      [{ specId: spec.id, organisationId: user.organisationId, createdById: user.id, specRevision: fresh.currentRevision, currency: fresh.currency, leadTimeWeeks: null, validUntil: null, submittedAt: null }],
+      { ignoreDuplicates: true, transaction },
+    );
+    const row = await Bid.findOne({ where: { specId: spec.id, organisationId: user.organisationId }, lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+    if (!submitting && row.status === "submitted") {
+      throw new FieldErrors({ "": ["This bid is already offered. Submit the changes as a revised offer, or take it back first."] });
+    }
+    if (row.status === "won" || row.status === "not_selected") throw new FieldErrors({ "": ["The spec has been awarded."] });
+    await row.update(
+      {
+        status: submitting ? "submitted" : "draft",
+        lines,
+        units,
+        currency: fresh.currency,
+        specRevision: fresh.currentRevision,
+        ...totals,
+        leadTimeWeeks: input.leadTimeWeeks ?? null,
+        validUntil: input.validUntil ?? null,
+        terms: input.terms ?? "",
+        notes: input.notes ?? "",
+        ...(submitting ? { version: row.version + 1, submittedAt: new Date() } : {}),
+      },
+      { transaction },
+    );
+    if (submitting) {
+      await BidVersion.create({ bidId: row.id, version: row.version, event: "submitted", specRevision: row.specRevision, offer: offerOf(row), createdById: user.id }, { transaction });
+      const author = await User.findByPk(fresh.createdById, { transaction });
+      const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
+      if (author?.active) {
+        await enqueueMail(
+          {
+            to: author.email,
+            subject: `${row.version > 1 ? "Revised bid" : "New bid"} on ${fresh.title}`,
+            text: `Hello ${author.name},\n\n${shop.name} has ${row.version > 1 ? `revised its bid (version ${row.version})` : "sent a bid"} on "${fresh.title}". Compare the bids side by side: ${env().APP_URL}/specs/${fresh.id}/bids\n`,
+          },
+          transaction,
+        );
+      }
+    }
+    return row;
+  });
+  return bid;
+}
+
+/** Takes a submitted offer back, before the deadline; the shop may offer again later. */
+export async function withdrawBid(user: User, spec: Spec) {
+  await sequelize.transaction(async (transaction) => {
+    await lockOpenSpec(spec.id, transaction);
+    const bid = await Bid.findOne({ where: { specId: spec.id, organisationId: user.organisationId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!bid || bid.status !== "submitted") throw new FieldErrors({ "": ["Only an offered bid can be taken back."] });
+    await bid.update({ status: "withdrawn" }, { transaction });
+    await BidVersion.create({ bidId: bid.id, version: bid.version, event: "withdrawn", specRevision: bid.specRevision, offer: offerOf(bid), createdById: user.id }, { transaction });
+  });
+}
+
+/** Every submission and withdrawal of a bid, newest first, with who made it. */
+export async function historyOf(bid: Bid) {
+  return BidVersion.findAll({
+    where: { bidId: bid.id },
+    include: [{ model: User, as: "createdBy", attributes: ["name"] }],
+    order: [["createdAt", "DESC"], ["version", "DESC"]],
+  });
+}
+
+/** Bids the buyer compares: every one offered (or decided), never drafts or taken-back ones. */
+export async function offeredBids(user: User, spec: Spec) {
+  if (spec.organisationId !== user.organisationId) notFound("No such spec.");
+  return Bid.findAll({
+    where: { specId: spec.id, status: { [Op.in]: ["submitted", "won", "not_selected"] } },
+    include: [{ model: Organisation, as: "organisation", attributes: ["name", "region"] }],
+    order: [["totalCents", "ASC"], ["id", "ASC"]],
+  });
+}
+
+/** How many offers a buyer's specs have, for their list. */
+export async function offerCounts(specIds: string[]) {
+  if (!specIds.length) return new Map<string, number>();
+  const rows = await sequelize.query<{ spec_id: string; count: number }>(
+    `SELECT spec_id, count(*)::int AS count FROM bids WHERE spec_id IN (:specIds) AND status IN ('submitted', 'won', 'not_selected') GROUP BY spec_id`,
+    { replacements: { specIds }, type: QueryTypes.SELECT },
+  );
+  return new Map(rows.map((r) => [r.spec_id, r.count]));
+}

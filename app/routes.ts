@@ -18,6 +18,8 @@ export default [
   route("specs/:specId/edit/:step", "routes/spec-step.tsx"),
   route("specs/:specId/delete", "routes/spec-delete.tsx"),
   route("specs/:specId/revise", "routes/spec-revise.tsx"),
+  route("specs/:specId/questions", "routes/spec-questions.tsx"),
+  route("specs/:specId/questions/:questionId/answer", "routes/spec-question-answer.tsx"),
   route("open-specs", "routes/open-specs.tsx"),
   route("settings", "routes/settings.tsx"),
   route("team", "routes/team.tsx"),

@@ -5,12 +5,25 @@ import { DesignReport } from "~/components/design-report";
 import { Badge, Button, Notice, PageHeader } from "~/components/ui";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, type SpecStatus } from "~/content/spec-status";
 import type { Design } from "~/hydraulics";
+import { QuotationPanel } from "~/components/quotation-facts";
+import { QuestionsPanel } from "~/components/questions-panel";
+import { quotationFacts } from "~/content/quotation-facts";
+import { listAttachments } from "~/services/attachments.server";
+import { questionsFor } from "~/services/questions.server";
 import { specForReader } from "~/services/spec-access.server";
 import { revisionsOf } from "~/services/specs.server";
 import type { UnitSystem } from "~/units";
 
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.title ?? "Spec"} · Tenderflow` }];
+
+/** Where "back" leads: the list the reader came from. */
+function backLinkFor(user: { role: string; organisationId: string }, spec: { organisationId: string }) {
+  if (user.role === "buyer" && spec.organisationId === user.organisationId) return { to: "/specs", label: "My specs" };
+  if (user.role === "account_manager") return { to: `/accounts/${spec.organisationId}`, label: "The account" };
+  if (user.role === "admin") return { to: "/admin/organisations", label: "Organisations" };
+  return { to: "/open-specs", label: "Open specs" };
+}
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
@@ -19,6 +32,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Earlier revisions stay viewable: ?revision=N, the newest by default.
   const asked = Number(new URL(request.url).searchParams.get("revision"));
   const current = revisions.find((r) => r.number === asked) ?? revisions[0];
+  // Files, quotation facts and questions: for every reader of a published spec.
+  const [attachments, questions] = await Promise.all([listAttachments(user, spec.id), spec.status === "draft" ? null : questionsFor(user, spec)]);
   return {
     id: spec.id,
     title: spec.title,
@@ -33,6 +48,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     revising: spec.revising,
     design: (current?.axes[0]?.design ?? null) as Design | null,
     unitSystem: (user.unitSystem ?? "metric") as UnitSystem,
+    quotation: current ? quotationFacts(current.answers) : null,
+    attachments,
+    questions,
+    back: backLinkFor(user, spec),
   };
 }
 
@@ -41,7 +60,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
   return (
     <>
       <p className="mb-2 text-sm">
-        <Link to={d.isOwner ? "/specs" : "/open-specs"} className="text-flow-700 hover:underline">← {d.isOwner ? "My specs" : "Open specs"}</Link>
+        <Link to={d.back.to} className="text-flow-700 hover:underline">← {d.back.label}</Link>
       </p>
       <PageHeader
         title={d.title || "Untitled draft"}
@@ -97,6 +116,11 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
           <Notice tone="warn">You are looking at revision {d.revision.number}; revision {d.latestRevision} is the current one.</Notice>
         </div>
       ) : null}
+      {d.quotation ? (
+        <div className="mb-6">
+          <QuotationPanel facts={d.quotation} attachments={d.attachments} />
+        </div>
+      ) : null}
       {d.design ? (
         <div className="space-y-6">
           <DesignReport design={d.design} units={d.unitSystem} componentsTitle="Bill of materials" />
@@ -104,6 +128,11 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
       ) : (
         <Notice>This draft has not been published yet, so it has no frozen design.</Notice>
       )}
+      {d.questions ? (
+        <div className="mt-6">
+          <QuestionsPanel specId={d.id} panel={d.questions} />
+        </div>
+      ) : null}
     </>
   );
 }

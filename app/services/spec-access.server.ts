@@ -1,9 +1,10 @@
-import { Spec } from "~/models/index.server";
+import { Organisation, Spec } from "~/models/index.server";
 import type { User } from "~/models/index.server";
 import { notFound, requireId } from "./errors.server";
 
 // Who may see a spec, in one place: its own buyer organisation always; shops once it has been
-// published; account managers for the buyer accounts they follow. Anyone else gets a 404.
+// published; account managers every spec of the buyer accounts assigned to them; admins any
+// published spec. Anyone else gets a 404.
 
 export const PUBLISHED_STATUSES = ["open", "closed", "awarded"] as const;
 
@@ -14,11 +15,23 @@ export async function specOfOwner(user: User, specId: string | undefined): Promi
   return spec;
 }
 
-/** A spec the user may read: their own, or a published one for shops. */
+export const isPublished = (spec: Pick<Spec, "status">) => (PUBLISHED_STATUSES as readonly string[]).includes(spec.status);
+
+/**
+ * A spec the user may read: a buyer their own organisation's (drafts too); a shop a published
+ * one; an account manager any spec of a buyer account assigned to them
+ * (organisations.account_manager_id); an admin a published one. Anything else is a 404.
+ */
 export async function specForReader(user: User, specId: string | undefined): Promise<Spec> {
-  const spec = await Spec.findByPk(requireId(specId));
+  const spec = await Spec.findByPk(requireId(specId), {
+    include: user.role === "account_manager" ? [{ model: Organisation, as: "organisation", attributes: ["id", "accountManagerId"] }] : [],
+  });
   if (!spec) notFound("No such spec.");
   if (user.role === "buyer" && spec.organisationId === user.organisationId) return spec;
-  if (user.role === "shop" && (PUBLISHED_STATUSES as readonly string[]).includes(spec.status)) return spec;
+  if ((user.role === "shop" || user.role === "admin") && isPublished(spec)) return spec;
+  if (user.role === "account_manager") {
+    const account = (spec as Spec & { organisation?: Organisation }).organisation;
+    if (account && account.accountManagerId === user.id) return spec;
+  }
   notFound("No such spec.");
 }

@@ -1,0 +1,47 @@
+import type { AttachmentView } from "~/services/attachments.server";
+import type { QuotationFacts } from "~/content/quotation-facts";
+import { formatBytes } from "./attachment-uploader";
+import { Card } from "./ui";
+
+const longDate = (iso: string) => new Date(`${iso}T00:00:00Z`).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+
+/** What the buyer asks to be quoted, and the drawings and photos that come with the spec. */
+export function QuotationPanel({ facts, attachments }: { facts: QuotationFacts; attachments: AttachmentView[] }) {
+  const rows: [string, string | null][] = [
+    ["Units wanted", facts.unitsWanted],
+    ["Needed by", facts.dateNeeded ? longDate(facts.dateNeeded) : null],
+    ["Delivered to", facts.deliveryRegion],
+    ["Bids are priced in", facts.currency],
+    ["Retainer paid on award", facts.retainerPercent ? `${facts.retainerPercent} % of the awarded price` : null],
+  ];
+  return (
+    <Card>
+      <h2 className="mb-3 font-semibold">What to quote</h2>
+      <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[14rem_1fr]">
+        {rows.map(([label, value]) => (
+          <div key={label} className="contents">
+            <dt className="text-ink-600">{label}</dt>
+            <dd className="font-semibold">{value ?? "—"}</dd>
+          </div>
+        ))}
+        <dt className="text-ink-600">Notes from the machine builder</dt>
+        <dd className="whitespace-pre-line">{facts.notes ?? <span className="text-ink-600">None.</span>}</dd>
+      </dl>
+      <h3 className="mb-2 mt-6 font-semibold">Drawings and photos</h3>
+      {attachments.length ? (
+        <ul className="space-y-1 text-sm">
+          {attachments.map((a) => (
+            <li key={a.id}>
+              <a className="font-semibold text-flow-700 hover:underline" href={a.downloadUrl} download>
+                {a.fileName}
+              </a>{" "}
+              <span className="text-ink-600">· {a.kindLabel} · {formatBytes(a.sizeBytes)}</span>
+            </li>
+          ))}
+        </ul>
+      ) : (
+        <p className="text-sm text-ink-600">The machine builder attached no drawings or photos.</p>
+      )}
+    </Card>
+  );
+}

@@ -1,0 +1,35 @@
+import { parseWithZod } from "@conform-to/zod/v4";
+import { data, redirect } from "react-router";
+import type { Route } from "./+types/spec-question-answer";
+import { requireRole } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { answerSchema } from "~/schemas/questions";
+import { FieldErrors, requireId } from "~/services/errors.server";
+import { answerQuestion } from "~/services/questions.server";
+import { specOfOwner } from "~/services/spec-access.server";
+
+// The buyer answers a shop's question on their own spec, or changes the answer.
+
+export function loader({ params }: Route.LoaderArgs) {
+  return redirect(`/specs/${requireId(params.specId)}#questions`);
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requireRole(request, ["buyer"]);
+  const spec = await specOfOwner(user, params.specId);
+  const questionId = requireId(params.questionId);
+  const submission = parseWithZod(await request.formData(), { schema: answerSchema });
+  if (submission.status !== "success") return data(submission.reply(), { status: 400 });
+  try {
+    const { edited, told } = await answerQuestion(user, spec.id, questionId, submission.value.answer);
+    const people = told === 1 ? "1 person at the shops was" : `${told} people at the shops were`;
+    return redirectWithToast(
+      request,
+      `/specs/${spec.id}#questions`,
+      `${edited ? "Answer changed" : "Answer published"}: every shop reading the spec sees it, and ${people} e-mailed.`,
+    );
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return data(submission.reply({ fieldErrors: error.fieldErrors }), { status: 400 });
+  }
+}

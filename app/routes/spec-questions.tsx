@@ -1,0 +1,33 @@
+import { parseWithZod } from "@conform-to/zod/v4";
+import { data, redirect } from "react-router";
+import type { Route } from "./+types/spec-questions";
+import { requireRole } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { questionSchema } from "~/schemas/questions";
+import { FieldErrors, requireId } from "~/services/errors.server";
+import { askQuestion } from "~/services/questions.server";
+import { specForReader } from "~/services/spec-access.server";
+
+// A shop asks the machine builder a question on a spec open for bids.
+
+export function loader({ params }: Route.LoaderArgs) {
+  return redirect(`/specs/${requireId(params.specId)}#questions`);
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requireRole(request, ["shop"]);
+  const spec = await specForReader(user, params.specId);
+  const submission = parseWithZod(await request.formData(), { schema: questionSchema });
+  if (submission.status !== "success") return data(submission.reply(), { status: 400 });
+  try {
+    await askQuestion(user, spec.id, submission.value.body);
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return data(submission.reply({ fieldErrors: error.fieldErrors }), { status: 400 });
+  }
+  return redirectWithToast(
+    request,
+    `/specs/${spec.id}#questions`,
+    "Question sent. The machine builder has been e-mailed, and you will get an e-mail when it is answered.",
+  );
+}

@@ -1,0 +1,171 @@
+import { Op, type Transaction } from "sequelize";
+import { env } from "~/env.server";
+import { Bid, Organisation, Spec, SpecQuestion, User, sequelize } from "~/models/index.server";
+import { FieldErrors, notFound, requireId } from "./errors.server";
+import { enqueueMail } from "./mail.server";
+import { specForReader, specOfOwner } from "./spec-access.server";
+
+// Shops' questions on a spec and the buyer's answers.
+//
+// Who sees what: the buyer sees every question with the asking shop's name; a shop sees every
+// answered question and its own unanswered ones, never another shop's name; operator staff who
+// may read the spec (its account manager, admins) see every question, read only, without names.
+// Shops ask while the spec is open for bids (status open, deadline ahead); the buyer answers, or
+// edits an answer, while the spec is open.
+
+export interface QuestionView {
+  id: string;
+  body: string;
+  askedAt: string;
+  /** Who asked, as this reader may know it: the shop's name (buyer only), "Your question", or "A shop asked". */
+  askedBy: string;
+  isOwn: boolean;
+  answer: string | null;
+  /** When the answer was given or last changed. */
+  answeredAt: string | null;
+}
+
+export interface QuestionsPanel {
+  questions: QuestionView[];
+  /** This reader may ask a question now. */
+  canAsk: boolean;
+  /** This reader may answer (or change answers) now. */
+  canAnswer: boolean;
+  /** The reader is the buyer: the panel says that answers are shown to every shop. */
+  isBuyer: boolean;
+  /** Why questions are closed, when they are. */
+  closedNote: string | null;
+}
+
+const dateText = (d: Date) => d.toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+
+/** Open for questions: open for bids, deadline still ahead. */
+export const takesQuestions = (spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()) =>
+  spec.status === "open" && !!spec.bidDeadline && spec.bidDeadline > now;
+
+function closedNote(spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()): string | null {
+  if (takesQuestions(spec, now)) return null;
+  if (spec.status === "open" && spec.bidDeadline) {
+    return `Bidding closed on ${dateText(spec.bidDeadline)}, so this spec takes no new questions.`;
+  }
+  return "This spec is no longer open for bids, so it takes no new questions.";
+}
+
+const specLink = (specId: string) => `${env().APP_URL}/specs/${specId}#questions`;
+
+/** The questions panel of a spec the user may read (the spec comes from `specForReader`). */
+export async function questionsFor(user: User, spec: Spec, now = new Date()): Promise<QuestionsPanel> {
+  const isBuyer = user.role === "buyer" && spec.organisationId === user.organisationId;
+  if (user.role === "buyer" && !isBuyer) notFound("No such spec.");
+  const where =
+    user.role === "shop"
+      ? { specId: spec.id, [Op.or]: [{ answer: { [Op.ne]: null } }, { organisationId: user.organisationId }] }
+      : { specId: spec.id };
+  const rows = await SpecQuestion.findAll({
+    where,
+    include: isBuyer ? [{ model: Organisation, as: "organisation", attributes: ["name"] }] : [],
+    order: [["createdAt", "ASC"], ["id", "ASC"]],
+  });
+  const questions = rows.map((q): QuestionView => {
+    const isOwn = user.role === "shop" && q.organisationId === user.organisationId;
+    const name = (q as SpecQuestion & { organisation?: Organisation }).organisation?.name;
+    return {
+      id: q.id,
+      body: q.body,
+      askedAt: q.createdAt.toISOString(),
+      askedBy: isBuyer ? `${name ?? "A shop"} asked` : isOwn ? "Your question" : "A shop asked",
+      isOwn,
+      answer: q.answer,
+      answeredAt: q.answeredAt?.toISOString() ?? null,
+    };
+  });
+  return {
+    questions,
+    canAsk: user.role === "shop" && takesQuestions(spec, now),
+    canAnswer: isBuyer && spec.status === "open",
+    isBuyer,
+    closedNote: closedNote(spec, now),
+  };
+}
+
+const lockSpec = (specId: string, transaction: Transaction) =>
+  Spec.findByPk(specId, { lock: transaction.LOCK.SHARE, transaction, rejectOnEmpty: true });
+
+/**
+ * A shop asks a question on a spec open for bids. The buyer organisation's active users are
+ * e-mailed in the same transaction.
+ */
+export async function askQuestion(user: User, specId: string | undefined, body: string): Promise<SpecQuestion> {
+  if (user.role !== "shop") notFound("No such spec.");
+  const spec = await specForReader(user, specId);
+  return sequelize.transaction(async (transaction) => {
+    // A share lock: closing or awarding the spec waits until this question is in, or the other way round.
+    const locked = await lockSpec(spec.id, transaction);
+    const closed = closedNote(locked);
+    if (closed) throw new FieldErrors({ body: [closed] });
+    const question = await SpecQuestion.create(
+      { specId: locked.id, organisationId: user.organisationId, askedById: user.id, body, answer: null, answeredById: null, answeredAt: null },
+      { transaction },
+    );
+    const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
+    const buyers = await User.findAll({ where: { organisationId: locked.organisationId, role: "buyer", active: true }, transaction });
+    for (const buyer of buyers) {
+      await enqueueMail(
+        {
+          to: buyer.email,
+          subject: `New question on your spec: ${locked.title}`,
+          text:
+            `Hello ${buyer.name},\n\n${shop.name} asked a question about "${locked.title}":\n\n${body}\n\n` +
+            `Your answer will be shown to every shop that reads the spec, without the name of the shop that asked. ` +
+            `Answer it here: ${specLink(locked.id)}\n`,
+        },
+        transaction,
+      );
+    }
+    return question;
+  });
+}
+
+/**
+ * The buyer answers a question on their own spec while it is open, or changes the answer. The
+ * asker and the active users of every shop with a bid on the spec (any status) are e-mailed.
+ * Returns how many people were told.
+ */
+export async function answerQuestion(user: User, specId: string | undefined, questionId: string | undefined, answer: string) {
+  const spec = await specOfOwner(user, specId);
+  const id = requireId(questionId);
+  return sequelize.transaction(async (transaction) => {
+    const locked = await lockSpec(spec.id, transaction);
+    const question = await SpecQuestion.findOne({ where: { id, specId: locked.id }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!question) notFound("No such question.");
+    if (locked.status !== "open") throw new FieldErrors({ answer: ["This spec is no longer open, so its questions can no longer be answered."] });
+    const edited = question.answer !== null;
+    await question.update({ answer, answeredById: user.id, answeredAt: new Date() }, { transaction });
+
+    const bidders = await Bid.findAll({ where: { specId: locked.id }, attributes: ["organisationId"], transaction });
+    const recipients = await User.findAll({
+      where: {
+        active: true,
+        role: "shop",
+        [Op.or]: [{ id: question.askedById }, { organisationId: bidders.map((b) => b.organisationId) }],
+      },
+      order: [["email", "ASC"]],
+      transaction,
+    });
+    for (const person of recipients) {
+      const isAsker = person.id === question.askedById;
+      const what = isAsker ? "your question" : "a question from a shop";
+      await enqueueMail(
+        {
+          to: person.email,
+          subject: `${edited ? "Answer updated" : "Question answered"}: ${locked.title}`,
+          text:
+            `Hello ${person.name},\n\nThe machine builder ${edited ? "changed the answer to" : "answered"} ${what} on "${locked.title}".\n\n` +
+            `Question:\n${question.body}\n\nAnswer:\n${answer}\n\nEvery question and answer on the spec: ${specLink(locked.id)}\n`,
+        },
+        transaction,
+      );
+    }
+    return { question, edited, told: recipients.length };
+  });
+}

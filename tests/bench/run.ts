@@ -1,6 +1,7 @@
-// `npm run bench`: how fast the engine sizes designs, and what the sizing API adds over a bare
-// JSON route on the same server. Prints figures and ratios measured in this run; asserts nothing
-// (targets belong here, not in timed tests that fail on a slow machine).
+// `npm run bench`: how fast the engine sizes designs, what the sizing API adds over a bare
+// JSON route on the same server, and how the open-specs table's queries fare at 100 000 specs.
+// Prints figures and ratios measured in this run; asserts nothing (targets belong here, not in
+// timed tests that fail on a slow machine).
 import { mkdtempSync, rmSync, chmodSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -34,6 +35,11 @@ async function timeRequests(label: string, count: number, send: (i: number) => P
   const p50 = percentile(times, 50);
   console.log(`${label.padEnd(28)} p50 ${p50.toFixed(2)} ms   p95 ${percentile(times, 95).toFixed(2)} ms   (${count} sequential requests)`);
   return p50;
+}
+
+async function openSpecs() {
+  console.log("\n== Open-specs table at 100 000 specs (indexes vs a sequential-scan baseline) ==");
+  await run("node_modules/.bin/tsx", ["tests/bench/open-specs.bench.ts"]);
 }
 
 async function api() {
@@ -80,3 +86,4 @@ async function api() {
 
 await engine();
 await api();
+await openSpecs();

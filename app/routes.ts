@@ -26,6 +26,8 @@ export default [
   route("team/invitations/:invitationId/revoke", "routes/team.revoke-invitation.tsx"),
   route("accounts", "routes/accounts.tsx"),
   route("accounts/:organisationId", "routes/account.tsx"),
+  route("jobs", "routes/jobs.tsx"),
+  route("jobs/:jobId", "routes/job.tsx"),
   ...prefix("api/v1", [
     route("sizing", "routes/api.v1.sizing.ts"),
     route("health", "routes/api.v1.health.ts"),

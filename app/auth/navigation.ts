@@ -9,16 +9,22 @@ export interface NavItem {
 export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
   buyer: [
     { to: "/specs", label: "My specs" },
+    { to: "/jobs", label: "Jobs" },
     { to: "/team", label: "Team" },
   ],
   shop: [
     { to: "/open-specs", label: "Open specs" },
+    { to: "/jobs", label: "Jobs" },
     { to: "/team", label: "Team" },
   ],
-  account_manager: [{ to: "/accounts", label: "My accounts" }],
+  account_manager: [
+    { to: "/accounts", label: "My accounts" },
+    { to: "/jobs", label: "Jobs" },
+  ],
   admin: [
     { to: "/admin/users", label: "Users" },
     { to: "/admin/organisations", label: "Organisations" },
+    { to: "/jobs", label: "Jobs" },
     { to: "/team", label: "Operator team" },
   ],
 };

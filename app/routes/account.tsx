@@ -4,6 +4,9 @@ import { requireRole } from "~/auth/permissions.server";
 import { ACCOUNT_ROLES } from "~/auth/roles";
 import { Badge, Card, PageHeader } from "~/components/ui";
 import { accountOf } from "~/services/admin.server";
+import { listJobs } from "~/services/jobs.server";
+import { JOB_STAGE_LABELS } from "~/content/job-milestones";
+import { formatDay } from "~/content/job-dates";
 import { requireId } from "~/services/errors.server";
 import type { User } from "~/models/index.server";
 
@@ -19,7 +22,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     active: u.active,
     lastSignInAt: u.lastSignInAt?.toISOString() ?? null,
   }));
-  return { name: organisation.name, region: organisation.region, users };
+  const jobs = await listJobs(viewer, { account: organisation.id }, { limit: 5 });
+  return { id: organisation.id, name: organisation.name, region: organisation.region, users, jobs: jobs.jobs, jobCount: jobs.total };
 }
 
 export default function Account({ loaderData }: Route.ComponentProps) {
@@ -31,6 +35,34 @@ export default function Account({ loaderData }: Route.ComponentProps) {
         </Link>
       </p>
       <PageHeader title={loaderData.name} lead={loaderData.region ? `Machine builder · ${loaderData.region}` : "Machine builder"} />
+      <Card className="mb-6">
+        <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
+          <h2 className="font-semibold">Jobs</h2>
+          {loaderData.jobCount > 0 ? (
+            <Link to={`/jobs?account=${loaderData.id}`} className="text-sm text-flow-700 hover:underline">
+              All {loaderData.jobCount} job{loaderData.jobCount === 1 ? "" : "s"} of this account →
+            </Link>
+          ) : null}
+        </div>
+        {loaderData.jobs.length === 0 ? (
+          <p className="text-sm text-ink-600">No awarded job yet. Jobs appear here when this account awards a bid.</p>
+        ) : (
+          <ul className="divide-y divide-ink-100 text-sm">
+            {loaderData.jobs.map((j) => (
+              <li key={j.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                <Link to={`/jobs/${j.id}`} className="font-semibold text-flow-700 hover:underline">
+                  {j.specTitle || "Untitled spec"}
+                </Link>
+                <span className="flex flex-wrap items-center gap-2 text-ink-600">
+                  {JOB_STAGE_LABELS[j.stage]} · {j.shopName}
+                  {j.next?.targetDate ? ` · next: ${j.next.label} by ${formatDay(j.next.targetDate)}` : ""}
+                  {j.overdue ? <Badge tone="bad">Overdue</Badge> : null}
+                </span>
+              </li>
+            ))}
+          </ul>
+        )}
+      </Card>
       <Card>
         <h2 className="mb-3 font-semibold">People</h2>
         <table className="w-full text-left text-sm">

@@ -1,0 +1,399 @@
+import { getFormProps, getTextareaProps, useForm, type FieldMetadata, type SubmissionResult } from "@conform-to/react";
+import { parseWithZod } from "@conform-to/zod/v4";
+import { Form, Link, data, useNavigation } from "react-router";
+import type { Route } from "./+types/job";
+import { requireUser } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { FieldErrors as FieldErrorText, FormErrors, SelectField, TextField } from "~/components/form-field";
+import { Badge, Button, ButtonLink, Card, PageHeader } from "~/components/ui";
+import { formatMoney } from "~/content/currencies";
+import { formatDay, formatMoment } from "~/content/job-dates";
+import { JOB_STAGE_LABELS, MILESTONE_LABELS, type MilestoneKey } from "~/content/job-milestones";
+import {
+  jobActionSchema,
+  managerNoteSchema,
+  progressNoteSchema,
+  reachSchema,
+  targetSchema,
+  undoSchema,
+  type JobActionIntent,
+} from "~/schemas/jobs";
+import { FieldErrors } from "~/services/errors.server";
+import {
+  addManagerNote,
+  addProgressNote,
+  changeTargetDate,
+  jobFor,
+  reachMilestones,
+  scopedJob,
+  undoLastMilestone,
+  type JobEventView,
+} from "~/services/jobs.server";
+import { deliverDueMail } from "~/services/mail.server";
+
+export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.job.specTitle || "Job"} · Tenderflow` }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  return { job: await jobFor(user, params.jobId) };
+}
+
+type ActionResult = { intent: JobActionIntent | null; result: SubmissionResult<string[]> };
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requireUser(request);
+  // Someone else's job, or a forged id, is "not found" whatever the form says.
+  const job = await scopedJob(user, params.jobId);
+  const formData = await request.formData();
+  const submission = parseWithZod(formData, { schema: jobActionSchema });
+  const intent = (jobActionSchema.options.map((o) => o.shape.intent.value) as string[]).includes(String(formData.get("intent")))
+    ? (formData.get("intent") as JobActionIntent)
+    : null;
+  if (submission.status !== "success") return data<ActionResult>({ intent, result: submission.reply() }, { status: 400 });
+  const back = `/jobs/${job.id}`;
+  const change = submission.value;
+  try {
+    switch (change.intent) {
+      case "reach": {
+        const reached = await reachMilestones(user, job.id, change);
+        // Hand the mail to the sender now rather than at its next poll; a failure stays queued.
+        await deliverDueMail().catch(() => 0);
+        return redirectWithToast(request, back, `Recorded as reached: ${reached.map((k) => MILESTONE_LABELS[k]).join(", ")}. Buyer and shop have been e-mailed.`);
+      }
+      case "undo": {
+        const undone = await undoLastMilestone(user, job.id, change);
+        return redirectWithToast(request, back, `${MILESTONE_LABELS[undone]} is no longer marked as reached.`);
+      }
+      case "target": {
+        const moved = await changeTargetDate(user, job.id, change);
+        return redirectWithToast(request, back, `${MILESTONE_LABELS[moved]} is now planned for ${formatDay(change.targetDate)}.`);
+      }
+      case "progress-note":
+        await addProgressNote(user, job.id, change.body);
+        return redirectWithToast(request, back, "Your note is in the job's history.");
+      case "manager-note":
+        await addManagerNote(user, job.id, change.body);
+        return redirectWithToast(request, back, "Internal note saved. Buyer and shop do not see it.");
+    }
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return data<ActionResult>({ intent: change.intent, result: submission.reply({ fieldErrors: error.fieldErrors }) }, { status: 400 });
+  }
+}
+
+type Job = Route.ComponentProps["loaderData"]["job"];
+
+export default function JobPage({ loaderData, actionData }: Route.ComponentProps) {
+  const { job } = loaderData;
+  const result = (intent: JobActionIntent) => (actionData?.intent === intent ? actionData.result : undefined);
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link to="/jobs" className="text-flow-700 hover:underline">
+          ← Jobs
+        </Link>
+      </p>
+      <PageHeader
+        title={job.specTitle || "Untitled spec"}
+        lead={
+          <span className="flex flex-wrap items-center gap-2">
+            <Badge tone={job.overdue ? "bad" : "neutral"}>{job.overdue ? "Overdue" : JOB_STAGE_LABELS[job.stage]}</Badge>
+            <span>
+              For {job.buyerName} · built by {job.shopName} · awarded {formatDay(job.awardedAt.slice(0, 10))} ({job.daysSinceAward} day
+              {job.daysSinceAward === 1 ? "" : "s"} ago)
+            </span>
+          </span>
+        }
+        actions={
+          job.canOpenSpec ? (
+            <ButtonLink to={`/specs/${job.specId}`} tone="secondary">
+              Open the spec
+            </ButtonLink>
+          ) : null
+        }
+      />
+      {actionData && actionData.intent === null ? (
+        <div className="mb-4">
+          <FormErrors errors={["That change was not understood. Reload the page and try again."]} />
+        </div>
+      ) : null}
+      <div className="grid gap-6 lg:grid-cols-3">
+        <div className="space-y-6 lg:col-span-2">
+          <Facts job={job} />
+          <Timeline job={job} />
+          <History job={job} />
+        </div>
+        <div className="space-y-6">
+          {job.canRecordProgress ? (
+            <>
+              {job.open.length ? <ReachForm job={job} lastResult={result("reach")} /> : null}
+              {job.open.length ? <TargetForm job={job} lastResult={result("target")} /> : null}
+              <ProgressNoteForm lastResult={result("progress-note")} />
+              {job.lastReached ? <UndoForm last={job.lastReached} lastResult={result("undo")} /> : null}
+            </>
+          ) : null}
+          {job.canWriteManagerNote ? <ManagerNoteForm lastResult={result("manager-note")} /> : null}
+        </div>
+      </div>
+    </>
+  );
+}
+
+function Facts({ job }: { job: Job }) {
+  const facts = [
+    { label: "Total", value: formatMoney(job.totalCents, job.currency) },
+    {
+      label: `Retainer (${Number(job.retainerPercent)} %)`,
+      value: (
+        <>
+          {formatMoney(job.retainerCents, job.currency)}{" "}
+          {job.retainerPaidAt ? <Badge tone="good">Paid {formatDay(job.retainerPaidAt.slice(0, 10))}</Badge> : <Badge tone="warn">Not paid yet</Badge>}
+        </>
+      ),
+    },
+    { label: "Stage", value: JOB_STAGE_LABELS[job.stage] },
+    { label: "Lead time", value: job.leadTimeWeeks ? `${job.leadTimeWeeks} weeks` : "—" },
+  ];
+  return (
+    <Card>
+      <dl className="grid gap-4 sm:grid-cols-2">
+        {facts.map((f) => (
+          <div key={f.label}>
+            <dt className="text-sm text-ink-600">{f.label}</dt>
+            <dd className="font-semibold">{f.value}</dd>
+          </div>
+        ))}
+      </dl>
+    </Card>
+  );
+}
+
+function Timeline({ job }: { job: Job }) {
+  return (
+    <Card>
+      <h2 className="mb-4 font-semibold">Milestones</h2>
+      <ol className="space-y-4">
+        {job.milestones.map((m) => (
+          <li key={m.key} className="flex gap-3">
+            <span
+              aria-hidden="true"
+              className={`mt-1 h-3 w-3 shrink-0 rounded-full ${m.reachedAt ? "bg-flow-600" : m.overdue ? "bg-alarm-600" : "bg-ink-200"}`}
+            />
+            <div className="flex-1">
+              <p className="flex flex-wrap items-center gap-2 font-semibold">
+                {m.label}
+                {m.reachedAt ? <Badge tone="good">Reached</Badge> : m.overdue ? <Badge tone="bad">Overdue</Badge> : null}
+              </p>
+              <p className="text-sm text-ink-600">{m.hint}</p>
+              <p className="mt-1 text-sm">
+                Target: {m.targetDate ? formatDay(m.targetDate) : "not set"}
+                {m.reachedAt ? ` · reached ${formatMoment(m.reachedAt)}${m.reachedBy ? ` by ${m.reachedBy}` : ""}` : ""}
+              </p>
+              {m.recordedByPayment && !m.reachedAt ? (
+                <p className="text-xs text-ink-600">Recorded when the buyer's payment arrives; the workshop does not wait for it here.</p>
+              ) : null}
+            </div>
+          </li>
+        ))}
+      </ol>
+    </Card>
+  );
+}
+
+function describe(e: JobEventView, job: Job) {
+  const label = e.milestone ? MILESTONE_LABELS[e.milestone] : "";
+  const day = (v: unknown) => (typeof v === "string" ? formatDay(v) : "no date");
+  switch (e.kind) {
+    case "awarded":
+      return `Awarded the bid of ${job.shopName}: ${formatMoney(Number(e.detail.totalCents), String(e.detail.currency))}, retainer ${formatMoney(Number(e.detail.retainerCents), String(e.detail.currency))}.`;
+    case "milestone_reached":
+      return typeof e.detail.reachedWith === "string"
+        ? `Recorded ${label} as reached, together with ${MILESTONE_LABELS[e.detail.reachedWith as MilestoneKey]}.`
+        : `Recorded ${label} as reached.`;
+    case "milestone_undone":
+      return `Took back ${label}.`;
+    case "target_changed":
+      return `Moved the target of ${label} from ${day(e.detail.from)} to ${day(e.detail.to)}.`;
+    case "progress_note":
+      return "Progress note.";
+    case "manager_note":
+      return "Internal note.";
+    case "retainer_paid":
+      return "Retainer paid.";
+  }
+}
+
+function History({ job }: { job: Job }) {
+  return (
+    <Card>
+      <h2 className="mb-2 font-semibold">History</h2>
+      <ol className="divide-y divide-ink-100">
+        {job.events.map((e) => (
+          <li key={e.id} className="py-3 text-sm">
+            <p className="flex flex-wrap items-center gap-2">
+              <span className="font-semibold">{e.who}</span>
+              {e.whoOrganisation ? <span className="text-ink-600">{e.whoOrganisation}</span> : null}
+              <time dateTime={e.at} className="text-ink-600">
+                · {formatMoment(e.at)}
+              </time>
+              {e.visibility === "operator" ? <Badge tone="warn">Tenderflow staff only</Badge> : null}
+            </p>
+            <p className="mt-1">{describe(e, job)}</p>
+            {e.body ? <p className="mt-1 whitespace-pre-wrap rounded-md bg-ink-50 px-3 py-2 text-ink-800">{e.body}</p> : null}
+          </li>
+        ))}
+      </ol>
+    </Card>
+  );
+}
+
+// --- Forms -------------------------------------------------------------------------------------
+
+const textareaClass =
+  "mt-1 block w-full rounded-md border-0 bg-white px-3 py-2 text-ink-900 shadow-sm ring-1 ring-ink-200 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600";
+
+function TextAreaField({ meta, label, hint }: { meta: FieldMetadata<string | undefined>; label: string; hint?: string }) {
+  const props = getTextareaProps(meta, { ariaDescribedBy: hint ? meta.descriptionId : undefined });
+  return (
+    <div>
+      <label htmlFor={meta.id} className="block text-sm font-semibold text-ink-800">
+        {label}
+      </label>
+      <textarea {...props} key={props.key} rows={3} className={textareaClass} />
+      {hint ? (
+        <p id={meta.descriptionId} className="mt-1 text-sm text-ink-600">
+          {hint}
+        </p>
+      ) : null}
+      <FieldErrorText id={meta.errorId} errors={meta.errors} />
+    </div>
+  );
+}
+
+// A form shows its server errors until the next submission starts.
+function useIdleResult(lastResult: SubmissionResult<string[]> | undefined) {
+  return useNavigation().state === "idle" ? lastResult : null;
+}
+
+const VALIDATE = { shouldValidate: "onBlur", shouldRevalidate: "onInput" } as const;
+
+function Submit({ children, tone }: { children: React.ReactNode; tone?: "primary" | "secondary" | "danger" }) {
+  const navigation = useNavigation();
+  return (
+    <Button type="submit" tone={tone} disabled={navigation.state === "submitting"}>
+      {children}
+    </Button>
+  );
+}
+
+type FormProps = { lastResult: SubmissionResult<string[]> | undefined };
+
+function ReachForm({ job, lastResult }: FormProps & { job: Job }) {
+  const [form, fields] = useForm({
+    id: "reach",
+    lastResult: useIdleResult(lastResult),
+    defaultValue: { milestone: job.open[0] },
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: reachSchema }),
+    ...VALIDATE,
+  });
+  return (
+    <Card>
+      <h2 className="mb-1 font-semibold">Record progress</h2>
+      <p className="mb-4 text-sm text-ink-600">Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well.</p>
+      <Form method="post" {...getFormProps(form)} className="space-y-4">
+        <input type="hidden" name="intent" value="reach" />
+        <FormErrors id={form.errorId} errors={form.errors} />
+        <SelectField meta={fields.milestone} label="Reached up to and including" options={job.open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
+        <TextAreaField meta={fields.note} label="Note (optional)" hint="For example: pressure test passed at 1.5 × the relief setting." />
+        <Submit>Record as reached</Submit>
+      </Form>
+    </Card>
+  );
+}
+
+function TargetForm({ job, lastResult }: FormProps & { job: Job }) {
+  const [form, fields] = useForm({
+    id: "target",
+    lastResult: useIdleResult(lastResult),
+    defaultValue: { milestone: job.open[0] },
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: targetSchema }),
+    ...VALIDATE,
+  });
+  return (
+    <Card>
+      <h2 className="mb-1 font-semibold">Move a target date</h2>
+      <p className="mb-4 text-sm text-ink-600">The change and your reason go into the history.</p>
+      <Form method="post" {...getFormProps(form)} className="space-y-4">
+        <input type="hidden" name="intent" value="target" />
+        <FormErrors id={form.errorId} errors={form.errors} />
+        <SelectField meta={fields.milestone} label="Milestone" options={job.open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
+        <TextField meta={fields.targetDate} label="New target date" type="date" />
+        <TextAreaField meta={fields.reason} label="Reason (optional)" hint="For example: the motor arrives two weeks late." />
+        <Submit tone="secondary">Save the date</Submit>
+      </Form>
+    </Card>
+  );
+}
+
+function ProgressNoteForm({ lastResult }: FormProps) {
+  const [form, fields] = useForm({
+    id: "progress-note",
+    lastResult: useIdleResult(lastResult),
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: progressNoteSchema }),
+    ...VALIDATE,
+  });
+  return (
+    <Card>
+      <h2 className="mb-1 font-semibold">Note for the buyer</h2>
+      <Form method="post" {...getFormProps(form)} className="mt-3 space-y-4">
+        <input type="hidden" name="intent" value="progress-note" />
+        <FormErrors id={form.errorId} errors={form.errors} />
+        <TextAreaField meta={fields.body} label="Note" hint="Seen by the buyer and by Tenderflow staff." />
+        <Submit tone="secondary">Add the note</Submit>
+      </Form>
+    </Card>
+  );
+}
+
+function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey }) {
+  const [form, fields] = useForm({
+    id: "undo",
+    lastResult: useIdleResult(lastResult),
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: undoSchema }),
+    ...VALIDATE,
+  });
+  return (
+    <Card>
+      <h2 className="mb-1 font-semibold">Take back “{MILESTONE_LABELS[last]}”</h2>
+      <p className="mb-4 text-sm text-ink-600">Only the last milestone reached can be taken back. It stays in the history with your reason.</p>
+      <Form method="post" {...getFormProps(form)} className="space-y-4">
+        <input type="hidden" name="intent" value="undo" />
+        <input type="hidden" name="milestone" value={last} />
+        <FormErrors id={form.errorId} errors={form.errors} />
+        <TextAreaField meta={fields.reason} label="Reason" hint="For example: the test has to be repeated after a seal change." />
+        <Submit tone="danger">Take it back</Submit>
+      </Form>
+    </Card>
+  );
+}
+
+function ManagerNoteForm({ lastResult }: FormProps) {
+  const [form, fields] = useForm({
+    id: "manager-note",
+    lastResult: useIdleResult(lastResult),
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: managerNoteSchema }),
+    ...VALIDATE,
+  });
+  return (
+    <Card>
+      <h2 className="mb-1 font-semibold">Internal note</h2>
+      <p className="mb-4 text-sm text-ink-600">Only Tenderflow staff see these notes, never the buyer or the shop.</p>
+      <Form method="post" {...getFormProps(form)} className="space-y-4">
+        <input type="hidden" name="intent" value="manager-note" />
+        <FormErrors id={form.errorId} errors={form.errors} />
+        <TextAreaField meta={fields.body} label="Note" />
+        <Submit tone="secondary">Save the note</Submit>
+      </Form>
+    </Card>
+  );
+}

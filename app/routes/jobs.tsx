@@ -1,0 +1,157 @@
+import { Link, useSearchParams } from "react-router";
+import type { Route } from "./+types/jobs";
+import { requireUser } from "~/auth/permissions.server";
+import type { Role } from "~/auth/roles";
+import { JobsByStageChart } from "~/components/jobs-by-stage-chart";
+import { Badge, Card, EmptyState, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { formatMoney } from "~/content/currencies";
+import { formatDay } from "~/content/job-dates";
+import { JOB_STAGES, JOB_STAGE_LABELS } from "~/content/job-milestones";
+import { jobListQuerySchema } from "~/schemas/jobs";
+import { listJobs } from "~/services/jobs.server";
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data ? HEADINGS[data.role].title : "Jobs"} · Tenderflow` }];
+
+const HEADINGS: Record<Role, { title: string; lead: string; empty: string }> = {
+  buyer: {
+    title: "Jobs",
+    lead: "Specs you have awarded, from the retainer to the hand-over.",
+    empty: "When you award a bid on one of your specs, the job appears here and the shop records its progress.",
+  },
+  shop: {
+    title: "Jobs",
+    lead: "Work you have won: record each milestone as the unit takes shape.",
+    empty: "When a machine builder chooses your bid, the job appears here with its milestones and target dates.",
+  },
+  account_manager: {
+    title: "Job dashboard",
+    lead: "Every awarded job of the buyer accounts you follow: what is paid, what is moving, what is late.",
+    empty: "No job yet for your accounts. Jobs appear here as soon as one of your accounts awards a bid.",
+  },
+  admin: {
+    title: "All jobs",
+    lead: "Every awarded job on Tenderflow.",
+    empty: "Nobody has awarded a bid yet.",
+  },
+};
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  const query = jobListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
+  const list = await listJobs(user, query);
+  return { role: user.role, filtered: Boolean(query.q || query.stage || query.retainer || query.overdue || query.account), ...list };
+}
+
+const selectClass = "rounded-md px-2 py-2 text-sm ring-1 ring-ink-200";
+
+export default function Jobs({ loaderData: d }: Route.ComponentProps) {
+  const [params] = useSearchParams();
+  const heading = HEADINGS[d.role];
+  const anyJobs = d.byStage.some((s) => s.count > 0) || d.filtered;
+  return (
+    <>
+      <PageHeader title={heading.title} lead={heading.lead} />
+      {!anyJobs ? (
+        <EmptyState title="No jobs yet">
+          <p>{heading.empty}</p>
+        </EmptyState>
+      ) : (
+        <div className="space-y-6">
+          <Card>
+            <JobsByStageChart data={d.byStage} caption="Jobs by stage (with the filters below, any stage)" />
+          </Card>
+          <Card>
+            <SearchBar label="Search jobs by spec title" placeholder="Spec title" value={params.get("q") ?? ""}>
+              <label className="sr-only" htmlFor="stage">Stage</label>
+              <select id="stage" name="stage" defaultValue={params.get("stage") ?? ""} className={selectClass}>
+                <option value="">Any stage</option>
+                {JOB_STAGES.map((s) => (
+                  <option key={s} value={s}>{JOB_STAGE_LABELS[s]}</option>
+                ))}
+              </select>
+              <label className="sr-only" htmlFor="retainer">Retainer</label>
+              <select id="retainer" name="retainer" defaultValue={params.get("retainer") ?? ""} className={selectClass}>
+                <option value="">Retainer paid or not</option>
+                <option value="paid">Retainer paid</option>
+                <option value="unpaid">Retainer not paid</option>
+              </select>
+              {d.role !== "buyer" && d.accounts.length > 0 ? (
+                <>
+                  <label className="sr-only" htmlFor="account">Buyer account</label>
+                  <select id="account" name="account" defaultValue={params.get("account") ?? ""} className={selectClass}>
+                    <option value="">Every buyer</option>
+                    {d.accounts.map((a) => (
+                      <option key={a.id} value={a.id}>{a.name}</option>
+                    ))}
+                  </select>
+                </>
+              ) : null}
+              <label className="flex items-center gap-2 px-2 text-sm">
+                <input type="checkbox" name="overdue" value="1" defaultChecked={params.has("overdue")} />
+                Overdue only
+              </label>
+            </SearchBar>
+            <p className="mb-2 text-sm text-ink-600">
+              {d.total} job{d.total === 1 ? "" : "s"}. Overdue jobs come first, then the most recently awarded.
+            </p>
+            <div className="overflow-x-auto">
+              <table className="w-full text-left text-sm">
+                <thead className="text-ink-600">
+                  <tr>
+                    <th scope="col" className="py-2">Spec</th>
+                    <th scope="col">Buyer</th>
+                    <th scope="col">Shop</th>
+                    <th scope="col">Stage</th>
+                    <th scope="col" className="text-right">Total</th>
+                    <th scope="col" className="text-right">Retainer</th>
+                    <th scope="col" className="text-right">Days since award</th>
+                    <th scope="col" className="pl-4">Next milestone</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {d.jobs.map((j) => (
+                    <tr key={j.id} className={`border-t border-ink-100 align-top ${j.overdue ? "bg-alarm-50/50" : ""}`}>
+                      <td className="py-2 pr-2">
+                        <Link to={`/jobs/${j.id}`} className="font-semibold text-flow-700 hover:underline">
+                          {j.specTitle || "Untitled spec"}
+                        </Link>
+                      </td>
+                      <td className="pr-2">{j.buyerName}</td>
+                      <td className="pr-2">{j.shopName}</td>
+                      <td className="pr-2">{JOB_STAGE_LABELS[j.stage]}</td>
+                      <td className="text-right tabular-nums">{formatMoney(j.totalCents, j.currency)}</td>
+                      <td className="text-right tabular-nums">
+                        <span className="block">{formatMoney(j.retainerCents, j.currency)}</span>
+                        {j.retainerPaidAt ? <Badge tone="good">Paid</Badge> : <Badge tone="warn">Not paid</Badge>}
+                      </td>
+                      <td className="text-right tabular-nums">{j.daysSinceAward}</td>
+                      <td className="pl-4">
+                        {j.next ? (
+                          <>
+                            <span className="block">{j.next.label}</span>
+                            <span className="block text-xs text-ink-600">
+                              {j.next.targetDate ? `target ${formatDay(j.next.targetDate)}` : "no target date"}
+                            </span>
+                          </>
+                        ) : (
+                          <span className="text-ink-600">All reached</span>
+                        )}
+                        {j.overdue ? (
+                          <span className="mt-1 block">
+                            <Badge tone="bad">Overdue</Badge>
+                          </span>
+                        ) : null}
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+            {d.jobs.length === 0 ? <p className="py-6 text-center text-ink-600">No job matches these filters.</p> : null}
+            <Pager page={d.page} pageCount={d.pageCount} search={params} />
+          </Card>
+        </div>
+      )}
+    </>
+  );
+}

@@ -212,6 +212,11 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                     <td key={c.id} className={`p-3 text-right text-base font-semibold tabular-nums ${c.cheapestComplete ? "bg-flow-50 text-flow-700" : ""}`}>
                       {money(c.totalCents)}
                       {d.spec.units > 1 ? <span className="block text-xs font-normal text-ink-600">{money(c.setTotalCents)} a set</span> : null}
+                      {cheapest && !c.cheapestComplete && c.totalCents > cheapest.totalCents ? (
+                        <span className="block text-xs font-normal text-signal-700">
+                          {money(c.totalCents - cheapest.totalCents)} more ({(((c.totalCents - cheapest.totalCents) / cheapest.totalCents) * 100).toFixed(1)} %)
+                        </span>
+                      ) : null}
                     </td>
                   ))}
                 </tr>

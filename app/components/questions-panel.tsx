@@ -13,7 +13,7 @@ import { Badge, Button, Card, Notice } from "./ui";
 const textareaClass =
   "mt-1 block w-full rounded-md border-0 bg-white px-3 py-2 text-sm text-ink-900 shadow-sm ring-1 ring-ink-200 placeholder:text-ink-400 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600";
 
-const when = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+const when = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
 
 function AskForm({ specId }: { specId: string }) {
   const fetcher = useFetcher<SubmissionResult<string[]>>();
@@ -93,7 +93,8 @@ function QuestionItem({ specId, question, canAnswer, isBuyer }: { specId: string
       ) : isBuyer ? (
         <p className="mt-2 text-xs text-ink-600">Only the shop that asked sees this question until you answer it.</p>
       ) : null}
-      {canAnswer ? <AnswerForm specId={specId} question={question} /> : null}
+      {/* A new key once the answer is saved: the form starts again from the stored answer. */}
+      {canAnswer ? <AnswerForm key={question.answeredAt ?? "unanswered"} specId={specId} question={question} /> : null}
     </li>
   );
 }
@@ -122,7 +123,8 @@ export function QuestionsPanel({ specId, panel }: { specId: string; panel: Panel
           {isBuyer ? "No shop has asked anything yet. You will get an e-mail when one does." : "No questions have been answered yet."}
         </p>
       )}
-      {canAsk ? <AskForm specId={specId} /> : null}
+      {/* A new key once the shop's new question is listed: the box empties only when it was taken. */}
+      {canAsk ? <AskForm key={questions.filter((q) => q.isOwn).length} specId={specId} /> : null}
       {closedNote ? (
         <div className="mt-4">
           <Notice>{closedNote}</Notice>

@@ -90,7 +90,11 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
     <>
       <PageHeader
         title="Open specs"
-        lead={`${d.total} spec${d.total === 1 ? "" : "s"} from machine builders ${d.filtered ? "match your filters" : "open for bids"}.`}
+        lead={
+          d.filtered
+            ? `${d.total} open spec${d.total === 1 ? " matches" : "s match"} your filters.`
+            : `${d.total} spec${d.total === 1 ? " from a machine builder is" : "s from machine builders are"} open for bids.`
+        }
       />
       {problems.length ? (
         <div className="mb-4">

@@ -3,8 +3,8 @@ import type { User } from "~/models/index.server";
 import { notFound, requireId } from "./errors.server";
 
 // Who may see a spec, in one place: its own buyer organisation always; shops once it has been
-// published; account managers every spec of the buyer accounts assigned to them; admins any
-// published spec. Anyone else gets a 404.
+// published; account managers the published specs of the buyer accounts assigned to them;
+// admins any published spec. Drafts stay with the buyer. Anyone else gets a 404.
 
 export const PUBLISHED_STATUSES = ["open", "closed", "awarded"] as const;
 
@@ -19,7 +19,7 @@ export const isPublished = (spec: Pick<Spec, "status">) => (PUBLISHED_STATUSES a
 
 /**
  * A spec the user may read: a buyer their own organisation's (drafts too); a shop a published
- * one; an account manager any spec of a buyer account assigned to them
+ * one; an account manager a published spec of a buyer account assigned to them
  * (organisations.account_manager_id); an admin a published one. Anything else is a 404.
  */
 export async function specForReader(user: User, specId: string | undefined): Promise<Spec> {
@@ -29,7 +29,7 @@ export async function specForReader(user: User, specId: string | undefined): Pro
   if (!spec) notFound("No such spec.");
   if (user.role === "buyer" && spec.organisationId === user.organisationId) return spec;
   if ((user.role === "shop" || user.role === "admin") && isPublished(spec)) return spec;
-  if (user.role === "account_manager") {
+  if (user.role === "account_manager" && isPublished(spec)) {
     const account = (spec as Spec & { organisation?: Organisation }).organisation;
     if (account && account.accountManagerId === user.id) return spec;
   }

@@ -1,4 +1,4 @@
-import { Op, type Order, type WhereOptions } from "sequelize";
+import { type Order, type WhereOptions } from "sequelize";
 import { ENGINE_VERSION, RequirementsError, sizeCircuit, type Design } from "~/hydraulics";
 import { toRequirementsInput, type FormValues } from "~/content/requirement-fields";
 import { FORM_STEPS, type FormStepId } from "~/content/spec-steps";
@@ -160,13 +160,4 @@ export async function revisionsOf(spec: Spec) {
 
 export async function attachmentCount(spec: Spec) {
   return SpecAttachment.count({ where: { specId: spec.id } });
-}
-
-/** Specs open for bids right now, soonest deadline first (filters and paging come with bidding). */
-export async function listOpenSpecs(limit = 100) {
-  return Spec.findAll({
-    where: { status: "open", bidDeadline: { [Op.gt]: new Date() } },
-    order: [["bidDeadline", "ASC"], ["id", "ASC"]],
-    limit,
-  });
 }

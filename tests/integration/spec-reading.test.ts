@@ -79,7 +79,7 @@ describe("a published spec as a shop reads it", () => {
 });
 
 describe("operator staff reading specs", () => {
-  it("lets an account manager read every spec of the accounts assigned to them, drafts too", async () => {
+  it("lets an account manager read the published specs of the accounts assigned to them, not their drafts", async () => {
     const manager = await makeOperatorUser("account_manager");
     await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
     const visitor = await signedIn(manager);
@@ -88,7 +88,8 @@ describe("operator staff reading specs", () => {
     expect(res.data.back).toEqual({ to: `/accounts/${buyer.organisationId}`, label: "The account" });
     expect(res.data.quotation.currency).toBe("GBP");
     expect((await fetchFile(visitor, published.id, attachmentId)).status).toBe(200);
-    expect((await page(visitor, draft.id)).status).toBe(200);
+    // A draft is the buyer's own until it is published.
+    expect((await page(visitor, draft.id)).status).toBe(404);
   });
 
   it("gives an account manager of other accounts 404", async () => {

@@ -20,6 +20,8 @@ export default [
   route("specs/:specId/revise", "routes/spec-revise.tsx"),
   route("specs/:specId/questions", "routes/spec-questions.tsx"),
   route("specs/:specId/questions/:questionId/answer", "routes/spec-question-answer.tsx"),
+  route("specs/:specId/bid", "routes/spec-bid.tsx"),
+  route("specs/:specId/bids", "routes/spec-bids.tsx"),
   route("open-specs", "routes/open-specs.tsx"),
   route("settings", "routes/settings.tsx"),
   route("team", "routes/team.tsx"),

@@ -3,7 +3,7 @@ import type { Route } from "./+types/spec";
 import { requireUser } from "~/auth/permissions.server";
 import { DesignReport } from "~/components/design-report";
 import { Badge, Button, Notice, PageHeader } from "~/components/ui";
-import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, type SpecStatus } from "~/content/spec-status";
+import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
 import type { Design } from "~/hydraulics";
 import { QuotationPanel } from "~/components/quotation-facts";
 import { QuestionsPanel } from "~/components/questions-panel";
@@ -12,6 +12,9 @@ import { listAttachments } from "~/services/attachments.server";
 import { questionsFor } from "~/services/questions.server";
 import { specForReader } from "~/services/spec-access.server";
 import { revisionsOf } from "~/services/specs.server";
+import { bidOfShop, offerCounts } from "~/services/bids.server";
+import { BidPanel } from "~/components/bid-panel";
+import type { BidStatus } from "~/content/bid-status";
 import type { UnitSystem } from "~/units";
 
 
@@ -34,10 +37,20 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const current = revisions.find((r) => r.number === asked) ?? revisions[0];
   // Files, quotation facts and questions: for every reader of a published spec.
   const [attachments, questions] = await Promise.all([listAttachments(user, spec.id), spec.status === "draft" ? null : questionsFor(user, spec)]);
+  const isOwner = spec.organisationId === user.organisationId;
+  const bid = user.role === "shop" ? await bidOfShop(user, spec) : null;
   return {
+    bidding: {
+      role: user.role,
+      accepting: spec.status === "open" && !!spec.bidDeadline && spec.bidDeadline > new Date(),
+      specStatus: spec.status as SpecStatus,
+      currency: spec.currency,
+      ownBid: bid && { status: bid.status as BidStatus, totalCents: bid.totalCents, version: bid.version, specRevision: bid.specRevision },
+      offers: isOwner ? ((await offerCounts([spec.id])).get(spec.id) ?? 0) : null,
+    },
     id: spec.id,
     title: spec.title,
-    status: spec.status as SpecStatus,
+    status: shownSpecStatus(spec.status as SpecStatus, spec.bidDeadline),
     isOwner: spec.organisationId === user.organisationId,
     bidDeadline: spec.bidDeadline?.toISOString() ?? null,
     deliveryRegion: spec.deliveryRegion,
@@ -96,6 +109,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
           <Notice tone="good">Published. Fluid-power shops have been told and can bid until the deadline.</Notice>
         </div>
       ) : null}
+      {d.revision ? <BidPanel specId={d.id} latestRevision={d.latestRevision} {...d.bidding} /> : null}
       {d.revisions.length > 1 ? (
         <nav aria-label="Revisions" className="mb-6 flex flex-wrap items-center gap-2 text-sm">
           <span className="text-ink-600">Revisions:</span>

@@ -98,7 +98,7 @@ function demoSpecs(): DemoSpec[] {
       status: "awarded",
       publishedDaysAgo: 30,
       answers: {
-        machine: { title: "Coil clamp, hold-down cylinder", purpose: "Holds a steel coil on the decoiler mandrel while the band is cut.", orientation: "vertical", rodDirection: "down", mounting: "flange" },
+        machine: { title: "Coil clamp, hold-down cylinder", purpose: "Holds a steel coil on the decoiler mandrel while the band is cut.", orientation: "vertical", rodDirection: "down", mounting: "fixed-pinned" },
         motion: { massKg: "60", processForceN: "18000", frictionCoefficient: "0.1", strokeMm: "150", extendSpeedMmS: "60", retractSpeedMmS: "90", accelTimeS: "0.15" },
         duty: { cyclesPerHour: "30", hoursPerDay: "16", ambientC: "25", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
         quotation: { unitsWanted: "1", bidDeadline: inDays(-6), dateNeeded: inDays(60), deliveryRegion: "UK — West Midlands", currency: "GBP", retainerPercent: "25", notes: "" },

@@ -99,17 +99,16 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
           <span className="flex flex-wrap items-center gap-2">
             <Badge tone={job.overdue ? "bad" : "neutral"}>{job.overdue ? "Overdue" : JOB_STAGE_LABELS[job.stage]}</Badge>
             <span>
-              For {job.buyerName} · built by {job.shopName} · awarded {formatDay(job.awardedAt.slice(0, 10))} ({job.daysSinceAward} day
-              {job.daysSinceAward === 1 ? "" : "s"} ago)
+              For {job.buyerName} · built by {job.shopName} · awarded {formatDay(job.awardedAt.slice(0, 10))} (
+              {job.daysSinceAward === 0 ? "today" : `${job.daysSinceAward} day${job.daysSinceAward === 1 ? "" : "s"} ago`})
             </span>
           </span>
         }
         actions={
-          job.canOpenSpec ? (
-            <ButtonLink to={`/specs/${job.specId}`} tone="secondary">
-              Open the spec
-            </ButtonLink>
-          ) : null
+          // Whoever sees the job may read its (awarded) spec: see spec-access.server.ts.
+          <ButtonLink to={`/specs/${job.specId}`} tone="secondary">
+            Open the spec
+          </ButtonLink>
         }
       />
       {actionData && actionData.intent === null ? (
@@ -123,7 +122,8 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
           <Timeline job={job} />
           <History job={job} />
         </div>
-        <div className="space-y-6">
+        {/* Keyed by the history's length, so every saved change starts the forms afresh. */}
+        <div key={job.events.length} className="space-y-6">
           {job.canRecordProgress ? (
             <>
               {job.open.length ? <ReachForm job={job} lastResult={result("reach")} /> : null}

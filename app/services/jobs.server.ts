@@ -316,8 +316,6 @@ export interface JobDetail extends JobSummary {
   leadTimeWeeks: number | null;
   canRecordProgress: boolean;
   canWriteManagerNote: boolean;
-  /** Operator roles read the spec through the job; the spec page is for buyer and shop. */
-  canOpenSpec: boolean;
 }
 
 /** A job the viewer may read (a 404 otherwise); locked for update inside a transaction. */
@@ -380,7 +378,6 @@ export async function jobFor(viewer: User, jobId: string | undefined, today = is
     leadTimeWeeks: bid?.leadTimeWeeks ?? null,
     canRecordProgress: mayRecordProgress(viewer, job),
     canWriteManagerNote: mayWriteManagerNote(viewer),
-    canOpenSpec: viewer.role === "buyer" || viewer.role === "shop",
   };
 }
 

@@ -7,6 +7,7 @@ import * as openSpecs from "~/routes/open-specs";
 import * as team from "~/routes/team";
 import * as accounts from "~/routes/accounts";
 import * as account from "~/routes/account";
+import * as jobs from "~/routes/jobs";
 import * as adminUsers from "~/routes/admin.users";
 import * as adminOrgs from "~/routes/admin.organisations";
 import type { Role } from "~/auth/roles";
@@ -20,6 +21,7 @@ const PAGES: { path: string; loader: Loader; allowed: Role[] }[] = [
   { path: "/open-specs", loader: openSpecs.loader, allowed: ["shop"] },
   { path: "/team", loader: team.loader, allowed: ["buyer", "shop", "admin"] },
   { path: "/accounts", loader: accounts.loader, allowed: ["account_manager", "admin"] },
+  { path: "/jobs", loader: jobs.loader, allowed: ["buyer", "shop", "account_manager", "admin"] },
   { path: "/admin/users", loader: adminUsers.loader, allowed: ["admin"] },
   { path: "/admin/organisations", loader: adminOrgs.loader, allowed: ["admin"] },
 ];

@@ -7,6 +7,7 @@ import * as signIn from "~/routes/sign-in";
 import * as jobsPage from "~/routes/jobs";
 import * as jobPage from "~/routes/job";
 import * as accountPage from "~/routes/account";
+import * as specPage from "~/routes/spec";
 import { Bid, Job, JobEvent, JobMilestone, Organisation, User, sequelize, type Spec } from "~/models/index.server";
 import { MILESTONE_KEYS } from "~/content/job-milestones";
 import { addDays, isoDay } from "~/content/job-dates";
@@ -585,6 +586,13 @@ describe("who may see and change a job", () => {
     expect(res.status).toBe(status);
     expect(await JobEvent.count({ where: { jobId: job.id } })).toBe(before + (status === 302 ? 1 : 0));
     if (status === 302 && intent === "reach") await undoLastMilestone(people.shop, job.id, { milestone: "drawings_agreed", reason: "reset for the next case" });
+  });
+
+  it("everyone who sees the job can open its spec", async () => {
+    for (const who of ["buyer", "colleague", "shop", "manager", "admin"] as const) {
+      const res = await visitors[who].get(specPage.loader, `/specs/${job.specId}`, { specId: job.specId });
+      expect(res.status, who).toBe(200);
+    }
   });
 
   it("the service refuses other organisations too, not only the route", async () => {

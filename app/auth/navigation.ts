@@ -18,8 +18,8 @@ export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
     { to: "/team", label: "Team" },
   ],
   account_manager: [
+    { to: "/jobs", label: "Job dashboard" },
     { to: "/accounts", label: "My accounts" },
-    { to: "/jobs", label: "Jobs" },
   ],
   admin: [
     { to: "/admin/users", label: "Users" },

@@ -29,7 +29,7 @@ export const ROLES_BY_KIND: Record<OrganisationKind, readonly Role[]> = {
 export const HOME_BY_ROLE: Record<Role, string> = {
   buyer: "/specs",
   shop: "/open-specs",
-  account_manager: "/accounts",
+  account_manager: "/jobs",
   admin: "/admin/users",
 };
 

@@ -33,14 +33,18 @@ export function bidTotals(lines: PricedLine[], units: number) {
   return { setTotalCents, totalCents: setTotalCents * units };
 }
 
+const PERCENT = /^(\d{1,3})(?:\.(\d{1,2}))?$/;
+
 /**
- * The retainer owed on an awarded total: `percent` (as stored, e.g. "12.50") of the total,
- * rounded half up to the cent, in integer arithmetic so no floating-point error creeps in.
+ * The retainer in cents: `percent` (a decimal string, at most two places, as PostgreSQL's
+ * DECIMAL(5,2) returns it) of `totalCents`, rounded half up to the cent. Worked in hundredths of a
+ * percent with BigInt ("12.50" → × 1250 / 10000), so no binary fraction ever rounds it wrong.
  */
 export function retainerCents(totalCents: number, percent: string): number {
-  const m = /^(\d+)(?:\.(\d{1,2}))?$/.exec(percent.trim());
-  if (!m) throw new Error(`Not a percentage: ${percent}`);
-  const basisPoints = BigInt(m[1]) * 100n + BigInt((m[2] ?? "").padEnd(2, "0"));
-  // total × bp / 10 000, half up: (2 × total × bp + 10 000) / 20 000, floored.
-  return Number((2n * BigInt(totalCents) * basisPoints + 10_000n) / 20_000n);
+  if (!Number.isSafeInteger(totalCents) || totalCents < 0) throw new RangeError(`A total must be whole cents, not ${totalCents}.`);
+  const match = PERCENT.exec(percent.trim());
+  if (!match) throw new RangeError(`"${percent}" is not a percentage with at most two decimals.`);
+  const hundredths = BigInt(match[1]) * 100n + BigInt((match[2] ?? "").padEnd(2, "0"));
+  if (hundredths > 10_000n) throw new RangeError(`A retainer cannot be more than 100 % (got ${percent}).`);
+  return Number((BigInt(totalCents) * hundredths + 5_000n) / 10_000n);
 }

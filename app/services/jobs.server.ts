@@ -16,29 +16,16 @@ import type { JobListQuery } from "~/schemas/jobs";
 import { env } from "~/env.server";
 import { FieldErrors, forbidden, notFound, requireId } from "./errors.server";
 import { enqueueMail } from "./mail.server";
+import { retainerCents } from "./bid-pricing";
+
+export { retainerCents };
 
 // Awarded jobs: opened by the award, moved along their milestones by the shop, followed by the
 // buyer's account manager. Every change is a job_events row written in the same transaction,
 // and jobs.stage always names the furthest milestone reached.
 
 // ---------------------------------------------------------------------------------------------
-// Money and dates: pure, exported for the award and the tests.
-
-const PERCENT = /^(\d{1,3})(?:\.(\d{1,2}))?$/;
-
-/**
- * The retainer in cents: `percent` (a decimal string, at most two places, as PostgreSQL's
- * DECIMAL(5,2) returns it) of `totalCents`, rounded half up to the cent. Worked in hundredths of a
- * percent with BigInt ("12.50" → × 1250 / 10000), so no binary fraction ever rounds it wrong.
- */
-export function retainerCents(totalCents: number, percent: string): number {
-  if (!Number.isSafeInteger(totalCents) || totalCents < 0) throw new RangeError(`A total must be whole cents, not ${totalCents}.`);
-  const match = PERCENT.exec(percent.trim());
-  if (!match) throw new RangeError(`"${percent}" is not a percentage with at most two decimals.`);
-  const hundredths = BigInt(match[1]) * 100n + BigInt((match[2] ?? "").padEnd(2, "0"));
-  if (hundredths > 10_000n) throw new RangeError(`A retainer cannot be more than 100 % (got ${percent}).`);
-  return Number((BigInt(totalCents) * hundredths + 5_000n) / 10_000n);
-}
+// Dates: pure, exported for the award and the tests (the retainer sum lives in bid-pricing).
 
 /**
  * Default target day of each milestone: the award day plus its share of the lead time (rounded

@@ -75,7 +75,7 @@ describe("jobs in the browser", () => {
     const page = await app.newPage();
     const errors = collectErrors(page);
     await signInAs(page, manager.email, PASSWORD);
-    await page.waitForURL("**/accounts");
+    await page.waitForURL("**/jobs");
     const html = await (await page.request.get("/jobs")).text();
     expect(html).toContain("recharts-surface");
     expect(html.match(/recharts-bar-rectangle"/g)?.length).toBe(7); // one per stage, zeros included

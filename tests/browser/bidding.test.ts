@@ -1,0 +1,111 @@
+// The bidding journey in a real browser: two shops price the same bill, the buyer compares the
+// offers side by side and awards the cheapest complete one, the account manager sees the job.
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { Bid, Job, Organisation, type Spec, type User } from "~/models/index.server";
+import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+
+let app: BrowserApp;
+let buyer: User;
+let shops: User[];
+let manager: User;
+let spec: Spec;
+
+beforeAll(async () => {
+  buyer = await makeMember("buyer", { organisationName: "Harrow Press Works" });
+  shops = [await makeMember("shop", { organisationName: "Quayside Hydraulics" }), await makeMember("shop", { organisationName: "Fenwick Power Units" })];
+  manager = await makeOperatorUser("account_manager");
+  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  spec = await makePublishedSpec(buyer, { machine: { title: "Forming press, main ram" } });
+  app = await startBrowserApp();
+}, 180_000);
+afterAll(async () => {
+  await app?.close();
+});
+
+const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `bidding-${name}.png`), fullPage: true });
+
+/** Prices every line at `price`, the first line at `first`, and submits. */
+async function bid(page: Page, first: string, price: string, leadWeeks: string, alternative?: string) {
+  await page.goto("/open-specs");
+  await page.getByRole("link", { name: "Forming press, main ram" }).click();
+  await page.waitForURL(`**/specs/${spec.id}`);
+  await page.getByRole("link", { name: "Start a bid" }).click();
+  await page.waitForURL(`**/specs/${spec.id}/bid`);
+  await hydrated(page);
+  const prices = page.locator('input[name$=".unitPrice"]');
+  const count = await prices.count();
+  expect(count).toBeGreaterThan(8);
+  for (let i = 0; i < count; i++) await prices.nth(i).fill(i === 0 ? first : price);
+  if (alternative) {
+    await page.getByRole("checkbox", { name: "Alternative" }).nth(1).check();
+    await page.getByPlaceholder("Make, model and why").fill(alternative);
+  }
+  await page.getByLabel("Lead time (weeks)").fill(leadWeeks);
+  await page.getByLabel("Offer valid until").fill(inDays(45));
+  await page.getByLabel("Terms").fill("Ex works, 30 days net.");
+  return count;
+}
+
+describe("bidding", () => {
+  it("two shops bid, the buyer compares and awards, the account manager sees the job", { timeout: 180_000 }, async () => {
+    // Shop 1: dearer overall. The live total follows the prices as they are typed.
+    const first = await app.newPage();
+    await signInAs(first, shops[0].email, PASSWORD);
+    await first.waitForURL("**/open-specs");
+    const lines = await bid(first, "1500", "200", "12");
+    await expect.poll(() => first.getByTestId("offer-total").textContent()).not.toBe("£0.00");
+    await shot(first, "1-shop-form");
+    await first.getByRole("button", { name: "Submit the offer" }).click();
+    await expect.poll(() => first.getByText(/^Offer 1 sent/).count()).toBe(1);
+    await shot(first, "2-shop-sent");
+
+    // Shop 2: cheaper, with one alternative part.
+    const second = await app.newPage();
+    await signInAs(second, shops[1].email, PASSWORD);
+    await second.waitForURL("**/open-specs");
+    await bid(second, "1400", "150", "10", "Quieter internal gear pump, same displacement");
+    await second.getByRole("button", { name: "Submit the offer" }).click();
+    await expect.poll(() => second.getByText(/^Offer 1 sent/).count()).toBe(1);
+
+    const [dear, cheap] = [shops[0], shops[1]].map((s) => s.organisationId);
+    const stored = await Bid.findAll({ where: { specId: spec.id } });
+    expect(stored.find((b) => b.organisationId === cheap)!.totalCents).toBeLessThan(stored.find((b) => b.organisationId === dear)!.totalCents);
+    expect(stored.every((b) => b.lines.length === lines && b.status === "submitted")).toBe(true);
+
+    // The buyer: the cheapest complete offer stands out before reading a single number.
+    const buyerPage = await app.newPage();
+    await signInAs(buyerPage, buyer.email, PASSWORD);
+    await buyerPage.waitForURL("**/specs");
+    await buyerPage.goto(`/specs/${spec.id}`);
+    await buyerPage.getByRole("link", { name: "Compare and award" }).click();
+    await buyerPage.waitForURL(`**/specs/${spec.id}/bids`);
+    await hydrated(buyerPage);
+    const summary = buyerPage.getByTestId("cheapest-summary");
+    await expect.poll(() => summary.textContent()).toContain("Fenwick Power Units");
+    expect(await buyerPage.getByText("Cheapest complete", { exact: true }).count()).toBe(1);
+    expect(await buyerPage.getByText("Alternative", { exact: true }).count()).toBe(1);
+    await shot(buyerPage, "3-comparison");
+
+    await buyerPage.getByRole("link", { name: "Award to Fenwick Power Units" }).click();
+    await buyerPage.getByText("I award this spec to Fenwick Power Units.").click();
+    await shot(buyerPage, "4-confirm");
+    await buyerPage.getByRole("button", { name: "Confirm the award" }).click();
+    await buyerPage.waitForURL("**/jobs/*");
+    const job = await Job.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
+    expect(job.shopOrganisationId).toBe(cheap);
+    await shot(buyerPage, "5-job");
+
+    // The account manager finds it among their accounts' jobs.
+    const managerPage = await app.newPage();
+    await signInAs(managerPage, manager.email, PASSWORD);
+    await managerPage.waitForURL("**/jobs");
+    await expect.poll(() => managerPage.getByRole("link", { name: "Forming press, main ram" }).count()).toBeGreaterThan(0);
+    await shot(managerPage, "6-manager-jobs");
+    await managerPage.getByRole("link", { name: "Forming press, main ram" }).first().click();
+    await managerPage.waitForURL(`**/jobs/${job.id}`);
+    await shot(managerPage, "7-manager-job");
+  });
+});

@@ -108,12 +108,12 @@ function demoSpecs(): DemoSpec[] {
       organisation: "Marlow Deck Systems",
       author: "tom@marlow-decks.test",
       status: "awarded",
-      publishedDaysAgo: 75,
+      publishedDaysAgo: 100,
       answers: {
         machine: { title: "Scissor lift table, main cylinder", purpose: "Raises a loading table with pallets to the mezzanine floor.", orientation: "vertical", rodDirection: "up", mounting: "pinned-pinned" },
         motion: { massKg: "1800", processForceN: "0", frictionCoefficient: "0.05", strokeMm: "800", extendSpeedMmS: "50", retractSpeedMmS: "60", accelTimeS: "0.3" },
         duty: { cyclesPerHour: "20", hoursPerDay: "10", ambientC: "20", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 32" },
-        quotation: { unitsWanted: "3", bidDeadline: inDays(-50), dateNeeded: inDays(20), deliveryRegion: "UK — South East", currency: "GBP", retainerPercent: "15", notes: "Indoor warehouse; low noise wanted." },
+        quotation: { unitsWanted: "3", bidDeadline: inDays(-75), dateNeeded: inDays(10), deliveryRegion: "UK — South East", currency: "GBP", retainerPercent: "15", notes: "Indoor warehouse; low noise wanted." },
       },
     },
     {

@@ -1,0 +1,74 @@
+// The demo scenario `npm start` loads must obey the app's own rules: its offers add up, the
+// buyer's comparison and the account manager's dashboard read it like any other data.
+import { beforeAll, describe, expect, it } from "vitest";
+import * as signIn from "~/routes/sign-in";
+import * as bidsRoute from "~/routes/spec-bids";
+import * as jobsRoute from "~/routes/jobs";
+import * as specPage from "~/routes/spec";
+import { Bid, Job, Spec, sequelize } from "~/models/index.server";
+import { bidTotals, retainerCents } from "~/services/bid-pricing";
+import { bomOf } from "~/services/bids.server";
+import { DEMO_PASSWORD, seedDemo } from "../../db/seeds/demo";
+import { Visitor } from "../support/routes";
+
+async function signedIn(email: string) {
+  const visitor = new Visitor();
+  const res = await visitor.post(signIn.action, "/sign-in", { email, password: DEMO_PASSWORD });
+  expect(res.status).toBe(302);
+  return visitor;
+}
+
+beforeAll(async () => {
+  expect(await seedDemo(sequelize)).toBe(true);
+});
+
+describe("the demo scenario", () => {
+  it("seeds once", async () => {
+    expect(await seedDemo(sequelize)).toBe(false);
+  });
+
+  it("prices every offer exactly as the app would, against the frozen bill", async () => {
+    const bids = await Bid.findAll({ include: [{ model: Spec, as: "spec" }] });
+    expect(bids.length).toBe(7);
+    for (const bid of bids) {
+      const spec = (bid as Bid & { spec: Spec }).spec;
+      const bom = await bomOf(spec);
+      expect(bid.lines.map((l) => l.key)).toEqual(bom.map((l) => l.key));
+      const totals = bidTotals(bid.lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })), spec.unitsWanted ?? 1);
+      expect([bid.setTotalCents, bid.totalCents]).toEqual([totals.setTotalCents, totals.totalCents]);
+    }
+    for (const job of await Job.findAll({ include: [{ model: Bid, as: "bid" }] })) {
+      expect(job.totalCents).toBe((job as Job & { bid: Bid }).bid.totalCents);
+      expect(job.retainerCents).toBe(retainerCents(job.totalCents, job.retainerPercent));
+    }
+  });
+
+  it("shows Priya the press offers with the cheapest complete one marked, and no drafts", async () => {
+    const press = await Spec.findOne({ where: { title: "Panel press, main ram" }, rejectOnEmpty: true });
+    const visitor = await signedIn("priya@kestrel-forming.test");
+    const res = await visitor.get(bidsRoute.loader, `/specs/${press.id}/bids`, { specId: press.id });
+    expect(res.status).toBe(200);
+    const { columns, cheapestCompleteId } = res.data.comparison;
+    expect(columns.map((c: { shop: string }) => c.shop)).toEqual(["Northgate Hydraulics", "Ironbridge Fluid Power"]);
+    expect(cheapestCompleteId).toBe(columns[0].id);
+    expect(columns[0].alternatives).toBe(1);
+  });
+
+  it("shows Aled the answered question, without the asker's name", async () => {
+    const press = await Spec.findOne({ where: { title: "Panel press, main ram" }, rejectOnEmpty: true });
+    const visitor = await signedIn("sofia@northgate-hyd.test");
+    const res = await visitor.get(specPage.loader, `/specs/${press.id}`, { specId: press.id });
+    expect(JSON.stringify(res.data.questions)).toContain("120 mm of clearance");
+    expect(JSON.stringify(res.data.questions)).not.toContain("Ironbridge");
+  });
+
+  it("gives Nadia both jobs of her accounts, the late lift table first", async () => {
+    const visitor = await signedIn("nadia@tenderflow.test");
+    const res = await visitor.get(jobsRoute.loader, "/jobs");
+    expect(res.status).toBe(200);
+    expect(res.data.jobs.map((j: { specTitle: string; overdue: boolean }) => [j.specTitle, j.overdue])).toEqual([
+      ["Scissor lift table, main cylinder", true],
+      ["Coil clamp, hold-down cylinder", false],
+    ]);
+  });
+});

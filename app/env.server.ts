@@ -21,6 +21,11 @@ const envSchema = z.object({
   SIZING_REQUESTS_PER_MINUTE: z.coerce.number().int().positive().default(240),
   /** Folder for uploaded drawings and photos (local-disk storage); relative to the working directory. */
   UPLOAD_DIR: z.string().min(1).default(".data/uploads"),
+  /** Stripe: a test or live secret key and the webhook endpoint's signing secret. */
+  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_\w+$/, "must be a Stripe secret key (sk_test_…)"),
+  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_\w+$/, "must be a Stripe webhook signing secret (whsec_…)"),
+  /** Only for a local stand-in, e.g. http://127.0.0.1:12111; unset means Stripe itself. */
+  STRIPE_API_URL: z.url().optional(),
 });
 
 export type Env = z.infer<typeof envSchema>;

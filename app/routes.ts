@@ -22,6 +22,10 @@ export default [
   route("specs/:specId/questions/:questionId/answer", "routes/spec-question-answer.tsx"),
   route("specs/:specId/bid", "routes/spec-bid.tsx"),
   route("specs/:specId/bids", "routes/spec-bids.tsx"),
+  // Workbooks (resource routes): each loader checks who may read it.
+  route("specs/:specId/bill.xlsx", "routes/spec-bill.xlsx.ts"),
+  route("specs/:specId/bids.xlsx", "routes/spec-bids.xlsx.ts"),
+  route("jobs/:jobId/priced-bill.xlsx", "routes/job-priced-bill.xlsx.ts"),
   route("open-specs", "routes/open-specs.tsx"),
   route("settings", "routes/settings.tsx"),
   route("team", "routes/team.tsx"),
@@ -30,6 +34,11 @@ export default [
   route("accounts/:organisationId", "routes/account.tsx"),
   route("jobs", "routes/jobs.tsx"),
   route("jobs/:jobId", "routes/job.tsx"),
+  route("jobs/:jobId/pay", "routes/job-pay.tsx"),
+  route("jobs/:jobId/payment", "routes/job-payment.tsx"),
+  route("payments", "routes/payments.tsx"),
+  route("payments/:paymentId/refund", "routes/payment-refund.tsx"),
+  route("webhooks/stripe", "routes/webhooks.stripe.ts"),
   ...prefix("api/v1", [
     route("sizing", "routes/api.v1.sizing.ts"),
     route("health", "routes/api.v1.health.ts"),

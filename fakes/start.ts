@@ -1,6 +1,7 @@
 // `npm start`: the whole local stack in one command. It starts the project's own PostgreSQL
-// cluster (data in .data/), migrates and seeds it, starts maildev for e-mail, builds the app and
-// serves it on http://127.0.0.1:3000, then stops everything it started on Ctrl-C.
+// cluster (data in .data/), migrates and seeds it, starts maildev for e-mail and the Stripe fake
+// for card payments, builds the app and serves it on http://127.0.0.1:3000, then stops
+// everything it started on Ctrl-C.
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
@@ -11,6 +12,7 @@ import { ensureDatabase, isRunning, startCluster, stopCluster, type Cluster } fr
 import { migrator } from "../db/migrator";
 import { DEMO_PASSWORD, DEMO_SIGN_INS, seedDemo } from "../db/seeds/demo";
 import { run, serveBuild, stop } from "./processes";
+import { startStripeFake } from "./stripe";
 
 const root = path.resolve(import.meta.dirname, "..");
 const dataDir = path.join(root, ".data");
@@ -18,6 +20,7 @@ const APP_PORT = Number(process.env.PORT ?? 3000);
 const PG_PORT = Number(process.env.TENDERFLOW_PG_PORT ?? 54329);
 const SMTP_PORT = Number(process.env.TENDERFLOW_SMTP_PORT ?? 1025);
 const MAIL_WEB_PORT = Number(process.env.TENDERFLOW_MAIL_WEB_PORT ?? 1080);
+const STRIPE_PORT = Number(process.env.TENDERFLOW_STRIPE_PORT ?? 12111);
 const step = (text: string) => console.log(`\n▸ ${text}`);
 
 /** A secret made once per checkout, so sessions survive restarts of the local stack. */
@@ -60,14 +63,22 @@ async function main() {
   } as ConstructorParameters<typeof MailDev>[0]);
   await maildev.start();
 
+  const appUrl = process.env.APP_URL ?? `http://127.0.0.1:${APP_PORT}`;
+  step(`Starting the Stripe fake (API and payment page http://127.0.0.1:${STRIPE_PORT})`);
+  const stripeWebhookSecret = `whsec_${localSecret("stripe-webhook-secret")}`;
+  const stripeFake = await startStripeFake({ port: STRIPE_PORT, webhookUrl: `${appUrl}/webhooks/stripe`, webhookSecret: stripeWebhookSecret });
+
   const env = {
     ...process.env,
     NODE_ENV: "production",
     DATABASE_URL: databaseUrl,
     SESSION_SECRET: process.env.SESSION_SECRET ?? localSecret("session-secret"),
-    APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${APP_PORT}`,
+    APP_URL: appUrl,
     SMTP_HOST: "127.0.0.1",
     SMTP_PORT: String(SMTP_PORT),
+    STRIPE_SECRET_KEY: "sk_test_tenderflowLocal",
+    STRIPE_WEBHOOK_SECRET: stripeWebhookSecret,
+    STRIPE_API_URL: stripeFake.url,
   };
 
   step("Building the app");
@@ -81,6 +92,7 @@ Tenderflow is running.
 
   App            http://127.0.0.1:${APP_PORT}
   Mail inbox     http://127.0.0.1:${MAIL_WEB_PORT}   (every e-mail the app sends lands here)
+  Card payments  ${stripeFake.url}  (Stripe fake: card 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD})
 ${DEMO_SIGN_INS.map((u) => `  ${u.role.padEnd(16)} ${u.email.padEnd(30)} ${u.name}, ${u.organisation}`).join("\n")}
@@ -93,6 +105,7 @@ Press Ctrl-C to stop.`);
     stopping = true;
     console.log("\nStopping…");
     await stop(app);
+    await stripeFake.close();
     await maildev.stop();
     if (cluster) stopCluster(cluster);
     process.exit(0);

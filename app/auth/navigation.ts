@@ -10,6 +10,7 @@ export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
   buyer: [
     { to: "/specs", label: "My specs" },
     { to: "/jobs", label: "Jobs" },
+    { to: "/payments", label: "Payments" },
     { to: "/team", label: "Team" },
   ],
   shop: [
@@ -19,12 +20,14 @@ export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
   ],
   account_manager: [
     { to: "/jobs", label: "Job dashboard" },
+    { to: "/payments", label: "Payments" },
     { to: "/accounts", label: "My accounts" },
   ],
   admin: [
     { to: "/admin/users", label: "Users" },
     { to: "/admin/organisations", label: "Organisations" },
     { to: "/jobs", label: "Jobs" },
+    { to: "/payments", label: "Payments" },
     { to: "/team", label: "Operator team" },
   ],
 };

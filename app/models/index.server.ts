@@ -7,6 +7,7 @@ import { Spec, SpecAttachment, SpecRevision } from "./spec.server";
 import { SpecQuestion } from "./question.server";
 import { Bid, BidVersion } from "./bid.server";
 import { Job, JobEvent, JobMilestone } from "./job.server";
+import { Payment, Refund, StripeEvent } from "./payment.server";
 
 Organisation.hasMany(User, { foreignKey: "organisationId", as: "users" });
 User.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
@@ -36,7 +37,13 @@ Job.hasMany(JobMilestone, { foreignKey: "jobId", as: "milestones" });
 Job.hasMany(JobEvent, { foreignKey: "jobId", as: "events" });
 JobEvent.belongsTo(User, { foreignKey: "userId", as: "user" });
 Spec.hasOne(Job, { foreignKey: "specId", as: "job" });
+Job.hasMany(Payment, { foreignKey: "jobId", as: "payments" });
+Payment.belongsTo(Job, { foreignKey: "jobId", as: "job" });
+Payment.belongsTo(Organisation, { foreignKey: "buyerOrganisationId", as: "buyerOrganisation" });
+Payment.hasMany(Refund, { foreignKey: "paymentId", as: "refunds" });
+Refund.belongsTo(Payment, { foreignKey: "paymentId", as: "payment" });
+Refund.belongsTo(User, { foreignKey: "requestedById", as: "requestedBy" });
 
 export { sequelize } from "~/db.server";
 export { Organisation, User, Invitation, PasswordReset, OutboxMail, Spec, SpecRevision, SpecAttachment };
-export { SpecQuestion, Bid, BidVersion, Job, JobMilestone, JobEvent };
+export { SpecQuestion, Bid, BidVersion, Job, JobMilestone, JobEvent, Payment, Refund, StripeEvent };

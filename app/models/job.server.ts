@@ -84,7 +84,7 @@ JobMilestone.init(
   { sequelize, tableName: "job_milestones" },
 );
 
-export type JobEventKind = "awarded" | "milestone_reached" | "milestone_undone" | "target_changed" | "progress_note" | "manager_note" | "retainer_paid";
+export type JobEventKind = "awarded" | "milestone_reached" | "milestone_undone" | "target_changed" | "progress_note" | "manager_note" | "retainer_paid" | "retainer_refunded";
 
 /** One entry of a job's history: who did what, when. */
 export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttributes<JobEvent>> {

@@ -16,6 +16,8 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
   declare region: string | null;
   /** The operator's account manager who follows this buyer account. */
   declare accountManagerId: ForeignKey<string> | null;
+  /** The Stripe customer of a buyer organisation, made with its first payment. */
+  declare stripeCustomerId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -27,6 +29,7 @@ Organisation.init(
     kind: { type: DataTypes.ENUM(...ORGANISATION_KINDS), allowNull: false },
     region: { type: DataTypes.STRING(80), allowNull: true },
     accountManagerId: { type: DataTypes.UUID, allowNull: true },
+    stripeCustomerId: { type: DataTypes.STRING(255), allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

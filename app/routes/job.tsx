@@ -30,12 +30,44 @@ import {
   type JobEventView,
 } from "~/services/jobs.server";
 import { deliverDueMail } from "~/services/mail.server";
+import { paymentsOfJob } from "~/services/payments.server";
+import { RetainerPanel } from "~/components/retainer-panel";
+import type { PaymentStatus } from "~/content/payment-status";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.job.specTitle || "Job"} · Tenderflow` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  return { job: await jobFor(user, params.jobId) };
+  const job = await jobFor(user, params.jobId);
+  // Payment attempts are the buyer's and the operator's business, not the shop's.
+  const seesPayments = user.role === "buyer" || user.role === "account_manager" || user.role === "admin";
+  const payments = seesPayments ? await paymentsOfJob(job.id) : [];
+  return {
+    job,
+    retainer: {
+      canPay: user.role === "buyer" && job.retainerCents > 0,
+      canRefund: user.role === "account_manager" || user.role === "admin",
+      payments: payments.map((p) => ({
+        id: p.id,
+        status: p.status as PaymentStatus,
+        amountCents: p.amountCents,
+        refundedCents: p.refundedCents,
+        currency: p.currency,
+        failureMessage: p.failureMessage,
+        createdAt: p.createdAt.toISOString(),
+        paidAt: p.paidAt?.toISOString() ?? null,
+        refunds: ((p as unknown as { refunds?: import("~/models/index.server").Refund[] }).refunds ?? []).map((r) => ({
+          id: r.id,
+          amountCents: r.amountCents,
+          reason: r.reason,
+          status: r.status as "requested" | "recorded" | "failed",
+          by: (r as unknown as { requestedBy?: { name: string } }).requestedBy?.name ?? "",
+          at: r.createdAt.toISOString(),
+          failureMessage: r.failureMessage,
+        })),
+      })),
+    },
+  };
 }
 
 type ActionResult = { intent: JobActionIntent | null; result: SubmissionResult<string[]> };
@@ -84,7 +116,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 type Job = Route.ComponentProps["loaderData"]["job"];
 
 export default function JobPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { job } = loaderData;
+  const { job, retainer } = loaderData;
   const result = (intent: JobActionIntent) => (actionData?.intent === intent ? actionData.result : undefined);
   return (
     <>
@@ -124,6 +156,16 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
         </div>
         {/* Keyed by the history's length, so every saved change starts the forms afresh. */}
         <div key={job.events.length} className="space-y-6">
+          {retainer.canPay || retainer.canRefund || retainer.payments.length ? (
+            <RetainerPanel
+              jobId={job.id}
+              retainer={formatMoney(job.retainerCents, job.currency)}
+              paid={Boolean(job.retainerPaidAt)}
+              canPay={retainer.canPay}
+              canRefund={retainer.canRefund}
+              payments={retainer.payments}
+            />
+          ) : null}
           {job.canRecordProgress ? (
             <>
               {job.open.length ? <ReachForm job={job} lastResult={result("reach")} /> : null}
@@ -219,7 +261,9 @@ function describe(e: JobEventView, job: Job) {
     case "manager_note":
       return "Internal note.";
     case "retainer_paid":
-      return "Retainer paid.";
+      return `Paid the retainer of ${formatMoney(Number(e.detail.amountCents), String(e.detail.currency))} by card.`;
+    case "retainer_refunded":
+      return `Paid back ${formatMoney(Number(e.detail.amountCents), String(e.detail.currency))} of the retainer.`;
   }
 }
 

@@ -534,3 +534,22 @@ async function tellParties(transaction: Transaction, job: Job, milestones: JobMi
     );
   }
 }
+
+/**
+ * Records the retainer as received, inside the payment webhook's transaction: the milestone is
+ * reached by the buyer who paid, the job notes when, and the history says which payment.
+ * Idempotent: a job already paid keeps its first date.
+ */
+export async function recordRetainerReceived(transaction: Transaction, args: { jobId: string; paidById: string; paidAt: Date; paymentId: string; amountCents: number; currency: string }) {
+  const job = await Job.findByPk(args.jobId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+  if (job.retainerPaidAt) return false;
+  const milestones = await JobMilestone.findAll({ where: { jobId: job.id }, order: [["position", "ASC"]], transaction });
+  const milestone = milestones.find((m) => m.key === PAYMENT_MILESTONE)!;
+  if (!milestone.reachedAt) await milestone.update({ reachedAt: args.paidAt, reachedById: args.paidById }, { transaction });
+  await job.update({ retainerPaidAt: args.paidAt, stage: stageOf(milestones) }, { transaction });
+  await JobEvent.create(
+    { jobId: job.id, userId: args.paidById, kind: "retainer_paid", milestone: PAYMENT_MILESTONE, detail: { paymentId: args.paymentId, amountCents: args.amountCents, currency: args.currency } },
+    { transaction },
+  );
+  return true;
+}

@@ -23,6 +23,9 @@ Object.assign(process.env, {
   SMTP_PORT: String(inject("smtpPort")),
   MAILDEV_URL: inject("maildevUrl"),
   BCRYPT_COST: "10",
+  STRIPE_SECRET_KEY: "sk_test_tenderflowTests",
+  STRIPE_WEBHOOK_SECRET: inject("stripeWebhookSecret"),
+  STRIPE_API_URL: inject("stripeUrl"),
   UPLOAD_DIR: `${(await import("node:os")).tmpdir()}/tenderflow-uploads-${dbName}`,
 });
 

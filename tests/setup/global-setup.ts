@@ -1,5 +1,6 @@
 // Starts what every test file shares: a throwaway PostgreSQL cluster with a migrated template
-// database (each file clones its own database from it) and a maildev inbox.
+// database (each file clones its own database from it), a maildev inbox and the Stripe fake
+// (for API calls; a file that needs webhooks delivered starts its own fake pointed at its app).
 import { mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -9,6 +10,7 @@ import { Sequelize } from "sequelize";
 import type { TestProject } from "vitest/node";
 import { freePort, removeCluster, startCluster, stopCluster } from "../../db/cluster";
 import { migrator } from "../../db/migrator";
+import { startStripeFake } from "../../fakes/stripe";
 
 export const TEMPLATE_DB = "tenderflow_template";
 
@@ -18,6 +20,8 @@ declare module "vitest" {
     templateDb: string;
     smtpPort: number;
     maildevUrl: string;
+    stripeUrl: string;
+    stripeWebhookSecret: string;
   }
 }
 
@@ -47,12 +51,18 @@ export default async function setup(project: TestProject) {
   } as ConstructorParameters<typeof MailDev>[0]);
   await maildev.start();
 
+  const stripeWebhookSecret = "whsec_tenderflowTests";
+  const stripe = await startStripeFake({ webhookSecret: stripeWebhookSecret });
+
+  project.provide("stripeUrl", stripe.url);
+  project.provide("stripeWebhookSecret", stripeWebhookSecret);
   project.provide("postgresUrl", cluster.url());
   project.provide("templateDb", TEMPLATE_DB);
   project.provide("smtpPort", smtpPort);
   project.provide("maildevUrl", `http://127.0.0.1:${webPort}`);
 
   return async () => {
+    await stripe.close();
     await maildev.stop();
     stopCluster(cluster, "immediate");
     removeCluster(cluster);

@@ -1,0 +1,104 @@
+import { Form, useFetcher, useSearchParams } from "react-router";
+import { Badge, Button, Card, Notice } from "./ui";
+import { FieldErrors as FieldErrorText } from "./form-field";
+import { formatMoney } from "~/content/currencies";
+import { formatMoment } from "~/content/job-dates";
+import { PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
+
+export interface PaymentView {
+  id: string;
+  status: PaymentStatus;
+  amountCents: number;
+  refundedCents: number;
+  currency: string;
+  failureMessage: string | null;
+  createdAt: string;
+  paidAt: string | null;
+  refunds: { id: string; amountCents: number; reason: string; status: "requested" | "recorded" | "failed"; by: string; at: string; failureMessage: string | null }[];
+}
+
+const REFUND_LABELS = { requested: "Waiting for the card service", recorded: "Paid back", failed: "Refused" } as const;
+
+// The retainer on the job page: the buyer pays (or tries again after a decline); account
+// managers and admins see every attempt and can pay some or all of it back.
+export function RetainerPanel({
+  jobId,
+  retainer,
+  paid,
+  canPay,
+  canRefund,
+  payments,
+}: {
+  jobId: string;
+  retainer: string;
+  paid: boolean;
+  canPay: boolean;
+  canRefund: boolean;
+  payments: PaymentView[];
+}) {
+  const [params] = useSearchParams();
+  const last = payments[0];
+  return (
+    <Card className="space-y-4">
+      <h2 className="font-semibold">Retainer</h2>
+      {params.get("payment") === "cancelled" && !paid ? <Notice tone="warn">You left the payment page; nothing was charged.</Notice> : null}
+      {canPay && !paid ? (
+        <>
+          {last?.status === "failed" ? (
+            <Notice tone="bad">
+              The last card was declined{last.failureMessage ? `: ${last.failureMessage}` : "."} Nothing was charged. Try again, with another card if need be.
+            </Notice>
+          ) : null}
+          <p className="text-sm text-ink-600">Paid by card on the card service's secure page; the shop starts once it is received.</p>
+          <Form method="post" action={`/jobs/${jobId}/pay`}>
+            <Button type="submit">{last?.status === "failed" ? `Try again: pay ${retainer}` : `Pay the retainer of ${retainer}`}</Button>
+          </Form>
+        </>
+      ) : null}
+      {payments.length ? (
+        <ul className="space-y-3 text-sm">
+          {payments.map((p) => (
+            <li key={p.id} className="rounded-md bg-ink-50 p-3">
+              <p className="flex flex-wrap items-center gap-2">
+                <Badge tone={PAYMENT_STATUS_TONES[p.status]}>{PAYMENT_STATUS_LABELS[p.status]}</Badge>
+                <span className="font-semibold tabular-nums">{formatMoney(p.amountCents, p.currency)}</span>
+                <span className="text-ink-600">{p.paidAt ? `paid ${formatMoment(p.paidAt)}` : `started ${formatMoment(p.createdAt)}`}</span>
+              </p>
+              {p.refundedCents ? <p className="mt-1">Paid back so far: {formatMoney(p.refundedCents, p.currency)}</p> : null}
+              {p.refunds.map((r) => (
+                <p key={r.id} className="mt-1 text-ink-700">
+                  {formatMoney(r.amountCents, p.currency)} · {REFUND_LABELS[r.status]} · {r.reason} ({r.by}, {formatMoment(r.at)}){r.failureMessage ? ` — ${r.failureMessage}` : ""}
+                </p>
+              ))}
+              {canRefund && (p.status === "paid" || p.status === "partially_refunded") ? <RefundForm payment={p} /> : null}
+            </li>
+          ))}
+        </ul>
+      ) : !canPay ? (
+        <p className="text-sm text-ink-600">{paid ? "Paid." : "The buyer has not paid yet."}</p>
+      ) : null}
+    </Card>
+  );
+}
+
+function RefundForm({ payment }: { payment: PaymentView }) {
+  const fetcher = useFetcher<{ result?: { error?: Record<string, string[] | null> } }>();
+  const errors = fetcher.data?.result?.error ?? {};
+  const id = `refund-${payment.id}`;
+  return (
+    <fetcher.Form method="post" action={`/payments/${payment.id}/refund`} className="mt-3 space-y-2 border-t border-ink-200 pt-3">
+      <p className="font-semibold">Pay back</p>
+      <div>
+        <label htmlFor={`${id}-amount`} className="block text-xs font-semibold">Amount ({payment.currency}), empty for all that is left</label>
+        <input id={`${id}-amount`} name="amount" inputMode="decimal" className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200" aria-invalid={errors.amount ? true : undefined} />
+        <FieldErrorText id={`${id}-amount-error`} errors={errors.amount ?? undefined} />
+      </div>
+      <div>
+        <label htmlFor={`${id}-reason`} className="block text-xs font-semibold">Reason</label>
+        <input id={`${id}-reason`} name="reason" className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200" aria-invalid={errors.reason ? true : undefined} />
+        <FieldErrorText id={`${id}-reason-error`} errors={errors.reason ?? undefined} />
+      </div>
+      <Button type="submit" tone="secondary" disabled={fetcher.state !== "idle"}>Pay back</Button>
+    </fetcher.Form>
+  );
+}

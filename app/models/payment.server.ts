@@ -1,0 +1,111 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+} from "sequelize";
+import { sequelize } from "~/db.server";
+import { PAYMENT_STATUSES, type PaymentStatus } from "~/content/payment-status";
+
+const cents = (name: string, defaultValue?: number) => ({
+  type: DataTypes.BIGINT,
+  allowNull: false,
+  ...(defaultValue === undefined ? {} : { defaultValue }),
+  get(this: Model) {
+    return Number(this.getDataValue(name));
+  },
+});
+
+/** One attempt to pay a job's retainer through a Stripe Checkout Session. */
+export class Payment extends Model<InferAttributes<Payment>, InferCreationAttributes<Payment>> {
+  declare id: CreationOptional<string>;
+  declare jobId: string;
+  declare buyerOrganisationId: string;
+  declare createdById: string;
+  declare status: CreationOptional<PaymentStatus>;
+  declare amountCents: number;
+  declare refundedCents: CreationOptional<number>;
+  declare currency: string;
+  declare checkoutSessionId: string | null;
+  declare checkoutUrl: string | null;
+  declare paymentIntentId: string | null;
+  declare customerId: string | null;
+  declare failureMessage: string | null;
+  declare paidAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+Payment.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    jobId: { type: DataTypes.UUID, allowNull: false },
+    buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
+    createdById: { type: DataTypes.UUID, allowNull: false },
+    status: { type: DataTypes.ENUM(...PAYMENT_STATUSES), allowNull: false, defaultValue: "pending" },
+    amountCents: cents("amountCents"),
+    refundedCents: cents("refundedCents", 0),
+    currency: { type: DataTypes.STRING(3), allowNull: false },
+    checkoutSessionId: { type: DataTypes.STRING(255), allowNull: true },
+    checkoutUrl: { type: DataTypes.TEXT, allowNull: true },
+    paymentIntentId: { type: DataTypes.STRING(255), allowNull: true },
+    customerId: { type: DataTypes.STRING(255), allowNull: true },
+    failureMessage: { type: DataTypes.TEXT, allowNull: true },
+    paidAt: { type: DataTypes.DATE, allowNull: true },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "payments" },
+);
+
+export class Refund extends Model<InferAttributes<Refund>, InferCreationAttributes<Refund>> {
+  declare id: CreationOptional<string>;
+  declare paymentId: string;
+  declare requestedById: string;
+  declare amountCents: number;
+  declare reason: string;
+  declare status: CreationOptional<"requested" | "recorded" | "failed">;
+  declare stripeRefundId: string | null;
+  declare failureMessage: string | null;
+  declare recordedAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+Refund.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    paymentId: { type: DataTypes.UUID, allowNull: false },
+    requestedById: { type: DataTypes.UUID, allowNull: false },
+    amountCents: cents("amountCents"),
+    reason: { type: DataTypes.TEXT, allowNull: false },
+    status: { type: DataTypes.ENUM("requested", "recorded", "failed"), allowNull: false, defaultValue: "requested" },
+    stripeRefundId: { type: DataTypes.STRING(255), allowNull: true },
+    failureMessage: { type: DataTypes.TEXT, allowNull: true },
+    recordedAt: { type: DataTypes.DATE, allowNull: true },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "refunds" },
+);
+
+/** A webhook event as received; its id is Stripe's, so each is handled once. */
+export class StripeEvent extends Model<InferAttributes<StripeEvent>, InferCreationAttributes<StripeEvent>> {
+  declare id: string;
+  declare type: string;
+  declare outcome: string;
+  declare payload: Record<string, unknown>;
+  declare receivedAt: CreationOptional<Date>;
+}
+
+StripeEvent.init(
+  {
+    id: { type: DataTypes.STRING(255), primaryKey: true },
+    type: { type: DataTypes.STRING(100), allowNull: false },
+    outcome: { type: DataTypes.STRING(200), allowNull: false },
+    payload: { type: DataTypes.JSONB, allowNull: false },
+    receivedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+  },
+  { sequelize, tableName: "stripe_events", timestamps: false },
+);

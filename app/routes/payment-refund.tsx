@@ -1,0 +1,29 @@
+import { parseWithZod } from "@conform-to/zod/v4";
+import { data, redirect } from "react-router";
+import type { Route } from "./+types/payment-refund";
+import { requireRole } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { formatMoney } from "~/content/currencies";
+import { refundSchema } from "~/schemas/payments";
+import { FieldErrors } from "~/services/errors.server";
+import { requestRefund } from "~/services/payments.server";
+import { Payment } from "~/models/index.server";
+
+// An account manager (or admin) pays back part or all of a retainer, from the job page.
+export async function action({ request, params }: Route.ActionArgs) {
+  const user = await requireRole(request, ["account_manager", "admin"]);
+  const submission = parseWithZod(await request.formData(), { schema: refundSchema });
+  if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
+  try {
+    const refund = await requestRefund(user, params.paymentId, { amountCents: submission.value.amount, reason: submission.value.reason });
+    const payment = await Payment.findByPk(refund.paymentId, { rejectOnEmpty: true });
+    return redirectWithToast(request, `/jobs/${payment.jobId}`, `Refund of ${formatMoney(refund.amountCents, payment.currency)} sent to the card service; it is recorded here once they confirm it.`);
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return data({ result: submission.reply({ fieldErrors: error.fieldErrors }) }, { status: 400 });
+  }
+}
+
+export function loader() {
+  return redirect("/payments");
+}

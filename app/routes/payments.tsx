@@ -1,0 +1,103 @@
+import { Form, Link, useSearchParams } from "react-router";
+import type { Route } from "./+types/payments";
+import { requireRole } from "~/auth/permissions.server";
+import { Badge, Button, Card, EmptyState, PageHeader, Pager } from "~/components/ui";
+import { formatMoney } from "~/content/currencies";
+import { formatMoment } from "~/content/job-dates";
+import { PAYMENT_STATUSES, PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
+import { paymentListSchema } from "~/schemas/payments";
+import { listPayments } from "~/services/payments.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Payments · Tenderflow" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const user = await requireRole(request, ["buyer", "account_manager", "admin"]);
+  const query = paymentListSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
+  const { payments, total, page, pageCount } = await listPayments(user, query);
+  return {
+    role: user.role,
+    total,
+    page,
+    pageCount,
+    payments: payments.map((p) => ({
+      id: p.id,
+      jobId: p.jobId,
+      specId: p.job.spec.id,
+      specTitle: p.job.spec.title,
+      buyer: p.buyerOrganisation.name,
+      shop: p.job.shopOrganisation.name,
+      status: p.status as PaymentStatus,
+      amountCents: p.amountCents,
+      refundedCents: p.refundedCents,
+      currency: p.currency,
+      createdAt: p.createdAt.toISOString(),
+      paidAt: p.paidAt?.toISOString() ?? null,
+    })),
+  };
+}
+
+export default function Payments({ loaderData: d }: Route.ComponentProps) {
+  const [params] = useSearchParams();
+  return (
+    <>
+      <PageHeader
+        title="Payments"
+        lead={d.role === "buyer" ? "Every retainer your organisation has paid or tried to pay by card." : d.role === "admin" ? "Every retainer payment on Tenderflow." : "Retainer payments of the buyer accounts you follow."}
+      />
+      <Card>
+        <Form method="get" className="mb-4 flex flex-wrap items-end gap-3 text-sm">
+          <label>
+            <span className="block font-semibold">Status</span>
+            <select name="status" defaultValue={params.get("status") ?? ""} className="rounded-md px-2 py-1.5 ring-1 ring-ink-200">
+              <option value="">Any</option>
+              {PAYMENT_STATUSES.map((s) => (
+                <option key={s} value={s}>{PAYMENT_STATUS_LABELS[s]}</option>
+              ))}
+            </select>
+          </label>
+          <Button type="submit" tone="secondary">Apply</Button>
+        </Form>
+        {d.payments.length === 0 ? (
+          <EmptyState title={params.get("status") ? "No payment has that status" : "No payments yet"}>
+            <p>A retainer is paid by card after a bid is awarded; each attempt is listed here with its status.</p>
+          </EmptyState>
+        ) : (
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm">
+              <thead className="text-ink-600">
+                <tr>
+                  <th scope="col" className="py-2 pr-3">Job</th>
+                  <th scope="col" className="pr-3">Buyer</th>
+                  <th scope="col" className="pr-3">Shop</th>
+                  <th scope="col" className="pr-3">Status</th>
+                  <th scope="col" className="pr-3 text-right">Amount</th>
+                  <th scope="col" className="pr-3 text-right">Paid back</th>
+                  <th scope="col" className="pr-3">Started</th>
+                  <th scope="col">Paid</th>
+                </tr>
+              </thead>
+              <tbody>
+                {d.payments.map((p) => (
+                  <tr key={p.id} className="border-t border-ink-100 align-top">
+                    <td className="py-2 pr-3">
+                      <Link to={`/jobs/${p.jobId}`} className="font-semibold text-flow-700 hover:underline">{p.specTitle}</Link>
+                      <Link to={`/specs/${p.specId}`} className="block text-xs text-ink-600 hover:underline">the spec</Link>
+                    </td>
+                    <td className="py-2 pr-3">{p.buyer}</td>
+                    <td className="py-2 pr-3">{p.shop}</td>
+                    <td className="py-2 pr-3"><Badge tone={PAYMENT_STATUS_TONES[p.status]}>{PAYMENT_STATUS_LABELS[p.status]}</Badge></td>
+                    <td className="py-2 pr-3 text-right tabular-nums">{formatMoney(p.amountCents, p.currency)}</td>
+                    <td className="py-2 pr-3 text-right tabular-nums">{p.refundedCents ? formatMoney(p.refundedCents, p.currency) : "—"}</td>
+                    <td className="py-2 pr-3">{formatMoment(p.createdAt)}</td>
+                    <td className="py-2">{p.paidAt ? formatMoment(p.paidAt) : "—"}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+        <Pager page={d.page} pageCount={d.pageCount} search={params} />
+      </Card>
+    </>
+  );
+}

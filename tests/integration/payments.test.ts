@@ -1,0 +1,268 @@
+// The retainer's money path on real PostgreSQL, through the official Stripe SDK against the
+// local fake: the session, the hosted page, the signed webhook (bad, replayed, unknown), a
+// declined card, refunds, and who may see or do what.
+import Stripe from "stripe";
+import { beforeAll, describe, expect, it } from "vitest";
+import * as signIn from "~/routes/sign-in";
+import * as pay from "~/routes/job-pay";
+import * as paymentPage from "~/routes/job-payment";
+import * as jobPage from "~/routes/job";
+import * as paymentsPage from "~/routes/payments";
+import * as refund from "~/routes/payment-refund";
+import * as webhook from "~/routes/webhooks.stripe";
+import { Job, JobEvent, JobMilestone, Organisation, Payment, Refund, StripeEvent, type User } from "~/models/index.server";
+import { awardBid } from "~/services/award.server";
+import { bomOf, saveBid } from "~/services/bids.server";
+import { deliverDueMail } from "~/services/mail.server";
+import { mailsTo, waitForMail } from "../support/mailbox";
+import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { Visitor, call } from "../support/routes";
+
+const stripe = new Stripe(process.env.STRIPE_SECRET_KEY!, (() => {
+  const url = new URL(process.env.STRIPE_API_URL!);
+  return { host: url.hostname, port: Number(url.port), protocol: "http" as const };
+})());
+const SECRET = process.env.STRIPE_WEBHOOK_SECRET!;
+
+async function signedIn(user: User) {
+  const visitor = new Visitor();
+  await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+  return visitor;
+}
+
+let buyer: User;
+let shop: User;
+let manager: User;
+let visitors: Record<"buyer" | "shop" | "manager", Visitor>;
+
+/** An awarded job of `buyer`'s: one spec, one offer of 100.00 a line. */
+async function awardedJob() {
+  const spec = await makePublishedSpec(buyer);
+  const bom = await bomOf(spec);
+  const bid = await saveBid(shop, spec, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
+  return awardBid(buyer, spec.id, bid.id);
+}
+
+/** Posts an event to the webhook as Stripe would, signed with the endpoint's secret. */
+function deliver(event: unknown, signature?: string | null) {
+  const payload = JSON.stringify(event);
+  const headers = new Headers({ "Content-Type": "application/json" });
+  const header = signature === undefined ? stripe.webhooks.generateTestHeaderString({ payload, secret: SECRET }) : signature;
+  if (header) headers.set("Stripe-Signature", header);
+  return call(webhook.action, new Request("http://127.0.0.1:3000/webhooks/stripe", { method: "POST", body: payload, headers }));
+}
+
+/** The fake's event of `type` about `objectId`, as its API lists it. */
+async function eventAbout(type: string, objectId: string, match: (o: Record<string, unknown>) => boolean = (o) => o.id === objectId) {
+  for (let i = 0; i < 50; i++) {
+    const { data } = await stripe.events.list({ type, limit: 100 });
+    const found = data.find((e) => match(e.data.object as unknown as Record<string, unknown>));
+    if (found) return found;
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`No ${type} event for ${objectId}`);
+}
+
+/** Submits the fake's hosted page with a card, as the buyer's browser would. */
+const payOnPage = (url: string, card: string) =>
+  fetch(url, { method: "POST", body: new URLSearchParams({ card_number: card, expiry: `12 / ${(new Date().getFullYear() + 3) % 100}`, cvc: "123" }), redirect: "manual" });
+
+beforeAll(async () => {
+  buyer = await makeMember("buyer");
+  shop = await makeMember("shop");
+  manager = await makeOperatorUser("account_manager");
+  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  visitors = { buyer: await signedIn(buyer), shop: await signedIn(shop), manager: await signedIn(manager) };
+});
+
+describe("paying the retainer", () => {
+  it("creates one session with the right amount and metadata, pays through the hosted page, and applies the webhook once", async () => {
+    const job = await awardedJob();
+    const started = await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id });
+    expect(started.status).toBe(302);
+    const url = started.location!;
+    expect(url.startsWith(process.env.STRIPE_API_URL!)).toBe(true);
+    const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+    const session = await stripe.checkout.sessions.retrieve(payment.checkoutSessionId!, { expand: ["line_items"] });
+    expect(session).toMatchObject({ mode: "payment", amount_total: job.retainerCents, currency: "gbp", status: "open", client_reference_id: job.id });
+    expect(session.metadata).toEqual({ payment_id: payment.id, job_id: job.id });
+    expect(session.customer).toBe((await Organisation.findByPk(buyer.organisationId, { rejectOnEmpty: true })).stripeCustomerId);
+    expect(session.success_url).toBe(`http://127.0.0.1:3000/jobs/${job.id}/payment?session_id={CHECKOUT_SESSION_ID}`);
+
+    // A second click reuses the attempt: one payment row, the same page.
+    const again = await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id });
+    expect(again.location).toBe(url);
+    expect(await Payment.count({ where: { jobId: job.id } })).toBe(1);
+
+    // Paying on the hosted page sends the buyer back, where the page waits for the webhook.
+    const paid = await payOnPage(url, "4242 4242 4242 4242");
+    expect(paid.status).toBe(303);
+    const back = new URL(paid.headers.get("Location")!);
+    expect(back.pathname).toBe(`/jobs/${job.id}/payment`);
+    const waiting = await visitors.buyer.get(paymentPage.loader, back.pathname + back.search, { jobId: job.id });
+    expect(waiting.data.status).toBe("pending");
+    expect((await job.reload()).retainerPaidAt).toBeNull();
+
+    // A bad or missing signature: 400 and nothing changes.
+    const completed = await eventAbout("checkout.session.completed", session.id);
+    expect((await deliver(completed, "t=1,v1=deadbeef")).status).toBe(400);
+    expect((await deliver(completed, null)).status).toBe(400);
+    expect((await deliver({ ...completed, id: "evt_forged" }, stripe.webhooks.generateTestHeaderString({ payload: JSON.stringify(completed), secret: SECRET }))).status).toBe(400);
+    expect(await StripeEvent.count()).toBe(0);
+    expect((await payment.reload()).status).toBe("pending");
+
+    const applied = await deliver(completed);
+    expect(applied.status).toBe(200);
+    expect(applied.data.outcome).toBe("paid");
+    await payment.reload();
+    expect(payment.status).toBe("paid");
+    expect(payment.paymentIntentId).toMatch(/^pi_/);
+    await job.reload();
+    expect(job.retainerPaidAt).not.toBeNull();
+    expect(job.stage).toBe("retainer_received");
+    const milestone = await JobMilestone.findOne({ where: { jobId: job.id, key: "retainer_received" }, rejectOnEmpty: true });
+    expect(milestone.reachedById).toBe(buyer.id);
+    expect((await visitors.buyer.get(paymentPage.loader, back.pathname + back.search, { jobId: job.id })).data.status).toBe("paid");
+
+    // Receipts to the payer and to the shop.
+    await deliverDueMail(500);
+    expect((await waitForMail(buyer.email, "Receipt: retainer")).text).toContain(payment.paymentIntentId!);
+    await waitForMail(shop.email, "Retainer received");
+
+    // The same event again changes nothing: one payment, one history row, no more mail.
+    const mailsBefore = (await mailsTo(buyer.email)).length;
+    const replayed = await deliver(completed);
+    expect(replayed.status).toBe(200);
+    expect(replayed.data.outcome).toBe("replay");
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "retainer_paid" } })).toBe(1);
+    expect(await Payment.count({ where: { jobId: job.id, status: "paid" } })).toBe(1);
+    await deliverDueMail(500);
+    expect((await mailsTo(buyer.email)).length).toBe(mailsBefore);
+
+    // Paid is paid: the button is gone and a forged click is refused.
+    const page = await visitors.buyer.get(jobPage.loader, `/jobs/${job.id}`, { jobId: job.id });
+    expect(page.data.job.retainerPaidAt).not.toBeNull();
+    const refused = await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id });
+    expect(refused.location).toBe(`/jobs/${job.id}`);
+    expect(await Payment.count({ where: { jobId: job.id } })).toBe(1);
+  });
+
+  it("logs an event for a session it doesn't know and carries on", async () => {
+    const event = { id: `evt_unknown_${Date.now()}`, object: "event", type: "checkout.session.completed", created: Math.floor(Date.now() / 1000), api_version: "2026-10-28.endive", livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null }, data: { object: { id: "cs_test_nobody", object: "checkout.session", payment_status: "paid", amount_total: 100, metadata: {} } } };
+    const res = await deliver(event);
+    expect(res.status).toBe(200);
+    expect(res.data.outcome).toMatch(/no payment for session cs_test_nobody/);
+    expect((await StripeEvent.findByPk(event.id, { rejectOnEmpty: true })).outcome).toMatch(/no payment/);
+  });
+
+  it("leaves the job unpaid after a declined card, says so, and lets the buyer try again", async () => {
+    const job = await awardedJob();
+    const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
+    const declined = await payOnPage(url, "4000 0000 0000 0002");
+    expect(declined.status).toBe(402);
+    expect(await declined.text()).toMatch(/declined/i);
+    const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+    const failed = await eventAbout("payment_intent.payment_failed", "", (o) => (o.metadata as Record<string, string>)?.payment_id === payment.id);
+    expect((await deliver(failed)).data.outcome).toBe("declined");
+    await payment.reload();
+    expect(payment.status).toBe("failed");
+    expect(payment.failureMessage).toMatch(/declined/i);
+    expect((await job.reload()).retainerPaidAt).toBeNull();
+    const page = await visitors.buyer.get(jobPage.loader, `/jobs/${job.id}`, { jobId: job.id });
+    expect(page.data.retainer.payments[0]).toMatchObject({ status: "failed" });
+    // Trying again goes back to the same open page, where another card can pay.
+    expect((await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location).toBe(url);
+    expect((await payOnPage(url, "4242 4242 4242 4242")).status).toBe(303);
+    expect((await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!))).data.outcome).toBe("paid");
+    expect((await payment.reload()).status).toBe("paid");
+  });
+});
+
+describe("refunds", () => {
+  it("pays back part, then the rest, recorded from the webhook; never more than was paid", async () => {
+    const job = await awardedJob();
+    const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
+    await payOnPage(url, "4242 4242 4242 4242");
+    const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+    await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
+    await payment.reload();
+
+    const post = (fields: Record<string, string>, visitor = visitors.manager) => visitor.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id });
+    expect((await post({ amount: "100", reason: "" })).status).toBe(400);
+    expect((await post({ amount: "12,5", reason: "Overcharged" })).status).toBe(400);
+    const tooMuch = await post({ amount: String(payment.amountCents), reason: "Too much" });
+    expect(tooMuch.status).toBe(400);
+    expect(tooMuch.data.result.error.amount[0]).toMatch(/At most/);
+
+    const partial = await post({ amount: "100.00", reason: "Paint left off the order" });
+    expect(partial.status).toBe(302);
+    const first = await Refund.findOne({ where: { paymentId: payment.id }, rejectOnEmpty: true });
+    expect(first).toMatchObject({ status: "requested", amountCents: 10_000 });
+    expect(first.stripeRefundId).toMatch(/^re_/);
+    // Recorded only once the webhook says so.
+    expect((await payment.reload()).refundedCents).toBe(0);
+    const charge = await eventAbout("charge.refunded", "", (o) => o.payment_intent === payment.paymentIntentId && o.amount_refunded === 10_000);
+    expect((await deliver(charge)).data.outcome).toBe("refunded 10000");
+    await payment.reload();
+    expect(payment).toMatchObject({ status: "partially_refunded", refundedCents: 10_000 });
+    expect((await first.reload()).status).toBe("recorded");
+    expect((await deliver(charge)).data.outcome).toBe("replay");
+
+    const rest = await post({ amount: "", reason: "Job cancelled by the buyer" });
+    expect(rest.status).toBe(302);
+    const all = await eventAbout("charge.refunded", "", (o) => o.payment_intent === payment.paymentIntentId && o.amount_refunded === payment.amountCents);
+    await deliver(all);
+    await payment.reload();
+    expect(payment).toMatchObject({ status: "refunded", refundedCents: payment.amountCents });
+    expect(await Refund.count({ where: { paymentId: payment.id, status: "recorded" } })).toBe(2);
+    expect((await post({ amount: "1", reason: "More" })).status).toBe(400);
+    await deliverDueMail(500);
+    await waitForMail(buyer.email, "Refund of");
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "retainer_refunded" } })).toBe(2);
+  });
+});
+
+describe("who may see and do what", () => {
+  it("lists payments for their own organisation, their accounts, or everyone", async () => {
+    const job = await awardedJob();
+    await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id });
+    const ownIds = (await Payment.findAll({ where: { buyerOrganisationId: buyer.organisationId } })).map((p) => p.id).sort();
+    const ids = async (visitor: Visitor) => ((await visitor.get(paymentsPage.loader, "/payments")).data.payments as { id: string }[]).map((p) => p.id).sort();
+    expect(await ids(visitors.buyer)).toEqual(ownIds);
+    expect(await ids(visitors.manager)).toEqual(ownIds);
+    expect(await ids(await signedIn(await makeMember("buyer")))).toEqual([]);
+    expect(await ids(await signedIn(await makeOperatorUser("account_manager")))).toEqual([]);
+    expect((await ids(await signedIn(await makeOperatorUser("admin")))).length).toBeGreaterThanOrEqual(ownIds.length);
+    expect((await visitors.shop.get(paymentsPage.loader, "/payments")).status).toBe(403);
+    const out = await new Visitor().get(paymentsPage.loader, "/payments");
+    expect(out.location).toBe("/sign-in?redirectTo=%2Fpayments");
+  });
+
+  it("lets only the buyer pay, only the account's manager or an admin refund, and hides other organisations' jobs", async () => {
+    const job = await awardedJob();
+    expect((await visitors.shop.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).status).toBe(403);
+    expect((await visitors.manager.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).status).toBe(403);
+    const stranger = await signedIn(await makeMember("buyer"));
+    expect((await stranger.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).status).toBe(404);
+    for (const id of ["00000000-0000-4000-8000-000000000000", "forged"]) expect((await visitors.buyer.post(pay.action, `/jobs/${id}/pay`, {}, { jobId: id })).status).toBe(404);
+    expect((await new Visitor().post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).status).toBe(302);
+
+    const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
+    await payOnPage(url, "4242 4242 4242 4242");
+    const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+    await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
+    const sessionPath = `/jobs/${job.id}/payment?session_id=${payment.checkoutSessionId}`;
+    expect((await stranger.get(paymentPage.loader, sessionPath, { jobId: job.id })).status).toBe(404);
+    expect((await visitors.buyer.get(paymentPage.loader, `/jobs/${job.id}/payment?session_id=cs_test_other`, { jobId: job.id })).status).toBe(404);
+
+    const fields = { amount: "1", reason: "Test" };
+    expect((await visitors.buyer.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id })).status).toBe(403);
+    expect((await visitors.shop.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id })).status).toBe(403);
+    const otherManager = await signedIn(await makeOperatorUser("account_manager"));
+    expect((await otherManager.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id })).status).toBe(404);
+    expect(await Refund.count({ where: { paymentId: payment.id } })).toBe(0);
+    // The shop sees the job but not the payment attempts.
+    expect((await visitors.shop.get(jobPage.loader, `/jobs/${job.id}`, { jobId: job.id })).data.retainer.payments).toEqual([]);
+    expect((await Job.findByPk(job.id, { rejectOnEmpty: true })).retainerPaidAt).not.toBeNull();
+  });
+});

@@ -38,7 +38,8 @@ export async function startBrowserApp(): Promise<BrowserApp> {
   await buildOnce();
   const port = await freePort();
   const logs: string[] = [];
-  const server: ChildProcess = await serveBuild(port, { ...process.env, NODE_ENV: "production" }, (l) => logs.push(l));
+  // APP_URL is this server's own address: links in mail and the payment page's way back lead here.
+  const server: ChildProcess = await serveBuild(port, { ...process.env, NODE_ENV: "production", APP_URL: `http://127.0.0.1:${port}` }, (l) => logs.push(l));
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
     args: ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run", "--disable-quic"],

@@ -1,0 +1,105 @@
+// The money path in a real browser: the buyer of an awarded job is sent to the fake card
+// service's page, a declined card is explained and retried, a good card pays, the job shows the
+// retainer as received once the signed webhook arrives — and replaying every webhook the fake
+// sent changes nothing.
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { Job, JobEvent, OutboxMail, Payment, StripeEvent, type User } from "~/models/index.server";
+import { awardBid } from "~/services/award.server";
+import { bomOf, saveBid } from "~/services/bids.server";
+import { startStripeFake, type StripeFake } from "../../fakes/stripe";
+import { PASSWORD, inDays, makeMember, makePublishedSpec } from "../support/factories";
+import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+
+let app: BrowserApp;
+let fake: StripeFake;
+let buyer: User;
+let job: Job;
+
+beforeAll(async () => {
+  // This file's own fake, so its webhooks reach this file's app server.
+  fake = await startStripeFake({ webhookSecret: process.env.STRIPE_WEBHOOK_SECRET! });
+  process.env.STRIPE_API_URL = fake.url;
+  buyer = await makeMember("buyer", { organisationName: "Saltmarsh Baling Machines" });
+  const shop = await makeMember("shop", { organisationName: "Tollgate Hydraulics" });
+  const spec = await makePublishedSpec(buyer, { machine: { title: "Baler, compaction ram" } });
+  const bom = await bomOf(spec);
+  const bid = await saveBid(shop, spec, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "250" })), leadTimeWeeks: 9, validUntil: inDays(40) });
+  job = await awardBid(buyer, spec.id, bid.id);
+  app = await startBrowserApp();
+  fake.setWebhookUrl(`${app.baseUrl}/webhooks/stripe`);
+}, 180_000);
+afterAll(async () => {
+  await app?.close();
+  await fake?.close();
+});
+
+const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `payments-${name}.png`), fullPage: true });
+
+async function fillCard(page: Page, number: string) {
+  await page.getByLabel("Card number").fill(number);
+  await page.getByLabel("Expiry (MM / YY)").fill(`12 / ${(new Date().getFullYear() + 3) % 100}`);
+  await page.getByLabel("Security code").fill("123");
+  await page.getByRole("button", { name: /^Pay / }).click();
+}
+
+describe("paying the retainer", () => {
+  it("a declined card is explained and retried, a good one pays, and replayed webhooks change nothing", { timeout: 180_000 }, async () => {
+    const page = await app.newPage();
+    await signInAs(page, buyer.email, PASSWORD);
+    await page.waitForURL("**/specs");
+    await page.goto(`/jobs/${job.id}`);
+    await hydrated(page);
+    await shot(page, "1-job-unpaid");
+    await page.getByRole("button", { name: /^Pay the retainer of/ }).click();
+    await page.waitForURL(`${fake.url}/checkout/**`);
+    expect(await page.getByTestId("total").textContent()).toBe(new Intl.NumberFormat("en-GB", { style: "currency", currency: "GBP" }).format(job.retainerCents / 100));
+
+    // Declined: the card service says so and nothing is charged.
+    await fillCard(page, "4000 0000 0000 0002");
+    await expect.poll(() => page.getByRole("alert").textContent()).toContain("Payment declined.");
+    await shot(page, "2-declined");
+    await fake.settled();
+    await page.getByRole("link", { name: "Cancel and go back" }).click();
+    await page.waitForURL(`**/jobs/${job.id}?payment=cancelled`);
+    await expect.poll(() => page.getByText(/The last card was declined/).count()).toBe(1);
+    expect((await job.reload()).retainerPaidAt).toBeNull();
+    await shot(page, "3-job-declined");
+
+    // Trying again, with a card that pays: back in the app, "processing" until the webhook lands.
+    await page.getByRole("button", { name: /^Try again: pay/ }).click();
+    await page.waitForURL(`${fake.url}/checkout/**`);
+    await fillCard(page, "4242 4242 4242 4242");
+    await page.waitForURL(`**/jobs/${job.id}/payment?session_id=*`);
+    await expect.poll(() => page.getByText(/the retainer of .* has been received/).count(), { timeout: 20_000 }).toBe(1);
+    await shot(page, "4-paid");
+    await page.getByRole("link", { name: "Back to the job" }).click();
+    await page.waitForURL(`**/jobs/${job.id}`);
+    await expect.poll(() => page.getByText(/^Paid \d/).count()).toBeGreaterThan(0);
+    await shot(page, "5-job-paid");
+    expect((await job.reload()).stage).toBe("retainer_received");
+
+    // Every webhook again, same ids, fresh signatures: nothing changes.
+    await fake.settled();
+    const snapshot = async () => ({
+      events: await StripeEvent.count(),
+      payments: (await Payment.findAll({ where: { jobId: job.id }, order: [["createdAt", "ASC"]] })).map((p) => [p.status, p.amountCents, p.refundedCents, p.paidAt?.toISOString()]),
+      history: await JobEvent.count({ where: { jobId: job.id } }),
+      mail: await OutboxMail.count(),
+      paidAt: (await job.reload()).retainerPaidAt?.toISOString(),
+    });
+    const before = await snapshot();
+    expect(before.events).toBeGreaterThanOrEqual(2);
+    expect(before.payments).toEqual([["paid", job.retainerCents, 0, before.paidAt]]);
+    const replayed = await fake.replayAll();
+    await fake.settled();
+    // The app accepted every replay (200) and applied none of them.
+    expect(replayed.length).toBe(fake.events.filter((e) => fake.deliveries.some((d) => d.eventId === e.id && !d.replay && d.status === 200)).length);
+    expect(replayed.every((d) => d.replay && d.status === 200)).toBe(true);
+    const types = replayed.map((d) => d.type);
+    expect(types).toContain("checkout.session.completed");
+    expect(types).toContain("payment_intent.payment_failed");
+    expect(await snapshot()).toEqual(before);
+  });
+});

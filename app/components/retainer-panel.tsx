@@ -46,7 +46,7 @@ export function RetainerPanel({
         <>
           {last?.status === "failed" ? (
             <Notice tone="bad">
-              The last card was declined{last.failureMessage ? `: ${last.failureMessage}` : "."} Nothing was charged. Try again, with another card if need be.
+              Your last payment did not go through{last.failureMessage ? ` (“${last.failureMessage.replace(/\.$/, "")}”)` : ""}. Nothing was charged. Try again, with another card if need be.
             </Notice>
           ) : null}
           <p className="text-sm text-ink-600">Paid by card on the card service's secure page; the shop starts once it is received.</p>

@@ -63,7 +63,7 @@ describe("paying the retainer", () => {
     await fake.settled();
     await page.getByRole("link", { name: "Cancel and go back" }).click();
     await page.waitForURL(`**/jobs/${job.id}?payment=cancelled`);
-    await expect.poll(() => page.getByText(/The last card was declined/).count()).toBe(1);
+    await expect.poll(() => page.getByText(/Your last payment did not go through/).count()).toBe(1);
     expect((await job.reload()).retainerPaidAt).toBeNull();
     await shot(page, "3-job-declined");
 

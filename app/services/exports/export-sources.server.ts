@@ -1,0 +1,114 @@
+import type { Design } from "~/hydraulics";
+import { Bid, Organisation, Spec, SpecRevision, type User } from "~/models/index.server";
+import { quotationFacts } from "~/content/quotation-facts";
+import type { UnitSystem } from "~/units";
+import { COMPARISON_SORTS, compareBids, type ComparisonSort } from "../bid-comparison";
+import { bomOf, offeredBids } from "../bids.server";
+import { notFound } from "../errors.server";
+import { scopedJob } from "../jobs.server";
+import { specForReader, specOfOwner } from "../spec-access.server";
+import { revisionsOf } from "../specs.server";
+import type { BillInput } from "./bill-workbook.server";
+import type { ComparisonInput } from "./comparison-workbook.server";
+import type { PricedBillInput } from "./priced-bill-workbook.server";
+
+// What each workbook shows, read for the acting user through the same rules as the pages:
+// - the bill of materials: whoever may read the published spec (specForReader): its buyer, any
+//   shop (every shop may read an open spec and needs the bill to prepare a bid, not only shops
+//   that already bid), the account's account manager, admins;
+// - the priced bill: whoever may read the job the award opened (scopedJob): the buyer, the
+//   winning shop, the account's account manager, admins;
+// - the comparison: the spec's own buyer only (the route lets only buyers in).
+// Everyone else gets the same 404 as for a spec or job that does not exist.
+
+const designOf = (revision: SpecRevision) => (revision.axes[0]?.design ?? null) as Design | null;
+
+async function organisationName(id: string) {
+  return (await Organisation.findByPk(id, { attributes: ["name"] }))?.name ?? "";
+}
+
+/** The bill of a spec's revision: `?revision=N` as on the spec page, the latest by default. */
+export async function billSource(user: User, specId: string | undefined, revisionParam: string | null): Promise<BillInput> {
+  const spec = await specForReader(user, specId);
+  const revisions = await revisionsOf(spec);
+  const asked = Number(revisionParam);
+  const revision = (revisionParam ? revisions.find((r) => r.number === asked) : revisions[0]) ?? null;
+  const design = revision && designOf(revision);
+  if (!revision || !design) notFound(revisionParam ? "No such revision." : "This spec has no published revision yet.");
+  return {
+    title: spec.title,
+    revision: revision.number,
+    publishedAt: revision.createdAt,
+    engineVersion: revision.engineVersion,
+    buyerName: await organisationName(spec.organisationId),
+    design,
+    answers: revision.answers,
+    enteredIn: revision.unitSystem,
+    readerUnits: (user.unitSystem ?? "metric") as UnitSystem,
+    quotation: quotationFacts(revision.answers),
+    exportedAt: new Date(),
+  };
+}
+
+/** The awarded bid of a job, as offered, with the retainer the job records. */
+export async function pricedBillSource(user: User, jobId: string | undefined): Promise<PricedBillInput> {
+  const job = await scopedJob(user, jobId);
+  const [bid, spec] = await Promise.all([Bid.findByPk(job.bidId, { rejectOnEmpty: true }), Spec.findByPk(job.specId, { rejectOnEmpty: true })]);
+  const revision = await SpecRevision.findOne({ where: { specId: spec.id, number: bid.specRevision }, rejectOnEmpty: true });
+  return {
+    title: spec.title,
+    revision: bid.specRevision,
+    engineVersion: revision.engineVersion,
+    buyerName: await organisationName(job.buyerOrganisationId),
+    shopName: await organisationName(job.shopOrganisationId),
+    awardedAt: job.awardedAt,
+    currency: job.currency,
+    lines: bid.lines,
+    units: bid.units,
+    setTotalCents: bid.setTotalCents,
+    totalCents: job.totalCents,
+    retainerPercent: job.retainerPercent,
+    retainerCents: job.retainerCents,
+    leadTimeWeeks: bid.leadTimeWeeks,
+    validUntil: bid.validUntil,
+    terms: bid.terms,
+    notes: bid.notes,
+    warnings: designOf(revision)?.warnings ?? [],
+    exportedAt: new Date(),
+  };
+}
+
+/** The buyer's comparison of the offers on their spec, in the page's order (`?sort=`). */
+export async function comparisonSource(user: User, specId: string | undefined, sortParam: string | null): Promise<ComparisonInput> {
+  const spec = await specOfOwner(user, specId);
+  const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam ?? "") ? (sortParam as ComparisonSort) : "total";
+  const [bom, bids, revision] = await Promise.all([bomOf(spec), offeredBids(user, spec), SpecRevision.findOne({ where: { specId: spec.id, number: spec.currentRevision } })]);
+  if (!revision) notFound("This spec has no published revision yet.");
+  const comparison = compareBids(
+    bom,
+    spec.currentRevision,
+    bids.map((b) => ({
+      id: b.id,
+      shop: (b as Bid & { organisation: Organisation }).organisation.name,
+      status: b.status,
+      specRevision: b.specRevision,
+      lines: b.lines,
+      setTotalCents: b.setTotalCents,
+      totalCents: b.totalCents,
+      leadTimeWeeks: b.leadTimeWeeks,
+      validUntil: b.validUntil,
+    })),
+    sort,
+  );
+  return {
+    title: spec.title,
+    revision: spec.currentRevision,
+    engineVersion: revision.engineVersion,
+    buyerName: await organisationName(spec.organisationId),
+    currency: spec.currency,
+    comparison,
+    offers: Object.fromEntries(bids.map((b) => [b.id, { units: b.units, terms: b.terms, notes: b.notes }])),
+    warnings: designOf(revision)?.warnings ?? [],
+    exportedAt: new Date(),
+  };
+}

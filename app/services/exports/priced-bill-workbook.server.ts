@@ -1,0 +1,149 @@
+import type ExcelJS from "exceljs";
+import type { Warning } from "~/hydraulics";
+import type { BidLine } from "~/models/bid.server";
+import { lineTotalCents } from "../bid-pricing";
+import {
+  FILLS,
+  addCautionsSheet,
+  addSheet,
+  currencyFormat,
+  font,
+  freezeAt,
+  headerDay,
+  labelCell,
+  money,
+  newWorkbook,
+  styleBodyRow,
+  topRule,
+  writeHeaderBlock,
+  writeTableHeader,
+  writeTextRow,
+  type Column,
+} from "./sheet-layout.server";
+
+// The awarded bid, line by line, for the buyer's purchase order, the shop's order book and the
+// account manager's file. Line totals and totals are live formulas (a buyer who changes a
+// quantity sees the total follow), each carrying the result the portal worked out, so viewers
+// that never recalculate still show the right figures. The retainer appears twice: worked by
+// formula from the total, and as the portal charges it in exact cents, so the two can be compared.
+
+export interface PricedBillInput {
+  title: string;
+  /** The revision the bid priced (not necessarily the spec's latest). */
+  revision: number;
+  engineVersion: string;
+  buyerName: string;
+  shopName: string;
+  awardedAt: Date;
+  currency: string;
+  lines: BidLine[];
+  units: number;
+  setTotalCents: number;
+  totalCents: number;
+  /** DECIMAL(5,2) as PostgreSQL returns it, e.g. "12.50". */
+  retainerPercent: string;
+  retainerCents: number;
+  leadTimeWeeks: number | null;
+  validUntil: string | null;
+  terms: string;
+  notes: string;
+  warnings: Warning[];
+  exportedAt: Date;
+}
+
+export const PRICED_SHEETS = ["Priced bill", "Cautions"] as const;
+
+export function pricedColumns(currency: string): Column[] {
+  const fmt = currencyFormat(currency);
+  return [
+    { header: "Line key", width: 22 },
+    { header: "Item", width: 30, wrap: true },
+    { header: "Specification", width: 54, wrap: true, indent: 1 },
+    { header: "Qty", width: 6, align: "right", numFmt: "0" },
+    { header: "Unit price", width: 14, align: "right", numFmt: fmt },
+    { header: "Line total", width: 15, align: "right", numFmt: fmt },
+    { header: "Offered part", width: 14, indent: 1 },
+    { header: "Alternative offered", width: 34, wrap: true },
+  ];
+}
+
+export function pricedFacts(input: PricedBillInput): [string, string][] {
+  return [
+    ["Revision priced", String(input.revision)],
+    ["Sizing engine", `version ${input.engineVersion}`],
+    ["Machine builder", input.buyerName],
+    ["Fluid-power shop", input.shopName],
+    ["Awarded", headerDay(input.awardedAt)],
+    ["Prices in", input.currency],
+    ["Lead time", input.leadTimeWeeks === null ? "not given" : `${input.leadTimeWeeks} weeks from the award`],
+    ["Offer valid until", input.validUntil ? headerDay(input.validUntil) : "not given"],
+    ["Exported", headerDay(input.exportedAt)],
+  ];
+}
+
+function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
+  const columns = pricedColumns(input.currency);
+  const fmt = currencyFormat(input.currency);
+  const sheet = addSheet(workbook, PRICED_SHEETS[0], columns);
+  const head = writeHeaderBlock(sheet, { document: "Priced bill of the awarded bid", specTitle: input.title, facts: pricedFacts(input) });
+  writeTableHeader(sheet, head, columns.map((c) => c.header), columns);
+  freezeAt(sheet, head);
+
+  const first = head + 1;
+  input.lines.forEach((line, i) => {
+    const r = first + i;
+    const row = sheet.getRow(r);
+    const unitCents = line.unitPriceCents ?? 0;
+    row.values = [
+      line.key,
+      line.item,
+      line.specification,
+      line.quantity,
+      money(unitCents),
+      { formula: `D${r}*E${r}`, result: money(lineTotalCents({ quantity: line.quantity, unitPriceCents: unitCents })) },
+      line.alternative ? "Alternative" : "As specified",
+      line.alternative ? line.alternativeDescription : "",
+    ];
+    styleBodyRow(row, columns);
+    if (line.alternative) for (const c of [7, 8]) row.getCell(c).fill = FILLS.note;
+  });
+  const last = first + input.lines.length - 1;
+
+  // Totals: each figure a formula over the cells above, with the portal's own figure as result.
+  const set = last + 1;
+  const units = set + 1;
+  const total = set + 2;
+  const share = set + 3;
+  const retainer = set + 4;
+  const charged = set + 5;
+  const put = (r: number, label: string, value: ExcelJS.CellValue, column = 6, bold = false) => {
+    labelCell(sheet, r, label, bold);
+    const cell = sheet.getCell(r, column);
+    cell.value = value;
+    cell.font = font({ bold });
+    cell.alignment = { horizontal: "right" };
+    return cell;
+  };
+  put(set, "Set total, one of each line", { formula: `SUM(F${first}:F${last})`, result: money(input.setTotalCents) }).numFmt = fmt;
+  for (let c = 1; c <= columns.length; c++) topRule(sheet.getCell(set, c));
+  put(units, "Units wanted", input.units, 4).numFmt = "0";
+  const totalCell = put(total, `Total for ${input.units} unit${input.units === 1 ? "" : "s"}`, { formula: `F${set}*D${units}`, result: money(input.totalCents) }, 6, true);
+  totalCell.numFmt = fmt;
+  totalCell.fill = FILLS.head;
+  put(share, "Retainer share", Number(input.retainerPercent) / 100, 5).numFmt = "0.00%";
+  put(retainer, "Retainer amount (total × share, rounded to the cent)", { formula: `ROUND(F${total}*E${share},2)`, result: money(input.retainerCents) }).numFmt = fmt;
+  put(charged, "Retainer as the portal charges it (exact cents)", money(input.retainerCents)).numFmt = fmt;
+
+  let at = charged + 2;
+  if (input.terms.trim()) writeTextRow(sheet, at++, "Terms", input.terms.trim(), columns);
+  if (input.notes.trim()) writeTextRow(sheet, at++, "Notes", input.notes.trim(), columns);
+  return { sheet, first, last, set, units, total, share, retainer, charged };
+}
+
+export function buildPricedBillWorkbook(input: PricedBillInput): ExcelJS.Workbook {
+  const workbook = newWorkbook();
+  workbook.title = `${input.title} - revision ${input.revision} - priced bill`;
+  addPricedSheet(workbook, input);
+  addCautionsSheet(workbook, { document: "", specTitle: input.title, facts: pricedFacts(input).slice(0, 4) }, input.warnings);
+  return workbook;
+}

@@ -138,9 +138,14 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
         }
         actions={
           // Whoever sees the job may read its (awarded) spec: see spec-access.server.ts.
-          <ButtonLink to={`/specs/${job.specId}`} tone="secondary">
-            Open the spec
-          </ButtonLink>
+          <>
+            <ButtonLink to={`/specs/${job.specId}`} tone="secondary">
+              Open the spec
+            </ButtonLink>
+            <ButtonLink to={`/jobs/${job.id}/priced-bill.xlsx`} reloadDocument tone="secondary">
+              Download the priced bill (XLSX)
+            </ButtonLink>
+          </>
         }
       />
       {actionData && actionData.intent === null ? (

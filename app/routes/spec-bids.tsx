@@ -90,7 +90,16 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
       <PageHeader
         title="Compare the bids"
         lead={`${columns.length} offer${columns.length === 1 ? "" : "s"} on revision ${d.spec.revision} · ${d.spec.units} unit${d.spec.units === 1 ? "" : "s"} · prices in ${d.spec.currency} · ${SPEC_STATUS_LABELS[d.spec.status]}`}
-        actions={d.jobId ? <ButtonLink to={`/jobs/${d.jobId}`}>Follow the job</ButtonLink> : null}
+        actions={
+          <>
+            {columns.length ? (
+              <ButtonLink to={`/specs/${d.spec.id}/bids.xlsx?sort=${d.sort}`} reloadDocument tone="secondary">
+                Download the comparison (XLSX)
+              </ButtonLink>
+            ) : null}
+            {d.jobId ? <ButtonLink to={`/jobs/${d.jobId}`}>Follow the job</ButtonLink> : null}
+          </>
+        }
       />
       {actionData?.error ? (
         <div className="mb-4" role="alert">

@@ -2,7 +2,7 @@ import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/spec";
 import { requireUser } from "~/auth/permissions.server";
 import { DesignReport } from "~/components/design-report";
-import { Badge, Button, Notice, PageHeader } from "~/components/ui";
+import { Badge, Button, ButtonLink, Notice, PageHeader } from "~/components/ui";
 import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
 import type { Design } from "~/hydraulics";
 import { QuotationPanel } from "~/components/quotation-facts";
@@ -134,6 +134,18 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
         <div className="mb-6">
           <QuotationPanel facts={d.quotation} attachments={d.attachments} />
         </div>
+      ) : null}
+      {d.design && d.revision ? (
+        <p className="mb-3 flex justify-end">
+          {/* A resource route: the browser downloads it, so no client-side navigation. */}
+          <ButtonLink
+            to={`/specs/${d.id}/bill.xlsx${d.revision.number < d.latestRevision ? `?revision=${d.revision.number}` : ""}`}
+            reloadDocument
+            tone="secondary"
+          >
+            Download the bill of materials (XLSX)
+          </ButtonLink>
+        </p>
       ) : null}
       {d.design ? (
         <div className="space-y-6">

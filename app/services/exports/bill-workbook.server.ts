@@ -56,7 +56,7 @@ export const TRAIL_COLUMNS: Column[] = [
   { header: "Quantity", width: 34, wrap: true },
   // Wrapped: a few values are words ("ISO 6020-2 (160 bar)"), which must not be cut off.
   { header: "Value", width: 13, align: "right", wrap: true },
-  { header: "Unit", width: 9, indent: 1 },
+  { header: "Unit", width: 10, indent: 1 },
   { header: "Formula", width: 46, wrap: true },
   { header: "Inputs", width: 30, wrap: true },
   { header: "Source", width: 40, wrap: true },

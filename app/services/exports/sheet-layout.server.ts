@@ -54,7 +54,9 @@ export function addSheet(workbook: ExcelJS.Workbook, name: string, columns: Colu
     headerFooter: { oddFooter: `&L&8${name}&R&8Page &P of &N` },
     views: [{ showGridLines: false }],
   });
-  sheet.columns = columns.map((c) => ({ width: c.width }));
+  // exceljs leaves out a column whose width equals its default (9), which Excel then shows at
+  // 8.43: nudge such a width so every column keeps the width chosen for it.
+  sheet.columns = columns.map((c) => ({ width: c.width === 9 ? 9.01 : c.width }));
   return sheet;
 }
 

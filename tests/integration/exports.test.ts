@@ -3,12 +3,12 @@
 // who may download which workbook; and (where LibreOffice is installed) that each file opens
 // and recalculates in another spreadsheet program to the same figures.
 import { execFile } from "node:child_process";
-import { existsSync, mkdtempSync, readFileSync, readdirSync, writeFileSync, mkdirSync } from "node:fs";
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { delimiter, join } from "node:path";
 import { promisify } from "node:util";
 import type ExcelJS from "exceljs";
-import { beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it, onTestFinished } from "vitest";
 import * as signIn from "~/routes/sign-in";
 import * as bidRoute from "~/routes/spec-bid";
 import * as bidsRoute from "~/routes/spec-bids";
@@ -502,6 +502,9 @@ describe("LibreOffice", () => {
       const files = { bill: (await billOf("buyer")).bytes, priced: (await pricedOf("buyer")).bytes, comparison: (await comparisonOf()).bytes };
       for (const [name, bytes] of Object.entries(files)) writeFileSync(join(dir, `${name}.xlsx`), bytes);
       const profile = recalculatingProfile();
+      onTestFinished(() => {
+        for (const path of [dir, profile]) rmSync(path, { recursive: true, force: true });
+      });
       // CSV filter: comma, double quotes, UTF-8, formatted as shown, and -1: every sheet to its own file.
       const filter = "csv:Text - txt - csv (StarCalc):44,34,76,1,,0,false,true,true,false,false,-1";
       const { stdout, stderr } = await promisify(execFile)(

@@ -432,14 +432,22 @@ describe("comparison of the offers", () => {
 });
 
 describe("who may download what", () => {
-  const routes = [
+  interface ExportRoute {
+    name: string;
+    loader: Loader;
+    path: () => string;
+    params: () => Record<string, string>;
+    key: string;
+    expected: Record<Person, number>;
+  }
+  const routes: ExportRoute[] = [
     { name: "bill of materials", loader: billXlsx.loader, path: () => `/specs/${spec.id}/bill.xlsx`, params: () => ({ specId: spec.id }), key: "specId",
       expected: { buyer: 200, otherBuyer: 404, winner: 200, loser: 200, bystander: 200, manager: 200, otherManager: 404, admin: 200 } },
     { name: "priced bill", loader: pricedXlsx.loader, path: () => `/jobs/${job.id}/priced-bill.xlsx`, params: () => ({ jobId: job.id }), key: "jobId",
       expected: { buyer: 200, otherBuyer: 404, winner: 200, loser: 404, bystander: 404, manager: 200, otherManager: 404, admin: 200 } },
     { name: "comparison", loader: bidsXlsx.loader, path: () => `/specs/${spec.id}/bids.xlsx`, params: () => ({ specId: spec.id }), key: "specId",
       expected: { buyer: 200, otherBuyer: 404, winner: 403, loser: 403, bystander: 403, manager: 403, otherManager: 403, admin: 403 } },
-  ] satisfies { name: string; loader: Loader; path: () => string; params: () => Record<string, string>; key: string; expected: Record<Person, number> }[];
+  ];
 
   describe.each(routes)("$name", ({ loader, path, params, key, expected }) => {
     it.each(Object.keys(expected) as Person[])("as %s", async (who) => {

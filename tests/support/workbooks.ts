@@ -33,7 +33,7 @@ type Value = number | string | Date | null;
 /** A formula cell's formula text, or null. */
 export function formulaOf(cell: ExcelJS.Cell): string | null {
   const v = cell.value;
-  return v && typeof v === "object" && "formula" in v ? v.formula : null;
+  return v && typeof v === "object" && "formula" in v && typeof v.formula === "string" ? v.formula : null;
 }
 
 /** What the cell holds, formulas worked out from their references. */

@@ -32,8 +32,8 @@ export function run(command: string, args: string[], env: NodeJS.ProcessEnv = pr
 }
 
 /** Serves a production build with react-router-serve on 127.0.0.1 only. */
-export async function serveBuild(port: number, env: NodeJS.ProcessEnv, log: (line: string) => void = () => {}) {
-  const child = spawn("node_modules/.bin/react-router-serve", ["build/server/index.js"], {
+export async function serveBuild(port: number, env: NodeJS.ProcessEnv, log: (line: string) => void = () => {}, buildDir = "build") {
+  const child = spawn("node_modules/.bin/react-router-serve", [`${buildDir}/server/index.js`], {
     env: { ...env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: env.NODE_ENV ?? "production" },
     stdio: ["ignore", "pipe", "pipe"],
   });

@@ -64,6 +64,9 @@ async function api() {
       DATABASE_URL: cluster.url("bench"),
       SESSION_SECRET: "benchmark-secret-benchmark-secret-0123",
       SIZING_REQUESTS_PER_MINUTE: "1000000",
+      // Required at boot; the sizing routes never call the card service.
+      STRIPE_SECRET_KEY: "sk_test_benchmark",
+      STRIPE_WEBHOOK_SECRET: "whsec_benchmark",
     });
     const base = `http://127.0.0.1:${port}`;
     const count = 400;

@@ -22,6 +22,8 @@ declare module "vitest" {
     maildevUrl: string;
     stripeUrl: string;
     stripeWebhookSecret: string;
+    /** Where browser tests build the app, once per run (built by the first that needs it). */
+    buildDir: string;
   }
 }
 
@@ -56,6 +58,9 @@ export default async function setup(project: TestProject) {
 
   project.provide("stripeUrl", stripe.url);
   project.provide("stripeWebhookSecret", stripeWebhookSecret);
+  // Inside the project (git-ignored build/), so the server build resolves node_modules.
+  const buildDir = path.resolve("build", `test-${path.basename(root)}`);
+  project.provide("buildDir", buildDir);
   project.provide("postgresUrl", cluster.url());
   project.provide("templateDb", TEMPLATE_DB);
   project.provide("smtpPort", smtpPort);
@@ -67,5 +72,6 @@ export default async function setup(project: TestProject) {
     stopCluster(cluster, "immediate");
     removeCluster(cluster);
     rmSync(root, { recursive: true, force: true });
+    rmSync(buildDir, { recursive: true, force: true });
   };
 }

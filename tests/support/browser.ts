@@ -1,10 +1,11 @@
 // Real browser tests: the production build served against this file's database, driven by
 // playwright-core in Debian's chromium (installed here when missing; never a browser download).
 import { execFileSync } from "node:child_process";
-import { existsSync, mkdirSync } from "node:fs";
+import { existsSync, mkdirSync, rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import type { ChildProcess } from "node:child_process";
 import { chromium, type Browser, type Page } from "playwright-core";
+import { inject } from "vitest";
 import { freePort } from "../../db/cluster";
 import { run, serveBuild, stop } from "../../fakes/processes";
 
@@ -19,10 +20,35 @@ function ensureChromium() {
   execFileSync("apt-get", ["install", "-y", "-qq", "chromium"], { stdio: "inherit", env });
 }
 
-let built: Promise<void> | undefined;
-/** One production build per test process. */
+let built: Promise<string> | undefined;
+/**
+ * One production build per test run, shared by every browser test file: the first file to get
+ * here builds while holding a lock folder, the others wait for its "done" mark.
+ */
 function buildOnce() {
-  built ??= run("node_modules/.bin/react-router", ["build"], process.env, true);
+  built ??= (async () => {
+    const dir = inject("buildDir");
+    const done = path.join(dir, ".done");
+    const lock = `${dir}.lock`;
+    for (;;) {
+      if (existsSync(done)) return dir;
+      try {
+        mkdirSync(lock);
+      } catch {
+        await new Promise((r) => setTimeout(r, 250));
+        continue;
+      }
+      try {
+        // A production build, as users get it: Vitest's NODE_ENV=test would bundle React's development build.
+        if (!existsSync(done)) {
+          await run("node_modules/.bin/react-router", ["build"], { ...process.env, NODE_ENV: "production", TENDERFLOW_BUILD_DIR: dir }, true);
+          writeFileSync(done, "");
+        }
+      } finally {
+        rmSync(lock, { recursive: true, force: true });
+      }
+    }
+  })();
   return built;
 }
 
@@ -35,11 +61,11 @@ export interface BrowserApp {
 
 export async function startBrowserApp(): Promise<BrowserApp> {
   ensureChromium();
-  await buildOnce();
+  const buildDir = await buildOnce();
   const port = await freePort();
   const logs: string[] = [];
   // APP_URL is this server's own address: links in mail and the payment page's way back lead here.
-  const server: ChildProcess = await serveBuild(port, { ...process.env, NODE_ENV: "production", APP_URL: `http://127.0.0.1:${port}` }, (l) => logs.push(l));
+  const server: ChildProcess = await serveBuild(port, { ...process.env, NODE_ENV: "production", APP_URL: `http://127.0.0.1:${port}` }, (l) => logs.push(l), buildDir);
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
     args: ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run", "--disable-quic"],

@@ -50,6 +50,11 @@ async function main() {
   console.log(applied.length ? `  applied ${applied.map((m) => m.name).join(", ")}` : "  schema is up to date");
   const seeded = await seedDemo(db);
   console.log(seeded ? "  demo data loaded" : "  existing data kept");
+  // The Stripe fake forgets everything when it stops: paid retainers are put back into it below.
+  const [paidRetainers] = await db.query(
+    `SELECT p.payment_intent_id, p.amount_cents, p.refunded_cents, p.currency, p.customer_id, p.id, p.job_id
+       FROM payments p WHERE p.payment_intent_id IS NOT NULL AND p.status IN ('paid', 'partially_refunded', 'refunded')`,
+  );
   await db.close();
 
   step(`Starting maildev (SMTP 127.0.0.1:${SMTP_PORT}, inbox http://127.0.0.1:${MAIL_WEB_PORT})`);
@@ -67,6 +72,9 @@ async function main() {
   step(`Starting the Stripe fake (API and payment page http://127.0.0.1:${STRIPE_PORT})`);
   const stripeWebhookSecret = `whsec_${localSecret("stripe-webhook-secret")}`;
   const stripeFake = await startStripeFake({ port: STRIPE_PORT, webhookUrl: `${appUrl}/webhooks/stripe`, webhookSecret: stripeWebhookSecret });
+  for (const p of paidRetainers as { payment_intent_id: string; amount_cents: string; refunded_cents: string; currency: string; customer_id: string | null; id: string; job_id: string }[]) {
+    stripeFake.restorePaid({ paymentIntentId: p.payment_intent_id, amount: Number(p.amount_cents), amountRefunded: Number(p.refunded_cents), currency: p.currency, customer: p.customer_id, metadata: { payment_id: p.id, job_id: p.job_id } });
+  }
 
   const env = {
     ...process.env,

@@ -1,5 +1,6 @@
 // Demo data of Tenderflow's own invented scenario: two machine builders, three fluid-power shops
 // and the portal's operator. Every name, company and address here is made up (.test domains).
+import { randomBytes } from "node:crypto";
 import bcrypt from "bcryptjs";
 import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
 import { ENGINE_VERSION, sizeCircuit } from "~/hydraulics";
@@ -313,6 +314,22 @@ async function seedJob(
     },
   );
   await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, created_at) VALUES (:job, :by, 'awarded', :at)`, { replacements: { job: job.id, by: buyerAuthor, at: awardedAt }, transaction });
+  if (underway) {
+    // Paid by card in the scenario's past; `npm start` puts this payment back into the Stripe fake.
+    const paidAt = daysAgo(awardedDaysAgo - 2);
+    const amount = retainerCents(a.totalCents, a.flat.retainerPercent);
+    const payment = await insert<{ id: string }>(
+      sequelize,
+      transaction,
+      `INSERT INTO payments (job_id, buyer_organisation_id, created_by_id, status, amount_cents, currency, checkout_session_id, payment_intent_id, paid_at, created_at)
+       VALUES (:job, :buyer, :by, 'paid', :amount, :currency, :session, :intent, :paidAt, :paidAt) RETURNING id`,
+      { job: job.id, buyer: a.orgIds.get(a.spec.organisation), by: buyerAuthor, amount, currency: a.flat.currency, session: `cs_test_demo${randomBytes(10).toString("hex")}`, intent: `pi_demo${randomBytes(10).toString("hex")}`, paidAt },
+    );
+    await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, milestone, detail, created_at) VALUES (:job, :by, 'retainer_paid', 'retainer_received', :detail, :at)`, {
+      replacements: { job: job.id, by: buyerAuthor, detail: JSON.stringify({ paymentId: payment.id, amountCents: amount, currency: a.flat.currency }), at: paidAt },
+      transaction,
+    });
+  }
   const leadDays = a.offer.leadTimeWeeks * 7;
   for (const [position, m] of MILESTONES.entries()) {
     const rule = TARGET_SHARES[m.key];
@@ -324,7 +341,7 @@ async function seedJob(
       `INSERT INTO job_milestones (job_id, key, position, target_date, reached_at, reached_by_id) VALUES (:job, :key, :position, :target, :reachedAt, :by)`,
       { replacements: { job: job.id, key: m.key, position, target, reachedAt, by: done ? by : null }, transaction },
     );
-    if (done) {
+    if (done && m.key !== "retainer_received") {
       await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, milestone, body, created_at) VALUES (:job, :by, 'milestone_reached', :key, :body, :at)`, {
         replacements: { job: job.id, by, key: m.key, body: m.key === "in_build" ? "Manifold machined; the tank is at the painter's." : "", at: reachedAt },
         transaction,

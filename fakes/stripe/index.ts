@@ -86,6 +86,8 @@ export async function startStripeFake(options: StripeFakeOptions) {
     settled: () => hub.settled(),
     /** Delivers again every event the webhook accepted: same id and payload, a fresh signature. */
     replayAll: () => hub.replayAll(),
+    /** Puts back a payment made before this fake started, so it can still be refunded. */
+    restorePaid: (paid: Parameters<Payments["restorePaid"]>[0]) => payments.restorePaid(paid),
     /** Submits the hosted payment form, as a payer's browser would; answers with the page's response. */
     pay(sessionId: string, form: CardForm = {}) {
       const fields = { card_number: "4242 4242 4242 4242", expiry: `12 / ${(new Date().getFullYear() + 3) % 100}`, cvc: "123", ...form };

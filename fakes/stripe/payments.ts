@@ -4,7 +4,7 @@
 import { NO_REQUEST, type EventCause, type EventHub } from "./events";
 import type { Customer } from "./resources/customers";
 import type { Session } from "./resources/checkout-sessions";
-import { newCharge, newPaymentMethod, type CardHolder, type PaymentIntent } from "./resources/payment-intents";
+import { newCharge, newPaymentIntent, newPaymentMethod, type CardHolder, type PaymentIntent } from "./resources/payment-intents";
 import { unixNow, update, type Store } from "./store";
 import type { TestCard } from "./test-cards";
 
@@ -40,6 +40,20 @@ export class Payments {
     this.events.emit("payment_intent.canceled", intent, cause);
     this.events.emit("checkout.session.expired", session, cause);
     return session;
+  }
+
+  /**
+   * Puts back a payment made before this fake started (it keeps everything in memory): a
+   * succeeded PaymentIntent with its charge, under the ids the app stored, so refunds of it work.
+   */
+  restorePaid(paid: { paymentIntentId: string; amount: number; amountRefunded: number; currency: string; customer: string | null; metadata: Record<string, string> }) {
+    if (this.store.find(paid.paymentIntentId)) return;
+    const intent = { ...newPaymentIntent({ amount: paid.amount, currency: paid.currency.toLowerCase(), customer: paid.customer, description: null, metadata: paid.metadata, receiptEmail: null }), id: paid.paymentIntentId };
+    const card = { number: "4242424242424242", brand: "visa" as const, funding: "credit" as const, expMonth: 12, expYear: new Date().getFullYear() + 3 };
+    const method = this.store.add(newPaymentMethod(card, { email: null, name: null }, paid.customer));
+    const charge = this.store.add({ ...newCharge(intent, method, card), amount_refunded: paid.amountRefunded, refunded: paid.amountRefunded >= paid.amount });
+    this.store.add(intent);
+    update(intent, { status: "succeeded", amount_received: paid.amount, payment_method: method.id, latest_charge: charge.id });
   }
 
   /** Tries a test card on an open session, as the payment page does when the payer submits. */

@@ -5,6 +5,7 @@ import * as signIn from "~/routes/sign-in";
 import * as bidsRoute from "~/routes/spec-bids";
 import * as jobsRoute from "~/routes/jobs";
 import * as specPage from "~/routes/spec";
+import * as paymentsRoute from "~/routes/payments";
 import { Bid, Job, Spec, sequelize } from "~/models/index.server";
 import { bidTotals, retainerCents } from "~/services/bid-pricing";
 import { bomOf } from "~/services/bids.server";
@@ -70,5 +71,14 @@ describe("the demo scenario", () => {
       ["Scissor lift table, main cylinder", true],
       ["Coil clamp, hold-down cylinder", false],
     ]);
+  });
+
+  it("lists the lift table's paid retainer among Nadia's payments, matching its job", async () => {
+    const visitor = await signedIn("nadia@tenderflow.test");
+    const res = await visitor.get(paymentsRoute.loader, "/payments");
+    expect(res.data.payments.map((p: { specTitle: string; status: string }) => [p.specTitle, p.status])).toEqual([["Scissor lift table, main cylinder", "paid"]]);
+    const job = await Job.findByPk(res.data.payments[0].jobId, { rejectOnEmpty: true });
+    expect(job.retainerPaidAt).not.toBeNull();
+    expect(res.data.payments[0].amountCents).toBe(job.retainerCents);
   });
 });

@@ -450,3 +450,16 @@ describe("webhook delivery", () => {
     expect(verifiedEvents().length).toBe(receiver.received.length);
   });
 });
+
+describe("a payment made before the fake started", () => {
+  it("is put back under its ids, so it can still be refunded, and only once", async () => {
+    fake.restorePaid({ paymentIntentId: "pi_restoredDemo0001", amount: 50_000, amountRefunded: 10_000, currency: "GBP", customer: null, metadata: { payment_id: "demo" } });
+    fake.restorePaid({ paymentIntentId: "pi_restoredDemo0001", amount: 1, amountRefunded: 0, currency: "GBP", customer: null, metadata: {} });
+    const intent = await stripe.paymentIntents.retrieve("pi_restoredDemo0001", { expand: ["latest_charge"] });
+    expect(intent).toMatchObject({ status: "succeeded", amount: 50_000, amount_received: 50_000, currency: "gbp", metadata: { payment_id: "demo" } });
+    expect(intent.latest_charge).toMatchObject({ amount_refunded: 10_000, refunded: false });
+    const refund = await stripe.refunds.create({ payment_intent: "pi_restoredDemo0001", amount: 40_000 });
+    expect(refund).toMatchObject({ amount: 40_000, status: "succeeded" });
+    await expect(stripe.refunds.create({ payment_intent: "pi_restoredDemo0001", amount: 1 })).rejects.toMatchObject({ code: "charge_already_refunded" });
+  });
+});

@@ -6,6 +6,7 @@ import {
   type InferCreationAttributes,
 } from "sequelize";
 import { sequelize } from "~/db.server";
+import { centsColumn } from "./columns.server";
 import { BID_STATUSES, type BidStatus } from "~/content/bid-status";
 
 /** One priced line of a bid: a line of the spec's bill of materials, or an alternative to it. */
@@ -33,15 +34,6 @@ export interface BidOffer {
   notes: string;
 }
 
-// pg returns BIGINT as text; cents stay far below 2^53, so numbers are exact.
-const cents = (name: string) => ({
-  type: DataTypes.BIGINT,
-  allowNull: false,
-  defaultValue: 0,
-  get(this: Model) {
-    return Number(this.getDataValue(name));
-  },
-});
 
 export class Bid extends Model<InferAttributes<Bid>, InferCreationAttributes<Bid>> {
   declare id: CreationOptional<string>;
@@ -77,8 +69,8 @@ Bid.init(
     currency: { type: DataTypes.STRING(3), allowNull: false },
     lines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
     units: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
-    setTotalCents: cents("setTotalCents"),
-    totalCents: cents("totalCents"),
+    setTotalCents: centsColumn("setTotalCents", 0),
+    totalCents: centsColumn("totalCents", 0),
     leadTimeWeeks: { type: DataTypes.INTEGER, allowNull: true },
     validUntil: { type: DataTypes.DATEONLY, allowNull: true },
     terms: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },

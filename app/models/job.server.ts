@@ -6,15 +6,9 @@ import {
   type InferCreationAttributes,
 } from "sequelize";
 import { sequelize } from "~/db.server";
+import { centsColumn } from "./columns.server";
 import type { MilestoneKey } from "~/content/job-milestones";
 
-const cents = (name: string) => ({
-  type: DataTypes.BIGINT,
-  allowNull: false,
-  get(this: Model) {
-    return Number(this.getDataValue(name));
-  },
-});
 
 /** An awarded bid being built and delivered. */
 export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job>> {
@@ -46,9 +40,9 @@ Job.init(
     awardedById: { type: DataTypes.UUID, allowNull: false },
     awardedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     currency: { type: DataTypes.STRING(3), allowNull: false },
-    totalCents: cents("totalCents"),
+    totalCents: centsColumn("totalCents"),
     retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
-    retainerCents: cents("retainerCents"),
+    retainerCents: centsColumn("retainerCents"),
     retainerPaidAt: { type: DataTypes.DATE, allowNull: true },
     stage: { type: DataTypes.STRING(30), allowNull: true },
     createdAt: DataTypes.DATE,

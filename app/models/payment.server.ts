@@ -6,16 +6,9 @@ import {
   type InferCreationAttributes,
 } from "sequelize";
 import { sequelize } from "~/db.server";
+import { centsColumn } from "./columns.server";
 import { PAYMENT_STATUSES, type PaymentStatus } from "~/content/payment-status";
 
-const cents = (name: string, defaultValue?: number) => ({
-  type: DataTypes.BIGINT,
-  allowNull: false,
-  ...(defaultValue === undefined ? {} : { defaultValue }),
-  get(this: Model) {
-    return Number(this.getDataValue(name));
-  },
-});
 
 /** One attempt to pay a job's retainer through a Stripe Checkout Session. */
 export class Payment extends Model<InferAttributes<Payment>, InferCreationAttributes<Payment>> {
@@ -44,8 +37,8 @@ Payment.init(
     buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
     createdById: { type: DataTypes.UUID, allowNull: false },
     status: { type: DataTypes.ENUM(...PAYMENT_STATUSES), allowNull: false, defaultValue: "pending" },
-    amountCents: cents("amountCents"),
-    refundedCents: cents("refundedCents", 0),
+    amountCents: centsColumn("amountCents"),
+    refundedCents: centsColumn("refundedCents", 0),
     currency: { type: DataTypes.STRING(3), allowNull: false },
     checkoutSessionId: { type: DataTypes.STRING(255), allowNull: true },
     checkoutUrl: { type: DataTypes.TEXT, allowNull: true },
@@ -78,7 +71,7 @@ Refund.init(
     id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
     paymentId: { type: DataTypes.UUID, allowNull: false },
     requestedById: { type: DataTypes.UUID, allowNull: false },
-    amountCents: cents("amountCents"),
+    amountCents: centsColumn("amountCents"),
     reason: { type: DataTypes.TEXT, allowNull: false },
     status: { type: DataTypes.ENUM("requested", "recorded", "failed"), allowNull: false, defaultValue: "requested" },
     stripeRefundId: { type: DataTypes.STRING(255), allowNull: true },

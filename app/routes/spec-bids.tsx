@@ -8,8 +8,8 @@ import { formatMoney } from "~/content/currencies";
 import { SPEC_STATUS_LABELS, type SpecStatus } from "~/content/spec-status";
 import { awardSchema } from "~/schemas/bid";
 import { awardBid } from "~/services/award.server";
-import { COMPARISON_SORTS, compareBids, type ComparisonSort } from "~/services/bid-comparison";
-import { bomOf, offeredBids } from "~/services/bids.server";
+import { COMPARISON_SORTS, type ComparisonSort } from "~/services/bid-comparison";
+import { comparisonOf } from "~/services/bids.server";
 import { FieldErrors } from "~/services/errors.server";
 import { retainerCents } from "~/services/bid-pricing";
 import { specOfOwner } from "~/services/spec-access.server";
@@ -25,23 +25,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const sortParam = url.searchParams.get("sort") ?? "total";
   const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam) ? (sortParam as ComparisonSort) : "total";
-  const [bom, bids, job] = await Promise.all([bomOf(spec), offeredBids(user, spec), Job.findOne({ where: { specId: spec.id }, attributes: ["id"] })]);
-  const comparison = compareBids(
-    bom,
-    spec.currentRevision,
-    bids.map((b) => ({
-      id: b.id,
-      shop: (b as unknown as { organisation: { name: string } }).organisation.name,
-      status: b.status,
-      specRevision: b.specRevision,
-      lines: b.lines,
-      setTotalCents: b.setTotalCents,
-      totalCents: b.totalCents,
-      leadTimeWeeks: b.leadTimeWeeks,
-      validUntil: b.validUntil,
-    })),
-    sort,
-  );
+  const [{ comparison }, job] = await Promise.all([comparisonOf(user, spec, sort), Job.findOne({ where: { specId: spec.id }, attributes: ["id"] })]);
   const choosing = comparison.columns.find((c) => c.id === url.searchParams.get("award") && c.status === "submitted") ?? null;
   return {
     spec: { id: spec.id, title: spec.title, status: spec.status as SpecStatus, revision: spec.currentRevision, currency: spec.currency, units: spec.unitsWanted ?? 1, retainerPercent: spec.retainerPercent ?? "0", deadline: spec.bidDeadline?.toISOString() ?? null },

@@ -4,6 +4,7 @@ import { Bid, BidVersion, Organisation, Spec, SpecRevision, User, sequelize } fr
 import type { BidLine, BidOffer } from "~/models/bid.server";
 import type { BidInput } from "~/schemas/bid";
 import { bidTotals, parseMoney } from "./bid-pricing";
+import { compareBids, type ComparisonSort } from "./bid-comparison";
 import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { env } from "~/env.server";
@@ -159,6 +160,28 @@ export async function offeredBids(user: User, spec: Spec) {
     include: [{ model: Organisation, as: "organisation", attributes: ["name", "region"] }],
     order: [["totalCents", "ASC"], ["id", "ASC"]],
   });
+}
+
+/** The buyer's side-by-side comparison of a spec's offers (page and workbook alike). */
+export async function comparisonOf(user: User, spec: Spec, sort: ComparisonSort = "total") {
+  const [bom, bids] = await Promise.all([bomOf(spec), offeredBids(user, spec)]);
+  const comparison = compareBids(
+    bom,
+    spec.currentRevision,
+    bids.map((b) => ({
+      id: b.id,
+      shop: (b as Bid & { organisation: Organisation }).organisation.name,
+      status: b.status,
+      specRevision: b.specRevision,
+      lines: b.lines,
+      setTotalCents: b.setTotalCents,
+      totalCents: b.totalCents,
+      leadTimeWeeks: b.leadTimeWeeks,
+      validUntil: b.validUntil,
+    })),
+    sort,
+  );
+  return { bids, comparison };
 }
 
 /** How many offers a buyer's specs have, for their list. */

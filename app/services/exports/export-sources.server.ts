@@ -2,8 +2,8 @@ import type { Design } from "~/hydraulics";
 import { Bid, Organisation, Spec, SpecRevision, type User } from "~/models/index.server";
 import { quotationFacts } from "~/content/quotation-facts";
 import type { UnitSystem } from "~/units";
-import { COMPARISON_SORTS, compareBids, type ComparisonSort } from "../bid-comparison";
-import { bomOf, offeredBids } from "../bids.server";
+import { COMPARISON_SORTS, type ComparisonSort } from "../bid-comparison";
+import { comparisonOf } from "../bids.server";
 import { notFound } from "../errors.server";
 import { scopedJob } from "../jobs.server";
 import { specForReader, specOfOwner } from "../spec-access.server";
@@ -82,24 +82,8 @@ export async function pricedBillSource(user: User, jobId: string | undefined): P
 export async function comparisonSource(user: User, specId: string | undefined, sortParam: string | null): Promise<ComparisonInput> {
   const spec = await specOfOwner(user, specId);
   const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam ?? "") ? (sortParam as ComparisonSort) : "total";
-  const [bom, bids, revision] = await Promise.all([bomOf(spec), offeredBids(user, spec), SpecRevision.findOne({ where: { specId: spec.id, number: spec.currentRevision } })]);
+  const [{ bids, comparison }, revision] = await Promise.all([comparisonOf(user, spec, sort), SpecRevision.findOne({ where: { specId: spec.id, number: spec.currentRevision } })]);
   if (!revision) notFound("This spec has no published revision yet.");
-  const comparison = compareBids(
-    bom,
-    spec.currentRevision,
-    bids.map((b) => ({
-      id: b.id,
-      shop: (b as Bid & { organisation: Organisation }).organisation.name,
-      status: b.status,
-      specRevision: b.specRevision,
-      lines: b.lines,
-      setTotalCents: b.setTotalCents,
-      totalCents: b.totalCents,
-      leadTimeWeeks: b.leadTimeWeeks,
-      validUntil: b.validUntil,
-    })),
-    sort,
-  );
   return {
     title: spec.title,
     revision: spec.currentRevision,

@@ -17,6 +17,9 @@ import { ErrorPage } from "~/components/error-page";
 
 export const meta: Route.MetaFunction = () => [{ title: "Tenderflow" }];
 
+// The mark from the header, served from public/.
+export const links: Route.LinksFunction = () => [{ rel: "icon", href: "/favicon.svg", type: "image/svg+xml" }];
+
 export async function loader({ request }: Route.LoaderArgs) {
   const [user, { toast, headers }] = await Promise.all([getOptionalUser(request), popToast(request)]);
   return data(

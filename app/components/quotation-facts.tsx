@@ -1,9 +1,10 @@
 import type { AttachmentView } from "~/services/attachments.server";
 import type { QuotationFacts } from "~/content/quotation-facts";
 import { formatBytes } from "./attachment-uploader";
+import { formatDay } from "~/content/dates";
 import { Card } from "./ui";
 
-const longDate = (iso: string) => new Date(`${iso}T00:00:00Z`).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+const longDate = (iso: string) => formatDay(iso);
 
 /** What the buyer asks to be quoted, and the drawings and photos that come with the spec. */
 export function QuotationPanel({ facts, attachments }: { facts: QuotationFacts; attachments: AttachmentView[] }) {

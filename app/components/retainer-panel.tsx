@@ -2,7 +2,7 @@ import { Form, useFetcher, useSearchParams } from "react-router";
 import { Badge, Button, Card, Notice } from "./ui";
 import { FieldErrors as FieldErrorText } from "./form-field";
 import { formatMoney } from "~/content/currencies";
-import { formatMoment } from "~/content/job-dates";
+import { formatMoment } from "~/content/dates";
 import { PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
 
 export interface PaymentView {
@@ -49,7 +49,7 @@ export function RetainerPanel({
               Your last payment did not go through{last.failureMessage ? ` (“${last.failureMessage.replace(/\.$/, "")}”)` : ""}. Nothing was charged. Try again, with another card if need be.
             </Notice>
           ) : null}
-          <p className="text-sm text-ink-600">Paid by card on the card service's secure page; the shop starts once it is received.</p>
+          <p className="text-sm text-ink-600">Paid by card on the card service's secure page; the shop is told as soon as it arrives.</p>
           <Form method="post" action={`/jobs/${jobId}/pay`}>
             <Button type="submit">{last?.status === "failed" ? `Try again: pay ${retainer}` : `Pay the retainer of ${retainer}`}</Button>
           </Form>

@@ -24,6 +24,8 @@ export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job
   declare retainerPercent: string;
   declare retainerCents: number;
   declare retainerPaidAt: Date | null;
+  /** Paid back by refunds so far (recorded from their webhook). */
+  declare retainerRefundedCents: CreationOptional<number>;
   /** The latest milestone reached, or null before the first. */
   declare stage: MilestoneKey | null;
   declare createdAt: CreationOptional<Date>;
@@ -44,6 +46,7 @@ Job.init(
     retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
     retainerCents: centsColumn("retainerCents"),
     retainerPaidAt: { type: DataTypes.DATE, allowNull: true },
+    retainerRefundedCents: centsColumn("retainerRefundedCents", 0),
     stage: { type: DataTypes.STRING(30), allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -6,7 +6,7 @@ import { Badge, Card, PageHeader } from "~/components/ui";
 import { accountOf } from "~/services/admin.server";
 import { listJobs } from "~/services/jobs.server";
 import { JOB_STAGE_LABELS } from "~/content/job-milestones";
-import { formatDay } from "~/content/job-dates";
+import { formatDay, formatMoment } from "~/content/dates";
 import { requireId } from "~/services/errors.server";
 import type { User } from "~/models/index.server";
 
@@ -80,7 +80,7 @@ export default function Account({ loaderData }: Route.ComponentProps) {
                 <td className="py-2 font-semibold">{u.name}</td>
                 <td>{u.email}</td>
                 <td>{u.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
-                <td>{u.lastSignInAt ? new Date(u.lastSignInAt).toLocaleString("en-GB") : "Never"}</td>
+                <td>{u.lastSignInAt ? formatMoment(u.lastSignInAt) : "Never"}</td>
               </tr>
             ))}
           </tbody>

@@ -1,4 +1,5 @@
 import { Link } from "react-router";
+import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/accounts";
 import { requireRole } from "~/auth/permissions.server";
 import { ACCOUNT_ROLES } from "~/auth/roles";
@@ -55,7 +56,7 @@ export default function Accounts({ loaderData }: Route.ComponentProps) {
                   </td>
                   <td>{a.region ?? "—"}</td>
                   <td>{a.memberCount}</td>
-                  <td>{new Date(a.since).toLocaleDateString("en-GB")}</td>
+                  <td>{formatDay(a.since.slice(0, 10))}</td>
                 </tr>
               ))}
             </tbody>

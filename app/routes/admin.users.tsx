@@ -1,4 +1,5 @@
 import { parseWithZod } from "@conform-to/zod/v4";
+import { formatDay } from "~/content/dates";
 import { Form, data, useSearchParams } from "react-router";
 import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
@@ -112,7 +113,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
                     )}
                   </td>
                   <td>{u.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
-                  <td>{u.lastSignInAt ? new Date(u.lastSignInAt).toLocaleDateString("en-GB") : "Never"}</td>
+                  <td>{u.lastSignInAt ? formatDay(u.lastSignInAt.slice(0, 10)) : "Never"}</td>
                   <td className="text-right">
                     {u.id !== loaderData.adminId ? (
                       <Form method="post">

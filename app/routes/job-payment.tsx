@@ -36,7 +36,7 @@ export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
 
   return (
     <>
-      <PageHeader title="Retainer payment" lead={`${d.amount} · ${PAYMENT_STATUS_LABELS[d.status]}`} />
+      <PageHeader title="Retainer payment" lead={`${d.amount} · ${waiting ? "Processing" : PAYMENT_STATUS_LABELS[d.status]}`} />
       <Card className="max-w-xl space-y-4">
         {waiting ? (
           <div role="status" aria-live="polite" className="space-y-2">
@@ -58,9 +58,11 @@ export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
         )}
         <ButtonLink to={`/jobs/${d.jobId}`} tone="secondary">Back to the job</ButtonLink>
       </Card>
-      <p className="mt-4 text-sm text-ink-600">
-        Problems with a card? <Link to={`/jobs/${d.jobId}`} className="text-flow-700 hover:underline">The job page</Link> shows the last attempt and lets you try again.
-      </p>
+      {waiting ? (
+        <p className="mt-4 text-sm text-ink-600">
+          Problems with a card? <Link to={`/jobs/${d.jobId}`} className="text-flow-700 hover:underline">The job page</Link> shows the last attempt and lets you try again.
+        </p>
+      ) : null}
     </>
   );
 }

@@ -7,7 +7,7 @@ import { redirectWithToast } from "~/auth/session.server";
 import { FieldErrors as FieldErrorText, FormErrors, SelectField, TextField } from "~/components/form-field";
 import { Badge, Button, ButtonLink, Card, PageHeader } from "~/components/ui";
 import { formatMoney } from "~/content/currencies";
-import { formatDay, formatMoment } from "~/content/job-dates";
+import { formatDay, formatMoment } from "~/content/dates";
 import { JOB_STAGE_LABELS, MILESTONE_LABELS, type MilestoneKey } from "~/content/job-milestones";
 import {
   jobActionSchema,
@@ -32,6 +32,7 @@ import {
 import { deliverDueMail } from "~/services/mail.server";
 import { paymentsOfJob } from "~/services/payments.server";
 import { RetainerPanel } from "~/components/retainer-panel";
+import { RetainerBadge } from "~/components/retainer-badge";
 import type { PaymentStatus } from "~/content/payment-status";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.job.specTitle || "Job"} · Tenderflow` }];
@@ -194,7 +195,7 @@ function Facts({ job }: { job: Job }) {
       value: (
         <>
           {formatMoney(job.retainerCents, job.currency)}{" "}
-          {job.retainerPaidAt ? <Badge tone="good">Paid {formatDay(job.retainerPaidAt.slice(0, 10))}</Badge> : <Badge tone="warn">Not paid yet</Badge>}
+          <RetainerBadge paidAt={job.retainerPaidAt} refundedCents={job.retainerRefundedCents} retainerCents={job.retainerCents} withDate />
         </>
       ),
     },
@@ -250,9 +251,11 @@ function Timeline({ job }: { job: Job }) {
 function describe(e: JobEventView, job: Job) {
   const label = e.milestone ? MILESTONE_LABELS[e.milestone] : "";
   const day = (v: unknown) => (typeof v === "string" ? formatDay(v) : "no date");
+  // History rows keep what they knew when written; amounts are in the job's currency.
+  const money = (cents: unknown) => (typeof cents === "number" || typeof cents === "string" ? formatMoney(Number(cents), job.currency) : "an amount not recorded");
   switch (e.kind) {
     case "awarded":
-      return `Awarded the bid of ${job.shopName}: ${formatMoney(Number(e.detail.totalCents), String(e.detail.currency))}, retainer ${formatMoney(Number(e.detail.retainerCents), String(e.detail.currency))}.`;
+      return `Awarded the bid of ${job.shopName}: ${money(e.detail.totalCents)}, retainer ${money(e.detail.retainerCents)}.`;
     case "milestone_reached":
       return typeof e.detail.reachedWith === "string"
         ? `Recorded ${label} as reached, together with ${MILESTONE_LABELS[e.detail.reachedWith as MilestoneKey]}.`
@@ -266,9 +269,9 @@ function describe(e: JobEventView, job: Job) {
     case "manager_note":
       return "Internal note.";
     case "retainer_paid":
-      return `Paid the retainer of ${formatMoney(Number(e.detail.amountCents), String(e.detail.currency))} by card.`;
+      return `Paid the retainer of ${money(e.detail.amountCents)} by card.`;
     case "retainer_refunded":
-      return `Paid back ${formatMoney(Number(e.detail.amountCents), String(e.detail.currency))} of the retainer.`;
+      return `Paid back ${money(e.detail.amountCents)} of the retainer.`;
   }
 }
 

@@ -1,11 +1,12 @@
 import { Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/jobs";
+import { RetainerBadge } from "~/components/retainer-badge";
 import { requireUser } from "~/auth/permissions.server";
 import type { Role } from "~/auth/roles";
 import { JobsByStageChart } from "~/components/jobs-by-stage-chart";
 import { Badge, Card, EmptyState, PageHeader, Pager, SearchBar } from "~/components/ui";
 import { formatMoney } from "~/content/currencies";
-import { formatDay } from "~/content/job-dates";
+import { formatDay } from "~/content/dates";
 import { JOB_STAGES, JOB_STAGE_LABELS } from "~/content/job-milestones";
 import { jobListQuerySchema } from "~/schemas/jobs";
 import { listJobs } from "~/services/jobs.server";
@@ -74,6 +75,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                 <option value="">Retainer paid or not</option>
                 <option value="paid">Retainer paid</option>
                 <option value="unpaid">Retainer not paid</option>
+                <option value="refunded">Retainer paid back (part or all)</option>
               </select>
               {d.role !== "buyer" && d.accounts.length > 0 ? (
                 <>
@@ -122,7 +124,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                       <td className="text-right tabular-nums">{formatMoney(j.totalCents, j.currency)}</td>
                       <td className="text-right tabular-nums">
                         <span className="block">{formatMoney(j.retainerCents, j.currency)}</span>
-                        {j.retainerPaidAt ? <Badge tone="good">Paid</Badge> : <Badge tone="warn">Not paid</Badge>}
+                        <RetainerBadge paidAt={j.retainerPaidAt} refundedCents={j.retainerRefundedCents} retainerCents={j.retainerCents} />
                       </td>
                       <td className="text-right tabular-nums">{j.daysSinceAward}</td>
                       <td className="pl-4">

@@ -1,8 +1,9 @@
 import { Form, Link, useSearchParams } from "react-router";
+import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/open-specs";
 import { requireRole } from "~/auth/permissions.server";
 import { Badge, Button, Card, EmptyState, Notice, PageHeader, Pager } from "~/components/ui";
-import { BID_STATUS_LABELS } from "~/content/bid-status";
+import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { OPEN_SPEC_SORTS, OPEN_SPEC_SORT_LABELS, readOpenSpecsQuery, type OpenSpecParam } from "~/schemas/open-specs";
 import { listOpenSpecsForShop } from "~/services/open-specs.server";
 import { formatQuantity, unitLabel, type UnitSystem } from "~/units";
@@ -166,11 +167,11 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
                     <td className="py-2 text-right tabular-nums">{s.pumpFlowLpm === null ? "—" : formatQuantity("flow", s.pumpFlowLpm, d.unitSystem)}</td>
                     <td className="py-2 text-right tabular-nums">{s.unitsWanted ?? "—"}</td>
                     <td className="py-2 pl-4">{s.currency}</td>
-                    <td className="py-2">{new Date(s.bidDeadline).toLocaleDateString("en-GB")}</td>
+                    <td className="py-2">{formatDay(s.bidDeadline.slice(0, 10))}</td>
                     <td className="py-2 text-right">
                       {s.ownBidStatus ? (
                         <span title={`Your bid: ${BID_STATUS_LABELS[s.ownBidStatus]}`}>
-                          <Badge tone="good">You have a bid</Badge>
+                          <Badge tone={BID_STATUS_TONES[s.ownBidStatus]}>Your bid: {BID_STATUS_LABELS[s.ownBidStatus]}</Badge>
                         </span>
                       ) : null}
                     </td>

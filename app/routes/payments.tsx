@@ -3,7 +3,7 @@ import type { Route } from "./+types/payments";
 import { requireRole } from "~/auth/permissions.server";
 import { Badge, Button, Card, EmptyState, PageHeader, Pager } from "~/components/ui";
 import { formatMoney } from "~/content/currencies";
-import { formatMoment } from "~/content/job-dates";
+import { formatMoment } from "~/content/dates";
 import { PAYMENT_STATUSES, PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
 import { paymentListSchema } from "~/schemas/payments";
 import { listPayments } from "~/services/payments.server";

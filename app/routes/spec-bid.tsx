@@ -1,4 +1,5 @@
 import { getFormProps, getInputProps, getTextareaProps, useForm } from "@conform-to/react";
+import { formatDay, formatMoment } from "~/content/dates";
 import { parseWithZod } from "@conform-to/zod/v4";
 import { Form, Link, data, useNavigation } from "react-router";
 import type { Route } from "./+types/spec-bid";
@@ -98,7 +99,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-const dateText = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+const dateText = (iso: string) => formatDay(iso.slice(0, 10));
 
 export default function SpecBid({ loaderData: d, actionData }: Route.ComponentProps) {
   const navigation = useNavigation();
@@ -114,7 +115,8 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
   const typed = (form.value?.lines ?? d.defaults.lines) as { unitPrice?: string; alternative?: string }[];
   const cents = d.bill.map((l, i) => ({ quantity: l.quantity, unitPriceCents: parseMoney(typed[i]?.unitPrice ?? "") }));
   const preview = bidTotals(cents.map((c) => ({ quantity: c.quantity, unitPriceCents: c.unitPriceCents ?? 0 })), d.spec.units);
-  const unpriced = cents.filter((c) => c.unitPriceCents === null).length;
+  const unpriced = cents.filter((c, i) => c.unitPriceCents === null && !(typed[i]?.unitPrice ?? "").trim()).length;
+  const unreadable = cents.filter((c, i) => c.unitPriceCents === null && (typed[i]?.unitPrice ?? "").trim()).length;
   const offered = d.bid?.status === "submitted";
   const money = (c: number) => formatMoney(c, d.spec.currency);
 
@@ -232,7 +234,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                   <tr>
                     <td colSpan={3} className="py-2 pr-3 text-right">× {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}: your offer</td>
                     <td className="py-2 pr-3 text-right text-base tabular-nums" data-testid="offer-total">{money(preview.totalCents)}</td>
-                    <td className="py-2 text-xs font-normal text-ink-600">{unpriced ? `${unpriced} line${unpriced === 1 ? "" : "s"} not priced yet` : "Every line priced"}</td>
+                    <td className="py-2 text-xs font-normal text-ink-600">{[unpriced ? `${unpriced} line${unpriced === 1 ? "" : "s"} not priced yet` : "", unreadable ? `${unreadable} price${unreadable === 1 ? "" : "s"} to correct` : ""].filter(Boolean).join("; ") || "Every line priced"}</td>
                   </tr>
                 </tfoot>
               </table>
@@ -240,7 +242,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
           </Card>
 
           <Card className="grid gap-5 sm:grid-cols-2">
-            <TextField meta={fields.leadTimeWeeks} label="Lead time (weeks)" hint="From the retainer to dispatch, e.g. 12." inputMode="numeric" />
+            <TextField meta={fields.leadTimeWeeks} label="Lead time (weeks)" hint="From the award to dispatch, e.g. 12; the job's milestones are planned over it." inputMode="numeric" />
             <TextField meta={fields.validUntil} type="date" label="Offer valid until" hint="At least until the bid deadline." />
             <div className="sm:col-span-2">
               <label htmlFor={fields.terms.id} className="block text-sm font-semibold text-ink-800">Terms</label>
@@ -259,13 +261,19 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
             {!offered ? (
               <Button type="submit" name="intent" value="save" tone="secondary">Save as draft</Button>
             ) : null}
-            <p className="text-sm text-ink-600">The buyer sees your offer once it is submitted; drafts stay with your shop.</p>
+            <p className="text-sm text-ink-600">{offered ? "The buyer sees the revised offer as soon as you send it; the earlier one stays in the history." : "The buyer sees your offer once it is submitted; drafts stay with your shop."}</p>
           </div>
         </fieldset>
       </Form>
 
       {offered && d.spec.accepting ? (
-        <Form method="post" className="mt-4">
+        <Form
+          method="post"
+          className="mt-4"
+          onSubmit={(event) => {
+            if (!window.confirm("Take your offer back? The buyer will no longer see it; you can offer again until the deadline.")) event.preventDefault();
+          }}
+        >
           <Button type="submit" name="intent" value="withdraw" tone="danger">Take the offer back</Button>
         </Form>
       ) : null}
@@ -279,7 +287,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                 <span className="font-semibold">{h.event === "submitted" ? `Offer ${h.version}` : `Offer ${h.version} taken back`}</span>
                 <span className="tabular-nums">{money(h.totalCents)}</span>
                 {h.leadTimeWeeks ? <span>{h.leadTimeWeeks} weeks</span> : null}
-                <span className="text-ink-600">revision {h.specRevision} · {h.by} · {new Date(h.at).toLocaleString("en-GB")}</span>
+                <span className="text-ink-600">revision {h.specRevision} · {h.by} · {formatMoment(h.at)}</span>
               </li>
             ))}
           </ol>

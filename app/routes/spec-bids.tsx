@@ -1,4 +1,5 @@
 import { Form, Link, data, useNavigation, useSearchParams } from "react-router";
+import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/spec-bids";
 import { requireRole } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
@@ -50,7 +51,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-const day = (iso: string) => new Date(`${iso.slice(0, 10)}T12:00:00Z`).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+const day = (iso: string) => formatDay(iso.slice(0, 10));
 
 export default function SpecBids({ loaderData: d, actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
@@ -116,8 +117,8 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
           )}
 
           {d.choosing ? (
-            <Card className="mb-6 ring-2 ring-flow-600">
-              <h2 className="text-lg font-semibold">Award this spec to {d.choosing.shop}?</h2>
+            <Card className="mb-6 scroll-mt-4 ring-2 ring-flow-600">
+              <h2 id="award-confirmation" tabIndex={-1} className="text-lg font-semibold">Award this spec to {d.choosing.shop}?</h2>
               <p className="mt-1 text-sm text-ink-700">
                 {money(d.choosing.totalCents)} for {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}, {d.choosing.leadTimeWeeks} weeks. The retainer of{" "}
                 <strong>{money(d.choosing.retainerCents)}</strong> ({Number(d.spec.retainerPercent)} %) is paid by card after the award. Every other bidder is told
@@ -234,9 +235,11 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                     {columns.map((c) => (
                       <td key={c.id} className="p-3 text-right">
                         {c.status === "submitted" ? (
-                          <ButtonLink to={`?sort=${d.sort}&award=${c.id}`} tone={c.cheapestComplete ? "primary" : "secondary"} aria-label={`Award to ${c.shop}`}>
-                            Award…
-                          </ButtonLink>
+                          <span className="flex justify-end">
+                            <ButtonLink to={`?sort=${d.sort}&award=${c.id}#award-confirmation`} tone={c.cheapestComplete ? "primary" : "secondary"} aria-label={`Award to ${c.shop}`}>
+                              Award…
+                            </ButtonLink>
+                          </span>
                         ) : null}
                       </td>
                     ))}

@@ -1,4 +1,5 @@
 import { Form, Link, useSearchParams } from "react-router";
+import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/spec";
 import { requireUser } from "~/auth/permissions.server";
 import { DesignReport } from "~/components/design-report";
@@ -81,7 +82,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
           <span className="flex flex-wrap items-center gap-2">
             <Badge tone={SPEC_STATUS_TONES[d.status]}>{SPEC_STATUS_LABELS[d.status]}</Badge>
             {d.revision ? <span>Revision {d.revision.number} · engine {d.revision.engineVersion}</span> : null}
-            {d.bidDeadline ? <span>· bids until {new Date(d.bidDeadline).toLocaleDateString("en-GB")}</span> : null}
+            {d.bidDeadline ? <span>· bids until {formatDay(d.bidDeadline.slice(0, 10))}</span> : null}
             {d.deliveryRegion ? <span>· delivered to {d.deliveryRegion}</span> : null}
           </span>
         }
@@ -120,7 +121,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
               aria-current={r.number === d.revision?.number ? "page" : undefined}
               className={`rounded-md px-2 py-1 ring-1 ${r.number === d.revision?.number ? "bg-flow-600 text-white ring-flow-600" : "ring-ink-200 hover:bg-ink-100"}`}
             >
-              {r.number} · {new Date(r.createdAt).toLocaleDateString("en-GB")}
+              {r.number} · {formatDay(r.createdAt.slice(0, 10))}
             </Link>
           ))}
         </nav>

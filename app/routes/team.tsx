@@ -1,4 +1,5 @@
 import { getFormProps, useForm } from "@conform-to/react";
+import { formatDay } from "~/content/dates";
 import { parseWithZod } from "@conform-to/zod/v4";
 import { Form, data, useNavigation } from "react-router";
 import type { Route } from "./+types/team";
@@ -84,7 +85,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
                 {loaderData.invitations.map((i) => (
                   <li key={i.id} className="flex items-center justify-between py-2">
                     <span>
-                      {i.email} · {ROLE_LABELS[i.role]} · until {new Date(i.expiresAt).toLocaleDateString("en-GB")}
+                      {i.email} · {ROLE_LABELS[i.role]} · until {formatDay(i.expiresAt.slice(0, 10))}
                     </span>
                     <Form method="post" action={`/team/invitations/${i.id}/revoke`}>
                       <Button tone="danger" type="submit" className="px-3 py-1">

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { MAX_UNIT_PRICE_CENTS, parseMoney } from "~/services/bid-pricing";
+import { MAX_UNIT_PRICE_CENTS, moneyProblem, parseMoney } from "~/services/bid-pricing";
 
 // The bid form's schema, shared by the action and the Conform form. A draft may leave prices
 // and terms open; a submitted offer prices every line and states lead time and validity.
@@ -30,7 +30,7 @@ export const bidSchema = z
     bid.lines.forEach((line, i) => {
       if (line.unitPrice) {
         const cents = parseMoney(line.unitPrice);
-        if (cents === null) ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: "Enter an amount like 1250 or 1250.50." });
+        if (cents === null) ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: moneyProblem(line.unitPrice)! });
         else if (cents > MAX_UNIT_PRICE_CENTS) ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: "That is more than a billion; check the amount." });
       } else if (submitting) {
         ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: "Price every line before you submit (0 if it is included elsewhere)." });

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { JOB_STAGES, MILESTONE_KEYS, PAYMENT_MILESTONE, type MilestoneKey } from "~/content/job-milestones";
-import { isIsoDay } from "~/content/job-dates";
+import { isIsoDay } from "~/content/dates";
 
 // The job list's filters and the job page's forms: one set of rules for server and Conform.
 
@@ -11,7 +11,7 @@ export const SHOP_MILESTONES = MILESTONE_KEYS.filter((k) => k !== PAYMENT_MILEST
 export const jobListQuerySchema = z.object({
   q: z.string().trim().max(100).optional().catch(undefined),
   stage: z.enum(JOB_STAGES).optional().catch(undefined),
-  retainer: z.enum(["paid", "unpaid"]).optional().catch(undefined),
+  retainer: z.enum(["paid", "unpaid", "refunded"]).optional().catch(undefined),
   overdue: z
     .enum(["1", "on", "true"])
     .transform(() => true)

@@ -17,6 +17,17 @@ export function parseMoney(text: string): number | null {
   return Number.isSafeInteger(cents) ? cents : null;
 }
 
+/** Why typed money is not an amount, in words a shop can act on; null when it is fine. */
+export function moneyProblem(text: string): string | null {
+  const t = text.trim();
+  if (parseMoney(t) !== null) return null;
+  if (t.startsWith("-")) return "A price can't be negative; enter 0 for a line included elsewhere.";
+  if (/^\d+,\d{1,2}$/.test(t)) return `Use a point for decimals: ${t.replace(",", ".")}.`;
+  if (/^\d[\d,\s]*\.\d{3,}$/.test(t)) return "At most two decimals (whole cents).";
+  if (/[^\d.,\s]/.test(t)) return "Digits only, without a currency sign: e.g. 1250 or 1250.50.";
+  return "Enter an amount like 1250 or 1250.50.";
+}
+
 /** Cents as a plain amount for an input field: 123450 → "1234.50". */
 export const centsToInput = (cents: number) => `${Math.floor(cents / 100)}.${String(cents % 100).padStart(2, "0")}`;
 

@@ -8,6 +8,7 @@ import { compareBids, type ComparisonSort } from "./bid-comparison";
 import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { env } from "~/env.server";
+import { formatDay } from "~/content/dates";
 
 // A shop's bid on a spec: one per shop organisation, priced line by line against the bill of
 // materials of the spec's current revision. Every submission and withdrawal is kept as a
@@ -80,7 +81,7 @@ export async function saveBid(user: User, spec: Spec, input: BidInput): Promise<
     const locked = await lockOpenSpec(spec.id, transaction);
     const fresh = await Spec.findByPk(spec.id, { transaction, rejectOnEmpty: true });
     if (input.validUntil && input.validUntil < locked.deadline.toISOString().slice(0, 10)) {
-      throw new FieldErrors({ validUntil: [`Keep the offer valid at least until the bid deadline (${locked.deadline.toISOString().slice(0, 10)}), so the buyer can award it.`] });
+      throw new FieldErrors({ validUntil: [`Keep the offer valid at least until the bid deadline (${formatDay(locked.deadline.toISOString().slice(0, 10))}), so the buyer can award it.`] });
     }
     const lines = priceLines(await bomOf(fresh, fresh.currentRevision, transaction), input.lines);
     const units = fresh.unitsWanted ?? 1;
@@ -140,6 +141,18 @@ export async function withdrawBid(user: User, spec: Spec) {
     if (!bid || bid.status !== "submitted") throw new FieldErrors({ "": ["Only an offered bid can be taken back."] });
     await bid.update({ status: "withdrawn" }, { transaction });
     await BidVersion.create({ bidId: bid.id, version: bid.version, event: "withdrawn", specRevision: bid.specRevision, offer: offerOf(bid), createdById: user.id }, { transaction });
+    const author = await User.findByPk(spec.createdById, { transaction });
+    const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
+    if (author?.active) {
+      await enqueueMail(
+        {
+          to: author.email,
+          subject: `Offer taken back on ${spec.title}`,
+          text: `Hello ${author.name},\n\n${shop.name} has taken back its offer on "${spec.title}"; it no longer appears in your comparison. They may offer again until the deadline.\n\nThe offers: ${env().APP_URL}/specs/${spec.id}/bids\n`,
+        },
+        transaction,
+      );
+    }
   });
 }
 

@@ -11,7 +11,7 @@ import {
   type JobStage,
   type MilestoneKey,
 } from "~/content/job-milestones";
-import { addDays, daysBetween, formatDay, isoDay } from "~/content/job-dates";
+import { addDays, daysBetween, formatDay, isoDay } from "~/content/dates";
 import type { JobListQuery } from "~/schemas/jobs";
 import { env } from "~/env.server";
 import { FieldErrors, forbidden, notFound, requireId } from "./errors.server";
@@ -154,6 +154,7 @@ export interface JobSummary {
   retainerPercent: string;
   retainerCents: number;
   retainerPaidAt: string | null;
+  retainerRefundedCents: number;
   awardedAt: string;
   daysSinceAward: number;
   next: NextMilestone | null;
@@ -185,6 +186,7 @@ function summarise(job: JobWithParties, milestones: JobMilestone[], today: strin
     retainerPercent: job.retainerPercent,
     retainerCents: job.retainerCents,
     retainerPaidAt: job.retainerPaidAt?.toISOString() ?? null,
+    retainerRefundedCents: job.retainerRefundedCents,
     awardedAt: job.awardedAt.toISOString(),
     daysSinceAward: Math.max(0, daysBetween(isoDay(job.awardedAt), today)),
     next: next ? { key: next.key, label: MILESTONE_LABELS[next.key], targetDate: next.targetDate } : null,
@@ -202,7 +204,10 @@ const overdueSql = (today: string) =>
 function filtersOf(query: JobListQuery, today: string, withStage: boolean): WhereOptions<Job>[] {
   const where: WhereOptions<Job>[] = [];
   if (withStage && query.stage) where.push({ stage: query.stage === "awaiting_retainer" ? null : query.stage });
-  if (query.retainer) where.push({ retainerPaidAt: query.retainer === "paid" ? { [Op.ne]: null } : null });
+  // "Paid" means the money is still held: a retainer paid back in part or whole is its own choice.
+  if (query.retainer === "unpaid") where.push({ retainerPaidAt: null });
+  if (query.retainer === "paid") where.push({ retainerPaidAt: { [Op.ne]: null }, retainerRefundedCents: 0 });
+  if (query.retainer === "refunded") where.push({ retainerRefundedCents: { [Op.gt]: 0 } });
   if (query.overdue) where.push(sequelize.literal(overdueSql(today)) as unknown as WhereOptions<Job>);
   if (query.account) where.push({ buyerOrganisationId: query.account });
   const q = query.q?.trim();
@@ -469,6 +474,7 @@ export async function undoLastMilestone(viewer: User, jobId: string | undefined,
     last.reachedById = null;
     await last.save({ transaction });
     await record(transaction, job, viewer, "milestone_undone", { milestone: last.key, body: input.reason, detail: was });
+    await tellPartiesUndone(transaction, job, last, input.reason);
     return last.key;
   });
 }
@@ -483,6 +489,16 @@ export async function changeTargetDate(viewer: User, jobId: string | undefined, 
     const awardDay = isoDay(job.awardedAt);
     if (input.targetDate < awardDay) throw new FieldErrors({ targetDate: [`Choose a day on or after the award (${formatDay(awardDay)}).`] });
     if (input.targetDate === m.targetDate) throw new FieldErrors({ targetDate: ["That is already the target date."] });
+    // The plan stays in order: a target may not pass the shop milestones either side of it.
+    const plan = milestones.filter((x) => x.key !== PAYMENT_MILESTONE && x.targetDate && !x.reachedAt);
+    const before = plan.filter((x) => x.position < m.position).at(-1);
+    const after = plan.find((x) => x.position > m.position);
+    if (before && input.targetDate < before.targetDate!) {
+      throw new FieldErrors({ targetDate: [`${MILESTONE_LABELS[m.key]} can't be planned before ${MILESTONE_LABELS[before.key]} (${formatDay(before.targetDate!)}). Move that one first.`] });
+    }
+    if (after && input.targetDate > after.targetDate!) {
+      throw new FieldErrors({ targetDate: [`${MILESTONE_LABELS[m.key]} can't be planned after ${MILESTONE_LABELS[after.key]} (${formatDay(after.targetDate!)}). Move that one first.`] });
+    }
     const from = m.targetDate;
     m.targetDate = input.targetDate;
     await m.save({ transaction });
@@ -552,4 +568,21 @@ export async function recordRetainerReceived(transaction: Transaction, args: { j
     { transaction },
   );
   return true;
+}
+
+/** A milestone taken back is news too: the buyer may be planning on it. */
+async function tellPartiesUndone(transaction: Transaction, job: Job, milestone: JobMilestone, reason: string) {
+  const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
+  const shop = await Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true });
+  const people = await User.findAll({ where: { organisationId: [job.buyerOrganisationId, job.shopOrganisationId], active: true }, order: [["email", "ASC"]], transaction });
+  for (const person of people) {
+    await enqueueMail(
+      {
+        to: person.email,
+        subject: `Job progress on "${spec.title}": ${MILESTONE_LABELS[milestone.key]} taken back`,
+        text: `Hello ${person.name},\n\n${shop.name} has taken back "${MILESTONE_LABELS[milestone.key]}" on "${spec.title}": it is no longer marked as reached.\nTheir reason: ${reason}\n\nThe job's timeline and history: ${env().APP_URL}/jobs/${job.id}\n`,
+      },
+      transaction,
+    );
+  }
 }

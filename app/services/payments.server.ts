@@ -177,7 +177,8 @@ export async function requestRefund(viewer: User, paymentId: string | undefined,
     }
     const left = await refundableCents(payment, transaction);
     const amountCents = input.amountCents ?? left;
-    if (amountCents <= 0 || left <= 0) throw new FieldErrors({ amount: ["Nothing is left to pay back."] });
+    if (left <= 0) throw new FieldErrors({ amount: ["Nothing is left to pay back."] });
+    if (amountCents <= 0) throw new FieldErrors({ amount: ["Enter an amount above zero, or leave it empty to pay back everything left."] });
     if (amountCents > left) throw new FieldErrors({ amount: [`At most ${formatMoney(left, payment.currency)} can still be paid back.`] });
     const refund = await Refund.create({ paymentId: payment.id, requestedById: viewer.id, amountCents, reason: input.reason, stripeRefundId: null, failureMessage: null, recordedAt: null }, { transaction });
     return { payment, refund };

@@ -1,6 +1,6 @@
 import type Stripe from "stripe";
 import { QueryTypes, type Transaction } from "sequelize";
-import { Job, JobEvent, Payment, Refund, StripeEvent, User, sequelize } from "~/models/index.server";
+import { Job, JobEvent, Payment, Refund, Spec, StripeEvent, User, sequelize } from "~/models/index.server";
 import { formatMoney } from "~/content/currencies";
 import { env } from "~/env.server";
 import { enqueueMail } from "./mail.server";
@@ -59,7 +59,9 @@ async function chargeRefunded(charge: Stripe.Charge, transaction: Transaction) {
     covered += refund.amountCents;
     await refund.update({ status: "recorded", recordedAt: new Date() }, { transaction });
   }
-  const job = await Job.findByPk(payment.jobId, { transaction, rejectOnEmpty: true });
+  const job = await Job.findByPk(payment.jobId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+  await job.update({ retainerRefundedCents: job.retainerRefundedCents + newly }, { transaction });
+  const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
   const by = waiting[0]?.requestedById ?? payment.createdById;
   await JobEvent.create({ jobId: job.id, userId: by, kind: "retainer_refunded", milestone: null, detail: { paymentId: payment.id, amountCents: newly, currency: payment.currency } }, { transaction });
   const payer = await User.findByPk(payment.createdById, { transaction });
@@ -67,8 +69,23 @@ async function chargeRefunded(charge: Stripe.Charge, transaction: Transaction) {
     await enqueueMail(
       {
         to: payer.email,
-        subject: `Refund of ${formatMoney(newly, payment.currency)} on your retainer`,
-        text: `Hello ${payer.name},\n\n${formatMoney(newly, payment.currency)} of the retainer you paid has been refunded to your card (${formatMoney(refunded, payment.currency)} of ${formatMoney(payment.amountCents, payment.currency)} in all). It can take a few days to appear.\n\nThe job: ${env().APP_URL}/jobs/${job.id}\n`,
+        subject: `Refund of ${formatMoney(newly, payment.currency)} on your retainer for ${spec.title}`,
+        text: `Hello ${payer.name},\n\n${formatMoney(newly, payment.currency)} of the retainer you paid has been refunded to your card. Refunded so far: ${formatMoney(refunded, payment.currency)} of the ${formatMoney(payment.amountCents, payment.currency)} you paid. It can take a few days to appear on your statement.\n\nThe job: ${env().APP_URL}/jobs/${job.id}\n`,
+      },
+      transaction,
+    );
+  }
+  for (const person of await User.findAll({ where: { organisationId: job.shopOrganisationId, active: true }, transaction })) {
+    await enqueueMail(
+      {
+        to: person.email,
+        subject: `Retainer paid back in ${refunded >= payment.amountCents ? "full" : "part"}: ${spec.title}`,
+        text: `Hello ${person.name},
+
+Tenderflow has refunded ${formatMoney(newly, payment.currency)} of the buyer's retainer for "${spec.title}" (${formatMoney(refunded, payment.currency)} of ${formatMoney(payment.amountCents, payment.currency)} refunded so far). Your account manager will be in touch about the job.
+
+The job: ${env().APP_URL}/jobs/${job.id}
+`,
       },
       transaction,
     );

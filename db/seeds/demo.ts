@@ -264,15 +264,15 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
 
 async function seedQuestions(sequelize: Sequelize, transaction: Transaction, specId: string, userIds: Map<string, string>, orgIds: Map<string, string>) {
   const questions = [
-    { shop: "Ironbridge Fluid Power", by: "aled@ironbridge-fluid.test", body: "Can the counterbalance valve be flanged straight onto the cylinder's rod port, or is there only room for a line-mounted valve?", answer: "Flanged on the port, please: there is 120 mm of clearance beside the cylinder. Drawing 2 shows it." },
+    { shop: "Ironbridge Fluid Power", by: "aled@ironbridge-fluid.test", body: "Can the counterbalance valve be flanged straight onto the cylinder's rod port, or is there only room for a line-mounted valve?", answer: "Flanged on the port, please: there is 120 mm of clearance beside the cylinder, on the operator's side." },
     { shop: "Northgate Hydraulics", by: "sofia@northgate-hyd.test", body: "Is a water-glycol fluid required for fire safety at this site, or is mineral oil acceptable?", answer: null },
   ];
   for (const q of questions) {
     await sequelize.query(
-      `INSERT INTO spec_questions (spec_id, organisation_id, asked_by_id, body, answer, answered_by_id, answered_at)
-       VALUES (:spec, :org, :by, :body, :answer, :answeredBy, :answeredAt)`,
+      `INSERT INTO spec_questions (spec_id, organisation_id, asked_by_id, body, answer, answered_by_id, answered_at, created_at, updated_at)
+       VALUES (:spec, :org, :by, :body, :answer, :answeredBy, :answeredAt, :askedAt, :askedAt)`,
       {
-        replacements: { spec: specId, org: orgIds.get(q.shop), by: userIds.get(q.by), body: q.body, answer: q.answer, answeredBy: q.answer ? userIds.get("priya@kestrel-forming.test") : null, answeredAt: q.answer ? daysAgo(1) : null },
+        replacements: { spec: specId, org: orgIds.get(q.shop), by: userIds.get(q.by), body: q.body, answer: q.answer, answeredBy: q.answer ? userIds.get("priya@kestrel-forming.test") : null, answeredAt: q.answer ? daysAgo(1) : null, askedAt: daysAgo(2) },
         transaction,
       },
     );
@@ -313,7 +313,11 @@ async function seedJob(
       stage: reached.at(-1) ?? null,
     },
   );
-  await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, created_at) VALUES (:job, :by, 'awarded', :at)`, { replacements: { job: job.id, by: buyerAuthor, at: awardedAt }, transaction });
+  const awarded = { bidId: a.bidId, totalCents: a.totalCents, currency: a.flat.currency, retainerPercent: a.flat.retainerPercent, retainerCents: retainerCents(a.totalCents, a.flat.retainerPercent), leadTimeWeeks: a.offer.leadTimeWeeks };
+  await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, detail, created_at) VALUES (:job, :by, 'awarded', :detail, :at)`, {
+    replacements: { job: job.id, by: buyerAuthor, detail: JSON.stringify(awarded), at: awardedAt },
+    transaction,
+  });
   if (underway) {
     // Paid by card in the scenario's past; `npm start` puts this payment back into the Stripe fake.
     const paidAt = daysAgo(awardedDaysAgo - 2);
@@ -373,8 +377,9 @@ export async function seedDemo(sequelize: Sequelize): Promise<boolean> {
     const orgIds = new Map<string, string>();
     for (const org of DEMO_ORGANISATIONS) {
       const [row] = await sequelize.query<{ id: string }>(
-        "INSERT INTO organisations (name, kind, region) VALUES (:name, :kind, :region) RETURNING id",
-        { replacements: { name: org.name, kind: org.kind, region: org.region }, transaction, type: QueryTypes.SELECT },
+        // Customers of long standing: the scenario's jobs go back months.
+        "INSERT INTO organisations (name, kind, region, created_at, updated_at) VALUES (:name, :kind, :region, :since, :since) RETURNING id",
+        { replacements: { name: org.name, kind: org.kind, region: org.region, since: daysAgo(420) }, transaction, type: QueryTypes.SELECT },
       );
       orgIds.set(org.name, row.id);
       for (const user of org.users) {

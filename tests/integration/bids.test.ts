@@ -116,8 +116,8 @@ describe("a shop's bid", () => {
     const bad = await post(visitor, spec.id, { intent: "submit", ...bidFields(bom, (_, i) => (i === 0 ? "12,50" : i === 1 ? "-5" : "10")), "lines[2].alternative": "on" });
     expect(bad.status).toBe(400);
     const errors = bad.data.result.error;
-    expect(errors["lines[0].unitPrice"][0]).toMatch(/amount like/);
-    expect(errors["lines[1].unitPrice"][0]).toMatch(/amount like/);
+    expect(errors["lines[0].unitPrice"][0]).toBe("Use a point for decimals: 12.50.");
+    expect(errors["lines[1].unitPrice"][0]).toMatch(/can't be negative/);
     expect(errors["lines[2].alternativeDescription"][0]).toMatch(/Describe/);
     expect(await Bid.count({ where: { specId: spec.id } })).toBe(0);
 

@@ -10,7 +10,7 @@ import * as accountPage from "~/routes/account";
 import * as specPage from "~/routes/spec";
 import { Bid, Job, JobEvent, JobMilestone, Organisation, User, sequelize, type Spec } from "~/models/index.server";
 import { MILESTONE_KEYS } from "~/content/job-milestones";
-import { addDays, isoDay } from "~/content/job-dates";
+import { addDays, isoDay } from "~/content/dates";
 import {
   changeTargetDate,
   jobFor,

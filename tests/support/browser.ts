@@ -30,11 +30,14 @@ function buildOnce() {
     const dir = inject("buildDir");
     const done = path.join(dir, ".done");
     const lock = `${dir}.lock`;
+    mkdirSync(path.dirname(lock), { recursive: true });
     for (;;) {
       if (existsSync(done)) return dir;
       try {
         mkdirSync(lock);
-      } catch {
+      } catch (error) {
+        // Only "someone else holds it" means wait; anything else is a real failure.
+        if ((error as NodeJS.ErrnoException).code !== "EEXIST") throw error;
         await new Promise((r) => setTimeout(r, 250));
         continue;
       }

@@ -1,7 +1,7 @@
 // Bid money and the comparison, without a database.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { bidTotals, centsToInput, parseMoney, retainerCents } from "~/services/bid-pricing";
+import { bidTotals, centsToInput, moneyProblem, parseMoney, retainerCents } from "~/services/bid-pricing";
 import { compareBids, type ComparedBid } from "~/services/bid-comparison";
 import type { BomLine } from "~/hydraulics";
 
@@ -20,6 +20,19 @@ describe("parseMoney", () => {
   it("round-trips every amount through the input format exactly", () => {
     fc.assert(fc.property(fc.integer({ min: 0, max: 1e13 }), (cents) => parseMoney(centsToInput(cents)) === cents));
   });
+});
+
+describe("moneyProblem", () => {
+  it.each([
+    ["12,50", "Use a point for decimals: 12.50."],
+    ["-5", "A price can't be negative; enter 0 for a line included elsewhere."],
+    ["0.005", "At most two decimals (whole cents)."],
+    ["£41", "Digits only, without a currency sign: e.g. 1250 or 1250.50."],
+    ["1e3", "Digits only, without a currency sign: e.g. 1250 or 1250.50."],
+    ["1,23.00", "Enter an amount like 1250 or 1250.50."],
+  ])("explains %j", (text, message) => expect(moneyProblem(text)).toBe(message));
+
+  it("has nothing to say about a good amount", () => expect(moneyProblem("1,250.50")).toBeNull());
 });
 
 describe("bidTotals", () => {

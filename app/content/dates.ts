@@ -1,5 +1,5 @@
-// Calendar days of a job, shared by server and client. Target dates are whole days (YYYY-MM-DD)
-// in UTC, so "today", "overdue" and "days since award" read the same on every server and browser.
+// Calendar days, shared by server and client. Deadlines, target dates and validity are whole days
+// (YYYY-MM-DD) in UTC, so "today", "overdue" and "days since award" read the same on every server and browser.
 
 const DAY_MS = 86_400_000;
 const ISO_DAY = /^(\d{4})-(\d{2})-(\d{2})$/;

@@ -263,7 +263,7 @@ function describe(e: JobEventView, job: Job) {
     case "milestone_undone":
       return `Took back ${label}.`;
     case "target_changed":
-      return `Moved the target of ${label} from ${day(e.detail.from)} to ${day(e.detail.to)}.`;
+      return `Moved the target of ${label} from ${day(e.detail.from)} to ${day(e.detail.to)}${typeof e.detail.pushedBy === "string" ? `, carried along by ${MILESTONE_LABELS[e.detail.pushedBy as MilestoneKey]}` : ""}.`;
     case "progress_note":
       return "Progress note.";
     case "manager_note":

@@ -496,13 +496,24 @@ export async function changeTargetDate(viewer: User, jobId: string | undefined, 
     if (before && input.targetDate < before.targetDate!) {
       throw new FieldErrors({ targetDate: [`${MILESTONE_LABELS[m.key]} can't be planned before ${MILESTONE_LABELS[before.key]} (${formatDay(before.targetDate!)}). Move that one first.`] });
     }
-    if (after && input.targetDate > after.targetDate!) {
-      throw new FieldErrors({ targetDate: [`${MILESTONE_LABELS[m.key]} can't be planned after ${MILESTONE_LABELS[after.key]} (${formatDay(after.targetDate!)}). Move that one first.`] });
-    }
     const from = m.targetDate;
     m.targetDate = input.targetDate;
     await m.save({ transaction });
     await record(transaction, job, viewer, "target_changed", { milestone: m.key, body: input.reason, detail: { from, to: input.targetDate } });
+    // A slip carries along the milestones it would overtake, by the same number of days.
+    if (after && from && input.targetDate > after.targetDate!) {
+      const slip = daysBetween(from, input.targetDate);
+      let floor = input.targetDate;
+      for (const next of plan.filter((x) => x.position > m.position)) {
+        if (next.targetDate! >= floor) break;
+        const was = next.targetDate!;
+        const to = addDays(was, slip) < floor ? floor : addDays(was, slip);
+        next.targetDate = to;
+        await next.save({ transaction });
+        await record(transaction, job, viewer, "target_changed", { milestone: next.key, body: "", detail: { from: was, to, pushedBy: m.key } });
+        floor = to;
+      }
+    }
     return m.key;
   });
 }

@@ -101,6 +101,8 @@ describe("a shop's bid", () => {
     const withdrawn = await post(visitor, spec.id, { intent: "withdraw" });
     expect(withdrawn.status).toBe(302);
     expect((await bid.reload()).status).toBe("withdrawn");
+    await deliverDueMail(500);
+    expect((await waitForMail(buyer.email, "Offer taken back")).text).toContain(`/specs/${spec.id}/bids`);
     const again = await post(visitor, spec.id, { intent: "submit", ...bidFields(bom, prices) });
     expect(again.status).toBe(302);
     expect((await bid.reload()).version).toBe(3);

@@ -6,7 +6,7 @@ import * as bidsRoute from "~/routes/spec-bids";
 import * as jobsRoute from "~/routes/jobs";
 import * as specPage from "~/routes/spec";
 import * as paymentsRoute from "~/routes/payments";
-import { Bid, Job, Spec, sequelize } from "~/models/index.server";
+import { Bid, Job, JobEvent, Spec, sequelize } from "~/models/index.server";
 import { bidTotals, retainerCents } from "~/services/bid-pricing";
 import { bomOf } from "~/services/bids.server";
 import { DEMO_PASSWORD, seedDemo } from "../../db/seeds/demo";
@@ -41,6 +41,9 @@ describe("the demo scenario", () => {
     for (const job of await Job.findAll({ include: [{ model: Bid, as: "bid" }] })) {
       expect(job.totalCents).toBe((job as Job & { bid: Bid }).bid.totalCents);
       expect(job.retainerCents).toBe(retainerCents(job.totalCents, job.retainerPercent));
+      // The history's award row carries its amounts, as the award itself writes them.
+      const awarded = await JobEvent.findOne({ where: { jobId: job.id, kind: "awarded" }, rejectOnEmpty: true });
+      expect(awarded.detail).toMatchObject({ totalCents: job.totalCents, currency: job.currency, retainerCents: job.retainerCents });
     }
   });
 

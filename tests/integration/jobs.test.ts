@@ -279,11 +279,16 @@ describe("progress recorded by the shop", () => {
     expect(res.status).toBe(302);
     await dispatched.reload();
     expect(dispatched.targetDate).toBe(newDate);
-    const event = await JobEvent.findOne({ where: { jobId: job.id, kind: "target_changed" }, rejectOnEmpty: true });
+    const event = await JobEvent.findOne({ where: { jobId: job.id, kind: "target_changed", milestone: "dispatched" }, rejectOnEmpty: true });
     expect(event.userId).toBe(shop.id);
     expect(event.milestone).toBe("dispatched");
     expect(event.detail).toEqual({ from: addDays(newDate, -14), to: newDate });
     expect(event.body).toBe("Motor delivery slipped two weeks.");
+    // A slip carries the milestones after it along: hand-over was a week after dispatch and still is.
+    const handedOver = await JobMilestone.findOne({ where: { jobId: job.id, key: "handed_over" }, rejectOnEmpty: true });
+    expect(handedOver.targetDate).toBe(addDays(newDate, 7));
+    const pushed = await JobEvent.findOne({ where: { jobId: job.id, kind: "target_changed", milestone: "handed_over" }, rejectOnEmpty: true });
+    expect(pushed.detail).toEqual({ from: addDays(newDate, -7), to: addDays(newDate, 7), pushedBy: "dispatched" });
 
     // Impossible days, days before the award, reached milestones and the retainer are refused; nothing changes.
     const awardDay = isoDay((await Job.findByPk(job.id, { rejectOnEmpty: true })).awardedAt);
@@ -300,11 +305,14 @@ describe("progress recorded by the shop", () => {
       expect(r.status, JSON.stringify(fields)).toBe(400);
       expect(r.data.result.error[field].join(" ")).toMatch(message);
     }
+    // The plan stays in order: no target before the one ahead of it.
+    const tested = await JobMilestone.findOne({ where: { jobId: job.id, key: "bench_tested" }, rejectOnEmpty: true });
+    await expectFieldError(changeTargetDate(shop, job.id, { milestone: "dispatched", targetDate: addDays(tested.targetDate!, -1), reason: "" }), "targetDate", /can't be planned before Bench-tested .* Move that one first/);
     await reachMilestones(shop, job.id, { milestone: "drawings_agreed", note: "" });
     await expectFieldError(changeTargetDate(shop, job.id, { milestone: "drawings_agreed", targetDate: newDate, reason: "" }), "milestone", /already reached/);
     await dispatched.reload();
     expect(dispatched.targetDate).toBe(newDate);
-    expect(await JobEvent.count({ where: { jobId: job.id, kind: "target_changed" } })).toBe(1);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "target_changed" } })).toBe(2);
   });
 
   it("shows the history with who and when, newest first", async () => {
@@ -350,6 +358,13 @@ describe("progress recorded by the shop", () => {
     }
     // Another buyer organisation hears nothing.
     expect((await mailsTo(stranger.email)).filter((m) => m.subject.includes("Job progress"))).toEqual([]);
+
+    // Taking a milestone back is news too.
+    await undoLastMilestone(shop, job.id, { milestone: "in_build", reason: "Pump coupling arrived cracked." });
+    while ((await deliverDueMail(100)) > 0);
+    const taken = (await mailsTo(buyer.email)).filter((m) => m.subject === `Job progress on "${spec.title}": In the workshop taken back`);
+    expect(taken).toHaveLength(1);
+    expect(taken[0].text).toContain("Pump coupling arrived cracked.");
   });
 });
 

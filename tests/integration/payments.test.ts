@@ -7,6 +7,7 @@ import * as signIn from "~/routes/sign-in";
 import * as pay from "~/routes/job-pay";
 import * as paymentPage from "~/routes/job-payment";
 import * as jobPage from "~/routes/job";
+import * as jobsPage from "~/routes/jobs";
 import * as paymentsPage from "~/routes/payments";
 import * as refund from "~/routes/payment-refund";
 import * as webhook from "~/routes/webhooks.stripe";
@@ -189,6 +190,8 @@ describe("refunds", () => {
 
     const post = (fields: Record<string, string>, visitor = visitors.manager) => visitor.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id });
     expect((await post({ amount: "100", reason: "" })).status).toBe(400);
+    const zero = await post({ amount: "0", reason: "Nothing really" });
+    expect(zero.data.result.error.amount[0]).toMatch(/above zero/);
     expect((await post({ amount: "12,5", reason: "Overcharged" })).status).toBe(400);
     const tooMuch = await post({ amount: String(payment.amountCents), reason: "Too much" });
     expect(tooMuch.status).toBe(400);
@@ -219,6 +222,13 @@ describe("refunds", () => {
     await deliverDueMail(500);
     await waitForMail(buyer.email, "Refund of");
     expect(await JobEvent.count({ where: { jobId: job.id, kind: "retainer_refunded" } })).toBe(2);
+    // The job itself says it: paid back, found by the dashboard's filter, and the shop is told.
+    expect((await job.reload()).retainerRefundedCents).toBe(payment.amountCents);
+    const refundedJobs = await visitors.manager.get(jobsPage.loader, "/jobs?retainer=refunded");
+    expect(refundedJobs.data.jobs.map((j: { id: string }) => j.id)).toContain(job.id);
+    const stillPaid = await visitors.manager.get(jobsPage.loader, "/jobs?retainer=paid");
+    expect(stillPaid.data.jobs.map((j: { id: string }) => j.id)).not.toContain(job.id);
+    await waitForMail(shop.email, "Retainer paid back in full");
   });
 });
 

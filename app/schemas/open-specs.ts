@@ -59,7 +59,7 @@ export const openSpecsQuerySchema = z
     flowMax: bound("Highest pump flow", "60"),
     sort: z.preprocess(
       blankToUndefined,
-      z.enum(OPEN_SPEC_SORTS, { error: "That sort order is not one of the choices; the table is sorted by deadline." }).optional(),
+      z.enum(OPEN_SPEC_SORTS, { error: "That sort order is not one of the choices; the table shows the specs closing soonest first." }).optional(),
     ),
     page: z.preprocess(
       (v) => {

@@ -207,7 +207,7 @@ describe("the open-specs table", () => {
     expect(Object.keys(res.data.problems).sort()).toEqual(["flowMin", "page", "pressureMin", "sort"]);
     expect(res.data.problems.pressureMin).toMatch(/enter a number/);
     expect(res.data.problems.flowMin).toMatch(/cannot be negative/);
-    expect(res.data.problems.sort).toMatch(/sorted by deadline/);
+    expect(res.data.problems.sort).toMatch(/closing soonest first/);
     expect(res.data.typed).toMatchObject({ pressureMin: "lots", q: "press", flowMin: "-4" });
     expect((res.data.specs as Row[]).map((r) => r.title)).toEqual(["Panel press, main ram"]);
 

@@ -104,9 +104,9 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                     <th scope="col">Buyer</th>
                     <th scope="col">Shop</th>
                     <th scope="col">Stage</th>
-                    <th scope="col" className="text-right">Total</th>
-                    <th scope="col" className="text-right">Retainer</th>
-                    <th scope="col" className="text-right">Days since award</th>
+                    <th scope="col" className="pl-3 text-right">Total</th>
+                    <th scope="col" className="pl-3 text-right">Retainer</th>
+                    <th scope="col" className="pl-3 text-right">Days since award</th>
                     <th scope="col" className="pl-4">Next milestone</th>
                   </tr>
                 </thead>
@@ -121,12 +121,12 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                       <td className="pr-2">{j.buyerName}</td>
                       <td className="pr-2">{j.shopName}</td>
                       <td className="pr-2">{JOB_STAGE_LABELS[j.stage]}</td>
-                      <td className="text-right tabular-nums">{formatMoney(j.totalCents, j.currency)}</td>
-                      <td className="text-right tabular-nums">
+                      <td className="pl-3 text-right tabular-nums">{formatMoney(j.totalCents, j.currency)}</td>
+                      <td className="whitespace-nowrap pl-3 text-right tabular-nums">
                         <span className="block">{formatMoney(j.retainerCents, j.currency)}</span>
                         <RetainerBadge paidAt={j.retainerPaidAt} refundedCents={j.retainerRefundedCents} retainerCents={j.retainerCents} />
                       </td>
-                      <td className="text-right tabular-nums">{j.daysSinceAward}</td>
+                      <td className="pl-3 text-right tabular-nums">{j.daysSinceAward}</td>
                       <td className="pl-4">
                         {j.next ? (
                           <>

@@ -553,8 +553,9 @@ async function tellParties(transaction: Transaction, job: Job, milestones: JobMi
         to: person.email,
         subject: `Job progress on "${spec.title}": ${labels.join(", ")}`,
         text:
-          `Hello ${person.name},\n\n${shop.name} has recorded progress on "${spec.title}": ${labels.join(", then ")}.\n` +
-          (note ? `\nTheir note: ${note}\n` : "") +
+          (person.organisationId === shop.id
+            ? `Hello ${person.name},\n\nYour shop has recorded progress on "${spec.title}": ${labels.join(", then ")}. The buyer has been told.\n` + (note ? `\nThe note: ${note}\n` : "")
+            : `Hello ${person.name},\n\n${shop.name} has recorded progress on "${spec.title}": ${labels.join(", then ")}.\n` + (note ? `\nTheir note: ${note}\n` : "")) +
           `\n${nextLine}\n\nThe job's timeline and history: ${env().APP_URL}/jobs/${job.id}\n`,
       },
       transaction,

@@ -352,7 +352,8 @@ describe("progress recorded by the shop", () => {
     for (const person of [buyer, shop]) {
       const mail = await waitForMail(person.email, `Job progress on "${spec.title}"`);
       expect(mail.subject).toContain("Drawings agreed, In the workshop");
-      expect(mail.text).toContain("Brenner Fluidtechnik has recorded progress");
+      // The buyer reads who did it; the shop's own people read it as theirs.
+      expect(mail.text).toContain(person === shop ? "Your shop has recorded progress" : "Brenner Fluidtechnik has recorded progress");
       expect(mail.text).toContain("Manifold machined.");
       expect(mail.text).toContain(`/jobs/${job.id}`);
     }

@@ -116,7 +116,13 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
                   <td>{u.lastSignInAt ? formatDay(u.lastSignInAt.slice(0, 10)) : "Never"}</td>
                   <td className="text-right">
                     {u.id !== loaderData.adminId ? (
-                      <Form method="post">
+                      <Form
+                        method="post"
+                        onSubmit={(event) => {
+                          // Deactivating signs the person out at once; ask before doing it.
+                          if (u.active && !window.confirm(`Deactivate ${u.name}? They are signed out at once and can't sign in until reactivated.`)) event.preventDefault();
+                        }}
+                      >
                         <input type="hidden" name="intent" value="set-active" />
                         <input type="hidden" name="userId" value={u.id} />
                         <input type="hidden" name="active" value={u.active ? "false" : "true"} />

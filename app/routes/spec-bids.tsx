@@ -157,7 +157,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 <tr className="align-bottom">
                   <th scope="col" className="sticky left-0 z-10 min-w-[16rem] bg-white p-3 text-left">Line</th>
                   {columns.map((c) => (
-                    <th key={c.id} scope="col" className={`min-w-[11rem] p-3 text-right ${c.cheapestComplete ? "bg-flow-50" : ""}`} data-bid={c.id}>
+                    <th key={c.id} scope="col" className={`w-48 min-w-[11rem] p-3 text-right ${c.cheapestComplete ? "bg-flow-50" : ""}`} data-bid={c.id}>
                       <span className="block text-base text-ink-900">{c.shop}</span>
                       <span className="mt-1 flex flex-wrap justify-end gap-1 font-normal">
                         <Badge tone={BID_STATUS_TONES[c.status]}>{BID_STATUS_LABELS[c.status]}</Badge>
@@ -186,7 +186,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                             {row.quantity > 1 ? <span className="block text-xs font-normal text-ink-600">{money(cell.unitPriceCents)} each</span> : null}
                             {cell.lowest ? <span className="block text-xs">lowest</span> : null}
                             {cell.alternative ? (
-                              <span className="mt-1 block text-left text-xs font-normal text-ink-700">
+                              <span className="mt-1 block max-w-[14rem] text-left text-xs font-normal text-ink-700">
                                 <Badge tone="warn">Alternative</Badge> {cell.alternativeDescription}
                               </span>
                             ) : null}

@@ -79,11 +79,11 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
       <PageHeader
         title={d.title || "Untitled draft"}
         lead={
-          <span className="flex flex-wrap items-center gap-2">
+          <span className="flex flex-wrap items-center gap-x-4 gap-y-1">
             <Badge tone={SPEC_STATUS_TONES[d.status]}>{SPEC_STATUS_LABELS[d.status]}</Badge>
-            {d.revision ? <span>Revision {d.revision.number} · engine {d.revision.engineVersion}</span> : null}
-            {d.bidDeadline ? <span>· bids until {formatDay(d.bidDeadline.slice(0, 10))}</span> : null}
-            {d.deliveryRegion ? <span>· delivered to {d.deliveryRegion}</span> : null}
+            {d.revision ? <span>Revision {d.revision.number}, sizing engine {d.revision.engineVersion}</span> : null}
+            {d.bidDeadline ? <span>Bids until {formatDay(d.bidDeadline.slice(0, 10))}</span> : null}
+            {d.deliveryRegion ? <span>Delivered to {d.deliveryRegion}</span> : null}
           </span>
         }
         actions={

@@ -239,6 +239,21 @@ describe("award", () => {
   });
 });
 
+describe("an expired offer", () => {
+  it("can't be awarded until the shop renews it", async () => {
+    const { buyer, spec, bom } = await setting();
+    const shop = await makeMember("shop");
+    expect((await post(await signedIn(shop), spec.id, { intent: "submit", ...bidFields(bom, () => "75") })).status).toBe(302);
+    const bid = await Bid.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
+    await sequelize.query("UPDATE bids SET valid_until = current_date - 1 WHERE id = :id", { replacements: { id: bid.id } });
+    const res = await (await signedIn(buyer)).post(bidsRoute.action, `/specs/${spec.id}/bids`, { bidId: bid.id, confirm: "on" }, { specId: spec.id });
+    expect(res.status).toBe(409);
+    expect(res.data.error).toMatch(/was valid until \d{1,2} \w{3} \d{4}\. Ask the shop to renew it/);
+    expect((await spec.reload()).status).toBe("open");
+    expect(await Job.count({ where: { specId: spec.id } })).toBe(0);
+  });
+});
+
 describe("200 shops bidding at once", () => {
   it("stores every offer with the right total", async () => {
     const { spec, bom } = await setting();

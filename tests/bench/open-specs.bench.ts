@@ -121,7 +121,7 @@ async function main() {
     );
 
     // The app reads its settings once, on first use: set them before its modules load.
-    Object.assign(process.env, { DATABASE_URL: cluster.url("bench"), SESSION_SECRET: "benchmark-secret-benchmark-secret-0123", NODE_ENV: "production" });
+    Object.assign(process.env, { DATABASE_URL: cluster.url("bench"), SESSION_SECRET: "benchmark-secret-benchmark-secret-0123", NODE_ENV: "production", STRIPE_SECRET_KEY: "sk_test_benchmark", STRIPE_WEBHOOK_SECRET: "whsec_benchmark" });
     const { sequelize, User } = await import("~/models/index.server");
     const { listOpenSpecsForShop } = await import("~/services/open-specs.server");
     const { readOpenSpecsQuery } = await import("~/schemas/open-specs");

@@ -8,6 +8,8 @@ import { SpecQuestion } from "./question.server";
 import { Bid, BidVersion } from "./bid.server";
 import { Job, JobEvent, JobMilestone } from "./job.server";
 import { Payment, Refund, StripeEvent } from "./payment.server";
+import { UserSession } from "./session.server";
+import { SignUpRequest } from "./sign-up-request.server";
 
 Organisation.hasMany(User, { foreignKey: "organisationId", as: "users" });
 User.belongsTo(Organisation, { foreignKey: "organisationId", as: "organisation" });
@@ -43,7 +45,9 @@ Payment.belongsTo(Organisation, { foreignKey: "buyerOrganisationId", as: "buyerO
 Payment.hasMany(Refund, { foreignKey: "paymentId", as: "refunds" });
 Refund.belongsTo(Payment, { foreignKey: "paymentId", as: "payment" });
 Refund.belongsTo(User, { foreignKey: "requestedById", as: "requestedBy" });
+UserSession.belongsTo(User, { foreignKey: "userId", as: "user" });
 
 export { sequelize } from "~/db.server";
 export { Organisation, User, Invitation, PasswordReset, OutboxMail, Spec, SpecRevision, SpecAttachment };
 export { SpecQuestion, Bid, BidVersion, Job, JobMilestone, JobEvent, Payment, Refund, StripeEvent };
+export { UserSession, SignUpRequest };

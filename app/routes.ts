@@ -46,5 +46,6 @@ export default [
   ...prefix("admin", [
     route("users", "routes/admin.users.tsx"),
     route("organisations", "routes/admin.organisations.tsx"),
+    route("mail", "routes/admin.mail.tsx"),
   ]),
 ] satisfies RouteConfig;

@@ -26,6 +26,7 @@ export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
   admin: [
     { to: "/admin/users", label: "Users" },
     { to: "/admin/organisations", label: "Organisations" },
+    { to: "/admin/mail", label: "Mail" },
     { to: "/jobs", label: "Jobs" },
     { to: "/payments", label: "Payments" },
     { to: "/team", label: "Operator team" },

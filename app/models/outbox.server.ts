@@ -10,6 +10,14 @@ import { sequelize } from "~/db.server";
 export const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
 
+/**
+ * The order mail is sent in (lower first): account mail a person is waiting for at the sign-in
+ * page (password reset, invitation, account notices), then activity on their work, then
+ * announcements sent to many people at once.
+ */
+export const MAIL_PRIORITIES = { account: 0, activity: 1, announcement: 2 } as const;
+export type MailPriority = keyof typeof MAIL_PRIORITIES;
+
 /** An e-mail waiting to be sent. Written in the same transaction as the change it reports. */
 export class OutboxMail extends Model<InferAttributes<OutboxMail>, InferCreationAttributes<OutboxMail>> {
   declare id: CreationOptional<string>;
@@ -18,6 +26,8 @@ export class OutboxMail extends Model<InferAttributes<OutboxMail>, InferCreation
   declare text: string;
   declare html: string | null;
   declare status: CreationOptional<OutboxStatus>;
+  /** A value of MAIL_PRIORITIES. */
+  declare priority: CreationOptional<number>;
   declare attempts: CreationOptional<number>;
   declare nextAttemptAt: CreationOptional<Date>;
   declare lastError: string | null;
@@ -34,6 +44,7 @@ OutboxMail.init(
     text: { type: DataTypes.TEXT, allowNull: false },
     html: { type: DataTypes.TEXT, allowNull: true },
     status: { type: DataTypes.ENUM(...OUTBOX_STATUSES), allowNull: false, defaultValue: "pending" },
+    priority: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: MAIL_PRIORITIES.activity },
     attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     nextAttemptAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     lastError: { type: DataTypes.TEXT, allowNull: true },

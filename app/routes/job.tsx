@@ -29,7 +29,6 @@ import {
   undoLastMilestone,
   type JobEventView,
 } from "~/services/jobs.server";
-import { deliverDueMail } from "~/services/mail.server";
 import { paymentsOfJob } from "~/services/payments.server";
 import { RetainerPanel } from "~/components/retainer-panel";
 import { RetainerBadge } from "~/components/retainer-badge";
@@ -89,8 +88,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     switch (change.intent) {
       case "reach": {
         const reached = await reachMilestones(user, job.id, change);
-        // Hand the mail to the sender now rather than at its next poll; a failure stays queued.
-        await deliverDueMail().catch(() => 0);
+        // The mail is queued with the change; the mail worker sends it, never this request.
         return redirectWithToast(request, back, `Recorded as reached: ${reached.map((k) => MILESTONE_LABELS[k]).join(", ")}. Buyer and shop have been e-mailed.`);
       }
       case "undo": {

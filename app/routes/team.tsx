@@ -11,7 +11,6 @@ import { Badge, Button, Card, PageHeader } from "~/components/ui";
 import { inviteSchema } from "~/schemas/account";
 import { inviteColleague, teamOf } from "~/services/accounts.server";
 import { FieldErrors } from "~/services/errors.server";
-import { deliverDueMail } from "~/services/mail.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Team · Tenderflow" }];
 
@@ -36,8 +35,7 @@ export async function action({ request }: Route.ActionArgs) {
     if (!(error instanceof FieldErrors)) throw error;
     return data(submission.reply({ fieldErrors: error.fieldErrors }), { status: 400 });
   }
-  // Hand the mail to the sender now rather than at its next poll; a failure stays queued for retry.
-  await deliverDueMail().catch(() => 0);
+  // The invitation is queued in the outbox; the mail worker sends it (never this request).
   return redirectWithToast(request, "/team", `Invitation sent to ${submission.value.email}.`);
 }
 

@@ -84,6 +84,7 @@ export async function requestPasswordReset(email: string): Promise<void> {
       {
         to: user.email,
         subject: "Reset your Tenderflow password",
+        priority: "account",
         text: `Hello ${user.name},\n\nSomeone asked to reset the password of your Tenderflow account. To choose a new one, open this link within ${RESET_LINK_HOURS} hour:\n\n${link}\n\nThe link works once. If you did not ask for this, ignore this message; your password stays as it is.`,
       },
       transaction,
@@ -147,6 +148,7 @@ export async function inviteColleague(actor: User, email: string, requestedRole?
       {
         to: email,
         subject: `${actor.name} invited you to ${organisation.name} on Tenderflow`,
+        priority: "account",
         text: `Hello,\n\n${actor.name} invited you to join ${organisation.name} on Tenderflow.\n\nTo accept, open this link within ${INVITATION_DAYS} days and choose your password:\n\n${env().APP_URL}/join/${token}\n`,
       },
       transaction,

@@ -2,21 +2,36 @@ import nodemailer, { type Transporter } from "nodemailer";
 import { Op, type Transaction } from "sequelize";
 import { env } from "~/env.server";
 import { OutboxMail, sequelize } from "~/models/index.server";
+import { MAIL_PRIORITIES, type MailPriority } from "~/models/outbox.server";
+
+export { MAIL_PRIORITIES, type MailPriority };
 
 export interface MailMessage {
   to: string;
   subject: string;
   text: string;
   html?: string;
+  /** "account" for mail someone waits for to sign in (reset, invitation, account notices);
+   * "announcement" for mail to many at once; "activity" otherwise. */
+  priority?: MailPriority;
 }
 
 /**
  * Queues an e-mail in the outbox. Pass the transaction of the change the mail reports, so the
  * mail exists exactly when the change does; the sender delivers it and retries failures.
+ * Requests only ever queue: nothing in a request waits for the mail server.
  */
 export async function enqueueMail(message: MailMessage, transaction?: Transaction) {
   return OutboxMail.create(
-    { to: message.to, subject: message.subject, text: message.text, html: message.html ?? null, lastError: null, sentAt: null },
+    {
+      to: message.to,
+      subject: message.subject,
+      text: message.text,
+      html: message.html ?? null,
+      priority: MAIL_PRIORITIES[message.priority ?? "activity"],
+      lastError: null,
+      sentAt: null,
+    },
     { transaction },
   );
 }
@@ -30,6 +45,11 @@ function transport() {
     secure: e.SMTP_SECURE,
     ignoreTLS: !e.SMTP_SECURE && e.SMTP_HOST === "127.0.0.1",
     auth: e.SMTP_USER ? { user: e.SMTP_USER, pass: e.SMTP_PASSWORD } : undefined,
+    // A stalled mail server fails the attempt (retried later) instead of holding the sender for
+    // nodemailer's defaults of minutes.
+    connectionTimeout: 10_000,
+    greetingTimeout: 10_000,
+    socketTimeout: 30_000,
   });
   return transporter;
 }
@@ -39,8 +59,9 @@ export const MAX_ATTEMPTS = 8;
 export const retryDelayMs = (attempts: number) => Math.min(30_000 * 2 ** (attempts - 1), 3_600_000);
 
 /**
- * Sends the mail that is due. Rows are claimed with SKIP LOCKED, so several app servers can run
- * this at once without sending anything twice. Returns how many were sent.
+ * Sends the mail that is due, most urgent first (priority, then the longest due). Rows are
+ * claimed with SKIP LOCKED, so several app servers can run this at once without sending
+ * anything twice. Returns how many were sent.
  */
 export async function deliverDueMail(limit = 20): Promise<number> {
   let sent = 0;
@@ -48,7 +69,7 @@ export async function deliverDueMail(limit = 20): Promise<number> {
     const delivered = await sequelize.transaction(async (transaction) => {
       const mail = await OutboxMail.findOne({
         where: { status: "pending", nextAttemptAt: { [Op.lte]: new Date() } },
-        order: [["nextAttemptAt", "ASC"]],
+        order: [["priority", "ASC"], ["nextAttemptAt", "ASC"]],
         lock: transaction.LOCK.UPDATE,
         skipLocked: true,
         transaction,

@@ -10,6 +10,7 @@ import * as account from "~/routes/account";
 import * as jobs from "~/routes/jobs";
 import * as adminUsers from "~/routes/admin.users";
 import * as adminOrgs from "~/routes/admin.organisations";
+import * as adminMail from "~/routes/admin.mail";
 import type { Role } from "~/auth/roles";
 import { Organisation, type User } from "~/models/index.server";
 import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
@@ -24,6 +25,7 @@ const PAGES: { path: string; loader: Loader; allowed: Role[] }[] = [
   { path: "/jobs", loader: jobs.loader, allowed: ["buyer", "shop", "account_manager", "admin"] },
   { path: "/admin/users", loader: adminUsers.loader, allowed: ["admin"] },
   { path: "/admin/organisations", loader: adminOrgs.loader, allowed: ["admin"] },
+  { path: "/admin/mail", loader: adminMail.loader, allowed: ["admin"] },
 ];
 
 const visitors = {} as Record<Role, Visitor>;

@@ -1,14 +1,30 @@
 // The outbox never loses mail: a send that fails stays queued and is retried later with backoff;
-// after the last attempt it is kept as failed, with its error, for someone to look at.
-import { describe, expect, it, vi } from "vitest";
+// after the last attempt it is kept as failed, with its error, for an admin to send again.
+// Account mail goes before activity and announcements; requests only queue, never send.
+import { beforeEach, describe, expect, it, vi } from "vitest";
 
 // A port nobody listens on, set before the app reads its environment: every send is refused.
 vi.hoisted(() => {
   process.env.SMTP_PORT = "1";
 });
 
-import { OutboxMail } from "~/models/index.server";
-import { MAX_ATTEMPTS, deliverDueMail, enqueueMail, retryDelayMs } from "~/services/mail.server";
+import { randomUUID } from "node:crypto";
+import { Op } from "sequelize";
+import * as signIn from "~/routes/sign-in";
+import * as team from "~/routes/team";
+import * as jobPage from "~/routes/job";
+import * as adminMail from "~/routes/admin.mail";
+import { Bid, OutboxMail, sequelize, type User } from "~/models/index.server";
+import { requestPasswordReset } from "~/services/accounts.server";
+import { openJob } from "~/services/jobs.server";
+import { MAIL_PRIORITIES, MAX_ATTEMPTS, deliverDueMail, enqueueMail, retryDelayMs } from "~/services/mail.server";
+import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec, uniqueEmail } from "../support/factories";
+import { Visitor } from "../support/routes";
+
+// Each test reads the whole queue, so each starts with an empty one.
+beforeEach(async () => {
+  await OutboxMail.destroy({ where: {} });
+});
 
 describe("mail outbox", () => {
   it("keeps a mail that could not be sent and schedules a retry", async () => {
@@ -39,5 +55,138 @@ describe("mail outbox", () => {
     expect(retryDelayMs(1)).toBe(30_000);
     expect(retryDelayMs(2)).toBe(60_000);
     expect(retryDelayMs(20)).toBe(3_600_000);
+  });
+});
+
+describe("mail priority", () => {
+  it("claims a password reset queued after hundreds of announcements first", async () => {
+    const shop = await makeMember("shop");
+    const queuedBefore = Date.now() - 60_000;
+    for (let i = 0; i < 300; i++) {
+      const mail = await enqueueMail({ to: `shop${i}@example.test`, subject: "New spec open for bids: Press", text: "Body", priority: "announcement" });
+      // Queued a minute ago: older than the reset by far.
+      await mail.update({ nextAttemptAt: new Date(queuedBefore + i) });
+    }
+    await enqueueMail({ to: "activity@example.test", subject: "New bid on Press", text: "Body" });
+    await requestPasswordReset(shop.email);
+    const reset = await OutboxMail.findOne({ where: { to: shop.email }, rejectOnEmpty: true });
+    expect(reset.priority).toBe(MAIL_PRIORITIES.account);
+
+    // One claim (the SMTP port refuses, so the claimed mail records one failed attempt).
+    await deliverDueMail(1);
+    expect((await reset.reload()).attempts).toBe(1);
+    expect(await OutboxMail.count({ where: { attempts: { [Op.gt]: 0 }, id: { [Op.ne]: reset.id } } })).toBe(0);
+    // Then activity before the announcements.
+    await deliverDueMail(1);
+    expect((await OutboxMail.findOne({ where: { to: "activity@example.test" }, rejectOnEmpty: true })).attempts).toBe(1);
+    expect(await OutboxMail.count({ where: { priority: MAIL_PRIORITIES.announcement, attempts: { [Op.gt]: 0 } } })).toBe(0);
+  });
+});
+
+async function signedIn(user: User) {
+  const visitor = new Visitor();
+  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+  expect(res.status).toBe(302);
+  return visitor;
+}
+
+describe("requests only queue mail", () => {
+  // The SMTP port of this file refuses every connection: had a request tried to send, its row
+  // would show an attempt and the error.
+  const untried = async (to: string) => {
+    const rows = await OutboxMail.findAll({ where: { to } });
+    expect(rows.length).toBeGreaterThan(0);
+    for (const row of rows) expect([row.status, row.attempts, row.lastError]).toEqual(["pending", 0, null]);
+    return rows;
+  };
+
+  it("an invitation is queued, first in line, and nothing is sent in the request", async () => {
+    const buyer = await makeMember("buyer");
+    const email = uniqueEmail("invitee");
+    const res = await (await signedIn(buyer)).post(team.action, "/team", { email });
+    expect(res.status).toBe(302);
+    const [row] = await untried(email);
+    expect(row.priority).toBe(MAIL_PRIORITIES.account);
+  });
+
+  it("a milestone is queued for buyer and shop, and nothing is sent in the request", async () => {
+    const buyer = await makeMember("buyer");
+    const shop = await makeMember("shop");
+    const spec = await makePublishedSpec(buyer);
+    const bid = await Bid.create({
+      specId: spec.id,
+      organisationId: shop.organisationId,
+      createdById: shop.id,
+      status: "submitted",
+      specRevision: 1,
+      currency: spec.currency,
+      lines: [{ key: "power-unit", item: "Power unit", quantity: 1, specification: "7.5 kW", unitPriceCents: 500_000, alternative: false, alternativeDescription: "" }],
+      units: 1,
+      setTotalCents: 500_000,
+      totalCents: 500_000,
+      leadTimeWeeks: 10,
+      validUntil: inDays(30),
+      terms: "",
+      notes: "",
+      submittedAt: new Date(),
+    });
+    const job = await sequelize.transaction((transaction) => openJob(transaction, { spec, bid, awardedBy: buyer }));
+    const res = await (await signedIn(shop)).post(jobPage.action, `/jobs/${job.id}`, { intent: "reach", milestone: "in_build", note: "" }, { jobId: job.id });
+    expect(res.status).toBe(302);
+    for (const person of [buyer, shop]) {
+      const rows = await untried(person.email);
+      expect(rows.some((r) => r.subject.startsWith("Job progress on"))).toBe(true);
+    }
+  });
+});
+
+describe("the admin's mail page", () => {
+  it("lists failed mail with its error and sends it again; waiting mail has its own list", async () => {
+    const admin = await makeOperatorUser("admin");
+    const failed = await enqueueMail({ to: "lost@example.test", subject: "Your offer was chosen", text: "Body with a secret link" });
+    await failed.update({ status: "failed", attempts: MAX_ATTEMPTS, lastError: "connect ECONNREFUSED 127.0.0.1:1" });
+    const waiting = await enqueueMail({ to: "slow@example.test", subject: "Spec revised", text: "Body" });
+    await OutboxMail.update({ createdAt: new Date(Date.now() - 3_600_000), attempts: 3, lastError: "Greeting never received" }, { where: { id: waiting.id }, silent: true });
+    await enqueueMail({ to: "fresh@example.test", subject: "Just queued", text: "Body" });
+
+    const visitor = await signedIn(admin);
+    const page = await visitor.get(adminMail.loader, "/admin/mail");
+    expect(page.status).toBe(200);
+    expect(page.data.counts).toEqual({ failed: 1, waiting: 1 });
+    expect(page.data.mails).toEqual([
+      expect.objectContaining({ id: failed.id, to: "lost@example.test", subject: "Your offer was chosen", attempts: MAX_ATTEMPTS, lastError: "connect ECONNREFUSED 127.0.0.1:1", status: "failed" }),
+    ]);
+    // The body (which may hold a sign-in link) is never shown.
+    expect(JSON.stringify(page.data)).not.toContain("secret link");
+    const slow = await visitor.get(adminMail.loader, "/admin/mail?show=waiting");
+    expect(slow.data.mails.map((m: { to: string }) => m.to)).toEqual(["slow@example.test"]);
+
+    const again = await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: failed.id });
+    expect(again.status).toBe(302);
+    await failed.reload();
+    expect([failed.status, failed.attempts]).toEqual(["pending", 0]);
+    expect(failed.nextAttemptAt.getTime()).toBeLessThanOrEqual(Date.now());
+    expect((await visitor.get(adminMail.loader, "/admin/mail")).data.counts.failed).toBe(0);
+
+    // A mail sent meanwhile is not sent twice; a forged id is a 404.
+    await failed.update({ status: "sent", sentAt: new Date() });
+    const sent = await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: failed.id });
+    expect(sent.status).toBe(409);
+    expect((await failed.reload()).status).toBe("sent");
+    expect((await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: "not-an-id" })).status).toBe(400);
+    expect((await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: randomUUID() })).status).toBe(404);
+  });
+
+  it("is the admin's only: others get 403 and change nothing", async () => {
+    const failed = await enqueueMail({ to: "kept@example.test", subject: "Hello", text: "Body" });
+    await failed.update({ status: "failed", attempts: MAX_ATTEMPTS, lastError: "refused" });
+    for (const user of [await makeMember("buyer"), await makeMember("shop"), await makeOperatorUser("account_manager")]) {
+      const visitor = await signedIn(user);
+      expect((await visitor.get(adminMail.loader, "/admin/mail")).status).toBe(403);
+      expect((await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: failed.id })).status).toBe(403);
+    }
+    expect((await failed.reload()).status).toBe("failed");
+    const anonymous = await new Visitor().get(adminMail.loader, "/admin/mail");
+    expect(anonymous.status).toBe(302);
   });
 });

@@ -5,6 +5,7 @@ import * as join from "~/routes/join";
 import * as revoke from "~/routes/team.revoke-invitation";
 import { Invitation, User } from "~/models/index.server";
 import { linkIn, waitForMail } from "../support/mailbox";
+import { deliverDueMail } from "~/services/mail.server";
 import { PASSWORD, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
 
@@ -22,6 +23,8 @@ describe("inviting a colleague", () => {
     const res = await visitor.post(team.action, "/team", { email });
     expect(res.status).toBe(302);
 
+    // The request only queued the invitation; the mail worker sends it.
+    await deliverDueMail(100);
     const mail = await waitForMail(email, "invited you");
     const link = new URL(linkIn(mail, "/join/"));
     const token = link.pathname.split("/").pop()!;

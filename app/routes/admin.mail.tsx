@@ -1,0 +1,113 @@
+import { parseWithZod } from "@conform-to/zod/v4";
+import { Form, Link, data, useSearchParams } from "react-router";
+import type { Route } from "./+types/admin.mail";
+import { requireRole } from "~/auth/permissions.server";
+import { redirectWithToast } from "~/auth/session.server";
+import { formatMoment } from "~/content/dates";
+import { Badge, Button, Card, Notice, PageHeader, Pager } from "~/components/ui";
+import { mailListQuerySchema, sendAgainSchema } from "~/schemas/outbox";
+import { FieldErrors } from "~/services/errors.server";
+import { MAX_ATTEMPTS } from "~/services/mail.server";
+import { WAITING_LONG_MINUTES, mailNeedingAttention, sendAgain, type MailView } from "~/services/outbox-admin.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Mail · Tenderflow" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  await requireRole(request, ["admin"]);
+  const query = mailListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
+  const view: MailView = query.show ?? "failed";
+  return { view, maxAttempts: MAX_ATTEMPTS, waitingMinutes: WAITING_LONG_MINUTES, ...(await mailNeedingAttention(view, query.page)) };
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  await requireRole(request, ["admin"]);
+  const submission = parseWithZod(await request.formData(), { schema: sendAgainSchema });
+  if (submission.status !== "success") return data({ error: "Choose a mail to send again." }, { status: 400 });
+  try {
+    const mail = await sendAgain(submission.value.mailId);
+    const back = new URL(request.url);
+    return redirectWithToast(request, `${back.pathname}${back.search}`, `The mail to ${mail.to} is queued again.`);
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return data({ error: error.message }, { status: 409 });
+  }
+}
+
+const VIEW_LABELS: Record<MailView, string> = { failed: "Failed", waiting: "Waiting too long" };
+
+export default function AdminMail({ loaderData: d, actionData }: Route.ComponentProps) {
+  const [searchParams] = useSearchParams();
+  return (
+    <>
+      <PageHeader
+        title="Mail"
+        lead={`Mail that did not go out: failed after ${d.maxAttempts} attempts, or queued more than ${d.waitingMinutes} minutes ago and still waiting. Sending again gives a mail ${d.maxAttempts} fresh attempts.`}
+      />
+      {actionData?.error ? (
+        <div className="mb-4">
+          <Notice tone="bad">{actionData.error}</Notice>
+        </div>
+      ) : null}
+      <Card>
+        <nav aria-label="Which mail" className="mb-4 flex gap-2 text-sm">
+          {(Object.keys(VIEW_LABELS) as MailView[]).map((view) => (
+            <Link
+              key={view}
+              to={`?show=${view}`}
+              aria-current={view === d.view ? "page" : undefined}
+              className={`rounded-md px-3 py-1.5 ring-1 ${view === d.view ? "bg-flow-600 text-white ring-flow-600" : "ring-ink-200 hover:bg-ink-100"}`}
+            >
+              {VIEW_LABELS[view]} ({d.counts[view]})
+            </Link>
+          ))}
+        </nav>
+        {d.mails.length === 0 ? (
+          <p className="py-6 text-center text-ink-600">
+            {d.view === "failed" ? "No failed mail: everything queued has gone out or is still being tried." : "No mail has been waiting long."}
+          </p>
+        ) : (
+          <table className="w-full text-left text-sm">
+            <thead className="text-ink-600">
+              <tr>
+                <th className="py-2">Recipient</th>
+                <th>Subject</th>
+                <th>Attempts</th>
+                <th>Last error</th>
+                <th>Queued</th>
+                <th>
+                  <span className="sr-only">Action</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {d.mails.map((m) => (
+                <tr key={m.id} className="border-t border-ink-100 align-top">
+                  <td className="py-2 break-all">{m.to}</td>
+                  <td className="break-words">{m.subject}</td>
+                  <td>
+                    {m.status === "failed" ? <Badge tone="bad">Failed</Badge> : <Badge tone="warn">Waiting</Badge>} {m.attempts}
+                  </td>
+                  <td className="max-w-xs break-words text-ink-600">
+                    {m.lastError ? <span title={m.lastError}>{m.lastError.length > 160 ? `${m.lastError.slice(0, 160)}…` : m.lastError}</span> : "—"}
+                    {m.lastTriedAt ? <span className="block text-xs">Last tried {formatMoment(m.lastTriedAt)}</span> : null}
+                  </td>
+                  <td className="whitespace-nowrap">{formatMoment(m.queuedAt)}</td>
+                  <td>
+                    <Form method="post">
+                      <input type="hidden" name="intent" value="send-again" />
+                      <input type="hidden" name="mailId" value={m.id} />
+                      <Button type="submit" tone="secondary" className="px-2 py-1">
+                        Send again
+                      </Button>
+                    </Form>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        )}
+        <Pager page={d.page} pageCount={d.pageCount} search={searchParams} />
+      </Card>
+    </>
+  );
+}

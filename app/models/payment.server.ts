@@ -26,9 +26,19 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare customerId: string | null;
   declare failureMessage: string | null;
   declare paidAt: Date | null;
+  /** Why a person should check this payment; null when nothing is amiss. */
+  declare flag: CreationOptional<string | null>;
+  declare flaggedAt: CreationOptional<Date | null>;
+  /** A second charge for a retainer already paid: refunded automatically, not the job's money. */
+  declare duplicate: CreationOptional<boolean>;
+  /** When the reconciler last asked Stripe about it. */
+  declare checkedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
+
+/** Attempts that may still take a card; the database allows one per job (payments_one_open_per_job). */
+export const OPEN_PAYMENT_STATUSES = ["pending", "failed"] as const satisfies readonly PaymentStatus[];
 
 Payment.init(
   {
@@ -46,6 +56,10 @@ Payment.init(
     customerId: { type: DataTypes.STRING(255), allowNull: true },
     failureMessage: { type: DataTypes.TEXT, allowNull: true },
     paidAt: { type: DataTypes.DATE, allowNull: true },
+    flag: { type: DataTypes.TEXT, allowNull: true },
+    flaggedAt: { type: DataTypes.DATE, allowNull: true },
+    duplicate: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+    checkedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },
@@ -55,7 +69,8 @@ Payment.init(
 export class Refund extends Model<InferAttributes<Refund>, InferCreationAttributes<Refund>> {
   declare id: CreationOptional<string>;
   declare paymentId: string;
-  declare requestedById: string;
+  /** Null for a refund Tenderflow made by itself (a second charge). */
+  declare requestedById: string | null;
   declare amountCents: number;
   declare reason: string;
   declare status: CreationOptional<"requested" | "recorded" | "failed">;
@@ -70,7 +85,7 @@ Refund.init(
   {
     id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
     paymentId: { type: DataTypes.UUID, allowNull: false },
-    requestedById: { type: DataTypes.UUID, allowNull: false },
+    requestedById: { type: DataTypes.UUID, allowNull: true },
     amountCents: centsColumn("amountCents"),
     reason: { type: DataTypes.TEXT, allowNull: false },
     status: { type: DataTypes.ENUM("requested", "recorded", "failed"), allowNull: false, defaultValue: "requested" },

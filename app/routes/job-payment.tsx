@@ -19,6 +19,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     status: payment.status as PaymentStatus,
     amount: formatMoney(payment.amountCents, payment.currency),
     failure: payment.failureMessage,
+    duplicate: payment.duplicate,
     since: payment.updatedAt.toISOString(),
   };
 }
@@ -46,6 +47,11 @@ export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
               leave it, and you will get a receipt by e-mail.
             </p>
           </div>
+        ) : d.duplicate ? (
+          <Notice tone="warn">
+            The retainer had already been paid, so this second payment of {d.amount} is being refunded to your card in full. You will get an e-mail about it;
+            nothing else is needed from you.
+          </Notice>
         ) : d.status === "paid" || d.status === "partially_refunded" || d.status === "refunded" ? (
           <Notice tone="good">Paid: the retainer of {d.amount} has been received. A receipt is on its way to you, and the shop has been told.</Notice>
         ) : (

@@ -32,6 +32,8 @@ export async function loader({ request }: Route.LoaderArgs) {
       currency: p.currency,
       createdAt: p.createdAt.toISOString(),
       paidAt: p.paidAt?.toISOString() ?? null,
+      flag: p.flag,
+      duplicate: p.duplicate,
     })),
   };
 }
@@ -55,10 +57,14 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
               ))}
             </select>
           </label>
+          <label className="flex items-center gap-2 py-1.5">
+            <input type="checkbox" name="flagged" value="1" defaultChecked={params.get("flagged") === "1"} />
+            <span className="font-semibold">Needs a check</span>
+          </label>
           <Button type="submit" tone="secondary">Apply</Button>
         </Form>
         {d.payments.length === 0 ? (
-          <EmptyState title={params.get("status") ? "No payment has that status" : "No payments yet"}>
+          <EmptyState title={params.get("flagged") === "1" ? "No payment needs a check" : params.get("status") ? "No payment has that status" : "No payments yet"}>
             <p>A retainer is paid by card after a bid is awarded; each attempt is listed here with its status.</p>
           </EmptyState>
         ) : (
@@ -85,7 +91,14 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
                     </td>
                     <td className="py-2 pr-3">{p.buyer}</td>
                     <td className="py-2 pr-3">{p.shop}</td>
-                    <td className="py-2 pr-3"><Badge tone={PAYMENT_STATUS_TONES[p.status]}>{PAYMENT_STATUS_LABELS[p.status]}</Badge></td>
+                    <td className="py-2 pr-3">
+                      <span className="flex flex-wrap gap-1">
+                        <Badge tone={PAYMENT_STATUS_TONES[p.status]}>{PAYMENT_STATUS_LABELS[p.status]}</Badge>
+                        {p.duplicate ? <Badge tone="warn">Second charge</Badge> : null}
+                        {p.flag ? <Badge tone="bad">Needs a check</Badge> : null}
+                      </span>
+                      {p.flag ? <p className="mt-1 max-w-xs whitespace-pre-line text-xs text-alarm-600" data-testid="payment-flag">{p.flag}</p> : null}
+                    </td>
                     <td className="py-2 pr-3 text-right tabular-nums">{formatMoney(p.amountCents, p.currency)}</td>
                     <td className="py-2 pr-3 text-right tabular-nums">{p.refundedCents ? formatMoney(p.refundedCents, p.currency) : "—"}</td>
                     <td className="py-2 pr-3">{formatMoment(p.createdAt)}</td>

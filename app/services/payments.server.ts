@@ -5,28 +5,98 @@ import { formatMoney } from "~/content/currencies";
 import type { PaymentStatus } from "~/content/payment-status";
 import { env } from "~/env.server";
 import { FieldErrors, forbidden, notFound, requireId } from "./errors.server";
-import { enqueueMail } from "./mail.server";
 import { scopedJob } from "./jobs.server";
-import { stripe } from "./stripe.server";
+import { OPEN_PAYMENT_STATUSES } from "~/models/payment.server";
+import { retireCheckout, syncPayment } from "./payment-sync.server";
+import { isMissingAtStripe, stripe } from "./stripe.server";
 
 // Retainer payments: a Checkout Session per attempt, created with an idempotency key tied to
-// our payment row, so a double click or a retry after a timeout makes one session. Nothing here
-// marks a payment paid: only the signed webhook does (app/services/stripe-events.server.ts).
+// our payment row, so a double click or a retry after a timeout makes one session. A job has at
+// most one open attempt (the partial unique index payments_one_open_per_job) and so at most one
+// live session: a click reuses it while Stripe says it is open with time to spare, and otherwise
+// expires it at Stripe before a new one is made. Only settleCompletedSession marks a payment
+// paid, from the signed webhook or from what Stripe answers (payment-sync.server.ts).
 
 const SERVICE_DOWN = "The card service did not answer, so nothing was charged. Try again in a minute.";
 
-/** A session lives 24 hours at Stripe; reuse one only while it surely still takes cards. */
-const REUSE_SESSION_MS = 23 * 3_600_000;
+/** A session handed to the buyer must leave time to type a card; nearer its end, a fresh one. */
+const MIN_SESSION_LEFT_MS = 15 * 60_000;
 
+/** The organisation's Stripe customer, checked with Stripe; one it no longer knows is replaced. */
 async function customerOf(organisation: Organisation, payer: User): Promise<string> {
-  if (organisation.stripeCustomerId) return organisation.stripeCustomerId;
+  const stale = organisation.stripeCustomerId;
+  if (stale) {
+    try {
+      const known = await stripe().customers.retrieve(stale);
+      if (!("deleted" in known && known.deleted)) return stale;
+    } catch (error) {
+      if (!isMissingAtStripe(error)) throw error;
+    }
+  }
   const customer = await stripe().customers.create(
     { name: organisation.name, email: payer.email, metadata: { organisation_id: organisation.id } },
-    { idempotencyKey: `customer-${organisation.id}` },
+    { idempotencyKey: stale ? `customer-${organisation.id}-after-${stale}` : `customer-${organisation.id}` },
   );
   // Two first payments at once: the idempotency key gave both the same customer.
-  await Organisation.update({ stripeCustomerId: customer.id }, { where: { id: organisation.id, stripeCustomerId: null } });
+  await Organisation.update({ stripeCustomerId: customer.id }, { where: { id: organisation.id, stripeCustomerId: stale } });
   return customer.id;
+}
+
+/** The job's open attempt, or a new one; the job row lock makes two clicks share one. */
+async function openPaymentOf(job: Job, user: User): Promise<Payment> {
+  return sequelize.transaction(async (transaction) => {
+    const locked = await Job.findByPk(job.id, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+    if (locked.retainerPaidAt) throw new FieldErrors({ "": ["The retainer is already paid."] });
+    const open = await Payment.findOne({ where: { jobId: job.id, status: [...OPEN_PAYMENT_STATUSES] }, transaction });
+    return (
+      open ??
+      Payment.create(
+        { jobId: job.id, buyerOrganisationId: job.buyerOrganisationId, createdById: user.id, amountCents: job.retainerCents, currency: job.currency, checkoutSessionId: null, checkoutUrl: null, paymentIntentId: null, customerId: null, failureMessage: null, paidAt: null },
+        { transaction },
+      )
+    );
+  });
+}
+
+/** Whether an open session may be handed out again: same money, and time left to pay. */
+function stillUsable(session: Stripe.Checkout.Session, job: Job) {
+  return Boolean(session.url) && session.amount_total === job.retainerCents && session.currency === job.currency.toLowerCase() && session.expires_at * 1000 > Date.now() + MIN_SESSION_LEFT_MS;
+}
+
+async function newCheckout(payment: Payment, job: Job, user: User): Promise<string> {
+  const [organisation, spec, shop] = await Promise.all([
+    Organisation.findByPk(job.buyerOrganisationId, { rejectOnEmpty: true }),
+    Spec.findByPk(job.specId, { rejectOnEmpty: true }),
+    Organisation.findByPk(job.shopOrganisationId, { rejectOnEmpty: true }),
+  ]);
+  const customer = await customerOf(organisation, user);
+  const metadata = { payment_id: payment.id, job_id: job.id };
+  const base = env().APP_URL;
+  const session = await stripe().checkout.sessions.create(
+    {
+      mode: "payment",
+      customer,
+      client_reference_id: job.id,
+      line_items: [
+        {
+          quantity: 1,
+          price_data: {
+            currency: job.currency.toLowerCase(),
+            unit_amount: job.retainerCents,
+            product_data: { name: `Retainer: ${spec.title}`, description: `${Number(job.retainerPercent)} % of the awarded bid of ${shop.name}` },
+          },
+        },
+      ],
+      metadata,
+      payment_intent_data: { metadata, description: `Tenderflow retainer for ${spec.title}` },
+      success_url: `${base}/jobs/${job.id}/payment?session_id={CHECKOUT_SESSION_ID}`,
+      cancel_url: `${base}/jobs/${job.id}?payment=cancelled`,
+    },
+    { idempotencyKey: `retainer-${payment.id}` },
+  );
+  await payment.update({ checkoutSessionId: session.id, checkoutUrl: session.url, customerId: customer });
+  if (!session.url) throw new FieldErrors({ "": [SERVICE_DOWN] });
+  return session.url;
 }
 
 /**
@@ -39,65 +109,21 @@ export async function startRetainerPayment(user: User, jobId: string | undefined
   if (job.retainerPaidAt) throw new FieldErrors({ "": ["The retainer is already paid."] });
   if (job.retainerCents <= 0) throw new FieldErrors({ "": ["This job has no retainer to pay."] });
 
-  // One attempt at a time per job: the row lock makes two clicks share one payment row.
-  const payment = await sequelize.transaction(async (transaction) => {
-    await Job.findByPk(job.id, { lock: transaction.LOCK.UPDATE, transaction });
-    const open = await Payment.findOne({
-      where: { jobId: job.id, status: { [Op.in]: ["pending", "failed"] }, createdAt: { [Op.gt]: new Date(Date.now() - REUSE_SESSION_MS) } },
-      order: [["createdAt", "DESC"]],
-      transaction,
-    });
-    return (
-      open ??
-      Payment.create(
-        { jobId: job.id, buyerOrganisationId: job.buyerOrganisationId, createdById: user.id, amountCents: job.retainerCents, currency: job.currency, checkoutSessionId: null, checkoutUrl: null, paymentIntentId: null, customerId: null, failureMessage: null, paidAt: null },
-        { transaction },
-      )
-    );
-  });
-
   try {
-    if (payment.checkoutSessionId) {
-      const session = await stripe().checkout.sessions.retrieve(payment.checkoutSessionId);
-      if (session.status === "open" && session.url) return session.url;
-      if (session.status === "complete") throw new FieldErrors({ "": ["Your card payment went through; we are waiting for the card service to confirm it."] });
-      // Expired: this attempt is over, start a fresh one.
-      await payment.update({ status: "expired" });
-      return startRetainerPayment(user, job.id);
+    // At most a stale attempt and an unknown one end before a fresh session is made.
+    for (let round = 0; round < 3; round++) {
+      const payment = await openPaymentOf(job, user);
+      if (!payment.checkoutSessionId) return await newCheckout(payment, job, user);
+      let state = await syncPayment(payment);
+      if (state.kind === "open" && !stillUsable(state.session, job)) state = await retireCheckout(payment);
+      if (state.kind === "open") return state.session.url!;
+      if (state.kind === "completed") {
+        const paid = (await Job.findByPk(job.id, { rejectOnEmpty: true })).retainerPaidAt;
+        throw new FieldErrors({ "": [paid ? "Your card payment has gone through: the retainer is paid." : "Your card payment went through; we are waiting for the card service to confirm it."] });
+      }
+      // Closed: the next round opens a fresh attempt.
     }
-    const [organisation, spec, shop] = await Promise.all([
-      Organisation.findByPk(job.buyerOrganisationId, { rejectOnEmpty: true }),
-      Spec.findByPk(job.specId, { rejectOnEmpty: true }),
-      Organisation.findByPk(job.shopOrganisationId, { rejectOnEmpty: true }),
-    ]);
-    const customer = await customerOf(organisation, user);
-    const metadata = { payment_id: payment.id, job_id: job.id };
-    const base = env().APP_URL;
-    const session = await stripe().checkout.sessions.create(
-      {
-        mode: "payment",
-        customer,
-        client_reference_id: job.id,
-        line_items: [
-          {
-            quantity: 1,
-            price_data: {
-              currency: job.currency.toLowerCase(),
-              unit_amount: job.retainerCents,
-              product_data: { name: `Retainer: ${spec.title}`, description: `${Number(job.retainerPercent)} % of the awarded bid of ${shop.name}` },
-            },
-          },
-        ],
-        metadata,
-        payment_intent_data: { metadata, description: `Tenderflow retainer for ${spec.title}` },
-        success_url: `${base}/jobs/${job.id}/payment?session_id={CHECKOUT_SESSION_ID}`,
-        cancel_url: `${base}/jobs/${job.id}?payment=cancelled`,
-      },
-      { idempotencyKey: `retainer-${payment.id}` },
-    );
-    await payment.update({ checkoutSessionId: session.id, checkoutUrl: session.url, customerId: customer });
-    if (!session.url) throw new FieldErrors({ "": [SERVICE_DOWN] });
-    return session.url;
+    throw new FieldErrors({ "": [SERVICE_DOWN] });
   } catch (error) {
     if (error instanceof Stripe.errors.StripeError) {
       console.error("Stripe refused a retainer session:", error.message);
@@ -140,8 +166,10 @@ async function paymentScope(viewer: User): Promise<WhereOptions<Payment>> {
 
 export const PAYMENTS_PAGE_SIZE = 50;
 
-export async function listPayments(viewer: User, query: { status?: PaymentStatus; page?: number }) {
-  const where: WhereOptions<Payment> = { [Op.and]: [await paymentScope(viewer), ...(query.status ? [{ status: query.status }] : [])] };
+export async function listPayments(viewer: User, query: { status?: PaymentStatus; flagged?: boolean; page?: number }) {
+  const where: WhereOptions<Payment> = {
+    [Op.and]: [await paymentScope(viewer), ...(query.status ? [{ status: query.status }] : []), ...(query.flagged ? [{ flag: { [Op.ne]: null } }] : [])],
+  };
   const page = Math.max(1, query.page ?? 1);
   const { rows, count } = await Payment.findAndCountAll({
     where,
@@ -195,34 +223,4 @@ export async function requestRefund(viewer: User, paymentId: string | undefined,
     throw new FieldErrors({ amount: [`The card service refused the refund: ${error.message}`] });
   }
   return refund;
-}
-
-/** Receipts for a paid retainer: to the buyer who paid and to the shop's people. */
-export async function sendReceipts(transaction: Transaction, payment: Payment) {
-  const job = await Job.findByPk(payment.jobId, { transaction, rejectOnEmpty: true });
-  const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
-  const [buyer, shop] = await Promise.all([Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true }), Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true })]);
-  const payer = await User.findByPk(payment.createdById, { transaction, rejectOnEmpty: true });
-  const shopPeople = await User.findAll({ where: { organisationId: shop.id, active: true }, transaction });
-  const amount = formatMoney(payment.amountCents, payment.currency);
-  const link = `${env().APP_URL}/jobs/${job.id}`;
-  const when = (payment.paidAt ?? new Date()).toISOString().slice(0, 16).replace("T", " ");
-  await enqueueMail(
-    {
-      to: payer.email,
-      subject: `Receipt: retainer of ${amount} for ${spec.title}`,
-      text: `Hello ${payer.name},\n\nThank you: ${buyer.name} has paid the retainer of ${amount} for "${spec.title}" to ${shop.name} by card on ${when} UTC.\nPayment reference: ${payment.paymentIntentId ?? payment.id}\n\nThe job: ${link}\n`,
-    },
-    transaction,
-  );
-  for (const person of shopPeople) {
-    await enqueueMail(
-      {
-        to: person.email,
-        subject: `Retainer received: ${amount} for ${spec.title}`,
-        text: `Hello ${person.name},\n\n${buyer.name} has paid the retainer of ${amount} for "${spec.title}" on ${when} UTC. The job can go ahead: ${link}\n`,
-      },
-      transaction,
-    );
-  }
 }

@@ -23,3 +23,8 @@ export function verifiedEvent(payload: string, signature: string | null): Stripe
   if (!signature) throw new Error("No Stripe-Signature header.");
   return stripe().webhooks.constructEvent(payload, signature, env().STRIPE_WEBHOOK_SECRET);
 }
+
+/** Stripe does not know the object asked for (deleted, or made by a card service since reset). */
+export function isMissingAtStripe(error: unknown): boolean {
+  return error instanceof Stripe.errors.StripeInvalidRequestError && error.code === "resource_missing";
+}

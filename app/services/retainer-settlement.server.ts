@@ -1,0 +1,157 @@
+import Stripe from "stripe";
+import type { Transaction } from "sequelize";
+import { Job, Organisation, type Payment, Refund, Spec, User } from "~/models/index.server";
+import { formatMoney } from "~/content/currencies";
+import { env } from "~/env.server";
+import { enqueueMail } from "./mail.server";
+import { recordRetainerReceived } from "./jobs.server";
+import { stripe } from "./stripe.server";
+
+// The one path by which a payment becomes paid: the webhook's checkout.session.completed and the
+// reconciler, which asks Stripe about sessions whose webhook never came, both end here, inside
+// a transaction holding the payment row. A second charge for a retainer already paid is
+// refunded at once, flagged, and both the buyer and the account manager are told.
+
+const PAID_STATUSES = ["paid", "partially_refunded", "refunded"];
+
+/** The fields of a completed Checkout Session this reads; Stripe's own type fits it. */
+export type CompletedSession = {
+  id: string;
+  payment_status?: string | null;
+  amount_total?: unknown;
+  currency?: unknown;
+  payment_intent?: string | { id: string } | null;
+};
+
+export const idOf = (value: string | { id: string } | null | undefined) => (typeof value === "string" ? value : (value?.id ?? null));
+
+/** Why an amount and currency from Stripe differ from the payment's, or null when they match. */
+export function moneyMismatch(payment: Payment, amount: unknown, currency: unknown): string | null {
+  if (typeof amount !== "number" || !Number.isSafeInteger(amount)) return "no amount";
+  if (amount !== payment.amountCents) return `amount ${amount} instead of ${payment.amountCents}`;
+  if (typeof currency !== "string" || currency.toLowerCase() !== payment.currency.toLowerCase()) {
+    return `currency ${typeof currency === "string" ? currency.slice(0, 10) : "missing"} instead of ${payment.currency.toLowerCase()}`;
+  }
+  return null;
+}
+
+/** Marks a payment for a person to check, keeping earlier notes. */
+export async function flagPayment(transaction: Transaction, payment: Payment, note: string) {
+  const flag = payment.flag ? `${payment.flag}\n${note}` : note;
+  await payment.update({ flag: flag.slice(-2000), flaggedAt: new Date() }, { transaction });
+}
+
+/** Records a completed session's payment once; says what it did. `payment` is locked by the caller. */
+export async function settleCompletedSession(transaction: Transaction, payment: Payment, session: CompletedSession, paidAt: Date): Promise<string> {
+  if (session.payment_status !== "paid") return `session ${session.id} completed unpaid (${String(session.payment_status).slice(0, 20)})`;
+  if (PAID_STATUSES.includes(payment.status)) return "payment already recorded";
+  const intentId = idOf(session.payment_intent);
+  const mismatch = moneyMismatch(payment, session.amount_total, session.currency) ?? (intentId ? null : "no payment intent");
+  if (mismatch) {
+    await flagPayment(transaction, payment, `A completed checkout (${session.id}) said ${mismatch}; it was not applied. Check the payment at the card service.`);
+    return `completed session: ${mismatch}; not applied`;
+  }
+  const job = await Job.findByPk(payment.jobId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+  if (job.retainerPaidAt) return refundSecondCharge(transaction, payment, job, intentId!, paidAt);
+  await payment.update({ status: "paid", paidAt, paymentIntentId: intentId, failureMessage: null }, { transaction });
+  await recordRetainerReceived(transaction, { jobId: payment.jobId, paidById: payment.createdById, paidAt, paymentId: payment.id, amountCents: payment.amountCents, currency: payment.currency });
+  await sendReceipts(transaction, payment);
+  return "paid";
+}
+
+/**
+ * The job's retainer was already paid by another payment: this charge is refunded in full. The
+ * idempotency key is the payment's, so a retried webhook (or the reconciler) asks only once.
+ */
+async function refundSecondCharge(transaction: Transaction, payment: Payment, job: Job, intentId: string, paidAt: Date) {
+  await payment.update({ status: "paid", paidAt, paymentIntentId: intentId, failureMessage: null, duplicate: true }, { transaction });
+  const refund = await Refund.create(
+    { paymentId: payment.id, requestedById: null, amountCents: payment.amountCents, reason: "Automatic: the retainer had already been paid", stripeRefundId: null, failureMessage: null, recordedAt: null },
+    { transaction },
+  );
+  let refused: string | null = null;
+  try {
+    const made = await stripe().refunds.create(
+      { payment_intent: intentId, amount: payment.amountCents, reason: "duplicate", metadata: { payment_id: payment.id, automatic: "second_charge" } },
+      { idempotencyKey: `second-charge-${payment.id}` },
+    );
+    await refund.update({ stripeRefundId: made.id }, { transaction });
+  } catch (error) {
+    if (!(error instanceof Stripe.errors.StripeError)) throw error;
+    refused = error.message;
+    await refund.update({ status: "failed", failureMessage: error.message }, { transaction });
+  }
+  const amount = formatMoney(payment.amountCents, payment.currency);
+  await flagPayment(
+    transaction,
+    payment,
+    refused
+      ? `Charged a second time (${amount}) after the retainer was paid. The automatic refund was refused (${refused}): pay it back by hand.`
+      : `Charged a second time (${amount}) after the retainer was paid; refunded automatically.`,
+  );
+  await tellOfSecondCharge(transaction, payment, job, refused);
+  return refused ? "charged twice; automatic refund refused" : "charged twice; refund requested";
+}
+
+async function tellOfSecondCharge(transaction: Transaction, payment: Payment, job: Job, refused: string | null) {
+  const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
+  const buyer = await Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true });
+  const payer = await User.findByPk(payment.createdById, { transaction });
+  const amount = formatMoney(payment.amountCents, payment.currency);
+  const link = `${env().APP_URL}/jobs/${job.id}`;
+  const reference = payment.paymentIntentId ?? payment.id;
+  if (payer?.active) {
+    await enqueueMail(
+      {
+        to: payer.email,
+        subject: `Charged twice for the retainer of ${spec.title}: ${refused ? "we are paying it back" : "refunded"}`,
+        text: `Hello ${payer.name},\n\nThe retainer for "${spec.title}" had already been paid when a second card payment of ${amount} came through (reference ${reference}). ${refused ? "Your account manager will pay it back to your card and be in touch." : "We have asked the card service to pay it back in full; it can take a few days to appear on your statement."} Nothing else is needed from you.\n\nThe job: ${link}\n`,
+      },
+      transaction,
+    );
+  }
+  const manager = buyer.accountManagerId ? await User.findOne({ where: { id: buyer.accountManagerId, active: true }, transaction }) : null;
+  // Without an account manager, the administrators hear of it.
+  const staff = manager ? [manager] : await User.findAll({ where: { role: "admin", active: true }, transaction });
+  for (const person of staff) {
+    await enqueueMail(
+      {
+        to: person.email,
+        subject: `Check: retainer charged twice for ${spec.title} (${buyer.name})`,
+        text: `Hello ${person.name},\n\n${buyer.name} paid the retainer for "${spec.title}" a second time: ${amount}, reference ${reference}. ${refused ? `The automatic refund was refused by the card service (${refused}); please pay it back from the job page.` : "It has been refunded automatically."}\n\nThe job: ${link}\nFlagged payments: ${env().APP_URL}/payments?flagged=1\n`,
+      },
+      transaction,
+    );
+  }
+}
+
+/** Receipts for a paid retainer: to the buyer who paid and to the shop's people. */
+export async function sendReceipts(transaction: Transaction, payment: Payment) {
+  const job = await Job.findByPk(payment.jobId, { transaction, rejectOnEmpty: true });
+  const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
+  const [buyer, shop] = await Promise.all([Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true }), Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true })]);
+  const payer = await User.findByPk(payment.createdById, { transaction, rejectOnEmpty: true });
+  const shopPeople = await User.findAll({ where: { organisationId: shop.id, active: true }, transaction });
+  const amount = formatMoney(payment.amountCents, payment.currency);
+  const link = `${env().APP_URL}/jobs/${job.id}`;
+  const when = (payment.paidAt ?? new Date()).toISOString().slice(0, 16).replace("T", " ");
+  await enqueueMail(
+    {
+      to: payer.email,
+      subject: `Receipt: retainer of ${amount} for ${spec.title}`,
+      text: `Hello ${payer.name},\n\nThank you: ${buyer.name} has paid the retainer of ${amount} for "${spec.title}" to ${shop.name} by card on ${when} UTC.\nPayment reference: ${payment.paymentIntentId ?? payment.id}\n\nThe job: ${link}\n`,
+    },
+    transaction,
+  );
+  for (const person of shopPeople) {
+    await enqueueMail(
+      {
+        to: person.email,
+        subject: `Retainer received: ${amount} for ${spec.title}`,
+        text: `Hello ${person.name},\n\n${buyer.name} has paid the retainer of ${amount} for "${spec.title}" on ${when} UTC. The job can go ahead: ${link}\n`,
+      },
+      transaction,
+    );
+  }
+}
+

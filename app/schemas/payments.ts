@@ -17,5 +17,7 @@ export const refundSchema = z.object({
 
 export const paymentListSchema = z.object({
   status: z.enum(PAYMENT_STATUSES).optional().catch(undefined),
+  /** Only payments flagged for a person to check. */
+  flagged: z.literal("1").optional().catch(undefined).transform((v) => v === "1"),
   page: z.coerce.number().int().min(1).optional().catch(undefined),
 });

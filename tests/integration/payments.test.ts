@@ -2,6 +2,7 @@
 // local fake: the session, the hosted page, the signed webhook (bad, replayed, unknown), a
 // declined card, refunds, and who may see or do what.
 import Stripe from "stripe";
+import { Op, UniqueConstraintError } from "sequelize";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as signIn from "~/routes/sign-in";
 import * as pay from "~/routes/job-pay";
@@ -11,7 +12,7 @@ import * as jobsPage from "~/routes/jobs";
 import * as paymentsPage from "~/routes/payments";
 import * as refund from "~/routes/payment-refund";
 import * as webhook from "~/routes/webhooks.stripe";
-import { Job, JobEvent, JobMilestone, Organisation, Payment, Refund, StripeEvent, type User } from "~/models/index.server";
+import { Job, JobEvent, JobMilestone, Organisation, OutboxMail, Payment, Refund, StripeEvent, type User } from "~/models/index.server";
 import { awardBid } from "~/services/award.server";
 import { bomOf, saveBid } from "~/services/bids.server";
 import { deliverDueMail } from "~/services/mail.server";
@@ -274,5 +275,162 @@ describe("who may see and do what", () => {
     // The shop sees the job but not the payment attempts.
     expect((await visitors.shop.get(jobPage.loader, `/jobs/${job.id}`, { jobId: job.id })).data.retainer.payments).toEqual([]);
     expect((await Job.findByPk(job.id, { rejectOnEmpty: true })).retainerPaidAt).not.toBeNull();
+  });
+});
+
+describe("one live checkout per job", () => {
+  it("lets two clicks at once share one attempt, and the database refuses a second open one", async () => {
+    const job = await awardedJob();
+    const [a, b] = await Promise.all([0, 1].map(() => visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })));
+    expect(a.location).toMatch(/\/checkout\/cs_test_/);
+    expect(b.location).toBe(a.location);
+    const open = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+    expect(await Payment.count({ where: { jobId: job.id } })).toBe(1);
+    const copy = { jobId: job.id, buyerOrganisationId: open.buyerOrganisationId, createdById: buyer.id, amountCents: open.amountCents, currency: open.currency, checkoutSessionId: null, checkoutUrl: null, paymentIntentId: null, customerId: null, failureMessage: null, paidAt: null };
+    await expect(Payment.create(copy)).rejects.toBeInstanceOf(UniqueConstraintError);
+    await expect(Payment.create({ ...copy, status: "failed" })).rejects.toBeInstanceOf(UniqueConstraintError);
+    // A closed attempt leaves room for the next one.
+    await open.update({ status: "expired" });
+    expect((await Payment.create(copy)).status).toBe("pending");
+  });
+
+  it("refunds a second charge by itself, flags it, and tells the buyer and the account manager", async () => {
+    const job = await awardedJob();
+    const since = new Date();
+    const oldTab = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
+    const first = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+    // Forced: the app gave the first attempt up (as when its session completed just as it was
+    // being expired) while the card service still takes it.
+    await first.update({ status: "expired" });
+    const newTab = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
+    expect(newTab).not.toBe(oldTab);
+    const second = await Payment.findOne({ where: { jobId: job.id, status: "pending" }, rejectOnEmpty: true });
+    expect((await payOnPage(oldTab, "4242 4242 4242 4242")).status).toBe(303);
+    expect((await payOnPage(newTab, "4242 4242 4242 4242")).status).toBe(303);
+
+    expect((await deliver(await eventAbout("checkout.session.completed", first.checkoutSessionId!))).data.outcome).toBe("paid");
+    const completed = await eventAbout("checkout.session.completed", second.checkoutSessionId!);
+    const twice = await deliver(completed);
+    expect(twice.status).toBe(200);
+    expect(twice.data.outcome).toBe("charged twice; refund requested");
+    await second.reload();
+    expect(second).toMatchObject({ status: "paid", duplicate: true });
+    expect(second.flag).toMatch(/second time.*refunded automatically/);
+    // The refund is asked of Stripe at once, in full, and asked only once.
+    const asked = await stripe.refunds.list({ payment_intent: second.paymentIntentId! });
+    expect(asked.data).toHaveLength(1);
+    expect(asked.data[0]).toMatchObject({ amount: second.amountCents, reason: "duplicate", status: "succeeded" });
+    const row = await Refund.findOne({ where: { paymentId: second.id }, rejectOnEmpty: true });
+    expect(row).toMatchObject({ status: "requested", requestedById: null, stripeRefundId: asked.data[0].id, amountCents: second.amountCents });
+    expect((await deliver(completed)).data.outcome).toBe("replay");
+    expect((await stripe.refunds.list({ payment_intent: second.paymentIntentId! })).data).toHaveLength(1);
+
+    // Its refund's webhook settles the second charge and leaves the job's retainer alone.
+    const refunded = await eventAbout("charge.refunded", "", (o) => o.payment_intent === second.paymentIntentId);
+    expect((await deliver(refunded)).data.outcome).toBe(`refunded ${second.amountCents} of a second charge`);
+    expect(await second.reload()).toMatchObject({ status: "refunded", refundedCents: second.amountCents });
+    expect((await row.reload()).status).toBe("recorded");
+    await job.reload();
+    expect(job.retainerPaidAt).not.toBeNull();
+    expect(job.retainerRefundedCents).toBe(0);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "retainer_paid" } })).toBe(1);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "retainer_refunded" } })).toBe(0);
+    expect((await first.reload()).status).toBe("paid");
+
+    // Mail: one receipt, the buyer and the account manager told of the second charge, the shop not bothered.
+    const queued = await OutboxMail.findAll({ where: { createdAt: { [Op.gte]: since } } });
+    const subjects = (to: string) => queued.filter((m) => m.to === to).map((m) => m.subject);
+    expect(subjects(buyer.email).filter((s) => s.startsWith("Receipt"))).toHaveLength(1);
+    expect(subjects(buyer.email).filter((s) => s.startsWith("Charged twice"))).toHaveLength(1);
+    expect(subjects(manager.email)).toEqual([expect.stringMatching(/^Check: retainer charged twice/)]);
+    expect(subjects(shop.email).filter((s) => /paid back/i.test(s))).toEqual([]);
+    await deliverDueMail(500);
+    expect((await waitForMail(buyer.email, "Charged twice")).text).toContain(second.paymentIntentId!);
+    expect((await waitForMail(manager.email, "Check: retainer charged twice")).text).toContain("refunded automatically");
+
+    // The payments table shows it for a person to check.
+    const flagged = await visitors.manager.get(paymentsPage.loader, "/payments?flagged=1");
+    const listed = flagged.data.payments as { id: string; flag: string | null; duplicate: boolean }[];
+    expect(listed.find((p) => p.id === second.id)).toMatchObject({ duplicate: true, flag: expect.stringMatching(/refunded automatically/) });
+    expect(listed.map((p) => p.id)).not.toContain(first.id);
+    const page = await visitors.buyer.get(paymentPage.loader, `/jobs/${job.id}/payment?session_id=${second.checkoutSessionId}`, { jobId: job.id });
+    expect(page.data.duplicate).toBe(true);
+  });
+});
+
+describe("webhook events that do not match the payment", () => {
+  /** The event with another id and some fields of its object changed (or removed, as undefined). */
+  const altered = (event: Stripe.Event, name: string, change: Record<string, unknown>) => ({
+    ...event,
+    id: `evt_${name}_${Date.now()}_${Math.random().toString(36).slice(2)}`,
+    data: { object: JSON.parse(JSON.stringify({ ...(event.data.object as object), ...change })) },
+  });
+
+  it("records a completed session with no amount, another amount or another currency, flags the payment, and applies none", async () => {
+    const job = await awardedJob();
+    const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
+    const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+    await payOnPage(url, "4242 4242 4242 4242");
+    const real = await eventAbout("checkout.session.completed", payment.checkoutSessionId!);
+    const wrong: [string, Record<string, unknown>, RegExp][] = [
+      ["no_amount", { amount_total: undefined }, /no amount/],
+      ["null_amount", { amount_total: null }, /no amount/],
+      ["less", { amount_total: 1 }, /amount 1 instead of/],
+      ["other_currency", { currency: "usd" }, /currency usd instead of gbp/],
+      ["no_currency", { currency: undefined }, /currency missing/],
+    ];
+    for (const [name, change, reason] of wrong) {
+      const event = altered(real, name, change);
+      const answer = await deliver(event);
+      expect(answer.status).toBe(200);
+      expect(answer.data.outcome).toMatch(reason);
+      expect(answer.data.outcome).toMatch(/not applied/);
+      expect((await StripeEvent.findByPk(event.id, { rejectOnEmpty: true })).outcome).toMatch(reason);
+    }
+    await payment.reload();
+    expect(payment.status).toBe("pending");
+    expect(payment.flag).toMatch(/no amount/);
+    expect(payment.flag).toMatch(/currency usd/);
+    expect((await job.reload()).retainerPaidAt).toBeNull();
+    // Signed but shapeless: recorded, answered, nothing breaks.
+    const shapeless = { ...real, id: `evt_shapeless_${Date.now()}`, data: { object: null } };
+    const answer = await deliver(shapeless);
+    expect(answer.status).toBe(200);
+    expect(answer.data.outcome).toMatch(/^malformed checkout.session.completed/);
+    expect((await deliver({ ...real, id: 42 })).status).toBe(200);
+    // The true event still pays it.
+    expect((await deliver(real)).data.outcome).toBe("paid");
+    expect((await job.reload()).retainerPaidAt).not.toBeNull();
+  });
+
+  it("does not record a refund larger than the payment, in another currency, or without an amount", async () => {
+    const job = await awardedJob();
+    const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
+    await payOnPage(url, "4242 4242 4242 4242");
+    const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+    await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
+    await payment.reload();
+    const [charge] = (await stripe.charges.list({ payment_intent: payment.paymentIntentId! })).data;
+    const refundEvent = { id: "", object: "event", type: "charge.refunded", created: Math.floor(Date.now() / 1000), api_version: "2026-10-28.endive", livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null }, data: { object: charge } } as unknown as Stripe.Event;
+    const wrong: [string, Record<string, unknown>, RegExp][] = [
+      ["oversized", { amount_refunded: payment.amountCents + 1, refunded: true }, /more than the \d+ paid/],
+      ["other_currency", { amount_refunded: 100, currency: "eur" }, /currency eur/],
+      ["no_refund_amount", { amount_refunded: undefined }, /no refunded amount/],
+      ["no_amount", { amount: undefined, amount_refunded: 100 }, /no amount/],
+      ["negative", { amount_refunded: -5 }, /no refunded amount/],
+    ];
+    for (const [name, change, reason] of wrong) {
+      const answer = await deliver(altered(refundEvent, name, change));
+      expect(answer.status).toBe(200);
+      expect(answer.data.outcome).toMatch(reason);
+      expect(answer.data.outcome).toMatch(/not applied/);
+    }
+    await payment.reload();
+    expect(payment).toMatchObject({ status: "paid", refundedCents: 0 });
+    expect(payment.flag).toMatch(/more than the \d+ paid/);
+    expect((await job.reload()).retainerRefundedCents).toBe(0);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "retainer_refunded" } })).toBe(0);
+    // A refund within the payment is still recorded.
+    expect((await deliver(altered(refundEvent, "fine", { amount_refunded: 500 }))).data.outcome).toBe("refunded 500");
   });
 });

@@ -216,6 +216,28 @@ describe("checkout sessions", () => {
     await fake.settled();
     expect(verifiedEvents("checkout.session.expired").map((e) => (e.data.object as Stripe.Checkout.Session).id)).toEqual([session.id]);
   });
+
+  it("refuses to expire a completed session, which stays paid, and names an unknown one resource_missing", async () => {
+    const session = await newSession();
+    expect((await submitCard(session.url!, "4242 4242 4242 4242")).status).toBe(303);
+    expect(await expectStripeError(stripe.checkout.sessions.expire(session.id))).toMatchObject({ statusCode: 400, type: "StripeInvalidRequestError" });
+    expect(await stripe.checkout.sessions.retrieve(session.id)).toMatchObject({ status: "complete", payment_status: "paid" });
+    expect((await stripe.paymentIntents.retrieve(session.payment_intent as string)).status).toBe("succeeded");
+    await fake.settled();
+    expect(verifiedEvents("checkout.session.expired")).toEqual([]);
+    expect(await expectStripeError(stripe.checkout.sessions.expire("cs_test_unknown"))).toMatchObject({ statusCode: 404, code: "resource_missing" });
+  });
+
+  it("forgets every session when restarted, as the app must expect", async () => {
+    const session = await newSession();
+    const again = await startStripeFake({ webhookSecret: WEBHOOK_SECRET });
+    try {
+      const other = new Stripe(SECRET_KEY, { host: "127.0.0.1", port: again.port, protocol: "http", maxNetworkRetries: 0 });
+      expect(await expectStripeError(other.checkout.sessions.retrieve(session.id))).toMatchObject({ statusCode: 404, code: "resource_missing", param: "id" });
+    } finally {
+      await again.close();
+    }
+  });
 });
 
 describe("the hosted payment page", () => {

@@ -8,6 +8,7 @@ import {
 } from "sequelize";
 import { sequelize } from "~/db.server";
 import { ORGANISATION_KINDS, type OrganisationKind } from "~/auth/roles";
+import { APPROVALS, type Approval } from "~/content/shop-approval";
 
 export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {
   declare id: CreationOptional<string>;
@@ -18,8 +19,19 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
   declare accountManagerId: ForeignKey<string> | null;
   /** The Stripe customer of a buyer organisation, made with its first payment. */
   declare stripeCustomerId: CreationOptional<string | null>;
+  /** A shop's approval (a new shop starts pending); null for buyer and operator organisations. */
+  declare approval: CreationOptional<Approval | null>;
+  /** Why the shop was refused, shown to the shop; the admin's optional note on an approval. */
+  declare approvalReason: CreationOptional<string | null>;
+  declare approvalDecidedById: CreationOptional<ForeignKey<string> | null>;
+  declare approvalDecidedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+}
+
+function defaultApproval(organisation: Organisation) {
+  if (organisation.kind === "shop") organisation.approval ??= "pending";
+  else organisation.approval = null;
 }
 
 Organisation.init(
@@ -30,8 +42,21 @@ Organisation.init(
     region: { type: DataTypes.STRING(80), allowNull: true },
     accountManagerId: { type: DataTypes.UUID, allowNull: true },
     stripeCustomerId: { type: DataTypes.STRING(255), allowNull: true },
+    approval: { type: DataTypes.ENUM(...APPROVALS), allowNull: true },
+    approvalReason: { type: DataTypes.TEXT, allowNull: true },
+    approvalDecidedById: { type: DataTypes.UUID, allowNull: true },
+    approvalDecidedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },
-  { sequelize, tableName: "organisations" },
+  {
+    sequelize,
+    tableName: "organisations",
+    hooks: {
+      // Safe by default: a shop made anywhere (sign-up, a script) waits for an admin, unless
+      // whoever makes it decides otherwise; other kinds never carry an approval.
+      beforeCreate: defaultApproval,
+      beforeBulkCreate: (organisations) => organisations.forEach(defaultApproval),
+    },
+  },
 );

@@ -4,24 +4,30 @@ import type { Route } from "./+types/admin.organisations";
 import { requireRole } from "~/auth/permissions.server";
 import { KIND_LABELS, ORGANISATION_KINDS } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Button, Card, Notice, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { formatDay } from "~/content/dates";
+import { APPROVALS, APPROVAL_LABELS, APPROVAL_TONES, REFUSAL_REASON_MAX, type Approval } from "~/content/shop-approval";
 import { assignManagerSchema, listQuerySchema } from "~/schemas/admin";
+import { shopDecisionSchema } from "~/schemas/shop-approval";
 import { assignAccountManager, listAccountManagers, listOrganisations } from "~/services/admin.server";
 import { FieldErrors } from "~/services/errors.server";
+import { decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Organisations · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   await requireRole(request, ["admin"]);
   const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
-  const [{ organisations, total, page, pageCount }, managers] = await Promise.all([
+  const [{ organisations, total, page, pageCount }, managers, waiting] = await Promise.all([
     listOrganisations(query),
     listAccountManagers(),
+    shopsAwaitingApproval(),
   ]);
   return {
     total,
     page,
     pageCount,
+    waiting,
     managers: managers.map((m) => ({ id: m.id, name: m.name })),
     organisations: organisations.map(({ organisation: o, memberCount }) => ({
       id: o.id,
@@ -30,22 +36,126 @@ export async function loader({ request }: Route.LoaderArgs) {
       region: o.region,
       memberCount,
       accountManagerId: o.accountManagerId ?? "",
+      approval: o.approval as Approval | null,
+      approvalReason: o.approvalReason as string | null,
     })),
   };
 }
 
+type ActionResult = { error: string; organisationId?: string };
+
+/** Approving or refusing a shop (intent "approve" / "refuse"), or assigning an account manager. */
+async function decide(request: Request, formData: FormData) {
+  const admin = await requireRole(request, ["admin"]);
+  const submission = parseWithZod(formData, { schema: shopDecisionSchema });
+  const organisationId = String(formData.get("organisationId") ?? "");
+  if (submission.status !== "success") {
+    const error = Object.values(submission.error ?? {}).flat()[0] ?? "That decision was not understood.";
+    return data<ActionResult>({ error, organisationId }, { status: 400 });
+  }
+  const choice = submission.value;
+  try {
+    const shop = await decideShop(admin, choice.organisationId, choice.intent === "approve" ? { decision: "approve" } : { decision: "refuse", reason: choice.reason });
+    const back = new URL(request.url);
+    return redirectWithToast(
+      request,
+      `${back.pathname}${back.search}`,
+      shop.approval === "approved" ? `${shop.name} is approved and can read specs now; its people have been e-mailed.` : `${shop.name} is refused; its people have been e-mailed the reason.`,
+    );
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    return data<ActionResult>({ error: error.message, organisationId }, { status: 400 });
+  }
+}
+
 export async function action({ request }: Route.ActionArgs) {
   await requireRole(request, ["admin"]);
-  const submission = parseWithZod(await request.formData(), { schema: assignManagerSchema });
-  if (submission.status !== "success") return data({ error: "Choose an account manager." }, { status: 400 });
+  const formData = await request.formData();
+  if (formData.has("intent")) return decide(request, formData);
+  const submission = parseWithZod(formData, { schema: assignManagerSchema });
+  if (submission.status !== "success") return data<ActionResult>({ error: "Choose an account manager." }, { status: 400 });
   try {
     await assignAccountManager(submission.value.organisationId, submission.value.managerId);
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;
-    return data({ error: error.message }, { status: 400 });
+    return data<ActionResult>({ error: error.message }, { status: 400 });
   }
   const back = new URL(request.url);
   return redirectWithToast(request, `${back.pathname}${back.search}`, "Account manager saved.");
+}
+
+function ApproveButton({ organisationId, name }: { organisationId: string; name: string }) {
+  return (
+    <Form method="post">
+      <input type="hidden" name="intent" value="approve" />
+      <input type="hidden" name="organisationId" value={organisationId} />
+      <Button type="submit" className="px-3 py-1" aria-label={`Approve ${name}`}>
+        Approve
+      </Button>
+    </Form>
+  );
+}
+
+/** Shops that signed up and read nothing until an admin decides. */
+function WaitingShops({ waiting, actionData }: { waiting: Route.ComponentProps["loaderData"]["waiting"]; actionData: ActionResult | undefined }) {
+  return (
+    <Card className="mb-6">
+      <h2 className="font-semibold">Waiting for approval</h2>
+      <p className="mb-3 text-sm text-ink-600">
+        These shops signed up and can read no spec until you approve them. Check that each is a real fluid-power business; a refusal needs a reason, which the shop reads. Either way, the shop is e-mailed.
+      </p>
+      {waiting.length === 0 ? <p className="py-2 text-sm text-ink-600">No shop is waiting.</p> : null}
+      <ul className="divide-y divide-ink-100">
+        {waiting.map((shop) => {
+          const problem = actionData?.organisationId === shop.id ? actionData.error : null;
+          return (
+            <li key={shop.id} className="grid gap-3 py-3 text-sm md:grid-cols-[1fr_auto]">
+              <div>
+                <p className="font-semibold">{shop.name}</p>
+                <p className="text-ink-600">Signed up {formatDay(shop.signedUpAt.slice(0, 10))}</p>
+                <ul className="text-ink-600">
+                  {shop.people.map((p) => (
+                    <li key={p.email} className="break-all">
+                      {p.name} · {p.email}
+                    </li>
+                  ))}
+                </ul>
+              </div>
+              <div className="flex flex-wrap items-start gap-2">
+                <ApproveButton organisationId={shop.id} name={shop.name} />
+                <Form method="post" className="flex flex-col gap-1">
+                  <input type="hidden" name="intent" value="refuse" />
+                  <input type="hidden" name="organisationId" value={shop.id} />
+                  <label htmlFor={`reason-${shop.id}`} className="sr-only">
+                    Why {shop.name} is refused
+                  </label>
+                  <textarea
+                    id={`reason-${shop.id}`}
+                    name="reason"
+                    required
+                    rows={2}
+                    maxLength={REFUSAL_REASON_MAX}
+                    placeholder="Why it is refused (the shop reads this)"
+                    aria-invalid={problem ? true : undefined}
+                    aria-describedby={problem ? `reason-${shop.id}-problem` : undefined}
+                    className="w-64 rounded-md px-2 py-1 ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
+                  />
+                  {problem ? (
+                    <span id={`reason-${shop.id}-problem`} className="text-xs font-semibold text-alarm-600">
+                      {problem}
+                    </span>
+                  ) : null}
+                  <Button type="submit" tone="danger" className="self-start px-3 py-1">
+                    Refuse
+                  </Button>
+                </Form>
+              </div>
+            </li>
+          );
+        })}
+      </ul>
+    </Card>
+  );
 }
 
 export default function AdminOrganisations({ loaderData, actionData }: Route.ComponentProps) {
@@ -53,7 +163,8 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
   return (
     <>
       <PageHeader title="Organisations" lead={`${loaderData.total} organisation${loaderData.total === 1 ? "" : "s"}.`} />
-      {actionData?.error ? (
+      <WaitingShops waiting={loaderData.waiting} actionData={actionData} />
+      {actionData?.error && !loaderData.waiting.some((w) => w.id === actionData.organisationId) ? (
         <div className="mb-4">
           <Notice tone="bad">{actionData.error}</Notice>
         </div>
@@ -71,6 +182,17 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
               </option>
             ))}
           </select>
+          <label htmlFor="approval" className="sr-only">
+            Approval
+          </label>
+          <select id="approval" name="approval" defaultValue={searchParams.get("approval") ?? ""} className="rounded-md px-2 py-2 text-sm ring-1 ring-ink-200">
+            <option value="">Any approval</option>
+            {APPROVALS.map((a) => (
+              <option key={a} value={a}>
+                {APPROVAL_LABELS[a]}
+              </option>
+            ))}
+          </select>
         </SearchBar>
         <table className="w-full text-left text-sm">
           <thead className="text-ink-600">
@@ -79,6 +201,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
               <th>Kind</th>
               <th>Region</th>
               <th>Users</th>
+              <th>Approval</th>
               <th>Account manager</th>
             </tr>
           </thead>
@@ -89,6 +212,21 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
                 <td>{KIND_LABELS[o.kind]}</td>
                 <td>{o.region ?? "—"}</td>
                 <td>{o.memberCount}</td>
+                <td>
+                  {o.approval ? (
+                    <div className="flex flex-col items-start gap-1 py-1">
+                      <Badge tone={APPROVAL_TONES[o.approval]}>{APPROVAL_LABELS[o.approval]}</Badge>
+                      {o.approval === "refused" ? (
+                        <>
+                          {o.approvalReason ? <span className="max-w-xs text-xs break-words text-ink-600">{o.approvalReason}</span> : null}
+                          <ApproveButton organisationId={o.id} name={o.name} />
+                        </>
+                      ) : null}
+                    </div>
+                  ) : (
+                    <span className="text-ink-400">—</span>
+                  )}
+                </td>
                 <td>
                   {o.kind === "buyer" ? (
                     <Form method="post" className="flex items-center gap-1">

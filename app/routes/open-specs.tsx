@@ -6,6 +6,7 @@ import { Badge, Button, Card, EmptyState, Notice, PageHeader, Pager } from "~/co
 import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { OPEN_SPEC_SORTS, OPEN_SPEC_SORT_LABELS, readOpenSpecsQuery, type OpenSpecParam } from "~/schemas/open-specs";
 import { listOpenSpecsForShop } from "~/services/open-specs.server";
+import { approvalStateOf, type ApprovalState } from "~/services/shop-approval.server";
 import { formatQuantity, unitLabel, type UnitSystem } from "~/units";
 
 export const meta: Route.MetaFunction = () => [{ title: "Open specs · Tenderflow" }];
@@ -15,8 +16,10 @@ const FILTERS: OpenSpecParam[] = ["q", "region", "deadline", "pressureMin", "pre
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireRole(request, ["shop"]);
   const { query, problems, typed } = readOpenSpecsQuery(new URL(request.url).searchParams);
-  const { specs, total, page, pageCount } = await listOpenSpecsForShop(user, query);
+  // A shop not approved yet lists nothing (the service refuses it too) and reads why instead.
+  const [{ specs, total, page, pageCount }, approval] = await Promise.all([listOpenSpecsForShop(user, query), approvalStateOf(user)]);
   return {
+    approval,
     specs,
     total,
     page,
@@ -69,8 +72,33 @@ function FilterField({
   );
 }
 
+/** What a shop reads on its home while an admin has not approved it. */
+function NotApprovedYet({ approval }: { approval: ApprovalState }) {
+  return (
+    <>
+      <PageHeader title="Open specs" lead="Specs from machine builders that are open for bids." />
+      {approval.approval === "refused" ? (
+        <EmptyState title="Your organisation was not approved to read specs">
+          <p>Machine builders' specs are confidential, so Tenderflow approves each fluid-power shop before it reads them. Your organisation was not approved{approval.decidedAt ? ` on ${formatDay(approval.decidedAt.slice(0, 10))}` : ""}.</p>
+          {approval.reason ? <p className="mt-2">The reason given: “{approval.reason}”</p> : null}
+          <p className="mt-2">If something has changed, contact Tenderflow and an administrator will look at it again.</p>
+        </EmptyState>
+      ) : (
+        <EmptyState title="Your organisation is waiting for approval">
+          <p>
+            Machine builders' specs are confidential, so Tenderflow checks each new fluid-power shop before it reads them. An
+            administrator will look at your organisation shortly; you will get an e-mail as soon as it is decided. Until then no
+            specs are shown here. You can already invite your colleagues from the Team page.
+          </p>
+        </EmptyState>
+      )}
+    </>
+  );
+}
+
 export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
   const [searchParams] = useSearchParams();
+  if (d.approval && d.approval.approval !== "approved") return <NotApprovedYet approval={d.approval} />;
   const pressure = unitLabel("pressure", d.unitSystem);
   const flow = unitLabel("flow", d.unitSystem);
   const problems = Object.values(d.problems);

@@ -1,11 +1,13 @@
 import { z } from "zod";
 import { ORGANISATION_KINDS, ROLES } from "~/auth/roles";
+import { APPROVALS } from "~/content/shop-approval";
 
 /** Search and paging parameters of the admin tables; bad values fall back instead of failing. */
 export const listQuerySchema = z.object({
   q: z.string().trim().max(100).optional().catch(undefined),
   page: z.coerce.number().int().min(1).max(100_000).optional().catch(undefined),
   kind: z.enum(ORGANISATION_KINDS).optional().catch(undefined),
+  approval: z.enum(APPROVALS).optional().catch(undefined),
 });
 
 export const userActionSchema = z.discriminatedUnion("intent", [

@@ -1,5 +1,6 @@
 import { Op, type WhereOptions } from "sequelize";
 import { ROLES_BY_KIND, type OrganisationKind, type Role } from "~/auth/roles";
+import type { Approval } from "~/content/shop-approval";
 import { Organisation, User } from "~/models/index.server";
 import { FieldErrors, notFound } from "./errors.server";
 
@@ -41,12 +42,14 @@ export async function listUsers(query: ListQuery) {
   return { users: rows, total: count, page, pageCount: Math.max(1, Math.ceil(count / PAGE_SIZE)) };
 }
 
-export async function listOrganisations(query: ListQuery & { kind?: OrganisationKind }) {
+export async function listOrganisations(query: ListQuery & { kind?: OrganisationKind; approval?: Approval }) {
   const { page, offset, limit } = pageOf(query);
   const q = query.q?.trim();
   const where: WhereOptions = {
     ...(q ? { name: { [Op.iLike]: likePattern(q) } } : {}),
     ...(query.kind ? { kind: query.kind } : {}),
+    // Only shops have an approval, so this filter lists shops.
+    ...(query.approval ? { approval: query.approval } : {}),
   };
   const { rows, count } = await Organisation.findAndCountAll({
     where,

@@ -7,6 +7,7 @@ import { bidTotals, parseMoney } from "./bid-pricing";
 import { compareBids, type ComparisonSort } from "./bid-comparison";
 import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
+import { requireApprovedShop } from "./spec-access.server";
 import { env } from "~/env.server";
 import { formatDay } from "~/content/dates";
 
@@ -77,6 +78,8 @@ function priceLines(bom: BomLine[], input: BidInput["lines"]): BidLine[] {
  */
 export async function saveBid(user: User, spec: Spec, input: BidInput): Promise<Bid> {
   const submitting = input.intent === "submit";
+  // The route read the spec through specForReader; checked here too, as this writes.
+  await requireApprovedShop(user);
   const bid = await sequelize.transaction(async (transaction) => {
     const locked = await lockOpenSpec(spec.id, transaction);
     const fresh = await Spec.findByPk(spec.id, { transaction, rejectOnEmpty: true });
@@ -135,6 +138,7 @@ export async function saveBid(user: User, spec: Spec, input: BidInput): Promise<
 
 /** Takes a submitted offer back, before the deadline; the shop may offer again later. */
 export async function withdrawBid(user: User, spec: Spec) {
+  await requireApprovedShop(user);
   await sequelize.transaction(async (transaction) => {
     await lockOpenSpec(spec.id, transaction);
     const bid = await Bid.findOne({ where: { specId: spec.id, organisationId: user.organisationId }, lock: transaction.LOCK.UPDATE, transaction });

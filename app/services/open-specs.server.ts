@@ -4,6 +4,7 @@ import { Organisation, Spec, sequelize } from "~/models/index.server";
 import type { User } from "~/models/index.server";
 import { OPEN_SPECS_PAGE_SIZE, type OpenSpecSort, type OpenSpecsQuery } from "~/schemas/open-specs";
 import { UNITS, fromDisplay, type Quantity, type UnitSystem } from "~/units";
+import { shopMayReadSpecs } from "./spec-access.server";
 
 // The table of specs open for bids that shops browse. Everything is filtered, sorted and paged
 // in PostgreSQL: "open, deadline ahead" is served by the partial indexes of migration 0005, the
@@ -72,9 +73,11 @@ export interface OpenSpecRow {
 /**
  * One page of the specs open for bids, as a shop sees them: filtered by the query (pressure and
  * flow bounds in the shop's units), sorted, 25 a page, each row saying whether the shop's own
- * organisation already has a bid. A page past the last shows the last.
+ * organisation already has a bid. A page past the last shows the last. A shop not (yet)
+ * approved to read specs gets no rows.
  */
 export async function listOpenSpecsForShop(user: User, query: OpenSpecsQuery, now = new Date()) {
+  if (!(await shopMayReadSpecs(user))) return { specs: [] as OpenSpecRow[], total: 0, page: 1, pageCount: 1 };
   const where = openSpecsWhere(user, query, now);
   const total = await Spec.count({ where });
   const pageCount = Math.max(1, Math.ceil(total / OPEN_SPECS_PAGE_SIZE));

@@ -8,6 +8,7 @@ import type { SpecStatus } from "~/models/spec.server";
 import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { removeAllAttachments } from "./attachments.server";
+import { shopPeopleToTell } from "./spec-access.server";
 import { env } from "~/env.server";
 
 // Specs of a buyer organisation: drafts saved step by step, then published as revisions.
@@ -131,7 +132,8 @@ export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
       },
       { transaction },
     );
-    const shops = await User.findAll({ where: { role: "shop", active: true }, transaction });
+    // Only shops approved to read specs hear of one.
+    const shops = await shopPeopleToTell(transaction);
     for (const shop of shops) {
       await enqueueMail(
         {
@@ -140,6 +142,7 @@ export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
           text: isRevision
             ? `Hello ${shop.name},\n\nThe machine builder has published revision ${number} of "${locked.title}" with a fresh preliminary circuit. Bids made against an earlier revision are marked as such. Bids until ${quotation.data.bidDeadline}.\n\nRead it: ${env().APP_URL}/specs/${locked.id}\n`
             : `Hello ${shop.name},\n\nA machine builder has published a spec on Tenderflow: "${locked.title}", delivered to ${quotation.data.deliveryRegion}, bids until ${quotation.data.bidDeadline}.\n\nRead it and bid: ${env().APP_URL}/open-specs\n`,
+          priority: "announcement",
         },
         transaction,
       );

@@ -16,6 +16,8 @@ interface DemoOrganisation {
   region: string;
   users: { name: string; email: string; role: "buyer" | "shop" | "account_manager" | "admin" }[];
   managedBy?: string;
+  /** A shop that signed up lately and waits for an admin (the demo's "waiting for approval"). */
+  pending?: boolean;
 }
 
 export const DEMO_ORGANISATIONS: DemoOrganisation[] = [
@@ -62,6 +64,13 @@ export const DEMO_ORGANISATIONS: DemoOrganisation[] = [
     kind: "shop",
     region: "UK — South East",
     users: [{ name: "Ben Achebe", email: "ben@coldharbour-pu.test", role: "shop" }],
+  },
+  {
+    name: "Saltmarsh Hydraulic Works",
+    kind: "shop",
+    region: "UK — East Anglia",
+    pending: true,
+    users: [{ name: "Greta Pohl", email: "greta@saltmarsh-hw.test", role: "shop" }],
   },
 ];
 
@@ -376,10 +385,18 @@ export async function seedDemo(sequelize: Sequelize): Promise<boolean> {
     const userIds = new Map<string, string>();
     const orgIds = new Map<string, string>();
     for (const org of DEMO_ORGANISATIONS) {
+      // Customers of long standing (the scenario's jobs go back months), their shops approved
+      // long ago; a pending shop signed up yesterday.
+      const approval = org.kind !== "shop" ? null : org.pending ? "pending" : "approved";
+      const since = org.pending ? daysAgo(1) : daysAgo(420);
       const [row] = await sequelize.query<{ id: string }>(
-        // Customers of long standing: the scenario's jobs go back months.
-        "INSERT INTO organisations (name, kind, region, created_at, updated_at) VALUES (:name, :kind, :region, :since, :since) RETURNING id",
-        { replacements: { name: org.name, kind: org.kind, region: org.region, since: daysAgo(420) }, transaction, type: QueryTypes.SELECT },
+        `INSERT INTO organisations (name, kind, region, approval, approval_decided_at, created_at, updated_at)
+         VALUES (:name, :kind, :region, :approval, :decidedAt, :since, :since) RETURNING id`,
+        {
+          replacements: { name: org.name, kind: org.kind, region: org.region, approval, decidedAt: approval === "approved" ? daysAgo(419) : null, since },
+          transaction,
+          type: QueryTypes.SELECT,
+        },
       );
       orgIds.set(org.name, row.id);
       for (const user of org.users) {

@@ -260,7 +260,7 @@ describe("200 shops bidding at once", () => {
     const passwordHash = (await User.findOne({ where: { role: "shop" } }))?.passwordHash ?? "x";
     const shops: User[] = [];
     for (let i = 0; i < 200; i++) {
-      const org = await Organisation.create({ name: `Load shop ${i}`, kind: "shop", region: null, accountManagerId: null });
+      const org = await Organisation.create({ name: `Load shop ${i}`, kind: "shop", region: null, accountManagerId: null, approval: "approved" });
       shops.push(await User.create({ organisationId: org.id, email: uniqueEmail(`load${i}`), name: `Shop person ${i}`, passwordHash, role: "shop", lastSignInAt: null }));
     }
     const input = (i: number) => ({

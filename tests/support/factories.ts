@@ -8,14 +8,22 @@ export const PASSWORD = "correct-horse-battery";
 
 export const uniqueEmail = (label = "user") => `${label}-${randomBytes(4).toString("hex")}@example.test`;
 
-export async function makeMember(kind: "buyer" | "shop", overrides: Partial<{ email: string; organisationName: string }> = {}) {
-  return signUp({
+/**
+ * A new organisation and its first user, signed up through the app. A shop signed up waits for
+ * an admin's approval; here it is approved at once unless the test asks for `pending: true`.
+ */
+export async function makeMember(kind: "buyer" | "shop", overrides: Partial<{ email: string; organisationName: string; pending: boolean }> = {}) {
+  const user = await signUp({
     kind,
     organisationName: overrides.organisationName ?? `${kind === "buyer" ? "Builder" : "Shop"} ${randomBytes(3).toString("hex")}`,
     name: `Test ${kind}`,
     email: overrides.email ?? uniqueEmail(kind),
     password: PASSWORD,
   });
+  if (kind === "shop" && !overrides.pending) {
+    await Organisation.update({ approval: "approved", approvalDecidedAt: new Date() }, { where: { id: user.organisationId } });
+  }
+  return user;
 }
 
 /** Operator staff can't sign up; the seed or an admin makes them. */

@@ -1,0 +1,104 @@
+import { env } from "~/env.server";
+import { Organisation, User, sequelize } from "~/models/index.server";
+import type { Approval } from "~/content/shop-approval";
+import { FieldErrors, notFound, requireId } from "./errors.server";
+import { enqueueMail } from "./mail.server";
+
+// An admin approves or refuses each new shop organisation before it reads any spec
+// (spec-access.server.ts applies the decision). The shop's people are mailed either way, in the
+// transaction of the decision. A refused shop can still be approved later (things change); an
+// approved one stays approved.
+
+export interface ApprovalState {
+  approval: Approval;
+  reason: string | null;
+  decidedAt: string | null;
+}
+
+/** Where the user's shop stands, for its home page; null for other kinds of organisation. */
+export async function approvalStateOf(user: User): Promise<ApprovalState | null> {
+  const organisation = await Organisation.findByPk(user.organisationId, { attributes: ["kind", "approval", "approvalReason", "approvalDecidedAt"] });
+  if (!organisation || organisation.kind !== "shop" || !organisation.approval) return null;
+  return {
+    approval: organisation.approval,
+    // The reason is the shop's to read only when it was refused; an approval note stays internal.
+    reason: organisation.approval === "refused" ? organisation.approvalReason : null,
+    decidedAt: organisation.approvalDecidedAt?.toISOString() ?? null,
+  };
+}
+
+export interface WaitingShop {
+  id: string;
+  name: string;
+  signedUpAt: string;
+  people: { name: string; email: string }[];
+  approval: Approval;
+  reason: string | null;
+}
+
+/** Shops waiting for a decision, oldest first, with the people who signed them up. */
+export async function shopsAwaitingApproval(limit = 50): Promise<WaitingShop[]> {
+  const shops = await Organisation.findAll({
+    where: { kind: "shop", approval: "pending" },
+    include: [{ model: User, as: "users", attributes: ["name", "email"], required: false }],
+    order: [["createdAt", "ASC"], ["id", "ASC"]],
+    limit,
+  });
+  return shops.map((o) => ({
+    id: o.id,
+    name: o.name,
+    signedUpAt: o.createdAt.toISOString(),
+    people: ((o as Organisation & { users?: User[] }).users ?? []).map((u) => ({ name: u.name, email: u.email })),
+    approval: o.approval!,
+    reason: o.approvalReason,
+  }));
+}
+
+export type ShopDecision = { decision: "approve" } | { decision: "refuse"; reason: string };
+
+/**
+ * Records an admin's decision on a shop and queues the mail to its people. A pending shop can
+ * be approved or refused; a refused one approved. Anything else changes nothing (a clear
+ * error), so two admins deciding at once cannot both win: the row is locked first.
+ */
+export async function decideShop(admin: User, organisationId: string, choice: ShopDecision): Promise<Organisation> {
+  requireId(organisationId);
+  return sequelize.transaction(async (transaction) => {
+    const shop = await Organisation.findOne({ where: { id: organisationId, kind: "shop" }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!shop) notFound("No such shop.");
+    const approving = choice.decision === "approve";
+    if (approving && shop.approval === "approved") throw new FieldErrors({ "": [`${shop.name} is already approved.`] });
+    if (!approving && shop.approval !== "pending") {
+      throw new FieldErrors({ "": [`${shop.name} is no longer waiting for a decision (it is ${shop.approval}).`] });
+    }
+    const reason = approving ? null : choice.reason.trim();
+    if (!approving && !reason) throw new FieldErrors({ reason: ["Say why the shop is refused; the shop reads it."] });
+    await shop.update(
+      { approval: approving ? "approved" : "refused", approvalReason: reason, approvalDecidedById: admin.id, approvalDecidedAt: new Date() },
+      { transaction },
+    );
+    const people = await User.findAll({ where: { organisationId: shop.id, active: true }, order: [["email", "ASC"]], transaction });
+    for (const person of people) {
+      await enqueueMail(
+        approving
+          ? {
+              to: person.email,
+              subject: `${shop.name} is approved on Tenderflow`,
+              text: `Hello ${person.name},\n\n${shop.name} has been approved as a fluid-power shop on Tenderflow. You can now read the specs machine builders publish, ask them questions and bid.\n\nThe specs open for bids: ${env().APP_URL}/open-specs\n`,
+              priority: "account",
+            }
+          : {
+              to: person.email,
+              subject: `${shop.name} was not approved on Tenderflow`,
+              text: `Hello ${person.name},\n\n${shop.name} has not been approved to read machine builders' specs on Tenderflow.\n\nThe reason given: ${reason}\n\nIf something has changed, contact Tenderflow and an administrator will look at it again. Your account stays open: ${env().APP_URL}/open-specs\n`,
+              priority: "account",
+            },
+        transaction,
+      );
+    }
+    return shop;
+  });
+}
+
+/** How many shops wait for a decision (the admin's organisations page shows it). */
+export const countWaitingShops = () => Organisation.count({ where: { kind: "shop", approval: "pending" } });

@@ -5,6 +5,7 @@ export default [
   route("quick-sizing", "routes/quick-sizing.tsx"),
   route("sign-in", "routes/sign-in.tsx"),
   route("sign-up", "routes/sign-up.tsx"),
+  route("sign-up/:token", "routes/sign-up-confirm.tsx"),
   route("sign-out", "routes/sign-out.tsx"),
   route("forgot-password", "routes/forgot-password.tsx"),
   route("reset-password/:token", "routes/reset-password.tsx"),

@@ -9,9 +9,10 @@ import type { User } from "~/models/index.server";
 export const authenticator = new Authenticator<User>();
 
 authenticator.use(
-  new FormStrategy(async ({ form }) => {
+  new FormStrategy(async ({ form, request }) => {
     const { email, password } = signInSchema.parse(Object.fromEntries(form));
-    return verifyCredentials(email, password);
+    // Throttled per account and per client; a blocked attempt throws Throttled.
+    return verifyCredentials(request, email, password);
   }),
   "form",
 );

@@ -2,7 +2,7 @@ import { redirect } from "react-router";
 import { Organisation, User } from "~/models/index.server";
 import { forbidden, notFound } from "~/services/errors.server";
 import { HOME_BY_ROLE, type Role } from "./roles";
-import { getSessionUserId, signOutRedirect } from "./session.server";
+import { getSessionUserId, hasSessionCookie, signOutRedirect } from "./session.server";
 
 export type SignedInUser = User & { organisation: Organisation };
 
@@ -12,6 +12,10 @@ export function safeRedirect(to: FormDataEntryValue | string | null | undefined,
   return to;
 }
 
+/**
+ * The one place a request becomes a user: the session row must be live (not signed out,
+ * revoked, idle too long or too old, see session.server.ts) and its user active.
+ */
 export async function getOptionalUser(request: Request): Promise<SignedInUser | null> {
   const userId = await getSessionUserId(request);
   if (!userId) return null;
@@ -26,8 +30,8 @@ export async function requireUser(request: Request): Promise<SignedInUser> {
   const url = new URL(request.url);
   const back = `${url.pathname}${url.search}`;
   const to = `/sign-in?redirectTo=${encodeURIComponent(back)}`;
-  // A session naming a deactivated or deleted user is dropped, not kept.
-  if (await getSessionUserId(request)) throw await signOutRedirect(request, to);
+  // An ended session, or one naming a deactivated or deleted user, is dropped, not kept.
+  if (await hasSessionCookie(request)) throw await signOutRedirect(request, to);
   throw redirect(to);
 }
 

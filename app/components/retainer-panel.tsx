@@ -1,3 +1,4 @@
+import { useEffect, useState } from "react";
 import { Form, useFetcher, useSearchParams } from "react-router";
 import { Badge, Button, Card, Notice } from "./ui";
 import { FieldErrors as FieldErrorText } from "./form-field";
@@ -85,6 +86,11 @@ function RefundForm({ payment }: { payment: PaymentView }) {
   const fetcher = useFetcher<{ result?: { error?: Record<string, string[] | null> } }>();
   const errors = fetcher.data?.result?.error ?? {};
   const id = `refund-${payment.id}`;
+  // The password field starts empty again after every answer, right or wrong.
+  const [round, setRound] = useState(0);
+  useEffect(() => {
+    if (fetcher.state === "idle") setRound((r) => r + 1);
+  }, [fetcher.state]);
   return (
     <fetcher.Form method="post" action={`/payments/${payment.id}/refund`} className="mt-3 space-y-2 border-t border-ink-200 pt-3">
       <p className="font-semibold">Pay back</p>
@@ -97,6 +103,12 @@ function RefundForm({ payment }: { payment: PaymentView }) {
         <label htmlFor={`${id}-reason`} className="block text-xs font-semibold">Reason</label>
         <input id={`${id}-reason`} name="reason" className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200" aria-invalid={errors.reason ? true : undefined} />
         <FieldErrorText id={`${id}-reason-error`} errors={errors.reason ?? undefined} />
+      </div>
+      <div>
+        <label htmlFor={`${id}-password`} className="block text-xs font-semibold">Your password</label>
+        <input key={round} id={`${id}-password`} name="currentPassword" type="password" autoComplete="current-password" className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200" aria-invalid={errors.currentPassword ? true : undefined} aria-describedby={`${id}-password-hint`} />
+        <p id={`${id}-password-hint`} className="mt-1 text-xs text-ink-600">Asked again before any money moves.</p>
+        <FieldErrorText id={`${id}-password-error`} errors={errors.currentPassword ?? undefined} />
       </div>
       <Button type="submit" tone="secondary" disabled={fetcher.state !== "idle"}>Pay back</Button>
     </fetcher.Form>

@@ -1,14 +1,25 @@
 import { parseWithZod } from "@conform-to/zod/v4";
 import { formatDay } from "~/content/dates";
-import { Form, data, useSearchParams } from "react-router";
+import { Form, Link, data, useSearchParams } from "react-router";
 import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
-import { ROLES_BY_KIND, ROLE_LABELS } from "~/auth/roles";
+import { ROLES_BY_KIND, ROLE_LABELS, type Role } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { FieldErrors as FieldErrorText } from "~/components/form-field";
 import { listQuerySchema, userActionSchema } from "~/schemas/admin";
-import { changeRole, listUsers, setActive } from "~/services/admin.server";
+import { confirmOwnPassword } from "~/services/accounts.server";
+import { changeRole, listUsers, roleChangeTarget, setActive } from "~/services/admin.server";
 import { FieldErrors } from "~/services/errors.server";
+import { Throttled } from "~/services/throttle.server";
+
+interface RoleConfirmation {
+  userId: string;
+  name: string;
+  role: Role;
+  passwordErrors?: string[];
+}
+type ActionData = { error?: string; confirm?: RoleConfirmation };
 
 export const meta: Route.MetaFunction = () => [{ title: "Users · Tenderflow" }];
 
@@ -37,11 +48,25 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   const admin = await requireRole(request, ["admin"]);
   const submission = parseWithZod(await request.formData(), { schema: userActionSchema });
-  if (submission.status !== "success") return data({ error: "That change was not understood." }, { status: 400 });
+  if (submission.status !== "success") return data<ActionData>({ error: "That change was not understood." }, { status: 400 });
   const back = new URL(request.url);
   try {
     const change = submission.value;
     if (change.intent === "change-role") {
+      // A role is changed only after the admin types their own password on a second step.
+      const target = await roleChangeTarget(admin, change.userId, change.role);
+      const confirm: RoleConfirmation = { userId: target.id, name: target.name, role: change.role };
+      if (!change.confirm) return data<ActionData>({ confirm }, { status: 400 });
+      if (!change.currentPassword) return data<ActionData>({ confirm: { ...confirm, passwordErrors: ["Enter your password to confirm."] } }, { status: 400 });
+      try {
+        await confirmOwnPassword(request, admin, change.currentPassword);
+      } catch (error) {
+        if (error instanceof Throttled) {
+          return data<ActionData>({ confirm: { ...confirm, passwordErrors: [error.message] } }, { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });
+        }
+        if (!(error instanceof FieldErrors)) throw error;
+        return data<ActionData>({ confirm: { ...confirm, passwordErrors: error.fieldErrors.currentPassword } }, { status: 400 });
+      }
       const user = await changeRole(admin, change.userId, change.role);
       return redirectWithToast(request, `${back.pathname}${back.search}`, `${user.name} is now ${ROLE_LABELS[user.role].toLowerCase()}.`);
     }
@@ -53,7 +78,7 @@ export async function action({ request }: Route.ActionArgs) {
     );
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;
-    return data({ error: error.message }, { status: 400 });
+    return data<ActionData>({ error: error.message }, { status: 400 });
   }
 }
 
@@ -67,6 +92,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
           <Notice tone="bad">{actionData.error}</Notice>
         </div>
       ) : null}
+      {actionData?.confirm ? <ConfirmRoleChange confirm={actionData.confirm} /> : null}
       <Card>
         <SearchBar label="Search users" placeholder="Name, e-mail or organisation" value={searchParams.get("q") ?? ""} />
         <div className="overflow-x-auto">
@@ -141,5 +167,46 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
         <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>
     </>
+  );
+}
+
+/** The second step of a role change: the admin's own password, so a stolen session can't promote anyone. */
+function ConfirmRoleChange({ confirm }: { confirm: RoleConfirmation }) {
+  const [searchParams] = useSearchParams();
+  const errorId = "confirm-role-password-error";
+  return (
+    <Card className="mb-4 max-w-xl">
+      <Form method="post" className="space-y-3">
+        <h2 className="font-semibold">
+          Make {confirm.name} {ROLE_LABELS[confirm.role].toLowerCase()}?
+        </h2>
+        <input type="hidden" name="intent" value="change-role" />
+        <input type="hidden" name="userId" value={confirm.userId} />
+        <input type="hidden" name="role" value={confirm.role} />
+        <input type="hidden" name="confirm" value="yes" />
+        <div>
+          <label htmlFor="confirm-role-password" className="block text-sm font-semibold">
+            Your password
+          </label>
+          <input
+            id="confirm-role-password"
+            name="currentPassword"
+            type="password"
+            autoComplete="current-password"
+            autoFocus
+            className="mt-1 w-full rounded-md px-3 py-2 ring-1 ring-ink-200"
+            aria-invalid={confirm.passwordErrors ? true : undefined}
+            aria-describedby={confirm.passwordErrors ? errorId : undefined}
+          />
+          <FieldErrorText id={errorId} errors={confirm.passwordErrors} />
+        </div>
+        <div className="flex items-center gap-3">
+          <Button type="submit">Change the role</Button>
+          <Link to={`?${searchParams.toString()}`} className="text-sm text-flow-700 hover:underline">
+            Cancel
+          </Link>
+        </div>
+      </Form>
+    </Card>
   );
 }

@@ -4,10 +4,11 @@ import { Form, Link, data, useNavigation } from "react-router";
 import type { Route } from "./+types/forgot-password";
 import { requireAnonymous } from "~/auth/permissions.server";
 import { AuthCard } from "~/components/auth-card";
-import { TextField } from "~/components/form-field";
+import { FormErrors, TextField } from "~/components/form-field";
 import { Button, Notice } from "~/components/ui";
 import { forgotPasswordSchema } from "~/schemas/account";
 import { requestPasswordReset } from "~/services/accounts.server";
+import { Throttled, throttleMailForm } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Tenderflow" }];
 
@@ -19,6 +20,14 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   const submission = parseWithZod(await request.formData(), { schema: forgotPasswordSchema });
   if (submission.status !== "success") return data({ result: submission.reply(), sent: false }, { status: 400 });
+  try {
+    await throttleMailForm(request);
+  } catch (error) {
+    if (!(error instanceof Throttled)) throw error;
+    const headers = { "Retry-After": String(error.retryAfterS) };
+    return data({ result: submission.reply({ formErrors: [error.message] }), sent: false }, { status: 429, headers });
+  }
+  // Over an address's own limit this answers the same and sends nothing (throttle.server.ts).
   await requestPasswordReset(submission.value.email);
   return { result: submission.reply({ resetForm: true }), sent: true };
 }
@@ -41,6 +50,7 @@ export default function ForgotPassword({ actionData }: Route.ComponentProps) {
         </div>
       ) : null}
       <Form method="post" {...getFormProps(form)} className="space-y-4">
+        <FormErrors id={form.errorId} errors={form.errors} />
         <TextField meta={fields.email} label="E-mail address" type="email" autoComplete="email" />
         <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
           Send the link

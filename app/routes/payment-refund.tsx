@@ -4,23 +4,35 @@ import type { Route } from "./+types/payment-refund";
 import { requireRole } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
 import { formatMoney } from "~/content/currencies";
+import { currentPasswordField } from "~/schemas/account";
 import { refundSchema } from "~/schemas/payments";
+import { confirmOwnPassword } from "~/services/accounts.server";
 import { FieldErrors } from "~/services/errors.server";
+import { Throttled } from "~/services/throttle.server";
 import { requestRefund } from "~/services/payments.server";
 import { Payment } from "~/models/index.server";
 
-// An account manager (or admin) pays back part or all of a retainer, from the job page.
+const schema = refundSchema.extend({ currentPassword: currentPasswordField });
+
+// An account manager (or admin) pays back part or all of a retainer, from the job page, after
+// typing their password again: a stolen session alone moves no money.
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requireRole(request, ["account_manager", "admin"]);
-  const submission = parseWithZod(await request.formData(), { schema: refundSchema });
-  if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
+  const submission = parseWithZod(await request.formData(), { schema });
+  const hideFields = ["currentPassword"];
+  if (submission.status !== "success") return data({ result: submission.reply({ hideFields }) }, { status: 400 });
   try {
+    await confirmOwnPassword(request, user, submission.value.currentPassword);
     const refund = await requestRefund(user, params.paymentId, { amountCents: submission.value.amount, reason: submission.value.reason });
     const payment = await Payment.findByPk(refund.paymentId, { rejectOnEmpty: true });
     return redirectWithToast(request, `/jobs/${payment.jobId}`, `Refund of ${formatMoney(refund.amountCents, payment.currency)} sent to the card service; it is recorded here once they confirm it.`);
   } catch (error) {
+    if (error instanceof Throttled) {
+      const result = submission.reply({ fieldErrors: { currentPassword: [error.message] }, hideFields });
+      return data({ result }, { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });
+    }
     if (!(error instanceof FieldErrors)) throw error;
-    return data({ result: submission.reply({ fieldErrors: error.fieldErrors }) }, { status: 400 });
+    return data({ result: submission.reply({ fieldErrors: error.fieldErrors, hideFields }) }, { status: 400 });
   }
 }
 

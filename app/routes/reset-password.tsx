@@ -10,6 +10,7 @@ import { Button, Notice } from "~/components/ui";
 import { resetPasswordSchema } from "~/schemas/account";
 import { findUsableReset, resetPassword } from "~/services/accounts.server";
 import { FieldErrors } from "~/services/errors.server";
+import { clearSignInThrottle } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Tenderflow" }];
 
@@ -21,7 +22,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   const submission = parseWithZod(await request.formData(), { schema: resetPasswordSchema });
   if (submission.status !== "success") return data(submission.reply({ hideFields: ["password", "confirm"] }), { status: 400 });
   try {
+    // Every other session of the account ends; this browser starts a new one.
     const user = await resetPassword(params.token, submission.value.password);
+    await clearSignInThrottle(request, user.email);
     return signInRedirect(request, user.id, HOME_BY_ROLE[user.role]);
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;

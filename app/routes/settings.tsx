@@ -3,9 +3,10 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { Form, data } from "react-router";
 import type { Route } from "./+types/settings";
 import { requireUser } from "~/auth/permissions.server";
-import { redirectWithToast } from "~/auth/session.server";
+import { liveSessionsOf, redirectWithToast, signOutEverywhere, signOutRedirect } from "~/auth/session.server";
 import { FieldErrors, TextField } from "~/components/form-field";
 import { Button, Card, PageHeader } from "~/components/ui";
+import { formatMoment } from "~/content/dates";
 import { settingsSchema } from "~/schemas/account";
 import { updateSettings } from "~/services/accounts.server";
 import { UNIT_SYSTEMS, UNIT_SYSTEM_LABELS } from "~/units";
@@ -14,12 +15,18 @@ export const meta: Route.MetaFunction = () => [{ title: "Your settings · Tender
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  return { name: user.name, email: user.email, unitSystem: user.unitSystem };
+  const sessions = await liveSessionsOf(request, user.id);
+  return { name: user.name, email: user.email, unitSystem: user.unitSystem, sessions };
 }
 
 export async function action({ request }: Route.ActionArgs) {
   const user = await requireUser(request);
-  const submission = parseWithZod(await request.formData(), { schema: settingsSchema });
+  const form = await request.formData();
+  if (form.get("intent") === "sign-out-everywhere") {
+    await signOutEverywhere(user.id);
+    return signOutRedirect(request, "/sign-in", "You are signed out on every browser, this one included.");
+  }
+  const submission = parseWithZod(form, { schema: settingsSchema });
   if (submission.status !== "success") return data(submission.reply(), { status: 400 });
   await updateSettings(user, submission.value);
   return redirectWithToast(request, "/settings", "Settings saved.");
@@ -55,6 +62,38 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
           <Button type="submit">Save settings</Button>
         </Form>
       </Card>
+      <Card className="mt-6 max-w-xl">
+        <h2 className="font-semibold">Where you are signed in</h2>
+        <ul className="mt-3 divide-y divide-ink-100 text-sm">
+          {loaderData.sessions.map((s, i) => (
+            <li key={i} className="py-2">
+              <span className="font-semibold">{describeBrowser(s.userAgent)}</span>
+              {s.current ? <span className="text-ink-600"> (this browser)</span> : null}
+              <span className="block text-ink-600">
+                Signed in {formatMoment(s.createdAt)} · last active {formatMoment(s.lastSeenAt)}
+              </span>
+            </li>
+          ))}
+        </ul>
+        <p className="mt-3 text-sm text-ink-600">
+          Signed in on a computer that isn't yours, or think someone else knows your password? End every session,
+          this one included; then reset your password from the sign-in page.
+        </p>
+        <Form method="post" className="mt-3">
+          <input type="hidden" name="intent" value="sign-out-everywhere" />
+          <Button type="submit" tone="danger">
+            Sign out everywhere
+          </Button>
+        </Form>
+      </Card>
     </>
   );
+}
+
+/** "Firefox on Windows" from a user agent: enough to recognise one's own devices. */
+function describeBrowser(userAgent: string | null) {
+  if (!userAgent) return "Unknown browser";
+  const browser = /Edg\//.test(userAgent) ? "Edge" : /Firefox\//.test(userAgent) ? "Firefox" : /Chrom(e|ium)\//.test(userAgent) ? "Chrome" : /Safari\//.test(userAgent) ? "Safari" : "A browser";
+  const system = /Android/.test(userAgent) ? "Android" : /iPhone|iPad/.test(userAgent) ? "iOS" : /Windows/.test(userAgent) ? "Windows" : /Mac OS X/.test(userAgent) ? "macOS" : /Linux/.test(userAgent) ? "Linux" : null;
+  return system ? `${browser} on ${system}` : browser;
 }

@@ -11,6 +11,7 @@ import { FormErrors, TextField } from "~/components/form-field";
 import { Button } from "~/components/ui";
 import { signInSchema } from "~/schemas/account";
 import { SignInError } from "~/services/accounts.server";
+import { Throttled } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Tenderflow" }];
 
@@ -28,6 +29,10 @@ export async function action({ request }: Route.ActionArgs) {
     const user = await authenticator.authenticate("form", request);
     return signInRedirect(request, user.id, safeRedirect(submission.value.redirectTo, HOME_BY_ROLE[user.role]));
   } catch (error) {
+    if (error instanceof Throttled) {
+      const headers = { "Retry-After": String(error.retryAfterS) };
+      return data(submission.reply({ formErrors: [error.message], hideFields: ["password"] }), { status: 429, headers });
+    }
     if (!(error instanceof SignInError)) throw error;
     return data(submission.reply({ formErrors: [error.message], hideFields: ["password"] }), { status: 400 });
   }

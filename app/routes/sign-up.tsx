@@ -3,14 +3,12 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { Form, Link, data, useNavigation } from "react-router";
 import type { Route } from "./+types/sign-up";
 import { requireAnonymous } from "~/auth/permissions.server";
-import { HOME_BY_ROLE } from "~/auth/roles";
-import { signInRedirect } from "~/auth/session.server";
 import { AuthCard } from "~/components/auth-card";
 import { FieldErrors, FormErrors, TextField } from "~/components/form-field";
-import { Button } from "~/components/ui";
+import { Button, Notice } from "~/components/ui";
 import { signUpSchema } from "~/schemas/account";
-import { signUp } from "~/services/accounts.server";
-import { FieldErrors as FieldErrorsError } from "~/services/errors.server";
+import { requestSignUp } from "~/services/sign-up.server";
+import { Throttled, throttleMailForm } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Create an account · Tenderflow" }];
 
@@ -19,16 +17,20 @@ export async function loader({ request }: Route.LoaderArgs) {
   return null;
 }
 
+// The answer is the same for a new address and one that has an account (sign-up.server.ts):
+// "check your inbox", where the link to finish or a note to the owner waits.
 export async function action({ request }: Route.ActionArgs) {
   const submission = parseWithZod(await request.formData(), { schema: signUpSchema });
-  if (submission.status !== "success") return data(submission.reply({ hideFields: ["password"] }), { status: 400 });
+  if (submission.status !== "success") return data({ result: submission.reply({ hideFields: ["password"] }), sentTo: null }, { status: 400 });
   try {
-    const user = await signUp(submission.value);
-    return signInRedirect(request, user.id, HOME_BY_ROLE[user.role]);
+    await throttleMailForm(request);
   } catch (error) {
-    if (!(error instanceof FieldErrorsError)) throw error;
-    return data(submission.reply({ fieldErrors: error.fieldErrors, hideFields: ["password"] }), { status: 400 });
+    if (!(error instanceof Throttled)) throw error;
+    const result = submission.reply({ formErrors: [error.message], hideFields: ["password"] });
+    return data({ result, sentTo: null }, { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });
   }
+  await requestSignUp(submission.value);
+  return { result: null, sentTo: submission.value.email };
 }
 
 const KINDS = [
@@ -39,12 +41,26 @@ const KINDS = [
 export default function SignUp({ actionData }: Route.ComponentProps) {
   const navigation = useNavigation();
   const [form, fields] = useForm({
-    lastResult: actionData,
+    lastResult: actionData?.result,
     onValidate: ({ formData }) => parseWithZod(formData, { schema: signUpSchema }),
     shouldValidate: "onBlur",
     shouldRevalidate: "onInput",
     defaultValue: { kind: "buyer" },
   });
+  if (actionData?.sentTo) {
+    return (
+      <AuthCard title="Check your inbox" lead={`We sent a message to ${actionData.sentTo}.`}>
+        <Notice tone="good">Open the link in it within 24 hours to finish creating your account. It may take a minute to arrive.</Notice>
+        <p className="mt-4 text-sm text-ink-600">
+          Nothing there? Look in your spam folder, or{" "}
+          <Link to="/sign-up" className="text-flow-700 hover:underline">
+            sign up again
+          </Link>
+          .
+        </p>
+      </AuthCard>
+    );
+  }
   return (
     <AuthCard title="Create an account" lead="It takes a minute. Your colleagues can join later.">
       <Form method="post" {...getFormProps(form)} className="space-y-5">

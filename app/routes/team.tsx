@@ -6,11 +6,12 @@ import type { Route } from "./+types/team";
 import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS, TEAM_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { SelectField, TextField } from "~/components/form-field";
+import { FormErrors, SelectField, TextField } from "~/components/form-field";
 import { Badge, Button, Card, PageHeader } from "~/components/ui";
 import { inviteSchema } from "~/schemas/account";
 import { inviteColleague, teamOf } from "~/services/accounts.server";
 import { FieldErrors } from "~/services/errors.server";
+import { Throttled } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Team · Tenderflow" }];
 
@@ -32,10 +33,14 @@ export async function action({ request }: Route.ActionArgs) {
   try {
     await inviteColleague(user, submission.value.email, submission.value.role);
   } catch (error) {
+    if (error instanceof Throttled) {
+      return data(submission.reply({ formErrors: [error.message] }), { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });
+    }
     if (!(error instanceof FieldErrors)) throw error;
     return data(submission.reply({ fieldErrors: error.fieldErrors }), { status: 400 });
   }
   // The invitation is queued in the outbox; the mail worker sends it (never this request).
+  // The same words whether or not the address has an account elsewhere (accounts.server.ts).
   return redirectWithToast(request, "/team", `Invitation sent to ${submission.value.email}.`);
 }
 
@@ -100,6 +105,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
           <h2 className="mb-1 font-semibold">Invite a colleague</h2>
           <p className="mb-4 text-sm text-ink-600">They get an e-mail with a link to choose their password and join {loaderData.organisationName}.</p>
           <Form method="post" {...getFormProps(form)} className="space-y-4">
+            <FormErrors id={form.errorId} errors={form.errors} />
             <TextField meta={fields.email} label="Their e-mail address" type="email" hint="For example: j.okafor@yourcompany.com" />
             {invitableRoles.length > 1 ? (
               <SelectField

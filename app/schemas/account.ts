@@ -21,6 +21,12 @@ export const newPasswordField = z
   .min(10, "Use at least 10 characters.")
   .max(72, "Use at most 72 characters."); // bcrypt reads only the first 72 bytes
 
+/** The signed-in person's own password, asked again before a refund or a role change. */
+export const currentPasswordField = z
+  .string({ error: "Enter your password to confirm." })
+  .min(1, "Enter your password to confirm.")
+  .max(200, "That is not your password.");
+
 export const signInSchema = z.object({
   email: emailField,
   password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200),

@@ -11,7 +11,14 @@ export const listQuerySchema = z.object({
 });
 
 export const userActionSchema = z.discriminatedUnion("intent", [
-  z.object({ intent: z.literal("change-role"), userId: z.uuid(), role: z.enum(ROLES) }),
+  // The admin's own password is asked for on a second step (`confirm` set), see admin.users.tsx.
+  z.object({
+    intent: z.literal("change-role"),
+    userId: z.uuid(),
+    role: z.enum(ROLES),
+    confirm: z.literal("yes").optional(),
+    currentPassword: z.string().max(200).optional(),
+  }),
   z.object({ intent: z.literal("set-active"), userId: z.uuid(), active: z.enum(["true", "false"]).transform((v) => v === "true") }),
 ]);
 

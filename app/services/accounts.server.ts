@@ -1,15 +1,16 @@
 import bcrypt from "bcryptjs";
-import { Op, UniqueConstraintError } from "sequelize";
+import { Op, UniqueConstraintError, type Transaction } from "sequelize";
 import { env } from "~/env.server";
 import { ROLES_BY_KIND, type Role } from "~/auth/roles";
-import { Invitation, Organisation, PasswordReset, User, sequelize } from "~/models/index.server";
+import { Invitation, Organisation, PasswordReset, User, UserSession, sequelize } from "~/models/index.server";
 import { FieldErrors, notFound, forbidden } from "./errors.server";
 import { enqueueMail } from "./mail.server";
+import { throttleInvitations, mayMail, throttledPasswordCheck } from "./throttle.server";
 import { hashToken, newToken } from "./tokens.server";
 
 const RESET_LINK_HOURS = 1;
 const INVITATION_DAYS = 7;
-const DUPLICATE_EMAIL = "An account with this e-mail address already exists. Sign in, or reset your password.";
+export const DUPLICATE_EMAIL = "An account with this e-mail address already exists. Sign in, or reset your password.";
 
 export const hashPassword = (password: string) => bcrypt.hash(password, env().BCRYPT_COST);
 
@@ -25,13 +26,29 @@ export class SignInError extends Error {
   }
 }
 
-export async function verifyCredentials(email: string, password: string): Promise<User> {
-  const user = await User.findOne({ where: { email: email.toLowerCase() } });
-  const ok = await bcrypt.compare(password, user?.passwordHash ?? dummy());
-  if (!user || !ok) throw new SignInError("invalid");
+/** Checks a sign-in under the brute-force throttles (throttle.server.ts), which may throw Throttled. */
+export async function verifyCredentials(request: Request, email: string, password: string): Promise<User> {
+  const address = email.toLowerCase();
+  const user = await throttledPasswordCheck(request, address, async () => {
+    const found = await User.findOne({ where: { email: address } });
+    const ok = await bcrypt.compare(password, found?.passwordHash ?? dummy());
+    return found && ok ? found : null;
+  });
+  if (!user) throw new SignInError("invalid");
   if (!user.active) throw new SignInError("deactivated");
   await user.update({ lastSignInAt: new Date() });
   return user;
+}
+
+export const WRONG_OWN_PASSWORD = "That is not your password.";
+
+/**
+ * The signed-in person types their password again before a change that matters (a refund, a
+ * role): a stolen session alone can't make it. Wrong guesses count like wrong sign-ins.
+ */
+export async function confirmOwnPassword(request: Request, user: User, password: string): Promise<void> {
+  const ok = await throttledPasswordCheck(request, user.email, async () => ((await bcrypt.compare(password, user.passwordHash)) ? true : null));
+  if (!ok) throw new FieldErrors({ currentPassword: [WRONG_OWN_PASSWORD] });
 }
 
 export interface SignUpInput {
@@ -42,27 +59,28 @@ export interface SignUpInput {
   password: string;
 }
 
-/** Creates the organisation and its first user together, or neither. */
+export type NewAccount = Omit<SignUpInput, "password"> & { passwordHash: string };
+
+/** The organisation and its first user, inside the caller's transaction. */
+export async function createAccount(input: NewAccount, transaction: Transaction): Promise<User> {
+  const organisation = await Organisation.create(
+    { name: input.organisationName, kind: input.kind, region: null, accountManagerId: null },
+    { transaction },
+  );
+  return User.create(
+    { organisationId: organisation.id, email: input.email, name: input.name, passwordHash: input.passwordHash, role: input.kind, lastSignInAt: new Date() },
+    { transaction },
+  );
+}
+
+/**
+ * Creates the organisation and its first user together, or neither, at once. The sign-up page
+ * goes through a confirmed address instead (sign-up.server.ts); this serves tests and scripts.
+ */
 export async function signUp(input: SignUpInput): Promise<User> {
   const passwordHash = await hashPassword(input.password);
   try {
-    return await sequelize.transaction(async (transaction) => {
-      const organisation = await Organisation.create(
-        { name: input.organisationName, kind: input.kind, region: null, accountManagerId: null },
-        { transaction },
-      );
-      return User.create(
-        {
-          organisationId: organisation.id,
-          email: input.email,
-          name: input.name,
-          passwordHash,
-          role: input.kind,
-          lastSignInAt: new Date(),
-        },
-        { transaction },
-      );
-    });
+    return await sequelize.transaction((transaction) => createAccount({ ...input, passwordHash }, transaction));
   } catch (error) {
     if (error instanceof UniqueConstraintError) throw new FieldErrors({ email: [DUPLICATE_EMAIL] });
     throw error;
@@ -71,6 +89,8 @@ export async function signUp(input: SignUpInput): Promise<User> {
 
 /** Always behaves the same whether or not the address is known, so it reveals no accounts. */
 export async function requestPasswordReset(email: string): Promise<void> {
+  // Counted for every address, known or not; over the limit nothing more is sent.
+  if (!(await mayMail("password-reset", email))) return;
   const user = await User.findOne({ where: { email, active: true } });
   if (!user) return;
   const { token, tokenHash } = newToken();
@@ -114,6 +134,8 @@ export async function resetPassword(token: string, password: string): Promise<Us
     const user = await User.findByPk(rows[0].userId, { transaction, rejectOnEmpty: true });
     if (!user.active) throw new FieldErrors({ token: ["This account has been deactivated."] });
     await user.update({ passwordHash }, { transaction });
+    // Whoever knew the old password is signed out wherever they were.
+    await UserSession.revokeAllOf(user.id, transaction);
     return user;
   });
 }
@@ -126,9 +148,11 @@ export async function inviteColleague(actor: User, email: string, requestedRole?
   if (!allowed.includes(role)) throw new FieldErrors({ role: ["That role does not belong to this organisation."] });
   // Only an admin may bring account managers and admins in.
   if (organisation.kind === "operator" && actor.role !== "admin") forbidden();
-  if (await User.findOne({ where: { email } })) {
-    throw new FieldErrors({ email: ["This person already has a Tenderflow account."] });
-  }
+  const owner = await User.findOne({ where: { email } });
+  // Members are on the team page already, so saying so reveals nothing.
+  if (owner?.organisationId === organisation.id) throw new FieldErrors({ email: ["This person is already in your team."] });
+  await throttleInvitations(actor.id);
+  const notifyOwner = owner ? await mayMail("account-notice", email) : false;
   const { token, tokenHash } = newToken();
   return sequelize.transaction(async (transaction) => {
     const invitation = await Invitation.create(
@@ -144,6 +168,12 @@ export async function inviteColleague(actor: User, email: string, requestedRole?
       },
       { transaction },
     );
+    // An address with an account elsewhere: the inviter sees the same pending invitation as for
+    // anyone else, and the owner, not the inviter, learns why it can't be accepted.
+    if (owner) {
+      if (notifyOwner) await enqueueMail(invitationNotice(actor, organisation, email), transaction);
+      return invitation;
+    }
     await enqueueMail(
       {
         to: email,
@@ -155,6 +185,15 @@ export async function inviteColleague(actor: User, email: string, requestedRole?
     );
     return invitation;
   });
+}
+
+function invitationNotice(actor: User, organisation: Organisation, email: string) {
+  return {
+    to: email,
+    subject: `${actor.name} invited you to ${organisation.name} on Tenderflow`,
+    priority: "account" as const,
+    text: `Hello,\n\n${actor.name} invited this address to join ${organisation.name} on Tenderflow. This address already has a Tenderflow account with another organisation, and an address belongs to one organisation only, so the invitation can't be accepted with it.\n\nIf you want to work with ${organisation.name} on Tenderflow, ask ${actor.name} to invite another address of yours. We have not told them that this address has an account; to them the invitation simply waits for an answer.\n\nIf you don't know them, ignore this message. Your account is unchanged.`,
+  };
 }
 
 export async function findOpenInvitation(token: string) {

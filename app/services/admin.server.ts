@@ -1,7 +1,7 @@
 import { Op, type WhereOptions } from "sequelize";
 import { ROLES_BY_KIND, type OrganisationKind, type Role } from "~/auth/roles";
 import type { Approval } from "~/content/shop-approval";
-import { Organisation, User } from "~/models/index.server";
+import { Organisation, User, UserSession, sequelize } from "~/models/index.server";
 import { FieldErrors, notFound } from "./errors.server";
 
 export const PAGE_SIZE = 20;
@@ -77,8 +77,8 @@ async function userWithOrg(userId: string) {
   return user as User & { organisation: Organisation };
 }
 
-/** A role must fit the user's organisation: operator staff switch between manager and admin. */
-export async function changeRole(admin: User, userId: string, role: Role) {
+/** The user whose role would change, if the change is allowed: checked before asking for a password. */
+export async function roleChangeTarget(admin: User, userId: string, role: Role) {
   const user = await userWithOrg(userId);
   if (!ROLES_BY_KIND[user.organisation.kind].includes(role)) {
     throw new FieldErrors({ role: [`A member of a ${user.organisation.kind} organisation cannot have that role.`] });
@@ -86,6 +86,12 @@ export async function changeRole(admin: User, userId: string, role: Role) {
   if (user.id === admin.id && role !== "admin") {
     throw new FieldErrors({ role: ["You cannot take away your own administrator role."] });
   }
+  return user;
+}
+
+/** A role must fit the user's organisation: operator staff switch between manager and admin. */
+export async function changeRole(admin: User, userId: string, role: Role) {
+  const user = await roleChangeTarget(admin, userId, role);
   await user.update({ role });
   return user;
 }
@@ -93,7 +99,11 @@ export async function changeRole(admin: User, userId: string, role: Role) {
 export async function setActive(admin: User, userId: string, active: boolean) {
   const user = await userWithOrg(userId);
   if (user.id === admin.id && !active) throw new FieldErrors({ active: ["You cannot deactivate yourself."] });
-  await user.update({ active });
+  await sequelize.transaction(async (transaction) => {
+    await user.update({ active }, { transaction });
+    // Deactivated means signed out everywhere: reactivating later brings no old session back.
+    if (!active) await UserSession.revokeAllOf(user.id, transaction);
+  });
   return user;
 }
 

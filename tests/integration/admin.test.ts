@@ -45,14 +45,28 @@ describe("admin: users", () => {
     expect((await new Visitor().post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD })).status).toBe(302);
   });
 
-  it("changes an operator's role, but never gives a buyer an operator role", async () => {
+  it("changes an operator's role once the admin types their own password, but never gives a buyer an operator role", async () => {
     const manager = await makeOperatorUser("account_manager");
-    const promote = await visitor.post(adminUsers.action, "/admin/users", { intent: "change-role", userId: manager.id, role: "admin" });
+    const change = { intent: "change-role", userId: manager.id, role: "admin" };
+    const asked = await visitor.post(adminUsers.action, "/admin/users", change);
+    expect(asked.status).toBe(400);
+    expect(asked.data.confirm).toMatchObject({ userId: manager.id, name: manager.name, role: "admin" });
+    expect(asked.data.confirm.passwordErrors).toBeUndefined();
+    const empty = await visitor.post(adminUsers.action, "/admin/users", { ...change, confirm: "yes", currentPassword: "" });
+    expect(empty.status).toBe(400);
+    expect(empty.data.confirm.passwordErrors).toEqual(["Enter your password to confirm."]);
+    const wrong = await visitor.post(adminUsers.action, "/admin/users", { ...change, confirm: "yes", currentPassword: "not-the-password" });
+    expect(wrong.status).toBe(400);
+    expect(wrong.data.confirm.passwordErrors).toEqual(["That is not your password."]);
+    expect((await manager.reload()).role).toBe("account_manager");
+
+    const promote = await visitor.post(adminUsers.action, "/admin/users", { ...change, confirm: "yes", currentPassword: PASSWORD });
     expect(promote.status).toBe(302);
     expect((await manager.reload()).role).toBe("admin");
     const buyer = await makeMember("buyer");
-    const refused = await visitor.post(adminUsers.action, "/admin/users", { intent: "change-role", userId: buyer.id, role: "admin" });
+    const refused = await visitor.post(adminUsers.action, "/admin/users", { intent: "change-role", userId: buyer.id, role: "admin", confirm: "yes", currentPassword: PASSWORD });
     expect(refused.status).toBe(400);
+    expect(refused.data.confirm).toBeUndefined();
     expect((await buyer.reload()).role).toBe("buyer");
   });
 

@@ -1,13 +1,14 @@
 import { describe, expect, it } from "vitest";
 import * as signIn from "~/routes/sign-in";
 import * as signUp from "~/routes/sign-up";
+import * as signUpConfirm from "~/routes/sign-up-confirm";
 import * as signOut from "~/routes/sign-out";
 import * as forgot from "~/routes/forgot-password";
 import * as reset from "~/routes/reset-password";
 import * as specs from "~/routes/specs";
-import { Organisation, User } from "~/models/index.server";
+import { Organisation, SignUpRequest, User } from "~/models/index.server";
 import { deliverDueMail } from "~/services/mail.server";
-import { linkIn, waitForMail } from "../support/mailbox";
+import { linkIn, mailsTo, waitForMail } from "../support/mailbox";
 import { PASSWORD, makeMember, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
 
@@ -19,29 +20,79 @@ const signUpFields = (email: string) => ({
   password: PASSWORD,
 });
 
+/** Follows the link of the sign-up mail to `email` and presses "Create my account". */
+async function finishSignUp(visitor: Visitor, email: string) {
+  await deliverDueMail(100);
+  const link = new URL(linkIn(await waitForMail(email, "Finish creating your Tenderflow account"), "/sign-up/"));
+  const token = link.pathname.split("/").pop()!;
+  const page = await visitor.get(signUpConfirm.loader, link.pathname, { token });
+  return { link, token, page, done: await visitor.post(signUpConfirm.action, link.pathname, {}, { token }) };
+}
+
 describe("sign up", () => {
-  it("creates the organisation and its first user, signs them in and lands on their home", async () => {
+  it("mails a link that creates the organisation and its first user, signs them in and lands on their home", async () => {
     const visitor = new Visitor();
     const email = uniqueEmail("signup");
     const res = await visitor.post(signUp.action, "/sign-up", signUpFields(email.toUpperCase()));
-    expect(res.status).toBe(302);
-    expect(res.location).toBe("/specs");
+    expect(res.status).toBe(200);
+    expect(res.data.sentTo).toBe(email);
+    expect(visitor.signedIn).toBe(false);
+    expect(await User.count({ where: { email } })).toBe(0); // nothing exists until the link is used
+
+    const { link, token, page, done } = await finishSignUp(visitor, email);
+    expect(page.data.pending).toMatchObject({ email, organisationName: "Fenwick Press Tools", kind: "buyer" });
+    expect(done.status).toBe(302);
+    expect(done.location).toBe("/specs");
     expect(visitor.signedIn).toBe(true);
     const user = await User.findOne({ where: { email }, include: [{ model: Organisation, as: "organisation" }] });
     expect(user?.role).toBe("buyer");
     expect(user?.organisation?.kind).toBe("buyer");
     expect(user?.passwordHash).toMatch(/^\$2[aby]\$1\d\$/); // bcrypt, cost >= 10
     expect((await visitor.get(specs.loader, "/specs")).status).toBe(200);
+    // The password chosen on the form is the one that signs in.
+    expect((await new Visitor().post(signIn.action, "/sign-in", { email, password: PASSWORD })).status).toBe(302);
+
+    // The link works once.
+    expect((await new Visitor().get(signUpConfirm.loader, link.pathname, { token })).data.pending).toBeNull();
+    const again = await new Visitor().post(signUpConfirm.action, link.pathname, {}, { token });
+    expect(again.status).toBe(400);
+    expect(await User.count({ where: { email } })).toBe(1);
   });
 
-  it("refuses a duplicate e-mail with a clear message and creates no second organisation", async () => {
-    const email = uniqueEmail("dupe");
+  it("answers an address that has an account exactly as a new one, and mails its owner instead", async () => {
+    const owner = await makeMember("shop");
+    const newcomer = uniqueEmail("fresh");
+    const organisations = await Organisation.count();
+    const known = await new Visitor().post(signUp.action, "/sign-up", { ...signUpFields(owner.email), organisationName: "Another Ltd" });
+    const fresh = await new Visitor().post(signUp.action, "/sign-up", { ...signUpFields(newcomer), organisationName: "Another Ltd" });
+    // The same status, headers and body, but for the address the visitor typed.
+    expect(known.status).toBe(fresh.status);
+    expect(known.setCookie).toBeNull();
+    expect(fresh.setCookie).toBeNull();
+    expect(JSON.stringify(known.data).replaceAll(owner.email, "ADDRESS")).toBe(JSON.stringify(fresh.data).replaceAll(newcomer, "ADDRESS"));
+    expect(await Organisation.count()).toBe(organisations);
+    expect(await SignUpRequest.count({ where: { email: owner.email } })).toBe(0);
+
+    await deliverDueMail(100);
+    const notice = await waitForMail(owner.email, "Someone tried to sign up");
+    expect(notice.text).toContain("/forgot-password");
+    expect(notice.text).not.toMatch(/\/sign-up\//);
+    await waitForMail(newcomer, "Finish creating your Tenderflow account");
+  });
+
+  it("refuses a second link for an address that got its account meanwhile", async () => {
+    const email = uniqueEmail("twice");
     await new Visitor().post(signUp.action, "/sign-up", signUpFields(email));
-    const before = await Organisation.count();
-    const res = await new Visitor().post(signUp.action, "/sign-up", { ...signUpFields(email), organisationName: "Another Ltd" });
-    expect(res.status).toBe(400);
-    expect(res.data.error.email[0]).toMatch(/already exists/);
-    expect(await Organisation.count()).toBe(before);
+    await new Visitor().post(signUp.action, "/sign-up", { ...signUpFields(email), organisationName: "Second Try Ltd" });
+    await deliverDueMail(100);
+    const links = (await mailsTo(email)).map((m) => new URL(linkIn(m, "/sign-up/")));
+    expect(links).toHaveLength(2);
+    const tokens = links.map((l) => l.pathname.split("/").pop()!);
+    expect((await new Visitor().post(signUpConfirm.action, links[0].pathname, {}, { token: tokens[0] })).status).toBe(302);
+    const second = await new Visitor().post(signUpConfirm.action, links[1].pathname, {}, { token: tokens[1] });
+    expect(second.status).toBe(400);
+    expect(second.data.errors[0]).toMatch(/already exists/);
+    expect(await User.count({ where: { email } })).toBe(1);
   });
 
   it.each([
@@ -51,11 +102,11 @@ describe("sign up", () => {
     ["a short password", { ...signUpFields("short@example.test"), password: "short" }, ["password"]],
     ["an unknown kind", { ...signUpFields("kind@example.test"), kind: "admin" }, ["kind"]],
   ])("gives field errors for %s and stores nothing", async (_label, fields, errored) => {
-    const before = await User.count();
+    const before = await SignUpRequest.count();
     const res = await new Visitor().post(signUp.action, "/sign-up", fields as Record<string, string>);
     expect(res.status).toBe(400);
-    expect(Object.keys(res.data.error).sort()).toEqual([...errored].sort());
-    expect(await User.count()).toBe(before);
+    expect(Object.keys(res.data.result.error).sort()).toEqual([...errored].sort());
+    expect(await SignUpRequest.count()).toBe(before);
   });
 });
 

@@ -189,7 +189,17 @@ describe("refunds", () => {
     await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
     await payment.reload();
 
-    const post = (fields: Record<string, string>, visitor = visitors.manager) => visitor.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id });
+    const post = (fields: Record<string, string>, visitor = visitors.manager) =>
+      visitor.post(refund.action, `/payments/${payment.id}/refund`, { currentPassword: PASSWORD, ...fields }, { paymentId: payment.id });
+    // The manager types their own password again; without it, or with a wrong one, nothing moves.
+    const noPassword = await post({ amount: "100.00", reason: "Paint left off the order", currentPassword: "" });
+    expect(noPassword.status).toBe(400);
+    expect(noPassword.data.result.error.currentPassword).toEqual(["Enter your password to confirm."]);
+    const wrongPassword = await post({ amount: "100.00", reason: "Paint left off the order", currentPassword: "not-my-password" });
+    expect(wrongPassword.status).toBe(400);
+    expect(wrongPassword.data.result.error.currentPassword).toEqual(["That is not your password."]);
+    expect(wrongPassword.data.result.initialValue.currentPassword).toBeUndefined();
+    expect(await Refund.count({ where: { paymentId: payment.id } })).toBe(0);
     expect((await post({ amount: "100", reason: "" })).status).toBe(400);
     const zero = await post({ amount: "0", reason: "Nothing really" });
     expect(zero.data.result.error.amount[0]).toMatch(/above zero/);
@@ -266,7 +276,7 @@ describe("who may see and do what", () => {
     expect((await stranger.get(paymentPage.loader, sessionPath, { jobId: job.id })).status).toBe(404);
     expect((await visitors.buyer.get(paymentPage.loader, `/jobs/${job.id}/payment?session_id=cs_test_other`, { jobId: job.id })).status).toBe(404);
 
-    const fields = { amount: "1", reason: "Test" };
+    const fields = { amount: "1", reason: "Test", currentPassword: PASSWORD };
     expect((await visitors.buyer.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id })).status).toBe(403);
     expect((await visitors.shop.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id })).status).toBe(403);
     const otherManager = await signedIn(await makeOperatorUser("account_manager"));

@@ -8,6 +8,7 @@ import { linkIn, waitForMail } from "../support/mailbox";
 import { deliverDueMail } from "~/services/mail.server";
 import { PASSWORD, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { popToast } from "~/auth/session.server";
 
 async function signedIn(user: User) {
   const visitor = new Visitor();
@@ -45,13 +46,37 @@ describe("inviting a colleague", () => {
     expect(twice.status).toBe(400);
   });
 
-  it("refuses an address that already has an account, and a malformed one", async () => {
+  it("answers an address with an account elsewhere as any other, and tells its owner instead of the inviter", async () => {
     const inviter = await makeMember("buyer");
     const existing = await makeMember("shop");
+    const newcomer = uniqueEmail("newcomer");
     const visitor = await signedIn(inviter);
-    const dupe = await visitor.post(team.action, "/team", { email: existing.email });
-    expect(dupe.status).toBe(400);
-    expect(dupe.data.error.email[0]).toMatch(/already has a Tenderflow account/);
+    const known = await visitor.post(team.action, "/team", { email: existing.email });
+    const knownToast = (await popToast(visitor.request("/team"))).toast;
+    const fresh = await visitor.post(team.action, "/team", { email: newcomer });
+    const freshToast = (await popToast(visitor.request("/team"))).toast;
+    expect([known.status, known.location]).toEqual([302, "/team"]);
+    expect([fresh.status, fresh.location]).toEqual([302, "/team"]);
+    expect(knownToast).toBe(`Invitation sent to ${existing.email}.`);
+    expect(freshToast).toBe(`Invitation sent to ${newcomer}.`);
+    // Both wait for an answer on the team page alike.
+    const page = await visitor.get(team.loader, "/team");
+    expect(page.data.invitations.map((i: { email: string }) => i.email).sort()).toEqual([existing.email, newcomer].sort());
+
+    await deliverDueMail(100);
+    const notice = await waitForMail(existing.email, "invited you");
+    expect(notice.text).toMatch(/already has a Tenderflow account with another organisation/);
+    expect(notice.text).not.toMatch(/\/join\//);
+    expect(linkIn(await waitForMail(newcomer, "invited you"), "/join/")).toBeTruthy();
+    expect((await existing.reload()).organisationId).not.toBe(inviter.organisationId);
+  });
+
+  it("says plainly when the person is in the team already, and refuses a malformed address", async () => {
+    const inviter = await makeMember("buyer");
+    const visitor = await signedIn(inviter);
+    const self = await visitor.post(team.action, "/team", { email: inviter.email });
+    expect(self.status).toBe(400);
+    expect(self.data.error.email[0]).toMatch(/already in your team/);
     const bad = await visitor.post(team.action, "/team", { email: "not an address" });
     expect(bad.status).toBe(400);
     expect(bad.data.error.email).toBeDefined();

@@ -35,8 +35,9 @@ export function moneyMismatch(payment: Payment, amount: unknown, currency: unkno
   return null;
 }
 
-/** Marks a payment for a person to check, keeping earlier notes. */
+/** Marks a payment for a person to check, keeping earlier notes (each note once: the reconciler may see the same thing again). */
 export async function flagPayment(transaction: Transaction, payment: Payment, note: string) {
+  if (payment.flag?.includes(note)) return;
   const flag = payment.flag ? `${payment.flag}\n${note}` : note;
   await payment.update({ flag: flag.slice(-2000), flaggedAt: new Date() }, { transaction });
 }

@@ -11,7 +11,7 @@ import { QuestionsPanel } from "~/components/questions-panel";
 import { quotationFacts } from "~/content/quotation-facts";
 import { listAttachments } from "~/services/attachments.server";
 import { questionsFor } from "~/services/questions.server";
-import { specForReader } from "~/services/spec-access.server";
+import { buyerNameFor, specForReader } from "~/services/spec-access.server";
 import { revisionsOf } from "~/services/specs.server";
 import { bidOfShop, offerCounts } from "~/services/bids.server";
 import { BidPanel } from "~/components/bid-panel";
@@ -53,6 +53,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     title: spec.title,
     status: shownSpecStatus(spec.status as SpecStatus, spec.bidDeadline),
     isOwner: spec.organisationId === user.organisationId,
+    // Named by the same rule as the bill workbook: never to a shop.
+    buyerName: await buyerNameFor(user, spec),
     bidDeadline: spec.bidDeadline?.toISOString() ?? null,
     deliveryRegion: spec.deliveryRegion,
     retainerPercent: spec.retainerPercent,
@@ -81,6 +83,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
         lead={
           <span className="flex flex-wrap items-center gap-x-4 gap-y-1">
             <Badge tone={SPEC_STATUS_TONES[d.status]}>{SPEC_STATUS_LABELS[d.status]}</Badge>
+            {d.buyerName && !d.isOwner ? <span>For {d.buyerName}</span> : null}
             {d.revision ? <span>Revision {d.revision.number}, sizing engine {d.revision.engineVersion}</span> : null}
             {d.bidDeadline ? <span>Bids until {formatDay(d.bidDeadline.slice(0, 10))}</span> : null}
             {d.deliveryRegion ? <span>Delivered to {d.deliveryRegion}</span> : null}

@@ -67,3 +67,15 @@ export async function specForReader(user: User, specId: string | undefined): Pro
   }
   notFound("No such spec.");
 }
+
+/**
+ * The buyer's company as a reader of its spec may see it, for the spec page and every document
+ * made from the spec alike: the buyer's own people and operator staff read the name; a shop
+ * never does (buyers' machines are confidential, and the chosen shop meets its buyer on the
+ * job, after the award). Null means "do not name the buyer".
+ */
+export async function buyerNameFor(reader: User, spec: Pick<Spec, "organisationId">): Promise<string | null> {
+  const insider = reader.organisationId === spec.organisationId || reader.role === "admin" || reader.role === "account_manager";
+  if (!insider) return null;
+  return (await Organisation.findByPk(spec.organisationId, { attributes: ["name"] }))?.name ?? null;
+}

@@ -15,6 +15,7 @@ import * as bidsRoute from "~/routes/spec-bids";
 import * as billXlsx from "~/routes/spec-bill.xlsx";
 import * as bidsXlsx from "~/routes/spec-bids.xlsx";
 import * as pricedXlsx from "~/routes/job-priced-bill.xlsx";
+import * as specPage from "~/routes/spec";
 import { CIRCUIT_CAUTIONS } from "~/content/cautions";
 import { formatMoney } from "~/content/currencies";
 import { ENGINE_VERSION, type BomLine, type Design } from "~/hydraulics";
@@ -263,6 +264,51 @@ describe("bill of materials", () => {
     expect(bom.map((l) => l.key)).not.toContain("counterbalance-valve");
     for (const query of ["?revision=7", "?revision=abc", "?revision=0"]) {
       expect((await visitors.buyer.get(billXlsx.loader, `/specs/${spec.id}/bill.xlsx${query}`, { specId: spec.id })).status).toBe(404);
+    }
+  });
+});
+
+/** Every piece of text a workbook carries: properties, sheet names, headers, each cell's value, formula, result and note. */
+function everyText(workbook: ExcelJS.Workbook): string[] {
+  const texts: string[] = [];
+  const { title, subject, creator, lastModifiedBy, company, manager, description, keywords, category } = workbook;
+  texts.push(...[title, subject, creator, lastModifiedBy, company, manager, description, keywords, category].map((t) => String(t ?? "")));
+  for (const sheet of workbook.worksheets) {
+    texts.push(sheet.name, JSON.stringify(sheet.headerFooter ?? {}));
+    sheet.eachRow({ includeEmpty: true }, (row) => {
+      row.eachCell({ includeEmpty: true }, (cell) => {
+        texts.push(cell.text, JSON.stringify(cell.value ?? null), JSON.stringify(cell.note ?? null));
+      });
+    });
+  }
+  return texts;
+}
+
+describe("the buyer's name", () => {
+  const BUYER = /northgate\s*presses/i;
+
+  it("is nowhere in a shop's bill of materials, whichever revision, as on the shop's spec page", async () => {
+    for (const who of ["winner", "loser", "bystander"] as const) {
+      for (const query of ["", "?revision=1"]) {
+        const { workbook } = await billOf(who, query);
+        const texts = everyText(workbook);
+        expect(texts.length).toBeGreaterThan(200);
+        expect(texts.filter((t) => BUYER.test(t))).toEqual([]);
+        expect(factsOf(workbook.getWorksheet("Bill of materials")!)["Machine builder"]).toBe("Not named to shops before the award");
+      }
+      const page = await visitors[who].get(specPage.loader, `/specs/${spec.id}`, { specId: spec.id });
+      expect(page.status).toBe(200);
+      expect(page.data.buyerName).toBeNull();
+      expect(JSON.stringify(page.data)).not.toMatch(BUYER);
+    }
+  });
+
+  it("is in the bill for the buyer's own people and operator staff, as on their spec page", async () => {
+    for (const who of ["buyer", "manager", "admin"] as const) {
+      const { workbook } = await billOf(who);
+      expect(factsOf(workbook.getWorksheet("Bill of materials")!)["Machine builder"]).toBe("Northgate Presses Ltd");
+      const page = await visitors[who].get(specPage.loader, `/specs/${spec.id}`, { specId: spec.id });
+      expect(page.data.buyerName).toBe("Northgate Presses Ltd");
     }
   });
 });

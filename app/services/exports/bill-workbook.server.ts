@@ -29,7 +29,8 @@ export interface BillInput {
   revision: number;
   publishedAt: Date;
   engineVersion: string;
-  buyerName: string;
+  /** Null when the reader is a shop: the buyer is not named to shops (buyerNameFor). */
+  buyerName: string | null;
   design: Design;
   /** The step answers frozen into the revision, as typed, in `enteredIn` units. */
   answers: SpecAnswers;
@@ -67,7 +68,7 @@ export function billFacts(input: BillInput): [string, string][] {
   return [
     ["Revision", `${input.revision}, published ${headerDay(input.publishedAt)}`],
     ["Sizing engine", `version ${input.engineVersion}`],
-    ["Machine builder", input.buyerName],
+    ["Machine builder", input.buyerName ?? "Not named to shops before the award"],
     ["Exported", headerDay(input.exportedAt)],
   ];
 }

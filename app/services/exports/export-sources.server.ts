@@ -6,7 +6,7 @@ import { COMPARISON_SORTS, type ComparisonSort } from "../bid-comparison";
 import { comparisonOf } from "../bids.server";
 import { notFound } from "../errors.server";
 import { scopedJob } from "../jobs.server";
-import { specForReader, specOfOwner } from "../spec-access.server";
+import { buyerNameFor, specForReader, specOfOwner } from "../spec-access.server";
 import { revisionsOf } from "../specs.server";
 import type { BillInput } from "./bill-workbook.server";
 import type { ComparisonInput } from "./comparison-workbook.server";
@@ -14,8 +14,9 @@ import type { PricedBillInput } from "./priced-bill-workbook.server";
 
 // What each workbook shows, read for the acting user through the same rules as the pages:
 // - the bill of materials: whoever may read the published spec (specForReader): its buyer, any
-//   shop (every shop may read an open spec and needs the bill to prepare a bid, not only shops
-//   that already bid), the account's account manager, admins;
+//   approved shop (every such shop may read an open spec and needs the bill to prepare a bid,
+//   not only shops that already bid), the account's account manager, admins; it names the
+//   buyer only to whom the spec page would (buyerNameFor), never to a shop;
 // - the priced bill: whoever may read the job the award opened (scopedJob): the buyer, the
 //   winning shop, the account's account manager, admins;
 // - the comparison: the spec's own buyer only (the route lets only buyers in).
@@ -40,7 +41,7 @@ export async function billSource(user: User, specId: string | undefined, revisio
     revision: revision.number,
     publishedAt: revision.createdAt,
     engineVersion: revision.engineVersion,
-    buyerName: await organisationName(spec.organisationId),
+    buyerName: await buyerNameFor(user, spec),
     design,
     answers: revision.answers,
     enteredIn: revision.unitSystem,

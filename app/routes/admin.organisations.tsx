@@ -11,23 +11,25 @@ import { assignManagerSchema, listQuerySchema } from "~/schemas/admin";
 import { shopDecisionSchema } from "~/schemas/shop-approval";
 import { assignAccountManager, listAccountManagers, listOrganisations } from "~/services/admin.server";
 import { FieldErrors } from "~/services/errors.server";
-import { decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
+import { countWaitingShops, decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Organisations · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   await requireRole(request, ["admin"]);
   const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
-  const [{ organisations, total, page, pageCount }, managers, waiting] = await Promise.all([
+  const [{ organisations, total, page, pageCount }, managers, waiting, waitingTotal] = await Promise.all([
     listOrganisations(query),
     listAccountManagers(),
     shopsAwaitingApproval(),
+    countWaitingShops(),
   ]);
   return {
     total,
     page,
     pageCount,
     waiting,
+    waitingTotal,
     managers: managers.map((m) => ({ id: m.id, name: m.name })),
     organisations: organisations.map(({ organisation: o, memberCount }) => ({
       id: o.id,
@@ -97,10 +99,13 @@ function ApproveButton({ organisationId, name }: { organisationId: string; name:
 }
 
 /** Shops that signed up and read nothing until an admin decides. */
-function WaitingShops({ waiting, actionData }: { waiting: Route.ComponentProps["loaderData"]["waiting"]; actionData: ActionResult | undefined }) {
+function WaitingShops({ waiting, total, actionData }: { waiting: Route.ComponentProps["loaderData"]["waiting"]; total: number; actionData: ActionResult | undefined }) {
   return (
     <Card className="mb-6">
-      <h2 className="font-semibold">Waiting for approval</h2>
+      <h2 className="font-semibold">
+        Waiting for approval{total > 0 ? ` (${total})` : ""}
+        {total > waiting.length ? <span className="font-normal text-ink-600"> · the {waiting.length} that have waited longest</span> : null}
+      </h2>
       <p className="mb-3 text-sm text-ink-600">
         These shops signed up and can read no spec until you approve them. Check that each is a real fluid-power business; a refusal needs a reason, which the shop reads. Either way, the shop is e-mailed.
       </p>
@@ -163,7 +168,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
   return (
     <>
       <PageHeader title="Organisations" lead={`${loaderData.total} organisation${loaderData.total === 1 ? "" : "s"}.`} />
-      <WaitingShops waiting={loaderData.waiting} actionData={actionData} />
+      <WaitingShops waiting={loaderData.waiting} total={loaderData.waitingTotal} actionData={actionData} />
       {actionData?.error && !loaderData.waiting.some((w) => w.id === actionData.organisationId) ? (
         <div className="mb-4">
           <Notice tone="bad">{actionData.error}</Notice>

@@ -9,10 +9,9 @@ import type { User } from "~/models/index.server";
 export const authenticator = new Authenticator<User>();
 
 authenticator.use(
-  new FormStrategy(async ({ form, request }) => {
+  new FormStrategy(async ({ form }) => {
     const { email, password } = signInSchema.parse(Object.fromEntries(form));
-    // Throttled per account and per client; a blocked attempt throws Throttled.
-    return verifyCredentials(request, email, password);
+    return verifyCredentials(email, password);
   }),
   "form",
 );

@@ -11,7 +11,7 @@ import { listQuerySchema, userActionSchema } from "~/schemas/admin";
 import { confirmOwnPassword } from "~/services/accounts.server";
 import { changeRole, listUsers, roleChangeTarget, setActive } from "~/services/admin.server";
 import { FieldErrors } from "~/services/errors.server";
-import { Throttled } from "~/services/throttle.server";
+import { Throttled, clientOf } from "~/services/throttle.server";
 
 interface RoleConfirmation {
   userId: string;
@@ -45,7 +45,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action(args: Route.ActionArgs) {
+  const { request } = args;
   const admin = await requireRole(request, ["admin"]);
   const submission = parseWithZod(await request.formData(), { schema: userActionSchema });
   if (submission.status !== "success") return data<ActionData>({ error: "That change was not understood." }, { status: 400 });
@@ -59,7 +60,7 @@ export async function action({ request }: Route.ActionArgs) {
       if (!change.confirm) return data<ActionData>({ confirm }, { status: 400 });
       if (!change.currentPassword) return data<ActionData>({ confirm: { ...confirm, passwordErrors: ["Enter your password to confirm."] } }, { status: 400 });
       try {
-        await confirmOwnPassword(request, admin, change.currentPassword);
+        await confirmOwnPassword(clientOf(args), admin, change.currentPassword);
       } catch (error) {
         if (error instanceof Throttled) {
           return data<ActionData>({ confirm: { ...confirm, passwordErrors: [error.message] } }, { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });

@@ -8,7 +8,7 @@ import { FormErrors, TextField } from "~/components/form-field";
 import { Button, Notice } from "~/components/ui";
 import { forgotPasswordSchema } from "~/schemas/account";
 import { requestPasswordReset } from "~/services/accounts.server";
-import { Throttled, throttleMailForm } from "~/services/throttle.server";
+import { Throttled, clientOf, throttleMailForm } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Tenderflow" }];
 
@@ -17,11 +17,12 @@ export async function loader({ request }: Route.LoaderArgs) {
   return null;
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action(args: Route.ActionArgs) {
+  const { request } = args;
   const submission = parseWithZod(await request.formData(), { schema: forgotPasswordSchema });
   if (submission.status !== "success") return data({ result: submission.reply(), sent: false }, { status: 400 });
   try {
-    await throttleMailForm(request);
+    await throttleMailForm(clientOf(args));
   } catch (error) {
     if (!(error instanceof Throttled)) throw error;
     const headers = { "Retry-After": String(error.retryAfterS) };

@@ -8,7 +8,7 @@ import { currentPasswordField } from "~/schemas/account";
 import { refundSchema } from "~/schemas/payments";
 import { confirmOwnPassword } from "~/services/accounts.server";
 import { FieldErrors } from "~/services/errors.server";
-import { Throttled } from "~/services/throttle.server";
+import { Throttled, clientOf } from "~/services/throttle.server";
 import { requestRefund } from "~/services/payments.server";
 import { Payment } from "~/models/index.server";
 
@@ -16,13 +16,14 @@ const schema = refundSchema.extend({ currentPassword: currentPasswordField });
 
 // An account manager (or admin) pays back part or all of a retainer, from the job page, after
 // typing their password again: a stolen session alone moves no money.
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action(args: Route.ActionArgs) {
+  const { request, params } = args;
   const user = await requireRole(request, ["account_manager", "admin"]);
   const submission = parseWithZod(await request.formData(), { schema });
   const hideFields = ["currentPassword"];
   if (submission.status !== "success") return data({ result: submission.reply({ hideFields }) }, { status: 400 });
   try {
-    await confirmOwnPassword(request, user, submission.value.currentPassword);
+    await confirmOwnPassword(clientOf(args), user, submission.value.currentPassword);
     const refund = await requestRefund(user, params.paymentId, { amountCents: submission.value.amount, reason: submission.value.reason });
     const payment = await Payment.findByPk(refund.paymentId, { rejectOnEmpty: true });
     return redirectWithToast(request, `/jobs/${payment.jobId}`, `Refund of ${formatMoney(refund.amountCents, payment.currency)} sent to the card service; it is recorded here once they confirm it.`);

@@ -10,7 +10,7 @@ import { Button, Notice } from "~/components/ui";
 import { resetPasswordSchema } from "~/schemas/account";
 import { findUsableReset, resetPassword } from "~/services/accounts.server";
 import { FieldErrors } from "~/services/errors.server";
-import { clearSignInThrottle } from "~/services/throttle.server";
+import { clearSignInThrottle, clientOf } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Tenderflow" }];
 
@@ -18,13 +18,14 @@ export async function loader({ params }: Route.LoaderArgs) {
   return { usable: Boolean(await findUsableReset(params.token)) };
 }
 
-export async function action({ request, params }: Route.ActionArgs) {
+export async function action(args: Route.ActionArgs) {
+  const { request, params } = args;
   const submission = parseWithZod(await request.formData(), { schema: resetPasswordSchema });
   if (submission.status !== "success") return data(submission.reply({ hideFields: ["password", "confirm"] }), { status: 400 });
   try {
     // Every other session of the account ends; this browser starts a new one.
     const user = await resetPassword(params.token, submission.value.password);
-    await clearSignInThrottle(request, user.email);
+    await clearSignInThrottle(clientOf(args), user.email);
     return signInRedirect(request, user.id, HOME_BY_ROLE[user.role]);
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;

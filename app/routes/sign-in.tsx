@@ -11,7 +11,7 @@ import { FormErrors, TextField } from "~/components/form-field";
 import { Button } from "~/components/ui";
 import { signInSchema } from "~/schemas/account";
 import { SignInError } from "~/services/accounts.server";
-import { Throttled } from "~/services/throttle.server";
+import { Throttled, clientOf, throttledPasswordCheck } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Tenderflow" }];
 
@@ -20,13 +20,25 @@ export async function loader({ request }: Route.LoaderArgs) {
   return null;
 }
 
-export async function action({ request }: Route.ActionArgs) {
+// Wrong passwords are counted per account and per client (throttle.server.ts); while blocked,
+// no password is even compared.
+const signInThrottled = (args: Route.ActionArgs, email: string) =>
+  throttledPasswordCheck(clientOf(args), email, () =>
+    authenticator.authenticate("form", args.request).catch((error) => {
+      if (error instanceof SignInError && error.reason === "invalid") return null;
+      throw error;
+    }),
+  );
+
+export async function action(args: Route.ActionArgs) {
+  const { request } = args;
   const submission = parseWithZod(await request.clone().formData(), { schema: signInSchema });
   if (submission.status !== "success") {
     return data(submission.reply({ hideFields: ["password"] }), { status: 400 });
   }
   try {
-    const user = await authenticator.authenticate("form", request);
+    const user = await signInThrottled(args, submission.value.email);
+    if (!user) throw new SignInError("invalid");
     return signInRedirect(request, user.id, safeRedirect(submission.value.redirectTo, HOME_BY_ROLE[user.role]));
   } catch (error) {
     if (error instanceof Throttled) {

@@ -8,7 +8,7 @@ import { FieldErrors, FormErrors, TextField } from "~/components/form-field";
 import { Button, Notice } from "~/components/ui";
 import { signUpSchema } from "~/schemas/account";
 import { requestSignUp } from "~/services/sign-up.server";
-import { Throttled, throttleMailForm } from "~/services/throttle.server";
+import { Throttled, clientOf, throttleMailForm } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Create an account · Tenderflow" }];
 
@@ -19,11 +19,12 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 // The answer is the same for a new address and one that has an account (sign-up.server.ts):
 // "check your inbox", where the link to finish or a note to the owner waits.
-export async function action({ request }: Route.ActionArgs) {
+export async function action(args: Route.ActionArgs) {
+  const { request } = args;
   const submission = parseWithZod(await request.formData(), { schema: signUpSchema });
   if (submission.status !== "success") return data({ result: submission.reply({ hideFields: ["password"] }), sentTo: null }, { status: 400 });
   try {
-    await throttleMailForm(request);
+    await throttleMailForm(clientOf(args));
   } catch (error) {
     if (!(error instanceof Throttled)) throw error;
     const result = submission.reply({ formErrors: [error.message], hideFields: ["password"] });

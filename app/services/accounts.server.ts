@@ -26,15 +26,10 @@ export class SignInError extends Error {
   }
 }
 
-/** Checks a sign-in under the brute-force throttles (throttle.server.ts), which may throw Throttled. */
-export async function verifyCredentials(request: Request, email: string, password: string): Promise<User> {
-  const address = email.toLowerCase();
-  const user = await throttledPasswordCheck(request, address, async () => {
-    const found = await User.findOne({ where: { email: address } });
-    const ok = await bcrypt.compare(password, found?.passwordHash ?? dummy());
-    return found && ok ? found : null;
-  });
-  if (!user) throw new SignInError("invalid");
+export async function verifyCredentials(email: string, password: string): Promise<User> {
+  const user = await User.findOne({ where: { email: email.toLowerCase() } });
+  const ok = await bcrypt.compare(password, user?.passwordHash ?? dummy());
+  if (!user || !ok) throw new SignInError("invalid");
   if (!user.active) throw new SignInError("deactivated");
   await user.update({ lastSignInAt: new Date() });
   return user;
@@ -46,8 +41,8 @@ export const WRONG_OWN_PASSWORD = "That is not your password.";
  * The signed-in person types their password again before a change that matters (a refund, a
  * role): a stolen session alone can't make it. Wrong guesses count like wrong sign-ins.
  */
-export async function confirmOwnPassword(request: Request, user: User, password: string): Promise<void> {
-  const ok = await throttledPasswordCheck(request, user.email, async () => ((await bcrypt.compare(password, user.passwordHash)) ? true : null));
+export async function confirmOwnPassword(client: string, user: User, password: string): Promise<void> {
+  const ok = await throttledPasswordCheck(client, user.email, async () => ((await bcrypt.compare(password, user.passwordHash)) ? true : null));
   if (!ok) throw new FieldErrors({ currentPassword: [WRONG_OWN_PASSWORD] });
 }
 

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Spec, SpecAttachment, SpecRevision } from "~/models/index.server";
 import { SCREENSHOTS, hydrated, startBrowserApp, type BrowserApp } from "../support/browser";
+import { linkIn, waitForMail } from "../support/mailbox";
 
 let app: BrowserApp;
 beforeAll(async () => {
@@ -34,6 +35,12 @@ describe("spec intake", () => {
     await page.getByLabel("Work e-mail address").fill("tamsin@tamsin-lift.test");
     await page.getByLabel("Password").fill("first-time-buyer");
     await page.getByRole("button", { name: "Create account" }).click();
+    // The address is confirmed by the link mailed to it, which makes the account.
+    await expect.poll(() => page.getByRole("heading", { name: "Check your inbox" }).count()).toBe(1);
+    const link = new URL(linkIn(await waitForMail("tamsin@tamsin-lift.test", "Finish creating", 15_000), "/sign-up/"));
+    await page.goto(link.pathname);
+    await hydrated(page);
+    await page.getByRole("button", { name: "Create my account" }).click();
     await page.waitForURL("**/specs");
     await shot(page, "0-empty");
 

@@ -37,7 +37,8 @@ async function fill(client: pg.Client) {
     INSERT INTO organisations (id, name, kind, region)
     SELECT gen_random_uuid(), 'Bench builder ' || n, 'buyer', (${sqlArray(REGIONS)})[1 + n % ${REGIONS.length}]
     FROM generate_series(1, 200) AS n`);
-  await client.query(`INSERT INTO organisations (id, name, kind, region) VALUES (gen_random_uuid(), 'Bench shop', 'shop', 'UK — West Midlands')`);
+  // An approved shop: a pending one reads no specs (migration 0011).
+  await client.query(`INSERT INTO organisations (id, name, kind, region, approval) VALUES (gen_random_uuid(), 'Bench shop', 'shop', 'UK — West Midlands', 'approved')`);
   await client.query(`
     INSERT INTO users (id, organisation_id, email, name, password_hash, role)
     SELECT gen_random_uuid(), o.id, 'user-' || o.id || '@bench.test', 'Bench user', 'x', CASE o.kind WHEN 'shop' THEN 'shop' ELSE 'buyer' END::enum_users_role

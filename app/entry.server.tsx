@@ -1,16 +1,19 @@
 import { PassThrough } from "node:stream";
-import type { EntryContext } from "react-router";
+import type { EntryContext, RouterContextProvider } from "react-router";
 import { createReadableStreamFromReadable } from "@react-router/node";
 import { ServerRouter } from "react-router";
 import { isbot } from "isbot";
 import { renderToPipeableStream, type RenderToPipeableStreamOptions } from "react-dom/server";
 import { env } from "~/env.server";
+import { nonceContext } from "~/http/request-context.server";
 import { startMailWorker } from "~/services/mail.server";
+import { startPaymentReconciler } from "~/services/payment-sync.server";
 
 // Checked when the server starts, not on the first request: a bad setting stops it with a message.
 const settings = env();
 // Each app server sends the outbox's mail; rows are claimed with SKIP LOCKED, so any number can.
 if (settings.NODE_ENV !== "test") startMailWorker();
+if (settings.NODE_ENV !== "test") startPaymentReconciler();
 
 export const streamTimeout = 5_000;
 
@@ -19,6 +22,7 @@ export default function handleRequest(
   responseStatusCode: number,
   responseHeaders: Headers,
   routerContext: EntryContext,
+  loadContext: RouterContextProvider,
 ) {
   if (request.method.toUpperCase() === "HEAD") {
     return new Response(null, { status: responseStatusCode, headers: responseHeaders });
@@ -32,7 +36,10 @@ export default function handleRequest(
       (userAgent && isbot(userAgent)) || routerContext.isSpaMode ? "onAllReady" : "onShellReady";
     let timeoutId: ReturnType<typeof setTimeout> | undefined = setTimeout(() => abort(), streamTimeout + 1000);
 
-    const { pipe, abort } = renderToPipeableStream(<ServerRouter context={routerContext} url={request.url} />, {
+    // The root middleware made this response's nonce; React Router puts it on its inline scripts.
+    const nonce = loadContext.get(nonceContext);
+    const { pipe, abort } = renderToPipeableStream(<ServerRouter context={routerContext} url={request.url} nonce={nonce} />, {
+      nonce,
       [readyOption]() {
         shellRendered = true;
         const body = new PassThrough({
@@ -56,3 +63,6 @@ export default function handleRequest(
     });
   });
 }
+
+// app/serve.server.ts sets the client's address under this key (keys compare by identity).
+export { clientAddressContext } from "~/http/request-context.server";

@@ -14,11 +14,15 @@ import { getOptionalUser } from "~/auth/permissions.server";
 import { popToast } from "~/auth/session.server";
 import { AppShell } from "~/components/app-shell";
 import { ErrorPage } from "~/components/error-page";
+import { rootMiddleware } from "~/http/middleware.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Tenderflow" }];
 
 // The mark from the header, served from public/.
 export const links: Route.LinksFunction = () => [{ rel: "icon", href: "/favicon.svg", type: "image/svg+xml" }];
+
+// Origin check, request bounds and security headers, for every route below the root.
+export const middleware: Route.MiddlewareFunction[] = rootMiddleware;
 
 export async function loader({ request }: Route.LoaderArgs) {
   const [user, { toast, headers }] = await Promise.all([getOptionalUser(request), popToast(request)]);

@@ -31,9 +31,9 @@ export function run(command: string, args: string[], env: NodeJS.ProcessEnv = pr
   });
 }
 
-/** Serves a production build with react-router-serve on 127.0.0.1 only. */
+/** Serves a production build with the app's own server (app/serve.server.ts) on 127.0.0.1 only. */
 export async function serveBuild(port: number, env: NodeJS.ProcessEnv, log: (line: string) => void = () => {}, buildDir = "build") {
-  const child = spawn("node_modules/.bin/react-router-serve", [`${buildDir}/server/index.js`], {
+  const child = spawn("node_modules/.bin/tsx", ["app/serve.server.ts", `${buildDir}/server/index.js`], {
     env: { ...env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: env.NODE_ENV ?? "production" },
     stdio: ["ignore", "pipe", "pipe"],
   });
@@ -48,7 +48,7 @@ export function stop(child: ChildProcess | undefined) {
   return new Promise<void>((resolve) => {
     child.once("exit", () => resolve());
     child.kill("SIGTERM");
-    // react-router-serve closes its listener on SIGTERM but lingers on idle pool connections.
-    setTimeout(() => child.kill("SIGKILL"), 2_000).unref();
+    // The server exits by itself within 3 s; this only guards against a hung process.
+    setTimeout(() => child.kill("SIGKILL"), 5_000).unref();
   });
 }

@@ -1,0 +1,48 @@
+// The headers every response carries, set in one place (the root middleware). The app loads
+// nothing from outside, so the content security policy allows only its own origin, plus the
+// per-request nonce for the scripts React Router writes inline.
+import { randomBytes } from "node:crypto";
+import { env } from "~/env.server";
+
+export const newNonce = () => randomBytes(16).toString("base64");
+
+/** Where the card service's payment page lives: the pay form's redirect goes there. */
+function checkoutOrigin() {
+  const { STRIPE_API_URL } = env();
+  return STRIPE_API_URL ? new URL(STRIPE_API_URL).origin : "https://checkout.stripe.com";
+}
+
+export function contentSecurityPolicy(nonce: string, dev = env().NODE_ENV === "development") {
+  return [
+    "default-src 'self'",
+    // The nonced inline scripts import the route modules, which 'self' allows.
+    `script-src 'self' 'nonce-${nonce}'${dev ? " 'unsafe-inline'" : ""}`,
+    // Tailwind's stylesheet is a file; a few components set widths and colours in style="".
+    dev ? "style-src 'self' 'unsafe-inline'" : "style-src 'self'; style-src-attr 'unsafe-inline'",
+    "img-src 'self' data:",
+    "font-src 'self'",
+    `connect-src 'self'${dev ? " ws:" : ""}`,
+    "object-src 'none'",
+    "base-uri 'self'",
+    `form-action 'self' ${checkoutOrigin()}`,
+    "frame-ancestors 'none'",
+  ].join("; ");
+}
+
+/**
+ * Adds the security headers to a response. Nothing answered to a request that carried a
+ * cookie (a session) is kept by shared or browser caches; a route's own Cache-Control stands
+ * only for anonymous requests.
+ */
+export function applySecurityHeaders(response: Response, { nonce, withCookie }: { nonce: string; withCookie: boolean }) {
+  const headers = response.headers;
+  headers.set("Content-Security-Policy", contentSecurityPolicy(nonce));
+  headers.set("X-Content-Type-Options", "nosniff");
+  headers.set("X-Frame-Options", "DENY");
+  headers.set("Referrer-Policy", "same-origin");
+  headers.set("Cross-Origin-Opener-Policy", "same-origin");
+  headers.set("Permissions-Policy", "camera=(), microphone=(), geolocation=(), payment=()");
+  if (withCookie || !headers.has("Cache-Control")) headers.set("Cache-Control", "private, no-store");
+  if (env().APP_URL.startsWith("https://")) headers.set("Strict-Transport-Security", "max-age=31536000; includeSubDomains");
+  return response;
+}

@@ -1,0 +1,70 @@
+// The production HTTP server: serves the client files and hands every other request to the
+// React Router build, with the client's address in the request context. Run as
+// `tsx app/serve.server.ts build/server/index.js` (npm start and the browser tests do).
+//
+// It replaces react-router-serve for two reasons: the rate limits need the client's address,
+// which only the socket knows (X-Forwarded-For is believed only from TRUSTED_PROXIES), and
+// Ctrl-C must stop it once, cleanly.
+import path from "node:path";
+import { pathToFileURL } from "node:url";
+import { createRequestHandler } from "@react-router/express";
+import compression from "compression";
+import express from "express";
+import morgan from "morgan";
+import { RouterContextProvider, type RouterContext, type ServerBuild } from "react-router";
+
+const buildPath = path.resolve(process.argv[2] ?? "build/server/index.js");
+const port = Number(process.env.PORT ?? 3000);
+const host = process.env.HOST ?? "127.0.0.1";
+
+/**
+ * Express's "trust proxy" from TRUSTED_PROXIES: addresses or CIDR ranges of our own load
+ * balancers ("loopback", "10.0.0.0/8"), or none. Only hops from these may name the client.
+ */
+function trustedProxies(value = process.env.TRUSTED_PROXIES?.trim()): string[] | false {
+  if (!value) return false;
+  return value.split(",").map((v) => v.trim()).filter(Boolean);
+}
+
+const build = (await import(pathToFileURL(buildPath).href)) as ServerBuild;
+// The context key lives in the build (keys compare by identity), exported by entry.server.
+const clientAddressContext = (build.entry.module as { clientAddressContext?: RouterContext<string | null> }).clientAddressContext;
+if (!clientAddressContext) throw new Error(`${buildPath} does not export clientAddressContext from its entry.server`);
+
+const app = express();
+app.disable("x-powered-by");
+app.set("trust proxy", trustedProxies());
+app.use(compression());
+const noSniff = (res: express.Response) => res.setHeader("X-Content-Type-Options", "nosniff");
+const clientDir = path.resolve(path.dirname(buildPath), "..", "client");
+// Hashed file names never change, so browsers keep them for a year.
+app.use("/assets", express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", setHeaders: noSniff }));
+app.use(express.static(clientDir, { maxAge: "1h", setHeaders: noSniff }));
+app.use(morgan("tiny"));
+app.all(
+  "*",
+  createRequestHandler({
+    build,
+    mode: process.env.NODE_ENV,
+    getLoadContext(req) {
+      const context = new RouterContextProvider();
+      context.set(clientAddressContext, req.ip ?? null);
+      return context;
+    },
+  }),
+);
+
+const server = app.listen(port, host, () => console.log(`Tenderflow is listening on http://${host}:${port}`));
+
+let stopping = false;
+function stop(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  console.log(`${signal}: stopping the HTTP server`);
+  server.close(() => process.exit(0));
+  server.closeIdleConnections();
+  // Streams still open after a few seconds (a stalled download) do not hold the stop up.
+  setTimeout(() => process.exit(0), 3_000).unref();
+}
+process.on("SIGINT", () => stop("SIGINT"));
+process.on("SIGTERM", () => stop("SIGTERM"));

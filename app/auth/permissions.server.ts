@@ -6,10 +6,27 @@ import { getSessionUserId, hasSessionCookie, signOutRedirect } from "./session.s
 
 export type SignedInUser = User & { organisation: Organisation };
 
-/** Only same-site paths are followed after sign-in (no open redirects). */
+const OWN_BASE = "http://tenderflow.invalid";
+
+/**
+ * Only our own paths are followed after sign-in (no open redirects). The address is judged as
+ * a browser reads it: control characters (which browsers drop, so `/<TAB>/host` becomes
+ * `//host`) and backslashes (read as slashes) are refused outright, and what is left must
+ * parse to our own origin. The path returned is the parsed one, safe in a Location header.
+ */
 export function safeRedirect(to: FormDataEntryValue | string | null | undefined, fallback = "/") {
-  if (typeof to !== "string" || !to.startsWith("/") || to.startsWith("//") || to.startsWith("/\\")) return fallback;
-  return to;
+  if (typeof to !== "string" || !to.startsWith("/") || to.length > 2_000) return fallback;
+  // eslint-disable-next-line no-control-regex
+  if (/[\u0000-\u001f\u007f\\]/.test(to)) return fallback;
+  let url: URL;
+  try {
+    url = new URL(to, OWN_BASE);
+  } catch {
+    return fallback;
+  }
+  if (url.origin !== OWN_BASE) return fallback;
+  const path = `${url.pathname}${url.search}${url.hash}`;
+  return path.startsWith("//") ? fallback : path;
 }
 
 /**

@@ -25,7 +25,7 @@ export type BoundsProblem = { status: 400 | 411 | 413 | 415; message: string };
 const bodyless = (method: string) => method === "GET" || method === "HEAD" || method === "OPTIONS";
 
 /** A field name as our forms write them: `title`, `lines[3].unitPrice`, `lines[12]`. */
-const FIELD_NAME = /^[A-Za-z_][\w-]*(?:\[\d{1,6}\]|\.[A-Za-z_][\w-]*)*$/;
+const FIELD_NAME = /^[A-Za-z_][\w-]*(?:\[\d+\]|\.[A-Za-z_][\w-]*)*$/;
 const INDEX = /\[(\d+)\]/g;
 const NUL = "\u0000";
 

@@ -5,8 +5,6 @@ import { consumeSizingRequest } from "~/services/rate-limit.server";
 // POST /api/v1/sizing: the requirements of one axis as JSON in, the engine's Design as JSON out.
 // Bad input is a 400 naming each field; it is never a 500.
 
-const MAX_BODY_BYTES = 64 * 1024;
-
 const problem = (status: number, error: string, message: string, fieldErrors: Record<string, string[]> = {}, headers?: HeadersInit) =>
   Response.json({ error, message, fieldErrors }, { status, headers });
 
@@ -14,20 +12,19 @@ export function loader() {
   return problem(405, "method_not_allowed", "POST the requirements as JSON to this address.", {}, { Allow: "POST" });
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action(args: Route.ActionArgs) {
+  const { request } = args;
   if (request.method !== "POST") {
     return problem(405, "method_not_allowed", "POST the requirements as JSON to this address.", {}, { Allow: "POST" });
   }
-  const limit = await consumeSizingRequest(request);
+  const limit = await consumeSizingRequest(args);
   if (!limit.ok) {
     return problem(429, "rate_limited", `Too many sizing requests. Try again in ${limit.retryAfterS} s.`, {}, {
       "Retry-After": String(limit.retryAfterS),
     });
   }
+  // The root middleware has already refused bodies over REQUEST_LIMITS.jsonBytes.
   const text = await request.text();
-  if (new TextEncoder().encode(text).length > MAX_BODY_BYTES) {
-    return problem(413, "too_large", "The requirements must be under 64 KB of JSON.");
-  }
   let body: unknown;
   try {
     body = JSON.parse(text);

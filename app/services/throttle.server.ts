@@ -1,6 +1,6 @@
 import { RateLimiterPostgres, type RateLimiterRes } from "rate-limiter-flexible";
 import { sequelize } from "~/db.server";
-import { clientKey } from "./rate-limit.server";
+import { clientKey, type RequestArgs } from "./rate-limit.server";
 
 // Brute-force and mail throttles, counted in PostgreSQL (the `rate_limits` table) so every app
 // server shares them. Nothing here locks anyone out for good: blocks are short and capped, and
@@ -28,7 +28,7 @@ function limiter(keyPrefix: string, points: number, durationS: number) {
  * Who is asking, for the per-client counts: the same key the API's rate limit uses. Routes pass
  * their loader/action arguments, so this is the one line to change if that key needs more.
  */
-export const clientOf = ({ request }: { request: Request; context?: unknown }) => clientKey(request);
+export const clientOf = (args: RequestArgs) => clientKey(args);
 
 const MINUTE = 60;
 const HOUR = 3600;

@@ -9,6 +9,9 @@ interface DataWithInit {
 const isDataWithInit = (v: unknown): v is DataWithInit =>
   typeof v === "object" && v !== null && (v as { type?: unknown }).type === "DataWithResponseInit";
 
+import { RouterContextProvider } from "react-router";
+import { clientAddressContext } from "~/http/request-context.server";
+
 const ORIGIN = "http://127.0.0.1:3000";
 
 export interface Outcome<T = unknown> {
@@ -36,9 +39,16 @@ async function settle(value: unknown): Promise<Outcome<any>> {
   return { status: 200, headers: new Headers(), location: null, setCookie: null, data: value };
 }
 
-export async function call<T = any>(fn: RouteFunction, request: Request, params: Record<string, string> = {}): Promise<Outcome<T>> {
+/** The context the app's HTTP server gives every request: here, the client's address. */
+export function serverContext(clientAddress: string | null = "127.0.0.1") {
+  const context = new RouterContextProvider();
+  context.set(clientAddressContext, clientAddress);
+  return context;
+}
+
+export async function call<T = any>(fn: RouteFunction, request: Request, params: Record<string, string> = {}, context = serverContext()): Promise<Outcome<T>> {
   try {
-    return await settle(await fn({ request, params, context: {} }));
+    return await settle(await fn({ request, params, context }));
   } catch (thrown) {
     if (thrown instanceof Response || isDataWithInit(thrown)) return settle(thrown);
     throw thrown;

@@ -9,7 +9,7 @@ import { FieldErrors as FieldErrorText, TextField } from "~/components/form-fiel
 import { Badge, Button, Card, Notice, PageHeader } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/bid-status";
 import { formatMoney } from "~/content/currencies";
-import { bidSchema } from "~/schemas/bid";
+import { bidSchema, linesMatchBill } from "~/schemas/bid";
 import { bidTotals, centsToInput, parseMoney } from "~/services/bid-pricing";
 import { bidOfShop, bomOf, historyOf, saveBid, withdrawBid } from "~/services/bids.server";
 import { FieldErrors } from "~/services/errors.server";
@@ -84,6 +84,11 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirectWithToast(request, back, "Your offer has been taken back. You can offer again until the deadline.");
   }
   const submission = parseWithZod(formData, { schema: bidSchema });
+  const bom = await bomOf(spec);
+  if (!linesMatchBill(formData.entries(), bom.map((l) => l.key))) {
+    const message = "The lines sent do not match the bill of materials (it may have changed since the form was opened). Nothing was saved: reload the page and price the current bill.";
+    return data({ result: submission.reply({ formErrors: [message], resetForm: true }), withdrawError: null }, { status: 400 });
+  }
   if (submission.status !== "success") return data({ result: submission.reply(), withdrawError: null }, { status: 400 });
   try {
     const bid = await saveBid(user, spec, submission.value);
@@ -176,7 +181,8 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                   </tr>
                 </thead>
                 <tbody>
-                  {lines.map((line, i) => {
+                  {/* One row per bill line, whatever a stale form's result holds. */}
+                  {lines.slice(0, d.bill.length).map((line, i) => {
                     const f = line.getFieldset();
                     const bill = d.bill[i];
                     const isAlternative = typed[i]?.alternative === "on";

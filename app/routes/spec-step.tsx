@@ -13,8 +13,9 @@ import { Button, Card, Notice, PageHeader } from "~/components/ui";
 import { useLiveSizing } from "~/components/use-live-sizing";
 import { EXAMPLE_AXIS, REQUIREMENT_FIELDS, displayValue, fieldApplies, toFormValues, fieldMessages, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
 import { ENGINE_KEYS_BY_STEP, SPEC_STEPS, isSpecStep, nextStep, previousStep, type FormStepId } from "~/content/spec-steps";
-import { FLUIDS, SUPPLY_VOLTAGES, stepFieldNames, stepSchema } from "~/schemas/spec";
+import { FLUIDS, SUPPLY_VOLTAGES, stepFieldNames, stepSchema, typedStepAnswers } from "~/schemas/spec";
 import { FieldErrors, notFound } from "~/services/errors.server";
+import { redirectWithToast } from "~/auth/session.server";
 import { specOfOwner } from "~/services/spec-access.server";
 import { allAnswers, designOf, isEditable, publish, saveStep } from "~/services/specs.server";
 import { ATTACHMENT_LIMITS, listAttachments } from "~/services/attachments.server";
@@ -69,16 +70,23 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirect(`/specs/${spec.id}?published=1`);
   }
 
-  const submission = parseWithZod(formData, { schema: stepSchema(step, spec.unitSystem, othersOf(allAnswers(spec), step)) });
-  const typed = Object.fromEntries(stepFieldNames(step).map((name) => [name, String(formData.get(name) ?? "")]));
-  if (intent === "back") {
-    // Going back never loses what was typed; the step stays incomplete until it validates.
-    await saveStep(spec, step, typed, submission.status === "success");
-    return redirect(`/specs/${spec.id}/edit/${previousStep(step) ?? step}`);
+  const others = othersOf(allAnswers(spec), step);
+  const submission = parseWithZod(formData, { schema: stepSchema(step, spec.unitSystem, others) });
+  const { typed, tooLongErrors } = typedStepAnswers(step, formData, others);
+  // Going back never loses what was typed (the step stays incomplete until it validates), but
+  // an answer longer than its field takes is refused on this path too.
+  const back = intent === "back";
+  if (Object.keys(tooLongErrors).length || (!back && submission.status !== "success")) {
+    return data({ result: submission.reply({ fieldErrors: { ...(submission.status === "error" ? submission.error : {}), ...tooLongErrors } as Record<string, string[]> }), publishError: null }, { status: 400 });
   }
-  if (submission.status !== "success") return data({ result: submission.reply(), publishError: null }, { status: 400 });
-  await saveStep(spec, step, typed, true);
-  return redirect(`/specs/${spec.id}/edit/${nextStep(step)}`);
+  try {
+    await saveStep(spec, step, typed, submission.status === "success");
+  } catch (error) {
+    if (!(error instanceof FieldErrors)) throw error;
+    // Published meanwhile, e.g. from another tab: the step is not saved over the published spec.
+    return redirectWithToast(request, `/specs/${spec.id}`, `${error.message} Nothing from this step was saved.`);
+  }
+  return redirect(`/specs/${spec.id}/edit/${(back ? previousStep(step) : nextStep(step)) ?? step}`);
 }
 
 export default function SpecStep({ loaderData, actionData }: Route.ComponentProps) {

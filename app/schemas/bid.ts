@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { MAX_UNIT_PRICE_CENTS, moneyProblem, parseMoney } from "~/services/bid-pricing";
+import { isIsoDay } from "~/content/dates";
 
 // The bid form's schema, shared by the action and the Conform form. A draft may leave prices
 // and terms open; a submitted offer prices every line and states lead time and validity.
@@ -21,7 +22,7 @@ export const bidSchema = z
     intent: z.enum(BID_INTENTS),
     lines: z.array(lineSchema).min(1, "The bid has no lines.").max(200),
     leadTimeWeeks: z.number({ error: "Enter the lead time in whole weeks." }).int("Enter whole weeks.").min(1, "At least 1 week.").max(156, "At most 156 weeks.").optional(),
-    validUntil: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Enter a date.").optional(),
+    validUntil: z.string().refine(isIsoDay, "Enter a real date, e.g. 2026-09-30.").optional(),
     terms: optionalText(4000),
     notes: optionalText(4000),
   })
@@ -45,6 +46,24 @@ export const bidSchema = z
   });
 
 export type BidInput = z.output<typeof bidSchema>;
+
+const LINE_FIELD = /^lines\[(\d+)\]\.(key|unitPrice|alternative|alternativeDescription)$/;
+
+/**
+ * Whether the posted lines are the bill's lines, one each, in its order (`lines[i].key` is the
+ * bill's i-th key). Anything else (more lines than the bill, a gap, `lines` as a single value)
+ * comes from a stale or forged form and is refused whole before it is parsed or shown again.
+ */
+export function linesMatchBill(posted: Iterable<[string, unknown]>, billKeys: readonly string[]) {
+  const keys = new Map<number, unknown>();
+  for (const [name, value] of posted) {
+    if (!name.startsWith("lines")) continue;
+    const match = LINE_FIELD.exec(name);
+    if (!match || Number(match[1]) >= billKeys.length) return false;
+    if (match[2] === "key") keys.set(Number(match[1]), value);
+  }
+  return keys.size === billKeys.length && billKeys.every((key, i) => keys.get(i) === key);
+}
 
 export const awardSchema = z.object({
   bidId: z.string().uuid("Choose a bid."),

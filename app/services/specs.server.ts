@@ -38,15 +38,16 @@ export function allAnswers(spec: Spec): FormValues {
 export const isEditable = (spec: Spec) => spec.status === "draft" || (spec.status === "open" && spec.revising);
 
 export async function saveStep(spec: Spec, step: FormStepId, answers: Record<string, string>, complete: boolean) {
-  if (!isEditable(spec)) throw new FieldErrors({ "": ["A published spec is changed by revising it."] });
-  const completed = new Set(spec.completedSteps);
-  if (complete) completed.add(step);
-  else completed.delete(step);
-  const title = step === "machine" && answers.title ? answers.title.trim().slice(0, 120) : spec.title;
-  await spec.update({
-    answers: { ...spec.answers, [step]: answers },
-    completedSteps: FORM_STEPS.filter((s) => completed.has(s)),
-    title,
+  await sequelize.transaction(async (transaction) => {
+    // Locked and read again: another tab may have published the spec since this one loaded it.
+    const locked = await Spec.findByPk(spec.id, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+    if (!isEditable(locked)) throw new FieldErrors({ "": ["This spec was published meanwhile, perhaps from another tab; a published spec is changed by revising it."] });
+    const completed = new Set(locked.completedSteps);
+    if (complete) completed.add(step);
+    else completed.delete(step);
+    const title = step === "machine" && answers.title ? answers.title.trim().slice(0, 120) : locked.title;
+    await locked.update({ answers: { ...locked.answers, [step]: answers }, completedSteps: FORM_STEPS.filter((s) => completed.has(s)), title }, { transaction });
+    spec.set(locked.get());
   });
 }
 

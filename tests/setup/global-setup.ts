@@ -1,7 +1,8 @@
 // Starts what every test file shares: a throwaway PostgreSQL cluster with a migrated template
 // database (each file clones its own database from it), a maildev inbox and the Stripe fake
 // (for API calls; a file that needs webhooks delivered starts its own fake pointed at its app).
-import { mkdtempSync, rmSync } from "node:fs";
+import { execFileSync } from "node:child_process";
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { MailDev } from "maildev";
@@ -27,7 +28,23 @@ declare module "vitest" {
   }
 }
 
+const CHROMIUM = "/usr/bin/chromium";
+
+/** Browser tests drive Debian's chromium (never a browser download); installed here when missing. */
+function ensureChromium() {
+  if (existsSync(CHROMIUM)) return;
+  if (process.getuid?.() !== 0) {
+    console.warn("Browser tests need Debian's chromium: sudo apt-get install -y chromium");
+    return;
+  }
+  console.log("Installing Debian's chromium for the browser tests (apt-get install -y chromium)…");
+  const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
+  execFileSync("apt-get", ["update", "-qq"], { stdio: "inherit", env });
+  execFileSync("apt-get", ["install", "-y", "-qq", "chromium"], { stdio: "inherit", env });
+}
+
 export default async function setup(project: TestProject) {
+  ensureChromium();
   const root = mkdtempSync(path.join(os.tmpdir(), "tenderflow-test-"));
   // PostgreSQL (running as the postgres user) must be able to enter the folder.
   await import("node:fs").then((fs) => fs.chmodSync(root, 0o755));

@@ -1,6 +1,7 @@
 // The production HTTP server: serves the client files and hands every other request to the
 // React Router build, with the client's address in the request context. Run as
-// `tsx app/serve.server.ts build/server/index.js` (npm start and the browser tests do).
+// `node --import tsx app/serve.server.ts build/server/index.js` (`npm run serve`; npm start and
+// the tests do the same).
 //
 // It replaces react-router-serve for two reasons: the rate limits need the client's address,
 // which only the socket knows (X-Forwarded-For is believed only from TRUSTED_PROXIES), and

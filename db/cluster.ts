@@ -1,6 +1,7 @@
 // A PostgreSQL cluster of the project's own, from Debian's packages: the local stack keeps its
 // data under .data/, tests make a throwaway one in the OS temp folder. Never the system cluster.
 import { execFileSync, spawnSync } from "node:child_process";
+import { createHash } from "node:crypto";
 import { chownSync, existsSync, mkdirSync, readdirSync, rmSync, chmodSync, statSync } from "node:fs";
 import { createServer } from "node:net";
 import path from "node:path";
@@ -65,14 +66,35 @@ function preparePgDir(dir: string) {
   }
 }
 
+/** The first parent of dir (that exists) which the postgres user cannot pass through, if any. */
+function blockedParent(dir: string): string | null {
+  if (!isRoot) return null; // without root the server runs as ourselves, who can reach it
+  for (let p = path.dirname(dir); p !== path.dirname(p); p = path.dirname(p)) {
+    if (existsSync(p) && (statSync(p).mode & 0o001) === 0) return p;
+  }
+  return null;
+}
+
 /** Every parent of dir must be traversable by the postgres user. */
 function assertReachable(dir: string) {
-  if (!isRoot) return;
-  for (let p = path.dirname(dir); p !== path.dirname(p); p = path.dirname(p)) {
-    if ((statSync(p).mode & 0o001) === 0) {
-      throw new Error(`The postgres user cannot reach ${dir}: ${p} is not traversable by others.`);
-    }
-  }
+  const blocked = blockedParent(dir);
+  if (blocked) throw new Error(`The postgres user cannot reach ${dir}: ${blocked} is not traversable by others.`);
+}
+
+/** Where clusters go when the project sits in a folder closed to others (root's home is 700). */
+export const SHARED_CLUSTER_ROOT = "/var/lib/postgresql/tenderflow";
+
+/**
+ * The folder for a project's cluster: `preferred` (under the project) when the postgres user
+ * can reach it, or else a folder of this project's own under `fallbackRoot`, named by a hash of
+ * the project's path so two checkouts never share one. `moved` says which it is, for the log.
+ */
+export function clusterDirFor(preferred: string, fallbackRoot = SHARED_CLUSTER_ROOT): { dir: string; moved: boolean; blocked: string | null } {
+  if (isRoot) ensurePostgresBinaries(); // makes the postgres user the check is about
+  const blocked = blockedParent(preferred);
+  if (!blocked) return { dir: preferred, moved: false, blocked: null };
+  const id = createHash("sha256").update(path.resolve(preferred)).digest("hex").slice(0, 12);
+  return { dir: path.join(fallbackRoot, `${path.basename(path.resolve(preferred, "../.."))}-${id}`), moved: true, blocked };
 }
 
 export async function freePort(): Promise<number> {

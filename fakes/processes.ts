@@ -33,7 +33,8 @@ export function run(command: string, args: string[], env: NodeJS.ProcessEnv = pr
 
 /** Serves a production build with the app's own server (app/serve.server.ts) on 127.0.0.1 only. */
 export async function serveBuild(port: number, env: NodeJS.ProcessEnv, log: (line: string) => void = () => {}, buildDir = "build") {
-  const child = spawn("node_modules/.bin/tsx", ["app/serve.server.ts", `${buildDir}/server/index.js`], {
+  // node itself with tsx's loader (no tsx wrapper process), so signals reach the server directly.
+  const child = spawn(process.execPath, ["--import", "tsx", "app/serve.server.ts", `${buildDir}/server/index.js`], {
     env: { ...env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: env.NODE_ENV ?? "production" },
     stdio: ["ignore", "pipe", "pipe"],
   });

@@ -8,7 +8,7 @@ import path from "node:path";
 import { MailDev } from "maildev";
 import pg from "pg";
 import { Sequelize } from "sequelize";
-import { ensureDatabase, isRunning, startCluster, stopCluster, type Cluster } from "../db/cluster";
+import { clusterDirFor, ensureDatabase, isRunning, startCluster, stopCluster, type Cluster } from "../db/cluster";
 import { migrator } from "../db/migrator";
 import { DEMO_PASSWORD, DEMO_SIGN_INS, seedDemo } from "../db/seeds/demo";
 import { run, serveBuild, stop } from "./processes";
@@ -37,8 +37,9 @@ async function main() {
   if (databaseUrl) {
     step("Using the database in DATABASE_URL");
   } else {
-    step(`Starting PostgreSQL (project cluster in .data/postgres, 127.0.0.1:${PG_PORT})`);
-    const clusterDir = path.join(dataDir, "postgres");
+    const { dir: clusterDir, moved, blocked } = clusterDirFor(path.join(dataDir, "postgres"));
+    step(`Starting PostgreSQL (project cluster in ${moved ? clusterDir : ".data/postgres"}, 127.0.0.1:${PG_PORT})`);
+    if (moved) console.log(`  ${blocked} is closed to other users, so the postgres user keeps this project's cluster in ${clusterDir}.`);
     if (isRunning(clusterDir)) stopCluster({ dataDir: clusterDir }); // left over from an interrupted run
     cluster = startCluster({ dataDir: clusterDir, port: PG_PORT });
     databaseUrl = await ensureDatabase(cluster, "tenderflow", localSecret("db-password"));

@@ -20,7 +20,8 @@ export function contentSecurityPolicy(nonce: string, dev = env().NODE_ENV === "d
     // Tailwind's stylesheet is a file; a few components set widths and colours in style="".
     dev ? "style-src 'self' 'unsafe-inline'" : "style-src 'self'; style-src-attr 'unsafe-inline'",
     "img-src 'self' data:",
-    "font-src 'self'",
+    // Vite inlines the smallest font subsets as data: URLs.
+    "font-src 'self' data:",
     `connect-src 'self'${dev ? " ws:" : ""}`,
     "object-src 'none'",
     "base-uri 'self'",

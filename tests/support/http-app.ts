@@ -12,7 +12,7 @@ let built: Promise<string> | undefined;
  * One production build per test run, shared by every test file that serves the app: the first
  * file to get here builds while holding a lock folder, the others wait for its "done" mark.
  */
-function buildOnce() {
+export function buildOnce() {
   built ??= (async () => {
     const dir = inject("buildDir");
     const done = path.join(dir, ".done");

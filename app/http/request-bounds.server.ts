@@ -116,12 +116,13 @@ export async function checkRequestBounds(request: Request): Promise<BoundsProble
     if (text === null) return { status: 413, message: `The JSON body is too large (at most ${REQUEST_LIMITS.jsonBytes / 1024} kB).` };
     return null;
   }
-  if (type === "application/x-www-form-urlencoded" || type === "" || type === "text/plain") {
+  if (type === "application/x-www-form-urlencoded") {
     const text = await readBounded(request, REQUEST_LIMITS.formBytes);
     if (text === null) return { status: 413, message: `The form is too large (at most ${REQUEST_LIMITS.formBytes / 1024} kB).` };
-    if (type === "text/plain") return text.length ? { status: 415, message: "Send forms as application/x-www-form-urlencoded." } : null;
     return checkFields(new URLSearchParams(text), REQUEST_LIMITS.fields, "form", true);
   }
+  // Every form of ours says what it sends; a route could not read a body that does not.
+  if (type === "") return { status: 415, message: "Say what the body is: send forms as application/x-www-form-urlencoded." };
   // Stripe's webhooks are JSON; nothing of ours takes any other kind of body.
   return { status: 415, message: `This site does not take “${printable(type)}” bodies.` };
 }

@@ -199,6 +199,10 @@ describe("no input ends in a 500", () => {
             failures.push(`${(error as Error).cause ?? error} ${file} ${body.slice(0, 60)}`);
           }
         }
+        for (const method of ["PUT", "PATCH", "DELETE"]) {
+          const bare = await client.send(path, { method });
+          if (bare.status >= 500) failures.push(`${bare.status} ${method} ${file} with no body`);
+        }
         const query = await client.send(`${path}${path.includes("?") ? "&" : "?"}q=%00&sort=%00&page=-1&from=2099-02-30`);
         if (query.status >= 500) failures.push(`${query.status} GET ${file} with a hostile query`);
       }

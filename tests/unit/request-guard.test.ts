@@ -70,6 +70,8 @@ describe("request bounds", () => {
     expect(await checkRequestBounds(multipart("/specs/5d0c6a4e-0000-4000-8000-000000000000/attachments"))).toBeNull();
     const xml = new Request(`${APP}/sign-in`, { method: "POST", headers: { "Content-Type": "application/xml" }, body: "<a/>" });
     expect(await checkRequestBounds(xml)).toMatchObject({ status: 415 });
+    // A PUT with no body and no type once reached the sign-in action's formData() and gave a 500.
+    expect(await checkRequestBounds(new Request(`${APP}/sign-in`, { method: "PUT" }))).toMatchObject({ status: 415 });
   });
 
   it("refuses an overlong query", async () => {

@@ -10,7 +10,7 @@ const optionalText = (max: number) => z.string().trim().max(max, `Keep it under 
 
 const lineSchema = z.object({
   key: z.string().min(1).max(60),
-  unitPrice: z.string().trim().optional(),
+  unitPrice: z.string().trim().max(30, "Enter an amount like 1250.00.").optional(),
   alternative: z.boolean().optional(),
   alternativeDescription: optionalText(500),
 });

@@ -9,6 +9,8 @@ export default defineConfig({
     setupFiles: ["tests/setup/each-file.ts"],
     reporters: ["default", "./tests/setup/summary-reporter.ts"],
     testTimeout: 20_000,
+    // Browser and HTTP tests share two cores with each other: give a page time to answer.
+    expect: { poll: { timeout: 5_000 } },
     hookTimeout: 60_000,
   },
 });

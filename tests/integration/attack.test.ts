@@ -97,6 +97,24 @@ beforeAll(async () => {
 
 const count = async (table: string) => Number(((await db.query(`SELECT count(*)::int AS n FROM ${table}`, { plain: true })) as { n: number }).n);
 
+describe("behind a trusted proxy", () => {
+  it("counts the client the proxy names, so each client keeps its own allowance", async () => {
+    // This server believes X-Forwarded-For from loopback, where the test stands in for the proxy.
+    const proxied = await startHttpApp({ SIZING_REQUESTS_PER_MINUTE: "2", TRUSTED_PROXIES: "loopback" });
+    try {
+      const post = (client: string) =>
+        fetch(`${proxied.baseUrl}/api/v1/sizing`, { method: "POST", headers: { "Content-Type": "application/json", "X-Forwarded-For": client }, body: "{}" });
+      const first = [await post("198.51.100.1"), await post("198.51.100.1"), await post("198.51.100.1")].map((r) => r.status);
+      expect(first).toEqual([400, 400, 429]);
+      expect((await post("198.51.100.2")).status).toBe(400);
+      // A client can't add its own entry in front: the proxy's last hop is what counts.
+      expect((await post("203.0.113.7, 198.51.100.1")).status).toBe(429);
+    } finally {
+      await proxied.close();
+    }
+  }, 60_000);
+});
+
 // First: the other tests post to the API too, and would spend this minute's allowance.
 describe("the sizing API's rate limit", () => {
   it("ignores the X-Forwarded-For a client sends when no proxy is trusted", async () => {

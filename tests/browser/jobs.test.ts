@@ -3,9 +3,8 @@
 // stays out of the shop's view.
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Bid, Organisation, sequelize, type User } from "~/models/index.server";
-import { openJob } from "~/services/jobs.server";
-import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { Organisation, type User } from "~/models/index.server";
+import { PASSWORD, makeJob, makeMember, makeOperatorUser } from "../support/factories";
 import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
 
 let app: BrowserApp;
@@ -20,20 +19,7 @@ beforeAll(async () => {
   manager = await makeOperatorUser("account_manager");
   await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
   for (const title of ["Fixture clamp, twin cylinders", "Edge press, main ram"]) {
-    const spec = await makePublishedSpec(buyer, { machine: { title } });
-    const bid = await Bid.create({
-      specId: spec.id,
-      organisationId: shop.organisationId,
-      createdById: shop.id,
-      status: "submitted",
-      specRevision: 1,
-      currency: spec.currency,
-      totalCents: 2_480_000,
-      leadTimeWeeks: 10,
-      validUntil: inDays(30),
-      submittedAt: new Date(),
-    });
-    const job = await sequelize.transaction((transaction) => openJob(transaction, { spec, bid, awardedBy: buyer }));
+    const { job } = await makeJob(buyer, shop, { title, totalCents: 2_480_000, leadTimeWeeks: 10 });
     jobId ??= job.id;
   }
   app = await startBrowserApp();

@@ -8,7 +8,7 @@ import * as jobsPage from "~/routes/jobs";
 import * as jobPage from "~/routes/job";
 import * as accountPage from "~/routes/account";
 import * as specPage from "~/routes/spec";
-import { Bid, Job, JobEvent, JobMilestone, Organisation, User, sequelize, type Spec } from "~/models/index.server";
+import { Bid, Job, JobEvent, JobMilestone, Organisation, User, sequelize } from "~/models/index.server";
 import { MILESTONE_KEYS } from "~/content/job-milestones";
 import { addDays, isoDay } from "~/content/dates";
 import {
@@ -23,7 +23,7 @@ import {
 } from "~/services/jobs.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { FieldErrors } from "~/services/errors.server";
-import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { PASSWORD, inDays, makeJob, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { Visitor } from "../support/routes";
 
@@ -32,35 +32,6 @@ async function signedIn(user: User) {
   const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
   expect(res.status).toBe(302);
   return visitor;
-}
-
-let serial = 0;
-/** A published spec of `buyer`, a submitted bid of `shop` on it, and the job the award opens. */
-async function makeJob(buyer: User, shop: User, options: { totalCents?: number; leadTimeWeeks?: number | null; title?: string } = {}) {
-  const title = options.title ?? `Scissor lift table ${++serial}`;
-  const spec = await makePublishedSpec(buyer, { machine: { title } });
-  const totalCents = options.totalCents ?? 1_234_567;
-  const bid = await Bid.create({
-    specId: spec.id,
-    organisationId: shop.organisationId,
-    createdById: shop.id,
-    status: "submitted",
-    specRevision: 1,
-    currency: spec.currency,
-    lines: [
-      { key: "power-unit", item: "Power unit", quantity: 1, specification: "7.5 kW, 40 l tank", unitPriceCents: totalCents, alternative: false, alternativeDescription: "" },
-    ],
-    units: 1,
-    setTotalCents: totalCents,
-    totalCents,
-    leadTimeWeeks: options.leadTimeWeeks === undefined ? 12 : options.leadTimeWeeks,
-    validUntil: inDays(30),
-    terms: "30 days net",
-    notes: "",
-    submittedAt: new Date(),
-  });
-  const job = await sequelize.transaction((transaction) => openJob(transaction, { spec, bid, awardedBy: buyer }));
-  return { spec: spec as Spec, bid, job };
 }
 
 /** Moves a job's award (and its milestones' targets) `days` into the past, as if awarded then. */

@@ -14,11 +14,10 @@ import * as signIn from "~/routes/sign-in";
 import * as team from "~/routes/team";
 import * as jobPage from "~/routes/job";
 import * as adminMail from "~/routes/admin.mail";
-import { Bid, OutboxMail, sequelize, type User } from "~/models/index.server";
+import { OutboxMail, type User } from "~/models/index.server";
 import { requestPasswordReset } from "~/services/accounts.server";
-import { openJob } from "~/services/jobs.server";
 import { MAIL_PRIORITIES, MAX_ATTEMPTS, deliverDueMail, enqueueMail, retryDelayMs } from "~/services/mail.server";
-import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec, uniqueEmail } from "../support/factories";
+import { PASSWORD, makeJob, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
 
 // Each test reads the whole queue, so each starts with an empty one.
@@ -112,25 +111,7 @@ describe("requests only queue mail", () => {
   it("a milestone is queued for buyer and shop, and nothing is sent in the request", async () => {
     const buyer = await makeMember("buyer");
     const shop = await makeMember("shop");
-    const spec = await makePublishedSpec(buyer);
-    const bid = await Bid.create({
-      specId: spec.id,
-      organisationId: shop.organisationId,
-      createdById: shop.id,
-      status: "submitted",
-      specRevision: 1,
-      currency: spec.currency,
-      lines: [{ key: "power-unit", item: "Power unit", quantity: 1, specification: "7.5 kW", unitPriceCents: 500_000, alternative: false, alternativeDescription: "" }],
-      units: 1,
-      setTotalCents: 500_000,
-      totalCents: 500_000,
-      leadTimeWeeks: 10,
-      validUntil: inDays(30),
-      terms: "",
-      notes: "",
-      submittedAt: new Date(),
-    });
-    const job = await sequelize.transaction((transaction) => openJob(transaction, { spec, bid, awardedBy: buyer }));
+    const { job } = await makeJob(buyer, shop, { totalCents: 500_000, leadTimeWeeks: 10 });
     const res = await (await signedIn(shop)).post(jobPage.action, `/jobs/${job.id}`, { intent: "reach", milestone: "in_build", note: "" }, { jobId: job.id });
     expect(res.status).toBe(302);
     for (const person of [buyer, shop]) {

@@ -1,6 +1,6 @@
 // Test data made through the app's own services, so tests exercise the real rules.
 import { randomBytes } from "node:crypto";
-import { Organisation, User } from "~/models/index.server";
+import { Bid, Organisation, User, sequelize, type Spec } from "~/models/index.server";
 import { hashPassword, signUp } from "~/services/accounts.server";
 import type { Role } from "~/auth/roles";
 
@@ -60,4 +60,34 @@ export async function makePublishedSpec(buyer: User, overrides: SpecOverrides = 
   }
   await publish(spec, buyer, true);
   return spec;
+}
+
+let jobSerial = 0;
+/** A published spec of `buyer`, a submitted one-line bid of `shop` on it, and the job its award opens. */
+export async function makeJob(buyer: User, shop: User, options: { totalCents?: number; leadTimeWeeks?: number | null; title?: string } = {}) {
+  const { openJob } = await import("~/services/jobs.server");
+  const title = options.title ?? `Scissor lift table ${++jobSerial}`;
+  const spec = await makePublishedSpec(buyer, { machine: { title } });
+  const totalCents = options.totalCents ?? 1_234_567;
+  const bid = await Bid.create({
+    specId: spec.id,
+    organisationId: shop.organisationId,
+    createdById: shop.id,
+    status: "submitted",
+    specRevision: 1,
+    currency: spec.currency,
+    lines: [
+      { key: "power-unit", item: "Power unit", quantity: 1, specification: "7.5 kW, 40 l tank", unitPriceCents: totalCents, alternative: false, alternativeDescription: "" },
+    ],
+    units: 1,
+    setTotalCents: totalCents,
+    totalCents,
+    leadTimeWeeks: options.leadTimeWeeks === undefined ? 12 : options.leadTimeWeeks,
+    validUntil: inDays(30),
+    terms: "30 days net",
+    notes: "",
+    submittedAt: new Date(),
+  });
+  const job = await sequelize.transaction((transaction) => openJob(transaction, { spec, bid, awardedBy: buyer }));
+  return { spec: spec as Spec, bid, job };
 }

@@ -71,7 +71,7 @@ export function RetainerPanel({
                   {formatMoney(r.amountCents, p.currency)} · {REFUND_LABELS[r.status]} · {r.reason} ({r.by}, {formatMoment(r.at)}){r.failureMessage ? ` — ${r.failureMessage}` : ""}
                 </p>
               ))}
-              {canRefund && (p.status === "paid" || p.status === "partially_refunded") ? <RefundForm payment={p} /> : null}
+              {canRefund && (p.status === "paid" || p.status === "partially_refunded") ? <RefundForm key={p.refunds.length} payment={p} /> : null}
             </li>
           ))}
         </ul>
@@ -100,7 +100,7 @@ function RefundForm({ payment }: { payment: PaymentView }) {
         <FieldErrorText id={`${id}-amount-error`} errors={errors.amount ?? undefined} />
       </div>
       <div>
-        <label htmlFor={`${id}-reason`} className="block text-xs font-semibold">Reason</label>
+        <label htmlFor={`${id}-reason`} className="block text-xs font-semibold">Reason (the buyer reads it on the job page)</label>
         <input id={`${id}-reason`} name="reason" className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200" aria-invalid={errors.reason ? true : undefined} />
         <FieldErrorText id={`${id}-reason-error`} errors={errors.reason ?? undefined} />
       </div>

@@ -57,6 +57,7 @@ function checkDates(v: Record<string, unknown>, ctx: z.RefinementCtx) {
   const needed = typeof v.dateNeeded === "string" ? v.dateNeeded : null;
   if (deadline && deadline <= today()) ctx.addIssue({ code: "custom", path: ["bidDeadline"], message: "The bid deadline must be after today." });
   if (deadline && needed && needed <= deadline) ctx.addIssue({ code: "custom", path: ["dateNeeded"], message: "The date needed must be after the bid deadline." });
+  else if (needed && needed <= today()) ctx.addIssue({ code: "custom", path: ["dateNeeded"], message: "The date needed must be after today." });
 }
 
 export const quotationSchema = z.object(OWN_FIELDS.quotation).superRefine(checkDates);

@@ -20,7 +20,7 @@ export const REQUEST_LIMITS = {
 /** Routes whose action takes multipart uploads; everywhere else multipart is refused. */
 const UPLOAD_PATH = /^\/specs\/[^/]+\/attachments(\.data)?$/;
 
-export type BoundsProblem = { status: 400 | 411 | 413 | 415; message: string };
+export type BoundsProblem = { status: 400 | 413 | 415; message: string };
 
 const bodyless = (method: string) => method === "GET" || method === "HEAD" || method === "OPTIONS";
 
@@ -29,13 +29,14 @@ const FIELD_NAME = /^[A-Za-z_][\w-]*(?:\[\d+\]|\.[A-Za-z_][\w-]*)*$/;
 const INDEX = /\[(\d+)\]/g;
 const NUL = "\u0000";
 
-function checkFields(entries: Iterable<[string, string]>, maxFields: number, where: string, rejectRepeats: boolean): BoundsProblem | null {
+/** A form's fields: few, named as ours are, within our lists, no NUL, each sent once. */
+function checkFields(entries: Iterable<[string, string]>): BoundsProblem | null {
   const seen = new Set<string>();
   let count = 0;
   for (const [name, value] of entries) {
-    if (++count > maxFields) return { status: 413, message: `Too many fields in the ${where} (at most ${maxFields}).` };
+    if (++count > REQUEST_LIMITS.fields) return { status: 413, message: `Too many fields in the form (at most ${REQUEST_LIMITS.fields}).` };
     if (name.length > REQUEST_LIMITS.fieldNameLength || !FIELD_NAME.test(name)) {
-      return { status: 400, message: `The ${where} has a field name this site does not use: “${printable(name)}”.` };
+      return { status: 400, message: `The form has a field name this site does not use: “${printable(name)}”.` };
     }
     for (const [, index] of name.matchAll(INDEX)) {
       if (Number(index) > REQUEST_LIMITS.listIndex) return { status: 400, message: `The field “${printable(name)}” points past the end of any list on this site.` };
@@ -43,10 +44,8 @@ function checkFields(entries: Iterable<[string, string]>, maxFields: number, whe
     if (name.includes(NUL) || value.includes(NUL)) {
       return { status: 400, message: `The field “${printable(name)}” contains a NUL character, which text here cannot hold.` };
     }
-    if (rejectRepeats) {
-      if (seen.has(name)) return { status: 400, message: `The field “${printable(name)}” was sent more than once.` };
-      seen.add(name);
-    }
+    if (seen.has(name)) return { status: 400, message: `The field “${printable(name)}” was sent more than once.` };
+    seen.add(name);
   }
   return null;
 }
@@ -119,7 +118,7 @@ export async function checkRequestBounds(request: Request): Promise<BoundsProble
   if (type === "application/x-www-form-urlencoded") {
     const text = await readBounded(request, REQUEST_LIMITS.formBytes);
     if (text === null) return { status: 413, message: `The form is too large (at most ${REQUEST_LIMITS.formBytes / 1024} kB).` };
-    return checkFields(new URLSearchParams(text), REQUEST_LIMITS.fields, "form", true);
+    return checkFields(new URLSearchParams(text));
   }
   // Every form of ours says what it sends; a route could not read a body that does not.
   if (type === "") return { status: 415, message: "Say what the body is: send forms as application/x-www-form-urlencoded." };

@@ -1,4 +1,5 @@
 import { CIRCUIT_CAUTIONS } from "~/content/cautions";
+import { warningTitle } from "~/content/warning-titles";
 import type { BomLine, Design, TrailEntry, Warning } from "~/hydraulics/design";
 import type { TrailInput } from "~/hydraulics/trail";
 import type { UnitSystem } from "~/units";
@@ -73,7 +74,7 @@ export function WarningsList({ warnings }: { warnings: Warning[] }) {
         <ul className="space-y-2">
           {warnings.map((w, i) => (
             <li key={`${w.code}-${i}`} data-warning={w.code} className="rounded-md border-l-4 border-signal-500 bg-signal-50 px-4 py-3 text-sm">
-              <code className="block text-xs font-semibold tracking-wide text-signal-700">{w.code}</code>
+              <p className="font-semibold text-signal-700">{warningTitle(w.code)}</p>
               <p className="mt-1 text-ink-800">{w.message}</p>
             </li>
           ))}
@@ -153,6 +154,11 @@ export function CalculationTrail({ trail }: { trail: TrailEntry[] }) {
       <summary className="cursor-pointer text-sm font-semibold text-flow-700">
         {trail.length} calculation steps, each with its formula, inputs and source
       </summary>
+      <p className="mt-2 text-xs text-ink-600" data-trail-legend="">
+        Sources are marked: <strong>[S]</strong> taken from a published source (a standard, a textbook, a maker's table) we have read; <strong>[M]</strong> a
+        published value quoted from memory, to be verified before anyone relies on it; <strong>[CP]</strong> common practice of the
+        trade, a sensible default rather than a rule; <strong>[D]</strong> worked out from the numbers above.
+      </p>
       <div className="mt-3 overflow-x-auto">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Calculation trail</caption>

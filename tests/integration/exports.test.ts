@@ -16,6 +16,7 @@ import * as billXlsx from "~/routes/spec-bill.xlsx";
 import * as bidsXlsx from "~/routes/spec-bids.xlsx";
 import * as pricedXlsx from "~/routes/job-priced-bill.xlsx";
 import * as specPage from "~/routes/spec";
+import { warningTitle } from "~/content/warning-titles";
 import { CIRCUIT_CAUTIONS } from "~/content/cautions";
 import { formatMoney } from "~/content/currencies";
 import { ENGINE_VERSION, type BomLine, type Design } from "~/hydraulics";
@@ -134,10 +135,13 @@ function expectSensibleWidths(sheet: ExcelJS.Worksheet, count: number) {
 function expectCautions(sheet: ExcelJS.Worksheet, warnings: Design["warnings"]) {
   const texts = Array.from({ length: sheet.rowCount }, (_, i) => sheet.getCell(i + 1, 2).text);
   for (const caution of CIRCUIT_CAUTIONS) expect(texts).toContain(caution);
-  const codes = Array.from({ length: sheet.rowCount }, (_, i) => sheet.getCell(i + 1, 1).text);
+  // Each warning by its title and sentence; the engine's code only in the last column, for reviewers.
+  const codes = Array.from({ length: sheet.rowCount }, (_, i) => sheet.getCell(i + 1, 3).text);
   for (const w of warnings) {
     const r = codes.indexOf(w.code) + 1;
     expect(r).toBeGreaterThan(0);
+    expect(sheet.getCell(r, 1).text).toBe(warningTitle(w.code));
+    expect(sheet.getCell(r, 1).text).not.toMatch(/^[A-Z_]+$/);
     expect(sheet.getCell(r, 2).text).toBe(w.message);
   }
 }

@@ -1,3 +1,4 @@
+import { warningTitle } from "~/content/warning-titles";
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
@@ -34,12 +35,13 @@ describe("ComponentTable", () => {
 });
 
 describe("WarningsList", () => {
-  it("shows each warning's code and message", () => {
+  it("shows each warning's title and message, not its code", () => {
     const html = renderToStaticMarkup(<WarningsList warnings={press.warnings} />);
     expect(press.warnings.length).toBeGreaterThan(0);
     expect(count(html, /data-warning="/g)).toBe(press.warnings.length);
     for (const w of press.warnings) {
-      expect(html).toContain(`>${w.code}<`);
+      expect(html).toContain(escaped(warningTitle(w.code)));
+      expect(html).not.toContain(`>${w.code}<`);
       expect(html).toContain(escaped(w.message));
     }
   });

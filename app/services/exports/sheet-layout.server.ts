@@ -1,6 +1,7 @@
 import ExcelJS from "exceljs";
 import { CIRCUIT_CAUTIONS } from "~/content/cautions";
 import type { Warning } from "~/hydraulics";
+import { warningTitle } from "~/content/warning-titles";
 
 // The look every workbook shares: a header block naming the document and the spec, one styled
 // table header row that stays frozen (and repeats on printed pages), widths chosen per column,
@@ -164,7 +165,7 @@ export const DAY_FORMAT = "d mmm yyyy";
  * on a sheet of their own (product brief: "in every export").
  */
 export function addCautionsSheet(workbook: ExcelJS.Workbook, block: HeaderBlock, warnings: Warning[]) {
-  const columns: Column[] = [{ header: "", width: 30, wrap: true }, { header: "", width: 100, wrap: true }];
+  const columns: Column[] = [{ header: "", width: 30, wrap: true }, { header: "", width: 100, wrap: true }, { header: "", width: 26 }];
   const sheet = addSheet(workbook, "Cautions", columns, false);
   let row = writeHeaderBlock(sheet, { ...block, document: "Cautions and warnings" });
   writeTableHeader(sheet, row, ["Caution", "Before anyone builds this"]);
@@ -175,7 +176,7 @@ export function addCautionsSheet(workbook: ExcelJS.Workbook, block: HeaderBlock,
     styleBodyRow(r, columns);
   });
   row += 2;
-  writeTableHeader(sheet, row, ["Warning", "From the sizing engine, for the reviewing engineer"]);
+  writeTableHeader(sheet, row, ["Warning", "From the sizing engine, for the reviewing engineer", "Code"]);
   if (!warnings.length) {
     const r = sheet.getRow(++row);
     r.values = ["None", "Nothing in this design is flagged beyond the cautions above."];
@@ -183,7 +184,7 @@ export function addCautionsSheet(workbook: ExcelJS.Workbook, block: HeaderBlock,
   }
   for (const w of warnings) {
     const r = sheet.getRow(++row);
-    r.values = [w.code, w.message];
+    r.values = [warningTitle(w.code), w.message, w.code];
     styleBodyRow(r, columns);
   }
   return sheet;

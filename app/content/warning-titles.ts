@@ -1,0 +1,28 @@
+// Short titles for the engine's warnings, as people read them on pages and in workbooks. The
+// engine's code stays in the data (exports and reviewers key on it); nobody is shown it as a name.
+import type { WarningCode } from "~/hydraulics";
+
+const TITLES: Partial<Record<WarningCode, string>> = {
+  BUCKLING_MARGIN: "Rod close to buckling",
+  ROD_SIDE_INTENSIFICATION: "Pressure multiplied on the rod side",
+  HEAT_COOLER_NEEDED: "Cooler needed",
+  PUMP_SPEED_MISMATCH: "A stroke runs at another speed than asked",
+  PUMP_ON_RELIEF_IN_NEUTRAL: "Pump runs over the relief valve at rest",
+  RELIEF_VENTED_IN_NEUTRAL: "Relief valve vented at rest",
+  PRESSURE_NEAR_LIMIT: "Working pressure close to your limit",
+  PRESSURE_LIMIT_EXCEEDED: "Working pressure above your limit",
+  VALVE_NEAR_LIMIT: "Valve near its flow limit",
+  BORE_OUT_OF_SERIES: "No standard cylinder is large enough",
+  LINE_SIZE_BEYOND_RANGE: "Lines larger than the usual hose range",
+  PUMP_BEYOND_SERIES: "No standard pump is large enough",
+  MOTOR_BEYOND_SERIES: "No standard motor is large enough",
+  DUTY_CYCLE_OVERLOAD: "The cycles asked for do not fit in an hour",
+  CBV_SETTING_LOW: "Counterbalance setting unusually low",
+};
+
+/** The title of a warning; a code without one yet still reads as a sentence, never as a code. */
+export function warningTitle(code: WarningCode | string): string {
+  return TITLES[code as WarningCode] ?? "A point for the reviewing engineer";
+}
+
+export const WARNING_TITLES = TITLES;

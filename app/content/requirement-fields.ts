@@ -1,11 +1,12 @@
-import { requirementsSchema, type RequirementsInput } from "~/hydraulics";
+import { REQUIREMENT_DEFAULTS, requirementsSchema, type RequirementsInput } from "~/hydraulics";
 import { fromDisplay, roundForDisplay, toDisplay, unitLabel, UNITS, type Quantity, type UnitSystem } from "~/units";
 
 // The questions a person answers about one axis: wording, examples, units and defaults, in one
 // place for the quick-sizing page and the spec form. Values are typed in the person's unit
 // system and handed to the engine in the units its fields name.
 
-export type RequirementKey = keyof RequirementsInput;
+// The axis name is the spec's title or, in a machine, a text field of its own: not a question here.
+export type RequirementKey = Exclude<keyof RequirementsInput, "name">;
 
 interface BaseField {
   key: RequirementKey;
@@ -92,7 +93,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     help: "Pressing, clamping or cutting force the rod must push with when extending. 0 if it only moves the load.",
     quantity: "force",
     example: 50_000,
-    defaultValue: 0,
+    defaultValue: REQUIREMENT_DEFAULTS.processForceN,
   },
   frictionCoefficient: {
     key: "frictionCoefficient",
@@ -100,7 +101,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     label: "Friction of the guides",
     help: "Rolling rails about 0.01, greased slides about 0.1, dry steel on steel up to 0.2.",
     example: 0.1,
-    defaultValue: 0.1,
+    defaultValue: REQUIREMENT_DEFAULTS.frictionCoefficient,
     step: 0.01,
   },
   strokeMm: {
@@ -133,7 +134,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     label: "Time to reach speed",
     help: "Seconds from standstill to full speed. 0.2 s suits most axes.",
     example: 0.2,
-    defaultValue: 0.2,
+    defaultValue: REQUIREMENT_DEFAULTS.accelTimeS,
     step: 0.05,
   },
   cyclesPerHour: {
@@ -158,7 +159,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     help: "The warmest the workshop gets in normal work.",
     quantity: "temperature",
     example: 25,
-    defaultValue: 25,
+    defaultValue: REQUIREMENT_DEFAULTS.ambientC,
   },
   supplyHz: {
     key: "supplyHz",
@@ -171,6 +172,73 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
       { value: "60", label: "60 Hz" },
     ],
   },
+  pressStrokeMm: {
+    key: "pressStrokeMm",
+    kind: "number",
+    label: "Pressing stroke",
+    help: "The last part of the extension made slowly against the working force. 0 if the whole stroke runs at one speed.",
+    quantity: "length",
+    example: 30,
+    defaultValue: REQUIREMENT_DEFAULTS.pressStrokeMm,
+  },
+  pressSpeedMmS: {
+    key: "pressSpeedMmS",
+    kind: "number",
+    label: "Pressing speed",
+    help: "How fast the rod moves while pressing; needed when there is a pressing stroke, and no faster than the extending speed.",
+    quantity: "speed",
+    example: 10,
+  },
+  dwellS: {
+    key: "dwellS",
+    kind: "number",
+    label: "Dwell at force",
+    help: "Seconds the rod keeps pressing at the end of the extension, every cycle. 0 if it returns at once.",
+    example: 2,
+    defaultValue: REQUIREMENT_DEFAULTS.dwellS,
+    step: 0.5,
+  },
+  holdMinutes: {
+    key: "holdMinutes",
+    kind: "number",
+    label: "Time the load is held at rest",
+    help: "Minutes the axis must hold its load still without creeping, e.g. a clamp held through a machining cycle. 0 if it never waits under load.",
+    example: 30,
+    defaultValue: REQUIREMENT_DEFAULTS.holdMinutes,
+    step: 1,
+  },
+  decelTimeS: {
+    key: "decelTimeS",
+    kind: "number",
+    label: "Time to stop",
+    help: "Seconds from full speed to standstill. Leave it empty to use the time to reach speed.",
+    example: 0.2,
+    step: 0.05,
+  },
+  mountingStyle: {
+    key: "mountingStyle",
+    kind: "choice",
+    label: "How the cylinder body is fixed",
+    help: "Where the body is held decides how long the rod is free to buckle. Leave it empty if not yet known: the engine then assumes the longest free length.",
+    options: [
+      { value: "front-flange", label: "Front flange", hint: "Flange at the rod end of the body" },
+      { value: "rear-flange", label: "Rear flange", hint: "Flange at the far end of the body" },
+      { value: "trunnion", label: "Trunnion", hint: "Pins on the sides of the body" },
+      { value: "clevis", label: "Rear clevis", hint: "A pin through an eye at the back" },
+      { value: "foot", label: "Feet", hint: "Bolted down along the body" },
+    ],
+  },
+  pumpType: {
+    key: "pumpType",
+    kind: "choice",
+    label: "Pump",
+    help: "Leave it empty to let the sizing choose. A double (high-low) or compensated pump saves power where fast motion and high force never meet.",
+    options: [
+      { value: "fixed", label: "Fixed displacement", hint: "Simple and cheap; one flow at any pressure" },
+      { value: "double", label: "Double (high-low)", hint: "Two sections: fast at low pressure, slow at high" },
+      { value: "compensated", label: "Pressure-compensated", hint: "Delivers only the flow the axis takes" },
+    ],
+  },
   maxPressureBar: {
     key: "maxPressureBar",
     kind: "number",
@@ -178,7 +246,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     help: "160 bar suits standard industrial cylinders; lower it if your plant has a limit.",
     quantity: "pressure",
     example: 160,
-    defaultValue: 160,
+    defaultValue: REQUIREMENT_DEFAULTS.maxPressureBar,
   },
 };
 

@@ -8,6 +8,8 @@ import { sizeCircuitParsed } from "./size";
 export { ENGINE_VERSION, sizeCircuitParsed } from "./size";
 export {
   requirementsSchema, parseRequirements, RequirementsError, FORM_ERROR_KEY,
+  REQUIREMENT_LIMITS, REQUIREMENT_DEFAULTS, REQUIREMENT_MESSAGES, ORIENTATIONS, ROD_DIRECTIONS, MOUNTINGS,
+  MOUNTING_STYLES, PUMP_TYPES, SUPPLY_FREQUENCIES, NAME_MAX,
   type Requirements, type RequirementsInput,
 } from "./requirements";
 export type * from "./design";

@@ -2,22 +2,68 @@ import { z } from "zod";
 
 /**
  * The one schema for an axis's requirements: the web form, the API and the engine all use it.
- * Units are SI-based and named in each field; the UI converts for display.
+ * Units are SI-based and named in each field; the UI converts for display. Limits, defaults
+ * and messages live in the tables below and nowhere else, so a form reads the same numbers
+ * the engine checks.
  */
 
-const num = (message: string) => z.number({ error: message });
+interface NumberLimit {
+  readonly min: number;
+  readonly max: number;
+  /** true: the value must be above min, not equal to it */
+  readonly minExclusive?: boolean;
+  /** true: the value must be below max, not equal to it */
+  readonly maxExclusive?: boolean;
+}
 
-const orientation = z.enum(["horizontal", "vertical", "inclined"], {
-  error: "Choose how the axis moves: horizontal, vertical or inclined",
-});
-const rodDirection = z.enum(["up", "down"], {
-  error: "Choose which way the rod moves when it extends: up or down",
-});
-const mounting = z.enum(["fixed-free", "pinned-pinned", "fixed-pinned", "fixed-fixed"], {
-  error: "Choose how the cylinder is mounted: fixed-free, pinned-pinned, fixed-pinned or fixed-fixed",
-});
+/** Bounds of every numeric field, in the unit its name carries. */
+export const REQUIREMENT_LIMITS = {
+  inclineDeg: { min: 0, max: 90, minExclusive: true, maxExclusive: true },
+  massKg: { min: 0, max: 500_000 },
+  processForceN: { min: 0, max: 10_000_000 },
+  frictionCoefficient: { min: 0, max: 1 },
+  strokeMm: { min: 0, max: 10_000, minExclusive: true },
+  extendSpeedMmS: { min: 0, max: 2000, minExclusive: true },
+  retractSpeedMmS: { min: 0, max: 2000, minExclusive: true },
+  pressStrokeMm: { min: 0, max: 10_000 },
+  pressSpeedMmS: { min: 0, max: 2000, minExclusive: true },
+  dwellS: { min: 0, max: 3600 },
+  holdMinutes: { min: 0, max: 10_080 },
+  accelTimeS: { min: 0, max: 10, minExclusive: true },
+  decelTimeS: { min: 0, max: 10, minExclusive: true },
+  cyclesPerHour: { min: 0, max: 3600 },
+  hoursPerDay: { min: 0, max: 24 },
+  ambientC: { min: -30, max: 55 },
+  maxPressureBar: { min: 20, max: 250 },
+} as const satisfies Record<string, NumberLimit>;
 
-const MESSAGES = {
+/**
+ * Values the engine takes when a field is left out (sizing contract). decelTimeS is absent
+ * here on purpose: it defaults to the axis's own accelTimeS.
+ */
+export const REQUIREMENT_DEFAULTS = {
+  processForceN: 0,
+  frictionCoefficient: 0.1,
+  pressStrokeMm: 0,
+  dwellS: 0,
+  holdMinutes: 0,
+  accelTimeS: 0.2,
+  ambientC: 25,
+  maxPressureBar: 160,
+} as const;
+
+export const ORIENTATIONS = ["horizontal", "vertical", "inclined"] as const;
+export const ROD_DIRECTIONS = ["up", "down"] as const;
+export const MOUNTINGS = ["fixed-free", "pinned-pinned", "fixed-pinned", "fixed-fixed"] as const;
+export const MOUNTING_STYLES = ["front-flange", "rear-flange", "trunnion", "clevis", "foot"] as const;
+export const PUMP_TYPES = ["fixed", "double", "compensated"] as const;
+export const SUPPLY_FREQUENCIES = [50, 60] as const;
+/** Longest axis name, in characters. */
+export const NAME_MAX = 80;
+
+export const REQUIREMENT_MESSAGES = {
+  name: `Give the axis a short name, up to ${NAME_MAX} characters, e.g. “Main ram”`,
+  orientation: "Choose how the axis moves: horizontal, vertical or inclined",
   inclineDeg: "Enter the incline angle in degrees, more than 0 and less than 90",
   rodDirection: "Choose which way the rod moves when it extends: up or down",
   massKg: "Enter the moving mass in kilograms, 0 or more (up to 500 000)",
@@ -26,50 +72,93 @@ const MESSAGES = {
   strokeMm: "Enter the stroke in millimetres, more than 0 (up to 10 000)",
   extendSpeedMmS: "Enter the extend speed in millimetres per second, more than 0 (up to 2000)",
   retractSpeedMmS: "Enter the retract speed in millimetres per second, more than 0 (up to 2000)",
+  pressStrokeMm: "Enter the pressing stroke in millimetres, from 0 up to the whole stroke (0 if the whole stroke is one speed)",
+  pressStrokeLongerThanStroke: "The pressing stroke is part of the stroke: enter no more than the whole stroke",
+  pressSpeedMmS: "Enter the pressing speed in millimetres per second, more than 0 (up to 2000)",
+  pressSpeedNeeded: "Enter the pressing speed: it is needed when there is a pressing stroke",
+  pressSpeedAboveApproach: "The pressing speed is the slow part of the extension: enter no more than the extend (approach) speed",
+  dwellS: "Enter the dwell at force in seconds, 0 or more (up to 3600)",
+  holdMinutes: "Enter how long the load must be held at rest in minutes, 0 or more (up to 10 080, a week)",
   accelTimeS: "Enter the time to reach speed in seconds, more than 0 (up to 10; 0.2 if unsure)",
+  decelTimeS: "Enter the time to stop in seconds, more than 0 (up to 10; the time to reach speed if unsure)",
+  mounting: "Choose how the cylinder is mounted: fixed-free, pinned-pinned, fixed-pinned or fixed-fixed",
+  mountingStyle: "Choose how the cylinder body is held: front flange, rear flange, trunnion, clevis or foot",
   cyclesPerHour: "Enter the cycles per hour, 0 or more (up to 3600)",
   hoursPerDay: "Enter the hours of use per day, from 0 to 24",
   ambientC: "Enter the ambient temperature in °C, from -30 to 55",
   supplyHz: "Choose the electrical supply frequency: 50 or 60 Hz",
   maxPressureBar: "Enter the highest working pressure you accept in bar, from 20 to 250 (160 if unsure)",
+  pumpType: "Choose the pump: fixed, double (high-low) or compensated, or leave it to the engine",
 } as const;
 
+type LimitedKey = keyof typeof REQUIREMENT_LIMITS;
+type DefaultedKey = keyof typeof REQUIREMENT_DEFAULTS;
+
+/** A number within its limits, with the field's one message for every way it can be wrong. */
+function limited<K extends LimitedKey>(key: K) {
+  const limit: NumberLimit = REQUIREMENT_LIMITS[key];
+  const message = REQUIREMENT_MESSAGES[key];
+  let schema = z.number({ error: message });
+  schema = limit.minExclusive ? schema.gt(limit.min, message) : schema.min(limit.min, message);
+  schema = limit.maxExclusive ? schema.lt(limit.max, message) : schema.max(limit.max, message);
+  return schema;
+}
+const defaulted = <K extends LimitedKey & DefaultedKey>(key: K) => limited(key).default(REQUIREMENT_DEFAULTS[key]);
+const choice = <T extends readonly [string, ...string[]]>(values: T, message: string) => z.enum(values, { error: message });
+
 const fields = {
-  orientation,
-  inclineDeg: num(MESSAGES.inclineDeg).gt(0, MESSAGES.inclineDeg).lt(90, MESSAGES.inclineDeg).optional(),
-  rodDirection: rodDirection.optional(),
-  massKg: num(MESSAGES.massKg).min(0, MESSAGES.massKg).max(500_000, MESSAGES.massKg),
-  processForceN: num(MESSAGES.processForceN).min(0, MESSAGES.processForceN).max(10_000_000, MESSAGES.processForceN).default(0),
-  frictionCoefficient: num(MESSAGES.frictionCoefficient).min(0, MESSAGES.frictionCoefficient).max(1, MESSAGES.frictionCoefficient).default(0.1),
-  strokeMm: num(MESSAGES.strokeMm).gt(0, MESSAGES.strokeMm).max(10_000, MESSAGES.strokeMm),
-  extendSpeedMmS: num(MESSAGES.extendSpeedMmS).gt(0, MESSAGES.extendSpeedMmS).max(2000, MESSAGES.extendSpeedMmS),
-  retractSpeedMmS: num(MESSAGES.retractSpeedMmS).gt(0, MESSAGES.retractSpeedMmS).max(2000, MESSAGES.retractSpeedMmS),
-  accelTimeS: num(MESSAGES.accelTimeS).gt(0, MESSAGES.accelTimeS).max(10, MESSAGES.accelTimeS).default(0.2),
-  mounting,
-  cyclesPerHour: num(MESSAGES.cyclesPerHour).min(0, MESSAGES.cyclesPerHour).max(3600, MESSAGES.cyclesPerHour),
-  hoursPerDay: num(MESSAGES.hoursPerDay).min(0, MESSAGES.hoursPerDay).max(24, MESSAGES.hoursPerDay),
-  ambientC: num(MESSAGES.ambientC).min(-30, MESSAGES.ambientC).max(55, MESSAGES.ambientC).default(25),
-  supplyHz: z.union([z.literal(50), z.literal(60)], { error: MESSAGES.supplyHz }),
-  maxPressureBar: num(MESSAGES.maxPressureBar).min(20, MESSAGES.maxPressureBar).max(250, MESSAGES.maxPressureBar).default(160),
+  orientation: choice(ORIENTATIONS, REQUIREMENT_MESSAGES.orientation),
+  inclineDeg: limited("inclineDeg").optional(),
+  rodDirection: choice(ROD_DIRECTIONS, REQUIREMENT_MESSAGES.rodDirection).optional(),
+  massKg: limited("massKg"),
+  processForceN: defaulted("processForceN"),
+  frictionCoefficient: defaulted("frictionCoefficient"),
+  strokeMm: limited("strokeMm"),
+  extendSpeedMmS: limited("extendSpeedMmS"),
+  retractSpeedMmS: limited("retractSpeedMmS"),
+  accelTimeS: defaulted("accelTimeS"),
+  mounting: choice(MOUNTINGS, REQUIREMENT_MESSAGES.mounting),
+  cyclesPerHour: limited("cyclesPerHour"),
+  hoursPerDay: limited("hoursPerDay"),
+  ambientC: defaulted("ambientC"),
+  supplyHz: z.union([z.literal(50), z.literal(60)], { error: REQUIREMENT_MESSAGES.supplyHz }),
+  maxPressureBar: defaulted("maxPressureBar"),
+  // Contract version 2: all optional or defaulted, so version-1 requests and stored specs still parse.
+  name: z.string({ error: REQUIREMENT_MESSAGES.name }).trim().min(1, REQUIREMENT_MESSAGES.name).max(NAME_MAX, REQUIREMENT_MESSAGES.name).optional(),
+  pressStrokeMm: defaulted("pressStrokeMm"),
+  pressSpeedMmS: limited("pressSpeedMmS").optional(),
+  dwellS: defaulted("dwellS"),
+  holdMinutes: defaulted("holdMinutes"),
+  decelTimeS: limited("decelTimeS").optional(),
+  mountingStyle: choice(MOUNTING_STYLES, REQUIREMENT_MESSAGES.mountingStyle).optional(),
+  pumpType: choice(PUMP_TYPES, REQUIREMENT_MESSAGES.pumpType).optional(),
 };
+
+const isNumber = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
 
 export const requirementsSchema = z.object(fields, { error: "Send the axis requirements as an object" }).superRefine(
   (value, ctx) => {
     // Runs even when other fields failed, so every problem is reported at once.
     const v = value as Partial<Record<keyof typeof fields, unknown>>;
     const tilted = v.orientation === "inclined";
-    if (tilted && v.inclineDeg === undefined) {
-      ctx.addIssue({ code: "custom", path: ["inclineDeg"], message: MESSAGES.inclineDeg });
-    }
-    if ((tilted || v.orientation === "vertical") && v.rodDirection === undefined) {
-      ctx.addIssue({ code: "custom", path: ["rodDirection"], message: MESSAGES.rodDirection });
+    const issue = (path: keyof typeof fields, message: string) => ctx.addIssue({ code: "custom", path: [path], message });
+    if (tilted && v.inclineDeg === undefined) issue("inclineDeg", REQUIREMENT_MESSAGES.inclineDeg);
+    if ((tilted || v.orientation === "vertical") && v.rodDirection === undefined) issue("rodDirection", REQUIREMENT_MESSAGES.rodDirection);
+    // A pressing phase is the slow last part of the extension: it needs its speed, no faster
+    // than the approach (equal is a single-speed extension with the force over its last part).
+    if (isNumber(v.pressStrokeMm) && v.pressStrokeMm > 0) {
+      if (v.pressSpeedMmS === undefined) issue("pressSpeedMmS", REQUIREMENT_MESSAGES.pressSpeedNeeded);
+      else if (isNumber(v.pressSpeedMmS) && isNumber(v.extendSpeedMmS) && v.pressSpeedMmS > v.extendSpeedMmS) {
+        issue("pressSpeedMmS", REQUIREMENT_MESSAGES.pressSpeedAboveApproach);
+      }
+      if (isNumber(v.strokeMm) && v.pressStrokeMm > v.strokeMm) issue("pressStrokeMm", REQUIREMENT_MESSAGES.pressStrokeLongerThanStroke);
     }
   },
   { when: (payload) => typeof payload.value === "object" && payload.value !== null },
 );
 
-/** Requirements as the engine sees them, with defaults filled in. */
-export type Requirements = z.output<typeof requirementsSchema>;
+/** Requirements as the engine sees them, with defaults filled in (decelTimeS from accelTimeS). */
+export type Requirements = Omit<z.output<typeof requirementsSchema>, "decelTimeS"> & { decelTimeS: number };
 /** Requirements as a form or API client sends them. */
 export type RequirementsInput = z.input<typeof requirementsSchema>;
 
@@ -87,73 +176,13 @@ export class RequirementsError extends Error {
 /** Field key used for problems with the request as a whole. */
 export const FORM_ERROR_KEY = "_form";
 
-const finite = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x);
-const within = (x: unknown, min: number, max: number): x is number => finite(x) && x >= min && x <= max;
-const above = (x: unknown, min: number, max: number): x is number => finite(x) && x > min && x <= max;
-/** A field with a default: absent (or undefined) takes the default, as the schema does. */
-const orDefault = (x: unknown, fallback: number, min: number, max: number): number | undefined =>
-  x === undefined ? fallback : within(x, min, max) ? x : undefined;
-
-/**
- * The schema's answer for a plain object it accepts, worked out directly: the same checks, the
- * same defaults, the same keys in the same order, unknown keys dropped. Anything it is not sure
- * of (a problem, an explicit undefined on an optional field, an unusual object) returns
- * undefined, and the schema itself decides and words the errors. A property test holds the two
- * to the same output. It exists because the schema costs more than the sizing search.
- */
-function acceptedRequirements(input: unknown): Requirements | undefined {
-  if (typeof input !== "object" || input === null) return undefined;
-  const proto = Object.getPrototypeOf(input);
-  if (proto !== Object.prototype && proto !== null) return undefined;
-  const o = input as Record<string, unknown>;
-  const orientation = o.orientation;
-  if (orientation !== "horizontal" && orientation !== "vertical" && orientation !== "inclined") return undefined;
-  const inclineDeg = o.inclineDeg;
-  if (inclineDeg === undefined ? orientation === "inclined" || "inclineDeg" in o : !(finite(inclineDeg) && inclineDeg > 0 && inclineDeg < 90)) {
-    return undefined;
-  }
-  const rodDirection = o.rodDirection;
-  if (rodDirection === undefined ? orientation !== "horizontal" || "rodDirection" in o : rodDirection !== "up" && rodDirection !== "down") {
-    return undefined;
-  }
-  const { massKg, strokeMm, extendSpeedMmS, retractSpeedMmS, mounting, cyclesPerHour, hoursPerDay, supplyHz } = o;
-  if (!within(massKg, 0, 500_000) || !above(strokeMm, 0, 10_000)) return undefined;
-  if (!above(extendSpeedMmS, 0, 2000) || !above(retractSpeedMmS, 0, 2000)) return undefined;
-  if (mounting !== "fixed-free" && mounting !== "pinned-pinned" && mounting !== "fixed-pinned" && mounting !== "fixed-fixed") return undefined;
-  if (!within(cyclesPerHour, 0, 3600) || !within(hoursPerDay, 0, 24) || (supplyHz !== 50 && supplyHz !== 60)) return undefined;
-  const processForceN = orDefault(o.processForceN, 0, 0, 10_000_000);
-  const frictionCoefficient = orDefault(o.frictionCoefficient, 0.1, 0, 1);
-  const accelTime = o.accelTimeS;
-  const accelTimeS = accelTime === undefined ? 0.2 : above(accelTime, 0, 10) ? accelTime : undefined;
-  const ambientC = orDefault(o.ambientC, 25, -30, 55);
-  const maxPressureBar = orDefault(o.maxPressureBar, 160, 20, 250);
-  if (processForceN === undefined || frictionCoefficient === undefined || accelTimeS === undefined) return undefined;
-  if (ambientC === undefined || maxPressureBar === undefined) return undefined;
-  const out: Partial<Requirements> = { orientation };
-  if (inclineDeg !== undefined) out.inclineDeg = inclineDeg as number;
-  if (rodDirection !== undefined) out.rodDirection = rodDirection as "up" | "down";
-  out.massKg = massKg;
-  out.processForceN = processForceN;
-  out.frictionCoefficient = frictionCoefficient;
-  out.strokeMm = strokeMm;
-  out.extendSpeedMmS = extendSpeedMmS;
-  out.retractSpeedMmS = retractSpeedMmS;
-  out.accelTimeS = accelTimeS;
-  out.mounting = mounting;
-  out.cyclesPerHour = cyclesPerHour;
-  out.hoursPerDay = hoursPerDay;
-  out.ambientC = ambientC;
-  out.supplyHz = supplyHz;
-  out.maxPressureBar = maxPressureBar;
-  return out as Requirements;
-}
-
 /** Parses requirements or throws a RequirementsError naming each bad field. */
 export function parseRequirements(input: unknown): Requirements {
-  const accepted = acceptedRequirements(input);
-  if (accepted) return accepted;
   const result = requirementsSchema.safeParse(input);
-  if (result.success) return result.data;
+  if (result.success) {
+    const data = result.data;
+    return { ...data, decelTimeS: data.decelTimeS ?? data.accelTimeS };
+  }
   const fieldErrors: Record<string, string[]> = {};
   for (const issue of result.error.issues) {
     const key = issue.path.length > 0 ? String(issue.path[0]) : FORM_ERROR_KEY;

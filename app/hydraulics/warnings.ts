@@ -16,6 +16,8 @@ export const WARNING_CODES = [
   "MOTOR_BEYOND_SERIES",
   "DUTY_CYCLE_OVERLOAD",
   "CBV_SETTING_LOW",
+  /** an answer of contract version 2 that this engine version accepts but does not size yet */
+  "REQUIREMENT_NOT_YET_SIZED",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

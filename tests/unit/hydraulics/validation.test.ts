@@ -2,7 +2,8 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
-  FORM_ERROR_KEY, RequirementsError, parseRequirements, requirementsSchema, sizeCircuit, type RequirementsInput,
+  FORM_ERROR_KEY, REQUIREMENT_DEFAULTS, REQUIREMENT_LIMITS, REQUIREMENT_MESSAGES, RequirementsError, parseRequirements,
+  requirementsSchema, sizeCircuit, type RequirementsInput,
 } from "~/hydraulics";
 import { requirementsArb } from "./arbitraries";
 
@@ -71,47 +72,80 @@ describe("requirements schema", () => {
   });
 });
 
-describe("parseRequirements gives exactly the schema's answer (its fast path for accepted input)", () => {
-  // Values near and across every limit, wrong types, explicit undefined, extra keys.
-  const value = fc.oneof(
-    fc.constantFrom(undefined, null, "", "5", true, NaN, Infinity, -Infinity, -0, 0, 0.1, 1, 10, 20, 24, 50, 60, 89.9, 90, 160, 250, 2000, 3600, 10_000, 500_000, 10_000_000, -1, -30, 55, 1e12),
-    fc.double({ min: -100, max: 3000, noNaN: true }),
-    fc.constantFrom("horizontal", "vertical", "inclined", "up", "down", "fixed-free", "pinned-pinned", "fixed-pinned", "fixed-fixed", "sideways"),
-  );
-  const keys = [...Object.keys(requirementsSchema.shape), "extra"];
-  const perturbed = fc.tuple(requirementsArb, fc.array(fc.tuple(fc.constantFrom(...keys), value, fc.boolean()), { maxLength: 3 })).map(([base, edits]) => {
-    const out: Record<string, unknown> = { ...base };
-    for (const [key, v, remove] of edits) {
-      if (remove) delete out[key];
-      else out[key] = v;
-    }
-    return out;
-  });
-  it("accepts and fills in the same way, keys in the same order, and rejects the same inputs", () => {
-    fc.assert(
-      fc.property(fc.oneof(requirementsArb, perturbed), (input) => {
-        const expected = requirementsSchema.safeParse(input);
-        let got: unknown;
-        try {
-          got = parseRequirements(input);
-        } catch (e) {
-          expect(e).toBeInstanceOf(RequirementsError);
-          expect(expected.success).toBe(false);
-          return;
-        }
-        expect(expected.success).toBe(true);
-        expect(got).toStrictEqual(expected.data);
-        expect(Object.keys(got as object)).toEqual(Object.keys(expected.data!));
-      }),
-      { numRuns: 3000 },
-    );
+describe("contract version 2 fields (sizing contract, axis requirements)", () => {
+  it("are all optional or defaulted, so a version-1 request parses as before", () => {
+    const r = parseRequirements(GOOD);
+    expect(r.pressStrokeMm).toBe(0);
+    expect(r.pressSpeedMmS).toBeUndefined();
+    expect(r.dwellS).toBe(0);
+    expect(r.holdMinutes).toBe(0);
+    expect(r.mountingStyle).toBeUndefined();
+    expect(r.pumpType).toBeUndefined();
+    expect(r.name).toBeUndefined();
   });
 
-  it("leaves odd objects to the schema", () => {
-    const good = { ...GOOD, extra: 1 };
-    expect(parseRequirements(good)).toStrictEqual(requirementsSchema.parse(good));
-    expect(() => parseRequirements(Object.assign(Object.create({ massKg: 5 }), { ...GOOD, massKg: undefined }))).toThrow(RequirementsError);
-    expect(() => parseRequirements([GOOD])).toThrow(RequirementsError);
-    expect(() => parseRequirements({ ...GOOD, orientation: "inclined", rodDirection: "up", inclineDeg: undefined })).toThrow(RequirementsError);
+  it("take the time to stop from the time to reach speed unless given", () => {
+    expect(parseRequirements({ ...GOOD, accelTimeS: 0.4 }).decelTimeS).toBe(0.4);
+    expect(parseRequirements({ ...GOOD, accelTimeS: 0.4, decelTimeS: 0.1 }).decelTimeS).toBe(0.1);
+  });
+
+  it("ask for the pressing speed when there is a pressing stroke, no faster than the approach", () => {
+    expect(errorsFor({ ...GOOD, pressStrokeMm: 20 }).pressSpeedMmS).toEqual([REQUIREMENT_MESSAGES.pressSpeedNeeded]);
+    expect(errorsFor({ ...GOOD, pressStrokeMm: 20, pressSpeedMmS: 101 }).pressSpeedMmS).toEqual([REQUIREMENT_MESSAGES.pressSpeedAboveApproach]);
+    expect(errorsFor({ ...GOOD, pressStrokeMm: 401, pressSpeedMmS: 10 }).pressStrokeMm).toEqual([REQUIREMENT_MESSAGES.pressStrokeLongerThanStroke]);
+    // equal speeds: a single-speed extension with the force over its last part
+    expect(parseRequirements({ ...GOOD, pressStrokeMm: 20, pressSpeedMmS: 100 }).pressSpeedMmS).toBe(100);
+    // no pressing stroke: a pressing speed sent by a form is harmless
+    expect(() => parseRequirements({ ...GOOD, pressSpeedMmS: 500 })).not.toThrow();
+  });
+
+  it.each([
+    ["negative dwell", { dwellS: -1 }, "dwellS"],
+    ["hold longer than a week", { holdMinutes: 10_081 }, "holdMinutes"],
+    ["zero time to stop", { decelTimeS: 0 }, "decelTimeS"],
+    ["unknown mounting style", { mountingStyle: "glued" }, "mountingStyle"],
+    ["unknown pump type", { pumpType: "piston" }, "pumpType"],
+    ["blank name", { name: "   " }, "name"],
+    ["name too long", { name: "x".repeat(81) }, "name"],
+  ])("%s is refused, naming the field", (_name, change, field) => {
+    expect(Object.keys(errorsFor({ ...GOOD, ...change }))).toEqual([field]);
+  });
+});
+
+describe("one source of limits and defaults", () => {
+  // The form reads REQUIREMENT_LIMITS and REQUIREMENT_DEFAULTS; these checks hold the schema to them,
+  // so a changed limit can no longer drift from what the form and the engine use.
+  const defaultedKeys = Object.keys(REQUIREMENT_DEFAULTS) as (keyof typeof REQUIREMENT_DEFAULTS)[];
+  it("the schema fills exactly the exported defaults", () => {
+    const r = parseRequirements(GOOD);
+    for (const key of defaultedKeys) expect(r[key], key).toBe(REQUIREMENT_DEFAULTS[key]);
+  });
+
+  it.each(Object.entries(REQUIREMENT_LIMITS))("%s: accepted at its limits, refused just beyond them", (key, limit) => {
+    const l = limit as { min: number; max: number; minExclusive?: boolean; maxExclusive?: boolean };
+    const base = { ...GOOD, orientation: "inclined", inclineDeg: 30, rodDirection: "up", strokeMm: 10_000, extendSpeedMmS: 2000, pressSpeedMmS: 1 } as Record<string, unknown>;
+    const accepts = (x: number) => requirementsSchema.safeParse({ ...base, [key]: x }).success;
+    const step = Math.max(1e-6, (l.max - l.min) * 1e-9);
+    expect(accepts(l.min), "at min").toBe(!l.minExclusive);
+    expect(accepts(l.min + step), "just above min").toBe(true);
+    expect(accepts(l.min - step), "below min").toBe(false);
+    expect(accepts(l.max), "at max").toBe(!l.maxExclusive);
+    expect(accepts(l.max - step), "just below max").toBe(true);
+    expect(accepts(l.max + step), "above max").toBe(false);
+  });
+});
+
+describe("random accepted axes", () => {
+  it("parse, keep every given value and fill the defaults", () => {
+    fc.assert(
+      fc.property(requirementsArb, (input) => {
+        const r = parseRequirements(input);
+        for (const [key, value] of Object.entries(input)) expect(r[key as keyof typeof r]).toBe(value);
+        for (const key of Object.keys(REQUIREMENT_DEFAULTS) as (keyof typeof REQUIREMENT_DEFAULTS)[]) {
+          if (!(key in input)) expect(r[key]).toBe(REQUIREMENT_DEFAULTS[key]);
+        }
+      }),
+      { numRuns: 300 },
+    );
   });
 });

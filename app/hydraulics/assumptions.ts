@@ -34,6 +34,7 @@ export const ASSUMPTIONS = {
   workLineLengthM: a(2.0, "m", "assumed hose run from the valve to each cylinder port; our assumption [CP]"),
   returnLineLengthM: a(1.0, "m", "assumed valve-to-tank run through the filter; our assumption [CP]"),
   suctionLineLengthM: a(0.5, "m", "assumed tank-to-pump suction run; our assumption [CP]"),
+  hoseUpsizeSteps: a(2, "dash sizes", "hoses up to two dash sizes above the velocity-limit size where that saves a cylinder size step: a hose costs far less than the next cylinder, pump and motor; our rule, common practice [CP]"),
   laminarReynoldsLimit: a(2000, "-", "laminar below Re ≈ 2000 (Engineering Fluid Mechanics, S8 [S]); above it the larger Blasius factor is used"),
 
   // Fluid: ISO VG 46 at 40 °C
@@ -57,7 +58,7 @@ export const ASSUMPTIONS = {
   // Valves and settings
   reliefMargin: a(0.1, "-", "relief set about 10 % above the highest working pressure; common practice [CP]"),
   reliefRoundingBar: a(5, "bar", "relief setting rounded up to a whole 5 bar; our convention"),
-  cbvLowSettingBar: a(20, "bar", "a counterbalance setting below this is flagged for review: the load is light and the valve must still hold the rod and tooling against surges; our convention"),
+  cbvMinSettingBar: a(20, "bar", "lowest counterbalance setting: a light load must still be held against surges and return-line back-pressure, and makers' adjustable springs start about there; common practice [CP], the spring range from memory [M]"),
   cbvSettingFactor: a(1.3, "-", "counterbalance setting ≈ 1.3 × load-induced pressure (1.2–1.5); valve makers' notes, common practice [CP]"),
   valveFlowUse: a(0.8, "-", "directional valve used at ≤ 80 % of its typical maximum flow; common practice [CP]"),
   ventPressureBar: a(5, "bar", "pump pressure in neutral with a pilot-operated relief vented to tank by its solenoid vent valve: about 3–7 bar at rated flow in makers' curves; 5 bar chosen, common practice [CP]"),

@@ -3,43 +3,35 @@
  * buckling) and whether it meets every limit. The search in size.ts calls this per candidate.
  */
 import { A } from "./assumptions";
-import { EULER_CASES, bucklingLengthMm, checkBuckling, criticalLoadN, type BucklingResult } from "./buckling";
-import { cylinderSeriesFor, type CylinderCandidate } from "./cylinder";
-import { DEFAULT_FLUID, budgetLossBarPerM, budgetLossBarPerMFor, lineLossBar, sizeLine, type Fluid, type LineSizing } from "./lines";
+import { EULER_CASES, bucklingLengthMm, checkBuckling, type BucklingResult } from "./buckling";
+import { workingLimitBar, type CylinderCandidate } from "./cylinder";
+import { DEFAULT_FLUID, lineLossBar, sizeLine, type Fluid, type LineSizing } from "./lines";
 import {
   accelerationForceN, axisLoads, extendForces, pressForceN, retractForces, type AxisLoads, type StrokeForces,
 } from "./loads";
-import { displacementCcFor, motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
+import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import type { Requirements } from "./requirements";
-import type { CylinderSeries } from "./series";
 import {
-  cbvSettingBar, choosePilotRatio, cylinderInletBar, cylinderInletBarCbv, hydraulicForceN, pilotOpeningBar, reliefSettingBar,
+  cbvSettingBar, choosePilotRatio, cylinderInletBar, hydraulicForceN, pilotOpeningBar, reliefSettingBar,
   type CbvSide, type PilotRatioChoice,
 } from "./valves";
 
 export interface SizingContext {
   req: Requirements;
   loads: AxisLoads;
-  series: CylinderSeries;
-  /** highest pump working pressure allowed: the buyer's limit, and low enough that relief stays within the rating */
-  workingLimitBar: number;
   speedRpm: number;
   fluid: Fluid;
   buckling: { eulerCase: 1 | 2 | 3 | 4; k: number; description: string; lengthMm: number; rule: string };
   cbvSide: CbvSide | null;
   pilot: PilotRatioChoice | null;
   inertiaRatio: number;
-  /** areas below these cannot reach the forces even with no losses (skips hopeless candidates) */
-  minCapAreaMm2: number;
-  minAnnulusAreaMm2: number;
-  /** hydraulic force the extend stroke needs at least, F/η (no losses) */
+  /** hydraulic force each stroke needs at least, F/η with no losses (skips hopeless candidates) */
   minExtendHydraulicN: number;
+  minRetractHydraulicN: number;
 }
 
 export function sizingContext(req: Requirements): SizingContext {
   const loads = axisLoads(req);
-  const series = cylinderSeriesFor(req.maxPressureBar);
-  const workingLimitBar = Math.min(req.maxPressureBar, series.ratedPressureBar / (1 + A.reliefMargin.value));
   const euler = EULER_CASES[req.mounting];
   const length = bucklingLengthMm(req.mounting, req.strokeMm);
   const eta = A.cylinderEfficiency.value;
@@ -63,12 +55,11 @@ export function sizingContext(req: Requirements): SizingContext {
   const retractNeed = Math.max(retractForces(loads, retAccel).movingN, 0);
 
   return {
-    req, loads, series, workingLimitBar, speedRpm: motorSpeedRpm(req.supplyHz), fluid: DEFAULT_FLUID,
+    req, loads, speedRpm: motorSpeedRpm(req.supplyHz), fluid: DEFAULT_FLUID,
     buckling: { eulerCase: euler.eulerCase, k: euler.k, description: euler.description, lengthMm: length.lengthMm, rule: length.rule },
     cbvSide, pilot, inertiaRatio,
-    minCapAreaMm2: (10 * extendNeed) / eta / workingLimitBar,
-    minAnnulusAreaMm2: (10 * retractNeed) / eta / workingLimitBar,
     minExtendHydraulicN: extendNeed / eta,
+    minRetractHydraulicN: retractNeed / eta,
   };
 }
 
@@ -86,6 +77,10 @@ export interface CbvEvaluation {
 
 export interface Evaluation {
   cyl: CylinderCandidate;
+  /** dash sizes the pressure, work and return hoses are above the velocity-limit size */
+  hoseUpsize: number;
+  /** highest pump working pressure this pair may need (buyer's limit and its rating) */
+  workingLimitBar: number;
   flowExtendLpm: number;
   flowRetractLpm: number;
   pumpRequiredLpm: number;
@@ -131,18 +126,10 @@ function setLoweringDrop(cbv: CbvEvaluation, steadyInletBar: number, backBar: nu
 }
 
 /**
- * Loss in a line at a flow. With `budget` the search's monotone bound is used instead (see
- * budgetLossBarPerM), at the line's sizing flow, which is at least the flow in question.
+ * Evaluates one pair with the actual line losses: each line at the flow it carries in that
+ * stroke, in the hose sized for its largest flow. The search and the design use the same numbers.
  */
-function lineLoss(line: LineSizing, flowLpm: number, fluid: Fluid, budget: boolean): number {
-  return budget ? budgetLossBarPerM(line, fluid) * line.lengthM : lineLossBar(line, flowLpm, fluid);
-}
-
-/**
- * Evaluates one pair. `budget` = true is the search mode: line losses are bounded from above so
- * that more flow never makes a pair look better; false gives the actual losses for reporting.
- */
-export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, budget = false): Evaluation {
+export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize = 0): Evaluation {
   const { req, loads, fluid } = ctx;
   const eta = A.cylinderEfficiency.value;
   const etaV = A.volumetricEfficiency.value;
@@ -170,23 +157,23 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, bu
   // Lines, each sized for the largest flow it carries (retracting returns φ·Q_p from the cap).
   const vp = A.pressureVelocityLimit.value;
   const lines = {
-    pressure: sizeLine(qp, vp, A.pressureLineLengthM.value, fluid),
-    capWork: sizeLine(qp * phi, vp, A.workLineLengthM.value, fluid),
-    rodWork: sizeLine(qp, vp, A.workLineLengthM.value, fluid),
-    return: sizeLine(qp * phi, A.returnVelocityLimit.value, A.returnLineLengthM.value, fluid),
+    pressure: sizeLine(qp, vp, A.pressureLineLengthM.value, fluid, hoseUpsize),
+    capWork: sizeLine(qp * phi, vp, A.workLineLengthM.value, fluid, hoseUpsize),
+    rodWork: sizeLine(qp, vp, A.workLineLengthM.value, fluid, hoseUpsize),
+    return: sizeLine(qp * phi, A.returnVelocityLimit.value, A.returnLineLengthM.value, fluid, hoseUpsize),
   };
   const dcv = A.dcvPathDropBar.value;
   const filter = A.returnFilterDropBar.value;
   const check = A.cbvCheckDropBar.value;
-  const pressureLine = lineLoss(lines.pressure, qp, fluid, budget);
+  const pressureLine = lineLossBar(lines.pressure, qp, fluid);
   const extendSupplyLossBar =
-    pressureLine + dcv + lineLoss(lines.capWork, qp, fluid, budget) + (ctx.cbvSide === "cap" ? check : 0);
+    pressureLine + dcv + lineLossBar(lines.capWork, qp, fluid) + (ctx.cbvSide === "cap" ? check : 0);
   const extendBackBar =
-    lineLoss(lines.rodWork, qp / phi, fluid, budget) + dcv + lineLoss(lines.return, qp / phi, fluid, budget) + filter;
+    lineLossBar(lines.rodWork, qp / phi, fluid) + dcv + lineLossBar(lines.return, qp / phi, fluid) + filter;
   const retractSupplyLossBar =
-    pressureLine + dcv + lineLoss(lines.rodWork, qp, fluid, budget) + (ctx.cbvSide === "rod" ? check : 0);
+    pressureLine + dcv + lineLossBar(lines.rodWork, qp, fluid) + (ctx.cbvSide === "rod" ? check : 0);
   const retractBackBar =
-    lineLoss(lines.capWork, qp * phi, fluid, budget) + dcv + lineLoss(lines.return, qp * phi, fluid, budget) + filter;
+    lineLossBar(lines.capWork, qp * phi, fluid) + dcv + lineLossBar(lines.return, qp * phi, fluid) + filter;
 
   // Counterbalance on the side the load pressurises; its setting is from the static load.
   let cbv: CbvEvaluation | null = null;
@@ -205,29 +192,20 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, bu
   const rodCbv = cbv && cbv.side === "rod" ? { settingBar: cbv.settingBar, ratio: cbv.ratio } : undefined;
   const capCbv = cbv && cbv.side === "cap" ? { settingBar: cbv.settingBar, ratio: cbv.ratio } : undefined;
 
-  let extendInletBar = cylinderInletBar(hydraulicForceN(extend.movingN, eta), a1, a3, extendBackBar, rodCbv);
-  let retractInletBar = cylinderInletBar(hydraulicForceN(retract.movingN, eta), a3, a1, retractBackBar, capCbv);
-  if (budget) {
-    // Search only: on a lowering stroke do not credit the load for pushing the oil out through
-    // a wide-open valve, so a heavier load never makes a pair look better.
-    if (rodCbv) extendInletBar = Math.max(extendInletBar, cylinderInletBar(0, a1, a3, extendBackBar));
-    if (capCbv) retractInletBar = Math.max(retractInletBar, cylinderInletBar(0, a3, a1, retractBackBar));
-  }
+  const extendInletBar = cylinderInletBar(hydraulicForceN(extend.movingN, eta), a1, a3, extendBackBar, rodCbv);
+  const retractInletBar = cylinderInletBar(hydraulicForceN(retract.movingN, eta), a3, a1, retractBackBar, capCbv);
   const extendMovingBar = extendInletBar + extendSupplyLossBar;
   // Pressing happens at (near) standstill: no flow, so no line or valve losses.
   const extendPressBar = cylinderInletBar(hydraulicForceN(pressN, eta), a1, a3, 0, rodCbv);
   const extendBar = Math.max(extendMovingBar, extendPressBar);
   const retractBar = retractInletBar + retractSupplyLossBar;
-  // Constant-speed pressures feed only the heat balance, which the search does not need.
-  let extendSteadyBar = 0;
-  let retractSteadyBar = 0;
-  if (!budget) {
-    const extendSteadyInlet = cylinderInletBar(hydraulicForceN(extend.steadyN, eta), a1, a3, extendBackBar, rodCbv);
-    const retractSteadyInlet = cylinderInletBar(hydraulicForceN(retract.steadyN, eta), a3, a1, retractBackBar, capCbv);
-    extendSteadyBar = extendSteadyInlet + extendSupplyLossBar;
-    retractSteadyBar = retractSteadyInlet + retractSupplyLossBar;
-    if (cbv) setLoweringDrop(cbv, cbv.side === "rod" ? extendSteadyInlet : retractSteadyInlet, cbv.side === "rod" ? extendBackBar : retractBackBar);
-  }
+  // Constant-speed pressures feed the heat balance.
+  const extendSteadyInlet = cylinderInletBar(hydraulicForceN(extend.steadyN, eta), a1, a3, extendBackBar, rodCbv);
+  const retractSteadyInlet = cylinderInletBar(hydraulicForceN(retract.steadyN, eta), a3, a1, retractBackBar, capCbv);
+  const extendSteadyBar = extendSteadyInlet + extendSupplyLossBar;
+  const retractSteadyBar = retractSteadyInlet + retractSupplyLossBar;
+  if (cbv) setLoweringDrop(cbv, cbv.side === "rod" ? extendSteadyInlet : retractSteadyInlet, cbv.side === "rod" ? extendBackBar : retractBackBar);
+  const limitBar = workingLimitBar(req.maxPressureBar, cyl.ratedPressureBar, A.reliefMargin.value);
   const workingBar = Math.max(extendBar, retractBar);
   const reliefBar = reliefSettingBar(workingBar);
   const rodSidePeakBar = Math.max(retractInletBar, cbv?.side === "rod" ? cbv.settingBar : extendBackBar);
@@ -238,96 +216,13 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, bu
   const buckling = checkBuckling(cyl.rodMm, ctx.buckling.lengthMm, ctx.buckling.k, compressiveN);
 
   return {
-    cyl, flowExtendLpm, flowRetractLpm, pumpRequiredLpm, requiredDisplacementCc: needCc, displacementCc,
+    cyl, hoseUpsize, workingLimitBar: limitBar, flowExtendLpm, flowRetractLpm, pumpRequiredLpm, requiredDisplacementCc: needCc, displacementCc,
     pumpInSeries: inSeries, pumpFlowLpm: qp, extendActualMmS, retractActualMmS, accelExtendN, accelRetractN,
     extend, retract, pressN, lines, extendSupplyLossBar, extendBackBar, retractSupplyLossBar, retractBackBar,
     cbv, extendInletBar, extendMovingBar, extendPressBar, extendBar, retractInletBar, retractBar,
     extendSteadyBar, retractSteadyBar, workingBar, reliefBar, rodSidePeakBar, compressiveN, buckling,
-    pressureOk: workingBar <= ctx.workingLimitBar + 1e-9,
-    cbvOk: !cbv || cbv.settingBar <= ctx.series.ratedPressureBar + 1e-9,
+    pressureOk: workingBar <= limitBar + 1e-9,
+    cbvOk: !cbv || cbv.settingBar <= cyl.ratedPressureBar + 1e-9,
     bucklingOk: buckling.safetyFactor >= A.bucklingSafetyFactor.value,
   };
-}
-
-// ---- The search's check ----------------------------------------------------------------------
-
-export const SEARCH_PRESSURE_OK = 1;
-export const SEARCH_CBV_OK = 2;
-export const SEARCH_BUCKLING_OK = 4;
-
-/**
- * What evaluateCandidate(ctx, cyl, true) decides, as flags (SEARCH_*_OK), with the same
- * arithmetic in the same order but none of the objects: the search tries several pairs per
- * design and keeps only the answer. A unit test holds the two to the same flags.
- */
-export function searchCheck(ctx: SizingContext, cyl: CylinderCandidate): number {
-  const { req, loads, fluid } = ctx;
-  const eta = A.cylinderEfficiency.value;
-  const etaV = A.volumetricEfficiency.value;
-  const a1 = cyl.capAreaMm2;
-  const a3 = cyl.annulusAreaMm2;
-  const phi = cyl.areaRatio;
-
-  const flowExtendLpm = (a1 * req.extendSpeedMmS * 0.06) / 1000;
-  const flowRetractLpm = (a3 * req.retractSpeedMmS * 0.06) / 1000;
-  const needCc = requiredDisplacementCc(Math.max(flowExtendLpm, flowRetractLpm), ctx.speedRpm, etaV);
-  const qp = pumpDeliveryLpm(displacementCcFor(needCc), ctx.speedRpm, etaV);
-  const extendActualMmS = (qp * 1000) / (a1 * 0.06);
-  const retractActualMmS = (qp * 1000) / (a3 * 0.06);
-  const gravityN = loads.extendGravitySign * loads.gravityAlongAxisN;
-  const extendMovingN = loads.frictionN + gravityN + accelerationForceN(req.massKg, extendActualMmS, req.accelTimeS);
-  const retractMovingN = loads.frictionN - gravityN + accelerationForceN(req.massKg, retractActualMmS, req.accelTimeS);
-  const pressN = pressForceN(loads);
-
-  // Budgeted line losses: the pressure and rod lines are sized for Q_p, the cap and return lines for φ·Q_p.
-  const vp = A.pressureVelocityLimit.value;
-  const atPump = budgetLossBarPerMFor(qp, vp, fluid);
-  const pressureLine = atPump * A.pressureLineLengthM.value;
-  const rodWork = atPump * A.workLineLengthM.value;
-  const capWork = budgetLossBarPerMFor(qp * phi, vp, fluid) * A.workLineLengthM.value;
-  const returnLine = budgetLossBarPerMFor(qp * phi, A.returnVelocityLimit.value, fluid) * A.returnLineLengthM.value;
-  const dcv = A.dcvPathDropBar.value;
-  const filter = A.returnFilterDropBar.value;
-  const check = A.cbvCheckDropBar.value;
-  const extendSupplyLossBar = pressureLine + dcv + capWork + (ctx.cbvSide === "cap" ? check : 0);
-  const extendBackBar = rodWork + dcv + returnLine + filter;
-  const retractSupplyLossBar = pressureLine + dcv + rodWork + (ctx.cbvSide === "rod" ? check : 0);
-  const retractBackBar = capWork + dcv + returnLine + filter;
-
-  let flags = SEARCH_CBV_OK;
-  let extendInletBar: number;
-  let retractInletBar: number;
-  let extendPressBar: number;
-  const extendH = hydraulicForceN(extendMovingN, eta);
-  const retractH = hydraulicForceN(retractMovingN, eta);
-  const pressH = hydraulicForceN(pressN, eta);
-  if (ctx.cbvSide && ctx.pilot) {
-    const rod = ctx.cbvSide === "rod";
-    const settingBar = cbvSettingBar((10 * loads.gravityAlongAxisN) / (rod ? a3 : a1));
-    const ratio = ctx.pilot.ratio;
-    if (!(settingBar <= ctx.series.ratedPressureBar + 1e-9)) flags = 0;
-    if (rod) {
-      extendInletBar = Math.max(cylinderInletBarCbv(extendH, a1, a3, extendBackBar, settingBar, ratio), cylinderInletBar(0, a1, a3, extendBackBar));
-      retractInletBar = cylinderInletBar(retractH, a3, a1, retractBackBar);
-      extendPressBar = cylinderInletBarCbv(pressH, a1, a3, 0, settingBar, ratio);
-    } else {
-      extendInletBar = cylinderInletBar(extendH, a1, a3, extendBackBar);
-      retractInletBar = Math.max(cylinderInletBarCbv(retractH, a3, a1, retractBackBar, settingBar, ratio), cylinderInletBar(0, a3, a1, retractBackBar));
-      extendPressBar = cylinderInletBar(pressH, a1, a3, 0);
-    }
-  } else {
-    extendInletBar = cylinderInletBar(extendH, a1, a3, extendBackBar);
-    retractInletBar = cylinderInletBar(retractH, a3, a1, retractBackBar);
-    extendPressBar = cylinderInletBar(pressH, a1, a3, 0);
-  }
-  const extendBar = Math.max(extendInletBar + extendSupplyLossBar, extendPressBar);
-  const workingBar = Math.max(extendBar, retractInletBar + retractSupplyLossBar);
-  if (workingBar <= ctx.workingLimitBar + 1e-9) flags |= SEARCH_PRESSURE_OK;
-
-  const compressiveN = Math.max(extendMovingN, pressN, (reliefSettingBar(workingBar) * a1) / 10);
-  const effectiveLengthMm = ctx.buckling.k * ctx.buckling.lengthMm;
-  const critical = criticalLoadN(cyl.rodMm, effectiveLengthMm, (4 * effectiveLengthMm) / cyl.rodMm);
-  const safetyFactor = compressiveN > 0 ? critical / compressiveN : Number.POSITIVE_INFINITY;
-  if (safetyFactor >= A.bucklingSafetyFactor.value) flags |= SEARCH_BUCKLING_OK;
-  return flags;
 }

@@ -95,19 +95,21 @@ export function explain(
     gSign < 0 ? "F = F_f + G + F_a (rod down: retracting lifts the load)" : gSign > 0 ? "F = F_f − G + F_a (rod up: the load pulls)" : "F = F_f + F_a",
     { F_f: v(L.frictionN, "N"), G: v(L.gravityAlongAxisN, "N"), F_a: v(L.accelRetractN, "N") }, "force balance along the axis [D]");
   t.add("overrunning stroke", L.overrunningStroke ?? "none", "-",
-    "the stroke on which the load moves down (rod down: extend; rod up: retract)",
-    { orientation: v(r.orientation, "-"), rodDirection: v(r.rodDirection ?? "-", "-") }, "sizing contract; ISO 4413 load holding [M]");
+    "the stroke on which the load moves down (rod down: extend; rod up: retract), where its weight along the axis G exceeds the guide friction F_f; otherwise the load stays put on its own and needs no counterbalance valve",
+    { orientation: v(r.orientation, "-"), rodDirection: v(r.rodDirection ?? "-", "-"), G: v(L.gravityAlongAxisN, "N"), F_f: v(L.frictionN, "N") },
+    "sizing contract; ISO 4413 load holding [M]; statics [D]");
 
   // ---- Cylinder choice
-  t.add("cylinder series", `${ctx.series.name} (${ctx.series.ratedPressureBar} bar)`, "-",
-    `maxPressureBar ≤ 160 → ISO 6020-2 preferred pairings (φ ≈ 1.25 / 2); above → ISO 6022 (φ ≈ 1.6 / 2); thinner rod tried first`,
-    { maxPressureBar: v(r.maxPressureBar, "bar") }, "ISO 3320 sizes; ISO 6020-2 / ISO 6022 pairings from memory [M] (sources §1.2)");
-  t.add("working pressure limit", ctx.workingLimitBar, "bar", "p_max = min(maxPressureBar, p_rated / (1 + relief margin))",
-    { maxPressureBar: v(r.maxPressureBar, "bar"), p_rated: v(ctx.series.ratedPressureBar, "bar"), margin: v(A.reliefMargin.value, "-") },
+  t.add("cylinder series", `${c.series} (${c.ratedPressureBar} bar)`, "-",
+    "both series in one search, bore ascending: at each bore the 160 bar medium series (ISO 6020-2, φ ≈ 1.25 / 2) before the 250 bar heavy series (ISO 6022, φ ≈ 1.6 / 2), thinner rod first; so the series follows the pressure the axis needs, not the highest the buyer allows",
+    { maxPressureBar: v(r.maxPressureBar, "bar"), p_working: v(c.workingPressureBar, "bar") },
+    "ISO 3320 sizes; ISO 6020-2 and ISO 6022 preferred bore/rod pairings, from memory [M]");
+  t.add("working pressure limit", d.pressuresBar.workingLimit, "bar", "p_max = min(maxPressureBar, p_rated / (1 + relief margin))",
+    { maxPressureBar: v(r.maxPressureBar, "bar"), p_rated: v(c.ratedPressureBar, "bar"), margin: v(A.reliefMargin.value, "-") },
     "keeps the relief setting within the cylinder rating; relief margin common practice [CP]");
   t.add("bore", c.boreMm, "mm",
-    "smallest pair whose pump pressures ≤ p_max, counterbalance setting ≤ rating and buckling SF ≥ 3.5; valve, filter, CBV and line losses and back-pressure included — in the search each line is budgeted the worst loss any smaller hose reaches at its velocity limit, so more flow or load never yields a smaller cylinder; the pressures reported use the actual losses",
-    { p_max: v(ctx.workingLimitBar, "bar"), A1_min_no_losses: v(ctx.minCapAreaMm2, "mm²") }, "ISO 3320 series [M]");
+    "smallest pair whose pump pressures ≤ p_max, counterbalance setting ≤ rating and buckling SF ≥ 3.5, with valve, filter, counterbalance and actual line losses and back-pressure included (each line at the flow it carries, in the hose sized for its largest flow)",
+    { p_max: v(d.pressuresBar.workingLimit, "bar"), A1_min_no_losses: v((10 * ctx.minExtendHydraulicN) / d.pressuresBar.workingLimit, "mm²") }, "ISO 3320 series [M]");
   t.add("rod", c.rodMm, "mm", "rod of the chosen pair; the thicker rod is taken when the thinner one fails a limit",
     { bore: v(c.boreMm, "mm") }, "ISO 3320 series [M]");
   t.add("cap area", c.capAreaMm2, "mm²", "A1 = π·D²/4", { D: v(c.boreMm, "mm") }, "geometry [D]");
@@ -166,8 +168,9 @@ export function explain(
       { overrunningStroke: v(cb.stroke, "-") }, "sizing contract; ISO 4413 load holding [M]");
     t.add("counterbalance load pressure", cb.loadPressureBar, "bar", "p_L = 10·G / A at the valve port (load at rest)",
       { G: v(L.gravityAlongAxisN, "N"), A: v(outletArea, "mm²") }, "force balance [D]");
-    t.add("counterbalance setting", cb.settingBar, "bar", "p_set = 1.3·p_L",
-      { p_L: v(cb.loadPressureBar, "bar"), factor: v(A.cbvSettingFactor.value, "-") }, "valve makers' application notes, common practice [CP]");
+    t.add("counterbalance setting", cb.settingBar, "bar", "p_set = max(1.3·p_L, p_min): a light load still gets a setting that holds it against surges and return back-pressure",
+      { p_L: v(cb.loadPressureBar, "bar"), factor: v(A.cbvSettingFactor.value, "-"), p_min: v(A.cbvMinSettingBar.value, "bar") },
+      "valve makers' application notes, common practice [CP]; minimum setting common practice [CP]");
     t.add("pilot ratio", cb.pilotRatio, ":1", `3:1 variable or high-inertia, 4.5:1 general, 8:1 stable — ${cb.pilotRatioReason}`,
       { inertia_ratio: v(ctx.inertiaRatio, "-"), processForce: v(r.processForceN, "N") }, "ratio classes common practice [CP]; class thresholds our rule");
     t.add("pilot opening pressure", cb.pilotOpeningBar, "bar",

@@ -14,6 +14,7 @@ export {
 } from "./requirements";
 export type * from "./design";
 export { WARNING_CODES, type WarningCode } from "./warnings";
+export { NotSizableError } from "./not-sizable";
 export { ASSUMPTIONS } from "./assumptions";
 
 /** Validates the requirements (throwing RequirementsError) and sizes the circuit. */

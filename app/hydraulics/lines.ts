@@ -81,10 +81,14 @@ export interface LineSizing {
   inRange: boolean;
 }
 
-/** Sizes a line for its largest flow and reports the loss at that flow. */
-export function sizeLine(flowLpm: number, velocityLimitMS: number, lengthM: number, fluid: Fluid): LineSizing {
+/**
+ * Sizes a line for its largest flow and reports the loss at that flow. `upsize` takes that many
+ * dash sizes above the smallest that meets the velocity limit (the search does, where a larger
+ * hose saves a cylinder size step).
+ */
+export function sizeLine(flowLpm: number, velocityLimitMS: number, lengthM: number, fluid: Fluid, upsize = 0): LineSizing {
   const requiredDiameterMm = lineDiameterMm(flowLpm, velocityLimitMS);
-  const hoseIndex = hoseIndexFor(requiredDiameterMm);
+  const hoseIndex = Math.min(SAE_J517_HOSES.length - 1, hoseIndexFor(requiredDiameterMm) + upsize);
   const hose = SAE_J517_HOSES[hoseIndex];
   const inRange = hose.nominalIdMm >= requiredDiameterMm;
   const d = hose.nominalIdMm;
@@ -102,46 +106,3 @@ export function sizeLine(flowLpm: number, velocityLimitMS: number, lengthM: numb
 /** Loss in an already sized line at another flow. */
 export const lineLossBar = (line: LineSizing, flowLpm: number, fluid: Fluid): number =>
   pressureLossBarPerM(flowLpm, line.innerDiameterMm, fluid) * line.lengthM;
-
-/**
- * Loss per metre the sizing search budgets for a line: the larger of its actual loss and the
- * worst loss any smaller hose reaches at the velocity limit. Stepping up a hose size can lower
- * the actual loss, so the actual loss alone would let a faster axis pass with a smaller
- * cylinder; this bound only grows with flow and is never below the actual loss.
- */
-export function budgetLossBarPerM(line: LineSizing, fluid: Fluid): number {
-  const peaks = peakLossTable(line.velocityLimitMS, fluid);
-  const index = line.hoseIndex;
-  return Math.max(line.pressureLossBarPerM, index > 0 ? peaks[index - 1] : 0);
-}
-
-/**
- * The search's budgeted loss per metre for a line sized for `flowLpm` at `velocityLimitMS`:
- * the same number as budgetLossBarPerM(sizeLine(...)), without building the LineSizing.
- */
-export function budgetLossBarPerMFor(flowLpm: number, velocityLimitMS: number, fluid: Fluid): number {
-  const index = hoseIndexFor(lineDiameterMm(flowLpm, velocityLimitMS));
-  const d = SAE_J517_HOSES[index].nominalIdMm;
-  const velocityMS = lineVelocityMS(flowLpm, d);
-  const perM = darcyBarPerM(frictionFactor(reynoldsNumber(velocityMS, d, fluid.viscosityMm2S)), d, fluid.densityKgM3, velocityMS);
-  return Math.max(perM, index > 0 ? peakLossTable(velocityLimitMS, fluid)[index - 1] : 0);
-}
-
-interface PeakTable { velocity: number; viscosity: number; density: number; cumulative: number[] }
-const PEAK_TABLES: PeakTable[] = [];
-
-/** Running maximum, over the hose sizes in order, of the loss at the velocity limit. */
-function peakLossTable(velocityMS: number, fluid: Fluid): number[] {
-  for (const t of PEAK_TABLES) {
-    if (t.velocity === velocityMS && t.viscosity === fluid.viscosityMm2S && t.density === fluid.densityKgM3) return t.cumulative;
-  }
-  const cumulative: number[] = [];
-  let max = 0;
-  for (const hose of SAE_J517_HOSES) {
-    const flowAtLimit = velocityMS * ((Math.PI * hose.nominalIdMm * hose.nominalIdMm) / 4 / 1e6) * 60_000;
-    max = Math.max(max, pressureLossBarPerM(flowAtLimit, hose.nominalIdMm, fluid));
-    cumulative.push(max);
-  }
-  PEAK_TABLES.push({ velocity: velocityMS, viscosity: fluid.viscosityMm2S, density: fluid.densityKgM3, cumulative });
-  return cumulative;
-}

@@ -28,10 +28,6 @@ export function selectDisplacementCc(requiredCc: number): { displacementCc: numb
 
 const LARGEST_DISPLACEMENT_CC = ISO3662_DISPLACEMENTS_CC[ISO3662_DISPLACEMENTS_CC.length - 1];
 
-/** selectDisplacementCc's displacement alone, for the search (no object per call). */
-export const displacementCcFor = (requiredCc: number): number =>
-  nextInSeries(ISO3662_DISPLACEMENTS_CC, requiredCc) ?? LARGEST_DISPLACEMENT_CC;
-
 /** Next IEC 60072-1 rated output, or the largest when the series runs out. */
 export function selectMotorKw(requiredKw: number): { ratedKw: number; inSeries: boolean } {
   const found = nextInSeries(IEC60072_MOTOR_KW, requiredKw);

@@ -3,14 +3,11 @@
  */
 import { A } from "./assumptions";
 import { buildBom } from "./bom";
-import { eulerLoadN, rodInertiaMm4 } from "./buckling";
 import { buildCircuit } from "./circuit";
-import { cylinderCandidates, cylinderForceN, type CylinderCandidate } from "./cylinder";
+import { cylinderCandidates, cylinderForceN, workingLimitBar } from "./cylinder";
 import type { Design } from "./design";
-import {
-  SEARCH_BUCKLING_OK, SEARCH_CBV_OK, SEARCH_PRESSURE_OK, evaluateCandidate, searchCheck, sizingContext,
-  type Evaluation, type SizingContext,
-} from "./evaluate";
+import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
+import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
 import { lineLossBar, sizeLine } from "./lines";
 import { hydraulicPowerKw, selectMotorKw } from "./pump-motor";
@@ -21,68 +18,73 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "1.2.0";
+export const ENGINE_VERSION = "1.3.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
 const VENT_ENERGISED_WHEN = "with solenoid a or b of the directional valve; de-energised in neutral";
 
 /**
- * Tries bore/rod pairs from the smallest up and keeps the first that meets every limit, with
- * line losses budgeted from above so a faster or heavier axis never gets a smaller cylinder.
- * When none does, it keeps the largest pair that meets the pressure limits (or the largest
- * of all) and the warnings say what is left.
+ * Tries bore/rod pairs from the smallest up (both series in one list, see cylinderCandidates)
+ * and keeps the first that meets every limit, judged with the same actual losses the design
+ * reports. When the pressures fit but no rod passes buckling, it keeps the pair with the best
+ * buckling margin and a warning says so. When no pair meets the pressures, nothing is sized:
+ * NotSizableError says why.
  */
-export function chooseCylinder(ctx: SizingContext): CylinderCandidate {
-  const list = cylinderCandidates(ctx.series);
-  const all = SEARCH_PRESSURE_OK | SEARCH_CBV_OK | SEARCH_BUCKLING_OK;
-  const pressures = SEARCH_PRESSURE_OK | SEARCH_CBV_OK;
-  // Fast pass: skip pairs that cannot meet the force or buckling bounds even with no line losses.
-  for (const cyl of list) {
-    if (cyl.capAreaMm2 < ctx.minCapAreaMm2 || cyl.annulusAreaMm2 < ctx.minAnnulusAreaMm2) continue;
-    if (criticalLoadBoundN(ctx, cyl.rodMm) < A.bucklingSafetyFactor.value * minStallThrustN(ctx, cyl)) continue;
-    if (searchCheck(ctx, cyl) === all) return cyl;
-  }
-  // Nothing meets every limit: look again for the largest pair that meets the pressures.
-  let pressureFit: CylinderCandidate | undefined;
-  let last: CylinderCandidate | undefined;
-  for (const cyl of list) {
-    if (cyl.capAreaMm2 < ctx.minCapAreaMm2 || cyl.annulusAreaMm2 < ctx.minAnnulusAreaMm2) continue;
-    const flags = searchCheck(ctx, cyl);
-    last = cyl;
-    if ((flags & pressures) === pressures) {
-      if (flags === all) return cyl;
-      pressureFit = cyl;
+export function chooseCylinder(ctx: SizingContext): Evaluation {
+  let pressureFit: Evaluation | undefined;
+  for (const cyl of cylinderCandidates()) {
+    const limit = workingLimitBar(ctx.req.maxPressureBar, cyl.ratedPressureBar, A.reliefMargin.value);
+    // Cannot reach the forces even with no losses: skip without working it out.
+    if ((10 * ctx.minExtendHydraulicN) / cyl.capAreaMm2 > limit + 1e-6 || (10 * ctx.minRetractHydraulicN) / cyl.annulusAreaMm2 > limit + 1e-6) continue;
+    // A hose a size or two larger is far cheaper than the next cylinder, pump and motor [CP].
+    let fit: Evaluation | undefined;
+    for (let upsize = 0; upsize <= A.hoseUpsizeSteps.value; upsize++) {
+      const ev = evaluateCandidate(ctx, cyl, upsize);
+      if (!ev.pressureOk || !ev.cbvOk) continue;
+      if (ev.bucklingOk) return ev;
+      fit ??= ev;
     }
+    // No rod passes buckling yet: keep the largest pair that meets the pressures (thickest rod),
+    // and the BUCKLING_MARGIN warning says so.
+    if (fit) pressureFit = fit;
   }
-  return pressureFit ?? last ?? list[list.length - 1];
+  if (pressureFit) return pressureFit;
+  throw notSizable(ctx);
 }
 
-/**
- * Lower bound of the stall thrust p_relief·A1/10: the extend pressure is at least the force
- * term plus the valve allowance in and the valve and filter allowances out (through A3/A1),
- * and the relief is at least 1.1 × that.
- */
-function minStallThrustN(ctx: SizingContext, cyl: CylinderCandidate): number {
-  const dcv = A.dcvPathDropBar.value;
-  const back = dcv + A.returnFilterDropBar.value;
-  const extendBar = (10 * ctx.minExtendHydraulicN + back * cyl.annulusAreaMm2) / cyl.capAreaMm2 + dcv;
-  return ((1 + A.reliefMargin.value) * extendBar * cyl.capAreaMm2) / 10;
-}
-
-/** Upper bound of the rod's critical load: neither Euler nor Tetmajer can exceed the larger of the two. */
-function criticalLoadBoundN(ctx: SizingContext, rodMm: number): number {
-  const lk = ctx.buckling.k * ctx.buckling.lengthMm;
-  const euler = eulerLoadN(A.elasticModulus.value, rodInertiaMm4(rodMm), lk);
-  const crushing = (A.tetmajerA.value * Math.PI * rodMm * rodMm) / 4;
-  return Math.max(euler, crushing);
+/** Why no pair fits, with the pressure the best pair needs, so the buyer knows what to change. */
+function notSizable(ctx: SizingContext): NotSizableError {
+  const r = ctx.req;
+  let best: Evaluation | undefined;
+  let cbvBest: Evaluation | undefined;
+  for (const cyl of cylinderCandidates()) {
+    const ev = evaluateCandidate(ctx, cyl);
+    if (ev.cbvOk && (!best || ev.workingBar < best.workingBar)) best = ev;
+    if (ev.cbv && (!cbvBest || ev.cbv.settingBar - cyl.ratedPressureBar < cbvBest.cbv!.settingBar - cbvBest.cyl.ratedPressureBar)) cbvBest = ev;
+  }
+  if (!best) {
+    const cb = cbvBest!.cbv!;
+    return new NotSizableError("massKg", {
+      code: "NO_CYLINDER_MEETS_PRESSURE",
+      message: `Nothing in the cylinder series can hold this load: even a ${cbvBest!.cyl.boreMm}/${cbvBest!.cyl.rodMm} mm cylinder needs its counterbalance valve set at ${f1(cb.settingBar)} bar, above its ${cbvBest!.cyl.ratedPressureBar} bar rating. Lower the moving mass or share it between several cylinders.`,
+    });
+  }
+  const c = best.cyl;
+  const needed = Math.ceil(best.workingBar - 1e-9);
+  const withinRating = best.workingBar <= workingLimitBar(Number.POSITIVE_INFINITY, c.ratedPressureBar, A.reliefMargin.value) + 1e-9;
+  return new NotSizableError("maxPressureBar", {
+    code: "NO_CYLINDER_MEETS_PRESSURE",
+    message: withinRating
+      ? `Nothing in the cylinder series works within ${f1(r.maxPressureBar)} bar for this axis: the lowest pressure any cylinder needs is ${f1(best.workingBar)} bar (a ${c.boreMm}/${c.rodMm} mm cylinder, ${c.series}). Allow at least ${needed} bar, or lower the forces or speeds.`
+      : `Nothing in the cylinder series can move this axis: even a ${c.boreMm}/${c.rodMm} mm cylinder needs ${f1(best.workingBar)} bar, more than any cylinder in the series is rated to work at. Lower the forces or speeds, or share the load between several cylinders.`,
+  });
 }
 
 /** Sizes a circuit from requirements that have already passed the schema. */
 export function sizeCircuitParsed(req: Requirements): Design {
   const ctx = sizingContext(req);
-  // The search budgets line losses from above; the design reports the actual losses.
-  const ev = evaluateCandidate(ctx, chooseCylinder(ctx));
+  const ev = chooseCylinder(ctx);
   const warnings = new Warnings();
   const eta = A.cylinderEfficiency.value;
   const etaO = A.overallEfficiency.value;
@@ -152,7 +154,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
       bucklingSafetyFactor: ev.buckling.safetyFactor,
       series: cyl.series,
       outOfSeries: cyl.outOfSeries,
-      ratedPressureBar: ctx.series.ratedPressureBar,
+      ratedPressureBar: cyl.ratedPressureBar,
       capAreaMm2: cyl.capAreaMm2,
       annulusAreaMm2: cyl.annulusAreaMm2,
       areaRatio: cyl.areaRatio,
@@ -176,7 +178,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
       extend: ev.extendBar,
       retract: ev.retractBar,
       reliefSetting: ev.reliefBar,
-      workingLimit: ctx.workingLimitBar,
+      workingLimit: ev.workingLimitBar,
       extendMoving: ev.extendMovingBar,
       extendPress: ev.extendPressBar,
       rodSidePeak: ev.rodSidePeakBar,
@@ -290,24 +292,22 @@ function addWarnings(
   extra: { duty: { overloaded: boolean }; motorInSeries: boolean; valveWithinLimit: boolean; pumpOnRelief: boolean },
 ): void {
   const c = d.cylinder;
-  if (!ev.pressureOk) {
-    w.add("PRESSURE_LIMIT_EXCEEDED",
-      `Even a ${c.boreMm} mm bore needs ${f1(ev.workingBar)} bar, above the ${f1(ctx.workingLimitBar)} bar working limit. Reduce the load or speeds, or allow a higher pressure.`);
-  } else if (ev.workingBar > A.pressureNearLimit.value * ctx.workingLimitBar) {
+  // A design whose pressures do not fit is never returned (NotSizableError), so only the reserve is judged.
+  if (ev.workingBar > A.pressureNearLimit.value * ev.workingLimitBar) {
     w.add("PRESSURE_NEAR_LIMIT",
-      `The working pressure of ${f1(ev.workingBar)} bar is within 5 % of the ${f1(ctx.workingLimitBar)} bar limit; there is little reserve for losses this estimate leaves out.`);
+      `The working pressure of ${f1(ev.workingBar)} bar is within 5 % of the ${f1(ev.workingLimitBar)} bar limit; there is little reserve for losses this estimate leaves out.`);
   }
   if (c.outOfSeries) {
     w.add("BORE_OUT_OF_SERIES",
-      `The ${c.boreMm}/${c.rodMm} mm cylinder is beyond the ${ctx.series.name} pairing table; it is an ISO 3320 size, so check that a maker offers it.`);
+      `The ${c.boreMm}/${c.rodMm} mm cylinder is beyond the ${ev.cyl.table} pairing table; it is an ISO 3320 size, so check that a maker offers it.`);
   }
   if (!ev.bucklingOk) {
     w.add("BUCKLING_MARGIN",
       `The ${c.rodMm} mm rod has a buckling safety factor of ${num(ev.buckling.safetyFactor, 2)} at full extension, below the ${A.bucklingSafetyFactor.value} required. Guide the load, shorten the stroke or choose a stronger mounting.`);
   }
-  if (ev.rodSidePeakBar > ctx.series.ratedPressureBar + 1e-9) {
+  if (ev.rodSidePeakBar > c.ratedPressureBar + 1e-9) {
     w.add("ROD_SIDE_INTENSIFICATION",
-      `The rod side can reach ${f1(ev.rodSidePeakBar)} bar, above the cylinder's ${ctx.series.ratedPressureBar} bar rating.`);
+      `The rod side can reach ${f1(ev.rodSidePeakBar)} bar, above the cylinder's ${c.ratedPressureBar} bar rating.`);
   }
   const tol = 1 + A.speedTolerance.value;
   if (d.speedsMmS.extendActual > tol * d.speedsMmS.extendRequested || d.speedsMmS.retractActual > tol * d.speedsMmS.retractRequested) {
@@ -336,10 +336,6 @@ function addWarnings(
   }
   if (d.reliefVent) {
     w.add("RELIEF_VENTED_IN_NEUTRAL", d.counterbalance ? VENTED_NOTE_CBV : VENTED_NOTE);
-  }
-  if (d.counterbalance && d.counterbalance.settingBar < A.cbvLowSettingBar.value) {
-    w.add("CBV_SETTING_LOW",
-      `The counterbalance works out at only ${f1(d.counterbalance.settingBar)} bar because the load is light; set it high enough to hold the rod and tooling and to damp surges.`);
   }
   if (extra.duty.overloaded) {
     w.add("DUTY_CYCLE_OVERLOAD",

@@ -15,11 +15,12 @@ export function reliefSettingBar(workingBar: number): number {
 export type CbvSide = "rod" | "cap";
 
 /**
- * Setting ≈ 1.3 × the load-induced pressure at the CBV port [CP]. No fixed floor: a floor
- * would let a heavier load open the valve more easily and so get a smaller cylinder; a very
- * low setting is flagged instead (CBV_SETTING_LOW).
+ * Setting ≈ 1.3 × the load-induced pressure at the CBV port [CP], and never below a minimum
+ * [CP]: a light load must still be held against pressure surges and the few bar of back-pressure
+ * the return line puts on the valve, and makers' adjustable springs start at about that.
  */
-export const cbvSettingBar = (loadPressureBar: number): number => A.cbvSettingFactor.value * loadPressureBar;
+export const cbvSettingBar = (loadPressureBar: number): number =>
+  Math.max(A.cbvSettingFactor.value * loadPressureBar, A.cbvMinSettingBar.value);
 
 export interface PilotRatioChoice {
   ratio: number;

@@ -18,6 +18,8 @@ export const WARNING_CODES = [
   "CBV_SETTING_LOW",
   /** an answer of contract version 2 that this engine version accepts but does not size yet */
   "REQUIREMENT_NOT_YET_SIZED",
+  /** nothing in the series meets the pressures: carried by NotSizableError, never in a design */
+  "NO_CYLINDER_MEETS_PRESSURE",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

@@ -1,30 +1,30 @@
 /**
- * The sizing search decides with searchCheck, a lean copy of evaluateCandidate's search mode
- * (budgeted line losses); the full evaluation stays the reference. Both must agree on every
- * bore/rod pair for every axis, or the lean copy would pick a different cylinder.
+ * The cylinder search decides with the same actual line losses the design reports (Darcy–Weisbach
+ * at each line's real flow and hose), so it never picks a larger cylinder than the engine's own
+ * check accepts. Before engine 2.0 the search charged every line the loss of the smallest hose at
+ * its velocity limit, 5–13 bar too much, and about one random axis in seven got a size step more.
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { parseRequirements } from "~/hydraulics";
+import { parseRequirements, sizeCircuit } from "~/hydraulics";
 import { cylinderCandidates } from "~/hydraulics/cylinder";
-import {
-  SEARCH_BUCKLING_OK, SEARCH_CBV_OK, SEARCH_PRESSURE_OK, evaluateCandidate, searchCheck, sizingContext,
-} from "~/hydraulics/evaluate";
+import { evaluateCandidate, sizingContext } from "~/hydraulics/evaluate";
 import { requirementsArb } from "./arbitraries";
 
-describe("the search's lean check", () => {
-  it("gives the same pressure, counterbalance and buckling verdicts as the full search-mode evaluation", () => {
+describe("the cylinder search", () => {
+  it("never chooses a larger bore than the smallest pair the actual-loss check accepts", () => {
     fc.assert(
       fc.property(requirementsArb, (input) => {
         const ctx = sizingContext(parseRequirements(input));
-        for (const cyl of cylinderCandidates(ctx.series)) {
-          const ev = evaluateCandidate(ctx, cyl, true);
-          const expected =
-            (ev.pressureOk ? SEARCH_PRESSURE_OK : 0) | (ev.cbvOk ? SEARCH_CBV_OK : 0) | (ev.bucklingOk ? SEARCH_BUCKLING_OK : 0);
-          expect(searchCheck(ctx, cyl), `${cyl.boreMm}/${cyl.rodMm}`).toBe(expected);
-        }
+        const accepted = cylinderCandidates().find((cyl) => {
+          const ev = evaluateCandidate(ctx, cyl);
+          return ev.pressureOk && ev.cbvOk && ev.bucklingOk;
+        });
+        if (!accepted) return;
+        const d = sizeCircuit(input);
+        expect(d.cylinder.boreMm, `${accepted.boreMm}/${accepted.rodMm} passes`).toBeLessThanOrEqual(accepted.boreMm);
       }),
-      { numRuns: 300 },
+      { numRuns: 400, seed: 12 },
     );
   });
 });

@@ -18,6 +18,8 @@ const TITLES: Partial<Record<WarningCode, string>> = {
   MOTOR_BEYOND_SERIES: "No standard motor is large enough",
   DUTY_CYCLE_OVERLOAD: "The cycles asked for do not fit in an hour",
   CBV_SETTING_LOW: "Counterbalance setting unusually low",
+  REQUIREMENT_NOT_YET_SIZED: "An answer this design does not use yet",
+  NO_CYLINDER_MEETS_PRESSURE: "No cylinder works within your pressure limit",
 };
 
 /** The title of a warning; a code without one yet still reads as a sentence, never as a code. */

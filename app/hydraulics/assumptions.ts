@@ -35,7 +35,7 @@ export const ASSUMPTIONS = {
   returnLineLengthM: a(1.0, "m", "assumed valve-to-tank run through the filter; our assumption [CP]"),
   suctionLineLengthM: a(0.5, "m", "assumed tank-to-pump suction run; our assumption [CP]"),
   hoseUpsizeSteps: a(2, "dash sizes", "hoses up to two dash sizes above the velocity-limit size where that saves a cylinder size step: a hose costs far less than the next cylinder, pump and motor; our rule, common practice [CP]"),
-  laminarReynoldsLimit: a(2000, "-", "laminar below Re ≈ 2000 (Engineering Fluid Mechanics, S8 [S]); above it the larger Blasius factor is used"),
+  laminarReynoldsLimit: a(2000, "-", "laminar below Re ≈ 2000 (Engineering Fluid Mechanics, open textbook [S]); above it the larger Blasius factor is used"),
 
   // Fluid: ISO VG 46 at 40 °C
   viscosityMm2S: a(46, "mm²/s", "ISO 3448 VG 46 mid-point at 40 °C (41.4–50.6) [S]"),
@@ -44,11 +44,11 @@ export const ASSUMPTIONS = {
   // Valve and filter pressure drops used to work out the pressure left at the cylinder
   dcvPathDropBar: a(5, "bar", "allowance per directional-valve path at its sized flow; common practice [CP]"),
   cbvCheckDropBar: a(3, "bar", "allowance for free flow through the counterbalance check (2→1); common practice [CP]"),
-  returnFilterDropBar: a(0.5, "bar", "clean return-filter element 0.3–0.5 bar; common practice [CP] (sources §10)"),
+  returnFilterDropBar: a(0.5, "bar", "clean return-filter element 0.3–0.5 bar; common practice [CP]"),
 
   // Cylinder and buckling
-  elasticModulus: a(210000, "N/mm²", "steel, EN 1993-1-1 §3.2.6; Roloff/Matek, from memory [M]"),
-  bucklingSafetyFactor: a(3.5, "-", "hydraulics 2.5–4, ISO/TS 13725 leaves k to the designer (S4); 3.5 chosen, common practice [CP]"),
+  elasticModulus: a(210000, "N/mm²", "steel, EN 1993-1-1 (elastic modulus of structural steel); Roloff/Matek, from memory [M]"),
+  bucklingSafetyFactor: a(3.5, "-", "hydraulics 2.5–4, ISO/TS 13725 leaves k to the designer; 3.5 chosen, common practice [CP]"),
   limitSlenderness: a(89, "-", "λ₀ for E295/E335 rod steel; Roloff/Matek, Dubbel, from memory [M]"),
   tetmajerA: a(335, "N/mm²", "Tetmajer σK = 335 − 0.62 λ for E295/E335; Roloff/Matek, Dubbel, from memory [M]"),
   tetmajerB: a(0.62, "N/mm²", "Tetmajer slope for E295/E335; Roloff/Matek, Dubbel, from memory [M]"),
@@ -71,10 +71,10 @@ export const ASSUMPTIONS = {
   pressureNearLimit: a(0.95, "-", "working pressure above 95 % of its limit leaves little reserve; our convention"),
 
   // Reservoir and heat
-  reservoirMultiple: a(4, "× pump flow per minute", "stationary units 3–5 × pump flow per minute (S14 [S] for the 3× rule); 4× chosen, common practice [CP]"),
+  reservoirMultiple: a(4, "× pump flow per minute", "stationary units 3–5 × pump flow per minute (the 3× rule in trade-press reservoir fundamentals [S]); 4× chosen, common practice [CP]"),
   reservoirRoundingL: a(5, "L", "reservoir volume rounded up to a whole 5 L; our convention"),
-  tankHeatTransfer: a(12, "W/(m²·K)", "tank freely surrounded by air 10–15 W/(m²·K); Matthies/Renius Tafel 8.7 (S7) [S]"),
-  oilTemperatureLimit: a(60, "°C", "pump inlet temperature ≤ 60 °C; ISO 4413 as paraphrased in S6 [S]"),
+  tankHeatTransfer: a(12, "W/(m²·K)", "tank freely surrounded by air 10–15 W/(m²·K); Matthies/Renius Tafel 8.7 [S]"),
+  oilTemperatureLimit: a(60, "°C", "pump inlet temperature ≤ 60 °C; ISO 4413 as paraphrased in University of Minnesota hydraulics course notes [S]"),
   gaugeRangeFactor: a(1.5, "× relief", "gauge full scale at least 1.5 × the relief setting; common practice [CP]"),
 } as const;
 

@@ -86,6 +86,13 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
       rating: { value: d.directionalValve.maxPathFlowLpm, unit: "L/min", label: "largest path flow" },
     },
   ];
+  if (d.cooler) {
+    bom.push({
+      key: "cooler", item: "Oil cooler (air blast), in the return line", quantity: 1,
+      specification: `sheds at least ${num(Math.ceil(d.cooler.kw * 10) / 10)} kW with the oil at 60 °C and ${num(d.requirements.ambientC)} °C air, for ${num(d.returnFilter.ratedFlowLpm)} L/min return flow, with a bypass check valve about 2 bar`,
+      rating: { value: d.cooler.kw, unit: "kW", label: "heat rejection" },
+    });
+  }
   // A line of its own (not folded into the relief's): the vent valve is a separate part with its
   // own coil and wiring, often mounted on the relief or supplied with it as a solenoid-vented relief.
   if (vent) {

@@ -176,7 +176,15 @@ export interface Design {
     neutralPumpFlow: string;
   };
   lines: { pressure: HoseLine; return: HoseLine; suction: HoseLine; capWork: HoseLine; rodWork: HoseLine };
-  reservoir: { volumeL: number; surfaceM2: number; dissipationKw: number };
+  reservoir: {
+    volumeL: number;
+    surfaceM2: number;
+    dissipationKw: number;
+    /** oil the extended cylinder keeps out of the tank, A_rod·s */
+    cylinderDrawL: number;
+  };
+  /** a cooler where the tank cannot shed the average heat; it is a line of the bill */
+  cooler: { kw: number } | null;
   returnFilter: { ratedFlowLpm: number };
   heat: {
     averageLossKw: number;

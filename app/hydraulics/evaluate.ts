@@ -186,7 +186,9 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
       side: ctx.cbvSide, loadPressureBar, settingBar, ratio: ctx.pilot.ratio, areaTerm,
       pilotOpeningBar: pilotOpeningBar(settingBar, loadPressureBar, ctx.pilot.ratio, areaTerm),
       loweringDropBar: 0,
-      flowLpm: ctx.cbvSide === "rod" ? qp / phi : qp * phi,
+      // The larger of the two flows it carries: lowering through 1→2 (Q_p/φ from the rod end,
+      // φ·Q_p from the cap end) and lifting through its check 2→1 (the full pump flow).
+      flowLpm: ctx.cbvSide === "rod" ? Math.max(qp, qp / phi) : Math.max(qp, qp * phi),
     };
   }
   const rodCbv = cbv && cbv.side === "rod" ? { settingBar: cbv.settingBar, ratio: cbv.ratio } : undefined;

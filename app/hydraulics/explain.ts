@@ -15,12 +15,12 @@ const CONTINUITY = "continuity, Q = A·v [D]";
 
 const LINE_SIZE_SOURCE = `${CONTINUITY}; velocity limits common practice [CP]; SAE J517 dash = ID in 1/16 in [S]`;
 const LINE_LOSS_SOURCE =
-  `${DW}; f = 64/Re laminar, Blasius 0.3164·Re^−0.25 above Re 2000 (Engineering Fluid Mechanics S8 [S]; Matthies/Renius S7 [S]); ν, ρ for ISO 3448 VG 46 at 40 °C [S]/[M]`;
+  `${DW}; f = 64/Re laminar, Blasius 0.3164·Re^−0.25 above Re 2000 (Engineering Fluid Mechanics [S]; Matthies/Renius [S]); ν, ρ for ISO 3448 VG 46 at 40 °C [S]/[M]`;
 
 const VENT_FORMULA =
   "P is blocked in neutral, so the pilot-operated relief is vented: a normally open 2/2 solenoid valve opens its vent port X to tank, de-energised in neutral (the main stage opens at about p_vent) and energised with solenoid a or b (the relief then works at its setting)";
 const VENT_SOURCE =
-  `solenoid-vented relief, common practice [CP]; p_vent ${A.ventPressureBar.value} bar chosen within the 3–7 bar of makers' curves [CP]; unloading a fixed pump behind a float centre, sources §6 [CP] and Cundiff & Kocher, pressure controls (S16) [M]`;
+  `solenoid-vented relief, common practice [CP]; p_vent ${A.ventPressureBar.value} bar chosen within the 3–7 bar of makers' curves [CP]; unloading a fixed pump behind a float centre, common practice [CP]; Cundiff & Kocher, Fluid Power Circuits and Controls, pressure controls [M]`;
 const MOTOR_AT_RELIEF = "relief setting: the pump runs over relief in neutral";
 const MOTOR_AT_WORKING = "highest working pressure (the pump unloads P→T in neutral)";
 const MOTOR_AT_WORKING_VENTED = "highest working pressure (the vented relief unloads the pump in neutral)";
@@ -136,7 +136,7 @@ export function explain(
   t.add("actual retract speed", d.speedsMmS.retractActual, "mm/s", "v = Q_p / A3",
     { Q_p: vQp, A3: vA3 }, CONTINUITY);
   t.add("largest return flow", d.flowsLpm.returnMax, "L/min", "Q_return = φ·Q_p (retracting empties the cap end)",
-    { φ: vPhi, Q_p: vQp }, "continuity [D] (sources §10)");
+    { φ: vPhi, Q_p: vQp }, "continuity: return-flow amplification by the area ratio [D]");
 
   // ---- Lines
   const fluid = ctx.fluid;
@@ -176,7 +176,7 @@ export function explain(
     t.add("pilot opening pressure", cb.pilotOpeningBar, "bar",
       cb.side === "rod" ? "p_pilot = (p_set − p_L) / (R + φ) — full balance, vented spring chamber" : "p_pilot = (p_set − p_L) / (R + 1/φ) — full balance, vented spring chamber",
       { p_set: v(cb.settingBar, "bar"), p_L: v(cb.loadPressureBar, "bar"), R: v(cb.pilotRatio, "-"), φ: vPhi },
-      "poppet force balance (sources §6) [D]; ignores back-pressure at port 2");
+      "poppet force balance of a counterbalance valve with a vented spring chamber [D]; ignores back-pressure at port 2");
     t.add("counterbalance heat while lowering", cb.loweringHeatKw, "kW", "P = Δp_CBV·Q / 600, Δp_CBV = p_set − R·p_pilot − p_back",
       { Δp_CBV: v(ev.cbv!.loweringDropBar, "bar"), Q: v(cb.flowLpm, "L/min") }, "hydraulic power P = p·Q/600 [D]");
   }
@@ -204,9 +204,9 @@ export function explain(
     { p_extend: v(d.pressuresBar.extend, "bar"), p_retract: v(d.pressuresBar.retract, "bar") }, "about 10 % above working pressure, common practice [CP]");
   t.add("rod-side peak pressure", d.pressuresBar.rodSidePeak, "bar",
     rodCbv ? "max(retract inlet, CBV setting — the valve caps the annulus)" : "max(retract inlet, extend back-pressure)",
-    { rating: v(c.ratedPressureBar, "bar"), φ: vPhi }, "intensification p2 = φ·p1 + F/A3 (sources §6) [D]");
+    { rating: v(c.ratedPressureBar, "bar"), φ: vPhi }, "rod-side intensification p2 = φ·p1 + F/A3, force balance [D]");
   t.add("rod-side pressure if the B line were blocked", phi * d.pressuresBar.reliefSetting, "bar", "p2 = φ·p_relief (fault case, not normal work)",
-    { φ: vPhi, p_relief: vRelief }, "intensification (sources §6) [D]");
+    { φ: vPhi, p_relief: vRelief }, "rod-side intensification, force balance [D]");
   t.add("extend force at working pressure", c.extendForceN, "N", "F = η·p·A1 / 10",
     { η: vEta, p: v(c.workingPressureBar, "bar"), A1: vA1 }, TEXTBOOK_CYL);
   t.add("retract force at working pressure", c.retractForceN, "N", "F = η·p·A3 / 10",
@@ -254,14 +254,16 @@ export function explain(
   t.add("motor rating", m.ratedKw, "kW", "next rated output", { P_needed: v(m.requiredKw, "kW") }, "IEC 60072-1 output series [M]");
 
   // ---- Reservoir, filter, heat
-  t.add("reservoir volume", d.reservoir.volumeL, "L", "V = 4·Q_p, rounded up to 5 L", { Q_p: vQp },
-    "3–5 × pump flow per minute, common practice [CP] (S14 [S])");
+  t.add("oil the cylinder draws from the tank", d.reservoir.cylinderDrawL, "L", "V_draw = (A1 − A3)·s: the cap end takes A1·s, the rod end gives back A3·s",
+    { A1: vA1, A3: vA3, s: v(r.strokeMm, "mm") }, "continuity [D]; the level change is added to the volume rule (tank level with double-acting cylinders) [D]");
+  t.add("reservoir volume", d.reservoir.volumeL, "L", "V = 4·Q_p + V_draw, rounded up to 5 L", { Q_p: vQp, V_draw: v(d.reservoir.cylinderDrawL, "L") },
+    "3–5 × pump flow per minute, common practice [CP]; the 3 × rule in trade-press reservoir fundamentals (NFPA/T3.16.2 for design features) [S]");
   t.add("return filter rating", d.returnFilter.ratedFlowLpm, "L/min", "rated for the largest return flow φ·Q_p",
-    { Q_return: v(d.flowsLpm.returnMax, "L/min") }, "common practice [CP] (sources §10)");
+    { Q_return: v(d.flowsLpm.returnMax, "L/min") }, "return-flow amplification by the area ratio, continuity [D]; filter sizing common practice [CP]");
   t.add("tank surface", d.reservoir.surfaceM2, "m²", "A ≈ 6·V^(2/3)", { V: v(d.reservoir.volumeL, "L") }, "cube-like tank [D]/[CP]");
   t.add("tank heat shed", d.reservoir.dissipationKw, "kW", "Φ = k·A·(60 °C − ambient)",
     { k: v(A.tankHeatTransfer.value, "W/(m²·K)"), A: v(d.reservoir.surfaceM2, "m²"), ambient: v(r.ambientC, "°C") },
-    "k for a tank in free air, Matthies/Renius Tafel 8.7 (S7) [S]; 60 °C oil limit, ISO 4413 via S6 [S]");
+    "k for a tank in free air, Matthies/Renius Tafel 8.7 [S]; 60 °C oil limit, ISO 4413 as paraphrased in University of Minnesota hydraulics course notes [S]");
   t.add("share of time extending", h.extendShare, "-", "cycles/h · stroke / v_actual / 3600",
     { cycles: v(r.cyclesPerHour, "1/h"), t_stroke: v(extra.duty.extendS, "s") }, "[D]");
   t.add("share of time retracting", h.retractShare, "-", "cycles/h · stroke / v_actual / 3600",

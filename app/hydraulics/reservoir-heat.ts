@@ -1,9 +1,17 @@
 import { A } from "./assumptions";
 
-/** Usable volume = 4 × pump flow per minute (3–5 × is common practice), rounded up to 5 L. */
-export function reservoirVolumeL(pumpFlowLpm: number): number {
+/** Oil a double-acting cylinder keeps out of the tank when extended: cap-end volume in minus rod-end volume back, A_rod·s, in L [D]. */
+export const cylinderDrawL = (capAreaMm2: number, annulusAreaMm2: number, strokeMm: number): number =>
+  ((capAreaMm2 - annulusAreaMm2) * strokeMm) / 1e6;
+
+/**
+ * Usable volume = 4 × pump flow per minute (3–5 × is common practice) plus the oil the cylinder
+ * draws from the tank, rounded up to 5 L: the level must not fall into the pump's suction when
+ * the rod is out, so the draw is added to the rule, not compared with it.
+ */
+export function reservoirVolumeL(pumpFlowLpm: number, cylinderDrawLitres: number): number {
   const step = A.reservoirRoundingL.value;
-  return Math.ceil((A.reservoirMultiple.value * pumpFlowLpm) / step - 1e-9) * step;
+  return Math.ceil((A.reservoirMultiple.value * pumpFlowLpm + cylinderDrawLitres) / step - 1e-9) * step;
 }
 
 /** Cube-like tank: A ≈ 6·V^(2/3), V in m³ [D]/[CP]. */

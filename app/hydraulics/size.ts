@@ -12,13 +12,13 @@ import { explain } from "./explain";
 import { lineLossBar, sizeLine } from "./lines";
 import { hydraulicPowerKw, selectMotorKw } from "./pump-motor";
 import type { Requirements } from "./requirements";
-import { dutyShares, reservoirVolumeL, strokeHeatKw, tankDissipationKw, tankSurfaceM2 } from "./reservoir-heat";
+import { cylinderDrawL, dutyShares, reservoirVolumeL, strokeHeatKw, tankDissipationKw, tankSurfaceM2 } from "./reservoir-heat";
 import { FOUR_POLE_FRAMES, GAUGE_RANGES_BAR, nextInSeries } from "./series";
 import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "1.3.0";
+export const ENGINE_VERSION = "2.0.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -111,7 +111,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const motor = selectMotorKw(motorRequiredKw);
 
   // Reservoir and heat
-  const volumeL = reservoirVolumeL(qp);
+  const drawL = cylinderDrawL(cyl.capAreaMm2, cyl.annulusAreaMm2, req.strokeMm);
+  const volumeL = reservoirVolumeL(qp, drawL);
   const surfaceM2 = tankSurfaceM2(volumeL);
   const dissipationKw = tankDissipationKw(surfaceM2, req.ambientC);
   const duty = dutyShares(req.strokeMm, ev.extendActualMmS, ev.retractActualMmS, req.cyclesPerHour);
@@ -226,7 +227,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
       neutralPumpFlow: centre.neutralPumpFlow,
     },
     lines: { pressure: lines.pressure, return: lines.return, suction: lines.suction, capWork: lines.capWork, rodWork: lines.rodWork },
-    reservoir: { volumeL, surfaceM2, dissipationKw },
+    reservoir: { volumeL, surfaceM2, dissipationKw, cylinderDrawL: drawL },
+    cooler: coolerKw > 0 ? { kw: coolerKw } : null,
     returnFilter: { ratedFlowLpm: qp * cyl.areaRatio },
     heat: {
       averageLossKw,
@@ -348,6 +350,6 @@ function addWarnings(
   }
   if (d.heat.coolerKw > 0) {
     w.add("HEAT_COOLER_NEEDED",
-      `On average ${f1(d.heat.averageLossKw)} kW becomes heat, but a ${d.reservoir.volumeL} L tank sheds only about ${num(d.heat.tankDissipationKw, 2)} kW at ${d.requirements.ambientC} °C ambient with oil at 60 °C. Fit a cooler of at least ${f1(d.heat.coolerKw)} kW.`);
+      `On average ${f1(d.heat.averageLossKw)} kW becomes heat, but a ${d.reservoir.volumeL} L tank sheds only about ${num(d.heat.tankDissipationKw, 2)} kW at ${d.requirements.ambientC} °C ambient with oil at 60 °C. The bill has a cooler for at least ${f1(d.heat.coolerKw)} kW.`);
   }
 }

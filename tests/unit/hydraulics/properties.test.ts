@@ -170,6 +170,22 @@ describe("consistency of every design", () => {
     );
   });
 
+  it("the tank holds the oil the cylinder draws, and a cooler is designed and billed exactly when the heat asks for one", () => {
+    fc.assert(
+      fc.property(requirementsArb, (req) => {
+        const d = sizeCircuit(req);
+        const c = d.cylinder;
+        // cap-end volume in minus rod-end volume back (continuity [D])
+        expect(d.reservoir.volumeL).toBeGreaterThanOrEqual(((c.capAreaMm2 - c.annulusAreaMm2) * c.strokeMm) / 1e6);
+        const warned = d.warnings.some((w) => w.code === "HEAT_COOLER_NEEDED");
+        expect(d.cooler !== null).toBe(warned);
+        expect(d.bom.some((l) => l.key === "cooler")).toBe(warned);
+        if (d.counterbalance) expect(d.counterbalance.flowLpm).toBeGreaterThanOrEqual(d.flowsLpm.pump * (1 - 1e-12));
+      }),
+      RUNS,
+    );
+  });
+
   it("every contract number is finite and every field is filled", () => {
     fc.assert(
       fc.property(requirementsArb, (req) => {

@@ -67,3 +67,64 @@ describe("counterbalance valve for light loads (common practice minimum setting;
     expect(d.counterbalance!.settingBar).toBe(20);
   });
 });
+
+describe("the reservoir holds the oil the cylinder draws (continuity; 3–5 × pump flow, common practice)", () => {
+  // 6 m vertical lift, 2 t, 30 mm/s: the engine picks 100/70 (buckling over 6 m), A_rod = π·70²/4 =
+  // 3848.45 mm². Extended, the cap end holds A1·s = 47.1 L and the rod end gives back A3·s = 24.0 L:
+  // the tank is down by A_rod·s = 3848.45·6000/10⁶ = 23.09 L. Pump 12.5 cm³/rev·1450·0.95 = 17.22 L/min;
+  // 4 × 17.22 = 68.9 L was the whole tank before (70 L). Now 68.9 + 23.09 = 91.97 → 95 L.
+  const d = sizeCircuit({
+    orientation: "vertical", rodDirection: "up", massKg: 2000, strokeMm: 6000, extendSpeedMmS: 30, retractSpeedMmS: 30,
+    mounting: "fixed-pinned", cyclesPerHour: 10, hoursPerDay: 8, supplyHz: 50,
+  });
+  it("6 m lift: 23.1 L drawn is added to the 4 × pump-flow rule", () => {
+    expect(d.cylinder.rodMm).toBe(70);
+    expect(d.flowsLpm.pump).toBeCloseTo(17.22, 2);
+    expect(d.reservoir.cylinderDrawL).toBeCloseTo(23.09, 2);
+    expect(d.reservoir.volumeL).toBe(95);
+    expect(d.reservoir.volumeL).toBeGreaterThanOrEqual(4 * d.flowsLpm.pump + d.reservoir.cylinderDrawL);
+  });
+});
+
+describe("the cylinder series follows the pressure needed (ISO 6020-2 160 bar, ISO 6022 250 bar pairings [M])", () => {
+  it("a small clamp allowed 210 bar gets a 25 mm medium-series cylinder, not the heavy series' 50 mm", () => {
+    // 5 kN: 10·5000/(0.95·490.9) = 107.2 bar on 25/12 + friction; within 145.5 bar (160/1.1), so
+    // the 160 bar series serves it; the heavy series starts at 50 mm.
+    const d = sizeCircuit({
+      orientation: "horizontal", massKg: 50, processForceN: 5000, strokeMm: 50, extendSpeedMmS: 50, retractSpeedMmS: 50,
+      mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50, maxPressureBar: 210,
+    });
+    expect(d.cylinder.boreMm).toBe(25);
+    expect(d.cylinder.series).toBe("ISO 6020-2");
+    expect(d.cylinder.ratedPressureBar).toBe(160);
+    expect(d.pressuresBar.reliefSetting).toBeLessThanOrEqual(160);
+  });
+});
+
+describe("a rod-side counterbalance valve is rated for the pump flow through its check (continuity)", () => {
+  it("worked example 2's press: lifting sends the full 34.44 L/min through 2→1, more than the 27.46 L/min lowering", () => {
+    // Q_p = 25 cm³/rev·1450·0.95 = 34.44 L/min; lowering 1→2 carries Q_p/φ = 34.44/1.2539 = 27.46 L/min.
+    const d = sizeCircuit({
+      orientation: "vertical", rodDirection: "down", massKg: 1500, processForceN: 60000, strokeMm: 400,
+      extendSpeedMmS: 80, retractSpeedMmS: 120, mounting: "fixed-pinned", ...DUTY,
+    });
+    expect(d.counterbalance!.flowLpm).toBeCloseTo(34.44, 2);
+    expect(d.bom.find((l) => l.key === "counterbalance-valve")!.specification).toContain("at least 34.4 L/min");
+  });
+});
+
+describe("every component a warning calls for is a line of the bill (sizing contract)", () => {
+  it("a heat load the tank cannot shed gets design.cooler and a cooler line of that capacity", () => {
+    // 45 °C air leaves 15 K to the 60 °C oil limit (ISO 4413 as paraphrased in University of
+    // Minnesota course notes); k = 12 W/(m²·K) for a tank in free air (Matthies/Renius).
+    const d = sizeCircuit({
+      orientation: "horizontal", massKg: 500, processForceN: 100000, strokeMm: 300, extendSpeedMmS: 300, retractSpeedMmS: 300,
+      mounting: "fixed-fixed", cyclesPerHour: 600, hoursPerDay: 16, supplyHz: 50, ambientC: 45,
+    });
+    expect(d.warnings.map((w) => w.code)).toContain("HEAT_COOLER_NEEDED");
+    expect(d.cooler).not.toBeNull();
+    expect(d.cooler!.kw).toBeCloseTo(d.heat.averageLossKw - d.heat.tankDissipationKw, 9);
+    const line = d.bom.find((l) => l.key === "cooler")!;
+    expect(line.rating).toEqual({ value: d.cooler!.kw, unit: "kW", label: "heat rejection" });
+  });
+});

@@ -161,7 +161,15 @@ export interface Design {
     volumetricEfficiency: number;
     overallEfficiency: number;
   };
-  motor: { requiredKw: number; ratedKw: number; poles: number; frame: string | null; sizingPressureBar: number };
+  motor: {
+    requiredKw: number;
+    ratedKw: number;
+    poles: number;
+    frame: string | null;
+    sizingPressureBar: number;
+    /** true where pressing or a dwell holds the fixed pump at the relief setting, so the motor is sized there */
+    sizedAtRelief: boolean;
+  };
   counterbalance: Counterbalance | null;
   /** null when the centre unloads the pump itself (tandem) */
   reliefVent: ReliefVent | null;
@@ -191,6 +199,9 @@ export interface Design {
     extendLossKw: number;
     retractLossKw: number;
     neutralLossKw: number;
+    /** heat while dwelling at force: the whole pump flow over the relief */
+    dwellLossKw: number;
+    dwellShare: number;
     /** pump pressure while the valve is in neutral: vent pressure, unloading pressure or relief */
     neutralPressureBar: number;
     extendShare: number;

@@ -22,6 +22,8 @@ const VENT_FORMULA =
 const VENT_SOURCE =
   `solenoid-vented relief, common practice [CP]; p_vent ${A.ventPressureBar.value} bar chosen within the 3–7 bar of makers' curves [CP]; unloading a fixed pump behind a float centre, common practice [CP]; Cundiff & Kocher, Fluid Power Circuits and Controls, pressure controls [M]`;
 const MOTOR_AT_RELIEF = "relief setting: the pump runs over relief in neutral";
+const MOTOR_AT_RELIEF_FORCE =
+  "relief setting: pressing at the end of the stroke or dwelling stalls the cylinder with the valve shifted, so the fixed pump delivers its whole flow over the relief at its setting";
 const MOTOR_AT_WORKING = "highest working pressure (the pump unloads P→T in neutral)";
 const MOTOR_AT_WORKING_VENTED = "highest working pressure (the vented relief unloads the pump in neutral)";
 const NEUTRAL_VENTED = "P = p_vent·Q_p / (600·η): the vented relief lets the pump circulate to tank";
@@ -247,8 +249,9 @@ export function explain(
   const m = d.motor;
   const onRelief = extra.pumpOnRelief;
   t.add("motor sizing pressure", m.sizingPressureBar, "bar",
-    onRelief ? MOTOR_AT_RELIEF : vent ? MOTOR_AT_WORKING_VENTED : MOTOR_AT_WORKING,
-    { p_working: v(c.workingPressureBar, "bar"), p_relief: vRelief, p_neutral: v(h.neutralPressureBar, "bar") }, "[D]");
+    m.sizedAtRelief ? MOTOR_AT_RELIEF_FORCE : onRelief ? MOTOR_AT_RELIEF : vent ? MOTOR_AT_WORKING_VENTED : MOTOR_AT_WORKING,
+    { p_working: v(c.workingPressureBar, "bar"), p_relief: vRelief, p_neutral: v(h.neutralPressureBar, "bar"), F_process: v(r.processForceN, "N"), dwell: v(r.dwellS, "s") },
+    "a fixed pump delivers its flow at whatever pressure the circuit reaches, up to the relief setting: textbook pump-circuit behaviour (Esposito) [M]; trade-press pump articles [S]");
   t.add("motor power needed", m.requiredKw, "kW", "P = p·Q_p / (600·η_overall)",
     { p: v(m.sizingPressureBar, "bar"), Q_p: vQp, η_overall: v(d.pump.overallEfficiency, "-") }, "hydraulic power (Esposito) [M]; P = p·Q/600 [D]");
   t.add("motor rating", m.ratedKw, "kW", "next rated output", { P_needed: v(m.requiredKw, "kW") }, "IEC 60072-1 output series [M]");
@@ -276,8 +279,12 @@ export function explain(
     vent ? NEUTRAL_VENTED : onRelief ? NEUTRAL_ON_RELIEF : NEUTRAL_UNLOADED,
     { p: v(h.neutralPressureBar, "bar"), Q_p: vQp, η: v(d.pump.overallEfficiency, "-") },
     vent ? NEUTRAL_VENTED_SOURCE : "P = p·Q/600 [D]");
-  t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over extend, retract and neutral",
-    { extend: v(h.extendLossKw, "kW"), retract: v(h.retractLossKw, "kW"), neutral: v(h.neutralLossKw, "kW"), neutral_share: v(h.neutralShare, "-") }, "duty-cycle average [D]");
+  t.add("share of time dwelling at force", h.dwellShare, "-", "cycles/h · dwell / 3600",
+    { cycles: v(r.cyclesPerHour, "1/h"), dwell: v(r.dwellS, "s") }, "[D]");
+  t.add("heat while dwelling", h.dwellLossKw, "kW", "P = p_relief·Q_p / (600·η): the rod does no work, the whole flow crosses the relief and all input power becomes heat",
+    { p_relief: vRelief, Q_p: vQp, η: v(d.pump.overallEfficiency, "-") }, "energy balance [D]; P = p·Q/600 [D]");
+  t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over extend, retract, dwell and neutral",
+    { extend: v(h.extendLossKw, "kW"), retract: v(h.retractLossKw, "kW"), dwell: v(h.dwellLossKw, "kW"), neutral: v(h.neutralLossKw, "kW"), dwell_share: v(h.dwellShare, "-"), neutral_share: v(h.neutralShare, "-") }, "duty-cycle average [D]");
   t.add("cooler duty", h.coolerKw, "kW", "max(0, average heat − tank heat shed)",
     { average: v(h.averageLossKw, "kW"), shed: v(h.tankDissipationKw, "kW") }, "[D]");
   t.add("gauge range", extra.gaugeRangeBar, "bar", "next range ≥ 1.5 × relief setting",

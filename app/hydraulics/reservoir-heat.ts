@@ -24,26 +24,33 @@ export const tankDissipationKw = (surfaceM2: number, ambientC: number): number =
 export interface DutyShares {
   extendS: number;
   retractS: number;
-  /** share of running time spent moving on each stroke and in neutral */
+  dwellS: number;
+  /** share of running time spent moving on each stroke, dwelling at force, and in neutral */
   extendShare: number;
   retractShare: number;
+  dwellShare: number;
   neutralShare: number;
   /** true when the cycles asked for do not fit in an hour */
   overloaded: boolean;
 }
 
-export function dutyShares(strokeMm: number, extendMmS: number, retractMmS: number, cyclesPerHour: number): DutyShares {
+export function dutyShares(strokeMm: number, extendMmS: number, retractMmS: number, cyclesPerHour: number, dwellS = 0): DutyShares {
   const extendS = strokeMm / extendMmS;
   const retractS = strokeMm / retractMmS;
   let extendShare = (cyclesPerHour * extendS) / 3600;
   let retractShare = (cyclesPerHour * retractS) / 3600;
-  const moving = extendShare + retractShare;
-  const overloaded = moving > 1;
+  let dwellShare = (cyclesPerHour * dwellS) / 3600;
+  const busy = extendShare + retractShare + dwellShare;
+  const overloaded = busy > 1;
   if (overloaded) {
-    extendShare /= moving;
-    retractShare /= moving;
+    extendShare /= busy;
+    retractShare /= busy;
+    dwellShare /= busy;
   }
-  return { extendS, retractS, extendShare, retractShare, neutralShare: Math.max(0, 1 - extendShare - retractShare), overloaded };
+  return {
+    extendS, retractS, dwellS, extendShare, retractShare, dwellShare,
+    neutralShare: Math.max(0, 1 - extendShare - retractShare - dwellShare), overloaded,
+  };
 }
 
 /**

@@ -18,7 +18,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.0.0";
+export const ENGINE_VERSION = "2.1.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -98,7 +98,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const maxPathFlowLpm = Math.max(qp, qp * cyl.areaRatio, qp / cyl.areaRatio);
   const valve = selectIso4401(maxPathFlowLpm);
 
-  // Motor: sized for the pressure the pump runs at for more than a moment.
+  // Motor: sized for the pressure the fixed pump sits at for more than a moment.
   // Neutral: over relief if P is blocked and nothing unloads it; through the vented relief at
   // its vent pressure [CP]; or P→T through a tandem centre, the valve path, return line and filter.
   const neutralBar = centre.pumpOnReliefInNeutral
@@ -106,7 +106,10 @@ export function sizeCircuitParsed(req: Requirements): Design {
     : centre.ventedRelief
       ? A.ventPressureBar.value
       : A.dcvPathDropBar.value + lineLossBar(lines.return, qp, ctx.fluid) + A.returnFilterDropBar.value;
-  const motorSizingBar = Math.max(ev.workingBar, neutralBar);
+  // Pressing at the end of the stroke, and any dwell, stall the cylinder with the valve shifted:
+  // a fixed pump then delivers its whole flow over the relief, at the relief setting.
+  const pumpOnReliefAtForce = req.processForceN > 0 || req.dwellS > 0;
+  const motorSizingBar = Math.max(pumpOnReliefAtForce ? ev.reliefBar : ev.workingBar, neutralBar);
   const motorRequiredKw = hydraulicPowerKw(motorSizingBar, qp) / etaO;
   const motor = selectMotorKw(motorRequiredKw);
 
@@ -115,12 +118,14 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const volumeL = reservoirVolumeL(qp, drawL);
   const surfaceM2 = tankSurfaceM2(volumeL);
   const dissipationKw = tankDissipationKw(surfaceM2, req.ambientC);
-  const duty = dutyShares(req.strokeMm, ev.extendActualMmS, ev.retractActualMmS, req.cyclesPerHour);
+  const duty = dutyShares(req.strokeMm, ev.extendActualMmS, ev.retractActualMmS, req.cyclesPerHour, req.dwellS);
   const extendLossKw = strokeHeatKw(hydraulicPowerKw(ev.extendSteadyBar, qp) / etaO, ev.extend.steadyN, ev.extendActualMmS);
   const retractLossKw = strokeHeatKw(hydraulicPowerKw(ev.retractSteadyBar, qp) / etaO, ev.retract.steadyN, ev.retractActualMmS);
+  // Dwell: the rod does no work and the whole flow crosses the relief, so all input power is heat.
+  const dwellLossKw = hydraulicPowerKw(ev.reliefBar, qp) / etaO;
   const neutralLossKw = hydraulicPowerKw(neutralBar, qp) / etaO;
   const averageLossKw =
-    duty.extendShare * extendLossKw + duty.retractShare * retractLossKw + duty.neutralShare * neutralLossKw;
+    duty.extendShare * extendLossKw + duty.retractShare * retractLossKw + duty.dwellShare * dwellLossKw + duty.neutralShare * neutralLossKw;
   const coolerKw = Math.max(0, averageLossKw - dissipationKw);
   const loweringHeatKw = cbv ? hydraulicPowerKw(cbv.loweringDropBar, cbv.flowLpm) : 0;
 
@@ -198,7 +203,10 @@ export function sizeCircuitParsed(req: Requirements): Design {
       volumetricEfficiency: A.volumetricEfficiency.value,
       overallEfficiency: etaO,
     },
-    motor: { requiredKw: motorRequiredKw, ratedKw: motor.ratedKw, poles: A.motorPoles.value, frame, sizingPressureBar: motorSizingBar },
+    motor: {
+      requiredKw: motorRequiredKw, ratedKw: motor.ratedKw, poles: A.motorPoles.value, frame, sizingPressureBar: motorSizingBar,
+      sizedAtRelief: pumpOnReliefAtForce,
+    },
     counterbalance: cbv && ctx.pilot
       ? {
           side: cbv.side,
@@ -235,6 +243,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
       extendLossKw,
       retractLossKw,
       neutralLossKw,
+      dwellLossKw,
+      dwellShare: duty.dwellShare,
       neutralPressureBar: neutralBar,
       extendShare: duty.extendShare,
       retractShare: duty.retractShare,
@@ -314,7 +324,15 @@ function addWarnings(
   const tol = 1 + A.speedTolerance.value;
   if (d.speedsMmS.extendActual > tol * d.speedsMmS.extendRequested || d.speedsMmS.retractActual > tol * d.speedsMmS.retractRequested) {
     w.add("PUMP_SPEED_MISMATCH",
-      `A fixed pump gives both strokes the same ${f1(d.flowsLpm.pump)} L/min, so the cylinder extends at ${Math.round(d.speedsMmS.extendActual)} mm/s (asked ${d.speedsMmS.extendRequested}) and retracts at ${Math.round(d.speedsMmS.retractActual)} mm/s (asked ${d.speedsMmS.retractRequested}). Add a flow control if the faster stroke matters.`);
+      `A fixed pump gives both strokes the same ${f1(d.flowsLpm.pump)} L/min, so the cylinder extends at ${Math.round(d.speedsMmS.extendActual)} mm/s (asked ${d.speedsMmS.extendRequested}) and retracts at ${Math.round(d.speedsMmS.retractActual)} mm/s (asked ${d.speedsMmS.retractRequested}). If an asked speed is a limit, a meter-in flow control on that stroke would hold it; its surplus flow would then cross the relief as heat, and neither is in this design.`);
+  }
+  // Meter-out intensification (force balance p2 = φ·p1 + F/A3): any restriction in the rod-end line
+  // while extending, a meter-out throttle or a blocked B line, drives the rod side towards φ × relief.
+  // A rod-side counterbalance valve caps it near its own setting instead.
+  const meterOutBar = c.areaRatio * d.pressuresBar.reliefSetting;
+  if (d.counterbalance?.side !== "rod" && meterOutBar > c.ratedPressureBar + 1e-9) {
+    w.add("METER_OUT_INTENSIFICATION",
+      `A restriction in the rod-end line while extending (a meter-out flow control, or a blocked B line) would raise the rod side to φ × relief = ${num(c.areaRatio, 2)} × ${d.pressuresBar.reliefSetting} = ${f1(meterOutBar)} bar, above the cylinder's ${c.ratedPressureBar} bar rating. Control this axis's speed meter-in only, and never throttle the rod-end line.`);
   }
   if (!ev.pumpInSeries) {
     w.add("PUMP_BEYOND_SERIES", `The flow needs more than the largest displacement in the series (${ev.displacementCc} cm³/rev); use several pumps or a larger unit.`);

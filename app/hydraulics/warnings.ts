@@ -20,6 +20,8 @@ export const WARNING_CODES = [
   "REQUIREMENT_NOT_YET_SIZED",
   /** nothing in the series meets the pressures: carried by NotSizableError, never in a design */
   "NO_CYLINDER_MEETS_PRESSURE",
+  /** a rod-side restriction while extending would intensify the rod side above the cylinder's rating */
+  "METER_OUT_INTENSIFICATION",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

@@ -24,6 +24,7 @@ export const requirementsArb: fc.Arbitrary<RequirementsInput> = fc
     ambientC: num(-20, 50),
     supplyHz: fc.constantFrom(50, 60) as fc.Arbitrary<50 | 60>,
     maxPressureBar: num(40, 250),
+    dwellS: fc.oneof(fc.constant(0), num(0, 30)),
   })
   .map((r) => {
     const out: RequirementsInput = { ...r };

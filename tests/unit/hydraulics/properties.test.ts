@@ -181,6 +181,11 @@ describe("consistency of every design", () => {
         expect(d.cooler !== null).toBe(warned);
         expect(d.bom.some((l) => l.key === "cooler")).toBe(warned);
         if (d.counterbalance) expect(d.counterbalance.flowLpm).toBeGreaterThanOrEqual(d.flowsLpm.pump * (1 - 1e-12));
+        // a fixed pump that can stall at force sits at the relief: the motor covers p_relief·Q_p/(600·η)
+        if (d.motor.sizedAtRelief) expect(d.motor.requiredKw).toBeGreaterThanOrEqual((d.pressuresBar.reliefSetting * d.flowsLpm.pump) / 600 / 0.85 - 1e-9);
+        // meter-out intensification is warned whenever φ × relief exceeds the rating and no rod-side CBV caps it
+        const intensifies = d.counterbalance?.side !== "rod" && c.areaRatio * d.pressuresBar.reliefSetting > c.ratedPressureBar + 1e-9;
+        expect(d.warnings.some((w) => w.code === "METER_OUT_INTENSIFICATION")).toBe(intensifies);
       }),
       RUNS,
     );

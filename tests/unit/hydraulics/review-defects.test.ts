@@ -128,3 +128,49 @@ describe("every component a warning calls for is a line of the bill (sizing cont
     expect(line.rating).toEqual({ value: d.cooler!.kw, unit: "kW", label: "heat rejection" });
   });
 });
+
+describe("the motor sits where the fixed pump sits, and dwell is heat (shared sources' duty-cycle check values [D])", () => {
+  // Sources' check value for a dwell over the relief: Q_p = 94.25 L/min at 140 bar is
+  // 140·94.25/600 = 22.0 kW hydraulic, 25.9 kW at η 0.85, all of it heat.
+  it("dwell heat is p_relief·Q_p/(600·η) and is averaged over the cycle", () => {
+    const base: RequirementsInput = {
+      orientation: "horizontal", massKg: 1000, processForceN: 38000, strokeMm: 300, extendSpeedMmS: 100, retractSpeedMmS: 150,
+      mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+    };
+    const none = sizeCircuit(base);
+    const dwell = sizeCircuit({ ...base, dwellS: 10 });
+    // worked example 1's pump: 27.55 L/min, relief 145 bar → 145·27.55/600/0.85 = 7.833 kW while dwelling
+    expect(dwell.heat.dwellLossKw).toBeCloseTo(7.833, 2);
+    expect(dwell.heat.dwellShare).toBeCloseTo((60 * 10) / 3600, 9);
+    // the dwell replaces neutral time, where the tandem centre unloads the pump
+    expect(dwell.heat.averageLossKw - none.heat.averageLossKw).toBeCloseTo((10 * 60) / 3600 * (7.833 - none.heat.neutralLossKw), 2);
+  });
+  it("with no pressing force and no dwell the motor follows the working pressure (the valve shifts back at the stroke end)", () => {
+    const d = sizeCircuit({
+      orientation: "horizontal", massKg: 1000, strokeMm: 300, extendSpeedMmS: 100, retractSpeedMmS: 150,
+      mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+    });
+    expect(d.motor.sizedAtRelief).toBe(false);
+    expect(d.motor.sizingPressureBar).toBeCloseTo(Math.max(d.pressuresBar.extend, d.pressuresBar.retract), 9);
+  });
+});
+
+describe("meter-out intensification is warned (force balance p2 = φ·p1 + F/A3; shared sources' example φ 2.04 × 120 bar = 245 bar)", () => {
+  it("φ × relief above the rating without a rod-side counterbalance valve gives METER_OUT_INTENSIFICATION", () => {
+    // 40 kN pusher, 1 m free rod end: buckling asks for 80/56 (φ = 80²/(80² − 56²) = 1.961), relief
+    // 95 bar → a meter-out throttle could put 1.961 × 95 = 186.3 bar on a 160 bar cylinder.
+    const d = sizeCircuit({
+      orientation: "horizontal", massKg: 200, processForceN: 40000, strokeMm: 1000, extendSpeedMmS: 100, retractSpeedMmS: 100,
+      mounting: "fixed-free", cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50,
+    });
+    expect(d.cylinder.boreMm).toBe(80);
+    expect(d.cylinder.rodMm).toBe(56);
+    expect(d.pressuresBar.reliefSetting).toBe(95);
+    const peak = d.cylinder.areaRatio * d.pressuresBar.reliefSetting;
+    const warned = d.warnings.some((w) => w.code === "METER_OUT_INTENSIFICATION");
+    expect(warned).toBe(peak > d.cylinder.ratedPressureBar);
+    expect(warned).toBe(true);
+    expect(peak).toBeCloseTo(186.3, 1);
+    expect(d.warnings.find((w) => w.code === "METER_OUT_INTENSIFICATION")!.message).toContain("186.3 bar");
+  });
+});

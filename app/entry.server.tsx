@@ -36,8 +36,9 @@ export default function handleRequest(
       (userAgent && isbot(userAgent)) || routerContext.isSpaMode ? "onAllReady" : "onShellReady";
     let timeoutId: ReturnType<typeof setTimeout> | undefined = setTimeout(() => abort(), streamTimeout + 1000);
 
-    // The root middleware made this response's nonce; React Router puts it on its inline scripts.
-    const nonce = loadContext.get(nonceContext);
+    // The root middleware made this response's nonce (none under the dev server); React Router
+    // puts it on its inline scripts.
+    const nonce = loadContext.get(nonceContext) || undefined;
     const { pipe, abort } = renderToPipeableStream(<ServerRouter context={routerContext} url={request.url} nonce={nonce} />, {
       nonce,
       [readyOption]() {

@@ -16,7 +16,9 @@ export function contentSecurityPolicy(nonce: string, dev = env().NODE_ENV === "d
   return [
     "default-src 'self'",
     // The nonced inline scripts import the route modules, which 'self' allows.
-    `script-src 'self' 'nonce-${nonce}'${dev ? " 'unsafe-inline'" : ""}`,
+    // Under the Vite dev server there is no nonce (React would warn that the browser hid it
+    // before hydration) and Vite's own inline scripts run.
+    dev ? "script-src 'self' 'unsafe-inline'" : `script-src 'self' 'nonce-${nonce}'`,
     // Tailwind's stylesheet is a file; a few components set widths and colours in style="".
     dev ? "style-src 'self' 'unsafe-inline'" : "style-src 'self'; style-src-attr 'unsafe-inline'",
     "img-src 'self' data:",

@@ -68,7 +68,11 @@ export interface Counterbalance {
   pilotOpeningBar: number;
   // additions
   stroke: "extend" | "retract";
+  /** load-induced pressure at the valve port with the load at rest */
   loadPressureBar: number;
+  /** load-induced pressure while the lowering load is braked to a stop in decelTimeS; the setting covers it */
+  brakingPressureBar: number;
+  loweringSpeedMmS: number;
   loadClass: string;
   pilotRatioReason: string;
   /** heat made by throttling the load while lowering at constant speed */

@@ -12,7 +12,7 @@ import {
 import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import type { Requirements } from "./requirements";
 import {
-  cbvSettingBar, choosePilotRatio, cylinderInletBar, hydraulicForceN, pilotOpeningBar, reliefSettingBar,
+  brakingLoadPressureBar, cbvSettingBar, choosePilotRatio, cylinderInletBar, hydraulicForceN, pilotOpeningBar, reliefSettingBar,
   type CbvSide, type PilotRatioChoice,
 } from "./valves";
 
@@ -66,6 +66,9 @@ export function sizingContext(req: Requirements): SizingContext {
 export interface CbvEvaluation {
   side: CbvSide;
   loadPressureBar: number;
+  /** load pressure while the lowering load is braked to a stop in decelTimeS */
+  brakingPressureBar: number;
+  loweringSpeedMmS: number;
   settingBar: number;
   ratio: number;
   areaTerm: number;
@@ -175,15 +178,19 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const retractBackBar =
     lineLossBar(lines.capWork, qp * phi, fluid) + dcv + lineLossBar(lines.return, qp * phi, fluid) + filter;
 
-  // Counterbalance on the side the load pressurises; its setting is from the static load.
+  // Counterbalance on the side the load pressurises, set for the load while it is braked from
+  // the actual lowering speed (its pilot opening still follows the load at rest).
   let cbv: CbvEvaluation | null = null;
   if (ctx.cbvSide && ctx.pilot) {
-    const outletArea = ctx.cbvSide === "rod" ? a3 : a1;
+    const rodSide = ctx.cbvSide === "rod";
+    const outletArea = rodSide ? a3 : a1;
     const loadPressureBar = (10 * loads.gravityAlongAxisN) / outletArea;
-    const settingBar = cbvSettingBar(loadPressureBar);
-    const areaTerm = ctx.cbvSide === "rod" ? phi : 1 / phi;
+    const loweringMmS = rodSide ? extendActualMmS : retractActualMmS;
+    const brakingPressureBar = brakingLoadPressureBar(loads.gravityAlongAxisN, req.massKg, loweringMmS, req.decelTimeS, outletArea);
+    const settingBar = cbvSettingBar(brakingPressureBar);
+    const areaTerm = rodSide ? phi : 1 / phi;
     cbv = {
-      side: ctx.cbvSide, loadPressureBar, settingBar, ratio: ctx.pilot.ratio, areaTerm,
+      side: ctx.cbvSide, loadPressureBar, brakingPressureBar, loweringSpeedMmS: loweringMmS, settingBar, ratio: ctx.pilot.ratio, areaTerm,
       pilotOpeningBar: pilotOpeningBar(settingBar, loadPressureBar, ctx.pilot.ratio, areaTerm),
       loweringDropBar: 0,
       // The larger of the two flows it carries: lowering through 1→2 (Q_p/φ from the rod end,

@@ -170,8 +170,12 @@ export function explain(
       { overrunningStroke: v(cb.stroke, "-") }, "sizing contract; ISO 4413 load holding [M]");
     t.add("counterbalance load pressure", cb.loadPressureBar, "bar", "p_L = 10·G / A at the valve port (load at rest)",
       { G: v(L.gravityAlongAxisN, "N"), A: v(outletArea, "mm²") }, "force balance [D]");
-    t.add("counterbalance setting", cb.settingBar, "bar", "p_set = max(1.3·p_L, p_min): a light load still gets a setting that holds it against surges and return back-pressure",
-      { p_L: v(cb.loadPressureBar, "bar"), factor: v(A.cbvSettingFactor.value, "-"), p_min: v(A.cbvMinSettingBar.value, "bar") },
+    t.add("counterbalance load pressure while braking", cb.brakingPressureBar, "bar",
+      "p_L,max = 10·(G + m·v/t_dec) / A: the load lowered at v and stopped in t_dec (friction, which helps braking, neglected)",
+      { G: v(L.gravityAlongAxisN, "N"), m: v(r.massKg, "kg"), v: v(cb.loweringSpeedMmS, "mm/s"), t_dec: v(r.decelTimeS, "s"), A: v(outletArea, "mm²") },
+      "Newton's second law and force balance [D]");
+    t.add("counterbalance setting", cb.settingBar, "bar", "p_set = max(1.3·p_L,max, p_min): the valve must not relieve while it brakes the load, and a light load still gets a setting that holds it against surges and return back-pressure",
+      { p_L_max: v(cb.brakingPressureBar, "bar"), factor: v(A.cbvSettingFactor.value, "-"), p_min: v(A.cbvMinSettingBar.value, "bar") },
       "valve makers' application notes, common practice [CP]; minimum setting common practice [CP]");
     t.add("pilot ratio", cb.pilotRatio, ":1", `3:1 variable or high-inertia, 4.5:1 general, 8:1 stable — ${cb.pilotRatioReason}`,
       { inertia_ratio: v(ctx.inertiaRatio, "-"), processForce: v(r.processForceN, "N") }, "ratio classes common practice [CP]; class thresholds our rule");

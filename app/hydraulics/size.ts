@@ -18,7 +18,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.1.0";
+export const ENGINE_VERSION = "2.2.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -215,6 +215,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
           pilotOpeningBar: cbv.pilotOpeningBar,
           stroke: cbv.side === "rod" ? "extend" : "retract",
           loadPressureBar: cbv.loadPressureBar,
+          brakingPressureBar: cbv.brakingPressureBar,
+          loweringSpeedMmS: cbv.loweringSpeedMmS,
           loadClass: ctx.pilot.loadClass,
           pilotRatioReason: ctx.pilot.reason,
           loweringHeatKw,
@@ -289,9 +291,6 @@ function notYetSized(r: Requirements): string[] {
   }
   if (r.mountingStyle !== undefined) {
     out.push(`the ${r.mountingStyle} mounting style: the buckling length follows the end conditions only`);
-  }
-  if (r.decelTimeS !== r.accelTimeS) {
-    out.push(`the ${num(r.decelTimeS, 2)} s time to stop: braking is not yet in the counterbalance setting`);
   }
   return out;
 }

@@ -22,6 +22,15 @@ export type CbvSide = "rod" | "cap";
 export const cbvSettingBar = (loadPressureBar: number): number =>
   Math.max(A.cbvSettingFactor.value * loadPressureBar, A.cbvMinSettingBar.value);
 
+/**
+ * Highest load-induced pressure at the CBV port while lowering and braking: stopping the load
+ * from speed v in t_dec adds m·v/t_dec to its weight along the axis, F = m·(g·sin θ + v/t_dec)
+ * (friction, which helps braking, neglected): p = 10·F / A [D]. Set from this, the valve does
+ * not relieve while the load is stopped and the load does not run on.
+ */
+export const brakingLoadPressureBar = (weightAlongAxisN: number, massKg: number, speedMmS: number, decelTimeS: number, areaMm2: number): number =>
+  (10 * (weightAlongAxisN + (massKg * speedMmS) / 1000 / decelTimeS)) / areaMm2;
+
 export interface PilotRatioChoice {
   ratio: number;
   loadClass: "variable or high-inertia" | "general" | "stable";

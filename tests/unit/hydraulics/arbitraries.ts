@@ -25,6 +25,7 @@ export const requirementsArb: fc.Arbitrary<RequirementsInput> = fc
     supplyHz: fc.constantFrom(50, 60) as fc.Arbitrary<50 | 60>,
     maxPressureBar: num(40, 250),
     dwellS: fc.oneof(fc.constant(0), num(0, 30)),
+    decelTimeS: num(0.05, 2),
   })
   .map((r) => {
     const out: RequirementsInput = { ...r };

@@ -103,3 +103,17 @@ describe("cylinder, valves, tank (textbook; sources §2, §5, §6, §9)", () => 
     expect(tankSurfaceM2(125)).toBeCloseTo(1.5, 9);
   });
 });
+
+describe("counterbalance setting with braking (shared sources' check value [D]; 1.3 factor common practice [CP])", () => {
+  it("2000 kg, vertical, lowered at 1.0 m/s and stopped in 0.2 s on 100/70's annulus: 48.98 → 73.95 bar, set 96.1 bar", async () => {
+    const { brakingLoadPressureBar, cbvSettingBar } = await import("~/hydraulics/valves");
+    const a3 = circleAreaMm2(100) - circleAreaMm2(70); // 4005.5 mm² (the sources round to 4006)
+    const weight = 2000 * 9.80665;
+    expect((10 * weight) / a3).toBeCloseTo(48.96, 1);
+    const braking = brakingLoadPressureBar(weight, 2000, 1000, 0.2, a3);
+    expect(braking).toBeCloseTo(73.93, 1); // sources: 73.95 with A3 = 4006
+    expect(cbvSettingBar(braking)).toBeCloseTo(96.1, 1);
+    // without braking it would be 63.7 bar: the valve would relieve while stopping the load
+    expect(cbvSettingBar((10 * weight) / a3)).toBeCloseTo(63.7, 1);
+  });
+});

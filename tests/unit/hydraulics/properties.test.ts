@@ -165,6 +165,10 @@ describe("consistency of every design", () => {
         // setting 1.3 × load-induced pressure at its port, and at least 20 bar [CP]
         expect(d.counterbalance!.settingBar).toBeGreaterThanOrEqual(1.3 * d.counterbalance!.loadPressureBar - 1e-9);
         expect(d.counterbalance!.settingBar).toBeGreaterThanOrEqual(20);
+        // and it covers the load braked from its actual lowering speed in decelTimeS (Newton [D])
+        const cb = d.counterbalance!;
+        expect(cb.brakingPressureBar).toBeGreaterThanOrEqual(cb.loadPressureBar);
+        expect(cb.settingBar).toBeGreaterThanOrEqual(1.3 * cb.brakingPressureBar - 1e-9);
       }),
       RUNS,
     );

@@ -138,7 +138,7 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
     // so F = 60 000 N; F/η = 63 157.9 N.
     // Ø63: 10·63 157.9/3117.25 = 202.6 bar > 145.45 → rejected. Ø80/36: A1 = 5026.55 mm².
     // With the CBV the press pressure is the larger of the wide-open value 10·63 157.9/5026.55 =
-    // 125.65 bar and the throttling value (631 579 + 47.70·4008.67)/(5026.55 + 3·4008.67) = 48.25.
+    // 125.65 bar and the throttling value (631 579 + 50.48·4008.67)/(5026.55 + 3·4008.67) = 48.90.
     expect(d.cylinder.boreMm).toBe(80);
     expect(d.cylinder.rodMm).toBe(36);
     expect(d.pressuresBar.extend).toBeCloseTo(125.65, 1);
@@ -146,13 +146,18 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
 
   it("counterbalance setting, pilot ratio and pilot opening by the full balance (sources §6)", () => {
     // A3 = 5026.55 − π·36²/4 = 4008.67 mm²; φ = 1.2539.
-    // p_L = 10·14 709.97/4008.67 = 36.70 bar; p_set = 1.3·36.70 = 47.70 bar [CP].
+    // p_L = 10·14 709.97/4008.67 = 36.70 bar at rest.
+    // Braking (shared sources' counterbalance setting with braking [D]): lowered at the actual
+    // 114.19 mm/s and stopped in t_dec = t_acc = 0.2 s, a = 0.5709 m/s²; F = 14 709.97 + 1500·0.5709
+    // = 15 566.4 N → p_L,max = 10·15 566.4/4008.67 = 38.83 bar; p_set = 1.3·38.83 = 50.48 bar [CP].
+    // (Engine 1 set it from the load at rest, 47.70 bar: the valve could relieve while braking.)
     // Pilot ratio: a process force acts on the lowering stroke → 3:1 [CP].
-    // p_pilot = (p_set − p_L)/(R + φ) = (47.70 − 36.70)/(3 + 1.2539) = 2.588 bar [D].
+    // p_pilot = (p_set − p_L)/(R + φ) = (50.48 − 36.70)/(3 + 1.2539) = 3.241 bar [D].
     expect(d.counterbalance?.loadPressureBar).toBeCloseTo(36.70, 2);
-    expect(d.counterbalance?.settingBar).toBeCloseTo(47.70, 2);
+    expect(d.counterbalance?.brakingPressureBar).toBeCloseTo(38.83, 2);
+    expect(d.counterbalance?.settingBar).toBeCloseTo(50.48, 2);
     expect(d.counterbalance?.pilotRatio).toBe(3);
-    expect(d.counterbalance?.pilotOpeningBar).toBeCloseTo(2.588, 3);
+    expect(d.counterbalance?.pilotOpeningBar).toBeCloseTo(3.241, 3);
   });
 
   it("flows, pump, lines (continuity [D]; ISO 3662 [M]; SAE J517)", () => {
@@ -177,13 +182,13 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
   it("pressures on both strokes, relief, motor and valve", () => {
     // Lowering (extend): actual speed 34.44·1000/(5026.55·0.06) = 114.19 mm/s;
     //   F = −14 709.97 + 1500·0.11419/0.2 = −13 853.6 N (the load pulls); F·η = −13 160.9 N.
-    //   Throttling CBV: p1 = (10·(−13 160.9) + 47.70·4008.67)/(5026.55 + 3·4008.67) = 3.50 bar;
-    //   supply losses 0.360 + 5 + cap line at Q_p (0.293) = 5.653 → 9.15 bar.
+    //   Throttling CBV: p1 = (10·(−13 160.9) + 50.48·4008.67)/(5026.55 + 3·4008.67) = 4.149 bar;
+    //   supply losses 0.360 + 5 + cap line at Q_p (0.293) = 5.653 → 9.80 bar.
     // Lifting (retract): v = 143.18 mm/s; F = 14 709.97 + 1500·0.14318/0.2 = 15 783.8 N;
     //   back = cap line at φ·Q_p 0.367 + 5 + return 0.089 + 0.5 = 5.956 bar;
     //   p3 = (10·15 783.8/0.95 + 5.956·5026.55)/4008.67 = 48.92 bar;
     //   supply = 0.360 + 5 + rod line 0.720 + 3 (CBV check, free flow 2→1) = 9.079 → 57.99 bar.
-    expect(d.pressuresBar.extendMoving).toBeCloseTo(9.15, 1);
+    expect(d.pressuresBar.extendMoving).toBeCloseTo(9.80, 1);
     expect(d.pressuresBar.retract).toBeCloseTo(57.99, 1);
     // Relief = 1.1·125.65 = 138.2 → 140 bar [CP].
     expect(d.pressuresBar.reliefSetting).toBe(140);
@@ -240,13 +245,17 @@ describe("worked example 3 — inclined lift, rod up, counterbalance on the cap 
 
   it("cap-side counterbalance by the full balance (sources §6)", () => {
     // A1 = 1963.50, A3 = 1963.50 − π·36²/4 = 945.62 mm², φ = 2.0764.
-    // p_L = 10·9806.65/1963.50 = 49.94 bar; p_set = 1.3·49.94 = 64.93 bar [CP].
+    // p_L = 10·9806.65/1963.50 = 49.94 bar at rest.
+    // Braking (shared sources, counterbalance setting with braking [D]): lowered on retraction at
+    // the actual 234.41 mm/s, stopped in 0.2 s, a = 1.1721 m/s²; F = 9806.65 + 2000·1.1721 = 12 150.8 N
+    // → p_L,max = 10·12 150.8/1963.50 = 61.88 bar; p_set = 1.3·61.88 = 80.45 bar [CP] (engine 1: 64.93).
     // Inertia ratio v/(t·g·sin θ) = 0.1/(0.2·9.80665·0.5) = 0.102 → general, 4.5:1 [CP].
-    // p_pilot = (64.93 − 49.94)/(4.5 + 1/2.0764) = 3.008 bar [D].
+    // p_pilot = (80.45 − 49.94)/(4.5 + 1/2.0764) = 6.123 bar [D].
     expect(d.counterbalance?.side).toBe("cap");
-    expect(d.counterbalance?.settingBar).toBeCloseTo(64.93, 2);
+    expect(d.counterbalance?.brakingPressureBar).toBeCloseTo(61.88, 2);
+    expect(d.counterbalance?.settingBar).toBeCloseTo(80.45, 2);
     expect(d.counterbalance?.pilotRatio).toBe(4.5);
-    expect(d.counterbalance?.pilotOpeningBar).toBeCloseTo(3.008, 3);
+    expect(d.counterbalance?.pilotOpeningBar).toBeCloseTo(6.123, 3);
     expect(d.directionalValve.center).toBe("float");
   });
 
@@ -263,10 +272,10 @@ describe("worked example 3 — inclined lift, rod up, counterbalance on the cap 
     //   p1 = (10·12 634.15/0.95 + 6.403·945.62)/1963.5 = 70.82; supply = pressure line 0.909 + 5 +
     //   cap line at Q_p 0.278 + 3 (CBV check) = 9.187 → 80.00 bar.
     // Lowering (retract): v = 234.41 mm/s; F = 1698.56 − 9806.65 + 2344.14 = −5763.95 N; F·η = −5475.75 N;
-    //   CBV throttling: p3 = (10·(−5475.75) + 64.93·1963.5)/(945.62 + 4.5·1963.5) = 7.435 bar;
-    //   supply = 0.909 + 5 + rod line 1.819 = 7.728 → 15.16 bar.
+    //   CBV throttling: p3 = (10·(−5475.75) + 80.45·1963.5)/(945.62 + 4.5·1963.5) = 10.55 bar;
+    //   supply = 0.909 + 5 + rod line 1.819 = 7.728 → 18.28 bar.
     expect(d.pressuresBar.extend).toBeCloseTo(80.0, 1);
-    expect(d.pressuresBar.retract).toBeCloseTo(15.16, 1);
+    expect(d.pressuresBar.retract).toBeCloseTo(18.28, 1);
     // Relief 1.1·80.00 = 88.0 → 90 bar. Float centre with a solenoid-vented relief [CP]: the pump
     // unloads at 5 bar in neutral, so the motor is sized on the working pressure 80.00 bar:
     //   P = 80.00·13.3/600/0.85 = 1064/510 = 2.086 kW → 2.2 kW (IEC 60072-1 [M]).

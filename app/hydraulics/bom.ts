@@ -113,7 +113,7 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
   bom.push(
     {
       key: "cylinder", item: "Double-acting hydraulic cylinder", quantity: 1,
-      specification: `bore ${num(c.boreMm, 2)} mm / rod ${num(c.rodMm, 2)} mm (ISO 3320), stroke ${num(c.strokeMm, 2)} mm, ${c.series} style, ${d.requirements.mounting} mounting, rated ${c.ratedPressureBar} bar`,
+      specification: `bore ${num(c.boreMm, 2)} mm / rod ${num(c.rodMm, 2)} mm (ISO 3320), stroke ${num(c.strokeMm, 2)} mm, ${c.series} style, ${d.requirements.mountingStyle ? `${d.requirements.mountingStyle} mounting, ` : ""}rod end ${d.requirements.mounting}, rated ${c.ratedPressureBar} bar`,
       rating: { value: c.boreMm, unit: "mm", label: "bore" },
     },
     hose("hose-pressure", "Pressure hose, pump to valve", d.lines.pressure, pressureHose),

@@ -3,7 +3,7 @@
  * buckling) and whether it meets every limit. The search in size.ts calls this per candidate.
  */
 import { A } from "./assumptions";
-import { EULER_CASES, bucklingLengthMm, checkBuckling, type BucklingResult } from "./buckling";
+import { bucklingColumn, checkBuckling, type BucklingColumn, type BucklingResult } from "./buckling";
 import { workingLimitBar, type CylinderCandidate } from "./cylinder";
 import { DEFAULT_FLUID, lineLossBar, sizeLine, type Fluid, type LineSizing } from "./lines";
 import {
@@ -21,7 +21,7 @@ export interface SizingContext {
   loads: AxisLoads;
   speedRpm: number;
   fluid: Fluid;
-  buckling: { eulerCase: 1 | 2 | 3 | 4; k: number; description: string; lengthMm: number; rule: string };
+  buckling: BucklingColumn;
   cbvSide: CbvSide | null;
   pilot: PilotRatioChoice | null;
   inertiaRatio: number;
@@ -32,8 +32,6 @@ export interface SizingContext {
 
 export function sizingContext(req: Requirements): SizingContext {
   const loads = axisLoads(req);
-  const euler = EULER_CASES[req.mounting];
-  const length = bucklingLengthMm(req.mounting, req.strokeMm);
   const eta = A.cylinderEfficiency.value;
 
   let cbvSide: CbvSide | null = null;
@@ -56,7 +54,7 @@ export function sizingContext(req: Requirements): SizingContext {
 
   return {
     req, loads, speedRpm: motorSpeedRpm(req.supplyHz), fluid: DEFAULT_FLUID,
-    buckling: { eulerCase: euler.eulerCase, k: euler.k, description: euler.description, lengthMm: length.lengthMm, rule: length.rule },
+    buckling: bucklingColumn(req.mounting, req.mountingStyle, req.strokeMm),
     cbvSide, pilot, inertiaRatio,
     minExtendHydraulicN: extendNeed / eta,
     minRetractHydraulicN: retractNeed / eta,

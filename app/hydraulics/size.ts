@@ -18,7 +18,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.2.0";
+export const ENGINE_VERSION = "2.3.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -289,9 +289,6 @@ function notYetSized(r: Requirements): string[] {
   if (r.holdMinutes > 0) {
     out.push(`the ${num(r.holdMinutes)} min hold: no leak-tight holding valve is added; a counterbalance valve or a spool valve alone lets a load creep`);
   }
-  if (r.mountingStyle !== undefined) {
-    out.push(`the ${r.mountingStyle} mounting style: the buckling length follows the end conditions only`);
-  }
   return out;
 }
 
@@ -359,6 +356,10 @@ function addWarnings(
   if (extra.duty.overloaded) {
     w.add("DUTY_CYCLE_OVERLOAD",
       `At the actual speeds the cycles asked for need more than an hour of movement per hour; the heat is worked out for continuous movement.`);
+  }
+  if (ctx.buckling.unstable) {
+    w.add("PIVOTED_BODY_FREE_ROD",
+      `A cylinder held by a ${d.requirements.mountingStyle} pivot with a free, unguided rod end is a mechanism, not a column: it folds at the pivot under any push. Guide the rod end, or hold the body by a flange or feet.`);
   }
   const later = notYetSized(d.requirements);
   if (later.length > 0) {

@@ -22,6 +22,8 @@ export const WARNING_CODES = [
   "NO_CYLINDER_MEETS_PRESSURE",
   /** a rod-side restriction while extending would intensify the rod side above the cylinder's rating */
   "METER_OUT_INTENSIFICATION",
+  /** a trunnion or clevis body with a free rod end cannot carry a push */
+  "PIVOTED_BODY_FREE_ROD",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

@@ -26,10 +26,14 @@ export const requirementsArb: fc.Arbitrary<RequirementsInput> = fc
     maxPressureBar: num(40, 250),
     dwellS: fc.oneof(fc.constant(0), num(0, 30)),
     decelTimeS: num(0.05, 2),
+    mountingStyle: fc.constantFrom(undefined, "front-flange", "rear-flange", "trunnion", "clevis", "foot") as fc.Arbitrary<
+      "front-flange" | "rear-flange" | "trunnion" | "clevis" | "foot" | undefined
+    >,
   })
   .map((r) => {
     const out: RequirementsInput = { ...r };
     if (r.orientation !== "inclined") delete out.inclineDeg;
     if (r.orientation === "horizontal") delete out.rodDirection;
+    if (r.mountingStyle === undefined) delete out.mountingStyle;
     return out;
   });

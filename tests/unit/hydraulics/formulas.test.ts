@@ -1,6 +1,6 @@
 /** Formulas against textbook values and the check values in the shared sources note. */
 import { describe, expect, it } from "vitest";
-import { checkBuckling, eulerLoadN, rodInertiaMm4 } from "~/hydraulics/buckling";
+import { bucklingColumn, checkBuckling, eulerLoadN, rodInertiaMm4 } from "~/hydraulics/buckling";
 import { circleAreaMm2, cylinderForceN } from "~/hydraulics/cylinder";
 import {
   frictionFactor, lineDiameterMm, lineVelocityMS, pressureLossBarPerM, reynoldsNumber, selectHose,
@@ -115,5 +115,52 @@ describe("counterbalance setting with braking (shared sources' check value [D]; 
     expect(cbvSettingBar(braking)).toBeCloseTo(96.1, 1);
     // without braking it would be 63.7 bar: the valve would relieve while stopping the load
     expect(cbvSettingBar((10 * weight) / a3)).toBeCloseTo(63.7, 1);
+  });
+});
+
+describe("buckling length by mounting style (shared sources' check values [D]; L₀ = 300 mm, e = 150 mm assumed [CP])", () => {
+  // s = 1000 mm. Front mountings L = s + e = 1150 mm; rear ones L = L₀ + 2·s = 2300 mm.
+  const lk = (mounting: Parameters<typeof bucklingColumn>[0], style: Parameters<typeof bucklingColumn>[1]) => {
+    const c = bucklingColumn(mounting, style, 1000);
+    return c.k * c.lengthMm;
+  };
+  it("front flange: rod free 2300, pinned and guided 805, fixed and guided 575 mm", () => {
+    expect(lk("fixed-free", "front-flange")).toBeCloseTo(2300, 6);
+    expect(lk("fixed-pinned", "front-flange")).toBeCloseTo(805, 6);
+    expect(lk("fixed-fixed", "front-flange")).toBeCloseTo(575, 6);
+  });
+  it("rear flange: rod free 4600, pinned and guided 1610, fixed and guided 1150 mm", () => {
+    expect(lk("fixed-free", "rear-flange")).toBeCloseTo(4600, 6);
+    expect(lk("fixed-pinned", "rear-flange")).toBeCloseTo(1610, 6);
+    expect(lk("fixed-fixed", "rear-flange")).toBeCloseTo(1150, 6);
+  });
+  it("rear clevis or trunnion with a rod eye: 2300 mm (case 2, K = 1)", () => {
+    expect(lk("pinned-pinned", "clevis")).toBeCloseTo(2300, 6);
+    expect(lk("pinned-pinned", "trunnion")).toBeCloseTo(2300, 6);
+  });
+  it("no style given: the longest length the end conditions allow (rear flange, or rear pivot), said in the rule", () => {
+    const c = bucklingColumn("fixed-free", undefined, 1000);
+    expect(c.k * c.lengthMm).toBeCloseTo(4600, 6);
+    expect(c.styleAssumed).toBe(true);
+    expect(c.rule).toContain("longest free length");
+    expect(lk("pinned-pinned", undefined)).toBeCloseTo(2300, 6);
+  });
+  it("Euler forces for a 70 mm rod: 2300 → 461.8 kN, 4600 → 115.4 kN, 1610 → 942.4 kN (λ 131, 263, 92)", () => {
+    const i = rodInertiaMm4(70);
+    expect(eulerLoadN(210000, i, 2300) / 1000).toBeCloseTo(461.8, 1);
+    expect(eulerLoadN(210000, i, 4600) / 1000).toBeCloseTo(115.4, 1);
+    expect(eulerLoadN(210000, i, 1610) / 1000).toBeCloseTo(942.4, 1);
+    expect(checkBuckling(70, 1610, 1, 1).slenderness).toBeCloseTo(92, 0);
+  });
+  it("the audit's 2 m pusher, fixed–free: front flange 4300 mm, rear flange 8600 mm, a factor 4.0 in Euler force", () => {
+    const front = bucklingColumn("fixed-free", "front-flange", 2000);
+    const rear = bucklingColumn("fixed-free", "rear-flange", 2000);
+    expect(front.k * front.lengthMm).toBeCloseTo(4300, 6);
+    expect(rear.k * rear.lengthMm).toBeCloseTo(8600, 6);
+    expect(eulerLoadN(210000, rodInertiaMm4(50), 4300) / eulerLoadN(210000, rodInertiaMm4(50), 8600)).toBeCloseTo(4.0, 9);
+  });
+  it("a pivoted body with a free rod end is flagged unstable (a mechanism, not a column)", () => {
+    expect(bucklingColumn("fixed-free", "clevis", 500).unstable).toBe(true);
+    expect(bucklingColumn("pinned-pinned", "clevis", 500).unstable).toBe(false);
   });
 });

@@ -69,13 +69,13 @@ describe("counterbalance valve for light loads (common practice minimum setting;
 });
 
 describe("the reservoir holds the oil the cylinder draws (continuity; 3–5 × pump flow, common practice)", () => {
-  // 6 m vertical lift, 2 t, 30 mm/s: the engine picks 100/70 (buckling over 6 m), A_rod = π·70²/4 =
+  // 6 m vertical lift, 2 t, 30 mm/s, front flange: the engine picks 100/70 (buckling over 6 m), A_rod = π·70²/4 =
   // 3848.45 mm². Extended, the cap end holds A1·s = 47.1 L and the rod end gives back A3·s = 24.0 L:
   // the tank is down by A_rod·s = 3848.45·6000/10⁶ = 23.09 L. Pump 12.5 cm³/rev·1450·0.95 = 17.22 L/min;
   // 4 × 17.22 = 68.9 L was the whole tank before (70 L). Now 68.9 + 23.09 = 91.97 → 95 L.
   const d = sizeCircuit({
     orientation: "vertical", rodDirection: "up", massKg: 2000, strokeMm: 6000, extendSpeedMmS: 30, retractSpeedMmS: 30,
-    mounting: "fixed-pinned", cyclesPerHour: 10, hoursPerDay: 8, supplyHz: 50,
+    mounting: "fixed-pinned", mountingStyle: "front-flange", cyclesPerHour: 10, hoursPerDay: 8, supplyHz: 50,
   });
   it("6 m lift: 23.1 L drawn is added to the 4 × pump-flow rule", () => {
     expect(d.cylinder.rodMm).toBe(70);
@@ -157,11 +157,11 @@ describe("the motor sits where the fixed pump sits, and dwell is heat (shared so
 
 describe("meter-out intensification is warned (force balance p2 = φ·p1 + F/A3; shared sources' example φ 2.04 × 120 bar = 245 bar)", () => {
   it("φ × relief above the rating without a rod-side counterbalance valve gives METER_OUT_INTENSIFICATION", () => {
-    // 40 kN pusher, 1 m free rod end: buckling asks for 80/56 (φ = 80²/(80² − 56²) = 1.961), relief
+    // 40 kN pusher, 1 m free rod end, front flange: buckling asks for 80/56 (φ = 80²/(80² − 56²) = 1.961), relief
     // 95 bar → a meter-out throttle could put 1.961 × 95 = 186.3 bar on a 160 bar cylinder.
     const d = sizeCircuit({
       orientation: "horizontal", massKg: 200, processForceN: 40000, strokeMm: 1000, extendSpeedMmS: 100, retractSpeedMmS: 100,
-      mounting: "fixed-free", cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50,
+      mounting: "fixed-free", mountingStyle: "front-flange", cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50,
     });
     expect(d.cylinder.boreMm).toBe(80);
     expect(d.cylinder.rodMm).toBe(56);

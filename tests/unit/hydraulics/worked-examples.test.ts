@@ -22,10 +22,11 @@ import { sizeCircuit } from "~/hydraulics";
 describe("worked example 1 — horizontal clamp feed, no counterbalance", () => {
   // Requirements: horizontal, m = 1000 kg, process force 38 kN at the end of the stroke,
   // μ = 0.1 (default), stroke 300 mm, extend 100 mm/s, retract 150 mm/s, t_acc = 0.2 s,
-  // fixed-fixed (front flange, guided rod end), 60 cycles/h, 50 Hz, maxPressureBar 160.
+  // fixed-fixed rod end with a front flange (mountingStyle, since engine 2.3 an absent style
+  // means the longest free length, a rear flange), 60 cycles/h, 50 Hz, maxPressureBar 160.
   const d = sizeCircuit({
     orientation: "horizontal", massKg: 1000, processForceN: 38000, strokeMm: 300,
-    extendSpeedMmS: 100, retractSpeedMmS: 150, mounting: "fixed-fixed",
+    extendSpeedMmS: 100, retractSpeedMmS: 150, mounting: "fixed-fixed", mountingStyle: "front-flange",
     cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
   });
 
@@ -117,10 +118,10 @@ describe("worked example 1 — horizontal clamp feed, no counterbalance", () => 
 
 describe("worked example 2 — vertical press, rod down, counterbalance on the rod side", () => {
   // Requirements: vertical, rod down, m = 1500 kg, process force 60 kN, stroke 400 mm,
-  // extend 80 mm/s, retract 120 mm/s, fixed-pinned, 30 cycles/h, 50 Hz.
+  // extend 80 mm/s, retract 120 mm/s, fixed-pinned rod end with a front flange, 30 cycles/h, 50 Hz.
   const d = sizeCircuit({
     orientation: "vertical", rodDirection: "down", massKg: 1500, processForceN: 60000, strokeMm: 400,
-    extendSpeedMmS: 80, retractSpeedMmS: 120, mounting: "fixed-pinned",
+    extendSpeedMmS: 80, retractSpeedMmS: 120, mounting: "fixed-pinned", mountingStyle: "front-flange",
     cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50,
   });
 

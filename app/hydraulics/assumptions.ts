@@ -66,6 +66,9 @@ export const ASSUMPTIONS = {
   highInertiaRatio: a(0.25, "-", "acceleration force ≥ 25 % of the weight component: treat as high-inertia (pilot 3:1); our rule on common-practice classes [CP]"),
   stableInertiaRatio: a(0.05, "-", "acceleration force < 5 % of the weight component and no process force: stable load (pilot 8:1); our rule [CP]"),
 
+  leakTightHoldMinutes: a(5, "min", "a load held at rest longer than this gets pilot-operated checks: spool valves and counterbalance valves are not leak-tight holders over minutes; the sizing contract's 'more than a few minutes', 5 min our reading [CP]"),
+  pocvPilotRatio: a(4, ":1", "pilot-operated check ratios offered 3:1 to 4.4:1; a 2:1 cylinder needs at least 3:1 on its rod end (trade text on pilot ratios [S]); 4:1 chosen [CP]"),
+
   // Pump speed check
   speedTolerance: a(0.1, "-", "a stroke more than 10 % faster than asked is flagged; our convention"),
   pressureNearLimit: a(0.95, "-", "working pressure above 95 % of its limit leaves little reserve; our convention"),

@@ -102,6 +102,15 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
       rating: { value: relief, unit: "bar", label: "pressure rating" },
     });
   }
+  if (d.holding) {
+    const h = d.holding;
+    const where = h.side === "both" ? "one on each cylinder port" : `on the ${h.side} port`;
+    bom.push({
+      key: "holding-valve", item: "Pilot-operated check valve (leak-tight load holding)", quantity: h.side === "both" ? 2 : 1,
+      specification: `poppet type, ${where}, pilot ratio ${num(h.pilotRatio, 2)}:1, opens at about ${num(h.pilotOpeningBar)} bar pilot, at least ${num(h.flowLpm)} L/min and ${relief} bar, externally drained if the return line carries back-pressure; flange-mounted directly on the cylinder`,
+      rating: { value: h.pilotRatio, unit: ":1", label: "pilot ratio" },
+    });
+  }
   if (d.counterbalance) {
     const cb = d.counterbalance;
     bom.push({

@@ -2,6 +2,7 @@
  * The Design the engine returns. Field names from the sizing contract are fixed; the others
  * are additions for the design page, exports and reviewers.
  */
+import type { HoldingDesign } from "./holding";
 import type { LineSizing } from "./lines";
 import type { Requirements } from "./requirements";
 import type { Iso4401Size } from "./series";
@@ -9,7 +10,7 @@ import type { TrailEntry } from "./trail";
 import type { CbvSide, DcvCenter, DcvPositions, PortPair } from "./valves";
 import type { Warning } from "./warnings";
 
-export type { DcvPositions, PortPair, DcvCenter, CbvSide, LineSizing, TrailEntry, Warning };
+export type { DcvPositions, PortPair, DcvCenter, CbvSide, LineSizing, TrailEntry, Warning, HoldingDesign };
 
 export interface LoadsBreakdown {
   angleDeg: number;
@@ -175,6 +176,8 @@ export interface Design {
     sizedAtRelief: boolean;
   };
   counterbalance: Counterbalance | null;
+  /** leak-tight holding where the load is held at rest longer than a few minutes */
+  holding: HoldingDesign | null;
   /** null when the centre unloads the pump itself (tandem) */
   reliefVent: ReliefVent | null;
   directionalValve: {

@@ -187,6 +187,19 @@ export function explain(
       { Δp_CBV: v(ev.cbv!.loweringDropBar, "bar"), Q: v(cb.flowLpm, "L/min") }, "hydraulic power P = p·Q/600 [D]");
   }
 
+  // ---- Holding
+  const hold = d.holding;
+  t.add("leak-tight holding", hold ? `pilot-operated check, ${hold.side}` : "none", "-",
+    hold ? `held at rest longer than ${A.leakTightHoldMinutes.value} min: ${hold.reason}` : `held at rest no longer than ${A.leakTightHoldMinutes.value} min: no leak-tight holding asked`,
+    { holdMinutes: v(r.holdMinutes, "min"), threshold: v(A.leakTightHoldMinutes.value, "min") },
+    "spool valves leak internally under pressure, poppet valves do not (trade-journal articles on counterbalance valves; university course notes on unloading and counterbalance valves) [S]; threshold common practice [CP]");
+  if (hold && hold.side !== "both") {
+    t.add("holding valve pilot opening pressure", hold.pilotOpeningBar, "bar",
+      hold.side === "rod" ? "p1 = (F/A3) / (R − φ): the pilot must overcome the load, helped by nothing (needs R > φ)" : "p3 = (F/A1) / (R − 1/φ)",
+      { F: v(hold.side === "rod" || ctx.loads.overrunningStroke === "retract" ? L.gravityAlongAxisN : r.processForceN, "N"), R: v(hold.pilotRatio, "-"), φ: vPhi, A1: vA1, A3: vA3 },
+      "pilot-operated check force balance with the outlet at tank pressure [D]; pilot ratio from a trade text on pilot ratios [S] and makers' offered ratios [CP]");
+  }
+
   // ---- Pressures
   const rodCbv = cb?.side === "rod";
   const capCbv = cb?.side === "cap";

@@ -7,6 +7,7 @@ import { buildCircuit } from "./circuit";
 import { cylinderCandidates, cylinderForceN, workingLimitBar } from "./cylinder";
 import type { Design } from "./design";
 import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
+import { holdingFor } from "./holding";
 import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
 import { lineLossBar, sizeLine } from "./lines";
@@ -18,7 +19,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.3.0";
+export const ENGINE_VERSION = "2.4.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -94,7 +95,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const lines = { pressure: ev.lines.pressure, capWork: ev.lines.capWork, rodWork: ev.lines.rodWork, return: ev.lines.return, suction };
 
   // Directional valve
-  const centre = chooseDcvCenter(cbv !== null);
+  const holding = holdingFor(req, ctx.loads, cyl, qp);
+  const centre = chooseDcvCenter(cbv !== null, holding !== null);
   const maxPathFlowLpm = Math.max(qp, qp * cyl.areaRatio, qp / cyl.areaRatio);
   const valve = selectIso4401(maxPathFlowLpm);
 
@@ -223,6 +225,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
           flowLpm: cbv.flowLpm,
         }
       : null,
+    holding,
     reliefVent: centre.ventedRelief
       ? { ventPressureBar: A.ventPressureBar.value, valve: VENT_VALVE, coilVoltage: COIL_VOLTAGE, energisedWhen: VENT_ENERGISED_WHEN }
       : null,
@@ -285,9 +288,6 @@ function notYetSized(r: Requirements): string[] {
   }
   if (r.pumpType !== undefined && r.pumpType !== "fixed") {
     out.push(`the ${r.pumpType === "double" ? "double (high-low)" : "pressure-compensated"} pump asked for: a fixed pump is sized instead`);
-  }
-  if (r.holdMinutes > 0) {
-    out.push(`the ${num(r.holdMinutes)} min hold: no leak-tight holding valve is added; a counterbalance valve or a spool valve alone lets a load creep`);
   }
   return out;
 }
@@ -356,6 +356,11 @@ function addWarnings(
   if (extra.duty.overloaded) {
     w.add("DUTY_CYCLE_OVERLOAD",
       `At the actual speeds the cycles asked for need more than an hour of movement per hour; the heat is worked out for continuous movement.`);
+  }
+  const hold = d.holding;
+  if (hold && hold.side === "rod" && hold.openingLoadSideBar > c.ratedPressureBar + 1e-9) {
+    w.add("ROD_SIDE_INTENSIFICATION",
+      `Opening the rod-end pilot-operated check intensifies the rod side to ${f1(hold.openingLoadSideBar)} bar (p2 = F/A3 + φ·p_pilot), above the cylinder's ${c.ratedPressureBar} bar rating; choose a higher pilot ratio.`);
   }
   if (ctx.buckling.unstable) {
     w.add("PIVOTED_BODY_FREE_ROD",

@@ -161,13 +161,19 @@ const TANDEM_CHOICE: Readonly<DcvCenterChoice> = Object.freeze({
   pBlockedInNeutral: false, ventedRelief: false, pumpOnReliefInNeutral: false,
 });
 
+const FLOAT_CHOICE_POCV: Readonly<DcvCenterChoice> = Object.freeze({
+  ...FLOAT_CHOICE,
+  reason: "float centre (P blocked, A and B to T): the pilot-operated checks' pilot lines vent in neutral, so their poppets seat fully and hold the load without drift; a closed or tandem centre could trap pilot pressure and keep them open",
+});
+
 /**
- * Float centre where a counterbalance valve needs its pilot vented, else tandem. A centre that
- * blocks P gets a solenoid-vented relief, so the fixed pump does not run over relief in
- * neutral (sources §6: "unless it is unloaded (vent or unloading valve)") [CP].
+ * Float centre where a counterbalance valve or pilot-operated checks need their pilots vented,
+ * else tandem. A centre that blocks P gets a solenoid-vented relief, so the fixed pump does not
+ * run over relief in neutral ("unless it is unloaded by a vent or unloading valve", common
+ * practice) [CP].
  */
-export function chooseDcvCenter(hasCbv: boolean): Readonly<DcvCenterChoice> {
-  return hasCbv ? FLOAT_CHOICE : TANDEM_CHOICE;
+export function chooseDcvCenter(hasCbv: boolean, hasHolding = false): Readonly<DcvCenterChoice> {
+  return hasCbv ? FLOAT_CHOICE : hasHolding ? FLOAT_CHOICE_POCV : TANDEM_CHOICE;
 }
 
 const CENTER_PAIRS: Record<DcvCenter, PortPair[]> = {

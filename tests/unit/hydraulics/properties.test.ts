@@ -88,6 +88,23 @@ describe("monotonic sizing the sizing contract names", () => {
   });
 });
 
+describe("holding (sizing contract)", () => {
+  it("a longer hold never drops leak-tight holding, and holding always has its bill line and a venting centre", () => {
+    fc.assert(
+      fc.property(requirementsArb, fc.double({ min: 0, max: 600, noNaN: true }), fc.double({ min: 1, max: 10, noNaN: true }), (req, minutes, factor) => {
+        const short = sizeCircuit({ ...req, holdMinutes: minutes });
+        const long = sizeCircuit({ ...req, holdMinutes: Math.min(10_080, minutes * factor) });
+        if (short.holding) expect(long.holding).not.toBeNull();
+        for (const d of [short, long]) {
+          expect(d.bom.some((l) => l.key === "holding-valve")).toBe(d.holding !== null);
+          if (d.holding) expect(d.directionalValve.center).toBe("float");
+        }
+      }),
+      RUNS,
+    );
+  });
+});
+
 describe("consistency of every design", () => {
   it("flows equal area × speed (continuity [D])", () => {
     fc.assert(

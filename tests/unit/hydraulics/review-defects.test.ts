@@ -3,7 +3,9 @@
  * check that failed before its fix. Sources are named beside each check.
  */
 import { describe, expect, it } from "vitest";
-import { NotSizableError, RequirementsError, sizeCircuit, type RequirementsInput } from "~/hydraulics";
+import { NotSizableError, RequirementsError, parseRequirements, sizeCircuit, type RequirementsInput } from "~/hydraulics";
+import { cylinderCandidates } from "~/hydraulics/cylinder";
+import { holdingFor } from "~/hydraulics/holding";
 
 const DUTY = { cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50 } as const;
 
@@ -172,5 +174,44 @@ describe("meter-out intensification is warned (force balance p2 = φ·p1 + F/A3;
     expect(warned).toBe(true);
     expect(peak).toBeCloseTo(186.3, 1);
     expect(d.warnings.find((w) => w.code === "METER_OUT_INTENSIFICATION")!.message).toContain("186.3 bar");
+  });
+});
+
+describe("leak-tight holding for a load held at rest (sizing contract holdMinutes; shared sources' holding check values [D])", () => {
+  // 100/70: A1 = 7853.98, A3 = 4005.53 mm², φ = 1.9608; pilot ratio 4:1 [CP].
+  const cyl = cylinderCandidates().find((c) => c.boreMm === 100 && c.rodMm === 70 && c.series === "ISO 6020-2")!;
+  const loads = (over: "extend" | "retract" | null, gravityN: number) =>
+    ({ angleDeg: 90, gravityAlongAxisN: gravityN, normalForceN: 0, frictionN: 0, processForceN: 0, extendGravitySign: over === "extend" ? -1 : 1, overrunningStroke: over }) as const;
+  const req = (holdMinutes: number, processForceN = 0) => parseRequirements({
+    orientation: "vertical", rodDirection: "down", massKg: 2000, processForceN, strokeMm: 400, extendSpeedMmS: 100, retractSpeedMmS: 100,
+    mounting: "fixed-pinned", holdMinutes, ...DUTY,
+  });
+  it("rod end, 20 kN hanging: p1 = (F/A3)/(R − φ) = 24.5 bar, opening at p2 = F/A3 + φ·p1 = 97.9 bar", () => {
+    const h = holdingFor(req(30), loads("extend", 20000), cyl, 50)!;
+    expect(h.side).toBe("rod");
+    expect(h.pilotRatio).toBe(4);
+    expect(h.pilotOpeningBar).toBeCloseTo(24.5, 1);
+    expect(h.openingLoadSideBar).toBeCloseTo(97.9, 1);
+  });
+  it("cap end, 20 kN lifted: p3 = (F/A1)/(R − 1/φ) = 7.30 bar", () => {
+    const h = holdingFor(req(30), loads("retract", 20000), cyl, 50)!;
+    expect(h.side).toBe("cap");
+    expect(h.pilotOpeningBar).toBeCloseTo(7.30, 2);
+  });
+  it("a hold of a few minutes or less asks for none", () => {
+    expect(holdingFor(req(5), loads("extend", 20000), cyl, 50)).toBeNull();
+  });
+  it("a clamp held 30 min gets a cap-end check valve, a float centre so its pilot vents, and a bill line", () => {
+    const d = sizeCircuit({
+      orientation: "horizontal", massKg: 100, processForceN: 30000, strokeMm: 100, extendSpeedMmS: 50, retractSpeedMmS: 50,
+      mounting: "fixed-fixed", mountingStyle: "front-flange", holdMinutes: 30, ...DUTY,
+    });
+    expect(d.holding?.side).toBe("cap");
+    expect(d.directionalValve.center).toBe("float");
+    expect(d.reliefVent).not.toBeNull();
+    const line = d.bom.find((l) => l.key === "holding-valve")!;
+    expect(line.quantity).toBe(1);
+    expect(line.specification).toContain("pilot ratio 4:1");
+    expect(d.warnings.some((w) => w.code === "REQUIREMENT_NOT_YET_SIZED")).toBe(false);
   });
 });

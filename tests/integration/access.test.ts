@@ -1,7 +1,6 @@
 // Each role against each page of the foundation: allowed (200), wrong role (403),
 // another organisation's record (404), signed out (redirect to sign-in with a return address).
 import { beforeAll, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as specs from "~/routes/specs";
 import * as openSpecs from "~/routes/open-specs";
 import * as team from "~/routes/team";
@@ -13,8 +12,9 @@ import * as adminOrgs from "~/routes/admin.organisations";
 import * as adminMail from "~/routes/admin.mail";
 import type { Role } from "~/auth/roles";
 import { Organisation, type User } from "~/models/index.server";
-import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
+import { makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 type Loader = (args: any) => unknown;
 const PAGES: { path: string; loader: Loader; allowed: Role[] }[] = [
@@ -37,8 +37,7 @@ beforeAll(async () => {
   users.account_manager = await makeOperatorUser("account_manager");
   users.admin = await makeOperatorUser("admin");
   for (const role of Object.keys(users) as Role[]) {
-    visitors[role] = new Visitor();
-    await visitors[role].post(signIn.action, "/sign-in", { email: users[role].email, password: PASSWORD });
+    visitors[role] = await signedIn(users[role]);
   }
 });
 

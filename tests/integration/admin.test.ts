@@ -6,13 +6,14 @@ import * as accounts from "~/routes/accounts";
 import { Organisation, type User } from "~/models/index.server";
 import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 let admin: User;
-const visitor = new Visitor();
+let visitor: Visitor;
 
 beforeAll(async () => {
   admin = await makeOperatorUser("admin");
-  await visitor.post(signIn.action, "/sign-in", { email: admin.email, password: PASSWORD });
+  visitor = await signedIn(admin);
 });
 
 describe("admin: users", () => {
@@ -93,8 +94,7 @@ describe("admin: organisations and account managers", () => {
     expect(res.status).toBe(302);
     expect((await Organisation.findByPk(buyer.organisationId))?.accountManagerId).toBe(manager.id);
 
-    const managerVisitor = new Visitor();
-    await managerVisitor.post(signIn.action, "/sign-in", { email: manager.email, password: PASSWORD });
+    const managerVisitor = await signedIn(manager);
     const list = await managerVisitor.get(accounts.loader, "/accounts");
     expect(list.data.accounts.map((a: { name: string }) => a.name)).toEqual(["Ravensworth Balers"]);
   });

@@ -5,10 +5,10 @@ vi.hoisted(() => {
   process.env.SIZING_REQUESTS_PER_MINUTE = "12";
 });
 
-import * as signIn from "~/routes/sign-in";
 import * as sizing from "~/routes/api.v1.sizing";
 import { Visitor, call, serverContext } from "../support/routes";
-import { PASSWORD, makeMember } from "../support/factories";
+import { signedIn } from "../support/sessions";
+import { makeMember } from "../support/factories";
 
 const GOOD = {
   orientation: "vertical",
@@ -112,8 +112,7 @@ describe("POST /api/v1/sizing", () => {
     for (let i = 0; i < 12; i++) await post(GOOD, office);
     expect((await post(GOOD, office)).status).toBe(429);
     const { email } = await makeMember("buyer");
-    const colleague = new Visitor();
-    await colleague.post(signIn.action, "/sign-in", { email, password: PASSWORD });
+    const colleague = await signedIn({ email });
     expect(colleague.signedIn).toBe(true);
     expect((await post(GOOD, office, {}, colleague)).status).toBe(200);
   });

@@ -1,13 +1,13 @@
 import { readFile, readdir, rm } from "node:fs/promises";
 import path from "node:path";
 import { afterAll, beforeEach, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
 import { Spec, SpecAttachment, type User } from "~/models/index.server";
 import { ATTACHMENT_LIMITS, cleanFileName, contentDisposition, removeAllAttachments } from "~/services/attachments.server";
-import { PASSWORD, makeMember } from "../support/factories";
+import { makeMember } from "../support/factories";
 import { Visitor, call } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 const UPLOAD_DIR = process.env.UPLOAD_DIR!;
 afterAll(() => rm(UPLOAD_DIR, { recursive: true, force: true }));
@@ -17,13 +17,6 @@ const PDF_BYTES = new TextEncoder().encode("%PDF-1.7\n1 0 obj\n<< /Type /Catalog
 const PNG_BYTES = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 0x0d, 0x49, 0x48, 0x44, 0x52]);
 const pdf = (name = "layout.pdf") => new File([PDF_BYTES], name, { type: "application/pdf" });
 const png = (name = "photo.png") => new File([PNG_BYTES], name, { type: "image/png" });
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  expect(res.status).toBe(302);
-  return visitor;
-}
 
 async function draftOf(buyer: User) {
   return Spec.create({ organisationId: buyer.organisationId, createdById: buyer.id, bidDeadline: null, retainerPercent: null, deliveryRegion: null, publishedAt: null });

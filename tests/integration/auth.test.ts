@@ -11,6 +11,7 @@ import { deliverDueMail } from "~/services/mail.server";
 import { linkIn, mailsTo, waitForMail } from "../support/mailbox";
 import { PASSWORD, makeMember, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 const signUpFields = (email: string) => ({
   kind: "buyer",
@@ -144,8 +145,7 @@ describe("sign in and out", () => {
 
   it("refuses a deactivated user, and drops the session of one deactivated while signed in", async () => {
     const user = await makeMember("buyer");
-    const visitor = new Visitor();
-    await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    const visitor = await signedIn(user);
     await user.update({ active: false });
     const page = await visitor.get(specs.loader, "/specs");
     expect(page.status).toBe(302);
@@ -159,8 +159,7 @@ describe("sign in and out", () => {
 
   it("signs out", async () => {
     const user = await makeMember("buyer");
-    const visitor = new Visitor();
-    await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    const visitor = await signedIn(user);
     const res = await visitor.post(signOut.action, "/sign-out", {});
     expect(res.location).toBe("/sign-in");
     expect(visitor.signedIn).toBe(false);
@@ -169,8 +168,7 @@ describe("sign in and out", () => {
 
   it("sends a signed-in user away from the sign-in page to their home", async () => {
     const user = await makeMember("shop");
-    const visitor = new Visitor();
-    await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    const visitor = await signedIn(user);
     const res = await visitor.get(signIn.loader, "/sign-in");
     expect(res.location).toBe("/open-specs");
   });
@@ -222,8 +220,7 @@ describe("settings", () => {
   it("saves the person's name and unit system, and refuses an unknown system", async () => {
     const { loader, action } = await import("~/routes/settings");
     const user = await makeMember("buyer");
-    const visitor = new Visitor();
-    await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
+    const visitor = await signedIn(user);
     expect((await visitor.get(loader, "/settings")).data.unitSystem).toBe("metric");
     const saved = await visitor.post(action, "/settings", { name: "Rhea F.", unitSystem: "us" });
     expect(saved.status).toBe(302);

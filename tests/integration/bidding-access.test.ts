@@ -1,7 +1,6 @@
 // Who may reach the bid form and the comparison: each role, other organisations, forged IDs,
 // signed-out visitors. Other organisations' records are "not found", never "forbidden".
 import { beforeAll, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as bidRoute from "~/routes/spec-bid";
 import * as bidsRoute from "~/routes/spec-bids";
 import * as specPage from "~/routes/spec";
@@ -9,14 +8,9 @@ import type { Role } from "~/auth/roles";
 import type { Spec, User } from "~/models/index.server";
 import { bomOf } from "~/services/bids.server";
 import { createDraft } from "~/services/specs.server";
-import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { Visitor } from "../support/routes";
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  return visitor;
-}
+import { signedIn } from "../support/sessions";
 
 const users = {} as Record<Role | "otherBuyer" | "otherShop", User>;
 const visitors = {} as Record<keyof typeof users, Visitor>;

@@ -1,7 +1,6 @@
 // Bidding on real PostgreSQL: the lifecycle of one shop's bid, the deadline, revisions, the
 // comparison the buyer reads, the award (exactly once under a race) and the mail it sends.
 import { describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as bidRoute from "~/routes/spec-bid";
 import * as bidsRoute from "~/routes/spec-bids";
 import * as specPage from "~/routes/spec";
@@ -11,14 +10,9 @@ import { bomOf, saveBid } from "~/services/bids.server";
 import { startRevision, publish } from "~/services/specs.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { waitForMail } from "../support/mailbox";
-import { PASSWORD, makeMember, makePublishedSpec, inDays, uniqueEmail } from "../support/factories";
+import { makeMember, makePublishedSpec, inDays, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  return visitor;
-}
+import { signedIn } from "../support/sessions";
 
 /** The bid form's fields: every line priced at `price(line, i)` unless it returns null. */
 function bidFields(bom: BomLine[], price: (line: BomLine, i: number) => string | null, extra: Record<string, string> = {}) {

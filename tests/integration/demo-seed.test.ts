@@ -1,7 +1,6 @@
 // The demo scenario `npm start` loads must obey the app's own rules: its offers add up, the
 // buyer's comparison and the account manager's dashboard read it like any other data.
 import { beforeAll, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as bidsRoute from "~/routes/spec-bids";
 import * as jobsRoute from "~/routes/jobs";
 import * as specPage from "~/routes/spec";
@@ -10,14 +9,9 @@ import { Bid, Job, JobEvent, Spec, sequelize } from "~/models/index.server";
 import { bidTotals, retainerCents } from "~/services/bid-pricing";
 import { bomOf } from "~/services/bids.server";
 import { DEMO_PASSWORD, seedDemo } from "../../db/seeds/demo";
-import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
-async function signedIn(email: string) {
-  const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email, password: DEMO_PASSWORD });
-  expect(res.status).toBe(302);
-  return visitor;
-}
+const signedInDemo = (email: string) => signedIn({ email }, DEMO_PASSWORD);
 
 beforeAll(async () => {
   expect(await seedDemo(sequelize)).toBe(true);
@@ -49,7 +43,7 @@ describe("the demo scenario", () => {
 
   it("shows Priya the press offers with the cheapest complete one marked, and no drafts", async () => {
     const press = await Spec.findOne({ where: { title: "Panel press, main ram" }, rejectOnEmpty: true });
-    const visitor = await signedIn("priya@kestrel-forming.test");
+    const visitor = await signedInDemo("priya@kestrel-forming.test");
     const res = await visitor.get(bidsRoute.loader, `/specs/${press.id}/bids`, { specId: press.id });
     expect(res.status).toBe(200);
     const { columns, cheapestCompleteId } = res.data.comparison;
@@ -60,14 +54,14 @@ describe("the demo scenario", () => {
 
   it("shows Aled the answered question, without the asker's name", async () => {
     const press = await Spec.findOne({ where: { title: "Panel press, main ram" }, rejectOnEmpty: true });
-    const visitor = await signedIn("sofia@northgate-hyd.test");
+    const visitor = await signedInDemo("sofia@northgate-hyd.test");
     const res = await visitor.get(specPage.loader, `/specs/${press.id}`, { specId: press.id });
     expect(JSON.stringify(res.data.questions)).toContain("120 mm of clearance");
     expect(JSON.stringify(res.data.questions)).not.toContain("Ironbridge");
   });
 
   it("gives Nadia both jobs of her accounts, the late lift table first", async () => {
-    const visitor = await signedIn("nadia@tenderflow.test");
+    const visitor = await signedInDemo("nadia@tenderflow.test");
     const res = await visitor.get(jobsRoute.loader, "/jobs");
     expect(res.status).toBe(200);
     expect(res.data.jobs.map((j: { specTitle: string; overdue: boolean }) => [j.specTitle, j.overdue])).toEqual([
@@ -77,7 +71,7 @@ describe("the demo scenario", () => {
   });
 
   it("lists the lift table's paid retainer among Nadia's payments, matching its job", async () => {
-    const visitor = await signedIn("nadia@tenderflow.test");
+    const visitor = await signedInDemo("nadia@tenderflow.test");
     const res = await visitor.get(paymentsRoute.loader, "/payments");
     expect(res.data.payments.map((p: { specTitle: string; status: string }) => [p.specTitle, p.status])).toEqual([["Scissor lift table, main cylinder", "paid"]]);
     const job = await Job.findByPk(res.data.payments[0].jobId, { rejectOnEmpty: true });

@@ -9,7 +9,6 @@ import { delimiter, join } from "node:path";
 import { promisify } from "node:util";
 import type ExcelJS from "exceljs";
 import { beforeAll, describe, expect, it, onTestFinished } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as bidRoute from "~/routes/spec-bid";
 import * as bidsRoute from "~/routes/spec-bids";
 import * as billXlsx from "~/routes/spec-bill.xlsx";
@@ -24,8 +23,9 @@ import { Bid, Job, Organisation, SpecRevision, User, type Spec } from "~/models/
 import { bomOf } from "~/services/bids.server";
 import { safeFileStem, workbookFileName } from "~/services/exports/file-name";
 import { createDraft, publish, saveStep, startRevision } from "~/services/specs.server";
-import { PASSWORD, SPEC_ANSWERS, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 import { centsAt, evaluate, factsOf, formulaOf, openWorkbook, parseCsv, rowOf, rowValues } from "../support/workbooks";
 
 const XLSX = "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";
@@ -43,12 +43,6 @@ let job: Job;
 let firstBom: BomLine[];
 let bom: BomLine[];
 let design: Design;
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  return visitor;
-}
 
 async function offer(visitor: Visitor, lines: BomLine[], price: (i: number) => string, alternative: { line: number; description: string }, extra: Record<string, string>) {
   const fields: Record<string, string> = { intent: "submit", validUntil: inDays(60), ...extra };

@@ -3,7 +3,6 @@
 // and order, and who may see or change which job.
 import { randomUUID } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as jobsPage from "~/routes/jobs";
 import * as jobPage from "~/routes/job";
 import * as accountPage from "~/routes/account";
@@ -23,16 +22,10 @@ import {
 } from "~/services/jobs.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { FieldErrors } from "~/services/errors.server";
-import { PASSWORD, inDays, makeJob, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { inDays, makeJob, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { Visitor } from "../support/routes";
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  expect(res.status).toBe(302);
-  return visitor;
-}
+import { signedIn } from "../support/sessions";
 
 /** Moves a job's award (and its milestones' targets) `days` into the past, as if awarded then. */
 async function ageJob(jobId: string, days: number) {
@@ -348,7 +341,7 @@ describe("internal notes", () => {
     const admin = await makeOperatorUser("admin");
     await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
     const { job } = await makeJob(buyer, shop);
-    const [managerV, adminV, buyerV, shopV] = await Promise.all([manager, admin, buyer, shop].map(signedIn));
+    const [managerV, adminV, buyerV, shopV] = await Promise.all([manager, admin, buyer, shop].map((user) => signedIn(user)));
 
     const note = "Buyer hinted the retainer waits for their quarter-end.";
     const res = await managerV.post(jobPage.action, `/jobs/${job.id}`, { intent: "manager-note", body: note }, { jobId: job.id });

@@ -1,18 +1,11 @@
 // The open-specs table of shops: filters, sorts and pages in PostgreSQL, bounds typed in the
 // shop's own units, the shop's own bids marked, bad parameters reported on the page.
 import { beforeAll, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as openSpecs from "~/routes/open-specs";
 import { Bid, Spec, SpecRevision, type User } from "~/models/index.server";
-import { PASSWORD, inDays, makeMember, makePublishedSpec } from "../support/factories";
+import { inDays, makeMember, makePublishedSpec } from "../support/factories";
 import { Visitor } from "../support/routes";
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  expect(res.status).toBe(302);
-  return visitor;
-}
+import { signedIn } from "../support/sessions";
 
 interface Row {
   id: string;

@@ -10,15 +10,15 @@ vi.hoisted(() => {
 
 import { randomUUID } from "node:crypto";
 import { Op } from "sequelize";
-import * as signIn from "~/routes/sign-in";
 import * as team from "~/routes/team";
 import * as jobPage from "~/routes/job";
 import * as adminMail from "~/routes/admin.mail";
-import { OutboxMail, type User } from "~/models/index.server";
+import { OutboxMail } from "~/models/index.server";
 import { requestPasswordReset } from "~/services/accounts.server";
 import { MAIL_PRIORITIES, MAX_ATTEMPTS, deliverDueMail, enqueueMail, retryDelayMs } from "~/services/mail.server";
-import { PASSWORD, makeJob, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
+import { makeJob, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 // Each test reads the whole queue, so each starts with an empty one.
 beforeEach(async () => {
@@ -81,13 +81,6 @@ describe("mail priority", () => {
     expect(await OutboxMail.count({ where: { priority: MAIL_PRIORITIES.announcement, attempts: { [Op.gt]: 0 } } })).toBe(0);
   });
 });
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  expect(res.status).toBe(302);
-  return visitor;
-}
 
 describe("requests only queue mail", () => {
   // The SMTP port of this file refuses every connection: had a request tried to send, its row

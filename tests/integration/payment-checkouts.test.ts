@@ -5,7 +5,6 @@
 import Stripe from "stripe";
 import { Op } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as pay from "~/routes/job-pay";
 import * as webhook from "~/routes/webhooks.stripe";
 import { Job, JobEvent, Organisation, OutboxMail, Payment, sequelize, type User } from "~/models/index.server";
@@ -13,8 +12,9 @@ import { awardBid } from "~/services/award.server";
 import { bomOf, saveBid } from "~/services/bids.server";
 import { reconcileOpenPayments } from "~/services/payment-sync.server";
 import { startStripeFake, type StripeFake } from "../../fakes/stripe";
-import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
-import { Visitor, call } from "../support/routes";
+import { inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { call } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 const port = await vi.hoisted(async () => {
   const net = await import("node:net");
@@ -67,8 +67,7 @@ async function awardedJob() {
 
 /** The buyer clicks "pay" (signed in afresh, as clocks move in this file); where they are sent. */
 async function clickPay(job: Job) {
-  const visitor = new Visitor();
-  await visitor.post(signIn.action, "/sign-in", { email: buyer.email, password: PASSWORD });
+  const visitor = await signedIn(buyer);
   const answer = await visitor.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id });
   expect(answer.status).toBe(302);
   return answer.location!;

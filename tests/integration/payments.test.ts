@@ -4,7 +4,6 @@
 import Stripe from "stripe";
 import { Op, UniqueConstraintError } from "sequelize";
 import { beforeAll, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as pay from "~/routes/job-pay";
 import * as paymentPage from "~/routes/job-payment";
 import * as jobPage from "~/routes/job";
@@ -19,18 +18,13 @@ import { deliverDueMail } from "~/services/mail.server";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { Visitor, call } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 const stripe = new Stripe(process.env.STRIPE_SECRET_KEY!, (() => {
   const url = new URL(process.env.STRIPE_API_URL!);
   return { host: url.hostname, port: Number(url.port), protocol: "http" as const };
 })());
 const SECRET = process.env.STRIPE_WEBHOOK_SECRET!;
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  return visitor;
-}
 
 let buyer: User;
 let shop: User;

@@ -3,7 +3,6 @@
 import { randomBytes } from "node:crypto";
 import { beforeAll, describe, expect, it } from "vitest";
 import * as root from "~/root";
-import * as signIn from "~/routes/sign-in";
 import * as specPage from "~/routes/spec";
 import * as ask from "~/routes/spec-questions";
 import * as answer from "~/routes/spec-question-answer";
@@ -13,13 +12,7 @@ import { deliverDueMail } from "~/services/mail.server";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { PASSWORD, makeMember, makeOperatorUser, makePublishedSpec, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  expect(res.status).toBe(302);
-  return visitor;
-}
+import { signedIn } from "../support/sessions";
 
 /** A second user in the same organisation. */
 async function colleagueOf(user: User) {

@@ -15,12 +15,13 @@ import { deliverDueMail } from "~/services/mail.server";
 import { linkIn, waitForMail } from "../support/mailbox";
 import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor, call } from "../support/routes";
+import { signInAs } from "../support/sessions";
 
 /** Signs in through the page; returns the browser and the cookie it was given. */
+/** A signed-in browser and the session cookie it holds, for tests that replay or compare cookies. */
 async function signedIn(user: User) {
   const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  expect(res.status).toBe(302);
+  const res = await signInAs(visitor, user);
   return { visitor, cookie: res.setCookie!.split(";")[0] };
 }
 

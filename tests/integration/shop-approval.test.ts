@@ -3,7 +3,6 @@
 // mail it. The admin approves or refuses (with a reason) and the shop is mailed either way.
 import { rm } from "node:fs/promises";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as openSpecs from "~/routes/open-specs";
 import * as specPage from "~/routes/spec";
 import * as attachmentsRoute from "~/routes/spec-attachments";
@@ -15,17 +14,11 @@ import * as adminOrgs from "~/routes/admin.organisations";
 import { Organisation, OutboxMail, Spec, SpecAttachment, User } from "~/models/index.server";
 import { MAIL_PRIORITIES } from "~/services/mail.server";
 import { bomOf } from "~/services/bids.server";
-import { PASSWORD, SPEC_ANSWERS, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { Visitor, call } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 afterAll(() => rm(process.env.UPLOAD_DIR!, { recursive: true, force: true }));
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  expect(res.status).toBe(302);
-  return visitor;
-}
 
 let buyer: User;
 let admin: User;

@@ -2,25 +2,18 @@
 // download links) and who else may read it (the account's manager, admins for published specs).
 import { rm } from "node:fs/promises";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as specPage from "~/routes/spec";
 import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
 import { Organisation, Spec, type User } from "~/models/index.server";
 import { createDraft, publish, saveStep } from "~/services/specs.server";
-import { PASSWORD, SPEC_ANSWERS, inDays, makeMember, makeOperatorUser } from "../support/factories";
+import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor, call } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 afterAll(() => rm(process.env.UPLOAD_DIR!, { recursive: true, force: true }));
 
 const PDF_BYTES = new TextEncoder().encode("%PDF-1.7\n1 0 obj\n<< /Type /Catalog >>\nendobj\n%%EOF\n");
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  const res = await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  expect(res.status).toBe(302);
-  return visitor;
-}
 
 const page = (who: Visitor, specId: string) => who.get(specPage.loader, `/specs/${specId}`, { specId });
 const fetchFile = (who: Visitor, specId: string, attachmentId: string) =>

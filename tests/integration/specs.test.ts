@@ -1,6 +1,5 @@
 import { Op } from "sequelize";
 import { describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as specNew from "~/routes/spec-new";
 import * as resume from "~/routes/spec-resume";
 import * as step from "~/routes/spec-step";
@@ -8,17 +7,12 @@ import * as specPage from "~/routes/spec";
 import * as specList from "~/routes/specs";
 import * as del from "~/routes/spec-delete";
 import * as revise from "~/routes/spec-revise";
-import { OutboxMail, Spec, SpecRevision, type User } from "~/models/index.server";
+import { OutboxMail, Spec, SpecRevision } from "~/models/index.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { waitForMail } from "../support/mailbox";
-import { PASSWORD, makeMember } from "../support/factories";
+import { makeMember } from "../support/factories";
 import { Visitor } from "../support/routes";
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  return visitor;
-}
+import { signedIn } from "../support/sessions";
 
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 

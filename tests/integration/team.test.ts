@@ -1,20 +1,14 @@
 import { describe, expect, it } from "vitest";
-import * as signIn from "~/routes/sign-in";
 import * as team from "~/routes/team";
 import * as join from "~/routes/join";
 import * as revoke from "~/routes/team.revoke-invitation";
 import { Invitation, User } from "~/models/index.server";
 import { linkIn, waitForMail } from "../support/mailbox";
 import { deliverDueMail } from "~/services/mail.server";
-import { PASSWORD, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
+import { makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 import { popToast } from "~/auth/session.server";
-
-async function signedIn(user: User) {
-  const visitor = new Visitor();
-  await visitor.post(signIn.action, "/sign-in", { email: user.email, password: PASSWORD });
-  return visitor;
-}
 
 describe("inviting a colleague", () => {
   it("e-mails an invitation whose link makes the colleague a member of the same organisation", async () => {

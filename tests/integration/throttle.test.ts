@@ -13,6 +13,7 @@ import { deliverDueMail } from "~/services/mail.server";
 import { linkIn, mailsTo, waitForMail } from "../support/mailbox";
 import { PASSWORD, makeMember, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 // Every test starts with no counts (all requests here come from the same client).
 beforeEach(async () => {
@@ -144,8 +145,7 @@ describe("mail throttle", () => {
 
   it("limits the invitations one person sends in an hour", async () => {
     const inviter = await makeMember("buyer");
-    const visitor = new Visitor();
-    await visitor.post(signIn.action, "/sign-in", { email: inviter.email, password: PASSWORD });
+    const visitor = await signedIn(inviter);
     for (let i = 0; i < MAIL_LIMITS.invitationsPerUserHour; i++) {
       expect((await visitor.post(team.action, "/team", { email: uniqueEmail("invitee") })).status).toBe(302);
     }

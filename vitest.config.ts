@@ -6,7 +6,7 @@ export default defineConfig({
   test: {
     include: ["tests/**/*.test.ts", "tests/**/*.test.tsx", "app/**/*.test.ts"],
     globalSetup: ["tests/setup/global-setup.ts"],
-    setupFiles: ["tests/setup/each-file.ts"],
+    setupFiles: ["tests/setup/each-file.ts", "tests/setup/console-guard.ts"],
     reporters: ["default", "./tests/setup/summary-reporter.ts"],
     testTimeout: 20_000,
     // Browser and HTTP tests share two cores with each other: give a page time to answer.

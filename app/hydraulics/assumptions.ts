@@ -69,6 +69,10 @@ export const ASSUMPTIONS = {
   leakTightHoldMinutes: a(5, "min", "a load held at rest longer than this gets pilot-operated checks: spool valves and counterbalance valves are not leak-tight holders over minutes; the sizing contract's 'more than a few minutes', 5 min our reading [CP]"),
   pocvPilotRatio: a(4, ":1", "pilot-operated check ratios offered 3:1 to 4.4:1; a 2:1 cylinder needs at least 3:1 on its rod end (trade text on pilot ratios [S]); 4:1 chosen [CP]"),
 
+  cushionSpeedMmS: a(100, "mm/s", "cushion the stroke end above about 0.1 m/s (20 ft/min) or with heavy loads; makers' pages, common practice [CP]"),
+  cushionLengthMm: a(25, "mm", "cushion length assumed until the cylinder maker gives it; common practice [CP]"),
+  pistonSpeedLimitMmS: a(500, "mm/s", "about 0.5 m/s for standard cylinders with elastomer seals, more with low-friction seals; from memory [M]"),
+
   // Pump speed check
   speedTolerance: a(0.1, "-", "a stroke more than 10 % faster than asked is flagged; our convention"),
   pressureNearLimit: a(0.95, "-", "working pressure above 95 % of its limit leaves little reserve; our convention"),

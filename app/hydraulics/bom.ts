@@ -119,10 +119,12 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
       rating: { value: cb.settingBar, unit: "bar", label: "setting" },
     });
   }
+  const cushions = [c.cushioning.extend.cushioned ? "extended" : "", c.cushioning.retract.cushioned ? "retracted" : ""].filter(Boolean);
+  const cushionText = cushions.length === 2 ? ", cushioned at both ends" : cushions.length === 1 ? `, cushioned at the ${cushions[0]} end` : "";
   bom.push(
     {
       key: "cylinder", item: "Double-acting hydraulic cylinder", quantity: 1,
-      specification: `bore ${num(c.boreMm, 2)} mm / rod ${num(c.rodMm, 2)} mm (ISO 3320), stroke ${num(c.strokeMm, 2)} mm, ${c.series} style, ${d.requirements.mountingStyle ? `${d.requirements.mountingStyle} mounting, ` : ""}rod end ${d.requirements.mounting}, rated ${c.ratedPressureBar} bar`,
+      specification: `bore ${num(c.boreMm, 2)} mm / rod ${num(c.rodMm, 2)} mm (ISO 3320), stroke ${num(c.strokeMm, 2)} mm, ${c.series} style, ${d.requirements.mountingStyle ? `${d.requirements.mountingStyle} mounting, ` : ""}rod end ${d.requirements.mounting}, rated ${c.ratedPressureBar} bar${cushionText}`,
       rating: { value: c.boreMm, unit: "mm", label: "bore" },
     },
     hose("hose-pressure", "Pressure hose, pump to valve", d.lines.pressure, pressureHose),

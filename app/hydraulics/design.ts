@@ -2,6 +2,7 @@
  * The Design the engine returns. Field names from the sizing contract are fixed; the others
  * are additions for the design page, exports and reviewers.
  */
+import type { Cushioning } from "./cushioning";
 import type { HoldingDesign } from "./holding";
 import type { LineSizing } from "./lines";
 import type { Requirements } from "./requirements";
@@ -59,6 +60,8 @@ export interface CylinderDesign {
   mechanicalEfficiency: number;
   /** pressure the forces above are given at: the highest pump working pressure */
   workingPressureBar: number;
+  /** stroke-end cushions where the piston arrives fast, with the pressure the cushion makes */
+  cushioning: Cushioning;
   buckling: BucklingDetails;
 }
 

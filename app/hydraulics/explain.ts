@@ -231,6 +231,16 @@ export function explain(
   t.add("retract force at working pressure", c.retractForceN, "N", "F = η·p·A3 / 10",
     { η: vEta, p: v(c.workingPressureBar, "bar"), A3: vA3 }, TEXTBOOK_CYL);
 
+  // ---- Stroke ends
+  for (const [name, e, area] of [["extended", c.cushioning.extend, vA3], ["retracted", c.cushioning.retract, vA1]] as const) {
+    t.add(`cushion pressure at the ${name} end`, e.cushioned ? e.peakBar : 0, "bar",
+      e.cushioned
+        ? "E = ½·m·v²; F_c = E/s_c (+ weight moving down); p = 10·F_c/A + the pressure still driven in (rod side: φ·p1)"
+        : `not cushioned: the piston arrives at ${Math.round(e.speedMmS)} mm/s, at most ${A.cushionSpeedMmS.value} mm/s`,
+      { m: v(r.massKg, "kg"), v: v(e.speedMmS, "mm/s"), E: v(e.energyJ, "J"), s_c: v(c.cushioning.cushionLengthMm, "mm"), A: area },
+      "kinetic energy and force balance [D]; cushion above about 0.1 m/s and the 25 mm length common practice [CP]; ISO 4413 asks for stroke-end cushioning to be considered [M]");
+  }
+
   // ---- Buckling
   const b = c.buckling;
   t.add("buckling length", b.lengthMm, "mm", b.lengthRule, { stroke: v(r.strokeMm, "mm") }, "simplified, rod stiffness over the whole length; common practice [CP]");

@@ -7,6 +7,7 @@ import { buildCircuit } from "./circuit";
 import { cylinderCandidates, cylinderForceN, workingLimitBar } from "./cylinder";
 import type { Design } from "./design";
 import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
+import { cushioningFor } from "./cushioning";
 import { holdingFor } from "./holding";
 import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
@@ -19,7 +20,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.4.0";
+export const ENGINE_VERSION = "2.5.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -96,6 +97,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
 
   // Directional valve
   const holding = holdingFor(req, ctx.loads, cyl, qp);
+  const cushioning = cushioningFor(req.massKg, ctx.loads, cyl, ev.extendActualMmS, ev.retractActualMmS, ev.extendInletBar, ev.retractInletBar);
   const centre = chooseDcvCenter(cbv !== null, holding !== null);
   const maxPathFlowLpm = Math.max(qp, qp * cyl.areaRatio, qp / cyl.areaRatio);
   const valve = selectIso4401(maxPathFlowLpm);
@@ -168,6 +170,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
       areaRatio: cyl.areaRatio,
       mechanicalEfficiency: eta,
       workingPressureBar,
+      cushioning,
       buckling: {
         eulerCase: ctx.buckling.eulerCase,
         k: ctx.buckling.k,
@@ -356,6 +359,17 @@ function addWarnings(
   if (extra.duty.overloaded) {
     w.add("DUTY_CYCLE_OVERLOAD",
       `At the actual speeds the cycles asked for need more than an hour of movement per hour; the heat is worked out for continuous movement.`);
+  }
+  const top = Math.max(d.speedsMmS.extendActual, d.speedsMmS.retractActual);
+  if (top > A.pistonSpeedLimitMmS.value) {
+    w.add("PISTON_SPEED_HIGH",
+      `The piston reaches ${Math.round(top)} mm/s, above the about ${A.pistonSpeedLimitMmS.value} mm/s standard seals are made for; ask the cylinder maker for low-friction seals and ports sized for the flow.`);
+  }
+  for (const [stroke, e, side] of [["extended", c.cushioning.extend, "rod"], ["retracted", c.cushioning.retract, "cap"]] as const) {
+    if (e.cushioned && e.peakBar > c.ratedPressureBar + 1e-9) {
+      w.add("CUSHION_PRESSURE_HIGH",
+        `Braking ${f1(d.requirements.massKg)} kg from ${Math.round(e.speedMmS)} mm/s in a ${c.cushioning.cushionLengthMm} mm cushion at the ${stroke} end puts about ${f1(e.peakBar)} bar on the ${side} side, above the cylinder's ${c.ratedPressureBar} bar rating; slow the stroke end down outside the cylinder or ask for a longer cushion.`);
+    }
   }
   const hold = d.holding;
   if (hold && hold.side === "rod" && hold.openingLoadSideBar > c.ratedPressureBar + 1e-9) {

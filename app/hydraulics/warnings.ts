@@ -24,6 +24,10 @@ export const WARNING_CODES = [
   "METER_OUT_INTENSIFICATION",
   /** a trunnion or clevis body with a free rod end cannot carry a push */
   "PIVOTED_BODY_FREE_ROD",
+  /** the piston moves faster than standard seals allow */
+  "PISTON_SPEED_HIGH",
+  /** a stroke-end cushion would push the trapped side above the cylinder's rating */
+  "CUSHION_PRESSURE_HIGH",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

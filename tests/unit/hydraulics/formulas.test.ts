@@ -164,3 +164,19 @@ describe("buckling length by mounting style (shared sources' check values [D]; L
     expect(bucklingColumn("pinned-pinned", "clevis", 500).unstable).toBe(false);
   });
 });
+
+describe("stroke-end cushioning (shared sources' check value [D]; 25 mm cushion common practice [CP])", () => {
+  it("2000 kg at 0.5 m/s into a 25 mm cushion on 100/70's annulus: 250 J, 10.0 kN, 25.0 bar; with the weight 29.6 kN, 73.9 bar", async () => {
+    const { cushioningFor } = await import("~/hydraulics/cushioning");
+    const { cylinderCandidates } = await import("~/hydraulics/cylinder");
+    const cyl = cylinderCandidates().find((c) => c.boreMm === 100 && c.rodMm === 70 && c.series === "ISO 6020-2")!;
+    const flat = { angleDeg: 0, gravityAlongAxisN: 0, normalForceN: 0, frictionN: 0, processForceN: 0, extendGravitySign: 0, overrunningStroke: null } as const;
+    const e = cushioningFor(2000, flat, cyl, 500, 0, 0, 0).extend;
+    expect(e.energyJ).toBeCloseTo(250, 9);
+    expect(e.cushionBar).toBeCloseTo(25.0, 1); // 10 000 N on 4005.5 mm²
+    const down = { ...flat, angleDeg: 90, gravityAlongAxisN: 2000 * 9.80665, extendGravitySign: -1, overrunningStroke: "extend" } as const;
+    expect(cushioningFor(2000, down, cyl, 500, 0, 0, 0).extend.cushionBar).toBeCloseTo(73.9, 1); // 29 613 N
+    expect(e.cushioned).toBe(true);
+    expect(cushioningFor(2000, flat, cyl, 100, 0, 0, 0).extend.cushioned).toBe(false); // not above 0.1 m/s
+  });
+});

@@ -20,6 +20,10 @@ const TITLES: Partial<Record<WarningCode, string>> = {
   CBV_SETTING_LOW: "Counterbalance setting unusually low",
   REQUIREMENT_NOT_YET_SIZED: "An answer this design does not use yet",
   NO_CYLINDER_MEETS_PRESSURE: "No cylinder works within your pressure limit",
+  METER_OUT_INTENSIFICATION: "Rod side pushed above its rating when metered out",
+  PIVOTED_BODY_FREE_ROD: "A pivoted cylinder with a free rod end cannot push",
+  PISTON_SPEED_HIGH: "Piston faster than standard seals allow",
+  CUSHION_PRESSURE_HIGH: "Stroke-end cushion above the cylinder's rating",
 };
 
 /** The title of a warning; a code without one yet still reads as a sentence, never as a code. */

@@ -73,6 +73,9 @@ export const ASSUMPTIONS = {
   cushionLengthMm: a(25, "mm", "cushion length assumed until the cylinder maker gives it; common practice [CP]"),
   pistonSpeedLimitMmS: a(500, "mm/s", "about 0.5 m/s for standard cylinders with elastomer seals, more with low-friction seals; from memory [M]"),
 
+  effectiveBulkModulusBar: a(6895, "bar", "design value of 1 % volume per 1000 psi for oil with hose stretch and air (pure oil about 17 000 bar); hydraulic-maintenance article on decompression [S]"),
+  decompressionThresholdCm3: a(160, "cm³", "control the decompression when more than about 10 in³ is released; hydraulic-maintenance article on decompression [S], a trade rule"),
+
   // Pump speed check
   speedTolerance: a(0.1, "-", "a stroke more than 10 % faster than asked is flagged; our convention"),
   pressureNearLimit: a(0.95, "-", "working pressure above 95 % of its limit leaves little reserve; our convention"),

@@ -102,6 +102,13 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
       rating: { value: relief, unit: "bar", label: "pressure rating" },
     });
   }
+  if (d.decompression.needed) {
+    bom.push({
+      key: "decompression-valve", item: "Decompression valve for the cap line", quantity: 1,
+      specification: `releases about ${Math.round(d.decompression.releaseCm3)} cm³ from the cap end (${num(d.decompression.pressureBar)} bar) to tank through an orifice before the return stroke starts; the controls hold the return until the cap pressure has fallen`,
+      rating: { value: d.decompression.releaseCm3, unit: "cm³", label: "volume released" },
+    });
+  }
   if (d.holding) {
     const h = d.holding;
     const where = h.side === "both" ? "one on each cylinder port" : `on the ${h.side} port`;

@@ -3,6 +3,7 @@
  * are additions for the design page, exports and reviewers.
  */
 import type { Cushioning } from "./cushioning";
+import type { Decompression } from "./decompression";
 import type { HoldingDesign } from "./holding";
 import type { LineSizing } from "./lines";
 import type { Requirements } from "./requirements";
@@ -163,7 +164,11 @@ export interface Design {
   flowsLpm: { extend: number; retract: number; pump: number; returnMax: number };
   speedsMmS: { extendRequested: number; retractRequested: number; extendActual: number; retractActual: number };
   pump: {
+    /** this engine version sizes fixed-displacement pumps; double and compensated follow */
+    type: "fixed";
     displacementCcRev: number;
+    /** each section's displacement: one for a fixed pump */
+    displacementsCcRev: number[];
     speedRpm: number;
     requiredDisplacementCcRev: number;
     volumetricEfficiency: number;
@@ -181,6 +186,8 @@ export interface Design {
   counterbalance: Counterbalance | null;
   /** leak-tight holding where the load is held at rest longer than a few minutes */
   holding: HoldingDesign | null;
+  /** oil compressed in the cap end that springs back before the return stroke */
+  decompression: Decompression;
   /** null when the centre unloads the pump itself (tandem) */
   reliefVent: ReliefVent | null;
   directionalValve: {

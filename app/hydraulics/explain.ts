@@ -126,6 +126,13 @@ export function explain(
   t.add("drive speed", d.pump.speedRpm, "rpm", "4-pole motor: n_s = 120·f/p less slip",
     { f: v(r.supplyHz, "Hz"), p: v(A.motorPoles.value, "poles"), n_s: v((120 * r.supplyHz) / A.motorPoles.value, "rpm") },
     "synchronous speed, electrical-machines textbooks [D]; 1450/1750 rpm nominal common practice [CP]");
+  t.add("pump type", d.pump.type, "-",
+    r.pumpType === "fixed"
+      ? "fixed displacement, as asked"
+      : r.pumpType
+        ? `fixed displacement: the ${r.pumpType} pump asked for is not sized by this engine version (see the warnings)`
+        : "fixed displacement: simple and cheap, one flow at any pressure; the only type this engine version sizes",
+    { pumpType: v(r.pumpType ?? "not given", "-") }, "common practice [CP]");
   t.add("pump displacement needed", d.pump.requiredDisplacementCcRev, "cm³/rev", "V = 1000·max(Q_ext, Q_ret) / (n·η_v)",
     { Q: v(ev.pumpRequiredLpm, "L/min"), n: v(d.pump.speedRpm, "rpm"), η_v: v(d.pump.volumetricEfficiency, "-") },
     "pump flow relation (Esposito) [M]; fixed pump serves the larger stroke flow");
@@ -186,6 +193,12 @@ export function explain(
     t.add("counterbalance heat while lowering", cb.loweringHeatKw, "kW", "P = Δp_CBV·Q / 600, Δp_CBV = p_set − R·p_pilot − p_back",
       { Δp_CBV: v(ev.cbv!.loweringDropBar, "bar"), Q: v(cb.flowLpm, "L/min") }, "hydraulic power P = p·Q/600 [D]");
   }
+
+  // ---- Decompression
+  const dc = d.decompression;
+  t.add("oil released by decompression", dc.releaseCm3, "cm³", "ΔV = V·Δp / K_eff, V = cap end at full stroke + cap line",
+    { V: v(dc.compressedVolumeL, "L"), Δp: v(dc.pressureBar, "bar"), K_eff: v(A.effectiveBulkModulusBar.value, "bar"), threshold: v(A.decompressionThresholdCm3.value, "cm³") },
+    "definition of the bulk modulus [D]; 1 % per 1000 psi design value and the 10 in³ rule from a hydraulic-maintenance article on decompression [S]");
 
   // ---- Holding
   const hold = d.holding;

@@ -8,6 +8,7 @@ import { cylinderCandidates, cylinderForceN, workingLimitBar } from "./cylinder"
 import type { Design } from "./design";
 import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
 import { cushioningFor } from "./cushioning";
+import { decompressionFor } from "./decompression";
 import { holdingFor } from "./holding";
 import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
@@ -20,7 +21,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.5.0";
+export const ENGINE_VERSION = "2.6.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -97,6 +98,9 @@ export function sizeCircuitParsed(req: Requirements): Design {
 
   // Directional valve
   const holding = holdingFor(req, ctx.loads, cyl, qp);
+  // The cap end at full stroke holds the highest extend pressure, the relief where the pump sits there.
+  const capOilL = (cyl.capAreaMm2 * req.strokeMm) / 1e6 + (Math.PI * lines.capWork.innerDiameterMm ** 2 / 4) * lines.capWork.lengthM / 1000;
+  const decompression = decompressionFor(capOilL, req.processForceN > 0 || req.dwellS > 0 ? ev.reliefBar : ev.extendBar);
   const cushioning = cushioningFor(req.massKg, ctx.loads, cyl, ev.extendActualMmS, ev.retractActualMmS, ev.extendInletBar, ev.retractInletBar);
   const centre = chooseDcvCenter(cbv !== null, holding !== null);
   const maxPathFlowLpm = Math.max(qp, qp * cyl.areaRatio, qp / cyl.areaRatio);
@@ -202,7 +206,9 @@ export function sizeCircuitParsed(req: Requirements): Design {
       retractActual: ev.retractActualMmS,
     },
     pump: {
+      type: "fixed",
       displacementCcRev: ev.displacementCc,
+      displacementsCcRev: [ev.displacementCc],
       speedRpm: ctx.speedRpm,
       requiredDisplacementCcRev: ev.requiredDisplacementCc,
       volumetricEfficiency: A.volumetricEfficiency.value,
@@ -229,6 +235,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
         }
       : null,
     holding,
+    decompression,
     reliefVent: centre.ventedRelief
       ? { ventPressureBar: A.ventPressureBar.value, valve: VENT_VALVE, coilVoltage: COIL_VOLTAGE, energisedWhen: VENT_ENERGISED_WHEN }
       : null,
@@ -290,7 +297,7 @@ function notYetSized(r: Requirements): string[] {
     out.push(`the pressing phase (${num(r.pressStrokeMm)} mm at ${num(r.pressSpeedMmS ?? 0)} mm/s): the whole extension is sized at the approach speed with the working force at its end, which is safe but can over-size the pump and motor`);
   }
   if (r.pumpType !== undefined && r.pumpType !== "fixed") {
-    out.push(`the ${r.pumpType === "double" ? "double (high-low)" : "pressure-compensated"} pump asked for: a fixed pump is sized instead`);
+    out.push(`the ${r.pumpType === "double" ? "double (high-low)" : "pressure-compensated"} pump asked for: a fixed pump is sized instead, which is larger in motor and heat where fast motion and high force never meet`);
   }
   return out;
 }
@@ -370,6 +377,10 @@ function addWarnings(
       w.add("CUSHION_PRESSURE_HIGH",
         `Braking ${f1(d.requirements.massKg)} kg from ${Math.round(e.speedMmS)} mm/s in a ${c.cushioning.cushionLengthMm} mm cushion at the ${stroke} end puts about ${f1(e.peakBar)} bar on the ${side} side, above the cylinder's ${c.ratedPressureBar} bar rating; slow the stroke end down outside the cylinder or ask for a longer cushion.`);
     }
+  }
+  if (d.decompression.needed) {
+    w.add("DECOMPRESSION_NEEDED",
+      `About ${Math.round(d.decompression.releaseCm3)} cm³ of oil compressed in the cap end at ${f1(d.decompression.pressureBar)} bar springs back when the valve shifts to return; released at once it hammers hoses and seals. The bill has a decompression valve to let it out first.`);
   }
   const hold = d.holding;
   if (hold && hold.side === "rod" && hold.openingLoadSideBar > c.ratedPressureBar + 1e-9) {

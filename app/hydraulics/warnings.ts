@@ -28,6 +28,8 @@ export const WARNING_CODES = [
   "PISTON_SPEED_HIGH",
   /** a stroke-end cushion would push the trapped side above the cylinder's rating */
   "CUSHION_PRESSURE_HIGH",
+  /** the cap end's compressed oil asks for a controlled release before the return */
+  "DECOMPRESSION_NEEDED",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

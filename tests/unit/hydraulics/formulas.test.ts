@@ -180,3 +180,15 @@ describe("stroke-end cushioning (shared sources' check value [D]; 25 mm cushion 
     expect(cushioningFor(2000, flat, cyl, 100, 0, 0, 0).extend.cushioned).toBe(false); // not above 0.1 m/s
   });
 });
+
+describe("decompression (shared sources' check values [D]; 1 %/1000 psi and the 10 in³ rule, trade article [S])", () => {
+  it("reference axis: 3.142 L at 127.3 bar releases 58.0 cm³, below 160 cm³; a 250 × 1000 mm press at 250 bar releases 1.78 L", async () => {
+    const { decompressionFor } = await import("~/hydraulics/decompression");
+    const small = decompressionFor(3.142, 127.3);
+    expect(small.releaseCm3).toBeCloseTo(58.0, 1);
+    expect(small.needed).toBe(false);
+    const big = decompressionFor(49.09, 250);
+    expect(big.releaseCm3 / 1000).toBeCloseTo(1.78, 2);
+    expect(big.needed).toBe(true);
+  });
+});

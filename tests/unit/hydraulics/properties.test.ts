@@ -201,6 +201,9 @@ describe("consistency of every design", () => {
         const warned = d.warnings.some((w) => w.code === "HEAT_COOLER_NEEDED");
         expect(d.cooler !== null).toBe(warned);
         expect(d.bom.some((l) => l.key === "cooler")).toBe(warned);
+        // the same for the decompression valve and the holding valve
+        expect(d.bom.some((l) => l.key === "decompression-valve")).toBe(d.warnings.some((w) => w.code === "DECOMPRESSION_NEEDED"));
+        expect(d.bom.some((l) => l.key === "holding-valve")).toBe(d.holding !== null);
         if (d.counterbalance) expect(d.counterbalance.flowLpm).toBeGreaterThanOrEqual(d.flowsLpm.pump * (1 - 1e-12));
         // a fixed pump that can stall at force sits at the relief: the motor covers p_relief·Q_p/(600·η)
         if (d.motor.sizedAtRelief) expect(d.motor.requiredKw).toBeGreaterThanOrEqual((d.pressuresBar.reliefSetting * d.flowsLpm.pump) / 600 / 0.85 - 1e-9);

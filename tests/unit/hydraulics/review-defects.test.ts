@@ -215,3 +215,18 @@ describe("leak-tight holding for a load held at rest (sizing contract holdMinute
     expect(d.warnings.some((w) => w.code === "REQUIREMENT_NOT_YET_SIZED")).toBe(false);
   });
 });
+
+describe("a large press gets its decompression valve in the bill (sizing contract: every component a warning calls for)", () => {
+  it("200 t down-stroking press with a 600 mm stroke", () => {
+    const d = sizeCircuit({
+      orientation: "vertical", rodDirection: "down", massKg: 2000, processForceN: 2_000_000, strokeMm: 600, extendSpeedMmS: 50, retractSpeedMmS: 80,
+      mounting: "fixed-fixed", mountingStyle: "front-flange", maxPressureBar: 250, ...DUTY,
+    });
+    expect(d.decompression.needed).toBe(true);
+    expect(d.warnings.some((w) => w.code === "DECOMPRESSION_NEEDED")).toBe(true);
+    const line = d.bom.find((l) => l.key === "decompression-valve")!;
+    expect(line.rating.value).toBeCloseTo(d.decompression.releaseCm3, 9);
+    // ΔV = V·p/K: the cap end alone holds A1·s
+    expect(d.decompression.releaseCm3).toBeGreaterThanOrEqual((d.cylinder.capAreaMm2 * 600 / 1e6) * 1000 * d.decompression.pressureBar / 6895);
+  });
+});

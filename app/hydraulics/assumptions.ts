@@ -76,6 +76,10 @@ export const ASSUMPTIONS = {
   effectiveBulkModulusBar: a(6895, "bar", "design value of 1 % volume per 1000 psi for oil with hose stretch and air (pure oil about 17 000 bar); hydraulic-maintenance article on decompression [S]"),
   decompressionThresholdCm3: a(160, "cm³", "control the decompression when more than about 10 in³ is released; hydraulic-maintenance article on decompression [S], a trade rule"),
 
+  rmsCycleLimitS: a(300, "s", "RMS motor loading holds for duty cycles shorter than about 5 minutes; trade-magazine article on motor sizing for peak loads [S]"),
+  motorPeakSeconds: a(15, "s", "induction motors carry 60 % excess torque for 15 s (IEC 60034-1, from memory [M])"),
+  motorPeakRatio: a(1.5, "× rating", "a short peak kept below 1.5 × the rated power, from the 1.6 × of IEC 60034-1 with margin [M]/[D]"),
+
   // Pump speed check
   speedTolerance: a(0.1, "-", "a stroke more than 10 % faster than asked is flagged; our convention"),
   pressureNearLimit: a(0.95, "-", "working pressure above 95 % of its limit leaves little reserve; our convention"),

@@ -182,6 +182,10 @@ export interface Design {
     sizingPressureBar: number;
     /** true where pressing or a dwell holds the fixed pump at the relief setting, so the motor is sized there */
     sizedAtRelief: boolean;
+    /** shaft power at the sizing pressure: the highest the motor must pull */
+    peakKw: number;
+    /** RMS shaft power over the cycle where the cycle is short enough for it (≤ 5 min, peaks ≤ 15 s); else null and the motor covers the peak */
+    rmsKw: number | null;
   };
   counterbalance: Counterbalance | null;
   /** leak-tight holding where the load is held at rest longer than a few minutes */

@@ -292,8 +292,14 @@ export function explain(
     m.sizedAtRelief ? MOTOR_AT_RELIEF_FORCE : onRelief ? MOTOR_AT_RELIEF : vent ? MOTOR_AT_WORKING_VENTED : MOTOR_AT_WORKING,
     { p_working: v(c.workingPressureBar, "bar"), p_relief: vRelief, p_neutral: v(h.neutralPressureBar, "bar"), F_process: v(r.processForceN, "N"), dwell: v(r.dwellS, "s") },
     "a fixed pump delivers its flow at whatever pressure the circuit reaches, up to the relief setting: textbook pump-circuit behaviour (Esposito) [M]; trade-press pump articles [S]");
-  t.add("motor power needed", m.requiredKw, "kW", "P = p·Q_p / (600·η_overall)",
+  t.add("motor peak power", m.peakKw, "kW", "P_peak = p·Q_p / (600·η_overall) at the sizing pressure",
     { p: v(m.sizingPressureBar, "bar"), Q_p: vQp, η_overall: v(d.pump.overallEfficiency, "-") }, "hydraulic power (Esposito) [M]; P = p·Q/600 [D]");
+  t.add("motor power needed", m.requiredKw, "kW",
+    m.rmsKw !== null
+      ? "P = max(P_rms, P_peak / 1.5, every phase longer than 15 s), P_rms = √(Σ P_i²·t_i / T) over extend, retract, dwell and neutral: a cycle under 5 min"
+      : "P = P_peak: the cycle is longer than 5 min (or there are no cycles), so the motor carries the peak continuously",
+    { P_peak: v(m.peakKw, "kW"), P_rms: v(m.rmsKw ?? "not used", "kW"), T: v(r.cyclesPerHour > 0 ? 3600 / r.cyclesPerHour : "no cycles", "s"), dwell: v(r.dwellS, "s") },
+    "RMS loading for fluctuating loads, valid under about 5 min (trade-magazine article on motor sizing for peak loads) [S]; 60 % excess torque for 15 s, IEC 60034-1 [M]");
   t.add("motor rating", m.ratedKw, "kW", "next rated output", { P_needed: v(m.requiredKw, "kW") }, "IEC 60072-1 output series [M]");
 
   // ---- Reservoir, filter, heat

@@ -21,7 +21,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.6.0";
+export const ENGINE_VERSION = "2.7.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -118,8 +118,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
   // a fixed pump then delivers its whole flow over the relief, at the relief setting.
   const pumpOnReliefAtForce = req.processForceN > 0 || req.dwellS > 0;
   const motorSizingBar = Math.max(pumpOnReliefAtForce ? ev.reliefBar : ev.workingBar, neutralBar);
-  const motorRequiredKw = hydraulicPowerKw(motorSizingBar, qp) / etaO;
-  const motor = selectMotorKw(motorRequiredKw);
+  const peakKw = hydraulicPowerKw(motorSizingBar, qp) / etaO;
 
   // Reservoir and heat
   const drawL = cylinderDrawL(cyl.capAreaMm2, cyl.annulusAreaMm2, req.strokeMm);
@@ -135,6 +134,23 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const averageLossKw =
     duty.extendShare * extendLossKw + duty.retractShare * retractLossKw + duty.dwellShare * dwellLossKw + duty.neutralShare * neutralLossKw;
   const coolerKw = Math.max(0, averageLossKw - dissipationKw);
+
+  // Motor: the peak it must pull (pull-out torque) and, for cycles short enough, the RMS power
+  // that heats it (the motor then carries a short peak up to 1.5 × its rating).
+  const shaftKw = (bar: number) => hydraulicPowerKw(bar, qp) / etaO;
+  const cycleS = req.cyclesPerHour > 0 ? 3600 / req.cyclesPerHour : Number.POSITIVE_INFINITY;
+  const rmsValid = cycleS <= A.rmsCycleLimitS.value;
+  const phases = [
+    { kw: shaftKw(ev.extendMovingBar), share: duty.extendShare, s: duty.extendS },
+    { kw: shaftKw(ev.retractBar), share: duty.retractShare, s: duty.retractS },
+    { kw: shaftKw(ev.reliefBar), share: duty.dwellShare, s: req.dwellS },
+    { kw: shaftKw(neutralBar), share: duty.neutralShare, s: Number.POSITIVE_INFINITY },
+  ];
+  const rmsKw = Math.sqrt(phases.reduce((sum, ph) => sum + ph.share * ph.kw * ph.kw, 0));
+  // A phase longer than the motor's short-overload time must be carried at its rating.
+  const longKw = Math.max(...phases.filter((ph) => ph.share > 0 && ph.s > A.motorPeakSeconds.value).map((ph) => ph.kw), 0);
+  const motorRequiredKw = rmsValid ? Math.max(rmsKw, peakKw / A.motorPeakRatio.value, longKw) : peakKw;
+  const motor = selectMotorKw(motorRequiredKw);
   const loweringHeatKw = cbv ? hydraulicPowerKw(cbv.loweringDropBar, cbv.flowLpm) : 0;
 
   const gaugeRangeBar =
@@ -217,6 +233,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
     motor: {
       requiredKw: motorRequiredKw, ratedKw: motor.ratedKw, poles: A.motorPoles.value, frame, sizingPressureBar: motorSizingBar,
       sizedAtRelief: pumpOnReliefAtForce,
+      peakKw,
+      rmsKw: rmsValid ? rmsKw : null,
     },
     counterbalance: cbv && ctx.pilot
       ? {

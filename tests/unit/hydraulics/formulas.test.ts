@@ -192,3 +192,18 @@ describe("decompression (shared sources' check values [D]; 1 %/1000 psi and the 
     expect(big.needed).toBe(true);
   });
 });
+
+describe("motor by RMS with a short peak (shared sources' duty-cycle check value [D]; method from a trade-magazine article [S]; IEC 60034-1 [M])", () => {
+  it("20 kW for 5 s, 5 kW for 10 s, 1 kW for 15 s: P_rms 8.69 kW, P_mean 5.50 kW; the 20 kW peak rules out 11 kW and asks for 15 kW", async () => {
+    const { selectMotorKw } = await import("~/hydraulics/pump-motor");
+    const phases = [[20, 5], [5, 10], [1, 15]] as const;
+    const T = 30;
+    const rms = Math.sqrt(phases.reduce((s, [p, t]) => s + p * p * t, 0) / T);
+    const mean = phases.reduce((s, [p, t]) => s + p * t, 0) / T;
+    expect(rms).toBeCloseTo(8.69, 2);
+    expect(mean).toBeCloseTo(5.5, 9);
+    // the engine's rule: rating ≥ max(P_rms, P_peak / 1.5)
+    expect(selectMotorKw(Math.max(rms, 20 / 1.5)).ratedKw).toBe(15);
+    expect(selectMotorKw(rms).ratedKw).toBe(11);
+  });
+});

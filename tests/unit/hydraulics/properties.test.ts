@@ -206,7 +206,13 @@ describe("consistency of every design", () => {
         expect(d.bom.some((l) => l.key === "holding-valve")).toBe(d.holding !== null);
         if (d.counterbalance) expect(d.counterbalance.flowLpm).toBeGreaterThanOrEqual(d.flowsLpm.pump * (1 - 1e-12));
         // a fixed pump that can stall at force sits at the relief: the motor covers p_relief·Q_p/(600·η)
-        if (d.motor.sizedAtRelief) expect(d.motor.requiredKw).toBeGreaterThanOrEqual((d.pressuresBar.reliefSetting * d.flowsLpm.pump) / 600 / 0.85 - 1e-9);
+        if (d.motor.sizedAtRelief) expect(d.motor.peakKw).toBeGreaterThanOrEqual((d.pressuresBar.reliefSetting * d.flowsLpm.pump) / 600 / 0.85 - 1e-9);
+        // the motor covers every phase: its rating carries the RMS and any long phase, 1.5 × its rating the peak (IEC 60034-1 [M])
+        if (!d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES")) {
+          expect(1.5 * d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.peakKw - 1e-9);
+          if (d.motor.rmsKw !== null) expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.rmsKw - 1e-9);
+          else expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.peakKw - 1e-9);
+        }
         // meter-out intensification is warned whenever φ × relief exceeds the rating and no rod-side CBV caps it
         const intensifies = d.counterbalance?.side !== "rod" && c.areaRatio * d.pressuresBar.reliefSetting > c.ratedPressureBar + 1e-9;
         expect(d.warnings.some((w) => w.code === "METER_OUT_INTENSIFICATION")).toBe(intensifies);

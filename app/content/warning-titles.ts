@@ -24,6 +24,7 @@ const TITLES: Partial<Record<WarningCode, string>> = {
   PIVOTED_BODY_FREE_ROD: "A pivoted cylinder with a free rod end cannot push",
   PISTON_SPEED_HIGH: "Piston faster than standard seals allow",
   CUSHION_PRESSURE_HIGH: "Stroke-end cushion above the cylinder's rating",
+  DECOMPRESSION_NEEDED: "Oil must be decompressed before the return stroke",
 };
 
 /** The title of a warning; a code without one yet still reads as a sentence, never as a code. */

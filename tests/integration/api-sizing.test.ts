@@ -72,6 +72,14 @@ describe("POST /api/v1/sizing", () => {
     expect(res.data.fieldErrors[field][0]).toEqual(expect.any(String));
   });
 
+  it("answers 400 naming the pressure limit when no cylinder of the series can work within it", async () => {
+    // 1.5 MN at 20 bar: even the largest bore would need far more; the engine says how much.
+    const res = await post({ ...GOOD, processForceN: 1_500_000, maxPressureBar: 20 });
+    expect(res.status).toBe(400);
+    expect(res.data.error).toBe("invalid_requirements");
+    expect(res.data.fieldErrors.maxPressureBar[0]).toMatch(/at least \d+ bar/i);
+  });
+
   it("lists every bad field at once", async () => {
     const res = await post({ ...GOOD, massKg: -1, strokeMm: 0, supplyHz: 55 });
     expect(Object.keys(res.data.fieldErrors).sort()).toEqual(["massKg", "strokeMm", "supplyHz"]);

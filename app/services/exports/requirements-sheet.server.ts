@@ -13,6 +13,9 @@ import { addSheet, freezeAt, headerDay, quantityFormat, styleBodyRow, writeHeade
 const PLAIN_UNITS: Partial<Record<RequirementKey, string>> = {
   inclineDeg: "°",
   accelTimeS: "s",
+  decelTimeS: "s",
+  dwellS: "s",
+  holdMinutes: "min",
   cyclesPerHour: "per hour",
   hoursPerDay: "h per day",
   supplyHz: "Hz",

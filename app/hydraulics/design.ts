@@ -158,10 +158,14 @@ export interface Design {
     workingLimit: number;
     extendMoving: number;
     extendPress: number;
+    /** with a pressing stroke: pump pressure in the approach (no process force) and while pressing */
+    approach?: number;
+    press?: number;
     /** highest pressure the rod side can see in normal work */
     rodSidePeak: number;
   };
-  flowsLpm: { extend: number; retract: number; pump: number; returnMax: number };
+  /** with a pressing stroke, extend is the approach flow and press the pressing flow */
+  flowsLpm: { extend: number; retract: number; pump: number; returnMax: number; press?: number };
   speedsMmS: { extendRequested: number; retractRequested: number; extendActual: number; retractActual: number };
   pump: {
     /** this engine version sizes fixed-displacement pumps; double and compensated follow */
@@ -223,6 +227,9 @@ export interface Design {
     /** heat while dwelling at force: the whole pump flow over the relief */
     dwellLossKw: number;
     dwellShare: number;
+    /** heat while pressing (0 without a pressing stroke): a fixed pump's surplus crosses the relief */
+    pressLossKw: number;
+    pressShare: number;
     /** pump pressure while the valve is in neutral: vent pressure, unloading pressure or relief */
     neutralPressureBar: number;
     extendShare: number;

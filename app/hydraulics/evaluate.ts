@@ -9,6 +9,7 @@ import { DEFAULT_FLUID, lineLossBar, sizeLine, type Fluid, type LineSizing } fro
 import {
   accelerationForceN, axisLoads, extendForces, pressForceN, retractForces, type AxisLoads, type StrokeForces,
 } from "./loads";
+import { phaseFlowLpm } from "./phases";
 import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import type { Requirements } from "./requirements";
 import {
@@ -84,6 +85,8 @@ export interface Evaluation {
   workingLimitBar: number;
   flowExtendLpm: number;
   flowRetractLpm: number;
+  /** cylinder flow while pressing; null without a pressing stroke */
+  flowPressLpm: number | null;
   pumpRequiredLpm: number;
   requiredDisplacementCc: number;
   displacementCc: number;
@@ -139,8 +142,8 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const phi = cyl.areaRatio;
 
   // Flows for the requested speeds, Q = A·v; a fixed pump must deliver the larger.
-  const flowExtendLpm = (a1 * req.extendSpeedMmS * 0.06) / 1000;
-  const flowRetractLpm = (a3 * req.retractSpeedMmS * 0.06) / 1000;
+  const flowExtendLpm = phaseFlowLpm(a1, req.extendSpeedMmS);
+  const flowRetractLpm = phaseFlowLpm(a3, req.retractSpeedMmS);
   const pumpRequiredLpm = Math.max(flowExtendLpm, flowRetractLpm);
   const needCc = requiredDisplacementCc(pumpRequiredLpm, ctx.speedRpm, etaV);
   const { displacementCc, inSeries } = selectDisplacementCc(needCc);
@@ -202,8 +205,19 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const extendInletBar = cylinderInletBar(hydraulicForceN(extend.movingN, eta), a1, a3, extendBackBar, rodCbv);
   const retractInletBar = cylinderInletBar(hydraulicForceN(retract.movingN, eta), a3, a1, retractBackBar, capCbv);
   const extendMovingBar = extendInletBar + extendSupplyLossBar;
-  // Pressing happens at (near) standstill: no flow, so no line or valve losses.
-  const extendPressBar = cylinderInletBar(hydraulicForceN(pressN, eta), a1, a3, 0, rodCbv);
+  // Without a pressing stroke the force is reached at (near) standstill: no flow, no line or valve losses.
+  // With a pressing stroke the cylinder moves at pressing speed against the process force, so
+  // the lines and valves pass the pressing flow and their losses count (small at low flow).
+  const hasPressPhase = req.pressStrokeMm > 0 && req.pressSpeedMmS !== undefined;
+  const flowPressLpm = hasPressPhase ? phaseFlowLpm(a1, req.pressSpeedMmS!) : null;
+  // The valve and filter allowances hold at the pump flow; through the same orifices the drop
+  // goes with the square of the flow (orifice equation, Δp ∝ Q²) [D].
+  const orificeScale = flowPressLpm === null ? 0 : (flowPressLpm / qp) ** 2;
+  const pressSupplyLossBar = flowPressLpm === null ? 0
+    : lineLossBar(lines.pressure, flowPressLpm, fluid) + dcv * orificeScale + lineLossBar(lines.capWork, flowPressLpm, fluid) + (ctx.cbvSide === "cap" ? check : 0);
+  const pressBackBar = flowPressLpm === null ? 0
+    : lineLossBar(lines.rodWork, flowPressLpm / phi, fluid) + (dcv + filter) * orificeScale / phi ** 2 + lineLossBar(lines.return, flowPressLpm / phi, fluid);
+  const extendPressBar = cylinderInletBar(hydraulicForceN(pressN, eta), a1, a3, pressBackBar, rodCbv) + pressSupplyLossBar;
   const extendBar = Math.max(extendMovingBar, extendPressBar);
   const retractBar = retractInletBar + retractSupplyLossBar;
   // Constant-speed pressures feed the heat balance.
@@ -223,7 +237,7 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const buckling = checkBuckling(cyl.rodMm, ctx.buckling.lengthMm, ctx.buckling.k, compressiveN);
 
   return {
-    cyl, hoseUpsize, workingLimitBar: limitBar, flowExtendLpm, flowRetractLpm, pumpRequiredLpm, requiredDisplacementCc: needCc, displacementCc,
+    cyl, hoseUpsize, workingLimitBar: limitBar, flowExtendLpm, flowRetractLpm, flowPressLpm, pumpRequiredLpm, requiredDisplacementCc: needCc, displacementCc,
     pumpInSeries: inSeries, pumpFlowLpm: qp, extendActualMmS, retractActualMmS, accelExtendN, accelRetractN,
     extend, retract, pressN, lines, extendSupplyLossBar, extendBackBar, retractSupplyLossBar, retractBackBar,
     cbv, extendInletBar, extendMovingBar, extendPressBar, extendBar, retractInletBar, retractBar,

@@ -313,8 +313,20 @@ export function explain(
   t.add("tank heat shed", d.reservoir.dissipationKw, "kW", "Φ = k·A·(60 °C − ambient)",
     { k: v(A.tankHeatTransfer.value, "W/(m²·K)"), A: v(d.reservoir.surfaceM2, "m²"), ambient: v(r.ambientC, "°C") },
     "k for a tank in free air, Matthies/Renius Tafel 8.7 [S]; 60 °C oil limit, ISO 4413 as paraphrased in University of Minnesota hydraulics course notes [S]");
-  t.add("share of time extending", h.extendShare, "-", "cycles/h · stroke / v_actual / 3600",
+  t.add("share of time extending", h.extendShare, "-", "cycles/h · (stroke − pressing stroke) / v_actual / 3600",
     { cycles: v(r.cyclesPerHour, "1/h"), t_stroke: v(extra.duty.extendS, "s") }, "[D]");
+  if (d.flowsLpm.press !== undefined && d.pressuresBar.approach !== undefined && d.pressuresBar.press !== undefined) {
+    const vPress = v(r.pressSpeedMmS ?? 0, "mm/s");
+    t.add("approach pressure", d.pressuresBar.approach, "bar", "p = (F_friction ± G + m·a)/(η·A1) + line and valve losses: no process force before the tool meets the work",
+      { F: v(L.extendMovingN, "N"), A1: vA1, v: v(d.speedsMmS.extendActual, "mm/s") }, "force balance on the piston (Esposito) [M]; losses by Darcy–Weisbach [D]");
+    t.add("flow while pressing", d.flowsLpm.press, "L/min", "Q = A1·v_press·0.06/1000", { A1: vA1, v_press: vPress }, "continuity [D]");
+    t.add("pressing pressure", d.pressuresBar.press, "bar", "p = (F_process + F_friction + G)/(η·A1) + losses at the pressing flow",
+      { F: v(L.extendPressN, "N"), A1: vA1, Q: v(d.flowsLpm.press, "L/min") }, "force balance on the piston (Esposito) [M]; losses by Darcy–Weisbach [D]");
+    t.add("share of time pressing", h.pressShare, "-", "cycles/h · pressing stroke / v_press / 3600",
+      { cycles: v(r.cyclesPerHour, "1/h"), t_press: v(extra.duty.pressS, "s"), pressing_stroke: v(r.pressStrokeMm, "mm") }, "[D]");
+    t.add("heat while pressing", h.pressLossKw, "kW", "P = p_relief·Q_p/(600·η) − F_press·v_press: a fixed pump sits at the relief and its surplus flow crosses it",
+      { p_relief: vRelief, Q_p: vQp, F_press: v(L.extendPressN, "N"), v_press: vPress }, "energy balance [D]; fixed-pump behaviour, trade-press pump articles [S]");
+  }
   t.add("share of time retracting", h.retractShare, "-", "cycles/h · stroke / v_actual / 3600",
     { cycles: v(r.cyclesPerHour, "1/h"), t_stroke: v(extra.duty.retractS, "s") }, "[D]");
   t.add("heat while extending", h.extendLossKw, "kW", "P_shaft − F_steady·v (pump losses, lines, valves, CBV)",
@@ -329,7 +341,7 @@ export function explain(
     { cycles: v(r.cyclesPerHour, "1/h"), dwell: v(r.dwellS, "s") }, "[D]");
   t.add("heat while dwelling", h.dwellLossKw, "kW", "P = p_relief·Q_p / (600·η): the rod does no work, the whole flow crosses the relief and all input power becomes heat",
     { p_relief: vRelief, Q_p: vQp, η: v(d.pump.overallEfficiency, "-") }, "energy balance [D]; P = p·Q/600 [D]");
-  t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over extend, retract, dwell and neutral",
+  t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over approach, pressing, retract, dwell and neutral",
     { extend: v(h.extendLossKw, "kW"), retract: v(h.retractLossKw, "kW"), dwell: v(h.dwellLossKw, "kW"), neutral: v(h.neutralLossKw, "kW"), dwell_share: v(h.dwellShare, "-"), neutral_share: v(h.neutralShare, "-") }, "duty-cycle average [D]");
   t.add("cooler duty", h.coolerKw, "kW", "max(0, average heat − tank heat shed)",
     { average: v(h.averageLossKw, "kW"), shed: v(h.tankDissipationKw, "kW") }, "[D]");

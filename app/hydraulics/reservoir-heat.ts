@@ -1,4 +1,5 @@
 import { A } from "./assumptions";
+import { extensionTimes } from "./phases";
 
 /** Oil a double-acting cylinder keeps out of the tank when extended: cap-end volume in minus rod-end volume back, A_rod·s, in L [D]. */
 export const cylinderDrawL = (capAreaMm2: number, annulusAreaMm2: number, strokeMm: number): number =>
@@ -22,11 +23,15 @@ export const tankDissipationKw = (surfaceM2: number, ambientC: number): number =
   (A.tankHeatTransfer.value * surfaceM2 * Math.max(0, A.oilTemperatureLimit.value - ambientC)) / 1000;
 
 export interface DutyShares {
+  /** time at approach speed (the whole extension without a pressing stroke) */
   extendS: number;
+  /** time at pressing speed (0 without a pressing stroke) */
+  pressS: number;
   retractS: number;
   dwellS: number;
   /** share of running time spent moving on each stroke, dwelling at force, and in neutral */
   extendShare: number;
+  pressShare: number;
   retractShare: number;
   dwellShare: number;
   neutralShare: number;
@@ -34,22 +39,31 @@ export interface DutyShares {
   overloaded: boolean;
 }
 
-export function dutyShares(strokeMm: number, extendMmS: number, retractMmS: number, cyclesPerHour: number, dwellS = 0): DutyShares {
-  const extendS = strokeMm / extendMmS;
+/**
+ * Share of each hour spent in each phase: approach, pressing, retract, dwell; the rest is
+ * neutral. A pressing stroke (press) splits the extension into approach and pressing times.
+ */
+export function dutyShares(
+  strokeMm: number, extendMmS: number, retractMmS: number, cyclesPerHour: number, dwellS = 0,
+  press?: { strokeMm: number; speedMmS: number },
+): DutyShares {
+  const { approachS: extendS, pressS } = extensionTimes(strokeMm, press?.strokeMm ?? 0, extendMmS, press?.speedMmS);
   const retractS = strokeMm / retractMmS;
   let extendShare = (cyclesPerHour * extendS) / 3600;
+  let pressShare = (cyclesPerHour * pressS) / 3600;
   let retractShare = (cyclesPerHour * retractS) / 3600;
   let dwellShare = (cyclesPerHour * dwellS) / 3600;
-  const busy = extendShare + retractShare + dwellShare;
+  const busy = extendShare + pressShare + retractShare + dwellShare;
   const overloaded = busy > 1;
   if (overloaded) {
     extendShare /= busy;
+    pressShare /= busy;
     retractShare /= busy;
     dwellShare /= busy;
   }
   return {
-    extendS, retractS, dwellS, extendShare, retractShare, dwellShare,
-    neutralShare: Math.max(0, 1 - extendShare - retractShare - dwellShare), overloaded,
+    extendS, pressS, retractS, dwellS, extendShare, pressShare, retractShare, dwellShare,
+    neutralShare: Math.max(0, 1 - extendShare - pressShare - retractShare - dwellShare), overloaded,
   };
 }
 

@@ -21,7 +21,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.7.0";
+export const ENGINE_VERSION = "2.8.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -125,14 +125,18 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const volumeL = reservoirVolumeL(qp, drawL);
   const surfaceM2 = tankSurfaceM2(volumeL);
   const dissipationKw = tankDissipationKw(surfaceM2, req.ambientC);
-  const duty = dutyShares(req.strokeMm, ev.extendActualMmS, ev.retractActualMmS, req.cyclesPerHour, req.dwellS);
+  const press = ev.flowPressLpm !== null ? { strokeMm: req.pressStrokeMm, speedMmS: req.pressSpeedMmS! } : undefined;
+  const duty = dutyShares(req.strokeMm, ev.extendActualMmS, ev.retractActualMmS, req.cyclesPerHour, req.dwellS, press);
   const extendLossKw = strokeHeatKw(hydraulicPowerKw(ev.extendSteadyBar, qp) / etaO, ev.extend.steadyN, ev.extendActualMmS);
   const retractLossKw = strokeHeatKw(hydraulicPowerKw(ev.retractSteadyBar, qp) / etaO, ev.retract.steadyN, ev.retractActualMmS);
   // Dwell: the rod does no work and the whole flow crosses the relief, so all input power is heat.
   const dwellLossKw = hydraulicPowerKw(ev.reliefBar, qp) / etaO;
+  // Pressing: the fixed pump sits at the relief and only the pressing flow moves the rod; the
+  // surplus crosses the relief, so the heat is the input power less the work on the process force.
+  const pressLossKw = press ? strokeHeatKw(hydraulicPowerKw(ev.reliefBar, qp) / etaO, ev.pressN, press.speedMmS) : 0;
   const neutralLossKw = hydraulicPowerKw(neutralBar, qp) / etaO;
   const averageLossKw =
-    duty.extendShare * extendLossKw + duty.retractShare * retractLossKw + duty.dwellShare * dwellLossKw + duty.neutralShare * neutralLossKw;
+    duty.extendShare * extendLossKw + duty.pressShare * pressLossKw + duty.retractShare * retractLossKw + duty.dwellShare * dwellLossKw + duty.neutralShare * neutralLossKw;
   const coolerKw = Math.max(0, averageLossKw - dissipationKw);
 
   // Motor: the peak it must pull (pull-out torque) and, for cycles short enough, the RMS power
@@ -142,6 +146,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const rmsValid = cycleS <= A.rmsCycleLimitS.value;
   const phases = [
     { kw: shaftKw(ev.extendMovingBar), share: duty.extendShare, s: duty.extendS },
+    { kw: shaftKw(ev.reliefBar), share: duty.pressShare, s: duty.pressS },
     { kw: shaftKw(ev.retractBar), share: duty.retractShare, s: duty.retractS },
     { kw: shaftKw(ev.reliefBar), share: duty.dwellShare, s: req.dwellS },
     { kw: shaftKw(neutralBar), share: duty.neutralShare, s: Number.POSITIVE_INFINITY },
@@ -212,9 +217,13 @@ export function sizeCircuitParsed(req: Requirements): Design {
       workingLimit: ev.workingLimitBar,
       extendMoving: ev.extendMovingBar,
       extendPress: ev.extendPressBar,
+      ...(press ? { approach: ev.extendMovingBar, press: ev.extendPressBar } : {}),
       rodSidePeak: ev.rodSidePeakBar,
     },
-    flowsLpm: { extend: ev.flowExtendLpm, retract: ev.flowRetractLpm, pump: qp, returnMax: qp * cyl.areaRatio },
+    flowsLpm: {
+      extend: ev.flowExtendLpm, retract: ev.flowRetractLpm, pump: qp, returnMax: qp * cyl.areaRatio,
+      ...(ev.flowPressLpm !== null ? { press: ev.flowPressLpm } : {}),
+    },
     speedsMmS: {
       extendRequested: req.extendSpeedMmS,
       retractRequested: req.retractSpeedMmS,
@@ -278,6 +287,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
       neutralLossKw,
       dwellLossKw,
       dwellShare: duty.dwellShare,
+      pressLossKw,
+      pressShare: duty.pressShare,
       neutralPressureBar: neutralBar,
       extendShare: duty.extendShare,
       retractShare: duty.retractShare,
@@ -311,9 +322,6 @@ const LINE_NAMES = ["pressure", "return", "suction", "capWork", "rodWork"] as co
  */
 function notYetSized(r: Requirements): string[] {
   const out: string[] = [];
-  if (r.pressStrokeMm > 0) {
-    out.push(`the pressing phase (${num(r.pressStrokeMm)} mm at ${num(r.pressSpeedMmS ?? 0)} mm/s): the whole extension is sized at the approach speed with the working force at its end, which is safe but can over-size the pump and motor`);
-  }
   if (r.pumpType !== undefined && r.pumpType !== "fixed") {
     out.push(`the ${r.pumpType === "double" ? "double (high-low)" : "pressure-compensated"} pump asked for: a fixed pump is sized instead, which is larger in motor and heat where fast motion and high force never meet`);
   }

@@ -1,5 +1,5 @@
-import { displayValue, type RequirementField } from "~/content/requirement-fields";
-import { unitLabel, type UnitSystem } from "~/units";
+import { displayValue, fieldUnit, type RequirementField } from "~/content/requirement-fields";
+import type { UnitSystem } from "~/units";
 
 // One question about the axis: label, plain help, an example in the person's units, the error
 // beside it. Used by the quick-sizing page (controlled, with onChange) and the spec form
@@ -45,7 +45,7 @@ export function RequirementInput({
             aria-describedby={describedBy}
             className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
           >
-            {value ? null : <option value="">Choose…</option>}
+            {field.emptyLabel ? <option value="">{field.emptyLabel}</option> : value ? null : <option value="">Choose…</option>}
             {field.options.map((o) => (
               <option key={o.value} value={o.value}>
                 {o.label}
@@ -63,7 +63,8 @@ export function RequirementInput({
           {field.help}
         </p>
         <div className="mt-1 grid gap-1.5">
-          {field.options.map((o) => (
+          {/* An optional choice offers its blank answer ("Let the sizing choose") as a choice of its own. */}
+          {[...(field.emptyLabel ? [{ value: "", label: field.emptyLabel, hint: undefined }] : []), ...field.options].map((o) => (
             <label
               key={o.value}
               className="flex cursor-pointer items-start gap-2 rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 has-[:checked]:bg-flow-50 has-[:checked]:ring-2 has-[:checked]:ring-flow-600"
@@ -72,7 +73,7 @@ export function RequirementInput({
                 type="radio"
                 name={field.key}
                 value={o.value}
-                {...(onChange ? { checked: value === o.value, onChange: () => onChange(o.value) } : { defaultChecked: value === o.value })}
+                {...(onChange ? { checked: (value ?? "") === o.value, onChange: () => onChange(o.value) } : { defaultChecked: (value ?? "") === o.value })}
                 className="mt-1 accent-flow-600"
               />
               <span>
@@ -87,7 +88,7 @@ export function RequirementInput({
     );
   }
 
-  const unit = field.quantity ? unitLabel(field.quantity, system) : null;
+  const unit = fieldUnit(field, system);
   return (
     <div>
       <label htmlFor={id} className="block text-sm font-semibold text-ink-800">

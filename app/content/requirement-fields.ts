@@ -13,6 +13,11 @@ interface BaseField {
   label: string;
   /** The plain question, shown under the label. */
   help: string;
+  /**
+   * What a blank answer means, for optional fields without a pre-filled value ("Let the sizing
+   * choose"): the form offers it as the first choice and the answers read it back in words.
+   */
+  emptyLabel?: string;
 }
 
 export interface NumberField extends BaseField {
@@ -24,12 +29,16 @@ export interface NumberField extends BaseField {
   /** Pre-filled value in the app's units, where a sensible one exists. */
   defaultValue?: number;
   step?: number;
+  /** Unit of a field without a display quantity (seconds, minutes): the same in every system. */
+  unit?: string;
 }
 
 export interface ChoiceField extends BaseField {
   kind: "choice";
   options: { value: string; label: string; hint?: string }[];
   defaultValue?: string;
+  /** Unit of the value the engine takes (50 for "50 Hz"). */
+  unit?: string;
 }
 
 export type RequirementField = NumberField | ChoiceField;
@@ -54,6 +63,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     help: "How steep is the path, in degrees above horizontal?",
     example: 30,
     step: 1,
+    unit: "°",
   },
   rodDirection: {
     key: "rodDirection",
@@ -136,6 +146,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     example: 0.2,
     defaultValue: REQUIREMENT_DEFAULTS.accelTimeS,
     step: 0.05,
+    unit: "s",
   },
   cyclesPerHour: {
     key: "cyclesPerHour",
@@ -143,6 +154,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     label: "Cycles per hour",
     help: "One cycle is one extend and one retract.",
     example: 60,
+    unit: "per hour",
   },
   hoursPerDay: {
     key: "hoursPerDay",
@@ -151,6 +163,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     help: "How long the machine runs on a normal day.",
     example: 16,
     step: 0.5,
+    unit: "h per day",
   },
   ambientC: {
     key: "ambientC",
@@ -167,6 +180,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     label: "Mains frequency",
     help: "50 Hz in Europe and most of the world, 60 Hz in North America.",
     defaultValue: "50",
+    unit: "Hz",
     options: [
       { value: "50", label: "50 Hz" },
       { value: "60", label: "60 Hz" },
@@ -197,6 +211,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     example: 2,
     defaultValue: REQUIREMENT_DEFAULTS.dwellS,
     step: 0.5,
+    unit: "s",
   },
   holdMinutes: {
     key: "holdMinutes",
@@ -206,6 +221,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     example: 30,
     defaultValue: REQUIREMENT_DEFAULTS.holdMinutes,
     step: 1,
+    unit: "min",
   },
   decelTimeS: {
     key: "decelTimeS",
@@ -214,12 +230,15 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     help: "Seconds from full speed to standstill. Leave it empty to use the time to reach speed.",
     example: 0.2,
     step: 0.05,
+    unit: "s",
+    emptyLabel: "Same as the time to reach speed",
   },
   mountingStyle: {
     key: "mountingStyle",
     kind: "choice",
     label: "How the cylinder body is fixed",
     help: "Where the body is held decides how long the rod is free to buckle. Leave it empty if not yet known: the engine then assumes the longest free length.",
+    emptyLabel: "Not known yet",
     options: [
       { value: "front-flange", label: "Front flange", hint: "Flange at the rod end of the body" },
       { value: "rear-flange", label: "Rear flange", hint: "Flange at the far end of the body" },
@@ -233,6 +252,7 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     kind: "choice",
     label: "Pump",
     help: "Leave it empty to let the sizing choose. A double (high-low) or compensated pump saves power where fast motion and high force never meet.",
+    emptyLabel: "Let the sizing choose",
     options: [
       { value: "fixed", label: "Fixed displacement", hint: "Simple and cheap; one flow at any pressure" },
       { value: "double", label: "Double (high-low)", hint: "Two sections: fast at low pressure, slow at high" },
@@ -250,11 +270,23 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
   },
 };
 
+/** The answers that decide whether another field is asked, typed (strings) or as sized (numbers). */
+export type DecidingAnswers = { orientation?: string; pressStrokeMm?: string | number };
+
+/** A typed number as the form reads it ("1 234,5" included); NaN when it is not one. */
+export const typedNumber = (raw: string) => Number(raw.replace(/\s/g, "").replace(",", "."));
+
 /** Fields that only apply to some axes. */
-export function fieldApplies(key: RequirementKey, orientation: string | undefined) {
+export function fieldApplies(key: RequirementKey, answers: DecidingAnswers) {
+  const { orientation } = answers;
   if (key === "inclineDeg") return orientation === "inclined";
   if (key === "rodDirection") return orientation === "vertical" || orientation === "inclined";
   if (key === "frictionCoefficient") return orientation !== "vertical";
+  // A pressing speed belongs to a pressing stroke; > 0 reads the same in every unit system.
+  if (key === "pressSpeedMmS") {
+    const press = answers.pressStrokeMm;
+    return (typeof press === "number" ? press : typedNumber(press ?? "")) > 0;
+  }
   return true;
 }
 
@@ -277,6 +309,15 @@ export function defaultFormValues(system: UnitSystem): FormValues {
   return values;
 }
 
+/** Whether any of these answers says more than its blank or pre-filled default. */
+export function differsFromDefault(keys: readonly RequirementKey[], values: FormValues, system: UnitSystem): boolean {
+  const defaults = defaultFormValues(system);
+  return keys.some((k) => {
+    const v = values[k]?.trim();
+    return !!v && v !== defaults[k] && !(defaults[k] !== undefined && typedNumber(v) === typedNumber(defaults[k]!));
+  });
+}
+
 /**
  * Typed values (strings in the person's units) → the engine's input. Blank fields are left out
  * so the engine's defaults and "required" messages apply; text that isn't a number is passed on
@@ -284,15 +325,14 @@ export function defaultFormValues(system: UnitSystem): FormValues {
  */
 export function toRequirementsInput(values: FormValues, system: UnitSystem): Record<string, unknown> {
   const input: Record<string, unknown> = {};
-  const orientation = values.orientation;
   for (const field of Object.values(REQUIREMENT_FIELDS)) {
     const raw = values[field.key]?.trim();
-    if (!raw || !fieldApplies(field.key, orientation)) continue;
+    if (!raw || !fieldApplies(field.key, values)) continue;
     if (field.kind === "choice") {
       input[field.key] = field.key === "supplyHz" ? Number(raw) : raw;
       continue;
     }
-    const number = Number(raw.replace(/\s/g, "").replace(",", "."));
+    const number = typedNumber(raw);
     input[field.key] = Number.isFinite(number) ? (field.quantity ? fromDisplay(field.quantity, number, system) : number) : raw;
   }
   return input;
@@ -364,4 +404,45 @@ export function toFormValues(input: Partial<Record<RequirementKey, string | numb
     values[field.key] = field.kind === "number" && typeof value === "number" ? displayValue(field, value, system) : String(value);
   }
   return values;
+}
+
+/** The unit shown beside a field's value in the person's system, if any. */
+export function fieldUnit(field: RequirementField, system: UnitSystem): string | null {
+  if (field.kind === "number" && field.quantity) return unitLabel(field.quantity, system);
+  return field.unit ?? null;
+}
+
+/**
+ * One answer in words, as the review and the spec page show it: a choice by its label, a
+ * number with its unit, a blank optional answer by what it means. Null when there is nothing
+ * to say (a blank answer with no meaning of its own).
+ */
+export function answerInWords(key: RequirementKey, raw: string | undefined, system: UnitSystem): string | null {
+  const field = REQUIREMENT_FIELDS[key];
+  const text = raw?.trim();
+  if (!text) return field.emptyLabel ?? null;
+  if (field.kind === "choice") return field.options.find((o) => o.value === text)?.label ?? text;
+  const unit = fieldUnit(field, system);
+  return unit ? `${text} ${unit}` : text;
+}
+
+/**
+ * The requirements an axis was sized with (app units, defaults filled in) in words and in the
+ * reader's units. A blank optional choice is listed by its meaning only for a design sized
+ * since the choice was asked (holdMinutes is always filled in since then).
+ */
+export function requirementsInWords(requirements: Partial<Record<RequirementKey, unknown>>, system: UnitSystem) {
+  const asked = requirements.holdMinutes !== undefined;
+  const deciding = { orientation: String(requirements.orientation ?? ""), pressStrokeMm: Number(requirements.pressStrokeMm ?? 0) };
+  const rows: { key: RequirementKey; label: string; value: string }[] = [];
+  for (const field of Object.values(REQUIREMENT_FIELDS)) {
+    if (!fieldApplies(field.key, deciding)) continue;
+    const value = requirements[field.key];
+    let words: string | null;
+    if (value === undefined || value === null) words = asked && field.kind === "choice" ? (field.emptyLabel ?? null) : null;
+    else if (field.kind === "number" && typeof value === "number") words = answerInWords(field.key, displayValue(field, value, system), system);
+    else words = answerInWords(field.key, String(value), system);
+    if (words) rows.push({ key: field.key, label: field.label, value: words });
+  }
+  return rows;
 }

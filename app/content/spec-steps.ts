@@ -13,11 +13,43 @@ export type SpecStepId = (typeof SPEC_STEPS)[number]["id"];
 export type FormStepId = Exclude<SpecStepId, "review">;
 export const FORM_STEPS = SPEC_STEPS.filter((s) => s.id !== "review").map((s) => s.id) as FormStepId[];
 
+export interface AxisQuestions {
+  /** Asked of everyone. */
+  keys: RequirementKey[];
+  /** Optional refinements behind a disclosure, so the page stays short; blank means the default. */
+  more?: { title: string; summary: string; keys: RequirementKey[] };
+}
+
+/**
+ * The engine's requirement fields, grouped where a buyer thinks of them: the spec form asks
+ * each group on its step, the quick-sizing page shows the same groups on one page.
+ */
+export const AXIS_QUESTIONS: Record<Exclude<FormStepId, "quotation">, AxisQuestions> = {
+  machine: {
+    keys: ["orientation", "inclineDeg", "rodDirection", "mounting"],
+    more: { title: "More about the mounting", summary: "Where the cylinder body is fixed", keys: ["mountingStyle"] },
+  },
+  motion: {
+    keys: ["massKg", "processForceN", "frictionCoefficient", "strokeMm", "extendSpeedMmS", "retractSpeedMmS", "accelTimeS"],
+    more: {
+      title: "More about the motion",
+      summary: "A slow pressing stroke, a dwell at force, the time to stop",
+      keys: ["pressStrokeMm", "pressSpeedMmS", "dwellS", "decelTimeS"],
+    },
+  },
+  duty: {
+    keys: ["cyclesPerHour", "hoursPerDay", "holdMinutes", "ambientC", "supplyHz", "maxPressureBar"],
+    more: { title: "Pump", summary: "Choose the pump yourself, or let the sizing choose", keys: ["pumpType"] },
+  },
+};
+
+const allKeys = (q: AxisQuestions | undefined) => [...(q?.keys ?? []), ...(q?.more?.keys ?? [])];
+
 /** The engine's requirement fields asked on each step. */
 export const ENGINE_KEYS_BY_STEP: Record<FormStepId, RequirementKey[]> = {
-  machine: ["orientation", "inclineDeg", "rodDirection", "mounting"],
-  motion: ["massKg", "processForceN", "frictionCoefficient", "strokeMm", "extendSpeedMmS", "retractSpeedMmS", "accelTimeS"],
-  duty: ["cyclesPerHour", "hoursPerDay", "ambientC", "supplyHz", "maxPressureBar"],
+  machine: allKeys(AXIS_QUESTIONS.machine),
+  motion: allKeys(AXIS_QUESTIONS.motion),
+  duty: allKeys(AXIS_QUESTIONS.duty),
   quotation: [],
 };
 

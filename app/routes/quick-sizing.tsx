@@ -3,6 +3,7 @@ import { Form } from "react-router";
 import type { Route } from "./+types/quick-sizing";
 import { getOptionalUser } from "~/auth/permissions.server";
 import { DesignReport } from "~/components/design-report";
+import { MoreQuestions } from "~/components/more-questions";
 import { RequirementInput } from "~/components/requirement-input";
 import { Card, Notice, PageHeader } from "~/components/ui";
 import { useLiveSizing } from "~/components/use-live-sizing";
@@ -10,6 +11,7 @@ import {
   EXAMPLE_AXIS,
   REQUIREMENT_FIELDS,
   convertFormValues,
+  differsFromDefault,
   fieldApplies,
   fieldMessages,
   toFormValues,
@@ -17,6 +19,7 @@ import {
   type FormValues,
   type RequirementKey,
 } from "~/content/requirement-fields";
+import { AXIS_QUESTIONS, type AxisQuestions } from "~/content/spec-steps";
 import { RequirementsError, sizeCircuit, type Design } from "~/hydraulics";
 import { UNIT_SYSTEMS, UNIT_SYSTEM_LABELS, type UnitSystem } from "~/units";
 
@@ -25,12 +28,13 @@ export const meta: Route.MetaFunction = () => [
   { name: "description", content: "Size a preliminary hydraulic circuit for one axis, no account needed." },
 ];
 
-const GROUPS: { title: string; keys: RequirementKey[] }[] = [
-  { title: "The axis", keys: ["orientation", "inclineDeg", "rodDirection", "mounting"] },
-  { title: "Load and motion", keys: ["massKg", "processForceN", "frictionCoefficient", "strokeMm", "extendSpeedMmS", "retractSpeedMmS", "accelTimeS"] },
-  { title: "Duty and site", keys: ["cyclesPerHour", "hoursPerDay", "ambientC", "supplyHz", "maxPressureBar"] },
+// The spec form's questions, grouped as its steps group them.
+const GROUPS: ({ title: string } & AxisQuestions)[] = [
+  { title: "The axis", ...AXIS_QUESTIONS.machine },
+  { title: "Load and motion", ...AXIS_QUESTIONS.motion },
+  { title: "Duty and site", ...AXIS_QUESTIONS.duty },
 ];
-const KEYS = GROUPS.flatMap((g) => g.keys);
+const KEYS = GROUPS.flatMap((g) => [...g.keys, ...(g.more?.keys ?? [])]);
 
 function size(values: FormValues, system: UnitSystem): { design: Design | null; fieldErrors: Record<string, string[]> } {
   try {
@@ -62,6 +66,17 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
   const design = live.design;
   const hasErrors = Object.keys(live.fieldErrors).length > 0;
 
+  const question = (key: RequirementKey) => (
+    <RequirementInput
+      key={key}
+      field={REQUIREMENT_FIELDS[key]}
+      value={values[key]}
+      system={system}
+      errors={fieldMessages(key, live.fieldErrors[key], system)}
+      onChange={(value) => setValues((v) => ({ ...v, [key]: value }))}
+    />
+  );
+
   const switchUnits = (next: UnitSystem) => {
     setValues((v) => convertFormValues(v, system, next));
     setSystem(next);
@@ -90,18 +105,17 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
           {GROUPS.map((group) => (
             <Card key={group.title} className="space-y-4 !p-4">
               <h2 className="font-semibold text-ink-900">{group.title}</h2>
-              {group.keys
-                .filter((key) => fieldApplies(key, values.orientation))
-                .map((key) => (
-                  <RequirementInput
-                    key={key}
-                    field={REQUIREMENT_FIELDS[key]}
-                    value={values[key]}
-                    system={system}
-                    errors={fieldMessages(key, live.fieldErrors[key], system)}
-                    onChange={(value) => setValues((v) => ({ ...v, [key]: value }))}
-                  />
-                ))}
+              {group.keys.filter((key) => fieldApplies(key, values)).map(question)}
+              {group.more ? (
+                <MoreQuestions
+                  title={group.more.title}
+                  summary={group.more.summary}
+                  startOpen={differsFromDefault(group.more.keys, loaderData.values, loaderData.system)}
+                  attention={group.more.keys.some((k) => live.fieldErrors[k]?.length)}
+                >
+                  {group.more.keys.filter((key) => fieldApplies(key, values)).map(question)}
+                </MoreQuestions>
+              ) : null}
             </Card>
           ))}
           <noscript>

@@ -11,8 +11,9 @@ import { RequirementInput } from "~/components/requirement-input";
 import { SpecProgress } from "~/components/spec-progress";
 import { Button, Card, Notice, PageHeader } from "~/components/ui";
 import { useLiveSizing } from "~/components/use-live-sizing";
-import { EXAMPLE_AXIS, REQUIREMENT_FIELDS, displayValue, fieldApplies, toFormValues, fieldMessages, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
-import { ENGINE_KEYS_BY_STEP, SPEC_STEPS, isSpecStep, nextStep, previousStep, type FormStepId } from "~/content/spec-steps";
+import { EXAMPLE_AXIS, REQUIREMENT_FIELDS, answerInWords, differsFromDefault, displayValue, fieldApplies, toFormValues, fieldMessages, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
+import { AXIS_QUESTIONS, ENGINE_KEYS_BY_STEP, SPEC_STEPS, isSpecStep, nextStep, previousStep, type FormStepId } from "~/content/spec-steps";
+import { MoreQuestions } from "~/components/more-questions";
 import { FLUIDS, SUPPLY_VOLTAGES, stepFieldNames, stepSchema, typedStepAnswers } from "~/schemas/spec";
 import { FieldErrors, notFound } from "~/services/errors.server";
 import { redirectWithToast } from "~/auth/session.server";
@@ -20,7 +21,7 @@ import { specOfOwner } from "~/services/spec-access.server";
 import { allAnswers, designOf, isEditable, publish, saveStep } from "~/services/specs.server";
 import { ATTACHMENT_LIMITS, listAttachments } from "~/services/attachments.server";
 import { AttachmentUploader, formatBytes } from "~/components/attachment-uploader";
-import { UNIT_SYSTEM_LABELS, unitLabel, type Quantity, type UnitSystem } from "~/units";
+import { UNIT_SYSTEM_LABELS, type UnitSystem } from "~/units";
 import { CURRENCIES } from "~/content/currencies";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.stepTitle ?? "Spec"} · ${d?.spec.title || "New spec"} · Tenderflow` }];
@@ -132,7 +133,18 @@ function StepForm({ loaderData, lastResult }: { loaderData: LoaderData; lastResu
   });
   const current = { ...others, ...(form.value as FormValues | undefined) } as FormValues;
   const field = (name: string) => (fields as unknown as Record<string, { errors?: string[] }>)[name];
-  const engineKeys = ENGINE_KEYS_BY_STEP[step].filter((k) => fieldApplies(k, current.orientation ?? others.orientation));
+  const deciding = { orientation: current.orientation ?? others.orientation, pressStrokeMm: current.pressStrokeMm };
+  const questions = step === "quotation" ? undefined : AXIS_QUESTIONS[step];
+  const asked = (keys: RequirementKey[] | undefined) => (keys ?? []).filter((k) => fieldApplies(k, deciding));
+  const question = (key: RequirementKey) => (
+    <RequirementInput
+      key={key}
+      field={REQUIREMENT_FIELDS[key]}
+      value={stepAnswers[key] ?? defaultFor(key, system)}
+      system={system}
+      errors={fieldMessages(key, field(key)?.errors, system)}
+    />
+  );
 
   return (
     <div className={step === "motion" ? "grid gap-6 lg:grid-cols-[1fr_26rem]" : "max-w-2xl"}>
@@ -145,15 +157,17 @@ function StepForm({ loaderData, lastResult }: { loaderData: LoaderData; lastResu
               <TextArea name="purpose" label="What the machine does" help="A sentence or two: what the axis moves and why. Optional, but it helps shops." defaultValue={stepAnswers.purpose} errors={field("purpose")?.errors} />
             </>
           ) : null}
-          {engineKeys.map((key: RequirementKey) => (
-            <RequirementInput
-              key={key}
-              field={REQUIREMENT_FIELDS[key]}
-              value={stepAnswers[key] ?? defaultFor(key, system)}
-              system={system}
-              errors={fieldMessages(key, field(key)?.errors, system)}
-            />
-          ))}
+          {asked(questions?.keys).map(question)}
+          {questions?.more ? (
+            <MoreQuestions
+              title={questions.more.title}
+              summary={questions.more.summary}
+              startOpen={differsFromDefault(questions.more.keys, stepAnswers, system)}
+              attention={questions.more.keys.some((k) => field(k)?.errors?.length)}
+            >
+              {asked(questions.more.keys).map(question)}
+            </MoreQuestions>
+          ) : null}
           {step === "duty" ? (
             <>
               <Choice name="supplyVoltage" label="Mains voltage" help="The supply at the machine; the motor is quoted for it." options={SUPPLY_VOLTAGES} defaultValue={stepAnswers.supplyVoltage ?? "400 V three-phase"} errors={field("supplyVoltage")?.errors} />
@@ -197,13 +211,8 @@ function defaultFor(key: RequirementKey, system: UnitSystem): string | undefined
   return f.kind === "number" ? displayValue(f, f.defaultValue, system) : f.defaultValue;
 }
 
-function unitSuffix(key: RequirementKey, system: UnitSystem) {
-  const f = REQUIREMENT_FIELDS[key];
-  return f.kind === "number" && f.quantity ? ` ${unitLabel(f.quantity, system)}` : key === "supplyHz" ? " Hz" : "";
-}
-
 /** Later steps not answered yet are taken from the example axis, and the preview says so. */
-const PREVIEW_FALLBACK_KEYS = ENGINE_KEYS_BY_STEP.duty;
+const PREVIEW_FALLBACK_KEYS = ENGINE_KEYS_BY_STEP.duty.filter((k) => k in EXAMPLE_AXIS);
 
 function LivePreview({ values, system }: { values: FormValues; system: UnitSystem }) {
   const fallback = useMemo(() => toFormValues(EXAMPLE_AXIS, system), [system]);
@@ -226,7 +235,7 @@ function LivePreview({ values, system }: { values: FormValues; system: UnitSyste
             </div>
             {assumed.length ? (
               <p className="mt-2 text-xs text-ink-600">
-                Until you answer the duty step, the preview assumes {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${fallback[k]}${unitSuffix(k, system)}`).join(", ")}.
+                Until you answer the duty step, the preview assumes {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${answerInWords(k, fallback[k], system)}`).join(", ")}.
               </p>
             ) : null}
           </>
@@ -280,19 +289,14 @@ function Review({ loaderData, publishError }: { loaderData: LoaderData; publishE
         <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[16rem_1fr_auto]">
           {SPEC_STEPS.filter((s) => s.id !== "review").flatMap((s) =>
             stepFieldNames(s.id as FormStepId)
-              .filter((name) => answers[name as RequirementKey])
-              .map((name) => (
+              .map((name) => ({ name, ...shownAnswer(name, answers, spec.unitSystem) }))
+              .filter((a) => a.value)
+              .map(({ name, label, value }) => (
                 <div key={name} className="contents">
-                  <dt className="text-ink-600">{REQUIREMENT_FIELDS[name as RequirementKey]?.label ?? LABELS[name] ?? name}</dt>
-                  <dd className="font-semibold">
-                    {answers[name as RequirementKey]}{" "}
-                    {(() => {
-                      const f = REQUIREMENT_FIELDS[name as RequirementKey];
-                      return f?.kind === "number" && f.quantity ? <UnitOf quantity={f.quantity} system={spec.unitSystem} /> : null;
-                    })()}
-                  </dd>
+                  <dt className="text-ink-600">{label}</dt>
+                  <dd className="font-semibold">{value}</dd>
                   <dd>
-                    <Link className="text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/${s.id}`} aria-label={`Change ${name}`}>
+                    <Link className="text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/${s.id}`} aria-label={`Change ${label.toLowerCase()}`}>
                       Change
                     </Link>
                   </dd>
@@ -343,8 +347,13 @@ const LABELS: Record<string, string> = {
   notes: "Notes",
 };
 
-function UnitOf({ quantity, system }: { quantity: Quantity; system: UnitSystem }) {
-  return <span className="font-normal text-ink-600">{unitLabel(quantity, system)}</span>;
+/** One answer of the review in words: a choice by its label, a number with its unit. */
+function shownAnswer(name: string, answers: FormValues & Record<string, string | undefined>, system: UnitSystem): { label: string; value: string | null } {
+  if (name in REQUIREMENT_FIELDS) {
+    const key = name as RequirementKey;
+    return { label: REQUIREMENT_FIELDS[key].label, value: fieldApplies(key, answers) ? answerInWords(key, answers[key], system) : null };
+  }
+  return { label: LABELS[name] ?? name, value: answers[name]?.trim() || null };
 }
 
 const inputClass =

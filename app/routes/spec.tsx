@@ -3,6 +3,7 @@ import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/spec";
 import { requireUser } from "~/auth/permissions.server";
 import { DesignReport } from "~/components/design-report";
+import { AxisRequirements } from "~/components/axis-requirements";
 import { Badge, Button, ButtonLink, Notice, PageHeader } from "~/components/ui";
 import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
 import type { Design } from "~/hydraulics";
@@ -153,6 +154,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
       ) : null}
       {d.design ? (
         <div className="space-y-6">
+          <AxisRequirements requirements={d.design.requirements} units={d.unitSystem} />
           <DesignReport design={d.design} units={d.unitSystem} componentsTitle="Bill of materials" />
         </div>
       ) : (

@@ -101,14 +101,17 @@ export function stepFieldNames(step: FormStepId): string[] {
  */
 export function typedStepAnswers(step: FormStepId, posted: { get(name: string): unknown }, otherAnswers: FormValues) {
   const names = stepFieldNames(step);
-  const orientation = typeof posted.get("orientation") === "string" && names.includes("orientation") ? (posted.get("orientation") as string) : otherAnswers.orientation;
+  // The answers that decide which fields apply, from this post where the step asks them.
+  const deciding = (key: "orientation" | "pressStrokeMm") =>
+    typeof posted.get(key) === "string" && names.includes(key) ? (posted.get(key) as string) : otherAnswers[key];
+  const decidingAnswers = { orientation: deciding("orientation"), pressStrokeMm: deciding("pressStrokeMm") };
   const typed: Record<string, string> = {};
   const tooLongErrors: Record<string, string[]> = {};
   for (const name of names) {
     const value = posted.get(name);
     const answer = typeof value === "string" ? value : "";
     const engineKey = (ENGINE_KEYS_BY_STEP[step] as readonly string[]).includes(name);
-    if (engineKey && !fieldApplies(name as RequirementKey, orientation)) {
+    if (engineKey && !fieldApplies(name as RequirementKey, decidingAnswers)) {
       typed[name] = "";
       continue;
     }

@@ -13,6 +13,7 @@ import { waitForMail } from "../support/mailbox";
 import { makeMember } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
+import { answerInWords, fieldApplies, requirementsInWords } from "~/content/requirement-fields";
 
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
@@ -214,5 +215,108 @@ describe("revising a published spec", () => {
     await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
     const edit = await visitor.get(step.loader, "/x", { specId: id, step: "motion" });
     expect(edit.location).toBe(`/specs/${id}`);
+  });
+});
+
+describe("the axis questions of sizing contract 2", () => {
+  const words = (requirements: Record<string, unknown>) => Object.fromEntries(requirementsInWords(requirements, "metric").map((r) => [r.label, r.value]));
+
+  it("asks each new question on its step, saves and sizes the answers, and shows them in words", async () => {
+    const visitor = await signedIn(await makeMember("buyer"));
+    const id = await newDraft(visitor);
+    const steps = {
+      ...ANSWERS,
+      machine: { ...ANSWERS.machine, mountingStyle: "front-flange" },
+      motion: { ...ANSWERS.motion, pressStrokeMm: "30", pressSpeedMmS: "10", dwellS: "2", decelTimeS: "0.3" },
+      duty: { ...ANSWERS.duty, holdMinutes: "45", pumpType: "double" },
+    };
+    for (const [name, fields] of Object.entries(steps)) expect((await stepPost(visitor, id, name, fields)).status).toBe(302);
+    const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
+    expect(spec.answers.machine.mountingStyle).toBe("front-flange");
+    expect(spec.answers.motion).toMatchObject({ pressStrokeMm: "30", pressSpeedMmS: "10", dwellS: "2", decelTimeS: "0.3" });
+    expect(spec.answers.duty).toMatchObject({ holdMinutes: "45", pumpType: "double" });
+
+    const review = await visitor.get(step.loader, `/specs/${id}/edit/review`, { specId: id, step: "review" });
+    expect(review.data.review.design.requirements).toMatchObject({
+      mountingStyle: "front-flange", pressStrokeMm: 30, pressSpeedMmS: 10, dwellS: 2, decelTimeS: 0.3, holdMinutes: 45, pumpType: "double",
+    });
+    expect((await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" })).status).toBe(302);
+
+    // The spec page lists what the axis must do in words and units, not as codes.
+    const page = await visitor.get(specPage.loader, `/specs/${id}`, { specId: id });
+    expect(words(page.data.design.requirements)).toMatchObject({
+      "How the cylinder body is fixed": "Front flange",
+      "Pressing stroke": "30 mm",
+      "Pressing speed": "10 mm/s",
+      "Dwell at force": "2 s",
+      "Time to stop": "0.3 s",
+      "Time the load is held at rest": "45 min",
+      Pump: "Double (high-low)",
+      "Mains frequency": "50 Hz",
+      "How the cylinder is held": "Pivots at both ends",
+    });
+  });
+
+  it("resumes, validates and publishes a draft saved before the new questions existed", async () => {
+    const visitor = await signedIn(await makeMember("buyer"));
+    const id = await newDraft(visitor);
+    const strip = ({ intent: _intent, ...fields }: Record<string, string>) => fields;
+    // Exactly what an older form stored: no mounting style, phases, holding or pump.
+    await Spec.update(
+      {
+        title: ANSWERS.machine.title,
+        answers: { machine: strip(ANSWERS.machine), motion: strip(ANSWERS.motion), duty: strip(ANSWERS.duty), quotation: strip(ANSWERS.quotation) },
+        completedSteps: ["machine", "motion", "duty", "quotation"],
+      },
+      { where: { id } },
+    );
+    expect((await visitor.get(resume.loader, `/specs/${id}/edit`, { specId: id })).location).toBe(`/specs/${id}/edit/review`);
+    const motion = await visitor.get(step.loader, `/specs/${id}/edit/motion`, { specId: id, step: "motion" });
+    expect(motion.status).toBe(200);
+    // A tab still showing the old form posts the old fields only: they validate and save.
+    expect((await stepPost(visitor, id, "motion", ANSWERS.motion)).status).toBe(302);
+    expect((await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" })).status).toBe(302);
+
+    const revision = await SpecRevision.findOne({ where: { specId: id }, rejectOnEmpty: true });
+    const requirements = revision.axes[0].requirements as Record<string, unknown>;
+    // Blank means the default: no phases, no hold, stopping as fast as starting, the engine's pump.
+    expect(requirements).toMatchObject({ pressStrokeMm: 0, dwellS: 0, holdMinutes: 0, decelTimeS: 0.2 });
+    expect(requirements.pumpType).toBeUndefined();
+    expect(requirements.mountingStyle).toBeUndefined();
+    expect(words(requirements)).toMatchObject({ Pump: "Let the sizing choose", "How the cylinder body is fixed": "Not known yet" });
+    expect(words(requirements)).not.toHaveProperty("Pressing speed");
+  });
+
+  it("asks the pressing speed only with a pressing stroke, and says beside it that it is needed", async () => {
+    const visitor = await signedIn(await makeMember("buyer"));
+    const id = await newDraft(visitor);
+    await stepPost(visitor, id, "machine", ANSWERS.machine);
+
+    const missing = await stepPost(visitor, id, "motion", { ...ANSWERS.motion, pressStrokeMm: "30", pressSpeedMmS: "" });
+    expect(missing.status).toBe(400);
+    expect(Object.keys(missing.data.result.error)).toEqual(["pressSpeedMmS"]);
+    expect(missing.data.result.error.pressSpeedMmS.join(" ")).toMatch(/pressing speed.*needed when there is a pressing stroke/i);
+    // The field shows (with that message) because the posted pressing stroke asks for it.
+    expect(fieldApplies("pressSpeedMmS", { pressStrokeMm: "30" })).toBe(true);
+    expect(fieldApplies("pressSpeedMmS", { pressStrokeMm: "0" })).toBe(false);
+    expect(fieldApplies("pressSpeedMmS", {})).toBe(false);
+    expect((await Spec.findByPk(id, { rejectOnEmpty: true })).answers.motion).toBeUndefined();
+
+    const tooFast = await stepPost(visitor, id, "motion", { ...ANSWERS.motion, pressStrokeMm: "30", pressSpeedMmS: "120" });
+    expect(tooFast.data.result.error.pressSpeedMmS.join(" ")).toMatch(/no more than the extend/);
+
+    // Without a pressing stroke a leftover pressing speed is neither judged nor kept.
+    expect((await stepPost(visitor, id, "motion", { ...ANSWERS.motion, pressStrokeMm: "0", pressSpeedMmS: "fast" })).status).toBe(302);
+    expect((await Spec.findByPk(id, { rejectOnEmpty: true })).answers.motion.pressSpeedMmS).toBe("");
+  });
+
+  it("reads choices back by the form's labels and numbers with their units", () => {
+    expect(answerInWords("mounting", "fixed-fixed", "metric")).toBe("Flange, rod end fixed and guided");
+    expect(answerInWords("supplyHz", "60", "us")).toBe("60 Hz");
+    expect(answerInWords("accelTimeS", "0.2", "metric")).toBe("0.2 s");
+    expect(answerInWords("strokeMm", "19.69", "us")).toBe("19.69 in");
+    expect(answerInWords("pumpType", "", "metric")).toBe("Let the sizing choose");
+    expect(answerInWords("decelTimeS", undefined, "metric")).toBe("Same as the time to reach speed");
+    expect(answerInWords("massKg", "", "metric")).toBeNull();
   });
 });

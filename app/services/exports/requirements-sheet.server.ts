@@ -1,5 +1,5 @@
 import type ExcelJS from "exceljs";
-import { REQUIREMENT_FIELDS, fieldApplies, type RequirementField, type RequirementKey } from "~/content/requirement-fields";
+import { REQUIREMENT_FIELDS, fieldApplies, typedNumber, type RequirementField } from "~/content/requirement-fields";
 import type { Requirements } from "~/hydraulics";
 import { UNITS, UNIT_SYSTEM_LABELS, roundForDisplay, toDisplay, unitLabel, type UnitSystem } from "~/units";
 import type { BillInput } from "./bill-workbook.server";
@@ -9,21 +9,9 @@ import { addSheet, freezeAt, headerDay, quantityFormat, styleBodyRow, writeHeade
 // engine sized them (the units its fields name), plus the reader's units when those differ,
 // so nobody has to convert by hand to check a number. The spec's other answers follow.
 
-/** Units of the fields without a display quantity, as the engine names them. */
-const PLAIN_UNITS: Partial<Record<RequirementKey, string>> = {
-  inclineDeg: "°",
-  accelTimeS: "s",
-  decelTimeS: "s",
-  dwellS: "s",
-  holdMinutes: "min",
-  cyclesPerHour: "per hour",
-  hoursPerDay: "h per day",
-  supplyHz: "Hz",
-};
-
 const SYSTEM_NAMES: Record<UnitSystem, string> = { metric: "metric", us: "US customary" };
 
-const siUnit = (field: RequirementField) => (field.kind === "number" && field.quantity ? UNITS[field.quantity].metric.label : (PLAIN_UNITS[field.key] ?? ""));
+const siUnit = (field: RequirementField) => (field.kind === "number" && field.quantity ? UNITS[field.quantity].metric.label : (field.unit ?? ""));
 // A choice is entered as its label ("50 Hz"), which needs no unit beside it.
 const typedUnit = (field: RequirementField, system: UnitSystem) =>
   field.kind === "choice" ? "" : field.quantity ? unitLabel(field.quantity, system) : siUnit(field);
@@ -32,7 +20,7 @@ const typedUnit = (field: RequirementField, system: UnitSystem) =>
 export function typedValue(raw: string | undefined): number | string | null {
   const text = raw?.trim();
   if (!text) return null;
-  const number = Number(text.replace(/\s/g, "").replace(",", "."));
+  const number = typedNumber(text);
   return Number.isFinite(number) ? number : text;
 }
 
@@ -48,14 +36,20 @@ export interface RequirementRow {
 
 export function requirementRows(input: Pick<BillInput, "answers" | "enteredIn" | "readerUnits"> & { requirements: Requirements }): RequirementRow[] {
   const typed: Record<string, string> = Object.assign({}, ...Object.values(input.answers));
-  const orientation = input.requirements.orientation;
   const rows: RequirementRow[] = [];
+  // Sized by a contract that asks the optional choices (pump, mounting style): a blank one is listed by what it meant.
+  const asksOptional = input.requirements.holdMinutes !== undefined;
   for (const field of Object.values(REQUIREMENT_FIELDS)) {
-    if (!fieldApplies(field.key, orientation)) continue;
+    if (!fieldApplies(field.key, input.requirements)) continue;
     const si = input.requirements[field.key as keyof Requirements];
-    if (si === undefined) continue;
+    if (si === undefined) {
+      if (asksOptional && field.kind === "choice" && field.emptyLabel) {
+        rows.push({ label: field.label, entered: field.emptyLabel, enteredUnit: "", si: "", siUnit: "", reader: null });
+      }
+      continue;
+    }
     const label = field.kind === "choice" ? (field.options.find((o) => o.value === String(si))?.label ?? String(si)) : null;
-    const entered = field.kind === "choice" ? (label ?? String(si)) : (typedValue(typed[field.key]) ?? "(default)");
+    const entered = field.kind === "choice" ? (label ?? String(si)) : (typedValue(typed[field.key]) ?? field.emptyLabel ?? "(default)");
     let reader: RequirementRow["reader"] = null;
     if (input.readerUnits !== input.enteredIn && field.kind === "number" && field.quantity && typeof si === "number") {
       const value = roundForDisplay(toDisplay(field.quantity, si, input.readerUnits), UNITS[field.quantity][input.readerUnits].decimals);

@@ -109,7 +109,7 @@ export function RequirementInput({
           aria-describedby={describedBy}
           className="w-full min-w-0 rounded-md border-0 bg-transparent px-3 py-2 text-sm outline-none"
         />
-        {unit ? <span className="flex items-center pr-3 text-sm text-ink-600">{unit}</span> : null}
+        {unit ? <span className="flex items-center whitespace-nowrap pr-3 text-sm text-ink-600">{unit}</span> : null}
       </div>
       <Errors id={errorId} errors={errors} />
     </div>

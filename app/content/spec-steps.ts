@@ -39,7 +39,7 @@ export const AXIS_QUESTIONS: Record<Exclude<FormStepId, "quotation">, AxisQuesti
   },
   duty: {
     keys: ["cyclesPerHour", "hoursPerDay", "holdMinutes", "ambientC", "supplyHz", "maxPressureBar"],
-    more: { title: "Pump", summary: "Choose the pump yourself, or let the sizing choose", keys: ["pumpType"] },
+    more: { title: "Pump choice", summary: "Choose the pump yourself, or let the sizing choose", keys: ["pumpType"] },
   },
 };
 

@@ -11,6 +11,7 @@ import {
   EXAMPLE_AXIS,
   REQUIREMENT_FIELDS,
   convertFormValues,
+  defaultFormValues,
   differsFromDefault,
   fieldApplies,
   fieldMessages,
@@ -54,7 +55,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const given = KEYS.some((k) => params.has(k));
   const values: FormValues = given
     ? Object.fromEntries(KEYS.filter((k) => params.has(k)).map((k) => [k, params.get(k) ?? ""]))
-    : toFormValues(EXAMPLE_AXIS, system);
+    : { ...defaultFormValues(system), ...toFormValues(EXAMPLE_AXIS, system) };
   return { system, values, ...size(values, system) };
 }
 

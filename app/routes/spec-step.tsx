@@ -23,6 +23,7 @@ import { ATTACHMENT_LIMITS, listAttachments } from "~/services/attachments.serve
 import { AttachmentUploader, formatBytes } from "~/components/attachment-uploader";
 import { UNIT_SYSTEM_LABELS, type UnitSystem } from "~/units";
 import { CURRENCIES } from "~/content/currencies";
+import { formatDay, isIsoDay } from "~/content/dates";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.stepTitle ?? "Spec"} · ${d?.spec.title || "New spec"} · Tenderflow` }];
 
@@ -211,6 +212,12 @@ function defaultFor(key: RequirementKey, system: UnitSystem): string | undefined
   return f.kind === "number" ? displayValue(f, f.defaultValue, system) : f.defaultValue;
 }
 
+/** An assumed value after its label: units where the label does not already name them ("cycles per hour 60"). */
+function assumedValue(key: RequirementKey, value: string | undefined, system: UnitSystem) {
+  const f = REQUIREMENT_FIELDS[key];
+  return f.kind === "number" && !f.quantity ? (value ?? "") : answerInWords(key, value, system);
+}
+
 /** Later steps not answered yet are taken from the example axis, and the preview says so. */
 const PREVIEW_FALLBACK_KEYS = ENGINE_KEYS_BY_STEP.duty.filter((k) => k in EXAMPLE_AXIS);
 
@@ -235,7 +242,7 @@ function LivePreview({ values, system }: { values: FormValues; system: UnitSyste
             </div>
             {assumed.length ? (
               <p className="mt-2 text-xs text-ink-600">
-                Until you answer the duty step, the preview assumes {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${answerInWords(k, fallback[k], system)}`).join(", ")}.
+                Until you answer the duty step, the preview assumes {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${assumedValue(k, fallback[k], system)}`).join(", ")}.
               </p>
             ) : null}
           </>
@@ -343,7 +350,7 @@ const LABELS: Record<string, string> = {
   dateNeeded: "Date needed",
   deliveryRegion: "Delivery region",
   currency: "Currency",
-  retainerPercent: "Retainer (%)",
+  retainerPercent: "Retainer",
   notes: "Notes",
 };
 
@@ -353,7 +360,10 @@ function shownAnswer(name: string, answers: FormValues & Record<string, string |
     const key = name as RequirementKey;
     return { label: REQUIREMENT_FIELDS[key].label, value: fieldApplies(key, answers) ? answerInWords(key, answers[key], system) : null };
   }
-  return { label: LABELS[name] ?? name, value: answers[name]?.trim() || null };
+  const value = answers[name]?.trim();
+  if (!value) return { label: LABELS[name] ?? name, value: null };
+  if ((name === "bidDeadline" || name === "dateNeeded") && isIsoDay(value)) return { label: LABELS[name], value: formatDay(value) };
+  return { label: LABELS[name] ?? name, value: name === "retainerPercent" ? `${value} %` : value };
 }
 
 const inputClass =

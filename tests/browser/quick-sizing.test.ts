@@ -47,6 +47,45 @@ describe("quick sizing", () => {
     await page.context().close();
   });
 
+  it("asks about a slow pressing stroke behind 'More about the motion', the pressing speed only with one", async () => {
+    const page = await app.newPage();
+    await page.goto("/quick-sizing");
+    await hydrated(page);
+    expect(await page.getByLabel("Pressing stroke").isVisible()).toBe(false);
+    await page.getByText("More about the motion").click();
+    expect(await page.getByLabel("Pressing speed").count()).toBe(0);
+    await page.getByLabel("Pressing stroke").fill("30");
+    const speed = page.getByLabel("Pressing speed");
+    await expect.poll(() => speed.getAttribute("aria-invalid"), { timeout: 5_000 }).toBe("true");
+    expect(await page.locator("#req-pressSpeedMmS-error").innerText()).toMatch(/needed when there is a pressing stroke/);
+    await speed.fill("10");
+    await expect.poll(() => speed.getAttribute("aria-invalid"), { timeout: 5_000 }).toBe(null);
+    expect(await diagram(page).count()).toBe(1);
+    await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-press.png"), fullPage: true });
+    await page.context().close();
+  });
+
+  it("works as a plain GET form without JavaScript, the new questions included", async () => {
+    const context = await app.browser.newContext({ baseURL: app.baseUrl, javaScriptEnabled: false, viewport: { width: 1280, height: 860 } });
+    const page = await context.newPage();
+    await page.goto("/quick-sizing");
+    await page.getByText("More about the motion").click();
+    await page.getByLabel("Pressing stroke").fill("30");
+    await page.getByRole("button", { name: "Size the circuit" }).click();
+    await page.waitForURL(/pressStrokeMm=30/);
+    // The answer inside keeps the disclosure open, and the speed it now needs is asked, with the reason.
+    expect(await page.locator("#req-pressSpeedMmS-error").innerText()).toMatch(/needed when there is a pressing stroke/);
+    await page.getByLabel("Pressing speed").fill("10");
+    await page.getByText("Pump choice").click();
+    await page.getByRole("radio", { name: /^Double \(high-low\)/ }).check();
+    await page.getByRole("button", { name: "Size the circuit" }).click();
+    await page.waitForURL(/pressSpeedMmS=10/);
+    expect(await page.locator("#req-pressSpeedMmS-error").count()).toBe(0);
+    expect(await diagram(page).count()).toBe(1);
+    expect(page.url()).toContain("pumpType=double");
+    await context.close();
+  });
+
   it("marks a bad answer beside its field and keeps the last circuit", async () => {
     const page = await app.newPage();
     await page.goto("/quick-sizing");

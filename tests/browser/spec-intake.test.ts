@@ -61,6 +61,9 @@ describe("spec intake", () => {
     await page.getByLabel("Title").fill("Scissor lift, main cylinder");
     await page.getByLabel("Vertical").check();
     await page.getByRole("radio", { name: /^Up/ }).check();
+    // The body's mounting is a refinement behind a disclosure; a trunnion-mounted lift.
+    await page.getByText("More about the mounting").click();
+    await page.getByLabel("How the cylinder body is fixed").selectOption("trunnion");
     await shot(page, "1-machine");
     await next(page, "motion");
 
@@ -74,11 +77,15 @@ describe("spec intake", () => {
     await page.getByLabel("Moving mass", { exact: true }).fill("9000");
     await expect.poll(() => preview.getByRole("img").innerHTML(), { timeout: 8_000 }).not.toBe(first);
     expect(await preview.getByRole("img").innerHTML()).toContain("psi");
+    // The lift stops more gently than it starts.
+    await page.getByText("More about the motion").click();
+    await page.getByLabel("Time to stop").fill("0.5");
     await shot(page, "2-motion");
     await next(page, "duty");
 
     await page.getByLabel("Cycles per hour").fill("12");
     await page.getByLabel("Hours of work per day").fill("8");
+    await page.getByLabel("Time the load is held at rest").fill("20");
     await page.getByLabel("60 Hz").check().catch(async () => page.getByLabel("Mains frequency").selectOption("60"));
     await page.getByLabel("Mains voltage").selectOption("480 V three-phase");
     await shot(page, "3-duty");
@@ -99,6 +106,14 @@ describe("spec intake", () => {
 
     await expect.poll(() => page.getByText("Before anyone builds this").count()).toBe(1);
     expect(await page.getByRole("link", { name: "lift-layout.pdf" }).count()).toBe(1);
+    // Every answer reads in words with its unit: choices by their labels, blanks by their meaning.
+    const answer = (label: string) => page.locator("dt", { hasText: new RegExp(`^${label}$`) }).locator("xpath=following-sibling::dd[1]");
+    expect(await answer("How the cylinder body is fixed").innerText()).toBe("Trunnion");
+    expect(await answer("Mains frequency").innerText()).toBe("60 Hz");
+    expect(await answer("Time to stop").innerText()).toBe("0.5 s");
+    expect(await answer("Time the load is held at rest").innerText()).toBe("20 min");
+    expect(await answer("Pump").innerText()).toBe("Let the sizing choose");
+    expect(await answer("Stroke").innerText()).toBe("30 in");
     await shot(page, "5-review");
     await page.getByLabel(/I have read the cautions/).check();
     await page.getByRole("button", { name: "Publish for bids" }).click();
@@ -109,7 +124,8 @@ describe("spec intake", () => {
     const spec = await Spec.findOne({ where: { title: "Scissor lift, main cylinder" }, rejectOnEmpty: true });
     expect(spec.status).toBe("open");
     const revision = await SpecRevision.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
-    const requirements = revision.axes[0].requirements as { strokeMm: number; massKg: number; supplyHz: number };
+    const requirements = revision.axes[0].requirements as { strokeMm: number; massKg: number; supplyHz: number; holdMinutes: number; decelTimeS: number; mountingStyle: string };
+    expect(requirements).toMatchObject({ holdMinutes: 20, decelTimeS: 0.5, mountingStyle: "trunnion" });
     expect(requirements.strokeMm).toBeCloseTo(762, 0); // 30 in × 25.4 mm/in
     expect(requirements.massKg).toBeCloseTo(4082, 0); // 9000 lb × 0.45359237 kg/lb
     expect(requirements.supplyHz).toBe(60);

@@ -232,6 +232,14 @@ describe("bill of materials", () => {
     expect(rowValues(own, rowOf(own, "Friction of the guides"), 5)).toEqual(["Friction of the guides", 0.1, "", 0.1, ""]);
     // A vertical axis's rod direction does not apply to a horizontal one.
     expect(() => rowOf(own, "Rod moves when extending")).toThrow();
+    // The questions of sizing contract 2, left blank: each listed by what blank meant, with its unit.
+    expect(rowValues(own, rowOf(own, "Dwell at force"), 5)).toEqual(["Dwell at force", "(default)", "s", 0, "s"]);
+    expect(rowValues(own, rowOf(own, "Time the load is held at rest"), 5)).toEqual(["Time the load is held at rest", "(default)", "min", 0, "min"]);
+    expect(rowValues(own, rowOf(own, "Time to stop"), 5)).toEqual(["Time to stop", "Same as the time to reach speed", "s", 0.2, "s"]);
+    expect(rowValues(own, rowOf(own, "Pump"), 3)).toEqual(["Pump", "Let the sizing choose", ""]);
+    expect(rowValues(own, rowOf(own, "How the cylinder body is fixed"), 2)).toEqual(["How the cylinder body is fixed", "Not known yet"]);
+    // No pressing stroke, so no pressing speed.
+    expect(() => rowOf(own, "Pressing speed")).toThrow();
     const other = rowOf(own, "Other answers");
     expect(own.getCell(rowOf(own, "Supply voltage"), 2).text).toBe("400 V three-phase");
     expect(own.getCell(rowOf(own, "Retainer share"), 2).text).toBe("12.5 %");

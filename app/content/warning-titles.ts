@@ -25,6 +25,7 @@ const TITLES: Partial<Record<WarningCode, string>> = {
   PISTON_SPEED_HIGH: "Piston faster than standard seals allow",
   CUSHION_PRESSURE_HIGH: "Stroke-end cushion above the cylinder's rating",
   DECOMPRESSION_NEEDED: "Oil must be decompressed before the return stroke",
+  PUMP_TYPE_NOT_SUITED: "The pump you asked for does not suit this axis",
 };
 
 /** The title of a warning; a code without one yet still reads as a sentence, never as a code. */

@@ -78,6 +78,12 @@ export const ASSUMPTIONS = {
 
   rmsCycleLimitS: a(300, "s", "RMS motor loading holds for duty cycles shorter than about 5 minutes; trade-magazine article on motor sizing for peak loads [S]"),
   motorPeakSeconds: a(15, "s", "induction motors carry 60 % excess torque for 15 s (IEC 60034-1, from memory [M])"),
+  unloadingMarginRatio: a(0.15, "-", "unloading valve of a high-low pump set 10–20 % above the highest pressure both sections must deliver at; common practice [CP]"),
+  unloadingMarginMinBar: a(10, "bar", "and at least 10 bar above it; common practice [CP]"),
+  unloadingBelowPressRatio: a(0.8, "-", "unloading setting kept clearly below the pressing pressure (at most 80 % of it, our convention), or the large section would unload too late"),
+  unloadedDropBar: a(5, "bar", "pressure across an open unloading valve and the tank line, typically 3–7 bar; a trade text cites a 70 psi (4.8 bar) vented dump [S]/[CP]"),
+  twoSpeedFlowRatio: a(3, "-", "fast-to-pressing flow ratio from which one pump for the fast flow at pressing pressure clearly over-sizes the motor (our convention, following the high-low pump argument in trade-press pump articles)"),
+  compensatorLeakShare: a(0.05, "-", "standby leakage of a compensated pump ≈ (1 − η_v)·Q_max, a first estimate from memory [M]"),
   motorPeakRatio: a(1.5, "× rating", "a short peak kept below 1.5 × the rated power, from the 1.6 × of IEC 60034-1 with margin [M]/[D]"),
 
   // Pump speed check

@@ -39,11 +39,7 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
   const pressureHose = `rated for at least ${relief} bar working pressure with the burst margin its standard requires`;
 
   const bom: BomLine[] = [
-    {
-      key: "pump", item: "Fixed-displacement pump", quantity: 1,
-      specification: `${num(d.pump.displacementCcRev, 2)} cm³/rev (ISO 3662 series), ${d.pump.speedRpm} rpm, delivers ${pumpLpm} L/min, rated for at least ${relief} bar`,
-      rating: { value: d.pump.displacementCcRev, unit: "cm³/rev", label: "displacement" },
-    },
+    pumpLine(d, pumpLpm, relief),
     {
       key: "motor", item: "Electric motor, 4-pole, foot/flange", quantity: 1,
       specification: `${motorKw} kW (IEC 60072-1 rating)${d.motor.frame ? `, frame ${d.motor.frame}` : ""}, ${d.requirements.supplyHz} Hz, about ${d.pump.speedRpm} rpm`,
@@ -150,5 +146,45 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
       rating: { value: fillL, unit: "L", label: "volume" },
     },
   );
+  if (d.pump.type === "double" && d.pump.unloadingBar !== undefined) {
+    const [large] = d.pump.displacementsCcRev;
+    const largeLpm = (large * d.pump.speedRpm * d.pump.volumetricEfficiency) / 1000;
+    bom.push(
+      {
+        key: "unloading-valve", item: "Unloading valve, externally piloted from the system line", quantity: 1,
+        specification: `on the large pump section's outlet, set to ${num(d.pump.unloadingBar)} bar, dumps ${num(largeLpm)} L/min to tank at about ${num(d.pump.unloadedDropBar ?? 0)} bar once the pressing pressure builds`,
+        rating: { value: d.pump.unloadingBar, unit: "bar", label: "setting" },
+      },
+      {
+        key: "pump-check-valve", item: "Check valve, large pump section to system", quantity: 1,
+        specification: `passes ${num(largeLpm)} L/min into the system line and keeps the small section's flow from escaping through the unloading valve; rated for at least ${relief} bar`,
+        rating: { value: largeLpm, unit: "L/min", label: "flow" },
+      },
+    );
+  }
   return bom;
+}
+
+/** The pump line names the kind of pump and every setting a shop must quote it with. */
+function pumpLine(d: Design, pumpLpm: string, relief: number): BomLine {
+  const p = d.pump;
+  const rating = { value: p.displacementCcRev, unit: "cm³/rev", label: "displacement" };
+  if (p.type === "double") {
+    const [large, small] = p.displacementsCcRev;
+    return {
+      key: "pump", item: "Double (high-low) pump", quantity: 1, rating,
+      specification: `large section ${num(large, 2)} and small section ${num(small, 2)} cm³/rev on one shaft, ${p.speedRpm} rpm, together ${pumpLpm} L/min; the small section rated for at least ${relief} bar, the large one for at least ${num(p.unloadingBar ?? 0)} bar`,
+    };
+  }
+  if (p.type === "compensated") {
+    const limiter = p.powerLimitKw !== undefined ? `, power limiter set to ${num(p.powerLimitKw, 2)} kW shaft power` : "";
+    return {
+      key: "pump", item: "Pressure-compensated variable-displacement pump", quantity: 1, rating,
+      specification: `${num(p.displacementCcRev, 2)} cm³/rev at full stroke, ${p.speedRpm} rpm, up to ${pumpLpm} L/min, compensator set to ${num(p.compensatorBar ?? 0)} bar${limiter}, rated for at least ${relief} bar`,
+    };
+  }
+  return {
+    key: "pump", item: "Fixed-displacement pump", quantity: 1, rating,
+    specification: `${num(p.displacementCcRev, 2)} cm³/rev (ISO 3662 series), ${p.speedRpm} rpm, delivers ${pumpLpm} L/min, rated for at least ${relief} bar`,
+  };
 }

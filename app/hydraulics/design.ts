@@ -4,6 +4,7 @@
  */
 import type { Cushioning } from "./cushioning";
 import type { Decompression } from "./decompression";
+import type { PumpType } from "./pump-choice";
 import type { HoldingDesign } from "./holding";
 import type { LineSizing } from "./lines";
 import type { Requirements } from "./requirements";
@@ -168,10 +169,17 @@ export interface Design {
   flowsLpm: { extend: number; retract: number; pump: number; returnMax: number; press?: number };
   speedsMmS: { extendRequested: number; retractRequested: number; extendActual: number; retractActual: number };
   pump: {
-    /** this engine version sizes fixed-displacement pumps; double and compensated follow */
-    type: "fixed";
+    type: PumpType;
+    /** double pump: pressure at which the large section unloads, and the drop across it then */
+    unloadingBar?: number;
+    unloadedDropBar?: number;
+    /** compensated pump: compensator setting, and the power limiter's setting where fitted */
+    compensatorBar?: number;
+    powerLimitKw?: number;
+    /** why this pump, in words */
+    reason: string;
     displacementCcRev: number;
-    /** each section's displacement: one for a fixed pump */
+    /** each section's displacement, the large section first for a double pump */
     displacementsCcRev: number[];
     speedRpm: number;
     requiredDisplacementCcRev: number;
@@ -190,6 +198,8 @@ export interface Design {
     peakKw: number;
     /** RMS shaft power over the cycle where the cycle is short enough for it (≤ 5 min, peaks ≤ 15 s); else null and the motor covers the peak */
     rmsKw: number | null;
+    /** shaft power the chosen pump draws in each phase of the cycle, with its duration */
+    phases: { name: string; kw: number; durationS: number }[];
   };
   counterbalance: Counterbalance | null;
   /** leak-tight holding where the load is held at rest longer than a few minutes */

@@ -126,13 +126,27 @@ export function explain(
   t.add("drive speed", d.pump.speedRpm, "rpm", "4-pole motor: n_s = 120·f/p less slip",
     { f: v(r.supplyHz, "Hz"), p: v(A.motorPoles.value, "poles"), n_s: v((120 * r.supplyHz) / A.motorPoles.value, "rpm") },
     "synchronous speed, electrical-machines textbooks [D]; 1450/1750 rpm nominal common practice [CP]");
-  t.add("pump type", d.pump.type, "-",
-    r.pumpType === "fixed"
-      ? "fixed displacement, as asked"
-      : r.pumpType
-        ? `fixed displacement: the ${r.pumpType} pump asked for is not sized by this engine version (see the warnings)`
-        : "fixed displacement: simple and cheap, one flow at any pressure; the only type this engine version sizes",
-    { pumpType: v(r.pumpType ?? "not given", "-") }, "common practice [CP]");
+  t.add("pump type", d.pump.type, "-", d.pump.reason,
+    { pumpType: v(r.pumpType ?? "not given", "-"), Q_p: vQp, Q_press: v(d.flowsLpm.press ?? "no pressing stroke", "L/min") },
+    "high-low pumps for a fast approach and slow feed, unloading valves and pressure-compensated pumps: trade-press hydraulics texts [S]; the choice rule is common practice [CP]");
+  if (d.pump.type === "double" && d.pump.unloadingBar !== undefined) {
+    const [large, small] = d.pump.displacementsCcRev;
+    t.add("small pump section", small, "cm³/rev", "next size for the pressing flow: V_S ≥ 1000·Q_press/(n·η_v)",
+      { Q_press: v(d.flowsLpm.press ?? 0, "L/min"), n: v(d.pump.speedRpm, "rpm") }, "Q_S ≥ Q_press, continuity [D]; ISO 3662 R10 series [M]");
+    t.add("large pump section", large, "cm³/rev", "V_L = V_total − V_S: both sections together give the fast flow",
+      { V_total: v(d.pump.displacementCcRev, "cm³/rev"), V_S: v(small, "cm³/rev") }, "Q_L + Q_S ≥ Q_fast, continuity [D]; take the maker's nearest section at or above it");
+    t.add("unloading valve setting", d.pump.unloadingBar, "bar", "p_u = max(1.15 × p_fast, p_fast + 10 bar), rounded up to 5 bar, and at most 0.8 × the pressing pressure",
+      { p_approach: v(d.pressuresBar.approach ?? d.pressuresBar.extendMoving, "bar"), p_retract: v(d.pressuresBar.retract, "bar"), p_press: v(d.pressuresBar.press ?? 0, "bar") },
+      "unloading valve above the fast-motion pressure and clearly below the pressing pressure, common practice [CP]");
+  }
+  if (d.pump.type === "compensated" && d.pump.compensatorBar !== undefined) {
+    t.add("compensator setting", d.pump.compensatorBar, "bar", "p_c ≥ the highest working pressure with line losses, rounded up to 5 bar; the relief sits about 10 % above",
+      { p_working: v(d.cylinder.workingPressureBar, "bar"), p_relief: vRelief }, "compensator somewhat above the heaviest load's pressure: trade-press pump article [S]; 10 % relief margin on a maker's page [CP]");
+    if (d.pump.powerLimitKw !== undefined) {
+      t.add("power limiter setting", d.pump.powerLimitKw, "kW", "the highest shaft power any phase draws: high flow and high pressure never meet, so the limiter keeps the pump off its corner p_c·Q_max",
+        { p_c: v(d.pump.compensatorBar, "bar"), Q_max: vQp }, "horsepower- and torque-limiting pumps: trade-press pump chapters [S]");
+    }
+  }
   t.add("pump displacement needed", d.pump.requiredDisplacementCcRev, "cm³/rev", "V = 1000·max(Q_ext, Q_ret) / (n·η_v)",
     { Q: v(ev.pumpRequiredLpm, "L/min"), n: v(d.pump.speedRpm, "rpm"), η_v: v(d.pump.volumetricEfficiency, "-") },
     "pump flow relation (Esposito) [M]; fixed pump serves the larger stroke flow");
@@ -222,7 +236,8 @@ export function explain(
     rodCbv ? "piston force balance with the CBV balance p2 = p_set − R·p1 [D]" : TEXTBOOK_CYL);
   t.add("extend pump pressure while moving", ev.extendMovingBar, "bar", "p = p1 + supply losses",
     { p1: v(ev.extendInletBar, "bar"), losses: v(ev.extendSupplyLossBar, "bar") }, "[D]");
-  t.add("extend pump pressure while pressing", ev.extendPressBar, "bar", "p = 10·F_press/(η·A1) at standstill (no flow losses)",
+  t.add("extend pump pressure while pressing", ev.extendPressBar, "bar",
+    ev.flowPressLpm !== null ? "p = 10·F_press/(η·A1) + losses at the pressing flow" : "p = 10·F_press/(η·A1) at standstill (no flow losses)",
     { F_press: v(L.extendPressN, "N"), η: vEta, A1: vA1 }, TEXTBOOK_CYL);
   t.add("extend pump pressure", d.pressuresBar.extend, "bar", "larger of moving and pressing",
     { moving: v(ev.extendMovingBar, "bar"), pressing: v(ev.extendPressBar, "bar") }, "[D]");
@@ -289,11 +304,15 @@ export function explain(
   const m = d.motor;
   const onRelief = extra.pumpOnRelief;
   t.add("motor sizing pressure", m.sizingPressureBar, "bar",
-    m.sizedAtRelief ? MOTOR_AT_RELIEF_FORCE : onRelief ? MOTOR_AT_RELIEF : vent ? MOTOR_AT_WORKING_VENTED : MOTOR_AT_WORKING,
+    d.pump.type === "double"
+      ? "pressure of the phase that draws most: both sections just before the large one unloads (p_u), or the small one over the relief while pressing"
+      : d.pump.type === "compensated"
+        ? "pressure of the phase that draws most power from the compensated pump"
+        : m.sizedAtRelief ? MOTOR_AT_RELIEF_FORCE : onRelief ? MOTOR_AT_RELIEF : vent ? MOTOR_AT_WORKING_VENTED : MOTOR_AT_WORKING,
     { p_working: v(c.workingPressureBar, "bar"), p_relief: vRelief, p_neutral: v(h.neutralPressureBar, "bar"), F_process: v(r.processForceN, "N"), dwell: v(r.dwellS, "s") },
     "a fixed pump delivers its flow at whatever pressure the circuit reaches, up to the relief setting: textbook pump-circuit behaviour (Esposito) [M]; trade-press pump articles [S]");
-  t.add("motor peak power", m.peakKw, "kW", "P_peak = p·Q_p / (600·η_overall) at the sizing pressure",
-    { p: v(m.sizingPressureBar, "bar"), Q_p: vQp, η_overall: v(d.pump.overallEfficiency, "-") }, "hydraulic power (Esposito) [M]; P = p·Q/600 [D]");
+  t.add("motor peak power", m.peakKw, "kW", "P_peak = highest phase power the chosen pump draws, p·Q / (600·η_overall)",
+    { ...Object.fromEntries(m.phases.map((ph) => [`P_${ph.name}`, v(ph.kw, "kW")])), p: v(m.sizingPressureBar, "bar"), Q_p: vQp, η_overall: v(d.pump.overallEfficiency, "-") }, "hydraulic power (Esposito) [M]; P = p·Q/600 [D]");
   t.add("motor power needed", m.requiredKw, "kW",
     m.rmsKw !== null
       ? "P = max(P_rms, P_peak / 1.5, every phase longer than 15 s), P_rms = √(Σ P_i²·t_i / T) over extend, retract, dwell and neutral: a cycle under 5 min"
@@ -324,7 +343,10 @@ export function explain(
       { F: v(L.extendPressN, "N"), A1: vA1, Q: v(d.flowsLpm.press, "L/min") }, "force balance on the piston (Esposito) [M]; losses by Darcy–Weisbach [D]");
     t.add("share of time pressing", h.pressShare, "-", "cycles/h · pressing stroke / v_press / 3600",
       { cycles: v(r.cyclesPerHour, "1/h"), t_press: v(extra.duty.pressS, "s"), pressing_stroke: v(r.pressStrokeMm, "mm") }, "[D]");
-    t.add("heat while pressing", h.pressLossKw, "kW", "P = p_relief·Q_p/(600·η) − F_press·v_press: a fixed pump sits at the relief and its surplus flow crosses it",
+    t.add("heat while pressing", h.pressLossKw, "kW",
+      d.pump.type === "fixed"
+        ? "P = p_relief·Q_p/(600·η) − F_press·v_press: a fixed pump sits at the relief and its surplus flow crosses it"
+        : "P = the chosen pump's power while pressing / η − F_press·v_press",
       { p_relief: vRelief, Q_p: vQp, F_press: v(L.extendPressN, "N"), v_press: vPress }, "energy balance [D]; fixed-pump behaviour, trade-press pump articles [S]");
   }
   t.add("share of time retracting", h.retractShare, "-", "cycles/h · stroke / v_actual / 3600",
@@ -339,7 +361,12 @@ export function explain(
     vent ? NEUTRAL_VENTED_SOURCE : "P = p·Q/600 [D]");
   t.add("share of time dwelling at force", h.dwellShare, "-", "cycles/h · dwell / 3600",
     { cycles: v(r.cyclesPerHour, "1/h"), dwell: v(r.dwellS, "s") }, "[D]");
-  t.add("heat while dwelling", h.dwellLossKw, "kW", "P = p_relief·Q_p / (600·η): the rod does no work, the whole flow crosses the relief and all input power becomes heat",
+  t.add("heat while dwelling", h.dwellLossKw, "kW",
+    d.pump.type === "double"
+      ? "P = (p_relief·Q_S + Δp_u·Q_L) / (600·η): the small section crosses the relief, the large one is unloaded; the rod does no work"
+      : d.pump.type === "compensated"
+        ? "P = p_c·Q_leak / (600·η): the compensated pump holds its setting and delivers only its leakage, Q_leak ≈ (1 − η_v)·Q_max [M]"
+        : "P = p_relief·Q_p / (600·η): the rod does no work, the whole flow crosses the relief and all input power becomes heat",
     { p_relief: vRelief, Q_p: vQp, η: v(d.pump.overallEfficiency, "-") }, "energy balance [D]; P = p·Q/600 [D]");
   t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over approach, pressing, retract, dwell and neutral",
     { extend: v(h.extendLossKw, "kW"), retract: v(h.retractLossKw, "kW"), dwell: v(h.dwellLossKw, "kW"), neutral: v(h.neutralLossKw, "kW"), dwell_share: v(h.dwellShare, "-"), neutral_share: v(h.neutralShare, "-") }, "duty-cycle average [D]");

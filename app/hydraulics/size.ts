@@ -13,6 +13,7 @@ import { holdingFor } from "./holding";
 import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
 import { lineLossBar, sizeLine } from "./lines";
+import { choosePump } from "./pump-choice";
 import { hydraulicPowerKw, selectMotorKw } from "./pump-motor";
 import type { Requirements } from "./requirements";
 import { cylinderDrawL, dutyShares, reservoirVolumeL, strokeHeatKw, tankDissipationKw, tankSurfaceM2 } from "./reservoir-heat";
@@ -21,7 +22,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.8.0";
+export const ENGINE_VERSION = "2.9.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -117,8 +118,27 @@ export function sizeCircuitParsed(req: Requirements): Design {
   // Pressing at the end of the stroke, and any dwell, stall the cylinder with the valve shifted:
   // a fixed pump then delivers its whole flow over the relief, at the relief setting.
   const pumpOnReliefAtForce = req.processForceN > 0 || req.dwellS > 0;
-  const motorSizingBar = Math.max(pumpOnReliefAtForce ? ev.reliefBar : ev.workingBar, neutralBar);
-  const peakKw = hydraulicPowerKw(motorSizingBar, qp) / etaO;
+  const pump = choosePump({
+    approachBar: ev.extendMovingBar, retractBar: ev.retractBar,
+    press: ev.flowPressLpm !== null ? { bar: ev.extendPressBar, flowLpm: ev.flowPressLpm } : null,
+    reliefBar: ev.reliefBar, workingBar: ev.workingBar, displacementCc: ev.displacementCc, pumpFlowLpm: qp, speedRpm: ctx.speedRpm,
+  }, req.pumpType);
+  const pk = pump.hydraulicKw;
+  // The highest power the chosen pump draws, with the pressure it draws it at. A fixed pump
+  // reaching the end-of-stroke force sits at the relief (version-1 behaviour kept).
+  const endForceBar = pump.type === "fixed" ? (pumpOnReliefAtForce ? ev.reliefBar : ev.extendPressBar) : 0;
+  const peakCandidates: { kw: number; bar: number }[] = [
+    { kw: pk.approach, bar: ev.extendMovingBar },
+    { kw: pk.retract, bar: ev.retractBar },
+    { kw: pk.press, bar: pump.type === "compensated" ? pump.compensatorBar! : ev.reliefBar },
+    { kw: req.dwellS > 0 ? pk.dwell : 0, bar: pump.type === "compensated" ? pump.compensatorBar! : ev.reliefBar },
+    { kw: pk.unloadingPeak, bar: pump.unloadingBar ?? pump.compensatorBar ?? 0 },
+    { kw: hydraulicPowerKw(endForceBar, qp), bar: endForceBar },
+    { kw: hydraulicPowerKw(neutralBar, qp), bar: neutralBar },
+  ];
+  const governing = peakCandidates.reduce((a, b) => (b.kw > a.kw ? b : a));
+  const motorSizingBar = governing.bar;
+  const peakKw = governing.kw / etaO;
 
   // Reservoir and heat
   const drawL = cylinderDrawL(cyl.capAreaMm2, cyl.annulusAreaMm2, req.strokeMm);
@@ -130,10 +150,10 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const extendLossKw = strokeHeatKw(hydraulicPowerKw(ev.extendSteadyBar, qp) / etaO, ev.extend.steadyN, ev.extendActualMmS);
   const retractLossKw = strokeHeatKw(hydraulicPowerKw(ev.retractSteadyBar, qp) / etaO, ev.retract.steadyN, ev.retractActualMmS);
   // Dwell: the rod does no work and the whole flow crosses the relief, so all input power is heat.
-  const dwellLossKw = hydraulicPowerKw(ev.reliefBar, qp) / etaO;
-  // Pressing: the fixed pump sits at the relief and only the pressing flow moves the rod; the
-  // surplus crosses the relief, so the heat is the input power less the work on the process force.
-  const pressLossKw = press ? strokeHeatKw(hydraulicPowerKw(ev.reliefBar, qp) / etaO, ev.pressN, press.speedMmS) : 0;
+  const dwellLossKw = pk.dwell / etaO;
+  // Pressing: the heat is what the chosen pump draws less the work on the process force (a fixed
+  // pump sits at the relief and its surplus crosses it).
+  const pressLossKw = press ? strokeHeatKw(pk.press / etaO, ev.pressN, press.speedMmS) : 0;
   const neutralLossKw = hydraulicPowerKw(neutralBar, qp) / etaO;
   const averageLossKw =
     duty.extendShare * extendLossKw + duty.pressShare * pressLossKw + duty.retractShare * retractLossKw + duty.dwellShare * dwellLossKw + duty.neutralShare * neutralLossKw;
@@ -145,11 +165,11 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const cycleS = req.cyclesPerHour > 0 ? 3600 / req.cyclesPerHour : Number.POSITIVE_INFINITY;
   const rmsValid = cycleS <= A.rmsCycleLimitS.value;
   const phases = [
-    { kw: shaftKw(ev.extendMovingBar), share: duty.extendShare, s: duty.extendS },
-    { kw: shaftKw(ev.reliefBar), share: duty.pressShare, s: duty.pressS },
-    { kw: shaftKw(ev.retractBar), share: duty.retractShare, s: duty.retractS },
-    { kw: shaftKw(ev.reliefBar), share: duty.dwellShare, s: req.dwellS },
-    { kw: shaftKw(neutralBar), share: duty.neutralShare, s: Number.POSITIVE_INFINITY },
+    { name: "approach", kw: pk.approach / etaO, share: duty.extendShare, s: duty.extendS },
+    { name: "pressing", kw: pk.press / etaO, share: duty.pressShare, s: duty.pressS },
+    { name: "retract", kw: pk.retract / etaO, share: duty.retractShare, s: duty.retractS },
+    { name: "dwell", kw: pk.dwell / etaO, share: duty.dwellShare, s: req.dwellS },
+    { name: "neutral", kw: shaftKw(neutralBar), share: duty.neutralShare, s: Number.POSITIVE_INFINITY },
   ];
   const rmsKw = Math.sqrt(phases.reduce((sum, ph) => sum + ph.share * ph.kw * ph.kw, 0));
   // A phase longer than the motor's short-overload time must be carried at its rating.
@@ -231,9 +251,13 @@ export function sizeCircuitParsed(req: Requirements): Design {
       retractActual: ev.retractActualMmS,
     },
     pump: {
-      type: "fixed",
+      type: pump.type,
       displacementCcRev: ev.displacementCc,
-      displacementsCcRev: [ev.displacementCc],
+      displacementsCcRev: pump.displacementsCcRev,
+      ...(pump.unloadingBar !== null ? { unloadingBar: pump.unloadingBar, unloadedDropBar: A.unloadedDropBar.value } : {}),
+      ...(pump.compensatorBar !== null ? { compensatorBar: pump.compensatorBar } : {}),
+      ...(pump.powerLimitKw !== null ? { powerLimitKw: pump.powerLimitKw } : {}),
+      reason: pump.reason,
       speedRpm: ctx.speedRpm,
       requiredDisplacementCcRev: ev.requiredDisplacementCc,
       volumetricEfficiency: A.volumetricEfficiency.value,
@@ -244,6 +268,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
       sizedAtRelief: pumpOnReliefAtForce,
       peakKw,
       rmsKw: rmsValid ? rmsKw : null,
+      phases: phases.filter((ph) => ph.name !== "neutral").map((ph) => ({ name: ph.name, kw: ph.kw, durationS: ph.s })),
     },
     counterbalance: cbv && ctx.pilot
       ? {
@@ -315,18 +340,6 @@ const VENTED_NOTE =
   `P is blocked in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever solenoid a or b is on, or the axis cannot build pressure. De-energised (neutral, or a control fault) the pump circulates at about ${A.ventPressureBar.value} bar.`;
 const VENTED_NOTE_CBV = `${VENTED_NOTE} The counterbalance valve still holds the load then.`;
 const LINE_NAMES = ["pressure", "return", "suction", "capWork", "rodWork"] as const;
-
-/**
- * Version-2 answers the engine accepts but does not size yet, each with what it does instead,
- * so no answer is silently dropped.
- */
-function notYetSized(r: Requirements): string[] {
-  const out: string[] = [];
-  if (r.pumpType !== undefined && r.pumpType !== "fixed") {
-    out.push(`the ${r.pumpType === "double" ? "double (high-low)" : "pressure-compensated"} pump asked for: a fixed pump is sized instead, which is larger in motor and heat where fast motion and high force never meet`);
-  }
-  return out;
-}
 
 function addWarnings(
   d: Design,
@@ -417,10 +430,8 @@ function addWarnings(
     w.add("PIVOTED_BODY_FREE_ROD",
       `A cylinder held by a ${d.requirements.mountingStyle} pivot with a free, unguided rod end is a mechanism, not a column: it folds at the pivot under any push. Guide the rod end, or hold the body by a flange or feet.`);
   }
-  const later = notYetSized(d.requirements);
-  if (later.length > 0) {
-    w.add("REQUIREMENT_NOT_YET_SIZED",
-      `This version of the sizing does not yet use: ${later.join("; ")}. Treat those parts of the design as provisional and tell the shop.`);
+  if (d.requirements.pumpType !== undefined && d.requirements.pumpType !== d.pump.type) {
+    w.add("PUMP_TYPE_NOT_SUITED", `The pump asked for is not sized: ${d.pump.reason}.`);
   }
   if (d.heat.coolerKw > 0) {
     w.add("HEAT_COOLER_NEEDED",

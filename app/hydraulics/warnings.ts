@@ -16,7 +16,7 @@ export const WARNING_CODES = [
   "MOTOR_BEYOND_SERIES",
   "DUTY_CYCLE_OVERLOAD",
   "CBV_SETTING_LOW",
-  /** an answer of contract version 2 that this engine version accepts but does not size yet */
+  /** an answer of contract version 2 an earlier engine accepted but did not size (engines 1.2–2.8); kept for stored designs */
   "REQUIREMENT_NOT_YET_SIZED",
   /** nothing in the series meets the pressures: carried by NotSizableError, never in a design */
   "NO_CYLINDER_MEETS_PRESSURE",
@@ -30,6 +30,8 @@ export const WARNING_CODES = [
   "CUSHION_PRESSURE_HIGH",
   /** the cap end's compressed oil asks for a controlled release before the return */
   "DECOMPRESSION_NEEDED",
+  /** the pump type asked for cannot work on this axis; another is sized and the message says why */
+  "PUMP_TYPE_NOT_SUITED",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

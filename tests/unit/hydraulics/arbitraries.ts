@@ -37,3 +37,12 @@ export const requirementsArb: fc.Arbitrary<RequirementsInput> = fc
     if (r.mountingStyle === undefined) delete out.mountingStyle;
     return out;
   });
+
+/** Axes with a pressing stroke: a share of the stroke at a share of the approach speed, any pump. */
+export const pressAxisArb: fc.Arbitrary<RequirementsInput> = fc
+  .tuple(requirementsArb, num(0.01, 1), num(0.01, 1), fc.constantFrom(undefined, "fixed", "double", "compensated"))
+  .map(([r, strokeShare, speedShare, pumpType]) => {
+    const out: RequirementsInput = { ...r, pressStrokeMm: r.strokeMm * strokeShare, pressSpeedMmS: r.extendSpeedMmS * speedShare };
+    if (pumpType !== undefined) out.pumpType = pumpType as "fixed" | "double" | "compensated";
+    return out;
+  });

@@ -33,7 +33,8 @@ describe("worked example — the reference press axis with a 20 mm pressing stro
     orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
     mounting: "fixed-fixed", mountingStyle: "front-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
   } as const;
-  const d = sizeCircuit({ ...base, pressStrokeMm: 20, pressSpeedMmS: 10 });
+  // A fixed pump is asked for here; the pump choice has its own worked examples.
+  const d = sizeCircuit({ ...base, pressStrokeMm: 20, pressSpeedMmS: 10, pumpType: "fixed" });
   const v1 = sizeCircuit(base);
 
   it("chooses the 100 mm bore the pressing force needs (textbook F = η·p·A)", () => {

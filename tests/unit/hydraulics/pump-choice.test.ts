@@ -1,0 +1,181 @@
+/**
+ * Pump choice (engine 2.9): fixed, double (high-low) or pressure-compensated, and the motor on
+ * the highest phase power the chosen pump draws. Check values from the shared sources'
+ * reference press axis (100 mm bore, approach 94.25 L/min at 20 bar, pressing 4.71 L/min at
+ * 127.3 bar, relief 140.1 bar, η_overall 0.85), worked by hand; each step names its source.
+ */
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { NotSizableError, sizeCircuit, type Design, type RequirementsInput } from "~/hydraulics";
+import { choosePump, highLowPowerKw, unloadingSettingBar, type PhaseDemand } from "~/hydraulics/pump-choice";
+import { hydraulicPowerKw, selectMotorKw } from "~/hydraulics/pump-motor";
+import { pressAxisArb } from "./arbitraries";
+
+const ETA = 0.85; // overall pump efficiency, Esposito from memory [M]
+
+/** The reference axis as the pump sees it; the total displacement is the engine's next ISO 3662 size. */
+const REF: PhaseDemand = {
+  approachBar: 20, retractBar: 20, press: { bar: 127.3, flowLpm: 4.71 }, reliefBar: 140.1, workingBar: 127.3,
+  // 94.25 L/min at 1450 rpm and η_v 0.95 needs 68.4 cm³/rev → 80 cm³/rev, 110.2 L/min (Q = V·n·η_v [M]; ISO 3662 R10 [M])
+  displacementCc: 80, pumpFlowLpm: 110.2, speedRpm: 1450,
+};
+
+describe("one fixed pump over-sizes the motor of a two-speed press (trade-press pump articles)", () => {
+  it("needs 25.9 kW of shaft power and a 30 kW motor for 94.25 L/min over a 140.1 bar relief", () => {
+    // P_hyd = 140.1 · 94.25 / 600 = 22.0 kW; / 0.85 = 25.9 kW → IEC 60072-1 30 kW (shared check values)
+    expect(hydraulicPowerKw(140.1, 94.25)).toBeCloseTo(22.0, 1);
+    expect(hydraulicPowerKw(140.1, 94.25) / ETA).toBeCloseTo(25.9, 1);
+    expect(selectMotorKw(hydraulicPowerKw(140.1, 94.25) / ETA).ratedKw).toBe(30);
+    // Either phase alone: approach 20 · 94.25/600 = 3.14 kW, pressing 127.3 · 4.71/600 = 1.00 kW (shared check values)
+    expect(hydraulicPowerKw(20, 94.25)).toBeCloseTo(3.14, 2);
+    expect(hydraulicPowerKw(127.3, 4.71)).toBeCloseTo(1.0, 2);
+  });
+});
+
+describe("double (high-low) pump", () => {
+  it("draws 5.50 kW before unloading and 1.85 kW pressing: a 7.5 kW motor instead of 30 kW", () => {
+    // Q_S = 4.71, Q_L = 89.54 L/min, p_u = 35 bar, p_RV = 140.1 bar, Δp_u = 5 bar (shared check values):
+    // before unloading 94.25 · 35 / 600 = 5.50 kW; pressing 4.71 · 140.1/600 + 89.54 · 5/600 = 1.85 kW [D]
+    const p = highLowPowerKw(89.54, 4.71, 35, 140.1, 5);
+    expect(p.beforeUnloadingKw).toBeCloseTo(5.5, 2);
+    expect(p.atForceKw).toBeCloseTo(1.85, 2);
+    // shaft 5.50 / 0.85 = 6.47 kW → IEC 60072-1 7.5 kW (shared check value)
+    expect(selectMotorKw(p.beforeUnloadingKw / ETA).ratedKw).toBe(7.5);
+    // unloaded loss alone: 89.5 L/min at 5 bar = 0.75 kW (shared check value)
+    expect(hydraulicPowerKw(5, 89.5)).toBeCloseTo(0.75, 2);
+  });
+
+  it("sets the unloading valve 10–20 % and at least 10 bar above the fast-motion pressure (common practice)", () => {
+    // 20 bar: max(1.15 · 20 = 23, 20 + 10 = 30) = 30 bar; 100 bar: max(115, 110) = 115 bar; rounded up to 5 bar
+    expect(unloadingSettingBar(20)).toBe(30);
+    expect(unloadingSettingBar(100)).toBe(115);
+    // 41 bar: max(47.15, 51) = 51 → 55 bar
+    expect(unloadingSettingBar(41)).toBe(55);
+  });
+
+  it("is what the engine picks for the reference axis, with sections for the pressing and the fast flow", () => {
+    const c = choosePump(REF, undefined);
+    expect(c.type).toBe("double");
+    // fast flow 110.2 is 23.4 × the pressing flow 4.71, above the 3 × of our convention → high-low
+    expect(c.reason).toMatch(/23\.4 × the pressing flow/);
+    // small section: 4.71 L/min at 1450 rpm, η_v 0.95 needs 3.42 cm³/rev → 4 cm³/rev (ISO 3662 R10 [M])
+    // large section: 80 − 4 = 76 cm³/rev, the rest of the fast flow [D]
+    expect(c.displacementsCcRev).toEqual([76, 4]);
+    expect(c.unloadingBar).toBe(30);
+    // Q_S = 4 · 1450 · 0.95/1000 = 5.51 L/min, Q_L = 76 · 1.3775 = 104.69 L/min (Q = V·n·η_v [M])
+    // before unloading 30 · 110.2/600 = 5.51 kW; at force 140.1 · 5.51/600 + 104.69 · 5/600 = 2.159 kW [D]
+    expect(c.hydraulicKw.unloadingPeak).toBeCloseTo(5.51, 2);
+    expect(c.hydraulicKw.press).toBeCloseTo(2.159, 3);
+    expect(c.hydraulicKw.dwell).toBe(c.hydraulicKw.press);
+  });
+
+  it("falls back to a compensated pump when the unloading setting cannot sit clearly below the pressing pressure", () => {
+    // retract at 100 bar → p_u 115 bar > 0.8 · 127.3 = 101.8 bar (our convention): no high-low
+    const c = choosePump({ ...REF, retractBar: 100 }, undefined);
+    expect(c.type).toBe("compensated");
+    expect(c.reason).toMatch(/unloading valve/);
+  });
+});
+
+describe("pressure-compensated pump", () => {
+  it("without a limiter the corner p_c·Q_max sizes the motor: 22.0 kW, the same as one fixed pump", () => {
+    // p_c = 140 bar, 94.25 L/min: 140 · 94.25/600 = 22.0 kW hydraulic (shared check value)
+    const c = choosePump({ ...REF, workingBar: 140, pumpFlowLpm: 94.25, approachBar: 140, retractBar: 140 }, "compensated");
+    // approach at 140 bar already meets the corner: no limiter can help, so none is fitted
+    expect(c.powerLimitKw).toBeNull();
+    expect(Math.max(c.hydraulicKw.approach, c.hydraulicKw.unloadingPeak)).toBeCloseTo(22.0, 1);
+  });
+
+  it("with a limiter the motor follows the highest phase; standby at 140 bar costs 1.10 kW", () => {
+    const c = choosePump({ ...REF, workingBar: 140, pumpFlowLpm: 94.25 }, "compensated");
+    expect(c.compensatorBar).toBe(140);
+    // dwell: leakage ≈ (1 − η_v)·Q_max = 0.05 · 94.25 = 4.71 L/min at 140 bar → 1.10 kW (shared check value; leakage estimate from memory [M])
+    expect(c.hydraulicKw.dwell).toBeCloseTo(1.1, 2);
+    // pressing: the pump destrokes to the pressing flow at p_c: 140 · 4.71/600 = 1.099 kW [D]
+    expect(c.hydraulicKw.press).toBeCloseTo(1.099, 3);
+    // highest phase: approach 20 · 94.25/600 = 3.14 kW; limiter 3.14/0.85 = 3.70 kW shaft [D]
+    expect(c.powerLimitKw!).toBeCloseTo(3.14 / ETA, 2);
+    expect(c.hydraulicKw.unloadingPeak).toBe(0);
+  });
+});
+
+describe("the issue's 2 t platen hanging from the rod with 150 kN of pressing force", () => {
+  // Vertical, rod down, 2000 kg, 150 kN over the last 30 mm of a 500 mm stroke at 10 mm/s,
+  // fixed-fixed, 60 cycles/h. Engine 1 (one speed, one fixed pump): 45 kW, 172 L/min, 690 L.
+  const press = (approachMmS: number, pumpType?: "fixed" | "double" | "compensated") =>
+    sizeCircuit({
+      orientation: "vertical", rodDirection: "down", massKg: 2000, processForceN: 150_000, strokeMm: 500,
+      extendSpeedMmS: approachMmS, retractSpeedMmS: approachMmS, pressStrokeMm: 30, pressSpeedMmS: 10,
+      mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50, ...(pumpType ? { pumpType } : {}),
+    });
+
+  it("at a fast 200 mm/s approach the engine picks a double pump and a third of engine 1's motor", () => {
+    const fixedPump = press(200, "fixed");
+    const d = press(200);
+    expect(d.pump.type).toBe("double");
+    // fixed pump: peak 145 bar relief · 172.2 L/min / 600 / 0.85 = 48.96 kW, RMS rule → 37 kW (IEC 60072-1)
+    expect(fixedPump.motor.ratedKw).toBe(37);
+    // double: peak at p_u 50 bar (retract lifts the platen at 39.6 bar → max(45.5, 49.6) → 50 bar [CP])
+    // 50 · 172.2/600/0.85 = 16.88 kW; RMS 2.95 kW; peak/1.5 = 11.25 → 15 kW (IEC 60034-1 overload [M]; IEC 60072-1)
+    expect(d.pump.unloadingBar).toBe(50);
+    expect(d.motor.peakKw).toBeCloseTo(16.88, 2);
+    expect(d.motor.ratedKw).toBe(15); // 45 / 3
+    // the flow and tank follow the approach speed the buyer asked for: 172.2 L/min, 690 L (4 × Q_p + draw [CP])
+    expect(d.flowsLpm.pump).toBeCloseTo(172.2, 1);
+    expect(d.reservoir.volumeL).toBe(690);
+    // the bill prices the unloading and check valves (ISO 1219-1 symbols are still to come in the diagram)
+    expect(d.bom.map((l) => l.key)).toEqual(expect.arrayContaining(["unloading-valve", "pump-check-valve"]));
+    expect(d.bom.find((l) => l.key === "pump")!.item).toBe("Double (high-low) pump");
+  });
+
+  it("at a 100 mm/s approach, still fast for a press, flow and tank halve and the motor is a sixth", () => {
+    const d = press(100);
+    expect(d.pump.type).toBe("double");
+    // 125 bore · 100 mm/s = 73.6 L/min → 63 cm³/rev → 86.8 L/min (continuity [D]; ISO 3662 [M])
+    expect(d.flowsLpm.pump).toBeCloseTo(86.8, 1);
+    expect(d.reservoir.volumeL).toBe(350);
+    expect(d.motor.ratedKw).toBe(7.5);
+  });
+});
+
+/** The design, or null where nothing in the series meets the pressures. */
+function sized(req: RequirementsInput): Design | null {
+  try {
+    return sizeCircuit(req);
+  } catch (e) {
+    if (e instanceof NotSizableError) return null;
+    throw e;
+  }
+}
+
+describe("properties over random pressing axes", () => {
+  it("the motor covers every phase the chosen pump draws (IEC 60034-1 short overload [M])", () => {
+    fc.assert(
+      fc.property(pressAxisArb, (req) => {
+        const d = sized(req);
+        fc.pre(d !== null);
+        const m = d!.motor;
+        for (const ph of m.phases) {
+          // every phase within the short-peak limit, and long phases within the rating
+          expect(ph.kw).toBeLessThanOrEqual(m.peakKw + 1e-9);
+          if (m.rmsKw === null || ph.durationS > 15) expect(ph.kw).toBeLessThanOrEqual(m.ratedKw + 1e-9);
+          else expect(ph.kw).toBeLessThanOrEqual(1.5 * m.ratedKw + 1e-9);
+        }
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it("a slower approach never gives a larger pump (continuity)", () => {
+    fc.assert(
+      fc.property(pressAxisArb, fc.double({ min: 0.2, max: 1, noNaN: true }), (req, k) => {
+        const slower = { ...req, extendSpeedMmS: req.extendSpeedMmS * k, pressSpeedMmS: Math.min(req.pressSpeedMmS!, req.extendSpeedMmS * k) };
+        const a = sized(req);
+        const b = sized(slower);
+        fc.pre(a !== null && b !== null && a.cylinder.boreMm === b.cylinder.boreMm && a.cylinder.rodMm === b.cylinder.rodMm);
+        expect(b!.pump.displacementCcRev).toBeLessThanOrEqual(a!.pump.displacementCcRev + 1e-9);
+      }),
+      { numRuns: 200 },
+    );
+  });
+});

@@ -13,7 +13,8 @@ import { waitForMail } from "../support/mailbox";
 import { makeMember } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
-import { answerInWords, fieldApplies, requirementsInWords } from "~/content/requirement-fields";
+import { REQUIREMENT_FIELDS, answerInWords, fieldApplies, requirementsInWords } from "~/content/requirement-fields";
+import { ENGINE_KEYS_BY_STEP, FORM_STEPS } from "~/content/spec-steps";
 
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
@@ -308,6 +309,12 @@ describe("the axis questions of sizing contract 2", () => {
     // Without a pressing stroke a leftover pressing speed is neither judged nor kept.
     expect((await stepPost(visitor, id, "motion", { ...ANSWERS.motion, pressStrokeMm: "0", pressSpeedMmS: "fast" })).status).toBe(302);
     expect((await Spec.findByPk(id, { rejectOnEmpty: true })).answers.motion.pressSpeedMmS).toBe("");
+  });
+
+  it("asks every question the engine takes on exactly one step", () => {
+    const asked = FORM_STEPS.flatMap((s) => ENGINE_KEYS_BY_STEP[s]);
+    expect([...asked].sort()).toEqual(Object.keys(REQUIREMENT_FIELDS).sort());
+    expect(new Set(asked).size).toBe(asked.length);
   });
 
   it("reads choices back by the form's labels and numbers with their units", () => {

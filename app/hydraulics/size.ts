@@ -369,7 +369,7 @@ function addWarnings(
   const tol = 1 + A.speedTolerance.value;
   if (d.speedsMmS.extendActual > tol * d.speedsMmS.extendRequested || d.speedsMmS.retractActual > tol * d.speedsMmS.retractRequested) {
     w.add("PUMP_SPEED_MISMATCH",
-      `A fixed pump gives both strokes the same ${f1(d.flowsLpm.pump)} L/min, so the cylinder extends at ${Math.round(d.speedsMmS.extendActual)} mm/s (asked ${d.speedsMmS.extendRequested}) and retracts at ${Math.round(d.speedsMmS.retractActual)} mm/s (asked ${d.speedsMmS.retractRequested}). If an asked speed is a limit, a meter-in flow control on that stroke would hold it; its surplus flow would then cross the relief as heat, and neither is in this design.`);
+      `${d.pump.type === "fixed" ? "A fixed pump" : "At full delivery the pump"} gives both strokes the same ${f1(d.flowsLpm.pump)} L/min, so the cylinder extends at ${Math.round(d.speedsMmS.extendActual)} mm/s (asked ${d.speedsMmS.extendRequested}) and retracts at ${Math.round(d.speedsMmS.retractActual)} mm/s (asked ${d.speedsMmS.retractRequested}). If an asked speed is a limit, a meter-in flow control on that stroke would hold it; its surplus flow would then cross the relief as heat, and neither is in this design.`);
   }
   // Meter-out intensification (force balance p2 = φ·p1 + F/A3): any restriction in the rod-end line
   // while extending, a meter-out throttle or a blocked B line, drives the rod side towards φ × relief.

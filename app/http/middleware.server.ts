@@ -1,7 +1,6 @@
 // The root route's middleware: every request to every route (pages, their data requests,
 // actions, resource routes and the API) passes through these, in this order.
 import { data, type MiddlewareFunction } from "react-router";
-import { env } from "~/env.server";
 import { checkRequestBounds } from "./request-bounds.server";
 import { nonceContext } from "./request-context.server";
 import { checkSameOrigin } from "./same-origin.server";
@@ -17,7 +16,7 @@ function refuse(request: Request, status: number, message: string): Response {
 }
 
 export const securityHeaders: MiddlewareFunction<Response> = async ({ request, context }, next) => {
-  const nonce = env().NODE_ENV === "development" ? "" : newNonce();
+  const nonce = newNonce();
   context.set(nonceContext, nonce);
   const response = await next();
   return applySecurityHeaders(response, { nonce, withCookie: request.headers.has("Cookie") });

@@ -39,6 +39,17 @@ async function awardedJob() {
   return awardBid(buyer, spec.id, bid.id);
 }
 
+/** An awarded job whose retainer the buyer paid on the fake's page, recorded from the webhook. */
+async function paidJob() {
+  const job = await awardedJob();
+  const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
+  await payOnPage(url, "4242 4242 4242 4242");
+  const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+  await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
+  await payment.reload();
+  return { job, payment };
+}
+
 /** Posts an event to the webhook as Stripe would, signed with the endpoint's secret. */
 function deliver(event: unknown, signature?: string | null) {
   const payload = JSON.stringify(event);
@@ -176,12 +187,7 @@ describe("paying the retainer", () => {
 
 describe("refunds", () => {
   it("pays back part, then the rest, recorded from the webhook; never more than was paid", async () => {
-    const job = await awardedJob();
-    const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
-    await payOnPage(url, "4242 4242 4242 4242");
-    const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
-    await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
-    await payment.reload();
+    const { job, payment } = await paidJob();
 
     const post = (fields: Record<string, string>, visitor = visitors.manager) =>
       visitor.post(refund.action, `/payments/${payment.id}/refund`, { currentPassword: PASSWORD, ...fields }, { paymentId: payment.id });
@@ -408,12 +414,7 @@ describe("webhook events that do not match the payment", () => {
   });
 
   it("does not record a refund larger than the payment, in another currency, or without an amount", async () => {
-    const job = await awardedJob();
-    const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
-    await payOnPage(url, "4242 4242 4242 4242");
-    const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
-    await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
-    await payment.reload();
+    const { job, payment } = await paidJob();
     const [charge] = (await stripe.charges.list({ payment_intent: payment.paymentIntentId! })).data;
     const refundEvent = { id: "", object: "event", type: "charge.refunded", created: Math.floor(Date.now() / 1000), api_version: "2026-10-28.endive", livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null }, data: { object: charge } } as unknown as Stripe.Event;
     const wrong: [string, Record<string, unknown>, RegExp][] = [

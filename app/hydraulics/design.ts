@@ -201,6 +201,14 @@ export interface Design {
     /** shaft power the chosen pump draws in each phase of the cycle, with its duration */
     phases: { name: string; kw: number; durationS: number }[];
   };
+  /** true where the extension (its approach, with a pressing stroke) runs regeneratively: rod end joined to the cap end */
+  regenerative: boolean;
+  /**
+   * With a pressing stroke and a pump that delivers more than the pressing flow (fixed or
+   * compensated): the meter-in flow control that sets the pressing speed, bypassed by a
+   * solenoid valve during the approach. null where the pump itself gives the pressing speed.
+   */
+  pressSpeedControl: { settingLpm: number; bypass: string } | null;
   counterbalance: Counterbalance | null;
   /** leak-tight holding where the load is held at rest longer than a few minutes */
   holding: HoldingDesign | null;

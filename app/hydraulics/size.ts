@@ -270,6 +270,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
       rmsKw: rmsValid ? rmsKw : null,
       phases: phases.filter((ph) => ph.name !== "neutral").map((ph) => ({ name: ph.name, kw: ph.kw, durationS: ph.s })),
     },
+    regenerative: false,
+    pressSpeedControl: null,
     counterbalance: cbv && ctx.pilot
       ? {
           side: cbv.side,

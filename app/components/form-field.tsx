@@ -1,10 +1,14 @@
-import { getInputProps, getSelectProps, type FieldMetadata } from "@conform-to/react";
+import { getInputProps, getSelectProps, getTextareaProps, type FieldMetadata } from "@conform-to/react";
+import { useNavigation } from "react-router";
+import { Button } from "./ui";
 
 // Labelled fields with a plain hint or example and the error beside the field, wired for screen
-// readers through Conform's ids (aria-invalid, aria-describedby).
+// readers through Conform's ids (aria-invalid, aria-describedby). Every form of the app uses
+// these, so a field looks and reads the same everywhere: label, hint, input, error. The hint
+// comes before the input, where a first-time reader looks before typing.
 
 const inputClass =
-  "mt-1 block w-full rounded-md border-0 bg-white px-3 py-2 text-ink-900 shadow-sm ring-1 ring-ink-200 placeholder:text-ink-400 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600";
+  "mt-1 block w-full rounded-md border-0 bg-white px-3 py-2 text-sm text-ink-900 shadow-sm ring-1 ring-ink-200 placeholder:text-ink-400 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600";
 
 export function FieldErrors({ id, errors }: { id: string; errors?: string[] }) {
   if (!errors?.length) return null;
@@ -20,6 +24,26 @@ interface BaseProps {
   hint?: React.ReactNode;
 }
 
+/** Any Conform field's metadata; the spec steps' fields are typed by name at run time. */
+type Meta = FieldMetadata<string | undefined>;
+
+function Labelled({ meta, label, hint, children }: BaseProps & { meta: Meta; children: React.ReactNode }) {
+  return (
+    <div>
+      <label htmlFor={meta.id} className="block text-sm font-semibold text-ink-800">
+        {label}
+      </label>
+      {hint ? (
+        <p id={meta.descriptionId} className="text-sm text-ink-600">
+          {hint}
+        </p>
+      ) : null}
+      {children}
+      <FieldErrors id={meta.errorId} errors={meta.errors} />
+    </div>
+  );
+}
+
 export function TextField({
   meta,
   label,
@@ -27,26 +51,27 @@ export function TextField({
   type = "text",
   ...rest
 }: BaseProps & {
-  meta: FieldMetadata<string | undefined>;
+  meta: Meta;
   type?: "text" | "email" | "password" | "search" | "url" | "tel" | "number" | "date";
 } & Omit<React.InputHTMLAttributes<HTMLInputElement>, "type" | "form">) {
   const props = getInputProps(meta, { type, ariaDescribedBy: hint ? meta.descriptionId : undefined });
   return (
-    <div>
-      <label htmlFor={meta.id} className="block text-sm font-semibold text-ink-800">
-        {label}
-      </label>
+    <Labelled meta={meta} label={label} hint={hint}>
       <input {...props} key={props.key} {...rest} className={inputClass} />
-      {hint ? (
-        <p id={meta.descriptionId} className="mt-1 text-sm text-ink-600">
-          {hint}
-        </p>
-      ) : null}
-      <FieldErrors id={meta.errorId} errors={meta.errors} />
-    </div>
+    </Labelled>
   );
 }
 
+export function TextAreaField({ meta, label, hint, rows = 3, ...rest }: BaseProps & { meta: Meta } & Omit<React.TextareaHTMLAttributes<HTMLTextAreaElement>, "form">) {
+  const props = getTextareaProps(meta, { ariaDescribedBy: hint ? meta.descriptionId : undefined });
+  return (
+    <Labelled meta={meta} label={label} hint={hint}>
+      <textarea {...props} key={props.key} rows={rows} {...rest} className={inputClass} />
+    </Labelled>
+  );
+}
+
+/** A choice from a short list; options are values shown as they are, or { value, label } pairs. */
 export function SelectField({
   meta,
   label,
@@ -54,29 +79,31 @@ export function SelectField({
   options,
   ...rest
 }: BaseProps & {
-  meta: FieldMetadata<string | undefined>;
-  options: { value: string; label: string }[];
+  meta: Meta;
+  options: readonly string[] | readonly { value: string; label: string }[];
 } & Omit<React.SelectHTMLAttributes<HTMLSelectElement>, "form">) {
   const props = getSelectProps(meta, { ariaDescribedBy: hint ? meta.descriptionId : undefined });
+  const pairs = options.map((o) => (typeof o === "string" ? { value: o, label: o } : o));
   return (
-    <div>
-      <label htmlFor={meta.id} className="block text-sm font-semibold text-ink-800">
-        {label}
-      </label>
+    <Labelled meta={meta} label={label} hint={hint}>
       <select {...props} key={props.key} {...rest} className={inputClass}>
-        {options.map((o) => (
+        {pairs.map((o) => (
           <option key={o.value} value={o.value}>
             {o.label}
           </option>
         ))}
       </select>
-      {hint ? (
-        <p id={meta.descriptionId} className="mt-1 text-sm text-ink-600">
-          {hint}
-        </p>
-      ) : null}
-      <FieldErrors id={meta.errorId} errors={meta.errors} />
-    </div>
+    </Labelled>
+  );
+}
+
+/** A form's submit button, disabled while any submission is on its way (no double posts). */
+export function SubmitButton({ children, disabled, ...rest }: React.ComponentProps<typeof Button>) {
+  const navigation = useNavigation();
+  return (
+    <Button type="submit" {...rest} disabled={navigation.state === "submitting" || disabled}>
+      {children}
+    </Button>
   );
 }
 

@@ -14,7 +14,7 @@ import { isIsoDay } from "~/content/dates";
 // inclined axis needs its angle) hold without a second copy of them.
 
 /** The longest answer each free-text field takes; every other field holds a number or a choice. */
-const TEXT_MAX = { title: 120, purpose: 2000, deliveryRegion: 80, notes: 4000 } as const;
+export const TEXT_MAX = { title: 120, purpose: 2000, deliveryRegion: 80, notes: 4000 } as const;
 /** A number or a choice as typed ("1 250,5", "400 V three-phase"): never longer than this. */
 const SHORT_ANSWER_MAX = 40;
 const tooLong = (max: number) => `Keep it under ${max + 1} characters.`;
@@ -24,6 +24,15 @@ const optionalText = (max: number) => z.string().trim().max(max, tooLong(max)).o
 
 export const SUPPLY_VOLTAGES = ["230 V single-phase", "400 V three-phase", "415 V three-phase", "480 V three-phase", "575 V three-phase", "690 V three-phase"] as const;
 export const FLUIDS = ["ISO VG 32", "ISO VG 46", "ISO VG 68"] as const;
+
+/** What a fresh step shows before the buyer answers: the usual choice, never a guess about the machine. */
+export const STEP_DEFAULTS: Record<string, string> = {
+  supplyVoltage: "400 V three-phase",
+  fluid: "ISO VG 46",
+  unitsWanted: "1",
+  currency: "EUR",
+  retainerPercent: "20",
+};
 
 // A real calendar day: 2099-13-45 and 2099-02-30 are refused here, not by the database later.
 const isoDate = (message: string) => z.string({ error: message }).refine(isIsoDay, message);
@@ -92,6 +101,12 @@ export function stepSchema(step: FormStepId, system: UnitSystem, otherAnswers: F
 /** The names a step's form posts: its own fields and the engine fields it asks. */
 export function stepFieldNames(step: FormStepId): string[] {
   return [...Object.keys(OWN_FIELDS[step]), ...ENGINE_KEYS_BY_STEP[step]];
+}
+
+/** The answers of every step but this one: the context its cross-field rules are judged in. */
+export function otherStepsAnswers(answers: FormValues, step: FormStepId): FormValues {
+  const mine = new Set(stepFieldNames(step));
+  return Object.fromEntries(Object.entries(answers).filter(([k]) => !mine.has(k)));
 }
 
 /**

@@ -1,6 +1,6 @@
 import { redirect } from "react-router";
 import { Organisation, User } from "~/models/index.server";
-import { forbidden, notFound } from "~/services/errors.server";
+import { forbidden } from "~/services/errors.server";
 import { HOME_BY_ROLE, type Role } from "./roles";
 import { getSessionUserId, hasSessionCookie, signOutRedirect } from "./session.server";
 
@@ -63,9 +63,4 @@ export async function requireRole(request: Request, roles: readonly Role[]): Pro
 export async function requireAnonymous(request: Request) {
   const user = await getOptionalUser(request);
   if (user) throw redirect(HOME_BY_ROLE[user.role]);
-}
-
-/** Records of another organisation are "not found", never "forbidden": their existence stays private. */
-export function assertOwnOrganisation(user: Pick<User, "organisationId">, record: { organisationId: string } | null) {
-  if (!record || record.organisationId !== user.organisationId) notFound();
 }

@@ -18,11 +18,14 @@ export const KIND_LABELS: Record<OrganisationKind, string> = {
   operator: "Tenderflow operator",
 };
 
+/** Operator staff: the roles that follow buyer accounts (admins every account). The one list. */
+export const OPERATOR_ROLES = ["account_manager", "admin"] as const satisfies readonly Role[];
+
 /** Which roles an organisation of each kind may hold. */
 export const ROLES_BY_KIND: Record<OrganisationKind, readonly Role[]> = {
   buyer: ["buyer"],
   shop: ["shop"],
-  operator: ["account_manager", "admin"],
+  operator: OPERATOR_ROLES,
 };
 
 /** Each role's home page: where sign-in lands. */
@@ -35,5 +38,3 @@ export const HOME_BY_ROLE: Record<Role, string> = {
 
 /** Roles that see their organisation's team page and invite colleagues. */
 export const TEAM_ROLES = ["buyer", "shop", "admin"] as const satisfies readonly Role[];
-/** Roles that follow buyer accounts (admins see every account). */
-export const ACCOUNT_ROLES = ["account_manager", "admin"] as const satisfies readonly Role[];

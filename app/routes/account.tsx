@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/account";
 import { requireRole } from "~/auth/permissions.server";
-import { ACCOUNT_ROLES } from "~/auth/roles";
+import { OPERATOR_ROLES } from "~/auth/roles";
 import { Badge, Card, PageHeader } from "~/components/ui";
 import { accountOf } from "~/services/admin.server";
 import { listJobs } from "~/services/jobs.server";
@@ -13,7 +13,7 @@ import type { User } from "~/models/index.server";
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ?? "Account"} · Tenderflow` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const viewer = await requireRole(request, ACCOUNT_ROLES);
+  const viewer = await requireRole(request, OPERATOR_ROLES);
   const organisation = await accountOf(viewer, requireId(params.organisationId));
   const users = ((organisation as typeof organisation & { users?: User[] }).users ?? []).map((u) => ({
     id: u.id,

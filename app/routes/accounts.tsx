@@ -2,14 +2,14 @@ import { Link } from "react-router";
 import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/accounts";
 import { requireRole } from "~/auth/permissions.server";
-import { ACCOUNT_ROLES } from "~/auth/roles";
+import { OPERATOR_ROLES } from "~/auth/roles";
 import { Card, EmptyState, PageHeader } from "~/components/ui";
 import { accountsOf } from "~/services/admin.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "My accounts · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireRole(request, ACCOUNT_ROLES);
+  const user = await requireRole(request, OPERATOR_ROLES);
   const accounts = await accountsOf(user);
   return {
     isAdmin: user.role === "admin",
@@ -56,7 +56,7 @@ export default function Accounts({ loaderData }: Route.ComponentProps) {
                   </td>
                   <td>{a.region ?? "—"}</td>
                   <td>{a.memberCount}</td>
-                  <td>{formatDay(a.since.slice(0, 10))}</td>
+                  <td>{formatDay(a.since)}</td>
                 </tr>
               ))}
             </tbody>

@@ -1,0 +1,183 @@
+// The access policy as one table per kind of question, checked against real records: who may
+// list which record (the where-clauses) and who may take which action (`can`). A row reads
+// across the people below; Y allows, . refuses. Change the policy and this table together.
+import { beforeAll, describe, expect, it } from "vitest";
+import type { Model, ModelStatic, WhereOptions } from "sequelize";
+import { Op } from "sequelize";
+import {
+  ACTIONS,
+  accountsWhere,
+  bidsWhere,
+  can,
+  findInScope,
+  jobsWhere,
+  paymentsWhere,
+  specsWhere,
+  viewerOf,
+  type Action,
+  type Viewer,
+} from "~/auth/access-policy.server";
+import { Bid, Job, Organisation, Payment, Spec, User } from "~/models/index.server";
+import { createDraft } from "~/services/specs.server";
+import { inDays, makeJob, makeMember, makeOperatorUser } from "../support/factories";
+
+// buyer: the records' buyer · other buyer: another buyer account · shop: the job's shop (approved)
+// other shop: another approved shop · pending: a shop awaiting approval · manager: the buyer
+// account's account manager · other mgr: manager of the other account · admin.
+const PEOPLE = ["buyer", "other buyer", "shop", "other shop", "pending", "manager", "other mgr", "admin"] as const;
+type Person = (typeof PEOPLE)[number];
+
+//  scope     record              buyer  other   shop  other  pending  manager  other  admin
+//                                       buyer         shop                     mgr
+const LISTS = `
+    specs     published-spec        Y      .      Y     Y      .        Y        .      Y
+    specs     draft-spec            Y      .      .     .      .        .        .      .
+    bids      offered-bid           Y      .      Y     .      .        .        .      .
+    bids      draft-bid             .      .      .     Y      .        .        .      .
+    jobs      job                   Y      .      Y     .      .        Y        .      Y
+    payments  payment               Y      .      .     .      .        Y        .      Y
+    accounts  buyer-account         .      .      .     .      .        Y        .      Y
+`;
+
+//  action                  record             buyer  other   shop  other  pending  manager  other  admin
+//                                                    buyer         shop                     mgr
+const ACTS = `
+    job.recordProgress      job                  .      .      Y     .      .        .        .      .
+    job.writeManagerNote    job                  .      .      .     .      .        Y        .      Y
+    job.readInternalNotes   job                  .      .      .     .      .        Y        .      Y
+    job.seePayments         job                  Y      .      .     .      .        Y        .      Y
+    job.payRetainer         job                  Y      .      .     .      .        .        .      .
+    payment.refund          payment              .      .      .     .      .        Y        .      Y
+    spec.edit               published-spec       Y      .      .     .      .        .        .      .
+    spec.compareBids        published-spec       Y      .      .     .      .        .        .      .
+    spec.award              published-spec       Y      .      .     .      .        .        .      .
+    spec.answerQuestion     published-spec       Y      .      .     .      .        .        .      .
+    spec.seeAskers          published-spec       Y      .      .     .      .        .        .      .
+    spec.bid                published-spec       .      .      Y     Y      .        .        .      .
+    spec.bid                draft-spec           .      .      .     .      .        .        .      .
+    spec.askQuestion        published-spec       .      .      Y     Y      .        .        .      .
+    spec.seeBuyerName       published-spec       Y      .      .     .      .        Y        .      Y
+    shop.decide             pending-shop         .      .      .     .      .        .        .      Y
+    shop.decide             buyer-account        .      .      .     .      .        .        .      .
+    team.invite             buyer-account        Y      .      .     .      .        .        .      .
+    team.invite             operator             .      .      .     .      .        .        .      Y
+    platform.administer     none                 .      .      .     .      .        .        .      Y
+`;
+
+function parse(table: string) {
+  return table
+    .trim()
+    .split("\n")
+    .map((line) => {
+      const [first, record, ...marks] = line.trim().split(/\s+/);
+      expect(marks, line).toHaveLength(PEOPLE.length);
+      return { first, record, allowed: new Set(PEOPLE.filter((_, i) => marks[i] === "Y")) };
+    });
+}
+
+const viewers = {} as Record<Person, Viewer>;
+const records = {} as Record<string, (Model & { id: string }) | null>;
+
+beforeAll(async () => {
+  const users: Record<Person, User> = {
+    buyer: await makeMember("buyer"),
+    "other buyer": await makeMember("buyer"),
+    shop: await makeMember("shop"),
+    "other shop": await makeMember("shop"),
+    pending: await makeMember("shop", { pending: true }),
+    manager: await makeOperatorUser("account_manager"),
+    "other mgr": await makeOperatorUser("account_manager"),
+    admin: await makeOperatorUser("admin"),
+  };
+  // Operator staff share one operator organisation, as in the product.
+  await users.manager.update({ organisationId: users.admin.organisationId });
+  await users["other mgr"].update({ organisationId: users.admin.organisationId });
+  await Organisation.update({ accountManagerId: users.manager.id }, { where: { id: users.buyer.organisationId } });
+  await Organisation.update({ accountManagerId: users["other mgr"].id }, { where: { id: users["other buyer"].organisationId } });
+  for (const person of PEOPLE) viewers[person] = await viewerOf(users[person]);
+
+  const { spec, bid, job } = await makeJob(users.buyer, users.shop);
+  const draftBid = await Bid.create({
+    specId: spec.id,
+    organisationId: users["other shop"].organisationId,
+    createdById: users["other shop"].id,
+    specRevision: 1,
+    currency: spec.currency,
+    lines: [],
+    units: 1,
+    setTotalCents: 0,
+    totalCents: 0,
+    leadTimeWeeks: null,
+    validUntil: inDays(30),
+    submittedAt: null,
+  });
+  const payment = await Payment.create({
+    jobId: job.id,
+    buyerOrganisationId: job.buyerOrganisationId,
+    createdById: users.buyer.id,
+    amountCents: job.retainerCents,
+    currency: job.currency,
+    checkoutSessionId: null,
+    checkoutUrl: null,
+    paymentIntentId: null,
+    customerId: null,
+    failureMessage: null,
+    paidAt: null,
+  });
+  Object.assign(records, {
+    "published-spec": spec,
+    "draft-spec": await createDraft(users.buyer),
+    "offered-bid": bid,
+    "draft-bid": draftBid,
+    job,
+    payment,
+    "buyer-account": await Organisation.findByPk(users.buyer.organisationId),
+    "pending-shop": await Organisation.findByPk(users.pending.organisationId),
+    operator: await Organisation.findByPk(users.admin.organisationId),
+    none: null,
+  });
+});
+
+const SCOPES: Record<string, { model: ModelStatic<Model>; where: (v: Viewer) => WhereOptions }> = {
+  specs: { model: Spec, where: specsWhere },
+  bids: { model: Bid, where: bidsWhere },
+  jobs: { model: Job, where: jobsWhere },
+  payments: { model: Payment, where: paymentsWhere },
+  accounts: { model: Organisation, where: accountsWhere },
+};
+
+describe("who may list which record", () => {
+  it.each(parse(LISTS))("$first: $record", async ({ first, record, allowed }) => {
+    const { model, where } = SCOPES[first];
+    const id = records[record]!.id;
+    const seen = new Set<Person>();
+    for (const person of PEOPLE) {
+      if ((await model.count({ where: { [Op.and]: [where(viewers[person]), { id }] } })) === 1) seen.add(person);
+    }
+    expect([...seen]).toEqual([...allowed]);
+  });
+});
+
+describe("who may take which action", () => {
+  const rows = parse(ACTS);
+
+  it("names every action of the policy", () => {
+    expect(new Set(rows.map((r) => r.first))).toEqual(new Set(ACTIONS));
+  });
+
+  it.each(rows)("$first on $record", ({ first, record, allowed }) => {
+    const seen = PEOPLE.filter((person) => can(viewers[person], first as Action, records[record] as never));
+    expect(seen).toEqual([...allowed]);
+  });
+});
+
+describe("loading inside a scope", () => {
+  it("answers the record to its reader and 404 to anyone else, or for a malformed id", async () => {
+    const job = records.job!;
+    expect((await findInScope(Job, jobsWhere(viewers.shop), job.id, { missing: "No such job." })).id).toBe(job.id);
+    for (const id of [job.id, "not-an-id", undefined]) {
+      const refused = await findInScope(Job, jobsWhere(viewers["other shop"]), id, { missing: "No such job." }).catch((e) => e);
+      expect(refused.init?.status).toBe(404);
+    }
+  });
+});

@@ -14,7 +14,7 @@ import { Badge, Button, Card, Notice } from "./ui";
 const textareaClass =
   "mt-1 block w-full rounded-md border-0 bg-white px-3 py-2 text-sm text-ink-900 shadow-sm ring-1 ring-ink-200 placeholder:text-ink-400 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600";
 
-const when = (iso: string) => formatDay(iso.slice(0, 10));
+const when = (iso: string) => formatDay(iso);
 
 function AskForm({ specId }: { specId: string }) {
   const fetcher = useFetcher<SubmissionResult<string[]>>();

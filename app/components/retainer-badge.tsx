@@ -6,5 +6,5 @@ export function RetainerBadge({ paidAt, refundedCents, retainerCents, withDate =
   if (!paidAt) return <Badge tone="warn">Not paid</Badge>;
   if (refundedCents >= retainerCents && retainerCents > 0) return <Badge tone="warn">Paid back</Badge>;
   if (refundedCents > 0) return <Badge tone="warn">Partly paid back</Badge>;
-  return <Badge tone="good">{withDate ? `Paid ${formatDay(paidAt.slice(0, 10))}` : "Paid"}</Badge>;
+  return <Badge tone="good">{withDate ? `Paid ${formatDay(paidAt)}` : "Paid"}</Badge>;
 }

@@ -7,6 +7,9 @@ const ISO_DAY = /^(\d{4})-(\d{2})-(\d{2})$/;
 /** The UTC calendar day of a moment, as YYYY-MM-DD. */
 export const isoDay = (moment: Date) => moment.toISOString().slice(0, 10);
 
+/** Today's calendar day in UTC, the "today" every deadline and target is judged against. */
+export const todayUtc = () => isoDay(new Date());
+
 /** Whether text is a real calendar day written YYYY-MM-DD (not 2026-02-30). */
 export function isIsoDay(text: string) {
   const match = ISO_DAY.exec(text);
@@ -34,8 +37,11 @@ const momentFormat = new Intl.DateTimeFormat("en-GB", {
   timeZone: "UTC",
 });
 
-/** "2026-03-14" → "14 Mar 2026". */
-export const formatDay = (day: string) => dayFormat.format(new Date(`${day}T00:00:00Z`));
+/**
+ * The one way a day is shown, on pages, in e-mails and in workbooks: "2026-03-14" → "14 Mar 2026".
+ * Takes a calendar day, an ISO timestamp (its UTC day) or a Date.
+ */
+export const formatDay = (day: string | Date) => dayFormat.format(typeof day === "string" ? new Date(`${day.slice(0, 10)}T00:00:00Z`) : day);
 
 /** An ISO timestamp → "14 Mar 2026, 09:12 UTC". */
 export const formatMoment = (iso: string) => `${momentFormat.format(new Date(iso))} UTC`;

@@ -19,7 +19,16 @@ export const SPEC_STATUS_TONES: Record<SpecStatus, "neutral" | "good" | "warn" |
   withdrawn: "bad",
 };
 
+/**
+ * The one rule of "taking bids": published (open) and its deadline still ahead. Shops bid and
+ * ask questions exactly while it holds. Searches write the same rule as a WHERE clause
+ * (status open, bid_deadline > now) in open-specs.server.ts.
+ */
+export function takesBids(spec: { status: string; bidDeadline: Date | string | null }, now = new Date()): boolean {
+  return spec.status === "open" && spec.bidDeadline !== null && new Date(spec.bidDeadline) > now;
+}
+
 /** The status people see: an open spec whose deadline has passed reads as bidding closed. */
 export function shownSpecStatus(status: SpecStatus, bidDeadline: Date | string | null, now = new Date()): SpecStatus {
-  return status === "open" && bidDeadline && new Date(bidDeadline) <= now ? "closed" : status;
+  return status === "open" && bidDeadline && !takesBids({ status, bidDeadline }, now) ? "closed" : status;
 }

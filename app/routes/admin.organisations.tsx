@@ -117,7 +117,7 @@ function WaitingShops({ waiting, total, actionData }: { waiting: Route.Component
             <li key={shop.id} className="grid gap-3 py-3 text-sm md:grid-cols-[1fr_auto]">
               <div>
                 <p className="font-semibold">{shop.name}</p>
-                <p className="text-ink-600">Signed up {formatDay(shop.signedUpAt.slice(0, 10))}</p>
+                <p className="text-ink-600">Signed up {formatDay(shop.signedUpAt)}</p>
                 <ul className="text-ink-600">
                   {shop.people.map((p) => (
                     <li key={p.email} className="break-all">

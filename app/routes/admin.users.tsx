@@ -140,7 +140,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
                     )}
                   </td>
                   <td>{u.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
-                  <td>{u.lastSignInAt ? formatDay(u.lastSignInAt.slice(0, 10)) : "Never"}</td>
+                  <td>{u.lastSignInAt ? formatDay(u.lastSignInAt) : "Never"}</td>
                   <td className="text-right">
                     {u.id !== loaderData.adminId ? (
                       <Form

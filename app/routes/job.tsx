@@ -130,7 +130,7 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
           <span className="flex flex-wrap items-center gap-2">
             <Badge tone={job.overdue ? "bad" : "neutral"}>{job.overdue ? "Overdue" : JOB_STAGE_LABELS[job.stage]}</Badge>
             <span>
-              For {job.buyerName} · built by {job.shopName} · awarded {formatDay(job.awardedAt.slice(0, 10))} (
+              For {job.buyerName} · built by {job.shopName} · awarded {formatDay(job.awardedAt)} (
               {job.daysSinceAward === 0 ? "today" : `${job.daysSinceAward} day${job.daysSinceAward === 1 ? "" : "s"} ago`})
             </span>
           </span>

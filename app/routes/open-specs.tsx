@@ -79,7 +79,7 @@ function NotApprovedYet({ approval }: { approval: ApprovalState }) {
       <PageHeader title="Open specs" lead="Specs from machine builders that are open for bids." />
       {approval.approval === "refused" ? (
         <EmptyState title="Your organisation was not approved to read specs">
-          <p>Machine builders' specs are confidential, so Tenderflow approves each fluid-power shop before it reads them. Your organisation was not approved{approval.decidedAt ? ` on ${formatDay(approval.decidedAt.slice(0, 10))}` : ""}.</p>
+          <p>Machine builders' specs are confidential, so Tenderflow approves each fluid-power shop before it reads them. Your organisation was not approved{approval.decidedAt ? ` on ${formatDay(approval.decidedAt)}` : ""}.</p>
           {approval.reason ? <p className="mt-2">The reason given: “{approval.reason}”</p> : null}
           <p className="mt-2">If something has changed, contact Tenderflow and an administrator will look at it again.</p>
         </EmptyState>
@@ -195,7 +195,7 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
                     <td className="py-2 text-right tabular-nums">{s.pumpFlowLpm === null ? "—" : formatQuantity("flow", s.pumpFlowLpm, d.unitSystem)}</td>
                     <td className="py-2 text-right tabular-nums">{s.unitsWanted ?? "—"}</td>
                     <td className="py-2 pl-4">{s.currency}</td>
-                    <td className="py-2">{formatDay(s.bidDeadline.slice(0, 10))}</td>
+                    <td className="py-2">{formatDay(s.bidDeadline)}</td>
                     <td className="py-2 text-right">
                       {s.ownBidStatus ? (
                         <span title={`Your bid: ${BID_STATUS_LABELS[s.ownBidStatus]}`}>

@@ -1,5 +1,6 @@
 import { getFormProps, getInputProps, getTextareaProps, useForm } from "@conform-to/react";
 import { formatDay, formatMoment } from "~/content/dates";
+import { takesBids } from "~/content/spec-status";
 import { parseWithZod } from "@conform-to/zod/v4";
 import { Form, Link, data, useNavigation } from "react-router";
 import type { Route } from "./+types/spec-bid";
@@ -31,7 +32,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       currency: spec.currency,
       units: spec.unitsWanted ?? 1,
       deadline: spec.bidDeadline?.toISOString() ?? null,
-      accepting: spec.status === "open" && !!spec.bidDeadline && spec.bidDeadline > new Date(),
+      accepting: takesBids(spec),
     },
     bill: bom.map((l) => ({ key: l.key, item: l.item, quantity: l.quantity, specification: l.specification, rating: l.rating?.label ?? "" })),
     bid: bid && {
@@ -104,7 +105,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-const dateText = (iso: string) => formatDay(iso.slice(0, 10));
+const dateText = (iso: string) => formatDay(iso);
 
 export default function SpecBid({ loaderData: d, actionData }: Route.ComponentProps) {
   const navigation = useNavigation();

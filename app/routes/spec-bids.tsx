@@ -51,7 +51,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
-const day = (iso: string) => formatDay(iso.slice(0, 10));
+const day = (iso: string) => formatDay(iso);
 
 export default function SpecBids({ loaderData: d, actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();

@@ -5,7 +5,7 @@ import { requireUser } from "~/auth/permissions.server";
 import { DesignReport } from "~/components/design-report";
 import { AxisRequirements } from "~/components/axis-requirements";
 import { Badge, Button, ButtonLink, Notice, PageHeader } from "~/components/ui";
-import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
+import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, takesBids, type SpecStatus } from "~/content/spec-status";
 import type { Design } from "~/hydraulics";
 import { QuotationPanel } from "~/components/quotation-facts";
 import { QuestionsPanel } from "~/components/questions-panel";
@@ -44,7 +44,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     bidding: {
       role: user.role,
-      accepting: spec.status === "open" && !!spec.bidDeadline && spec.bidDeadline > new Date(),
+      accepting: takesBids(spec),
       specStatus: spec.status as SpecStatus,
       currency: spec.currency,
       ownBid: bid && { status: bid.status as BidStatus, totalCents: bid.totalCents, version: bid.version, specRevision: bid.specRevision },
@@ -86,7 +86,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
             <Badge tone={SPEC_STATUS_TONES[d.status]}>{SPEC_STATUS_LABELS[d.status]}</Badge>
             {d.buyerName && !d.isOwner ? <span>For {d.buyerName}</span> : null}
             {d.revision ? <span>Revision {d.revision.number}, sizing engine {d.revision.engineVersion}</span> : null}
-            {d.bidDeadline ? <span>Bids until {formatDay(d.bidDeadline.slice(0, 10))}</span> : null}
+            {d.bidDeadline ? <span>Bids until {formatDay(d.bidDeadline)}</span> : null}
             {d.deliveryRegion ? <span>Delivered to {d.deliveryRegion}</span> : null}
           </span>
         }
@@ -125,7 +125,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
               aria-current={r.number === d.revision?.number ? "page" : undefined}
               className={`rounded-md px-2 py-1 ring-1 ${r.number === d.revision?.number ? "bg-flow-600 text-white ring-flow-600" : "ring-ink-200 hover:bg-ink-100"}`}
             >
-              {r.number} · {formatDay(r.createdAt.slice(0, 10))}
+              {r.number} · {formatDay(r.createdAt)}
             </Link>
           ))}
         </nav>

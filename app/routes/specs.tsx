@@ -108,8 +108,8 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
                     <td className="pr-4 text-right tabular-nums">
                       {s.offers ? <Link to={`/specs/${s.id}/bids`} className="font-semibold text-flow-700 hover:underline">{s.offers}</Link> : s.offers === 0 ? "0" : "—"}
                     </td>
-                    <td>{s.bidDeadline ? formatDay(s.bidDeadline.slice(0, 10)) : "—"}</td>
-                    <td>{formatDay(s.updatedAt.slice(0, 10))}</td>
+                    <td>{s.bidDeadline ? formatDay(s.bidDeadline) : "—"}</td>
+                    <td>{formatDay(s.updatedAt)}</td>
                   </tr>
                 ))}
               </tbody>

@@ -88,7 +88,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
                 {loaderData.invitations.map((i) => (
                   <li key={i.id} className="flex items-center justify-between py-2">
                     <span>
-                      {i.email} · {ROLE_LABELS[i.role]} · until {formatDay(i.expiresAt.slice(0, 10))}
+                      {i.email} · {ROLE_LABELS[i.role]} · until {formatDay(i.expiresAt)}
                     </span>
                     <Form method="post" action={`/team/invitations/${i.id}/revoke`}>
                       <Button tone="danger" type="submit" className="px-3 py-1">

@@ -1,11 +1,10 @@
 import { z } from "zod";
 import { MAX_UNIT_PRICE_CENTS, moneyProblem, parseMoney } from "~/services/bid-pricing";
-import { isIsoDay } from "~/content/dates";
+import { isIsoDay, todayUtc as today } from "~/content/dates";
 
 // The bid form's schema, shared by the action and the Conform form. A draft may leave prices
 // and terms open; a submitted offer prices every line and states lead time and validity.
 
-const today = () => new Date().toISOString().slice(0, 10);
 const optionalText = (max: number) => z.string().trim().max(max, `Keep it under ${max + 1} characters.`).optional();
 
 const lineSchema = z.object({

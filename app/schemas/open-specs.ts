@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { todayUtc } from "~/content/dates";
 
 // The search parameters of the open-specs table. Pressure and flow are typed in the shop's own
 // unit system (the service converts them); a value that does not parse is reported beside its
@@ -39,8 +40,6 @@ const bound = (what: string, example: string) =>
       .max(1_000_000, `${what} is far larger than any hydraulic axis.`)
       .optional(),
   );
-
-const todayUtc = () => new Date().toISOString().slice(0, 10);
 
 export const openSpecsQuerySchema = z
   .object({

@@ -6,7 +6,7 @@ import { ENGINE_KEYS_BY_STEP, type FormStepId } from "~/content/spec-steps";
 import type { UnitSystem } from "~/units";
 import { CURRENCIES } from "~/content/currencies";
 import { fieldApplies, type RequirementKey } from "~/content/requirement-fields";
-import { isIsoDay } from "~/content/dates";
+import { isIsoDay, todayUtc as today } from "~/content/dates";
 
 // The spec form's schemas, one per step, shared by the server action and the Conform form.
 // The engine's own requirement schema judges the axis fields: each step runs it over every
@@ -36,7 +36,6 @@ export const STEP_DEFAULTS: Record<string, string> = {
 
 // A real calendar day: 2099-13-45 and 2099-02-30 are refused here, not by the database later.
 const isoDate = (message: string) => z.string({ error: message }).refine(isIsoDay, message);
-const today = () => new Date().toISOString().slice(0, 10);
 
 const OWN_FIELDS = {
   machine: {

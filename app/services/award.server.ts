@@ -1,7 +1,7 @@
 import { Op } from "sequelize";
 import { Bid, Organisation, Spec, User, sequelize, type Job } from "~/models/index.server";
 import { formatMoney } from "~/content/currencies";
-import { formatDay } from "~/content/dates";
+import { formatDay, todayUtc } from "~/content/dates";
 import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { openJob } from "./jobs.server";
@@ -18,7 +18,7 @@ export async function awardBid(user: User, specId: string, bidId: string): Promi
     if (spec.status !== "open") throw new FieldErrors({ "": ["Only a spec open for bids can be awarded."] });
     const bid = await Bid.findOne({ where: { id: bidId, specId: spec.id }, lock: transaction.LOCK.UPDATE, transaction });
     if (!bid || bid.status !== "submitted") throw new FieldErrors({ bidId: ["That bid is not on offer any more; reload the comparison."] });
-    if (bid.validUntil && bid.validUntil < new Date().toISOString().slice(0, 10)) {
+    if (bid.validUntil && bid.validUntil < todayUtc()) {
       throw new FieldErrors({ bidId: [`This offer was valid until ${formatDay(bid.validUntil)}. Ask the shop to renew it first.`] });
     }
 

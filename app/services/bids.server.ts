@@ -9,7 +9,8 @@ import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { requireApprovedShop } from "./spec-access.server";
 import { env } from "~/env.server";
-import { formatDay } from "~/content/dates";
+import { formatDay, isoDay } from "~/content/dates";
+import { takesBids } from "~/content/spec-status";
 
 // A shop's bid on a spec: one per shop organisation, priced line by line against the bill of
 // materials of the spec's current revision. Every submission and withdrawal is kept as a
@@ -40,16 +41,16 @@ export const offerOf = (bid: Bid): BidOffer => ({
   notes: bid.notes,
 });
 
-/** Locks the spec for sharing and says whether it takes bids right now (database clock). */
+/** Locks the spec for sharing and refuses unless it takes bids right now. */
 async function lockOpenSpec(specId: string, transaction: Transaction) {
-  const [row] = await sequelize.query<{ status: string; accepting: boolean; deadline: Date }>(
-    `SELECT status, bid_deadline > now() AS accepting, bid_deadline AS deadline FROM specs WHERE id = :specId FOR SHARE`,
+  const [row] = await sequelize.query<{ status: string; deadline: Date | null }>(
+    `SELECT status, bid_deadline AS deadline FROM specs WHERE id = :specId FOR SHARE`,
     { replacements: { specId }, transaction, type: QueryTypes.SELECT },
   );
   if (!row) notFound("No such spec.");
   if (row.status !== "open") throw new FieldErrors({ "": ["This spec no longer takes bids."] });
-  if (!row.accepting) throw new FieldErrors({ "": ["The bid deadline has passed; nothing can be changed any more."] });
-  return row;
+  if (!takesBids({ status: row.status, bidDeadline: row.deadline })) throw new FieldErrors({ "": ["The bid deadline has passed; nothing can be changed any more."] });
+  return row as { status: string; deadline: Date };
 }
 
 /** The bid's lines: the revision's bill, in its order, with the shop's prices and alternatives. */
@@ -83,8 +84,8 @@ export async function saveBid(user: User, spec: Spec, input: BidInput): Promise<
   const bid = await sequelize.transaction(async (transaction) => {
     const locked = await lockOpenSpec(spec.id, transaction);
     const fresh = await Spec.findByPk(spec.id, { transaction, rejectOnEmpty: true });
-    if (input.validUntil && input.validUntil < locked.deadline.toISOString().slice(0, 10)) {
-      throw new FieldErrors({ validUntil: [`Keep the offer valid at least until the bid deadline (${formatDay(locked.deadline.toISOString().slice(0, 10))}), so the buyer can award it.`] });
+    if (input.validUntil && input.validUntil < isoDay(locked.deadline)) {
+      throw new FieldErrors({ validUntil: [`Keep the offer valid at least until the bid deadline (${formatDay(isoDay(locked.deadline))}), so the buyer can award it.`] });
     }
     const lines = priceLines(await bomOf(fresh, fresh.currentRevision, transaction), input.lines);
     const units = fresh.unitsWanted ?? 1;

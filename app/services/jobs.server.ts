@@ -11,10 +11,11 @@ import {
   type JobStage,
   type MilestoneKey,
 } from "~/content/job-milestones";
-import { addDays, daysBetween, formatDay, isoDay } from "~/content/dates";
+import { addDays, daysBetween, formatDay, isoDay, todayUtc } from "~/content/dates";
 import type { JobListQuery } from "~/schemas/jobs";
 import { env } from "~/env.server";
-import { FieldErrors, forbidden, notFound, requireId } from "./errors.server";
+import { FieldErrors } from "./errors.server";
+import { authorize, can, findInScope, jobsWhere, viewerOf, type Action } from "~/auth/access-policy.server";
 import { enqueueMail } from "./mail.server";
 import { retainerCents } from "./bid-pricing";
 
@@ -99,37 +100,6 @@ export async function openJob(transaction: Transaction, args: { spec: Spec; bid:
   );
   return job;
 }
-
-// ---------------------------------------------------------------------------------------------
-// Who sees which jobs.
-
-const OPERATOR_ROLES = ["account_manager", "admin"] as const;
-const isOperator = (user: User) => (OPERATOR_ROLES as readonly string[]).includes(user.role);
-
-/**
- * The jobs a user may read: a buyer its organisation's, a shop the ones it builds, an account
- * manager those of the buyer accounts assigned to them, an admin every one.
- */
-async function scopeOf(viewer: User, transaction?: Transaction): Promise<WhereOptions<Job>> {
-  switch (viewer.role) {
-    case "buyer":
-      return { buyerOrganisationId: viewer.organisationId };
-    case "shop":
-      return { shopOrganisationId: viewer.organisationId };
-    case "account_manager": {
-      const accounts = await Organisation.findAll({ where: { kind: "buyer", accountManagerId: viewer.id }, attributes: ["id"], transaction });
-      return { buyerOrganisationId: accounts.map((a) => a.id) };
-    }
-    case "admin":
-      return {};
-    default:
-      notFound("No such job.");
-  }
-}
-
-const mayRecordProgress = (viewer: User, job: Job) => viewer.role === "shop" && job.shopOrganisationId === viewer.organisationId;
-// The scope already limits an account manager to their own accounts.
-const mayWriteManagerNote = (viewer: User) => isOperator(viewer);
 
 // ---------------------------------------------------------------------------------------------
 // Reading.
@@ -233,10 +203,11 @@ export interface JobList {
  * `today` is the UTC day that decides what is overdue.
  */
 export async function listJobs(viewer: User, query: JobListQuery, options: { limit?: number; today?: string } = {}): Promise<JobList> {
-  const today = options.today ?? isoDay(new Date());
+  const today = options.today ?? todayUtc();
   const limit = options.limit ?? JOBS_PAGE_SIZE;
   const page = Math.max(1, Math.floor(query.page ?? 1) || 1);
-  const scope = await scopeOf(viewer);
+  // Who sees which jobs is the access policy's (jobsWhere).
+  const scope = jobsWhere(await viewerOf(viewer));
   const { rows, count } = await Job.findAndCountAll({
     where: { [Op.and]: [scope, ...filtersOf(query, today, true)] },
     include: PARTIES,
@@ -308,24 +279,23 @@ export interface JobDetail extends JobSummary {
   leadTimeWeeks: number | null;
   canRecordProgress: boolean;
   canWriteManagerNote: boolean;
+  /** Payment attempts are the buyer's and the operator's business, not the shop's. */
+  canSeePayments: boolean;
 }
 
 /** A job the viewer may read (a 404 otherwise); locked for update inside a transaction. */
 export async function scopedJob(viewer: User, jobId: string | undefined, transaction?: Transaction) {
-  const id = requireId(jobId);
-  const job = await Job.findOne({ where: { [Op.and]: [await scopeOf(viewer, transaction), { id }] }, transaction, lock: transaction?.LOCK.UPDATE });
-  if (!job) notFound("No such job.");
-  return job;
+  return findInScope(Job, jobsWhere(await viewerOf(viewer, transaction)), jobId, { missing: "No such job.", transaction, lock: transaction?.LOCK.UPDATE });
 }
 
 /** One job of the viewer's, with its milestones and history; operator notes only for operator roles. */
-export async function jobFor(viewer: User, jobId: string | undefined, today = isoDay(new Date())): Promise<JobDetail> {
-  const id = requireId(jobId);
-  const job = (await Job.findOne({ where: { [Op.and]: [await scopeOf(viewer), { id }] }, include: PARTIES })) as JobWithParties | null;
-  if (!job) notFound("No such job.");
+export async function jobFor(viewer: User, jobId: string | undefined, today = todayUtc()): Promise<JobDetail> {
+  const access = await viewerOf(viewer);
+  const job = (await findInScope(Job, jobsWhere(access), jobId, { missing: "No such job.", include: PARTIES })) as JobWithParties;
+  const id = job.id;
   const milestones = await JobMilestone.findAll({ where: { jobId: id }, order: [["position", "ASC"]] });
   const events = await JobEvent.findAll({
-    where: { jobId: id, ...(isOperator(viewer) ? {} : { visibility: "all" }) },
+    where: { jobId: id, ...(can(access, "job.readInternalNotes", job) ? {} : { visibility: "all" }) },
     include: [{ model: User, as: "user", include: [{ model: Organisation, as: "organisation" }] }],
     order: [["createdAt", "DESC"]],
   });
@@ -368,8 +338,9 @@ export async function jobFor(viewer: User, jobId: string | undefined, today = is
     lastReached: shopReached.at(-1)?.key ?? null,
     open: milestones.filter((m) => m.key !== PAYMENT_MILESTONE && !m.reachedAt).map((m) => m.key),
     leadTimeWeeks: bid?.leadTimeWeeks ?? null,
-    canRecordProgress: mayRecordProgress(viewer, job),
-    canWriteManagerNote: mayWriteManagerNote(viewer),
+    canRecordProgress: can(access, "job.recordProgress", job),
+    canWriteManagerNote: can(access, "job.writeManagerNote", job),
+    canSeePayments: can(access, "job.seePayments", job),
   };
 }
 
@@ -382,18 +353,12 @@ interface Locked {
   transaction: Transaction;
 }
 
-const SHOP_ONLY = "Only the shop building this job records its progress.";
-const OPERATOR_ONLY = "Only account managers and administrators write internal notes.";
-
-async function changeJob<T>(
-  viewer: User,
-  jobId: string | undefined,
-  may: { check: (job: Job) => boolean; refusal: string },
-  change: (locked: Locked) => Promise<T>,
-): Promise<T> {
+async function changeJob<T>(viewer: User, jobId: string | undefined, action: Action & `job.${string}`, change: (locked: Locked) => Promise<T>): Promise<T> {
   return sequelize.transaction(async (transaction) => {
-    const job = await scopedJob(viewer, jobId, transaction);
-    if (!may.check(job)) forbidden(may.refusal);
+    // Outside the viewer's jobs: 404; inside but not theirs to change: the policy's refusal.
+    const access = await viewerOf(viewer, transaction);
+    const job = await findInScope(Job, jobsWhere(access), jobId, { missing: "No such job.", transaction, lock: transaction.LOCK.UPDATE });
+    authorize(access, action, job);
     const milestones = await JobMilestone.findAll({ where: { jobId: job.id }, order: [["position", "ASC"]], transaction });
     const result = await change({ job, milestones, transaction });
     const stage = stageOf(milestones);
@@ -429,7 +394,7 @@ async function record(
  * retainer is left to the payment and does not hold the shop back.
  */
 export async function reachMilestones(viewer: User, jobId: string | undefined, input: { milestone: MilestoneKey; note: string }) {
-  return changeJob(viewer, jobId, { check: (job) => mayRecordProgress(viewer, job), refusal: SHOP_ONLY }, async ({ job, milestones, transaction }) => {
+  return changeJob(viewer, jobId, "job.recordProgress", async ({ job, milestones, transaction }) => {
     if (input.milestone === PAYMENT_MILESTONE) {
       throw new FieldErrors({ milestone: ["The retainer is recorded when the buyer's payment arrives."] });
     }
@@ -463,7 +428,7 @@ export async function reachMilestones(viewer: User, jobId: string | undefined, i
 
 /** Takes back the last milestone the shop reached; `milestone` is the one the shop saw as last. */
 export async function undoLastMilestone(viewer: User, jobId: string | undefined, input: { milestone: MilestoneKey; reason: string }) {
-  return changeJob(viewer, jobId, { check: (job) => mayRecordProgress(viewer, job), refusal: SHOP_ONLY }, async ({ job, milestones, transaction }) => {
+  return changeJob(viewer, jobId, "job.recordProgress", async ({ job, milestones, transaction }) => {
     const last = milestones.filter((m) => m.key !== PAYMENT_MILESTONE && m.reachedAt).at(-1);
     if (!last) throw new FieldErrors({ "": ["No milestone has been reached yet, so there is nothing to take back."] });
     if (last.key !== input.milestone) {
@@ -481,7 +446,7 @@ export async function undoLastMilestone(viewer: User, jobId: string | undefined,
 
 /** Moves the target day of a milestone the shop has not reached yet. */
 export async function changeTargetDate(viewer: User, jobId: string | undefined, input: { milestone: MilestoneKey; targetDate: string; reason: string }) {
-  return changeJob(viewer, jobId, { check: (job) => mayRecordProgress(viewer, job), refusal: SHOP_ONLY }, async ({ job, milestones, transaction }) => {
+  return changeJob(viewer, jobId, "job.recordProgress", async ({ job, milestones, transaction }) => {
     if (input.milestone === PAYMENT_MILESTONE) throw new FieldErrors({ milestone: ["The retainer's date follows the payment, not the workshop."] });
     const m = milestones.find((x) => x.key === input.milestone);
     if (!m) throw new FieldErrors({ milestone: ["Choose a milestone of this job."] });
@@ -519,15 +484,15 @@ export async function changeTargetDate(viewer: User, jobId: string | undefined, 
 }
 
 /** A note from the shop about the work, seen by buyer, shop and operator alike. */
-export async function addProgressNote(viewer: User, jobId: string | undefined, body: string) {
-  return changeJob(viewer, jobId, { check: (job) => mayRecordProgress(viewer, job), refusal: SHOP_ONLY }, async ({ job, transaction }) => {
+export async function addProgressNote(viewer: User, jobId: string | undefined, { body }: { body: string }) {
+  return changeJob(viewer, jobId, "job.recordProgress", async ({ job, transaction }) => {
     await record(transaction, job, viewer, "progress_note", { body });
   });
 }
 
 /** An account manager's (or admin's) internal note: never shown to buyer or shop. */
-export async function addManagerNote(viewer: User, jobId: string | undefined, body: string) {
-  return changeJob(viewer, jobId, { check: () => mayWriteManagerNote(viewer), refusal: OPERATOR_ONLY }, async ({ job, transaction }) => {
+export async function addManagerNote(viewer: User, jobId: string | undefined, { body }: { body: string }) {
+  return changeJob(viewer, jobId, "job.writeManagerNote", async ({ job, transaction }) => {
     await record(transaction, job, viewer, "manager_note", { body, visibility: "operator" });
   });
 }

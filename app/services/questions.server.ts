@@ -4,6 +4,8 @@ import { Bid, Organisation, Spec, SpecQuestion, User, sequelize } from "~/models
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { specForReader, specOfOwner } from "./spec-access.server";
+import { formatDay } from "~/content/dates";
+import { takesBids } from "~/content/spec-status";
 
 // Shops' questions on a spec and the buyer's answers.
 //
@@ -37,16 +39,13 @@ export interface QuestionsPanel {
   closedNote: string | null;
 }
 
-const dateText = (d: Date) => d.toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
-
 /** Open for questions: open for bids, deadline still ahead. */
-export const takesQuestions = (spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()) =>
-  spec.status === "open" && !!spec.bidDeadline && spec.bidDeadline > now;
+export const takesQuestions = (spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()) => takesBids(spec, now);
 
 function closedNote(spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()): string | null {
   if (takesQuestions(spec, now)) return null;
   if (spec.status === "open" && spec.bidDeadline) {
-    return `Bidding closed on ${dateText(spec.bidDeadline)}, so this spec takes no new questions.`;
+    return `Bidding closed on ${formatDay(spec.bidDeadline)}, so this spec takes no new questions.`;
   }
   return "This spec is no longer open for bids, so it takes no new questions.";
 }

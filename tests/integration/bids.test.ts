@@ -132,7 +132,7 @@ describe("a shop's bid", () => {
     expect(bid.lines[2]).toMatchObject({ alternative: true, alternativeDescription: "Our own cast-iron gear pump, same displacement" });
   });
 
-  it("accepts nothing after the deadline, checked by the database clock", async () => {
+  it("accepts nothing after the deadline, judged on the locked row by the one taking-bids rule", async () => {
     const { spec, bom } = await setting();
     const shop = await makeMember("shop");
     const visitor = await signedIn(shop);

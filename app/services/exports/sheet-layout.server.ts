@@ -2,6 +2,7 @@ import ExcelJS from "exceljs";
 import { CIRCUIT_CAUTIONS } from "~/content/cautions";
 import type { Warning } from "~/hydraulics";
 import { warningTitle } from "~/content/warning-titles";
+import { formatDay } from "~/content/dates";
 
 // The look every workbook shares: a header block naming the document and the spec, one styled
 // table header row that stays frozen (and repeats on printed pages), widths chosen per column,
@@ -152,9 +153,8 @@ export const topRule = (cell: ExcelJS.Cell) => {
   cell.border = { ...cell.border, top: { style: "thin", color: { argb: "FF6B7684" } } };
 };
 
-/** "12 May 2025": a day of the header block, in UTC like every date of the app. */
-export const headerDay = (moment: Date | string) =>
-  new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" }).format(typeof moment === "string" ? new Date(`${moment.slice(0, 10)}T00:00:00Z`) : moment);
+/** A day of the header block, written as every page and e-mail writes it. */
+export const headerDay = (moment: Date | string) => formatDay(moment);
 
 /** A calendar day (YYYY-MM-DD) as the date Excel stores: midnight UTC, which exceljs writes as the day. */
 export const excelDay = (day: string) => new Date(`${day.slice(0, 10)}T00:00:00Z`);

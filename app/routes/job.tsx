@@ -29,45 +29,16 @@ import {
   undoLastMilestone,
   type JobEventView,
 } from "~/services/jobs.server";
-import { paymentsOfJob } from "~/services/payments.server";
+import { retainerPanelOf } from "~/services/payments.server";
 import { RetainerPanel } from "~/components/retainer-panel";
 import { RetainerBadge } from "~/components/retainer-badge";
-import type { PaymentStatus } from "~/content/payment-status";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.job.specTitle || "Job"} · Tenderflow` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  const job = await jobFor(user, params.jobId);
-  // Payment attempts are the buyer's and the operator's business, not the shop's.
-  const seesPayments = user.role === "buyer" || user.role === "account_manager" || user.role === "admin";
-  const payments = seesPayments ? await paymentsOfJob(job.id) : [];
-  return {
-    job,
-    retainer: {
-      canPay: user.role === "buyer" && job.retainerCents > 0,
-      canRefund: user.role === "account_manager" || user.role === "admin",
-      payments: payments.map((p) => ({
-        id: p.id,
-        status: p.status as PaymentStatus,
-        amountCents: p.amountCents,
-        refundedCents: p.refundedCents,
-        currency: p.currency,
-        failureMessage: p.failureMessage,
-        createdAt: p.createdAt.toISOString(),
-        paidAt: p.paidAt?.toISOString() ?? null,
-        refunds: ((p as unknown as { refunds?: import("~/models/index.server").Refund[] }).refunds ?? []).map((r) => ({
-          id: r.id,
-          amountCents: r.amountCents,
-          reason: r.reason,
-          status: r.status as "requested" | "recorded" | "failed",
-          by: (r as unknown as { requestedBy?: { name: string } }).requestedBy?.name ?? "",
-          at: r.createdAt.toISOString(),
-          failureMessage: r.failureMessage,
-        })),
-      })),
-    },
-  };
+  const [job, retainer] = await Promise.all([jobFor(user, params.jobId), retainerPanelOf(user, params.jobId)]);
+  return { job, retainer };
 }
 
 type ActionResult = { intent: JobActionIntent | null; result: SubmissionResult<string[]> };
@@ -100,10 +71,10 @@ export async function action({ request, params }: Route.ActionArgs) {
         return redirectWithToast(request, back, `${MILESTONE_LABELS[moved]} is now planned for ${formatDay(change.targetDate)}.`);
       }
       case "progress-note":
-        await addProgressNote(user, job.id, change.body);
+        await addProgressNote(user, job.id, change);
         return redirectWithToast(request, back, "Your note is in the job's history.");
       case "manager-note":
-        await addManagerNote(user, job.id, change.body);
+        await addManagerNote(user, job.id, change);
         return redirectWithToast(request, back, "Internal note saved. Buyer and shop do not see it.");
     }
   } catch (error) {

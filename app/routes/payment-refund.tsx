@@ -2,6 +2,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { data, redirect } from "react-router";
 import type { Route } from "./+types/payment-refund";
 import { requireRole } from "~/auth/permissions.server";
+import { OPERATOR_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { formatMoney } from "~/content/currencies";
 import { currentPasswordField } from "~/schemas/account";
@@ -10,7 +11,6 @@ import { confirmOwnPassword } from "~/services/accounts.server";
 import { FieldErrors } from "~/services/errors.server";
 import { Throttled, clientOf } from "~/services/throttle.server";
 import { requestRefund } from "~/services/payments.server";
-import { Payment } from "~/models/index.server";
 
 const schema = refundSchema.extend({ currentPassword: currentPasswordField });
 
@@ -18,14 +18,13 @@ const schema = refundSchema.extend({ currentPassword: currentPasswordField });
 // typing their password again: a stolen session alone moves no money.
 export async function action(args: Route.ActionArgs) {
   const { request, params } = args;
-  const user = await requireRole(request, ["account_manager", "admin"]);
+  const user = await requireRole(request, OPERATOR_ROLES);
   const submission = parseWithZod(await request.formData(), { schema });
   const hideFields = ["currentPassword"];
   if (submission.status !== "success") return data({ result: submission.reply({ hideFields }) }, { status: 400 });
   try {
     await confirmOwnPassword(clientOf(args), user, submission.value.currentPassword);
-    const refund = await requestRefund(user, params.paymentId, { amountCents: submission.value.amount, reason: submission.value.reason });
-    const payment = await Payment.findByPk(refund.paymentId, { rejectOnEmpty: true });
+    const { refund, payment } = await requestRefund(user, params.paymentId, { amountCents: submission.value.amount, reason: submission.value.reason });
     return redirectWithToast(request, `/jobs/${payment.jobId}`, `Refund of ${formatMoney(refund.amountCents, payment.currency)} sent to the card service; it is recorded here once they confirm it.`);
   } catch (error) {
     if (error instanceof Throttled) {

@@ -4,8 +4,9 @@ import { Job, Organisation, Payment, Refund, Spec, User, sequelize } from "~/mod
 import { formatMoney } from "~/content/currencies";
 import type { PaymentStatus } from "~/content/payment-status";
 import { env } from "~/env.server";
-import { FieldErrors, forbidden, notFound, requireId } from "./errors.server";
+import { FieldErrors, notFound } from "./errors.server";
 import { scopedJob } from "./jobs.server";
+import { authorize, can, findInScope, paymentsWhere, viewerOf } from "~/auth/access-policy.server";
 import { OPEN_PAYMENT_STATUSES } from "~/models/payment.server";
 import { retireCheckout, syncPayment } from "./payment-sync.server";
 import { isMissingAtStripe, stripe } from "./stripe.server";
@@ -105,7 +106,7 @@ async function newCheckout(payment: Payment, job: Job, user: User): Promise<stri
  */
 export async function startRetainerPayment(user: User, jobId: string | undefined): Promise<string> {
   const job = await scopedJob(user, jobId);
-  if (user.role !== "buyer") forbidden("Only the buyer pays the retainer.");
+  authorize(await viewerOf(user), "job.payRetainer", job);
   if (job.retainerPaidAt) throw new FieldErrors({ "": ["The retainer is already paid."] });
   if (job.retainerCents <= 0) throw new FieldErrors({ "": ["This job has no retainer to pay."] });
 
@@ -141,34 +142,54 @@ export async function paymentOfSession(user: User, jobId: string | undefined, se
   return { job, payment };
 }
 
-/** Payments of one job, newest first, with their refunds: for the job page. */
-export async function paymentsOfJob(jobId: string) {
-  return Payment.findAll({
-    where: { jobId },
-    include: [{ model: Refund, as: "refunds", include: [{ model: User, as: "requestedBy", attributes: ["name"] }] }],
-    order: [["createdAt", "DESC"], [{ model: Refund, as: "refunds" }, "createdAt", "ASC"]],
-  });
+/**
+ * The job page's retainer panel: the job's payments with their refunds, newest first, for the
+ * buyer and the account's staff (a shop sees none), and what this viewer may do with them.
+ */
+export async function retainerPanelOf(user: User, jobId: string | undefined) {
+  const viewer = await viewerOf(user);
+  const job = await scopedJob(user, jobId);
+  const payments = can(viewer, "job.seePayments", job)
+    ? await Payment.findAll({
+        where: { jobId: job.id },
+        include: [{ model: Refund, as: "refunds", include: [{ model: User, as: "requestedBy", attributes: ["name"] }] }],
+        order: [["createdAt", "DESC"], [{ model: Refund, as: "refunds" }, "createdAt", "ASC"]],
+      })
+    : [];
+  return {
+    canPay: can(viewer, "job.payRetainer", job) && job.retainerCents > 0,
+    canRefund: can(viewer, "payment.refund", job),
+    payments: payments.map((p) => ({
+      id: p.id,
+      status: p.status as PaymentStatus,
+      amountCents: p.amountCents,
+      refundedCents: p.refundedCents,
+      currency: p.currency,
+      failureMessage: p.failureMessage,
+      createdAt: p.createdAt.toISOString(),
+      paidAt: p.paidAt?.toISOString() ?? null,
+      refunds: ((p as Payment & { refunds?: (Refund & { requestedBy?: { name: string } })[] }).refunds ?? []).map((r) => ({
+        id: r.id,
+        amountCents: r.amountCents,
+        reason: r.reason,
+        status: r.status,
+        by: r.requestedBy?.name ?? "",
+        at: r.createdAt.toISOString(),
+        failureMessage: r.failureMessage,
+      })),
+    })),
+  };
 }
 
 // ---------------------------------------------------------------------------------------------
 // The payments table and refunds: account managers for their accounts, admins for all, a buyer
 // for its own organisation.
 
-async function paymentScope(viewer: User): Promise<WhereOptions<Payment>> {
-  if (viewer.role === "admin") return {};
-  if (viewer.role === "buyer") return { buyerOrganisationId: viewer.organisationId };
-  if (viewer.role === "account_manager") {
-    const accounts = await Organisation.findAll({ where: { accountManagerId: viewer.id }, attributes: ["id"] });
-    return { buyerOrganisationId: accounts.map((a) => a.id) };
-  }
-  forbidden();
-}
-
 export const PAYMENTS_PAGE_SIZE = 50;
 
 export async function listPayments(viewer: User, query: { status?: PaymentStatus; flagged?: boolean; page?: number }) {
   const where: WhereOptions<Payment> = {
-    [Op.and]: [await paymentScope(viewer), ...(query.status ? [{ status: query.status }] : []), ...(query.flagged ? [{ flag: { [Op.ne]: null } }] : [])],
+    [Op.and]: [paymentsWhere(await viewerOf(viewer)), ...(query.status ? [{ status: query.status }] : []), ...(query.flagged ? [{ flag: { [Op.ne]: null } }] : [])],
   };
   const page = Math.max(1, query.page ?? 1);
   const { rows, count } = await Payment.findAndCountAll({
@@ -192,14 +213,14 @@ async function refundableCents(payment: Payment, transaction: Transaction) {
 
 /**
  * Asks Stripe to pay back part or all of a retainer (account managers of the account, admins).
- * The refund row waits as "requested" until charge.refunded arrives by webhook.
+ * The refund row waits as "requested" until charge.refunded arrives by webhook. Returns the
+ * refund and the payment it is on (for the job it belongs to and its currency).
  */
-export async function requestRefund(viewer: User, paymentId: string | undefined, input: { amountCents?: number; reason: string }) {
-  if (viewer.role !== "account_manager" && viewer.role !== "admin") forbidden("Only account managers and administrators pay back retainers.");
-  const id = requireId(paymentId);
+export async function requestRefund(user: User, paymentId: string | undefined, input: { amountCents?: number; reason: string }) {
+  const viewer = await viewerOf(user);
   const { payment, refund } = await sequelize.transaction(async (transaction) => {
-    const payment = await Payment.findOne({ where: { [Op.and]: [await paymentScope(viewer), { id }] }, lock: transaction.LOCK.UPDATE, transaction });
-    if (!payment) notFound("No such payment.");
+    const payment = await findInScope(Payment, paymentsWhere(viewer), paymentId, { missing: "No such payment.", lock: transaction.LOCK.UPDATE, transaction });
+    authorize(viewer, "payment.refund", payment);
     if (!["paid", "partially_refunded"].includes(payment.status) || !payment.paymentIntentId) {
       throw new FieldErrors({ amount: ["Only a paid retainer can be paid back."] });
     }
@@ -208,7 +229,7 @@ export async function requestRefund(viewer: User, paymentId: string | undefined,
     if (left <= 0) throw new FieldErrors({ amount: ["Nothing is left to pay back."] });
     if (amountCents <= 0) throw new FieldErrors({ amount: ["Enter an amount above zero, or leave it empty to pay back everything left."] });
     if (amountCents > left) throw new FieldErrors({ amount: [`At most ${formatMoney(left, payment.currency)} can still be paid back.`] });
-    const refund = await Refund.create({ paymentId: payment.id, requestedById: viewer.id, amountCents, reason: input.reason, stripeRefundId: null, failureMessage: null, recordedAt: null }, { transaction });
+    const refund = await Refund.create({ paymentId: payment.id, requestedById: user.id, amountCents, reason: input.reason, stripeRefundId: null, failureMessage: null, recordedAt: null }, { transaction });
     return { payment, refund };
   });
   try {
@@ -222,5 +243,5 @@ export async function requestRefund(viewer: User, paymentId: string | undefined,
     await refund.update({ status: "failed", failureMessage: error.message });
     throw new FieldErrors({ amount: [`The card service refused the refund: ${error.message}`] });
   }
-  return refund;
+  return { refund, payment };
 }

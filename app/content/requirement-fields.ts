@@ -1,5 +1,5 @@
 import { REQUIREMENT_DEFAULTS, requirementsSchema, type RequirementsInput } from "~/hydraulics";
-import { fromDisplay, roundForDisplay, toDisplay, unitLabel, UNITS, type Quantity, type UnitSystem } from "~/units";
+import { fromDisplay, parseWithUnit, roundForDisplay, toDisplay, unitLabel, UNITS, type Quantity, type UnitSystem } from "~/units";
 
 // The questions a person answers about one axis: wording, examples, units and defaults, in one
 // place for the quick-sizing page and the spec form. Values are typed in the person's unit
@@ -285,7 +285,9 @@ export function fieldApplies(key: RequirementKey, answers: DecidingAnswers) {
   // A pressing speed belongs to a pressing stroke; > 0 reads the same in every unit system.
   if (key === "pressSpeedMmS") {
     const press = answers.pressStrokeMm;
-    return (typeof press === "number" ? press : typedNumber(press ?? "")) > 0;
+    if (typeof press === "number") return press > 0;
+    const typed = typedNumber(press ?? "");
+    return (Number.isFinite(typed) ? typed : (parseWithUnit("length", press ?? "") ?? 0)) > 0;
   }
   return true;
 }
@@ -319,37 +321,68 @@ export function differsFromDefault(keys: readonly RequirementKey[], values: Form
 }
 
 /**
- * Typed values (strings in the person's units) → the engine's input. Blank fields are left out
- * so the engine's defaults and "required" messages apply; text that isn't a number is passed on
- * as text so the engine's schema reports it against the right field.
+ * One typed number in the app's units: a plain number is in the person's units; a number with
+ * its own unit ("150 kN", "6 in") is read in that unit. NaN when it is neither.
  */
-export function toRequirementsInput(values: FormValues, system: UnitSystem): Record<string, unknown> {
+export function typedAppValue(field: NumberField, raw: string, system: UnitSystem): number {
+  const number = typedNumber(raw);
+  if (Number.isFinite(number)) return field.quantity ? fromDisplay(field.quantity, number, system) : number;
+  return (field.quantity && parseWithUnit(field.quantity, raw)) ?? Number.NaN;
+}
+
+/** An answer as the person typed it, with the unit system they typed it in. */
+export type TypedAnswers = Partial<Record<RequirementKey, { text: string; system: UnitSystem }>>;
+
+/** Form values typed in one unit system, as typed answers. */
+export function typedAnswers(values: FormValues, system: UnitSystem): TypedAnswers {
+  return Object.fromEntries(Object.entries(values).map(([k, text]) => [k, { text: text ?? "", system }]));
+}
+
+/**
+ * Typed answers → the engine's input. Each number is converted once, from the system it was
+ * typed in, so switching units back and forth never changes what is sized. Blank fields are
+ * left out so the engine's defaults and "required" messages apply; text that isn't a number is
+ * passed on as text so the engine's schema reports it against the right field.
+ */
+export function typedToRequirementsInput(typed: TypedAnswers): Record<string, unknown> {
+  const deciding = { orientation: typed.orientation?.text, pressStrokeMm: typed.pressStrokeMm?.text };
   const input: Record<string, unknown> = {};
   for (const field of Object.values(REQUIREMENT_FIELDS)) {
-    const raw = values[field.key]?.trim();
-    if (!raw || !fieldApplies(field.key, values)) continue;
+    const answer = typed[field.key];
+    const raw = answer?.text.trim();
+    if (!answer || !raw || !fieldApplies(field.key, deciding)) continue;
     if (field.kind === "choice") {
       input[field.key] = field.key === "supplyHz" ? Number(raw) : raw;
       continue;
     }
-    const number = typedNumber(raw);
-    input[field.key] = Number.isFinite(number) ? (field.quantity ? fromDisplay(field.quantity, number, system) : number) : raw;
+    const value = typedAppValue(field, raw, answer.system);
+    input[field.key] = Number.isFinite(value) ? value : raw;
   }
   return input;
 }
 
-/** Re-expresses typed values when the person switches unit system. */
-export function convertFormValues(values: FormValues, from: UnitSystem, to: UnitSystem): FormValues {
-  if (from === to) return values;
-  const next: FormValues = { ...values };
+/** Typed values (strings in the person's units) → the engine's input. */
+export function toRequirementsInput(values: FormValues, system: UnitSystem): Record<string, unknown> {
+  return typedToRequirementsInput(typedAnswers(values, system));
+}
+
+/**
+ * What the form shows in a unit system: an answer typed in it exactly as typed, one typed in
+ * the other system converted and rounded for display (the typed text itself is kept).
+ */
+export function shownValues(typed: TypedAnswers, system: UnitSystem): FormValues {
+  const shown: FormValues = {};
   for (const field of Object.values(REQUIREMENT_FIELDS)) {
-    if (field.kind !== "number" || !field.quantity) continue;
-    const number = Number(values[field.key]);
-    if (values[field.key]?.trim() && Number.isFinite(number)) {
-      next[field.key] = displayValue(field, fromDisplay(field.quantity, number, from), to);
+    const answer = typed[field.key];
+    if (!answer) continue;
+    if (answer.system === system || field.kind !== "number" || !field.quantity || !answer.text.trim()) {
+      shown[field.key] = answer.text;
+      continue;
     }
+    const value = typedAppValue(field, answer.text, answer.system);
+    shown[field.key] = Number.isFinite(value) ? displayValue(field, value, system) : answer.text;
   }
-  return next;
+  return shown;
 }
 
 /** The engine schema's bounds of a numeric field, in the app's units. */
@@ -423,7 +456,8 @@ export function answerInWords(key: RequirementKey, raw: string | undefined, syst
   if (!text) return field.emptyLabel ?? null;
   if (field.kind === "choice") return field.options.find((o) => o.value === text)?.label ?? text;
   const unit = fieldUnit(field, system);
-  return unit ? `${text} ${unit}` : text;
+  // "150 kN" carries its own unit.
+  return unit && Number.isFinite(typedNumber(text)) ? `${text} ${unit}` : text;
 }
 
 /**

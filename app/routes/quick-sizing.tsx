@@ -10,13 +10,15 @@ import { useLiveSizing } from "~/components/use-live-sizing";
 import {
   EXAMPLE_AXIS,
   REQUIREMENT_FIELDS,
-  convertFormValues,
   defaultFormValues,
   differsFromDefault,
   fieldApplies,
   fieldMessages,
+  shownValues,
   toFormValues,
   toRequirementsInput,
+  typedAnswers,
+  typedToRequirementsInput,
   type FormValues,
   type RequirementKey,
 } from "~/content/requirement-fields";
@@ -61,8 +63,11 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export default function QuickSizing({ loaderData }: Route.ComponentProps) {
   const [system, setSystem] = useState<UnitSystem>(loaderData.system);
-  const [values, setValues] = useState<FormValues>(loaderData.values);
-  const input = useMemo(() => toRequirementsInput(values, system), [values, system]);
+  // What the person typed, each answer in the system it was typed in: switching units shows
+  // converted values but sizes the typed ones, so switching back and forth never drifts.
+  const [typed, setTyped] = useState(() => typedAnswers(loaderData.values, loaderData.system));
+  const values = useMemo(() => shownValues(typed, system), [typed, system]);
+  const input = useMemo(() => typedToRequirementsInput(typed), [typed]);
   const live = useLiveSizing(input, { design: loaderData.design, fieldErrors: loaderData.fieldErrors });
   const design = live.design;
   const hasErrors = Object.keys(live.fieldErrors).length > 0;
@@ -74,14 +79,11 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
       value={values[key]}
       system={system}
       errors={fieldMessages(key, live.fieldErrors[key], system)}
-      onChange={(value) => setValues((v) => ({ ...v, [key]: value }))}
+      onChange={(text) => setTyped((t) => ({ ...t, [key]: { text, system } }))}
     />
   );
 
-  const switchUnits = (next: UnitSystem) => {
-    setValues((v) => convertFormValues(v, system, next));
-    setSystem(next);
-  };
+  const switchUnits = (next: UnitSystem) => setSystem(next);
 
   return (
     <>

@@ -59,6 +59,22 @@ export function fromDisplay(quantity: Quantity, value: number, system: UnitSyste
   return converter(UNITS[quantity][system].qty, UNITS[quantity].metric.qty)(value);
 }
 
+/**
+ * A number typed with its own unit ("150 kN", "6 in", "2 t") in the app's unit for this
+ * quantity; null when the text is not one number and one unit of this kind. A comma reads as
+ * the decimal point, as in plain numbers. Temperatures are typed as plain numbers only.
+ */
+export function parseWithUnit(quantity: Quantity, text: string): number | null {
+  const target = UNITS[quantity].metric.qty;
+  const trimmed = text.trim().replace(",", ".");
+  // A bare unit ("kN") would read as one of it: a number must come first.
+  if (target.startsWith("temp") || trimmed.length > 40 || !/^[+-]?\.?\d/.test(trimmed)) return null;
+  const parsed = Qty.parse(trimmed);
+  if (!parsed || !parsed.isCompatible(target)) return null;
+  const value = parsed.to(target).scalar;
+  return Number.isFinite(value) ? value : null;
+}
+
 export function unitLabel(quantity: Quantity, system: UnitSystem): string {
   return UNITS[quantity][system].label;
 }

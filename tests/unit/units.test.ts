@@ -77,3 +77,41 @@ describe("formatting", () => {
     expect(formatQuantity("power", 0.004, "metric")).toBe("0.004 kW");
   });
 });
+
+describe("numbers typed with their own unit", () => {
+  it("reads a force with a prefix, a length in inches and a mass in tonnes into the app's units (js-quantities)", async () => {
+    const { parseWithUnit } = await import("~/units");
+    expect(parseWithUnit("force", "150 kN")).toBe(150_000);
+    expect(parseWithUnit("force", "1,5kN")).toBe(1500);
+    closeTo(parseWithUnit("length", "6 in")!, 152.4); // 1 in = 25.4 mm exactly
+    expect(parseWithUnit("mass", "2 t")).toBe(2000); // tonne
+    expect(parseWithUnit("force", "150 bar")).toBeNull(); // not a force
+    expect(parseWithUnit("force", "kN")).toBeNull();
+    expect(parseWithUnit("temperature", "25 degC")).toBeNull(); // temperatures as plain numbers only
+  });
+});
+
+describe("typed answers across unit switches", () => {
+  it("sizes what was typed, and shows it unchanged after metric → US → metric", async () => {
+    const { shownValues, typedAnswers, typedToRequirementsInput } = await import("~/content/requirement-fields");
+    const typed = typedAnswers({ orientation: "horizontal", processForceN: "150000", strokeMm: "400" }, "metric");
+    const us = shownValues(typed, "us");
+    expect(us.processForceN).toBe("33721"); // 150 000 N / 4.4482216 N/lbf, rounded to whole lbf
+    expect(shownValues(typed, "metric").processForceN).toBe("150000");
+    expect(typedToRequirementsInput(typed).processForceN).toBe(150_000);
+    // A value typed in US units while viewing US units is sized from its own system.
+    const edited = { ...typed, strokeMm: { text: "10", system: "us" as const } };
+    closeTo(typedToRequirementsInput(edited).strokeMm as number, 254);
+    expect(shownValues(edited, "metric").strokeMm).toBe("254");
+  });
+
+  it("takes a force typed with a prefix in either system, and shows it as typed", async () => {
+    const { answerInWords, shownValues, typedToRequirementsInput } = await import("~/content/requirement-fields");
+    const typed = { processForceN: { text: "150 kN", system: "us" as const } };
+    expect(typedToRequirementsInput(typed).processForceN).toBe(150_000);
+    expect(shownValues(typed, "us").processForceN).toBe("150 kN");
+    expect(shownValues(typed, "metric").processForceN).toBe("150000");
+    expect(answerInWords("processForceN", "150 kN", "metric")).toBe("150 kN");
+    expect(answerInWords("processForceN", "150000", "metric")).toBe("150000 N");
+  });
+});

@@ -3,6 +3,7 @@
  * are additions for the design page, exports and reviewers.
  */
 import type { Cushioning } from "./cushioning";
+import type { CyclePhase } from "./cycle";
 import type { Decompression } from "./decompression";
 import type { PumpType } from "./pump-choice";
 import type { HoldingDesign } from "./holding";
@@ -13,7 +14,7 @@ import type { TrailEntry } from "./trail";
 import type { CbvSide, DcvCenter, DcvPositions, PortPair } from "./valves";
 import type { Warning } from "./warnings";
 
-export type { DcvPositions, PortPair, DcvCenter, CbvSide, LineSizing, TrailEntry, Warning, HoldingDesign };
+export type { DcvPositions, PortPair, DcvCenter, CbvSide, LineSizing, TrailEntry, Warning, HoldingDesign, CyclePhase };
 
 export interface LoadsBreakdown {
   angleDeg: number;
@@ -261,4 +262,9 @@ export interface Design {
   bom: BomLine[];
   trail: TrailEntry[];
   circuit: Circuit;
+  /**
+   * The phases of one cycle in time order, with pressure, flows and power (cycle.ts). Absent in
+   * designs stored by engines before 2.10, which published specs keep: readers must allow for that.
+   */
+  cycle?: CyclePhase[];
 }

@@ -8,6 +8,7 @@ import { cylinderCandidates, cylinderForceN, workingLimitBar } from "./cylinder"
 import type { Design } from "./design";
 import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
 import { cushioningFor } from "./cushioning";
+import { cycleOf, cycleTrail } from "./cycle";
 import { decompressionFor } from "./decompression";
 import { holdingFor } from "./holding";
 import { NotSizableError } from "./not-sizable";
@@ -22,7 +23,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.9.0";
+export const ENGINE_VERSION = "2.10.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -334,6 +335,8 @@ export function sizeCircuitParsed(req: Requirements): Design {
   design.bom = buildBom(design, gaugeRangeBar);
   design.circuit = buildCircuit(design, gaugeRangeBar, design.circuit.dcvPositions);
   design.trail = explain(design, ctx, ev, { pumpOnRelief: centre.pumpOnReliefInNeutral, gaugeRangeBar, duty });
+  design.cycle = cycleOf(design);
+  design.trail.push(cycleTrail(design.cycle, req.cyclesPerHour));
   return design;
 }
 

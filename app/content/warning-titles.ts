@@ -26,6 +26,7 @@ const TITLES: Partial<Record<WarningCode, string>> = {
   CUSHION_PRESSURE_HIGH: "Stroke-end cushion above the cylinder's rating",
   DECOMPRESSION_NEEDED: "Oil must be decompressed before the return stroke",
   PUMP_TYPE_NOT_SUITED: "The pump you asked for does not suit this axis",
+  PRESS_CONTROL_DROP_LOW: "Pressing-speed control has little pressure to work with",
 };
 
 /** The title of a warning; a code without one yet still reads as a sentence, never as a code. */

@@ -84,6 +84,8 @@ export const ASSUMPTIONS = {
   unloadedDropBar: a(5, "bar", "pressure across an open unloading valve and the tank line, typically 3–7 bar; a trade text cites a 70 psi (4.8 bar) vented dump [S]/[CP]"),
   twoSpeedFlowRatio: a(3, "-", "fast-to-pressing flow ratio from which one pump for the fast flow at pressing pressure clearly over-sizes the motor (our convention, following the high-low pump argument in trade-press pump articles)"),
   compensatorLeakShare: a(0.05, "-", "standby leakage of a compensated pump ≈ (1 − η_v)·Q_max, a first estimate from memory [M]"),
+  compensatorReliefGapBar: a(10, "bar", "relief at least about 10 bar above the compensator (p_c + 10…20 bar, or 1.1·p_c on a maker's page), so it never opens in normal work; common practice [CP]"),
+  flowControlMinDropBar: a(5, "bar", "a pressure-compensated flow control regulates once about 5–10 bar drops across it; 5 bar, from memory [M]"),
   motorPeakRatio: a(1.5, "× rating", "a short peak kept below 1.5 × the rated power, from the 1.6 × of IEC 60034-1 with margin [M]/[D]"),
 
   // Pump speed check

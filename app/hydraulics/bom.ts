@@ -162,7 +162,31 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
       },
     );
   }
+  if (d.pressSpeedControl) bom.push(...pressSpeedLines(d, relief));
   return bom;
+}
+
+/** The meter-in flow control that sets the pressing speed, its approach bypass and the switch that changes over. */
+function pressSpeedLines(d: Design, relief: number): BomLine[] {
+  const pc = d.pressSpeedControl!;
+  const speed = d.requirements.pressSpeedMmS;
+  return [
+    {
+      key: "press-flow-control", item: "Flow control valve, pressure-compensated, with reverse free-flow check", quantity: 1,
+      specification: `meter-in, in the cap line between valve port A and the cylinder: set to ${num(pc.settingLpm)} L/min${speed !== undefined ? ` (pressing at ${num(speed)} mm/s)` : ""}, controlled range reaching at least that, needs about ${num(pc.minDropBar)} bar across it to regulate; the check passes ${num(pc.returnFlowLpm)} L/min back from the cap end on the return; rated for at least ${relief} bar. Never in the rod-end line`,
+      rating: { value: pc.settingLpm, unit: "L/min", label: "setting" },
+    },
+    {
+      key: "press-bypass-valve", item: "Bypass valve, 2/2 solenoid, normally closed, poppet type", quantity: 1,
+      specification: `across the flow control: energised for the approach (passes ${num(pc.bypassFlowLpm)} L/min), de-energised where the pressing stroke starts, so a lost signal leaves the rod at pressing speed; ${d.directionalValve.coilVoltage} coil, rated for at least ${relief} bar`,
+      rating: { value: pc.bypassFlowLpm, unit: "L/min", label: "flow" },
+    },
+    {
+      key: "press-limit-switch", item: "Limit switch (or inductive proximity switch), start of the pressing stroke", quantity: 1,
+      specification: `adjustable on the axis, ${num(d.requirements.pressStrokeMm)} mm before the end of the extension; switches the bypass valve off so the flow control takes over`,
+      rating: { value: d.requirements.pressStrokeMm, unit: "mm", label: "pressing stroke" },
+    },
+  ];
 }
 
 /** The pump line names the kind of pump and every setting a shop must quote it with. */

@@ -5,6 +5,7 @@
 import type { Cushioning } from "./cushioning";
 import type { CyclePhase } from "./cycle";
 import type { Decompression } from "./decompression";
+import type { PressSpeedControl } from "./press-speed";
 import type { PumpType } from "./pump-choice";
 import type { HoldingDesign } from "./holding";
 import type { LineSizing } from "./lines";
@@ -206,10 +207,12 @@ export interface Design {
   regenerative: boolean;
   /**
    * With a pressing stroke and a pump that delivers more than the pressing flow (fixed or
-   * compensated): the meter-in flow control that sets the pressing speed, bypassed by a
-   * solenoid valve during the approach. null where the pump itself gives the pressing speed.
+   * compensated, or a double pump whose small section is more than the speed tolerance too fast):
+   * the meter-in flow control in the cap line that sets the pressing speed, bypassed by a
+   * solenoid valve during the approach (press-speed.ts). null where the pump itself gives the
+   * pressing speed.
    */
-  pressSpeedControl: { settingLpm: number; bypass: string } | null;
+  pressSpeedControl: PressSpeedControl | null;
   counterbalance: Counterbalance | null;
   /** leak-tight holding where the load is held at rest longer than a few minutes */
   holding: HoldingDesign | null;

@@ -7,6 +7,7 @@ import { EFFECTIVE_LENGTH_FORMULA, EULER_CASES } from "./buckling";
 import type { Design, LineSizing } from "./design";
 import type { Evaluation, SizingContext } from "./evaluate";
 import type { DutyShares } from "./reservoir-heat";
+import { pressSpeedTrail } from "./press-speed";
 import { Trail, v, type TrailEntry } from "./trail";
 
 const TEXTBOOK_CYL = "textbook cylinder relation (Esposito, Fluid Power with Applications) [M]; units identity [D]";
@@ -30,6 +31,9 @@ const NEUTRAL_VENTED = "P = p_vent·Q_p / (600·η): the vented relief lets the 
 const NEUTRAL_VENTED_SOURCE = "P = p·Q/600 [D]; vent pressure common practice [CP]";
 const NEUTRAL_ON_RELIEF = "P = p_relief·Q_p / (600·η): the pump runs over relief";
 const NEUTRAL_UNLOADED = "P = p_unload·Q_p / (600·η): the pump unloads P→T";
+const NEUTRAL_STANDBY =
+  "P = p_c·Q_leak / 600, Q_leak ≈ (1 − η_v)·Q_max: P is blocked, so the compensated pump holds its setting and delivers only its leakage (standby); the destroked pump's friction is not counted";
+const STANDBY_SOURCE = "compensated-pump standby, trade magazine on pressure-compensated pumps [S]; leakage estimate from memory [M]; P = p·Q/600 [D]";
 
 const EULER_K: Readonly<Record<number, number>> = Object.fromEntries(Object.values(EULER_CASES).map((c) => [c.eulerCase, c.k]));
 
@@ -140,8 +144,12 @@ export function explain(
       "unloading valve above the fast-motion pressure and clearly below the pressing pressure, common practice [CP]");
   }
   if (d.pump.type === "compensated" && d.pump.compensatorBar !== undefined) {
-    t.add("compensator setting", d.pump.compensatorBar, "bar", "p_c ≥ the highest working pressure with line losses, rounded up to 5 bar; the relief sits about 10 % above",
-      { p_working: v(d.cylinder.workingPressureBar, "bar"), p_relief: vRelief }, "compensator somewhat above the heaviest load's pressure: trade-press pump article [S]; 10 % relief margin on a maker's page [CP]");
+    t.add("compensator setting", d.pump.compensatorBar, "bar",
+      d.pressSpeedControl
+        ? "p_c = max(p_working, min(p_press + Δp_control, p_relief − 10 bar)), rounded to 5 bar: the pressing-speed flow control needs its regulating drop above the pressing pressure, and the relief stays about 10 bar above p_c"
+        : "p_c ≥ the highest working pressure with line losses, rounded up to 5 bar; the relief sits about 10 % above",
+      { p_working: v(d.cylinder.workingPressureBar, "bar"), p_relief: vRelief, ...(d.pressSpeedControl ? { p_press: v(d.pressuresBar.press ?? 0, "bar"), Δp_control: v(d.pressSpeedControl.minDropBar, "bar") } : {}) },
+      "compensator somewhat above the heaviest load's pressure: trade-press pump article [S]; relief 10 % or 10–20 bar above the compensator on a maker's page [CP]; flow-control regulating drop from memory [M]");
     if (d.pump.powerLimitKw !== undefined) {
       t.add("power limiter setting", d.pump.powerLimitKw, "kW", "the highest shaft power any phase draws: high flow and high pressure never meet, so the limiter keeps the pump off its corner p_c·Q_max",
         { p_c: v(d.pump.compensatorBar, "bar"), Q_max: vQp }, "horsepower- and torque-limiting pumps: trade-press pump chapters [S]");
@@ -341,11 +349,12 @@ export function explain(
     t.add("flow while pressing", d.flowsLpm.press, "L/min", "Q = A1·v_press·0.06/1000", { A1: vA1, v_press: vPress }, "continuity [D]");
     t.add("pressing pressure", d.pressuresBar.press, "bar", "p = (F_process + F_friction + G)/(η·A1) + losses at the pressing flow",
       { F: v(L.extendPressN, "N"), A1: vA1, Q: v(d.flowsLpm.press, "L/min") }, "force balance on the piston (Esposito) [M]; losses by Darcy–Weisbach [D]");
+    pressSpeedTrail(t, d);
     t.add("share of time pressing", h.pressShare, "-", "cycles/h · pressing stroke / v_press / 3600",
       { cycles: v(r.cyclesPerHour, "1/h"), t_press: v(extra.duty.pressS, "s"), pressing_stroke: v(r.pressStrokeMm, "mm") }, "[D]");
     t.add("heat while pressing", h.pressLossKw, "kW",
       d.pump.type === "fixed"
-        ? "P = p_relief·Q_p/(600·η) − F_press·v_press: a fixed pump sits at the relief and its surplus flow crosses it"
+        ? "P = p_relief·Q_p/(600·η) − F_press·v_press: a fixed pump sits at the relief; the flow control passes the pressing flow (dropping p_relief − p_press) and the surplus crosses the relief"
         : "P = the chosen pump's power while pressing / η − F_press·v_press",
       { p_relief: vRelief, Q_p: vQp, F_press: v(L.extendPressN, "N"), v_press: vPress }, "energy balance [D]; fixed-pump behaviour, trade-press pump articles [S]");
   }
@@ -355,17 +364,22 @@ export function explain(
     { p: v(ev.extendSteadyBar, "bar"), Q_p: vQp, F_steady: v(L.extendSteadyN, "N"), v: v(d.speedsMmS.extendActual, "mm/s") }, "energy balance [D]");
   t.add("heat while retracting", h.retractLossKw, "kW", "P_shaft − F_steady·v (pump losses, lines, valves, CBV)",
     { p: v(ev.retractSteadyBar, "bar"), Q_p: vQp, F_steady: v(L.retractSteadyN, "N"), v: v(d.speedsMmS.retractActual, "mm/s") }, "energy balance [D]");
-  t.add("heat in neutral", h.neutralLossKw, "kW",
-    vent ? NEUTRAL_VENTED : onRelief ? NEUTRAL_ON_RELIEF : NEUTRAL_UNLOADED,
-    { p: v(h.neutralPressureBar, "bar"), Q_p: vQp, η: v(d.pump.overallEfficiency, "-") },
-    vent ? NEUTRAL_VENTED_SOURCE : "P = p·Q/600 [D]");
+  if (d.pump.type === "compensated") {
+    t.add("heat in neutral", h.neutralLossKw, "kW", NEUTRAL_STANDBY,
+      { p_c: v(h.neutralPressureBar, "bar"), Q_leak: v(A.compensatorLeakShare.value * qp, "L/min"), Q_max: vQp, η_v: v(d.pump.volumetricEfficiency, "-") }, STANDBY_SOURCE);
+  } else {
+    t.add("heat in neutral", h.neutralLossKw, "kW",
+      vent ? NEUTRAL_VENTED : onRelief ? NEUTRAL_ON_RELIEF : NEUTRAL_UNLOADED,
+      { p: v(h.neutralPressureBar, "bar"), Q_p: vQp, η: v(d.pump.overallEfficiency, "-") },
+      vent ? NEUTRAL_VENTED_SOURCE : "P = p·Q/600 [D]");
+  }
   t.add("share of time dwelling at force", h.dwellShare, "-", "cycles/h · dwell / 3600",
     { cycles: v(r.cyclesPerHour, "1/h"), dwell: v(r.dwellS, "s") }, "[D]");
   t.add("heat while dwelling", h.dwellLossKw, "kW",
     d.pump.type === "double"
       ? "P = (p_relief·Q_S + Δp_u·Q_L) / (600·η): the small section crosses the relief, the large one is unloaded; the rod does no work"
       : d.pump.type === "compensated"
-        ? "P = p_c·Q_leak / (600·η): the compensated pump holds its setting and delivers only its leakage, Q_leak ≈ (1 − η_v)·Q_max [M]"
+        ? NEUTRAL_STANDBY
         : "P = p_relief·Q_p / (600·η): the rod does no work, the whole flow crosses the relief and all input power becomes heat",
     { p_relief: vRelief, Q_p: vQp, η: v(d.pump.overallEfficiency, "-") }, "energy balance [D]; P = p·Q/600 [D]");
   t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over approach, pressing, retract, dwell and neutral",

@@ -4,6 +4,7 @@
  * pressure-compensated pump, with a power limiter where high flow and high pressure never meet.
  */
 import { A } from "./assumptions";
+import { pressNeedsControl } from "./press-speed";
 import { pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import type { PUMP_TYPES } from "./requirements";
 
@@ -89,15 +90,32 @@ function double(d: PhaseDemand, reason: string): PumpChoice | null {
       approach: hyd(d.approachBar, qS + qL),
       // both sections just before the large one unloads: the high-low pump's peak
       unloadingPeak: beforeUnloadingKw,
-      press: atForce, dwell: atForce,
+      // Pressing: a small section that suits the pressing speed pumps straight into the cap end at
+      // the pressing pressure; one that is too fast feeds a flow control and sits at the relief.
+      press: pressNeedsControl(qS, d.press.flowLpm) ? atForce : hyd(d.press.bar, qS) + hyd(A.unloadedDropBar.value, qL),
+      dwell: atForce,
       retract: hyd(d.retractBar, qS + qL),
     },
   };
 }
 
+/**
+ * p_c somewhat above the highest working pressure (trade-press pump article), rounded up to 5 bar.
+ * With a pressing stroke the meter-in flow control needs its regulating drop on top of the
+ * pressing pressure, so p_c rises towards it, but stays about 10 bar under the relief so the
+ * relief never opens in normal work (both common practice); press-speed.ts warns if it falls short.
+ */
+export function compensatorSettingBar(d: Pick<PhaseDemand, "workingBar" | "press" | "reliefBar">): number {
+  const base = roundUp5(d.workingBar);
+  if (!d.press) return base;
+  const step = A.reliefRoundingBar.value;
+  const belowRelief = Math.floor((d.reliefBar - A.compensatorReliefGapBar.value) / step + 1e-9) * step;
+  return Math.max(base, Math.min(roundUp5(d.press.bar + A.flowControlMinDropBar.value), belowRelief));
+}
+
 function compensated(d: PhaseDemand, reason: string, limiter: boolean): PumpChoice {
   const q = d.pumpFlowLpm;
-  const pc = roundUp5(d.workingBar);
+  const pc = compensatorSettingBar(d);
   const leak = A.compensatorLeakShare.value * q;
   const hydraulicKw = {
     approach: hyd(d.approachBar, q),

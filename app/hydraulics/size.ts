@@ -15,7 +15,8 @@ import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
 import { lineLossBar, sizeLine } from "./lines";
 import { choosePump } from "./pump-choice";
-import { hydraulicPowerKw, selectMotorKw } from "./pump-motor";
+import { pressSpeedControlFor } from "./press-speed";
+import { hydraulicPowerKw, pumpDeliveryLpm, selectMotorKw } from "./pump-motor";
 import type { Requirements } from "./requirements";
 import { cylinderDrawL, dutyShares, reservoirVolumeL, strokeHeatKw, tankDissipationKw, tankSurfaceM2 } from "./reservoir-heat";
 import { FOUR_POLE_FRAMES, GAUGE_RANGES_BAR, nextInSeries } from "./series";
@@ -100,22 +101,10 @@ export function sizeCircuitParsed(req: Requirements): Design {
 
   // Directional valve
   const holding = holdingFor(req, ctx.loads, cyl, qp);
-  // The cap end at full stroke holds the highest extend pressure, the relief where the pump sits there.
-  const capOilL = (cyl.capAreaMm2 * req.strokeMm) / 1e6 + (Math.PI * lines.capWork.innerDiameterMm ** 2 / 4) * lines.capWork.lengthM / 1000;
-  const decompression = decompressionFor(capOilL, req.processForceN > 0 || req.dwellS > 0 ? ev.reliefBar : ev.extendBar);
   const cushioning = cushioningFor(req.massKg, ctx.loads, cyl, ev.extendActualMmS, ev.retractActualMmS, ev.extendInletBar, ev.retractInletBar);
-  const centre = chooseDcvCenter(cbv !== null, holding !== null);
   const maxPathFlowLpm = Math.max(qp, qp * cyl.areaRatio, qp / cyl.areaRatio);
   const valve = selectIso4401(maxPathFlowLpm);
 
-  // Motor: sized for the pressure the fixed pump sits at for more than a moment.
-  // Neutral: over relief if P is blocked and nothing unloads it; through the vented relief at
-  // its vent pressure [CP]; or P→T through a tandem centre, the valve path, return line and filter.
-  const neutralBar = centre.pumpOnReliefInNeutral
-    ? ev.reliefBar
-    : centre.ventedRelief
-      ? A.ventPressureBar.value
-      : A.dcvPathDropBar.value + lineLossBar(lines.return, qp, ctx.fluid) + A.returnFilterDropBar.value;
   // Pressing at the end of the stroke, and any dwell, stall the cylinder with the valve shifted:
   // a fixed pump then delivers its whole flow over the relief, at the relief setting.
   const pumpOnReliefAtForce = req.processForceN > 0 || req.dwellS > 0;
@@ -125,6 +114,37 @@ export function sizeCircuitParsed(req: Requirements): Design {
     reliefBar: ev.reliefBar, workingBar: ev.workingBar, displacementCc: ev.displacementCc, pumpFlowLpm: qp, speedRpm: ctx.speedRpm,
   }, req.pumpType);
   const pk = pump.hydraulicKw;
+  const compensated = pump.type === "compensated";
+  // The pressing speed: a meter-in flow control where the pump alone would press too fast.
+  const smallSectionLpm = pump.type === "double" ? pumpDeliveryLpm(pump.displacementsCcRev[1], ctx.speedRpm, A.volumetricEfficiency.value) : null;
+  const pressSpeedControl = pressSpeedControlFor({
+    pumpType: pump.type, pressFlowLpm: ev.flowPressLpm, pumpFlowLpm: qp, smallSectionLpm, areaRatio: cyl.areaRatio,
+    pumpSideBar: compensated ? pump.compensatorBar! : ev.reliefBar, pressBar: ev.extendPressBar,
+  });
+
+  // The cap end at full stroke holds the highest extend pressure: where the pump stalls there,
+  // the relief, or for a compensated pump its compensator setting (it destrokes below the relief).
+  const capOilL = (cyl.capAreaMm2 * req.strokeMm) / 1e6 + (Math.PI * lines.capWork.innerDiameterMm ** 2 / 4) * lines.capWork.lengthM / 1000;
+  const decompression = decompressionFor(capOilL, pumpOnReliefAtForce ? (compensated ? pump.compensatorBar! : ev.reliefBar) : ev.extendBar);
+  const centre = chooseDcvCenter(cbv !== null, holding !== null, compensated);
+
+  // Neutral: over relief if P is blocked and nothing unloads it; through the vented relief at
+  // its vent pressure [CP]; or P→T through a tandem centre, the valve path, return line and filter.
+  // A compensated pump behind a centre that blocks P sits at p_c delivering only its leakage
+  // (standby): P ≈ p_c·Q_leak/600 with Q_leak ≈ (1 − η_v)·Q_max, the destroked pump's friction
+  // not counted (shared sources' compensated-pump estimate, from memory [M]).
+  const neutralBar = compensated
+    ? pump.compensatorBar!
+    : centre.pumpOnReliefInNeutral
+      ? ev.reliefBar
+      : centre.ventedRelief
+        ? A.ventPressureBar.value
+        : A.dcvPathDropBar.value + lineLossBar(lines.return, qp, ctx.fluid) + A.returnFilterDropBar.value;
+  const neutralFlowLpm = compensated ? A.compensatorLeakShare.value * qp : qp;
+  // Shaft power in neutral and in the dwell: the standby loss is what a destroked compensated pump
+  // takes (no efficiency to divide by at zero delivery); other pumps p·Q/(600·η).
+  const neutralShaftKw = hydraulicPowerKw(neutralBar, neutralFlowLpm) / (compensated ? 1 : etaO);
+  const dwellShaftKw = compensated ? pk.dwell : pk.dwell / etaO;
   // The highest power the chosen pump draws, with the pressure it draws it at. A fixed pump
   // reaching the end-of-stroke force sits at the relief (version-1 behaviour kept).
   const endForceBar = pump.type === "fixed" ? (pumpOnReliefAtForce ? ev.reliefBar : ev.extendPressBar) : 0;
@@ -135,7 +155,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
     { kw: req.dwellS > 0 ? pk.dwell : 0, bar: pump.type === "compensated" ? pump.compensatorBar! : ev.reliefBar },
     { kw: pk.unloadingPeak, bar: pump.unloadingBar ?? pump.compensatorBar ?? 0 },
     { kw: hydraulicPowerKw(endForceBar, qp), bar: endForceBar },
-    { kw: hydraulicPowerKw(neutralBar, qp), bar: neutralBar },
+    { kw: hydraulicPowerKw(neutralBar, neutralFlowLpm), bar: neutralBar },
   ];
   const governing = peakCandidates.reduce((a, b) => (b.kw > a.kw ? b : a));
   const motorSizingBar = governing.bar;
@@ -150,27 +170,28 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const duty = dutyShares(req.strokeMm, ev.extendActualMmS, ev.retractActualMmS, req.cyclesPerHour, req.dwellS, press);
   const extendLossKw = strokeHeatKw(hydraulicPowerKw(ev.extendSteadyBar, qp) / etaO, ev.extend.steadyN, ev.extendActualMmS);
   const retractLossKw = strokeHeatKw(hydraulicPowerKw(ev.retractSteadyBar, qp) / etaO, ev.retract.steadyN, ev.retractActualMmS);
-  // Dwell: the rod does no work and the whole flow crosses the relief, so all input power is heat.
-  const dwellLossKw = pk.dwell / etaO;
-  // Pressing: the heat is what the chosen pump draws less the work on the process force (a fixed
-  // pump sits at the relief and its surplus crosses it).
+  // Dwell: the rod does no work, so all the power the pump takes is heat: a fixed pump's whole flow
+  // crosses the relief, a double pump's small section does, a compensated pump is at standby.
+  const dwellLossKw = dwellShaftKw;
+  // Pressing: the heat is what the chosen pump draws less the work on the process force. With a
+  // flow control and a fixed or double pump that sits at the relief, the surplus crosses the relief
+  // and the control drops the rest (p_relief − p_press at the set flow); both are in this difference.
   const pressLossKw = press ? strokeHeatKw(pk.press / etaO, ev.pressN, press.speedMmS) : 0;
-  const neutralLossKw = hydraulicPowerKw(neutralBar, qp) / etaO;
+  const neutralLossKw = neutralShaftKw;
   const averageLossKw =
     duty.extendShare * extendLossKw + duty.pressShare * pressLossKw + duty.retractShare * retractLossKw + duty.dwellShare * dwellLossKw + duty.neutralShare * neutralLossKw;
   const coolerKw = Math.max(0, averageLossKw - dissipationKw);
 
   // Motor: the peak it must pull (pull-out torque) and, for cycles short enough, the RMS power
   // that heats it (the motor then carries a short peak up to 1.5 × its rating).
-  const shaftKw = (bar: number) => hydraulicPowerKw(bar, qp) / etaO;
   const cycleS = req.cyclesPerHour > 0 ? 3600 / req.cyclesPerHour : Number.POSITIVE_INFINITY;
   const rmsValid = cycleS <= A.rmsCycleLimitS.value;
   const phases = [
     { name: "approach", kw: pk.approach / etaO, share: duty.extendShare, s: duty.extendS },
     { name: "pressing", kw: pk.press / etaO, share: duty.pressShare, s: duty.pressS },
     { name: "retract", kw: pk.retract / etaO, share: duty.retractShare, s: duty.retractS },
-    { name: "dwell", kw: pk.dwell / etaO, share: duty.dwellShare, s: req.dwellS },
-    { name: "neutral", kw: shaftKw(neutralBar), share: duty.neutralShare, s: Number.POSITIVE_INFINITY },
+    { name: "dwell", kw: dwellShaftKw, share: duty.dwellShare, s: req.dwellS },
+    { name: "neutral", kw: neutralShaftKw, share: duty.neutralShare, s: Number.POSITIVE_INFINITY },
   ];
   const rmsKw = Math.sqrt(phases.reduce((sum, ph) => sum + ph.share * ph.kw * ph.kw, 0));
   // A phase longer than the motor's short-overload time must be carried at its rating.
@@ -272,7 +293,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
       phases: phases.filter((ph) => ph.name !== "neutral").map((ph) => ({ name: ph.name, kw: ph.kw, durationS: ph.s })),
     },
     regenerative: false,
-    pressSpeedControl: null,
+    pressSpeedControl,
     counterbalance: cbv && ctx.pilot
       ? {
           side: cbv.side,
@@ -383,6 +404,11 @@ function addWarnings(
   if (d.counterbalance?.side !== "rod" && meterOutBar > c.ratedPressureBar + 1e-9) {
     w.add("METER_OUT_INTENSIFICATION",
       `A restriction in the rod-end line while extending (a meter-out flow control, or a blocked B line) would raise the rod side to φ × relief = ${num(c.areaRatio, 2)} × ${d.pressuresBar.reliefSetting} = ${f1(meterOutBar)} bar, above the cylinder's ${c.ratedPressureBar} bar rating. Control this axis's speed meter-in only, and never throttle the rod-end line.`);
+  }
+  const psc = d.pressSpeedControl;
+  if (psc && psc.availableDropBar < psc.minDropBar - 1e-9) {
+    w.add("PRESS_CONTROL_DROP_LOW",
+      `The flow control that sets the pressing speed has only ${f1(psc.availableDropBar)} bar across it (the ${d.pump.type === "compensated" ? "compensator" : "relief"} setting less the ${f1(d.pressuresBar.extendPress)} bar pressing pressure); it needs about ${f1(psc.minDropBar)} bar to regulate, so the pressing speed may sag. Allow a higher ${d.pump.type === "compensated" ? "compensator and relief settings" : "relief setting"} within the cylinder's ${c.ratedPressureBar} bar rating.`);
   }
   if (!ev.pumpInSeries) {
     w.add("PUMP_BEYOND_SERIES", `The flow needs more than the largest displacement in the series (${ev.displacementCc} cm³/rev); use several pumps or a larger unit.`);

@@ -167,12 +167,30 @@ const FLOAT_CHOICE_POCV: Readonly<DcvCenterChoice> = Object.freeze({
 });
 
 /**
+ * A pressure-compensated pump behind a centre that blocks P destrokes to its leakage at the
+ * compensator setting and waits there, ready for the next stroke (standby; trade-magazine article
+ * on compensated pumps [S]): no vent valve is needed, and P is blocked rather than joined to T.
+ */
+const COMPENSATED_STANDBY_FLOW =
+  "P is blocked, so the pressure-compensated pump destrokes in neutral and delivers only its leakage at the compensator setting (standby); no vent or unloading valve is needed";
+const CLOSED_CHOICE_COMPENSATED: Readonly<DcvCenterChoice> = Object.freeze({
+  center: "closed",
+  reason: "closed centre (P, A, B and T blocked): no overrunning load, so the blocked work ports hold the axis, and the compensated pump holds its setting at P ready for the next stroke",
+  neutralPumpFlow: COMPENSATED_STANDBY_FLOW,
+  pBlockedInNeutral: true, ventedRelief: false, pumpOnReliefInNeutral: false,
+});
+const FLOAT_CHOICE_COMPENSATED: Readonly<DcvCenterChoice> = Object.freeze({ ...FLOAT_CHOICE, neutralPumpFlow: COMPENSATED_STANDBY_FLOW, ventedRelief: false });
+const FLOAT_CHOICE_POCV_COMPENSATED: Readonly<DcvCenterChoice> = Object.freeze({ ...FLOAT_CHOICE_POCV, neutralPumpFlow: COMPENSATED_STANDBY_FLOW, ventedRelief: false });
+
+/**
  * Float centre where a counterbalance valve or pilot-operated checks need their pilots vented,
  * else tandem. A centre that blocks P gets a solenoid-vented relief, so the fixed pump does not
  * run over relief in neutral ("unless it is unloaded by a vent or unloading valve", common
- * practice) [CP].
+ * practice) [CP]. A compensated pump unloads itself: P stays blocked (closed centre where no
+ * pilot must vent) and the relief is not vented.
  */
-export function chooseDcvCenter(hasCbv: boolean, hasHolding = false): Readonly<DcvCenterChoice> {
+export function chooseDcvCenter(hasCbv: boolean, hasHolding = false, compensatedPump = false): Readonly<DcvCenterChoice> {
+  if (compensatedPump) return hasCbv ? FLOAT_CHOICE_COMPENSATED : hasHolding ? FLOAT_CHOICE_POCV_COMPENSATED : CLOSED_CHOICE_COMPENSATED;
   return hasCbv ? FLOAT_CHOICE : hasHolding ? FLOAT_CHOICE_POCV : TANDEM_CHOICE;
 }
 

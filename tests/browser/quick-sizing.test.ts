@@ -44,6 +44,17 @@ describe("quick sizing", () => {
     await expect.poll(() => page.getByLabel("Moving mass", { exact: true }).inputValue()).toBe("1764");
     await expect.poll(async () => (await diagram(page).innerHTML()).includes("psi"), { timeout: 5_000 }).toBe(true);
     await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-us.png"), fullPage: true });
+    // Back to metric: every answer reads exactly as typed (50 000 N is not 49 997 N after a trip through lbf).
+    await page.getByText("Metric (mm, kg, bar)").click();
+    await expect.poll(() => page.getByLabel("Stroke", { exact: true }).inputValue()).toBe("500");
+    expect(await page.getByLabel("Moving mass", { exact: true }).inputValue()).toBe("800");
+    const force = page.getByLabel("Working force at the end of the stroke");
+    expect(await force.inputValue()).toBe("50000");
+    // A force typed with its own unit is sized as such; a unit of the wrong kind is refused.
+    await force.fill("60 bar");
+    await expect.poll(() => force.getAttribute("aria-invalid"), { timeout: 5_000 }).toBe("true");
+    await force.fill("60 kN");
+    await expect.poll(() => force.getAttribute("aria-invalid"), { timeout: 5_000 }).toBe(null);
     await page.context().close();
   });
 

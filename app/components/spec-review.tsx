@@ -41,27 +41,41 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
         </Notice>
       ) : null}
       {design ? <DesignReport design={design} units={spec.unitSystem} componentsTitle="Components shops will price" cautions={false} /> : null}
-      <Card>
-        <h2 className="mb-3 font-semibold">Your answers</h2>
-        <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[16rem_1fr_auto]">
-          {SPEC_STEPS.filter((s) => s.id !== "review").flatMap((s) =>
-            stepFieldNames(s.id as FormStepId)
+      <section aria-labelledby="answers-heading" className="space-y-3">
+        <h2 id="answers-heading" className="font-semibold">Your answers, step by step</h2>
+        <div className="grid gap-4 md:grid-cols-2">
+          {SPEC_STEPS.filter((s) => s.id !== "review").map((s, index) => {
+            const rows = stepFieldNames(s.id as FormStepId)
               .map((name) => ({ name, ...shownAnswer(name, answers, spec.unitSystem) }))
-              .filter((a) => a.value)
-              .map(({ name, label, value }) => (
-                <div key={name} className="contents">
-                  <dt className="text-ink-600">{label}</dt>
-                  <dd className="font-semibold">{value}</dd>
-                  <dd>
-                    <Link className="text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/${s.id}`} aria-label={`Change ${label.toLowerCase()}`}>
-                      Change
-                    </Link>
-                  </dd>
+              .filter((a) => a.value);
+            return (
+              <Card key={s.id} className="!p-4">
+                <div className="mb-2 flex items-baseline justify-between gap-3 border-b border-ink-100 pb-2">
+                  <h3 className="text-sm font-semibold text-ink-900">
+                    <span className="mr-1.5 text-ink-400">{index + 1}</span>
+                    {s.title}
+                  </h3>
+                  <Link className="shrink-0 text-sm font-semibold text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/${s.id}`} aria-label={`Edit ${s.title.toLowerCase()}`}>
+                    Edit
+                  </Link>
                 </div>
-              )),
-          )}
-        </dl>
-      </Card>
+                {rows.length ? (
+                  <dl className="space-y-1.5 text-sm">
+                    {rows.map(({ name, label, value }) => (
+                      <div key={name}>
+                        <dt className="text-xs text-ink-600">{label}</dt>
+                        <dd className="font-semibold text-ink-900 [overflow-wrap:anywhere]">{value}</dd>
+                      </div>
+                    ))}
+                  </dl>
+                ) : (
+                  <p className="text-sm text-ink-600">Nothing answered yet.</p>
+                )}
+              </Card>
+            );
+          })}
+        </div>
+      </section>
       <Card>
         <h2 className="mb-3 font-semibold">Drawings and photos</h2>
         {attachments.length ? (
@@ -76,11 +90,16 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
           <p className="text-sm text-ink-600">None attached. <Link className="text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/quotation`}>Add drawings or photos</Link></p>
         )}
       </Card>
-      <CautionsPanel />
-      <Form method="post" className="space-y-4">
-        <label className="flex items-start gap-2 text-sm">
+      <div id="cautions">
+        <CautionsPanel />
+      </div>
+      {/* Publishing stays in view while the buyer reads: the bar sticks to the bottom of the window. */}
+      <Form method="post" aria-label="Publish" className="sticky bottom-0 z-10 -mx-2 flex flex-wrap items-center justify-between gap-3 rounded-t-lg bg-white/95 px-4 py-3 shadow-[0_-4px_12px_rgba(0,0,0,0.08)] ring-1 ring-ink-100 backdrop-blur">
+        <label className="flex max-w-xl items-start gap-2 text-sm">
           <input type="checkbox" name="cautionsRead" className="mt-1 accent-flow-600" required />
-          <span>I have read the cautions above and understand that this circuit is a preliminary design for quotation.</span>
+          <span>
+            I have read the <a className="text-flow-700 underline" href="#cautions">cautions</a> and understand that this circuit is a preliminary design for quotation.
+          </span>
         </label>
         <Button type="submit" name="intent" value="publish" disabled={!design || incomplete.length > 0 || navigation.state === "submitting"}>
           {spec.revising ? `Publish revision ${spec.nextRevision}` : "Publish for bids"}

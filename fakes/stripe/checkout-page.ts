@@ -76,15 +76,18 @@ function paymentForm(store: Store, session: Session, state: FormState, status = 
     ${problem(name)}`;
   const items = expanded.line_items.data.map((item) => {
     const product = item.price.product as unknown as Product;
-    return `<tr><td><strong>${escape(item.description)}</strong>${product.description ? `<br><small>${escape(product.description)}</small>` : ""}
-      ${item.quantity > 1 ? `<br><small>${item.quantity} × ${money(item.price.unit_amount, item.currency)}</small>` : ""}</td>
-      <td class="amount">${money(item.amount_total, item.currency)}</td></tr>`;
+    return `<li><span class="what">${escape(item.description)}${product.description ? `<small>${escape(product.description)}</small>` : ""}
+      ${item.quantity > 1 ? `<small>${item.quantity} × ${money(item.price.unit_amount, item.currency)}</small>` : ""}</span>
+      <span class="amount">${money(item.amount_total, item.currency)}</span></li>`;
   });
   const body = `
     ${state.declined ? `<div class="alert" role="alert"><strong>Payment declined.</strong> ${escape(state.declined)} No money was taken; you can try again with another card.</div>` : ""}
-    <table class="summary">${items.join("")}
-      <tr class="total"><td>Total due (${session.currency.toUpperCase()})</td><td class="amount" data-testid="total">${total}</td></tr>
-    </table>
+    <div class="desk">
+    <section class="slip" aria-label="What this payment is for">
+      <p class="slip-head">Payment slip · ${session.currency.toUpperCase()}</p>
+      <ul>${items.join("")}</ul>
+      <p class="slip-total"><span>To pay</span><span class="amount" data-testid="total">${total}</span></p>
+    </section>
     <form method="post" action="/checkout/${session.id}" novalidate>
       ${input("email", "E-mail for the receipt", `type="email" autocomplete="email"${state.emailFixed ? " readonly" : ""}`, state.email)}
       ${input("name", "Name on the card", `autocomplete="cc-name"`, state.name ?? "")}
@@ -94,10 +97,11 @@ function paymentForm(store: Store, session: Session, state: FormState, status = 
         <div>${input("cvc", "Security code", `inputmode="numeric" autocomplete="cc-csc" placeholder="123"`)}</div>
       </div>
       <button type="submit">Pay ${total}</button>
+      ${session.cancel_url ? `<p class="cancel"><a href="${escape(session.cancel_url)}">Cancel and go back</a></p>` : ""}
     </form>
-    ${session.cancel_url ? `<p class="cancel"><a href="${escape(session.cancel_url)}">Cancel and go back</a></p>` : ""}
-    <aside><strong>Test cards</strong> (any future expiry, any 3-digit code):
-      <ul>${TEST_CARD_HINTS.map(([number, outcome]) => `<li><code>${number}</code> ${outcome}</li>`).join("")}</ul>
+    </div>
+    <aside aria-label="Test cards"><strong>Test cards</strong>: any future expiry, any 3-digit code.
+      <dl>${TEST_CARD_HINTS.map(([number, outcome]) => `<div><dt><code>${number}</code></dt><dd class="${outcome === "paid" ? "ok" : "no"}">${outcome}</dd></div>`).join("")}</dl>
     </aside>`;
   return { status, html: page(`Pay ${total}`, body) };
 }
@@ -126,20 +130,34 @@ function page(title: string, body: string) {
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${escape(title)} · test payment</title>
 <style>
-  body { font: 16px/1.5 system-ui, sans-serif; background: #eef2f0; color: #1d2b27; margin: 0; }
-  main { max-width: 30rem; margin: 2rem auto; background: #fff; border-top: 6px solid #2f7d6d; padding: 1.5rem 2rem; }
-  .mode { display: inline-block; background: #fff1c2; color: #6b4e00; font-size: .8rem; padding: .1rem .5rem; }
-  h1 { font-size: 1.4rem; margin: .5rem 0 1rem; }
-  table { width: 100%; border-collapse: collapse; margin-bottom: 1.5rem; }
-  td { padding: .4rem 0; border-bottom: 1px solid #dfe7e4; vertical-align: top; }
-  .amount { text-align: right; white-space: nowrap; } .total td { font-weight: 700; border-bottom: 0; }
-  label { display: block; font-weight: 600; margin-top: .8rem; }
-  input { width: 100%; box-sizing: border-box; padding: .5rem; font: inherit; border: 1px solid #9fb3ad; }
-  input[aria-invalid] { border-color: #b3261e; } .problem { color: #b3261e; margin: .2rem 0 0; }
+  body { font: 16px/1.5 system-ui, sans-serif; background: #f4f1ea; color: #22262b; margin: 0; }
+  .till { background: repeating-linear-gradient(135deg, #f2c230 0 14px, #22262b 14px 28px); padding: .35rem; }
+  .till p { margin: 0 auto; max-width: 52rem; background: #22262b; color: #f2c230; font: 600 .8rem/1.6 ui-monospace, monospace; letter-spacing: .08em; text-transform: uppercase; padding: .2rem .8rem; }
+  main { max-width: 52rem; margin: 1.5rem auto; padding: 0 1rem; }
+  h1 { font-size: 1.35rem; margin: 0 0 1rem; }
+  .desk { display: grid; gap: 1.5rem; grid-template-columns: 1fr; }
+  @media (min-width: 44rem) { .desk { grid-template-columns: 18rem 1fr; align-items: start; } }
+  .slip { background: #fffdf7; border: 2px dashed #b9ad92; padding: 1rem 1.1rem; font-family: ui-monospace, monospace; font-size: .9rem; }
+  .slip-head { margin: 0 0 .6rem; color: #6d6350; font-size: .75rem; text-transform: uppercase; letter-spacing: .06em; }
+  .slip ul { list-style: none; margin: 0; padding: 0; }
+  .slip li { display: flex; justify-content: space-between; gap: .8rem; padding: .45rem 0; border-bottom: 1px dotted #cfc5ae; }
+  .slip small { display: block; color: #6d6350; }
+  .slip-total { display: flex; justify-content: space-between; margin: .7rem 0 0; font-weight: 700; font-size: 1.05rem; }
+  .amount { white-space: nowrap; text-align: right; }
+  form { background: #fff; border-radius: .5rem; box-shadow: 0 1px 3px rgba(0,0,0,.12); padding: 1.1rem 1.3rem 1.3rem; }
+  label { display: block; font-weight: 600; font-size: .9rem; margin-top: .8rem; }
+  label:first-child { margin-top: 0; }
+  input { width: 100%; box-sizing: border-box; padding: .5rem .6rem; font: inherit; border: 1px solid #a9a395; border-radius: .35rem; background: #fdfcf9; }
+  input[aria-invalid] { border-color: #a4262c; } .problem { color: #a4262c; font-size: .9rem; margin: .2rem 0 0; }
   .pair { display: flex; gap: 1rem; } .pair > div { flex: 1; }
-  button { margin-top: 1.4rem; width: 100%; padding: .7rem; font: inherit; font-weight: 700; color: #fff; background: #2f7d6d; border: 0; cursor: pointer; }
-  .alert { background: #fbe4e2; border-left: 4px solid #b3261e; padding: .6rem .8rem; margin-bottom: 1rem; }
-  .cancel { text-align: center; } aside { margin-top: 1.5rem; font-size: .85rem; color: #4b5d58; }
+  button { margin-top: 1.2rem; width: 100%; padding: .65rem; font: inherit; font-weight: 700; color: #22262b; background: #f2c230; border: 2px solid #22262b; border-radius: .35rem; cursor: pointer; }
+  .alert { background: #fbe6e4; border: 2px solid #a4262c; border-radius: .35rem; padding: .6rem .8rem; margin-bottom: 1rem; }
+  .cancel { text-align: center; margin: .8rem 0 0; font-size: .9rem; }
+  aside { margin-top: 1.5rem; font-size: .85rem; color: #4a4f55; }
+  aside dl { display: grid; gap: .3rem; margin: .5rem 0 0; }
+  aside dl div { display: flex; gap: .8rem; align-items: baseline; } aside dd { margin: 0; font-weight: 600; }
+  aside dd.ok { color: #2d6a3e; } aside dd.no { color: #a4262c; }
 </style></head>
-<body><main><span class="mode">Test mode: no real money moves</span><h1>${escape(title)}</h1>${body}</main></body></html>`;
+<body><div class="till"><p>Test till · Tenderflow's local stand-in for the card service · no real money moves</p></div>
+<main><h1>${escape(title)}</h1>${body}</main></body></html>`;
 }

@@ -2,12 +2,11 @@ import { Badge, ButtonLink } from "./ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/bid-status";
 import { formatMoney } from "~/content/currencies";
 import type { SpecStatus } from "~/content/spec-status";
-import type { Role } from "~/auth/roles";
 
 // The spec page's bidding strip: a shop's own bid, or the buyer's count of offers.
 export function BidPanel({
   specId,
-  role,
+  canBid,
   accepting,
   specStatus,
   currency,
@@ -16,7 +15,8 @@ export function BidPanel({
   latestRevision,
 }: {
   specId: string;
-  role: Role;
+  /** The reader is a shop that may bid on this spec (the access policy's answer). */
+  canBid: boolean;
   accepting: boolean;
   specStatus: SpecStatus;
   currency: string;
@@ -24,7 +24,7 @@ export function BidPanel({
   offers: number | null;
   latestRevision: number;
 }) {
-  if (role === "shop") {
+  if (canBid) {
     return (
       <section aria-label="Your bid" className="mb-6 flex flex-wrap items-center gap-3 rounded-lg bg-white p-4 ring-1 ring-ink-200">
         <h2 className="font-semibold">Your bid</h2>

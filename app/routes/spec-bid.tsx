@@ -77,7 +77,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const back = `/specs/${spec.id}/bid`;
   if (formData.get("intent") === "withdraw") {
     try {
-      await withdrawBid(user, spec);
+      await withdrawBid(user, spec.id);
     } catch (error) {
       if (!(error instanceof FieldErrors)) throw error;
       return data({ result: null, withdrawError: error.message }, { status: 409 });
@@ -92,7 +92,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
   if (submission.status !== "success") return data({ result: submission.reply(), withdrawError: null }, { status: 400 });
   try {
-    const bid = await saveBid(user, spec, submission.value);
+    const bid = await saveBid(user, spec.id, submission.value);
     return redirectWithToast(
       request,
       back,

@@ -8,13 +8,12 @@ import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { formatMoney } from "~/content/currencies";
 import { SPEC_STATUS_LABELS, type SpecStatus } from "~/content/spec-status";
 import { awardSchema } from "~/schemas/bid";
-import { awardBid } from "~/services/award.server";
+import { awardBid, awardedJobOf } from "~/services/award.server";
 import { COMPARISON_SORTS, type ComparisonSort } from "~/services/bid-comparison";
 import { comparisonOf } from "~/services/bids.server";
 import { FieldErrors } from "~/services/errors.server";
 import { retainerCents } from "~/services/bid-pricing";
 import { specOfOwner } from "~/services/spec-access.server";
-import { Job } from "~/models/index.server";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Bids · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
 
@@ -26,7 +25,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const sortParam = url.searchParams.get("sort") ?? "total";
   const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam) ? (sortParam as ComparisonSort) : "total";
-  const [{ comparison }, job] = await Promise.all([comparisonOf(user, spec, sort), Job.findOne({ where: { specId: spec.id }, attributes: ["id"] })]);
+  const [{ comparison }, job] = await Promise.all([comparisonOf(user, spec, sort), awardedJobOf(user, spec)]);
   const choosing = comparison.columns.find((c) => c.id === url.searchParams.get("award") && c.status === "submitted") ?? null;
   return {
     spec: { id: spec.id, title: spec.title, status: spec.status as SpecStatus, revision: spec.currentRevision, currency: spec.currency, units: spec.unitsWanted ?? 1, retainerPercent: spec.retainerPercent ?? "0", deadline: spec.bidDeadline?.toISOString() ?? null },
@@ -43,7 +42,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const parsed = awardSchema.safeParse(Object.fromEntries(await request.formData()));
   if (!parsed.success) return data({ error: parsed.error.issues[0]?.message ?? "Confirm the award." }, { status: 400 });
   try {
-    const job = await awardBid(user, spec.id, parsed.data.bidId);
+    const job = await awardBid(user, spec.id, parsed.data);
     return redirectWithToast(request, `/jobs/${job.id}`, "Awarded. Every bidder has been told; the job and its milestones are below.");
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;

@@ -21,7 +21,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const submission = parseWithZod(await request.formData(), { schema: answerSchema });
   if (submission.status !== "success") return data(submission.reply(), { status: 400 });
   try {
-    const { edited, told } = await answerQuestion(user, spec.id, questionId, submission.value.answer);
+    const { edited, told } = await answerQuestion(user, spec.id, { questionId, answer: submission.value.answer });
     const people = told === 1 ? "1 person at the shops was" : `${told} people at the shops were`;
     return redirectWithToast(
       request,

@@ -20,7 +20,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const submission = parseWithZod(await request.formData(), { schema: questionSchema });
   if (submission.status !== "success") return data(submission.reply(), { status: 400 });
   try {
-    await askQuestion(user, spec.id, submission.value.body);
+    await askQuestion(user, spec.id, submission.value);
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;
     return data(submission.reply({ fieldErrors: error.fieldErrors }), { status: 400 });

@@ -2,10 +2,11 @@ import { Form, Link, useSearchParams } from "react-router";
 import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/spec";
 import { requireUser } from "~/auth/permissions.server";
+import { can, viewerOf } from "~/auth/access-policy.server";
 import { DesignReport } from "~/components/design-report";
 import { AxisRequirements } from "~/components/axis-requirements";
 import { Badge, Button, ButtonLink, Notice, PageHeader } from "~/components/ui";
-import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, takesBids, type SpecStatus } from "~/content/spec-status";
+import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
 import type { Design } from "~/hydraulics";
 import { QuotationPanel } from "~/components/quotation-facts";
 import { QuestionsPanel } from "~/components/questions-panel";
@@ -14,9 +15,8 @@ import { listAttachments } from "~/services/attachments.server";
 import { questionsFor } from "~/services/questions.server";
 import { buyerNameFor, specForReader } from "~/services/spec-access.server";
 import { revisionsOf } from "~/services/specs.server";
-import { bidOfShop, offerCounts } from "~/services/bids.server";
+import { biddingPanelOf } from "~/services/bids.server";
 import { BidPanel } from "~/components/bid-panel";
-import type { BidStatus } from "~/content/bid-status";
 import type { UnitSystem } from "~/units";
 
 
@@ -38,22 +38,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const asked = Number(new URL(request.url).searchParams.get("revision"));
   const current = revisions.find((r) => r.number === asked) ?? revisions[0];
   // Files, quotation facts and questions: for every reader of a published spec.
-  const [attachments, questions] = await Promise.all([listAttachments(user, spec.id), spec.status === "draft" ? null : questionsFor(user, spec)]);
-  const isOwner = spec.organisationId === user.organisationId;
-  const bid = user.role === "shop" ? await bidOfShop(user, spec) : null;
+  const [attachments, questions, bidding] = await Promise.all([
+    listAttachments(user, spec.id),
+    spec.status === "draft" ? null : questionsFor(user, spec.id),
+    biddingPanelOf(user, spec),
+  ]);
   return {
-    bidding: {
-      role: user.role,
-      accepting: takesBids(spec),
-      specStatus: spec.status as SpecStatus,
-      currency: spec.currency,
-      ownBid: bid && { status: bid.status as BidStatus, totalCents: bid.totalCents, version: bid.version, specRevision: bid.specRevision },
-      offers: isOwner ? ((await offerCounts([spec.id])).get(spec.id) ?? 0) : null,
-    },
+    bidding,
     id: spec.id,
     title: spec.title,
     status: shownSpecStatus(spec.status as SpecStatus, spec.bidDeadline),
-    isOwner: spec.organisationId === user.organisationId,
+    // The buyer's own people: they edit and revise it (and are not told whose spec it is).
+    isOwner: can(await viewerOf(user), "spec.edit", spec),
     // Named by the same rule as the bill workbook: never to a shop.
     buyerName: await buyerNameFor(user, spec),
     bidDeadline: spec.bidDeadline?.toISOString() ?? null,

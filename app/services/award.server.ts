@@ -1,8 +1,10 @@
 import { Op } from "sequelize";
-import { Bid, Organisation, Spec, User, sequelize, type Job } from "~/models/index.server";
+import { Bid, Job, Organisation, Spec, User, sequelize } from "~/models/index.server";
+import { jobsWhere, viewerOf } from "~/auth/access-policy.server";
 import { formatMoney } from "~/content/currencies";
 import { formatDay, todayUtc } from "~/content/dates";
-import { FieldErrors, notFound } from "./errors.server";
+import { FieldErrors } from "./errors.server";
+import { specFor } from "./spec-access.server";
 import { enqueueMail } from "./mail.server";
 import { openJob } from "./jobs.server";
 import { env } from "~/env.server";
@@ -10,10 +12,9 @@ import { env } from "~/env.server";
 // Awarding: the buyer chooses exactly one offered bid. The spec row is locked for update, so
 // of two racing awards the second waits, then finds the spec awarded and changes nothing.
 
-export async function awardBid(user: User, specId: string, bidId: string): Promise<Job> {
+export async function awardBid(user: User, specId: string | undefined, { bidId }: { bidId: string }): Promise<Job> {
   return sequelize.transaction(async (transaction) => {
-    const spec = await Spec.findOne({ where: { id: specId, organisationId: user.organisationId }, lock: transaction.LOCK.UPDATE, transaction });
-    if (!spec || user.role !== "buyer") notFound("No such spec.");
+    const spec = await specFor(user, specId, "spec.award", { transaction, lock: true });
     if (spec.status === "awarded") throw new FieldErrors({ "": ["This spec has already been awarded."] });
     if (spec.status !== "open") throw new FieldErrors({ "": ["Only a spec open for bids can be awarded."] });
     const bid = await Bid.findOne({ where: { id: bidId, specId: spec.id }, lock: transaction.LOCK.UPDATE, transaction });
@@ -60,4 +61,9 @@ export async function awardBid(user: User, specId: string, bidId: string): Promi
     }
     return job;
   });
+}
+
+/** The job an award of this spec opened, if the viewer may read it (for the comparison page's link). */
+export async function awardedJobOf(user: User, spec: Pick<Spec, "id">): Promise<{ id: string } | null> {
+  return Job.findOne({ where: { [Op.and]: [jobsWhere(await viewerOf(user)), { specId: spec.id }] }, attributes: ["id"] });
 }

@@ -7,10 +7,12 @@ import { bidTotals, parseMoney } from "./bid-pricing";
 import { compareBids, type ComparisonSort } from "./bid-comparison";
 import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
-import { requireApprovedShop } from "./spec-access.server";
+import { specFor } from "./spec-access.server";
+import { authorize, bidsWhere, can, viewerOf } from "~/auth/access-policy.server";
 import { env } from "~/env.server";
 import { formatDay, isoDay } from "~/content/dates";
-import { takesBids } from "~/content/spec-status";
+import { takesBids, type SpecStatus } from "~/content/spec-status";
+import type { BidStatus } from "~/content/bid-status";
 
 // A shop's bid on a spec: one per shop organisation, priced line by line against the bill of
 // materials of the spec's current revision. Every submission and withdrawal is kept as a
@@ -77,10 +79,9 @@ function priceLines(bom: BomLine[], input: BidInput["lines"]): BidLine[] {
  * Submitting prices the current revision's bill, so a bid made on an older revision is
  * brought up to date by submitting it again.
  */
-export async function saveBid(user: User, spec: Spec, input: BidInput): Promise<Bid> {
+export async function saveBid(user: User, specId: string | undefined, input: BidInput): Promise<Bid> {
   const submitting = input.intent === "submit";
-  // The route read the spec through specForReader; checked here too, as this writes.
-  await requireApprovedShop(user);
+  const spec = await specFor(user, specId, "spec.bid");
   const bid = await sequelize.transaction(async (transaction) => {
     const locked = await lockOpenSpec(spec.id, transaction);
     const fresh = await Spec.findByPk(spec.id, { transaction, rejectOnEmpty: true });
@@ -138,8 +139,8 @@ export async function saveBid(user: User, spec: Spec, input: BidInput): Promise<
 }
 
 /** Takes a submitted offer back, before the deadline; the shop may offer again later. */
-export async function withdrawBid(user: User, spec: Spec) {
-  await requireApprovedShop(user);
+export async function withdrawBid(user: User, specId: string | undefined) {
+  const spec = await specFor(user, specId, "spec.bid");
   await sequelize.transaction(async (transaction) => {
     await lockOpenSpec(spec.id, transaction);
     const bid = await Bid.findOne({ where: { specId: spec.id, organisationId: user.organisationId }, lock: transaction.LOCK.UPDATE, transaction });
@@ -172,9 +173,11 @@ export async function historyOf(bid: Bid) {
 
 /** Bids the buyer compares: every one offered (or decided), never drafts or taken-back ones. */
 export async function offeredBids(user: User, spec: Spec) {
-  if (spec.organisationId !== user.organisationId) notFound("No such spec.");
+  const viewer = await viewerOf(user);
+  authorize(viewer, "spec.compareBids", spec);
   return Bid.findAll({
-    where: { specId: spec.id, status: { [Op.in]: ["submitted", "won", "not_selected"] } },
+    // bidsWhere leaves the buyer the offered and decided bids only.
+    where: { [Op.and]: [bidsWhere(viewer), { specId: spec.id }] },
     include: [{ model: Organisation, as: "organisation", attributes: ["name", "region"] }],
     order: [["totalCents", "ASC"], ["id", "ASC"]],
   });
@@ -200,6 +203,24 @@ export async function comparisonOf(user: User, spec: Spec, sort: ComparisonSort 
     sort,
   );
   return { bids, comparison };
+}
+
+/**
+ * The spec page's bidding strip for a reader of the spec: a shop that may bid sees its own bid,
+ * the buyer the number of offers; what is shown comes from the policy, not from the role.
+ */
+export async function biddingPanelOf(user: User, spec: Spec) {
+  const viewer = await viewerOf(user);
+  const canBid = can(viewer, "spec.bid", spec);
+  const bid = canBid ? await bidOfShop(user, spec) : null;
+  return {
+    canBid,
+    accepting: takesBids(spec),
+    specStatus: spec.status as SpecStatus,
+    currency: spec.currency,
+    ownBid: bid && { status: bid.status as BidStatus, totalCents: bid.totalCents, version: bid.version, specRevision: bid.specRevision },
+    offers: can(viewer, "spec.compareBids", spec) ? ((await offerCounts([spec.id])).get(spec.id) ?? 0) : null,
+  };
 }
 
 /** How many offers a buyer's specs have, for their list. */

@@ -4,7 +4,7 @@ import { Organisation, Spec, sequelize } from "~/models/index.server";
 import type { User } from "~/models/index.server";
 import { OPEN_SPECS_PAGE_SIZE, type OpenSpecSort, type OpenSpecsQuery } from "~/schemas/open-specs";
 import { UNITS, fromDisplay, type Quantity, type UnitSystem } from "~/units";
-import { shopMayReadSpecs } from "./spec-access.server";
+import { specsWhere, viewerOf } from "~/auth/access-policy.server";
 
 // The table of specs open for bids that shops browse. Everything is filtered, sorted and paged
 // in PostgreSQL: "open, deadline ahead" is served by the partial indexes of migration 0005, the
@@ -77,8 +77,8 @@ export interface OpenSpecRow {
  * approved to read specs gets no rows.
  */
 export async function listOpenSpecsForShop(user: User, query: OpenSpecsQuery, now = new Date()) {
-  if (!(await shopMayReadSpecs(user))) return { specs: [] as OpenSpecRow[], total: 0, page: 1, pageCount: 1 };
-  const where = openSpecsWhere(user, query, now);
+  // Within what the shop may read (specsWhere: nothing until an admin approves the shop).
+  const where = { [Op.and]: [specsWhere(await viewerOf(user)), openSpecsWhere(user, query, now)] };
   const total = await Spec.count({ where });
   const pageCount = Math.max(1, Math.ceil(total / OPEN_SPECS_PAGE_SIZE));
   const page = Math.min(query.page ?? 1, pageCount);

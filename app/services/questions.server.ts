@@ -3,7 +3,8 @@ import { env } from "~/env.server";
 import { Bid, Organisation, Spec, SpecQuestion, User, sequelize } from "~/models/index.server";
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { enqueueMail } from "./mail.server";
-import { specForReader, specOfOwner } from "./spec-access.server";
+import { specFor, specForReader } from "./spec-access.server";
+import { can, questionsWhere, viewerOf } from "~/auth/access-policy.server";
 import { formatDay } from "~/content/dates";
 import { takesBids } from "~/content/spec-status";
 
@@ -52,21 +53,19 @@ function closedNote(spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()
 
 const specLink = (specId: string) => `${env().APP_URL}/specs/${specId}#questions`;
 
-/** The questions panel of a spec the user may read (the spec comes from `specForReader`). */
-export async function questionsFor(user: User, spec: Spec, now = new Date()): Promise<QuestionsPanel> {
-  const isBuyer = user.role === "buyer" && spec.organisationId === user.organisationId;
-  if (user.role === "buyer" && !isBuyer) notFound("No such spec.");
-  const where =
-    user.role === "shop"
-      ? { specId: spec.id, [Op.or]: [{ answer: { [Op.ne]: null } }, { organisationId: user.organisationId }] }
-      : { specId: spec.id };
+/** The questions panel of a spec the user may read (a 404 otherwise). */
+export async function questionsFor(user: User, specId: string | undefined, now = new Date()): Promise<QuestionsPanel> {
+  const viewer = await viewerOf(user);
+  const spec = await specForReader(user, specId);
+  const isBuyer = can(viewer, "spec.seeAskers", spec);
   const rows = await SpecQuestion.findAll({
-    where,
+    where: { [Op.and]: [questionsWhere(viewer), { specId: spec.id }] },
     include: isBuyer ? [{ model: Organisation, as: "organisation", attributes: ["name"] }] : [],
     order: [["createdAt", "ASC"], ["id", "ASC"]],
   });
   const questions = rows.map((q): QuestionView => {
-    const isOwn = user.role === "shop" && q.organisationId === user.organisationId;
+    // Only shops ask, so a question of the viewer's organisation is their shop's.
+    const isOwn = q.organisationId === user.organisationId;
     const name = (q as SpecQuestion & { organisation?: Organisation }).organisation?.name;
     return {
       id: q.id,
@@ -80,8 +79,8 @@ export async function questionsFor(user: User, spec: Spec, now = new Date()): Pr
   });
   return {
     questions,
-    canAsk: user.role === "shop" && takesQuestions(spec, now),
-    canAnswer: isBuyer && spec.status === "open",
+    canAsk: can(viewer, "spec.askQuestion", spec) && takesQuestions(spec, now),
+    canAnswer: can(viewer, "spec.answerQuestion", spec) && spec.status === "open",
     isBuyer,
     closedNote: closedNote(spec, now),
   };
@@ -94,9 +93,8 @@ const lockSpec = (specId: string, transaction: Transaction) =>
  * A shop asks a question on a spec open for bids. The buyer organisation's active users are
  * e-mailed in the same transaction.
  */
-export async function askQuestion(user: User, specId: string | undefined, body: string): Promise<SpecQuestion> {
-  if (user.role !== "shop") notFound("No such spec.");
-  const spec = await specForReader(user, specId);
+export async function askQuestion(user: User, specId: string | undefined, { body }: { body: string }): Promise<SpecQuestion> {
+  const spec = await specFor(user, specId, "spec.askQuestion");
   return sequelize.transaction(async (transaction) => {
     // A share lock: closing or awarding the spec waits until this question is in, or the other way round.
     const locked = await lockSpec(spec.id, transaction);
@@ -107,7 +105,7 @@ export async function askQuestion(user: User, specId: string | undefined, body: 
       { transaction },
     );
     const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
-    const buyers = await User.findAll({ where: { organisationId: locked.organisationId, role: "buyer", active: true }, transaction });
+    const buyers = await User.findAll({ where: { organisationId: locked.organisationId, active: true }, transaction });
     for (const buyer of buyers) {
       await enqueueMail(
         {
@@ -130,8 +128,8 @@ export async function askQuestion(user: User, specId: string | undefined, body: 
  * asker and the active users of every shop with a bid on the spec (any status) are e-mailed.
  * Returns how many people were told.
  */
-export async function answerQuestion(user: User, specId: string | undefined, questionId: string | undefined, answer: string) {
-  const spec = await specOfOwner(user, specId);
+export async function answerQuestion(user: User, specId: string | undefined, { questionId, answer }: { questionId: string | undefined; answer: string }) {
+  const spec = await specFor(user, specId, "spec.answerQuestion");
   const id = requireId(questionId);
   return sequelize.transaction(async (transaction) => {
     const locked = await lockSpec(spec.id, transaction);
@@ -145,7 +143,7 @@ export async function answerQuestion(user: User, specId: string | undefined, que
     const recipients = await User.findAll({
       where: {
         active: true,
-        role: "shop",
+        // The asker and the people of every shop with a bid on the spec.
         [Op.or]: [{ id: question.askedById }, { organisationId: bidders.map((b) => b.organisationId) }],
       },
       order: [["email", "ASC"]],

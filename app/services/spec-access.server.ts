@@ -1,71 +1,39 @@
 import type { Transaction } from "sequelize";
 import { Organisation, Spec, User } from "~/models/index.server";
-import { notFound, requireId } from "./errors.server";
+import { authorize, can, findInScope, specsWhere, viewerOf, type Action, type Viewer } from "~/auth/access-policy.server";
 
-// Who may see a spec, in one place: its own buyer organisation always; shops once it has been
-// published and only when an admin has approved the shop's organisation; account managers the
-// published specs of the buyer accounts assigned to them; admins any published spec. Drafts
-// stay with the buyer. Anyone else gets a 404.
+// Loading a spec for a reader or for an action. Who may read which spec, and who may act on it,
+// is the access policy's (specsWhere, can): a spec outside the reader's scope is a 404.
 
-export const PUBLISHED_STATUSES = ["open", "closed", "awarded"] as const;
+type LoadOptions = { transaction?: Transaction; lock?: boolean };
 
-/** A spec of the buyer's own organisation (to edit, publish, upload to). */
-export async function specOfOwner(user: User, specId: string | undefined): Promise<Spec> {
-  const spec = await Spec.findOne({ where: { id: requireId(specId), organisationId: user.organisationId } });
-  if (!spec || user.role !== "buyer") notFound("No such spec.");
+const loadSpec = (viewer: Viewer, specId: string | undefined, { transaction, lock }: LoadOptions) =>
+  findInScope(Spec, specsWhere(viewer), specId, { missing: "No such spec.", transaction, lock: lock ? transaction?.LOCK.UPDATE : undefined });
+
+/** A spec the user may read (a buyer its own, drafts too; see specsWhere), or a 404. */
+export async function specForReader(user: User, specId: string | undefined, options: LoadOptions = {}): Promise<Spec> {
+  return loadSpec(await viewerOf(user, options.transaction), specId, options);
+}
+
+/** A spec the user may read and take `action` on; refused as the policy says (a 404 for a spec's actions). */
+export async function specFor(user: User, specId: string | undefined, action: Action & `spec.${string}`, options: LoadOptions = {}): Promise<Spec> {
+  const viewer = await viewerOf(user, options.transaction);
+  const spec = await loadSpec(viewer, specId, options);
+  authorize(viewer, action, spec);
   return spec;
 }
 
-export const isPublished = (spec: Pick<Spec, "status">) => (PUBLISHED_STATUSES as readonly string[]).includes(spec.status);
+/** A spec of the buyer's own organisation, to edit, publish, upload to or delete. */
+export const specOfOwner = (user: User, specId: string | undefined, options: LoadOptions = {}) => specFor(user, specId, "spec.edit", options);
 
-type MaybeWithOrganisation = User & { organisation?: Organisation | null };
-
-/**
- * Whether a shop user's organisation has been approved to read specs. Every reader of spec
- * content (the spec, its files, questions, bids, the bill workbook, the open-specs table)
- * passes here. The organisation the session loaded is used when present (it was read in this
- * request); otherwise it is read now.
- */
-export async function shopMayReadSpecs(user: MaybeWithOrganisation): Promise<boolean> {
-  if (user.role !== "shop") return false;
-  const loaded = user.organisation && user.organisation.id === user.organisationId ? user.organisation : null;
-  const organisation = loaded ?? (await Organisation.findByPk(user.organisationId, { attributes: ["id", "approval"] }));
-  return organisation?.approval === "approved";
-}
-
-/** A spec's content is refused (as "not found") to a shop that is not approved. */
-export async function requireApprovedShop(user: User): Promise<void> {
-  if (!(await shopMayReadSpecs(user))) notFound("No such spec.");
-}
-
-/** The people a published spec is announced to: active users of approved shops. */
+/** The people a published spec is announced to: active users of approved shops (a shop holds only shop users). */
 export function shopPeopleToTell(transaction?: Transaction) {
   return User.findAll({
-    where: { role: "shop", active: true },
+    where: { active: true },
     include: [{ model: Organisation, as: "organisation", attributes: [], where: { kind: "shop", approval: "approved" } }],
     order: [["email", "ASC"]],
     transaction,
   });
-}
-
-/**
- * A spec the user may read: a buyer their own organisation's (drafts too); an approved shop a
- * published one; an account manager a published spec of a buyer account assigned to them
- * (organisations.account_manager_id); an admin a published one. Anything else is a 404.
- */
-export async function specForReader(user: User, specId: string | undefined): Promise<Spec> {
-  const spec = await Spec.findByPk(requireId(specId), {
-    include: user.role === "account_manager" ? [{ model: Organisation, as: "organisation", attributes: ["id", "accountManagerId"] }] : [],
-  });
-  if (!spec) notFound("No such spec.");
-  if (user.role === "buyer" && spec.organisationId === user.organisationId) return spec;
-  if (user.role === "admin" && isPublished(spec)) return spec;
-  if (user.role === "shop" && isPublished(spec) && (await shopMayReadSpecs(user))) return spec;
-  if (user.role === "account_manager" && isPublished(spec)) {
-    const account = (spec as Spec & { organisation?: Organisation }).organisation;
-    if (account && account.accountManagerId === user.id) return spec;
-  }
-  notFound("No such spec.");
 }
 
 /**
@@ -74,8 +42,7 @@ export async function specForReader(user: User, specId: string | undefined): Pro
  * never does (buyers' machines are confidential, and the chosen shop meets its buyer on the
  * job, after the award). Null means "do not name the buyer".
  */
-export async function buyerNameFor(reader: User, spec: Pick<Spec, "organisationId">): Promise<string | null> {
-  const insider = reader.organisationId === spec.organisationId || reader.role === "admin" || reader.role === "account_manager";
-  if (!insider) return null;
+export async function buyerNameFor(reader: User, spec: Pick<Spec, "organisationId" | "status">): Promise<string | null> {
+  if (!can(await viewerOf(reader), "spec.seeBuyerName", spec)) return null;
   return (await Organisation.findByPk(spec.organisationId, { attributes: ["name"] }))?.name ?? null;
 }

@@ -25,8 +25,8 @@ beforeAll(async () => {
   const shop = await makeMember("shop", { organisationName: "Tollgate Hydraulics" });
   const spec = await makePublishedSpec(buyer, { machine: { title: "Baler, compaction ram" } });
   const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "250" })), leadTimeWeeks: 9, validUntil: inDays(40) });
-  job = await awardBid(buyer, spec.id, bid.id);
+  const bid = await saveBid(shop, spec.id, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "250" })), leadTimeWeeks: 9, validUntil: inDays(40) });
+  job = await awardBid(buyer, spec.id, { bidId: bid.id });
   app = await startBrowserApp();
   fake.setWebhookUrl(`${app.baseUrl}/webhooks/stripe`);
 }, 180_000);

@@ -263,7 +263,7 @@ describe("200 shops bidding at once", () => {
       leadTimeWeeks: 6 + (i % 20),
       validUntil: inDays(60),
     });
-    const results = await Promise.allSettled(shops.map((shop, i) => saveBid(shop, spec, input(i))));
+    const results = await Promise.allSettled(shops.map((shop, i) => saveBid(shop, spec.id, input(i))));
     expect(results.filter((r) => r.status === "rejected")).toEqual([]);
 
     const stored = await Bid.findAll({ where: { specId: spec.id } });

@@ -39,8 +39,8 @@ beforeAll(async () => {
 async function awardedJob(): Promise<Job> {
   const spec = await makePublishedSpec(buyer);
   const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
-  return awardBid(buyer, spec.id, bid.id);
+  const bid = await saveBid(shop, spec.id, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
+  return awardBid(buyer, spec.id, { bidId: bid.id });
 }
 
 const clickPay = (job: Job) => visitor.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id });

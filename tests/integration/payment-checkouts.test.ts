@@ -61,8 +61,8 @@ afterAll(async () => {
 async function awardedJob() {
   const spec = await makePublishedSpec(buyer);
   const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
-  return awardBid(buyer, spec.id, bid.id);
+  const bid = await saveBid(shop, spec.id, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
+  return awardBid(buyer, spec.id, { bidId: bid.id });
 }
 
 /** The buyer clicks "pay" (signed in afresh, as clocks move in this file); where they are sent. */

@@ -35,8 +35,8 @@ let visitors: Record<"buyer" | "shop" | "manager", Visitor>;
 async function awardedJob() {
   const spec = await makePublishedSpec(buyer);
   const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
-  return awardBid(buyer, spec.id, bid.id);
+  const bid = await saveBid(shop, spec.id, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
+  return awardBid(buyer, spec.id, { bidId: bid.id });
 }
 
 /** An awarded job whose retainer the buyer paid on the fake's page, recorded from the webhook. */

@@ -6,7 +6,7 @@ import { COMPARISON_SORTS, type ComparisonSort } from "../bid-comparison";
 import { comparisonOf } from "../bids.server";
 import { notFound } from "../errors.server";
 import { scopedJob } from "../jobs.server";
-import { buyerNameFor, specForReader, specOfOwner } from "../spec-access.server";
+import { buyerNameFor, specFor, specForReader } from "../spec-access.server";
 import { revisionsOf } from "../specs.server";
 import type { BillInput } from "./bill-workbook.server";
 import type { ComparisonInput } from "./comparison-workbook.server";
@@ -81,7 +81,7 @@ export async function pricedBillSource(user: User, jobId: string | undefined): P
 
 /** The buyer's comparison of the offers on their spec, in the page's order (`?sort=`). */
 export async function comparisonSource(user: User, specId: string | undefined, sortParam: string | null): Promise<ComparisonInput> {
-  const spec = await specOfOwner(user, specId);
+  const spec = await specFor(user, specId, "spec.compareBids");
   const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam ?? "") ? (sortParam as ComparisonSort) : "total";
   const [{ bids, comparison }, revision] = await Promise.all([comparisonOf(user, spec, sort), SpecRevision.findOne({ where: { specId: spec.id, number: spec.currentRevision } })]);
   if (!revision) notFound("This spec has no published revision yet.");

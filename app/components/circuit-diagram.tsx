@@ -3,11 +3,15 @@ import type { CircuitComponent, CircuitConnection, Design } from "~/hydraulics/d
 import type { UnitSystem } from "~/units/systems";
 import { centreName, circuitDescription, circuitTitle, numberValue, textValue } from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
-import { BOX, CBV_HALF_W, DIAMOND, GAUGE_R, MOTOR_R, PUMP_R, RELIEF_BOX, TANK_H, VENT_BOX, layoutCircuit, type Layout } from "./circuit-diagram/layout";
+import {
+  BOX, CBV_HALF_W, DECOMPRESSION_STUB, DIAMOND, FC_HALF_W, GAUGE_R, MOTOR_R, POC_HALF_W, PUMP_R, RELIEF_BOX, TANK_H, VENT_BOX,
+  layoutCircuit, type Layout,
+} from "./circuit-diagram/layout";
 import { junctions, pathData, routeConnections, type Route } from "./circuit-diagram/routes";
 import {
-  Caption, CbvSymbol, CylinderSymbol, DASH, DcvSymbol, FilterSymbol, GaugeSymbol, MotorSymbol, PumpSymbol,
-  ReliefSymbol, STROKE, TankSymbol, VentValveSymbol,
+  COMPENSATOR_W, Caption, CbvSymbol, CheckSymbol, CoolerSymbol, CylinderSymbol, DASH, DcvSymbol, DecompressionSymbol, FilterSymbol,
+  FlowControlSymbol, GaugeSymbol, MotorSymbol, PocSymbol, PortLabel, PumpSymbol, ReliefSymbol, STROKE, SolenoidValve22, TankSymbol,
+  UnloadingSymbol, VentValveSymbol,
 } from "./circuit-diagram/symbols";
 
 /**
@@ -44,7 +48,7 @@ export function CircuitDiagram({ design, units = "metric", className = "" }: { d
       </g>
       <g data-layer="tanks">
         {routes.map((r) =>
-          r.tank ? <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={r.tank.id} x={r.tank.x} top={layout.tankY} /> : null,
+          r.tank ? <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={r.tank.id} x={r.tank.x} top={r.tank.top} /> : null,
         )}
       </g>
       <g data-layer="symbols">
@@ -180,13 +184,90 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       );
     }
     case "pump":
+      return <PumpWithCaption component={c} at={at} u={u} design={design} />;
+    case "poc": {
+      const side = layout.pilotSide[c.id] ?? "left";
+      // the caption goes on the side away from the pilot, outside the columns
+      const captionLeft = side === "right";
       return (
         <>
-          <PumpSymbol id={c.id} centre={at} />
+          <PocSymbol id={c.id} centre={at} pilotSide={side} pilotY={layout.ports[`${c.id}.X`]?.y} />
           <Caption
-            x={at.x + PUMP_R + 14} y={at.y - 8} name="Fixed pump"
-            values={[...v("displacementCcRev", u.displacement), ...v("flowLpm", u.flow)]}
+            x={captionLeft ? at.x - POC_HALF_W - 14 : at.x + POC_HALF_W + 14} y={at.y - 12} anchor={captionLeft ? "end" : "start"}
+            name="Pilot-operated check"
+            values={["holds the load leak-tight", ...v("pilotRatio", (r) => `pilot ratio ${r}:1`)]}
           />
+        </>
+      );
+    }
+    case "flow-control":
+      return (
+        <>
+          <FlowControlSymbol id={c.id} centre={at} compensated={textValue(c, "compensated") === "yes"} />
+          <Caption
+            x={at.x + FC_HALF_W + 12} y={at.y - 8} name="Pressing-speed control"
+            values={[
+              textValue(c, "compensated") === "yes" ? "meter-in, compensated" : "meter-in", "free return", ...v("settingLpm", (q) => `set ${u.flow(q)}`),
+            ]}
+          />
+        </>
+      );
+    case "bypass":
+      return (
+        <>
+          <SolenoidValve22 id={c.id} kind="bypass" centre={at} ports="vertical" normally={textValue(c, "normally") === "open" ? "open" : "closed"} portNames={["1", "2"]} flowFrom="2" />
+          <PortLabel x={at.x + 5} y={at.y - VENT_BOX / 2 - 5} anchor="start" port={`${c.id}.1`}>1</PortLabel>
+          <PortLabel x={at.x + 5} y={at.y + VENT_BOX / 2 + 13} anchor="start" port={`${c.id}.2`}>2</PortLabel>
+          <Caption
+            x={at.x - VENT_BOX * 1.5 - 24} y={at.y - 8} anchor="end" name="Bypass valve"
+            values={[`2/2, normally ${textValue(c, "normally") === "open" ? "open" : "closed"}`, "open for the approach"]}
+          />
+        </>
+      );
+    case "regen": {
+      const values = ["2/2, normally closed", "rod end into the cap line", ...v("switchBar", (p) => `switched off at ${u.pressure(p)}`)];
+      return (
+        <>
+          <SolenoidValve22 id={c.id} kind="regen" centre={at} ports="horizontal" normally="closed" portNames={["2", "1"]} flowFrom="1" />
+          <PortLabel x={at.x - VENT_BOX / 2 - 4} y={at.y - 5} anchor="end" port={`${c.id}.2`}>2</PortLabel>
+          <PortLabel x={at.x + VENT_BOX / 2 + 4} y={at.y - 5} anchor="start" port={`${c.id}.1`}>1</PortLabel>
+          {/* above the solenoid: one line per value */}
+          <Caption x={at.x} y={at.y - VENT_BOX * 1.5 - 16 - 12 - 14 * values.length} anchor="middle" name="Regeneration valve" values={values} />
+        </>
+      );
+    }
+    case "decompression":
+      return (
+        <>
+          <DecompressionSymbol id={c.id} centre={at} />
+          <Caption
+            x={at.x - VENT_BOX / 2 - DECOMPRESSION_STUB - 28} y={at.y - 26} anchor="end" name="Decompression valve"
+            values={["2/2 with orifice, to tank", ...v("releaseCm3", (cm3) => `releases about ${Math.round(cm3).toLocaleString("en-GB")} cm³`)]}
+          />
+        </>
+      );
+    case "unloading":
+      return (
+        <>
+          <UnloadingSymbol id={c.id} centre={at} />
+          <Caption
+            x={at.x + 12} y={at.y - RELIEF_BOX / 2 - 48} name="Unloading valve"
+            values={v("settingBar", (p) => `unloads above ${u.pressure(p)}`)}
+          />
+        </>
+      );
+    case "check":
+      return (
+        <>
+          <CheckSymbol id={c.id} centre={at} />
+          <Caption x={at.x - 14} y={at.y + 4} anchor="end" name="Check valve" values={[]} />
+        </>
+      );
+    case "cooler":
+      return (
+        <>
+          <CoolerSymbol id={c.id} centre={at} />
+          <Caption x={at.x + DIAMOND + 10} y={at.y - 3} name="Oil cooler" values={v("kw", (k) => `sheds ${u.power(Math.ceil(k * 10) / 10)}`)} />
         </>
       );
     case "motor":
@@ -203,7 +284,12 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       return (
         <>
           <GaugeSymbol id={c.id} centre={at} />
-          <Caption x={at.x + GAUGE_R + 10} y={at.y - 3} name="Gauge" values={v("rangeBar", (r) => `0–${u.pressure(r)}`)} />
+          {/* the caption goes on the side away from the gauge's line */}
+          <Caption
+            x={layout.ports[`${c.id}.port`]?.dir === "right" ? at.x - GAUGE_R - 10 : at.x + GAUGE_R + 10} y={at.y - 3}
+            anchor={layout.ports[`${c.id}.port`]?.dir === "right" ? "end" : "start"}
+            name="Gauge" values={v("rangeBar", (r) => `0–${u.pressure(r)}`)}
+          />
         </>
       );
     case "filter":
@@ -223,4 +309,48 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
     default:
       return null;
   }
+}
+
+/** The pump as the data gives it: fixed, compensated (with its settings) or one section of a double pump. */
+function PumpWithCaption({ component: c, at, u, design }: { component: CircuitComponent; at: { x: number; y: number }; u: DisplayUnits; design: Design }) {
+  const type = textValue(c, "type");
+  const v = (key: string, fmt: (x: number) => string) => {
+    const n = numberValue(c, key);
+    return n === undefined ? [] : [fmt(n)];
+  };
+  if (type === "double") {
+    // One caption for both sections, beside the large one (the small one has the strainer below it).
+    if (textValue(c, "section") !== "large") return <PumpSymbol id={c.id} centre={at} />;
+    const small = design.circuit.components.find((p) => p.kind === "pump" && p !== c);
+    return (
+      <>
+        <PumpSymbol id={c.id} centre={at} />
+        <Caption
+          x={at.x + PUMP_R + 14} y={at.y + 10} name="Double pump"
+          values={[
+            ...v("displacementCcRev", (n) => `large ${u.displacement(n)}`),
+            ...(numberValue(small, "displacementCcRev") !== undefined ? [`small ${u.displacement(numberValue(small, "displacementCcRev")!)}`] : []),
+            ...(numberValue(small, "totalFlowLpm") !== undefined ? [`together ${u.flow(numberValue(small, "totalFlowLpm")!)}`] : []),
+          ]}
+        />
+      </>
+    );
+  }
+  const compensated = type === "compensated";
+  return (
+    <>
+      <PumpSymbol id={c.id} centre={at} variable={compensated} compensated={compensated} />
+      {compensated ? (
+        <Caption
+          x={at.x + PUMP_R + COMPENSATOR_W + 14} y={at.y - 30} name="Compensated pump"
+          values={[
+            ...v("displacementCcRev", u.displacement), ...v("flowLpm", (q) => `up to ${u.flow(q)}`),
+            ...v("compensatorBar", (p) => `compensator ${u.pressure(p)}`), ...v("powerLimitKw", (k) => `power limit ${u.power(k)}`),
+          ]}
+        />
+      ) : (
+        <Caption x={at.x + PUMP_R + 14} y={at.y - 8} name="Fixed pump" values={[...v("displacementCcRev", u.displacement), ...v("flowLpm", u.flow)]} />
+      )}
+    </>
+  );
 }

@@ -1,4 +1,5 @@
 import type { Circuit, CircuitComponent, CircuitConnection, DcvPositions, Design } from "./design";
+import { decompressionParts, pumpParts, returnLine, workLines } from "./circuit-parts";
 import { dcvPositions } from "./valves";
 
 /**
@@ -7,13 +8,16 @@ import { dcvPositions } from "./valves";
  * valve's T returns to tank [CP].
  */
 export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPositions = dcvPositions(d.directionalValve.center)): Circuit {
-  const cb = d.counterbalance;
   const vent = d.reliefVent;
+  const pump = pumpParts(d);
+  const work = workLines(d);
+  const back = returnLine(d);
+  const decompression = decompressionParts(d);
   const components: CircuitComponent[] = [
     { id: "tank", kind: "tank", ports: ["suction", "return"], label: "Reservoir", values: { volumeL: d.reservoir.volumeL } },
     { id: "strainer", kind: "strainer", ports: ["inlet", "outlet"], label: "Suction strainer" },
     { id: "motor", kind: "motor", ports: ["shaft"], label: "Motor", values: { ratedKw: d.motor.ratedKw, speedRpm: d.pump.speedRpm } },
-    { id: "pump", kind: "pump", ports: ["inlet", "outlet", "shaft"], label: "Pump", values: { displacementCcRev: d.pump.displacementCcRev, flowLpm: d.flowsLpm.pump } },
+    ...pump.components,
     vent
       ? {
           id: "relief", kind: "relief", ports: ["1", "2", "X"], label: "Relief valve, pilot-operated, solenoid-vented",
@@ -40,35 +44,11 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
     { from: "pump.outlet", to: "gauge.port", line: "pressure" },
     { from: "relief.2", to: "tank.return", line: "return" },
     { from: "dcv.T", to: "filter.inlet", line: "return" },
-    { from: "filter.outlet", to: "tank.return", line: "return" },
+    ...back.connections,
   ];
-  if (cb) {
-    components.push({
-      id: "cbv", kind: "cbv", ports: ["1", "2", "3"], label: "Counterbalance valve",
-      values: { side: cb.side, settingBar: cb.settingBar, pilotRatio: cb.pilotRatio },
-    });
-  }
-  // Port 1 to the actuator, 2 to the valve, pilot 3 to the opposite work line.
-  if (cb?.side === "rod") {
-    connections.push(
-      { from: "dcv.A", to: "cylinder.cap", line: "work" },
-      { from: "dcv.B", to: "cbv.2", line: "work" },
-      { from: "cbv.1", to: "cylinder.rod", line: "work" },
-      { from: "dcv.A", to: "cbv.3", line: "pilot" },
-    );
-  } else if (cb?.side === "cap") {
-    connections.push(
-      { from: "dcv.A", to: "cbv.2", line: "work" },
-      { from: "cbv.1", to: "cylinder.cap", line: "work" },
-      { from: "dcv.B", to: "cylinder.rod", line: "work" },
-      { from: "dcv.B", to: "cbv.3", line: "pilot" },
-    );
-  } else {
-    connections.push(
-      { from: "dcv.A", to: "cylinder.cap", line: "work" },
-      { from: "dcv.B", to: "cylinder.rod", line: "work" },
-    );
-  }
+  components.push(...back.components, ...work.components, ...decompression.components);
+  // the work lines with their in-line valves and pilots (circuit-parts.ts)
+  connections.push(...work.connections, ...decompression.connections);
   // The vent valve goes last so the work-line connections keep their order for readers.
   if (vent) {
     components.push({
@@ -80,5 +60,7 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
       { from: "vent.T", to: "tank.return", line: "return" },
     );
   }
+  // the double pump's large section, check and unloading valve after the rest, as the vent valve
+  connections.push(...pump.connections);
   return { components, connections, dcvPositions: positions };
 }

@@ -95,7 +95,9 @@ export interface HoseLine extends LineSizing {
 
 export interface CircuitComponent {
   id: string;
-  kind: "pump" | "motor" | "relief" | "vent" | "dcv" | "cbv" | "cylinder" | "tank" | "filter" | "gauge" | "strainer";
+  kind:
+    | "pump" | "motor" | "relief" | "vent" | "dcv" | "cbv" | "cylinder" | "tank" | "filter" | "gauge" | "strainer" | "regen"
+    | "poc" | "cooler" | "decompression" | "unloading" | "check" | "flow-control" | "bypass";
   ports: string[];
   label?: string;
   values?: Record<string, number | string>;

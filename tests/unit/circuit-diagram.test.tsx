@@ -1,6 +1,9 @@
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { CircuitDiagram } from "~/components/circuit-diagram";
+import { layoutCircuit } from "~/components/circuit-diagram/layout";
+import { junctions, routeConnections } from "~/components/circuit-diagram/routes";
+import type { CircuitComponent } from "~/hydraulics/design";
 import { sizeCircuit, type Design } from "~/hydraulics/index";
 import { dcvPositions } from "~/hydraulics/valves";
 
@@ -41,11 +44,11 @@ describe("CircuitDiagram", () => {
     expect(desc).toContain(`Relief valve set to ${press.pressuresBar.reliefSetting} bar`);
   });
 
-  it("draws no counterbalance valve, and no ports 1, 2, 3, when the design has none", () => {
+  it("draws no counterbalance valve, and none of its ports 1, 2, 3, when the design has none", () => {
     expect(feed.counterbalance).toBeNull();
     const html = render(feed);
     expect(html).not.toContain('data-kind="cbv"');
-    expect(html).not.toMatch(/data-port="[^"]*\.[123]"/);
+    expect(html).not.toMatch(/data-port="cbv\.[123]"/);
     expect(html).not.toContain('data-line="pilot"');
     expect(html).toContain("without a counterbalance valve");
   });
@@ -186,5 +189,200 @@ describe("CircuitDiagram", () => {
     expect(html).not.toContain('data-kind="gauge"');
     expect(html).not.toContain('data-to="gauge.port"');
     expect(html).toContain('data-kind="pump"');
+  });
+});
+
+// ---- Every component a design calls for -------------------------------------------------------
+
+const pressing = {
+  ...duty, strokeMm: 1000, extendSpeedMmS: 200, retractSpeedMmS: 200, orientation: "vertical", rodDirection: "down", massKg: 2000,
+  processForceN: 150000, pressStrokeMm: 50, pressSpeedMmS: 10, dwellS: 2,
+} as const;
+const held = sizeCircuit({ ...duty, orientation: "vertical", rodDirection: "down", massKg: 1200, processForceN: 60000, holdMinutes: 30 });
+const heldBoth = sizeCircuit({ ...duty, orientation: "horizontal", massKg: 500, holdMinutes: 30 });
+const hot = sizeCircuit({ ...duty, orientation: "horizontal", massKg: 800, processForceN: 80000, dwellS: 20, cyclesPerHour: 120, hoursPerDay: 16, ambientC: 40 });
+const double = sizeCircuit({ ...pressing, pumpType: "double" });
+const compensated = sizeCircuit({ ...pressing, pumpType: "compensated" });
+const fixedPress = sizeCircuit({ ...pressing, orientation: "horizontal", massKg: 500, pumpType: "fixed" });
+/**
+ * A regenerative axis as the engine joins it (the valve at the valve stack, 1 from the rod line,
+ * 2 to the cap line); where the engine in this tree does not add it yet, a copy with it added.
+ */
+const regenerative: Design = fixedPress.circuit.components.some((c) => c.kind === "regen")
+  ? fixedPress
+  : {
+      ...fixedPress,
+      circuit: {
+        ...fixedPress.circuit,
+        components: [...fixedPress.circuit.components, { id: "regen", kind: "regen", ports: ["1", "2"], values: { normally: "closed" } }],
+        connections: [...fixedPress.circuit.connections, { from: "dcv.B", to: "regen.1", line: "work" }, { from: "regen.2", to: "dcv.A", line: "work" }],
+      },
+    };
+const ALL = { feed, press, lift, held, heldBoth, hot, double, compensated, fixedPress, regenerative };
+
+/** Every kind the circuit may hold; `satisfies` makes the compiler ask for a new kind here. */
+const KINDS = {
+  pump: true, motor: true, relief: true, vent: true, dcv: true, cbv: true, cylinder: true, tank: true, filter: true, gauge: true,
+  strainer: true, regen: true, poc: true, cooler: true, decompression: true, unloading: true, check: true, "flow-control": true, bypass: true,
+} satisfies Record<CircuitComponent["kind"], true>;
+
+const desc = (html: string) => html.match(/<desc[^>]*>(.*?)<\/desc>/)![1].replaceAll("&#x27;", "'");
+
+describe("CircuitDiagram: every component the design calls for", () => {
+  it("the designs under test hold every kind of component", () => {
+    const kinds = new Set(Object.values(ALL).flatMap((d) => d.circuit.components.map((c) => c.kind)));
+    expect([...kinds].sort()).toEqual(Object.keys(KINDS).sort());
+  });
+
+  it.each(Object.entries(ALL))("%s: draws each component with its own symbol (none left out, no stand-in box)", (_name, design) => {
+    const html = render(design);
+    for (const c of design.circuit.components) {
+      if (c.kind === "tank") continue; // drawn at each line that ends at the reservoir
+      expect(html, c.id).toContain(`data-component="${c.id}" data-kind="${c.kind}"`);
+    }
+    const drawn = attrs(html, /<path[^>]*data-from="([^"]+)" data-to="([^"]+)"/g).map((m) => `${m[1]}>${m[2]}`);
+    expect(drawn.sort()).toEqual(design.circuit.connections.map((c) => `${c.from}>${c.to}`).sort());
+  });
+
+  it.each(Object.entries(ALL))("%s: joins every line to its ports: at the port itself, or as a tee onto a line of the same net", (_name, design) => {
+    const layout = layoutCircuit(design.circuit);
+    const routes = routeConnections(design.circuit, layout);
+    expect(routes).toHaveLength(design.circuit.connections.length);
+    const same = (a: { x: number; y: number }, b: { x: number; y: number }) => Math.abs(a.x - b.x) < 0.01 && Math.abs(a.y - b.y) < 0.01;
+    const onLine = (p: { x: number; y: number }, others: typeof routes) =>
+      others.some((r) => r.points.some((q, i) => {
+        if (i === 0) return false;
+        const a = r.points[i - 1];
+        return (Math.abs(a.x - q.x) < 0.01 && Math.abs(p.x - q.x) < 0.01 && p.y >= Math.min(a.y, q.y) && p.y <= Math.max(a.y, q.y))
+          || (Math.abs(a.y - q.y) < 0.01 && Math.abs(p.y - q.y) < 0.01 && p.x >= Math.min(a.x, q.x) && p.x <= Math.max(a.x, q.x));
+      }));
+    for (const r of routes) {
+      const first = r.points[0];
+      const last = r.points[r.points.length - 1];
+      const from = layout.ports[r.connection.from];
+      const to = layout.ports[r.connection.to];
+      expect(from ?? to, `${r.connection.from} > ${r.connection.to}`).toBeDefined();
+      // each end is at its own port, or (a tee) on another drawn line that shares the same port
+      for (const [end, port, ref] of [[first, from, r.connection.from], [last, to, r.connection.to]] as const) {
+        if (r.tank && ref.startsWith("tank.")) {
+          expect(end.y).toBeCloseTo(r.tank.top + 6);
+          continue;
+        }
+        if (port && same(end, port)) continue;
+        const other = ref === r.connection.from ? r.connection.to : r.connection.from;
+        const partners = routes.filter((x) => x !== r && x.connection.line !== "pilot" && [x.connection.from, x.connection.to].includes(ref));
+        expect(onLine(end, partners), `${ref} (line to ${other})`).toBe(true);
+      }
+      // orthogonal runs only
+      r.points.forEach((q, i) => i > 0 && expect(q.x === r.points[i - 1].x || q.y === r.points[i - 1].y).toBe(true));
+    }
+  });
+
+  it("draws the pilot-operated check (free flow 2 → 1) with ports 1, 2, X and its pilot teed onto the opposite work line", () => {
+    const html = render(held);
+    expect(html).toContain('data-component="poc-rod" data-kind="poc" data-free-flow="2-1"');
+    for (const port of ["1", "2", "X"]) expect(html).toMatch(new RegExp(`data-port="poc-rod\\.${port}"[^>]*>${port}<`));
+    const pilot = html.match(/<path[^>]*data-to="poc-rod.X"[^>]*>/)![0];
+    expect(pilot).toContain('data-from="dcv.A"');
+    expect(pilot).toContain('data-line="pilot"');
+    expect(pilot).toMatch(/stroke-dasharray="[\d.]+ [\d.]+"/);
+    // the tee: a straight dashed run from the cap line's column, with a junction dot where it leaves
+    const [, x1, y1, x2, y2] = pilot.match(/d="M([\d.]+) ([\d.]+) L([\d.]+) ([\d.]+)"/)!.map(Number);
+    expect(y1).toBe(y2);
+    expect(html).toContain(`cx="${Math.min(x1, x2)}" cy="${y1}" r="3"`);
+    // the check at the cylinder port, the counterbalance valve between it and the valve
+    expect(html).toMatch(/data-from="poc-rod.1" data-to="cylinder.rod"/);
+    expect(html).toMatch(/data-from="cbv.1" data-to="poc-rod.2"/);
+    expect(html).toContain("Pilot-operated check");
+    expect(html).toContain(`pilot ratio ${held.holding!.pilotRatio}:1`);
+    expect(desc(html)).toContain("Pilot-operated check valve on the rod port holds the load leak-tight");
+  });
+
+  it("crosses the two pilots of checks on both ports without a junction dot between them", () => {
+    const layout = layoutCircuit(heldBoth.circuit);
+    const routes = routeConnections(heldBoth.circuit, layout);
+    const pilots = routes.filter((r) => r.connection.line === "pilot" && r.connection.to.startsWith("poc-"));
+    expect(pilots.map((r) => `${r.connection.from}>${r.connection.to}`).sort()).toEqual(["dcv.A>poc-rod.X", "dcv.B>poc-cap.X"]);
+    const dots = junctions(routes);
+    const [a, b] = pilots;
+    // no dot lies on both pilots: they cross, they are not joined
+    const on = (p: { x: number; y: number }, r: (typeof routes)[number]) =>
+      r.points.some((q, i) => i > 0 && ((q.x === r.points[i - 1].x && p.x === q.x && p.y >= Math.min(q.y, r.points[i - 1].y) && p.y <= Math.max(q.y, r.points[i - 1].y))
+        || (q.y === r.points[i - 1].y && p.y === q.y && p.x >= Math.min(q.x, r.points[i - 1].x) && p.x <= Math.max(q.x, r.points[i - 1].x))));
+    expect(dots.filter((p) => on(p, a) && on(p, b))).toEqual([]);
+    expect(desc(render(heldBoth))).toContain("Pilot-operated check valves on the cap and rod ports hold the load leak-tight");
+  });
+
+  it("draws the double pump: two sections on one shaft, the check into the system line, the unloading valve piloted from it", () => {
+    const html = render(double);
+    expect(attrs(html, /data-kind="pump"/g)).toHaveLength(2);
+    expect(html).toMatch(/<path[^>]*data-from="pump.shaft" data-to="pump-large.shaft" data-line="shaft"/);
+    expect(html).toContain('data-component="pump-check" data-kind="check" data-free-flow="inlet-outlet"');
+    expect(html).toContain('data-component="unloading" data-kind="unloading" data-pilot="external"');
+    const pilot = html.match(/<path[^>]*data-to="unloading.X"[^>]*>/)![0];
+    expect(pilot).toContain('data-from="pump-check.outlet"');
+    expect(pilot).toMatch(/stroke-dasharray/);
+    // the check's inlet is below its outlet: oil rises from the large section into the system line
+    const layout = layoutCircuit(double.circuit);
+    expect(layout.ports["pump-check.inlet"].y).toBeGreaterThan(layout.ports["pump-check.outlet"].y);
+    const [large, small] = double.pump.displacementsCcRev;
+    expect(html).toContain(`large ${large} cm³/rev`);
+    expect(html).toContain(`small ${small} cm³/rev`);
+    expect(html).toContain(`unloads above ${double.pump.unloadingBar} bar`);
+    const text = desc(html);
+    expect(text).toContain("Double (high-low) pump, two sections on one shaft");
+    expect(text).toContain("through a check valve that lets oil pass only from the large section into the system line");
+    expect(text).toContain(`dumped to tank by an unloading valve, piloted from the system line, once the system pressure passes ${double.pump.unloadingBar} bar`);
+  });
+
+  it("draws the compensated pump with the variable arrow and its compensator, and names its settings", () => {
+    const html = render(compensated);
+    expect(html).toMatch(/data-component="pump" data-kind="pump" data-variable="" data-compensated=""/);
+    expect(html).toContain("data-compensator");
+    expect(html).toContain(`compensator ${compensated.pump.compensatorBar} bar`);
+    if (compensated.pump.powerLimitKw !== undefined) expect(html).toContain("power limit");
+    expect(desc(html)).toContain("Pressure-compensated variable-displacement pump");
+    expect(desc(html)).toContain("Its compensator, piloted from the pump's own outlet");
+    expect(render(feed)).not.toContain("data-variable");
+  });
+
+  it("draws the cooler after the return filter and the decompression valve with a tank of its own", () => {
+    const html = render(hot);
+    expect(html).toContain('data-component="cooler" data-kind="cooler"');
+    expect(html).toMatch(/data-from="filter.outlet" data-to="cooler.inlet"/);
+    expect(html).toContain("Oil cooler");
+    expect(desc(html)).toContain("Oil cooler after the return filter sheds");
+    const d = render(double);
+    expect(d).toContain('data-component="decompression" data-kind="decompression"');
+    expect(d).toContain("Decompression valve");
+    const layout = layoutCircuit(double.circuit);
+    const toTank = routeConnections(double.circuit, layout).find((r) => r.connection.from === "decompression.2")!;
+    expect(toTank.tank!.top).toBeLessThan(layout.tankY); // a short drop beside the cylinder, not down the whole sheet
+    expect(desc(d)).toContain("Decompression valve, a normally closed 2/2 solenoid valve with an orifice, joined to the cap port");
+  });
+
+  it("draws the pressing-speed control with its normally closed bypass across it", () => {
+    const html = render(fixedPress);
+    expect(html).toContain('data-component="press-flow" data-kind="flow-control" data-controlled="2-1" data-free-flow="1-2"');
+    const bypass = html.match(/<g data-component="press-bypass" data-kind="bypass" data-normally="closed">(.*?)<\/g><text/)![1];
+    expect(bypass).toMatch(/data-position="normal" data-paths="" data-blocked="1,2"/);
+    expect(bypass).toMatch(/data-position="energised" data-paths="1-2" data-blocked=""/);
+    expect(bypass).toContain('data-actuator="solenoid"');
+    expect(html).toContain(`set ${Number(fixedPress.pressSpeedControl!.settingLpm.toFixed(1))} L/min`);
+    expect(desc(html)).toContain("meter-in flow control in the cap line sets the pressing speed");
+  });
+
+  it("draws the regeneration valve between the work lines, teed onto both", () => {
+    const html = render(regenerative);
+    const symbol = html.match(/<g data-component="regen" data-kind="regen" data-normally="closed">(.*?)<\/g><text/)![1];
+    expect(symbol).toMatch(/data-position="normal" data-paths="" data-blocked="2,1"/);
+    expect(symbol).toMatch(/data-position="energised" data-paths="2-1"/);
+    for (const port of ["1", "2"]) expect(html).toMatch(new RegExp(`data-port="regen\\.${port}"[^>]*>${port}<`));
+    const layout = layoutCircuit(regenerative.circuit);
+    const routes = routeConnections(regenerative.circuit, layout);
+    const tees = routes.filter((r) => r.connection.to.startsWith("regen.") || r.connection.from.startsWith("regen."));
+    for (const r of tees) expect(r.points).toHaveLength(2); // straight across to the column
+    expect(html).toContain("Regeneration valve");
+    expect(desc(html)).toContain("regeneration valve between the work lines");
   });
 });

@@ -56,14 +56,11 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
     return v === undefined ? undefined : fmt(v);
   };
   const side = textValue(cbv, "side");
+  const drive = motor && phrase("driven by an electric motor", n(motor, "ratedKw", (k) => `rated ${u.power(k)}`));
   const sentences = [
     tank && phrase("Reservoir", n(tank, "volumeL", u.volume), get("strainer") && "with a suction strainer", "feeds the pump"),
-    pump && phrase(
-      "Fixed-displacement pump",
-      n(pump, "displacementCcRev", u.displacement),
-      n(pump, "flowLpm", (q) => `delivering ${u.flow(q)}`),
-      motor && phrase("driven by an electric motor", n(motor, "ratedKw", (k) => `rated ${u.power(k)}`)),
-    ),
+    ...pumpSentences(circuit, u, drive),
+
     relief && phrase("Relief valve", n(relief, "settingBar", (p) => `set to ${u.pressure(p)}`), "protects the pump line and returns to tank"),
     vent && [
       phrase(
@@ -86,12 +83,22 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
       n(cbv, "pilotRatio", (r) => `with pilot ratio ${r}:1`),
       "and an integral check for free flow to the cylinder; its pilot port 3 is joined to the opposite work line",
     ),
+    ...workLineSentences(circuit, u),
     cylinder && ["Double-acting cylinder", [
       n(cylinder, "boreMm", (d) => `bore ${u.length(d)}`),
       n(cylinder, "rodMm", (d) => `rod ${u.length(d)}`),
       n(cylinder, "strokeMm", (d) => `stroke ${u.length(d)}`),
     ].filter(Boolean).join(", ")].filter(Boolean).join(": "),
-    filter && phrase("Return filter", n(filter, "ratedFlowLpm", (q) => `rated for ${u.flow(q)}`), "between valve port T and the tank"),
+    get("decompression") && phrase(
+      "Decompression valve, a normally closed 2/2 solenoid valve with an orifice, joined to the cap port: it lets",
+      n(get("decompression"), "releaseCm3", (v) => `about ${Math.round(v).toLocaleString("en-GB")} cm³ of`),
+      "compressed oil out to tank before the return stroke",
+    ),
+    filter && phrase(
+      "Return filter", n(filter, "ratedFlowLpm", (q) => `rated for ${u.flow(q)}`),
+      get("cooler") ? "between valve port T and the oil cooler" : "between valve port T and the tank",
+    ),
+    get("cooler") && phrase("Oil cooler after the return filter", n(get("cooler"), "kw", (k) => `sheds ${u.power(Math.ceil(k * 10) / 10)}`), "before the oil reaches the tank"),
   ];
   return sentences.filter(Boolean).map((s) => `${s}.`).join(" ");
 }
@@ -106,3 +113,76 @@ function centreSentence(circuit: Circuit): string {
 }
 
 const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+/** The pump as the data gives it: fixed, pressure-compensated, or a double pump with its unloading valve and check. */
+function pumpSentences(circuit: Circuit, u: DisplayUnits, drive: string | undefined): (string | undefined)[] {
+  const pumps = circuit.components.filter((c) => c.kind === "pump");
+  const pump = pumps.find((c) => textValue(c, "section") !== "large");
+  if (!pump) return [];
+  const n = (c: CircuitComponent | undefined, key: string, fmt: (x: number) => string) => {
+    const v = numberValue(c, key);
+    return v === undefined ? undefined : fmt(v);
+  };
+  const type = textValue(pump, "type");
+  if (type === "double") {
+    const large = pumps.find((c) => textValue(c, "section") === "large");
+    const unloading = find(circuit, "unloading");
+    return [
+      phrase(
+        "Double (high-low) pump, two sections on one shaft:",
+        n(large, "displacementCcRev", (v) => `a large section of ${u.displacement(v)}`),
+        n(pump, "displacementCcRev", (v) => `and a small section of ${u.displacement(v)}`),
+        n(pump, "totalFlowLpm", (q) => `delivering ${u.flow(q)} together`),
+        drive,
+      ),
+      phrase(
+        "The small section feeds the system line directly; the large one feeds it through a check valve that lets oil pass only from the large section into the system line",
+        unloading && phrase(
+          "and is dumped to tank by an unloading valve, piloted from the system line,",
+          n(unloading, "settingBar", (p) => `once the system pressure passes ${u.pressure(p)}`),
+        ),
+      ),
+    ];
+  }
+  if (type === "compensated") {
+    return [
+      phrase(
+        "Pressure-compensated variable-displacement pump",
+        n(pump, "displacementCcRev", u.displacement),
+        n(pump, "flowLpm", (q) => `delivering up to ${u.flow(q)}`),
+        drive,
+      ),
+      phrase(
+        "Its compensator, piloted from the pump's own outlet,",
+        n(pump, "compensatorBar", (p) => `reduces the delivery as the pressure nears ${u.pressure(p)}`) ?? "reduces the delivery as the pressure nears its setting",
+        n(pump, "powerLimitKw", (k) => `and a power limiter holds the drive to ${u.power(k)}`),
+      ),
+    ];
+  }
+  return [phrase("Fixed-displacement pump", n(pump, "displacementCcRev", u.displacement), n(pump, "flowLpm", (q) => `delivering ${u.flow(q)}`), drive)];
+}
+
+/** The valves between the directional valve and the cylinder other than the counterbalance valve. */
+function workLineSentences(circuit: Circuit, u: DisplayUnits): (string | false | undefined)[] {
+  const of = (kind: CircuitComponent["kind"]) => circuit.components.filter((c) => c.kind === kind);
+  const control = find(circuit, "flow-control");
+  const bypass = find(circuit, "bypass");
+  const regen = find(circuit, "regen");
+  const pocs = of("poc");
+  const ratio = numberValue(pocs[0], "pilotRatio");
+  return [
+    control && phrase(
+      textValue(control, "compensated") === "yes" ? "Pressure-compensated meter-in flow control in the cap line" : "Meter-in flow control in the cap line",
+      numberValue(control, "settingLpm") !== undefined && `sets the pressing speed at ${u.flow(numberValue(control, "settingLpm")!)}`,
+      "and lets the return pass freely through its check",
+      bypass && `; a normally ${textValue(bypass, "normally") === "open" ? "open" : "closed"} 2/2 solenoid valve across it is open for the approach`,
+    ).replace(" ;", ";"),
+    pocs.length > 0 && phrase(
+      pocs.length > 1 ? "Pilot-operated check valves on the cap and rod ports" : `Pilot-operated check valve on the ${textValue(pocs[0], "side") ?? "cylinder"} port`,
+      "hold the load leak-tight: oil flows freely from the valve side (2) to the cylinder (1), and back only when pressure at pilot port X, joined to the opposite work line, opens",
+      pocs.length > 1 ? "them" : "it",
+      ratio !== undefined && `(pilot ratio ${ratio}:1)`,
+    ).replace(/^(Pilot-operated check valve on the \w+ port) hold/, "$1 holds"),
+    regen && "Normally closed 2/2 solenoid regeneration valve between the work lines: energised during the approach, it leads the rod end's oil (1) into the cap line (2)",
+  ];
+}

@@ -6,7 +6,7 @@ export interface Route {
   connection: CircuitConnection;
   points: Point[];
   /** the tank symbol drawn at the end of this line, when it ends at the reservoir */
-  tank?: { id: string; x: number };
+  tank?: { id: string; x: number; top: number };
 }
 
 const isVertical = (a: Anchor) => a.dir === "up" || a.dir === "down";
@@ -30,29 +30,88 @@ export function orthogonal(a: Anchor, b: Anchor): Point[] {
 
 const componentOf = (ref: string) => ref.slice(0, ref.indexOf("."));
 
+/** Ports joined by non-pilot lines, directly or through a chain, share a net. */
+function netsOf(circuit: Circuit): (port: string) => string {
+  const parent = new Map<string, string>();
+  const find = (x: string): string => {
+    const p = parent.get(x) ?? x;
+    if (p === x) return x;
+    const root = find(p);
+    parent.set(x, root);
+    return root;
+  };
+  for (const c of circuit.connections) if (c.line !== "pilot" && c.line !== "shaft") parent.set(find(c.from), find(c.to));
+  return find;
+}
+
+/**
+ * Where a line leaving `a` straight in its direction first meets a drawn line of the net
+ * `net`: the tee of a branch (a pilot, a decompression or regeneration valve) onto a line
+ * already drawn. Undefined when the ray meets none.
+ */
+function teePoint(a: Anchor, net: string, drawn: Route[], netOf: (port: string) => string): Point | undefined {
+  let best: { p: Point; d: number } | undefined;
+  const horizontal = !isVertical(a);
+  const sign = a.dir === "right" || a.dir === "down" ? 1 : -1;
+  for (const r of drawn) {
+    if (r.tank || r.connection.line === "pilot" || r.connection.line === "shaft") continue;
+    if (netOf(r.connection.from) !== net) continue;
+    r.points.forEach((q, i) => {
+      if (i === 0) return;
+      const p0 = r.points[i - 1];
+      let hit: Point | undefined;
+      if (horizontal && p0.x === q.x && a.y >= Math.min(p0.y, q.y) && a.y <= Math.max(p0.y, q.y)) hit = { x: q.x, y: a.y };
+      if (!horizontal && p0.y === q.y && a.x >= Math.min(p0.x, q.x) && a.x <= Math.max(p0.x, q.x)) hit = { x: a.x, y: q.y };
+      if (!hit) return;
+      const d = sign * (horizontal ? hit.x - a.x : hit.y - a.y);
+      if (d > 0 && (!best || d < best.d)) best = { p: hit, d };
+    });
+  }
+  return best?.p;
+}
+
 /**
  * Routes every connection whose ends are laid out. A line to the reservoir drops straight
- * down from its other end to a tank symbol of its own, as ISO 1219 allows.
+ * down from its other end to a tank symbol of its own, as ISO 1219 allows (at the bottom, or
+ * just below a port that asks for its own). A port marked as a tap is joined by a straight
+ * tee onto the line it belongs to, drawn after the others; where no such line is in reach
+ * the connection is routed port to port.
  */
 export function routeConnections(circuit: Circuit, layout: Layout): Route[] {
   const tankIds = new Set(circuit.components.filter((c) => c.kind === "tank").map((c) => c.id));
-  const routes: Route[] = [];
+  const netOf = netsOf(circuit);
+  const routes = new Map<CircuitConnection, Route>();
+  const taps: CircuitConnection[] = [];
   for (const connection of circuit.connections) {
     const fromTank = tankIds.has(componentOf(connection.from));
     const toTank = tankIds.has(componentOf(connection.to));
     if (fromTank || toTank) {
       const other = layout.ports[fromTank ? connection.to : connection.from];
       if (!other) continue;
-      const tankTop: Point = { x: other.x, y: layout.tankY + 6 };
+      const top = other.tankTop ?? layout.tankY;
+      const tankTop: Point = { x: other.x, y: top + 6 };
       const id = componentOf(fromTank ? connection.from : connection.to);
-      routes.push({ connection, points: fromTank ? [tankTop, other] : [other, tankTop], tank: { id, x: other.x } });
+      routes.set(connection, { connection, points: fromTank ? [tankTop, other] : [other, tankTop], tank: { id, x: other.x, top } });
       continue;
     }
     const a = layout.ports[connection.from];
     const b = layout.ports[connection.to];
-    if (a && b) routes.push({ connection, points: orthogonal(a, b) });
+    if (!a || !b) continue;
+    if (a.tap || b.tap) taps.push(connection);
+    else routes.set(connection, { connection, points: orthogonal(a, b) });
   }
-  return routes;
+  const drawn = [...routes.values()];
+  for (const connection of taps) {
+    const a = layout.ports[connection.from];
+    const b = layout.ports[connection.to];
+    const tapFrom = a.tap === true;
+    const port = tapFrom ? a : b;
+    const hit = teePoint(port, netOf(tapFrom ? connection.to : connection.from), drawn, netOf);
+    const points = hit ? (tapFrom ? [port, hit] : [hit, port]) : orthogonal(a, b);
+    routes.set(connection, { connection, points });
+  }
+  // in the order of the data, for readers of the markup
+  return circuit.connections.flatMap((c) => routes.get(c) ?? []);
 }
 
 export const pathData = (points: Point[]) =>

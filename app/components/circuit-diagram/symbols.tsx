@@ -1,6 +1,7 @@
 import type { DcvPositions } from "~/hydraulics/design";
 import {
-  BOX, CBV_HALF_H, CBV_HALF_W, CBV_PILOT_DY, DIAMOND, GAUGE_R, MOTOR_R, PUMP_R, RELIEF_BOX, RELIEF_VENT_DY, TANK_H, TANK_W, VENT_BOX,
+  BOX, CBV_HALF_H, CBV_HALF_W, CBV_PILOT_DY, CHECK_HALF, DECOMPRESSION_STUB, DIAMOND, FC_HALF_H, FC_HALF_W, GAUGE_R, INLINE_PILOT_DY,
+  MOTOR_R, POC_HALF_H, POC_HALF_W, PUMP_R, RELIEF_BOX, RELIEF_VENT_DY, TANK_H, TANK_W, UNLOADING_STUB, VENT_BOX,
   type CylinderPlace, type Point,
 } from "./layout";
 import { blockedPorts, boxDrawing, pairsLabel } from "./valve-positions";
@@ -290,14 +291,36 @@ export function DcvSymbol({ id, cx, top, positions }: { id: string; cx: number; 
 
 // ---- Power unit -----------------------------------------------------------------------------
 
-/** Fixed-displacement pump: one filled triangle pointing out at the outlet. */
-export function PumpSymbol({ id, centre }: { id: string; centre: Point }) {
+/** Right of a compensated pump: the compensator's spring and its pilot from the pump's own outlet. */
+export const COMPENSATOR_W = 46;
+
+/**
+ * Hydraulic pump: one filled triangle pointing out at the outlet. A variable pump carries the
+ * diagonal arrow across its circle; a pressure-compensated one also its compensator beside it:
+ * an adjustable spring holding the stroke, and a pilot from the pump's own outlet against it.
+ */
+export function PumpSymbol({ id, centre, variable = false, compensated = false }: { id: string; centre: Point; variable?: boolean; compensated?: boolean }) {
   const { x, y } = centre;
   const tip = { x, y: y - PUMP_R };
+  const k = PUMP_R + 6;
+  const stem = x + PUMP_R + 14;
+  const pilotY = y - PUMP_R - 10;
   return (
-    <g data-component={id} data-kind="pump">
+    <g data-component={id} data-kind="pump" data-variable={variable ? "" : undefined} data-compensated={compensated ? "" : undefined}>
       <circle cx={x} cy={y} r={PUMP_R} {...outline} fill="white" />
       <polygon points={pts([tip, { x: x - 8, y: y - PUMP_R + 13 }, { x: x + 8, y: y - PUMP_R + 13 }])} fill="currentColor" />
+      {variable ? <Arrow from={{ x: x - k * 0.75, y: y + k * 0.75 }} to={{ x: x + k * 0.75, y: y - k * 0.75 }} /> : null}
+      {compensated ? (
+        <g data-compensator="">
+          <line x1={x + PUMP_R} y1={y} x2={stem - 5} y2={y} {...thin} />
+          <rect x={stem - 5} y={y - 9} width={10} height={18} {...outline} fill="white" />
+          <Spring a={{ x: stem + 5, y }} b={{ x: stem + 27, y }} turns={3} amplitude={5} />
+          <Adjustable centre={{ x: stem + 16, y }} span={9} />
+          {/* pilot from the outlet onto the compensator piston, against the spring */}
+          <polyline points={pts([{ x, y: pilotY }, { x: stem, y: pilotY }, { x: stem, y: y - 9 }])} {...pilot} />
+          <circle cx={x} cy={pilotY} r={2.4} fill="currentColor" />
+        </g>
+      ) : null}
     </g>
   );
 }
@@ -347,3 +370,213 @@ export function TankSymbol({ id, x, top }: { id: string; x: number; top: number 
     </g>
   );
 }
+
+// ---- Valves a design adds ---------------------------------------------------------------------
+
+/**
+ * Check valve in a vertical line, ball and seat: free flow from `inlet` (below, the seat's apex
+ * side) up to `outlet`; flow the other way presses the ball onto its seat.
+ */
+export function CheckSymbol({ id, centre }: { id: string; centre: Point }) {
+  const { x, y } = centre;
+  return (
+    <g data-component={id} data-kind="check" data-free-flow="inlet-outlet">
+      <rect x={x - 11} y={y - CHECK_HALF} width={22} height={CHECK_HALF * 2} fill="white" stroke="none" />
+      <line x1={x} y1={y + CHECK_HALF} x2={x} y2={y + 8} {...outline} />
+      <polyline points={pts([{ x: x - 8, y: y - 3 }, { x, y: y + 8 }, { x: x + 8, y: y - 3 }])} {...outline} />
+      <circle cx={x} cy={y - 6} r={6} {...outline} />
+      <line x1={x} y1={y - 12} x2={x} y2={y - CHECK_HALF} {...outline} />
+    </g>
+  );
+}
+
+/**
+ * Pilot-operated check valve (ISO 1219-1 style): a check with free flow from 2 (the valve side,
+ * below) to 1 (the cylinder, above), closed the other way until pressure at pilot port X lifts
+ * the ball off its seat. The pilot enters on `pilotSide`, towards the opposite work line.
+ */
+export function PocSymbol({ id, centre, pilotSide, pilotY = centre.y + INLINE_PILOT_DY }: { id: string; centre: Point; pilotSide: "left" | "right"; pilotY?: number }) {
+  const { x, y } = centre;
+  const s = pilotSide === "left" ? -1 : 1;
+  const ballY = y - 4;
+  return (
+    <g data-component={id} data-kind="poc" data-free-flow="2-1">
+      <rect x={x - POC_HALF_W} y={y - POC_HALF_H} width={POC_HALF_W * 2} height={POC_HALF_H * 2} {...outline} fill="white" />
+      <line x1={x} y1={y + POC_HALF_H} x2={x} y2={ballY + 13} {...outline} />
+      <polyline points={pts([{ x: x - 8, y: ballY + 1 }, { x, y: ballY + 13 }, { x: x + 8, y: ballY + 1 }])} {...outline} />
+      <circle cx={x} cy={ballY} r={6} {...outline} />
+      <line x1={x} y1={ballY - 6} x2={x} y2={y - POC_HALF_H} {...outline} />
+      {/* the pilot piston that lifts the ball */}
+      <polyline points={pts([{ x: x + s * POC_HALF_W, y: pilotY }, { x: x + s * 11, y: pilotY }, { x: x + s * 11, y: Math.min(pilotY, ballY + 4) }])} {...pilot} />
+      <PortLabel x={x - s * 7} y={y - POC_HALF_H - 6} anchor={s > 0 ? "end" : "start"} port={`${id}.1`}>1</PortLabel>
+      <PortLabel x={x - s * 7} y={y + POC_HALF_H + 15} anchor={s > 0 ? "end" : "start"} port={`${id}.2`}>2</PortLabel>
+      <PortLabel x={x + s * (POC_HALF_W + 5)} y={pilotY - 5} anchor={s > 0 ? "start" : "end"} port={`${id}.X`}>X</PortLabel>
+    </g>
+  );
+}
+
+/**
+ * One-way flow control in a dash-dot enclosure: an adjustable throttle sets the flow from 2 (the
+ * valve) to 1 (the cylinder), with the small arrow of pressure compensation where it holds that
+ * flow whatever the load; its check in parallel lets the return flow from 1 to 2 pass freely.
+ */
+export function FlowControlSymbol({ id, centre, compensated = false }: { id: string; centre: Point; compensated?: boolean }) {
+  const { x, y } = centre;
+  const branch = x + 18;
+  const top = y - 22;
+  const bottom = y + 22;
+  const ballY = y + 2;
+  return (
+    <g data-component={id} data-kind="flow-control" data-controlled="2-1" data-free-flow="1-2">
+      <rect x={x - FC_HALF_W} y={y - FC_HALF_H} width={FC_HALF_W * 2} height={FC_HALF_H * 2} {...thin} strokeDasharray={DASH.enclosure} fill="white" />
+      <line x1={x} y1={y - FC_HALF_H} x2={x} y2={top} {...outline} />
+      <line x1={x} y1={y + FC_HALF_H} x2={x} y2={bottom} {...outline} />
+      <polyline points={pts([{ x: x - 12, y: top }, { x: branch, y: top }])} {...outline} />
+      <polyline points={pts([{ x: x - 12, y: bottom }, { x: branch, y: bottom }])} {...outline} />
+      {/* throttle: two arcs narrowing the line, with the setting arrow across */}
+      <line x1={x - 12} y1={top} x2={x - 12} y2={bottom} {...outline} />
+      <path d={`M${x - 18} ${y - 12} Q${x - 13} ${y} ${x - 18} ${y + 12}`} {...outline} />
+      <path d={`M${x - 6} ${y - 12} Q${x - 11} ${y} ${x - 6} ${y + 12}`} {...outline} />
+      <Arrow from={{ x: x - 24, y: y + 12 }} to={{ x: x, y: y - 12 }} />
+      {/* pressure compensation: the small arrow along the controlled flow */}
+      {compensated ? <Arrow from={{ x: x - 27, y: y + 9 }} to={{ x: x - 27, y: y - 9 }} /> : null}
+      {/* free-flow check: apex towards 1 (above), so flow from 1 down to 2 lifts the ball */}
+      <line x1={branch} y1={top} x2={branch} y2={ballY - 12} {...outline} />
+      <polyline points={pts([{ x: branch - 7, y: ballY - 1 }, { x: branch, y: ballY - 12 }, { x: branch + 7, y: ballY - 1 }])} {...outline} />
+      <circle cx={branch} cy={ballY + 4} r={5.5} {...outline} />
+      <line x1={branch} y1={ballY + 9.5} x2={branch} y2={bottom} {...outline} />
+      <circle cx={x} cy={top} r={2.2} fill="currentColor" />
+      <circle cx={x} cy={bottom} r={2.2} fill="currentColor" />
+      <PortLabel x={x + 7} y={y - FC_HALF_H - 6} anchor="start" port={`${id}.1`}>1</PortLabel>
+      <PortLabel x={x + 7} y={y + FC_HALF_H + 15} anchor="start" port={`${id}.2`}>2</PortLabel>
+    </g>
+  );
+}
+
+/**
+ * A 2/2 solenoid valve with spring return (ISO 1219-1 style), drawn in a local frame where the
+ * normal (spring-held) box carries the ports above and below its centre and the energised box
+ * sits on the solenoid's side. `ports` "vertical" draws that frame as it is (boxes side by
+ * side, solenoid left); "horizontal" turns it a quarter (boxes stacked, solenoid on top, ports
+ * left and right). A normally closed valve's normal box blocks both ports and its energised box
+ * joins them; a normally open one the other way round.
+ */
+export function SolenoidValve22({
+  id, kind, centre, ports, normally, portNames, flowFrom = portNames[0],
+}: {
+  id: string;
+  kind: string;
+  centre: Point;
+  ports: "vertical" | "horizontal";
+  normally: "open" | "closed";
+  /** names of the ports at the frame's top and bottom (left and right when horizontal) */
+  portNames: [string, string];
+  /** the port the oil comes from when the valve is open: the arrow points away from it */
+  flowFrom?: string;
+}) {
+  const b = VENT_BOX;
+  const map = ([u, v]: [number, number]): Point => (ports === "vertical" ? { x: centre.x + u, y: centre.y + v } : { x: centre.x + v, y: centre.y + u });
+  const poly = (corners: [number, number][], extra: object = outline) => <polygon points={pts(corners.map(map))} {...extra} />;
+  const box = (u0: number) => poly([[u0, -b / 2], [u0 + b, -b / 2], [u0 + b, b / 2], [u0, b / 2]], { ...outline, fill: "white" });
+  const into = flowFrom === portNames[0] ? 1 : -1;
+  const open = (u: number) => <Arrow from={map([u, (-into * b) / 2])} to={map([u, (into * b) / 2])} />;
+  const blocked = (u: number) => (
+    <>
+      {[[-b / 2, -b / 2 + 8], [b / 2, b / 2 - 8]].map(([from, to], i) => (
+        <g key={i}>
+          <line x1={map([u, from]).x} y1={map([u, from]).y} x2={map([u, to]).x} y2={map([u, to]).y} {...thin} />
+          <line x1={map([u - 5, to]).x} y1={map([u - 5, to]).y} x2={map([u + 5, to]).x} y2={map([u + 5, to]).y} {...outline} />
+        </g>
+      ))}
+    </>
+  );
+  const sol = { w: 16, h: 18 };
+  const solU = -1.5 * b - sol.w;
+  const [first, second] = portNames;
+  const normalPaths = normally === "open" ? `${first}-${second}` : "";
+  const energisedPaths = normally === "open" ? "" : `${first}-${second}`;
+  return (
+    <g data-component={id} data-kind={kind} data-normally={normally}>
+      <g data-position="energised" data-paths={energisedPaths} data-blocked={energisedPaths ? "" : `${first},${second}`}>
+        {box(-1.5 * b)}
+        {normally === "open" ? blocked(-b) : open(-b)}
+      </g>
+      <g data-position="normal" data-paths={normalPaths} data-blocked={normalPaths ? "" : `${first},${second}`}>
+        {box(-b / 2)}
+        {normally === "open" ? open(0) : blocked(0)}
+      </g>
+      <g data-actuator="solenoid">
+        {poly([[solU, -sol.h / 2], [solU + sol.w, -sol.h / 2], [solU + sol.w, sol.h / 2], [solU, sol.h / 2]])}
+        <line x1={map([solU, sol.h / 2]).x} y1={map([solU, sol.h / 2]).y} x2={map([solU + sol.w, -sol.h / 2]).x} y2={map([solU + sol.w, -sol.h / 2]).y} {...thin} />
+      </g>
+      <Spring a={map([b / 2, 0])} b={map([b / 2 + 18, 0])} turns={3} amplitude={4} />
+    </g>
+  );
+}
+
+/** Fixed orifice: two arcs pinching the line between a and b (horizontal). */
+function Orifice({ a, b }: { a: Point; b: Point }) {
+  const mx = (a.x + b.x) / 2;
+  return (
+    <>
+      <line x1={a.x} y1={a.y} x2={b.x} y2={b.y} {...outline} />
+      <path d={`M${mx - 5} ${a.y - 8} Q${mx} ${a.y} ${mx - 5} ${a.y + 8}`} {...outline} />
+      <path d={`M${mx + 5} ${a.y - 8} Q${mx} ${a.y} ${mx + 5} ${a.y + 8}`} {...outline} />
+    </>
+  );
+}
+
+/**
+ * Decompression valve: a normally closed 2/2 solenoid valve from the cap line (1, right) through
+ * a fixed orifice to tank (2, left), so the compressed oil bleeds off at a controlled rate.
+ */
+export function DecompressionSymbol({ id, centre }: { id: string; centre: Point }) {
+  const wall = { x: centre.x - VENT_BOX / 2, y: centre.y };
+  const end = { x: wall.x - DECOMPRESSION_STUB, y: centre.y };
+  return (
+    <g data-component={id} data-kind="decompression">
+      <Orifice a={end} b={wall} />
+      <SolenoidValve22 id={`${id}-valve`} kind="decompression-valve" centre={centre} ports="horizontal" normally="closed" portNames={["2", "1"]} flowFrom="1" />
+      <PortLabel x={centre.x + VENT_BOX / 2 + 4} y={centre.y - 5} anchor="start" port={`${id}.1`}>1</PortLabel>
+      <PortLabel x={end.x - 5} y={centre.y - 4} anchor="end" port={`${id}.2`}>2</PortLabel>
+    </g>
+  );
+}
+
+/**
+ * Unloading valve: a normally closed pressure valve on its side, inlet 1 from the large pump
+ * section (left), outlet 2 to tank (right); its spring below and the external pilot X from the
+ * system line above. It opens, unloading the large section, when the system pressure at X
+ * passes the spring setting.
+ */
+export function UnloadingSymbol({ id, centre }: { id: string; centre: Point }) {
+  const half = RELIEF_BOX / 2;
+  const { x, y } = centre;
+  return (
+    <g data-component={id} data-kind="unloading" data-pilot="external">
+      <rect x={x - half} y={y - half} width={RELIEF_BOX} height={RELIEF_BOX} {...outline} fill="white" />
+      <Arrow from={{ x: x - 13, y: y + 8 }} to={{ x: x + 13, y: y + 8 }} />
+      <Spring a={{ x, y: y + half }} b={{ x, y: y + half + 22 }} turns={3} amplitude={5} />
+      <Adjustable centre={{ x, y: y + half + 11 }} span={9} />
+      <line x1={x + half} y1={y} x2={x + half + UNLOADING_STUB} y2={y} {...outline} />
+      <PortLabel x={x - half - 4} y={y - 5} anchor="end" port={`${id}.1`}>1</PortLabel>
+      <PortLabel x={x + half + UNLOADING_STUB + 4} y={y - 5} anchor="start" port={`${id}.2`}>2</PortLabel>
+      <PortLabel x={x + 5} y={y - half - 5} anchor="start" port={`${id}.X`}>X</PortLabel>
+    </g>
+  );
+}
+
+/** Cooler: a diamond across the flow with arrows pointing out of it (heat leaving the oil). */
+export function CoolerSymbol({ id, centre }: { id: string; centre: Point }) {
+  const { x, y } = centre;
+  const d = DIAMOND;
+  return (
+    <g data-component={id} data-kind="cooler">
+      <polygon points={pts([{ x, y: y - d }, { x: x + d, y }, { x, y: y + d }, { x: x - d, y }])} {...outline} fill="white" />
+      <line x1={x - d + 3} y1={y} x2={x + d - 3} y2={y} {...thin} />
+      <ArrowHead from={{ x: x - 4, y }} to={{ x: x - d - 6, y }} length={7} half={3.5} />
+      <ArrowHead from={{ x: x + 4, y }} to={{ x: x + d + 6, y }} length={7} half={3.5} />
+    </g>
+  );
+}
+

@@ -1,7 +1,7 @@
 import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { useMemo } from "react";
-import { Form, Link } from "react-router";
+import { useEffect, useMemo, useRef } from "react";
+import { Form, Link, useBlocker } from "react-router";
 import { AttachmentUploader } from "~/components/attachment-uploader";
 import { SelectField, SubmitButton, TextAreaField, TextField } from "~/components/form-field";
 import { MoreQuestions } from "~/components/more-questions";
@@ -48,6 +48,7 @@ export function SpecStepForm({ specId, step, system, answers, stepAnswers, attac
     shouldRevalidate: "onInput",
   });
   const current = { ...others, ...(form.value as FormValues | undefined) } as FormValues;
+  const leave = useUnsavedGuard(form.dirty);
   const deciding = { orientation: current.orientation ?? others.orientation, pressStrokeMm: current.pressStrokeMm };
   const questions = step === "quotation" ? undefined : AXIS_QUESTIONS[step];
   const asked = (keys: RequirementKey[] | undefined) => (keys ?? []).filter((k) => fieldApplies(k, deciding));
@@ -64,7 +65,16 @@ export function SpecStepForm({ specId, step, system, answers, stepAnswers, attac
   return (
     <div className={step === "motion" ? "grid gap-6 lg:grid-cols-[1fr_26rem]" : "max-w-2xl"}>
       <div>
-        <Form method="post" {...getFormProps(form)} className="space-y-5">
+        <Form
+          method="post"
+          {...getFormProps(form)}
+          onSubmit={(event) => {
+            getFormProps(form).onSubmit(event);
+            // Saving is not leaving: the guard lets this form's own submission through.
+            leave.saving.current = !event.defaultPrevented;
+          }}
+          className="space-y-5"
+        >
           <Card className="space-y-5">
             {step === "machine" ? (
               <>
@@ -101,6 +111,20 @@ export function SpecStepForm({ specId, step, system, answers, stepAnswers, attac
             <AttachmentUploader specId={specId} attachments={attachments} limits={attachmentLimits} />
           </Card>
         ) : null}
+        {leave.blocker.state === "blocked" ? (
+          <div role="alertdialog" aria-labelledby="unsaved-title" className="mt-5 rounded-lg bg-signal-50 p-4 ring-1 ring-signal-500/40">
+            <p id="unsaved-title" className="font-semibold text-ink-900">Leave this step without saving?</p>
+            <p className="mt-1 text-sm text-ink-700">What you changed here is not saved yet. Save and continue keeps it; leaving now loses it.</p>
+            <div className="mt-3 flex flex-wrap gap-2">
+              <Button type="button" tone="secondary" onClick={() => leave.blocker.reset?.()}>
+                Stay on this step
+              </Button>
+              <Button type="button" tone="danger" onClick={() => leave.blocker.proceed?.()}>
+                Leave without saving
+              </Button>
+            </div>
+          </div>
+        ) : null}
         <div className="mt-5 flex justify-between">
           {previousStep(step) ? (
             <Button type="submit" form={form.id} name="intent" value="back" tone="secondary" formNoValidate>
@@ -117,6 +141,26 @@ export function SpecStepForm({ specId, step, system, answers, stepAnswers, attac
       {step === "motion" ? <SpecLivePreview values={current} system={system} /> : null}
     </div>
   );
+}
+
+/**
+ * Asks before a half-filled step is left: a link inside the app is held with a question
+ * (useBlocker), closing or reloading the tab gets the browser's own warning (beforeunload).
+ */
+function useUnsavedGuard(dirty: boolean | undefined) {
+  const saving = useRef(false);
+  const blocker = useBlocker(({ currentLocation, nextLocation }) => Boolean(dirty) && !saving.current && currentLocation.pathname !== nextLocation.pathname);
+  useEffect(() => {
+    if (!dirty) return;
+    const warn = (event: BeforeUnloadEvent) => {
+      if (saving.current) return;
+      event.preventDefault();
+      event.returnValue = "";
+    };
+    window.addEventListener("beforeunload", warn);
+    return () => window.removeEventListener("beforeunload", warn);
+  }, [dirty]);
+  return { blocker, saving };
 }
 
 /** A fresh step shows the field's sensible default, in the person's units. */

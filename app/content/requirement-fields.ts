@@ -69,7 +69,9 @@ export const REQUIREMENT_FIELDS: Record<RequirementKey, RequirementField> = {
     key: "rodDirection",
     kind: "choice",
     label: "Rod moves when extending",
-    help: "When the rod comes out of the cylinder, does the load go up or down?",
+    help: "When the rod comes out of the cylinder, does the load go up or down? Either way the load is held by a valve when it would run ahead of the rod.",
+    // A lift is the commoner vertical axis; pre-selected so the question reads as answered, and shown so it can be changed.
+    defaultValue: "up",
     options: [
       { value: "up", label: "Up", hint: "Lifting: the load comes down again when the rod retracts" },
       { value: "down", label: "Down", hint: "Pressing: the load would run ahead of the rod if nothing held it" },

@@ -59,7 +59,17 @@ describe("spec intake", () => {
     await page.getByRole("button", { name: "Save and continue →" }).click();
     await expect.poll(() => page.getByText("Give the spec a short title").count()).toBe(1);
     await page.getByLabel("Title").fill("Scissor lift, main cylinder");
+    // Leaving a half-filled step asks first; staying keeps what was typed.
+    await page.getByRole("link", { name: "← My specs" }).click();
+    await expect.poll(() => page.getByRole("alertdialog").count()).toBe(1);
+    expect(await page.getByRole("alertdialog").innerText()).toContain("Leave this step without saving?");
+    await page.getByRole("button", { name: "Stay on this step" }).click();
+    expect(page.url()).toContain("/edit/machine");
+    expect(await page.getByLabel("Title").inputValue()).toBe("Scissor lift, main cylinder");
     await page.getByLabel("Vertical").check();
+    // Which way the rod moves is answered already ("Up"), as quick sizing does; it can be changed.
+    expect(await page.getByRole("radio", { name: /^Up/ }).isChecked()).toBe(true);
+    await page.getByRole("radio", { name: /^Down/ }).check();
     await page.getByRole("radio", { name: /^Up/ }).check();
     // The body's mounting is a refinement behind a disclosure; a trunnion-mounted lift.
     await page.getByText("More about the mounting").click();

@@ -386,3 +386,39 @@ describe("CircuitDiagram: every component the design calls for", () => {
     expect(desc(html)).toContain("regeneration valve between the work lines");
   });
 });
+
+describe("CircuitDiagram: readable at the page's and the report's size", () => {
+  /**
+   * The captions' boxes, estimated from their text: about 0.6 em a character (Open Sans,
+   * bold a little wider) and 14 units a line, as the Caption component sets them.
+   */
+  function captionBoxes(html: string) {
+    const svg = html.match(/viewBox="0 0 (\d+) (\d+)"/)!;
+    const boxes = attrs(html, /<text x="([\d.]+)" y="([\d.]+)" text-anchor="(start|middle|end)" font-size="11.5"[^>]*>(.*?)<\/text>/g).map((m) => {
+      const [x, y, anchor, inner] = [Number(m[1]), Number(m[2]), m[3], m[4]];
+      const lines = [...inner.matchAll(/<tspan[^>]*>(.*?)<\/tspan>/g)].map((t, i) => t[1].length * 11.5 * (i === 0 ? 0.6 : 0.54));
+      const w = Math.max(...lines);
+      const left = anchor === "start" ? x : anchor === "end" ? x - w : x - w / 2;
+      return { name: inner.match(/<tspan[^>]*>(.*?)<\/tspan>/)![1], left, right: left + w, top: y - 11, bottom: y + 14 * (lines.length - 1) + 3 };
+    });
+    return { boxes, width: Number(svg[1]), height: Number(svg[2]) };
+  }
+
+  it.each(Object.entries(ALL))("%s: no caption overlaps another, and all stay on the sheet", (_name, design) => {
+    for (const units of ["metric", "us"] as const) {
+      const { boxes, width, height } = captionBoxes(render(design, units));
+      expect(boxes.length).toBeGreaterThan(8);
+      for (const b of boxes) {
+        expect(b.left, `${b.name} (${units})`).toBeGreaterThanOrEqual(0);
+        expect(b.right, `${b.name} (${units})`).toBeLessThanOrEqual(width);
+        expect(b.bottom, `${b.name} (${units})`).toBeLessThanOrEqual(height);
+      }
+      for (const [i, a] of boxes.entries()) {
+        for (const b of boxes.slice(i + 1)) {
+          const overlap = a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
+          expect(overlap, `${a.name} / ${b.name} (${units})`).toBe(false);
+        }
+      }
+    }
+  });
+});

@@ -32,11 +32,11 @@ export function pumpParts(d: Design): CircuitPart {
         },
         {
           id: "pump-large", kind: "pump", ports: ["inlet", "outlet", "shaft"], label: "Double pump, large section",
-          values: { type: "double", section: "large", displacementCcRev: large, flowLpm: flowOf(d, large) },
+          values: { type: "double", section: "large", displacementCcRev: large, flowLpm: flowOf(d, large), unloadingBar: p.unloadingBar },
         },
         {
           id: "unloading", kind: "unloading", ports: ["1", "2", "X"], label: "Unloading valve, externally piloted from the system line",
-          values: { settingBar: p.unloadingBar },
+          values: { settingBar: p.unloadingBar, ...(p.unloadedDropBar !== undefined ? { unloadedDropBar: p.unloadedDropBar } : {}) },
         },
         { id: "pump-check", kind: "check", ports: ["inlet", "outlet"], label: "Check valve, large pump section to system" },
       ],

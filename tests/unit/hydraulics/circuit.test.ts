@@ -158,7 +158,7 @@ describe("double (high-low) pump: unloading valve and check (high-low circuit, c
 
   it("has two sections on one shaft, the large first in the design, each with its displacement", () => {
     const [large, small] = d.pump.displacementsCcRev;
-    expect(component(d, "pump-large")!.values).toMatchObject({ section: "large", displacementCcRev: large });
+    expect(component(d, "pump-large")!.values).toMatchObject({ section: "large", displacementCcRev: large, unloadingBar: d.pump.unloadingBar });
     expect(component(d, "pump")!.values).toMatchObject({ section: "small", displacementCcRev: small });
     expect(d.circuit.connections).toContainEqual({ from: "motor.shaft", to: "pump.shaft", line: "shaft" });
     expect(d.circuit.connections).toContainEqual({ from: "pump.shaft", to: "pump-large.shaft", line: "shaft" });

@@ -1,12 +1,13 @@
 import type { Design } from "~/hydraulics";
 import type { UnitSystem } from "~/units";
 import { CircuitDiagram } from "./circuit-diagram";
+import { CycleChart } from "./cycle-chart";
 import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "./design-panels";
 import { Card } from "./ui";
 
 /**
- * A design as every page shows it: the circuit, its key sizes, warnings, the cautions, the
- * components and the calculation trail.
+ * A design as every page shows it: the circuit, its key sizes, the phases of one cycle (where
+ * the stored design lists them), warnings, the cautions, the components and the calculation trail.
  */
 export function DesignReport({
   design,
@@ -33,6 +34,7 @@ export function DesignReport({
         <CircuitDiagram design={design} units={units} />
       </Card>
       <KeySizes design={design} units={units} />
+      <CycleChart cycle={design.cycle} units={units} />
       <WarningsList warnings={design.warnings} />
       {cautions ? <CautionsPanel /> : null}
       <Card>

@@ -26,6 +26,7 @@ const TITLES: Partial<Record<WarningCode, string>> = {
   CUSHION_PRESSURE_HIGH: "Stroke-end cushion above the cylinder's rating",
   DECOMPRESSION_NEEDED: "Oil must be decompressed before the return stroke",
   PUMP_TYPE_NOT_SUITED: "The pump you asked for does not suit this axis",
+  REGENERATIVE_APPROACH: "The approach runs regeneratively",
   PRESS_CONTROL_DROP_LOW: "Pressing-speed control has little pressure to work with",
 };
 

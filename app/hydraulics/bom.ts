@@ -146,6 +146,7 @@ export function buildBom(d: Design, gaugeRangeBar: number): BomLine[] {
       rating: { value: fillL, unit: "L", label: "volume" },
     },
   );
+  bom.push(...regenerationLines(d, relief));
   if (d.pump.type === "double" && d.pump.unloadingBar !== undefined) {
     const [large] = d.pump.displacementsCcRev;
     const largeLpm = (large * d.pump.speedRpm * d.pump.volumetricEfficiency) / 1000;
@@ -187,6 +188,34 @@ function pressSpeedLines(d: Design, relief: number): BomLine[] {
       rating: { value: d.requirements.pressStrokeMm, unit: "mm", label: "pressing stroke" },
     },
   ];
+}
+
+/**
+ * A regenerative approach: the valve that leads the rod end's outflow into the cap line and,
+ * before a pressing force, the pressure switch that ends it. A 3/2 function, since the rod end
+ * must also be shut off from valve port B (and so from tank) while it regenerates.
+ */
+function regenerationLines(d: Design, relief: number): BomLine[] {
+  const rg = d.regeneration;
+  if (!rg) return [];
+  const dv = d.directionalValve;
+  const ratedLpm = Math.max(rg.rodOutflowLpm, d.flowsLpm.pump);
+  const when = rg.switchBar !== null
+    ? "energised with solenoid a for the approach and de-energised by the pressure switch, so the pressing force is built on the full area"
+    : "energised with solenoid a for the whole extension";
+  const lines: BomLine[] = [{
+    key: "regeneration-valve", item: "Regeneration valve, 3/2 solenoid, in the rod line at the valve stack", quantity: 1,
+    specification: `de-energised joins the rod end to valve port B (normal work); energised joins it to the cap line with port B closed, so the rod end's ${num(rg.rodOutflowLpm)} L/min joins the pump flow and ${num(rg.capInflowLpm)} L/min enter the cap end; ${when}; ISO 4401-${dv.iso4401Size} interface as the directional valve (sandwich plate or own subplate), at least ${num(ratedLpm)} L/min and ${relief} bar, ${dv.coilVoltage} coil`,
+    rating: { value: ratedLpm, unit: "L/min", label: "rated flow" },
+  }];
+  if (rg.switchBar !== null) {
+    lines.push({
+      key: "regeneration-pressure-switch", item: "Pressure switch on the cap line (ends the regenerative approach)", quantity: 1,
+      specification: `trips at ${num(rg.switchBar)} bar rising, adjustable range covering it, rated for at least ${relief} bar; its contact de-energises the regeneration valve when the tool meets the work, and the control latches it until the return stroke (the pressure drops once the full area takes the force); ${dv.coilVoltage} control input`,
+      rating: { value: rg.switchBar, unit: "bar", label: "setting" },
+    });
+  }
+  return lines;
 }
 
 /** The pump line names the kind of pump and every setting a shop must quote it with. */

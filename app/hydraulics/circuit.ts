@@ -62,5 +62,19 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
   }
   // the double pump's large section, check and unloading valve after the rest, as the vent valve
   connections.push(...pump.connections);
+  // Regeneration valve at the valve stack [CP]: port 1 from the rod work line, 2 to the cap work
+  // line, normally closed, energised during the approach so the rod end's outflow joins the cap inflow.
+  const rg = d.regeneration;
+  if (rg) {
+    components.push({
+      id: "regen", kind: "regen", ports: ["1", "2"], label: "Regeneration valve, solenoid, normally closed",
+      values: {
+        normally: "closed", energised: rg.switchBar !== null ? "during the approach, until the pressure switch trips" : "with solenoid a, for the whole extension",
+        capInflowLpm: rg.capInflowLpm, rodOutflowLpm: rg.rodOutflowLpm, ...(rg.switchBar !== null ? { switchBar: rg.switchBar } : {}),
+        coilVoltage: d.directionalValve.coilVoltage,
+      },
+    });
+    connections.push({ from: "dcv.B", to: "regen.1", line: "work" }, { from: "regen.2", to: "dcv.A", line: "work" });
+  }
   return { components, connections, dcvPositions: positions };
 }

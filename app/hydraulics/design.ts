@@ -93,6 +93,27 @@ export interface HoseLine extends LineSizing {
   velocityMS: number;
 }
 
+/**
+ * A regenerative approach (textbook regenerative circuit): a solenoid valve at the valve stack
+ * leads the rod end's outflow into the cap line, so the rod area alone is effective.
+ */
+export interface RegenerationDesign {
+  rodAreaMm2: number;
+  /** approach speed on the pump flow, v = Q_p / A_rod */
+  speedMmS: number;
+  /** force the rod area gives at the working pressure, F = η·p·A_rod/10 */
+  forceAtWorkingN: number;
+  /** flow into the cap end (Q_p·A1/A_rod) and out of the rod end (Q_p·A3/A_rod) during the approach */
+  capInflowLpm: number;
+  rodOutflowLpm: number;
+  /** v_regen / v_retract = A3 / A_rod */
+  speedRatioToRetract: number;
+  /** pressure switch that ends the approach before a pressing force; null where the whole extension regenerates */
+  switchBar: number | null;
+  /** why regeneration pays here, in words */
+  reason: string;
+}
+
 export interface CircuitComponent {
   id: string;
   kind:
@@ -207,6 +228,8 @@ export interface Design {
   };
   /** true where the extension (its approach, with a pressing stroke) runs regeneratively: rod end joined to the cap end */
   regenerative: boolean;
+  /** the regenerative approach where regenerative is true, else null (absent in designs of engines before 2.10) */
+  regeneration?: RegenerationDesign | null;
   /**
    * With a pressing stroke and a pump that delivers more than the pressing flow (fixed or
    * compensated, or a double pump whose small section is more than the speed tolerance too fast):

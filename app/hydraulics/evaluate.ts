@@ -9,8 +9,14 @@ import { DEFAULT_FLUID, lineLossBar, sizeLine, type Fluid, type LineSizing } fro
 import {
   accelerationForceN, axisLoads, extendForces, pressForceN, retractForces, type AxisLoads, type StrokeForces,
 } from "./loads";
+import { holdingSide } from "./holding";
 import { phaseFlowLpm } from "./phases";
+import { choosePump, type PhaseDemand } from "./pump-choice";
 import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
+import {
+  capInflowLpm, regenerationRuledOut, regenerationVerdict, regenSwitchFits, regenSwitchSettingBar, regenToRetractSpeedRatio, rodAreaMm2,
+  rodOutflowLpm,
+} from "./regeneration";
 import type { Requirements } from "./requirements";
 import {
   brakingLoadPressureBar, cbvSettingBar, choosePilotRatio, cylinderInletBar, hydraulicForceN, pilotOpeningBar, reliefSettingBar,
@@ -26,6 +32,8 @@ export interface SizingContext {
   cbvSide: CbvSide | null;
   pilot: PilotRatioChoice | null;
   inertiaRatio: number;
+  /** why no cylinder of this axis may extend regeneratively; null where each candidate is judged */
+  regenRuledOut: string | null;
   /** hydraulic force each stroke needs at least, F/η with no losses (skips hopeless candidates) */
   minExtendHydraulicN: number;
   minRetractHydraulicN: number;
@@ -57,6 +65,7 @@ export function sizingContext(req: Requirements): SizingContext {
     req, loads, speedRpm: motorSpeedRpm(req.supplyHz), fluid: DEFAULT_FLUID,
     buckling: bucklingColumn(req.mounting, req.mountingStyle, req.strokeMm),
     cbvSide, pilot, inertiaRatio,
+    regenRuledOut: regenerationRuledOut(loads.overrunningStroke, holdingSide(req, loads), req.pumpType),
     minExtendHydraulicN: extendNeed / eta,
     minRetractHydraulicN: retractNeed / eta,
   };
@@ -77,8 +86,25 @@ export interface CbvEvaluation {
   flowLpm: number;
 }
 
+/** A regenerative approach on this candidate (rod end joined to the cap end). */
+export interface RegenEvaluation {
+  rodAreaMm2: number;
+  /** flow into the cap end and out of the rod end during the approach, Q_p·A1/A_rod and Q_p·A3/A_rod */
+  capInflowLpm: number;
+  rodOutflowLpm: number;
+  /** v_regen / v_retract = A3 / A_rod */
+  speedRatioToRetract: number;
+  /** pressure switch that ends the approach before a pressing force; null without one */
+  switchBar: number | null;
+  switchFits: boolean;
+}
+
 export interface Evaluation {
   cyl: CylinderCandidate;
+  /** the approach (the whole extension without a pressing stroke) runs regeneratively; null at full area */
+  regen: RegenEvaluation | null;
+  /** why regeneration is or is not used, set by the search (evaluateWithRegenerationChoice) */
+  regenReason: string;
   /** dash sizes the pressure, work and return hoses are above the velocity-limit size */
   hoseUpsize: number;
   /** highest pump working pressure this pair may need (buyer's limit and its rating) */
@@ -133,24 +159,33 @@ function setLoweringDrop(cbv: CbvEvaluation, steadyInletBar: number, backBar: nu
  * Evaluates one pair with the actual line losses: each line at the flow it carries in that
  * stroke, in the hose sized for its largest flow. The search and the design use the same numbers.
  */
-export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize = 0): Evaluation {
+export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize = 0, regenerative = false): Evaluation {
   const { req, loads, fluid } = ctx;
   const eta = A.cylinderEfficiency.value;
   const etaV = A.volumetricEfficiency.value;
   const a1 = cyl.capAreaMm2;
   const a3 = cyl.annulusAreaMm2;
   const phi = cyl.areaRatio;
+  const aRod = rodAreaMm2(cyl);
+  const hasPressPhase = req.pressStrokeMm > 0 && req.pressSpeedMmS !== undefined;
+  const flowPressLpm = hasPressPhase ? phaseFlowLpm(a1, req.pressSpeedMmS!) : null;
 
-  // Flows for the requested speeds, Q = A·v; a fixed pump must deliver the larger.
+  // Flows for the requested speeds, Q = A·v (cylinder flows); a fixed pump must deliver the
+  // larger. Regenerating, the pump fills only the rod's displacement during the approach
+  // (A_rod·v), while the pressing stroke at full area still takes A1·v_press from it.
   const flowExtendLpm = phaseFlowLpm(a1, req.extendSpeedMmS);
   const flowRetractLpm = phaseFlowLpm(a3, req.retractSpeedMmS);
-  const pumpRequiredLpm = Math.max(flowExtendLpm, flowRetractLpm);
+  const pumpRequiredLpm = regenerative
+    ? Math.max(phaseFlowLpm(aRod, req.extendSpeedMmS), flowRetractLpm, flowPressLpm ?? 0)
+    : Math.max(flowExtendLpm, flowRetractLpm);
   const needCc = requiredDisplacementCc(pumpRequiredLpm, ctx.speedRpm, etaV);
   const { displacementCc, inSeries } = selectDisplacementCc(needCc);
   const qp = pumpDeliveryLpm(displacementCc, ctx.speedRpm, etaV);
 
-  // Both strokes get the whole pump flow, so the actual speeds follow from it.
-  const extendActualMmS = (qp * 1000) / (a1 * 0.06);
+  // Both strokes get the whole pump flow, so the actual speeds follow from it (regenerating, on the rod area).
+  const extendActualMmS = (qp * 1000) / ((regenerative ? aRod : a1) * 0.06);
+  const capInLpm = regenerative ? capInflowLpm(qp, a1, aRod) : 0;
+  const rodOutLpm = regenerative ? rodOutflowLpm(qp, a3, aRod) : 0;
   const retractActualMmS = (qp * 1000) / (a3 * 0.06);
   const accelExtendN = accelerationForceN(req.massKg, extendActualMmS, req.accelTimeS);
   const accelRetractN = accelerationForceN(req.massKg, retractActualMmS, req.accelTimeS);
@@ -158,22 +193,31 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const retract = retractForces(loads, accelRetractN);
   const pressN = pressForceN(loads);
 
-  // Lines, each sized for the largest flow it carries (retracting returns φ·Q_p from the cap).
+  // Lines, each sized for the largest flow it carries (retracting returns φ·Q_p from the cap; a
+  // regenerative approach puts Q_p·A1/A_rod into the cap line and Q_p·A3/A_rod out of the rod line,
+  // joined at the valve stack).
   const vp = A.pressureVelocityLimit.value;
   const lines = {
     pressure: sizeLine(qp, vp, A.pressureLineLengthM.value, fluid, hoseUpsize),
-    capWork: sizeLine(qp * phi, vp, A.workLineLengthM.value, fluid, hoseUpsize),
-    rodWork: sizeLine(qp, vp, A.workLineLengthM.value, fluid, hoseUpsize),
+    capWork: sizeLine(Math.max(qp * phi, capInLpm), vp, A.workLineLengthM.value, fluid, hoseUpsize),
+    rodWork: sizeLine(Math.max(qp, rodOutLpm), vp, A.workLineLengthM.value, fluid, hoseUpsize),
     return: sizeLine(qp * phi, A.returnVelocityLimit.value, A.returnLineLengthM.value, fluid, hoseUpsize),
   };
   const dcv = A.dcvPathDropBar.value;
   const filter = A.returnFilterDropBar.value;
   const check = A.cbvCheckDropBar.value;
   const pressureLine = lineLossBar(lines.pressure, qp, fluid);
-  const extendSupplyLossBar =
-    pressureLine + dcv + lineLossBar(lines.capWork, qp, fluid) + (ctx.cbvSide === "cap" ? check : 0);
-  const extendBackBar =
-    lineLossBar(lines.rodWork, qp / phi, fluid) + dcv + lineLossBar(lines.return, qp / phi, fluid) + filter;
+  const capCheck = ctx.cbvSide === "cap" ? check : 0;
+  // Regenerating, the supply loss runs from the pump to the cap (the cap line at the cap inflow),
+  // and the "back-pressure" is how far the rod side stands above the cap side: the rod line and
+  // the regeneration valve at the rod outflow, then the cap line to the cap end.
+  const capInLossBar = regenerative ? lineLossBar(lines.capWork, capInLpm, fluid) + capCheck : 0;
+  const extendSupplyLossBar = regenerative
+    ? pressureLine + dcv + capInLossBar
+    : pressureLine + dcv + lineLossBar(lines.capWork, qp, fluid) + capCheck;
+  const extendBackBar = regenerative
+    ? lineLossBar(lines.rodWork, rodOutLpm, fluid) + dcv + capInLossBar
+    : lineLossBar(lines.rodWork, qp / phi, fluid) + dcv + lineLossBar(lines.return, qp / phi, fluid) + filter;
   const retractSupplyLossBar =
     pressureLine + dcv + lineLossBar(lines.rodWork, qp, fluid) + (ctx.cbvSide === "rod" ? check : 0);
   const retractBackBar =
@@ -196,20 +240,21 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
       loweringDropBar: 0,
       // The larger of the two flows it carries: lowering through 1→2 (Q_p/φ from the rod end,
       // φ·Q_p from the cap end) and lifting through its check 2→1 (the full pump flow).
-      flowLpm: ctx.cbvSide === "rod" ? Math.max(qp, qp / phi) : Math.max(qp, qp * phi),
+      // A regenerative approach lifts through the cap-side check with the cap inflow.
+      flowLpm: ctx.cbvSide === "rod" ? Math.max(qp, qp / phi) : Math.max(qp, qp * phi, capInLpm),
     };
   }
   const rodCbv = cbv && cbv.side === "rod" ? { settingBar: cbv.settingBar, ratio: cbv.ratio } : undefined;
   const capCbv = cbv && cbv.side === "cap" ? { settingBar: cbv.settingBar, ratio: cbv.ratio } : undefined;
 
-  const extendInletBar = cylinderInletBar(hydraulicForceN(extend.movingN, eta), a1, a3, extendBackBar, rodCbv);
+  // Regenerating: p_cap·A1 − (p_cap + Δp)·A3 = 10·F_h, so p_cap = (10·F_h + Δp·A3) / A_rod.
+  const extendInArea = regenerative ? aRod : a1;
+  const extendInletBar = cylinderInletBar(hydraulicForceN(extend.movingN, eta), extendInArea, a3, extendBackBar, rodCbv);
   const retractInletBar = cylinderInletBar(hydraulicForceN(retract.movingN, eta), a3, a1, retractBackBar, capCbv);
   const extendMovingBar = extendInletBar + extendSupplyLossBar;
   // Without a pressing stroke the force is reached at (near) standstill: no flow, no line or valve losses.
   // With a pressing stroke the cylinder moves at pressing speed against the process force, so
   // the lines and valves pass the pressing flow and their losses count (small at low flow).
-  const hasPressPhase = req.pressStrokeMm > 0 && req.pressSpeedMmS !== undefined;
-  const flowPressLpm = hasPressPhase ? phaseFlowLpm(a1, req.pressSpeedMmS!) : null;
   // The valve and filter allowances hold at the pump flow; through the same orifices the drop
   // goes with the square of the flow (orifice equation, Δp ∝ Q²) [D].
   const orificeScale = flowPressLpm === null ? 0 : (flowPressLpm / qp) ** 2;
@@ -221,7 +266,7 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const extendBar = Math.max(extendMovingBar, extendPressBar);
   const retractBar = retractInletBar + retractSupplyLossBar;
   // Constant-speed pressures feed the heat balance.
-  const extendSteadyInlet = cylinderInletBar(hydraulicForceN(extend.steadyN, eta), a1, a3, extendBackBar, rodCbv);
+  const extendSteadyInlet = cylinderInletBar(hydraulicForceN(extend.steadyN, eta), extendInArea, a3, extendBackBar, rodCbv);
   const retractSteadyInlet = cylinderInletBar(hydraulicForceN(retract.steadyN, eta), a3, a1, retractBackBar, capCbv);
   const extendSteadyBar = extendSteadyInlet + extendSupplyLossBar;
   const retractSteadyBar = retractSteadyInlet + retractSupplyLossBar;
@@ -229,7 +274,17 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const limitBar = workingLimitBar(req.maxPressureBar, cyl.ratedPressureBar, A.reliefMargin.value);
   const workingBar = Math.max(extendBar, retractBar);
   const reliefBar = reliefSettingBar(workingBar);
-  const rodSidePeakBar = Math.max(retractInletBar, cbv?.side === "rod" ? cbv.settingBar : extendBackBar);
+  // Regenerating, the rod side stands Δp above the cap side; otherwise it carries the back-pressure.
+  const rodSidePeakBar = Math.max(retractInletBar, cbv?.side === "rod" ? cbv.settingBar : regenerative ? extendInletBar + extendBackBar : extendBackBar);
+  // A pressing force after a regenerative approach: a pressure switch ends the approach once the
+  // pressure rises above it, and the force is built on the full cap area.
+  const switchBar = regenerative && req.processForceN > 0 ? regenSwitchSettingBar(extendMovingBar) : null;
+  const regen: RegenEvaluation | null = regenerative
+    ? {
+        rodAreaMm2: aRod, capInflowLpm: capInLpm, rodOutflowLpm: rodOutLpm, speedRatioToRetract: regenToRetractSpeedRatio(a3, aRod),
+        switchBar, switchFits: switchBar === null || regenSwitchFits(switchBar, extendPressBar),
+      }
+    : null;
 
   // The rod can be driven to the relief pressure against a stop: check that too.
   const stallN = (reliefBar * a1) / 10;
@@ -237,7 +292,7 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const buckling = checkBuckling(cyl.rodMm, ctx.buckling.lengthMm, ctx.buckling.k, compressiveN);
 
   return {
-    cyl, hoseUpsize, workingLimitBar: limitBar, flowExtendLpm, flowRetractLpm, flowPressLpm, pumpRequiredLpm, requiredDisplacementCc: needCc, displacementCc,
+    cyl, regen, regenReason: "", hoseUpsize, workingLimitBar: limitBar, flowExtendLpm, flowRetractLpm, flowPressLpm, pumpRequiredLpm, requiredDisplacementCc: needCc, displacementCc,
     pumpInSeries: inSeries, pumpFlowLpm: qp, extendActualMmS, retractActualMmS, accelExtendN, accelRetractN,
     extend, retract, pressN, lines, extendSupplyLossBar, extendBackBar, retractSupplyLossBar, retractBackBar,
     cbv, extendInletBar, extendMovingBar, extendPressBar, extendBar, retractInletBar, retractBar,
@@ -246,4 +301,47 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
     cbvOk: !cbv || cbv.settingBar <= cyl.ratedPressureBar + 1e-9,
     bucklingOk: buckling.safetyFactor >= A.bucklingSafetyFactor.value,
   };
+}
+
+/**
+ * Largest flow through a path of the valve stack: P→A/B and A/B→T at Q_p, φ·Q_p and Q_p/φ and, with
+ * a regeneration valve on the same ISO 4401 interface, the cap inflow and rod outflow.
+ */
+export function valveStackFlowLpm(ev: Evaluation): number {
+  const qp = ev.pumpFlowLpm;
+  const phi = ev.cyl.areaRatio;
+  return Math.max(qp, qp * phi, qp / phi, ev.regen?.capInflowLpm ?? 0, ev.regen?.rodOutflowLpm ?? 0);
+}
+
+/** What the pump must do in each phase of this candidate, for the pump choice. */
+export function phaseDemandOf(ev: Evaluation, speedRpm: number): PhaseDemand {
+  return {
+    approachBar: ev.extendMovingBar, retractBar: ev.retractBar,
+    press: ev.flowPressLpm !== null ? { bar: ev.extendPressBar, flowLpm: ev.flowPressLpm } : null,
+    reliefBar: ev.reliefBar, workingBar: ev.workingBar, displacementCc: ev.displacementCc, pumpFlowLpm: ev.pumpFlowLpm, speedRpm,
+  };
+}
+
+/**
+ * One candidate at full area and, where the axis allows it, with a regenerative approach; the
+ * regenerative one is kept where it pays (regenerationVerdict), and the reason rides along.
+ */
+export function evaluateWithRegenerationChoice(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize = 0): Evaluation {
+  const normal = evaluateCandidate(ctx, cyl, hoseUpsize);
+  const regen = ctx.regenRuledOut === null ? evaluateCandidate(ctx, cyl, hoseUpsize, true) : null;
+  const verdict = regenerationVerdict({
+    ruledOut: ctx.regenRuledOut,
+    normal: { displacementCc: normal.displacementCc, pumpType: choosePump(phaseDemandOf(normal, ctx.speedRpm), ctx.req.pumpType).type },
+    regen: regen && {
+      displacementCc: regen.displacementCc, speedRatioToRetract: regen.regen!.speedRatioToRetract,
+      approachBar: regen.extendMovingBar, limitBar: regen.workingLimitBar,
+      // It must meet every limit the full-area design meets: a higher approach pressure raises the
+      // relief, and with it the stall thrust the rod must carry without buckling.
+      passes: regen.pressureOk && regen.cbvOk && (regen.bucklingOk || !normal.bucklingOk),
+      switchOver: regen.regen!.switchBar !== null ? { switchBar: regen.regen!.switchBar, pressBar: regen.extendPressBar } : null,
+    },
+  });
+  const chosen = verdict.use && regen ? regen : normal;
+  chosen.regenReason = verdict.reason;
+  return chosen;
 }

@@ -35,6 +35,43 @@ const NEUTRAL_STANDBY =
   "P = p_c·Q_leak / 600, Q_leak ≈ (1 − η_v)·Q_max: P is blocked, so the compensated pump holds its setting and delivers only its leakage (standby); the destroked pump's friction is not counted";
 const STANDBY_SOURCE = "compensated-pump standby, trade magazine on pressure-compensated pumps [S]; leakage estimate from memory [M]; P = p·Q/600 [D]";
 
+const REGEN_SOURCE = "textbook regenerative-circuit relations: the same pressure on both sides of the piston leaves the rod area effective [S]; continuity [D]";
+const REGEN_CHOICE_SOURCE =
+  "regeneration for a fast, low-force approach with the force then built on the full area, and its switch-over by a pressure switch: trade-press and training texts on regenerative circuits [S]; when it pays, common practice [CP]";
+
+/** Whether the extension regenerates and why; where it does, its speed, force, internal flows and switch-over. */
+function regenerationTrail(t: Trail, d: Design, reason: string, vQp: { value: number | string; unit: string }): void {
+  const c = d.cylinder;
+  const rg = d.regeneration ?? null;
+  const r = d.requirements;
+  t.add("regenerative extension", rg ? "yes" : "no", "-", `${rg ? "regenerative approach" : "full-area extension"}: ${reason}`,
+    {
+      A_rod: v(c.capAreaMm2 - c.annulusAreaMm2, "mm²"), A3: v(c.annulusAreaMm2, "mm²"), pumpType: v(r.pumpType ?? "not given", "-"),
+      overrunningStroke: v(d.loads.overrunningStroke ?? "none", "-"), holding: v(d.holding?.side ?? "none", "-"),
+    },
+    REGEN_CHOICE_SOURCE);
+  if (!rg) return;
+  const vRod = v(rg.rodAreaMm2, "mm²");
+  t.add("regenerative approach speed", rg.speedMmS, "mm/s", "v = Q_p / (A_rod·0.06): the pump flow fills only the rod's displacement",
+    { Q_p: vQp, A_rod: vRod, v_full_area: v((d.flowsLpm.pump * 1000) / (c.capAreaMm2 * 0.06), "mm/s") }, REGEN_SOURCE);
+  t.add("regenerative approach force at working pressure", rg.forceAtWorkingN, "N",
+    "F = η·p·A_rod / 10: the same pressure on both sides of the piston leaves the rod area as net area (full area: η·p·A1/10)",
+    { η: v(c.mechanicalEfficiency, "-"), p: v(c.workingPressureBar, "bar"), A_rod: vRod, F_full_area: v(c.extendForceN, "N") }, REGEN_SOURCE);
+  t.add("cap inflow while regenerating", rg.capInflowLpm, "L/min",
+    "Q_cap = Q_p·A1 / A_rod: the cap port, the cap line and the valve stack carry this, not Q_p",
+    { Q_p: vQp, A1: v(c.capAreaMm2, "mm²"), A_rod: vRod }, "continuity [D]; textbook regenerative-circuit relations [S]");
+  t.add("rod outflow joining the pump flow", rg.rodOutflowLpm, "L/min", "Q_rod = Q_p·A3 / A_rod",
+    { Q_p: vQp, A3: v(c.annulusAreaMm2, "mm²"), A_rod: vRod }, "continuity [D]");
+  t.add("regenerative approach speed over return speed", rg.speedRatioToRetract, "-", "v_regen / v_retract = A3 / A_rod on the same pump flow (equal at φ = 2)",
+    { A3: v(c.annulusAreaMm2, "mm²"), A_rod: vRod }, REGEN_SOURCE);
+  if (rg.switchBar !== null) {
+    t.add("regeneration pressure switch setting", rg.switchBar, "bar",
+      "p_s = max(1.15·p_approach, p_approach + 10 bar), rounded up to 5 bar, at most 0.8 × the pressing pressure: the switch de-energises the regeneration valve when the tool meets the work, and the control latches it until the return, since the pressure drops once the full area takes the force",
+      { p_approach: v(d.pressuresBar.extendMoving, "bar"), p_press: v(d.pressuresBar.extendPress, "bar") },
+      "switch-over of a regenerative approach by a pressure switch: training texts on regenerative circuits [S]; margins common practice [CP]");
+  }
+}
+
 const EULER_K: Readonly<Record<number, number>> = Object.fromEntries(Object.values(EULER_CASES).map((c) => [c.eulerCase, c.k]));
 
 /** "reason; neutral flow", joined once per pair of texts (the engine has two centres). */
@@ -77,6 +114,7 @@ export function explain(
   const vPhi = v(phi, "-");
   const vEta = v(eta, "-");
   const vRelief = v(d.pressuresBar.reliefSetting, "bar");
+  const rg = d.regeneration ?? null;
 
   // ---- Loads
   t.add("axis angle", L.angleDeg, "°", "0° horizontal, 90° vertical, inclineDeg when inclined",
@@ -155,17 +193,19 @@ export function explain(
         { p_c: v(d.pump.compensatorBar, "bar"), Q_max: vQp }, "horsepower- and torque-limiting pumps: trade-press pump chapters [S]");
     }
   }
-  t.add("pump displacement needed", d.pump.requiredDisplacementCcRev, "cm³/rev", "V = 1000·max(Q_ext, Q_ret) / (n·η_v)",
+  t.add("pump displacement needed", d.pump.requiredDisplacementCcRev, "cm³/rev",
+    rg ? "V = 1000·max(A_rod·v_approach, Q_ret, Q_press) / (n·η_v): the regenerative approach draws only the rod's displacement from the pump" : "V = 1000·max(Q_ext, Q_ret) / (n·η_v)",
     { Q: v(ev.pumpRequiredLpm, "L/min"), n: v(d.pump.speedRpm, "rpm"), η_v: v(d.pump.volumetricEfficiency, "-") },
     "pump flow relation (Esposito) [M]; fixed pump serves the larger stroke flow");
   t.add("pump displacement", d.pump.displacementCcRev, "cm³/rev", "next size in the series",
     { V_needed: v(d.pump.requiredDisplacementCcRev, "cm³/rev") }, "ISO 3662 R10 series [M]");
   t.add("pump delivery", qp, "L/min", "Q_p = V·n·η_v / 1000",
     { V: v(d.pump.displacementCcRev, "cm³/rev"), n: v(d.pump.speedRpm, "rpm"), η_v: v(d.pump.volumetricEfficiency, "-") }, "pump flow relation (Esposito) [M]");
-  t.add("actual extend speed", d.speedsMmS.extendActual, "mm/s", "v = Q_p / A1",
-    { Q_p: vQp, A1: vA1 }, CONTINUITY);
+  t.add("actual extend speed", d.speedsMmS.extendActual, "mm/s", rg ? "v = Q_p / A_rod (regenerative approach)" : "v = Q_p / A1",
+    rg ? { Q_p: vQp, A_rod: v(rg.rodAreaMm2, "mm²") } : { Q_p: vQp, A1: vA1 }, rg ? REGEN_SOURCE : CONTINUITY);
   t.add("actual retract speed", d.speedsMmS.retractActual, "mm/s", "v = Q_p / A3",
     { Q_p: vQp, A3: vA3 }, CONTINUITY);
+  regenerationTrail(t, d, ev.regenReason, vQp);
   t.add("largest return flow", d.flowsLpm.returnMax, "L/min", "Q_return = φ·Q_p (retracting empties the cap end)",
     { φ: vPhi, Q_p: vQp }, "continuity: return-flow amplification by the area ratio [D]");
 
@@ -180,11 +220,18 @@ export function explain(
   const dcv = A.dcvPathDropBar.value;
   const vDcv = v(dcv, "bar");
   const filter = A.returnFilterDropBar.value;
-  t.add("extend supply losses", ev.extendSupplyLossBar, "bar", "Δp = pressure line + valve P→A + cap line (+ CBV check if cap side)",
+  t.add("extend supply losses", ev.extendSupplyLossBar, "bar",
+    rg ? "Δp = pressure line + valve P→A at Q_p + cap line at the cap inflow (+ CBV check if cap side)" : "Δp = pressure line + valve P→A + cap line (+ CBV check if cap side)",
     { dcv_path: vDcv, check: v(ctx.cbvSide === "cap" ? A.cbvCheckDropBar.value : 0, "bar"), Q: vQp },
     `${DW}; valve allowances common practice [CP]`);
-  t.add("extend back-pressure", ev.extendBackBar, "bar", "Δp = rod line + valve B→T + return line + filter, at Q_p/φ",
-    { dcv_path: vDcv, filter: v(filter, "bar"), Q: v(qp / phi, "L/min") }, `${DW}; valve and filter allowances common practice [CP]`);
+  if (rg) {
+    t.add("rod side above the cap side while regenerating", ev.extendBackBar, "bar",
+      "Δp = rod line and regeneration valve at the rod outflow + cap line at the cap inflow: the rod end's oil flows into the cap end, so the rod side stands this far above it",
+      { dcv_path: vDcv, Q_rod: v(rg.rodOutflowLpm, "L/min"), Q_cap: v(rg.capInflowLpm, "L/min") }, `${DW}; valve allowance common practice [CP]`);
+  } else {
+    t.add("extend back-pressure", ev.extendBackBar, "bar", "Δp = rod line + valve B→T + return line + filter, at Q_p/φ",
+      { dcv_path: vDcv, filter: v(filter, "bar"), Q: v(qp / phi, "L/min") }, `${DW}; valve and filter allowances common practice [CP]`);
+  }
   t.add("retract supply losses", ev.retractSupplyLossBar, "bar", "Δp = pressure line + valve P→B + rod line (+ CBV check if rod side)",
     { dcv_path: vDcv, check: v(ctx.cbvSide === "rod" ? A.cbvCheckDropBar.value : 0, "bar"), Q: vQp },
     `${DW}; valve allowances common practice [CP]`);
@@ -239,9 +286,10 @@ export function explain(
   const rodCbv = cb?.side === "rod";
   const capCbv = cb?.side === "cap";
   t.add("extend pressure at the cylinder", ev.extendInletBar, "bar",
-    rodCbv ? "p1 = max((10·F_h + p_back·A3)/A1, (10·F_h + p_set·A3)/(A1 + R·A3)), F_h = F·η or F/η" : "p1 = (10·F/η + p_back·A3) / A1",
-    { F: v(L.extendMovingN, "N"), η: vEta, A1: vA1, A3: vA3, p_back: v(ev.extendBackBar, "bar") },
-    rodCbv ? "piston force balance with the CBV balance p2 = p_set − R·p1 [D]" : TEXTBOOK_CYL);
+    rodCbv ? "p1 = max((10·F_h + p_back·A3)/A1, (10·F_h + p_set·A3)/(A1 + R·A3)), F_h = F·η or F/η"
+      : rg ? "p1 = (10·F/η + Δp·A3) / A_rod: p1·A1 − (p1 + Δp)·A3 = 10·F/η, both sides joined (regenerative approach)" : "p1 = (10·F/η + p_back·A3) / A1",
+    { F: v(L.extendMovingN, "N"), η: vEta, A1: vA1, A3: vA3, p_back: v(ev.extendBackBar, "bar"), ...(rg ? { A_rod: v(rg.rodAreaMm2, "mm²") } : {}) },
+    rodCbv ? "piston force balance with the CBV balance p2 = p_set − R·p1 [D]" : rg ? `${REGEN_SOURCE}; piston force balance [D]` : TEXTBOOK_CYL);
   t.add("extend pump pressure while moving", ev.extendMovingBar, "bar", "p = p1 + supply losses",
     { p1: v(ev.extendInletBar, "bar"), losses: v(ev.extendSupplyLossBar, "bar") }, "[D]");
   t.add("extend pump pressure while pressing", ev.extendPressBar, "bar",
@@ -298,8 +346,9 @@ export function explain(
   const vent = d.reliefVent;
   t.add("directional valve centre", dv.center, "-", centreFormula(dv.centerReason, dv.neutralPumpFlow),
     { counterbalance: v(cb ? "yes" : "no", "-") }, "common practice [CP]; Cundiff & Kocher, Fluid Power Circuits and Controls [M]");
-  t.add("largest valve path flow", dv.maxPathFlowLpm, "L/min", "max(Q_p, φ·Q_p, Q_p/φ) over P→A/B and A/B→T",
-    { Q_p: vQp, φ: vPhi }, "continuity [D]");
+  t.add("largest valve path flow", dv.maxPathFlowLpm, "L/min",
+    rg ? "max(Q_p, φ·Q_p, Q_p/φ, Q_p·A1/A_rod, Q_p·A3/A_rod): the regeneration valve shares the stack's ISO 4401 interface and carries the cap inflow and rod outflow" : "max(Q_p, φ·Q_p, Q_p/φ) over P→A/B and A/B→T",
+    { Q_p: vQp, φ: vPhi, ...(rg ? { Q_cap: v(rg.capInflowLpm, "L/min"), Q_rod: v(rg.rodOutflowLpm, "L/min") } : {}) }, "continuity [D]");
   t.add("ISO 4401 size", dv.iso4401Size, "-", "smallest size with path flow ≤ 80 % of its typical maximum",
     { Q: v(dv.maxPathFlowLpm, "L/min"), typical_max: v(dv.typicalMaxFlowLpm, "L/min") }, "ISO 4401 interface sizes [S]; flow ratings and 80 % rule common practice [CP]");
 

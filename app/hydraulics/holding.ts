@@ -24,13 +24,25 @@ export interface HoldingDesign {
   reason: string;
 }
 
+/** The side holdingFor closes, or null where no leak-tight holding is asked (the same rule, for the search). */
+export function holdingSide(req: Requirements, loads: AxisLoads): HoldingSide | null {
+  if (req.holdMinutes <= A.leakTightHoldMinutes.value) return null;
+  if (loads.overrunningStroke === "extend") return "rod";
+  if (loads.overrunningStroke === "retract" || req.processForceN > 0) return "cap";
+  return "both";
+}
+
 /**
  * Which port holds the load: the one the weight pressurises for a hanging or lifted load; the
  * cap end for a clamp held at its working force; both ends for an axis held in position against
  * forces either way (a bypassing piston seal would otherwise let it drift).
  */
-export function holdingFor(req: Requirements, loads: AxisLoads, cyl: CylinderCandidate, pumpFlowLpm: number): HoldingDesign | null {
-  if (req.holdMinutes <= A.leakTightHoldMinutes.value) return null;
+export function holdingFor(
+  req: Requirements, loads: AxisLoads, cyl: CylinderCandidate, pumpFlowLpm: number,
+  /** flow into the cap end during a regenerative approach (through the cap-side check), if any */
+  capInflowLpm = 0,
+): HoldingDesign | null {
+  if (holdingSide(req, loads) === null) return null;
   const R = A.pocvPilotRatio.value;
   const phi = cyl.areaRatio;
   const overrun = loads.overrunningStroke;
@@ -49,12 +61,12 @@ export function holdingFor(req: Requirements, loads: AxisLoads, cyl: CylinderCan
     const loadBar = (10 * forceN) / cyl.capAreaMm2;
     return {
       kind: "pilot-operated-check", side: "cap", pilotRatio: R, pilotOpeningBar: loadBar / (R - 1 / phi), openingLoadSideBar: loadBar,
-      flowLpm: pumpFlowLpm * phi,
+      flowLpm: Math.max(pumpFlowLpm * phi, capInflowLpm),
       reason: overrun === "retract" ? "the lifted load pressurises the cap end" : "the clamping force is held on the cap end",
     };
   }
   return {
-    kind: "pilot-operated-check", side: "both", pilotRatio: R, pilotOpeningBar: 0, openingLoadSideBar: 0, flowLpm: pumpFlowLpm * phi,
+    kind: "pilot-operated-check", side: "both", pilotRatio: R, pilotOpeningBar: 0, openingLoadSideBar: 0, flowLpm: Math.max(pumpFlowLpm * phi, capInflowLpm),
     reason: "no weight or working force loads one end, so both ends are closed to hold the position against forces either way",
   };
 }

@@ -6,7 +6,7 @@ import { buildBom } from "./bom";
 import { buildCircuit } from "./circuit";
 import { cylinderCandidates, cylinderForceN, workingLimitBar } from "./cylinder";
 import type { Design } from "./design";
-import { evaluateCandidate, sizingContext, type Evaluation, type SizingContext } from "./evaluate";
+import { evaluateCandidate, evaluateWithRegenerationChoice, phaseDemandOf, sizingContext, valveStackFlowLpm, type Evaluation, type SizingContext } from "./evaluate";
 import { cushioningFor } from "./cushioning";
 import { cycleOf, cycleTrail } from "./cycle";
 import { decompressionFor } from "./decompression";
@@ -46,7 +46,7 @@ export function chooseCylinder(ctx: SizingContext): Evaluation {
     // A hose a size or two larger is far cheaper than the next cylinder, pump and motor [CP].
     let fit: Evaluation | undefined;
     for (let upsize = 0; upsize <= A.hoseUpsizeSteps.value; upsize++) {
-      const ev = evaluateCandidate(ctx, cyl, upsize);
+      const ev = evaluateWithRegenerationChoice(ctx, cyl, upsize);
       if (!ev.pressureOk || !ev.cbvOk) continue;
       if (ev.bucklingOk) return ev;
       fit ??= ev;
@@ -100,19 +100,18 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const lines = { pressure: ev.lines.pressure, capWork: ev.lines.capWork, rodWork: ev.lines.rodWork, return: ev.lines.return, suction };
 
   // Directional valve
-  const holding = holdingFor(req, ctx.loads, cyl, qp);
+  const regen = ev.regen;
+  const holding = holdingFor(req, ctx.loads, cyl, qp, regen?.capInflowLpm);
   const cushioning = cushioningFor(req.massKg, ctx.loads, cyl, ev.extendActualMmS, ev.retractActualMmS, ev.extendInletBar, ev.retractInletBar);
-  const maxPathFlowLpm = Math.max(qp, qp * cyl.areaRatio, qp / cyl.areaRatio);
+  // A regeneration valve sits in the valve stack on the same ISO 4401 interface, and its cap and
+  // rod channels carry the cap inflow and rod outflow of the regenerative approach.
+  const maxPathFlowLpm = valveStackFlowLpm(ev);
   const valve = selectIso4401(maxPathFlowLpm);
 
   // Pressing at the end of the stroke, and any dwell, stall the cylinder with the valve shifted:
   // a fixed pump then delivers its whole flow over the relief, at the relief setting.
   const pumpOnReliefAtForce = req.processForceN > 0 || req.dwellS > 0;
-  const pump = choosePump({
-    approachBar: ev.extendMovingBar, retractBar: ev.retractBar,
-    press: ev.flowPressLpm !== null ? { bar: ev.extendPressBar, flowLpm: ev.flowPressLpm } : null,
-    reliefBar: ev.reliefBar, workingBar: ev.workingBar, displacementCc: ev.displacementCc, pumpFlowLpm: qp, speedRpm: ctx.speedRpm,
-  }, req.pumpType);
+  const pump = choosePump(phaseDemandOf(ev, ctx.speedRpm), req.pumpType);
   const pk = pump.hydraulicKw;
   const compensated = pump.type === "compensated";
   // The pressing speed: a meter-in flow control where the pump alone would press too fast.
@@ -292,7 +291,14 @@ export function sizeCircuitParsed(req: Requirements): Design {
       rmsKw: rmsValid ? rmsKw : null,
       phases: phases.filter((ph) => ph.name !== "neutral").map((ph) => ({ name: ph.name, kw: ph.kw, durationS: ph.s })),
     },
-    regenerative: false,
+    regenerative: regen !== null,
+    regeneration: regen
+      ? {
+          rodAreaMm2: regen.rodAreaMm2, speedMmS: ev.extendActualMmS, forceAtWorkingN: cylinderForceN(workingPressureBar, regen.rodAreaMm2, eta),
+          capInflowLpm: regen.capInflowLpm, rodOutflowLpm: regen.rodOutflowLpm, speedRatioToRetract: regen.speedRatioToRetract,
+          switchBar: regen.switchBar, reason: ev.regenReason,
+        }
+      : null,
     pressSpeedControl,
     counterbalance: cbv && ctx.pilot
       ? {
@@ -463,6 +469,12 @@ function addWarnings(
   }
   if (d.requirements.pumpType !== undefined && d.requirements.pumpType !== d.pump.type) {
     w.add("PUMP_TYPE_NOT_SUITED", `The pump asked for is not sized: ${d.pump.reason}.`);
+  }
+  const rg = d.regeneration;
+  if (rg) {
+    w.add("REGENERATIVE_APPROACH", rg.switchBar !== null
+      ? `The approach runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a, and its pressure switch ends it at ${f1(rg.switchBar)} bar and must be latched until the return, or the axis would fall back to regenerating as the pressure drops on the full area. While regenerating the rod gives only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area.`
+      : `The whole extension runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a. The rod then pushes with only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area; enough for this axis, which asks for no force at the end of the stroke.`);
   }
   if (d.heat.coolerKw > 0) {
     w.add("HEAT_COOLER_NEEDED",

@@ -32,6 +32,8 @@ export const WARNING_CODES = [
   "DECOMPRESSION_NEEDED",
   /** the pump type asked for cannot work on this axis; another is sized and the message says why */
   "PUMP_TYPE_NOT_SUITED",
+  /** a note, not a fault: the approach regenerates, and the controls must switch the regeneration valve */
+  "REGENERATIVE_APPROACH",
   /** the pressing-speed flow control has less pressure across it than it needs to regulate */
   "PRESS_CONTROL_DROP_LOW",
 ] as const;

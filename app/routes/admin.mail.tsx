@@ -20,11 +20,11 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  await requireRole(request, ["admin"]);
+  const admin = await requireRole(request, ["admin"]);
   const submission = parseWithZod(await request.formData(), { schema: sendAgainSchema });
   if (submission.status !== "success") return data({ error: "Choose a mail to send again." }, { status: 400 });
   try {
-    const mail = await sendAgain(submission.value.mailId);
+    const mail = await sendAgain(admin, submission.value.mailId);
     const back = new URL(request.url);
     return redirectWithToast(request, `${back.pathname}${back.search}`, `The mail to ${mail.to} is queued again.`);
   } catch (error) {

@@ -71,13 +71,13 @@ async function decide(request: Request, formData: FormData) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  await requireRole(request, ["admin"]);
+  const admin = await requireRole(request, ["admin"]);
   const formData = await request.formData();
   if (formData.has("intent")) return decide(request, formData);
   const submission = parseWithZod(formData, { schema: assignManagerSchema });
   if (submission.status !== "success") return data<ActionResult>({ error: "Choose an account manager." }, { status: 400 });
   try {
-    await assignAccountManager(submission.value.organisationId, submission.value.managerId);
+    await assignAccountManager(admin, submission.value.organisationId, submission.value);
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;
     return data<ActionResult>({ error: error.message }, { status: 400 });

@@ -3,7 +3,8 @@ import { Op, UniqueConstraintError, type Transaction } from "sequelize";
 import { env } from "~/env.server";
 import { ROLES_BY_KIND, type Role } from "~/auth/roles";
 import { Invitation, Organisation, PasswordReset, User, UserSession, sequelize } from "~/models/index.server";
-import { FieldErrors, notFound, forbidden } from "./errors.server";
+import { FieldErrors, notFound } from "./errors.server";
+import { authorize, viewerOf } from "~/auth/access-policy.server";
 import { enqueueMail } from "./mail.server";
 import { throttleInvitations, mayMail, throttledPasswordCheck } from "./throttle.server";
 import { hashToken, newToken } from "./tokens.server";
@@ -141,8 +142,8 @@ export async function inviteColleague(actor: User, email: string, requestedRole?
   const allowed = ROLES_BY_KIND[organisation.kind];
   const role = requestedRole ?? allowed[0];
   if (!allowed.includes(role)) throw new FieldErrors({ role: ["That role does not belong to this organisation."] });
-  // Only an admin may bring account managers and admins in.
-  if (organisation.kind === "operator" && actor.role !== "admin") forbidden();
+  // Only an admin may bring account managers and admins in (the access policy's team.invite).
+  authorize(await viewerOf(actor), "team.invite", organisation);
   const owner = await User.findOne({ where: { email } });
   // Members are on the team page already, so saying so reveals nothing.
   if (owner?.organisationId === organisation.id) throw new FieldErrors({ email: ["This person is already in your team."] });

@@ -3,6 +3,7 @@ import { ROLES_BY_KIND, type OrganisationKind, type Role } from "~/auth/roles";
 import type { Approval } from "~/content/shop-approval";
 import { Organisation, User, UserSession, sequelize } from "~/models/index.server";
 import { FieldErrors, notFound } from "./errors.server";
+import { accountsWhere, authorize, viewerOf } from "~/auth/access-policy.server";
 
 export const PAGE_SIZE = 20;
 
@@ -71,6 +72,9 @@ export async function listOrganisations(query: ListQuery & { kind?: Organisation
   };
 }
 
+/** Changes to people and organisations are the admins' (the access policy's platform.administer). */
+const mayAdminister = async (user: User) => authorize(await viewerOf(user), "platform.administer", null);
+
 async function userWithOrg(userId: string) {
   const user = await User.findByPk(userId, { include: [{ model: Organisation, as: "organisation" }] });
   if (!user?.organisation) notFound("No such user.");
@@ -79,6 +83,7 @@ async function userWithOrg(userId: string) {
 
 /** The user whose role would change, if the change is allowed: checked before asking for a password. */
 export async function roleChangeTarget(admin: User, userId: string, role: Role) {
+  await mayAdminister(admin);
   const user = await userWithOrg(userId);
   if (!ROLES_BY_KIND[user.organisation.kind].includes(role)) {
     throw new FieldErrors({ role: [`A member of a ${user.organisation.kind} organisation cannot have that role.`] });
@@ -97,6 +102,7 @@ export async function changeRole(admin: User, userId: string, role: Role) {
 }
 
 export async function setActive(admin: User, userId: string, active: boolean) {
+  await mayAdminister(admin);
   const user = await userWithOrg(userId);
   if (user.id === admin.id && !active) throw new FieldErrors({ active: ["You cannot deactivate yourself."] });
   await sequelize.transaction(async (transaction) => {
@@ -111,7 +117,8 @@ export async function listAccountManagers() {
   return User.findAll({ where: { role: "account_manager", active: true }, order: [["name", "ASC"]] });
 }
 
-export async function assignAccountManager(organisationId: string, managerId: string | null) {
+export async function assignAccountManager(admin: User, organisationId: string, { managerId }: { managerId: string | null }) {
+  await mayAdminister(admin);
   const organisation = await Organisation.findByPk(organisationId);
   if (!organisation || organisation.kind !== "buyer") notFound("No such buyer organisation.");
   if (managerId) {
@@ -121,14 +128,10 @@ export async function assignAccountManager(organisationId: string, managerId: st
   await organisation.update({ accountManagerId: managerId });
 }
 
-// An account manager sees the buyer accounts assigned to them; an admin sees every one.
-const accountScope = (viewer: User): WhereOptions =>
-  viewer.role === "admin" ? { kind: "buyer" } : { kind: "buyer", accountManagerId: viewer.id };
-
-/** The buyer accounts a viewer follows. */
+/** The buyer accounts a viewer follows (the access policy's accountsWhere). */
 export async function accountsOf(viewer: User) {
   const organisations = await Organisation.findAll({
-    where: accountScope(viewer),
+    where: accountsWhere(await viewerOf(viewer)),
     include: [{ model: User, as: "accountManager", required: false }],
     order: [["name", "ASC"]],
   });
@@ -140,7 +143,7 @@ export async function accountsOf(viewer: User) {
 /** One account of the viewer's; an account they do not follow is "not found". */
 export async function accountOf(viewer: User, organisationId: string) {
   const organisation = await Organisation.findOne({
-    where: { ...accountScope(viewer), id: organisationId },
+    where: { [Op.and]: [accountsWhere(await viewerOf(viewer)), { id: organisationId }] },
     include: [{ model: User, as: "users" }],
   });
   if (!organisation) notFound("No such account.");

@@ -1,6 +1,8 @@
 import { Op, type WhereOptions } from "sequelize";
 import { OutboxMail } from "~/models/index.server";
 import { FieldErrors, notFound, requireId } from "./errors.server";
+import { authorize, viewerOf } from "~/auth/access-policy.server";
+import type { User } from "~/models/index.server";
 
 // The admin's view of mail that did not go out: failed for good after the last attempt, or
 // still waiting long after it was queued (the mail server refuses it, or no sender runs).
@@ -64,7 +66,8 @@ export async function mailNeedingAttention(view: MailView, requestedPage = 1, no
  * sent meanwhile (the sender may hold it right now: the UPDATE waits for its lock and then sees
  * "sent") is left alone and reported, so nothing goes out twice.
  */
-export async function sendAgain(mailId: string | undefined): Promise<OutboxMail> {
+export async function sendAgain(admin: User, mailId: string | undefined): Promise<OutboxMail> {
+  authorize(await viewerOf(admin), "platform.administer", null);
   const id = requireId(mailId);
   const [count, rows] = await OutboxMail.update(
     { status: "pending", attempts: 0, nextAttemptAt: new Date() },

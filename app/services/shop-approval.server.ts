@@ -2,6 +2,7 @@ import { env } from "~/env.server";
 import { Organisation, User, sequelize } from "~/models/index.server";
 import type { Approval } from "~/content/shop-approval";
 import { FieldErrors, notFound, requireId } from "./errors.server";
+import { authorize, viewerOf } from "~/auth/access-policy.server";
 import { enqueueMail } from "./mail.server";
 
 // An admin approves or refuses each new shop organisation before it reads any spec
@@ -66,6 +67,7 @@ export async function decideShop(admin: User, organisationId: string, choice: Sh
   return sequelize.transaction(async (transaction) => {
     const shop = await Organisation.findOne({ where: { id: organisationId, kind: "shop" }, lock: transaction.LOCK.UPDATE, transaction });
     if (!shop) notFound("No such shop.");
+    authorize(await viewerOf(admin, transaction), "shop.decide", shop);
     const approving = choice.decision === "approve";
     if (approving && shop.approval === "approved") throw new FieldErrors({ "": [`${shop.name} is already approved.`] });
     if (!approving && shop.approval !== "pending") {

@@ -242,7 +242,7 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
           <DecompressionSymbol id={c.id} centre={at} />
           <Caption
             x={at.x - VENT_BOX / 2 - DECOMPRESSION_STUB - 28} y={at.y - 26} anchor="end" name="Decompression valve"
-            values={["2/2, orifice to tank", ...v("releaseCm3", (cm3) => `releases about ${Math.round(cm3).toLocaleString("en-GB")} cm³`)]}
+            values={["2/2, orifice to tank", ...v("releaseCm3", (cm3) => `releases about ${u.smallVolume(cm3)}`)]}
           />
         </>
       );

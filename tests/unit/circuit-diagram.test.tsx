@@ -422,3 +422,13 @@ describe("CircuitDiagram: readable at the page's and the report's size", () => {
     }
   });
 });
+
+describe("CircuitDiagram: US customary values for the new parts", () => {
+  it("gives the decompression volume in in³ (1 in³ = 2.54³ cm³) and the settings in psi", () => {
+    const html = render(double, "us");
+    const in3 = Math.round((double.decompression.releaseCm3 / 2.54 ** 3) * 10) / 10;
+    expect(html).toContain(`releases about ${in3.toLocaleString("en-GB")} in³`);
+    expect(html).not.toContain("cm³");
+    expect(html).toContain(`unloads above ${Math.round(double.pump.unloadingBar! * 14.5038).toLocaleString("en-GB")} psi`);
+  });
+});

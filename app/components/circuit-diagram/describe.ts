@@ -91,7 +91,7 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
     ].filter(Boolean).join(", ")].filter(Boolean).join(": "),
     get("decompression") && phrase(
       "Decompression valve, a normally closed 2/2 solenoid valve with an orifice, joined to the cap port: it lets",
-      n(get("decompression"), "releaseCm3", (v) => `about ${Math.round(v).toLocaleString("en-GB")} cm³ of`),
+      n(get("decompression"), "releaseCm3", (v) => `about ${u.smallVolume(v)} of`),
       "compressed oil out to tank before the return stroke",
     ),
     filter && phrase(
@@ -133,8 +133,8 @@ function pumpSentences(circuit: Circuit, u: DisplayUnits, drive: string | undefi
         n(large, "displacementCcRev", (v) => `a large section of ${u.displacement(v)}`),
         n(pump, "displacementCcRev", (v) => `and a small section of ${u.displacement(v)}`),
         n(pump, "totalFlowLpm", (q) => `delivering ${u.flow(q)} together`),
-        drive,
-      ),
+        drive && `, ${drive}`,
+      ).replace(" ,", ","),
       phrase(
         "The small section feeds the system line directly; the large one feeds it through a check valve that lets oil pass only from the large section into the system line",
         unloading && phrase(
@@ -150,8 +150,8 @@ function pumpSentences(circuit: Circuit, u: DisplayUnits, drive: string | undefi
         "Pressure-compensated variable-displacement pump",
         n(pump, "displacementCcRev", u.displacement),
         n(pump, "flowLpm", (q) => `delivering up to ${u.flow(q)}`),
-        drive,
-      ),
+        drive && `, ${drive}`,
+      ).replace(" ,", ","),
       phrase(
         "Its compensator, piloted from the pump's own outlet,",
         n(pump, "compensatorBar", (p) => `reduces the delivery as the pressure nears ${u.pressure(p)}`) ?? "reduces the delivery as the pressure nears its setting",

@@ -15,6 +15,8 @@ export interface DisplayUnits {
   flow(lpm: number): string;
   displacement(cm3PerRev: number): string;
   volume(litres: number): string;
+  /** a small volume of oil, such as what a compressed cap end gives back: cm³ or in³ */
+  smallVolume(cm3: number): string;
   power(kw: number): string;
 }
 
@@ -29,6 +31,9 @@ export function displayUnits(system: UnitSystem = "metric"): DisplayUnits {
     flow: (lpm) => formatQuantity("flow", lpm, system),
     displacement: (cc) => formatQuantity("displacement", cc, system),
     volume: (l) => formatQuantity("volume", l, system),
+    // 1 in = 2.54 cm exactly, so 1 in³ = 2.54³ cm³
+    smallVolume: (cm3) =>
+      system === "us" ? `${readable(cm3 / 2.54 ** 3)} in³` : `${Math.round(cm3).toLocaleString("en-GB")} cm³`,
     power: (kw) => formatQuantity("power", kw, system),
   };
 }

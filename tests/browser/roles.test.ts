@@ -35,6 +35,25 @@ describe("each demo role signs in and sees its home", () => {
     await page.context().close();
   });
 
+  it("on a phone the menu is one button that opens every page of the role, and closes on the way", { timeout: 60_000 }, async () => {
+    const page = await app.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await signInAs(page, "felix@tenderflow.test", DEMO_PASSWORD);
+    await page.waitForURL("**/admin/users");
+    // The header is one row: logo and the Menu button, nothing wrapping.
+    const header = await page.locator("header").boundingBox();
+    expect(header!.height).toBeLessThan(80);
+    expect(await page.getByRole("navigation", { name: "Main" }).count()).toBe(0);
+    await page.locator("header summary", { hasText: "Menu" }).click();
+    const links = await page.getByRole("navigation", { name: "Main" }).getByRole("link").allTextContents();
+    expect(links).toEqual(ROLES[3].nav);
+    await page.screenshot({ path: path.join(SCREENSHOTS, "phone-menu-admin.png") });
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Payments" }).click();
+    await page.waitForURL("**/payments");
+    await expect.poll(() => page.getByRole("navigation", { name: "Main" }).count()).toBe(0);
+    await page.context().close();
+  });
+
   it("a wrong password shows the error beside the form and stays signed out", async () => {
     const page = await app.newPage();
     await signInAs(page, "priya@kestrel-forming.test", "not-her-password");

@@ -34,7 +34,7 @@ export const ASSUMPTIONS = {
   workLineLengthM: a(2.0, "m", "assumed hose run from the valve to each cylinder port; our assumption [CP]"),
   returnLineLengthM: a(1.0, "m", "assumed valve-to-tank run through the filter; our assumption [CP]"),
   suctionLineLengthM: a(0.5, "m", "assumed tank-to-pump suction run; our assumption [CP]"),
-  hoseUpsizeSteps: a(2, "dash sizes", "hoses up to two dash sizes above the velocity-limit size where that saves a cylinder size step: a hose costs far less than the next cylinder, pump and motor; our rule, common practice [CP]"),
+  hoseUpsizeSteps: a(2, "dash sizes", "hoses up to two dash sizes above the velocity-limit size (or up to the size the cylinder's lines need at the 0.5 m/s seal-speed limit, if that is more) where that saves a cylinder size step: a hose costs far less than the next cylinder, pump and motor; our rule, common practice [CP]"),
   laminarReynoldsLimit: a(2000, "-", "laminar below Re ≈ 2000 (Engineering Fluid Mechanics, open textbook [S]); above it the larger Blasius factor is used"),
 
   // Fluid: ISO VG 46 at 40 °C

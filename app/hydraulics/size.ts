@@ -13,7 +13,8 @@ import { decompressionFor } from "./decompression";
 import { holdingFor } from "./holding";
 import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
-import { lineLossBar, sizeLine } from "./lines";
+import { DEFAULT_FLUID, lineLossBar, sizeLine } from "./lines";
+import { phaseFlowLpm } from "./phases";
 import { choosePump } from "./pump-choice";
 import { pressSpeedControlFor } from "./press-speed";
 import { hydraulicPowerKw, pumpDeliveryLpm, selectMotorKw } from "./pump-motor";
@@ -45,8 +46,10 @@ export function chooseCylinder(ctx: SizingContext): Evaluation {
     if ((10 * ctx.minExtendHydraulicN) / cyl.capAreaMm2 > limit + 1e-6 || (10 * ctx.minRetractHydraulicN) / cyl.annulusAreaMm2 > limit + 1e-6) continue;
     // A hose a size or two larger is far cheaper than the next cylinder, pump and motor [CP].
     let fit: Evaluation | undefined;
-    for (let upsize = 0; upsize <= A.hoseUpsizeSteps.value; upsize++) {
+    let maxUpsize = A.hoseUpsizeSteps.value;
+    for (let upsize = 0; upsize <= maxUpsize; upsize++) {
       const ev = evaluateWithRegenerationChoice(ctx, cyl, upsize);
+      if (upsize === 0) maxUpsize = hoseUpsizeLimit(cyl, ev.lines.pressure.hoseIndex);
       if (!ev.pressureOk || !ev.cbvOk) continue;
       if (ev.bucklingOk) return ev;
       fit ??= ev;
@@ -57,6 +60,20 @@ export function chooseCylinder(ctx: SizingContext): Evaluation {
   }
   if (pressureFit) return pressureFit;
   throw notSizable(ctx);
+}
+
+/**
+ * How many dash sizes above the velocity-limit size the search may take the hoses: two [CP], or
+ * as far as the size the pressure line of this cylinder needs with the piston at the seal-speed
+ * limit (about 0.5 m/s [M]), whichever is more. That bound belongs to the cylinder, not to the
+ * flow asked: counted only from the velocity-limit size, a slower axis got smaller hoses with
+ * larger losses (Δp ∝ v/d² in laminar flow), so a higher relief and stall thrust, and where that
+ * decided buckling a larger cylinder and pump than its faster twin, which was allowed the hoses.
+ */
+function hoseUpsizeLimit(cyl: { capAreaMm2: number }, velocityLimitIndex: number): number {
+  const atSealLimitLpm = phaseFlowLpm(cyl.capAreaMm2, A.pistonSpeedLimitMmS.value);
+  const portSized = sizeLine(atSealLimitLpm, A.pressureVelocityLimit.value, A.pressureLineLengthM.value, DEFAULT_FLUID).hoseIndex;
+  return Math.max(A.hoseUpsizeSteps.value, portSized - velocityLimitIndex);
 }
 
 /** Why no pair fits, with the pressure the best pair needs, so the buyer knows what to change. */

@@ -6,7 +6,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { NotSizableError, sizeCircuit as sizeOrThrow, type Design, type RequirementsInput } from "~/hydraulics";
-import { requirementsArb } from "./arbitraries";
+import { pressAxisArb, requirementsArb } from "./arbitraries";
 
 const RUNS = { numRuns: 300 };
 
@@ -74,7 +74,7 @@ describe("monotonic sizing", () => {
 describe("monotonic sizing the sizing contract names", () => {
   it("a higher allowed pressure never gives a larger bore (both series searched together)", () => {
     fc.assert(
-      fc.property(requirementsArb, fc.double({ min: 1, max: 3, noNaN: true }), (req, factor) => {
+      fc.property(fc.oneof(requirementsArb, pressAxisArb), fc.double({ min: 1, max: 3, noNaN: true }), (req, factor) => {
         const low = sized(req);
         const high = sized({ ...req, maxPressureBar: Math.min(250, (req.maxPressureBar ?? 160) * factor) });
         if (!high) {
@@ -82,6 +82,67 @@ describe("monotonic sizing the sizing contract names", () => {
           return;
         }
         if (low) expect(high.cylinder.boreMm).toBeLessThanOrEqual(low.cylinder.boreMm);
+      }),
+      RUNS,
+    );
+  });
+});
+
+describe("a slower approach never a larger pump (sizing contract)", () => {
+  // Found by fast-check (engine 2.10.0): a near-massless 680 mm rod-up axis, rear flange, whose
+  // buckling is decided by the stall thrust at the relief. At 36 mm/s it got 50/36 with 3.15 cm³/rev
+  // and hoses two sizes above the velocity-limit size (relief 20 bar); at 15 mm/s the velocity-limit
+  // hoses were a size smaller, two sizes above them were not enough (laminar Δp ∝ v/d² [D]), the
+  // relief rose to 25 bar, the rod failed buckling and the search went to 63/45 with 4 cm³/rev.
+  // The hoses the search may try now reach the size the cylinder's own lines need at the seal-speed
+  // limit, a bound of the cylinder, not of the flow, so the slower axis keeps the hoses and 50/36.
+  const BUCKLING_LIMITED: RequirementsInput = {
+    orientation: "vertical", rodDirection: "up", massKg: 0, processForceN: 0, frictionCoefficient: 0, strokeMm: 680.83,
+    extendSpeedMmS: 35.888, retractSpeedMmS: 70.14, accelTimeS: 0.0611, mounting: "fixed-free", mountingStyle: "rear-flange",
+    cyclesPerHour: 0, hoursPerDay: 0, ambientC: 0, supplyHz: 60, maxPressureBar: 127.69, dwellS: 0, decelTimeS: 0.0722,
+    pressStrokeMm: 6.81, pressSpeedMmS: 1.035, pumpType: "compensated",
+  };
+  const slowerBy = (req: RequirementsInput, k: number): RequirementsInput => ({
+    ...req, extendSpeedMmS: req.extendSpeedMmS * k,
+    ...(req.pressSpeedMmS !== undefined ? { pressSpeedMmS: Math.min(req.pressSpeedMmS, req.extendSpeedMmS * k) } : {}),
+  });
+
+  it("keeps the faster axis's cylinder in the buckling-limited case fast-check found", () => {
+    const fast = sizeCircuit(BUCKLING_LIMITED);
+    const slow = sizeCircuit(slowerBy(BUCKLING_LIMITED, 0.428));
+    expect([fast.cylinder.boreMm, fast.cylinder.rodMm]).toEqual([50, 36]);
+    expect([slow.cylinder.boreMm, slow.cylinder.rodMm]).toEqual([50, 36]);
+    expect(slow.pump.displacementCcRev).toBeLessThanOrEqual(fast.pump.displacementCcRev);
+  });
+
+  it("over random axes, with and without a pressing stroke, whatever cylinder each gets (continuity Q = A·v [D])", () => {
+    fc.assert(
+      fc.property(fc.oneof(requirementsArb, pressAxisArb), fc.double({ min: 0.2, max: 1, noNaN: true }), (req, k) => {
+        const a = sized(req);
+        const b = sized(slowerBy(req, k));
+        if (!a || !b) return;
+        expect(b.pump.displacementCcRev).toBeLessThanOrEqual(a.pump.displacementCcRev + 1e-9);
+      }),
+      { numRuns: 400 },
+    );
+  });
+});
+
+describe("the motor covers every phase (IEC 60034-1 short overload, from memory [M]; RMS loading, trade-magazine article [S])", () => {
+  it("each phase's shaft power within the rating, or 1.5 × the rating for a phase of at most 15 s where the RMS rule is used", () => {
+    fc.assert(
+      fc.property(fc.oneof(requirementsArb, pressAxisArb), (req) => {
+        const d = sizeCircuit(req);
+        fc.pre(!d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES"));
+        const m = d.motor;
+        // motor.phases lists a dwell or pressing phase of 0 s too (one that never happens); neutral is
+        // not in it, and all of its shaft power becomes heat, so heat.neutralLossKw is that power
+        const phases = [...m.phases.filter((ph) => ph.durationS > 0), { name: "neutral", kw: d.heat.neutralLossKw, durationS: Number.POSITIVE_INFINITY }];
+        for (const ph of phases) {
+          const short = m.rmsKw !== null && ph.durationS <= 15;
+          expect(ph.kw, ph.name).toBeLessThanOrEqual((short ? 1.5 : 1) * m.ratedKw + 1e-9);
+          expect(ph.kw, ph.name).toBeLessThanOrEqual(m.peakKw + 1e-9);
+        }
       }),
       RUNS,
     );

@@ -174,7 +174,7 @@ function pressSpeedLines(d: Design, relief: number): BomLine[] {
   return [
     {
       key: "press-flow-control", item: "Flow control valve, pressure-compensated, with reverse free-flow check", quantity: 1,
-      specification: `meter-in, in the cap line between valve port A and the cylinder: set to ${num(pc.settingLpm)} L/min${speed !== undefined ? ` (pressing at ${num(speed)} mm/s)` : ""}, controlled range reaching at least that, needs about ${num(pc.minDropBar)} bar across it to regulate; the check passes ${num(pc.returnFlowLpm)} L/min back from the cap end on the return; rated for at least ${relief} bar. Never in the rod-end line`,
+      specification: `meter-in, in the cap line between valve port A and the cylinder: set to ${num(pc.settingLpm, 2)} L/min${speed !== undefined ? ` (pressing at ${num(speed)} mm/s)` : ""}, controlled range reaching at least that, needs about ${num(pc.minDropBar)} bar across it to regulate; the check passes ${num(pc.returnFlowLpm)} L/min back from the cap end on the return; rated for at least ${relief} bar. Never in the rod-end line`,
       rating: { value: pc.settingLpm, unit: "L/min", label: "setting" },
     },
     {

@@ -76,6 +76,39 @@ describe("quick sizing", () => {
     await page.context().close();
   });
 
+  it("shows the phases of one cycle after sizing, on a wide screen, a phone and in print", async () => {
+    const page = await app.newPage();
+    // A hydration mismatch in the chart would show up as a console or page error.
+    const errors: string[] = [];
+    page.on("console", (m) => {
+      if (m.type() === "error") errors.push(m.text());
+    });
+    page.on("pageerror", (e) => errors.push(e.message));
+    // The server's HTML already holds the drawn chart (recharts 2.15 at a fixed size).
+    const html = await (await page.request.get("/quick-sizing")).text();
+    expect(html).toContain("data-cycle-chart");
+    expect(html).toContain('id="cycle-wide-pressure-clip"');
+    await page.goto("/quick-sizing");
+    await hydrated(page);
+    await page.getByText("More about the motion").click();
+    await page.getByLabel("Pressing stroke").fill("30");
+    await page.getByRole("textbox", { name: "Pressing speed" }).fill("10");
+    const chart = page.locator("[data-cycle-chart]");
+    await expect.poll(() => chart.locator('tr[data-cycle-phase="pressing"]').count(), { timeout: 15_000 }).toBe(1);
+    expect(errors).toEqual([]);
+    expect(await chart.locator('[data-cycle-size="wide"] svg.recharts-surface').first().isVisible()).toBe(true);
+    await chart.screenshot({ path: path.join(SCREENSHOTS, "cycle-chart-1280.png") });
+    await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-cycle-1280.png"), fullPage: true });
+    await page.setViewportSize({ width: 390, height: 844 });
+    expect(await chart.locator('[data-cycle-size="narrow"] svg.recharts-surface').first().isVisible()).toBe(true);
+    await chart.screenshot({ path: path.join(SCREENSHOTS, "cycle-chart-390.png") });
+    await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-390.png"), fullPage: true });
+    await page.emulateMedia({ media: "print" });
+    expect(await chart.locator('[data-cycle-size="wide"] svg.recharts-surface').first().isVisible()).toBe(true);
+    await chart.screenshot({ path: path.join(SCREENSHOTS, "cycle-chart-print.png") });
+    await page.context().close();
+  });
+
   it("works as a plain GET form without JavaScript, the new questions included", async () => {
     const context = await app.browser.newContext({ baseURL: app.baseUrl, javaScriptEnabled: false, viewport: { width: 1280, height: 860 } });
     const page = await context.newPage();

@@ -3,7 +3,6 @@ import type { Route } from "./+types/spec-revise";
 import { requireRole } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
 import { FieldErrors } from "~/services/errors.server";
-import { specOfOwner } from "~/services/spec-access.server";
 import { startRevision } from "~/services/specs.server";
 
 export function loader() {
@@ -12,12 +11,11 @@ export function loader() {
 
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requireRole(request, ["buyer"]);
-  const spec = await specOfOwner(user, params.specId);
   try {
-    await startRevision(spec);
+    await startRevision(user, params.specId);
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;
-    return redirectWithToast(request, `/specs/${spec.id}`, error.message);
+    return redirectWithToast(request, `/specs/${params.specId}`, error.message);
   }
-  return redirect(`/specs/${spec.id}/edit/machine`);
+  return redirect(`/specs/${params.specId}/edit/machine`);
 }

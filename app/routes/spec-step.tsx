@@ -49,7 +49,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 
   if (step === "review") {
     try {
-      await publish(spec, user, formData.get("cautionsRead") === "on");
+      await publish(user, spec.id, { cautionsRead: formData.get("cautionsRead") === "on" });
     } catch (error) {
       if (!(error instanceof FieldErrors)) throw error;
       return data({ publishError: error.message, result: null }, { status: 400 });
@@ -67,7 +67,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     return data({ result: submission.reply({ fieldErrors: { ...(submission.status === "error" ? submission.error : {}), ...tooLongErrors } as Record<string, string[]> }), publishError: null }, { status: 400 });
   }
   try {
-    await saveStep(spec, step, typed, submission.status === "success");
+    await saveStep(user, spec.id, { step, answers: typed, complete: submission.status === "success" });
   } catch (error) {
     if (!(error instanceof FieldErrors)) throw error;
     // Published meanwhile, e.g. from another tab: the step is not saved over the published spec.

@@ -8,7 +8,7 @@ import type { SpecStatus } from "~/models/spec.server";
 import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { removeAllAttachments } from "./attachments.server";
-import { shopPeopleToTell } from "./spec-access.server";
+import { shopPeopleToTell, specOfOwner } from "./spec-access.server";
 import { env } from "~/env.server";
 
 // Specs of a buyer organisation: drafts saved step by step, then published as revisions.
@@ -37,25 +37,27 @@ export function allAnswers(spec: Spec): FormValues {
 /** A draft, or a published spec the buyer is revising, can be edited in the form. */
 export const isEditable = (spec: Spec) => spec.status === "draft" || (spec.status === "open" && spec.revising);
 
-export async function saveStep(spec: Spec, step: FormStepId, answers: Record<string, string>, complete: boolean) {
-  await sequelize.transaction(async (transaction) => {
+export async function saveStep(user: User, specId: string | undefined, { step, answers, complete }: { step: FormStepId; answers: Record<string, string>; complete: boolean }): Promise<Spec> {
+  return sequelize.transaction(async (transaction) => {
     // Locked and read again: another tab may have published the spec since this one loaded it.
-    const locked = await Spec.findByPk(spec.id, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+    const locked = await specOfOwner(user, specId, { transaction, lock: true });
     if (!isEditable(locked)) throw new FieldErrors({ "": ["This spec was published meanwhile, perhaps from another tab; a published spec is changed by revising it."] });
     const completed = new Set(locked.completedSteps);
     if (complete) completed.add(step);
     else completed.delete(step);
     const title = step === "machine" && answers.title ? answers.title.trim().slice(0, 120) : locked.title;
-    await locked.update({ answers: { ...locked.answers, [step]: answers }, completedSteps: FORM_STEPS.filter((s) => completed.has(s)), title }, { transaction });
-    spec.set(locked.get());
+    return locked.update({ answers: { ...locked.answers, [step]: answers }, completedSteps: FORM_STEPS.filter((s) => completed.has(s)), title }, { transaction });
   });
 }
 
-export async function deleteDraft(user: User, spec: Spec) {
+/** Deletes one of the buyer's drafts with its files; returns the deleted spec (for its title). */
+export async function deleteDraft(user: User, specId: string | undefined): Promise<Spec> {
+  const spec = await specOfOwner(user, specId);
   if (spec.status !== "draft") throw new FieldErrors({ "": ["Only drafts can be deleted."] });
   // Files first: the rows go with the spec, the files on storage would be left behind.
   await removeAllAttachments(user, spec.id);
   await spec.destroy();
+  return spec;
 }
 
 /** The preliminary design of a draft's answers, or the problems that keep it from one. */
@@ -88,7 +90,8 @@ export async function listSpecs(user: User, query: { status?: SpecStatus; sort?:
  * Publishes a completed draft: freezes requirements and design into revision 1, opens it for
  * bids until its deadline, and queues an e-mail to every active shop user, all in one transaction.
  */
-export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
+export async function publish(user: User, specId: string | undefined, { cautionsRead }: { cautionsRead: boolean }): Promise<Spec> {
+  const spec = await specOfOwner(user, specId);
   if (!isEditable(spec)) throw new FieldErrors({ "": ["This spec is already published."] });
   const missing = FORM_STEPS.filter((s) => !spec.completedSteps.includes(s));
   if (missing.length) throw new FieldErrors({ "": [`Complete every step first (${missing.join(", ")}).`] });
@@ -149,13 +152,14 @@ export async function publish(spec: Spec, user: User, cautionsRead: boolean) {
       );
     }
   });
-  await spec.reload();
+  return spec.reload();
 }
 
 /** Starts revising a published spec; shops keep the current revision until the next is published. */
-export async function startRevision(spec: Spec) {
+export async function startRevision(user: User, specId: string | undefined): Promise<Spec> {
+  const spec = await specOfOwner(user, specId);
   if (spec.status !== "open") throw new FieldErrors({ "": ["Only a spec open for bids can be revised."] });
-  if (!spec.revising) await spec.update({ revising: true });
+  return spec.revising ? spec : spec.update({ revising: true });
 }
 
 export async function revisionsOf(spec: Spec) {

@@ -182,9 +182,8 @@ describe("comparison", () => {
     expect(byShop.data.comparison.columns.map((col: { shop: string }) => col.shop)).toEqual(["Alder Hydraulics", "Birch Fluid Power"]);
 
     // A new revision marks both offers as made on revision 1 until the shops offer again.
-    await startRevision(spec);
-    await spec.reload();
-    await publish(spec, buyer, true);
+    await startRevision(buyer, spec.id);
+    await publish(buyer, spec.id, { cautionsRead: true });
     const after = await visitor.get(bidsRoute.loader, `/specs/${spec.id}/bids`, { specId: spec.id });
     expect(after.data.comparison.columns.every((col: { olderRevision: boolean }) => col.olderRevision)).toBe(true);
     const shopPage = await (await signedIn(a)).get(specPage.loader, `/specs/${spec.id}`, { specId: spec.id });

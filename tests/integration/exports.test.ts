@@ -77,10 +77,9 @@ beforeAll(async () => {
   await offer(visitors.loser, firstBom, (i) => String(200 + 10 * i), { line: 1, description: "Motor from stock, one frame size up" }, { leadTimeWeeks: "8", terms: "Delivered, 14 days net" });
 
   // Revision 2 turns the ram horizontal: no load to hold, so the counterbalance valve goes.
-  await startRevision(spec);
-  await spec.reload();
-  await saveStep(spec, "machine", { ...SPEC_ANSWERS.machine, title: TITLE, orientation: "horizontal" }, true);
-  await publish(spec, people.buyer, true);
+  await startRevision(people.buyer, spec.id);
+  await saveStep(people.buyer, spec.id, { step: "machine", answers: { ...SPEC_ANSWERS.machine, title: TITLE, orientation: "horizontal" }, complete: true });
+  spec = await publish(people.buyer, spec.id, { cautionsRead: true });
   bom = await bomOf(spec);
   design = (await SpecRevision.findOne({ where: { specId: spec.id, number: 2 }, rejectOnEmpty: true })).axes[0].design as Design;
   await offer(visitors.winner, bom, (i) => (i === 0 ? "1,234.55" : String(20 + 5 * i)), { line: 3, description: "Welded tank, 160 L, powder-coated" }, { leadTimeWeeks: "12", terms: "Ex works, 30 days net" });

@@ -37,10 +37,9 @@ async function publishedWithDrawing(owner: User) {
   const upload = await call(attachmentsRoute.action, visitor.request(`/specs/${draft.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }), { specId: draft.id });
   expect(upload.status).toBeLessThan(400);
   for (const step of Object.keys(SPEC_ANSWERS) as (keyof typeof SPEC_ANSWERS)[]) {
-    await saveStep(draft, step, SPEC_ANSWERS[step] as Record<string, string>, true);
+    await saveStep(owner, draft.id, { step, answers: SPEC_ANSWERS[step] as Record<string, string>, complete: true });
   }
-  await publish(draft, owner, true);
-  return draft;
+  return publish(owner, draft.id, { cautionsRead: true });
 }
 
 /** Every way a shop reads a spec, with its answer's status. */

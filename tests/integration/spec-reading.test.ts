@@ -32,14 +32,14 @@ beforeAll(async () => {
   // A draft with a drawing uploaded through the form, then published.
   published = await createDraft(buyer);
   const quotation = { ...SPEC_ANSWERS.quotation, dateNeeded: needed, notes: "Paint RAL 5015.\nAccess through a 2 m door." };
-  for (const [step, answers] of Object.entries({ ...SPEC_ANSWERS, quotation })) await saveStep(published, step as keyof typeof SPEC_ANSWERS, answers, true);
+  for (const [step, answers] of Object.entries({ ...SPEC_ANSWERS, quotation })) await saveStep(buyer, published.id, { step: step as keyof typeof SPEC_ANSWERS, answers, complete: true });
   const form = new FormData();
   form.set("intent", "upload");
   form.append("files", new File([PDF_BYTES], "Lift frame.pdf", { type: "application/pdf" }));
   const uploaded = await call(attachments.action, owner.request(`/specs/${published.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }), { specId: published.id });
   expect(uploaded.status).toBe(200);
   attachmentId = uploaded.data.attachments[0].id;
-  await publish(published, buyer, true);
+  published = await publish(buyer, published.id, { cautionsRead: true });
   draft = await createDraft(buyer);
 });
 

@@ -54,12 +54,11 @@ type SpecOverrides = Partial<{ [K in keyof typeof SPEC_ANSWERS]: Partial<(typeof
 /** A spec published through the app's own services (revision 1, open for bids). */
 export async function makePublishedSpec(buyer: User, overrides: SpecOverrides = {}) {
   const { createDraft, saveStep, publish } = await import("~/services/specs.server");
-  const spec = await createDraft(buyer);
+  const draft = await createDraft(buyer);
   for (const step of Object.keys(SPEC_ANSWERS) as (keyof typeof SPEC_ANSWERS)[]) {
-    await saveStep(spec, step, { ...SPEC_ANSWERS[step], ...overrides[step] } as Record<string, string>, true);
+    await saveStep(buyer, draft.id, { step, answers: { ...SPEC_ANSWERS[step], ...overrides[step] } as Record<string, string>, complete: true });
   }
-  await publish(spec, buyer, true);
-  return spec;
+  return publish(buyer, draft.id, { cautionsRead: true });
 }
 
 let jobSerial = 0;

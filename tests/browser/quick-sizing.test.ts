@@ -64,9 +64,10 @@ describe("quick sizing", () => {
     await hydrated(page);
     expect(await page.getByLabel("Pressing stroke").isVisible()).toBe(false);
     await page.getByText("More about the motion").click();
-    expect(await page.getByLabel("Pressing speed").count()).toBe(0);
+    expect(await page.getByRole("textbox", { name: "Pressing speed" }).count()).toBe(0);
     await page.getByLabel("Pressing stroke").fill("30");
-    const speed = page.getByLabel("Pressing speed");
+    // by role: the circuit diagram's description names the pressing-speed control too
+    const speed = page.getByRole("textbox", { name: "Pressing speed" });
     await expect.poll(() => speed.getAttribute("aria-invalid"), { timeout: 5_000 }).toBe("true");
     expect(await page.locator("#req-pressSpeedMmS-error").innerText()).toMatch(/needed when there is a pressing stroke/);
     await speed.fill("10");

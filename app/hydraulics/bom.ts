@@ -200,14 +200,24 @@ function regenerationLines(d: Design, relief: number): BomLine[] {
   if (!rg) return [];
   const dv = d.directionalValve;
   const ratedLpm = Math.max(rg.rodOutflowLpm, d.flowsLpm.pump);
-  const when = rg.switchBar !== null
+  const when = rg.endsBy === "pressure-switch"
     ? "energised with solenoid a for the approach and de-energised by the pressure switch, so the pressing force is built on the full area"
-    : "energised with solenoid a for the whole extension";
+    : rg.endsBy === "limit-switch"
+      ? `energised with solenoid a for the approach and de-energised by the limit switch where the pressing stroke starts${d.pressSpeedControl ? " (the one that also ends the flow control's bypass)" : ""}, so the pressing is done on the full area`
+      : "energised with solenoid a for the whole extension";
   const lines: BomLine[] = [{
     key: "regeneration-valve", item: "Regeneration valve, 3/2 solenoid, in the rod line at the valve stack", quantity: 1,
     specification: `de-energised joins the rod end to valve port B (normal work); energised joins it to the cap line with port B closed, so the rod end's ${num(rg.rodOutflowLpm)} L/min joins the pump flow and ${num(rg.capInflowLpm)} L/min enter the cap end; ${when}; ISO 4401-${dv.iso4401Size} interface as the directional valve (sandwich plate or own subplate), at least ${num(ratedLpm)} L/min and ${relief} bar, ${dv.coilVoltage} coil`,
     rating: { value: ratedLpm, unit: "L/min", label: "rated flow" },
   }];
+  // With a pressing stroke the limit switch of the pressing-speed control ends it; without one, its own.
+  if (rg.endsBy === "limit-switch" && !d.pressSpeedControl) {
+    lines.push({
+      key: "regeneration-limit-switch", item: "Limit switch (or inductive proximity switch), end of the regenerative approach", quantity: 1,
+      specification: `adjustable on the axis, ${num(d.requirements.pressStrokeMm)} mm before the end of the extension; de-energises the regeneration valve so the pressing stroke runs on the full area`,
+      rating: { value: d.requirements.pressStrokeMm, unit: "mm", label: "pressing stroke" },
+    });
+  }
   if (rg.switchBar !== null) {
     lines.push({
       key: "regeneration-pressure-switch", item: "Pressure switch on the cap line (ends the regenerative approach)", quantity: 1,

@@ -69,7 +69,9 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
     components.push({
       id: "regen", kind: "regen", ports: ["1", "2"], label: "Regeneration valve, solenoid, normally closed",
       values: {
-        normally: "closed", energised: rg.switchBar !== null ? "during the approach, until the pressure switch trips" : "with solenoid a, for the whole extension",
+        normally: "closed",
+        energised: rg.endsBy === "pressure-switch" ? "during the approach, until the pressure switch trips"
+          : rg.endsBy === "limit-switch" ? "during the approach, until the limit switch where the pressing stroke starts" : "with solenoid a, for the whole extension",
         capInflowLpm: rg.capInflowLpm, rodOutflowLpm: rg.rodOutflowLpm, ...(rg.switchBar !== null ? { switchBar: rg.switchBar } : {}),
         coilVoltage: d.directionalValve.coilVoltage,
       },

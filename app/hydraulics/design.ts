@@ -108,7 +108,9 @@ export interface RegenerationDesign {
   rodOutflowLpm: number;
   /** v_regen / v_retract = A3 / A_rod */
   speedRatioToRetract: number;
-  /** pressure switch that ends the approach before a pressing force; null where the whole extension regenerates */
+  /** what ends it: the limit switch where a pressing stroke starts, a pressure switch before a force at the end of the stroke, or the end of the extension */
+  endsBy: "limit-switch" | "pressure-switch" | "end-of-extension";
+  /** the pressure switch's setting where one ends it, else null */
   switchBar: number | null;
   /** why regeneration pays here, in words */
   reason: string;

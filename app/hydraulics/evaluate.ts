@@ -15,7 +15,7 @@ import { choosePump, type PhaseDemand } from "./pump-choice";
 import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import {
   capInflowLpm, regenerationRuledOut, regenerationVerdict, regenSwitchFits, regenSwitchSettingBar, regenToRetractSpeedRatio, rodAreaMm2,
-  rodOutflowLpm,
+  rodOutflowLpm, type RegenEnd,
 } from "./regeneration";
 import type { Requirements } from "./requirements";
 import {
@@ -94,7 +94,9 @@ export interface RegenEvaluation {
   rodOutflowLpm: number;
   /** v_regen / v_retract = A3 / A_rod */
   speedRatioToRetract: number;
-  /** pressure switch that ends the approach before a pressing force; null without one */
+  /** what ends it: a pressure switch before a force at the end of the stroke, the limit switch where a pressing stroke starts, or the end of the extension */
+  endsBy: RegenEnd;
+  /** pressure switch setting where a pressure switch ends it, else null */
   switchBar: number | null;
   switchFits: boolean;
 }
@@ -276,13 +278,15 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const reliefBar = reliefSettingBar(workingBar);
   // Regenerating, the rod side stands Δp above the cap side; otherwise it carries the back-pressure.
   const rodSidePeakBar = Math.max(retractInletBar, cbv?.side === "rod" ? cbv.settingBar : regenerative ? extendInletBar + extendBackBar : extendBackBar);
-  // A pressing force after a regenerative approach: a pressure switch ends the approach once the
-  // pressure rises above it, and the force is built on the full cap area.
-  const switchBar = regenerative && req.processForceN > 0 ? regenSwitchSettingBar(extendMovingBar) : null;
+  // What ends a regenerative approach: with a pressing stroke the limit switch where it starts (the
+  // same position changes over to the pressing speed); with a force at the end of the stroke a
+  // pressure switch once the pressure rises above the approach's; the force is built on the full area.
+  const endsBy: RegenEnd = hasPressPhase ? "limit-switch" : req.processForceN > 0 ? "pressure-switch" : "end-of-extension";
+  const switchBar = regenerative && endsBy === "pressure-switch" ? regenSwitchSettingBar(extendMovingBar) : null;
   const regen: RegenEvaluation | null = regenerative
     ? {
         rodAreaMm2: aRod, capInflowLpm: capInLpm, rodOutflowLpm: rodOutLpm, speedRatioToRetract: regenToRetractSpeedRatio(a3, aRod),
-        switchBar, switchFits: switchBar === null || regenSwitchFits(switchBar, extendPressBar),
+        endsBy, switchBar, switchFits: switchBar === null || regenSwitchFits(switchBar, extendPressBar),
       }
     : null;
 
@@ -338,6 +342,7 @@ export function evaluateWithRegenerationChoice(ctx: SizingContext, cyl: Cylinder
       // It must meet every limit the full-area design meets: a higher approach pressure raises the
       // relief, and with it the stall thrust the rod must carry without buckling.
       passes: regen.pressureOk && regen.cbvOk && (regen.bucklingOk || !normal.bucklingOk),
+      endsBy: regen.regen!.endsBy,
       switchOver: regen.regen!.switchBar !== null ? { switchBar: regen.regen!.switchBar, pressBar: regen.extendPressBar } : null,
     },
   });

@@ -64,6 +64,11 @@ function regenerationTrail(t: Trail, d: Design, reason: string, vQp: { value: nu
     { Q_p: vQp, A3: v(c.annulusAreaMm2, "mm²"), A_rod: vRod }, "continuity [D]");
   t.add("regenerative approach speed over return speed", rg.speedRatioToRetract, "-", "v_regen / v_retract = A3 / A_rod on the same pump flow (equal at φ = 2)",
     { A3: v(c.annulusAreaMm2, "mm²"), A_rod: vRod }, REGEN_SOURCE);
+  if (rg.endsBy === "limit-switch") {
+    t.add("regeneration switched off", "at the start of the pressing stroke", "-",
+      "the limit switch where the pressing stroke starts de-energises the regeneration valve, so the pressing force is built on the full area (and the pressing speed is set on it)",
+      { pressStrokeMm: v(r.pressStrokeMm, "mm") }, "switch-over of a regenerative approach to full area before the work stroke: training texts on regenerative circuits [S]; a position switch, common practice [CP]");
+  }
   if (rg.switchBar !== null) {
     t.add("regeneration pressure switch setting", rg.switchBar, "bar",
       "p_s = max(1.15·p_approach, p_approach + 10 bar), rounded up to 5 bar, at most 0.8 × the pressing pressure: the switch de-energises the regeneration valve when the tool meets the work, and the control latches it until the return, since the pressure drops once the full area takes the force",

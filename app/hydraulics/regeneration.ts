@@ -12,6 +12,13 @@ import type { CylinderCandidate } from "./cylinder";
 import { num } from "./format";
 import type { PumpType } from "./pump-choice";
 
+/**
+ * What ends a regenerative approach: the limit switch where a pressing stroke starts, a pressure
+ * switch where the force comes at the end of the stroke, or nothing before the end of an
+ * extension that asks for no force.
+ */
+export type RegenEnd = "limit-switch" | "pressure-switch" | "end-of-extension";
+
 /** Rod (piston-rod cross-section) area A_rod = A1 − A3, the area regeneration leaves effective. */
 export const rodAreaMm2 = (cyl: Pick<CylinderCandidate, "capAreaMm2" | "annulusAreaMm2">): number => cyl.capAreaMm2 - cyl.annulusAreaMm2;
 
@@ -90,7 +97,8 @@ export interface RegenerationOptions {
     limitBar: number;
     /** every limit the full-area design meets is met too (pressures, counterbalance rating, buckling at the higher relief) */
     passes: boolean;
-    /** switch-over pressure and the pressing pressure it must stay below; null without a pressing force */
+    endsBy: RegenEnd;
+    /** switch-over pressure and the pressing pressure it must stay below; null without a pressure switch */
     switchOver: { switchBar: number; pressBar: number } | null;
   } | null;
 }
@@ -101,6 +109,11 @@ export interface RegenerationVerdict {
 }
 
 const f1 = (x: number): string => num(x);
+const SWITCHED_OFF: Record<RegenEnd, string> = {
+  "pressure-switch": ", switched off by a pressure switch so the force is built on the full area",
+  "limit-switch": ", switched off where the pressing stroke starts so it presses on the full area",
+  "end-of-extension": "",
+};
 
 /**
  * Regeneration pays where it lets a smaller pump (at least one displacement size step) give the
@@ -147,6 +160,6 @@ export function regenerationVerdict(o: RegenerationOptions): RegenerationVerdict
   }
   return {
     use: true,
-    reason: `the approach on the rod area needs ${f1(r.approachBar)} bar, within the ${f1(r.limitBar)} bar limit, and a ${f1(r.displacementCc)} cm³/rev pump gives the asked speed where full-area extension needs ${f1(o.normal.displacementCc)} cm³/rev (common practice: regeneration for a fast, low-force approach${r.switchOver ? ", switched off by a pressure switch so the force is built on the full area" : ""})`,
+    reason: `the approach on the rod area needs ${f1(r.approachBar)} bar, within the ${f1(r.limitBar)} bar limit, and a ${f1(r.displacementCc)} cm³/rev pump gives the asked speed where full-area extension needs ${f1(o.normal.displacementCc)} cm³/rev (common practice: regeneration for a fast, low-force approach${SWITCHED_OFF[r.endsBy]})`,
   };
 }

@@ -137,6 +137,9 @@ export function sizeCircuitParsed(req: Requirements): Design {
     pumpType: pump.type, pressFlowLpm: ev.flowPressLpm, pumpFlowLpm: qp, smallSectionLpm, areaRatio: cyl.areaRatio,
     pumpSideBar: compensated ? pump.compensatorBar! : ev.reliefBar, pressBar: ev.extendPressBar,
   });
+  // A regenerative approach joins the rod end's oil at the valve stack, upstream of the control in
+  // the cap line, so the bypass carries the cap inflow, not Q_p (continuity).
+  if (pressSpeedControl && regen) pressSpeedControl.bypassFlowLpm = Math.max(pressSpeedControl.bypassFlowLpm, regen.capInflowLpm);
 
   // The cap end at full stroke holds the highest extend pressure: where the pump stalls there,
   // the relief, or for a compensated pump its compensator setting (it destrokes below the relief).
@@ -313,7 +316,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
       ? {
           rodAreaMm2: regen.rodAreaMm2, speedMmS: ev.extendActualMmS, forceAtWorkingN: cylinderForceN(workingPressureBar, regen.rodAreaMm2, eta),
           capInflowLpm: regen.capInflowLpm, rodOutflowLpm: regen.rodOutflowLpm, speedRatioToRetract: regen.speedRatioToRetract,
-          switchBar: regen.switchBar, reason: ev.regenReason,
+          endsBy: regen.endsBy, switchBar: regen.switchBar, reason: ev.regenReason,
         }
       : null,
     pressSpeedControl,
@@ -489,9 +492,12 @@ function addWarnings(
   }
   const rg = d.regeneration;
   if (rg) {
-    w.add("REGENERATIVE_APPROACH", rg.switchBar !== null
-      ? `The approach runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a, and its pressure switch ends it at ${f1(rg.switchBar)} bar and must be latched until the return, or the axis would fall back to regenerating as the pressure drops on the full area. While regenerating the rod gives only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area.`
-      : `The whole extension runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a. The rod then pushes with only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area; enough for this axis, which asks for no force at the end of the stroke.`);
+    const weak = `While regenerating the rod gives only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area.`;
+    w.add("REGENERATIVE_APPROACH", rg.endsBy === "pressure-switch"
+      ? `The approach runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a, and its pressure switch ends it at ${f1(rg.switchBar ?? 0)} bar and must be latched until the return, or the axis would fall back to regenerating as the pressure drops on the full area. ${weak}`
+      : rg.endsBy === "limit-switch"
+        ? `The approach runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a and de-energise it at the limit switch where the pressing stroke starts, so the pressing is done on the full area. ${weak}`
+        : `The whole extension runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a. The rod then pushes with only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area; enough for this axis, which asks for no force at the end of the stroke.`);
   }
   if (d.heat.coolerKw > 0) {
     w.add("HEAT_COOLER_NEEDED",

@@ -53,7 +53,10 @@ describe("the textbook regenerative-circuit relations, with the shared sources' 
 });
 
 describe("when regeneration pays (common practice) — the rule on its own", () => {
-  const regen = { displacementCc: 40, speedRatioToRetract: 1.04, approachBar: 14.4, limitBar: 145.5, passes: true, switchOver: { switchBar: 25, pressBar: 67.7 } };
+  const regen = {
+    displacementCc: 40, speedRatioToRetract: 1.04, approachBar: 14.4, limitBar: 145.5, passes: true,
+    endsBy: "pressure-switch" as const, switchOver: { switchBar: 25, pressBar: 67.7 },
+  };
   it("is used where the force fits on the rod area and the pump is at least one size step smaller", () => {
     expect(regenerationVerdict({ ruledOut: null, normal: { displacementCc: 80, pumpType: "fixed" }, regen }).use).toBe(true);
   });
@@ -183,6 +186,19 @@ describe("worked example — a long horizontal feed with 50 kN at the end of a 1
     expect(full.motor.ratedKw).toBeGreaterThan(d.motor.ratedKw);
     expect(full.bom.some((b) => b.key.startsWith("regeneration"))).toBe(false);
     expect(full.circuit.components.some((c) => c.kind === "regen")).toBe(false);
+  });
+
+  it("with a 20 mm pressing stroke and a fixed pump, the limit switch that starts the pressing stroke ends it (common practice)", () => {
+    const d2 = sizeCircuit({ ...axis, pressStrokeMm: 20, pressSpeedMmS: 10, pumpType: "fixed" });
+    expect(d2.regenerative).toBe(true);
+    expect(d2.regeneration).toMatchObject({ endsBy: "limit-switch", switchBar: null });
+    // the pressing itself runs at full area: Q_press = A1·v_press = 7853.98·10·0.06/1000 = 4.71 L/min (continuity [D])
+    expect(d2.flowsLpm.press).toBeCloseTo(4.71, 2);
+    // the meter-in control's bypass sits in the cap line past the join, so it carries the 112.45 L/min cap inflow
+    expect(d2.pressSpeedControl!.bypassFlowLpm).toBeCloseTo(112.45, 2);
+    expect(d2.bom.some((b) => b.key === "regeneration-pressure-switch")).toBe(false);
+    expect(d2.bom.find((b) => b.key === "regeneration-valve")!.specification).toMatch(/limit switch where the pressing stroke starts/);
+    expect(d2.trail.find((t) => t.quantity === "regeneration switched off")!.value).toBe("at the start of the pressing stroke");
   });
 
   it("a clamp held at its force keeps regeneration: the cap-end check passes the cap inflow", () => {

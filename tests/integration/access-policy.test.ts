@@ -18,8 +18,17 @@ import {
   type Viewer,
 } from "~/auth/access-policy.server";
 import { Bid, Job, Organisation, Payment, Spec, User } from "~/models/index.server";
-import { createDraft } from "~/services/specs.server";
-import { inDays, makeJob, makeMember, makeOperatorUser } from "../support/factories";
+import { createDraft, deleteDraft, publish, saveStep, startRevision } from "~/services/specs.server";
+import { saveBid, withdrawBid } from "~/services/bids.server";
+import { awardBid } from "~/services/award.server";
+import { answerQuestion, askQuestion } from "~/services/questions.server";
+import { addManagerNote, addProgressNote, reachMilestones } from "~/services/jobs.server";
+import { requestRefund, startRetainerPayment } from "~/services/payments.server";
+import { decideShop } from "~/services/shop-approval.server";
+import { assignAccountManager, changeRole, setActive } from "~/services/admin.server";
+import { sendAgain } from "~/services/outbox-admin.server";
+import { inviteColleague } from "~/services/accounts.server";
+import { inDays, makeJob, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 
 // buyer: the records' buyer · other buyer: another buyer account · shop: the job's shop (approved)
 // other shop: another approved shop · pending: a shop awaiting approval · manager: the buyer
@@ -76,10 +85,11 @@ function parse(table: string) {
 }
 
 const viewers = {} as Record<Person, Viewer>;
+const people = {} as Record<Person, User>;
 const records = {} as Record<string, (Model & { id: string }) | null>;
 
 beforeAll(async () => {
-  const users: Record<Person, User> = {
+  const users: Record<Person, User> = Object.assign(people, {
     buyer: await makeMember("buyer"),
     "other buyer": await makeMember("buyer"),
     shop: await makeMember("shop"),
@@ -88,7 +98,7 @@ beforeAll(async () => {
     manager: await makeOperatorUser("account_manager"),
     "other mgr": await makeOperatorUser("account_manager"),
     admin: await makeOperatorUser("admin"),
-  };
+  });
   // Operator staff share one operator organisation, as in the product.
   await users.manager.update({ organisationId: users.admin.organisationId });
   await users["other mgr"].update({ organisationId: users.admin.organisationId });
@@ -179,5 +189,50 @@ describe("loading inside a scope", () => {
       const refused = await findInScope(Job, jobsWhere(viewers["other shop"]), id, { missing: "No such job." }).catch((e) => e);
       expect(refused.init?.status).toBe(404);
     }
+  });
+});
+
+// Commands take (viewer, id, input) and authorise inside, whoever calls them: the person refused
+// here gets the policy's answer (404 where the record is not theirs to know, 403 otherwise) and
+// nothing changes.
+describe("commands refuse the wrong person themselves", () => {
+  const id = (name: string) => records[name]!.id;
+  const COMMANDS: [string, Person, 403 | 404, () => Promise<unknown>][] = [
+    ["saveStep: another buyer", "other buyer", 404, () => saveStep(people["other buyer"], id("draft-spec"), { step: "machine", answers: { title: "Taken over" }, complete: false })],
+    ["publish: a shop", "shop", 404, () => publish(people.shop, id("published-spec"), { cautionsRead: true })],
+    ["startRevision: the account's manager", "manager", 404, () => startRevision(people.manager, id("published-spec"))],
+    ["deleteDraft: another buyer", "other buyer", 404, () => deleteDraft(people["other buyer"], id("draft-spec"))],
+    ["saveBid: the buyer", "buyer", 404, () => saveBid(people.buyer, id("published-spec"), { intent: "save", lines: [] })],
+    ["saveBid: a pending shop", "pending", 404, () => saveBid(people.pending, id("published-spec"), { intent: "save", lines: [] })],
+    ["withdrawBid: an admin", "admin", 404, () => withdrawBid(people.admin, id("published-spec"))],
+    ["awardBid: the shop", "shop", 404, () => awardBid(people.shop, id("published-spec"), { bidId: id("offered-bid") })],
+    ["askQuestion: the buyer", "buyer", 404, () => askQuestion(people.buyer, id("published-spec"), { body: "Why?" })],
+    ["answerQuestion: a shop", "other shop", 404, () => answerQuestion(people["other shop"], id("published-spec"), { questionId: id("job"), answer: "No." })],
+    ["reachMilestones: the buyer", "buyer", 403, () => reachMilestones(people.buyer, id("job"), { milestone: "drawings_agreed", note: "" })],
+    ["addProgressNote: another shop", "other shop", 404, () => addProgressNote(people["other shop"], id("job"), { body: "Hello" })],
+    ["addManagerNote: the shop", "shop", 403, () => addManagerNote(people.shop, id("job"), { body: "Internal" })],
+    ["addManagerNote: another account's manager", "other mgr", 404, () => addManagerNote(people["other mgr"], id("job"), { body: "Internal" })],
+    ["startRetainerPayment: the account's manager", "manager", 403, () => startRetainerPayment(people.manager, id("job"))],
+    ["requestRefund: the buyer", "buyer", 403, () => requestRefund(people.buyer, id("payment"), { reason: "Mine" })],
+    ["requestRefund: another account's manager", "other mgr", 404, () => requestRefund(people["other mgr"], id("payment"), { reason: "Not mine" })],
+    ["decideShop: an account manager", "manager", 403, () => decideShop(people.manager, id("pending-shop"), { decision: "approve" })],
+    ["assignAccountManager: an account manager", "manager", 403, () => assignAccountManager(people.manager, id("buyer-account"), { managerId: people.manager.id })],
+    ["changeRole: an account manager", "manager", 403, () => changeRole(people.manager, people.manager.id, "admin")],
+    ["setActive: a buyer", "buyer", 403, () => setActive(people.buyer, people["other buyer"].id, false)],
+    ["sendAgain: an account manager", "manager", 403, () => sendAgain(people.manager, id("job"))],
+    ["inviteColleague into the operator: an account manager", "manager", 403, () => inviteColleague(people.manager, uniqueEmail("staff"), "admin")],
+  ];
+
+  it.each(COMMANDS)("%s", async (_name, _person, status, command) => {
+    await expect(command()).rejects.toMatchObject({ init: { status } });
+  });
+
+  it("left every record as it was", async () => {
+    const draft = await Spec.findByPk(id("draft-spec"), { rejectOnEmpty: true });
+    expect(draft.title).not.toBe("Taken over");
+    expect((await Spec.findByPk(id("published-spec"), { rejectOnEmpty: true })).status).toBe("open");
+    expect((await Organisation.findByPk(id("pending-shop"), { rejectOnEmpty: true })).approval).toBe("pending");
+    expect((await User.findByPk(people.manager.id, { rejectOnEmpty: true })).role).toBe("account_manager");
+    expect((await User.findByPk(people["other buyer"].id, { rejectOnEmpty: true })).active).toBe(true);
   });
 });

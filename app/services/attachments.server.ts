@@ -69,6 +69,7 @@ export function cleanFileName(raw: string): string {
   const base = raw.split(/[\\/]/).pop() ?? "";
   const cleaned = base
     .normalize("NFC")
+    // eslint-disable-next-line no-control-regex -- removing control characters is the point
     .replace(/[\u0000-\u001f\u007f-\u009f\u200b-\u200f\u202a-\u202e\u2066-\u2069\ufeff]/g, "")
     .replace(/["*:<>?|]/g, "_")
     .replace(/\s+/g, " ")

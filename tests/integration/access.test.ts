@@ -16,6 +16,7 @@ import { makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- every route's own args type, called alike
 type Loader = (args: any) => unknown;
 const PAGES: { path: string; loader: Loader; allowed: Role[] }[] = [
   { path: "/specs", loader: specs.loader, allowed: ["buyer"] },

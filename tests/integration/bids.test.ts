@@ -44,7 +44,7 @@ describe("a shop's bid", () => {
     // A draft may leave lines unpriced; nothing is offered yet.
     const draft = await post(visitor, spec.id, { intent: "save", ...bidFields(bom, (_, i) => (i === 0 ? "1000" : null), { leadTimeWeeks: "", validUntil: "" }) });
     expect(draft.status).toBe(302);
-    let bid = await Bid.findOne({ where: { specId: spec.id, organisationId: shop.organisationId }, rejectOnEmpty: true });
+    const bid = await Bid.findOne({ where: { specId: spec.id, organisationId: shop.organisationId }, rejectOnEmpty: true });
     expect(bid.status).toBe("draft");
     expect(bid.version).toBe(0);
     expect(bid.lines[0].unitPriceCents).toBe(100_000);

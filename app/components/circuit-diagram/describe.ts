@@ -41,7 +41,6 @@ export function circuitTitle(circuit: Circuit): string {
 /** One sentence per component, in the order a reader follows the oil from the tank. */
 export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
   const get = (kind: CircuitComponent["kind"]) => find(circuit, kind);
-  const pump = get("pump");
   const motor = get("motor");
   const relief = get("relief");
   const vent = get("vent");

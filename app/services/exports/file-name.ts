@@ -4,6 +4,7 @@
 // COM1; most file systems stop at 255 bytes. Non-ASCII letters stay: the download's header
 // carries them in an RFC 5987 filename* beside an ASCII fallback (contentDisposition).
 
+// eslint-disable-next-line no-control-regex -- control characters are among what a file name may not hold
 const FORBIDDEN = /[/\\:*?"<>|\u0000-\u001f\u007f-\u009f]/g;
 const WINDOWS_DEVICES = /^(con|prn|aux|nul|com[0-9]|lpt[0-9])(\..*)?$/i;
 /** Characters of the title kept; with the suffix the name stays far below 255 bytes of UTF-8. */

@@ -2,7 +2,7 @@ import { Link } from "react-router";
 import type { Route } from "./+types/account";
 import { requireRole } from "~/auth/permissions.server";
 import { OPERATOR_ROLES } from "~/auth/roles";
-import { Badge, Card, PageHeader } from "~/components/ui";
+import { Badge, Card, PageHeader, TableScroll } from "~/components/ui";
 import { accountOf } from "~/services/admin.server";
 import { listJobs } from "~/services/jobs.server";
 import { JOB_STAGE_LABELS } from "~/content/job-milestones";
@@ -65,7 +65,7 @@ export default function Account({ loaderData }: Route.ComponentProps) {
       </Card>
       <Card>
         <h2 className="mb-3 font-semibold">People</h2>
-        <table className="w-full text-left text-sm">
+        <TableScroll label="People"><table className="w-full min-w-[30rem] text-left text-sm">
           <thead className="text-ink-600">
             <tr>
               <th className="py-2">Name</th>
@@ -84,7 +84,7 @@ export default function Account({ loaderData }: Route.ComponentProps) {
               </tr>
             ))}
           </tbody>
-        </table>
+        </table></TableScroll>
       </Card>
     </>
   );

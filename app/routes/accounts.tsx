@@ -3,7 +3,7 @@ import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/accounts";
 import { requireRole } from "~/auth/permissions.server";
 import { OPERATOR_ROLES } from "~/auth/roles";
-import { Card, EmptyState, PageHeader } from "~/components/ui";
+import { Card, EmptyState, PageHeader, TableScroll } from "~/components/ui";
 import { accountsOf } from "~/services/admin.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "My accounts · Tenderflow" }];
@@ -37,7 +37,7 @@ export default function Accounts({ loaderData }: Route.ComponentProps) {
         </EmptyState>
       ) : (
         <Card>
-          <table className="w-full text-left text-sm">
+          <TableScroll label="Accounts"><table className="w-full min-w-[40rem] text-left text-sm">
             <thead className="text-ink-600">
               <tr>
                 <th className="py-2">Account</th>
@@ -60,7 +60,7 @@ export default function Accounts({ loaderData }: Route.ComponentProps) {
                 </tr>
               ))}
             </tbody>
-          </table>
+          </table></TableScroll>
         </Card>
       )}
     </>

@@ -4,7 +4,7 @@ import type { Route } from "./+types/admin.mail";
 import { requireRole } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
 import { formatMoment } from "~/content/dates";
-import { Badge, Button, Card, Notice, PageHeader, Pager } from "~/components/ui";
+import { Badge, Button, Card, Notice, PageHeader, Pager, TableScroll } from "~/components/ui";
 import { mailListQuerySchema, sendAgainSchema } from "~/schemas/outbox";
 import { FieldErrors } from "~/services/errors.server";
 import { MAX_ATTEMPTS } from "~/services/mail.server";
@@ -66,7 +66,7 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
             {d.view === "failed" ? "No failed mail: everything queued has gone out or is still being tried." : "No mail has been waiting long."}
           </p>
         ) : (
-          <table className="w-full text-left text-sm">
+          <TableScroll label="Mail queue"><table className="w-full min-w-[40rem] text-left text-sm">
             <thead className="text-ink-600">
               <tr>
                 <th className="py-2">Recipient</th>
@@ -104,7 +104,7 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
                 </tr>
               ))}
             </tbody>
-          </table>
+          </table></TableScroll>
         )}
         <Pager page={d.page} pageCount={d.pageCount} search={searchParams} />
       </Card>

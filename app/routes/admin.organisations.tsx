@@ -4,7 +4,7 @@ import type { Route } from "./+types/admin.organisations";
 import { requireRole } from "~/auth/permissions.server";
 import { KIND_LABELS, ORGANISATION_KINDS } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
 import { formatDay } from "~/content/dates";
 import { APPROVALS, APPROVAL_LABELS, APPROVAL_TONES, REFUSAL_REASON_MAX, type Approval } from "~/content/shop-approval";
 import { assignManagerSchema, listQuerySchema } from "~/schemas/admin";
@@ -199,7 +199,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
             ))}
           </select>
         </SearchBar>
-        <table className="w-full text-left text-sm">
+        <TableScroll label="Organisations"><table className="w-full min-w-[40rem] text-left text-sm">
           <thead className="text-ink-600">
             <tr>
               <th className="py-2">Organisation</th>
@@ -263,7 +263,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
               </tr>
             ))}
           </tbody>
-        </table>
+        </table></TableScroll>
         {loaderData.organisations.length === 0 ? <p className="py-6 text-center text-ink-600">No organisation matches that search.</p> : null}
         <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>

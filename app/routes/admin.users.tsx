@@ -5,7 +5,7 @@ import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS, type Role } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
 import { FieldErrors as FieldErrorText } from "~/components/form-field";
 import { listQuerySchema, userActionSchema } from "~/schemas/admin";
 import { confirmOwnPassword } from "~/services/accounts.server";
@@ -96,8 +96,8 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
       {actionData?.confirm ? <ConfirmRoleChange confirm={actionData.confirm} /> : null}
       <Card>
         <SearchBar label="Search users" placeholder="Name, e-mail or organisation" value={searchParams.get("q") ?? ""} />
-        <div className="overflow-x-auto">
-          <table className="w-full text-left text-sm">
+        <TableScroll label="Users">
+          <table className="w-full min-w-[40rem] text-left text-sm">
             <thead className="text-ink-600">
               <tr>
                 <th className="py-2">Name</th>
@@ -163,7 +163,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
               ))}
             </tbody>
           </table>
-        </div>
+        </TableScroll>
         {loaderData.users.length === 0 ? <p className="py-6 text-center text-ink-600">No user matches that search.</p> : null}
         <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>

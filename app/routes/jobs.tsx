@@ -4,7 +4,7 @@ import { RetainerBadge } from "~/components/retainer-badge";
 import { requireUser } from "~/auth/permissions.server";
 import type { Role } from "~/auth/roles";
 import { JobsByStageChart } from "~/components/jobs-by-stage-chart";
-import { Badge, Card, EmptyState, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { Badge, Card, EmptyState, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
 import { formatMoney } from "~/content/currencies";
 import { formatDay } from "~/content/dates";
 import { JOB_STAGES, JOB_STAGE_LABELS } from "~/content/job-milestones";
@@ -96,8 +96,8 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
             <p className="mb-2 text-sm text-ink-600">
               {d.total} job{d.total === 1 ? "" : "s"}. Overdue jobs come first, then the most recently awarded.
             </p>
-            <div className="overflow-x-auto">
-              <table className="w-full text-left text-sm">
+            <TableScroll label="Jobs">
+              <table className="w-full min-w-[40rem] text-left text-sm">
                 <thead className="text-ink-600">
                   <tr>
                     <th scope="col" className="py-2">Spec</th>
@@ -148,7 +148,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                   ))}
                 </tbody>
               </table>
-            </div>
+            </TableScroll>
             {d.jobs.length === 0 ? <p className="py-6 text-center text-ink-600">No job matches these filters.</p> : null}
             <Pager page={d.page} pageCount={d.pageCount} search={params} />
           </Card>

@@ -2,7 +2,7 @@ import { Form, Link, useSearchParams } from "react-router";
 import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/open-specs";
 import { requireRole } from "~/auth/permissions.server";
-import { Badge, Button, Card, EmptyState, Notice, PageHeader, Pager } from "~/components/ui";
+import { Badge, Button, Card, EmptyState, Notice, PageHeader, Pager, TableScroll } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { OPEN_SPEC_SORTS, OPEN_SPEC_SORT_LABELS, readOpenSpecsQuery, type OpenSpecParam } from "~/schemas/open-specs";
 import { listOpenSpecsForShop } from "~/services/open-specs.server";
@@ -166,8 +166,8 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
             <p className="mt-1">Try a wider pressure or flow range, a later closing date or part of a region's name.</p>
           </div>
         ) : (
-          <div className="overflow-x-auto">
-            <table className="w-full text-left text-sm">
+          <TableScroll label="Open specs">
+            <table className="w-full min-w-[40rem] text-left text-sm">
               <thead className="text-ink-600">
                 <tr>
                   <th scope="col" className="py-2">Spec</th>
@@ -207,7 +207,7 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         )}
         <Pager page={d.page} pageCount={d.pageCount} search={searchParams} />
       </Card>

@@ -1,7 +1,7 @@
 import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/payments";
 import { requireRole } from "~/auth/permissions.server";
-import { Badge, Button, Card, EmptyState, PageHeader, Pager } from "~/components/ui";
+import { Badge, Button, Card, EmptyState, PageHeader, Pager, TableScroll } from "~/components/ui";
 import { formatMoney } from "~/content/currencies";
 import { formatMoment } from "~/content/dates";
 import { PAYMENT_STATUSES, PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
@@ -68,8 +68,8 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
             <p>A retainer is paid by card after a bid is awarded; each attempt is listed here with its status.</p>
           </EmptyState>
         ) : (
-          <div className="overflow-x-auto">
-            <table className="w-full text-left text-sm">
+          <TableScroll label="Payments">
+            <table className="w-full min-w-[40rem] text-left text-sm">
               <thead className="text-ink-600">
                 <tr>
                   <th scope="col" className="py-2 pr-3">Job</th>
@@ -107,7 +107,7 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         )}
         <Pager page={d.page} pageCount={d.pageCount} search={params} />
       </Card>

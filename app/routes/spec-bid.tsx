@@ -7,7 +7,7 @@ import type { Route } from "./+types/spec-bid";
 import { requireRole } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
 import { FieldErrors as FieldErrorText, TextField } from "~/components/form-field";
-import { Badge, Button, Card, Notice, PageHeader } from "~/components/ui";
+import { Badge, Button, Card, Notice, PageHeader, TableScroll } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/bid-status";
 import { formatMoney } from "~/content/currencies";
 import { bidSchema, linesMatchBill } from "~/schemas/bid";
@@ -170,7 +170,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
               Enter the price of one item; the line total is that times the quantity. If you would fit a different part, tick “Alternative” and say what it
               is. Enter 0 for a line included in another.
             </p>
-            <div className="overflow-x-auto">
+            <TableScroll label="Prices by line">
               <table className="w-full min-w-[44rem] text-left text-sm">
                 <thead className="text-ink-600">
                   <tr>
@@ -245,7 +245,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                   </tr>
                 </tfoot>
               </table>
-            </div>
+            </TableScroll>
           </Card>
 
           <Card className="grid gap-5 sm:grid-cols-2">

@@ -3,7 +3,7 @@ import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/spec-bids";
 import { requireRole } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
-import { Badge, Button, ButtonLink, Card, EmptyState, Notice, PageHeader } from "~/components/ui";
+import { Badge, Button, ButtonLink, Card, EmptyState, Notice, PageHeader, TableScroll } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { formatMoney } from "~/content/currencies";
 import { SPEC_STATUS_LABELS, type SpecStatus } from "~/content/spec-status";
@@ -149,8 +149,8 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
             ))}
           </nav>
 
-          <div className="overflow-x-auto rounded-lg bg-white ring-1 ring-ink-200">
-            <table className="w-full text-sm" data-testid="comparison">
+          <TableScroll label="Offers side by side" className="rounded-lg bg-white ring-1 ring-ink-200">
+            <table className="w-full min-w-[36rem] text-sm" data-testid="comparison">
               <caption className="sr-only">Offers by line; the lowest price of each line and the cheapest complete offer are marked.</caption>
               <thead>
                 <tr className="align-bottom">
@@ -246,7 +246,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 ) : null}
               </tfoot>
             </table>
-          </div>
+          </TableScroll>
         </>
       )}
     </>

@@ -4,7 +4,7 @@ import { z } from "zod";
 import type { Route } from "./+types/specs";
 import { requireRole } from "~/auth/permissions.server";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
-import { Badge, Button, Card, EmptyState, PageHeader } from "~/components/ui";
+import { Badge, Button, Card, EmptyState, PageHeader, TableScroll } from "~/components/ui";
 
 import { SPEC_SORTS, listSpecs } from "~/services/specs.server";
 import { offerCounts } from "~/services/bids.server";
@@ -85,7 +85,7 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
           {specs.length === 0 ? (
             <p className="py-6 text-center text-ink-600">No spec has that status.</p>
           ) : (
-            <table className="w-full text-left text-sm">
+            <TableScroll label="Specs"><table className="w-full min-w-[40rem] text-left text-sm">
               <thead className="text-ink-600">
                 <tr>
                   <th scope="col" className="py-2">Spec</th>
@@ -113,7 +113,7 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
                   </tr>
                 ))}
               </tbody>
-            </table>
+            </table></TableScroll>
           )}
         </Card>
       )}

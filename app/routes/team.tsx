@@ -7,7 +7,7 @@ import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS, TEAM_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { FormErrors, SelectField, TextField } from "~/components/form-field";
-import { Badge, Button, Card, PageHeader } from "~/components/ui";
+import { Badge, Button, Card, PageHeader, TableScroll } from "~/components/ui";
 import { inviteSchema } from "~/schemas/account";
 import { inviteColleague, teamOf } from "~/services/accounts.server";
 import { FieldErrors } from "~/services/errors.server";
@@ -59,7 +59,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
       <div className="grid gap-6 lg:grid-cols-3">
         <Card className="lg:col-span-2">
           <h2 className="mb-3 font-semibold">Members</h2>
-          <table className="w-full text-left text-sm">
+          <TableScroll label="Members"><table className="w-full min-w-[30rem] text-left text-sm">
             <thead className="text-ink-600">
               <tr>
                 <th className="py-2">Name</th>
@@ -80,7 +80,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
                 </tr>
               ))}
             </tbody>
-          </table>
+          </table></TableScroll>
           {loaderData.invitations.length ? (
             <>
               <h2 className="mb-3 mt-8 font-semibold">Invitations waiting for an answer</h2>

@@ -48,6 +48,17 @@ describe("each demo role signs in and sees its home", () => {
     const links = await page.getByRole("navigation", { name: "Main" }).getByRole("link").allTextContents();
     expect(links).toEqual(ROLES[3].nav);
     await page.screenshot({ path: path.join(SCREENSHOTS, "phone-menu-admin.png") });
+    await page.locator("header summary", { hasText: "Menu" }).click(); // closes it again
+    // A wide table scrolls sideways in its own box while its first column stays in view.
+    const users = page.getByRole("region", { name: "Users" });
+    expect(await users.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+    const firstCell = users.locator("tbody tr").first().locator("td").first();
+    const before = await firstCell.boundingBox();
+    await users.evaluate((el) => el.scrollBy({ left: 300 }));
+    await expect.poll(async () => (await users.evaluate((el) => el.scrollLeft)) > 0).toBe(true);
+    expect((await firstCell.boundingBox())!.x).toBeCloseTo(before!.x, 0);
+    await page.screenshot({ path: path.join(SCREENSHOTS, "phone-users-scrolled.png") });
+    await page.locator("header summary", { hasText: "Menu" }).click();
     await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Payments" }).click();
     await page.waitForURL("**/payments");
     await expect.poll(() => page.getByRole("navigation", { name: "Main" }).count()).toBe(0);

@@ -35,3 +35,11 @@ export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
 
 /** Pages for everyone, signed in or not. */
 export const PUBLIC_NAV: NavItem[] = [{ to: "/quick-sizing", label: "Quick sizing" }];
+
+/** Where a spec page's "back" leads: the list its reader came from. */
+export function specBackLink(reader: { role: Role; organisationId: string }, spec: { organisationId: string }): NavItem {
+  if (reader.role === "buyer" && spec.organisationId === reader.organisationId) return { to: "/specs", label: "My specs" };
+  if (reader.role === "account_manager") return { to: `/accounts/${spec.organisationId}`, label: "The account" };
+  if (reader.role === "admin") return { to: "/admin/organisations", label: "Organisations" };
+  return { to: "/open-specs", label: "Open specs" };
+}

@@ -3,6 +3,7 @@ import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/spec";
 import { requireUser } from "~/auth/permissions.server";
 import { can, viewerOf } from "~/auth/access-policy.server";
+import { specBackLink } from "~/auth/navigation";
 import { DesignReport } from "~/components/design-report";
 import { AxisRequirements } from "~/components/axis-requirements";
 import { Badge, Button, ButtonLink, Notice, PageHeader } from "~/components/ui";
@@ -21,14 +22,6 @@ import type { UnitSystem } from "~/units";
 
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.title ?? "Spec"} · Tenderflow` }];
-
-/** Where "back" leads: the list the reader came from. */
-function backLinkFor(user: { role: string; organisationId: string }, spec: { organisationId: string }) {
-  if (user.role === "buyer" && spec.organisationId === user.organisationId) return { to: "/specs", label: "My specs" };
-  if (user.role === "account_manager") return { to: `/accounts/${spec.organisationId}`, label: "The account" };
-  if (user.role === "admin") return { to: "/admin/organisations", label: "Organisations" };
-  return { to: "/open-specs", label: "Open specs" };
-}
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
@@ -64,7 +57,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     quotation: current ? quotationFacts(current.answers) : null,
     attachments,
     questions,
-    back: backLinkFor(user, spec),
+    back: specBackLink(user, spec),
   };
 }
 

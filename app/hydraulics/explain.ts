@@ -435,7 +435,10 @@ export function explain(
       : d.pump.type === "compensated"
         ? NEUTRAL_STANDBY
         : "P = p_relief·Q_p / (600·η): the rod does no work, the whole flow crosses the relief and all input power becomes heat",
-    { p_relief: vRelief, Q_p: vQp, η: v(d.pump.overallEfficiency, "-") }, "energy balance [D]; P = p·Q/600 [D]");
+    d.pump.type === "compensated"
+      ? { p_c: v(d.pump.compensatorBar ?? 0, "bar"), Q_leak: v(A.compensatorLeakShare.value * qp, "L/min"), Q_max: vQp }
+      : { p_relief: vRelief, Q_p: vQp, η: v(d.pump.overallEfficiency, "-") },
+    d.pump.type === "compensated" ? STANDBY_SOURCE : "energy balance [D]; P = p·Q/600 [D]");
   t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over approach, pressing, retract, dwell and neutral",
     { extend: v(h.extendLossKw, "kW"), retract: v(h.retractLossKw, "kW"), dwell: v(h.dwellLossKw, "kW"), neutral: v(h.neutralLossKw, "kW"), dwell_share: v(h.dwellShare, "-"), neutral_share: v(h.neutralShare, "-") }, "duty-cycle average [D]");
   t.add("cooler duty", h.coolerKw, "kW", "max(0, average heat − tank heat shed)",

@@ -46,14 +46,21 @@ export function chooseCylinder(ctx: SizingContext): Evaluation {
     if ((10 * ctx.minExtendHydraulicN) / cyl.capAreaMm2 > limit + 1e-6 || (10 * ctx.minRetractHydraulicN) / cyl.annulusAreaMm2 > limit + 1e-6) continue;
     // A hose a size or two larger is far cheaper than the next cylinder, pump and motor [CP].
     let fit: Evaluation | undefined;
+    let best: Evaluation | undefined;
     let maxUpsize = A.hoseUpsizeSteps.value;
     for (let upsize = 0; upsize <= maxUpsize; upsize++) {
       const ev = evaluateWithRegenerationChoice(ctx, cyl, upsize);
-      if (upsize === 0) maxUpsize = hoseUpsizeLimit(cyl, ev.lines.pressure.hoseIndex);
+      if (upsize === 0) maxUpsize = hoseUpsizeLimit(cyl, ev.lines);
       if (!ev.pressureOk || !ev.cbvOk) continue;
-      if (ev.bucklingOk) return ev;
+      // Of the hoses that pass, the smallest that gives the smallest pump: a larger hose costs
+      // less than a pump and motor step, and a regenerative approach may fit only with it.
+      if (ev.bucklingOk) {
+        if (!best || ev.displacementCc < best.displacementCc) best = ev;
+        continue;
+      }
       fit ??= ev;
     }
+    if (best) return best;
     // No rod passes buckling yet: keep the largest pair that meets the pressures (thickest rod),
     // and the BUCKLING_MARGIN warning says so.
     if (fit) pressureFit = fit;
@@ -64,16 +71,18 @@ export function chooseCylinder(ctx: SizingContext): Evaluation {
 
 /**
  * How many dash sizes above the velocity-limit size the search may take the hoses: two [CP], or
- * as far as the size the pressure line of this cylinder needs with the piston at the seal-speed
- * limit (about 0.5 m/s [M]), whichever is more. That bound belongs to the cylinder, not to the
- * flow asked: counted only from the velocity-limit size, a slower axis got smaller hoses with
- * larger losses (Δp ∝ v/d² in laminar flow), so a higher relief and stall thrust, and where that
- * decided buckling a larger cylinder and pump than its faster twin, which was allowed the hoses.
+ * until the smallest line reaches the size this cylinder's largest line (its return, φ·Q at the
+ * return-line limit) needs with the piston at the seal-speed limit (about 0.5 m/s [M]), whichever
+ * is more. That bound belongs to the cylinder, not to the flow asked: counted only from the
+ * velocity-limit size, a slower axis got smaller hoses with larger losses (Δp ∝ v/d² in laminar
+ * flow), so a higher relief and stall thrust, and where that decided buckling (or ruled out a
+ * regenerative approach) a larger cylinder or pump than its faster twin, which had the hoses.
  */
-function hoseUpsizeLimit(cyl: { capAreaMm2: number }, velocityLimitIndex: number): number {
-  const atSealLimitLpm = phaseFlowLpm(cyl.capAreaMm2, A.pistonSpeedLimitMmS.value);
-  const portSized = sizeLine(atSealLimitLpm, A.pressureVelocityLimit.value, A.pressureLineLengthM.value, DEFAULT_FLUID).hoseIndex;
-  return Math.max(A.hoseUpsizeSteps.value, portSized - velocityLimitIndex);
+function hoseUpsizeLimit(cyl: { capAreaMm2: number; areaRatio: number }, lines: Record<"pressure" | "capWork" | "rodWork" | "return", { hoseIndex: number }>): number {
+  const atSealLimitLpm = phaseFlowLpm(cyl.capAreaMm2, A.pistonSpeedLimitMmS.value) * Math.max(1, cyl.areaRatio);
+  const largest = sizeLine(atSealLimitLpm, A.returnVelocityLimit.value, A.returnLineLengthM.value, DEFAULT_FLUID).hoseIndex;
+  const smallest = Math.min(lines.pressure.hoseIndex, lines.capWork.hoseIndex, lines.rodWork.hoseIndex, lines.return.hoseIndex);
+  return Math.max(A.hoseUpsizeSteps.value, largest - smallest);
 }
 
 /** Why no pair fits, with the pressure the best pair needs, so the buyer knows what to change. */

@@ -179,7 +179,12 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                     </th>
                     {row.cells.map((cell, i) => (
                       <td key={columns[i].id} className={`p-3 text-right tabular-nums ${cell?.lowest ? "bg-flow-50 font-semibold text-flow-700" : columns[i].cheapestComplete ? "bg-flow-50/40" : ""}`}>
-                        {cell ? (
+                        {cell?.included ? (
+                          <span className="block text-ink-700" title="Priced 0: the shop includes this line elsewhere in its offer">
+                            Included
+                            <span className="block text-xs font-normal text-ink-600">in another line</span>
+                          </span>
+                        ) : cell ? (
                           <>
                             <span className="block">{money(cell.lineTotalCents)}</span>
                             {row.quantity > 1 ? <span className="block text-xs font-normal text-ink-600">{money(cell.unitPriceCents)} each</span> : null}
@@ -226,6 +231,23 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                   <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Valid until</th>
                   {columns.map((c) => (
                     <td key={c.id} className="p-3 text-right">{c.validUntil ? day(c.validUntil) : "—"}</td>
+                  ))}
+                </tr>
+                {/* What each price includes and on what terms, beside the prices, so nobody awards blind. */}
+                <tr className="border-t border-ink-100 align-top">
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Terms</th>
+                  {columns.map((c) => (
+                    <td key={c.id} className="p-3 text-left text-xs whitespace-pre-line text-ink-800" data-terms={c.id}>
+                      {c.terms || <span className="text-ink-400">none stated</span>}
+                    </td>
+                  ))}
+                </tr>
+                <tr className="border-t border-ink-100 align-top">
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Notes from the shop</th>
+                  {columns.map((c) => (
+                    <td key={c.id} className="p-3 text-left text-xs whitespace-pre-line text-ink-800" data-notes={c.id}>
+                      {c.notes || <span className="text-ink-400">none</span>}
+                    </td>
                   ))}
                 </tr>
                 {canAward ? (

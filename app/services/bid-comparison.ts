@@ -1,6 +1,7 @@
 // The buyer's side-by-side view of offered bids, pure so it is tested without a database:
 // lines down (the current bill first, then lines only older revisions had), bids across,
-// the lowest price per line and the cheapest complete offer marked.
+// the lowest price per line and the cheapest complete offer marked. A line priced 0 is
+// included elsewhere in that offer: it is shown as included, never as the lowest price.
 import type { BomLine } from "~/hydraulics";
 import type { BidLine } from "~/models/bid.server";
 import type { BidStatus } from "~/content/bid-status";
@@ -16,6 +17,9 @@ export interface ComparedBid {
   totalCents: number;
   leadTimeWeeks: number | null;
   validUntil: string | null;
+  /** the shop's delivery and payment terms, and its notes on the offer, as written */
+  terms: string;
+  notes: string;
 }
 
 export const COMPARISON_SORTS = ["total", "lead", "valid", "shop"] as const;
@@ -36,6 +40,8 @@ export interface ComparisonCell {
   lineTotalCents: number;
   alternative: boolean;
   alternativeDescription: string;
+  /** priced 0: the shop includes this line elsewhere in its offer */
+  included: boolean;
   lowest: boolean;
 }
 
@@ -68,12 +74,14 @@ export function compareBids(bom: BomLine[], currentRevision: number, bids: Compa
       const cells = priced.map((lines) => {
         const l = lines.get(line.key);
         if (!l) return null;
-        return { unitPriceCents: l.unitPriceCents!, lineTotalCents: lineTotalCents({ quantity: l.quantity, unitPriceCents: l.unitPriceCents! }), alternative: l.alternative, alternativeDescription: l.alternativeDescription, lowest: false };
+        const total = lineTotalCents({ quantity: l.quantity, unitPriceCents: l.unitPriceCents! });
+        return { unitPriceCents: l.unitPriceCents!, lineTotalCents: total, alternative: l.alternative, alternativeDescription: l.alternativeDescription, included: total === 0, lowest: false };
       });
-      const present = cells.filter((c): c is ComparisonCell => c !== null);
-      if (present.length > 1) {
-        const min = Math.min(...present.map((c) => c.lineTotalCents));
-        for (const c of present) c.lowest = c.lineTotalCents === min;
+      // Only real prices compete: an included line costs its price somewhere else in the offer.
+      const charged = cells.filter((c): c is ComparisonCell => c !== null && !c.included);
+      if (charged.length > 1) {
+        const min = Math.min(...charged.map((c) => c.lineTotalCents));
+        for (const c of charged) c.lowest = c.lineTotalCents === min;
       }
       return { key: line.key, item: line.item, quantity: line.quantity, specification: line.specification, inCurrentBill: line.inCurrentBill, cells };
     },

@@ -199,6 +199,8 @@ export async function comparisonOf(user: User, spec: Spec, sort: ComparisonSort 
       totalCents: b.totalCents,
       leadTimeWeeks: b.leadTimeWeeks,
       validUntil: b.validUntil,
+      terms: b.terms,
+      notes: b.notes,
     })),
     sort,
   );

@@ -28,7 +28,7 @@ afterAll(async () => {
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `bidding-${name}.png`), fullPage: true });
 
 /** Prices every line at `price`, the first line at `first`, and submits. */
-async function bid(page: Page, first: string, price: string, leadWeeks: string, alternative?: string) {
+async function bid(page: Page, first: string, price: string, leadWeeks: string, alternative?: string, includedLine?: number) {
   await page.goto("/open-specs");
   await page.getByRole("link", { name: "Forming press, main ram" }).click();
   await page.waitForURL(`**/specs/${spec.id}`);
@@ -38,7 +38,8 @@ async function bid(page: Page, first: string, price: string, leadWeeks: string, 
   const prices = page.locator('input[name$=".unitPrice"]');
   const count = await prices.count();
   expect(count).toBeGreaterThan(8);
-  for (let i = 0; i < count; i++) await prices.nth(i).fill(i === 0 ? first : price);
+  // A line priced 0 is included elsewhere in the offer.
+  for (let i = 0; i < count; i++) await prices.nth(i).fill(i === 0 ? first : i === includedLine ? "0" : price);
   if (alternative) {
     await page.getByRole("checkbox", { name: "Alternative" }).nth(1).check();
     await page.getByPlaceholder("Make, model and why").fill(alternative);
@@ -55,7 +56,7 @@ describe("bidding", () => {
     const first = await app.newPage();
     await signInAs(first, shops[0].email, PASSWORD);
     await first.waitForURL("**/open-specs");
-    const lines = await bid(first, "1500", "200", "12");
+    const lines = await bid(first, "1500", "200", "12", undefined, 2);
     await expect.poll(() => first.getByTestId("offer-total").textContent()).not.toBe("£0.00");
     await shot(first, "1-shop-form");
     await first.getByRole("button", { name: "Submit the offer" }).click();
@@ -87,6 +88,12 @@ describe("bidding", () => {
     await expect.poll(() => summary.textContent()).toContain("Fenwick Power Units");
     expect(await buyerPage.getByText("Cheapest complete", { exact: true }).count()).toBe(1);
     expect(await buyerPage.getByText("Alternative", { exact: true }).count()).toBe(1);
+    // The included line reads as included, not as the cheapest price of its row; each offer's terms sit beside its prices.
+    const comparison = buyerPage.getByTestId("comparison");
+    expect(await comparison.getByText("Included", { exact: false }).count()).toBe(1);
+    const includedRow = comparison.locator("tbody tr").nth(2);
+    expect(await includedRow.getByText("lowest", { exact: true }).count()).toBe(0);
+    expect(await comparison.getByText("Ex works, 30 days net.").count()).toBe(2);
     await shot(buyerPage, "3-comparison");
 
     await buyerPage.getByRole("link", { name: "Award to Fenwick Power Units" }).click();

@@ -72,7 +72,7 @@ const priced = (prices: (number | null)[], alternative = -1) =>
 const bid = (id: string, prices: (number | null)[], extra: Partial<ComparedBid> = {}): ComparedBid => {
   const lines = priced(prices);
   const set = lines.reduce((s, l) => s + l.quantity * (l.unitPriceCents ?? 0), 0);
-  return { id, shop: id, status: "submitted", specRevision: 2, lines, setTotalCents: set, totalCents: set, leadTimeWeeks: 10, validUntil: "2030-01-01", ...extra };
+  return { id, shop: id, status: "submitted", specRevision: 2, lines, setTotalCents: set, totalCents: set, leadTimeWeeks: 10, validUntil: "2030-01-01", terms: "", notes: "", ...extra };
 };
 
 describe("compareBids", () => {
@@ -89,6 +89,20 @@ describe("compareBids", () => {
       [false, false, true],
       [null, true, false],
     ]);
+  });
+
+  it("shows a line priced 0 as included elsewhere, never as the lowest price, and carries each offer's terms and notes", () => {
+    const result = compareBids(bom, 2, [
+      bid("bundled", [100, 0, 30], { terms: "Ex works, 30 days net.", notes: "Motor priced with the pump." }),
+      bid("itemised", [90, 60, 40]),
+      bid("third", [95, 55, 35]),
+    ]);
+    const motor = result.rows.find((r) => r.key === "motor")!;
+    const [bundled, itemised, third] = ["bundled", "itemised", "third"].map((id) => motor.cells[result.columns.findIndex((c) => c.id === id)]!);
+    expect(bundled).toMatchObject({ included: true, lowest: false, lineTotalCents: 0 });
+    // Among the charged prices (2 × 60 and 2 × 55) the lowest is the third shop's.
+    expect([itemised.lowest, third.lowest]).toEqual([false, true]);
+    expect(result.columns.find((c) => c.id === "bundled")).toMatchObject({ terms: "Ex works, 30 days net.", notes: "Motor priced with the pump.", complete: true });
   });
 
   it("flags bids on older revisions and keeps their lines that the current bill dropped", () => {

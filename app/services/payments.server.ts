@@ -134,10 +134,11 @@ export async function startRetainerPayment(user: User, jobId: string | undefined
   }
 }
 
-/** The payment a success page is about: the buyer's own, by its session id. */
+/** The payment a success page is about, by its session id: the buyer's own (or the account's staff's), never a shop's. */
 export async function paymentOfSession(user: User, jobId: string | undefined, sessionId: string | null) {
   const job = await scopedJob(user, jobId);
-  const payment = sessionId ? await Payment.findOne({ where: { jobId: job.id, checkoutSessionId: sessionId } }) : null;
+  const scope = paymentsWhere(await viewerOf(user));
+  const payment = sessionId ? await Payment.findOne({ where: { [Op.and]: [scope, { jobId: job.id, checkoutSessionId: sessionId }] } }) : null;
   if (!payment) notFound("No such payment.");
   return { job, payment };
 }

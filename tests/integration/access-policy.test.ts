@@ -23,7 +23,7 @@ import { saveBid, withdrawBid } from "~/services/bids.server";
 import { awardBid } from "~/services/award.server";
 import { answerQuestion, askQuestion } from "~/services/questions.server";
 import { addManagerNote, addProgressNote, reachMilestones } from "~/services/jobs.server";
-import { requestRefund, startRetainerPayment } from "~/services/payments.server";
+import { paymentOfSession, requestRefund, startRetainerPayment } from "~/services/payments.server";
 import { decideShop } from "~/services/shop-approval.server";
 import { assignAccountManager, changeRole, setActive } from "~/services/admin.server";
 import { sendAgain } from "~/services/outbox-admin.server";
@@ -182,6 +182,13 @@ describe("who may take which action", () => {
 });
 
 describe("loading inside a scope", () => {
+  it("shows a retainer payment's return page to its buyer, never to the job's shop", async () => {
+    const payment = records.payment as Payment;
+    await payment.update({ checkoutSessionId: "cs_matrix_return" });
+    expect((await paymentOfSession(people.buyer, payment.jobId, "cs_matrix_return")).payment.id).toBe(payment.id);
+    await expect(paymentOfSession(people.shop, payment.jobId, "cs_matrix_return")).rejects.toMatchObject({ init: { status: 404 } });
+  });
+
   it("answers the record to its reader and 404 to anyone else, or for a malformed id", async () => {
     const job = records.job!;
     expect((await findInScope(Job, jobsWhere(viewers.shop), job.id, { missing: "No such job." })).id).toBe(job.id);

@@ -38,3 +38,18 @@ export const HOME_BY_ROLE: Record<Role, string> = {
 
 /** Roles that see their organisation's team page and invite colleagues. */
 export const TEAM_ROLES = ["buyer", "shop", "admin"] as const satisfies readonly Role[];
+
+/**
+ * Who may open which area's pages (the page gate, `requireRole`); which records a page shows
+ * and what may be done with them is the access policy's (access-policy.server.ts).
+ */
+export const PAGE_ROLES = {
+  /** A buyer's own specs: the list, the form, files, the bid comparison and the award, answers. */
+  ownSpecs: ["buyer"],
+  /** Open specs, the bid form and questions. */
+  bidding: ["shop"],
+  team: TEAM_ROLES,
+  accounts: OPERATOR_ROLES,
+  payments: ["buyer", ...OPERATOR_ROLES],
+  administration: ["admin"],
+} as const satisfies Record<string, readonly Role[]>;

@@ -2,6 +2,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { Form, Link, data, useSearchParams } from "react-router";
 import type { Route } from "./+types/admin.mail";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { formatMoment } from "~/content/dates";
 import { Badge, Button, Card, Notice, PageHeader, Pager, TableScroll } from "~/components/ui";
@@ -13,14 +14,14 @@ import { WAITING_LONG_MINUTES, mailNeedingAttention, sendAgain, type MailView } 
 export const meta: Route.MetaFunction = () => [{ title: "Mail · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireRole(request, ["admin"]);
+  await requireRole(request, PAGE_ROLES.administration);
   const query = mailListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const view: MailView = query.show ?? "failed";
   return { view, maxAttempts: MAX_ATTEMPTS, waitingMinutes: WAITING_LONG_MINUTES, ...(await mailNeedingAttention(view, query.page)) };
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const admin = await requireRole(request, ["admin"]);
+  const admin = await requireRole(request, PAGE_ROLES.administration);
   const submission = parseWithZod(await request.formData(), { schema: sendAgainSchema });
   if (submission.status !== "success") return data({ error: "Choose a mail to send again." }, { status: 400 });
   try {

@@ -2,7 +2,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { Form, data, useSearchParams } from "react-router";
 import type { Route } from "./+types/admin.organisations";
 import { requireRole } from "~/auth/permissions.server";
-import { KIND_LABELS, ORGANISATION_KINDS } from "~/auth/roles";
+import { KIND_LABELS, ORGANISATION_KINDS, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
 import { formatDay } from "~/content/dates";
@@ -16,7 +16,7 @@ import { countWaitingShops, decideShop, shopsAwaitingApproval } from "~/services
 export const meta: Route.MetaFunction = () => [{ title: "Organisations · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireRole(request, ["admin"]);
+  await requireRole(request, PAGE_ROLES.administration);
   const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const [{ organisations, total, page, pageCount }, managers, waiting, waitingTotal] = await Promise.all([
     listOrganisations(query),
@@ -48,7 +48,7 @@ type ActionResult = { error: string; organisationId?: string };
 
 /** Approving or refusing a shop (intent "approve" / "refuse"), or assigning an account manager. */
 async function decide(request: Request, formData: FormData) {
-  const admin = await requireRole(request, ["admin"]);
+  const admin = await requireRole(request, PAGE_ROLES.administration);
   const submission = parseWithZod(formData, { schema: shopDecisionSchema });
   const organisationId = String(formData.get("organisationId") ?? "");
   if (submission.status !== "success") {
@@ -71,7 +71,7 @@ async function decide(request: Request, formData: FormData) {
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const admin = await requireRole(request, ["admin"]);
+  const admin = await requireRole(request, PAGE_ROLES.administration);
   const formData = await request.formData();
   if (formData.has("intent")) return decide(request, formData);
   const submission = parseWithZod(formData, { schema: assignManagerSchema });

@@ -3,7 +3,7 @@ import { formatDay } from "~/content/dates";
 import { Form, Link, data, useSearchParams } from "react-router";
 import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
-import { ROLES_BY_KIND, ROLE_LABELS, type Role } from "~/auth/roles";
+import { ROLES_BY_KIND, ROLE_LABELS, type Role, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
 import { FieldErrors as FieldErrorText } from "~/components/form-field";
@@ -24,7 +24,7 @@ type ActionData = { error?: string; confirm?: RoleConfirmation };
 export const meta: Route.MetaFunction = () => [{ title: "Users · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const admin = await requireRole(request, ["admin"]);
+  const admin = await requireRole(request, PAGE_ROLES.administration);
   const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const { users, total, page, pageCount } = await listUsers(query);
   return {
@@ -47,7 +47,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action(args: Route.ActionArgs) {
   const { request } = args;
-  const admin = await requireRole(request, ["admin"]);
+  const admin = await requireRole(request, PAGE_ROLES.administration);
   const submission = parseWithZod(await request.formData(), { schema: userActionSchema });
   if (submission.status !== "success") return data<ActionData>({ error: "That change was not understood." }, { status: 400 });
   const back = new URL(request.url);

@@ -2,6 +2,7 @@ import { Form, Link, useSearchParams } from "react-router";
 import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/open-specs";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { Badge, Button, Card, EmptyState, Notice, PageHeader, Pager, TableScroll } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { OPEN_SPEC_SORTS, OPEN_SPEC_SORT_LABELS, readOpenSpecsQuery, type OpenSpecParam } from "~/schemas/open-specs";
@@ -14,7 +15,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Open specs · Tenderflo
 const FILTERS: OpenSpecParam[] = ["q", "region", "deadline", "pressureMin", "pressureMax", "flowMin", "flowMax"];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireRole(request, ["shop"]);
+  const user = await requireRole(request, PAGE_ROLES.bidding);
   const { query, problems, typed } = readOpenSpecsQuery(new URL(request.url).searchParams);
   // A shop not approved yet lists nothing (the service refuses it too) and reads why instead.
   const [{ specs, total, page, pageCount }, approval] = await Promise.all([listOpenSpecsForShop(user, query), approvalStateOf(user)]);

@@ -1,6 +1,7 @@
 import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/payments";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { Badge, Button, Card, EmptyState, PageHeader, Pager, TableScroll } from "~/components/ui";
 import { formatMoney } from "~/content/currencies";
 import { formatMoment } from "~/content/dates";
@@ -11,7 +12,7 @@ import { listPayments } from "~/services/payments.server";
 export const meta: Route.MetaFunction = () => [{ title: "Payments · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireRole(request, ["buyer", "account_manager", "admin"]);
+  const user = await requireRole(request, PAGE_ROLES.payments);
   const query = paymentListSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const { payments, total, page, pageCount } = await listPayments(user, query);
   return {

@@ -5,6 +5,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { Form, Link, data, useNavigation } from "react-router";
 import type { Route } from "./+types/spec-bid";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { FieldErrors as FieldErrorText, TextField } from "~/components/form-field";
 import { Badge, Button, Card, Notice, PageHeader, TableScroll } from "~/components/ui";
@@ -19,7 +20,7 @@ import { specForReader } from "~/services/spec-access.server";
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Your bid · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const user = await requireRole(request, ["shop"]);
+  const user = await requireRole(request, PAGE_ROLES.bidding);
   const spec = await specForReader(user, params.specId);
   const [bom, bid] = await Promise.all([bomOf(spec), bidOfShop(user, spec)]);
   const history = bid ? await historyOf(bid) : [];
@@ -71,7 +72,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const user = await requireRole(request, ["shop"]);
+  const user = await requireRole(request, PAGE_ROLES.bidding);
   const spec = await specForReader(user, params.specId);
   const formData = await request.formData();
   const back = `/specs/${spec.id}/bid`;

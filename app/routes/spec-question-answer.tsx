@@ -2,6 +2,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { data, redirect } from "react-router";
 import type { Route } from "./+types/spec-question-answer";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { answerSchema } from "~/schemas/questions";
 import { FieldErrors, requireId } from "~/services/errors.server";
@@ -15,7 +16,7 @@ export function loader({ params }: Route.LoaderArgs) {
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const user = await requireRole(request, ["buyer"]);
+  const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   const spec = await specOfOwner(user, params.specId);
   const questionId = requireId(params.questionId);
   const submission = parseWithZod(await request.formData(), { schema: answerSchema });

@@ -2,6 +2,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { data, redirect } from "react-router";
 import type { Route } from "./+types/spec-questions";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { questionSchema } from "~/schemas/questions";
 import { FieldErrors, requireId } from "~/services/errors.server";
@@ -15,7 +16,7 @@ export function loader({ params }: Route.LoaderArgs) {
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const user = await requireRole(request, ["shop"]);
+  const user = await requireRole(request, PAGE_ROLES.bidding);
   const spec = await specForReader(user, params.specId);
   const submission = parseWithZod(await request.formData(), { schema: questionSchema });
   if (submission.status !== "success") return data(submission.reply(), { status: 400 });

@@ -1,6 +1,7 @@
 import { redirect } from "react-router";
 import type { Route } from "./+types/spec-revise";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { FieldErrors } from "~/services/errors.server";
 import { startRevision } from "~/services/specs.server";
@@ -10,7 +11,7 @@ export function loader() {
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const user = await requireRole(request, ["buyer"]);
+  const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   try {
     await startRevision(user, params.specId);
   } catch (error) {

@@ -2,6 +2,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { Link, data, redirect } from "react-router";
 import type { Route } from "./+types/spec-step";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { SpecProgress } from "~/components/spec-progress";
 import { SpecReview } from "~/components/spec-review";
 import { SpecStepForm } from "~/components/spec-step-form";
@@ -18,7 +19,7 @@ import type { UnitSystem } from "~/units";
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.stepTitle ?? "Spec"} · ${d?.spec.title || "New spec"} · Tenderflow` }];
 
 async function load(request: Request, params: { specId?: string; step?: string }) {
-  const user = await requireRole(request, ["buyer"]);
+  const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   const spec = await specOfOwner(user, params.specId);
   if (!isSpecStep(params.step)) notFound("No such step.");
   return { user, spec, step: params.step };

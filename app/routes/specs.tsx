@@ -3,6 +3,7 @@ import { formatDay } from "~/content/dates";
 import { z } from "zod";
 import type { Route } from "./+types/specs";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
 import { Badge, Button, Card, EmptyState, PageHeader, TableScroll } from "~/components/ui";
 
@@ -17,7 +18,7 @@ const querySchema = z.object({
 });
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireRole(request, ["buyer"]);
+  const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   const query = querySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const specs = await listSpecs(user, query);
   const offers = await offerCounts(specs.filter((s) => s.status !== "draft").map((s) => s.id));

@@ -77,7 +77,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                 <option value="unpaid">Retainer not paid</option>
                 <option value="refunded">Retainer paid back (part or all)</option>
               </select>
-              {d.role !== "buyer" && d.accounts.length > 0 ? (
+              {d.accounts.length > 0 ? (
                 <>
                   <label className="sr-only" htmlFor="account">Buyer account</label>
                   <select id="account" name="account" defaultValue={params.get("account") ?? ""} className={selectClass}>

@@ -194,7 +194,7 @@ export interface JobList {
   pageCount: number;
   /** Jobs per stage under the other filters (every stage listed, zeros included). */
   byStage: { stage: JobStage; count: number }[];
-  /** The buyer accounts among the viewer's jobs, for the account filter. */
+  /** The buyer accounts among the viewer's jobs, for the account filter (none for a buyer). */
   accounts: { id: string; name: string }[];
 }
 
@@ -228,8 +228,9 @@ export async function listJobs(viewer: User, query: JobListQuery, options: { lim
   const counted = new Map(stageCounts.map((c) => [c.stage ?? "awaiting_retainer", Number(c.count)]));
 
   const accountIds = (await Job.count({ where: scope, group: ["buyerOrganisationId"] })) as unknown as { buyerOrganisationId: string }[];
+  // The viewer's own organisation is no account to filter by: a buyer's jobs are all its own.
   const accounts = await Organisation.findAll({
-    where: { id: accountIds.map((a) => a.buyerOrganisationId) },
+    where: { id: accountIds.map((a) => a.buyerOrganisationId).filter((id) => id !== viewer.organisationId) },
     attributes: ["id", "name"],
     order: [["name", "ASC"]],
   });

@@ -458,6 +458,14 @@ describe("the job dashboard", () => {
     expect(ids(other)).toEqual([jobs.elsewhere]);
   });
 
+  it("offers the account filter to those whose jobs span accounts, not to a buyer", async () => {
+    const buyerList = await (await signedIn(account)).get(jobsPage.loader, "/jobs");
+    expect(ids(buyerList)).toHaveLength(4);
+    expect(buyerList.data.accounts).toEqual([]);
+    const shopList = await (await signedIn(shop)).get(jobsPage.loader, "/jobs");
+    expect(shopList.data.accounts.map((a: { name: string }) => a.name)).toEqual(["Lindqvist Balers", "Ostrava Stamping"]);
+  });
+
   it("shows an account's jobs on its account page", async () => {
     const res = await managerV.get(accountPage.loader, `/accounts/${account.organisationId}`, { organisationId: account.organisationId });
     expect(res.status).toBe(200);

@@ -4,14 +4,14 @@ import type { UnitSystem } from "~/units/systems";
 import { centreName, circuitDescription, circuitTitle, numberValue, textValue } from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
 import {
-  BOX, CBV_HALF_W, DECOMPRESSION_STUB, DIAMOND, FC_HALF_W, GAUGE_R, MOTOR_R, POC_HALF_W, PUMP_R, RELIEF_BOX, TANK_H, VENT_BOX,
+  BOX, CBV_HALF_W, DECOMPRESSION_STUB, DIAMOND, FC_HALF_W, GAUGE_R, MOTOR_R, POC_HALF_W, PUMP_R, REGEN_BOX, RELIEF_BOX, SWITCH_HALF, TANK_H, VENT_BOX,
   layoutCircuit, type Layout,
 } from "./circuit-diagram/layout";
 import { junctions, pathData, routeConnections, type Route } from "./circuit-diagram/routes";
 import {
   COMPENSATOR_W, Caption, CbvSymbol, CheckSymbol, CoolerSymbol, CylinderSymbol, DASH, DcvSymbol, DecompressionSymbol, FilterSymbol,
-  FlowControlSymbol, GaugeSymbol, MotorSymbol, PocSymbol, PortLabel, PumpSymbol, ReliefSymbol, STROKE, SolenoidValve22, TankSymbol,
-  UnloadingSymbol, VentValveSymbol,
+  FlowControlSymbol, GaugeSymbol, LimitSwitchSymbol, MotorSymbol, PocSymbol, PortLabel, PressureSwitchSymbol, PumpSymbol, RegenValveSymbol,
+  ReliefSymbol, STROKE, SolenoidValve22, TankSymbol, UnloadingSymbol, VentValveSymbol,
 } from "./circuit-diagram/symbols";
 
 /**
@@ -225,14 +225,44 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         </>
       );
     case "regen": {
-      const values = ["2/2, normally closed", "rod end into the cap line", ...v("switchBar", (p) => `switched off at ${u.pressure(p)}`)];
+      // the 3/2 valve is drawn from its positions; a stored design from before they were data has none
+      const positions = c.positions;
+      if (!positions) return null;
+      const port3Side = layout.pilotSide[c.id] ?? "left";
+      const until = numberValue(c, "switchBar") !== undefined ? [`until ${u.pressure(numberValue(c, "switchBar")!)}`] : [];
       return (
         <>
-          <SolenoidValve22 id={c.id} kind="regen" centre={at} ports="horizontal" normally="closed" portNames={["2", "1"]} flowFrom="1" />
-          <PortLabel x={at.x - VENT_BOX / 2 - 4} y={at.y - 5} anchor="end" port={`${c.id}.2`}>2</PortLabel>
-          <PortLabel x={at.x + VENT_BOX / 2 + 4} y={at.y - 5} anchor="start" port={`${c.id}.1`}>1</PortLabel>
-          {/* above the solenoid: one line per value */}
-          <Caption x={at.x} y={at.y - VENT_BOX * 1.5 - 16 - 12 - 14 * values.length} anchor="middle" name="Regeneration valve" values={values} />
+          <RegenValveSymbol id={c.id} centre={at} port3Side={port3Side} positions={positions} />
+          <Caption
+            x={port3Side === "left" ? at.x + REGEN_BOX / 4 + 30 : at.x - REGEN_BOX / 4 - 30} y={at.y - 8} anchor={port3Side === "left" ? "start" : "end"}
+            name="Regeneration valve" values={["3/2; energised, the rod end", "feeds the cap line", ...until]}
+          />
+        </>
+      );
+    }
+    case "pressure-switch":
+      return (
+        <>
+          <PressureSwitchSymbol id={c.id} centre={at} />
+          <Caption
+            x={at.x - SWITCH_HALF - 30} y={at.y - 4} anchor="end" name="Pressure switch"
+            values={[...v("settingBar", (p) => `set ${u.pressure(p)}`), "ends the regeneration"]}
+          />
+        </>
+      );
+    case "limit-switch": {
+      const off = (textValue(c, "switchesOff") ?? "").split(",").map((x) => x.trim());
+      return (
+        <>
+          <LimitSwitchSymbol id={c.id} at={at} rodEnd={layout.cylinder.rodEnd} />
+          <Caption
+            x={layout.width - 12} y={28} anchor="end" name="Limit switch"
+            values={[
+              ...v("beforeEndMm", (mm) => `${u.length(mm)} before the end`),
+              ...(off.includes("press-bypass") ? ["closes the bypass"] : []),
+              ...(off.includes("regen") ? ["ends the regeneration"] : []),
+            ]}
+          />
         </>
       );
     }

@@ -4,7 +4,7 @@
  * pump's unloading valve and check, the compensated pump's settings, the cooler and the
  * decompression valve. Port names as the trade marks them; every port listed is joined.
  */
-import type { CircuitComponent, CircuitConnection, Design } from "./design";
+import type { CircuitComponent, CircuitConnection, Design, SolenoidValvePositions } from "./design";
 
 export interface CircuitPart {
   components: CircuitComponent[];
@@ -64,8 +64,8 @@ export function pumpParts(d: Design): CircuitPart {
 /**
  * The two work lines from the directional valve to the cylinder, with their in-line valves.
  * Each in-line valve has port 2 towards the directional valve and 1 towards the cylinder.
- * Order from the valve: the meter-in flow control (cap line), the counterbalance valve, the
- * pilot-operated check. The check sits on the cylinder port because its poppet seat is what
+ * Order from the valve: the regeneration valve (rod line, at the valve stack), the meter-in flow
+ * control (cap line), the counterbalance valve, the pilot-operated check. The check sits on the cylinder port because its poppet seat is what
  * holds the load without drift: nothing that leaks (the counterbalance valve's seat, hose
  * joints) may sit between it and the cylinder. The counterbalance valve, between it and the
  * directional valve, still meters the lowering, since all the oil passes both.
@@ -81,6 +81,13 @@ export function workLines(d: Design): CircuitPart {
   /** the valve port feeding the other work line: a pilot from there opens a valve in this one */
   const opposite = (side: "cap" | "rod") => (side === "cap" ? "dcv.B" : "dcv.A");
 
+  const regen = regenerationValve(d);
+  if (regen) {
+    // first in the rod line from the valve: it sits at the valve stack
+    components.push(regen);
+    chain.rod.push(regen.id);
+    connections.push({ from: `${regen.id}.3`, to: "dcv.A", line: "work" });
+  }
   if (control) {
     // Meter-in: the control sets the flow 2 → 1 into the cap end; its check lets the return out freely.
     components.push(
@@ -128,6 +135,69 @@ export function workLines(d: Design): CircuitPart {
     return line;
   });
   return { components, connections: [...lines, ...connections, ...pilots] };
+}
+
+/**
+ * Regeneration valve, a 3/2 solenoid valve with spring return in the rod line at the valve stack
+ * (textbook regenerative circuit with a separate regeneration valve). Ports:
+ * - 1 to the cylinder's rod port,
+ * - 2 to the directional valve's port B,
+ * - 3 to the cap work line (joined to port A).
+ * De-energised it joins 1 to 2 and blocks 3: the rod line works as if the valve were not there.
+ * Energised (the regenerative approach) it joins 1 to 3 and blocks 2, so the rod end's outflow
+ * joins the pump flow into the cap end instead of reaching tank through B (which the
+ * directional valve joins to T while it extends).
+ */
+export const regenerationValvePositions = (): SolenoidValvePositions => ({ normal: [["1", "2"]], energised: [["1", "3"]] });
+
+function regenerationValve(d: Design): CircuitComponent | null {
+  const rg = d.regeneration;
+  if (!rg) return null;
+  return {
+    id: "regen", kind: "regen", ports: ["1", "2", "3"], label: "Regeneration valve, 3/2 solenoid, spring return, in the rod line",
+    positions: regenerationValvePositions(),
+    values: {
+      normally: "rod port to B",
+      energised: rg.endsBy === "pressure-switch" ? "during the approach, until the pressure switch trips"
+        : rg.endsBy === "limit-switch" ? "during the approach, until the limit switch where the pressing stroke starts" : "with solenoid a, for the whole extension",
+      capInflowLpm: rg.capInflowLpm, rodOutflowLpm: rg.rodOutflowLpm, ...(rg.switchBar !== null ? { switchBar: rg.switchBar } : {}),
+      coilVoltage: d.directionalValve.coilVoltage,
+    },
+  };
+}
+
+/**
+ * The switches the control needs, one component for each billed switch, with the bill's key as
+ * its id. The pressure switch is drawn on the line it senses, the cap line (joined at valve port
+ * A, where the rod end's oil joins it), as ISO 1219-1 draws a pressure switch. A limit switch is
+ * worked by the rod, not by the oil, so it has no port: a fluid-power diagram marks it at the
+ * cylinder, at the point of the stroke where it is worked (common practice).
+ */
+export function switchParts(d: Design): CircuitPart {
+  const rg = d.regeneration;
+  const components: CircuitComponent[] = [];
+  const connections: CircuitConnection[] = [];
+  const byLimit = rg?.endsBy === "limit-switch";
+  const beforeEndMm = d.requirements.pressStrokeMm;
+  if (d.pressSpeedControl) {
+    components.push({
+      id: "press-limit-switch", kind: "limit-switch", ports: [], label: "Limit switch, start of the pressing stroke",
+      values: { beforeEndMm, switchesOff: byLimit ? "press-bypass, regen" : "press-bypass" },
+    });
+  } else if (byLimit) {
+    components.push({
+      id: "regeneration-limit-switch", kind: "limit-switch", ports: [], label: "Limit switch, end of the regenerative approach",
+      values: { beforeEndMm, switchesOff: "regen" },
+    });
+  }
+  if (rg && rg.switchBar !== null) {
+    components.push({
+      id: "regeneration-pressure-switch", kind: "pressure-switch", ports: ["port"], label: "Pressure switch on the cap line, ends the regenerative approach",
+      values: { settingBar: rg.switchBar, switchesOff: "regen", latched: "until the return stroke" },
+    });
+    connections.push({ from: "dcv.A", to: "regeneration-pressure-switch.port", line: "work" });
+  }
+  return { components, connections };
 }
 
 /** Return line: the filter, then the cooler where the tank cannot shed the heat, then the tank. */

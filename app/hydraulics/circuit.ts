@@ -1,5 +1,5 @@
 import type { Circuit, CircuitComponent, CircuitConnection, DcvPositions, Design } from "./design";
-import { decompressionParts, pumpParts, returnLine, workLines } from "./circuit-parts";
+import { decompressionParts, pumpParts, returnLine, switchParts, workLines } from "./circuit-parts";
 import { dcvPositions } from "./valves";
 
 /**
@@ -47,7 +47,7 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
     ...back.connections,
   ];
   components.push(...back.components, ...work.components, ...decompression.components);
-  // the work lines with their in-line valves and pilots (circuit-parts.ts)
+  // the work lines with their in-line valves (the regeneration valve among them) and pilots (circuit-parts.ts)
   connections.push(...work.connections, ...decompression.connections);
   // The vent valve goes last so the work-line connections keep their order for readers.
   if (vent) {
@@ -62,21 +62,9 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
   }
   // the double pump's large section, check and unloading valve after the rest, as the vent valve
   connections.push(...pump.connections);
-  // Regeneration valve at the valve stack [CP]: port 1 from the rod work line, 2 to the cap work
-  // line, normally closed, energised during the approach so the rod end's outflow joins the cap inflow.
-  const rg = d.regeneration;
-  if (rg) {
-    components.push({
-      id: "regen", kind: "regen", ports: ["1", "2"], label: "Regeneration valve, solenoid, normally closed",
-      values: {
-        normally: "closed",
-        energised: rg.endsBy === "pressure-switch" ? "during the approach, until the pressure switch trips"
-          : rg.endsBy === "limit-switch" ? "during the approach, until the limit switch where the pressing stroke starts" : "with solenoid a, for the whole extension",
-        capInflowLpm: rg.capInflowLpm, rodOutflowLpm: rg.rodOutflowLpm, ...(rg.switchBar !== null ? { switchBar: rg.switchBar } : {}),
-        coilVoltage: d.directionalValve.coilVoltage,
-      },
-    });
-    connections.push({ from: "dcv.B", to: "regen.1", line: "work" }, { from: "regen.2", to: "dcv.A", line: "work" });
-  }
+  // the switches that end the approach, after the parts they switch off (circuit-parts.ts)
+  const switches = switchParts(d);
+  components.push(...switches.components);
+  connections.push(...switches.connections);
   return { components, connections, dcvPositions: positions };
 }

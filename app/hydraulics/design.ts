@@ -120,10 +120,23 @@ export interface CircuitComponent {
   id: string;
   kind:
     | "pump" | "motor" | "relief" | "vent" | "dcv" | "cbv" | "cylinder" | "tank" | "filter" | "gauge" | "strainer" | "regen"
-    | "poc" | "cooler" | "decompression" | "unloading" | "check" | "flow-control" | "bypass";
+    | "poc" | "cooler" | "decompression" | "unloading" | "check" | "flow-control" | "bypass"
+    | "pressure-switch" | "limit-switch";
+  /** a limit switch has none: it is worked by the rod, not by the oil */
   ports: string[];
   label?: string;
   values?: Record<string, number | string>;
+  /** a two-position solenoid valve's port pairs in each position, as dcvPositions for the 4/3 valve */
+  positions?: SolenoidValvePositions;
+}
+
+/**
+ * Port pairs a spring-return solenoid valve joins in each of its two positions; ports not
+ * listed are blocked. normal = de-energised (spring-held), energised = solenoid on.
+ */
+export interface SolenoidValvePositions {
+  normal: PortPair[];
+  energised: PortPair[];
 }
 
 export interface CircuitConnection {

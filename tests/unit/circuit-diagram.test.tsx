@@ -204,26 +204,18 @@ const hot = sizeCircuit({ ...duty, orientation: "horizontal", massKg: 800, proce
 const double = sizeCircuit({ ...pressing, pumpType: "double" });
 const compensated = sizeCircuit({ ...pressing, pumpType: "compensated" });
 const fixedPress = sizeCircuit({ ...pressing, orientation: "horizontal", massKg: 500, pumpType: "fixed" });
-/**
- * A regenerative axis as the engine joins it (the valve at the valve stack, 1 from the rod line,
- * 2 to the cap line); where the engine in this tree does not add it yet, a copy with it added.
- */
-const regenerative: Design = fixedPress.circuit.components.some((c) => c.kind === "regen")
-  ? fixedPress
-  : {
-      ...fixedPress,
-      circuit: {
-        ...fixedPress.circuit,
-        components: [...fixedPress.circuit.components, { id: "regen", kind: "regen", ports: ["1", "2"], values: { normally: "closed" } }],
-        connections: [...fixedPress.circuit.connections, { from: "dcv.B", to: "regen.1", line: "work" }, { from: "regen.2", to: "dcv.A", line: "work" }],
-      },
-    };
-const ALL = { feed, press, lift, held, heldBoth, hot, double, compensated, fixedPress, regenerative };
+/** 1.6 m horizontal feed, 50 kN at the end, 200 mm/s both ways: it regenerates, ended by a pressure switch (regenerative.test.ts). */
+const longFeed = sizeCircuit({
+  orientation: "horizontal", massKg: 500, processForceN: 50_000, strokeMm: 1600, extendSpeedMmS: 200, retractSpeedMmS: 200,
+  mounting: "fixed-pinned", mountingStyle: "rear-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+});
+const ALL = { feed, press, lift, held, heldBoth, hot, double, compensated, fixedPress, longFeed };
 
 /** Every kind the circuit may hold; `satisfies` makes the compiler ask for a new kind here. */
 const KINDS = {
   pump: true, motor: true, relief: true, vent: true, dcv: true, cbv: true, cylinder: true, tank: true, filter: true, gauge: true,
   strainer: true, regen: true, poc: true, cooler: true, decompression: true, unloading: true, check: true, "flow-control": true, bypass: true,
+  "pressure-switch": true, "limit-switch": true,
 } satisfies Record<CircuitComponent["kind"], true>;
 
 const desc = (html: string) => html.match(/<desc[^>]*>(.*?)<\/desc>/)![1].replaceAll("&#x27;", "'");
@@ -372,18 +364,74 @@ describe("CircuitDiagram: every component the design calls for", () => {
     expect(desc(html)).toContain("meter-in flow control in the cap line sets the pressing speed");
   });
 
-  it("draws the regeneration valve between the work lines, teed onto both", () => {
-    const html = render(regenerative);
-    const symbol = html.match(/<g data-component="regen" data-kind="regen" data-normally="closed">(.*?)<\/g><text/)![1];
-    expect(symbol).toMatch(/data-position="normal" data-paths="" data-blocked="2,1"/);
-    expect(symbol).toMatch(/data-position="energised" data-paths="2-1"/);
-    for (const port of ["1", "2"]) expect(html).toMatch(new RegExp(`data-port="regen\\.${port}"[^>]*>${port}<`));
-    const layout = layoutCircuit(regenerative.circuit);
-    const routes = routeConnections(regenerative.circuit, layout);
-    const tees = routes.filter((r) => r.connection.to.startsWith("regen.") || r.connection.from.startsWith("regen."));
-    for (const r of tees) expect(r.points).toHaveLength(2); // straight across to the column
+  it("the regenerating designs under test really regenerate, one ended by a pressure switch, one by the limit switch", () => {
+    expect(longFeed.regeneration).toMatchObject({ endsBy: "pressure-switch", switchBar: 25 });
+    expect(fixedPress.regeneration?.endsBy).toBe("limit-switch");
+  });
+
+  it.each([["longFeed", longFeed], ["fixedPress", fixedPress]] as const)("%s: draws the 3/2 regeneration valve in the rod line, its positions as the data gives them", (_n, design) => {
+    const html = render(design);
+    const symbol = html.match(/<g data-component="regen" data-kind="regen" data-ports="3\/2">(.*?)<\/g><text/)![1];
+    // de-energised 1–2 (rod port to B) with 3 blocked; energised 1–3 (rod port to the cap line) with 2 blocked
+    expect(symbol).toMatch(/data-position="normal" data-paths="1-2" data-blocked="3"/);
+    expect(symbol).toMatch(/data-position="energised" data-paths="1-3" data-blocked="2"/);
+    expect(symbol).toMatch(/data-position="normal"(?:(?!data-position).)*data-blocked-port="3"/);
+    expect(symbol).toMatch(/data-position="energised"(?:(?!data-position).)*data-blocked-port="2"/);
+    expect(symbol).toContain('data-actuator="solenoid"');
+    for (const port of ["1", "2", "3"]) expect(html).toMatch(new RegExp(`data-port="regen\\.${port}"[^>]*>${port}<`));
+    const layout = layoutCircuit(design.circuit);
+    const routes = routeConnections(design.circuit, layout);
+    const route = (from: string, to: string) => routes.find((r) => r.connection.from === from && r.connection.to === to)!;
+    // in the rod column: straight up to the rod port, down to B; port 3 across to port A
+    const up = route("regen.1", "cylinder.rod").points;
+    expect(up).toHaveLength(2);
+    expect(up[0].x).toBe(layout.ports["cylinder.rod"].x);
+    expect(route("dcv.B", "regen.2").points.at(-1)).toEqual(expect.objectContaining({ x: layout.ports["regen.2"].x, y: layout.ports["regen.2"].y }));
+    const across = route("regen.3", "dcv.A").points;
+    expect(across.at(-1)).toEqual(expect.objectContaining({ x: layout.ports["dcv.A"].x, y: layout.ports["dcv.A"].y }));
+    // port 3's line (cap-line oil) never meets or crosses the B line's: they are different lines
+    const segments = (pts: { x: number; y: number }[]) => pts.slice(1).map((q, i) => [pts[i], q] as const);
+    const meet = ([a, b]: readonly [{ x: number; y: number }, { x: number; y: number }], [c, d]: readonly [{ x: number; y: number }, { x: number; y: number }]) =>
+      Math.max(Math.min(a.x, b.x), Math.min(c.x, d.x)) <= Math.min(Math.max(a.x, b.x), Math.max(c.x, d.x))
+      && Math.max(Math.min(a.y, b.y), Math.min(c.y, d.y)) <= Math.min(Math.max(a.y, b.y), Math.max(c.y, d.y));
+    for (const s3 of segments(across)) for (const sb of segments(route("dcv.B", "regen.2").points)) expect(meet(s3, sb)).toBe(false);
+    // below every other valve: at the valve stack
+    expect(layout.at.regen.y).toBeGreaterThan(layout.at["press-flow"]?.y ?? 0);
     expect(html).toContain("Regeneration valve");
-    expect(desc(html)).toContain("regeneration valve between the work lines");
+    expect(html).not.toMatch(/Regeneration valve<\/tspan><tspan[^>]*>2\/2/);
+    const text = desc(html);
+    expect(text).toContain("3/2 solenoid regeneration valve in the rod line at the valve stack: de-energised it joins the cylinder's rod port (1) to valve port B (2) and blocks the cap line (3); energised during the approach it joins the cylinder's rod port (1) to the cap line (3) and blocks valve port B (2)");
+    expect(text).not.toContain("2/2 solenoid regeneration");
+  });
+
+  it("draws the pressure switch on the cap line it senses, teed straight across, with the design's setting", () => {
+    const html = render(longFeed);
+    expect(html).toContain('data-component="regeneration-pressure-switch" data-kind="pressure-switch"');
+    const layout = layoutCircuit(longFeed.circuit);
+    const tee = routeConnections(longFeed.circuit, layout).find((r) => r.connection.to === "regeneration-pressure-switch.port")!;
+    expect(tee.points).toHaveLength(2);
+    expect(tee.points[0].y).toBe(tee.points[1].y);
+    expect(tee.points[0].x).toBe(layout.ports["cylinder.cap"].x); // on the cap column, not the rod line
+    expect(html).toContain(`cx="${tee.points[0].x}" cy="${tee.points[0].y}" r="3"`); // its junction dot
+    expect(html).toContain("set 25 bar");
+    expect(desc(html)).toContain("Pressure switch on the cap line set to 25 bar: it de-energises the regeneration valve as the tool meets the work");
+    expect(html).not.toContain('data-kind="limit-switch"');
+  });
+
+  it("marks the limit switch at the cylinder, beyond the rod end, with what it switches", () => {
+    const html = render(fixedPress);
+    expect(html).toContain('data-component="press-limit-switch" data-kind="limit-switch"');
+    const layout = layoutCircuit(fixedPress.circuit);
+    const mark = layout.at["press-limit-switch"];
+    expect(mark.x).toBeGreaterThan(layout.cylinder.rodEnd);
+    expect(mark.y).toBe((layout.cylinder.top + layout.cylinder.bottom) / 2);
+    expect(html).toContain(`${fixedPress.requirements.pressStrokeMm} mm before the end`);
+    expect(html).toContain("closes the bypass");
+    expect(html).toContain("ends the regeneration");
+    expect(desc(html)).toContain(`Limit switch at the cylinder ${fixedPress.requirements.pressStrokeMm} mm before the end of the extension: there it closes the bypass valve and de-energises the regeneration valve`);
+    // the description never says "pressing stroke": the quick-sizing page finds that field by its label
+    expect(desc(html)).not.toMatch(/pressing stroke/i);
+    expect(html).not.toContain('data-kind="pressure-switch"');
   });
 });
 

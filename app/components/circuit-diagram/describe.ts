@@ -182,6 +182,50 @@ function workLineSentences(circuit: Circuit, u: DisplayUnits): (string | false |
       pocs.length > 1 ? "them" : "it",
       ratio !== undefined && `(pilot ratio ${ratio}:1)`,
     ).replace(/^(Pilot-operated check valve on the \w+ port) hold/, "$1 holds"),
-    regen && "Normally closed 2/2 solenoid regeneration valve between the work lines: energised during the approach, it leads the rod end's oil (1) into the cap line (2)",
+    regen && regenSentence(regen),
+    ...switchSentences(circuit, u),
   ];
+}
+
+/** What each port of the regeneration valve is joined to (circuit-parts.ts names them so). */
+const REGEN_PORTS: Record<string, string> = { "1": "the cylinder's rod port (1)", "2": "valve port B (2)", "3": "the cap line (3)" };
+
+/** The 3/2 regeneration valve, its two positions read from the data. */
+function regenSentence(regen: CircuitComponent): string | undefined {
+  const p = regen.positions;
+  if (!p) return undefined;
+  const say = (pairs: PortPair[]) => {
+    const joined = new Set(pairs.flat());
+    const blocked = regen.ports.filter((x) => !joined.has(x)).map((x) => REGEN_PORTS[x] ?? x);
+    const joins = pairs.map(([a, b]) => `${REGEN_PORTS[a] ?? a} to ${REGEN_PORTS[b] ?? b}`).join(" and ");
+    return `joins ${joins || "no ports"}${blocked.length ? ` and blocks ${blocked.join(" and ")}` : ""}`;
+  };
+  return phrase(
+    "3/2 solenoid regeneration valve in the rod line at the valve stack: de-energised it",
+    `${say(p.normal)};`,
+    "energised during the approach it",
+    say(p.energised),
+    ", so the rod end's oil joins the pump flow into the cap end instead of going to tank",
+  ).replace(" ,", ",");
+}
+
+/** The switches the control reads: a pressure switch on the line it senses, a limit switch at the cylinder. */
+function switchSentences(circuit: Circuit, u: DisplayUnits): (string | undefined)[] {
+  return circuit.components.map((c) => {
+    const off = (textValue(c, "switchesOff") ?? "").split(",").map((x) => x.trim());
+    const acts = [off.includes("press-bypass") && "closes the bypass valve", off.includes("regen") && "de-energises the regeneration valve"].filter(Boolean).join(" and ");
+    if (c.kind === "pressure-switch") {
+      return phrase(
+        "Pressure switch on the cap line", numberValue(c, "settingBar") !== undefined && `set to ${u.pressure(numberValue(c, "settingBar")!)}`,
+        acts && `: it ${acts} as the tool meets the work, so the force is built on the full area`,
+      ).replace(" :", ":");
+    }
+    if (c.kind === "limit-switch") {
+      return phrase(
+        "Limit switch at the cylinder", numberValue(c, "beforeEndMm") !== undefined && `${u.length(numberValue(c, "beforeEndMm")!)} before the end of the extension`,
+        acts && `: there it ${acts}, where pressing begins`,
+      ).replace(" :", ":");
+    }
+    return undefined;
+  });
 }

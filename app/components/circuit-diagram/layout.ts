@@ -4,8 +4,9 @@ import type { Circuit, CircuitComponent } from "~/hydraulics/design";
  * Where each symbol and port sits. The layout is fixed and conventional — cylinder at the
  * top, the valves of each work line stacked in its column in the order the data joins them
  * (the holding check at the cylinder, then the counterbalance valve, then the pressing-speed
- * control), the regeneration valve between the columns, the directional valve below, the power
- * unit at the bottom — and rows close up when a component is absent.
+ * control; the regeneration valve nearest the directional valve in the rod column), the
+ * directional valve below, the power unit at the bottom — and rows close up when a component is
+ * absent. Switches: the pressure switch beside the line it senses, a limit switch at the rod.
  */
 
 export type Direction = "up" | "down" | "left" | "right";
@@ -42,8 +43,6 @@ const RELIEF_X = 180;
 const GAUGE_X = 450;
 const FILTER_X = 600;
 const MOTOR_X = 280;
-/** the regeneration valve sits midway between the work-line columns */
-const REGEN_X = (CAP_X + ROD_X) / 2;
 /** the decompression valve sits left of the cap port, below the cylinder's left end */
 const DECOMPRESSION_X = 215;
 /** a double pump's large section sits this far right of the small one, and the right-hand columns move over */
@@ -82,6 +81,16 @@ export const FC_HALF_W = 32;
 export const FC_HALF_H = 34;
 /** The bypass valve sits this far beside the flow control, its normal box in line with it. */
 const BYPASS_DX = 70;
+/**
+ * Regeneration valve, a 3/2 valve: position boxes of REGEN_BOX; in each, ports 1 (top) and 2
+ * (bottom) sit on the work-line column, a quarter box from the outer wall, and port 3 (bottom)
+ * a half box towards the other column, where its line leaves for the cap line.
+ */
+export const REGEN_BOX = 32;
+export const REGEN_PORT3_DX = REGEN_BOX / 2;
+/** Pressure switch: box half size; it sits left of the cap column, its port on its right wall. */
+export const SWITCH_HALF = 12;
+const PRESSURE_SWITCH_DX = 62;
 /** Check valve in a line: half length along the flow. */
 export const CHECK_HALF = 14;
 /** Unloading valve outlet stub, from its wall to where the tank line drops. */
@@ -136,6 +145,7 @@ const IN_LINE: Partial<Record<CircuitComponent["kind"], { halfW: number; halfH: 
   cbv: { halfW: CBV_HALF_W, halfH: CBV_HALF_H, pilot: "3" },
   poc: { halfW: POC_HALF_W, halfH: POC_HALF_H, pilot: "X" },
   "flow-control": { halfW: FC_HALF_W, halfH: FC_HALF_H },
+  regen: { halfW: REGEN_BOX, halfH: REGEN_BOX / 2 },
 };
 
 /**
@@ -206,12 +216,20 @@ export function layoutCircuit(circuit: Circuit): Layout {
     bottom = Math.max(bottom, y);
   }
 
-  // Row 3: the regeneration valve between the columns, below every pilot line that crosses them.
-  const regenY = bottom + 125;
-  if (has("regen")) bottom = regenY + 40;
+  // The regeneration valve, nearest the directional valve, moves down below both stacks (to the
+  // valve stack, clear of the other column's captions), unless a pilot from the other column
+  // must tee onto the line below it.
+  const regen = centres.find((e) => e.c.kind === "regen");
+  if (regen && !piloted(regen.side === "rod" ? "cap" : "rod")) {
+    const others = centres.filter((e) => e !== regen).map((e) => e.cy + IN_LINE[e.c.kind]!.halfH);
+    const halfH = IN_LINE.regen!.halfH;
+    regen.cy = Math.max(regen.cy, Math.max(cylinder.bottom, ...others) + 24 + halfH);
+    bottom = Math.max(bottom, regen.cy + halfH);
+  }
 
-  // Row 4: the directional valve, its work lines turning along one channel above it.
-  const channelY = bottom + 40;
+  // Row 4: the directional valve, its work lines turning along one channel above it (lower
+  // where a pressure switch needs room beside the cap line).
+  const channelY = bottom + 40 + (has("pressure-switch") ? 24 : 0);
   const dcvTop = channelY + 40;
   const dcvBottom = dcvTop + BOX;
 
@@ -226,6 +244,10 @@ export function layoutCircuit(circuit: Circuit): Layout {
     place(c, { x, y: cy }, {
       "1": { x, y: cy - halfH, dir: "up" },
       "2": { x, y: cy + halfH, dir: "down", channelY },
+      // the regeneration valve's port 3 drops to its own channel, above the work lines', and on to port A
+      ...(c.kind === "regen"
+        ? { "3": { x: towards === "left" ? x - REGEN_PORT3_DX : x + REGEN_PORT3_DX, y: cy + halfH, dir: "down" as const, channelY: channelY - 14 } }
+        : {}),
       ...(pilot
         ? { [pilot]: { x: towards === "left" ? x - halfW : x + halfW, y: cy + pilotDy(c.kind, side), dir: towards, tap: true } }
         : {}),
@@ -245,10 +267,12 @@ export function layoutCircuit(circuit: Circuit): Layout {
     "1": { x: DECOMPRESSION_X + VENT_BOX / 2, y: decompressionY, dir: "right", tap: true },
     "2": { x: DECOMPRESSION_X - VENT_BOX / 2 - DECOMPRESSION_STUB, y: decompressionY, dir: "down", tankTop: decompressionY + 22 },
   });
-  put("regen", { x: REGEN_X, y: regenY }, {
-    "1": { x: REGEN_X + VENT_BOX / 2, y: regenY, dir: "right", tap: true },
-    "2": { x: REGEN_X - VENT_BOX / 2, y: regenY, dir: "left", tap: true },
-  });
+  // The pressure switch tees straight across onto the cap line, below every valve in it.
+  const switchX = CAP_X - PRESSURE_SWITCH_DX;
+  const switchY = channelY - 24;
+  put("pressure-switch", { x: switchX, y: switchY }, { port: { x: switchX + SWITCH_HALF, y: switchY, dir: "right", tap: true } });
+  // A limit switch has no port: it is marked beyond the rod end, where the rod's travel reaches it.
+  for (const c of circuit.components.filter((x) => x.kind === "limit-switch")) at[c.id] = { x: cylinder.rodEnd + 44, y: (cylinder.top + cylinder.bottom) / 2 };
   put("dcv", { x: DCV_CX, y: dcvTop + BOX / 2 }, {
     A: { x: A_X, y: dcvTop, dir: "up" },
     B: { x: B_X, y: dcvTop, dir: "up" },

@@ -1,7 +1,8 @@
-import type { DcvPositions } from "~/hydraulics/design";
+import type { DcvPositions, SolenoidValvePositions } from "~/hydraulics/design";
 import {
   BOX, CBV_HALF_H, CBV_HALF_W, CBV_PILOT_DY, CHECK_HALF, DECOMPRESSION_STUB, DIAMOND, FC_HALF_H, FC_HALF_W, GAUGE_R, INLINE_PILOT_DY,
-  MOTOR_R, POC_HALF_H, POC_HALF_W, PUMP_R, RELIEF_BOX, RELIEF_VENT_DY, TANK_H, TANK_W, UNLOADING_STUB, VENT_BOX,
+  MOTOR_R, POC_HALF_H, POC_HALF_W, PUMP_R, REGEN_BOX, REGEN_PORT3_DX, RELIEF_BOX, RELIEF_VENT_DY, SWITCH_HALF, TANK_H, TANK_W, UNLOADING_STUB,
+  VENT_BOX,
   type CylinderPlace, type Point,
 } from "./layout";
 import { blockedPorts, boxDrawing, pairsLabel } from "./valve-positions";
@@ -580,3 +581,108 @@ export function CoolerSymbol({ id, centre }: { id: string; centre: Point }) {
   );
 }
 
+
+// ---- The regenerative approach and its switches ------------------------------------------------
+
+/**
+ * Regeneration valve: a 3/2 solenoid valve with spring return (ISO 1219-1 style) standing in a
+ * work-line column. `centre.x` is the column, where ports 1 (top, to the cylinder) and 2 (bottom,
+ * to the directional valve) sit a quarter box from the outer wall of the spring-held box; port 3
+ * (bottom) sits a half box nearer `port3Side`, the other column. The energised box and the
+ * solenoid lie on that side, the spring on the outer one. Each box is drawn from the data's port
+ * pairs: an arrow for each pair, a T-stop on each port left out.
+ */
+export function RegenValveSymbol({ id, centre, port3Side, positions }: { id: string; centre: Point; port3Side: "left" | "right"; positions: SolenoidValvePositions }) {
+  const b = REGEN_BOX;
+  const t = port3Side === "left" ? -1 : 1;
+  const top = centre.y - b / 2;
+  const bottom = centre.y + b / 2;
+  // u runs from the column towards the other column; the spring-held box spans u = −b/4 … 3b/4
+  const X = (u: number) => centre.x + t * u;
+  const portU: Record<string, { u: number; y: number }> = { "1": { u: 0, y: top }, "2": { u: 0, y: bottom }, "3": { u: REGEN_PORT3_DX, y: bottom } };
+  const ports = Object.keys(portU);
+  const boxes = [
+    { position: "energised", u0: b, pairs: positions.energised },
+    { position: "normal", u0: 0, pairs: positions.normal },
+  ] as const;
+  const sol = { w: 16, h: 18 };
+  const solU = 2 * b - b / 4;
+  return (
+    <g data-component={id} data-kind="regen" data-ports="3/2">
+      {boxes.map(({ position, u0, pairs }) => {
+        const joined = new Set(pairs.flat());
+        const at = (port: string): Point => ({ x: X(u0 + portU[port].u), y: portU[port].y });
+        return (
+          <g key={position} data-position={position} data-paths={pairs.map(([a, c]) => `${a}-${c}`).join(",")} data-blocked={ports.filter((p) => !joined.has(p)).join(",")}>
+            <rect x={Math.min(X(u0 - b / 4), X(u0 + (3 * b) / 4))} y={top} width={b} height={b} {...outline} fill="white" />
+            {pairs.filter(([a, c]) => a in portU && c in portU).map(([a, c]) => <Arrow key={`${a}-${c}`} from={at(a)} to={at(c)} />)}
+            {ports.filter((p) => !joined.has(p)).map((p) => {
+              const from = at(p);
+              const end = { x: from.x, y: from.y + (from.y === top ? 9 : -9) };
+              return (
+                <g key={p} data-blocked-port={p}>
+                  <line x1={from.x} y1={from.y} x2={end.x} y2={end.y} {...thin} />
+                  <line x1={end.x - 5} y1={end.y} x2={end.x + 5} y2={end.y} {...outline} />
+                </g>
+              );
+            })}
+          </g>
+        );
+      })}
+      <g data-actuator="solenoid">
+        <rect x={Math.min(X(solU), X(solU + sol.w))} y={centre.y - sol.h / 2} width={sol.w} height={sol.h} {...outline} />
+        <line x1={X(solU)} y1={centre.y + sol.h / 2} x2={X(solU + sol.w)} y2={centre.y - sol.h / 2} {...thin} />
+      </g>
+      <Spring a={{ x: X(-b / 4), y: centre.y }} b={{ x: X(-b / 4 - 18), y: centre.y }} turns={3} amplitude={4} />
+      <PortLabel x={X(-5)} y={top - 5} anchor={t < 0 ? "start" : "end"} port={`${id}.1`}>1</PortLabel>
+      <PortLabel x={X(-5)} y={bottom + 13} anchor={t < 0 ? "start" : "end"} port={`${id}.2`}>2</PortLabel>
+      <PortLabel x={X(REGEN_PORT3_DX + 5)} y={bottom + 13} anchor={t < 0 ? "end" : "start"} port={`${id}.3`}>3</PortLabel>
+    </g>
+  );
+}
+
+/**
+ * Pressure switch (ISO 1219-1 style): the oil from its port (right) pushes against an adjustable
+ * spring (left) and works an electrical contact (on top) when the pressure passes the setting.
+ */
+export function PressureSwitchSymbol({ id, centre }: { id: string; centre: Point }) {
+  const h = SWITCH_HALF;
+  const { x, y } = centre;
+  return (
+    <g data-component={id} data-kind="pressure-switch">
+      <rect x={x - h} y={y - h} width={2 * h} height={2 * h} {...outline} fill="white" />
+      {/* the sensing pilot inside, from the port to the element */}
+      <line x1={x + h} y1={y} x2={x - 2} y2={y} {...pilot} />
+      <line x1={x - 2} y1={y - 7} x2={x - 2} y2={y + 7} {...outline} />
+      <Spring a={{ x: x - h, y }} b={{ x: x - h - 20, y }} turns={3} amplitude={4} />
+      <Adjustable centre={{ x: x - h - 10, y }} span={8} />
+      {/* electrical contact: a lead and an open switch blade */}
+      <g data-contact="">
+        <line x1={x} y1={y - h} x2={x} y2={y - h - 6} {...thin} />
+        <line x1={x} y1={y - h - 6} x2={x + 8} y2={y - h - 15} {...outline} />
+        <line x1={x + 10} y1={y - h - 10} x2={x + 10} y2={y - h - 18} {...thin} />
+        <circle cx={x} cy={y - h - 6} r={1.8} fill="currentColor" />
+      </g>
+    </g>
+  );
+}
+
+/**
+ * Limit switch marked at the cylinder (common practice: a position switch is drawn where the
+ * rod's travel works it, not in the oil circuit): a dotted run of the rod's travel out to a tick,
+ * and over the tick the switch, a roller on a lever working an electrical contact.
+ */
+export function LimitSwitchSymbol({ id, at, rodEnd }: { id: string; at: Point; rodEnd: number }) {
+  const { x, y } = at;
+  return (
+    <g data-component={id} data-kind="limit-switch">
+      <line x1={rodEnd + 4} y1={y} x2={x - 6} y2={y} {...thin} strokeDasharray={DASH.strainer} />
+      <ArrowHead from={{ x: x - 14, y }} to={{ x: x - 4, y }} length={7} half={3} />
+      <line x1={x} y1={y - 6} x2={x} y2={y + 8} {...outline} />
+      <circle cx={x} cy={y - 11} r={4.5} {...outline} fill="white" />
+      <line x1={x} y1={y - 15.5} x2={x} y2={y - 24} {...thin} />
+      <rect x={x - 10} y={y - 38} width={20} height={14} {...outline} fill="white" />
+      <line x1={x - 6} y1={y - 28} x2={x + 6} y2={y - 35} {...thin} />
+    </g>
+  );
+}

@@ -13,6 +13,12 @@ const PRESS = {
   processForceN: 150000, pressStrokeMm: 50, pressSpeedMmS: 10, dwellS: 2,
 } as const;
 
+/** 1.6 m horizontal feed, 50 kN at the end of the stroke, 200 mm/s both ways: it regenerates (regenerative.test.ts). */
+const LONG_FEED = {
+  orientation: "horizontal", massKg: 500, processForceN: 50_000, strokeMm: 1600, extendSpeedMmS: 200, retractSpeedMmS: 200,
+  mounting: "fixed-pinned", mountingStyle: "rear-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+} as const;
+
 /** Axes that really call for each part, through the engine's own rules. */
 const AXES = {
   // held longer than a few minutes: leak-tight holding (pilot-operated checks)
@@ -25,6 +31,12 @@ const AXES = {
   "the press with a double pump": { ...PRESS, pumpType: "double" },
   "the press with a compensated pump": { ...PRESS, pumpType: "compensated" },
   "a horizontal press with a fixed pump": { ...PRESS, orientation: "horizontal", massKg: 500, pumpType: "fixed" },
+  // regenerating (see regenerative.test.ts): a long feed with its force at the end of the stroke
+  // (a pressure switch ends the approach), the same with a 20 mm pressing stroke (the limit switch
+  // does), and the feed clamped for 30 min (a cap-end check beside the regeneration valve)
+  "a long feed that regenerates": LONG_FEED,
+  "a long feed that regenerates, with a pressing stroke": { ...LONG_FEED, pressStrokeMm: 20, pressSpeedMmS: 10, pumpType: "fixed" },
+  "a long feed that regenerates, clamped for 30 min": { ...LONG_FEED, holdMinutes: 30 },
 } satisfies Record<string, RequirementsInput>;
 const designs = Object.entries(AXES).map(([name, req]) => [name, sizeCircuit(req)] as const);
 const design = (name: keyof typeof AXES) => designs.find(([n]) => n === name)![1];
@@ -59,6 +71,11 @@ describe("the designs really call for the parts under test", () => {
     expect(design("the press with a double pump").decompression.needed).toBe(true);
     expect(design("the press with a compensated pump").pump.type).toBe("compensated");
     expect(design("a horizontal press with a fixed pump").pressSpeedControl).not.toBeNull();
+    expect(design("a long feed that regenerates").regeneration).toMatchObject({ endsBy: "pressure-switch", switchBar: 25 });
+    expect(design("a long feed that regenerates, with a pressing stroke").regeneration).toMatchObject({ endsBy: "limit-switch", switchBar: null });
+    expect(design("a long feed that regenerates, with a pressing stroke").pressSpeedControl).not.toBeNull();
+    expect(design("a long feed that regenerates, clamped for 30 min").regenerative).toBe(true);
+    expect(design("a long feed that regenerates, clamped for 30 min").holding?.side).toBe("cap");
   });
 });
 
@@ -94,11 +111,21 @@ describe.each(designs)("%s", (_name, d) => {
     expect(count("regen")).toBe(line("regeneration-valve") ? 1 : 0);
   });
 
+  it("has a component for every bill line that is a switch, with the line's key as its id", () => {
+    const switches = d.bom.filter((l) => /switch$/.test(l.key));
+    for (const l of switches) {
+      expect(l.quantity, l.key).toBe(1);
+      expect(component(d, l.key)?.kind, l.key).toBe(/pressure-switch$/.test(l.key) ? "pressure-switch" : "limit-switch");
+    }
+    const drawn = d.circuit.components.filter((c) => c.kind === "pressure-switch" || c.kind === "limit-switch");
+    expect(drawn.map((c) => c.id).sort()).toEqual(switches.map((l) => l.key).sort());
+  });
+
   it("keeps the work lines whole: each valve port feeds its cylinder port through the in-line valves only", () => {
     const find = nets(d);
     // the directional valve's ports never share a net with the cylinder's across an in-line valve
     for (const [valvePort, cylPort] of [["dcv.A", "cylinder.cap"], ["dcv.B", "cylinder.rod"]] as const) {
-      const inLine = d.circuit.components.filter((c) => ["cbv", "poc", "flow-control"].includes(c.kind) && find(`${c.id}.1`) !== find(`${c.id}.2`));
+      const inLine = d.circuit.components.filter((c) => ["cbv", "poc", "flow-control", "regen"].includes(c.kind) && find(`${c.id}.1`) !== find(`${c.id}.2`));
       const onThisLine = inLine.filter((c) => find(`${c.id}.2`) === find(valvePort) || find(`${c.id}.1`) === find(cylPort));
       expect(find(valvePort) === find(cylPort)).toBe(onThisLine.length === 0);
     }
@@ -237,5 +264,102 @@ describe("cooler, decompression and the pressing-speed control", () => {
       expect(find("press-bypass.2")).toBe(find("press-flow.2"));
       expect(component(d, "press-bypass")!.values?.normally).toBe("closed");
     }
+  });
+});
+
+/**
+ * Where oil can go from a port with the valves in given positions: along the lines (not pilots)
+ * and through the passages the directional valve and the regeneration valve open in those
+ * positions. Every other valve counts as closed, so a path found here is there for certain.
+ */
+function reach(d: Design, start: string, dcv: "left" | "center" | "right", regen: "normal" | "energised"): Set<string> {
+  const links: [string, string][] = d.circuit.connections.filter((c) => c.line !== "pilot" && c.line !== "shaft").map((c) => [c.from, c.to]);
+  for (const [a, b] of d.circuit.dcvPositions[dcv]) links.push([`dcv.${a}`, `dcv.${b}`]);
+  const valve = component(d, "regen");
+  for (const [a, b] of valve?.positions?.[regen] ?? []) links.push([`regen.${a}`, `regen.${b}`]);
+  const seen = new Set([start]);
+  const todo = [start];
+  while (todo.length) {
+    const port = todo.pop()!;
+    for (const [a, b] of links) {
+      const next = a === port ? b : b === port ? a : null;
+      if (next && !seen.has(next)) {
+        seen.add(next);
+        todo.push(next);
+      }
+    }
+  }
+  return seen;
+}
+
+describe("regeneration valve: a 3/2 solenoid valve in the rod line (textbook regenerative circuit with a separate valve)", () => {
+  const regenerating = designs.filter(([, x]) => x.regeneration);
+
+  it("occurs in the designs that regenerate, and only there", () => {
+    const names = regenerating.map(([n]) => n);
+    for (const n of ["a long feed that regenerates", "a long feed that regenerates, with a pressing stroke", "a long feed that regenerates, clamped for 30 min"]) {
+      expect(names).toContain(n);
+    }
+    for (const [, d] of designs) expect(d.circuit.components.some((c) => c.kind === "regen")).toBe(d.regenerative);
+  });
+
+  it.each(regenerating)("%s: 1 to the rod port, 2 to valve port B, 3 to the cap line; de-energised 1–2, energised 1–3 with 2 blocked", (_n, d) => {
+    const find = nets(d);
+    const valve = component(d, "regen")!;
+    expect(valve.ports).toEqual(["1", "2", "3"]);
+    expect(valve.positions).toEqual({ normal: [["1", "2"]], energised: [["1", "3"]] });
+    expect(find("regen.1")).toBe(find("cylinder.rod"));
+    expect(find("regen.2")).toBe(find("dcv.B"));
+    expect(find("regen.3")).toBe(find("dcv.A"));
+    // the three ports are three different lines: the valve, not a pipe, decides where the rod oil goes
+    expect(new Set(["regen.1", "regen.2", "regen.3"].map(find)).size).toBe(3);
+  });
+
+  it.each(regenerating)("%s: extending, energised, the rod end's oil reaches the cap line and the pump line, never port B or tank", (_n, d) => {
+    // solenoid a: P→A, B→T (ISO 1219-1 port letters); the rod end's oil must not take B→T
+    const from = reach(d, "cylinder.rod", "left", "energised");
+    expect(from.has("dcv.A")).toBe(true);
+    expect(from.has("dcv.P")).toBe(true);
+    for (const port of ["dcv.B", "dcv.T", "filter.inlet"]) expect(from.has(port), port).toBe(false);
+    if (!d.holding && !d.pressSpeedControl) expect(from.has("cylinder.cap")).toBe(true);
+  });
+
+  it.each(regenerating)("%s: de-energised, the rod port works through B: to tank while extending, from the pump while retracting", (_n, d) => {
+    const extending = reach(d, "cylinder.rod", "left", "normal");
+    expect(extending.has("dcv.B")).toBe(true);
+    expect(extending.has("filter.inlet")).toBe(true); // B→T, on through the return filter to tank
+    expect(extending.has("dcv.A")).toBe(false);
+    const retracting = reach(d, "pump.outlet", "right", "normal");
+    expect(retracting.has("cylinder.rod")).toBe(true);
+    // in neutral the valve changes nothing: the rod port reaches what B reaches, and no more
+    const neutral = reach(d, "cylinder.rod", "center", "normal");
+    expect([...neutral].filter((p) => !p.startsWith("regen.") && p !== "cylinder.rod").sort())
+      .toEqual([...reach(d, "dcv.B", "center", "normal")].filter((p) => !p.startsWith("regen.") && p !== "cylinder.rod").sort());
+  });
+});
+
+describe("the switches that end the regenerative approach and start the pressing stroke (common practice)", () => {
+  it("the long feed: a pressure switch on the cap line at 25 bar, the setting of the design, switching off the regeneration valve", () => {
+    const d = design("a long feed that regenerates");
+    const find = nets(d);
+    const sw = component(d, "regeneration-pressure-switch")!;
+    expect(sw.kind).toBe("pressure-switch");
+    expect(sw.values?.settingBar).toBe(d.regeneration!.switchBar);
+    expect(sw.values?.settingBar).toBe(25);
+    expect(sw.values?.switchesOff).toBe("regen");
+    // it senses the cap line, where the pressure rises as the tool meets the work, not the pump or rod line
+    expect(find("regeneration-pressure-switch.port")).toBe(find("dcv.A"));
+    expect(find("regeneration-pressure-switch.port")).not.toBe(find("dcv.P"));
+    expect(d.circuit.components.some((c) => c.kind === "limit-switch")).toBe(false);
+  });
+
+  it("with a pressing stroke: one limit switch 20 mm before the end switches off both the bypass and the regeneration valve", () => {
+    const d = design("a long feed that regenerates, with a pressing stroke");
+    const sw = component(d, "press-limit-switch")!;
+    expect(sw).toMatchObject({ kind: "limit-switch", ports: [], values: { beforeEndMm: 20, switchesOff: "press-bypass, regen" } });
+    expect(d.circuit.components.some((c) => c.kind === "pressure-switch")).toBe(false);
+    // a press without regeneration: the limit switch switches the bypass only
+    const plain = designs.find(([, x]) => x.pressSpeedControl && !x.regeneration)![1];
+    expect(component(plain, "press-limit-switch")!.values).toMatchObject({ beforeEndMm: plain.requirements.pressStrokeMm, switchesOff: "press-bypass" });
   });
 });

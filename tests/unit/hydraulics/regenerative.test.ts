@@ -150,7 +150,7 @@ describe("worked example — a long horizontal feed with 50 kN at the end of a 1
     expect(d.cylinder.extendForceN).toBeCloseTo(50_490.3, 0);
   });
 
-  it("prices the regeneration valve and the pressure switch, and draws the valve from the rod line to the cap line", () => {
+  it("prices the regeneration valve and the pressure switch, and puts the valve in the rod line, its third port on the cap line", () => {
     const valve = d.bom.find((b) => b.key === "regeneration-valve")!;
     expect(valve.item).toMatch(/3\/2 solenoid/);
     expect(valve.specification).toContain("energised joins it to the cap line with port B closed");
@@ -160,9 +160,12 @@ describe("worked example — a long horizontal feed with 50 kN at the end of a 1
     expect(sw.rating).toEqual({ value: 25, unit: "bar", label: "setting" });
     expect(sw.specification).toMatch(/latches it until the return/);
     const regen = d.circuit.components.find((c) => c.id === "regen")!;
-    expect(regen).toMatchObject({ kind: "regen", ports: ["1", "2"] });
-    expect(d.circuit.connections).toContainEqual({ from: "dcv.B", to: "regen.1", line: "work" });
-    expect(d.circuit.connections).toContainEqual({ from: "regen.2", to: "dcv.A", line: "work" });
+    // 3/2 in the rod line: 1 the rod port, 2 valve port B, 3 the cap line; energised 1–3 with B blocked
+    expect(regen).toMatchObject({ kind: "regen", ports: ["1", "2", "3"], positions: { normal: [["1", "2"]], energised: [["1", "3"]] } });
+    expect(d.circuit.connections).toContainEqual({ from: "dcv.B", to: "regen.2", line: "work" });
+    expect(d.circuit.connections).toContainEqual({ from: "regen.1", to: "cylinder.rod", line: "work" });
+    expect(d.circuit.connections).toContainEqual({ from: "regen.3", to: "dcv.A", line: "work" });
+    expect(d.circuit.components.find((c) => c.id === "regeneration-pressure-switch")).toMatchObject({ kind: "pressure-switch", values: { settingBar: 25 } });
     expect(d.warnings.map((w) => w.code)).toContain("REGENERATIVE_APPROACH");
   });
 

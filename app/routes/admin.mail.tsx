@@ -14,10 +14,10 @@ import { WAITING_LONG_MINUTES, mailNeedingAttention, sendAgain, type MailView } 
 export const meta: Route.MetaFunction = () => [{ title: "Mail · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireRole(request, PAGE_ROLES.administration);
+  const admin = await requireRole(request, PAGE_ROLES.administration);
   const query = mailListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const view: MailView = query.show ?? "failed";
-  return { view, maxAttempts: MAX_ATTEMPTS, waitingMinutes: WAITING_LONG_MINUTES, ...(await mailNeedingAttention(view, query.page)) };
+  return { view, maxAttempts: MAX_ATTEMPTS, waitingMinutes: WAITING_LONG_MINUTES, ...(await mailNeedingAttention(admin, view, query.page)) };
 }
 
 export async function action({ request }: Route.ActionArgs) {

@@ -16,13 +16,13 @@ import { countWaitingShops, decideShop, shopsAwaitingApproval } from "~/services
 export const meta: Route.MetaFunction = () => [{ title: "Organisations · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireRole(request, PAGE_ROLES.administration);
+  const admin = await requireRole(request, PAGE_ROLES.administration);
   const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const [{ organisations, total, page, pageCount }, managers, waiting, waitingTotal] = await Promise.all([
-    listOrganisations(query),
-    listAccountManagers(),
-    shopsAwaitingApproval(),
-    countWaitingShops(),
+    listOrganisations(admin, query),
+    listAccountManagers(admin),
+    shopsAwaitingApproval(admin),
+    countWaitingShops(admin),
   ]);
   return {
     total,

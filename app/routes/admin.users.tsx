@@ -26,7 +26,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Users · Tenderflow" }]
 export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, PAGE_ROLES.administration);
   const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
-  const { users, total, page, pageCount } = await listUsers(query);
+  const { users, total, page, pageCount } = await listUsers(admin, query);
   return {
     adminId: admin.id,
     total,

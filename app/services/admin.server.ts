@@ -21,7 +21,8 @@ function pageOf(query: ListQuery) {
 const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 /** Users with their organisations, searched by name, e-mail or organisation, newest first. */
-export async function listUsers(query: ListQuery) {
+export async function listUsers(admin: User, query: ListQuery) {
+  await mayAdminister(admin);
   const { page, offset, limit } = pageOf(query);
   const q = query.q?.trim();
   const where: WhereOptions = q
@@ -43,7 +44,8 @@ export async function listUsers(query: ListQuery) {
   return { users: rows, total: count, page, pageCount: Math.max(1, Math.ceil(count / PAGE_SIZE)) };
 }
 
-export async function listOrganisations(query: ListQuery & { kind?: OrganisationKind; approval?: Approval }) {
+export async function listOrganisations(admin: User, query: ListQuery & { kind?: OrganisationKind; approval?: Approval }) {
+  await mayAdminister(admin);
   const { page, offset, limit } = pageOf(query);
   const q = query.q?.trim();
   const where: WhereOptions = {
@@ -113,7 +115,8 @@ export async function setActive(admin: User, userId: string, active: boolean) {
   return user;
 }
 
-export async function listAccountManagers() {
+export async function listAccountManagers(admin: User) {
+  await mayAdminister(admin);
   return User.findAll({ where: { role: "account_manager", active: true }, order: [["name", "ASC"]] });
 }
 

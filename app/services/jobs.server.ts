@@ -280,8 +280,6 @@ export interface JobDetail extends JobSummary {
   leadTimeWeeks: number | null;
   canRecordProgress: boolean;
   canWriteManagerNote: boolean;
-  /** Payment attempts are the buyer's and the operator's business, not the shop's. */
-  canSeePayments: boolean;
 }
 
 /** A job the viewer may read (a 404 otherwise); locked for update inside a transaction. */
@@ -341,7 +339,6 @@ export async function jobFor(viewer: User, jobId: string | undefined, today = to
     leadTimeWeeks: bid?.leadTimeWeeks ?? null,
     canRecordProgress: can(access, "job.recordProgress", job),
     canWriteManagerNote: can(access, "job.writeManagerNote", job),
-    canSeePayments: can(access, "job.seePayments", job),
   };
 }
 

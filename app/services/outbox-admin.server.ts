@@ -35,7 +35,8 @@ export interface StuckMail {
 }
 
 /** One page of failed or long-waiting mail, the most recently tried first, with both counts. */
-export async function mailNeedingAttention(view: MailView, requestedPage = 1, now = new Date()) {
+export async function mailNeedingAttention(admin: User, view: MailView, requestedPage = 1, now = new Date()) {
+  authorize(await viewerOf(admin), "platform.administer", null);
   const [failed, waiting] = await Promise.all([OutboxMail.count({ where: whereOf("failed", now) }), OutboxMail.count({ where: whereOf("waiting", now) })]);
   const total = view === "failed" ? failed : waiting;
   const pageCount = Math.max(1, Math.ceil(total / MAIL_PAGE_SIZE));

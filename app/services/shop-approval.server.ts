@@ -38,7 +38,8 @@ export interface WaitingShop {
 }
 
 /** Shops waiting for a decision, oldest first, with the people who signed them up. */
-export async function shopsAwaitingApproval(limit = 50): Promise<WaitingShop[]> {
+export async function shopsAwaitingApproval(admin: User, limit = 50): Promise<WaitingShop[]> {
+  authorize(await viewerOf(admin), "platform.administer", null);
   const shops = await Organisation.findAll({
     where: { kind: "shop", approval: "pending" },
     include: [{ model: User, as: "users", attributes: ["name", "email"], required: false }],
@@ -103,4 +104,7 @@ export async function decideShop(admin: User, organisationId: string, choice: Sh
 }
 
 /** How many shops wait for a decision (the admin's organisations page shows it). */
-export const countWaitingShops = () => Organisation.count({ where: { kind: "shop", approval: "pending" } });
+export async function countWaitingShops(admin: User) {
+  authorize(await viewerOf(admin), "platform.administer", null);
+  return Organisation.count({ where: { kind: "shop", approval: "pending" } });
+}

@@ -24,9 +24,9 @@ import { awardBid } from "~/services/award.server";
 import { answerQuestion, askQuestion } from "~/services/questions.server";
 import { addManagerNote, addProgressNote, reachMilestones } from "~/services/jobs.server";
 import { paymentOfSession, requestRefund, startRetainerPayment } from "~/services/payments.server";
-import { decideShop } from "~/services/shop-approval.server";
-import { assignAccountManager, changeRole, setActive } from "~/services/admin.server";
-import { sendAgain } from "~/services/outbox-admin.server";
+import { decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
+import { assignAccountManager, changeRole, listOrganisations, listUsers, setActive } from "~/services/admin.server";
+import { mailNeedingAttention, sendAgain } from "~/services/outbox-admin.server";
 import { inviteColleague } from "~/services/accounts.server";
 import { inDays, makeJob, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 
@@ -202,7 +202,7 @@ describe("loading inside a scope", () => {
 // Commands take (viewer, id, input) and authorise inside, whoever calls them: the person refused
 // here gets the policy's answer (404 where the record is not theirs to know, 403 otherwise) and
 // nothing changes.
-describe("commands refuse the wrong person themselves", () => {
+describe("services refuse the wrong person themselves", () => {
   const id = (name: string) => records[name]!.id;
   const COMMANDS: [string, Person, 403 | 404, () => Promise<unknown>][] = [
     ["saveStep: another buyer", "other buyer", 404, () => saveStep(people["other buyer"], id("draft-spec"), { step: "machine", answers: { title: "Taken over" }, complete: false })],
@@ -228,6 +228,11 @@ describe("commands refuse the wrong person themselves", () => {
     ["setActive: a buyer", "buyer", 403, () => setActive(people.buyer, people["other buyer"].id, false)],
     ["sendAgain: an account manager", "manager", 403, () => sendAgain(people.manager, id("job"))],
     ["inviteColleague into the operator: an account manager", "manager", 403, () => inviteColleague(people.manager, uniqueEmail("staff"), "admin")],
+    // The administration's reads, too, whoever calls them.
+    ["listUsers: an account manager", "manager", 403, () => listUsers(people.manager, {})],
+    ["listOrganisations: a buyer", "buyer", 403, () => listOrganisations(people.buyer, {})],
+    ["shopsAwaitingApproval: a shop", "shop", 403, () => shopsAwaitingApproval(people.shop)],
+    ["mailNeedingAttention: an account manager", "manager", 403, () => mailNeedingAttention(people.manager, "failed")],
   ];
 
   it.each(COMMANDS)("%s", async (_name, _person, status, command) => {

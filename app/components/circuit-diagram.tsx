@@ -229,7 +229,10 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       const positions = c.positions;
       if (!positions) return null;
       const port3Side = layout.pilotSide[c.id] ?? "left";
-      const until = numberValue(c, "switchBar") !== undefined ? [`until ${u.pressure(numberValue(c, "switchBar")!)}`] : [];
+      // how long it stays energised: to the pressure switch's setting, the limit switch, or the whole extension
+      const endsBy = textValue(c, "endsBy");
+      const until = numberValue(c, "switchBar") !== undefined ? [`until ${u.pressure(numberValue(c, "switchBar")!)}`]
+        : endsBy === "limit-switch" ? ["until the limit switch"] : endsBy === "end-of-extension" ? ["for the whole extension"] : [];
       return (
         <>
           <RegenValveSymbol id={c.id} centre={at} port3Side={port3Side} positions={positions} />

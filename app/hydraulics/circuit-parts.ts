@@ -158,6 +158,7 @@ function regenerationValve(d: Design): CircuitComponent | null {
     positions: regenerationValvePositions(),
     values: {
       normally: "rod port to B",
+      endsBy: rg.endsBy,
       energised: rg.endsBy === "pressure-switch" ? "during the approach, until the pressure switch trips"
         : rg.endsBy === "limit-switch" ? "during the approach, until the limit switch where the pressing stroke starts" : "with solenoid a, for the whole extension",
       capInflowLpm: rg.capInflowLpm, rodOutflowLpm: rg.rodOutflowLpm, ...(rg.switchBar !== null ? { switchBar: rg.switchBar } : {}),

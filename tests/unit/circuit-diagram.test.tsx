@@ -398,6 +398,7 @@ describe("CircuitDiagram: every component the design calls for", () => {
     // below every other valve: at the valve stack
     expect(layout.at.regen.y).toBeGreaterThan(layout.at["press-flow"]?.y ?? 0);
     expect(html).toContain("Regeneration valve");
+    expect(html).toContain(design.regeneration!.switchBar !== null ? `until ${design.regeneration!.switchBar} bar` : "until the limit switch");
     expect(html).not.toMatch(/Regeneration valve<\/tspan><tspan[^>]*>2\/2/);
     const text = desc(html);
     expect(text).toContain("3/2 solenoid regeneration valve in the rod line at the valve stack: de-energised it joins the cylinder's rod port (1) to valve port B (2) and blocks the cap line (3); energised during the approach it joins the cylinder's rod port (1) to the cap line (3) and blocks valve port B (2)");

@@ -308,6 +308,7 @@ describe("regeneration valve: a 3/2 solenoid valve in the rod line (textbook reg
     const valve = component(d, "regen")!;
     expect(valve.ports).toEqual(["1", "2", "3"]);
     expect(valve.positions).toEqual({ normal: [["1", "2"]], energised: [["1", "3"]] });
+    expect(valve.values?.endsBy).toBe(d.regeneration!.endsBy);
     expect(find("regen.1")).toBe(find("cylinder.rod"));
     expect(find("regen.2")).toBe(find("dcv.B"));
     expect(find("regen.3")).toBe(find("dcv.A"));

@@ -150,10 +150,8 @@ function Inputs({ inputs }: { inputs: Record<string, TrailInput> }) {
 /** Every number the engine reached, in the order it reached them, with formula and source. */
 export function CalculationTrail({ trail }: { trail: TrailEntry[] }) {
   return (
-    <details open className="group">
-      <summary className="cursor-pointer text-sm font-semibold text-flow-700">
-        {trail.length} calculation steps, each with its formula, inputs and source
-      </summary>
+    <>
+      <p className="text-sm text-ink-700">{trail.length} calculation steps, each with its formula, inputs and source.</p>
       <p className="mt-2 text-xs text-ink-600" data-trail-legend="">
         Sources are marked: <strong>[S]</strong> taken from a published source (a standard, a textbook, a maker's table) we have read; <strong>[M]</strong> a
         published value quoted from memory, to be verified before anyone relies on it; <strong>[CP]</strong> common practice of the
@@ -184,6 +182,6 @@ export function CalculationTrail({ trail }: { trail: TrailEntry[] }) {
           </tbody>
         </table>
       </div>
-    </details>
+    </>
   );
 }

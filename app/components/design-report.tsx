@@ -3,6 +3,7 @@ import type { UnitSystem } from "~/units";
 import { CircuitDiagram } from "./circuit-diagram";
 import { CycleChart } from "./cycle-chart";
 import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "./design-panels";
+import { FoldedSection } from "./folded-section";
 import { Card } from "./ui";
 
 /**
@@ -32,19 +33,21 @@ export function DesignReport({
           <span className="text-xs text-ink-400">{updating ? "Updating…" : `Engine ${design.engineVersion}`}</span>
         </div>
         <CircuitDiagram design={design} units={units} />
+        <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
+          <a href="#bill" className="font-semibold text-flow-700 hover:underline">{componentsTitle} ({design.bom.length} lines)</a>
+          <a href="#calculation-trail" className="font-semibold text-flow-700 hover:underline">How every number was reached</a>
+        </p>
       </Card>
       <KeySizes design={design} units={units} />
       <CycleChart cycle={design.cycle} units={units} />
       <WarningsList warnings={design.warnings} />
       {cautions ? <CautionsPanel /> : null}
-      <Card>
-        <h2 className="mb-3 font-semibold">{componentsTitle}</h2>
+      <FoldedSection id="bill" title={componentsTitle} summary={`Show all ${design.bom.length} lines`}>
         <ComponentTable design={design} />
-      </Card>
-      <Card>
-        <h2 className="mb-3 font-semibold">How every number was reached</h2>
+      </FoldedSection>
+      <FoldedSection id="calculation-trail" title="How every number was reached" summary={`Show ${design.trail.length} steps`}>
         <CalculationTrail trail={design.trail} />
-      </Card>
+      </FoldedSection>
     </>
   );
 }

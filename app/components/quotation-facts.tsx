@@ -9,6 +9,8 @@ const longDate = (iso: string) => formatDay(iso);
 /** What the buyer asks to be quoted, and the drawings and photos that come with the spec. */
 export function QuotationPanel({ facts, attachments }: { facts: QuotationFacts; attachments: AttachmentView[] }) {
   const rows: [string, string | null][] = [
+    ["Mains voltage at the machine", facts.supplyVoltage],
+    ["Hydraulic fluid", facts.fluid],
     ["Units wanted", facts.unitsWanted],
     ["Needed by", facts.dateNeeded ? longDate(facts.dateNeeded) : null],
     ["Delivered to", facts.deliveryRegion],
@@ -17,7 +19,11 @@ export function QuotationPanel({ facts, attachments }: { facts: QuotationFacts; 
   ];
   return (
     <Card>
-      <h2 className="mb-3 font-semibold">What to quote</h2>
+      <h2 className="mb-3 font-semibold">The machine and what to quote</h2>
+      <div className="mb-4 rounded-md bg-ink-50 p-3 text-sm">
+        <p className="text-xs font-semibold uppercase tracking-wide text-ink-600">What the machine does</p>
+        <p className="mt-1 whitespace-pre-line text-ink-900">{facts.purpose ?? <span className="text-ink-600">The machine builder did not describe it; the axis requirements below say what it must do.</span>}</p>
+      </div>
       <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[14rem_1fr]">
         {rows.map(([label, value]) => (
           <div key={label} className="contents">

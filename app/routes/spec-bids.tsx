@@ -1,4 +1,5 @@
-import { Form, Link, data, useNavigation, useSearchParams } from "react-router";
+import { useEffect, useRef } from "react";
+import { Form, Link, data, useNavigation, useSearchParams, type ShouldRevalidateFunction } from "react-router";
 import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/spec-bids";
 import { requireRole } from "~/auth/permissions.server";
@@ -50,11 +51,23 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
 }
 
+// A refused award (409: awarded meanwhile from another tab, or the offer withdrawn) still
+// reloads the comparison, so the page shows the spec's new state beside the refusal.
+export const shouldRevalidate: ShouldRevalidateFunction = ({ actionStatus, defaultShouldRevalidate }) =>
+  actionStatus === 409 ? true : defaultShouldRevalidate;
+
 const day = (iso: string) => formatDay(iso);
 
 export default function SpecBids({ loaderData: d, actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
   const navigation = useNavigation();
+  // A refusal is brought into view and focused: the buyer was looking at the confirm button, far below.
+  const refusal = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (!actionData?.error || !refusal.current) return;
+    refusal.current.scrollIntoView({ block: "center" });
+    refusal.current.focus();
+  }, [actionData]);
   const { columns, rows, cheapestCompleteId } = d.comparison;
   const money = (c: number) => formatMoney(c, d.spec.currency);
   const cheapest = columns.find((c) => c.id === cheapestCompleteId);
@@ -86,8 +99,18 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
         }
       />
       {actionData?.error ? (
-        <div className="mb-4" role="alert">
-          <Notice tone="bad">{actionData.error}</Notice>
+        <div ref={refusal} tabIndex={-1} className="mb-4 outline-none" data-refusal="">
+          <Notice tone="bad">
+            {actionData.error}
+            {d.jobId ? (
+              <>
+                {" "}
+                <Link to={`/jobs/${d.jobId}`} className="font-semibold underline">
+                  Follow the job
+                </Link>
+              </>
+            ) : null}
+          </Notice>
         </div>
       ) : null}
 

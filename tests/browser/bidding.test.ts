@@ -36,8 +36,9 @@ async function bid(page: Page, first: string, price: string, leadWeeks: string, 
   await page.waitForURL(`**/specs/${spec.id}/bid`);
   await hydrated(page);
   const prices = page.locator('input[name$=".unitPrice"]');
+  // The URL changes as the client-side navigation commits; the form renders just after.
+  await expect.poll(() => prices.count()).toBeGreaterThan(8);
   const count = await prices.count();
-  expect(count).toBeGreaterThan(8);
   // A line priced 0 is included elsewhere in the offer.
   for (let i = 0; i < count; i++) await prices.nth(i).fill(i === 0 ? first : i === includedLine ? "0" : price);
   if (alternative) {
@@ -96,11 +97,32 @@ describe("bidding", () => {
     expect(await comparison.getByText("Ex works, 30 days net.").count()).toBe(2);
     await shot(buyerPage, "3-comparison");
 
+    // A second tab has the other offer's confirmation open when the first tab awards.
+    const secondTab = await buyerPage.context().newPage();
+    await secondTab.goto(`/specs/${spec.id}/bids`);
+    await hydrated(secondTab);
+    await secondTab.getByRole("link", { name: "Award to Quayside Hydraulics" }).click();
+    await secondTab.getByText("I award this spec to Quayside Hydraulics.").click();
+
     await buyerPage.getByRole("link", { name: "Award to Fenwick Power Units" }).click();
     await buyerPage.getByText("I award this spec to Fenwick Power Units.").click();
     await shot(buyerPage, "4-confirm");
     await buyerPage.getByRole("button", { name: "Confirm the award" }).click();
     await buyerPage.waitForURL("**/jobs/*");
+
+    // The second tab's award is refused where the buyer is looking, and the page shows the spec awarded.
+    await secondTab.getByRole("button", { name: "Confirm the award" }).click();
+    const refusal = secondTab.locator("[data-refusal]", { hasText: "already been awarded" });
+    await expect.poll(() => refusal.count()).toBe(1);
+    await expect.poll(() => refusal.evaluate((el) => el === document.activeElement)).toBe(true);
+    const box = (await refusal.boundingBox())!;
+    const viewport = secondTab.viewportSize()!;
+    expect(box.y).toBeGreaterThanOrEqual(0);
+    expect(box.y + box.height).toBeLessThanOrEqual(viewport.height);
+    await expect.poll(() => secondTab.getByRole("heading", { level: 1 }).locator("..").textContent()).toContain("Awarded");
+    expect(await secondTab.getByRole("link", { name: /^Award to/ }).count()).toBe(0);
+    await shot(secondTab, "4b-second-tab-refused");
+    await secondTab.close();
     const job = await Job.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
     expect(job.shopOrganisationId).toBe(cheap);
     await shot(buyerPage, "5-job");

@@ -53,7 +53,7 @@ describe("questions on a spec", () => {
     await shopPage.getByRole("link", { name: "Coil car lift" }).click();
     await shopPage.waitForURL(`**/specs/${spec.id}`);
     await hydrated(shopPage);
-    await expect.poll(() => shopPage.getByRole("heading", { name: "What to quote" }).count()).toBe(1);
+    await expect.poll(() => shopPage.getByRole("heading", { name: "The machine and what to quote" }).count()).toBe(1);
 
     // An empty question is refused beside the box; a real one is sent.
     await shopPage.getByRole("button", { name: "Send the question" }).click();
@@ -66,7 +66,7 @@ describe("questions on a spec", () => {
     expect(await shopPage.getByText("Your question").count()).toBe(1);
     expect(await shopPage.getByLabel("Ask the machine builder").inputValue()).toBe("");
     await shot(shopPage, "2-shop-asked");
-    await card(shopPage, "What to quote", "2a-what-to-quote");
+    await card(shopPage, "The machine and what to quote", "2a-what-to-quote");
     await card(shopPage, "Questions and answers", "2b-shop-panel");
 
     const buyerPage = await app.newPage();

@@ -125,6 +125,16 @@ describe("spec intake", () => {
     expect(await answer("Pump").innerText()).toBe("Let the sizing choose");
     expect(await answer("Stroke").innerText()).toBe("30 in");
     await shot(page, "5-review");
+    // On a 1366 × 768 screen the publish bar is in view without scrolling; long detail is folded, one click away.
+    await page.setViewportSize({ width: 1366, height: 768 });
+    const publishBox = (await page.getByRole("button", { name: "Publish for bids" }).boundingBox())!;
+    expect(publishBox.y).toBeGreaterThanOrEqual(0);
+    expect(publishBox.y + publishBox.height).toBeLessThanOrEqual(768);
+    const trail = page.locator("details#calculation-trail");
+    expect(await trail.evaluate((d) => (d as HTMLDetailsElement).open)).toBe(false);
+    await page.getByRole("link", { name: "How every number was reached" }).click();
+    await expect.poll(() => trail.evaluate((d) => (d as HTMLDetailsElement).open)).toBe(true);
+    await page.screenshot({ path: path.join(SCREENSHOTS, "intake-5b-review-1366.png") });
     await page.getByLabel(/I have read the cautions/).check();
     await page.getByRole("button", { name: "Publish for bids" }).click();
     await page.waitForURL("**/specs/*?published=1");

@@ -48,7 +48,11 @@ describe("a published spec as a shop reads it", () => {
     const shop = await signedIn(await makeMember("shop"));
     const res = await page(shop, published.id);
     expect(res.status).toBe(200);
+    // What the machine does, the supply and the fluid come first, in the buyer's words.
     expect(res.data.quotation).toEqual({
+      purpose: "Presses sheet over a die.",
+      supplyVoltage: "400 V three-phase",
+      fluid: "ISO VG 46",
       unitsWanted: "2",
       dateNeeded: needed,
       deliveryRegion: "UK — West Midlands",

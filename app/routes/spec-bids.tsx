@@ -3,13 +3,14 @@ import { Form, Link, data, useNavigation, useSearchParams, type ShouldRevalidate
 import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/spec-bids";
 import { requireRole } from "~/auth/permissions.server";
+import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { Badge, Button, ButtonLink, Card, EmptyState, Notice, PageHeader, TableScroll } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { formatMoney } from "~/content/currencies";
 import { SPEC_STATUS_LABELS, type SpecStatus } from "~/content/spec-status";
 import { awardSchema } from "~/schemas/bid";
-import { awardBid, awardedJobOf } from "~/services/award.server";
+import { awardBid, awardedJobOf, canAwardNow } from "~/services/award.server";
 import { COMPARISON_SORTS, type ComparisonSort } from "~/services/bid-comparison";
 import { comparisonOf } from "~/services/bids.server";
 import { FieldErrors } from "~/services/errors.server";
@@ -21,24 +22,25 @@ export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Bids · ${d?
 const SORT_LABELS: Record<ComparisonSort, string> = { total: "Lowest total", lead: "Shortest lead time", valid: "Longest validity", shop: "Shop name" };
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const user = await requireRole(request, ["buyer"]);
+  const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   const spec = await specOfOwner(user, params.specId);
   const url = new URL(request.url);
   const sortParam = url.searchParams.get("sort") ?? "total";
   const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam) ? (sortParam as ComparisonSort) : "total";
-  const [{ comparison }, job] = await Promise.all([comparisonOf(user, spec, sort), awardedJobOf(user, spec)]);
+  const [{ comparison }, job, canAward] = await Promise.all([comparisonOf(user, spec, sort), awardedJobOf(user, spec), canAwardNow(user, spec)]);
   const choosing = comparison.columns.find((c) => c.id === url.searchParams.get("award") && c.status === "submitted") ?? null;
   return {
     spec: { id: spec.id, title: spec.title, status: spec.status as SpecStatus, revision: spec.currentRevision, currency: spec.currency, units: spec.unitsWanted ?? 1, retainerPercent: spec.retainerPercent ?? "0", deadline: spec.bidDeadline?.toISOString() ?? null },
     sort,
     comparison,
     jobId: job?.id ?? null,
+    canAward,
     choosing: choosing && { ...choosing, retainerCents: retainerCents(choosing.totalCents, spec.retainerPercent ?? "0") },
   };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const user = await requireRole(request, ["buyer"]);
+  const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   const spec = await specOfOwner(user, params.specId);
   const parsed = awardSchema.safeParse(Object.fromEntries(await request.formData()));
   if (!parsed.success) return data({ error: parsed.error.issues[0]?.message ?? "Confirm the award." }, { status: 400 });
@@ -71,7 +73,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
   const { columns, rows, cheapestCompleteId } = d.comparison;
   const money = (c: number) => formatMoney(c, d.spec.currency);
   const cheapest = columns.find((c) => c.id === cheapestCompleteId);
-  const canAward = d.spec.status === "open";
+  const { canAward } = d;
   const withSort = (sort: string) => {
     const next = new URLSearchParams(params);
     next.set("sort", sort);

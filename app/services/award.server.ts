@@ -1,6 +1,6 @@
 import { Op } from "sequelize";
 import { Bid, Job, Organisation, Spec, User, sequelize } from "~/models/index.server";
-import { jobsWhere, viewerOf } from "~/auth/access-policy.server";
+import { can, jobsWhere, viewerOf } from "~/auth/access-policy.server";
 import { formatMoney } from "~/content/currencies";
 import { formatDay, todayUtc } from "~/content/dates";
 import { FieldErrors } from "./errors.server";
@@ -61,6 +61,11 @@ export async function awardBid(user: User, specId: string | undefined, { bidId }
     }
     return job;
   });
+}
+
+/** Whether the viewer may award this spec now: its buyer, while it is open (awardBid checks both again). */
+export async function canAwardNow(user: User, spec: Pick<Spec, "organisationId" | "status">): Promise<boolean> {
+  return can(await viewerOf(user), "spec.award", spec) && spec.status === "open";
 }
 
 /** The job an award of this spec opened, if the viewer may read it (for the comparison page's link). */

@@ -20,7 +20,7 @@ import {
 import { Bid, Job, Organisation, Payment, Spec, User } from "~/models/index.server";
 import { createDraft, deleteDraft, publish, saveStep, startRevision } from "~/services/specs.server";
 import { saveBid, withdrawBid } from "~/services/bids.server";
-import { awardBid } from "~/services/award.server";
+import { awardBid, canAwardNow } from "~/services/award.server";
 import { answerQuestion, askQuestion } from "~/services/questions.server";
 import { addManagerNote, addProgressNote, reachMilestones } from "~/services/jobs.server";
 import { paymentOfSession, requestRefund, startRetainerPayment } from "~/services/payments.server";
@@ -178,6 +178,15 @@ describe("who may take which action", () => {
   it.each(rows)("$first on $record", ({ first, record, allowed }) => {
     const seen = PEOPLE.filter((person) => can(viewers[person], first as Action, records[record] as never));
     expect(seen).toEqual([...allowed]);
+  });
+});
+
+describe("what pages are told the viewer may do", () => {
+  it("offers the award to the spec's buyer while it is open, to nobody else and not after", async () => {
+    const spec = records["published-spec"] as Spec;
+    expect(await canAwardNow(people.buyer, spec)).toBe(true);
+    for (const person of ["other buyer", "shop", "manager", "admin"] as const) expect(await canAwardNow(people[person], spec)).toBe(false);
+    expect(await canAwardNow(people.buyer, { organisationId: spec.organisationId, status: "awarded" })).toBe(false);
   });
 });
 

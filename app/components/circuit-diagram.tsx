@@ -121,9 +121,12 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       const bore = numberValue(c, "boreMm");
       const rod = numberValue(c, "rodMm");
       const stroke = numberValue(c, "strokeMm");
-      const size = bore !== undefined && rod !== undefined
-        ? [`Ø${u.lengthValue(bore)} / Ø${u.lengthValue(rod)}${stroke !== undefined ? ` × ${u.lengthValue(stroke)}` : ""} ${u.lengthUnit}`]
-        : [];
+      // Metric: "Ø80 / Ø36 × 400 mm"; US: the metric bore and rod with inches beside, the stroke in inches.
+      const size = bore === undefined || rod === undefined
+        ? []
+        : u.system === "us"
+          ? [u.boreRod(bore, rod), ...(stroke !== undefined ? [`stroke ${u.length(stroke)}`] : [])]
+          : [`Ø${u.lengthValue(bore)} / Ø${u.lengthValue(rod)}${stroke !== undefined ? ` × ${u.lengthValue(stroke)}` : ""} ${u.lengthUnit}`];
       return (
         <>
           <CylinderSymbol id={c.id} place={cyl} />
@@ -309,7 +312,7 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
           <MotorSymbol id={c.id} centre={at} />
           <Caption
             x={at.x - MOTOR_R - 12} y={at.y - 8} anchor="end" name="Motor"
-            values={[...v("ratedKw", u.power), ...v("speedRpm", (n) => `${n} rpm`)]}
+            values={[...v("ratedKw", u.motorRating), ...v("speedRpm", (n) => `${n} rpm`)]}
           />
         </>
       );

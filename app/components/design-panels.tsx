@@ -29,11 +29,11 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
   const u = displayUnits(units);
   const { cylinder: c, pressuresBar: p, counterbalance: cb, directionalValve: dv } = design;
   const items: { label: string; value: string; detail?: string }[] = [
-    { label: "Bore / rod", value: `Ø${u.lengthValue(c.boreMm)} / Ø${u.lengthValue(c.rodMm)} ${u.lengthUnit}`, detail: `stroke ${u.length(c.strokeMm)}` },
+    { label: "Bore / rod", value: u.boreRod(c.boreMm, c.rodMm), detail: `stroke ${u.length(c.strokeMm)}` },
     { label: "Extend pressure", value: u.pressure(p.extend), detail: "at the pump" },
     { label: "Retract pressure", value: u.pressure(p.retract), detail: "at the pump" },
     { label: "Pump flow", value: u.flow(design.flowsLpm.pump), detail: `${u.displacement(design.pump.displacementCcRev)} at ${design.pump.speedRpm} rpm` },
-    { label: "Motor rating", value: u.power(design.motor.ratedKw), detail: `needs ${u.power(design.motor.requiredKw)}` },
+    { label: "Motor rating", value: u.motorRating(design.motor.ratedKw), detail: `needs ${u.power(design.motor.requiredKw)}` },
     { label: "Relief setting", value: u.pressure(p.reliefSetting) },
   ];
   if (cb) {

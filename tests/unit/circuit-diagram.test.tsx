@@ -171,7 +171,11 @@ describe("CircuitDiagram", () => {
     const html = render(press, "us");
     const psi = Math.round(press.pressuresBar.reliefSetting * 14.5038).toLocaleString("en-GB");
     expect(html).toContain(`set ${psi} psi`);
-    expect(html).toContain(`Ø${(press.cylinder.boreMm / 25.4).toFixed(2)} /`);
+    // The cylinder is a metric catalogue size: the metric bore and rod first, inches beside them.
+    expect(html).toContain(`Ø${press.cylinder.boreMm} / Ø${press.cylinder.rodMm} mm (${(press.cylinder.boreMm / 25.4).toFixed(2)} / ${(press.cylinder.rodMm / 25.4).toFixed(2)} in)`);
+    expect(html).toContain(`stroke ${(press.cylinder.strokeMm / 25.4).toFixed(2)} in`);
+    // The motor is an IEC rating in kW, with hp beside it (1 hp = 0.74569987 kW).
+    expect(html).toContain(`${press.motor.ratedKw} kW (${(press.motor.ratedKw / 0.74569987).toFixed(2)} hp)`);
     expect(html).toContain("gpm");
     expect(html).not.toContain(" bar<");
   });
@@ -477,7 +481,8 @@ describe("CircuitDiagram: US customary values for the new parts", () => {
     const html = render(double, "us");
     const in3 = Math.round((double.decompression.releaseCm3 / 2.54 ** 3) * 10) / 10;
     expect(html).toContain(`releases about ${in3.toLocaleString("en-GB")} in³`);
-    expect(html).not.toContain("cm³");
+    // Only the pump's catalogue displacement is given in cm³ (with in³/rev beside it).
+    expect(html.replaceAll(/[\d.,]+ cm³\/rev \([\d.,]+ in³\/rev\)/g, "")).not.toContain("cm³");
     expect(html).toContain(`unloads above ${Math.round(double.pump.unloadingBar! * 14.5038).toLocaleString("en-GB")} psi`);
   });
 });

@@ -55,7 +55,7 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
     return v === undefined ? undefined : fmt(v);
   };
   const side = textValue(cbv, "side");
-  const drive = motor && phrase("driven by an electric motor", n(motor, "ratedKw", (k) => `rated ${u.power(k)}`));
+  const drive = motor && phrase("driven by an electric motor", n(motor, "ratedKw", (k) => `rated ${u.motorRating(k)}`));
   const sentences = [
     tank && phrase("Reservoir", n(tank, "volumeL", u.volume), get("strainer") && "with a suction strainer", "feeds the pump"),
     ...pumpSentences(circuit, u, drive),

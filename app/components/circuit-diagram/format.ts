@@ -18,6 +18,13 @@ export interface DisplayUnits {
   /** a small volume of oil, such as what a compressed cap end gives back: cm³ or in³ */
   smallVolume(cm3: number): string;
   power(kw: number): string;
+  /**
+   * Catalogue parts are metric sizes (ISO 3320 bores, ISO 3662 displacements, IEC motor
+   * ratings): a US reader sees the metric size first and the inch or hp value beside it,
+   * "Ø125 / Ø56 mm (4.92 / 2.20 in)", never an odd inch size.
+   */
+  boreRod(boreMm: number, rodMm: number): string;
+  motorRating(kw: number): string;
 }
 
 export function displayUnits(system: UnitSystem = "metric"): DisplayUnits {
@@ -25,16 +32,24 @@ export function displayUnits(system: UnitSystem = "metric"): DisplayUnits {
   return {
     system,
     pressure: (bar) => formatQuantity("pressure", bar, system),
-    length: (mm) => formatQuantity("diameter", mm, system),
+    length: (mm) => formatQuantity("length", mm, system),
     lengthValue: (mm) => String(roundForDisplay(toDisplay("diameter", mm, system), decimals)),
     lengthUnit: label,
     flow: (lpm) => formatQuantity("flow", lpm, system),
-    displacement: (cc) => formatQuantity("displacement", cc, system),
+    displacement: (cc) =>
+      system === "us" ? `${formatQuantity("displacement", cc, "metric")} (${formatQuantity("displacement", cc, "us")})` : formatQuantity("displacement", cc, system),
     volume: (l) => formatQuantity("volume", l, system),
     // 1 in = 2.54 cm exactly, so 1 in³ = 2.54³ cm³
     smallVolume: (cm3) =>
       system === "us" ? `${readable(cm3 / 2.54 ** 3)} in³` : `${Math.round(cm3).toLocaleString("en-GB")} cm³`,
     power: (kw) => formatQuantity("power", kw, system),
+    boreRod: (bore, rod) => {
+      const metric = `Ø${bore} / Ø${rod} mm`;
+      if (system !== "us") return metric;
+      const inch = (mm: number) => roundForDisplay(toDisplay("diameter", mm, "us"), 2).toFixed(2);
+      return `${metric} (${inch(bore)} / ${inch(rod)} in)`;
+    },
+    motorRating: (kw) => (system === "us" ? `${formatQuantity("power", kw, "metric")} (${formatQuantity("power", kw, "us")})` : formatQuantity("power", kw, system)),
   };
 }
 

@@ -1,14 +1,15 @@
 /**
  * One cycle of the axis as phases in time order: what the cylinder draws from the pump, the
  * pump pressure, what the chosen pump delivers and the power it hands to the oil. It reads only
- * numbers the sizing has already reached (pressures, flows, the pump's sections and settings, the
- * motor's phase list), so the cycle chart shows the same figures the motor was sized from. The
+ * numbers the sizing has already reached: the pump choice's pressure and delivery in each phase
+ * (pump-choice.ts, the one source of them), the motor's phase list and the flows the cylinder
+ * draws, so the cycle chart shows the same figures the motor was sized from. The
  * entries have the shape of a machine cycle's phases (step, axes), so several axes can share it.
  */
-import { A } from "./assumptions";
 import type { Design } from "./design";
 import { phaseFlowLpm } from "./phases";
-import { hydraulicPowerKw, pumpDeliveryLpm } from "./pump-motor";
+import type { PumpPhase, PumpPhaseName } from "./pump-choice";
+import { hydraulicPowerKw } from "./pump-motor";
 import { v, type TrailEntry } from "./trail";
 
 /** "extend" is the whole extension of an axis without a pressing stroke. */
@@ -37,6 +38,9 @@ export interface CyclePhase {
   shaftKw: number;
 }
 
+/** The pump's pressure and delivery in each phase (PumpChoice.phases) and in neutral (pumpPhaseInNeutral). */
+export type CyclePumpPhases = Record<Exclude<PumpPhaseName, "unloadingPeak">, PumpPhase | null> & { neutral: PumpPhase };
+
 /** The axis name the cycle lists, where the buyer gave none. */
 export const UNNAMED_AXIS = "axis";
 
@@ -45,47 +49,19 @@ export const UNNAMED_AXIS = "axis";
  * speeds; the dwell as asked); the rest of 3600 / cyclesPerHour is neutral. No neutral phase
  * with no cycles per hour, or where the motion fills the cycle (the duty warning says so).
  */
-export function cycleOf(d: Omit<Design, "cycle">): CyclePhase[] {
+export function cycleOf(d: Omit<Design, "cycle">, pump: CyclePumpPhases): CyclePhase[] {
   const r = d.requirements;
   const c = d.cylinder;
-  const qp = d.flowsLpm.pump;
   const axis = r.name ?? UNNAMED_AXIS;
   const motor = new Map(d.motor.phases.map((ph) => [ph.name, ph]));
   const timeOf = (name: string): number => motor.get(name)?.durationS ?? 0;
   const shaftOf = (name: string): number => motor.get(name)?.kw ?? 0;
-  const atForceBar = d.pump.type === "compensated" ? d.pump.compensatorBar! : d.pressuresBar.reliefSetting;
-
-  /** What the chosen pump delivers at a pump pressure, given what the cylinder draws. */
-  const delivery = (bar: number, drawnLpm: number): number => {
-    if (d.pump.type === "double" && bar >= d.pump.unloadingBar! - 1e-9) {
-      // Above the unloading setting the large section dumps to tank: the small one alone feeds.
-      return pumpDeliveryLpm(d.pump.displacementsCcRev[1], d.pump.speedRpm, d.pump.volumetricEfficiency);
-    }
-    if (d.pump.type === "compensated" && bar >= d.pump.compensatorBar! - 1e-9) {
-      // At its setting the pump destrokes to what is drawn; at dead-head only its leakage
-      // (≈ (1 − η_v)·Q_max, the estimate the pump choice uses [M]).
-      return drawnLpm > 0 ? drawnLpm : A.compensatorLeakShare.value * qp;
-    }
-    return qp;
-  };
-
-  /**
-   * A double pump's small section presses at the relief where a flow control sends its surplus
-   * over it, or at the pressing pressure where it feeds the cap end directly. The pump choice
-   * decided which; its power says so, P·η = p·Q_S/600 + Q_L·Δp_u/600, so the pressure is read
-   * back from it rather than decided a second time here.
-   */
-  const doublePressBar = (): number | null => {
-    if (d.pump.type !== "double") return null;
-    const qS = pumpDeliveryLpm(d.pump.displacementsCcRev[1], d.pump.speedRpm, d.pump.volumetricEfficiency);
-    const pumpKw = shaftOf("pressing") * d.pump.overallEfficiency - hydraulicPowerKw(d.pump.unloadedDropBar!, qp - qS);
-    return (600 * pumpKw) / qS;
-  };
 
   const phases: Omit<CyclePhase, "shownS">[] = [];
-  const add = (phase: CyclePhaseName, step: number | null, moving: boolean, durationS: number, demandLpm: number, pressureBar: number, shaftKw: number) => {
+  const add = (phase: CyclePhaseName, step: number | null, moving: boolean, durationS: number, demandLpm: number, at: PumpPhase | null, shaftKw: number) => {
     if (!(durationS > 0)) return;
-    const pumpFlowLpm = delivery(pressureBar, demandLpm);
+    if (!at) throw new Error(`cycleOf: the pump choice reports no ${phase} phase, yet the cycle has one`);
+    const { bar: pressureBar, lpm: pumpFlowLpm } = at;
     phases.push({
       phase, step, axes: moving ? [axis] : [], durationS, demandLpm, pressureBar, pumpFlowLpm,
       hydraulicKw: hydraulicPowerKw(pressureBar, pumpFlowLpm), shaftKw,
@@ -96,18 +72,17 @@ export function cycleOf(d: Omit<Design, "cycle">): CyclePhase[] {
   const approachAreaMm2 = d.regenerative ? c.capAreaMm2 - c.annulusAreaMm2 : c.capAreaMm2;
   const pressing = d.flowsLpm.press !== undefined;
   add(pressing ? "approach" : "extend", 0, true, timeOf("approach"), phaseFlowLpm(approachAreaMm2, d.speedsMmS.extendActual),
-    d.pressuresBar.extendMoving, shaftOf("approach"));
-  // Pressing slower than the pump delivers, and the dwell, hold the pump at its relief (or compensator) setting.
-  if (pressing) add("pressing", 0, true, timeOf("pressing"), d.flowsLpm.press!, doublePressBar() ?? atForceBar, shaftOf("pressing"));
-  add("dwell", 0, false, timeOf("dwell"), 0, atForceBar, shaftOf("dwell"));
-  add("retract", 1, true, timeOf("retract"), phaseFlowLpm(c.annulusAreaMm2, d.speedsMmS.retractActual), d.pressuresBar.retract, shaftOf("retract"));
+    pump.approach, shaftOf("approach"));
+  if (pressing) add("pressing", 0, true, timeOf("pressing"), d.flowsLpm.press!, pump.press, shaftOf("pressing"));
+  add("dwell", 0, false, timeOf("dwell"), 0, pump.dwell, shaftOf("dwell"));
+  add("retract", 1, true, timeOf("retract"), phaseFlowLpm(c.annulusAreaMm2, d.speedsMmS.retractActual), pump.retract, shaftOf("retract"));
 
   const busyS = phases.reduce((sum, ph) => sum + ph.durationS, 0);
   const cycleS = 3600 / r.cyclesPerHour;
   // No cycles per hour (or so few the time overflows): no cycle time, so no idle phase to draw.
   if (Number.isFinite(cycleS)) {
     // Neutral: all the shaft power becomes heat, so the heat balance's figure is the motor's.
-    add("neutral", null, false, cycleS - busyS, 0, d.heat.neutralPressureBar, d.heat.neutralLossKw);
+    add("neutral", null, false, cycleS - busyS, 0, pump.neutral, d.heat.neutralLossKw);
   }
   // Idle time is drawn at most as long as the rest of the cycle.
   return phases.map((ph) => ({ ...ph, shownS: ph.phase === "neutral" ? Math.min(ph.durationS, busyS) : ph.durationS }));

@@ -11,7 +11,8 @@ import {
 } from "./loads";
 import { holdingSide } from "./holding";
 import { phaseFlowLpm } from "./phases";
-import { choosePump, type PhaseDemand } from "./pump-choice";
+import { pressBypassDropBar, pressNeedsControl } from "./press-speed";
+import { choosePump, smallSectionLpm, type PumpChoice } from "./pump-choice";
 import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import {
   capInflowLpm, regenerationRuledOut, regenerationVerdict, regenSwitchFits, regenSwitchSettingBar, regenToRetractSpeedRatio, rodAreaMm2,
@@ -129,6 +130,8 @@ export interface Evaluation {
   pressN: number;
   /** lines that carry pressure to or from the cylinder (the suction line is sized with the design) */
   lines: { pressure: LineSizing; capWork: LineSizing; rodWork: LineSizing; return: LineSizing };
+  /** drop across the pressing-speed control's bypass valve in the approach; 0 without the control */
+  pressBypassDropBar: number;
   extendSupplyLossBar: number;
   extendBackBar: number;
   retractSupplyLossBar: number;
@@ -143,7 +146,10 @@ export interface Evaluation {
   extendSteadyBar: number;
   retractSteadyBar: number;
   workingBar: number;
+  /** the relief: a fixed or double pump's 1.1 × working pressure, a compensated pump's set from its compensator */
   reliefBar: number;
+  /** the pump this candidate gets, with its pressure and delivery in each phase */
+  pump: PumpChoice;
   rodSidePeakBar: number;
   compressiveN: number;
   buckling: BucklingResult;
@@ -160,8 +166,24 @@ function setLoweringDrop(cbv: CbvEvaluation, steadyInletBar: number, backBar: nu
 /**
  * Evaluates one pair with the actual line losses: each line at the flow it carries in that
  * stroke, in the hose sized for its largest flow. The search and the design use the same numbers.
+ * Where a pressing-speed control is fitted, the approach runs through its bypass valve; the
+ * control is fitted unless the pump gives the pressing speed itself (a double pump's small
+ * section close enough to it), which the pump choice decides, so the pair is first evaluated
+ * without the bypass and again with it where the chosen pump needs the control.
  */
 export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize = 0, regenerative = false): Evaluation {
+  const plain = evaluateOnce(ctx, cyl, hoseUpsize, regenerative, false);
+  return needsPressControl(plain, ctx.speedRpm) ? evaluateOnce(ctx, cyl, hoseUpsize, regenerative, true) : plain;
+}
+
+/** Whether this evaluation's pump offers more than the pressing speed asks (press-speed.ts). */
+function needsPressControl(ev: Evaluation, speedRpm: number): boolean {
+  if (ev.flowPressLpm === null) return false;
+  const offers = ev.pump.type === "double" ? smallSectionLpm(ev.flowPressLpm, speedRpm) : ev.pumpFlowLpm;
+  return pressNeedsControl(offers, ev.flowPressLpm);
+}
+
+function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: number, regenerative: boolean, bypassFitted: boolean): Evaluation {
   const { req, loads, fluid } = ctx;
   const eta = A.cylinderEfficiency.value;
   const etaV = A.volumetricEfficiency.value;
@@ -210,13 +232,16 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   const check = A.cbvCheckDropBar.value;
   const pressureLine = lineLossBar(lines.pressure, qp, fluid);
   const capCheck = ctx.cbvSide === "cap" ? check : 0;
+  // The bypass valve across the pressing-speed control sits in the cap line past the regeneration
+  // join, so it carries the whole approach inflow to the cap end (Q_p, or the cap inflow).
+  const bypassDropBar = bypassFitted ? pressBypassDropBar(regenerative ? capInLpm : qp) : 0;
   // Regenerating, the supply loss runs from the pump to the cap (the cap line at the cap inflow),
   // and the "back-pressure" is how far the rod side stands above the cap side: the rod line and
   // the regeneration valve at the rod outflow, then the cap line to the cap end.
-  const capInLossBar = regenerative ? lineLossBar(lines.capWork, capInLpm, fluid) + capCheck : 0;
+  const capInLossBar = regenerative ? lineLossBar(lines.capWork, capInLpm, fluid) + capCheck + bypassDropBar : 0;
   const extendSupplyLossBar = regenerative
     ? pressureLine + dcv + capInLossBar
-    : pressureLine + dcv + lineLossBar(lines.capWork, qp, fluid) + capCheck;
+    : pressureLine + dcv + lineLossBar(lines.capWork, qp, fluid) + capCheck + bypassDropBar;
   const extendBackBar = regenerative
     ? lineLossBar(lines.rodWork, rodOutLpm, fluid) + dcv + capInLossBar
     : lineLossBar(lines.rodWork, qp / phi, fluid) + dcv + lineLossBar(lines.return, qp / phi, fluid) + filter;
@@ -275,7 +300,14 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   if (cbv) setLoweringDrop(cbv, cbv.side === "rod" ? extendSteadyInlet : retractSteadyInlet, cbv.side === "rod" ? extendBackBar : retractBackBar);
   const limitBar = workingLimitBar(req.maxPressureBar, cyl.ratedPressureBar, A.reliefMargin.value);
   const workingBar = Math.max(extendBar, retractBar);
-  const reliefBar = reliefSettingBar(workingBar);
+  const fixedReliefBar = reliefSettingBar(workingBar);
+  // The pump choice sets a compensated pump's relief from its compensator; others keep 1.1 × p_working.
+  const pump = choosePump({
+    approachBar: extendMovingBar, retractBar,
+    press: flowPressLpm !== null ? { bar: extendPressBar, flowLpm: flowPressLpm } : null,
+    reliefBar: fixedReliefBar, workingBar, ratedBar: cyl.ratedPressureBar, displacementCc, pumpFlowLpm: qp, speedRpm: ctx.speedRpm,
+  }, req.pumpType);
+  const reliefBar = pump.reliefBar;
   // Regenerating, the rod side stands Δp above the cap side; otherwise it carries the back-pressure.
   const rodSidePeakBar = Math.max(retractInletBar, cbv?.side === "rod" ? cbv.settingBar : regenerative ? extendInletBar + extendBackBar : extendBackBar);
   // What ends a regenerative approach: with a pressing stroke the limit switch where it starts (the
@@ -298,9 +330,9 @@ export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, ho
   return {
     cyl, regen, regenReason: "", hoseUpsize, workingLimitBar: limitBar, flowExtendLpm, flowRetractLpm, flowPressLpm, pumpRequiredLpm, requiredDisplacementCc: needCc, displacementCc,
     pumpInSeries: inSeries, pumpFlowLpm: qp, extendActualMmS, retractActualMmS, accelExtendN, accelRetractN,
-    extend, retract, pressN, lines, extendSupplyLossBar, extendBackBar, retractSupplyLossBar, retractBackBar,
+    extend, retract, pressN, lines, pressBypassDropBar: bypassDropBar, extendSupplyLossBar, extendBackBar, retractSupplyLossBar, retractBackBar,
     cbv, extendInletBar, extendMovingBar, extendPressBar, extendBar, retractInletBar, retractBar,
-    extendSteadyBar, retractSteadyBar, workingBar, reliefBar, rodSidePeakBar, compressiveN, buckling,
+    extendSteadyBar, retractSteadyBar, workingBar, reliefBar, pump, rodSidePeakBar, compressiveN, buckling,
     pressureOk: workingBar <= limitBar + 1e-9,
     cbvOk: !cbv || cbv.settingBar <= cyl.ratedPressureBar + 1e-9,
     bucklingOk: buckling.safetyFactor >= A.bucklingSafetyFactor.value,
@@ -317,15 +349,6 @@ export function valveStackFlowLpm(ev: Evaluation): number {
   return Math.max(qp, qp * phi, qp / phi, ev.regen?.capInflowLpm ?? 0, ev.regen?.rodOutflowLpm ?? 0);
 }
 
-/** What the pump must do in each phase of this candidate, for the pump choice. */
-export function phaseDemandOf(ev: Evaluation, speedRpm: number): PhaseDemand {
-  return {
-    approachBar: ev.extendMovingBar, retractBar: ev.retractBar,
-    press: ev.flowPressLpm !== null ? { bar: ev.extendPressBar, flowLpm: ev.flowPressLpm } : null,
-    reliefBar: ev.reliefBar, workingBar: ev.workingBar, displacementCc: ev.displacementCc, pumpFlowLpm: ev.pumpFlowLpm, speedRpm,
-  };
-}
-
 /**
  * One candidate at full area and, where the axis allows it, with a regenerative approach; the
  * regenerative one is kept where it pays (regenerationVerdict), and the reason rides along.
@@ -335,7 +358,7 @@ export function evaluateWithRegenerationChoice(ctx: SizingContext, cyl: Cylinder
   const regen = ctx.regenRuledOut === null ? evaluateCandidate(ctx, cyl, hoseUpsize, true) : null;
   const verdict = regenerationVerdict({
     ruledOut: ctx.regenRuledOut,
-    normal: { displacementCc: normal.displacementCc, pumpType: choosePump(phaseDemandOf(normal, ctx.speedRpm), ctx.req.pumpType).type },
+    normal: { displacementCc: normal.displacementCc, pumpType: normal.pump.type },
     regen: regen && {
       displacementCc: regen.displacementCc, speedRatioToRetract: regen.regen!.speedRatioToRetract,
       approachBar: regen.extendMovingBar, limitBar: regen.workingLimitBar,

@@ -8,6 +8,7 @@ import type { Design, LineSizing } from "./design";
 import type { Evaluation, SizingContext } from "./evaluate";
 import type { DutyShares } from "./reservoir-heat";
 import { pressSpeedTrail } from "./press-speed";
+import { compensatorLeakLpm } from "./pump-choice";
 import { Trail, v, type TrailEntry } from "./trail";
 
 const TEXTBOOK_CYL = "textbook cylinder relation (Esposito, Fluid Power with Applications) [M]; units identity [D]";
@@ -189,8 +190,9 @@ export function explain(
   if (d.pump.type === "compensated" && d.pump.compensatorBar !== undefined) {
     t.add("compensator setting", d.pump.compensatorBar, "bar",
       d.pressSpeedControl
-        ? "p_c = max(p_working, min(p_press + Δp_control, p_relief − 10 bar)), rounded to 5 bar: the pressing-speed flow control needs its regulating drop above the pressing pressure, and the relief stays about 10 bar above p_c"
-        : "p_c ≥ the highest working pressure with line losses, rounded up to 5 bar; the relief sits about 10 % above",
+        ? "p_c = max(p_working, p_press + Δp_control), rounded up to 5 bar: the pressing-speed flow control needs its regulating drop above the pressing pressure"
+          + (ev.pump.compensatorNote ? `; ${ev.pump.compensatorNote}` : "")
+        : "p_c ≥ the highest working pressure with line losses, rounded up to 5 bar" + (ev.pump.compensatorNote ? `; ${ev.pump.compensatorNote}` : ""),
       { p_working: v(d.cylinder.workingPressureBar, "bar"), p_relief: vRelief, ...(d.pressSpeedControl ? { p_press: v(d.pressuresBar.press ?? 0, "bar"), Δp_control: v(d.pressSpeedControl.minDropBar, "bar") } : {}) },
       "compensator somewhat above the heaviest load's pressure: trade-press pump article [S]; relief 10 % or 10–20 bar above the compensator on a maker's page [CP]; flow-control regulating drop from memory [M]");
     if (d.pump.powerLimitKw !== undefined) {
@@ -226,12 +228,13 @@ export function explain(
   const vDcv = v(dcv, "bar");
   const filter = A.returnFilterDropBar.value;
   t.add("extend supply losses", ev.extendSupplyLossBar, "bar",
-    rg ? "Δp = pressure line + valve P→A at Q_p + cap line at the cap inflow (+ CBV check if cap side)" : "Δp = pressure line + valve P→A + cap line (+ CBV check if cap side)",
-    { dcv_path: vDcv, check: v(ctx.cbvSide === "cap" ? A.cbvCheckDropBar.value : 0, "bar"), Q: vQp },
+    (rg ? "Δp = pressure line + valve P→A at Q_p + cap line at the cap inflow (+ CBV check if cap side)" : "Δp = pressure line + valve P→A + cap line (+ CBV check if cap side)")
+      + (ev.pressBypassDropBar > 0 ? " + the pressing-speed control's bypass valve" : ""),
+    { dcv_path: vDcv, check: v(ctx.cbvSide === "cap" ? A.cbvCheckDropBar.value : 0, "bar"), Q: vQp, ...(ev.pressBypassDropBar > 0 ? { bypass: v(ev.pressBypassDropBar, "bar") } : {}) },
     `${DW}; valve allowances common practice [CP]`);
   if (rg) {
     t.add("rod side above the cap side while regenerating", ev.extendBackBar, "bar",
-      "Δp = rod line and regeneration valve at the rod outflow + cap line at the cap inflow: the rod end's oil flows into the cap end, so the rod side stands this far above it",
+      `Δp = rod line and regeneration valve at the rod outflow + cap line at the cap inflow${ev.pressBypassDropBar > 0 ? " (with the pressing-speed control's bypass in it)" : ""}: the rod end's oil flows into the cap end, so the rod side stands this far above it`,
       { dcv_path: vDcv, Q_rod: v(rg.rodOutflowLpm, "L/min"), Q_cap: v(rg.capInflowLpm, "L/min") }, `${DW}; valve allowance common practice [CP]`);
   } else {
     t.add("extend back-pressure", ev.extendBackBar, "bar", "Δp = rod line + valve B→T + return line + filter, at Q_p/φ",
@@ -308,8 +311,15 @@ export function explain(
     capCbv ? "piston force balance with the CBV balance p1 = p_set − R·p3 [D]" : TEXTBOOK_CYL);
   t.add("retract pump pressure", d.pressuresBar.retract, "bar", "p = p3 + supply losses",
     { p3: v(ev.retractInletBar, "bar"), losses: v(ev.retractSupplyLossBar, "bar") }, "[D]");
-  t.add("relief setting", d.pressuresBar.reliefSetting, "bar", "p_relief = 1.1·max(p_extend, p_retract), rounded up to 5 bar",
-    { p_extend: v(d.pressuresBar.extend, "bar"), p_retract: v(d.pressuresBar.retract, "bar") }, "about 10 % above working pressure, common practice [CP]");
+  if (d.pump.type === "compensated") {
+    t.add("relief setting", d.pressuresBar.reliefSetting, "bar",
+      "p_relief = max(1.1·p_c, p_c + 10 bar), rounded up to 5 bar: above the compensator so it never opens in normal work, and within the cylinder rating",
+      { p_c: v(d.pump.compensatorBar ?? 0, "bar"), rating: v(c.ratedPressureBar, "bar") },
+      "a relief is still fitted on a compensated pump, trade-press relief-valve chapter [S]; 10 % above the compensator on a maker's page, or 10–20 bar, common practice [CP]");
+  } else {
+    t.add("relief setting", d.pressuresBar.reliefSetting, "bar", "p_relief = 1.1·max(p_extend, p_retract), rounded up to 5 bar",
+      { p_extend: v(d.pressuresBar.extend, "bar"), p_retract: v(d.pressuresBar.retract, "bar") }, "about 10 % above working pressure, common practice [CP]");
+  }
   t.add("rod-side peak pressure", d.pressuresBar.rodSidePeak, "bar",
     rodCbv ? "max(retract inlet, CBV setting — the valve caps the annulus)" : "max(retract inlet, extend back-pressure)",
     { rating: v(c.ratedPressureBar, "bar"), φ: vPhi }, "rod-side intensification p2 = φ·p1 + F/A3, force balance [D]");
@@ -420,7 +430,7 @@ export function explain(
     { p: v(ev.retractSteadyBar, "bar"), Q_p: vQp, F_steady: v(L.retractSteadyN, "N"), v: v(d.speedsMmS.retractActual, "mm/s") }, "energy balance [D]");
   if (d.pump.type === "compensated") {
     t.add("heat in neutral", h.neutralLossKw, "kW", NEUTRAL_STANDBY,
-      { p_c: v(h.neutralPressureBar, "bar"), Q_leak: v(A.compensatorLeakShare.value * qp, "L/min"), Q_max: vQp, η_v: v(d.pump.volumetricEfficiency, "-") }, STANDBY_SOURCE);
+      { p_c: v(h.neutralPressureBar, "bar"), Q_leak: v(compensatorLeakLpm(qp), "L/min"), Q_max: vQp, η_v: v(d.pump.volumetricEfficiency, "-") }, STANDBY_SOURCE);
   } else {
     t.add("heat in neutral", h.neutralLossKw, "kW",
       vent ? NEUTRAL_VENTED : onRelief ? NEUTRAL_ON_RELIEF : NEUTRAL_UNLOADED,
@@ -436,7 +446,7 @@ export function explain(
         ? NEUTRAL_STANDBY
         : "P = p_relief·Q_p / (600·η): the rod does no work, the whole flow crosses the relief and all input power becomes heat",
     d.pump.type === "compensated"
-      ? { p_c: v(d.pump.compensatorBar ?? 0, "bar"), Q_leak: v(A.compensatorLeakShare.value * qp, "L/min"), Q_max: vQp }
+      ? { p_c: v(d.pump.compensatorBar ?? 0, "bar"), Q_leak: v(compensatorLeakLpm(qp), "L/min"), Q_max: vQp }
       : { p_relief: vRelief, Q_p: vQp, η: v(d.pump.overallEfficiency, "-") },
     d.pump.type === "compensated" ? STANDBY_SOURCE : "energy balance [D]; P = p·Q/600 [D]");
   t.add("average heat loss", h.averageLossKw, "kW", "Σ share·heat over approach, pressing, retract, dwell and neutral",

@@ -22,6 +22,8 @@ export interface PressSpeedControl {
   /** the bypass carries the approach flow; the control's free-flow check carries the return from the cap end */
   bypassFlowLpm: number;
   returnFlowLpm: number;
+  /** drop across the bypass valve in the approach, counted in the approach pressure */
+  bypassDropBar: number;
   /** pump-side pressure while pressing (relief or compensator setting) less the pressing pressure */
   availableDropBar: number;
   /** drop the control's compensator needs to regulate */
@@ -34,6 +36,17 @@ export interface PressSpeedControl {
 /** A normally closed bypass fails slow: a lost signal or coil leaves the rod at pressing speed. */
 export const PRESS_BYPASS_VALVE =
   "2/2 solenoid valve, normally closed, poppet type, across the flow control: energised for the approach, de-energised by a limit switch where the pressing stroke starts";
+
+/**
+ * Drop across the bypass valve in the approach. A 2/2 poppet valve sized for the flow it passes
+ * gets the same allowance as a directional-valve path at its sized flow [CP]; through the same
+ * orifice the drop goes with the square of the flow (orifice equation, Δp ∝ Q²) [D]. The bypass
+ * is sized for the approach flow, so here Q = Q_sized and the whole allowance counts.
+ */
+export function pressBypassDropBar(approachLpm: number, sizedLpm = approachLpm): number {
+  if (!(sizedLpm > 0)) throw new Error(`pressBypassDropBar: sized flow must be positive, got ${sizedLpm}`);
+  return A.dcvPathDropBar.value * (approachLpm / sizedLpm) ** 2;
+}
 
 /** The pump alone would press more than the speed tolerance faster than asked. */
 export const pressNeedsControl = (pumpOffersLpm: number, pressFlowLpm: number): boolean =>
@@ -50,6 +63,8 @@ export interface PressSpeedInputs {
   /** pump pressure while pressing through a control: the relief (fixed, double) or the compensator setting */
   pumpSideBar: number;
   pressBar: number;
+  /** drop across the bypass in the approach, as the approach pressure counted it (evaluate.ts) */
+  bypassDropBar: number;
 }
 
 /** The meter-in control where the pump cannot give the pressing speed itself, else null. */
@@ -57,6 +72,8 @@ export function pressSpeedControlFor(i: PressSpeedInputs): PressSpeedControl | n
   if (i.pressFlowLpm === null) return null;
   const offers = i.pumpType === "double" && i.smallSectionLpm !== null ? i.smallSectionLpm : i.pumpFlowLpm;
   if (!pressNeedsControl(offers, i.pressFlowLpm)) return null;
+  // The approach pressure must have been worked out through this bypass: one decision, two places.
+  if (!(i.bypassDropBar > 0)) throw new Error("pressSpeedControlFor: a control is fitted, but the approach pressure left out its bypass valve");
   const reason =
     i.pumpType === "double"
       ? `the small pump section delivers ${offers.toFixed(1)} L/min, more than ${Math.round(A.speedTolerance.value * 100)} % above the ${i.pressFlowLpm.toFixed(1)} L/min pressing flow`
@@ -69,6 +86,7 @@ export function pressSpeedControlFor(i: PressSpeedInputs): PressSpeedControl | n
     pumpOffersLpm: offers,
     bypassFlowLpm: i.pumpFlowLpm,
     returnFlowLpm: i.pumpFlowLpm * i.areaRatio,
+    bypassDropBar: i.bypassDropBar,
     availableDropBar: i.pumpSideBar - i.pressBar,
     minDropBar: A.flowControlMinDropBar.value,
     overReliefLpm: i.pumpType === "compensated" ? 0 : Math.max(0, offers - i.pressFlowLpm),
@@ -97,6 +115,10 @@ export function pressSpeedTrail(t: Trail, d: Design): void {
     `Q_set = A1·v_press·0.06/1000, meter-in in the cap line, bypassed by a normally closed 2/2 solenoid valve during the approach and switched by a limit switch where the pressing stroke starts: ${pc.reason}`,
     { Q_pump: v(pc.pumpOffersLpm, "L/min"), Q_press: v(q, "L/min"), tolerance, A1: v(d.cylinder.capAreaMm2, "mm²"), v_press: v(d.requirements.pressSpeedMmS ?? 0, "mm/s") },
     `continuity [D]; ${CONTROL_SOURCE}`);
+  t.add("drop across the flow control's bypass in the approach", pc.bypassDropBar, "bar",
+    "Δp = Δp_valve·(Q/Q_sized)²: the bypass valve, sized for the approach flow it passes, adds its allowance to the approach pressure",
+    { Δp_valve: v(A.dcvPathDropBar.value, "bar"), Q: v(pc.bypassFlowLpm, "L/min"), Q_sized: v(pc.bypassFlowLpm, "L/min") },
+    "valve pressure-drop allowance at its sized flow, common practice [CP]; orifice equation Δp ∝ Q² [D]");
   t.add("pressure left across the flow control", pc.availableDropBar, "bar",
     d.pump.type === "compensated" ? "Δp = p_c − p_press: the compensated pump holds its setting and destrokes to the set flow" : "Δp = p_relief − p_press: the pump sits at the relief while the control passes the set flow",
     { p_side: v(pc.availableDropBar + (d.pressuresBar.press ?? 0), "bar"), p_press: v(d.pressuresBar.press ?? 0, "bar"), Δp_min: v(pc.minDropBar, "bar") },

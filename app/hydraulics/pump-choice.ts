@@ -16,14 +16,31 @@ export interface PhaseDemand {
   retractBar: number;
   /** pressing pressure and flow; null without a pressing stroke */
   press: { bar: number; flowLpm: number } | null;
+  /** relief of a fixed or double pump: about 10 % above the highest working pressure */
   reliefBar: number;
   /** the highest working pressure (the compensator is set from it) */
   workingBar: number;
+  /** the cylinder's rating: no relief is set above it */
+  ratedBar: number;
   /** total displacement and delivery the fast phases need */
   displacementCc: number;
   pumpFlowLpm: number;
   speedRpm: number;
 }
+
+/**
+ * What the pump does in one phase: its outlet pressure, what it delivers to the circuit, and the
+ * hydraulic power it draws (p·Q/600, plus, for a double pump, the large section dumping at Δp_u).
+ */
+export interface PumpPhase {
+  bar: number;
+  lpm: number;
+  kw: number;
+}
+
+/** The phases the pump choice reports; neutral follows from the valve centre (pumpPhaseInNeutral). */
+export const PUMP_PHASES = ["approach", "unloadingPeak", "press", "dwell", "retract"] as const;
+export type PumpPhaseName = (typeof PUMP_PHASES)[number];
 
 export interface PumpChoice {
   type: PumpType;
@@ -31,16 +48,42 @@ export interface PumpChoice {
   displacementsCcRev: number[];
   unloadingBar: number | null;
   compensatorBar: number | null;
+  /** relief setting: a fixed or double pump's as asked, a compensated pump's set from its compensator */
+  reliefBar: number;
+  /** why the compensator sits below what the working pressure and the pressing control ask; null where it does not */
+  compensatorNote: string | null;
   /** shaft power the limiter holds the pump to; null without one */
   powerLimitKw: number | null;
   /** why this pump, in words */
   reason: string;
-  /** hydraulic power the pump draws in each phase, kW (shaft power = this / η_overall) */
-  hydraulicKw: { approach: number; unloadingPeak: number; press: number; dwell: number; retract: number };
+  /** each phase the pump passes through; null where the pump never reaches it (no pressing, no unloading peak) */
+  phases: Record<PumpPhaseName, PumpPhase | null>;
+  /** hydraulic power the pump draws in each phase, kW (shaft power = this / η_overall); read from phases */
+  hydraulicKw: Record<PumpPhaseName, number>;
 }
 
 const hyd = (bar: number, lpm: number): number => (bar * lpm) / 600;
-const roundUp5 = (bar: number): number => Math.ceil(bar / A.reliefRoundingBar.value - 1e-9) * A.reliefRoundingBar.value;
+const step5 = (): number => A.reliefRoundingBar.value;
+const roundUp5 = (bar: number): number => Math.ceil(bar / step5() - 1e-9) * step5();
+const roundDown5 = (bar: number): number => Math.floor(bar / step5() + 1e-9) * step5();
+const at = (bar: number, lpm: number, kw = hyd(bar, lpm)): PumpPhase => ({ bar, lpm, kw });
+
+function withPower(c: Omit<PumpChoice, "hydraulicKw">): PumpChoice {
+  const hydraulicKw = Object.fromEntries(PUMP_PHASES.map((name) => [name, c.phases[name]?.kw ?? 0])) as Record<PumpPhaseName, number>;
+  return { ...c, hydraulicKw };
+}
+
+/**
+ * Standby leakage of a destroked compensated pump: Q_leak ≈ (1 − η_v)·Q_max, a first estimate
+ * from memory [M] (makers quote it as case-drain flow). The one place the estimate is made.
+ */
+export const compensatorLeakLpm = (pumpFlowLpm: number): number => A.compensatorLeakShare.value * pumpFlowLpm;
+
+/** Delivery of a double pump's small section: the next displacement that gives the pressing flow. */
+export function smallSectionLpm(pressFlowLpm: number, speedRpm: number): number {
+  const etaV = A.volumetricEfficiency.value;
+  return pumpDeliveryLpm(selectDisplacementCc(requiredDisplacementCc(pressFlowLpm, speedRpm, etaV)).displacementCc, speedRpm, etaV);
+}
 
 /** Unloading setting: above every pressure both sections must deliver at, with a margin [CP]. */
 export function unloadingSettingBar(fastBar: number): number {
@@ -61,14 +104,15 @@ export function highLowPowerKw(qLargeLpm: number, qSmallLpm: number, unloadingBa
 
 function fixed(d: PhaseDemand, reason: string): PumpChoice {
   const q = d.pumpFlowLpm;
-  return {
-    type: "fixed", displacementsCcRev: [d.displacementCc], unloadingBar: null, compensatorBar: null, powerLimitKw: null, reason,
-    // A fixed pump delivers its whole flow at whatever pressure the circuit reaches: while
-    // pressing slower than the pump and in the dwell it sits at the relief (trade-press pump articles).
-    hydraulicKw: {
-      approach: hyd(d.approachBar, q), unloadingPeak: 0, press: d.press ? hyd(d.reliefBar, q) : 0, dwell: hyd(d.reliefBar, q), retract: hyd(d.retractBar, q),
+  // A fixed pump delivers its whole flow at whatever pressure the circuit reaches: while
+  // pressing slower than the pump and in the dwell it sits at the relief (trade-press pump articles).
+  return withPower({
+    type: "fixed", displacementsCcRev: [d.displacementCc], unloadingBar: null, compensatorBar: null, reliefBar: d.reliefBar, compensatorNote: null,
+    powerLimitKw: null, reason,
+    phases: {
+      approach: at(d.approachBar, q), unloadingPeak: null, press: d.press ? at(d.reliefBar, q) : null, dwell: at(d.reliefBar, q), retract: at(d.retractBar, q),
     },
-  };
+  });
 }
 
 /** A double pump if its sections and unloading setting work for these phases, else null. */
@@ -83,59 +127,100 @@ function double(d: PhaseDemand, reason: string): PumpChoice | null {
   if (pu > A.unloadingBelowPressRatio.value * d.press.bar) return null;
   const qS = pumpDeliveryLpm(small, d.speedRpm, etaV);
   const qL = pumpDeliveryLpm(large, d.speedRpm, etaV);
-  const { beforeUnloadingKw, atForceKw: atForce } = highLowPowerKw(qL, qS, pu, d.reliefBar, A.unloadedDropBar.value);
-  return {
-    type: "double", displacementsCcRev: [large, small], unloadingBar: pu, compensatorBar: null, powerLimitKw: null, reason,
-    hydraulicKw: {
-      approach: hyd(d.approachBar, qS + qL),
+  const dumpKw = hyd(A.unloadedDropBar.value, qL);
+  const { beforeUnloadingKw, atForceKw } = highLowPowerKw(qL, qS, pu, d.reliefBar, A.unloadedDropBar.value);
+  // Pressing: a small section that suits the pressing speed pumps straight into the cap end at
+  // the pressing pressure; one that is too fast feeds a flow control and sits at the relief.
+  const pressBar = pressNeedsControl(qS, d.press.flowLpm) ? d.reliefBar : d.press.bar;
+  return withPower({
+    type: "double", displacementsCcRev: [large, small], unloadingBar: pu, compensatorBar: null, reliefBar: d.reliefBar, compensatorNote: null,
+    powerLimitKw: null, reason,
+    phases: {
+      // both sections deliver the whole flow (Q_L + Q_S = the pump's delivery)
+      approach: at(d.approachBar, d.pumpFlowLpm),
       // both sections just before the large one unloads: the high-low pump's peak
-      unloadingPeak: beforeUnloadingKw,
-      // Pressing: a small section that suits the pressing speed pumps straight into the cap end at
-      // the pressing pressure; one that is too fast feeds a flow control and sits at the relief.
-      press: pressNeedsControl(qS, d.press.flowLpm) ? atForce : hyd(d.press.bar, qS) + hyd(A.unloadedDropBar.value, qL),
-      dwell: atForce,
-      retract: hyd(d.retractBar, qS + qL),
+      unloadingPeak: at(pu, d.pumpFlowLpm, beforeUnloadingKw),
+      // above p_u only the small section delivers; the large one dumps Q_L at Δp_u
+      press: at(pressBar, qS, hyd(pressBar, qS) + dumpKw),
+      dwell: at(d.reliefBar, qS, atForceKw),
+      retract: at(d.retractBar, d.pumpFlowLpm),
     },
-  };
+  });
 }
 
 /**
- * p_c somewhat above the highest working pressure (trade-press pump article), rounded up to 5 bar.
- * With a pressing stroke the meter-in flow control needs its regulating drop on top of the
- * pressing pressure, so p_c rises towards it, but stays about 10 bar under the relief so the
- * relief never opens in normal work (both common practice); press-speed.ts warns if it falls short.
+ * Relief over a compensator: max(1.1·p_c, p_c + 10 bar), rounded up to 5 bar, so it never opens
+ * in normal work (10 % on a maker's page; p_c + 10…20 bar common practice [CP]).
  */
-export function compensatorSettingBar(d: Pick<PhaseDemand, "workingBar" | "press" | "reliefBar">): number {
-  const base = roundUp5(d.workingBar);
-  if (!d.press) return base;
-  const step = A.reliefRoundingBar.value;
-  const belowRelief = Math.floor((d.reliefBar - A.compensatorReliefGapBar.value) / step + 1e-9) * step;
-  return Math.max(base, Math.min(roundUp5(d.press.bar + A.flowControlMinDropBar.value), belowRelief));
+export const compensatedReliefBar = (pcBar: number): number =>
+  roundUp5(Math.max(pcBar * (1 + A.reliefMargin.value), pcBar + A.compensatorReliefGapBar.value));
+
+/** The highest compensator whose relief (compensatedReliefBar) stays within a rating. */
+const highestCompensatorBar = (ratedBar: number): number =>
+  Math.min(ratedBar / (1 + A.reliefMargin.value), ratedBar - A.compensatorReliefGapBar.value);
+
+/** What the working pressure and the pressing control ask of the compensator, before the rating has its say. */
+function compensatorWantedBar(d: Pick<PhaseDemand, "workingBar" | "press">): number {
+  return Math.max(roundUp5(d.workingBar), d.press ? roundUp5(d.press.bar + A.flowControlMinDropBar.value) : 0);
+}
+
+/**
+ * p_c somewhat above the highest working pressure (trade-press pump article), rounded up to 5 bar;
+ * with a pressing stroke, at least the pressing pressure plus the meter-in control's regulating
+ * drop. The relief then sits above it (compensatedReliefBar). Where that relief would pass the
+ * cylinder's rating, the compensator comes down first (the control's headroom gives way:
+ * PRESS_CONTROL_DROP_LOW says so), to no less than the working pressure itself, unrounded.
+ */
+export function compensatorSettingBar(d: Pick<PhaseDemand, "workingBar" | "press" | "ratedBar">): number {
+  const wanted = compensatorWantedBar(d);
+  const top = highestCompensatorBar(d.ratedBar);
+  if (wanted <= top + 1e-9) return wanted;
+  return Math.max(roundDown5(top), d.workingBar);
 }
 
 function compensated(d: PhaseDemand, reason: string, limiter: boolean): PumpChoice {
   const q = d.pumpFlowLpm;
   const pc = compensatorSettingBar(d);
-  const leak = A.compensatorLeakShare.value * q;
-  const hydraulicKw = {
-    approach: hyd(d.approachBar, q),
-    unloadingPeak: 0,
-    // While pressing, the meter-in control passes the pressing flow and the pump holds p_c,
-    // destroking to that flow; in the dwell it delivers only its leakage (compensated-pump behaviour).
-    // Without a pressing stroke the force is reached at standstill: the pump destrokes to its leakage.
-    press: d.press ? hyd(pc, d.press.flowLpm) : hyd(pc, leak),
-    dwell: hyd(pc, leak),
-    retract: hyd(d.retractBar, q),
+  // pc ≤ the highest compensator the rating allows wherever the working pressure fits the
+  // rating's limit (rating / 1.1), which every design the search returns does.
+  const reliefBar = compensatedReliefBar(pc);
+  const wanted = compensatorWantedBar(d);
+  const compensatorNote = pc < wanted - 1e-9
+    ? `brought down from ${wanted} bar so that its relief, ${reliefBar} bar, stays within the cylinder's ${d.ratedBar} bar rating`
+    : null;
+  const leak = compensatorLeakLpm(q);
+  // While pressing, the meter-in control passes the pressing flow and the pump holds p_c,
+  // destroking to that flow; in the dwell it delivers only its leakage (compensated-pump behaviour).
+  // Without a pressing stroke the force is reached at standstill: the pump destrokes to its leakage.
+  const phases = {
+    approach: at(d.approachBar, q),
+    press: d.press ? at(pc, d.press.flowLpm) : at(pc, leak),
+    dwell: at(pc, leak),
+    retract: at(d.retractBar, q),
   };
   // Without a limiter the corner p_c·Q_max can be reached on the way up to pressure.
-  const phaseMax = Math.max(hydraulicKw.approach, hydraulicKw.press, hydraulicKw.retract);
-  const corner = hyd(pc, q);
-  const useLimiter = limiter && corner > phaseMax * (1 + 1e-9);
-  return {
-    type: "compensated", displacementsCcRev: [d.displacementCc], unloadingBar: null, compensatorBar: pc,
+  const phaseMax = Math.max(phases.approach.kw, phases.press.kw, phases.retract.kw);
+  const corner = at(pc, q);
+  const useLimiter = limiter && corner.kw > phaseMax * (1 + 1e-9);
+  return withPower({
+    type: "compensated", displacementsCcRev: [d.displacementCc], unloadingBar: null, compensatorBar: pc, reliefBar, compensatorNote,
     powerLimitKw: useLimiter ? phaseMax / A.overallEfficiency.value : null, reason,
-    hydraulicKw: useLimiter ? hydraulicKw : { ...hydraulicKw, unloadingPeak: corner },
-  };
+    phases: { ...phases, unloadingPeak: useLimiter ? null : corner },
+  });
+}
+
+/**
+ * The pump in neutral, given the pressure the valve centre leaves at its outlet: a compensated
+ * pump at its setting delivers only its leakage (standby); a double pump above its unloading
+ * setting only its small section (the large one dumps at Δp_u); otherwise the whole flow.
+ */
+export function pumpPhaseInNeutral(pump: PumpChoice, pumpFlowLpm: number, speedRpm: number, centreBar: number): PumpPhase {
+  if (pump.type === "compensated") return at(pump.compensatorBar!, compensatorLeakLpm(pumpFlowLpm));
+  if (pump.type === "double" && centreBar >= pump.unloadingBar! - 1e-9) {
+    const qS = pumpDeliveryLpm(pump.displacementsCcRev[1], speedRpm, A.volumetricEfficiency.value);
+    return at(centreBar, qS, hyd(centreBar, qS) + hyd(A.unloadedDropBar.value, pumpFlowLpm - qS));
+  }
+  return at(centreBar, pumpFlowLpm);
 }
 
 /**

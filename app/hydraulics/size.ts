@@ -6,7 +6,7 @@ import { buildBom } from "./bom";
 import { buildCircuit } from "./circuit";
 import { cylinderCandidates, cylinderForceN, workingLimitBar } from "./cylinder";
 import type { Design } from "./design";
-import { evaluateCandidate, evaluateWithRegenerationChoice, phaseDemandOf, sizingContext, valveStackFlowLpm, type Evaluation, type SizingContext } from "./evaluate";
+import { evaluateCandidate, evaluateWithRegenerationChoice, sizingContext, valveStackFlowLpm, type Evaluation, type SizingContext } from "./evaluate";
 import { cushioningFor } from "./cushioning";
 import { cycleOf, cycleTrail } from "./cycle";
 import { decompressionFor } from "./decompression";
@@ -15,7 +15,7 @@ import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
 import { DEFAULT_FLUID, lineLossBar, sizeLine } from "./lines";
 import { phaseFlowLpm } from "./phases";
-import { choosePump } from "./pump-choice";
+import { pumpPhaseInNeutral } from "./pump-choice";
 import { pressSpeedControlFor } from "./press-speed";
 import { hydraulicPowerKw, pumpDeliveryLpm, selectMotorKw } from "./pump-motor";
 import type { Requirements } from "./requirements";
@@ -25,7 +25,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.10.0";
+export const ENGINE_VERSION = "2.11.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -137,14 +137,16 @@ export function sizeCircuitParsed(req: Requirements): Design {
   // Pressing at the end of the stroke, and any dwell, stall the cylinder with the valve shifted:
   // a fixed pump then delivers its whole flow over the relief, at the relief setting.
   const pumpOnReliefAtForce = req.processForceN > 0 || req.dwellS > 0;
-  const pump = choosePump(phaseDemandOf(ev, ctx.speedRpm), req.pumpType);
+  // The pump the search evaluated this pair with: its phases are the one source of the pump's
+  // pressure and delivery in each phase, and it set the relief.
+  const pump = ev.pump;
   const pk = pump.hydraulicKw;
   const compensated = pump.type === "compensated";
   // The pressing speed: a meter-in flow control where the pump alone would press too fast.
   const smallSectionLpm = pump.type === "double" ? pumpDeliveryLpm(pump.displacementsCcRev[1], ctx.speedRpm, A.volumetricEfficiency.value) : null;
   const pressSpeedControl = pressSpeedControlFor({
     pumpType: pump.type, pressFlowLpm: ev.flowPressLpm, pumpFlowLpm: qp, smallSectionLpm, areaRatio: cyl.areaRatio,
-    pumpSideBar: compensated ? pump.compensatorBar! : ev.reliefBar, pressBar: ev.extendPressBar,
+    pumpSideBar: compensated ? pump.compensatorBar! : ev.reliefBar, pressBar: ev.extendPressBar, bypassDropBar: ev.pressBypassDropBar,
   });
   // A regenerative approach joins the rod end's oil at the valve stack, upstream of the control in
   // the cap line, so the bypass carries the cap inflow, not Q_p (continuity).
@@ -161,29 +163,29 @@ export function sizeCircuitParsed(req: Requirements): Design {
   // A compensated pump behind a centre that blocks P sits at p_c delivering only its leakage
   // (standby): P ≈ p_c·Q_leak/600 with Q_leak ≈ (1 − η_v)·Q_max, the destroked pump's friction
   // not counted (shared sources' compensated-pump estimate, from memory [M]).
-  const neutralBar = compensated
-    ? pump.compensatorBar!
-    : centre.pumpOnReliefInNeutral
-      ? ev.reliefBar
-      : centre.ventedRelief
-        ? A.ventPressureBar.value
-        : A.dcvPathDropBar.value + lineLossBar(lines.return, qp, ctx.fluid) + A.returnFilterDropBar.value;
-  const neutralFlowLpm = compensated ? A.compensatorLeakShare.value * qp : qp;
+  const centreBar = centre.pumpOnReliefInNeutral
+    ? ev.reliefBar
+    : centre.ventedRelief
+      ? A.ventPressureBar.value
+      : A.dcvPathDropBar.value + lineLossBar(lines.return, qp, ctx.fluid) + A.returnFilterDropBar.value;
+  const neutral = pumpPhaseInNeutral(pump, qp, ctx.speedRpm, centreBar);
+  const neutralBar = neutral.bar;
   // Shaft power in neutral and in the dwell: the standby loss is what a destroked compensated pump
   // takes (no efficiency to divide by at zero delivery); other pumps p·Q/(600·η).
-  const neutralShaftKw = hydraulicPowerKw(neutralBar, neutralFlowLpm) / (compensated ? 1 : etaO);
+  const neutralShaftKw = neutral.kw / (compensated ? 1 : etaO);
   const dwellShaftKw = compensated ? pk.dwell : pk.dwell / etaO;
   // The highest power the chosen pump draws, with the pressure it draws it at. A fixed pump
   // reaching the end-of-stroke force sits at the relief (version-1 behaviour kept).
   const endForceBar = pump.type === "fixed" ? (pumpOnReliefAtForce ? ev.reliefBar : ev.extendPressBar) : 0;
+  const ph = pump.phases;
   const peakCandidates: { kw: number; bar: number }[] = [
-    { kw: pk.approach, bar: ev.extendMovingBar },
-    { kw: pk.retract, bar: ev.retractBar },
-    { kw: pk.press, bar: pump.type === "compensated" ? pump.compensatorBar! : ev.reliefBar },
-    { kw: req.dwellS > 0 ? pk.dwell : 0, bar: pump.type === "compensated" ? pump.compensatorBar! : ev.reliefBar },
-    { kw: pk.unloadingPeak, bar: pump.unloadingBar ?? pump.compensatorBar ?? 0 },
+    { kw: ph.approach!.kw, bar: ph.approach!.bar },
+    { kw: ph.retract!.kw, bar: ph.retract!.bar },
+    { kw: ph.press?.kw ?? 0, bar: ph.press?.bar ?? 0 },
+    { kw: req.dwellS > 0 ? ph.dwell!.kw : 0, bar: ph.dwell!.bar },
+    { kw: ph.unloadingPeak?.kw ?? 0, bar: ph.unloadingPeak?.bar ?? 0 },
     { kw: hydraulicPowerKw(endForceBar, qp), bar: endForceBar },
-    { kw: hydraulicPowerKw(neutralBar, neutralFlowLpm), bar: neutralBar },
+    { kw: neutral.kw, bar: neutral.bar },
   ];
   const governing = peakCandidates.reduce((a, b) => (b.kw > a.kw ? b : a));
   const motorSizingBar = governing.bar;
@@ -391,7 +393,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
   design.bom = buildBom(design, gaugeRangeBar);
   design.circuit = buildCircuit(design, gaugeRangeBar, design.circuit.dcvPositions);
   design.trail = explain(design, ctx, ev, { pumpOnRelief: centre.pumpOnReliefInNeutral, gaugeRangeBar, duty });
-  design.cycle = cycleOf(design);
+  design.cycle = cycleOf(design, { approach: ph.approach, press: ph.press, dwell: ph.dwell, retract: ph.retract, neutral });
   design.trail.push(cycleTrail(design.cycle, req.cyclesPerHour));
   return design;
 }

@@ -8,7 +8,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { NotSizableError, sizeCircuit, type Design, type RequirementsInput } from "~/hydraulics";
-import { cycleOf, type CyclePhase } from "~/hydraulics/cycle";
+import { cycleOf, type CyclePhase, type CyclePumpPhases } from "~/hydraulics/cycle";
 import { pressAxisArb, requirementsArb } from "./arbitraries";
 
 const close = (a: number, b: number, rel = 1e-9) => Math.abs(a - b) <= rel * Math.max(1, Math.abs(a), Math.abs(b));
@@ -23,6 +23,15 @@ function sized(req: RequirementsInput): Design | null {
 }
 
 const phaseOf = (d: Design, name: CyclePhase["phase"]) => d.cycle!.find((ph) => ph.phase === name);
+/** A sized design's pump phases as its own cycle reports them (pressure, delivery, p·Q/600). */
+function pumpPhasesOf(d: Design): CyclePumpPhases {
+  const of = (name: CyclePhase["phase"]) => {
+    const ph = phaseOf(d, name);
+    return ph ? { bar: ph.pressureBar, lpm: ph.pumpFlowLpm, kw: ph.hydraulicKw } : null;
+  };
+  return { approach: of("approach") ?? of("extend"), press: of("pressing"), dwell: of("dwell"), retract: of("retract"), neutral: of("neutral")! };
+}
+
 const MOVING = new Set(["approach", "extend", "pressing", "retract"]);
 
 /** Every check of the cycle that holds for any axis, pump and duty. */
@@ -189,7 +198,15 @@ describe("worked example — the shared sources' two-speed press with a double (
       pressuresBar: { ...d.pressuresBar, extendMoving: 20, retract: 20, reliefSetting: relief },
       speedsMmS: { ...d.speedsMmS, extendActual: ((qS + qL) * 1000) / (d.cylinder.capAreaMm2 * 0.06), retractActual: ((qS + qL) * 1000) / (d.cylinder.annulusAreaMm2 * 0.06) },
     };
-    const c = cycleOf(ref);
+    // The pump choice's phases for these sections (pump-choice.ts): approach both sections at 20 bar; pressing
+    // and dwell the small section over the relief with the large one dumping at 5 bar (1.85 kW drawn, above);
+    // neutral as the sized design has it.
+    const both = qS + qL;
+    const atForce = { bar: relief, lpm: qS, kw: pressingKw };
+    const c = cycleOf(ref, {
+      approach: { bar: 20, lpm: both, kw: (20 * both) / 600 }, press: atForce, dwell: atForce,
+      retract: { bar: 20, lpm: both, kw: (20 * both) / 600 }, neutral: pumpPhasesOf(d).neutral,
+    });
     const approach = c.find((ph) => ph.phase === "approach")!;
     const pressing = c.find((ph) => ph.phase === "pressing")!;
     // approach: 20 bar · 94.25 L/min / 600 = 3.14 kW (shared check value)
@@ -250,7 +267,7 @@ describe("a regenerative approach draws A_rod·v from the pump (regeneration cou
     const regen = cycleOf({
       ...d, regenerative: true, cylinder: { ...d.cylinder, capAreaMm2, annulusAreaMm2: capAreaMm2 - rodAreaMm2 },
       speedsMmS: { ...d.speedsMmS, extendActual: vRegen },
-    });
+    }, pumpPhasesOf(d));
     const approach = regen.find((ph) => ph.phase === "approach")!;
     expect(approach.demandLpm).toBeCloseTo(60, 9);
     // the cap end takes A1·v = 7853.98 · 259.8 · 0.06/1000 = 122.4 L/min (shared check value), the pump only 60

@@ -2,12 +2,12 @@
  * Pump choice (engine 2.9): fixed, double (high-low) or pressure-compensated, and the motor on
  * the highest phase power the chosen pump draws. Check values from the shared sources'
  * reference press axis (100 mm bore, approach 94.25 L/min at 20 bar, pressing 4.71 L/min at
- * 127.3 bar, relief 140.1 bar, η_overall 0.85), worked by hand; each step names its source.
+ * 127.3 bar, relief 140.1 bar, η_overall 0.85, a 160 bar cylinder), worked by hand; each step names its source.
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { NotSizableError, sizeCircuit, type Design, type RequirementsInput } from "~/hydraulics";
-import { choosePump, highLowPowerKw, unloadingSettingBar, type PhaseDemand } from "~/hydraulics/pump-choice";
+import { choosePump, compensatedReliefBar, highLowPowerKw, pumpPhaseInNeutral, unloadingSettingBar, type PhaseDemand } from "~/hydraulics/pump-choice";
 import { hydraulicPowerKw, selectMotorKw } from "~/hydraulics/pump-motor";
 import { pressAxisArb } from "./arbitraries";
 
@@ -15,7 +15,7 @@ const ETA = 0.85; // overall pump efficiency, Esposito from memory [M]
 
 /** The reference axis as the pump sees it; the total displacement is the engine's next ISO 3662 size. */
 const REF: PhaseDemand = {
-  approachBar: 20, retractBar: 20, press: { bar: 127.3, flowLpm: 4.71 }, reliefBar: 140.1, workingBar: 127.3,
+  approachBar: 20, retractBar: 20, press: { bar: 127.3, flowLpm: 4.71 }, reliefBar: 140.1, workingBar: 127.3, ratedBar: 160,
   // 94.25 L/min at 1450 rpm and η_v 0.95 needs 68.4 cm³/rev → 80 cm³/rev, 110.2 L/min (Q = V·n·η_v [M]; ISO 3662 R10 [M])
   displacementCc: 80, pumpFlowLpm: 110.2, speedRpm: 1450,
 };
@@ -96,6 +96,69 @@ describe("pressure-compensated pump", () => {
     // highest phase: approach 20 · 94.25/600 = 3.14 kW; limiter 3.14/0.85 = 3.70 kW shaft [D]
     expect(c.powerLimitKw!).toBeCloseTo(3.14 / ETA, 2);
     expect(c.hydraulicKw.unloadingPeak).toBe(0);
+  });
+});
+
+describe("each phase's pump pressure and delivery, one source for the sizing and the cycle (engine 2.11)", () => {
+  it("a double pump: both sections below p_u, the small one alone above it (high-low circuit, trade-press texts)", () => {
+    const c = choosePump(REF, undefined);
+    const ph = c.phases;
+    // approach and retract at 20 bar with the whole 110.2 L/min (Q_L + Q_S ≥ Q_app, shared sources)
+    expect(ph.approach).toMatchObject({ bar: 20, lpm: REF.pumpFlowLpm });
+    expect(ph.retract).toMatchObject({ bar: 20, lpm: REF.pumpFlowLpm });
+    // the peak just before unloading: both sections at p_u
+    expect(ph.unloadingPeak).toMatchObject({ bar: c.unloadingBar, lpm: REF.pumpFlowLpm });
+    // small section 4 cm³/rev · 1450 · 0.95 = 5.51 L/min, more than 1.1 × 4.71: it presses through a flow
+    // control and sits at the 140.1 bar relief; its power adds the large section dumping at 5 bar [D]
+    expect(ph.press!.bar).toBe(140.1);
+    expect(ph.press!.lpm).toBeCloseTo(5.51, 2);
+    expect(ph.press!.kw).toBeCloseTo((140.1 * ph.press!.lpm + 5 * (REF.pumpFlowLpm - ph.press!.lpm)) / 600, 9);
+    expect(ph.dwell).toEqual(ph.press);
+    // hydraulicKw is read from the phases, not worked out twice
+    for (const name of ["approach", "unloadingPeak", "press", "dwell", "retract"] as const) expect(c.hydraulicKw[name]).toBe(ph[name]?.kw ?? 0);
+  });
+
+  it("a double pump whose small section gives the pressing speed presses at the pressing pressure, not the relief", () => {
+    // pressing 5.3 L/min: the 4 cm³/rev section's 5.51 L/min is within 10 % of it, so no flow control (our convention)
+    const c = choosePump({ ...REF, press: { bar: 127.3, flowLpm: 5.3 } }, "double");
+    expect(c.phases.press!.bar).toBe(127.3);
+    expect(c.phases.dwell!.bar).toBe(140.1);
+  });
+
+  it("a compensated pump's standby leakage is worked out once: Q_leak = 0.05·Q_max in the dwell and in neutral [M]", () => {
+    const c = choosePump({ ...REF, workingBar: 140, pumpFlowLpm: 94.25 }, "compensated");
+    // 0.05 · 94.25 = 4.71 L/min at 140 bar → 1.10 kW (shared check value)
+    expect(c.phases.dwell).toMatchObject({ bar: 140, lpm: 0.05 * 94.25 });
+    const neutral = pumpPhaseInNeutral(c, 94.25, 1450, 140);
+    expect(neutral).toEqual(c.phases.dwell);
+    expect(neutral.kw).toBeCloseTo(1.1, 2);
+  });
+});
+
+describe("the relief over a compensator (maker's page: 1.1 × p_c; common practice: p_c + 10…20 bar)", () => {
+  it("sets p_RV = max(1.1·p_c, p_c + 10 bar) rounded up to 5 bar: 140 → 155 bar (154 in the shared sources), 15 → 25 bar", () => {
+    // p_c = 140: max(154, 150) = 154 → 155 bar (shared check value 154 bar, rounded to our 5 bar step)
+    expect(compensatedReliefBar(140)).toBe(155);
+    const c = choosePump({ ...REF, workingBar: 140, pumpFlowLpm: 94.25 }, "compensated");
+    expect(c.reliefBar).toBe(155);
+    // a low-pressure axis: 12 bar → p_c 15 bar; 1.1 × 12 rounds to the same 15 bar, so the relief
+    // was once set equal to the compensator; now max(16.5, 25) = 25 bar
+    const low = choosePump({ ...REF, press: null, approachBar: 12, retractBar: 8, workingBar: 12, reliefBar: 15 }, "compensated");
+    expect(low.compensatorBar).toBe(15);
+    expect(low.reliefBar).toBe(25);
+    expect(low.compensatorNote).toBeNull();
+  });
+
+  it("brings the compensator down, not the relief above the rating, when the 160 bar rating caps the relief", () => {
+    // no pressing stroke, working 145.2 bar (below 160 / 1.1 = 145.45): rounded up p_c would be 150 bar with a 165 bar relief,
+    // above the cylinder's 160 bar. The highest p_c whose relief fits is min(160/1.1, 160 − 10) = 145.45,
+    // rounded down 145 bar, below the working pressure: p_c is set at the working pressure itself.
+    const c = choosePump({ ...REF, workingBar: 145.2, approachBar: 145.2, press: null, pumpFlowLpm: 94.25 }, "compensated");
+    expect(c.compensatorBar).toBe(145.2);
+    // max(1.1 · 145.2 = 159.72, 155.2) → 160 bar: at the rating, 14.8 bar above the compensator
+    expect(c.reliefBar).toBe(160);
+    expect(c.reliefBar - c.compensatorBar!).toBeGreaterThanOrEqual(10);
+    expect(c.compensatorNote).toMatch(/brought down from 150 bar/);
   });
 });
 

@@ -253,6 +253,25 @@ describe("each pump type on the same press (sources: fixed, high-low and compens
   });
 });
 
+describe("the cycle reads the pump choice's phases (engine 2.11: one source per number)", () => {
+  it("a double pump whose small section gives the pressing speed presses at exactly the pressing pressure with Q_S", () => {
+    // 11.5 mm/s on the 100 bore is 5.42 L/min; the 4 cm³/rev section gives 4 · 1450 · 0.95 / 1000 = 5.51 L/min,
+    // within 10 % (our convention), so no flow control: it pumps straight into the cap end (high-low circuit texts)
+    const d = sizeCircuit({
+      orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
+      pressStrokeMm: 20, pressSpeedMmS: 11.5, dwellS: 3, mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50, pumpType: "double",
+    });
+    expect(d.pressSpeedControl).toBeNull();
+    const p = phaseOf(d, "pressing")!;
+    // the same number, not one read back from the motor's power (which came back a rounding off it)
+    expect(p.pressureBar).toBe(d.pressuresBar.press);
+    expect(p.pumpFlowLpm).toBeCloseTo(5.51, 2);
+    // the dwell stalls the small section over the relief
+    expect(phaseOf(d, "dwell")!.pressureBar).toBe(d.pressuresBar.reliefSetting);
+    checkCycle(d);
+  });
+});
+
 describe("a regenerative approach draws A_rod·v from the pump (regeneration course notes, v = Q_p / A_rod)", () => {
   it("feeds 60 L/min for the sources' 100/70 cylinder at 0.260 m/s, not the 122.4 L/min the cap end takes", () => {
     const d = sizeCircuit({

@@ -142,20 +142,21 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const pump = ev.pump;
   const pk = pump.hydraulicKw;
   const compensated = pump.type === "compensated";
-  // The pressing speed: a meter-in flow control where the pump alone would press too fast.
+  // The pressing speed: a meter-in flow control where the pump alone would press too fast; the
+  // pump side of it is the pump choice's pressing pressure (relief, or compensator setting).
   const smallSectionLpm = pump.type === "double" ? pumpDeliveryLpm(pump.displacementsCcRev[1], ctx.speedRpm, A.volumetricEfficiency.value) : null;
   const pressSpeedControl = pressSpeedControlFor({
     pumpType: pump.type, pressFlowLpm: ev.flowPressLpm, pumpFlowLpm: qp, smallSectionLpm, areaRatio: cyl.areaRatio,
-    pumpSideBar: compensated ? pump.compensatorBar! : ev.reliefBar, pressBar: ev.extendPressBar, bypassDropBar: ev.pressBypassDropBar,
+    pumpSideBar: pump.phases.press?.bar ?? ev.reliefBar, pressBar: ev.extendPressBar, bypassDropBar: ev.pressBypassDropBar,
   });
   // A regenerative approach joins the rod end's oil at the valve stack, upstream of the control in
   // the cap line, so the bypass carries the cap inflow, not Q_p (continuity).
   if (pressSpeedControl && regen) pressSpeedControl.bypassFlowLpm = Math.max(pressSpeedControl.bypassFlowLpm, regen.capInflowLpm);
 
   // The cap end at full stroke holds the highest extend pressure: where the pump stalls there,
-  // the relief, or for a compensated pump its compensator setting (it destrokes below the relief).
+  // the relief, or for a compensated pump its compensator setting (the pump choice's dwell pressure).
   const capOilL = (cyl.capAreaMm2 * req.strokeMm) / 1e6 + (Math.PI * lines.capWork.innerDiameterMm ** 2 / 4) * lines.capWork.lengthM / 1000;
-  const decompression = decompressionFor(capOilL, pumpOnReliefAtForce ? (compensated ? pump.compensatorBar! : ev.reliefBar) : ev.extendBar);
+  const decompression = decompressionFor(capOilL, pumpOnReliefAtForce ? pump.phases.dwell!.bar : ev.extendBar);
   const centre = chooseDcvCenter(cbv !== null, holding !== null, compensated);
 
   // Neutral: over relief if P is blocked and nothing unloads it; through the vented relief at

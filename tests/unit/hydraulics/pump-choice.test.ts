@@ -149,6 +149,20 @@ describe("the relief over a compensator (maker's page: 1.1 × p_c; common practi
     expect(low.compensatorNote).toBeNull();
   });
 
+  it("a sized low-pressure compensated axis gets its relief at least 10 bar over p_c, and the trail says how", () => {
+    // a light horizontal axis: working pressure well under 100 bar, where p_c + 10 bar governs over 1.1·p_c
+    const d = sizeCircuit({
+      orientation: "horizontal", massKg: 200, processForceN: 0, strokeMm: 300, extendSpeedMmS: 100, retractSpeedMmS: 100,
+      mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50, pumpType: "compensated",
+    });
+    const pc = d.pump.compensatorBar!;
+    expect(pc).toBeLessThan(100);
+    expect(d.pressuresBar.reliefSetting).toBe(Math.ceil((pc + 10) / 5) * 5);
+    const relief = d.trail.find((e) => e.quantity === "relief setting")!;
+    expect(relief.formula).toMatch(/max\(1\.1·p_c, p_c \+ 10 bar\)/);
+    expect(relief.source).toMatch(/common practice/);
+  });
+
   it("brings the compensator down, not the relief above the rating, when the 160 bar rating caps the relief", () => {
     // no pressing stroke, working 145.2 bar (below 160 / 1.1 = 145.45): rounded up p_c would be 150 bar with a 165 bar relief,
     // above the cylinder's 160 bar. The highest p_c whose relief fits is min(160/1.1, 160 − 10) = 145.45,

@@ -410,6 +410,11 @@ describe("the circuit as data (trade facts, common practice)", () => {
       if (c.line === "pilot") continue;
       parent.set(find(c.from), find(c.to));
     }
+    // A solenoid valve in a work line (the regeneration valve) passes oil through its
+    // de-energised position in normal work: 1 ↔ 2 joins the rod port to valve port B.
+    for (const comp of d.circuit.components) {
+      for (const [a, b] of comp.positions?.normal ?? []) parent.set(find(`${comp.id}.${a}`), find(`${comp.id}.${b}`));
+    }
     return find;
   }
 

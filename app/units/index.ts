@@ -24,7 +24,8 @@ export const UNITS = {
   force: { metric: unit("N", "N", 0), us: unit("lbf", "lbf", 0) },
   speed: { metric: unit("mm/s", "mm/s", 0), us: unit("in/s", "in/s", 2) },
   velocity: { metric: unit("m/s", "m/s", 2), us: unit("ft/s", "ft/s", 1) },
-  pressure: { metric: unit("bar", "bar", 0), us: unit("psi", "psi", 0) },
+  // One decimal in bar, as the bill and the trail write settings (39.8 bar on every page, not 40 here and 39.8 there).
+  pressure: { metric: unit("bar", "bar", 1), us: unit("psi", "psi", 0) },
   flow: { metric: unit("L/min", "L/min", 1), us: unit("gal/min", "US gpm", 1) },
   power: { metric: unit("kW", "kW", 2), us: unit("hp", "hp", 2) },
   temperature: { metric: unit("tempC", "°C", 0), us: unit("tempF", "°F", 0) },

@@ -1,6 +1,6 @@
 import { Badge, ButtonLink } from "./ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/bid-status";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import type { SpecStatus } from "~/content/spec-status";
 
 // The spec page's bidding strip: a shop's own bid, or the buyer's count of offers.

@@ -2,7 +2,7 @@ import { useEffect, useState } from "react";
 import { Form, useFetcher, useSearchParams } from "react-router";
 import { Badge, Button, Card, Notice } from "./ui";
 import { FieldErrors as FieldErrorText } from "./form-field";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import { formatMoment } from "~/content/dates";
 import { PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
 

@@ -8,7 +8,7 @@ import { MoreQuestions } from "~/components/more-questions";
 import { RequirementInput } from "~/components/requirement-input";
 import { SpecLivePreview } from "~/components/spec-live-preview";
 import { Button, Card } from "~/components/ui";
-import { CURRENCIES } from "~/content/currencies";
+import { CURRENCIES } from "~/content/money";
 import { REQUIREMENT_FIELDS, differsFromDefault, displayValue, fieldApplies, fieldMessages, type FormValues, type RequirementKey } from "~/content/requirement-fields";
 import { AXIS_QUESTIONS, previousStep, type FormStepId } from "~/content/spec-steps";
 import { FLUIDS, STEP_DEFAULTS, SUPPLY_VOLTAGES, TEXT_MAX, otherStepsAnswers, stepFieldNames, stepSchema } from "~/schemas/spec";

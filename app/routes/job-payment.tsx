@@ -3,7 +3,7 @@ import { Form, Link, useRevalidator } from "react-router";
 import type { Route } from "./+types/job-payment";
 import { requireUser } from "~/auth/permissions.server";
 import { Button, ButtonLink, Card, Notice, PageHeader } from "~/components/ui";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import { PAYMENT_STATUS_LABELS, type PaymentStatus } from "~/content/payment-status";
 import { paymentOfSession } from "~/services/payments.server";
 

@@ -6,7 +6,7 @@ import { requireUser } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
 import { FieldErrors as FieldErrorText, FormErrors, SelectField, TextField } from "~/components/form-field";
 import { Badge, Button, ButtonLink, Card, PageHeader } from "~/components/ui";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import { formatDay, formatMoment } from "~/content/dates";
 import { JOB_STAGE_LABELS, MILESTONE_LABELS, type MilestoneKey } from "~/content/job-milestones";
 import {

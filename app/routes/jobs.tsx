@@ -5,7 +5,7 @@ import { requireUser } from "~/auth/permissions.server";
 import type { Role } from "~/auth/roles";
 import { JobsByStageChart } from "~/components/jobs-by-stage-chart";
 import { Badge, Card, EmptyState, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import { formatDay } from "~/content/dates";
 import { JOB_STAGES, JOB_STAGE_LABELS } from "~/content/job-milestones";
 import { jobListQuerySchema } from "~/schemas/jobs";

@@ -4,7 +4,7 @@ import type { Route } from "./+types/payment-refund";
 import { requireRole } from "~/auth/permissions.server";
 import { OPERATOR_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import { currentPasswordField } from "~/schemas/account";
 import { refundSchema } from "~/schemas/payments";
 import { confirmOwnPassword } from "~/services/accounts.server";

@@ -3,7 +3,7 @@ import type { Route } from "./+types/payments";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { Badge, Button, Card, EmptyState, PageHeader, Pager, TableScroll } from "~/components/ui";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import { formatMoment } from "~/content/dates";
 import { PAYMENT_STATUSES, PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
 import { paymentListSchema } from "~/schemas/payments";

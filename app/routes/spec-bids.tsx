@@ -7,14 +7,13 @@ import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { Badge, Button, ButtonLink, Card, EmptyState, Notice, PageHeader, TableScroll } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney, retainerCents } from "~/content/money";
 import { SPEC_STATUS_LABELS, type SpecStatus } from "~/content/spec-status";
 import { awardSchema } from "~/schemas/bid";
 import { awardBid, awardedJobOf, canAwardNow } from "~/services/award.server";
 import { COMPARISON_SORTS, type ComparisonSort } from "~/services/bid-comparison";
 import { comparisonOf } from "~/services/bids.server";
 import { FieldErrors } from "~/services/errors.server";
-import { retainerCents } from "~/services/bid-pricing";
 import { specOfOwner } from "~/services/spec-access.server";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Bids · ${d?.spec.title ?? "Spec"} · Tenderflow` }];

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { MAX_UNIT_PRICE_CENTS, moneyProblem, parseMoney } from "~/services/bid-pricing";
+import { MAX_UNIT_PRICE_CENTS, moneyProblem, parseMoney } from "~/content/money";
 import { isIsoDay, todayUtc as today } from "~/content/dates";
 
 // The bid form's schema, shared by the action and the Conform form. A draft may leave prices

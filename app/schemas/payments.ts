@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { PAYMENT_STATUSES } from "~/content/payment-status";
-import { parseMoney } from "~/services/bid-pricing";
+import { parseMoney } from "~/content/money";
 
 // Paying back a retainer: an amount (empty for everything left) and a reason for the record.
 export const refundSchema = z.object({

@@ -4,7 +4,7 @@ import { toRequirementsInput, type FormValues } from "~/content/requirement-fiel
 
 import { ENGINE_KEYS_BY_STEP, type FormStepId } from "~/content/spec-steps";
 import type { UnitSystem } from "~/units";
-import { CURRENCIES } from "~/content/currencies";
+import { CURRENCIES } from "~/content/money";
 import { fieldApplies, type RequirementKey } from "~/content/requirement-fields";
 import { isIsoDay, todayUtc as today } from "~/content/dates";
 

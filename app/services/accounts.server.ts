@@ -6,6 +6,7 @@ import { Invitation, Organisation, PasswordReset, User, UserSession, sequelize }
 import { FieldErrors, notFound } from "./errors.server";
 import { authorize, viewerOf } from "~/auth/access-policy.server";
 import { enqueueMail } from "./mail.server";
+import { invitationMail, invitationToTakenAddressMail, passwordResetMail } from "./mail-templates.server";
 import { throttleInvitations, mayMail, throttledPasswordCheck } from "./throttle.server";
 import { hashToken, newToken } from "./tokens.server";
 
@@ -95,16 +96,7 @@ export async function requestPasswordReset(email: string): Promise<void> {
       { userId: user.id, tokenHash, expiresAt: new Date(Date.now() + RESET_LINK_HOURS * 3_600_000), usedAt: null },
       { transaction },
     );
-    const link = `${env().APP_URL}/reset-password/${token}`;
-    await enqueueMail(
-      {
-        to: user.email,
-        subject: "Reset your Tenderflow password",
-        priority: "account",
-        text: `Hello ${user.name},\n\nSomeone asked to reset the password of your Tenderflow account. To choose a new one, open this link within ${RESET_LINK_HOURS} hour:\n\n${link}\n\nThe link works once. If you did not ask for this, ignore this message; your password stays as it is.`,
-      },
-      transaction,
-    );
+    await enqueueMail({ to: user.email, ...passwordResetMail({ name: user.name, token, hours: RESET_LINK_HOURS }), priority: "account" }, transaction);
   });
 }
 
@@ -167,29 +159,16 @@ export async function inviteColleague(actor: User, email: string, requestedRole?
     // An address with an account elsewhere: the inviter sees the same pending invitation as for
     // anyone else, and the owner, not the inviter, learns why it can't be accepted.
     if (owner) {
-      if (notifyOwner) await enqueueMail(invitationNotice(actor, organisation, email), transaction);
+      if (notifyOwner) {
+        const notice = invitationToTakenAddressMail({ inviterName: actor.name, organisationName: organisation.name });
+        await enqueueMail({ to: email, ...notice, priority: "account" }, transaction);
+      }
       return invitation;
     }
-    await enqueueMail(
-      {
-        to: email,
-        subject: `${actor.name} invited you to ${organisation.name} on Tenderflow`,
-        priority: "account",
-        text: `Hello,\n\n${actor.name} invited you to join ${organisation.name} on Tenderflow.\n\nTo accept, open this link within ${INVITATION_DAYS} days and choose your password:\n\n${env().APP_URL}/join/${token}\n`,
-      },
-      transaction,
-    );
+    const mail = invitationMail({ inviterName: actor.name, organisationName: organisation.name, token, days: INVITATION_DAYS });
+    await enqueueMail({ to: email, ...mail, priority: "account" }, transaction);
     return invitation;
   });
-}
-
-function invitationNotice(actor: User, organisation: Organisation, email: string) {
-  return {
-    to: email,
-    subject: `${actor.name} invited you to ${organisation.name} on Tenderflow`,
-    priority: "account" as const,
-    text: `Hello,\n\n${actor.name} invited this address to join ${organisation.name} on Tenderflow. This address already has a Tenderflow account with another organisation, and an address belongs to one organisation only, so the invitation can't be accepted with it.\n\nIf you want to work with ${organisation.name} on Tenderflow, ask ${actor.name} to invite another address of yours. We have not told them that this address has an account; to them the invitation simply waits for an answer.\n\nIf you don't know them, ignore this message. Your account is unchanged.`,
-  };
 }
 
 export async function findOpenInvitation(token: string) {

@@ -1,13 +1,12 @@
 import { Op } from "sequelize";
 import { Bid, Job, Organisation, Spec, User, sequelize } from "~/models/index.server";
 import { can, jobsWhere, viewerOf } from "~/auth/access-policy.server";
-import { formatMoney } from "~/content/currencies";
 import { formatDay, todayUtc } from "~/content/dates";
 import { FieldErrors } from "./errors.server";
 import { specFor } from "./spec-access.server";
 import { enqueueMail } from "./mail.server";
+import { bidChosenMail, bidNotChosenMail, newJobMail } from "./mail-templates.server";
 import { openJob } from "./jobs.server";
-import { env } from "~/env.server";
 
 // Awarding: the buyer chooses exactly one offered bid. The spec row is locked for update, so
 // of two racing awards the second waits, then finds the spec awarded and changes nothing.
@@ -30,34 +29,21 @@ export async function awardBid(user: User, specId: string | undefined, { bidId }
     const job = await openJob(transaction, { spec, bid, awardedBy: user });
 
     // Everyone who offered hears the outcome; the account manager hears of the new job.
-    const link = `${env().APP_URL}/specs/${spec.id}`;
     for (const offer of [bid, ...others]) {
       const won = offer.id === bid.id;
       const people = await User.findAll({ where: { organisationId: offer.organisationId, active: true }, transaction });
       for (const person of people) {
-        await enqueueMail(
-          {
-            to: person.email,
-            subject: won ? `Your bid was chosen: ${spec.title}` : `Not chosen this time: ${spec.title}`,
-            text: won
-              ? `Hello ${person.name},\n\nThe buyer has chosen your bid of ${formatMoney(bid.totalCents, bid.currency)} for "${spec.title}". The job is on Tenderflow with its milestones: ${env().APP_URL}/jobs/${job.id}\n\nThe retainer of ${formatMoney(job.retainerCents, job.currency)} is paid by the buyer through the portal.\n`
-              : `Hello ${person.name},\n\nThank you for bidding on "${spec.title}". The buyer has chosen another offer. ${link}\n`,
-          },
-          transaction,
-        );
+        const mail = won
+          ? bidChosenMail({ name: person.name, specTitle: spec.title, jobId: job.id, totalCents: bid.totalCents, retainerCents: job.retainerCents, currency: job.currency })
+          : bidNotChosenMail({ name: person.name, specId: spec.id, specTitle: spec.title });
+        await enqueueMail({ to: person.email, ...mail }, transaction);
       }
     }
     const buyer = await Organisation.findByPk(spec.organisationId, { transaction, rejectOnEmpty: true });
     const manager = buyer.accountManagerId ? await User.findByPk(buyer.accountManagerId, { transaction }) : null;
     if (manager?.active) {
-      await enqueueMail(
-        {
-          to: manager.email,
-          subject: `New job for ${buyer.name}: ${spec.title}`,
-          text: `Hello ${manager.name},\n\n${buyer.name} has awarded "${spec.title}" (${formatMoney(bid.totalCents, bid.currency)}). Follow it here: ${env().APP_URL}/jobs/${job.id}\n`,
-        },
-        transaction,
-      );
+      const mail = newJobMail({ name: manager.name, buyerName: buyer.name, specTitle: spec.title, jobId: job.id, totalCents: bid.totalCents, currency: bid.currency });
+      await enqueueMail({ to: manager.email, ...mail }, transaction);
     }
     return job;
   });

@@ -5,7 +5,7 @@
 import type { BomLine } from "~/hydraulics";
 import type { BidLine } from "~/models/bid.server";
 import type { BidStatus } from "~/content/bid-status";
-import { lineTotalCents } from "./bid-pricing";
+import { lineTotalCents } from "~/content/money";
 
 export interface ComparedBid {
   id: string;

@@ -3,13 +3,13 @@ import type { BomLine, Design } from "~/hydraulics";
 import { Bid, BidVersion, Organisation, Spec, SpecRevision, User, sequelize } from "~/models/index.server";
 import type { BidLine, BidOffer } from "~/models/bid.server";
 import type { BidInput } from "~/schemas/bid";
-import { bidTotals, parseMoney } from "./bid-pricing";
+import { bidTotals, parseMoney } from "~/content/money";
 import { compareBids, type ComparisonSort } from "./bid-comparison";
 import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
+import { bidOfferedMail, bidWithdrawnMail } from "./mail-templates.server";
 import { specFor } from "./spec-access.server";
 import { authorize, bidsWhere, can, viewerOf } from "~/auth/access-policy.server";
-import { env } from "~/env.server";
 import { formatDay, isoDay } from "~/content/dates";
 import { takesBids, type SpecStatus } from "~/content/spec-status";
 import type { BidStatus } from "~/content/bid-status";
@@ -123,14 +123,8 @@ export async function saveBid(user: User, specId: string | undefined, input: Bid
       const author = await User.findByPk(fresh.createdById, { transaction });
       const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
       if (author?.active) {
-        await enqueueMail(
-          {
-            to: author.email,
-            subject: `${row.version > 1 ? "Revised bid" : "New bid"} on ${fresh.title}`,
-            text: `Hello ${author.name},\n\n${shop.name} has ${row.version > 1 ? `revised its bid (version ${row.version})` : "sent a bid"} on "${fresh.title}". Compare the bids side by side: ${env().APP_URL}/specs/${fresh.id}/bids\n`,
-          },
-          transaction,
-        );
+        const mail = bidOfferedMail({ name: author.name, shopName: shop.name, specId: fresh.id, specTitle: fresh.title, version: row.version });
+        await enqueueMail({ to: author.email, ...mail }, transaction);
       }
     }
     return row;
@@ -150,14 +144,7 @@ export async function withdrawBid(user: User, specId: string | undefined) {
     const author = await User.findByPk(spec.createdById, { transaction });
     const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
     if (author?.active) {
-      await enqueueMail(
-        {
-          to: author.email,
-          subject: `Offer taken back on ${spec.title}`,
-          text: `Hello ${author.name},\n\n${shop.name} has taken back its offer on "${spec.title}"; it no longer appears in your comparison. They may offer again until the deadline.\n\nThe offers: ${env().APP_URL}/specs/${spec.id}/bids\n`,
-        },
-        transaction,
-      );
+      await enqueueMail({ to: author.email, ...bidWithdrawnMail({ name: author.name, shopName: shop.name, specId: spec.id, specTitle: spec.title }) }, transaction);
     }
   });
 }

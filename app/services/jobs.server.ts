@@ -13,20 +13,19 @@ import {
 } from "~/content/job-milestones";
 import { addDays, daysBetween, formatDay, isoDay, todayUtc } from "~/content/dates";
 import type { JobListQuery } from "~/schemas/jobs";
-import { env } from "~/env.server";
 import { FieldErrors } from "./errors.server";
 import { authorize, can, findInScope, jobsWhere, viewerOf, type Action } from "~/auth/access-policy.server";
 import { enqueueMail } from "./mail.server";
-import { retainerCents } from "./bid-pricing";
+import { jobProgressMail, milestoneTakenBackMail } from "./mail-templates.server";
+import { retainerCents } from "~/content/money";
 
-export { retainerCents };
 
 // Awarded jobs: opened by the award, moved along their milestones by the shop, followed by the
 // buyer's account manager. Every change is a job_events row written in the same transaction,
 // and jobs.stage always names the furthest milestone reached.
 
 // ---------------------------------------------------------------------------------------------
-// Dates: pure, exported for the award and the tests (the retainer sum lives in bid-pricing).
+// Dates: pure, exported for the award and the tests (the retainer sum lives in content/money).
 
 /**
  * Default target day of each milestone: the award day plus its share of the lead time (rounded
@@ -505,24 +504,19 @@ async function tellParties(transaction: Transaction, job: Job, milestones: JobMi
     order: [["email", "ASC"]],
     transaction,
   });
-  const labels = reached.map((m) => MILESTONE_LABELS[m.key]);
   const next = milestones.find((m) => !m.reachedAt);
-  const nextLine = next
-    ? `Next up: ${MILESTONE_LABELS[next.key]}${next.targetDate ? `, planned for ${formatDay(next.targetDate)}` : ""}.`
-    : "Every milestone of the job is now reached.";
   for (const person of people) {
-    await enqueueMail(
-      {
-        to: person.email,
-        subject: `Job progress on "${spec.title}": ${labels.join(", ")}`,
-        text:
-          (person.organisationId === shop.id
-            ? `Hello ${person.name},\n\nYour shop has recorded progress on "${spec.title}": ${labels.join(", then ")}. The buyer has been told.\n` + (note ? `\nThe note: ${note}\n` : "")
-            : `Hello ${person.name},\n\n${shop.name} has recorded progress on "${spec.title}": ${labels.join(", then ")}.\n` + (note ? `\nTheir note: ${note}\n` : "")) +
-          `\n${nextLine}\n\nThe job's timeline and history: ${env().APP_URL}/jobs/${job.id}\n`,
-      },
-      transaction,
-    );
+    const mail = jobProgressMail({
+      name: person.name,
+      toShop: person.organisationId === shop.id,
+      shopName: shop.name,
+      specTitle: spec.title,
+      jobId: job.id,
+      reached: reached.map((m) => MILESTONE_LABELS[m.key]),
+      note,
+      next: next ? { label: MILESTONE_LABELS[next.key], targetDate: next.targetDate } : null,
+    });
+    await enqueueMail({ to: person.email, ...mail }, transaction);
   }
 }
 
@@ -551,13 +545,7 @@ async function tellPartiesUndone(transaction: Transaction, job: Job, milestone: 
   const shop = await Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true });
   const people = await User.findAll({ where: { organisationId: [job.buyerOrganisationId, job.shopOrganisationId], active: true }, order: [["email", "ASC"]], transaction });
   for (const person of people) {
-    await enqueueMail(
-      {
-        to: person.email,
-        subject: `Job progress on "${spec.title}": ${MILESTONE_LABELS[milestone.key]} taken back`,
-        text: `Hello ${person.name},\n\n${shop.name} has taken back "${MILESTONE_LABELS[milestone.key]}" on "${spec.title}": it is no longer marked as reached.\nTheir reason: ${reason}\n\nThe job's timeline and history: ${env().APP_URL}/jobs/${job.id}\n`,
-      },
-      transaction,
-    );
+    const mail = milestoneTakenBackMail({ name: person.name, shopName: shop.name, specTitle: spec.title, jobId: job.id, milestone: MILESTONE_LABELS[milestone.key], reason });
+    await enqueueMail({ to: person.email, ...mail }, transaction);
   }
 }

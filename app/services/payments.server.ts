@@ -1,7 +1,7 @@
 import Stripe from "stripe";
 import { Op, type Transaction, type WhereOptions } from "sequelize";
 import { Job, Organisation, Payment, Refund, Spec, User, sequelize } from "~/models/index.server";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import type { PaymentStatus } from "~/content/payment-status";
 import { env } from "~/env.server";
 import { FieldErrors, notFound } from "./errors.server";

@@ -1,8 +1,8 @@
 import { Op, type Transaction } from "sequelize";
-import { env } from "~/env.server";
 import { Bid, Organisation, Spec, SpecQuestion, User, sequelize } from "~/models/index.server";
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { enqueueMail } from "./mail.server";
+import { questionAnsweredMail, questionAskedMail } from "./mail-templates.server";
 import { specFor, specForReader } from "./spec-access.server";
 import { can, questionsWhere, viewerOf } from "~/auth/access-policy.server";
 import { formatDay } from "~/content/dates";
@@ -51,7 +51,6 @@ function closedNote(spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()
   return "This spec is no longer open for bids, so it takes no new questions.";
 }
 
-const specLink = (specId: string) => `${env().APP_URL}/specs/${specId}#questions`;
 
 /** The questions panel of a spec the user may read (a 404 otherwise). */
 export async function questionsFor(user: User, specId: string | undefined, now = new Date()): Promise<QuestionsPanel> {
@@ -107,17 +106,8 @@ export async function askQuestion(user: User, specId: string | undefined, { body
     const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
     const buyers = await User.findAll({ where: { organisationId: locked.organisationId, active: true }, transaction });
     for (const buyer of buyers) {
-      await enqueueMail(
-        {
-          to: buyer.email,
-          subject: `New question on your spec: ${locked.title}`,
-          text:
-            `Hello ${buyer.name},\n\n${shop.name} asked a question about "${locked.title}":\n\n${body}\n\n` +
-            `Your answer will be shown to every shop that reads the spec, without the name of the shop that asked. ` +
-            `Answer it here: ${specLink(locked.id)}\n`,
-        },
-        transaction,
-      );
+      const mail = questionAskedMail({ name: buyer.name, shopName: shop.name, specId: locked.id, specTitle: locked.title, question: body });
+      await enqueueMail({ to: buyer.email, ...mail }, transaction);
     }
     return question;
   });
@@ -151,17 +141,8 @@ export async function answerQuestion(user: User, specId: string | undefined, { q
     });
     for (const person of recipients) {
       const isAsker = person.id === question.askedById;
-      const what = isAsker ? "your question" : "a question from a shop";
-      await enqueueMail(
-        {
-          to: person.email,
-          subject: `${edited ? "Answer updated" : "Question answered"}: ${locked.title}`,
-          text:
-            `Hello ${person.name},\n\nThe machine builder ${edited ? "changed the answer to" : "answered"} ${what} on "${locked.title}".\n\n` +
-            `Question:\n${question.body}\n\nAnswer:\n${answer}\n\nEvery question and answer on the spec: ${specLink(locked.id)}\n`,
-        },
-        transaction,
-      );
+      const mail = questionAnsweredMail({ name: person.name, isAsker, edited, specId: locked.id, specTitle: locked.title, question: question.body, answer });
+      await enqueueMail({ to: person.email, ...mail }, transaction);
     }
     return { question, edited, told: recipients.length };
   });

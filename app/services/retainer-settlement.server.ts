@@ -1,9 +1,9 @@
 import Stripe from "stripe";
 import type { Transaction } from "sequelize";
 import { Job, Organisation, type Payment, Refund, Spec, User } from "~/models/index.server";
-import { formatMoney } from "~/content/currencies";
-import { env } from "~/env.server";
+import { formatMoney } from "~/content/money";
 import { enqueueMail } from "./mail.server";
+import { receiptMail, retainerReceivedMail, secondChargeToPayerMail, secondChargeToStaffMail } from "./mail-templates.server";
 import { recordRetainerReceived } from "./jobs.server";
 import { stripe } from "./stripe.server";
 
@@ -98,31 +98,15 @@ async function tellOfSecondCharge(transaction: Transaction, payment: Payment, jo
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
   const buyer = await Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true });
   const payer = await User.findByPk(payment.createdById, { transaction });
-  const amount = formatMoney(payment.amountCents, payment.currency);
-  const link = `${env().APP_URL}/jobs/${job.id}`;
-  const reference = payment.paymentIntentId ?? payment.id;
+  const charge = { specTitle: spec.title, jobId: job.id, amountCents: payment.amountCents, currency: payment.currency, reference: payment.paymentIntentId ?? payment.id, refused };
   if (payer?.active) {
-    await enqueueMail(
-      {
-        to: payer.email,
-        subject: `Charged twice for the retainer of ${spec.title}: ${refused ? "we are paying it back" : "refunded"}`,
-        text: `Hello ${payer.name},\n\nThe retainer for "${spec.title}" had already been paid when a second card payment of ${amount} came through (reference ${reference}). ${refused ? "Your account manager will pay it back to your card and be in touch." : "We have asked the card service to pay it back in full; it can take a few days to appear on your statement."} Nothing else is needed from you.\n\nThe job: ${link}\n`,
-      },
-      transaction,
-    );
+    await enqueueMail({ to: payer.email, ...secondChargeToPayerMail({ ...charge, name: payer.name }) }, transaction);
   }
   const manager = buyer.accountManagerId ? await User.findOne({ where: { id: buyer.accountManagerId, active: true }, transaction }) : null;
   // Without an account manager, the administrators hear of it.
   const staff = manager ? [manager] : await User.findAll({ where: { role: "admin", active: true }, transaction });
   for (const person of staff) {
-    await enqueueMail(
-      {
-        to: person.email,
-        subject: `Check: retainer charged twice for ${spec.title} (${buyer.name})`,
-        text: `Hello ${person.name},\n\n${buyer.name} paid the retainer for "${spec.title}" a second time: ${amount}, reference ${reference}. ${refused ? `The automatic refund was refused by the card service (${refused}); please pay it back from the job page.` : "It has been refunded automatically."}\n\nThe job: ${link}\nFlagged payments: ${env().APP_URL}/payments?flagged=1\n`,
-      },
-      transaction,
-    );
+    await enqueueMail({ to: person.email, ...secondChargeToStaffMail({ ...charge, name: person.name, buyerName: buyer.name }) }, transaction);
   }
 }
 
@@ -133,26 +117,11 @@ export async function sendReceipts(transaction: Transaction, payment: Payment) {
   const [buyer, shop] = await Promise.all([Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true }), Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true })]);
   const payer = await User.findByPk(payment.createdById, { transaction, rejectOnEmpty: true });
   const shopPeople = await User.findAll({ where: { organisationId: shop.id, active: true }, transaction });
-  const amount = formatMoney(payment.amountCents, payment.currency);
-  const link = `${env().APP_URL}/jobs/${job.id}`;
-  const when = (payment.paidAt ?? new Date()).toISOString().slice(0, 16).replace("T", " ");
-  await enqueueMail(
-    {
-      to: payer.email,
-      subject: `Receipt: retainer of ${amount} for ${spec.title}`,
-      text: `Hello ${payer.name},\n\nThank you: ${buyer.name} has paid the retainer of ${amount} for "${spec.title}" to ${shop.name} by card on ${when} UTC.\nPayment reference: ${payment.paymentIntentId ?? payment.id}\n\nThe job: ${link}\n`,
-    },
-    transaction,
-  );
+  const paid = { specTitle: spec.title, jobId: job.id, amountCents: payment.amountCents, currency: payment.currency, buyerName: buyer.name, paidAt: payment.paidAt ?? new Date() };
+  const reference = payment.paymentIntentId ?? payment.id;
+  await enqueueMail({ to: payer.email, ...receiptMail({ ...paid, name: payer.name, shopName: shop.name, reference }) }, transaction);
   for (const person of shopPeople) {
-    await enqueueMail(
-      {
-        to: person.email,
-        subject: `Retainer received: ${amount} for ${spec.title}`,
-        text: `Hello ${person.name},\n\n${buyer.name} has paid the retainer of ${amount} for "${spec.title}" on ${when} UTC. The job can go ahead: ${link}\n`,
-      },
-      transaction,
-    );
+    await enqueueMail({ to: person.email, ...retainerReceivedMail({ ...paid, name: person.name }) }, transaction);
   }
 }
 

@@ -1,9 +1,9 @@
-import { env } from "~/env.server";
 import { Organisation, User, sequelize } from "~/models/index.server";
 import type { Approval } from "~/content/shop-approval";
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { authorize, viewerOf } from "~/auth/access-policy.server";
 import { enqueueMail } from "./mail.server";
+import { shopApprovedMail, shopRefusedMail } from "./mail-templates.server";
 
 // An admin approves or refuses each new shop organisation before it reads any spec
 // (spec-access.server.ts applies the decision). The shop's people are mailed either way, in the
@@ -82,22 +82,8 @@ export async function decideShop(admin: User, organisationId: string, choice: Sh
     );
     const people = await User.findAll({ where: { organisationId: shop.id, active: true }, order: [["email", "ASC"]], transaction });
     for (const person of people) {
-      await enqueueMail(
-        approving
-          ? {
-              to: person.email,
-              subject: `${shop.name} is approved on Tenderflow`,
-              text: `Hello ${person.name},\n\n${shop.name} has been approved as a fluid-power shop on Tenderflow. You can now read the specs machine builders publish, ask them questions and bid.\n\nThe specs open for bids: ${env().APP_URL}/open-specs\n`,
-              priority: "account",
-            }
-          : {
-              to: person.email,
-              subject: `${shop.name} was not approved on Tenderflow`,
-              text: `Hello ${person.name},\n\n${shop.name} has not been approved to read machine builders' specs on Tenderflow.\n\nThe reason given: ${reason}\n\nIf something has changed, contact Tenderflow and an administrator will look at it again. Your account stays open: ${env().APP_URL}/open-specs\n`,
-              priority: "account",
-            },
-        transaction,
-      );
+      const mail = reason === null ? shopApprovedMail({ name: person.name, shopName: shop.name }) : shopRefusedMail({ name: person.name, shopName: shop.name, reason });
+      await enqueueMail({ to: person.email, ...mail, priority: "account" }, transaction);
     }
     return shop;
   });

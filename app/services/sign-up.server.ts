@@ -1,9 +1,9 @@
 import { Op, UniqueConstraintError } from "sequelize";
-import { env } from "~/env.server";
 import { SignUpRequest, User, sequelize } from "~/models/index.server";
 import { DUPLICATE_EMAIL, createAccount, hashPassword, type SignUpInput } from "./accounts.server";
 import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
+import { signUpAddressTakenMail, signUpConfirmMail } from "./mail-templates.server";
 import { mayMail } from "./throttle.server";
 import { hashToken, newToken } from "./tokens.server";
 
@@ -20,18 +20,9 @@ export async function requestSignUp(input: SignUpInput): Promise<void> {
   const passwordHash = await hashPassword(input.password);
   const owner = await User.findOne({ where: { email: input.email }, attributes: ["id", "name"] });
   if (!(await mayMail("sign-up", input.email))) return;
-  const appUrl = env().APP_URL;
   await sequelize.transaction(async (transaction) => {
     if (owner) {
-      await enqueueMail(
-        {
-          to: input.email,
-          subject: "Someone tried to sign up to Tenderflow with your address",
-          priority: "account",
-          text: `Hello ${owner.name},\n\nSomeone tried to create a new Tenderflow account with this address, which already has one. If it was you, sign in instead:\n\n${appUrl}/sign-in\n\nForgot your password? Choose a new one here:\n\n${appUrl}/forgot-password\n\nIf it wasn't you, ignore this message: nothing was created and your account is unchanged.`,
-        },
-        transaction,
-      );
+      await enqueueMail({ to: input.email, ...signUpAddressTakenMail({ name: owner.name }), priority: "account" }, transaction);
       return;
     }
     const { token, tokenHash } = newToken();
@@ -49,15 +40,8 @@ export async function requestSignUp(input: SignUpInput): Promise<void> {
       },
       { transaction },
     );
-    await enqueueMail(
-      {
-        to: input.email,
-        subject: "Finish creating your Tenderflow account",
-        priority: "account",
-        text: `Hello ${input.name},\n\nTo finish creating the Tenderflow account of ${input.organisationName}, open this link within ${LINK_HOURS} hours:\n\n${appUrl}/sign-up/${token}\n\nIf you did not sign up, ignore this message; no account is made without the link.`,
-      },
-      transaction,
-    );
+    const mail = signUpConfirmMail({ name: input.name, organisationName: input.organisationName, token, hours: LINK_HOURS });
+    await enqueueMail({ to: input.email, ...mail, priority: "account" }, transaction);
   });
 }
 

@@ -7,9 +7,9 @@ import { Spec, SpecAttachment, SpecRevision, User, sequelize } from "~/models/in
 import type { SpecStatus } from "~/models/spec.server";
 import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
+import { specPublishedMail, specRevisedMail } from "./mail-templates.server";
 import { removeAllAttachments } from "./attachments.server";
 import { shopPeopleToTell, specOfOwner } from "./spec-access.server";
-import { env } from "~/env.server";
 
 // Specs of a buyer organisation: drafts saved step by step, then published as revisions.
 
@@ -139,17 +139,9 @@ export async function publish(user: User, specId: string | undefined, { cautions
     // Only shops approved to read specs hear of one.
     const shops = await shopPeopleToTell(transaction);
     for (const shop of shops) {
-      await enqueueMail(
-        {
-          to: shop.email,
-          subject: isRevision ? `Spec revised (revision ${number}): ${locked.title}` : `New spec open for bids: ${locked.title}`,
-          text: isRevision
-            ? `Hello ${shop.name},\n\nThe machine builder has published revision ${number} of "${locked.title}" with a fresh preliminary circuit. Bids made against an earlier revision are marked as such. Bids until ${quotation.data.bidDeadline}.\n\nRead it: ${env().APP_URL}/specs/${locked.id}\n`
-            : `Hello ${shop.name},\n\nA machine builder has published a spec on Tenderflow: "${locked.title}", delivered to ${quotation.data.deliveryRegion}, bids until ${quotation.data.bidDeadline}.\n\nRead it and bid: ${env().APP_URL}/open-specs\n`,
-          priority: "announcement",
-        },
-        transaction,
-      );
+      const facts = { shopName: shop.name, specId: locked.id, specTitle: locked.title, bidDeadline: quotation.data.bidDeadline };
+      const mail = isRevision ? specRevisedMail({ ...facts, revision: number }) : specPublishedMail({ ...facts, deliveryRegion: quotation.data.deliveryRegion });
+      await enqueueMail({ to: shop.email, ...mail, priority: "announcement" }, transaction);
     }
   });
   return spec.reload();

@@ -2,9 +2,8 @@ import type Stripe from "stripe";
 import { QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
 import { Job, JobEvent, Payment, Refund, Spec, StripeEvent, User, sequelize } from "~/models/index.server";
-import { formatMoney } from "~/content/currencies";
-import { env } from "~/env.server";
 import { enqueueMail } from "./mail.server";
+import { refundToPayerMail, refundToShopMail } from "./mail-templates.server";
 import { flagPayment, idOf, moneyMismatch, settleCompletedSession } from "./retainer-settlement.server";
 
 // Stripe's webhook events, each applied once. The event id is the primary key of
@@ -84,31 +83,13 @@ async function chargeRefunded(charge: z.infer<typeof chargeShape>, transaction: 
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
   const by = waiting[0]?.requestedById ?? payment.createdById;
   await JobEvent.create({ jobId: job.id, userId: by, kind: "retainer_refunded", milestone: null, detail: { paymentId: payment.id, amountCents: newly, currency: payment.currency } }, { transaction });
+  const retainer = { specTitle: spec.title, jobId: job.id, amountCents: payment.amountCents, currency: payment.currency, newlyCents: newly, refundedCents: refunded };
   const payer = await User.findByPk(payment.createdById, { transaction });
   if (payer?.active) {
-    await enqueueMail(
-      {
-        to: payer.email,
-        subject: `Refund of ${formatMoney(newly, payment.currency)} on your retainer for ${spec.title}`,
-        text: `Hello ${payer.name},\n\n${formatMoney(newly, payment.currency)} of the retainer you paid has been refunded to your card. Refunded so far: ${formatMoney(refunded, payment.currency)} of the ${formatMoney(payment.amountCents, payment.currency)} you paid. It can take a few days to appear on your statement.\n\nThe job: ${env().APP_URL}/jobs/${job.id}\n`,
-      },
-      transaction,
-    );
+    await enqueueMail({ to: payer.email, ...refundToPayerMail({ ...retainer, name: payer.name }) }, transaction);
   }
   for (const person of await User.findAll({ where: { organisationId: job.shopOrganisationId, active: true }, transaction })) {
-    await enqueueMail(
-      {
-        to: person.email,
-        subject: `Retainer paid back in ${refunded >= payment.amountCents ? "full" : "part"}: ${spec.title}`,
-        text: `Hello ${person.name},
-
-Tenderflow has refunded ${formatMoney(newly, payment.currency)} of the buyer's retainer for "${spec.title}" (${formatMoney(refunded, payment.currency)} of ${formatMoney(payment.amountCents, payment.currency)} refunded so far). Your account manager will be in touch about the job.
-
-The job: ${env().APP_URL}/jobs/${job.id}
-`,
-      },
-      transaction,
-    );
+    await enqueueMail({ to: person.email, ...refundToShopMail({ ...retainer, name: person.name }) }, transaction);
   }
   return `refunded ${newly}`;
 }

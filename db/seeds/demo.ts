@@ -6,7 +6,7 @@ import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
 import { ENGINE_VERSION, sizeCircuit } from "~/hydraulics";
 import { toRequirementsInput } from "~/content/requirement-fields";
 import { MILESTONES, TARGET_SHARES, type MilestoneKey } from "~/content/job-milestones";
-import { bidTotals, retainerCents } from "~/services/bid-pricing";
+import { bidTotals, retainerCents } from "~/content/money";
 
 export const DEMO_PASSWORD = "tenderflow-demo";
 

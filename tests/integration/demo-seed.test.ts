@@ -6,7 +6,7 @@ import * as jobsRoute from "~/routes/jobs";
 import * as specPage from "~/routes/spec";
 import * as paymentsRoute from "~/routes/payments";
 import { Bid, Job, JobEvent, Spec, sequelize } from "~/models/index.server";
-import { bidTotals, retainerCents } from "~/services/bid-pricing";
+import { bidTotals, retainerCents } from "~/content/money";
 import { bomOf } from "~/services/bids.server";
 import { DEMO_PASSWORD, seedDemo } from "../../db/seeds/demo";
 import { signedIn } from "../support/sessions";

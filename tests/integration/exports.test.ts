@@ -17,7 +17,7 @@ import * as pricedXlsx from "~/routes/job-priced-bill.xlsx";
 import * as specPage from "~/routes/spec";
 import { warningTitle } from "~/content/warning-titles";
 import { CIRCUIT_CAUTIONS } from "~/content/cautions";
-import { formatMoney } from "~/content/currencies";
+import { formatMoney } from "~/content/money";
 import { ENGINE_VERSION, type BomLine, type Design } from "~/hydraulics";
 import { Bid, Job, Organisation, SpecRevision, User, type Spec } from "~/models/index.server";
 import { bomOf } from "~/services/bids.server";

@@ -10,12 +10,12 @@ import * as specPage from "~/routes/spec";
 import { Bid, Job, JobEvent, JobMilestone, Organisation, User, sequelize } from "~/models/index.server";
 import { MILESTONE_KEYS } from "~/content/job-milestones";
 import { addDays, isoDay } from "~/content/dates";
+import { retainerCents } from "~/content/money";
 import {
   changeTargetDate,
   jobFor,
   openJob,
   reachMilestones,
-  retainerCents,
   stageOf,
   targetDates,
   undoLastMilestone,

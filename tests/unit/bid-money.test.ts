@@ -1,7 +1,7 @@
 // Bid money and the comparison, without a database.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { bidTotals, centsToInput, moneyProblem, parseMoney, retainerCents } from "~/services/bid-pricing";
+import { bidTotals, centsToInput, moneyProblem, parseMoney, retainerCents } from "~/content/money";
 import { compareBids, type ComparedBid } from "~/services/bid-comparison";
 import type { BomLine } from "~/hydraulics";
 

@@ -1,7 +1,7 @@
 import type ExcelJS from "exceljs";
 import type { Warning } from "~/hydraulics";
 import type { BidLine } from "~/models/bid.server";
-import { lineTotalCents } from "../bid-pricing";
+import { lineTotalCents } from "~/content/money";
 import {
   FILLS,
   addCautionsSheet,

@@ -1,5 +1,15 @@
-// Bid money, pure and shared by the server (which decides) and the bid form (which previews):
-// prices are integer cents from the first keystroke, so totals never carry floating-point error.
+// Money, the one home of its rules, shared by server and client: prices are integer cents from
+// the first keystroke (so totals never carry floating-point error), typed money is parsed and
+// judged here, and the retainer is worked out here. The server always prices again.
+
+/** Currencies a spec can be quoted in (ISO 4217 codes); every bid on a spec uses the spec's. */
+export const CURRENCIES = ["EUR", "GBP", "USD", "CHF", "SEK", "DKK", "NOK", "PLN", "CZK", "CAD"] as const;
+export type Currency = (typeof CURRENCIES)[number];
+
+/** Integer cents as money text in the currency, e.g. 123456 → "€1,234.56". */
+export function formatMoney(cents: number, currency: string) {
+  return new Intl.NumberFormat("en-GB", { style: "currency", currency }).format(cents / 100);
+}
 
 /** Largest unit price on one line: a billion in the currency. */
 export const MAX_UNIT_PRICE_CENTS = 100_000_000_000;

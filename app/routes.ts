@@ -42,6 +42,7 @@ export default [
   route("webhooks/stripe", "routes/webhooks.stripe.ts"),
   ...prefix("api/v1", [
     route("sizing", "routes/api.v1.sizing.ts"),
+    route("machines/sizing", "routes/api.v1.machines.sizing.ts"),
     route("health", "routes/api.v1.health.ts"),
   ]),
   ...prefix("admin", [

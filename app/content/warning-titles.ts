@@ -28,6 +28,8 @@ const TITLES: Partial<Record<WarningCode, string>> = {
   PUMP_TYPE_NOT_SUITED: "The pump you asked for does not suit this axis",
   REGENERATIVE_APPROACH: "The approach runs regeneratively",
   PRESS_CONTROL_DROP_LOW: "Pressing-speed control has little pressure to work with",
+  MACHINE_FLOW_SHORT: "The pump cannot feed every axis moving together",
+  AXIS_PRESSURE_REDUCED: "An axis gets a pressure-reducing valve",
 };
 
 /** The title of a warning; a code without one yet still reads as a sentence, never as a code. */

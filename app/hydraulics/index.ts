@@ -4,6 +4,9 @@
 import type { Design } from "./design";
 import { parseRequirements } from "./requirements";
 import { sizeCircuitParsed } from "./size";
+import type { MachineDesign } from "./machine-design";
+import { sizeMachineParsed } from "./machine";
+import { parseMachine } from "./machine-requirements";
 
 export { ENGINE_VERSION, sizeCircuitParsed } from "./size";
 export {
@@ -16,8 +19,19 @@ export type * from "./design";
 export { WARNING_CODES, type WarningCode } from "./warnings";
 export { NotSizableError } from "./not-sizable";
 export { ASSUMPTIONS } from "./assumptions";
+export { sizeMachineParsed } from "./machine";
+export {
+  parseMachine, defaultSequence, MACHINE_LIMITS, MACHINE_MESSAGES, MACHINE_DUTY_FIELDS, MOTIONS,
+  type MachineRequirements, type MachineRequirementsInput, type MachineMotion, type Motion,
+} from "./machine-requirements";
+export type * from "./machine-design";
 
 /** Validates the requirements (throwing RequirementsError) and sizes the circuit. */
 export function sizeCircuit(requirements: unknown): Design {
   return sizeCircuitParsed(parseRequirements(requirements));
+}
+
+/** Validates a machine (throwing RequirementsError with paths such as `axes.1.strokeMm`) and sizes it. */
+export function sizeMachine(machine: unknown): MachineDesign {
+  return sizeMachineParsed(parseMachine(machine));
 }

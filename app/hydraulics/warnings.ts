@@ -36,6 +36,10 @@ export const WARNING_CODES = [
   "REGENERATIVE_APPROACH",
   /** the pressing-speed flow control has less pressure across it than it needs to regulate */
   "PRESS_CONTROL_DROP_LOW",
+  /** a machine: the axes moving together in a phase draw more than the shared pump delivers then */
+  "MACHINE_FLOW_SHORT",
+  /** a machine: an axis rated below the shared relief gets a pressure-reducing valve */
+  "AXIS_PRESSURE_REDUCED",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

@@ -1,0 +1,42 @@
+/**
+ * The machine's circuit as data: the power unit once, then each axis's directional valve,
+ * cylinder and in-line valves with the axis named on every component. Every directional valve
+ * takes P from the pump line and returns T through the return filter to the tank; an axis's
+ * parts connect only among themselves and to the power unit, so each valve reaches only its own
+ * cylinder. The diagram drawing of a machine is not made here.
+ */
+import { buildCircuit } from "./circuit";
+import type { CircuitConnection, Design } from "./design";
+import type { MachineCircuit, MachineCircuitComponent, MachineDesign } from "./machine-design";
+import { gaugeRangeBar, POWER_UNIT_IDS, powerUnitDesign } from "./machine-unit";
+import { dcvPositions } from "./valves";
+
+/** Component id of an axis's part: the axis's place in the list and the part's own id ("a2:dcv"). */
+export const axisPartId = (index: number, id: string): string => `a${index + 1}:${id}`;
+
+const componentOf = (end: string): string => end.slice(0, end.lastIndexOf("."));
+const portOf = (end: string): string => end.slice(end.lastIndexOf(".") + 1);
+
+export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCircuit {
+  const gauge = gaugeRangeBar(m.pressuresBar.reliefSetting);
+  const unit = buildCircuit(powerUnitDesign(m, designs[0]), gauge);
+  const components: MachineCircuitComponent[] = unit.components.filter((c) => POWER_UNIT_IDS.has(c.id));
+  const connections: CircuitConnection[] = unit.connections.filter((c) => POWER_UNIT_IDS.has(componentOf(c.from)) && POWER_UNIT_IDS.has(componentOf(c.to)));
+  m.axes.forEach((axis, i) => {
+    const center = axis.directionalValve.center;
+    const own = buildCircuit({ ...designs[i], directionalValve: axis.directionalValve, reliefVent: m.reliefVent, pressuresBar: { ...designs[i].pressuresBar, reliefSetting: m.pressuresBar.reliefSetting } }, gauge, dcvPositions(center));
+    const rename = (end: string): string => (POWER_UNIT_IDS.has(componentOf(end)) ? end : `${axisPartId(i, componentOf(end))}.${portOf(end)}`);
+    for (const c of own.components) {
+      if (POWER_UNIT_IDS.has(c.id)) continue;
+      components.push({
+        ...c, id: axisPartId(i, c.id), axis: axis.name, label: `${c.label ?? c.kind}, ${axis.name}`,
+        ...(c.kind === "dcv" ? { dcvPositions: own.dcvPositions } : {}),
+      });
+    }
+    for (const c of own.connections) {
+      if (POWER_UNIT_IDS.has(componentOf(c.from)) && POWER_UNIT_IDS.has(componentOf(c.to))) continue;
+      connections.push({ ...c, from: rename(c.from), to: rename(c.to) });
+    }
+  });
+  return { components, connections };
+}

@@ -1,0 +1,99 @@
+/**
+ * A sized machine (sizing contract, "MachineDesign"): each axis as an axis alone would get it,
+ * and one power unit sized over the machine cycle.
+ */
+import type { BomLine, Circuit, CircuitComponent, DcvPositions, Design } from "./design";
+import type { MachineMotion, MachineRequirements } from "./machine-requirements";
+import type { MachinePhaseName, PhaseKind } from "./machine-timeline";
+import type { TrailEntry } from "./trail";
+import type { Warning } from "./warnings";
+
+/** One axis of the machine: its own cylinder, valve and load holding. */
+export interface MachineAxis {
+  name: string;
+  requirements: Design["requirements"];
+  loads: Design["loads"];
+  cylinder: Design["cylinder"];
+  pressuresBar: Design["pressuresBar"];
+  flowsLpm: Omit<Design["flowsLpm"], "pump" | "returnMax">;
+  speedsMmS: Design["speedsMmS"];
+  regenerative: boolean;
+  regeneration: Design["regeneration"];
+  pressSpeedControl: Design["pressSpeedControl"];
+  counterbalance: Design["counterbalance"];
+  holding: Design["holding"];
+  decompression: Design["decompression"];
+  directionalValve: Design["directionalValve"];
+  /** the axis's own work lines, valve A to cap end and valve B to rod end */
+  lines: { capWork: Design["lines"]["capWork"]; rodWork: Design["lines"]["rodWork"] };
+  /**
+   * A pressure-compensated meter-in flow control that holds the axis's speed where the shared
+   * pump delivers more than the axis draws; null where the axis takes the pump's whole flow.
+   */
+  speedControl: { flowLpm: number; reason: string } | null;
+}
+
+/** One phase of the machine cycle, in time order (contract: step, axes, demandLpm, pressureBar, pumpFlowLpm, durationS, hydraulicKw). */
+export interface MachineCyclePhase {
+  /** index into the sequence; null in neutral */
+  step: number | null;
+  phase: MachinePhaseName | "neutral";
+  kind: PhaseKind | "neutral";
+  /** names of the axes moving (none in a dwell or in neutral) */
+  axes: string[];
+  /** what each axis taking part is doing */
+  motions: { axis: string; phase: string }[];
+  durationS: number;
+  shownS: number;
+  demandLpm: number;
+  pressureBar: number;
+  pumpFlowLpm: number;
+  hydraulicKw: number;
+  shaftKw: number;
+  /** heat made in the phase: shaft power less the work done on the loads */
+  heatKw: number;
+}
+
+export type MachineCircuitComponent = CircuitComponent & {
+  /** the axis the component belongs to; absent on the power unit */
+  axis?: string;
+  /** a directional valve's port pairs in each position */
+  dcvPositions?: DcvPositions;
+};
+
+export interface MachineCircuit {
+  components: MachineCircuitComponent[];
+  connections: Circuit["connections"];
+}
+
+export interface MachineDesign {
+  engineVersion: string;
+  requirements: MachineRequirements;
+  sequence: MachineMotion[][];
+  axes: MachineAxis[];
+  cycle: MachineCyclePhase[];
+  pump: Design["pump"];
+  motor: Omit<Design["motor"], "phases"> & { phases: { name: string; kw: number; durationS: number }[] };
+  flowsLpm: { pump: number; returnMax: number; requiredMax: number };
+  pressuresBar: { reliefSetting: number; workingMax: number };
+  reservoir: Design["reservoir"];
+  cooler: Design["cooler"];
+  returnFilter: Design["returnFilter"];
+  lines: { pressure: Design["lines"]["pressure"]; return: Design["lines"]["return"]; suction: Design["lines"]["suction"] };
+  reliefVent: Design["reliefVent"];
+  heat: {
+    averageLossKw: number;
+    neutralLossKw: number;
+    neutralPressureBar: number;
+    tankDissipationKw: number;
+    coolerKw: number;
+    dailyEnergyKwh: number;
+    /** seconds of the cycle the axes are busy, and the cycle time (null without cycles) */
+    busyS: number;
+    cycleS: number | null;
+  };
+  warnings: Warning[];
+  bom: BomLine[];
+  trail: TrailEntry[];
+  circuit: MachineCircuit;
+}

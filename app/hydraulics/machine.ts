@@ -1,0 +1,166 @@
+/**
+ * Sizes a machine: each axis as it would be sized alone (size.ts) with the machine's duty, then
+ * one power unit over the machine cycle (machine-timeline.ts, machine-pump.ts, machine-power.ts).
+ */
+import { A } from "./assumptions";
+import type { Design } from "./design";
+import { machineBom } from "./machine-bom";
+import { machineCircuit } from "./machine-circuit";
+import type { MachineAxis, MachineCyclePhase, MachineDesign } from "./machine-design";
+import { machineLines, machineMotor, machineReservoir, neutralPhase } from "./machine-power";
+import { chooseMachinePump, pumpInPhase } from "./machine-pump";
+import type { MachineRequirements } from "./machine-requirements";
+import { machineTimeline, type TimelinePhase } from "./machine-timeline";
+import { machineTrail } from "./machine-trail";
+import { machineWarnings } from "./machine-warnings";
+import { NotSizableError } from "./not-sizable";
+import { RequirementsError } from "./requirements";
+import { ENGINE_VERSION, sizeCircuitParsed } from "./size";
+import { FOUR_POLE_FRAMES } from "./series";
+import type { DcvCenter } from "./valves";
+
+/** The axis alone, with the machine's duty; what the axis cannot meet is reported at its own path. */
+function sizeAxis(m: MachineRequirements, i: number): Design {
+  try {
+    return sizeCircuitParsed(m.axes[i]);
+  } catch (error) {
+    if (!(error instanceof RequirementsError)) throw error;
+    // The pressure limit is the machine's field; everything else belongs to the axis.
+    const keyed = Object.fromEntries(Object.entries(error.fieldErrors).map(([k, msgs]) => [k === "maxPressureBar" ? k : `axes.${i}.${k}`, msgs.map((msg) => `${m.axes[i].name}: ${msg}`)]));
+    if (error instanceof NotSizableError) throw new NotSizableError(Object.keys(keyed)[0], { ...error.warning, message: keyed[Object.keys(keyed)[0]][0] });
+    throw new RequirementsError(keyed);
+  }
+}
+
+/**
+ * Several valves in parallel on one pump must all block P in neutral, or the pump escapes
+ * through any one of them: a tandem centre becomes closed (A and B still blocked, so the load
+ * stays held) and an open centre becomes float (A and B still to tank) [CP; several-actuator practice].
+ */
+const parallelCentre = (c: DcvCenter): DcvCenter => (c === "tandem" ? "closed" : c === "open" ? "float" : c);
+
+/** The phase's heat: an axis alone on a pump of its own size loses what its own heat balance says; otherwise shaft power less the work on the loads. */
+function phaseHeatKw(ph: TimelinePhase, shaftKw: number, ownPump: (axis: string) => boolean): number {
+  if (ph.segments.length === 1 && ownPump(ph.segments[0].axis)) return ph.segments[0].aloneLossKw;
+  return Math.max(0, shaftKw - ph.segments.reduce((s, seg) => s + seg.usefulKw, 0));
+}
+
+/** Sizes a machine whose requirements have passed the schema. */
+export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
+  const designs = m.axes.map((_, i) => sizeAxis(m, i));
+  const byName = new Map(designs.map((d) => [d.requirements.name!, d]));
+  const timeline = machineTimeline(m.sequence, byName);
+  const mp = chooseMachinePump(designs, timeline, m.pumpType);
+  const qp = mp.qpLpm;
+  const choice = mp.choice;
+  const several = designs.length > 1;
+  const ownPump = (axis: string) => {
+    const p = byName.get(axis)!.pump;
+    return p.type === choice.type && p.displacementsCcRev.join() === choice.displacementsCcRev.join()
+      && byName.get(axis)!.pressuresBar.reliefSetting === choice.reliefBar;
+  };
+
+  // The cycle: each phase with what the pump does then, and the neutral rest of the cycle.
+  const pumpPhases = timeline.map((ph) => pumpInPhase(ph, mp));
+  const cycle: MachineCyclePhase[] = timeline.map((ph, i) => ({
+    step: ph.step, phase: ph.phase, kind: ph.kind, axes: ph.axes, motions: ph.segments.map((s) => ({ axis: s.axis, phase: s.phase })),
+    durationS: ph.durationS, shownS: ph.durationS, demandLpm: ph.demandLpm, pressureBar: pumpPhases[i].bar, pumpFlowLpm: pumpPhases[i].lpm,
+    hydraulicKw: (pumpPhases[i].bar * pumpPhases[i].lpm) / 600, shaftKw: pumpPhases[i].shaftKw,
+    heatKw: phaseHeatKw(ph, pumpPhases[i].shaftKw, ownPump),
+  }));
+  const busyS = cycle.reduce((s, p) => s + p.durationS, 0);
+  const cycleS = m.cyclesPerHour > 0 ? 3600 / m.cyclesPerHour : null;
+  const neutral = neutralPhase(designs, mp);
+  if (cycleS !== null && cycleS - busyS > 0) {
+    cycle.push({
+      step: null, phase: "neutral", kind: "neutral", axes: [], motions: [], durationS: cycleS - busyS, shownS: Math.min(cycleS - busyS, busyS),
+      demandLpm: 0, pressureBar: neutral.bar, pumpFlowLpm: neutral.lpm, hydraulicKw: (neutral.bar * neutral.lpm) / 600, shaftKw: neutral.shaftKw, heatKw: neutral.shaftKw,
+    });
+  }
+
+  const motor = machineMotor(cycle, pumpPhases.map((p) => p.kw), mp, designs, neutral, m.cyclesPerHour);
+  const reservoir = machineReservoir(designs, qp, m.ambientC);
+  const returnMaxLpm = Math.max(...timeline.map((p) => p.returnLpm));
+  const lines = machineLines(designs, qp, returnMaxLpm);
+  // Heat: each phase's loss over the cycle; without cycles the pump sits in neutral.
+  const periodS = cycleS === null ? null : Math.max(cycleS, busyS);
+  const averageLossKw = periodS === null ? neutral.shaftKw : cycle.reduce((s, p) => s + p.heatKw * p.durationS, 0) / periodS;
+  const coolerKw = Math.max(0, averageLossKw - reservoir.dissipationKw);
+
+  // One relief vent for a fixed or double pump behind several P-blocking valves; one valve keeps its own arrangement.
+  const reliefVent = several
+    ? choice.type === "compensated" ? null : {
+        ventPressureBar: A.ventPressureBar.value,
+        valve: "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank",
+        coilVoltage: `${A.coilVoltage.value} V DC`,
+        energisedWhen: "with any solenoid of any axis's directional valve; de-energised when every valve is in neutral",
+      }
+    : designs[0].reliefVent;
+
+  const axes: MachineAxis[] = designs.map((d) => {
+    const center = several ? parallelCentre(d.directionalValve.center) : d.directionalValve.center;
+    const ownFlow = Math.max(...timeline.flatMap((p) => p.segments.filter((s) => s.axis === d.requirements.name && s.moving).map((s) => s.drawLpm)));
+    return {
+      name: d.requirements.name!, requirements: d.requirements, loads: d.loads, cylinder: d.cylinder, pressuresBar: d.pressuresBar,
+      flowsLpm: { extend: d.flowsLpm.extend, retract: d.flowsLpm.retract, ...(d.flowsLpm.press !== undefined ? { press: d.flowsLpm.press } : {}) },
+      speedsMmS: d.speedsMmS, regenerative: d.regenerative, regeneration: d.regeneration ?? null, pressSpeedControl: d.pressSpeedControl,
+      counterbalance: d.counterbalance, holding: d.holding, decompression: d.decompression,
+      directionalValve: center === d.directionalValve.center ? d.directionalValve : {
+        ...d.directionalValve, center,
+        centerReason: `${center} centre: this valve shares the pump with the other axes' valves, so it blocks P in neutral (a ${d.directionalValve.center} centre would let the pump escape through it); the relief is vented to unload the pump`,
+        neutralPumpFlow: "blocked at every valve; the pump unloads through the vented relief",
+      },
+      lines: { capWork: d.lines.capWork, rodWork: d.lines.rodWork },
+      speedControl: ownFlow < qp * (1 - A.speedTolerance.value)
+        ? { flowLpm: ownFlow, reason: `the pump delivers ${Math.round(qp * 10) / 10} L/min and this axis draws at most ${Math.round(ownFlow * 10) / 10} L/min, so a meter-in flow control holds its speed` }
+        : null,
+    };
+  });
+
+  const frame = FOUR_POLE_FRAMES.get(motor.ratedKw) ?? null;
+  const design: MachineDesign = {
+    engineVersion: ENGINE_VERSION,
+    requirements: m,
+    sequence: m.sequence,
+    axes,
+    cycle,
+    pump: {
+      type: choice.type,
+      displacementCcRev: choice.displacementsCcRev.reduce((a, b) => a + b, 0),
+      displacementsCcRev: choice.displacementsCcRev,
+      ...(choice.unloadingBar !== null ? { unloadingBar: choice.unloadingBar, unloadedDropBar: A.unloadedDropBar.value } : {}),
+      ...(choice.compensatorBar !== null ? { compensatorBar: choice.compensatorBar } : {}),
+      ...(choice.powerLimitKw !== null ? { powerLimitKw: choice.powerLimitKw } : {}),
+      reason: choice.reason,
+      speedRpm: mp.speedRpm,
+      requiredDisplacementCcRev: mp.requiredDisplacementCc,
+      volumetricEfficiency: A.volumetricEfficiency.value,
+      overallEfficiency: A.overallEfficiency.value,
+    },
+    motor: {
+      requiredKw: motor.requiredKw, ratedKw: motor.ratedKw, poles: A.motorPoles.value, frame, sizingPressureBar: motor.sizingPressureBar,
+      sizedAtRelief: motor.sizedAtRelief, peakKw: motor.peakKw, rmsKw: motor.rmsKw,
+      phases: cycle.filter((p) => p.kind !== "neutral").map((p) => ({ name: p.phase, kw: p.shaftKw, durationS: p.durationS })),
+    },
+    flowsLpm: { pump: qp, returnMax: returnMaxLpm, requiredMax: mp.requiredLpm },
+    pressuresBar: { reliefSetting: choice.reliefBar, workingMax: mp.demand.workingBar },
+    reservoir,
+    cooler: coolerKw > 0 ? { kw: coolerKw } : null,
+    returnFilter: { ratedFlowLpm: returnMaxLpm },
+    lines,
+    reliefVent,
+    heat: {
+      averageLossKw, neutralLossKw: neutral.shaftKw, neutralPressureBar: neutral.bar, tankDissipationKw: reservoir.dissipationKw, coolerKw,
+      dailyEnergyKwh: averageLossKw * m.hoursPerDay, busyS, cycleS,
+    },
+    warnings: [],
+    bom: [],
+    trail: [],
+    circuit: { components: [], connections: [] },
+  };
+  design.warnings = machineWarnings(design, designs, mp, motor.inSeries);
+  design.bom = machineBom(design, designs);
+  design.circuit = machineCircuit(design, designs);
+  design.trail = machineTrail(design, designs, mp);
+  return design;
+}

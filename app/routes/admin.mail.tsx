@@ -7,7 +7,7 @@ import { redirectWithToast } from "~/auth/session.server";
 import { formatMoment } from "~/content/dates";
 import { Badge, Button, Card, Notice, PageHeader, Pager, TableScroll } from "~/components/ui";
 import { mailListQuerySchema, sendAgainSchema } from "~/schemas/outbox";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorsOf } from "~/services/errors.server";
 import { MAX_ATTEMPTS } from "~/services/mail.server";
 import { WAITING_LONG_MINUTES, mailNeedingAttention, sendAgain, type MailView } from "~/services/outbox-admin.server";
 
@@ -29,8 +29,7 @@ export async function action({ request }: Route.ActionArgs) {
     const back = new URL(request.url);
     return redirectWithToast(request, `${back.pathname}${back.search}`, `The mail to ${mail.to} is queued again.`);
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data({ error: error.message }, { status: 409 });
+    return data({ error: fieldErrorsOf(error).message }, { status: 409 });
   }
 }
 

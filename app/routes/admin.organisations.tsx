@@ -10,7 +10,7 @@ import { APPROVALS, APPROVAL_LABELS, APPROVAL_TONES, REFUSAL_REASON_MAX, type Ap
 import { assignManagerSchema, listQuerySchema } from "~/schemas/admin";
 import { shopDecisionSchema } from "~/schemas/shop-approval";
 import { assignAccountManager, listAccountManagers, listOrganisations } from "~/services/admin.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorsOf } from "~/services/errors.server";
 import { countWaitingShops, decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Organisations · Tenderflow" }];
@@ -65,8 +65,7 @@ async function decide(request: Request, formData: FormData) {
       shop.approval === "approved" ? `${shop.name} is approved and can read specs now; its people have been e-mailed.` : `${shop.name} is refused; its people have been e-mailed the reason.`,
     );
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data<ActionResult>({ error: error.message, organisationId }, { status: 400 });
+    return data<ActionResult>({ error: fieldErrorsOf(error).message, organisationId }, { status: 400 });
   }
 }
 
@@ -79,8 +78,7 @@ export async function action({ request }: Route.ActionArgs) {
   try {
     await assignAccountManager(admin, submission.value.organisationId, submission.value);
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data<ActionResult>({ error: error.message }, { status: 400 });
+    return data<ActionResult>({ error: fieldErrorsOf(error).message }, { status: 400 });
   }
   const back = new URL(request.url);
   return redirectWithToast(request, `${back.pathname}${back.search}`, "Account manager saved.");

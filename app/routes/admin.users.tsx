@@ -10,7 +10,7 @@ import { FieldErrors as FieldErrorText } from "~/components/form-field";
 import { listQuerySchema, userActionSchema } from "~/schemas/admin";
 import { confirmOwnPassword } from "~/services/accounts.server";
 import { changeRole, listUsers, roleChangeTarget, setActive } from "~/services/admin.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorsOf } from "~/services/errors.server";
 import { Throttled, clientOf } from "~/services/throttle.server";
 
 interface RoleConfirmation {
@@ -65,8 +65,7 @@ export async function action(args: Route.ActionArgs) {
         if (error instanceof Throttled) {
           return data<ActionData>({ confirm: { ...confirm, passwordErrors: [error.message] } }, { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });
         }
-        if (!(error instanceof FieldErrors)) throw error;
-        return data<ActionData>({ confirm: { ...confirm, passwordErrors: error.fieldErrors.currentPassword } }, { status: 400 });
+        return data<ActionData>({ confirm: { ...confirm, passwordErrors: fieldErrorsOf(error).fieldErrors.currentPassword } }, { status: 400 });
       }
       const user = await changeRole(admin, change.userId, change.role);
       return redirectWithToast(request, `${back.pathname}${back.search}`, `${user.name} is now ${ROLE_LABELS[user.role].toLowerCase()}.`);
@@ -78,8 +77,7 @@ export async function action(args: Route.ActionArgs) {
       user.active ? `${user.name} can sign in again.` : `${user.name} is deactivated and can no longer sign in.`,
     );
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data<ActionData>({ error: error.message }, { status: 400 });
+    return data<ActionData>({ error: fieldErrorsOf(error).message }, { status: 400 });
   }
 }
 

@@ -2,7 +2,7 @@ import { redirect } from "react-router";
 import type { Route } from "./+types/job-pay";
 import { requireUser } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorsOf } from "~/services/errors.server";
 import { startRetainerPayment } from "~/services/payments.server";
 
 // "Pay the retainer": sends the buyer to the card service's hosted payment page.
@@ -11,8 +11,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     return redirect(await startRetainerPayment(user, params.jobId));
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return redirectWithToast(request, `/jobs/${params.jobId}`, error.message);
+    return redirectWithToast(request, `/jobs/${params.jobId}`, fieldErrorsOf(error).message);
   }
 }
 

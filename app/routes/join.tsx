@@ -9,7 +9,7 @@ import { FormErrors, TextField } from "~/components/form-field";
 import { Button, Notice } from "~/components/ui";
 import { acceptInvitationSchema } from "~/schemas/account";
 import { acceptInvitation, findOpenInvitation } from "~/services/accounts.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorReply } from "~/services/errors.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Join your team · Tenderflow" }];
 
@@ -32,8 +32,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     const user = await acceptInvitation(params.token, submission.value.name, submission.value.password);
     return signInRedirect(request, user.id, HOME_BY_ROLE[user.role]);
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data(submission.reply({ formErrors: Object.values(error.fieldErrors).flat(), hideFields: ["password"] }), { status: 400 });
+    return data(fieldErrorReply(submission, error, { asFormErrors: true, hideFields: ["password"] }), { status: 400 });
   }
 }
 

@@ -8,7 +8,7 @@ import { formatMoney } from "~/content/money";
 import { currentPasswordField } from "~/schemas/account";
 import { refundSchema } from "~/schemas/payments";
 import { confirmOwnPassword } from "~/services/accounts.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorReply } from "~/services/errors.server";
 import { Throttled, clientOf } from "~/services/throttle.server";
 import { requestRefund } from "~/services/payments.server";
 
@@ -31,8 +31,7 @@ export async function action(args: Route.ActionArgs) {
       const result = submission.reply({ fieldErrors: { currentPassword: [error.message] }, hideFields });
       return data({ result }, { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });
     }
-    if (!(error instanceof FieldErrors)) throw error;
-    return data({ result: submission.reply({ fieldErrors: error.fieldErrors, hideFields }) }, { status: 400 });
+    return data({ result: fieldErrorReply(submission, error, { hideFields }) }, { status: 400 });
   }
 }
 

@@ -9,7 +9,7 @@ import { FormErrors, TextField } from "~/components/form-field";
 import { Button, Notice } from "~/components/ui";
 import { resetPasswordSchema } from "~/schemas/account";
 import { findUsableReset, resetPassword } from "~/services/accounts.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorReply } from "~/services/errors.server";
 import { clearSignInThrottle, clientOf } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Tenderflow" }];
@@ -28,10 +28,7 @@ export async function action(args: Route.ActionArgs) {
     await clearSignInThrottle(clientOf(args), user.email);
     return signInRedirect(request, user.id, HOME_BY_ROLE[user.role]);
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data(submission.reply({ formErrors: Object.values(error.fieldErrors).flat(), hideFields: ["password", "confirm"] }), {
-      status: 400,
-    });
+    return data(fieldErrorReply(submission, error, { asFormErrors: true, hideFields: ["password", "confirm"] }), { status: 400 });
   }
 }
 

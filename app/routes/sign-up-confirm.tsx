@@ -5,7 +5,7 @@ import { signInRedirect } from "~/auth/session.server";
 import { AuthCard } from "~/components/auth-card";
 import { FormErrors } from "~/components/form-field";
 import { Button, Notice } from "~/components/ui";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorsOf } from "~/services/errors.server";
 import { completeSignUp, findUsableSignUp } from "~/services/sign-up.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Finish creating your account · Tenderflow" }];
@@ -22,8 +22,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     const user = await completeSignUp(params.token);
     return signInRedirect(request, user.id, HOME_BY_ROLE[user.role]);
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data({ errors: Object.values(error.fieldErrors).flat() }, { status: 400 });
+    return data({ errors: Object.values(fieldErrorsOf(error).fieldErrors).flat() }, { status: 400 });
   }
 }
 

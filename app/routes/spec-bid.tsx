@@ -13,7 +13,7 @@ import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/b
 import { bidTotals, centsToInput, formatMoney, parseMoney } from "~/content/money";
 import { bidSchema, linesMatchBill } from "~/schemas/bid";
 import { bidOfShop, bomOf, historyOf, saveBid, withdrawBid } from "~/services/bids.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
 import { specForReader } from "~/services/spec-access.server";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Your bid · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
@@ -79,8 +79,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     try {
       await withdrawBid(user, spec.id);
     } catch (error) {
-      if (!(error instanceof FieldErrors)) throw error;
-      return data({ result: null, withdrawError: error.message }, { status: 409 });
+      return data({ result: null, withdrawError: fieldErrorsOf(error).message }, { status: 409 });
     }
     return redirectWithToast(request, back, "Your offer has been taken back. You can offer again until the deadline.");
   }
@@ -99,9 +98,9 @@ export async function action({ request, params }: Route.ActionArgs) {
       submission.value.intent === "submit" ? `Offer ${bid.version} sent: ${formatMoney(bid.totalCents, bid.currency)}. The buyer has been told.` : "Draft saved. Only your shop can see it.",
     );
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    const { "": formErrors = [], ...fieldErrors } = error.fieldErrors;
-    return data({ result: submission.reply({ formErrors, fieldErrors }), withdrawError: null }, { status: error.fieldErrors[""] ? 409 : 400 });
+    // A refusal of the whole offer (the "" key: deadline passed, spec awarded) is a conflict.
+    const status = fieldErrorsOf(error).fieldErrors[""] ? 409 : 400;
+    return data({ result: fieldErrorReply(submission, error), withdrawError: null }, { status });
   }
 }
 

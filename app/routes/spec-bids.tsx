@@ -1,3 +1,5 @@
+import { getFormProps, getInputProps, useForm } from "@conform-to/react";
+import { parseWithZod } from "@conform-to/zod/v4";
 import { useEffect, useRef } from "react";
 import { Form, Link, data, useNavigation, useSearchParams, type ShouldRevalidateFunction } from "react-router";
 import { formatDay } from "~/content/dates";
@@ -5,7 +7,8 @@ import type { Route } from "./+types/spec-bids";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Badge, Button, ButtonLink, Card, EmptyState, Notice, PageHeader, TableScroll } from "~/components/ui";
+import { FieldErrors, SubmitButton } from "~/components/form-field";
+import { Badge, ButtonLink, Card, EmptyState, Notice, PageHeader, TableScroll } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { formatMoney, retainerCents } from "~/content/money";
 import { SPEC_STATUS_LABELS, type SpecStatus } from "~/content/spec-status";
@@ -13,7 +16,7 @@ import { awardSchema } from "~/schemas/bid";
 import { awardBid, awardedJobOf, canAwardNow } from "~/services/award.server";
 import { COMPARISON_SORTS, type ComparisonSort } from "~/services/bid-comparison";
 import { comparisonOf } from "~/services/bids.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
 import { specOfOwner } from "~/services/spec-access.server";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Bids · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
@@ -41,14 +44,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   const spec = await specOfOwner(user, params.specId);
-  const parsed = awardSchema.safeParse(Object.fromEntries(await request.formData()));
-  if (!parsed.success) return data({ error: parsed.error.issues[0]?.message ?? "Confirm the award." }, { status: 400 });
+  const submission = parseWithZod(await request.formData(), { schema: awardSchema });
+  if (submission.status !== "success") return data({ result: submission.reply(), error: null }, { status: 400 });
   try {
-    const job = await awardBid(user, spec.id, parsed.data);
+    const job = await awardBid(user, spec.id, submission.value);
     return redirectWithToast(request, `/jobs/${job.id}`, "Awarded. Every bidder has been told; the job and its milestones are below.");
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data({ error: error.message }, { status: 409 });
+    // Refused (awarded meanwhile, the offer taken back or expired): a conflict, shown above the comparison.
+    return data({ result: fieldErrorReply(submission, error), error: fieldErrorsOf(error).message }, { status: 409 });
   }
 }
 
@@ -64,6 +67,12 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
   const navigation = useNavigation();
   // A refusal is brought into view and focused: the buyer was looking at the confirm button, far below.
   const refusal = useRef<HTMLDivElement>(null);
+  // The award on the same Conform pattern as every form: the schema judges it here and on the server.
+  const [form, fields] = useForm({
+    lastResult: navigation.state === "idle" ? actionData?.result : null,
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: awardSchema }),
+    shouldValidate: "onSubmit",
+  });
   useEffect(() => {
     if (!actionData?.error || !refusal.current) return;
     refusal.current.scrollIntoView({ block: "center" });
@@ -147,14 +156,15 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 <strong>{money(d.choosing.retainerCents)}</strong> ({Number(d.spec.retainerPercent)} %) is paid by card after the award. Every other bidder is told
                 they were not chosen, and bidding closes. This can't be undone.
               </p>
-              <Form method="post" className="mt-4 flex flex-wrap items-center gap-4">
-                <input type="hidden" name="bidId" value={d.choosing.id} />
+              <Form method="post" {...getFormProps(form)} className="mt-4 flex flex-wrap items-center gap-4">
+                <input type="hidden" name={fields.bidId.name} value={d.choosing.id} />
                 <label className="flex items-center gap-2 text-sm">
-                  <input type="checkbox" name="confirm" required />
+                  <input {...getInputProps(fields.confirm, { type: "checkbox", value: "on" })} key={fields.confirm.key} required />
                   <span>I award this spec to {d.choosing.shop}.</span>
                 </label>
-                <Button type="submit" disabled={navigation.state !== "idle"}>Confirm the award</Button>
+                <SubmitButton>Confirm the award</SubmitButton>
                 <Link to={withSort(d.sort)} className="text-sm text-flow-700 hover:underline">Cancel</Link>
+                <FieldErrors id={fields.confirm.errorId} errors={fields.confirm.errors} />
               </Form>
             </Card>
           ) : null}

@@ -3,7 +3,7 @@ import type { Route } from "./+types/spec-delete";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorsOf } from "~/services/errors.server";
 import { deleteDraft } from "~/services/specs.server";
 
 export function loader() {
@@ -16,7 +16,6 @@ export async function action({ request, params }: Route.ActionArgs) {
     const spec = await deleteDraft(user, params.specId);
     return redirectWithToast(request, "/specs", `Draft “${spec.title || "untitled"}” deleted.`);
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return redirectWithToast(request, `/specs/${params.specId}`, error.message);
+    return redirectWithToast(request, `/specs/${params.specId}`, fieldErrorsOf(error).message);
   }
 }

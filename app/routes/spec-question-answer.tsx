@@ -5,7 +5,7 @@ import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { answerSchema } from "~/schemas/questions";
-import { FieldErrors, requireId } from "~/services/errors.server";
+import { fieldErrorReply, requireId } from "~/services/errors.server";
 import { answerQuestion } from "~/services/questions.server";
 import { specOfOwner } from "~/services/spec-access.server";
 
@@ -30,7 +30,6 @@ export async function action({ request, params }: Route.ActionArgs) {
       `${edited ? "Answer changed" : "Answer published"}: every shop reading the spec sees it, and ${people} e-mailed.`,
     );
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data(submission.reply({ fieldErrors: error.fieldErrors }), { status: 400 });
+    return data(fieldErrorReply(submission, error), { status: 400 });
   }
 }

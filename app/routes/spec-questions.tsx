@@ -5,7 +5,7 @@ import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { questionSchema } from "~/schemas/questions";
-import { FieldErrors, requireId } from "~/services/errors.server";
+import { fieldErrorReply, requireId } from "~/services/errors.server";
 import { askQuestion } from "~/services/questions.server";
 import { specForReader } from "~/services/spec-access.server";
 
@@ -23,8 +23,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     await askQuestion(user, spec.id, submission.value);
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data(submission.reply({ fieldErrors: error.fieldErrors }), { status: 400 });
+    return data(fieldErrorReply(submission, error), { status: 400 });
   }
   return redirectWithToast(
     request,

@@ -3,7 +3,7 @@ import type { Route } from "./+types/spec-revise";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorsOf } from "~/services/errors.server";
 import { startRevision } from "~/services/specs.server";
 
 export function loader() {
@@ -15,8 +15,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     await startRevision(user, params.specId);
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return redirectWithToast(request, `/specs/${params.specId}`, error.message);
+    return redirectWithToast(request, `/specs/${params.specId}`, fieldErrorsOf(error).message);
   }
   return redirect(`/specs/${params.specId}/edit/machine`);
 }

@@ -9,7 +9,7 @@ import { SpecStepForm } from "~/components/spec-step-form";
 import { Notice, PageHeader } from "~/components/ui";
 import { SPEC_STEPS, isSpecStep, nextStep, previousStep, type FormStepId } from "~/content/spec-steps";
 import { otherStepsAnswers, stepSchema, typedStepAnswers } from "~/schemas/spec";
-import { FieldErrors, notFound } from "~/services/errors.server";
+import { fieldErrorsOf, notFound } from "~/services/errors.server";
 import { redirectWithToast } from "~/auth/session.server";
 import { specOfOwner } from "~/services/spec-access.server";
 import { allAnswers, designOf, isEditable, publish, saveStep } from "~/services/specs.server";
@@ -52,8 +52,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     try {
       await publish(user, spec.id, { cautionsRead: formData.get("cautionsRead") === "on" });
     } catch (error) {
-      if (!(error instanceof FieldErrors)) throw error;
-      return data({ publishError: error.message, result: null }, { status: 400 });
+      return data({ publishError: fieldErrorsOf(error).message, result: null }, { status: 400 });
     }
     return redirect(`/specs/${spec.id}?published=1`);
   }
@@ -70,9 +69,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     await saveStep(user, spec.id, { step, answers: typed, complete: submission.status === "success" });
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
     // Published meanwhile, e.g. from another tab: the step is not saved over the published spec.
-    return redirectWithToast(request, `/specs/${spec.id}`, `${error.message} Nothing from this step was saved.`);
+    return redirectWithToast(request, `/specs/${spec.id}`, `${fieldErrorsOf(error).message} Nothing from this step was saved.`);
   }
   return redirect(`/specs/${spec.id}/edit/${(back ? previousStep(step) : nextStep(step)) ?? step}`);
 }

@@ -10,7 +10,7 @@ import { FormErrors, SelectField, TextField } from "~/components/form-field";
 import { Badge, Button, Card, PageHeader, TableScroll } from "~/components/ui";
 import { inviteSchema } from "~/schemas/account";
 import { inviteColleague, teamOf } from "~/services/accounts.server";
-import { FieldErrors } from "~/services/errors.server";
+import { fieldErrorReply } from "~/services/errors.server";
 import { Throttled } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Team · Tenderflow" }];
@@ -36,8 +36,7 @@ export async function action({ request }: Route.ActionArgs) {
     if (error instanceof Throttled) {
       return data(submission.reply({ formErrors: [error.message] }), { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });
     }
-    if (!(error instanceof FieldErrors)) throw error;
-    return data(submission.reply({ fieldErrors: error.fieldErrors }), { status: 400 });
+    return data(fieldErrorReply(submission, error), { status: 400 });
   }
   // The invitation is queued in the outbox; the mail worker sends it (never this request).
   // The same words whether or not the address has an account elsewhere (accounts.server.ts).

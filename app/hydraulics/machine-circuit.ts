@@ -22,6 +22,9 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
   const unit = buildCircuit(powerUnitDesign(m, designs[0]), gauge);
   const components: MachineCircuitComponent[] = unit.components.filter((c) => POWER_UNIT_IDS.has(c.id));
   const connections: CircuitConnection[] = unit.connections.filter((c) => POWER_UNIT_IDS.has(componentOf(c.from)) && POWER_UNIT_IDS.has(componentOf(c.to)));
+  const present = new Set(components.map((c) => c.id));
+  // How the machine's pump joins a valve's P (a double pump's large section through its check as well).
+  const feeds = unit.connections.filter((c) => c.to === "dcv.P" && POWER_UNIT_IDS.has(componentOf(c.from)));
   m.axes.forEach((axis, i) => {
     const center = axis.directionalValve.center;
     const own = buildCircuit({ ...designs[i], directionalValve: axis.directionalValve, reliefVent: m.reliefVent, pressuresBar: { ...designs[i].pressuresBar, reliefSetting: m.pressuresBar.reliefSetting } }, gauge, dcvPositions(center));
@@ -33,9 +36,20 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
         ...(c.kind === "dcv" ? { dcvPositions: own.dcvPositions } : {}),
       });
     }
+    const joined = new Set<string>();
+    const join = (c: CircuitConnection) => {
+      const key = `${c.from}>${c.to}`;
+      if (!joined.has(key)) connections.push(c);
+      joined.add(key);
+    };
+    for (const c of feeds) join({ ...c, to: rename(c.to) });
     for (const c of own.connections) {
-      if (POWER_UNIT_IDS.has(componentOf(c.from)) && POWER_UNIT_IDS.has(componentOf(c.to))) continue;
-      connections.push({ ...c, from: rename(c.from), to: rename(c.to) });
+      const ends = [componentOf(c.from), componentOf(c.to)];
+      if (ends.every((id) => POWER_UNIT_IDS.has(id))) continue;
+      // The axis alone may have had parts of a power unit the machine does not (its own double pump's check): its P comes from `feeds`.
+      if (ends.some((id) => POWER_UNIT_IDS.has(id) && !present.has(id))) continue;
+      if (c.to === "dcv.P" && POWER_UNIT_IDS.has(componentOf(c.from))) continue;
+      join({ ...c, from: rename(c.from), to: rename(c.to) });
     }
   });
   return { components, connections };

@@ -56,15 +56,18 @@ export function machinePhaseDemand(designs: Design[], timeline: TimelinePhase[],
 /**
  * Sizes the pump: displacement for the largest flow the axes moving together draw at the asked
  * speeds (Q_p ≥ max over the steps of ΣQ_i: in a pure sequence only the largest single axis
- * counts), then the type. Unasked, where an axis moving alone draws clearly less than the pump
+ * counts), and never less than any axis alone needs; then the type. Unasked, where an axis moving alone draws clearly less than the pump
  * delivers, a fixed or double pump would push the surplus over the relief in every such phase,
  * so a pressure-compensated pump (with a power limiter) is chosen [CP].
  */
 export function chooseMachinePump(designs: Design[], timeline: TimelinePhase[], asked: PumpType | undefined): MachinePump {
   const etaV = A.volumetricEfficiency.value;
   const speedRpm = designs[0].pump.speedRpm;
-  const requiredLpm = Math.max(...timeline.map((p) => p.sizingLpm));
-  const needCc = requiredDisplacementCc(requiredLpm, speedRpm, etaV);
+  // Never less than any axis alone needs: an axis whose whole extension is a pressing stroke still
+  // has its approach speed asked, and its own sizing counted it.
+  const ownCc = Math.max(...designs.map((d) => d.pump.requiredDisplacementCcRev));
+  const requiredLpm = Math.max(...timeline.map((p) => p.sizingLpm), pumpDeliveryLpm(ownCc, speedRpm, etaV));
+  const needCc = Math.max(requiredDisplacementCc(Math.max(...timeline.map((p) => p.sizingLpm)), speedRpm, etaV), ownCc);
   const { displacementCc, inSeries } = selectDisplacementCc(needCc);
   const qp = pumpDeliveryLpm(displacementCc, speedRpm, etaV);
   const { demand, governing } = machinePhaseDemand(designs, timeline, displacementCc, qp, speedRpm);

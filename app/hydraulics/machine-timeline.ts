@@ -7,6 +7,7 @@
 import type { CyclePhaseName } from "./cycle";
 import type { Design } from "./design";
 import type { MachineMotion } from "./machine-requirements";
+import { phaseFlowLpm } from "./phases";
 
 export type MachinePhaseName = CyclePhaseName | "together";
 /** What the pump must do in a phase: feed motion, hold a pressing stroke, or hold force at rest. */
@@ -58,15 +59,15 @@ export function axisSegments(d: Design, motion: MachineMotion["motion"], shared:
   const step = motion === "extend" ? 0 : 1;
   const c = d.cylinder;
   const s = d.speedsMmS;
-  // Regenerating, the pump fills only the rod's displacement during the approach (continuity).
-  const approachShare = d.regenerative ? (c.capAreaMm2 - c.annulusAreaMm2) / c.capAreaMm2 : 1;
+  // Regenerating, the pump fills only the rod's displacement during the approach (continuity), A_rod·v as evaluate.ts.
+  const approachAskedLpm = d.regenerative ? phaseFlowLpm(d.regeneration?.rodAreaMm2 ?? c.capAreaMm2 - c.annulusAreaMm2, s.extendRequested) : d.flowsLpm.extend;
   const phi = c.areaRatio;
   return (d.cycle ?? []).filter((ph) => ph.step === step).map((ph): AxisSegment => {
     const p = ph.phase;
     const fast = p === "approach" || p === "extend" || p === "retract";
     const askedMmS = p === "retract" ? s.retractRequested : s.extendRequested;
     const actualMmS = p === "retract" ? s.retractActual : s.extendActual;
-    const sizingLpm = p === "retract" ? d.flowsLpm.retract : p === "pressing" ? d.flowsLpm.press! : p === "dwell" ? 0 : d.flowsLpm.extend * approachShare;
+    const sizingLpm = p === "retract" ? d.flowsLpm.retract : p === "pressing" ? d.flowsLpm.press! : p === "dwell" ? 0 : approachAskedLpm;
     const slow = shared && fast;
     const drawLpm = slow ? sizingLpm : ph.demandLpm;
     const speedMmS = fast ? (slow ? askedMmS : actualMmS) : p === "pressing" ? d.requirements.pressSpeedMmS! : 0;
@@ -86,6 +87,8 @@ export function axisSegments(d: Design, motion: MachineMotion["motion"], shared:
 export function stepPhases(step: number, motions: MachineMotion[], designs: Map<string, Design>): TimelinePhase[] {
   const shared = motions.length > 1;
   const tracks = motions.map((m) => axisSegments(designs.get(m.axis)!, m.motion, shared));
+  // One axis alone: its own phases as they are (no cutting, so even the shortest dwell stays).
+  if (!shared) return tracks[0].map((seg) => phaseOf(step, [seg], seg.durationS));
   const cuts = new Set<number>([0]);
   for (const track of tracks) {
     let t = 0;
@@ -105,23 +108,27 @@ export function stepPhases(step: number, motions: MachineMotion[], designs: Map<
       }
       return [];
     });
-    if (segments.length === 0) continue;
-    const moving = segments.filter((s) => s.moving);
-    const names = new Set(segments.map((s) => s.phase));
-    phases.push({
-      step,
-      phase: names.size === 1 ? segments[0].phase : "together",
-      kind: segments.some((s) => s.phase === "pressing") ? "pressing" : segments.some((s) => s.phase === "dwell") ? "dwell" : "fast",
-      durationS: t1 - t0,
-      segments,
-      axes: moving.map((s) => s.axis),
-      demandLpm: moving.reduce((sum, s) => sum + s.drawLpm, 0),
-      sizingLpm: moving.reduce((sum, s) => sum + s.sizingLpm, 0),
-      needBar: Math.max(...segments.map((s) => s.needBar)),
-      returnLpm: segments.reduce((sum, s) => sum + s.returnLpm, 0),
-    });
+    if (segments.length > 0) phases.push(phaseOf(step, segments, t1 - t0));
   }
   return phases;
+}
+
+/** A phase from what each axis taking part does in it. */
+function phaseOf(step: number, segments: AxisSegment[], durationS: number): TimelinePhase {
+  const moving = segments.filter((s) => s.moving);
+  const names = new Set(segments.map((s) => s.phase));
+  return {
+    step,
+    phase: names.size === 1 ? segments[0].phase : "together",
+    kind: segments.some((s) => s.phase === "pressing") ? "pressing" : segments.some((s) => s.phase === "dwell") ? "dwell" : "fast",
+    durationS,
+    segments,
+    axes: moving.map((s) => s.axis),
+    demandLpm: moving.reduce((sum, s) => sum + s.drawLpm, 0),
+    sizingLpm: moving.reduce((sum, s) => sum + s.sizingLpm, 0),
+    needBar: Math.max(...segments.map((s) => s.needBar)),
+    returnLpm: segments.reduce((sum, s) => sum + s.returnLpm, 0),
+  };
 }
 
 /** The whole cycle, step after step, in time order. */

@@ -69,7 +69,8 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
     heatKw: phaseHeatKw(ph, pumpPhases[i].shaftKw, ownPump),
   }));
   const busyS = cycle.reduce((s, p) => s + p.durationS, 0);
-  const cycleS = m.cyclesPerHour > 0 ? 3600 / m.cyclesPerHour : null;
+  // No cycles per hour (or so few the time overflows): no cycle time, so no neutral phase (as cycle.ts).
+  const cycleS = Number.isFinite(3600 / m.cyclesPerHour) ? 3600 / m.cyclesPerHour : null;
   const neutral = neutralPhase(designs, mp);
   if (cycleS !== null && cycleS - busyS > 0) {
     cycle.push({

@@ -32,7 +32,7 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
     { label: "Bore / rod", value: u.boreRod(c.boreMm, c.rodMm), detail: `stroke ${u.length(c.strokeMm)}` },
     { label: "Extend pressure", value: u.pressure(p.extend), detail: "at the pump" },
     { label: "Retract pressure", value: u.pressure(p.retract), detail: "at the pump" },
-    { label: "Pump flow", value: u.flow(design.flowsLpm.pump), detail: `${u.displacement(design.pump.displacementCcRev)} at ${design.pump.speedRpm} rpm` },
+    { label: "Pump flow", value: u.flow(design.flowsLpm.pump), detail: `${pumpInWords(design, u)} at ${design.pump.speedRpm} rpm` },
     { label: "Motor rating", value: u.motorRating(design.motor.ratedKw), detail: `needs ${u.power(design.motor.requiredKw)}` },
     { label: "Relief setting", value: u.pressure(p.reliefSetting) },
   ];
@@ -58,6 +58,15 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
       </dl>
     </Card>
   );
+}
+
+/** "double pump, 112 + 6.3 cm³/rev": the kind of pump a shop prices, with its sections. Designs from before the pump choice have no type: a fixed pump. */
+function pumpInWords(design: Design, u: ReturnType<typeof displayUnits>): string {
+  const p = design.pump;
+  if (p.type === "double" && p.displacementsCcRev?.length === 2) {
+    return `double pump, ${p.displacementsCcRev.map((cc) => u.displacement(cc)).join(" + ")}`;
+  }
+  return `${p.type === "compensated" ? "compensated pump" : "fixed pump"}, ${u.displacement(p.displacementCcRev)}`;
 }
 
 // ---- Warnings -------------------------------------------------------------------------------

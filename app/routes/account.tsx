@@ -4,7 +4,7 @@ import { requireRole } from "~/auth/permissions.server";
 import { OPERATOR_ROLES } from "~/auth/roles";
 import { Badge, Card, PageHeader, TableScroll } from "~/components/ui";
 import { accountOf } from "~/services/admin.server";
-import { listJobs } from "~/services/jobs.server";
+import { listJobs } from "~/services/job-reads.server";
 import { JOB_STAGE_LABELS } from "~/content/job-milestones";
 import { formatDay, formatMoment } from "~/content/dates";
 import { requireId } from "~/services/errors.server";

@@ -1,34 +1,19 @@
-import { getFormProps, getTextareaProps, useForm, type FieldMetadata, type SubmissionResult } from "@conform-to/react";
+import type { SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { Form, Link, data, useNavigation } from "react-router";
+import { Link, data } from "react-router";
 import type { Route } from "./+types/job";
 import { requireUser } from "~/auth/permissions.server";
 import { redirectWithToast } from "~/auth/session.server";
-import { FieldErrors as FieldErrorText, FormErrors, SelectField, TextField } from "~/components/form-field";
-import { Badge, Button, ButtonLink, Card, PageHeader } from "~/components/ui";
+import { FormErrors } from "~/components/form-field";
+import { ManagerNoteForm, ProgressNoteForm, ReachForm, TargetForm, UndoForm } from "~/components/job-forms";
+import { Badge, ButtonLink, Card, PageHeader } from "~/components/ui";
 import { formatMoney } from "~/content/money";
 import { formatDay, formatMoment } from "~/content/dates";
 import { JOB_STAGE_LABELS, MILESTONE_LABELS, type MilestoneKey } from "~/content/job-milestones";
-import {
-  jobActionSchema,
-  managerNoteSchema,
-  progressNoteSchema,
-  reachSchema,
-  targetSchema,
-  undoSchema,
-  type JobActionIntent,
-} from "~/schemas/jobs";
-import { FieldErrors } from "~/services/errors.server";
-import {
-  addManagerNote,
-  addProgressNote,
-  changeTargetDate,
-  jobFor,
-  reachMilestones,
-  scopedJob,
-  undoLastMilestone,
-  type JobEventView,
-} from "~/services/jobs.server";
+import { jobActionSchema, type JobActionIntent } from "~/schemas/jobs";
+import { fieldErrorReply } from "~/services/errors.server";
+import { addManagerNote, addProgressNote, changeTargetDate, reachMilestones, undoLastMilestone } from "~/services/job-progress.server";
+import { jobFor, scopedJob, type JobEventView } from "~/services/job-reads.server";
 import { retainerPanelOf } from "~/services/payments.server";
 import { RetainerPanel } from "~/components/retainer-panel";
 import { RetainerBadge } from "~/components/retainer-badge";
@@ -78,8 +63,7 @@ export async function action({ request, params }: Route.ActionArgs) {
         return redirectWithToast(request, back, "Internal note saved. Buyer and shop do not see it.");
     }
   } catch (error) {
-    if (!(error instanceof FieldErrors)) throw error;
-    return data<ActionResult>({ intent: change.intent, result: submission.reply({ fieldErrors: error.fieldErrors }) }, { status: 400 });
+    return data<ActionResult>({ intent: change.intent, result: fieldErrorReply(submission, error) }, { status: 400 });
   }
 }
 
@@ -143,8 +127,8 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
           ) : null}
           {job.canRecordProgress ? (
             <>
-              {job.open.length ? <ReachForm job={job} lastResult={result("reach")} /> : null}
-              {job.open.length ? <TargetForm job={job} lastResult={result("target")} /> : null}
+              {job.open.length ? <ReachForm open={job.open} lastResult={result("reach")} /> : null}
+              {job.open.length ? <TargetForm open={job.open} lastResult={result("target")} /> : null}
               <ProgressNoteForm lastResult={result("progress-note")} />
               {job.lastReached ? <UndoForm last={job.lastReached} lastResult={result("undo")} /> : null}
             </>
@@ -264,157 +248,6 @@ function History({ job }: { job: Job }) {
           </li>
         ))}
       </ol>
-    </Card>
-  );
-}
-
-// --- Forms -------------------------------------------------------------------------------------
-
-const textareaClass =
-  "mt-1 block w-full rounded-md border-0 bg-white px-3 py-2 text-ink-900 shadow-sm ring-1 ring-ink-200 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600";
-
-function TextAreaField({ meta, label, hint }: { meta: FieldMetadata<string | undefined>; label: string; hint?: string }) {
-  const props = getTextareaProps(meta, { ariaDescribedBy: hint ? meta.descriptionId : undefined });
-  return (
-    <div>
-      <label htmlFor={meta.id} className="block text-sm font-semibold text-ink-800">
-        {label}
-      </label>
-      <textarea {...props} key={props.key} rows={3} className={textareaClass} />
-      {hint ? (
-        <p id={meta.descriptionId} className="mt-1 text-sm text-ink-600">
-          {hint}
-        </p>
-      ) : null}
-      <FieldErrorText id={meta.errorId} errors={meta.errors} />
-    </div>
-  );
-}
-
-// A form shows its server errors until the next submission starts.
-function useIdleResult(lastResult: SubmissionResult<string[]> | undefined) {
-  return useNavigation().state === "idle" ? lastResult : null;
-}
-
-const VALIDATE = { shouldValidate: "onBlur", shouldRevalidate: "onInput" } as const;
-
-function Submit({ children, tone }: { children: React.ReactNode; tone?: "primary" | "secondary" | "danger" }) {
-  const navigation = useNavigation();
-  return (
-    <Button type="submit" tone={tone} disabled={navigation.state === "submitting"}>
-      {children}
-    </Button>
-  );
-}
-
-type FormProps = { lastResult: SubmissionResult<string[]> | undefined };
-
-function ReachForm({ job, lastResult }: FormProps & { job: Job }) {
-  const [form, fields] = useForm({
-    id: "reach",
-    lastResult: useIdleResult(lastResult),
-    defaultValue: { milestone: job.open[0] },
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: reachSchema }),
-    ...VALIDATE,
-  });
-  return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Record progress</h2>
-      <p className="mb-4 text-sm text-ink-600">Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well.</p>
-      <Form method="post" {...getFormProps(form)} className="space-y-4">
-        <input type="hidden" name="intent" value="reach" />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <SelectField meta={fields.milestone} label="Reached up to and including" options={job.open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
-        <TextAreaField meta={fields.note} label="Note (optional)" hint="For example: pressure test passed at 1.5 × the relief setting." />
-        <Submit>Record as reached</Submit>
-      </Form>
-    </Card>
-  );
-}
-
-function TargetForm({ job, lastResult }: FormProps & { job: Job }) {
-  const [form, fields] = useForm({
-    id: "target",
-    lastResult: useIdleResult(lastResult),
-    defaultValue: { milestone: job.open[0] },
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: targetSchema }),
-    ...VALIDATE,
-  });
-  return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Move a target date</h2>
-      <p className="mb-4 text-sm text-ink-600">The change and your reason go into the history.</p>
-      <Form method="post" {...getFormProps(form)} className="space-y-4">
-        <input type="hidden" name="intent" value="target" />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <SelectField meta={fields.milestone} label="Milestone" options={job.open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
-        <TextField meta={fields.targetDate} label="New target date" type="date" />
-        <TextAreaField meta={fields.reason} label="Reason (optional)" hint="For example: the motor arrives two weeks late." />
-        <Submit tone="secondary">Save the date</Submit>
-      </Form>
-    </Card>
-  );
-}
-
-function ProgressNoteForm({ lastResult }: FormProps) {
-  const [form, fields] = useForm({
-    id: "progress-note",
-    lastResult: useIdleResult(lastResult),
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: progressNoteSchema }),
-    ...VALIDATE,
-  });
-  return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Note for the buyer</h2>
-      <Form method="post" {...getFormProps(form)} className="mt-3 space-y-4">
-        <input type="hidden" name="intent" value="progress-note" />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <TextAreaField meta={fields.body} label="Note" hint="Seen by the buyer and by Tenderflow staff." />
-        <Submit tone="secondary">Add the note</Submit>
-      </Form>
-    </Card>
-  );
-}
-
-function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey }) {
-  const [form, fields] = useForm({
-    id: "undo",
-    lastResult: useIdleResult(lastResult),
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: undoSchema }),
-    ...VALIDATE,
-  });
-  return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Take back “{MILESTONE_LABELS[last]}”</h2>
-      <p className="mb-4 text-sm text-ink-600">Only the last milestone reached can be taken back. It stays in the history with your reason.</p>
-      <Form method="post" {...getFormProps(form)} className="space-y-4">
-        <input type="hidden" name="intent" value="undo" />
-        <input type="hidden" name="milestone" value={last} />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <TextAreaField meta={fields.reason} label="Reason" hint="For example: the test has to be repeated after a seal change." />
-        <Submit tone="danger">Take it back</Submit>
-      </Form>
-    </Card>
-  );
-}
-
-function ManagerNoteForm({ lastResult }: FormProps) {
-  const [form, fields] = useForm({
-    id: "manager-note",
-    lastResult: useIdleResult(lastResult),
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: managerNoteSchema }),
-    ...VALIDATE,
-  });
-  return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Internal note</h2>
-      <p className="mb-4 text-sm text-ink-600">Only Tenderflow staff see these notes, never the buyer or the shop.</p>
-      <Form method="post" {...getFormProps(form)} className="space-y-4">
-        <input type="hidden" name="intent" value="manager-note" />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <TextAreaField meta={fields.body} label="Note" />
-        <Submit tone="secondary">Save the note</Submit>
-      </Form>
     </Card>
   );
 }

@@ -9,7 +9,7 @@ import { formatMoney } from "~/content/money";
 import { formatDay } from "~/content/dates";
 import { JOB_STAGES, JOB_STAGE_LABELS } from "~/content/job-milestones";
 import { jobListQuerySchema } from "~/schemas/jobs";
-import { listJobs } from "~/services/jobs.server";
+import { listJobs } from "~/services/job-reads.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data ? HEADINGS[data.role].title : "Jobs"} · Tenderflow` }];
 

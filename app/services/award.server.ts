@@ -6,7 +6,7 @@ import { FieldErrors } from "./errors.server";
 import { specFor } from "./spec-access.server";
 import { enqueueMail } from "./mail.server";
 import { bidChosenMail, bidNotChosenMail, newJobMail } from "./mail-templates.server";
-import { openJob } from "./jobs.server";
+import { openJob } from "./job-opening.server";
 
 // Awarding: the buyer chooses exactly one offered bid. The spec row is locked for update, so
 // of two racing awards the second waits, then finds the spec awarded and changes nothing.

@@ -5,7 +5,7 @@ import { formatMoney } from "~/content/money";
 import type { PaymentStatus } from "~/content/payment-status";
 import { env } from "~/env.server";
 import { FieldErrors, notFound } from "./errors.server";
-import { scopedJob } from "./jobs.server";
+import { scopedJob } from "./job-reads.server";
 import { authorize, can, findInScope, paymentsWhere, viewerOf } from "~/auth/access-policy.server";
 import { OPEN_PAYMENT_STATUSES } from "~/models/payment.server";
 import { retireCheckout, syncPayment } from "./payment-sync.server";

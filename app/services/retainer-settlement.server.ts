@@ -4,7 +4,7 @@ import { Job, Organisation, type Payment, Refund, Spec, User } from "~/models/in
 import { formatMoney } from "~/content/money";
 import { enqueueMail } from "./mail.server";
 import { receiptMail, retainerReceivedMail, secondChargeToPayerMail, secondChargeToStaffMail } from "./mail-templates.server";
-import { recordRetainerReceived } from "./jobs.server";
+import { recordRetainerReceived } from "./job-progress.server";
 import { stripe } from "./stripe.server";
 
 // The one path by which a payment becomes paid: the webhook's checkout.session.completed and the

@@ -22,7 +22,7 @@ import { createDraft, deleteDraft, publish, saveStep, startRevision } from "~/se
 import { saveBid, withdrawBid } from "~/services/bids.server";
 import { awardBid, canAwardNow } from "~/services/award.server";
 import { answerQuestion, askQuestion } from "~/services/questions.server";
-import { addManagerNote, addProgressNote, reachMilestones } from "~/services/jobs.server";
+import { addManagerNote, addProgressNote, reachMilestones } from "~/services/job-progress.server";
 import { paymentOfSession, requestRefund, startRetainerPayment } from "~/services/payments.server";
 import { decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
 import { assignAccountManager, changeRole, listOrganisations, listUsers, setActive } from "~/services/admin.server";

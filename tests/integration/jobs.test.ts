@@ -11,15 +11,10 @@ import { Bid, Job, JobEvent, JobMilestone, Organisation, User, sequelize } from 
 import { MILESTONE_KEYS } from "~/content/job-milestones";
 import { addDays, isoDay } from "~/content/dates";
 import { retainerCents } from "~/content/money";
-import {
-  changeTargetDate,
-  jobFor,
-  openJob,
-  reachMilestones,
-  stageOf,
-  targetDates,
-  undoLastMilestone,
-} from "~/services/jobs.server";
+import { changeTargetDate, reachMilestones, undoLastMilestone } from "~/services/job-progress.server";
+import { jobFor } from "~/services/job-reads.server";
+import { openJob } from "~/services/job-opening.server";
+import { stageOf, targetDates } from "~/services/job-schedule";
 import { deliverDueMail } from "~/services/mail.server";
 import { FieldErrors } from "~/services/errors.server";
 import { inDays, makeJob, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";

@@ -64,7 +64,7 @@ export async function makePublishedSpec(buyer: User, overrides: SpecOverrides = 
 let jobSerial = 0;
 /** A published spec of `buyer`, a submitted one-line bid of `shop` on it, and the job its award opens. */
 export async function makeJob(buyer: User, shop: User, options: { totalCents?: number; leadTimeWeeks?: number | null; title?: string } = {}) {
-  const { openJob } = await import("~/services/jobs.server");
+  const { openJob } = await import("~/services/job-opening.server");
   const title = options.title ?? `Scissor lift table ${++jobSerial}`;
   const spec = await makePublishedSpec(buyer, { machine: { title } });
   const totalCents = options.totalCents ?? 1_234_567;

@@ -5,7 +5,7 @@ import type { UnitSystem } from "~/units";
 import { COMPARISON_SORTS, type ComparisonSort } from "../bid-comparison";
 import { comparisonOf } from "../bids.server";
 import { notFound } from "../errors.server";
-import { scopedJob } from "../jobs.server";
+import { scopedJob } from "../job-reads.server";
 import { buyerNameFor, specFor, specForReader } from "../spec-access.server";
 import { revisionsOf } from "../specs.server";
 import type { BillInput } from "./bill-workbook.server";

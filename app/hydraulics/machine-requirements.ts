@@ -124,17 +124,25 @@ export function parseMachine(input: unknown): MachineRequirements {
     if (parsed.success && name !== "") axes.push({ ...parsed.data, name, decelTimeS: parsed.data.decelTimeS ?? parsed.data.accelTimeS });
   });
 
-  // The cycle names axes that exist, each at most once per step, and moves every axis.
+  // The cycle names axes that exist, each at most once per step, and moves every axis. Read from
+  // the raw steps, so a name is checked even where another field of the cycle is wrong.
   const sequence = top.success ? top.data.sequence : undefined;
-  if (sequence) {
+  const rawSteps = Array.isArray(input.sequence) ? input.sequence.slice(0, MACHINE_LIMITS.steps.max) : null;
+  if (rawSteps) {
     const moved = new Set<string>();
-    sequence.forEach((step, k) => {
+    rawSteps.forEach((step, k) => {
+      if (!Array.isArray(step)) return;
       const inStep = new Set<string>();
-      step.forEach((m, j) => {
-        if (!names.has(m.axis)) add(["sequence", k, j, "axis"], MACHINE_MESSAGES.unknownAxis);
-        else if (inStep.has(m.axis)) add(["sequence", k, j, "axis"], MACHINE_MESSAGES.twiceInStep);
-        inStep.add(m.axis);
-        moved.add(m.axis);
+      step.forEach((m: unknown, j) => {
+        if (!isRecord(m) || typeof m.axis !== "string") return;
+        const axis = m.axis.trim();
+        if (!names.has(axis)) {
+          if (axis !== "") add(["sequence", k, j, "axis"], MACHINE_MESSAGES.unknownAxis);
+          return;
+        }
+        if (inStep.has(axis)) add(["sequence", k, j, "axis"], MACHINE_MESSAGES.twiceInStep);
+        inStep.add(axis);
+        moved.add(axis);
       });
     });
     for (const [name, i] of names) if (!moved.has(name)) add(["axes", i, "name"], MACHINE_MESSAGES.neverMoves);

@@ -29,7 +29,8 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
   const u = displayUnits(units);
   const { cylinder: c, pressuresBar: p, counterbalance: cb, directionalValve: dv } = design;
   const items: { label: string; value: string; detail?: string }[] = [
-    { label: "Bore / rod", value: u.boreRod(c.boreMm, c.rodMm), detail: `stroke ${u.length(c.strokeMm)}` },
+    // The catalogue size stays on one line (also in the narrow live preview); inches for a US reader go below it.
+    { label: "Bore / rod", value: u.boreRod(c.boreMm, c.rodMm, "metric"), detail: `${units === "us" ? `${u.boreRod(c.boreMm, c.rodMm, "inch")} · ` : ""}stroke ${u.length(c.strokeMm)}` },
     { label: "Extend pressure", value: u.pressure(p.extend), detail: "at the pump" },
     { label: "Retract pressure", value: u.pressure(p.retract), detail: "at the pump" },
     { label: "Pump flow", value: u.flow(design.flowsLpm.pump), detail: `${pumpInWords(design, u)} at ${design.pump.speedRpm} rpm` },
@@ -51,7 +52,7 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
         {items.map((item) => (
           <div key={item.label} data-key-size={item.label}>
             <dt className="text-xs text-ink-600">{item.label}</dt>
-            <dd className="text-lg font-semibold text-ink-900">{item.value}</dd>
+            <dd className="whitespace-nowrap text-lg font-semibold text-ink-900">{item.value}</dd>
             {item.detail ? <dd className="text-xs text-ink-600">{item.detail}</dd> : null}
           </div>
         ))}

@@ -105,7 +105,8 @@ describe("KeySizes", () => {
   it("gives a US reader the metric catalogue sizes with inches and hp beside them (1 in = 25.4 mm, 1 hp = 0.74569987 kW)", () => {
     const html = renderToStaticMarkup(<KeySizes design={press} units="us" />);
     const inch = (mm: number) => (mm / 25.4).toFixed(2);
-    expect(html).toContain(`Ø${press.cylinder.boreMm} / Ø${press.cylinder.rodMm} mm (${inch(press.cylinder.boreMm)} / ${inch(press.cylinder.rodMm)} in)`);
+    expect(html).toContain(`>Ø${press.cylinder.boreMm} / Ø${press.cylinder.rodMm} mm<`);
+    expect(html).toContain(`${inch(press.cylinder.boreMm)} / ${inch(press.cylinder.rodMm)} in · stroke`);
     expect(html).toContain(`${press.motor.ratedKw} kW (${(press.motor.ratedKw / 0.74569987).toFixed(2)} hp)`);
     expect(html).toContain(`${press.pump.displacementCcRev} cm³/rev (`);
   });

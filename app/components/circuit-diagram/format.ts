@@ -23,7 +23,7 @@ export interface DisplayUnits {
    * ratings): a US reader sees the metric size first and the inch or hp value beside it,
    * "Ø125 / Ø56 mm (4.92 / 2.20 in)", never an odd inch size.
    */
-  boreRod(boreMm: number, rodMm: number): string;
+  boreRod(boreMm: number, rodMm: number, part?: "metric" | "inch"): string;
   motorRating(kw: number): string;
 }
 
@@ -43,11 +43,14 @@ export function displayUnits(system: UnitSystem = "metric"): DisplayUnits {
     smallVolume: (cm3) =>
       system === "us" ? `${readable(cm3 / 2.54 ** 3)} in³` : `${Math.round(cm3).toLocaleString("en-GB")} cm³`,
     power: (kw) => formatQuantity("power", kw, system),
-    boreRod: (bore, rod) => {
+    // part: only the metric size, or only the inches ("4.92 / 2.20 in"); both by default for a US reader.
+    boreRod: (bore, rod, part) => {
       const metric = `Ø${bore} / Ø${rod} mm`;
-      if (system !== "us") return metric;
-      const inch = (mm: number) => roundForDisplay(toDisplay("diameter", mm, "us"), 2).toFixed(2);
-      return `${metric} (${inch(bore)} / ${inch(rod)} in)`;
+      const inchValue = (mm: number) => roundForDisplay(toDisplay("diameter", mm, "us"), 2).toFixed(2);
+      const inches = `${inchValue(bore)} / ${inchValue(rod)} in`;
+      if (part === "metric") return metric;
+      if (part === "inch") return inches;
+      return system === "us" ? `${metric} (${inches})` : metric;
     },
     motorRating: (kw) => (system === "us" ? `${formatQuantity("power", kw, "metric")} (${formatQuantity("power", kw, "us")})` : formatQuantity("power", kw, system)),
   };

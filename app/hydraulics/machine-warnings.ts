@@ -24,7 +24,9 @@ export function machineWarnings(m: MachineDesign, designs: Design[], mp: Machine
     for (const w of d.warnings) {
       // One valve on its own pump: its neutral arrangement is the machine's, so its note stands.
       if (POWER_UNIT_CODES.has(w.code) && (several || !["PUMP_ON_RELIEF_IN_NEUTRAL", "RELIEF_VENTED_IN_NEUTRAL"].includes(w.code))) continue;
-      list.push({ code: w.code, message: `${name}: ${w.message}` });
+      // The axis's own message blames its own pump; on a shared pump the flow it gets is what its speeds follow from.
+      const message = several && w.code === "PUMP_SPEED_MISMATCH" ? sharedSpeedMessage(d) : w.message;
+      list.push({ code: w.code, message: `${name}: ${message}` });
     }
     const prv = reducingSettingBar(d.cylinder.ratedPressureBar, m.pressuresBar.reliefSetting, d.pressuresBar.reliefSetting);
     if (prv !== null) {
@@ -53,4 +55,10 @@ export function machineWarnings(m: MachineDesign, designs: Design[], mp: Machine
       `Every directional valve blocks P in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever any axis's valve is shifted, or no axis can build pressure. With every valve in neutral the pump circulates at about ${num(m.reliefVent.ventPressureBar)} bar.`);
   }
   return list;
+}
+
+/** PUMP_SPEED_MISMATCH in words that fit an axis on a shared pump. */
+function sharedSpeedMessage(d: Design): string {
+  const s = d.speedsMmS;
+  return `moving alone it extends at ${Math.round(s.extendActual)} mm/s (asked ${s.extendRequested}) and retracts at ${Math.round(s.retractActual)} mm/s (asked ${s.retractRequested}): the ${num(d.flowsLpm.pump)} L/min it is sized to take (the smallest pump of the series that gives its speeds) feeds both strokes. Where it shares the pump its meter-in flow control holds that flow, and can be set down to the asked speeds.`;
 }

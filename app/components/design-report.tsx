@@ -1,6 +1,6 @@
 import type { Design } from "~/hydraulics";
 import type { UnitSystem } from "~/units";
-import { CircuitDiagram } from "./circuit-diagram";
+import { CircuitViewer } from "./circuit-viewer";
 import { CycleChart } from "./cycle-chart";
 import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "./design-panels";
 import { FoldedSection } from "./folded-section";
@@ -32,7 +32,7 @@ export function DesignReport({
           <h2 className="font-semibold">Preliminary circuit</h2>
           <span className="text-xs text-ink-400">{updating ? "Updating…" : `Engine ${design.engineVersion}`}</span>
         </div>
-        <CircuitDiagram design={design} units={units} />
+        <CircuitViewer design={design} units={units} />
         <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
           <a href="#bill" className="font-semibold text-flow-700 hover:underline">{componentsTitle} ({design.bom.length} lines)</a>
           <a href="#calculation-trail" className="font-semibold text-flow-700 hover:underline">How every number was reached</a>

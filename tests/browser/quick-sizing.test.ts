@@ -110,6 +110,27 @@ describe("quick sizing", () => {
     await page.context().close();
   });
 
+  it("opens the diagram larger on a phone, zooms it and closes again", async () => {
+    const page = await app.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.goto("/quick-sizing");
+    await hydrated(page);
+    await page.getByRole("button", { name: "Open the diagram larger" }).click();
+    const viewer = page.getByRole("dialog", { name: "Circuit diagram, larger" });
+    await expect.poll(() => viewer.isVisible()).toBe(true);
+    await viewer.getByRole("button", { name: "300 %" }).click();
+    const scroller = viewer.locator("[data-diagram-zoom='3']");
+    await expect.poll(() => scroller.evaluate((el) => el.scrollWidth > 3 * el.clientWidth)).toBe(true);
+    // Labels are drawn at about 11.5 units; at 300 % of a 760-unit drawing that is about 34 px per line of text on screen.
+    const width = (await scroller.locator("[data-circuit-diagram]").boundingBox())!.width;
+    expect(width).toBeGreaterThan(2200);
+    await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-diagram-zoom-390.png") });
+    await viewer.getByRole("button", { name: "Close" }).click();
+    await expect.poll(() => viewer.isVisible()).toBe(false);
+    expect(await diagram(page).count()).toBe(1);
+    await page.context().close();
+  });
+
   it("works as a plain GET form without JavaScript, the new questions included", async () => {
     const context = await app.browser.newContext({ baseURL: app.baseUrl, javaScriptEnabled: false, viewport: { width: 1280, height: 860 } });
     const page = await context.newPage();

@@ -77,7 +77,7 @@ const storage = createSessionStorage<SessionData, SessionFlash>({
 // The root loader and the page's loader ask for the same request's session: read it once.
 const read = new WeakMap<Request, Promise<AppSession>>();
 
-export function getSession(request: Request): Promise<AppSession> {
+function getSession(request: Request): Promise<AppSession> {
   let session = read.get(request);
   if (!session) {
     session = storage.getSession(request.headers.get("Cookie"));

@@ -110,7 +110,7 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
 }
 
 /** Labels of the answers that are not axis requirements (those carry their own). */
-export const SPEC_ANSWER_LABELS: Record<string, string> = {
+const SPEC_ANSWER_LABELS: Record<string, string> = {
   title: "Title",
   purpose: "What the machine does",
   supplyVoltage: "Mains voltage",

@@ -326,7 +326,7 @@ export function differsFromDefault(keys: readonly RequirementKey[], values: Form
  * One typed number in the app's units: a plain number is in the person's units; a number with
  * its own unit ("150 kN", "6 in") is read in that unit. NaN when it is neither.
  */
-export function typedAppValue(field: NumberField, raw: string, system: UnitSystem): number {
+function typedAppValue(field: NumberField, raw: string, system: UnitSystem): number {
   const number = typedNumber(raw);
   if (Number.isFinite(number)) return field.quantity ? fromDisplay(field.quantity, number, system) : number;
   return (field.quantity && parseWithUnit(field.quantity, raw)) ?? Number.NaN;

@@ -15,7 +15,7 @@ function refuse(request: Request, status: number, message: string): Response {
   throw data({ message }, { status });
 }
 
-export const securityHeaders: MiddlewareFunction<Response> = async ({ request, context }, next) => {
+const securityHeaders: MiddlewareFunction<Response> = async ({ request, context }, next) => {
   const nonce = newNonce();
   context.set(nonceContext, nonce);
   const response = await next();
@@ -23,7 +23,7 @@ export const securityHeaders: MiddlewareFunction<Response> = async ({ request, c
 };
 
 /** A cross-site state change, or a request too large or oddly shaped, never reaches a route. */
-export const guardRequest: MiddlewareFunction<Response> = async ({ request }, next) => {
+const guardRequest: MiddlewareFunction<Response> = async ({ request }, next) => {
   const problem = checkSameOrigin(request) ?? (await checkRequestBounds(request));
   if (problem) return refuse(request, problem.status, problem.message);
   return next();

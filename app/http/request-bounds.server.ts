@@ -58,7 +58,7 @@ function printable(name: string) {
 }
 
 /** The URL's query: short, few fields, no NUL (search boxes reach SQL as parameters). */
-export function checkQuery(url: URL): BoundsProblem | null {
+function checkQuery(url: URL): BoundsProblem | null {
   if (url.search.length > REQUEST_LIMITS.queryLength) return { status: 413, message: `The address is too long (at most ${REQUEST_LIMITS.queryLength} characters after “?”).` };
   if (url.pathname.includes("%00") || url.pathname.includes(NUL)) return { status: 400, message: "The address contains a NUL character." };
   for (const [name, value] of url.searchParams) {

@@ -5,7 +5,7 @@ import { randomBytes } from "node:crypto";
 import { env } from "~/env.server";
 
 /** Under the Vite dev server the policy is looser: no nonce, and Vite's own inline scripts run. */
-export const underDevServer = () => env().NODE_ENV === "development";
+const underDevServer = () => env().NODE_ENV === "development";
 
 /** A nonce for one response's inline scripts; none under the dev server. */
 export const newNonce = () => (underDevServer() ? "" : randomBytes(16).toString("base64"));

@@ -7,7 +7,7 @@ import {
 } from "sequelize";
 import { sequelize } from "~/db.server";
 
-export const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
+const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
 
 /**

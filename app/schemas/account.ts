@@ -8,7 +8,7 @@ const trimmed = (max: number, label: string) =>
     .min(1, `Enter your ${label}.`)
     .max(max, `Keep the ${label} under ${max + 1} characters.`);
 
-export const emailField = z
+const emailField = z
   .string({ error: "Enter an e-mail address." })
   .trim()
   .min(1, "Enter an e-mail address.")
@@ -16,7 +16,7 @@ export const emailField = z
   .pipe(z.email("Enter an e-mail address like name@company.com."))
   .transform((v) => v.toLowerCase());
 
-export const newPasswordField = z
+const newPasswordField = z
   .string({ error: "Choose a password." })
   .min(10, "Use at least 10 characters.")
   .max(72, "Use at most 72 characters."); // bcrypt reads only the first 72 bytes

@@ -14,7 +14,7 @@ const lineSchema = z.object({
   alternativeDescription: optionalText(500),
 });
 
-export const BID_INTENTS = ["save", "submit"] as const;
+const BID_INTENTS = ["save", "submit"] as const;
 
 export const bidSchema = z
   .object({

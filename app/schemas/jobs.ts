@@ -5,7 +5,7 @@ import { isIsoDay } from "~/content/dates";
 // The job list's filters and the job page's forms: one set of rules for server and Conform.
 
 /** The milestones a shop records; the retainer is recorded by the payment. */
-export const SHOP_MILESTONES = MILESTONE_KEYS.filter((k) => k !== PAYMENT_MILESTONE) as [MilestoneKey, ...MilestoneKey[]];
+const SHOP_MILESTONES = MILESTONE_KEYS.filter((k) => k !== PAYMENT_MILESTONE) as [MilestoneKey, ...MilestoneKey[]];
 
 /** Filters of the job list, from the URL; a bad value is ignored rather than failing the page. */
 export const jobListQuerySchema = z.object({

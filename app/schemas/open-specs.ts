@@ -19,7 +19,7 @@ export const OPEN_SPEC_SORT_LABELS: Record<OpenSpecSort, string> = {
 export const OPEN_SPECS_PAGE_SIZE = 25;
 
 /** The parameters the table reads, in the order its filter form shows them. */
-export const OPEN_SPEC_PARAMS = ["q", "region", "deadline", "pressureMin", "pressureMax", "flowMin", "flowMax", "sort", "page"] as const;
+const OPEN_SPEC_PARAMS = ["q", "region", "deadline", "pressureMin", "pressureMax", "flowMin", "flowMax", "sort", "page"] as const;
 export type OpenSpecParam = (typeof OPEN_SPEC_PARAMS)[number];
 
 const blankToUndefined = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
@@ -41,7 +41,7 @@ const bound = (what: string, example: string) =>
       .optional(),
   );
 
-export const openSpecsQuerySchema = z
+const openSpecsQuerySchema = z
   .object({
     q: text(100, "The title search"),
     region: text(80, "The region"),

@@ -69,7 +69,6 @@ function checkDates(v: Record<string, unknown>, ctx: z.RefinementCtx) {
 }
 
 export const quotationSchema = z.object(OWN_FIELDS.quotation).superRefine(checkDates);
-export type QuotationAnswers = z.output<typeof quotationSchema>;
 
 /** The schema of one step, given the person's units and the answers of the other steps. */
 export function stepSchema(step: FormStepId, system: UnitSystem, otherAnswers: FormValues) {

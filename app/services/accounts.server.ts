@@ -37,7 +37,7 @@ export async function verifyCredentials(email: string, password: string): Promis
   return user;
 }
 
-export const WRONG_OWN_PASSWORD = "That is not your password.";
+const WRONG_OWN_PASSWORD = "That is not your password.";
 
 /**
  * The signed-in person types their password again before a change that matters (a refund, a

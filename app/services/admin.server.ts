@@ -5,7 +5,7 @@ import { Organisation, User, UserSession, sequelize } from "~/models/index.serve
 import { FieldErrors, notFound } from "./errors.server";
 import { accountsWhere, authorize, viewerOf } from "~/auth/access-policy.server";
 
-export const PAGE_SIZE = 20;
+const PAGE_SIZE = 20;
 
 export interface ListQuery {
   q?: string;

@@ -27,7 +27,7 @@ export const ATTACHMENT_LIMITS = { maxFileBytes: 10 * MB, maxFilesPerSpec: 10 } 
 export type AttachmentLimits = { maxFileBytes: number; maxFilesPerSpec: number };
 
 /** The multipart field that carries the files. */
-export const FILES_FIELD = "files";
+const FILES_FIELD = "files";
 
 const MAX_NAME_LENGTH = 200; // spec_attachments.file_name
 const STORAGE_PREFIX = "spec-attachments";
@@ -55,7 +55,7 @@ export interface AttachmentFormResult {
   summary: string;
 }
 
-export const attachmentUrl = (specId: string, attachmentId: string) => `/specs/${specId}/attachments/${attachmentId}`;
+const attachmentUrl = (specId: string, attachmentId: string) => `/specs/${specId}/attachments/${attachmentId}`;
 
 const megabytes = (bytes: number) => `${Math.round(bytes / MB)} MB`;
 const NOT_DRAFT = "Files can only be added or removed while the spec is a draft. This spec has been published.";

@@ -31,7 +31,7 @@ export async function bidOfShop(user: User, spec: Spec) {
   return Bid.findOne({ where: { specId: spec.id, organisationId: user.organisationId } });
 }
 
-export const offerOf = (bid: Bid): BidOffer => ({
+const offerOf = (bid: Bid): BidOffer => ({
   lines: bid.lines,
   units: bid.units,
   setTotalCents: bid.setTotalCents,
@@ -159,7 +159,7 @@ export async function historyOf(bid: Bid) {
 }
 
 /** Bids the buyer compares: every one offered (or decided), never drafts or taken-back ones. */
-export async function offeredBids(user: User, spec: Spec) {
+async function offeredBids(user: User, spec: Spec) {
   const viewer = await viewerOf(user);
   authorize(viewer, "spec.compareBids", spec);
   return Bid.findAll({

@@ -91,7 +91,7 @@ function filtersOf(query: JobListQuery, today: string, withStage: boolean): Wher
   return where;
 }
 
-export const JOBS_PAGE_SIZE = 25;
+const JOBS_PAGE_SIZE = 25;
 
 export interface JobList {
   jobs: JobSummary[];

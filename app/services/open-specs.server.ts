@@ -39,7 +39,7 @@ function rangeOf(quantity: Quantity, system: UnitSystem, min: number | undefined
 const dayAfter = (isoDate: string) => new Date(Date.parse(`${isoDate}T00:00:00Z`) + 86_400_000);
 
 /** The search as a WHERE clause; exported for the benchmark, which times the same queries. */
-export function openSpecsWhere(user: Pick<User, "unitSystem">, query: OpenSpecsQuery, now = new Date()): WhereOptions<Spec> {
+function openSpecsWhere(user: Pick<User, "unitSystem">, query: OpenSpecsQuery, now = new Date()): WhereOptions<Spec> {
   const system = (user.unitSystem ?? "metric") as UnitSystem;
   const where: Record<string | symbol, unknown> = {
     status: "open",

@@ -9,7 +9,7 @@ import type { User } from "~/models/index.server";
 // "Send again" puts a mail back in the queue with a fresh set of attempts. The body is never
 // shown: it can hold a sign-in link meant for its recipient only.
 
-export const MAIL_PAGE_SIZE = 25;
+const MAIL_PAGE_SIZE = 25;
 /** A pending mail queued longer ago than this is shown as waiting too long. */
 export const WAITING_LONG_MINUTES = 15;
 

@@ -19,7 +19,7 @@ export type CheckoutState =
   | { kind: "closed" };
 
 /** Ends an attempt that can no longer take a card, unless a webhook settled it meanwhile. */
-export async function closePayment(paymentId: string) {
+async function closePayment(paymentId: string) {
   await Payment.update({ status: "expired" }, { where: { id: paymentId, status: [...OPEN_PAYMENT_STATUSES] } });
 }
 
@@ -68,7 +68,7 @@ export async function retireCheckout(payment: Payment): Promise<CheckoutState> {
 }
 
 /** An open payment counts as forgotten after this long without a webhook. */
-export const RECONCILE_AFTER_MS = 5 * 60_000;
+const RECONCILE_AFTER_MS = 5 * 60_000;
 
 /**
  * Asks Stripe about every payment left open for a while. Rows are claimed by stamping

@@ -186,7 +186,7 @@ export async function retainerPanelOf(user: User, jobId: string | undefined) {
 // The payments table and refunds: account managers for their accounts, admins for all, a buyer
 // for its own organisation.
 
-export const PAYMENTS_PAGE_SIZE = 50;
+const PAYMENTS_PAGE_SIZE = 50;
 
 export async function listPayments(viewer: User, query: { status?: PaymentStatus; flagged?: boolean; page?: number }) {
   const where: WhereOptions<Payment> = {

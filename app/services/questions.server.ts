@@ -41,7 +41,7 @@ export interface QuestionsPanel {
 }
 
 /** Open for questions: open for bids, deadline still ahead. */
-export const takesQuestions = (spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()) => takesBids(spec, now);
+const takesQuestions = (spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()) => takesBids(spec, now);
 
 function closedNote(spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()): string | null {
   if (takesQuestions(spec, now)) return null;

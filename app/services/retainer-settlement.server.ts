@@ -111,7 +111,7 @@ async function tellOfSecondCharge(transaction: Transaction, payment: Payment, jo
 }
 
 /** Receipts for a paid retainer: to the buyer who paid and to the shop's people. */
-export async function sendReceipts(transaction: Transaction, payment: Payment) {
+async function sendReceipts(transaction: Transaction, payment: Payment) {
   const job = await Job.findByPk(payment.jobId, { transaction, rejectOnEmpty: true });
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
   const [buyer, shop] = await Promise.all([Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true }), Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true })]);

@@ -3,7 +3,7 @@ import { ENGINE_VERSION, RequirementsError, sizeCircuit, type Design } from "~/h
 import { toRequirementsInput, type FormValues } from "~/content/requirement-fields";
 import { FORM_STEPS, type FormStepId } from "~/content/spec-steps";
 import { quotationSchema } from "~/schemas/spec";
-import { Spec, SpecAttachment, SpecRevision, User, sequelize } from "~/models/index.server";
+import { Spec, SpecRevision, User, sequelize } from "~/models/index.server";
 import type { SpecStatus } from "~/models/spec.server";
 import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
@@ -158,6 +158,3 @@ export async function revisionsOf(spec: Spec) {
   return SpecRevision.findAll({ where: { specId: spec.id }, order: [["number", "DESC"]] });
 }
 
-export async function attachmentCount(spec: Spec) {
-  return SpecAttachment.count({ where: { specId: spec.id } });
-}

@@ -30,7 +30,7 @@ export function newStorageKey(prefix: string): string {
 
 const SAFE_KEY = /^[a-z0-9][a-z0-9-]*(?:\/[a-z0-9][a-z0-9-]*)*$/;
 
-export class LocalDiskStorage implements FileStorage {
+class LocalDiskStorage implements FileStorage {
   readonly root: string;
 
   constructor(root: string) {

@@ -67,7 +67,7 @@ const clientFails = () => limiter("signin-client", SIGN_IN_LIMITS.perClient, 15 
 
 const blockSeconds = (blocksToday: number) => Math.min(5 * MINUTE * 2 ** (blocksToday - 1), HOUR);
 
-export const accountThrottledMessage = (ms: number) =>
+const accountThrottledMessage = (ms: number) =>
   `Too many attempts for this account. Try again in ${minutes(ms)}, or reset your password by e-mail.`;
 
 /**

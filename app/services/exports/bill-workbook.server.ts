@@ -41,9 +41,9 @@ export interface BillInput {
   exportedAt: Date;
 }
 
-export const BILL_SHEETS = ["Bill of materials", "Design values", "Requirements", "Cautions"] as const;
+const BILL_SHEETS = ["Bill of materials", "Design values", "Requirements", "Cautions"] as const;
 
-export const BOM_COLUMNS: Column[] = [
+const BOM_COLUMNS: Column[] = [
   { header: "Line key", width: 22 },
   { header: "Item", width: 34, wrap: true },
   { header: "Qty", width: 6, align: "right", numFmt: "0" },
@@ -53,7 +53,7 @@ export const BOM_COLUMNS: Column[] = [
   { header: "What is rated", width: 18, wrap: true },
 ];
 
-export const TRAIL_COLUMNS: Column[] = [
+const TRAIL_COLUMNS: Column[] = [
   { header: "Quantity", width: 34, wrap: true },
   // Wrapped: a few values are words ("ISO 6020-2 (160 bar)"), which must not be cut off.
   { header: "Value", width: 13, align: "right", wrap: true },
@@ -64,7 +64,7 @@ export const TRAIL_COLUMNS: Column[] = [
 ];
 
 /** The facts every sheet of the workbook opens with; the first sheet adds the quotation. */
-export function billFacts(input: BillInput): [string, string][] {
+function billFacts(input: BillInput): [string, string][] {
   return [
     ["Revision", `${input.revision}, published ${headerDay(input.publishedAt)}`],
     ["Sizing engine", `version ${input.engineVersion}`],
@@ -102,7 +102,7 @@ function addBomSheet(workbook: ExcelJS.Workbook, input: BillInput) {
 }
 
 /** "m = 800 kg", one input a line. */
-export function inputsText(inputs: Design["trail"][number]["inputs"]): string {
+function inputsText(inputs: Design["trail"][number]["inputs"]): string {
   return Object.entries(inputs)
     .map(([name, input]) => {
       const value = typeof input.value === "number" ? shortNumber(input.value) : input.value;

@@ -44,12 +44,12 @@ export interface ComparisonInput {
   exportedAt: Date;
 }
 
-export const COMPARISON_SHEETS = ["Comparison", "Offers", "Cautions"] as const;
+const COMPARISON_SHEETS = ["Comparison", "Offers", "Cautions"] as const;
 const FIXED = 4;
 const PER_SHOP = 3;
 
 /** Columns of offer `i` (0-based): unit price, line total, alternative. */
-export const shopColumns = (i: number) => ({ unit: FIXED + 1 + PER_SHOP * i, total: FIXED + 2 + PER_SHOP * i, alternative: FIXED + 3 + PER_SHOP * i });
+const shopColumns = (i: number) => ({ unit: FIXED + 1 + PER_SHOP * i, total: FIXED + 2 + PER_SHOP * i, alternative: FIXED + 3 + PER_SHOP * i });
 
 function comparisonColumns(shops: number, fmt: string): Column[] {
   const perShop: Column[] = [
@@ -67,7 +67,7 @@ function comparisonColumns(shops: number, fmt: string): Column[] {
   ];
 }
 
-export function comparisonFacts(input: ComparisonInput): [string, string][] {
+function comparisonFacts(input: ComparisonInput): [string, string][] {
   return [
     ["Current revision", String(input.revision)],
     ["Sizing engine", `version ${input.engineVersion}`],

@@ -8,7 +8,7 @@
 const FORBIDDEN = /[/\\:*?"<>|\u0000-\u001f\u007f-\u009f]/g;
 const WINDOWS_DEVICES = /^(con|prn|aux|nul|com[0-9]|lpt[0-9])(\..*)?$/i;
 /** Characters of the title kept; with the suffix the name stays far below 255 bytes of UTF-8. */
-export const TITLE_LIMIT = 80;
+const TITLE_LIMIT = 80;
 
 /** A title made safe as (part of) a file name on every common OS. */
 export function safeFileStem(text: string, fallback = "Untitled spec"): string {

@@ -51,9 +51,9 @@ export interface PricedBillInput {
   exportedAt: Date;
 }
 
-export const PRICED_SHEETS = ["Priced bill", "Cautions"] as const;
+const PRICED_SHEETS = ["Priced bill", "Cautions"] as const;
 
-export function pricedColumns(currency: string): Column[] {
+function pricedColumns(currency: string): Column[] {
   const fmt = currencyFormat(currency);
   return [
     { header: "Line key", width: 22 },
@@ -67,7 +67,7 @@ export function pricedColumns(currency: string): Column[] {
   ];
 }
 
-export function pricedFacts(input: PricedBillInput): [string, string][] {
+function pricedFacts(input: PricedBillInput): [string, string][] {
   return [
     ["Revision priced", String(input.revision)],
     ["Sizing engine", `version ${input.engineVersion}`],

@@ -17,7 +17,7 @@ const typedUnit = (field: RequirementField, system: UnitSystem) =>
   field.kind === "choice" ? "" : field.quantity ? unitLabel(field.quantity, system) : siUnit(field);
 
 /** What a person typed, as a number when it is one ("1 234,5" included), else as typed. */
-export function typedValue(raw: string | undefined): number | string | null {
+function typedValue(raw: string | undefined): number | string | null {
   const text = raw?.trim();
   if (!text) return null;
   const number = typedNumber(text);
@@ -34,7 +34,7 @@ export interface RequirementRow {
   reader: { value: number | string; unit: string } | null;
 }
 
-export function requirementRows(input: Pick<BillInput, "answers" | "enteredIn" | "readerUnits"> & { requirements: Requirements }): RequirementRow[] {
+function requirementRows(input: Pick<BillInput, "answers" | "enteredIn" | "readerUnits"> & { requirements: Requirements }): RequirementRow[] {
   const typed: Record<string, string> = Object.assign({}, ...Object.values(input.answers));
   const rows: RequirementRow[] = [];
   // Sized by a contract that asks the optional choices (pump, mounting style): a blank one is listed by what it meant.

@@ -118,7 +118,7 @@ export function styleBodyRow(row: ExcelJS.Row, columns: Column[]) {
  * lines any wrapped cell needs at its column's width (the width unit is one digit of the default
  * font; text averages about 0.85 of it, which leaves room for words moved to the next line).
  */
-export function fitHeight(row: ExcelJS.Row, columns: Column[]) {
+function fitHeight(row: ExcelJS.Row, columns: Column[]) {
   let lines = 1;
   columns.forEach((c, i) => {
     if (!c.wrap) return;

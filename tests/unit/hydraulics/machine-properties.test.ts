@@ -88,6 +88,24 @@ describe("the power unit over the machine cycle", () => {
     );
   });
 
+  it("runs the pump in every phase at no less than the highest pressure any axis taking part needs", () => {
+    fc.assert(
+      fc.property(machineArb, (input) => {
+        const m = attempt(() => sizeMachine(input));
+        if (!m) return;
+        const axes = new Map(m.axes.map((a) => [a.name, a]));
+        for (const p of m.cycle) {
+          for (const { axis, phase } of p.motions) {
+            const bar = axes.get(axis)!.pressuresBar;
+            const need = phase === "retract" ? bar.retract : phase === "approach" || phase === "extend" ? bar.extendMoving : bar.extendPress;
+            expect(p.pressureBar).toBeGreaterThanOrEqual(need - 1e-9);
+          }
+        }
+      }),
+      RUNS,
+    );
+  });
+
   it("has a motor that covers every phase: short peaks within 1.5 × its rating, long phases within it", () => {
     fc.assert(
       fc.property(machineArb, (input) => {

@@ -106,11 +106,13 @@ export function pumpInPhase(ph: TimelinePhase, mp: MachinePump): MachinePumpPhas
   } else if (choice.type === "double") {
     const qS = mp.smallLpm!;
     const dumpKw = hydraulicPowerKw(A.unloadedDropBar.value, qp - qS);
-    if (ph.kind === "pressing") p = choice.phases.press!;
-    else if (ph.kind === "fast" && full && ph.needBar <= choice.unloadingBar! + TOL) p = at(ph.needBar, qp);
-    else if (ph.demandLpm <= qS * (1 + TOL)) p = at(choice.reliefBar, qS, hydraulicPowerKw(choice.reliefBar, qS) + dumpKw);
+    const belowUnloading = ph.needBar <= choice.unloadingBar! + TOL;
+    if (ph.kind === "pressing" && ph.needBar <= choice.phases.press!.bar + TOL) p = choice.phases.press!;
+    else if (ph.kind === "fast" && full && belowUnloading) p = at(ph.needBar, qp);
     // more than the small section and less than both: both deliver near the unloading setting
-    else p = at(choice.unloadingBar!, qp);
+    else if (belowUnloading && ph.demandLpm > qS * (1 + TOL)) p = at(choice.unloadingBar!, qp);
+    // above the unloading setting only the small section delivers, up to the relief
+    else p = at(choice.reliefBar, qS, hydraulicPowerKw(choice.reliefBar, qS) + dumpKw);
   } else {
     p = ph.kind === "fast" && full ? at(ph.needBar, qp) : at(choice.reliefBar, qp);
   }

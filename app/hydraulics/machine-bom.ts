@@ -30,8 +30,8 @@ export function machineBom(m: MachineDesign, designs: Design[]): BomLine[] {
     lines.push(...buildBom(own, gauge).filter((l) => !POWER_UNIT_KEYS.has(l.key)).map(tag));
     if (axis.speedControl) {
       lines.push(tag({
-        key: "speed-control", item: "Flow control valve, pressure-compensated, meter-in, with reverse free-flow check", quantity: 1,
-        specification: `in the line that feeds the moving stroke, set to about ${num(axis.speedControl.flowLpm)} L/min so the axis keeps its speed on the shared pump; rated for at least ${relief} bar`,
+        key: "speed-control", item: "Flow control valve, pressure-compensated, modular (sandwich) in the P line under the directional valve", quantity: 1,
+        specification: `set to about ${num(axis.speedControl.flowLpm)} L/min, the flow a pump of the axis's own size would give, so both strokes keep the speeds the axis was sized at on the shared pump; rated for at least ${relief} bar`,
         rating: { value: axis.speedControl.flowLpm, unit: "L/min", label: "set flow" },
       }));
     }

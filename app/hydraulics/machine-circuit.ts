@@ -1,6 +1,7 @@
 /**
  * The machine's circuit as data: the power unit once, then each axis's directional valve,
- * cylinder and in-line valves with the axis named on every component. Every directional valve
+ * cylinder and in-line valves with the axis named on every component (and, where the shared
+ * pump gives more than the axis takes, its P-line flow control). Every directional valve
  * takes P from the pump line and returns T through the return filter to the tank; an axis's
  * parts connect only among themselves and to the power unit, so each valve reaches only its own
  * cylinder. The diagram drawing of a machine is not made here.
@@ -42,7 +43,19 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
       if (!joined.has(key)) connections.push(c);
       joined.add(key);
     };
-    for (const c of feeds) join({ ...c, to: rename(c.to) });
+    // An axis on a larger shared pump takes P through its own P-line flow control (machine-bom.ts).
+    if (axis.speedControl) {
+      const id = axisPartId(i, "speed-control");
+      components.push({
+        id, kind: "flow-control", ports: ["1", "2"], axis: axis.name,
+        label: `Flow control, P line (meter-in), pressure-compensated, ${axis.name}`,
+        values: { settingLpm: axis.speedControl.flowLpm, compensated: "yes" },
+      });
+      for (const c of feeds) join({ ...c, to: `${id}.2` });
+      join({ from: `${id}.1`, to: rename("dcv.P"), line: "pressure" });
+    } else {
+      for (const c of feeds) join({ ...c, to: rename(c.to) });
+    }
     for (const c of own.connections) {
       const ends = [componentOf(c.from), componentOf(c.to)];
       if (ends.every((id) => POWER_UNIT_IDS.has(id))) continue;

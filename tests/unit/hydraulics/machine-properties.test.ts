@@ -176,8 +176,10 @@ describe("the machine's circuit", () => {
         for (const c of m.circuit.components.filter((k) => k.kind === "pump")) expect(c.axis).toBeUndefined();
         for (const dcv of dcvs) {
           expect(dcv.dcvPositions).toBeDefined();
-          // P straight from the pump line (common P gallery).
-          expect(m.circuit.connections).toContainEqual(expect.objectContaining({ from: "pump.outlet", to: `${dcv.id}.P` }));
+          // P from the pump line (common P gallery), directly or through the axis's own P-line parts only.
+          const supply = reach(m, `${dcv.id}.P`, (id) => byId.get(id)?.axis === undefined || id === dcv.id);
+          expect(supply.has("pump")).toBe(true);
+          for (const id of supply) if (byId.get(id)?.axis !== undefined) expect(byId.get(id)!.axis).toBe(dcv.axis);
           // T through the power unit's return path to the tank, never through another axis.
           const back = reach(m, `${dcv.id}.T`, (id) => id === "tank" || byId.get(id)?.axis !== undefined);
           expect(back.has("tank")).toBe(true);

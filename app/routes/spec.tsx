@@ -103,6 +103,17 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
           <Notice tone="good">Published. Fluid-power shops have been told and can bid until the deadline.</Notice>
         </div>
       ) : null}
+      {d.questions?.canAnswer && d.questions.questions.some((q) => !q.answer) ? (
+        <div className="mb-6">
+          <Notice tone="warn">
+            {(() => {
+              const n = d.questions.questions.filter((q) => !q.answer).length;
+              return `${n} question${n === 1 ? "" : "s"} from shops ${n === 1 ? "waits" : "wait"} for your answer; every shop sees the answers. `;
+            })()}
+            <a href="#questions" className="font-semibold underline">Answer now</a>
+          </Notice>
+        </div>
+      ) : null}
       {d.revision ? <BidPanel specId={d.id} latestRevision={d.latestRevision} {...d.bidding} /> : null}
       {d.revisions.length > 1 ? (
         <nav aria-label="Revisions" className="mb-6 flex flex-wrap items-center gap-2 text-sm">

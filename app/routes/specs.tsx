@@ -9,6 +9,7 @@ import { Badge, Button, Card, EmptyState, PageHeader, TableScroll } from "~/comp
 
 import { SPEC_SORTS, listSpecs } from "~/services/specs.server";
 import { offerCounts } from "~/services/bids.server";
+import { waitingQuestionCounts } from "~/services/questions.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "My specs · Tenderflow" }];
 
@@ -21,7 +22,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   const query = querySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const specs = await listSpecs(user, query);
-  const offers = await offerCounts(specs.filter((s) => s.status !== "draft").map((s) => s.id));
+  const published = specs.filter((s) => s.status !== "draft").map((s) => s.id);
+  const [offers, waiting] = await Promise.all([offerCounts(published), waitingQuestionCounts(user, published)]);
   return {
     organisationName: user.organisation.name,
     filtered: Boolean(query.status),
@@ -30,6 +32,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       title: s.title,
       status: shownSpecStatus(s.status as SpecStatus, s.bidDeadline),
       offers: s.status === "draft" ? null : (offers.get(s.id) ?? 0),
+      waitingQuestions: waiting.get(s.id) ?? 0,
       revision: s.currentRevision,
       bidDeadline: s.bidDeadline?.toISOString() ?? null,
       updatedAt: s.updatedAt.toISOString(),
@@ -104,6 +107,11 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
                         {s.title || "Untitled draft"}
                       </Link>
                       {s.revision > 1 ? <span className="ml-2 text-xs text-ink-400">revision {s.revision}</span> : null}
+                      {s.waitingQuestions ? (
+                        <Link to={`/specs/${s.id}#questions`} className="mt-1 block w-fit text-xs font-semibold text-signal-700 hover:underline" data-waiting-questions={s.waitingQuestions}>
+                          {s.waitingQuestions} question{s.waitingQuestions === 1 ? "" : "s"} waiting for your answer
+                        </Link>
+                      ) : null}
                     </td>
                     <td><Badge tone={SPEC_STATUS_TONES[s.status]}>{SPEC_STATUS_LABELS[s.status]}</Badge></td>
                     <td className="pr-4 text-right tabular-nums">

@@ -85,6 +85,17 @@ export async function questionsFor(user: User, specId: string | undefined, now =
   };
 }
 
+/** How many questions wait for an answer on each of these specs, as far as the viewer may see them. */
+export async function waitingQuestionCounts(user: User, specIds: string[]): Promise<Map<string, number>> {
+  if (!specIds.length) return new Map();
+  const viewer = await viewerOf(user);
+  const rows = (await SpecQuestion.count({
+    where: { [Op.and]: [questionsWhere(viewer), { specId: specIds, answer: null }] },
+    group: ["specId"],
+  })) as unknown as { specId: string; count: number }[];
+  return new Map(rows.map((r) => [r.specId, Number(r.count)]));
+}
+
 const lockSpec = (specId: string, transaction: Transaction) =>
   Spec.findByPk(specId, { lock: transaction.LOCK.SHARE, transaction, rejectOnEmpty: true });
 

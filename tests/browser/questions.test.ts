@@ -72,8 +72,11 @@ describe("questions on a spec", () => {
     const buyerPage = await app.newPage();
     await signInAs(buyerPage, buyer.email, PASSWORD);
     await buyerPage.waitForURL("**/specs");
-    await buyerPage.goto(`/specs/${spec.id}`);
+    // The waiting question shows where the buyer looks first: the list of specs, then the top of the spec.
+    await buyerPage.getByRole("link", { name: "1 question waiting for your answer" }).click();
+    await buyerPage.waitForURL(`**/specs/${spec.id}#questions`);
     await hydrated(buyerPage);
+    await expect.poll(() => buyerPage.getByText("1 question from shops waits for your answer").count()).toBe(1);
     await expect.poll(() => buyerPage.getByText("Quarry Lane Hydraulics asked").count()).toBe(1);
     await buyerPage.getByLabel("Your answer").fill("Yes; allow 8 m of pressure line along the rail.");
     await buyerPage.getByRole("button", { name: "Publish the answer" }).click();

@@ -262,3 +262,25 @@ describe("who may ask, answer and read", () => {
     expect(await OutboxMail.count()).toBe(before);
   });
 });
+
+describe("questions waiting for the buyer", () => {
+  it("are counted on the buyer's list of specs until answered, and never for a shop's questions it may not see", async () => {
+    const specsPage = await import("~/routes/specs");
+    const owner = await makeMember("buyer");
+    const published = await makePublishedSpec(owner, { machine: { title: "Waiting-question press" } });
+    const shop = await signedIn(await makeMember("shop"));
+    const buyerVisitor = await signedIn(owner);
+    const listed = async () => {
+      const res = await buyerVisitor.get(specsPage.loader, "/specs");
+      expect(res.status).toBe(200);
+      return (res.data.specs as { id: string; waitingQuestions: number }[]).find((s) => s.id === published.id)!;
+    };
+    expect((await listed()).waitingQuestions).toBe(0);
+    expect((await asking(shop, published.id, "Is the cylinder painted?")).status).toBe(302);
+    expect((await asking(shop, published.id, "Which hose fittings?")).status).toBe(302);
+    expect((await listed()).waitingQuestions).toBe(2);
+    const [first] = await SpecQuestion.findAll({ where: { specId: published.id }, order: [["createdAt", "ASC"]] });
+    expect((await answering(buyerVisitor, published.id, first.id, "Yes, RAL 5015.")).status).toBe(302);
+    expect((await listed()).waitingQuestions).toBe(1);
+  });
+});

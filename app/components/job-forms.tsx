@@ -4,7 +4,7 @@ import { Form, useNavigation } from "react-router";
 import { FormErrors, SelectField, SubmitButton, TextAreaField, TextField } from "./form-field";
 import { Card } from "./ui";
 import { MILESTONE_LABELS, type MilestoneKey } from "~/content/job-milestones";
-import { managerNoteSchema, progressNoteSchema, reachSchema, targetSchema, undoSchema } from "~/schemas/jobs";
+import { managerNoteSchema, progressNoteSchema, reachSchema, targetSchema, undoSchema, type JobActionIntent } from "~/schemas/jobs";
 
 // The job page's forms, one per change (intent). Each is judged by its schema here and again by
 // the server; the page passes each form only its own last result.
@@ -18,6 +18,28 @@ const VALIDATE = { shouldValidate: "onBlur", shouldRevalidate: "onInput" } as co
 
 type FormProps = { lastResult: SubmissionResult<string[]> | undefined };
 
+/** The frame every job form shares: a card with its title and lead, the intent it posts, and its form-level errors. */
+function JobFormCard(props: {
+  title: React.ReactNode;
+  lead?: string;
+  intent: JobActionIntent;
+  form: { errorId: string; errors?: string[] };
+  formProps: ReturnType<typeof getFormProps>;
+  children: React.ReactNode;
+}) {
+  return (
+    <Card>
+      <h2 className="mb-1 font-semibold">{props.title}</h2>
+      {props.lead ? <p className="mb-4 text-sm text-ink-600">{props.lead}</p> : null}
+      <Form method="post" {...props.formProps} className={props.lead ? "space-y-4" : "mt-3 space-y-4"}>
+        <input type="hidden" name="intent" value={props.intent} />
+        <FormErrors id={props.form.errorId} errors={props.form.errors} />
+        {props.children}
+      </Form>
+    </Card>
+  );
+}
+
 export function ReachForm({ open, lastResult }: FormProps & { open: MilestoneKey[] }) {
   const [form, fields] = useForm({
     id: "reach",
@@ -27,17 +49,11 @@ export function ReachForm({ open, lastResult }: FormProps & { open: MilestoneKey
     ...VALIDATE,
   });
   return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Record progress</h2>
-      <p className="mb-4 text-sm text-ink-600">Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well.</p>
-      <Form method="post" {...getFormProps(form)} className="space-y-4">
-        <input type="hidden" name="intent" value="reach" />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <SelectField meta={fields.milestone} label="Reached up to and including" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
-        <TextAreaField meta={fields.note} label="Note (optional)" hint="For example: pressure test passed at 1.5 × the relief setting." />
-        <SubmitButton>Record as reached</SubmitButton>
-      </Form>
-    </Card>
+    <JobFormCard title="Record progress" lead="Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well." intent="reach" form={form} formProps={getFormProps(form)}>
+      <SelectField meta={fields.milestone} label="Reached up to and including" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
+      <TextAreaField meta={fields.note} label="Note (optional)" hint="For example: pressure test passed at 1.5 × the relief setting." />
+      <SubmitButton>Record as reached</SubmitButton>
+    </JobFormCard>
   );
 }
 
@@ -50,18 +66,12 @@ export function TargetForm({ open, lastResult }: FormProps & { open: MilestoneKe
     ...VALIDATE,
   });
   return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Move a target date</h2>
-      <p className="mb-4 text-sm text-ink-600">The change and your reason go into the history.</p>
-      <Form method="post" {...getFormProps(form)} className="space-y-4">
-        <input type="hidden" name="intent" value="target" />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <SelectField meta={fields.milestone} label="Milestone" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
-        <TextField meta={fields.targetDate} label="New target date" type="date" />
-        <TextAreaField meta={fields.reason} label="Reason (optional)" hint="For example: the motor arrives two weeks late." />
-        <SubmitButton tone="secondary">Save the date</SubmitButton>
-      </Form>
-    </Card>
+    <JobFormCard title="Move a target date" lead="The change and your reason go into the history." intent="target" form={form} formProps={getFormProps(form)}>
+      <SelectField meta={fields.milestone} label="Milestone" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
+      <TextField meta={fields.targetDate} label="New target date" type="date" />
+      <TextAreaField meta={fields.reason} label="Reason (optional)" hint="For example: the motor arrives two weeks late." />
+      <SubmitButton tone="secondary">Save the date</SubmitButton>
+    </JobFormCard>
   );
 }
 
@@ -73,15 +83,10 @@ export function ProgressNoteForm({ lastResult }: FormProps) {
     ...VALIDATE,
   });
   return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Note for the buyer</h2>
-      <Form method="post" {...getFormProps(form)} className="mt-3 space-y-4">
-        <input type="hidden" name="intent" value="progress-note" />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <TextAreaField meta={fields.body} label="Note" hint="Seen by the buyer and by Tenderflow staff." />
-        <SubmitButton tone="secondary">Add the note</SubmitButton>
-      </Form>
-    </Card>
+    <JobFormCard title="Note for the buyer" intent="progress-note" form={form} formProps={getFormProps(form)}>
+      <TextAreaField meta={fields.body} label="Note" hint="Seen by the buyer and by Tenderflow staff." />
+      <SubmitButton tone="secondary">Add the note</SubmitButton>
+    </JobFormCard>
   );
 }
 
@@ -93,17 +98,11 @@ export function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey 
     ...VALIDATE,
   });
   return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Take back “{MILESTONE_LABELS[last]}”</h2>
-      <p className="mb-4 text-sm text-ink-600">Only the last milestone reached can be taken back. It stays in the history with your reason.</p>
-      <Form method="post" {...getFormProps(form)} className="space-y-4">
-        <input type="hidden" name="intent" value="undo" />
-        <input type="hidden" name="milestone" value={last} />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <TextAreaField meta={fields.reason} label="Reason" hint="For example: the test has to be repeated after a seal change." />
-        <SubmitButton tone="danger">Take it back</SubmitButton>
-      </Form>
-    </Card>
+    <JobFormCard title={<>Take back “{MILESTONE_LABELS[last]}”</>} lead="Only the last milestone reached can be taken back. It stays in the history with your reason." intent="undo" form={form} formProps={getFormProps(form)}>
+      <input type="hidden" name="milestone" value={last} />
+      <TextAreaField meta={fields.reason} label="Reason" hint="For example: the test has to be repeated after a seal change." />
+      <SubmitButton tone="danger">Take it back</SubmitButton>
+    </JobFormCard>
   );
 }
 
@@ -115,15 +114,9 @@ export function ManagerNoteForm({ lastResult }: FormProps) {
     ...VALIDATE,
   });
   return (
-    <Card>
-      <h2 className="mb-1 font-semibold">Internal note</h2>
-      <p className="mb-4 text-sm text-ink-600">Only Tenderflow staff see these notes, never the buyer or the shop.</p>
-      <Form method="post" {...getFormProps(form)} className="space-y-4">
-        <input type="hidden" name="intent" value="manager-note" />
-        <FormErrors id={form.errorId} errors={form.errors} />
-        <TextAreaField meta={fields.body} label="Note" />
-        <SubmitButton tone="secondary">Save the note</SubmitButton>
-      </Form>
-    </Card>
+    <JobFormCard title="Internal note" lead="Only Tenderflow staff see these notes, never the buyer or the shop." intent="manager-note" form={form} formProps={getFormProps(form)}>
+      <TextAreaField meta={fields.body} label="Note" />
+      <SubmitButton tone="secondary">Save the note</SubmitButton>
+    </JobFormCard>
   );
 }

@@ -38,5 +38,7 @@ describe("job forms", () => {
       expect(html).toContain(`name="intent" value="${intent}"`);
       expect(html).toMatch(new RegExp(`<button[^>]*type="submit"[^>]*>${button}</button>`));
     }
+    // Taking back names the milestone the shop saw as last, so a stale page can't take back another.
+    expect(render(<UndoForm last="drawings_agreed" lastResult={undefined} />)).toContain('name="milestone" value="drawings_agreed"');
   });
 });

@@ -1,4 +1,5 @@
 import { getInputProps, getSelectProps, getTextareaProps, type FieldMetadata } from "@conform-to/react";
+import { useState } from "react";
 import { useNavigation } from "react-router";
 import { Button } from "./ui";
 
@@ -62,11 +63,26 @@ export function TextField({
   );
 }
 
-export function TextAreaField({ meta, label, hint, rows = 3, ...rest }: BaseProps & { meta: Meta } & Omit<React.TextareaHTMLAttributes<HTMLTextAreaElement>, "form">) {
+export function TextAreaField({ meta, label, hint, rows = 3, maxLength, ...rest }: BaseProps & { meta: Meta } & Omit<React.TextareaHTMLAttributes<HTMLTextAreaElement>, "form">) {
   const props = getTextareaProps(meta, { ariaDescribedBy: hint ? meta.descriptionId : undefined });
+  const [length, setLength] = useState(() => String(meta.initialValue ?? "").length);
   return (
     <Labelled meta={meta} label={label} hint={hint}>
-      <textarea {...props} key={props.key} rows={rows} {...rest} className={inputClass} />
+      <textarea
+        {...props}
+        key={props.key}
+        rows={rows}
+        maxLength={maxLength}
+        {...rest}
+        onInput={(event) => setLength(event.currentTarget.value.length)}
+        className={inputClass}
+      />
+      {/* How much room is left, said plainly; screen readers hear it once the box is left, not on every key. */}
+      {maxLength ? (
+        <p className={`mt-0.5 text-right text-xs ${length > maxLength * 0.9 ? "font-semibold text-signal-700" : "text-ink-400"}`} data-counter="">
+          {length.toLocaleString("en-GB")} of {maxLength.toLocaleString("en-GB")} characters
+        </p>
+      ) : null}
     </Labelled>
   );
 }

@@ -102,7 +102,7 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
               <tbody>
                 {specs.map((s) => (
                   <tr key={s.id} className="border-t border-ink-100">
-                    <td className="py-2">
+                    <td className="max-w-[24rem] py-2 pr-4 [overflow-wrap:anywhere]">
                       <Link to={s.status === "draft" ? `/specs/${s.id}/edit` : `/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">
                         {s.title || "Untitled draft"}
                       </Link>

@@ -54,5 +54,7 @@ describe("SpecStepForm", () => {
     expect(quotation).toContain("At most 80 characters.");
     expect(quotation).toContain('maxLength="4000"');
     expect(render({ step: "machine" })).toContain("At most 120 characters.");
+    // A text area counts what is typed against its limit, starting from the saved answer.
+    expect(render({ step: "machine", stepAnswers: { purpose: "Presses veneer" } })).toContain("14 of 2,000 characters");
   });
 });

@@ -1,5 +1,6 @@
-import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
+import { getFormProps, useForm, type DefaultValue, type SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
+import type { z } from "zod";
 import { Form, useNavigation } from "react-router";
 import { FormErrors, SelectField, SubmitButton, TextAreaField, TextField } from "./form-field";
 import { Card } from "./ui";
@@ -14,7 +15,17 @@ function useIdleResult(lastResult: SubmissionResult<string[]> | undefined) {
   return useNavigation().state === "idle" ? lastResult : null;
 }
 
-const VALIDATE = { shouldValidate: "onBlur", shouldRevalidate: "onInput" } as const;
+/** A job form's Conform state: judged by its schema as the person types, named by its intent. */
+function useJobForm<Schema extends z.ZodObject>(intent: JobActionIntent, schema: Schema, lastResult: SubmissionResult<string[]> | undefined, defaultValue?: DefaultValue<z.input<Schema>>) {
+  return useForm<z.input<Schema>, z.output<Schema>>({
+    id: intent,
+    lastResult: useIdleResult(lastResult),
+    defaultValue,
+    onValidate: ({ formData }) => parseWithZod(formData, { schema }),
+    shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
+  });
+}
 
 type FormProps = { lastResult: SubmissionResult<string[]> | undefined };
 
@@ -41,13 +52,7 @@ function JobFormCard(props: {
 }
 
 export function ReachForm({ open, lastResult }: FormProps & { open: MilestoneKey[] }) {
-  const [form, fields] = useForm({
-    id: "reach",
-    lastResult: useIdleResult(lastResult),
-    defaultValue: { milestone: open[0] },
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: reachSchema }),
-    ...VALIDATE,
-  });
+  const [form, fields] = useJobForm("reach", reachSchema, lastResult, { milestone: open[0] });
   return (
     <JobFormCard title="Record progress" lead="Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well." intent="reach" form={form} formProps={getFormProps(form)}>
       <SelectField meta={fields.milestone} label="Reached up to and including" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
@@ -58,13 +63,7 @@ export function ReachForm({ open, lastResult }: FormProps & { open: MilestoneKey
 }
 
 export function TargetForm({ open, lastResult }: FormProps & { open: MilestoneKey[] }) {
-  const [form, fields] = useForm({
-    id: "target",
-    lastResult: useIdleResult(lastResult),
-    defaultValue: { milestone: open[0] },
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: targetSchema }),
-    ...VALIDATE,
-  });
+  const [form, fields] = useJobForm("target", targetSchema, lastResult, { milestone: open[0] });
   return (
     <JobFormCard title="Move a target date" lead="The change and your reason go into the history." intent="target" form={form} formProps={getFormProps(form)}>
       <SelectField meta={fields.milestone} label="Milestone" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
@@ -76,12 +75,7 @@ export function TargetForm({ open, lastResult }: FormProps & { open: MilestoneKe
 }
 
 export function ProgressNoteForm({ lastResult }: FormProps) {
-  const [form, fields] = useForm({
-    id: "progress-note",
-    lastResult: useIdleResult(lastResult),
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: progressNoteSchema }),
-    ...VALIDATE,
-  });
+  const [form, fields] = useJobForm("progress-note", progressNoteSchema, lastResult);
   return (
     <JobFormCard title="Note for the buyer" intent="progress-note" form={form} formProps={getFormProps(form)}>
       <TextAreaField meta={fields.body} label="Note" hint="Seen by the buyer and by Tenderflow staff." />
@@ -91,12 +85,7 @@ export function ProgressNoteForm({ lastResult }: FormProps) {
 }
 
 export function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey }) {
-  const [form, fields] = useForm({
-    id: "undo",
-    lastResult: useIdleResult(lastResult),
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: undoSchema }),
-    ...VALIDATE,
-  });
+  const [form, fields] = useJobForm("undo", undoSchema, lastResult);
   return (
     <JobFormCard title={<>Take back “{MILESTONE_LABELS[last]}”</>} lead="Only the last milestone reached can be taken back. It stays in the history with your reason." intent="undo" form={form} formProps={getFormProps(form)}>
       <input type="hidden" name="milestone" value={last} />
@@ -107,12 +96,7 @@ export function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey 
 }
 
 export function ManagerNoteForm({ lastResult }: FormProps) {
-  const [form, fields] = useForm({
-    id: "manager-note",
-    lastResult: useIdleResult(lastResult),
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: managerNoteSchema }),
-    ...VALIDATE,
-  });
+  const [form, fields] = useJobForm("manager-note", managerNoteSchema, lastResult);
   return (
     <JobFormCard title="Internal note" lead="Only Tenderflow staff see these notes, never the buyer or the shop." intent="manager-note" form={form} formProps={getFormProps(form)}>
       <TextAreaField meta={fields.body} label="Note" />

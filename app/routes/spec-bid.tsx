@@ -1,4 +1,5 @@
 import { getFormProps, getInputProps, getTextareaProps, useForm } from "@conform-to/react";
+import { Fragment } from "react";
 import { formatDay, formatMoment } from "~/content/dates";
 import { takesBids } from "~/content/spec-status";
 import { parseWithZod } from "@conform-to/zod/v4";
@@ -188,7 +189,8 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                     const isAlternative = typed[i]?.alternative === "on";
                     const c = cents[i];
                     return (
-                      <tr key={line.key} className="border-t border-ink-100 align-top">
+                      <Fragment key={line.key}>
+                      <tr className="border-t border-ink-100 align-top">
                         <td className="py-2 pr-3">
                           <input {...getInputProps(f.key, { type: "hidden" })} key={f.key.key} />
                           <label htmlFor={f.unitPrice.id} className="font-semibold text-ink-900">{bill.item}</label>
@@ -211,23 +213,28 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                             <input {...getInputProps(f.alternative, { type: "checkbox" })} key={f.alternative.key} />
                             <span>Alternative</span>
                           </label>
-                          {isAlternative ? (
-                            <>
-                              <label htmlFor={f.alternativeDescription.id} className="sr-only">What you offer instead of {bill.item}</label>
-                              <textarea
-                                {...getTextareaProps(f.alternativeDescription)}
-                                key={f.alternativeDescription.key}
-                                rows={2}
-                                placeholder="Make, model and why"
-                                className="mt-1 block w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
-                              />
-                              <FieldErrorText id={f.alternativeDescription.errorId} errors={f.alternativeDescription.errors} />
-                            </>
-                          ) : (
-                            <input type="hidden" name={f.alternativeDescription.name} value="" />
-                          )}
+                          {isAlternative ? null : <input type="hidden" name={f.alternativeDescription.name} value="" />}
                         </td>
                       </tr>
+                      {/* The alternative is described across the whole table, under its line, not squeezed into the last column. */}
+                      {isAlternative ? (
+                        <tr className="align-top">
+                          <td colSpan={5} className="pb-3">
+                            <label htmlFor={f.alternativeDescription.id} className="block text-xs font-semibold text-ink-700">
+                              What you offer instead of {bill.item}
+                            </label>
+                            <textarea
+                              {...getTextareaProps(f.alternativeDescription)}
+                              key={f.alternativeDescription.key}
+                              rows={2}
+                              placeholder="Make, model and why"
+                              className="mt-1 block w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
+                            />
+                            <FieldErrorText id={f.alternativeDescription.errorId} errors={f.alternativeDescription.errors} />
+                          </td>
+                        </tr>
+                      ) : null}
+                      </Fragment>
                     );
                   })}
                 </tbody>

@@ -18,7 +18,12 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3).default("Tenderflow <no-reply@tenderflow.test>"),
   BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(10),
   /** A session ends after this long without a request, and in any case this many days after sign-in. */
-  SESSION_IDLE_MINUTES: z.coerce.number().int().min(5).max(7 * 24 * 60).default(120),
+  SESSION_IDLE_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(5)
+    .max(7 * 24 * 60)
+    .default(120),
   SESSION_MAX_DAYS: z.coerce.number().int().min(1).max(90).default(14),
   /** Live sizing sends a request per pause in typing; this allows brisk typing, not scraping. */
   SIZING_REQUESTS_PER_MINUTE: z.coerce.number().int().positive().default(240),

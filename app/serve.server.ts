@@ -24,7 +24,10 @@ const host = process.env.HOST ?? "127.0.0.1";
  */
 function trustedProxies(value = process.env.TRUSTED_PROXIES?.trim()): string[] | false {
   if (!value) return false;
-  return value.split(",").map((v) => v.trim()).filter(Boolean);
+  return value
+    .split(",")
+    .map((v) => v.trim())
+    .filter(Boolean);
 }
 
 const build = (await import(pathToFileURL(buildPath).href)) as ServerBuild;

@@ -30,9 +30,7 @@ export function ensurePostgresBinaries(): string {
   let bin = findBinDir();
   if (bin) return bin;
   if (!isRoot) {
-    throw new Error(
-      "PostgreSQL's server is not installed. Run:\n  sudo apt-get update && sudo apt-get install -y postgresql\nthen try again.",
-    );
+    throw new Error("PostgreSQL's server is not installed. Run:\n  sudo apt-get update && sudo apt-get install -y postgresql\nthen try again.");
   }
   console.log("Installing PostgreSQL from Debian's packages (apt-get install -y postgresql)…");
   const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };

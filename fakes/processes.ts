@@ -25,9 +25,7 @@ export function run(command: string, args: string[], env: NodeJS.ProcessEnv = pr
     child.stdout?.on("data", (d) => (output += d));
     child.stderr?.on("data", (d) => (output += d));
     child.on("error", reject);
-    child.on("exit", (code) =>
-      code === 0 ? resolve() : reject(new Error(`${command} ${args.join(" ")} exited with ${code}\n${output}`)),
-    );
+    child.on("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${command} ${args.join(" ")} exited with ${code}\n${output}`))));
   });
 }
 

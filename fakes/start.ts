@@ -73,8 +73,23 @@ async function main() {
   step(`Starting the Stripe fake (API and payment page http://127.0.0.1:${STRIPE_PORT})`);
   const stripeWebhookSecret = `whsec_${localSecret("stripe-webhook-secret")}`;
   const stripeFake = await startStripeFake({ port: STRIPE_PORT, webhookUrl: `${appUrl}/webhooks/stripe`, webhookSecret: stripeWebhookSecret });
-  for (const p of paidRetainers as { payment_intent_id: string; amount_cents: string; refunded_cents: string; currency: string; customer_id: string | null; id: string; job_id: string }[]) {
-    stripeFake.restorePaid({ paymentIntentId: p.payment_intent_id, amount: Number(p.amount_cents), amountRefunded: Number(p.refunded_cents), currency: p.currency, customer: p.customer_id, metadata: { payment_id: p.id, job_id: p.job_id } });
+  for (const p of paidRetainers as {
+    payment_intent_id: string;
+    amount_cents: string;
+    refunded_cents: string;
+    currency: string;
+    customer_id: string | null;
+    id: string;
+    job_id: string;
+  }[]) {
+    stripeFake.restorePaid({
+      paymentIntentId: p.payment_intent_id,
+      amount: Number(p.amount_cents),
+      amountRefunded: Number(p.refunded_cents),
+      currency: p.currency,
+      customer: p.customer_id,
+      metadata: { payment_id: p.id, job_id: p.job_id },
+    });
   }
 
   const env = {

@@ -47,13 +47,28 @@ const readingShop = (viewer: Viewer, spec: SpecFacts) => viewer.role === "shop" 
 /** Every action a person takes on a record, with who may take it. */
 const POLICY = {
   // Jobs
-  "job.recordProgress": rule<JobParties>((v, job) => v.role === "shop" && v.organisationId === job.shopOrganisationId, forbid("Only the shop building this job records its progress.")),
-  "job.writeManagerNote": rule<JobParties>((v, job) => staffOf(v, job.buyerOrganisationId), forbid("Only account managers and administrators write internal notes.")),
-  "job.readInternalNotes": rule<JobParties>((v, job) => staffOf(v, job.buyerOrganisationId), forbid("Internal notes are for account managers and administrators.")),
-  "job.seePayments": rule<JobParties>((v, job) => buyerOf(v, job.buyerOrganisationId) || staffOf(v, job.buyerOrganisationId), forbid("Payments are the buyer's and Tenderflow's business.")),
+  "job.recordProgress": rule<JobParties>(
+    (v, job) => v.role === "shop" && v.organisationId === job.shopOrganisationId,
+    forbid("Only the shop building this job records its progress."),
+  ),
+  "job.writeManagerNote": rule<JobParties>(
+    (v, job) => staffOf(v, job.buyerOrganisationId),
+    forbid("Only account managers and administrators write internal notes."),
+  ),
+  "job.readInternalNotes": rule<JobParties>(
+    (v, job) => staffOf(v, job.buyerOrganisationId),
+    forbid("Internal notes are for account managers and administrators."),
+  ),
+  "job.seePayments": rule<JobParties>(
+    (v, job) => buyerOf(v, job.buyerOrganisationId) || staffOf(v, job.buyerOrganisationId),
+    forbid("Payments are the buyer's and Tenderflow's business."),
+  ),
   "job.payRetainer": rule<JobParties>((v, job) => buyerOf(v, job.buyerOrganisationId), forbid("Only the buyer pays the retainer.")),
   // Payments
-  "payment.refund": rule<PaymentParties>((v, payment) => staffOf(v, payment.buyerOrganisationId), forbid("Only account managers and administrators pay back retainers.")),
+  "payment.refund": rule<PaymentParties>(
+    (v, payment) => staffOf(v, payment.buyerOrganisationId),
+    forbid("Only account managers and administrators pay back retainers."),
+  ),
   // Specs: the buyer's side
   "spec.edit": rule<SpecFacts>((v, spec) => buyerOf(v, spec.organisationId), NO_SPEC),
   "spec.compareBids": rule<SpecFacts>((v, spec) => buyerOf(v, spec.organisationId), NO_SPEC),
@@ -64,7 +79,10 @@ const POLICY = {
   "spec.bid": rule<SpecFacts>(readingShop, NO_SPEC),
   "spec.askQuestion": rule<SpecFacts>(readingShop, NO_SPEC),
   // The buyer is named to its own people and its account's staff, never to a shop.
-  "spec.seeBuyerName": rule<SpecFacts>((v, spec) => v.organisationId === spec.organisationId || staffOf(v, spec.organisationId), forbid("The buyer is not named to shops.")),
+  "spec.seeBuyerName": rule<SpecFacts>(
+    (v, spec) => v.organisationId === spec.organisationId || staffOf(v, spec.organisationId),
+    forbid("The buyer is not named to shops."),
+  ),
   // Organisations
   "shop.decide": rule<OrganisationFacts>((v, org) => v.role === "admin" && org.kind === "shop", forbid("Only administrators approve shops.")),
   "team.invite": rule<OrganisationFacts>((v, org) => v.organisationId === org.id && (org.kind !== "operator" || v.role === "admin"), forbid()),

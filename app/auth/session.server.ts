@@ -30,10 +30,7 @@ const TOKEN = /^[\w-]{43}$/;
 const live = () => ({
   revokedAt: null,
   expiresAt: { [Op.gt]: Sequelize.fn("now") },
-  [Op.or]: [
-    { userId: null },
-    { lastSeenAt: { [Op.gt]: Sequelize.literal(`now() - interval '${env().SESSION_IDLE_MINUTES} minutes'`) } },
-  ],
+  [Op.or]: [{ userId: null }, { lastSeenAt: { [Op.gt]: Sequelize.literal(`now() - interval '${env().SESSION_IDLE_MINUTES} minutes'`) } }],
 });
 
 function split(data: Record<string, unknown>) {

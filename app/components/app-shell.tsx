@@ -34,7 +34,9 @@ export function AppShell({ user, toast, children }: { user: ShellUser | null; to
           {/* Phones and tablets: one button opens the menu (a disclosure, so it works without JavaScript too). */}
           <details key={pathname} className="group ml-auto lg:hidden">
             <summary className="flex cursor-pointer list-none items-center gap-2 rounded-md px-3 py-1.5 text-sm font-semibold text-ink-100 ring-1 ring-ink-600 hover:bg-ink-800 [&::-webkit-details-marker]:hidden">
-              <span aria-hidden="true" className="text-base leading-none">{"\u2630"}</span>
+              <span aria-hidden="true" className="text-base leading-none">
+                {"\u2630"}
+              </span>
               Menu
             </summary>
             <div className="absolute inset-x-0 top-14 z-30 border-t border-ink-700 bg-ink-900 px-4 pb-4 pt-2 shadow-lg">
@@ -101,9 +103,7 @@ function Account({ user }: { user: ShellUser | null }) {
         </span>
       </Link>
       <Form method="post" action="/sign-out">
-        <button className="rounded-md px-3 py-1.5 font-semibold text-ink-200 ring-1 ring-ink-600 hover:bg-ink-800 hover:text-white">
-          Sign out
-        </button>
+        <button className="rounded-md px-3 py-1.5 font-semibold text-ink-200 ring-1 ring-ink-600 hover:bg-ink-800 hover:text-white">Sign out</button>
       </Form>
     </div>
   );

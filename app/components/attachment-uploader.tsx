@@ -94,9 +94,7 @@ export function AttachmentUploader({ specId, attachments, limits }: Props) {
       const form = new FormData();
       form.set("intent", "upload");
       form.append("files", file);
-      const answer = await send(url, form, (loaded, total) =>
-        setPending((list) => list.map((p) => (p.key === key ? { ...p, loaded, total } : p))),
-      );
+      const answer = await send(url, form, (loaded, total) => setPending((list) => list.map((p) => (p.key === key ? { ...p, loaded, total } : p))));
       setPending((list) => list.filter((p) => p.key !== key));
       if (!answer) found.push({ fileName: file.name, message: NO_ANSWER });
       else {
@@ -147,8 +145,8 @@ export function AttachmentUploader({ specId, attachments, limits }: Props) {
           Drawings and photos
         </label>
         <p id={hintId} className="mt-1 text-sm text-ink-600">
-          {ACCEPTED_KINDS_TEXT}, up to {formatBytes(limits.maxFileBytes)} each and {limits.maxFilesPerSpec} per spec. For example a
-          layout drawing of the machine or a photo of where the cylinder mounts. Shops see them once you publish.
+          {ACCEPTED_KINDS_TEXT}, up to {formatBytes(limits.maxFileBytes)} each and {limits.maxFilesPerSpec} per spec. For example a layout drawing of the
+          machine or a photo of where the cylinder mounts. Shops see them once you publish.
         </p>
         <div className="mt-2 flex flex-wrap items-center gap-3">
           <input

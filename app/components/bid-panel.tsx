@@ -31,7 +31,11 @@ export function BidPanel({
         {ownBid ? (
           <>
             <Badge tone={BID_STATUS_TONES[ownBid.status]}>{BID_STATUS_LABELS[ownBid.status]}</Badge>
-            {ownBid.version > 0 ? <span className="tabular-nums">{formatMoney(ownBid.totalCents, currency)} (offer {ownBid.version})</span> : null}
+            {ownBid.version > 0 ? (
+              <span className="tabular-nums">
+                {formatMoney(ownBid.totalCents, currency)} (offer {ownBid.version})
+              </span>
+            ) : null}
             {ownBid.specRevision < latestRevision ? <Badge tone="warn">Made on revision {ownBid.specRevision}</Badge> : null}
           </>
         ) : (

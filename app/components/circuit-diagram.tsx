@@ -4,14 +4,50 @@ import type { UnitSystem } from "~/units/systems";
 import { centreName, circuitDescription, circuitTitle, numberValue, textValue } from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
 import {
-  BOX, CBV_HALF_W, DECOMPRESSION_STUB, DIAMOND, FC_HALF_W, GAUGE_R, MOTOR_R, POC_HALF_W, PUMP_R, REGEN_BOX, RELIEF_BOX, SWITCH_HALF, TANK_H, VENT_BOX,
-  layoutCircuit, type Layout,
+  BOX,
+  CBV_HALF_W,
+  DECOMPRESSION_STUB,
+  DIAMOND,
+  FC_HALF_W,
+  GAUGE_R,
+  MOTOR_R,
+  POC_HALF_W,
+  PUMP_R,
+  REGEN_BOX,
+  RELIEF_BOX,
+  SWITCH_HALF,
+  TANK_H,
+  VENT_BOX,
+  layoutCircuit,
+  type Layout,
 } from "./circuit-diagram/layout";
 import { junctions, pathData, routeConnections, type Route } from "./circuit-diagram/routes";
 import {
-  COMPENSATOR_W, Caption, CbvSymbol, CheckSymbol, CoolerSymbol, CylinderSymbol, DASH, DcvSymbol, DecompressionSymbol, FilterSymbol,
-  FlowControlSymbol, GaugeSymbol, LimitSwitchSymbol, MotorSymbol, PocSymbol, PortLabel, PressureSwitchSymbol, PumpSymbol, RegenValveSymbol,
-  ReliefSymbol, STROKE, SolenoidValve22, TankSymbol, UnloadingSymbol, VentValveSymbol,
+  COMPENSATOR_W,
+  Caption,
+  CbvSymbol,
+  CheckSymbol,
+  CoolerSymbol,
+  CylinderSymbol,
+  DASH,
+  DcvSymbol,
+  DecompressionSymbol,
+  FilterSymbol,
+  FlowControlSymbol,
+  GaugeSymbol,
+  LimitSwitchSymbol,
+  MotorSymbol,
+  PocSymbol,
+  PortLabel,
+  PressureSwitchSymbol,
+  PumpSymbol,
+  RegenValveSymbol,
+  ReliefSymbol,
+  STROKE,
+  SolenoidValve22,
+  TankSymbol,
+  UnloadingSymbol,
+  VentValveSymbol,
 } from "./circuit-diagram/symbols";
 
 /**
@@ -43,16 +79,20 @@ export function CircuitDiagram({ design, units = "metric", className = "" }: { d
       <rect x={0} y={0} width={layout.width} height={layout.height} fill="white" />
       <Legend />
       <g data-layer="lines">
-        {routes.map((r) => <Line key={`${r.connection.from}>${r.connection.to}`} route={r} />)}
-        {junctions(routes).map((p) => <circle key={`${p.x},${p.y}`} cx={p.x} cy={p.y} r={3} fill="currentColor" data-junction="" />)}
+        {routes.map((r) => (
+          <Line key={`${r.connection.from}>${r.connection.to}`} route={r} />
+        ))}
+        {junctions(routes).map((p) => (
+          <circle key={`${p.x},${p.y}`} cx={p.x} cy={p.y} r={3} fill="currentColor" data-junction="" />
+        ))}
       </g>
       <g data-layer="tanks">
-        {routes.map((r) =>
-          r.tank ? <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={r.tank.id} x={r.tank.x} top={r.tank.top} /> : null,
-        )}
+        {routes.map((r) => (r.tank ? <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={r.tank.id} x={r.tank.x} top={r.tank.top} /> : null))}
       </g>
       <g data-layer="symbols">
-        {circuit.components.map((c) => <ComponentSymbol key={c.id} component={c} layout={layout} design={design} u={u} />)}
+        {circuit.components.map((c) => (
+          <ComponentSymbol key={c.id} component={c} layout={layout} design={design} u={u} />
+        ))}
       </g>
     </svg>
   );
@@ -75,8 +115,15 @@ function Line({ route }: { route: Route }) {
   return (
     <>
       <path
-        d={d} fill="none" stroke="currentColor" strokeWidth={style.width} strokeDasharray={style.dash}
-        strokeLinejoin="round" data-from={connection.from} data-to={connection.to} data-line={connection.line}
+        d={d}
+        fill="none"
+        stroke="currentColor"
+        strokeWidth={style.width}
+        strokeDasharray={style.dash}
+        strokeLinejoin="round"
+        data-from={connection.from}
+        data-to={connection.to}
+        data-line={connection.line}
       />
       {/* a shaft is a double line: a white core inside a wide stroke */}
       {connection.line === "shaft" ? <path d={d} fill="none" stroke="white" strokeWidth={2.4} aria-hidden="true" /> : null}
@@ -100,7 +147,9 @@ function Legend() {
           <g key={row.label}>
             <line x1={20} y1={y} x2={56} y2={y} stroke="currentColor" strokeWidth={style.width} strokeDasharray={style.dash} />
             {row.line === "shaft" ? <line x1={20} y1={y} x2={56} y2={y} stroke="white" strokeWidth={2.4} /> : null}
-            <text x={64} y={y + 3.5} fill="currentColor" className="fill-ink-600">{row.label}</text>
+            <text x={64} y={y + 3.5} fill="currentColor" className="fill-ink-600">
+              {row.label}
+            </text>
           </g>
         );
       })}
@@ -122,11 +171,12 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       const rod = numberValue(c, "rodMm");
       const stroke = numberValue(c, "strokeMm");
       // Metric: "Ø80 / Ø36 × 400 mm"; US: the metric bore and rod with inches beside, the stroke in inches.
-      const size = bore === undefined || rod === undefined
-        ? []
-        : u.system === "us"
-          ? [u.boreRod(bore, rod), ...(stroke !== undefined ? [`stroke ${u.length(stroke)}`] : [])]
-          : [`Ø${u.lengthValue(bore)} / Ø${u.lengthValue(rod)}${stroke !== undefined ? ` × ${u.lengthValue(stroke)}` : ""} ${u.lengthUnit}`];
+      const size =
+        bore === undefined || rod === undefined
+          ? []
+          : u.system === "us"
+            ? [u.boreRod(bore, rod), ...(stroke !== undefined ? [`stroke ${u.length(stroke)}`] : [])]
+            : [`Ø${u.lengthValue(bore)} / Ø${u.lengthValue(rod)}${stroke !== undefined ? ` × ${u.lengthValue(stroke)}` : ""} ${u.lengthUnit}`];
       return (
         <>
           <CylinderSymbol id={c.id} place={cyl} />
@@ -141,7 +191,9 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <CbvSymbol id={c.id} centre={at} pilotSide={pilotSide} />
           <Caption
-            x={captionLeft ? at.x - CBV_HALF_W - 12 : at.x + CBV_HALF_W + 12} y={at.y - 20} anchor={captionLeft ? "end" : "start"}
+            x={captionLeft ? at.x - CBV_HALF_W - 12 : at.x + CBV_HALF_W + 12}
+            y={at.y - 20}
+            anchor={captionLeft ? "end" : "start"}
             name="Counterbalance valve"
             values={[...v("settingBar", (p) => `set ${u.pressure(p)}`), ...v("pilotRatio", (r) => `pilot ratio ${r}:1`)]}
           />
@@ -155,7 +207,9 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <DcvSymbol id={c.id} cx={layout.dcv.cx} top={layout.dcv.top} positions={design.circuit.dcvPositions} />
           <Caption
-            x={layout.dcv.cx + BOX * 1.5 + 44} y={layout.dcv.top + 16} name="4/3 directional valve"
+            x={layout.dcv.cx + BOX * 1.5 + 44}
+            y={layout.dcv.top + 16}
+            name="4/3 directional valve"
             values={[size ? `ISO 4401-${size}` : "", centreName(textValue(c, "center")), coil ? `${coil} coils` : ""].filter(Boolean)}
           />
         </>
@@ -168,7 +222,10 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <ReliefSymbol id={c.id} centre={at} vented={vented} />
           <Caption
-            x={at.x - RELIEF_BOX / 2 - 22} y={vented ? at.y - 14 : at.y - 6} anchor="end" name={vented ? "Relief valve, vented" : "Relief valve"}
+            x={at.x - RELIEF_BOX / 2 - 22}
+            y={vented ? at.y - 14 : at.y - 6}
+            anchor="end"
+            name={vented ? "Relief valve, vented" : "Relief valve"}
             values={v("settingBar", (p) => `set ${u.pressure(p)}`)}
           />
         </>
@@ -180,7 +237,10 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <VentValveSymbol id={c.id} centre={at} />
           <Caption
-            x={at.x - 8} y={at.y + VENT_BOX / 2 + 18} anchor="end" name="Vent valve"
+            x={at.x - 8}
+            y={at.y + VENT_BOX / 2 + 18}
+            anchor="end"
+            name="Vent valve"
             values={["2/2, normally open", ...v("ventPressureBar", (p) => `vents at ${u.pressure(p)}`), ...(coil ? [`${coil} coil`] : [])]}
           />
         </>
@@ -196,7 +256,9 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <PocSymbol id={c.id} centre={at} pilotSide={side} pilotY={layout.ports[`${c.id}.X`]?.y} />
           <Caption
-            x={captionLeft ? at.x - POC_HALF_W - 14 : at.x + POC_HALF_W + 14} y={at.y - 12} anchor={captionLeft ? "end" : "start"}
+            x={captionLeft ? at.x - POC_HALF_W - 14 : at.x + POC_HALF_W + 14}
+            y={at.y - 12}
+            anchor={captionLeft ? "end" : "start"}
             name="Pilot-operated check"
             values={["holds the load leak-tight", ...v("pilotRatio", (r) => `pilot ratio ${r}:1`)]}
           />
@@ -208,9 +270,13 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <FlowControlSymbol id={c.id} centre={at} compensated={textValue(c, "compensated") === "yes"} />
           <Caption
-            x={at.x + FC_HALF_W + 12} y={at.y - 8} name="Pressing-speed control"
+            x={at.x + FC_HALF_W + 12}
+            y={at.y - 8}
+            name="Pressing-speed control"
             values={[
-              textValue(c, "compensated") === "yes" ? "meter-in, compensated" : "meter-in", "free return", ...v("settingLpm", (q) => `set ${u.flow(q)}`),
+              textValue(c, "compensated") === "yes" ? "meter-in, compensated" : "meter-in",
+              "free return",
+              ...v("settingLpm", (q) => `set ${u.flow(q)}`),
             ]}
           />
         </>
@@ -218,11 +284,26 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
     case "bypass":
       return (
         <>
-          <SolenoidValve22 id={c.id} kind="bypass" centre={at} ports="vertical" normally={textValue(c, "normally") === "open" ? "open" : "closed"} portNames={["1", "2"]} flowFrom="2" />
-          <PortLabel x={at.x + 5} y={at.y - VENT_BOX / 2 - 5} anchor="start" port={`${c.id}.1`}>1</PortLabel>
-          <PortLabel x={at.x + 5} y={at.y + VENT_BOX / 2 + 13} anchor="start" port={`${c.id}.2`}>2</PortLabel>
+          <SolenoidValve22
+            id={c.id}
+            kind="bypass"
+            centre={at}
+            ports="vertical"
+            normally={textValue(c, "normally") === "open" ? "open" : "closed"}
+            portNames={["1", "2"]}
+            flowFrom="2"
+          />
+          <PortLabel x={at.x + 5} y={at.y - VENT_BOX / 2 - 5} anchor="start" port={`${c.id}.1`}>
+            1
+          </PortLabel>
+          <PortLabel x={at.x + 5} y={at.y + VENT_BOX / 2 + 13} anchor="start" port={`${c.id}.2`}>
+            2
+          </PortLabel>
           <Caption
-            x={at.x - VENT_BOX * 1.5 - 24} y={at.y - 8} anchor="end" name="Bypass valve"
+            x={at.x - VENT_BOX * 1.5 - 24}
+            y={at.y - 8}
+            anchor="end"
+            name="Bypass valve"
             values={[`2/2, normally ${textValue(c, "normally") === "open" ? "open" : "closed"}`, "open for the approach"]}
           />
         </>
@@ -234,14 +315,23 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       const port3Side = layout.pilotSide[c.id] ?? "left";
       // how long it stays energised: to the pressure switch's setting, the limit switch, or the whole extension
       const endsBy = textValue(c, "endsBy");
-      const until = numberValue(c, "switchBar") !== undefined ? [`until ${u.pressure(numberValue(c, "switchBar")!)}`]
-        : endsBy === "limit-switch" ? ["until the limit switch"] : endsBy === "end-of-extension" ? ["for the whole extension"] : [];
+      const until =
+        numberValue(c, "switchBar") !== undefined
+          ? [`until ${u.pressure(numberValue(c, "switchBar")!)}`]
+          : endsBy === "limit-switch"
+            ? ["until the limit switch"]
+            : endsBy === "end-of-extension"
+              ? ["for the whole extension"]
+              : [];
       return (
         <>
           <RegenValveSymbol id={c.id} centre={at} port3Side={port3Side} positions={positions} />
           <Caption
-            x={port3Side === "left" ? at.x + REGEN_BOX / 4 + 30 : at.x - REGEN_BOX / 4 - 30} y={at.y - 8} anchor={port3Side === "left" ? "start" : "end"}
-            name="Regeneration valve" values={["3/2; energised, the rod end", "feeds the cap line", ...until]}
+            x={port3Side === "left" ? at.x + REGEN_BOX / 4 + 30 : at.x - REGEN_BOX / 4 - 30}
+            y={at.y - 8}
+            anchor={port3Side === "left" ? "start" : "end"}
+            name="Regeneration valve"
+            values={["3/2; energised, the rod end", "feeds the cap line", ...until]}
           />
         </>
       );
@@ -251,7 +341,10 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <PressureSwitchSymbol id={c.id} centre={at} />
           <Caption
-            x={at.x - SWITCH_HALF - 30} y={at.y - 4} anchor="end" name="Pressure switch"
+            x={at.x - SWITCH_HALF - 30}
+            y={at.y - 4}
+            anchor="end"
+            name="Pressure switch"
             values={[...v("settingBar", (p) => `set ${u.pressure(p)}`), "ends the regeneration"]}
           />
         </>
@@ -262,7 +355,10 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <LimitSwitchSymbol id={c.id} at={at} rodEnd={layout.cylinder.rodEnd} />
           <Caption
-            x={layout.width - 12} y={28} anchor="end" name="Limit switch"
+            x={layout.width - 12}
+            y={28}
+            anchor="end"
+            name="Limit switch"
             values={[
               ...v("beforeEndMm", (mm) => `${u.length(mm)} before the end`),
               ...(off.includes("press-bypass") ? ["closes the bypass"] : []),
@@ -277,7 +373,10 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <DecompressionSymbol id={c.id} centre={at} />
           <Caption
-            x={at.x - VENT_BOX / 2 - DECOMPRESSION_STUB - 28} y={at.y - 26} anchor="end" name="Decompression valve"
+            x={at.x - VENT_BOX / 2 - DECOMPRESSION_STUB - 28}
+            y={at.y - 26}
+            anchor="end"
+            name="Decompression valve"
             values={["2/2, orifice to tank", ...v("releaseCm3", (cm3) => `releases about ${u.smallVolume(cm3)}`)]}
           />
         </>
@@ -286,10 +385,7 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       return (
         <>
           <UnloadingSymbol id={c.id} centre={at} />
-          <Caption
-            x={at.x + 12} y={at.y - RELIEF_BOX / 2 - 48} name="Unloading valve"
-            values={v("settingBar", (p) => `unloads above ${u.pressure(p)}`)}
-          />
+          <Caption x={at.x + 12} y={at.y - RELIEF_BOX / 2 - 48} name="Unloading valve" values={v("settingBar", (p) => `unloads above ${u.pressure(p)}`)} />
         </>
       );
     case "check":
@@ -311,7 +407,10 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <MotorSymbol id={c.id} centre={at} />
           <Caption
-            x={at.x - MOTOR_R - 12} y={at.y - 8} anchor="end" name="Motor"
+            x={at.x - MOTOR_R - 12}
+            y={at.y - 8}
+            anchor="end"
+            name="Motor"
             values={[...v("ratedKw", u.motorRating), ...v("speedRpm", (n) => `${n} rpm`)]}
           />
         </>
@@ -322,9 +421,11 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
           <GaugeSymbol id={c.id} centre={at} />
           {/* the caption goes on the side away from the gauge's line */}
           <Caption
-            x={layout.ports[`${c.id}.port`]?.dir === "right" ? at.x - GAUGE_R - 10 : at.x + GAUGE_R + 10} y={at.y - 3}
+            x={layout.ports[`${c.id}.port`]?.dir === "right" ? at.x - GAUGE_R - 10 : at.x + GAUGE_R + 10}
+            y={at.y - 3}
             anchor={layout.ports[`${c.id}.port`]?.dir === "right" ? "end" : "start"}
-            name="Gauge" values={v("rangeBar", (r) => `0–${u.pressure(r)}`)}
+            name="Gauge"
+            values={v("rangeBar", (r) => `0–${u.pressure(r)}`)}
           />
         </>
       );
@@ -334,7 +435,9 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
         <>
           <FilterSymbol id={c.id} centre={at} kind={c.kind} />
           <Caption
-            x={at.x + DIAMOND + 10} y={at.y - 3} name={c.kind === "filter" ? "Return filter" : "Suction strainer"}
+            x={at.x + DIAMOND + 10}
+            y={at.y - 3}
+            name={c.kind === "filter" ? "Return filter" : "Suction strainer"}
             values={v("ratedFlowLpm", (q) => `rated ${u.flow(q)}`)}
           />
         </>
@@ -362,7 +465,9 @@ function PumpWithCaption({ component: c, at, u, design }: { component: CircuitCo
       <>
         <PumpSymbol id={c.id} centre={at} />
         <Caption
-          x={at.x + PUMP_R + 14} y={at.y + 10} name="Double pump"
+          x={at.x + PUMP_R + 14}
+          y={at.y + 10}
+          name="Double pump"
           values={[
             ...v("displacementCcRev", (n) => `large ${u.displacement(n)}`),
             ...(numberValue(small, "displacementCcRev") !== undefined ? [`small ${u.displacement(numberValue(small, "displacementCcRev")!)}`] : []),
@@ -378,10 +483,14 @@ function PumpWithCaption({ component: c, at, u, design }: { component: CircuitCo
       <PumpSymbol id={c.id} centre={at} variable={compensated} compensated={compensated} />
       {compensated ? (
         <Caption
-          x={at.x + PUMP_R + COMPENSATOR_W + 14} y={at.y - 30} name="Compensated pump"
+          x={at.x + PUMP_R + COMPENSATOR_W + 14}
+          y={at.y - 30}
+          name="Compensated pump"
           values={[
-            ...v("displacementCcRev", u.displacement), ...v("flowLpm", (q) => `up to ${u.flow(q)}`),
-            ...v("compensatorBar", (p) => `compensator ${u.pressure(p)}`), ...v("powerLimitKw", (k) => `power limit ${u.power(k)}`),
+            ...v("displacementCcRev", u.displacement),
+            ...v("flowLpm", (q) => `up to ${u.flow(q)}`),
+            ...v("compensatorBar", (p) => `compensator ${u.pressure(p)}`),
+            ...v("powerLimitKw", (k) => `power limit ${u.power(k)}`),
           ]}
         />
       ) : (

@@ -43,8 +43,7 @@ interface Point {
   power: number;
 }
 
-const seconds = (s: number): string =>
-  `${roundForDisplay(s, s >= 10 ? 0 : 1).toLocaleString("en-GB", { maximumFractionDigits: 2 })}\u00a0s`;
+const seconds = (s: number): string => `${roundForDisplay(s, s >= 10 ? 0 : 1).toLocaleString("en-GB", { maximumFractionDigits: 2 })}\u00a0s`;
 
 /** The axis top: the next of 1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6, 8 × a power of ten above the highest value. */
 function niceTop(max: number): number {

@@ -30,7 +30,11 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
   const { cylinder: c, pressuresBar: p, counterbalance: cb, directionalValve: dv } = design;
   const items: { label: string; value: string; detail?: string }[] = [
     // The catalogue size stays on one line (also in the narrow live preview); inches for a US reader go below it.
-    { label: "Bore / rod", value: u.boreRod(c.boreMm, c.rodMm, "metric"), detail: `${units === "us" ? `${u.boreRod(c.boreMm, c.rodMm, "inch")} · ` : ""}stroke ${u.length(c.strokeMm)}` },
+    {
+      label: "Bore / rod",
+      value: u.boreRod(c.boreMm, c.rodMm, "metric"),
+      detail: `${units === "us" ? `${u.boreRod(c.boreMm, c.rodMm, "inch")} · ` : ""}stroke ${u.length(c.strokeMm)}`,
+    },
     { label: "Extend pressure", value: u.pressure(p.extend), detail: "at the pump" },
     { label: "Retract pressure", value: u.pressure(p.retract), detail: "at the pump" },
     { label: "Pump flow", value: u.flow(design.flowsLpm.pump), detail: `${pumpInWords(design, u)} at ${design.pump.speedRpm} rpm` },
@@ -43,7 +47,11 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
   items.push(
     { label: "Directional valve", value: `ISO 4401-${dv.iso4401Size}`, detail: centreName(dv.center) },
     { label: "Reservoir", value: u.volume(design.reservoir.volumeL) },
-    { label: "Average heat", value: u.power(design.heat.averageLossKw), detail: design.heat.coolerKw > 0 ? `cooler ${u.power(design.heat.coolerKw)}` : "tank sheds it" },
+    {
+      label: "Average heat",
+      value: u.power(design.heat.averageLossKw),
+      detail: design.heat.coolerKw > 0 ? `cooler ${u.power(design.heat.coolerKw)}` : "tank sheds it",
+    },
   );
   return (
     <Card>
@@ -75,9 +83,7 @@ function pumpInWords(design: Design, u: ReturnType<typeof displayUnits>): string
 export function WarningsList({ warnings }: { warnings: Warning[] }) {
   return (
     <Card>
-      <h2 className="mb-3 font-semibold text-ink-900">
-        Warnings {warnings.length ? <Badge tone="warn">{warnings.length}</Badge> : null}
-      </h2>
+      <h2 className="mb-3 font-semibold text-ink-900">Warnings {warnings.length ? <Badge tone="warn">{warnings.length}</Badge> : null}</h2>
       {warnings.length === 0 ? (
         <Notice tone="good">No warnings: nothing in this design is flagged for a reviewer beyond the cautions.</Notice>
       ) : (
@@ -101,7 +107,9 @@ export function CautionsPanel() {
     <Card className="border-l-4 border-alarm-600">
       <h2 className="mb-3 font-semibold text-ink-900">Before anyone builds this</h2>
       <ul className="list-disc space-y-1.5 pl-5 text-sm text-ink-800 marker:text-alarm-600">
-        {CIRCUIT_CAUTIONS.map((text) => <li key={text}>{text}</li>)}
+        {CIRCUIT_CAUTIONS.map((text) => (
+          <li key={text}>{text}</li>
+        ))}
       </ul>
     </Card>
   );
@@ -120,16 +128,26 @@ export function ComponentTable({ design }: { design: Design }) {
         <caption className="sr-only">Bill of materials: one line per component</caption>
         <thead className="border-b border-ink-200">
           <tr>
-            <th scope="col" className={headCell}>Item</th>
-            <th scope="col" className={`${headCell} text-right`}>Qty</th>
-            <th scope="col" className={headCell}>Specification</th>
-            <th scope="col" className={headCell}>Rating</th>
+            <th scope="col" className={headCell}>
+              Item
+            </th>
+            <th scope="col" className={`${headCell} text-right`}>
+              Qty
+            </th>
+            <th scope="col" className={headCell}>
+              Specification
+            </th>
+            <th scope="col" className={headCell}>
+              Rating
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-ink-100">
           {design.bom.map((line) => (
             <tr key={line.key} data-bom-key={line.key}>
-              <th scope="row" className={`${cell} font-semibold text-ink-900`}>{line.item}</th>
+              <th scope="row" className={`${cell} font-semibold text-ink-900`}>
+                {line.item}
+              </th>
               <td className={`${cell} text-right tabular-nums`}>{line.quantity}</td>
               <td className={`${cell} text-ink-700`}>{line.specification}</td>
               <td className={`${cell} whitespace-nowrap text-ink-700`}>{rating(line)}</td>
@@ -164,28 +182,42 @@ export function CalculationTrail({ trail }: { trail: TrailEntry[] }) {
       <p className="text-sm text-ink-700">{trail.length} calculation steps, each with its formula, inputs and source.</p>
       <p className="mt-2 text-xs text-ink-600" data-trail-legend="">
         Sources are marked: <strong>[S]</strong> taken from a published source (a standard, a textbook, a maker's table) we have read; <strong>[M]</strong> a
-        published value quoted from memory, to be verified before anyone relies on it; <strong>[CP]</strong> common practice of the
-        trade, a sensible default rather than a rule; <strong>[D]</strong> worked out from the numbers above.
+        published value quoted from memory, to be verified before anyone relies on it; <strong>[CP]</strong> common practice of the trade, a sensible default
+        rather than a rule; <strong>[D]</strong> worked out from the numbers above.
       </p>
       <div className="mt-3 overflow-x-auto">
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Calculation trail</caption>
           <thead className="border-b border-ink-200">
             <tr>
-              <th scope="col" className={headCell}>Quantity</th>
-              <th scope="col" className={`${headCell} text-right`}>Value</th>
-              <th scope="col" className={headCell}>Formula</th>
-              <th scope="col" className={headCell}>Inputs</th>
-              <th scope="col" className={headCell}>Source</th>
+              <th scope="col" className={headCell}>
+                Quantity
+              </th>
+              <th scope="col" className={`${headCell} text-right`}>
+                Value
+              </th>
+              <th scope="col" className={headCell}>
+                Formula
+              </th>
+              <th scope="col" className={headCell}>
+                Inputs
+              </th>
+              <th scope="col" className={headCell}>
+                Source
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-ink-100">
             {trail.map((entry, i) => (
               <tr key={i} data-trail-row="">
-                <th scope="row" className={`${cell} font-semibold text-ink-900`}>{entry.quantity}</th>
+                <th scope="row" className={`${cell} font-semibold text-ink-900`}>
+                  {entry.quantity}
+                </th>
                 <td className={`${cell} whitespace-nowrap text-right tabular-nums text-flow-700`}>{withUnit(entry.value, entry.unit)}</td>
                 <td className={`${cell} font-mono text-xs text-ink-800`}>{entry.formula}</td>
-                <td className={`${cell} text-xs text-ink-700`}><Inputs inputs={entry.inputs} /></td>
+                <td className={`${cell} text-xs text-ink-700`}>
+                  <Inputs inputs={entry.inputs} />
+                </td>
                 <td className={`${cell} text-xs text-ink-600`}>{entry.source}</td>
               </tr>
             ))}

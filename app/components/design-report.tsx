@@ -34,8 +34,12 @@ export function DesignReport({
         </div>
         <CircuitViewer design={design} units={units} />
         <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
-          <a href="#bill" className="font-semibold text-flow-700 hover:underline">{componentsTitle} ({design.bom.length} lines)</a>
-          <a href="#calculation-trail" className="font-semibold text-flow-700 hover:underline">How every number was reached</a>
+          <a href="#bill" className="font-semibold text-flow-700 hover:underline">
+            {componentsTitle} ({design.bom.length} lines)
+          </a>
+          <a href="#calculation-trail" className="font-semibold text-flow-700 hover:underline">
+            How every number was reached
+          </a>
         </p>
       </Card>
       <KeySizes design={design} units={units} />

@@ -63,7 +63,14 @@ export function TextField({
   );
 }
 
-export function TextAreaField({ meta, label, hint, rows = 3, maxLength, ...rest }: BaseProps & { meta: Meta } & Omit<React.TextareaHTMLAttributes<HTMLTextAreaElement>, "form">) {
+export function TextAreaField({
+  meta,
+  label,
+  hint,
+  rows = 3,
+  maxLength,
+  ...rest
+}: BaseProps & { meta: Meta } & Omit<React.TextareaHTMLAttributes<HTMLTextAreaElement>, "form">) {
   const props = getTextareaProps(meta, { ariaDescribedBy: hint ? meta.descriptionId : undefined });
   const [length, setLength] = useState(() => String(meta.initialValue ?? "").length);
   return (

@@ -16,7 +16,12 @@ function useIdleResult(lastResult: SubmissionResult<string[]> | undefined) {
 }
 
 /** A job form's Conform state: judged by its schema as the person types, named by its intent. */
-function useJobForm<Schema extends z.ZodObject>(intent: JobActionIntent, schema: Schema, lastResult: SubmissionResult<string[]> | undefined, defaultValue?: DefaultValue<z.input<Schema>>) {
+function useJobForm<Schema extends z.ZodObject>(
+  intent: JobActionIntent,
+  schema: Schema,
+  lastResult: SubmissionResult<string[]> | undefined,
+  defaultValue?: DefaultValue<z.input<Schema>>,
+) {
   return useForm<z.input<Schema>, z.output<Schema>>({
     id: intent,
     lastResult: useIdleResult(lastResult),
@@ -54,7 +59,13 @@ function JobFormCard(props: {
 export function ReachForm({ open, lastResult }: FormProps & { open: MilestoneKey[] }) {
   const [form, fields] = useJobForm("reach", reachSchema, lastResult, { milestone: open[0] });
   return (
-    <JobFormCard title="Record progress" lead="Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well." intent="reach" form={form} formProps={getFormProps(form)}>
+    <JobFormCard
+      title="Record progress"
+      lead="Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well."
+      intent="reach"
+      form={form}
+      formProps={getFormProps(form)}
+    >
       <SelectField meta={fields.milestone} label="Reached up to and including" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
       <TextAreaField meta={fields.note} label="Note (optional)" hint="For example: pressure test passed at 1.5 × the relief setting." />
       <SubmitButton>Record as reached</SubmitButton>
@@ -87,7 +98,13 @@ export function ProgressNoteForm({ lastResult }: FormProps) {
 export function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey }) {
   const [form, fields] = useJobForm("undo", undoSchema, lastResult);
   return (
-    <JobFormCard title={<>Take back “{MILESTONE_LABELS[last]}”</>} lead="Only the last milestone reached can be taken back. It stays in the history with your reason." intent="undo" form={form} formProps={getFormProps(form)}>
+    <JobFormCard
+      title={<>Take back “{MILESTONE_LABELS[last]}”</>}
+      lead="Only the last milestone reached can be taken back. It stays in the history with your reason."
+      intent="undo"
+      form={form}
+      formProps={getFormProps(form)}
+    >
       <input type="hidden" name="milestone" value={last} />
       <TextAreaField meta={fields.reason} label="Reason" hint="For example: the test has to be repeated after a seal change." />
       <SubmitButton tone="danger">Take it back</SubmitButton>
@@ -98,7 +115,13 @@ export function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey 
 export function ManagerNoteForm({ lastResult }: FormProps) {
   const [form, fields] = useJobForm("manager-note", managerNoteSchema, lastResult);
   return (
-    <JobFormCard title="Internal note" lead="Only Tenderflow staff see these notes, never the buyer or the shop." intent="manager-note" form={form} formProps={getFormProps(form)}>
+    <JobFormCard
+      title="Internal note"
+      lead="Only Tenderflow staff see these notes, never the buyer or the shop."
+      intent="manager-note"
+      form={form}
+      formProps={getFormProps(form)}
+    >
       <TextAreaField meta={fields.body} label="Note" />
       <SubmitButton tone="secondary">Save the note</SubmitButton>
     </JobFormCard>

@@ -28,7 +28,9 @@ export function MoreQuestions({
     <details open={open} onToggle={(e) => setOpen(e.currentTarget.open)} className="group rounded-md ring-1 ring-ink-100">
       <summary className="cursor-pointer list-none px-3 py-2 text-sm">
         <span className="font-semibold text-flow-700">
-          <span aria-hidden className="mr-1 inline-block transition-transform group-open:rotate-90">▸</span>
+          <span aria-hidden className="mr-1 inline-block transition-transform group-open:rotate-90">
+            ▸
+          </span>
           {title}
         </span>
         <span className="block text-xs text-ink-600">{summary} (optional)</span>

@@ -32,8 +32,8 @@ function AskForm({ specId }: { specId: string }) {
           Ask the machine builder
         </label>
         <p id={fields.body.descriptionId} className="mt-1 text-sm text-ink-600">
-          For example: "May the power unit stand up to 8 m from the press?" Only your company and the machine builder see the
-          question until it is answered; then every shop sees it, without your company's name. Up to {QUESTION_MAX} characters.
+          For example: "May the power unit stand up to 8 m from the press?" Only your company and the machine builder see the question until it is answered;
+          then every shop sees it, without your company's name. Up to {QUESTION_MAX} characters.
         </p>
         <textarea
           {...getTextareaProps(fields.body, { ariaDescribedBy: fields.body.descriptionId })}

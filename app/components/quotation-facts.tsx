@@ -22,7 +22,9 @@ export function QuotationPanel({ facts, attachments }: { facts: QuotationFacts; 
       <h2 className="mb-3 font-semibold">The machine and what to quote</h2>
       <div className="mb-4 rounded-md bg-ink-50 p-3 text-sm">
         <p className="text-xs font-semibold uppercase tracking-wide text-ink-600">What the machine does</p>
-        <p className="mt-1 whitespace-pre-line text-ink-900">{facts.purpose ?? <span className="text-ink-600">The machine builder did not describe it; the axis requirements below say what it must do.</span>}</p>
+        <p className="mt-1 whitespace-pre-line text-ink-900">
+          {facts.purpose ?? <span className="text-ink-600">The machine builder did not describe it; the axis requirements below say what it must do.</span>}
+        </p>
       </div>
       <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[14rem_1fr]">
         {rows.map(([label, value]) => (
@@ -42,7 +44,9 @@ export function QuotationPanel({ facts, attachments }: { facts: QuotationFacts; 
               <a className="font-semibold text-flow-700 hover:underline" href={a.downloadUrl} download>
                 {a.fileName}
               </a>{" "}
-              <span className="text-ink-600">· {a.kindLabel} · {formatBytes(a.sizeBytes)}</span>
+              <span className="text-ink-600">
+                · {a.kindLabel} · {formatBytes(a.sizeBytes)}
+              </span>
             </li>
           ))}
         </ul>

@@ -40,7 +40,9 @@ export function RequirementInput({
           <select
             id={id}
             name={field.key}
-            {...(onChange ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onChange(e.target.value) } : { defaultValue: value ?? "" })}
+            {...(onChange
+              ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onChange(e.target.value) }
+              : { defaultValue: value ?? "" })}
             aria-invalid={invalid || undefined}
             aria-describedby={describedBy}
             className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
@@ -95,7 +97,11 @@ export function RequirementInput({
         {field.label}
       </label>
       <p id={helpId} className="text-xs text-ink-600">
-        {field.help} <span className="text-ink-400">Example: {displayValue(field, field.example, system)}{unit ? ` ${unit}` : ""}</span>
+        {field.help}{" "}
+        <span className="text-ink-400">
+          Example: {displayValue(field, field.example, system)}
+          {unit ? ` ${unit}` : ""}
+        </span>
       </p>
       <div className="mt-1 flex rounded-md bg-white ring-1 ring-ink-200 focus-within:ring-2 focus-within:ring-flow-600 has-[[aria-invalid=true]]:ring-alarm-600">
         <input
@@ -104,7 +110,9 @@ export function RequirementInput({
           type="text"
           inputMode="decimal"
           autoComplete="off"
-          {...(onChange ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLInputElement>) => onChange(e.target.value) } : { defaultValue: value ?? "" })}
+          {...(onChange
+            ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLInputElement>) => onChange(e.target.value) }
+            : { defaultValue: value ?? "" })}
           aria-invalid={invalid || undefined}
           aria-describedby={describedBy}
           className="w-full min-w-0 rounded-md border-0 bg-transparent px-3 py-2 text-sm outline-none"

@@ -15,7 +15,15 @@ export interface PaymentView {
   failureMessage: string | null;
   createdAt: string;
   paidAt: string | null;
-  refunds: { id: string; amountCents: number; reason: string; status: "requested" | "recorded" | "failed"; by: string; at: string; failureMessage: string | null }[];
+  refunds: {
+    id: string;
+    amountCents: number;
+    reason: string;
+    status: "requested" | "recorded" | "failed";
+    by: string;
+    at: string;
+    failureMessage: string | null;
+  }[];
 }
 
 const REFUND_LABELS = { requested: "Waiting for the card service", recorded: "Paid back", failed: "Refused" } as const;
@@ -47,7 +55,8 @@ export function RetainerPanel({
         <>
           {last?.status === "failed" ? (
             <Notice tone="bad">
-              Your last payment did not go through{last.failureMessage ? ` (“${last.failureMessage.replace(/\.$/, "")}”)` : ""}. Nothing was charged. Try again, with another card if need be.
+              Your last payment did not go through{last.failureMessage ? ` (“${last.failureMessage.replace(/\.$/, "")}”)` : ""}. Nothing was charged. Try again,
+              with another card if need be.
             </Notice>
           ) : null}
           <p className="text-sm text-ink-600">Paid by card on the card service's secure page; the shop is told as soon as it arrives.</p>
@@ -68,7 +77,8 @@ export function RetainerPanel({
               {p.refundedCents ? <p className="mt-1">Paid back so far: {formatMoney(p.refundedCents, p.currency)}</p> : null}
               {p.refunds.map((r) => (
                 <p key={r.id} className="mt-1 text-ink-700">
-                  {formatMoney(r.amountCents, p.currency)} · {REFUND_LABELS[r.status]} · {r.reason} ({r.by}, {formatMoment(r.at)}){r.failureMessage ? ` — ${r.failureMessage}` : ""}
+                  {formatMoney(r.amountCents, p.currency)} · {REFUND_LABELS[r.status]} · {r.reason} ({r.by}, {formatMoment(r.at)})
+                  {r.failureMessage ? ` — ${r.failureMessage}` : ""}
                 </p>
               ))}
               {canRefund && (p.status === "paid" || p.status === "partially_refunded") ? <RefundForm key={p.refunds.length} payment={p} /> : null}
@@ -95,22 +105,52 @@ function RefundForm({ payment }: { payment: PaymentView }) {
     <fetcher.Form method="post" action={`/payments/${payment.id}/refund`} className="mt-3 space-y-2 border-t border-ink-200 pt-3">
       <p className="font-semibold">Pay back</p>
       <div>
-        <label htmlFor={`${id}-amount`} className="block text-xs font-semibold">Amount ({payment.currency}), empty for all that is left</label>
-        <input id={`${id}-amount`} name="amount" inputMode="decimal" className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200" aria-invalid={errors.amount ? true : undefined} />
+        <label htmlFor={`${id}-amount`} className="block text-xs font-semibold">
+          Amount ({payment.currency}), empty for all that is left
+        </label>
+        <input
+          id={`${id}-amount`}
+          name="amount"
+          inputMode="decimal"
+          className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200"
+          aria-invalid={errors.amount ? true : undefined}
+        />
         <FieldErrorText id={`${id}-amount-error`} errors={errors.amount ?? undefined} />
       </div>
       <div>
-        <label htmlFor={`${id}-reason`} className="block text-xs font-semibold">Reason (the buyer reads it on the job page)</label>
-        <input id={`${id}-reason`} name="reason" className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200" aria-invalid={errors.reason ? true : undefined} />
+        <label htmlFor={`${id}-reason`} className="block text-xs font-semibold">
+          Reason (the buyer reads it on the job page)
+        </label>
+        <input
+          id={`${id}-reason`}
+          name="reason"
+          className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200"
+          aria-invalid={errors.reason ? true : undefined}
+        />
         <FieldErrorText id={`${id}-reason-error`} errors={errors.reason ?? undefined} />
       </div>
       <div>
-        <label htmlFor={`${id}-password`} className="block text-xs font-semibold">Your password</label>
-        <input key={round} id={`${id}-password`} name="currentPassword" type="password" autoComplete="current-password" className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200" aria-invalid={errors.currentPassword ? true : undefined} aria-describedby={`${id}-password-hint`} />
-        <p id={`${id}-password-hint`} className="mt-1 text-xs text-ink-600">Asked again before any money moves.</p>
+        <label htmlFor={`${id}-password`} className="block text-xs font-semibold">
+          Your password
+        </label>
+        <input
+          key={round}
+          id={`${id}-password`}
+          name="currentPassword"
+          type="password"
+          autoComplete="current-password"
+          className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200"
+          aria-invalid={errors.currentPassword ? true : undefined}
+          aria-describedby={`${id}-password-hint`}
+        />
+        <p id={`${id}-password-hint`} className="mt-1 text-xs text-ink-600">
+          Asked again before any money moves.
+        </p>
         <FieldErrorText id={`${id}-password-error`} errors={errors.currentPassword ?? undefined} />
       </div>
-      <Button type="submit" tone="secondary" disabled={fetcher.state !== "idle"}>Pay back</Button>
+      <Button type="submit" tone="secondary" disabled={fetcher.state !== "idle"}>
+        Pay back
+      </Button>
     </fetcher.Form>
   );
 }

@@ -3,7 +3,15 @@ import { CircuitDiagram } from "~/components/circuit-diagram";
 import { KeySizes } from "~/components/design-panels";
 import { Card } from "~/components/ui";
 import { useLiveSizing } from "~/components/use-live-sizing";
-import { EXAMPLE_AXIS, REQUIREMENT_FIELDS, answerInWords, toFormValues, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
+import {
+  EXAMPLE_AXIS,
+  REQUIREMENT_FIELDS,
+  answerInWords,
+  toFormValues,
+  toRequirementsInput,
+  type FormValues,
+  type RequirementKey,
+} from "~/content/requirement-fields";
 import { ENGINE_KEYS_BY_STEP } from "~/content/spec-steps";
 import type { UnitSystem } from "~/units";
 
@@ -39,14 +47,13 @@ export function SpecLivePreview({ values, system }: { values: FormValues; system
             </div>
             {assumed.length ? (
               <p className="mt-2 text-xs text-ink-600">
-                Until you answer the duty step, the preview assumes {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${assumedValue(k, fallback[k], system)}`).join(", ")}.
+                Until you answer the duty step, the preview assumes{" "}
+                {assumed.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${assumedValue(k, fallback[k], system)}`).join(", ")}.
               </p>
             ) : null}
           </>
         ) : (
-          <p className="text-sm text-ink-600">
-            {live.status === "sizing" ? "Sizing…" : "Fill in the load, stroke and speeds and the circuit appears here."}
-          </p>
+          <p className="text-sm text-ink-600">{live.status === "sizing" ? "Sizing…" : "Fill in the load, stroke and speeds and the circuit appears here."}</p>
         )}
       </Card>
     </aside>

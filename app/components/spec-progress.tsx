@@ -12,7 +12,10 @@ export function SpecProgress({ specId, current, completed }: { specId: string; c
           const tone = here ? "border-flow-600 text-flow-700" : done ? "border-flow-500/50 text-ink-800" : "border-ink-200 text-ink-400";
           const body = (
             <span className={`block border-t-4 pt-2 text-xs font-semibold ${tone}`}>
-              <span className="block">Step {i + 1}{done ? " · done" : ""}</span>
+              <span className="block">
+                Step {i + 1}
+                {done ? " · done" : ""}
+              </span>
               <span className="block text-sm">{step.title}</span>
             </span>
           );

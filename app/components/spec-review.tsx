@@ -34,7 +34,9 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
           {incomplete.map((s, i) => (
             <span key={s.id}>
               {i ? ", " : ""}
-              <Link className="font-semibold underline" to={`/specs/${spec.id}/edit/${s.id}`}>{s.title}</Link>
+              <Link className="font-semibold underline" to={`/specs/${spec.id}/edit/${s.id}`}>
+                {s.title}
+              </Link>
             </span>
           ))}
           .
@@ -42,7 +44,9 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
       ) : null}
       {design ? <DesignReport design={design} units={spec.unitSystem} componentsTitle="Components shops will price" cautions={false} /> : null}
       <section aria-labelledby="answers-heading" className="space-y-3">
-        <h2 id="answers-heading" className="font-semibold">Your answers, step by step</h2>
+        <h2 id="answers-heading" className="font-semibold">
+          Your answers, step by step
+        </h2>
         <div className="grid gap-4 md:grid-cols-2">
           {SPEC_STEPS.filter((s) => s.id !== "review").map((s, index) => {
             const rows = stepFieldNames(s.id as FormStepId)
@@ -55,7 +59,11 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
                     <span className="mr-1.5 text-ink-400">{index + 1}</span>
                     {s.title}
                   </h3>
-                  <Link className="shrink-0 text-sm font-semibold text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/${s.id}`} aria-label={`Edit ${s.title.toLowerCase()}`}>
+                  <Link
+                    className="shrink-0 text-sm font-semibold text-flow-700 hover:underline"
+                    to={`/specs/${spec.id}/edit/${s.id}`}
+                    aria-label={`Edit ${s.title.toLowerCase()}`}
+                  >
                     Edit
                   </Link>
                 </div>
@@ -82,23 +90,39 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
           <ul className="text-sm">
             {attachments.map((a) => (
               <li key={a.id}>
-                <a className="text-flow-700 hover:underline" href={a.downloadUrl}>{a.fileName}</a> · {a.kindLabel} · {formatBytes(a.sizeBytes)}
+                <a className="text-flow-700 hover:underline" href={a.downloadUrl}>
+                  {a.fileName}
+                </a>{" "}
+                · {a.kindLabel} · {formatBytes(a.sizeBytes)}
               </li>
             ))}
           </ul>
         ) : (
-          <p className="text-sm text-ink-600">None attached. <Link className="text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/quotation`}>Add drawings or photos</Link></p>
+          <p className="text-sm text-ink-600">
+            None attached.{" "}
+            <Link className="text-flow-700 hover:underline" to={`/specs/${spec.id}/edit/quotation`}>
+              Add drawings or photos
+            </Link>
+          </p>
         )}
       </Card>
       <div id="cautions">
         <CautionsPanel />
       </div>
       {/* Publishing stays in view while the buyer reads: the bar sticks to the bottom of the window. */}
-      <Form method="post" aria-label="Publish" className="sticky bottom-0 z-10 -mx-2 flex flex-wrap items-center justify-between gap-3 rounded-t-lg bg-white/95 px-4 py-3 shadow-[0_-4px_12px_rgba(0,0,0,0.08)] ring-1 ring-ink-100 backdrop-blur">
+      <Form
+        method="post"
+        aria-label="Publish"
+        className="sticky bottom-0 z-10 -mx-2 flex flex-wrap items-center justify-between gap-3 rounded-t-lg bg-white/95 px-4 py-3 shadow-[0_-4px_12px_rgba(0,0,0,0.08)] ring-1 ring-ink-100 backdrop-blur"
+      >
         <label className="flex max-w-xl items-start gap-2 text-sm">
           <input type="checkbox" name="cautionsRead" className="mt-1 accent-flow-600" required />
           <span>
-            I have read the <a className="text-flow-700 underline" href="#cautions">cautions</a> and understand that this circuit is a preliminary design for quotation.
+            I have read the{" "}
+            <a className="text-flow-700 underline" href="#cautions">
+              cautions
+            </a>{" "}
+            and understand that this circuit is a preliminary design for quotation.
           </span>
         </label>
         <Button type="submit" name="intent" value="publish" disabled={!design || incomplete.length > 0 || navigation.state === "submitting"}>

@@ -9,7 +9,15 @@ import { RequirementInput } from "~/components/requirement-input";
 import { SpecLivePreview } from "~/components/spec-live-preview";
 import { Button, Card } from "~/components/ui";
 import { CURRENCIES } from "~/content/money";
-import { REQUIREMENT_FIELDS, differsFromDefault, displayValue, fieldApplies, fieldMessages, type FormValues, type RequirementKey } from "~/content/requirement-fields";
+import {
+  REQUIREMENT_FIELDS,
+  differsFromDefault,
+  displayValue,
+  fieldApplies,
+  fieldMessages,
+  type FormValues,
+  type RequirementKey,
+} from "~/content/requirement-fields";
 import { AXIS_QUESTIONS, previousStep, type FormStepId } from "~/content/spec-steps";
 import { FLUIDS, STEP_DEFAULTS, SUPPLY_VOLTAGES, TEXT_MAX, otherStepsAnswers, stepFieldNames, stepSchema } from "~/schemas/spec";
 import type { AttachmentLimits, AttachmentView } from "~/services/attachments.server";
@@ -78,8 +86,18 @@ export function SpecStepForm({ specId, step, system, answers, stepAnswers, attac
           <Card className="space-y-5">
             {step === "machine" ? (
               <>
-                <TextField meta={fields.title} label="Title" hint={`A short name shops will see, e.g. “Bending press, main ram”. At most ${TEXT_MAX.title} characters.`} maxLength={TEXT_MAX.title} />
-                <TextAreaField meta={fields.purpose} label="What the machine does" hint={`A sentence or two: what the axis moves and why. Optional, but it helps shops. At most ${TEXT_MAX.purpose} characters.`} maxLength={TEXT_MAX.purpose} />
+                <TextField
+                  meta={fields.title}
+                  label="Title"
+                  hint={`A short name shops will see, e.g. “Bending press, main ram”. At most ${TEXT_MAX.title} characters.`}
+                  maxLength={TEXT_MAX.title}
+                />
+                <TextAreaField
+                  meta={fields.purpose}
+                  label="What the machine does"
+                  hint={`A sentence or two: what the axis moves and why. Optional, but it helps shops. At most ${TEXT_MAX.purpose} characters.`}
+                  maxLength={TEXT_MAX.purpose}
+                />
               </>
             ) : null}
             {asked(questions?.keys).map(question)}
@@ -95,13 +113,27 @@ export function SpecStepForm({ specId, step, system, answers, stepAnswers, attac
             ) : null}
             {step === "duty" ? (
               <>
-                <SelectField meta={fields.supplyVoltage} label="Mains voltage" hint="The supply at the machine; the motor is quoted for it." options={SUPPLY_VOLTAGES} />
-                <SelectField meta={fields.fluid} label="Hydraulic fluid" hint="Mineral oil grade by ISO 3448. ISO VG 46 suits most indoor machines." options={FLUIDS} />
+                <SelectField
+                  meta={fields.supplyVoltage}
+                  label="Mains voltage"
+                  hint="The supply at the machine; the motor is quoted for it."
+                  options={SUPPLY_VOLTAGES}
+                />
+                <SelectField
+                  meta={fields.fluid}
+                  label="Hydraulic fluid"
+                  hint="Mineral oil grade by ISO 3448. ISO VG 46 suits most indoor machines."
+                  options={FLUIDS}
+                />
               </>
             ) : null}
             {step === "quotation" ? <QuotationFields fields={fields} /> : null}
             <p className="text-xs text-ink-600">
-              Values in {UNIT_SYSTEM_LABELS[system]}. <Link to="/settings" className="text-flow-700 hover:underline">Change your units</Link> for new specs.
+              Values in {UNIT_SYSTEM_LABELS[system]}.{" "}
+              <Link to="/settings" className="text-flow-700 hover:underline">
+                Change your units
+              </Link>{" "}
+              for new specs.
             </p>
           </Card>
         </Form>
@@ -113,7 +145,9 @@ export function SpecStepForm({ specId, step, system, answers, stepAnswers, attac
         ) : null}
         {leave.blocker.state === "blocked" ? (
           <div role="alertdialog" aria-labelledby="unsaved-title" className="mt-5 rounded-lg bg-signal-50 p-4 ring-1 ring-signal-500/40">
-            <p id="unsaved-title" className="font-semibold text-ink-900">Leave this step without saving?</p>
+            <p id="unsaved-title" className="font-semibold text-ink-900">
+              Leave this step without saving?
+            </p>
             <p className="mt-1 text-sm text-ink-700">What you changed here is not saved yet. Save and continue keeps it; leaving now loses it.</p>
             <div className="mt-3 flex flex-wrap gap-2">
               <Button type="button" tone="secondary" onClick={() => leave.blocker.reset?.()}>
@@ -176,10 +210,30 @@ function QuotationFields({ fields }: { fields: ReturnType<typeof useForm<Answers
       <TextField meta={fields.unitsWanted} label="Units wanted" hint="How many identical axes shops should quote for." inputMode="numeric" />
       <TextField meta={fields.bidDeadline} label="Bid deadline" hint="The last day shops can bid. Example: three weeks from today." type="date" />
       <TextField meta={fields.dateNeeded} label="Date needed" hint="When the units must be delivered." type="date" />
-      <TextField meta={fields.deliveryRegion} label="Delivery region" hint={`Where the units go, e.g. “UK — West Midlands”. At most ${TEXT_MAX.deliveryRegion} characters.`} maxLength={TEXT_MAX.deliveryRegion} />
-      <SelectField meta={fields.currency} label="Currency of the bids" hint="Every shop prices its bid in this currency, so bids compare directly." options={CURRENCIES} />
-      <TextField meta={fields.retainerPercent} label="Retainer for the chosen shop (%)" hint="The share of the awarded price you pay up front by card when you award. 20 % is usual." inputMode="decimal" />
-      <TextAreaField meta={fields.notes} label="Notes for the shops" hint={`Anything else: paint, standards your plant follows, access for installation. Optional. At most ${TEXT_MAX.notes} characters.`} maxLength={TEXT_MAX.notes} />
+      <TextField
+        meta={fields.deliveryRegion}
+        label="Delivery region"
+        hint={`Where the units go, e.g. “UK — West Midlands”. At most ${TEXT_MAX.deliveryRegion} characters.`}
+        maxLength={TEXT_MAX.deliveryRegion}
+      />
+      <SelectField
+        meta={fields.currency}
+        label="Currency of the bids"
+        hint="Every shop prices its bid in this currency, so bids compare directly."
+        options={CURRENCIES}
+      />
+      <TextField
+        meta={fields.retainerPercent}
+        label="Retainer for the chosen shop (%)"
+        hint="The share of the awarded price you pay up front by card when you award. 20 % is usual."
+        inputMode="decimal"
+      />
+      <TextAreaField
+        meta={fields.notes}
+        label="Notes for the shops"
+        hint={`Anything else: paint, standards your plant follows, access for installation. Optional. At most ${TEXT_MAX.notes} characters.`}
+        maxLength={TEXT_MAX.notes}
+      />
     </>
   );
 }

@@ -10,14 +10,9 @@ const tone = {
 } as const;
 export type ButtonTone = keyof typeof tone;
 
-const buttonBase =
-  "inline-flex items-center justify-center gap-2 rounded-md px-4 py-2 text-sm font-semibold transition-colors disabled:cursor-not-allowed";
+const buttonBase = "inline-flex items-center justify-center gap-2 rounded-md px-4 py-2 text-sm font-semibold transition-colors disabled:cursor-not-allowed";
 
-export function Button({
-  tone: t = "primary",
-  className = "",
-  ...props
-}: React.ButtonHTMLAttributes<HTMLButtonElement> & { tone?: ButtonTone }) {
+export function Button({ tone: t = "primary", className = "", ...props }: React.ButtonHTMLAttributes<HTMLButtonElement> & { tone?: ButtonTone }) {
   return <button className={`${buttonBase} ${tone[t]} ${className}`} {...props} />;
 }
 
@@ -85,11 +80,23 @@ export function Pager({ page, pageCount, search }: { page: number; pageCount: nu
   };
   return (
     <nav aria-label="Pages" className="mt-4 flex items-center justify-between text-sm">
-      {page > 1 ? <Link className="text-flow-700 hover:underline" to={href(page - 1)}>← Previous</Link> : <span />}
+      {page > 1 ? (
+        <Link className="text-flow-700 hover:underline" to={href(page - 1)}>
+          ← Previous
+        </Link>
+      ) : (
+        <span />
+      )}
       <span className="text-ink-600">
         Page {page} of {pageCount}
       </span>
-      {page < pageCount ? <Link className="text-flow-700 hover:underline" to={href(page + 1)}>Next →</Link> : <span />}
+      {page < pageCount ? (
+        <Link className="text-flow-700 hover:underline" to={href(page + 1)}>
+          Next →
+        </Link>
+      ) : (
+        <span />
+      )}
     </nav>
   );
 }

@@ -391,8 +391,7 @@ export function shownValues(typed: TypedAnswers, system: UnitSystem): FormValues
 function schemaBounds(key: RequirementKey): { min: number | null; max: number | null } | null {
   // Zod 4 keeps the number checks on the innermost type, below .optional() and .default().
   let type = (requirementsSchema.shape as Record<string, unknown>)[key] as
-    | { _zod: { def: { innerType?: unknown } }; minValue?: number | null; maxValue?: number | null }
-    | undefined;
+    { _zod: { def: { innerType?: unknown } }; minValue?: number | null; maxValue?: number | null } | undefined;
   while (type?._zod.def.innerType) type = type._zod.def.innerType as typeof type;
   if (!type || !("minValue" in type)) return null;
   return { min: type.minValue ?? null, max: type.maxValue ?? null };

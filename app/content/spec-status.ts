@@ -1,7 +1,6 @@
 export const SPEC_STATUSES = ["draft", "open", "closed", "awarded", "withdrawn"] as const;
 export type SpecStatus = (typeof SPEC_STATUSES)[number];
 
-
 // Spec statuses in Tenderflow's own words, shown the same everywhere.
 export const SPEC_STATUS_LABELS: Record<SpecStatus, string> = {
   draft: "Draft",

@@ -39,7 +39,8 @@ function checkFields(entries: Iterable<[string, string]>): BoundsProblem | null 
       return { status: 400, message: `The form has a field name this site does not use: “${printable(name)}”.` };
     }
     for (const [, index] of name.matchAll(INDEX)) {
-      if (Number(index) > REQUEST_LIMITS.listIndex) return { status: 400, message: `The field “${printable(name)}” points past the end of any list on this site.` };
+      if (Number(index) > REQUEST_LIMITS.listIndex)
+        return { status: 400, message: `The field “${printable(name)}” points past the end of any list on this site.` };
     }
     if (name.includes(NUL) || value.includes(NUL)) {
       return { status: 400, message: `The field “${printable(name)}” contains a NUL character, which text here cannot hold.` };
@@ -59,12 +60,14 @@ function printable(name: string) {
 
 /** The URL's query: short, few fields, no NUL (search boxes reach SQL as parameters). */
 function checkQuery(url: URL): BoundsProblem | null {
-  if (url.search.length > REQUEST_LIMITS.queryLength) return { status: 413, message: `The address is too long (at most ${REQUEST_LIMITS.queryLength} characters after “?”).` };
+  if (url.search.length > REQUEST_LIMITS.queryLength)
+    return { status: 413, message: `The address is too long (at most ${REQUEST_LIMITS.queryLength} characters after “?”).` };
   if (url.pathname.includes("%00") || url.pathname.includes(NUL)) return { status: 400, message: "The address contains a NUL character." };
   for (const [name, value] of url.searchParams) {
     if (name.includes(NUL) || value.includes(NUL)) return { status: 400, message: `The search field “${printable(name)}” contains a NUL character.` };
   }
-  if ([...url.searchParams.keys()].length > REQUEST_LIMITS.queryFields) return { status: 413, message: `Too many fields in the address (at most ${REQUEST_LIMITS.queryFields}).` };
+  if ([...url.searchParams.keys()].length > REQUEST_LIMITS.queryFields)
+    return { status: 413, message: `Too many fields in the address (at most ${REQUEST_LIMITS.queryFields}).` };
   return null;
 }
 
@@ -107,7 +110,11 @@ export async function checkRequestBounds(request: Request): Promise<BoundsProble
   if (type === "multipart/form-data") {
     if (!UPLOAD_PATH.test(url.pathname)) return { status: 415, message: "This address does not take file uploads." };
     const declared = Number(request.headers.get("Content-Length") ?? "0");
-    if (declared > REQUEST_LIMITS.uploadBytes) return { status: 413, message: `Uploads are limited to ${ATTACHMENT_LIMITS.maxFilesPerSpec} files of ${ATTACHMENT_LIMITS.maxFileBytes / 1024 / 1024} MB.` };
+    if (declared > REQUEST_LIMITS.uploadBytes)
+      return {
+        status: 413,
+        message: `Uploads are limited to ${ATTACHMENT_LIMITS.maxFilesPerSpec} files of ${ATTACHMENT_LIMITS.maxFileBytes / 1024 / 1024} MB.`,
+      };
     return null;
   }
   if (type === "application/json") {

@@ -13,7 +13,8 @@ export const EULER_CASES: Readonly<Record<Mounting, { eulerCase: 1 | 2 | 3 | 4; 
 
 type MountingStyle = NonNullable<Requirements["mountingStyle"]>;
 
-const FRONT_RULE = (style: string) => `${style}: L = s + e, e = ${A.flangeAllowanceMm.value} mm from the mounting face to the rod-end connection, retracted (assumed)`;
+const FRONT_RULE = (style: string) =>
+  `${style}: L = s + e, e = ${A.flangeAllowanceMm.value} mm from the mounting face to the rod-end connection, retracted (assumed)`;
 const REAR_RULE = (style: string) => `${style}: L = L₀ + 2·s, L₀ = ${A.pivotLengthAtZeroStrokeMm.value} mm mounting point to rod end at zero stroke (assumed)`;
 
 /** Where the body is held: at the front (the column is the stroke plus the head) or at the rear (the whole cylinder). */

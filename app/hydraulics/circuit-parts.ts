@@ -27,15 +27,24 @@ export function pumpParts(d: Design): CircuitPart {
     return {
       components: [
         {
-          id: "pump", kind: "pump", ports: ["inlet", "outlet", "shaft"], label: "Double pump, small section",
+          id: "pump",
+          kind: "pump",
+          ports: ["inlet", "outlet", "shaft"],
+          label: "Double pump, small section",
           values: { type: "double", section: "small", displacementCcRev: small, flowLpm: flowOf(d, small), totalFlowLpm: d.flowsLpm.pump },
         },
         {
-          id: "pump-large", kind: "pump", ports: ["inlet", "outlet", "shaft"], label: "Double pump, large section",
+          id: "pump-large",
+          kind: "pump",
+          ports: ["inlet", "outlet", "shaft"],
+          label: "Double pump, large section",
           values: { type: "double", section: "large", displacementCcRev: large, flowLpm: flowOf(d, large), unloadingBar: p.unloadingBar },
         },
         {
-          id: "unloading", kind: "unloading", ports: ["1", "2", "X"], label: "Unloading valve, externally piloted from the system line",
+          id: "unloading",
+          kind: "unloading",
+          ports: ["1", "2", "X"],
+          label: "Unloading valve, externally piloted from the system line",
           values: { settingBar: p.unloadingBar, ...(p.unloadedDropBar !== undefined ? { unloadedDropBar: p.unloadedDropBar } : {}) },
         },
         { id: "pump-check", kind: "check", ports: ["inlet", "outlet"], label: "Check valve, large pump section to system" },
@@ -92,23 +101,29 @@ export function workLines(d: Design): CircuitPart {
     // Meter-in: the control sets the flow 2 → 1 into the cap end; its check lets the return out freely.
     components.push(
       {
-        id: "press-flow", kind: "flow-control", ports: ["1", "2"], label: "Flow control, pressing speed (meter-in), pressure-compensated",
+        id: "press-flow",
+        kind: "flow-control",
+        ports: ["1", "2"],
+        label: "Flow control, pressing speed (meter-in), pressure-compensated",
         values: { settingLpm: control.settingLpm, compensated: "yes" },
       },
       {
-        id: "press-bypass", kind: "bypass", ports: ["1", "2"], label: "Bypass valve, 2/2 solenoid, normally closed",
+        id: "press-bypass",
+        kind: "bypass",
+        ports: ["1", "2"],
+        label: "Bypass valve, 2/2 solenoid, normally closed",
         values: { normally: "closed", energised: "during the approach" },
       },
     );
     chain.cap.push("press-flow");
-    connections.push(
-      { from: "press-flow.2", to: "press-bypass.2", line: "work" },
-      { from: "press-flow.1", to: "press-bypass.1", line: "work" },
-    );
+    connections.push({ from: "press-flow.2", to: "press-bypass.2", line: "work" }, { from: "press-flow.1", to: "press-bypass.1", line: "work" });
   }
   if (cb) {
     components.push({
-      id: "cbv", kind: "cbv", ports: ["1", "2", "3"], label: "Counterbalance valve",
+      id: "cbv",
+      kind: "cbv",
+      ports: ["1", "2", "3"],
+      label: "Counterbalance valve",
       values: { side: cb.side, settingBar: cb.settingBar, pilotRatio: cb.pilotRatio },
     });
     chain[cb.side].push("cbv");
@@ -119,7 +134,10 @@ export function workLines(d: Design): CircuitPart {
     for (const side of h.side === "both" ? (["cap", "rod"] as const) : [h.side]) {
       const id = `poc-${side}`;
       components.push({
-        id, kind: "poc", ports: ["1", "2", "X"], label: `Pilot-operated check valve, ${side} port`,
+        id,
+        kind: "poc",
+        ports: ["1", "2", "X"],
+        label: `Pilot-operated check valve, ${side} port`,
         values: { side, pilotRatio: h.pilotRatio, pilotOpeningBar: h.pilotOpeningBar },
       });
       chain[side].push(id);
@@ -154,14 +172,23 @@ function regenerationValve(d: Design): CircuitComponent | null {
   const rg = d.regeneration;
   if (!rg) return null;
   return {
-    id: "regen", kind: "regen", ports: ["1", "2", "3"], label: "Regeneration valve, 3/2 solenoid, spring return, in the rod line",
+    id: "regen",
+    kind: "regen",
+    ports: ["1", "2", "3"],
+    label: "Regeneration valve, 3/2 solenoid, spring return, in the rod line",
     positions: regenerationValvePositions(),
     values: {
       normally: "rod port to B",
       endsBy: rg.endsBy,
-      energised: rg.endsBy === "pressure-switch" ? "during the approach, until the pressure switch trips"
-        : rg.endsBy === "limit-switch" ? "during the approach, until the limit switch where the pressing stroke starts" : "with solenoid a, for the whole extension",
-      capInflowLpm: rg.capInflowLpm, rodOutflowLpm: rg.rodOutflowLpm, ...(rg.switchBar !== null ? { switchBar: rg.switchBar } : {}),
+      energised:
+        rg.endsBy === "pressure-switch"
+          ? "during the approach, until the pressure switch trips"
+          : rg.endsBy === "limit-switch"
+            ? "during the approach, until the limit switch where the pressing stroke starts"
+            : "with solenoid a, for the whole extension",
+      capInflowLpm: rg.capInflowLpm,
+      rodOutflowLpm: rg.rodOutflowLpm,
+      ...(rg.switchBar !== null ? { switchBar: rg.switchBar } : {}),
       coilVoltage: d.directionalValve.coilVoltage,
     },
   };
@@ -182,18 +209,27 @@ export function switchParts(d: Design): CircuitPart {
   const beforeEndMm = d.requirements.pressStrokeMm;
   if (d.pressSpeedControl) {
     components.push({
-      id: "press-limit-switch", kind: "limit-switch", ports: [], label: "Limit switch, start of the pressing stroke",
+      id: "press-limit-switch",
+      kind: "limit-switch",
+      ports: [],
+      label: "Limit switch, start of the pressing stroke",
       values: { beforeEndMm, switchesOff: byLimit ? "press-bypass, regen" : "press-bypass" },
     });
   } else if (byLimit) {
     components.push({
-      id: "regeneration-limit-switch", kind: "limit-switch", ports: [], label: "Limit switch, end of the regenerative approach",
+      id: "regeneration-limit-switch",
+      kind: "limit-switch",
+      ports: [],
+      label: "Limit switch, end of the regenerative approach",
       values: { beforeEndMm, switchesOff: "regen" },
     });
   }
   if (rg && rg.switchBar !== null) {
     components.push({
-      id: "regeneration-pressure-switch", kind: "pressure-switch", ports: ["port"], label: "Pressure switch on the cap line, ends the regenerative approach",
+      id: "regeneration-pressure-switch",
+      kind: "pressure-switch",
+      ports: ["port"],
+      label: "Pressure switch on the cap line, ends the regenerative approach",
       values: { settingBar: rg.switchBar, switchesOff: "regen", latched: "until the return stroke" },
     });
     connections.push({ from: "dcv.A", to: "regeneration-pressure-switch.port", line: "work" });
@@ -205,7 +241,9 @@ export function switchParts(d: Design): CircuitPart {
 export function returnLine(d: Design): CircuitPart {
   if (!d.cooler) return { components: [], connections: [{ from: "filter.outlet", to: "tank.return", line: "return" }] };
   return {
-    components: [{ id: "cooler", kind: "cooler", ports: ["inlet", "outlet"], label: "Oil cooler (air blast), in the return line", values: { kw: d.cooler.kw } }],
+    components: [
+      { id: "cooler", kind: "cooler", ports: ["inlet", "outlet"], label: "Oil cooler (air blast), in the return line", values: { kw: d.cooler.kw } },
+    ],
     connections: [
       { from: "filter.outlet", to: "cooler.inlet", line: "return" },
       { from: "cooler.outlet", to: "tank.return", line: "return" },
@@ -223,7 +261,10 @@ export function decompressionParts(d: Design): CircuitPart {
   return {
     components: [
       {
-        id: "decompression", kind: "decompression", ports: ["1", "2"], label: "Decompression valve for the cap line",
+        id: "decompression",
+        kind: "decompression",
+        ports: ["1", "2"],
+        label: "Decompression valve for the cap line",
         values: { releaseCm3: d.decompression.releaseCm3, pressureBar: d.decompression.pressureBar },
       },
     ],

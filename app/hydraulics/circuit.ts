@@ -20,18 +20,27 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
     ...pump.components,
     vent
       ? {
-          id: "relief", kind: "relief", ports: ["1", "2", "X"], label: "Relief valve, pilot-operated, solenoid-vented",
+          id: "relief",
+          kind: "relief",
+          ports: ["1", "2", "X"],
+          label: "Relief valve, pilot-operated, solenoid-vented",
           values: { settingBar: d.pressuresBar.reliefSetting, vented: "yes", ventPressureBar: vent.ventPressureBar },
         }
       : { id: "relief", kind: "relief", ports: ["1", "2"], label: "Relief valve", values: { settingBar: d.pressuresBar.reliefSetting } },
     { id: "gauge", kind: "gauge", ports: ["port"], label: "Gauge", values: { rangeBar: gaugeRangeBar } },
     {
-      id: "dcv", kind: "dcv", ports: ["P", "T", "A", "B"], label: "4/3 directional valve",
+      id: "dcv",
+      kind: "dcv",
+      ports: ["P", "T", "A", "B"],
+      label: "4/3 directional valve",
       values: { center: d.directionalValve.center, iso4401Size: d.directionalValve.iso4401Size, coilVoltage: d.directionalValve.coilVoltage },
     },
     { id: "filter", kind: "filter", ports: ["inlet", "outlet"], label: "Return filter", values: { ratedFlowLpm: d.returnFilter.ratedFlowLpm } },
     {
-      id: "cylinder", kind: "cylinder", ports: ["cap", "rod"], label: "Cylinder",
+      id: "cylinder",
+      kind: "cylinder",
+      ports: ["cap", "rod"],
+      label: "Cylinder",
       values: { boreMm: d.cylinder.boreMm, rodMm: d.cylinder.rodMm, strokeMm: d.cylinder.strokeMm },
     },
   ];
@@ -52,13 +61,13 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
   // The vent valve goes last so the work-line connections keep their order for readers.
   if (vent) {
     components.push({
-      id: "vent", kind: "vent", ports: ["P", "T"], label: "Relief vent valve, 2/2 solenoid, normally open",
+      id: "vent",
+      kind: "vent",
+      ports: ["P", "T"],
+      label: "Relief vent valve, 2/2 solenoid, normally open",
       values: { ventPressureBar: vent.ventPressureBar, coilVoltage: vent.coilVoltage, normally: "open", energised: "with solenoid a or b" },
     });
-    connections.push(
-      { from: "relief.X", to: "vent.P", line: "pilot" },
-      { from: "vent.T", to: "tank.return", line: "return" },
-    );
+    connections.push({ from: "relief.X", to: "vent.P", line: "pilot" }, { from: "vent.T", to: "tank.return", line: "return" });
   }
   // the double pump's large section, check and unloading valve after the rest, as the vent valve
   connections.push(...pump.connections);

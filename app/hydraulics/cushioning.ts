@@ -43,7 +43,13 @@ function end(massKg: number, speedMmS: number, downN: number, trappedAreaMm2: nu
  * pressure while the cap side pushes into the cushion.
  */
 export function cushioningFor(
-  massKg: number, loads: AxisLoads, cyl: CylinderCandidate, extendMmS: number, retractMmS: number, extendInletBar: number, retractInletBar: number,
+  massKg: number,
+  loads: AxisLoads,
+  cyl: CylinderCandidate,
+  extendMmS: number,
+  retractMmS: number,
+  extendInletBar: number,
+  retractInletBar: number,
 ): Cushioning {
   // The weight adds to the cushion force at the end the load moves down into.
   const downOnExtend = loads.extendGravitySign < 0 ? loads.gravityAlongAxisN : 0;

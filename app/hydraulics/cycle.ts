@@ -63,16 +63,30 @@ export function cycleOf(d: Omit<Design, "cycle">, pump: CyclePumpPhases): CycleP
     if (!at) throw new Error(`cycleOf: the pump choice reports no ${phase} phase, yet the cycle has one`);
     const { bar: pressureBar, lpm: pumpFlowLpm } = at;
     phases.push({
-      phase, step, axes: moving ? [axis] : [], durationS, demandLpm, pressureBar, pumpFlowLpm,
-      hydraulicKw: hydraulicPowerKw(pressureBar, pumpFlowLpm), shaftKw,
+      phase,
+      step,
+      axes: moving ? [axis] : [],
+      durationS,
+      demandLpm,
+      pressureBar,
+      pumpFlowLpm,
+      hydraulicKw: hydraulicPowerKw(pressureBar, pumpFlowLpm),
+      shaftKw,
     });
   };
 
   // The approach draws A·v at the actual speed; a regenerative one only A_rod·v from the pump (continuity).
   const approachAreaMm2 = d.regenerative ? c.capAreaMm2 - c.annulusAreaMm2 : c.capAreaMm2;
   const pressing = d.flowsLpm.press !== undefined;
-  add(pressing ? "approach" : "extend", 0, true, timeOf("approach"), phaseFlowLpm(approachAreaMm2, d.speedsMmS.extendActual),
-    pump.approach, shaftOf("approach"));
+  add(
+    pressing ? "approach" : "extend",
+    0,
+    true,
+    timeOf("approach"),
+    phaseFlowLpm(approachAreaMm2, d.speedsMmS.extendActual),
+    pump.approach,
+    shaftOf("approach"),
+  );
   if (pressing) add("pressing", 0, true, timeOf("pressing"), d.flowsLpm.press!, pump.press, shaftOf("pressing"));
   add("dwell", 0, false, timeOf("dwell"), 0, pump.dwell, shaftOf("dwell"));
   add("retract", 1, true, timeOf("retract"), phaseFlowLpm(c.annulusAreaMm2, d.speedsMmS.retractActual), pump.retract, shaftOf("retract"));

@@ -19,14 +19,24 @@ export interface CylinderCandidate {
 export const circleAreaMm2 = (diameterMm: number): number => (Math.PI * diameterMm * diameterMm) / 4;
 
 /** F [N] = p [bar] · A [mm²] / 10 · η — textbook F = η·p·A. */
-export const cylinderForceN = (pressureBar: number, areaMm2: number, efficiency: number): number =>
-  (pressureBar * areaMm2 * efficiency) / 10;
+export const cylinderForceN = (pressureBar: number, areaMm2: number, efficiency: number): number => (pressureBar * areaMm2 * efficiency) / 10;
 
 function candidate(boreMm: number, rodMm: number, table: CylinderSeries, ratioClass: number, outOfSeries: boolean): CylinderCandidate {
   const capAreaMm2 = circleAreaMm2(boreMm);
   const annulusAreaMm2 = capAreaMm2 - circleAreaMm2(rodMm);
   const series = outOfSeries ? "ISO 3320" : table.name;
-  return { boreMm, rodMm, series, table: table.name, ratioClass, outOfSeries, ratedPressureBar: table.ratedPressureBar, capAreaMm2, annulusAreaMm2, areaRatio: capAreaMm2 / annulusAreaMm2 };
+  return {
+    boreMm,
+    rodMm,
+    series,
+    table: table.name,
+    ratioClass,
+    outOfSeries,
+    ratedPressureBar: table.ratedPressureBar,
+    capAreaMm2,
+    annulusAreaMm2,
+    areaRatio: capAreaMm2 / annulusAreaMm2,
+  };
 }
 
 function buildCandidates(series: CylinderSeries): readonly CylinderCandidate[] {

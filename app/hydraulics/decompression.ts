@@ -17,8 +17,7 @@ export interface Decompression {
   needed: boolean;
 }
 
-export const releaseCm3 = (volumeL: number, pressureBar: number): number =>
-  (volumeL * 1000 * pressureBar) / A.effectiveBulkModulusBar.value;
+export const releaseCm3 = (volumeL: number, pressureBar: number): number => (volumeL * 1000 * pressureBar) / A.effectiveBulkModulusBar.value;
 
 export function decompressionFor(volumeL: number, pressureBar: number): Decompression {
   const release = releaseCm3(volumeL, pressureBar);

@@ -119,9 +119,27 @@ export interface RegenerationDesign {
 export interface CircuitComponent {
   id: string;
   kind:
-    | "pump" | "motor" | "relief" | "vent" | "dcv" | "cbv" | "cylinder" | "tank" | "filter" | "gauge" | "strainer" | "regen"
-    | "poc" | "cooler" | "decompression" | "unloading" | "check" | "flow-control" | "bypass"
-    | "pressure-switch" | "limit-switch";
+    | "pump"
+    | "motor"
+    | "relief"
+    | "vent"
+    | "dcv"
+    | "cbv"
+    | "cylinder"
+    | "tank"
+    | "filter"
+    | "gauge"
+    | "strainer"
+    | "regen"
+    | "poc"
+    | "cooler"
+    | "decompression"
+    | "unloading"
+    | "check"
+    | "flow-control"
+    | "bypass"
+    | "pressure-switch"
+    | "limit-switch";
   /** a limit switch has none: it is worked by the rod, not by the oil */
   ports: string[];
   label?: string;

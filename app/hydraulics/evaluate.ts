@@ -6,22 +6,34 @@ import { A } from "./assumptions";
 import { bucklingColumn, checkBuckling, type BucklingColumn, type BucklingResult } from "./buckling";
 import { workingLimitBar, type CylinderCandidate } from "./cylinder";
 import { DEFAULT_FLUID, lineLossBar, sizeLine, type Fluid, type LineSizing } from "./lines";
-import {
-  accelerationForceN, axisLoads, extendForces, pressForceN, retractForces, type AxisLoads, type StrokeForces,
-} from "./loads";
+import { accelerationForceN, axisLoads, extendForces, pressForceN, retractForces, type AxisLoads, type StrokeForces } from "./loads";
 import { holdingSide } from "./holding";
 import { phaseFlowLpm } from "./phases";
 import { pressBypassDropBar, pressNeedsControl } from "./press-speed";
 import { choosePump, smallSectionLpm, type PumpChoice } from "./pump-choice";
 import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import {
-  capInflowLpm, regenerationRuledOut, regenerationVerdict, regenSwitchFits, regenSwitchSettingBar, regenToRetractSpeedRatio, rodAreaMm2,
-  rodOutflowLpm, type RegenEnd,
+  capInflowLpm,
+  regenerationRuledOut,
+  regenerationVerdict,
+  regenSwitchFits,
+  regenSwitchSettingBar,
+  regenToRetractSpeedRatio,
+  rodAreaMm2,
+  rodOutflowLpm,
+  type RegenEnd,
 } from "./regeneration";
 import type { Requirements } from "./requirements";
 import {
-  brakingLoadPressureBar, cbvSettingBar, choosePilotRatio, cylinderInletBar, hydraulicForceN, pilotOpeningBar, reliefSettingBar,
-  type CbvSide, type PilotRatioChoice,
+  brakingLoadPressureBar,
+  cbvSettingBar,
+  choosePilotRatio,
+  cylinderInletBar,
+  hydraulicForceN,
+  pilotOpeningBar,
+  reliefSettingBar,
+  type CbvSide,
+  type PilotRatioChoice,
 } from "./valves";
 
 export interface SizingContext {
@@ -63,9 +75,14 @@ export function sizingContext(req: Requirements): SizingContext {
   const retractNeed = Math.max(retractForces(loads, retAccel).movingN, 0);
 
   return {
-    req, loads, speedRpm: motorSpeedRpm(req.supplyHz), fluid: DEFAULT_FLUID,
+    req,
+    loads,
+    speedRpm: motorSpeedRpm(req.supplyHz),
+    fluid: DEFAULT_FLUID,
     buckling: bucklingColumn(req.mounting, req.mountingStyle, req.strokeMm),
-    cbvSide, pilot, inertiaRatio,
+    cbvSide,
+    pilot,
+    inertiaRatio,
     regenRuledOut: regenerationRuledOut(loads.overrunningStroke, holdingSide(req, loads), req.pumpType),
     minExtendHydraulicN: extendNeed / eta,
     minRetractHydraulicN: retractNeed / eta,
@@ -245,10 +262,8 @@ function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: nu
   const extendBackBar = regenerative
     ? lineLossBar(lines.rodWork, rodOutLpm, fluid) + dcv + capInLossBar
     : lineLossBar(lines.rodWork, qp / phi, fluid) + dcv + lineLossBar(lines.return, qp / phi, fluid) + filter;
-  const retractSupplyLossBar =
-    pressureLine + dcv + lineLossBar(lines.rodWork, qp, fluid) + (ctx.cbvSide === "rod" ? check : 0);
-  const retractBackBar =
-    lineLossBar(lines.capWork, qp * phi, fluid) + dcv + lineLossBar(lines.return, qp * phi, fluid) + filter;
+  const retractSupplyLossBar = pressureLine + dcv + lineLossBar(lines.rodWork, qp, fluid) + (ctx.cbvSide === "rod" ? check : 0);
+  const retractBackBar = lineLossBar(lines.capWork, qp * phi, fluid) + dcv + lineLossBar(lines.return, qp * phi, fluid) + filter;
 
   // Counterbalance on the side the load pressurises, set for the load while it is braked from
   // the actual lowering speed (its pilot opening still follows the load at rest).
@@ -262,7 +277,13 @@ function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: nu
     const settingBar = cbvSettingBar(brakingPressureBar);
     const areaTerm = rodSide ? phi : 1 / phi;
     cbv = {
-      side: ctx.cbvSide, loadPressureBar, brakingPressureBar, loweringSpeedMmS: loweringMmS, settingBar, ratio: ctx.pilot.ratio, areaTerm,
+      side: ctx.cbvSide,
+      loadPressureBar,
+      brakingPressureBar,
+      loweringSpeedMmS: loweringMmS,
+      settingBar,
+      ratio: ctx.pilot.ratio,
+      areaTerm,
       pilotOpeningBar: pilotOpeningBar(settingBar, loadPressureBar, ctx.pilot.ratio, areaTerm),
       loweringDropBar: 0,
       // The larger of the two flows it carries: lowering through 1→2 (Q_p/φ from the rod end,
@@ -285,10 +306,19 @@ function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: nu
   // The valve and filter allowances hold at the pump flow; through the same orifices the drop
   // goes with the square of the flow (orifice equation, Δp ∝ Q²) [D].
   const orificeScale = flowPressLpm === null ? 0 : (flowPressLpm / qp) ** 2;
-  const pressSupplyLossBar = flowPressLpm === null ? 0
-    : lineLossBar(lines.pressure, flowPressLpm, fluid) + dcv * orificeScale + lineLossBar(lines.capWork, flowPressLpm, fluid) + (ctx.cbvSide === "cap" ? check : 0);
-  const pressBackBar = flowPressLpm === null ? 0
-    : lineLossBar(lines.rodWork, flowPressLpm / phi, fluid) + (dcv + filter) * orificeScale / phi ** 2 + lineLossBar(lines.return, flowPressLpm / phi, fluid);
+  const pressSupplyLossBar =
+    flowPressLpm === null
+      ? 0
+      : lineLossBar(lines.pressure, flowPressLpm, fluid) +
+        dcv * orificeScale +
+        lineLossBar(lines.capWork, flowPressLpm, fluid) +
+        (ctx.cbvSide === "cap" ? check : 0);
+  const pressBackBar =
+    flowPressLpm === null
+      ? 0
+      : lineLossBar(lines.rodWork, flowPressLpm / phi, fluid) +
+        ((dcv + filter) * orificeScale) / phi ** 2 +
+        lineLossBar(lines.return, flowPressLpm / phi, fluid);
   const extendPressBar = cylinderInletBar(hydraulicForceN(pressN, eta), a1, a3, pressBackBar, rodCbv) + pressSupplyLossBar;
   const extendBar = Math.max(extendMovingBar, extendPressBar);
   const retractBar = retractInletBar + retractSupplyLossBar;
@@ -302,11 +332,20 @@ function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: nu
   const workingBar = Math.max(extendBar, retractBar);
   const fixedReliefBar = reliefSettingBar(workingBar);
   // The pump choice sets a compensated pump's relief from its compensator; others keep 1.1 × p_working.
-  const pump = choosePump({
-    approachBar: extendMovingBar, retractBar,
-    press: flowPressLpm !== null ? { bar: extendPressBar, flowLpm: flowPressLpm } : null,
-    reliefBar: fixedReliefBar, workingBar, ratedBar: cyl.ratedPressureBar, displacementCc, pumpFlowLpm: qp, speedRpm: ctx.speedRpm,
-  }, req.pumpType);
+  const pump = choosePump(
+    {
+      approachBar: extendMovingBar,
+      retractBar,
+      press: flowPressLpm !== null ? { bar: extendPressBar, flowLpm: flowPressLpm } : null,
+      reliefBar: fixedReliefBar,
+      workingBar,
+      ratedBar: cyl.ratedPressureBar,
+      displacementCc,
+      pumpFlowLpm: qp,
+      speedRpm: ctx.speedRpm,
+    },
+    req.pumpType,
+  );
   const reliefBar = pump.reliefBar;
   // Regenerating, the rod side stands Δp above the cap side; otherwise it carries the back-pressure.
   const rodSidePeakBar = Math.max(retractInletBar, cbv?.side === "rod" ? cbv.settingBar : regenerative ? extendInletBar + extendBackBar : extendBackBar);
@@ -317,8 +356,13 @@ function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: nu
   const switchBar = regenerative && endsBy === "pressure-switch" ? regenSwitchSettingBar(extendMovingBar) : null;
   const regen: RegenEvaluation | null = regenerative
     ? {
-        rodAreaMm2: aRod, capInflowLpm: capInLpm, rodOutflowLpm: rodOutLpm, speedRatioToRetract: regenToRetractSpeedRatio(a3, aRod),
-        endsBy, switchBar, switchFits: switchBar === null || regenSwitchFits(switchBar, extendPressBar),
+        rodAreaMm2: aRod,
+        capInflowLpm: capInLpm,
+        rodOutflowLpm: rodOutLpm,
+        speedRatioToRetract: regenToRetractSpeedRatio(a3, aRod),
+        endsBy,
+        switchBar,
+        switchFits: switchBar === null || regenSwitchFits(switchBar, extendPressBar),
       }
     : null;
 
@@ -328,11 +372,47 @@ function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: nu
   const buckling = checkBuckling(cyl.rodMm, ctx.buckling.lengthMm, ctx.buckling.k, compressiveN);
 
   return {
-    cyl, regen, regenReason: "", hoseUpsize, workingLimitBar: limitBar, flowExtendLpm, flowRetractLpm, flowPressLpm, pumpRequiredLpm, requiredDisplacementCc: needCc, displacementCc,
-    pumpInSeries: inSeries, pumpFlowLpm: qp, extendActualMmS, retractActualMmS, accelExtendN, accelRetractN,
-    extend, retract, pressN, lines, pressBypassDropBar: bypassDropBar, extendSupplyLossBar, extendBackBar, retractSupplyLossBar, retractBackBar,
-    cbv, extendInletBar, extendMovingBar, extendPressBar, extendBar, retractInletBar, retractBar,
-    extendSteadyBar, retractSteadyBar, workingBar, reliefBar, pump, rodSidePeakBar, compressiveN, buckling,
+    cyl,
+    regen,
+    regenReason: "",
+    hoseUpsize,
+    workingLimitBar: limitBar,
+    flowExtendLpm,
+    flowRetractLpm,
+    flowPressLpm,
+    pumpRequiredLpm,
+    requiredDisplacementCc: needCc,
+    displacementCc,
+    pumpInSeries: inSeries,
+    pumpFlowLpm: qp,
+    extendActualMmS,
+    retractActualMmS,
+    accelExtendN,
+    accelRetractN,
+    extend,
+    retract,
+    pressN,
+    lines,
+    pressBypassDropBar: bypassDropBar,
+    extendSupplyLossBar,
+    extendBackBar,
+    retractSupplyLossBar,
+    retractBackBar,
+    cbv,
+    extendInletBar,
+    extendMovingBar,
+    extendPressBar,
+    extendBar,
+    retractInletBar,
+    retractBar,
+    extendSteadyBar,
+    retractSteadyBar,
+    workingBar,
+    reliefBar,
+    pump,
+    rodSidePeakBar,
+    compressiveN,
+    buckling,
     pressureOk: workingBar <= limitBar + 1e-9,
     cbvOk: !cbv || cbv.settingBar <= cyl.ratedPressureBar + 1e-9,
     bucklingOk: buckling.safetyFactor >= A.bucklingSafetyFactor.value,
@@ -360,8 +440,10 @@ export function evaluateWithRegenerationChoice(ctx: SizingContext, cyl: Cylinder
     ruledOut: ctx.regenRuledOut,
     normal: { displacementCc: normal.displacementCc, pumpType: normal.pump.type },
     regen: regen && {
-      displacementCc: regen.displacementCc, speedRatioToRetract: regen.regen!.speedRatioToRetract,
-      approachBar: regen.extendMovingBar, limitBar: regen.workingLimitBar,
+      displacementCc: regen.displacementCc,
+      speedRatioToRetract: regen.regen!.speedRatioToRetract,
+      approachBar: regen.extendMovingBar,
+      limitBar: regen.workingLimitBar,
       // It must meet every limit the full-area design meets: a higher approach pressure raises the
       // relief, and with it the stall thrust the rod must carry without buckling.
       passes: regen.pressureOk && regen.cbvOk && (regen.bucklingOk || !normal.bucklingOk),

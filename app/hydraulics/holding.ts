@@ -38,7 +38,10 @@ export function holdingSide(req: Requirements, loads: AxisLoads): HoldingSide | 
  * forces either way (a bypassing piston seal would otherwise let it drift).
  */
 export function holdingFor(
-  req: Requirements, loads: AxisLoads, cyl: CylinderCandidate, pumpFlowLpm: number,
+  req: Requirements,
+  loads: AxisLoads,
+  cyl: CylinderCandidate,
+  pumpFlowLpm: number,
   /** flow into the cap end during a regenerative approach (through the cap-side check), if any */
   capInflowLpm = 0,
 ): HoldingDesign | null {
@@ -51,8 +54,13 @@ export function holdingFor(
     const loadBar = (10 * loads.gravityAlongAxisN) / cyl.annulusAreaMm2;
     const p1 = loadBar / (R - phi);
     return {
-      kind: "pilot-operated-check", side: "rod", pilotRatio: R, pilotOpeningBar: p1, openingLoadSideBar: loadBar + phi * p1,
-      flowLpm: pumpFlowLpm, reason: "the hanging load pressurises the rod end",
+      kind: "pilot-operated-check",
+      side: "rod",
+      pilotRatio: R,
+      pilotOpeningBar: p1,
+      openingLoadSideBar: loadBar + phi * p1,
+      flowLpm: pumpFlowLpm,
+      reason: "the hanging load pressurises the rod end",
     };
   }
   if (overrun === "retract" || req.processForceN > 0) {
@@ -60,13 +68,22 @@ export function holdingFor(
     const forceN = overrun === "retract" ? loads.gravityAlongAxisN : req.processForceN;
     const loadBar = (10 * forceN) / cyl.capAreaMm2;
     return {
-      kind: "pilot-operated-check", side: "cap", pilotRatio: R, pilotOpeningBar: loadBar / (R - 1 / phi), openingLoadSideBar: loadBar,
+      kind: "pilot-operated-check",
+      side: "cap",
+      pilotRatio: R,
+      pilotOpeningBar: loadBar / (R - 1 / phi),
+      openingLoadSideBar: loadBar,
       flowLpm: Math.max(pumpFlowLpm * phi, capInflowLpm),
       reason: overrun === "retract" ? "the lifted load pressurises the cap end" : "the clamping force is held on the cap end",
     };
   }
   return {
-    kind: "pilot-operated-check", side: "both", pilotRatio: R, pilotOpeningBar: 0, openingLoadSideBar: 0, flowLpm: Math.max(pumpFlowLpm * phi, capInflowLpm),
+    kind: "pilot-operated-check",
+    side: "both",
+    pilotRatio: R,
+    pilotOpeningBar: 0,
+    openingLoadSideBar: 0,
+    flowLpm: Math.max(pumpFlowLpm * phi, capInflowLpm),
     reason: "no weight or working force loads one end, so both ends are closed to hold the position against forces either way",
   };
 }

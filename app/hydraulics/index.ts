@@ -10,10 +10,22 @@ import { parseMachine } from "./machine-requirements";
 
 export { ENGINE_VERSION, sizeCircuitParsed } from "./size";
 export {
-  requirementsSchema, parseRequirements, RequirementsError, FORM_ERROR_KEY,
-  REQUIREMENT_LIMITS, REQUIREMENT_DEFAULTS, REQUIREMENT_MESSAGES, ORIENTATIONS, ROD_DIRECTIONS, MOUNTINGS,
-  MOUNTING_STYLES, PUMP_TYPES, SUPPLY_FREQUENCIES, NAME_MAX,
-  type Requirements, type RequirementsInput,
+  requirementsSchema,
+  parseRequirements,
+  RequirementsError,
+  FORM_ERROR_KEY,
+  REQUIREMENT_LIMITS,
+  REQUIREMENT_DEFAULTS,
+  REQUIREMENT_MESSAGES,
+  ORIENTATIONS,
+  ROD_DIRECTIONS,
+  MOUNTINGS,
+  MOUNTING_STYLES,
+  PUMP_TYPES,
+  SUPPLY_FREQUENCIES,
+  NAME_MAX,
+  type Requirements,
+  type RequirementsInput,
 } from "./requirements";
 export type * from "./design";
 export { WARNING_CODES, type WarningCode } from "./warnings";
@@ -21,8 +33,16 @@ export { NotSizableError } from "./not-sizable";
 export { ASSUMPTIONS } from "./assumptions";
 export { sizeMachineParsed } from "./machine";
 export {
-  parseMachine, defaultSequence, MACHINE_LIMITS, MACHINE_MESSAGES, MACHINE_DUTY_FIELDS, MOTIONS,
-  type MachineRequirements, type MachineRequirementsInput, type MachineMotion, type Motion,
+  parseMachine,
+  defaultSequence,
+  MACHINE_LIMITS,
+  MACHINE_MESSAGES,
+  MACHINE_DUTY_FIELDS,
+  MOTIONS,
+  type MachineRequirements,
+  type MachineRequirementsInput,
+  type MachineMotion,
+  type Motion,
 } from "./machine-requirements";
 export type * from "./machine-design";
 

@@ -9,21 +9,17 @@ export interface Fluid {
 export const DEFAULT_FLUID: Fluid = { viscosityMm2S: A.viscosityMm2S.value, densityKgM3: A.densityKgM3.value };
 
 /** d [mm] = √(4Q/(πv)) = 4.607·√(Q [L/min] / v [m/s]) — continuity [D]. */
-export const lineDiameterMm = (flowLpm: number, velocityMS: number): number =>
-  Math.sqrt((4 * flowLpm) / (60_000 * Math.PI * velocityMS)) * 1000;
+export const lineDiameterMm = (flowLpm: number, velocityMS: number): number => Math.sqrt((4 * flowLpm) / (60_000 * Math.PI * velocityMS)) * 1000;
 
 /** v [m/s] = Q / A. */
-export const lineVelocityMS = (flowLpm: number, diameterMm: number): number =>
-  flowLpm / 60_000 / ((Math.PI * diameterMm * diameterMm) / 4 / 1e6);
+export const lineVelocityMS = (flowLpm: number, diameterMm: number): number => flowLpm / 60_000 / ((Math.PI * diameterMm * diameterMm) / 4 / 1e6);
 
 /** Re = 1000·v [m/s]·d [mm] / ν [mm²/s]. */
-export const reynoldsNumber = (velocityMS: number, diameterMm: number, viscosityMm2S: number): number =>
-  (1000 * velocityMS * diameterMm) / viscosityMm2S;
+export const reynoldsNumber = (velocityMS: number, diameterMm: number, viscosityMm2S: number): number => (1000 * velocityMS * diameterMm) / viscosityMm2S;
 
 export type FlowRegime = "laminar" | "transitional" | "turbulent";
 
-export const flowRegime = (re: number): FlowRegime =>
-  re < A.laminarReynoldsLimit.value ? "laminar" : re < 4000 ? "transitional" : "turbulent";
+export const flowRegime = (re: number): FlowRegime => (re < A.laminarReynoldsLimit.value ? "laminar" : re < 4000 ? "transitional" : "turbulent");
 
 /**
  * Darcy friction factor: 64/Re when laminar; above Re ≈ 2000 the larger of 64/Re and Blasius
@@ -97,9 +93,22 @@ export function sizeLine(flowLpm: number, velocityLimitMS: number, lengthM: numb
   const f = frictionFactor(reynolds);
   const perM = darcyBarPerM(f, d, fluid.densityKgM3, velocityMS);
   return {
-    hoseIndex, flowLpm, velocityLimitMS, requiredDiameterMm, dashSize: hose.dash, nominalInch: hose.inch, dn: hose.dn,
-    innerDiameterMm: d, velocityMS, reynolds, regime: flowRegime(reynolds), frictionFactor: f,
-    pressureLossBarPerM: perM, lengthM, pressureLossBar: perM * lengthM, inRange,
+    hoseIndex,
+    flowLpm,
+    velocityLimitMS,
+    requiredDiameterMm,
+    dashSize: hose.dash,
+    nominalInch: hose.inch,
+    dn: hose.dn,
+    innerDiameterMm: d,
+    velocityMS,
+    reynolds,
+    regime: flowRegime(reynolds),
+    frictionFactor: f,
+    pressureLossBarPerM: perM,
+    lengthM,
+    pressureLossBar: perM * lengthM,
+    inRange,
   };
 }
 

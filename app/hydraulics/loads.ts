@@ -33,14 +33,12 @@ export function axisLoads(req: Requirements): AxisLoads {
   const sin = angleDeg === 90 ? 1 : Math.sin(rad);
   const cos = angleDeg === 90 ? 0 : Math.cos(rad);
   const weightN = req.massKg * A.gravity.value;
-  const extendGravitySign: -1 | 0 | 1 =
-    req.orientation === "horizontal" ? 0 : req.rodDirection === "down" ? -1 : 1;
+  const extendGravitySign: -1 | 0 | 1 = req.orientation === "horizontal" ? 0 : req.rodDirection === "down" ? -1 : 1;
   const gravityAlongAxisN = req.orientation === "horizontal" ? 0 : weightN * sin;
   const frictionN = req.frictionCoefficient * weightN * cos;
   // The load overruns only where its weight along the axis beats the guide friction; a massless
   // rod or a shallow incline (tan θ ≤ μ) stays put without a counterbalance valve (statics [D]).
-  const overrunningStroke: Stroke | null =
-    extendGravitySign === 0 || gravityAlongAxisN <= frictionN ? null : extendGravitySign < 0 ? "extend" : "retract";
+  const overrunningStroke: Stroke | null = extendGravitySign === 0 || gravityAlongAxisN <= frictionN ? null : extendGravitySign < 0 ? "extend" : "retract";
   return {
     angleDeg,
     gravityAlongAxisN,

@@ -9,7 +9,7 @@ import type { MachineDesign } from "./machine-design";
 import { gaugeRangeBar, POWER_UNIT_KEYS, powerUnitDesign } from "./machine-unit";
 
 /** Oil held by a hose, L. */
-const hoseL = (l: { innerDiameterMm: number; lengthM: number }): number => ((Math.PI * l.innerDiameterMm ** 2) / 4) * l.lengthM / 1000;
+const hoseL = (l: { innerDiameterMm: number; lengthM: number }): number => (((Math.PI * l.innerDiameterMm ** 2) / 4) * l.lengthM) / 1000;
 
 export function machineBom(m: MachineDesign, designs: Design[]): BomLine[] {
   const gauge = gaugeRangeBar(m.pressuresBar.reliefSetting);
@@ -17,31 +17,45 @@ export function machineBom(m: MachineDesign, designs: Design[]): BomLine[] {
   const unit = buildBom(powerUnitDesign(m, designs[0]), gauge).filter((l) => POWER_UNIT_KEYS.has(l.key));
   // First fill: the tank, every cap end and every hose.
   const fillL = Math.ceil(
-    m.reservoir.volumeL
-      + designs.reduce((s, d) => s + (d.cylinder.capAreaMm2 * d.cylinder.strokeMm) / 1e6 + hoseL(d.lines.capWork) + hoseL(d.lines.rodWork), 0)
-      + hoseL(m.lines.pressure) + hoseL(m.lines.return) + hoseL(m.lines.suction),
+    m.reservoir.volumeL +
+      designs.reduce((s, d) => s + (d.cylinder.capAreaMm2 * d.cylinder.strokeMm) / 1e6 + hoseL(d.lines.capWork) + hoseL(d.lines.rodWork), 0) +
+      hoseL(m.lines.pressure) +
+      hoseL(m.lines.return) +
+      hoseL(m.lines.suction),
   );
-  const lines = unit.map((l) => (l.key === "fluid-fill"
-    ? { ...l, specification: `about ${fillL} L: reservoir, every cylinder and hose`, rating: { ...l.rating, value: fillL } }
-    : l));
+  const lines = unit.map((l) =>
+    l.key === "fluid-fill" ? { ...l, specification: `about ${fillL} L: reservoir, every cylinder and hose`, rating: { ...l.rating, value: fillL } } : l,
+  );
   m.axes.forEach((axis, i) => {
     const own = { ...designs[i], directionalValve: axis.directionalValve, pressuresBar: { ...designs[i].pressuresBar, reliefSetting: relief } };
     const tag = (l: BomLine): BomLine => ({ ...l, key: `${l.key}:${axis.name}`, item: `${l.item}, ${axis.name}` });
-    lines.push(...buildBom(own, gauge).filter((l) => !POWER_UNIT_KEYS.has(l.key)).map(tag));
+    lines.push(
+      ...buildBom(own, gauge)
+        .filter((l) => !POWER_UNIT_KEYS.has(l.key))
+        .map(tag),
+    );
     if (axis.speedControl) {
-      lines.push(tag({
-        key: "speed-control", item: "Flow control valve, pressure-compensated, modular (sandwich) in the P line under the directional valve", quantity: 1,
-        specification: `set to about ${num(axis.speedControl.flowLpm)} L/min, the flow a pump of the axis's own size would give, so both strokes keep the speeds the axis was sized at on the shared pump; rated for at least ${relief} bar`,
-        rating: { value: axis.speedControl.flowLpm, unit: "L/min", label: "set flow" },
-      }));
+      lines.push(
+        tag({
+          key: "speed-control",
+          item: "Flow control valve, pressure-compensated, modular (sandwich) in the P line under the directional valve",
+          quantity: 1,
+          specification: `set to about ${num(axis.speedControl.flowLpm)} L/min, the flow a pump of the axis's own size would give, so both strokes keep the speeds the axis was sized at on the shared pump; rated for at least ${relief} bar`,
+          rating: { value: axis.speedControl.flowLpm, unit: "L/min", label: "set flow" },
+        }),
+      );
     }
     const prv = reducingSettingBar(axis.cylinder.ratedPressureBar, relief, designs[i].pressuresBar.reliefSetting);
     if (prv !== null) {
-      lines.push(tag({
-        key: "reducing-valve", item: "Pressure-reducing valve, modular (sandwich) under the directional valve, P line, externally drained", quantity: 1,
-        specification: `set to ${num(prv)} bar so the ${axis.cylinder.ratedPressureBar} bar cylinder never sees the ${relief} bar relief; with a check for the free return flow`,
-        rating: { value: prv, unit: "bar", label: "setting" },
-      }));
+      lines.push(
+        tag({
+          key: "reducing-valve",
+          item: "Pressure-reducing valve, modular (sandwich) under the directional valve, P line, externally drained",
+          quantity: 1,
+          specification: `set to ${num(prv)} bar so the ${axis.cylinder.ratedPressureBar} bar cylinder never sees the ${relief} bar relief; with a check for the free return flow`,
+          rating: { value: prv, unit: "bar", label: "setting" },
+        }),
+      );
     }
   });
   return lines;

@@ -28,12 +28,24 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
   const feeds = unit.connections.filter((c) => c.to === "dcv.P" && POWER_UNIT_IDS.has(componentOf(c.from)));
   m.axes.forEach((axis, i) => {
     const center = axis.directionalValve.center;
-    const own = buildCircuit({ ...designs[i], directionalValve: axis.directionalValve, reliefVent: m.reliefVent, pressuresBar: { ...designs[i].pressuresBar, reliefSetting: m.pressuresBar.reliefSetting } }, gauge, dcvPositions(center));
+    const own = buildCircuit(
+      {
+        ...designs[i],
+        directionalValve: axis.directionalValve,
+        reliefVent: m.reliefVent,
+        pressuresBar: { ...designs[i].pressuresBar, reliefSetting: m.pressuresBar.reliefSetting },
+      },
+      gauge,
+      dcvPositions(center),
+    );
     const rename = (end: string): string => (POWER_UNIT_IDS.has(componentOf(end)) ? end : `${axisPartId(i, componentOf(end))}.${portOf(end)}`);
     for (const c of own.components) {
       if (POWER_UNIT_IDS.has(c.id)) continue;
       components.push({
-        ...c, id: axisPartId(i, c.id), axis: axis.name, label: `${c.label ?? c.kind}, ${axis.name}`,
+        ...c,
+        id: axisPartId(i, c.id),
+        axis: axis.name,
+        label: `${c.label ?? c.kind}, ${axis.name}`,
         ...(c.kind === "dcv" ? { dcvPositions: own.dcvPositions } : {}),
       });
     }
@@ -47,7 +59,10 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
     if (axis.speedControl) {
       const id = axisPartId(i, "speed-control");
       components.push({
-        id, kind: "flow-control", ports: ["1", "2"], axis: axis.name,
+        id,
+        kind: "flow-control",
+        ports: ["1", "2"],
+        axis: axis.name,
         label: `Flow control, P line (meter-in), pressure-compensated, ${axis.name}`,
         values: { settingLpm: axis.speedControl.flowLpm, compensated: "yes" },
       });

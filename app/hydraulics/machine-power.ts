@@ -21,7 +21,10 @@ import { cylinderDrawL, reservoirVolumeL, tankDissipationKw, tankSurfaceM2 } fro
 export function neutralPhase(designs: Design[], mp: MachinePump): PumpPhase & { shaftKw: number } {
   const { choice, qpLpm: qp, speedRpm } = mp;
   const centreBar = designs.length === 1 ? designs[0].heat.neutralPressureBar : A.ventPressureBar.value;
-  const p = choice.type === "compensated" ? { bar: choice.compensatorBar!, lpm: compensatorLeakLpm(qp), kw: hydraulicPowerKw(choice.compensatorBar!, compensatorLeakLpm(qp)) } : pumpPhaseInNeutral(choice, qp, speedRpm, centreBar);
+  const p =
+    choice.type === "compensated"
+      ? { bar: choice.compensatorBar!, lpm: compensatorLeakLpm(qp), kw: hydraulicPowerKw(choice.compensatorBar!, compensatorLeakLpm(qp)) }
+      : pumpPhaseInNeutral(choice, qp, speedRpm, centreBar);
   // A destroked compensated pump's standby loss has no efficiency to divide by at zero delivery.
   return { ...p, shaftKw: choice.type === "compensated" ? p.kw : p.kw / A.overallEfficiency.value };
 }
@@ -44,7 +47,14 @@ export interface MotorChoice {
  * before unloading, a compensated pump's corner without a limiter, a fixed pump stalled at the
  * relief at the end of a stroke against a force, and the pump at rest.
  */
-export function machineMotor(cycle: MachineCyclePhase[], pumpKw: number[], mp: MachinePump, designs: Design[], neutral: PumpPhase, cyclesPerHour: number): MotorChoice {
+export function machineMotor(
+  cycle: MachineCyclePhase[],
+  pumpKw: number[],
+  mp: MachinePump,
+  designs: Design[],
+  neutral: PumpPhase,
+  cyclesPerHour: number,
+): MotorChoice {
   const etaO = A.overallEfficiency.value;
   const ph = mp.choice.phases;
   const atForce = designs.some((d) => d.requirements.processForceN > 0 || d.requirements.dwellS > 0);
@@ -66,7 +76,15 @@ export function machineMotor(cycle: MachineCyclePhase[], pumpKw: number[], mp: M
   const longKw = Math.max(0, ...cycle.filter((p) => p.durationS > 0 && (p.kind === "neutral" || p.durationS > A.motorPeakSeconds.value)).map((p) => p.shaftKw));
   const requiredKw = rmsValid ? Math.max(rmsKw, peakKw / A.motorPeakRatio.value, longKw) : peakKw;
   const motor = selectMotorKw(requiredKw);
-  return { requiredKw, ratedKw: motor.ratedKw, inSeries: motor.inSeries, peakKw, sizingPressureBar: governing.bar, rmsKw: rmsValid ? rmsKw : null, sizedAtRelief: mp.choice.type === "fixed" && atForce };
+  return {
+    requiredKw,
+    ratedKw: motor.ratedKw,
+    inSeries: motor.inSeries,
+    peakKw,
+    sizingPressureBar: governing.bar,
+    rmsKw: rmsValid ? rmsKw : null,
+    sizedAtRelief: mp.choice.type === "fixed" && atForce,
+  };
 }
 
 /** Usable volume: the pump rule plus the oil every cylinder keeps out of the tank when all are extended at once. */
@@ -86,10 +104,14 @@ export function machineLines(designs: Design[], qp: number, returnMaxLpm: number
   const near = (a: number, b: number) => Math.abs(a - b) < 1e-9;
   const widest = (own: LineSizing[], plain: LineSizing) => own.reduce((a, b) => (b.innerDiameterMm > a.innerDiameterMm ? b : a), plain);
   return {
-    pressure: widest(designs.filter((d) => near(d.flowsLpm.pump, qp)).map((d) => d.lines.pressure),
-      sizeLine(qp, A.pressureVelocityLimit.value, A.pressureLineLengthM.value, DEFAULT_FLUID)),
-    return: widest(designs.filter((d) => near(d.flowsLpm.returnMax, returnMaxLpm)).map((d) => d.lines.return),
-      sizeLine(returnMaxLpm, A.returnVelocityLimit.value, A.returnLineLengthM.value, DEFAULT_FLUID)),
+    pressure: widest(
+      designs.filter((d) => near(d.flowsLpm.pump, qp)).map((d) => d.lines.pressure),
+      sizeLine(qp, A.pressureVelocityLimit.value, A.pressureLineLengthM.value, DEFAULT_FLUID),
+    ),
+    return: widest(
+      designs.filter((d) => near(d.flowsLpm.returnMax, returnMaxLpm)).map((d) => d.lines.return),
+      sizeLine(returnMaxLpm, A.returnVelocityLimit.value, A.returnLineLengthM.value, DEFAULT_FLUID),
+    ),
     suction: sizeLine(qp, A.suctionVelocityLimit.value, A.suctionLineLengthM.value, DEFAULT_FLUID),
   };
 }

@@ -33,7 +33,13 @@ export interface MachinePumpPhase extends PumpPhase {
 const TOL = 1e-6;
 
 /** Phase demand of the machine: the highest pressure any axis needs in each kind of phase, the pressing flow, the relief. */
-export function machinePhaseDemand(designs: Design[], timeline: TimelinePhase[], displacementCc: number, qp: number, speedRpm: number): { demand: PhaseDemand; governing: Design } {
+export function machinePhaseDemand(
+  designs: Design[],
+  timeline: TimelinePhase[],
+  displacementCc: number,
+  qp: number,
+  speedRpm: number,
+): { demand: PhaseDemand; governing: Design } {
   const governing = designs.reduce((a, b) => (b.cylinder.workingPressureBar > a.cylinder.workingPressureBar ? b : a));
   const pressing = designs.filter((d) => d.flowsLpm.press !== undefined);
   const pressFlow = Math.max(0, ...pressing.map((d) => d.flowsLpm.press!), ...timeline.filter((p) => p.kind === "pressing").map((p) => p.sizingLpm));
@@ -48,7 +54,9 @@ export function machinePhaseDemand(designs: Design[], timeline: TimelinePhase[],
       reliefBar: reliefSettingBar(workingBar),
       workingBar,
       ratedBar: governing.cylinder.ratedPressureBar,
-      displacementCc, pumpFlowLpm: qp, speedRpm,
+      displacementCc,
+      pumpFlowLpm: qp,
+      speedRpm,
     },
   };
 }
@@ -76,7 +84,10 @@ export function chooseMachinePump(designs: Design[], timeline: TimelinePhase[], 
   if (asked === undefined && surplus.length > 0 && choice.type !== "compensated") {
     const c = choosePump(demand, "compensated");
     const who = [...new Set(surplus.flatMap((p) => p.axes))].join(", ");
-    choice = { ...c, reason: `a pressure-compensated pump with a power limiter: the axes draw different flows (${who} alone draw${surplus.length === 1 && !who.includes(",") ? "s" : ""} less than the ${Math.round(qp * 10) / 10} L/min the pump must deliver when the most flow is drawn), and a fixed pump would push the surplus over the relief as heat` };
+    choice = {
+      ...c,
+      reason: `a pressure-compensated pump with a power limiter: the axes draw different flows (${who} alone draw${surplus.length === 1 && !who.includes(",") ? "s" : ""} less than the ${Math.round(qp * 10) / 10} L/min the pump must deliver when the most flow is drawn), and a fixed pump would push the surplus over the relief as heat`,
+    };
   }
   const smallLpm = choice.type === "double" ? pumpDeliveryLpm(choice.displacementsCcRev[1], speedRpm, etaV) : null;
   return { choice, demand, requiredLpm, requiredDisplacementCc: needCc, inSeries, qpLpm: qp, speedRpm, smallLpm, governingAxis: governing.requirements.name! };

@@ -43,7 +43,10 @@ const motionSchema = z.object(
 /** The machine's own fields; each axis is checked separately, with the axis schema. */
 const machineFields = z.object(
   {
-    axes: z.array(z.unknown(), { error: MACHINE_MESSAGES.axes }).min(MACHINE_LIMITS.axes.min, MACHINE_MESSAGES.axes).max(MACHINE_LIMITS.axes.max, MACHINE_MESSAGES.axes),
+    axes: z
+      .array(z.unknown(), { error: MACHINE_MESSAGES.axes })
+      .min(MACHINE_LIMITS.axes.min, MACHINE_MESSAGES.axes)
+      .max(MACHINE_LIMITS.axes.max, MACHINE_MESSAGES.axes),
     sequence: z
       .array(z.array(motionSchema, { error: MACHINE_MESSAGES.step }).min(1, MACHINE_MESSAGES.step), { error: MACHINE_MESSAGES.sequence })
       .min(1, MACHINE_MESSAGES.sequence)
@@ -154,7 +157,11 @@ export function parseMachine(input: unknown): MachineRequirements {
     axes,
     sequence: sequence ?? defaultSequence(axes.map((a) => a.name)),
     defaultSequence: sequence === undefined,
-    cyclesPerHour: d.cyclesPerHour, hoursPerDay: d.hoursPerDay, ambientC: d.ambientC, supplyHz: d.supplyHz, maxPressureBar: d.maxPressureBar,
+    cyclesPerHour: d.cyclesPerHour,
+    hoursPerDay: d.hoursPerDay,
+    ambientC: d.ambientC,
+    supplyHz: d.supplyHz,
+    maxPressureBar: d.maxPressureBar,
     ...(d.pumpType !== undefined ? { pumpType: d.pumpType } : {}),
   };
 }

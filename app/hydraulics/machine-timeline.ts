@@ -62,25 +62,36 @@ export function axisSegments(d: Design, motion: MachineMotion["motion"], shared:
   // Regenerating, the pump fills only the rod's displacement during the approach (continuity), A_rod·v as evaluate.ts.
   const approachAskedLpm = d.regenerative ? phaseFlowLpm(d.regeneration?.rodAreaMm2 ?? c.capAreaMm2 - c.annulusAreaMm2, s.extendRequested) : d.flowsLpm.extend;
   const phi = c.areaRatio;
-  return (d.cycle ?? []).filter((ph) => ph.step === step).map((ph): AxisSegment => {
-    const p = ph.phase;
-    const fast = p === "approach" || p === "extend" || p === "retract";
-    const askedMmS = p === "retract" ? s.retractRequested : s.extendRequested;
-    const actualMmS = p === "retract" ? s.retractActual : s.extendActual;
-    const sizingLpm = p === "retract" ? d.flowsLpm.retract : p === "pressing" ? d.flowsLpm.press! : p === "dwell" ? 0 : approachAskedLpm;
-    const slow = shared && fast;
-    const drawLpm = slow ? sizingLpm : ph.demandLpm;
-    const speedMmS = fast ? (slow ? askedMmS : actualMmS) : p === "pressing" ? d.requirements.pressSpeedMmS! : 0;
-    const forceN = p === "retract" ? d.loads.retractSteadyN : p === "pressing" ? d.loads.extendPressN : d.loads.extendSteadyN;
-    const needBar = p === "retract" ? d.pressuresBar.retract : p === "approach" || p === "extend" ? d.pressuresBar.extendMoving : d.pressuresBar.extendPress;
-    // Retracting, the cap end returns φ·Q; extending, the rod end Q/φ (a regenerative approach sends it to the cap end).
-    const returnLpm = p === "retract" ? drawLpm * phi : p === "dwell" || (d.regenerative && p !== "pressing") ? 0 : ph.demandLpm === 0 ? 0 : drawLpm / phi;
-    const aloneLossKw = p === "retract" ? d.heat.retractLossKw : p === "pressing" ? d.heat.pressLossKw : p === "dwell" ? d.heat.dwellLossKw : d.heat.extendLossKw;
-    return {
-      axis: name, phase: p, durationS: slow ? (ph.durationS * actualMmS) / askedMmS : ph.durationS,
-      drawLpm, sizingLpm, needBar, returnLpm, usefulKw: (forceN * speedMmS) / 1e6, aloneLossKw, moving: p !== "dwell",
-    };
-  });
+  return (d.cycle ?? [])
+    .filter((ph) => ph.step === step)
+    .map((ph): AxisSegment => {
+      const p = ph.phase;
+      const fast = p === "approach" || p === "extend" || p === "retract";
+      const askedMmS = p === "retract" ? s.retractRequested : s.extendRequested;
+      const actualMmS = p === "retract" ? s.retractActual : s.extendActual;
+      const sizingLpm = p === "retract" ? d.flowsLpm.retract : p === "pressing" ? d.flowsLpm.press! : p === "dwell" ? 0 : approachAskedLpm;
+      const slow = shared && fast;
+      const drawLpm = slow ? sizingLpm : ph.demandLpm;
+      const speedMmS = fast ? (slow ? askedMmS : actualMmS) : p === "pressing" ? d.requirements.pressSpeedMmS! : 0;
+      const forceN = p === "retract" ? d.loads.retractSteadyN : p === "pressing" ? d.loads.extendPressN : d.loads.extendSteadyN;
+      const needBar = p === "retract" ? d.pressuresBar.retract : p === "approach" || p === "extend" ? d.pressuresBar.extendMoving : d.pressuresBar.extendPress;
+      // Retracting, the cap end returns φ·Q; extending, the rod end Q/φ (a regenerative approach sends it to the cap end).
+      const returnLpm = p === "retract" ? drawLpm * phi : p === "dwell" || (d.regenerative && p !== "pressing") ? 0 : ph.demandLpm === 0 ? 0 : drawLpm / phi;
+      const aloneLossKw =
+        p === "retract" ? d.heat.retractLossKw : p === "pressing" ? d.heat.pressLossKw : p === "dwell" ? d.heat.dwellLossKw : d.heat.extendLossKw;
+      return {
+        axis: name,
+        phase: p,
+        durationS: slow ? (ph.durationS * actualMmS) / askedMmS : ph.durationS,
+        drawLpm,
+        sizingLpm,
+        needBar,
+        returnLpm,
+        usefulKw: (forceN * speedMmS) / 1e6,
+        aloneLossKw,
+        moving: p !== "dwell",
+      };
+    });
 }
 
 /** One step: every axis's segments laid side by side from the step's start, cut where any changes. */

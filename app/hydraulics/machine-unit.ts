@@ -10,11 +10,38 @@ import { GAUGE_RANGES_BAR, nextInSeries } from "./series";
 
 /** Bill lines that belong to the power unit: one each for the machine. */
 export const POWER_UNIT_KEYS = new Set([
-  "pump", "motor", "coupling-bellhousing", "reservoir", "suction-strainer", "return-filter", "relief-valve", "relief-vent-valve",
-  "cooler", "gauge", "fluid-fill", "unloading-valve", "pump-check-valve", "hose-pressure", "hose-return", "hose-suction",
+  "pump",
+  "motor",
+  "coupling-bellhousing",
+  "reservoir",
+  "suction-strainer",
+  "return-filter",
+  "relief-valve",
+  "relief-vent-valve",
+  "cooler",
+  "gauge",
+  "fluid-fill",
+  "unloading-valve",
+  "pump-check-valve",
+  "hose-pressure",
+  "hose-return",
+  "hose-suction",
 ]);
 /** Circuit components that belong to the power unit. */
-export const POWER_UNIT_IDS = new Set(["tank", "strainer", "motor", "pump", "pump-large", "unloading", "pump-check", "relief", "gauge", "filter", "vent", "cooler"]);
+export const POWER_UNIT_IDS = new Set([
+  "tank",
+  "strainer",
+  "motor",
+  "pump",
+  "pump-large",
+  "unloading",
+  "pump-check",
+  "relief",
+  "gauge",
+  "filter",
+  "vent",
+  "cooler",
+]);
 
 /** Gauge full scale: the next range above the relief by the gauge factor [CP], as for an axis. */
 export const gaugeRangeBar = (reliefBar: number): number =>

@@ -11,8 +11,13 @@ import type { Warning, WarningCode } from "./warnings";
 
 /** Axis warnings about the power unit: the machine judges these once, for its own pump, motor and tank. */
 const POWER_UNIT_CODES = new Set<WarningCode>([
-  "HEAT_COOLER_NEEDED", "PUMP_BEYOND_SERIES", "MOTOR_BEYOND_SERIES", "DUTY_CYCLE_OVERLOAD", "PUMP_TYPE_NOT_SUITED",
-  "PUMP_ON_RELIEF_IN_NEUTRAL", "RELIEF_VENTED_IN_NEUTRAL",
+  "HEAT_COOLER_NEEDED",
+  "PUMP_BEYOND_SERIES",
+  "MOTOR_BEYOND_SERIES",
+  "DUTY_CYCLE_OVERLOAD",
+  "PUMP_TYPE_NOT_SUITED",
+  "PUMP_ON_RELIEF_IN_NEUTRAL",
+  "RELIEF_VENTED_IN_NEUTRAL",
 ]);
 
 export function machineWarnings(m: MachineDesign, designs: Design[], mp: MachinePump, motorInSeries: boolean): Warning[] {
@@ -30,29 +35,45 @@ export function machineWarnings(m: MachineDesign, designs: Design[], mp: Machine
     }
     const prv = reducingSettingBar(d.cylinder.ratedPressureBar, m.pressuresBar.reliefSetting, d.pressuresBar.reliefSetting);
     if (prv !== null) {
-      add("AXIS_PRESSURE_REDUCED",
-        `${name}: its ${d.cylinder.ratedPressureBar} bar cylinder shares a pump relieved at ${num(m.pressuresBar.reliefSetting)} bar, so a pressure-reducing valve in its P line holds it to ${num(prv)} bar; the pressure it drops becomes heat while the axis moves.`);
+      add(
+        "AXIS_PRESSURE_REDUCED",
+        `${name}: its ${d.cylinder.ratedPressureBar} bar cylinder shares a pump relieved at ${num(m.pressuresBar.reliefSetting)} bar, so a pressure-reducing valve in its P line holds it to ${num(prv)} bar; the pressure it drops becomes heat while the axis moves.`,
+      );
     }
   });
   for (const ph of m.cycle) {
     if (ph.demandLpm > ph.pumpFlowLpm * (1 + 1e-6)) {
-      add("MACHINE_FLOW_SHORT",
-        `While ${ph.axes.join(" and ")} move${ph.axes.length === 1 ? "s" : ""} (step ${(ph.step ?? 0) + 1}), they draw ${num(ph.demandLpm)} L/min but the ${m.pump.type} pump delivers only ${num(ph.pumpFlowLpm)} L/min at ${num(ph.pressureBar)} bar: those axes will be slower than asked. Move them in separate steps, or size the pump for them together.`);
+      add(
+        "MACHINE_FLOW_SHORT",
+        `While ${ph.axes.join(" and ")} move${ph.axes.length === 1 ? "s" : ""} (step ${(ph.step ?? 0) + 1}), they draw ${num(ph.demandLpm)} L/min but the ${m.pump.type} pump delivers only ${num(ph.pumpFlowLpm)} L/min at ${num(ph.pressureBar)} bar: those axes will be slower than asked. Move them in separate steps, or size the pump for them together.`,
+      );
     }
   }
-  if (!mp.inSeries) add("PUMP_BEYOND_SERIES", `The flow needs more than the largest displacement in the series (${m.pump.displacementCcRev} cm³/rev); use several pumps or a larger unit.`);
+  if (!mp.inSeries)
+    add(
+      "PUMP_BEYOND_SERIES",
+      `The flow needs more than the largest displacement in the series (${m.pump.displacementCcRev} cm³/rev); use several pumps or a larger unit.`,
+    );
   if (!motorInSeries) add("MOTOR_BEYOND_SERIES", `The drive needs ${num(m.motor.requiredKw)} kW, more than the largest motor listed.`);
   if (m.heat.cycleS !== null && m.heat.busyS > m.heat.cycleS + 1e-9) {
-    add("DUTY_CYCLE_OVERLOAD", `One machine cycle takes ${num(m.heat.busyS)} s of movement, more than the ${num(m.heat.cycleS)} s the cycles per hour allow; the heat is worked out for continuous movement.`);
+    add(
+      "DUTY_CYCLE_OVERLOAD",
+      `One machine cycle takes ${num(m.heat.busyS)} s of movement, more than the ${num(m.heat.cycleS)} s the cycles per hour allow; the heat is worked out for continuous movement.`,
+    );
   }
   if (m.cooler) {
-    add("HEAT_COOLER_NEEDED",
-      `On average ${num(m.heat.averageLossKw)} kW becomes heat, but a ${m.reservoir.volumeL} L tank sheds only about ${num(m.heat.tankDissipationKw, 2)} kW at ${m.requirements.ambientC} °C ambient with oil at 60 °C. The bill has a cooler for at least ${num(m.cooler.kw)} kW.`);
+    add(
+      "HEAT_COOLER_NEEDED",
+      `On average ${num(m.heat.averageLossKw)} kW becomes heat, but a ${m.reservoir.volumeL} L tank sheds only about ${num(m.heat.tankDissipationKw, 2)} kW at ${m.requirements.ambientC} °C ambient with oil at 60 °C. The bill has a cooler for at least ${num(m.cooler.kw)} kW.`,
+    );
   }
-  if (m.requirements.pumpType !== undefined && m.requirements.pumpType !== m.pump.type) add("PUMP_TYPE_NOT_SUITED", `The pump asked for is not sized: ${m.pump.reason}.`);
+  if (m.requirements.pumpType !== undefined && m.requirements.pumpType !== m.pump.type)
+    add("PUMP_TYPE_NOT_SUITED", `The pump asked for is not sized: ${m.pump.reason}.`);
   if (several && m.reliefVent) {
-    add("RELIEF_VENTED_IN_NEUTRAL",
-      `Every directional valve blocks P in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever any axis's valve is shifted, or no axis can build pressure. With every valve in neutral the pump circulates at about ${num(m.reliefVent.ventPressureBar)} bar.`);
+    add(
+      "RELIEF_VENTED_IN_NEUTRAL",
+      `Every directional valve blocks P in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever any axis's valve is shifted, or no axis can build pressure. With every valve in neutral the pump circulates at about ${num(m.reliefVent.ventPressureBar)} bar.`,
+    );
   }
   return list;
 }

@@ -26,7 +26,9 @@ function sizeAxis(m: MachineRequirements, i: number): Design {
   } catch (error) {
     if (!(error instanceof RequirementsError)) throw error;
     // The pressure limit is the machine's field; everything else belongs to the axis.
-    const keyed = Object.fromEntries(Object.entries(error.fieldErrors).map(([k, msgs]) => [k === "maxPressureBar" ? k : `axes.${i}.${k}`, msgs.map((msg) => `${m.axes[i].name}: ${msg}`)]));
+    const keyed = Object.fromEntries(
+      Object.entries(error.fieldErrors).map(([k, msgs]) => [k === "maxPressureBar" ? k : `axes.${i}.${k}`, msgs.map((msg) => `${m.axes[i].name}: ${msg}`)]),
+    );
     if (error instanceof NotSizableError) throw new NotSizableError(Object.keys(keyed)[0], { ...error.warning, message: keyed[Object.keys(keyed)[0]][0] });
     throw new RequirementsError(keyed);
   }
@@ -56,16 +58,28 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
   const several = designs.length > 1;
   const ownPump = (axis: string) => {
     const p = byName.get(axis)!.pump;
-    return p.type === choice.type && p.displacementsCcRev.join() === choice.displacementsCcRev.join()
-      && byName.get(axis)!.pressuresBar.reliefSetting === choice.reliefBar;
+    return (
+      p.type === choice.type &&
+      p.displacementsCcRev.join() === choice.displacementsCcRev.join() &&
+      byName.get(axis)!.pressuresBar.reliefSetting === choice.reliefBar
+    );
   };
 
   // The cycle: each phase with what the pump does then, and the neutral rest of the cycle.
   const pumpPhases = timeline.map((ph) => pumpInPhase(ph, mp));
   const cycle: MachineCyclePhase[] = timeline.map((ph, i) => ({
-    step: ph.step, phase: ph.phase, kind: ph.kind, axes: ph.axes, motions: ph.segments.map((s) => ({ axis: s.axis, phase: s.phase })),
-    durationS: ph.durationS, shownS: ph.durationS, demandLpm: ph.demandLpm, pressureBar: pumpPhases[i].bar, pumpFlowLpm: pumpPhases[i].lpm,
-    hydraulicKw: (pumpPhases[i].bar * pumpPhases[i].lpm) / 600, shaftKw: pumpPhases[i].shaftKw,
+    step: ph.step,
+    phase: ph.phase,
+    kind: ph.kind,
+    axes: ph.axes,
+    motions: ph.segments.map((s) => ({ axis: s.axis, phase: s.phase })),
+    durationS: ph.durationS,
+    shownS: ph.durationS,
+    demandLpm: ph.demandLpm,
+    pressureBar: pumpPhases[i].bar,
+    pumpFlowLpm: pumpPhases[i].lpm,
+    hydraulicKw: (pumpPhases[i].bar * pumpPhases[i].lpm) / 600,
+    shaftKw: pumpPhases[i].shaftKw,
     heatKw: phaseHeatKw(ph, pumpPhases[i].shaftKw, ownPump),
   }));
   const busyS = cycle.reduce((s, p) => s + p.durationS, 0);
@@ -74,12 +88,30 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
   const neutral = neutralPhase(designs, mp);
   if (cycleS !== null && cycleS - busyS > 0) {
     cycle.push({
-      step: null, phase: "neutral", kind: "neutral", axes: [], motions: [], durationS: cycleS - busyS, shownS: Math.min(cycleS - busyS, busyS),
-      demandLpm: 0, pressureBar: neutral.bar, pumpFlowLpm: neutral.lpm, hydraulicKw: (neutral.bar * neutral.lpm) / 600, shaftKw: neutral.shaftKw, heatKw: neutral.shaftKw,
+      step: null,
+      phase: "neutral",
+      kind: "neutral",
+      axes: [],
+      motions: [],
+      durationS: cycleS - busyS,
+      shownS: Math.min(cycleS - busyS, busyS),
+      demandLpm: 0,
+      pressureBar: neutral.bar,
+      pumpFlowLpm: neutral.lpm,
+      hydraulicKw: (neutral.bar * neutral.lpm) / 600,
+      shaftKw: neutral.shaftKw,
+      heatKw: neutral.shaftKw,
     });
   }
 
-  const motor = machineMotor(cycle, pumpPhases.map((p) => p.kw), mp, designs, neutral, m.cyclesPerHour);
+  const motor = machineMotor(
+    cycle,
+    pumpPhases.map((p) => p.kw),
+    mp,
+    designs,
+    neutral,
+    m.cyclesPerHour,
+  );
   const reservoir = machineReservoir(designs, qp, m.ambientC);
   const returnMaxLpm = Math.max(...timeline.map((p) => p.returnLpm));
   const lines = machineLines(designs, qp, returnMaxLpm);
@@ -90,31 +122,50 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
 
   // One relief vent for a fixed or double pump behind several P-blocking valves; one valve keeps its own arrangement.
   const reliefVent = several
-    ? choice.type === "compensated" ? null : {
-        ventPressureBar: A.ventPressureBar.value,
-        valve: "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank",
-        coilVoltage: `${A.coilVoltage.value} V DC`,
-        energisedWhen: "with any solenoid of any axis's directional valve; de-energised when every valve is in neutral",
-      }
+    ? choice.type === "compensated"
+      ? null
+      : {
+          ventPressureBar: A.ventPressureBar.value,
+          valve: "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank",
+          coilVoltage: `${A.coilVoltage.value} V DC`,
+          energisedWhen: "with any solenoid of any axis's directional valve; de-energised when every valve is in neutral",
+        }
     : designs[0].reliefVent;
 
   const axes: MachineAxis[] = designs.map((d) => {
     const center = several ? parallelCentre(d.directionalValve.center) : d.directionalValve.center;
     const ownFlow = Math.max(...timeline.flatMap((p) => p.segments.filter((s) => s.axis === d.requirements.name && s.moving).map((s) => s.drawLpm)));
     return {
-      name: d.requirements.name!, requirements: d.requirements, loads: d.loads, cylinder: d.cylinder, pressuresBar: d.pressuresBar,
+      name: d.requirements.name!,
+      requirements: d.requirements,
+      loads: d.loads,
+      cylinder: d.cylinder,
+      pressuresBar: d.pressuresBar,
       flowsLpm: { extend: d.flowsLpm.extend, retract: d.flowsLpm.retract, ...(d.flowsLpm.press !== undefined ? { press: d.flowsLpm.press } : {}) },
-      speedsMmS: d.speedsMmS, regenerative: d.regenerative, regeneration: d.regeneration ?? null, pressSpeedControl: d.pressSpeedControl,
-      counterbalance: d.counterbalance, holding: d.holding, decompression: d.decompression,
-      directionalValve: center === d.directionalValve.center ? d.directionalValve : {
-        ...d.directionalValve, center,
-        centerReason: `${center} centre: this valve shares the pump with the other axes' valves, so it blocks P in neutral (a ${d.directionalValve.center} centre would let the pump escape through it); the relief is vented to unload the pump`,
-        neutralPumpFlow: "blocked at every valve; the pump unloads through the vented relief",
-      },
+      speedsMmS: d.speedsMmS,
+      regenerative: d.regenerative,
+      regeneration: d.regeneration ?? null,
+      pressSpeedControl: d.pressSpeedControl,
+      counterbalance: d.counterbalance,
+      holding: d.holding,
+      decompression: d.decompression,
+      directionalValve:
+        center === d.directionalValve.center
+          ? d.directionalValve
+          : {
+              ...d.directionalValve,
+              center,
+              centerReason: `${center} centre: this valve shares the pump with the other axes' valves, so it blocks P in neutral (a ${d.directionalValve.center} centre would let the pump escape through it); the relief is vented to unload the pump`,
+              neutralPumpFlow: "blocked at every valve; the pump unloads through the vented relief",
+            },
       lines: { capWork: d.lines.capWork, rodWork: d.lines.rodWork },
-      speedControl: ownFlow < qp * (1 - A.speedTolerance.value)
-        ? { flowLpm: ownFlow, reason: `the pump delivers ${Math.round(qp * 10) / 10} L/min and this axis draws at most ${Math.round(ownFlow * 10) / 10} L/min, so a meter-in flow control holds its speed` }
-        : null,
+      speedControl:
+        ownFlow < qp * (1 - A.speedTolerance.value)
+          ? {
+              flowLpm: ownFlow,
+              reason: `the pump delivers ${Math.round(qp * 10) / 10} L/min and this axis draws at most ${Math.round(ownFlow * 10) / 10} L/min, so a meter-in flow control holds its speed`,
+            }
+          : null,
     };
   });
 
@@ -139,8 +190,14 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
       overallEfficiency: A.overallEfficiency.value,
     },
     motor: {
-      requiredKw: motor.requiredKw, ratedKw: motor.ratedKw, poles: A.motorPoles.value, frame, sizingPressureBar: motor.sizingPressureBar,
-      sizedAtRelief: motor.sizedAtRelief, peakKw: motor.peakKw, rmsKw: motor.rmsKw,
+      requiredKw: motor.requiredKw,
+      ratedKw: motor.ratedKw,
+      poles: A.motorPoles.value,
+      frame,
+      sizingPressureBar: motor.sizingPressureBar,
+      sizedAtRelief: motor.sizedAtRelief,
+      peakKw: motor.peakKw,
+      rmsKw: motor.rmsKw,
       phases: cycle.filter((p) => p.kind !== "neutral").map((p) => ({ name: p.phase, kw: p.shaftKw, durationS: p.durationS })),
     },
     flowsLpm: { pump: qp, returnMax: returnMaxLpm, requiredMax: mp.requiredLpm },
@@ -151,8 +208,14 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
     lines,
     reliefVent,
     heat: {
-      averageLossKw, neutralLossKw: neutral.shaftKw, neutralPressureBar: neutral.bar, tankDissipationKw: reservoir.dissipationKw, coolerKw,
-      dailyEnergyKwh: averageLossKw * m.hoursPerDay, busyS, cycleS,
+      averageLossKw,
+      neutralLossKw: neutral.shaftKw,
+      neutralPressureBar: neutral.bar,
+      tankDissipationKw: reservoir.dissipationKw,
+      coolerKw,
+      dailyEnergyKwh: averageLossKw * m.hoursPerDay,
+      busyS,
+      cycleS,
     },
     warnings: [],
     bom: [],

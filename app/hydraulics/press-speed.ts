@@ -49,8 +49,7 @@ export function pressBypassDropBar(approachLpm: number, sizedLpm = approachLpm):
 }
 
 /** The pump alone would press more than the speed tolerance faster than asked. */
-export const pressNeedsControl = (pumpOffersLpm: number, pressFlowLpm: number): boolean =>
-  pumpOffersLpm > pressFlowLpm * (1 + A.speedTolerance.value) + 1e-9;
+export const pressNeedsControl = (pumpOffersLpm: number, pressFlowLpm: number): boolean => pumpOffersLpm > pressFlowLpm * (1 + A.speedTolerance.value) + 1e-9;
 
 export interface PressSpeedInputs {
   pumpType: PumpType;
@@ -105,27 +104,56 @@ export function pressSpeedTrail(t: Trail, d: Design): void {
   const tolerance = v(A.speedTolerance.value, "-");
   if (!pc) {
     const small = d.pump.displacementsCcRev[1] ?? d.pump.displacementCcRev;
-    t.add("pressing-speed control", "none: the small pump section gives the pressing speed", "-",
+    t.add(
+      "pressing-speed control",
+      "none: the small pump section gives the pressing speed",
+      "-",
       "Q_S = V_S·n·η_v ≤ (1 + tolerance)·Q_press: only the small section delivers above the unloading setting, and it presses close enough to the speed asked",
       { Q_press: v(q, "L/min"), V_S: v(small, "cm³/rev"), n: v(d.pump.speedRpm, "rpm"), η_v: v(d.pump.volumetricEfficiency, "-"), tolerance },
-      "high-low pump circuits, trade-press texts on unloading valves [S]; continuity [D]; 10 % speed tolerance our convention");
+      "high-low pump circuits, trade-press texts on unloading valves [S]; continuity [D]; 10 % speed tolerance our convention",
+    );
     return;
   }
-  t.add("pressing-speed flow control setting", pc.settingLpm, "L/min",
+  t.add(
+    "pressing-speed flow control setting",
+    pc.settingLpm,
+    "L/min",
     `Q_set = A1·v_press·0.06/1000, meter-in in the cap line, bypassed by a normally closed 2/2 solenoid valve during the approach and switched by a limit switch where the pressing stroke starts: ${pc.reason}`,
-    { Q_pump: v(pc.pumpOffersLpm, "L/min"), Q_press: v(q, "L/min"), tolerance, A1: v(d.cylinder.capAreaMm2, "mm²"), v_press: v(d.requirements.pressSpeedMmS ?? 0, "mm/s") },
-    `continuity [D]; ${CONTROL_SOURCE}`);
-  t.add("drop across the flow control's bypass in the approach", pc.bypassDropBar, "bar",
+    {
+      Q_pump: v(pc.pumpOffersLpm, "L/min"),
+      Q_press: v(q, "L/min"),
+      tolerance,
+      A1: v(d.cylinder.capAreaMm2, "mm²"),
+      v_press: v(d.requirements.pressSpeedMmS ?? 0, "mm/s"),
+    },
+    `continuity [D]; ${CONTROL_SOURCE}`,
+  );
+  t.add(
+    "drop across the flow control's bypass in the approach",
+    pc.bypassDropBar,
+    "bar",
     "Δp = Δp_valve·(Q/Q_sized)²: the bypass valve, sized for the approach flow it passes, adds its allowance to the approach pressure",
     { Δp_valve: v(A.dcvPathDropBar.value, "bar"), Q: v(pc.bypassFlowLpm, "L/min"), Q_sized: v(pc.bypassFlowLpm, "L/min") },
-    "valve pressure-drop allowance at its sized flow, common practice [CP]; orifice equation Δp ∝ Q² [D]");
-  t.add("pressure left across the flow control", pc.availableDropBar, "bar",
-    d.pump.type === "compensated" ? "Δp = p_c − p_press: the compensated pump holds its setting and destrokes to the set flow" : "Δp = p_relief − p_press: the pump sits at the relief while the control passes the set flow",
+    "valve pressure-drop allowance at its sized flow, common practice [CP]; orifice equation Δp ∝ Q² [D]",
+  );
+  t.add(
+    "pressure left across the flow control",
+    pc.availableDropBar,
+    "bar",
+    d.pump.type === "compensated"
+      ? "Δp = p_c − p_press: the compensated pump holds its setting and destrokes to the set flow"
+      : "Δp = p_relief − p_press: the pump sits at the relief while the control passes the set flow",
     { p_side: v(pc.availableDropBar + (d.pressuresBar.press ?? 0), "bar"), p_press: v(d.pressuresBar.press ?? 0, "bar"), Δp_min: v(pc.minDropBar, "bar") },
-    CONTROL_SOURCE);
+    CONTROL_SOURCE,
+  );
   if (pc.overReliefLpm > 0) {
-    t.add("flow over the relief while pressing", pc.overReliefLpm, "L/min", "Q = Q_pump − Q_set: the surplus of a fixed pump (or a double pump's small section) crosses the relief as heat",
+    t.add(
+      "flow over the relief while pressing",
+      pc.overReliefLpm,
+      "L/min",
+      "Q = Q_pump − Q_set: the surplus of a fixed pump (or a double pump's small section) crosses the relief as heat",
       { Q_pump: v(pc.pumpOffersLpm, "L/min"), Q_set: v(pc.settingLpm, "L/min"), p_relief: v(d.pressuresBar.reliefSetting, "bar") },
-      "continuity [D]; fixed-pump behaviour, trade-press pump articles [S]");
+      "continuity [D]; fixed-pump behaviour, trade-press pump articles [S]",
+    );
   }
 }

@@ -107,10 +107,20 @@ function fixed(d: PhaseDemand, reason: string): PumpChoice {
   // A fixed pump delivers its whole flow at whatever pressure the circuit reaches: while
   // pressing slower than the pump and in the dwell it sits at the relief (trade-press pump articles).
   return withPower({
-    type: "fixed", displacementsCcRev: [d.displacementCc], unloadingBar: null, compensatorBar: null, reliefBar: d.reliefBar, compensatorNote: null,
-    powerLimitKw: null, reason,
+    type: "fixed",
+    displacementsCcRev: [d.displacementCc],
+    unloadingBar: null,
+    compensatorBar: null,
+    reliefBar: d.reliefBar,
+    compensatorNote: null,
+    powerLimitKw: null,
+    reason,
     phases: {
-      approach: at(d.approachBar, q), unloadingPeak: null, press: d.press ? at(d.reliefBar, q) : null, dwell: at(d.reliefBar, q), retract: at(d.retractBar, q),
+      approach: at(d.approachBar, q),
+      unloadingPeak: null,
+      press: d.press ? at(d.reliefBar, q) : null,
+      dwell: at(d.reliefBar, q),
+      retract: at(d.retractBar, q),
     },
   });
 }
@@ -133,8 +143,14 @@ function double(d: PhaseDemand, reason: string): PumpChoice | null {
   // the pressing pressure; one that is too fast feeds a flow control and sits at the relief.
   const pressBar = pressNeedsControl(qS, d.press.flowLpm) ? d.reliefBar : d.press.bar;
   return withPower({
-    type: "double", displacementsCcRev: [large, small], unloadingBar: pu, compensatorBar: null, reliefBar: d.reliefBar, compensatorNote: null,
-    powerLimitKw: null, reason,
+    type: "double",
+    displacementsCcRev: [large, small],
+    unloadingBar: pu,
+    compensatorBar: null,
+    reliefBar: d.reliefBar,
+    compensatorNote: null,
+    powerLimitKw: null,
+    reason,
     phases: {
       // both sections deliver the whole flow (Q_L + Q_S = the pump's delivery)
       approach: at(d.approachBar, d.pumpFlowLpm),
@@ -152,12 +168,10 @@ function double(d: PhaseDemand, reason: string): PumpChoice | null {
  * Relief over a compensator: max(1.1·p_c, p_c + 10 bar), rounded up to 5 bar, so it never opens
  * in normal work (10 % on a maker's page; p_c + 10…20 bar common practice [CP]).
  */
-export const compensatedReliefBar = (pcBar: number): number =>
-  roundUp5(Math.max(pcBar * (1 + A.reliefMargin.value), pcBar + A.compensatorReliefGapBar.value));
+export const compensatedReliefBar = (pcBar: number): number => roundUp5(Math.max(pcBar * (1 + A.reliefMargin.value), pcBar + A.compensatorReliefGapBar.value));
 
 /** The highest compensator whose relief (compensatedReliefBar) stays within a rating. */
-const highestCompensatorBar = (ratedBar: number): number =>
-  Math.min(ratedBar / (1 + A.reliefMargin.value), ratedBar - A.compensatorReliefGapBar.value);
+const highestCompensatorBar = (ratedBar: number): number => Math.min(ratedBar / (1 + A.reliefMargin.value), ratedBar - A.compensatorReliefGapBar.value);
 
 /** What the working pressure and the pressing control ask of the compensator, before the rating has its say. */
 function compensatorWantedBar(d: Pick<PhaseDemand, "workingBar" | "press">): number {
@@ -185,9 +199,8 @@ function compensated(d: PhaseDemand, reason: string, limiter: boolean): PumpChoi
   // rating's limit (rating / 1.1), which every design the search returns does.
   const reliefBar = compensatedReliefBar(pc);
   const wanted = compensatorWantedBar(d);
-  const compensatorNote = pc < wanted - 1e-9
-    ? `brought down from ${wanted} bar so that its relief, ${reliefBar} bar, stays within the cylinder's ${d.ratedBar} bar rating`
-    : null;
+  const compensatorNote =
+    pc < wanted - 1e-9 ? `brought down from ${wanted} bar so that its relief, ${reliefBar} bar, stays within the cylinder's ${d.ratedBar} bar rating` : null;
   const leak = compensatorLeakLpm(q);
   // While pressing, the meter-in control passes the pressing flow and the pump holds p_c,
   // destroking to that flow; in the dwell it delivers only its leakage (compensated-pump behaviour).
@@ -203,8 +216,14 @@ function compensated(d: PhaseDemand, reason: string, limiter: boolean): PumpChoi
   const corner = at(pc, q);
   const useLimiter = limiter && corner.kw > phaseMax * (1 + 1e-9);
   return withPower({
-    type: "compensated", displacementsCcRev: [d.displacementCc], unloadingBar: null, compensatorBar: pc, reliefBar, compensatorNote,
-    powerLimitKw: useLimiter ? phaseMax / A.overallEfficiency.value : null, reason,
+    type: "compensated",
+    displacementsCcRev: [d.displacementCc],
+    unloadingBar: null,
+    compensatorBar: pc,
+    reliefBar,
+    compensatorNote,
+    powerLimitKw: useLimiter ? phaseMax / A.overallEfficiency.value : null,
+    reason,
     phases: { ...phases, unloadingPeak: useLimiter ? null : corner },
   });
 }
@@ -233,17 +252,34 @@ export function choosePump(d: PhaseDemand, asked: PumpType | undefined): PumpCho
   if (asked === "fixed") return fixed(d, "a fixed pump, as asked");
   if (asked === "compensated") return compensated(d, "a pressure-compensated pump, as asked", true);
   if (asked === "double") {
-    return double(d, "a double (high-low) pump, as asked")
-      ?? fixed(d, d.press
-        ? "a double pump was asked, but its unloading valve cannot sit clearly between the fast-motion and pressing pressures, so a fixed pump is sized"
-        : "a double pump was asked, but without a pressing stroke there is no slow, high-pressure phase for its small section, so a fixed pump is sized");
+    return (
+      double(d, "a double (high-low) pump, as asked") ??
+      fixed(
+        d,
+        d.press
+          ? "a double pump was asked, but its unloading valve cannot sit clearly between the fast-motion and pressing pressures, so a fixed pump is sized"
+          : "a double pump was asked, but without a pressing stroke there is no slow, high-pressure phase for its small section, so a fixed pump is sized",
+      )
+    );
   }
   if (!d.press || ratio < A.twoSpeedFlowRatio.value) {
-    return fixed(d, d.press
-      ? `a fixed pump: the fast flow is only ${ratio.toFixed(1)} × the pressing flow, so one pump at pressing pressure costs little extra`
-      : "a fixed pump: the axis has one speed range, so one pump size serves every phase");
+    return fixed(
+      d,
+      d.press
+        ? `a fixed pump: the fast flow is only ${ratio.toFixed(1)} × the pressing flow, so one pump at pressing pressure costs little extra`
+        : "a fixed pump: the axis has one speed range, so one pump size serves every phase",
+    );
   }
   const why = `the fast flow is ${ratio.toFixed(1)} × the pressing flow, and high flow and high pressure never meet in this cycle`;
-  return double(d, `a double (high-low) pump: ${why}; both sections feed the approach, the small one alone builds the pressing force, and the large one unloads to tank`)
-    ?? compensated(d, `a pressure-compensated pump with a power limiter: ${why}, but the fast motion needs too much pressure for an unloading valve to sit clearly below the pressing pressure`, true);
+  return (
+    double(
+      d,
+      `a double (high-low) pump: ${why}; both sections feed the approach, the small one alone builds the pressing force, and the large one unloads to tank`,
+    ) ??
+    compensated(
+      d,
+      `a pressure-compensated pump with a power limiter: ${why}, but the fast motion needs too much pressure for an unloading valve to sit clearly below the pressing pressure`,
+      true,
+    )
+  );
 }

@@ -5,16 +5,13 @@ import { IEC60072_MOTOR_KW, ISO3662_DISPLACEMENTS_CC, nextInSeries } from "./ser
 export const synchronousSpeedRpm = (supplyHz: number, poles: number): number => (120 * supplyHz) / poles;
 
 /** Nominal 4-pole asynchronous speed used for sizing [CP]. */
-export const motorSpeedRpm = (supplyHz: 50 | 60): number =>
-  supplyHz === 50 ? A.ratedSpeed50Hz.value : A.ratedSpeed60Hz.value;
+export const motorSpeedRpm = (supplyHz: 50 | 60): number => (supplyHz === 50 ? A.ratedSpeed50Hz.value : A.ratedSpeed60Hz.value);
 
 /** V_g = 1000·Q / (n·η_v), cm³/rev. */
-export const requiredDisplacementCc = (flowLpm: number, speedRpm: number, volumetricEff: number): number =>
-  (1000 * flowLpm) / (speedRpm * volumetricEff);
+export const requiredDisplacementCc = (flowLpm: number, speedRpm: number, volumetricEff: number): number => (1000 * flowLpm) / (speedRpm * volumetricEff);
 
 /** Q = V_g·n·η_v / 1000, L/min. */
-export const pumpDeliveryLpm = (displacementCc: number, speedRpm: number, volumetricEff: number): number =>
-  (displacementCc * speedRpm * volumetricEff) / 1000;
+export const pumpDeliveryLpm = (displacementCc: number, speedRpm: number, volumetricEff: number): number => (displacementCc * speedRpm * volumetricEff) / 1000;
 
 /** P [kW] = p [bar] · Q [L/min] / 600. */
 export const hydraulicPowerKw = (pressureBar: number, flowLpm: number): number => (pressureBar * flowLpm) / 600;

@@ -52,8 +52,7 @@ export function regenSwitchSettingBar(approachBar: number): number {
  * The switch must also sit clearly below the pressing pressure at full area, or the press
  * stroke could stay regenerative (at half the force or less) and never switch over.
  */
-export const regenSwitchFits = (switchBar: number, pressBar: number): boolean =>
-  switchBar <= A.regenSwitchBelowPressRatio.value * pressBar + 1e-9;
+export const regenSwitchFits = (switchBar: number, pressBar: number): boolean => switchBar <= A.regenSwitchBelowPressRatio.value * pressBar + 1e-9;
 
 /**
  * Reasons that hold for every cylinder of the axis. Regeneration is not used:
@@ -127,13 +126,17 @@ export function regenerationVerdict(o: RegenerationOptions): RegenerationVerdict
   if (o.normal.pumpType === "double") {
     return {
       use: false,
-      reason: "a double (high-low) pump already gives the fast approach and leaves only its small section at pressing pressure; regeneration would add a valve and a switch-over for a flow the pump delivers anyway (common practice: one remedy, the one that also cuts the pressing power)",
+      reason:
+        "a double (high-low) pump already gives the fast approach and leaves only its small section at pressing pressure; regeneration would add a valve and a switch-over for a flow the pump delivers anyway (common practice: one remedy, the one that also cuts the pressing power)",
     };
   }
   const r = o.regen;
   if (!r) return { use: false, reason: "not considered for this axis" };
   if (r.approachBar > r.limitBar + 1e-9) {
-    return { use: false, reason: `the approach force on the rod area alone would need ${f1(r.approachBar)} bar, above the ${f1(r.limitBar)} bar working limit` };
+    return {
+      use: false,
+      reason: `the approach force on the rod area alone would need ${f1(r.approachBar)} bar, above the ${f1(r.limitBar)} bar working limit`,
+    };
   }
   if (r.switchOver && !regenSwitchFits(r.switchOver.switchBar, r.switchOver.pressBar)) {
     return {
@@ -141,7 +144,12 @@ export function regenerationVerdict(o: RegenerationOptions): RegenerationVerdict
       reason: `the pressure switch that ends it (${f1(r.switchOver.switchBar)} bar, above the ${f1(r.approachBar)} bar regenerative approach) cannot sit clearly below the ${f1(r.switchOver.pressBar)} bar pressing pressure`,
     };
   }
-  if (!r.passes) return { use: false, reason: "its higher approach pressure would raise the relief so far that this cylinder no longer meets a limit it meets at full area (pressure rating or rod buckling under the stall thrust)" };
+  if (!r.passes)
+    return {
+      use: false,
+      reason:
+        "its higher approach pressure would raise the relief so far that this cylinder no longer meets a limit it meets at full area (pressure rating or rod buckling under the stall thrust)",
+    };
   // A thin rod leaves the pump sized for the return, and that flow on the small rod area would
   // drive the approach far faster than asked, with a cap inflow to match: regeneration suits a
   // cylinder whose rod area is near its annulus (φ near 2), where both strokes run alike. A

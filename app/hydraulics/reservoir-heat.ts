@@ -2,8 +2,7 @@ import { A } from "./assumptions";
 import { extensionTimes } from "./phases";
 
 /** Oil a double-acting cylinder keeps out of the tank when extended: cap-end volume in minus rod-end volume back, A_rod·s, in L [D]. */
-export const cylinderDrawL = (capAreaMm2: number, annulusAreaMm2: number, strokeMm: number): number =>
-  ((capAreaMm2 - annulusAreaMm2) * strokeMm) / 1e6;
+export const cylinderDrawL = (capAreaMm2: number, annulusAreaMm2: number, strokeMm: number): number => ((capAreaMm2 - annulusAreaMm2) * strokeMm) / 1e6;
 
 /**
  * Usable volume = 4 × pump flow per minute (3–5 × is common practice) plus the oil the cylinder
@@ -44,7 +43,11 @@ export interface DutyShares {
  * neutral. A pressing stroke (press) splits the extension into approach and pressing times.
  */
 export function dutyShares(
-  strokeMm: number, extendMmS: number, retractMmS: number, cyclesPerHour: number, dwellS = 0,
+  strokeMm: number,
+  extendMmS: number,
+  retractMmS: number,
+  cyclesPerHour: number,
+  dwellS = 0,
   press?: { strokeMm: number; speedMmS: number },
 ): DutyShares {
   const { approachS: extendS, pressS } = extensionTimes(strokeMm, press?.strokeMm ?? 0, extendMmS, press?.speedMmS);
@@ -62,8 +65,16 @@ export function dutyShares(
     dwellShare /= busy;
   }
   return {
-    extendS, pressS, retractS, dwellS, extendShare, pressShare, retractShare, dwellShare,
-    neutralShare: Math.max(0, 1 - extendShare - pressShare - retractShare - dwellShare), overloaded,
+    extendS,
+    pressS,
+    retractS,
+    dwellS,
+    extendShare,
+    pressShare,
+    retractShare,
+    dwellShare,
+    neutralShare: Math.max(0, 1 - extendShare - pressShare - retractShare - dwellShare),
+    overloaded,
   };
 }
 
@@ -72,5 +83,4 @@ export function dutyShares(
  * rod does on the load. For a lowering stroke that work is negative, so the load's energy
  * (throttled in the counterbalance valve) is added.
  */
-export const strokeHeatKw = (shaftKw: number, steadyForceN: number, speedMmS: number): number =>
-  Math.max(0, shaftKw - (steadyForceN * speedMmS) / 1e6);
+export const strokeHeatKw = (shaftKw: number, steadyForceN: number, speedMmS: number): number => Math.max(0, shaftKw - (steadyForceN * speedMmS) / 1e6);

@@ -19,14 +19,7 @@ export interface TrailEntry {
 export class Trail {
   readonly entries: TrailEntry[] = [];
 
-  add(
-    quantity: string,
-    value: number | string,
-    unit: string,
-    formula: string,
-    inputs: Record<string, TrailInput>,
-    source: string,
-  ): void {
+  add(quantity: string, value: number | string, unit: string, formula: string, inputs: Record<string, TrailInput>, source: string): void {
     this.entries.push({ quantity, value, unit, formula, inputs, source });
   }
 }

@@ -19,8 +19,7 @@ export type CbvSide = "rod" | "cap";
  * [CP]: a light load must still be held against pressure surges and the few bar of back-pressure
  * the return line puts on the valve, and makers' adjustable springs start at about that.
  */
-export const cbvSettingBar = (loadPressureBar: number): number =>
-  Math.max(A.cbvSettingFactor.value * loadPressureBar, A.cbvMinSettingBar.value);
+export const cbvSettingBar = (loadPressureBar: number): number => Math.max(A.cbvSettingFactor.value * loadPressureBar, A.cbvMinSettingBar.value);
 
 /**
  * Highest load-induced pressure at the CBV port while lowering and braking: stopping the load
@@ -76,8 +75,7 @@ export const pilotOpeningBar = (settingBar: number, loadPressureBar: number, rat
  * Hydraulic force the cylinder must produce for a required load force: seal friction adds
  * to a force the oil drives (F/η) and takes from a load that drives the oil (F·η).
  */
-export const hydraulicForceN = (requiredN: number, efficiency: number): number =>
-  requiredN >= 0 ? requiredN / efficiency : requiredN * efficiency;
+export const hydraulicForceN = (requiredN: number, efficiency: number): number => (requiredN >= 0 ? requiredN / efficiency : requiredN * efficiency);
 
 /**
  * Inlet pressure at the cylinder from the piston force balance
@@ -146,24 +144,32 @@ const FLOAT_REASON =
  * is opened to tank by a small normally open 2/2 solenoid valve, de-energised in neutral and
  * energised with either directional-valve solenoid.
  */
-export const VENTED_NEUTRAL_FLOW =
-  `P is blocked, so the relief is vented instead: its normally open 2/2 vent valve is de-energised in neutral and opens the relief's vent port X to tank, so the pump's flow circulates to tank at about ${A.ventPressureBar.value} bar; the vent valve is energised with solenoid a or b, and the relief then works at its setting`;
+export const VENTED_NEUTRAL_FLOW = `P is blocked, so the relief is vented instead: its normally open 2/2 vent valve is de-energised in neutral and opens the relief's vent port X to tank, so the pump's flow circulates to tank at about ${A.ventPressureBar.value} bar; the vent valve is energised with solenoid a or b, and the relief then works at its setting`;
 const TANDEM_REASON =
   "tandem centre (P to T, A and B blocked): with no overrunning load the blocked work ports hold the axis, and the fixed pump unloads to tank at low pressure";
 const TANDEM_NEUTRAL_FLOW = "P is joined to T, so the pump's flow returns to tank at low pressure in neutral";
 
 const FLOAT_CHOICE: Readonly<DcvCenterChoice> = Object.freeze({
-  center: "float", reason: FLOAT_REASON, neutralPumpFlow: VENTED_NEUTRAL_FLOW,
-  pBlockedInNeutral: true, ventedRelief: true, pumpOnReliefInNeutral: false,
+  center: "float",
+  reason: FLOAT_REASON,
+  neutralPumpFlow: VENTED_NEUTRAL_FLOW,
+  pBlockedInNeutral: true,
+  ventedRelief: true,
+  pumpOnReliefInNeutral: false,
 });
 const TANDEM_CHOICE: Readonly<DcvCenterChoice> = Object.freeze({
-  center: "tandem", reason: TANDEM_REASON, neutralPumpFlow: TANDEM_NEUTRAL_FLOW,
-  pBlockedInNeutral: false, ventedRelief: false, pumpOnReliefInNeutral: false,
+  center: "tandem",
+  reason: TANDEM_REASON,
+  neutralPumpFlow: TANDEM_NEUTRAL_FLOW,
+  pBlockedInNeutral: false,
+  ventedRelief: false,
+  pumpOnReliefInNeutral: false,
 });
 
 const FLOAT_CHOICE_POCV: Readonly<DcvCenterChoice> = Object.freeze({
   ...FLOAT_CHOICE,
-  reason: "float centre (P blocked, A and B to T): the pilot-operated checks' pilot lines vent in neutral, so their poppets seat fully and hold the load without drift; a closed or tandem centre could trap pilot pressure and keep them open",
+  reason:
+    "float centre (P blocked, A and B to T): the pilot-operated checks' pilot lines vent in neutral, so their poppets seat fully and hold the load without drift; a closed or tandem centre could trap pilot pressure and keep them open",
 });
 
 /**
@@ -175,12 +181,19 @@ const COMPENSATED_STANDBY_FLOW =
   "P is blocked, so the pressure-compensated pump destrokes in neutral and delivers only its leakage at the compensator setting (standby); no vent or unloading valve is needed";
 const CLOSED_CHOICE_COMPENSATED: Readonly<DcvCenterChoice> = Object.freeze({
   center: "closed",
-  reason: "closed centre (P, A, B and T blocked): no overrunning load, so the blocked work ports hold the axis, and the compensated pump holds its setting at P ready for the next stroke",
+  reason:
+    "closed centre (P, A, B and T blocked): no overrunning load, so the blocked work ports hold the axis, and the compensated pump holds its setting at P ready for the next stroke",
   neutralPumpFlow: COMPENSATED_STANDBY_FLOW,
-  pBlockedInNeutral: true, ventedRelief: false, pumpOnReliefInNeutral: false,
+  pBlockedInNeutral: true,
+  ventedRelief: false,
+  pumpOnReliefInNeutral: false,
 });
 const FLOAT_CHOICE_COMPENSATED: Readonly<DcvCenterChoice> = Object.freeze({ ...FLOAT_CHOICE, neutralPumpFlow: COMPENSATED_STANDBY_FLOW, ventedRelief: false });
-const FLOAT_CHOICE_POCV_COMPENSATED: Readonly<DcvCenterChoice> = Object.freeze({ ...FLOAT_CHOICE_POCV, neutralPumpFlow: COMPENSATED_STANDBY_FLOW, ventedRelief: false });
+const FLOAT_CHOICE_POCV_COMPENSATED: Readonly<DcvCenterChoice> = Object.freeze({
+  ...FLOAT_CHOICE_POCV,
+  neutralPumpFlow: COMPENSATED_STANDBY_FLOW,
+  ventedRelief: false,
+});
 
 /**
  * Float centre where a counterbalance valve or pilot-operated checks need their pilots vented,
@@ -195,15 +208,21 @@ export function chooseDcvCenter(hasCbv: boolean, hasHolding = false, compensated
 }
 
 const CENTER_PAIRS: Record<DcvCenter, PortPair[]> = {
-  float: [["A", "T"], ["B", "T"]],
+  float: [
+    ["A", "T"],
+    ["B", "T"],
+  ],
   closed: [],
   tandem: [["P", "T"]],
-  open: [["P", "T"], ["A", "T"], ["B", "T"]],
+  open: [
+    ["P", "T"],
+    ["A", "T"],
+    ["B", "T"],
+  ],
 };
 
 /** True when the centre joins P to nothing, so the pump cannot unload through the valve. */
-export const centreBlocksP = (center: DcvCenter): boolean =>
-  !CENTER_PAIRS[center].some((pair) => pair[0] === "P" || pair[1] === "P");
+export const centreBlocksP = (center: DcvCenter): boolean => !CENTER_PAIRS[center].some((pair) => pair[0] === "P" || pair[1] === "P");
 
 function copyPairs(pairs: readonly PortPair[]): PortPair[] {
   const out: PortPair[] = [];
@@ -213,9 +232,15 @@ function copyPairs(pairs: readonly PortPair[]): PortPair[] {
 
 export function dcvPositions(center: DcvCenter): DcvPositions {
   return {
-    left: [["P", "A"], ["B", "T"]],
+    left: [
+      ["P", "A"],
+      ["B", "T"],
+    ],
     center: copyPairs(CENTER_PAIRS[center]),
-    right: [["P", "B"], ["A", "T"]],
+    right: [
+      ["P", "B"],
+      ["A", "T"],
+    ],
   };
 }
 

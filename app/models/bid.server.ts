@@ -1,10 +1,4 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-} from "sequelize";
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { centsColumn } from "./columns.server";
 import { BID_STATUSES, type BidStatus } from "~/content/bid-status";
@@ -33,7 +27,6 @@ export interface BidOffer {
   terms: string;
   notes: string;
 }
-
 
 export class Bid extends Model<InferAttributes<Bid>, InferCreationAttributes<Bid>> {
   declare id: CreationOptional<string>;

@@ -1,14 +1,7 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-} from "sequelize";
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { centsColumn } from "./columns.server";
 import type { MilestoneKey } from "~/content/job-milestones";
-
 
 /** An awarded bid being built and delivered. */
 export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job>> {
@@ -81,7 +74,8 @@ JobMilestone.init(
   { sequelize, tableName: "job_milestones" },
 );
 
-export type JobEventKind = "awarded" | "milestone_reached" | "milestone_undone" | "target_changed" | "progress_note" | "manager_note" | "retainer_paid" | "retainer_refunded";
+export type JobEventKind =
+  "awarded" | "milestone_reached" | "milestone_undone" | "target_changed" | "progress_note" | "manager_note" | "retainer_paid" | "retainer_refunded";
 
 /** One entry of a job's history: who did what, when. */
 export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttributes<JobEvent>> {

@@ -1,11 +1,4 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type ForeignKey,
-  type InferAttributes,
-  type InferCreationAttributes,
-} from "sequelize";
+import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { ORGANISATION_KINDS, type OrganisationKind } from "~/auth/roles";
 import { APPROVALS, type Approval } from "~/content/shop-approval";

@@ -1,14 +1,7 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-} from "sequelize";
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "~/db.server";
 import { centsColumn } from "./columns.server";
 import { PAYMENT_STATUSES, type PaymentStatus } from "~/content/payment-status";
-
 
 /** One attempt to pay a job's retainer through a Stripe Checkout Session. */
 export class Payment extends Model<InferAttributes<Payment>, InferCreationAttributes<Payment>> {

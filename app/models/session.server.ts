@@ -1,12 +1,4 @@
-import {
-  DataTypes,
-  Model,
-  Op,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type Transaction,
-} from "sequelize";
+import { DataTypes, Model, Op, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
 
 /**
@@ -25,10 +17,7 @@ export class UserSession extends Model<InferAttributes<UserSession>, InferCreati
 
   /** Ends every live session of a user (sign out everywhere, password reset, deactivation). */
   static async revokeAllOf(userId: string, transaction?: Transaction) {
-    const [count] = await UserSession.update(
-      { revokedAt: new Date() },
-      { where: { userId, revokedAt: null }, transaction },
-    );
+    const [count] = await UserSession.update({ revokedAt: new Date() }, { where: { userId, revokedAt: null }, transaction });
     return count;
   }
 

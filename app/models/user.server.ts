@@ -1,11 +1,4 @@
-import {
-  DataTypes,
-  Model,
-  type CreationOptional,
-  type InferAttributes,
-  type InferCreationAttributes,
-  type NonAttribute,
-} from "sequelize";
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute } from "sequelize";
 import { sequelize } from "~/db.server";
 import { ROLES, type Role } from "~/auth/roles";
 import { UNIT_SYSTEMS, type UnitSystem } from "~/units/systems";

@@ -65,26 +65,28 @@ export default function Account({ loaderData }: Route.ComponentProps) {
       </Card>
       <Card>
         <h2 className="mb-3 font-semibold">People</h2>
-        <TableScroll label="People"><table className="w-full min-w-[30rem] text-left text-sm">
-          <thead className="text-ink-600">
-            <tr>
-              <th className="py-2">Name</th>
-              <th>E-mail</th>
-              <th>Status</th>
-              <th>Last signed in</th>
-            </tr>
-          </thead>
-          <tbody>
-            {loaderData.users.map((u) => (
-              <tr key={u.id} className="border-t border-ink-100">
-                <td className="py-2 font-semibold">{u.name}</td>
-                <td>{u.email}</td>
-                <td>{u.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
-                <td>{u.lastSignInAt ? formatMoment(u.lastSignInAt) : "Never"}</td>
+        <TableScroll label="People">
+          <table className="w-full min-w-[30rem] text-left text-sm">
+            <thead className="text-ink-600">
+              <tr>
+                <th className="py-2">Name</th>
+                <th>E-mail</th>
+                <th>Status</th>
+                <th>Last signed in</th>
               </tr>
-            ))}
-          </tbody>
-        </table></TableScroll>
+            </thead>
+            <tbody>
+              {loaderData.users.map((u) => (
+                <tr key={u.id} className="border-t border-ink-100">
+                  <td className="py-2 font-semibold">{u.name}</td>
+                  <td>{u.email}</td>
+                  <td>{u.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
+                  <td>{u.lastSignInAt ? formatMoment(u.lastSignInAt) : "Never"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </TableScroll>
       </Card>
     </>
   );

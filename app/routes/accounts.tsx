@@ -37,30 +37,32 @@ export default function Accounts({ loaderData }: Route.ComponentProps) {
         </EmptyState>
       ) : (
         <Card>
-          <TableScroll label="Accounts"><table className="w-full min-w-[40rem] text-left text-sm">
-            <thead className="text-ink-600">
-              <tr>
-                <th className="py-2">Account</th>
-                <th>Region</th>
-                <th>Users</th>
-                <th>Customer since</th>
-              </tr>
-            </thead>
-            <tbody>
-              {accounts.map((a) => (
-                <tr key={a.id} className="border-t border-ink-100">
-                  <td className="py-2">
-                    <Link to={`/accounts/${a.id}`} className="font-semibold text-flow-700 hover:underline">
-                      {a.name}
-                    </Link>
-                  </td>
-                  <td>{a.region ?? "—"}</td>
-                  <td>{a.memberCount}</td>
-                  <td>{formatDay(a.since)}</td>
+          <TableScroll label="Accounts">
+            <table className="w-full min-w-[40rem] text-left text-sm">
+              <thead className="text-ink-600">
+                <tr>
+                  <th className="py-2">Account</th>
+                  <th>Region</th>
+                  <th>Users</th>
+                  <th>Customer since</th>
                 </tr>
-              ))}
-            </tbody>
-          </table></TableScroll>
+              </thead>
+              <tbody>
+                {accounts.map((a) => (
+                  <tr key={a.id} className="border-t border-ink-100">
+                    <td className="py-2">
+                      <Link to={`/accounts/${a.id}`} className="font-semibold text-flow-700 hover:underline">
+                        {a.name}
+                      </Link>
+                    </td>
+                    <td>{a.region ?? "—"}</td>
+                    <td>{a.memberCount}</td>
+                    <td>{formatDay(a.since)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </TableScroll>
         </Card>
       )}
     </>

@@ -66,45 +66,47 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
             {d.view === "failed" ? "No failed mail: everything queued has gone out or is still being tried." : "No mail has been waiting long."}
           </p>
         ) : (
-          <TableScroll label="Mail queue"><table className="w-full min-w-[40rem] text-left text-sm">
-            <thead className="text-ink-600">
-              <tr>
-                <th className="py-2">Recipient</th>
-                <th>Subject</th>
-                <th>Attempts</th>
-                <th>Last error</th>
-                <th>Queued</th>
-                <th>
-                  <span className="sr-only">Action</span>
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {d.mails.map((m) => (
-                <tr key={m.id} className="border-t border-ink-100 align-top">
-                  <td className="py-2 break-all">{m.to}</td>
-                  <td className="break-words">{m.subject}</td>
-                  <td>
-                    {m.status === "failed" ? <Badge tone="bad">Failed</Badge> : <Badge tone="warn">Waiting</Badge>} {m.attempts}
-                  </td>
-                  <td className="max-w-xs break-words text-ink-600">
-                    {m.lastError ? <span title={m.lastError}>{m.lastError.length > 160 ? `${m.lastError.slice(0, 160)}…` : m.lastError}</span> : "—"}
-                    {m.lastTriedAt ? <span className="block text-xs">Last tried {formatMoment(m.lastTriedAt)}</span> : null}
-                  </td>
-                  <td className="whitespace-nowrap">{formatMoment(m.queuedAt)}</td>
-                  <td>
-                    <Form method="post">
-                      <input type="hidden" name="intent" value="send-again" />
-                      <input type="hidden" name="mailId" value={m.id} />
-                      <Button type="submit" tone="secondary" className="px-2 py-1">
-                        Send again
-                      </Button>
-                    </Form>
-                  </td>
+          <TableScroll label="Mail queue">
+            <table className="w-full min-w-[40rem] text-left text-sm">
+              <thead className="text-ink-600">
+                <tr>
+                  <th className="py-2">Recipient</th>
+                  <th>Subject</th>
+                  <th>Attempts</th>
+                  <th>Last error</th>
+                  <th>Queued</th>
+                  <th>
+                    <span className="sr-only">Action</span>
+                  </th>
                 </tr>
-              ))}
-            </tbody>
-          </table></TableScroll>
+              </thead>
+              <tbody>
+                {d.mails.map((m) => (
+                  <tr key={m.id} className="border-t border-ink-100 align-top">
+                    <td className="py-2 break-all">{m.to}</td>
+                    <td className="break-words">{m.subject}</td>
+                    <td>
+                      {m.status === "failed" ? <Badge tone="bad">Failed</Badge> : <Badge tone="warn">Waiting</Badge>} {m.attempts}
+                    </td>
+                    <td className="max-w-xs break-words text-ink-600">
+                      {m.lastError ? <span title={m.lastError}>{m.lastError.length > 160 ? `${m.lastError.slice(0, 160)}…` : m.lastError}</span> : "—"}
+                      {m.lastTriedAt ? <span className="block text-xs">Last tried {formatMoment(m.lastTriedAt)}</span> : null}
+                    </td>
+                    <td className="whitespace-nowrap">{formatMoment(m.queuedAt)}</td>
+                    <td>
+                      <Form method="post">
+                        <input type="hidden" name="intent" value="send-again" />
+                        <input type="hidden" name="mailId" value={m.id} />
+                        <Button type="submit" tone="secondary" className="px-2 py-1">
+                          Send again
+                        </Button>
+                      </Form>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </TableScroll>
         )}
         <Pager page={d.page} pageCount={d.pageCount} search={searchParams} />
       </Card>

@@ -57,12 +57,18 @@ async function decide(request: Request, formData: FormData) {
   }
   const choice = submission.value;
   try {
-    const shop = await decideShop(admin, choice.organisationId, choice.intent === "approve" ? { decision: "approve" } : { decision: "refuse", reason: choice.reason });
+    const shop = await decideShop(
+      admin,
+      choice.organisationId,
+      choice.intent === "approve" ? { decision: "approve" } : { decision: "refuse", reason: choice.reason },
+    );
     const back = new URL(request.url);
     return redirectWithToast(
       request,
       `${back.pathname}${back.search}`,
-      shop.approval === "approved" ? `${shop.name} is approved and can read specs now; its people have been e-mailed.` : `${shop.name} is refused; its people have been e-mailed the reason.`,
+      shop.approval === "approved"
+        ? `${shop.name} is approved and can read specs now; its people have been e-mailed.`
+        : `${shop.name} is refused; its people have been e-mailed the reason.`,
     );
   } catch (error) {
     return data<ActionResult>({ error: fieldErrorsOf(error).message, organisationId }, { status: 400 });
@@ -97,7 +103,15 @@ function ApproveButton({ organisationId, name }: { organisationId: string; name:
 }
 
 /** Shops that signed up and read nothing until an admin decides. */
-function WaitingShops({ waiting, total, actionData }: { waiting: Route.ComponentProps["loaderData"]["waiting"]; total: number; actionData: ActionResult | undefined }) {
+function WaitingShops({
+  waiting,
+  total,
+  actionData,
+}: {
+  waiting: Route.ComponentProps["loaderData"]["waiting"];
+  total: number;
+  actionData: ActionResult | undefined;
+}) {
   return (
     <Card className="mb-6">
       <h2 className="font-semibold">
@@ -105,7 +119,8 @@ function WaitingShops({ waiting, total, actionData }: { waiting: Route.Component
         {total > waiting.length ? <span className="font-normal text-ink-600"> · the {waiting.length} that have waited longest</span> : null}
       </h2>
       <p className="mb-3 text-sm text-ink-600">
-        These shops signed up and can read no spec until you approve them. Check that each is a real fluid-power business; a refusal needs a reason, which the shop reads. Either way, the shop is e-mailed.
+        These shops signed up and can read no spec until you approve them. Check that each is a real fluid-power business; a refusal needs a reason, which the
+        shop reads. Either way, the shop is e-mailed.
       </p>
       {waiting.length === 0 ? <p className="py-2 text-sm text-ink-600">No shop is waiting.</p> : null}
       <ul className="divide-y divide-ink-100">
@@ -197,71 +212,68 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
             ))}
           </select>
         </SearchBar>
-        <TableScroll label="Organisations"><table className="w-full min-w-[40rem] text-left text-sm">
-          <thead className="text-ink-600">
-            <tr>
-              <th className="py-2">Organisation</th>
-              <th>Kind</th>
-              <th>Region</th>
-              <th>Users</th>
-              <th>Approval</th>
-              <th>Account manager</th>
-            </tr>
-          </thead>
-          <tbody>
-            {loaderData.organisations.map((o) => (
-              <tr key={o.id} className="border-t border-ink-100">
-                <td className="py-2 font-semibold">{o.name}</td>
-                <td>{KIND_LABELS[o.kind]}</td>
-                <td>{o.region ?? "—"}</td>
-                <td>{o.memberCount}</td>
-                <td>
-                  {o.approval ? (
-                    <div className="flex flex-col items-start gap-1 py-1">
-                      <Badge tone={APPROVAL_TONES[o.approval]}>{APPROVAL_LABELS[o.approval]}</Badge>
-                      {o.approval === "refused" ? (
-                        <>
-                          {o.approvalReason ? <span className="max-w-xs text-xs break-words text-ink-600">{o.approvalReason}</span> : null}
-                          <ApproveButton organisationId={o.id} name={o.name} />
-                        </>
-                      ) : null}
-                    </div>
-                  ) : (
-                    <span className="text-ink-400">—</span>
-                  )}
-                </td>
-                <td>
-                  {o.kind === "buyer" ? (
-                    <Form method="post" className="flex items-center gap-1">
-                      <input type="hidden" name="organisationId" value={o.id} />
-                      <label htmlFor={`manager-${o.id}`} className="sr-only">
-                        Account manager of {o.name}
-                      </label>
-                      <select
-                        id={`manager-${o.id}`}
-                        name="managerId"
-                        defaultValue={o.accountManagerId}
-                        className="rounded-md px-2 py-1 ring-1 ring-ink-200"
-                      >
-                        <option value="">Nobody yet</option>
-                        {loaderData.managers.map((m) => (
-                          <option key={m.id} value={m.id}>
-                            {m.name}
-                          </option>
-                        ))}
-                      </select>
-                      <Button type="submit" tone="secondary" className="px-2 py-1">
-                        Save
-                      </Button>
-                    </Form>
-                  ) : (
-                    <span className="text-ink-400">—</span>
-                  )}
-                </td>
+        <TableScroll label="Organisations">
+          <table className="w-full min-w-[40rem] text-left text-sm">
+            <thead className="text-ink-600">
+              <tr>
+                <th className="py-2">Organisation</th>
+                <th>Kind</th>
+                <th>Region</th>
+                <th>Users</th>
+                <th>Approval</th>
+                <th>Account manager</th>
               </tr>
-            ))}
-          </tbody>
-        </table></TableScroll>
+            </thead>
+            <tbody>
+              {loaderData.organisations.map((o) => (
+                <tr key={o.id} className="border-t border-ink-100">
+                  <td className="py-2 font-semibold">{o.name}</td>
+                  <td>{KIND_LABELS[o.kind]}</td>
+                  <td>{o.region ?? "—"}</td>
+                  <td>{o.memberCount}</td>
+                  <td>
+                    {o.approval ? (
+                      <div className="flex flex-col items-start gap-1 py-1">
+                        <Badge tone={APPROVAL_TONES[o.approval]}>{APPROVAL_LABELS[o.approval]}</Badge>
+                        {o.approval === "refused" ? (
+                          <>
+                            {o.approvalReason ? <span className="max-w-xs text-xs break-words text-ink-600">{o.approvalReason}</span> : null}
+                            <ApproveButton organisationId={o.id} name={o.name} />
+                          </>
+                        ) : null}
+                      </div>
+                    ) : (
+                      <span className="text-ink-400">—</span>
+                    )}
+                  </td>
+                  <td>
+                    {o.kind === "buyer" ? (
+                      <Form method="post" className="flex items-center gap-1">
+                        <input type="hidden" name="organisationId" value={o.id} />
+                        <label htmlFor={`manager-${o.id}`} className="sr-only">
+                          Account manager of {o.name}
+                        </label>
+                        <select id={`manager-${o.id}`} name="managerId" defaultValue={o.accountManagerId} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
+                          <option value="">Nobody yet</option>
+                          {loaderData.managers.map((m) => (
+                            <option key={m.id} value={m.id}>
+                              {m.name}
+                            </option>
+                          ))}
+                        </select>
+                        <Button type="submit" tone="secondary" className="px-2 py-1">
+                          Save
+                        </Button>
+                      </Form>
+                    ) : (
+                      <span className="text-ink-400">—</span>
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </TableScroll>
         {loaderData.organisations.length === 0 ? <p className="py-6 text-center text-ink-600">No organisation matches that search.</p> : null}
         <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>

@@ -63,7 +63,10 @@ export async function action(args: Route.ActionArgs) {
         await confirmOwnPassword(clientOf(args), admin, change.currentPassword);
       } catch (error) {
         if (error instanceof Throttled) {
-          return data<ActionData>({ confirm: { ...confirm, passwordErrors: [error.message] } }, { status: 429, headers: { "Retry-After": String(error.retryAfterS) } });
+          return data<ActionData>(
+            { confirm: { ...confirm, passwordErrors: [error.message] } },
+            { status: 429, headers: { "Retry-After": String(error.retryAfterS) } },
+          );
         }
         return data<ActionData>({ confirm: { ...confirm, passwordErrors: fieldErrorsOf(error).fieldErrors.currentPassword } }, { status: 400 });
       }
@@ -145,7 +148,8 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
                         method="post"
                         onSubmit={(event) => {
                           // Deactivating signs the person out at once; ask before doing it.
-                          if (u.active && !window.confirm(`Deactivate ${u.name}? They are signed out at once and can't sign in until reactivated.`)) event.preventDefault();
+                          if (u.active && !window.confirm(`Deactivate ${u.name}? They are signed out at once and can't sign in until reactivated.`))
+                            event.preventDefault();
                         }}
                       >
                         <input type="hidden" name="intent" value="set-active" />

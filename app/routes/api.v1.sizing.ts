@@ -19,9 +19,15 @@ export async function action(args: Route.ActionArgs) {
   }
   const limit = await consumeSizingRequest(args);
   if (!limit.ok) {
-    return problem(429, "rate_limited", `Too many sizing requests. Try again in ${limit.retryAfterS} s.`, {}, {
-      "Retry-After": String(limit.retryAfterS),
-    });
+    return problem(
+      429,
+      "rate_limited",
+      `Too many sizing requests. Try again in ${limit.retryAfterS} s.`,
+      {},
+      {
+        "Retry-After": String(limit.retryAfterS),
+      },
+    );
   }
   // The root middleware has already refused bodies over REQUEST_LIMITS.jsonBytes.
   const text = await request.text();

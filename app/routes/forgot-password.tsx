@@ -45,9 +45,7 @@ export default function ForgotPassword({ actionData }: Route.ComponentProps) {
     <AuthCard title="Reset your password" lead="We'll e-mail you a link to choose a new one.">
       {actionData?.sent ? (
         <div className="mb-4">
-          <Notice tone="good">
-            If an account uses that address, a reset link is on its way. It works once, for one hour.
-          </Notice>
+          <Notice tone="good">If an account uses that address, a reset link is on its way. It works once, for one hour.</Notice>
         </div>
       ) : null}
       <Form method="post" {...getFormProps(form)} className="space-y-4">

@@ -25,12 +25,10 @@ export default function Home({ loaderData }: Route.ComponentProps) {
     <div className="py-8">
       <section className="max-w-3xl">
         <p className="text-sm font-semibold uppercase tracking-wide text-flow-700">For machine builders and fluid-power shops</p>
-        <h1 className="mt-2 text-4xl font-bold leading-tight text-ink-900">
-          Hydraulic axes, sized and quoted alike.
-        </h1>
+        <h1 className="mt-2 text-4xl font-bold leading-tight text-ink-900">Hydraulic axes, sized and quoted alike.</h1>
         <p className="mt-4 text-lg text-ink-600">
-          Tell Tenderflow what your press, lift, clamp or feed has to do. It sizes a preliminary hydraulic circuit from
-          published engineering methods, and fluid-power shops bid against the same bill of materials.
+          Tell Tenderflow what your press, lift, clamp or feed has to do. It sizes a preliminary hydraulic circuit from published engineering methods, and
+          fluid-power shops bid against the same bill of materials.
         </p>
         <div className="mt-8 flex flex-wrap gap-3">
           {loaderData.home ? (
@@ -55,8 +53,8 @@ export default function Home({ loaderData }: Route.ComponentProps) {
         ))}
       </ol>
       <p className="mt-10 max-w-3xl text-sm text-ink-600">
-        A preliminary circuit is a starting point for a quotation, not a design approval: every circuit needs review and
-        sign-off by a qualified fluid-power engineer, and ISO 4413 and your local codes apply.{" "}
+        A preliminary circuit is a starting point for a quotation, not a design approval: every circuit needs review and sign-off by a qualified fluid-power
+        engineer, and ISO 4413 and your local codes apply.{" "}
         <Link to="/sign-up" className="text-flow-700 hover:underline">
           Start with an account
         </Link>

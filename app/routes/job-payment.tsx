@@ -43,8 +43,8 @@ export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
           <div role="status" aria-live="polite" className="space-y-2">
             <p className="text-lg font-semibold">Processing your payment…</p>
             <p className="text-sm text-ink-600">
-              The card service has your payment and is confirming it to us. This page updates by itself, usually within a few seconds; you can also
-              leave it, and you will get a receipt by e-mail.
+              The card service has your payment and is confirming it to us. This page updates by itself, usually within a few seconds; you can also leave it,
+              and you will get a receipt by e-mail.
             </p>
           </div>
         ) : d.duplicate ? (
@@ -62,11 +62,17 @@ export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
             </Form>
           </>
         )}
-        <ButtonLink to={`/jobs/${d.jobId}`} tone="secondary">Back to the job</ButtonLink>
+        <ButtonLink to={`/jobs/${d.jobId}`} tone="secondary">
+          Back to the job
+        </ButtonLink>
       </Card>
       {waiting ? (
         <p className="mt-4 text-sm text-ink-600">
-          Problems with a card? <Link to={`/jobs/${d.jobId}`} className="text-flow-700 hover:underline">The job page</Link> shows the last attempt and lets you try again.
+          Problems with a card?{" "}
+          <Link to={`/jobs/${d.jobId}`} className="text-flow-700 hover:underline">
+            The job page
+          </Link>{" "}
+          shows the last attempt and lets you try again.
         </p>
       ) : null}
     </>

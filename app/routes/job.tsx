@@ -45,7 +45,11 @@ export async function action({ request, params }: Route.ActionArgs) {
       case "reach": {
         const reached = await reachMilestones(user, job.id, change);
         // The mail is queued with the change; the mail worker sends it, never this request.
-        return redirectWithToast(request, back, `Recorded as reached: ${reached.map((k) => MILESTONE_LABELS[k]).join(", ")}. Buyer and shop have been e-mailed.`);
+        return redirectWithToast(
+          request,
+          back,
+          `Recorded as reached: ${reached.map((k) => MILESTONE_LABELS[k]).join(", ")}. Buyer and shop have been e-mailed.`,
+        );
       }
       case "undo": {
         const undone = await undoLastMilestone(user, job.id, change);
@@ -205,7 +209,8 @@ function describe(e: JobEventView, job: Job) {
   const label = e.milestone ? MILESTONE_LABELS[e.milestone] : "";
   const day = (v: unknown) => (typeof v === "string" ? formatDay(v) : "no date");
   // History rows keep what they knew when written; amounts are in the job's currency.
-  const money = (cents: unknown) => (typeof cents === "number" || typeof cents === "string" ? formatMoney(Number(cents), job.currency) : "an amount not recorded");
+  const money = (cents: unknown) =>
+    typeof cents === "number" || typeof cents === "string" ? formatMoney(Number(cents), job.currency) : "an amount not recorded";
   switch (e.kind) {
     case "awarded":
       return `Awarded the bid of ${job.shopName}: ${money(e.detail.totalCents)}, retainer ${money(e.detail.retainerCents)}.`;

@@ -63,14 +63,20 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
           </Card>
           <Card>
             <SearchBar label="Search jobs by spec title" placeholder="Spec title" value={params.get("q") ?? ""}>
-              <label className="sr-only" htmlFor="stage">Stage</label>
+              <label className="sr-only" htmlFor="stage">
+                Stage
+              </label>
               <select id="stage" name="stage" defaultValue={params.get("stage") ?? ""} className={selectClass}>
                 <option value="">Any stage</option>
                 {JOB_STAGES.map((s) => (
-                  <option key={s} value={s}>{JOB_STAGE_LABELS[s]}</option>
+                  <option key={s} value={s}>
+                    {JOB_STAGE_LABELS[s]}
+                  </option>
                 ))}
               </select>
-              <label className="sr-only" htmlFor="retainer">Retainer</label>
+              <label className="sr-only" htmlFor="retainer">
+                Retainer
+              </label>
               <select id="retainer" name="retainer" defaultValue={params.get("retainer") ?? ""} className={selectClass}>
                 <option value="">Retainer paid or not</option>
                 <option value="paid">Retainer paid</option>
@@ -79,11 +85,15 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
               </select>
               {d.accounts.length > 0 ? (
                 <>
-                  <label className="sr-only" htmlFor="account">Buyer account</label>
+                  <label className="sr-only" htmlFor="account">
+                    Buyer account
+                  </label>
                   <select id="account" name="account" defaultValue={params.get("account") ?? ""} className={selectClass}>
                     <option value="">Every buyer</option>
                     {d.accounts.map((a) => (
-                      <option key={a.id} value={a.id}>{a.name}</option>
+                      <option key={a.id} value={a.id}>
+                        {a.name}
+                      </option>
                     ))}
                   </select>
                 </>
@@ -100,14 +110,24 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
               <table className="w-full min-w-[40rem] text-left text-sm">
                 <thead className="text-ink-600">
                   <tr>
-                    <th scope="col" className="py-2">Spec</th>
+                    <th scope="col" className="py-2">
+                      Spec
+                    </th>
                     <th scope="col">Buyer</th>
                     <th scope="col">Shop</th>
                     <th scope="col">Stage</th>
-                    <th scope="col" className="pl-3 text-right">Total</th>
-                    <th scope="col" className="pl-3 text-right">Retainer</th>
-                    <th scope="col" className="pl-3 text-right">Days since award</th>
-                    <th scope="col" className="pl-4">Next milestone</th>
+                    <th scope="col" className="pl-3 text-right">
+                      Total
+                    </th>
+                    <th scope="col" className="pl-3 text-right">
+                      Retainer
+                    </th>
+                    <th scope="col" className="pl-3 text-right">
+                      Days since award
+                    </th>
+                    <th scope="col" className="pl-4">
+                      Next milestone
+                    </th>
                   </tr>
                 </thead>
                 <tbody>

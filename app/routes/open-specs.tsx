@@ -80,16 +80,19 @@ function NotApprovedYet({ approval }: { approval: ApprovalState }) {
       <PageHeader title="Open specs" lead="Specs from machine builders that are open for bids." />
       {approval.approval === "refused" ? (
         <EmptyState title="Your organisation was not approved to read specs">
-          <p>Machine builders' specs are confidential, so Tenderflow approves each fluid-power shop before it reads them. Your organisation was not approved{approval.decidedAt ? ` on ${formatDay(approval.decidedAt)}` : ""}.</p>
+          <p>
+            Machine builders' specs are confidential, so Tenderflow approves each fluid-power shop before it reads them. Your organisation was not approved
+            {approval.decidedAt ? ` on ${formatDay(approval.decidedAt)}` : ""}.
+          </p>
           {approval.reason ? <p className="mt-2">The reason given: “{approval.reason}”</p> : null}
           <p className="mt-2">If something has changed, contact Tenderflow and an administrator will look at it again.</p>
         </EmptyState>
       ) : (
         <EmptyState title="Your organisation is waiting for approval">
           <p>
-            Machine builders' specs are confidential, so Tenderflow checks each new fluid-power shop before it reads them. An
-            administrator will look at your organisation shortly; you will get an e-mail as soon as it is decided. Until then no
-            specs are shown here. You can already invite your colleagues from the Team page.
+            Machine builders' specs are confidential, so Tenderflow checks each new fluid-power shop before it reads them. An administrator will look at your
+            organisation shortly; you will get an e-mail as soon as it is decided. Until then no specs are shown here. You can already invite your colleagues
+            from the Team page.
           </p>
         </EmptyState>
       )}
@@ -109,8 +112,8 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
         <PageHeader title="Open specs" lead="Specs from machine builders that are open for bids." />
         <EmptyState title="No specs are open for bids right now">
           <p>
-            When a machine builder publishes a spec, it appears here with its preliminary circuit and bill of materials, and
-            you can ask questions and bid line by line. You'll also get an e-mail.
+            When a machine builder publishes a spec, it appears here with its preliminary circuit and bill of materials, and you can ask questions and bid line
+            by line. You'll also get an e-mail.
           </p>
         </EmptyState>
       </>
@@ -150,14 +153,30 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
             </select>
             {d.problems.sort ? <span className="mt-1 block text-xs font-semibold text-alarm-600">{d.problems.sort}</span> : null}
           </label>
-          <FilterField name="pressureMin" label={`Relief setting from (${pressure})`} typed={d.typed.pressureMin} problem={d.problems.pressureMin} inputMode="decimal" />
-          <FilterField name="pressureMax" label={`Relief setting up to (${pressure})`} typed={d.typed.pressureMax} problem={d.problems.pressureMax} inputMode="decimal" />
+          <FilterField
+            name="pressureMin"
+            label={`Relief setting from (${pressure})`}
+            typed={d.typed.pressureMin}
+            problem={d.problems.pressureMin}
+            inputMode="decimal"
+          />
+          <FilterField
+            name="pressureMax"
+            label={`Relief setting up to (${pressure})`}
+            typed={d.typed.pressureMax}
+            problem={d.problems.pressureMax}
+            inputMode="decimal"
+          />
           <FilterField name="flowMin" label={`Pump flow from (${flow})`} typed={d.typed.flowMin} problem={d.problems.flowMin} inputMode="decimal" />
           <FilterField name="flowMax" label={`Pump flow up to (${flow})`} typed={d.typed.flowMax} problem={d.problems.flowMax} inputMode="decimal" />
           <div className="flex items-end gap-3 sm:col-span-2 lg:col-span-4">
-            <Button type="submit" tone="secondary">Apply</Button>
+            <Button type="submit" tone="secondary">
+              Apply
+            </Button>
             {d.filtered || searchParams.size > 0 ? (
-              <Link to="/open-specs" className="text-flow-700 hover:underline">Clear the filters</Link>
+              <Link to="/open-specs" className="text-flow-700 hover:underline">
+                Clear the filters
+              </Link>
             ) : null}
           </div>
         </Form>
@@ -171,28 +190,44 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
             <table className="w-full min-w-[40rem] text-left text-sm">
               <thead className="text-ink-600">
                 <tr>
-                  <th scope="col" className="py-2">Spec</th>
+                  <th scope="col" className="py-2">
+                    Spec
+                  </th>
                   <th scope="col">Region</th>
-                  <th scope="col" className="text-right">Relief setting</th>
-                  <th scope="col" className="text-right">Pump flow</th>
-                  <th scope="col" className="text-right">Units</th>
-                  <th scope="col" className="pl-4">Currency</th>
+                  <th scope="col" className="text-right">
+                    Relief setting
+                  </th>
+                  <th scope="col" className="text-right">
+                    Pump flow
+                  </th>
+                  <th scope="col" className="text-right">
+                    Units
+                  </th>
+                  <th scope="col" className="pl-4">
+                    Currency
+                  </th>
                   <th scope="col">Bids until</th>
-                  <th scope="col"><span className="sr-only">Your bid</span></th>
+                  <th scope="col">
+                    <span className="sr-only">Your bid</span>
+                  </th>
                 </tr>
               </thead>
               <tbody>
                 {d.specs.map((s) => (
                   <tr key={s.id} className="border-t border-ink-100 align-top">
                     <td className="py-2 pr-3">
-                      <Link to={`/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">{s.title}</Link>
+                      <Link to={`/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">
+                        {s.title}
+                      </Link>
                       {s.revision > 1 ? <span className="ml-2 text-xs text-ink-400">revision {s.revision}</span> : null}
                     </td>
                     <td className="py-2 pr-3">
                       <span className="block">{s.deliveryRegion ?? "—"}</span>
                       {s.buyerRegion ? <span className="block text-xs text-ink-600">Builder in {s.buyerRegion}</span> : null}
                     </td>
-                    <td className="py-2 text-right tabular-nums">{s.reliefSettingBar === null ? "—" : formatQuantity("pressure", s.reliefSettingBar, d.unitSystem)}</td>
+                    <td className="py-2 text-right tabular-nums">
+                      {s.reliefSettingBar === null ? "—" : formatQuantity("pressure", s.reliefSettingBar, d.unitSystem)}
+                    </td>
                     <td className="py-2 text-right tabular-nums">{s.pumpFlowLpm === null ? "—" : formatQuantity("flow", s.pumpFlowLpm, d.unitSystem)}</td>
                     <td className="py-2 text-right tabular-nums">{s.unitsWanted ?? "—"}</td>
                     <td className="py-2 pl-4">{s.currency}</td>

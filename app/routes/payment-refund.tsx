@@ -25,7 +25,11 @@ export async function action(args: Route.ActionArgs) {
   try {
     await confirmOwnPassword(clientOf(args), user, submission.value.currentPassword);
     const { refund, payment } = await requestRefund(user, params.paymentId, { amountCents: submission.value.amount, reason: submission.value.reason });
-    return redirectWithToast(request, `/jobs/${payment.jobId}`, `Refund of ${formatMoney(refund.amountCents, payment.currency)} sent to the card service; it is recorded here once they confirm it.`);
+    return redirectWithToast(
+      request,
+      `/jobs/${payment.jobId}`,
+      `Refund of ${formatMoney(refund.amountCents, payment.currency)} sent to the card service; it is recorded here once they confirm it.`,
+    );
   } catch (error) {
     if (error instanceof Throttled) {
       const result = submission.reply({ fieldErrors: { currentPassword: [error.message] }, hideFields });

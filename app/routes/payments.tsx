@@ -45,7 +45,13 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
     <>
       <PageHeader
         title="Payments"
-        lead={d.role === "buyer" ? "Every retainer your organisation has paid or tried to pay by card." : d.role === "admin" ? "Every retainer payment on Tenderflow." : "Retainer payments of the buyer accounts you follow."}
+        lead={
+          d.role === "buyer"
+            ? "Every retainer your organisation has paid or tried to pay by card."
+            : d.role === "admin"
+              ? "Every retainer payment on Tenderflow."
+              : "Retainer payments of the buyer accounts you follow."
+        }
       />
       <Card>
         <Form method="get" className="mb-4 flex flex-wrap items-end gap-3 text-sm">
@@ -54,7 +60,9 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
             <select name="status" defaultValue={params.get("status") ?? ""} className="rounded-md px-2 py-1.5 ring-1 ring-ink-200">
               <option value="">Any</option>
               {PAYMENT_STATUSES.map((s) => (
-                <option key={s} value={s}>{PAYMENT_STATUS_LABELS[s]}</option>
+                <option key={s} value={s}>
+                  {PAYMENT_STATUS_LABELS[s]}
+                </option>
               ))}
             </select>
           </label>
@@ -62,10 +70,14 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
             <input type="checkbox" name="flagged" value="1" defaultChecked={params.get("flagged") === "1"} />
             <span className="font-semibold">Needs a check</span>
           </label>
-          <Button type="submit" tone="secondary">Apply</Button>
+          <Button type="submit" tone="secondary">
+            Apply
+          </Button>
         </Form>
         {d.payments.length === 0 ? (
-          <EmptyState title={params.get("flagged") === "1" ? "No payment needs a check" : params.get("status") ? "No payment has that status" : "No payments yet"}>
+          <EmptyState
+            title={params.get("flagged") === "1" ? "No payment needs a check" : params.get("status") ? "No payment has that status" : "No payments yet"}
+          >
             <p>A retainer is paid by card after a bid is awarded; each attempt is listed here with its status.</p>
           </EmptyState>
         ) : (
@@ -73,13 +85,27 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
             <table className="w-full min-w-[40rem] text-left text-sm">
               <thead className="text-ink-600">
                 <tr>
-                  <th scope="col" className="py-2 pr-3">Job</th>
-                  <th scope="col" className="pr-3">Buyer</th>
-                  <th scope="col" className="pr-3">Shop</th>
-                  <th scope="col" className="pr-3">Status</th>
-                  <th scope="col" className="pr-3 text-right">Amount</th>
-                  <th scope="col" className="pr-3 text-right">Paid back</th>
-                  <th scope="col" className="pr-3">Started</th>
+                  <th scope="col" className="py-2 pr-3">
+                    Job
+                  </th>
+                  <th scope="col" className="pr-3">
+                    Buyer
+                  </th>
+                  <th scope="col" className="pr-3">
+                    Shop
+                  </th>
+                  <th scope="col" className="pr-3">
+                    Status
+                  </th>
+                  <th scope="col" className="pr-3 text-right">
+                    Amount
+                  </th>
+                  <th scope="col" className="pr-3 text-right">
+                    Paid back
+                  </th>
+                  <th scope="col" className="pr-3">
+                    Started
+                  </th>
                   <th scope="col">Paid</th>
                 </tr>
               </thead>
@@ -87,8 +113,12 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
                 {d.payments.map((p) => (
                   <tr key={p.id} className="border-t border-ink-100 align-top">
                     <td className="py-2 pr-3">
-                      <Link to={`/jobs/${p.jobId}`} className="font-semibold text-flow-700 hover:underline">{p.specTitle}</Link>
-                      <Link to={`/specs/${p.specId}`} className="block text-xs text-ink-600 hover:underline">the spec</Link>
+                      <Link to={`/jobs/${p.jobId}`} className="font-semibold text-flow-700 hover:underline">
+                        {p.specTitle}
+                      </Link>
+                      <Link to={`/specs/${p.specId}`} className="block text-xs text-ink-600 hover:underline">
+                        the spec
+                      </Link>
                     </td>
                     <td className="py-2 pr-3">{p.buyer}</td>
                     <td className="py-2 pr-3">{p.shop}</td>
@@ -98,7 +128,11 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
                         {p.duplicate ? <Badge tone="warn">Second charge</Badge> : null}
                         {p.flag ? <Badge tone="bad">Needs a check</Badge> : null}
                       </span>
-                      {p.flag ? <p className="mt-1 max-w-xs whitespace-pre-line text-xs text-alarm-600" data-testid="payment-flag">{p.flag}</p> : null}
+                      {p.flag ? (
+                        <p className="mt-1 max-w-xs whitespace-pre-line text-xs text-alarm-600" data-testid="payment-flag">
+                          {p.flag}
+                        </p>
+                      ) : null}
                     </td>
                     <td className="py-2 pr-3 text-right tabular-nums">{formatMoney(p.amountCents, p.currency)}</td>
                     <td className="py-2 pr-3 text-right tabular-nums">{p.refundedCents ? formatMoney(p.refundedCents, p.currency) : "—"}</td>

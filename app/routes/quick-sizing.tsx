@@ -87,10 +87,7 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
 
   return (
     <>
-      <PageHeader
-        title="Quick sizing"
-        lead="Describe one hydraulic axis and see a preliminary circuit at once. No account needed; nothing is saved."
-      />
+      <PageHeader title="Quick sizing" lead="Describe one hydraulic axis and see a preliminary circuit at once. No account needed; nothing is saved." />
       <div className="grid gap-6 lg:grid-cols-[22rem_1fr]">
         <Form method="get" className="space-y-5" aria-label="Axis requirements" onSubmit={(e) => e.preventDefault()}>
           <fieldset className="flex gap-1 rounded-lg bg-white p-1 ring-1 ring-ink-100">

@@ -51,8 +51,17 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
             <p className="text-sm text-ink-600">Every form and circuit shows values in these units. Tenderflow stores them in SI.</p>
             <div className="mt-2 flex flex-wrap gap-2">
               {UNIT_SYSTEMS.map((system) => (
-                <label key={system} className="flex cursor-pointer items-center gap-2 rounded-md px-3 py-2 text-sm ring-1 ring-ink-200 has-[:checked]:bg-flow-50 has-[:checked]:ring-2 has-[:checked]:ring-flow-600">
-                  <input type="radio" name={fields.unitSystem.name} value={system} defaultChecked={fields.unitSystem.initialValue === system} className="accent-flow-600" />
+                <label
+                  key={system}
+                  className="flex cursor-pointer items-center gap-2 rounded-md px-3 py-2 text-sm ring-1 ring-ink-200 has-[:checked]:bg-flow-50 has-[:checked]:ring-2 has-[:checked]:ring-flow-600"
+                >
+                  <input
+                    type="radio"
+                    name={fields.unitSystem.name}
+                    value={system}
+                    defaultChecked={fields.unitSystem.initialValue === system}
+                    className="accent-flow-600"
+                  />
                   {UNIT_SYSTEM_LABELS[system]}
                 </label>
               ))}
@@ -76,8 +85,8 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
           ))}
         </ul>
         <p className="mt-3 text-sm text-ink-600">
-          Signed in on a computer that isn't yours, or think someone else knows your password? End every session,
-          this one included; then reset your password from the sign-in page.
+          Signed in on a computer that isn't yours, or think someone else knows your password? End every session, this one included; then reset your password
+          from the sign-in page.
         </p>
         <Form method="post" className="mt-3">
           <input type="hidden" name="intent" value="sign-out-everywhere" />
@@ -93,7 +102,25 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
 /** "Firefox on Windows" from a user agent: enough to recognise one's own devices. */
 function describeBrowser(userAgent: string | null) {
   if (!userAgent) return "Unknown browser";
-  const browser = /Edg\//.test(userAgent) ? "Edge" : /Firefox\//.test(userAgent) ? "Firefox" : /Chrom(e|ium)\//.test(userAgent) ? "Chrome" : /Safari\//.test(userAgent) ? "Safari" : "A browser";
-  const system = /Android/.test(userAgent) ? "Android" : /iPhone|iPad/.test(userAgent) ? "iOS" : /Windows/.test(userAgent) ? "Windows" : /Mac OS X/.test(userAgent) ? "macOS" : /Linux/.test(userAgent) ? "Linux" : null;
+  const browser = /Edg\//.test(userAgent)
+    ? "Edge"
+    : /Firefox\//.test(userAgent)
+      ? "Firefox"
+      : /Chrom(e|ium)\//.test(userAgent)
+        ? "Chrome"
+        : /Safari\//.test(userAgent)
+          ? "Safari"
+          : "A browser";
+  const system = /Android/.test(userAgent)
+    ? "Android"
+    : /iPhone|iPad/.test(userAgent)
+      ? "iOS"
+      : /Windows/.test(userAgent)
+        ? "Windows"
+        : /Mac OS X/.test(userAgent)
+          ? "macOS"
+          : /Linux/.test(userAgent)
+            ? "Linux"
+            : null;
   return system ? `${browser} on ${system}` : browser;
 }

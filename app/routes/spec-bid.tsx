@@ -86,8 +86,14 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
   const submission = parseWithZod(formData, { schema: bidSchema });
   const bom = await bomOf(spec);
-  if (!linesMatchBill(formData.entries(), bom.map((l) => l.key))) {
-    const message = "The lines sent do not match the bill of materials (it may have changed since the form was opened). Nothing was saved: reload the page and price the current bill.";
+  if (
+    !linesMatchBill(
+      formData.entries(),
+      bom.map((l) => l.key),
+    )
+  ) {
+    const message =
+      "The lines sent do not match the bill of materials (it may have changed since the form was opened). Nothing was saved: reload the page and price the current bill.";
     return data({ result: submission.reply({ formErrors: [message], resetForm: true }), withdrawError: null }, { status: 400 });
   }
   if (submission.status !== "success") return data({ result: submission.reply(), withdrawError: null }, { status: 400 });
@@ -96,7 +102,9 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirectWithToast(
       request,
       back,
-      submission.value.intent === "submit" ? `Offer ${bid.version} sent: ${formatMoney(bid.totalCents, bid.currency)}. The buyer has been told.` : "Draft saved. Only your shop can see it.",
+      submission.value.intent === "submit"
+        ? `Offer ${bid.version} sent: ${formatMoney(bid.totalCents, bid.currency)}. The buyer has been told.`
+        : "Draft saved. Only your shop can see it.",
     );
   } catch (error) {
     // A refusal of the whole offer (the "" key: deadline passed, spec awarded) is a conflict.
@@ -120,7 +128,10 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
   // A preview only: the server prices the bid again from what is sent.
   const typed = (form.value?.lines ?? d.defaults.lines) as { unitPrice?: string; alternative?: string }[];
   const cents = d.bill.map((l, i) => ({ quantity: l.quantity, unitPriceCents: parseMoney(typed[i]?.unitPrice ?? "") }));
-  const preview = bidTotals(cents.map((c) => ({ quantity: c.quantity, unitPriceCents: c.unitPriceCents ?? 0 })), d.spec.units);
+  const preview = bidTotals(
+    cents.map((c) => ({ quantity: c.quantity, unitPriceCents: c.unitPriceCents ?? 0 })),
+    d.spec.units,
+  );
   const unpriced = cents.filter((c, i) => c.unitPriceCents === null && !(typed[i]?.unitPrice ?? "").trim()).length;
   const unreadable = cents.filter((c, i) => c.unitPriceCents === null && (typed[i]?.unitPrice ?? "").trim()).length;
   const offered = d.bid?.status === "submitted";
@@ -129,7 +140,9 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
   return (
     <>
       <p className="mb-2 text-sm">
-        <Link to={`/specs/${d.spec.id}`} className="text-flow-700 hover:underline">← {d.spec.title}</Link>
+        <Link to={`/specs/${d.spec.id}`} className="text-flow-700 hover:underline">
+          ← {d.spec.title}
+        </Link>
       </p>
       <PageHeader
         title="Your bid"
@@ -146,8 +159,8 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
       {d.bid && d.bid.specRevision < d.spec.revision ? (
         <div className="mb-4">
           <Notice tone="warn">
-            Your offer was made against revision {d.bid.specRevision}; the buyer has since published revision {d.spec.revision}. The lines below are the
-            current bill. Submit again so your offer matches it.
+            Your offer was made against revision {d.bid.specRevision}; the buyer has since published revision {d.spec.revision}. The lines below are the current
+            bill. Submit again so your offer matches it.
           </Notice>
         </div>
       ) : null}
@@ -167,17 +180,25 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
           <Card>
             <h2 className="mb-1 text-lg font-semibold">Price each line of the bill</h2>
             <p className="mb-4 text-sm text-ink-600">
-              Enter the price of one item; the line total is that times the quantity. If you would fit a different part, tick “Alternative” and say what it
-              is. Enter 0 for a line included in another.
+              Enter the price of one item; the line total is that times the quantity. If you would fit a different part, tick “Alternative” and say what it is.
+              Enter 0 for a line included in another.
             </p>
             <TableScroll label="Prices by line">
               <table className="w-full min-w-[44rem] text-left text-sm">
                 <thead className="text-ink-600">
                   <tr>
-                    <th scope="col" className="py-2 pr-3">Line</th>
-                    <th scope="col" className="pr-3 text-right">Qty</th>
-                    <th scope="col" className="w-40 pr-3">Unit price ({d.spec.currency})</th>
-                    <th scope="col" className="pr-3 text-right">Line total</th>
+                    <th scope="col" className="py-2 pr-3">
+                      Line
+                    </th>
+                    <th scope="col" className="pr-3 text-right">
+                      Qty
+                    </th>
+                    <th scope="col" className="w-40 pr-3">
+                      Unit price ({d.spec.currency})
+                    </th>
+                    <th scope="col" className="pr-3 text-right">
+                      Line total
+                    </th>
                     <th scope="col">Alternative</th>
                   </tr>
                 </thead>
@@ -190,64 +211,81 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                     const c = cents[i];
                     return (
                       <Fragment key={line.key}>
-                      <tr className="border-t border-ink-100 align-top">
-                        <td className="py-2 pr-3">
-                          <input {...getInputProps(f.key, { type: "hidden" })} key={f.key.key} />
-                          <label htmlFor={f.unitPrice.id} className="font-semibold text-ink-900">{bill.item}</label>
-                          <p className="text-ink-600">{bill.specification}</p>
-                        </td>
-                        <td className="py-2 pr-3 text-right tabular-nums">{bill.quantity}</td>
-                        <td className="py-2 pr-3">
-                          <input
-                            {...getInputProps(f.unitPrice, { type: "text" })}
-                            key={f.unitPrice.key}
-                            inputMode="decimal"
-                            placeholder="0.00"
-                            className="block w-full rounded-md bg-white px-2 py-1 text-right tabular-nums ring-1 ring-ink-200 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600"
-                          />
-                          <FieldErrorText id={f.unitPrice.errorId} errors={f.unitPrice.errors} />
-                        </td>
-                        <td className="py-2 pr-3 text-right tabular-nums">{c.unitPriceCents === null ? "—" : money(c.quantity * c.unitPriceCents)}</td>
-                        <td className="py-2">
-                          <label className="flex items-center gap-2">
-                            <input {...getInputProps(f.alternative, { type: "checkbox" })} key={f.alternative.key} />
-                            <span>Alternative</span>
-                          </label>
-                          {isAlternative ? null : <input type="hidden" name={f.alternativeDescription.name} value="" />}
-                        </td>
-                      </tr>
-                      {/* The alternative is described across the whole table, under its line, not squeezed into the last column. */}
-                      {isAlternative ? (
-                        <tr className="align-top">
-                          <td colSpan={5} className="pb-3">
-                            <label htmlFor={f.alternativeDescription.id} className="block text-xs font-semibold text-ink-700">
-                              What you offer instead of {bill.item}
+                        <tr className="border-t border-ink-100 align-top">
+                          <td className="py-2 pr-3">
+                            <input {...getInputProps(f.key, { type: "hidden" })} key={f.key.key} />
+                            <label htmlFor={f.unitPrice.id} className="font-semibold text-ink-900">
+                              {bill.item}
                             </label>
-                            <textarea
-                              {...getTextareaProps(f.alternativeDescription)}
-                              key={f.alternativeDescription.key}
-                              rows={2}
-                              placeholder="Make, model and why"
-                              className="mt-1 block w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
+                            <p className="text-ink-600">{bill.specification}</p>
+                          </td>
+                          <td className="py-2 pr-3 text-right tabular-nums">{bill.quantity}</td>
+                          <td className="py-2 pr-3">
+                            <input
+                              {...getInputProps(f.unitPrice, { type: "text" })}
+                              key={f.unitPrice.key}
+                              inputMode="decimal"
+                              placeholder="0.00"
+                              className="block w-full rounded-md bg-white px-2 py-1 text-right tabular-nums ring-1 ring-ink-200 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600"
                             />
-                            <FieldErrorText id={f.alternativeDescription.errorId} errors={f.alternativeDescription.errors} />
+                            <FieldErrorText id={f.unitPrice.errorId} errors={f.unitPrice.errors} />
+                          </td>
+                          <td className="py-2 pr-3 text-right tabular-nums">{c.unitPriceCents === null ? "—" : money(c.quantity * c.unitPriceCents)}</td>
+                          <td className="py-2">
+                            <label className="flex items-center gap-2">
+                              <input {...getInputProps(f.alternative, { type: "checkbox" })} key={f.alternative.key} />
+                              <span>Alternative</span>
+                            </label>
+                            {isAlternative ? null : <input type="hidden" name={f.alternativeDescription.name} value="" />}
                           </td>
                         </tr>
-                      ) : null}
+                        {/* The alternative is described across the whole table, under its line, not squeezed into the last column. */}
+                        {isAlternative ? (
+                          <tr className="align-top">
+                            <td colSpan={5} className="pb-3">
+                              <label htmlFor={f.alternativeDescription.id} className="block text-xs font-semibold text-ink-700">
+                                What you offer instead of {bill.item}
+                              </label>
+                              <textarea
+                                {...getTextareaProps(f.alternativeDescription)}
+                                key={f.alternativeDescription.key}
+                                rows={2}
+                                placeholder="Make, model and why"
+                                className="mt-1 block w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
+                              />
+                              <FieldErrorText id={f.alternativeDescription.errorId} errors={f.alternativeDescription.errors} />
+                            </td>
+                          </tr>
+                        ) : null}
                       </Fragment>
                     );
                   })}
                 </tbody>
                 <tfoot className="border-t-2 border-ink-200 font-semibold">
                   <tr>
-                    <td colSpan={3} className="py-2 pr-3 text-right">One set</td>
-                    <td className="py-2 pr-3 text-right tabular-nums" data-testid="set-total">{money(preview.setTotalCents)}</td>
+                    <td colSpan={3} className="py-2 pr-3 text-right">
+                      One set
+                    </td>
+                    <td className="py-2 pr-3 text-right tabular-nums" data-testid="set-total">
+                      {money(preview.setTotalCents)}
+                    </td>
                     <td />
                   </tr>
                   <tr>
-                    <td colSpan={3} className="py-2 pr-3 text-right">× {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}: your offer</td>
-                    <td className="py-2 pr-3 text-right text-base tabular-nums" data-testid="offer-total">{money(preview.totalCents)}</td>
-                    <td className="py-2 text-xs font-normal text-ink-600">{[unpriced ? `${unpriced} line${unpriced === 1 ? "" : "s"} not priced yet` : "", unreadable ? `${unreadable} price${unreadable === 1 ? "" : "s"} to correct` : ""].filter(Boolean).join("; ") || "Every line priced"}</td>
+                    <td colSpan={3} className="py-2 pr-3 text-right">
+                      × {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}: your offer
+                    </td>
+                    <td className="py-2 pr-3 text-right text-base tabular-nums" data-testid="offer-total">
+                      {money(preview.totalCents)}
+                    </td>
+                    <td className="py-2 text-xs font-normal text-ink-600">
+                      {[
+                        unpriced ? `${unpriced} line${unpriced === 1 ? "" : "s"} not priced yet` : "",
+                        unreadable ? `${unreadable} price${unreadable === 1 ? "" : "s"} to correct` : "",
+                      ]
+                        .filter(Boolean)
+                        .join("; ") || "Every line priced"}
+                    </td>
                   </tr>
                 </tfoot>
               </table>
@@ -255,26 +293,55 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
           </Card>
 
           <Card className="grid gap-5 sm:grid-cols-2">
-            <TextField meta={fields.leadTimeWeeks} label="Lead time (weeks)" hint="From the award to dispatch, e.g. 12; the job's milestones are planned over it." inputMode="numeric" />
+            <TextField
+              meta={fields.leadTimeWeeks}
+              label="Lead time (weeks)"
+              hint="From the award to dispatch, e.g. 12; the job's milestones are planned over it."
+              inputMode="numeric"
+            />
             <TextField meta={fields.validUntil} type="date" label="Offer valid until" hint="At least until the bid deadline." />
             <div className="sm:col-span-2">
-              <label htmlFor={fields.terms.id} className="block text-sm font-semibold text-ink-800">Terms</label>
-              <textarea {...getTextareaProps(fields.terms)} key={fields.terms.key} rows={3} placeholder="Payment, delivery (e.g. ex works), warranty" className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200" />
+              <label htmlFor={fields.terms.id} className="block text-sm font-semibold text-ink-800">
+                Terms
+              </label>
+              <textarea
+                {...getTextareaProps(fields.terms)}
+                key={fields.terms.key}
+                rows={3}
+                placeholder="Payment, delivery (e.g. ex works), warranty"
+                className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200"
+              />
               <FieldErrorText id={fields.terms.errorId} errors={fields.terms.errors} />
             </div>
             <div className="sm:col-span-2">
-              <label htmlFor={fields.notes.id} className="block text-sm font-semibold text-ink-800">Notes for the buyer</label>
-              <textarea {...getTextareaProps(fields.notes)} key={fields.notes.key} rows={3} placeholder="Anything the buyer should know about your offer" className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200" />
+              <label htmlFor={fields.notes.id} className="block text-sm font-semibold text-ink-800">
+                Notes for the buyer
+              </label>
+              <textarea
+                {...getTextareaProps(fields.notes)}
+                key={fields.notes.key}
+                rows={3}
+                placeholder="Anything the buyer should know about your offer"
+                className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200"
+              />
               <FieldErrorText id={fields.notes.errorId} errors={fields.notes.errors} />
             </div>
           </Card>
 
           <div className="flex flex-wrap items-center gap-3">
-            <Button type="submit" name="intent" value="submit">{offered ? "Send the revised offer" : "Submit the offer"}</Button>
+            <Button type="submit" name="intent" value="submit">
+              {offered ? "Send the revised offer" : "Submit the offer"}
+            </Button>
             {!offered ? (
-              <Button type="submit" name="intent" value="save" tone="secondary">Save as draft</Button>
+              <Button type="submit" name="intent" value="save" tone="secondary">
+                Save as draft
+              </Button>
             ) : null}
-            <p className="text-sm text-ink-600">{offered ? "The buyer sees the revised offer as soon as you send it; the earlier one stays in the history." : "The buyer sees your offer once it is submitted; drafts stay with your shop."}</p>
+            <p className="text-sm text-ink-600">
+              {offered
+                ? "The buyer sees the revised offer as soon as you send it; the earlier one stays in the history."
+                : "The buyer sees your offer once it is submitted; drafts stay with your shop."}
+            </p>
           </div>
         </fieldset>
       </Form>
@@ -287,7 +354,9 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
             if (!window.confirm("Take your offer back? The buyer will no longer see it; you can offer again until the deadline.")) event.preventDefault();
           }}
         >
-          <Button type="submit" name="intent" value="withdraw" tone="danger">Take the offer back</Button>
+          <Button type="submit" name="intent" value="withdraw" tone="danger">
+            Take the offer back
+          </Button>
         </Form>
       ) : null}
 
@@ -300,7 +369,9 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                 <span className="font-semibold">{h.event === "submitted" ? `Offer ${h.version}` : `Offer ${h.version} taken back`}</span>
                 <span className="tabular-nums">{money(h.totalCents)}</span>
                 {h.leadTimeWeeks ? <span>{h.leadTimeWeeks} weeks</span> : null}
-                <span className="text-ink-600">revision {h.specRevision} · {h.by} · {formatMoment(h.at)}</span>
+                <span className="text-ink-600">
+                  revision {h.specRevision} · {h.by} · {formatMoment(h.at)}
+                </span>
               </li>
             ))}
           </ol>

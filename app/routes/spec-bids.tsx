@@ -32,7 +32,16 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const [{ comparison }, job, canAward] = await Promise.all([comparisonOf(user, spec, sort), awardedJobOf(user, spec), canAwardNow(user, spec)]);
   const choosing = comparison.columns.find((c) => c.id === url.searchParams.get("award") && c.status === "submitted") ?? null;
   return {
-    spec: { id: spec.id, title: spec.title, status: spec.status as SpecStatus, revision: spec.currentRevision, currency: spec.currency, units: spec.unitsWanted ?? 1, retainerPercent: spec.retainerPercent ?? "0", deadline: spec.bidDeadline?.toISOString() ?? null },
+    spec: {
+      id: spec.id,
+      title: spec.title,
+      status: spec.status as SpecStatus,
+      revision: spec.currentRevision,
+      currency: spec.currency,
+      units: spec.unitsWanted ?? 1,
+      retainerPercent: spec.retainerPercent ?? "0",
+      deadline: spec.bidDeadline?.toISOString() ?? null,
+    },
     sort,
     comparison,
     jobId: job?.id ?? null,
@@ -92,7 +101,9 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
   return (
     <>
       <p className="mb-2 text-sm">
-        <Link to={`/specs/${d.spec.id}`} className="text-flow-700 hover:underline">← {d.spec.title}</Link>
+        <Link to={`/specs/${d.spec.id}`} className="text-flow-700 hover:underline">
+          ← {d.spec.title}
+        </Link>
       </p>
       <PageHeader
         title="Compare the bids"
@@ -137,7 +148,8 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 {cheapest.shop}: {money(cheapest.totalCents)}
               </p>
               <p className="text-sm text-ink-700">
-                Every line of the current bill priced · {cheapest.leadTimeWeeks ?? "?"} weeks · valid until {cheapest.validUntil ? day(cheapest.validUntil) : "—"}
+                Every line of the current bill priced · {cheapest.leadTimeWeeks ?? "?"} weeks · valid until{" "}
+                {cheapest.validUntil ? day(cheapest.validUntil) : "—"}
                 {cheapest.alternatives ? ` · ${cheapest.alternatives} alternative part${cheapest.alternatives === 1 ? "" : "s"}` : ""}
                 {cheapest.olderRevision ? ` · made on revision ${cheapest.specRevision}` : ""}
               </p>
@@ -150,11 +162,13 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
 
           {d.choosing ? (
             <Card className="mb-6 scroll-mt-4 ring-2 ring-flow-600">
-              <h2 id="award-confirmation" tabIndex={-1} className="text-lg font-semibold">Award this spec to {d.choosing.shop}?</h2>
+              <h2 id="award-confirmation" tabIndex={-1} className="text-lg font-semibold">
+                Award this spec to {d.choosing.shop}?
+              </h2>
               <p className="mt-1 text-sm text-ink-700">
                 {money(d.choosing.totalCents)} for {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}, {d.choosing.leadTimeWeeks} weeks. The retainer of{" "}
-                <strong>{money(d.choosing.retainerCents)}</strong> ({Number(d.spec.retainerPercent)} %) is paid by card after the award. Every other bidder is told
-                they were not chosen, and bidding closes. This can't be undone.
+                <strong>{money(d.choosing.retainerCents)}</strong> ({Number(d.spec.retainerPercent)} %) is paid by card after the award. Every other bidder is
+                told they were not chosen, and bidding closes. This can't be undone.
               </p>
               <Form method="post" {...getFormProps(form)} className="mt-4 flex flex-wrap items-center gap-4">
                 <input type="hidden" name={fields.bidId.name} value={d.choosing.id} />
@@ -163,7 +177,9 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                   <span>I award this spec to {d.choosing.shop}.</span>
                 </label>
                 <SubmitButton>Confirm the award</SubmitButton>
-                <Link to={withSort(d.sort)} className="text-sm text-flow-700 hover:underline">Cancel</Link>
+                <Link to={withSort(d.sort)} className="text-sm text-flow-700 hover:underline">
+                  Cancel
+                </Link>
                 <FieldErrors id={fields.confirm.errorId} errors={fields.confirm.errors} />
               </Form>
             </Card>
@@ -188,7 +204,9 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
               <caption className="sr-only">Offers by line; the lowest price of each line and the cheapest complete offer are marked.</caption>
               <thead>
                 <tr className="align-bottom">
-                  <th scope="col" className="sticky left-0 z-10 min-w-[16rem] bg-white p-3 text-left">Line</th>
+                  <th scope="col" className="sticky left-0 z-10 min-w-[16rem] bg-white p-3 text-left">
+                    Line
+                  </th>
                   {columns.map((c) => (
                     <th key={c.id} scope="col" className={`w-48 min-w-[11rem] p-3 text-right ${c.cheapestComplete ? "bg-flow-50" : ""}`} data-bid={c.id}>
                       <span className="block text-base text-ink-900">{c.shop}</span>
@@ -197,7 +215,11 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                         {c.cheapestComplete ? <Badge tone="good">Cheapest complete</Badge> : null}
                         {c.olderRevision ? <Badge tone="warn">On revision {c.specRevision}</Badge> : null}
                         {!c.complete ? <Badge tone="warn">Lines missing</Badge> : null}
-                        {c.alternatives ? <Badge tone="neutral">{c.alternatives} alternative{c.alternatives === 1 ? "" : "s"}</Badge> : null}
+                        {c.alternatives ? (
+                          <Badge tone="neutral">
+                            {c.alternatives} alternative{c.alternatives === 1 ? "" : "s"}
+                          </Badge>
+                        ) : null}
                       </span>
                     </th>
                   ))}
@@ -212,7 +234,10 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                       {!row.inCurrentBill ? <span className="block text-xs text-signal-700">Only in an earlier revision</span> : null}
                     </th>
                     {row.cells.map((cell, i) => (
-                      <td key={columns[i].id} className={`p-3 text-right tabular-nums ${cell?.lowest ? "bg-flow-50 font-semibold text-flow-700" : columns[i].cheapestComplete ? "bg-flow-50/40" : ""}`}>
+                      <td
+                        key={columns[i].id}
+                        className={`p-3 text-right tabular-nums ${cell?.lowest ? "bg-flow-50 font-semibold text-flow-700" : columns[i].cheapestComplete ? "bg-flow-50/40" : ""}`}
+                      >
                         {cell?.included ? (
                           <span className="block text-ink-700" title="Priced 0: the shop includes this line elsewhere in its offer">
                             Included
@@ -239,7 +264,9 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
               </tbody>
               <tfoot className="border-t-2 border-ink-300">
                 <tr>
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left">Total for {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}</th>
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left">
+                    Total for {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}
+                  </th>
                   {columns.map((c) => (
                     <td key={c.id} className={`p-3 text-right text-base font-semibold tabular-nums ${c.cheapestComplete ? "bg-flow-50 text-flow-700" : ""}`}>
                       {money(c.totalCents)}
@@ -253,7 +280,9 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                   ))}
                 </tr>
                 <tr className="border-t border-ink-100">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Lead time</th>
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
+                    Lead time
+                  </th>
                   {columns.map((c) => (
                     <td key={c.id} className={`p-3 text-right ${c.shortestLead ? "font-semibold text-flow-700" : ""}`}>
                       {c.leadTimeWeeks ? `${c.leadTimeWeeks} weeks` : "—"}
@@ -262,14 +291,20 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                   ))}
                 </tr>
                 <tr className="border-t border-ink-100">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Valid until</th>
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
+                    Valid until
+                  </th>
                   {columns.map((c) => (
-                    <td key={c.id} className="p-3 text-right">{c.validUntil ? day(c.validUntil) : "—"}</td>
+                    <td key={c.id} className="p-3 text-right">
+                      {c.validUntil ? day(c.validUntil) : "—"}
+                    </td>
                   ))}
                 </tr>
                 {/* What each price includes and on what terms, beside the prices, so nobody awards blind. */}
                 <tr className="border-t border-ink-100 align-top">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Terms</th>
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
+                    Terms
+                  </th>
                   {columns.map((c) => (
                     <td key={c.id} className="p-3 text-left text-xs whitespace-pre-line text-ink-800" data-terms={c.id}>
                       {c.terms || <span className="text-ink-400">none stated</span>}
@@ -277,7 +312,9 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                   ))}
                 </tr>
                 <tr className="border-t border-ink-100 align-top">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Notes from the shop</th>
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
+                    Notes from the shop
+                  </th>
                   {columns.map((c) => (
                     <td key={c.id} className="p-3 text-left text-xs whitespace-pre-line text-ink-800" data-notes={c.id}>
                       {c.notes || <span className="text-ink-400">none</span>}
@@ -286,12 +323,18 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 </tr>
                 {canAward ? (
                   <tr className="border-t border-ink-100">
-                    <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">Decision</th>
+                    <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
+                      Decision
+                    </th>
                     {columns.map((c) => (
                       <td key={c.id} className="p-3 text-right">
                         {c.status === "submitted" ? (
                           <span className="flex justify-end">
-                            <ButtonLink to={`?sort=${d.sort}&award=${c.id}#award-confirmation`} tone={c.cheapestComplete ? "primary" : "secondary"} aria-label={`Award to ${c.shop}`}>
+                            <ButtonLink
+                              to={`?sort=${d.sort}&award=${c.id}#award-confirmation`}
+                              tone={c.cheapestComplete ? "primary" : "secondary"}
+                              aria-label={`Award to ${c.shop}`}
+                            >
                               Award…
                             </ButtonLink>
                           </span>

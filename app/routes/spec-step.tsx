@@ -32,7 +32,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const review = step === "review" ? designOf(spec) : null;
   const attachments = step === "quotation" || step === "review" ? await listAttachments(user, spec.id) : [];
   return {
-    spec: { id: spec.id, title: spec.title, revising: spec.revising, nextRevision: spec.currentRevision + 1, unitSystem: spec.unitSystem as UnitSystem, completedSteps: spec.completedSteps as string[] },
+    spec: {
+      id: spec.id,
+      title: spec.title,
+      revising: spec.revising,
+      nextRevision: spec.currentRevision + 1,
+      unitSystem: spec.unitSystem as UnitSystem,
+      completedSteps: spec.completedSteps as string[],
+    },
     step,
     stepTitle: SPEC_STEPS.find((s) => s.id === step)!.title,
     answers,
@@ -64,7 +71,13 @@ export async function action({ request, params }: Route.ActionArgs) {
   // an answer longer than its field takes is refused on this path too.
   const back = intent === "back";
   if (Object.keys(tooLongErrors).length || (!back && submission.status !== "success")) {
-    return data({ result: submission.reply({ fieldErrors: { ...(submission.status === "error" ? submission.error : {}), ...tooLongErrors } as Record<string, string[]> }), publishError: null }, { status: 400 });
+    return data(
+      {
+        result: submission.reply({ fieldErrors: { ...(submission.status === "error" ? submission.error : {}), ...tooLongErrors } as Record<string, string[]> }),
+        publishError: null,
+      },
+      { status: 400 },
+    );
   }
   try {
     await saveStep(user, spec.id, { step, answers: typed, complete: submission.status === "success" });
@@ -93,7 +106,13 @@ export default function SpecStep({ loaderData, actionData }: Route.ComponentProp
       ) : null}
       <SpecProgress specId={spec.id} current={step} completed={spec.completedSteps} />
       {step === "review" ? (
-        <SpecReview spec={spec} answers={loaderData.answers} design={loaderData.review?.design ?? null} attachments={loaderData.attachments} publishError={actionData?.publishError ?? null} />
+        <SpecReview
+          spec={spec}
+          answers={loaderData.answers}
+          design={loaderData.review?.design ?? null}
+          attachments={loaderData.attachments}
+          publishError={actionData?.publishError ?? null}
+        />
       ) : (
         <SpecStepForm
           key={step}
@@ -110,4 +129,3 @@ export default function SpecStep({ loaderData, actionData }: Route.ComponentProp
     </>
   );
 }
-

@@ -20,7 +20,6 @@ import { biddingPanelOf } from "~/services/bids.server";
 import { BidPanel } from "~/components/bid-panel";
 import type { UnitSystem } from "~/units";
 
-
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.title ?? "Spec"} · Tenderflow` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
@@ -66,7 +65,9 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
   return (
     <>
       <p className="mb-2 text-sm">
-        <Link to={d.back.to} className="text-flow-700 hover:underline">← {d.back.label}</Link>
+        <Link to={d.back.to} className="text-flow-700 hover:underline">
+          ← {d.back.label}
+        </Link>
       </p>
       <PageHeader
         title={d.title || "Untitled draft"}
@@ -74,7 +75,11 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
           <span className="flex flex-wrap items-center gap-x-4 gap-y-1">
             <Badge tone={SPEC_STATUS_TONES[d.status]}>{SPEC_STATUS_LABELS[d.status]}</Badge>
             {d.buyerName && !d.isOwner ? <span>For {d.buyerName}</span> : null}
-            {d.revision ? <span>Revision {d.revision.number}, sizing engine {d.revision.engineVersion}</span> : null}
+            {d.revision ? (
+              <span>
+                Revision {d.revision.number}, sizing engine {d.revision.engineVersion}
+              </span>
+            ) : null}
             {d.bidDeadline ? <span>Bids until {formatDay(d.bidDeadline)}</span> : null}
             {d.deliveryRegion ? <span>Delivered to {d.deliveryRegion}</span> : null}
           </span>
@@ -82,17 +87,25 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
         actions={
           d.isOwner && d.status === "open" ? (
             d.revising ? (
-              <Link to={`/specs/${d.id}/edit`} className="rounded-md bg-flow-600 px-4 py-2 text-sm font-semibold text-white">Continue revision {d.latestRevision + 1}</Link>
+              <Link to={`/specs/${d.id}/edit`} className="rounded-md bg-flow-600 px-4 py-2 text-sm font-semibold text-white">
+                Continue revision {d.latestRevision + 1}
+              </Link>
             ) : (
               <Form method="post" action={`/specs/${d.id}/revise`}>
-                <Button type="submit" tone="secondary">Revise this spec</Button>
+                <Button type="submit" tone="secondary">
+                  Revise this spec
+                </Button>
               </Form>
             )
           ) : d.isOwner && d.status === "draft" ? (
             <>
-              <Link to={`/specs/${d.id}/edit`} className="rounded-md bg-flow-600 px-4 py-2 text-sm font-semibold text-white">Continue the draft</Link>
+              <Link to={`/specs/${d.id}/edit`} className="rounded-md bg-flow-600 px-4 py-2 text-sm font-semibold text-white">
+                Continue the draft
+              </Link>
               <Form method="post" action={`/specs/${d.id}/delete`}>
-                <Button tone="danger" type="submit">Delete draft</Button>
+                <Button tone="danger" type="submit">
+                  Delete draft
+                </Button>
               </Form>
             </>
           ) : null
@@ -110,7 +123,9 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
               const n = d.questions.questions.filter((q) => !q.answer).length;
               return `${n} question${n === 1 ? "" : "s"} from shops ${n === 1 ? "waits" : "wait"} for your answer; every shop sees the answers. `;
             })()}
-            <a href="#questions" className="font-semibold underline">Answer now</a>
+            <a href="#questions" className="font-semibold underline">
+              Answer now
+            </a>
           </Notice>
         </div>
       ) : null}
@@ -132,7 +147,9 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
       ) : null}
       {d.revision && d.revision.number < d.latestRevision ? (
         <div className="mb-6">
-          <Notice tone="warn">You are looking at revision {d.revision.number}; revision {d.latestRevision} is the current one.</Notice>
+          <Notice tone="warn">
+            You are looking at revision {d.revision.number}; revision {d.latestRevision} is the current one.
+          </Notice>
         </div>
       ) : null}
       {d.quotation ? (

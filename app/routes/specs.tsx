@@ -15,7 +15,10 @@ export const meta: Route.MetaFunction = () => [{ title: "My specs · Tenderflow"
 
 const querySchema = z.object({
   status: z.enum(SPEC_STATUSES).optional().catch(undefined),
-  sort: z.enum(Object.keys(SPEC_SORTS) as [keyof typeof SPEC_SORTS]).optional().catch(undefined),
+  sort: z
+    .enum(Object.keys(SPEC_SORTS) as [keyof typeof SPEC_SORTS])
+    .optional()
+    .catch(undefined),
 });
 
 export async function loader({ request }: Route.LoaderArgs) {
@@ -59,8 +62,8 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
       {specs.length === 0 && !loaderData.filtered ? (
         <EmptyState title="No specs yet" action={<NewSpecButton />}>
           <p>
-            A spec describes one hydraulic axis of your machine: what it moves, how far, how fast and how often. Tenderflow
-            sizes a preliminary circuit from it, and fluid-power shops bid against the same bill of materials.
+            A spec describes one hydraulic axis of your machine: what it moves, how far, how fast and how often. Tenderflow sizes a preliminary circuit from it,
+            and fluid-power shops bid against the same bill of materials.
           </p>
           <p className="mt-3">Have the moving mass, the stroke and the speeds at hand: those are the first things the spec asks for.</p>
         </EmptyState>
@@ -72,7 +75,9 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
               <select name="status" defaultValue={searchParams.get("status") ?? ""} className="rounded-md px-2 py-1.5 ring-1 ring-ink-200">
                 <option value="">All</option>
                 {SPEC_STATUSES.map((s) => (
-                  <option key={s} value={s}>{SPEC_STATUS_LABELS[s]}</option>
+                  <option key={s} value={s}>
+                    {SPEC_STATUS_LABELS[s]}
+                  </option>
                 ))}
               </select>
             </label>
@@ -84,45 +89,67 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
                 <option value="title">Title</option>
               </select>
             </label>
-            <Button type="submit" tone="secondary">Apply</Button>
+            <Button type="submit" tone="secondary">
+              Apply
+            </Button>
           </Form>
           {specs.length === 0 ? (
             <p className="py-6 text-center text-ink-600">No spec has that status.</p>
           ) : (
-            <TableScroll label="Specs"><table className="w-full min-w-[40rem] text-left text-sm">
-              <thead className="text-ink-600">
-                <tr>
-                  <th scope="col" className="py-2">Spec</th>
-                  <th scope="col">Status</th>
-                  <th scope="col" className="text-right pr-4">Offers</th>
-                  <th scope="col">Bid deadline</th>
-                  <th scope="col">Last changed</th>
-                </tr>
-              </thead>
-              <tbody>
-                {specs.map((s) => (
-                  <tr key={s.id} className="border-t border-ink-100">
-                    <td className="max-w-[24rem] py-2 pr-4 [overflow-wrap:anywhere]">
-                      <Link to={s.status === "draft" ? `/specs/${s.id}/edit` : `/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">
-                        {s.title || "Untitled draft"}
-                      </Link>
-                      {s.revision > 1 ? <span className="ml-2 text-xs text-ink-400">revision {s.revision}</span> : null}
-                      {s.waitingQuestions ? (
-                        <Link to={`/specs/${s.id}#questions`} className="mt-1 block w-fit text-xs font-semibold text-signal-700 hover:underline" data-waiting-questions={s.waitingQuestions}>
-                          {s.waitingQuestions} question{s.waitingQuestions === 1 ? "" : "s"} waiting for your answer
-                        </Link>
-                      ) : null}
-                    </td>
-                    <td><Badge tone={SPEC_STATUS_TONES[s.status]}>{SPEC_STATUS_LABELS[s.status]}</Badge></td>
-                    <td className="pr-4 text-right tabular-nums">
-                      {s.offers ? <Link to={`/specs/${s.id}/bids`} className="font-semibold text-flow-700 hover:underline">{s.offers}</Link> : s.offers === 0 ? "0" : "—"}
-                    </td>
-                    <td>{s.bidDeadline ? formatDay(s.bidDeadline) : "—"}</td>
-                    <td>{formatDay(s.updatedAt)}</td>
+            <TableScroll label="Specs">
+              <table className="w-full min-w-[40rem] text-left text-sm">
+                <thead className="text-ink-600">
+                  <tr>
+                    <th scope="col" className="py-2">
+                      Spec
+                    </th>
+                    <th scope="col">Status</th>
+                    <th scope="col" className="text-right pr-4">
+                      Offers
+                    </th>
+                    <th scope="col">Bid deadline</th>
+                    <th scope="col">Last changed</th>
                   </tr>
-                ))}
-              </tbody>
-            </table></TableScroll>
+                </thead>
+                <tbody>
+                  {specs.map((s) => (
+                    <tr key={s.id} className="border-t border-ink-100">
+                      <td className="max-w-[24rem] py-2 pr-4 [overflow-wrap:anywhere]">
+                        <Link to={s.status === "draft" ? `/specs/${s.id}/edit` : `/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">
+                          {s.title || "Untitled draft"}
+                        </Link>
+                        {s.revision > 1 ? <span className="ml-2 text-xs text-ink-400">revision {s.revision}</span> : null}
+                        {s.waitingQuestions ? (
+                          <Link
+                            to={`/specs/${s.id}#questions`}
+                            className="mt-1 block w-fit text-xs font-semibold text-signal-700 hover:underline"
+                            data-waiting-questions={s.waitingQuestions}
+                          >
+                            {s.waitingQuestions} question{s.waitingQuestions === 1 ? "" : "s"} waiting for your answer
+                          </Link>
+                        ) : null}
+                      </td>
+                      <td>
+                        <Badge tone={SPEC_STATUS_TONES[s.status]}>{SPEC_STATUS_LABELS[s.status]}</Badge>
+                      </td>
+                      <td className="pr-4 text-right tabular-nums">
+                        {s.offers ? (
+                          <Link to={`/specs/${s.id}/bids`} className="font-semibold text-flow-700 hover:underline">
+                            {s.offers}
+                          </Link>
+                        ) : s.offers === 0 ? (
+                          "0"
+                        ) : (
+                          "—"
+                        )}
+                      </td>
+                      <td>{s.bidDeadline ? formatDay(s.bidDeadline) : "—"}</td>
+                      <td>{formatDay(s.updatedAt)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </TableScroll>
           )}
         </Card>
       )}

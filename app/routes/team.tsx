@@ -58,28 +58,30 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
       <div className="grid gap-6 lg:grid-cols-3">
         <Card className="lg:col-span-2">
           <h2 className="mb-3 font-semibold">Members</h2>
-          <TableScroll label="Members"><table className="w-full min-w-[30rem] text-left text-sm">
-            <thead className="text-ink-600">
-              <tr>
-                <th className="py-2">Name</th>
-                <th>E-mail</th>
-                <th>Role</th>
-                <th>Status</th>
-              </tr>
-            </thead>
-            <tbody>
-              {loaderData.members.map((m) => (
-                <tr key={m.id} className="border-t border-ink-100">
-                  <td className="py-2 font-semibold">
-                    {m.name} {m.isYou ? <span className="font-normal text-ink-400">(you)</span> : null}
-                  </td>
-                  <td>{m.email}</td>
-                  <td>{ROLE_LABELS[m.role]}</td>
-                  <td>{m.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
+          <TableScroll label="Members">
+            <table className="w-full min-w-[30rem] text-left text-sm">
+              <thead className="text-ink-600">
+                <tr>
+                  <th className="py-2">Name</th>
+                  <th>E-mail</th>
+                  <th>Role</th>
+                  <th>Status</th>
                 </tr>
-              ))}
-            </tbody>
-          </table></TableScroll>
+              </thead>
+              <tbody>
+                {loaderData.members.map((m) => (
+                  <tr key={m.id} className="border-t border-ink-100">
+                    <td className="py-2 font-semibold">
+                      {m.name} {m.isYou ? <span className="font-normal text-ink-400">(you)</span> : null}
+                    </td>
+                    <td>{m.email}</td>
+                    <td>{ROLE_LABELS[m.role]}</td>
+                    <td>{m.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </TableScroll>
           {loaderData.invitations.length ? (
             <>
               <h2 className="mb-3 mt-8 font-semibold">Invitations waiting for an answer</h2>
@@ -107,11 +109,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
             <FormErrors id={form.errorId} errors={form.errors} />
             <TextField meta={fields.email} label="Their e-mail address" type="email" hint="For example: j.okafor@yourcompany.com" />
             {invitableRoles.length > 1 ? (
-              <SelectField
-                meta={fields.role}
-                label="Role"
-                options={invitableRoles.map((r) => ({ value: r, label: ROLE_LABELS[r] }))}
-              />
+              <SelectField meta={fields.role} label="Role" options={invitableRoles.map((r) => ({ value: r, label: ROLE_LABELS[r] }))} />
             ) : null}
             <Button type="submit" disabled={navigation.state === "submitting"}>
               Send invitation

@@ -16,10 +16,7 @@ const emailField = z
   .pipe(z.email("Enter an e-mail address like name@company.com."))
   .transform((v) => v.toLowerCase());
 
-const newPasswordField = z
-  .string({ error: "Choose a password." })
-  .min(10, "Use at least 10 characters.")
-  .max(72, "Use at most 72 characters."); // bcrypt reads only the first 72 bytes
+const newPasswordField = z.string({ error: "Choose a password." }).min(10, "Use at least 10 characters.").max(72, "Use at most 72 characters."); // bcrypt reads only the first 72 bytes
 
 /** The signed-in person's own password, asked again before a refund or a role change. */
 export const currentPasswordField = z

@@ -5,7 +5,12 @@ import { isIsoDay, todayUtc as today } from "~/content/dates";
 // The bid form's schema, shared by the action and the Conform form. A draft may leave prices
 // and terms open; a submitted offer prices every line and states lead time and validity.
 
-const optionalText = (max: number) => z.string().trim().max(max, `Keep it under ${max + 1} characters.`).optional();
+const optionalText = (max: number) =>
+  z
+    .string()
+    .trim()
+    .max(max, `Keep it under ${max + 1} characters.`)
+    .optional();
 
 const lineSchema = z.object({
   key: z.string().min(1).max(60),
@@ -20,7 +25,12 @@ export const bidSchema = z
   .object({
     intent: z.enum(BID_INTENTS),
     lines: z.array(lineSchema).min(1, "The bid has no lines.").max(200),
-    leadTimeWeeks: z.number({ error: "Enter the lead time in whole weeks." }).int("Enter whole weeks.").min(1, "At least 1 week.").max(156, "At most 156 weeks.").optional(),
+    leadTimeWeeks: z
+      .number({ error: "Enter the lead time in whole weeks." })
+      .int("Enter whole weeks.")
+      .min(1, "At least 1 week.")
+      .max(156, "At most 156 weeks.")
+      .optional(),
     validUntil: z.string().refine(isIsoDay, "Enter a real date, e.g. 2026-09-30.").optional(),
     terms: optionalText(4000),
     notes: optionalText(4000),
@@ -31,7 +41,8 @@ export const bidSchema = z
       if (line.unitPrice) {
         const cents = parseMoney(line.unitPrice);
         if (cents === null) ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: moneyProblem(line.unitPrice)! });
-        else if (cents > MAX_UNIT_PRICE_CENTS) ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: "That is more than a billion; check the amount." });
+        else if (cents > MAX_UNIT_PRICE_CENTS)
+          ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: "That is more than a billion; check the amount." });
       } else if (submitting) {
         ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: "Price every line before you submit (0 if it is included elsewhere)." });
       }

@@ -56,10 +56,7 @@ export const undoSchema = z.object({
 export const targetSchema = z.object({
   intent: z.literal("target"),
   milestone: anyMilestone,
-  targetDate: z
-    .string({ error: "Enter the new target date." })
-    .trim()
-    .refine(isIsoDay, "Enter a date like 2026-09-30."),
+  targetDate: z.string({ error: "Enter the new target date." }).trim().refine(isIsoDay, "Enter a date like 2026-09-30."),
   reason: optionalText(2000),
 });
 

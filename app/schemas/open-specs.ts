@@ -24,8 +24,7 @@ export type OpenSpecParam = (typeof OPEN_SPEC_PARAMS)[number];
 
 const blankToUndefined = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
 
-const text = (max: number, what: string) =>
-  z.preprocess(blankToUndefined, z.string().trim().max(max, `${what} can be at most ${max} characters.`).optional());
+const text = (max: number, what: string) => z.preprocess(blankToUndefined, z.string().trim().max(max, `${what} can be at most ${max} characters.`).optional());
 
 const bound = (what: string, example: string) =>
   z.preprocess(

@@ -22,7 +22,14 @@ const tooLong = (max: number) => `Keep it under ${max + 1} characters.`;
 const text = (max: number, message: string) => z.string({ error: message }).trim().min(1, message).max(max, tooLong(max));
 const optionalText = (max: number) => z.string().trim().max(max, tooLong(max)).optional();
 
-export const SUPPLY_VOLTAGES = ["230 V single-phase", "400 V three-phase", "415 V three-phase", "480 V three-phase", "575 V three-phase", "690 V three-phase"] as const;
+export const SUPPLY_VOLTAGES = [
+  "230 V single-phase",
+  "400 V three-phase",
+  "415 V three-phase",
+  "480 V three-phase",
+  "575 V three-phase",
+  "690 V three-phase",
+] as const;
 export const FLUIDS = ["ISO VG 32", "ISO VG 46", "ISO VG 68"] as const;
 
 /** What a fresh step shows before the buyer answers: the usual choice, never a guess about the machine. */
@@ -48,7 +55,11 @@ const OWN_FIELDS = {
     fluid: z.enum(FLUIDS, { error: "Choose a fluid grade (ISO VG 46 if unsure)." }),
   },
   quotation: {
-    unitsWanted: z.coerce.number({ error: "Enter how many units you want quoted." }).int("Enter a whole number.").min(1, "At least 1.").max(1000, "At most 1000."),
+    unitsWanted: z.coerce
+      .number({ error: "Enter how many units you want quoted." })
+      .int("Enter a whole number.")
+      .min(1, "At least 1.")
+      .max(1000, "At most 1000."),
     dateNeeded: isoDate("Enter the date you need the units by."),
     bidDeadline: isoDate("Enter the last day shops can bid."),
     deliveryRegion: text(TEXT_MAX.deliveryRegion, "Say where the units are delivered, e.g. “UK — West Midlands”."),
@@ -64,7 +75,8 @@ function checkDates(v: Record<string, unknown>, ctx: z.RefinementCtx) {
   const deadline = typeof v.bidDeadline === "string" ? v.bidDeadline : null;
   const needed = typeof v.dateNeeded === "string" ? v.dateNeeded : null;
   if (deadline && deadline <= today()) ctx.addIssue({ code: "custom", path: ["bidDeadline"], message: "The bid deadline must be after today." });
-  if (deadline && needed && needed <= deadline) ctx.addIssue({ code: "custom", path: ["dateNeeded"], message: "The date needed must be after the bid deadline." });
+  if (deadline && needed && needed <= deadline)
+    ctx.addIssue({ code: "custom", path: ["dateNeeded"], message: "The date needed must be after the bid deadline." });
   else if (needed && needed <= today()) ctx.addIssue({ code: "custom", path: ["dateNeeded"], message: "The date needed must be after today." });
 }
 
@@ -77,24 +89,23 @@ export function stepSchema(step: FormStepId, system: UnitSystem, otherAnswers: F
   const own = z.looseObject(OWN_FIELDS[step]);
   return own.superRefine(
     (values, ctx) => {
-    if (step === "quotation") checkDates(values, ctx);
-    if (!keys.length) return;
-    const typed: FormValues = { ...otherAnswers };
-    for (const key of keys) typed[key] = typeof values[key] === "string" ? (values[key] as string) : undefined;
-    try {
-      parseRequirements(toRequirementsInput(typed, system));
-    } catch (error) {
-      if (!(error instanceof RequirementsError)) throw error;
-      for (const key of keys) {
-        for (const message of error.fieldErrors[key] ?? []) ctx.addIssue({ code: "custom", path: [key], message });
+      if (step === "quotation") checkDates(values, ctx);
+      if (!keys.length) return;
+      const typed: FormValues = { ...otherAnswers };
+      for (const key of keys) typed[key] = typeof values[key] === "string" ? (values[key] as string) : undefined;
+      try {
+        parseRequirements(toRequirementsInput(typed, system));
+      } catch (error) {
+        if (!(error instanceof RequirementsError)) throw error;
+        for (const key of keys) {
+          for (const message of error.fieldErrors[key] ?? []) ctx.addIssue({ code: "custom", path: [key], message });
+        }
       }
-    }
     },
     // Run even when the step's own fields failed, so every problem shows at once.
     { when: (payload) => typeof payload.value === "object" && payload.value !== null },
   );
 }
-
 
 /** The names a step's form posts: its own fields and the engine fields it asks. */
 export function stepFieldNames(step: FormStepId): string[] {

@@ -60,10 +60,7 @@ export type NewAccount = Omit<SignUpInput, "password"> & { passwordHash: string 
 
 /** The organisation and its first user, inside the caller's transaction. */
 export async function createAccount(input: NewAccount, transaction: Transaction): Promise<User> {
-  const organisation = await Organisation.create(
-    { name: input.organisationName, kind: input.kind, region: null, accountManagerId: null },
-    { transaction },
-  );
+  const organisation = await Organisation.create({ name: input.organisationName, kind: input.kind, region: null, accountManagerId: null }, { transaction });
   return User.create(
     { organisationId: organisation.id, email: input.email, name: input.name, passwordHash: input.passwordHash, role: input.kind, lastSignInAt: new Date() },
     { transaction },
@@ -92,10 +89,7 @@ export async function requestPasswordReset(email: string): Promise<void> {
   if (!user) return;
   const { token, tokenHash } = newToken();
   await sequelize.transaction(async (transaction) => {
-    await PasswordReset.create(
-      { userId: user.id, tokenHash, expiresAt: new Date(Date.now() + RESET_LINK_HOURS * 3_600_000), usedAt: null },
-      { transaction },
-    );
+    await PasswordReset.create({ userId: user.id, tokenHash, expiresAt: new Date(Date.now() + RESET_LINK_HOURS * 3_600_000), usedAt: null }, { transaction });
     await enqueueMail({ to: user.email, ...passwordResetMail({ name: user.name, token, hours: RESET_LINK_HOURS }), priority: "account" }, transaction);
   });
 }

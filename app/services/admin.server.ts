@@ -37,7 +37,10 @@ export async function listUsers(admin: User, query: ListQuery) {
   const { rows, count } = await User.findAndCountAll({
     where,
     include: [{ model: Organisation, as: "organisation", required: true }],
-    order: [["createdAt", "DESC"], ["id", "ASC"]],
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "ASC"],
+    ],
     offset,
     limit,
   });
@@ -57,7 +60,10 @@ export async function listOrganisations(admin: User, query: ListQuery & { kind?:
   const { rows, count } = await Organisation.findAndCountAll({
     where,
     include: [{ model: User, as: "accountManager", required: false }],
-    order: [["name", "ASC"], ["id", "ASC"]],
+    order: [
+      ["name", "ASC"],
+      ["id", "ASC"],
+    ],
     offset,
     limit,
   });

@@ -79,7 +79,12 @@ export function cleanFileName(raw: string): string {
   if (chars.length === 0) return "file";
   if (chars.length <= MAX_NAME_LENGTH) return cleaned;
   const extension = Array.from(extensionOf(cleaned)).slice(0, 10);
-  return chars.slice(0, MAX_NAME_LENGTH - extension.length).join("").trimEnd() + extension.join("");
+  return (
+    chars
+      .slice(0, MAX_NAME_LENGTH - extension.length)
+      .join("")
+      .trimEnd() + extension.join("")
+  );
 }
 
 /** `attachment` with an ASCII fallback name and the exact name as RFC 6266 filename*. */
@@ -107,7 +112,15 @@ function toView(row: SpecAttachment): AttachmentView {
 
 // Files of one upload can share a timestamp; their names order them then.
 const rowsOf = (specId: string, transaction?: Transaction) =>
-  SpecAttachment.findAll({ where: { specId }, order: [["createdAt", "ASC"], ["fileName", "ASC"], ["id", "ASC"]], transaction });
+  SpecAttachment.findAll({
+    where: { specId },
+    order: [
+      ["createdAt", "ASC"],
+      ["fileName", "ASC"],
+      ["id", "ASC"],
+    ],
+    transaction,
+  });
 
 /** The files of a spec the user may read (its owner; shops once published). */
 export async function listAttachments(user: User, specId: string | undefined): Promise<AttachmentView[]> {
@@ -122,7 +135,13 @@ interface StagedFile {
   sizeBytes: number;
 }
 
-async function outcome(spec: Spec, status: AttachmentFormResult["status"], errors: FileProblem[], summary: string, transaction?: Transaction): Promise<AttachmentFormResult> {
+async function outcome(
+  spec: Spec,
+  status: AttachmentFormResult["status"],
+  errors: FileProblem[],
+  summary: string,
+  transaction?: Transaction,
+): Promise<AttachmentFormResult> {
   return { status, attachments: (await rowsOf(spec.id, transaction)).map(toView), errors, summary };
 }
 
@@ -198,8 +217,7 @@ async function receiveForm(request: Request, freeSlots: number) {
 }
 
 /** Locks the spec row so uploads, removals and publishing of one spec happen one at a time. */
-const lockedSpec = (specId: string, transaction: Transaction) =>
-  Spec.findByPk(specId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+const lockedSpec = (specId: string, transaction: Transaction) => Spec.findByPk(specId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
 
 async function attach(user: User, spec: Spec, staged: StagedFile[]): Promise<AttachmentFormResult> {
   const { maxFilesPerSpec } = ATTACHMENT_LIMITS;
@@ -212,9 +230,17 @@ async function attach(user: User, spec: Spec, staged: StagedFile[]): Promise<Att
       // Another upload may have finished while this one streamed in.
       if (held + staged.length > maxFilesPerSpec) {
         const over = staged.slice(Math.max(maxFilesPerSpec - held, 0));
-        return outcome(spec, 400, over.map((f) => ({ fileName: f.fileName, message: `Not attached: a spec holds at most ${maxFilesPerSpec} files.` })), "Nothing was attached.");
+        return outcome(
+          spec,
+          400,
+          over.map((f) => ({ fileName: f.fileName, message: `Not attached: a spec holds at most ${maxFilesPerSpec} files.` })),
+          "Nothing was attached.",
+        );
       }
-      await SpecAttachment.bulkCreate(staged.map((f) => ({ ...f, specId: spec.id, uploadedById: user.id })), { transaction });
+      await SpecAttachment.bulkCreate(
+        staged.map((f) => ({ ...f, specId: spec.id, uploadedById: user.id })),
+        { transaction },
+      );
       const names = staged.map((f) => f.fileName);
       return outcome(spec, 200, [], names.length === 1 ? `Attached ${names[0]}.` : `Attached ${names.length} files: ${names.join(", ")}.`, transaction);
     });

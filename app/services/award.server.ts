@@ -34,7 +34,14 @@ export async function awardBid(user: User, specId: string | undefined, { bidId }
       const people = await User.findAll({ where: { organisationId: offer.organisationId, active: true }, transaction });
       for (const person of people) {
         const mail = won
-          ? bidChosenMail({ name: person.name, specTitle: spec.title, jobId: job.id, totalCents: bid.totalCents, retainerCents: job.retainerCents, currency: job.currency })
+          ? bidChosenMail({
+              name: person.name,
+              specTitle: spec.title,
+              jobId: job.id,
+              totalCents: bid.totalCents,
+              retainerCents: job.retainerCents,
+              currency: job.currency,
+            })
           : bidNotChosenMail({ name: person.name, specId: spec.id, specTitle: spec.title });
         await enqueueMail({ to: person.email, ...mail }, transaction);
       }
@@ -42,7 +49,14 @@ export async function awardBid(user: User, specId: string | undefined, { bidId }
     const buyer = await Organisation.findByPk(spec.organisationId, { transaction, rejectOnEmpty: true });
     const manager = buyer.accountManagerId ? await User.findByPk(buyer.accountManagerId, { transaction }) : null;
     if (manager?.active) {
-      const mail = newJobMail({ name: manager.name, buyerName: buyer.name, specTitle: spec.title, jobId: job.id, totalCents: bid.totalCents, currency: bid.currency });
+      const mail = newJobMail({
+        name: manager.name,
+        buyerName: buyer.name,
+        specTitle: spec.title,
+        jobId: job.id,
+        totalCents: bid.totalCents,
+        currency: bid.currency,
+      });
       await enqueueMail({ to: manager.email, ...mail }, transaction);
     }
     return job;

@@ -75,7 +75,14 @@ export function compareBids(bom: BomLine[], currentRevision: number, bids: Compa
         const l = lines.get(line.key);
         if (!l) return null;
         const total = lineTotalCents({ quantity: l.quantity, unitPriceCents: l.unitPriceCents! });
-        return { unitPriceCents: l.unitPriceCents!, lineTotalCents: total, alternative: l.alternative, alternativeDescription: l.alternativeDescription, included: total === 0, lowest: false };
+        return {
+          unitPriceCents: l.unitPriceCents!,
+          lineTotalCents: total,
+          alternative: l.alternative,
+          alternativeDescription: l.alternativeDescription,
+          included: total === 0,
+          lowest: false,
+        };
       });
       // Only real prices compete: an included line costs its price somewhere else in the offer.
       const charged = cells.filter((c): c is ComparisonCell => c !== null && !c.included);

@@ -51,7 +51,8 @@ async function lockOpenSpec(specId: string, transaction: Transaction) {
   );
   if (!row) notFound("No such spec.");
   if (row.status !== "open") throw new FieldErrors({ "": ["This spec no longer takes bids."] });
-  if (!takesBids({ status: row.status, bidDeadline: row.deadline })) throw new FieldErrors({ "": ["The bid deadline has passed; nothing can be changed any more."] });
+  if (!takesBids({ status: row.status, bidDeadline: row.deadline }))
+    throw new FieldErrors({ "": ["The bid deadline has passed; nothing can be changed any more."] });
   return row as { status: string; deadline: Date };
 }
 
@@ -59,7 +60,8 @@ async function lockOpenSpec(specId: string, transaction: Transaction) {
 function priceLines(bom: BomLine[], input: BidInput["lines"]): BidLine[] {
   const byKey = new Map(input.map((l) => [l.key, l]));
   const missing = bom.filter((l) => !byKey.has(l.key));
-  if (missing.length) throw new FieldErrors({ "": ["The bill of materials has changed since you opened the form. Reload the page to price the current bill."] });
+  if (missing.length)
+    throw new FieldErrors({ "": ["The bill of materials has changed since you opened the form. Reload the page to price the current bill."] });
   return bom.map((line) => {
     const typed = byKey.get(line.key)!;
     return {
@@ -86,18 +88,39 @@ export async function saveBid(user: User, specId: string | undefined, input: Bid
     const locked = await lockOpenSpec(spec.id, transaction);
     const fresh = await Spec.findByPk(spec.id, { transaction, rejectOnEmpty: true });
     if (input.validUntil && input.validUntil < isoDay(locked.deadline)) {
-      throw new FieldErrors({ validUntil: [`Keep the offer valid at least until the bid deadline (${formatDay(isoDay(locked.deadline))}), so the buyer can award it.`] });
+      throw new FieldErrors({
+        validUntil: [`Keep the offer valid at least until the bid deadline (${formatDay(isoDay(locked.deadline))}), so the buyer can award it.`],
+      });
     }
     const lines = priceLines(await bomOf(fresh, fresh.currentRevision, transaction), input.lines);
     const units = fresh.unitsWanted ?? 1;
-    const totals = bidTotals(lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })), units);
+    const totals = bidTotals(
+      lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })),
+      units,
+    );
 
     // One row per shop and spec: created on the first save, whoever of the shop's people races.
     await Bid.bulkCreate(
-      [{ specId: spec.id, organisationId: user.organisationId, createdById: user.id, specRevision: fresh.currentRevision, currency: fresh.currency, leadTimeWeeks: null, validUntil: null, submittedAt: null }],
+      [
+        {
+          specId: spec.id,
+          organisationId: user.organisationId,
+          createdById: user.id,
+          specRevision: fresh.currentRevision,
+          currency: fresh.currency,
+          leadTimeWeeks: null,
+          validUntil: null,
+          submittedAt: null,
+        },
+      ],
       { ignoreDuplicates: true, transaction },
     );
-    const row = await Bid.findOne({ where: { specId: spec.id, organisationId: user.organisationId }, lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
+    const row = await Bid.findOne({
+      where: { specId: spec.id, organisationId: user.organisationId },
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+      rejectOnEmpty: true,
+    });
     if (!submitting && row.status === "submitted") {
       throw new FieldErrors({ "": ["This bid is already offered. Submit the changes as a revised offer, or take it back first."] });
     }
@@ -119,7 +142,10 @@ export async function saveBid(user: User, specId: string | undefined, input: Bid
       { transaction },
     );
     if (submitting) {
-      await BidVersion.create({ bidId: row.id, version: row.version, event: "submitted", specRevision: row.specRevision, offer: offerOf(row), createdById: user.id }, { transaction });
+      await BidVersion.create(
+        { bidId: row.id, version: row.version, event: "submitted", specRevision: row.specRevision, offer: offerOf(row), createdById: user.id },
+        { transaction },
+      );
       const author = await User.findByPk(fresh.createdById, { transaction });
       const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
       if (author?.active) {
@@ -140,11 +166,17 @@ export async function withdrawBid(user: User, specId: string | undefined) {
     const bid = await Bid.findOne({ where: { specId: spec.id, organisationId: user.organisationId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!bid || bid.status !== "submitted") throw new FieldErrors({ "": ["Only an offered bid can be taken back."] });
     await bid.update({ status: "withdrawn" }, { transaction });
-    await BidVersion.create({ bidId: bid.id, version: bid.version, event: "withdrawn", specRevision: bid.specRevision, offer: offerOf(bid), createdById: user.id }, { transaction });
+    await BidVersion.create(
+      { bidId: bid.id, version: bid.version, event: "withdrawn", specRevision: bid.specRevision, offer: offerOf(bid), createdById: user.id },
+      { transaction },
+    );
     const author = await User.findByPk(spec.createdById, { transaction });
     const shop = await Organisation.findByPk(user.organisationId, { transaction, rejectOnEmpty: true });
     if (author?.active) {
-      await enqueueMail({ to: author.email, ...bidWithdrawnMail({ name: author.name, shopName: shop.name, specId: spec.id, specTitle: spec.title }) }, transaction);
+      await enqueueMail(
+        { to: author.email, ...bidWithdrawnMail({ name: author.name, shopName: shop.name, specId: spec.id, specTitle: spec.title }) },
+        transaction,
+      );
     }
   });
 }
@@ -154,7 +186,10 @@ export async function historyOf(bid: Bid) {
   return BidVersion.findAll({
     where: { bidId: bid.id },
     include: [{ model: User, as: "createdBy", attributes: ["name"] }],
-    order: [["createdAt", "DESC"], ["version", "DESC"]],
+    order: [
+      ["createdAt", "DESC"],
+      ["version", "DESC"],
+    ],
   });
 }
 
@@ -166,7 +201,10 @@ async function offeredBids(user: User, spec: Spec) {
     // bidsWhere leaves the buyer the offered and decided bids only.
     where: { [Op.and]: [bidsWhere(viewer), { specId: spec.id }] },
     include: [{ model: Organisation, as: "organisation", attributes: ["name", "region"] }],
-    order: [["totalCents", "ASC"], ["id", "ASC"]],
+    order: [
+      ["totalCents", "ASC"],
+      ["id", "ASC"],
+    ],
   });
 }
 

@@ -125,7 +125,11 @@ export async function changeTargetDate(viewer: User, jobId: string | undefined, 
     const plan = milestones.filter((x) => x.key !== PAYMENT_MILESTONE && x.targetDate && !x.reachedAt);
     const before = plan.filter((x) => x.position < m.position).at(-1);
     if (before && input.targetDate < before.targetDate!) {
-      throw new FieldErrors({ targetDate: [`${MILESTONE_LABELS[m.key]} can't be planned before ${MILESTONE_LABELS[before.key]} (${formatDay(before.targetDate!)}). Move that one first.`] });
+      throw new FieldErrors({
+        targetDate: [
+          `${MILESTONE_LABELS[m.key]} can't be planned before ${MILESTONE_LABELS[before.key]} (${formatDay(before.targetDate!)}). Move that one first.`,
+        ],
+      });
     }
     const from = m.targetDate;
     m.targetDate = input.targetDate;
@@ -188,7 +192,10 @@ async function tellParties(transaction: Transaction, job: Job, milestones: JobMi
  * reached by the buyer who paid, the job notes when, and the history says which payment.
  * Idempotent: a job already paid keeps its first date.
  */
-export async function recordRetainerReceived(transaction: Transaction, args: { jobId: string; paidById: string; paidAt: Date; paymentId: string; amountCents: number; currency: string }) {
+export async function recordRetainerReceived(
+  transaction: Transaction,
+  args: { jobId: string; paidById: string; paidAt: Date; paymentId: string; amountCents: number; currency: string },
+) {
   const job = await Job.findByPk(args.jobId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
   if (job.retainerPaidAt) return false;
   const milestones = await JobMilestone.findAll({ where: { jobId: job.id }, order: [["position", "ASC"]], transaction });
@@ -196,7 +203,13 @@ export async function recordRetainerReceived(transaction: Transaction, args: { j
   if (!milestone.reachedAt) await milestone.update({ reachedAt: args.paidAt, reachedById: args.paidById }, { transaction });
   await job.update({ retainerPaidAt: args.paidAt, stage: stageOf(milestones) }, { transaction });
   await JobEvent.create(
-    { jobId: job.id, userId: args.paidById, kind: "retainer_paid", milestone: PAYMENT_MILESTONE, detail: { paymentId: args.paymentId, amountCents: args.amountCents, currency: args.currency } },
+    {
+      jobId: job.id,
+      userId: args.paidById,
+      kind: "retainer_paid",
+      milestone: PAYMENT_MILESTONE,
+      detail: { paymentId: args.paymentId, amountCents: args.amountCents, currency: args.currency },
+    },
     { transaction },
   );
   return true;
@@ -206,9 +219,20 @@ export async function recordRetainerReceived(transaction: Transaction, args: { j
 async function tellPartiesUndone(transaction: Transaction, job: Job, milestone: JobMilestone, reason: string) {
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
   const shop = await Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true });
-  const people = await User.findAll({ where: { organisationId: [job.buyerOrganisationId, job.shopOrganisationId], active: true }, order: [["email", "ASC"]], transaction });
+  const people = await User.findAll({
+    where: { organisationId: [job.buyerOrganisationId, job.shopOrganisationId], active: true },
+    order: [["email", "ASC"]],
+    transaction,
+  });
   for (const person of people) {
-    const mail = milestoneTakenBackMail({ name: person.name, shopName: shop.name, specTitle: spec.title, jobId: job.id, milestone: MILESTONE_LABELS[milestone.key], reason });
+    const mail = milestoneTakenBackMail({
+      name: person.name,
+      shopName: shop.name,
+      specTitle: spec.title,
+      jobId: job.id,
+      milestone: MILESTONE_LABELS[milestone.key],
+      reason,
+    });
     await enqueueMail({ to: person.email, ...mail }, transaction);
   }
 }

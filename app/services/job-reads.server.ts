@@ -117,7 +117,11 @@ export async function listJobs(viewer: User, query: JobListQuery, options: { lim
   const { rows, count } = await Job.findAndCountAll({
     where: { [Op.and]: [scope, ...filtersOf(query, today, true)] },
     include: PARTIES,
-    order: [[sequelize.literal(overdueSql(today)), "DESC"], ["awardedAt", "DESC"], ["id", "ASC"]],
+    order: [
+      [sequelize.literal(overdueSql(today)), "DESC"],
+      ["awardedAt", "DESC"],
+      ["id", "ASC"],
+    ],
     offset: (page - 1) * limit,
     limit,
     distinct: true,

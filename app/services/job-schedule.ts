@@ -26,14 +26,19 @@ export function stageOf(milestones: { key: MilestoneKey; position: number; reach
 }
 
 /** Whether a milestone is past its target day and not reached (days compared as YYYY-MM-DD). */
-export const isOverdue = (m: { reachedAt: Date | string | null; targetDate: string | null }, today: string) => !m.reachedAt && m.targetDate !== null && m.targetDate < today;
+export const isOverdue = (m: { reachedAt: Date | string | null; targetDate: string | null }, today: string) =>
+  !m.reachedAt && m.targetDate !== null && m.targetDate < today;
 
 /**
  * The later open milestones (in order, each with a target) a moved target carries along: each
  * one the new day would overtake moves by the same number of days as the moved one, and never
  * before the one ahead of it. Those already after the new day stay, and so do all after them.
  */
-export function carriedTargets(later: { key: MilestoneKey; targetDate: string }[], from: string, to: string): { key: MilestoneKey; from: string; to: string }[] {
+export function carriedTargets(
+  later: { key: MilestoneKey; targetDate: string }[],
+  from: string,
+  to: string,
+): { key: MilestoneKey; from: string; to: string }[] {
   const slip = daysBetween(from, to);
   const moves: { key: MilestoneKey; from: string; to: string }[] = [];
   let floor = to;

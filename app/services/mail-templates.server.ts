@@ -99,7 +99,15 @@ export function questionAskedMail(d: { name: string; shopName: string; specId: s
   };
 }
 
-export function questionAnsweredMail(d: { name: string; isAsker: boolean; edited: boolean; specId: string; specTitle: string; question: string; answer: string }): MailContent {
+export function questionAnsweredMail(d: {
+  name: string;
+  isAsker: boolean;
+  edited: boolean;
+  specId: string;
+  specTitle: string;
+  question: string;
+  answer: string;
+}): MailContent {
   const what = d.isAsker ? "your question" : "a question from a shop";
   return {
     subject: `${d.edited ? "Answer updated" : "Question answered"}: ${d.specTitle}`,
@@ -171,7 +179,14 @@ export function jobProgressMail(d: {
   };
 }
 
-export function milestoneTakenBackMail(d: { name: string; shopName: string; specTitle: string; jobId: string; milestone: string; reason: string }): MailContent {
+export function milestoneTakenBackMail(d: {
+  name: string;
+  shopName: string;
+  specTitle: string;
+  jobId: string;
+  milestone: string;
+  reason: string;
+}): MailContent {
   return {
     subject: `Job progress on "${d.specTitle}": ${d.milestone} taken back`,
     text: `Hello ${d.name},\n\n${d.shopName} has taken back "${d.milestone}" on "${d.specTitle}": it is no longer marked as reached.\nTheir reason: ${d.reason}\n\nThe job's timeline and history: ${jobLink(d.jobId)}\n`,

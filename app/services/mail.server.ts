@@ -69,7 +69,10 @@ export async function deliverDueMail(limit = 20): Promise<number> {
     const delivered = await sequelize.transaction(async (transaction) => {
       const mail = await OutboxMail.findOne({
         where: { status: "pending", nextAttemptAt: { [Op.lte]: new Date() } },
-        order: [["priority", "ASC"], ["nextAttemptAt", "ASC"]],
+        order: [
+          ["priority", "ASC"],
+          ["nextAttemptAt", "ASC"],
+        ],
         lock: transaction.LOCK.UPDATE,
         skipLocked: true,
         transaction,

@@ -12,11 +12,26 @@ import { specsWhere, viewerOf } from "~/auth/access-policy.server";
 
 // Every order ends on the id, so rows with equal keys keep one order from page to page.
 const ORDERS: Record<OpenSpecSort, Order> = {
-  deadline: [["bidDeadline", "ASC"], ["id", "ASC"]],
-  newest: [["publishedAt", "DESC"], ["id", "ASC"]],
-  title: [["title", "ASC"], ["id", "ASC"]],
-  pressure: [["reliefSettingBar", "ASC NULLS LAST"], ["id", "ASC"]],
-  flow: [["pumpFlowLpm", "ASC NULLS LAST"], ["id", "ASC"]],
+  deadline: [
+    ["bidDeadline", "ASC"],
+    ["id", "ASC"],
+  ],
+  newest: [
+    ["publishedAt", "DESC"],
+    ["id", "ASC"],
+  ],
+  title: [
+    ["title", "ASC"],
+    ["id", "ASC"],
+  ],
+  pressure: [
+    ["reliefSettingBar", "ASC NULLS LAST"],
+    ["id", "ASC"],
+  ],
+  flow: [
+    ["pumpFlowLpm", "ASC NULLS LAST"],
+    ["id", "ASC"],
+  ],
 };
 
 // ILIKE wildcards typed by a person are matched literally.
@@ -83,9 +98,7 @@ export async function listOpenSpecsForShop(user: User, query: OpenSpecsQuery, no
   const pageCount = Math.max(1, Math.ceil(total / OPEN_SPECS_PAGE_SIZE));
   const page = Math.min(query.page ?? 1, pageCount);
   // One bid per organisation and spec (unique index), read beside each row.
-  const ownBid = literal(
-    `(SELECT b.status FROM bids AS b WHERE b.spec_id = "Spec"."id" AND b.organisation_id = ${sequelize.escape(user.organisationId)})`,
-  );
+  const ownBid = literal(`(SELECT b.status FROM bids AS b WHERE b.spec_id = "Spec"."id" AND b.organisation_id = ${sequelize.escape(user.organisationId)})`);
   const rows = await Spec.findAll({
     where,
     attributes: [

@@ -17,9 +17,7 @@ export const MAIL_VIEWS = ["failed", "waiting"] as const;
 export type MailView = (typeof MAIL_VIEWS)[number];
 
 function whereOf(view: MailView, now: Date): WhereOptions<OutboxMail> {
-  return view === "failed"
-    ? { status: "failed" }
-    : { status: "pending", createdAt: { [Op.lt]: new Date(now.getTime() - WAITING_LONG_MINUTES * 60_000) } };
+  return view === "failed" ? { status: "failed" } : { status: "pending", createdAt: { [Op.lt]: new Date(now.getTime() - WAITING_LONG_MINUTES * 60_000) } };
 }
 
 export interface StuckMail {
@@ -44,7 +42,10 @@ export async function mailNeedingAttention(admin: User, view: MailView, requeste
   const rows = await OutboxMail.findAll({
     where: whereOf(view, now),
     attributes: ["id", "to", "subject", "status", "attempts", "lastError", "createdAt", "updatedAt", "nextAttemptAt"],
-    order: [["updatedAt", "DESC"], ["id", "ASC"]],
+    order: [
+      ["updatedAt", "DESC"],
+      ["id", "ASC"],
+    ],
     limit: MAIL_PAGE_SIZE,
     offset: (page - 1) * MAIL_PAGE_SIZE,
   });

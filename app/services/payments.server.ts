@@ -52,7 +52,19 @@ async function openPaymentOf(job: Job, user: User): Promise<Payment> {
     return (
       open ??
       Payment.create(
-        { jobId: job.id, buyerOrganisationId: job.buyerOrganisationId, createdById: user.id, amountCents: job.retainerCents, currency: job.currency, checkoutSessionId: null, checkoutUrl: null, paymentIntentId: null, customerId: null, failureMessage: null, paidAt: null },
+        {
+          jobId: job.id,
+          buyerOrganisationId: job.buyerOrganisationId,
+          createdById: user.id,
+          amountCents: job.retainerCents,
+          currency: job.currency,
+          checkoutSessionId: null,
+          checkoutUrl: null,
+          paymentIntentId: null,
+          customerId: null,
+          failureMessage: null,
+          paidAt: null,
+        },
         { transaction },
       )
     );
@@ -61,7 +73,12 @@ async function openPaymentOf(job: Job, user: User): Promise<Payment> {
 
 /** Whether an open session may be handed out again: same money, and time left to pay. */
 function stillUsable(session: Stripe.Checkout.Session, job: Job) {
-  return Boolean(session.url) && session.amount_total === job.retainerCents && session.currency === job.currency.toLowerCase() && session.expires_at * 1000 > Date.now() + MIN_SESSION_LEFT_MS;
+  return (
+    Boolean(session.url) &&
+    session.amount_total === job.retainerCents &&
+    session.currency === job.currency.toLowerCase() &&
+    session.expires_at * 1000 > Date.now() + MIN_SESSION_LEFT_MS
+  );
 }
 
 async function newCheckout(payment: Payment, job: Job, user: User): Promise<string> {
@@ -120,7 +137,13 @@ export async function startRetainerPayment(user: User, jobId: string | undefined
       if (state.kind === "open") return state.session.url!;
       if (state.kind === "completed") {
         const paid = (await Job.findByPk(job.id, { rejectOnEmpty: true })).retainerPaidAt;
-        throw new FieldErrors({ "": [paid ? "Your card payment has gone through: the retainer is paid." : "Your card payment went through; we are waiting for the card service to confirm it."] });
+        throw new FieldErrors({
+          "": [
+            paid
+              ? "Your card payment has gone through: the retainer is paid."
+              : "Your card payment went through; we are waiting for the card service to confirm it.",
+          ],
+        });
       }
       // Closed: the next round opens a fresh attempt.
     }
@@ -154,7 +177,10 @@ export async function retainerPanelOf(user: User, jobId: string | undefined) {
     ? await Payment.findAll({
         where: { jobId: job.id },
         include: [{ model: Refund, as: "refunds", include: [{ model: User, as: "requestedBy", attributes: ["name"] }] }],
-        order: [["createdAt", "DESC"], [{ model: Refund, as: "refunds" }, "createdAt", "ASC"]],
+        order: [
+          ["createdAt", "DESC"],
+          [{ model: Refund, as: "refunds" }, "createdAt", "ASC"],
+        ],
       })
     : [];
   return {
@@ -190,20 +216,40 @@ const PAYMENTS_PAGE_SIZE = 50;
 
 export async function listPayments(viewer: User, query: { status?: PaymentStatus; flagged?: boolean; page?: number }) {
   const where: WhereOptions<Payment> = {
-    [Op.and]: [paymentsWhere(await viewerOf(viewer)), ...(query.status ? [{ status: query.status }] : []), ...(query.flagged ? [{ flag: { [Op.ne]: null } }] : [])],
+    [Op.and]: [
+      paymentsWhere(await viewerOf(viewer)),
+      ...(query.status ? [{ status: query.status }] : []),
+      ...(query.flagged ? [{ flag: { [Op.ne]: null } }] : []),
+    ],
   };
   const page = Math.max(1, query.page ?? 1);
   const { rows, count } = await Payment.findAndCountAll({
     where,
     include: [
-      { model: Job, as: "job", attributes: ["id", "specId", "shopOrganisationId"], include: [{ model: Spec, as: "spec", attributes: ["id", "title"] }, { model: Organisation, as: "shopOrganisation", attributes: ["name"] }] },
+      {
+        model: Job,
+        as: "job",
+        attributes: ["id", "specId", "shopOrganisationId"],
+        include: [
+          { model: Spec, as: "spec", attributes: ["id", "title"] },
+          { model: Organisation, as: "shopOrganisation", attributes: ["name"] },
+        ],
+      },
       { model: Organisation, as: "buyerOrganisation", attributes: ["name"] },
     ],
-    order: [["createdAt", "DESC"], ["id", "ASC"]],
+    order: [
+      ["createdAt", "DESC"],
+      ["id", "ASC"],
+    ],
     limit: PAYMENTS_PAGE_SIZE,
     offset: (page - 1) * PAYMENTS_PAGE_SIZE,
   });
-  return { payments: rows as (Payment & { job: Job & { spec: Spec; shopOrganisation: Organisation }; buyerOrganisation: Organisation })[], total: count, page, pageCount: Math.max(1, Math.ceil(count / PAYMENTS_PAGE_SIZE)) };
+  return {
+    payments: rows as (Payment & { job: Job & { spec: Spec; shopOrganisation: Organisation }; buyerOrganisation: Organisation })[],
+    total: count,
+    page,
+    pageCount: Math.max(1, Math.ceil(count / PAYMENTS_PAGE_SIZE)),
+  };
 }
 
 /** What can still be paid back: paid, minus refunds recorded or on their way. */
@@ -230,12 +276,20 @@ export async function requestRefund(user: User, paymentId: string | undefined, i
     if (left <= 0) throw new FieldErrors({ amount: ["Nothing is left to pay back."] });
     if (amountCents <= 0) throw new FieldErrors({ amount: ["Enter an amount above zero, or leave it empty to pay back everything left."] });
     if (amountCents > left) throw new FieldErrors({ amount: [`At most ${formatMoney(left, payment.currency)} can still be paid back.`] });
-    const refund = await Refund.create({ paymentId: payment.id, requestedById: user.id, amountCents, reason: input.reason, stripeRefundId: null, failureMessage: null, recordedAt: null }, { transaction });
+    const refund = await Refund.create(
+      { paymentId: payment.id, requestedById: user.id, amountCents, reason: input.reason, stripeRefundId: null, failureMessage: null, recordedAt: null },
+      { transaction },
+    );
     return { payment, refund };
   });
   try {
     const made = await stripe().refunds.create(
-      { payment_intent: payment.paymentIntentId!, amount: refund.amountCents, reason: "requested_by_customer", metadata: { refund_id: refund.id, payment_id: payment.id } },
+      {
+        payment_intent: payment.paymentIntentId!,
+        amount: refund.amountCents,
+        reason: "requested_by_customer",
+        metadata: { refund_id: refund.id, payment_id: payment.id },
+      },
       { idempotencyKey: `refund-${refund.id}` },
     );
     await refund.update({ stripeRefundId: made.id });

@@ -51,7 +51,6 @@ function closedNote(spec: Pick<Spec, "status" | "bidDeadline">, now = new Date()
   return "This spec is no longer open for bids, so it takes no new questions.";
 }
 
-
 /** The questions panel of a spec the user may read (a 404 otherwise). */
 export async function questionsFor(user: User, specId: string | undefined, now = new Date()): Promise<QuestionsPanel> {
   const viewer = await viewerOf(user);
@@ -60,7 +59,10 @@ export async function questionsFor(user: User, specId: string | undefined, now =
   const rows = await SpecQuestion.findAll({
     where: { [Op.and]: [questionsWhere(viewer), { specId: spec.id }] },
     include: isBuyer ? [{ model: Organisation, as: "organisation", attributes: ["name"] }] : [],
-    order: [["createdAt", "ASC"], ["id", "ASC"]],
+    order: [
+      ["createdAt", "ASC"],
+      ["id", "ASC"],
+    ],
   });
   const questions = rows.map((q): QuestionView => {
     // Only shops ask, so a question of the viewer's organisation is their shop's.
@@ -96,8 +98,7 @@ export async function waitingQuestionCounts(user: User, specIds: string[]): Prom
   return new Map(rows.map((r) => [r.specId, Number(r.count)]));
 }
 
-const lockSpec = (specId: string, transaction: Transaction) =>
-  Spec.findByPk(specId, { lock: transaction.LOCK.SHARE, transaction, rejectOnEmpty: true });
+const lockSpec = (specId: string, transaction: Transaction) => Spec.findByPk(specId, { lock: transaction.LOCK.SHARE, transaction, rejectOnEmpty: true });
 
 /**
  * A shop asks a question on a spec open for bids. The buyer organisation's active users are

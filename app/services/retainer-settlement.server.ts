@@ -49,13 +49,24 @@ export async function settleCompletedSession(transaction: Transaction, payment: 
   const intentId = idOf(session.payment_intent);
   const mismatch = moneyMismatch(payment, session.amount_total, session.currency) ?? (intentId ? null : "no payment intent");
   if (mismatch) {
-    await flagPayment(transaction, payment, `A completed checkout (${session.id}) said ${mismatch}; it was not applied. Check the payment at the card service.`);
+    await flagPayment(
+      transaction,
+      payment,
+      `A completed checkout (${session.id}) said ${mismatch}; it was not applied. Check the payment at the card service.`,
+    );
     return `completed session: ${mismatch}; not applied`;
   }
   const job = await Job.findByPk(payment.jobId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
   if (job.retainerPaidAt) return refundSecondCharge(transaction, payment, job, intentId!, paidAt);
   await payment.update({ status: "paid", paidAt, paymentIntentId: intentId, failureMessage: null }, { transaction });
-  await recordRetainerReceived(transaction, { jobId: payment.jobId, paidById: payment.createdById, paidAt, paymentId: payment.id, amountCents: payment.amountCents, currency: payment.currency });
+  await recordRetainerReceived(transaction, {
+    jobId: payment.jobId,
+    paidById: payment.createdById,
+    paidAt,
+    paymentId: payment.id,
+    amountCents: payment.amountCents,
+    currency: payment.currency,
+  });
   await sendReceipts(transaction, payment);
   return "paid";
 }
@@ -67,7 +78,15 @@ export async function settleCompletedSession(transaction: Transaction, payment: 
 async function refundSecondCharge(transaction: Transaction, payment: Payment, job: Job, intentId: string, paidAt: Date) {
   await payment.update({ status: "paid", paidAt, paymentIntentId: intentId, failureMessage: null, duplicate: true }, { transaction });
   const refund = await Refund.create(
-    { paymentId: payment.id, requestedById: null, amountCents: payment.amountCents, reason: "Automatic: the retainer had already been paid", stripeRefundId: null, failureMessage: null, recordedAt: null },
+    {
+      paymentId: payment.id,
+      requestedById: null,
+      amountCents: payment.amountCents,
+      reason: "Automatic: the retainer had already been paid",
+      stripeRefundId: null,
+      failureMessage: null,
+      recordedAt: null,
+    },
     { transaction },
   );
   let refused: string | null = null;
@@ -98,7 +117,14 @@ async function tellOfSecondCharge(transaction: Transaction, payment: Payment, jo
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
   const buyer = await Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true });
   const payer = await User.findByPk(payment.createdById, { transaction });
-  const charge = { specTitle: spec.title, jobId: job.id, amountCents: payment.amountCents, currency: payment.currency, reference: payment.paymentIntentId ?? payment.id, refused };
+  const charge = {
+    specTitle: spec.title,
+    jobId: job.id,
+    amountCents: payment.amountCents,
+    currency: payment.currency,
+    reference: payment.paymentIntentId ?? payment.id,
+    refused,
+  };
   if (payer?.active) {
     await enqueueMail({ to: payer.email, ...secondChargeToPayerMail({ ...charge, name: payer.name }) }, transaction);
   }
@@ -114,14 +140,23 @@ async function tellOfSecondCharge(transaction: Transaction, payment: Payment, jo
 async function sendReceipts(transaction: Transaction, payment: Payment) {
   const job = await Job.findByPk(payment.jobId, { transaction, rejectOnEmpty: true });
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
-  const [buyer, shop] = await Promise.all([Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true }), Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true })]);
+  const [buyer, shop] = await Promise.all([
+    Organisation.findByPk(job.buyerOrganisationId, { transaction, rejectOnEmpty: true }),
+    Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true }),
+  ]);
   const payer = await User.findByPk(payment.createdById, { transaction, rejectOnEmpty: true });
   const shopPeople = await User.findAll({ where: { organisationId: shop.id, active: true }, transaction });
-  const paid = { specTitle: spec.title, jobId: job.id, amountCents: payment.amountCents, currency: payment.currency, buyerName: buyer.name, paidAt: payment.paidAt ?? new Date() };
+  const paid = {
+    specTitle: spec.title,
+    jobId: job.id,
+    amountCents: payment.amountCents,
+    currency: payment.currency,
+    buyerName: buyer.name,
+    paidAt: payment.paidAt ?? new Date(),
+  };
   const reference = payment.paymentIntentId ?? payment.id;
   await enqueueMail({ to: payer.email, ...receiptMail({ ...paid, name: payer.name, shopName: shop.name, reference }) }, transaction);
   for (const person of shopPeople) {
     await enqueueMail({ to: person.email, ...retainerReceivedMail({ ...paid, name: person.name }) }, transaction);
   }
 }
-

@@ -43,7 +43,10 @@ export async function shopsAwaitingApproval(admin: User, limit = 50): Promise<Wa
   const shops = await Organisation.findAll({
     where: { kind: "shop", approval: "pending" },
     include: [{ model: User, as: "users", attributes: ["name", "email"], required: false }],
-    order: [["createdAt", "ASC"], ["id", "ASC"]],
+    order: [
+      ["createdAt", "ASC"],
+      ["id", "ASC"],
+    ],
     limit,
   });
   return shops.map((o) => ({
@@ -82,7 +85,8 @@ export async function decideShop(admin: User, organisationId: string, choice: Sh
     );
     const people = await User.findAll({ where: { organisationId: shop.id, active: true }, order: [["email", "ASC"]], transaction });
     for (const person of people) {
-      const mail = reason === null ? shopApprovedMail({ name: person.name, shopName: shop.name }) : shopRefusedMail({ name: person.name, shopName: shop.name, reason });
+      const mail =
+        reason === null ? shopApprovedMail({ name: person.name, shopName: shop.name }) : shopRefusedMail({ name: person.name, shopName: shop.name, reason });
       await enqueueMail({ to: person.email, ...mail, priority: "account" }, transaction);
     }
     return shop;

@@ -37,16 +37,24 @@ export function allAnswers(spec: Spec): FormValues {
 /** A draft, or a published spec the buyer is revising, can be edited in the form. */
 export const isEditable = (spec: Spec) => spec.status === "draft" || (spec.status === "open" && spec.revising);
 
-export async function saveStep(user: User, specId: string | undefined, { step, answers, complete }: { step: FormStepId; answers: Record<string, string>; complete: boolean }): Promise<Spec> {
+export async function saveStep(
+  user: User,
+  specId: string | undefined,
+  { step, answers, complete }: { step: FormStepId; answers: Record<string, string>; complete: boolean },
+): Promise<Spec> {
   return sequelize.transaction(async (transaction) => {
     // Locked and read again: another tab may have published the spec since this one loaded it.
     const locked = await specOfOwner(user, specId, { transaction, lock: true });
-    if (!isEditable(locked)) throw new FieldErrors({ "": ["This spec was published meanwhile, perhaps from another tab; a published spec is changed by revising it."] });
+    if (!isEditable(locked))
+      throw new FieldErrors({ "": ["This spec was published meanwhile, perhaps from another tab; a published spec is changed by revising it."] });
     const completed = new Set(locked.completedSteps);
     if (complete) completed.add(step);
     else completed.delete(step);
     const title = step === "machine" && answers.title ? answers.title.trim().slice(0, 120) : locked.title;
-    return locked.update({ answers: { ...locked.answers, [step]: answers }, completedSteps: FORM_STEPS.filter((s) => completed.has(s)), title }, { transaction });
+    return locked.update(
+      { answers: { ...locked.answers, [step]: answers }, completedSteps: FORM_STEPS.filter((s) => completed.has(s)), title },
+      { transaction },
+    );
   });
 }
 
@@ -140,7 +148,9 @@ export async function publish(user: User, specId: string | undefined, { cautions
     const shops = await shopPeopleToTell(transaction);
     for (const shop of shops) {
       const facts = { shopName: shop.name, specId: locked.id, specTitle: locked.title, bidDeadline: quotation.data.bidDeadline };
-      const mail = isRevision ? specRevisedMail({ ...facts, revision: number }) : specPublishedMail({ ...facts, deliveryRegion: quotation.data.deliveryRegion });
+      const mail = isRevision
+        ? specRevisedMail({ ...facts, revision: number })
+        : specPublishedMail({ ...facts, deliveryRegion: quotation.data.deliveryRegion });
       await enqueueMail({ to: shop.email, ...mail, priority: "announcement" }, transaction);
     }
   });
@@ -157,4 +167,3 @@ export async function startRevision(user: User, specId: string | undefined): Pro
 export async function revisionsOf(spec: Spec) {
   return SpecRevision.findAll({ where: { specId: spec.id }, order: [["number", "DESC"]] });
 }
-

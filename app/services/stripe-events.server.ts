@@ -15,9 +15,27 @@ import { flagPayment, idOf, moneyMismatch, settleCompletedSession } from "./reta
 
 const stripeRef = z.union([z.string(), z.object({ id: z.string() }).loose()]).nullish();
 const metadata = z.record(z.string(), z.unknown()).nullish();
-const sessionShape = z.object({ id: z.string(), metadata, payment_status: z.string().nullish(), amount_total: z.unknown().optional(), currency: z.unknown().optional(), payment_intent: stripeRef }).loose();
+const sessionShape = z
+  .object({
+    id: z.string(),
+    metadata,
+    payment_status: z.string().nullish(),
+    amount_total: z.unknown().optional(),
+    currency: z.unknown().optional(),
+    payment_intent: stripeRef,
+  })
+  .loose();
 const intentShape = z.object({ id: z.string(), metadata, last_payment_error: z.object({ message: z.string().nullish() }).loose().nullish() }).loose();
-const chargeShape = z.object({ id: z.string(), metadata, payment_intent: stripeRef, amount: z.unknown().optional(), amount_refunded: z.unknown().optional(), currency: z.unknown().optional() }).loose();
+const chargeShape = z
+  .object({
+    id: z.string(),
+    metadata,
+    payment_intent: stripeRef,
+    amount: z.unknown().optional(),
+    amount_refunded: z.unknown().optional(),
+    currency: z.unknown().optional(),
+  })
+  .loose();
 
 const paymentIdIn = (data: z.infer<typeof metadata>) => (typeof data?.payment_id === "string" ? data.payment_id : null);
 
@@ -61,7 +79,11 @@ async function chargeRefunded(charge: z.infer<typeof chargeShape>, transaction: 
   if (!payment) return `no payment for charge ${charge.id}`;
   const mismatch = refundMismatch(payment, charge);
   if (mismatch) {
-    await flagPayment(transaction, payment, `A refund event for charge ${charge.id} said ${mismatch}; it was not applied. Check the payment at the card service.`);
+    await flagPayment(
+      transaction,
+      payment,
+      `A refund event for charge ${charge.id} said ${mismatch}; it was not applied. Check the payment at the card service.`,
+    );
     return `refund: ${mismatch}; not applied`;
   }
   const refunded = charge.amount_refunded as number;
@@ -82,8 +104,24 @@ async function chargeRefunded(charge: z.infer<typeof chargeShape>, transaction: 
   await job.update({ retainerRefundedCents: job.retainerRefundedCents + newly }, { transaction });
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
   const by = waiting[0]?.requestedById ?? payment.createdById;
-  await JobEvent.create({ jobId: job.id, userId: by, kind: "retainer_refunded", milestone: null, detail: { paymentId: payment.id, amountCents: newly, currency: payment.currency } }, { transaction });
-  const retainer = { specTitle: spec.title, jobId: job.id, amountCents: payment.amountCents, currency: payment.currency, newlyCents: newly, refundedCents: refunded };
+  await JobEvent.create(
+    {
+      jobId: job.id,
+      userId: by,
+      kind: "retainer_refunded",
+      milestone: null,
+      detail: { paymentId: payment.id, amountCents: newly, currency: payment.currency },
+    },
+    { transaction },
+  );
+  const retainer = {
+    specTitle: spec.title,
+    jobId: job.id,
+    amountCents: payment.amountCents,
+    currency: payment.currency,
+    newlyCents: newly,
+    refundedCents: refunded,
+  };
   const payer = await User.findByPk(payment.createdById, { transaction });
   if (payer?.active) {
     await enqueueMail({ to: payer.email, ...refundToPayerMail({ ...retainer, name: payer.name }) }, transaction);
@@ -133,7 +171,11 @@ export async function handleStripeEvent(event: Stripe.Event): Promise<string> {
     // PostgreSQL's jsonb refuses a NUL character; the rest of the payload is kept as sent.
     const inserted = await sequelize.query<{ id: string }>(
       `INSERT INTO stripe_events (id, type, outcome, payload) VALUES (:id, :type, 'received', :payload) ON CONFLICT (id) DO NOTHING RETURNING id`,
-      { replacements: { id: event.id, type: event.type.slice(0, 100), payload: JSON.stringify(event).replace(/(?<!\\)((?:\\\\)*)\\u0000/g, "$1") }, transaction, type: QueryTypes.SELECT },
+      {
+        replacements: { id: event.id, type: event.type.slice(0, 100), payload: JSON.stringify(event).replace(/(?<!\\)((?:\\\\)*)\\u0000/g, "$1") },
+        transaction,
+        type: QueryTypes.SELECT,
+      },
     );
     if (inserted.length === 0) return "replay";
     const outcome = await apply(event, transaction);

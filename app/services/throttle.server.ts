@@ -67,8 +67,7 @@ const clientFails = () => limiter("signin-client", SIGN_IN_LIMITS.perClient, 15 
 
 const blockSeconds = (blocksToday: number) => Math.min(5 * MINUTE * 2 ** (blocksToday - 1), HOUR);
 
-const accountThrottledMessage = (ms: number) =>
-  `Too many attempts for this account. Try again in ${minutes(ms)}, or reset your password by e-mail.`;
+const accountThrottledMessage = (ms: number) => `Too many attempts for this account. Try again in ${minutes(ms)}, or reset your password by e-mail.`;
 
 /**
  * Runs a password check under the sign-in throttles. While blocked it throws Throttled before
@@ -82,10 +81,7 @@ export async function throttledPasswordCheck<T>(client: string, email: string, v
     accountFails().get(email),
     clientFails().get(client),
   ]);
-  const accountWait = Math.max(
-    blockedFor(byAccountClient, SIGN_IN_LIMITS.perAccountClient - 1),
-    blockedFor(byAccount, SIGN_IN_LIMITS.perAccount - 1),
-  );
+  const accountWait = Math.max(blockedFor(byAccountClient, SIGN_IN_LIMITS.perAccountClient - 1), blockedFor(byAccount, SIGN_IN_LIMITS.perAccount - 1));
   if (accountWait > 0) throw new Throttled(accountThrottledMessage(accountWait), Math.ceil(accountWait / 1000));
   const clientWait = blockedFor(byClient, SIGN_IN_LIMITS.perClient - 1);
   if (clientWait > 0) {
@@ -98,11 +94,7 @@ export async function throttledPasswordCheck<T>(client: string, email: string, v
 }
 
 async function countFailure(accountClient: string, email: string, client: string) {
-  const [fails] = await Promise.all([
-    accountClientFails().penalty(accountClient),
-    accountFails().penalty(email),
-    clientFails().penalty(client),
-  ]);
+  const [fails] = await Promise.all([accountClientFails().penalty(accountClient), accountFails().penalty(email), clientFails().penalty(client)]);
   if (fails.consumedPoints >= SIGN_IN_LIMITS.perAccountClient) {
     const blocks = await accountClientBlocks().penalty(accountClient);
     await accountClientFails().block(accountClient, blockSeconds(blocks.consumedPoints));
@@ -142,6 +134,9 @@ export async function mayMail(kind: MailKind, address: string): Promise<boolean>
 export async function throttleInvitations(userId: string) {
   const wait = await consume(limiter("invitations-user", MAIL_LIMITS.invitationsPerUserHour, HOUR), userId);
   if (wait > 0) {
-    throw new Throttled(`You have sent ${MAIL_LIMITS.invitationsPerUserHour} invitations in the last hour. Send more in ${minutes(wait)}.`, Math.ceil(wait / 1000));
+    throw new Throttled(
+      `You have sent ${MAIL_LIMITS.invitationsPerUserHour} invitations in the last hour. Send more in ${minutes(wait)}.`,
+      Math.ceil(wait / 1000),
+    );
   }
 }

@@ -85,9 +85,7 @@ export const up: Migration = async ({ context: qi }) => {
     updated_at: now,
   });
   // The sender polls for due mail; a partial index keeps that cheap however much was sent.
-  await qi.sequelize.query(
-    "CREATE INDEX outbox_mails_due ON outbox_mails (next_attempt_at) WHERE status = 'pending'",
-  );
+  await qi.sequelize.query("CREATE INDEX outbox_mails_due ON outbox_mails (next_attempt_at) WHERE status = 'pending'");
 };
 
 export const down: Migration = async ({ context: qi }) => {

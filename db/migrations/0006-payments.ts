@@ -3,7 +3,12 @@ import type { Migration } from "../migrator";
 
 const now = { type: DataTypes.DATE, allowNull: false, defaultValue: Sequelize.fn("now") };
 const id = { type: DataTypes.UUID, primaryKey: true, defaultValue: Sequelize.literal("gen_random_uuid()") };
-const ref = (table: string, onDelete = "RESTRICT", allowNull = false) => ({ type: DataTypes.UUID, allowNull, references: { model: table, key: "id" }, onDelete });
+const ref = (table: string, onDelete = "RESTRICT", allowNull = false) => ({
+  type: DataTypes.UUID,
+  allowNull,
+  references: { model: table, key: "id" },
+  onDelete,
+});
 
 // Retainer payments through Stripe Checkout, their refunds, and every webhook event received.
 export const up: Migration = async ({ context: qi }) => {

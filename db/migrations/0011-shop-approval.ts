@@ -17,9 +17,7 @@ export const up: Migration = async ({ context: qi }) => {
   });
   await qi.addColumn("organisations", "approval_decided_at", { type: DataTypes.DATE, allowNull: true });
   await qi.sequelize.query("UPDATE organisations SET approval = 'approved', approval_decided_at = now() WHERE kind = 'shop'");
-  await qi.sequelize.query(
-    "ALTER TABLE organisations ADD CONSTRAINT organisations_shop_approval CHECK ((kind = 'shop') = (approval IS NOT NULL))",
-  );
+  await qi.sequelize.query("ALTER TABLE organisations ADD CONSTRAINT organisations_shop_approval CHECK ((kind = 'shop') = (approval IS NOT NULL))");
   // A refusal always says why.
   await qi.sequelize.query(
     "ALTER TABLE organisations ADD CONSTRAINT organisations_refusal_reason CHECK (approval <> 'refused' OR length(approval_reason) > 0)",

@@ -96,10 +96,40 @@ function demoSpecs(): DemoSpec[] {
       status: "open",
       publishedDaysAgo: 3,
       answers: {
-        machine: { title: "Panel press, main ram", purpose: "Forms steel door panels over a die; the ram comes down onto the blank.", orientation: "vertical", rodDirection: "down", mounting: "pinned-pinned" },
-        motion: { massKg: "650", processForceN: "60000", frictionCoefficient: "0.1", strokeMm: "350", extendSpeedMmS: "80", retractSpeedMmS: "120", accelTimeS: "0.2" },
-        duty: { cyclesPerHour: "90", hoursPerDay: "16", ambientC: "28", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
-        quotation: { unitsWanted: "2", bidDeadline: inDays(18), dateNeeded: inDays(75), deliveryRegion: "UK — West Midlands", currency: "GBP", retainerPercent: "20", notes: "Power unit beside the press frame; blue RAL 5010 paint." },
+        machine: {
+          title: "Panel press, main ram",
+          purpose: "Forms steel door panels over a die; the ram comes down onto the blank.",
+          orientation: "vertical",
+          rodDirection: "down",
+          mounting: "pinned-pinned",
+        },
+        motion: {
+          massKg: "650",
+          processForceN: "60000",
+          frictionCoefficient: "0.1",
+          strokeMm: "350",
+          extendSpeedMmS: "80",
+          retractSpeedMmS: "120",
+          accelTimeS: "0.2",
+        },
+        duty: {
+          cyclesPerHour: "90",
+          hoursPerDay: "16",
+          ambientC: "28",
+          supplyHz: "50",
+          maxPressureBar: "160",
+          supplyVoltage: "400 V three-phase",
+          fluid: "ISO VG 46",
+        },
+        quotation: {
+          unitsWanted: "2",
+          bidDeadline: inDays(18),
+          dateNeeded: inDays(75),
+          deliveryRegion: "UK — West Midlands",
+          currency: "GBP",
+          retainerPercent: "20",
+          notes: "Power unit beside the press frame; blue RAL 5010 paint.",
+        },
       },
     },
     {
@@ -108,10 +138,40 @@ function demoSpecs(): DemoSpec[] {
       status: "awarded",
       publishedDaysAgo: 30,
       answers: {
-        machine: { title: "Coil clamp, hold-down cylinder", purpose: "Holds a steel coil on the decoiler mandrel while the band is cut.", orientation: "vertical", rodDirection: "down", mounting: "fixed-pinned" },
-        motion: { massKg: "60", processForceN: "18000", frictionCoefficient: "0.1", strokeMm: "150", extendSpeedMmS: "60", retractSpeedMmS: "90", accelTimeS: "0.15" },
-        duty: { cyclesPerHour: "30", hoursPerDay: "16", ambientC: "25", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
-        quotation: { unitsWanted: "1", bidDeadline: inDays(-6), dateNeeded: inDays(60), deliveryRegion: "UK — West Midlands", currency: "GBP", retainerPercent: "25", notes: "" },
+        machine: {
+          title: "Coil clamp, hold-down cylinder",
+          purpose: "Holds a steel coil on the decoiler mandrel while the band is cut.",
+          orientation: "vertical",
+          rodDirection: "down",
+          mounting: "fixed-pinned",
+        },
+        motion: {
+          massKg: "60",
+          processForceN: "18000",
+          frictionCoefficient: "0.1",
+          strokeMm: "150",
+          extendSpeedMmS: "60",
+          retractSpeedMmS: "90",
+          accelTimeS: "0.15",
+        },
+        duty: {
+          cyclesPerHour: "30",
+          hoursPerDay: "16",
+          ambientC: "25",
+          supplyHz: "50",
+          maxPressureBar: "160",
+          supplyVoltage: "400 V three-phase",
+          fluid: "ISO VG 46",
+        },
+        quotation: {
+          unitsWanted: "1",
+          bidDeadline: inDays(-6),
+          dateNeeded: inDays(60),
+          deliveryRegion: "UK — West Midlands",
+          currency: "GBP",
+          retainerPercent: "25",
+          notes: "",
+        },
       },
     },
     {
@@ -120,10 +180,40 @@ function demoSpecs(): DemoSpec[] {
       status: "awarded",
       publishedDaysAgo: 100,
       answers: {
-        machine: { title: "Scissor lift table, main cylinder", purpose: "Raises a loading table with pallets to the mezzanine floor.", orientation: "vertical", rodDirection: "up", mounting: "pinned-pinned" },
-        motion: { massKg: "1800", processForceN: "0", frictionCoefficient: "0.05", strokeMm: "800", extendSpeedMmS: "50", retractSpeedMmS: "60", accelTimeS: "0.3" },
-        duty: { cyclesPerHour: "20", hoursPerDay: "10", ambientC: "20", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 32" },
-        quotation: { unitsWanted: "3", bidDeadline: inDays(-75), dateNeeded: inDays(10), deliveryRegion: "UK — South East", currency: "GBP", retainerPercent: "15", notes: "Indoor warehouse; low noise wanted." },
+        machine: {
+          title: "Scissor lift table, main cylinder",
+          purpose: "Raises a loading table with pallets to the mezzanine floor.",
+          orientation: "vertical",
+          rodDirection: "up",
+          mounting: "pinned-pinned",
+        },
+        motion: {
+          massKg: "1800",
+          processForceN: "0",
+          frictionCoefficient: "0.05",
+          strokeMm: "800",
+          extendSpeedMmS: "50",
+          retractSpeedMmS: "60",
+          accelTimeS: "0.3",
+        },
+        duty: {
+          cyclesPerHour: "20",
+          hoursPerDay: "10",
+          ambientC: "20",
+          supplyHz: "50",
+          maxPressureBar: "160",
+          supplyVoltage: "400 V three-phase",
+          fluid: "ISO VG 32",
+        },
+        quotation: {
+          unitsWanted: "3",
+          bidDeadline: inDays(-75),
+          dateNeeded: inDays(10),
+          deliveryRegion: "UK — South East",
+          currency: "GBP",
+          retainerPercent: "15",
+          notes: "Indoor warehouse; low noise wanted.",
+        },
       },
     },
     {
@@ -131,18 +221,52 @@ function demoSpecs(): DemoSpec[] {
       author: "tom@marlow-decks.test",
       status: "draft",
       answers: {
-        machine: { title: "Tilting deck, lift cylinder", purpose: "Tilts a vehicle deck up to 35° for unloading.", orientation: "inclined", inclineDeg: "35", rodDirection: "up", mounting: "pinned-pinned" },
-        motion: { massKg: "4200", processForceN: "0", frictionCoefficient: "0.05", strokeMm: "900", extendSpeedMmS: "40", retractSpeedMmS: "50", accelTimeS: "0.3" },
+        machine: {
+          title: "Tilting deck, lift cylinder",
+          purpose: "Tilts a vehicle deck up to 35° for unloading.",
+          orientation: "inclined",
+          inclineDeg: "35",
+          rodDirection: "up",
+          mounting: "pinned-pinned",
+        },
+        motion: {
+          massKg: "4200",
+          processForceN: "0",
+          frictionCoefficient: "0.05",
+          strokeMm: "900",
+          extendSpeedMmS: "40",
+          retractSpeedMmS: "50",
+          accelTimeS: "0.3",
+        },
       },
     },
   ];
 }
 
 /** Demo offers: per spec title, each shop's price level (a factor on a list price per line). */
-const DEMO_BIDS: Record<string, { shop: string; author: string; factor: number; status: "draft" | "submitted" | "won" | "not_selected"; leadTimeWeeks: number; revised?: boolean; alternativeOn?: string }[]> = {
+const DEMO_BIDS: Record<
+  string,
+  {
+    shop: string;
+    author: string;
+    factor: number;
+    status: "draft" | "submitted" | "won" | "not_selected";
+    leadTimeWeeks: number;
+    revised?: boolean;
+    alternativeOn?: string;
+  }[]
+> = {
   "Panel press, main ram": [
     { shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 1.0, status: "submitted", leadTimeWeeks: 12 },
-    { shop: "Northgate Hydraulics", author: "sofia@northgate-hyd.test", factor: 0.93, status: "submitted", leadTimeWeeks: 14, revised: true, alternativeOn: "pump" },
+    {
+      shop: "Northgate Hydraulics",
+      author: "sofia@northgate-hyd.test",
+      factor: 0.93,
+      status: "submitted",
+      leadTimeWeeks: 14,
+      revised: true,
+      alternativeOn: "pump",
+    },
     { shop: "Coldharbour Power Units", author: "ben@coldharbour-pu.test", factor: 0.9, status: "draft", leadTimeWeeks: 10 },
   ],
   "Coil clamp, hold-down cylinder": [
@@ -158,8 +282,25 @@ const DEMO_BIDS: Record<string, { shop: string; author: string; factor: number; 
 /** An invented list price per bill-of-materials line (pounds), for the demo's offers only. */
 function demoListPrice(key: string): number {
   const known: Record<string, number> = {
-    cylinder: 1850, pump: 640, motor: 720, "coupling-bellhousing": 180, "relief-valve": 210, "relief-vent-valve": 160, "directional-valve": 480,
-    "counterbalance-valve": 290, reservoir: 560, "return-filter": 140, "suction-strainer": 45, gauge: 38, "fluid-fill": 320, "hose-pressure": 85, "hose-return": 70, "hose-cap": 95, "hose-rod": 95, "hose-suction": 60, cooler: 690,
+    cylinder: 1850,
+    pump: 640,
+    motor: 720,
+    "coupling-bellhousing": 180,
+    "relief-valve": 210,
+    "relief-vent-valve": 160,
+    "directional-valve": 480,
+    "counterbalance-valve": 290,
+    reservoir: 560,
+    "return-filter": 140,
+    "suction-strainer": 45,
+    gauge: 38,
+    "fluid-fill": 320,
+    "hose-pressure": 85,
+    "hose-return": 70,
+    "hose-cap": 95,
+    "hose-rod": 95,
+    "hose-suction": 60,
+    cooler: 690,
   };
   return known[key] ?? 120;
 }
@@ -258,14 +399,24 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
         },
       );
       for (let v = 1; v <= version; v++) {
-        const offerRecord = { lines, units, ...totals, currency: flat.currency, leadTimeWeeks: offer.leadTimeWeeks, validUntil: inDays(45), terms: "", notes: "" };
+        const offerRecord = {
+          lines,
+          units,
+          ...totals,
+          currency: flat.currency,
+          leadTimeWeeks: offer.leadTimeWeeks,
+          validUntil: inDays(45),
+          terms: "",
+          notes: "",
+        };
         if (v < version) offerRecord.leadTimeWeeks += 2;
         await sequelize.query(
           `INSERT INTO bid_versions (bid_id, version, event, spec_revision, offer, created_by_id, created_at) VALUES (:bid, :v, 'submitted', 1, :offer, :author, :at)`,
           { replacements: { bid: bid.id, v, offer: JSON.stringify(offerRecord), author: userIds.get(offer.author), at: submittedAt }, transaction },
         );
       }
-      if (offer.status === "won") await seedJob(sequelize, transaction, { specId: row.id, bidId: bid.id, spec, offer, totalCents: totals.totalCents, userIds, orgIds, flat });
+      if (offer.status === "won")
+        await seedJob(sequelize, transaction, { specId: row.id, bidId: bid.id, spec, offer, totalCents: totals.totalCents, userIds, orgIds, flat });
     }
     if (flat.title === "Panel press, main ram") await seedQuestions(sequelize, transaction, row.id, userIds, orgIds);
   }
@@ -273,15 +424,34 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
 
 async function seedQuestions(sequelize: Sequelize, transaction: Transaction, specId: string, userIds: Map<string, string>, orgIds: Map<string, string>) {
   const questions = [
-    { shop: "Ironbridge Fluid Power", by: "aled@ironbridge-fluid.test", body: "Can the counterbalance valve be flanged straight onto the cylinder's rod port, or is there only room for a line-mounted valve?", answer: "Flanged on the port, please: there is 120 mm of clearance beside the cylinder, on the operator's side." },
-    { shop: "Northgate Hydraulics", by: "sofia@northgate-hyd.test", body: "Is a water-glycol fluid required for fire safety at this site, or is mineral oil acceptable?", answer: null },
+    {
+      shop: "Ironbridge Fluid Power",
+      by: "aled@ironbridge-fluid.test",
+      body: "Can the counterbalance valve be flanged straight onto the cylinder's rod port, or is there only room for a line-mounted valve?",
+      answer: "Flanged on the port, please: there is 120 mm of clearance beside the cylinder, on the operator's side.",
+    },
+    {
+      shop: "Northgate Hydraulics",
+      by: "sofia@northgate-hyd.test",
+      body: "Is a water-glycol fluid required for fire safety at this site, or is mineral oil acceptable?",
+      answer: null,
+    },
   ];
   for (const q of questions) {
     await sequelize.query(
       `INSERT INTO spec_questions (spec_id, organisation_id, asked_by_id, body, answer, answered_by_id, answered_at, created_at, updated_at)
        VALUES (:spec, :org, :by, :body, :answer, :answeredBy, :answeredAt, :askedAt, :askedAt)`,
       {
-        replacements: { spec: specId, org: orgIds.get(q.shop), by: userIds.get(q.by), body: q.body, answer: q.answer, answeredBy: q.answer ? userIds.get("priya@kestrel-forming.test") : null, answeredAt: q.answer ? daysAgo(1) : null, askedAt: daysAgo(2) },
+        replacements: {
+          spec: specId,
+          org: orgIds.get(q.shop),
+          by: userIds.get(q.by),
+          body: q.body,
+          answer: q.answer,
+          answeredBy: q.answer ? userIds.get("priya@kestrel-forming.test") : null,
+          answeredAt: q.answer ? daysAgo(1) : null,
+          askedAt: daysAgo(2),
+        },
         transaction,
       },
     );
@@ -292,7 +462,16 @@ async function seedQuestions(sequelize: Sequelize, transaction: Transaction, spe
 async function seedJob(
   sequelize: Sequelize,
   transaction: Transaction,
-  a: { specId: string; bidId: string; spec: DemoSpec; offer: { shop: string; author: string; leadTimeWeeks: number }; totalCents: number; userIds: Map<string, string>; orgIds: Map<string, string>; flat: Record<string, string> },
+  a: {
+    specId: string;
+    bidId: string;
+    spec: DemoSpec;
+    offer: { shop: string; author: string; leadTimeWeeks: number };
+    totalCents: number;
+    userIds: Map<string, string>;
+    orgIds: Map<string, string>;
+    flat: Record<string, string>;
+  },
 ) {
   const awardedDaysAgo = (a.spec.publishedDaysAgo ?? 1) - 26;
   const awardedAt = daysAgo(awardedDaysAgo);
@@ -322,7 +501,14 @@ async function seedJob(
       stage: reached.at(-1) ?? null,
     },
   );
-  const awarded = { bidId: a.bidId, totalCents: a.totalCents, currency: a.flat.currency, retainerPercent: a.flat.retainerPercent, retainerCents: retainerCents(a.totalCents, a.flat.retainerPercent), leadTimeWeeks: a.offer.leadTimeWeeks };
+  const awarded = {
+    bidId: a.bidId,
+    totalCents: a.totalCents,
+    currency: a.flat.currency,
+    retainerPercent: a.flat.retainerPercent,
+    retainerCents: retainerCents(a.totalCents, a.flat.retainerPercent),
+    leadTimeWeeks: a.offer.leadTimeWeeks,
+  };
   await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, detail, created_at) VALUES (:job, :by, 'awarded', :detail, :at)`, {
     replacements: { job: job.id, by: buyerAuthor, detail: JSON.stringify(awarded), at: awardedAt },
     transaction,
@@ -336,12 +522,29 @@ async function seedJob(
       transaction,
       `INSERT INTO payments (job_id, buyer_organisation_id, created_by_id, status, amount_cents, currency, checkout_session_id, payment_intent_id, paid_at, created_at)
        VALUES (:job, :buyer, :by, 'paid', :amount, :currency, :session, :intent, :paidAt, :paidAt) RETURNING id`,
-      { job: job.id, buyer: a.orgIds.get(a.spec.organisation), by: buyerAuthor, amount, currency: a.flat.currency, session: `cs_test_demo${randomBytes(10).toString("hex")}`, intent: `pi_demo${randomBytes(10).toString("hex")}`, paidAt },
+      {
+        job: job.id,
+        buyer: a.orgIds.get(a.spec.organisation),
+        by: buyerAuthor,
+        amount,
+        currency: a.flat.currency,
+        session: `cs_test_demo${randomBytes(10).toString("hex")}`,
+        intent: `pi_demo${randomBytes(10).toString("hex")}`,
+        paidAt,
+      },
     );
-    await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, milestone, detail, created_at) VALUES (:job, :by, 'retainer_paid', 'retainer_received', :detail, :at)`, {
-      replacements: { job: job.id, by: buyerAuthor, detail: JSON.stringify({ paymentId: payment.id, amountCents: amount, currency: a.flat.currency }), at: paidAt },
-      transaction,
-    });
+    await sequelize.query(
+      `INSERT INTO job_events (job_id, user_id, kind, milestone, detail, created_at) VALUES (:job, :by, 'retainer_paid', 'retainer_received', :detail, :at)`,
+      {
+        replacements: {
+          job: job.id,
+          by: buyerAuthor,
+          detail: JSON.stringify({ paymentId: payment.id, amountCents: amount, currency: a.flat.currency }),
+          at: paidAt,
+        },
+        transaction,
+      },
+    );
   }
   const leadDays = a.offer.leadTimeWeeks * 7;
   for (const [position, m] of MILESTONES.entries()) {
@@ -355,24 +558,33 @@ async function seedJob(
       { replacements: { job: job.id, key: m.key, position, target, reachedAt, by: done ? by : null }, transaction },
     );
     if (done && m.key !== "retainer_received") {
-      await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, milestone, body, created_at) VALUES (:job, :by, 'milestone_reached', :key, :body, :at)`, {
-        replacements: { job: job.id, by, key: m.key, body: m.key === "in_build" ? "Manifold machined; the tank is at the painter's." : "", at: reachedAt },
-        transaction,
-      });
+      await sequelize.query(
+        `INSERT INTO job_events (job_id, user_id, kind, milestone, body, created_at) VALUES (:job, :by, 'milestone_reached', :key, :body, :at)`,
+        {
+          replacements: { job: job.id, by, key: m.key, body: m.key === "in_build" ? "Manifold machined; the tank is at the painter's." : "", at: reachedAt },
+          transaction,
+        },
+      );
     }
   }
   if (underway) {
-    await sequelize.query(`INSERT INTO job_events (job_id, user_id, kind, body, visibility, created_at) VALUES (:job, :by, 'manager_note', :body, 'operator', :at)`, {
-      replacements: { job: job.id, by: a.userIds.get("nadia@tenderflow.test"), body: "Called Aled: test bench booked for next week, motor delivery slipped.", at: daysAgo(2) },
-      transaction,
-    });
+    await sequelize.query(
+      `INSERT INTO job_events (job_id, user_id, kind, body, visibility, created_at) VALUES (:job, :by, 'manager_note', :body, 'operator', :at)`,
+      {
+        replacements: {
+          job: job.id,
+          by: a.userIds.get("nadia@tenderflow.test"),
+          body: "Called Aled: test bench booked for next week, motor delivery slipped.",
+          at: daysAgo(2),
+        },
+        transaction,
+      },
+    );
   }
 }
 
 /** The demo sign-ins, one per role, as `npm start` prints them. */
-export const DEMO_SIGN_INS = DEMO_ORGANISATIONS.flatMap((o) =>
-  o.users.map((u) => ({ role: u.role, email: u.email, name: u.name, organisation: o.name })),
-);
+export const DEMO_SIGN_INS = DEMO_ORGANISATIONS.flatMap((o) => o.users.map((u) => ({ role: u.role, email: u.email, name: u.name, organisation: o.name })));
 
 /** Seeds the demo scenario into an empty database; does nothing when organisations exist. */
 export async function seedDemo(sequelize: Sequelize): Promise<boolean> {

@@ -27,9 +27,7 @@ export function checkoutPageRoutes(store: Store, payments: Payments): PageRoute[
       method: "GET",
       pattern: "/checkout/:id",
       handle: ({ path }) =>
-        withSession(path.id, (session) =>
-          session.status === "open" ? paymentForm(store, session, emailState(payments, session)) : closed(session, 200),
-        ),
+        withSession(path.id, (session) => (session.status === "open" ? paymentForm(store, session, emailState(payments, session)) : closed(session, 200))),
     },
     {
       method: "POST",
@@ -68,8 +66,7 @@ const successUrl = (session: Session) => session.success_url!.replaceAll("{CHECK
 function paymentForm(store: Store, session: Session, state: FormState, status = 200): PageAnswer {
   const expanded = store.expand(session, ["line_items.data.price.product"]) as { line_items: { data: LineItem[] } };
   const total = money(session.amount_total, session.currency);
-  const problem = (name: string) =>
-    state.problems?.[name] ? `<p class="problem" id="${name}-problem">${escape(state.problems[name])}</p>` : "";
+  const problem = (name: string) => (state.problems?.[name] ? `<p class="problem" id="${name}-problem">${escape(state.problems[name])}</p>` : "");
   const input = (name: string, label: string, attributes: string, value = "") => `
     <label for="${name}">${label}</label>
     <input id="${name}" name="${name}" ${attributes} value="${escape(value)}"${state.problems?.[name] ? ` aria-invalid="true" aria-describedby="${name}-problem"` : ""}>
@@ -109,7 +106,10 @@ function paymentForm(store: Store, session: Session, state: FormState, status = 
 function closed(session: Session, status: number): PageAnswer {
   if (session.status === "complete") {
     const onward = session.success_url ? `<p><a href="${escape(successUrl(session))}">Continue</a></p>` : "";
-    return { status, html: page("Payment received", `<p>This payment of ${money(session.amount_total, session.currency)} is complete. Thank you.</p>${onward}`) };
+    return {
+      status,
+      html: page("Payment received", `<p>This payment of ${money(session.amount_total, session.currency)} is complete. Thank you.</p>${onward}`),
+    };
   }
   const back = session.cancel_url ? `<p><a href="${escape(session.cancel_url)}">Go back</a></p>` : "";
   return { status, html: page("Payment link expired", `<p>This payment can no longer be made. Ask for a new payment link.</p>${back}`) };

@@ -18,14 +18,11 @@ export class StripeFakeError extends Error {
   }
 }
 
-export const invalid = (message: string, details: StripeFakeError["details"] = {}) =>
-  new StripeFakeError(400, "invalid_request_error", message, details);
+export const invalid = (message: string, details: StripeFakeError["details"] = {}) => new StripeFakeError(400, "invalid_request_error", message, details);
 
-export const missingParam = (param: string) =>
-  invalid(`Missing required param: ${param}.`, { code: "parameter_missing", param });
+export const missingParam = (param: string) => invalid(`Missing required param: ${param}.`, { code: "parameter_missing", param });
 
-export const invalidParam = (param: string, message: string, code = "parameter_invalid_string") =>
-  invalid(message, { code, param });
+export const invalidParam = (param: string, message: string, code = "parameter_invalid_string") => invalid(message, { code, param });
 
 export const noSuch = (label: string, id: string, param = "id") =>
   new StripeFakeError(404, "invalid_request_error", `No such ${label}: '${id}'`, {

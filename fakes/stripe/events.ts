@@ -87,7 +87,9 @@ export class EventHub {
 
   private send(event: FakeEvent, replay: boolean) {
     if (!this.config.webhookUrl || this.closing.signal.aborted) return;
-    const delivery = this.deliver(event, replay).catch(() => {}).finally(() => this.inFlight.delete(delivery));
+    const delivery = this.deliver(event, replay)
+      .catch(() => {})
+      .finally(() => this.inFlight.delete(delivery));
     this.inFlight.add(delivery);
   }
 
@@ -117,7 +119,7 @@ export class EventHub {
           return;
         }
       } catch (error) {
-        record.error = error instanceof Error ? (error.cause as Error | undefined)?.message ?? error.message : String(error);
+        record.error = error instanceof Error ? ((error.cause as Error | undefined)?.message ?? error.message) : String(error);
       }
     }
   }

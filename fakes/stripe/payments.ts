@@ -46,9 +46,26 @@ export class Payments {
    * Puts back a payment made before this fake started (it keeps everything in memory): a
    * succeeded PaymentIntent with its charge, under the ids the app stored, so refunds of it work.
    */
-  restorePaid(paid: { paymentIntentId: string; amount: number; amountRefunded: number; currency: string; customer: string | null; metadata: Record<string, string> }) {
+  restorePaid(paid: {
+    paymentIntentId: string;
+    amount: number;
+    amountRefunded: number;
+    currency: string;
+    customer: string | null;
+    metadata: Record<string, string>;
+  }) {
     if (this.store.find(paid.paymentIntentId)) return;
-    const intent = { ...newPaymentIntent({ amount: paid.amount, currency: paid.currency.toLowerCase(), customer: paid.customer, description: null, metadata: paid.metadata, receiptEmail: null }), id: paid.paymentIntentId };
+    const intent = {
+      ...newPaymentIntent({
+        amount: paid.amount,
+        currency: paid.currency.toLowerCase(),
+        customer: paid.customer,
+        description: null,
+        metadata: paid.metadata,
+        receiptEmail: null,
+      }),
+      id: paid.paymentIntentId,
+    };
     const card = { number: "4242424242424242", brand: "visa" as const, funding: "credit" as const, expMonth: 12, expYear: new Date().getFullYear() + 3 };
     const method = this.store.add(newPaymentMethod(card, { email: null, name: null }, paid.customer));
     const charge = this.store.add({ ...newCharge(intent, method, card), amount_refunded: paid.amountRefunded, refunded: paid.amountRefunded >= paid.amount });

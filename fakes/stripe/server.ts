@@ -40,8 +40,7 @@ export function createFakeServer(options: ServerOptions) {
     response.setHeader("Request-Id", requestId);
     response.setHeader("Stripe-Version", headerValue(request, "stripe-version") ?? options.apiVersion);
     if (idempotencyKey) response.setHeader("Idempotency-Key", idempotencyKey);
-    const send = (status: number, json: string) =>
-      response.writeHead(status, { "Content-Type": "application/json" }).end(json);
+    const send = (status: number, json: string) => response.writeHead(status, { "Content-Type": "application/json" }).end(json);
     try {
       const apiKey = authenticate(request.headers.authorization, options.secretKey);
       const found = findRoute(api, request.method!, url.pathname);

@@ -97,10 +97,7 @@ function createdFilter(query: ParamReader): (created: number) => boolean {
   const range = query.child("created")!.allowOnly(["gt", "gte", "lt", "lte"]);
   const [gt, gte, lt, lte] = ["gt", "gte", "lt", "lte"].map((bound) => range.integer(bound));
   return (created) =>
-    (gt === undefined || created > gt) &&
-    (gte === undefined || created >= gte) &&
-    (lt === undefined || created < lt) &&
-    (lte === undefined || created <= lte);
+    (gt === undefined || created > gt) && (gte === undefined || created >= gte) && (lt === undefined || created < lt) && (lte === undefined || created <= lte);
 }
 
 function isRecord(value: unknown): value is Record<string, unknown> {

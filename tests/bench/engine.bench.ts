@@ -7,12 +7,81 @@
 import { parseRequirements, sizeCircuit, sizeCircuitParsed, type RequirementsInput } from "../../app/hydraulics";
 
 const MIX: RequirementsInput[] = [
-  { orientation: "horizontal", massKg: 800, processForceN: 30000, strokeMm: 400, extendSpeedMmS: 120, retractSpeedMmS: 200, mounting: "fixed-fixed", cyclesPerHour: 120, hoursPerDay: 16, supplyHz: 50 },
-  { orientation: "vertical", rodDirection: "down", massKg: 2500, processForceN: 150000, strokeMm: 600, extendSpeedMmS: 80, retractSpeedMmS: 120, mounting: "fixed-pinned", cyclesPerHour: 40, hoursPerDay: 8, supplyHz: 50 },
-  { orientation: "vertical", rodDirection: "up", massKg: 4000, strokeMm: 1200, extendSpeedMmS: 60, retractSpeedMmS: 90, mounting: "pinned-pinned", cyclesPerHour: 20, hoursPerDay: 8, supplyHz: 60 },
-  { orientation: "inclined", inclineDeg: 35, rodDirection: "up", massKg: 1200, strokeMm: 900, extendSpeedMmS: 150, retractSpeedMmS: 150, mounting: "pinned-pinned", cyclesPerHour: 30, hoursPerDay: 12, supplyHz: 50, maxPressureBar: 210 },
-  { orientation: "inclined", inclineDeg: 60, rodDirection: "down", massKg: 300, strokeMm: 250, extendSpeedMmS: 300, retractSpeedMmS: 400, mounting: "fixed-free", cyclesPerHour: 300, hoursPerDay: 20, supplyHz: 60 },
-  { orientation: "horizontal", massKg: 50, strokeMm: 2500, extendSpeedMmS: 500, retractSpeedMmS: 500, mounting: "fixed-free", cyclesPerHour: 10, hoursPerDay: 4, supplyHz: 50 },
+  {
+    orientation: "horizontal",
+    massKg: 800,
+    processForceN: 30000,
+    strokeMm: 400,
+    extendSpeedMmS: 120,
+    retractSpeedMmS: 200,
+    mounting: "fixed-fixed",
+    cyclesPerHour: 120,
+    hoursPerDay: 16,
+    supplyHz: 50,
+  },
+  {
+    orientation: "vertical",
+    rodDirection: "down",
+    massKg: 2500,
+    processForceN: 150000,
+    strokeMm: 600,
+    extendSpeedMmS: 80,
+    retractSpeedMmS: 120,
+    mounting: "fixed-pinned",
+    cyclesPerHour: 40,
+    hoursPerDay: 8,
+    supplyHz: 50,
+  },
+  {
+    orientation: "vertical",
+    rodDirection: "up",
+    massKg: 4000,
+    strokeMm: 1200,
+    extendSpeedMmS: 60,
+    retractSpeedMmS: 90,
+    mounting: "pinned-pinned",
+    cyclesPerHour: 20,
+    hoursPerDay: 8,
+    supplyHz: 60,
+  },
+  {
+    orientation: "inclined",
+    inclineDeg: 35,
+    rodDirection: "up",
+    massKg: 1200,
+    strokeMm: 900,
+    extendSpeedMmS: 150,
+    retractSpeedMmS: 150,
+    mounting: "pinned-pinned",
+    cyclesPerHour: 30,
+    hoursPerDay: 12,
+    supplyHz: 50,
+    maxPressureBar: 210,
+  },
+  {
+    orientation: "inclined",
+    inclineDeg: 60,
+    rodDirection: "down",
+    massKg: 300,
+    strokeMm: 250,
+    extendSpeedMmS: 300,
+    retractSpeedMmS: 400,
+    mounting: "fixed-free",
+    cyclesPerHour: 300,
+    hoursPerDay: 20,
+    supplyHz: 60,
+  },
+  {
+    orientation: "horizontal",
+    massKg: 50,
+    strokeMm: 2500,
+    extendSpeedMmS: 500,
+    retractSpeedMmS: 500,
+    mounting: "fixed-free",
+    cyclesPerHour: 10,
+    hoursPerDay: 4,
+    supplyHz: 50,
+  },
 ];
 
 /**
@@ -39,7 +108,9 @@ function rate(label: string, iterations: number, body: (i: number) => unknown): 
   const median = (xs: number[]) => xs.sort((a, b) => a - b)[Math.floor(xs.length / 2)];
   const perCpuSecond = median(cpuRates);
   const fmt = (x: number) => Math.round(x).toLocaleString("en-GB").padStart(10);
-  console.log(`${label.padEnd(44)} ${fmt(perCpuSecond)} /CPU-s ${fmt(median(wallRates))} /wall-s${produced === per * rounds ? "" : "  (some runs returned nothing)"}`);
+  console.log(
+    `${label.padEnd(44)} ${fmt(perCpuSecond)} /CPU-s ${fmt(median(wallRates))} /wall-s${produced === per * rounds ? "" : "  (some runs returned nothing)"}`,
+  );
   return perCpuSecond;
 }
 

@@ -18,14 +18,51 @@ const SPECS = 100_000;
 const ROUNDS = 7;
 
 const REGIONS = [
-  "UK — West Midlands", "UK — North West", "UK — South East", "UK — Yorkshire", "Scotland — Central Belt", "Wales — South",
-  "Ireland — Munster", "Ireland — Leinster", "Germany — Bavaria", "Germany — Saxony", "Germany — Lower Saxony",
-  "Netherlands — North Brabant", "Belgium — Flanders", "France — Auvergne-Rhône-Alpes", "France — Grand Est",
-  "Spain — Basque Country", "Italy — Lombardy", "Italy — Emilia-Romagna", "Austria — Upper Austria", "Switzerland — Aargau",
-  "Poland — Silesia", "Czechia — Moravia", "Sweden — Västra Götaland", "Norway — Rogaland", "Denmark — Jutland",
-  "Finland — Pirkanmaa", "USA — Ohio", "USA — Michigan", "Canada — Ontario", "Portugal — Norte",
+  "UK — West Midlands",
+  "UK — North West",
+  "UK — South East",
+  "UK — Yorkshire",
+  "Scotland — Central Belt",
+  "Wales — South",
+  "Ireland — Munster",
+  "Ireland — Leinster",
+  "Germany — Bavaria",
+  "Germany — Saxony",
+  "Germany — Lower Saxony",
+  "Netherlands — North Brabant",
+  "Belgium — Flanders",
+  "France — Auvergne-Rhône-Alpes",
+  "France — Grand Est",
+  "Spain — Basque Country",
+  "Italy — Lombardy",
+  "Italy — Emilia-Romagna",
+  "Austria — Upper Austria",
+  "Switzerland — Aargau",
+  "Poland — Silesia",
+  "Czechia — Moravia",
+  "Sweden — Västra Götaland",
+  "Norway — Rogaland",
+  "Denmark — Jutland",
+  "Finland — Pirkanmaa",
+  "USA — Ohio",
+  "USA — Michigan",
+  "Canada — Ontario",
+  "Portugal — Norte",
 ];
-const MACHINES = ["Panel press", "Scissor lift", "Tilting deck", "Clamp", "Feed axis", "Coil car", "Bending ram", "Die cushion", "Stacker", "Turntable", "Baler ram", "Log splitter"];
+const MACHINES = [
+  "Panel press",
+  "Scissor lift",
+  "Tilting deck",
+  "Clamp",
+  "Feed axis",
+  "Coil car",
+  "Bending ram",
+  "Die cushion",
+  "Stacker",
+  "Turntable",
+  "Baler ram",
+  "Log splitter",
+];
 const PARTS = ["main ram", "return stroke", "left side", "right side", "upper tool", "lower tool", "line 2", "plant B", "retrofit", "prototype"];
 
 const sqlArray = (values: string[]) => `ARRAY[${values.map((v) => `'${v.replace(/'/g, "''")}'`).join(", ")}]`;
@@ -38,7 +75,9 @@ async function fill(client: pg.Client) {
     SELECT gen_random_uuid(), 'Bench builder ' || n, 'buyer', (${sqlArray(REGIONS)})[1 + n % ${REGIONS.length}]
     FROM generate_series(1, 200) AS n`);
   // An approved shop: a pending one reads no specs (migration 0011).
-  await client.query(`INSERT INTO organisations (id, name, kind, region, approval) VALUES (gen_random_uuid(), 'Bench shop', 'shop', 'UK — West Midlands', 'approved')`);
+  await client.query(
+    `INSERT INTO organisations (id, name, kind, region, approval) VALUES (gen_random_uuid(), 'Bench shop', 'shop', 'UK — West Midlands', 'approved')`,
+  );
   await client.query(`
     INSERT INTO users (id, organisation_id, email, name, password_hash, role)
     SELECT gen_random_uuid(), o.id, 'user-' || o.id || '@bench.test', 'Bench user', 'x', CASE o.kind WHEN 'shop' THEN 'shop' ELSE 'buyer' END::enum_users_role
@@ -94,7 +133,9 @@ async function explain(client: pg.Client, sql: string, baseline: boolean) {
   } finally {
     await client.query("ROLLBACK");
   }
-  const indexes = [...new Set(plan.flatMap((l) => [...l.matchAll(/(?:Index Scan|Index Only Scan|Bitmap Index Scan)(?: Backward)? (?:using|on) (\w+)/g)].map((m) => m[1])))];
+  const indexes = [
+    ...new Set(plan.flatMap((l) => [...l.matchAll(/(?:Index Scan|Index Only Scan|Bitmap Index Scan)(?: Backward)? (?:using|on) (\w+)/g)].map((m) => m[1]))),
+  ];
   return { ms: median(times), plan, indexes };
 }
 
@@ -122,7 +163,13 @@ async function main() {
     );
 
     // The app reads its settings once, on first use: set them before its modules load.
-    Object.assign(process.env, { DATABASE_URL: cluster.url("bench"), SESSION_SECRET: "benchmark-secret-benchmark-secret-0123", NODE_ENV: "production", STRIPE_SECRET_KEY: "sk_test_benchmark", STRIPE_WEBHOOK_SECRET: "whsec_benchmark" });
+    Object.assign(process.env, {
+      DATABASE_URL: cluster.url("bench"),
+      SESSION_SECRET: "benchmark-secret-benchmark-secret-0123",
+      NODE_ENV: "production",
+      STRIPE_SECRET_KEY: "sk_test_benchmark",
+      STRIPE_WEBHOOK_SECRET: "whsec_benchmark",
+    });
     const { sequelize, User } = await import("~/models/index.server");
     const { listOpenSpecsForShop } = await import("~/services/open-specs.server");
     const { readOpenSpecsQuery } = await import("~/schemas/open-specs");

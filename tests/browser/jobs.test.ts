@@ -53,8 +53,7 @@ async function fullyHydrated(page: import("playwright-core").Page) {
 
 // Playwright's default screenshot hides the caret with inline styles on inputs, which React
 // would report as a hydration mismatch.
-const shot = (page: import("playwright-core").Page, name: string) =>
-  page.screenshot({ path: path.join(SCREENSHOTS, name), fullPage: true, caret: "initial" });
+const shot = (page: import("playwright-core").Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, name), fullPage: true, caret: "initial" });
 
 describe("jobs in the browser", () => {
   it("the account manager's dashboard: the chart is in the server's HTML and hydrates cleanly", async () => {

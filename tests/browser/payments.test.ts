@@ -25,7 +25,12 @@ beforeAll(async () => {
   const shop = await makeMember("shop", { organisationName: "Tollgate Hydraulics" });
   const spec = await makePublishedSpec(buyer, { machine: { title: "Baler, compaction ram" } });
   const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec.id, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "250" })), leadTimeWeeks: 9, validUntil: inDays(40) });
+  const bid = await saveBid(shop, spec.id, {
+    intent: "submit",
+    lines: bom.map((l) => ({ key: l.key, unitPrice: "250" })),
+    leadTimeWeeks: 9,
+    validUntil: inDays(40),
+  });
   job = await awardBid(buyer, spec.id, { bidId: bid.id });
   app = await startBrowserApp();
   fake.setWebhookUrl(`${app.baseUrl}/webhooks/stripe`);
@@ -54,7 +59,9 @@ describe("paying the retainer", () => {
     await shot(page, "1-job-unpaid");
     await page.getByRole("button", { name: /^Pay the retainer of/ }).click();
     await page.waitForURL(`${fake.url}/checkout/**`);
-    expect(await page.getByTestId("total").textContent()).toBe(new Intl.NumberFormat("en-GB", { style: "currency", currency: "GBP" }).format(job.retainerCents / 100));
+    expect(await page.getByTestId("total").textContent()).toBe(
+      new Intl.NumberFormat("en-GB", { style: "currency", currency: "GBP" }).format(job.retainerCents / 100),
+    );
 
     // Declined: the card service says so and nothing is charged.
     await fillCard(page, "4000 0000 0000 0002");
@@ -84,7 +91,12 @@ describe("paying the retainer", () => {
     await fake.settled();
     const snapshot = async () => ({
       events: await StripeEvent.count(),
-      payments: (await Payment.findAll({ where: { jobId: job.id }, order: [["createdAt", "ASC"]] })).map((p) => [p.status, p.amountCents, p.refundedCents, p.paidAt?.toISOString()]),
+      payments: (await Payment.findAll({ where: { jobId: job.id }, order: [["createdAt", "ASC"]] })).map((p) => [
+        p.status,
+        p.amountCents,
+        p.refundedCents,
+        p.paidAt?.toISOString(),
+      ]),
       history: await JobEvent.count({ where: { jobId: job.id } }),
       mail: await OutboxMail.count(),
       paidAt: (await job.reload()).retainerPaidAt?.toISOString(),

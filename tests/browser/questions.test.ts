@@ -29,7 +29,10 @@ afterAll(async () => {
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `questions-${name}.png`), fullPage: true });
 /** One card of the spec page, by its heading. */
 const card = (page: Page, heading: string, name: string) =>
-  page.locator("section").filter({ has: page.getByRole("heading", { name: heading, exact: true }) }).screenshot({ path: path.join(SCREENSHOTS, `questions-${name}.png`) });
+  page
+    .locator("section")
+    .filter({ has: page.getByRole("heading", { name: heading, exact: true }) })
+    .screenshot({ path: path.join(SCREENSHOTS, `questions-${name}.png`) });
 const toast = (page: Page) => page.getByRole("status").filter({ hasText: /Question sent|Answer published/ });
 
 describe("questions on a spec", () => {

@@ -19,8 +19,20 @@ afterAll(async () => {
 const ROLES = [
   { role: "buyer", email: "priya@kestrel-forming.test", path: "/specs", heading: "My specs", nav: ["My specs", "Jobs", "Payments", "Team", "Quick sizing"] },
   { role: "shop", email: "aled@ironbridge-fluid.test", path: "/open-specs", heading: "Open specs", nav: ["Open specs", "Jobs", "Team", "Quick sizing"] },
-  { role: "account manager", email: "nadia@tenderflow.test", path: "/jobs", heading: "Job dashboard", nav: ["Job dashboard", "Payments", "My accounts", "Quick sizing"] },
-  { role: "admin", email: "felix@tenderflow.test", path: "/admin/users", heading: "Users", nav: ["Users", "Organisations", "Mail", "Jobs", "Payments", "Operator team", "Quick sizing"] },
+  {
+    role: "account manager",
+    email: "nadia@tenderflow.test",
+    path: "/jobs",
+    heading: "Job dashboard",
+    nav: ["Job dashboard", "Payments", "My accounts", "Quick sizing"],
+  },
+  {
+    role: "admin",
+    email: "felix@tenderflow.test",
+    path: "/admin/users",
+    heading: "Users",
+    nav: ["Users", "Organisations", "Mail", "Jobs", "Payments", "Operator team", "Quick sizing"],
+  },
 ];
 
 describe("each demo role signs in and sees its home", () => {

@@ -96,7 +96,10 @@ describe("spec intake", () => {
     await page.getByLabel("Cycles per hour").fill("12");
     await page.getByLabel("Hours of work per day").fill("8");
     await page.getByLabel("Time the load is held at rest").fill("20");
-    await page.getByLabel("60 Hz").check().catch(async () => page.getByLabel("Mains frequency").selectOption("60"));
+    await page
+      .getByLabel("60 Hz")
+      .check()
+      .catch(async () => page.getByLabel("Mains frequency").selectOption("60"));
     await page.getByLabel("Mains voltage").selectOption("480 V three-phase");
     await shot(page, "3-duty");
     await next(page, "quotation");
@@ -144,7 +147,14 @@ describe("spec intake", () => {
     const spec = await Spec.findOne({ where: { title: "Scissor lift, main cylinder" }, rejectOnEmpty: true });
     expect(spec.status).toBe("open");
     const revision = await SpecRevision.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
-    const requirements = revision.axes[0].requirements as { strokeMm: number; massKg: number; supplyHz: number; holdMinutes: number; decelTimeS: number; mountingStyle: string };
+    const requirements = revision.axes[0].requirements as {
+      strokeMm: number;
+      massKg: number;
+      supplyHz: number;
+      holdMinutes: number;
+      decelTimeS: number;
+      mountingStyle: string;
+    };
     expect(requirements).toMatchObject({ holdMinutes: 20, decelTimeS: 0.5, mountingStyle: "trunnion" });
     expect(requirements.strokeMm).toBeCloseTo(762, 0); // 30 in × 25.4 mm/in
     expect(requirements.massKg).toBeCloseTo(4082, 0); // 9000 lb × 0.45359237 kg/lb

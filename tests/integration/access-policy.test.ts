@@ -214,7 +214,12 @@ describe("loading inside a scope", () => {
 describe("services refuse the wrong person themselves", () => {
   const id = (name: string) => records[name]!.id;
   const COMMANDS: [string, Person, 403 | 404, () => Promise<unknown>][] = [
-    ["saveStep: another buyer", "other buyer", 404, () => saveStep(people["other buyer"], id("draft-spec"), { step: "machine", answers: { title: "Taken over" }, complete: false })],
+    [
+      "saveStep: another buyer",
+      "other buyer",
+      404,
+      () => saveStep(people["other buyer"], id("draft-spec"), { step: "machine", answers: { title: "Taken over" }, complete: false }),
+    ],
     ["publish: a shop", "shop", 404, () => publish(people.shop, id("published-spec"), { cautionsRead: true })],
     ["startRevision: the account's manager", "manager", 404, () => startRevision(people.manager, id("published-spec"))],
     ["deleteDraft: another buyer", "other buyer", 404, () => deleteDraft(people["other buyer"], id("draft-spec"))],
@@ -232,7 +237,12 @@ describe("services refuse the wrong person themselves", () => {
     ["requestRefund: the buyer", "buyer", 403, () => requestRefund(people.buyer, id("payment"), { reason: "Mine" })],
     ["requestRefund: another account's manager", "other mgr", 404, () => requestRefund(people["other mgr"], id("payment"), { reason: "Not mine" })],
     ["decideShop: an account manager", "manager", 403, () => decideShop(people.manager, id("pending-shop"), { decision: "approve" })],
-    ["assignAccountManager: an account manager", "manager", 403, () => assignAccountManager(people.manager, id("buyer-account"), { managerId: people.manager.id })],
+    [
+      "assignAccountManager: an account manager",
+      "manager",
+      403,
+      () => assignAccountManager(people.manager, id("buyer-account"), { managerId: people.manager.id }),
+    ],
     ["changeRole: an account manager", "manager", 403, () => changeRole(people.manager, people.manager.id, "admin")],
     ["setActive: a buyer", "buyer", 403, () => setActive(people.buyer, people["other buyer"].id, false)],
     ["sendAgain: an account manager", "manager", 403, () => sendAgain(people.manager, id("job"))],

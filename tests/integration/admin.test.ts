@@ -65,7 +65,13 @@ describe("admin: users", () => {
     expect(promote.status).toBe(302);
     expect((await manager.reload()).role).toBe("admin");
     const buyer = await makeMember("buyer");
-    const refused = await visitor.post(adminUsers.action, "/admin/users", { intent: "change-role", userId: buyer.id, role: "admin", confirm: "yes", currentPassword: PASSWORD });
+    const refused = await visitor.post(adminUsers.action, "/admin/users", {
+      intent: "change-role",
+      userId: buyer.id,
+      role: "admin",
+      confirm: "yes",
+      currentPassword: PASSWORD,
+    });
     expect(refused.status).toBe(400);
     expect(refused.data.confirm).toBeUndefined();
     expect((await buyer.reload()).role).toBe("buyer");

@@ -5,12 +5,30 @@ import * as machines from "~/routes/api.v1.machines.sizing";
 import { call, serverContext } from "../support/routes";
 
 const CLAMP = {
-  name: "Clamp", orientation: "vertical", rodDirection: "down", massKg: 50, processForceN: 20_000,
-  strokeMm: 100, extendSpeedMmS: 50, retractSpeedMmS: 80, mounting: "fixed-pinned", dwellS: 5,
+  name: "Clamp",
+  orientation: "vertical",
+  rodDirection: "down",
+  massKg: 50,
+  processForceN: 20_000,
+  strokeMm: 100,
+  extendSpeedMmS: 50,
+  retractSpeedMmS: 80,
+  mounting: "fixed-pinned",
+  dwellS: 5,
 };
 const PRESS = {
-  name: "Press", orientation: "vertical", rodDirection: "down", massKg: 400, processForceN: 150_000, strokeMm: 300,
-  extendSpeedMmS: 100, retractSpeedMmS: 120, pressStrokeMm: 20, pressSpeedMmS: 10, dwellS: 2, mounting: "fixed-pinned",
+  name: "Press",
+  orientation: "vertical",
+  rodDirection: "down",
+  massKg: 400,
+  processForceN: 150_000,
+  strokeMm: 300,
+  extendSpeedMmS: 100,
+  retractSpeedMmS: 120,
+  pressStrokeMm: 20,
+  pressSpeedMmS: 10,
+  dwellS: 2,
+  mounting: "fixed-pinned",
 };
 const GOOD = { axes: [CLAMP, PRESS], cyclesPerHour: 60, hoursPerDay: 16, supplyHz: 50, maxPressureBar: 200 };
 
@@ -18,7 +36,9 @@ let client = 0;
 /** Each request from its own address, so the sizing allowance per client never decides a test. */
 function post(body: unknown) {
   const request = new Request("http://127.0.0.1:3000/api/v1/machines/sizing", {
-    method: "POST", headers: { "Content-Type": "application/json" }, body: typeof body === "string" ? body : JSON.stringify(body),
+    method: "POST",
+    headers: { "Content-Type": "application/json" },
+    body: typeof body === "string" ? body : JSON.stringify(body),
   });
   client += 1;
   return call(machines.action, request, {}, serverContext(`10.14.${Math.floor(client / 250)}.${client % 250}`));
@@ -42,7 +62,19 @@ describe("POST /api/v1/machines/sizing", () => {
     ["a bad axis field", { ...GOOD, axes: [CLAMP, { ...PRESS, strokeMm: 0 }] }, "axes.1.strokeMm"],
     ["an axis without its name", { ...GOOD, axes: [CLAMP, (({ name: _, ...rest }) => rest)(PRESS)] }, "axes.1.name"],
     ["two axes of one name", { ...GOOD, axes: [CLAMP, { ...PRESS, name: "Clamp" }] }, "axes.1.name"],
-    ["a step naming no axis", { ...GOOD, sequence: [[{ axis: "Clamp", motion: "extend" }, { axis: "Ram", motion: "extend" }]] }, "sequence.0.1.axis"],
+    [
+      "a step naming no axis",
+      {
+        ...GOOD,
+        sequence: [
+          [
+            { axis: "Clamp", motion: "extend" },
+            { axis: "Ram", motion: "extend" },
+          ],
+        ],
+      },
+      "sequence.0.1.axis",
+    ],
     ["an unknown motion", { ...GOOD, sequence: [[{ axis: "Clamp", motion: "wiggle" }]] }, "sequence.0.0.motion"],
     ["duty given on an axis", { ...GOOD, axes: [{ ...CLAMP, cyclesPerHour: 10 }, PRESS] }, "axes.0.cyclesPerHour"],
     ["a bad machine duty", { ...GOOD, hoursPerDay: 25 }, "hoursPerDay"],

@@ -19,7 +19,14 @@ const pdf = (name = "layout.pdf") => new File([PDF_BYTES], name, { type: "applic
 const png = (name = "photo.png") => new File([PNG_BYTES], name, { type: "image/png" });
 
 async function draftOf(buyer: User) {
-  return Spec.create({ organisationId: buyer.organisationId, createdById: buyer.id, bidDeadline: null, retainerPercent: null, deliveryRegion: null, publishedAt: null });
+  return Spec.create({
+    organisationId: buyer.organisationId,
+    createdById: buyer.id,
+    bidDeadline: null,
+    retainerPercent: null,
+    deliveryRegion: null,
+    publishedAt: null,
+  });
 }
 
 const uploadForm = (...files: File[]) => {
@@ -56,7 +63,10 @@ async function downloadedBytes(visitor: Visitor, specId: string, attachmentId: s
 /** Every file under UPLOAD_DIR, so a test can tell that nothing was left behind. */
 async function storedFiles(): Promise<string[]> {
   const entries = await readdir(UPLOAD_DIR, { recursive: true, withFileTypes: true }).catch(() => []);
-  return entries.filter((e) => e.isFile()).map((e) => path.join(e.parentPath, e.name)).sort();
+  return entries
+    .filter((e) => e.isFile())
+    .map((e) => path.join(e.parentPath, e.name))
+    .sort();
 }
 
 describe("uploading drawings and photos to a draft", () => {
@@ -170,9 +180,17 @@ describe("refused uploads store nothing", () => {
   it("asks for a file when none was chosen", async () => {
     // The exact body a browser sends for a file input left empty (Node's FormData omits filename="").
     const body = [
-      "--edge", 'Content-Disposition: form-data; name="intent"', "", "upload",
-      "--edge", 'Content-Disposition: form-data; name="files"; filename=""', "Content-Type: application/octet-stream", "", "",
-      "--edge--", "",
+      "--edge",
+      'Content-Disposition: form-data; name="intent"',
+      "",
+      "upload",
+      "--edge",
+      'Content-Disposition: form-data; name="files"; filename=""',
+      "Content-Type: application/octet-stream",
+      "",
+      "",
+      "--edge--",
+      "",
     ].join("\r\n");
     const filesBefore = await storedFiles();
     const request = visitor.request(`/specs/${spec.id}/attachments`, {
@@ -240,9 +258,7 @@ describe("who may change and read a spec's files", () => {
     expect(res.headers.get("Content-Type")).toBe("image/png");
     expect(res.headers.get("Content-Length")).toBe(String(PNG_BYTES.length));
     expect(res.headers.get("X-Content-Type-Options")).toBe("nosniff");
-    expect(res.headers.get("Content-Disposition")).toBe(
-      `attachment; filename="rig _ _63 bore.png"; filename*=UTF-8''rig%20%E2%80%93%20%C3%9863%20bore.png`,
-    );
+    expect(res.headers.get("Content-Disposition")).toBe(`attachment; filename="rig _ _63 bore.png"; filename*=UTF-8''rig%20%E2%80%93%20%C3%9863%20bore.png`);
     expect(contentDisposition(`it's (v2)*.pdf`)).toBe(`attachment; filename="it's (v2)*.pdf"; filename*=UTF-8''it%27s%20%28v2%29%2A.pdf`);
   });
 
@@ -307,7 +323,7 @@ describe("deleting a draft's files", () => {
     expect(await SpecAttachment.count({ where: { specId: spec.id } })).toBe(0);
     const kept = await SpecAttachment.findOne({ where: { specId: other.id }, rejectOnEmpty: true });
     expect(await storedFiles()).toContain(path.join(UPLOAD_DIR, ...kept.storageKey.split("/")));
-    expect(await storedFiles()).toHaveLength((await SpecAttachment.count()));
+    expect(await storedFiles()).toHaveLength(await SpecAttachment.count());
   });
 });
 

@@ -233,8 +233,19 @@ describe("impossible dates and stale tabs", () => {
   it("refuses impossible dates on the spec form with the field's message, and stores nothing", async () => {
     const draft = `/specs/${ids.draftSpec}/edit/quotation`;
     const before = await db.query(`SELECT answers FROM specs WHERE id = '${ids.draftSpec}'`, { plain: true });
-    for (const [deadline, needed] of [["2099-13-45", "2099-12-01"], ["2099-02-30", "2099-12-01"]]) {
-      const body = new URLSearchParams({ intent: "next", unitsWanted: "1", bidDeadline: deadline, dateNeeded: needed, deliveryRegion: "Somewhere", currency: "EUR", retainerPercent: "10" });
+    for (const [deadline, needed] of [
+      ["2099-13-45", "2099-12-01"],
+      ["2099-02-30", "2099-12-01"],
+    ]) {
+      const body = new URLSearchParams({
+        intent: "next",
+        unitsWanted: "1",
+        bidDeadline: deadline,
+        dateNeeded: needed,
+        deliveryRegion: "Somewhere",
+        currency: "EUR",
+        retainerPercent: "10",
+      });
       const response = await buyer.form(draft, body.toString());
       expect(response.status).toBe(400);
       expect(await response.text()).toContain("Enter the last day shops can bid.");
@@ -261,7 +272,13 @@ describe("impossible dates and stale tabs", () => {
 
 describe("security headers", () => {
   it("every page carries a content security policy whose nonce is on every inline script", async () => {
-    const pages: [Client, string][] = [[new Client(), "/"], [new Client(), "/quick-sizing"], [new Client(), "/sign-in"], [buyer, "/specs"], [shop, "/open-specs"]];
+    const pages: [Client, string][] = [
+      [new Client(), "/"],
+      [new Client(), "/quick-sizing"],
+      [new Client(), "/sign-in"],
+      [buyer, "/specs"],
+      [shop, "/open-specs"],
+    ];
     for (const [client, path] of pages) {
       const response = await client.send(path);
       expect(response.status, path).toBe(200);
@@ -280,7 +297,9 @@ describe("security headers", () => {
   });
 
   it("a new nonce for every response, and headers on static files too", async () => {
-    const nonces = await Promise.all([1, 2].map(async () => /'nonce-([^']+)'/.exec((await new Client().send("/sign-in")).headers.get("Content-Security-Policy")!)![1]));
+    const nonces = await Promise.all(
+      [1, 2].map(async () => /'nonce-([^']+)'/.exec((await new Client().send("/sign-in")).headers.get("Content-Security-Policy")!)![1]),
+    );
     expect(nonces[0]).not.toBe(nonces[1]);
     const favicon = await fetch(`${app.baseUrl}/favicon.svg`);
     expect(favicon.headers.get("X-Content-Type-Options")).toBe("nosniff");

@@ -210,7 +210,12 @@ describe("password reset by e-mail", () => {
   });
 
   it("rejects two different new passwords", async () => {
-    const res = await new Visitor().post(reset.action, "/reset-password/x", { password: "a-brand-new-password", confirm: "something-else-entirely" }, { token: "x".repeat(43) });
+    const res = await new Visitor().post(
+      reset.action,
+      "/reset-password/x",
+      { password: "a-brand-new-password", confirm: "something-else-entirely" },
+      { token: "x".repeat(43) },
+    );
     expect(res.status).toBe(400);
     expect(res.data.error.confirm).toEqual(["The two passwords differ."]);
   });

@@ -96,7 +96,12 @@ describe("other organisations", () => {
     const res = await visitors.otherBuyer.get(bidsRoute.loader, `/specs/${otherSpec.id}/bids`, { specId: otherSpec.id });
     expect(res.data.comparison.columns).toEqual([]);
     const ours = await visitors.buyer.get(bidsRoute.loader, `/specs/${spec.id}/bids`, { specId: spec.id });
-    const attempt = await visitors.otherBuyer.post(bidsRoute.action, `/specs/${otherSpec.id}/bids`, { bidId: ours.data.comparison.columns[0].id, confirm: "on" }, { specId: otherSpec.id });
+    const attempt = await visitors.otherBuyer.post(
+      bidsRoute.action,
+      `/specs/${otherSpec.id}/bids`,
+      { bidId: ours.data.comparison.columns[0].id, confirm: "on" },
+      { specId: otherSpec.id },
+    );
     expect(attempt.status).toBe(409);
     expect(attempt.data.error).toMatch(/not on offer/);
   });

@@ -42,7 +42,10 @@ describe("a shop's bid", () => {
     const visitor = await signedIn(shop);
 
     // A draft may leave lines unpriced; nothing is offered yet.
-    const draft = await post(visitor, spec.id, { intent: "save", ...bidFields(bom, (_, i) => (i === 0 ? "1000" : null), { leadTimeWeeks: "", validUntil: "" }) });
+    const draft = await post(visitor, spec.id, {
+      intent: "save",
+      ...bidFields(bom, (_, i) => (i === 0 ? "1000" : null), { leadTimeWeeks: "", validUntil: "" }),
+    });
     expect(draft.status).toBe(302);
     const bid = await Bid.findOne({ where: { specId: spec.id, organisationId: shop.organisationId }, rejectOnEmpty: true });
     expect(bid.status).toBe("draft");
@@ -78,7 +81,10 @@ describe("a shop's bid", () => {
     expect(mail.text).toContain(`/specs/${spec.id}/bids`);
 
     // Revising: a second submission is version 2; version 1 stays in the history.
-    const revised = await post(visitor, spec.id, { intent: "submit", ...bidFields(bom, (l, i) => (i === 0 ? "999.99" : prices(l, i)), { leadTimeWeeks: "10" }) });
+    const revised = await post(visitor, spec.id, {
+      intent: "submit",
+      ...bidFields(bom, (l, i) => (i === 0 ? "999.99" : prices(l, i)), { leadTimeWeeks: "10" }),
+    });
     expect(revised.status).toBe(302);
     await bid.reload();
     expect(bid.version).toBe(2);
@@ -109,7 +115,11 @@ describe("a shop's bid", () => {
   it("refuses bad prices and alternatives without a description, keeping what was saved", async () => {
     const { spec, bom } = await setting();
     const visitor = await signedIn(await makeMember("shop"));
-    const bad = await post(visitor, spec.id, { intent: "submit", ...bidFields(bom, (_, i) => (i === 0 ? "12,50" : i === 1 ? "-5" : "10")), "lines[2].alternative": "on" });
+    const bad = await post(visitor, spec.id, {
+      intent: "submit",
+      ...bidFields(bom, (_, i) => (i === 0 ? "12,50" : i === 1 ? "-5" : "10")),
+      "lines[2].alternative": "on",
+    });
     expect(bad.status).toBe(400);
     const errors = bad.data.result.error;
     expect(errors["lines[0].unitPrice"][0]).toBe("Use a point for decimals: 12.50.");
@@ -159,10 +169,16 @@ describe("a shop's bid", () => {
 describe("comparison", () => {
   it("puts offers side by side, marks the lowest per line, the cheapest complete offer and older revisions", async () => {
     const { buyer, spec, bom } = await setting();
-    const [a, b, c] = [await makeMember("shop", { organisationName: "Alder Hydraulics" }), await makeMember("shop", { organisationName: "Birch Fluid Power" }), await makeMember("shop", { organisationName: "Cedar Drives" })];
+    const [a, b, c] = [
+      await makeMember("shop", { organisationName: "Alder Hydraulics" }),
+      await makeMember("shop", { organisationName: "Birch Fluid Power" }),
+      await makeMember("shop", { organisationName: "Cedar Drives" }),
+    ];
     // A is cheaper on line 0, B on every other line; B is cheaper overall.
     expect((await post(await signedIn(a), spec.id, { intent: "submit", ...bidFields(bom, (_, i) => (i === 0 ? "100" : "300")) })).status).toBe(302);
-    expect((await post(await signedIn(b), spec.id, { intent: "submit", ...bidFields(bom, (_, i) => (i === 0 ? "500" : "200"), { leadTimeWeeks: "8" }) })).status).toBe(302);
+    expect(
+      (await post(await signedIn(b), spec.id, { intent: "submit", ...bidFields(bom, (_, i) => (i === 0 ? "500" : "200"), { leadTimeWeeks: "8" }) })).status,
+    ).toBe(302);
     // C only saves a draft: the buyer never sees drafts.
     expect((await post(await signedIn(c), spec.id, { intent: "save", ...bidFields(bom, () => "1") })).status).toBe(302);
 
@@ -201,7 +217,8 @@ describe("award", () => {
     }
     const bids = await Bid.findAll({ where: { specId: spec.id }, order: [["totalCents", "ASC"]] });
     const [first, second] = [await signedIn(buyer), await signedIn(buyer)];
-    const award = (visitor: Visitor, bid: Bid) => visitor.post(bidsRoute.action, `/specs/${spec.id}/bids`, { bidId: bid.id, confirm: "on" }, { specId: spec.id });
+    const award = (visitor: Visitor, bid: Bid) =>
+      visitor.post(bidsRoute.action, `/specs/${spec.id}/bids`, { bidId: bid.id, confirm: "on" }, { specId: spec.id });
 
     // Unconfirmed awards change nothing.
     expect((await first.post(bidsRoute.action, `/specs/${spec.id}/bids`, { bidId: bids[0].id }, { specId: spec.id })).status).toBe(400);
@@ -254,7 +271,9 @@ describe("200 shops bidding at once", () => {
     const shops: User[] = [];
     for (let i = 0; i < 200; i++) {
       const org = await Organisation.create({ name: `Load shop ${i}`, kind: "shop", region: null, accountManagerId: null, approval: "approved" });
-      shops.push(await User.create({ organisationId: org.id, email: uniqueEmail(`load${i}`), name: `Shop person ${i}`, passwordHash, role: "shop", lastSignInAt: null }));
+      shops.push(
+        await User.create({ organisationId: org.id, email: uniqueEmail(`load${i}`), name: `Shop person ${i}`, passwordHash, role: "shop", lastSignInAt: null }),
+      );
     }
     const input = (i: number) => ({
       intent: "submit" as const,

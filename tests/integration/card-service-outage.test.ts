@@ -39,7 +39,12 @@ beforeAll(async () => {
 async function awardedJob(): Promise<Job> {
   const spec = await makePublishedSpec(buyer);
   const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec.id, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
+  const bid = await saveBid(shop, spec.id, {
+    intent: "submit",
+    lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })),
+    leadTimeWeeks: 10,
+    validUntil: inDays(40),
+  });
   return awardBid(buyer, spec.id, { bidId: bid.id });
 }
 
@@ -63,7 +68,9 @@ function intercept(path: string, answer: () => Promise<Response> | Response) {
 describe("the card service fails while the buyer clicks pay", () => {
   it("answers 500: the buyer is sent back to the job with a clear message, and the next click pays", async () => {
     const job = await awardedJob();
-    const seen = intercept("/v1/customers", () => HttpResponse.json({ error: { type: "api_error", message: "Something went wrong on the card service." } }, { status: 500 }));
+    const seen = intercept("/v1/customers", () =>
+      HttpResponse.json({ error: { type: "api_error", message: "Something went wrong on the card service." } }, { status: 500 }),
+    );
     expectConsoleError(/Stripe refused a retainer session: Something went wrong/);
 
     const failed = await clickPay(job);
@@ -115,7 +122,11 @@ describe("the card service fails while the buyer clicks pay", () => {
     expect(first.location!.startsWith(process.env.STRIPE_API_URL!)).toBe(true);
     const sessionId = (await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true })).checkoutSessionId!;
 
-    cardService.use(http.get(`${STRIPE}/v1/checkout/sessions/${sessionId}`, () => HttpResponse.json({ error: { type: "api_error", message: "Lookup failed." } }, { status: 500 })));
+    cardService.use(
+      http.get(`${STRIPE}/v1/checkout/sessions/${sessionId}`, () =>
+        HttpResponse.json({ error: { type: "api_error", message: "Lookup failed." } }, { status: 500 }),
+      ),
+    );
     expectConsoleError(/Stripe refused a retainer session: Lookup failed/);
     const failed = await clickPay(job);
     expect(failed.location).toBe(`/jobs/${job.id}`);

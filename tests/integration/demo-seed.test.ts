@@ -29,7 +29,10 @@ describe("the demo scenario", () => {
       const spec = (bid as Bid & { spec: Spec }).spec;
       const bom = await bomOf(spec);
       expect(bid.lines.map((l) => l.key)).toEqual(bom.map((l) => l.key));
-      const totals = bidTotals(bid.lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })), spec.unitsWanted ?? 1);
+      const totals = bidTotals(
+        bid.lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })),
+        spec.unitsWanted ?? 1,
+      );
       expect([bid.setTotalCents, bid.totalCents]).toEqual([totals.setTotalCents, totals.totalCents]);
     }
     for (const job of await Job.findAll({ include: [{ model: Bid, as: "bid" }] })) {
@@ -73,7 +76,9 @@ describe("the demo scenario", () => {
   it("lists the lift table's paid retainer among Nadia's payments, matching its job", async () => {
     const visitor = await signedInDemo("nadia@tenderflow.test");
     const res = await visitor.get(paymentsRoute.loader, "/payments");
-    expect(res.data.payments.map((p: { specTitle: string; status: string }) => [p.specTitle, p.status])).toEqual([["Scissor lift table, main cylinder", "paid"]]);
+    expect(res.data.payments.map((p: { specTitle: string; status: string }) => [p.specTitle, p.status])).toEqual([
+      ["Scissor lift table, main cylinder", "paid"],
+    ]);
     const job = await Job.findByPk(res.data.payments[0].jobId, { rejectOnEmpty: true });
     expect(job.retainerPaidAt).not.toBeNull();
     expect(res.data.payments[0].amountCents).toBe(job.retainerCents);

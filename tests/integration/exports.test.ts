@@ -44,7 +44,13 @@ let firstBom: BomLine[];
 let bom: BomLine[];
 let design: Design;
 
-async function offer(visitor: Visitor, lines: BomLine[], price: (i: number) => string, alternative: { line: number; description: string }, extra: Record<string, string>) {
+async function offer(
+  visitor: Visitor,
+  lines: BomLine[],
+  price: (i: number) => string,
+  alternative: { line: number; description: string },
+  extra: Record<string, string>,
+) {
   const fields: Record<string, string> = { intent: "submit", validUntil: inDays(60), ...extra };
   lines.forEach((line, i) => {
     fields[`lines[${i}].key`] = line.key;
@@ -74,7 +80,13 @@ beforeAll(async () => {
 
   spec = await makePublishedSpec(people.buyer, { machine: { title: TITLE }, quotation: { retainerPercent: "12.5" } });
   firstBom = await bomOf(spec);
-  await offer(visitors.loser, firstBom, (i) => String(200 + 10 * i), { line: 1, description: "Motor from stock, one frame size up" }, { leadTimeWeeks: "8", terms: "Delivered, 14 days net" });
+  await offer(
+    visitors.loser,
+    firstBom,
+    (i) => String(200 + 10 * i),
+    { line: 1, description: "Motor from stock, one frame size up" },
+    { leadTimeWeeks: "8", terms: "Delivered, 14 days net" },
+  );
 
   // Revision 2 turns the ram horizontal: no load to hold, so the counterbalance valve goes.
   await startRevision(people.buyer, spec.id);
@@ -82,7 +94,13 @@ beforeAll(async () => {
   spec = await publish(people.buyer, spec.id, { cautionsRead: true });
   bom = await bomOf(spec);
   design = (await SpecRevision.findOne({ where: { specId: spec.id, number: 2 }, rejectOnEmpty: true })).axes[0].design as Design;
-  await offer(visitors.winner, bom, (i) => (i === 0 ? "1,234.55" : String(20 + 5 * i)), { line: 3, description: "Welded tank, 160 L, powder-coated" }, { leadTimeWeeks: "12", terms: "Ex works, 30 days net" });
+  await offer(
+    visitors.winner,
+    bom,
+    (i) => (i === 0 ? "1,234.55" : String(20 + 5 * i)),
+    { line: 3, description: "Welded tank, 160 L, powder-coated" },
+    { leadTimeWeeks: "12", terms: "Ex works, 30 days net" },
+  );
 
   const winningBid = await Bid.findOne({ where: { specId: spec.id, organisationId: people.winner.organisationId }, rejectOnEmpty: true });
   const award = await visitors.buyer.post(bidsRoute.action, `/specs/${spec.id}/bids`, { bidId: winningBid.id, confirm: "on" }, { specId: spec.id });
@@ -190,7 +208,9 @@ describe("bill of materials", () => {
       const r = head + 1 + i;
       expect(rowValues(sheet, r, 7)).toEqual([line.key, line.item, line.quantity, line.specification, line.rating.value, line.rating.unit, line.rating.label]);
       expect(sheet.getCell(r, 3).numFmt).toBe("0");
-      expect(sheet.getCell(r, 5).numFmt).toBe(Number.isInteger(line.rating.value) ? "#,##0" : line.rating.value >= 100 ? "#,##0.0" : line.rating.value >= 1 ? "#,##0.0#" : "0.0###");
+      expect(sheet.getCell(r, 5).numFmt).toBe(
+        Number.isInteger(line.rating.value) ? "#,##0" : line.rating.value >= 100 ? "#,##0.0" : line.rating.value >= 1 ? "#,##0.0#" : "0.0###",
+      );
     });
     expect(sheet.getCell(head + 1 + bom.length, 1).value).toBeNull();
     expectSensibleWidths(sheet, 7);
@@ -250,8 +270,24 @@ describe("bill of materials", () => {
     // 800 kg = 1763.7 lb; 500 mm = 19.685 in; 160 bar = 2320.6 psi; 25 °C = 77 °F.
     expect(rowValues(theirs, rowOf(theirs, "Moving mass"), 7)).toEqual(["Moving mass", 800, "kg", 800, "kg", 1764, "lb"]);
     expect(rowValues(theirs, rowOf(theirs, "Stroke"), 7)).toEqual(["Stroke", 500, "mm", 500, "mm", 19.69, "in"]);
-    expect(rowValues(theirs, rowOf(theirs, "Highest working pressure you accept"), 7)).toEqual(["Highest working pressure you accept", 160, "bar", 160, "bar", 2321, "psi"]);
-    expect(rowValues(theirs, rowOf(theirs, "Air temperature around the power unit"), 7)).toEqual(["Air temperature around the power unit", 25, "°C", 25, "°C", 77, "°F"]);
+    expect(rowValues(theirs, rowOf(theirs, "Highest working pressure you accept"), 7)).toEqual([
+      "Highest working pressure you accept",
+      160,
+      "bar",
+      160,
+      "bar",
+      2321,
+      "psi",
+    ]);
+    expect(rowValues(theirs, rowOf(theirs, "Air temperature around the power unit"), 7)).toEqual([
+      "Air temperature around the power unit",
+      25,
+      "°C",
+      25,
+      "°C",
+      77,
+      "°F",
+    ]);
   });
 
   it("carries the cautions and the engine's warnings", async () => {
@@ -403,14 +439,29 @@ describe("comparison of the offers", () => {
 
     const bids = await Bid.findAll({ where: { specId: spec.id }, order: [["totalCents", "ASC"]] });
     expect(bids).toHaveLength(2);
-    const shopNames = new Map([[people.winner.organisationId, "Alder Hydraulics"], [people.loser.organisationId, "Birch Fluid Power"]]);
+    const shopNames = new Map([
+      [people.winner.organisationId, "Alder Hydraulics"],
+      [people.loser.organisationId, "Birch Fluid Power"],
+    ]);
     const head = rowOf(sheet, "Line key");
     expectFrozenAt(sheet, head);
     expect(sheet.views[0]).toMatchObject({ xSplit: 2 });
     // Shop names over their three columns, in the order of their totals.
     const unitCol = (i: number) => 5 + 3 * i;
     bids.forEach((bid, i) => expect(sheet.getCell(head - 1, unitCol(i)).text).toBe(shopNames.get(bid.organisationId)));
-    expect(rowValues(sheet, head, 11)).toEqual(["Line key", "Item", "Qty", "Note", "Unit price", "Line total", "Alternative offered", "Unit price", "Line total", "Alternative offered", "Lowest line total"]);
+    expect(rowValues(sheet, head, 11)).toEqual([
+      "Line key",
+      "Item",
+      "Qty",
+      "Note",
+      "Unit price",
+      "Line total",
+      "Alternative offered",
+      "Unit price",
+      "Line total",
+      "Alternative offered",
+      "Lowest line total",
+    ]);
 
     const earlierOnly = firstBom.filter((l) => !bom.some((b) => b.key === l.key));
     expect(earlierOnly.length).toBeGreaterThan(0);
@@ -470,7 +521,18 @@ describe("comparison of the offers", () => {
 
     const offers = workbook.getWorksheet("Offers")!;
     const oh = rowOf(offers, "Shop");
-    expect(rowValues(offers, oh, 10)).toEqual(["Shop", "Status", "Revision priced", "Set total", "Units", "Offer total", "Lead time (weeks)", "Valid until", "Terms", "Notes"]);
+    expect(rowValues(offers, oh, 10)).toEqual([
+      "Shop",
+      "Status",
+      "Revision priced",
+      "Set total",
+      "Units",
+      "Offer total",
+      "Lead time (weeks)",
+      "Valid until",
+      "Terms",
+      "Notes",
+    ]);
     bids.forEach((bid, i) => {
       const r = oh + 1 + i;
       expect(offers.getCell(r, 1).text).toBe(shopNames.get(bid.organisationId));
@@ -492,12 +554,30 @@ describe("who may download what", () => {
     expected: Record<Person, number>;
   }
   const routes: ExportRoute[] = [
-    { name: "bill of materials", loader: billXlsx.loader, path: () => `/specs/${spec.id}/bill.xlsx`, params: () => ({ specId: spec.id }), key: "specId",
-      expected: { buyer: 200, otherBuyer: 404, winner: 200, loser: 200, bystander: 200, manager: 200, otherManager: 404, admin: 200 } },
-    { name: "priced bill", loader: pricedXlsx.loader, path: () => `/jobs/${job.id}/priced-bill.xlsx`, params: () => ({ jobId: job.id }), key: "jobId",
-      expected: { buyer: 200, otherBuyer: 404, winner: 200, loser: 404, bystander: 404, manager: 200, otherManager: 404, admin: 200 } },
-    { name: "comparison", loader: bidsXlsx.loader, path: () => `/specs/${spec.id}/bids.xlsx`, params: () => ({ specId: spec.id }), key: "specId",
-      expected: { buyer: 200, otherBuyer: 404, winner: 403, loser: 403, bystander: 403, manager: 403, otherManager: 403, admin: 403 } },
+    {
+      name: "bill of materials",
+      loader: billXlsx.loader,
+      path: () => `/specs/${spec.id}/bill.xlsx`,
+      params: () => ({ specId: spec.id }),
+      key: "specId",
+      expected: { buyer: 200, otherBuyer: 404, winner: 200, loser: 200, bystander: 200, manager: 200, otherManager: 404, admin: 200 },
+    },
+    {
+      name: "priced bill",
+      loader: pricedXlsx.loader,
+      path: () => `/jobs/${job.id}/priced-bill.xlsx`,
+      params: () => ({ jobId: job.id }),
+      key: "jobId",
+      expected: { buyer: 200, otherBuyer: 404, winner: 200, loser: 404, bystander: 404, manager: 200, otherManager: 404, admin: 200 },
+    },
+    {
+      name: "comparison",
+      loader: bidsXlsx.loader,
+      path: () => `/specs/${spec.id}/bids.xlsx`,
+      params: () => ({ specId: spec.id }),
+      key: "specId",
+      expected: { buyer: 200, otherBuyer: 404, winner: 403, loser: 403, bystander: 403, manager: 403, otherManager: 403, admin: 403 },
+    },
   ];
 
   describe.each(routes)("$name", ({ loader, path, params, key, expected }) => {
@@ -535,7 +615,10 @@ describe("who may download what", () => {
 const SOFFICE = ["soffice", "libreoffice"]
   .flatMap((name) => (process.env.PATH ?? "").split(delimiter).map((dir) => join(dir, name)))
   .find((path) => existsSync(path));
-if (!SOFFICE) console.warn("exports.test.ts: LibreOffice (soffice) is not installed, so the LibreOffice check is SKIPPED. Install it with: apt-get install libreoffice-calc-nogui");
+if (!SOFFICE)
+  console.warn(
+    "exports.test.ts: LibreOffice (soffice) is not installed, so the LibreOffice check is SKIPPED. Install it with: apt-get install libreoffice-calc-nogui",
+  );
 
 // A profile of our own: nothing shared with another soffice, and set to recalculate every
 // formula on load, so the figures in the CSV are LibreOffice's own arithmetic, not our results.
@@ -555,7 +638,9 @@ function recalculatingProfile() {
 
 describe("LibreOffice", () => {
   it.skipIf(!SOFFICE)(
-    SOFFICE ? "opens every workbook, recalculates it and converts each sheet to CSV with the server's figures" : "SKIPPED: LibreOffice (soffice) is not installed here",
+    SOFFICE
+      ? "opens every workbook, recalculates it and converts each sheet to CSV with the server's figures"
+      : "SKIPPED: LibreOffice (soffice) is not installed here",
     async () => {
       const dir = mkdtempSync(join(tmpdir(), "tenderflow-xlsx-"));
       const files = { bill: (await billOf("buyer")).bytes, priced: (await pricedOf("buyer")).bytes, comparison: (await comparisonOf()).bytes };
@@ -568,13 +653,35 @@ describe("LibreOffice", () => {
       const filter = "csv:Text - txt - csv (StarCalc):44,34,76,1,,0,false,true,true,false,false,-1";
       const { stdout, stderr } = await promisify(execFile)(
         SOFFICE!,
-        [`-env:UserInstallation=file://${profile}`, "--headless", "--convert-to", filter, "--outdir", dir, ...Object.keys(files).map((n) => join(dir, `${n}.xlsx`))],
+        [
+          `-env:UserInstallation=file://${profile}`,
+          "--headless",
+          "--convert-to",
+          filter,
+          "--outdir",
+          dir,
+          ...Object.keys(files).map((n) => join(dir, `${n}.xlsx`)),
+        ],
         { timeout: 120_000 },
       );
       expect(stderr).not.toMatch(/error|could not be loaded/i);
       const csv = (name: string) => parseCsv(readFileSync(join(dir, `${name}.csv`), "utf8"));
-      expect(readdirSync(dir).filter((f) => f.endsWith(".csv")).sort()).toEqual(
-        ["bill-Bill of materials", "bill-Cautions", "bill-Design values", "bill-Requirements", "comparison-Cautions", "comparison-Comparison", "comparison-Offers", "priced-Cautions", "priced-Priced bill"].map((n) => `${n}.csv`),
+      expect(
+        readdirSync(dir)
+          .filter((f) => f.endsWith(".csv"))
+          .sort(),
+      ).toEqual(
+        [
+          "bill-Bill of materials",
+          "bill-Cautions",
+          "bill-Design values",
+          "bill-Requirements",
+          "comparison-Cautions",
+          "comparison-Comparison",
+          "comparison-Offers",
+          "priced-Cautions",
+          "priced-Priced bill",
+        ].map((n) => `${n}.csv`),
       );
       expect(stdout).toContain("Writing sheet");
 

@@ -86,7 +86,11 @@ describe("default target dates", () => {
   it("dates only the retainer when the bid has no lead time", () => {
     const dates = targetDates("2026-12-28", null);
     expect(dates.retainer_received).toBe("2027-01-04");
-    expect(Object.entries(dates).filter(([, d]) => d === null).map(([k]) => k)).toEqual(MILESTONE_KEYS.slice(1));
+    expect(
+      Object.entries(dates)
+        .filter(([, d]) => d === null)
+        .map(([k]) => k),
+    ).toEqual(MILESTONE_KEYS.slice(1));
   });
 });
 
@@ -216,10 +220,20 @@ describe("progress recorded by the shop", () => {
     expect(typeof undone.detail.reachedAt).toBe("string");
 
     // Through the page: a reason is required, and a good request redirects back with a message.
-    const noReason = await shopVisitor.post(jobPage.action, `/jobs/${job.id}`, { intent: "undo", milestone: "drawings_agreed", reason: " " }, { jobId: job.id });
+    const noReason = await shopVisitor.post(
+      jobPage.action,
+      `/jobs/${job.id}`,
+      { intent: "undo", milestone: "drawings_agreed", reason: " " },
+      { jobId: job.id },
+    );
     expect(noReason.status).toBe(400);
     expect(noReason.data.result.error.reason).toEqual(["Say why the milestone is taken back."]);
-    const ok = await shopVisitor.post(jobPage.action, `/jobs/${job.id}`, { intent: "undo", milestone: "drawings_agreed", reason: "Customer reopened the drawings." }, { jobId: job.id });
+    const ok = await shopVisitor.post(
+      jobPage.action,
+      `/jobs/${job.id}`,
+      { intent: "undo", milestone: "drawings_agreed", reason: "Customer reopened the drawings." },
+      { jobId: job.id },
+    );
     expect(ok.status).toBe(302);
     expect(ok.location).toBe(`/jobs/${job.id}`);
     expect((await Job.findByPk(job.id, { rejectOnEmpty: true })).stage).toBeNull();
@@ -266,7 +280,11 @@ describe("progress recorded by the shop", () => {
     }
     // The plan stays in order: no target before the one ahead of it.
     const tested = await JobMilestone.findOne({ where: { jobId: job.id, key: "bench_tested" }, rejectOnEmpty: true });
-    await expectFieldError(changeTargetDate(shop, job.id, { milestone: "dispatched", targetDate: addDays(tested.targetDate!, -1), reason: "" }), "targetDate", /can't be planned before Bench-tested .* Move that one first/);
+    await expectFieldError(
+      changeTargetDate(shop, job.id, { milestone: "dispatched", targetDate: addDays(tested.targetDate!, -1), reason: "" }),
+      "targetDate",
+      /can't be planned before Bench-tested .* Move that one first/,
+    );
     await reachMilestones(shop, job.id, { milestone: "drawings_agreed", note: "" });
     await expectFieldError(changeTargetDate(shop, job.id, { milestone: "drawings_agreed", targetDate: newDate, reason: "" }), "milestone", /already reached/);
     await dispatched.reload();
@@ -304,7 +322,12 @@ describe("progress recorded by the shop", () => {
   it("e-mails buyer and shop when a milestone is reached", async () => {
     const stranger = await makeMember("buyer");
     const { job, spec } = await makeJob(buyer, shop, { title: "Tilting deck, main cylinders" });
-    const res = await shopVisitor.post(jobPage.action, `/jobs/${job.id}`, { intent: "reach", milestone: "in_build", note: "Manifold machined." }, { jobId: job.id });
+    const res = await shopVisitor.post(
+      jobPage.action,
+      `/jobs/${job.id}`,
+      { intent: "reach", milestone: "in_build", note: "Manifold machined." },
+      { jobId: job.id },
+    );
     expect(res.status).toBe(302);
     // The action hands mail to the sender; flush whatever is left (publish mails to every shop too).
     while ((await deliverDueMail(100)) > 0);
@@ -410,7 +433,13 @@ describe("the job dashboard", () => {
     expect(res.status).toBe(200);
     expect(ids(res)).toEqual([jobs.late, jobs.fresh, jobs.paid, jobs.older]);
     const late = res.data.jobs[0];
-    expect(late).toMatchObject({ overdue: true, daysSinceAward: 40, stage: "awaiting_retainer", buyerName: "Ostrava Stamping", shopName: "Peak Valley Power Units" });
+    expect(late).toMatchObject({
+      overdue: true,
+      daysSinceAward: 40,
+      stage: "awaiting_retainer",
+      buyerName: "Ostrava Stamping",
+      shopName: "Peak Valley Power Units",
+    });
     expect(late.next).toMatchObject({ key: "retainer_received", label: "Retainer received" });
     expect(late.totalCents).toBe(1_234_567);
     expect(late.retainerCents).toBe(246_913); // 12 345.67 × 20 % = 2 469.134

@@ -29,29 +29,33 @@ describe("where the project's cluster lives", () => {
   });
 
   // Only root runs PostgreSQL as another user (postgres); anyone else runs it as themselves.
-  it.runIf(isRoot)("moves to a folder of the project's own when the checkout sits in a closed home folder, and starts there", async () => {
-    const home = tempDir(0o700); // like /root on a fresh Debian machine
-    const preferred = path.join(home, "tenderflow", ".data", "postgres");
-    mkdirSync(path.dirname(preferred), { recursive: true });
-    const fallbackRoot = tempDir(0o755);
-    const first = clusterDirFor(preferred, fallbackRoot);
-    expect(first).toMatchObject({ moved: true, blocked: home });
-    expect(first.dir.startsWith(`${fallbackRoot}/tenderflow-`)).toBe(true);
-    // The same checkout always finds the same cluster; another checkout gets its own.
-    expect(clusterDirFor(preferred, fallbackRoot).dir).toBe(first.dir);
-    expect(clusterDirFor(path.join(home, "other", ".data", "postgres"), fallbackRoot).dir).not.toBe(first.dir);
+  it.runIf(isRoot)(
+    "moves to a folder of the project's own when the checkout sits in a closed home folder, and starts there",
+    async () => {
+      const home = tempDir(0o700); // like /root on a fresh Debian machine
+      const preferred = path.join(home, "tenderflow", ".data", "postgres");
+      mkdirSync(path.dirname(preferred), { recursive: true });
+      const fallbackRoot = tempDir(0o755);
+      const first = clusterDirFor(preferred, fallbackRoot);
+      expect(first).toMatchObject({ moved: true, blocked: home });
+      expect(first.dir.startsWith(`${fallbackRoot}/tenderflow-`)).toBe(true);
+      // The same checkout always finds the same cluster; another checkout gets its own.
+      expect(clusterDirFor(preferred, fallbackRoot).dir).toBe(first.dir);
+      expect(clusterDirFor(path.join(home, "other", ".data", "postgres"), fallbackRoot).dir).not.toBe(first.dir);
 
-    const cluster = startCluster({ dataDir: first.dir, port: await freePort(), ephemeral: true });
-    try {
-      const client = new pg.Client({ connectionString: cluster.url() });
-      await client.connect();
-      expect((await client.query("SELECT 1 AS one")).rows[0].one).toBe(1);
-      await client.end();
-    } finally {
-      stopCluster(cluster, "immediate");
-      removeCluster(cluster);
-    }
-  }, 60_000);
+      const cluster = startCluster({ dataDir: first.dir, port: await freePort(), ephemeral: true });
+      try {
+        const client = new pg.Client({ connectionString: cluster.url() });
+        await client.connect();
+        expect((await client.query("SELECT 1 AS one")).rows[0].one).toBe(1);
+        await client.end();
+      } finally {
+        stopCluster(cluster, "immediate");
+        removeCluster(cluster);
+      }
+    },
+    60_000,
+  );
 });
 
 describe("stopping the app's server", () => {

@@ -60,7 +60,15 @@ beforeAll(async () => {
   }
 
   // Not listed: a draft, a closed spec and an open one whose deadline has passed.
-  await Spec.create({ organisationId: buyer.organisationId, createdById: buyer.id, title: "Panel press, draft", bidDeadline: null, retainerPercent: null, deliveryRegion: null, publishedAt: null });
+  await Spec.create({
+    organisationId: buyer.organisationId,
+    createdById: buyer.id,
+    title: "Panel press, draft",
+    bidDeadline: null,
+    retainerPercent: null,
+    deliveryRegion: null,
+    publishedAt: null,
+  });
   const closed = await makePublishedSpec(buyer, { machine: { title: "Panel press, closed" } });
   await closed.update({ status: "closed" });
   const lapsed = await makePublishedSpec(buyer, { machine: { title: "Panel press, lapsed" } });
@@ -146,9 +154,28 @@ describe("the open-specs table", () => {
   });
 
   it("marks the specs the shop's own organisation has a bid on, and no other shop's", async () => {
-    await Bid.create({ specId: specs.lift.id, organisationId: shop.organisationId, createdById: shop.id, specRevision: 1, currency: "EUR", leadTimeWeeks: null, validUntil: null, submittedAt: null });
+    await Bid.create({
+      specId: specs.lift.id,
+      organisationId: shop.organisationId,
+      createdById: shop.id,
+      specRevision: 1,
+      currency: "EUR",
+      leadTimeWeeks: null,
+      validUntil: null,
+      submittedAt: null,
+    });
     const other = await makeMember("shop");
-    await Bid.create({ specId: specs.deck.id, organisationId: other.organisationId, createdById: other.id, specRevision: 1, currency: "SEK", status: "submitted", leadTimeWeeks: 6, validUntil: null, submittedAt: new Date() });
+    await Bid.create({
+      specId: specs.deck.id,
+      organisationId: other.organisationId,
+      createdById: other.id,
+      specRevision: 1,
+      currency: "SEK",
+      status: "submitted",
+      leadTimeWeeks: 6,
+      validUntil: null,
+      submittedAt: new Date(),
+    });
     const rows = (await metric.get(openSpecs.loader, "/open-specs")).data.specs as Row[];
     expect(Object.fromEntries(rows.map((r) => [r.title, r.ownBidStatus]))).toEqual({
       "Tilting deck for coil cars": null,

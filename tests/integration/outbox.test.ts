@@ -120,7 +120,10 @@ describe("the admin's mail page", () => {
     const failed = await enqueueMail({ to: "lost@example.test", subject: "Your offer was chosen", text: "Body with a secret link" });
     await failed.update({ status: "failed", attempts: MAX_ATTEMPTS, lastError: "connect ECONNREFUSED 127.0.0.1:1" });
     const waiting = await enqueueMail({ to: "slow@example.test", subject: "Spec revised", text: "Body" });
-    await OutboxMail.update({ createdAt: new Date(Date.now() - 3_600_000), attempts: 3, lastError: "Greeting never received" }, { where: { id: waiting.id }, silent: true });
+    await OutboxMail.update(
+      { createdAt: new Date(Date.now() - 3_600_000), attempts: 3, lastError: "Greeting never received" },
+      { where: { id: waiting.id }, silent: true },
+    );
     await enqueueMail({ to: "fresh@example.test", subject: "Just queued", text: "Body" });
 
     const visitor = await signedIn(admin);
@@ -128,7 +131,14 @@ describe("the admin's mail page", () => {
     expect(page.status).toBe(200);
     expect(page.data.counts).toEqual({ failed: 1, waiting: 1 });
     expect(page.data.mails).toEqual([
-      expect.objectContaining({ id: failed.id, to: "lost@example.test", subject: "Your offer was chosen", attempts: MAX_ATTEMPTS, lastError: "connect ECONNREFUSED 127.0.0.1:1", status: "failed" }),
+      expect.objectContaining({
+        id: failed.id,
+        to: "lost@example.test",
+        subject: "Your offer was chosen",
+        attempts: MAX_ATTEMPTS,
+        lastError: "connect ECONNREFUSED 127.0.0.1:1",
+        status: "failed",
+      }),
     ]);
     // The body (which may hold a sign-in link) is never shown.
     expect(JSON.stringify(page.data)).not.toContain("secret link");

@@ -61,7 +61,12 @@ afterAll(async () => {
 async function awardedJob() {
   const spec = await makePublishedSpec(buyer);
   const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec.id, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
+  const bid = await saveBid(shop, spec.id, {
+    intent: "submit",
+    lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })),
+    leadTimeWeeks: 10,
+    validUntil: inDays(40),
+  });
   return awardBid(buyer, spec.id, { bidId: bid.id });
 }
 
@@ -80,7 +85,10 @@ function deliverEventAbout(type: string, objectId: string) {
   const event = fake.events.find((e) => e.type === type && (e.data.object as { id: string }).id === objectId);
   if (!event) throw new Error(`No ${type} event for ${objectId}`);
   const payload = JSON.stringify(event);
-  const headers = new Headers({ "Content-Type": "application/json", "Stripe-Signature": stripe.webhooks.generateTestHeaderString({ payload, secret: SECRET }) });
+  const headers = new Headers({
+    "Content-Type": "application/json",
+    "Stripe-Signature": stripe.webhooks.generateTestHeaderString({ payload, secret: SECRET }),
+  });
   return call(webhook.action, new Request("http://127.0.0.1:3000/webhooks/stripe", { method: "POST", body: payload, headers }));
 }
 

@@ -20,10 +20,13 @@ import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } fro
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
-const stripe = new Stripe(process.env.STRIPE_SECRET_KEY!, (() => {
-  const url = new URL(process.env.STRIPE_API_URL!);
-  return { host: url.hostname, port: Number(url.port), protocol: "http" as const };
-})());
+const stripe = new Stripe(
+  process.env.STRIPE_SECRET_KEY!,
+  (() => {
+    const url = new URL(process.env.STRIPE_API_URL!);
+    return { host: url.hostname, port: Number(url.port), protocol: "http" as const };
+  })(),
+);
 const SECRET = process.env.STRIPE_WEBHOOK_SECRET!;
 
 let buyer: User;
@@ -35,7 +38,12 @@ let visitors: Record<"buyer" | "shop" | "manager", Visitor>;
 async function awardedJob() {
   const spec = await makePublishedSpec(buyer);
   const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec.id, { intent: "submit", lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })), leadTimeWeeks: 10, validUntil: inDays(40) });
+  const bid = await saveBid(shop, spec.id, {
+    intent: "submit",
+    lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })),
+    leadTimeWeeks: 10,
+    validUntil: inDays(40),
+  });
   return awardBid(buyer, spec.id, { bidId: bid.id });
 }
 
@@ -72,7 +80,11 @@ async function eventAbout(type: string, objectId: string, match: (o: Record<stri
 
 /** Submits the fake's hosted page with a card, as the buyer's browser would. */
 const payOnPage = (url: string, card: string) =>
-  fetch(url, { method: "POST", body: new URLSearchParams({ card_number: card, expiry: `12 / ${(new Date().getFullYear() + 3) % 100}`, cvc: "123" }), redirect: "manual" });
+  fetch(url, {
+    method: "POST",
+    body: new URLSearchParams({ card_number: card, expiry: `12 / ${(new Date().getFullYear() + 3) % 100}`, cvc: "123" }),
+    redirect: "manual",
+  });
 
 beforeAll(async () => {
   buyer = await makeMember("buyer");
@@ -114,7 +126,10 @@ describe("paying the retainer", () => {
     const completed = await eventAbout("checkout.session.completed", session.id);
     expect((await deliver(completed, "t=1,v1=deadbeef")).status).toBe(400);
     expect((await deliver(completed, null)).status).toBe(400);
-    expect((await deliver({ ...completed, id: "evt_forged" }, stripe.webhooks.generateTestHeaderString({ payload: JSON.stringify(completed), secret: SECRET }))).status).toBe(400);
+    expect(
+      (await deliver({ ...completed, id: "evt_forged" }, stripe.webhooks.generateTestHeaderString({ payload: JSON.stringify(completed), secret: SECRET })))
+        .status,
+    ).toBe(400);
     expect(await StripeEvent.count()).toBe(0);
     expect((await payment.reload()).status).toBe("pending");
 
@@ -155,7 +170,17 @@ describe("paying the retainer", () => {
   });
 
   it("logs an event for a session it doesn't know and carries on", async () => {
-    const event = { id: `evt_unknown_${Date.now()}`, object: "event", type: "checkout.session.completed", created: Math.floor(Date.now() / 1000), api_version: "2026-10-28.endive", livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null }, data: { object: { id: "cs_test_nobody", object: "checkout.session", payment_status: "paid", amount_total: 100, metadata: {} } } };
+    const event = {
+      id: `evt_unknown_${Date.now()}`,
+      object: "event",
+      type: "checkout.session.completed",
+      created: Math.floor(Date.now() / 1000),
+      api_version: "2026-10-28.endive",
+      livemode: false,
+      pending_webhooks: 1,
+      request: { id: null, idempotency_key: null },
+      data: { object: { id: "cs_test_nobody", object: "checkout.session", payment_status: "paid", amount_total: 100, metadata: {} } },
+    };
     const res = await deliver(event);
     expect(res.status).toBe(200);
     expect(res.data.outcome).toMatch(/no payment for session cs_test_nobody/);
@@ -265,7 +290,8 @@ describe("who may see and do what", () => {
     expect((await visitors.manager.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).status).toBe(403);
     const stranger = await signedIn(await makeMember("buyer"));
     expect((await stranger.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).status).toBe(404);
-    for (const id of ["00000000-0000-4000-8000-000000000000", "forged"]) expect((await visitors.buyer.post(pay.action, `/jobs/${id}/pay`, {}, { jobId: id })).status).toBe(404);
+    for (const id of ["00000000-0000-4000-8000-000000000000", "forged"])
+      expect((await visitors.buyer.post(pay.action, `/jobs/${id}/pay`, {}, { jobId: id })).status).toBe(404);
     expect((await new Visitor().post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).status).toBe(302);
 
     const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
@@ -296,7 +322,19 @@ describe("one live checkout per job", () => {
     expect(b.location).toBe(a.location);
     const open = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
     expect(await Payment.count({ where: { jobId: job.id } })).toBe(1);
-    const copy = { jobId: job.id, buyerOrganisationId: open.buyerOrganisationId, createdById: buyer.id, amountCents: open.amountCents, currency: open.currency, checkoutSessionId: null, checkoutUrl: null, paymentIntentId: null, customerId: null, failureMessage: null, paidAt: null };
+    const copy = {
+      jobId: job.id,
+      buyerOrganisationId: open.buyerOrganisationId,
+      createdById: buyer.id,
+      amountCents: open.amountCents,
+      currency: open.currency,
+      checkoutSessionId: null,
+      checkoutUrl: null,
+      paymentIntentId: null,
+      customerId: null,
+      failureMessage: null,
+      paidAt: null,
+    };
     await expect(Payment.create(copy)).rejects.toBeInstanceOf(UniqueConstraintError);
     await expect(Payment.create({ ...copy, status: "failed" })).rejects.toBeInstanceOf(UniqueConstraintError);
     // A closed attempt leaves room for the next one.
@@ -416,7 +454,17 @@ describe("webhook events that do not match the payment", () => {
   it("does not record a refund larger than the payment, in another currency, or without an amount", async () => {
     const { job, payment } = await paidJob();
     const [charge] = (await stripe.charges.list({ payment_intent: payment.paymentIntentId! })).data;
-    const refundEvent = { id: "", object: "event", type: "charge.refunded", created: Math.floor(Date.now() / 1000), api_version: "2026-10-28.endive", livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null }, data: { object: charge } } as unknown as Stripe.Event;
+    const refundEvent = {
+      id: "",
+      object: "event",
+      type: "charge.refunded",
+      created: Math.floor(Date.now() / 1000),
+      api_version: "2026-10-28.endive",
+      livemode: false,
+      pending_webhooks: 1,
+      request: { id: null, idempotency_key: null },
+      data: { object: charge },
+    } as unknown as Stripe.Event;
     const wrong: [string, Record<string, unknown>, RegExp][] = [
       ["oversized", { amount_refunded: payment.amountCents + 1, refunded: true }, /more than the \d+ paid/],
       ["other_currency", { amount_refunded: 100, currency: "eur" }, /currency eur/],

@@ -112,7 +112,16 @@ describe("a question from its asking to its answer", () => {
     expect(buyerPanel).toMatchObject({ canAsk: false, canAnswer: true, isBuyer: true });
 
     // Shop B has a bid (a draft is enough); shop C has none.
-    await Bid.create({ specId: spec.id, organisationId: shopB.organisationId, createdById: shopB.id, specRevision: 1, currency: "GBP", leadTimeWeeks: null, validUntil: null, submittedAt: null });
+    await Bid.create({
+      specId: spec.id,
+      organisationId: shopB.organisationId,
+      createdById: shopB.id,
+      specRevision: 1,
+      currency: "GBP",
+      leadTimeWeeks: null,
+      validUntil: null,
+      submittedAt: null,
+    });
     const shopBColleague = await colleagueOf(shopB);
 
     const reply = "Yes, up to 10 m; the pressure line may run along the mezzanine rail.";
@@ -232,7 +241,15 @@ describe("who may ask, answer and read", () => {
     const question = await SpecQuestion.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
     expect((await asking(v.buyer, spec.id, "Asking my own spec?")).status).toBe(403);
     expect((await answering(v.shopB, spec.id, question.id, "A shop answering.")).status).toBe(403);
-    const draft = await Spec.create({ organisationId: buyer.organisationId, createdById: buyer.id, title: "Unpublished press", bidDeadline: null, retainerPercent: null, deliveryRegion: null, publishedAt: null });
+    const draft = await Spec.create({
+      organisationId: buyer.organisationId,
+      createdById: buyer.id,
+      title: "Unpublished press",
+      bidDeadline: null,
+      retainerPercent: null,
+      deliveryRegion: null,
+      publishedAt: null,
+    });
     expect((await asking(v.shopA, draft.id, "Can I see this?")).status).toBe(404);
     expect(await SpecQuestion.count({ where: { specId: draft.id } })).toBe(0);
   });

@@ -57,7 +57,10 @@ describe("server-side sessions", () => {
   it("issues a new session id at sign-in, so an id planted earlier is worth nothing", async () => {
     const user = await makeMember("buyer");
     const first = await signedIn(user);
-    const again = await call(signIn.action, first.visitor.request("/sign-in", { method: "POST", body: new URLSearchParams({ email: user.email, password: PASSWORD }) }));
+    const again = await call(
+      signIn.action,
+      first.visitor.request("/sign-in", { method: "POST", body: new URLSearchParams({ email: user.email, password: PASSWORD }) }),
+    );
     const second = again.setCookie!.split(";")[0];
     expect(second).not.toBe(first.cookie);
     refused(await replay(first.cookie));

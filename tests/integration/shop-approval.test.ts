@@ -34,7 +34,11 @@ async function publishedWithDrawing(owner: User) {
   form.set("intent", "upload");
   form.append("files", new File([new TextEncoder().encode("%PDF-1.7\n%%EOF\n")], "layout.pdf", { type: "application/pdf" }));
   const visitor = await signedIn(owner);
-  const upload = await call(attachmentsRoute.action, visitor.request(`/specs/${draft.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }), { specId: draft.id });
+  const upload = await call(
+    attachmentsRoute.action,
+    visitor.request(`/specs/${draft.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }),
+    { specId: draft.id },
+  );
   expect(upload.status).toBeLessThan(400);
   for (const step of Object.keys(SPEC_ANSWERS) as (keyof typeof SPEC_ANSWERS)[]) {
     await saveStep(owner, draft.id, { step, answers: SPEC_ANSWERS[step] as Record<string, string>, complete: true });
@@ -123,7 +127,11 @@ describe("a shop that has just signed up", () => {
     expect(after.question).toBeLessThan(400);
     expect((await visitor.get(openSpecs.loader, "/open-specs")).data.approval.approval).toBe("approved");
     // Deciding twice changes nothing.
-    const twice = await adminVisitor.post(adminOrgs.action, "/admin/organisations", { intent: "refuse", organisationId: shop.organisationId, reason: "Changed my mind" });
+    const twice = await adminVisitor.post(adminOrgs.action, "/admin/organisations", {
+      intent: "refuse",
+      organisationId: shop.organisationId,
+      reason: "Changed my mind",
+    });
     expect(twice.status).toBe(400);
     expect((await organisation.reload()).approval).toBe("approved");
   });

@@ -32,11 +32,16 @@ beforeAll(async () => {
   // A draft with a drawing uploaded through the form, then published.
   published = await createDraft(buyer);
   const quotation = { ...SPEC_ANSWERS.quotation, dateNeeded: needed, notes: "Paint RAL 5015.\nAccess through a 2 m door." };
-  for (const [step, answers] of Object.entries({ ...SPEC_ANSWERS, quotation })) await saveStep(buyer, published.id, { step: step as keyof typeof SPEC_ANSWERS, answers, complete: true });
+  for (const [step, answers] of Object.entries({ ...SPEC_ANSWERS, quotation }))
+    await saveStep(buyer, published.id, { step: step as keyof typeof SPEC_ANSWERS, answers, complete: true });
   const form = new FormData();
   form.set("intent", "upload");
   form.append("files", new File([PDF_BYTES], "Lift frame.pdf", { type: "application/pdf" }));
-  const uploaded = await call(attachments.action, owner.request(`/specs/${published.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }), { specId: published.id });
+  const uploaded = await call(
+    attachments.action,
+    owner.request(`/specs/${published.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }),
+    { specId: published.id },
+  );
   expect(uploaded.status).toBe(200);
   attachmentId = uploaded.data.attachments[0].id;
   published = await publish(buyer, published.id, { cautionsRead: true });
@@ -60,7 +65,9 @@ describe("a published spec as a shop reads it", () => {
       retainerPercent: "20",
       notes: "Paint RAL 5015.\nAccess through a 2 m door.",
     });
-    expect(res.data.attachments).toMatchObject([{ id: attachmentId, fileName: "Lift frame.pdf", kindLabel: "PDF", downloadUrl: `/specs/${published.id}/attachments/${attachmentId}` }]);
+    expect(res.data.attachments).toMatchObject([
+      { id: attachmentId, fileName: "Lift frame.pdf", kindLabel: "PDF", downloadUrl: `/specs/${published.id}/attachments/${attachmentId}` },
+    ]);
     expect(res.data.back).toEqual({ to: "/open-specs", label: "Open specs" });
     const file = await fetchFile(shop, published.id, attachmentId);
     expect(file.status).toBe(200);

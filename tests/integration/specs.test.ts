@@ -19,10 +19,43 @@ import { ENGINE_KEYS_BY_STEP, FORM_STEPS } from "~/content/spec-steps";
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
 const ANSWERS = {
-  machine: { intent: "next", title: "Bending press, main ram", purpose: "Presses sheet over a die.", orientation: "vertical", rodDirection: "down", mounting: "pinned-pinned" },
-  motion: { intent: "next", massKg: "800", processForceN: "50000", frictionCoefficient: "0.1", strokeMm: "500", extendSpeedMmS: "100", retractSpeedMmS: "150", accelTimeS: "0.2" },
-  duty: { intent: "next", cyclesPerHour: "60", hoursPerDay: "16", ambientC: "25", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
-  quotation: { intent: "next", unitsWanted: "2", bidDeadline: inDays(21), dateNeeded: inDays(90), deliveryRegion: "UK — West Midlands", retainerPercent: "20", notes: "" },
+  machine: {
+    intent: "next",
+    title: "Bending press, main ram",
+    purpose: "Presses sheet over a die.",
+    orientation: "vertical",
+    rodDirection: "down",
+    mounting: "pinned-pinned",
+  },
+  motion: {
+    intent: "next",
+    massKg: "800",
+    processForceN: "50000",
+    frictionCoefficient: "0.1",
+    strokeMm: "500",
+    extendSpeedMmS: "100",
+    retractSpeedMmS: "150",
+    accelTimeS: "0.2",
+  },
+  duty: {
+    intent: "next",
+    cyclesPerHour: "60",
+    hoursPerDay: "16",
+    ambientC: "25",
+    supplyHz: "50",
+    maxPressureBar: "160",
+    supplyVoltage: "400 V three-phase",
+    fluid: "ISO VG 46",
+  },
+  quotation: {
+    intent: "next",
+    unitsWanted: "2",
+    bidDeadline: inDays(21),
+    dateNeeded: inDays(90),
+    deliveryRegion: "UK — West Midlands",
+    retainerPercent: "20",
+    notes: "",
+  },
 };
 
 async function newDraft(visitor: Visitor) {
@@ -129,7 +162,14 @@ describe("the spec form", () => {
     const visitor = await signedIn(buyer);
     const id = await newDraft(visitor);
     await stepPost(visitor, id, "machine", ANSWERS.machine);
-    await stepPost(visitor, id, "motion", { ...ANSWERS.motion, massKg: "1764", processForceN: "11240", strokeMm: "19.69", extendSpeedMmS: "3.94", retractSpeedMmS: "5.91" });
+    await stepPost(visitor, id, "motion", {
+      ...ANSWERS.motion,
+      massKg: "1764",
+      processForceN: "11240",
+      strokeMm: "19.69",
+      extendSpeedMmS: "3.94",
+      retractSpeedMmS: "5.91",
+    });
     await stepPost(visitor, id, "duty", { ...ANSWERS.duty, ambientC: "77", maxPressureBar: "2320" });
     const review = await visitor.get(step.loader, `/specs/${id}/edit/review`, { specId: id, step: "review" });
     const req = review.data.review.design.requirements;
@@ -239,7 +279,13 @@ describe("the axis questions of sizing contract 2", () => {
 
     const review = await visitor.get(step.loader, `/specs/${id}/edit/review`, { specId: id, step: "review" });
     expect(review.data.review.design.requirements).toMatchObject({
-      mountingStyle: "front-flange", pressStrokeMm: 30, pressSpeedMmS: 10, dwellS: 2, decelTimeS: 0.3, holdMinutes: 45, pumpType: "double",
+      mountingStyle: "front-flange",
+      pressStrokeMm: 30,
+      pressSpeedMmS: 10,
+      dwellS: 2,
+      decelTimeS: 0.3,
+      holdMinutes: 45,
+      pumpType: "double",
     });
     expect((await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" })).status).toBe(302);
 

@@ -336,7 +336,14 @@ describe("refunds", () => {
     const intent = await paidIntent();
     const part = await stripe.refunds.create({ payment_intent: intent.id, amount: 50_000, reason: "requested_by_customer", metadata: { why: "scope" } });
     expect(part.id).toMatch(/^re_/);
-    expect(part).toMatchObject({ object: "refund", amount: 50_000, currency: "eur", status: "succeeded", charge: intent.latest_charge, reason: "requested_by_customer" });
+    expect(part).toMatchObject({
+      object: "refund",
+      amount: 50_000,
+      currency: "eur",
+      status: "succeeded",
+      charge: intent.latest_charge,
+      reason: "requested_by_customer",
+    });
     expect(await stripe.charges.retrieve(intent.latest_charge as string)).toMatchObject({ amount_refunded: 50_000, refunded: false });
 
     const tooMuch = await expectStripeError(stripe.refunds.create({ charge: intent.latest_charge as string, amount: 100_001 }));
@@ -475,7 +482,14 @@ describe("webhook delivery", () => {
 
 describe("a payment made before the fake started", () => {
   it("is put back under its ids, so it can still be refunded, and only once", async () => {
-    fake.restorePaid({ paymentIntentId: "pi_restoredDemo0001", amount: 50_000, amountRefunded: 10_000, currency: "GBP", customer: null, metadata: { payment_id: "demo" } });
+    fake.restorePaid({
+      paymentIntentId: "pi_restoredDemo0001",
+      amount: 50_000,
+      amountRefunded: 10_000,
+      currency: "GBP",
+      customer: null,
+      metadata: { payment_id: "demo" },
+    });
     fake.restorePaid({ paymentIntentId: "pi_restoredDemo0001", amount: 1, amountRefunded: 0, currency: "GBP", customer: null, metadata: {} });
     const intent = await stripe.paymentIntents.retrieve("pi_restoredDemo0001", { expand: ["latest_charge"] });
     expect(intent).toMatchObject({ status: "succeeded", amount: 50_000, amount_received: 50_000, currency: "gbp", metadata: { payment_id: "demo" } });

@@ -41,7 +41,12 @@ describe("sign-in throttle", () => {
     await deliverDueMail(100);
     const link = new URL(linkIn(await waitForMail(user.email, "Reset your Tenderflow password"), "/reset-password/"));
     const owner = new Visitor();
-    const done = await owner.post(reset.action, link.pathname, { password: "a-brand-new-password", confirm: "a-brand-new-password" }, { token: link.pathname.split("/").pop()! });
+    const done = await owner.post(
+      reset.action,
+      link.pathname,
+      { password: "a-brand-new-password", confirm: "a-brand-new-password" },
+      { token: link.pathname.split("/").pop()! },
+    );
     expect(done.status).toBe(302);
     expect((await attempt(user.email, "a-brand-new-password")).status).toBe(302);
   });
@@ -123,7 +128,10 @@ describe("mail throttle", () => {
     const fresh = uniqueEmail("fresh");
     const fields = (email: string) => ({ kind: "buyer", organisationName: "Eskdale Presses", name: "Ana Roe", email, password: PASSWORD });
     for (let i = 0; i < 5; i++) {
-      const [known, unknown] = [await new Visitor().post(signUp.action, "/sign-up", fields(owner.email)), await new Visitor().post(signUp.action, "/sign-up", fields(fresh))];
+      const [known, unknown] = [
+        await new Visitor().post(signUp.action, "/sign-up", fields(owner.email)),
+        await new Visitor().post(signUp.action, "/sign-up", fields(fresh)),
+      ];
       expect([known.status, unknown.status]).toEqual([200, 200]);
       expect(known.data.sentTo).toBe(owner.email);
     }
@@ -138,7 +146,13 @@ describe("mail throttle", () => {
     const over = await new Visitor().post(forgot.action, "/forgot-password", { email: uniqueEmail("flood") });
     expect(over.status).toBe(429);
     expect(over.data.result.error[""][0]).toMatch(/^Too many requests from your network\. Try again in \d+ minutes?\.$/);
-    const signUpOver = await new Visitor().post(signUp.action, "/sign-up", { kind: "buyer", organisationName: "X Ltd", name: "X", email: uniqueEmail(), password: PASSWORD });
+    const signUpOver = await new Visitor().post(signUp.action, "/sign-up", {
+      kind: "buyer",
+      organisationName: "X Ltd",
+      name: "X",
+      email: uniqueEmail(),
+      password: PASSWORD,
+    });
     expect(signUpOver.status).toBe(429);
     expect(await User.count({ where: { email: over.data.result.initialValue.email } })).toBe(0);
   });

@@ -16,6 +16,8 @@ export default class SummaryReporter implements Reporter {
     }
     // A file whose setup failed runs none of its tests: count it, or the line would read "0 failed".
     const brokenFiles = testModules.filter((m) => m.state() === "failed" && [...m.children.allTests("failed")].length === 0).length;
-    process.stdout.write(`\nTests: ${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ""}${brokenFiles ? `; ${brokenFiles} test file${brokenFiles === 1 ? "" : "s"} failed to run` : ""}\n`);
+    process.stdout.write(
+      `\nTests: ${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ""}${brokenFiles ? `; ${brokenFiles} test file${brokenFiles === 1 ? "" : "s"} failed to run` : ""}\n`,
+    );
   }
 }

@@ -22,7 +22,15 @@ export async function startBrowserApp(): Promise<BrowserApp> {
   const { baseUrl } = server;
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
-    args: ["--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run", "--disable-quic"],
+    args: [
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+      "--no-first-run",
+      "--disable-quic",
+    ],
   });
   mkdirSync(SCREENSHOTS, { recursive: true });
   return {

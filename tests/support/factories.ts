@@ -28,7 +28,12 @@ export async function makeMember(kind: "buyer" | "shop", overrides: Partial<{ em
 
 /** Operator staff can't sign up; the seed or an admin makes them. */
 export async function makeOperatorUser(role: Extract<Role, "admin" | "account_manager">) {
-  const organisation = await Organisation.create({ name: `Operator ${randomBytes(3).toString("hex")}`, kind: "operator", region: null, accountManagerId: null });
+  const organisation = await Organisation.create({
+    name: `Operator ${randomBytes(3).toString("hex")}`,
+    kind: "operator",
+    region: null,
+    accountManagerId: null,
+  });
   return User.create({
     organisationId: organisation.id,
     email: uniqueEmail(role),
@@ -44,9 +49,33 @@ export const inDays = (days: number) => new Date(Date.now() + days * 86_400_000)
 /** Answers of a complete spec (a vertical press ram), per step, as a buyer would type them. */
 export const SPEC_ANSWERS = {
   machine: { title: "Bending press, main ram", purpose: "Presses sheet over a die.", orientation: "vertical", rodDirection: "down", mounting: "pinned-pinned" },
-  motion: { massKg: "800", processForceN: "50000", frictionCoefficient: "0.1", strokeMm: "500", extendSpeedMmS: "100", retractSpeedMmS: "150", accelTimeS: "0.2" },
-  duty: { cyclesPerHour: "60", hoursPerDay: "16", ambientC: "25", supplyHz: "50", maxPressureBar: "160", supplyVoltage: "400 V three-phase", fluid: "ISO VG 46" },
-  quotation: { unitsWanted: "2", bidDeadline: inDays(21), dateNeeded: inDays(90), deliveryRegion: "UK — West Midlands", currency: "GBP", retainerPercent: "20", notes: "" },
+  motion: {
+    massKg: "800",
+    processForceN: "50000",
+    frictionCoefficient: "0.1",
+    strokeMm: "500",
+    extendSpeedMmS: "100",
+    retractSpeedMmS: "150",
+    accelTimeS: "0.2",
+  },
+  duty: {
+    cyclesPerHour: "60",
+    hoursPerDay: "16",
+    ambientC: "25",
+    supplyHz: "50",
+    maxPressureBar: "160",
+    supplyVoltage: "400 V three-phase",
+    fluid: "ISO VG 46",
+  },
+  quotation: {
+    unitsWanted: "2",
+    bidDeadline: inDays(21),
+    dateNeeded: inDays(90),
+    deliveryRegion: "UK — West Midlands",
+    currency: "GBP",
+    retainerPercent: "20",
+    notes: "",
+  },
 };
 
 type SpecOverrides = Partial<{ [K in keyof typeof SPEC_ANSWERS]: Partial<(typeof SPEC_ANSWERS)[K]> }>;
@@ -76,7 +105,15 @@ export async function makeJob(buyer: User, shop: User, options: { totalCents?: n
     specRevision: 1,
     currency: spec.currency,
     lines: [
-      { key: "power-unit", item: "Power unit", quantity: 1, specification: "7.5 kW, 40 l tank", unitPriceCents: totalCents, alternative: false, alternativeDescription: "" },
+      {
+        key: "power-unit",
+        item: "Power unit",
+        quantity: 1,
+        specification: "7.5 kW, 40 l tank",
+        unitPriceCents: totalCents,
+        alternative: false,
+        alternativeDescription: "",
+      },
     ],
     units: 1,
     setTotalCents: totalCents,

@@ -6,8 +6,7 @@ interface DataWithInit {
   init: ResponseInit | null;
 }
 // What data() returns; recognised by its tag, as the framework itself does.
-const isDataWithInit = (v: unknown): v is DataWithInit =>
-  typeof v === "object" && v !== null && (v as { type?: unknown }).type === "DataWithResponseInit";
+const isDataWithInit = (v: unknown): v is DataWithInit => typeof v === "object" && v !== null && (v as { type?: unknown }).type === "DataWithResponseInit";
 
 import { RouterContextProvider } from "react-router";
 import { clientAddressContext } from "~/http/request-context.server";

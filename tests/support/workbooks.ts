@@ -80,7 +80,10 @@ export function evaluateFormula(sheet: ExcelJS.Worksheet, formula: string): numb
     const t = peek();
     if (/^\$?[A-Z]+\$?\d+:/.test(t)) {
       take();
-      const [from, to] = t.replace(/\$/g, "").split(":").map((a) => sheet.getCell(a));
+      const [from, to] = t
+        .replace(/\$/g, "")
+        .split(":")
+        .map((a) => sheet.getCell(a));
       const list: number[] = [];
       for (let r = Number(from.row); r <= Number(to.row); r++) {
         for (let c = Number(from.col); c <= Number(to.col); c++) {
@@ -154,15 +157,13 @@ export function parseCsv(text: string): string[][] {
       if (c === '"' && text[i + 1] === '"') {
         field += '"';
         i++;
-      }
-      else if (c === '"') quoted = false;
+      } else if (c === '"') quoted = false;
       else field += c;
     } else if (c === '"') quoted = true;
     else if (c === ",") {
       row.push(field);
       field = "";
-    }
-    else if (c === "\n" || c === "\r") {
+    } else if (c === "\n" || c === "\r") {
       if (c === "\r" && text[i + 1] === "\n") i++;
       row.push(field);
       rows.push(row);

@@ -38,7 +38,16 @@ describe("moneyProblem", () => {
 describe("bidTotals", () => {
   it("adds quantity × unit price per line, then multiplies the set by the units wanted", () => {
     // 2 × 10.05 + 1 × 0.10 + 4 × 99.99 = 20.10 + 0.10 + 399.96 = 420.16 a set; 3 sets = 1260.48
-    expect(bidTotals([{ quantity: 2, unitPriceCents: 1005 }, { quantity: 1, unitPriceCents: 10 }, { quantity: 4, unitPriceCents: 9999 }], 3)).toEqual({ setTotalCents: 42_016, totalCents: 126_048 });
+    expect(
+      bidTotals(
+        [
+          { quantity: 2, unitPriceCents: 1005 },
+          { quantity: 1, unitPriceCents: 10 },
+          { quantity: 4, unitPriceCents: 9999 },
+        ],
+        3,
+      ),
+    ).toEqual({ setTotalCents: 42_016, totalCents: 126_048 });
   });
 });
 
@@ -66,13 +75,40 @@ describe("retainerCents", () => {
   });
 });
 
-const bom: BomLine[] = ["pump", "motor", "valve"].map((key, i) => ({ key, item: key, quantity: i + 1, specification: "", rating: { value: 0, unit: "", label: "" } }));
+const bom: BomLine[] = ["pump", "motor", "valve"].map((key, i) => ({
+  key,
+  item: key,
+  quantity: i + 1,
+  specification: "",
+  rating: { value: 0, unit: "", label: "" },
+}));
 const priced = (prices: (number | null)[], alternative = -1) =>
-  bom.map((l, i) => ({ key: l.key, item: l.item, quantity: l.quantity, specification: "", unitPriceCents: prices[i], alternative: i === alternative, alternativeDescription: i === alternative ? "other" : "" }));
+  bom.map((l, i) => ({
+    key: l.key,
+    item: l.item,
+    quantity: l.quantity,
+    specification: "",
+    unitPriceCents: prices[i],
+    alternative: i === alternative,
+    alternativeDescription: i === alternative ? "other" : "",
+  }));
 const bid = (id: string, prices: (number | null)[], extra: Partial<ComparedBid> = {}): ComparedBid => {
   const lines = priced(prices);
   const set = lines.reduce((s, l) => s + l.quantity * (l.unitPriceCents ?? 0), 0);
-  return { id, shop: id, status: "submitted", specRevision: 2, lines, setTotalCents: set, totalCents: set, leadTimeWeeks: 10, validUntil: "2030-01-01", terms: "", notes: "", ...extra };
+  return {
+    id,
+    shop: id,
+    status: "submitted",
+    specRevision: 2,
+    lines,
+    setTotalCents: set,
+    totalCents: set,
+    leadTimeWeeks: 10,
+    validUntil: "2030-01-01",
+    terms: "",
+    notes: "",
+    ...extra,
+  };
 };
 
 describe("compareBids", () => {
@@ -102,14 +138,21 @@ describe("compareBids", () => {
     expect(bundled).toMatchObject({ included: true, lowest: false, lineTotalCents: 0 });
     // Among the charged prices (2 × 60 and 2 × 55) the lowest is the third shop's.
     expect([itemised.lowest, third.lowest]).toEqual([false, true]);
-    expect(result.columns.find((c) => c.id === "bundled")).toMatchObject({ terms: "Ex works, 30 days net.", notes: "Motor priced with the pump.", complete: true });
+    expect(result.columns.find((c) => c.id === "bundled")).toMatchObject({
+      terms: "Ex works, 30 days net.",
+      notes: "Motor priced with the pump.",
+      complete: true,
+    });
   });
 
   it("flags bids on older revisions and keeps their lines that the current bill dropped", () => {
     const old = bid("old", [100, 50, 30], { specRevision: 1 });
     old.lines.push({ key: "cooler", item: "Oil cooler", quantity: 1, specification: "", unitPriceCents: 500, alternative: false, alternativeDescription: "" });
     const result = compareBids(bom, 2, [old, bid("new", [100, 50, 30])], "shop");
-    expect(result.columns.map((c) => [c.id, c.olderRevision])).toEqual([["new", false], ["old", true]]);
+    expect(result.columns.map((c) => [c.id, c.olderRevision])).toEqual([
+      ["new", false],
+      ["old", true],
+    ]);
     expect(result.rows.at(-1)).toMatchObject({ key: "cooler", inCurrentBill: false });
     expect(result.rows.at(-1)!.cells[0]).toBeNull();
   });

@@ -54,7 +54,10 @@ describe("CircuitDiagram", () => {
   });
 
   it("draws the counterbalance valve with ports 1, 2, 3 and a dashed pilot to the opposite work line", () => {
-    for (const [design, pilotFrom] of [[press, "dcv.A"], [lift, "dcv.B"]] as const) {
+    for (const [design, pilotFrom] of [
+      [press, "dcv.A"],
+      [lift, "dcv.B"],
+    ] as const) {
       const html = render(design);
       expect(html).toContain('data-component="cbv" data-kind="cbv"');
       for (const port of ["1", "2", "3"]) expect(html).toMatch(new RegExp(`data-port="cbv\\.${port}"[^>]*>${port}<`));
@@ -172,7 +175,9 @@ describe("CircuitDiagram", () => {
     const psi = Math.round(press.pressuresBar.reliefSetting * 14.5038).toLocaleString("en-GB");
     expect(html).toContain(`set ${psi} psi`);
     // The cylinder is a metric catalogue size: the metric bore and rod first, inches beside them.
-    expect(html).toContain(`Ø${press.cylinder.boreMm} / Ø${press.cylinder.rodMm} mm (${(press.cylinder.boreMm / 25.4).toFixed(2)} / ${(press.cylinder.rodMm / 25.4).toFixed(2)} in)`);
+    expect(html).toContain(
+      `Ø${press.cylinder.boreMm} / Ø${press.cylinder.rodMm} mm (${(press.cylinder.boreMm / 25.4).toFixed(2)} / ${(press.cylinder.rodMm / 25.4).toFixed(2)} in)`,
+    );
     expect(html).toContain(`stroke ${(press.cylinder.strokeMm / 25.4).toFixed(2)} in`);
     // The motor is an IEC rating in kW, with hp beside it (1 hp = 0.74569987 kW).
     expect(html).toContain(`${press.motor.ratedKw} kW (${(press.motor.ratedKw / 0.74569987).toFixed(2)} hp)`);
@@ -199,27 +204,72 @@ describe("CircuitDiagram", () => {
 // ---- Every component a design calls for -------------------------------------------------------
 
 const pressing = {
-  ...duty, strokeMm: 1000, extendSpeedMmS: 200, retractSpeedMmS: 200, orientation: "vertical", rodDirection: "down", massKg: 2000,
-  processForceN: 150000, pressStrokeMm: 50, pressSpeedMmS: 10, dwellS: 2,
+  ...duty,
+  strokeMm: 1000,
+  extendSpeedMmS: 200,
+  retractSpeedMmS: 200,
+  orientation: "vertical",
+  rodDirection: "down",
+  massKg: 2000,
+  processForceN: 150000,
+  pressStrokeMm: 50,
+  pressSpeedMmS: 10,
+  dwellS: 2,
 } as const;
 const held = sizeCircuit({ ...duty, orientation: "vertical", rodDirection: "down", massKg: 1200, processForceN: 60000, holdMinutes: 30 });
 const heldBoth = sizeCircuit({ ...duty, orientation: "horizontal", massKg: 500, holdMinutes: 30 });
-const hot = sizeCircuit({ ...duty, orientation: "horizontal", massKg: 800, processForceN: 80000, dwellS: 20, cyclesPerHour: 120, hoursPerDay: 16, ambientC: 40 });
+const hot = sizeCircuit({
+  ...duty,
+  orientation: "horizontal",
+  massKg: 800,
+  processForceN: 80000,
+  dwellS: 20,
+  cyclesPerHour: 120,
+  hoursPerDay: 16,
+  ambientC: 40,
+});
 const double = sizeCircuit({ ...pressing, pumpType: "double" });
 const compensated = sizeCircuit({ ...pressing, pumpType: "compensated" });
 const fixedPress = sizeCircuit({ ...pressing, orientation: "horizontal", massKg: 500, pumpType: "fixed" });
 /** 1.6 m horizontal feed, 50 kN at the end, 200 mm/s both ways: it regenerates, ended by a pressure switch (regenerative.test.ts). */
 const longFeed = sizeCircuit({
-  orientation: "horizontal", massKg: 500, processForceN: 50_000, strokeMm: 1600, extendSpeedMmS: 200, retractSpeedMmS: 200,
-  mounting: "fixed-pinned", mountingStyle: "rear-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+  orientation: "horizontal",
+  massKg: 500,
+  processForceN: 50_000,
+  strokeMm: 1600,
+  extendSpeedMmS: 200,
+  retractSpeedMmS: 200,
+  mounting: "fixed-pinned",
+  mountingStyle: "rear-flange",
+  cyclesPerHour: 60,
+  hoursPerDay: 8,
+  supplyHz: 50,
 });
 const ALL = { feed, press, lift, held, heldBoth, hot, double, compensated, fixedPress, longFeed };
 
 /** Every kind the circuit may hold; `satisfies` makes the compiler ask for a new kind here. */
 const KINDS = {
-  pump: true, motor: true, relief: true, vent: true, dcv: true, cbv: true, cylinder: true, tank: true, filter: true, gauge: true,
-  strainer: true, regen: true, poc: true, cooler: true, decompression: true, unloading: true, check: true, "flow-control": true, bypass: true,
-  "pressure-switch": true, "limit-switch": true,
+  pump: true,
+  motor: true,
+  relief: true,
+  vent: true,
+  dcv: true,
+  cbv: true,
+  cylinder: true,
+  tank: true,
+  filter: true,
+  gauge: true,
+  strainer: true,
+  regen: true,
+  poc: true,
+  cooler: true,
+  decompression: true,
+  unloading: true,
+  check: true,
+  "flow-control": true,
+  bypass: true,
+  "pressure-switch": true,
+  "limit-switch": true,
 } satisfies Record<CircuitComponent["kind"], true>;
 
 const desc = (html: string) => html.match(/<desc[^>]*>(.*?)<\/desc>/)![1].replaceAll("&#x27;", "'");
@@ -246,12 +296,16 @@ describe("CircuitDiagram: every component the design calls for", () => {
     expect(routes).toHaveLength(design.circuit.connections.length);
     const same = (a: { x: number; y: number }, b: { x: number; y: number }) => Math.abs(a.x - b.x) < 0.01 && Math.abs(a.y - b.y) < 0.01;
     const onLine = (p: { x: number; y: number }, others: typeof routes) =>
-      others.some((r) => r.points.some((q, i) => {
-        if (i === 0) return false;
-        const a = r.points[i - 1];
-        return (Math.abs(a.x - q.x) < 0.01 && Math.abs(p.x - q.x) < 0.01 && p.y >= Math.min(a.y, q.y) && p.y <= Math.max(a.y, q.y))
-          || (Math.abs(a.y - q.y) < 0.01 && Math.abs(p.y - q.y) < 0.01 && p.x >= Math.min(a.x, q.x) && p.x <= Math.max(a.x, q.x));
-      }));
+      others.some((r) =>
+        r.points.some((q, i) => {
+          if (i === 0) return false;
+          const a = r.points[i - 1];
+          return (
+            (Math.abs(a.x - q.x) < 0.01 && Math.abs(p.x - q.x) < 0.01 && p.y >= Math.min(a.y, q.y) && p.y <= Math.max(a.y, q.y)) ||
+            (Math.abs(a.y - q.y) < 0.01 && Math.abs(p.y - q.y) < 0.01 && p.x >= Math.min(a.x, q.x) && p.x <= Math.max(a.x, q.x))
+          );
+        }),
+      );
     for (const r of routes) {
       const first = r.points[0];
       const last = r.points[r.points.length - 1];
@@ -259,7 +313,10 @@ describe("CircuitDiagram: every component the design calls for", () => {
       const to = layout.ports[r.connection.to];
       expect(from ?? to, `${r.connection.from} > ${r.connection.to}`).toBeDefined();
       // each end is at its own port, or (a tee) on another drawn line that shares the same port
-      for (const [end, port, ref] of [[first, from, r.connection.from], [last, to, r.connection.to]] as const) {
+      for (const [end, port, ref] of [
+        [first, from, r.connection.from],
+        [last, to, r.connection.to],
+      ] as const) {
         if (r.tank && ref.startsWith("tank.")) {
           expect(end.y).toBeCloseTo(r.tank.top + 6);
           continue;
@@ -303,8 +360,12 @@ describe("CircuitDiagram: every component the design calls for", () => {
     const [a, b] = pilots;
     // no dot lies on both pilots: they cross, they are not joined
     const on = (p: { x: number; y: number }, r: (typeof routes)[number]) =>
-      r.points.some((q, i) => i > 0 && ((q.x === r.points[i - 1].x && p.x === q.x && p.y >= Math.min(q.y, r.points[i - 1].y) && p.y <= Math.max(q.y, r.points[i - 1].y))
-        || (q.y === r.points[i - 1].y && p.y === q.y && p.x >= Math.min(q.x, r.points[i - 1].x) && p.x <= Math.max(q.x, r.points[i - 1].x))));
+      r.points.some(
+        (q, i) =>
+          i > 0 &&
+          ((q.x === r.points[i - 1].x && p.x === q.x && p.y >= Math.min(q.y, r.points[i - 1].y) && p.y <= Math.max(q.y, r.points[i - 1].y)) ||
+            (q.y === r.points[i - 1].y && p.y === q.y && p.x >= Math.min(q.x, r.points[i - 1].x) && p.x <= Math.max(q.x, r.points[i - 1].x))),
+      );
     expect(dots.filter((p) => on(p, a) && on(p, b))).toEqual([]);
     expect(desc(render(heldBoth))).toContain("Pilot-operated check valves on the cap and rod ports hold the load leak-tight");
   });
@@ -328,7 +389,9 @@ describe("CircuitDiagram: every component the design calls for", () => {
     const text = desc(html);
     expect(text).toContain("Double (high-low) pump, two sections on one shaft");
     expect(text).toContain("through a check valve that lets oil pass only from the large section into the system line");
-    expect(text).toContain(`dumped to tank by an unloading valve, piloted from the system line, once the system pressure passes ${double.pump.unloadingBar} bar`);
+    expect(text).toContain(
+      `dumped to tank by an unloading valve, piloted from the system line, once the system pressure passes ${double.pump.unloadingBar} bar`,
+    );
   });
 
   it("draws the compensated pump with the variable arrow and its compensator, and names its settings", () => {
@@ -373,7 +436,10 @@ describe("CircuitDiagram: every component the design calls for", () => {
     expect(fixedPress.regeneration?.endsBy).toBe("limit-switch");
   });
 
-  it.each([["longFeed", longFeed], ["fixedPress", fixedPress]] as const)("%s: draws the 3/2 regeneration valve in the rod line, its positions as the data gives them", (_n, design) => {
+  it.each([
+    ["longFeed", longFeed],
+    ["fixedPress", fixedPress],
+  ] as const)("%s: draws the 3/2 regeneration valve in the rod line, its positions as the data gives them", (_n, design) => {
     const html = render(design);
     const symbol = html.match(/<g data-component="regen" data-kind="regen" data-ports="3\/2">(.*?)<\/g><text/)![1];
     // de-energised 1–2 (rod port to B) with 3 blocked; energised 1–3 (rod port to the cap line) with 2 blocked
@@ -395,9 +461,12 @@ describe("CircuitDiagram: every component the design calls for", () => {
     expect(across.at(-1)).toEqual(expect.objectContaining({ x: layout.ports["dcv.A"].x, y: layout.ports["dcv.A"].y }));
     // port 3's line (cap-line oil) never meets or crosses the B line's: they are different lines
     const segments = (pts: { x: number; y: number }[]) => pts.slice(1).map((q, i) => [pts[i], q] as const);
-    const meet = ([a, b]: readonly [{ x: number; y: number }, { x: number; y: number }], [c, d]: readonly [{ x: number; y: number }, { x: number; y: number }]) =>
-      Math.max(Math.min(a.x, b.x), Math.min(c.x, d.x)) <= Math.min(Math.max(a.x, b.x), Math.max(c.x, d.x))
-      && Math.max(Math.min(a.y, b.y), Math.min(c.y, d.y)) <= Math.min(Math.max(a.y, b.y), Math.max(c.y, d.y));
+    const meet = (
+      [a, b]: readonly [{ x: number; y: number }, { x: number; y: number }],
+      [c, d]: readonly [{ x: number; y: number }, { x: number; y: number }],
+    ) =>
+      Math.max(Math.min(a.x, b.x), Math.min(c.x, d.x)) <= Math.min(Math.max(a.x, b.x), Math.max(c.x, d.x)) &&
+      Math.max(Math.min(a.y, b.y), Math.min(c.y, d.y)) <= Math.min(Math.max(a.y, b.y), Math.max(c.y, d.y));
     for (const s3 of segments(across)) for (const sb of segments(route("dcv.B", "regen.2").points)) expect(meet(s3, sb)).toBe(false);
     // below every other valve: at the valve stack
     expect(layout.at.regen.y).toBeGreaterThan(layout.at["press-flow"]?.y ?? 0);
@@ -405,7 +474,9 @@ describe("CircuitDiagram: every component the design calls for", () => {
     expect(html).toContain(design.regeneration!.switchBar !== null ? `until ${design.regeneration!.switchBar} bar` : "until the limit switch");
     expect(html).not.toMatch(/Regeneration valve<\/tspan><tspan[^>]*>2\/2/);
     const text = desc(html);
-    expect(text).toContain("3/2 solenoid regeneration valve in the rod line at the valve stack: de-energised it joins the cylinder's rod port (1) to valve port B (2) and blocks the cap line (3); energised during the approach it joins the cylinder's rod port (1) to the cap line (3) and blocks valve port B (2)");
+    expect(text).toContain(
+      "3/2 solenoid regeneration valve in the rod line at the valve stack: de-energised it joins the cylinder's rod port (1) to valve port B (2) and blocks the cap line (3); energised during the approach it joins the cylinder's rod port (1) to the cap line (3) and blocks valve port B (2)",
+    );
     expect(text).not.toContain("2/2 solenoid regeneration");
   });
 
@@ -433,7 +504,9 @@ describe("CircuitDiagram: every component the design calls for", () => {
     expect(html).toContain(`${fixedPress.requirements.pressStrokeMm} mm before the end`);
     expect(html).toContain("closes the bypass");
     expect(html).toContain("ends the regeneration");
-    expect(desc(html)).toContain(`Limit switch at the cylinder ${fixedPress.requirements.pressStrokeMm} mm before the end of the extension: there it closes the bypass valve and de-energises the regeneration valve`);
+    expect(desc(html)).toContain(
+      `Limit switch at the cylinder ${fixedPress.requirements.pressStrokeMm} mm before the end of the extension: there it closes the bypass valve and de-energises the regeneration valve`,
+    );
     // the description never says "pressing stroke": the quick-sizing page finds that field by its label
     expect(desc(html)).not.toMatch(/pressing stroke/i);
     expect(html).not.toContain('data-kind="pressure-switch"');

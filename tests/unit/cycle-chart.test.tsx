@@ -7,8 +7,20 @@ import { formatQuantity } from "~/units";
 
 // A two-speed press with a double pump and a dwell, 30 cycles an hour: every phase, a long idle.
 const press = sizeCircuit({
-  orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
-  pressStrokeMm: 20, pressSpeedMmS: 10, dwellS: 3, mounting: "fixed-fixed", cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50, pumpType: "double",
+  orientation: "horizontal",
+  massKg: 500,
+  processForceN: 100_000,
+  strokeMm: 400,
+  extendSpeedMmS: 200,
+  retractSpeedMmS: 200,
+  pressStrokeMm: 20,
+  pressSpeedMmS: 10,
+  dwellS: 3,
+  mounting: "fixed-fixed",
+  cyclesPerHour: 30,
+  hoursPerDay: 8,
+  supplyHz: 50,
+  pumpType: "double",
 });
 const cycle = press.cycle!;
 

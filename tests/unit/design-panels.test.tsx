@@ -114,7 +114,18 @@ describe("KeySizes", () => {
 
 describe("KeySizes names the pump a shop prices", () => {
   it("says fixed, compensated or double, with each section of a double pump", () => {
-    const pressing = { ...duty, orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200, pressStrokeMm: 20, pressSpeedMmS: 10, mounting: "fixed-fixed" } as const;
+    const pressing = {
+      ...duty,
+      orientation: "horizontal",
+      massKg: 500,
+      processForceN: 100_000,
+      strokeMm: 400,
+      extendSpeedMmS: 200,
+      retractSpeedMmS: 200,
+      pressStrokeMm: 20,
+      pressSpeedMmS: 10,
+      mounting: "fixed-fixed",
+    } as const;
     expect(renderToStaticMarkup(<KeySizes design={feed} />)).toContain(`fixed pump, ${feed.pump.displacementCcRev} cm³/rev`);
     const double = sizeCircuit({ ...pressing, pumpType: "double" });
     expect(double.pump.type).toBe("double");

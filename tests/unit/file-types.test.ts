@@ -2,12 +2,14 @@ import { describe, expect, it } from "vitest";
 import { ACCEPT_ATTRIBUTE, checkFileType, extensionOf, sniffFileKind } from "~/services/file-types";
 
 // Minimal but real openings of each format, built byte by byte.
-const bytes = (...parts: (string | number[])[]) =>
-  new Uint8Array(parts.flatMap((p) => (typeof p === "string" ? Array.from(new TextEncoder().encode(p)) : p)));
+const bytes = (...parts: (string | number[])[]) => new Uint8Array(parts.flatMap((p) => (typeof p === "string" ? Array.from(new TextEncoder().encode(p)) : p)));
 
 const PNG = bytes(
   [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a], // signature
-  [0x00, 0x00, 0x00, 0x0d], "IHDR", [0, 0, 0, 1, 0, 0, 0, 1, 8, 6, 0, 0, 0], [0x1f, 0x15, 0xc4, 0x89], // 1×1 RGBA header chunk
+  [0x00, 0x00, 0x00, 0x0d],
+  "IHDR",
+  [0, 0, 0, 1, 0, 0, 0, 1, 8, 6, 0, 0, 0],
+  [0x1f, 0x15, 0xc4, 0x89], // 1×1 RGBA header chunk
 );
 const JPEG = bytes([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10], "JFIF", [0x00, 0x01, 0x01, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00, 0x00]);
 const PDF = bytes("%PDF-1.7\n%\u00e2\u00e3\u00cf\u00d3\n1 0 obj\n<< /Type /Catalog >>\nendobj\n");

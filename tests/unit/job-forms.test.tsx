@@ -13,11 +13,20 @@ const render = (element: React.ReactElement) => {
   return renderToStaticMarkup(<Stub initialEntries={["/jobs/7b0c8f5e-3d1a-4c59-9a39-0f6f4f1d2a11"]} />);
 };
 
-const refused = (initialValue: Record<string, string>, error: Record<string, string[]>): SubmissionResult<string[]> => ({ status: "error", initialValue, error });
+const refused = (initialValue: Record<string, string>, error: Record<string, string[]>): SubmissionResult<string[]> => ({
+  status: "error",
+  initialValue,
+  error,
+});
 
 describe("job forms", () => {
   it("offer the open milestones and keep a refused note with its message", () => {
-    const html = render(<ReachForm open={["drawings_agreed", "in_build"]} lastResult={refused({ intent: "reach", milestone: "in_build", note: "Manifold machined." }, { note: ["Too long."] })} />);
+    const html = render(
+      <ReachForm
+        open={["drawings_agreed", "in_build"]}
+        lastResult={refused({ intent: "reach", milestone: "in_build", note: "Manifold machined." }, { note: ["Too long."] })}
+      />,
+    );
     expect(html).toContain('name="intent" value="reach"');
     expect(html).toContain("Drawings agreed");
     expect(html).toContain("In the workshop");

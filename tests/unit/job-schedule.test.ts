@@ -14,7 +14,12 @@ describe("job schedule", () => {
 
   it("names the furthest milestone reached as the stage, whatever the order given", () => {
     const at = new Date("2026-03-05T00:00:00Z");
-    expect(stageOf([{ key: "in_build", position: 2, reachedAt: at }, { key: "drawings_agreed", position: 1, reachedAt: at }])).toBe("in_build");
+    expect(
+      stageOf([
+        { key: "in_build", position: 2, reachedAt: at },
+        { key: "drawings_agreed", position: 1, reachedAt: at },
+      ]),
+    ).toBe("in_build");
     expect(stageOf([{ key: "drawings_agreed", position: 1, reachedAt: null }])).toBeNull();
   });
 
@@ -37,7 +42,9 @@ describe("job schedule", () => {
       { key: "bench_tested", from: "2026-04-03", to: "2026-04-13" },
     ]);
     // A slip smaller than the overtaking: never before the day just moved to.
-    expect(carriedTargets([{ key: "in_build", targetDate: "2026-03-10" }], "2026-03-20", "2026-03-22")).toEqual([{ key: "in_build", from: "2026-03-10", to: "2026-03-22" }]);
+    expect(carriedTargets([{ key: "in_build", targetDate: "2026-03-10" }], "2026-03-20", "2026-03-22")).toEqual([
+      { key: "in_build", from: "2026-03-10", to: "2026-03-22" },
+    ]);
     expect(carriedTargets(later, "2026-03-25", "2026-03-28")).toEqual([]);
   });
 });

@@ -14,7 +14,15 @@ const answered: QuestionView = {
   answer: "Yes, up to the cylinder ports.",
   answeredAt: "2030-03-02T09:00:00.000Z",
 };
-const own: QuestionView = { ...answered, id: "2c7f0d1e-52a4-4f0e-9f53-5d3f9c1b2a02", body: "Which paint colour?", askedBy: "Your question", isOwn: true, answer: null, answeredAt: null };
+const own: QuestionView = {
+  ...answered,
+  id: "2c7f0d1e-52a4-4f0e-9f53-5d3f9c1b2a02",
+  body: "Which paint colour?",
+  askedBy: "Your question",
+  isOwn: true,
+  answer: null,
+  answeredAt: null,
+};
 
 /** The panel as the page renders it, inside a router (its forms post through fetchers). */
 function render(panel: PanelData) {
@@ -35,7 +43,16 @@ describe("QuestionsPanel", () => {
   });
 
   it("gives the buyer an answer form per question, filled with the current answer", () => {
-    const html = render({ questions: [{ ...answered, askedBy: "Brackwater Hydraulik asked" }, { ...own, isOwn: false, askedBy: "Cinderford Power Units asked" }], canAsk: false, canAnswer: true, isBuyer: true, closedNote: null });
+    const html = render({
+      questions: [
+        { ...answered, askedBy: "Brackwater Hydraulik asked" },
+        { ...own, isOwn: false, askedBy: "Cinderford Power Units asked" },
+      ],
+      canAsk: false,
+      canAnswer: true,
+      isBuyer: true,
+      closedNote: null,
+    });
     expect(html).toContain("Brackwater Hydraulik asked");
     expect(html).toContain(`action="/specs/${SPEC}/questions/${answered.id}/answer"`);
     expect(html).toContain(`action="/specs/${SPEC}/questions/${own.id}/answer"`);
@@ -46,7 +63,13 @@ describe("QuestionsPanel", () => {
   });
 
   it("is read only with a note once questions are closed", () => {
-    const html = render({ questions: [answered], canAsk: false, canAnswer: false, isBuyer: false, closedNote: "This spec is no longer open for bids, so it takes no new questions." });
+    const html = render({
+      questions: [answered],
+      canAsk: false,
+      canAnswer: false,
+      isBuyer: false,
+      closedNote: "This spec is no longer open for bids, so it takes no new questions.",
+    });
     expect(html).not.toContain("<form");
     expect(html).toContain("takes no new questions");
   });

@@ -34,7 +34,10 @@ function chunked(bytes: number, type = "application/x-www-form-urlencoded") {
 describe("request bounds", () => {
   it("refuses list indexes no form of ours has, before any parser builds the list", async () => {
     // The attack that grew the server to 4 GB: conform would build a 10-million-slot array.
-    expect(await checkRequestBounds(form("email[10000000]=x&password=y"))).toMatchObject({ status: 400, message: expect.stringContaining("points past the end") });
+    expect(await checkRequestBounds(form("email[10000000]=x&password=y"))).toMatchObject({
+      status: 400,
+      message: expect.stringContaining("points past the end"),
+    });
     expect(await checkRequestBounds(form("lines[10000000].key=x"))).toMatchObject({ status: 400 });
     expect(await checkRequestBounds(form(`lines[${REQUEST_LIMITS.listIndex}].key=x`))).toBeNull();
   });
@@ -43,7 +46,10 @@ describe("request bounds", () => {
     const many = Array.from({ length: REQUEST_LIMITS.fields + 1 }, (_, i) => `f${i}=1`).join("&");
     expect(await checkRequestBounds(form(many))).toMatchObject({ status: 413 });
     expect(await checkRequestBounds(form("__proto__[x]=1&a%5B%5D=2"))).toMatchObject({ status: 400 });
-    expect(await checkRequestBounds(form("email=a@example.test&email=b@example.test"))).toMatchObject({ status: 400, message: expect.stringContaining("more than once") });
+    expect(await checkRequestBounds(form("email=a@example.test&email=b@example.test"))).toMatchObject({
+      status: 400,
+      message: expect.stringContaining("more than once"),
+    });
   });
 
   it("refuses a NUL character in a form, a query or a path", async () => {

@@ -5,8 +5,17 @@ import { quotationSchema, typedStepAnswers } from "~/schemas/spec";
 
 const today = isoDay(new Date());
 const quotation = (dates: { bidDeadline?: string; dateNeeded?: string }) =>
-  quotationSchema.safeParse({ unitsWanted: "1", deliveryRegion: "Somewhere", currency: "EUR", retainerPercent: "10", bidDeadline: addDays(today, 14), dateNeeded: addDays(today, 60), ...dates });
-const problems = (result: ReturnType<typeof quotation>) => (result.success ? {} : Object.fromEntries(result.error.issues.map((i) => [i.path.join("."), i.message])));
+  quotationSchema.safeParse({
+    unitsWanted: "1",
+    deliveryRegion: "Somewhere",
+    currency: "EUR",
+    retainerPercent: "10",
+    bidDeadline: addDays(today, 14),
+    dateNeeded: addDays(today, 60),
+    ...dates,
+  });
+const problems = (result: ReturnType<typeof quotation>) =>
+  result.success ? {} : Object.fromEntries(result.error.issues.map((i) => [i.path.join("."), i.message]));
 
 describe("quotation dates", () => {
   it("take real calendar days only", () => {

@@ -13,8 +13,14 @@ const SPEC = "7b0c8f5e-3d1a-4c59-9a39-0f6f4f1d2a11";
 
 function render(props: Partial<SpecStepFormProps> & Pick<SpecStepFormProps, "step">) {
   const all: SpecStepFormProps = {
-    specId: SPEC, system: "metric", answers: {}, stepAnswers: {}, attachments: [],
-    attachmentLimits: { maxFileBytes: 10 * 1024 * 1024, maxFilesPerSpec: 10 }, lastResult: null, ...props,
+    specId: SPEC,
+    system: "metric",
+    answers: {},
+    stepAnswers: {},
+    attachments: [],
+    attachmentLimits: { maxFileBytes: 10 * 1024 * 1024, maxFilesPerSpec: 10 },
+    lastResult: null,
+    ...props,
   };
   const Stub = createRoutesStub([{ path: "/specs/:specId/edit/:step", Component: () => <SpecStepForm {...all} /> }]);
   return renderToStaticMarkup(<Stub initialEntries={[`/specs/${SPEC}/edit/${props.step}`]} />);
@@ -22,7 +28,9 @@ function render(props: Partial<SpecStepFormProps> & Pick<SpecStepFormProps, "ste
 
 /** What the action answers when a step is refused: Conform's reply, with what was posted. */
 const refused = (initialValue: Record<string, string>, error: Record<string, string[]>): SubmissionResult<string[]> => ({
-  status: "error", initialValue, error,
+  status: "error",
+  initialValue,
+  error,
 });
 
 describe("SpecStepForm", () => {
@@ -39,7 +47,11 @@ describe("SpecStepForm", () => {
   });
 
   it("keeps a typed axis answer after a refused motion step instead of the saved one", () => {
-    const html = render({ step: "motion", stepAnswers: { strokeMm: "300" }, lastResult: refused({ strokeMm: "450", massKg: "abc" }, { massKg: ["Enter a number."] }) });
+    const html = render({
+      step: "motion",
+      stepAnswers: { strokeMm: "300" },
+      lastResult: refused({ strokeMm: "450", massKg: "abc" }, { massKg: ["Enter a number."] }),
+    });
     expect(html).toMatch(/name="strokeMm"[^>]*value="450"/);
     expect(html).toContain("Enter a number.");
   });

@@ -55,51 +55,88 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
     return v === undefined ? undefined : fmt(v);
   };
   const side = textValue(cbv, "side");
-  const drive = motor && phrase("driven by an electric motor", n(motor, "ratedKw", (k) => `rated ${u.motorRating(k)}`));
+  const drive =
+    motor &&
+    phrase(
+      "driven by an electric motor",
+      n(motor, "ratedKw", (k) => `rated ${u.motorRating(k)}`),
+    );
   const sentences = [
     tank && phrase("Reservoir", n(tank, "volumeL", u.volume), get("strainer") && "with a suction strainer", "feeds the pump"),
     ...pumpSentences(circuit, u, drive),
 
-    relief && phrase("Relief valve", n(relief, "settingBar", (p) => `set to ${u.pressure(p)}`), "protects the pump line and returns to tank"),
-    vent && [
+    relief &&
       phrase(
-        "Normally open 2/2 solenoid vent valve on the relief's vent port X",
-        n(vent, "ventPressureBar", (p) => `vents the relief to tank in neutral, so the pump circulates at ${u.pressure(p)}`),
+        "Relief valve",
+        n(relief, "settingBar", (p) => `set to ${u.pressure(p)}`),
+        "protects the pump line and returns to tank",
       ),
-      phrase("it is energised with solenoid a or b", textValue(vent, "coilVoltage") && `(${textValue(vent, "coilVoltage")} coil)`),
-    ].join("; "),
-    gauge && phrase("Pressure gauge", n(gauge, "rangeBar", (r) => `0 to ${u.pressure(r)}`), "on the pump line"),
-    dcv && phrase(
-      `${capitalise(centreName(textValue(dcv, "center")))} 4/3 solenoid directional valve`,
-      textValue(dcv, "iso4401Size") && `ISO 4401-${textValue(dcv, "iso4401Size")}`,
-      `with spring centring: solenoid a joins ${joins(circuit.dcvPositions.left)}, solenoid b joins ${joins(circuit.dcvPositions.right)}`,
-    ),
+    vent &&
+      [
+        phrase(
+          "Normally open 2/2 solenoid vent valve on the relief's vent port X",
+          n(vent, "ventPressureBar", (p) => `vents the relief to tank in neutral, so the pump circulates at ${u.pressure(p)}`),
+        ),
+        phrase("it is energised with solenoid a or b", textValue(vent, "coilVoltage") && `(${textValue(vent, "coilVoltage")} coil)`),
+      ].join("; "),
+    gauge &&
+      phrase(
+        "Pressure gauge",
+        n(gauge, "rangeBar", (r) => `0 to ${u.pressure(r)}`),
+        "on the pump line",
+      ),
+    dcv &&
+      phrase(
+        `${capitalise(centreName(textValue(dcv, "center")))} 4/3 solenoid directional valve`,
+        textValue(dcv, "iso4401Size") && `ISO 4401-${textValue(dcv, "iso4401Size")}`,
+        `with spring centring: solenoid a joins ${joins(circuit.dcvPositions.left)}, solenoid b joins ${joins(circuit.dcvPositions.right)}`,
+      ),
     dcv && centreSentence(circuit),
-    cbv && phrase(
-      "Counterbalance valve",
-      side && `on the ${side} side`,
-      n(cbv, "settingBar", (p) => `set to ${u.pressure(p)}`),
-      n(cbv, "pilotRatio", (r) => `with pilot ratio ${r}:1`),
-      "and an integral check for free flow to the cylinder; its pilot port 3 is joined to the opposite work line",
-    ),
+    cbv &&
+      phrase(
+        "Counterbalance valve",
+        side && `on the ${side} side`,
+        n(cbv, "settingBar", (p) => `set to ${u.pressure(p)}`),
+        n(cbv, "pilotRatio", (r) => `with pilot ratio ${r}:1`),
+        "and an integral check for free flow to the cylinder; its pilot port 3 is joined to the opposite work line",
+      ),
     ...workLineSentences(circuit, u),
-    cylinder && ["Double-acting cylinder", [
-      n(cylinder, "boreMm", (d) => `bore ${u.length(d)}`),
-      n(cylinder, "rodMm", (d) => `rod ${u.length(d)}`),
-      n(cylinder, "strokeMm", (d) => `stroke ${u.length(d)}`),
-    ].filter(Boolean).join(", ")].filter(Boolean).join(": "),
-    get("decompression") && phrase(
-      "Decompression valve, a normally closed 2/2 solenoid valve with an orifice, joined to the cap port: it lets",
-      n(get("decompression"), "releaseCm3", (v) => `about ${u.smallVolume(v)} of`),
-      "compressed oil out to tank before the return stroke",
-    ),
-    filter && phrase(
-      "Return filter", n(filter, "ratedFlowLpm", (q) => `rated for ${u.flow(q)}`),
-      get("cooler") ? "between valve port T and the oil cooler" : "between valve port T and the tank",
-    ),
-    get("cooler") && phrase("Oil cooler after the return filter", n(get("cooler"), "kw", (k) => `sheds ${u.power(Math.ceil(k * 10) / 10)}`), "before the oil reaches the tank"),
+    cylinder &&
+      [
+        "Double-acting cylinder",
+        [
+          n(cylinder, "boreMm", (d) => `bore ${u.length(d)}`),
+          n(cylinder, "rodMm", (d) => `rod ${u.length(d)}`),
+          n(cylinder, "strokeMm", (d) => `stroke ${u.length(d)}`),
+        ]
+          .filter(Boolean)
+          .join(", "),
+      ]
+        .filter(Boolean)
+        .join(": "),
+    get("decompression") &&
+      phrase(
+        "Decompression valve, a normally closed 2/2 solenoid valve with an orifice, joined to the cap port: it lets",
+        n(get("decompression"), "releaseCm3", (v) => `about ${u.smallVolume(v)} of`),
+        "compressed oil out to tank before the return stroke",
+      ),
+    filter &&
+      phrase(
+        "Return filter",
+        n(filter, "ratedFlowLpm", (q) => `rated for ${u.flow(q)}`),
+        get("cooler") ? "between valve port T and the oil cooler" : "between valve port T and the tank",
+      ),
+    get("cooler") &&
+      phrase(
+        "Oil cooler after the return filter",
+        n(get("cooler"), "kw", (k) => `sheds ${u.power(Math.ceil(k * 10) / 10)}`),
+        "before the oil reaches the tank",
+      ),
   ];
-  return sentences.filter(Boolean).map((s) => `${s}.`).join(" ");
+  return sentences
+    .filter(Boolean)
+    .map((s) => `${s}.`)
+    .join(" ");
 }
 
 const joins = (pairs: PortPair[]) => (pairs.length ? pairs.map(([a, b]) => `${a} to ${b}`).join(" and ") : "no ports");
@@ -136,10 +173,11 @@ function pumpSentences(circuit: Circuit, u: DisplayUnits, drive: string | undefi
       ).replace(" ,", ","),
       phrase(
         "The small section feeds the system line directly; the large one feeds it through a check valve that lets oil pass only from the large section into the system line",
-        unloading && phrase(
-          "and is dumped to tank by an unloading valve, piloted from the system line,",
-          n(unloading, "settingBar", (p) => `once the system pressure passes ${u.pressure(p)}`),
-        ),
+        unloading &&
+          phrase(
+            "and is dumped to tank by an unloading valve, piloted from the system line,",
+            n(unloading, "settingBar", (p) => `once the system pressure passes ${u.pressure(p)}`),
+          ),
       ),
     ];
   }
@@ -153,12 +191,20 @@ function pumpSentences(circuit: Circuit, u: DisplayUnits, drive: string | undefi
       ).replace(" ,", ","),
       phrase(
         "Its compensator, piloted from the pump's own outlet,",
-        n(pump, "compensatorBar", (p) => `reduces the delivery as the pressure nears ${u.pressure(p)}`) ?? "reduces the delivery as the pressure nears its setting",
+        n(pump, "compensatorBar", (p) => `reduces the delivery as the pressure nears ${u.pressure(p)}`) ??
+          "reduces the delivery as the pressure nears its setting",
         n(pump, "powerLimitKw", (k) => `and a power limiter holds the drive to ${u.power(k)}`),
       ),
     ];
   }
-  return [phrase("Fixed-displacement pump", n(pump, "displacementCcRev", u.displacement), n(pump, "flowLpm", (q) => `delivering ${u.flow(q)}`), drive)];
+  return [
+    phrase(
+      "Fixed-displacement pump",
+      n(pump, "displacementCcRev", u.displacement),
+      n(pump, "flowLpm", (q) => `delivering ${u.flow(q)}`),
+      drive,
+    ),
+  ];
 }
 
 /** The valves between the directional valve and the cylinder other than the counterbalance valve. */
@@ -170,18 +216,22 @@ function workLineSentences(circuit: Circuit, u: DisplayUnits): (string | false |
   const pocs = of("poc");
   const ratio = numberValue(pocs[0], "pilotRatio");
   return [
-    control && phrase(
-      textValue(control, "compensated") === "yes" ? "Pressure-compensated meter-in flow control in the cap line" : "Meter-in flow control in the cap line",
-      numberValue(control, "settingLpm") !== undefined && `sets the pressing speed at ${u.flow(numberValue(control, "settingLpm")!)}`,
-      "and lets the return pass freely through its check",
-      bypass && `; a normally ${textValue(bypass, "normally") === "open" ? "open" : "closed"} 2/2 solenoid valve across it is open for the approach`,
-    ).replace(" ;", ";"),
-    pocs.length > 0 && phrase(
-      pocs.length > 1 ? "Pilot-operated check valves on the cap and rod ports" : `Pilot-operated check valve on the ${textValue(pocs[0], "side") ?? "cylinder"} port`,
-      "hold the load leak-tight: oil flows freely from the valve side (2) to the cylinder (1), and back only when pressure at pilot port X, joined to the opposite work line, opens",
-      pocs.length > 1 ? "them" : "it",
-      ratio !== undefined && `(pilot ratio ${ratio}:1)`,
-    ).replace(/^(Pilot-operated check valve on the \w+ port) hold/, "$1 holds"),
+    control &&
+      phrase(
+        textValue(control, "compensated") === "yes" ? "Pressure-compensated meter-in flow control in the cap line" : "Meter-in flow control in the cap line",
+        numberValue(control, "settingLpm") !== undefined && `sets the pressing speed at ${u.flow(numberValue(control, "settingLpm")!)}`,
+        "and lets the return pass freely through its check",
+        bypass && `; a normally ${textValue(bypass, "normally") === "open" ? "open" : "closed"} 2/2 solenoid valve across it is open for the approach`,
+      ).replace(" ;", ";"),
+    pocs.length > 0 &&
+      phrase(
+        pocs.length > 1
+          ? "Pilot-operated check valves on the cap and rod ports"
+          : `Pilot-operated check valve on the ${textValue(pocs[0], "side") ?? "cylinder"} port`,
+        "hold the load leak-tight: oil flows freely from the valve side (2) to the cylinder (1), and back only when pressure at pilot port X, joined to the opposite work line, opens",
+        pocs.length > 1 ? "them" : "it",
+        ratio !== undefined && `(pilot ratio ${ratio}:1)`,
+      ).replace(/^(Pilot-operated check valve on the \w+ port) hold/, "$1 holds"),
     regen && regenSentence(regen),
     ...switchSentences(circuit, u),
   ];
@@ -213,16 +263,20 @@ function regenSentence(regen: CircuitComponent): string | undefined {
 function switchSentences(circuit: Circuit, u: DisplayUnits): (string | undefined)[] {
   return circuit.components.map((c) => {
     const off = (textValue(c, "switchesOff") ?? "").split(",").map((x) => x.trim());
-    const acts = [off.includes("press-bypass") && "closes the bypass valve", off.includes("regen") && "de-energises the regeneration valve"].filter(Boolean).join(" and ");
+    const acts = [off.includes("press-bypass") && "closes the bypass valve", off.includes("regen") && "de-energises the regeneration valve"]
+      .filter(Boolean)
+      .join(" and ");
     if (c.kind === "pressure-switch") {
       return phrase(
-        "Pressure switch on the cap line", numberValue(c, "settingBar") !== undefined && `set to ${u.pressure(numberValue(c, "settingBar")!)}`,
+        "Pressure switch on the cap line",
+        numberValue(c, "settingBar") !== undefined && `set to ${u.pressure(numberValue(c, "settingBar")!)}`,
         acts && `: it ${acts} as the tool meets the work, so the force is built on the full area`,
       ).replace(" :", ":");
     }
     if (c.kind === "limit-switch") {
       return phrase(
-        "Limit switch at the cylinder", numberValue(c, "beforeEndMm") !== undefined && `${u.length(numberValue(c, "beforeEndMm")!)} before the end of the extension`,
+        "Limit switch at the cylinder",
+        numberValue(c, "beforeEndMm") !== undefined && `${u.length(numberValue(c, "beforeEndMm")!)} before the end of the extension`,
         acts && `: there it ${acts}, where pressing begins`,
       ).replace(" :", ":");
     }

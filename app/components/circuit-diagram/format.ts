@@ -37,11 +37,12 @@ export function displayUnits(system: UnitSystem = "metric"): DisplayUnits {
     lengthUnit: label,
     flow: (lpm) => formatQuantity("flow", lpm, system),
     displacement: (cc) =>
-      system === "us" ? `${formatQuantity("displacement", cc, "metric")} (${formatQuantity("displacement", cc, "us")})` : formatQuantity("displacement", cc, system),
+      system === "us"
+        ? `${formatQuantity("displacement", cc, "metric")} (${formatQuantity("displacement", cc, "us")})`
+        : formatQuantity("displacement", cc, system),
     volume: (l) => formatQuantity("volume", l, system),
     // 1 in = 2.54 cm exactly, so 1 in³ = 2.54³ cm³
-    smallVolume: (cm3) =>
-      system === "us" ? `${readable(cm3 / 2.54 ** 3)} in³` : `${Math.round(cm3).toLocaleString("en-GB")} cm³`,
+    smallVolume: (cm3) => (system === "us" ? `${readable(cm3 / 2.54 ** 3)} in³` : `${Math.round(cm3).toLocaleString("en-GB")} cm³`),
     power: (kw) => formatQuantity("power", kw, system),
     // part: only the metric size, or only the inches ("4.92 / 2.20 in"); both by default for a US reader.
     boreRod: (bore, rod, part) => {
@@ -52,7 +53,8 @@ export function displayUnits(system: UnitSystem = "metric"): DisplayUnits {
       if (part === "inch") return inches;
       return system === "us" ? `${metric} (${inches})` : metric;
     },
-    motorRating: (kw) => (system === "us" ? `${formatQuantity("power", kw, "metric")} (${formatQuantity("power", kw, "us")})` : formatQuantity("power", kw, system)),
+    motorRating: (kw) =>
+      system === "us" ? `${formatQuantity("power", kw, "metric")} (${formatQuantity("power", kw, "us")})` : formatQuantity("power", kw, system),
   };
 }
 

@@ -128,8 +128,7 @@ export interface Layout {
   ports: Record<string, Anchor>;
 }
 
-const byKind = (components: CircuitComponent[], kind: CircuitComponent["kind"]) =>
-  components.find((c) => c.kind === kind);
+const byKind = (components: CircuitComponent[], kind: CircuitComponent["kind"]) => components.find((c) => c.kind === kind);
 
 /** Side the counterbalance valve sits on: the work line its port 1 feeds. */
 export function cbvSide(circuit: Circuit): "rod" | "cap" | null {
@@ -180,8 +179,7 @@ export function layoutCircuit(circuit: Circuit): Layout {
     at[c.id] = point;
     for (const [port, anchor] of Object.entries(anchors)) ports[`${c.id}.${port}`] = anchor;
   };
-  const put = (kind: CircuitComponent["kind"], point: Point, anchors: Record<string, Anchor>) =>
-    place(byKind(circuit.components, kind), point, anchors);
+  const put = (kind: CircuitComponent["kind"], point: Point, anchors: Record<string, Anchor>) => place(byKind(circuit.components, kind), point, anchors);
   const has = (kind: CircuitComponent["kind"]) => byKind(circuit.components, kind) !== undefined;
 
   // Row 1: the cylinder, cap end left, rod leaving to the right, both ports underneath.
@@ -193,10 +191,12 @@ export function layoutCircuit(circuit: Circuit): Layout {
   // piloted valves, that column starts below the other's valves (and their bypass tees).
   const columns = { cap: inLineValves(circuit, "cap"), rod: inLineValves(circuit, "rod") };
   const piloted = (side: "cap" | "rod") => columns[side].some((c) => IN_LINE[c.kind]?.pilot);
-  const stackHeight = (side: "cap" | "rod") =>
-    columns[side].reduce((h, c, i) => h + (i > 0 ? IN_LINE_GAP : 44) + 2 * IN_LINE[c.kind]!.halfH, 0);
+  const stackHeight = (side: "cap" | "rod") => columns[side].reduce((h, c, i) => h + (i > 0 ? IN_LINE_GAP : 44) + 2 * IN_LINE[c.kind]!.halfH, 0);
   const firstGap = { cap: has("decompression") ? 100 : 44, rod: 44 };
-  for (const [side, other] of [["cap", "rod"], ["rod", "cap"]] as const) {
+  for (const [side, other] of [
+    ["cap", "rod"],
+    ["rod", "cap"],
+  ] as const) {
     if (piloted(side) && !piloted(other) && columns[other].length > 0) {
       const otherBottom = firstGap[other] - 44 + stackHeight(other) + 14;
       firstGap[side] = Math.max(firstGap[side], otherBottom + 30);
@@ -233,52 +233,70 @@ export function layoutCircuit(circuit: Circuit): Layout {
   const dcvTop = channelY + 40;
   const dcvBottom = dcvTop + BOX;
 
-  put("cylinder", { x: (CAP_X + ROD_X) / 2, y: (cylinder.top + cylinder.bottom) / 2 }, {
-    cap: { x: CAP_X, y: cylinder.bottom, dir: "down", channelY },
-    rod: { x: ROD_X, y: cylinder.bottom, dir: "down", channelY },
-  });
+  put(
+    "cylinder",
+    { x: (CAP_X + ROD_X) / 2, y: (cylinder.top + cylinder.bottom) / 2 },
+    {
+      cap: { x: CAP_X, y: cylinder.bottom, dir: "down", channelY },
+      rod: { x: ROD_X, y: cylinder.bottom, dir: "down", channelY },
+    },
+  );
   for (const { c, x, cy, side } of centres) {
     const { halfW, halfH, pilot } = IN_LINE[c.kind]!;
     const towards = side === "rod" ? "left" : "right";
     pilotSide[c.id] = towards;
-    place(c, { x, y: cy }, {
-      "1": { x, y: cy - halfH, dir: "up" },
-      "2": { x, y: cy + halfH, dir: "down", channelY },
-      // the regeneration valve's port 3 drops to its own channel, above the work lines', and on to port A
-      ...(c.kind === "regen"
-        ? { "3": { x: towards === "left" ? x - REGEN_PORT3_DX : x + REGEN_PORT3_DX, y: cy + halfH, dir: "down" as const, channelY: channelY - 14 } }
-        : {}),
-      ...(pilot
-        ? { [pilot]: { x: towards === "left" ? x - halfW : x + halfW, y: cy + pilotDy(c.kind, side), dir: towards, tap: true } }
-        : {}),
-    });
+    place(
+      c,
+      { x, y: cy },
+      {
+        "1": { x, y: cy - halfH, dir: "up" },
+        "2": { x, y: cy + halfH, dir: "down", channelY },
+        // the regeneration valve's port 3 drops to its own channel, above the work lines', and on to port A
+        ...(c.kind === "regen"
+          ? { "3": { x: towards === "left" ? x - REGEN_PORT3_DX : x + REGEN_PORT3_DX, y: cy + halfH, dir: "down" as const, channelY: channelY - 14 } }
+          : {}),
+        ...(pilot ? { [pilot]: { x: towards === "left" ? x - halfW : x + halfW, y: cy + pilotDy(c.kind, side), dir: towards, tap: true } } : {}),
+      },
+    );
   }
   // The bypass valve beside the flow control, joined above and below it.
   const control = centres.find((e) => e.c.kind === "flow-control");
   if (control) {
     const bx = control.x + (control.side === "cap" ? -BYPASS_DX : BYPASS_DX);
-    put("bypass", { x: bx, y: control.cy }, {
-      "1": { x: bx, y: control.cy - VENT_BOX / 2, dir: "up", channelY: control.cy - FC_HALF_H - 14 },
-      "2": { x: bx, y: control.cy + VENT_BOX / 2, dir: "down", channelY: control.cy + FC_HALF_H + 14 },
-    });
+    put(
+      "bypass",
+      { x: bx, y: control.cy },
+      {
+        "1": { x: bx, y: control.cy - VENT_BOX / 2, dir: "up", channelY: control.cy - FC_HALF_H - 14 },
+        "2": { x: bx, y: control.cy + VENT_BOX / 2, dir: "down", channelY: control.cy + FC_HALF_H + 14 },
+      },
+    );
   }
   const decompressionY = cylinder.bottom + 34;
-  put("decompression", { x: DECOMPRESSION_X, y: decompressionY }, {
-    "1": { x: DECOMPRESSION_X + VENT_BOX / 2, y: decompressionY, dir: "right", tap: true },
-    "2": { x: DECOMPRESSION_X - VENT_BOX / 2 - DECOMPRESSION_STUB, y: decompressionY, dir: "down", tankTop: decompressionY + 22 },
-  });
+  put(
+    "decompression",
+    { x: DECOMPRESSION_X, y: decompressionY },
+    {
+      "1": { x: DECOMPRESSION_X + VENT_BOX / 2, y: decompressionY, dir: "right", tap: true },
+      "2": { x: DECOMPRESSION_X - VENT_BOX / 2 - DECOMPRESSION_STUB, y: decompressionY, dir: "down", tankTop: decompressionY + 22 },
+    },
+  );
   // The pressure switch tees straight across onto the cap line, below every valve in it.
   const switchX = CAP_X - PRESSURE_SWITCH_DX;
   const switchY = channelY - 24;
   put("pressure-switch", { x: switchX, y: switchY }, { port: { x: switchX + SWITCH_HALF, y: switchY, dir: "right", tap: true } });
   // A limit switch has no port: it is marked beyond the rod end, where the rod's travel reaches it.
   for (const c of circuit.components.filter((x) => x.kind === "limit-switch")) at[c.id] = { x: cylinder.rodEnd + 44, y: (cylinder.top + cylinder.bottom) / 2 };
-  put("dcv", { x: DCV_CX, y: dcvTop + BOX / 2 }, {
-    A: { x: A_X, y: dcvTop, dir: "up" },
-    B: { x: B_X, y: dcvTop, dir: "up" },
-    P: { x: A_X, y: dcvBottom, dir: "down" },
-    T: { x: B_X, y: dcvBottom, dir: "down" },
-  });
+  put(
+    "dcv",
+    { x: DCV_CX, y: dcvTop + BOX / 2 },
+    {
+      A: { x: A_X, y: dcvTop, dir: "up" },
+      B: { x: B_X, y: dcvTop, dir: "up" },
+      P: { x: A_X, y: dcvBottom, dir: "down" },
+      T: { x: B_X, y: dcvBottom, dir: "down" },
+    },
+  );
 
   // Row 5: the power unit. Branches leave the pump line at fixed heights below the valve. A
   // double pump's large section, check and unloading valve take the space right of the pump
@@ -295,20 +313,28 @@ export function layoutCircuit(circuit: Circuit): Layout {
   const filterCy = returnY + 56;
   const coolerCy = filterCy + 58;
 
-  put("relief", { x: RELIEF_X, y: reliefCy }, {
-    "1": { x: RELIEF_X, y: reliefCy - RELIEF_BOX / 2, dir: "up", channelY: reliefJunctionY },
-    "2": { x: RELIEF_X, y: reliefCy + RELIEF_BOX / 2, dir: "down" },
-    // vent port X of a pilot-operated relief, drawn only when the data lists it
-    ...(byKind(circuit.components, "relief")?.ports.includes("X")
-      ? { X: { x: RELIEF_X - RELIEF_BOX / 2, y: reliefCy + RELIEF_VENT_DY, dir: "left" as const } }
-      : {}),
-  });
+  put(
+    "relief",
+    { x: RELIEF_X, y: reliefCy },
+    {
+      "1": { x: RELIEF_X, y: reliefCy - RELIEF_BOX / 2, dir: "up", channelY: reliefJunctionY },
+      "2": { x: RELIEF_X, y: reliefCy + RELIEF_BOX / 2, dir: "down" },
+      // vent port X of a pilot-operated relief, drawn only when the data lists it
+      ...(byKind(circuit.components, "relief")?.ports.includes("X")
+        ? { X: { x: RELIEF_X - RELIEF_BOX / 2, y: reliefCy + RELIEF_VENT_DY, dir: "left" as const } }
+        : {}),
+    },
+  );
   // The vent valve sits below and left of the relief, its normal box over its own tank line.
   const ventCy = reliefCy + 44;
-  put("vent", { x: VENT_X, y: ventCy }, {
-    P: { x: VENT_X, y: ventCy - VENT_BOX / 2, dir: "up" },
-    T: { x: VENT_X, y: ventCy + VENT_BOX / 2, dir: "down" },
-  });
+  put(
+    "vent",
+    { x: VENT_X, y: ventCy },
+    {
+      P: { x: VENT_X, y: ventCy - VENT_BOX / 2, dir: "up" },
+      T: { x: VENT_X, y: ventCy + VENT_BOX / 2, dir: "down" },
+    },
+  );
   if (double) {
     const gaugeY = dcvBottom + 150;
     put("gauge", { x: 300, y: gaugeY }, { port: { x: 300 + GAUGE_R, y: gaugeY, dir: "right" } });
@@ -316,47 +342,75 @@ export function layoutCircuit(circuit: Circuit): Layout {
     const gaugeY = dcvBottom + 100;
     put("gauge", { x: GAUGE_X, y: gaugeY }, { port: { x: GAUGE_X - GAUGE_R, y: gaugeY, dir: "left" } });
   }
-  put("filter", { x: returnX, y: filterCy }, {
-    inlet: { x: returnX, y: filterCy - DIAMOND, dir: "up", channelY: returnY },
-    outlet: { x: returnX, y: filterCy + DIAMOND, dir: "down" },
-  });
-  put("cooler", { x: returnX, y: coolerCy }, {
-    inlet: { x: returnX, y: coolerCy - DIAMOND, dir: "up" },
-    outlet: { x: returnX, y: coolerCy + DIAMOND, dir: "down" },
-  });
+  put(
+    "filter",
+    { x: returnX, y: filterCy },
+    {
+      inlet: { x: returnX, y: filterCy - DIAMOND, dir: "up", channelY: returnY },
+      outlet: { x: returnX, y: filterCy + DIAMOND, dir: "down" },
+    },
+  );
+  put(
+    "cooler",
+    { x: returnX, y: coolerCy },
+    {
+      inlet: { x: returnX, y: coolerCy - DIAMOND, dir: "up" },
+      outlet: { x: returnX, y: coolerCy + DIAMOND, dir: "down" },
+    },
+  );
   const pumps = circuit.components.filter((c) => c.kind === "pump");
   const small = pumps.find((c) => c.id === "pump") ?? pumps.find((c) => c.values?.section !== "large");
   const large = pumps.find((c) => c !== small);
-  place(small, { x: A_X, y: pumpY }, {
-    outlet: { x: A_X, y: pumpY - PUMP_R, dir: "up" },
-    inlet: { x: A_X, y: pumpY + PUMP_R, dir: "down" },
-    shaft: { x: A_X - PUMP_R, y: pumpY, dir: "left" },
-  });
+  place(
+    small,
+    { x: A_X, y: pumpY },
+    {
+      outlet: { x: A_X, y: pumpY - PUMP_R, dir: "up" },
+      inlet: { x: A_X, y: pumpY + PUMP_R, dir: "down" },
+      shaft: { x: A_X - PUMP_R, y: pumpY, dir: "left" },
+    },
+  );
   if (large) {
     const lx = A_X + LARGE_SECTION_DX;
     const checkY = dcvBottom + 150;
     const ux = lx + 70;
     const uy = dcvBottom + 190;
-    place(large, { x: lx, y: pumpY }, {
-      outlet: { x: lx, y: pumpY - PUMP_R, dir: "up" },
-      inlet: { x: lx, y: pumpY + PUMP_R, dir: "down" },
-      shaft: { x: lx - PUMP_R, y: pumpY, dir: "left" },
-    });
-    put("check", { x: lx, y: checkY }, {
-      inlet: { x: lx, y: checkY + CHECK_HALF, dir: "down" },
-      outlet: { x: lx, y: checkY - CHECK_HALF, dir: "up", channelY: dcvBottom + 84 },
-    });
-    put("unloading", { x: ux, y: uy }, {
-      "1": { x: ux - RELIEF_BOX / 2, y: uy, dir: "left", tap: true },
-      "2": { x: ux + RELIEF_BOX / 2 + UNLOADING_STUB, y: uy, dir: "right", tankTop: uy + 22 },
-      X: { x: ux, y: uy - RELIEF_BOX / 2, dir: "up", channelY: dcvBottom + 112 },
-    });
+    place(
+      large,
+      { x: lx, y: pumpY },
+      {
+        outlet: { x: lx, y: pumpY - PUMP_R, dir: "up" },
+        inlet: { x: lx, y: pumpY + PUMP_R, dir: "down" },
+        shaft: { x: lx - PUMP_R, y: pumpY, dir: "left" },
+      },
+    );
+    put(
+      "check",
+      { x: lx, y: checkY },
+      {
+        inlet: { x: lx, y: checkY + CHECK_HALF, dir: "down" },
+        outlet: { x: lx, y: checkY - CHECK_HALF, dir: "up", channelY: dcvBottom + 84 },
+      },
+    );
+    put(
+      "unloading",
+      { x: ux, y: uy },
+      {
+        "1": { x: ux - RELIEF_BOX / 2, y: uy, dir: "left", tap: true },
+        "2": { x: ux + RELIEF_BOX / 2 + UNLOADING_STUB, y: uy, dir: "right", tankTop: uy + 22 },
+        X: { x: ux, y: uy - RELIEF_BOX / 2, dir: "up", channelY: dcvBottom + 112 },
+      },
+    );
   }
   put("motor", { x: MOTOR_X, y: pumpY }, { shaft: { x: MOTOR_X + MOTOR_R, y: pumpY, dir: "right" } });
-  put("strainer", { x: A_X, y: strainerY }, {
-    outlet: { x: A_X, y: strainerY - DIAMOND, dir: "up" },
-    inlet: { x: A_X, y: strainerY + DIAMOND, dir: "down" },
-  });
+  put(
+    "strainer",
+    { x: A_X, y: strainerY },
+    {
+      outlet: { x: A_X, y: strainerY - DIAMOND, dir: "up" },
+      inlet: { x: A_X, y: strainerY + DIAMOND, dir: "down" },
+    },
+  );
   // Tanks are drawn where each line ends (see routes.ts), so the reservoir has no single place.
   const tank = byKind(circuit.components, "tank");
   if (tank) at[tank.id] = { x: A_X, y: tankY };

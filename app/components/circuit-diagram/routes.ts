@@ -114,8 +114,7 @@ export function routeConnections(circuit: Circuit, layout: Layout): Route[] {
   return circuit.connections.flatMap((c) => routes.get(c) ?? []);
 }
 
-export const pathData = (points: Point[]) =>
-  points.map((p, i) => `${i === 0 ? "M" : "L"}${p.x} ${p.y}`).join(" ");
+export const pathData = (points: Point[]) => points.map((p, i) => `${i === 0 ? "M" : "L"}${p.x} ${p.y}`).join(" ");
 
 const near = (a: number, b: number) => Math.abs(a - b) < 0.5;
 
@@ -137,10 +136,7 @@ export function junctions(routes: Route[]): Point[] {
     if (r.connection.line === "shaft") continue;
     for (const p of r.points) {
       const tee = routes.some(
-        (other) =>
-          other !== r &&
-          other.connection.line !== "shaft" &&
-          other.points.some((q, i) => i > 0 && onSegmentInterior(p, other.points[i - 1], q)),
+        (other) => other !== r && other.connection.line !== "shaft" && other.points.some((q, i) => i > 0 && onSegmentInterior(p, other.points[i - 1], q)),
       );
       if (tee && !dots.some((d) => near(d.x, p.x) && near(d.y, p.y))) dots.push(p);
     }

@@ -1,9 +1,31 @@
 import type { DcvPositions, SolenoidValvePositions } from "~/hydraulics/design";
 import {
-  BOX, CBV_HALF_H, CBV_HALF_W, CBV_PILOT_DY, CHECK_HALF, DECOMPRESSION_STUB, DIAMOND, FC_HALF_H, FC_HALF_W, GAUGE_R, INLINE_PILOT_DY,
-  MOTOR_R, POC_HALF_H, POC_HALF_W, PUMP_R, REGEN_BOX, REGEN_PORT3_DX, RELIEF_BOX, RELIEF_VENT_DY, SWITCH_HALF, TANK_H, TANK_W, UNLOADING_STUB,
+  BOX,
+  CBV_HALF_H,
+  CBV_HALF_W,
+  CBV_PILOT_DY,
+  CHECK_HALF,
+  DECOMPRESSION_STUB,
+  DIAMOND,
+  FC_HALF_H,
+  FC_HALF_W,
+  GAUGE_R,
+  INLINE_PILOT_DY,
+  MOTOR_R,
+  POC_HALF_H,
+  POC_HALF_W,
+  PUMP_R,
+  REGEN_BOX,
+  REGEN_PORT3_DX,
+  RELIEF_BOX,
+  RELIEF_VENT_DY,
+  SWITCH_HALF,
+  TANK_H,
+  TANK_W,
+  UNLOADING_STUB,
   VENT_BOX,
-  type CylinderPlace, type Point,
+  type CylinderPlace,
+  type Point,
 } from "./layout";
 import { blockedPorts, boxDrawing, pairsLabel } from "./valve-positions";
 
@@ -74,9 +96,13 @@ type Anchor = "start" | "middle" | "end";
 export function Caption({ x, y, anchor = "start", name, values }: { x: number; y: number; anchor?: Anchor; name: string; values: string[] }) {
   return (
     <text x={x} y={y} textAnchor={anchor} fontSize={11.5} fill="currentColor" stroke="none">
-      <tspan x={x} className="fill-ink-800" fontWeight={600}>{name}</tspan>
+      <tspan x={x} className="fill-ink-800" fontWeight={600}>
+        {name}
+      </tspan>
       {values.map((v, i) => (
-        <tspan key={i} x={x} dy={14} className="fill-flow-700">{v}</tspan>
+        <tspan key={i} x={x} dy={14} className="fill-flow-700">
+          {v}
+        </tspan>
       ))}
     </text>
   );
@@ -104,11 +130,22 @@ export function CylinderSymbol({ id, place }: { id: string; place: CylinderPlace
       <rect x={left} y={top} width={right - left} height={bottom - top} {...outline} />
       <rect x={pistonX - 3} y={top} width={6} height={bottom - top} fill="currentColor" stroke="none" />
       {/* the white rod body hides the end wall where the rod passes through the gland */}
-      <rect x={pistonX + 3} y={midY - rodHalf} width={rodEnd - pistonX - 3} height={rodHalf * 2} fill="white" {...{ stroke: "currentColor", strokeWidth: STROKE.symbol }} />
+      <rect
+        x={pistonX + 3}
+        y={midY - rodHalf}
+        width={rodEnd - pistonX - 3}
+        height={rodHalf * 2}
+        fill="white"
+        {...{ stroke: "currentColor", strokeWidth: STROKE.symbol }}
+      />
       <line x1={right} y1={top} x2={right} y2={midY - rodHalf} {...outline} />
       <line x1={right} y1={midY + rodHalf} x2={right} y2={bottom} {...outline} />
-      <PortLabel x={place.capX - 7} y={bottom + 15} anchor="end" port={`${id}.cap`}>cap</PortLabel>
-      <PortLabel x={place.rodX + 7} y={bottom + 15} anchor="start" port={`${id}.rod`}>rod</PortLabel>
+      <PortLabel x={place.capX - 7} y={bottom + 15} anchor="end" port={`${id}.cap`}>
+        cap
+      </PortLabel>
+      <PortLabel x={place.rodX + 7} y={bottom + 15} anchor="start" port={`${id}.rod`}>
+        rod
+      </PortLabel>
     </g>
   );
 }
@@ -135,10 +172,7 @@ export function CbvSymbol({ id, centre, pilotSide }: { id: string; centre: Point
   const far = (x: number): Anchor => (s * x > 0 ? "start" : "end");
   return (
     <g data-component={id} data-kind="cbv">
-      <rect
-        x={centre.x - CBV_HALF_W} y={centre.y - CBV_HALF_H} width={CBV_HALF_W * 2} height={CBV_HALF_H * 2}
-        {...thin} strokeDasharray={DASH.enclosure}
-      />
+      <rect x={centre.x - CBV_HALF_W} y={centre.y - CBV_HALF_H} width={CBV_HALF_W * 2} height={CBV_HALF_H * 2} {...thin} strokeDasharray={DASH.enclosure} />
       {L([0, -CBV_HALF_H], [0, -40])}
       {L([0, CBV_HALF_H], [0, 40])}
       {L([valveX, -40], [checkX, -40])}
@@ -146,10 +180,7 @@ export function CbvSymbol({ id, centre, pilotSide }: { id: string; centre: Point
       {/* pressure element, normally closed: the flow arrow stands off the port line */}
       {L([valveX, -40], [valveX, -half])}
       {L([valveX, half], [valveX, 40])}
-      <rect
-        x={Math.min(square[0].x, square[1].x)} y={centre.y - half} width={RELIEF_BOX} height={RELIEF_BOX}
-        {...outline} fill="white"
-      />
+      <rect x={Math.min(square[0].x, square[1].x)} y={centre.y - half} width={RELIEF_BOX} height={RELIEF_BOX} {...outline} fill="white" />
       <Arrow from={P(valveX + 8, -13)} to={P(valveX + 8, 13)} />
       <Spring a={P(valveX + half, 0)} b={P(valveX + half + 22, 0)} />
       <Adjustable centre={P(valveX + half + 11, 0)} span={10} />
@@ -163,9 +194,15 @@ export function CbvSymbol({ id, centre, pilotSide }: { id: string; centre: Point
       <polyline points={pts([P(-CBV_HALF_W, CBV_PILOT_DY), P(valveX - half, CBV_PILOT_DY)])} {...pilot} />
       <circle cx={P(0, -40).x} cy={centre.y - 40} r={2.4} fill="currentColor" />
       <circle cx={P(0, 40).x} cy={centre.y + 40} r={2.4} fill="currentColor" />
-      <PortLabel x={P(7, 0).x} y={centre.y - CBV_HALF_H - 6} anchor={far(7)} port={`${id}.1`}>1</PortLabel>
-      <PortLabel x={P(7, 0).x} y={centre.y + CBV_HALF_H + 15} anchor={far(7)} port={`${id}.2`}>2</PortLabel>
-      <PortLabel x={P(-CBV_HALF_W - 6, 0).x} y={centre.y + CBV_PILOT_DY - 5} anchor={far(-1)} port={`${id}.3`}>3</PortLabel>
+      <PortLabel x={P(7, 0).x} y={centre.y - CBV_HALF_H - 6} anchor={far(7)} port={`${id}.1`}>
+        1
+      </PortLabel>
+      <PortLabel x={P(7, 0).x} y={centre.y + CBV_HALF_H + 15} anchor={far(7)} port={`${id}.2`}>
+        2
+      </PortLabel>
+      <PortLabel x={P(-CBV_HALF_W - 6, 0).x} y={centre.y + CBV_PILOT_DY - 5} anchor={far(-1)} port={`${id}.3`}>
+        3
+      </PortLabel>
     </g>
   );
 }
@@ -183,10 +220,20 @@ export function ReliefSymbol({ id, centre, vented = false }: { id: string; centr
       <Arrow from={{ x: x + 8, y: y - 13 }} to={{ x: x + 8, y: y + 13 }} />
       <Spring a={{ x: x + half, y }} b={{ x: x + half + 24, y }} />
       <Adjustable centre={{ x: x + half + 12, y }} span={10} />
-      <polyline points={pts([{ x, y: y - half - 8 }, { x: x - half - 12, y: y - half - 8 }, { x: x - half - 12, y }, { x: x - half, y }])} {...pilot} />
+      <polyline
+        points={pts([
+          { x, y: y - half - 8 },
+          { x: x - half - 12, y: y - half - 8 },
+          { x: x - half - 12, y },
+          { x: x - half, y },
+        ])}
+        {...pilot}
+      />
       <circle cx={x} cy={y - half - 8} r={2.4} fill="currentColor" />
       {vented ? (
-        <PortLabel x={x - half - 4} y={y + RELIEF_VENT_DY + 13} anchor="end" port={`${id}.X`}>X</PortLabel>
+        <PortLabel x={x - half - 4} y={y + RELIEF_VENT_DY + 13} anchor="end" port={`${id}.X`}>
+          X
+        </PortLabel>
       ) : null}
     </g>
   );
@@ -210,7 +257,10 @@ export function VentValveSymbol({ id, centre }: { id: string; centre: Point }) {
     <g data-component={id} data-kind="vent">
       <g data-position="energised" data-paths="" data-blocked="P,T">
         <rect x={leftBox} y={top} width={b} height={b} {...outline} />
-        {[{ from: top, to: top + 8 }, { from: bottom, to: bottom - 8 }].map((stop, i) => (
+        {[
+          { from: top, to: top + 8 },
+          { from: bottom, to: bottom - 8 },
+        ].map((stop, i) => (
           <g key={i} data-blocked-port={i === 0 ? "P" : "T"}>
             <line x1={blockedX} y1={stop.from} x2={blockedX} y2={stop.to} {...thin} />
             <line x1={blockedX - 5} y1={stop.to} x2={blockedX + 5} y2={stop.to} {...outline} />
@@ -226,8 +276,12 @@ export function VentValveSymbol({ id, centre }: { id: string; centre: Point }) {
         <line x1={leftBox - solenoid.w} y1={y + solenoid.h / 2} x2={leftBox} y2={y - solenoid.h / 2} {...thin} />
       </g>
       <Spring a={{ x: x + b / 2, y }} b={{ x: x + b / 2 + 18, y }} turns={3} amplitude={4} />
-      <PortLabel x={x + 5} y={top - 5} anchor="start" port={`${id}.P`}>P</PortLabel>
-      <PortLabel x={x + 5} y={bottom + 13} anchor="start" port={`${id}.T`}>T</PortLabel>
+      <PortLabel x={x + 5} y={top - 5} anchor="start" port={`${id}.P`}>
+        P
+      </PortLabel>
+      <PortLabel x={x + 5} y={bottom + 13} anchor="start" port={`${id}.T`}>
+        T
+      </PortLabel>
     </g>
   );
 }
@@ -254,9 +308,15 @@ export function DcvSymbol({ id, cx, top, positions }: { id: string; cx: number; 
         return (
           <g key={position} data-position={position} data-paths={pairsLabel(pairs)} data-blocked={blockedPorts(pairs).join(",")}>
             <rect x={x} y={top} width={BOX} height={BOX} {...outline} />
-            {drawing.arrows.map((a, i) => <Arrow key={`a${i}`} from={at(a.from)} to={at(a.to)} />)}
-            {drawing.passages.map((line, i) => <polyline key={`p${i}`} points={pts(line.map(at))} {...thin} />)}
-            {drawing.dots.map((d, i) => <circle key={`d${i}`} cx={at(d).x} cy={at(d).y} r={2.2} fill="currentColor" />)}
+            {drawing.arrows.map((a, i) => (
+              <Arrow key={`a${i}`} from={at(a.from)} to={at(a.to)} />
+            ))}
+            {drawing.passages.map((line, i) => (
+              <polyline key={`p${i}`} points={pts(line.map(at))} {...thin} />
+            ))}
+            {drawing.dots.map((d, i) => (
+              <circle key={`d${i}`} cx={at(d).x} cy={at(d).y} r={2.2} fill="currentColor" />
+            ))}
             {drawing.blocked.map(({ port, at: p }) => {
               const inward = p.y === 0 ? 11 : -11;
               const end = at({ x: p.x, y: p.y + inward });
@@ -279,13 +339,23 @@ export function DcvSymbol({ id, cx, top, positions }: { id: string; cx: number; 
           <rect x={end.x} y={solenoid.y} width={solenoid.w} height={solenoid.h} {...outline} />
           <line x1={end.x} y1={solenoid.y + solenoid.h} x2={end.x + solenoid.w} y2={solenoid.y} {...thin} />
           <Spring a={{ x: end.from, y: springY }} b={{ x: end.springTo, y: springY }} turns={3} amplitude={5} />
-          <text x={end.lx} y={solenoid.y + 17} textAnchor={end.anchor} fontSize={11} fontStyle="italic" fill="currentColor" className="fill-ink-600">{end.label}</text>
+          <text x={end.lx} y={solenoid.y + 17} textAnchor={end.anchor} fontSize={11} fontStyle="italic" fill="currentColor" className="fill-ink-600">
+            {end.label}
+          </text>
         </g>
       ))}
-      <PortLabel x={cx - BOX / 2 + 12} y={top - 6} anchor="end" port={`${id}.A`}>A</PortLabel>
-      <PortLabel x={cx + BOX / 2 - 12} y={top - 6} anchor="start" port={`${id}.B`}>B</PortLabel>
-      <PortLabel x={cx - BOX / 2 + 12} y={top + BOX + 15} anchor="end" port={`${id}.P`}>P</PortLabel>
-      <PortLabel x={cx + BOX / 2 - 12} y={top + BOX + 15} anchor="start" port={`${id}.T`}>T</PortLabel>
+      <PortLabel x={cx - BOX / 2 + 12} y={top - 6} anchor="end" port={`${id}.A`}>
+        A
+      </PortLabel>
+      <PortLabel x={cx + BOX / 2 - 12} y={top - 6} anchor="start" port={`${id}.B`}>
+        B
+      </PortLabel>
+      <PortLabel x={cx - BOX / 2 + 12} y={top + BOX + 15} anchor="end" port={`${id}.P`}>
+        P
+      </PortLabel>
+      <PortLabel x={cx + BOX / 2 - 12} y={top + BOX + 15} anchor="start" port={`${id}.T`}>
+        T
+      </PortLabel>
     </g>
   );
 }
@@ -318,7 +388,14 @@ export function PumpSymbol({ id, centre, variable = false, compensated = false }
           <Spring a={{ x: stem + 5, y }} b={{ x: stem + 27, y }} turns={3} amplitude={5} />
           <Adjustable centre={{ x: stem + 16, y }} span={9} />
           {/* pilot from the outlet onto the compensator piston, against the spring */}
-          <polyline points={pts([{ x, y: pilotY }, { x: stem, y: pilotY }, { x: stem, y: y - 9 }])} {...pilot} />
+          <polyline
+            points={pts([
+              { x, y: pilotY },
+              { x: stem, y: pilotY },
+              { x: stem, y: y - 9 },
+            ])}
+            {...pilot}
+          />
           <circle cx={x} cy={pilotY} r={2.4} fill="currentColor" />
         </g>
       ) : null}
@@ -330,7 +407,9 @@ export function MotorSymbol({ id, centre }: { id: string; centre: Point }) {
   return (
     <g data-component={id} data-kind="motor">
       <circle cx={centre.x} cy={centre.y} r={MOTOR_R} {...outline} fill="white" />
-      <text x={centre.x} y={centre.y + 6} textAnchor="middle" fontSize={17} fontWeight={700} fill="currentColor">M</text>
+      <text x={centre.x} y={centre.y + 6} textAnchor="middle" fontSize={17} fontWeight={700} fill="currentColor">
+        M
+      </text>
     </g>
   );
 }
@@ -353,9 +432,22 @@ export function FilterSymbol({ id, centre, kind }: { id: string; centre: Point; 
   const d = DIAMOND;
   return (
     <g data-component={id} data-kind={kind}>
-      <polygon points={pts([{ x, y: y - d }, { x: x + d, y }, { x, y: y + d }, { x: x - d, y }])} {...outline} fill="white" />
+      <polygon
+        points={pts([
+          { x, y: y - d },
+          { x: x + d, y },
+          { x, y: y + d },
+          { x: x - d, y },
+        ])}
+        {...outline}
+        fill="white"
+      />
       <line
-        x1={x - d} y1={y} x2={x + d} y2={y} {...thin}
+        x1={x - d}
+        y1={y}
+        x2={x + d}
+        y2={y}
+        {...thin}
         strokeDasharray={kind === "filter" ? DASH.element : DASH.strainer}
         strokeWidth={kind === "filter" ? STROKE.thin : STROKE.symbol}
       />
@@ -367,7 +459,15 @@ export function FilterSymbol({ id, centre, kind }: { id: string; centre: Point; 
 export function TankSymbol({ id, x, top }: { id: string; x: number; top: number }) {
   return (
     <g data-component={id} data-kind="tank">
-      <polyline points={pts([{ x: x - TANK_W / 2, y: top }, { x: x - TANK_W / 2, y: top + TANK_H }, { x: x + TANK_W / 2, y: top + TANK_H }, { x: x + TANK_W / 2, y: top }])} {...outline} />
+      <polyline
+        points={pts([
+          { x: x - TANK_W / 2, y: top },
+          { x: x - TANK_W / 2, y: top + TANK_H },
+          { x: x + TANK_W / 2, y: top + TANK_H },
+          { x: x + TANK_W / 2, y: top },
+        ])}
+        {...outline}
+      />
     </g>
   );
 }
@@ -384,7 +484,14 @@ export function CheckSymbol({ id, centre }: { id: string; centre: Point }) {
     <g data-component={id} data-kind="check" data-free-flow="inlet-outlet">
       <rect x={x - 11} y={y - CHECK_HALF} width={22} height={CHECK_HALF * 2} fill="white" stroke="none" />
       <line x1={x} y1={y + CHECK_HALF} x2={x} y2={y + 8} {...outline} />
-      <polyline points={pts([{ x: x - 8, y: y - 3 }, { x, y: y + 8 }, { x: x + 8, y: y - 3 }])} {...outline} />
+      <polyline
+        points={pts([
+          { x: x - 8, y: y - 3 },
+          { x, y: y + 8 },
+          { x: x + 8, y: y - 3 },
+        ])}
+        {...outline}
+      />
       <circle cx={x} cy={y - 6} r={6} {...outline} />
       <line x1={x} y1={y - 12} x2={x} y2={y - CHECK_HALF} {...outline} />
     </g>
@@ -396,7 +503,17 @@ export function CheckSymbol({ id, centre }: { id: string; centre: Point }) {
  * below) to 1 (the cylinder, above), closed the other way until pressure at pilot port X lifts
  * the ball off its seat. The pilot enters on `pilotSide`, towards the opposite work line.
  */
-export function PocSymbol({ id, centre, pilotSide, pilotY = centre.y + INLINE_PILOT_DY }: { id: string; centre: Point; pilotSide: "left" | "right"; pilotY?: number }) {
+export function PocSymbol({
+  id,
+  centre,
+  pilotSide,
+  pilotY = centre.y + INLINE_PILOT_DY,
+}: {
+  id: string;
+  centre: Point;
+  pilotSide: "left" | "right";
+  pilotY?: number;
+}) {
   const { x, y } = centre;
   const s = pilotSide === "left" ? -1 : 1;
   const ballY = y - 4;
@@ -404,14 +521,34 @@ export function PocSymbol({ id, centre, pilotSide, pilotY = centre.y + INLINE_PI
     <g data-component={id} data-kind="poc" data-free-flow="2-1">
       <rect x={x - POC_HALF_W} y={y - POC_HALF_H} width={POC_HALF_W * 2} height={POC_HALF_H * 2} {...outline} fill="white" />
       <line x1={x} y1={y + POC_HALF_H} x2={x} y2={ballY + 13} {...outline} />
-      <polyline points={pts([{ x: x - 8, y: ballY + 1 }, { x, y: ballY + 13 }, { x: x + 8, y: ballY + 1 }])} {...outline} />
+      <polyline
+        points={pts([
+          { x: x - 8, y: ballY + 1 },
+          { x, y: ballY + 13 },
+          { x: x + 8, y: ballY + 1 },
+        ])}
+        {...outline}
+      />
       <circle cx={x} cy={ballY} r={6} {...outline} />
       <line x1={x} y1={ballY - 6} x2={x} y2={y - POC_HALF_H} {...outline} />
       {/* the pilot piston that lifts the ball */}
-      <polyline points={pts([{ x: x + s * POC_HALF_W, y: pilotY }, { x: x + s * 11, y: pilotY }, { x: x + s * 11, y: Math.min(pilotY, ballY + 4) }])} {...pilot} />
-      <PortLabel x={x - s * 7} y={y - POC_HALF_H - 6} anchor={s > 0 ? "end" : "start"} port={`${id}.1`}>1</PortLabel>
-      <PortLabel x={x - s * 7} y={y + POC_HALF_H + 15} anchor={s > 0 ? "end" : "start"} port={`${id}.2`}>2</PortLabel>
-      <PortLabel x={x + s * (POC_HALF_W + 5)} y={pilotY - 5} anchor={s > 0 ? "start" : "end"} port={`${id}.X`}>X</PortLabel>
+      <polyline
+        points={pts([
+          { x: x + s * POC_HALF_W, y: pilotY },
+          { x: x + s * 11, y: pilotY },
+          { x: x + s * 11, y: Math.min(pilotY, ballY + 4) },
+        ])}
+        {...pilot}
+      />
+      <PortLabel x={x - s * 7} y={y - POC_HALF_H - 6} anchor={s > 0 ? "end" : "start"} port={`${id}.1`}>
+        1
+      </PortLabel>
+      <PortLabel x={x - s * 7} y={y + POC_HALF_H + 15} anchor={s > 0 ? "end" : "start"} port={`${id}.2`}>
+        2
+      </PortLabel>
+      <PortLabel x={x + s * (POC_HALF_W + 5)} y={pilotY - 5} anchor={s > 0 ? "start" : "end"} port={`${id}.X`}>
+        X
+      </PortLabel>
     </g>
   );
 }
@@ -432,8 +569,20 @@ export function FlowControlSymbol({ id, centre, compensated = false }: { id: str
       <rect x={x - FC_HALF_W} y={y - FC_HALF_H} width={FC_HALF_W * 2} height={FC_HALF_H * 2} {...thin} strokeDasharray={DASH.enclosure} fill="white" />
       <line x1={x} y1={y - FC_HALF_H} x2={x} y2={top} {...outline} />
       <line x1={x} y1={y + FC_HALF_H} x2={x} y2={bottom} {...outline} />
-      <polyline points={pts([{ x: x - 12, y: top }, { x: branch, y: top }])} {...outline} />
-      <polyline points={pts([{ x: x - 12, y: bottom }, { x: branch, y: bottom }])} {...outline} />
+      <polyline
+        points={pts([
+          { x: x - 12, y: top },
+          { x: branch, y: top },
+        ])}
+        {...outline}
+      />
+      <polyline
+        points={pts([
+          { x: x - 12, y: bottom },
+          { x: branch, y: bottom },
+        ])}
+        {...outline}
+      />
       {/* throttle: two arcs narrowing the line, with the setting arrow across */}
       <line x1={x - 12} y1={top} x2={x - 12} y2={bottom} {...outline} />
       <path d={`M${x - 18} ${y - 12} Q${x - 13} ${y} ${x - 18} ${y + 12}`} {...outline} />
@@ -443,13 +592,24 @@ export function FlowControlSymbol({ id, centre, compensated = false }: { id: str
       {compensated ? <Arrow from={{ x: x - 27, y: y + 9 }} to={{ x: x - 27, y: y - 9 }} /> : null}
       {/* free-flow check: apex towards 1 (above), so flow from 1 down to 2 lifts the ball */}
       <line x1={branch} y1={top} x2={branch} y2={ballY - 12} {...outline} />
-      <polyline points={pts([{ x: branch - 7, y: ballY - 1 }, { x: branch, y: ballY - 12 }, { x: branch + 7, y: ballY - 1 }])} {...outline} />
+      <polyline
+        points={pts([
+          { x: branch - 7, y: ballY - 1 },
+          { x: branch, y: ballY - 12 },
+          { x: branch + 7, y: ballY - 1 },
+        ])}
+        {...outline}
+      />
       <circle cx={branch} cy={ballY + 4} r={5.5} {...outline} />
       <line x1={branch} y1={ballY + 9.5} x2={branch} y2={bottom} {...outline} />
       <circle cx={x} cy={top} r={2.2} fill="currentColor" />
       <circle cx={x} cy={bottom} r={2.2} fill="currentColor" />
-      <PortLabel x={x + 7} y={y - FC_HALF_H - 6} anchor="start" port={`${id}.1`}>1</PortLabel>
-      <PortLabel x={x + 7} y={y + FC_HALF_H + 15} anchor="start" port={`${id}.2`}>2</PortLabel>
+      <PortLabel x={x + 7} y={y - FC_HALF_H - 6} anchor="start" port={`${id}.1`}>
+        1
+      </PortLabel>
+      <PortLabel x={x + 7} y={y + FC_HALF_H + 15} anchor="start" port={`${id}.2`}>
+        2
+      </PortLabel>
     </g>
   );
 }
@@ -463,7 +623,13 @@ export function FlowControlSymbol({ id, centre, compensated = false }: { id: str
  * joins them; a normally open one the other way round.
  */
 export function SolenoidValve22({
-  id, kind, centre, ports, normally, portNames, flowFrom = portNames[0],
+  id,
+  kind,
+  centre,
+  ports,
+  normally,
+  portNames,
+  flowFrom = portNames[0],
 }: {
   id: string;
   kind: string;
@@ -478,12 +644,24 @@ export function SolenoidValve22({
   const b = VENT_BOX;
   const map = ([u, v]: [number, number]): Point => (ports === "vertical" ? { x: centre.x + u, y: centre.y + v } : { x: centre.x + v, y: centre.y + u });
   const poly = (corners: [number, number][], extra: object = outline) => <polygon points={pts(corners.map(map))} {...extra} />;
-  const box = (u0: number) => poly([[u0, -b / 2], [u0 + b, -b / 2], [u0 + b, b / 2], [u0, b / 2]], { ...outline, fill: "white" });
+  const box = (u0: number) =>
+    poly(
+      [
+        [u0, -b / 2],
+        [u0 + b, -b / 2],
+        [u0 + b, b / 2],
+        [u0, b / 2],
+      ],
+      { ...outline, fill: "white" },
+    );
   const into = flowFrom === portNames[0] ? 1 : -1;
   const open = (u: number) => <Arrow from={map([u, (-into * b) / 2])} to={map([u, (into * b) / 2])} />;
   const blocked = (u: number) => (
     <>
-      {[[-b / 2, -b / 2 + 8], [b / 2, b / 2 - 8]].map(([from, to], i) => (
+      {[
+        [-b / 2, -b / 2 + 8],
+        [b / 2, b / 2 - 8],
+      ].map(([from, to], i) => (
         <g key={i}>
           <line x1={map([u, from]).x} y1={map([u, from]).y} x2={map([u, to]).x} y2={map([u, to]).y} {...thin} />
           <line x1={map([u - 5, to]).x} y1={map([u - 5, to]).y} x2={map([u + 5, to]).x} y2={map([u + 5, to]).y} {...outline} />
@@ -507,8 +685,19 @@ export function SolenoidValve22({
         {normally === "open" ? open(0) : blocked(0)}
       </g>
       <g data-actuator="solenoid">
-        {poly([[solU, -sol.h / 2], [solU + sol.w, -sol.h / 2], [solU + sol.w, sol.h / 2], [solU, sol.h / 2]])}
-        <line x1={map([solU, sol.h / 2]).x} y1={map([solU, sol.h / 2]).y} x2={map([solU + sol.w, -sol.h / 2]).x} y2={map([solU + sol.w, -sol.h / 2]).y} {...thin} />
+        {poly([
+          [solU, -sol.h / 2],
+          [solU + sol.w, -sol.h / 2],
+          [solU + sol.w, sol.h / 2],
+          [solU, sol.h / 2],
+        ])}
+        <line
+          x1={map([solU, sol.h / 2]).x}
+          y1={map([solU, sol.h / 2]).y}
+          x2={map([solU + sol.w, -sol.h / 2]).x}
+          y2={map([solU + sol.w, -sol.h / 2]).y}
+          {...thin}
+        />
       </g>
       <Spring a={map([b / 2, 0])} b={map([b / 2 + 18, 0])} turns={3} amplitude={4} />
     </g>
@@ -538,8 +727,12 @@ export function DecompressionSymbol({ id, centre }: { id: string; centre: Point 
     <g data-component={id} data-kind="decompression">
       <Orifice a={end} b={wall} />
       <SolenoidValve22 id={`${id}-valve`} kind="decompression-valve" centre={centre} ports="horizontal" normally="closed" portNames={["2", "1"]} flowFrom="1" />
-      <PortLabel x={centre.x + VENT_BOX / 2 + 4} y={centre.y - 5} anchor="start" port={`${id}.1`}>1</PortLabel>
-      <PortLabel x={end.x - 5} y={centre.y - 4} anchor="end" port={`${id}.2`}>2</PortLabel>
+      <PortLabel x={centre.x + VENT_BOX / 2 + 4} y={centre.y - 5} anchor="start" port={`${id}.1`}>
+        1
+      </PortLabel>
+      <PortLabel x={end.x - 5} y={centre.y - 4} anchor="end" port={`${id}.2`}>
+        2
+      </PortLabel>
     </g>
   );
 }
@@ -560,9 +753,15 @@ export function UnloadingSymbol({ id, centre }: { id: string; centre: Point }) {
       <Spring a={{ x, y: y + half }} b={{ x, y: y + half + 22 }} turns={3} amplitude={5} />
       <Adjustable centre={{ x, y: y + half + 11 }} span={9} />
       <line x1={x + half} y1={y} x2={x + half + UNLOADING_STUB} y2={y} {...outline} />
-      <PortLabel x={x - half - 4} y={y - 5} anchor="end" port={`${id}.1`}>1</PortLabel>
-      <PortLabel x={x + half + UNLOADING_STUB + 4} y={y - 5} anchor="start" port={`${id}.2`}>2</PortLabel>
-      <PortLabel x={x + 5} y={y - half - 5} anchor="start" port={`${id}.X`}>X</PortLabel>
+      <PortLabel x={x - half - 4} y={y - 5} anchor="end" port={`${id}.1`}>
+        1
+      </PortLabel>
+      <PortLabel x={x + half + UNLOADING_STUB + 4} y={y - 5} anchor="start" port={`${id}.2`}>
+        2
+      </PortLabel>
+      <PortLabel x={x + 5} y={y - half - 5} anchor="start" port={`${id}.X`}>
+        X
+      </PortLabel>
     </g>
   );
 }
@@ -573,14 +772,22 @@ export function CoolerSymbol({ id, centre }: { id: string; centre: Point }) {
   const d = DIAMOND;
   return (
     <g data-component={id} data-kind="cooler">
-      <polygon points={pts([{ x, y: y - d }, { x: x + d, y }, { x, y: y + d }, { x: x - d, y }])} {...outline} fill="white" />
+      <polygon
+        points={pts([
+          { x, y: y - d },
+          { x: x + d, y },
+          { x, y: y + d },
+          { x: x - d, y },
+        ])}
+        {...outline}
+        fill="white"
+      />
       <line x1={x - d + 3} y1={y} x2={x + d - 3} y2={y} {...thin} />
       <ArrowHead from={{ x: x - 4, y }} to={{ x: x - d - 6, y }} length={7} half={3.5} />
       <ArrowHead from={{ x: x + 4, y }} to={{ x: x + d + 6, y }} length={7} half={3.5} />
     </g>
   );
 }
-
 
 // ---- The regenerative approach and its switches ------------------------------------------------
 
@@ -592,7 +799,17 @@ export function CoolerSymbol({ id, centre }: { id: string; centre: Point }) {
  * solenoid lie on that side, the spring on the outer one. Each box is drawn from the data's port
  * pairs: an arrow for each pair, a T-stop on each port left out.
  */
-export function RegenValveSymbol({ id, centre, port3Side, positions }: { id: string; centre: Point; port3Side: "left" | "right"; positions: SolenoidValvePositions }) {
+export function RegenValveSymbol({
+  id,
+  centre,
+  port3Side,
+  positions,
+}: {
+  id: string;
+  centre: Point;
+  port3Side: "left" | "right";
+  positions: SolenoidValvePositions;
+}) {
   const b = REGEN_BOX;
   const t = port3Side === "left" ? -1 : 1;
   const top = centre.y - b / 2;
@@ -613,19 +830,30 @@ export function RegenValveSymbol({ id, centre, port3Side, positions }: { id: str
         const joined = new Set(pairs.flat());
         const at = (port: string): Point => ({ x: X(u0 + portU[port].u), y: portU[port].y });
         return (
-          <g key={position} data-position={position} data-paths={pairs.map(([a, c]) => `${a}-${c}`).join(",")} data-blocked={ports.filter((p) => !joined.has(p)).join(",")}>
+          <g
+            key={position}
+            data-position={position}
+            data-paths={pairs.map(([a, c]) => `${a}-${c}`).join(",")}
+            data-blocked={ports.filter((p) => !joined.has(p)).join(",")}
+          >
             <rect x={Math.min(X(u0 - b / 4), X(u0 + (3 * b) / 4))} y={top} width={b} height={b} {...outline} fill="white" />
-            {pairs.filter(([a, c]) => a in portU && c in portU).map(([a, c]) => <Arrow key={`${a}-${c}`} from={at(a)} to={at(c)} />)}
-            {ports.filter((p) => !joined.has(p)).map((p) => {
-              const from = at(p);
-              const end = { x: from.x, y: from.y + (from.y === top ? 9 : -9) };
-              return (
-                <g key={p} data-blocked-port={p}>
-                  <line x1={from.x} y1={from.y} x2={end.x} y2={end.y} {...thin} />
-                  <line x1={end.x - 5} y1={end.y} x2={end.x + 5} y2={end.y} {...outline} />
-                </g>
-              );
-            })}
+            {pairs
+              .filter(([a, c]) => a in portU && c in portU)
+              .map(([a, c]) => (
+                <Arrow key={`${a}-${c}`} from={at(a)} to={at(c)} />
+              ))}
+            {ports
+              .filter((p) => !joined.has(p))
+              .map((p) => {
+                const from = at(p);
+                const end = { x: from.x, y: from.y + (from.y === top ? 9 : -9) };
+                return (
+                  <g key={p} data-blocked-port={p}>
+                    <line x1={from.x} y1={from.y} x2={end.x} y2={end.y} {...thin} />
+                    <line x1={end.x - 5} y1={end.y} x2={end.x + 5} y2={end.y} {...outline} />
+                  </g>
+                );
+              })}
           </g>
         );
       })}
@@ -634,9 +862,15 @@ export function RegenValveSymbol({ id, centre, port3Side, positions }: { id: str
         <line x1={X(solU)} y1={centre.y + sol.h / 2} x2={X(solU + sol.w)} y2={centre.y - sol.h / 2} {...thin} />
       </g>
       <Spring a={{ x: X(-b / 4), y: centre.y }} b={{ x: X(-b / 4 - 18), y: centre.y }} turns={3} amplitude={4} />
-      <PortLabel x={X(-5)} y={top - 5} anchor={t < 0 ? "start" : "end"} port={`${id}.1`}>1</PortLabel>
-      <PortLabel x={X(-5)} y={bottom + 13} anchor={t < 0 ? "start" : "end"} port={`${id}.2`}>2</PortLabel>
-      <PortLabel x={X(REGEN_PORT3_DX + 5)} y={bottom + 13} anchor={t < 0 ? "end" : "start"} port={`${id}.3`}>3</PortLabel>
+      <PortLabel x={X(-5)} y={top - 5} anchor={t < 0 ? "start" : "end"} port={`${id}.1`}>
+        1
+      </PortLabel>
+      <PortLabel x={X(-5)} y={bottom + 13} anchor={t < 0 ? "start" : "end"} port={`${id}.2`}>
+        2
+      </PortLabel>
+      <PortLabel x={X(REGEN_PORT3_DX + 5)} y={bottom + 13} anchor={t < 0 ? "end" : "start"} port={`${id}.3`}>
+        3
+      </PortLabel>
     </g>
   );
 }

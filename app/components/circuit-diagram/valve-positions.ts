@@ -57,7 +57,11 @@ function passage(ports: BoxPort[], runY: number): { lines: Point[][]; dots: Poin
   const lines: Point[][] = ports.map((p) => [PORT_AT[p], { x: PORT_AT[p].x, y: runY }]);
   const minX = Math.min(...xs);
   const maxX = Math.max(...xs);
-  if (maxX > minX) lines.push([{ x: minX, y: runY }, { x: maxX, y: runY }]);
+  if (maxX > minX)
+    lines.push([
+      { x: minX, y: runY },
+      { x: maxX, y: runY },
+    ]);
   // A dot where three or more passage ends meet (a port column shared by top and bottom, or a tee).
   const dots: Point[] = [];
   for (const x of new Set(xs)) {

@@ -87,9 +87,18 @@ const STATUS_FACT: [string, string] = ["Status", "Preliminary circuit for quotat
 
 function addBomSheet(workbook: ExcelJS.Workbook, input: BillInput) {
   const sheet = addSheet(workbook, BILL_SHEETS[0], BOM_COLUMNS);
-  const block: HeaderBlock = { document: "Bill of materials", specTitle: input.title, facts: [...billFacts(input), ...quotationFacts(input.quotation), STATUS_FACT] };
+  const block: HeaderBlock = {
+    document: "Bill of materials",
+    specTitle: input.title,
+    facts: [...billFacts(input), ...quotationFacts(input.quotation), STATUS_FACT],
+  };
   const head = writeHeaderBlock(sheet, block);
-  writeTableHeader(sheet, head, BOM_COLUMNS.map((c) => c.header), BOM_COLUMNS);
+  writeTableHeader(
+    sheet,
+    head,
+    BOM_COLUMNS.map((c) => c.header),
+    BOM_COLUMNS,
+  );
   freezeAt(sheet, head);
   input.design.bom.forEach((line, i) => {
     const row = sheet.getRow(head + 1 + i);
@@ -114,7 +123,12 @@ function inputsText(inputs: Design["trail"][number]["inputs"]): string {
 function addTrailSheet(workbook: ExcelJS.Workbook, input: BillInput) {
   const sheet = addSheet(workbook, BILL_SHEETS[1], TRAIL_COLUMNS);
   const head = writeHeaderBlock(sheet, { document: "Design values and how each was reached", specTitle: input.title, facts: billFacts(input) });
-  writeTableHeader(sheet, head, TRAIL_COLUMNS.map((c) => c.header), TRAIL_COLUMNS);
+  writeTableHeader(
+    sheet,
+    head,
+    TRAIL_COLUMNS.map((c) => c.header),
+    TRAIL_COLUMNS,
+  );
   freezeAt(sheet, head);
   input.design.trail.forEach((entry, i) => {
     const row = sheet.getRow(head + 1 + i);

@@ -77,7 +77,10 @@ function comparisonFacts(input: ComparisonInput): [string, string][] {
   ];
 }
 
-const MARKS: [string, string] = ["Marks", "Green: the lowest price of a line, the cheapest complete offer, the shortest lead time. Yellow: alternatives, earlier revisions, missing lines."];
+const MARKS: [string, string] = [
+  "Marks",
+  "Green: the lowest price of a line, the cheapest complete offer, the shortest lead time. Yellow: alternatives, earlier revisions, missing lines.",
+];
 
 function addComparisonSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) {
   const { columns: offers, rows, cheapestCompleteId } = input.comparison;
@@ -86,7 +89,12 @@ function addComparisonSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) 
   const sheet = addSheet(workbook, COMPARISON_SHEETS[0], columns);
   const shopsRow = writeHeaderBlock(sheet, { document: "Comparison of the offers", specTitle: input.title, facts: [...comparisonFacts(input), MARKS] });
   const head = shopsRow + 1;
-  writeTableHeader(sheet, head, columns.map((c) => c.header), columns);
+  writeTableHeader(
+    sheet,
+    head,
+    columns.map((c) => c.header),
+    columns,
+  );
   // The row above the sub-headers names each offer's shop across its three columns.
   for (let c = 1; c <= columns.length; c++) styleHeadCell(sheet.getCell(shopsRow, c));
   sheet.getCell(shopsRow, 1).value = `Bill of materials, revision ${input.revision}`;
@@ -148,7 +156,11 @@ function addComparisonSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) 
   return { sheet, first, last };
 }
 
-function writeOfferFooter(sheet: ExcelJS.Worksheet, input: ComparisonInput, at: { first: number; last: number; cheapestCompleteId: string | null; fmt: string; width: number }) {
+function writeOfferFooter(
+  sheet: ExcelJS.Worksheet,
+  input: ComparisonInput,
+  at: { first: number; last: number; cheapestCompleteId: string | null; fmt: string; width: number },
+) {
   const offers = input.comparison.columns;
   const [set, units, total, more, lead, valid, status, revision, complete, alternatives] = Array.from({ length: 10 }, (_, i) => at.last + 1 + i);
   const labels: [number, string, boolean][] = [
@@ -221,7 +233,12 @@ function addOffersSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) {
   const columns = OFFER_COLUMNS(currencyFormat(input.currency));
   const sheet = addSheet(workbook, COMPARISON_SHEETS[1], columns);
   const head = writeHeaderBlock(sheet, { document: "The offers and their terms", specTitle: input.title, facts: comparisonFacts(input) });
-  writeTableHeader(sheet, head, columns.map((c) => c.header), columns);
+  writeTableHeader(
+    sheet,
+    head,
+    columns.map((c) => c.header),
+    columns,
+  );
   freezeAt(sheet, head);
   input.comparison.columns.forEach((offer, i) => {
     const r = head + 1 + i;

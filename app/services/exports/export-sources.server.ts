@@ -83,7 +83,10 @@ export async function pricedBillSource(user: User, jobId: string | undefined): P
 export async function comparisonSource(user: User, specId: string | undefined, sortParam: string | null): Promise<ComparisonInput> {
   const spec = await specFor(user, specId, "spec.compareBids");
   const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam ?? "") ? (sortParam as ComparisonSort) : "total";
-  const [{ bids, comparison }, revision] = await Promise.all([comparisonOf(user, spec, sort), SpecRevision.findOne({ where: { specId: spec.id, number: spec.currentRevision } })]);
+  const [{ bids, comparison }, revision] = await Promise.all([
+    comparisonOf(user, spec, sort),
+    SpecRevision.findOne({ where: { specId: spec.id, number: spec.currentRevision } }),
+  ]);
   if (!revision) notFound("This spec has no published revision yet.");
   return {
     title: spec.title,

@@ -86,7 +86,12 @@ function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
   const fmt = currencyFormat(input.currency);
   const sheet = addSheet(workbook, PRICED_SHEETS[0], columns);
   const head = writeHeaderBlock(sheet, { document: "Priced bill of the awarded bid", specTitle: input.title, facts: pricedFacts(input) });
-  writeTableHeader(sheet, head, columns.map((c) => c.header), columns);
+  writeTableHeader(
+    sheet,
+    head,
+    columns.map((c) => c.header),
+    columns,
+  );
   freezeAt(sheet, head);
 
   const first = head + 1;
@@ -127,11 +132,20 @@ function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
   put(set, "Set total, one of each line", { formula: `SUM(F${first}:F${last})`, result: money(input.setTotalCents) }).numFmt = fmt;
   for (let c = 1; c <= columns.length; c++) topRule(sheet.getCell(set, c));
   put(units, "Units wanted", input.units, 4).numFmt = "0";
-  const totalCell = put(total, `Total for ${input.units} unit${input.units === 1 ? "" : "s"}`, { formula: `F${set}*D${units}`, result: money(input.totalCents) }, 6, true);
+  const totalCell = put(
+    total,
+    `Total for ${input.units} unit${input.units === 1 ? "" : "s"}`,
+    { formula: `F${set}*D${units}`, result: money(input.totalCents) },
+    6,
+    true,
+  );
   totalCell.numFmt = fmt;
   totalCell.fill = FILLS.head;
   put(share, "Retainer share", Number(input.retainerPercent) / 100, 5).numFmt = "0.00%";
-  put(retainer, "Retainer amount (total × share, rounded to the cent)", { formula: `ROUND(F${total}*E${share},2)`, result: money(input.retainerCents) }).numFmt = fmt;
+  put(retainer, "Retainer amount (total × share, rounded to the cent)", {
+    formula: `ROUND(F${total}*E${share},2)`,
+    result: money(input.retainerCents),
+  }).numFmt = fmt;
   put(charged, "Retainer as the portal charges it (exact cents)", money(input.retainerCents)).numFmt = fmt;
 
   let at = charged + 2;

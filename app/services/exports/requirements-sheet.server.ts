@@ -3,7 +3,18 @@ import { REQUIREMENT_FIELDS, fieldApplies, typedNumber, type RequirementField } 
 import type { Requirements } from "~/hydraulics";
 import { UNITS, UNIT_SYSTEM_LABELS, roundForDisplay, toDisplay, unitLabel, type UnitSystem } from "~/units";
 import type { BillInput } from "./bill-workbook.server";
-import { addSheet, freezeAt, headerDay, quantityFormat, styleBodyRow, writeHeaderBlock, writeTableHeader, writeTextRow, type Column, type HeaderBlock } from "./sheet-layout.server";
+import {
+  addSheet,
+  freezeAt,
+  headerDay,
+  quantityFormat,
+  styleBodyRow,
+  writeHeaderBlock,
+  writeTableHeader,
+  writeTextRow,
+  type Column,
+  type HeaderBlock,
+} from "./sheet-layout.server";
 
 // The axis requirements twice over: as the buyer typed them (their unit system) and as the
 // engine sized them (the units its fields name), plus the reader's units when those differ,
@@ -92,11 +103,24 @@ export function addRequirementsSheet(workbook: ExcelJS.Workbook, input: BillInpu
     { header: "Unit", width: 10, indent: 1 },
     { header: "SI, as sized", width: 14, align: "right", wrap: true },
     { header: "SI unit", width: 10, indent: 1 },
-    ...(withReader ? [{ header: `In ${SYSTEM_NAMES[input.readerUnits]} units`, width: 14, align: "right" as const, wrap: true }, { header: "Unit", width: 10, indent: 1 }] : []),
+    ...(withReader
+      ? [
+          { header: `In ${SYSTEM_NAMES[input.readerUnits]} units`, width: 14, align: "right" as const, wrap: true },
+          { header: "Unit", width: 10, indent: 1 },
+        ]
+      : []),
   ];
   const sheet = addSheet(workbook, "Requirements", columns, false);
-  const head = writeHeaderBlock(sheet, { ...block, facts: [...block.facts, ["Entered in", `${UNIT_SYSTEM_LABELS[input.enteredIn]}; "(default)": left blank, sized with the default`]] });
-  writeTableHeader(sheet, head, columns.map((c) => c.header), columns);
+  const head = writeHeaderBlock(sheet, {
+    ...block,
+    facts: [...block.facts, ["Entered in", `${UNIT_SYSTEM_LABELS[input.enteredIn]}; "(default)": left blank, sized with the default`]],
+  });
+  writeTableHeader(
+    sheet,
+    head,
+    columns.map((c) => c.header),
+    columns,
+  );
   freezeAt(sheet, head);
   let at = head;
   for (const r of rows) {

@@ -52,7 +52,14 @@ export function newWorkbook(): ExcelJS.Workbook {
 /** A sheet with its columns set; `landscape` for wide tables. */
 export function addSheet(workbook: ExcelJS.Workbook, name: string, columns: Column[], landscape = true) {
   const sheet = workbook.addWorksheet(name, {
-    pageSetup: { paperSize: 9, orientation: landscape ? "landscape" : "portrait", fitToPage: true, fitToWidth: 1, fitToHeight: 0, margins: { left: 0.5, right: 0.5, top: 0.6, bottom: 0.6, header: 0.3, footer: 0.3 } },
+    pageSetup: {
+      paperSize: 9,
+      orientation: landscape ? "landscape" : "portrait",
+      fitToPage: true,
+      fitToWidth: 1,
+      fitToHeight: 0,
+      margins: { left: 0.5, right: 0.5, top: 0.6, bottom: 0.6, header: 0.3, footer: 0.3 },
+    },
     headerFooter: { oddFooter: `&L&8${name}&R&8Page &P of &N` },
     views: [{ showGridLines: false }],
   });
@@ -86,7 +93,11 @@ export function writeTableHeader(sheet: ExcelJS.Worksheet, rowNumber: number, la
     cell.value = label;
     styleHeadCell(cell, columns?.[i]);
   });
-  if (columns) fitHeight(row, columns.map((c) => ({ ...c, wrap: true })));
+  if (columns)
+    fitHeight(
+      row,
+      columns.map((c) => ({ ...c, wrap: true })),
+    );
   row.height = Math.max(row.height ?? 0, 20);
   return row;
 }
@@ -165,7 +176,11 @@ export const DAY_FORMAT = "d mmm yyyy";
  * on a sheet of their own (product brief: "in every export").
  */
 export function addCautionsSheet(workbook: ExcelJS.Workbook, block: HeaderBlock, warnings: Warning[]) {
-  const columns: Column[] = [{ header: "", width: 30, wrap: true }, { header: "", width: 100, wrap: true }, { header: "", width: 26 }];
+  const columns: Column[] = [
+    { header: "", width: 30, wrap: true },
+    { header: "", width: 100, wrap: true },
+    { header: "", width: 26 },
+  ];
   const sheet = addSheet(workbook, "Cautions", columns, false);
   let row = writeHeaderBlock(sheet, { ...block, document: "Cautions and warnings" });
   writeTableHeader(sheet, row, ["Caution", "Before anyone builds this"]);
@@ -194,7 +209,12 @@ export function addCautionsSheet(workbook: ExcelJS.Workbook, block: HeaderBlock,
 export function currencyFormat(currency: string): string {
   const parts = new Intl.NumberFormat("en-GB", { style: "currency", currency }).formatToParts(1);
   const at = parts.findIndex((p) => p.type === "integer");
-  const text = (list: Intl.NumberFormatPart[]) => list.map((p) => p.value).join("").replace(/\u00a0/g, " ").replace(/"/g, "");
+  const text = (list: Intl.NumberFormatPart[]) =>
+    list
+      .map((p) => p.value)
+      .join("")
+      .replace(/\u00a0/g, " ")
+      .replace(/"/g, "");
   const before = text(parts.slice(0, at));
   const after = text(parts.slice(parts.findIndex((p) => p.type === "fraction") + 1));
   const quoted = (s: string) => (s ? `"${s}"` : "");
@@ -237,6 +257,9 @@ export function writeTextRow(sheet: ExcelJS.Worksheet, rowNumber: number, label:
   row.getCell(2).alignment = { vertical: "top", wrapText: true };
   if (columns.length > 2) sheet.mergeCells(rowNumber, 2, rowNumber, columns.length);
   const rest = columns.slice(1).reduce((sum, c) => sum + c.width, 0);
-  fitHeight(row, [{ ...columns[0], wrap: true }, { header: "", width: rest, wrap: true }]);
+  fitHeight(row, [
+    { ...columns[0], wrap: true },
+    { header: "", width: rest, wrap: true },
+  ]);
   return row;
 }

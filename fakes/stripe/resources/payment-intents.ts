@@ -108,7 +108,13 @@ export function newCharge(intent: PaymentIntent, method: PaymentMethod, card: Te
     metadata: { ...intent.metadata },
     outcome: paid
       ? { network_status: "approved_by_network", reason: null, risk_level: "normal", seller_message: "Payment complete.", type: "authorized" }
-      : { network_status: "declined_by_network", reason: card.decline!, risk_level: "normal", seller_message: "The issuing bank declined the payment.", type: "issuer_declined" },
+      : {
+          network_status: "declined_by_network",
+          reason: card.decline!,
+          risk_level: "normal",
+          seller_message: "The issuing bank declined the payment.",
+          type: "issuer_declined",
+        },
     paid,
     payment_intent: intent.id,
     payment_method: method.id,

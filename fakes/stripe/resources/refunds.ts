@@ -62,10 +62,10 @@ export function refundRoutes(store: Store, events: EventHub): ApiRoute[] {
         }
         const amount = params.integer("amount", { min: 1 }) ?? left;
         if (amount > left) {
-          throw invalid(
-            `Refund amount (${amount} ${charge.currency}) is greater than the unrefunded amount on the charge (${left} ${charge.currency}).`,
-            { code: "amount_too_large", param: "amount" },
-          );
+          throw invalid(`Refund amount (${amount} ${charge.currency}) is greater than the unrefunded amount on the charge (${left} ${charge.currency}).`, {
+            code: "amount_too_large",
+            param: "amount",
+          });
         }
         const refund = store.add(newRefund(charge, amount, params.oneOf("reason", REASONS) ?? null, mergeMetadata({}, params.metadata())));
         const before = { amount_refunded: charge.amount_refunded, refunded: charge.refunded };
@@ -83,8 +83,11 @@ export function refundRoutes(store: Store, events: EventHub): ApiRoute[] {
       handle: ({ params }) => {
         params.allowOnly(["limit", "starting_after", "ending_before", "created", "charge", "payment_intent"]);
         const [charge, intent] = [params.text("charge"), params.text("payment_intent")];
-        return store.list<Refund>("refund", "/v1/refunds", params, (refund) =>
-          (charge === undefined || refund.charge === charge) && (intent === undefined || refund.payment_intent === intent),
+        return store.list<Refund>(
+          "refund",
+          "/v1/refunds",
+          params,
+          (refund) => (charge === undefined || refund.charge === charge) && (intent === undefined || refund.payment_intent === intent),
         );
       },
     },

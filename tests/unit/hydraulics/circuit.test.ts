@@ -9,14 +9,32 @@ import { sizeCircuit, type Design, type RequirementsInput } from "~/hydraulics";
 const DUTY = { strokeMm: 400, extendSpeedMmS: 100, retractSpeedMmS: 150, mounting: "fixed-pinned", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50 } as const;
 /** The issue's press: 2 t platen hanging from the rod, 150 kN over the last 50 mm, fast approach. */
 const PRESS = {
-  ...DUTY, strokeMm: 1000, extendSpeedMmS: 200, retractSpeedMmS: 200, orientation: "vertical", rodDirection: "down", massKg: 2000,
-  processForceN: 150000, pressStrokeMm: 50, pressSpeedMmS: 10, dwellS: 2,
+  ...DUTY,
+  strokeMm: 1000,
+  extendSpeedMmS: 200,
+  retractSpeedMmS: 200,
+  orientation: "vertical",
+  rodDirection: "down",
+  massKg: 2000,
+  processForceN: 150000,
+  pressStrokeMm: 50,
+  pressSpeedMmS: 10,
+  dwellS: 2,
 } as const;
 
 /** 1.6 m horizontal feed, 50 kN at the end of the stroke, 200 mm/s both ways: it regenerates (regenerative.test.ts). */
 const LONG_FEED = {
-  orientation: "horizontal", massKg: 500, processForceN: 50_000, strokeMm: 1600, extendSpeedMmS: 200, retractSpeedMmS: 200,
-  mounting: "fixed-pinned", mountingStyle: "rear-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+  orientation: "horizontal",
+  massKg: 500,
+  processForceN: 50_000,
+  strokeMm: 1600,
+  extendSpeedMmS: 200,
+  retractSpeedMmS: 200,
+  mounting: "fixed-pinned",
+  mountingStyle: "rear-flange",
+  cyclesPerHour: 60,
+  hoursPerDay: 8,
+  supplyHz: 50,
 } as const;
 
 /** Axes that really call for each part, through the engine's own rules. */
@@ -124,7 +142,10 @@ describe.each(designs)("%s", (_name, d) => {
   it("keeps the work lines whole: each valve port feeds its cylinder port through the in-line valves only", () => {
     const find = nets(d);
     // the directional valve's ports never share a net with the cylinder's across an in-line valve
-    for (const [valvePort, cylPort] of [["dcv.A", "cylinder.cap"], ["dcv.B", "cylinder.rod"]] as const) {
+    for (const [valvePort, cylPort] of [
+      ["dcv.A", "cylinder.cap"],
+      ["dcv.B", "cylinder.rod"],
+    ] as const) {
       const inLine = d.circuit.components.filter((c) => ["cbv", "poc", "flow-control", "regen"].includes(c.kind) && find(`${c.id}.1`) !== find(`${c.id}.2`));
       const onThisLine = inLine.filter((c) => find(`${c.id}.2`) === find(valvePort) || find(`${c.id}.1`) === find(cylPort));
       expect(find(valvePort) === find(cylPort)).toBe(onThisLine.length === 0);
@@ -297,7 +318,11 @@ describe("regeneration valve: a 3/2 solenoid valve in the rod line (textbook reg
 
   it("occurs in the designs that regenerate, and only there", () => {
     const names = regenerating.map(([n]) => n);
-    for (const n of ["a long feed that regenerates", "a long feed that regenerates, with a pressing stroke", "a long feed that regenerates, clamped for 30 min"]) {
+    for (const n of [
+      "a long feed that regenerates",
+      "a long feed that regenerates, with a pressing stroke",
+      "a long feed that regenerates, clamped for 30 min",
+    ]) {
       expect(names).toContain(n);
     }
     for (const [, d] of designs) expect(d.circuit.components.some((c) => c.kind === "regen")).toBe(d.regenerative);
@@ -334,8 +359,9 @@ describe("regeneration valve: a 3/2 solenoid valve in the rod line (textbook reg
     expect(retracting.has("cylinder.rod")).toBe(true);
     // in neutral the valve changes nothing: the rod port reaches what B reaches, and no more
     const neutral = reach(d, "cylinder.rod", "center", "normal");
-    expect([...neutral].filter((p) => !p.startsWith("regen.") && p !== "cylinder.rod").sort())
-      .toEqual([...reach(d, "dcv.B", "center", "normal")].filter((p) => !p.startsWith("regen.") && p !== "cylinder.rod").sort());
+    expect([...neutral].filter((p) => !p.startsWith("regen.") && p !== "cylinder.rod").sort()).toEqual(
+      [...reach(d, "dcv.B", "center", "normal")].filter((p) => !p.startsWith("regen.") && p !== "cylinder.rod").sort(),
+    );
   });
 });
 

@@ -148,9 +148,21 @@ describe("worked example — the shared sources' two-speed press with a double (
   // Horizontal, 500 kg, 100 kN over the last 20 mm of a 400 mm stroke at 10 mm/s, approach and
   // return 200 mm/s, a 3 s dwell, 60 cycles/h, 50 Hz; a double pump asked for.
   const d = sizeCircuit({
-    orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
-    pressStrokeMm: 20, pressSpeedMmS: 10, dwellS: 3, mounting: "fixed-fixed", mountingStyle: "front-flange",
-    cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50, pumpType: "double",
+    orientation: "horizontal",
+    massKg: 500,
+    processForceN: 100_000,
+    strokeMm: 400,
+    extendSpeedMmS: 200,
+    retractSpeedMmS: 200,
+    pressStrokeMm: 20,
+    pressSpeedMmS: 10,
+    dwellS: 3,
+    mounting: "fixed-fixed",
+    mountingStyle: "front-flange",
+    cyclesPerHour: 60,
+    hoursPerDay: 8,
+    supplyHz: 50,
+    pumpType: "double",
   });
   const cycle = d.cycle!;
 
@@ -184,9 +196,13 @@ describe("worked example — the shared sources' two-speed press with a double (
   it("gives the sources' high-low powers when fed their check values (Q_S 4.71, Q_L 89.5, p_u 35, p_RV 140.1 bar)", () => {
     // The sources' reference axis with ideal sections: approach at 20 bar (assumed there),
     // Q_S = 4.71 and Q_L = 89.54 L/min, p_u = 35 bar, relief 140.1 bar, Δp_u 5 bar, η_t 0.85.
-    const speed = 1450, etaV = 0.95;
+    const speed = 1450,
+      etaV = 0.95;
     const cc = (lpm: number) => (1000 * lpm) / (speed * etaV); // V = 1000·Q / (n·η_v)
-    const qS = 4.71, qL = 89.54, pu = 35, relief = 140.1;
+    const qS = 4.71,
+      qL = 89.54,
+      pu = 35,
+      relief = 140.1;
     // What the pump draws pressing, from the sources' formula: Q_S·p_RV/600 + Q_L·Δp_u/600 = 1.85 kW (shared check value)
     const pressingKw = (qS * relief) / 600 + (qL * 5) / 600;
     expect(pressingKw).toBeCloseTo(1.85, 2);
@@ -196,7 +212,11 @@ describe("worked example — the shared sources' two-speed press with a double (
       pump: { ...d.pump, displacementsCcRev: [cc(qL), cc(qS)], speedRpm: speed, volumetricEfficiency: etaV, unloadingBar: pu, unloadedDropBar: 5 },
       flowsLpm: { ...d.flowsLpm, pump: qS + qL, press: 4.71 },
       pressuresBar: { ...d.pressuresBar, extendMoving: 20, retract: 20, reliefSetting: relief },
-      speedsMmS: { ...d.speedsMmS, extendActual: ((qS + qL) * 1000) / (d.cylinder.capAreaMm2 * 0.06), retractActual: ((qS + qL) * 1000) / (d.cylinder.annulusAreaMm2 * 0.06) },
+      speedsMmS: {
+        ...d.speedsMmS,
+        extendActual: ((qS + qL) * 1000) / (d.cylinder.capAreaMm2 * 0.06),
+        retractActual: ((qS + qL) * 1000) / (d.cylinder.annulusAreaMm2 * 0.06),
+      },
     };
     // The pump choice's phases for these sections (pump-choice.ts): approach both sections at 20 bar; pressing
     // and dwell the small section over the relief with the large one dumping at 5 bar (1.85 kW drawn, above);
@@ -204,8 +224,11 @@ describe("worked example — the shared sources' two-speed press with a double (
     const both = qS + qL;
     const atForce = { bar: relief, lpm: qS, kw: pressingKw };
     const c = cycleOf(ref, {
-      approach: { bar: 20, lpm: both, kw: (20 * both) / 600 }, press: atForce, dwell: atForce,
-      retract: { bar: 20, lpm: both, kw: (20 * both) / 600 }, neutral: pumpPhasesOf(d).neutral,
+      approach: { bar: 20, lpm: both, kw: (20 * both) / 600 },
+      press: atForce,
+      dwell: atForce,
+      retract: { bar: 20, lpm: both, kw: (20 * both) / 600 },
+      neutral: pumpPhasesOf(d).neutral,
     });
     const approach = c.find((ph) => ph.phase === "approach")!;
     const pressing = c.find((ph) => ph.phase === "pressing")!;
@@ -227,8 +250,19 @@ describe("worked example — the shared sources' two-speed press with a double (
 
 describe("each pump type on the same press (sources: fixed, high-low and compensated pumps)", () => {
   const base = {
-    orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
-    pressStrokeMm: 20, pressSpeedMmS: 10, dwellS: 3, mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+    orientation: "horizontal",
+    massKg: 500,
+    processForceN: 100_000,
+    strokeMm: 400,
+    extendSpeedMmS: 200,
+    retractSpeedMmS: 200,
+    pressStrokeMm: 20,
+    pressSpeedMmS: 10,
+    dwellS: 3,
+    mounting: "fixed-fixed",
+    cyclesPerHour: 60,
+    hoursPerDay: 8,
+    supplyHz: 50,
   } as const;
 
   it("a fixed pump delivers its whole flow over the relief while pressing and dwelling", () => {
@@ -258,8 +292,20 @@ describe("the cycle reads the pump choice's phases (engine 2.11: one source per 
     // 11.5 mm/s on the 100 bore is 5.42 L/min; the 4 cm³/rev section gives 4 · 1450 · 0.95 / 1000 = 5.51 L/min,
     // within 10 % (our convention), so no flow control: it pumps straight into the cap end (high-low circuit texts)
     const d = sizeCircuit({
-      orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
-      pressStrokeMm: 20, pressSpeedMmS: 11.5, dwellS: 3, mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50, pumpType: "double",
+      orientation: "horizontal",
+      massKg: 500,
+      processForceN: 100_000,
+      strokeMm: 400,
+      extendSpeedMmS: 200,
+      retractSpeedMmS: 200,
+      pressStrokeMm: 20,
+      pressSpeedMmS: 11.5,
+      dwellS: 3,
+      mounting: "fixed-fixed",
+      cyclesPerHour: 60,
+      hoursPerDay: 8,
+      supplyHz: 50,
+      pumpType: "double",
     });
     expect(d.pressSpeedControl).toBeNull();
     const p = phaseOf(d, "pressing")!;
@@ -275,18 +321,34 @@ describe("the cycle reads the pump choice's phases (engine 2.11: one source per 
 describe("a regenerative approach draws A_rod·v from the pump (regeneration course notes, v = Q_p / A_rod)", () => {
   it("feeds 60 L/min for the sources' 100/70 cylinder at 0.260 m/s, not the 122.4 L/min the cap end takes", () => {
     const d = sizeCircuit({
-      orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
-      pressStrokeMm: 20, pressSpeedMmS: 10, mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+      orientation: "horizontal",
+      massKg: 500,
+      processForceN: 100_000,
+      strokeMm: 400,
+      extendSpeedMmS: 200,
+      retractSpeedMmS: 200,
+      pressStrokeMm: 20,
+      pressSpeedMmS: 10,
+      mounting: "fixed-fixed",
+      cyclesPerHour: 60,
+      hoursPerDay: 8,
+      supplyHz: 50,
     });
     // The sources' 100/70 cylinder: A1 = 7853.98 mm², A_rod = 3848.45 mm², A3 = 4005.53 mm² (circle areas)
-    const capAreaMm2 = (Math.PI * 100 ** 2) / 4, rodAreaMm2 = (Math.PI * 70 ** 2) / 4;
+    const capAreaMm2 = (Math.PI * 100 ** 2) / 4,
+      rodAreaMm2 = (Math.PI * 70 ** 2) / 4;
     // v_regen = 60 L/min / (3848.45 mm² · 0.06) = 259.8 mm/s (shared check value 0.260 m/s)
     const vRegen = (60 * 1000) / (rodAreaMm2 * 0.06);
     expect(vRegen / 1000).toBeCloseTo(0.26, 3);
-    const regen = cycleOf({
-      ...d, regenerative: true, cylinder: { ...d.cylinder, capAreaMm2, annulusAreaMm2: capAreaMm2 - rodAreaMm2 },
-      speedsMmS: { ...d.speedsMmS, extendActual: vRegen },
-    }, pumpPhasesOf(d));
+    const regen = cycleOf(
+      {
+        ...d,
+        regenerative: true,
+        cylinder: { ...d.cylinder, capAreaMm2, annulusAreaMm2: capAreaMm2 - rodAreaMm2 },
+        speedsMmS: { ...d.speedsMmS, extendActual: vRegen },
+      },
+      pumpPhasesOf(d),
+    );
     const approach = regen.find((ph) => ph.phase === "approach")!;
     expect(approach.demandLpm).toBeCloseTo(60, 9);
     // the cap end takes A1·v = 7853.98 · 259.8 · 0.06/1000 = 122.4 L/min (shared check value), the pump only 60
@@ -295,7 +357,17 @@ describe("a regenerative approach draws A_rod·v from the pump (regeneration cou
 });
 
 describe("duty edge cases", () => {
-  const base = { orientation: "horizontal", massKg: 800, processForceN: 20_000, strokeMm: 500, extendSpeedMmS: 100, retractSpeedMmS: 150, mounting: "fixed-pinned", hoursPerDay: 8, supplyHz: 50 } as const;
+  const base = {
+    orientation: "horizontal",
+    massKg: 800,
+    processForceN: 20_000,
+    strokeMm: 500,
+    extendSpeedMmS: 100,
+    retractSpeedMmS: 150,
+    mounting: "fixed-pinned",
+    hoursPerDay: 8,
+    supplyHz: 50,
+  } as const;
 
   it("with no cycles per hour has no neutral phase and no infinite time", () => {
     const d = sizeCircuit({ ...base, cyclesPerHour: 0 });

@@ -3,7 +3,16 @@ import { describe, expect, it } from "vitest";
 import { ENGINE_VERSION, WARNING_CODES, sizeCircuit, type RequirementsInput } from "~/hydraulics";
 import { num } from "~/hydraulics/format";
 
-const BASE = { massKg: 1200, strokeMm: 500, extendSpeedMmS: 100, retractSpeedMmS: 120, mounting: "fixed-pinned", cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50 } as const;
+const BASE = {
+  massKg: 1200,
+  strokeMm: 500,
+  extendSpeedMmS: 100,
+  retractSpeedMmS: 120,
+  mounting: "fixed-pinned",
+  cyclesPerHour: 30,
+  hoursPerDay: 8,
+  supplyHz: 50,
+} as const;
 const AXES: Record<string, RequirementsInput> = {
   horizontal: { ...BASE, orientation: "horizontal", processForceN: 20000 },
   "vertical rod down": { ...BASE, orientation: "vertical", rodDirection: "down" },
@@ -11,8 +20,22 @@ const AXES: Record<string, RequirementsInput> = {
   "inclined rod up": { ...BASE, orientation: "inclined", inclineDeg: 40, rodDirection: "up" },
 };
 const BOM_KEYS = [
-  "pump", "motor", "coupling-bellhousing", "reservoir", "suction-strainer", "return-filter", "relief-valve",
-  "directional-valve", "cylinder", "hose-pressure", "hose-cap", "hose-rod", "hose-return", "hose-suction", "gauge", "fluid-fill",
+  "pump",
+  "motor",
+  "coupling-bellhousing",
+  "reservoir",
+  "suction-strainer",
+  "return-filter",
+  "relief-valve",
+  "directional-valve",
+  "cylinder",
+  "hose-pressure",
+  "hose-cap",
+  "hose-rod",
+  "hose-return",
+  "hose-suction",
+  "gauge",
+  "fluid-fill",
 ];
 
 describe.each(Object.entries(AXES))("%s", (_name, req) => {
@@ -46,8 +69,19 @@ describe.each(Object.entries(AXES))("%s", (_name, req) => {
 
   it("has a trail entry with formula, inputs { value, unit } and a source for the key numbers", () => {
     const byName = new Map(d.trail.map((t) => [t.quantity, t]));
-    for (const q of ["bore", "rod", "pump displacement", "motor rating", "relief setting", "ISO 4401 size", "directional valve centre",
-      "pressure line inner diameter", "reservoir volume", "average heat loss", "buckling safety factor"]) {
+    for (const q of [
+      "bore",
+      "rod",
+      "pump displacement",
+      "motor rating",
+      "relief setting",
+      "ISO 4401 size",
+      "directional valve centre",
+      "pressure line inner diameter",
+      "reservoir volume",
+      "average heat loss",
+      "buckling safety factor",
+    ]) {
       expect(byName.has(q), q).toBe(true);
     }
     expect(byName.get("relief setting")!.source).toContain("common practice");
@@ -77,7 +111,15 @@ describe.each(Object.entries(AXES))("%s", (_name, req) => {
 
 describe("number text for specifications", () => {
   it("matches toFixed rounding, with trailing zeros dropped", () => {
-    for (const [x, k] of [[27.55, 1], [6.35, 2], [20, 1], [3.15, 2], [0.049, 2], [1234.5678, 3], [0.5, 0]] as const) {
+    for (const [x, k] of [
+      [27.55, 1],
+      [6.35, 2],
+      [20, 1],
+      [3.15, 2],
+      [0.049, 2],
+      [1234.5678, 3],
+      [0.5, 0],
+    ] as const) {
       expect(num(x, k)).toBe(String(Number(x.toFixed(k))));
     }
     expect(num(-1.26, 1)).toBe("-1.3");
@@ -87,8 +129,13 @@ describe("number text for specifications", () => {
 describe("version-2 answers not yet sized are named, never dropped", () => {
   it("a pressing phase and a double pump, both sized now, leave no such warning", () => {
     const d = sizeCircuit({
-      ...AXES.horizontal, pressStrokeMm: 30, pressSpeedMmS: 10, pumpType: "double", holdMinutes: 20,
-      mountingStyle: "rear-flange", decelTimeS: 0.5,
+      ...AXES.horizontal,
+      pressStrokeMm: 30,
+      pressSpeedMmS: 10,
+      pumpType: "double",
+      holdMinutes: 20,
+      mountingStyle: "rear-flange",
+      decelTimeS: 0.5,
     });
     expect(d.warnings.some((x) => x.code === "REQUIREMENT_NOT_YET_SIZED")).toBe(false);
     expect(d.pump.type).toBe(d.warnings.some((x) => x.code === "PUMP_TYPE_NOT_SUITED") ? "fixed" : "double");

@@ -2,9 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { bucklingColumn, checkBuckling, eulerLoadN, rodInertiaMm4 } from "~/hydraulics/buckling";
 import { circleAreaMm2, cylinderForceN } from "~/hydraulics/cylinder";
-import {
-  frictionFactor, lineDiameterMm, lineVelocityMS, pressureLossBarPerM, reynoldsNumber, selectHose,
-} from "~/hydraulics/lines";
+import { frictionFactor, lineDiameterMm, lineVelocityMS, pressureLossBarPerM, reynoldsNumber, selectHose } from "~/hydraulics/lines";
 import { hydraulicPowerKw, pumpDeliveryLpm, requiredDisplacementCc, synchronousSpeedRpm } from "~/hydraulics/pump-motor";
 import { tankSurfaceM2 } from "~/hydraulics/reservoir-heat";
 import { pilotOpeningBar, reliefSettingBar } from "~/hydraulics/valves";
@@ -33,7 +31,12 @@ describe("Darcy–Weisbach check values (sources §8.3 [D]; 64/Re and Blasius, S
 
 describe("line diameter d = 4.607·√(Q/v) (continuity, sources §8.1 [D])", () => {
   it("matches the handy identity", () => {
-    for (const [q, v] of [[20, 5], [100, 3], [35, 1], [250, 5]]) {
+    for (const [q, v] of [
+      [20, 5],
+      [100, 3],
+      [35, 1],
+      [250, 5],
+    ]) {
       expect(lineDiameterMm(q, v)).toBeCloseTo(4.607 * Math.sqrt(q / v), 2);
     }
   });
@@ -196,7 +199,11 @@ describe("decompression (shared sources' check values [D]; 1 %/1000 psi and the 
 describe("motor by RMS with a short peak (shared sources' duty-cycle check value [D]; method from a trade-magazine article [S]; IEC 60034-1 [M])", () => {
   it("20 kW for 5 s, 5 kW for 10 s, 1 kW for 15 s: P_rms 8.69 kW, P_mean 5.50 kW; the 20 kW peak rules out 11 kW and asks for 15 kW", async () => {
     const { selectMotorKw } = await import("~/hydraulics/pump-motor");
-    const phases = [[20, 5], [5, 10], [1, 15]] as const;
+    const phases = [
+      [20, 5],
+      [5, 10],
+      [1, 15],
+    ] as const;
     const T = 30;
     const rms = Math.sqrt(phases.reduce((s, [p, t]) => s + p * p * t, 0) / T);
     const mean = phases.reduce((s, [p, t]) => s + p * t, 0) / T;

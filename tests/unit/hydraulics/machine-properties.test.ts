@@ -62,7 +62,8 @@ describe("a machine of one axis sizes exactly like that axis alone", () => {
         expect(machine.flowsLpm.returnMax).toBeCloseTo(alone.flowsLpm.returnMax, 9);
         expect(machine.axes[0].directionalValve).toEqual(alone.directionalValve);
         expect(machine.axes[0].counterbalance).toEqual(alone.counterbalance);
-        const pick = (c: { durationS: number; demandLpm: number; pressureBar: number; pumpFlowLpm: number }) => [c.durationS, c.demandLpm, c.pressureBar, c.pumpFlowLpm].map((x) => Math.round(x * 1e6) / 1e6);
+        const pick = (c: { durationS: number; demandLpm: number; pressureBar: number; pumpFlowLpm: number }) =>
+          [c.durationS, c.demandLpm, c.pressureBar, c.pumpFlowLpm].map((x) => Math.round(x * 1e6) / 1e6);
         expect(machine.cycle.map(pick)).toEqual((alone.cycle ?? []).map(pick));
         expect(machine.heat.averageLossKw).toBeCloseTo(alone.heat.averageLossKw, 9);
         expect(machine.cooler === null).toBe(alone.cooler === null);
@@ -211,7 +212,19 @@ describe("the machine's circuit", () => {
           expect(keys).toContain(`cylinder:${a.name}`);
           expect(keys).toContain(`directional-valve:${a.name}`);
         }
-        for (const w of m.warnings.filter((x) => !["MACHINE_FLOW_SHORT", "PUMP_BEYOND_SERIES", "MOTOR_BEYOND_SERIES", "DUTY_CYCLE_OVERLOAD", "HEAT_COOLER_NEEDED", "PUMP_TYPE_NOT_SUITED", "RELIEF_VENTED_IN_NEUTRAL", "PUMP_ON_RELIEF_IN_NEUTRAL"].includes(x.code))) {
+        for (const w of m.warnings.filter(
+          (x) =>
+            ![
+              "MACHINE_FLOW_SHORT",
+              "PUMP_BEYOND_SERIES",
+              "MOTOR_BEYOND_SERIES",
+              "DUTY_CYCLE_OVERLOAD",
+              "HEAT_COOLER_NEEDED",
+              "PUMP_TYPE_NOT_SUITED",
+              "RELIEF_VENTED_IN_NEUTRAL",
+              "PUMP_ON_RELIEF_IN_NEUTRAL",
+            ].includes(x.code),
+        )) {
           expect(m.axes.some((a) => w.message.startsWith(`${a.name}: `))).toBe(true);
         }
       }),

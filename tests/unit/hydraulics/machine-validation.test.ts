@@ -17,11 +17,19 @@ function errorsOf(input: unknown): Record<string, string[]> {
 
 describe("parseMachine", () => {
   it("fills the default cycle: each axis in order extends, then retracts, one at a time", () => {
-    const m = parseMachine({ axes: [{ ...AXIS, name: "Lift" }, { ...AXIS, name: "Tilt" }], ...DUTY });
+    const m = parseMachine({
+      axes: [
+        { ...AXIS, name: "Lift" },
+        { ...AXIS, name: "Tilt" },
+      ],
+      ...DUTY,
+    });
     expect(m.defaultSequence).toBe(true);
     expect(m.sequence).toEqual([
-      [{ axis: "Lift", motion: "extend" }], [{ axis: "Lift", motion: "retract" }],
-      [{ axis: "Tilt", motion: "extend" }], [{ axis: "Tilt", motion: "retract" }],
+      [{ axis: "Lift", motion: "extend" }],
+      [{ axis: "Lift", motion: "retract" }],
+      [{ axis: "Tilt", motion: "extend" }],
+      [{ axis: "Tilt", motion: "retract" }],
     ]);
     // Each axis carries the machine's duty and the axis defaults (sizing contract).
     expect(m.axes[1]).toMatchObject({ name: "Tilt", cyclesPerHour: 60, maxPressureBar: 160, ambientC: 25, frictionCoefficient: 0.1 });
@@ -30,10 +38,25 @@ describe("parseMachine", () => {
   it("names every bad field by its path, all at once", () => {
     const errors = errorsOf({
       axes: [{ ...AXIS, name: "Lift" }, { ...AXIS, name: "Lift", strokeMm: -5, hoursPerDay: 3 }, "tilt"],
-      sequence: [[{ axis: "Lift", motion: "extend" }, { axis: "Ram", motion: "extend" }], [{ axis: "Lift", motion: "jump" }]],
-      ...DUTY, supplyHz: 55,
+      sequence: [
+        [
+          { axis: "Lift", motion: "extend" },
+          { axis: "Ram", motion: "extend" },
+        ],
+        [{ axis: "Lift", motion: "jump" }],
+      ],
+      ...DUTY,
+      supplyHz: 55,
     });
-    expect(Object.keys(errors).sort()).toEqual(["axes.1.hoursPerDay", "axes.1.name", "axes.1.strokeMm", "axes.2", "sequence.0.1.axis", "sequence.1.0.motion", "supplyHz"]);
+    expect(Object.keys(errors).sort()).toEqual([
+      "axes.1.hoursPerDay",
+      "axes.1.name",
+      "axes.1.strokeMm",
+      "axes.2",
+      "sequence.0.1.axis",
+      "sequence.1.0.motion",
+      "supplyHz",
+    ]);
   });
 
   it("holds an axis in a machine to the axis's own limits (one source of limits)", () => {
@@ -44,8 +67,17 @@ describe("parseMachine", () => {
 
   it("asks every axis to move in the cycle, and each at most once per step", () => {
     const errors = errorsOf({
-      axes: [{ ...AXIS, name: "Lift" }, { ...AXIS, name: "Tilt" }], ...DUTY,
-      sequence: [[{ axis: "Lift", motion: "extend" }, { axis: "Lift", motion: "retract" }]],
+      axes: [
+        { ...AXIS, name: "Lift" },
+        { ...AXIS, name: "Tilt" },
+      ],
+      ...DUTY,
+      sequence: [
+        [
+          { axis: "Lift", motion: "extend" },
+          { axis: "Lift", motion: "retract" },
+        ],
+      ],
     });
     expect(Object.keys(errors).sort()).toEqual(["axes.1.name", "sequence.0.1.axis"]);
   });
@@ -60,7 +92,14 @@ describe("parseMachine", () => {
   it("reports an axis that cannot be sized at its own path, naming it", () => {
     // A 3 MN press force within 20 bar: nothing in the ISO 3320 series reaches it.
     try {
-      sizeMachine({ axes: [{ ...AXIS, name: "Lift" }, { ...AXIS, name: "Ram", processForceN: 3_000_000 }], ...DUTY, maxPressureBar: 20 });
+      sizeMachine({
+        axes: [
+          { ...AXIS, name: "Lift" },
+          { ...AXIS, name: "Ram", processForceN: 3_000_000 },
+        ],
+        ...DUTY,
+        maxPressureBar: 20,
+      });
       throw new Error("expected a RequirementsError");
     } catch (error) {
       expect(error).toBeInstanceOf(RequirementsError);
@@ -71,7 +110,13 @@ describe("parseMachine", () => {
   });
 
   it("sizes an axis inside a machine exactly as the same axis with the machine's duty", () => {
-    const m = sizeMachine({ axes: [{ ...AXIS, name: "Lift" }, { ...AXIS, name: "Tilt", massKg: 50, strokeMm: 100 }], ...DUTY });
+    const m = sizeMachine({
+      axes: [
+        { ...AXIS, name: "Lift" },
+        { ...AXIS, name: "Tilt", massKg: 50, strokeMm: 100 },
+      ],
+      ...DUTY,
+    });
     const alone = sizeCircuit({ ...AXIS, name: "Lift", ...DUTY });
     expect(m.axes[0].cylinder).toEqual(alone.cylinder);
     expect(m.axes[0].pressuresBar).toEqual(alone.pressuresBar);

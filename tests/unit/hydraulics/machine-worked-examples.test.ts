@@ -12,7 +12,17 @@ import type { TimelinePhase } from "~/hydraulics/machine-timeline";
 
 const H = { orientation: "horizontal", mounting: "fixed-pinned", frictionCoefficient: 0.1 } as const;
 const CLAMP = { ...H, name: "Clamp", massKg: 100, processForceN: 10_000, strokeMm: 50, extendSpeedMmS: 50, retractSpeedMmS: 100 };
-const PRESS = { ...H, name: "Press", massKg: 500, processForceN: 100_000, strokeMm: 200, extendSpeedMmS: 100, pressStrokeMm: 20, pressSpeedMmS: 10, retractSpeedMmS: 150 };
+const PRESS = {
+  ...H,
+  name: "Press",
+  massKg: 500,
+  processForceN: 100_000,
+  strokeMm: 200,
+  extendSpeedMmS: 100,
+  pressStrokeMm: 20,
+  pressSpeedMmS: 10,
+  retractSpeedMmS: 150,
+};
 const FEED = { ...H, name: "Feed", massKg: 300, strokeMm: 500, extendSpeedMmS: 200, retractSpeedMmS: 200 };
 const DUTY = { cyclesPerHour: 120, hoursPerDay: 16, supplyHz: 50, maxPressureBar: 160 } as const;
 const step = (...moves: [string, "extend" | "retract"][]) => moves.map(([axis, motion]) => ({ axis, motion }));
@@ -25,7 +35,11 @@ const axis = (m: MachineDesign, name: string) => m.axes.find((a) => a.name === n
 describe("worked example 1: a clamp, then a press stroke, in sequence", () => {
   // Clamp closes, the press makes its stroke (approach, 20 mm pressing at 10 mm/s) and returns,
   // then the clamp opens: one axis at a time, 120 cycles an hour on 50 Hz.
-  const m = sizeMachine({ axes: [CLAMP, PRESS], ...DUTY, sequence: [step(["Clamp", "extend"]), step(["Press", "extend"]), step(["Press", "retract"]), step(["Clamp", "retract"])] });
+  const m = sizeMachine({
+    axes: [CLAMP, PRESS],
+    ...DUTY,
+    sequence: [step(["Clamp", "extend"]), step(["Press", "extend"]), step(["Press", "retract"]), step(["Clamp", "retract"])],
+  });
 
   it("keeps each axis's own cylinder (ISO 3320 areas)", () => {
     // Clamp 32/14: A1 = π·32²/4 = 804.25 mm², A3 = A1 − π·14²/4 = 650.31 mm².
@@ -63,7 +77,14 @@ describe("worked example 1: a clamp, then a press stroke, in sequence", () => {
 
   it("lays out the cycle phase by phase with the pump's pressure, delivery and power", () => {
     const phases = m.cycle.map((p) => [p.step, p.phase, p.axes.join("+")]);
-    expect(phases).toEqual([[0, "extend", "Clamp"], [1, "approach", "Press"], [1, "pressing", "Press"], [2, "retract", "Press"], [3, "retract", "Clamp"], [null, "neutral", ""]]);
+    expect(phases).toEqual([
+      [0, "extend", "Clamp"],
+      [1, "approach", "Press"],
+      [1, "pressing", "Press"],
+      [2, "retract", "Press"],
+      [3, "retract", "Clamp"],
+      [null, "neutral", ""],
+    ]);
     const [clampOut, approach, pressing, back] = m.cycle;
     // The clamp moves alone at the speed its own pump gives it (89.92 mm/s): t = s / v = 50 / 89.92 = 0.556 s;
     // it draws 804.25·89.92 → 4.34 L/min and the compensated pump destrokes to that at p_c = 140 bar.
@@ -112,8 +133,14 @@ describe("worked example 1: a clamp, then a press stroke, in sequence", () => {
 describe("worked example 2: a feed and two clamps, the clamps moving together", () => {
   // Both clamps close together, the feed runs out, both clamps open together, the feed returns.
   const m = sizeMachine({
-    axes: [FEED, { ...CLAMP, name: "Clamp 1" }, { ...CLAMP, name: "Clamp 2" }], ...DUTY,
-    sequence: [step(["Clamp 1", "extend"], ["Clamp 2", "extend"]), step(["Feed", "extend"]), step(["Clamp 1", "retract"], ["Clamp 2", "retract"]), step(["Feed", "retract"])],
+    axes: [FEED, { ...CLAMP, name: "Clamp 1" }, { ...CLAMP, name: "Clamp 2" }],
+    ...DUTY,
+    sequence: [
+      step(["Clamp 1", "extend"], ["Clamp 2", "extend"]),
+      step(["Feed", "extend"]),
+      step(["Clamp 1", "retract"], ["Clamp 2", "retract"]),
+      step(["Feed", "retract"]),
+    ],
   });
 
   it("adds the flows of the clamps moving together, each at its asked speed", () => {
@@ -161,11 +188,43 @@ describe("the check value of several actuators on one pump", () => {
   // Axis A 40 L/min at 120 bar and axis B 25 L/min at 60 bar move together on a fixed pump of 65 L/min:
   // the pump runs at the higher pressure, P_hyd = 120 × 65 / 600 = 13.0 kW (shared sources' check value, [D]).
   it("runs the pump at the highest pressure and the summed flow", () => {
-    const choice = choosePump({
-      approachBar: 120, retractBar: 90, press: null, reliefBar: 135, workingBar: 120, ratedBar: 250, displacementCc: 50, pumpFlowLpm: 65, speedRpm: 1450,
-    }, "fixed");
-    const mp: MachinePump = { choice, demand: {} as MachinePump["demand"], requiredLpm: 65, requiredDisplacementCc: 47.2, inSeries: true, qpLpm: 65, speedRpm: 1450, smallLpm: null, governingAxis: "A" };
-    const together: TimelinePhase = { step: 0, phase: "together", kind: "fast", durationS: 1, segments: [], axes: ["A", "B"], demandLpm: 65, sizingLpm: 65, needBar: 120, returnLpm: 0 };
+    const choice = choosePump(
+      {
+        approachBar: 120,
+        retractBar: 90,
+        press: null,
+        reliefBar: 135,
+        workingBar: 120,
+        ratedBar: 250,
+        displacementCc: 50,
+        pumpFlowLpm: 65,
+        speedRpm: 1450,
+      },
+      "fixed",
+    );
+    const mp: MachinePump = {
+      choice,
+      demand: {} as MachinePump["demand"],
+      requiredLpm: 65,
+      requiredDisplacementCc: 47.2,
+      inSeries: true,
+      qpLpm: 65,
+      speedRpm: 1450,
+      smallLpm: null,
+      governingAxis: "A",
+    };
+    const together: TimelinePhase = {
+      step: 0,
+      phase: "together",
+      kind: "fast",
+      durationS: 1,
+      segments: [],
+      axes: ["A", "B"],
+      demandLpm: 65,
+      sizingLpm: 65,
+      needBar: 120,
+      returnLpm: 0,
+    };
     const phase = pumpInPhase(together, mp);
     expect(phase).toMatchObject({ bar: 120, lpm: 65 });
     expect(phase.kw).toBeCloseTo(13.0, 9);

@@ -30,8 +30,17 @@ describe("worked example — the reference press axis with a 20 mm pressing stro
   // Horizontal, m = 500 kg, μ = 0.1 (default), 100 kN process force, stroke 400 mm, approach
   // 200 mm/s, pressing the last 20 mm at 10 mm/s, retract 200 mm/s, 60 cycles/h, 50 Hz.
   const base = {
-    orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
-    mounting: "fixed-fixed", mountingStyle: "front-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+    orientation: "horizontal",
+    massKg: 500,
+    processForceN: 100_000,
+    strokeMm: 400,
+    extendSpeedMmS: 200,
+    retractSpeedMmS: 200,
+    mounting: "fixed-fixed",
+    mountingStyle: "front-flange",
+    cyclesPerHour: 60,
+    hoursPerDay: 8,
+    supplyHz: 50,
   } as const;
   // A fixed pump is asked for here; the pump choice has its own worked examples.
   const d = sizeCircuit({ ...base, pressStrokeMm: 20, pressSpeedMmS: 10, pumpType: "fixed" });

@@ -16,8 +16,19 @@ import { parseRequirements } from "~/hydraulics/requirements";
 
 // The shared sources' two-speed press: 100 kN over the last 20 mm of a 400 mm stroke, approach 200 mm/s.
 const PRESS: RequirementsInput = {
-  orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
-  pressStrokeMm: 20, pressSpeedMmS: 10, dwellS: 3, mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+  orientation: "horizontal",
+  massKg: 500,
+  processForceN: 100_000,
+  strokeMm: 400,
+  extendSpeedMmS: 200,
+  retractSpeedMmS: 200,
+  pressStrokeMm: 20,
+  pressSpeedMmS: 10,
+  dwellS: 3,
+  mounting: "fixed-fixed",
+  cyclesPerHour: 60,
+  hoursPerDay: 8,
+  supplyHz: 50,
 };
 
 /** The design's own cylinder evaluated again, to see its losses term by term. */
@@ -63,6 +74,8 @@ describe("the bypass valve's drop is part of the approach pressure", () => {
     expect(ev.pressBypassDropBar).toBe(0);
     const qp = d.flowsLpm.pump;
     expect(ev.extendSupplyLossBar).toBeCloseTo(
-      lineLossBar(d.lines.pressure, qp, DEFAULT_FLUID) + A.dcvPathDropBar.value + lineLossBar(d.lines.capWork, qp, DEFAULT_FLUID), 9);
+      lineLossBar(d.lines.pressure, qp, DEFAULT_FLUID) + A.dcvPathDropBar.value + lineLossBar(d.lines.capWork, qp, DEFAULT_FLUID),
+      9,
+    );
   });
 });

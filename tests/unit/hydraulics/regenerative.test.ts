@@ -9,7 +9,13 @@
 import { describe, expect, it } from "vitest";
 import { sizeCircuit, type Design } from "~/hydraulics";
 import {
-  capInflowLpm, regenerationVerdict, regenerativeForceN, regenerativeSpeedMS, regenSwitchSettingBar, regenToRetractSpeedRatio, rodAreaMm2,
+  capInflowLpm,
+  regenerationVerdict,
+  regenerativeForceN,
+  regenerativeSpeedMS,
+  regenSwitchSettingBar,
+  regenToRetractSpeedRatio,
+  rodAreaMm2,
   rodOutflowLpm,
 } from "~/hydraulics/regeneration";
 
@@ -54,8 +60,13 @@ describe("the textbook regenerative-circuit relations, with the shared sources' 
 
 describe("when regeneration pays (common practice) — the rule on its own", () => {
   const regen = {
-    displacementCc: 40, speedRatioToRetract: 1.04, approachBar: 14.4, limitBar: 145.5, passes: true,
-    endsBy: "pressure-switch" as const, switchOver: { switchBar: 25, pressBar: 67.7 },
+    displacementCc: 40,
+    speedRatioToRetract: 1.04,
+    approachBar: 14.4,
+    limitBar: 145.5,
+    passes: true,
+    endsBy: "pressure-switch" as const,
+    switchOver: { switchBar: 25, pressBar: 67.7 },
   };
   it("is used where the force fits on the rod area and the pump is at least one size step smaller", () => {
     expect(regenerationVerdict({ ruledOut: null, normal: { displacementCc: 80, pumpType: "fixed" }, regen }).use).toBe(true);
@@ -65,11 +76,18 @@ describe("when regeneration pays (common practice) — the rule on its own", () 
     const thin = regenerationVerdict({ ruledOut: null, normal: { displacementCc: 80, pumpType: "fixed" }, regen: { ...regen, speedRatioToRetract: 4.1 } });
     expect(thin).toMatchObject({ use: false, reason: expect.stringMatching(/rod is thin/) });
     // 0.8 × 30 bar = 24 bar < 25 bar switch (our convention: at most 80 % of the pressing pressure)
-    const noRoom = regenerationVerdict({ ruledOut: null, normal: { displacementCc: 80, pumpType: "fixed" }, regen: { ...regen, switchOver: { switchBar: 25, pressBar: 30 } } });
+    const noRoom = regenerationVerdict({
+      ruledOut: null,
+      normal: { displacementCc: 80, pumpType: "fixed" },
+      regen: { ...regen, switchOver: { switchBar: 25, pressBar: 30 } },
+    });
     expect(noRoom).toMatchObject({ use: false, reason: expect.stringMatching(/pressure switch/) });
   });
   it("leaves a double pump the engine would give in place: it also cuts the pressing power", () => {
-    expect(regenerationVerdict({ ruledOut: null, normal: { displacementCc: 80, pumpType: "double" }, regen })).toMatchObject({ use: false, reason: expect.stringMatching(/double/) });
+    expect(regenerationVerdict({ ruledOut: null, normal: { displacementCc: 80, pumpType: "double" }, regen })).toMatchObject({
+      use: false,
+      reason: expect.stringMatching(/double/),
+    });
   });
 });
 
@@ -78,8 +96,17 @@ describe("worked example — a long horizontal feed with 50 kN at the end of a 1
   // pressing stroke), stroke 1600 mm, 200 mm/s both ways, t_acc = 0.2 s, fixed-pinned with a rear
   // flange, 60 cycles/h, 50 Hz, maxPressureBar 160 → working limit 160/1.1 = 145.45 bar [CP].
   const axis = {
-    orientation: "horizontal", massKg: 500, processForceN: 50_000, strokeMm: 1600, extendSpeedMmS: 200, retractSpeedMmS: 200,
-    mounting: "fixed-pinned", mountingStyle: "rear-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+    orientation: "horizontal",
+    massKg: 500,
+    processForceN: 50_000,
+    strokeMm: 1600,
+    extendSpeedMmS: 200,
+    retractSpeedMmS: 200,
+    mounting: "fixed-pinned",
+    mountingStyle: "rear-flange",
+    cyclesPerHour: 60,
+    hoursPerDay: 8,
+    supplyHz: 50,
   } as const;
   const d: Design = sizeCircuit(axis);
 
@@ -214,8 +241,17 @@ describe("worked example — a long horizontal feed with 50 kN at the end of a 1
 
 describe("where regeneration must not be used", () => {
   const long = {
-    orientation: "horizontal", massKg: 500, processForceN: 50_000, strokeMm: 1600, extendSpeedMmS: 200, retractSpeedMmS: 200,
-    mounting: "fixed-pinned", mountingStyle: "rear-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+    orientation: "horizontal",
+    massKg: 500,
+    processForceN: 50_000,
+    strokeMm: 1600,
+    extendSpeedMmS: 200,
+    retractSpeedMmS: 200,
+    mounting: "fixed-pinned",
+    mountingStyle: "rear-flange",
+    cyclesPerHour: 60,
+    hoursPerDay: 8,
+    supplyHz: 50,
   } as const;
   const reason = (d: Design) => d.trail.find((t) => t.quantity === "regenerative extension")!.formula;
 

@@ -2,14 +2,28 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
-  FORM_ERROR_KEY, REQUIREMENT_DEFAULTS, REQUIREMENT_LIMITS, REQUIREMENT_MESSAGES, RequirementsError, parseRequirements,
-  requirementsSchema, sizeCircuit, type RequirementsInput,
+  FORM_ERROR_KEY,
+  REQUIREMENT_DEFAULTS,
+  REQUIREMENT_LIMITS,
+  REQUIREMENT_MESSAGES,
+  RequirementsError,
+  parseRequirements,
+  requirementsSchema,
+  sizeCircuit,
+  type RequirementsInput,
 } from "~/hydraulics";
 import { requirementsArb } from "./arbitraries";
 
 const GOOD: RequirementsInput = {
-  orientation: "horizontal", massKg: 500, strokeMm: 400, extendSpeedMmS: 100, retractSpeedMmS: 150,
-  mounting: "fixed-pinned", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+  orientation: "horizontal",
+  massKg: 500,
+  strokeMm: 400,
+  extendSpeedMmS: 100,
+  retractSpeedMmS: 150,
+  mounting: "fixed-pinned",
+  cyclesPerHour: 60,
+  hoursPerDay: 8,
+  supplyHz: 50,
 };
 
 function errorsFor(input: unknown): Record<string, string[]> {
@@ -123,7 +137,10 @@ describe("one source of limits and defaults", () => {
 
   it.each(Object.entries(REQUIREMENT_LIMITS))("%s: accepted at its limits, refused just beyond them", (key, limit) => {
     const l = limit as { min: number; max: number; minExclusive?: boolean; maxExclusive?: boolean };
-    const base = { ...GOOD, orientation: "inclined", inclineDeg: 30, rodDirection: "up", strokeMm: 10_000, extendSpeedMmS: 2000, pressSpeedMmS: 1 } as Record<string, unknown>;
+    const base = { ...GOOD, orientation: "inclined", inclineDeg: 30, rodDirection: "up", strokeMm: 10_000, extendSpeedMmS: 2000, pressSpeedMmS: 1 } as Record<
+      string,
+      unknown
+    >;
     const accepts = (x: number) => requirementsSchema.safeParse({ ...base, [key]: x }).success;
     const step = Math.max(1e-6, (l.max - l.min) * 1e-9);
     expect(accepts(l.min), "at min").toBe(!l.minExclusive);

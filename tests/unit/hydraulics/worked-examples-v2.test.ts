@@ -35,9 +35,20 @@ const roundUp5 = (bar: number) => Math.ceil(bar / 5 - 1e-9) * 5; // relief and s
 // Horizontal, 500 kg on guides with μ = 0.1 (the default, common practice).
 // ---------------------------------------------------------------------------------------------
 const PRESS: RequirementsInput = {
-  orientation: "horizontal", massKg: 500, processForceN: 100_000, strokeMm: 400, extendSpeedMmS: 200, retractSpeedMmS: 200,
-  pressStrokeMm: 20, pressSpeedMmS: 10, dwellS: 10,
-  mounting: "fixed-fixed", mountingStyle: "front-flange", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+  orientation: "horizontal",
+  massKg: 500,
+  processForceN: 100_000,
+  strokeMm: 400,
+  extendSpeedMmS: 200,
+  retractSpeedMmS: 200,
+  pressStrokeMm: 20,
+  pressSpeedMmS: 10,
+  dwellS: 10,
+  mounting: "fixed-fixed",
+  mountingStyle: "front-flange",
+  cyclesPerHour: 60,
+  hoursPerDay: 8,
+  supplyHz: 50,
 };
 const A1 = (Math.PI * 100 ** 2) / 4; // 7853.98 mm², circle area [D]
 const Q_PRESS = (A1 * 10 * 0.06) / 1000; // 4.712 L/min, continuity Q = A·v [D]; shared check value 4.71
@@ -95,8 +106,11 @@ describe("two-speed press with a fixed pump: a meter-in flow control, the surplu
     // and the same heat place by place [D]: over the relief 150·105.49/600 = 26.37 kW; across the flow
     // control (150 − 134.71)·4.712/600 = 0.120 kW; in the pump (1 − 0.85)·input = 4.86 kW; in the
     // cylinder's seals and lines p_press·Q_press/600 − F·v = 0.053 kW. 6 decimals: only rounding.
-    const places = hydraulicPowerKw(150, Q_P - Q_PRESS) + hydraulicPowerKw(150 - pPress, Q_PRESS)
-      + (1 - ETA_O) * inputKw + (hydraulicPowerKw(pPress, Q_PRESS) - PRESS_WORK_KW);
+    const places =
+      hydraulicPowerKw(150, Q_P - Q_PRESS) +
+      hydraulicPowerKw(150 - pPress, Q_PRESS) +
+      (1 - ETA_O) * inputKw +
+      (hydraulicPowerKw(pPress, Q_PRESS) - PRESS_WORK_KW);
     expect(places).toBeCloseTo(31.407, 2);
     expect(d.heat.pressLossKw).toBeCloseTo(places, 6);
     // in the dwell the rod does no work: all 32.41 kW is heat (shared check value 22.0 kW hydraulic at 94.25 L/min and 140 bar)
@@ -216,7 +230,7 @@ describe("two-speed press with a pressure-compensated pump: destrokes while pres
 
   it("keeps the motor off the corner with a power limiter: the corner 140 · 110.2 / 600 = 25.7 kW is never drawn", () => {
     // the highest phase: approach or return at full flow, p·110.2/600 (trade-press pump chapters on power limiters [S])
-    const highest = Math.max(d.pressuresBar.approach!, d.pressuresBar.retract) * Q_P / 600;
+    const highest = (Math.max(d.pressuresBar.approach!, d.pressuresBar.retract) * Q_P) / 600;
     expect(d.pump.powerLimitKw!).toBeCloseTo(highest / ETA_O, 6);
     expect(d.motor.peakKw).toBeLessThan(hydraulicPowerKw(140, Q_P) / ETA_O);
   });
@@ -228,8 +242,17 @@ describe("two-speed press with a pressure-compensated pump: destrokes while pres
 // ---------------------------------------------------------------------------------------------
 describe("a clamp held for an hour gets a pilot-operated check on the cap end", () => {
   const CLAMP: RequirementsInput = {
-    orientation: "horizontal", massKg: 50, processForceN: 50_000, strokeMm: 100, extendSpeedMmS: 50, retractSpeedMmS: 50,
-    mounting: "fixed-fixed", mountingStyle: "front-flange", cyclesPerHour: 20, hoursPerDay: 8, supplyHz: 50,
+    orientation: "horizontal",
+    massKg: 50,
+    processForceN: 50_000,
+    strokeMm: 100,
+    extendSpeedMmS: 50,
+    retractSpeedMmS: 50,
+    mounting: "fixed-fixed",
+    mountingStyle: "front-flange",
+    cyclesPerHour: 20,
+    hoursPerDay: 8,
+    supplyHz: 50,
   };
   const held = sizeCircuit({ ...CLAMP, holdMinutes: 60 });
 
@@ -245,9 +268,16 @@ describe("a clamp held for an hour gets a pilot-operated check on the cap end", 
     expect(cap.pilotOpeningBar).toBeCloseTo(7.3, 2);
     // rod side, 20 kN hanging (2039.4 kg), R = 4: p1 = (10·20 000/4005.53)/(4 − 1.961) = 49.93/2.039 = 24.5 bar,
     // p2 = 49.93 + 1.961·24.5 = 97.9 bar (shared check values; the valve needs R > φ to open at all)
-    const hangCtx = sizingContext(parseRequirements({
-      ...CLAMP, orientation: "vertical", rodDirection: "down", massKg: 20_000 / G, processForceN: 0, holdMinutes: 60,
-    }));
+    const hangCtx = sizingContext(
+      parseRequirements({
+        ...CLAMP,
+        orientation: "vertical",
+        rodDirection: "down",
+        massKg: 20_000 / G,
+        processForceN: 0,
+        holdMinutes: 60,
+      }),
+    );
     const rod = holdingFor(hangCtx.req, hangCtx.loads, cyl, 50)!;
     expect(rod.side).toBe("rod");
     expect(rod.pilotOpeningBar).toBeCloseTo(24.5, 1);
@@ -293,8 +323,19 @@ describe("a 2 t load lowered fast: the counterbalance setting covers braking; pi
   });
 
   const d = sizeCircuit({
-    orientation: "vertical", rodDirection: "down", massKg: 2000, strokeMm: 800, extendSpeedMmS: 600, retractSpeedMmS: 200,
-    accelTimeS: 0.3, decelTimeS: 0.1, mounting: "fixed-pinned", mountingStyle: "front-flange", cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50,
+    orientation: "vertical",
+    rodDirection: "down",
+    massKg: 2000,
+    strokeMm: 800,
+    extendSpeedMmS: 600,
+    retractSpeedMmS: 200,
+    accelTimeS: 0.3,
+    decelTimeS: 0.1,
+    mounting: "fixed-pinned",
+    mountingStyle: "front-flange",
+    cyclesPerHour: 30,
+    hoursPerDay: 8,
+    supplyHz: 50,
   });
   const c = d.cylinder;
   const W = 2000 * G; // 19 613.3 N, weight (statics [D])
@@ -343,7 +384,7 @@ describe("a 2 t load lowered fast: the counterbalance setting covers braking; pi
     expect(e.peakBar).toBeCloseTo(e.cushionBar + c.areaRatio * trailValue(d, "extend pressure at the cylinder"), 9);
     // retracted end, lifting into it: E = ½·2000·0.9163² = 839.7 J on the cap area, no weight added (it moves up)
     const r = c.cushioning.retract;
-    expect(r.cushionBar).toBeCloseTo((10 * (0.5 * 2000 * 0.9163466 ** 2) / 0.025) / c.capAreaMm2, 3);
+    expect(r.cushionBar).toBeCloseTo((10 * (0.5 * 2000 * 0.9163466 ** 2)) / 0.025 / c.capAreaMm2, 3);
     expect(Math.max(e.peakBar, r.peakBar)).toBeLessThanOrEqual(c.ratedPressureBar);
     expect(d.warnings.some((w) => w.code === "CUSHION_PRESSURE_HIGH")).toBe(false);
   });

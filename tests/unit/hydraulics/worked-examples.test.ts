@@ -25,9 +25,17 @@ describe("worked example 1 — horizontal clamp feed, no counterbalance", () => 
   // fixed-fixed rod end with a front flange (mountingStyle, since engine 2.3 an absent style
   // means the longest free length, a rear flange), 60 cycles/h, 50 Hz, maxPressureBar 160.
   const d = sizeCircuit({
-    orientation: "horizontal", massKg: 1000, processForceN: 38000, strokeMm: 300,
-    extendSpeedMmS: 100, retractSpeedMmS: 150, mounting: "fixed-fixed", mountingStyle: "front-flange",
-    cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50,
+    orientation: "horizontal",
+    massKg: 1000,
+    processForceN: 38000,
+    strokeMm: 300,
+    extendSpeedMmS: 100,
+    retractSpeedMmS: 150,
+    mounting: "fixed-fixed",
+    mountingStyle: "front-flange",
+    cyclesPerHour: 60,
+    hoursPerDay: 8,
+    supplyHz: 50,
   });
 
   it("sizes the bore on the pressing force (textbook F = η·p·A; ISO 3320 / ISO 6020-2 pairing)", () => {
@@ -45,7 +53,7 @@ describe("worked example 1 — horizontal clamp feed, no counterbalance", () => 
     // Q_ext = 3117.25·100·0.06/1000 = 18.70 L/min; Q_ret = 2501.49·150·0.06/1000 = 22.51 L/min.
     // V = 1000·22.51/(1450·0.95) = 16.34 cm³/rev → 20 cm³/rev (ISO 3662 [M]).
     // Q_p = 20·1450·0.95/1000 = 27.55 L/min; return max = φ·Q_p = 34.33 L/min.
-    expect(d.flowsLpm.extend).toBeCloseTo(18.70, 2);
+    expect(d.flowsLpm.extend).toBeCloseTo(18.7, 2);
     expect(d.flowsLpm.retract).toBeCloseTo(22.51, 2);
     expect(d.pump.displacementCcRev).toBe(20);
     expect(d.pump.speedRpm).toBe(1450);
@@ -127,9 +135,18 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
   // Requirements: vertical, rod down, m = 1500 kg, process force 60 kN, stroke 400 mm,
   // extend 80 mm/s, retract 120 mm/s, fixed-pinned rod end with a front flange, 30 cycles/h, 50 Hz.
   const d = sizeCircuit({
-    orientation: "vertical", rodDirection: "down", massKg: 1500, processForceN: 60000, strokeMm: 400,
-    extendSpeedMmS: 80, retractSpeedMmS: 120, mounting: "fixed-pinned", mountingStyle: "front-flange",
-    cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50,
+    orientation: "vertical",
+    rodDirection: "down",
+    massKg: 1500,
+    processForceN: 60000,
+    strokeMm: 400,
+    extendSpeedMmS: 80,
+    retractSpeedMmS: 120,
+    mounting: "fixed-pinned",
+    mountingStyle: "front-flange",
+    cyclesPerHour: 30,
+    hoursPerDay: 8,
+    supplyHz: 50,
   });
 
   it("holds the load with a rod-side CBV and a float centre (sizing contract; sources §6 [CP])", () => {
@@ -161,7 +178,7 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
     // (Engine 1 set it from the load at rest, 47.70 bar: the valve could relieve while braking.)
     // Pilot ratio: a process force acts on the lowering stroke → 3:1 [CP].
     // p_pilot = (p_set − p_L)/(R + φ) = (50.48 − 36.70)/(3 + 1.2539) = 3.241 bar [D].
-    expect(d.counterbalance?.loadPressureBar).toBeCloseTo(36.70, 2);
+    expect(d.counterbalance?.loadPressureBar).toBeCloseTo(36.7, 2);
     expect(d.counterbalance?.brakingPressureBar).toBeCloseTo(38.83, 2);
     expect(d.counterbalance?.settingBar).toBeCloseTo(50.48, 2);
     expect(d.counterbalance?.pilotRatio).toBe(3);
@@ -196,7 +213,7 @@ describe("worked example 2 — vertical press, rod down, counterbalance on the r
     //   back = cap line at φ·Q_p 0.367 + 5 + return 0.089 + 0.5 = 5.956 bar;
     //   p3 = (10·15 783.8/0.95 + 5.956·5026.55)/4008.67 = 48.92 bar;
     //   supply = 0.360 + 5 + rod line 0.720 + 3 (CBV check, free flow 2→1) = 9.079 → 57.99 bar.
-    expect(d.pressuresBar.extendMoving).toBeCloseTo(9.80, 1);
+    expect(d.pressuresBar.extendMoving).toBeCloseTo(9.8, 1);
     expect(d.pressuresBar.retract).toBeCloseTo(57.99, 1);
     // Relief = 1.1·125.65 = 138.2 → 140 bar [CP].
     expect(d.pressuresBar.reliefSetting).toBe(140);
@@ -232,9 +249,17 @@ describe("worked example 3 — inclined lift, rod up, counterbalance on the cap 
   // Requirements: inclined 30°, rod up, m = 2000 kg, μ = 0.1, stroke 400 mm, 100 mm/s both ways,
   // pinned-pinned (rear clevis and rod eye), 20 cycles/h, 60 Hz.
   const d = sizeCircuit({
-    orientation: "inclined", inclineDeg: 30, rodDirection: "up", massKg: 2000, strokeMm: 400,
-    extendSpeedMmS: 100, retractSpeedMmS: 100, mounting: "pinned-pinned",
-    cyclesPerHour: 20, hoursPerDay: 8, supplyHz: 60,
+    orientation: "inclined",
+    inclineDeg: 30,
+    rodDirection: "up",
+    massKg: 2000,
+    strokeMm: 400,
+    extendSpeedMmS: 100,
+    retractSpeedMmS: 100,
+    mounting: "pinned-pinned",
+    cyclesPerHour: 20,
+    hoursPerDay: 8,
+    supplyHz: 60,
   });
 
   it("loads along the incline (statics [D])", () => {

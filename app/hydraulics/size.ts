@@ -78,7 +78,10 @@ export function chooseCylinder(ctx: SizingContext): Evaluation {
  * flow), so a higher relief and stall thrust, and where that decided buckling (or ruled out a
  * regenerative approach) a larger cylinder or pump than its faster twin, which had the hoses.
  */
-function hoseUpsizeLimit(cyl: { capAreaMm2: number; areaRatio: number }, lines: Record<"pressure" | "capWork" | "rodWork" | "return", { hoseIndex: number }>): number {
+function hoseUpsizeLimit(
+  cyl: { capAreaMm2: number; areaRatio: number },
+  lines: Record<"pressure" | "capWork" | "rodWork" | "return", { hoseIndex: number }>,
+): number {
   const atSealLimitLpm = phaseFlowLpm(cyl.capAreaMm2, A.pistonSpeedLimitMmS.value) * Math.max(1, cyl.areaRatio);
   const largest = sizeLine(atSealLimitLpm, A.returnVelocityLimit.value, A.returnLineLengthM.value, DEFAULT_FLUID).hoseIndex;
   const smallest = Math.min(lines.pressure.hoseIndex, lines.capWork.hoseIndex, lines.rodWork.hoseIndex, lines.return.hoseIndex);
@@ -146,8 +149,14 @@ export function sizeCircuitParsed(req: Requirements): Design {
   // pump side of it is the pump choice's pressing pressure (relief, or compensator setting).
   const smallSectionLpm = pump.type === "double" ? pumpDeliveryLpm(pump.displacementsCcRev[1], ctx.speedRpm, A.volumetricEfficiency.value) : null;
   const pressSpeedControl = pressSpeedControlFor({
-    pumpType: pump.type, pressFlowLpm: ev.flowPressLpm, pumpFlowLpm: qp, smallSectionLpm, areaRatio: cyl.areaRatio,
-    pumpSideBar: pump.phases.press?.bar ?? ev.reliefBar, pressBar: ev.extendPressBar, bypassDropBar: ev.pressBypassDropBar,
+    pumpType: pump.type,
+    pressFlowLpm: ev.flowPressLpm,
+    pumpFlowLpm: qp,
+    smallSectionLpm,
+    areaRatio: cyl.areaRatio,
+    pumpSideBar: pump.phases.press?.bar ?? ev.reliefBar,
+    pressBar: ev.extendPressBar,
+    bypassDropBar: ev.pressBypassDropBar,
   });
   // A regenerative approach joins the rod end's oil at the valve stack, upstream of the control in
   // the cap line, so the bypass carries the cap inflow, not Q_p (continuity).
@@ -155,7 +164,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
 
   // The cap end at full stroke holds the highest extend pressure: where the pump stalls there,
   // the relief, or for a compensated pump its compensator setting (the pump choice's dwell pressure).
-  const capOilL = (cyl.capAreaMm2 * req.strokeMm) / 1e6 + (Math.PI * lines.capWork.innerDiameterMm ** 2 / 4) * lines.capWork.lengthM / 1000;
+  const capOilL = (cyl.capAreaMm2 * req.strokeMm) / 1e6 + (((Math.PI * lines.capWork.innerDiameterMm ** 2) / 4) * lines.capWork.lengthM) / 1000;
   const decompression = decompressionFor(capOilL, pumpOnReliefAtForce ? pump.phases.dwell!.bar : ev.extendBar);
   const centre = chooseDcvCenter(cbv !== null, holding !== null, compensated);
 
@@ -210,7 +219,11 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const pressLossKw = press ? strokeHeatKw(pk.press / etaO, ev.pressN, press.speedMmS) : 0;
   const neutralLossKw = neutralShaftKw;
   const averageLossKw =
-    duty.extendShare * extendLossKw + duty.pressShare * pressLossKw + duty.retractShare * retractLossKw + duty.dwellShare * dwellLossKw + duty.neutralShare * neutralLossKw;
+    duty.extendShare * extendLossKw +
+    duty.pressShare * pressLossKw +
+    duty.retractShare * retractLossKw +
+    duty.dwellShare * dwellLossKw +
+    duty.neutralShare * neutralLossKw;
   const coolerKw = Math.max(0, averageLossKw - dissipationKw);
 
   // Motor: the peak it must pull (pull-out torque) and, for cycles short enough, the RMS power
@@ -231,8 +244,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
   const motor = selectMotorKw(motorRequiredKw);
   const loweringHeatKw = cbv ? hydraulicPowerKw(cbv.loweringDropBar, cbv.flowLpm) : 0;
 
-  const gaugeRangeBar =
-    nextInSeries(GAUGE_RANGES_BAR, ev.reliefBar * A.gaugeRangeFactor.value) ?? GAUGE_RANGES_BAR[GAUGE_RANGES_BAR.length - 1];
+  const gaugeRangeBar = nextInSeries(GAUGE_RANGES_BAR, ev.reliefBar * A.gaugeRangeFactor.value) ?? GAUGE_RANGES_BAR[GAUGE_RANGES_BAR.length - 1];
   const workingPressureBar = ev.workingBar;
   const frame = FOUR_POLE_FRAMES.get(motor.ratedKw) ?? null;
 
@@ -294,7 +306,10 @@ export function sizeCircuitParsed(req: Requirements): Design {
       rodSidePeak: ev.rodSidePeakBar,
     },
     flowsLpm: {
-      extend: ev.flowExtendLpm, retract: ev.flowRetractLpm, pump: qp, returnMax: qp * cyl.areaRatio,
+      extend: ev.flowExtendLpm,
+      retract: ev.flowRetractLpm,
+      pump: qp,
+      returnMax: qp * cyl.areaRatio,
       ...(ev.flowPressLpm !== null ? { press: ev.flowPressLpm } : {}),
     },
     speedsMmS: {
@@ -317,37 +332,51 @@ export function sizeCircuitParsed(req: Requirements): Design {
       overallEfficiency: etaO,
     },
     motor: {
-      requiredKw: motorRequiredKw, ratedKw: motor.ratedKw, poles: A.motorPoles.value, frame, sizingPressureBar: motorSizingBar,
+      requiredKw: motorRequiredKw,
+      ratedKw: motor.ratedKw,
+      poles: A.motorPoles.value,
+      frame,
+      sizingPressureBar: motorSizingBar,
       sizedAtRelief: pumpOnReliefAtForce,
       peakKw,
       rmsKw: rmsValid ? rmsKw : null,
-      phases: phases.filter((ph) => ph.name !== "neutral").map((ph) => ({ name: ph.name, kw: ph.kw, durationS: ph.s })),
+      // Only the phases the cycle has: no dwell without a dwell time (its power would be a phase that never runs).
+      phases: phases
+        .filter((ph) => ph.name !== "neutral" && (ph.name !== "dwell" || req.dwellS > 0))
+        .map((ph) => ({ name: ph.name, kw: ph.kw, durationS: ph.s })),
     },
     regenerative: regen !== null,
     regeneration: regen
       ? {
-          rodAreaMm2: regen.rodAreaMm2, speedMmS: ev.extendActualMmS, forceAtWorkingN: cylinderForceN(workingPressureBar, regen.rodAreaMm2, eta),
-          capInflowLpm: regen.capInflowLpm, rodOutflowLpm: regen.rodOutflowLpm, speedRatioToRetract: regen.speedRatioToRetract,
-          endsBy: regen.endsBy, switchBar: regen.switchBar, reason: ev.regenReason,
+          rodAreaMm2: regen.rodAreaMm2,
+          speedMmS: ev.extendActualMmS,
+          forceAtWorkingN: cylinderForceN(workingPressureBar, regen.rodAreaMm2, eta),
+          capInflowLpm: regen.capInflowLpm,
+          rodOutflowLpm: regen.rodOutflowLpm,
+          speedRatioToRetract: regen.speedRatioToRetract,
+          endsBy: regen.endsBy,
+          switchBar: regen.switchBar,
+          reason: ev.regenReason,
         }
       : null,
     pressSpeedControl,
-    counterbalance: cbv && ctx.pilot
-      ? {
-          side: cbv.side,
-          settingBar: cbv.settingBar,
-          pilotRatio: cbv.ratio,
-          pilotOpeningBar: cbv.pilotOpeningBar,
-          stroke: cbv.side === "rod" ? "extend" : "retract",
-          loadPressureBar: cbv.loadPressureBar,
-          brakingPressureBar: cbv.brakingPressureBar,
-          loweringSpeedMmS: cbv.loweringSpeedMmS,
-          loadClass: ctx.pilot.loadClass,
-          pilotRatioReason: ctx.pilot.reason,
-          loweringHeatKw,
-          flowLpm: cbv.flowLpm,
-        }
-      : null,
+    counterbalance:
+      cbv && ctx.pilot
+        ? {
+            side: cbv.side,
+            settingBar: cbv.settingBar,
+            pilotRatio: cbv.ratio,
+            pilotOpeningBar: cbv.pilotOpeningBar,
+            stroke: cbv.side === "rod" ? "extend" : "retract",
+            loadPressureBar: cbv.loadPressureBar,
+            brakingPressureBar: cbv.brakingPressureBar,
+            loweringSpeedMmS: cbv.loweringSpeedMmS,
+            loadClass: ctx.pilot.loadClass,
+            pilotRatioReason: ctx.pilot.reason,
+            loweringHeatKw,
+            flowLpm: cbv.flowLpm,
+          }
+        : null,
     holding,
     decompression,
     reliefVent: centre.ventedRelief
@@ -390,7 +419,12 @@ export function sizeCircuitParsed(req: Requirements): Design {
     circuit: { components: [], connections: [], dcvPositions: dcvPositions(centre.center) },
   };
 
-  addWarnings(design, ctx, ev, warnings, { duty, motorInSeries: motor.inSeries, valveWithinLimit: valve.withinLimit, pumpOnRelief: centre.pumpOnReliefInNeutral });
+  addWarnings(design, ctx, ev, warnings, {
+    duty,
+    motorInSeries: motor.inSeries,
+    valveWithinLimit: valve.withinLimit,
+    pumpOnRelief: centre.pumpOnReliefInNeutral,
+  });
   design.bom = buildBom(design, gaugeRangeBar);
   design.circuit = buildCircuit(design, gaugeRangeBar, design.circuit.dcvPositions);
   design.trail = explain(design, ctx, ev, { pumpOnRelief: centre.pumpOnReliefInNeutral, gaugeRangeBar, duty });
@@ -400,8 +434,7 @@ export function sizeCircuitParsed(req: Requirements): Design {
 }
 
 const f1 = (x: number): string => num(x);
-const VENTED_NOTE =
-  `P is blocked in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever solenoid a or b is on, or the axis cannot build pressure. De-energised (neutral, or a control fault) the pump circulates at about ${A.ventPressureBar.value} bar.`;
+const VENTED_NOTE = `P is blocked in neutral, so the relief is solenoid-vented: the control must energise its normally open vent valve whenever solenoid a or b is on, or the axis cannot build pressure. De-energised (neutral, or a control fault) the pump circulates at about ${A.ventPressureBar.value} bar.`;
 const VENTED_NOTE_CBV = `${VENTED_NOTE} The counterbalance valve still holds the load then.`;
 const LINE_NAMES = ["pressure", "return", "suction", "capWork", "rodWork"] as const;
 
@@ -415,89 +448,125 @@ function addWarnings(
   const c = d.cylinder;
   // A design whose pressures do not fit is never returned (NotSizableError), so only the reserve is judged.
   if (ev.workingBar > A.pressureNearLimit.value * ev.workingLimitBar) {
-    w.add("PRESSURE_NEAR_LIMIT",
-      `The working pressure of ${f1(ev.workingBar)} bar is within 5 % of the ${f1(ev.workingLimitBar)} bar limit; there is little reserve for losses this estimate leaves out.`);
+    w.add(
+      "PRESSURE_NEAR_LIMIT",
+      `The working pressure of ${f1(ev.workingBar)} bar is within 5 % of the ${f1(ev.workingLimitBar)} bar limit; there is little reserve for losses this estimate leaves out.`,
+    );
   }
   if (c.outOfSeries) {
-    w.add("BORE_OUT_OF_SERIES",
-      `The ${c.boreMm}/${c.rodMm} mm cylinder is beyond the ${ev.cyl.table} pairing table; it is an ISO 3320 size, so check that a maker offers it.`);
+    w.add(
+      "BORE_OUT_OF_SERIES",
+      `The ${c.boreMm}/${c.rodMm} mm cylinder is beyond the ${ev.cyl.table} pairing table; it is an ISO 3320 size, so check that a maker offers it.`,
+    );
   }
   if (!ev.bucklingOk) {
-    w.add("BUCKLING_MARGIN",
-      `The ${c.rodMm} mm rod has a buckling safety factor of ${num(ev.buckling.safetyFactor, 2)} at full extension, below the ${A.bucklingSafetyFactor.value} required. Guide the load, shorten the stroke or choose a stronger mounting.`);
+    w.add(
+      "BUCKLING_MARGIN",
+      `The ${c.rodMm} mm rod has a buckling safety factor of ${num(ev.buckling.safetyFactor, 2)} at full extension, below the ${A.bucklingSafetyFactor.value} required. Guide the load, shorten the stroke or choose a stronger mounting.`,
+    );
   }
   if (ev.rodSidePeakBar > c.ratedPressureBar + 1e-9) {
-    w.add("ROD_SIDE_INTENSIFICATION",
-      `The rod side can reach ${f1(ev.rodSidePeakBar)} bar, above the cylinder's ${c.ratedPressureBar} bar rating.`);
+    w.add("ROD_SIDE_INTENSIFICATION", `The rod side can reach ${f1(ev.rodSidePeakBar)} bar, above the cylinder's ${c.ratedPressureBar} bar rating.`);
   }
   const tol = 1 + A.speedTolerance.value;
   if (d.speedsMmS.extendActual > tol * d.speedsMmS.extendRequested || d.speedsMmS.retractActual > tol * d.speedsMmS.retractRequested) {
-    w.add("PUMP_SPEED_MISMATCH",
-      `${d.pump.type === "fixed" ? "A fixed pump" : "At full delivery the pump"} gives both strokes the same ${f1(d.flowsLpm.pump)} L/min, so the cylinder extends at ${Math.round(d.speedsMmS.extendActual)} mm/s (asked ${d.speedsMmS.extendRequested}) and retracts at ${Math.round(d.speedsMmS.retractActual)} mm/s (asked ${d.speedsMmS.retractRequested}). If an asked speed is a limit, a meter-in flow control on that stroke would hold it; its surplus flow would then cross the relief as heat, and neither is in this design.`);
+    w.add(
+      "PUMP_SPEED_MISMATCH",
+      `${d.pump.type === "fixed" ? "A fixed pump" : "At full delivery the pump"} gives both strokes the same ${f1(d.flowsLpm.pump)} L/min, so the cylinder extends at ${Math.round(d.speedsMmS.extendActual)} mm/s (asked ${d.speedsMmS.extendRequested}) and retracts at ${Math.round(d.speedsMmS.retractActual)} mm/s (asked ${d.speedsMmS.retractRequested}). If an asked speed is a limit, a meter-in flow control on that stroke would hold it; its surplus flow would then cross the relief as heat, and neither is in this design.`,
+    );
   }
   // Meter-out intensification (force balance p2 = φ·p1 + F/A3): any restriction in the rod-end line
   // while extending, a meter-out throttle or a blocked B line, drives the rod side towards φ × relief.
   // A rod-side counterbalance valve caps it near its own setting instead.
   const meterOutBar = c.areaRatio * d.pressuresBar.reliefSetting;
   if (d.counterbalance?.side !== "rod" && meterOutBar > c.ratedPressureBar + 1e-9) {
-    w.add("METER_OUT_INTENSIFICATION",
-      `A restriction in the rod-end line while extending (a meter-out flow control, or a blocked B line) would raise the rod side to φ × relief = ${num(c.areaRatio, 2)} × ${d.pressuresBar.reliefSetting} = ${f1(meterOutBar)} bar, above the cylinder's ${c.ratedPressureBar} bar rating. Control this axis's speed meter-in only, and never throttle the rod-end line.`);
+    w.add(
+      "METER_OUT_INTENSIFICATION",
+      `A restriction in the rod-end line while extending (a meter-out flow control, or a blocked B line) would raise the rod side to φ × relief = ${num(c.areaRatio, 2)} × ${d.pressuresBar.reliefSetting} = ${f1(meterOutBar)} bar, above the cylinder's ${c.ratedPressureBar} bar rating. Control this axis's speed meter-in only, and never throttle the rod-end line.`,
+    );
   }
   const psc = d.pressSpeedControl;
   if (psc && psc.availableDropBar < psc.minDropBar - 1e-9) {
-    w.add("PRESS_CONTROL_DROP_LOW",
-      `The flow control that sets the pressing speed has only ${f1(psc.availableDropBar)} bar across it (the ${d.pump.type === "compensated" ? "compensator" : "relief"} setting less the ${f1(d.pressuresBar.extendPress)} bar pressing pressure); it needs about ${f1(psc.minDropBar)} bar to regulate, so the pressing speed may sag. Allow a higher ${d.pump.type === "compensated" ? "compensator and relief settings" : "relief setting"} within the cylinder's ${c.ratedPressureBar} bar rating.`);
+    w.add(
+      "PRESS_CONTROL_DROP_LOW",
+      `The flow control that sets the pressing speed has only ${f1(psc.availableDropBar)} bar across it (the ${d.pump.type === "compensated" ? "compensator" : "relief"} setting less the ${f1(d.pressuresBar.extendPress)} bar pressing pressure); it needs about ${f1(psc.minDropBar)} bar to regulate, so the pressing speed may sag. Allow a higher ${d.pump.type === "compensated" ? "compensator and relief settings" : "relief setting"} within the cylinder's ${c.ratedPressureBar} bar rating.`,
+    );
   }
   if (!ev.pumpInSeries) {
-    w.add("PUMP_BEYOND_SERIES", `The flow needs more than the largest displacement in the series (${ev.displacementCc} cm³/rev); use several pumps or a larger unit.`);
+    w.add(
+      "PUMP_BEYOND_SERIES",
+      `The flow needs more than the largest displacement in the series (${ev.displacementCc} cm³/rev); use several pumps or a larger unit.`,
+    );
   }
   if (!extra.motorInSeries) {
     w.add("MOTOR_BEYOND_SERIES", `The drive needs ${f1(d.motor.requiredKw)} kW, more than the largest motor listed.`);
   }
   if (!extra.valveWithinLimit) {
-    w.add("VALVE_NEAR_LIMIT",
-      `The largest path flow of ${f1(d.directionalValve.maxPathFlowLpm)} L/min is above 80 % of what an ISO 4401-10 valve typically passes; use a cartridge or logic-element valve block.`);
+    w.add(
+      "VALVE_NEAR_LIMIT",
+      `The largest path flow of ${f1(d.directionalValve.maxPathFlowLpm)} L/min is above 80 % of what an ISO 4401-10 valve typically passes; use a cartridge or logic-element valve block.`,
+    );
   }
   for (const name of LINE_NAMES) {
     const line = d.lines[name];
     if (!line.inRange) {
-      w.add("LINE_SIZE_BEYOND_RANGE", `The ${name} line needs ${f1(line.requiredDiameterMm)} mm, larger than the largest hose listed; use tube or parallel lines.`);
+      w.add(
+        "LINE_SIZE_BEYOND_RANGE",
+        `The ${name} line needs ${f1(line.requiredDiameterMm)} mm, larger than the largest hose listed; use tube or parallel lines.`,
+      );
     }
   }
   if (extra.pumpOnRelief) {
-    w.add("PUMP_ON_RELIEF_IN_NEUTRAL",
-      `With a ${d.directionalValve.center} centre P is blocked, so the pump runs over the ${d.pressuresBar.reliefSetting} bar relief whenever the valve is in neutral (${Math.round(d.heat.neutralShare * 100)} % of the time). A solenoid-vented relief or unloading valve would save that heat and power.`);
+    w.add(
+      "PUMP_ON_RELIEF_IN_NEUTRAL",
+      `With a ${d.directionalValve.center} centre P is blocked, so the pump runs over the ${d.pressuresBar.reliefSetting} bar relief whenever the valve is in neutral (${Math.round(d.heat.neutralShare * 100)} % of the time). A solenoid-vented relief or unloading valve would save that heat and power.`,
+    );
   }
   if (d.reliefVent) {
     w.add("RELIEF_VENTED_IN_NEUTRAL", d.counterbalance ? VENTED_NOTE_CBV : VENTED_NOTE);
   }
   if (extra.duty.overloaded) {
-    w.add("DUTY_CYCLE_OVERLOAD",
-      `At the actual speeds the cycles asked for need more than an hour of movement per hour; the heat is worked out for continuous movement.`);
+    w.add(
+      "DUTY_CYCLE_OVERLOAD",
+      `At the actual speeds the cycles asked for need more than an hour of movement per hour; the heat is worked out for continuous movement.`,
+    );
   }
   const top = Math.max(d.speedsMmS.extendActual, d.speedsMmS.retractActual);
   if (top > A.pistonSpeedLimitMmS.value) {
-    w.add("PISTON_SPEED_HIGH",
-      `The piston reaches ${Math.round(top)} mm/s, above the about ${A.pistonSpeedLimitMmS.value} mm/s standard seals are made for; ask the cylinder maker for low-friction seals and ports sized for the flow.`);
+    w.add(
+      "PISTON_SPEED_HIGH",
+      `The piston reaches ${Math.round(top)} mm/s, above the about ${A.pistonSpeedLimitMmS.value} mm/s standard seals are made for; ask the cylinder maker for low-friction seals and ports sized for the flow.`,
+    );
   }
-  for (const [stroke, e, side] of [["extended", c.cushioning.extend, "rod"], ["retracted", c.cushioning.retract, "cap"]] as const) {
+  for (const [stroke, e, side] of [
+    ["extended", c.cushioning.extend, "rod"],
+    ["retracted", c.cushioning.retract, "cap"],
+  ] as const) {
     if (e.cushioned && e.peakBar > c.ratedPressureBar + 1e-9) {
-      w.add("CUSHION_PRESSURE_HIGH",
-        `Braking ${f1(d.requirements.massKg)} kg from ${Math.round(e.speedMmS)} mm/s in a ${c.cushioning.cushionLengthMm} mm cushion at the ${stroke} end puts about ${f1(e.peakBar)} bar on the ${side} side, above the cylinder's ${c.ratedPressureBar} bar rating; slow the stroke end down outside the cylinder or ask for a longer cushion.`);
+      w.add(
+        "CUSHION_PRESSURE_HIGH",
+        `Braking ${f1(d.requirements.massKg)} kg from ${Math.round(e.speedMmS)} mm/s in a ${c.cushioning.cushionLengthMm} mm cushion at the ${stroke} end puts about ${f1(e.peakBar)} bar on the ${side} side, above the cylinder's ${c.ratedPressureBar} bar rating; slow the stroke end down outside the cylinder or ask for a longer cushion.`,
+      );
     }
   }
   if (d.decompression.needed) {
-    w.add("DECOMPRESSION_NEEDED",
-      `About ${Math.round(d.decompression.releaseCm3)} cm³ of oil compressed in the cap end at ${f1(d.decompression.pressureBar)} bar springs back when the valve shifts to return; released at once it hammers hoses and seals. The bill has a decompression valve to let it out first.`);
+    w.add(
+      "DECOMPRESSION_NEEDED",
+      `About ${Math.round(d.decompression.releaseCm3)} cm³ of oil compressed in the cap end at ${f1(d.decompression.pressureBar)} bar springs back when the valve shifts to return; released at once it hammers hoses and seals. The bill has a decompression valve to let it out first.`,
+    );
   }
   const hold = d.holding;
   if (hold && hold.side === "rod" && hold.openingLoadSideBar > c.ratedPressureBar + 1e-9) {
-    w.add("ROD_SIDE_INTENSIFICATION",
-      `Opening the rod-end pilot-operated check intensifies the rod side to ${f1(hold.openingLoadSideBar)} bar (p2 = F/A3 + φ·p_pilot), above the cylinder's ${c.ratedPressureBar} bar rating; choose a higher pilot ratio.`);
+    w.add(
+      "ROD_SIDE_INTENSIFICATION",
+      `Opening the rod-end pilot-operated check intensifies the rod side to ${f1(hold.openingLoadSideBar)} bar (p2 = F/A3 + φ·p_pilot), above the cylinder's ${c.ratedPressureBar} bar rating; choose a higher pilot ratio.`,
+    );
   }
   if (ctx.buckling.unstable) {
-    w.add("PIVOTED_BODY_FREE_ROD",
-      `A cylinder held by a ${d.requirements.mountingStyle} pivot with a free, unguided rod end is a mechanism, not a column: it folds at the pivot under any push. Guide the rod end, or hold the body by a flange or feet.`);
+    w.add(
+      "PIVOTED_BODY_FREE_ROD",
+      `A cylinder held by a ${d.requirements.mountingStyle} pivot with a free, unguided rod end is a mechanism, not a column: it folds at the pivot under any push. Guide the rod end, or hold the body by a flange or feet.`,
+    );
   }
   if (d.requirements.pumpType !== undefined && d.requirements.pumpType !== d.pump.type) {
     w.add("PUMP_TYPE_NOT_SUITED", `The pump asked for is not sized: ${d.pump.reason}.`);
@@ -505,14 +574,19 @@ function addWarnings(
   const rg = d.regeneration;
   if (rg) {
     const weak = `While regenerating the rod gives only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area.`;
-    w.add("REGENERATIVE_APPROACH", rg.endsBy === "pressure-switch"
-      ? `The approach runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a, and its pressure switch ends it at ${f1(rg.switchBar ?? 0)} bar and must be latched until the return, or the axis would fall back to regenerating as the pressure drops on the full area. ${weak}`
-      : rg.endsBy === "limit-switch"
-        ? `The approach runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a and de-energise it at the limit switch where the pressing stroke starts, so the pressing is done on the full area. ${weak}`
-        : `The whole extension runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a. The rod then pushes with only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area; enough for this axis, which asks for no force at the end of the stroke.`);
+    w.add(
+      "REGENERATIVE_APPROACH",
+      rg.endsBy === "pressure-switch"
+        ? `The approach runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a, and its pressure switch ends it at ${f1(rg.switchBar ?? 0)} bar and must be latched until the return, or the axis would fall back to regenerating as the pressure drops on the full area. ${weak}`
+        : rg.endsBy === "limit-switch"
+          ? `The approach runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a and de-energise it at the limit switch where the pressing stroke starts, so the pressing is done on the full area. ${weak}`
+          : `The whole extension runs regeneratively (rod end joined to the cap end): the controls energise the regeneration valve with solenoid a. The rod then pushes with only ${f1(rg.forceAtWorkingN / 1000)} kN at ${f1(c.workingPressureBar)} bar, against ${f1(c.extendForceN / 1000)} kN on the full area; enough for this axis, which asks for no force at the end of the stroke.`,
+    );
   }
   if (d.heat.coolerKw > 0) {
-    w.add("HEAT_COOLER_NEEDED",
-      `On average ${f1(d.heat.averageLossKw)} kW becomes heat, but a ${d.reservoir.volumeL} L tank sheds only about ${num(d.heat.tankDissipationKw, 2)} kW at ${d.requirements.ambientC} °C ambient with oil at 60 °C. The bill has a cooler for at least ${f1(d.heat.coolerKw)} kW.`);
+    w.add(
+      "HEAT_COOLER_NEEDED",
+      `On average ${f1(d.heat.averageLossKw)} kW becomes heat, but a ${d.reservoir.volumeL} L tank sheds only about ${num(d.heat.tankDissipationKw, 2)} kW at ${d.requirements.ambientC} °C ambient with oil at 60 °C. The bill has a cooler for at least ${f1(d.heat.coolerKw)} kW.`,
+    );
   }
 }

@@ -15,9 +15,16 @@ const ETA = 0.85; // overall pump efficiency, Esposito from memory [M]
 
 /** The reference axis as the pump sees it; the total displacement is the engine's next ISO 3662 size. */
 const REF: PhaseDemand = {
-  approachBar: 20, retractBar: 20, press: { bar: 127.3, flowLpm: 4.71 }, reliefBar: 140.1, workingBar: 127.3, ratedBar: 160,
+  approachBar: 20,
+  retractBar: 20,
+  press: { bar: 127.3, flowLpm: 4.71 },
+  reliefBar: 140.1,
+  workingBar: 127.3,
+  ratedBar: 160,
   // 94.25 L/min at 1450 rpm and η_v 0.95 needs 68.4 cm³/rev → 80 cm³/rev, 110.2 L/min (Q = V·n·η_v [M]; ISO 3662 R10 [M])
-  displacementCc: 80, pumpFlowLpm: 110.2, speedRpm: 1450,
+  displacementCc: 80,
+  pumpFlowLpm: 110.2,
+  speedRpm: 1450,
 };
 
 describe("one fixed pump over-sizes the motor of a two-speed press (trade-press pump articles)", () => {
@@ -152,8 +159,17 @@ describe("the relief over a compensator (maker's page: 1.1 × p_c; common practi
   it("a sized low-pressure compensated axis gets its relief at least 10 bar over p_c, and the trail says how", () => {
     // a light horizontal axis: working pressure well under 100 bar, where p_c + 10 bar governs over 1.1·p_c
     const d = sizeCircuit({
-      orientation: "horizontal", massKg: 200, processForceN: 0, strokeMm: 300, extendSpeedMmS: 100, retractSpeedMmS: 100,
-      mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50, pumpType: "compensated",
+      orientation: "horizontal",
+      massKg: 200,
+      processForceN: 0,
+      strokeMm: 300,
+      extendSpeedMmS: 100,
+      retractSpeedMmS: 100,
+      mounting: "fixed-fixed",
+      cyclesPerHour: 60,
+      hoursPerDay: 8,
+      supplyHz: 50,
+      pumpType: "compensated",
     });
     const pc = d.pump.compensatorBar!;
     expect(pc).toBeLessThan(100);
@@ -181,9 +197,20 @@ describe("the issue's 2 t platen hanging from the rod with 150 kN of pressing fo
   // fixed-fixed, 60 cycles/h. Engine 1 (one speed, one fixed pump): 45 kW, 172 L/min, 690 L.
   const press = (approachMmS: number, pumpType?: "fixed" | "double" | "compensated") =>
     sizeCircuit({
-      orientation: "vertical", rodDirection: "down", massKg: 2000, processForceN: 150_000, strokeMm: 500,
-      extendSpeedMmS: approachMmS, retractSpeedMmS: approachMmS, pressStrokeMm: 30, pressSpeedMmS: 10,
-      mounting: "fixed-fixed", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50, ...(pumpType ? { pumpType } : {}),
+      orientation: "vertical",
+      rodDirection: "down",
+      massKg: 2000,
+      processForceN: 150_000,
+      strokeMm: 500,
+      extendSpeedMmS: approachMmS,
+      retractSpeedMmS: approachMmS,
+      pressStrokeMm: 30,
+      pressSpeedMmS: 10,
+      mounting: "fixed-fixed",
+      cyclesPerHour: 60,
+      hoursPerDay: 8,
+      supplyHz: 50,
+      ...(pumpType ? { pumpType } : {}),
     });
 
   it("at a fast 200 mm/s approach the engine picks a double pump and a third of engine 1's motor", () => {
@@ -230,7 +257,8 @@ describe("properties over random pressing axes", () => {
     fc.assert(
       fc.property(pressAxisArb, (req) => {
         const d = sized(req);
-        fc.pre(d !== null);
+        // Beyond the largest listed motor the design says so (MOTOR_BEYOND_SERIES) instead of covering the phase.
+        fc.pre(d !== null && !d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES"));
         const m = d!.motor;
         for (const ph of m.phases) {
           // every phase within the short-peak limit, and long phases within the rating
@@ -250,6 +278,9 @@ describe("properties over random pressing axes", () => {
         const a = sized(req);
         const b = sized(slower);
         fc.pre(a !== null && b !== null && a.cylinder.boreMm === b.cylinder.boreMm && a.cylinder.rodMm === b.cylinder.rodMm);
+        // Only designs that meet the rules compare: a faster axis whose rod already fails buckling
+        // (BUCKLING_MARGIN) may regenerate where the slower, passing one may not (it would lose its margin).
+        fc.pre(![a!, b!].some((d) => d.warnings.some((w) => w.code === "BUCKLING_MARGIN")));
         expect(b!.pump.displacementCcRev).toBeLessThanOrEqual(a!.pump.displacementCcRev + 1e-9);
       }),
       { numRuns: 200 },

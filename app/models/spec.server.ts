@@ -1,6 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "~/db.server";
 import type { UnitSystem } from "~/units/systems";
+import type { MachineDesign } from "~/hydraulics/machine-design";
 
 import { SPEC_STATUSES, type SpecStatus } from "~/content/spec-status";
 
@@ -71,6 +72,8 @@ export class SpecRevision extends Model<InferAttributes<SpecRevision>, InferCrea
   declare specId: string;
   declare number: number;
   declare axes: SpecAxis[];
+  /** A machine of several axes: its design over the whole cycle (null for a spec of one axis). */
+  declare machine: CreationOptional<MachineDesign | null>;
   declare answers: SpecAnswers;
   declare unitSystem: UnitSystem;
   declare engineVersion: string;
@@ -84,6 +87,7 @@ SpecRevision.init(
     specId: { type: DataTypes.UUID, allowNull: false },
     number: { type: DataTypes.INTEGER, allowNull: false },
     axes: { type: DataTypes.JSONB, allowNull: false },
+    machine: { type: DataTypes.JSONB, allowNull: true },
     answers: { type: DataTypes.JSONB, allowNull: false },
     unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false },
     engineVersion: { type: DataTypes.STRING(20), allowNull: false },

@@ -1,0 +1,27 @@
+import type { BomLine, Design, MachineDesign } from "~/hydraulics";
+
+// What a published revision was sized as: one axis (a Design) or a machine of several axes
+// (a MachineDesign). Every page, workbook and bid that reads a revision's design asks here, so
+// the choice between the two is made in one place.
+
+export type PublishedDesign = { kind: "axis"; design: Design } | { kind: "machine"; design: MachineDesign };
+
+interface RevisionDesigns {
+  axes: { name: string; design: unknown }[];
+  machine?: MachineDesign | null;
+}
+
+export function publishedDesignOf(revision: RevisionDesigns | null | undefined): PublishedDesign | null {
+  if (!revision) return null;
+  if (revision.machine) return { kind: "machine", design: revision.machine };
+  const design = (revision.axes[0]?.design ?? null) as Design | null;
+  return design ? { kind: "axis", design } : null;
+}
+
+/** The bill shops price: the machine's when there is one, else the axis's. */
+export const billOf = (revision: RevisionDesigns | null | undefined): BomLine[] => publishedDesignOf(revision)?.design.bom ?? [];
+
+/** The figures the open-specs filter keeps on the spec row. */
+export function headlineFigures(published: PublishedDesign): { reliefSettingBar: number; pumpFlowLpm: number } {
+  return { reliefSettingBar: published.design.pressuresBar.reliefSetting, pumpFlowLpm: published.design.flowsLpm.pump };
+}

@@ -43,6 +43,9 @@ interface Point {
   power: number;
 }
 
+/** What the chart reads of a phase: an axis's cycle (CyclePhase) and a machine's (MachineCyclePhase) both have it. */
+export type ChartPhase = Pick<CyclePhase, "durationS" | "shownS" | "demandLpm" | "pressureBar" | "pumpFlowLpm" | "hydraulicKw"> & { phase: string };
+
 const seconds = (s: number): string => `${roundForDisplay(s, s >= 10 ? 0 : 1).toLocaleString("en-GB", { maximumFractionDigits: 2 })}\u00a0s`;
 
 /** The axis top: the next of 1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6, 8 × a power of ten above the highest value. */
@@ -54,7 +57,7 @@ function niceTop(max: number): number {
 }
 
 /** Step points in display units: one at each phase start, and the last phase's values at the end. */
-function stepPoints(cycle: CyclePhase[], units: UnitSystem): Point[] {
+function stepPoints(cycle: ChartPhase[], units: UnitSystem): Point[] {
   const at = (q: Quantity, v: number) => toDisplay(q, v, units);
   let t = 0;
   const points = cycle.map((ph) => {
@@ -171,7 +174,7 @@ function Panel({
   );
 }
 
-function Charts({ cycle, units, width, idPrefix }: { cycle: CyclePhase[]; units: UnitSystem; width: number; idPrefix: string }) {
+function Charts({ cycle, units, width, idPrefix }: { cycle: ChartPhase[]; units: UnitSystem; width: number; idPrefix: string }) {
   const data = stepPoints(cycle, units);
   const end = data[data.length - 1].t;
   // A band's number only where it has room (about 12 px).
@@ -241,9 +244,20 @@ const head = "px-2 py-1.5 text-xs font-semibold text-ink-600";
 
 /**
  * The cycle chart with its table, or nothing for a design stored before the engine listed its
- * cycle (published specs keep the design they were published with).
+ * cycle (published specs keep the design they were published with). A machine names its own
+ * phases (which axes move) and says what its axes draw.
  */
-export function CycleChart({ cycle, units = "metric" }: { cycle: CyclePhase[] | undefined; units?: UnitSystem }) {
+export function CycleChart<P extends ChartPhase>({
+  cycle,
+  units = "metric",
+  phaseName = (ph) => PHASE_NAMES[ph.phase as CyclePhase["phase"]],
+  drawnBy = "Cylinder draws",
+}: {
+  cycle: P[] | undefined;
+  units?: UnitSystem;
+  phaseName?: (phase: P) => string;
+  drawnBy?: string;
+}) {
   if (!cycle?.length) return null;
   const idle = cycle.find((ph) => ph.phase === "neutral" && ph.shownS < ph.durationS);
   const f = (q: Quantity, v: number) => formatQuantity(q, v, units);
@@ -259,7 +273,7 @@ export function CycleChart({ cycle, units = "metric" }: { cycle: CyclePhase[] | 
           <Key colour={COLOURS.pressure}>Pump pressure</Key>
           <Key colour={COLOURS.delivery}>Pump delivers</Key>
           <Key colour={COLOURS.demand} dashed>
-            Cylinder draws
+            {drawnBy}
           </Key>
           <Key colour={COLOURS.power}>Hydraulic power</Key>
         </div>
@@ -286,7 +300,7 @@ export function CycleChart({ cycle, units = "metric" }: { cycle: CyclePhase[] | 
                   Pump pressure
                 </th>
                 <th scope="col" className={`${head} text-right`}>
-                  Cylinder draws
+                  {drawnBy}
                 </th>
                 <th scope="col" className={`${head} text-right`}>
                   Pump delivers
@@ -298,10 +312,10 @@ export function CycleChart({ cycle, units = "metric" }: { cycle: CyclePhase[] | 
             </thead>
             <tbody className="divide-y divide-ink-100">
               {cycle.map((ph, i) => (
-                <tr key={ph.phase} data-cycle-phase={ph.phase}>
+                <tr key={i} data-cycle-phase={ph.phase}>
                   <th scope="row" className="sticky left-0 min-w-[8.5rem] bg-white px-2 py-1.5 font-semibold text-ink-900 sm:whitespace-nowrap">
                     <span className="mr-1.5 inline-block w-4 text-ink-400">{i + 1}</span>
-                    {PHASE_NAMES[ph.phase]}
+                    {phaseName(ph)}
                   </th>
                   <td className={cell}>{seconds(ph.durationS)}</td>
                   <td className={cell}>{f("pressure", ph.pressureBar)}</td>

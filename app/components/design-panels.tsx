@@ -70,7 +70,7 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
 }
 
 /** "double pump, 112 + 6.3 cm³/rev": the kind of pump a shop prices, with its sections. Designs from before the pump choice have no type: a fixed pump. */
-function pumpInWords(design: Design, u: ReturnType<typeof displayUnits>): string {
+export function pumpInWords(design: { pump: Design["pump"] }, u: ReturnType<typeof displayUnits>): string {
   const p = design.pump;
   if (p.type === "double" && p.displacementsCcRev?.length === 2) {
     return `double pump, ${p.displacementsCcRev.map((cc) => u.displacement(cc)).join(" + ")}`;
@@ -121,7 +121,8 @@ function rating(line: BomLine): string {
   return `${withUnit(line.rating.value, line.rating.unit)} ${line.rating.label}`;
 }
 
-export function ComponentTable({ design }: { design: Design }) {
+/** The bill, line by line; a machine's names the axis each line serves (or the power unit). */
+export function ComponentTable({ design, servedBy }: { design: { bom: BomLine[] }; servedBy?: (line: BomLine) => string | null }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-left text-sm">
@@ -131,6 +132,11 @@ export function ComponentTable({ design }: { design: Design }) {
             <th scope="col" className={headCell}>
               Item
             </th>
+            {servedBy ? (
+              <th scope="col" className={headCell}>
+                Serves
+              </th>
+            ) : null}
             <th scope="col" className={`${headCell} text-right`}>
               Qty
             </th>
@@ -148,6 +154,11 @@ export function ComponentTable({ design }: { design: Design }) {
               <th scope="row" className={`${cell} font-semibold text-ink-900`}>
                 {line.item}
               </th>
+              {servedBy ? (
+                <td className={`${cell} whitespace-nowrap text-ink-800`} data-serves="">
+                  {servedBy(line)}
+                </td>
+              ) : null}
               <td className={`${cell} text-right tabular-nums`}>{line.quantity}</td>
               <td className={`${cell} text-ink-700`}>{line.specification}</td>
               <td className={`${cell} whitespace-nowrap text-ink-700`}>{rating(line)}</td>

@@ -25,3 +25,20 @@ export const billOf = (revision: RevisionDesigns | null | undefined): BomLine[] 
 export function headlineFigures(published: PublishedDesign): { reliefSettingBar: number; pumpFlowLpm: number } {
   return { reliefSettingBar: published.design.pressuresBar.reliefSetting, pumpFlowLpm: published.design.flowsLpm.pump };
 }
+
+/** The axis names of a published design: none for one axis (its bill serves it whole). */
+export const axisNamesOf = (published: PublishedDesign | null): string[] => (published?.kind === "machine" ? published.design.axes.map((a) => a.name) : []);
+
+export const POWER_UNIT_LABEL = "Power unit";
+
+/**
+ * Which axis a bill line serves: a machine's axis lines carry the axis in their key
+ * (`cylinder:Clamp`, machine-bom.ts); every other line belongs to the one power unit. Null for a
+ * design of one axis, where the question does not arise.
+ */
+export function servedBy(key: string, axisNames: string[]): string | null {
+  if (!axisNames.length) return null;
+  // The longest name that fits, should one name end with another after a colon ("B", "A:B").
+  const fits = axisNames.filter((name) => key.endsWith(`:${name}`)).sort((x, y) => y.length - x.length);
+  return fits[0] ?? POWER_UNIT_LABEL;
+}

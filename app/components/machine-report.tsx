@@ -1,0 +1,218 @@
+import type { MachineAxis, MachineCyclePhase, MachineDesign } from "~/hydraulics";
+import { servedBy } from "~/services/published-design";
+import { formatQuantity, type UnitSystem } from "~/units";
+import { centreName } from "./circuit-diagram/describe";
+import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
+import { CycleChart } from "./cycle-chart";
+import { CalculationTrail, CautionsPanel, ComponentTable, pumpInWords, WarningsList } from "./design-panels";
+import { FoldedSection } from "./folded-section";
+import { Card, Notice } from "./ui";
+
+/**
+ * A machine as every page shows it: each axis with its own sizes, the one power unit that feeds
+ * them, the machine's cycle, its warnings (each names its axis), the bill with the axis each
+ * line serves, and the calculation trail. The single-axis DesignReport's sibling: same order,
+ * same panels where they fit.
+ */
+export function MachineReport({
+  design,
+  units,
+  updating = false,
+  componentsTitle = "Components",
+  cautions = true,
+}: {
+  design: MachineDesign;
+  units: UnitSystem;
+  /** A newer design is on its way (live sizing): the report is dimmed. */
+  updating?: boolean;
+  componentsTitle?: string;
+  /** Pages that ask the reader to confirm the cautions show them beside the confirmation instead. */
+  cautions?: boolean;
+}) {
+  const u = displayUnits(units);
+  const names = design.axes.map((a) => a.name);
+  return (
+    <div className={`space-y-6 transition-opacity ${updating ? "opacity-70" : ""}`} data-machine-report="">
+      <Card>
+        <div className="mb-2 flex items-center justify-between gap-3">
+          <h2 className="font-semibold">Preliminary circuit of the machine</h2>
+          <span className="text-xs text-ink-400">{updating ? "Updating…" : `Engine ${design.engineVersion}`}</span>
+        </div>
+        <div data-machine-circuit-slot="" className="rounded-md border border-dashed border-ink-200 px-4 py-6 text-sm text-ink-700">
+          <p className="font-semibold text-ink-900">
+            One power unit feeding {design.axes.length} axes: {names.join(", ")}
+          </p>
+          <p className="mt-1">
+            The drawing of a machine of several axes is on its way. Until then the bill below lists every component of the circuit with the axis it serves, and
+            each axis&apos;s valve, cylinder and load holding are shown under its name.
+          </p>
+        </div>
+        <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
+          <a href="#bill" className="font-semibold text-flow-700 hover:underline">
+            {componentsTitle} ({design.bom.length} lines)
+          </a>
+          <a href="#calculation-trail" className="font-semibold text-flow-700 hover:underline">
+            How every number was reached
+          </a>
+        </p>
+      </Card>
+      <section aria-labelledby="machine-axes-title">
+        <h2 id="machine-axes-title" className="mb-3 font-semibold text-ink-900">
+          The axes ({design.axes.length})
+        </h2>
+        <div className="grid gap-4 lg:grid-cols-2">
+          {design.axes.map((axis, i) => (
+            <AxisCard key={axis.name} axis={axis} number={i + 1} u={u} />
+          ))}
+        </div>
+      </section>
+      <PowerUnit design={design} u={u} />
+      <CycleChart cycle={design.cycle} units={units} phaseName={machinePhaseName} drawnBy="Axes draw" />
+      <WarningsList warnings={design.warnings} />
+      {cautions ? <CautionsPanel /> : null}
+      <FoldedSection id="bill" title={componentsTitle} summary={`Show all ${design.bom.length} lines`}>
+        <ComponentTable design={design} servedBy={(line) => servedBy(line.key, names)} />
+      </FoldedSection>
+      <FoldedSection id="calculation-trail" title="How every number was reached" summary={`Show ${design.trail.length} steps`}>
+        <CalculationTrail trail={design.trail} />
+      </FoldedSection>
+    </div>
+  );
+}
+
+const VERBS: Record<string, string> = {
+  approach: "approaches",
+  extend: "extends",
+  pressing: "presses",
+  dwell: "holds its force",
+  retract: "returns",
+};
+
+/** "Clamp extends", "Feed extends, Clamp extends", "Idle, every valve in neutral": who does what in a phase. */
+export function machinePhaseName(phase: Pick<MachineCyclePhase, "phase" | "motions">): string {
+  if (phase.phase === "neutral" || !phase.motions.length) return "Idle, every valve in neutral";
+  return phase.motions.map((m) => `${m.axis} ${VERBS[m.phase] ?? m.phase}`).join(", ");
+}
+
+interface Item {
+  label: string;
+  value: string;
+  detail?: string;
+}
+
+function Facts({ items }: { items: Item[] }) {
+  return (
+    <dl className="grid grid-cols-2 gap-x-6 gap-y-3 sm:grid-cols-3">
+      {items.map((item) => (
+        <div key={item.label} data-key-size={item.label}>
+          <dt className="text-xs text-ink-600">{item.label}</dt>
+          <dd className="text-base font-semibold text-ink-900">{item.value}</dd>
+          {item.detail ? <dd className="text-xs text-ink-600">{item.detail}</dd> : null}
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+const SIDES = { rod: "rod side", cap: "cap side", both: "both sides" } as const;
+
+/** How the axis holds its load: a counterbalance valve, leak-tight checks, or nothing needed. */
+function loadHolding(axis: MachineAxis, u: DisplayUnits): Item {
+  const { counterbalance: cb, holding: h } = axis;
+  if (cb && h) {
+    return {
+      label: "Load holding",
+      value: `Counterbalance ${u.pressure(cb.settingBar)} and pilot-operated checks`,
+      detail: `counterbalance on the ${SIDES[cb.side]}, pilot ${cb.pilotRatio}:1; checks on the ${SIDES[h.side]}`,
+    };
+  }
+  if (cb) return { label: "Counterbalance", value: u.pressure(cb.settingBar), detail: `${SIDES[cb.side]}, pilot ratio ${cb.pilotRatio}:1` };
+  if (h) return { label: "Load holding", value: "Pilot-operated checks", detail: `${SIDES[h.side]}, pilot ratio ${h.pilotRatio}:1` };
+  return { label: "Load holding", value: "None needed", detail: "no overrunning load, no long hold" };
+}
+
+function AxisCard({ axis, number, u }: { axis: MachineAxis; number: number; u: DisplayUnits }) {
+  const { cylinder: c, pressuresBar: p, flowsLpm: f, directionalValve: dv } = axis;
+  const pressing = p.press !== undefined && p.approach !== undefined;
+  const items: Item[] = [
+    {
+      label: "Bore / rod",
+      value: u.boreRod(c.boreMm, c.rodMm, "metric"),
+      detail: `${u.system === "us" ? `${u.boreRod(c.boreMm, c.rodMm, "inch")} · ` : ""}stroke ${u.length(c.strokeMm)}`,
+    },
+    pressing
+      ? { label: "Approach / press pressure", value: `${u.pressure(p.approach!)} / ${u.pressure(p.press!)}`, detail: "at the pump" }
+      : { label: "Extend pressure", value: u.pressure(p.extend), detail: "at the pump" },
+    { label: "Retract pressure", value: u.pressure(p.retract), detail: "at the pump" },
+    {
+      label: "Flow out / back",
+      value: `${u.flow(f.extend)} / ${u.flow(f.retract)}`,
+      detail: f.press !== undefined ? `pressing ${u.flow(f.press)}` : axis.regenerative ? "regenerative approach" : "cylinder flows",
+    },
+    {
+      label: "Speed out / back",
+      value: `${formatQuantity("speed", axis.speedsMmS.extendActual, u.system)} / ${formatQuantity("speed", axis.speedsMmS.retractActual, u.system)}`,
+      detail: `asked ${formatQuantity("speed", axis.speedsMmS.extendRequested, u.system)} / ${formatQuantity("speed", axis.speedsMmS.retractRequested, u.system)}`,
+    },
+    { label: "Directional valve", value: `ISO 4401-${dv.iso4401Size}`, detail: `${centreName(dv.center)}, ${dv.coilVoltage}` },
+    loadHolding(axis, u),
+  ];
+  if (axis.speedControl) {
+    items.push({ label: "Speed control", value: u.flow(axis.speedControl.flowLpm), detail: "meter-in flow control on the shared pump" });
+  }
+  return (
+    <Card>
+      <section aria-labelledby={`axis-${number}-title`} data-axis={axis.name}>
+        <h3 id={`axis-${number}-title`} className="mb-3 font-semibold text-ink-900">
+          <span className="mr-2 text-ink-400">{number}</span>
+          {axis.name}
+        </h3>
+        <Facts items={items} />
+      </section>
+    </Card>
+  );
+}
+
+function line(l: { innerDiameterMm: number; velocityMS: number }, u: DisplayUnits): string {
+  return `${u.lengthValue(l.innerDiameterMm)} ${u.lengthUnit} bore, ${formatQuantity("velocity", l.velocityMS, u.system)}`;
+}
+
+/** The one power unit, sized over the machine's cycle. */
+function PowerUnit({ design: m, u }: { design: MachineDesign; u: DisplayUnits }) {
+  const pump = m.pump;
+  const items: Item[] = [
+    { label: "Pump", value: u.flow(m.flowsLpm.pump), detail: `${pumpInWords(m, u)} at ${pump.speedRpm} rpm` },
+    { label: "Motor rating", value: u.motorRating(m.motor.ratedKw), detail: `needs ${u.power(m.motor.requiredKw)}` },
+    { label: "Relief setting", value: u.pressure(m.pressuresBar.reliefSetting) },
+  ];
+  if (pump.compensatorBar !== undefined) items.push({ label: "Compensator", value: u.pressure(pump.compensatorBar) });
+  if (pump.unloadingBar !== undefined) items.push({ label: "Unloads above", value: u.pressure(pump.unloadingBar) });
+  items.push(
+    { label: "Reservoir", value: u.volume(m.reservoir.volumeL), detail: `sheds about ${u.power(m.reservoir.dissipationKw)}` },
+    {
+      label: "Cooler",
+      value: m.cooler ? u.power(m.cooler.kw) : "None needed",
+      detail: `average heat ${u.power(m.heat.averageLossKw)}`,
+    },
+    { label: "Return filter", value: u.flow(m.returnFilter.ratedFlowLpm), detail: "rated flow" },
+    { label: "Pressure line", value: line(m.lines.pressure, u) },
+    { label: "Return line", value: line(m.lines.return, u) },
+    { label: "Suction line", value: line(m.lines.suction, u) },
+  );
+  return (
+    <Card>
+      <section aria-labelledby="power-unit-title" data-power-unit="">
+        <h2 id="power-unit-title" className="mb-1 font-semibold text-ink-900">
+          The power unit, shared by every axis
+        </h2>
+        <p className="mb-3 text-sm text-ink-600">{pump.reason}</p>
+        <Facts items={items} />
+        {m.reliefVent ? (
+          <div className="mt-3">
+            <Notice>In neutral the relief is vented: the pump circulates at about {u.pressure(m.reliefVent.ventPressureBar)} until a valve shifts.</Notice>
+          </div>
+        ) : null}
+      </section>
+    </Card>
+  );
+}

@@ -1,7 +1,16 @@
 import { useId } from "react";
-import type { CircuitComponent, CircuitConnection, Design } from "~/hydraulics/design";
+import type { Circuit, CircuitComponent, CircuitConnection, DcvPositions, Design } from "~/hydraulics/design";
+import type { MachineCircuit } from "~/hydraulics/machine-design";
 import type { UnitSystem } from "~/units/systems";
-import { centreName, circuitDescription, circuitTitle, numberValue, textValue } from "./circuit-diagram/describe";
+import {
+  centreName,
+  circuitDescription,
+  circuitTitle,
+  machineCircuitDescription,
+  machineCircuitTitle,
+  numberValue,
+  textValue,
+} from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
 import {
   BOX,
@@ -21,7 +30,8 @@ import {
   layoutCircuit,
   type Layout,
 } from "./circuit-diagram/layout";
-import { junctions, pathData, routeConnections, type Route } from "./circuit-diagram/routes";
+import { isMachineCircuit, layoutMachine, pLineControls, type MachineColumn } from "./circuit-diagram/machine-layout";
+import { junctions, meetings, pathData, routeConnections, type Route } from "./circuit-diagram/routes";
 import {
   COMPENSATOR_W,
   Caption,
@@ -50,52 +60,99 @@ import {
   VentValveSymbol,
 } from "./circuit-diagram/symbols";
 
+/** What the diagram draws: an axis's design (or its circuit), or a machine's circuit. */
+export type DiagramSubject = { design: Design; circuit?: undefined } | { circuit: Circuit | MachineCircuit; design?: undefined };
+export type CircuitDiagramProps = { units?: UnitSystem; className?: string } & DiagramSubject;
+
+/** The drawing's width in its own units, so a viewer can zoom it to scale. */
+export function diagramWidth(circuit: Circuit | MachineCircuit): number {
+  return isMachineCircuit(circuit) ? layoutMachine(circuit).width : layoutCircuit(circuit).width;
+}
+
 /**
  * The preliminary circuit as an ISO 1219-1 style diagram, drawn from `design.circuit`:
  * only the components it lists, every connection it lists, and the valve's positions as the
- * data gives them. Pure rendering (no effects, no browser APIs), so the server and the
- * exports can render it with renderToStaticMarkup.
+ * data gives them. A machine's circuit is drawn the same way, each axis in a column of its own
+ * over one power unit (machine-layout.ts). Pure rendering (no effects, no browser APIs), so the
+ * server and the exports can render it with renderToStaticMarkup.
  */
-export function CircuitDiagram({ design, units = "metric", className = "" }: { design: Design; units?: UnitSystem; className?: string }) {
+export function CircuitDiagram({ units = "metric", className = "", ...props }: CircuitDiagramProps) {
   const id = useId();
-  const { circuit } = design;
-  const layout = layoutCircuit(circuit);
-  const routes = routeConnections(circuit, layout);
+  const circuit = props.design ? props.design.circuit : props.circuit;
   const u = displayUnits(units);
   const titleId = `${id}-title`;
   const descId = `${id}-desc`;
+  const machine = isMachineCircuit(circuit);
+  const sheet = machine ? machineSheet(circuit) : axisSheet(circuit);
   return (
     <svg
       role="img"
       aria-labelledby={`${titleId} ${descId}`}
-      viewBox={`0 0 ${layout.width} ${layout.height}`}
+      viewBox={`0 0 ${sheet.width} ${sheet.height}`}
       xmlns="http://www.w3.org/2000/svg"
       fontFamily="'Open Sans', ui-sans-serif, system-ui, sans-serif"
       className={`h-auto w-full text-ink-800 ${className}`}
       data-circuit-diagram=""
+      data-machine-axes={machine ? sheet.columns.length : undefined}
     >
-      <title id={titleId}>{circuitTitle(circuit)}</title>
-      <desc id={descId}>{circuitDescription(circuit, u)}</desc>
-      <rect x={0} y={0} width={layout.width} height={layout.height} fill="white" />
+      <title id={titleId}>{machine ? machineCircuitTitle(circuit) : circuitTitle(circuit)}</title>
+      <desc id={descId}>{machine ? machineCircuitDescription(circuit, u) : circuitDescription(circuit, u)}</desc>
+      <rect x={0} y={0} width={sheet.width} height={sheet.height} fill="white" />
       <Legend />
+      {sheet.columns.map((col) => (
+        <text key={col.axis} x={col.labelX} y={col.labelY} textAnchor="middle" fontSize={15} fontWeight={700} fill="currentColor" data-axis-label={col.axis}>
+          {col.axis}
+        </text>
+      ))}
       <g data-layer="lines">
-        {routes.map((r) => (
+        {sheet.routes.map((r) => (
           <Line key={`${r.connection.from}>${r.connection.to}`} route={r} />
         ))}
-        {junctions(routes).map((p) => (
+        {sheet.dots.map((p) => (
           <circle key={`${p.x},${p.y}`} cx={p.x} cy={p.y} r={3} fill="currentColor" data-junction="" />
         ))}
       </g>
       <g data-layer="tanks">
-        {routes.map((r) => (r.tank ? <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={r.tank.id} x={r.tank.x} top={r.tank.top} /> : null))}
+        {sheet.routes.map((r) => (r.tank ? <TankSymbol key={`${r.connection.from}>${r.connection.to}`} id={r.tank.id} x={r.tank.x} top={r.tank.top} /> : null))}
       </g>
       <g data-layer="symbols">
-        {circuit.components.map((c) => (
-          <ComponentSymbol key={c.id} component={c} layout={layout} design={design} u={u} />
-        ))}
+        {circuit.components.map((c) => {
+          const part = sheet.partOf(c.id);
+          return part ? <ComponentSymbol key={c.id} component={c} layout={part.layout} circuit={part.circuit} u={u} pLine={sheet.pLine.has(c.id)} /> : null;
+        })}
       </g>
     </svg>
   );
+}
+
+interface Sheet {
+  width: number;
+  height: number;
+  routes: Route[];
+  dots: { x: number; y: number }[];
+  columns: MachineColumn[];
+  partOf: (id: string) => { layout: Layout; circuit: Circuit } | undefined;
+  pLine: Set<string>;
+}
+
+function axisSheet(circuit: Circuit): Sheet {
+  const layout = layoutCircuit(circuit);
+  const routes = routeConnections(circuit, layout);
+  return { width: layout.width, height: layout.height, routes, dots: junctions(routes), columns: [], partOf: () => ({ layout, circuit }), pLine: new Set() };
+}
+
+function machineSheet(circuit: MachineCircuit): Sheet {
+  const layout = layoutMachine(circuit);
+  const routes = routeConnections(circuit, layout.merged);
+  return {
+    width: layout.width,
+    height: layout.height,
+    routes,
+    dots: meetings(routes),
+    columns: layout.columns,
+    partOf: (id) => layout.partOf[id],
+    pLine: new Set([...pLineControls(circuit).values()].map((c) => c.id)),
+  };
 }
 
 /** Line weight and dash by what the line carries. */
@@ -157,7 +214,19 @@ function Legend() {
   );
 }
 
-function ComponentSymbol({ component: c, layout, design, u }: { component: CircuitComponent; layout: Layout; design: Design; u: DisplayUnits }) {
+function ComponentSymbol({
+  component: c,
+  layout,
+  circuit,
+  u,
+  pLine,
+}: {
+  component: CircuitComponent & { dcvPositions?: DcvPositions };
+  layout: Layout;
+  circuit: Circuit;
+  u: DisplayUnits;
+  pLine: boolean;
+}) {
   const at = layout.at[c.id];
   if (!at) return null;
   const v = (key: string, fmt: (x: number) => string) => {
@@ -205,7 +274,7 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       const coil = textValue(c, "coilVoltage");
       return (
         <>
-          <DcvSymbol id={c.id} cx={layout.dcv.cx} top={layout.dcv.top} positions={design.circuit.dcvPositions} />
+          <DcvSymbol id={c.id} cx={layout.dcv.cx} top={layout.dcv.top} positions={c.dcvPositions ?? circuit.dcvPositions} />
           <Caption
             x={layout.dcv.cx + BOX * 1.5 + 44}
             y={layout.dcv.top + 16}
@@ -247,7 +316,7 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       );
     }
     case "pump":
-      return <PumpWithCaption component={c} at={at} u={u} design={design} />;
+      return <PumpWithCaption component={c} at={at} u={u} circuit={circuit} />;
     case "poc": {
       const side = layout.pilotSide[c.id] ?? "left";
       // the caption goes on the side away from the pilot, outside the columns
@@ -266,6 +335,19 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
       );
     }
     case "flow-control":
+      if (pLine)
+        return (
+          <>
+            <FlowControlSymbol id={c.id} centre={at} compensated={textValue(c, "compensated") === "yes"} />
+            <Caption
+              x={at.x - FC_HALF_W - 12}
+              y={at.y - 8}
+              anchor="end"
+              name="P-line flow control"
+              values={[textValue(c, "compensated") === "yes" ? "meter-in, compensated" : "meter-in", ...v("settingLpm", (q) => `set ${u.flow(q)}`)]}
+            />
+          </>
+        );
       return (
         <>
           <FlowControlSymbol id={c.id} centre={at} compensated={textValue(c, "compensated") === "yes"} />
@@ -451,7 +533,7 @@ function ComponentSymbol({ component: c, layout, design, u }: { component: Circu
 }
 
 /** The pump as the data gives it: fixed, compensated (with its settings) or one section of a double pump. */
-function PumpWithCaption({ component: c, at, u, design }: { component: CircuitComponent; at: { x: number; y: number }; u: DisplayUnits; design: Design }) {
+function PumpWithCaption({ component: c, at, u, circuit }: { component: CircuitComponent; at: { x: number; y: number }; u: DisplayUnits; circuit: Circuit }) {
   const type = textValue(c, "type");
   const v = (key: string, fmt: (x: number) => string) => {
     const n = numberValue(c, key);
@@ -460,7 +542,7 @@ function PumpWithCaption({ component: c, at, u, design }: { component: CircuitCo
   if (type === "double") {
     // One caption for both sections, beside the large one (the small one has the strainer below it).
     if (textValue(c, "section") !== "large") return <PumpSymbol id={c.id} centre={at} />;
-    const small = design.circuit.components.find((p) => p.kind === "pump" && p !== c);
+    const small = circuit.components.find((p) => p.kind === "pump" && p !== c);
     return (
       <>
         <PumpSymbol id={c.id} centre={at} />

@@ -1,17 +1,26 @@
 import { useEffect, useRef, useState } from "react";
-import type { Design } from "~/hydraulics";
 import type { UnitSystem } from "~/units";
-import { CircuitDiagram } from "./circuit-diagram";
+import { CircuitDiagram, diagramWidth, type DiagramSubject } from "./circuit-diagram";
 import { Button } from "./ui";
 
 const ZOOMS = [1, 1.5, 2, 3] as const;
 
+/** An axis's design, or a circuit (a machine's: `circuit={machineDesign.circuit}`), in the reader's units. */
+export type CircuitViewerProps = DiagramSubject & { units: UnitSystem };
+
+/** An axis is drawn 760 units wide: zoom 1 fits a desk screen. */
+const AXIS_WIDTH = 760;
+
 /**
  * The circuit diagram with a way to read it on a small screen: "Open larger" shows it on its own
  * over the page, where it can be zoomed and scrolled (pinch-zoom works too). The large copy is
- * drawn only while open.
+ * drawn only while open. A machine's wider drawing scrolls sideways on the page rather than
+ * shrinking its labels below what can be read.
  */
-export function CircuitViewer({ design, units }: { design: Design; units: UnitSystem }) {
+export function CircuitViewer(props: CircuitViewerProps) {
+  const { units } = props;
+  const what: DiagramSubject = props.design ? { design: props.design } : { circuit: props.circuit };
+  const width = diagramWidth(props.design ? props.design.circuit : props.circuit);
   const dialog = useRef<HTMLDialogElement>(null);
   const [open, setOpen] = useState(false);
   const [zoom, setZoom] = useState<(typeof ZOOMS)[number]>(2);
@@ -23,7 +32,16 @@ export function CircuitViewer({ design, units }: { design: Design; units: UnitSy
   }, [open]);
   return (
     <>
-      <CircuitDiagram design={design} units={units} />
+      {width > AXIS_WIDTH ? (
+        <div className="overflow-x-auto" data-diagram-scroll="">
+          {/* at most a quarter smaller than an axis shown full width */}
+          <div style={{ minWidth: `${Math.round(width * 0.75)}px` }}>
+            <CircuitDiagram {...what} units={units} />
+          </div>
+        </div>
+      ) : (
+        <CircuitDiagram {...what} units={units} />
+      )}
       <p className="mt-2 flex justify-end">
         <Button type="button" tone="quiet" onClick={() => setOpen(true)} aria-haspopup="dialog">
           Open the diagram larger
@@ -55,9 +73,9 @@ export function CircuitViewer({ design, units }: { design: Design; units: UnitSy
               </Button>
             </div>
             <div className="flex-1 overflow-auto" data-diagram-zoom={zoom}>
-              {/* 760 units is the drawing's usual width: zoom 1 fits a desk screen. */}
-              <div style={{ width: `${Math.round(760 * zoom)}px` }}>
-                <CircuitDiagram design={design} units={units} />
+              {/* one unit of the drawing is one pixel at zoom 1 */}
+              <div style={{ width: `${Math.round(Math.max(width, AXIS_WIDTH) * zoom)}px` }}>
+                <CircuitDiagram {...what} units={units} />
               </div>
             </div>
           </div>

@@ -1,5 +1,7 @@
 import type { Circuit, CircuitComponent, DcvCenter, PortPair } from "~/hydraulics/design";
+import type { MachineCircuit } from "~/hydraulics/machine-design";
 import type { DisplayUnits } from "./format";
+import { axesOf, pLineControls, subCircuit } from "./machine-layout";
 import { blockedPorts } from "./valve-positions";
 
 /** Trade names of the centre conditions, for captions, the description and the panels. */
@@ -124,7 +126,8 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
       phrase(
         "Return filter",
         n(filter, "ratedFlowLpm", (q) => `rated for ${u.flow(q)}`),
-        get("cooler") ? "between valve port T and the oil cooler" : "between valve port T and the tank",
+        // a machine's power unit (no valve of its own) takes every valve's T
+        `between ${dcv ? "valve port T" : "the valves' T ports"} and ${get("cooler") ? "the oil cooler" : "the tank"}`,
       ),
     get("cooler") &&
       phrase(
@@ -282,4 +285,36 @@ function switchSentences(circuit: Circuit, u: DisplayUnits): (string | undefined
     }
     return undefined;
   });
+}
+
+const list = (names: string[]) => (names.length > 1 ? `${names.slice(0, -1).join(", ")} and ${names.at(-1)}` : (names[0] ?? ""));
+
+export function machineCircuitTitle(circuit: MachineCircuit): string {
+  const axes = axesOf(circuit);
+  return `Preliminary hydraulic circuit of a machine of ${axes.length} ${axes.length === 1 ? "axis" : "axes"} (${list(axes)}) on one power unit`;
+}
+
+/**
+ * The machine by axis: the power unit once, how every valve joins the common pressure and tank
+ * lines, then each axis's own valve, load holding and cylinder as an axis alone is described.
+ */
+export function machineCircuitDescription(circuit: MachineCircuit, u: DisplayUnits): string {
+  const controls = pLineControls(circuit);
+  const axes = axesOf(circuit);
+  const unit = circuitDescription(subCircuit(circuit, undefined), u);
+  const rails = `The directional valves of ${list(axes)} each take P from the common pressure line and return T to the common tank line, through the return filter.`;
+  const perAxis = axes.map((axis) => {
+    const own = subCircuit(circuit, axis, new Set([...controls.values()].map((c) => c.id)));
+    const dcv = own.components.find((c) => c.kind === "dcv");
+    const control = dcv && controls.get(dcv.id);
+    const share =
+      control &&
+      phrase(
+        textValue(control, "compensated") === "yes" ? "A pressure-compensated meter-in flow control in its P line" : "A meter-in flow control in its P line",
+        numberValue(control, "settingLpm") !== undefined && `passes ${u.flow(numberValue(control, "settingLpm")!)}`,
+        "so the axis keeps its own speed on the shared pump",
+      );
+    return `Axis ${axis}: ${circuitDescription(own, u)}${share ? ` ${share}.` : ""}`;
+  });
+  return [unit, rails, ...perAxis].join(" ");
 }

@@ -131,7 +131,7 @@ export interface Layout {
 const byKind = (components: CircuitComponent[], kind: CircuitComponent["kind"]) => components.find((c) => c.kind === kind);
 
 /** Side the counterbalance valve sits on: the work line its port 1 feeds. */
-export function cbvSide(circuit: Circuit): "rod" | "cap" | null {
+export function cbvSide(circuit: Pick<Circuit, "components" | "connections">): "rod" | "cap" | null {
   const cbv = byKind(circuit.components, "cbv");
   if (!cbv) return null;
   if (cbv.values?.side === "rod" || cbv.values?.side === "cap") return cbv.values.side;
@@ -152,7 +152,7 @@ const IN_LINE: Partial<Record<CircuitComponent["kind"], { halfW: number; halfH: 
  * found by following the connections from port 1 to port 2 of each (so the drawing keeps the
  * order the data gives).
  */
-export function inLineValves(circuit: Circuit, side: "cap" | "rod"): CircuitComponent[] {
+export function inLineValves(circuit: Pick<Circuit, "components" | "connections">, side: "cap" | "rod"): CircuitComponent[] {
   const cylinder = byKind(circuit.components, "cylinder");
   if (!cylinder) return [];
   const byId = new Map(circuit.components.map((c) => [c.id, c]));
@@ -170,7 +170,7 @@ export function inLineValves(circuit: Circuit, side: "cap" | "rod"): CircuitComp
   }
 }
 
-export function layoutCircuit(circuit: Circuit): Layout {
+export function layoutCircuit(circuit: Pick<Circuit, "components" | "connections">): Layout {
   const at: Record<string, Point> = {};
   const ports: Record<string, Anchor> = {};
   const pilotSide: Record<string, "left" | "right"> = {};

@@ -1,6 +1,9 @@
 import type { Circuit, CircuitConnection } from "~/hydraulics/design";
 import type { Anchor, Layout, Point } from "./layout";
 
+/** What routing reads of a circuit: an axis's or a machine's alike. */
+export type Net = Pick<Circuit, "components" | "connections">;
+
 /** One drawn connection: an orthogonal polyline between two ports. */
 export interface Route {
   connection: CircuitConnection;
@@ -31,7 +34,7 @@ export function orthogonal(a: Anchor, b: Anchor): Point[] {
 const componentOf = (ref: string) => ref.slice(0, ref.indexOf("."));
 
 /** Ports joined by non-pilot lines, directly or through a chain, share a net. */
-function netsOf(circuit: Circuit): (port: string) => string {
+function netsOf(circuit: Net): (port: string) => string {
   const parent = new Map<string, string>();
   const find = (x: string): string => {
     const p = parent.get(x) ?? x;
@@ -77,7 +80,7 @@ function teePoint(a: Anchor, net: string, drawn: Route[], netOf: (port: string) 
  * tee onto the line it belongs to, drawn after the others; where no such line is in reach
  * the connection is routed port to port.
  */
-export function routeConnections(circuit: Circuit, layout: Layout): Route[] {
+export function routeConnections(circuit: Net, layout: Layout): Route[] {
   const tankIds = new Set(circuit.components.filter((c) => c.kind === "tank").map((c) => c.id));
   const netOf = netsOf(circuit);
   const routes = new Map<CircuitConnection, Route>();
@@ -139,6 +142,38 @@ export function junctions(routes: Route[]): Point[] {
         (other) => other !== r && other.connection.line !== "shaft" && other.points.some((q, i) => i > 0 && onSegmentInterior(p, other.points[i - 1], q)),
       );
       if (tee && !dots.some((d) => near(d.x, p.x) && near(d.y, p.y))) dots.push(p);
+    }
+  }
+  return dots;
+}
+
+const directionOf = (from: Point, to: Point): string => (near(from.x, to.x) ? (to.y > from.y ? "down" : "up") : to.x > from.x ? "right" : "left");
+
+/**
+ * Junction dots where lines of one net meet, also where several lines turn at one point (the
+ * rails of a machine, where the lines of the valves leave the common pressure and tank lines):
+ * a corner or end of a line from which lines leave in three or more directions. Lines that only
+ * cross meet at no corner, so they get no dot.
+ */
+export function meetings(routes: Route[]): Point[] {
+  const lines = routes.filter((r) => r.connection.line !== "shaft");
+  const dots: Point[] = [];
+  for (const r of lines) {
+    for (const p of r.points) {
+      if (dots.some((d) => near(d.x, p.x) && near(d.y, p.y))) continue;
+      const ways = new Set<string>();
+      for (const other of lines) {
+        other.points.forEach((q, i) => {
+          if (i === 0) return;
+          const a = other.points[i - 1];
+          if (onSegmentInterior(p, a, q)) {
+            ways.add(directionOf(p, a));
+            ways.add(directionOf(p, q));
+          } else if (near(p.x, a.x) && near(p.y, a.y) && !(near(a.x, q.x) && near(a.y, q.y))) ways.add(directionOf(p, q));
+          else if (near(p.x, q.x) && near(p.y, q.y) && !(near(a.x, q.x) && near(a.y, q.y))) ways.add(directionOf(p, a));
+        });
+      }
+      if (ways.size >= 3) dots.push(p);
     }
   }
   return dots;

@@ -1,0 +1,187 @@
+import type { Circuit } from "~/hydraulics/design";
+import type { MachineCircuit, MachineCircuitComponent } from "~/hydraulics/machine-design";
+import { FC_HALF_H, layoutCircuit, type Anchor, type Layout, type Point } from "./layout";
+
+/**
+ * A machine's circuit laid out from its data: each axis's parts are laid out as an axis alone
+ * (layout.ts) in a column of their own, side by side, the directional valves brought to one row
+ * as on a common manifold; below them the common pressure rail and the common tank rail that
+ * every valve's P and T lines join; below those the power unit, laid out once as for an axis.
+ * A P-line flow control (an axis on a larger shared pump) sits under its valve's P port.
+ */
+
+/** Width of one axis's column: the width an axis alone is drawn in. */
+export const COLUMN_W = 760;
+/** Room above the columns for each axis's name. */
+const LABEL_ROW = 34;
+/** Gap from the valve row to a P-line flow control, and from it to the pressure rail. */
+const CONTROL_GAP = 30;
+/** The P-line flow control sits left of its valve's P port, clear of the T line. */
+const CONTROL_DX = -56;
+/** Pressure rail below the valve row (or the lowest P-line control); the tank rail below it. */
+const RAIL_GAP = 30;
+const RAIL_PITCH = 22;
+
+const componentOf = (end: string) => end.slice(0, end.lastIndexOf("."));
+
+export interface MachineColumn {
+  axis: string;
+  /** x of the column's centre line and y of the axis name above its cylinder */
+  labelX: number;
+  labelY: number;
+  left: number;
+  right: number;
+}
+
+/** One part of the drawing: which components it holds and the layout they are drawn from. */
+export interface MachinePart {
+  circuit: Circuit;
+  layout: Layout;
+}
+
+export interface MachineLayout {
+  width: number;
+  height: number;
+  columns: MachineColumn[];
+  /** the layout each component is drawn from (its axis's column, or the power unit), by id */
+  partOf: Record<string, MachinePart>;
+  /** every port and centre in sheet coordinates, for routing the connections */
+  merged: Layout;
+  /** y of the common pressure and tank rails */
+  rails: { pressureY: number; tankY: number };
+}
+
+/** A MachineCircuit has no valve positions of its own: each directional valve carries them. */
+export const isMachineCircuit = (circuit: Circuit | MachineCircuit): circuit is MachineCircuit => !("dcvPositions" in circuit);
+
+/** The machine's axes in the order the data lists them. */
+export function axesOf(circuit: MachineCircuit): string[] {
+  return [...new Set(circuit.components.flatMap((c) => (c.axis === undefined ? [] : [c.axis])))];
+}
+
+/** A flow control in a valve's P line (port 1 joined to the valve's P): the axis's share of a shared pump. */
+export function pLineControls(circuit: MachineCircuit): Map<string, MachineCircuitComponent> {
+  const byId = new Map(circuit.components.map((c) => [c.id, c]));
+  const found = new Map<string, MachineCircuitComponent>();
+  for (const c of circuit.connections) {
+    for (const [control, valve] of [
+      [c.from, c.to],
+      [c.to, c.from],
+    ]) {
+      const fc = byId.get(componentOf(control));
+      const dcv = byId.get(componentOf(valve));
+      if (fc?.kind === "flow-control" && control.endsWith(".1") && dcv?.kind === "dcv" && valve.endsWith(".P")) found.set(dcv.id, fc);
+    }
+  }
+  return found;
+}
+
+/** The components of one axis (or of the power unit, axis undefined) as a circuit of their own. */
+export function subCircuit(circuit: MachineCircuit, axis: string | undefined, leaveOut: Set<string> = new Set()): Circuit {
+  const components = circuit.components.filter((c) => c.axis === axis && !leaveOut.has(c.id));
+  const ids = new Set(components.map((c) => c.id));
+  const dcv = components.find((c) => c.kind === "dcv") as MachineCircuitComponent | undefined;
+  return {
+    components,
+    connections: circuit.connections.filter((c) => ids.has(componentOf(c.from)) && ids.has(componentOf(c.to))),
+    dcvPositions: dcv?.dcvPositions ?? { left: [], center: [], right: [] },
+  };
+}
+
+const shiftAnchor = (a: Anchor, dx: number, dy: number): Anchor => ({
+  ...a,
+  x: a.x + dx,
+  y: a.y + dy,
+  ...(a.channelY !== undefined ? { channelY: a.channelY + dy } : {}),
+  ...(a.tankTop !== undefined ? { tankTop: a.tankTop + dy } : {}),
+});
+
+/** A layout moved across and down the sheet, every place in it alike. */
+export function shiftLayout(l: Layout, dx: number, dy: number): Layout {
+  const move = (p: Point): Point => ({ x: p.x + dx, y: p.y + dy });
+  return {
+    ...l,
+    width: l.width + dx,
+    height: l.height + dy,
+    at: Object.fromEntries(Object.entries(l.at).map(([id, p]) => [id, move(p)])),
+    cylinder: {
+      capX: l.cylinder.capX + dx,
+      rodX: l.cylinder.rodX + dx,
+      left: l.cylinder.left + dx,
+      right: l.cylinder.right + dx,
+      rodEnd: l.cylinder.rodEnd + dx,
+      top: l.cylinder.top + dy,
+      bottom: l.cylinder.bottom + dy,
+    },
+    dcv: { cx: l.dcv.cx + dx, top: l.dcv.top + dy, bottom: l.dcv.bottom + dy },
+    returnX: l.returnX + dx,
+    tankY: l.tankY + dy,
+    ports: Object.fromEntries(Object.entries(l.ports).map(([k, a]) => [k, shiftAnchor(a, dx, dy)])),
+  };
+}
+
+export function layoutMachine(circuit: MachineCircuit): MachineLayout {
+  const controls = pLineControls(circuit);
+  const controlIds = new Set([...controls.values()].map((c) => c.id));
+  const axes = axesOf(circuit).map((axis) => {
+    const own = subCircuit(circuit, axis, controlIds);
+    return { axis, circuit: own, layout: layoutCircuit(own) };
+  });
+  // Valves on one row: each column moves down by what its valve stands above the lowest one.
+  const valveRow = Math.max(...axes.map((a) => a.layout.dcv.bottom));
+  const partOf: Record<string, MachinePart> = {};
+  const columns: MachineColumn[] = [];
+  const shifted = axes.map((a, i) => {
+    const dx = i * COLUMN_W;
+    const dy = LABEL_ROW + valveRow - a.layout.dcv.bottom;
+    const layout = shiftLayout(a.layout, dx, dy);
+    for (const c of a.circuit.components) partOf[c.id] = { circuit: a.circuit, layout };
+    columns.push({ axis: a.axis, labelX: layout.dcv.cx, labelY: layout.cylinder.top - 56, left: dx, right: dx + COLUMN_W });
+    return { ...a, layout };
+  });
+  const dcvBottom = LABEL_ROW + valveRow;
+
+  // A P-line flow control under its valve's P port, port 1 up to the valve, port 2 down to the rail.
+  const controlTop = dcvBottom + CONTROL_GAP;
+  const controlCy = controlTop + FC_HALF_H;
+  const pressureY = (controls.size > 0 ? controlCy + FC_HALF_H : dcvBottom) + RAIL_GAP;
+  const tankY = pressureY + RAIL_PITCH;
+  const extraPorts: Record<string, Anchor> = {};
+  const extraAt: Record<string, Point> = {};
+  for (const a of shifted) {
+    const dcv = a.circuit.components.find((c) => c.kind === "dcv");
+    if (!dcv) continue;
+    const p = a.layout.ports[`${dcv.id}.P`];
+    const t = a.layout.ports[`${dcv.id}.T`];
+    const control = controls.get(dcv.id);
+    if (p) p.channelY = control ? (dcvBottom + controlTop) / 2 : pressureY;
+    if (t) t.channelY = tankY;
+    if (control && p) {
+      const x = p.x + CONTROL_DX;
+      extraAt[control.id] = { x, y: controlCy };
+      extraPorts[`${control.id}.1`] = { x, y: controlCy - FC_HALF_H, dir: "up" };
+      extraPorts[`${control.id}.2`] = { x, y: controlCy + FC_HALF_H, dir: "down", channelY: pressureY };
+      partOf[control.id] = { circuit: a.circuit, layout: { ...a.layout, at: { ...a.layout.at, ...extraAt }, ports: { ...a.layout.ports, ...extraPorts } } };
+    }
+  }
+
+  // The power unit once, under the first column, its return line's run on the tank rail.
+  const unitCircuit = subCircuit(circuit, undefined);
+  const alone = layoutCircuit(unitCircuit);
+  // Without a valve, layout.ts puts the unit's "valve bottom" at alone.dcv.bottom; its return run is 30 below.
+  const unit = shiftLayout(alone, 0, tankY - 30 - alone.dcv.bottom);
+  for (const c of unitCircuit.components) partOf[c.id] = { circuit: unitCircuit, layout: unit };
+  const filterInlet = Object.keys(unit.ports).find(
+    (k) => k.endsWith(".inlet") && unitCircuit.components.some((c) => c.kind === "filter" && `${c.id}.inlet` === k),
+  );
+  if (filterInlet) unit.ports[filterInlet] = { ...unit.ports[filterInlet], channelY: tankY };
+
+  const width = Math.max(axes.length * COLUMN_W, alone.width);
+  const merged: Layout = {
+    ...unit,
+    width,
+    at: Object.assign({}, unit.at, ...shifted.map((a) => a.layout.at), extraAt),
+    ports: Object.assign({}, unit.ports, ...shifted.map((a) => a.layout.ports), extraPorts),
+  };
+  return { width, height: unit.height, columns, partOf, merged, rails: { pressureY, tankY } };
+}

@@ -15,7 +15,8 @@ import {
 import { ENGINE_KEYS_BY_STEP } from "~/content/spec-steps";
 import type { UnitSystem } from "~/units";
 
-// The spec form's motion step sizes the axis as the buyer types, beside the questions.
+// An axis's motion step sizes that axis alone as the buyer types, beside the questions; in a
+// machine the shared power unit is sized on the cycle step and in the review.
 
 /** Later steps not answered yet are taken from the example axis, and the preview says so. */
 const PREVIEW_FALLBACK_KEYS = ENGINE_KEYS_BY_STEP.duty.filter((k) => k in EXAMPLE_AXIS);
@@ -26,7 +27,7 @@ function assumedValue(key: RequirementKey, value: string | undefined, system: Un
   return f.kind === "number" && !f.quantity ? (value ?? "") : answerInWords(key, value, system);
 }
 
-export function SpecLivePreview({ values, system }: { values: FormValues; system: UnitSystem }) {
+export function SpecLivePreview({ values, system, axisName }: { values: FormValues; system: UnitSystem; axisName?: string }) {
   const fallback = useMemo(() => toFormValues(EXAMPLE_AXIS, system), [system]);
   const assumed = PREVIEW_FALLBACK_KEYS.filter((k) => !values[k]);
   const input = useMemo(() => {
@@ -38,7 +39,7 @@ export function SpecLivePreview({ values, system }: { values: FormValues; system
   return (
     <aside aria-label="Live preview" aria-live="polite" className="space-y-4 lg:sticky lg:top-4 lg:self-start">
       <Card className="!p-4">
-        <h2 className="mb-2 font-semibold">Preliminary circuit</h2>
+        <h2 className="mb-2 font-semibold">{axisName ? `Preliminary circuit of “${axisName}” alone` : "Preliminary circuit"}</h2>
         {live.design ? (
           <>
             <CircuitDiagram design={live.design} units={system} />

@@ -4,27 +4,70 @@ import { CautionsPanel } from "~/components/design-panels";
 import { DesignReport } from "~/components/design-report";
 import { Button, Card, Notice } from "~/components/ui";
 import { formatDay, isIsoDay } from "~/content/dates";
-import { REQUIREMENT_FIELDS, answerInWords, fieldApplies, type FormValues, type RequirementKey } from "~/content/requirement-fields";
-import { SPEC_STEPS, type FormStepId } from "~/content/spec-steps";
-import type { Design } from "~/hydraulics";
+import { MachineReport } from "~/components/machine-report";
+import { REQUIREMENT_FIELDS, answerInWords, fieldApplies, type RequirementKey } from "~/content/requirement-fields";
+import { axisFormValues, type Draft } from "~/content/spec-draft";
+import type { FormStepKind, StepRef } from "~/content/spec-steps";
+import type { MachineMotion } from "~/hydraulics";
+import type { PublishedDesign } from "~/services/published-design";
 import { stepFieldNames } from "~/schemas/spec";
 import type { AttachmentView } from "~/services/attachments.server";
 import type { UnitSystem } from "~/units";
 
-// The spec form's last step: the sized circuit, every answer in words, the drawings, the
-// cautions, and Publish.
+// The spec form's last step: the sized axis or machine, every answer in words (each axis on its
+// own card, the cycle in words), the drawings, the cautions, and Publish.
 
 export interface SpecReviewProps {
   spec: { id: string; revising: boolean; nextRevision: number; unitSystem: UnitSystem; completedSteps: string[] };
-  answers: FormValues & Record<string, string | undefined>;
-  design: Design | null;
+  draft: Draft;
+  /** the machine's cycle by axis name (two axes or more) */
+  sequence: MachineMotion[][] | null;
+  steps: StepRef[];
+  published: PublishedDesign | null;
+  /** what keeps the answers from a design, each naming its axis */
+  problems: string[];
   attachments: AttachmentView[];
   publishError: string | null;
 }
 
-export function SpecReview({ spec, answers, design, attachments, publishError }: SpecReviewProps) {
+interface AnswerCard {
+  id: string;
+  title: string;
+  edit: string;
+  rows: { name: string; label: string; value: string }[];
+}
+
+export function SpecReview({ spec, draft, sequence, steps, published, problems, attachments, publishError }: SpecReviewProps) {
   const navigation = useNavigation();
-  const incomplete = SPEC_STEPS.filter((s) => s.id !== "review" && !spec.completedSteps.includes(s.id));
+  const incomplete = steps.filter((s) => s.kind !== "review" && !spec.completedSteps.includes(s.id));
+  const system = spec.unitSystem;
+  const rowsOf = (kind: FormStepKind, answers: Record<string, string | undefined>, deciding: Record<string, string | undefined>) =>
+    stepFieldNames(kind)
+      .map((name) => ({ name, ...shownAnswer(name, answers, deciding, system) }))
+      .filter((a): a is { name: string; label: string; value: string } => Boolean(a.value));
+  const cards: AnswerCard[] = [
+    {
+      id: "machine",
+      title: "The machine",
+      edit: "machine",
+      rows: [
+        ...rowsOf("machine", draft.machine, {}),
+        { name: "axes", label: draft.axes.length === 1 ? "Axis" : `Axes (${draft.axes.length})`, value: draft.axes.map((a) => a.name).join(", ") },
+      ],
+    },
+    ...draft.axes.map((axis) => {
+      const all = axisFormValues(draft, axis);
+      return {
+        id: axis.id,
+        title: axis.name,
+        edit: `${axis.id}-mounting`,
+        rows: [...rowsOf("mounting", axis.mounting, all), ...rowsOf("motion", axis.motion, all)],
+      };
+    }),
+    ...(sequence ? [{ id: "cycle", title: "Cycle", edit: "cycle", rows: [{ name: "cycle", label: "In order", value: sequenceInWords(sequence) }] }] : []),
+    { id: "duty", title: "Duty and site", edit: "duty", rows: rowsOf("duty", draft.duty, {}) },
+    { id: "quotation", title: "Quotation", edit: "quotation", rows: rowsOf("quotation", draft.quotation, {}) },
+  ];
   return (
     <div className="space-y-6">
       {publishError ? <Notice tone="bad">{publishError}</Notice> : null}
@@ -35,53 +78,63 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
             <span key={s.id}>
               {i ? ", " : ""}
               <Link className="font-semibold underline" to={`/specs/${spec.id}/edit/${s.id}`}>
-                {s.title}
+                {s.axis ? `${s.axis.name}: ${s.title.toLowerCase()}` : s.title}
               </Link>
             </span>
           ))}
           .
         </Notice>
       ) : null}
-      {design ? <DesignReport design={design} units={spec.unitSystem} componentsTitle="Components shops will price" cautions={false} /> : null}
+      {!published && !incomplete.length && problems.length ? (
+        <Notice tone="bad">
+          The answers cannot be sized yet:
+          <ul className="mt-1 list-disc pl-5">
+            {problems.map((p) => (
+              <li key={p}>{p}</li>
+            ))}
+          </ul>
+        </Notice>
+      ) : null}
+      {published?.kind === "axis" ? (
+        <DesignReport design={published.design} units={system} componentsTitle="Components shops will price" cautions={false} />
+      ) : null}
+      {published?.kind === "machine" ? (
+        <MachineReport design={published.design} units={system} componentsTitle="Components shops will price" cautions={false} />
+      ) : null}
       <section aria-labelledby="answers-heading" className="space-y-3">
         <h2 id="answers-heading" className="font-semibold">
           Your answers, step by step
         </h2>
         <div className="grid gap-4 md:grid-cols-2">
-          {SPEC_STEPS.filter((s) => s.id !== "review").map((s, index) => {
-            const rows = stepFieldNames(s.id as FormStepId)
-              .map((name) => ({ name, ...shownAnswer(name, answers, spec.unitSystem) }))
-              .filter((a) => a.value);
-            return (
-              <Card key={s.id} className="!p-4">
-                <div className="mb-2 flex items-baseline justify-between gap-3 border-b border-ink-100 pb-2">
-                  <h3 className="text-sm font-semibold text-ink-900">
-                    <span className="mr-1.5 text-ink-400">{index + 1}</span>
-                    {s.title}
-                  </h3>
-                  <Link
-                    className="shrink-0 text-sm font-semibold text-flow-700 hover:underline"
-                    to={`/specs/${spec.id}/edit/${s.id}`}
-                    aria-label={`Edit ${s.title.toLowerCase()}`}
-                  >
-                    Edit
-                  </Link>
-                </div>
-                {rows.length ? (
-                  <dl className="space-y-1.5 text-sm">
-                    {rows.map(({ name, label, value }) => (
-                      <div key={name}>
-                        <dt className="text-xs text-ink-600">{label}</dt>
-                        <dd className="font-semibold text-ink-900 [overflow-wrap:anywhere]">{value}</dd>
-                      </div>
-                    ))}
-                  </dl>
-                ) : (
-                  <p className="text-sm text-ink-600">Nothing answered yet.</p>
-                )}
-              </Card>
-            );
-          })}
+          {cards.map((card, index) => (
+            <Card key={card.id} className="!p-4">
+              <div className="mb-2 flex items-baseline justify-between gap-3 border-b border-ink-100 pb-2">
+                <h3 className="text-sm font-semibold text-ink-900 [overflow-wrap:anywhere]">
+                  <span className="mr-1.5 text-ink-400">{index + 1}</span>
+                  {card.title}
+                </h3>
+                <Link
+                  className="shrink-0 text-sm font-semibold text-flow-700 hover:underline"
+                  to={`/specs/${spec.id}/edit/${card.edit}`}
+                  aria-label={`Edit ${card.title}`}
+                >
+                  Edit
+                </Link>
+              </div>
+              {card.rows.length ? (
+                <dl className="space-y-1.5 text-sm">
+                  {card.rows.map(({ name, label, value }) => (
+                    <div key={name}>
+                      <dt className="text-xs text-ink-600">{label}</dt>
+                      <dd className="font-semibold text-ink-900 [overflow-wrap:anywhere]">{value}</dd>
+                    </div>
+                  ))}
+                </dl>
+              ) : (
+                <p className="text-sm text-ink-600">Nothing answered yet.</p>
+              )}
+            </Card>
+          ))}
         </div>
       </section>
       <Card>
@@ -125,7 +178,7 @@ export function SpecReview({ spec, answers, design, attachments, publishError }:
             and understand that this circuit is a preliminary design for quotation.
           </span>
         </label>
-        <Button type="submit" name="intent" value="publish" disabled={!design || incomplete.length > 0 || navigation.state === "submitting"}>
+        <Button type="submit" name="intent" value="publish" disabled={!published || incomplete.length > 0 || navigation.state === "submitting"}>
           {spec.revising ? `Publish revision ${spec.nextRevision}` : "Publish for bids"}
         </Button>
       </Form>
@@ -148,11 +201,22 @@ const SPEC_ANSWER_LABELS: Record<string, string> = {
   notes: "Notes",
 };
 
+/** "Clamp extends, then Main ram extends, …": the machine's cycle as the engine takes it, in words. */
+function sequenceInWords(sequence: MachineMotion[][]): string {
+  const phrase = (m: MachineMotion) => `${m.axis} ${m.motion === "extend" ? "extends" : "retracts"}`;
+  return `${sequence.map((step) => step.map(phrase).join(" together with ")).join(", then ")}.`;
+}
+
 /** One answer of the review in words: a choice by its label, a number with its unit. */
-function shownAnswer(name: string, answers: FormValues & Record<string, string | undefined>, system: UnitSystem): { label: string; value: string | null } {
+function shownAnswer(
+  name: string,
+  answers: Record<string, string | undefined>,
+  deciding: Record<string, string | undefined>,
+  system: UnitSystem,
+): { label: string; value: string | null } {
   if (name in REQUIREMENT_FIELDS) {
     const key = name as RequirementKey;
-    return { label: REQUIREMENT_FIELDS[key].label, value: fieldApplies(key, answers) ? answerInWords(key, answers[key], system) : null };
+    return { label: REQUIREMENT_FIELDS[key].label, value: fieldApplies(key, deciding) ? answerInWords(key, answers[key], system) : null };
   }
   const label = SPEC_ANSWER_LABELS[name] ?? name;
   const value = answers[name]?.trim();

@@ -7,7 +7,8 @@ import { SelectField, SubmitButton, TextAreaField, TextField } from "~/component
 import { MoreQuestions } from "~/components/more-questions";
 import { RequirementInput } from "~/components/requirement-input";
 import { SpecLivePreview } from "~/components/spec-live-preview";
-import { Button, Card } from "~/components/ui";
+import { MachineCyclePreview, MachinePreview } from "~/components/machine-preview";
+import { Button, Card, Notice } from "~/components/ui";
 import { CURRENCIES } from "~/content/money";
 import {
   REQUIREMENT_FIELDS,
@@ -18,48 +19,73 @@ import {
   type FormValues,
   type RequirementKey,
 } from "~/content/requirement-fields";
-import { AXIS_QUESTIONS, previousStep, type FormStepId } from "~/content/spec-steps";
-import { FLUIDS, STEP_DEFAULTS, SUPPLY_VOLTAGES, TEXT_MAX, otherStepsAnswers, stepFieldNames, stepSchema } from "~/schemas/spec";
+import { AXIS_LIMITS, axisNameField, cycleField, cycleInWords, cycleSteps } from "~/content/spec-draft";
+import { FORM_QUESTIONS, type FormStepKind, type StepRef } from "~/content/spec-steps";
+import type { MachineDesign } from "~/hydraulics";
+import { FLUIDS, STEP_DEFAULTS, SUPPLY_VOLTAGES, TEXT_MAX, stepFieldNames, stepSchema, type StepContext } from "~/schemas/spec";
 import type { AttachmentLimits, AttachmentView } from "~/services/attachments.server";
 import { UNIT_SYSTEM_LABELS, type UnitSystem } from "~/units";
 
-// One step of the spec form (machine, motion, duty, quotation): its questions, the live
-// preview beside the motion step, and Back / Save and continue. What was typed survives a
-// refused submission, with or without JavaScript: the fields start from the server's reply.
+// One step of the spec form (the machine and its axes, an axis's mounting or motion, the cycle,
+// duty, quotation): its questions, the live preview beside an axis's motion and the machine
+// beside its cycle, and Back / Save and continue. What was typed survives a refused submission,
+// with or without JavaScript: the fields start from the server's reply.
 
 export interface SpecStepFormProps {
   specId: string;
-  step: FormStepId;
+  step: StepRef;
+  /** the step Back goes to, if any */
+  previous: string | null;
   system: UnitSystem;
-  /** every answer of the spec so far, and this step's own */
-  answers: FormValues;
+  context: StepContext;
+  /** this step's own answers as stored */
   stepAnswers: Record<string, string | undefined>;
+  /** an axis step's answers of its axis with the duty, for the live preview */
+  axisValues: FormValues | null;
+  /** the machine as the saved answers size it (cycle step) */
+  machine: MachineDesign | null;
+  problems: string[];
   attachments: AttachmentView[];
   attachmentLimits: AttachmentLimits;
   lastResult: SubmissionResult<string[]> | null;
 }
 
 type Answers = Record<string, string | undefined>;
+type Fields = ReturnType<typeof useForm<Answers, Record<string, unknown>>>[1];
 
-export function SpecStepForm({ specId, step, system, answers, stepAnswers, attachments, attachmentLimits, lastResult }: SpecStepFormProps) {
-  const others = useMemo(() => otherStepsAnswers(answers, step), [answers, step]);
+export function SpecStepForm({
+  specId,
+  step,
+  previous,
+  system,
+  context,
+  stepAnswers,
+  axisValues,
+  machine,
+  problems,
+  attachments,
+  attachmentLimits,
+  lastResult,
+}: SpecStepFormProps) {
+  const kind = step.kind as FormStepKind;
   const defaultValue = useMemo(() => {
-    const mine = stepFieldNames(step);
+    const mine = stepFieldNames(kind, context.axes);
     const usual = Object.fromEntries(Object.entries(STEP_DEFAULTS).filter(([k]) => mine.includes(k)));
     return { ...usual, ...stepAnswers };
-  }, [step, stepAnswers]);
+  }, [kind, context.axes, stepAnswers]);
   const [form, fields] = useForm<Answers, Record<string, unknown>>({
     lastResult,
     defaultValue,
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: stepSchema(step, system, others) }),
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: stepSchema(kind, system, context) }),
     shouldValidate: "onBlur",
     shouldRevalidate: "onInput",
   });
+  const others = context.others[0] ?? {};
   const current = { ...others, ...(form.value as FormValues | undefined) } as FormValues;
   const leave = useUnsavedGuard(form.dirty);
   const deciding = { orientation: current.orientation ?? others.orientation, pressStrokeMm: current.pressStrokeMm };
-  const questions = step === "quotation" ? undefined : AXIS_QUESTIONS[step];
-  const asked = (keys: RequirementKey[] | undefined) => (keys ?? []).filter((k) => fieldApplies(k, deciding));
+  const questions = kind === "mounting" || kind === "motion" || kind === "duty" ? FORM_QUESTIONS[kind] : undefined;
+  const asked = (keys: RequirementKey[] | undefined) => (keys ?? []).filter((k) => kind === "duty" || fieldApplies(k, deciding));
   const question = (key: RequirementKey) => (
     <RequirementInput
       key={key}
@@ -69,111 +95,249 @@ export function SpecStepForm({ specId, step, system, answers, stepAnswers, attac
       errors={fieldMessages(key, fields[key].errors, system)}
     />
   );
+  const wide = kind === "motion" || kind === "cycle";
 
   return (
-    <div className={step === "motion" ? "grid gap-6 lg:grid-cols-[1fr_26rem]" : "max-w-2xl"}>
-      <div>
-        <Form
-          method="post"
-          {...getFormProps(form)}
-          onSubmit={(event) => {
-            getFormProps(form).onSubmit(event);
-            // Saving is not leaving: the guard lets this form's own submission through.
-            leave.saving.current = !event.defaultPrevented;
-          }}
-          className="space-y-5"
-        >
-          <Card className="space-y-5">
-            {step === "machine" ? (
-              <>
-                <TextField
-                  meta={fields.title}
-                  label="Title"
-                  hint={`A short name shops will see, e.g. “Bending press, main ram”. At most ${TEXT_MAX.title} characters.`}
-                  maxLength={TEXT_MAX.title}
-                />
-                <TextAreaField
-                  meta={fields.purpose}
-                  label="What the machine does"
-                  hint={`A sentence or two: what the axis moves and why. Optional, but it helps shops. At most ${TEXT_MAX.purpose} characters.`}
-                  maxLength={TEXT_MAX.purpose}
-                />
-              </>
-            ) : null}
-            {asked(questions?.keys).map(question)}
-            {questions?.more ? (
-              <MoreQuestions
-                title={questions.more.title}
-                summary={questions.more.summary}
-                startOpen={differsFromDefault(questions.more.keys, stepAnswers, system)}
-                attention={questions.more.keys.some((k) => fields[k].errors?.length)}
-              >
-                {asked(questions.more.keys).map(question)}
-              </MoreQuestions>
-            ) : null}
-            {step === "duty" ? (
-              <>
-                <SelectField
-                  meta={fields.supplyVoltage}
-                  label="Mains voltage"
-                  hint="The supply at the machine; the motor is quoted for it."
-                  options={SUPPLY_VOLTAGES}
-                />
-                <SelectField
-                  meta={fields.fluid}
-                  label="Hydraulic fluid"
-                  hint="Mineral oil grade by ISO 3448. ISO VG 46 suits most indoor machines."
-                  options={FLUIDS}
-                />
-              </>
-            ) : null}
-            {step === "quotation" ? <QuotationFields fields={fields} /> : null}
-            <p className="text-xs text-ink-600">
-              Values in {UNIT_SYSTEM_LABELS[system]}.{" "}
-              <Link to="/settings" className="text-flow-700 hover:underline">
-                Change your units
-              </Link>{" "}
-              for new specs.
-            </p>
-          </Card>
-        </Form>
-        {step === "quotation" ? (
-          // A form of its own (forms cannot nest); the step's buttons below reach their form by id.
-          <Card className="mt-6">
-            <AttachmentUploader specId={specId} attachments={attachments} limits={attachmentLimits} />
-          </Card>
-        ) : null}
-        {leave.blocker.state === "blocked" ? (
-          <div role="alertdialog" aria-labelledby="unsaved-title" className="mt-5 rounded-lg bg-signal-50 p-4 ring-1 ring-signal-500/40">
-            <p id="unsaved-title" className="font-semibold text-ink-900">
-              Leave this step without saving?
-            </p>
-            <p className="mt-1 text-sm text-ink-700">What you changed here is not saved yet. Save and continue keeps it; leaving now loses it.</p>
-            <div className="mt-3 flex flex-wrap gap-2">
-              <Button type="button" tone="secondary" onClick={() => leave.blocker.reset?.()}>
-                Stay on this step
-              </Button>
-              <Button type="button" tone="danger" onClick={() => leave.blocker.proceed?.()}>
-                Leave without saving
-              </Button>
+    <>
+      <div className={wide ? "grid gap-6 lg:grid-cols-[1fr_26rem]" : "max-w-2xl"}>
+        <div>
+          <Form
+            method="post"
+            {...getFormProps(form)}
+            onSubmit={(event) => {
+              getFormProps(form).onSubmit(event);
+              // Saving is not leaving: the guard lets this form's own submission through.
+              leave.saving.current = !event.defaultPrevented;
+            }}
+            className="space-y-5"
+          >
+            {/* Enter in a field saves and continues: the form's first submit button is the default one. */}
+            <button type="submit" name="intent" value="next" className="sr-only" tabIndex={-1} aria-hidden="true" />
+            {form.errors?.length ? <Notice tone="bad">{form.errors.join(" ")}</Notice> : null}
+            <Card className="space-y-5">
+              {kind === "machine" ? (
+                <>
+                  <TextField
+                    meta={fields.title}
+                    label="Title"
+                    hint={`A short name shops will see, e.g. “Bending press” or “Scissor lift table”. At most ${TEXT_MAX.title} characters.`}
+                    maxLength={TEXT_MAX.title}
+                  />
+                  <TextAreaField
+                    meta={fields.purpose}
+                    label="What the machine does"
+                    hint={`A sentence or two: what the machine moves and why. Optional, but it helps shops. At most ${TEXT_MAX.purpose} characters.`}
+                    maxLength={TEXT_MAX.purpose}
+                  />
+                </>
+              ) : null}
+              {asked(questions?.keys).map(question)}
+              {questions?.more ? (
+                <MoreQuestions
+                  title={questions.more.title}
+                  summary={questions.more.summary}
+                  startOpen={differsFromDefault(questions.more.keys, stepAnswers, system)}
+                  attention={questions.more.keys.some((k) => fields[k].errors?.length)}
+                >
+                  {asked(questions.more.keys).map(question)}
+                </MoreQuestions>
+              ) : null}
+              {kind === "duty" ? (
+                <>
+                  {context.axes.length > 1 ? (
+                    <p className="text-sm text-ink-600">These answers hold for the whole machine: one power unit feeds every axis.</p>
+                  ) : null}
+                  <SelectField
+                    meta={fields.supplyVoltage}
+                    label="Mains voltage"
+                    hint="The supply at the machine; the motor is quoted for it."
+                    options={SUPPLY_VOLTAGES}
+                  />
+                  <SelectField
+                    meta={fields.fluid}
+                    label="Hydraulic fluid"
+                    hint="Mineral oil grade by ISO 3448. ISO VG 46 suits most indoor machines."
+                    options={FLUIDS}
+                  />
+                </>
+              ) : null}
+              {kind === "quotation" ? <QuotationFields fields={fields} /> : null}
+              {kind === "cycle" ? <CycleFields fields={fields} axes={context.axes} values={form.value as Answers | undefined} /> : null}
+              {kind !== "machine" && kind !== "cycle" ? (
+                <p className="text-xs text-ink-600">
+                  Values in {UNIT_SYSTEM_LABELS[system]}.{" "}
+                  <Link to="/settings" className="text-flow-700 hover:underline">
+                    Change your units
+                  </Link>{" "}
+                  for new specs.
+                </p>
+              ) : null}
+            </Card>
+            {kind === "machine" ? <AxesFields fields={fields} axes={context.axes} /> : null}
+          </Form>
+          {kind === "quotation" ? (
+            // A form of its own (forms cannot nest); the step's buttons below reach their form by id.
+            <Card className="mt-6">
+              <AttachmentUploader specId={specId} attachments={attachments} limits={attachmentLimits} />
+            </Card>
+          ) : null}
+          {leave.blocker.state === "blocked" ? (
+            <div role="alertdialog" aria-labelledby="unsaved-title" className="mt-5 rounded-lg bg-signal-50 p-4 ring-1 ring-signal-500/40">
+              <p id="unsaved-title" className="font-semibold text-ink-900">
+                Leave this step without saving?
+              </p>
+              <p className="mt-1 text-sm text-ink-700">What you changed here is not saved yet. Save and continue keeps it; leaving now loses it.</p>
+              <div className="mt-3 flex flex-wrap gap-2">
+                <Button type="button" tone="secondary" onClick={() => leave.blocker.reset?.()}>
+                  Stay on this step
+                </Button>
+                <Button type="button" tone="danger" onClick={() => leave.blocker.proceed?.()}>
+                  Leave without saving
+                </Button>
+              </div>
             </div>
+          ) : null}
+          <div className="mt-5 flex justify-between">
+            {previous ? (
+              <Button type="submit" form={form.id} name="intent" value="back" tone="secondary" formNoValidate>
+                ← Back
+              </Button>
+            ) : (
+              <span />
+            )}
+            <SubmitButton form={form.id} name="intent" value="next">
+              Save and continue →
+            </SubmitButton>
           </div>
-        ) : null}
-        <div className="mt-5 flex justify-between">
-          {previousStep(step) ? (
-            <Button type="submit" form={form.id} name="intent" value="back" tone="secondary" formNoValidate>
-              ← Back
-            </Button>
-          ) : (
-            <span />
-          )}
-          <SubmitButton form={form.id} name="intent" value="next">
-            Save and continue →
-          </SubmitButton>
         </div>
+        {kind === "motion" ? <SpecLivePreview values={{ ...axisValues, ...current }} system={system} axisName={step.axis?.name} /> : null}
+        {kind === "cycle" ? <MachinePreview machine={machine} problems={problems} system={system} /> : null}
       </div>
-      {step === "motion" ? <SpecLivePreview values={current} system={system} /> : null}
-    </div>
+      {kind === "cycle" ? (
+        <div className="mt-6">
+          <MachineCyclePreview machine={machine} system={system} />
+        </div>
+      ) : null}
+    </>
+  );
+}
+
+/** The machine step's list of axes: each named here, moved, copied or removed by its buttons (which save what was typed). */
+function AxesFields({ fields, axes }: { fields: Fields; axes: StepContext["axes"] }) {
+  const full = axes.length >= AXIS_LIMITS.max;
+  return (
+    <Card className="space-y-4">
+      <div id="axes">
+        <h2 className="font-semibold">Axes</h2>
+        <p className="text-sm text-ink-600">
+          One axis for each cylinder the power unit moves, e.g. a clamp and a main ram. Each is asked about on its own steps; the duty and site are asked once
+          for the whole machine. From {AXIS_LIMITS.min} to {AXIS_LIMITS.max} axes.
+        </p>
+      </div>
+      <ol className="space-y-3">
+        {axes.map((axis, i) => {
+          const meta = fields[axisNameField(axis.id)];
+          return (
+            <li key={axis.id} className="rounded-md p-3 ring-1 ring-ink-100">
+              <TextField
+                meta={meta}
+                label={`Axis ${i + 1} name`}
+                hint={i === 0 ? "What the shop floor calls it: “Clamp”, “Main ram”, “Ejector”." : undefined}
+                maxLength={AXIS_LIMITS.nameMax}
+              />
+              <div className="mt-2 flex flex-wrap gap-2">
+                <Button
+                  type="submit"
+                  name="intent"
+                  value={`up:${axis.id}`}
+                  tone="secondary"
+                  formNoValidate
+                  disabled={i === 0}
+                  aria-label={`Move ${axis.name} up`}
+                >
+                  ↑ Up
+                </Button>
+                <Button
+                  type="submit"
+                  name="intent"
+                  value={`down:${axis.id}`}
+                  tone="secondary"
+                  formNoValidate
+                  disabled={i === axes.length - 1}
+                  aria-label={`Move ${axis.name} down`}
+                >
+                  ↓ Down
+                </Button>
+                <Button
+                  type="submit"
+                  name="intent"
+                  value={`duplicate:${axis.id}`}
+                  tone="secondary"
+                  formNoValidate
+                  disabled={full}
+                  aria-label={`Duplicate ${axis.name}`}
+                >
+                  Duplicate
+                </Button>
+                <Button
+                  type="submit"
+                  name="intent"
+                  value={`remove:${axis.id}`}
+                  tone="secondary"
+                  formNoValidate
+                  disabled={axes.length <= AXIS_LIMITS.min}
+                  aria-label={`Remove ${axis.name}`}
+                >
+                  Remove
+                </Button>
+              </div>
+            </li>
+          );
+        })}
+      </ol>
+      <div>
+        <Button type="submit" name="intent" value="add" tone="secondary" formNoValidate disabled={full}>
+          + Add an axis
+        </Button>
+        {full ? <p className="mt-1 text-xs text-ink-600">A machine has at most {AXIS_LIMITS.max} axes.</p> : null}
+      </div>
+    </Card>
+  );
+}
+
+/** The cycle step: each axis's extension and retraction given a step; the same step means together. */
+function CycleFields({ fields, axes, values }: { fields: Fields; axes: StepContext["axes"]; values: Answers | undefined }) {
+  const count = 2 * axes.length;
+  const options = Array.from({ length: count }, (_, i) => ({ value: String(i + 1), label: `Step ${i + 1}` }));
+  const shown = Object.fromEntries(
+    axes.flatMap((a) =>
+      (["extend", "retract"] as const).map((m) => [
+        cycleField(a.id, m),
+        String(values?.[cycleField(a.id, m)] ?? fields[cycleField(a.id, m)].initialValue ?? ""),
+      ]),
+    ),
+  );
+  const words = cycleInWords(axes, cycleSteps(axes, shown));
+  return (
+    <>
+      <p className="text-sm text-ink-600">
+        Give each motion the step of the cycle it runs in. Motions in the same step move together; the pump is sized for what they draw at once. One after
+        another is the usual way and needs the smallest pump.
+      </p>
+      <div className="grid gap-4 sm:grid-cols-2">
+        {axes.map((axis) => (
+          <fieldset key={axis.id} className="space-y-3 rounded-md p-3 ring-1 ring-ink-100">
+            <legend className="px-1 text-sm font-semibold text-ink-900">{axis.name}</legend>
+            <SelectField meta={fields[cycleField(axis.id, "extend")]} label="Extends in" options={options} />
+            <SelectField meta={fields[cycleField(axis.id, "retract")]} label="Retracts in" options={options} />
+          </fieldset>
+        ))}
+      </div>
+      <div className="rounded-md bg-flow-50 p-3 text-sm" aria-live="polite">
+        <p className="text-xs font-semibold text-ink-600">The cycle in words</p>
+        <p className="font-semibold text-ink-900">{words}</p>
+      </div>
+    </>
   );
 }
 

@@ -7,12 +7,14 @@ import { SpecProgress } from "~/components/spec-progress";
 import { SpecReview } from "~/components/spec-review";
 import { SpecStepForm } from "~/components/spec-step-form";
 import { Notice, PageHeader } from "~/components/ui";
-import { SPEC_STEPS, isSpecStep, nextStep, previousStep, type FormStepId } from "~/content/spec-steps";
-import { otherStepsAnswers, stepSchema, typedStepAnswers } from "~/schemas/spec";
+import { machineSequence } from "~/content/machine-input";
+import { axisFormValues, cycleAnswers } from "~/content/spec-draft";
+import { findStep, nextStep, previousStep, specSteps, type FormStepKind } from "~/content/spec-steps";
+import { stepContext, stepSchema, typedStepAnswers } from "~/schemas/spec";
 import { fieldErrorsOf, notFound } from "~/services/errors.server";
 import { redirectWithToast } from "~/auth/session.server";
 import { specOfOwner } from "~/services/spec-access.server";
-import { allAnswers, designOf, isEditable, publish, saveStep } from "~/services/specs.server";
+import { changeAxes, designOf, draftOf, isEditable, publish, saveStep, type AxisChange } from "~/services/specs.server";
 import { ATTACHMENT_LIMITS, listAttachments } from "~/services/attachments.server";
 import type { UnitSystem } from "~/units";
 
@@ -21,16 +23,31 @@ export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.stepTit
 async function load(request: Request, params: { specId?: string; step?: string }) {
   const user = await requireRole(request, PAGE_ROLES.ownSpecs);
   const spec = await specOfOwner(user, params.specId);
-  if (!isSpecStep(params.step)) notFound("No such step.");
-  return { user, spec, step: params.step };
+  const { draft, completed } = draftOf(spec);
+  const steps = specSteps(draft.axes);
+  const step = findStep(steps, params.step);
+  if (!step) notFound("No such step.");
+  return { user, spec, draft, completed, steps, step };
+}
+
+/** What a step's form starts from: the stored answers of that step (the cycle with its defaults filled in). */
+function stepAnswersOf(draft: ReturnType<typeof draftOf>["draft"], kind: FormStepKind, axisId: string | undefined): Record<string, string> {
+  const axis = draft.axes.find((a) => a.id === axisId);
+  if (kind === "mounting") return axis?.mounting ?? {};
+  if (kind === "motion") return axis?.motion ?? {};
+  if (kind === "machine") return { ...draft.machine, ...Object.fromEntries(draft.axes.map((a) => [`name-${a.id}`, a.name])) };
+  if (kind === "cycle") return cycleAnswers(draft);
+  return draft[kind];
 }
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, spec, step } = await load(request, params);
+  const { user, spec, draft, completed, steps, step } = await load(request, params);
   if (!isEditable(spec)) throw redirect(`/specs/${spec.id}`);
-  const answers = allAnswers(spec);
-  const review = step === "review" ? designOf(spec) : null;
-  const attachments = step === "quotation" || step === "review" ? await listAttachments(user, spec.id) : [];
+  const kind = step.kind;
+  // The machine as it stands, on the steps that show it: the cycle and the review.
+  const sized = kind === "review" || kind === "cycle" ? designOf(spec) : null;
+  const attachments = kind === "quotation" || kind === "review" ? await listAttachments(user, spec.id) : [];
+  const axis = step.axis ? draft.axes.find((a) => a.id === step.axis!.id) : undefined;
   return {
     spec: {
       id: spec.id,
@@ -38,24 +55,37 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       revising: spec.revising,
       nextRevision: spec.currentRevision + 1,
       unitSystem: spec.unitSystem as UnitSystem,
-      completedSteps: spec.completedSteps as string[],
+      completedSteps: completed,
     },
     step,
-    stepTitle: SPEC_STEPS.find((s) => s.id === step)!.title,
-    answers,
-    stepAnswers: step === "review" ? {} : (spec.answers[step] ?? {}),
-    review,
+    steps,
+    stepTitle: step.axis ? `${step.axis.name}: ${step.title}` : step.title,
+    axes: draft.axes.map((a) => ({ id: a.id, name: a.name })),
+    context: kind === "review" ? null : stepContext(draft, kind, step.axis?.id),
+    stepAnswers: kind === "review" ? {} : stepAnswersOf(draft, kind, step.axis?.id),
+    /** the axis's answers with the duty, for its live preview */
+    axisValues: axis ? axisFormValues(draft, axis) : null,
+    draft: kind === "review" ? draft : null,
+    sequence: draft.axes.length > 1 ? machineSequence(draft) : null,
+    review: sized,
     attachments,
     attachmentLimits: ATTACHMENT_LIMITS,
   };
 }
 
+/** An axis button of the machine step: `add`, or `duplicate:<id>`, `remove:<id>`, `up:<id>`, `down:<id>`. */
+function axisChangeOf(intent: unknown): AxisChange | null {
+  if (intent === "add") return { op: "add" };
+  const match = typeof intent === "string" ? /^(duplicate|remove|up|down):([a-z0-9]{6})$/.exec(intent) : null;
+  return match ? { op: match[1] as "duplicate" | "remove" | "up" | "down", axisId: match[2] } : null;
+}
+
 export async function action({ request, params }: Route.ActionArgs) {
-  const { user, spec, step } = await load(request, params);
+  const { user, spec, draft, steps, step } = await load(request, params);
   const formData = await request.formData();
   const intent = formData.get("intent");
 
-  if (step === "review") {
+  if (step.kind === "review") {
     try {
       await publish(user, spec.id, { cautionsRead: formData.get("cautionsRead") === "on" });
     } catch (error) {
@@ -64,33 +94,42 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirect(`/specs/${spec.id}?published=1`);
   }
 
-  const others = otherStepsAnswers(allAnswers(spec), step);
-  const submission = parseWithZod(formData, { schema: stepSchema(step, spec.unitSystem, others) });
-  const { typed, tooLongErrors } = typedStepAnswers(step, formData, others);
-  // Going back never loses what was typed (the step stays incomplete until it validates), but
-  // an answer longer than its field takes is refused on this path too.
-  const back = intent === "back";
-  if (Object.keys(tooLongErrors).length || (!back && submission.status !== "success")) {
-    return data(
+  const kind = step.kind;
+  const context = stepContext(draft, kind, step.axis?.id);
+  const submission = parseWithZod(formData, { schema: stepSchema(kind, spec.unitSystem, context) });
+  const { typed, tooLongErrors } = typedStepAnswers(kind, formData, context);
+  const refused = () =>
+    data(
       {
         result: submission.reply({ fieldErrors: { ...(submission.status === "error" ? submission.error : {}), ...tooLongErrors } as Record<string, string[]> }),
         publishError: null,
       },
       { status: 400 },
     );
-  }
+  // Going back, or changing the axes, never loses what was typed (the step stays incomplete until
+  // it validates), but an answer longer than its field takes is refused on every path.
+  const change = kind === "machine" ? axisChangeOf(intent) : null;
+  const back = intent === "back";
+  if (Object.keys(tooLongErrors).length || (!back && !change && submission.status !== "success")) return refused();
   try {
-    await saveStep(user, spec.id, { step, answers: typed, complete: submission.status === "success" });
+    if (change) {
+      const { axisId } = await changeAxes(user, spec.id, { change, machine: typed, complete: submission.status === "success" });
+      // A new axis is asked about at once; after any other change the list is shown again.
+      return redirect(axisId && change.op === "add" ? `/specs/${spec.id}/edit/${axisId}-mounting` : `/specs/${spec.id}/edit/machine#axes`);
+    }
+    await saveStep(user, spec.id, { step: step.id, answers: typed, complete: submission.status === "success" });
   } catch (error) {
+    const message = fieldErrorsOf(error).message;
+    // An axis change the machine cannot take (a ninth axis, the last one removed): said on the step.
+    if (change && isEditable(await specOfOwner(user, spec.id))) return redirectWithToast(request, `/specs/${spec.id}/edit/machine#axes`, message);
     // Published meanwhile, e.g. from another tab: the step is not saved over the published spec.
-    return redirectWithToast(request, `/specs/${spec.id}`, `${fieldErrorsOf(error).message} Nothing from this step was saved.`);
+    return redirectWithToast(request, `/specs/${spec.id}`, `${message} Nothing from this step was saved.`);
   }
-  return redirect(`/specs/${spec.id}/edit/${(back ? previousStep(step) : nextStep(step)) ?? step}`);
+  return redirect(`/specs/${spec.id}/edit/${(back ? previousStep(steps, step.id) : nextStep(steps, step.id)) ?? step.id}`);
 }
 
 export default function SpecStep({ loaderData, actionData }: Route.ComponentProps) {
   const { spec, step } = loaderData;
-  const meta = SPEC_STEPS.find((s) => s.id === step)!;
   return (
     <>
       <p className="mb-2 text-sm">
@@ -98,29 +137,36 @@ export default function SpecStep({ loaderData, actionData }: Route.ComponentProp
           ← My specs
         </Link>
       </p>
-      <PageHeader title={spec.title || "New spec"} lead={`${meta.title}: ${meta.lead}`} />
+      <PageHeader title={spec.title || "New spec"} lead={step.axis ? `${step.axis.name} · ${step.title}: ${step.lead}` : `${step.title}: ${step.lead}`} />
       {spec.revising ? (
         <div className="mb-4">
           <Notice tone="warn">You are preparing revision {spec.nextRevision}. Shops keep seeing the published revision until you publish this one.</Notice>
         </div>
       ) : null}
-      <SpecProgress specId={spec.id} current={step} completed={spec.completedSteps} />
-      {step === "review" ? (
+      <SpecProgress specId={spec.id} steps={loaderData.steps} current={step.id} completed={spec.completedSteps} axes={loaderData.axes} />
+      {step.kind === "review" || !loaderData.context ? (
         <SpecReview
           spec={spec}
-          answers={loaderData.answers}
-          design={loaderData.review?.design ?? null}
+          draft={loaderData.draft!}
+          sequence={loaderData.sequence}
+          steps={loaderData.steps}
+          published={loaderData.review?.published ?? null}
+          problems={loaderData.review?.problems ?? []}
           attachments={loaderData.attachments}
           publishError={actionData?.publishError ?? null}
         />
       ) : (
         <SpecStepForm
-          key={step}
+          key={step.id}
           specId={spec.id}
-          step={step as FormStepId}
+          step={step}
+          previous={previousStep(loaderData.steps, step.id)}
           system={spec.unitSystem}
-          answers={loaderData.answers}
+          context={loaderData.context}
           stepAnswers={loaderData.stepAnswers}
+          axisValues={loaderData.axisValues}
+          machine={loaderData.review?.published?.kind === "machine" ? loaderData.review.published.design : null}
+          problems={loaderData.review?.problems ?? []}
           attachments={loaderData.attachments}
           attachmentLimits={loaderData.attachmentLimits}
           lastResult={actionData?.result ?? null}

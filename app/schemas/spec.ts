@@ -1,11 +1,10 @@
 import { z } from "zod";
-import { parseRequirements, RequirementsError } from "~/hydraulics";
-import { toRequirementsInput, type FormValues } from "~/content/requirement-fields";
-
-import { ENGINE_KEYS_BY_STEP, type FormStepId } from "~/content/spec-steps";
+import { NAME_MAX, parseRequirements, RequirementsError } from "~/hydraulics";
+import { fieldApplies, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
+import { axisFormValues, axisNameField, cycleField, type Draft } from "~/content/spec-draft";
+import { ENGINE_KEYS_BY_STEP, type FormStepKind } from "~/content/spec-steps";
 import type { UnitSystem } from "~/units";
 import { CURRENCIES } from "~/content/money";
-import { fieldApplies, type RequirementKey } from "~/content/requirement-fields";
 import { isIsoDay, todayUtc as today } from "~/content/dates";
 
 // The spec form's schemas, one per step, shared by the server action and the Conform form.
@@ -46,10 +45,12 @@ const isoDate = (message: string) => z.string({ error: message }).refine(isIsoDa
 
 const OWN_FIELDS = {
   machine: {
-    title: text(TEXT_MAX.title, "Give the spec a short title, e.g. “Bending press, main ram”."),
+    title: text(TEXT_MAX.title, "Give the spec a short title, e.g. “Bending press”."),
     purpose: optionalText(TEXT_MAX.purpose),
   },
+  mounting: {},
   motion: {},
+  cycle: {},
   duty: {
     supplyVoltage: z.enum(SUPPLY_VOLTAGES, { error: "Choose the mains voltage at the machine." }),
     fluid: z.enum(FLUIDS, { error: "Choose a fluid grade (ISO VG 46 if unsure)." }),
@@ -68,7 +69,7 @@ const OWN_FIELDS = {
     retainerPercent: z.coerce.number({ error: "Enter the retainer share in percent." }).min(0, "From 0 to 50 %.").max(50, "From 0 to 50 %."),
     notes: optionalText(TEXT_MAX.notes),
   },
-} satisfies Record<FormStepId, z.ZodRawShape>;
+} satisfies Record<FormStepKind, z.ZodRawShape>;
 
 /** The quotation's dates: a deadline still ahead, and delivery after it. */
 function checkDates(v: Record<string, unknown>, ctx: z.RefinementCtx) {
@@ -82,23 +83,105 @@ function checkDates(v: Record<string, unknown>, ctx: z.RefinementCtx) {
 
 export const quotationSchema = z.object(OWN_FIELDS.quotation).superRefine(checkDates);
 
-/** The schema of one step, given the person's units and the answers of the other steps. */
-export function stepSchema(step: FormStepId, system: UnitSystem, otherAnswers: FormValues) {
-  const keys = ENGINE_KEYS_BY_STEP[step];
+/**
+ * What a step is judged against besides its own answers: the axes (names, for the machine and
+ * cycle steps), and the answers the engine needs with this step's to judge it: an axis step's
+ * other answers of the same axis and the duty; for the duty step, each axis's answers.
+ */
+export interface StepContext {
+  axes: { id: string; name: string }[];
+  /** per axis: the engine answers other than this step's */
+  others: FormValues[];
+}
+
+/** The context of a step of this draft: the axis of an axis step, every axis for the duty step. */
+export function stepContext(draft: Draft, kind: FormStepKind, axisId?: string): StepContext {
+  const axes = draft.axes.map((a) => ({ id: a.id, name: a.name }));
+  const mine = new Set<string>(ENGINE_KEYS_BY_STEP[kind]);
+  const without = (values: FormValues) => Object.fromEntries(Object.entries(values).filter(([k]) => !mine.has(k))) as FormValues;
+  if (kind === "mounting" || kind === "motion") {
+    const axis = draft.axes.find((a) => a.id === axisId);
+    return { axes, others: axis ? [without(axisFormValues(draft, axis))] : [] };
+  }
+  if (kind === "duty") return { axes, others: draft.axes.map((a) => without(axisFormValues(draft, a))) };
+  return { axes, others: [] };
+}
+
+const nameSchema = z
+  .string({ error: "Name the axis, e.g. “Clamp” or “Main ram”." })
+  .trim()
+  .min(1, "Name the axis, e.g. “Clamp” or “Main ram”.")
+  .max(NAME_MAX, tooLong(NAME_MAX));
+
+/** The cycle: each motion's step is a whole number from 1 to twice the axes. */
+const cycleStepSchema = (count: number) =>
+  z.coerce
+    .number({ error: `Choose a step from 1 to ${count}.` })
+    .int(`Choose a step from 1 to ${count}.`)
+    .min(1, `Choose a step from 1 to ${count}.`)
+    .max(count, `Choose a step from 1 to ${count}.`);
+
+function ownShape(kind: FormStepKind, ctx: StepContext): z.ZodRawShape {
+  if (kind === "machine") return { ...OWN_FIELDS.machine, ...Object.fromEntries(ctx.axes.map((a) => [axisNameField(a.id), nameSchema])) };
+  if (kind === "cycle") {
+    const count = 2 * ctx.axes.length;
+    return Object.fromEntries(ctx.axes.flatMap((a) => [cycleField(a.id, "extend"), cycleField(a.id, "retract")].map((n) => [n, cycleStepSchema(count)])));
+  }
+  return OWN_FIELDS[kind];
+}
+
+/** Two axes of one name, told at the later one (names are compared as shops read them: trimmed, any case). */
+function checkNames(values: Record<string, unknown>, ctx: z.RefinementCtx, axes: StepContext["axes"]) {
+  const seen = new Set<string>();
+  for (const axis of axes) {
+    const name = values[axisNameField(axis.id)];
+    if (typeof name !== "string" || !name.trim()) continue;
+    const key = name.trim().toLowerCase();
+    if (seen.has(key)) ctx.addIssue({ code: "custom", path: [axisNameField(axis.id)], message: `Another axis is already called “${name.trim()}”.` });
+    seen.add(key);
+  }
+}
+
+/** An axis cannot extend and retract at the same time. */
+function checkCycle(values: Record<string, unknown>, ctx: z.RefinementCtx, axes: StepContext["axes"]) {
+  for (const axis of axes) {
+    const out = String(values[cycleField(axis.id, "extend")] ?? "");
+    const back = String(values[cycleField(axis.id, "retract")] ?? "");
+    if (out && out === back)
+      ctx.addIssue({
+        code: "custom",
+        path: [cycleField(axis.id, "retract")],
+        message: `“${axis.name}” cannot extend and retract in the same step: give its retraction a later step.`,
+      });
+  }
+}
+
+/** The schema of one step, given the person's units and the step's context. */
+export function stepSchema(kind: FormStepKind, system: UnitSystem, ctx: StepContext) {
+  const keys = ENGINE_KEYS_BY_STEP[kind];
   // loose(): the engine fields pass through as typed, for the engine's schema to judge.
-  const own = z.looseObject(OWN_FIELDS[step]);
+  const own = z.looseObject(ownShape(kind, ctx));
   return own.superRefine(
-    (values, ctx) => {
-      if (step === "quotation") checkDates(values, ctx);
+    (values, refine) => {
+      if (kind === "quotation") checkDates(values, refine);
+      if (kind === "machine") checkNames(values, refine, ctx.axes);
+      if (kind === "cycle") checkCycle(values, refine, ctx.axes);
       if (!keys.length) return;
-      const typed: FormValues = { ...otherAnswers };
-      for (const key of keys) typed[key] = typeof values[key] === "string" ? (values[key] as string) : undefined;
-      try {
-        parseRequirements(toRequirementsInput(typed, system));
-      } catch (error) {
-        if (!(error instanceof RequirementsError)) throw error;
-        for (const key of keys) {
-          for (const message of error.fieldErrors[key] ?? []) ctx.addIssue({ code: "custom", path: [key], message });
+      const reported = new Set<string>();
+      for (const others of ctx.others.length ? ctx.others : [{}]) {
+        const typed: FormValues = { ...others };
+        for (const key of keys) typed[key] = typeof values[key] === "string" ? (values[key] as string) : undefined;
+        try {
+          parseRequirements(toRequirementsInput(typed, system));
+        } catch (error) {
+          if (!(error instanceof RequirementsError)) throw error;
+          for (const key of keys) {
+            for (const message of error.fieldErrors[key] ?? []) {
+              if (reported.has(`${key} ${message}`)) continue;
+              reported.add(`${key} ${message}`);
+              refine.addIssue({ code: "custom", path: [key], message });
+            }
+          }
         }
       }
     },
@@ -108,38 +191,35 @@ export function stepSchema(step: FormStepId, system: UnitSystem, otherAnswers: F
 }
 
 /** The names a step's form posts: its own fields and the engine fields it asks. */
-export function stepFieldNames(step: FormStepId): string[] {
-  return [...Object.keys(OWN_FIELDS[step]), ...ENGINE_KEYS_BY_STEP[step]];
-}
-
-/** The answers of every step but this one: the context its cross-field rules are judged in. */
-export function otherStepsAnswers(answers: FormValues, step: FormStepId): FormValues {
-  const mine = new Set(stepFieldNames(step));
-  return Object.fromEntries(Object.entries(answers).filter(([k]) => !mine.has(k)));
+export function stepFieldNames(kind: FormStepKind, axes: StepContext["axes"] = []): string[] {
+  return [...Object.keys(ownShape(kind, { axes, others: [] })), ...ENGINE_KEYS_BY_STEP[kind]];
 }
 
 /**
  * What a step's form posted, as the draft keeps it (strings as typed), on every path: Next,
- * Back and revising alike. An axis field that does not apply to the chosen orientation is kept
- * empty, and an answer longer than its field takes is reported, never stored.
+ * Back, the axis buttons and revising alike. An axis field that does not apply to the chosen
+ * orientation is kept empty, and an answer longer than its field takes is reported, never stored.
  */
-export function typedStepAnswers(step: FormStepId, posted: { get(name: string): unknown }, otherAnswers: FormValues) {
-  const names = stepFieldNames(step);
+export function typedStepAnswers(kind: FormStepKind, posted: { get(name: string): unknown }, ctx: StepContext) {
+  const names = stepFieldNames(kind, ctx.axes);
+  const others = ctx.others[0] ?? {};
   // The answers that decide which fields apply, from this post where the step asks them.
   const deciding = (key: "orientation" | "pressStrokeMm") =>
-    typeof posted.get(key) === "string" && names.includes(key) ? (posted.get(key) as string) : otherAnswers[key];
+    typeof posted.get(key) === "string" && names.includes(key) ? (posted.get(key) as string) : others[key];
   const decidingAnswers = { orientation: deciding("orientation"), pressStrokeMm: deciding("pressStrokeMm") };
   const typed: Record<string, string> = {};
   const tooLongErrors: Record<string, string[]> = {};
+  const engineKeys = ENGINE_KEYS_BY_STEP[kind] as readonly string[];
   for (const name of names) {
     const value = posted.get(name);
     const answer = typeof value === "string" ? value : "";
-    const engineKey = (ENGINE_KEYS_BY_STEP[step] as readonly string[]).includes(name);
-    if (engineKey && !fieldApplies(name as RequirementKey, decidingAnswers)) {
+    const engineKey = engineKeys.includes(name);
+    // Only an axis step decides what applies; the duty step's fields apply to every axis.
+    if (engineKey && kind !== "duty" && !fieldApplies(name as RequirementKey, decidingAnswers)) {
       typed[name] = "";
       continue;
     }
-    const max = TEXT_MAX[name as keyof typeof TEXT_MAX] ?? SHORT_ANSWER_MAX;
+    const max = name.startsWith("name-") ? NAME_MAX : (TEXT_MAX[name as keyof typeof TEXT_MAX] ?? SHORT_ANSWER_MAX);
     if (answer.trim().length > max) tooLongErrors[name] = [tooLong(max)];
     typed[name] = answer;
   }

@@ -18,16 +18,21 @@ import { ENGINE_KEYS_BY_STEP, FORM_STEPS } from "~/content/spec-steps";
 
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
+// A new draft's one axis is `axis01` (FIRST_AXIS_ID) until the buyer adds others.
 const ANSWERS = {
   machine: {
     intent: "next",
     title: "Bending press, main ram",
     purpose: "Presses sheet over a die.",
+    "name-axis01": "Main ram",
+  },
+  "axis01-mounting": {
+    intent: "next",
     orientation: "vertical",
     rodDirection: "down",
     mounting: "pinned-pinned",
   },
-  motion: {
+  "axis01-motion": {
     intent: "next",
     massKg: "800",
     processForceN: "50000",
@@ -58,6 +63,10 @@ const ANSWERS = {
   },
 };
 
+/** The spec page's design of one axis (the page names it `published` since machines; `design` before). */
+const pageDesign = (data: { published?: { design: unknown }; design?: unknown }) =>
+  (data.published?.design ?? data.design) as { cylinder: { boreMm: number }; requirements: Record<string, unknown> };
+
 async function newDraft(visitor: Visitor) {
   const created = await visitor.post(specNew.action, "/specs/new", {});
   expect(created.status).toBe(302);
@@ -75,25 +84,27 @@ describe("the spec form", () => {
     const visitor = await signedIn(buyer);
     const id = await newDraft(visitor);
 
-    for (const [name, fields] of Object.entries(ANSWERS).slice(0, 2)) {
+    for (const [name, fields] of Object.entries(ANSWERS).slice(0, 3)) {
       const res = await stepPost(visitor, id, name, fields);
       expect(res.status).toBe(302);
     }
     const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
     expect(spec.title).toBe("Bending press, main ram");
-    expect(spec.completedSteps).toEqual(["machine", "motion"]);
-    expect(spec.answers.motion.strokeMm).toBe("500");
+    expect(spec.completedSteps).toEqual(["machine", "axis01-mounting", "axis01-motion"]);
+    expect(spec.answers["axis01-motion"].strokeMm).toBe("500");
+    expect(spec.answers.machine).toMatchObject({ axes: "axis01", "name-axis01": "Main ram" });
 
     // Leaving and coming back resumes at the first step not done.
     const back = await visitor.get(resume.loader, `/specs/${id}/edit`, { specId: id });
     expect(back.location).toBe(`/specs/${id}/edit/duty`);
 
-    for (const [name, fields] of Object.entries(ANSWERS).slice(2)) {
+    for (const [name, fields] of Object.entries(ANSWERS).slice(3)) {
       expect((await stepPost(visitor, id, name, fields)).status).toBe(302);
     }
     const review = await visitor.get(step.loader, `/specs/${id}/edit/review`, { specId: id, step: "review" });
-    expect(review.data.review.design.cylinder.strokeMm).toBe(500);
-    expect(review.data.review.design.counterbalance.side).toBe("rod");
+    expect(review.data.review.published.kind).toBe("axis");
+    expect(review.data.review.published.design.cylinder.strokeMm).toBe(500);
+    expect(review.data.review.published.design.counterbalance.side).toBe("rod");
 
     // Publishing needs the cautions read.
     const refused = await stepPost(visitor, id, "review", { intent: "publish" });
@@ -109,6 +120,8 @@ describe("the spec form", () => {
     expect(spec.retainerPercent).toBe("20.00");
     const revision = await SpecRevision.findOne({ where: { specId: id }, rejectOnEmpty: true });
     expect(revision.axes).toHaveLength(1);
+    expect(revision.axes[0].name).toBe("Main ram");
+    expect(revision.machine).toBeNull();
     expect(revision.engineVersion).toMatch(/^\d+\.\d+\.\d+$/);
     expect(await OutboxMail.count({ where: { to: shop.email } })).toBe(1);
     await deliverDueMail(100);
@@ -134,14 +147,17 @@ describe("the spec form", () => {
   it("returns field errors for bad answers and saves nothing of them", async () => {
     const visitor = await signedIn(await makeMember("buyer"));
     const id = await newDraft(visitor);
-    const res = await stepPost(visitor, id, "machine", { intent: "next", title: "", orientation: "inclined", mounting: "glued" });
+    const res = await stepPost(visitor, id, "machine", { intent: "next", title: "", "name-axis01": " " });
     expect(res.status).toBe(400);
-    expect(Object.keys(res.data.result.error).sort()).toEqual(["inclineDeg", "mounting", "rodDirection", "title"]);
+    expect(Object.keys(res.data.result.error).sort()).toEqual(["name-axis01", "title"]);
+    const mounting = await stepPost(visitor, id, "axis01-mounting", { intent: "next", orientation: "inclined", mounting: "glued" });
+    expect(mounting.status).toBe(400);
+    expect(Object.keys(mounting.data.result.error).sort()).toEqual(["inclineDeg", "mounting", "rodDirection"]);
     const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
     expect(spec.answers).toEqual({});
     expect(spec.completedSteps).toEqual([]);
 
-    const motion = await stepPost(visitor, id, "motion", { ...ANSWERS.motion, strokeMm: "long", massKg: "-3" });
+    const motion = await stepPost(visitor, id, "axis01-motion", { ...ANSWERS["axis01-motion"], strokeMm: "long", massKg: "-3" });
     expect(Object.keys(motion.data.result.error).sort()).toEqual(["massKg", "strokeMm"]);
   });
 
@@ -149,10 +165,10 @@ describe("the spec form", () => {
     const visitor = await signedIn(await makeMember("buyer"));
     const id = await newDraft(visitor);
     await stepPost(visitor, id, "machine", ANSWERS.machine);
-    const res = await stepPost(visitor, id, "motion", { ...ANSWERS.motion, intent: "back", strokeMm: "" });
-    expect(res.location).toBe(`/specs/${id}/edit/machine`);
+    const res = await stepPost(visitor, id, "axis01-motion", { ...ANSWERS["axis01-motion"], intent: "back", strokeMm: "" });
+    expect(res.location).toBe(`/specs/${id}/edit/axis01-mounting`);
     const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
-    expect(spec.answers.motion.massKg).toBe("800");
+    expect(spec.answers["axis01-motion"].massKg).toBe("800");
     expect(spec.completedSteps).toEqual(["machine"]);
   });
 
@@ -162,8 +178,9 @@ describe("the spec form", () => {
     const visitor = await signedIn(buyer);
     const id = await newDraft(visitor);
     await stepPost(visitor, id, "machine", ANSWERS.machine);
-    await stepPost(visitor, id, "motion", {
-      ...ANSWERS.motion,
+    await stepPost(visitor, id, "axis01-mounting", ANSWERS["axis01-mounting"]);
+    await stepPost(visitor, id, "axis01-motion", {
+      ...ANSWERS["axis01-motion"],
       massKg: "1764",
       processForceN: "11240",
       strokeMm: "19.69",
@@ -172,7 +189,7 @@ describe("the spec form", () => {
     });
     await stepPost(visitor, id, "duty", { ...ANSWERS.duty, ambientC: "77", maxPressureBar: "2320" });
     const review = await visitor.get(step.loader, `/specs/${id}/edit/review`, { specId: id, step: "review" });
-    const req = review.data.review.design.requirements;
+    const req = review.data.review.published.design.requirements;
     expect(req.strokeMm).toBeCloseTo(500.1, 0); // 19.69 in × 25.4
     expect(req.massKg).toBeCloseTo(800.1, 0); // 1764 lb × 0.45359237
     expect(req.ambientC).toBeCloseTo(25, 5); // (77 − 32) × 5/9
@@ -227,7 +244,7 @@ describe("revising a published spec", () => {
     const shopVisitor = await signedIn(shop);
     expect((await shopVisitor.get(specPage.loader, `/specs/${id}`, { specId: id })).data.revision.number).toBe(1);
 
-    await stepPost(visitor, id, "motion", { ...ANSWERS.motion, massKg: "3000", processForceN: "120000" });
+    await stepPost(visitor, id, "axis01-motion", { ...ANSWERS["axis01-motion"], massKg: "3000", processForceN: "120000" });
     const published = await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
     expect(published.status).toBe(302);
 
@@ -243,7 +260,7 @@ describe("revising a published spec", () => {
     expect(latest.data.revision.number).toBe(2);
     const older = await shopVisitor.get(specPage.loader, `/specs/${id}?revision=1`, { specId: id });
     expect(older.data.revision.number).toBe(1);
-    expect(older.data.design.cylinder.boreMm).toBe(bore(revisions[0]));
+    expect(pageDesign(older.data).cylinder.boreMm).toBe(bore(revisions[0]));
     expect(await OutboxMail.count({ where: { to: shop.email, subject: { [Op.like]: "Spec revised (revision 2)%" } } })).toBe(1);
   });
 
@@ -254,7 +271,7 @@ describe("revising a published spec", () => {
     expect((await Spec.findByPk(id, { rejectOnEmpty: true })).revising).toBe(false);
     for (const [name, fields] of Object.entries(ANSWERS)) await stepPost(visitor, id, name, fields);
     await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
-    const edit = await visitor.get(step.loader, "/x", { specId: id, step: "motion" });
+    const edit = await visitor.get(step.loader, "/x", { specId: id, step: "axis01-motion" });
     expect(edit.location).toBe(`/specs/${id}`);
   });
 });
@@ -267,18 +284,18 @@ describe("the axis questions of sizing contract 2", () => {
     const id = await newDraft(visitor);
     const steps = {
       ...ANSWERS,
-      machine: { ...ANSWERS.machine, mountingStyle: "front-flange" },
-      motion: { ...ANSWERS.motion, pressStrokeMm: "30", pressSpeedMmS: "10", dwellS: "2", decelTimeS: "0.3" },
-      duty: { ...ANSWERS.duty, holdMinutes: "45", pumpType: "double" },
+      "axis01-mounting": { ...ANSWERS["axis01-mounting"], mountingStyle: "front-flange" },
+      "axis01-motion": { ...ANSWERS["axis01-motion"], pressStrokeMm: "30", pressSpeedMmS: "10", dwellS: "2", decelTimeS: "0.3", holdMinutes: "45" },
+      duty: { ...ANSWERS.duty, pumpType: "double" },
     };
     for (const [name, fields] of Object.entries(steps)) expect((await stepPost(visitor, id, name, fields)).status).toBe(302);
     const spec = await Spec.findByPk(id, { rejectOnEmpty: true });
-    expect(spec.answers.machine.mountingStyle).toBe("front-flange");
-    expect(spec.answers.motion).toMatchObject({ pressStrokeMm: "30", pressSpeedMmS: "10", dwellS: "2", decelTimeS: "0.3" });
-    expect(spec.answers.duty).toMatchObject({ holdMinutes: "45", pumpType: "double" });
+    expect(spec.answers["axis01-mounting"].mountingStyle).toBe("front-flange");
+    expect(spec.answers["axis01-motion"]).toMatchObject({ pressStrokeMm: "30", pressSpeedMmS: "10", dwellS: "2", decelTimeS: "0.3", holdMinutes: "45" });
+    expect(spec.answers.duty).toMatchObject({ pumpType: "double" });
 
     const review = await visitor.get(step.loader, `/specs/${id}/edit/review`, { specId: id, step: "review" });
-    expect(review.data.review.design.requirements).toMatchObject({
+    expect(review.data.review.published.design.requirements).toMatchObject({
       mountingStyle: "front-flange",
       pressStrokeMm: 30,
       pressSpeedMmS: 10,
@@ -291,7 +308,7 @@ describe("the axis questions of sizing contract 2", () => {
 
     // The spec page lists what the axis must do in words and units, not as codes.
     const page = await visitor.get(specPage.loader, `/specs/${id}`, { specId: id });
-    expect(words(page.data.design.requirements)).toMatchObject({
+    expect(words(pageDesign(page.data).requirements)).toMatchObject({
       "How the cylinder body is fixed": "Front flange",
       "Pressing stroke": "30 mm",
       "Pressing speed": "10 mm/s",
@@ -312,16 +329,25 @@ describe("the axis questions of sizing contract 2", () => {
     await Spec.update(
       {
         title: ANSWERS.machine.title,
-        answers: { machine: strip(ANSWERS.machine), motion: strip(ANSWERS.motion), duty: strip(ANSWERS.duty), quotation: strip(ANSWERS.quotation) },
+        answers: {
+          machine: { title: ANSWERS.machine.title, purpose: ANSWERS.machine.purpose, ...strip(ANSWERS["axis01-mounting"]) },
+          motion: strip(ANSWERS["axis01-motion"]),
+          duty: { ...strip(ANSWERS.duty), holdMinutes: "0" },
+          quotation: strip(ANSWERS.quotation),
+        },
         completedSteps: ["machine", "motion", "duty", "quotation"],
       },
       { where: { id } },
     );
     expect((await visitor.get(resume.loader, `/specs/${id}/edit`, { specId: id })).location).toBe(`/specs/${id}/edit/review`);
-    const motion = await visitor.get(step.loader, `/specs/${id}/edit/motion`, { specId: id, step: "motion" });
+    // Read as its one axis, with every answer where the form now asks it.
+    const motion = await visitor.get(step.loader, `/specs/${id}/edit/axis01-motion`, { specId: id, step: "axis01-motion" });
     expect(motion.status).toBe(200);
+    expect(motion.data.stepAnswers).toMatchObject({ strokeMm: "500", holdMinutes: "0" });
+    const mounting = await visitor.get(step.loader, `/specs/${id}/edit/axis01-mounting`, { specId: id, step: "axis01-mounting" });
+    expect(mounting.data.stepAnswers).toMatchObject({ orientation: "vertical", rodDirection: "down" });
     // A tab still showing the old form posts the old fields only: they validate and save.
-    expect((await stepPost(visitor, id, "motion", ANSWERS.motion)).status).toBe(302);
+    expect((await stepPost(visitor, id, "axis01-motion", strip(ANSWERS["axis01-motion"]))).status).toBe(302);
     expect((await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" })).status).toBe(302);
 
     const revision = await SpecRevision.findOne({ where: { specId: id }, rejectOnEmpty: true });
@@ -338,8 +364,9 @@ describe("the axis questions of sizing contract 2", () => {
     const visitor = await signedIn(await makeMember("buyer"));
     const id = await newDraft(visitor);
     await stepPost(visitor, id, "machine", ANSWERS.machine);
+    await stepPost(visitor, id, "axis01-mounting", ANSWERS["axis01-mounting"]);
 
-    const missing = await stepPost(visitor, id, "motion", { ...ANSWERS.motion, pressStrokeMm: "30", pressSpeedMmS: "" });
+    const missing = await stepPost(visitor, id, "axis01-motion", { ...ANSWERS["axis01-motion"], pressStrokeMm: "30", pressSpeedMmS: "" });
     expect(missing.status).toBe(400);
     expect(Object.keys(missing.data.result.error)).toEqual(["pressSpeedMmS"]);
     expect(missing.data.result.error.pressSpeedMmS.join(" ")).toMatch(/pressing speed.*needed when there is a pressing stroke/i);
@@ -347,14 +374,14 @@ describe("the axis questions of sizing contract 2", () => {
     expect(fieldApplies("pressSpeedMmS", { pressStrokeMm: "30" })).toBe(true);
     expect(fieldApplies("pressSpeedMmS", { pressStrokeMm: "0" })).toBe(false);
     expect(fieldApplies("pressSpeedMmS", {})).toBe(false);
-    expect((await Spec.findByPk(id, { rejectOnEmpty: true })).answers.motion).toBeUndefined();
+    expect((await Spec.findByPk(id, { rejectOnEmpty: true })).answers["axis01-motion"]).toEqual({});
 
-    const tooFast = await stepPost(visitor, id, "motion", { ...ANSWERS.motion, pressStrokeMm: "30", pressSpeedMmS: "120" });
+    const tooFast = await stepPost(visitor, id, "axis01-motion", { ...ANSWERS["axis01-motion"], pressStrokeMm: "30", pressSpeedMmS: "120" });
     expect(tooFast.data.result.error.pressSpeedMmS.join(" ")).toMatch(/no more than the extend/);
 
     // Without a pressing stroke a leftover pressing speed is neither judged nor kept.
-    expect((await stepPost(visitor, id, "motion", { ...ANSWERS.motion, pressStrokeMm: "0", pressSpeedMmS: "fast" })).status).toBe(302);
-    expect((await Spec.findByPk(id, { rejectOnEmpty: true })).answers.motion.pressSpeedMmS).toBe("");
+    expect((await stepPost(visitor, id, "axis01-motion", { ...ANSWERS["axis01-motion"], pressStrokeMm: "0", pressSpeedMmS: "fast" })).status).toBe(302);
+    expect((await Spec.findByPk(id, { rejectOnEmpty: true })).answers["axis01-motion"].pressSpeedMmS).toBe("");
   });
 
   it("asks every question the engine takes on exactly one step", () => {

@@ -39,16 +39,23 @@ describe("what a step keeps", () => {
   const posted = (fields: Record<string, string>) => new URLSearchParams(fields);
 
   it("reports an answer longer than its field takes, whichever button was pressed", () => {
-    const { tooLongErrors } = typedStepAnswers("machine", posted({ title: "x".repeat(1_000_000), purpose: "ok", orientation: "vertical" }), {});
-    expect(tooLongErrors).toEqual({ title: ["Keep it under 121 characters."] });
-    const numbers = typedStepAnswers("motion", posted({ massKg: "9".repeat(41) }), { orientation: "vertical" });
+    const axes = [{ id: "axis01", name: "Main ram" }];
+    const { tooLongErrors } = typedStepAnswers("machine", posted({ title: "x".repeat(1_000_000), purpose: "ok", "name-axis01": "y".repeat(81) }), {
+      axes,
+      others: [],
+    });
+    expect(tooLongErrors).toEqual({ title: ["Keep it under 121 characters."], "name-axis01": ["Keep it under 81 characters."] });
+    const numbers = typedStepAnswers("motion", posted({ massKg: "9".repeat(41) }), { axes, others: [{ orientation: "vertical" }] });
     expect(numbers.tooLongErrors).toHaveProperty("massKg");
   });
 
   it("keeps axis fields that do not apply to the orientation empty", () => {
-    const { typed } = typedStepAnswers("machine", posted({ title: "Lift", orientation: "horizontal", rodDirection: "a".repeat(5_000), inclineDeg: "45" }), {});
+    const { typed } = typedStepAnswers("mounting", posted({ orientation: "horizontal", rodDirection: "a".repeat(5_000), inclineDeg: "45" }), {
+      axes: [{ id: "axis01", name: "Lift" }],
+      others: [],
+    });
     expect(typed.rodDirection).toBe("");
     expect(typed.inclineDeg).toBe("");
-    expect(typed.title).toBe("Lift");
+    expect(typed.orientation).toBe("horizontal");
   });
 });

@@ -249,7 +249,14 @@ function ComponentSymbol({
       return (
         <>
           <CylinderSymbol id={c.id} place={cyl} />
-          <Caption x={(cyl.left + cyl.right) / 2} y={cyl.top - 26} anchor="middle" name="Cylinder, bore / rod × stroke" values={size} />
+          {/* raised by the lines it takes, so a US reader's second line stays clear of the barrel */}
+          <Caption
+            x={(cyl.left + cyl.right) / 2}
+            y={cyl.top - 12 - 14 * Math.max(1, size.length)}
+            anchor="middle"
+            name="Cylinder, bore / rod × stroke"
+            values={size}
+          />
         </>
       );
     }
@@ -488,10 +495,11 @@ function ComponentSymbol({
       return (
         <>
           <MotorSymbol id={c.id} centre={at} />
+          {/* under the motor: beside it a US rating's longer line would reach the relief's vent valve */}
           <Caption
-            x={at.x - MOTOR_R - 12}
-            y={at.y - 8}
-            anchor="end"
+            x={at.x}
+            y={at.y + MOTOR_R + 16}
+            anchor="middle"
             name="Motor"
             values={[...v("ratedKw", u.motorRating), ...v("speedRpm", (n) => `${n} rpm`)]}
           />

@@ -21,6 +21,8 @@ const CONTROL_DX = -56;
 /** Pressure rail below the valve row (or the lowest P-line control); the tank rail below it. */
 const RAIL_GAP = 30;
 const RAIL_PITCH = 22;
+/** How far right of an axis's return column the machine's filter and cooler stand. */
+const RETURN_DX = 120;
 
 const componentOf = (end: string) => end.slice(0, end.lastIndexOf("."));
 
@@ -170,13 +172,21 @@ export function layoutMachine(circuit: MachineCircuit): MachineLayout {
   const alone = layoutCircuit(unitCircuit);
   // Without a valve, layout.ts puts the unit's "valve bottom" at alone.dcv.bottom; its return run is 30 below.
   const unit = shiftLayout(alone, 0, tankY - 30 - alone.dcv.bottom);
+  // The return column moves right, where a machine has room, clear of a long pump caption.
+  const returnParts = unitCircuit.components.filter((c) => c.kind === "filter" || c.kind === "cooler").map((c) => c.id);
+  for (const id of returnParts) {
+    if (unit.at[id]) unit.at[id] = { ...unit.at[id], x: unit.at[id].x + RETURN_DX };
+    for (const port of Object.keys(unit.ports).filter((k) => componentOf(k) === id))
+      unit.ports[port] = { ...unit.ports[port], x: unit.ports[port].x + RETURN_DX };
+  }
+  unit.returnX += RETURN_DX;
   for (const c of unitCircuit.components) partOf[c.id] = { circuit: unitCircuit, layout: unit };
   const filterInlet = Object.keys(unit.ports).find(
     (k) => k.endsWith(".inlet") && unitCircuit.components.some((c) => c.kind === "filter" && `${c.id}.inlet` === k),
   );
   if (filterInlet) unit.ports[filterInlet] = { ...unit.ports[filterInlet], channelY: tankY };
 
-  const width = Math.max(axes.length * COLUMN_W, alone.width);
+  const width = Math.max(axes.length * COLUMN_W, alone.width + RETURN_DX);
   const merged: Layout = {
     ...unit,
     width,

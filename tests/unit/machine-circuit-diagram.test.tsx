@@ -1,0 +1,303 @@
+// The diagram of a machine, drawn from real sizeMachine results: the power unit once, each axis's
+// valve and cylinder in its own labelled column, every valve on the common pressure and tank rails.
+import { renderToStaticMarkup } from "react-dom/server";
+import { describe, expect, it } from "vitest";
+import { CircuitDiagram } from "~/components/circuit-diagram";
+import { displayUnits } from "~/components/circuit-diagram/format";
+import { layoutMachine } from "~/components/circuit-diagram/machine-layout";
+import { meetings, routeConnections } from "~/components/circuit-diagram/routes";
+import { sizeMachine, type MachineDesign } from "~/hydraulics";
+
+const H = { orientation: "horizontal", mounting: "fixed-pinned", frictionCoefficient: 0.1 } as const;
+const CLAMP = { ...H, name: "Clamp", massKg: 100, processForceN: 10_000, strokeMm: 50, extendSpeedMmS: 50, retractSpeedMmS: 100 };
+const PRESS = {
+  ...H,
+  name: "Press",
+  massKg: 500,
+  processForceN: 100_000,
+  strokeMm: 200,
+  extendSpeedMmS: 100,
+  pressStrokeMm: 20,
+  pressSpeedMmS: 10,
+  retractSpeedMmS: 150,
+};
+const FEED = { ...H, name: "Feed", massKg: 300, strokeMm: 500, extendSpeedMmS: 200, retractSpeedMmS: 200 };
+/** A vertical ram whose load overruns on the way down: it gets a counterbalance valve. */
+const RAM = {
+  orientation: "vertical",
+  rodDirection: "down",
+  mounting: "fixed-pinned",
+  name: "Ram",
+  massKg: 1200,
+  processForceN: 60_000,
+  strokeMm: 400,
+  extendSpeedMmS: 100,
+  retractSpeedMmS: 150,
+};
+const DUTY = { cyclesPerHour: 120, hoursPerDay: 16, supplyHz: 50, maxPressureBar: 160 } as const;
+
+const MACHINES: Record<string, MachineDesign> = {
+  "clamp and press": sizeMachine({ axes: [CLAMP, PRESS], ...DUTY }),
+  "feed, ram and clamp": sizeMachine({ axes: [FEED, RAM, CLAMP], ...DUTY }),
+  "feed and press on a double pump": sizeMachine({ axes: [FEED, PRESS], ...DUTY, pumpType: "double" }),
+  "ram and press on a fixed pump": sizeMachine({ axes: [RAM, PRESS], ...DUTY, pumpType: "fixed" }),
+  "feed, ram and clamp together": sizeMachine({
+    axes: [FEED, RAM, CLAMP],
+    ...DUTY,
+    sequence: [["Feed", "Ram", "Clamp"].map((axis) => ({ axis, motion: "extend" })), ["Feed", "Ram", "Clamp"].map((axis) => ({ axis, motion: "retract" }))],
+  }),
+};
+
+const render = (m: MachineDesign, units: "metric" | "us" = "metric") => renderToStaticMarkup(<CircuitDiagram circuit={m.circuit} units={units} />);
+const desc = (html: string) => html.match(/<desc[^>]*>(.*?)<\/desc>/)![1].replaceAll("&#x27;", "'");
+const componentOf = (end: string) => end.slice(0, end.lastIndexOf("."));
+
+interface Box {
+  name: string;
+  left: number;
+  right: number;
+  top: number;
+  bottom: number;
+}
+
+/** The outermost groups of the symbols layer, each with the box of every point it draws. */
+function symbolBoxes(html: string): Box[] {
+  const layer = html.slice(html.indexOf('<g data-layer="symbols">') + '<g data-layer="symbols">'.length);
+  const boxes: Box[] = [];
+  let depth = 0;
+  let start = -1;
+  let name = "";
+  for (const m of layer.matchAll(/<g(?: data-component="([^"]+)")?[^>]*>|<\/g>/g)) {
+    if (m[0] === "</g>") {
+      depth -= 1;
+      if (depth === 0 && start >= 0) {
+        boxes.push(boxOf(name, layer.slice(start, m.index)));
+        start = -1;
+      }
+      if (depth < 0) break;
+    } else {
+      if (depth === 0 && m[1]) {
+        start = m.index;
+        name = m[1];
+      }
+      depth += 1;
+    }
+  }
+  return boxes;
+}
+
+function boxOf(name: string, markup: string): Box {
+  const xs: number[] = [];
+  const ys: number[] = [];
+  const pair = (x: number, y: number) => (xs.push(x), ys.push(y));
+  for (const m of markup.matchAll(/<(rect|line|circle|polyline|polygon|path)\b([^>]*)>/g)) {
+    const a = (k: string) => Number(m[2].match(new RegExp(` ${k}="([-\\d.]+)"`))?.[1]);
+    if (m[1] === "rect") (pair(a("x"), a("y")), pair(a("x") + a("width"), a("y") + a("height")));
+    if (m[1] === "line") (pair(a("x1"), a("y1")), pair(a("x2"), a("y2")));
+    if (m[1] === "circle") (pair(a("cx") - a("r"), a("cy") - a("r")), pair(a("cx") + a("r"), a("cy") + a("r")));
+    const list = m[2].match(/ (?:points|d)="([^"]+)"/)?.[1];
+    if (list) {
+      const n = [...list.matchAll(/-?[\d.]+/g)].map(Number);
+      for (let i = 0; i + 1 < n.length; i += 2) pair(n[i], n[i + 1]);
+    }
+  }
+  return { name, left: Math.min(...xs), right: Math.max(...xs), top: Math.min(...ys), bottom: Math.max(...ys) };
+}
+
+/** Captions, estimated as circuit-diagram.test.tsx does: about 0.6 em a character and 14 units a line. */
+function captionBoxes(html: string): Box[] {
+  return [...html.matchAll(/<text x="([\d.]+)" y="([\d.]+)" text-anchor="(start|middle|end)" font-size="11.5"[^>]*>(.*?)<\/text>/g)].map((m) => {
+    const [x, y, anchor, inner] = [Number(m[1]), Number(m[2]), m[3], m[4]];
+    const lines = [...inner.matchAll(/<tspan[^>]*>(.*?)<\/tspan>/g)].map((t, i) => t[1].length * 11.5 * (i === 0 ? 0.6 : 0.54));
+    const w = Math.max(...lines);
+    const left = anchor === "start" ? x : anchor === "end" ? x - w : x - w / 2;
+    return { name: inner.match(/<tspan[^>]*>(.*?)<\/tspan>/)![1], left, right: left + w, top: y - 11, bottom: y + 14 * (lines.length - 1) + 3 };
+  });
+}
+
+const overlap = (a: Box, b: Box) => a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
+
+describe("the machine's circuit diagram", () => {
+  it("the machines under test: two and three axes, a counterbalanced ram, P-line flow controls and a vented relief among them", () => {
+    const all = Object.values(MACHINES).flatMap((m) => m.circuit.components);
+    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 3]);
+    expect(all.some((c) => c.kind === "cbv")).toBe(true);
+    expect(all.some((c) => c.id.endsWith(":speed-control"))).toBe(true);
+    expect(all.some((c) => c.kind === "vent")).toBe(true);
+    expect(new Set(Object.values(MACHINES).map((m) => m.pump.type))).toEqual(new Set(["fixed", "compensated", "double"]));
+  });
+
+  it.each(Object.entries(MACHINES))("%s: draws one power unit: one pump, one relief, one reservoir", (_name, m) => {
+    const html = render(m);
+    expect(html).toMatch(/^<svg[^>]+role="img"/);
+    const pumps = m.circuit.components.filter((c) => c.kind === "pump");
+    expect([...html.matchAll(/data-kind="pump"/g)]).toHaveLength(pumps.length);
+    // a double pump is one pump of two sections on one shaft, with one caption
+    expect(pumps.length === 1 || pumps.every((p) => p.values?.type === "double")).toBe(true);
+    expect([...html.matchAll(/>(Fixed pump|Compensated pump|Double pump)</g)]).toHaveLength(1);
+    expect([...html.matchAll(/data-kind="relief"/g)]).toHaveLength(1);
+    expect([...html.matchAll(/>Reservoir</g)]).toHaveLength(1);
+    // every tank symbol is an end of the one reservoir
+    const tanks = [...html.matchAll(/<g data-component="([^"]+)" data-kind="tank"/g)].map((t) => t[1]);
+    expect(tanks.length).toBeGreaterThan(0);
+    expect(new Set(tanks)).toEqual(new Set(["tank"]));
+  });
+
+  it.each(Object.entries(MACHINES))("%s: one valve and one cylinder per axis, in a column under the axis's name", (_name, m) => {
+    const html = render(m);
+    const layout = layoutMachine(m.circuit);
+    expect(html).toContain(`data-machine-axes="${m.axes.length}"`);
+    expect(layout.columns.map((c) => c.axis)).toEqual(m.axes.map((a) => a.name));
+    for (const [i, axis] of m.axes.entries()) {
+      expect(html).toMatch(new RegExp(`<text[^>]*data-axis-label="${axis.name}">${axis.name}</text>`));
+      const own = m.circuit.components.filter((c) => c.axis === axis.name);
+      expect(own.filter((c) => c.kind === "dcv")).toHaveLength(1);
+      expect(own.filter((c) => c.kind === "cylinder")).toHaveLength(1);
+      const column = layout.columns[i];
+      for (const c of own) {
+        const at = layout.merged.at[c.id];
+        expect(at, c.id).toBeDefined();
+        expect(html, c.id).toContain(`data-component="${c.id}" data-kind="${c.kind}"`);
+        expect(at.x, c.id).toBeGreaterThan(column.left);
+        expect(at.x, c.id).toBeLessThan(column.right);
+        expect(at.y, c.id).toBeGreaterThan(column.labelY);
+      }
+    }
+    // the valves stand in one row, as on one manifold
+    const valves = m.circuit.components.filter((c) => c.kind === "dcv").map((c) => layout.merged.at[c.id].y);
+    expect(new Set(valves).size).toBe(1);
+  });
+
+  it.each(Object.entries(MACHINES))("%s: draws every connection of the data, and each axis's valve reaches only its own cylinder", (_name, m) => {
+    const html = render(m);
+    const drawn = [...html.matchAll(/<path[^>]*data-from="([^"]+)" data-to="([^"]+)" data-line="([^"]+)"/g)].map((x) => ({ from: x[1], to: x[2], line: x[3] }));
+    expect(drawn.map((c) => `${c.from}>${c.to}:${c.line}`).sort()).toEqual(m.circuit.connections.map((c) => `${c.from}>${c.to}:${c.line}`).sort());
+    const axisOf = new Map(m.circuit.components.map((c) => [c.id, c.axis]));
+    const kindOf = new Map(m.circuit.components.map((c) => [c.id, c.kind]));
+    for (const dcv of m.circuit.components.filter((c) => c.kind === "dcv")) {
+      // follow the drawn oil lines from A and B, stopping at the power unit
+      const seen = new Set<string>([dcv.id]);
+      const ends = [`${dcv.id}.A`, `${dcv.id}.B`];
+      const queue = drawn
+        .filter((c) => c.line !== "pilot" && (ends.includes(c.from) || ends.includes(c.to)))
+        .map((c) => (ends.includes(c.from) ? c.to : c.from));
+      while (queue.length) {
+        const id = componentOf(queue.shift()!);
+        if (seen.has(id) || axisOf.get(id) === undefined) continue;
+        seen.add(id);
+        for (const c of drawn) {
+          if (c.line === "pilot" || c.line === "shaft") continue;
+          if (componentOf(c.from) === id) queue.push(c.to);
+          if (componentOf(c.to) === id) queue.push(c.from);
+        }
+      }
+      const reached = [...seen].filter((id) => axisOf.get(id) !== undefined);
+      for (const id of reached) expect(axisOf.get(id), `${dcv.id} reaches ${id}`).toBe(dcv.axis);
+      expect(reached.filter((id) => kindOf.get(id) === "cylinder")).toHaveLength(1);
+    }
+  });
+
+  it.each(Object.entries(MACHINES))("%s: every valve takes P from the common pressure rail and returns T on the common tank rail", (_name, m) => {
+    const layout = layoutMachine(m.circuit);
+    const routes = routeConnections(m.circuit, layout.merged);
+    const { pressureY, tankY } = layout.rails;
+    expect(tankY).toBeGreaterThan(pressureY);
+    const runsAlong = (points: { x: number; y: number }[], y: number) =>
+      points.some((p, i) => i > 0 && p.y === y && points[i - 1].y === y && p.x !== points[i - 1].x);
+    const dropsAt = (points: { x: number; y: number }[], y: number) => points.find((p, i) => i > 0 && p.y === y && points[i - 1].y === y)!.x;
+    const pumpOutlet = layout.merged.ports["pump.outlet"];
+    const pressureDrops: number[] = [];
+    const tankDrops: number[] = [];
+    for (const dcv of m.circuit.components.filter((c) => c.kind === "dcv")) {
+      // P: from the pump (directly, or through the axis's own P-line flow control)
+      const intoP = routes.filter((r) => r.connection.to === `${dcv.id}.P`);
+      expect(intoP.length).toBeGreaterThan(0);
+      const fromUnit = intoP.flatMap((r) =>
+        axisOf(m, componentOf(r.connection.from)) === undefined ? [r] : routes.filter((s) => s.connection.to === `${componentOf(r.connection.from)}.2`),
+      );
+      expect(fromUnit.map((r) => componentOf(r.connection.from))).toContain("pump");
+      for (const r of fromUnit.filter((x) => x.connection.from === "pump.outlet")) {
+        expect(r.points[0]).toMatchObject({ x: pumpOutlet.x, y: pumpOutlet.y });
+        expect(runsAlong(r.points, pressureY) || r.points.every((p) => p.x === pumpOutlet.x), `${dcv.id} P`).toBe(true);
+        if (runsAlong(r.points, pressureY)) pressureDrops.push(dropsAt(r.points.slice(1), pressureY));
+      }
+      // T: along the tank rail to the return filter, and on to the tank
+      const fromT = routes.filter((r) => r.connection.from === `${dcv.id}.T`);
+      expect(fromT).toHaveLength(1);
+      expect(m.circuit.components.find((c) => c.id === componentOf(fromT[0].connection.to))?.kind).toBe("filter");
+      expect(runsAlong(fromT[0].points, tankY), `${dcv.id} T`).toBe(true);
+      tankDrops.push(fromT[0].points[0].x);
+    }
+    // a junction dot wherever a valve's line leaves a rail between two others
+    const dots = meetings(routes);
+    const hasDot = (x: number, y: number) => dots.some((d) => Math.abs(d.x - x) < 0.5 && Math.abs(d.y - y) < 0.5);
+    const filterX = layout.merged.ports["filter.inlet"].x;
+    for (const [drops, y, hub] of [
+      [tankDrops, tankY, filterX],
+      [pressureDrops, pressureY, pumpOutlet.x],
+    ] as const) {
+      const all = [...drops, hub];
+      for (const x of drops) if (x > Math.min(...all) && x < Math.max(...all)) expect(hasDot(x, y), `dot at ${x}, ${y}`).toBe(true);
+    }
+  });
+
+  it.each(Object.entries(MACHINES))("%s: no two symbols overlap, no caption overlaps another or a symbol, all on the sheet", (_name, m) => {
+    for (const units of ["metric", "us"] as const) {
+      const html = render(m, units);
+      const [, width, height] = html.match(/viewBox="0 0 (\d+) (\d+)"/)!.map(Number);
+      const symbols = symbolBoxes(html).filter((b) => b.name !== "tank" && Number.isFinite(b.left));
+      expect(symbols.length).toBeGreaterThan(m.circuit.components.length / 2);
+      const captions = captionBoxes(html);
+      for (const [i, a] of symbols.entries()) for (const b of symbols.slice(i + 1)) expect(overlap(a, b), `${a.name} / ${b.name}`).toBe(false);
+      for (const [i, a] of captions.entries()) {
+        expect(a.left, a.name).toBeGreaterThanOrEqual(0);
+        expect(a.right, a.name).toBeLessThanOrEqual(width);
+        expect(a.bottom, a.name).toBeLessThanOrEqual(height);
+        for (const b of captions.slice(i + 1)) expect(overlap(a, b), `${a.name} / ${b.name} (${units})`).toBe(false);
+        for (const s of symbols) expect(overlap(a, s), `${a.name} / ${s.name} (${units})`).toBe(false);
+      }
+    }
+  });
+
+  it.each(Object.entries(MACHINES))("%s: the description gives the power unit once, then the machine by axis", (_name, m) => {
+    const text = desc(render(m));
+    const title = render(m).match(/<title[^>]*>(.*?)<\/title>/)![1];
+    expect(title).toContain(`machine of ${m.axes.length} axes`);
+    for (const axis of m.axes) {
+      expect(title).toContain(axis.name);
+      expect(text).toContain(`Axis ${axis.name}: `);
+      expect(text).toContain(`bore ${axis.cylinder.boreMm} mm, rod ${axis.cylinder.rodMm} mm`);
+    }
+    // in the order of the axes, after the power unit
+    const at = m.axes.map((a) => text.indexOf(`Axis ${a.name}: `));
+    expect([...at].sort((a, b) => a - b)).toEqual(at);
+    expect(text.indexOf("Relief valve set to")).toBeLessThan(at[0]);
+    expect(text.match(/Relief valve set to/g)).toHaveLength(1);
+    expect(text).toContain("each take P from the common pressure line and return T to the common tank line");
+    expect(text).toContain(`Relief valve set to ${m.pressuresBar.reliefSetting} bar`);
+  });
+
+  it("says what a P-line flow control passes, beside its own symbol under its valve", () => {
+    const m = MACHINES["feed, ram and clamp"];
+    const control = m.circuit.components.find((c) => c.id.endsWith(":speed-control"))!;
+    const html = render(m);
+    expect(html).toContain(`data-component="${control.id}" data-kind="flow-control"`);
+    expect(html).toContain("P-line flow control");
+    const layout = layoutMachine(m.circuit);
+    const dcv = m.circuit.components.find((c) => c.kind === "dcv" && c.axis === control.axis)!;
+    expect(layout.merged.at[control.id].y).toBeGreaterThan(layout.merged.ports[`${dcv.id}.P`].y);
+    expect(layout.merged.at[control.id].y).toBeLessThan(layout.rails.pressureY);
+    expect(desc(html)).toContain(`meter-in flow control in its P line passes ${displayUnits("metric").flow(Number(control.values!.settingLpm))}`);
+  });
+
+  it("draws a machine of one axis as one labelled column", () => {
+    const m = sizeMachine({ axes: [RAM], ...DUTY });
+    const html = render(m);
+    expect(html).toContain('data-machine-axes="1"');
+    expect(html).toContain('data-axis-label="Ram"');
+    expect(desc(html)).toContain("Axis Ram: ");
+    expect(html).toMatch(/<title[^>]*>[^<]*machine of 1 axis \(Ram\)/);
+  });
+});
+
+const axisOf = (m: MachineDesign, id: string) => m.circuit.components.find((c) => c.id === id)?.axis;

@@ -89,16 +89,21 @@ function symbolBoxes(html: string): Box[] {
 function boxOf(name: string, markup: string): Box {
   const xs: number[] = [];
   const ys: number[] = [];
-  const pair = (x: number, y: number) => (xs.push(x), ys.push(y));
+  const pair = (...points: [number, number][]) => {
+    for (const [x, y] of points) {
+      xs.push(x);
+      ys.push(y);
+    }
+  };
   for (const m of markup.matchAll(/<(rect|line|circle|polyline|polygon|path)\b([^>]*)>/g)) {
     const a = (k: string) => Number(m[2].match(new RegExp(` ${k}="([-\\d.]+)"`))?.[1]);
-    if (m[1] === "rect") (pair(a("x"), a("y")), pair(a("x") + a("width"), a("y") + a("height")));
-    if (m[1] === "line") (pair(a("x1"), a("y1")), pair(a("x2"), a("y2")));
-    if (m[1] === "circle") (pair(a("cx") - a("r"), a("cy") - a("r")), pair(a("cx") + a("r"), a("cy") + a("r")));
+    if (m[1] === "rect") pair([a("x"), a("y")], [a("x") + a("width"), a("y") + a("height")]);
+    if (m[1] === "line") pair([a("x1"), a("y1")], [a("x2"), a("y2")]);
+    if (m[1] === "circle") pair([a("cx") - a("r"), a("cy") - a("r")], [a("cx") + a("r"), a("cy") + a("r")]);
     const list = m[2].match(/ (?:points|d)="([^"]+)"/)?.[1];
     if (list) {
       const n = [...list.matchAll(/-?[\d.]+/g)].map(Number);
-      for (let i = 0; i + 1 < n.length; i += 2) pair(n[i], n[i + 1]);
+      for (let i = 0; i + 1 < n.length; i += 2) pair([n[i], n[i + 1]]);
     }
   }
   return { name, left: Math.min(...xs), right: Math.max(...xs), top: Math.min(...ys), bottom: Math.max(...ys) };

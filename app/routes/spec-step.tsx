@@ -96,6 +96,11 @@ export async function action({ request, params }: Route.ActionArgs) {
 
   const kind = step.kind;
   const context = stepContext(draft, kind, step.axis?.id);
+  // A second tab opened before an axis was added posts no answer for it: that axis keeps what is stored.
+  if (kind === "machine" || kind === "cycle") {
+    for (const [name, value] of Object.entries(stepAnswersOf(draft, kind, undefined)))
+      if (!formData.has(name) && name !== "title" && name !== "purpose") formData.set(name, value);
+  }
   const submission = parseWithZod(formData, { schema: stepSchema(kind, spec.unitSystem, context) });
   const { typed, tooLongErrors } = typedStepAnswers(kind, formData, context);
   const refused = () =>

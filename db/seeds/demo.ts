@@ -3,8 +3,11 @@
 import { randomBytes } from "node:crypto";
 import bcrypt from "bcryptjs";
 import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
-import { ENGINE_VERSION, sizeCircuit } from "~/hydraulics";
+import { ENGINE_VERSION, sizeCircuit, sizeMachine } from "~/hydraulics";
 import { toRequirementsInput } from "~/content/requirement-fields";
+import { machineInput } from "~/content/machine-input";
+import { readDraft } from "~/content/spec-draft";
+import { headlineFigures } from "~/services/published-design";
 import { MILESTONES, TARGET_SHARES, type MilestoneKey } from "~/content/job-milestones";
 import { bidTotals, retainerCents } from "~/content/money";
 
@@ -87,7 +90,7 @@ interface DemoSpec {
   answers: Record<string, Record<string, string>>;
 }
 
-/** The scenario's specs: a press open for bids, two awarded jobs and a tilting deck in draft. */
+/** The scenario's specs: a press and a two-axis hemming cell open for bids, two awarded jobs and a tilting deck in draft. */
 function demoSpecs(): DemoSpec[] {
   return [
     {
@@ -129,6 +132,62 @@ function demoSpecs(): DemoSpec[] {
           currency: "GBP",
           retainerPercent: "20",
           notes: "Power unit beside the press frame; blue RAL 5010 paint.",
+        },
+      },
+    },
+    {
+      // A machine of two axes on one power unit, stored as the spec form stores it (per axis).
+      organisation: "Kestrel Forming Machines",
+      author: "priya@kestrel-forming.test",
+      status: "open",
+      publishedDaysAgo: 2,
+      answers: {
+        machine: {
+          title: "Hemming cell, clamp and hemming ram",
+          purpose: "Holds a door skin on the anvil with a clamp, then the hemming ram folds its edge; the clamp lets go after the ram is back.",
+          axes: "clamp1 hemram",
+          "name-clamp1": "Clamp",
+          "name-hemram": "Hemming ram",
+        },
+        "clamp1-mounting": { orientation: "vertical", rodDirection: "down", mounting: "fixed-pinned" },
+        "clamp1-motion": {
+          massKg: "40",
+          processForceN: "15000",
+          strokeMm: "60",
+          extendSpeedMmS: "50",
+          retractSpeedMmS: "80",
+          accelTimeS: "0.2",
+          holdMinutes: "0",
+        },
+        "hemram-mounting": { orientation: "vertical", rodDirection: "down", mounting: "pinned-pinned" },
+        "hemram-motion": {
+          massKg: "300",
+          processForceN: "45000",
+          strokeMm: "250",
+          extendSpeedMmS: "90",
+          retractSpeedMmS: "140",
+          accelTimeS: "0.2",
+          holdMinutes: "0",
+        },
+        // Clamp, hem, ram back, unclamp.
+        cycle: { "extend-clamp1": "1", "extend-hemram": "2", "retract-hemram": "3", "retract-clamp1": "4" },
+        duty: {
+          cyclesPerHour: "120",
+          hoursPerDay: "16",
+          ambientC: "26",
+          supplyHz: "50",
+          maxPressureBar: "160",
+          supplyVoltage: "400 V three-phase",
+          fluid: "ISO VG 46",
+        },
+        quotation: {
+          unitsWanted: "1",
+          bidDeadline: inDays(20),
+          dateNeeded: inDays(80),
+          deliveryRegion: "UK — West Midlands",
+          currency: "GBP",
+          retainerPercent: "15",
+          notes: "One power unit for both cylinders, on the floor behind the cell.",
         },
       },
     },
@@ -269,6 +328,10 @@ const DEMO_BIDS: Record<
     },
     { shop: "Coldharbour Power Units", author: "ben@coldharbour-pu.test", factor: 0.9, status: "draft", leadTimeWeeks: 10 },
   ],
+  "Hemming cell, clamp and hemming ram": [
+    { shop: "Northgate Hydraulics", author: "sofia@northgate-hyd.test", factor: 0.96, status: "submitted", leadTimeWeeks: 13 },
+    { shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 1.04, status: "submitted", leadTimeWeeks: 11 },
+  ],
   "Coil clamp, hold-down cylinder": [
     { shop: "Coldharbour Power Units", author: "ben@coldharbour-pu.test", factor: 0.95, status: "won", leadTimeWeeks: 8 },
     { shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 1.05, status: "not_selected", leadTimeWeeks: 9 },
@@ -302,7 +365,30 @@ function demoListPrice(key: string): number {
     "hose-suction": 60,
     cooler: 690,
   };
-  return known[key] ?? 120;
+  return known[key.split(":")[0]] ?? 120;
+}
+
+/**
+ * What a published demo spec freezes, as publishing does: one axis sized alone (machine null),
+ * or a machine of the form's per-axis answers sized over its cycle.
+ */
+function demoDesign(answers: Record<string, Record<string, string>>, flat: Record<string, string>) {
+  if (!answers.machine?.axes) {
+    const design = sizeCircuit(toRequirementsInput(flat, "metric"));
+    return {
+      axes: [{ name: "Axis 1", requirements: design.requirements, design }],
+      machine: null,
+      bill: design.bom,
+      figures: headlineFigures({ kind: "axis", design }),
+    };
+  }
+  const machine = sizeMachine(machineInput(readDraft(answers).draft, "metric"));
+  return {
+    axes: machine.axes.map((axis) => ({ name: axis.name, requirements: axis.requirements, design: axis })),
+    machine,
+    bill: machine.bom,
+    figures: headlineFigures({ kind: "machine", design: machine }),
+  };
 }
 
 async function insert<T extends object>(sequelize: Sequelize, transaction: Transaction, sql: string, replacements: Record<string, unknown>): Promise<T> {
@@ -316,7 +402,7 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
   for (const spec of demoSpecs()) {
     const flat = Object.assign({}, ...Object.values(spec.answers)) as Record<string, string>;
     const published = spec.status !== "draft";
-    const design = published ? sizeCircuit(toRequirementsInput(flat, "metric")) : null;
+    const design = published ? demoDesign(spec.answers, flat) : null;
     const publishedAt = published ? daysAgo(spec.publishedDaysAgo ?? 1) : null;
     const row = await insert<{ id: string }>(
       sequelize,
@@ -339,18 +425,19 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
         publishedAt,
         currency: flat.currency ?? "EUR",
         units: flat.unitsWanted ? Number(flat.unitsWanted) : null,
-        relief: design?.pressuresBar.reliefSetting ?? null,
-        flow: design?.flowsLpm.pump ?? null,
+        relief: design?.figures.reliefSettingBar ?? null,
+        flow: design?.figures.pumpFlowLpm ?? null,
       },
     );
     if (!design) continue;
     await sequelize.query(
-      `INSERT INTO spec_revisions (spec_id, number, axes, answers, unit_system, engine_version, created_by_id, created_at)
-       VALUES (:spec, 1, :axes, :answers, 'metric', :version, :author, :publishedAt)`,
+      `INSERT INTO spec_revisions (spec_id, number, axes, machine, answers, unit_system, engine_version, created_by_id, created_at)
+       VALUES (:spec, 1, :axes, :machine, :answers, 'metric', :version, :author, :publishedAt)`,
       {
         replacements: {
           spec: row.id,
-          axes: JSON.stringify([{ name: "Axis 1", requirements: design.requirements, design }]),
+          axes: JSON.stringify(design.axes),
+          machine: design.machine ? JSON.stringify(design.machine) : null,
           answers: JSON.stringify(spec.answers),
           version: ENGINE_VERSION,
           author: userIds.get(spec.author),
@@ -361,7 +448,7 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
     );
     const units = Number(flat.unitsWanted ?? 1);
     for (const offer of DEMO_BIDS[flat.title] ?? []) {
-      const lines = design.bom.map((l) => ({
+      const lines = design.bill.map((l) => ({
         key: l.key,
         item: l.item,
         quantity: l.quantity,

@@ -5,7 +5,9 @@ import * as bidsRoute from "~/routes/spec-bids";
 import * as jobsRoute from "~/routes/jobs";
 import * as specPage from "~/routes/spec";
 import * as paymentsRoute from "~/routes/payments";
-import { Bid, Job, JobEvent, Spec, sequelize } from "~/models/index.server";
+import { Bid, Job, JobEvent, Spec, SpecRevision, sequelize } from "~/models/index.server";
+import { readDraft, stepIdsOf } from "~/content/spec-draft";
+import { billOf } from "~/services/published-design";
 import { bidTotals, retainerCents } from "~/content/money";
 import { bomOf } from "~/services/bids.server";
 import { DEMO_PASSWORD, seedDemo } from "../../db/seeds/demo";
@@ -24,7 +26,7 @@ describe("the demo scenario", () => {
 
   it("prices every offer exactly as the app would, against the frozen bill", async () => {
     const bids = await Bid.findAll({ include: [{ model: Spec, as: "spec" }] });
-    expect(bids.length).toBe(7);
+    expect(bids.length).toBe(9);
     for (const bid of bids) {
       const spec = (bid as Bid & { spec: Spec }).spec;
       const bom = await bomOf(spec);
@@ -53,6 +55,29 @@ describe("the demo scenario", () => {
     expect(columns.map((c: { shop: string }) => c.shop)).toEqual(["Northgate Hydraulics", "Ironbridge Fluid Power"]);
     expect(cheapestCompleteId).toBe(columns[0].id);
     expect(columns[0].alternatives).toBe(1);
+  });
+
+  it("has a machine of two axes on one power unit, with offers priced line by line against the machine's bill", async () => {
+    const cell = await Spec.findOne({ where: { title: "Hemming cell, clamp and hemming ram" }, rejectOnEmpty: true });
+    const revision = await SpecRevision.findOne({ where: { specId: cell.id, number: 1 }, rejectOnEmpty: true });
+    expect(revision.machine).not.toBeNull();
+    expect(revision.axes.map((a) => a.name)).toEqual(["Clamp", "Hemming ram"]);
+    expect(revision.machine!.sequence.map((step) => step.map((m) => `${m.axis} ${m.motion}`))).toEqual([
+      ["Clamp extend"],
+      ["Hemming ram extend"],
+      ["Hemming ram retract"],
+      ["Clamp retract"],
+    ]);
+    // The spec row's figures are the machine's, as publishing writes them.
+    expect([cell.reliefSettingBar, cell.pumpFlowLpm]).toEqual([revision.machine!.pressuresBar.reliefSetting, revision.machine!.flowsLpm.pump]);
+    // Its draft-layout answers read back as the form reads them: every step done.
+    const { draft, completed } = readDraft(cell.answers, cell.completedSteps);
+    expect(completed).toEqual(stepIdsOf(draft));
+    const bill = billOf(revision).map((l) => l.key);
+    expect(bill.some((key) => key.includes("Hemming ram"))).toBe(true);
+    const offers = await Bid.findAll({ where: { specId: cell.id } });
+    expect(offers).toHaveLength(2);
+    for (const offer of offers) expect(offer.lines.map((l) => l.key)).toEqual(bill);
   });
 
   it("shows Aled the answered question, without the asker's name", async () => {

@@ -16,6 +16,7 @@ export {
   bidsWhere,
   findInScope,
   jobsWhere,
+  organisationsWhere,
   paymentsWhere,
   questionsWhere,
   specsWhere,

@@ -60,6 +60,20 @@ export function paymentsWhere(viewer: Viewer): WhereOptions<Payment> {
 export const accountsWhere = (viewer: Viewer): WhereOptions<Organisation> => managedAccountsWhere(viewer) ?? NOTHING;
 
 /**
+ * Organisations whose page (who they are, their people) a viewer opens: an admin every one; an
+ * account manager their buyer accounts and the shops building those accounts' jobs; buyers and
+ * shops none (their own people are on the team page).
+ */
+export function organisationsWhere(viewer: Viewer): WhereOptions<Organisation> {
+  if (!isOperator(viewer)) return NOTHING;
+  if (viewer.accounts === "all") return {};
+  if (viewer.accounts.length === 0) return NOTHING;
+  const accounts = viewer.accounts.map((id) => sequelize.escape(id)).join(", ");
+  const theirShops = sequelize.literal(`(SELECT shop_organisation_id FROM jobs WHERE buyer_organisation_id IN (${accounts}))`);
+  return { [Op.or]: [{ id: [...viewer.accounts] }, { id: { [Op.in]: theirShops } }] };
+}
+
+/**
  * Questions on a spec the viewer reads: a shop the answered ones and its own; the buyer and
  * operator staff every one (the asking shop's name is a separate rule, see `can`).
  */

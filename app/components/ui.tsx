@@ -32,8 +32,14 @@ export function PageHeader({ title, lead, actions }: { title: string; lead?: Rea
   );
 }
 
-export function Card({ className = "", children }: { className?: string; children: React.ReactNode }) {
-  return <section className={`rounded-lg bg-white p-6 shadow-sm ring-1 ring-ink-100 ${className}`}>{children}</section>;
+/** A panel of a page; with a `title`, the panel's heading. */
+export function Card({ className = "", title, children }: { className?: string; title?: string; children: React.ReactNode }) {
+  return (
+    <section className={`rounded-lg bg-white p-6 shadow-sm ring-1 ring-ink-100 ${className}`}>
+      {title ? <h2 className="mb-3 font-semibold">{title}</h2> : null}
+      {children}
+    </section>
+  );
 }
 
 export function EmptyState({ title, children, action }: { title: string; children: React.ReactNode; action?: React.ReactNode }) {
@@ -139,5 +145,82 @@ export function TableScroll({ label, className = "", children }: { label: string
     >
       {children}
     </div>
+  );
+}
+
+/** A table of a list page: its scrolling box and header row; the rows are its children. */
+export function ListTable({
+  label,
+  columns,
+  minWidth = "min-w-[40rem]",
+  children,
+}: {
+  label: string;
+  /** Header cells: a label, or a label with its classes (alignment, padding). An empty label is read out as `srLabel`. */
+  columns: (string | { label: string; className?: string; srLabel?: string })[];
+  minWidth?: string;
+  children: React.ReactNode;
+}) {
+  return (
+    <TableScroll label={label}>
+      <table className={`w-full ${minWidth} text-left text-sm`}>
+        <thead className="text-ink-600">
+          <tr>
+            {columns.map((c, i) => {
+              const column = typeof c === "string" ? { label: c } : c;
+              return (
+                <th key={i} scope="col" className={`py-2 pr-3 ${column.className ?? ""}`}>
+                  {column.label || (column.srLabel ? <span className="sr-only">{column.srLabel}</span> : null)}
+                </th>
+              );
+            })}
+          </tr>
+        </thead>
+        <tbody>{children}</tbody>
+      </table>
+    </TableScroll>
+  );
+}
+
+/** A form's refusal at the top of the page. */
+export function ErrorNotice({ error }: { error: string | undefined | null }) {
+  if (!error) return null;
+  return (
+    <div className="mb-4">
+      <Notice tone="bad">{error}</Notice>
+    </div>
+  );
+}
+
+/** Whether a person may sign in. */
+export function ActiveBadge({ active }: { active: boolean }) {
+  return active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>;
+}
+
+/**
+ * The orders a list offers, as links that keep the search and filters (and go back to page 1);
+ * the current one is marked, so the page always says how it is sorted.
+ */
+export function SortChoice({ options, current, search }: { options: Record<string, string>; current: string; search: URLSearchParams }) {
+  const href = (sort: string) => {
+    const next = new URLSearchParams(search);
+    next.set("sort", sort);
+    next.delete("page");
+    return `?${next}`;
+  };
+  return (
+    <nav aria-label="Sort" className="mb-3 flex flex-wrap items-center gap-2 text-sm">
+      <span className="text-ink-600">Sorted by</span>
+      {Object.entries(options).map(([key, label]) => (
+        <Link
+          key={key}
+          to={href(key)}
+          aria-current={key === current ? "true" : undefined}
+          className={`rounded-full px-3 py-1 ring-1 ${key === current ? "bg-ink-800 font-semibold text-white ring-ink-800" : "ring-ink-200 hover:bg-ink-50"}`}
+        >
+          {label}
+        </Link>
+      ))}
+    </nav>
   );
 }

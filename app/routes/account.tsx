@@ -1,93 +1,155 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/account";
 import { requireRole } from "~/auth/permissions.server";
-import { OPERATOR_ROLES } from "~/auth/roles";
-import { Badge, Card, PageHeader, TableScroll } from "~/components/ui";
-import { accountOf } from "~/services/admin.server";
-import { listJobs } from "~/services/job-reads.server";
-import { JOB_STAGE_LABELS } from "~/content/job-milestones";
+import { KIND_LABELS, PAGE_ROLES, ROLE_LABELS } from "~/auth/roles";
+import { ActiveBadge, Badge, Card, ListTable, PageHeader } from "~/components/ui";
+import { countOf } from "~/content/count";
 import { formatDay, formatMoment } from "~/content/dates";
-import { requireId } from "~/services/errors.server";
-import type { User } from "~/models/index.server";
+import { JOB_STAGE_LABELS } from "~/content/job-milestones";
+import { APPROVAL_LABELS, APPROVAL_TONES } from "~/content/shop-approval";
+import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES } from "~/content/spec-status";
+import { organisationPageOf, type OrganisationPage } from "~/services/organisation-page.server";
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.name ?? "Account"} · Tenderflow` }];
+// The organisation page (accounts/:organisationId): a buyer account, a shop or the operator, as
+// operator staff may see it. Which organisations open, and what shows, is the access policy's.
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.organisation.name ?? "Organisation"} · Tenderflow` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const viewer = await requireRole(request, OPERATOR_ROLES);
-  const organisation = await accountOf(viewer, requireId(params.organisationId));
-  const users = ((organisation as typeof organisation & { users?: User[] }).users ?? []).map((u) => ({
-    id: u.id,
-    name: u.name,
-    email: u.email,
-    active: u.active,
-    lastSignInAt: u.lastSignInAt?.toISOString() ?? null,
-  }));
-  const jobs = await listJobs(viewer, { account: organisation.id }, { limit: 5 });
-  return { id: organisation.id, name: organisation.name, region: organisation.region, users, jobs: jobs.jobs, jobCount: jobs.total };
+  const viewer = await requireRole(request, PAGE_ROLES.accounts);
+  const organisation = await organisationPageOf(viewer, params.organisationId);
+  // Navigation only: where this person came from.
+  const back = viewer.role === "admin" ? { to: "/admin/organisations", label: "Organisations" } : { to: "/accounts", label: "My accounts" };
+  return { organisation, back };
 }
 
-export default function Account({ loaderData }: Route.ComponentProps) {
+export default function OrganisationPageRoute({ loaderData }: Route.ComponentProps) {
+  const { organisation: o, back } = loaderData;
   return (
     <>
       <p className="mb-2 text-sm">
-        <Link to="/accounts" className="text-flow-700 hover:underline">
-          ← All accounts
+        <Link to={back.to} className="text-flow-700 hover:underline">
+          ← {back.label}
         </Link>
       </p>
-      <PageHeader title={loaderData.name} lead={loaderData.region ? `Machine builder · ${loaderData.region}` : "Machine builder"} />
-      <Card className="mb-6">
-        <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
-          <h2 className="font-semibold">Jobs</h2>
-          {loaderData.jobCount > 0 ? (
-            <Link to={`/jobs?account=${loaderData.id}`} className="text-sm text-flow-700 hover:underline">
-              All {loaderData.jobCount} job{loaderData.jobCount === 1 ? "" : "s"} of this account →
-            </Link>
-          ) : null}
+      <PageHeader title={o.name} lead={[KIND_LABELS[o.kind], o.region].filter(Boolean).join(" · ")} />
+      <div className="grid gap-6 lg:grid-cols-3">
+        <Facts organisation={o} />
+        <div className="space-y-6 lg:col-span-2">
+          {o.specs ? <Specs specs={o.specs} /> : null}
+          {o.jobs ? <Jobs jobs={o.jobs} kind={o.kind} /> : null}
         </div>
-        {loaderData.jobs.length === 0 ? (
-          <p className="text-sm text-ink-600">No awarded job yet. Jobs appear here when this account awards a bid.</p>
+      </div>
+      <Card title="People" className="mt-6">
+        {o.people.length === 0 ? (
+          <p className="text-sm text-ink-600">Nobody has joined yet.</p>
         ) : (
+          <ListTable label="People" minWidth="min-w-[30rem]" columns={["Name", "E-mail", "Role", "Status", "Last signed in"]}>
+            {o.people.map((u) => (
+              <tr key={u.id} className="border-t border-ink-100">
+                <td className="py-2 pr-3 font-semibold">{u.name}</td>
+                <td className="pr-3 break-all">{u.email}</td>
+                <td className="pr-3">{ROLE_LABELS[u.role]}</td>
+                <td className="pr-3">
+                  <ActiveBadge active={u.active} />
+                </td>
+                <td>{u.lastSignInAt ? formatMoment(u.lastSignInAt) : "Never"}</td>
+              </tr>
+            ))}
+          </ListTable>
+        )}
+      </Card>
+    </>
+  );
+}
+
+function Facts({ organisation: o }: { organisation: OrganisationPage }) {
+  return (
+    <Card title="Who they are">
+      <dl className="space-y-3 text-sm">
+        <Fact label="Kind">{KIND_LABELS[o.kind]}</Fact>
+        <Fact label="Region">{o.region ?? "Not given"}</Fact>
+        <Fact label="On Tenderflow since">{formatDay(o.since)}</Fact>
+        {o.approval ? (
+          <Fact label="Approval">
+            <Badge tone={APPROVAL_TONES[o.approval]}>{APPROVAL_LABELS[o.approval]}</Badge>
+            {o.approvalDecidedAt ? <span className="block text-ink-600">Decided {formatDay(o.approvalDecidedAt)}</span> : null}
+            {o.approval === "refused" && o.approvalReason ? <span className="block break-words text-ink-600">{o.approvalReason}</span> : null}
+            {o.canDecideApproval && o.approval !== "approved" ? (
+              <Link to="/admin/organisations" className="block text-flow-700 hover:underline">
+                Decide on the Organisations page
+              </Link>
+            ) : null}
+          </Fact>
+        ) : null}
+        {o.kind === "buyer" ? <Fact label="Account manager">{o.accountManager ?? "Nobody yet"}</Fact> : null}
+      </dl>
+    </Card>
+  );
+}
+
+function Fact({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div>
+      <dt className="text-ink-600">{label}</dt>
+      <dd className="font-semibold">{children}</dd>
+    </div>
+  );
+}
+
+function Specs({ specs }: { specs: NonNullable<OrganisationPage["specs"]> }) {
+  return (
+    <Card title={`Published specs (${specs.total})`}>
+      {specs.recent.length === 0 ? (
+        <p className="text-sm text-ink-600">Nothing published yet. Drafts stay with the buyer until they publish them.</p>
+      ) : (
+        <ul className="divide-y divide-ink-100 text-sm">
+          {specs.recent.map((s) => (
+            <li key={s.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+              <Link to={`/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">
+                {s.title || "Untitled spec"}
+              </Link>
+              <span className="flex items-center gap-2 text-ink-600">
+                {s.publishedAt ? `published ${formatDay(s.publishedAt)}` : null}
+                <Badge tone={SPEC_STATUS_TONES[s.status]}>{SPEC_STATUS_LABELS[s.status]}</Badge>
+              </span>
+            </li>
+          ))}
+        </ul>
+      )}
+      {specs.total > specs.recent.length ? <p className="mt-2 text-xs text-ink-600">The {specs.recent.length} published last.</p> : null}
+    </Card>
+  );
+}
+
+function Jobs({ jobs, kind }: { jobs: NonNullable<OrganisationPage["jobs"]>; kind: OrganisationPage["kind"] }) {
+  return (
+    <Card title="Jobs">
+      {jobs.recent.length === 0 ? (
+        <p className="text-sm text-ink-600">
+          {kind === "shop" ? "No job built by this shop yet." : "No awarded job yet. Jobs appear here when this account awards a bid."}
+        </p>
+      ) : (
+        <>
           <ul className="divide-y divide-ink-100 text-sm">
-            {loaderData.jobs.map((j) => (
+            {jobs.recent.map((j) => (
               <li key={j.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
                 <Link to={`/jobs/${j.id}`} className="font-semibold text-flow-700 hover:underline">
                   {j.specTitle || "Untitled spec"}
                 </Link>
                 <span className="flex flex-wrap items-center gap-2 text-ink-600">
-                  {JOB_STAGE_LABELS[j.stage]} · {j.shopName}
+                  {JOB_STAGE_LABELS[j.stage]} · {kind === "shop" ? j.buyerName : j.shopName}
                   {j.next?.targetDate ? ` · next: ${j.next.label} by ${formatDay(j.next.targetDate)}` : ""}
                   {j.overdue ? <Badge tone="bad">Overdue</Badge> : null}
                 </span>
               </li>
             ))}
           </ul>
-        )}
-      </Card>
-      <Card>
-        <h2 className="mb-3 font-semibold">People</h2>
-        <TableScroll label="People">
-          <table className="w-full min-w-[30rem] text-left text-sm">
-            <thead className="text-ink-600">
-              <tr>
-                <th className="py-2">Name</th>
-                <th>E-mail</th>
-                <th>Status</th>
-                <th>Last signed in</th>
-              </tr>
-            </thead>
-            <tbody>
-              {loaderData.users.map((u) => (
-                <tr key={u.id} className="border-t border-ink-100">
-                  <td className="py-2 font-semibold">{u.name}</td>
-                  <td>{u.email}</td>
-                  <td>{u.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
-                  <td>{u.lastSignInAt ? formatMoment(u.lastSignInAt) : "Never"}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </TableScroll>
-      </Card>
-    </>
+          <Link to={jobs.listLink} className="mt-3 inline-block text-sm text-flow-700 hover:underline">
+            {jobs.total > jobs.recent.length ? `All ${countOf(jobs.total, "job")} →` : "In the job list →"}
+          </Link>
+        </>
+      )}
+    </Card>
   );
 }

@@ -1,18 +1,22 @@
-import { Link } from "react-router";
+import { Link, useSearchParams } from "react-router";
 import { formatDay } from "~/content/dates";
 import type { Route } from "./+types/accounts";
 import { requireRole } from "~/auth/permissions.server";
-import { OPERATOR_ROLES } from "~/auth/roles";
-import { Card, EmptyState, PageHeader, TableScroll } from "~/components/ui";
+import { PAGE_ROLES } from "~/auth/roles";
+import { Card, EmptyState, ListTable, PageHeader, SortChoice } from "~/components/ui";
+import { accountListQuerySchema } from "~/schemas/admin";
+import { LIST_SORTS } from "~/schemas/list-sort";
 import { accountsOf } from "~/services/admin.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "My accounts · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const user = await requireRole(request, OPERATOR_ROLES);
-  const accounts = await accountsOf(user);
+  const user = await requireRole(request, PAGE_ROLES.accounts);
+  const { sort } = accountListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
+  const accounts = await accountsOf(user, sort);
   return {
     isAdmin: user.role === "admin",
+    sort,
     accounts: accounts.map(({ organisation, memberCount }) => ({
       id: organisation.id,
       name: organisation.name,
@@ -25,6 +29,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export default function Accounts({ loaderData }: Route.ComponentProps) {
   const { accounts, isAdmin } = loaderData;
+  const [searchParams] = useSearchParams();
   return (
     <>
       <PageHeader
@@ -37,32 +42,21 @@ export default function Accounts({ loaderData }: Route.ComponentProps) {
         </EmptyState>
       ) : (
         <Card>
-          <TableScroll label="Accounts">
-            <table className="w-full min-w-[40rem] text-left text-sm">
-              <thead className="text-ink-600">
-                <tr>
-                  <th className="py-2">Account</th>
-                  <th>Region</th>
-                  <th>Users</th>
-                  <th>Customer since</th>
-                </tr>
-              </thead>
-              <tbody>
-                {accounts.map((a) => (
-                  <tr key={a.id} className="border-t border-ink-100">
-                    <td className="py-2">
-                      <Link to={`/accounts/${a.id}`} className="font-semibold text-flow-700 hover:underline">
-                        {a.name}
-                      </Link>
-                    </td>
-                    <td>{a.region ?? "—"}</td>
-                    <td>{a.memberCount}</td>
-                    <td>{formatDay(a.since)}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </TableScroll>
+          <SortChoice options={LIST_SORTS.accounts} current={loaderData.sort} search={searchParams} />
+          <ListTable label="Accounts" columns={["Account", "Region", "Users", "Customer since"]}>
+            {accounts.map((a) => (
+              <tr key={a.id} className="border-t border-ink-100">
+                <td className="py-2 pr-3">
+                  <Link to={`/accounts/${a.id}`} className="font-semibold text-flow-700 hover:underline">
+                    {a.name}
+                  </Link>
+                </td>
+                <td className="pr-3">{a.region ?? "—"}</td>
+                <td className="pr-3">{a.memberCount}</td>
+                <td>{formatDay(a.since)}</td>
+              </tr>
+            ))}
+          </ListTable>
         </Card>
       )}
     </>

@@ -5,7 +5,8 @@ import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { formatMoment } from "~/content/dates";
-import { Badge, Button, Card, Notice, PageHeader, Pager, TableScroll } from "~/components/ui";
+import { Badge, Button, Card, ErrorNotice, ListTable, PageHeader, Pager, SortChoice } from "~/components/ui";
+import { LIST_SORTS } from "~/schemas/list-sort";
 import { mailListQuerySchema, sendAgainSchema } from "~/schemas/outbox";
 import { fieldErrorsOf } from "~/services/errors.server";
 import { MAX_ATTEMPTS } from "~/services/mail.server";
@@ -17,7 +18,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, PAGE_ROLES.administration);
   const query = mailListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const view: MailView = query.show ?? "failed";
-  return { view, maxAttempts: MAX_ATTEMPTS, waitingMinutes: WAITING_LONG_MINUTES, ...(await mailNeedingAttention(admin, view, query.page)) };
+  const mail = await mailNeedingAttention(admin, view, { page: query.page, sort: query.sort });
+  return { view, sort: query.sort, maxAttempts: MAX_ATTEMPTS, waitingMinutes: WAITING_LONG_MINUTES, ...mail };
 }
 
 export async function action({ request }: Route.ActionArgs) {
@@ -43,17 +45,13 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
         title="Mail"
         lead={`Mail that did not go out: failed after ${d.maxAttempts} attempts, or queued more than ${d.waitingMinutes} minutes ago and still waiting. Sending again gives a mail ${d.maxAttempts} fresh attempts.`}
       />
-      {actionData?.error ? (
-        <div className="mb-4">
-          <Notice tone="bad">{actionData.error}</Notice>
-        </div>
-      ) : null}
+      <ErrorNotice error={actionData?.error} />
       <Card>
         <nav aria-label="Which mail" className="mb-4 flex gap-2 text-sm">
           {(Object.keys(VIEW_LABELS) as MailView[]).map((view) => (
             <Link
               key={view}
-              to={`?show=${view}`}
+              to={`?show=${view}&sort=${d.sort}`}
               aria-current={view === d.view ? "page" : undefined}
               className={`rounded-md px-3 py-1.5 ring-1 ${view === d.view ? "bg-flow-600 text-white ring-flow-600" : "ring-ink-200 hover:bg-ink-100"}`}
             >
@@ -66,47 +64,34 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
             {d.view === "failed" ? "No failed mail: everything queued has gone out or is still being tried." : "No mail has been waiting long."}
           </p>
         ) : (
-          <TableScroll label="Mail queue">
-            <table className="w-full min-w-[40rem] text-left text-sm">
-              <thead className="text-ink-600">
-                <tr>
-                  <th className="py-2">Recipient</th>
-                  <th>Subject</th>
-                  <th>Attempts</th>
-                  <th>Last error</th>
-                  <th>Queued</th>
-                  <th>
-                    <span className="sr-only">Action</span>
-                  </th>
+          <>
+            <SortChoice options={LIST_SORTS.mail} current={d.sort} search={searchParams} />
+            <ListTable label="Mail queue" columns={["Recipient", "Subject", "Attempts", "Last error", "Queued", { label: "", srLabel: "Action" }]}>
+              {d.mails.map((m) => (
+                <tr key={m.id} className="border-t border-ink-100 align-top">
+                  <td className="py-2 break-all">{m.to}</td>
+                  <td className="break-words">{m.subject}</td>
+                  <td>
+                    {m.status === "failed" ? <Badge tone="bad">Failed</Badge> : <Badge tone="warn">Waiting</Badge>} {m.attempts}
+                  </td>
+                  <td className="max-w-xs break-words text-ink-600">
+                    {m.lastError ? <span title={m.lastError}>{m.lastError.length > 160 ? `${m.lastError.slice(0, 160)}…` : m.lastError}</span> : "—"}
+                    {m.lastTriedAt ? <span className="block text-xs">Last tried {formatMoment(m.lastTriedAt)}</span> : null}
+                  </td>
+                  <td className="whitespace-nowrap">{formatMoment(m.queuedAt)}</td>
+                  <td>
+                    <Form method="post">
+                      <input type="hidden" name="intent" value="send-again" />
+                      <input type="hidden" name="mailId" value={m.id} />
+                      <Button type="submit" tone="secondary" className="px-2 py-1">
+                        Send again
+                      </Button>
+                    </Form>
+                  </td>
                 </tr>
-              </thead>
-              <tbody>
-                {d.mails.map((m) => (
-                  <tr key={m.id} className="border-t border-ink-100 align-top">
-                    <td className="py-2 break-all">{m.to}</td>
-                    <td className="break-words">{m.subject}</td>
-                    <td>
-                      {m.status === "failed" ? <Badge tone="bad">Failed</Badge> : <Badge tone="warn">Waiting</Badge>} {m.attempts}
-                    </td>
-                    <td className="max-w-xs break-words text-ink-600">
-                      {m.lastError ? <span title={m.lastError}>{m.lastError.length > 160 ? `${m.lastError.slice(0, 160)}…` : m.lastError}</span> : "—"}
-                      {m.lastTriedAt ? <span className="block text-xs">Last tried {formatMoment(m.lastTriedAt)}</span> : null}
-                    </td>
-                    <td className="whitespace-nowrap">{formatMoment(m.queuedAt)}</td>
-                    <td>
-                      <Form method="post">
-                        <input type="hidden" name="intent" value="send-again" />
-                        <input type="hidden" name="mailId" value={m.id} />
-                        <Button type="submit" tone="secondary" className="px-2 py-1">
-                          Send again
-                        </Button>
-                      </Form>
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </TableScroll>
+              ))}
+            </ListTable>
+          </>
         )}
         <Pager page={d.page} pageCount={d.pageCount} search={searchParams} />
       </Card>

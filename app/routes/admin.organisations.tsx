@@ -4,31 +4,37 @@ import type { Route } from "./+types/admin.organisations";
 import { requireRole } from "~/auth/permissions.server";
 import { KIND_LABELS, ORGANISATION_KINDS, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
+import { Badge, Button, Card, ErrorNotice, ListTable, PageHeader, Pager, SearchBar, SortChoice } from "~/components/ui";
+import { OrganisationName } from "~/components/organisation-link";
+import { countOf } from "~/content/count";
 import { formatDay } from "~/content/dates";
 import { APPROVALS, APPROVAL_LABELS, APPROVAL_TONES, REFUSAL_REASON_MAX, type Approval } from "~/content/shop-approval";
-import { assignManagerSchema, listQuerySchema } from "~/schemas/admin";
+import { assignManagerSchema, organisationListQuerySchema } from "~/schemas/admin";
+import { LIST_SORTS } from "~/schemas/list-sort";
 import { shopDecisionSchema } from "~/schemas/shop-approval";
 import { assignAccountManager, listAccountManagers, listOrganisations } from "~/services/admin.server";
 import { fieldErrorsOf } from "~/services/errors.server";
+import { openableOrganisations } from "~/services/organisation-page.server";
 import { countWaitingShops, decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Organisations · Tenderflow" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, PAGE_ROLES.administration);
-  const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
+  const query = organisationListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const [{ organisations, total, page, pageCount }, managers, waiting, waitingTotal] = await Promise.all([
     listOrganisations(admin, query),
     listAccountManagers(admin),
     shopsAwaitingApproval(admin),
     countWaitingShops(admin),
   ]);
+  const openable = await openableOrganisations(admin, [...organisations.map((o) => o.organisation.id), ...waiting.map((w) => w.id)]);
   return {
+    sort: query.sort,
     total,
     page,
     pageCount,
-    waiting,
+    waiting: waiting.map((w) => ({ ...w, linked: openable.includes(w.id) })),
     waitingTotal,
     managers: managers.map((m) => ({ id: m.id, name: m.name })),
     organisations: organisations.map(({ organisation: o, memberCount }) => ({
@@ -40,6 +46,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       accountManagerId: o.accountManagerId ?? "",
       approval: o.approval as Approval | null,
       approvalReason: o.approvalReason as string | null,
+      linked: openable.includes(o.id),
     })),
   };
 }
@@ -129,7 +136,7 @@ function WaitingShops({
           return (
             <li key={shop.id} className="grid gap-3 py-3 text-sm md:grid-cols-[1fr_auto]">
               <div>
-                <p className="font-semibold">{shop.name}</p>
+                <OrganisationName id={shop.id} name={shop.name} linked={shop.linked} className="font-semibold" />
                 <p className="text-ink-600">Signed up {formatDay(shop.signedUpAt)}</p>
                 <ul className="text-ink-600">
                   {shop.people.map((p) => (
@@ -180,13 +187,9 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
   const [searchParams] = useSearchParams();
   return (
     <>
-      <PageHeader title="Organisations" lead={`${loaderData.total} organisation${loaderData.total === 1 ? "" : "s"}.`} />
+      <PageHeader title="Organisations" lead={`${countOf(loaderData.total, "organisation")}.`} />
       <WaitingShops waiting={loaderData.waiting} total={loaderData.waitingTotal} actionData={actionData} />
-      {actionData?.error && !loaderData.waiting.some((w) => w.id === actionData.organisationId) ? (
-        <div className="mb-4">
-          <Notice tone="bad">{actionData.error}</Notice>
-        </div>
-      ) : null}
+      <ErrorNotice error={loaderData.waiting.some((w) => w.id === actionData?.organisationId) ? null : actionData?.error} />
       <Card>
         <SearchBar label="Search organisations" placeholder="Organisation name" value={searchParams.get("q") ?? ""}>
           <label htmlFor="kind" className="sr-only">
@@ -212,68 +215,57 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
             ))}
           </select>
         </SearchBar>
-        <TableScroll label="Organisations">
-          <table className="w-full min-w-[40rem] text-left text-sm">
-            <thead className="text-ink-600">
-              <tr>
-                <th className="py-2">Organisation</th>
-                <th>Kind</th>
-                <th>Region</th>
-                <th>Users</th>
-                <th>Approval</th>
-                <th>Account manager</th>
-              </tr>
-            </thead>
-            <tbody>
-              {loaderData.organisations.map((o) => (
-                <tr key={o.id} className="border-t border-ink-100">
-                  <td className="py-2 font-semibold">{o.name}</td>
-                  <td>{KIND_LABELS[o.kind]}</td>
-                  <td>{o.region ?? "—"}</td>
-                  <td>{o.memberCount}</td>
-                  <td>
-                    {o.approval ? (
-                      <div className="flex flex-col items-start gap-1 py-1">
-                        <Badge tone={APPROVAL_TONES[o.approval]}>{APPROVAL_LABELS[o.approval]}</Badge>
-                        {o.approval === "refused" ? (
-                          <>
-                            {o.approvalReason ? <span className="max-w-xs text-xs break-words text-ink-600">{o.approvalReason}</span> : null}
-                            <ApproveButton organisationId={o.id} name={o.name} />
-                          </>
-                        ) : null}
-                      </div>
-                    ) : (
-                      <span className="text-ink-400">—</span>
-                    )}
-                  </td>
-                  <td>
-                    {o.kind === "buyer" ? (
-                      <Form method="post" className="flex items-center gap-1">
-                        <input type="hidden" name="organisationId" value={o.id} />
-                        <label htmlFor={`manager-${o.id}`} className="sr-only">
-                          Account manager of {o.name}
-                        </label>
-                        <select id={`manager-${o.id}`} name="managerId" defaultValue={o.accountManagerId} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
-                          <option value="">Nobody yet</option>
-                          {loaderData.managers.map((m) => (
-                            <option key={m.id} value={m.id}>
-                              {m.name}
-                            </option>
-                          ))}
-                        </select>
-                        <Button type="submit" tone="secondary" className="px-2 py-1">
-                          Save
-                        </Button>
-                      </Form>
-                    ) : (
-                      <span className="text-ink-400">—</span>
-                    )}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </TableScroll>
+        <SortChoice options={LIST_SORTS.organisations} current={loaderData.sort} search={searchParams} />
+        <ListTable label="Organisations" columns={["Organisation", "Kind", "Region", "Users", "Approval", "Account manager"]}>
+          {loaderData.organisations.map((o) => (
+            <tr key={o.id} className="border-t border-ink-100">
+              <td className="py-2 pr-3 font-semibold">
+                <OrganisationName id={o.id} name={o.name} linked={o.linked} />
+              </td>
+              <td>{KIND_LABELS[o.kind]}</td>
+              <td>{o.region ?? "—"}</td>
+              <td>{o.memberCount}</td>
+              <td>
+                {o.approval ? (
+                  <div className="flex flex-col items-start gap-1 py-1">
+                    <Badge tone={APPROVAL_TONES[o.approval]}>{APPROVAL_LABELS[o.approval]}</Badge>
+                    {o.approval === "refused" ? (
+                      <>
+                        {o.approvalReason ? <span className="max-w-xs text-xs break-words text-ink-600">{o.approvalReason}</span> : null}
+                        <ApproveButton organisationId={o.id} name={o.name} />
+                      </>
+                    ) : null}
+                  </div>
+                ) : (
+                  <span className="text-ink-400">—</span>
+                )}
+              </td>
+              <td>
+                {o.kind === "buyer" ? (
+                  <Form method="post" className="flex items-center gap-1">
+                    <input type="hidden" name="organisationId" value={o.id} />
+                    <label htmlFor={`manager-${o.id}`} className="sr-only">
+                      Account manager of {o.name}
+                    </label>
+                    <select id={`manager-${o.id}`} name="managerId" defaultValue={o.accountManagerId} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
+                      <option value="">Nobody yet</option>
+                      {loaderData.managers.map((m) => (
+                        <option key={m.id} value={m.id}>
+                          {m.name}
+                        </option>
+                      ))}
+                    </select>
+                    <Button type="submit" tone="secondary" className="px-2 py-1">
+                      Save
+                    </Button>
+                  </Form>
+                ) : (
+                  <span className="text-ink-400">—</span>
+                )}
+              </td>
+            </tr>
+          ))}
+        </ListTable>
         {loaderData.organisations.length === 0 ? <p className="py-6 text-center text-ink-600">No organisation matches that search.</p> : null}
         <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>

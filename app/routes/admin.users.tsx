@@ -5,11 +5,15 @@ import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS, type Role, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Badge, Button, Card, Notice, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
+import { ActiveBadge, Button, Card, ErrorNotice, ListTable, PageHeader, Pager, SearchBar, SortChoice } from "~/components/ui";
 import { FieldErrors as FieldErrorText } from "~/components/form-field";
-import { listQuerySchema, userActionSchema } from "~/schemas/admin";
+import { OrganisationName } from "~/components/organisation-link";
+import { countOf } from "~/content/count";
+import { userActionSchema, userListQuerySchema } from "~/schemas/admin";
+import { LIST_SORTS } from "~/schemas/list-sort";
 import { confirmOwnPassword } from "~/services/accounts.server";
 import { changeRole, listUsers, roleChangeTarget, setActive } from "~/services/admin.server";
+import { openableOrganisations } from "~/services/organisation-page.server";
 import { fieldErrorsOf } from "~/services/errors.server";
 import { Throttled, clientOf } from "~/services/throttle.server";
 
@@ -25,10 +29,15 @@ export const meta: Route.MetaFunction = () => [{ title: "Users · Tenderflow" }]
 
 export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, PAGE_ROLES.administration);
-  const query = listQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
+  const query = userListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const { users, total, page, pageCount } = await listUsers(admin, query);
+  const openable = await openableOrganisations(
+    admin,
+    users.map((u) => u.organisationId),
+  );
   return {
     adminId: admin.id,
+    sort: query.sort,
     total,
     page,
     pageCount,
@@ -38,7 +47,9 @@ export async function loader({ request }: Route.LoaderArgs) {
       email: u.email,
       role: u.role,
       active: u.active,
+      organisationId: u.organisationId,
       organisationName: u.organisation!.name,
+      organisationLinked: openable.includes(u.organisationId),
       allowedRoles: ROLES_BY_KIND[u.organisation!.kind],
       lastSignInAt: u.lastSignInAt?.toISOString() ?? null,
     })),
@@ -88,84 +99,71 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
   const [searchParams] = useSearchParams();
   return (
     <>
-      <PageHeader title="Users" lead={`${loaderData.total} user${loaderData.total === 1 ? "" : "s"} across all organisations.`} />
-      {actionData?.error ? (
-        <div className="mb-4">
-          <Notice tone="bad">{actionData.error}</Notice>
-        </div>
-      ) : null}
+      <PageHeader title="Users" lead={`${countOf(loaderData.total, "user")} across all organisations.`} />
+      <ErrorNotice error={actionData?.error} />
       {actionData?.confirm ? <ConfirmRoleChange confirm={actionData.confirm} /> : null}
       <Card>
         <SearchBar label="Search users" placeholder="Name, e-mail or organisation" value={searchParams.get("q") ?? ""} />
-        <TableScroll label="Users">
-          <table className="w-full min-w-[40rem] text-left text-sm">
-            <thead className="text-ink-600">
-              <tr>
-                <th className="py-2">Name</th>
-                <th>Organisation</th>
-                <th>Role</th>
-                <th>Status</th>
-                <th>Last signed in</th>
-                <th />
-              </tr>
-            </thead>
-            <tbody>
-              {loaderData.users.map((u) => (
-                <tr key={u.id} className="border-t border-ink-100 align-middle">
-                  <td className="py-2">
-                    <span className="block font-semibold">{u.name}</span>
-                    <span className="block text-xs text-ink-600">{u.email}</span>
-                  </td>
-                  <td>{u.organisationName}</td>
-                  <td>
-                    {u.allowedRoles.length > 1 && u.id !== loaderData.adminId ? (
-                      <Form method="post" className="flex items-center gap-1">
-                        <input type="hidden" name="intent" value="change-role" />
-                        <input type="hidden" name="userId" value={u.id} />
-                        <label className="sr-only" htmlFor={`role-${u.id}`}>
-                          Role of {u.name}
-                        </label>
-                        <select id={`role-${u.id}`} name="role" defaultValue={u.role} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
-                          {u.allowedRoles.map((r) => (
-                            <option key={r} value={r}>
-                              {ROLE_LABELS[r]}
-                            </option>
-                          ))}
-                        </select>
-                        <Button type="submit" tone="secondary" className="px-2 py-1">
-                          Save
-                        </Button>
-                      </Form>
-                    ) : (
-                      ROLE_LABELS[u.role]
-                    )}
-                  </td>
-                  <td>{u.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
-                  <td>{u.lastSignInAt ? formatDay(u.lastSignInAt) : "Never"}</td>
-                  <td className="text-right">
-                    {u.id !== loaderData.adminId ? (
-                      <Form
-                        method="post"
-                        onSubmit={(event) => {
-                          // Deactivating signs the person out at once; ask before doing it.
-                          if (u.active && !window.confirm(`Deactivate ${u.name}? They are signed out at once and can't sign in until reactivated.`))
-                            event.preventDefault();
-                        }}
-                      >
-                        <input type="hidden" name="intent" value="set-active" />
-                        <input type="hidden" name="userId" value={u.id} />
-                        <input type="hidden" name="active" value={u.active ? "false" : "true"} />
-                        <Button type="submit" tone={u.active ? "danger" : "secondary"} className="px-3 py-1">
-                          {u.active ? "Deactivate" : "Reactivate"}
-                        </Button>
-                      </Form>
-                    ) : null}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </TableScroll>
+        <SortChoice options={LIST_SORTS.users} current={loaderData.sort} search={searchParams} />
+        <ListTable label="Users" columns={["Name", "Organisation", "Role", "Status", "Last signed in", { label: "", srLabel: "Action" }]}>
+          {loaderData.users.map((u) => (
+            <tr key={u.id} className="border-t border-ink-100 align-middle">
+              <td className="py-2">
+                <span className="block font-semibold">{u.name}</span>
+                <span className="block text-xs text-ink-600">{u.email}</span>
+              </td>
+              <td>
+                <OrganisationName id={u.organisationId} name={u.organisationName} linked={u.organisationLinked} />
+              </td>
+              <td>
+                {u.allowedRoles.length > 1 && u.id !== loaderData.adminId ? (
+                  <Form method="post" className="flex items-center gap-1">
+                    <input type="hidden" name="intent" value="change-role" />
+                    <input type="hidden" name="userId" value={u.id} />
+                    <label className="sr-only" htmlFor={`role-${u.id}`}>
+                      Role of {u.name}
+                    </label>
+                    <select id={`role-${u.id}`} name="role" defaultValue={u.role} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
+                      {u.allowedRoles.map((r) => (
+                        <option key={r} value={r}>
+                          {ROLE_LABELS[r]}
+                        </option>
+                      ))}
+                    </select>
+                    <Button type="submit" tone="secondary" className="px-2 py-1">
+                      Save
+                    </Button>
+                  </Form>
+                ) : (
+                  ROLE_LABELS[u.role]
+                )}
+              </td>
+              <td>
+                <ActiveBadge active={u.active} />
+              </td>
+              <td>{u.lastSignInAt ? formatDay(u.lastSignInAt) : "Never"}</td>
+              <td className="text-right">
+                {u.id !== loaderData.adminId ? (
+                  <Form
+                    method="post"
+                    onSubmit={(event) => {
+                      // Deactivating signs the person out at once; ask before doing it.
+                      if (u.active && !window.confirm(`Deactivate ${u.name}? They are signed out at once and can't sign in until reactivated.`))
+                        event.preventDefault();
+                    }}
+                  >
+                    <input type="hidden" name="intent" value="set-active" />
+                    <input type="hidden" name="userId" value={u.id} />
+                    <input type="hidden" name="active" value={u.active ? "false" : "true"} />
+                    <Button type="submit" tone={u.active ? "danger" : "secondary"} className="px-3 py-1">
+                      {u.active ? "Deactivate" : "Reactivate"}
+                    </Button>
+                  </Form>
+                ) : null}
+              </td>
+            </tr>
+          ))}
+        </ListTable>
         {loaderData.users.length === 0 ? <p className="py-6 text-center text-ink-600">No user matches that search.</p> : null}
         <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>

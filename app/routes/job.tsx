@@ -175,8 +175,7 @@ function Facts({ job }: { job: Job }) {
 
 function Timeline({ job }: { job: Job }) {
   return (
-    <Card>
-      <h2 className="mb-4 font-semibold">Milestones</h2>
+    <Card title="Milestones">
       <ol className="space-y-4">
         {job.milestones.map((m) => (
           <li key={m.key} className="flex gap-3">
@@ -235,8 +234,7 @@ function describe(e: JobEventView, job: Job) {
 
 function History({ job }: { job: Job }) {
   return (
-    <Card>
-      <h2 className="mb-2 font-semibold">History</h2>
+    <Card title="History">
       <ol className="divide-y divide-ink-100">
         {job.events.map((e) => (
           <li key={e.id} className="py-3 text-sm">

@@ -4,12 +4,15 @@ import { RetainerBadge } from "~/components/retainer-badge";
 import { requireUser } from "~/auth/permissions.server";
 import type { Role } from "~/auth/roles";
 import { JobsByStageChart } from "~/components/jobs-by-stage-chart";
-import { Badge, Card, EmptyState, PageHeader, Pager, SearchBar, TableScroll } from "~/components/ui";
+import { Badge, Card, EmptyState, ListTable, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { OrganisationName } from "~/components/organisation-link";
+import { countOf } from "~/content/count";
 import { formatMoney } from "~/content/money";
 import { formatDay } from "~/content/dates";
 import { JOB_STAGES, JOB_STAGE_LABELS } from "~/content/job-milestones";
 import { jobListQuerySchema } from "~/schemas/jobs";
 import { listJobs } from "~/services/job-reads.server";
+import { openableOrganisations } from "~/services/organisation-page.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data ? HEADINGS[data.role].title : "Jobs"} · Tenderflow` }];
 
@@ -40,7 +43,16 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const query = jobListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const list = await listJobs(user, query);
-  return { role: user.role, filtered: Boolean(query.q || query.stage || query.retainer || query.overdue || query.account), ...list };
+  const openable = await openableOrganisations(
+    user,
+    list.jobs.flatMap((j) => [j.buyerId, j.shopId]),
+  );
+  return {
+    role: user.role,
+    filtered: Boolean(query.q || query.stage || query.retainer || query.overdue || query.account || query.shop),
+    ...list,
+    openable,
+  };
 }
 
 const selectClass = "rounded-md px-2 py-2 text-sm ring-1 ring-ink-200";
@@ -98,77 +110,64 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                   </select>
                 </>
               ) : null}
+              {params.get("shop") ? <input type="hidden" name="shop" value={params.get("shop") ?? ""} /> : null}
               <label className="flex items-center gap-2 px-2 text-sm">
                 <input type="checkbox" name="overdue" value="1" defaultChecked={params.has("overdue")} />
                 Overdue only
               </label>
             </SearchBar>
-            <p className="mb-2 text-sm text-ink-600">
-              {d.total} job{d.total === 1 ? "" : "s"}. Overdue jobs come first, then the most recently awarded.
-            </p>
-            <TableScroll label="Jobs">
-              <table className="w-full min-w-[40rem] text-left text-sm">
-                <thead className="text-ink-600">
-                  <tr>
-                    <th scope="col" className="py-2">
-                      Spec
-                    </th>
-                    <th scope="col">Buyer</th>
-                    <th scope="col">Shop</th>
-                    <th scope="col">Stage</th>
-                    <th scope="col" className="pl-3 text-right">
-                      Total
-                    </th>
-                    <th scope="col" className="pl-3 text-right">
-                      Retainer
-                    </th>
-                    <th scope="col" className="pl-3 text-right">
-                      Days since award
-                    </th>
-                    <th scope="col" className="pl-4">
-                      Next milestone
-                    </th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {d.jobs.map((j) => (
-                    <tr key={j.id} className={`border-t border-ink-100 align-top ${j.overdue ? "bg-alarm-50/50" : ""}`}>
-                      <td className="py-2 pr-2">
-                        <Link to={`/jobs/${j.id}`} className="font-semibold text-flow-700 hover:underline">
-                          {j.specTitle || "Untitled spec"}
-                        </Link>
-                      </td>
-                      <td className="pr-2">{j.buyerName}</td>
-                      <td className="pr-2">{j.shopName}</td>
-                      <td className="pr-2">{JOB_STAGE_LABELS[j.stage]}</td>
-                      <td className="pl-3 text-right tabular-nums">{formatMoney(j.totalCents, j.currency)}</td>
-                      <td className="whitespace-nowrap pl-3 text-right tabular-nums">
-                        <span className="block">{formatMoney(j.retainerCents, j.currency)}</span>
-                        <RetainerBadge paidAt={j.retainerPaidAt} refundedCents={j.retainerRefundedCents} retainerCents={j.retainerCents} />
-                      </td>
-                      <td className="pl-3 text-right tabular-nums">{j.daysSinceAward}</td>
-                      <td className="pl-4">
-                        {j.next ? (
-                          <>
-                            <span className="block">{j.next.label}</span>
-                            <span className="block text-xs text-ink-600">
-                              {j.next.targetDate ? `target ${formatDay(j.next.targetDate)}` : "no target date"}
-                            </span>
-                          </>
-                        ) : (
-                          <span className="text-ink-600">All reached</span>
-                        )}
-                        {j.overdue ? (
-                          <span className="mt-1 block">
-                            <Badge tone="bad">Overdue</Badge>
-                          </span>
-                        ) : null}
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </TableScroll>
+            <p className="mb-2 text-sm text-ink-600">{countOf(d.total, "job")}. Overdue jobs come first, then the most recently awarded.</p>
+            <ListTable
+              label="Jobs"
+              columns={[
+                "Spec",
+                "Buyer",
+                "Shop",
+                "Stage",
+                { label: "Total", className: "pl-3 text-right" },
+                { label: "Retainer", className: "pl-3 text-right" },
+                { label: "Days since award", className: "pl-3 text-right" },
+                { label: "Next milestone", className: "pl-4" },
+              ]}
+            >
+              {d.jobs.map((j) => (
+                <tr key={j.id} className={`border-t border-ink-100 align-top ${j.overdue ? "bg-alarm-50/50" : ""}`}>
+                  <td className="py-2 pr-2">
+                    <Link to={`/jobs/${j.id}`} className="font-semibold text-flow-700 hover:underline">
+                      {j.specTitle || "Untitled spec"}
+                    </Link>
+                  </td>
+                  <td className="pr-2">
+                    <OrganisationName id={j.buyerId} name={j.buyerName} linked={d.openable.includes(j.buyerId)} />
+                  </td>
+                  <td className="pr-2">
+                    <OrganisationName id={j.shopId} name={j.shopName} linked={d.openable.includes(j.shopId)} />
+                  </td>
+                  <td className="pr-2">{JOB_STAGE_LABELS[j.stage]}</td>
+                  <td className="pl-3 text-right tabular-nums">{formatMoney(j.totalCents, j.currency)}</td>
+                  <td className="whitespace-nowrap pl-3 text-right tabular-nums">
+                    <span className="block">{formatMoney(j.retainerCents, j.currency)}</span>
+                    <RetainerBadge paidAt={j.retainerPaidAt} refundedCents={j.retainerRefundedCents} retainerCents={j.retainerCents} />
+                  </td>
+                  <td className="pl-3 text-right tabular-nums">{j.daysSinceAward}</td>
+                  <td className="pl-4">
+                    {j.next ? (
+                      <>
+                        <span className="block">{j.next.label}</span>
+                        <span className="block text-xs text-ink-600">{j.next.targetDate ? `target ${formatDay(j.next.targetDate)}` : "no target date"}</span>
+                      </>
+                    ) : (
+                      <span className="text-ink-600">All reached</span>
+                    )}
+                    {j.overdue ? (
+                      <span className="mt-1 block">
+                        <Badge tone="bad">Overdue</Badge>
+                      </span>
+                    ) : null}
+                  </td>
+                </tr>
+              ))}
+            </ListTable>
             {d.jobs.length === 0 ? <p className="py-6 text-center text-ink-600">No job matches these filters.</p> : null}
             <Pager page={d.page} pageCount={d.pageCount} search={params} />
           </Card>

@@ -2,12 +2,14 @@ import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/payments";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
-import { Badge, Button, Card, EmptyState, PageHeader, Pager, TableScroll } from "~/components/ui";
+import { Badge, Button, Card, EmptyState, ListTable, PageHeader, Pager } from "~/components/ui";
+import { OrganisationName } from "~/components/organisation-link";
 import { formatMoney } from "~/content/money";
 import { formatMoment } from "~/content/dates";
 import { PAYMENT_STATUSES, PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
 import { paymentListSchema } from "~/schemas/payments";
 import { listPayments } from "~/services/payments.server";
+import { openableOrganisations } from "~/services/organisation-page.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Payments · Tenderflow" }];
 
@@ -15,6 +17,10 @@ export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireRole(request, PAGE_ROLES.payments);
   const query = paymentListSchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const { payments, total, page, pageCount } = await listPayments(user, query);
+  const openable = await openableOrganisations(
+    user,
+    payments.flatMap((p) => [p.buyerOrganisationId, p.job.shopOrganisationId]),
+  );
   return {
     role: user.role,
     total,
@@ -25,8 +31,8 @@ export async function loader({ request }: Route.LoaderArgs) {
       jobId: p.jobId,
       specId: p.job.spec.id,
       specTitle: p.job.spec.title,
-      buyer: p.buyerOrganisation.name,
-      shop: p.job.shopOrganisation.name,
+      buyer: { id: p.buyerOrganisationId, name: p.buyerOrganisation.name, linked: openable.includes(p.buyerOrganisationId) },
+      shop: { id: p.job.shopOrganisationId, name: p.job.shopOrganisation.name, linked: openable.includes(p.job.shopOrganisationId) },
       status: p.status as PaymentStatus,
       amountCents: p.amountCents,
       refundedCents: p.refundedCents,
@@ -81,68 +87,54 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
             <p>A retainer is paid by card after a bid is awarded; each attempt is listed here with its status.</p>
           </EmptyState>
         ) : (
-          <TableScroll label="Payments">
-            <table className="w-full min-w-[40rem] text-left text-sm">
-              <thead className="text-ink-600">
-                <tr>
-                  <th scope="col" className="py-2 pr-3">
-                    Job
-                  </th>
-                  <th scope="col" className="pr-3">
-                    Buyer
-                  </th>
-                  <th scope="col" className="pr-3">
-                    Shop
-                  </th>
-                  <th scope="col" className="pr-3">
-                    Status
-                  </th>
-                  <th scope="col" className="pr-3 text-right">
-                    Amount
-                  </th>
-                  <th scope="col" className="pr-3 text-right">
-                    Paid back
-                  </th>
-                  <th scope="col" className="pr-3">
-                    Started
-                  </th>
-                  <th scope="col">Paid</th>
-                </tr>
-              </thead>
-              <tbody>
-                {d.payments.map((p) => (
-                  <tr key={p.id} className="border-t border-ink-100 align-top">
-                    <td className="py-2 pr-3">
-                      <Link to={`/jobs/${p.jobId}`} className="font-semibold text-flow-700 hover:underline">
-                        {p.specTitle}
-                      </Link>
-                      <Link to={`/specs/${p.specId}`} className="block text-xs text-ink-600 hover:underline">
-                        the spec
-                      </Link>
-                    </td>
-                    <td className="py-2 pr-3">{p.buyer}</td>
-                    <td className="py-2 pr-3">{p.shop}</td>
-                    <td className="py-2 pr-3">
-                      <span className="flex flex-wrap gap-1">
-                        <Badge tone={PAYMENT_STATUS_TONES[p.status]}>{PAYMENT_STATUS_LABELS[p.status]}</Badge>
-                        {p.duplicate ? <Badge tone="warn">Second charge</Badge> : null}
-                        {p.flag ? <Badge tone="bad">Needs a check</Badge> : null}
-                      </span>
-                      {p.flag ? (
-                        <p className="mt-1 max-w-xs whitespace-pre-line text-xs text-alarm-600" data-testid="payment-flag">
-                          {p.flag}
-                        </p>
-                      ) : null}
-                    </td>
-                    <td className="py-2 pr-3 text-right tabular-nums">{formatMoney(p.amountCents, p.currency)}</td>
-                    <td className="py-2 pr-3 text-right tabular-nums">{p.refundedCents ? formatMoney(p.refundedCents, p.currency) : "—"}</td>
-                    <td className="py-2 pr-3">{formatMoment(p.createdAt)}</td>
-                    <td className="py-2">{p.paidAt ? formatMoment(p.paidAt) : "—"}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </TableScroll>
+          <ListTable
+            label="Payments"
+            columns={[
+              "Job",
+              "Buyer",
+              "Shop",
+              "Status",
+              { label: "Amount", className: "text-right" },
+              { label: "Paid back", className: "text-right" },
+              "Started",
+              "Paid",
+            ]}
+          >
+            {d.payments.map((p) => (
+              <tr key={p.id} className="border-t border-ink-100 align-top">
+                <td className="py-2 pr-3">
+                  <Link to={`/jobs/${p.jobId}`} className="font-semibold text-flow-700 hover:underline">
+                    {p.specTitle}
+                  </Link>
+                  <Link to={`/specs/${p.specId}`} className="block text-xs text-ink-600 hover:underline">
+                    the spec
+                  </Link>
+                </td>
+                <td className="py-2 pr-3">
+                  <OrganisationName {...p.buyer} />
+                </td>
+                <td className="py-2 pr-3">
+                  <OrganisationName {...p.shop} />
+                </td>
+                <td className="py-2 pr-3">
+                  <span className="flex flex-wrap gap-1">
+                    <Badge tone={PAYMENT_STATUS_TONES[p.status]}>{PAYMENT_STATUS_LABELS[p.status]}</Badge>
+                    {p.duplicate ? <Badge tone="warn">Second charge</Badge> : null}
+                    {p.flag ? <Badge tone="bad">Needs a check</Badge> : null}
+                  </span>
+                  {p.flag ? (
+                    <p className="mt-1 max-w-xs whitespace-pre-line text-xs text-alarm-600" data-testid="payment-flag">
+                      {p.flag}
+                    </p>
+                  ) : null}
+                </td>
+                <td className="py-2 pr-3 text-right tabular-nums">{formatMoney(p.amountCents, p.currency)}</td>
+                <td className="py-2 pr-3 text-right tabular-nums">{p.refundedCents ? formatMoney(p.refundedCents, p.currency) : "—"}</td>
+                <td className="py-2 pr-3">{formatMoment(p.createdAt)}</td>
+                <td className="py-2">{p.paidAt ? formatMoment(p.paidAt) : "—"}</td>
+              </tr>
+            ))}
+          </ListTable>
         )}
         <Pager page={d.page} pageCount={d.pageCount} search={params} />
       </Card>

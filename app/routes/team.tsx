@@ -7,7 +7,7 @@ import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS, TEAM_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
 import { FormErrors, SelectField, TextField } from "~/components/form-field";
-import { Badge, Button, Card, PageHeader, TableScroll } from "~/components/ui";
+import { ActiveBadge, Button, Card, ListTable, PageHeader } from "~/components/ui";
 import { inviteSchema } from "~/schemas/account";
 import { inviteColleague, teamOf } from "~/services/accounts.server";
 import { fieldErrorReply } from "~/services/errors.server";
@@ -56,32 +56,21 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
     <>
       <PageHeader title="Team" lead={`People of ${loaderData.organisationName} who use Tenderflow.`} />
       <div className="grid gap-6 lg:grid-cols-3">
-        <Card className="lg:col-span-2">
-          <h2 className="mb-3 font-semibold">Members</h2>
-          <TableScroll label="Members">
-            <table className="w-full min-w-[30rem] text-left text-sm">
-              <thead className="text-ink-600">
-                <tr>
-                  <th className="py-2">Name</th>
-                  <th>E-mail</th>
-                  <th>Role</th>
-                  <th>Status</th>
-                </tr>
-              </thead>
-              <tbody>
-                {loaderData.members.map((m) => (
-                  <tr key={m.id} className="border-t border-ink-100">
-                    <td className="py-2 font-semibold">
-                      {m.name} {m.isYou ? <span className="font-normal text-ink-400">(you)</span> : null}
-                    </td>
-                    <td>{m.email}</td>
-                    <td>{ROLE_LABELS[m.role]}</td>
-                    <td>{m.active ? <Badge tone="good">Active</Badge> : <Badge tone="bad">Deactivated</Badge>}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </TableScroll>
+        <Card className="lg:col-span-2" title="Members">
+          <ListTable label="Members" minWidth="min-w-[30rem]" columns={["Name", "E-mail", "Role", "Status"]}>
+            {loaderData.members.map((m) => (
+              <tr key={m.id} className="border-t border-ink-100">
+                <td className="py-2 font-semibold">
+                  {m.name} {m.isYou ? <span className="font-normal text-ink-400">(you)</span> : null}
+                </td>
+                <td>{m.email}</td>
+                <td>{ROLE_LABELS[m.role]}</td>
+                <td>
+                  <ActiveBadge active={m.active} />
+                </td>
+              </tr>
+            ))}
+          </ListTable>
           {loaderData.invitations.length ? (
             <>
               <h2 className="mb-3 mt-8 font-semibold">Invitations waiting for an answer</h2>

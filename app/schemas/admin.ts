@@ -1,14 +1,23 @@
 import { z } from "zod";
 import { ORGANISATION_KINDS, ROLES } from "~/auth/roles";
 import { APPROVALS } from "~/content/shop-approval";
+import { sortParam } from "./list-sort";
 
-/** Search and paging parameters of the admin tables; bad values fall back instead of failing. */
-export const listQuerySchema = z.object({
+/** Search, sort and paging parameters of the admin tables; bad values fall back instead of failing. */
+const listQuerySchema = z.object({
   q: z.string().trim().max(100).optional().catch(undefined),
   page: z.coerce.number().int().min(1).max(100_000).optional().catch(undefined),
+});
+
+export const userListQuerySchema = listQuerySchema.extend({ sort: sortParam("users") });
+
+export const organisationListQuerySchema = listQuerySchema.extend({
+  sort: sortParam("organisations"),
   kind: z.enum(ORGANISATION_KINDS).optional().catch(undefined),
   approval: z.enum(APPROVALS).optional().catch(undefined),
 });
+
+export const accountListQuerySchema = z.object({ sort: sortParam("accounts") });
 
 export const userActionSchema = z.discriminatedUnion("intent", [
   // The admin's own password is asked for on a second step (`confirm` set), see admin.users.tsx.

@@ -18,6 +18,8 @@ export const jobListQuerySchema = z.object({
     .optional()
     .catch(undefined),
   account: z.uuid().optional().catch(undefined),
+  /** One shop's jobs (from the organisation page's link). */
+  shop: z.uuid().optional().catch(undefined),
   page: z.coerce.number().int().min(1).max(100_000).optional().catch(undefined),
 });
 export type JobListQuery = z.infer<typeof jobListQuerySchema>;

@@ -1,29 +1,52 @@
-import { Op, type WhereOptions } from "sequelize";
+import { Op, type Order, type WhereOptions } from "sequelize";
 import { ROLES_BY_KIND, type OrganisationKind, type Role } from "~/auth/roles";
 import type { Approval } from "~/content/shop-approval";
+import type { SortOf } from "~/schemas/list-sort";
 import { Organisation, User, UserSession, sequelize } from "~/models/index.server";
 import { FieldErrors, notFound } from "./errors.server";
+import { caseless, likePattern, pageCountOf, pageOf } from "./list-query.server";
 import { accountsWhere, authorize, viewerOf } from "~/auth/access-policy.server";
 
 const PAGE_SIZE = 20;
 
-export interface ListQuery {
+export interface ListQuery<S> {
   q?: string;
   page?: number;
+  /** Newest first when not given. */
+  sort?: S;
 }
 
-function pageOf(query: ListQuery) {
-  const page = Math.max(1, Math.floor(query.page ?? 1) || 1);
-  return { page, offset: (page - 1) * PAGE_SIZE, limit: PAGE_SIZE };
-}
+// Each order ends on the id, so a page boundary never shows a row twice or skips one.
+const USER_ORDERS: Record<SortOf<"users">, Order> = {
+  newest: [
+    ["createdAt", "DESC"],
+    ["id", "ASC"],
+  ],
+  name: [
+    [caseless("User.name"), "ASC"],
+    ["id", "ASC"],
+  ],
+  "last-sign-in": [
+    ["lastSignInAt", "DESC NULLS LAST"],
+    ["id", "ASC"],
+  ],
+};
 
-// ILIKE wildcards typed by a person are matched literally.
-const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+const ORGANISATION_ORDERS: Record<SortOf<"organisations" | "accounts">, Order> = {
+  newest: [
+    ["createdAt", "DESC"],
+    ["id", "ASC"],
+  ],
+  name: [
+    [caseless("Organisation.name"), "ASC"],
+    ["id", "ASC"],
+  ],
+};
 
-/** Users with their organisations, searched by name, e-mail or organisation, newest first. */
-export async function listUsers(admin: User, query: ListQuery) {
+/** Users with their organisations, searched by name, e-mail or organisation, in the order asked. */
+export async function listUsers(admin: User, query: ListQuery<SortOf<"users">>) {
   await mayAdminister(admin);
-  const { page, offset, limit } = pageOf(query);
+  const { page, offset, limit } = pageOf(query.page, PAGE_SIZE);
   const q = query.q?.trim();
   const where: WhereOptions = q
     ? {
@@ -37,19 +60,23 @@ export async function listUsers(admin: User, query: ListQuery) {
   const { rows, count } = await User.findAndCountAll({
     where,
     include: [{ model: Organisation, as: "organisation", required: true }],
-    order: [
-      ["createdAt", "DESC"],
-      ["id", "ASC"],
-    ],
+    order: USER_ORDERS[query.sort ?? "newest"],
     offset,
     limit,
   });
-  return { users: rows, total: count, page, pageCount: Math.max(1, Math.ceil(count / PAGE_SIZE)) };
+  return { users: rows, total: count, page, pageCount: pageCountOf(count, PAGE_SIZE) };
 }
 
-export async function listOrganisations(admin: User, query: ListQuery & { kind?: OrganisationKind; approval?: Approval }) {
+/** How many people each organisation has, by id. */
+async function memberCounts(organisations: Organisation[]) {
+  const counts = await User.count({ where: { organisationId: organisations.map((o) => o.id) }, group: ["organisationId"] });
+  const members = new Map(counts.map((c) => [c.organisationId as string, Number(c.count)]));
+  return organisations.map((organisation) => ({ organisation, memberCount: members.get(organisation.id) ?? 0 }));
+}
+
+export async function listOrganisations(admin: User, query: ListQuery<SortOf<"organisations">> & { kind?: OrganisationKind; approval?: Approval }) {
   await mayAdminister(admin);
-  const { page, offset, limit } = pageOf(query);
+  const { page, offset, limit } = pageOf(query.page, PAGE_SIZE);
   const q = query.q?.trim();
   const where: WhereOptions = {
     ...(q ? { name: { [Op.iLike]: likePattern(q) } } : {}),
@@ -60,24 +87,11 @@ export async function listOrganisations(admin: User, query: ListQuery & { kind?:
   const { rows, count } = await Organisation.findAndCountAll({
     where,
     include: [{ model: User, as: "accountManager", required: false }],
-    order: [
-      ["name", "ASC"],
-      ["id", "ASC"],
-    ],
+    order: ORGANISATION_ORDERS[query.sort ?? "newest"],
     offset,
     limit,
   });
-  const memberCounts = await User.count({
-    where: { organisationId: rows.map((o) => o.id) },
-    group: ["organisationId"],
-  });
-  const members = new Map(memberCounts.map((c) => [c.organisationId as string, Number(c.count)]));
-  return {
-    organisations: rows.map((o) => ({ organisation: o, memberCount: members.get(o.id) ?? 0 })),
-    total: count,
-    page,
-    pageCount: Math.max(1, Math.ceil(count / PAGE_SIZE)),
-  };
+  return { organisations: await memberCounts(rows), total: count, page, pageCount: pageCountOf(count, PAGE_SIZE) };
 }
 
 /** Changes to people and organisations are the admins' (the access policy's platform.administer). */
@@ -137,24 +151,12 @@ export async function assignAccountManager(admin: User, organisationId: string, 
   await organisation.update({ accountManagerId: managerId });
 }
 
-/** The buyer accounts a viewer follows (the access policy's accountsWhere). */
-export async function accountsOf(viewer: User) {
+/** The buyer accounts a viewer follows (the access policy's accountsWhere), in the order asked. */
+export async function accountsOf(viewer: User, sort: SortOf<"accounts"> = "name") {
   const organisations = await Organisation.findAll({
     where: accountsWhere(await viewerOf(viewer)),
     include: [{ model: User, as: "accountManager", required: false }],
-    order: [["name", "ASC"]],
+    order: ORGANISATION_ORDERS[sort],
   });
-  const counts = await User.count({ where: { organisationId: organisations.map((o) => o.id) }, group: ["organisationId"] });
-  const members = new Map(counts.map((c) => [c.organisationId as string, Number(c.count)]));
-  return organisations.map((organisation) => ({ organisation, memberCount: members.get(organisation.id) ?? 0 }));
-}
-
-/** One account of the viewer's; an account they do not follow is "not found". */
-export async function accountOf(viewer: User, organisationId: string) {
-  const organisation = await Organisation.findOne({
-    where: { [Op.and]: [accountsWhere(await viewerOf(viewer)), { id: organisationId }] },
-    include: [{ model: User, as: "users" }],
-  });
-  if (!organisation) notFound("No such account.");
-  return organisation;
+  return memberCounts(organisations);
 }

@@ -6,6 +6,7 @@ import { JOB_STAGES, MILESTONES, MILESTONE_KEYS, MILESTONE_LABELS, PAYMENT_MILES
 import { daysBetween, isoDay, todayUtc } from "~/content/dates";
 import { can, findInScope, jobsWhere, viewerOf } from "~/auth/access-policy.server";
 import { isOverdue } from "./job-schedule";
+import { likePattern, pageCountOf, pageOf } from "./list-query.server";
 
 // Reading jobs: the list (filtered, sorted and paged in PostgreSQL) and one job's page, each
 // through the access policy's jobsWhere, with what the viewer may do.
@@ -70,9 +71,6 @@ function summarise(job: JobWithParties, milestones: JobMilestone[], today: strin
   };
 }
 
-// ILIKE wildcards typed by a person are matched literally.
-const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-
 /** SQL: the job has an unreached milestone whose target day is before `today`. */
 const overdueSql = (today: string) =>
   `EXISTS (SELECT 1 FROM job_milestones m WHERE m.job_id = "Job"."id" AND m.reached_at IS NULL AND m.target_date < ${sequelize.escape(today)})`;
@@ -86,6 +84,7 @@ function filtersOf(query: JobListQuery, today: string, withStage: boolean): Wher
   if (query.retainer === "refunded") where.push({ retainerRefundedCents: { [Op.gt]: 0 } });
   if (query.overdue) where.push(sequelize.literal(overdueSql(today)) as unknown as WhereOptions<Job>);
   if (query.account) where.push({ buyerOrganisationId: query.account });
+  if (query.shop) where.push({ shopOrganisationId: query.shop });
   const q = query.q?.trim();
   if (q) where.push({ "$spec.title$": { [Op.iLike]: likePattern(q) } } as WhereOptions<Job>);
   return where;
@@ -110,8 +109,7 @@ export interface JobList {
  */
 export async function listJobs(viewer: User, query: JobListQuery, options: { limit?: number; today?: string } = {}): Promise<JobList> {
   const today = options.today ?? todayUtc();
-  const limit = options.limit ?? JOBS_PAGE_SIZE;
-  const page = Math.max(1, Math.floor(query.page ?? 1) || 1);
+  const { page, offset, limit } = pageOf(query.page, options.limit ?? JOBS_PAGE_SIZE);
   // Who sees which jobs is the access policy's (jobsWhere).
   const scope = jobsWhere(await viewerOf(viewer));
   const { rows, count } = await Job.findAndCountAll({
@@ -122,7 +120,7 @@ export async function listJobs(viewer: User, query: JobListQuery, options: { lim
       ["awardedAt", "DESC"],
       ["id", "ASC"],
     ],
-    offset: (page - 1) * limit,
+    offset,
     limit,
     distinct: true,
   });
@@ -149,7 +147,7 @@ export async function listJobs(viewer: User, query: JobListQuery, options: { lim
     jobs: rows.map((job) => summarise(job as JobWithParties, byJob.get(job.id) ?? [], today)),
     total: count,
     page,
-    pageCount: Math.max(1, Math.ceil(count / limit)),
+    pageCount: pageCountOf(count, limit),
     byStage: JOB_STAGES.map((stage) => ({ stage, count: counted.get(stage) ?? 0 })),
     accounts: accounts.map((a) => ({ id: a.id, name: a.name })),
   };

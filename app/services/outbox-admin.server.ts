@@ -1,6 +1,8 @@
-import { Op, type WhereOptions } from "sequelize";
+import { Op, type Order, type WhereOptions } from "sequelize";
 import { OutboxMail } from "~/models/index.server";
+import type { SortOf } from "~/schemas/list-sort";
 import { FieldErrors, notFound, requireId } from "./errors.server";
+import { pageCountOf, pageOf } from "./list-query.server";
 import { authorize, viewerOf } from "~/auth/access-policy.server";
 import type { User } from "~/models/index.server";
 
@@ -20,6 +22,23 @@ function whereOf(view: MailView, now: Date): WhereOptions<OutboxMail> {
   return view === "failed" ? { status: "failed" } : { status: "pending", createdAt: { [Op.lt]: new Date(now.getTime() - WAITING_LONG_MINUTES * 60_000) } };
 }
 
+// Each order ends on the id, so a page boundary never shows a mail twice or skips one.
+const MAIL_ORDERS: Record<SortOf<"mail">, Order> = {
+  "last-tried": [
+    ["updatedAt", "DESC"],
+    ["id", "ASC"],
+  ],
+  "longest-waiting": [
+    ["createdAt", "ASC"],
+    ["id", "ASC"],
+  ],
+  recipient: [
+    ["to", "ASC"],
+    ["createdAt", "ASC"],
+    ["id", "ASC"],
+  ],
+};
+
 export interface StuckMail {
   id: string;
   to: string;
@@ -32,22 +51,24 @@ export interface StuckMail {
   nextAttemptAt: string | null;
 }
 
-/** One page of failed or long-waiting mail, the most recently tried first, with both counts. */
-export async function mailNeedingAttention(admin: User, view: MailView, requestedPage = 1, now = new Date()) {
+/** One page of failed or long-waiting mail in the order asked (the most recently tried first by default), with both counts. */
+export async function mailNeedingAttention(
+  admin: User,
+  view: MailView,
+  { page: requestedPage, sort = "last-tried" }: { page?: number; sort?: SortOf<"mail"> } = {},
+  now = new Date(),
+) {
   authorize(await viewerOf(admin), "platform.administer", null);
   const [failed, waiting] = await Promise.all([OutboxMail.count({ where: whereOf("failed", now) }), OutboxMail.count({ where: whereOf("waiting", now) })]);
   const total = view === "failed" ? failed : waiting;
-  const pageCount = Math.max(1, Math.ceil(total / MAIL_PAGE_SIZE));
-  const page = Math.min(Math.max(1, requestedPage), pageCount);
+  const pageCount = pageCountOf(total, MAIL_PAGE_SIZE);
+  const { page, offset, limit } = pageOf(Math.min(requestedPage ?? 1, pageCount), MAIL_PAGE_SIZE);
   const rows = await OutboxMail.findAll({
     where: whereOf(view, now),
     attributes: ["id", "to", "subject", "status", "attempts", "lastError", "createdAt", "updatedAt", "nextAttemptAt"],
-    order: [
-      ["updatedAt", "DESC"],
-      ["id", "ASC"],
-    ],
-    limit: MAIL_PAGE_SIZE,
-    offset: (page - 1) * MAIL_PAGE_SIZE,
+    order: MAIL_ORDERS[sort],
+    limit,
+    offset,
   });
   const mails: StuckMail[] = rows.map((m) => ({
     id: m.id,

@@ -6,6 +6,7 @@ import type { PaymentStatus } from "~/content/payment-status";
 import { env } from "~/env.server";
 import { FieldErrors, notFound } from "./errors.server";
 import { scopedJob } from "./job-reads.server";
+import { pageCountOf, pageOf } from "./list-query.server";
 import { authorize, can, findInScope, paymentsWhere, viewerOf } from "~/auth/access-policy.server";
 import { OPEN_PAYMENT_STATUSES } from "~/models/payment.server";
 import { retireCheckout, syncPayment } from "./payment-sync.server";
@@ -49,27 +50,24 @@ async function openPaymentOf(job: Job, user: User): Promise<Payment> {
     const locked = await Job.findByPk(job.id, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
     if (locked.retainerPaidAt) throw new FieldErrors({ "": ["The retainer is already paid."] });
     const open = await Payment.findOne({ where: { jobId: job.id, status: [...OPEN_PAYMENT_STATUSES] }, transaction });
-    return (
-      open ??
-      Payment.create(
-        {
-          jobId: job.id,
-          buyerOrganisationId: job.buyerOrganisationId,
-          createdById: user.id,
-          amountCents: job.retainerCents,
-          currency: job.currency,
-          checkoutSessionId: null,
-          checkoutUrl: null,
-          paymentIntentId: null,
-          customerId: null,
-          failureMessage: null,
-          paidAt: null,
-        },
-        { transaction },
-      )
-    );
+    return open ?? Payment.create(newAttempt(job, user.id), { transaction });
   });
 }
+
+/** A new payment attempt for the job's retainer, before any session exists. */
+export const newAttempt = (job: Pick<Job, "id" | "buyerOrganisationId" | "retainerCents" | "currency">, createdById: string) => ({
+  jobId: job.id,
+  buyerOrganisationId: job.buyerOrganisationId,
+  createdById,
+  amountCents: job.retainerCents,
+  currency: job.currency,
+  checkoutSessionId: null,
+  checkoutUrl: null,
+  paymentIntentId: null,
+  customerId: null,
+  failureMessage: null,
+  paidAt: null,
+});
 
 /** Whether an open session may be handed out again: same money, and time left to pay. */
 function stillUsable(session: Stripe.Checkout.Session, job: Job) {
@@ -222,7 +220,7 @@ export async function listPayments(viewer: User, query: { status?: PaymentStatus
       ...(query.flagged ? [{ flag: { [Op.ne]: null } }] : []),
     ],
   };
-  const page = Math.max(1, query.page ?? 1);
+  const { page, offset, limit } = pageOf(query.page, PAYMENTS_PAGE_SIZE);
   const { rows, count } = await Payment.findAndCountAll({
     where,
     include: [
@@ -232,23 +230,23 @@ export async function listPayments(viewer: User, query: { status?: PaymentStatus
         attributes: ["id", "specId", "shopOrganisationId"],
         include: [
           { model: Spec, as: "spec", attributes: ["id", "title"] },
-          { model: Organisation, as: "shopOrganisation", attributes: ["name"] },
+          { model: Organisation, as: "shopOrganisation", attributes: ["id", "name"] },
         ],
       },
-      { model: Organisation, as: "buyerOrganisation", attributes: ["name"] },
+      { model: Organisation, as: "buyerOrganisation", attributes: ["id", "name"] },
     ],
     order: [
       ["createdAt", "DESC"],
       ["id", "ASC"],
     ],
-    limit: PAYMENTS_PAGE_SIZE,
-    offset: (page - 1) * PAYMENTS_PAGE_SIZE,
+    limit,
+    offset,
   });
   return {
     payments: rows as (Payment & { job: Job & { spec: Spec; shopOrganisation: Organisation }; buyerOrganisation: Organisation })[],
     total: count,
     page,
-    pageCount: Math.max(1, Math.ceil(count / PAYMENTS_PAGE_SIZE)),
+    pageCount: pageCountOf(count, PAYMENTS_PAGE_SIZE),
   };
 }
 

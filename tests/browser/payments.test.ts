@@ -6,11 +6,10 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Job, JobEvent, OutboxMail, Payment, StripeEvent, type User } from "~/models/index.server";
-import { awardBid } from "~/services/award.server";
-import { bomOf, saveBid } from "~/services/bids.server";
 import { startStripeFake, type StripeFake } from "../../fakes/stripe";
-import { PASSWORD, inDays, makeMember, makePublishedSpec } from "../support/factories";
+import { PASSWORD, makeMember } from "../support/factories";
 import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { awardedJob } from "../support/awards";
 
 let app: BrowserApp;
 let fake: StripeFake;
@@ -23,15 +22,7 @@ beforeAll(async () => {
   process.env.STRIPE_API_URL = fake.url;
   buyer = await makeMember("buyer", { organisationName: "Saltmarsh Baling Machines" });
   const shop = await makeMember("shop", { organisationName: "Tollgate Hydraulics" });
-  const spec = await makePublishedSpec(buyer, { machine: { title: "Baler, compaction ram" } });
-  const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec.id, {
-    intent: "submit",
-    lines: bom.map((l) => ({ key: l.key, unitPrice: "250" })),
-    leadTimeWeeks: 9,
-    validUntil: inDays(40),
-  });
-  job = await awardBid(buyer, spec.id, { bidId: bid.id });
+  job = await awardedJob(buyer, shop, { unitPrice: "250", leadTimeWeeks: 9, title: "Baler, compaction ram" });
   app = await startBrowserApp();
   fake.setWebhookUrl(`${app.baseUrl}/webhooks/stripe`);
 }, 180_000);

@@ -11,6 +11,7 @@ import {
   can,
   findInScope,
   jobsWhere,
+  organisationsWhere,
   paymentsWhere,
   specsWhere,
   viewerOf,
@@ -23,7 +24,7 @@ import { saveBid, withdrawBid } from "~/services/bids.server";
 import { awardBid, canAwardNow } from "~/services/award.server";
 import { answerQuestion, askQuestion } from "~/services/questions.server";
 import { addManagerNote, addProgressNote, reachMilestones } from "~/services/job-progress.server";
-import { paymentOfSession, requestRefund, startRetainerPayment } from "~/services/payments.server";
+import { newAttempt, paymentOfSession, requestRefund, startRetainerPayment } from "~/services/payments.server";
 import { decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
 import { assignAccountManager, changeRole, listOrganisations, listUsers, setActive } from "~/services/admin.server";
 import { mailNeedingAttention, sendAgain } from "~/services/outbox-admin.server";
@@ -46,6 +47,11 @@ const LISTS = `
     jobs      job                   Y      .      Y     .      .        Y        .      Y
     payments  payment               Y      .      .     .      .        Y        .      Y
     accounts  buyer-account         .      .      .     .      .        Y        .      Y
+    orgs      buyer-account         .      .      .     .      .        Y        .      Y
+    orgs      job-shop              .      .      .     .      .        Y        .      Y
+    orgs      quiet-shop            .      .      .     .      .        .        .      Y
+    orgs      pending-shop          .      .      .     .      .        .        .      Y
+    orgs      operator              .      .      .     .      .        .        .      Y
 `;
 
 //  action                  record             buyer  other   shop  other  pending  manager  other  admin
@@ -121,19 +127,7 @@ beforeAll(async () => {
     validUntil: inDays(30),
     submittedAt: null,
   });
-  const payment = await Payment.create({
-    jobId: job.id,
-    buyerOrganisationId: job.buyerOrganisationId,
-    createdById: users.buyer.id,
-    amountCents: job.retainerCents,
-    currency: job.currency,
-    checkoutSessionId: null,
-    checkoutUrl: null,
-    paymentIntentId: null,
-    customerId: null,
-    failureMessage: null,
-    paidAt: null,
-  });
+  const payment = await Payment.create(newAttempt(job, users.buyer.id));
   Object.assign(records, {
     "published-spec": spec,
     "draft-spec": await createDraft(users.buyer),
@@ -143,6 +137,8 @@ beforeAll(async () => {
     payment,
     "buyer-account": await Organisation.findByPk(users.buyer.organisationId),
     "pending-shop": await Organisation.findByPk(users.pending.organisationId),
+    "job-shop": await Organisation.findByPk(users.shop.organisationId),
+    "quiet-shop": await Organisation.findByPk(users["other shop"].organisationId),
     operator: await Organisation.findByPk(users.admin.organisationId),
     none: null,
   });
@@ -154,6 +150,7 @@ const SCOPES: Record<string, { model: ModelStatic<Model>; where: (v: Viewer) => 
   jobs: { model: Job, where: jobsWhere },
   payments: { model: Payment, where: paymentsWhere },
   accounts: { model: Organisation, where: accountsWhere },
+  orgs: { model: Organisation, where: organisationsWhere },
 };
 
 describe("who may list which record", () => {

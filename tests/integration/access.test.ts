@@ -12,7 +12,7 @@ import * as adminOrgs from "~/routes/admin.organisations";
 import * as adminMail from "~/routes/admin.mail";
 import type { Role } from "~/auth/roles";
 import { Organisation, type User } from "~/models/index.server";
-import { makeMember, makeOperatorUser } from "../support/factories";
+import { makeJob, makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
@@ -62,7 +62,7 @@ describe("records of other organisations", () => {
     await Organisation.update({ accountManagerId: users.account_manager.id }, { where: { id: own.organisationId } });
     const mine = await visitors.account_manager.get(account.loader, "/accounts/x", { organisationId: own.organisationId });
     expect(mine.status).toBe(200);
-    expect(mine.data.users.map((u: { email: string }) => u.email)).toEqual([own.email]);
+    expect(mine.data.organisation.people.map((u: { email: string }) => u.email)).toEqual([own.email]);
     const theirs = await visitors.account_manager.get(account.loader, "/accounts/x", { organisationId: other.organisationId });
     expect(theirs.status).toBe(404);
     const forged = await visitors.account_manager.get(account.loader, "/accounts/x", { organisationId: "1; drop table users" });
@@ -80,5 +80,38 @@ describe("records of other organisations", () => {
   it("a buyer asking for an account page gets 403, not the account", async () => {
     const res = await visitors.buyer.get(account.loader, "/accounts/x", { organisationId: users.buyer.organisationId });
     expect(res.status).toBe(403);
+  });
+
+  it("the organisation page: an admin opens every organisation; an account manager their accounts and the shops building their jobs", async () => {
+    const manager = await makeOperatorUser("account_manager");
+    const managerVisitor = await signedIn(manager);
+    const managed = await makeMember("buyer");
+    await Organisation.update({ accountManagerId: manager.id }, { where: { id: managed.organisationId } });
+    const building = await makeMember("shop");
+    const elsewhere = await makeMember("shop");
+    const otherBuyer = await makeMember("buyer");
+    await makeJob(managed, building);
+    await makeJob(otherBuyer, elsewhere);
+    const open = (visitor: Visitor, organisationId: string) => visitor.get(account.loader, "/accounts/x", { organisationId });
+
+    for (const organisationId of [managed.organisationId, building.organisationId]) {
+      expect((await open(managerVisitor, organisationId)).status).toBe(200);
+    }
+    // A shop that builds nothing for their accounts, another buyer and the operator are not theirs.
+    for (const organisationId of [elsewhere.organisationId, otherBuyer.organisationId, manager.organisationId]) {
+      expect((await open(managerVisitor, organisationId)).status).toBe(404);
+    }
+    for (const organisationId of [
+      managed.organisationId,
+      building.organisationId,
+      elsewhere.organisationId,
+      otherBuyer.organisationId,
+      manager.organisationId,
+    ]) {
+      expect((await open(visitors.admin, organisationId)).status).toBe(200);
+    }
+    // Buyers and shops have no organisation pages, not even their own (their people are on the team page).
+    expect((await open(visitors.shop, users.shop.organisationId)).status).toBe(403);
+    expect((await open(await signedIn(building), building.organisationId)).status).toBe(403);
   });
 });

@@ -11,12 +11,11 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import * as pay from "~/routes/job-pay";
 import { popToast } from "~/auth/session.server";
 import { Payment, type Job, type User } from "~/models/index.server";
-import { awardBid } from "~/services/award.server";
-import { bomOf, saveBid } from "~/services/bids.server";
 import { expectConsoleError } from "../support/console-errors";
-import { inDays, makeMember, makePublishedSpec } from "../support/factories";
+import { makeMember } from "../support/factories";
 import type { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
+import { awardedJob as awardedJobOf } from "../support/awards";
 
 const STRIPE = process.env.STRIPE_API_URL!.replace(/\/$/, "");
 const DOWN = "The card service did not answer, so nothing was charged. Try again in a minute.";
@@ -36,17 +35,7 @@ beforeAll(async () => {
   visitor = await signedIn(buyer);
 });
 
-async function awardedJob(): Promise<Job> {
-  const spec = await makePublishedSpec(buyer);
-  const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec.id, {
-    intent: "submit",
-    lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })),
-    leadTimeWeeks: 10,
-    validUntil: inDays(40),
-  });
-  return awardBid(buyer, spec.id, { bidId: bid.id });
-}
+const awardedJob = () => awardedJobOf(buyer, shop);
 
 const clickPay = (job: Job) => visitor.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id });
 

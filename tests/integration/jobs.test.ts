@@ -493,8 +493,8 @@ describe("the job dashboard", () => {
   it("shows an account's jobs on its account page", async () => {
     const res = await managerV.get(accountPage.loader, `/accounts/${account.organisationId}`, { organisationId: account.organisationId });
     expect(res.status).toBe(200);
-    expect(res.data.jobCount).toBe(4);
-    expect(res.data.jobs.map((j: { id: string }) => j.id)).toEqual([jobs.late, jobs.fresh, jobs.paid, jobs.older]);
+    expect(res.data.organisation.jobs.total).toBe(4);
+    expect(res.data.organisation.jobs.recent.map((j: { id: string }) => j.id)).toEqual([jobs.late, jobs.fresh, jobs.paid, jobs.older]);
   });
 
   it("the job page marks overdue milestones", async () => {

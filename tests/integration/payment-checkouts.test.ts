@@ -8,13 +8,12 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import * as pay from "~/routes/job-pay";
 import * as webhook from "~/routes/webhooks.stripe";
 import { Job, JobEvent, Organisation, OutboxMail, Payment, sequelize, type User } from "~/models/index.server";
-import { awardBid } from "~/services/award.server";
-import { bomOf, saveBid } from "~/services/bids.server";
 import { reconcileOpenPayments } from "~/services/payment-sync.server";
 import { startStripeFake, type StripeFake } from "../../fakes/stripe";
-import { inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { makeMember, makeOperatorUser } from "../support/factories";
 import { call } from "../support/routes";
 import { signedIn } from "../support/sessions";
+import { awardedJob as awardedJobOf } from "../support/awards";
 
 const port = await vi.hoisted(async () => {
   const net = await import("node:net");
@@ -58,17 +57,7 @@ afterAll(async () => {
   await fake.close();
 });
 
-async function awardedJob() {
-  const spec = await makePublishedSpec(buyer);
-  const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec.id, {
-    intent: "submit",
-    lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })),
-    leadTimeWeeks: 10,
-    validUntil: inDays(40),
-  });
-  return awardBid(buyer, spec.id, { bidId: bid.id });
-}
+const awardedJob = () => awardedJobOf(buyer, shop);
 
 /** The buyer clicks "pay" (signed in afresh, as clocks move in this file); where they are sent. */
 async function clickPay(job: Job) {

@@ -12,13 +12,13 @@ import * as paymentsPage from "~/routes/payments";
 import * as refund from "~/routes/payment-refund";
 import * as webhook from "~/routes/webhooks.stripe";
 import { Job, JobEvent, JobMilestone, Organisation, OutboxMail, Payment, Refund, StripeEvent, type User } from "~/models/index.server";
-import { awardBid } from "~/services/award.server";
-import { bomOf, saveBid } from "~/services/bids.server";
 import { deliverDueMail } from "~/services/mail.server";
+import { newAttempt } from "~/services/payments.server";
 import { mailsTo, waitForMail } from "../support/mailbox";
-import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
+import { awardedJob as awardedJobOf } from "../support/awards";
 
 const stripe = new Stripe(
   process.env.STRIPE_SECRET_KEY!,
@@ -35,17 +35,7 @@ let manager: User;
 let visitors: Record<"buyer" | "shop" | "manager", Visitor>;
 
 /** An awarded job of `buyer`'s: one spec, one offer of 100.00 a line. */
-async function awardedJob() {
-  const spec = await makePublishedSpec(buyer);
-  const bom = await bomOf(spec);
-  const bid = await saveBid(shop, spec.id, {
-    intent: "submit",
-    lines: bom.map((l) => ({ key: l.key, unitPrice: "100" })),
-    leadTimeWeeks: 10,
-    validUntil: inDays(40),
-  });
-  return awardBid(buyer, spec.id, { bidId: bid.id });
-}
+const awardedJob = () => awardedJobOf(buyer, shop);
 
 /** An awarded job whose retainer the buyer paid on the fake's page, recorded from the webhook. */
 async function paidJob() {
@@ -322,19 +312,8 @@ describe("one live checkout per job", () => {
     expect(b.location).toBe(a.location);
     const open = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
     expect(await Payment.count({ where: { jobId: job.id } })).toBe(1);
-    const copy = {
-      jobId: job.id,
-      buyerOrganisationId: open.buyerOrganisationId,
-      createdById: buyer.id,
-      amountCents: open.amountCents,
-      currency: open.currency,
-      checkoutSessionId: null,
-      checkoutUrl: null,
-      paymentIntentId: null,
-      customerId: null,
-      failureMessage: null,
-      paidAt: null,
-    };
+    const copy = newAttempt(job, buyer.id);
+    expect([copy.buyerOrganisationId, copy.amountCents, copy.currency]).toEqual([open.buyerOrganisationId, open.amountCents, open.currency]);
     await expect(Payment.create(copy)).rejects.toBeInstanceOf(UniqueConstraintError);
     await expect(Payment.create({ ...copy, status: "failed" })).rejects.toBeInstanceOf(UniqueConstraintError);
     // A closed attempt leaves room for the next one.

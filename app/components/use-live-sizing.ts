@@ -1,19 +1,31 @@
 import { useEffect, useRef, useState } from "react";
 import type { Design } from "~/hydraulics";
 
-export type LiveSizingState =
-  | { status: "ready"; design: Design | null; fieldErrors: Record<string, string[]>; message: null }
-  | { status: "sizing"; design: Design | null; fieldErrors: Record<string, string[]>; message: null }
-  | { status: "invalid"; design: Design | null; fieldErrors: Record<string, string[]>; message: string | null }
-  | { status: "failed"; design: Design | null; fieldErrors: Record<string, string[]>; message: string };
+type Errors = Record<string, string[]>;
+
+export type LiveSizingState<D = Design> =
+  | { status: "ready"; design: D | null; fieldErrors: Errors; message: null }
+  | { status: "sizing"; design: D | null; fieldErrors: Errors; message: null }
+  | { status: "invalid"; design: D | null; fieldErrors: Errors; message: string | null }
+  | { status: "failed"; design: D | null; fieldErrors: Errors; message: string };
+
+/** The public sizing endpoints: one axis, or a machine of several axes. */
+export const AXIS_SIZING_URL = "/api/v1/sizing";
+export const MACHINE_SIZING_URL = "/api/v1/machines/sizing";
 
 /**
  * Sizes the circuit through the public API while the person types: one request per pause
  * (debounced), earlier requests cancelled, the last good design kept on screen when the
- * current input has a problem.
+ * current input has a problem. Asking another endpoint (an axis becomes a machine) starts
+ * afresh, so a design of one kind is never shown as the other.
  */
-export function useLiveSizing(input: Record<string, unknown>, initial: { design: Design | null; fieldErrors: Record<string, string[]> }, delayMs = 350) {
-  const [state, setState] = useState<LiveSizingState>({ status: "ready", message: null, ...initial });
+export function useLiveSizing<D = Design>(
+  input: Record<string, unknown>,
+  initial: { design: D | null; fieldErrors: Errors },
+  delayMs = 350,
+  url: string = AXIS_SIZING_URL,
+): LiveSizingState<D> {
+  const [state, setState] = useState<LiveSizingState<D> & { url: string }>({ status: "ready", message: null, url, ...initial });
   const body = JSON.stringify(input);
   const first = useRef(true);
 
@@ -24,23 +36,30 @@ export function useLiveSizing(input: Record<string, unknown>, initial: { design:
       if (initial.design) return;
     }
     const controller = new AbortController();
-    setState((s) => ({ ...s, status: "sizing", message: null }) as LiveSizingState);
+    const kept = (s: { design: D | null; url: string }) => (s.url === url ? s.design : null);
+    setState((s) => ({ ...s, status: "sizing", message: null, design: kept(s), fieldErrors: s.url === url ? s.fieldErrors : {}, url }));
     const timer = setTimeout(async () => {
       try {
-        const response = await fetch("/api/v1/sizing", {
+        const response = await fetch(url, {
           method: "POST",
           headers: { "Content-Type": "application/json" },
           body,
           signal: controller.signal,
         });
         const payload = await response.json();
-        if (response.ok) setState({ status: "ready", design: payload as Design, fieldErrors: {}, message: null });
+        if (response.ok) setState({ status: "ready", design: payload as D, fieldErrors: {}, message: null, url });
         else if (response.status === 400)
-          setState((s) => ({ status: "invalid", design: s.design, fieldErrors: payload.fieldErrors ?? {}, message: payload.fieldErrors?._form?.[0] ?? null }));
-        else setState((s) => ({ status: "failed", design: s.design, fieldErrors: {}, message: payload.message ?? "Sizing is not available right now." }));
+          setState((s) => ({
+            status: "invalid",
+            design: kept(s),
+            fieldErrors: payload.fieldErrors ?? {},
+            message: payload.fieldErrors?._form?.[0] ?? null,
+            url,
+          }));
+        else setState((s) => ({ status: "failed", design: kept(s), fieldErrors: {}, message: payload.message ?? "Sizing is not available right now.", url }));
       } catch (error) {
         if ((error as Error).name === "AbortError") return;
-        setState((s) => ({ status: "failed", design: s.design, fieldErrors: {}, message: "Tenderflow could not be reached. Check your connection." }));
+        setState((s) => ({ status: "failed", design: kept(s), fieldErrors: {}, message: "Tenderflow could not be reached. Check your connection.", url }));
       }
     }, delayMs);
     return () => {
@@ -48,7 +67,7 @@ export function useLiveSizing(input: Record<string, unknown>, initial: { design:
       controller.abort();
     };
     // eslint-disable-next-line react-hooks/exhaustive-deps -- the first design only matters once
-  }, [body, delayMs]);
+  }, [body, delayMs, url]);
 
-  return state;
+  return state.url === url ? state : { ...state, design: null, fieldErrors: {} };
 }

@@ -1,12 +1,14 @@
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { Form } from "react-router";
 import type { Route } from "./+types/quick-sizing";
 import { getOptionalUser } from "~/auth/permissions.server";
 import { DesignReport } from "~/components/design-report";
+import { MachineReport } from "~/components/machine-report";
 import { MoreQuestions } from "~/components/more-questions";
 import { RequirementInput } from "~/components/requirement-input";
-import { Card, Notice, PageHeader } from "~/components/ui";
-import { useLiveSizing } from "~/components/use-live-sizing";
+import { Button, Card, Notice, PageHeader } from "~/components/ui";
+import { AXIS_SIZING_URL, MACHINE_SIZING_URL, useLiveSizing } from "~/components/use-live-sizing";
+import { MAX_AXES, isMachineDuty, nextAxisName, quickMachineInput, splitMachineErrors, type QuickAxis } from "~/content/quick-machine";
 import {
   EXAMPLE_AXIS,
   REQUIREMENT_FIELDS,
@@ -23,7 +25,7 @@ import {
   type RequirementKey,
 } from "~/content/requirement-fields";
 import { AXIS_QUESTIONS, type AxisQuestions } from "~/content/spec-steps";
-import { RequirementsError, sizeCircuit, type Design } from "~/hydraulics";
+import { RequirementsError, sizeCircuit, type Design, type MachineDesign } from "~/hydraulics";
 import { UNIT_SYSTEMS, UNIT_SYSTEM_LABELS, type UnitSystem } from "~/units";
 
 export const meta: Route.MetaFunction = () => [
@@ -64,32 +66,84 @@ export async function loader({ request }: Route.LoaderArgs) {
 export default function QuickSizing({ loaderData }: Route.ComponentProps) {
   const [system, setSystem] = useState<UnitSystem>(loaderData.system);
   // What the person typed, each answer in the system it was typed in: switching units shows
-  // converted values but sizes the typed ones, so switching back and forth never drifts.
-  const [typed, setTyped] = useState(() => typedAnswers(loaderData.values, loaderData.system));
-  const values = useMemo(() => shownValues(typed, system), [typed, system]);
-  const input = useMemo(() => typedToRequirementsInput(typed), [typed]);
-  const live = useLiveSizing(input, { design: loaderData.design, fieldErrors: loaderData.fieldErrors });
+  // converted values but sizes the typed ones, so switching back and forth never drifts. The
+  // first axis also holds the machine's duty answers, asked once.
+  const [axes, setAxes] = useState<QuickAxis[]>(() => [{ key: 0, name: "Axis 1", typed: typedAnswers(loaderData.values, loaderData.system) }]);
+  const machine = axes.length > 1;
+  const values = useMemo(() => axes.map((a) => shownValues(a.typed, system)), [axes, system]);
+  const input = useMemo(() => (machine ? quickMachineInput(axes, axes[0].typed) : typedToRequirementsInput(axes[0].typed)), [axes, machine]);
+  const live = useLiveSizing<Design | MachineDesign>(
+    input,
+    { design: loaderData.design, fieldErrors: loaderData.fieldErrors },
+    350,
+    machine ? MACHINE_SIZING_URL : AXIS_SIZING_URL,
+  );
   const design = live.design;
   const hasErrors = Object.keys(live.fieldErrors).length > 0;
+  const errors = machine ? splitMachineErrors(live.fieldErrors, axes.length) : { axes: [live.fieldErrors], machine: live.fieldErrors };
+  // Adding an axis needs the page's script; until it runs the form is the plain one-axis GET form.
+  const [scripted, setScripted] = useState(false);
+  useEffect(() => setScripted(true), []);
 
-  const question = (key: RequirementKey) => (
+  const setTyped = (index: number, key: RequirementKey, text: string) =>
+    setAxes((list) => list.map((a, i) => (i === index ? { ...a, typed: { ...a.typed, [key]: { text, system } } } : a)));
+  const question = (index: number, key: RequirementKey) => (
     <RequirementInput
       key={key}
       field={REQUIREMENT_FIELDS[key]}
-      value={values[key]}
+      value={values[index][key]}
       system={system}
-      errors={fieldMessages(key, live.fieldErrors[key], system)}
-      onChange={(text) => setTyped((t) => ({ ...t, [key]: { text, system } }))}
+      idPrefix={index === 0 ? "req" : `req-a${axes[index].key}`}
+      errors={fieldMessages(key, (isMachineDuty(key) ? errors.machine : errors.axes[index])?.[key], system)}
+      onChange={(text) => setTyped(index, key, text)}
     />
   );
+  const groupCard = (group: (typeof GROUPS)[number], index: number, keys: (k: RequirementKey) => boolean, startOpen: boolean) => (
+    <Card key={group.title} className="space-y-4 !p-4">
+      <h2 className="font-semibold text-ink-900">{machine && !group.keys.every(isMachineDuty) ? group.title.replace("The axis", "Mounting") : group.title}</h2>
+      {group.keys.filter((key) => keys(key) && fieldApplies(key, values[index])).map((key) => question(index, key))}
+      {group.more && group.more.keys.some(keys) ? (
+        <MoreQuestions
+          title={group.more.title}
+          summary={group.more.summary}
+          startOpen={startOpen}
+          attention={group.more.keys.some((k) => (isMachineDuty(k) ? errors.machine : errors.axes[index])[k]?.length)}
+        >
+          {group.more.keys.filter((key) => keys(key) && fieldApplies(key, values[index])).map((key) => question(index, key))}
+        </MoreQuestions>
+      ) : null}
+    </Card>
+  );
+
+  const addAxis = () =>
+    setAxes((list) => {
+      const last = list[list.length - 1];
+      return [...list, { key: Math.max(...list.map((a) => a.key)) + 1, name: nextAxisName(list), typed: { ...last.typed } }];
+    });
+  // The first axis holds the machine's duty answers: a removed first axis hands them on.
+  const removeAxis = (index: number) =>
+    setAxes((list) => {
+      const rest = list.filter((_, i) => i !== index);
+      if (index !== 0) return rest;
+      const duty = Object.fromEntries(Object.entries(list[0].typed).filter(([k]) => isMachineDuty(k)));
+      return [{ ...rest[0], typed: { ...rest[0].typed, ...duty } }, ...rest.slice(1)];
+    });
+  const rename = (index: number, name: string) => setAxes((list) => list.map((a, i) => (i === index ? { ...a, name } : a)));
 
   const switchUnits = (next: UnitSystem) => setSystem(next);
 
   return (
     <>
-      <PageHeader title="Quick sizing" lead="Describe one hydraulic axis and see a preliminary circuit at once. No account needed; nothing is saved." />
+      <PageHeader
+        title="Quick sizing"
+        lead={
+          machine
+            ? `Describe each axis of a machine of ${axes.length} axes and see them on one shared power unit. No account needed; nothing is saved.`
+            : "Describe one hydraulic axis and see a preliminary circuit at once. No account needed; nothing is saved."
+        }
+      />
       <div className="grid gap-6 lg:grid-cols-[22rem_1fr]">
-        <Form method="get" className="space-y-5" aria-label="Axis requirements" onSubmit={(e) => e.preventDefault()}>
+        <Form method="get" className="space-y-5" aria-label={machine ? "Machine requirements" : "Axis requirements"} onSubmit={(e) => e.preventDefault()}>
           <fieldset className="flex gap-1 rounded-lg bg-white p-1 ring-1 ring-ink-100">
             <legend className="sr-only">Units</legend>
             {UNIT_SYSTEMS.map((s) => (
@@ -102,22 +156,41 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
               </label>
             ))}
           </fieldset>
-          {GROUPS.map((group) => (
-            <Card key={group.title} className="space-y-4 !p-4">
-              <h2 className="font-semibold text-ink-900">{group.title}</h2>
-              {group.keys.filter((key) => fieldApplies(key, values)).map(question)}
-              {group.more ? (
-                <MoreQuestions
-                  title={group.more.title}
-                  summary={group.more.summary}
-                  startOpen={differsFromDefault(group.more.keys, loaderData.values, loaderData.system)}
-                  attention={group.more.keys.some((k) => live.fieldErrors[k]?.length)}
+          {machine ? (
+            <>
+              {axes.map((axis, index) => (
+                <AxisFieldset
+                  key={axis.key}
+                  axis={axis}
+                  index={index}
+                  nameErrors={[...(errors.axes[index].name ?? []), ...(errors.axes[index]._form ?? [])]}
+                  onRename={(name) => rename(index, name)}
+                  onRemove={() => removeAxis(index)}
                 >
-                  {group.more.keys.filter((key) => fieldApplies(key, values)).map(question)}
-                </MoreQuestions>
-              ) : null}
-            </Card>
-          ))}
+                  {GROUPS.filter((g) => g.title !== "Duty and site").map((g) =>
+                    groupCard(g, index, () => true, Boolean(g.more && differsFromDefault(g.more.keys, values[index], system))),
+                  )}
+                  {/* an axis's own answers from the duty group (how long it holds its load) */}
+                  {groupCard({ title: "Holding", keys: GROUPS[2].keys.filter((k) => !isMachineDuty(k)) }, index, () => true, false)}
+                </AxisFieldset>
+              ))}
+              {groupCard(
+                { ...GROUPS[2], title: "Duty and site, for the whole machine" },
+                0,
+                isMachineDuty,
+                Boolean(GROUPS[2].more && differsFromDefault(GROUPS[2].more.keys, values[0], system)),
+              )}
+            </>
+          ) : (
+            GROUPS.map((group) =>
+              groupCard(group, 0, () => true, Boolean(group.more && differsFromDefault(group.more.keys, loaderData.values, loaderData.system))),
+            )
+          )}
+          {scripted && axes.length < MAX_AXES ? (
+            <Button type="button" tone="secondary" className="w-full" onClick={addAxis}>
+              {machine ? "Add another axis" : "Add a second axis (a machine on one power unit)"}
+            </Button>
+          ) : null}
           <noscript>
             <button type="submit" className="w-full rounded-md bg-flow-600 px-4 py-2 font-semibold text-white">
               Size the circuit
@@ -129,19 +202,75 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
           {live.status === "failed" ? <Notice tone="bad">{live.message}</Notice> : null}
           {hasErrors ? (
             <Notice tone="warn">
-              {live.message ?? "Some answers need attention (marked beside the field)."}
+              {live.message ?? (machine && errors.machine._form ? errors.machine._form.join(" ") : "Some answers need attention (marked beside the field).")}
               {design ? " The circuit below is from your last complete answers." : ""}
             </Notice>
           ) : null}
-          {design ? (
+          {design && isMachineDesign(design) ? (
+            <MachineReport design={design} units={system} updating={live.status === "sizing"} />
+          ) : design ? (
             <DesignReport design={design} units={system} updating={live.status === "sizing"} />
           ) : (
             <Card>
-              <p className="text-ink-600">Answer the questions on the left and the circuit appears here.</p>
+              <p className="text-ink-600">
+                {machine && live.status === "sizing" ? "Sizing the machine…" : "Answer the questions on the left and the circuit appears here."}
+              </p>
             </Card>
           )}
         </div>
       </div>
     </>
+  );
+}
+
+const isMachineDesign = (d: Design | MachineDesign): d is MachineDesign => "axes" in d && Array.isArray(d.axes);
+
+/** One axis of a machine: its name (which labels it in the results and the diagram), its questions, and a way to remove it. */
+function AxisFieldset({
+  axis,
+  index,
+  nameErrors,
+  onRename,
+  onRemove,
+  children,
+}: {
+  axis: QuickAxis;
+  index: number;
+  nameErrors: string[];
+  onRename: (name: string) => void;
+  onRemove: () => void;
+  children: React.ReactNode;
+}) {
+  const id = `axis-${axis.key}-name`;
+  return (
+    <fieldset className="space-y-3 rounded-lg border border-ink-200 p-3" data-quick-axis={index + 1}>
+      <legend className="px-1 text-sm font-semibold text-ink-900">
+        Axis {index + 1}
+        {axis.name.trim() ? `: ${axis.name.trim()}` : ""}
+      </legend>
+      <div>
+        <label htmlFor={id} className="block text-sm font-semibold text-ink-800">
+          Name of axis {index + 1}
+        </label>
+        <input
+          id={id}
+          value={axis.name}
+          maxLength={60}
+          onChange={(e) => onRename(e.target.value)}
+          aria-invalid={nameErrors.length > 0 || undefined}
+          aria-describedby={nameErrors.length ? `${id}-error` : undefined}
+          className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
+        />
+        {nameErrors.length ? (
+          <p id={`${id}-error`} className="mt-1 text-xs font-semibold text-alarm-600">
+            {nameErrors.join(" ")}
+          </p>
+        ) : null}
+      </div>
+      {children}
+      <Button type="button" tone="quiet" onClick={onRemove}>
+        Remove {axis.name.trim() || `axis ${index + 1}`}
+      </Button>
+    </fieldset>
   );
 }

@@ -99,6 +99,53 @@ describe("each demo role signs in and sees its home", () => {
     await page.context().close();
   });
 
+  it("an admin sorts the organisations by name in the URL and opens an organisation's page from its name", { timeout: 60_000 }, async () => {
+    const page = await app.newPage();
+    await signInAs(page, "felix@tenderflow.test", DEMO_PASSWORD);
+    await page.waitForURL("**/admin/users");
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Organisations" }).click();
+    await page.waitForURL("**/admin/organisations");
+    const sort = page.getByRole("navigation", { name: "Sort" });
+    expect(await sort.locator("[aria-current]").textContent()).toBe("Newest first");
+    const table = page.getByRole("region", { name: "Organisations" });
+    const firstColumn = () => table.locator("tbody tr td:first-child").allTextContents();
+    await sort.getByRole("link", { name: "Name A–Z" }).click();
+    await page.waitForURL("**/admin/organisations?sort=name");
+    await expect.poll(() => sort.locator("[aria-current]").textContent()).toBe("Name A–Z");
+    const byName = await firstColumn();
+    expect(byName).toEqual([...byName].sort((a, b) => a.localeCompare(b, "en", { sensitivity: "base" })));
+    await page.screenshot({ path: path.join(SCREENSHOTS, "admin-organisations-by-name.png"), fullPage: true });
+
+    await table.getByRole("link", { name: "Northgate Hydraulics" }).click();
+    await page.waitForURL("**/accounts/*");
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Northgate Hydraulics");
+    for (const heading of ["Who they are", "Jobs", "People"]) expect(await page.getByRole("heading", { name: heading, level: 2 }).count()).toBe(1);
+    expect(await page.getByRole("region", { name: "People" }).textContent()).toContain("sofia@northgate-hyd.test");
+    expect(await page.getByText("Approved", { exact: true }).count()).toBe(1);
+    await page.screenshot({ path: path.join(SCREENSHOTS, "organisation-page-shop.png"), fullPage: true });
+    await page.context().close();
+  });
+
+  it("on a phone an account manager goes from a job's buyer to the account's page and back to the account's jobs", { timeout: 60_000 }, async () => {
+    const page = await app.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await signInAs(page, "nadia@tenderflow.test", DEMO_PASSWORD);
+    await page.waitForURL("**/jobs");
+    await page.getByRole("region", { name: "Jobs" }).getByRole("link", { name: "Kestrel Forming Machines" }).first().click();
+    await page.waitForURL("**/accounts/*");
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Kestrel Forming Machines");
+    expect(await page.getByText("Nadia Brennan").count()).toBeGreaterThan(0); // the account manager
+    // Nothing wider than the phone but the tables' own scrolling boxes.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await page.screenshot({ path: path.join(SCREENSHOTS, "phone-organisation-page-account.png"), fullPage: true });
+    await page.getByRole("link", { name: /^(All \d+ jobs|In the job list) →$/ }).click();
+    await page.waitForURL("**/jobs?account=*");
+    const buyers = await page.getByRole("region", { name: "Jobs" }).locator("tbody tr td:nth-child(2)").allTextContents();
+    expect(buyers.length).toBeGreaterThan(0);
+    expect(new Set(buyers)).toEqual(new Set(["Kestrel Forming Machines"]));
+    await page.context().close();
+  });
+
   it("a shop opening the admin page sees the 403 page", async () => {
     const page = await app.newPage();
     await signInAs(page, "aled@ironbridge-fluid.test", DEMO_PASSWORD);

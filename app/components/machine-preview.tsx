@@ -1,4 +1,7 @@
-import type { MachineDesign } from "~/hydraulics";
+import { useDeferredValue, useMemo } from "react";
+import { NotSizableError, RequirementsError, sizeMachine, type MachineDesign, type MachineMotion } from "~/hydraulics";
+import { machineProblems } from "~/content/machine-input";
+import { REQUIREMENT_FIELDS, type RequirementKey } from "~/content/requirement-fields";
 import type { UnitSystem } from "~/units";
 import { displayUnits } from "./circuit-diagram/format";
 import { CycleChart } from "./cycle-chart";
@@ -6,19 +9,45 @@ import { pumpInWords } from "./design-panels";
 import { machinePhaseName } from "./machine-report";
 import { Card } from "./ui";
 
-// Beside the cycle step: the machine as its saved answers size it, so the buyer sees what moving
-// axes together does to the shared power unit before going on. Sized on the server from what is
-// saved; the figures follow the buyer's choice once it is saved.
+// Beside the cycle step: the machine sized as the buyer chooses its cycle (the engine is pure and
+// runs in the browser as on the server), so moving two axes together shows at once what it does
+// to the shared power unit.
 
-export function MachinePreview({ machine, problems, system }: { machine: MachineDesign | null; problems: string[]; system: UnitSystem }) {
+export interface MachineSizing {
+  machine: MachineDesign | null;
+  problems: string[];
+}
+
+/** Sizes the machine of the saved axes and duty with the cycle being chosen. */
+export function useMachineSizing(base: Record<string, unknown> | null, sequence: MachineMotion[][], axes: { id: string; name: string }[]): MachineSizing {
+  const deferred = useDeferredValue(sequence);
+  return useMemo(() => {
+    if (!base) return { machine: null, problems: [] };
+    try {
+      return { machine: sizeMachine({ ...base, sequence: deferred }), problems: [] };
+    } catch (error) {
+      if (error instanceof RequirementsError)
+        return { machine: null, problems: machineProblems({ axes: axes.map((a) => ({ ...a, mounting: {}, motion: {} })) }, error.fieldErrors) };
+      if (error instanceof NotSizableError) return { machine: null, problems: [error.message] };
+      throw error;
+    }
+  }, [base, deferred, axes]);
+}
+
+export function MachinePreview({ machine, problems, assumed, system }: MachineSizing & { assumed: RequirementKey[]; system: UnitSystem }) {
   const u = displayUnits(system);
   return (
     <aside aria-label="The machine as saved" className="space-y-4 lg:sticky lg:top-4 lg:self-start">
       <Card className="!p-4">
-        <h2 className="mb-1 font-semibold">The power unit as saved</h2>
+        <h2 className="mb-1 font-semibold">The shared power unit</h2>
         {machine ? (
           <>
-            <p className="mb-3 text-xs text-ink-600">Sized from the saved cycle; save a new order to see its pump.</p>
+            <p className="mb-3 text-xs text-ink-600">
+              Sized for the cycle as chosen here.
+              {assumed.length
+                ? ` Until you answer the duty step it assumes ${assumed.map((k) => REQUIREMENT_FIELDS[k].label.toLowerCase()).join(", ")} as in a usual machine.`
+                : ""}
+            </p>
             <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-sm" data-machine-figures="">
               <Figure label="Pump" value={pumpInWords(machine, u)} />
               <Figure label="Pump flow" value={u.flow(machine.flowsLpm.pump)} />
@@ -38,7 +67,7 @@ export function MachinePreview({ machine, problems, system }: { machine: Machine
           </>
         ) : (
           <div className="text-sm text-ink-600">
-            <p>The machine is sized here once every axis and the duty are answered.</p>
+            <p>The machine is sized here once every axis is answered.</p>
             {problems.length ? (
               <ul className="mt-2 list-disc space-y-1 pl-5">
                 {problems.slice(0, 6).map((p) => (
@@ -62,7 +91,7 @@ function Figure({ label, value }: { label: string; value: string }) {
   );
 }
 
-/** The machine's cycle, phase by phase, as the saved answers size it. */
+/** The machine's cycle, phase by phase. */
 export function MachineCyclePreview({ machine, system }: { machine: MachineDesign | null; system: UnitSystem }) {
   return machine ? <CycleChart cycle={machine.cycle} units={system} phaseName={machinePhaseName} drawnBy="Axes draw" /> : null;
 }

@@ -7,7 +7,8 @@ import { SelectField, SubmitButton, TextAreaField, TextField } from "~/component
 import { MoreQuestions } from "~/components/more-questions";
 import { RequirementInput } from "~/components/requirement-input";
 import { SpecLivePreview } from "~/components/spec-live-preview";
-import { MachineCyclePreview, MachinePreview } from "~/components/machine-preview";
+import { MachineCyclePreview, MachinePreview, useMachineSizing } from "~/components/machine-preview";
+import { sequenceOf } from "~/content/machine-input";
 import { Button, Card, Notice } from "~/components/ui";
 import { CURRENCIES } from "~/content/money";
 import {
@@ -21,7 +22,6 @@ import {
 } from "~/content/requirement-fields";
 import { AXIS_LIMITS, axisNameField, cycleField, cycleInWords, cycleSteps } from "~/content/spec-draft";
 import { FORM_QUESTIONS, type FormStepKind, type StepRef } from "~/content/spec-steps";
-import type { MachineDesign } from "~/hydraulics";
 import { FLUIDS, STEP_DEFAULTS, SUPPLY_VOLTAGES, TEXT_MAX, stepFieldNames, stepSchema, type StepContext } from "~/schemas/spec";
 import type { AttachmentLimits, AttachmentView } from "~/services/attachments.server";
 import { UNIT_SYSTEM_LABELS, type UnitSystem } from "~/units";
@@ -42,9 +42,8 @@ export interface SpecStepFormProps {
   stepAnswers: Record<string, string | undefined>;
   /** an axis step's answers of its axis with the duty, for the live preview */
   axisValues: FormValues | null;
-  /** the machine as the saved answers size it (cycle step) */
-  machine: MachineDesign | null;
-  problems: string[];
+  /** the cycle step's machine: the saved axes and duty (unanswered duty assumed) without its cycle */
+  machineBase: { input: Record<string, unknown> | null; assumed: RequirementKey[] } | null;
   attachments: AttachmentView[];
   attachmentLimits: AttachmentLimits;
   lastResult: SubmissionResult<string[]> | null;
@@ -61,8 +60,7 @@ export function SpecStepForm({
   context,
   stepAnswers,
   axisValues,
-  machine,
-  problems,
+  machineBase,
   attachments,
   attachmentLimits,
   lastResult,
@@ -96,6 +94,13 @@ export function SpecStepForm({
     />
   );
   const wide = kind === "motion" || kind === "cycle";
+  const formValue = form.value as Answers | undefined;
+  const sequence = useMemo(() => {
+    if (kind !== "cycle") return [];
+    const chosen = { ...defaultValue, ...formValue };
+    return sequenceOf(context.axes, Object.fromEntries(Object.entries(chosen).filter((e): e is [string, string] => typeof e[1] === "string")));
+  }, [kind, context.axes, defaultValue, formValue]);
+  const sizing = useMachineSizing(kind === "cycle" ? (machineBase?.input ?? null) : null, sequence, context.axes);
 
   return (
     <>
@@ -211,11 +216,11 @@ export function SpecStepForm({
           </div>
         </div>
         {kind === "motion" ? <SpecLivePreview values={{ ...axisValues, ...current }} system={system} axisName={step.axis?.name} /> : null}
-        {kind === "cycle" ? <MachinePreview machine={machine} problems={problems} system={system} /> : null}
+        {kind === "cycle" ? <MachinePreview {...sizing} assumed={machineBase?.assumed ?? []} system={system} /> : null}
       </div>
       {kind === "cycle" ? (
         <div className="mt-6">
-          <MachineCyclePreview machine={machine} system={system} />
+          <MachineCyclePreview machine={sizing.machine} system={system} />
         </div>
       ) : null}
     </>

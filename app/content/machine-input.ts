@@ -1,6 +1,6 @@
 import { MACHINE_DUTY_FIELDS, defaultSequence, type MachineMotion } from "~/hydraulics";
 import type { UnitSystem } from "~/units";
-import { REQUIREMENT_FIELDS, toRequirementsInput, type FormValues, type RequirementKey } from "./requirement-fields";
+import { EXAMPLE_AXIS, REQUIREMENT_FIELDS, toFormValues, toRequirementsInput, type FormValues, type RequirementKey } from "./requirement-fields";
 import { cycleAnswers, cycleSteps, type Draft } from "./spec-draft";
 
 // A draft of several axes as the machine engine takes it (contract "Machine requirements"), and
@@ -15,7 +15,7 @@ export function machineSequence(draft: Pick<Draft, "axes" | "cycle">): MachineMo
 }
 
 /** The engine's input for a draft: each axis's own answers with its name, the duty once, the cycle (left out where it is the default). */
-export function machineInput(draft: Draft, system: UnitSystem): Record<string, unknown> {
+export function machineInput(draft: Draft, system: UnitSystem, { withSequence = true } = {}): Record<string, unknown> {
   const axes = draft.axes.map((axis) => {
     const own = toRequirementsInput({ ...axis.mounting, ...axis.motion } as FormValues, system);
     for (const key of DUTY) delete own[key];
@@ -24,7 +24,7 @@ export function machineInput(draft: Draft, system: UnitSystem): Record<string, u
   const duty = Object.fromEntries(Object.entries(toRequirementsInput(draft.duty as FormValues, system)).filter(([k]) => DUTY.includes(k)));
   const sequence = machineSequence(draft);
   const isDefault = JSON.stringify(sequence) === JSON.stringify(defaultSequence(axes.map((a) => a.name)));
-  return { axes, ...duty, ...(isDefault ? {} : { sequence }) };
+  return { axes, ...duty, ...(isDefault || !withSequence ? {} : { sequence }) };
 }
 
 const labelOf = (key: string) => (key in REQUIREMENT_FIELDS ? REQUIREMENT_FIELDS[key as RequirementKey].label : key === "name" ? "Name" : key);
@@ -48,4 +48,19 @@ export function machineProblems(draft: Pick<Draft, "axes">, fieldErrors: Record<
     for (const message of messages) problems.push(`${where}: ${message}.`.replace(/\.\.$/, "."));
   }
   return problems;
+}
+
+/**
+ * The draft with the duty questions not yet answered taken from the example axis, and which
+ * those are: the cycle step comes before the duty step, and its preview says what it assumed.
+ */
+export function withAssumedDuty(draft: Draft, system: UnitSystem): { draft: Draft; assumed: RequirementKey[] } {
+  const example = toFormValues(EXAMPLE_AXIS, system);
+  const assumed = DUTY.filter((k) => !draft.duty[k]?.trim() && example[k as RequirementKey] !== undefined) as RequirementKey[];
+  return { draft: { ...draft, duty: { ...draft.duty, ...Object.fromEntries(assumed.map((k) => [k, example[k]!])) } }, assumed };
+}
+
+/** The sequence of cycle answers by axis name, for a machine input whose cycle is being chosen. */
+export function sequenceOf(axes: readonly { id: string; name: string }[], answers: Record<string, string>): MachineMotion[][] {
+  return machineSequence({ axes: axes.map((a) => ({ ...a, mounting: {}, motion: {} })), cycle: answers });
 }

@@ -7,7 +7,7 @@ import { SpecProgress } from "~/components/spec-progress";
 import { SpecReview } from "~/components/spec-review";
 import { SpecStepForm } from "~/components/spec-step-form";
 import { Notice, PageHeader } from "~/components/ui";
-import { machineSequence } from "~/content/machine-input";
+import { machineInput, machineSequence, withAssumedDuty } from "~/content/machine-input";
 import { axisFormValues, cycleAnswers } from "~/content/spec-draft";
 import { findStep, nextStep, previousStep, specSteps, type FormStepKind } from "~/content/spec-steps";
 import { stepContext, stepSchema, typedStepAnswers } from "~/schemas/spec";
@@ -44,8 +44,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, spec, draft, completed, steps, step } = await load(request, params);
   if (!isEditable(spec)) throw redirect(`/specs/${spec.id}`);
   const kind = step.kind;
-  // The machine as it stands, on the steps that show it: the cycle and the review.
-  const sized = kind === "review" || kind === "cycle" ? designOf(spec) : null;
+  const sized = kind === "review" ? designOf(spec) : null;
+  // The cycle step sizes the machine in the browser as the buyer chooses; here its axes and duty.
+  const assumed = kind === "cycle" ? withAssumedDuty(draft, spec.unitSystem as UnitSystem) : null;
+  const machineBase = assumed ? { input: machineInput(assumed.draft, spec.unitSystem as UnitSystem, { withSequence: false }), assumed: assumed.assumed } : null;
   const attachments = kind === "quotation" || kind === "review" ? await listAttachments(user, spec.id) : [];
   const axis = step.axis ? draft.axes.find((a) => a.id === step.axis!.id) : undefined;
   return {
@@ -68,6 +70,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     draft: kind === "review" ? draft : null,
     sequence: draft.axes.length > 1 ? machineSequence(draft) : null,
     review: sized,
+    machineBase,
     attachments,
     attachmentLimits: ATTACHMENT_LIMITS,
   };
@@ -118,9 +121,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (Object.keys(tooLongErrors).length || (!back && !change && submission.status !== "success")) return refused();
   try {
     if (change) {
-      const { axisId } = await changeAxes(user, spec.id, { change, machine: typed, complete: submission.status === "success" });
-      // A new axis is asked about at once; after any other change the list is shown again.
-      return redirect(axisId && change.op === "add" ? `/specs/${spec.id}/edit/${axisId}-mounting` : `/specs/${spec.id}/edit/machine#axes`);
+      // The list is shown again, so a new axis is named where it appears.
+      await changeAxes(user, spec.id, { change, machine: typed, complete: submission.status === "success" });
+      return redirect(`/specs/${spec.id}/edit/machine#axes`);
     }
     await saveStep(user, spec.id, { step: step.id, answers: typed, complete: submission.status === "success" });
   } catch (error) {
@@ -170,8 +173,7 @@ export default function SpecStep({ loaderData, actionData }: Route.ComponentProp
           context={loaderData.context}
           stepAnswers={loaderData.stepAnswers}
           axisValues={loaderData.axisValues}
-          machine={loaderData.review?.published?.kind === "machine" ? loaderData.review.published.design : null}
-          problems={loaderData.review?.problems ?? []}
+          machineBase={loaderData.machineBase}
           attachments={loaderData.attachments}
           attachmentLimits={loaderData.attachmentLimits}
           lastResult={actionData?.result ?? null}

@@ -66,6 +66,10 @@ describe("spec intake", () => {
     await page.getByRole("button", { name: "Stay on this step" }).click();
     expect(page.url()).toContain("/edit/machine");
     expect(await page.getByLabel("Title").inputValue()).toBe("Scissor lift, main cylinder");
+    // One axis to start with, named by the buyer; its own questions come next.
+    await page.getByLabel("Axis 1 name").fill("Lift cylinder");
+    await shot(page, "1-machine");
+    await next(page, "axis01-mounting");
     await page.getByLabel("Vertical").check();
     // Which way the rod moves is answered already ("Up"), as quick sizing does; it can be changed.
     expect(await page.getByRole("radio", { name: /^Up/ }).isChecked()).toBe(true);
@@ -74,8 +78,8 @@ describe("spec intake", () => {
     // The body's mounting is a refinement behind a disclosure; a trunnion-mounted lift.
     await page.getByText("More about the mounting").click();
     await page.getByLabel("How the cylinder body is fixed").selectOption("trunnion");
-    await shot(page, "1-machine");
-    await next(page, "motion");
+    await shot(page, "1b-mounting");
+    await next(page, "axis01-motion");
 
     await page.getByLabel("Moving mass", { exact: true }).fill("2200");
     await page.getByLabel("Stroke", { exact: true }).fill("30");
@@ -90,12 +94,13 @@ describe("spec intake", () => {
     // The lift stops more gently than it starts.
     await page.getByText("More about the motion").click();
     await page.getByLabel("Time to stop").fill("0.5");
+    // How long the load is held is the axis's own.
+    await page.getByLabel("Time the load is held at rest").fill("20");
     await shot(page, "2-motion");
     await next(page, "duty");
 
     await page.getByLabel("Cycles per hour").fill("12");
     await page.getByLabel("Hours of work per day").fill("8");
-    await page.getByLabel("Time the load is held at rest").fill("20");
     await page
       .getByLabel("60 Hz")
       .check()

@@ -1,6 +1,7 @@
 import type { MachineAxis, MachineCyclePhase, MachineDesign } from "~/hydraulics";
 import { servedBy } from "~/services/published-design";
 import { formatQuantity, type UnitSystem } from "~/units";
+import { CircuitViewer } from "./circuit-viewer";
 import { centreName } from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
 import { CycleChart } from "./cycle-chart";
@@ -38,15 +39,7 @@ export function MachineReport({
           <h2 className="font-semibold">Preliminary circuit of the machine</h2>
           <span className="text-xs text-ink-400">{updating ? "Updating…" : `Engine ${design.engineVersion}`}</span>
         </div>
-        <div data-machine-circuit-slot="" className="rounded-md border border-dashed border-ink-200 px-4 py-6 text-sm text-ink-700">
-          <p className="font-semibold text-ink-900">
-            One power unit feeding {design.axes.length} axes: {names.join(", ")}
-          </p>
-          <p className="mt-1">
-            The drawing of a machine of several axes is on its way. Until then the bill below lists every component of the circuit with the axis it serves, and
-            each axis&apos;s valve, cylinder and load holding are shown under its name.
-          </p>
-        </div>
+        <CircuitViewer circuit={design.circuit} units={units} />
         <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
           <a href="#bill" className="font-semibold text-flow-700 hover:underline">
             {componentsTitle} ({design.bom.length} lines)

@@ -1,9 +1,13 @@
 import type { Design } from "~/hydraulics";
+import type { PublishedDesign } from "~/services/published-design";
 import type { UnitSystem } from "~/units";
+import { AxisRequirements } from "./axis-requirements";
 import { CircuitViewer } from "./circuit-viewer";
 import { CycleChart } from "./cycle-chart";
 import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "./design-panels";
 import { FoldedSection } from "./folded-section";
+import { MachineReport } from "./machine-report";
+import { MachineRequirements } from "./machine-requirements";
 import { Card } from "./ui";
 
 /**
@@ -52,6 +56,24 @@ export function DesignReport({
       <FoldedSection id="calculation-trail" title="How every number was reached" summary={`Show ${design.trail.length} steps`}>
         <CalculationTrail trail={design.trail} />
       </FoldedSection>
+    </>
+  );
+}
+
+/**
+ * A published revision as its readers see it: what it must do, then its design, whether it was
+ * sized as one axis or as a machine of several (publishedDesignOf decides which).
+ */
+export function PublishedReport({ published, units, componentsTitle }: { published: PublishedDesign; units: UnitSystem; componentsTitle?: string }) {
+  return published.kind === "machine" ? (
+    <>
+      <MachineRequirements design={published.design} units={units} />
+      <MachineReport design={published.design} units={units} componentsTitle={componentsTitle} />
+    </>
+  ) : (
+    <>
+      <AxisRequirements requirements={published.design.requirements} units={units} />
+      <DesignReport design={published.design} units={units} componentsTitle={componentsTitle} />
     </>
   );
 }

@@ -13,7 +13,8 @@ import { Badge, Button, Card, Notice, PageHeader, TableScroll } from "~/componen
 import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/bid-status";
 import { bidTotals, centsToInput, formatMoney, parseMoney } from "~/content/money";
 import { bidSchema, linesMatchBill } from "~/schemas/bid";
-import { bidOfShop, bomOf, historyOf, saveBid, withdrawBid } from "~/services/bids.server";
+import { bidOfShop, billOfRevision, bomOf, historyOf, saveBid, withdrawBid } from "~/services/bids.server";
+import { servedBy } from "~/services/published-design";
 import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
 import { specForReader } from "~/services/spec-access.server";
 
@@ -22,7 +23,7 @@ export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Your bid · 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireRole(request, PAGE_ROLES.bidding);
   const spec = await specForReader(user, params.specId);
-  const [bom, bid] = await Promise.all([bomOf(spec), bidOfShop(user, spec)]);
+  const [{ bom, axisNames }, bid] = await Promise.all([billOfRevision(spec), bidOfShop(user, spec)]);
   const history = bid ? await historyOf(bid) : [];
   const offered = new Map((bid?.lines ?? []).map((l) => [l.key, l]));
   return {
@@ -34,8 +35,17 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       units: spec.unitsWanted ?? 1,
       deadline: spec.bidDeadline?.toISOString() ?? null,
       accepting: takesBids(spec),
+      /** a machine's axes, in order; none for one axis */
+      axes: axisNames,
     },
-    bill: bom.map((l) => ({ key: l.key, item: l.item, quantity: l.quantity, specification: l.specification, rating: l.rating?.label ?? "" })),
+    bill: bom.map((l) => ({
+      key: l.key,
+      item: l.item,
+      quantity: l.quantity,
+      specification: l.specification,
+      rating: l.rating?.label ?? "",
+      serves: servedBy(l.key, axisNames),
+    })),
     bid: bid && {
       status: bid.status as BidStatus,
       version: bid.version,
@@ -182,6 +192,9 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
             <p className="mb-4 text-sm text-ink-600">
               Enter the price of one item; the line total is that times the quantity. If you would fit a different part, tick “Alternative” and say what it is.
               Enter 0 for a line included in another.
+              {d.spec.axes.length
+                ? ` A machine of ${d.spec.axes.length} axes (${d.spec.axes.join(", ")}) on one power unit: the power unit's lines come first, then each axis's own.`
+                : ""}
             </p>
             <TableScroll label="Prices by line">
               <table className="w-full min-w-[44rem] text-left text-sm">
@@ -209,8 +222,17 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                     const bill = d.bill[i];
                     const isAlternative = typed[i]?.alternative === "on";
                     const c = cents[i];
+                    // A machine's bill is grouped: a heading row where the power unit or an axis begins.
+                    const startsGroup = bill.serves !== null && bill.serves !== d.bill[i - 1]?.serves;
                     return (
                       <Fragment key={line.key}>
+                        {startsGroup ? (
+                          <tr className="border-t-2 border-ink-200" data-bill-group={bill.serves}>
+                            <th scope="colgroup" colSpan={5} className="px-2 py-1.5 text-left text-xs font-semibold uppercase tracking-wide text-ink-700">
+                              {bill.serves}
+                            </th>
+                          </tr>
+                        ) : null}
                         <tr className="border-t border-ink-100 align-top">
                           <td className="py-2 pr-3">
                             <input {...getInputProps(f.key, { type: "hidden" })} key={f.key.key} />

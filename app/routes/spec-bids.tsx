@@ -87,7 +87,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
     refusal.current.scrollIntoView({ block: "center" });
     refusal.current.focus();
   }, [actionData]);
-  const { columns, rows, cheapestCompleteId } = d.comparison;
+  const { columns, rows, subtotals, cheapestCompleteId } = d.comparison;
   const money = (c: number) => formatMoney(c, d.spec.currency);
   const cheapest = columns.find((c) => c.id === cheapestCompleteId);
   const { canAward } = d;
@@ -229,6 +229,11 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 {rows.map((row) => (
                   <tr key={row.key} className="border-t border-ink-100 align-top">
                     <th scope="row" className="sticky left-0 z-10 bg-white p-3 text-left font-normal">
+                      {row.serves ? (
+                        <span className="block text-xs font-semibold uppercase tracking-wide text-ink-500" data-serves="">
+                          {row.serves}
+                        </span>
+                      ) : null}
                       <span className="font-semibold text-ink-900">{row.item}</span>
                       <span className="text-ink-600"> × {row.quantity}</span>
                       {!row.inCurrentBill ? <span className="block text-xs text-signal-700">Only in an earlier revision</span> : null}
@@ -263,6 +268,19 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 ))}
               </tbody>
               <tfoot className="border-t-2 border-ink-300">
+                {/* A machine: what each offer asks for the power unit and for each axis (one set), so parts compare like for like. */}
+                {subtotals.map((g) => (
+                  <tr key={g.serves} className="border-b border-ink-100" data-subtotal={g.serves}>
+                    <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
+                      {g.serves}, one set
+                    </th>
+                    {g.cents.map((cents, i) => (
+                      <td key={columns[i].id} className="p-3 text-right tabular-nums">
+                        {cents === null ? <span className="text-ink-400">not priced</span> : money(cents)}
+                      </td>
+                    ))}
+                  </tr>
+                ))}
                 <tr>
                   <th scope="row" className="sticky left-0 bg-white p-3 text-left">
                     Total for {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}

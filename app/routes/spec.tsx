@@ -4,11 +4,9 @@ import type { Route } from "./+types/spec";
 import { requireUser } from "~/auth/permissions.server";
 import { can, viewerOf } from "~/auth/access-policy.server";
 import { specBackLink } from "~/auth/navigation";
-import { DesignReport } from "~/components/design-report";
-import { AxisRequirements } from "~/components/axis-requirements";
+import { PublishedReport } from "~/components/design-report";
 import { Badge, Button, ButtonLink, Notice, PageHeader } from "~/components/ui";
 import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
-import type { Design } from "~/hydraulics";
 import { QuotationPanel } from "~/components/quotation-facts";
 import { QuestionsPanel } from "~/components/questions-panel";
 import { quotationFacts } from "~/content/quotation-facts";
@@ -18,6 +16,7 @@ import { buyerNameFor, specForReader } from "~/services/spec-access.server";
 import { revisionsOf } from "~/services/specs.server";
 import { biddingPanelOf } from "~/services/bids.server";
 import { BidPanel } from "~/components/bid-panel";
+import { publishedDesignOf } from "~/services/published-design";
 import type { UnitSystem } from "~/units";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.title ?? "Spec"} · Tenderflow` }];
@@ -51,7 +50,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     latestRevision: revisions[0]?.number ?? 0,
     revisions: revisions.map((r) => ({ number: r.number, createdAt: r.createdAt.toISOString() })),
     revising: spec.revising,
-    design: (current?.axes[0]?.design ?? null) as Design | null,
+    // One axis or a machine of several: publishedDesignOf decides which.
+    published: publishedDesignOf(current),
     unitSystem: (user.unitSystem ?? "metric") as UnitSystem,
     quotation: current ? quotationFacts(current.answers) : null,
     attachments,
@@ -157,7 +157,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
           <QuotationPanel facts={d.quotation} attachments={d.attachments} />
         </div>
       ) : null}
-      {d.design && d.revision ? (
+      {d.published && d.revision ? (
         <p className="mb-3 flex justify-end">
           {/* A resource route: the browser downloads it, so no client-side navigation. */}
           <ButtonLink
@@ -169,10 +169,9 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
           </ButtonLink>
         </p>
       ) : null}
-      {d.design ? (
+      {d.published ? (
         <div className="space-y-6">
-          <AxisRequirements requirements={d.design.requirements} units={d.unitSystem} />
-          <DesignReport design={d.design} units={d.unitSystem} componentsTitle="Bill of materials" />
+          <PublishedReport published={d.published} units={d.unitSystem} componentsTitle="Bill of materials" />
         </div>
       ) : (
         <Notice>This draft has not been published yet, so it has no frozen design.</Notice>

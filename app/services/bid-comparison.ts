@@ -6,6 +6,7 @@ import type { BomLine } from "~/hydraulics";
 import type { BidLine } from "~/models/bid.server";
 import type { BidStatus } from "~/content/bid-status";
 import { lineTotalCents } from "~/content/money";
+import { servedBy } from "./published-design";
 
 export interface ComparedBid {
   id: string;
@@ -51,7 +52,15 @@ export interface ComparisonRow {
   quantity: number;
   specification: string;
   inCurrentBill: boolean;
+  /** a machine's bill: the axis the line serves, or the power unit; null for one axis */
+  serves: string | null;
   cells: (ComparisonCell | null)[];
+}
+
+/** A machine's offers split by what the lines serve: each bid's sum of its priced lines of the current bill (one set). */
+export interface ComparisonSubtotal {
+  serves: string;
+  cents: (number | null)[];
 }
 
 const SORTERS: Record<ComparisonSort, (a: ComparedBid, b: ComparedBid) => number> = {
@@ -61,7 +70,7 @@ const SORTERS: Record<ComparisonSort, (a: ComparedBid, b: ComparedBid) => number
   shop: (a, b) => a.shop.localeCompare(b.shop),
 };
 
-export function compareBids(bom: BomLine[], currentRevision: number, bids: ComparedBid[], sort: ComparisonSort = "total") {
+export function compareBids(bom: BomLine[], currentRevision: number, bids: ComparedBid[], sort: ComparisonSort = "total", axisNames: string[] = []) {
   const ordered = [...bids].sort((a, b) => SORTERS[sort](a, b) || a.totalCents - b.totalCents || a.id.localeCompare(b.id));
   const priced = ordered.map((bid) => new Map(bid.lines.filter((l) => l.unitPriceCents !== null).map((l) => [l.key, l])));
 
@@ -90,7 +99,15 @@ export function compareBids(bom: BomLine[], currentRevision: number, bids: Compa
         const min = Math.min(...charged.map((c) => c.lineTotalCents));
         for (const c of charged) c.lowest = c.lineTotalCents === min;
       }
-      return { key: line.key, item: line.item, quantity: line.quantity, specification: line.specification, inCurrentBill: line.inCurrentBill, cells };
+      return {
+        key: line.key,
+        item: line.item,
+        quantity: line.quantity,
+        specification: line.specification,
+        inCurrentBill: line.inCurrentBill,
+        serves: servedBy(line.key, axisNames),
+        cells,
+      };
     },
   );
 
@@ -108,5 +125,14 @@ export function compareBids(bom: BomLine[], currentRevision: number, bids: Compa
     cheapestComplete: complete[i] && bid.totalCents === cheapest,
     shortestLead: ordered.length > 1 && bid.leadTimeWeeks !== null && bid.leadTimeWeeks === shortest,
   }));
-  return { columns, rows, cheapestCompleteId: columns.find((c) => c.cheapestComplete)?.id ?? null };
+  // In the bill's order: the power unit, then each axis. Null where a bid prices none of a part's lines.
+  const subtotals: ComparisonSubtotal[] = [];
+  for (const row of rows.filter((r) => r.inCurrentBill && r.serves !== null)) {
+    let group = subtotals.find((g) => g.serves === row.serves);
+    if (!group) subtotals.push((group = { serves: row.serves!, cents: ordered.map(() => null) }));
+    row.cells.forEach((cell, i) => {
+      if (cell) group.cents[i] = (group.cents[i] ?? 0) + cell.lineTotalCents;
+    });
+  }
+  return { columns, rows, subtotals, cheapestCompleteId: columns.find((c) => c.cheapestComplete)?.id ?? null };
 }

@@ -1,10 +1,11 @@
 import { Op, QueryTypes, type Transaction } from "sequelize";
-import type { BomLine, Design } from "~/hydraulics";
+import type { BomLine } from "~/hydraulics";
 import { Bid, BidVersion, Organisation, Spec, SpecRevision, User, sequelize } from "~/models/index.server";
 import type { BidLine, BidOffer } from "~/models/bid.server";
 import type { BidInput } from "~/schemas/bid";
 import { bidTotals, parseMoney } from "~/content/money";
 import { compareBids, type ComparisonSort } from "./bid-comparison";
+import { axisNamesOf, publishedDesignOf } from "./published-design";
 import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { bidOfferedMail, bidWithdrawnMail } from "./mail-templates.server";
@@ -20,10 +21,19 @@ import type { BidStatus } from "~/content/bid-status";
 // the database clock, with the spec row share-locked so an award (which locks it for update)
 // cannot slip in between.
 
+/**
+ * The bill shops price of a spec revision (the current one by default): the axis's, or the
+ * machine's with its axis names (none for one axis), so each line can say which axis it serves.
+ */
+export async function billOfRevision(spec: Spec, revision = spec.currentRevision, transaction?: Transaction): Promise<{ bom: BomLine[]; axisNames: string[] }> {
+  const row = await SpecRevision.findOne({ where: { specId: spec.id, number: revision }, transaction });
+  const published = publishedDesignOf(row);
+  return { bom: published?.design.bom ?? [], axisNames: axisNamesOf(published) };
+}
+
 /** The bill of materials of a spec revision (the current one by default). */
 export async function bomOf(spec: Spec, revision = spec.currentRevision, transaction?: Transaction): Promise<BomLine[]> {
-  const row = await SpecRevision.findOne({ where: { specId: spec.id, number: revision }, transaction });
-  return ((row?.axes[0]?.design ?? null) as Design | null)?.bom ?? [];
+  return (await billOfRevision(spec, revision, transaction)).bom;
 }
 
 /** The acting shop's bid on a spec, or null. */
@@ -210,7 +220,7 @@ async function offeredBids(user: User, spec: Spec) {
 
 /** The buyer's side-by-side comparison of a spec's offers (page and workbook alike). */
 export async function comparisonOf(user: User, spec: Spec, sort: ComparisonSort = "total") {
-  const [bom, bids] = await Promise.all([bomOf(spec), offeredBids(user, spec)]);
+  const [{ bom, axisNames }, bids] = await Promise.all([billOfRevision(spec), offeredBids(user, spec)]);
   const comparison = compareBids(
     bom,
     spec.currentRevision,
@@ -228,6 +238,7 @@ export async function comparisonOf(user: User, spec: Spec, sort: ComparisonSort 
       notes: b.notes,
     })),
     sort,
+    axisNames,
   );
   return { bids, comparison };
 }

@@ -32,13 +32,13 @@ export const axisNamesOf = (published: PublishedDesign | null): string[] => (pub
 export const POWER_UNIT_LABEL = "Power unit";
 
 /**
- * Which axis a bill line serves: a machine's axis lines carry the axis in their key
- * (`cylinder:Clamp`, machine-bom.ts); every other line belongs to the one power unit. Null for a
- * design of one axis, where the question does not arise.
+ * Which axis a bill line serves: a machine's axis lines carry the axis after the first colon of
+ * their key (`cylinder:Clamp`, machine-bom.ts; the engine's own keys have none), so a line of an
+ * older revision still names its axis; every other line belongs to the one power unit. Null for
+ * a design of one axis, where the question does not arise.
  */
 export function servedBy(key: string, axisNames: string[]): string | null {
   if (!axisNames.length) return null;
-  // The longest name that fits, should one name end with another after a colon ("B", "A:B").
-  const fits = axisNames.filter((name) => key.endsWith(`:${name}`)).sort((x, y) => y.length - x.length);
-  return fits[0] ?? POWER_UNIT_LABEL;
+  const colon = key.indexOf(":");
+  return colon >= 0 ? key.slice(colon + 1) : POWER_UNIT_LABEL;
 }

@@ -1,6 +1,7 @@
 // Test data made through the app's own services, so tests exercise the real rules.
 import { randomBytes } from "node:crypto";
-import { Bid, Organisation, User, sequelize, type Spec } from "~/models/index.server";
+import { Bid, Organisation, SpecRevision, User, sequelize, type Spec } from "~/models/index.server";
+import { MACHINE_DUTY_FIELDS, type MachineDesign } from "~/hydraulics";
 import { hashPassword, signUp } from "~/services/accounts.server";
 import type { Role } from "~/auth/roles";
 
@@ -88,6 +89,38 @@ export async function makePublishedSpec(buyer: User, overrides: SpecOverrides = 
     await saveStep(buyer, draft.id, { step, answers: { ...SPEC_ANSWERS[step], ...overrides[step] } as Record<string, string>, complete: true });
   }
   return publish(buyer, draft.id, { cautionsRead: true });
+}
+
+/**
+ * A published spec whose revision 1 is a machine of several axes (`sizeMachine`'s design), as
+ * publishing a machine stores it: `spec_revisions.machine` the MachineDesign, `axes` one entry per
+ * axis, the answers in the draft's machine layout (content/spec-draft.ts). Published through the
+ * real services first, so deadlines, mail and status are the app's own.
+ */
+export async function makePublishedMachineSpec(buyer: User, machine: MachineDesign, overrides: SpecOverrides = {}) {
+  const spec = await makePublishedSpec(buyer, overrides);
+  const ids = machine.axes.map((_, i) => `ax${String(i + 1).padStart(4, "0")}`);
+  const typed = (v: unknown) => (v === undefined || v === null ? "" : String(v));
+  const answers: Record<string, Record<string, string>> = {
+    ...spec.answers,
+    machine: { ...spec.answers.machine, axes: ids.join(" "), ...Object.fromEntries(machine.axes.map((a, i) => [`name-${ids[i]}`, a.name])) },
+    duty: { ...spec.answers.duty, ...Object.fromEntries(MACHINE_DUTY_FIELDS.map((k) => [k, typed(machine.requirements[k])])) },
+  };
+  machine.axes.forEach((a, i) => {
+    const r = a.requirements as unknown as Record<string, unknown>;
+    answers[`${ids[i]}-mounting`] = Object.fromEntries(["orientation", "inclineDeg", "rodDirection", "mounting", "mountingStyle"].map((k) => [k, typed(r[k])]));
+    answers[`${ids[i]}-motion`] = Object.fromEntries(
+      ["massKg", "processForceN", "frictionCoefficient", "strokeMm", "extendSpeedMmS", "retractSpeedMmS", "pressStrokeMm", "pressSpeedMmS", "accelTimeS"].map(
+        (k) => [k, typed(r[k])],
+      ),
+    );
+  });
+  await SpecRevision.update(
+    { machine, axes: machine.axes.map((a) => ({ name: a.name, requirements: a.requirements, design: a })), answers, unitSystem: "metric" },
+    { where: { specId: spec.id, number: 1 } },
+  );
+  await spec.update({ answers, reliefSettingBar: machine.pressuresBar.reliefSetting, pumpFlowLpm: machine.flowsLpm.pump });
+  return spec;
 }
 
 let jobSerial = 0;

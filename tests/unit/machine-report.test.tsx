@@ -43,13 +43,13 @@ describe("MachineReport", () => {
     expect(html.split("data-power-unit=").length - 1).toBe(1);
     const unit = sectionOf(html, "data-power-unit=");
     expect(figure(unit, "Pump")).toBe(formatQuantity("flow", machine.flowsLpm.pump, "metric"));
-    expect(unit).toContain(`compensated pump, ${formatQuantity("displacement", machine.pump.displacementCcRev, "metric")}`);
+    const kind = { fixed: "fixed pump", compensated: "compensated pump", double: "double pump" }[machine.pump.type];
+    expect(unit).toContain(`${kind}, ${machine.pump.displacementsCcRev.map((cc) => formatQuantity("displacement", cc, "metric")).join(" + ")}`);
     expect(figure(unit, "Motor rating")).toBe(formatQuantity("power", machine.motor.ratedKw, "metric"));
     expect(figure(unit, "Relief setting")).toBe(formatQuantity("pressure", machine.pressuresBar.reliefSetting, "metric"));
-    expect(figure(unit, "Compensator")).toBe(formatQuantity("pressure", machine.pump.compensatorBar!, "metric"));
+    if (machine.pump.compensatorBar !== undefined) expect(figure(unit, "Compensator")).toBe(formatQuantity("pressure", machine.pump.compensatorBar, "metric"));
     expect(figure(unit, "Reservoir")).toBe(formatQuantity("volume", machine.reservoir.volumeL, "metric"));
-    expect(machine.cooler).not.toBeNull();
-    expect(figure(unit, "Cooler")).toBe(formatQuantity("power", machine.cooler!.kw, "metric"));
+    expect(figure(unit, "Cooler")).toBe(machine.cooler ? formatQuantity("power", machine.cooler.kw, "metric") : "None needed");
     expect(figure(unit, "Pressure line")).toContain(`${Math.round(machine.lines.pressure.innerDiameterMm)} mm bore`);
   });
 
@@ -96,7 +96,7 @@ describe("MachineReport", () => {
 });
 
 describe("servedBy", () => {
-  it("names the longest axis a key ends with, and nothing for a design of one axis", () => {
+  it("names the axis after the key's first colon, the power unit without one, and nothing for a design of one axis", () => {
     expect(servedBy("cylinder:Clamp", ["Clamp", "Main Clamp"])).toBe("Clamp");
     expect(servedBy("cylinder:Main Clamp", ["Clamp", "Main Clamp"])).toBe("Main Clamp");
     expect(servedBy("cylinder:A:B", ["B", "A:B"])).toBe("A:B");

@@ -1,5 +1,6 @@
 import type ExcelJS from "exceljs";
-import type { Design } from "~/hydraulics";
+import type { TrailEntry } from "~/hydraulics";
+import { axisNamesOf, servedBy, type PublishedDesign } from "../published-design";
 import type { QuotationFacts } from "~/content/quotation-facts";
 import type { SpecAnswers } from "~/models/spec.server";
 import type { UnitSystem } from "~/units";
@@ -31,7 +32,8 @@ export interface BillInput {
   engineVersion: string;
   /** Null when the reader is a shop: the buyer is not named to shops (buyerNameFor). */
   buyerName: string | null;
-  design: Design;
+  /** One axis or a machine of several (publishedDesignOf). */
+  published: PublishedDesign;
   /** The step answers frozen into the revision, as typed, in `enteredIn` units. */
   answers: SpecAnswers;
   enteredIn: UnitSystem;
@@ -85,8 +87,14 @@ function quotationFacts(q: QuotationFacts): [string, string][] {
 
 const STATUS_FACT: [string, string] = ["Status", "Preliminary circuit for quotation: see the Cautions sheet before anyone builds from it."];
 
+/** A machine's bill names the axis each line serves, beside its key. */
+const SERVES_COLUMN: Column = { header: "Serves", width: 16, wrap: true };
+
 function addBomSheet(workbook: ExcelJS.Workbook, input: BillInput) {
-  const sheet = addSheet(workbook, BILL_SHEETS[0], BOM_COLUMNS);
+  const axes = axisNamesOf(input.published);
+  const columns = axes.length ? [BOM_COLUMNS[0], SERVES_COLUMN, ...BOM_COLUMNS.slice(1)] : BOM_COLUMNS;
+  const bom = input.published.design.bom;
+  const sheet = addSheet(workbook, BILL_SHEETS[0], columns);
   const block: HeaderBlock = {
     document: "Bill of materials",
     specTitle: input.title,
@@ -96,22 +104,32 @@ function addBomSheet(workbook: ExcelJS.Workbook, input: BillInput) {
   writeTableHeader(
     sheet,
     head,
-    BOM_COLUMNS.map((c) => c.header),
-    BOM_COLUMNS,
+    columns.map((c) => c.header),
+    columns,
   );
   freezeAt(sheet, head);
-  input.design.bom.forEach((line, i) => {
+  bom.forEach((line, i) => {
     const row = sheet.getRow(head + 1 + i);
-    row.values = [line.key, line.item, line.quantity, line.specification, line.rating.value, line.rating.unit, line.rating.label];
-    row.getCell(5).numFmt = quantityFormat(line.rating.value);
-    styleBodyRow(row, BOM_COLUMNS);
+    const serves = servedBy(line.key, axes);
+    row.values = [
+      line.key,
+      ...(serves === null ? [] : [serves]),
+      line.item,
+      line.quantity,
+      line.specification,
+      line.rating.value,
+      line.rating.unit,
+      line.rating.label,
+    ];
+    row.getCell(serves === null ? 5 : 6).numFmt = quantityFormat(line.rating.value);
+    styleBodyRow(row, columns);
   });
-  // A filter on the header row: readers narrow the bill to hoses, valves…
-  sheet.autoFilter = { from: { row: head, column: 1 }, to: { row: head + input.design.bom.length, column: BOM_COLUMNS.length } };
+  // A filter on the header row: readers narrow the bill to hoses, valves… or to one axis.
+  sheet.autoFilter = { from: { row: head, column: 1 }, to: { row: head + bom.length, column: columns.length } };
 }
 
 /** "m = 800 kg", one input a line. */
-function inputsText(inputs: Design["trail"][number]["inputs"]): string {
+function inputsText(inputs: TrailEntry["inputs"]): string {
   return Object.entries(inputs)
     .map(([name, input]) => {
       const value = typeof input.value === "number" ? shortNumber(input.value) : input.value;
@@ -130,7 +148,7 @@ function addTrailSheet(workbook: ExcelJS.Workbook, input: BillInput) {
     TRAIL_COLUMNS,
   );
   freezeAt(sheet, head);
-  input.design.trail.forEach((entry, i) => {
+  input.published.design.trail.forEach((entry, i) => {
     const row = sheet.getRow(head + 1 + i);
     row.values = [entry.quantity, entry.value, entry.unit === "-" ? "" : entry.unit, entry.formula, inputsText(entry.inputs), entry.source];
     if (typeof entry.value === "number") row.getCell(2).numFmt = quantityFormat(entry.value);
@@ -144,6 +162,6 @@ export function buildBillWorkbook(input: BillInput): ExcelJS.Workbook {
   addBomSheet(workbook, input);
   addTrailSheet(workbook, input);
   addRequirementsSheet(workbook, input, { document: "Requirements", specTitle: input.title, facts: billFacts(input) });
-  addCautionsSheet(workbook, { document: "", specTitle: input.title, facts: billFacts(input) }, input.design.warnings);
+  addCautionsSheet(workbook, { document: "", specTitle: input.title, facts: billFacts(input) }, input.published.design.warnings);
   return workbook;
 }

@@ -15,6 +15,7 @@ import {
   labelCell,
   money,
   newWorkbook,
+  ranges,
   styleBodyRow,
   styleHeadCell,
   topRule,
@@ -51,7 +52,7 @@ const PER_SHOP = 3;
 /** Columns of offer `i` (0-based): unit price, line total, alternative. */
 const shopColumns = (i: number) => ({ unit: FIXED + 1 + PER_SHOP * i, total: FIXED + 2 + PER_SHOP * i, alternative: FIXED + 3 + PER_SHOP * i });
 
-function comparisonColumns(shops: number, fmt: string): Column[] {
+function comparisonColumns(shops: number, fmt: string, machine: boolean): Column[] {
   const perShop: Column[] = [
     { header: "Unit price", width: 13, align: "right", numFmt: fmt },
     { header: "Line total", width: 14, align: "right", numFmt: fmt },
@@ -61,7 +62,8 @@ function comparisonColumns(shops: number, fmt: string): Column[] {
     { header: "Line key", width: 20 },
     { header: "Item", width: 28, wrap: true },
     { header: "Qty", width: 6, align: "right", numFmt: "0" },
-    { header: "Note", width: 14, wrap: true, indent: 1 },
+    // A machine's lines say which axis (or the power unit) they serve here.
+    { header: machine ? "Serves; note" : "Note", width: machine ? 18 : 14, wrap: true, indent: 1 },
     ...Array.from({ length: shops }, () => perShop).flat(),
     ...(shops ? [{ header: "Lowest line total", width: 14, align: "right" as const, numFmt: fmt }] : []),
   ];
@@ -85,7 +87,11 @@ const MARKS: [string, string] = [
 function addComparisonSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) {
   const { columns: offers, rows, cheapestCompleteId } = input.comparison;
   const fmt = currencyFormat(input.currency);
-  const columns = comparisonColumns(offers.length, fmt);
+  const columns = comparisonColumns(
+    offers.length,
+    fmt,
+    rows.some((r) => r.serves !== null),
+  );
   const sheet = addSheet(workbook, COMPARISON_SHEETS[0], columns);
   const shopsRow = writeHeaderBlock(sheet, { document: "Comparison of the offers", specTitle: input.title, facts: [...comparisonFacts(input), MARKS] });
   const head = shopsRow + 1;
@@ -114,7 +120,7 @@ function addComparisonSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) 
   rows.forEach((line, r) => {
     const at = first + r;
     const row = sheet.getRow(at);
-    row.values = [line.key, line.item, line.quantity, line.inCurrentBill ? "" : "Only in an earlier revision"];
+    row.values = [line.key, line.item, line.quantity, [line.serves, line.inCurrentBill ? null : "Only in an earlier revision"].filter(Boolean).join("; ")];
     line.cells.forEach((cell, i) => {
       const c = shopColumns(i);
       if (!cell) {
@@ -145,6 +151,7 @@ function addComparisonSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) 
   });
 
   const footer = writeOfferFooter(sheet, input, { first, last, cheapestCompleteId, fmt, width: columns.length });
+  writeSubtotals(sheet, input, { first, fmt, after: footer.alternatives });
   // A rule down the left of each offer (and of the lowest column) keeps the shops apart.
   const starts = [...offers.map((_, i) => shopColumns(i).unit), ...(offers.length ? [lowestColumn] : [])];
   for (let r = shopsRow; r <= footer.alternatives; r++) {
@@ -214,6 +221,28 @@ function writeOfferFooter(
     if (offer.alternatives) alts.fill = FILLS.note;
   });
   return { set, units, total, more, lead, valid, status, revision, complete, alternatives };
+}
+
+/**
+ * A machine: below the footer, what each offer asks for the power unit and for each axis (one
+ * set), each a SUM over that part's lines of the current bill, with the comparison's own sum as result.
+ */
+function writeSubtotals(sheet: ExcelJS.Worksheet, input: ComparisonInput, at: { first: number; fmt: string; after: number }) {
+  const { rows, subtotals, columns: offers } = input.comparison;
+  let r = at.after + 1;
+  for (const part of subtotals) {
+    const lines = rows.flatMap((row, i) => (row.inCurrentBill && row.serves === part.serves ? [at.first + i] : []));
+    labelCell(sheet, ++r, `${part.serves}, one set`);
+    offers.forEach((_, i) => {
+      const cents = part.cents[i];
+      if (cents === null) return;
+      const col = shopColumns(i).total;
+      const cell = sheet.getCell(r, col);
+      cell.value = { formula: `SUM(${ranges(sheet.getColumn(col).letter, lines)})`, result: money(cents) };
+      cell.numFmt = at.fmt;
+      cell.alignment = { horizontal: "right" };
+    });
+  }
 }
 
 const OFFER_COLUMNS = (fmt: string): Column[] => [

@@ -1,4 +1,3 @@
-import type { Design } from "~/hydraulics";
 import { Bid, Organisation, Spec, SpecRevision, type User } from "~/models/index.server";
 import { quotationFacts } from "~/content/quotation-facts";
 import type { UnitSystem } from "~/units";
@@ -8,6 +7,7 @@ import { notFound } from "../errors.server";
 import { scopedJob } from "../job-reads.server";
 import { buyerNameFor, specFor, specForReader } from "../spec-access.server";
 import { revisionsOf } from "../specs.server";
+import { axisNamesOf, publishedDesignOf } from "../published-design";
 import type { BillInput } from "./bill-workbook.server";
 import type { ComparisonInput } from "./comparison-workbook.server";
 import type { PricedBillInput } from "./priced-bill-workbook.server";
@@ -22,8 +22,6 @@ import type { PricedBillInput } from "./priced-bill-workbook.server";
 // - the comparison: the spec's own buyer only (the route lets only buyers in).
 // Everyone else gets the same 404 as for a spec or job that does not exist.
 
-const designOf = (revision: SpecRevision) => (revision.axes[0]?.design ?? null) as Design | null;
-
 async function organisationName(id: string) {
   return (await Organisation.findByPk(id, { attributes: ["name"] }))?.name ?? "";
 }
@@ -34,15 +32,15 @@ export async function billSource(user: User, specId: string | undefined, revisio
   const revisions = await revisionsOf(spec);
   const asked = Number(revisionParam);
   const revision = (revisionParam ? revisions.find((r) => r.number === asked) : revisions[0]) ?? null;
-  const design = revision && designOf(revision);
-  if (!revision || !design) notFound(revisionParam ? "No such revision." : "This spec has no published revision yet.");
+  const published = publishedDesignOf(revision);
+  if (!revision || !published) notFound(revisionParam ? "No such revision." : "This spec has no published revision yet.");
   return {
     title: spec.title,
     revision: revision.number,
     publishedAt: revision.createdAt,
     engineVersion: revision.engineVersion,
     buyerName: await buyerNameFor(user, spec),
-    design,
+    published,
     answers: revision.answers,
     enteredIn: revision.unitSystem,
     readerUnits: (user.unitSystem ?? "metric") as UnitSystem,
@@ -74,7 +72,8 @@ export async function pricedBillSource(user: User, jobId: string | undefined): P
     validUntil: bid.validUntil,
     terms: bid.terms,
     notes: bid.notes,
-    warnings: designOf(revision)?.warnings ?? [],
+    axisNames: axisNamesOf(publishedDesignOf(revision)),
+    warnings: publishedDesignOf(revision)?.design.warnings ?? [],
     exportedAt: new Date(),
   };
 }
@@ -96,7 +95,7 @@ export async function comparisonSource(user: User, specId: string | undefined, s
     currency: spec.currency,
     comparison,
     offers: Object.fromEntries(bids.map((b) => [b.id, { units: b.units, terms: b.terms, notes: b.notes }])),
-    warnings: designOf(revision)?.warnings ?? [],
+    warnings: publishedDesignOf(revision)?.design.warnings ?? [],
     exportedAt: new Date(),
   };
 }

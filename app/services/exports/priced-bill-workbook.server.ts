@@ -2,6 +2,7 @@ import type ExcelJS from "exceljs";
 import type { Warning } from "~/hydraulics";
 import type { BidLine } from "~/models/bid.server";
 import { lineTotalCents } from "~/content/money";
+import { servedBy } from "../published-design";
 import {
   FILLS,
   addCautionsSheet,
@@ -13,6 +14,7 @@ import {
   labelCell,
   money,
   newWorkbook,
+  ranges,
   styleBodyRow,
   topRule,
   writeHeaderBlock,
@@ -47,13 +49,18 @@ export interface PricedBillInput {
   validUntil: string | null;
   terms: string;
   notes: string;
+  /** A machine's axes (none for one axis): each line then says what it serves, and each part has its subtotal. */
+  axisNames: string[];
   warnings: Warning[];
   exportedAt: Date;
 }
 
 const PRICED_SHEETS = ["Priced bill", "Cautions"] as const;
 
-function pricedColumns(currency: string): Column[] {
+// Last, so the money columns keep their letters (E, F) whatever the bill is.
+const SERVES_COLUMN: Column = { header: "Serves", width: 16, wrap: true };
+
+function pricedColumns(currency: string, machine: boolean): Column[] {
   const fmt = currencyFormat(currency);
   return [
     { header: "Line key", width: 22 },
@@ -64,6 +71,7 @@ function pricedColumns(currency: string): Column[] {
     { header: "Line total", width: 15, align: "right", numFmt: fmt },
     { header: "Offered part", width: 14, indent: 1 },
     { header: "Alternative offered", width: 34, wrap: true },
+    ...(machine ? [SERVES_COLUMN] : []),
   ];
 }
 
@@ -82,7 +90,7 @@ function pricedFacts(input: PricedBillInput): [string, string][] {
 }
 
 function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
-  const columns = pricedColumns(input.currency);
+  const columns = pricedColumns(input.currency, input.axisNames.length > 0);
   const fmt = currencyFormat(input.currency);
   const sheet = addSheet(workbook, PRICED_SHEETS[0], columns);
   const head = writeHeaderBlock(sheet, { document: "Priced bill of the awarded bid", specTitle: input.title, facts: pricedFacts(input) });
@@ -108,6 +116,7 @@ function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
       { formula: `D${r}*E${r}`, result: money(lineTotalCents({ quantity: line.quantity, unitPriceCents: unitCents })) },
       line.alternative ? "Alternative" : "As specified",
       line.alternative ? line.alternativeDescription : "",
+      ...(input.axisNames.length ? [servedBy(line.key, input.axisNames)] : []),
     ];
     styleBodyRow(row, columns);
     if (line.alternative) for (const c of [7, 8]) row.getCell(c).fill = FILLS.note;
@@ -149,6 +158,20 @@ function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
   put(charged, "Retainer as the portal charges it (exact cents)", money(input.retainerCents)).numFmt = fmt;
 
   let at = charged + 2;
+  // A machine: what the power unit and each axis cost in one set, each a SUM over its own lines.
+  const parts = new Map<string, number[]>();
+  input.lines.forEach((line, i) => {
+    const serves = servedBy(line.key, input.axisNames);
+    if (serves !== null) parts.set(serves, [...(parts.get(serves) ?? []), first + i]);
+  });
+  for (const [serves, rows] of parts) {
+    const cents = rows.reduce(
+      (sum, r) => sum + lineTotalCents({ quantity: input.lines[r - first].quantity, unitPriceCents: input.lines[r - first].unitPriceCents ?? 0 }),
+      0,
+    );
+    put(at++, `${serves}, one set`, { formula: `SUM(${ranges("F", rows)})`, result: money(cents) }).numFmt = fmt;
+  }
+  if (parts.size) at++;
   if (input.terms.trim()) writeTextRow(sheet, at++, "Terms", input.terms.trim(), columns);
   if (input.notes.trim()) writeTextRow(sheet, at++, "Notes", input.notes.trim(), columns);
   return { sheet, first, last, set, units, total, share, retainer, charged };

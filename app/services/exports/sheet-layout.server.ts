@@ -263,3 +263,14 @@ export function writeTextRow(sheet: ExcelJS.Worksheet, rowNumber: number, label:
   ]);
   return row;
 }
+
+/** "F3:F10,F14": the rows as few ranges of one column. */
+export function ranges(column: string, rows: number[]): string {
+  const runs: [number, number][] = [];
+  for (const r of rows) {
+    const run = runs[runs.length - 1];
+    if (run && r === run[1] + 1) run[1] = r;
+    else runs.push([r, r]);
+  }
+  return runs.map(([a, b]) => (a === b ? `${column}${a}` : `${column}${a}:${column}${b}`)).join(",");
+}

@@ -165,7 +165,8 @@ export default function SpecStep({ loaderData, actionData }: Route.ComponentProp
         />
       ) : (
         <SpecStepForm
-          key={step.id}
+          // A new form where the stored answers changed (an axis added, moved or renamed by a button).
+          key={`${step.id} ${JSON.stringify(loaderData.stepAnswers)}`}
           specId={spec.id}
           step={step}
           previous={previousStep(loaderData.steps, step.id)}

@@ -1,3 +1,4 @@
+import { Fragment } from "react";
 import { Form, Link, type LinkProps } from "react-router";
 
 // The small set of shared building blocks that give every page the same look.
@@ -222,5 +223,73 @@ export function SortChoice({ options, current, search }: { options: Record<strin
         </Link>
       ))}
     </nav>
+  );
+}
+
+type Choice = { value: string; label: string };
+
+export interface ListFilter {
+  /** The URL parameter, and the select's id. */
+  name: string;
+  label: string;
+  /** The first choice, which filters nothing. */
+  any: string;
+  options: Choice[];
+}
+
+/** The filters of a list's search form: a labelled select each, showing what the URL asks for. */
+export function FilterSelects({ filters, search }: { filters: ListFilter[]; search: URLSearchParams }) {
+  return filters.map((f) => (
+    <Fragment key={f.name}>
+      <label htmlFor={f.name} className="sr-only">
+        {f.label}
+      </label>
+      <select id={f.name} name={f.name} defaultValue={search.get(f.name) ?? ""} className="rounded-md px-2 py-2 text-sm ring-1 ring-ink-200">
+        <option value="">{f.any}</option>
+        {f.options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </Fragment>
+  ));
+}
+
+/** A one-field form in a table row: choose, then Save. `fields` are posted alongside (intent, the row's id). */
+export function RowChoiceForm({
+  id,
+  name,
+  label,
+  options,
+  value,
+  fields,
+}: {
+  id: string;
+  name: string;
+  label: string;
+  options: Choice[];
+  value: string;
+  fields: Record<string, string>;
+}) {
+  return (
+    <Form method="post" className="flex items-center gap-1">
+      {Object.entries(fields).map(([field, v]) => (
+        <input key={field} type="hidden" name={field} value={v} />
+      ))}
+      <label htmlFor={id} className="sr-only">
+        {label}
+      </label>
+      <select id={id} name={name} defaultValue={value} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+      <Button type="submit" tone="secondary" className="px-2 py-1">
+        Save
+      </Button>
+    </Form>
   );
 }

@@ -97,6 +97,18 @@ function Fact({ label, children }: { label: string; children: React.ReactNode })
   );
 }
 
+/** One spec or job of the organisation: its title as a link, what stands beside it. */
+function RecordRow({ to, title, children }: { to: string; title: string; children: React.ReactNode }) {
+  return (
+    <li className="flex flex-wrap items-center justify-between gap-2 py-2">
+      <Link to={to} className="font-semibold text-flow-700 hover:underline">
+        {title || "Untitled spec"}
+      </Link>
+      <span className="flex flex-wrap items-center gap-2 text-ink-600">{children}</span>
+    </li>
+  );
+}
+
 function Specs({ specs }: { specs: NonNullable<OrganisationPage["specs"]> }) {
   return (
     <Card title={`Published specs (${specs.total})`}>
@@ -105,15 +117,10 @@ function Specs({ specs }: { specs: NonNullable<OrganisationPage["specs"]> }) {
       ) : (
         <ul className="divide-y divide-ink-100 text-sm">
           {specs.recent.map((s) => (
-            <li key={s.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
-              <Link to={`/specs/${s.id}`} className="font-semibold text-flow-700 hover:underline">
-                {s.title || "Untitled spec"}
-              </Link>
-              <span className="flex items-center gap-2 text-ink-600">
-                {s.publishedAt ? `published ${formatDay(s.publishedAt)}` : null}
-                <Badge tone={SPEC_STATUS_TONES[s.status]}>{SPEC_STATUS_LABELS[s.status]}</Badge>
-              </span>
-            </li>
+            <RecordRow key={s.id} to={`/specs/${s.id}`} title={s.title}>
+              {s.publishedAt ? `published ${formatDay(s.publishedAt)}` : null}
+              <Badge tone={SPEC_STATUS_TONES[s.status]}>{SPEC_STATUS_LABELS[s.status]}</Badge>
+            </RecordRow>
           ))}
         </ul>
       )}
@@ -133,16 +140,11 @@ function Jobs({ jobs, kind }: { jobs: NonNullable<OrganisationPage["jobs"]>; kin
         <>
           <ul className="divide-y divide-ink-100 text-sm">
             {jobs.recent.map((j) => (
-              <li key={j.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
-                <Link to={`/jobs/${j.id}`} className="font-semibold text-flow-700 hover:underline">
-                  {j.specTitle || "Untitled spec"}
-                </Link>
-                <span className="flex flex-wrap items-center gap-2 text-ink-600">
-                  {JOB_STAGE_LABELS[j.stage]} · {kind === "shop" ? j.buyerName : j.shopName}
-                  {j.next?.targetDate ? ` · next: ${j.next.label} by ${formatDay(j.next.targetDate)}` : ""}
-                  {j.overdue ? <Badge tone="bad">Overdue</Badge> : null}
-                </span>
-              </li>
+              <RecordRow key={j.id} to={`/jobs/${j.id}`} title={j.specTitle}>
+                {JOB_STAGE_LABELS[j.stage]} · {kind === "shop" ? j.buyerName : j.shopName}
+                {j.next?.targetDate ? ` · next: ${j.next.label} by ${formatDay(j.next.targetDate)}` : ""}
+                {j.overdue ? <Badge tone="bad">Overdue</Badge> : null}
+              </RecordRow>
             ))}
           </ul>
           <Link to={jobs.listLink} className="mt-3 inline-block text-sm text-flow-700 hover:underline">

@@ -4,7 +4,20 @@ import type { Route } from "./+types/admin.organisations";
 import { requireRole } from "~/auth/permissions.server";
 import { KIND_LABELS, ORGANISATION_KINDS, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { Badge, Button, Card, ErrorNotice, ListTable, PageHeader, Pager, SearchBar, SortChoice } from "~/components/ui";
+import {
+  Badge,
+  Button,
+  Card,
+  ErrorNotice,
+  FilterSelects,
+  ListTable,
+  type ListFilter,
+  PageHeader,
+  Pager,
+  RowChoiceForm,
+  SearchBar,
+  SortChoice,
+} from "~/components/ui";
 import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
 import { formatDay } from "~/content/dates";
@@ -16,6 +29,11 @@ import { assignAccountManager, listAccountManagers, listOrganisations } from "~/
 import { fieldErrorsOf } from "~/services/errors.server";
 import { openableOrganisations } from "~/services/organisation-page.server";
 import { countWaitingShops, decideShop, shopsAwaitingApproval } from "~/services/shop-approval.server";
+
+const FILTERS: ListFilter[] = [
+  { name: "kind", label: "Kind", any: "All kinds", options: ORGANISATION_KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] })) },
+  { name: "approval", label: "Approval", any: "Any approval", options: APPROVALS.map((a) => ({ value: a, label: APPROVAL_LABELS[a] })) },
+];
 
 export const meta: Route.MetaFunction = () => [{ title: "Organisations · Tenderflow" }];
 
@@ -192,28 +210,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
       <ErrorNotice error={loaderData.waiting.some((w) => w.id === actionData?.organisationId) ? null : actionData?.error} />
       <Card>
         <SearchBar label="Search organisations" placeholder="Organisation name" value={searchParams.get("q") ?? ""}>
-          <label htmlFor="kind" className="sr-only">
-            Kind
-          </label>
-          <select id="kind" name="kind" defaultValue={searchParams.get("kind") ?? ""} className="rounded-md px-2 py-2 text-sm ring-1 ring-ink-200">
-            <option value="">All kinds</option>
-            {ORGANISATION_KINDS.map((k) => (
-              <option key={k} value={k}>
-                {KIND_LABELS[k]}
-              </option>
-            ))}
-          </select>
-          <label htmlFor="approval" className="sr-only">
-            Approval
-          </label>
-          <select id="approval" name="approval" defaultValue={searchParams.get("approval") ?? ""} className="rounded-md px-2 py-2 text-sm ring-1 ring-ink-200">
-            <option value="">Any approval</option>
-            {APPROVALS.map((a) => (
-              <option key={a} value={a}>
-                {APPROVAL_LABELS[a]}
-              </option>
-            ))}
-          </select>
+          <FilterSelects filters={FILTERS} search={searchParams} />
         </SearchBar>
         <SortChoice options={LIST_SORTS.organisations} current={loaderData.sort} search={searchParams} />
         <ListTable label="Organisations" columns={["Organisation", "Kind", "Region", "Users", "Approval", "Account manager"]}>
@@ -242,23 +239,14 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
               </td>
               <td>
                 {o.kind === "buyer" ? (
-                  <Form method="post" className="flex items-center gap-1">
-                    <input type="hidden" name="organisationId" value={o.id} />
-                    <label htmlFor={`manager-${o.id}`} className="sr-only">
-                      Account manager of {o.name}
-                    </label>
-                    <select id={`manager-${o.id}`} name="managerId" defaultValue={o.accountManagerId} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
-                      <option value="">Nobody yet</option>
-                      {loaderData.managers.map((m) => (
-                        <option key={m.id} value={m.id}>
-                          {m.name}
-                        </option>
-                      ))}
-                    </select>
-                    <Button type="submit" tone="secondary" className="px-2 py-1">
-                      Save
-                    </Button>
-                  </Form>
+                  <RowChoiceForm
+                    id={`manager-${o.id}`}
+                    name="managerId"
+                    label={`Account manager of ${o.name}`}
+                    value={o.accountManagerId}
+                    options={[{ value: "", label: "Nobody yet" }, ...loaderData.managers.map((m) => ({ value: m.id, label: m.name }))]}
+                    fields={{ organisationId: o.id }}
+                  />
                 ) : (
                   <span className="text-ink-400">—</span>
                 )}

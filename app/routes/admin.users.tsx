@@ -5,7 +5,7 @@ import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS, type Role, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { ActiveBadge, Button, Card, ErrorNotice, ListTable, PageHeader, Pager, SearchBar, SortChoice } from "~/components/ui";
+import { ActiveBadge, Button, Card, ErrorNotice, ListTable, PageHeader, Pager, RowChoiceForm, SearchBar, SortChoice } from "~/components/ui";
 import { FieldErrors as FieldErrorText } from "~/components/form-field";
 import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
@@ -117,23 +117,14 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
               </td>
               <td>
                 {u.allowedRoles.length > 1 && u.id !== loaderData.adminId ? (
-                  <Form method="post" className="flex items-center gap-1">
-                    <input type="hidden" name="intent" value="change-role" />
-                    <input type="hidden" name="userId" value={u.id} />
-                    <label className="sr-only" htmlFor={`role-${u.id}`}>
-                      Role of {u.name}
-                    </label>
-                    <select id={`role-${u.id}`} name="role" defaultValue={u.role} className="rounded-md px-2 py-1 ring-1 ring-ink-200">
-                      {u.allowedRoles.map((r) => (
-                        <option key={r} value={r}>
-                          {ROLE_LABELS[r]}
-                        </option>
-                      ))}
-                    </select>
-                    <Button type="submit" tone="secondary" className="px-2 py-1">
-                      Save
-                    </Button>
-                  </Form>
+                  <RowChoiceForm
+                    id={`role-${u.id}`}
+                    name="role"
+                    label={`Role of ${u.name}`}
+                    value={u.role}
+                    options={u.allowedRoles.map((r) => ({ value: r, label: ROLE_LABELS[r] }))}
+                    fields={{ intent: "change-role", userId: u.id }}
+                  />
                 ) : (
                   ROLE_LABELS[u.role]
                 )}

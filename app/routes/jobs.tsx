@@ -4,7 +4,7 @@ import { RetainerBadge } from "~/components/retainer-badge";
 import { requireUser } from "~/auth/permissions.server";
 import type { Role } from "~/auth/roles";
 import { JobsByStageChart } from "~/components/jobs-by-stage-chart";
-import { Badge, Card, EmptyState, ListTable, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { Badge, Card, EmptyState, FilterSelects, ListTable, type ListFilter, PageHeader, Pager, SearchBar } from "~/components/ui";
 import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
 import { formatMoney } from "~/content/money";
@@ -55,7 +55,18 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
-const selectClass = "rounded-md px-2 py-2 text-sm ring-1 ring-ink-200";
+const RETAINER_CHOICES = { paid: "Retainer paid", unpaid: "Retainer not paid", refunded: "Retainer paid back (part or all)" };
+
+/** The list's filters; the account filter only where the viewer follows several buyers. */
+function filtersFor(accounts: { id: string; name: string }[]): ListFilter[] {
+  const filters: ListFilter[] = [
+    { name: "stage", label: "Stage", any: "Any stage", options: JOB_STAGES.map((s) => ({ value: s, label: JOB_STAGE_LABELS[s] })) },
+    { name: "retainer", label: "Retainer", any: "Retainer paid or not", options: Object.entries(RETAINER_CHOICES).map(([value, label]) => ({ value, label })) },
+  ];
+  if (accounts.length > 0)
+    filters.push({ name: "account", label: "Buyer account", any: "Every buyer", options: accounts.map((a) => ({ value: a.id, label: a.name })) });
+  return filters;
+}
 
 export default function Jobs({ loaderData: d }: Route.ComponentProps) {
   const [params] = useSearchParams();
@@ -75,41 +86,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
           </Card>
           <Card>
             <SearchBar label="Search jobs by spec title" placeholder="Spec title" value={params.get("q") ?? ""}>
-              <label className="sr-only" htmlFor="stage">
-                Stage
-              </label>
-              <select id="stage" name="stage" defaultValue={params.get("stage") ?? ""} className={selectClass}>
-                <option value="">Any stage</option>
-                {JOB_STAGES.map((s) => (
-                  <option key={s} value={s}>
-                    {JOB_STAGE_LABELS[s]}
-                  </option>
-                ))}
-              </select>
-              <label className="sr-only" htmlFor="retainer">
-                Retainer
-              </label>
-              <select id="retainer" name="retainer" defaultValue={params.get("retainer") ?? ""} className={selectClass}>
-                <option value="">Retainer paid or not</option>
-                <option value="paid">Retainer paid</option>
-                <option value="unpaid">Retainer not paid</option>
-                <option value="refunded">Retainer paid back (part or all)</option>
-              </select>
-              {d.accounts.length > 0 ? (
-                <>
-                  <label className="sr-only" htmlFor="account">
-                    Buyer account
-                  </label>
-                  <select id="account" name="account" defaultValue={params.get("account") ?? ""} className={selectClass}>
-                    <option value="">Every buyer</option>
-                    {d.accounts.map((a) => (
-                      <option key={a.id} value={a.id}>
-                        {a.name}
-                      </option>
-                    ))}
-                  </select>
-                </>
-              ) : null}
+              <FilterSelects filters={filtersFor(d.accounts)} search={params} />
               {params.get("shop") ? <input type="hidden" name="shop" value={params.get("shop") ?? ""} /> : null}
               <label className="flex items-center gap-2 px-2 text-sm">
                 <input type="checkbox" name="overdue" value="1" defaultChecked={params.has("overdue")} />

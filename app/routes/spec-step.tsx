@@ -145,7 +145,7 @@ export default function SpecStep({ loaderData, actionData }: Route.ComponentProp
           ← My specs
         </Link>
       </p>
-      <PageHeader title={spec.title || "New spec"} lead={step.axis ? `${step.axis.name} · ${step.title}: ${step.lead}` : `${step.title}: ${step.lead}`} />
+      <PageHeader title={spec.title || "New spec"} lead={`${step.title}: ${step.lead}`} />
       {spec.revising ? (
         <div className="mb-4">
           <Notice tone="warn">You are preparing revision {spec.nextRevision}. Shops keep seeing the published revision until you publish this one.</Notice>

@@ -120,6 +120,11 @@ export const ASSUMPTIONS = {
     "unloading valve of a high-low pump set 10–20 % above the highest pressure both sections must deliver at; common practice [CP]",
   ),
   unloadingMarginMinBar: a(10, "bar", "and at least 10 bar above it; common practice [CP]"),
+  doubleSmallSectionSteps: a(
+    2,
+    "-",
+    "a double pump's small section that needs a pressing-speed control anyway may be up to two ISO 3662 sizes above its fit where that saves a size of the large section; our convention [CP]",
+  ),
   unloadingBelowPressRatio: a(
     0.8,
     "-",

@@ -10,7 +10,7 @@ import { accelerationForceN, axisLoads, extendForces, pressForceN, retractForces
 import { holdingSide } from "./holding";
 import { phaseFlowLpm } from "./phases";
 import { pressBypassDropBar, pressNeedsControl } from "./press-speed";
-import { choosePump, smallSectionLpm, type PumpChoice } from "./pump-choice";
+import { choosePump, type PumpChoice } from "./pump-choice";
 import { motorSpeedRpm, pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import {
   capInflowLpm,
@@ -50,9 +50,16 @@ export interface SizingContext {
   /** hydraulic force each stroke needs at least, F/η with no losses (skips hopeless candidates) */
   minExtendHydraulicN: number;
   minRetractHydraulicN: number;
+  /** the axis is one of several on a machine's pump: sized on a pump of one section (machine.ts) */
+  singleSectionPump: boolean;
 }
 
-export function sizingContext(req: Requirements): SizingContext {
+/** How an axis is sized: alone, or as one of a machine's axes, whose pump the machine chooses. */
+export interface SizingOptions {
+  singleSectionPump?: boolean;
+}
+
+export function sizingContext(req: Requirements, options: SizingOptions = {}): SizingContext {
   const loads = axisLoads(req);
   const eta = A.cylinderEfficiency.value;
 
@@ -86,6 +93,7 @@ export function sizingContext(req: Requirements): SizingContext {
     regenRuledOut: regenerationRuledOut(loads.overrunningStroke, holdingSide(req, loads), req.pumpType),
     minExtendHydraulicN: extendNeed / eta,
     minRetractHydraulicN: retractNeed / eta,
+    singleSectionPump: options.singleSectionPump ?? false,
   };
 }
 
@@ -189,18 +197,47 @@ function setLoweringDrop(cbv: CbvEvaluation, steadyInletBar: number, backBar: nu
  * without the bypass and again with it where the chosen pump needs the control.
  */
 export function evaluateCandidate(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize = 0, regenerative = false): Evaluation {
-  const plain = evaluateOnce(ctx, cyl, hoseUpsize, regenerative, false);
-  return needsPressControl(plain, ctx.speedRpm) ? evaluateOnce(ctx, cyl, hoseUpsize, regenerative, true) : plain;
+  const plain = evaluateWithPumpSizes(ctx, cyl, hoseUpsize, regenerative, false);
+  return needsPressControl(plain, ctx.speedRpm) ? evaluateWithPumpSizes(ctx, cyl, hoseUpsize, regenerative, true) : plain;
+}
+
+/** How the pump is fixed for one evaluation: its total displacement, or that a double pump is ruled out. */
+interface PumpSize {
+  displacementCc?: number;
+  noDouble?: boolean;
+}
+
+/**
+ * A double pump's sections are two ISO 3662 sizes whose total is rarely the size a fixed pump would
+ * have, and its delivery sets the speeds, line losses and pressures: where the pump choice turns to
+ * one, the pair is evaluated again at the sections' total. Should that turn the choice away from the
+ * double pump, the pair is evaluated as though a double pump could not be built, so the numbers
+ * always belong to the pump named.
+ */
+function evaluateWithPumpSizes(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: number, regenerative: boolean, bypass: boolean): Evaluation {
+  const first = evaluateOnce(ctx, cyl, hoseUpsize, regenerative, bypass, { noDouble: ctx.singleSectionPump });
+  if (first.pump.type !== "double") return first;
+  const totalCc = first.pump.displacementsCcRev.reduce((a, b) => a + b, 0);
+  if (Math.abs(totalCc - first.displacementCc) < 1e-9) return first;
+  const atSections = evaluateOnce(ctx, cyl, hoseUpsize, regenerative, bypass, { displacementCc: totalCc });
+  return atSections.pump.type === "double" ? atSections : evaluateOnce(ctx, cyl, hoseUpsize, regenerative, bypass, { noDouble: true });
 }
 
 /** Whether this evaluation's pump offers more than the pressing speed asks (press-speed.ts). */
 function needsPressControl(ev: Evaluation, speedRpm: number): boolean {
   if (ev.flowPressLpm === null) return false;
-  const offers = ev.pump.type === "double" ? smallSectionLpm(ev.flowPressLpm, speedRpm) : ev.pumpFlowLpm;
+  const offers = ev.pump.type === "double" ? pumpDeliveryLpm(ev.pump.displacementsCcRev[1], speedRpm, A.volumetricEfficiency.value) : ev.pumpFlowLpm;
   return pressNeedsControl(offers, ev.flowPressLpm);
 }
 
-function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: number, regenerative: boolean, bypassFitted: boolean): Evaluation {
+function evaluateOnce(
+  ctx: SizingContext,
+  cyl: CylinderCandidate,
+  hoseUpsize: number,
+  regenerative: boolean,
+  bypassFitted: boolean,
+  pumpSize: PumpSize = {},
+): Evaluation {
   const { req, loads, fluid } = ctx;
   const eta = A.cylinderEfficiency.value;
   const etaV = A.volumetricEfficiency.value;
@@ -220,7 +257,9 @@ function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: nu
     ? Math.max(phaseFlowLpm(aRod, req.extendSpeedMmS), flowRetractLpm, flowPressLpm ?? 0)
     : Math.max(flowExtendLpm, flowRetractLpm);
   const needCc = requiredDisplacementCc(pumpRequiredLpm, ctx.speedRpm, etaV);
-  const { displacementCc, inSeries } = selectDisplacementCc(needCc);
+  const catalogue = selectDisplacementCc(needCc);
+  const { inSeries } = catalogue;
+  const displacementCc = pumpSize.displacementCc ?? catalogue.displacementCc;
   const qp = pumpDeliveryLpm(displacementCc, ctx.speedRpm, etaV);
 
   // Both strokes get the whole pump flow, so the actual speeds follow from it (regenerating, on the rod area).
@@ -340,9 +379,11 @@ function evaluateOnce(ctx: SizingContext, cyl: CylinderCandidate, hoseUpsize: nu
       reliefBar: fixedReliefBar,
       workingBar,
       ratedBar: cyl.ratedPressureBar,
+      requiredDisplacementCc: needCc,
       displacementCc,
       pumpFlowLpm: qp,
       speedRpm: ctx.speedRpm,
+      noDouble: pumpSize.noDouble,
     },
     req.pumpType,
   );

@@ -303,7 +303,7 @@ export function explain(
       "small pump section",
       small,
       "cm³/rev",
-      "next size for the pressing flow: V_S ≥ 1000·Q_press/(n·η_v)",
+      "at least the size for the pressing flow, V_S ≥ 1000·Q_press/(n·η_v); of the pairs of sizes that give the fast flow, the smallest total",
       { Q_press: v(d.flowsLpm.press ?? 0, "L/min"), n: v(d.pump.speedRpm, "rpm") },
       "Q_S ≥ Q_press, continuity [D]; ISO 3662 R10 series [M]",
     );
@@ -311,9 +311,9 @@ export function explain(
       "large pump section",
       large,
       "cm³/rev",
-      "V_L = V_total − V_S: both sections together give the fast flow",
-      { V_total: v(d.pump.displacementCcRev, "cm³/rev"), V_S: v(small, "cm³/rev") },
-      "Q_L + Q_S ≥ Q_fast, continuity [D]; take the maker's nearest section at or above it",
+      "next size for the rest of the fast flow: V_L ≥ V_required − V_S; the pump is V_L + V_S",
+      { V_required: v(d.pump.requiredDisplacementCcRev, "cm³/rev"), V_S: v(small, "cm³/rev") },
+      "Q_L + Q_S ≥ Q_fast, continuity [D]; each section a size of the ISO 3662 R10 series [M]",
     );
     t.add(
       "unloading valve setting",

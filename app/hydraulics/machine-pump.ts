@@ -36,7 +36,7 @@ const TOL = 1e-6;
 export function machinePhaseDemand(
   designs: Design[],
   timeline: TimelinePhase[],
-  displacementCc: number,
+  pumpSize: { requiredCc: number; displacementCc: number; noDouble?: boolean },
   qp: number,
   speedRpm: number,
 ): { demand: PhaseDemand; governing: Design } {
@@ -54,9 +54,11 @@ export function machinePhaseDemand(
       reliefBar: reliefSettingBar(workingBar),
       workingBar,
       ratedBar: governing.cylinder.ratedPressureBar,
-      displacementCc,
+      requiredDisplacementCc: pumpSize.requiredCc,
+      displacementCc: pumpSize.displacementCc,
       pumpFlowLpm: qp,
       speedRpm,
+      noDouble: pumpSize.noDouble,
     },
   };
 }
@@ -76,19 +78,35 @@ export function chooseMachinePump(designs: Design[], timeline: TimelinePhase[], 
   const ownCc = Math.max(...designs.map((d) => d.pump.requiredDisplacementCcRev));
   const requiredLpm = Math.max(...timeline.map((p) => p.sizingLpm), pumpDeliveryLpm(ownCc, speedRpm, etaV));
   const needCc = Math.max(requiredDisplacementCc(Math.max(...timeline.map((p) => p.sizingLpm)), speedRpm, etaV), ownCc);
-  const { displacementCc, inSeries } = selectDisplacementCc(needCc);
-  const qp = pumpDeliveryLpm(displacementCc, speedRpm, etaV);
-  const { demand, governing } = machinePhaseDemand(designs, timeline, displacementCc, qp, speedRpm);
-  const surplus = timeline.filter((p) => p.kind === "fast" && p.demandLpm < qp * (1 - A.speedTolerance.value));
-  let choice = choosePump(demand, asked);
-  if (asked === undefined && surplus.length > 0 && choice.type !== "compensated") {
-    const c = choosePump(demand, "compensated");
-    const who = [...new Set(surplus.flatMap((p) => p.axes))].join(", ");
-    choice = {
-      ...c,
-      reason: `a pressure-compensated pump with a power limiter: the axes draw different flows (${who} alone draw${surplus.length === 1 && !who.includes(",") ? "s" : ""} less than the ${Math.round(qp * 10) / 10} L/min the pump must deliver when the most flow is drawn), and a fixed pump would push the surplus over the relief as heat`,
-    };
+  const { displacementCc: catalogueCc, inSeries } = selectDisplacementCc(needCc);
+  // The pump at a total displacement: its delivery, the phase demand, and the choice.
+  // A double pump's sections cover the flow the axes draw at the speeds they were sized at, too.
+  const drawnCc = requiredDisplacementCc(Math.max(...timeline.filter((p) => p.kind === "fast").map((p) => p.demandLpm), 0), speedRpm, etaV);
+  const pumpAt = (displacementCc: number, noDouble = false) => {
+    const qp = pumpDeliveryLpm(displacementCc, speedRpm, etaV);
+    const { demand, governing } = machinePhaseDemand(designs, timeline, { requiredCc: Math.max(needCc, drawnCc), displacementCc, noDouble }, qp, speedRpm);
+    const surplus = timeline.filter((p) => p.kind === "fast" && p.demandLpm < qp * (1 - A.speedTolerance.value));
+    let choice = choosePump(demand, asked);
+    if (asked === undefined && surplus.length > 0 && choice.type !== "compensated") {
+      const c = choosePump(demand, "compensated");
+      const who = [...new Set(surplus.flatMap((p) => p.axes))].join(", ");
+      choice = {
+        ...c,
+        reason: `a pressure-compensated pump with a power limiter: the axes draw different flows (${who} alone draw${surplus.length === 1 && !who.includes(",") ? "s" : ""} less than the ${Math.round(qp * 10) / 10} L/min the pump must deliver when the most flow is drawn), and a fixed pump would push the surplus over the relief as heat`,
+      };
+    }
+    return { qp, demand, governing, choice };
+  };
+  // A double pump's two catalogue sections set its delivery (as for an axis, evaluate.ts).
+  let sized = pumpAt(catalogueCc);
+  if (sized.choice.type === "double") {
+    const totalCc = sized.choice.displacementsCcRev.reduce((a, b) => a + b, 0);
+    if (Math.abs(totalCc - catalogueCc) > 1e-9) {
+      const atSections = pumpAt(totalCc);
+      sized = atSections.choice.type === "double" ? atSections : pumpAt(catalogueCc, true);
+    }
   }
+  const { qp, demand, governing, choice } = sized;
   const smallLpm = choice.type === "double" ? pumpDeliveryLpm(choice.displacementsCcRev[1], speedRpm, etaV) : null;
   return { choice, demand, requiredLpm, requiredDisplacementCc: needCc, inSeries, qpLpm: qp, speedRpm, smallLpm, governingAxis: governing.requirements.name! };
 }

@@ -19,10 +19,14 @@ import { ENGINE_VERSION, sizeCircuitParsed } from "./size";
 import { FOUR_POLE_FRAMES } from "./series";
 import type { DcvCenter } from "./valves";
 
-/** The axis alone, with the machine's duty; what the axis cannot meet is reported at its own path. */
+/**
+ * The axis alone, with the machine's duty; what the axis cannot meet is reported at its own path.
+ * One of several axes is sized on a pump of one section of its own size: the machine keeps the
+ * speeds that gives it, and a double pump's sections are chosen for the machine, not per axis.
+ */
 function sizeAxis(m: MachineRequirements, i: number): Design {
   try {
-    return sizeCircuitParsed(m.axes[i]);
+    return sizeCircuitParsed(m.axes[i], { singleSectionPump: m.axes.length > 1 });
   } catch (error) {
     if (!(error instanceof RequirementsError)) throw error;
     // The pressure limit is the machine's field; everything else belongs to the axis.

@@ -7,6 +7,7 @@ import { A } from "./assumptions";
 import { pressNeedsControl } from "./press-speed";
 import { pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import type { PUMP_TYPES } from "./requirements";
+import { ISO3662_DISPLACEMENTS_CC } from "./series";
 
 export type PumpType = (typeof PUMP_TYPES)[number];
 
@@ -22,10 +23,13 @@ export interface PhaseDemand {
   workingBar: number;
   /** the cylinder's rating: no relief is set above it */
   ratedBar: number;
-  /** total displacement and delivery the fast phases need */
+  /** displacement the fast phases need (before rounding to the series), then the size and delivery evaluated */
+  requiredDisplacementCc: number;
   displacementCc: number;
   pumpFlowLpm: number;
   speedRpm: number;
+  /** the double pump was tried with its sections' total and turned away: choose as if it could not be built */
+  noDouble?: boolean;
 }
 
 /**
@@ -79,12 +83,6 @@ function withPower(c: Omit<PumpChoice, "hydraulicKw">): PumpChoice {
  */
 export const compensatorLeakLpm = (pumpFlowLpm: number): number => A.compensatorLeakShare.value * pumpFlowLpm;
 
-/** Delivery of a double pump's small section: the next displacement that gives the pressing flow. */
-export function smallSectionLpm(pressFlowLpm: number, speedRpm: number): number {
-  const etaV = A.volumetricEfficiency.value;
-  return pumpDeliveryLpm(selectDisplacementCc(requiredDisplacementCc(pressFlowLpm, speedRpm, etaV)).displacementCc, speedRpm, etaV);
-}
-
 /** Unloading setting: above every pressure both sections must deliver at, with a margin [CP]. */
 export function unloadingSettingBar(fastBar: number): number {
   return roundUp5(Math.max(fastBar * (1 + A.unloadingMarginRatio.value), fastBar + A.unloadingMarginMinBar.value));
@@ -125,18 +123,44 @@ function fixed(d: PhaseDemand, reason: string): PumpChoice {
   });
 }
 
+/**
+ * The sections of a double pump, each an ISO 3662 size (a maker builds one from two catalogue
+ * sizes on one shaft, so their total is rarely a size of the series): the small one at least the
+ * size for the pressing flow, the large one for what the fast phases need beyond it. Where the
+ * small section's fit is already too fast to press without a flow control, it may go up to two
+ * sizes, staying the smaller of the two, if that saves a step of the large one: of those pairs the
+ * smallest total, and of equal totals the smaller small section (common practice [CP]).
+ */
+export function doubleSectionsCc(requiredCc: number, pressFlowLpm: number, speedRpm: number): { large: number; small: number } | null {
+  const etaV = A.volumetricEfficiency.value;
+  const fitCc = selectDisplacementCc(requiredDisplacementCc(pressFlowLpm, speedRpm, etaV)).displacementCc;
+  const fit = ISO3662_DISPLACEMENTS_CC.indexOf(fitCc);
+  // A fit that presses at its speed without a flow control keeps it; one that needs the control anyway may grow.
+  const steps = pressNeedsControl(pumpDeliveryLpm(fitCc, speedRpm, etaV), pressFlowLpm) ? A.doubleSmallSectionSteps.value : 0;
+  let best: { large: number; small: number } | null = null;
+  for (const small of ISO3662_DISPLACEMENTS_CC.slice(fit, fit + steps + 1)) {
+    if (requiredCc - small <= 1e-9) break;
+    const large = selectDisplacementCc(requiredCc - small).displacementCc;
+    if (best && small > large) break;
+    if (!best || large + small < best.large + best.small - 1e-9) best = { large, small };
+  }
+  return best;
+}
+
 /** A double pump if its sections and unloading setting work for these phases, else null. */
 function double(d: PhaseDemand, reason: string): PumpChoice | null {
-  if (!d.press) return null;
+  if (!d.press || d.noDouble) return null;
   const etaV = A.volumetricEfficiency.value;
-  const small = selectDisplacementCc(requiredDisplacementCc(d.press.flowLpm, d.speedRpm, etaV)).displacementCc;
-  const large = d.displacementCc - small;
-  if (large <= 0) return null;
+  const sections = doubleSectionsCc(d.requiredDisplacementCc, d.press.flowLpm, d.speedRpm);
+  if (!sections) return null;
+  const { large, small } = sections;
   const fastBar = Math.max(d.approachBar, d.retractBar);
   const pu = unloadingSettingBar(fastBar);
   if (pu > A.unloadingBelowPressRatio.value * d.press.bar) return null;
   const qS = pumpDeliveryLpm(small, d.speedRpm, etaV);
   const qL = pumpDeliveryLpm(large, d.speedRpm, etaV);
+  // The sizing evaluates the axis again at the sections' total (evaluate.ts), so this is its Q_p.
+  const q = pumpDeliveryLpm(large + small, d.speedRpm, etaV);
   const dumpKw = hyd(A.unloadedDropBar.value, qL);
   const { beforeUnloadingKw, atForceKw } = highLowPowerKw(qL, qS, pu, d.reliefBar, A.unloadedDropBar.value);
   // Pressing: a small section that suits the pressing speed pumps straight into the cap end at
@@ -153,13 +177,13 @@ function double(d: PhaseDemand, reason: string): PumpChoice | null {
     reason,
     phases: {
       // both sections deliver the whole flow (Q_L + Q_S = the pump's delivery)
-      approach: at(d.approachBar, d.pumpFlowLpm),
+      approach: at(d.approachBar, q),
       // both sections just before the large one unloads: the high-low pump's peak
-      unloadingPeak: at(pu, d.pumpFlowLpm, beforeUnloadingKw),
+      unloadingPeak: at(pu, q, beforeUnloadingKw),
       // above p_u only the small section delivers; the large one dumps Q_L at Δp_u
       press: at(pressBar, qS, hyd(pressBar, qS) + dumpKw),
       dwell: at(d.reliefBar, qS, atForceKw),
-      retract: at(d.retractBar, d.pumpFlowLpm),
+      retract: at(d.retractBar, q),
     },
   });
 }

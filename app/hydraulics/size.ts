@@ -6,7 +6,15 @@ import { buildBom } from "./bom";
 import { buildCircuit } from "./circuit";
 import { cylinderCandidates, cylinderForceN, workingLimitBar } from "./cylinder";
 import type { Design } from "./design";
-import { evaluateCandidate, evaluateWithRegenerationChoice, sizingContext, valveStackFlowLpm, type Evaluation, type SizingContext } from "./evaluate";
+import {
+  evaluateCandidate,
+  evaluateWithRegenerationChoice,
+  sizingContext,
+  valveStackFlowLpm,
+  type Evaluation,
+  type SizingContext,
+  type SizingOptions,
+} from "./evaluate";
 import { cushioningFor } from "./cushioning";
 import { cycleOf, cycleTrail } from "./cycle";
 import { decompressionFor } from "./decompression";
@@ -25,7 +33,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.11.0";
+export const ENGINE_VERSION = "2.12.0";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -117,8 +125,8 @@ function notSizable(ctx: SizingContext): NotSizableError {
 }
 
 /** Sizes a circuit from requirements that have already passed the schema. */
-export function sizeCircuitParsed(req: Requirements): Design {
-  const ctx = sizingContext(req);
+export function sizeCircuitParsed(req: Requirements, options: SizingOptions = {}): Design {
+  const ctx = sizingContext(req, options);
   const ev = chooseCylinder(ctx);
   const warnings = new Warnings();
   const eta = A.cylinderEfficiency.value;

@@ -196,6 +196,7 @@ describe("the check value of several actuators on one pump", () => {
         reliefBar: 135,
         workingBar: 120,
         ratedBar: 250,
+        requiredDisplacementCc: 50,
         displacementCc: 50,
         pumpFlowLpm: 65,
         speedRpm: 1450,

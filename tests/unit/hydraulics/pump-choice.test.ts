@@ -21,7 +21,9 @@ const REF: PhaseDemand = {
   reliefBar: 140.1,
   workingBar: 127.3,
   ratedBar: 160,
-  // 94.25 L/min at 1450 rpm and η_v 0.95 needs 68.4 cm³/rev → 80 cm³/rev, 110.2 L/min (Q = V·n·η_v [M]; ISO 3662 R10 [M])
+  // 94.25 L/min at 1450 rpm and η_v 0.95 needs 94.25 · 1000/(1450 · 0.95) = 68.42 cm³/rev → 80 cm³/rev,
+  // 110.2 L/min (Q = V·n·η_v [M]; ISO 3662 R10 [M])
+  requiredDisplacementCc: (94.25 * 1000) / (1450 * 0.95),
   displacementCc: 80,
   pumpFlowLpm: 110.2,
   speedRpm: 1450,
@@ -66,13 +68,15 @@ describe("double (high-low) pump", () => {
     // fast flow 110.2 is 23.4 × the pressing flow 4.71, above the 3 × of our convention → high-low
     expect(c.reason).toMatch(/23\.4 × the pressing flow/);
     // small section: 4.71 L/min at 1450 rpm, η_v 0.95 needs 3.42 cm³/rev → 4 cm³/rev (ISO 3662 R10 [M])
-    // large section: 80 − 4 = 76 cm³/rev, the rest of the fast flow [D]
-    expect(c.displacementsCcRev).toEqual([76, 4]);
+    // large section: the rest of the fast flow, each section a catalogue size (ISO 3662 R10 [M]). 4 gives 5.51 L/min,
+    // 17 % over the pressing flow, so a flow control is fitted anyway and the small section may grow (our convention):
+    // 4 + (68.42 − 4 = 64.42 → 80) = 84; 5 + (63.42 → 80) = 85; 6.3 + (62.12 → 63) = 69.3 cm³/rev, the smallest
+    expect(c.displacementsCcRev).toEqual([63, 6.3]);
     expect(c.unloadingBar).toBe(30);
-    // Q_S = 4 · 1450 · 0.95/1000 = 5.51 L/min, Q_L = 76 · 1.3775 = 104.69 L/min (Q = V·n·η_v [M])
-    // before unloading 30 · 110.2/600 = 5.51 kW; at force 140.1 · 5.51/600 + 104.69 · 5/600 = 2.159 kW [D]
-    expect(c.hydraulicKw.unloadingPeak).toBeCloseTo(5.51, 2);
-    expect(c.hydraulicKw.press).toBeCloseTo(2.159, 3);
+    // Q_S = 6.3 · 1450 · 0.95/1000 = 8.678 L/min, Q_L = 63 · 1.3775 = 86.78 L/min, together 95.46 L/min (Q = V·n·η_v [M])
+    // before unloading 30 · 95.46/600 = 4.773 kW; at force 140.1 · 8.678/600 + 86.78 · 5/600 = 2.750 kW [D]
+    expect(c.hydraulicKw.unloadingPeak).toBeCloseTo(4.773, 3);
+    expect(c.hydraulicKw.press).toBeCloseTo(2.75, 3);
     expect(c.hydraulicKw.dwell).toBe(c.hydraulicKw.press);
   });
 
@@ -110,16 +114,19 @@ describe("each phase's pump pressure and delivery, one source for the sizing and
   it("a double pump: both sections below p_u, the small one alone above it (high-low circuit, trade-press texts)", () => {
     const c = choosePump(REF, undefined);
     const ph = c.phases;
-    // approach and retract at 20 bar with the whole 110.2 L/min (Q_L + Q_S ≥ Q_app, shared sources)
-    expect(ph.approach).toMatchObject({ bar: 20, lpm: REF.pumpFlowLpm });
-    expect(ph.retract).toMatchObject({ bar: 20, lpm: REF.pumpFlowLpm });
+    // approach and retract at 20 bar with both sections' 86.78 + 8.678 = 95.46 L/min (Q_L + Q_S ≥ Q_app, shared sources)
+    const both = 86.7825 + 8.67825;
+    expect(ph.approach!.bar).toBe(20);
+    expect(ph.approach!.lpm).toBeCloseTo(both, 9);
+    expect(ph.retract).toEqual(ph.approach);
     // the peak just before unloading: both sections at p_u
-    expect(ph.unloadingPeak).toMatchObject({ bar: c.unloadingBar, lpm: REF.pumpFlowLpm });
-    // small section 4 cm³/rev · 1450 · 0.95 = 5.51 L/min, more than 1.1 × 4.71: it presses through a flow
+    expect(ph.unloadingPeak!.bar).toBe(c.unloadingBar);
+    expect(ph.unloadingPeak!.lpm).toBeCloseTo(both, 9);
+    // small section 6.3 cm³/rev · 1450 · 0.95 = 8.68 L/min, more than 1.1 × 4.71: it presses through a flow
     // control and sits at the 140.1 bar relief; its power adds the large section dumping at 5 bar [D]
     expect(ph.press!.bar).toBe(140.1);
-    expect(ph.press!.lpm).toBeCloseTo(5.51, 2);
-    expect(ph.press!.kw).toBeCloseTo((140.1 * ph.press!.lpm + 5 * (REF.pumpFlowLpm - ph.press!.lpm)) / 600, 9);
+    expect(ph.press!.lpm).toBeCloseTo(8.68, 2);
+    expect(ph.press!.kw).toBeCloseTo((140.1 * ph.press!.lpm + 5 * (both - ph.press!.lpm)) / 600, 9);
     expect(ph.dwell).toEqual(ph.press);
     // hydraulicKw is read from the phases, not worked out twice
     for (const name of ["approach", "unloadingPeak", "press", "dwell", "retract"] as const) expect(c.hydraulicKw[name]).toBe(ph[name]?.kw ?? 0);
@@ -213,32 +220,41 @@ describe("the issue's 2 t platen hanging from the rod with 150 kN of pressing fo
       ...(pumpType ? { pumpType } : {}),
     });
 
-  it("at a fast 200 mm/s approach the engine picks a double pump and a third of engine 1's motor", () => {
+  it("at a fast 200 mm/s approach the engine picks a double pump and a quarter of engine 1's motor", () => {
     const fixedPump = press(200, "fixed");
     const d = press(200);
     expect(d.pump.type).toBe("double");
     // fixed pump: peak 145 bar relief · 172.2 L/min / 600 / 0.85 = 48.96 kW, RMS rule → 37 kW (IEC 60072-1)
     expect(fixedPump.motor.ratedKw).toBe(37);
-    // double: peak at p_u 50 bar (retract lifts the platen at 39.6 bar → max(45.5, 49.6) → 50 bar [CP])
-    // 50 · 172.2/600/0.85 = 16.88 kW; RMS 2.95 kW; peak/1.5 = 11.25 → 15 kW (IEC 60034-1 overload [M]; IEC 60072-1)
+    // sections (each an ISO 3662 R10 size [M]; Q = V·n·η_v [M]): pressing 7.363 L/min needs 5.35 cm³/rev → 6.3,
+    // 8.68 L/min, 18 % fast, so a flow control is fitted and the small section may grow (our convention); the
+    // 147.26 L/min approach needs 106.91 cm³/rev: 6.3 + (100.61 → 125) = 131.3; 8 + (98.91 → 100) = 108;
+    // 10 + (96.91 → 100) = 110: 100 and 8 cm³/rev, the smallest pair
+    expect(d.pump.displacementsCcRev).toEqual([100, 8]);
+    // together 108 · 1450 · 0.95 / 1000 = 148.77 L/min
+    expect(d.flowsLpm.pump).toBeCloseTo(148.77, 2);
+    // double: peak at p_u 50 bar (retract lifts the platen at 39.5 bar → max(45.4, 49.5) → 50 bar [CP])
+    // 50 · 148.77/600/0.85 = 14.59 kW; peak/1.5 = 9.72 → 11 kW (IEC 60034-1 overload [M]; IEC 60072-1)
     expect(d.pump.unloadingBar).toBe(50);
-    expect(d.motor.peakKw).toBeCloseTo(16.88, 2);
-    expect(d.motor.ratedKw).toBe(15); // 45 / 3
-    // the flow and tank follow the approach speed the buyer asked for: 172.2 L/min, 690 L (4 × Q_p + draw [CP])
-    expect(d.flowsLpm.pump).toBeCloseTo(172.2, 1);
-    expect(d.reservoir.volumeL).toBe(690);
+    expect(d.motor.peakKw).toBeCloseTo(14.59, 2);
+    expect(d.motor.ratedKw).toBe(11); // a quarter of engine 1's 45 kW
+    // the tank follows the approach speed the buyer asked for: 4 × 148.77 + 1.23 L the rod draws = 596.3 → 600 L (4 × Q_p + draw [CP])
+    expect(d.reservoir.volumeL).toBe(600);
     // the bill prices the unloading and check valves (ISO 1219-1 symbols are still to come in the diagram)
     expect(d.bom.map((l) => l.key)).toEqual(expect.arrayContaining(["unloading-valve", "pump-check-valve"]));
     expect(d.bom.find((l) => l.key === "pump")!.item).toBe("Double (high-low) pump");
   });
 
-  it("at a 100 mm/s approach, still fast for a press, flow and tank halve and the motor is a sixth", () => {
+  it("at a 100 mm/s approach, still fast for a press, flow and tank fall below half and the motor is an eighth", () => {
     const d = press(100);
     expect(d.pump.type).toBe("double");
-    // 125 bore · 100 mm/s = 73.6 L/min → 63 cm³/rev → 86.8 L/min (continuity [D]; ISO 3662 [M])
-    expect(d.flowsLpm.pump).toBeCloseTo(86.8, 1);
-    expect(d.reservoir.volumeL).toBe(350);
-    expect(d.motor.ratedKw).toBe(7.5);
+    // 125 bore · 100 mm/s = 73.63 L/min needs 53.45 cm³/rev: sections 6.3 and 53.45 − 6.3 = 47.15 → 50 cm³/rev,
+    // 56.3 · 1.3775 = 77.55 L/min (continuity [D]; ISO 3662 [M])
+    expect(d.pump.displacementsCcRev).toEqual([50, 6.3]);
+    expect(d.flowsLpm.pump).toBeCloseTo(77.55, 2);
+    // 4 × 77.55 + 1.23 = 311.4 → 315 L; peak 50 · 77.55/510 = 7.60 kW, /1.5 = 5.07 → 5.5 kW
+    expect(d.reservoir.volumeL).toBe(315);
+    expect(d.motor.ratedKw).toBe(5.5);
   });
 });
 

@@ -128,15 +128,19 @@ describe("two-speed press with a fixed pump: a meter-in flow control, the surplu
   });
 });
 
-describe("two-speed press with a double pump: the small section is too fast by 17 %, so it needs the control too", () => {
+describe("two-speed press with a double pump: the small section is too fast, so it needs the control too", () => {
   const d = sizeCircuit({ ...PRESS, pumpType: "double" });
-  // small section for 4.712 L/min: 1000·4.712/(1450·0.95) = 3.42 cm³/rev → 4 cm³/rev (ISO 3662 [M]);
-  // Q_S = 4·1.3775 = 5.51 L/min; large section 80 − 4 = 76 cm³/rev, Q_L = 104.69 L/min (Q = V·n·η_v [M])
-  const Q_S = (4 * 1450 * 0.95) / 1000;
-  const Q_L = (76 * 1450 * 0.95) / 1000;
+  // small section for 4.712 L/min: 1000·4.712/(1450·0.95) = 3.42 cm³/rev → 4 cm³/rev (ISO 3662 [M]), 5.51 L/min,
+  // 17 % fast: a flow control is fitted anyway, so it may grow up to two sizes (our convention). The large section
+  // takes the rest of the 94.25 L/min approach (68.42 cm³/rev): 4 + 80 = 84, 5 + 80 = 85, 6.3 + 63 = 69.3 cm³/rev;
+  // the smallest pair: Q_S = 6.3·1.3775 = 8.678 L/min, Q_L = 63·1.3775 = 86.78 L/min (Q = V·n·η_v [M])
+  const Q_S = (6.3 * 1450 * 0.95) / 1000;
+  const Q_L = (63 * 1450 * 0.95) / 1000;
 
-  it("has sections of 76 and 4 cm³/rev and unloads above the fast-motion pressure (common practice)", () => {
-    expect(d.pump.displacementsCcRev).toEqual([76, 4]);
+  it("has sections of 63 and 6.3 cm³/rev and unloads above the fast-motion pressure (common practice)", () => {
+    expect(d.pump.displacementsCcRev).toEqual([63, 6.3]);
+    // both sections together: 69.3 cm³/rev, 95.46 L/min, the approach's and return's flow
+    expect(d.flowsLpm.pump).toBeCloseTo(Q_S + Q_L, 9);
     // p_u = max(1.15·p_fast, p_fast + 10), rounded up to 5 bar, p_fast the higher of approach and return (engine's
     // pressures with line losses); it must stay below 0.8 × 134.7 = 107.8 bar (our convention)
     const pFast = Math.max(d.pressuresBar.approach!, d.pressuresBar.retract);
@@ -144,41 +148,47 @@ describe("two-speed press with a double pump: the small section is too fast by 1
     expect(d.pump.unloadingBar!).toBeLessThanOrEqual(0.8 * d.pressuresBar.press!);
   });
 
-  it("fits the flow control: 5.51 L/min is more than 10 % above 4.71 (speed tolerance, our convention)", () => {
-    // 5.51 / 4.712 = 1.169 > 1.1 → the control sets 4.712 and 0.798 L/min crosses the relief [D]
-    expect(Q_S / Q_PRESS).toBeCloseTo(1.169, 3);
+  it("fits the flow control: 8.68 L/min is more than 10 % above 4.71 (speed tolerance, our convention)", () => {
+    // 8.678 / 4.712 = 1.842 > 1.1 → the control sets 4.712 and 3.966 L/min crosses the relief [D]
+    expect(Q_S / Q_PRESS).toBeCloseTo(1.842, 3);
     const pc = d.pressSpeedControl!;
     expect(pc.pumpOffersLpm).toBeCloseTo(Q_S, 9);
     expect(pc.overReliefLpm).toBeCloseTo(Q_S - Q_PRESS, 9);
   });
 
-  it("loses 2.65 kW pressing and dwelling, against 32.41 kW for the fixed pump (shared sources: high-low pump)", () => {
-    // small section over the 150 bar relief, large section dumped at 5 bar: (150·5.51 + 5·104.69)/600 = 2.250 kW
-    // hydraulic, /0.85 = 2.647 kW shaft, all heat in the dwell (P = p·Q/600 [D]; Δp_u 5 bar [CP])
+  it("loses 3.40 kW pressing and dwelling, against 32.41 kW for the fixed pump (shared sources: high-low pump)", () => {
+    // small section over the 150 bar relief, large section dumped at 5 bar: (150·8.678 + 5·86.78)/600 = 2.893 kW
+    // hydraulic, /0.85 = 3.403 kW shaft, all heat in the dwell (P = p·Q/600 [D]; Δp_u 5 bar [CP])
     const shaft = (hydraulicPowerKw(150, Q_S) + hydraulicPowerKw(5, Q_L)) / ETA_O;
-    expect(shaft).toBeCloseTo(2.647, 3);
+    expect(shaft).toBeCloseTo(3.403, 3);
     expect(d.heat.dwellLossKw).toBeCloseTo(shaft, 6);
-    // pressing: the same less the work on the process force, 2.647 − 1.005 = 1.642 kW [D]
+    // pressing: the same less the work on the process force, 3.403 − 1.005 = 2.398 kW [D]
     expect(d.heat.pressLossKw).toBeCloseTo(shaft - PRESS_WORK_KW, 6);
   });
 
-  it("sizes the motor on both sections just before unloading: 5.40 kW peak → 4 kW (IEC 60034-1 [M], IEC 60072-1)", () => {
-    // p_u · (Q_S + Q_L) / 600 / 0.85 = p_u · 110.2 / 510 (shared sources: the peak comes just before unloading)
-    const peak = (d.pump.unloadingBar! * Q_P) / 600 / ETA_O;
+  it("sizes the motor on both sections just before unloading: 5.62 kW peak → 4 kW (IEC 60034-1 [M], IEC 60072-1)", () => {
+    // p_u · (Q_S + Q_L) / 600 / 0.85 = 30 · 95.46 / 510 = 5.615 kW (shared sources: the peak comes just before
+    // unloading); the cycle is short, so up to 1.5 × the rating: 5.615 / 1.5 = 3.74 kW → 4 kW
+    const peak = (d.pump.unloadingBar! * (Q_S + Q_L)) / 600 / ETA_O;
+    expect(d.pump.unloadingBar).toBe(30);
+    expect(peak).toBeCloseTo(5.615, 3);
     expect(d.motor.peakKw).toBeCloseTo(peak, 9);
+    expect(d.motor.ratedKw).toBe(4);
     expect(d.motor.rmsKw!).toBeLessThan(peak / 1.5);
     expect(d.motor.ratedKw).toBe(selectMotorKw(peak / 1.5).ratedKw);
   });
 
   it("a small section within 10 % presses without a control, at the pressing pressure, not over the relief", () => {
-    // 11 mm/s: Q_press = 7853.98·11·0.06/1000 = 5.184 L/min → 3.76 cm³/rev → 4 cm³/rev, 5.51 L/min: 6.3 % fast, within 10 %
+    // 11 mm/s: Q_press = 7853.98·11·0.06/1000 = 5.184 L/min → 3.76 cm³/rev → 4 cm³/rev, 5.51 L/min: 6.3 % fast, within 10 %,
+    // so it stays at its fit; the large section 68.42 − 4 = 64.42 → 80 cm³/rev, 110.2 L/min (ISO 3662 [M]; Q = V·n·η_v [M])
     const slowPress = sizeCircuit({ ...PRESS, pressSpeedMmS: 11, pumpType: "double" });
-    expect(slowPress.pump.displacementsCcRev[1]).toBe(4);
+    expect(slowPress.pump.displacementsCcRev).toEqual([80, 4]);
+    const [qL, qS] = [(80 * 1450 * 0.95) / 1000, (4 * 1450 * 0.95) / 1000];
     expect(slowPress.pressSpeedControl).toBeNull();
     expect(slowPress.bom.some((l) => l.key === "press-flow-control")).toBe(false);
-    // pressing power: small section at p_press, large one dumped: (p_press·5.51 + 5·104.69)/600/0.85 [D]
+    // pressing power: small section at p_press, large one dumped: (p_press·5.51 + 5·110.2)/600/0.85 [D]
     const pressKw = slowPress.motor.phases.find((p) => p.name === "pressing")!.kw;
-    expect(pressKw).toBeCloseTo((hydraulicPowerKw(slowPress.pressuresBar.press!, Q_S) + hydraulicPowerKw(5, Q_L)) / ETA_O, 9);
+    expect(pressKw).toBeCloseTo((hydraulicPowerKw(slowPress.pressuresBar.press!, qS) + hydraulicPowerKw(5, qL)) / ETA_O, 9);
     expect(slowPress.trail.find((t) => t.quantity === "pressing-speed control")!.value).toMatch(/small pump section/);
   });
 });

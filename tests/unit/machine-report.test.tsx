@@ -30,6 +30,9 @@ describe("MachineReport", () => {
       expect(card).toContain(`stroke ${formatQuantity("length", axis.cylinder.strokeMm, "metric")}`);
       expect(figure(card, "Directional valve")).toBe(`ISO 4401-${axis.directionalValve.iso4401Size}`);
       expect(figure(card, "Retract pressure")).toBe(formatQuantity("pressure", axis.pressuresBar.retract, "metric"));
+      expect(figure(card, "Flow out")).toBe(formatQuantity("flow", axis.flowsLpm.extend, "metric"));
+      expect(figure(card, "Flow back")).toBe(formatQuantity("flow", axis.flowsLpm.retract, "metric"));
+      expect(figure(card, "Speed out")).toBe(formatQuantity("speed", axis.speedsMmS.extendActual, "metric"));
     }
     // The press has a pressing stroke: both its pressures are shown; the clamp has one extend pressure.
     const press = machine.axes[1];

@@ -42,7 +42,8 @@ export function CircuitViewer(props: CircuitViewerProps) {
       ) : (
         <CircuitDiagram {...what} units={units} />
       )}
-      <p className="mt-2 flex justify-end">
+      <p className="mt-2 flex flex-wrap items-center justify-end gap-x-3 gap-y-1">
+        {width > AXIS_WIDTH ? <span className="mr-auto text-xs text-ink-600">Wider than the page: scroll sideways to see every axis.</span> : null}
         <Button type="button" tone="quiet" onClick={() => setOpen(true)} aria-haspopup="dialog">
           Open the diagram larger
         </Button>

@@ -105,7 +105,8 @@ export function compareBids(bom: BomLine[], currentRevision: number, bids: Compa
         quantity: line.quantity,
         specification: line.specification,
         inCurrentBill: line.inCurrentBill,
-        serves: servedBy(line.key, axisNames),
+        // A line only an earlier revision had names its axis only if it carries one (`cylinder:Clamp`): an axis's key from before the machine had none.
+        serves: line.inCurrentBill || line.key.includes(":") ? servedBy(line.key, axisNames) : null,
         cells,
       };
     },

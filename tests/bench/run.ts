@@ -1,5 +1,6 @@
 // `npm run bench`: how fast the engine sizes designs, what the sizing API adds over a bare
-// JSON route on the same server, and how the open-specs table's queries fare at 100 000 specs.
+// JSON route on the same server, how throughput grows from one server worker to one per core,
+// and how the open-specs table's queries fare at 100 000 specs.
 // Prints figures and ratios measured in this run; asserts nothing (targets belong here, not in
 // timed tests that fail on a slow machine).
 import { mkdtempSync, rmSync, chmodSync } from "node:fs";
@@ -37,6 +38,51 @@ async function timeRequests(label: string, count: number, send: (i: number) => P
   return p50;
 }
 
+/** Requests/s and p97.5 with `concurrency` clients sending back to back for `seconds`. */
+async function underLoad(url: string, concurrency: number, seconds: number) {
+  const times: number[] = [];
+  const until = performance.now() + seconds * 1000;
+  const client = async () => {
+    while (performance.now() < until) {
+      const start = performance.now();
+      const response = await fetch(url);
+      await response.arrayBuffer();
+      if (!response.ok) throw new Error(`${url}: status ${response.status}`);
+      times.push(performance.now() - start);
+    }
+  };
+  await Promise.all(Array.from({ length: concurrency }, client));
+  times.sort((a, b) => a - b);
+  return { perSecond: times.length / seconds, p975: percentile(times, 97.5) };
+}
+
+/** The same pages served by one worker and by one per core, under the same load. */
+async function workers(env: NodeJS.ProcessEnv) {
+  const cores = os.availableParallelism();
+  console.log(`\n== One worker vs one per core (${cores}), 50 concurrent clients, 5 s per route ==`);
+  const paths = ["/api/v1/health", "/quick-sizing"];
+  const results: Record<string, Record<number, { perSecond: number; p975: number }>> = {};
+  for (const count of [1, cores]) {
+    const port = await freePort();
+    const server = await serveBuild(port, { ...env, WEB_CONCURRENCY: String(count) });
+    try {
+      for (const p of paths) {
+        await underLoad(`http://127.0.0.1:${port}${p}`, 10, 1); // warm-up
+        (results[p] ??= {})[count] = await underLoad(`http://127.0.0.1:${port}${p}`, 50, 5);
+      }
+    } finally {
+      await stop(server);
+    }
+  }
+  for (const p of paths) {
+    const [one, all] = [results[p][1], results[p][cores]];
+    console.log(
+      `${p.padEnd(20)} 1 worker ${one.perSecond.toFixed(0).padStart(5)}/s p97.5 ${one.p975.toFixed(0).padStart(5)} ms   ` +
+        `${cores} workers ${all.perSecond.toFixed(0).padStart(5)}/s p97.5 ${all.p975.toFixed(0).padStart(5)} ms   throughput ×${(all.perSecond / one.perSecond).toFixed(2)}`,
+    );
+  }
+}
+
 async function openSpecs() {
   console.log("\n== Open-specs table at 100 000 specs (indexes vs a sequential-scan baseline) ==");
   await run("node_modules/.bin/tsx", ["tests/bench/open-specs.bench.ts"]);
@@ -59,7 +105,7 @@ async function api() {
 
     await run("node_modules/.bin/react-router", ["build"], process.env, true);
     const port = await freePort();
-    server = await serveBuild(port, {
+    const env = {
       ...process.env,
       DATABASE_URL: cluster.url("bench"),
       SESSION_SECRET: "benchmark-secret-benchmark-secret-0123",
@@ -67,7 +113,9 @@ async function api() {
       // Required at boot; the sizing routes never call the card service.
       STRIPE_SECRET_KEY: "sk_test_benchmark",
       STRIPE_WEBHOOK_SECRET: "whsec_benchmark",
-    });
+    };
+    // The sequential figures compare routes within one process.
+    server = await serveBuild(port, { ...env, WEB_CONCURRENCY: "1" });
     const base = `http://127.0.0.1:${port}`;
     const count = 400;
     const bare = await timeRequests("GET /api/v1/health", count, () => fetch(`${base}/api/v1/health`));
@@ -79,6 +127,9 @@ async function api() {
       }),
     );
     console.log(`ratio sizing / bare (p50): ${(sized / bare).toFixed(2)}×`);
+    await stop(server);
+    server = undefined;
+    await workers(env);
   } finally {
     await stop(server);
     stopCluster(cluster, "immediate");

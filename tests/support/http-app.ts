@@ -56,7 +56,13 @@ export async function startHttpApp(env: NodeJS.ProcessEnv = {}): Promise<HttpApp
   const logs: string[] = [];
   const baseUrl = `http://127.0.0.1:${port}`;
   // APP_URL is this server's own address: links in mail and the payment page's way back lead here.
-  const server: ChildProcess = await serveBuild(port, { ...process.env, NODE_ENV: "production", APP_URL: baseUrl, ...env }, (l) => logs.push(l), buildDir);
+  // One process per test server (two cores run the whole suite); a test that wants workers says so.
+  const server: ChildProcess = await serveBuild(
+    port,
+    { ...process.env, NODE_ENV: "production", APP_URL: baseUrl, WEB_CONCURRENCY: "1", ...env },
+    (l) => logs.push(l),
+    buildDir,
+  );
   return {
     baseUrl,
     logs,

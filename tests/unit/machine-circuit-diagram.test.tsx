@@ -41,6 +41,10 @@ const MACHINES: Record<string, MachineDesign> = {
   "feed, ram and clamp": sizeMachine({ axes: [FEED, RAM, CLAMP], ...DUTY }),
   "feed and press on a double pump": sizeMachine({ axes: [FEED, PRESS], ...DUTY, pumpType: "double" }),
   "ram and press on a fixed pump": sizeMachine({ axes: [RAM, PRESS], ...DUTY, pumpType: "fixed" }),
+  "eight axes, the most a machine may have": sizeMachine({
+    axes: Array.from({ length: 8 }, (_, i) => ({ ...[CLAMP, FEED, RAM, PRESS][i % 4], name: `Station ${i + 1}` })),
+    ...DUTY,
+  }),
   "feed, ram and clamp together": sizeMachine({
     axes: [FEED, RAM, CLAMP],
     ...DUTY,
@@ -125,7 +129,7 @@ const overlap = (a: Box, b: Box) => a.left < b.right && b.left < a.right && a.to
 describe("the machine's circuit diagram", () => {
   it("the machines under test: two and three axes, a counterbalanced ram, P-line flow controls and a vented relief among them", () => {
     const all = Object.values(MACHINES).flatMap((m) => m.circuit.components);
-    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 3]);
+    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 3]);
     expect(all.some((c) => c.kind === "cbv")).toBe(true);
     expect(all.some((c) => c.id.endsWith(":speed-control"))).toBe(true);
     expect(all.some((c) => c.kind === "vent")).toBe(true);

@@ -1,4 +1,4 @@
-import { Fragment } from "react";
+import { Children, Fragment } from "react";
 import { Form, Link, type LinkProps } from "react-router";
 
 // The small set of shared building blocks that give every page the same look.
@@ -154,9 +154,12 @@ export function ListTable({
   label,
   columns,
   minWidth = "min-w-[40rem]",
+  empty,
   children,
 }: {
   label: string;
+  /** Said under the header when there are no rows (a search that matched nothing). */
+  empty?: string;
   /** Header cells: a label, or a label with its classes (alignment, padding). An empty label is read out as `srLabel`. */
   columns: (string | { label: string; className?: string; srLabel?: string })[];
   minWidth?: string;
@@ -179,6 +182,7 @@ export function ListTable({
         </thead>
         <tbody>{children}</tbody>
       </table>
+      {empty && Children.count(children) === 0 ? <p className="py-6 text-center text-ink-600">{empty}</p> : null}
     </TableScroll>
   );
 }

@@ -213,7 +213,11 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
           <FilterSelects filters={FILTERS} search={searchParams} />
         </SearchBar>
         <SortChoice options={LIST_SORTS.organisations} current={loaderData.sort} search={searchParams} />
-        <ListTable label="Organisations" columns={["Organisation", "Kind", "Region", "Users", "Approval", "Account manager"]}>
+        <ListTable
+          label="Organisations"
+          empty="No organisation matches that search."
+          columns={["Organisation", "Kind", "Region", "Users", "Approval", "Account manager"]}
+        >
           {loaderData.organisations.map((o) => (
             <tr key={o.id} className="border-t border-ink-100">
               <td className="py-2 pr-3 font-semibold">
@@ -254,7 +258,6 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
             </tr>
           ))}
         </ListTable>
-        {loaderData.organisations.length === 0 ? <p className="py-6 text-center text-ink-600">No organisation matches that search.</p> : null}
         <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>
     </>

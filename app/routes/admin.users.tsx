@@ -105,7 +105,11 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
       <Card>
         <SearchBar label="Search users" placeholder="Name, e-mail or organisation" value={searchParams.get("q") ?? ""} />
         <SortChoice options={LIST_SORTS.users} current={loaderData.sort} search={searchParams} />
-        <ListTable label="Users" columns={["Name", "Organisation", "Role", "Status", "Last signed in", { label: "", srLabel: "Action" }]}>
+        <ListTable
+          label="Users"
+          empty="No user matches that search."
+          columns={["Name", "Organisation", "Role", "Status", "Last signed in", { label: "", srLabel: "Action" }]}
+        >
           {loaderData.users.map((u) => (
             <tr key={u.id} className="border-t border-ink-100 align-middle">
               <td className="py-2">
@@ -155,7 +159,6 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
             </tr>
           ))}
         </ListTable>
-        {loaderData.users.length === 0 ? <p className="py-6 text-center text-ink-600">No user matches that search.</p> : null}
         <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>
     </>

@@ -96,6 +96,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
             <p className="mb-2 text-sm text-ink-600">{countOf(d.total, "job")}. Overdue jobs come first, then the most recently awarded.</p>
             <ListTable
               label="Jobs"
+              empty="No job matches these filters."
               columns={[
                 "Spec",
                 "Buyer",
@@ -145,7 +146,6 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                 </tr>
               ))}
             </ListTable>
-            {d.jobs.length === 0 ? <p className="py-6 text-center text-ink-600">No job matches these filters.</p> : null}
             <Pager page={d.page} pageCount={d.pageCount} search={params} />
           </Card>
         </div>

@@ -2,7 +2,7 @@ import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/payments";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
-import { Badge, Button, Card, EmptyState, ListTable, PageHeader, Pager } from "~/components/ui";
+import { Badge, Button, Card, EmptyState, FilterSelects, ListTable, PageHeader, Pager, type ListFilter } from "~/components/ui";
 import { OrganisationName } from "~/components/organisation-link";
 import { formatMoney } from "~/content/money";
 import { formatMoment } from "~/content/dates";
@@ -12,6 +12,10 @@ import { listPayments } from "~/services/payments.server";
 import { openableOrganisations } from "~/services/organisation-page.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Payments · Tenderflow" }];
+
+const FILTERS: ListFilter[] = [
+  { name: "status", label: "Status", any: "Any status", options: PAYMENT_STATUSES.map((s) => ({ value: s, label: PAYMENT_STATUS_LABELS[s] })) },
+];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireRole(request, PAGE_ROLES.payments);
@@ -60,18 +64,8 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
         }
       />
       <Card>
-        <Form method="get" className="mb-4 flex flex-wrap items-end gap-3 text-sm">
-          <label>
-            <span className="block font-semibold">Status</span>
-            <select name="status" defaultValue={params.get("status") ?? ""} className="rounded-md px-2 py-1.5 ring-1 ring-ink-200">
-              <option value="">Any</option>
-              {PAYMENT_STATUSES.map((s) => (
-                <option key={s} value={s}>
-                  {PAYMENT_STATUS_LABELS[s]}
-                </option>
-              ))}
-            </select>
-          </label>
+        <Form method="get" role="search" className="mb-4 flex flex-wrap items-center gap-2 text-sm">
+          <FilterSelects filters={FILTERS} search={params} />
           <label className="flex items-center gap-2 py-1.5">
             <input type="checkbox" name="flagged" value="1" defaultChecked={params.get("flagged") === "1"} />
             <span className="font-semibold">Needs a check</span>

@@ -161,16 +161,20 @@ export async function addManagerNote(viewer: User, jobId: string | undefined, { 
   });
 }
 
+/** What a mail about the job names (its spec, its shop) and who gets it: every active person of buyer and shop. */
+async function partiesOf(transaction: Transaction, job: Job) {
+  // One after the other: the queries share the transaction's one connection.
+  const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
+  const shop = await Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true });
+  const parties = [job.buyerOrganisationId, job.shopOrganisationId];
+  const people = await User.findAll({ where: { organisationId: parties, active: true }, order: [["email", "ASC"]], transaction });
+  return { spec, shop, people };
+}
+
 /** Queues one e-mail to every active person of the buyer and of the shop about reached milestones. */
 async function tellParties(transaction: Transaction, job: Job, milestones: JobMilestone[], reached: JobMilestone[], note: string) {
   if (!reached.length) return;
-  const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
-  const shop = await Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true });
-  const people = await User.findAll({
-    where: { organisationId: [job.buyerOrganisationId, job.shopOrganisationId], active: true },
-    order: [["email", "ASC"]],
-    transaction,
-  });
+  const { spec, shop, people } = await partiesOf(transaction, job);
   const next = milestones.find((m) => !m.reachedAt);
   for (const person of people) {
     const mail = jobProgressMail({
@@ -217,13 +221,7 @@ export async function recordRetainerReceived(
 
 /** A milestone taken back is news too: the buyer may be planning on it. */
 async function tellPartiesUndone(transaction: Transaction, job: Job, milestone: JobMilestone, reason: string) {
-  const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
-  const shop = await Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true });
-  const people = await User.findAll({
-    where: { organisationId: [job.buyerOrganisationId, job.shopOrganisationId], active: true },
-    order: [["email", "ASC"]],
-    transaction,
-  });
+  const { spec, shop, people } = await partiesOf(transaction, job);
   for (const person of people) {
     const mail = milestoneTakenBackMail({
       name: person.name,

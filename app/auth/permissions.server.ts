@@ -33,7 +33,19 @@ export function safeRedirect(to: FormDataEntryValue | string | null | undefined,
  * The one place a request becomes a user: the session row must be live (not signed out,
  * revoked, idle too long or too old, see session.server.ts) and its user active.
  */
-export async function getOptionalUser(request: Request): Promise<SignedInUser | null> {
+export function getOptionalUser(request: Request): Promise<SignedInUser | null> {
+  // The root loader and the page's loaders ask for the same request's user: look it up once.
+  let user = usersOfRequests.get(request);
+  if (!user) {
+    user = lookUpUser(request);
+    usersOfRequests.set(request, user);
+  }
+  return user;
+}
+
+const usersOfRequests = new WeakMap<Request, Promise<SignedInUser | null>>();
+
+async function lookUpUser(request: Request): Promise<SignedInUser | null> {
   const userId = await getSessionUserId(request);
   if (!userId) return null;
   const user = await User.findByPk(userId, { include: [{ model: Organisation, as: "organisation" }] });

@@ -1,7 +1,6 @@
 import { useDeferredValue, useMemo } from "react";
 import { NotSizableError, RequirementsError, sizeMachine, type MachineDesign, type MachineMotion } from "~/hydraulics";
 import { machineProblems } from "~/content/machine-input";
-import { REQUIREMENT_FIELDS, type RequirementKey } from "~/content/requirement-fields";
 import type { UnitSystem } from "~/units";
 import { displayUnits } from "./circuit-diagram/format";
 import { CycleChart } from "./cycle-chart";
@@ -34,7 +33,7 @@ export function useMachineSizing(base: Record<string, unknown> | null, sequence:
   }, [base, deferred, axes]);
 }
 
-export function MachinePreview({ machine, problems, assumed, system }: MachineSizing & { assumed: RequirementKey[]; system: UnitSystem }) {
+export function MachinePreview({ machine, problems, assumed, system }: MachineSizing & { assumed: string[]; system: UnitSystem }) {
   const u = displayUnits(system);
   return (
     <aside aria-label="The machine as saved" className="space-y-4 lg:sticky lg:top-4 lg:self-start">
@@ -44,9 +43,7 @@ export function MachinePreview({ machine, problems, assumed, system }: MachineSi
           <>
             <p className="mb-3 text-xs text-ink-600">
               Sized for the cycle as chosen here.
-              {assumed.length
-                ? ` Until you answer the duty step it assumes ${assumed.map((k) => REQUIREMENT_FIELDS[k].label.toLowerCase()).join(", ")} as in a usual machine.`
-                : ""}
+              {assumed.length ? ` Until you answer the duty step it assumes ${assumed.join(", ")}.` : ""}
             </p>
             <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-sm" data-machine-figures="">
               <Figure label="Pump" value={pumpInWords(machine, u)} />

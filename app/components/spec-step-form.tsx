@@ -43,7 +43,7 @@ export interface SpecStepFormProps {
   /** an axis step's answers of its axis with the duty, for the live preview */
   axisValues: FormValues | null;
   /** the cycle step's machine: the saved axes and duty (unanswered duty assumed) without its cycle */
-  machineBase: { input: Record<string, unknown> | null; assumed: RequirementKey[] } | null;
+  machineBase: { input: Record<string, unknown> | null; assumed: string[] } | null;
   attachments: AttachmentView[];
   attachmentLimits: AttachmentLimits;
   lastResult: SubmissionResult<string[]> | null;

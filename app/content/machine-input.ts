@@ -1,6 +1,6 @@
 import { MACHINE_DUTY_FIELDS, defaultSequence, type MachineMotion } from "~/hydraulics";
 import type { UnitSystem } from "~/units";
-import { EXAMPLE_AXIS, REQUIREMENT_FIELDS, toFormValues, toRequirementsInput, type FormValues, type RequirementKey } from "./requirement-fields";
+import { EXAMPLE_AXIS, REQUIREMENT_FIELDS, answerInWords, toFormValues, toRequirementsInput, type FormValues, type RequirementKey } from "./requirement-fields";
 import { cycleAnswers, cycleSteps, type Draft } from "./spec-draft";
 
 // A draft of several axes as the machine engine takes it (contract "Machine requirements"), and
@@ -54,10 +54,12 @@ export function machineProblems(draft: Pick<Draft, "axes">, fieldErrors: Record<
  * The draft with the duty questions not yet answered taken from the example axis, and which
  * those are: the cycle step comes before the duty step, and its preview says what it assumed.
  */
-export function withAssumedDuty(draft: Draft, system: UnitSystem): { draft: Draft; assumed: RequirementKey[] } {
+export function withAssumedDuty(draft: Draft, system: UnitSystem): { draft: Draft; assumed: string[] } {
   const example = toFormValues(EXAMPLE_AXIS, system);
-  const assumed = DUTY.filter((k) => !draft.duty[k]?.trim() && example[k as RequirementKey] !== undefined) as RequirementKey[];
-  return { draft: { ...draft, duty: { ...draft.duty, ...Object.fromEntries(assumed.map((k) => [k, example[k]!])) } }, assumed };
+  const keys = DUTY.filter((k) => !draft.duty[k]?.trim() && example[k as RequirementKey] !== undefined) as RequirementKey[];
+  // "cycles per hour 60", "air temperature around the power unit 25 °C": the label, then the value in words.
+  const assumed = keys.map((k) => `${REQUIREMENT_FIELDS[k].label.toLowerCase()} ${answerInWords(k, example[k], system) ?? example[k]}`);
+  return { draft: { ...draft, duty: { ...draft.duty, ...Object.fromEntries(keys.map((k) => [k, example[k]!])) } }, assumed };
 }
 
 /** The sequence of cycle answers by axis name, for a machine input whose cycle is being chosen. */

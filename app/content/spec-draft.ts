@@ -85,7 +85,7 @@ export function copyName(name: string, axes: readonly { name: string }[]): strin
 export function readDraft(answers: StoredAnswers | null | undefined, completedSteps: readonly string[] = []): { draft: Draft; completed: string[] } {
   const raw = answers ?? {};
   const machineRaw = raw.machine ?? {};
-  const listed = (machineRaw.axes ?? "")
+  const listed = String(machineRaw.axes ?? "")
     .split(/\s+/)
     .filter(isAxisId)
     .filter((id, i, all) => all.indexOf(id) === i)

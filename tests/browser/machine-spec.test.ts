@@ -63,6 +63,10 @@ describe("a machine of two axes", () => {
     await expect.poll(() => page.getByText("Another axis is already called “clamp”.").count()).toBe(1);
     await page.getByLabel("Axis 2 name").fill("Hemming ram");
     await shot(page, "1-machine");
+    await page.setViewportSize({ width: 390, height: 844 });
+    await shot(page, "1b-machine-phone");
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await page.setViewportSize({ width: 1280, height: 720 });
     await next(page, "axis01-mounting");
 
     // The progress lists each axis with its steps.
@@ -102,6 +106,11 @@ describe("a machine of two axes", () => {
     await hemming.getByLabel("Extends in").selectOption("2");
     await expect.poll(() => table.innerText()).not.toMatch(/Clamp extends, Hemming ram/);
     await shot(page, "4-cycle");
+    // On a phone the steps, the choices and the power unit stack without a sideways scroll of the page.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await shot(page, "4b-cycle-phone");
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await page.setViewportSize({ width: 1280, height: 720 });
     await next(page, "duty");
 
     await page.getByLabel("Cycles per hour").fill("120");

@@ -47,7 +47,11 @@ describe("readDraft", () => {
     expect(stored.machine).toMatchObject({ axes: "axis01 ram001", "name-axis01": "Axis 1", "name-ram001": "Ram" });
     expect(readDraft(stored).draft).toEqual(draft);
     // A stray record of an axis no longer listed, a forged id or a duty answer on an axis are not read.
-    const forged = { ...stored, "zzzzzz-motion": { strokeMm: "1" }, machine: { ...stored.machine, axes: "axis01 ram001 ../x" } };
+    const forged: Record<string, Record<string, string>> = {
+      ...stored,
+      "zzzzzz-motion": { strokeMm: "1" },
+      machine: { ...stored.machine, axes: "axis01 ram001 ../x" },
+    };
     forged["ram001-motion"] = { ...forged["ram001-motion"], cyclesPerHour: "999" };
     const again = readDraft(forged).draft;
     expect(again.axes.map((a) => a.id)).toEqual(["axis01", "ram001"]);

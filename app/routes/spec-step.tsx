@@ -26,6 +26,13 @@ async function load(request: Request, params: { specId?: string; step?: string }
   const { draft, completed } = draftOf(spec);
   const steps = specSteps(draft.axes);
   const step = findStep(steps, params.step);
+  // A step of an axis removed meanwhile (e.g. in another tab): back to the list of axes, saying so.
+  if (!step && /^[a-z0-9]{6}-(mounting|motion)$/.test(params.step ?? ""))
+    throw await redirectWithToast(
+      request,
+      `/specs/${spec.id}/edit/machine#axes`,
+      "That axis is no longer in this spec, perhaps removed in another tab; nothing from its page was saved.",
+    );
   if (!step) notFound("No such step.");
   return { user, spec, draft, completed, steps, step };
 }

@@ -135,6 +135,12 @@ describe("the axes of a machine", () => {
     expect(axisIds(spec)).toEqual([ram, "axis01"]);
     expect(spec.answers[`${copy}-motion`]).toBeUndefined();
     expect(spec.completedSteps.some((s) => s.startsWith(copy))).toBe(false);
+    // A tab still on the removed axis's page is sent to the list of axes, told why, and changes nothing.
+    const stale = await post(visitor, id, `${copy}-motion`, { intent: "next", ...CLAMP.motion });
+    expect(stale.location).toBe(`/specs/${id}/edit/machine#axes`);
+    expect((await reload(id)).answers).toEqual(spec.answers);
+    expect((await load(visitor, id, "zzzzzz-motion")).status).toBe(302);
+    expect((await load(visitor, id, "payment")).status).toBe(404);
   });
 
   it("refuses empty and repeated names, a ninth axis and the last one removed, and names the axis in its errors", async () => {

@@ -138,6 +138,7 @@ async function api() {
   }
 }
 
-await engine();
-await api();
-await openSpecs();
+// `npm run bench -- api` runs only the named sections (engine, api, open-specs); none runs all.
+const SECTIONS = { engine, api, "open-specs": openSpecs } as const;
+const asked = process.argv.slice(2).filter((name): name is keyof typeof SECTIONS => name in SECTIONS);
+for (const [name, section] of Object.entries(SECTIONS)) if (asked.length === 0 || asked.includes(name as keyof typeof SECTIONS)) await section();

@@ -174,6 +174,10 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
                   {groupCard({ title: "Holding", keys: GROUPS[2].keys.filter((k) => !isMachineDuty(k)) }, index, () => true, false)}
                 </AxisFieldset>
               ))}
+              {/* the engine's default cycle (defaultSequence): said in words, as the spec's cycle step does */}
+              <p className="text-sm text-ink-700" data-quick-cycle="">
+                The axes move one at a time, in the order above: each extends and retracts before the next. A spec lets you say which axes move together.
+              </p>
               {groupCard(
                 { ...GROUPS[2], title: "Duty and site, for the whole machine" },
                 0,

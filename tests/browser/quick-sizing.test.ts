@@ -186,6 +186,7 @@ describe("quick sizing", () => {
     expect(text).toMatch(/Relief setting/);
     expect(text).toMatch(/Motor rating/);
     expect(text).toMatch(/Reservoir/);
+    expect(await page.locator("[data-quick-cycle]").innerText()).toMatch(/one at a time, in the order above/);
     // the duty is asked once, for the whole machine
     expect(await page.getByRole("heading", { name: "Duty and site, for the whole machine" }).count()).toBe(1);
     expect(await page.getByLabel("Cycles per hour").count()).toBe(1);

@@ -150,6 +150,25 @@ describe("a machine's workbooks", () => {
     expect(trail.getCell(rowOf(trail, "Quantity") + machine.trail.length, 1).text).toBe(machine.trail[machine.trail.length - 1].quantity);
   });
 
+  it("bill: a Machine sheet with each axis's key sizes and the power unit once", async () => {
+    const workbook = await download(buyerVisitor, billXlsx.loader, `/specs/${spec.id}/bill.xlsx`, { specId: spec.id });
+    expect(workbook.worksheets.map((s) => s.name)).toEqual(["Bill of materials", "Machine", "Design values", "Requirements", "Cautions"]);
+    const sheet = workbook.getWorksheet("Machine")!;
+    const head = rowOf(sheet, "Axis");
+    machine.axes.forEach((axis, i) => {
+      const r = head + 1 + i;
+      expect(sheet.getCell(r, 1).text).toBe(axis.name);
+      expect([2, 3, 4].map((c) => sheet.getCell(r, c).value)).toEqual([axis.cylinder.boreMm, axis.cylinder.rodMm, axis.cylinder.strokeMm]);
+      expect(sheet.getCell(r, 6).value).toBe(axis.pressuresBar.retract);
+      expect(sheet.getCell(r, 9).text).toBe(axis.directionalValve.iso4401Size);
+    });
+    const figureOf = (label: string) => sheet.getCell(rowOf(sheet, label), 2).value;
+    expect(figureOf("Pump delivery")).toBe(machine.flowsLpm.pump);
+    expect(figureOf("Relief setting")).toBe(machine.pressuresBar.reliefSetting);
+    expect(figureOf("Motor rating")).toBe(machine.motor.ratedKw);
+    expect(figureOf("Reservoir, usable")).toBe(machine.reservoir.volumeL);
+  });
+
   it("requirements: the duty once, the cycle in words, then one block per axis with what was typed", async () => {
     const workbook = await download(buyerVisitor, billXlsx.loader, `/specs/${spec.id}/bill.xlsx`, { specId: spec.id });
     const sheet = workbook.getWorksheet("Requirements")!;

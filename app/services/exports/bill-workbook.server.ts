@@ -4,6 +4,7 @@ import { axisNamesOf, servedBy, type PublishedDesign } from "../published-design
 import type { QuotationFacts } from "~/content/quotation-facts";
 import type { SpecAnswers } from "~/models/spec.server";
 import type { UnitSystem } from "~/units";
+import { addMachineSheet } from "./machine-sheet.server";
 import { addRequirementsSheet } from "./requirements-sheet.server";
 import {
   addCautionsSheet,
@@ -160,6 +161,13 @@ export function buildBillWorkbook(input: BillInput): ExcelJS.Workbook {
   const workbook = newWorkbook();
   workbook.title = `${input.title} - revision ${input.revision} - bill of materials`;
   addBomSheet(workbook, input);
+  if (input.published.kind === "machine") {
+    addMachineSheet(workbook, input.published.design, {
+      document: "The machine: each axis and the power unit",
+      specTitle: input.title,
+      facts: billFacts(input),
+    });
+  }
   addTrailSheet(workbook, input);
   addRequirementsSheet(workbook, input, { document: "Requirements", specTitle: input.title, facts: billFacts(input) });
   addCautionsSheet(workbook, { document: "", specTitle: input.title, facts: billFacts(input) }, input.published.design.warnings);

@@ -7,7 +7,7 @@ import * as jobsPage from "~/routes/jobs";
 import * as jobPage from "~/routes/job";
 import * as accountPage from "~/routes/account";
 import * as specPage from "~/routes/spec";
-import { Bid, Job, JobEvent, JobMilestone, Organisation, User, sequelize } from "~/models/index.server";
+import { Job, JobEvent, JobMilestone, Organisation, User, sequelize } from "~/models/index.server";
 import { MILESTONE_KEYS } from "~/content/job-milestones";
 import { addDays, isoDay } from "~/content/dates";
 import { retainerCents } from "~/content/money";
@@ -17,7 +17,7 @@ import { openJob } from "~/services/job-opening.server";
 import { stageOf, targetDates } from "~/services/job-schedule";
 import { deliverDueMail } from "~/services/mail.server";
 import { FieldErrors } from "~/services/errors.server";
-import { inDays, makeJob, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { inDays, makeJob, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
@@ -138,18 +138,7 @@ describe("opening a job", () => {
     const shop = await makeMember("shop");
     const spec = await makePublishedSpec(buyer);
     const [jobsBefore, milestonesBefore, eventsBefore] = [await Job.count(), await JobMilestone.count(), await JobEvent.count()];
-    const bid = await Bid.create({
-      specId: spec.id,
-      organisationId: shop.organisationId,
-      createdById: shop.id,
-      status: "submitted",
-      specRevision: 1,
-      currency: spec.currency,
-      totalCents: 50_000,
-      leadTimeWeeks: 8,
-      validUntil: inDays(30),
-      submittedAt: new Date(),
-    });
+    const bid = await makeSubmittedBid(spec, shop, { totalCents: 50_000, leadTimeWeeks: 8 });
     await expect(
       sequelize.transaction(async (transaction) => {
         await openJob(transaction, { spec, bid, awardedBy: buyer });

@@ -123,14 +123,10 @@ export async function makePublishedMachineSpec(buyer: User, machine: MachineDesi
   return spec;
 }
 
-let jobSerial = 0;
-/** A published spec of `buyer`, a submitted one-line bid of `shop` on it, and the job its award opens. */
-export async function makeJob(buyer: User, shop: User, options: { totalCents?: number; leadTimeWeeks?: number | null; title?: string } = {}) {
-  const { openJob } = await import("~/services/job-opening.server");
-  const title = options.title ?? `Scissor lift table ${++jobSerial}`;
-  const spec = await makePublishedSpec(buyer, { machine: { title } });
+/** A submitted one-line offer of `shop` on `spec` (written directly: tests of what follows a bid). */
+export async function makeSubmittedBid(spec: Spec, shop: User, options: { totalCents?: number; leadTimeWeeks?: number | null } = {}) {
   const totalCents = options.totalCents ?? 1_234_567;
-  const bid = await Bid.create({
+  return Bid.create({
     specId: spec.id,
     organisationId: shop.organisationId,
     createdById: shop.id,
@@ -157,6 +153,14 @@ export async function makeJob(buyer: User, shop: User, options: { totalCents?: n
     notes: "",
     submittedAt: new Date(),
   });
+}
+
+let jobSerial = 0;
+/** A published spec of `buyer`, a submitted one-line bid of `shop` on it, and the job its award opens. */
+export async function makeJob(buyer: User, shop: User, options: { totalCents?: number; leadTimeWeeks?: number | null; title?: string } = {}) {
+  const { openJob } = await import("~/services/job-opening.server");
+  const spec = await makePublishedSpec(buyer, { machine: { title: options.title ?? `Scissor lift table ${++jobSerial}` } });
+  const bid = await makeSubmittedBid(spec, shop, options);
   const job = await sequelize.transaction((transaction) => openJob(transaction, { spec, bid, awardedBy: buyer }));
   return { spec: spec as Spec, bid, job };
 }

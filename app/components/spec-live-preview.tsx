@@ -27,7 +27,17 @@ function assumedValue(key: RequirementKey, value: string | undefined, system: Un
   return f.kind === "number" && !f.quantity ? (value ?? "") : answerInWords(key, value, system);
 }
 
-export function SpecLivePreview({ values, system, axisName }: { values: FormValues; system: UnitSystem; axisName?: string }) {
+export function SpecLivePreview({
+  values,
+  system,
+  axisName,
+  inMachine = false,
+}: {
+  values: FormValues;
+  system: UnitSystem;
+  axisName?: string;
+  inMachine?: boolean;
+}) {
   const fallback = useMemo(() => toFormValues(EXAMPLE_AXIS, system), [system]);
   const assumed = PREVIEW_FALLBACK_KEYS.filter((k) => !values[k]);
   const input = useMemo(() => {
@@ -46,6 +56,11 @@ export function SpecLivePreview({ values, system, axisName }: { values: FormValu
             <div className="mt-3">
               <KeySizes design={live.design} units={system} />
             </div>
+            {inMachine ? (
+              <p className="mt-2 text-xs text-ink-600">
+                The pump, motor and tank here are what this axis would need alone; the machine&apos;s one power unit is sized on the cycle step.
+              </p>
+            ) : null}
             {assumed.length ? (
               <p className="mt-2 text-xs text-ink-600">
                 Until you answer the duty step, the preview assumes{" "}

@@ -215,7 +215,9 @@ export function SpecStepForm({
             </SubmitButton>
           </div>
         </div>
-        {kind === "motion" ? <SpecLivePreview values={{ ...axisValues, ...current }} system={system} axisName={step.axis?.name} /> : null}
+        {kind === "motion" ? (
+          <SpecLivePreview values={{ ...axisValues, ...current }} system={system} axisName={step.axis?.name} inMachine={context.axes.length > 1} />
+        ) : null}
         {kind === "cycle" ? <MachinePreview {...sizing} assumed={machineBase?.assumed ?? []} system={system} /> : null}
       </div>
       {kind === "cycle" ? (

@@ -8,7 +8,7 @@ import { SpecReview } from "~/components/spec-review";
 import { SpecStepForm } from "~/components/spec-step-form";
 import { Notice, PageHeader } from "~/components/ui";
 import { machineInput, machineSequence, withAssumedDuty } from "~/content/machine-input";
-import { axisFormValues, cycleAnswers } from "~/content/spec-draft";
+import { axisFormValues, axisStepId, cycleAnswers } from "~/content/spec-draft";
 import { findStep, nextStep, previousStep, specSteps, type FormStepKind } from "~/content/spec-steps";
 import { stepContext, stepSchema, typedStepAnswers } from "~/schemas/spec";
 import { fieldErrorsOf, notFound } from "~/services/errors.server";
@@ -25,7 +25,9 @@ async function load(request: Request, params: { specId?: string; step?: string }
   const spec = await specOfOwner(user, params.specId);
   const { draft, completed } = draftOf(spec);
   const steps = specSteps(draft.axes);
-  const step = findStep(steps, params.step);
+  // The motion step of the form before machines is the first axis's (an old bookmark or tab).
+  const stepId = params.step === "motion" ? axisStepId(draft.axes[0].id, "motion") : params.step;
+  const step = findStep(steps, stepId);
   // A step of an axis removed meanwhile (e.g. in another tab): back to the list of axes, saying so.
   if (!step && /^[a-z0-9]{6}-(mounting|motion)$/.test(params.step ?? ""))
     throw await redirectWithToast(
@@ -50,6 +52,7 @@ function stepAnswersOf(draft: ReturnType<typeof draftOf>["draft"], kind: FormSte
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, spec, draft, completed, steps, step } = await load(request, params);
   if (!isEditable(spec)) throw redirect(`/specs/${spec.id}`);
+  if (step.id !== params.step) throw redirect(`/specs/${spec.id}/edit/${step.id}`);
   const kind = step.kind;
   const sized = kind === "review" ? designOf(spec) : null;
   // The cycle step sizes the machine in the browser as the buyer chooses; here its axes and duty.

@@ -346,6 +346,10 @@ describe("the axis questions of sizing contract 2", () => {
     expect(motion.data.stepAnswers).toMatchObject({ strokeMm: "500", holdMinutes: "0" });
     const mounting = await visitor.get(step.loader, `/specs/${id}/edit/axis01-mounting`, { specId: id, step: "axis01-mounting" });
     expect(mounting.data.stepAnswers).toMatchObject({ orientation: "vertical", rodDirection: "down" });
+    // The old motion step's address leads to the axis's, and an old tab's post there is saved onto it.
+    expect((await visitor.get(step.loader, `/specs/${id}/edit/motion`, { specId: id, step: "motion" })).location).toBe(`/specs/${id}/edit/axis01-motion`);
+    expect((await stepPost(visitor, id, "motion", { ...ANSWERS["axis01-motion"], strokeMm: "510" })).status).toBe(302);
+    expect((await Spec.findByPk(id, { rejectOnEmpty: true })).answers["axis01-motion"].strokeMm).toBe("510");
     // A tab still showing the old form posts the old fields only: they validate and save.
     expect((await stepPost(visitor, id, "axis01-motion", strip(ANSWERS["axis01-motion"]))).status).toBe(302);
     expect((await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" })).status).toBe(302);

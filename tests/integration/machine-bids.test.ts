@@ -12,10 +12,10 @@ import * as billXlsx from "~/routes/spec-bill.xlsx";
 import * as bidsXlsx from "~/routes/spec-bids.xlsx";
 import * as pricedXlsx from "~/routes/job-priced-bill.xlsx";
 import type { BomLine, MachineDesign } from "~/hydraulics";
-import { Bid, Job, type Spec, type User } from "~/models/index.server";
+import { Bid, Job, SpecRevision, type Spec, type User } from "~/models/index.server";
 import { bomOf } from "~/services/bids.server";
 import { POWER_UNIT_LABEL } from "~/services/published-design";
-import { makeMember, makePublishedMachineSpec, inDays } from "../support/factories";
+import { makeMember, makePublishedMachineSpec, makePublishedSpec, inDays } from "../support/factories";
 import { clampAndPress } from "../support/machines";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
@@ -228,5 +228,50 @@ describe("a machine's workbooks", () => {
     }
     expect(centsAt(sheet, `F${rowOf(sheet, "Set total, one of each line")}`)).toBe(sum);
     expect(evaluate(sheet, `F${rowOf(sheet, "Set total, one of each line")}`)).toBe(sum / 100);
+  });
+});
+
+describe("a one-axis spec revised into a machine", () => {
+  it("marks the bid made on the one axis as made on an older revision, and prices the machine's bill next", async () => {
+    const owner = await makeMember("buyer");
+    const single = await makePublishedSpec(owner, { machine: { title: "Press, before the clamp was added" } });
+    const oneAxisBill = await bomOf(single);
+    const shop = await makeMember("shop");
+    const shopVisitor = await signedIn(shop);
+    const sent = await shopVisitor.post(
+      bidRoute.action,
+      `/specs/${single.id}/bid`,
+      bidFields(oneAxisBill, () => "100"),
+      { specId: single.id },
+    );
+    expect(sent.status).toBe(302);
+
+    // Revision 2 adds an axis: the revision stores the machine, as publishing a machine does.
+    const first = await SpecRevision.findOne({ where: { specId: single.id, number: 1 }, rejectOnEmpty: true });
+    await SpecRevision.create({
+      specId: single.id,
+      number: 2,
+      axes: machine.axes.map((a) => ({ name: a.name, requirements: a.requirements, design: a })),
+      machine,
+      answers: first.answers,
+      unitSystem: "metric",
+      engineVersion: machine.engineVersion,
+      createdById: owner.id,
+    });
+    await single.update({ currentRevision: 2 });
+
+    // The shop's form now lists the machine's bill, and says the offer was made on revision 1.
+    const form = await shopVisitor.get(bidRoute.loader, `/specs/${single.id}/bid`, { specId: single.id });
+    expect(form.data.bill.map((l: { key: string }) => l.key)).toEqual(machine.bom.map((l) => l.key));
+    expect(form.data.bid).toMatchObject({ specRevision: 1 });
+    expect(form.data.spec.revision).toBe(2);
+
+    // The buyer's comparison: the offer is on an older revision, not complete, and its old lines name no part.
+    const page = await (await signedIn(owner)).get(bidsRoute.loader, `/specs/${single.id}/bids`, { specId: single.id });
+    const [column] = page.data.comparison.columns;
+    expect(column).toMatchObject({ olderRevision: true, complete: false, specRevision: 1 });
+    const old = page.data.comparison.rows.filter((r: { inCurrentBill: boolean }) => !r.inCurrentBill);
+    expect(old.length).toBeGreaterThan(0);
+    expect(old.every((r: { serves: string | null }) => r.serves === null)).toBe(true);
   });
 });

@@ -166,9 +166,12 @@ function AxisCard({ axis, number, u }: { axis: MachineAxis; number: number; u: D
   );
 }
 
-function line(l: { innerDiameterMm: number; velocityMS: number }, u: DisplayUnits): string {
-  return `${u.lengthValue(l.innerDiameterMm)} ${u.lengthUnit} bore, ${formatQuantity("velocity", l.velocityMS, u.system)}`;
+/** A line by its bore, with the oil's speed in it below. */
+function line(label: string, l: { innerDiameterMm: number; velocityMS: number }, u: DisplayUnits): Item {
+  return { label, value: `${u.lengthValue(l.innerDiameterMm)} ${u.lengthUnit} bore`, detail: `oil at ${formatQuantity("velocity", l.velocityMS, u.system)}` };
 }
+
+const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 /** The one power unit, sized over the machine's cycle. */
 function PowerUnit({ design: m, u }: { design: MachineDesign; u: DisplayUnits }) {
@@ -188,9 +191,9 @@ function PowerUnit({ design: m, u }: { design: MachineDesign; u: DisplayUnits })
       detail: `average heat ${u.power(m.heat.averageLossKw)}`,
     },
     { label: "Return filter", value: u.flow(m.returnFilter.ratedFlowLpm), detail: "rated flow" },
-    { label: "Pressure line", value: line(m.lines.pressure, u) },
-    { label: "Return line", value: line(m.lines.return, u) },
-    { label: "Suction line", value: line(m.lines.suction, u) },
+    line("Pressure line", m.lines.pressure, u),
+    line("Return line", m.lines.return, u),
+    line("Suction line", m.lines.suction, u),
   );
   return (
     <Card>
@@ -198,7 +201,7 @@ function PowerUnit({ design: m, u }: { design: MachineDesign; u: DisplayUnits })
         <h2 id="power-unit-title" className="mb-1 font-semibold text-ink-900">
           The power unit, shared by every axis
         </h2>
-        <p className="mb-3 text-sm text-ink-600">{pump.reason}</p>
+        <p className="mb-3 text-sm text-ink-600">{capitalised(pump.reason)}</p>
         <Facts items={items} />
         {m.reliefVent ? (
           <div className="mt-3">

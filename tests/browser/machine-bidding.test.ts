@@ -56,6 +56,12 @@ describe("bidding on a machine", () => {
     expect(await first.locator("[data-power-unit]").count()).toBe(1);
     expect(await first.locator("[data-machine-sequence] li").count()).toBe(machine.sequence.length);
     await shot(first, "1-spec-page");
+    // On a phone the machine reads without the page scrolling sideways (wide tables scroll in their own box).
+    await first.setViewportSize({ width: 390, height: 844 });
+    await expect.poll(() => first.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await first.locator('[data-axis="Press"]').screenshot({ path: path.join(SCREENSHOTS, "machine-bidding-1b-axis-390.png") });
+    await first.locator("[data-power-unit]").screenshot({ path: path.join(SCREENSHOTS, "machine-bidding-1c-power-unit-390.png") });
+    await first.setViewportSize({ width: 1280, height: 720 });
 
     await priceMachine(first, "250", "14");
     // The bill is grouped: the power unit first, then each axis.

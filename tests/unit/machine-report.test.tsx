@@ -1,10 +1,13 @@
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { MachineReport, machinePhaseName } from "~/components/machine-report";
+import { PublishedReport } from "~/components/design-report";
+import { stepInWords } from "~/content/machine-words";
+import { sizeCircuit } from "~/hydraulics";
 import { warningTitle } from "~/content/warning-titles";
 import { POWER_UNIT_LABEL, servedBy } from "~/services/published-design";
 import { formatQuantity } from "~/units";
-import { clampAndPress } from "../support/machines";
+import { CLAMP_AND_PRESS, clampAndPress } from "../support/machines";
 
 const machine = clampAndPress();
 const html = renderToStaticMarkup(<MachineReport design={machine} units="metric" componentsTitle="Bill of materials" />);
@@ -105,5 +108,42 @@ describe("servedBy", () => {
     expect(servedBy("cylinder:A:B", ["B", "A:B"])).toBe("A:B");
     expect(servedBy("pump", ["Clamp"])).toBe(POWER_UNIT_LABEL);
     expect(servedBy("pump", [])).toBeNull();
+  });
+});
+
+describe("PublishedReport", () => {
+  it("shows a machine's requirements (the duty once, the cycle, each axis's own answers) and its MachineReport", () => {
+    const page = renderToStaticMarkup(<PublishedReport published={{ kind: "machine", design: machine }} units="metric" />);
+    expect(page).toContain("data-machine-report");
+    expect(page).toContain("What the machine must do");
+    const duty = sectionOf(page, "data-machine-duty");
+    expect(duty).toContain("Cycles per hour");
+    expect([...duty.matchAll(/<li>([^<]*)<\/li>/g)].map((m) => m[1])).toEqual(["Clamp extends", "Clamp returns", "Press extends", "Press returns"]);
+    for (const name of ["Clamp", "Press"]) {
+      const asks = sectionOf(page, `data-axis-requirements="${name}"`);
+      expect(asks).toContain("Stroke");
+      expect(asks).not.toContain("Cycles per hour");
+    }
+  });
+
+  it("shows one axis as before", () => {
+    const axis = sizeCircuit({ ...CLAMP_AND_PRESS.axes[0], cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50 });
+    const page = renderToStaticMarkup(<PublishedReport published={{ kind: "axis", design: axis }} units="metric" />);
+    expect(page).not.toContain("data-machine-report");
+    expect(page).toContain("What the axis must do");
+    expect(page).toContain('data-key-size="Bore / rod"');
+  });
+});
+
+describe("stepInWords", () => {
+  it("says who moves together and who returns meanwhile", () => {
+    expect(stepInWords([{ axis: "Feed", motion: "extend" }])).toBe("Feed extends");
+    expect(
+      stepInWords([
+        { axis: "Clamp A", motion: "extend" },
+        { axis: "Clamp B", motion: "extend" },
+        { axis: "Feed", motion: "retract" },
+      ]),
+    ).toBe("Clamp A and Clamp B extend while Feed returns");
   });
 });

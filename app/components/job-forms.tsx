@@ -1,4 +1,4 @@
-import { getFormProps, useForm, type DefaultValue, type SubmissionResult } from "@conform-to/react";
+import { getFormProps, useForm, type DefaultValue, type FormMetadata, type SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
 import type { z } from "zod";
 import { Form, useNavigation } from "react-router";
@@ -34,21 +34,19 @@ function useJobForm<Schema extends z.ZodObject>(
 
 type FormProps = { lastResult: SubmissionResult<string[]> | undefined };
 
-/** The frame every job form shares: a card with its title and lead, the intent it posts, and its form-level errors. */
-function JobFormCard(props: {
+/** The frame every job form shares: a card with its title and lead, the intent it posts (the form's id), and its form-level errors. */
+function JobFormCard<Shape extends Record<string, unknown>>(props: {
   title: React.ReactNode;
   lead?: string;
-  intent: JobActionIntent;
-  form: { errorId: string; errors?: string[] };
-  formProps: ReturnType<typeof getFormProps>;
+  form: FormMetadata<Shape, string[]>;
   children: React.ReactNode;
 }) {
   return (
     <Card>
       <h2 className="mb-1 font-semibold">{props.title}</h2>
       {props.lead ? <p className="mb-4 text-sm text-ink-600">{props.lead}</p> : null}
-      <Form method="post" {...props.formProps} className={props.lead ? "space-y-4" : "mt-3 space-y-4"}>
-        <input type="hidden" name="intent" value={props.intent} />
+      <Form method="post" {...getFormProps(props.form)} className={props.lead ? "space-y-4" : "mt-3 space-y-4"}>
+        <input type="hidden" name="intent" value={props.form.id} />
         <FormErrors id={props.form.errorId} errors={props.form.errors} />
         {props.children}
       </Form>
@@ -59,13 +57,7 @@ function JobFormCard(props: {
 export function ReachForm({ open, lastResult }: FormProps & { open: MilestoneKey[] }) {
   const [form, fields] = useJobForm("reach", reachSchema, lastResult, { milestone: open[0] });
   return (
-    <JobFormCard
-      title="Record progress"
-      lead="Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well."
-      intent="reach"
-      form={form}
-      formProps={getFormProps(form)}
-    >
+    <JobFormCard title="Record progress" lead="Buyer and shop get an e-mail. Choosing a later milestone records the ones before it as well." form={form}>
       <SelectField meta={fields.milestone} label="Reached up to and including" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
       <TextAreaField meta={fields.note} label="Note (optional)" hint="For example: pressure test passed at 1.5 × the relief setting." />
       <SubmitButton>Record as reached</SubmitButton>
@@ -76,7 +68,7 @@ export function ReachForm({ open, lastResult }: FormProps & { open: MilestoneKey
 export function TargetForm({ open, lastResult }: FormProps & { open: MilestoneKey[] }) {
   const [form, fields] = useJobForm("target", targetSchema, lastResult, { milestone: open[0] });
   return (
-    <JobFormCard title="Move a target date" lead="The change and your reason go into the history." intent="target" form={form} formProps={getFormProps(form)}>
+    <JobFormCard title="Move a target date" lead="The change and your reason go into the history." form={form}>
       <SelectField meta={fields.milestone} label="Milestone" options={open.map((k) => ({ value: k, label: MILESTONE_LABELS[k] }))} />
       <TextField meta={fields.targetDate} label="New target date" type="date" />
       <TextAreaField meta={fields.reason} label="Reason (optional)" hint="For example: the motor arrives two weeks late." />
@@ -88,7 +80,7 @@ export function TargetForm({ open, lastResult }: FormProps & { open: MilestoneKe
 export function ProgressNoteForm({ lastResult }: FormProps) {
   const [form, fields] = useJobForm("progress-note", progressNoteSchema, lastResult);
   return (
-    <JobFormCard title="Note for the buyer" intent="progress-note" form={form} formProps={getFormProps(form)}>
+    <JobFormCard title="Note for the buyer" form={form}>
       <TextAreaField meta={fields.body} label="Note" hint="Seen by the buyer and by Tenderflow staff." />
       <SubmitButton tone="secondary">Add the note</SubmitButton>
     </JobFormCard>
@@ -101,9 +93,7 @@ export function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey 
     <JobFormCard
       title={<>Take back “{MILESTONE_LABELS[last]}”</>}
       lead="Only the last milestone reached can be taken back. It stays in the history with your reason."
-      intent="undo"
       form={form}
-      formProps={getFormProps(form)}
     >
       <input type="hidden" name="milestone" value={last} />
       <TextAreaField meta={fields.reason} label="Reason" hint="For example: the test has to be repeated after a seal change." />
@@ -115,13 +105,7 @@ export function UndoForm({ last, lastResult }: FormProps & { last: MilestoneKey 
 export function ManagerNoteForm({ lastResult }: FormProps) {
   const [form, fields] = useJobForm("manager-note", managerNoteSchema, lastResult);
   return (
-    <JobFormCard
-      title="Internal note"
-      lead="Only Tenderflow staff see these notes, never the buyer or the shop."
-      intent="manager-note"
-      form={form}
-      formProps={getFormProps(form)}
-    >
+    <JobFormCard title="Internal note" lead="Only Tenderflow staff see these notes, never the buyer or the shop." form={form}>
       <TextAreaField meta={fields.body} label="Note" />
       <SubmitButton tone="secondary">Save the note</SubmitButton>
     </JobFormCard>

@@ -155,17 +155,20 @@ export function ListTable({
   columns,
   minWidth = "min-w-[40rem]",
   empty,
+  pager,
   children,
 }: {
   label: string;
   /** Said under the header when there are no rows (a search that matched nothing). */
   empty?: string;
+  /** The list's page links, under the table. */
+  pager?: React.ComponentProps<typeof Pager>;
   /** Header cells: a label, or a label with its classes (alignment, padding). An empty label is read out as `srLabel`. */
   columns: (string | { label: string; className?: string; srLabel?: string })[];
   minWidth?: string;
   children: React.ReactNode;
 }) {
-  return (
+  const table = (
     <TableScroll label={label}>
       <table className={`w-full ${minWidth} text-left text-sm`}>
         <thead className="text-ink-600">
@@ -184,6 +187,12 @@ export function ListTable({
       </table>
       {empty && Children.count(children) === 0 ? <p className="py-6 text-center text-ink-600">{empty}</p> : null}
     </TableScroll>
+  );
+  return (
+    <>
+      {table}
+      {pager ? <Pager {...pager} /> : null}
+    </>
   );
 }
 

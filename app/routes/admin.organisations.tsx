@@ -4,20 +4,7 @@ import type { Route } from "./+types/admin.organisations";
 import { requireRole } from "~/auth/permissions.server";
 import { KIND_LABELS, ORGANISATION_KINDS, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import {
-  Badge,
-  Button,
-  Card,
-  ErrorNotice,
-  FilterSelects,
-  ListTable,
-  type ListFilter,
-  PageHeader,
-  Pager,
-  RowChoiceForm,
-  SearchBar,
-  SortChoice,
-} from "~/components/ui";
+import { Badge, Button, Card, ErrorNotice, FilterSelects, ListTable, type ListFilter, PageHeader, RowChoiceForm, SearchBar, SortChoice } from "~/components/ui";
 import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
 import { formatDay } from "~/content/dates";
@@ -215,6 +202,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
         <SortChoice options={LIST_SORTS.organisations} current={loaderData.sort} search={searchParams} />
         <ListTable
           label="Organisations"
+          pager={{ page: loaderData.page, pageCount: loaderData.pageCount, search: searchParams }}
           empty="No organisation matches that search."
           columns={["Organisation", "Kind", "Region", "Users", "Approval", "Account manager"]}
         >
@@ -258,7 +246,6 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
             </tr>
           ))}
         </ListTable>
-        <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>
     </>
   );

@@ -5,7 +5,7 @@ import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS, type Role, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { ActiveBadge, Button, Card, ErrorNotice, ListTable, PageHeader, Pager, RowChoiceForm, SearchBar, SortChoice } from "~/components/ui";
+import { ActiveBadge, Button, Card, ErrorNotice, ListTable, PageHeader, RowChoiceForm, SearchBar, SortChoice } from "~/components/ui";
 import { FieldErrors as FieldErrorText } from "~/components/form-field";
 import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
@@ -107,6 +107,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
         <SortChoice options={LIST_SORTS.users} current={loaderData.sort} search={searchParams} />
         <ListTable
           label="Users"
+          pager={{ page: loaderData.page, pageCount: loaderData.pageCount, search: searchParams }}
           empty="No user matches that search."
           columns={["Name", "Organisation", "Role", "Status", "Last signed in", { label: "", srLabel: "Action" }]}
         >
@@ -159,7 +160,6 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
             </tr>
           ))}
         </ListTable>
-        <Pager page={loaderData.page} pageCount={loaderData.pageCount} search={searchParams} />
       </Card>
     </>
   );

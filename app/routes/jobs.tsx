@@ -4,7 +4,7 @@ import { RetainerBadge } from "~/components/retainer-badge";
 import { requireUser } from "~/auth/permissions.server";
 import type { Role } from "~/auth/roles";
 import { JobsByStageChart } from "~/components/jobs-by-stage-chart";
-import { Badge, Card, EmptyState, FilterSelects, ListTable, type ListFilter, PageHeader, Pager, SearchBar } from "~/components/ui";
+import { Badge, Card, EmptyState, FilterSelects, ListTable, type ListFilter, PageHeader, SearchBar } from "~/components/ui";
 import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
 import { formatMoney } from "~/content/money";
@@ -96,6 +96,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
             <p className="mb-2 text-sm text-ink-600">{countOf(d.total, "job")}. Overdue jobs come first, then the most recently awarded.</p>
             <ListTable
               label="Jobs"
+              pager={{ page: d.page, pageCount: d.pageCount, search: params }}
               empty="No job matches these filters."
               columns={[
                 "Spec",
@@ -146,7 +147,6 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                 </tr>
               ))}
             </ListTable>
-            <Pager page={d.page} pageCount={d.pageCount} search={params} />
           </Card>
         </div>
       )}

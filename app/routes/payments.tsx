@@ -2,7 +2,7 @@ import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/payments";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
-import { Badge, Button, Card, EmptyState, FilterSelects, ListTable, PageHeader, Pager, type ListFilter } from "~/components/ui";
+import { Badge, Button, Card, EmptyState, FilterSelects, ListTable, PageHeader, type ListFilter } from "~/components/ui";
 import { OrganisationName } from "~/components/organisation-link";
 import { formatMoney } from "~/content/money";
 import { formatMoment } from "~/content/dates";
@@ -83,6 +83,7 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
         ) : (
           <ListTable
             label="Payments"
+            pager={{ page: d.page, pageCount: d.pageCount, search: params }}
             columns={[
               "Job",
               "Buyer",
@@ -130,7 +131,6 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
             ))}
           </ListTable>
         )}
-        <Pager page={d.page} pageCount={d.pageCount} search={params} />
       </Card>
     </>
   );

@@ -15,6 +15,9 @@ import { fieldErrorReply } from "~/services/errors.server";
 import { addManagerNote, addProgressNote, changeTargetDate, reachMilestones, undoLastMilestone } from "~/services/job-progress.server";
 import { jobFor, scopedJob, type JobEventView } from "~/services/job-reads.server";
 import { retainerPanelOf } from "~/services/payments.server";
+import { openableOrganisations } from "~/services/organisation-page.server";
+import { OrganisationName } from "~/components/organisation-link";
+import { countOf } from "~/content/count";
 import { RetainerPanel } from "~/components/retainer-panel";
 import { RetainerBadge } from "~/components/retainer-badge";
 
@@ -23,7 +26,7 @@ export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.job.spe
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
   const [job, retainer] = await Promise.all([jobFor(user, params.jobId), retainerPanelOf(user, params.jobId)]);
-  return { job, retainer };
+  return { job, retainer, openable: await openableOrganisations(user, [job.buyerId, job.shopId]) };
 }
 
 type ActionResult = { intent: JobActionIntent | null; result: SubmissionResult<string[]> };
@@ -89,8 +92,9 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
           <span className="flex flex-wrap items-center gap-2">
             <Badge tone={job.overdue ? "bad" : "neutral"}>{job.overdue ? "Overdue" : JOB_STAGE_LABELS[job.stage]}</Badge>
             <span>
-              For {job.buyerName} · built by {job.shopName} · awarded {formatDay(job.awardedAt)} (
-              {job.daysSinceAward === 0 ? "today" : `${job.daysSinceAward} day${job.daysSinceAward === 1 ? "" : "s"} ago`})
+              For <OrganisationName id={job.buyerId} name={job.buyerName} linked={loaderData.openable.includes(job.buyerId)} /> · built by{" "}
+              <OrganisationName id={job.shopId} name={job.shopName} linked={loaderData.openable.includes(job.shopId)} /> · awarded {formatDay(job.awardedAt)} (
+              {job.daysSinceAward === 0 ? "today" : `${countOf(job.daysSinceAward, "day")} ago`})
             </span>
           </span>
         }

@@ -6,6 +6,7 @@ import * as accounts from "~/routes/accounts";
 import * as account from "~/routes/account";
 import * as adminMail from "~/routes/admin.mail";
 import * as jobs from "~/routes/jobs";
+import * as jobRoute from "~/routes/job";
 import * as payments from "~/routes/payments";
 import { Organisation, OutboxMail, Payment, User as UserModel, type User } from "~/models/index.server";
 import { enqueueMail } from "~/services/mail.server";
@@ -212,7 +213,7 @@ describe("admin lists: a stated order the admin can change", () => {
 });
 
 describe("organisation names link to the organisation page where the viewer may open it", () => {
-  it("in the admin's users and organisations lists, and in the jobs and payments lists of staff, never for buyers and shops", async () => {
+  it("in the admin's users and organisations lists, and in staff's jobs and payments lists and job page, never for buyers and shops", async () => {
     const manager = await makeOperatorUser("account_manager");
     const buyer = await makeMember("buyer", { organisationName: "Linkmoor Tooling" });
     const shop = await makeMember("shop", { organisationName: "Linkmoor Fluid Power" });
@@ -237,7 +238,11 @@ describe("organisation names link to the organisation page where the viewer may 
     expect(managerPayments[0].buyer).toEqual({ id: buyer.organisationId, name: "Linkmoor Tooling", linked: true });
     expect(managerPayments[0].shop).toEqual({ id: shop.organisationId, name: "Linkmoor Fluid Power", linked: true });
 
+    const jobPage = (await managerVisitor.get(jobRoute.loader, `/jobs/${job.id}`, { jobId: job.id })).data;
+    expect(jobPage.openable.sort()).toEqual([buyer.organisationId, shop.organisationId].sort());
+
     // The buyer and the shop see the names only: they have no organisation pages.
+    expect((await (await signedIn(shop)).get(jobRoute.loader, `/jobs/${job.id}`, { jobId: job.id })).data.openable).toEqual([]);
     expect((await (await signedIn(buyer)).get(jobs.loader, "/jobs")).data.openable).toEqual([]);
     expect((await (await signedIn(shop)).get(jobs.loader, "/jobs")).data.openable).toEqual([]);
     expect((await (await signedIn(buyer)).get(payments.loader, "/payments")).data.payments[0].shop.linked).toBe(false);

@@ -51,6 +51,7 @@ import {
   PortLabel,
   PressureSwitchSymbol,
   PumpSymbol,
+  ReducingValveSymbol,
   RegenValveSymbol,
   ReliefSymbol,
   STROKE,
@@ -367,6 +368,20 @@ function ComponentSymbol({
               "free return",
               ...v("settingLpm", (q) => `set ${u.flow(q)}`),
             ]}
+          />
+        </>
+      );
+    case "reducing":
+      // the caption on the left, clear of its pilot line; the drain and its tank are on the right
+      return (
+        <>
+          <ReducingValveSymbol id={c.id} centre={at} />
+          <Caption
+            x={at.x - RELIEF_BOX / 2 - 22}
+            y={at.y - 8}
+            anchor="end"
+            name="Pressure-reducing valve"
+            values={[...v("settingBar", (p) => `set ${u.pressure(p)}`), "drained to tank"]}
           />
         </>
       );

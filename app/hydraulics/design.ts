@@ -137,6 +137,8 @@ export interface CircuitComponent {
     | "unloading"
     | "check"
     | "flow-control"
+    /** a machine axis's pressure-reducing valve in its P line (machine-circuit.ts) */
+    | "reducing"
     | "bypass"
     | "pressure-switch"
     | "limit-switch";

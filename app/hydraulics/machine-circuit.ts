@@ -1,7 +1,8 @@
 /**
  * The machine's circuit as data: the power unit once, then each axis's directional valve,
  * cylinder and in-line valves with the axis named on every component (and, where the shared
- * pump gives more than the axis takes, its P-line flow control). Every directional valve
+ * pump gives more than the axis takes, its P-line flow control; where its cylinder is rated below
+ * the relief, its pressure-reducing valve). Every directional valve
  * takes P from the pump line and returns T through the return filter to the tank; an axis's
  * parts connect only among themselves and to the power unit, so each valve reaches only its own
  * cylinder. The diagram drawing of a machine is not made here.
@@ -9,6 +10,7 @@
 import { buildCircuit } from "./circuit";
 import type { CircuitConnection, Design } from "./design";
 import type { MachineCircuit, MachineCircuitComponent, MachineDesign } from "./machine-design";
+import { reducingSettingBar } from "./machine-bom";
 import { gaugeRangeBar, POWER_UNIT_IDS, powerUnitDesign } from "./machine-unit";
 import { dcvPositions } from "./valves";
 
@@ -55,7 +57,10 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
       if (!joined.has(key)) connections.push(c);
       joined.add(key);
     };
-    // An axis on a larger shared pump takes P through its own P-line flow control (machine-bom.ts).
+    // The axis's P line, from the pump's feed up to its valve's P: its own P-line flow control where
+    // it is on a larger shared pump, then its reducing valve where its cylinder is rated below the
+    // relief (both billed in machine-bom.ts). Each part's inlet and outlet port, in the order the oil passes them.
+    const pLine: { id: string; inlet: string; outlet: string }[] = [];
     if (axis.speedControl) {
       const id = axisPartId(i, "speed-control");
       components.push({
@@ -66,11 +71,28 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
         label: `Flow control, P line (meter-in), pressure-compensated, ${axis.name}`,
         values: { settingLpm: axis.speedControl.flowLpm, compensated: "yes" },
       });
-      for (const c of feeds) join({ ...c, to: `${id}.2` });
-      join({ from: `${id}.1`, to: rename("dcv.P"), line: "pressure" });
-    } else {
-      for (const c of feeds) join({ ...c, to: rename(c.to) });
+      pLine.push({ id, inlet: "2", outlet: "1" });
     }
+    const reducing = reducingSettingBar(axis.cylinder.ratedPressureBar, m.pressuresBar.reliefSetting, designs[i].pressuresBar.reliefSetting);
+    if (reducing !== null) {
+      const id = axisPartId(i, "reducing");
+      // P in from the pump line, A out to the valve's P, Y the external drain of its spring chamber to tank.
+      components.push({
+        id,
+        kind: "reducing",
+        ports: ["P", "A", "Y"],
+        axis: axis.name,
+        label: `Pressure-reducing valve, P line, externally drained, ${axis.name}`,
+        values: { settingBar: reducing, cylinderRatedBar: axis.cylinder.ratedPressureBar, reliefBar: m.pressuresBar.reliefSetting },
+      });
+      pLine.push({ id, inlet: "P", outlet: "A" });
+      join({ from: `${id}.Y`, to: "tank.return", line: "return" });
+    }
+    for (const c of feeds) join({ ...c, to: pLine.length > 0 ? `${pLine[0].id}.${pLine[0].inlet}` : rename(c.to) });
+    pLine.forEach((part, k) => {
+      const next = pLine[k + 1];
+      join({ from: `${part.id}.${part.outlet}`, to: next ? `${next.id}.${next.inlet}` : rename("dcv.P"), line: "pressure" });
+    });
     for (const c of own.connections) {
       const ends = [componentOf(c.from), componentOf(c.to)];
       if (ends.every((id) => POWER_UNIT_IDS.has(id))) continue;

@@ -4,8 +4,8 @@ import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { CircuitDiagram } from "~/components/circuit-diagram";
 import { displayUnits } from "~/components/circuit-diagram/format";
-import { layoutMachine } from "~/components/circuit-diagram/machine-layout";
-import { meetings, routeConnections } from "~/components/circuit-diagram/routes";
+import { layoutMachine, pLinePort } from "~/components/circuit-diagram/machine-layout";
+import { meetings, routeConnections, type Route } from "~/components/circuit-diagram/routes";
 import { sizeMachine, type MachineDesign } from "~/hydraulics";
 
 const H = { orientation: "horizontal", mounting: "fixed-pinned", frictionCoefficient: 0.1 } as const;
@@ -22,6 +22,8 @@ const PRESS = {
   retractSpeedMmS: 150,
 };
 const FEED = { ...H, name: "Feed", massKg: 300, strokeMm: 500, extendSpeedMmS: 200, retractSpeedMmS: 200 };
+/** A 300 kN press: a 250 bar cylinder and a relief above the 160 bar a light clamp's cylinder is rated for. */
+const HEAVY_PRESS = { ...PRESS, name: "Heavy press", processForceN: 300_000 };
 /** A vertical ram whose load overruns on the way down: it gets a counterbalance valve. */
 const RAM = {
   orientation: "vertical",
@@ -45,6 +47,7 @@ const MACHINES: Record<string, MachineDesign> = {
     axes: Array.from({ length: 8 }, (_, i) => ({ ...[CLAMP, FEED, RAM, PRESS][i % 4], name: `Station ${i + 1}` })),
     ...DUTY,
   }),
+  "clamp on a reducing valve beside a heavy press": sizeMachine({ axes: [CLAMP, HEAVY_PRESS], ...DUTY }),
   "feed, ram and clamp together": sizeMachine({
     axes: [FEED, RAM, CLAMP],
     ...DUTY,
@@ -127,9 +130,10 @@ function captionBoxes(html: string): Box[] {
 const overlap = (a: Box, b: Box) => a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom;
 
 describe("the machine's circuit diagram", () => {
-  it("the machines under test: two and three axes, a counterbalanced ram, P-line flow controls and a vented relief among them", () => {
+  it("the machines under test: two and three axes, a counterbalanced ram, P-line flow controls, a reducing valve and a vented relief among them", () => {
     const all = Object.values(MACHINES).flatMap((m) => m.circuit.components);
-    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 3]);
+    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 2, 3]);
+    expect(all.some((c) => c.kind === "reducing")).toBe(true);
     expect(all.some((c) => c.kind === "cbv")).toBe(true);
     expect(all.some((c) => c.id.endsWith(":speed-control"))).toBe(true);
     expect(all.some((c) => c.kind === "vent")).toBe(true);
@@ -218,12 +222,17 @@ describe("the machine's circuit diagram", () => {
     const pressureDrops: number[] = [];
     const tankDrops: number[] = [];
     for (const dcv of m.circuit.components.filter((c) => c.kind === "dcv")) {
-      // P: from the pump (directly, or through the axis's own P-line flow control)
-      const intoP = routes.filter((r) => r.connection.to === `${dcv.id}.P`);
-      expect(intoP.length).toBeGreaterThan(0);
-      const fromUnit = intoP.flatMap((r) =>
-        axisOf(m, componentOf(r.connection.from)) === undefined ? [r] : routes.filter((s) => s.connection.to === `${componentOf(r.connection.from)}.2`),
-      );
+      // P: from the pump (directly, or through the axis's own P-line flow control and reducing valve)
+      const byId = new Map(m.circuit.components.map((c) => [c.id, c]));
+      const feedOf = (end: string): Route[] => {
+        const into = routes.filter((r) => r.connection.to === end);
+        expect(into.length, end).toBeGreaterThan(0);
+        return into.flatMap((r) => {
+          const part = byId.get(componentOf(r.connection.from))!;
+          return part.axis === undefined ? [r] : feedOf(pLinePort(part, "inlet"));
+        });
+      };
+      const fromUnit = feedOf(`${dcv.id}.P`);
       expect(fromUnit.map((r) => componentOf(r.connection.from))).toContain("pump");
       for (const r of fromUnit.filter((x) => x.connection.from === "pump.outlet")) {
         expect(r.points[0]).toMatchObject({ x: pumpOutlet.x, y: pumpOutlet.y });
@@ -299,6 +308,50 @@ describe("the machine's circuit diagram", () => {
     expect(desc(html)).toContain(`meter-in flow control in its P line passes ${displayUnits("metric").flow(Number(control.values!.settingLpm))}`);
   });
 
+  it("draws an axis's reducing valve in its P line under its valve, drained to a tank of its own, and says what it keeps from the cylinder", () => {
+    const m = MACHINES["clamp on a reducing valve beside a heavy press"];
+    const reducer = m.circuit.components.find((c) => c.kind === "reducing")!;
+    const control = m.circuit.components.find((c) => c.id === "a1:speed-control")!;
+    const dcv = m.circuit.components.find((c) => c.kind === "dcv" && c.axis === reducer.axis)!;
+    expect(reducer.axis).toBe("Clamp");
+    const html = render(m);
+    expect(html).toContain(`data-component="${reducer.id}" data-kind="reducing" data-normally="open" data-pilot="A" data-drain="external"`);
+    for (const port of ["P", "A", "Y"]) expect(html).toContain(`data-port="${reducer.id}.${port}"`);
+    expect(html).toMatch(/>Pressure-reducing valve<\/tspan><tspan[^>]*>set 150 bar</);
+    // in the clamp's column, under its valve and above the pressure rail, nearer the valve than the flow control (as the data joins them)
+    const layout = layoutMachine(m.circuit);
+    const at = layout.merged.at[reducer.id];
+    expect(at.x).toBeGreaterThan(layout.columns[0].left);
+    expect(at.x).toBeLessThan(layout.columns[0].right);
+    expect(at.y).toBeGreaterThan(layout.merged.ports[`${dcv.id}.P`].y);
+    expect(at.y).toBeLessThan(layout.merged.at[control.id].y);
+    expect(layout.merged.at[control.id].y).toBeLessThan(layout.rails.pressureY);
+    // the oil passes it upwards: inlet P below, outlet A above, each line straight to the next part
+    const routes = routeConnections(m.circuit, layout.merged);
+    const route = (from: string, to: string) => routes.find((r) => r.connection.from === from && r.connection.to === to)!;
+    expect(route("a1:speed-control.1", `${reducer.id}.P`).points.every((p) => p.x === at.x)).toBe(true);
+    expect(route(`${reducer.id}.A`, `${dcv.id}.P`).points[0]).toMatchObject({ x: at.x, y: layout.merged.ports[`${reducer.id}.A`].y });
+    // the drain drops to a tank of its own beside it, above the rails, clear of every symbol
+    const drain = route(`${reducer.id}.Y`, "tank.return");
+    expect(drain.tank).toBeDefined();
+    expect(drain.points.every((p) => p.x === drain.points[0].x && p.y < layout.rails.pressureY)).toBe(true);
+    const tank = { name: "drain tank", left: drain.tank!.x - 20, right: drain.tank!.x + 20, top: drain.tank!.top, bottom: drain.tank!.top + 16 };
+    expect(tank.bottom).toBeLessThan(layout.rails.pressureY);
+    // (its own symbol's box holds the drain line that ends in it)
+    const others = [...symbolBoxes(html), ...captionBoxes(html)].filter((x) => x.name !== "tank" && x.name !== reducer.id);
+    expect(others.map((b) => b.name)).toEqual(expect.arrayContaining([control.id, "Pressure-reducing valve", "P-line flow control"]));
+    for (const b of others) expect(overlap(tank, b), b.name).toBe(false);
+    // the description, in either unit system
+    for (const units of ["metric", "us"] as const) {
+      const u = displayUnits(units);
+      const bar = (key: string) => u.pressure(Number(reducer.values![key]));
+      expect(desc(render(m, units))).toContain(
+        `A pressure-reducing valve in its P line, piloted from its outlet and drained to tank, reduces the pressure to this axis's valve to ${bar("settingBar")}, so its ${bar("cylinderRatedBar")} cylinder never sees the ${bar("reliefBar")} relief.`,
+      );
+    }
+    expect(desc(html)).toContain("to 150 bar, so its 160 bar cylinder never sees the ");
+  });
+
   it("draws a machine of one axis as one labelled column", () => {
     const m = sizeMachine({ axes: [RAM], ...DUTY });
     const html = render(m);
@@ -308,5 +361,3 @@ describe("the machine's circuit diagram", () => {
     expect(html).toMatch(/<title[^>]*>[^<]*machine of 1 axis \(Ram\)/);
   });
 });
-
-const axisOf = (m: MachineDesign, id: string) => m.circuit.components.find((c) => c.id === id)?.axis;

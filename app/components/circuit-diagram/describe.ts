@@ -1,7 +1,7 @@
 import type { Circuit, CircuitComponent, DcvCenter, PortPair } from "~/hydraulics/design";
 import type { MachineCircuit } from "~/hydraulics/machine-design";
 import type { DisplayUnits } from "./format";
-import { axesOf, pLineControls, subCircuit } from "./machine-layout";
+import { axesOf, pLineControls, pLineParts, pLineReducers, subCircuit } from "./machine-layout";
 import { blockedPorts } from "./valve-positions";
 
 /** Trade names of the centre conditions, for captions, the description and the panels. */
@@ -300,11 +300,13 @@ export function machineCircuitTitle(circuit: MachineCircuit): string {
  */
 export function machineCircuitDescription(circuit: MachineCircuit, u: DisplayUnits): string {
   const controls = pLineControls(circuit);
+  const reducers = pLineReducers(circuit);
+  const pLineIds = new Set([...pLineParts(circuit).values()].flat().map((c) => c.id));
   const axes = axesOf(circuit);
   const unit = circuitDescription(subCircuit(circuit, undefined), u);
   const rails = `The directional valves of ${list(axes)} each take P from the common pressure line and return T to the common tank line, through the return filter.`;
   const perAxis = axes.map((axis) => {
-    const own = subCircuit(circuit, axis, new Set([...controls.values()].map((c) => c.id)));
+    const own = subCircuit(circuit, axis, pLineIds);
     const dcv = own.components.find((c) => c.kind === "dcv");
     const control = dcv && controls.get(dcv.id);
     const share =
@@ -314,7 +316,23 @@ export function machineCircuitDescription(circuit: MachineCircuit, u: DisplayUni
         numberValue(control, "settingLpm") !== undefined && `passes ${u.flow(numberValue(control, "settingLpm")!)}`,
         "so the axis keeps its own speed on the shared pump",
       );
-    return `Axis ${axis}: ${circuitDescription(own, u)}${share ? ` ${share}.` : ""}`;
+    const reducer = dcv && reducers.get(dcv.id);
+    const reduced = reducer && reducingSentence(reducer, u);
+    return `Axis ${axis}: ${circuitDescription(own, u)}${share ? ` ${share}.` : ""}${reduced ? ` ${reduced}.` : ""}`;
   });
   return [unit, rails, ...perAxis].join(" ");
+}
+
+/** An axis's reducing valve: the pressure its valve gets, and why (its cylinder's rating under the relief). */
+function reducingSentence(reducer: CircuitComponent, u: DisplayUnits): string {
+  const at = (key: string) => {
+    const bar = numberValue(reducer, key);
+    return bar === undefined ? undefined : u.pressure(bar);
+  };
+  const [setting, rated, relief] = [at("settingBar"), at("cylinderRatedBar"), at("reliefBar")];
+  return phrase(
+    "A pressure-reducing valve in its P line, piloted from its outlet and drained to tank,",
+    setting ? `reduces the pressure to this axis's valve to ${setting}` : "reduces the pressure to this axis's valve",
+    rated && relief && `, so its ${rated} cylinder never sees the ${relief} relief`,
+  ).replace(" ,", ",");
 }

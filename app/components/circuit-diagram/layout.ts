@@ -79,6 +79,14 @@ const pilotDy = (kind: CircuitComponent["kind"], side: "cap" | "rod") =>
 /** Flow control with its free-flow check: half width and half height of the enclosure. */
 export const FC_HALF_W = 32;
 export const FC_HALF_H = 34;
+/**
+ * Pressure-reducing valve in a machine axis's P line: a RELIEF_BOX square whose ports A (above)
+ * and P (below) stand REDUCING_HALF_H from its centre; its drain Y leaves the end of its spring,
+ * REDUCING_DRAIN_DX right of and REDUCING_DRAIN_DY below the centre, down to a tank of its own.
+ */
+export const REDUCING_HALF_H = 34;
+export const REDUCING_DRAIN_DX = RELIEF_BOX / 2 + 24;
+export const REDUCING_DRAIN_DY = 24;
 /** The bypass valve sits this far beside the flow control, its normal box in line with it. */
 const BYPASS_DX = 70;
 /**

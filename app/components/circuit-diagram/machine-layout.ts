@@ -1,24 +1,26 @@
 import type { Circuit } from "~/hydraulics/design";
 import type { MachineCircuit, MachineCircuitComponent } from "~/hydraulics/machine-design";
-import { FC_HALF_H, layoutCircuit, type Anchor, type Layout, type Point } from "./layout";
+import { FC_HALF_H, layoutCircuit, REDUCING_DRAIN_DX, REDUCING_DRAIN_DY, REDUCING_HALF_H, type Anchor, type Layout, type Point } from "./layout";
 
 /**
  * A machine's circuit laid out from its data: each axis's parts are laid out as an axis alone
  * (layout.ts) in a column of their own, side by side, the directional valves brought to one row
  * as on a common manifold; below them the common pressure rail and the common tank rail that
  * every valve's P and T lines join; below those the power unit, laid out once as for an axis.
- * A P-line flow control (an axis on a larger shared pump) sits under its valve's P port.
+ * An axis's P-line parts (a flow control where it is on a larger shared pump, a reducing valve
+ * where its cylinder is rated below the relief) stand under its valve's P port, in the order the
+ * data joins them, the one joined to P on top.
  */
 
 /** Width of one axis's column: the width an axis alone is drawn in. */
 export const COLUMN_W = 760;
 /** Room above the columns for each axis's name. */
 const LABEL_ROW = 34;
-/** Gap from the valve row to a P-line flow control, and from it to the pressure rail. */
+/** Gap from the valve row to the first P-line part, and between two of them. */
 const CONTROL_GAP = 30;
-/** The P-line flow control sits left of its valve's P port, clear of the T line. */
+/** The P-line parts stand left of their valve's P port, clear of the T line. */
 const CONTROL_DX = -56;
-/** Pressure rail below the valve row (or the lowest P-line control); the tank rail below it. */
+/** Pressure rail below the valve row (or the lowest P-line part); the tank rail below it. */
 const RAIL_GAP = 30;
 const RAIL_PITCH = 22;
 /** How far right of an axis's return column the machine's filter and cooler stand. */
@@ -61,19 +63,56 @@ export function axesOf(circuit: MachineCircuit): string[] {
   return [...new Set(circuit.components.flatMap((c) => (c.axis === undefined ? [] : [c.axis])))];
 }
 
-/** A flow control in a valve's P line (port 1 joined to the valve's P): the axis's share of a shared pump. */
-export function pLineControls(circuit: MachineCircuit): Map<string, MachineCircuitComponent> {
+/** The parts that may stand in a valve's P line, with the port the oil enters by and the one it leaves by. */
+const P_LINE_PORTS: Partial<Record<MachineCircuitComponent["kind"], { inlet: string; outlet: string }>> = {
+  "flow-control": { inlet: "2", outlet: "1" },
+  reducing: { inlet: "P", outlet: "A" },
+};
+
+/** Where oil enters (inlet) or leaves (outlet) a P-line part, as "id.port". */
+export const pLinePort = (c: MachineCircuitComponent, end: "inlet" | "outlet"): string => `${c.id}.${P_LINE_PORTS[c.kind]?.[end] ?? ""}`;
+
+/**
+ * Each valve's P-line parts (an axis's share of a shared pump, its reducing valve), by valve id,
+ * nearest the valve first: followed from the valve's P, each part's outlet joined to the port
+ * above it, so the drawing keeps the order the data joins them in.
+ */
+export function pLineParts(circuit: MachineCircuit): Map<string, MachineCircuitComponent[]> {
   const byId = new Map(circuit.components.map((c) => [c.id, c]));
-  const found = new Map<string, MachineCircuitComponent>();
-  for (const c of circuit.connections) {
-    for (const [control, valve] of [
-      [c.from, c.to],
-      [c.to, c.from],
-    ]) {
-      const fc = byId.get(componentOf(control));
-      const dcv = byId.get(componentOf(valve));
-      if (fc?.kind === "flow-control" && control.endsWith(".1") && dcv?.kind === "dcv" && valve.endsWith(".P")) found.set(dcv.id, fc);
+  const found = new Map<string, MachineCircuitComponent[]>();
+  for (const dcv of circuit.components.filter((c) => c.kind === "dcv")) {
+    const chain: MachineCircuitComponent[] = [];
+    let end = `${dcv.id}.P`;
+    for (;;) {
+      const next = circuit.connections
+        .flatMap((c) => (c.to === end ? [c.from] : c.from === end ? [c.to] : []))
+        .map((other) => ({ other, part: byId.get(componentOf(other)) }))
+        .find(({ other, part }) => part !== undefined && P_LINE_PORTS[part.kind] && other === pLinePort(part, "outlet") && !chain.includes(part))?.part;
+      if (!next) break;
+      chain.push(next);
+      end = pLinePort(next, "inlet");
     }
+    if (chain.length > 0) found.set(dcv.id, chain);
+  }
+  return found;
+}
+
+/** A flow control in a valve's P line: the axis's share of a shared pump, by valve id. */
+export function pLineControls(circuit: MachineCircuit): Map<string, MachineCircuitComponent> {
+  const found = new Map<string, MachineCircuitComponent>();
+  for (const [dcv, parts] of pLineParts(circuit)) {
+    const control = parts.find((c) => c.kind === "flow-control");
+    if (control) found.set(dcv, control);
+  }
+  return found;
+}
+
+/** A reducing valve in a valve's P line, by valve id. */
+export function pLineReducers(circuit: MachineCircuit): Map<string, MachineCircuitComponent> {
+  const found = new Map<string, MachineCircuitComponent>();
+  for (const [dcv, parts] of pLineParts(circuit)) {
+    const reducer = parts.find((c) => c.kind === "reducing");
+    if (reducer) found.set(dcv, reducer);
   }
   return found;
 }
@@ -122,11 +161,14 @@ export function shiftLayout(l: Layout, dx: number, dy: number): Layout {
   };
 }
 
+/** Half the height of a P-line part, centre to port. */
+const pLineHalfH = (c: MachineCircuitComponent): number => (c.kind === "reducing" ? REDUCING_HALF_H : FC_HALF_H);
+
 export function layoutMachine(circuit: MachineCircuit): MachineLayout {
-  const controls = pLineControls(circuit);
-  const controlIds = new Set([...controls.values()].map((c) => c.id));
+  const chains = pLineParts(circuit);
+  const chainIds = new Set([...chains.values()].flat().map((c) => c.id));
   const axes = axesOf(circuit).map((axis) => {
-    const own = subCircuit(circuit, axis, controlIds);
+    const own = subCircuit(circuit, axis, chainIds);
     return { axis, circuit: own, layout: layoutCircuit(own) };
   });
   // Valves on one row: each column moves down by what its valve stands above the lowest one.
@@ -143,10 +185,11 @@ export function layoutMachine(circuit: MachineCircuit): MachineLayout {
   });
   const dcvBottom = LABEL_ROW + valveRow;
 
-  // A P-line flow control under its valve's P port, port 1 up to the valve, port 2 down to the rail.
+  // Each valve's P-line parts stacked under its P port, outlet up to the part above, inlet down;
+  // the lowest inlet runs to the pressure rail, below the longest stack (a gap above each part).
   const controlTop = dcvBottom + CONTROL_GAP;
-  const controlCy = controlTop + FC_HALF_H;
-  const pressureY = (controls.size > 0 ? controlCy + FC_HALF_H : dcvBottom) + RAIL_GAP;
+  const stackHeight = (parts: MachineCircuitComponent[]) => parts.reduce((h, c) => h + CONTROL_GAP + 2 * pLineHalfH(c), 0);
+  const pressureY = dcvBottom + Math.max(0, ...[...chains.values()].map(stackHeight)) + RAIL_GAP;
   const tankY = pressureY + RAIL_PITCH;
   const extraPorts: Record<string, Anchor> = {};
   const extraAt: Record<string, Point> = {};
@@ -155,16 +198,28 @@ export function layoutMachine(circuit: MachineCircuit): MachineLayout {
     if (!dcv) continue;
     const p = a.layout.ports[`${dcv.id}.P`];
     const t = a.layout.ports[`${dcv.id}.T`];
-    const control = controls.get(dcv.id);
-    if (p) p.channelY = control ? (dcvBottom + controlTop) / 2 : pressureY;
+    const parts = chains.get(dcv.id) ?? [];
+    if (p) p.channelY = parts.length > 0 ? (dcvBottom + controlTop) / 2 : pressureY;
     if (t) t.channelY = tankY;
-    if (control && p) {
-      const x = p.x + CONTROL_DX;
-      extraAt[control.id] = { x, y: controlCy };
-      extraPorts[`${control.id}.1`] = { x, y: controlCy - FC_HALF_H, dir: "up" };
-      extraPorts[`${control.id}.2`] = { x, y: controlCy + FC_HALF_H, dir: "down", channelY: pressureY };
-      partOf[control.id] = { circuit: a.circuit, layout: { ...a.layout, at: { ...a.layout.at, ...extraAt }, ports: { ...a.layout.ports, ...extraPorts } } };
-    }
+    if (!p) continue;
+    const x = p.x + CONTROL_DX;
+    let top = controlTop;
+    const own: Record<string, Anchor> = {};
+    const ownAt: Record<string, Point> = {};
+    parts.forEach((c, k) => {
+      const half = pLineHalfH(c);
+      const cy = top + half;
+      ownAt[c.id] = { x, y: cy };
+      own[pLinePort(c, "outlet")] = { x, y: cy - half, dir: "up" };
+      own[pLinePort(c, "inlet")] = { x, y: cy + half, dir: "down", ...(k === parts.length - 1 ? { channelY: pressureY } : {}) };
+      // the drain from the end of the reducing valve's spring to a tank of its own beside it
+      if (c.kind === "reducing") own[`${c.id}.Y`] = { x: x + REDUCING_DRAIN_DX, y: cy + REDUCING_DRAIN_DY, dir: "down", tankTop: cy + REDUCING_DRAIN_DY + 4 };
+      top = cy + half + CONTROL_GAP;
+    });
+    Object.assign(extraPorts, own);
+    Object.assign(extraAt, ownAt);
+    for (const c of parts)
+      partOf[c.id] = { circuit: a.circuit, layout: { ...a.layout, at: { ...a.layout.at, ...ownAt }, ports: { ...a.layout.ports, ...own } } };
   }
 
   // The power unit once, under the first column, its return line's run on the tank rail.

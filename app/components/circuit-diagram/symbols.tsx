@@ -15,6 +15,9 @@ import {
   POC_HALF_H,
   POC_HALF_W,
   PUMP_R,
+  REDUCING_DRAIN_DX,
+  REDUCING_DRAIN_DY,
+  REDUCING_HALF_H,
   REGEN_BOX,
   REGEN_PORT3_DX,
   RELIEF_BOX,
@@ -609,6 +612,50 @@ export function FlowControlSymbol({ id, centre, compensated = false }: { id: str
       </PortLabel>
       <PortLabel x={x + 7} y={y + FC_HALF_H + 15} anchor="start" port={`${id}.2`}>
         2
+      </PortLabel>
+    </g>
+  );
+}
+
+/**
+ * Pressure-reducing valve (ISO 1219-1 style) in a vertical P line: normally open (the arrow in
+ * line with its ports, oil from P below up to A), piloted from its outlet A onto the left wall
+ * against the adjustable spring on the right, so it throttles as A reaches the setting; the
+ * spring chamber's external drain Y runs from the spring's end down to tank.
+ */
+export function ReducingValveSymbol({ id, centre }: { id: string; centre: Point }) {
+  const half = RELIEF_BOX / 2;
+  const { x, y } = centre;
+  const tapY = y - half - 8;
+  const drainX = x + REDUCING_DRAIN_DX;
+  return (
+    <g data-component={id} data-kind="reducing" data-normally="open" data-pilot="A" data-drain="external">
+      <line x1={x} y1={y - REDUCING_HALF_H} x2={x} y2={y - half} {...outline} />
+      <line x1={x} y1={y + half} x2={x} y2={y + REDUCING_HALF_H} {...outline} />
+      <rect x={x - half} y={y - half} width={RELIEF_BOX} height={RELIEF_BOX} {...outline} fill="white" />
+      <Arrow from={{ x, y: y + 13 }} to={{ x, y: y - 13 }} />
+      <Spring a={{ x: x + half, y }} b={{ x: drainX, y }} />
+      <Adjustable centre={{ x: x + half + 12, y }} span={10} />
+      <polyline
+        points={pts([
+          { x, y: tapY },
+          { x: x - half - 12, y: tapY },
+          { x: x - half - 12, y },
+          { x: x - half, y },
+        ])}
+        {...pilot}
+      />
+      <circle cx={x} cy={tapY} r={2.4} fill="currentColor" />
+      <line x1={drainX} y1={y} x2={drainX} y2={y + REDUCING_DRAIN_DY} {...pilot} />
+      <PortLabel x={x + 7} y={y - REDUCING_HALF_H - 6} anchor="start" port={`${id}.A`}>
+        A
+      </PortLabel>
+      {/* P on the left, clear of the port label of a part below it */}
+      <PortLabel x={x - 7} y={y + REDUCING_HALF_H + 15} anchor="end" port={`${id}.P`}>
+        P
+      </PortLabel>
+      <PortLabel x={drainX + 6} y={y + REDUCING_DRAIN_DY - 2} anchor="start" port={`${id}.Y`}>
+        Y
       </PortLabel>
     </g>
   );

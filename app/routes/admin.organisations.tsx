@@ -198,6 +198,7 @@ export default function AdminOrganisations({ loaderData, actionData }: Route.Com
       <Card>
         <SearchBar label="Search organisations" placeholder="Organisation name" value={searchParams.get("q") ?? ""}>
           <FilterSelects filters={FILTERS} search={searchParams} />
+          <input type="hidden" name="sort" value={loaderData.sort} />
         </SearchBar>
         <SortChoice options={LIST_SORTS.organisations} current={loaderData.sort} search={searchParams} />
         <ListTable

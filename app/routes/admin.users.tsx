@@ -103,7 +103,10 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
       <ErrorNotice error={actionData?.error} />
       {actionData?.confirm ? <ConfirmRoleChange confirm={actionData.confirm} /> : null}
       <Card>
-        <SearchBar label="Search users" placeholder="Name, e-mail or organisation" value={searchParams.get("q") ?? ""} />
+        <SearchBar label="Search users" placeholder="Name, e-mail or organisation" value={searchParams.get("q") ?? ""}>
+          {/* A new search keeps the order chosen. */}
+          <input type="hidden" name="sort" value={loaderData.sort} />
+        </SearchBar>
         <SortChoice options={LIST_SORTS.users} current={loaderData.sort} search={searchParams} />
         <ListTable
           label="Users"

@@ -115,6 +115,12 @@ describe("each demo role signs in and sees its home", () => {
     const byName = await firstColumn();
     expect(byName).toEqual([...byName].sort((a, b) => a.localeCompare(b, "en", { sensitivity: "base" })));
     await page.screenshot({ path: path.join(SCREENSHOTS, "admin-organisations-by-name.png"), fullPage: true });
+    // A search keeps the order chosen.
+    await page.getByRole("searchbox", { name: "Search organisations" }).fill("hydraulic");
+    await page.getByRole("button", { name: "Search" }).click();
+    await page.waitForURL(/q=hydraulic/);
+    expect(new URL(page.url()).searchParams.get("sort")).toBe("name");
+    expect(await firstColumn()).toEqual(["Northgate Hydraulics", "Saltmarsh Hydraulic Works"]);
 
     await table.getByRole("link", { name: "Northgate Hydraulics" }).click();
     await page.waitForURL("**/accounts/*");

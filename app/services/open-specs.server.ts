@@ -5,6 +5,7 @@ import type { User } from "~/models/index.server";
 import { OPEN_SPECS_PAGE_SIZE, type OpenSpecSort, type OpenSpecsQuery } from "~/schemas/open-specs";
 import { UNITS, fromDisplay, type Quantity, type UnitSystem } from "~/units";
 import { specsWhere, viewerOf } from "~/auth/access-policy.server";
+import { likePattern, pageCountOf } from "./list-query.server";
 
 // The table of specs open for bids that shops browse. Everything is filtered, sorted and paged
 // in PostgreSQL: "open, deadline ahead" is served by the partial indexes of migration 0005, the
@@ -33,9 +34,6 @@ const ORDERS: Record<OpenSpecSort, Order> = {
     ["id", "ASC"],
   ],
 };
-
-// ILIKE wildcards typed by a person are matched literally.
-const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 /**
  * A range typed in the shop's units, in the column's unit. Each bound is widened by half the
@@ -95,7 +93,7 @@ export async function listOpenSpecsForShop(user: User, query: OpenSpecsQuery, no
   // Within what the shop may read (specsWhere: nothing until an admin approves the shop).
   const where = { [Op.and]: [specsWhere(await viewerOf(user)), openSpecsWhere(user, query, now)] };
   const total = await Spec.count({ where });
-  const pageCount = Math.max(1, Math.ceil(total / OPEN_SPECS_PAGE_SIZE));
+  const pageCount = pageCountOf(total, OPEN_SPECS_PAGE_SIZE);
   const page = Math.min(query.page ?? 1, pageCount);
   // One bid per organisation and spec (unique index), read beside each row.
   const ownBid = literal(`(SELECT b.status FROM bids AS b WHERE b.spec_id = "Spec"."id" AND b.organisation_id = ${sequelize.escape(user.organisationId)})`);

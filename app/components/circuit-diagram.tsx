@@ -22,6 +22,7 @@ import {
   MOTOR_R,
   POC_HALF_W,
   PUMP_R,
+  REDUCING_CHECK_DX,
   REGEN_BOX,
   RELIEF_BOX,
   SWITCH_HALF,
@@ -372,16 +373,16 @@ function ComponentSymbol({
         </>
       );
     case "reducing":
-      // the caption on the left, clear of its pilot line; the drain and its tank are on the right
+      // the caption on the left, beyond its return check; the drain and its tank are on the right
       return (
         <>
           <ReducingValveSymbol id={c.id} centre={at} />
           <Caption
-            x={at.x - RELIEF_BOX / 2 - 22}
+            x={at.x - REDUCING_CHECK_DX - 20}
             y={at.y - 8}
             anchor="end"
             name="Pressure-reducing valve"
-            values={[...v("settingBar", (p) => `set ${u.pressure(p)}`), "drained to tank"]}
+            values={[...v("settingBar", (p) => `set ${u.pressure(p)}`), "drained to tank", "free return"]}
           />
         </>
       );

@@ -48,6 +48,7 @@ const MACHINES: Record<string, MachineDesign> = {
     ...DUTY,
   }),
   "clamp on a reducing valve beside a heavy press": sizeMachine({ axes: [CLAMP, HEAVY_PRESS], ...DUTY }),
+  "clamp and feed on reducing valves beside a heavy press": sizeMachine({ axes: [CLAMP, FEED, HEAVY_PRESS], ...DUTY }),
   "feed, ram and clamp together": sizeMachine({
     axes: [FEED, RAM, CLAMP],
     ...DUTY,
@@ -132,7 +133,7 @@ const overlap = (a: Box, b: Box) => a.left < b.right && b.left < a.right && a.to
 describe("the machine's circuit diagram", () => {
   it("the machines under test: two and three axes, a counterbalanced ram, P-line flow controls, a reducing valve and a vented relief among them", () => {
     const all = Object.values(MACHINES).flatMap((m) => m.circuit.components);
-    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 2, 3]);
+    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 2, 3, 3]);
     expect(all.some((c) => c.kind === "reducing")).toBe(true);
     expect(all.some((c) => c.kind === "cbv")).toBe(true);
     expect(all.some((c) => c.id.endsWith(":speed-control"))).toBe(true);
@@ -315,7 +316,9 @@ describe("the machine's circuit diagram", () => {
     const dcv = m.circuit.components.find((c) => c.kind === "dcv" && c.axis === reducer.axis)!;
     expect(reducer.axis).toBe("Clamp");
     const html = render(m);
-    expect(html).toContain(`data-component="${reducer.id}" data-kind="reducing" data-normally="open" data-pilot="A" data-drain="external"`);
+    expect(html).toContain(
+      `data-component="${reducer.id}" data-kind="reducing" data-normally="open" data-pilot="A" data-drain="external" data-free-flow="A-P"`,
+    );
     for (const port of ["P", "A", "Y"]) expect(html).toContain(`data-port="${reducer.id}.${port}"`);
     expect(html).toMatch(/>Pressure-reducing valve<\/tspan><tspan[^>]*>set 150 bar</);
     // in the clamp's column, under its valve and above the pressure rail, nearer the valve than the flow control (as the data joins them)
@@ -346,7 +349,7 @@ describe("the machine's circuit diagram", () => {
       const u = displayUnits(units);
       const bar = (key: string) => u.pressure(Number(reducer.values![key]));
       expect(desc(render(m, units))).toContain(
-        `A pressure-reducing valve in its P line, piloted from its outlet and drained to tank, reduces the pressure to this axis's valve to ${bar("settingBar")}, so its ${bar("cylinderRatedBar")} cylinder never sees the ${bar("reliefBar")} relief.`,
+        `A pressure-reducing valve in its P line, piloted from its outlet, drained to tank and with a check for the free return, reduces the pressure to this axis's valve to ${bar("settingBar")}, so its ${bar("cylinderRatedBar")} cylinder never sees the ${bar("reliefBar")} relief.`,
       );
     }
     expect(desc(html)).toContain("to 150 bar, so its 160 bar cylinder never sees the ");

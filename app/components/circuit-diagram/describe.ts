@@ -331,7 +331,7 @@ function reducingSentence(reducer: CircuitComponent, u: DisplayUnits): string {
   };
   const [setting, rated, relief] = [at("settingBar"), at("cylinderRatedBar"), at("reliefBar")];
   return phrase(
-    "A pressure-reducing valve in its P line, piloted from its outlet and drained to tank,",
+    "A pressure-reducing valve in its P line, piloted from its outlet, drained to tank and with a check for the free return,",
     setting ? `reduces the pressure to this axis's valve to ${setting}` : "reduces the pressure to this axis's valve",
     rated && relief && `, so its ${rated} cylinder never sees the ${relief} relief`,
   ).replace(" ,", ",");

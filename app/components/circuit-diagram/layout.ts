@@ -81,10 +81,14 @@ export const FC_HALF_W = 32;
 export const FC_HALF_H = 34;
 /**
  * Pressure-reducing valve in a machine axis's P line: a RELIEF_BOX square whose ports A (above)
- * and P (below) stand REDUCING_HALF_H from its centre; its drain Y leaves the end of its spring,
- * REDUCING_DRAIN_DX right of and REDUCING_DRAIN_DY below the centre, down to a tank of its own.
+ * and P (below) stand REDUCING_HALF_H from its centre; its return check REDUCING_CHECK_DX to
+ * the left, joined to both lines REDUCING_CHECK_DY above and below the centre; its drain Y leaves
+ * the end of its spring, REDUCING_DRAIN_DX right of and REDUCING_DRAIN_DY below the centre,
+ * down to a tank of its own.
  */
-export const REDUCING_HALF_H = 34;
+export const REDUCING_HALF_H = 44;
+export const REDUCING_CHECK_DX = 48;
+export const REDUCING_CHECK_DY = 36;
 export const REDUCING_DRAIN_DX = RELIEF_BOX / 2 + 24;
 export const REDUCING_DRAIN_DY = 24;
 /** The bypass valve sits this far beside the flow control, its normal box in line with it. */

@@ -15,6 +15,8 @@ import {
   POC_HALF_H,
   POC_HALF_W,
   PUMP_R,
+  REDUCING_CHECK_DX,
+  REDUCING_CHECK_DY,
   REDUCING_DRAIN_DX,
   REDUCING_DRAIN_DY,
   REDUCING_HALF_H,
@@ -621,15 +623,17 @@ export function FlowControlSymbol({ id, centre, compensated = false }: { id: str
  * Pressure-reducing valve (ISO 1219-1 style) in a vertical P line: normally open (the arrow in
  * line with its ports, oil from P below up to A), piloted from its outlet A onto the left wall
  * against the adjustable spring on the right, so it throttles as A reaches the setting; the
- * spring chamber's external drain Y runs from the spring's end down to tank.
+ * spring chamber's external drain Y runs from the spring's end down to tank. The check beside
+ * it (left) lets oil back from A to P freely, as the bill's valve has.
  */
 export function ReducingValveSymbol({ id, centre }: { id: string; centre: Point }) {
   const half = RELIEF_BOX / 2;
   const { x, y } = centre;
   const tapY = y - half - 8;
   const drainX = x + REDUCING_DRAIN_DX;
+  const checkX = x - REDUCING_CHECK_DX;
   return (
-    <g data-component={id} data-kind="reducing" data-normally="open" data-pilot="A" data-drain="external">
+    <g data-component={id} data-kind="reducing" data-normally="open" data-pilot="A" data-drain="external" data-free-flow="A-P">
       <line x1={x} y1={y - REDUCING_HALF_H} x2={x} y2={y - half} {...outline} />
       <line x1={x} y1={y + half} x2={x} y2={y + REDUCING_HALF_H} {...outline} />
       <rect x={x - half} y={y - half} width={RELIEF_BOX} height={RELIEF_BOX} {...outline} fill="white" />
@@ -647,6 +651,34 @@ export function ReducingValveSymbol({ id, centre }: { id: string; centre: Point 
       />
       <circle cx={x} cy={tapY} r={2.4} fill="currentColor" />
       <line x1={drainX} y1={y} x2={drainX} y2={y + REDUCING_DRAIN_DY} {...pilot} />
+      {/* the return check: seat apex up towards A, so oil from A pushes the ball off its seat down to P */}
+      <polyline
+        points={pts([
+          { x, y: y - REDUCING_CHECK_DY },
+          { x: checkX, y: y - REDUCING_CHECK_DY },
+          { x: checkX, y: y - 10 },
+        ])}
+        {...outline}
+      />
+      <polyline
+        points={pts([
+          { x: checkX - 7, y: y + 1 },
+          { x: checkX, y: y - 10 },
+          { x: checkX + 7, y: y + 1 },
+        ])}
+        {...outline}
+      />
+      <circle cx={checkX} cy={y + 4} r={5.5} {...outline} />
+      <polyline
+        points={pts([
+          { x: checkX, y: y + 9.5 },
+          { x: checkX, y: y + REDUCING_CHECK_DY },
+          { x, y: y + REDUCING_CHECK_DY },
+        ])}
+        {...outline}
+      />
+      <circle cx={x} cy={y - REDUCING_CHECK_DY} r={2.2} fill="currentColor" />
+      <circle cx={x} cy={y + REDUCING_CHECK_DY} r={2.2} fill="currentColor" />
       <PortLabel x={x + 7} y={y - REDUCING_HALF_H - 6} anchor="start" port={`${id}.A`}>
         A
       </PortLabel>

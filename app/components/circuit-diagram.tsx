@@ -27,13 +27,17 @@ import {
   RELIEF_BOX,
   SWITCH_HALF,
   TANK_H,
+  UNLOADING_STUB,
   VENT_BOX,
   layoutCircuit,
   type Layout,
 } from "./circuit-diagram/layout";
+import { ACC_W, BLOCK_H, BLOCK_W } from "./circuit-diagram/accumulator-layout";
 import { isMachineCircuit, layoutMachine, pLineControls, type MachineColumn } from "./circuit-diagram/machine-layout";
 import { junctions, meetings, pathData, routeConnections, type Route } from "./circuit-diagram/routes";
 import {
+  AccumulatorBlockSymbol,
+  AccumulatorSymbol,
   COMPENSATOR_W,
   Caption,
   CbvSymbol,
@@ -487,6 +491,19 @@ function ComponentSymbol({
         </>
       );
     case "unloading":
+      // an accumulator's charging valve carries its cut-out and cut-in pressures; its caption goes right, past its tank
+      if (numberValue(c, "cutOutBar") !== undefined)
+        return (
+          <>
+            <UnloadingSymbol id={c.id} centre={at} />
+            <Caption
+              x={at.x + RELIEF_BOX / 2 + UNLOADING_STUB + 30}
+              y={at.y - 4}
+              name="Accumulator charging valve"
+              values={[...v("cutOutBar", (p) => `unloads the pump at ${u.pressure(p)}`), ...v("cutInBar", (p) => `loads it again at ${u.pressure(p)}`)]}
+            />
+          </>
+        );
       return (
         <>
           <UnloadingSymbol id={c.id} centre={at} />
@@ -500,6 +517,33 @@ function ComponentSymbol({
           <Caption x={at.x - 14} y={at.y + 4} anchor="end" name="Check valve" values={[]} />
         </>
       );
+    case "accumulator":
+      return (
+        <>
+          <AccumulatorSymbol id={c.id} centre={at} />
+          <Caption
+            x={at.x + ACC_W / 2 + 14}
+            y={at.y - 10}
+            name="Bladder accumulator"
+            values={[...v("nominalL", (l) => `${u.volume(l)} nominal`), ...v("prechargeBar", (p) => `gas precharge ${u.pressure(p)}`)]}
+          />
+        </>
+      );
+    case "accumulator-block": {
+      const left = at.x - BLOCK_W / 2;
+      const top = at.y - BLOCK_H / 2;
+      return (
+        <>
+          <AccumulatorBlockSymbol id={c.id} left={left} top={top} />
+          <Caption
+            x={left}
+            y={top - 40}
+            name="Accumulator safety and shut-off block"
+            values={[...v("safetyBar", (p) => `safety relief ${u.pressure(p)}`), "discharge valve normally open"]}
+          />
+        </>
+      );
+    }
     case "cooler":
       return (
         <>

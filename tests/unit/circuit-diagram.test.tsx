@@ -271,6 +271,8 @@ const KINDS = {
   check: true,
   "flow-control": true,
   reducing: "machine",
+  accumulator: "machine",
+  "accumulator-block": "machine",
   bypass: true,
   "pressure-switch": true,
   "limit-switch": true,

@@ -1,5 +1,6 @@
-// The diagram of a machine, drawn from real sizeMachine results: the power unit once, each axis's
-// valve and cylinder in its own labelled column, every valve on the common pressure and tank rails.
+// The diagram of a machine, drawn from real sizeMachine results: the power unit once (with the
+// accumulator, its safety block and charging valve where the engine fits one), each axis's valve
+// and cylinder in its own labelled column, every valve on the common pressure and tank rails.
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { CircuitDiagram } from "~/components/circuit-diagram";
@@ -37,6 +38,9 @@ const RAM = {
   retractSpeedMmS: 150,
 };
 const DUTY = { cyclesPerHour: 120, hoursPerDay: 16, supplyHz: 50, maxPressureBar: 160 } as const;
+/** A feed that runs out fast beside a small clamp, 60 cycles an hour: its short peak is carried by an accumulator. */
+const FAST_FEED = { ...H, name: "Fast feed", massKg: 400, processForceN: 0, strokeMm: 800, extendSpeedMmS: 400, retractSpeedMmS: 500 };
+const SMALL_CLAMP = { ...H, name: "Small clamp", massKg: 50, processForceN: 20_000, strokeMm: 50, extendSpeedMmS: 50, retractSpeedMmS: 100 };
 
 const MACHINES: Record<string, MachineDesign> = {
   "clamp and press": sizeMachine({ axes: [CLAMP, PRESS], ...DUTY }),
@@ -54,7 +58,11 @@ const MACHINES: Record<string, MachineDesign> = {
     ...DUTY,
     sequence: [["Feed", "Ram", "Clamp"].map((axis) => ({ axis, motion: "extend" })), ["Feed", "Ram", "Clamp"].map((axis) => ({ axis, motion: "retract" }))],
   }),
+  "a fast feed and a clamp on an accumulator": sizeMachine({ axes: [SMALL_CLAMP, FAST_FEED], cyclesPerHour: 60, hoursPerDay: 16, supplyHz: 50 }),
 };
+const ACCUMULATOR_MACHINES = Object.entries(MACHINES).filter(([, m]) => m.accumulator !== null);
+/** The power unit's line to the valves: past the accumulator's check where there is one. */
+const feedPort = (m: MachineDesign) => (m.accumulator ? "pump-check.outlet" : "pump.outlet");
 
 const render = (m: MachineDesign, units: "metric" | "us" = "metric") => renderToStaticMarkup(<CircuitDiagram circuit={m.circuit} units={units} />);
 const desc = (html: string) => html.match(/<desc[^>]*>(.*?)<\/desc>/)![1].replaceAll("&#x27;", "'");
@@ -133,7 +141,9 @@ const overlap = (a: Box, b: Box) => a.left < b.right && b.left < a.right && a.to
 describe("the machine's circuit diagram", () => {
   it("the machines under test: two and three axes, a counterbalanced ram, P-line flow controls, a reducing valve and a vented relief among them", () => {
     const all = Object.values(MACHINES).flatMap((m) => m.circuit.components);
-    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 2, 3, 3]);
+    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 2, 3, 3, 2]);
+    expect(MACHINES["a fast feed and a clamp on an accumulator"].accumulator).not.toBeNull();
+    expect(Object.values(MACHINES).filter((m) => m.accumulator === null).length).toBeGreaterThan(3);
     expect(all.some((c) => c.kind === "reducing")).toBe(true);
     expect(all.some((c) => c.kind === "cbv")).toBe(true);
     expect(all.some((c) => c.id.endsWith(":speed-control"))).toBe(true);
@@ -219,7 +229,7 @@ describe("the machine's circuit diagram", () => {
     const runsAlong = (points: { x: number; y: number }[], y: number) =>
       points.some((p, i) => i > 0 && p.y === y && points[i - 1].y === y && p.x !== points[i - 1].x);
     const dropsAt = (points: { x: number; y: number }[], y: number) => points.find((p, i) => i > 0 && p.y === y && points[i - 1].y === y)!.x;
-    const pumpOutlet = layout.merged.ports["pump.outlet"];
+    const pumpOutlet = layout.merged.ports[feedPort(m)];
     const pressureDrops: number[] = [];
     const tankDrops: number[] = [];
     for (const dcv of m.circuit.components.filter((c) => c.kind === "dcv")) {
@@ -234,8 +244,8 @@ describe("the machine's circuit diagram", () => {
         });
       };
       const fromUnit = feedOf(`${dcv.id}.P`);
-      expect(fromUnit.map((r) => componentOf(r.connection.from))).toContain("pump");
-      for (const r of fromUnit.filter((x) => x.connection.from === "pump.outlet")) {
+      expect(fromUnit.map((r) => r.connection.from)).toContain(feedPort(m));
+      for (const r of fromUnit.filter((x) => x.connection.from === feedPort(m))) {
         expect(r.points[0]).toMatchObject({ x: pumpOutlet.x, y: pumpOutlet.y });
         expect(runsAlong(r.points, pressureY) || r.points.every((p) => p.x === pumpOutlet.x), `${dcv.id} P`).toBe(true);
         if (runsAlong(r.points, pressureY)) pressureDrops.push(dropsAt(r.points.slice(1), pressureY));
@@ -353,6 +363,114 @@ describe("the machine's circuit diagram", () => {
       );
     }
     expect(desc(html)).toContain("to 150 bar, so its 160 bar cylinder never sees the ");
+  });
+
+  it.each(ACCUMULATOR_MACHINES)(
+    "%s: draws the accumulator, its safety and shut-off block, charging valve and check in the power unit, every line joined",
+    (_name, m) => {
+      const html = render(m);
+      expect(html).toContain('data-component="accumulator" data-kind="accumulator" data-gas-side="top"');
+      expect(html).toContain('data-component="pump-check" data-kind="check" data-free-flow="inlet-outlet"');
+      expect(html).toContain('data-component="charging-valve" data-kind="unloading" data-pilot="external"');
+      // the block: a shut-off valve, a safety relief, a normally open solenoid discharge valve and a gauge port, in one enclosure
+      const block = html.match(/<g data-component="accumulator-block" data-kind="accumulator-block" data-discharge="normally open">(.*?)<\/g><text/)![1];
+      expect(block).toContain('data-part="shut-off" data-operated="manual"');
+      expect(block).toContain('data-kind="safety-relief"');
+      expect(block).toMatch(
+        /data-kind="discharge-valve" data-normally="open"><g data-position="energised" data-paths="" data-blocked="1,2">.*<g data-position="normal" data-paths="1-2"/,
+      );
+      expect(block).toContain('data-part="gauge-port"');
+      for (const port of ["accumulator-block.P", "accumulator-block.A", "accumulator-block.T", "accumulator.P", "charging-valve.X"])
+        expect(html).toContain(`data-port="${port}"`);
+
+      const layout = layoutMachine(m.circuit);
+      const routes = routeConnections(m.circuit, layout.merged);
+      const route = (from: string, to: string) => routes.find((r) => r.connection.from === from && r.connection.to === to)!;
+      const at = (id: string) => layout.merged.at[id];
+      const pump = layout.merged.ports["pump.outlet"];
+      // all of it in the power unit, below the rails; the check on the pump line between the pump and the rails
+      for (const id of ["pump-check", "charging-valve", "accumulator-block", "accumulator"]) expect(at(id).y, id).toBeGreaterThan(layout.rails.tankY);
+      expect(at("pump-check").x).toBe(pump.x);
+      expect(at("pump-check").y).toBeLessThan(pump.y);
+      expect(route("pump.outlet", "pump-check.inlet").points.every((p) => p.x === pump.x)).toBe(true);
+      // the charging valve tees onto the pump line below the check, its pilot X onto the accumulator line past it
+      const onRoute = (p: { x: number; y: number }, r: Route) =>
+        r.points.some(
+          (q, i) =>
+            i > 0 &&
+            Math.min(q.x, r.points[i - 1].x) <= p.x &&
+            p.x <= Math.max(q.x, r.points[i - 1].x) &&
+            Math.min(q.y, r.points[i - 1].y) <= p.y &&
+            p.y <= Math.max(q.y, r.points[i - 1].y),
+        );
+      const inlet = route("pump.outlet", "charging-valve.1").points[0];
+      expect(inlet.x).toBe(pump.x);
+      expect(inlet.y).toBeGreaterThan(layout.merged.ports["pump-check.inlet"].y);
+      expect(inlet.y).toBeLessThan(pump.y);
+      const pilotRoute = route("pump-check.outlet", "charging-valve.X");
+      expect(pilotRoute.points).toHaveLength(2);
+      expect(onRoute(pilotRoute.points[0], route("pump-check.outlet", "accumulator-block.P"))).toBe(true);
+      // the accumulator stands on the block's A; the block and the valve drain to tanks of their own, clear of everything
+      expect(route("accumulator-block.A", "accumulator.P").points.at(-1)).toMatchObject(layout.merged.ports["accumulator.P"]);
+      expect(at("accumulator").x).toBeGreaterThan(at("accumulator-block").x);
+      const drawn = [...symbolBoxes(html), ...captionBoxes(html)].filter((b) => b.name !== "tank");
+      for (const from of ["accumulator-block.T", "charging-valve.2"]) {
+        const drain = route(from, "tank.return");
+        expect(drain.tank, from).toBeDefined();
+        const tank = { name: `${from} tank`, left: drain.tank!.x - 20, right: drain.tank!.x + 20, top: drain.tank!.top, bottom: drain.tank!.top + 16 };
+        // (its own symbol's box holds the stub its drain leaves from)
+        for (const b of drawn.filter((x) => x.name !== componentOf(from))) expect(overlap(tank, b), `${from} tank / ${b.name}`).toBe(false);
+      }
+      // a junction dot where each branch leaves its line
+      const dots = meetings(routes);
+      for (const p of [inlet, pilotRoute.points[0], route("pump-check.outlet", "accumulator-block.P").points[1]])
+        expect(
+          dots.some((d) => d.x === p.x && d.y === p.y),
+          `dot at ${p.x}, ${p.y}`,
+        ).toBe(true);
+    },
+  );
+
+  it.each(ACCUMULATOR_MACHINES)("%s: the description gives the accumulator, its block and charging valve in the viewer's units", (_name, m) => {
+    const acc = m.accumulator!;
+    for (const units of ["metric", "us"] as const) {
+      const u = displayUnits(units);
+      const text = desc(render(m, units));
+      expect(text).toContain(
+        `Accumulator charging valve on the pump line, piloted from the accumulator line: it unloads the pump to tank once the accumulator is charged to ${u.pressure(acc.maxBar)} and loads it again when the pressure falls to ${u.pressure(acc.minBar)}; a check valve after the pump keeps the accumulator's oil from flowing back while the pump is unloaded.`,
+      );
+      expect(text).toContain(
+        `Bladder accumulator of ${u.volume(acc.nominalL)} with a gas precharge of ${u.pressure(acc.prechargeBar)} on the accumulator line`,
+      );
+      expect(text).toContain(
+        `a safety relief valve set to ${u.pressure(m.pressuresBar.reliefSetting)} and a normally open 2/2 solenoid discharge valve that vents the accumulator to tank whenever the power unit is switched off.`,
+      );
+      // in the power unit, before the axes
+      expect(text.indexOf("Bladder accumulator")).toBeLessThan(text.indexOf("Axis "));
+      const caption = render(m, units);
+      expect(caption).toMatch(
+        new RegExp(
+          `>Accumulator charging valve</tspan><tspan[^>]*>unloads the pump at ${u.pressure(acc.maxBar)}</tspan><tspan[^>]*>loads it again at ${u.pressure(acc.minBar)}<`,
+        ),
+      );
+      expect(caption).toMatch(
+        new RegExp(
+          `>Bladder accumulator</tspan><tspan[^>]*>${u.volume(acc.nominalL)} nominal</tspan><tspan[^>]*>gas precharge ${u.pressure(acc.prechargeBar)}<`,
+        ),
+      );
+    }
+  });
+
+  it("a machine without an accumulator keeps its power unit where it was: no accumulator parts, pump and return column as before", () => {
+    for (const m of Object.values(MACHINES).filter((x) => x.accumulator === null)) {
+      const html = render(m);
+      for (const kind of ["accumulator", "accumulator-block"]) expect(html).not.toContain(`data-kind="${kind}"`);
+      const layout = layoutMachine(m.circuit);
+      const double = m.pump.type === "double";
+      // layout.ts's rows: the pump 176 (double 236) below the unit's valve line, its return run on the tank rail 30 below that line
+      expect(layout.merged.at["pump"].y - layout.rails.tankY).toBe((double ? 236 : 176) - 30);
+      expect(layout.merged.ports["filter.inlet"].x).toBe((double ? 700 : 600) + 120);
+    }
   });
 
   it("draws a machine of one axis as one labelled column", () => {

@@ -87,6 +87,7 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
         n(gauge, "rangeBar", (r) => `0 to ${u.pressure(r)}`),
         "on the pump line",
       ),
+    ...accumulatorSentences(circuit, u),
     dcv &&
       phrase(
         `${capitalise(centreName(textValue(dcv, "center")))} 4/3 solenoid directional valve`,
@@ -140,6 +141,42 @@ export function circuitDescription(circuit: Circuit, u: DisplayUnits): string {
     .filter(Boolean)
     .map((s) => `${s}.`)
     .join(" ");
+}
+
+/**
+ * A machine's accumulator charging circuit (kinds only a machine's power unit has): the charging
+ * valve with its check, the accumulator, and the safety block that vents it when the unit stops.
+ */
+function accumulatorSentences(circuit: Circuit, u: DisplayUnits): (string | undefined)[] {
+  const accumulator = find(circuit, "accumulator");
+  if (!accumulator) return [];
+  const charging = circuit.components.find((c) => c.kind === "unloading" && numberValue(c, "cutOutBar") !== undefined);
+  const block = find(circuit, "accumulator-block");
+  const bar = (c: CircuitComponent | undefined, key: string) => {
+    const v = numberValue(c, key);
+    return v === undefined ? undefined : u.pressure(v);
+  };
+  return [
+    charging &&
+      phrase(
+        "Accumulator charging valve on the pump line, piloted from the accumulator line: it unloads the pump to tank",
+        bar(charging, "cutOutBar") ? `once the accumulator is charged to ${bar(charging, "cutOutBar")}` : "once the accumulator is charged",
+        bar(charging, "cutInBar") ? `and loads it again when the pressure falls to ${bar(charging, "cutInBar")}` : "and loads it again as the pressure falls",
+        find(circuit, "check") && "; a check valve after the pump keeps the accumulator's oil from flowing back while the pump is unloaded",
+      ).replace(" ;", ";"),
+    phrase(
+      "Bladder accumulator",
+      numberValue(accumulator, "nominalL") !== undefined && `of ${u.volume(numberValue(accumulator, "nominalL")!)}`,
+      bar(accumulator, "prechargeBar") && `with a gas precharge of ${bar(accumulator, "prechargeBar")}`,
+      "on the accumulator line: it gives the valves oil through the cycle's flow peaks and is charged again between them",
+    ),
+    block &&
+      phrase(
+        "Accumulator safety and shut-off block between the accumulator line and the accumulator: a shut-off valve, a gauge port,",
+        bar(block, "safetyBar") ? `a safety relief valve set to ${bar(block, "safetyBar")}` : "a safety relief valve",
+        "and a normally open 2/2 solenoid discharge valve that vents the accumulator to tank whenever the power unit is switched off",
+      ),
+  ];
 }
 
 const joins = (pairs: PortPair[]) => (pairs.length ? pairs.map(([a, b]) => `${a} to ${b}`).join(" and ") : "no ports");

@@ -1,5 +1,6 @@
 import type { Circuit } from "~/hydraulics/design";
 import type { MachineCircuit, MachineCircuitComponent } from "~/hydraulics/machine-design";
+import { ACCUMULATOR_DROP, ACCUMULATOR_RETURN_DX, chargesAccumulator, placeAccumulator } from "./accumulator-layout";
 import { FC_HALF_H, layoutCircuit, REDUCING_DRAIN_DX, REDUCING_DRAIN_DY, REDUCING_HALF_H, type Anchor, type Layout, type Point } from "./layout";
 
 /**
@@ -225,23 +226,27 @@ export function layoutMachine(circuit: MachineCircuit): MachineLayout {
   // The power unit once, under the first column, its return line's run on the tank rail.
   const unitCircuit = subCircuit(circuit, undefined);
   const alone = layoutCircuit(unitCircuit);
+  // An accumulator's charging circuit stands between the pump and the rails, right of the pump line.
+  const accumulator = chargesAccumulator(unitCircuit);
   // Without a valve, layout.ts puts the unit's "valve bottom" at alone.dcv.bottom; its return run is 30 below.
-  const unit = shiftLayout(alone, 0, tankY - 30 - alone.dcv.bottom);
-  // The return column moves right, where a machine has room, clear of a long pump caption.
+  const unit = shiftLayout(alone, 0, tankY - 30 - alone.dcv.bottom + (accumulator ? ACCUMULATOR_DROP : 0));
+  if (accumulator) placeAccumulator(unit, unitCircuit);
+  // The return column moves right, where a machine has room, clear of a long pump caption (and of an accumulator).
+  const returnDx = accumulator ? ACCUMULATOR_RETURN_DX : RETURN_DX;
   const returnParts = unitCircuit.components.filter((c) => c.kind === "filter" || c.kind === "cooler").map((c) => c.id);
   for (const id of returnParts) {
-    if (unit.at[id]) unit.at[id] = { ...unit.at[id], x: unit.at[id].x + RETURN_DX };
+    if (unit.at[id]) unit.at[id] = { ...unit.at[id], x: unit.at[id].x + returnDx };
     for (const port of Object.keys(unit.ports).filter((k) => componentOf(k) === id))
-      unit.ports[port] = { ...unit.ports[port], x: unit.ports[port].x + RETURN_DX };
+      unit.ports[port] = { ...unit.ports[port], x: unit.ports[port].x + returnDx };
   }
-  unit.returnX += RETURN_DX;
+  unit.returnX += returnDx;
   for (const c of unitCircuit.components) partOf[c.id] = { circuit: unitCircuit, layout: unit };
   const filterInlet = Object.keys(unit.ports).find(
     (k) => k.endsWith(".inlet") && unitCircuit.components.some((c) => c.kind === "filter" && `${c.id}.inlet` === k),
   );
   if (filterInlet) unit.ports[filterInlet] = { ...unit.ports[filterInlet], channelY: tankY };
 
-  const width = Math.max(axes.length * COLUMN_W, alone.width + RETURN_DX);
+  const width = Math.max(axes.length * COLUMN_W, alone.width + returnDx);
   const merged: Layout = {
     ...unit,
     width,

@@ -32,6 +32,7 @@ import {
   type CylinderPlace,
   type Point,
 } from "./layout";
+import { ACC_H, ACC_STEM, ACC_W, BLOCK_H, BLOCK_LINE_DY, BLOCK_T_DX, BLOCK_W } from "./accumulator-layout";
 import { blockedPorts, boxDrawing, pairsLabel } from "./valve-positions";
 
 /**
@@ -216,11 +217,11 @@ export function CbvSymbol({ id, centre, pilotSide }: { id: string; centre: Point
  * Pressure-relief valve: normally closed, spring set, piloted from its inlet (1, top) to tank (2).
  * A vented (pilot-operated) relief also shows its vent port X on the left wall.
  */
-export function ReliefSymbol({ id, centre, vented = false }: { id: string; centre: Point; vented?: boolean }) {
+export function ReliefSymbol({ id, centre, vented = false, kind = "relief" }: { id: string; centre: Point; vented?: boolean; kind?: string }) {
   const half = RELIEF_BOX / 2;
   const { x, y } = centre;
   return (
-    <g data-component={id} data-kind="relief" data-vented={vented ? "" : undefined}>
+    <g data-component={id} data-kind={kind} data-vented={vented ? "" : undefined}>
       <rect x={x - half} y={y - half} width={RELIEF_BOX} height={RELIEF_BOX} {...outline} fill="white" />
       <Arrow from={{ x: x + 8, y: y - 13 }} to={{ x: x + 8, y: y + 13 }} />
       <Spring a={{ x: x + half, y }} b={{ x: x + half + 24, y }} />
@@ -996,6 +997,127 @@ export function LimitSwitchSymbol({ id, at, rodEnd }: { id: string; at: Point; r
       <line x1={x} y1={y - 15.5} x2={x} y2={y - 24} {...thin} />
       <rect x={x - 10} y={y - 38} width={20} height={14} {...outline} fill="white" />
       <line x1={x - 6} y1={y - 28} x2={x + 6} y2={y - 35} {...thin} />
+    </g>
+  );
+}
+
+// ---- Accumulator ------------------------------------------------------------------------------
+
+/**
+ * Gas-loaded (bladder) accumulator, ISO 1219-1 style: an upright capsule, the separating element
+ * drawn across it and the gas side above it marked by an open triangle (an open triangle marks a
+ * gas, a filled one oil); the oil port leaves the bottom.
+ */
+export function AccumulatorSymbol({ id, centre }: { id: string; centre: Point }) {
+  const { x, y } = centre;
+  const top = y - ACC_H / 2;
+  const bottom = y + ACC_H / 2;
+  const divider = top + ACC_H * 0.45;
+  const mark = top + ACC_H * 0.22;
+  return (
+    <g data-component={id} data-kind="accumulator" data-gas-side="top">
+      <rect x={x - ACC_W / 2} y={top} width={ACC_W} height={ACC_H} rx={ACC_W / 2} ry={ACC_W / 2} {...outline} fill="white" />
+      <line x1={x - ACC_W / 2} y1={divider} x2={x + ACC_W / 2} y2={divider} {...outline} />
+      <polygon
+        data-gas-mark=""
+        points={pts([
+          { x, y: mark - 6 },
+          { x: x - 6, y: mark + 5 },
+          { x: x + 6, y: mark + 5 },
+        ])}
+        {...thin}
+      />
+      <line x1={x} y1={bottom} x2={x} y2={bottom + ACC_STEM} {...outline} />
+      <PortLabel x={x + 6} y={bottom + ACC_STEM - 1} anchor="start" port={`${id}.P`}>
+        P
+      </PortLabel>
+    </g>
+  );
+}
+
+/** Shut-off valve (a manual stop valve): two triangles tip to tip across the line, its handle above. */
+function ShutOff({ centre }: { centre: Point }) {
+  const { x, y } = centre;
+  return (
+    <g data-part="shut-off" data-operated="manual">
+      <polygon
+        points={pts([
+          { x: x - 12, y: y - 8 },
+          { x: x - 12, y: y + 8 },
+          { x, y },
+          { x: x + 12, y: y - 8 },
+          { x: x + 12, y: y + 8 },
+          { x, y },
+        ])}
+        {...outline}
+        fill="white"
+      />
+      <line x1={x} y1={y} x2={x} y2={y - 14} {...thin} />
+      <line x1={x - 7} y1={y - 14} x2={x + 7} y2={y - 14} {...outline} />
+    </g>
+  );
+}
+
+/**
+ * Accumulator safety and shut-off block in a dashed enclosure, frame `left`/`top`: from P (left)
+ * through the manual shut-off valve to A (right, the accumulator); on the accumulator side a
+ * plugged gauge port, the safety relief valve and a normally open 2/2 solenoid discharge valve,
+ * both to the block's T. Held energised while the power unit runs, the discharge valve opens
+ * when it stops and vents the accumulator to tank (ISO 4413 asks for that automatic venting).
+ */
+export function AccumulatorBlockSymbol({ id, left, top }: { id: string; left: number; top: number }) {
+  const y = top + BLOCK_LINE_DY;
+  const right = left + BLOCK_W;
+  const bottom = top + BLOCK_H;
+  const shutX = left + 36;
+  const gaugeX = left + 76;
+  const reliefX = left + 130;
+  const dischargeX = left + 236;
+  const valveY = y + 46;
+  const tankLineY = y + 92;
+  const tX = left + BLOCK_T_DX;
+  const half = RELIEF_BOX / 2;
+  return (
+    <g data-component={id} data-kind="accumulator-block" data-discharge="normally open">
+      <rect x={left} y={top} width={BLOCK_W} height={BLOCK_H} {...thin} strokeDasharray={DASH.enclosure} />
+      <line x1={left} y1={y} x2={right} y2={y} {...outline} />
+      <ShutOff centre={{ x: shutX, y }} />
+      <g data-part="gauge-port">
+        <line x1={gaugeX} y1={y} x2={gaugeX} y2={y - 14} {...outline} />
+        <line x1={gaugeX - 5} y1={y - 14} x2={gaugeX + 5} y2={y - 14} {...outline} />
+        <text x={gaugeX + 8} y={y - 10} fontSize={9} fill="currentColor" stroke="none" className="fill-ink-600">
+          gauge
+        </text>
+      </g>
+      <line x1={reliefX} y1={y} x2={reliefX} y2={valveY - half} {...outline} />
+      <line x1={reliefX} y1={valveY + half} x2={reliefX} y2={tankLineY} {...outline} />
+      <ReliefSymbol id={`${id}-relief`} kind="safety-relief" centre={{ x: reliefX, y: valveY }} />
+      <line x1={dischargeX} y1={y} x2={dischargeX} y2={valveY - VENT_BOX / 2} {...outline} />
+      <line x1={dischargeX} y1={valveY + VENT_BOX / 2} x2={dischargeX} y2={tankLineY} {...outline} />
+      <SolenoidValve22
+        id={`${id}-discharge`}
+        kind="discharge-valve"
+        centre={{ x: dischargeX, y: valveY }}
+        ports="vertical"
+        normally="open"
+        portNames={["1", "2"]}
+        flowFrom="1"
+      />
+      <line x1={reliefX} y1={tankLineY} x2={dischargeX} y2={tankLineY} {...thin} />
+      <line x1={tX} y1={tankLineY} x2={tX} y2={bottom} {...thin} />
+      {[gaugeX, reliefX, dischargeX].map((jx) => (
+        <circle key={jx} cx={jx} cy={y} r={2.6} fill="currentColor" />
+      ))}
+      <circle cx={tX} cy={tankLineY} r={2.6} fill="currentColor" />
+      <PortLabel x={left + 6} y={y - 6} anchor="start" port={`${id}.P`}>
+        P
+      </PortLabel>
+      <PortLabel x={right - 6} y={y - 6} anchor="end" port={`${id}.A`}>
+        A
+      </PortLabel>
+      <PortLabel x={tX + 6} y={bottom - 5} anchor="start" port={`${id}.T`}>
+        T
+      </PortLabel>
     </g>
   );
 }

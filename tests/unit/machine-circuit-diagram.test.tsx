@@ -39,8 +39,28 @@ const RAM = {
 };
 const DUTY = { cyclesPerHour: 120, hoursPerDay: 16, supplyHz: 50, maxPressureBar: 160 } as const;
 /** A feed that runs out fast beside a small clamp, 60 cycles an hour: its short peak is carried by an accumulator. */
-const FAST_FEED = { ...H, name: "Fast feed", massKg: 400, processForceN: 0, strokeMm: 800, extendSpeedMmS: 400, retractSpeedMmS: 500 };
-const SMALL_CLAMP = { ...H, name: "Small clamp", massKg: 50, processForceN: 20_000, strokeMm: 50, extendSpeedMmS: 50, retractSpeedMmS: 100 };
+const FAST_FEED = {
+  name: "Fast feed",
+  orientation: "horizontal",
+  mounting: "fixed-pinned",
+  massKg: 400,
+  processForceN: 0,
+  strokeMm: 800,
+  extendSpeedMmS: 400,
+  retractSpeedMmS: 500,
+} as const;
+const SMALL_CLAMP = {
+  name: "Small clamp",
+  orientation: "horizontal",
+  mounting: "fixed-pinned",
+  massKg: 50,
+  processForceN: 20_000,
+  strokeMm: 50,
+  extendSpeedMmS: 50,
+  retractSpeedMmS: 100,
+} as const;
+
+const componentOf = (end: string) => end.slice(0, end.lastIndexOf("."));
 
 const MACHINES: Record<string, MachineDesign> = {
   "clamp and press": sizeMachine({ axes: [CLAMP, PRESS], ...DUTY }),
@@ -60,13 +80,54 @@ const MACHINES: Record<string, MachineDesign> = {
   }),
   "a fast feed and a clamp on an accumulator": sizeMachine({ axes: [SMALL_CLAMP, FAST_FEED], cyclesPerHour: 60, hoursPerDay: 16, supplyHz: 50 }),
 };
-const ACCUMULATOR_MACHINES = Object.entries(MACHINES).filter(([, m]) => m.accumulator !== null);
+
+/**
+ * Until the engine's accumulator lands in every tree: a real fixed-pump machine given the
+ * accumulator parts and lines exactly as the engine lists them (machine-circuit.ts), its valves
+ * fed from past the check. Invented figures, for the drawing only.
+ */
+function withAccumulator(m: MachineDesign): MachineDesign {
+  const accumulator = { nominalL: 10, prechargeBar: 108, minBar: 120, maxBar: 145 };
+  const axisParts = new Set(m.circuit.components.filter((c) => c.axis !== undefined).map((c) => c.id));
+  const feeds = m.circuit.connections.map((c) => (c.from === "pump.outlet" && axisParts.has(componentOf(c.to)) ? { ...c, from: "pump-check.outlet" } : c));
+  return {
+    ...m,
+    circuit: {
+      components: [
+        ...m.circuit.components,
+        { id: "charging-valve", kind: "unloading", ports: ["1", "2", "X"], values: { cutOutBar: accumulator.maxBar, cutInBar: accumulator.minBar } },
+        { id: "pump-check", kind: "check", ports: ["inlet", "outlet"] },
+        {
+          id: "accumulator-block",
+          kind: "accumulator-block",
+          ports: ["P", "A", "T"],
+          values: { safetyBar: m.pressuresBar.reliefSetting, discharge: "normally open solenoid" },
+        },
+        { id: "accumulator", kind: "accumulator", ports: ["P"], values: { nominalL: accumulator.nominalL, prechargeBar: accumulator.prechargeBar } },
+      ],
+      connections: [
+        ...feeds,
+        { from: "pump.outlet", to: "pump-check.inlet", line: "pressure" },
+        { from: "pump.outlet", to: "charging-valve.1", line: "pressure" },
+        { from: "charging-valve.2", to: "tank.return", line: "return" },
+        { from: "pump-check.outlet", to: "charging-valve.X", line: "pilot" },
+        { from: "pump-check.outlet", to: "accumulator-block.P", line: "pressure" },
+        { from: "accumulator-block.A", to: "accumulator.P", line: "pressure" },
+        { from: "accumulator-block.T", to: "tank.return", line: "return" },
+      ],
+    },
+  };
+}
+MACHINES["clamp and press charging an accumulator (parts as the engine lists them)"] = withAccumulator(
+  sizeMachine({ axes: [CLAMP, PRESS], ...DUTY, pumpType: "fixed" }),
+);
+const hasAccumulator = (m: MachineDesign) => m.circuit.components.some((c) => c.kind === "accumulator");
+const ACCUMULATOR_MACHINES = Object.entries(MACHINES).filter(([, m]) => hasAccumulator(m));
 /** The power unit's line to the valves: past the accumulator's check where there is one. */
-const feedPort = (m: MachineDesign) => (m.accumulator ? "pump-check.outlet" : "pump.outlet");
+const feedPort = (m: MachineDesign) => (hasAccumulator(m) ? "pump-check.outlet" : "pump.outlet");
 
 const render = (m: MachineDesign, units: "metric" | "us" = "metric") => renderToStaticMarkup(<CircuitDiagram circuit={m.circuit} units={units} />);
 const desc = (html: string) => html.match(/<desc[^>]*>(.*?)<\/desc>/)![1].replaceAll("&#x27;", "'");
-const componentOf = (end: string) => end.slice(0, end.lastIndexOf("."));
 
 interface Box {
   name: string;
@@ -141,9 +202,9 @@ const overlap = (a: Box, b: Box) => a.left < b.right && b.left < a.right && a.to
 describe("the machine's circuit diagram", () => {
   it("the machines under test: two and three axes, a counterbalanced ram, P-line flow controls, a reducing valve and a vented relief among them", () => {
     const all = Object.values(MACHINES).flatMap((m) => m.circuit.components);
-    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 2, 3, 3, 2]);
-    expect(MACHINES["a fast feed and a clamp on an accumulator"].accumulator).not.toBeNull();
-    expect(Object.values(MACHINES).filter((m) => m.accumulator === null).length).toBeGreaterThan(3);
+    expect(Object.values(MACHINES).map((m) => m.axes.length)).toEqual([2, 3, 2, 2, 8, 2, 3, 3, 2, 2]);
+    expect(ACCUMULATOR_MACHINES.length).toBeGreaterThan(0);
+    expect(Object.values(MACHINES).filter((m) => !hasAccumulator(m)).length).toBeGreaterThan(3);
     expect(all.some((c) => c.kind === "reducing")).toBe(true);
     expect(all.some((c) => c.kind === "cbv")).toBe(true);
     expect(all.some((c) => c.id.endsWith(":speed-control"))).toBe(true);
@@ -432,7 +493,14 @@ describe("the machine's circuit diagram", () => {
   );
 
   it.each(ACCUMULATOR_MACHINES)("%s: the description gives the accumulator, its block and charging valve in the viewer's units", (_name, m) => {
-    const acc = m.accumulator!;
+    const value = (id: string, key: string) => Number(m.circuit.components.find((c) => c.id === id)!.values![key]);
+    const acc = {
+      maxBar: value("charging-valve", "cutOutBar"),
+      minBar: value("charging-valve", "cutInBar"),
+      nominalL: value("accumulator", "nominalL"),
+      prechargeBar: value("accumulator", "prechargeBar"),
+      safetyBar: value("accumulator-block", "safetyBar"),
+    };
     for (const units of ["metric", "us"] as const) {
       const u = displayUnits(units);
       const text = desc(render(m, units));
@@ -443,7 +511,7 @@ describe("the machine's circuit diagram", () => {
         `Bladder accumulator of ${u.volume(acc.nominalL)} with a gas precharge of ${u.pressure(acc.prechargeBar)} on the accumulator line`,
       );
       expect(text).toContain(
-        `a safety relief valve set to ${u.pressure(m.pressuresBar.reliefSetting)} and a normally open 2/2 solenoid discharge valve that vents the accumulator to tank whenever the power unit is switched off.`,
+        `a safety relief valve set to ${u.pressure(acc.safetyBar)} and a normally open 2/2 solenoid discharge valve that vents the accumulator to tank whenever the power unit is switched off.`,
       );
       // in the power unit, before the axes
       expect(text.indexOf("Bladder accumulator")).toBeLessThan(text.indexOf("Axis "));
@@ -462,7 +530,7 @@ describe("the machine's circuit diagram", () => {
   });
 
   it("a machine without an accumulator keeps its power unit where it was: no accumulator parts, pump and return column as before", () => {
-    for (const m of Object.values(MACHINES).filter((x) => x.accumulator === null)) {
+    for (const m of Object.values(MACHINES).filter((x) => !hasAccumulator(x))) {
       const html = render(m);
       for (const kind of ["accumulator", "accumulator-block"]) expect(html).not.toContain(`data-kind="${kind}"`);
       const layout = layoutMachine(m.circuit);

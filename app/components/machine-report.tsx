@@ -83,6 +83,7 @@ const VERBS: Record<string, string> = {
 
 /** "Clamp extends", "Feed extends, Clamp extends", "Idle, every valve in neutral": who does what in a phase. */
 export function machinePhaseName(phase: Pick<MachineCyclePhase, "phase" | "motions">): string {
+  if (phase.phase === "recharge") return "Pump refills the accumulator, every valve in neutral";
   if (phase.phase === "neutral" || !phase.motions.length) return "Idle, every valve in neutral";
   return phase.motions.map((m) => `${m.axis} ${VERBS[m.phase] ?? m.phase}`).join(", ");
 }
@@ -183,6 +184,18 @@ function PowerUnit({ design: m, u }: { design: MachineDesign; u: DisplayUnits })
   ];
   if (pump.compensatorBar !== undefined) items.push({ label: "Compensator", value: u.pressure(pump.compensatorBar) });
   if (pump.unloadingBar !== undefined) items.push({ label: "Unloads above", value: u.pressure(pump.unloadingBar) });
+  // Older stored designs have no accumulator field at all.
+  if (m.accumulator) {
+    const acc = m.accumulator;
+    items.push(
+      {
+        label: "Accumulator",
+        value: u.volume(acc.nominalL),
+        detail: `gas precharged to ${u.pressure(acc.prechargeBar)}; gives ${u.volume(acc.usableL)} between ${u.pressure(acc.minBar)} and ${u.pressure(acc.maxBar)}`,
+      },
+      { label: "Charging valve", value: `${u.pressure(acc.minBar)} to ${u.pressure(acc.maxBar)}`, detail: "loads and unloads the pump" },
+    );
+  }
   items.push(
     { label: "Reservoir", value: u.volume(m.reservoir.volumeL), detail: `sheds about ${u.power(m.reservoir.dissipationKw)}` },
     {

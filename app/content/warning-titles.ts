@@ -30,6 +30,7 @@ const TITLES: Partial<Record<WarningCode, string>> = {
   PRESS_CONTROL_DROP_LOW: "Pressing-speed control has little pressure to work with",
   MACHINE_FLOW_SHORT: "The pump cannot feed every axis moving together",
   AXIS_PRESSURE_REDUCED: "An axis gets a pressure-reducing valve",
+  ACCUMULATOR_STORED_ENERGY: "An accumulator stores pressure: vent it before any work",
 };
 
 /** The title of a warning; a code without one yet still reads as a sentence, never as a code. */

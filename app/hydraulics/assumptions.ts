@@ -120,6 +120,25 @@ export const ASSUMPTIONS = {
     "unloading valve of a high-low pump set 10–20 % above the highest pressure both sections must deliver at; common practice [CP]",
   ),
   unloadingMarginMinBar: a(10, "bar", "and at least 10 bar above it; common practice [CP]"),
+  accumulatorMeanMargin: a(
+    1.25,
+    "-",
+    "a pump beside an accumulator delivers 1.25 × the cycle's mean flow, so it recharges within the cycle with room for leakage; our convention [CP]",
+  ),
+  accumulatorMinSavingKw: a(
+    3,
+    "kW",
+    "an accumulator is proposed only where it takes at least 3 kW off the motor's peak: it and its safety block cost about what a few kW of pump and motor do; our convention [CP]",
+  ),
+  accumulatorMinSteps: a(2, "-", "an accumulator is proposed only where it makes the pump at least two ISO 3662 sizes smaller; our convention [CP]"),
+  accumulatorControlDropBar: a(
+    10,
+    "bar",
+    "the lowest accumulator pressure stands this far above the highest pressure an axis needs, for its meter-in flow control to regulate; common practice [CP]",
+  ),
+  accumulatorBand: a(0.2, "-", "the charging valve loads the pump at p1 and unloads it at p2 = 1.2 × p1; a 10–40 % band is usual, common practice [CP]"),
+  accumulatorPrechargeRatio: a(0.9, "-", "precharge p0 = 0.9 × p1 for energy storage (accumulator makers' pages) [CP]"),
+  accumulatorExponent: a(1.4, "-", "n = 1.4 (nitrogen, adiabatic) for a discharge within seconds (accumulator makers' pages) [CP]"),
   doubleSmallSectionSteps: a(
     2,
     "-",

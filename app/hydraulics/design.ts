@@ -139,6 +139,9 @@ export interface CircuitComponent {
     | "flow-control"
     /** a machine axis's pressure-reducing valve in its P line (machine-circuit.ts) */
     | "reducing"
+    /** a machine's accumulator and its safety and shut-off block (machine-circuit.ts) */
+    | "accumulator"
+    | "accumulator-block"
     | "bypass"
     | "pressure-switch"
     | "limit-switch";

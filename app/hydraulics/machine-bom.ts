@@ -4,6 +4,7 @@
  */
 import { buildBom } from "./bom";
 import type { BomLine, Design } from "./design";
+import { A } from "./assumptions";
 import { num } from "./format";
 import type { MachineDesign } from "./machine-design";
 import { gaugeRangeBar, POWER_UNIT_KEYS, powerUnitDesign } from "./machine-unit";
@@ -26,6 +27,7 @@ export function machineBom(m: MachineDesign, designs: Design[]): BomLine[] {
   const lines = unit.map((l) =>
     l.key === "fluid-fill" ? { ...l, specification: `about ${fillL} L: reservoir, every cylinder and hose`, rating: { ...l.rating, value: fillL } } : l,
   );
+  if (m.accumulator) lines.push(...accumulatorLines(m));
   m.axes.forEach((axis, i) => {
     const own = { ...designs[i], directionalValve: axis.directionalValve, pressuresBar: { ...designs[i].pressuresBar, reliefSetting: relief } };
     const tag = (l: BomLine): BomLine => ({ ...l, key: `${l.key}:${axis.name}`, item: `${l.item}, ${axis.name}` });
@@ -68,4 +70,40 @@ export function machineBom(m: MachineDesign, designs: Design[]): BomLine[] {
  */
 export function reducingSettingBar(ratedBar: number, machineReliefBar: number, ownReliefBar: number): number | null {
   return machineReliefBar > ratedBar + 1e-9 ? Math.min(ownReliefBar, ratedBar) : null;
+}
+
+/** The accumulator and what charges, protects and vents it (sources §11.6; ISO 4413 venting). */
+function accumulatorLines(m: MachineDesign): BomLine[] {
+  const acc = m.accumulator!;
+  const relief = m.pressuresBar.reliefSetting;
+  return [
+    {
+      key: "accumulator",
+      item: "Bladder accumulator",
+      quantity: 1,
+      specification: `${num(acc.nominalL)} L nominal gas volume (${num(acc.gasVolumeL, 2)} L needed to give ${num(acc.usableL, 2)} L of oil between ${num(acc.minBar)} and ${num(acc.maxBar)} bar), nitrogen precharge ${num(acc.prechargeBar)} bar at working temperature, rated for at least ${num(relief)} bar`,
+      rating: { value: acc.nominalL, unit: "L", label: "gas volume" },
+    },
+    {
+      key: "accumulator-safety-block",
+      item: "Accumulator safety and shut-off block",
+      quantity: 1,
+      specification: `shut-off valve, type-tested safety relief valve set at ${num(relief)} bar, 2/2 solenoid discharge valve normally open to tank (${A.coilVoltage.value} V DC; open whenever the power unit is switched off, so the accumulator is vented automatically, ISO 4413), gauge port`,
+      rating: { value: relief, unit: "bar", label: "safety valve setting" },
+    },
+    {
+      key: "accumulator-charging-valve",
+      item: "Accumulator charging valve (pump unloading valve)",
+      quantity: 1,
+      specification: `unloads the pump to tank when the accumulator reaches ${num(acc.maxBar)} bar and loads it again at ${num(acc.minBar)} bar, piloted from the accumulator line; for ${num(m.flowsLpm.pump)} L/min`,
+      rating: { value: acc.maxBar, unit: "bar", label: "cut-out" },
+    },
+    {
+      key: "accumulator-check-valve",
+      item: "Check valve, pump to accumulator and valves",
+      quantity: 1,
+      specification: `for ${num(m.flowsLpm.pump)} L/min, rated for at least ${num(relief)} bar; keeps the accumulator from discharging through the unloaded pump`,
+      rating: { value: m.flowsLpm.pump, unit: "L/min", label: "flow" },
+    },
+  ];
 }

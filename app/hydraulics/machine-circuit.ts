@@ -27,7 +27,14 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
   const connections: CircuitConnection[] = unit.connections.filter((c) => POWER_UNIT_IDS.has(componentOf(c.from)) && POWER_UNIT_IDS.has(componentOf(c.to)));
   const present = new Set(components.map((c) => c.id));
   // How the machine's pump joins a valve's P (a double pump's large section through its check as well).
-  const feeds = unit.connections.filter((c) => c.to === "dcv.P" && POWER_UNIT_IDS.has(componentOf(c.from)));
+  let feeds = unit.connections.filter((c) => c.to === "dcv.P" && POWER_UNIT_IDS.has(componentOf(c.from)));
+  if (m.accumulator) {
+    const acc = accumulatorParts(m);
+    components.push(...acc.components);
+    connections.push(...acc.connections);
+    // The valves take P past the check, where the accumulator stands.
+    feeds = [{ from: "pump-check.outlet", to: "dcv.P", line: "pressure" }];
+  }
   m.axes.forEach((axis, i) => {
     const center = axis.directionalValve.center;
     const own = buildCircuit(
@@ -103,4 +110,49 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
     }
   });
   return { components, connections };
+}
+
+/**
+ * The accumulator on the pressure line: the pump charges it through a check valve; the charging
+ * valve, piloted from past the check, dumps the pump to tank at p2 and loads it at p1; the safety
+ * and shut-off block stands between the line and the accumulator and vents it to tank (sources
+ * §11.6; ISO 4413 automatic venting).
+ */
+function accumulatorParts(m: MachineDesign): { components: MachineCircuitComponent[]; connections: CircuitConnection[] } {
+  const acc = m.accumulator!;
+  return {
+    components: [
+      {
+        id: "charging-valve",
+        kind: "unloading",
+        ports: ["1", "2", "X"],
+        label: "Accumulator charging valve, unloads the pump at p2 and loads it again at p1",
+        values: { cutOutBar: acc.maxBar, cutInBar: acc.minBar },
+      },
+      { id: "pump-check", kind: "check", ports: ["inlet", "outlet"], label: "Check valve, pump to accumulator and valves" },
+      {
+        id: "accumulator-block",
+        kind: "accumulator-block",
+        ports: ["P", "A", "T"],
+        label: "Accumulator safety and shut-off block",
+        values: { safetyBar: m.pressuresBar.reliefSetting, discharge: "normally open solenoid" },
+      },
+      {
+        id: "accumulator",
+        kind: "accumulator",
+        ports: ["P"],
+        label: "Bladder accumulator",
+        values: { nominalL: acc.nominalL, prechargeBar: acc.prechargeBar },
+      },
+    ],
+    connections: [
+      { from: "pump.outlet", to: "pump-check.inlet", line: "pressure" },
+      { from: "pump.outlet", to: "charging-valve.1", line: "pressure" },
+      { from: "charging-valve.2", to: "tank.return", line: "return" },
+      { from: "pump-check.outlet", to: "charging-valve.X", line: "pilot" },
+      { from: "pump-check.outlet", to: "accumulator-block.P", line: "pressure" },
+      { from: "accumulator-block.A", to: "accumulator.P", line: "pressure" },
+      { from: "accumulator-block.T", to: "tank.return", line: "return" },
+    ],
+  };
 }

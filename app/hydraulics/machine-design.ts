@@ -37,7 +37,8 @@ export interface MachineAxis {
 export interface MachineCyclePhase {
   /** index into the sequence; null in neutral */
   step: number | null;
-  phase: MachinePhaseName | "neutral";
+  /** "recharge": every valve in neutral while the pump refills the accumulator */
+  phase: MachinePhaseName | "recharge" | "neutral";
   kind: PhaseKind | "neutral";
   /** names of the axes moving (none in a dwell or in neutral) */
   axes: string[];
@@ -66,6 +67,34 @@ export interface MachineCircuit {
   connections: Circuit["connections"];
 }
 
+/**
+ * A bladder accumulator on the pressure line (sources §11.6): charged by a fixed pump through a
+ * check valve, the charging (unloading) valve dumping the pump to tank at `maxBar` and loading it
+ * again at `minBar`; a safety block with a shut-off valve, a safety relief and a normally open
+ * solenoid discharge valve vents it to tank whenever the power unit is switched off (ISO 4413).
+ */
+export interface MachineAccumulator {
+  /** why it pays, in words */
+  reason: string;
+  /** gas volume at precharge the formula asks for, and the catalogue size chosen, L */
+  gasVolumeL: number;
+  nominalL: number;
+  /** the highest pump pressure any axis needs in the cycle, which p1 stands above, bar */
+  highestNeedBar: number;
+  /** precharge p0, lowest working p1 and highest working p2 pressures, bar gauge */
+  prechargeBar: number;
+  minBar: number;
+  maxBar: number;
+  /** oil it gives between p2 and p1 over the worst stretch of the cycle, L */
+  usableL: number;
+  /** oil it holds at p2 (isothermal, at rest), which the discharge valve returns to the tank, L */
+  oilAtMaxL: number;
+  /** polytropic exponent the volume was sized with (1.4: discharge within a cycle) */
+  exponent: number;
+  /** the pump it lets the machine have instead of the one the peaks would need, cm³/rev */
+  withoutDisplacementCcRev: number;
+}
+
 export interface MachineDesign {
   engineVersion: string;
   requirements: MachineRequirements;
@@ -81,6 +110,8 @@ export interface MachineDesign {
   returnFilter: Design["returnFilter"];
   lines: { pressure: Design["lines"]["pressure"]; return: Design["lines"]["return"]; suction: Design["lines"]["suction"] };
   reliefVent: Design["reliefVent"];
+  /** a gas-loaded accumulator that carries the cycle's flow peaks, so the pump is sized nearer the mean flow; null without one */
+  accumulator: MachineAccumulator | null;
   heat: {
     averageLossKw: number;
     neutralLossKw: number;

@@ -54,11 +54,14 @@ export function machineMotor(
   designs: Design[],
   neutral: PumpPhase,
   cyclesPerHour: number,
+  /** charging an accumulator the pump unloads at p2 and never stalls against the relief */
+  charging = false,
 ): MotorChoice {
   const etaO = A.overallEfficiency.value;
   const ph = mp.choice.phases;
-  const atForce = designs.some((d) => d.requirements.processForceN > 0 || d.requirements.dwellS > 0);
-  const endForceBar = mp.choice.type === "fixed" ? (atForce ? mp.choice.reliefBar : Math.max(...designs.map((d) => d.pressuresBar.extendPress))) : 0;
+  const atForce = !charging && designs.some((d) => d.requirements.processForceN > 0 || d.requirements.dwellS > 0);
+  const endForceBar =
+    mp.choice.type === "fixed" && !charging ? (atForce ? mp.choice.reliefBar : Math.max(...designs.map((d) => d.pressuresBar.extendPress))) : 0;
   const candidates = [
     ...cycle.filter((p) => p.kind !== "neutral").map((p, i) => ({ kw: pumpKw[i], bar: p.pressureBar })),
     { kw: ph.unloadingPeak?.kw ?? 0, bar: ph.unloadingPeak?.bar ?? 0 },
@@ -88,9 +91,9 @@ export function machineMotor(
 }
 
 /** Usable volume: the pump rule plus the oil every cylinder keeps out of the tank when all are extended at once. */
-export function machineReservoir(designs: Design[], qp: number, ambientC: number): Design["reservoir"] {
+export function machineReservoir(designs: Design[], qp: number, ambientC: number, accumulatorOilL = 0): Design["reservoir"] {
   const drawL = designs.reduce((s, d) => s + cylinderDrawL(d.cylinder.capAreaMm2, d.cylinder.annulusAreaMm2, d.cylinder.strokeMm), 0);
-  const volumeL = reservoirVolumeL(qp, drawL);
+  const volumeL = reservoirVolumeL(qp, drawL + accumulatorOilL);
   const surfaceM2 = tankSurfaceM2(volumeL);
   return { volumeL, surfaceM2, dissipationKw: tankDissipationKw(surfaceM2, ambientC), cylinderDrawL: drawL };
 }
@@ -100,13 +103,18 @@ export function machineReservoir(designs: Design[], qp: number, ambientC: number
  * valves send back together. An axis that has the machine's own pump flow already chose its
  * hoses with its losses in mind (size.ts); the machine keeps the larger of that and the plain size.
  */
-export function machineLines(designs: Design[], qp: number, returnMaxLpm: number): { pressure: LineSizing; return: LineSizing; suction: LineSizing } {
+export function machineLines(
+  designs: Design[],
+  qp: number,
+  returnMaxLpm: number,
+  pressureLpm = qp,
+): { pressure: LineSizing; return: LineSizing; suction: LineSizing } {
   const near = (a: number, b: number) => Math.abs(a - b) < 1e-9;
   const widest = (own: LineSizing[], plain: LineSizing) => own.reduce((a, b) => (b.innerDiameterMm > a.innerDiameterMm ? b : a), plain);
   return {
     pressure: widest(
-      designs.filter((d) => near(d.flowsLpm.pump, qp)).map((d) => d.lines.pressure),
-      sizeLine(qp, A.pressureVelocityLimit.value, A.pressureLineLengthM.value, DEFAULT_FLUID),
+      designs.filter((d) => near(d.flowsLpm.pump, pressureLpm)).map((d) => d.lines.pressure),
+      sizeLine(pressureLpm, A.pressureVelocityLimit.value, A.pressureLineLengthM.value, DEFAULT_FLUID),
     ),
     return: widest(
       designs.filter((d) => near(d.flowsLpm.returnMax, returnMaxLpm)).map((d) => d.lines.return),

@@ -46,7 +46,7 @@ export function machineTrail(m: MachineDesign, designs: Design[], mp: MachinePum
       unit: "cm³/rev",
       formula: "V_g = 1000·Q_p / (n·η_v), next in the ISO 3662 series",
       inputs: {
-        Q_p: v(mp.requiredLpm, "L/min"),
+        Q_p: v(m.accumulator ? (mp.demand.pumpFlowLpm * m.pump.requiredDisplacementCcRev) / m.pump.displacementCcRev : mp.requiredLpm, "L/min"),
         n: v(m.pump.speedRpm, "rpm"),
         η_v: v(m.pump.volumetricEfficiency, "-"),
         needed: v(m.pump.requiredDisplacementCcRev, "cm³/rev"),
@@ -96,7 +96,11 @@ export function machineTrail(m: MachineDesign, designs: Design[], mp: MachinePum
       value: m.reservoir.volumeL,
       unit: "L",
       formula: "V = 4 × Q_p (per minute) + ΣA_rod,i·s_i (every cylinder extended at once), rounded up to 5 L",
-      inputs: { Q_p: v(m.flowsLpm.pump, "L/min"), "oil the cylinders draw": v(m.reservoir.cylinderDrawL, "L") },
+      inputs: {
+        Q_p: v(m.flowsLpm.pump, "L/min"),
+        "oil the cylinders draw": v(m.reservoir.cylinderDrawL, "L"),
+        ...(m.accumulator ? { "oil the accumulator returns when vented": v(m.accumulator.oilAtMaxL, "L") } : {}),
+      },
       source: "3–5 × pump flow per minute, common practice [CP]; level drop from the rod volumes [D]",
     },
     {
@@ -108,6 +112,7 @@ export function machineTrail(m: MachineDesign, designs: Design[], mp: MachinePum
       source: "energy balance of the duty cycle, fluid-power textbooks [D]; tank heat transfer, common practice [CP]",
     },
   );
+  if (m.accumulator) trail.push(...accumulatorTrail(m));
   const peak = moving.reduce((a, b) => (b.hydraulicKw > a.hydraulicKw ? b : a));
   trail.push({
     quantity: "highest hydraulic power in the cycle",
@@ -118,4 +123,48 @@ export function machineTrail(m: MachineDesign, designs: Design[], mp: MachinePum
     source: "hydraulic power p·Q, fluid-power textbooks [D]",
   });
   return trail;
+}
+
+/** How the accumulator was sized (sources §11.6). */
+function accumulatorTrail(m: MachineDesign): TrailEntry[] {
+  const acc = m.accumulator!;
+  const moving = m.cycle.filter((p) => p.step !== null);
+  const cycleOilL = moving.reduce((s, p) => s + (p.demandLpm * p.durationS) / 60, 0);
+  const cycleS = m.heat.cycleS ?? 0;
+  return [
+    {
+      quantity: "accumulator: why",
+      value: `${acc.withoutDisplacementCcRev} → ${m.pump.displacementCcRev} cm³/rev`,
+      unit: "-",
+      formula: acc.reason,
+      inputs: { "oil a cycle": v(cycleOilL, "L"), "cycle time": v(cycleS, "s"), "mean flow": v(cycleS > 0 ? (60 * cycleOilL) / cycleS : 0, "L/min") },
+      source:
+        "flow-peak support: the pump sized for the mean flow, Q_p ≥ V_cycle / T (1.25 × it, our convention), the accumulator for the peaks, fluid-power textbooks [D]; proposed where the pump gets two sizes smaller [CP]",
+    },
+    {
+      quantity: "accumulator pressures",
+      value: `${acc.prechargeBar} / ${acc.minBar} / ${acc.maxBar}`,
+      unit: "bar",
+      formula: "p1 = highest pressure an axis needs + 10 bar, rounded up to 5; p2 = 1.2 × p1, rounded up to 5; p0 = 0.9 × p1",
+      inputs: { "highest pressure an axis needs": v(acc.highestNeedBar, "bar") },
+      source:
+        "precharge 0.9 × p1 for energy storage, bladder p2 ≤ 4 × p0 (accumulator makers' pages) [CP]; the control's regulating margin, common practice [CP]",
+    },
+    {
+      quantity: "oil the accumulator gives",
+      value: acc.usableL,
+      unit: "L",
+      formula: "ΔV = the deepest the cycle draws it down: Σ(Q_axes − Q_p)·t / 60 over the motions, the pump delivering throughout, full at the start",
+      inputs: { Q_p: v(m.flowsLpm.pump, "L/min"), "largest flow drawn": v(Math.max(...moving.map((p) => p.demandLpm)), "L/min") },
+      source: "ΔV = V_move − Q_p·t_move / 60 (flow-peak support), fluid-power textbooks [D]",
+    },
+    {
+      quantity: "accumulator gas volume",
+      value: acc.gasVolumeL,
+      unit: "L",
+      formula: "V0 = ΔV / [(p0/p1)^(1/n) − (p0/p2)^(1/n)], absolute pressures (gauge + 1 bar), n = 1.4; next bladder size",
+      inputs: { ΔV: v(acc.usableL, "L"), p0: v(acc.prechargeBar, "bar"), p1: v(acc.minBar, "bar"), p2: v(acc.maxBar, "bar"), chosen: v(acc.nominalL, "L") },
+      source: "ideal gas p·Vⁿ = const (the same form on a maker's accumulator page) [D]; n = 1.4 for a discharge within seconds [CP]; sizes from memory [M]",
+    },
+  ];
 }

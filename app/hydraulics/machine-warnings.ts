@@ -41,13 +41,21 @@ export function machineWarnings(m: MachineDesign, designs: Design[], mp: Machine
       );
     }
   });
-  for (const ph of m.cycle) {
+  // With an accumulator the pump gives less than the peaks by design; the accumulator gives the rest.
+  for (const ph of m.accumulator ? [] : m.cycle) {
     if (ph.demandLpm > ph.pumpFlowLpm * (1 + 1e-6)) {
       add(
         "MACHINE_FLOW_SHORT",
         `While ${ph.axes.join(" and ")} move${ph.axes.length === 1 ? "s" : ""} (step ${(ph.step ?? 0) + 1}), they draw ${num(ph.demandLpm)} L/min but the ${m.pump.type} pump delivers only ${num(ph.pumpFlowLpm)} L/min at ${num(ph.pressureBar)} bar: those axes will be slower than asked. Move them in separate steps, or size the pump for them together.`,
       );
     }
+  }
+  const acc = m.accumulator;
+  if (acc) {
+    add(
+      "ACCUMULATOR_STORED_ENERGY",
+      `The ${num(acc.nominalL)} L accumulator holds about ${num(acc.oilAtMaxL, 2)} L of oil at up to ${num(acc.maxBar)} bar, precharged with nitrogen to ${num(acc.prechargeBar)} bar: its safety block's normally open discharge valve vents it to tank whenever the power unit is switched off (ISO 4413), and the gauge must read zero before anyone opens the circuit. Accumulators fall under pressure-equipment rules: check the local ones.`,
+    );
   }
   if (!mp.inSeries)
     add(

@@ -8,7 +8,10 @@ import { machineBom } from "./machine-bom";
 import { machineCircuit } from "./machine-circuit";
 import type { MachineAxis, MachineCyclePhase, MachineDesign } from "./machine-design";
 import { machineLines, machineMotor, machineReservoir, neutralPhase } from "./machine-power";
-import { chooseMachinePump, pumpInPhase } from "./machine-pump";
+import { chooseMachinePump, pumpInPhase, type MachinePump } from "./machine-pump";
+import { planAccumulator, type AccumulatorPlan } from "./accumulator";
+import { choosePump } from "./pump-choice";
+import { hydraulicPowerKw, selectDisplacementCc } from "./pump-motor";
 import type { MachineRequirements } from "./machine-requirements";
 import { machineTimeline, type TimelinePhase } from "./machine-timeline";
 import { machineTrail } from "./machine-trail";
@@ -56,10 +59,24 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
   const designs = m.axes.map((_, i) => sizeAxis(m, i));
   const byName = new Map(designs.map((d) => [d.requirements.name!, d]));
   const timeline = machineTimeline(m.sequence, byName);
-  const mp = chooseMachinePump(designs, timeline, m.pumpType);
+  const several = designs.length > 1;
+  const normal = chooseMachinePump(designs, timeline, m.pumpType);
+  // Unasked, a machine whose short flow peaks size the pump gets an accumulator where it pays (accumulator.ts).
+  const plan =
+    several && m.pumpType === undefined
+      ? planAccumulator({
+          timeline,
+          cyclesPerHour: m.cyclesPerHour,
+          speedRpm: normal.speedRpm,
+          withoutCc: selectDisplacementCc(normal.requiredDisplacementCc).displacementCc,
+          withoutPeakKw: Math.max(...timeline.map((ph) => pumpInPhase(ph, normal).shaftKw)),
+          maxPressureBar: m.maxPressureBar,
+          ratedBar: Math.min(...designs.map((d) => d.cylinder.ratedPressureBar)),
+        })
+      : null;
+  const mp = plan ? accumulatorPump(normal, plan) : normal;
   const qp = mp.qpLpm;
   const choice = mp.choice;
-  const several = designs.length > 1;
   const ownPump = (axis: string) => {
     const p = byName.get(axis)!.pump;
     return (
@@ -70,7 +87,7 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
   };
 
   // The cycle: each phase with what the pump does then, and the neutral rest of the cycle.
-  const pumpPhases = timeline.map((ph) => pumpInPhase(ph, mp));
+  const pumpPhases = timeline.map((ph) => (plan ? chargingPhase(plan) : pumpInPhase(ph, mp)));
   const cycle: MachineCyclePhase[] = timeline.map((ph, i) => ({
     step: ph.step,
     phase: ph.phase,
@@ -84,21 +101,30 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
     pumpFlowLpm: pumpPhases[i].lpm,
     hydraulicKw: (pumpPhases[i].bar * pumpPhases[i].lpm) / 600,
     shaftKw: pumpPhases[i].shaftKw,
-    heatKw: phaseHeatKw(ph, pumpPhases[i].shaftKw, ownPump),
+    heatKw: plan ? accumulatorPhaseHeatKw(ph, pumpPhases[i], plan) : phaseHeatKw(ph, pumpPhases[i].shaftKw, ownPump),
   }));
   const busyS = cycle.reduce((s, p) => s + p.durationS, 0);
+  // With an accumulator the pump goes on charging after the motions until it is full again.
+  if (plan && plan.rechargeS > 0) {
+    const p = chargingPhase(plan);
+    cycle.push({
+      ...{ step: null, phase: "recharge", kind: "neutral", axes: [], motions: [], durationS: plan.rechargeS, shownS: plan.rechargeS, demandLpm: 0 },
+      ...{ pressureBar: p.bar, pumpFlowLpm: p.lpm, hydraulicKw: p.kw, shaftKw: p.shaftKw, heatKw: p.shaftKw - p.kw },
+    });
+  }
+  const chargingS = plan?.rechargeS ?? 0;
   // No cycles per hour (or so few the time overflows): no cycle time, so no neutral phase (as cycle.ts).
   const cycleS = Number.isFinite(3600 / m.cyclesPerHour) ? 3600 / m.cyclesPerHour : null;
-  const neutral = neutralPhase(designs, mp);
-  if (cycleS !== null && cycleS - busyS > 0) {
+  const neutral = plan ? unloadedPhase(qp) : neutralPhase(designs, mp);
+  if (cycleS !== null && cycleS - busyS - chargingS > 0) {
     cycle.push({
       step: null,
       phase: "neutral",
       kind: "neutral",
       axes: [],
       motions: [],
-      durationS: cycleS - busyS,
-      shownS: Math.min(cycleS - busyS, busyS),
+      durationS: cycleS - busyS - chargingS,
+      shownS: Math.min(cycleS - busyS - chargingS, busyS),
       demandLpm: 0,
       pressureBar: neutral.bar,
       pumpFlowLpm: neutral.lpm,
@@ -110,23 +136,27 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
 
   const motor = machineMotor(
     cycle,
-    pumpPhases.map((p) => p.kw),
+    [...pumpPhases, ...(chargingS > 0 ? [chargingPhase(plan!)] : [])].map((p) => p.kw),
     mp,
     designs,
     neutral,
     m.cyclesPerHour,
+    plan !== null,
   );
-  const reservoir = machineReservoir(designs, qp, m.ambientC);
+  // The tank takes back the oil the accumulator holds when it is vented at shut-down.
+  const reservoir = machineReservoir(designs, qp, m.ambientC, plan?.oilAtMaxL ?? 0);
   const returnMaxLpm = Math.max(...timeline.map((p) => p.returnLpm));
-  const lines = machineLines(designs, qp, returnMaxLpm);
+  // From the accumulator the pressure line carries the peak the axes draw, not the pump's delivery.
+  const lines = machineLines(designs, qp, returnMaxLpm, plan ? Math.max(qp, ...timeline.map((p) => p.demandLpm)) : qp);
   // Heat: each phase's loss over the cycle; without cycles the pump sits in neutral.
   const periodS = cycleS === null ? null : Math.max(cycleS, busyS);
   const averageLossKw = periodS === null ? neutral.shaftKw : cycle.reduce((s, p) => s + p.heatKw * p.durationS, 0) / periodS;
   const coolerKw = Math.max(0, averageLossKw - reservoir.dissipationKw);
 
   // One relief vent for a fixed or double pump behind several P-blocking valves; one valve keeps its own arrangement.
+  // An accumulator must keep its pressure in neutral: its charging valve unloads the pump instead.
   const reliefVent = several
-    ? choice.type === "compensated"
+    ? choice.type === "compensated" || plan
       ? null
       : {
           ventPressureBar: A.ventPressureBar.value,
@@ -163,8 +193,12 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
               neutralPumpFlow: "blocked at every valve; the pump unloads through the vented relief",
             },
       lines: { capWork: d.lines.capWork, rodWork: d.lines.rodWork },
-      speedControl:
-        ownFlow < qp * (1 - A.speedTolerance.value)
+      speedControl: plan
+        ? {
+            flowLpm: ownFlow,
+            reason: `fed from the accumulator, whose pressure falls from ${plan.maxBar} to ${plan.minBar} bar as it gives oil, so a pressure-compensated meter-in control holds this axis's speed`,
+          }
+        : ownFlow < qp * (1 - A.speedTolerance.value)
           ? {
               flowLpm: ownFlow,
               reason: `the pump delivers ${Math.round(qp * 10) / 10} L/min and this axis draws at most ${Math.round(ownFlow * 10) / 10} L/min, so a meter-in flow control holds its speed`,
@@ -211,6 +245,21 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
     returnFilter: { ratedFlowLpm: returnMaxLpm },
     lines,
     reliefVent,
+    accumulator: plan
+      ? {
+          reason: plan.reason,
+          gasVolumeL: plan.gasVolumeL,
+          highestNeedBar: plan.highestNeedBar,
+          nominalL: plan.nominalL,
+          prechargeBar: plan.prechargeBar,
+          minBar: plan.minBar,
+          maxBar: plan.maxBar,
+          usableL: plan.usableL,
+          oilAtMaxL: plan.oilAtMaxL,
+          exponent: A.accumulatorExponent.value,
+          withoutDisplacementCcRev: selectDisplacementCc(normal.requiredDisplacementCc).displacementCc,
+        }
+      : null,
     heat: {
       averageLossKw,
       neutralLossKw: neutral.shaftKw,
@@ -231,4 +280,44 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
   design.circuit = machineCircuit(design, designs);
   design.trail = machineTrail(design, designs, mp);
   return design;
+}
+
+/** The fixed pump that charges the accumulator, and its relief above the charging band. */
+function accumulatorPump(normal: MachinePump, plan: AccumulatorPlan): MachinePump {
+  const demand = {
+    ...normal.demand,
+    press: null,
+    reliefBar: plan.reliefBar,
+    workingBar: plan.maxBar,
+    requiredDisplacementCc: plan.requiredDisplacementCc,
+    displacementCc: plan.displacementCc,
+    pumpFlowLpm: plan.qpLpm,
+  };
+  const choice = { ...choosePump(demand, "fixed"), reason: `a fixed pump with ${plan.reason}` };
+  return { ...normal, choice, demand, requiredDisplacementCc: plan.requiredDisplacementCc, inSeries: true, qpLpm: plan.qpLpm, smallLpm: null };
+}
+
+/**
+ * The pump while the axes move and while it refills the accumulator: Q_p at up to p2, counted at
+ * p2 throughout the motions, which sizes the motor on the worst case [D].
+ */
+function chargingPhase(plan: AccumulatorPlan) {
+  const kw = hydraulicPowerKw(plan.maxBar, plan.qpLpm);
+  return { bar: plan.maxBar, lpm: plan.qpLpm, kw, shaftKw: kw / A.overallEfficiency.value };
+}
+
+/** Full accumulator, every valve in neutral: the charging valve dumps the pump at Δp_u. */
+function unloadedPhase(qp: number) {
+  const kw = hydraulicPowerKw(A.unloadedDropBar.value, qp);
+  return { bar: A.unloadedDropBar.value, lpm: qp, kw, shaftKw: kw / A.overallEfficiency.value };
+}
+
+/**
+ * A phase fed from the accumulator: the pump's own losses, and the axes' meter-in controls
+ * throttling the accumulator's p2 down to what each needs (Σ(p2·Q_i)/600 − F·v); the energy the
+ * pump stores while recharging comes out here [D].
+ */
+function accumulatorPhaseHeatKw(ph: TimelinePhase, pump: { kw: number; shaftKw: number }, plan: AccumulatorPlan): number {
+  const delivered = hydraulicPowerKw(plan.maxBar, ph.demandLpm);
+  return pump.shaftKw - pump.kw + Math.max(0, delivered - ph.segments.reduce((s, seg) => s + seg.usefulKw, 0));
 }

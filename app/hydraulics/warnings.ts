@@ -40,6 +40,8 @@ export const WARNING_CODES = [
   "MACHINE_FLOW_SHORT",
   /** a machine: an axis rated below the shared relief gets a pressure-reducing valve */
   "AXIS_PRESSURE_REDUCED",
+  /** a machine: an accumulator stores energy; it is vented on shut-down and must read zero before work on the circuit */
+  "ACCUMULATOR_STORED_ENERGY",
 ] as const;
 
 export type WarningCode = (typeof WARNING_CODES)[number];

@@ -14,21 +14,18 @@ import { Card } from "./ui";
  * A design as every page shows it: the circuit, its key sizes, the phases of one cycle (where
  * the stored design lists them), warnings, the cautions, the components and the calculation trail.
  */
-export function DesignReport({
-  design,
-  units,
-  updating = false,
-  componentsTitle = "Components",
-  cautions = true,
-}: {
-  design: Design;
+/** What a report of a design (an axis's or a machine's) is told. */
+export interface ReportProps<D> {
+  design: D;
   units: UnitSystem;
-  /** A newer design is on its way (live sizing): the circuit is dimmed. */
+  /** A newer design is on its way (live sizing): the report is dimmed. */
   updating?: boolean;
   componentsTitle?: string;
   /** Pages that ask the reader to confirm the cautions show them beside the confirmation instead. */
   cautions?: boolean;
-}) {
+}
+
+export function DesignReport({ design, units, updating = false, componentsTitle = "Components", cautions = true }: ReportProps<Design>) {
   return (
     <>
       <Card className={`transition-opacity ${updating ? "opacity-70" : ""}`}>

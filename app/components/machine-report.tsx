@@ -1,6 +1,7 @@
 import type { MachineAxis, MachineCyclePhase, MachineDesign } from "~/hydraulics";
+import type { ReportProps } from "./design-report";
 import { servedBy } from "~/services/published-design";
-import { formatQuantity, type UnitSystem } from "~/units";
+import { formatQuantity } from "~/units";
 import { CircuitViewer } from "./circuit-viewer";
 import { centreName } from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
@@ -15,21 +16,7 @@ import { Card, Notice } from "./ui";
  * line serves, and the calculation trail. The single-axis DesignReport's sibling: same order,
  * same panels where they fit.
  */
-export function MachineReport({
-  design,
-  units,
-  updating = false,
-  componentsTitle = "Components",
-  cautions = true,
-}: {
-  design: MachineDesign;
-  units: UnitSystem;
-  /** A newer design is on its way (live sizing): the report is dimmed. */
-  updating?: boolean;
-  componentsTitle?: string;
-  /** Pages that ask the reader to confirm the cautions show them beside the confirmation instead. */
-  cautions?: boolean;
-}) {
+export function MachineReport({ design, units, updating = false, componentsTitle = "Components", cautions = true }: ReportProps<MachineDesign>) {
   const u = displayUnits(units);
   const names = design.axes.map((a) => a.name);
   return (

@@ -10,7 +10,7 @@ import { Bid, Spec, SpecRevision } from "~/models/index.server";
 import { checkRequestBounds } from "~/http/request-bounds.server";
 import { changeAxes } from "~/services/specs.server";
 import { comparisonOf } from "~/services/bids.server";
-import { makeMember, makePublishedSpec } from "../support/factories";
+import { makeMember, makePublishedSpec, SPEC_ANSWERS } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
@@ -25,15 +25,7 @@ const RAM = {
   mounting: { orientation: "vertical", rodDirection: "down", mounting: "pinned-pinned" },
   motion: { massKg: "800", processForceN: "50000", strokeMm: "400", extendSpeedMmS: "100", retractSpeedMmS: "150", accelTimeS: "0.2" },
 };
-const DUTY = {
-  cyclesPerHour: "60",
-  hoursPerDay: "16",
-  ambientC: "25",
-  supplyHz: "50",
-  maxPressureBar: "160",
-  supplyVoltage: "400 V three-phase",
-  fluid: "ISO VG 46",
-};
+const DUTY = SPEC_ANSWERS.duty;
 const QUOTATION = {
   unitsWanted: "1",
   bidDeadline: inDays(21),

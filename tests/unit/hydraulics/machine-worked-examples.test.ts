@@ -9,21 +9,8 @@ import { sizeMachine, type MachineDesign } from "~/hydraulics";
 import { choosePump } from "~/hydraulics/pump-choice";
 import { pumpInPhase, type MachinePump } from "~/hydraulics/machine-pump";
 import type { TimelinePhase } from "~/hydraulics/machine-timeline";
+import { CLAMP, FEED, PRESS } from "../../support/machines";
 
-const H = { orientation: "horizontal", mounting: "fixed-pinned", frictionCoefficient: 0.1 } as const;
-const CLAMP = { ...H, name: "Clamp", massKg: 100, processForceN: 10_000, strokeMm: 50, extendSpeedMmS: 50, retractSpeedMmS: 100 };
-const PRESS = {
-  ...H,
-  name: "Press",
-  massKg: 500,
-  processForceN: 100_000,
-  strokeMm: 200,
-  extendSpeedMmS: 100,
-  pressStrokeMm: 20,
-  pressSpeedMmS: 10,
-  retractSpeedMmS: 150,
-};
-const FEED = { ...H, name: "Feed", massKg: 300, strokeMm: 500, extendSpeedMmS: 200, retractSpeedMmS: 200 };
 const DUTY = { cyclesPerHour: 120, hoursPerDay: 16, supplyHz: 50, maxPressureBar: 160 } as const;
 const step = (...moves: [string, "extend" | "retract"][]) => moves.map(([axis, motion]) => ({ axis, motion }));
 

@@ -19,7 +19,7 @@ export function AppShell({ user, toast, children }: { user: ShellUser | null; to
         Skip to content
       </a>
       <header className="relative bg-ink-900 text-white">
-        <div className="mx-auto flex max-w-6xl items-center gap-x-8 gap-y-2 px-4 py-3">
+        <div className="mx-auto flex max-w-6xl items-center gap-x-6 gap-y-2 px-4 py-3">
           <Link to="/" className="flex items-center gap-2 font-bold tracking-tight">
             <Logo />
             <span className="text-lg">Tenderflow</span>
@@ -73,7 +73,7 @@ function NavItems({ items }: { items: { to: string; label: string }[] }) {
       key={item.to}
       to={item.to}
       className={({ isActive }) =>
-        `rounded-md px-3 py-2 text-sm font-semibold lg:py-1.5 ${isActive ? "bg-flow-600 text-white" : "text-ink-200 hover:bg-ink-800 hover:text-white"}`
+        `rounded-md px-3 py-2 text-sm font-semibold lg:px-2.5 lg:py-1.5 ${isActive ? "bg-flow-600 text-white" : "text-ink-200 hover:bg-ink-800 hover:text-white"}`
       }
     >
       {item.label}

@@ -186,7 +186,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
       ) : null}
 
       <Form method="post" {...getFormProps(form)} className="space-y-6">
-        <fieldset disabled={!d.spec.accepting} className="space-y-6">
+        <fieldset disabled={!d.spec.accepting} className="min-w-0 space-y-6">
           <Card>
             <h2 className="mb-1 text-lg font-semibold">Price each line of the bill</h2>
             <p className="mb-4 text-sm text-ink-600">

@@ -153,6 +153,13 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 {cheapest.alternatives ? ` · ${cheapest.alternatives} alternative part${cheapest.alternatives === 1 ? "" : "s"}` : ""}
                 {cheapest.olderRevision ? ` · made on revision ${cheapest.specRevision}` : ""}
               </p>
+              {/* The page's decision within reach at once; the line-by-line table and each offer's terms stay below. */}
+              {canAward && cheapest.status === "submitted" && !d.choosing ? (
+                <p className="mt-3 flex flex-wrap items-center gap-x-4 gap-y-2 text-sm text-ink-700">
+                  <ButtonLink to={`?sort=${d.sort}&award=${cheapest.id}#award-confirmation`}>Award the cheapest offer, {cheapest.shop}…</ButtonLink>
+                  <span>or compare every line, the terms and the notes below first.</span>
+                </p>
+              ) : null}
             </div>
           ) : (
             <div className="mb-4">
@@ -200,11 +207,11 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
           </nav>
 
           <TableScroll label="Offers side by side" className="rounded-lg bg-white ring-1 ring-ink-200">
-            <table className="w-full min-w-[36rem] text-sm" data-testid="comparison">
+            <table className="w-full text-sm sm:min-w-[36rem]" data-testid="comparison">
               <caption className="sr-only">Offers by line; the lowest price of each line and the cheapest complete offer are marked.</caption>
               <thead>
                 <tr className="align-bottom">
-                  <th scope="col" className="sticky left-0 z-10 min-w-[16rem] bg-white p-3 text-left">
+                  <th scope="col" className="sticky left-0 z-10 min-w-[9rem] bg-white p-3 text-left sm:min-w-[16rem]">
                     Line
                   </th>
                   {columns.map((c) => (

@@ -60,6 +60,10 @@ describe("bidding", () => {
     const lines = await bid(first, "1500", "200", "12", undefined, 2);
     await expect.poll(() => first.getByTestId("offer-total").textContent()).not.toBe("£0.00");
     await shot(first, "1-shop-form");
+    // On a phone the bill's table scrolls in its own box; the form around it never widens the page.
+    await first.setViewportSize({ width: 390, height: 844 });
+    expect(await first.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await first.setViewportSize({ width: 1280, height: 860 });
     await first.getByRole("button", { name: "Submit the offer" }).click();
     await expect.poll(() => first.getByText(/^Offer 1 sent/).count()).toBe(1);
     await shot(first, "2-shop-sent");
@@ -96,6 +100,15 @@ describe("bidding", () => {
     expect(await includedRow.getByText("lowest", { exact: true }).count()).toBe(0);
     expect(await comparison.getByText("Ex works, 30 days net.").count()).toBe(2);
     await shot(buyerPage, "3-comparison");
+    // The decision is in view on a laptop screen without scrolling; on a phone the first offer's prices are in view beside the lines.
+    await buyerPage.setViewportSize({ width: 1366, height: 768 });
+    const awardCheapest = buyerPage.getByRole("link", { name: "Award the cheapest offer, Fenwick Power Units…" });
+    const awardBox = await awardCheapest.boundingBox();
+    expect(awardBox!.y + awardBox!.height).toBeLessThanOrEqual(768);
+    await buyerPage.setViewportSize({ width: 390, height: 844 });
+    const firstPrice = await comparison.locator("tbody tr").first().locator("td").first().boundingBox();
+    expect(firstPrice!.x + firstPrice!.width).toBeLessThanOrEqual(390);
+    await buyerPage.setViewportSize({ width: 1280, height: 860 });
 
     // A second tab has the other offer's confirmation open when the first tab awards.
     const secondTab = await buyerPage.context().newPage();

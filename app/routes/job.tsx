@@ -121,8 +121,9 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
           <Timeline job={job} />
           <History job={job} />
         </div>
-        {/* Keyed by the history's length, so every saved change starts the forms afresh. */}
-        <div key={job.events.length} className="space-y-6">
+        {/* Keyed by the history's length, so every saved change starts the forms afresh. On a phone the
+            actions (pay, record progress) come first, not under the milestones and the history. */}
+        <div key={job.events.length} className="order-first space-y-6 lg:order-none">
           {retainer.canPay || retainer.canRefund || retainer.payments.length ? (
             <RetainerPanel
               jobId={job.id}

@@ -48,6 +48,12 @@ describe("paying the retainer", () => {
     await page.goto(`/jobs/${job.id}`);
     await hydrated(page);
     await shot(page, "1-job-unpaid");
+    // On a phone the payment is the first thing under the job's title, not under its milestones.
+    await page.setViewportSize({ width: 390, height: 844 });
+    const pay = await page.getByRole("button", { name: /^Pay the retainer of/ }).boundingBox();
+    expect(pay && pay.y + pay.height).toBeLessThanOrEqual(844);
+    await shot(page, "1b-job-unpaid-phone");
+    await page.setViewportSize({ width: 1280, height: 860 });
     await page.getByRole("button", { name: /^Pay the retainer of/ }).click();
     await page.waitForURL(`${fake.url}/checkout/**`);
     expect(await page.getByTestId("total").textContent()).toBe(

@@ -115,11 +115,22 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
     </Card>
   );
 
-  const addAxis = () =>
-    setAxes((list) => {
-      const last = list[list.length - 1];
-      return [...list, { key: Math.max(...list.map((a) => a.key)) + 1, name: nextAxisName(list), typed: { ...last.typed } }];
-    });
+  // The new axis appears above the button, out of sight on most screens: its name field takes the
+  // focus (and so scrolls into view), ready to be named.
+  const [justAdded, setJustAdded] = useState<number | null>(null);
+  useEffect(() => {
+    if (justAdded === null) return;
+    const name = document.getElementById(`axis-${justAdded}-name`);
+    if (name instanceof HTMLInputElement) {
+      name.focus();
+      name.select();
+    }
+  }, [justAdded]);
+  const addAxis = () => {
+    const key = Math.max(...axes.map((a) => a.key)) + 1;
+    setAxes((list) => [...list, { key, name: nextAxisName(list), typed: { ...list[list.length - 1].typed } }]);
+    setJustAdded(key);
+  };
   // The first axis holds the machine's duty answers: a removed first axis hands them on.
   const removeAxis = (index: number) =>
     setAxes((list) => {
@@ -250,7 +261,7 @@ function AxisFieldset({
     <fieldset className="space-y-3 rounded-lg border border-ink-200 p-3" data-quick-axis={index + 1}>
       <legend className="px-1 text-sm font-semibold text-ink-900">
         Axis {index + 1}
-        {axis.name.trim() ? `: ${axis.name.trim()}` : ""}
+        {axis.name.trim() && axis.name.trim() !== `Axis ${index + 1}` ? `: ${axis.name.trim()}` : ""}
       </legend>
       <div>
         <label htmlFor={id} className="block text-sm font-semibold text-ink-800">

@@ -173,6 +173,14 @@ describe("quick sizing", () => {
     await page.getByRole("button", { name: /Add a second axis/ }).click();
     const first = page.locator('[data-quick-axis="1"]');
     const second = page.locator('[data-quick-axis="2"]');
+    // The new axis appears above the button: its name takes the focus, in view, and the legend does not say "Axis 2: Axis 2".
+    await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute("id"))).toMatch(/^axis-\d+-name$/);
+    expect(await second.getByLabel("Name of axis 2").evaluate((el) => el === document.activeElement)).toBe(true);
+    expect(await second.getByLabel("Name of axis 2").isVisible()).toBe(true);
+    const nameBox = await second.getByLabel("Name of axis 2").boundingBox();
+    expect(nameBox!.y).toBeGreaterThanOrEqual(0);
+    expect(nameBox!.y).toBeLessThan(page.viewportSize()!.height);
+    expect(await second.locator(":scope > legend").innerText()).toBe("Axis 2");
     await first.getByLabel("Name of axis 1").fill("Press");
     await second.getByLabel("Name of axis 2").fill("Clamp");
     // the clamp: a short, light horizontal stroke

@@ -157,9 +157,10 @@ describe("each demo role signs in and sees its home", () => {
     await page.screenshot({ path: path.join(SCREENSHOTS, "phone-organisation-page-account.png"), fullPage: true });
     await page.getByRole("link", { name: /^(All \d+ jobs|In the job list) →$/ }).click();
     await page.waitForURL("**/jobs?account=*");
-    const buyers = await page.getByRole("region", { name: "Jobs" }).locator("tbody tr td:nth-child(2)").allTextContents();
-    expect(buyers.length).toBeGreaterThan(0);
-    expect(new Set(buyers)).toEqual(new Set(["Kestrel Forming Machines"]));
+    // The address changes before the filtered list has loaded: wait for its rows.
+    const buyerCells = page.getByRole("region", { name: "Jobs" }).locator("tbody tr td:nth-child(2)");
+    await expect.poll(() => buyerCells.count()).toBeGreaterThan(0);
+    expect(new Set(await buyerCells.allTextContents())).toEqual(new Set(["Kestrel Forming Machines"]));
     await page.context().close();
   });
 

@@ -197,7 +197,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                 : ""}
             </p>
             <TableScroll label="Prices by line">
-              <table className="w-full min-w-[44rem] text-left text-sm">
+              <table className="w-full text-left text-sm sm:min-w-[44rem]">
                 <thead className="text-ink-600">
                   <tr>
                     <th scope="col" className="py-2 pr-3">
@@ -206,7 +206,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                     <th scope="col" className="pr-3 text-right">
                       Qty
                     </th>
-                    <th scope="col" className="w-40 pr-3">
+                    <th scope="col" className="w-28 pr-3 sm:w-40">
                       Unit price ({d.spec.currency})
                     </th>
                     <th scope="col" className="pr-3 text-right">
@@ -234,7 +234,8 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                           </tr>
                         ) : null}
                         <tr className="border-t border-ink-100 align-top">
-                          <td className="py-2 pr-3">
+                          {/* On a phone the line's column (fixed while the row scrolls) stays narrow, so the price beside it is in view. */}
+                          <td className="min-w-[8.5rem] py-2 pr-3 sm:min-w-0">
                             <input {...getInputProps(f.key, { type: "hidden" })} key={f.key.key} />
                             <label htmlFor={f.unitPrice.id} className="font-semibold text-ink-900">
                               {bill.item}

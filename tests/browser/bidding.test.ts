@@ -63,6 +63,17 @@ describe("bidding", () => {
     // On a phone the bill's table scrolls in its own box; the form around it never widens the page.
     await first.setViewportSize({ width: 390, height: 844 });
     expect(await first.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    // The line's column stays put while the table scrolls; it must not cover the price beside it.
+    const price = first.locator('input[name$=".unitPrice"]').first();
+    await price.scrollIntoViewIfNeeded();
+    const priceBox = (await price.boundingBox())!;
+    expect(priceBox.x + priceBox.width).toBeLessThanOrEqual(390);
+    expect(
+      await first.evaluate(
+        ([x, y]) => document.elementFromPoint(x, y)?.getAttribute("name") ?? "",
+        [priceBox.x + priceBox.width / 2, priceBox.y + priceBox.height / 2],
+      ),
+    ).toMatch(/\.unitPrice$/);
     await first.setViewportSize({ width: 1280, height: 860 });
     await first.getByRole("button", { name: "Submit the offer" }).click();
     await expect.poll(() => first.getByText(/^Offer 1 sent/).count()).toBe(1);

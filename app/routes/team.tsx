@@ -55,7 +55,7 @@ export default function Team({ loaderData, actionData }: Route.ComponentProps) {
   return (
     <>
       <PageHeader title="Team" lead={`People of ${loaderData.organisationName} who use Tenderflow.`} />
-      <div className="grid gap-6 lg:grid-cols-3">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-3">
         <Card className="lg:col-span-2" title="Members">
           <ListTable label="Members" minWidth="min-w-[30rem]" columns={["Name", "E-mail", "Role", "Status"]}>
             {loaderData.members.map((m) => (

@@ -110,6 +110,20 @@ describe("each demo role signs in and sees its home", () => {
     await page.context().close();
   });
 
+  it("on a phone a list's fixed first column leaves room for the others, and no page scrolls sideways", { timeout: 60_000 }, async () => {
+    const page = await app.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await signInAs(page, "priya@kestrel-forming.test", DEMO_PASSWORD);
+    await page.waitForURL("**/specs");
+    const specs = page.getByRole("region", { name: "Specs" });
+    const box = await specs.evaluate((el) => el.clientWidth);
+    const firstCell = await specs.locator("tbody tr td").first().boundingBox();
+    expect(firstCell!.width).toBeLessThanOrEqual(box / 2);
+    await page.goto("/team");
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await page.context().close();
+  });
+
   it("an admin sorts the organisations by name in the URL and opens an organisation's page from its name", { timeout: 60_000 }, async () => {
     const page = await app.newPage();
     await signInAs(page, "felix@tenderflow.test", DEMO_PASSWORD);

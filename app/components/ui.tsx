@@ -142,9 +142,9 @@ export function TableScroll({ label, className = "", children }: { label: string
       aria-label={label}
       // eslint-disable-next-line jsx-a11y/no-noninteractive-tabindex -- a scrolling region must be reachable by keyboard
       tabIndex={0}
-      // On a phone a table takes only the width its words need (max-sm:[&>table]:min-w-0): a long title in
-      // the fixed first column would otherwise fill the box and hide every other column under it.
-      className={`relative overflow-x-auto max-sm:[&>table]:min-w-0 focus-visible:outline-2 focus-visible:outline-flow-600 [&_td:first-child]:sticky [&_td:first-child]:left-0 [&_td:first-child]:z-[1] [&_td:first-child]:bg-white [&_th:first-child]:sticky [&_th:first-child]:left-0 [&_th:first-child]:z-[1] [&_th:first-child]:bg-white ${className}`}
+      // On a phone a table takes only the width its words need (max-sm:[&>table]:min-w-0) and its fixed first
+      // column 8rem: a long title there would otherwise fill the box and hide every other column under it.
+      className={`relative overflow-x-auto max-sm:[&_td:first-child]:min-w-32 max-sm:[&>table]:min-w-0 focus-visible:outline-2 focus-visible:outline-flow-600 [&_td:first-child]:sticky [&_td:first-child]:left-0 [&_td:first-child]:z-[1] [&_td:first-child]:bg-white [&_th:first-child]:sticky [&_th:first-child]:left-0 [&_th:first-child]:z-[1] [&_th:first-child]:bg-white ${className}`}
     >
       {children}
     </div>

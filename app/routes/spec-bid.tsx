@@ -249,7 +249,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                               key={f.unitPrice.key}
                               inputMode="decimal"
                               placeholder="0.00"
-                              className="block w-full rounded-md bg-white px-2 py-1 text-right tabular-nums ring-1 ring-ink-200 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600"
+                              className="block w-full min-w-24 rounded-md bg-white px-2 py-1 text-right tabular-nums ring-1 ring-ink-200 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600"
                             />
                             <FieldErrorText id={f.unitPrice.errorId} errors={f.unitPrice.errors} />
                           </td>

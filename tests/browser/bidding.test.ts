@@ -68,6 +68,7 @@ describe("bidding", () => {
     await price.scrollIntoViewIfNeeded();
     const priceBox = (await price.boundingBox())!;
     expect(priceBox.x + priceBox.width).toBeLessThanOrEqual(390);
+    expect(priceBox.width).toBeGreaterThanOrEqual(96);
     expect(
       await first.evaluate(
         ([x, y]) => document.elementFromPoint(x, y)?.getAttribute("name") ?? "",

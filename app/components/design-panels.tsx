@@ -56,15 +56,19 @@ export function KeySizes({ design, units = "metric" }: { design: Design; units?:
   return (
     <Card>
       <h2 className="mb-3 font-semibold text-ink-900">Key sizes</h2>
-      <dl className="grid grid-cols-2 gap-x-6 gap-y-3 sm:grid-cols-3">
-        {items.map((item) => (
-          <div key={item.label} data-key-size={item.label}>
-            <dt className="text-xs text-ink-600">{item.label}</dt>
-            <dd className="whitespace-nowrap text-lg font-semibold text-ink-900">{item.value}</dd>
-            {item.detail ? <dd className="text-xs text-ink-600">{item.detail}</dd> : null}
-          </div>
-        ))}
-      </dl>
+      {/* Three columns only where the panel itself is wide (a container query): in the narrow live
+          preview beside a form, three unbroken values would run into each other. */}
+      <div className="@container">
+        <dl className="grid grid-cols-2 gap-x-6 gap-y-3 @xl:grid-cols-3">
+          {items.map((item) => (
+            <div key={item.label} data-key-size={item.label}>
+              <dt className="text-xs text-ink-600">{item.label}</dt>
+              <dd className="whitespace-nowrap text-lg font-semibold text-ink-900">{item.value}</dd>
+              {item.detail ? <dd className="text-xs text-ink-600">{item.detail}</dd> : null}
+            </div>
+          ))}
+        </dl>
+      </div>
     </Card>
   );
 }

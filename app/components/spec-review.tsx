@@ -2,7 +2,7 @@ import { Form, Link, useNavigation } from "react-router";
 import { formatBytes } from "~/components/attachment-uploader";
 import { CautionsPanel } from "~/components/design-panels";
 import { DesignReport } from "~/components/design-report";
-import { Button, Card, Notice } from "~/components/ui";
+import { Button, Card, Notice, STICKY_ACTION_BAR } from "~/components/ui";
 import { formatDay, isIsoDay } from "~/content/dates";
 import { MachineReport } from "~/components/machine-report";
 import { REQUIREMENT_FIELDS, answerInWords, fieldApplies, type RequirementKey } from "~/content/requirement-fields";
@@ -163,11 +163,7 @@ export function SpecReview({ spec, draft, sequence, steps, published, problems, 
         <CautionsPanel />
       </div>
       {/* Publishing stays in view while the buyer reads: the bar sticks to the bottom of the window. */}
-      <Form
-        method="post"
-        aria-label="Publish"
-        className="sticky bottom-0 z-10 -mx-2 flex flex-wrap items-center justify-between gap-3 rounded-t-lg bg-white/95 px-4 py-3 shadow-[0_-4px_12px_rgba(0,0,0,0.08)] ring-1 ring-ink-100 backdrop-blur"
-      >
+      <Form method="post" aria-label="Publish" className={STICKY_ACTION_BAR}>
         <label className="flex max-w-xl items-start gap-2 text-sm">
           <input type="checkbox" name="cautionsRead" className="mt-1 accent-flow-600" required />
           <span>

@@ -9,7 +9,7 @@ import { RequirementInput } from "~/components/requirement-input";
 import { SpecLivePreview } from "~/components/spec-live-preview";
 import { MachineCyclePreview, MachinePreview, useMachineSizing } from "~/components/machine-preview";
 import { sequenceOf } from "~/content/machine-input";
-import { Button, Card, Notice } from "~/components/ui";
+import { Button, Card, Notice, STICKY_ACTION_BAR } from "~/components/ui";
 import { CURRENCIES } from "~/content/money";
 import {
   REQUIREMENT_FIELDS,
@@ -202,7 +202,8 @@ export function SpecStepForm({
               </div>
             </div>
           ) : null}
-          <div className="mt-5 flex justify-between">
+          {/* Save and continue stays in view on a laptop's screen, however long the step. */}
+          <div className={`mt-5 ${STICKY_ACTION_BAR}`} data-step-actions="">
             {previous ? (
               <Button type="submit" form={form.id} name="intent" value="back" tone="secondary" formNoValidate>
                 ← Back

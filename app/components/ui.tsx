@@ -34,6 +34,10 @@ export function PageHeader({ title, lead, actions }: { title: string; lead?: Rea
 }
 
 /** A panel of a page; with a `title`, the panel's heading. */
+/** A form's main action kept in view while the person reads: the bar sticks to the bottom of the window. */
+export const STICKY_ACTION_BAR =
+  "sticky bottom-0 z-10 -mx-2 flex flex-wrap items-center justify-between gap-3 rounded-t-lg bg-white/95 px-4 py-3 shadow-[0_-4px_12px_rgba(0,0,0,0.08)] ring-1 ring-ink-100 backdrop-blur";
+
 export function Card({ className = "", title, children }: { className?: string; title?: string; children: React.ReactNode }) {
   return (
     <section className={`rounded-lg bg-white p-6 shadow-sm ring-1 ring-ink-100 ${className}`}>

@@ -19,9 +19,18 @@ const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCR
 const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
 async function next(page: Page, expectedStep: string) {
+  await saveInView(page);
   await page.getByRole("button", { name: "Save and continue →" }).click();
   await page.waitForURL(`**/edit/${expectedStep}`);
   await hydrated(page);
+}
+
+/** On a 1366 × 768 laptop screen a step's main action is in view without scrolling, however long the step. */
+async function saveInView(page: Page) {
+  const box = (await page.getByRole("button", { name: "Save and continue →" }).boundingBox())!;
+  const height = page.viewportSize()!.height;
+  expect(box.y).toBeGreaterThanOrEqual(0);
+  expect(box.y + box.height).toBeLessThanOrEqual(height);
 }
 
 describe("spec intake", () => {
@@ -54,6 +63,7 @@ describe("spec intake", () => {
     await page.getByRole("button", { name: "Start a new spec" }).first().click();
     await page.waitForURL("**/edit/machine");
     await hydrated(page);
+    await page.setViewportSize({ width: 1366, height: 768 });
 
     // A bad answer shows beside its field.
     await page.getByRole("button", { name: "Save and continue →" }).click();
@@ -96,6 +106,11 @@ describe("spec intake", () => {
     await page.getByLabel("Time to stop").fill("0.5");
     // How long the load is held is the axis's own.
     await page.getByLabel("Time the load is held at rest").fill("20");
+    // The live preview's key sizes each fit their own cell on a laptop screen (none runs into the next).
+    const keySizes = page.locator("[data-key-size] > dd:first-of-type");
+    await expect.poll(() => keySizes.count()).toBeGreaterThan(0);
+    const overflowing = await keySizes.evaluateAll((dds) => dds.filter((dd) => dd.scrollWidth > dd.clientWidth + 1).map((dd) => dd.textContent));
+    expect(overflowing).toEqual([]);
     await shot(page, "2-motion");
     await next(page, "duty");
 

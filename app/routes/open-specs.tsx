@@ -106,6 +106,7 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
   const pressure = unitLabel("pressure", d.unitSystem);
   const flow = unitLabel("flow", d.unitSystem);
   const problems = Object.values(d.problems);
+  const sizeFiltersUsed = (["pressureMin", "pressureMax", "flowMin", "flowMax"] as const).some((k) => Boolean(d.typed[k]?.trim() || d.problems[k]));
   if (d.total === 0 && !d.filtered && problems.length === 0) {
     return (
       <>
@@ -153,22 +154,28 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
             </select>
             {d.problems.sort ? <span className="mt-1 block text-xs font-semibold text-alarm-600">{d.problems.sort}</span> : null}
           </label>
-          <FilterField
-            name="pressureMin"
-            label={`Relief setting from (${pressure})`}
-            typed={d.typed.pressureMin}
-            problem={d.problems.pressureMin}
-            inputMode="decimal"
-          />
-          <FilterField
-            name="pressureMax"
-            label={`Relief setting up to (${pressure})`}
-            typed={d.typed.pressureMax}
-            problem={d.problems.pressureMax}
-            inputMode="decimal"
-          />
-          <FilterField name="flowMin" label={`Pump flow from (${flow})`} typed={d.typed.flowMin} problem={d.problems.flowMin} inputMode="decimal" />
-          <FilterField name="flowMax" label={`Pump flow up to (${flow})`} typed={d.typed.flowMax} problem={d.problems.flowMax} inputMode="decimal" />
+          {/* The size filters fold away, so on a phone the list starts on the first screen; they open when used. */}
+          <details className="sm:col-span-2 lg:col-span-4" open={sizeFiltersUsed} data-size-filters="">
+            <summary className="cursor-pointer font-semibold text-flow-700">Filter by relief setting and pump flow</summary>
+            <div className="mt-2 grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+              <FilterField
+                name="pressureMin"
+                label={`Relief setting from (${pressure})`}
+                typed={d.typed.pressureMin}
+                problem={d.problems.pressureMin}
+                inputMode="decimal"
+              />
+              <FilterField
+                name="pressureMax"
+                label={`Relief setting up to (${pressure})`}
+                typed={d.typed.pressureMax}
+                problem={d.problems.pressureMax}
+                inputMode="decimal"
+              />
+              <FilterField name="flowMin" label={`Pump flow from (${flow})`} typed={d.typed.flowMin} problem={d.problems.flowMin} inputMode="decimal" />
+              <FilterField name="flowMax" label={`Pump flow up to (${flow})`} typed={d.typed.flowMax} problem={d.problems.flowMax} inputMode="decimal" />
+            </div>
+          </details>
           <div className="flex items-end gap-3 sm:col-span-2 lg:col-span-4">
             <Button type="submit" tone="secondary">
               Apply

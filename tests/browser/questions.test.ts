@@ -48,10 +48,20 @@ describe("questions on a spec", () => {
     await expect.poll(() => shopPage.getByRole("link", { name: "Baler ram, main stroke" }).count()).toBe(0);
     await shot(shopPage, "1-open-specs-filtered");
 
+    // The size filters are folded until used; a refused one stays open with what was typed.
+    await shopPage.getByText("Filter by relief setting and pump flow").click();
     await shopPage.getByLabel("Relief setting from (bar)").fill("many");
     await shopPage.getByRole("button", { name: "Apply" }).click();
     await expect.poll(() => shopPage.getByRole("alert").textContent()).toContain("enter a number");
     expect(await shopPage.getByLabel("Relief setting from (bar)").inputValue()).toBe("many");
+
+    // On a phone the list starts on the first screen, below the filters.
+    await shopPage.setViewportSize({ width: 390, height: 844 });
+    await shopPage.goto("/open-specs");
+    await hydrated(shopPage);
+    const firstSpec = (await shopPage.getByRole("link", { name: "Coil car lift" }).boundingBox())!;
+    expect(firstSpec.y + firstSpec.height).toBeLessThanOrEqual(844);
+    await shopPage.setViewportSize({ width: 1280, height: 720 });
 
     await shopPage.getByRole("link", { name: "Coil car lift" }).click();
     await shopPage.waitForURL(`**/specs/${spec.id}`);

@@ -93,7 +93,8 @@ describe("bidding on a machine", () => {
     await buyerPage.waitForURL(`**/specs/${spec.id}/bids`);
     await hydrated(buyerPage);
     const comparison = buyerPage.getByTestId("comparison");
-    expect(await comparison.locator("[data-serves]").count()).toBe(machine.bom.length);
+    // Under load the address can change before the comparison has rendered: wait for its lines.
+    await expect.poll(() => comparison.locator("[data-serves]").count()).toBe(machine.bom.length);
     expect(await comparison.locator("[data-subtotal]").evaluateAll((rows) => rows.map((r) => r.getAttribute("data-subtotal")))).toEqual([
       "Power unit",
       "Clamp",

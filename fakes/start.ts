@@ -11,6 +11,7 @@ import { Sequelize } from "sequelize";
 import { clusterDirFor, ensureDatabase, isRunning, startCluster, stopCluster, type Cluster } from "../db/cluster";
 import { migrator } from "../db/migrator";
 import { DEMO_PASSWORD, DEMO_SIGN_INS, seedDemo } from "../db/seeds/demo";
+import { ROLE_LABELS } from "../app/auth/roles";
 import { run, serveBuild, stop } from "./processes";
 import { startStripeFake } from "./stripe";
 
@@ -119,7 +120,7 @@ Tenderflow is running.
   Card payments  ${stripeFake.url}  (Stripe fake: card 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD})
-${DEMO_SIGN_INS.map((u) => `  ${u.role.padEnd(16)} ${u.email.padEnd(30)} ${u.name}, ${u.organisation}`).join("\n")}
+${DEMO_SIGN_INS.map((u) => `  ${ROLE_LABELS[u.role].padEnd(18)} ${u.email.padEnd(30)} ${u.name}, ${u.organisation}`).join("\n")}
 
 Press Ctrl-C to stop.`);
 

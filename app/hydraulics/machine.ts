@@ -166,6 +166,12 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
         }
     : designs[0].reliefVent;
 
+  // How the pump rests while every valve blocks P: said on each valve whose centre the machine changed.
+  const neutralUnloading = plan
+    ? { reason: "the accumulator's charging valve unloads the pump once it is full", flow: "the pump unloads through the accumulator's charging valve" }
+    : choice.type === "compensated"
+      ? { reason: "the pump destrokes to its standby at the compensator", flow: "the compensated pump destrokes to its leakage" }
+      : { reason: "the relief is vented to unload the pump", flow: "the pump unloads through the vented relief" };
   const axes: MachineAxis[] = designs.map((d) => {
     const center = several ? parallelCentre(d.directionalValve.center) : d.directionalValve.center;
     const ownFlow = Math.max(...timeline.flatMap((p) => p.segments.filter((s) => s.axis === d.requirements.name && s.moving).map((s) => s.drawLpm)));
@@ -185,12 +191,15 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
       decompression: d.decompression,
       directionalValve:
         center === d.directionalValve.center
-          ? d.directionalValve
+          ? // On a shared pump the pump rests as the machine's does, not as the axis's own pump would.
+            several
+            ? { ...d.directionalValve, neutralPumpFlow: `blocked at every valve; ${neutralUnloading.flow}` }
+            : d.directionalValve
           : {
               ...d.directionalValve,
               center,
-              centerReason: `${center} centre: this valve shares the pump with the other axes' valves, so it blocks P in neutral (a ${d.directionalValve.center} centre would let the pump escape through it); the relief is vented to unload the pump`,
-              neutralPumpFlow: "blocked at every valve; the pump unloads through the vented relief",
+              centerReason: `${center} centre: this valve shares the pump with the other axes' valves, so it blocks P in neutral (a ${d.directionalValve.center} centre would let the pump escape through it); ${neutralUnloading.reason}`,
+              neutralPumpFlow: `blocked at every valve; ${neutralUnloading.flow}`,
             },
       lines: { capWork: d.lines.capWork, rodWork: d.lines.rodWork },
       speedControl: plan

@@ -213,6 +213,21 @@ describe("the machine's circuit", () => {
     );
   });
 
+  it("says how the pump rests in neutral as the design does it: a vented relief only where there is one", () => {
+    fc.assert(
+      fc.property(machineArb, (input) => {
+        const m = attempt(() => sizeMachine(input));
+        if (!m) return;
+        for (const a of m.axes) {
+          const said = `${a.directionalValve.centerReason} ${a.directionalValve.neutralPumpFlow}`;
+          if (/vented relief|relief is vented/.test(said)) expect(m.reliefVent).not.toBeNull();
+          if (m.accumulator && /shares the pump/.test(said)) expect(said).toMatch(/charging valve/);
+        }
+      }),
+      RUNS,
+    );
+  });
+
   it("bills the power unit once and every axis's own parts under its name", () => {
     fc.assert(
       fc.property(machineArb, (input) => {

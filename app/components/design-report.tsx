@@ -5,7 +5,7 @@ import { AxisRequirements } from "./axis-requirements";
 import { CircuitViewer } from "./circuit-viewer";
 import { CycleChart } from "./cycle-chart";
 import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "./design-panels";
-import { FoldedSection } from "./folded-section";
+import { FoldedSection, DetailLinks } from "./folded-section";
 import { MachineReport } from "./machine-report";
 import { MachineRequirements } from "./machine-requirements";
 import { Card } from "./ui";
@@ -34,14 +34,7 @@ export function DesignReport({ design, units, updating = false, componentsTitle 
           <span className="text-xs text-ink-400">{updating ? "Updating…" : `Engine ${design.engineVersion}`}</span>
         </div>
         <CircuitViewer design={design} units={units} />
-        <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
-          <a href="#bill" className="font-semibold text-flow-700 hover:underline">
-            {componentsTitle} ({design.bom.length} lines)
-          </a>
-          <a href="#calculation-trail" className="font-semibold text-flow-700 hover:underline">
-            How every number was reached
-          </a>
-        </p>
+        <DetailLinks componentsTitle={componentsTitle} bomLines={design.bom.length} />
       </Card>
       <KeySizes design={design} units={units} />
       <CycleChart cycle={design.cycle} units={units} />

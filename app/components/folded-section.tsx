@@ -46,3 +46,17 @@ export function FoldedSection({ id, title, summary, children }: { id: string; ti
     </Card>
   );
 }
+
+/** Under the diagram: one click to the folded bill and calculation trail further down. */
+export function DetailLinks({ componentsTitle, bomLines }: { componentsTitle: string; bomLines: number }) {
+  return (
+    <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
+      <a href="#bill" className="font-semibold text-flow-700 hover:underline">
+        {componentsTitle} ({bomLines} lines)
+      </a>
+      <a href="#calculation-trail" className="font-semibold text-flow-700 hover:underline">
+        How every number was reached
+      </a>
+    </p>
+  );
+}

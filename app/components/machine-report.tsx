@@ -7,7 +7,7 @@ import { centreName } from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
 import { CycleChart } from "./cycle-chart";
 import { CalculationTrail, CautionsPanel, ComponentTable, pumpInWords, WarningsList } from "./design-panels";
-import { FoldedSection } from "./folded-section";
+import { DetailLinks, FoldedSection } from "./folded-section";
 import { Card, Notice } from "./ui";
 
 /**
@@ -27,14 +27,7 @@ export function MachineReport({ design, units, updating = false, componentsTitle
           <span className="text-xs text-ink-400">{updating ? "Updating…" : `Engine ${design.engineVersion}`}</span>
         </div>
         <CircuitViewer circuit={design.circuit} units={units} />
-        <p className="mt-3 flex flex-wrap gap-x-4 gap-y-1 text-sm">
-          <a href="#bill" className="font-semibold text-flow-700 hover:underline">
-            {componentsTitle} ({design.bom.length} lines)
-          </a>
-          <a href="#calculation-trail" className="font-semibold text-flow-700 hover:underline">
-            How every number was reached
-          </a>
-        </p>
+        <DetailLinks componentsTitle={componentsTitle} bomLines={design.bom.length} />
       </Card>
       <section aria-labelledby="machine-axes-title">
         <h2 id="machine-axes-title" className="mb-3 font-semibold text-ink-900">

@@ -8,21 +8,8 @@ import { displayUnits } from "~/components/circuit-diagram/format";
 import { layoutMachine, pLinePort } from "~/components/circuit-diagram/machine-layout";
 import { meetings, routeConnections, type Route } from "~/components/circuit-diagram/routes";
 import { sizeMachine, type MachineDesign } from "~/hydraulics";
+import { CLAMP, FEED, PRESS } from "../support/machines";
 
-const H = { orientation: "horizontal", mounting: "fixed-pinned", frictionCoefficient: 0.1 } as const;
-const CLAMP = { ...H, name: "Clamp", massKg: 100, processForceN: 10_000, strokeMm: 50, extendSpeedMmS: 50, retractSpeedMmS: 100 };
-const PRESS = {
-  ...H,
-  name: "Press",
-  massKg: 500,
-  processForceN: 100_000,
-  strokeMm: 200,
-  extendSpeedMmS: 100,
-  pressStrokeMm: 20,
-  pressSpeedMmS: 10,
-  retractSpeedMmS: 150,
-};
-const FEED = { ...H, name: "Feed", massKg: 300, strokeMm: 500, extendSpeedMmS: 200, retractSpeedMmS: 200 };
 /** A 300 kN press: a 250 bar cylinder and a relief above the 160 bar a light clamp's cylinder is rated for. */
 const HEAVY_PRESS = { ...PRESS, name: "Heavy press", processForceN: 300_000 };
 /** A vertical ram whose load overruns on the way down: it gets a counterbalance valve. */

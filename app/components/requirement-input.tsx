@@ -12,6 +12,7 @@ export function RequirementInput({
   errors,
   onChange,
   idPrefix = "req",
+  name = field.key,
 }: {
   field: RequirementField;
   value: string | undefined;
@@ -19,6 +20,8 @@ export function RequirementInput({
   errors?: string[];
   onChange?: (value: string) => void;
   idPrefix?: string;
+  /** The control's form name: each axis of a machine needs its own, or their radio buttons would be one group. */
+  name?: string;
 }) {
   const id = `${idPrefix}-${field.key}`;
   const helpId = `${id}-help`;
@@ -39,7 +42,7 @@ export function RequirementInput({
           </p>
           <select
             id={id}
-            name={field.key}
+            name={name}
             {...(onChange
               ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onChange(e.target.value) }
               : { defaultValue: value ?? "" })}
@@ -73,7 +76,7 @@ export function RequirementInput({
             >
               <input
                 type="radio"
-                name={field.key}
+                name={name}
                 value={o.value}
                 {...(onChange ? { checked: (value ?? "") === o.value, onChange: () => onChange(o.value) } : { defaultChecked: (value ?? "") === o.value })}
                 className="mt-1 accent-flow-600"
@@ -106,7 +109,7 @@ export function RequirementInput({
       <div className="mt-1 flex rounded-md bg-white ring-1 ring-ink-200 focus-within:ring-2 focus-within:ring-flow-600 has-[[aria-invalid=true]]:ring-alarm-600">
         <input
           id={id}
-          name={field.key}
+          name={name}
           type="text"
           inputMode="decimal"
           autoComplete="off"

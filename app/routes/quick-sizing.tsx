@@ -94,6 +94,7 @@ export default function QuickSizing({ loaderData }: Route.ComponentProps) {
       value={values[index][key]}
       system={system}
       idPrefix={index === 0 ? "req" : `req-a${axes[index].key}`}
+      name={index === 0 ? key : `a${axes[index].key}-${key}`}
       errors={fieldMessages(key, (isMachineDuty(key) ? errors.machine : errors.axes[index])?.[key], system)}
       onChange={(text) => setTyped(index, key, text)}
     />

@@ -185,6 +185,9 @@ describe("quick sizing", () => {
     await second.getByLabel("Name of axis 2").fill("Clamp");
     // the clamp: a short, light horizontal stroke
     await second.getByLabel("Horizontal").check();
+    // each axis's choices are a group of their own: the clamp's orientation leaves the press's alone
+    expect(await second.getByLabel("Horizontal").isChecked()).toBe(true);
+    expect(await first.getByLabel("Vertical").isChecked()).toBe(true);
     await second.getByLabel("Stroke", { exact: true }).fill("50");
     await second.getByLabel("Moving mass", { exact: true }).fill("100");
     const report = page.locator("[data-machine-report]");

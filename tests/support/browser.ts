@@ -15,10 +15,11 @@ export interface BrowserApp {
   close(): Promise<void>;
 }
 
-export async function startBrowserApp(): Promise<BrowserApp> {
+/** A browser on the app: one test server, or the front door of several (`startServerPair`). */
+export async function startBrowserApp(server?: { baseUrl: string; close(): Promise<void> }): Promise<BrowserApp> {
   // Chromium itself is installed by the test setup (tests/setup/global-setup.ts).
   if (!existsSync(CHROMIUM)) throw new Error(`Browser tests need Debian's chromium at ${CHROMIUM}: sudo apt-get install -y chromium`);
-  const server = await startHttpApp();
+  server ??= await startHttpApp();
   const { baseUrl } = server;
   const browser = await chromium.launch({
     executablePath: CHROMIUM,

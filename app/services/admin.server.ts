@@ -3,6 +3,7 @@ import { ROLES_BY_KIND, type OrganisationKind, type Role } from "~/auth/roles";
 import type { Approval } from "~/content/shop-approval";
 import type { SortOf } from "~/schemas/list-sort";
 import { Organisation, User, UserSession, sequelize } from "~/models/index.server";
+import { recordAudit } from "./audit.server";
 import { FieldErrors, notFound } from "./errors.server";
 import { caseless, likePattern, pageCountOf, pageOf } from "./list-query.server";
 import { accountsWhere, authorize, viewerOf } from "~/auth/access-policy.server";
@@ -97,6 +98,8 @@ export async function listOrganisations(admin: User, query: ListQuery<SortOf<"or
 /** Changes to people and organisations are the admins' (the access policy's platform.administer). */
 const mayAdminister = async (user: User) => authorize(await viewerOf(user), "platform.administer", null);
 
+const userSubject = (user: User) => ({ type: "user" as const, id: user.id, label: `${user.name} (${user.email})` });
+
 async function userWithOrg(userId: string) {
   const user = await User.findByPk(userId, { include: [{ model: Organisation, as: "organisation" }] });
   if (!user?.organisation) notFound("No such user.");
@@ -119,7 +122,11 @@ export async function roleChangeTarget(admin: User, userId: string, role: Role) 
 /** A role must fit the user's organisation: operator staff switch between manager and admin. */
 export async function changeRole(admin: User, userId: string, role: Role) {
   const user = await roleChangeTarget(admin, userId, role);
-  await user.update({ role });
+  const before = user.role;
+  await sequelize.transaction(async (transaction) => {
+    await user.update({ role }, { transaction });
+    await recordAudit({ actor: admin, action: "role-changed", subject: userSubject(user), details: { from: before, to: role } }, transaction);
+  });
   return user;
 }
 
@@ -129,6 +136,7 @@ export async function setActive(admin: User, userId: string, active: boolean) {
   if (user.id === admin.id && !active) throw new FieldErrors({ active: ["You cannot deactivate yourself."] });
   await sequelize.transaction(async (transaction) => {
     await user.update({ active }, { transaction });
+    await recordAudit({ actor: admin, action: active ? "user-reactivated" : "user-deactivated", subject: userSubject(user) }, transaction);
     // Deactivated means signed out everywhere: reactivating later brings no old session back.
     if (!active) await UserSession.revokeAllOf(user.id, transaction);
   });
@@ -148,7 +156,19 @@ export async function assignAccountManager(admin: User, organisationId: string, 
     const manager = await User.findOne({ where: { id: managerId, role: "account_manager", active: true } });
     if (!manager) throw new FieldErrors({ managerId: ["Choose an active account manager."] });
   }
-  await organisation.update({ accountManagerId: managerId });
+  const manager = managerId ? await User.findByPk(managerId) : null;
+  await sequelize.transaction(async (transaction) => {
+    await organisation.update({ accountManagerId: managerId }, { transaction });
+    await recordAudit(
+      {
+        actor: admin,
+        action: "account-manager-assigned",
+        subject: { type: "organisation", id: organisation.id, label: organisation.name },
+        details: { manager: manager?.name ?? "Nobody" },
+      },
+      transaction,
+    );
+  });
 }
 
 /** The buyer accounts a viewer follows (the access policy's accountsWhere), in the order asked. */

@@ -1,7 +1,8 @@
 import type { Transaction } from "sequelize";
 import type { AuditAction, AuditSubjectType } from "~/content/audit-actions";
 import { AuditEvent, type AuditDetails } from "~/models/audit.server";
-import type { User } from "~/models/index.server";
+import { formatMoney } from "~/content/money";
+import type { Payment, Refund, User } from "~/models/index.server";
 
 // The audit log's one writer. Call it inside the transaction of the change it records (as
 // enqueueMail is), so an entry exists exactly when the change does; a sign-in, which changes
@@ -59,3 +60,17 @@ export async function recordAudit({ actor, action, subject, details }: AuditEntr
     { transaction },
   );
 }
+
+/** A payment as an audit subject: its amount and what it paid, as they were then. */
+export const paymentSubject = (payment: Pick<Payment, "id" | "amountCents" | "currency" | "jobId">): AuditSubject => ({
+  type: "payment",
+  id: payment.id,
+  label: `${formatMoney(payment.amountCents, payment.currency)} for job ${payment.jobId.slice(0, 8)}`,
+});
+
+/** A refund as an audit subject, named by its amount and the payment it pays back. */
+export const refundSubject = (refund: Pick<Refund, "id" | "amountCents">, payment: Pick<Payment, "amountCents" | "currency" | "jobId">): AuditSubject => ({
+  type: "refund",
+  id: refund.id,
+  label: `${formatMoney(refund.amountCents, payment.currency)} of ${formatMoney(payment.amountCents, payment.currency)} for job ${payment.jobId.slice(0, 8)}`,
+});

@@ -2,6 +2,8 @@ import { Op } from "sequelize";
 import { Bid, Job, Organisation, Spec, User, sequelize } from "~/models/index.server";
 import { can, jobsWhere, viewerOf } from "~/auth/access-policy.server";
 import { formatDay, todayUtc } from "~/content/dates";
+import { formatMoney } from "~/content/money";
+import { recordAudit } from "./audit.server";
 import { FieldErrors } from "./errors.server";
 import { specFor } from "./spec-access.server";
 import { enqueueMail } from "./mail.server";
@@ -27,6 +29,16 @@ export async function awardBid(user: User, specId: string | undefined, { bidId }
     const others = await Bid.findAll({ where: { specId: spec.id, id: { [Op.ne]: bid.id }, status: "submitted" }, transaction });
     await Bid.update({ status: "not_selected" }, { where: { id: others.map((o) => o.id) }, transaction });
     const job = await openJob(transaction, { spec, bid, awardedBy: user });
+    const shop = await Organisation.findByPk(bid.organisationId, { attributes: ["name"], transaction, rejectOnEmpty: true });
+    await recordAudit(
+      {
+        actor: user,
+        action: "bid-awarded",
+        subject: { type: "spec", id: spec.id, label: spec.title },
+        details: { shop: shop.name, total: formatMoney(bid.totalCents, bid.currency), jobId: job.id },
+      },
+      transaction,
+    );
 
     // Everyone who offered hears the outcome; the account manager hears of the new job.
     for (const offer of [bid, ...others]) {

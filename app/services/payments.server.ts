@@ -4,6 +4,7 @@ import { Job, Organisation, Payment, Refund, Spec, User, sequelize } from "~/mod
 import { formatMoney } from "~/content/money";
 import type { PaymentStatus } from "~/content/payment-status";
 import { env } from "~/env.server";
+import { recordAudit, refundSubject } from "./audit.server";
 import { FieldErrors, notFound } from "./errors.server";
 import { scopedJob } from "./job-reads.server";
 import { pageCountOf, pageOf } from "./list-query.server";
@@ -278,6 +279,7 @@ export async function requestRefund(user: User, paymentId: string | undefined, i
       { paymentId: payment.id, requestedById: user.id, amountCents, reason: input.reason, stripeRefundId: null, failureMessage: null, recordedAt: null },
       { transaction },
     );
+    await recordAudit({ actor: user, action: "refund-requested", subject: refundSubject(refund, payment), details: { reason: input.reason } }, transaction);
     return { payment, refund };
   });
   try {
@@ -294,6 +296,7 @@ export async function requestRefund(user: User, paymentId: string | undefined, i
   } catch (error) {
     if (!(error instanceof Stripe.errors.StripeError)) throw error;
     await refund.update({ status: "failed", failureMessage: error.message });
+    await recordAudit({ actor: "system", action: "refund-failed", subject: refundSubject(refund, payment), details: { answer: error.message } });
     throw new FieldErrors({ amount: [`The card service refused the refund: ${error.message}`] });
   }
   return { refund, payment };

@@ -2,6 +2,7 @@ import Stripe from "stripe";
 import type { Transaction } from "sequelize";
 import { Job, Organisation, type Payment, Refund, Spec, User } from "~/models/index.server";
 import { formatMoney } from "~/content/money";
+import { paymentSubject, recordAudit } from "./audit.server";
 import { enqueueMail } from "./mail.server";
 import { receiptMail, retainerReceivedMail, secondChargeToPayerMail, secondChargeToStaffMail } from "./mail-templates.server";
 import { recordRetainerReceived } from "./job-progress.server";
@@ -59,6 +60,7 @@ export async function settleCompletedSession(transaction: Transaction, payment: 
   const job = await Job.findByPk(payment.jobId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
   if (job.retainerPaidAt) return refundSecondCharge(transaction, payment, job, intentId!, paidAt);
   await payment.update({ status: "paid", paidAt, paymentIntentId: intentId, failureMessage: null }, { transaction });
+  await recordAudit({ actor: "system", action: "payment-paid", subject: paymentSubject(payment), details: { by: "card", reference: intentId } }, transaction);
   await recordRetainerReceived(transaction, {
     jobId: payment.jobId,
     paidById: payment.createdById,

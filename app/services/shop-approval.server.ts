@@ -2,6 +2,7 @@ import { Organisation, User, sequelize } from "~/models/index.server";
 import type { Approval } from "~/content/shop-approval";
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { authorize, viewerOf } from "~/auth/access-policy.server";
+import { recordAudit } from "./audit.server";
 import { enqueueMail } from "./mail.server";
 import { shopApprovedMail, shopRefusedMail } from "./mail-templates.server";
 
@@ -82,6 +83,15 @@ export async function decideShop(admin: User, organisationId: string, choice: Sh
     await shop.update(
       { approval: approving ? "approved" : "refused", approvalReason: reason, approvalDecidedById: admin.id, approvalDecidedAt: new Date() },
       { transaction },
+    );
+    await recordAudit(
+      {
+        actor: admin,
+        action: approving ? "shop-approved" : "shop-refused",
+        subject: { type: "organisation", id: shop.id, label: shop.name },
+        details: reason ? { reason } : {},
+      },
+      transaction,
     );
     const people = await User.findAll({ where: { organisationId: shop.id, active: true }, order: [["email", "ASC"]], transaction });
     for (const person of people) {

@@ -4,6 +4,7 @@ import { z } from "zod";
 import { Job, JobEvent, Payment, Refund, Spec, StripeEvent, User, sequelize } from "~/models/index.server";
 import { enqueueMail } from "./mail.server";
 import { refundToPayerMail, refundToShopMail } from "./mail-templates.server";
+import { recordAudit, refundSubject } from "./audit.server";
 import { flagPayment, idOf, moneyMismatch, settleCompletedSession } from "./retainer-settlement.server";
 
 // Stripe's webhook events, each applied once. The event id is the primary key of
@@ -97,6 +98,7 @@ async function chargeRefunded(charge: z.infer<typeof chargeShape>, transaction: 
     if (covered + refund.amountCents > refunded) break;
     covered += refund.amountCents;
     await refund.update({ status: "recorded", recordedAt: new Date() }, { transaction });
+    await recordAudit({ actor: "system", action: "refund-settled", subject: refundSubject(refund, payment) }, transaction);
   }
   // A second charge paid back is not the job's retainer: the job and the shop are left alone.
   if (payment.duplicate) return `refunded ${newly} of a second charge`;

@@ -4,7 +4,13 @@ import { describe, expect, it } from "vitest";
 import { AuditEvent } from "~/models/audit.server";
 import { Organisation, User, sequelize } from "~/models/index.server";
 import { recordAudit } from "~/services/audit.server";
-import { makeMember, makeOperatorUser } from "../support/factories";
+import * as signIn from "~/routes/sign-in";
+import * as adminUsers from "~/routes/admin.users";
+import * as adminOrgs from "~/routes/admin.organisations";
+import { awardedJob } from "../support/awards";
+import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
+import { Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
 
 describe("recordAudit", () => {
   it("keeps the names it was given when the people and records change or go", async () => {
@@ -49,5 +55,54 @@ describe("recordAudit", () => {
     expect(entry.actorEmail).not.toContain("\u0000");
     expect(entry.actorId).toBeNull();
     expect(String(entry.details.reason)).toHaveLength(300);
+  });
+});
+
+/** The entries about one subject or actor, oldest first, as action names. */
+const actionsOn = async (where: Record<string, string>) => (await AuditEvent.findAll({ where, order: [["at", "ASC"]] })).map((e) => e.action);
+
+describe("what the audit log records", () => {
+  it("a sign-in, and a failed one with the address typed but never the password", async () => {
+    const buyer = await makeMember("buyer");
+    await signedIn(buyer);
+    expect(await actionsOn({ actorId: buyer.id })).toEqual(["sign-in"]);
+    const res = await new Visitor().post(signIn.action, "/sign-in", { email: buyer.email, password: "a-wrong-password-here" });
+    expect(res.status).toBe(400);
+    const failed = await AuditEvent.findOne({ where: { action: "sign-in-failed", actorEmail: buyer.email }, rejectOnEmpty: true });
+    expect(failed.actorId).toBeNull();
+    expect(JSON.stringify(failed.toJSON())).not.toContain("a-wrong-password-here");
+  });
+
+  it("role changes, deactivations, assignments and shop decisions, by the admin who made them", async () => {
+    const admin = await makeOperatorUser("admin");
+    const visitor = await signedIn(admin);
+    const manager = await makeOperatorUser("account_manager");
+    const change = { intent: "change-role", userId: manager.id, role: "admin", confirm: "yes", currentPassword: PASSWORD };
+    expect((await visitor.post(adminUsers.action, "/admin/users", change)).status).toBe(302);
+    expect((await visitor.post(adminUsers.action, "/admin/users", { intent: "set-active", userId: manager.id, active: "false" })).status).toBe(302);
+    expect(await actionsOn({ subjectId: manager.id })).toEqual(["role-changed", "user-deactivated"]);
+    const role = await AuditEvent.findOne({ where: { subjectId: manager.id, action: "role-changed" }, rejectOnEmpty: true });
+    expect(role).toMatchObject({ actorId: admin.id, details: { from: "account_manager", to: "admin" } });
+
+    const shop = await makeMember("shop", { pending: true });
+    const refuse = { intent: "refuse", organisationId: shop.organisationId, reason: "Not a fluid-power business" };
+    expect((await visitor.post(adminOrgs.action, "/admin/organisations", refuse)).status).toBe(302);
+    expect((await visitor.post(adminOrgs.action, "/admin/organisations", { intent: "approve", organisationId: shop.organisationId })).status).toBe(302);
+    expect(await actionsOn({ subjectId: shop.organisationId })).toEqual(["shop-refused", "shop-approved"]);
+
+    const buyer = await makeMember("buyer");
+    const other = await makeOperatorUser("account_manager");
+    const assign = { organisationId: buyer.organisationId, managerId: other.id };
+    expect((await visitor.post(adminOrgs.action, "/admin/organisations", assign)).status).toBe(302);
+    const assigned = await AuditEvent.findOne({ where: { subjectId: buyer.organisationId }, rejectOnEmpty: true });
+    expect(assigned).toMatchObject({ action: "account-manager-assigned", details: { manager: other.name } });
+  });
+
+  it("an award, by the buyer, with the shop and the price", async () => {
+    const buyer = await makeMember("buyer");
+    const shop = await makeMember("shop", { organisationName: "Harrow Hydraulics" });
+    const job = await awardedJob(buyer, shop);
+    const award = await AuditEvent.findOne({ where: { action: "bid-awarded", subjectId: job.specId }, rejectOnEmpty: true });
+    expect(award).toMatchObject({ actorId: buyer.id, details: { shop: "Harrow Hydraulics", jobId: job.id } });
   });
 });

@@ -6,6 +6,7 @@ import { junctions, routeConnections } from "~/components/circuit-diagram/routes
 import type { CircuitComponent } from "~/hydraulics/design";
 import { sizeCircuit, type Design } from "~/hydraulics/index";
 import { dcvPositions } from "~/hydraulics/valves";
+import { HANGING_PRESS, LONG_FEED } from "../support/hydraulics";
 
 // Three axes that exercise the three circuit shapes: no counterbalance valve, one on the rod
 // side (the load pulls the rod out), one on the cap side (the load pushes the rod in).
@@ -203,19 +204,6 @@ describe("CircuitDiagram", () => {
 
 // ---- Every component a design calls for -------------------------------------------------------
 
-const pressing = {
-  ...duty,
-  strokeMm: 1000,
-  extendSpeedMmS: 200,
-  retractSpeedMmS: 200,
-  orientation: "vertical",
-  rodDirection: "down",
-  massKg: 2000,
-  processForceN: 150000,
-  pressStrokeMm: 50,
-  pressSpeedMmS: 10,
-  dwellS: 2,
-} as const;
 const held = sizeCircuit({ ...duty, orientation: "vertical", rodDirection: "down", massKg: 1200, processForceN: 60000, holdMinutes: 30 });
 const heldBoth = sizeCircuit({ ...duty, orientation: "horizontal", massKg: 500, holdMinutes: 30 });
 const hot = sizeCircuit({
@@ -228,23 +216,11 @@ const hot = sizeCircuit({
   hoursPerDay: 16,
   ambientC: 40,
 });
-const double = sizeCircuit({ ...pressing, pumpType: "double" });
-const compensated = sizeCircuit({ ...pressing, pumpType: "compensated" });
-const fixedPress = sizeCircuit({ ...pressing, orientation: "horizontal", massKg: 500, pumpType: "fixed" });
+const double = sizeCircuit({ ...HANGING_PRESS, pumpType: "double" });
+const compensated = sizeCircuit({ ...HANGING_PRESS, pumpType: "compensated" });
+const fixedPress = sizeCircuit({ ...HANGING_PRESS, orientation: "horizontal", massKg: 500, pumpType: "fixed" });
 /** 1.6 m horizontal feed, 50 kN at the end, 200 mm/s both ways: it regenerates, ended by a pressure switch (regenerative.test.ts). */
-const longFeed = sizeCircuit({
-  orientation: "horizontal",
-  massKg: 500,
-  processForceN: 50_000,
-  strokeMm: 1600,
-  extendSpeedMmS: 200,
-  retractSpeedMmS: 200,
-  mounting: "fixed-pinned",
-  mountingStyle: "rear-flange",
-  cyclesPerHour: 60,
-  hoursPerDay: 8,
-  supplyHz: 50,
-});
+const longFeed = sizeCircuit(LONG_FEED);
 const ALL = { feed, press, lift, held, heldBoth, hot, double, compensated, fixedPress, longFeed };
 
 /**

@@ -4,24 +4,10 @@ import { CycleChart, PHASE_NAMES } from "~/components/cycle-chart";
 import { DesignReport } from "~/components/design-report";
 import { sizeCircuit, type Design } from "~/hydraulics";
 import { formatQuantity } from "~/units";
+import { REFERENCE_PRESS } from "../support/hydraulics";
 
 // A two-speed press with a double pump and a dwell, 30 cycles an hour: every phase, a long idle.
-const press = sizeCircuit({
-  orientation: "horizontal",
-  massKg: 500,
-  processForceN: 100_000,
-  strokeMm: 400,
-  extendSpeedMmS: 200,
-  retractSpeedMmS: 200,
-  pressStrokeMm: 20,
-  pressSpeedMmS: 10,
-  dwellS: 3,
-  mounting: "fixed-fixed",
-  cyclesPerHour: 30,
-  hoursPerDay: 8,
-  supplyHz: 50,
-  pumpType: "double",
-});
+const press = sizeCircuit({ ...REFERENCE_PRESS, dwellS: 3, cyclesPerHour: 30, pumpType: "double" });
 const cycle = press.cycle!;
 
 const count = (html: string, pattern: RegExp) => [...html.matchAll(pattern)].length;

@@ -4,6 +4,7 @@ import { describe, expect, it } from "vitest";
 import { CalculationTrail, CautionsPanel, ComponentTable, KeySizes, WarningsList } from "~/components/design-panels";
 import { CIRCUIT_CAUTIONS } from "~/content/cautions";
 import { sizeCircuit } from "~/hydraulics/index";
+import { REFERENCE_PRESS } from "../support/hydraulics";
 
 const duty = { strokeMm: 400, extendSpeedMmS: 100, retractSpeedMmS: 150, mounting: "fixed-pinned", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50 } as const;
 const press = sizeCircuit({ ...duty, orientation: "vertical", rodDirection: "down", massKg: 1200, processForceN: 60000 });
@@ -114,23 +115,11 @@ describe("KeySizes", () => {
 
 describe("KeySizes names the pump a shop prices", () => {
   it("says fixed, compensated or double, with each section of a double pump", () => {
-    const pressing = {
-      ...duty,
-      orientation: "horizontal",
-      massKg: 500,
-      processForceN: 100_000,
-      strokeMm: 400,
-      extendSpeedMmS: 200,
-      retractSpeedMmS: 200,
-      pressStrokeMm: 20,
-      pressSpeedMmS: 10,
-      mounting: "fixed-fixed",
-    } as const;
     expect(renderToStaticMarkup(<KeySizes design={feed} />)).toContain(`fixed pump, ${feed.pump.displacementCcRev} cm³/rev`);
-    const double = sizeCircuit({ ...pressing, pumpType: "double" });
+    const double = sizeCircuit({ ...REFERENCE_PRESS, pumpType: "double" });
     expect(double.pump.type).toBe("double");
     const [large, small] = double.pump.displacementsCcRev;
     expect(renderToStaticMarkup(<KeySizes design={double} />)).toContain(`double pump, ${large} cm³/rev + ${small} cm³/rev`);
-    expect(renderToStaticMarkup(<KeySizes design={sizeCircuit({ ...pressing, pumpType: "compensated" })} />)).toContain("compensated pump, ");
+    expect(renderToStaticMarkup(<KeySizes design={sizeCircuit({ ...REFERENCE_PRESS, pumpType: "compensated" })} />)).toContain("compensated pump, ");
   });
 });

@@ -1,4 +1,5 @@
 import type { Circuit, CircuitConnection } from "~/hydraulics/design";
+import { oilNets } from "~/hydraulics/port-nets";
 import type { Anchor, Layout, Point } from "./layout";
 
 /** What routing reads of a circuit: an axis's or a machine's alike. */
@@ -32,20 +33,6 @@ export function orthogonal(a: Anchor, b: Anchor): Point[] {
 }
 
 const componentOf = (ref: string) => ref.slice(0, ref.indexOf("."));
-
-/** Ports joined by non-pilot lines, directly or through a chain, share a net. */
-function netsOf(circuit: Net): (port: string) => string {
-  const parent = new Map<string, string>();
-  const find = (x: string): string => {
-    const p = parent.get(x) ?? x;
-    if (p === x) return x;
-    const root = find(p);
-    parent.set(x, root);
-    return root;
-  };
-  for (const c of circuit.connections) if (c.line !== "pilot" && c.line !== "shaft") parent.set(find(c.from), find(c.to));
-  return find;
-}
 
 /**
  * Where a line leaving `a` straight in its direction first meets a drawn line of the net
@@ -82,7 +69,7 @@ function teePoint(a: Anchor, net: string, drawn: Route[], netOf: (port: string) 
  */
 export function routeConnections(circuit: Net, layout: Layout): Route[] {
   const tankIds = new Set(circuit.components.filter((c) => c.kind === "tank").map((c) => c.id));
-  const netOf = netsOf(circuit);
+  const netOf = oilNets(circuit);
   const routes = new Map<CircuitConnection, Route>();
   const taps: CircuitConnection[] = [];
   for (const connection of circuit.connections) {

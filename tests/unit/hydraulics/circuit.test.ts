@@ -5,37 +5,10 @@
  */
 import { describe, expect, it } from "vitest";
 import { sizeCircuit, type Design, type RequirementsInput } from "~/hydraulics";
+import { oilNets } from "~/hydraulics/port-nets";
+import { HANGING_PRESS, LONG_FEED } from "../../support/hydraulics";
 
 const DUTY = { strokeMm: 400, extendSpeedMmS: 100, retractSpeedMmS: 150, mounting: "fixed-pinned", cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50 } as const;
-/** The press: 2 t platen hanging from the rod, 150 kN over the last 50 mm, fast approach. */
-const PRESS = {
-  ...DUTY,
-  strokeMm: 1000,
-  extendSpeedMmS: 200,
-  retractSpeedMmS: 200,
-  orientation: "vertical",
-  rodDirection: "down",
-  massKg: 2000,
-  processForceN: 150000,
-  pressStrokeMm: 50,
-  pressSpeedMmS: 10,
-  dwellS: 2,
-} as const;
-
-/** 1.6 m horizontal feed, 50 kN at the end of the stroke, 200 mm/s both ways: it regenerates (regenerative.test.ts). */
-const LONG_FEED = {
-  orientation: "horizontal",
-  massKg: 500,
-  processForceN: 50_000,
-  strokeMm: 1600,
-  extendSpeedMmS: 200,
-  retractSpeedMmS: 200,
-  mounting: "fixed-pinned",
-  mountingStyle: "rear-flange",
-  cyclesPerHour: 60,
-  hoursPerDay: 8,
-  supplyHz: 50,
-} as const;
 
 /** Axes that really call for each part, through the engine's own rules. */
 const AXES = {
@@ -46,9 +19,10 @@ const AXES = {
   "a slide held in place for 30 min": { ...DUTY, orientation: "horizontal", massKg: 500, holdMinutes: 30 },
   // a hot duty: long dwell at force, many cycles, warm shop
   "a hot press": { ...DUTY, orientation: "horizontal", massKg: 800, processForceN: 80000, dwellS: 20, cyclesPerHour: 120, hoursPerDay: 16, ambientC: 40 },
-  "the press with a double pump": { ...PRESS, pumpType: "double" },
-  "the press with a compensated pump": { ...PRESS, pumpType: "compensated" },
-  "a horizontal press with a fixed pump": { ...PRESS, orientation: "horizontal", massKg: 500, pumpType: "fixed" },
+  // the press: 2 t platen hanging from the rod, 150 kN over the last 50 mm, fast approach
+  "the press with a double pump": { ...HANGING_PRESS, pumpType: "double" },
+  "the press with a compensated pump": { ...HANGING_PRESS, pumpType: "compensated" },
+  "a horizontal press with a fixed pump": { ...HANGING_PRESS, orientation: "horizontal", massKg: 500, pumpType: "fixed" },
   // regenerating (see regenerative.test.ts): a long feed with its force at the end of the stroke
   // (a pressure switch ends the approach), the same with a 20 mm pressing stroke (the limit switch
   // does), and the feed clamped for 30 min (a cap-end check beside the regeneration valve)
@@ -59,19 +33,8 @@ const AXES = {
 const designs = Object.entries(AXES).map(([name, req]) => [name, sizeCircuit(req)] as const);
 const design = (name: keyof typeof AXES) => designs.find(([n]) => n === name)![1];
 
-/** Ports joined by lines other than pilots, directly or through a chain, share a net. */
-function nets(d: Design) {
-  const parent = new Map<string, string>();
-  const find = (x: string): string => {
-    const p = parent.get(x) ?? x;
-    if (p === x) return x;
-    const root = find(p);
-    parent.set(x, root);
-    return root;
-  };
-  for (const c of d.circuit.connections) if (c.line !== "pilot" && c.line !== "shaft") parent.set(find(c.from), find(c.to));
-  return find;
-}
+/** Ports joined by lines other than pilots and shafts, directly or through a chain, share a net. */
+const nets = (d: Design) => oilNets(d.circuit);
 const component = (d: Design, id: string) => d.circuit.components.find((c) => c.id === id);
 const pilotInto = (d: Design, port: string) => {
   const pilot = d.circuit.connections.find((c) => c.line === "pilot" && (c.to === port || c.from === port));

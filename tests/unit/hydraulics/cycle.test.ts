@@ -7,20 +7,12 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { NotSizableError, sizeCircuit, type Design, type RequirementsInput } from "~/hydraulics";
+import { sizeCircuit, type Design } from "~/hydraulics";
 import { cycleOf, type CyclePhase, type CyclePumpPhases } from "~/hydraulics/cycle";
+import { REFERENCE_PRESS, sizedOrNull } from "../../support/hydraulics";
 import { pressAxisArb, requirementsArb } from "./arbitraries";
 
 const close = (a: number, b: number, rel = 1e-9) => Math.abs(a - b) <= rel * Math.max(1, Math.abs(a), Math.abs(b));
-
-function sized(req: RequirementsInput): Design | null {
-  try {
-    return sizeCircuit(req);
-  } catch (e) {
-    if (e instanceof NotSizableError) return null;
-    throw e;
-  }
-}
 
 const phaseOf = (d: Design, name: CyclePhase["phase"]) => d.cycle!.find((ph) => ph.phase === name);
 /** A sized design's pump phases as its own cycle reports them (pressure, delivery, p·Q/600). */
@@ -147,23 +139,7 @@ function checkCycle(d: Design): void {
 describe("worked example — the shared sources' two-speed press with a double (high-low) pump", () => {
   // Horizontal, 500 kg, 100 kN over the last 20 mm of a 400 mm stroke at 10 mm/s, approach and
   // return 200 mm/s, a 3 s dwell, 60 cycles/h, 50 Hz; a double pump asked for.
-  const d = sizeCircuit({
-    orientation: "horizontal",
-    massKg: 500,
-    processForceN: 100_000,
-    strokeMm: 400,
-    extendSpeedMmS: 200,
-    retractSpeedMmS: 200,
-    pressStrokeMm: 20,
-    pressSpeedMmS: 10,
-    dwellS: 3,
-    mounting: "fixed-fixed",
-    mountingStyle: "front-flange",
-    cyclesPerHour: 60,
-    hoursPerDay: 8,
-    supplyHz: 50,
-    pumpType: "double",
-  });
+  const d = sizeCircuit({ ...REFERENCE_PRESS, dwellS: 3, mountingStyle: "front-flange", pumpType: "double" });
   const cycle = d.cycle!;
 
   it("lists approach, pressing, dwell, return and neutral in time order, filling the 60 s cycle", () => {
@@ -252,21 +228,7 @@ describe("worked example — the shared sources' two-speed press with a double (
 });
 
 describe("each pump type on the same press (sources: fixed, high-low and compensated pumps)", () => {
-  const base = {
-    orientation: "horizontal",
-    massKg: 500,
-    processForceN: 100_000,
-    strokeMm: 400,
-    extendSpeedMmS: 200,
-    retractSpeedMmS: 200,
-    pressStrokeMm: 20,
-    pressSpeedMmS: 10,
-    dwellS: 3,
-    mounting: "fixed-fixed",
-    cyclesPerHour: 60,
-    hoursPerDay: 8,
-    supplyHz: 50,
-  } as const;
+  const base = { ...REFERENCE_PRESS, dwellS: 3 } as const;
 
   it("a fixed pump delivers its whole flow over the relief while pressing and dwelling", () => {
     const d = sizeCircuit({ ...base, pumpType: "fixed" });
@@ -294,22 +256,7 @@ describe("the cycle reads the pump choice's phases (engine 2.11: one source per 
   it("a double pump whose small section gives the pressing speed presses at exactly the pressing pressure with Q_S", () => {
     // 11.5 mm/s on the 100 bore is 5.42 L/min; the 4 cm³/rev section gives 4 · 1450 · 0.95 / 1000 = 5.51 L/min,
     // within 10 % (our convention), so no flow control: it pumps straight into the cap end (high-low circuit texts)
-    const d = sizeCircuit({
-      orientation: "horizontal",
-      massKg: 500,
-      processForceN: 100_000,
-      strokeMm: 400,
-      extendSpeedMmS: 200,
-      retractSpeedMmS: 200,
-      pressStrokeMm: 20,
-      pressSpeedMmS: 11.5,
-      dwellS: 3,
-      mounting: "fixed-fixed",
-      cyclesPerHour: 60,
-      hoursPerDay: 8,
-      supplyHz: 50,
-      pumpType: "double",
-    });
+    const d = sizeCircuit({ ...REFERENCE_PRESS, pressSpeedMmS: 11.5, dwellS: 3, pumpType: "double" });
     expect(d.pressSpeedControl).toBeNull();
     const p = phaseOf(d, "pressing")!;
     // the same number, not one read back from the motor's power (which came back a rounding off it)
@@ -323,20 +270,7 @@ describe("the cycle reads the pump choice's phases (engine 2.11: one source per 
 
 describe("a regenerative approach draws A_rod·v from the pump (regeneration course notes, v = Q_p / A_rod)", () => {
   it("feeds 60 L/min for the sources' 100/70 cylinder at 0.260 m/s, not the 122.4 L/min the cap end takes", () => {
-    const d = sizeCircuit({
-      orientation: "horizontal",
-      massKg: 500,
-      processForceN: 100_000,
-      strokeMm: 400,
-      extendSpeedMmS: 200,
-      retractSpeedMmS: 200,
-      pressStrokeMm: 20,
-      pressSpeedMmS: 10,
-      mounting: "fixed-fixed",
-      cyclesPerHour: 60,
-      hoursPerDay: 8,
-      supplyHz: 50,
-    });
+    const d = sizeCircuit(REFERENCE_PRESS);
     // The sources' 100/70 cylinder: A1 = 7853.98 mm², A_rod = 3848.45 mm², A3 = 4005.53 mm² (circle areas)
     const capAreaMm2 = (Math.PI * 100 ** 2) / 4,
       rodAreaMm2 = (Math.PI * 70 ** 2) / 4;
@@ -400,7 +334,7 @@ describe("properties over random axes", () => {
   it("every axis: continuity, P = p·Q/600, the pump covers the demand, the motor covers the phases", () => {
     fc.assert(
       fc.property(requirementsArb, (req) => {
-        const d = sized(req);
+        const d = sizedOrNull(req);
         fc.pre(d !== null);
         checkCycle(d!);
       }),
@@ -411,7 +345,7 @@ describe("properties over random axes", () => {
   it("every pressing axis with any pump", () => {
     fc.assert(
       fc.property(pressAxisArb, (req) => {
-        const d = sized(req);
+        const d = sizedOrNull(req);
         fc.pre(d !== null);
         checkCycle(d!);
       }),

@@ -7,6 +7,7 @@
 import { describe, expect, it } from "vitest";
 import { sizeCircuit } from "~/hydraulics";
 import { extensionTimes, phaseFlowLpm } from "~/hydraulics/phases";
+import { REFERENCE_PRESS } from "../../support/hydraulics";
 
 const A1_100 = (Math.PI * 100 ** 2) / 4; // 7853.98 mm², circle area [D]
 
@@ -29,21 +30,10 @@ describe("flows and times per phase (continuity, Q = A·v)", () => {
 describe("worked example — the reference press axis with a 20 mm pressing stroke", () => {
   // Horizontal, m = 500 kg, μ = 0.1 (default), 100 kN process force, stroke 400 mm, approach
   // 200 mm/s, pressing the last 20 mm at 10 mm/s, retract 200 mm/s, 60 cycles/h, 50 Hz.
-  const base = {
-    orientation: "horizontal",
-    massKg: 500,
-    processForceN: 100_000,
-    strokeMm: 400,
-    extendSpeedMmS: 200,
-    retractSpeedMmS: 200,
-    mounting: "fixed-fixed",
-    mountingStyle: "front-flange",
-    cyclesPerHour: 60,
-    hoursPerDay: 8,
-    supplyHz: 50,
-  } as const;
+  // `base` is the reference press without its pressing stroke, as version 1 sized it.
+  const { pressStrokeMm, pressSpeedMmS, ...base } = { ...REFERENCE_PRESS, mountingStyle: "front-flange" } as const;
   // A fixed pump is asked for here; the pump choice has its own worked examples.
-  const d = sizeCircuit({ ...base, pressStrokeMm: 20, pressSpeedMmS: 10, pumpType: "fixed" });
+  const d = sizeCircuit({ ...base, pressStrokeMm, pressSpeedMmS, pumpType: "fixed" });
   const v1 = sizeCircuit(base);
 
   it("chooses the 100 mm bore the pressing force needs (textbook F = η·p·A)", () => {

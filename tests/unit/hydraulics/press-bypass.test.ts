@@ -13,23 +13,10 @@ import { evaluateCandidate, sizingContext } from "~/hydraulics/evaluate";
 import { DEFAULT_FLUID, lineLossBar } from "~/hydraulics/lines";
 import { pressBypassDropBar } from "~/hydraulics/press-speed";
 import { parseRequirements } from "~/hydraulics/requirements";
+import { REFERENCE_PRESS } from "../../support/hydraulics";
 
 // The shared sources' two-speed press: 100 kN over the last 20 mm of a 400 mm stroke, approach 200 mm/s.
-const PRESS: RequirementsInput = {
-  orientation: "horizontal",
-  massKg: 500,
-  processForceN: 100_000,
-  strokeMm: 400,
-  extendSpeedMmS: 200,
-  retractSpeedMmS: 200,
-  pressStrokeMm: 20,
-  pressSpeedMmS: 10,
-  dwellS: 3,
-  mounting: "fixed-fixed",
-  cyclesPerHour: 60,
-  hoursPerDay: 8,
-  supplyHz: 50,
-};
+const PRESS: RequirementsInput = { ...REFERENCE_PRESS, dwellS: 3 };
 
 /** The design's own cylinder evaluated again, to see its losses term by term. */
 function evaluationOf(req: RequirementsInput, d: Design) {

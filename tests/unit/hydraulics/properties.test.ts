@@ -5,23 +5,16 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { NotSizableError, sizeCircuit as sizeOrThrow, type Design, type RequirementsInput } from "~/hydraulics";
+import type { Design, RequirementsInput } from "~/hydraulics";
+import { portNets } from "~/hydraulics/port-nets";
+import { sizedOrNull } from "../../support/hydraulics";
 import { pressAxisArb, requirementsArb } from "./arbitraries";
 
 const RUNS = { numRuns: 300 };
 
-/** The design, or null where nothing in the series meets the pressures (NotSizableError says why). */
-function sized(req: RequirementsInput): Design | null {
-  try {
-    return sizeOrThrow(req);
-  } catch (e) {
-    if (e instanceof NotSizableError) return null;
-    throw e;
-  }
-}
 /** For properties of every design: axes nothing can size are left out by fast-check. */
 function sizeCircuit(req: RequirementsInput): Design {
-  const d = sized(req);
+  const d = sizedOrNull(req);
   fc.pre(d !== null);
   return d!;
 }
@@ -31,8 +24,8 @@ describe("monotonic sizing", () => {
   it("a heavier load never gets a smaller bore", () => {
     fc.assert(
       fc.property(requirementsArb, fc.double({ min: 1, max: 3, noNaN: true }), (req, factor) => {
-        const light = sized(req);
-        const heavy = sized({ ...req, massKg: Math.min(500000, req.massKg * factor + 1) });
+        const light = sizedOrNull(req);
+        const heavy = sizedOrNull({ ...req, massKg: Math.min(500000, req.massKg * factor + 1) });
         if (!light) {
           expect(heavy).toBeNull();
           return;
@@ -57,8 +50,8 @@ describe("monotonic sizing", () => {
     fc.assert(
       fc.property(requirementsArb, fc.double({ min: 1, max: 3, noNaN: true }), fc.boolean(), (req, factor, extend) => {
         const key = extend ? "extendSpeedMmS" : "retractSpeedMmS";
-        const slow = sized(req);
-        const fast = sized({ ...req, [key]: Math.min(2000, req[key] * factor) });
+        const slow = sizedOrNull(req);
+        const fast = sizedOrNull({ ...req, [key]: Math.min(2000, req[key] * factor) });
         if (!slow || !fast) return;
         if (extend && fast.cylinder.boreMm >= slow.cylinder.boreMm) {
           expect(fast.flowsLpm.extend).toBeGreaterThanOrEqual(slow.flowsLpm.extend * (1 - 1e-12));
@@ -75,8 +68,8 @@ describe("monotonic sizing the sizing contract names", () => {
   it("a higher allowed pressure never gives a larger bore (both series searched together)", () => {
     fc.assert(
       fc.property(fc.oneof(requirementsArb, pressAxisArb), fc.double({ min: 1, max: 3, noNaN: true }), (req, factor) => {
-        const low = sized(req);
-        const high = sized({ ...req, maxPressureBar: Math.min(250, (req.maxPressureBar ?? 160) * factor) });
+        const low = sizedOrNull(req);
+        const high = sizedOrNull({ ...req, maxPressureBar: Math.min(250, (req.maxPressureBar ?? 160) * factor) });
         if (!high) {
           expect(low).toBeNull();
           return;
@@ -176,8 +169,8 @@ describe("a slower approach never a larger pump (sizing contract)", () => {
   it("over random axes, with and without a pressing stroke, whatever bore each gets (continuity Q = A·v [D])", () => {
     fc.assert(
       fc.property(fc.oneof(requirementsArb, pressAxisArb), fc.double({ min: 0.2, max: 1, noNaN: true }), (req, k) => {
-        const a = sized(req);
-        const b = sized(slowerBy(req, k));
+        const a = sizedOrNull(req);
+        const b = sizedOrNull(slowerBy(req, k));
         if (!a || !b) return;
         // Left out: the slower axis taking the thinner rod of the same bore, which the faster one failed (buckling
         // under a higher relief). The search takes the lighter cylinder before the smaller pump (its stated order:
@@ -467,24 +460,11 @@ describe("consistency of every design", () => {
 describe("the circuit as data (trade facts, common practice)", () => {
   /** Joins ports that are connected, directly or through a chain, into nets. */
   function nets(d: Design) {
-    const parent = new Map<string, string>();
-    const find = (x: string): string => {
-      const p = parent.get(x) ?? x;
-      if (p === x) return x;
-      const root = find(p);
-      parent.set(x, root);
-      return root;
-    };
-    for (const c of d.circuit.connections) {
-      if (c.line === "pilot") continue;
-      parent.set(find(c.from), find(c.to));
-    }
+    const lines = d.circuit.connections.filter((c) => c.line !== "pilot").map((c) => [c.from, c.to] as const);
     // A solenoid valve in a work line (the regeneration valve) passes oil through its
     // de-energised position in normal work: 1 ↔ 2 joins the rod port to valve port B.
-    for (const comp of d.circuit.components) {
-      for (const [a, b] of comp.positions?.normal ?? []) parent.set(find(`${comp.id}.${a}`), find(`${comp.id}.${b}`));
-    }
-    return find;
+    const through = d.circuit.components.flatMap((comp) => (comp.positions?.normal ?? []).map(([a, b]) => [`${comp.id}.${a}`, `${comp.id}.${b}`] as const));
+    return portNets([...lines, ...through]);
   }
 
   it("connections reference existing components and ports", () => {

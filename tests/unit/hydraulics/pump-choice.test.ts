@@ -6,9 +6,10 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { NotSizableError, sizeCircuit, type Design, type RequirementsInput } from "~/hydraulics";
+import { sizeCircuit } from "~/hydraulics";
 import { choosePump, compensatedReliefBar, highLowPowerKw, pumpPhaseInNeutral, unloadingSettingBar, type PhaseDemand } from "~/hydraulics/pump-choice";
 import { hydraulicPowerKw, selectMotorKw } from "~/hydraulics/pump-motor";
+import { sizedOrNull } from "../../support/hydraulics";
 import { pressAxisArb } from "./arbitraries";
 
 const ETA = 0.85; // overall pump efficiency, Esposito from memory [M]
@@ -258,21 +259,11 @@ describe("the issue's 2 t platen hanging from the rod with 150 kN of pressing fo
   });
 });
 
-/** The design, or null where nothing in the series meets the pressures. */
-function sized(req: RequirementsInput): Design | null {
-  try {
-    return sizeCircuit(req);
-  } catch (e) {
-    if (e instanceof NotSizableError) return null;
-    throw e;
-  }
-}
-
 describe("properties over random pressing axes", () => {
   it("the motor covers every phase the chosen pump draws (IEC 60034-1 short overload [M])", () => {
     fc.assert(
       fc.property(pressAxisArb, (req) => {
-        const d = sized(req);
+        const d = sizedOrNull(req);
         // Beyond the largest listed motor the design says so (MOTOR_BEYOND_SERIES) instead of covering the phase.
         fc.pre(d !== null && !d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES"));
         const m = d!.motor;
@@ -291,8 +282,8 @@ describe("properties over random pressing axes", () => {
     fc.assert(
       fc.property(pressAxisArb, fc.double({ min: 0.2, max: 1, noNaN: true }), (req, k) => {
         const slower = { ...req, extendSpeedMmS: req.extendSpeedMmS * k, pressSpeedMmS: Math.min(req.pressSpeedMmS!, req.extendSpeedMmS * k) };
-        const a = sized(req);
-        const b = sized(slower);
+        const a = sizedOrNull(req);
+        const b = sizedOrNull(slower);
         fc.pre(a !== null && b !== null && a.cylinder.boreMm === b.cylinder.boreMm && a.cylinder.rodMm === b.cylinder.rodMm);
         // Only designs that meet the rules compare: a faster axis whose rod already fails buckling
         // (BUCKLING_MARGIN) may regenerate where the slower, passing one may not (it would lose its margin).

@@ -18,6 +18,7 @@ import {
   rodAreaMm2,
   rodOutflowLpm,
 } from "~/hydraulics/regeneration";
+import { LONG_FEED } from "../../support/hydraulics";
 
 // 100/70 cylinder: A1 = π·100²/4 = 7853.98 mm², A_rod = π·70²/4 = 3848.45 mm², A3 = 4005.53 mm² (geometry [D])
 const CYL_100_70 = { capAreaMm2: (Math.PI * 100 ** 2) / 4, annulusAreaMm2: (Math.PI * 100 ** 2) / 4 - (Math.PI * 70 ** 2) / 4 };
@@ -95,19 +96,7 @@ describe("worked example — a long horizontal feed with 50 kN at the end of a 1
   // Horizontal, m = 500 kg, μ = 0.1 (default), 50 kN process force at the end of the stroke (no
   // pressing stroke), stroke 1600 mm, 200 mm/s both ways, t_acc = 0.2 s, fixed-pinned with a rear
   // flange, 60 cycles/h, 50 Hz, maxPressureBar 160 → working limit 160/1.1 = 145.45 bar [CP].
-  const axis = {
-    orientation: "horizontal",
-    massKg: 500,
-    processForceN: 50_000,
-    strokeMm: 1600,
-    extendSpeedMmS: 200,
-    retractSpeedMmS: 200,
-    mounting: "fixed-pinned",
-    mountingStyle: "rear-flange",
-    cyclesPerHour: 60,
-    hoursPerDay: 8,
-    supplyHz: 50,
-  } as const;
+  const axis = LONG_FEED;
   const d: Design = sizeCircuit(axis);
 
   it("chooses 100/70: buckling over the long stroke asks for the thick rod (Euler, Timoshenko & Gere [M])", () => {
@@ -240,19 +229,7 @@ describe("worked example — a long horizontal feed with 50 kN at the end of a 1
 });
 
 describe("where regeneration must not be used", () => {
-  const long = {
-    orientation: "horizontal",
-    massKg: 500,
-    processForceN: 50_000,
-    strokeMm: 1600,
-    extendSpeedMmS: 200,
-    retractSpeedMmS: 200,
-    mounting: "fixed-pinned",
-    mountingStyle: "rear-flange",
-    cyclesPerHour: 60,
-    hoursPerDay: 8,
-    supplyHz: 50,
-  } as const;
+  const long = LONG_FEED;
   const reason = (d: Design) => d.trail.find((t) => t.quantity === "regenerative extension")!.formula;
 
   it("an overrunning extension (rod down): the rod-side counterbalance valve meters the rod end's outflow (common practice)", () => {

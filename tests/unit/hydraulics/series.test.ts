@@ -3,7 +3,7 @@
  * the checks hold the engine's choices to those tables and to independent facts about them.
  */
 import { describe, expect, it } from "vitest";
-import { sizeCircuit, type RequirementsInput } from "~/hydraulics";
+import { sizeCircuit } from "~/hydraulics";
 import {
   IEC60072_MOTOR_KW,
   ISO3320_BORES_MM,
@@ -16,73 +16,7 @@ import {
   ISO6022,
   SAE_J517_HOSES,
 } from "~/hydraulics/series";
-
-const AXES: RequirementsInput[] = [
-  {
-    orientation: "horizontal",
-    massKg: 800,
-    processForceN: 30000,
-    strokeMm: 400,
-    extendSpeedMmS: 120,
-    retractSpeedMmS: 200,
-    mounting: "fixed-fixed",
-    cyclesPerHour: 120,
-    hoursPerDay: 16,
-    supplyHz: 50,
-  },
-  {
-    orientation: "vertical",
-    rodDirection: "down",
-    massKg: 2500,
-    processForceN: 150000,
-    strokeMm: 600,
-    extendSpeedMmS: 80,
-    retractSpeedMmS: 120,
-    mounting: "fixed-pinned",
-    cyclesPerHour: 40,
-    hoursPerDay: 8,
-    supplyHz: 50,
-  },
-  {
-    orientation: "vertical",
-    rodDirection: "up",
-    massKg: 4000,
-    strokeMm: 1200,
-    extendSpeedMmS: 60,
-    retractSpeedMmS: 90,
-    mounting: "pinned-pinned",
-    cyclesPerHour: 20,
-    hoursPerDay: 8,
-    supplyHz: 60,
-  },
-  {
-    orientation: "inclined",
-    inclineDeg: 35,
-    rodDirection: "up",
-    massKg: 1200,
-    strokeMm: 900,
-    extendSpeedMmS: 150,
-    retractSpeedMmS: 150,
-    mounting: "pinned-pinned",
-    cyclesPerHour: 30,
-    hoursPerDay: 12,
-    supplyHz: 50,
-    maxPressureBar: 210,
-  },
-  {
-    orientation: "inclined",
-    inclineDeg: 60,
-    rodDirection: "down",
-    massKg: 300,
-    strokeMm: 250,
-    extendSpeedMmS: 300,
-    retractSpeedMmS: 400,
-    mounting: "fixed-free",
-    cyclesPerHour: 300,
-    hoursPerDay: 20,
-    supplyHz: 60,
-  },
-];
+import { AXIS_MIX } from "../../support/hydraulics";
 
 describe("series tables", () => {
   it("ISO 6020-2 and ISO 6022 pairings use ISO 3320 bores and rods [M]", () => {
@@ -129,7 +63,7 @@ describe("series tables", () => {
 });
 
 describe("every design picks from the standard series", () => {
-  for (const axis of AXES) {
+  for (const axis of AXIS_MIX) {
     const d = sizeCircuit(axis);
     const name = `${axis.orientation} ${axis.rodDirection ?? ""}`;
     it(`${name}: bore and rod in ISO 3320 [M]`, () => {

@@ -18,6 +18,7 @@ import { sizingContext } from "~/hydraulics/evaluate";
 import { holdingFor } from "~/hydraulics/holding";
 import { hydraulicPowerKw, selectMotorKw } from "~/hydraulics/pump-motor";
 import { brakingLoadPressureBar, cbvSettingBar } from "~/hydraulics/valves";
+import { REFERENCE_PRESS } from "../../support/hydraulics";
 
 const G = 9.80665; // standard gravity (CGPM 1901)
 const ETA_O = 0.85; // overall pump efficiency, Esposito, from memory [M]
@@ -34,22 +35,7 @@ const roundUp5 = (bar: number) => Math.ceil(bar / 5 - 1e-9) * 5; // relief and s
 // approach 0.2 m/s, pressing 0.01 m/s (here over the last 20 mm), a 10 s dwell, 60 cycles/h.
 // Horizontal, 500 kg on guides with μ = 0.1 (the default, common practice).
 // ---------------------------------------------------------------------------------------------
-const PRESS: RequirementsInput = {
-  orientation: "horizontal",
-  massKg: 500,
-  processForceN: 100_000,
-  strokeMm: 400,
-  extendSpeedMmS: 200,
-  retractSpeedMmS: 200,
-  pressStrokeMm: 20,
-  pressSpeedMmS: 10,
-  dwellS: 10,
-  mounting: "fixed-fixed",
-  mountingStyle: "front-flange",
-  cyclesPerHour: 60,
-  hoursPerDay: 8,
-  supplyHz: 50,
-};
+const PRESS: RequirementsInput = { ...REFERENCE_PRESS, dwellS: 10, mountingStyle: "front-flange" };
 const A1 = (Math.PI * 100 ** 2) / 4; // 7853.98 mm², circle area [D]
 const Q_PRESS = (A1 * 10 * 0.06) / 1000; // 4.712 L/min, continuity Q = A·v [D]; shared check value 4.71
 // Pump for the approach: 94.25 L/min needs 1000·94.25/(1450·0.95) = 68.4 cm³/rev → 80 cm³/rev

@@ -87,7 +87,15 @@ const POLICY = {
   // Organisations
   "shop.decide": rule<OrganisationFacts>((v, org) => v.role === "admin" && org.kind === "shop", forbid("Only administrators approve shops.")),
   "team.invite": rule<OrganisationFacts>((v, org) => v.organisationId === org.id && (org.kind !== "operator" || v.role === "admin"), forbid()),
+  // A buyer account's notes: its account manager's and the admins'; others find no such account.
+  "account.writeNote": rule<OrganisationFacts>((v, org) => org.kind === "buyer" && staffOf(v, org.id), { status: 404, message: "No such account." }),
+  // The company profile: the organisation's own people (an operator's, its admins).
+  "organisation.editProfile": rule<OrganisationFacts>(
+    (v, org) => v.organisationId === org.id && (org.kind !== "operator" || v.role === "admin"),
+    forbid("Only the organisation's own people edit its profile."),
+  ),
   "platform.administer": rule<null>((v) => v.role === "admin", forbid()),
+  "audit.read": rule<null>((v) => v.role === "admin", forbid("The audit log is for administrators.")),
 } satisfies Record<string, Rule<never>>;
 
 export type Action = keyof typeof POLICY;

@@ -76,7 +76,12 @@ const ACTS = `
     shop.decide             buyer-account        .      .      .     .      .        .        .      .
     team.invite             buyer-account        Y      .      .     .      .        .        .      .
     team.invite             operator             .      .      .     .      .        .        .      Y
+    account.writeNote       buyer-account        .      .      .     .      .        Y        .      Y
+    organisation.editProfile buyer-account       Y      .      .     .      .        .        .      .
+    organisation.editProfile job-shop            .      .      Y     .      .        .        .      .
+    organisation.editProfile operator            .      .      .     .      .        .        .      Y
     platform.administer     none                 .      .      .     .      .        .        .      Y
+    audit.read              none                 .      .      .     .      .        .        .      Y
 `;
 
 function parse(table: string) {

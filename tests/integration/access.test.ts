@@ -10,6 +10,7 @@ import * as jobs from "~/routes/jobs";
 import * as adminUsers from "~/routes/admin.users";
 import * as adminOrgs from "~/routes/admin.organisations";
 import * as adminMail from "~/routes/admin.mail";
+import * as adminAudit from "~/routes/admin.audit";
 import type { Role } from "~/auth/roles";
 import { Organisation, type User } from "~/models/index.server";
 import { makeJob, makeMember, makeOperatorUser } from "../support/factories";
@@ -27,6 +28,7 @@ const PAGES: { path: string; loader: Loader; allowed: Role[] }[] = [
   { path: "/admin/users", loader: adminUsers.loader, allowed: ["admin"] },
   { path: "/admin/organisations", loader: adminOrgs.loader, allowed: ["admin"] },
   { path: "/admin/mail", loader: adminMail.loader, allowed: ["admin"] },
+  { path: "/admin/audit", loader: adminAudit.loader, allowed: ["admin"] },
 ];
 
 const visitors = {} as Record<Role, Visitor>;

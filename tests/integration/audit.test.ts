@@ -7,8 +7,10 @@ import { recordAudit } from "~/services/audit.server";
 import * as signIn from "~/routes/sign-in";
 import * as adminUsers from "~/routes/admin.users";
 import * as adminOrgs from "~/routes/admin.organisations";
+import * as adminAudit from "~/routes/admin.audit";
+import { listAuditEvents } from "~/services/audit-log.server";
 import { awardedJob } from "../support/awards";
-import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
+import { PASSWORD, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
@@ -104,5 +106,50 @@ describe("what the audit log records", () => {
     const job = await awardedJob(buyer, shop);
     const award = await AuditEvent.findOne({ where: { action: "bid-awarded", subjectId: job.specId }, rejectOnEmpty: true });
     expect(award).toMatchObject({ actorId: buyer.id, details: { shop: "Harrow Hydraulics", jobId: job.id } });
+  });
+});
+
+describe("the admin's audit log page", () => {
+  it("filters by kind, by who and by days, newest first, and says which filter it could not read", async () => {
+    const admin = await makeOperatorUser("admin");
+    const visitor = await signedIn(admin);
+    const someone = await makeMember("buyer", { email: uniqueEmail("wren.talbot") });
+    await signedIn(someone);
+    await AuditEvent.create({
+      action: "sign-in",
+      actorId: someone.id,
+      actorName: someone.name,
+      actorEmail: someone.email,
+      subjectType: null,
+      subjectId: null,
+      subjectLabel: null,
+      details: {},
+      at: new Date("2025-01-10T12:00:00Z"),
+    });
+
+    const mine = await visitor.get(adminAudit.loader, `/admin/audit?action=sign-in&actor=wren.talbot`);
+    expect(mine.status).toBe(200);
+    expect(mine.data.entries.map((e: { actorEmail: string }) => e.actorEmail)).toEqual([someone.email, someone.email]);
+    const january = await visitor.get(adminAudit.loader, `/admin/audit?actor=wren.talbot&from=2025-01-10&to=2025-01-10`);
+    expect(january.data.entries).toHaveLength(1);
+    expect(january.data.entries[0].at).toBe("2025-01-10T12:00:00.000Z");
+
+    const impossible = await visitor.get(adminAudit.loader, `/admin/audit?actor=wren.talbot&from=2025-02-30&to=2025-01-01x`);
+    expect(impossible.status).toBe(200);
+    expect(impossible.data.problems.from).toMatch(/not a date on the calendar/);
+    expect(impossible.data.problems.to).toMatch(/year-month-day/);
+    // The filters it could read still apply.
+    expect(impossible.data.entries).toHaveLength(2);
+    const backwards = await visitor.get(adminAudit.loader, `/admin/audit?from=2025-03-01&to=2025-01-01`);
+    expect(backwards.data.problems.to).toMatch(/on or after/);
+    const odd = await visitor.get(adminAudit.loader, `/admin/audit?action=drop-table&page=-3&actor=${"x".repeat(300)}`);
+    expect(odd.status).toBe(200);
+    expect(odd.data.problems).toMatchObject({ action: expect.any(String), actor: expect.any(String) });
+  });
+
+  it("is the admins' only: an account manager gets 403 from the page and the service", async () => {
+    const manager = await makeOperatorUser("account_manager");
+    expect((await (await signedIn(manager)).get(adminAudit.loader, "/admin/audit")).status).toBe(403);
+    await expect(listAuditEvents(manager, {})).rejects.toMatchObject({ init: { status: 403 } });
   });
 });

@@ -6,14 +6,27 @@ import { isbot } from "isbot";
 import { renderToPipeableStream, type RenderToPipeableStreamOptions } from "react-dom/server";
 import { env } from "~/env.server";
 import { nonceContext } from "~/http/request-context.server";
-import { startMailWorker } from "~/services/mail.server";
-import { startPaymentReconciler } from "~/services/payment-sync.server";
+import { startBackgroundWork } from "~/services/background-work.server";
 
 // Checked when the server starts, not on the first request: a bad setting stops it with a message.
 const settings = env();
-// Each app server sends the outbox's mail; rows are claimed with SKIP LOCKED, so any number can.
-if (settings.NODE_ENV !== "test") startMailWorker();
-if (settings.NODE_ENV !== "test") startPaymentReconciler();
+// Each app server process runs the background work (mail, schedules) on pg-boss, which runs each
+// job once across all of them. Kept on globalThis so the dev server's reloads start it once. Tests
+// run what they need themselves.
+const running = globalThis as unknown as { __tenderflowBackgroundWork?: Promise<(() => Promise<void>) | null> };
+if (settings.NODE_ENV !== "test") {
+  running.__tenderflowBackgroundWork ??= startBackgroundWork().catch((error) => {
+    console.error("Background work did not start:", error);
+    return null;
+  });
+}
+
+/** Stops the background work cleanly (app/serve.server.ts calls it on Ctrl-C or SIGTERM). */
+export async function stopBackgroundWork() {
+  const stop = await running.__tenderflowBackgroundWork;
+  delete running.__tenderflowBackgroundWork;
+  await stop?.();
+}
 
 export const streamTimeout = 5_000;
 

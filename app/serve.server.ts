@@ -9,8 +9,8 @@
 //
 // One worker process per core (node:cluster; WEB_CONCURRENCY sets another count, 1 serves in
 // this process alone): the workers share the port, and nothing in the app lives in one
-// process's memory (sessions, rate limits and the mail outbox are in PostgreSQL, claimed with
-// SKIP LOCKED), so any worker answers any request.
+// process's memory (sessions, rate limits, mail and background jobs are in PostgreSQL, the jobs
+// claimed with SKIP LOCKED), so any worker answers any request.
 import cluster from "node:cluster";
 import os from "node:os";
 import path from "node:path";
@@ -127,7 +127,9 @@ async function serve() {
     if (stopping) return;
     stopping = true;
     console.log(`${signal}: stopping the HTTP server`);
-    server.close(() => process.exit(0));
+    // Running jobs finish, or go back to the queue for another server (pg-boss), before the exit.
+    const stopWork = (build.entry.module as { stopBackgroundWork?: () => Promise<void> }).stopBackgroundWork?.().catch((error) => console.error(error));
+    server.close(() => void Promise.resolve(stopWork).then(() => process.exit(0)));
     server.closeIdleConnections();
     // Streams still open after a few seconds (a stalled download) do not hold the stop up.
     setTimeout(() => process.exit(0), 3_000).unref();

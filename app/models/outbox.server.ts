@@ -12,7 +12,7 @@ export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
 export const MAIL_PRIORITIES = { account: 0, activity: 1, announcement: 2 } as const;
 export type MailPriority = keyof typeof MAIL_PRIORITIES;
 
-/** An e-mail waiting to be sent. Written in the same transaction as the change it reports. */
+/** An e-mail and how its delivery went. Written in the same transaction as the change it reports, with the job that sends it. */
 export class OutboxMail extends Model<InferAttributes<OutboxMail>, InferCreationAttributes<OutboxMail>> {
   declare id: CreationOptional<string>;
   declare to: string;
@@ -25,6 +25,8 @@ export class OutboxMail extends Model<InferAttributes<OutboxMail>, InferCreation
   declare attempts: CreationOptional<number>;
   declare nextAttemptAt: CreationOptional<Date>;
   declare lastError: string | null;
+  /** The pg-boss job that delivers it (its latest, after "Send again"). */
+  declare jobId: CreationOptional<string | null>;
   declare sentAt: Date | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -42,6 +44,7 @@ OutboxMail.init(
     attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     nextAttemptAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     lastError: { type: DataTypes.TEXT, allowNull: true },
+    jobId: { type: DataTypes.UUID, allowNull: true },
     sentAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -251,3 +251,54 @@ export function refundToShopMail(d: Retainer & { name: string; newlyCents: numbe
     text: `Hello ${d.name},\n\nTenderflow has refunded ${money(d.newlyCents)} of the buyer's retainer for "${d.specTitle}" (${money(d.refundedCents)} of ${money(d.amountCents)} refunded so far). Your account manager will be in touch about the job.\n\nThe job: ${jobLink(d.jobId)}\n`,
   };
 }
+
+// --- Reminders (scheduled work) -----------------------------------------------------------------
+
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/** To the spec's buyer when its bid deadline passes with bids: time to compare and choose. */
+export function deadlinePassedMail(d: { name: string; specId: string; specTitle: string; deadline: Date; bids: number }): MailContent {
+  return {
+    subject: `Bidding closed on ${d.specTitle}: ${plural(d.bids, "bid", "bids")}`,
+    text: `Hello ${d.name},\n\nThe bid deadline of "${d.specTitle}" passed on ${formatDay(d.deadline)} with ${plural(d.bids, "bid", "bids")} from shops. Compare them side by side and choose one: ${offersLink(d.specId)}\n`,
+  };
+}
+
+/** To the spec's buyer when its bid deadline passes without a bid. */
+export function noBidsToBuyerMail(d: { name: string; specId: string; specTitle: string; deadline: Date }): MailContent {
+  return {
+    subject: `No bids on ${d.specTitle}`,
+    text: `Hello ${d.name},\n\nThe bid deadline of "${d.specTitle}" passed on ${formatDay(d.deadline)} without a bid from any shop. To open it again, revise the spec with a later deadline: ${specLink(d.specId)}\n\nYour account manager has been told and can help you find shops for it.\n`,
+  };
+}
+
+/** To the buyer's account manager (or the admins) when a spec's deadline passes without a bid. */
+export function noBidsToStaffMail(d: { name: string; buyerName: string; specId: string; specTitle: string; deadline: Date }): MailContent {
+  return {
+    subject: `No bids for ${d.buyerName}: ${d.specTitle}`,
+    text: `Hello ${d.name},\n\nThe bid deadline of "${d.specTitle}" by ${d.buyerName} passed on ${formatDay(d.deadline)} without a bid. The buyer has been told and may revise it with a later deadline.\n\nThe spec: ${specLink(d.specId)}\n`,
+  };
+}
+
+/** A milestone past its target day and not recorded: to whoever acts on it (`role`) and to staff. */
+export function milestoneOverdueMail(d: {
+  name: string;
+  role: "shop" | "buyer" | "staff";
+  buyerName: string;
+  shopName: string;
+  specTitle: string;
+  jobId: string;
+  milestone: string;
+  targetDate: string;
+  daysLate: number;
+}): MailContent {
+  const next = {
+    shop: "Record it on the job when it is done, or move its target day there with a reason.",
+    buyer: "The job waits for the retainer: pay it on the job page.",
+    staff: `The job is between ${d.buyerName} and ${d.shopName}; they have been reminded too.`,
+  }[d.role];
+  return {
+    subject: `Overdue: ${d.milestone} on ${d.specTitle}`,
+    text: `Hello ${d.name},\n\n"${d.milestone}" on the job for "${d.specTitle}" was due on ${formatDay(d.targetDate)} and is not recorded yet: ${plural(d.daysLate, "day", "days")} late. ${next}\n\nThe job: ${jobLink(d.jobId)}\n`,
+  };
+}

@@ -1,8 +1,10 @@
+import { randomUUID } from "node:crypto";
 import { Op, type Order, type WhereOptions } from "sequelize";
-import { OutboxMail } from "~/models/index.server";
+import { OutboxMail, sequelize } from "~/models/index.server";
 import type { SortOf } from "~/schemas/list-sort";
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { pageCountOf, pageOf } from "./list-query.server";
+import { queueDelivery } from "./mail.server";
 import { authorize, viewerOf } from "~/auth/access-policy.server";
 import type { User } from "~/models/index.server";
 
@@ -85,21 +87,25 @@ export async function mailNeedingAttention(
 }
 
 /**
- * Queues a failed or waiting mail again, due now, with a fresh set of attempts. A mail that was
+ * Queues a failed or waiting mail again, due now, with a fresh set of attempts and a new job
+ * (the old one, if still retrying, is no longer the row's and sends nothing). A mail that was
  * sent meanwhile (the sender may hold it right now: the UPDATE waits for its lock and then sees
  * "sent") is left alone and reported, so nothing goes out twice.
  */
 export async function sendAgain(admin: User, mailId: string | undefined): Promise<OutboxMail> {
   authorize(await viewerOf(admin), "platform.administer", null);
   const id = requireId(mailId);
-  const [count, rows] = await OutboxMail.update(
-    { status: "pending", attempts: 0, nextAttemptAt: new Date() },
-    { where: { id, status: { [Op.in]: ["failed", "pending"] } }, returning: true },
-  );
-  if (count === 0) {
-    const mail = await OutboxMail.findByPk(id, { attributes: ["id", "to"] });
-    if (!mail) notFound("No such mail.");
-    throw new FieldErrors({ "": [`The mail to ${mail.to} was sent meanwhile; there is nothing to send again.`] });
-  }
-  return rows[0];
+  return sequelize.transaction(async (transaction) => {
+    const [count, rows] = await OutboxMail.update(
+      { status: "pending", attempts: 0, nextAttemptAt: new Date(), jobId: randomUUID() },
+      { where: { id, status: { [Op.in]: ["failed", "pending"] } }, returning: true, transaction },
+    );
+    if (count === 0) {
+      const mail = await OutboxMail.findByPk(id, { attributes: ["id", "to"], transaction });
+      if (!mail) notFound("No such mail.");
+      throw new FieldErrors({ "": [`The mail to ${mail.to} was sent meanwhile; there is nothing to send again.`] });
+    }
+    await queueDelivery(rows[0], transaction);
+    return rows[0];
+  });
 }

@@ -71,9 +71,10 @@ export async function retireCheckout(payment: Payment): Promise<CheckoutState> {
 const RECONCILE_AFTER_MS = 5 * 60_000;
 
 /**
- * Asks Stripe about every payment left open for a while. Rows are claimed by stamping
- * `checked_at` under FOR UPDATE SKIP LOCKED, so app servers running this together each take
- * different payments, and a payment is asked about at most once per period. Returns what
+ * Asks Stripe about every payment left open for a while (a scheduled job, every minute: see
+ * background-work.server.ts). Rows are claimed by stamping `checked_at` under FOR UPDATE SKIP
+ * LOCKED, so runs that overlap each take different payments, and a payment is asked about at
+ * most once per period. Returns what
  * happened to each claimed payment.
  */
 export async function reconcileOpenPayments({ olderThanMs = RECONCILE_AFTER_MS, limit = 50 } = {}): Promise<Record<string, string>> {
@@ -114,22 +115,4 @@ async function reconcileOne(id: string): Promise<string> {
     state = await retireCheckout(payment);
   }
   return state.kind === "completed" ? state.outcome : "expired";
-}
-
-/** Runs the reconciler in the background of an app server. */
-export function startPaymentReconciler(intervalMs = 60_000) {
-  let running = false;
-  const timer = setInterval(async () => {
-    if (running) return;
-    running = true;
-    try {
-      await reconcileOpenPayments();
-    } catch (error) {
-      console.error("Payment reconciliation failed:", error);
-    } finally {
-      running = false;
-    }
-  }, intervalMs);
-  timer.unref();
-  return () => clearInterval(timer);
 }

@@ -1,6 +1,7 @@
-// The outbox never loses mail: a send that fails stays queued and is retried later with backoff;
-// after the last attempt it is kept as failed, with its error, for an admin to send again.
-// Account mail goes before activity and announcements; requests only queue, never send.
+// The outbox never loses mail: each row has a pg-boss job queued in the same transaction; a send
+// that fails is retried by the queue with backoff; after the last attempt the row is kept as
+// failed, with its error, for an admin to send again. Account mail goes before activity and
+// announcements; requests only queue, never send.
 import { beforeEach, describe, expect, it, vi } from "vitest";
 
 // A port nobody listens on, set before the app reads its environment: every send is refused.
@@ -9,11 +10,11 @@ vi.hoisted(() => {
 });
 
 import { randomUUID } from "node:crypto";
-import { Op } from "sequelize";
+import { Op, QueryTypes } from "sequelize";
 import * as team from "~/routes/team";
 import * as jobPage from "~/routes/job";
 import * as adminMail from "~/routes/admin.mail";
-import { OutboxMail } from "~/models/index.server";
+import { OutboxMail, sequelize } from "~/models/index.server";
 import { requestPasswordReset } from "~/services/accounts.server";
 import { MAIL_PRIORITIES, MAX_ATTEMPTS, deliverDueMail, enqueueMail, retryDelayMs } from "~/services/mail.server";
 import { makeJob, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
@@ -23,7 +24,14 @@ import { signedIn } from "../support/sessions";
 // Each test reads the whole queue, so each starts with an empty one.
 beforeEach(async () => {
   await OutboxMail.destroy({ where: {} });
+  await sequelize.query("DELETE FROM pgboss.job WHERE name = 'mail'");
 });
+
+const jobState = async (id: string) => {
+  const [row] = await sequelize.query<{ state: string }>("SELECT state FROM pgboss.job WHERE id = :id", { replacements: { id }, type: QueryTypes.SELECT });
+  return row?.state;
+};
+const mailJobCount = async () => (await sequelize.query("SELECT id FROM pgboss.job WHERE name = 'mail'", { type: QueryTypes.SELECT })).length;
 
 describe("mail outbox", () => {
   it("keeps a mail that could not be sent and schedules a retry", async () => {
@@ -40,20 +48,50 @@ describe("mail outbox", () => {
     expect((await mail.reload()).attempts).toBe(1);
   });
 
-  it("marks a mail failed after the last attempt and keeps it", async () => {
+  it("retries through the queue with a growing wait, then marks the mail failed after the last attempt and keeps it", async () => {
     const mail = await enqueueMail({ to: "other@example.test", subject: "Hello", text: "Body" });
-    await mail.update({ attempts: MAX_ATTEMPTS - 1, nextAttemptAt: new Date(Date.now() - 1000) });
-    await deliverDueMail();
-    await mail.reload();
+    let lastWait = 0;
+    for (let attempt = 1; attempt <= MAX_ATTEMPTS; attempt++) {
+      // Time passes: the retry the queue scheduled is due now.
+      await sequelize.query(`UPDATE pgboss.job SET start_after = now() WHERE id = :id AND state = 'retry'`, { replacements: { id: mail.jobId } });
+      const before = Date.now();
+      expect(await deliverDueMail()).toBe(0);
+      await mail.reload();
+      expect(mail.attempts).toBe(attempt);
+      if (attempt === MAX_ATTEMPTS) break;
+      expect(mail.status).toBe("pending");
+      const wait = mail.nextAttemptAt.getTime() - before;
+      expect(wait).toBeGreaterThanOrEqual(retryDelayMs(attempt) - 1000);
+      expect(wait).toBeGreaterThan(lastWait / 2);
+      lastWait = wait;
+    }
     expect(mail.status).toBe("failed");
-    expect(mail.attempts).toBe(MAX_ATTEMPTS);
-    expect(await OutboxMail.findByPk(mail.id)).not.toBeNull();
+    expect(mail.lastError).toBeTruthy();
+    expect(await jobState(mail.jobId!)).toBe("failed");
+    // Nothing is left to try.
+    expect(await deliverDueMail()).toBe(0);
+    expect((await mail.reload()).attempts).toBe(MAX_ATTEMPTS);
   });
 
-  it("backs off: each delay at least doubles, capped at an hour", () => {
+  it("backs off: each delay doubles, the last wait about half an hour to an hour", () => {
     expect(retryDelayMs(1)).toBe(30_000);
     expect(retryDelayMs(2)).toBe(60_000);
-    expect(retryDelayMs(20)).toBe(3_600_000);
+    expect(retryDelayMs(MAX_ATTEMPTS - 1)).toBe(1_920_000);
+  });
+
+  it("queues the mail and its job in the change's transaction: a change rolled back leaves neither", async () => {
+    const jobsBefore = await mailJobCount();
+    await expect(
+      sequelize.transaction(async (transaction) => {
+        await enqueueMail({ to: "never@example.test", subject: "Rolled back", text: "Body" }, transaction);
+        throw new Error("the change failed");
+      }),
+    ).rejects.toThrow("the change failed");
+    expect(await OutboxMail.count({ where: { to: "never@example.test" } })).toBe(0);
+    expect(await mailJobCount()).toBe(jobsBefore);
+
+    const kept = await sequelize.transaction((transaction) => enqueueMail({ to: "kept@example.test", subject: "Committed", text: "Body" }, transaction));
+    expect(await jobState(kept.jobId!)).toBe("created");
   });
 });
 
@@ -159,6 +197,26 @@ describe("the admin's mail page", () => {
     expect((await failed.reload()).status).toBe("sent");
     expect((await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: "not-an-id" })).status).toBe(400);
     expect((await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: randomUUID() })).status).toBe(404);
+  });
+
+  it("sending again a mail still being retried leaves one job to deliver it", async () => {
+    const mail = await enqueueMail({ to: "retried@example.test", subject: "Hello", text: "Body" });
+    await deliverDueMail();
+    const firstJob = (await mail.reload()).jobId!;
+    expect([mail.attempts, await jobState(firstJob)]).toEqual([1, "retry"]);
+
+    const visitor = await signedIn(await makeOperatorUser("admin"));
+    expect((await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: mail.id })).status).toBe(302);
+    await mail.reload();
+    expect(mail.jobId).not.toBe(firstJob);
+    expect(mail.attempts).toBe(0);
+
+    // Both jobs due: the old one is no longer the mail's and sends nothing; the new one tries.
+    await sequelize.query(`UPDATE pgboss.job SET start_after = now() WHERE name = 'mail' AND state = 'retry'`);
+    await deliverDueMail();
+    expect((await mail.reload()).attempts).toBe(1);
+    expect(await jobState(firstJob)).toBe("completed");
+    expect(await jobState(mail.jobId!)).toBe("retry");
   });
 
   it("is the admin's only: others get 403 and change nothing", async () => {

@@ -1,0 +1,48 @@
+import { startMailSender } from "./mail.server";
+import { reconcileOpenPayments } from "./payment-sync.server";
+import { remindOfOverdueMilestones, remindOfPassedDeadlines } from "./reminders.server";
+import { QUEUES, workQueue, type QueueName } from "./work-queue.server";
+
+// What every app server runs in the background, on pg-boss (work-queue.server.ts): the mail
+// sender and the scheduled jobs. Each app process (each node:cluster worker) starts it: pg-boss
+// claims each job with SKIP LOCKED and turns each schedule into one job per minute across all
+// processes, so adding servers adds senders, never a second copy of a job. Starting it in the
+// cluster's primary instead would put app code in the process whose only task is to keep the
+// workers alive, and would differ from a single-process server.
+
+interface Scheduled {
+  queue: QueueName;
+  /** When, as cron in UTC (pg-boss's schedules are to the minute). */
+  cron: string;
+  run: (now: Date) => Promise<unknown>;
+}
+
+export const SCHEDULES: Scheduled[] = [
+  // Deadlines end at a moment (23:59:59 UTC of the day chosen): told within a minute.
+  { queue: QUEUES.bidDeadlines, cron: "* * * * *", run: remindOfPassedDeadlines },
+  // Targets are whole days: a quarter of an hour after midnight UTC is soon enough.
+  { queue: QUEUES.milestoneReminders, cron: "*/15 * * * *", run: remindOfOverdueMilestones },
+  // A payment without its webhook is asked about after five minutes; each minute picks up the due ones.
+  { queue: QUEUES.paymentReconciliation, cron: "* * * * *", run: () => reconcileOpenPayments() },
+];
+
+/** How long a stop waits for running jobs before handing them back for a retry elsewhere (within serve's own 3 s). */
+const STOP_TIMEOUT_MS = 2_500;
+
+/** Starts the work queue, the mail sender and the schedules; resolves to a function that stops them cleanly. */
+export async function startBackgroundWork(): Promise<() => Promise<void>> {
+  const boss = workQueue();
+  boss.on("error", (error) => console.error("Background work:", error));
+  await boss.start();
+  // Migration 0016 made them; a queue added since is made here (a no-op for existing ones).
+  for (const name of Object.values(QUEUES)) await boss.createQueue(name);
+  await startMailSender(boss);
+  for (const { queue, cron, run } of SCHEDULES) {
+    // A run that fails is not retried: the next minute's run does the same work.
+    await boss.schedule(queue, cron, {}, { retryLimit: 0, expireInSeconds: 600 });
+    await boss.work(queue, async () => {
+      await run(new Date());
+    });
+  }
+  return () => boss.stop({ graceful: true, timeout: STOP_TIMEOUT_MS });
+}

@@ -2,6 +2,7 @@ import { CartesianGrid, Line, LineChart, ReferenceArea, XAxis, YAxis } from "rec
 import type { CyclePhase } from "~/hydraulics/design";
 import { formatQuantity, roundForDisplay, toDisplay, unitLabel, type Quantity, type UnitSystem } from "~/units";
 import { Card } from "./ui";
+import { formatNumber } from "~/content/number-format";
 
 // Pressure, flow and power over one cycle, drawn as steps since the engine gives each phase
 // constant values. Fixed-size charts (no ResponsiveContainer), so the server renders the same
@@ -46,7 +47,7 @@ interface Point {
 /** What the chart reads of a phase: an axis's cycle (CyclePhase) and a machine's (MachineCyclePhase) both have it. */
 export type ChartPhase = Pick<CyclePhase, "durationS" | "shownS" | "demandLpm" | "pressureBar" | "pumpFlowLpm" | "hydraulicKw"> & { phase: string };
 
-const seconds = (s: number): string => `${roundForDisplay(s, s >= 10 ? 0 : 1).toLocaleString("en-GB", { maximumFractionDigits: 2 })}\u00a0s`;
+const seconds = (s: number): string => `${formatNumber(roundForDisplay(s, s >= 10 ? 0 : 1), 2)}\u00a0s`;
 
 /** The axis top: the next of 1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6, 8 × a power of ten above the highest value. */
 function niceTop(max: number): number {

@@ -1,5 +1,6 @@
 import Qty from "js-quantities";
 import type { UnitSystem } from "./systems";
+import { formatNumber } from "~/content/number-format";
 
 export { UNIT_SYSTEMS, UNIT_SYSTEM_LABELS, type UnitSystem } from "./systems";
 
@@ -92,5 +93,5 @@ export function roundForDisplay(value: number, decimals: number): number {
 export function formatQuantity(quantity: Quantity, value: number, system: UnitSystem): string {
   const { decimals, label } = UNITS[quantity][system];
   const shown = roundForDisplay(toDisplay(quantity, value, system), decimals);
-  return `${shown.toLocaleString("en-GB", { maximumFractionDigits: 4 })} ${label}`;
+  return `${formatNumber(shown, 4)} ${label}`;
 }

@@ -1,17 +1,15 @@
 // `npm run bench`: how fast the engine sizes designs, what the sizing API adds over a bare
 // JSON route on the same server, how throughput grows from one server worker to one per core,
-// and how the open-specs table's queries fare at 100 000 specs.
+// every main page under 50 concurrent users before and after the speed-ups (pages.ts), and how
+// the open-specs table's queries fare at 100 000 specs.
 // Prints figures and ratios measured in this run; asserts nothing (targets belong here, not in
 // timed tests that fail on a slow machine).
-import { mkdtempSync, rmSync, chmodSync } from "node:fs";
 import os from "node:os";
-import path from "node:path";
-import pg from "pg";
-import { Sequelize } from "sequelize";
-import { freePort, removeCluster, startCluster, stopCluster } from "../../db/cluster";
-import { migrator } from "../../db/migrator";
+import { freePort } from "../../db/cluster";
 import { run, serveBuild, stop } from "../../fakes/processes";
 import { REQUESTS } from "./mix";
+import { pages } from "./pages";
+import { withBenchStack } from "./stack";
 
 async function engine() {
   console.log("\n== Sizing engine (one core, in process) ==");
@@ -57,14 +55,14 @@ async function underLoad(url: string, concurrency: number, seconds: number) {
 }
 
 /** The same pages served by one worker and by one per core, under the same load. */
-async function workers(env: NodeJS.ProcessEnv) {
+async function workers(env: NodeJS.ProcessEnv, buildDir: string) {
   const cores = os.availableParallelism();
   console.log(`\n== One worker vs one per core (${cores}), 50 concurrent clients, 5 s per route ==`);
   const paths = ["/api/v1/health", "/quick-sizing"];
   const results: Record<string, Record<number, { perSecond: number; p975: number }>> = {};
   for (const count of [1, cores]) {
     const port = await freePort();
-    const server = await serveBuild(port, { ...env, WEB_CONCURRENCY: String(count) });
+    const server = await serveBuild(port, { ...env, WEB_CONCURRENCY: String(count) }, () => {}, buildDir);
     try {
       for (const p of paths) {
         await underLoad(`http://127.0.0.1:${port}${p}`, 10, 1); // warm-up
@@ -90,55 +88,30 @@ async function openSpecs() {
 
 async function api() {
   console.log("\n== Sizing API vs a bare JSON route (same server, loopback) ==");
-  const root = mkdtempSync(path.join(os.tmpdir(), "tenderflow-bench-"));
-  chmodSync(root, 0o755);
-  const cluster = startCluster({ dataDir: path.join(root, "pg"), port: await freePort(), ephemeral: true });
-  let server: Awaited<ReturnType<typeof serveBuild>> | undefined;
-  try {
-    const admin = new pg.Client({ connectionString: cluster.url() });
-    await admin.connect();
-    await admin.query("CREATE DATABASE bench");
-    await admin.end();
-    const db = new Sequelize(cluster.url("bench"), { dialect: "postgres", dialectModule: pg, logging: false });
-    await migrator(db).up();
-    await db.close();
-
-    await run("node_modules/.bin/react-router", ["build"], process.env, true);
-    const port = await freePort();
-    const env = {
-      ...process.env,
-      DATABASE_URL: cluster.url("bench"),
-      SESSION_SECRET: "benchmark-secret-benchmark-secret-0123",
-      SIZING_REQUESTS_PER_MINUTE: "1000000",
-      // Required at boot; the sizing routes never call the card service.
-      STRIPE_SECRET_KEY: "sk_test_benchmark",
-      STRIPE_WEBHOOK_SECRET: "whsec_benchmark",
-    };
+  await withBenchStack({ demo: false }, async ({ env, buildDir }) => {
     // The sequential figures compare routes within one process.
-    server = await serveBuild(port, { ...env, WEB_CONCURRENCY: "1" });
-    const base = `http://127.0.0.1:${port}`;
-    const count = 400;
-    const bare = await timeRequests("GET /api/v1/health", count, () => fetch(`${base}/api/v1/health`));
-    const sized = await timeRequests("POST /api/v1/sizing", count, (i) =>
-      fetch(`${base}/api/v1/sizing`, {
-        method: "POST",
-        headers: { "Content-Type": "application/json" },
-        body: JSON.stringify(REQUESTS[i % REQUESTS.length]),
-      }),
-    );
-    console.log(`ratio sizing / bare (p50): ${(sized / bare).toFixed(2)}×`);
-    await stop(server);
-    server = undefined;
-    await workers(env);
-  } finally {
-    await stop(server);
-    stopCluster(cluster, "immediate");
-    removeCluster(cluster);
-    rmSync(root, { recursive: true, force: true });
-  }
+    const port = await freePort();
+    const server = await serveBuild(port, { ...env, WEB_CONCURRENCY: "1" }, () => {}, buildDir);
+    try {
+      const base = `http://127.0.0.1:${port}`;
+      const count = 400;
+      const bare = await timeRequests("GET /api/v1/health", count, () => fetch(`${base}/api/v1/health`));
+      const sized = await timeRequests("POST /api/v1/sizing", count, (i) =>
+        fetch(`${base}/api/v1/sizing`, {
+          method: "POST",
+          headers: { "Content-Type": "application/json" },
+          body: JSON.stringify(REQUESTS[i % REQUESTS.length]),
+        }),
+      );
+      console.log(`ratio sizing / bare (p50): ${(sized / bare).toFixed(2)}×`);
+    } finally {
+      await stop(server);
+    }
+    await workers(env, buildDir);
+  });
 }
 
-// `npm run bench -- api` runs only the named sections (engine, api, open-specs); none runs all.
-const SECTIONS = { engine, api, "open-specs": openSpecs } as const;
+// `npm run bench -- api` runs only the named sections (engine, api, pages, open-specs); none runs all.
+const SECTIONS = { engine, api, pages, "open-specs": openSpecs } as const;
 const asked = process.argv.slice(2).filter((name): name is keyof typeof SECTIONS => name in SECTIONS);
 for (const [name, section] of Object.entries(SECTIONS)) if (asked.length === 0 || asked.includes(name as keyof typeof SECTIONS)) await section();

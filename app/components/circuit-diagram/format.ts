@@ -1,4 +1,5 @@
 import { UNITS, formatQuantity, roundForDisplay, toDisplay, type UnitSystem } from "~/units";
+import { formatNumber } from "~/content/number-format";
 
 /**
  * Display formatting for the diagram and the design panels. The engine works in the units its
@@ -63,5 +64,5 @@ export function readable(value: number): string {
   if (!Number.isFinite(value)) return String(value);
   const abs = Math.abs(value);
   const digits = Number.isInteger(value) || abs >= 100 ? 0 : abs >= 10 ? 1 : abs >= 1 ? 2 : 3;
-  return Number(value.toFixed(digits)).toLocaleString("en-GB", { maximumFractionDigits: digits });
+  return formatNumber(Number(value.toFixed(digits)), digits);
 }

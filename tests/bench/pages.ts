@@ -1,0 +1,119 @@
+// `npm run bench -- pages`: every main page under 50 concurrent users (autocannon on loopback,
+// the demo scenario, signed in with real session cookies), served twice in the same run:
+// "before" with the improvements switched off (one worker, no render cache) and "after" as
+// `npm start` serves. Prints requests/s, p97.5 and p97.5 ÷ the bare JSON route's; asserts nothing.
+import os from "node:os";
+import autocannon from "autocannon";
+import { QueryTypes, type Sequelize } from "sequelize";
+import { freePort } from "../../db/cluster";
+import { DEMO_PASSWORD } from "../../db/seeds/demo";
+import { serveBuild, stop } from "../../fakes/processes";
+import { withBenchStack } from "./stack";
+
+const CONNECTIONS = 50;
+const SECONDS = 7;
+
+type Role = "buyer" | "shop" | null;
+interface BenchRoute {
+  label: string;
+  path: string;
+  as: Role;
+}
+
+const BUYER = "priya@kestrel-forming.test";
+const SHOP = "aled@ironbridge-fluid.test";
+
+/** The demo records the pages show: the buyer's panel press (one axis, bids on it) and a job of the shop's. */
+export async function benchRoutes(db: Sequelize): Promise<BenchRoute[]> {
+  const one = async (sql: string, replacements: Record<string, string>) => {
+    const [row] = await db.query<{ id: string }>(sql, { replacements, type: QueryTypes.SELECT });
+    if (!row) throw new Error(`The demo data has no row for: ${sql}`);
+    return row.id;
+  };
+  const specId = await one(
+    `SELECT s.id FROM specs s JOIN users u ON u.organisation_id = s.organisation_id
+      WHERE u.email = :email AND s.status = 'open'
+      ORDER BY (SELECT count(*) FROM bids b WHERE b.spec_id = s.id AND b.status = 'submitted') DESC, s.id LIMIT 1`,
+    { email: BUYER },
+  );
+  const jobId = await one(`SELECT j.id FROM jobs j JOIN users u ON u.organisation_id = j.shop_organisation_id WHERE u.email = :email ORDER BY j.id LIMIT 1`, {
+    email: SHOP,
+  });
+  return [
+    { label: "bare JSON route", path: "/api/v1/health", as: null },
+    { label: "quick sizing (anonymous)", path: "/quick-sizing", as: null },
+    { label: "a spec with its design (buyer)", path: `/specs/${specId}`, as: "buyer" },
+    { label: "the bid comparison", path: `/specs/${specId}/bids`, as: "buyer" },
+    { label: "the buyer's list of specs", path: "/specs", as: "buyer" },
+    { label: "open specs (shop)", path: "/open-specs", as: "shop" },
+    { label: "jobs dashboard (shop)", path: "/jobs", as: "shop" },
+    { label: "a job (shop)", path: `/jobs/${jobId}`, as: "shop" },
+    { label: "the bill workbook (buyer)", path: `/specs/${specId}/bill.xlsx`, as: "buyer" },
+  ];
+}
+
+/** A real session: the sign-in form posted as a browser posts it, its cookie kept. */
+async function signIn(base: string, email: string): Promise<string> {
+  const response = await fetch(`${base}/sign-in`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { "Content-Type": "application/x-www-form-urlencoded", Origin: base },
+    body: new URLSearchParams({ email, password: DEMO_PASSWORD }),
+  });
+  const cookie = response.headers.get("set-cookie")?.split(";")[0];
+  if (response.status !== 302 || !cookie) throw new Error(`Signing in as ${email}: status ${response.status}`);
+  return cookie;
+}
+
+interface Figures {
+  perSecond: number;
+  p975: number;
+  failed: number;
+}
+
+function load(url: string, cookie: string | undefined, seconds: number): Promise<Figures> {
+  return new Promise((resolve, reject) => {
+    autocannon({ url, connections: CONNECTIONS, duration: seconds, headers: cookie ? { cookie } : {} }, (error, result) => {
+      if (error) return reject(error);
+      resolve({ perSecond: result.requests.average, p975: result.latency.p97_5, failed: result.non2xx + result.errors + result.timeouts });
+    });
+  });
+}
+
+/** One server's figures for every route, each route warmed up for a second first. */
+export async function measure(env: NodeJS.ProcessEnv, buildDir: string, routes: BenchRoute[]) {
+  const port = await freePort();
+  const base = `http://127.0.0.1:${port}`;
+  const server = await serveBuild(port, { ...env, APP_URL: base }, () => {}, buildDir);
+  try {
+    const cookies: Record<string, string> = { buyer: await signIn(base, BUYER), shop: await signIn(base, SHOP) };
+    const figures = new Map<string, Figures>();
+    for (const route of routes) {
+      const cookie = route.as ? cookies[route.as] : undefined;
+      await load(base + route.path, cookie, 1);
+      figures.set(route.path, await load(base + route.path, cookie, SECONDS));
+    }
+    return figures;
+  } finally {
+    await stop(server);
+  }
+}
+
+const cell = (f: Figures, bare: Figures) =>
+  `${f.perSecond.toFixed(0).padStart(6)}/s ${(f.p975 / 1000).toFixed(2).padStart(6)} s ${`${(f.p975 / bare.p975).toFixed(1)}×`.padStart(7)}${f.failed ? ` (${f.failed} failed)` : ""}`;
+
+export async function pages() {
+  const cores = os.availableParallelism();
+  console.log(`\n== Pages under ${CONNECTIONS} concurrent users, ${SECONDS} s per route (demo data, loopback) ==`);
+  console.log(`before: WEB_CONCURRENCY=1 RENDER_CACHE=off; after: one worker per core (${cores}), render cache on`);
+  await withBenchStack({ demo: true }, async ({ env, buildDir, db }) => {
+    const routes = await benchRoutes(db);
+    const before = await measure({ ...env, WEB_CONCURRENCY: "1", RENDER_CACHE: "off" }, buildDir, routes);
+    const after = await measure({ ...env, WEB_CONCURRENCY: String(cores), RENDER_CACHE: "on" }, buildDir, routes);
+    const [bareBefore, bareAfter] = [before.get(routes[0].path)!, after.get(routes[0].path)!];
+    console.log(`${"route".padEnd(32)} ${"before: req/s  p97.5  ÷bare".padEnd(30)} after: req/s  p97.5  ÷bare`);
+    for (const route of routes) {
+      console.log(`${route.label.padEnd(32)} ${cell(before.get(route.path)!, bareBefore).padEnd(30)} ${cell(after.get(route.path)!, bareAfter)}`);
+    }
+  });
+}

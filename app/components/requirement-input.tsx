@@ -34,18 +34,11 @@ export function RequirementInput({
     if (!asCards) {
       return (
         <div>
-          <label htmlFor={id} className="block text-sm font-semibold text-ink-800">
-            {field.label}
-          </label>
-          <p id={helpId} className="text-xs text-ink-600">
-            {field.help}
-          </p>
+          <LabelAndHelp id={id} helpId={helpId} field={field} />
           <select
             id={id}
             name={name}
-            {...(onChange
-              ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onChange(e.target.value) }
-              : { defaultValue: value ?? "" })}
+            {...valueProps<HTMLSelectElement>(value, onChange)}
             aria-invalid={invalid || undefined}
             aria-describedby={describedBy}
             className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
@@ -96,16 +89,13 @@ export function RequirementInput({
   const unit = fieldUnit(field, system);
   return (
     <div>
-      <label htmlFor={id} className="block text-sm font-semibold text-ink-800">
-        {field.label}
-      </label>
-      <p id={helpId} className="text-xs text-ink-600">
-        {field.help}{" "}
+      <LabelAndHelp id={id} helpId={helpId} field={field}>
+        {" "}
         <span className="text-ink-400">
           Example: {displayValue(field, field.example, system)}
           {unit ? ` ${unit}` : ""}
         </span>
-      </p>
+      </LabelAndHelp>
       <div className="mt-1 flex rounded-md bg-white ring-1 ring-ink-200 focus-within:ring-2 focus-within:ring-flow-600 has-[[aria-invalid=true]]:ring-alarm-600">
         <input
           id={id}
@@ -113,9 +103,7 @@ export function RequirementInput({
           type="text"
           inputMode="decimal"
           autoComplete="off"
-          {...(onChange
-            ? { value: value ?? "", onChange: (e: React.ChangeEvent<HTMLInputElement>) => onChange(e.target.value) }
-            : { defaultValue: value ?? "" })}
+          {...valueProps<HTMLInputElement>(value, onChange)}
           aria-invalid={invalid || undefined}
           aria-describedby={describedBy}
           className="w-full min-w-0 rounded-md border-0 bg-transparent px-3 py-2 text-sm outline-none"
@@ -124,6 +112,26 @@ export function RequirementInput({
       </div>
       <Errors id={errorId} errors={errors} />
     </div>
+  );
+}
+
+/** Controlled where the page keeps the values (quick sizing), uncontrolled where the form owns them. */
+function valueProps<E extends HTMLInputElement | HTMLSelectElement>(value: string | undefined, onChange?: (value: string) => void) {
+  return onChange ? { value: value ?? "", onChange: (e: React.ChangeEvent<E>) => onChange(e.target.value) } : { defaultValue: value ?? "" };
+}
+
+/** The question's label and its plain help (which the control names in aria-describedby). */
+function LabelAndHelp({ id, helpId, field, children }: { id: string; helpId: string; field: RequirementField; children?: React.ReactNode }) {
+  return (
+    <>
+      <label htmlFor={id} className="block text-sm font-semibold text-ink-800">
+        {field.label}
+      </label>
+      <p id={helpId} className="text-xs text-ink-600">
+        {field.help}
+        {children}
+      </p>
+    </>
   );
 }
 

@@ -16,10 +16,8 @@ import { v, type TrailEntry } from "./trail";
 export const CYCLE_PHASES = ["approach", "extend", "pressing", "dwell", "retract", "neutral"] as const;
 export type CyclePhaseName = (typeof CYCLE_PHASES)[number];
 
-export interface CyclePhase {
-  phase: CyclePhaseName;
-  /** index into the axis's motions: 0 the extension (approach, pressing, dwell), 1 the return; null in neutral */
-  step: number | null;
+/** What each phase of a cycle reports, an axis's (CyclePhase) or a machine's (MachineCyclePhase). */
+export interface CyclePhaseFigures {
   /** names of the axes moving (none in a dwell or in neutral) */
   axes: string[];
   /** how long the phase lasts in one cycle */
@@ -36,6 +34,12 @@ export interface CyclePhase {
   hydraulicKw: number;
   /** shaft power the motor gives the pump then (with a double pump, the unloaded section's loss included) */
   shaftKw: number;
+}
+
+export interface CyclePhase extends CyclePhaseFigures {
+  phase: CyclePhaseName;
+  /** index into the axis's motions: 0 the extension (approach, pressing, dwell), 1 the return; null in neutral */
+  step: number | null;
 }
 
 /** The pump's pressure and delivery in each phase (PumpChoice.phases) and in neutral (pumpPhaseInNeutral). */

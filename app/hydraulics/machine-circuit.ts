@@ -9,7 +9,7 @@
  */
 import { buildCircuit } from "./circuit";
 import type { CircuitConnection, Design } from "./design";
-import type { MachineCircuit, MachineCircuitComponent, MachineDesign } from "./machine-design";
+import type { MachineAccumulator, MachineCircuit, MachineCircuitComponent, MachineDesign } from "./machine-design";
 import { reducingSettingBar } from "./machine-bom";
 import { gaugeRangeBar, POWER_UNIT_IDS, powerUnitDesign } from "./machine-unit";
 import { dcvPositions } from "./valves";
@@ -29,7 +29,7 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
   // How the machine's pump joins a valve's P (a double pump's large section through its check as well).
   let feeds = unit.connections.filter((c) => c.to === "dcv.P" && POWER_UNIT_IDS.has(componentOf(c.from)));
   if (m.accumulator) {
-    const acc = accumulatorParts(m);
+    const acc = accumulatorParts(m.accumulator, m.pressuresBar.reliefSetting);
     components.push(...acc.components);
     connections.push(...acc.connections);
     // The valves take P past the check, where the accumulator stands.
@@ -118,8 +118,10 @@ export function machineCircuit(m: MachineDesign, designs: Design[]): MachineCirc
  * and shut-off block stands between the line and the accumulator and vents it to tank (sources
  * §11.6; ISO 4413 automatic venting).
  */
-function accumulatorParts(m: MachineDesign): { components: MachineCircuitComponent[]; connections: CircuitConnection[] } {
-  const acc = m.accumulator!;
+export function accumulatorParts(
+  acc: Pick<MachineAccumulator, "nominalL" | "prechargeBar" | "minBar" | "maxBar">,
+  reliefSettingBar: number,
+): { components: MachineCircuitComponent[]; connections: CircuitConnection[] } {
   return {
     components: [
       {
@@ -135,7 +137,7 @@ function accumulatorParts(m: MachineDesign): { components: MachineCircuitCompone
         kind: "accumulator-block",
         ports: ["P", "A", "T"],
         label: "Accumulator safety and shut-off block",
-        values: { safetyBar: m.pressuresBar.reliefSetting, discharge: "normally open solenoid" },
+        values: { safetyBar: reliefSettingBar, discharge: "normally open solenoid" },
       },
       {
         id: "accumulator",

@@ -2,6 +2,7 @@
  * A sized machine (sizing contract, "MachineDesign"): each axis as an axis alone would get it,
  * and one power unit sized over the machine cycle.
  */
+import type { CyclePhaseFigures } from "./cycle";
 import type { BomLine, Circuit, CircuitComponent, DcvPositions, Design } from "./design";
 import type { MachineMotion, MachineRequirements } from "./machine-requirements";
 import type { MachinePhaseName, PhaseKind } from "./machine-timeline";
@@ -34,23 +35,14 @@ export interface MachineAxis {
 }
 
 /** One phase of the machine cycle, in time order (contract: step, axes, demandLpm, pressureBar, pumpFlowLpm, durationS, hydraulicKw). */
-export interface MachineCyclePhase {
+export interface MachineCyclePhase extends CyclePhaseFigures {
   /** index into the sequence; null in neutral */
   step: number | null;
   /** "recharge": every valve in neutral while the pump refills the accumulator */
   phase: MachinePhaseName | "recharge" | "neutral";
   kind: PhaseKind | "neutral";
-  /** names of the axes moving (none in a dwell or in neutral) */
-  axes: string[];
   /** what each axis taking part is doing */
   motions: { axis: string; phase: string }[];
-  durationS: number;
-  shownS: number;
-  demandLpm: number;
-  pressureBar: number;
-  pumpFlowLpm: number;
-  hydraulicKw: number;
-  shaftKw: number;
   /** heat made in the phase: shaft power less the work done on the loads */
   heatKw: number;
 }

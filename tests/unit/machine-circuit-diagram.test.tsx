@@ -8,6 +8,7 @@ import { displayUnits } from "~/components/circuit-diagram/format";
 import { layoutMachine, pLinePort } from "~/components/circuit-diagram/machine-layout";
 import { meetings, routeConnections, type Route } from "~/components/circuit-diagram/routes";
 import { sizeMachine, type MachineDesign } from "~/hydraulics";
+import { accumulatorParts } from "~/hydraulics/machine-circuit";
 import { CLAMP, FEED, PRESS } from "../support/machines";
 
 /** A 300 kN press: a 250 bar cylinder and a relief above the 160 bar a light clamp's cylinder is rated for. */
@@ -70,40 +71,18 @@ const MACHINES: Record<string, MachineDesign> = {
 
 /**
  * Beside the engine's own accumulator machine: a real fixed-pump machine (its relief vented, as
- * the engine never pairs with an accumulator) given the accumulator parts and lines exactly as
- * the engine lists them (machine-circuit.ts), its valves fed from past the check, so the drawing
+ * the engine never pairs with an accumulator) given the accumulator parts and lines from the
+ * engine's own accumulatorParts (machine-circuit.ts), its valves fed from past the check, so the drawing
  * is held on a busier power unit too. Invented figures, for the drawing only.
  */
 function withAccumulator(m: MachineDesign): MachineDesign {
   const accumulator = { nominalL: 10, prechargeBar: 108, minBar: 120, maxBar: 145 };
   const axisParts = new Set(m.circuit.components.filter((c) => c.axis !== undefined).map((c) => c.id));
   const feeds = m.circuit.connections.map((c) => (c.from === "pump.outlet" && axisParts.has(componentOf(c.to)) ? { ...c, from: "pump-check.outlet" } : c));
+  const parts = accumulatorParts(accumulator, m.pressuresBar.reliefSetting);
   return {
     ...m,
-    circuit: {
-      components: [
-        ...m.circuit.components,
-        { id: "charging-valve", kind: "unloading", ports: ["1", "2", "X"], values: { cutOutBar: accumulator.maxBar, cutInBar: accumulator.minBar } },
-        { id: "pump-check", kind: "check", ports: ["inlet", "outlet"] },
-        {
-          id: "accumulator-block",
-          kind: "accumulator-block",
-          ports: ["P", "A", "T"],
-          values: { safetyBar: m.pressuresBar.reliefSetting, discharge: "normally open solenoid" },
-        },
-        { id: "accumulator", kind: "accumulator", ports: ["P"], values: { nominalL: accumulator.nominalL, prechargeBar: accumulator.prechargeBar } },
-      ],
-      connections: [
-        ...feeds,
-        { from: "pump.outlet", to: "pump-check.inlet", line: "pressure" },
-        { from: "pump.outlet", to: "charging-valve.1", line: "pressure" },
-        { from: "charging-valve.2", to: "tank.return", line: "return" },
-        { from: "pump-check.outlet", to: "charging-valve.X", line: "pilot" },
-        { from: "pump-check.outlet", to: "accumulator-block.P", line: "pressure" },
-        { from: "accumulator-block.A", to: "accumulator.P", line: "pressure" },
-        { from: "accumulator-block.T", to: "tank.return", line: "return" },
-      ],
-    },
+    circuit: { components: [...m.circuit.components, ...parts.components], connections: [...feeds, ...parts.connections] },
   };
 }
 MACHINES["clamp and press charging an accumulator (parts as the engine lists them)"] = withAccumulator(

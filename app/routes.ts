@@ -37,6 +37,8 @@ export default [
   route("jobs/:jobId", "routes/job.tsx"),
   route("jobs/:jobId/pay", "routes/job-pay.tsx"),
   route("jobs/:jobId/payment", "routes/job-payment.tsx"),
+  route("jobs/:jobId/order", "routes/job-order.tsx"),
+  route("jobs/:jobId/order.pdf", "routes/job-order.pdf.ts"),
   route("payments", "routes/payments.tsx"),
   route("payments/:paymentId/refund", "routes/payment-refund.tsx"),
   route("webhooks/stripe", "routes/webhooks.stripe.ts"),

@@ -2,6 +2,9 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import { sequelize } from "~/db.server";
 import { centsColumn } from "./columns.server";
 import type { MilestoneKey } from "~/content/job-milestones";
+import type { OrderDocument } from "~/content/order-document";
+
+export type BalanceMethod = "card" | "bank_transfer";
 
 /** An awarded bid being built and delivered. */
 export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job>> {
@@ -21,6 +24,13 @@ export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job
   declare retainerRefundedCents: CreationOptional<number>;
   /** The latest milestone reached, or null before the first. */
   declare stage: MilestoneKey | null;
+  /** The buyer accepted the handover: the job is closed. */
+  declare acceptedAt: CreationOptional<Date | null>;
+  declare acceptedById: CreationOptional<string | null>;
+  /** The rest of the price (total − retainer): paid by card, or recorded as a bank transfer. */
+  declare balancePaidAt: CreationOptional<Date | null>;
+  declare balanceMethod: CreationOptional<BalanceMethod | null>;
+  declare balanceReference: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -41,6 +51,11 @@ Job.init(
     retainerPaidAt: { type: DataTypes.DATE, allowNull: true },
     retainerRefundedCents: centsColumn("retainerRefundedCents", 0),
     stage: { type: DataTypes.STRING(30), allowNull: true },
+    acceptedAt: { type: DataTypes.DATE, allowNull: true },
+    acceptedById: { type: DataTypes.UUID, allowNull: true },
+    balancePaidAt: { type: DataTypes.DATE, allowNull: true },
+    balanceMethod: { type: DataTypes.STRING(20), allowNull: true },
+    balanceReference: { type: DataTypes.STRING(200), allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },
@@ -75,7 +90,19 @@ JobMilestone.init(
 );
 
 export type JobEventKind =
-  "awarded" | "milestone_reached" | "milestone_undone" | "target_changed" | "progress_note" | "manager_note" | "retainer_paid" | "retainer_refunded";
+  | "awarded"
+  | "milestone_reached"
+  | "milestone_undone"
+  | "target_changed"
+  | "progress_note"
+  | "manager_note"
+  | "retainer_paid"
+  | "retainer_refunded"
+  | "handover_accepted"
+  | "handover_problem"
+  | "file_added"
+  | "balance_paid"
+  | "balance_refunded";
 
 /** One entry of a job's history: who did what, when. */
 export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttributes<JobEvent>> {
@@ -104,4 +131,57 @@ JobEvent.init(
     createdAt: DataTypes.DATE,
   },
   { sequelize, tableName: "job_events", updatedAt: false },
+);
+
+export type JobFileKind = "test_certificate" | "approved_drawing" | "problem_photo";
+
+/** A file exchanged on a job: who uploaded it and when are part of the record. */
+export class JobFile extends Model<InferAttributes<JobFile>, InferCreationAttributes<JobFile>> {
+  declare id: CreationOptional<string>;
+  declare jobId: string;
+  declare kind: JobFileKind;
+  declare fileName: string;
+  declare contentType: string;
+  declare sizeBytes: number;
+  declare storageKey: string;
+  declare uploadedById: string;
+  /** The problem report a photo belongs to. */
+  declare eventId: string | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
+JobFile.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    jobId: { type: DataTypes.UUID, allowNull: false },
+    kind: { type: DataTypes.STRING(30), allowNull: false },
+    fileName: { type: DataTypes.STRING(200), allowNull: false },
+    contentType: { type: DataTypes.STRING(100), allowNull: false },
+    sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
+    storageKey: { type: DataTypes.STRING(200), allowNull: false },
+    uploadedById: { type: DataTypes.UUID, allowNull: false },
+    eventId: { type: DataTypes.UUID, allowNull: true },
+    createdAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "job_files", updatedAt: false },
+);
+
+/** The order confirmation made at the award; the database refuses any update of it. */
+export class OrderConfirmation extends Model<InferAttributes<OrderConfirmation>, InferCreationAttributes<OrderConfirmation>> {
+  declare id: CreationOptional<string>;
+  declare jobId: string;
+  declare number: string;
+  declare document: OrderDocument;
+  declare createdAt: CreationOptional<Date>;
+}
+
+OrderConfirmation.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    jobId: { type: DataTypes.UUID, allowNull: false, unique: true },
+    number: { type: DataTypes.STRING(20), allowNull: false, unique: true },
+    document: { type: DataTypes.JSONB, allowNull: false },
+    createdAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "order_confirmations", updatedAt: false },
 );

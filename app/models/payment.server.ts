@@ -3,10 +3,14 @@ import { sequelize } from "~/db.server";
 import { centsColumn } from "./columns.server";
 import { PAYMENT_STATUSES, type PaymentStatus } from "~/content/payment-status";
 
-/** One attempt to pay a job's retainer through a Stripe Checkout Session. */
+export type PaymentPurpose = "retainer" | "balance";
+
+/** One attempt to pay a job's retainer or balance through a Stripe Checkout Session. */
 export class Payment extends Model<InferAttributes<Payment>, InferCreationAttributes<Payment>> {
   declare id: CreationOptional<string>;
   declare jobId: string;
+  /** What of the job's price it pays: the retainer, or the balance after the handover. */
+  declare purpose: CreationOptional<PaymentPurpose>;
   declare buyerOrganisationId: string;
   declare createdById: string;
   declare status: CreationOptional<PaymentStatus>;
@@ -30,13 +34,14 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare updatedAt: CreationOptional<Date>;
 }
 
-/** Attempts that may still take a card; the database allows one per job (payments_one_open_per_job). */
+/** Attempts that may still take a card; the database allows one per job and purpose (payments_one_open_per_job). */
 export const OPEN_PAYMENT_STATUSES = ["pending", "failed"] as const satisfies readonly PaymentStatus[];
 
 Payment.init(
   {
     id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
     jobId: { type: DataTypes.UUID, allowNull: false },
+    purpose: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "retainer" },
     buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
     createdById: { type: DataTypes.UUID, allowNull: false },
     status: { type: DataTypes.ENUM(...PAYMENT_STATUSES), allowNull: false, defaultValue: "pending" },

@@ -101,6 +101,9 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
         actions={
           // Whoever sees the job may read its (awarded) spec: see spec-access.server.ts.
           <>
+            <ButtonLink to={`/jobs/${job.id}/order`} tone="secondary">
+              Order confirmation
+            </ButtonLink>
             <ButtonLink to={`/specs/${job.specId}`} tone="secondary">
               Open the spec
             </ButtonLink>

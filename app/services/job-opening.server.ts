@@ -5,9 +5,11 @@ import { isoDay } from "~/content/dates";
 import { retainerCents } from "~/content/money";
 import { FieldErrors } from "./errors.server";
 import { targetDates } from "./job-schedule";
+import { makeOrderConfirmation } from "./order-confirmation.server";
 
 // Opening a job, inside the award's transaction: the job copies both parties and the bid's money,
-// works out the retainer and gives each milestone its default target day.
+// works out the retainer, gives each milestone its default target day and makes the order
+// confirmation.
 
 export async function openJob(transaction: Transaction, args: { spec: Spec; bid: Bid; awardedBy: User }): Promise<Job> {
   const { spec, bid, awardedBy } = args;
@@ -37,6 +39,7 @@ export async function openJob(transaction: Transaction, args: { spec: Spec; bid:
     MILESTONES.map((m, position) => ({ jobId: job.id, key: m.key, position, targetDate: targets[m.key], reachedAt: null, reachedById: null })),
     { transaction },
   );
+  await makeOrderConfirmation(transaction, { job, spec, bid, awardedBy, handoverBy: targets.handed_over });
   await JobEvent.create(
     {
       jobId: job.id,

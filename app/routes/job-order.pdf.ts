@@ -1,0 +1,24 @@
+import type { Route } from "./+types/job-order.pdf";
+import { requireUser } from "~/auth/permissions.server";
+import { notFound } from "~/services/errors.server";
+import { contentDisposition } from "~/services/attachments.server";
+import { safeFileStem } from "~/services/exports/file-name";
+import { orderConfirmationFor } from "~/services/order-confirmation.server";
+import { orderPdf } from "~/services/order-pdf.server";
+
+// The order confirmation as a PDF, for whoever may read the job (the job's scope decides).
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const user = await requireUser(request);
+  const { order } = await orderConfirmationFor(user, params.jobId);
+  if (!order) notFound("This job was awarded before order confirmations were made.");
+  const bytes = await orderPdf(order);
+  return new Response(bytes, {
+    headers: {
+      "Content-Type": "application/pdf",
+      "Content-Length": String(bytes.byteLength),
+      "Content-Disposition": contentDisposition(`${order.number} - ${safeFileStem(order.spec.title)} - order confirmation.pdf`),
+      "X-Content-Type-Options": "nosniff",
+      "Cache-Control": "private, no-store",
+    },
+  });
+}

@@ -5,6 +5,15 @@ import * as t from "~/services/mail-templates.server";
 
 const APP = "http://127.0.0.1:3000";
 const spec = { specId: "spec-1", specTitle: "Bending press" };
+const overdue = {
+  buyerName: "Acme",
+  shopName: "Brenner",
+  specTitle: "Bending press",
+  jobId: "job-1",
+  milestone: "Bench-tested",
+  targetDate: "2026-04-02",
+  daysLate: 3,
+};
 const retainer = { specTitle: "Bending press", jobId: "job-1", amountCents: 123456, currency: "EUR" };
 
 describe("mail templates", () => {
@@ -144,6 +153,25 @@ describe("mail templates", () => {
       "Retainer paid back in full: Bending press",
       `${APP}/jobs/job-1`,
     ],
+    [
+      "deadline passed",
+      t.deadlinePassedMail({ ...spec, name: "Ann", deadline: new Date("2026-03-14T23:59:59Z"), bids: 1 }),
+      "Bidding closed on Bending press: 1 bid",
+      `${APP}/specs/spec-1/bids`,
+    ],
+    [
+      "no bids, buyer",
+      t.noBidsToBuyerMail({ ...spec, name: "Ann", deadline: new Date("2026-03-14T23:59:59Z") }),
+      "No bids on Bending press",
+      `${APP}/specs/spec-1`,
+    ],
+    [
+      "no bids, staff",
+      t.noBidsToStaffMail({ ...spec, name: "Max", buyerName: "Acme", deadline: new Date("2026-03-14T23:59:59Z") }),
+      "No bids for Acme: Bending press",
+      `${APP}/specs/spec-1`,
+    ],
+    ["milestone overdue", t.milestoneOverdueMail({ ...overdue, name: "Bo", role: "shop" }), "Overdue: Bench-tested on Bending press", `${APP}/jobs/job-1`],
   ];
 
   it.each(cases)("%s: subject and the page it links to", (_name, mail, subject, link) => {
@@ -152,6 +180,14 @@ describe("mail templates", () => {
     // No mail names a day the machine way, and every mail greets.
     expect(mail.text).not.toMatch(/\d{4}-\d{2}-\d{2}/);
     expect(mail.text).toMatch(/^Hello/);
+  });
+
+  it("says when a deadline passed and how late a milestone is, to each reader", () => {
+    const deadline = new Date("2026-03-14T23:59:59Z");
+    expect(t.deadlinePassedMail({ ...spec, name: "Ann", deadline, bids: 3 }).text).toContain("passed on 14 Mar 2026 with 3 bids from shops.");
+    expect(t.milestoneOverdueMail({ ...overdue, name: "Bo", role: "shop" }).text).toContain("was due on 2 Apr 2026 and is not recorded yet: 3 days late.");
+    expect(t.milestoneOverdueMail({ ...overdue, daysLate: 1, name: "Ann", role: "buyer" }).text).toContain("1 day late. The job waits for the retainer");
+    expect(t.milestoneOverdueMail({ ...overdue, name: "Max", role: "staff" }).text).toContain("between Acme and Brenner");
   });
 
   it("writes days, moments and money the app's one way", () => {

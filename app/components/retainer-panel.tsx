@@ -92,65 +92,99 @@ export function RetainerPanel({
   );
 }
 
+interface RefundAnswer {
+  result?: { error?: Record<string, string[] | null> };
+  /** The question asked before the money moves, with what was typed to send again. */
+  confirm?: { question: string; amount: string; reason: string };
+}
+
+const FIELD_CLASS = "mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200";
+
+// Paying back in two steps: the amount and reason, then the question with the amount spelled
+// out, answered with the person's password. A wrong password keeps the question on screen; a
+// problem with the amount or reason goes back to the first step with what was typed.
 function RefundForm({ payment }: { payment: PaymentView }) {
-  const fetcher = useFetcher<{ result?: { error?: Record<string, string[] | null> } }>();
+  const fetcher = useFetcher<RefundAnswer>();
   const errors = fetcher.data?.result?.error ?? {};
   const id = `refund-${payment.id}`;
+  const [asked, setAsked] = useState<RefundAnswer["confirm"] | null>(null);
+  const [typed, setTyped] = useState({ amount: "", reason: "" });
   // The password field starts empty again after every answer, right or wrong.
   const [round, setRound] = useState(0);
   useEffect(() => {
-    if (fetcher.state === "idle") setRound((r) => r + 1);
-  }, [fetcher.state]);
+    if (fetcher.state !== "idle") return;
+    setRound((r) => r + 1);
+    const answer = fetcher.data;
+    if (answer?.confirm) setAsked(answer.confirm);
+    else if (answer?.result?.error?.amount || answer?.result?.error?.reason) setAsked(null);
+  }, [fetcher.state, fetcher.data]);
+  const field = (name: "amount" | "reason", label: string) => (
+    <div>
+      <label htmlFor={`${id}-${name}`} className="block text-xs font-semibold">
+        {label}
+      </label>
+      <input
+        id={`${id}-${name}`}
+        name={name}
+        required
+        inputMode={name === "amount" ? "decimal" : undefined}
+        value={typed[name]}
+        onChange={(e) => setTyped((t) => ({ ...t, [name]: e.target.value }))}
+        className={FIELD_CLASS}
+        aria-invalid={errors[name] ? true : undefined}
+        aria-describedby={errors[name] ? `${id}-${name}-error` : undefined}
+      />
+      <FieldErrorText id={`${id}-${name}-error`} errors={errors[name] ?? undefined} />
+    </div>
+  );
   return (
     <fetcher.Form method="post" action={`/payments/${payment.id}/refund`} className="mt-3 space-y-2 border-t border-ink-200 pt-3">
       <p className="font-semibold">Pay back</p>
-      <div>
-        <label htmlFor={`${id}-amount`} className="block text-xs font-semibold">
-          Amount ({payment.currency}), empty for all that is left
-        </label>
-        <input
-          id={`${id}-amount`}
-          name="amount"
-          inputMode="decimal"
-          className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200"
-          aria-invalid={errors.amount ? true : undefined}
-        />
-        <FieldErrorText id={`${id}-amount-error`} errors={errors.amount ?? undefined} />
-      </div>
-      <div>
-        <label htmlFor={`${id}-reason`} className="block text-xs font-semibold">
-          Reason (the buyer reads it on the job page)
-        </label>
-        <input
-          id={`${id}-reason`}
-          name="reason"
-          className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200"
-          aria-invalid={errors.reason ? true : undefined}
-        />
-        <FieldErrorText id={`${id}-reason-error`} errors={errors.reason ?? undefined} />
-      </div>
-      <div>
-        <label htmlFor={`${id}-password`} className="block text-xs font-semibold">
-          Your password
-        </label>
-        <input
-          key={round}
-          id={`${id}-password`}
-          name="currentPassword"
-          type="password"
-          autoComplete="current-password"
-          className="mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200"
-          aria-invalid={errors.currentPassword ? true : undefined}
-          aria-describedby={`${id}-password-hint`}
-        />
-        <p id={`${id}-password-hint`} className="mt-1 text-xs text-ink-600">
-          Asked again before any money moves.
-        </p>
-        <FieldErrorText id={`${id}-password-error`} errors={errors.currentPassword ?? undefined} />
-      </div>
-      <Button type="submit" tone="secondary" disabled={fetcher.state !== "idle"}>
-        Pay back
-      </Button>
+      {asked ? (
+        <>
+          <input type="hidden" name="amount" value={asked.amount} />
+          <input type="hidden" name="reason" value={asked.reason} />
+          <input type="hidden" name="confirm" value="yes" />
+          <Notice tone="warn">
+            <span className="font-semibold">{asked.question}</span> Reason: {asked.reason}
+          </Notice>
+          <div>
+            <label htmlFor={`${id}-password`} className="block text-xs font-semibold">
+              Your password
+            </label>
+            <input
+              key={round}
+              id={`${id}-password`}
+              name="currentPassword"
+              type="password"
+              autoComplete="current-password"
+              className={FIELD_CLASS}
+              aria-invalid={errors.currentPassword ? true : undefined}
+              aria-describedby={`${id}-password-hint`}
+            />
+            <p id={`${id}-password-hint`} className="mt-1 text-xs text-ink-600">
+              Asked again before any money moves.
+            </p>
+            <FieldErrorText id={`${id}-password-error`} errors={errors.currentPassword ?? undefined} />
+          </div>
+          <div className="flex flex-wrap gap-2">
+            <Button type="submit" tone="danger" disabled={fetcher.state !== "idle"}>
+              Yes, refund
+            </Button>
+            <Button type="button" tone="secondary" onClick={() => setAsked(null)}>
+              Change the amount
+            </Button>
+          </div>
+        </>
+      ) : (
+        <>
+          {field("amount", `Amount (${payment.currency})`)}
+          {field("reason", "Reason (the buyer reads it on the job page)")}
+          <Button type="submit" tone="secondary" disabled={fetcher.state !== "idle"}>
+            Continue
+          </Button>
+        </>
+      )}
     </fetcher.Form>
   );
 }

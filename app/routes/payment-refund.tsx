@@ -10,21 +10,30 @@ import { refundSchema } from "~/schemas/payments";
 import { confirmOwnPassword } from "~/services/accounts.server";
 import { fieldErrorReply } from "~/services/errors.server";
 import { Throttled, clientOf } from "~/services/throttle.server";
-import { requestRefund } from "~/services/payments.server";
+import { refundQuestion, requestRefund } from "~/services/payments.server";
 
-const schema = refundSchema.extend({ currentPassword: currentPasswordField });
+const confirmedSchema = refundSchema.extend({ currentPassword: currentPasswordField });
 
-// An account manager (or admin) pays back part or all of a retainer, from the job page, after
-// typing their password again: a stolen session alone moves no money.
+// An account manager (or admin) pays back part or all of a retainer, from the job page, in two
+// steps: the amount and reason first, answered by the question with the amount spelled out;
+// then, confirming, their password again (a stolen session alone moves no money).
 export async function action(args: Route.ActionArgs) {
   const { request, params } = args;
   const user = await requireRole(request, OPERATOR_ROLES);
-  const submission = parseWithZod(await request.formData(), { schema });
+  const formData = await request.formData();
   const hideFields = ["currentPassword"];
+  const confirming = formData.get("confirm") === "yes";
+  const submission = parseWithZod(formData, { schema: confirming ? confirmedSchema : refundSchema });
   if (submission.status !== "success") return data({ result: submission.reply({ hideFields }) }, { status: 400 });
+  const { amount: amountCents, reason } = submission.value;
   try {
-    await confirmOwnPassword(clientOf(args), user, submission.value.currentPassword);
-    const { refund, payment } = await requestRefund(user, params.paymentId, { amountCents: submission.value.amount, reason: submission.value.reason });
+    if (!confirming) {
+      const question = await refundQuestion(user, params.paymentId, amountCents);
+      return data({ result: submission.reply({ hideFields }), confirm: { question, amount: formData.get("amount") as string, reason } });
+    }
+    // Checked by confirmedSchema above.
+    await confirmOwnPassword(clientOf(args), user, String(formData.get("currentPassword")));
+    const { refund, payment } = await requestRefund(user, params.paymentId, { amountCents, reason });
     return redirectWithToast(
       request,
       `/jobs/${payment.jobId}`,

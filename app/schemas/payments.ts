@@ -2,18 +2,25 @@ import { z } from "zod";
 import { PAYMENT_STATUSES } from "~/content/payment-status";
 import { parseMoney } from "~/content/money";
 
-// Paying back a retainer: an amount (empty for everything left) and a reason for the record.
+// Paying back a retainer: the amount (always typed: an empty field is a mistake, not "all of it")
+// and a reason for the record. The first post asks the question with the amount spelled out;
+// the second (confirm=yes) carries the person's password and moves the money.
 export const refundSchema = z.object({
   amount: z
-    .string()
+    .string({ error: "Enter the amount to pay back, e.g. 250 or 250.50." })
     .trim()
-    .optional()
-    .superRefine((v, ctx) => {
-      if (v && parseMoney(v) === null)
-        ctx.addIssue({ code: "custom", message: "Enter an amount like 250 or 250.50, or leave it empty to pay back everything left." });
-    })
-    .transform((v) => (v ? (parseMoney(v) ?? undefined) : undefined)),
+    .min(1, "Enter the amount to pay back, e.g. 250 or 250.50.")
+    .max(20, "Enter an amount like 250 or 250.50.")
+    .transform((v, ctx) => {
+      const cents = parseMoney(v);
+      if (cents === null) {
+        ctx.addIssue({ code: "custom", message: "Enter an amount like 250 or 250.50." });
+        return z.NEVER;
+      }
+      return cents;
+    }),
   reason: z.string({ error: "Say why the money goes back." }).trim().min(3, "Say why the money goes back.").max(500, "Keep it under 501 characters."),
+  confirm: z.literal("yes").optional(),
 });
 
 export const paymentListSchema = z.object({

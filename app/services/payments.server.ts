@@ -5,6 +5,7 @@ import { formatMoney } from "~/content/money";
 import type { PaymentStatus } from "~/content/payment-status";
 import { env } from "~/env.server";
 import { recordAudit, refundSubject } from "./audit.server";
+import { refundQuestionText } from "~/content/refund";
 import { FieldErrors, notFound } from "./errors.server";
 import { scopedJob } from "./job-reads.server";
 import { pageCountOf, pageOf } from "./list-query.server";
@@ -252,9 +253,40 @@ export async function listPayments(viewer: User, query: { status?: PaymentStatus
 }
 
 /** What can still be paid back: paid, minus refunds recorded or on their way. */
-async function refundableCents(payment: Payment, transaction: Transaction) {
+async function refundableCents(payment: Payment, transaction?: Transaction) {
   const pending = (await Refund.sum("amountCents", { where: { paymentId: payment.id, status: "requested" }, transaction })) ?? 0;
   return payment.amountCents - payment.refundedCents - Number(pending);
+}
+
+/** What a payment paid for, read by name so it works whether or not the payment row has a purpose yet (a retainer then). */
+const purposeOf = (payment: Payment) => ((payment.get({ plain: true }) as { purpose?: string }).purpose === "balance" ? "balance" : "retainer");
+
+/** The amount checked against what is left of a paid payment; throws the field error a person reads. */
+async function checkRefundable(payment: Payment, amountCents: number, transaction?: Transaction) {
+  if (!["paid", "partially_refunded"].includes(payment.status) || !payment.paymentIntentId) {
+    throw new FieldErrors({ amount: ["Only a paid retainer can be paid back."] });
+  }
+  const left = await refundableCents(payment, transaction);
+  if (left <= 0) throw new FieldErrors({ amount: ["Nothing is left to pay back."] });
+  if (amountCents <= 0) throw new FieldErrors({ amount: ["Enter an amount above zero."] });
+  if (amountCents > left) throw new FieldErrors({ amount: [`At most ${formatMoney(left, payment.currency)} can still be paid back.`] });
+}
+
+/**
+ * The question a refund asks before any money moves, with the amount spelled out: "Refund
+ * EUR 1,250.00 of the EUR 5,000.00 retainer to Rotherby Presses?". Checks the same things the
+ * refund itself does, so a refund that would be refused is refused here already.
+ */
+export async function refundQuestion(user: User, paymentId: string | undefined, amountCents: number): Promise<string> {
+  const viewer = await viewerOf(user);
+  const payment = await findInScope(Payment, paymentsWhere(viewer), paymentId, {
+    missing: "No such payment.",
+    include: [{ model: Organisation, as: "buyerOrganisation", attributes: ["name"] }],
+  });
+  authorize(viewer, "payment.refund", payment);
+  await checkRefundable(payment, amountCents);
+  const buyer = (payment as Payment & { buyerOrganisation: Organisation }).buyerOrganisation;
+  return refundQuestionText({ amountCents, paidCents: payment.amountCents, currency: payment.currency, what: purposeOf(payment), to: buyer.name });
 }
 
 /**
@@ -262,19 +294,13 @@ async function refundableCents(payment: Payment, transaction: Transaction) {
  * The refund row waits as "requested" until charge.refunded arrives by webhook. Returns the
  * refund and the payment it is on (for the job it belongs to and its currency).
  */
-export async function requestRefund(user: User, paymentId: string | undefined, input: { amountCents?: number; reason: string }) {
+export async function requestRefund(user: User, paymentId: string | undefined, input: { amountCents: number; reason: string }) {
   const viewer = await viewerOf(user);
   const { payment, refund } = await sequelize.transaction(async (transaction) => {
     const payment = await findInScope(Payment, paymentsWhere(viewer), paymentId, { missing: "No such payment.", lock: transaction.LOCK.UPDATE, transaction });
     authorize(viewer, "payment.refund", payment);
-    if (!["paid", "partially_refunded"].includes(payment.status) || !payment.paymentIntentId) {
-      throw new FieldErrors({ amount: ["Only a paid retainer can be paid back."] });
-    }
-    const left = await refundableCents(payment, transaction);
-    const amountCents = input.amountCents ?? left;
-    if (left <= 0) throw new FieldErrors({ amount: ["Nothing is left to pay back."] });
-    if (amountCents <= 0) throw new FieldErrors({ amount: ["Enter an amount above zero, or leave it empty to pay back everything left."] });
-    if (amountCents > left) throw new FieldErrors({ amount: [`At most ${formatMoney(left, payment.currency)} can still be paid back.`] });
+    const { amountCents } = input;
+    await checkRefundable(payment, amountCents, transaction);
     const refund = await Refund.create(
       { paymentId: payment.id, requestedById: user.id, amountCents, reason: input.reason, stripeRefundId: null, failureMessage: null, recordedAt: null },
       { transaction },

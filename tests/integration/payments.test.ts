@@ -14,6 +14,9 @@ import * as webhook from "~/routes/webhooks.stripe";
 import { Job, JobEvent, JobMilestone, Organisation, OutboxMail, Payment, Refund, StripeEvent, type User } from "~/models/index.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { newAttempt } from "~/services/payments.server";
+import { AuditEvent } from "~/models/audit.server";
+import { centsToInput } from "~/content/money";
+import { spelledMoney } from "~/content/refund";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor, call } from "../support/routes";
@@ -205,7 +208,7 @@ describe("refunds", () => {
     const { job, payment } = await paidJob();
 
     const post = (fields: Record<string, string>, visitor = visitors.manager) =>
-      visitor.post(refund.action, `/payments/${payment.id}/refund`, { currentPassword: PASSWORD, ...fields }, { paymentId: payment.id });
+      visitor.post(refund.action, `/payments/${payment.id}/refund`, { currentPassword: PASSWORD, confirm: "yes", ...fields }, { paymentId: payment.id });
     // The manager types their own password again; without it, or with a wrong one, nothing moves.
     const noPassword = await post({ amount: "100.00", reason: "Paint left off the order", currentPassword: "" });
     expect(noPassword.status).toBe(400);
@@ -237,7 +240,11 @@ describe("refunds", () => {
     expect((await first.reload()).status).toBe("recorded");
     expect((await deliver(charge)).data.outcome).toBe("replay");
 
-    const rest = await post({ amount: "", reason: "Job cancelled by the buyer" });
+    // An empty amount is a mistake to point out, not "everything left".
+    const empty = await post({ amount: "", reason: "Job cancelled by the buyer" });
+    expect(empty.status).toBe(400);
+    expect(empty.data.result.error.amount).toEqual(["Enter the amount to pay back, e.g. 250 or 250.50."]);
+    const rest = await post({ amount: centsToInput(payment.amountCents - 10_000), reason: "Job cancelled by the buyer" });
     expect(rest.status).toBe(302);
     const all = await eventAbout("charge.refunded", "", (o) => o.payment_intent === payment.paymentIntentId && o.amount_refunded === payment.amountCents);
     await deliver(all);
@@ -255,6 +262,40 @@ describe("refunds", () => {
     const stillPaid = await visitors.manager.get(jobsPage.loader, "/jobs?retainer=paid");
     expect(stillPaid.data.jobs.map((j: { id: string }) => j.id)).not.toContain(job.id);
     await waitForMail(shop.email, "Retainer paid back in full");
+  });
+});
+
+describe("a refund's confirmation", () => {
+  it("asks with the amount spelled out before any money moves, and the audit log follows the money", async () => {
+    const { payment } = await paidJob();
+    const buyerName = (await Organisation.findByPk(buyer.organisationId, { rejectOnEmpty: true })).name;
+    const ask = (fields: Record<string, string>) => visitors.manager.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id });
+    const asked = await ask({ amount: "12.50", reason: "Paint left off the order" });
+    expect(asked.status).toBe(200);
+    const paid = spelledMoney(payment.amountCents, payment.currency);
+    expect(asked.data.confirm).toEqual({
+      question: `Refund ${payment.currency} 12.50 of the ${paid} retainer to ${buyerName}?`,
+      amount: "12.50",
+      reason: "Paint left off the order",
+    });
+    expect(await Refund.count({ where: { paymentId: payment.id } })).toBe(0);
+    // A refund that would be refused is refused at the question already.
+    expect((await ask({ amount: centsToInput(payment.amountCents + 1), reason: "Too much" })).data.result.error.amount[0]).toMatch(/At most/);
+    expect((await ask({ amount: "", reason: "All of it" })).data.result.error.amount).toEqual(["Enter the amount to pay back, e.g. 250 or 250.50."]);
+    // Confirming needs the password.
+    expect((await ask({ amount: "12.50", reason: "Paint left off the order", confirm: "yes" })).data.result.error.currentPassword).toBeTruthy();
+    expect(await Refund.count({ where: { paymentId: payment.id } })).toBe(0);
+    const done = await ask({ amount: "12.50", reason: "Paint left off the order", confirm: "yes", currentPassword: PASSWORD });
+    expect(done.status).toBe(302);
+    const charge = await eventAbout("charge.refunded", "", (o) => o.payment_intent === payment.paymentIntentId && o.amount_refunded === 1250);
+    await deliver(charge);
+    const made = await Refund.findOne({ where: { paymentId: payment.id }, rejectOnEmpty: true });
+    expect((await AuditEvent.findAll({ where: { subjectId: payment.id } })).map((e) => e.action)).toEqual(["payment-paid"]);
+    const refundEntries = await AuditEvent.findAll({ where: { subjectId: made.id }, order: [["at", "ASC"]] });
+    expect(refundEntries.map((e) => [e.action, e.actorId])).toEqual([
+      ["refund-requested", manager.id],
+      ["refund-settled", null],
+    ]);
   });
 });
 
@@ -292,7 +333,7 @@ describe("who may see and do what", () => {
     expect((await stranger.get(paymentPage.loader, sessionPath, { jobId: job.id })).status).toBe(404);
     expect((await visitors.buyer.get(paymentPage.loader, `/jobs/${job.id}/payment?session_id=cs_test_other`, { jobId: job.id })).status).toBe(404);
 
-    const fields = { amount: "1", reason: "Test", currentPassword: PASSWORD };
+    const fields = { amount: "1", reason: "Test", currentPassword: PASSWORD, confirm: "yes" };
     expect((await visitors.buyer.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id })).status).toBe(403);
     expect((await visitors.shop.post(refund.action, `/payments/${payment.id}/refund`, fields, { paymentId: payment.id })).status).toBe(403);
     const otherManager = await signedIn(await makeOperatorUser("account_manager"));

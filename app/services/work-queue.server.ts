@@ -46,11 +46,15 @@ export function inTransaction(transaction: Transaction): PgBoss.Db {
   return { executeSql: (text, values) => client.query(text, values) };
 }
 
+/** A pg-boss on the app's database; `options` for a test's own second instance. */
+export const createWorkQueue = (options: Omit<PgBoss.ConstructorOptions, "db" | "schema"> = {}) =>
+  new PgBoss({ ...options, db: appConnections, schema: QUEUE_SCHEMA });
+
 let boss: PgBoss | undefined;
 
 /** The process's pg-boss (not started: sending and fetching need no start; workers do). */
 export function workQueue(): PgBoss {
-  boss ??= new PgBoss({ db: appConnections, schema: QUEUE_SCHEMA });
+  boss ??= createWorkQueue();
   return boss;
 }
 

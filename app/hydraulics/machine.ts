@@ -10,7 +10,7 @@ import type { MachineAxis, MachineCyclePhase, MachineDesign } from "./machine-de
 import { machineLines, machineMotor, machineReservoir, neutralPhase } from "./machine-power";
 import { chooseMachinePump, pumpInPhase, type MachinePump } from "./machine-pump";
 import { planAccumulator, type AccumulatorPlan } from "./accumulator";
-import { choosePump } from "./pump-choice";
+import { choosePump, designPump } from "./pump-choice";
 import { hydraulicPowerKw, selectDisplacementCc } from "./pump-motor";
 import type { MachineRequirements } from "./machine-requirements";
 import { machineTimeline, type TimelinePhase } from "./machine-timeline";
@@ -223,19 +223,11 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
     sequence: m.sequence,
     axes,
     cycle,
-    pump: {
-      type: choice.type,
+    pump: designPump(choice, {
       displacementCcRev: choice.displacementsCcRev.reduce((a, b) => a + b, 0),
-      displacementsCcRev: choice.displacementsCcRev,
-      ...(choice.unloadingBar !== null ? { unloadingBar: choice.unloadingBar, unloadedDropBar: A.unloadedDropBar.value } : {}),
-      ...(choice.compensatorBar !== null ? { compensatorBar: choice.compensatorBar } : {}),
-      ...(choice.powerLimitKw !== null ? { powerLimitKw: choice.powerLimitKw } : {}),
-      reason: choice.reason,
       speedRpm: mp.speedRpm,
       requiredDisplacementCcRev: mp.requiredDisplacementCc,
-      volumetricEfficiency: A.volumetricEfficiency.value,
-      overallEfficiency: A.overallEfficiency.value,
-    },
+    }),
     motor: {
       requiredKw: motor.requiredKw,
       ratedKw: motor.ratedKw,

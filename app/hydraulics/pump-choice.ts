@@ -4,6 +4,7 @@
  * pressure-compensated pump, with a power limiter where high flow and high pressure never meet.
  */
 import { A } from "./assumptions";
+import type { Design } from "./design";
 import { pressNeedsControl } from "./press-speed";
 import { pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
 import type { PUMP_TYPES } from "./requirements";
@@ -64,6 +65,23 @@ export interface PumpChoice {
   phases: Record<PumpPhaseName, PumpPhase | null>;
   /** hydraulic power the pump draws in each phase, kW (shaft power = this / η_overall); read from phases */
   hydraulicKw: Record<PumpPhaseName, number>;
+}
+
+/** The design's pump from the choice, an axis's and a machine power unit's alike; only the sizes the caller reached differ. */
+export function designPump(choice: PumpChoice, sized: { displacementCcRev: number; speedRpm: number; requiredDisplacementCcRev: number }): Design["pump"] {
+  return {
+    type: choice.type,
+    displacementCcRev: sized.displacementCcRev,
+    displacementsCcRev: choice.displacementsCcRev,
+    ...(choice.unloadingBar !== null ? { unloadingBar: choice.unloadingBar, unloadedDropBar: A.unloadedDropBar.value } : {}),
+    ...(choice.compensatorBar !== null ? { compensatorBar: choice.compensatorBar } : {}),
+    ...(choice.powerLimitKw !== null ? { powerLimitKw: choice.powerLimitKw } : {}),
+    reason: choice.reason,
+    speedRpm: sized.speedRpm,
+    requiredDisplacementCcRev: sized.requiredDisplacementCcRev,
+    volumetricEfficiency: A.volumetricEfficiency.value,
+    overallEfficiency: A.overallEfficiency.value,
+  };
 }
 
 const hyd = (bar: number, lpm: number): number => (bar * lpm) / 600;

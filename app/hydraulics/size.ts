@@ -23,7 +23,7 @@ import { NotSizableError } from "./not-sizable";
 import { explain } from "./explain";
 import { DEFAULT_FLUID, lineLossBar, sizeLine } from "./lines";
 import { phaseFlowLpm } from "./phases";
-import { pumpPhaseInNeutral } from "./pump-choice";
+import { designPump, pumpPhaseInNeutral } from "./pump-choice";
 import { pressSpeedControlFor } from "./press-speed";
 import { hydraulicPowerKw, pumpDeliveryLpm, selectMotorKw } from "./pump-motor";
 import type { Requirements } from "./requirements";
@@ -326,19 +326,7 @@ export function sizeCircuitParsed(req: Requirements, options: SizingOptions = {}
       extendActual: ev.extendActualMmS,
       retractActual: ev.retractActualMmS,
     },
-    pump: {
-      type: pump.type,
-      displacementCcRev: ev.displacementCc,
-      displacementsCcRev: pump.displacementsCcRev,
-      ...(pump.unloadingBar !== null ? { unloadingBar: pump.unloadingBar, unloadedDropBar: A.unloadedDropBar.value } : {}),
-      ...(pump.compensatorBar !== null ? { compensatorBar: pump.compensatorBar } : {}),
-      ...(pump.powerLimitKw !== null ? { powerLimitKw: pump.powerLimitKw } : {}),
-      reason: pump.reason,
-      speedRpm: ctx.speedRpm,
-      requiredDisplacementCcRev: ev.requiredDisplacementCc,
-      volumetricEfficiency: A.volumetricEfficiency.value,
-      overallEfficiency: etaO,
-    },
+    pump: designPump(pump, { displacementCcRev: ev.displacementCc, speedRpm: ctx.speedRpm, requiredDisplacementCcRev: ev.requiredDisplacementCc }),
     motor: {
       requiredKw: motorRequiredKw,
       ratedKw: motor.ratedKw,

@@ -98,25 +98,21 @@ export function pLineParts(circuit: MachineCircuit): Map<string, MachineCircuitC
   return found;
 }
 
-/** A flow control in a valve's P line: the axis's share of a shared pump, by valve id. */
-export function pLineControls(circuit: MachineCircuit): Map<string, MachineCircuitComponent> {
+/** The part of one kind in each valve's P line, by valve id. */
+function pLinePartsOfKind(circuit: MachineCircuit, kind: MachineCircuitComponent["kind"]): Map<string, MachineCircuitComponent> {
   const found = new Map<string, MachineCircuitComponent>();
   for (const [dcv, parts] of pLineParts(circuit)) {
-    const control = parts.find((c) => c.kind === "flow-control");
-    if (control) found.set(dcv, control);
+    const part = parts.find((c) => c.kind === kind);
+    if (part) found.set(dcv, part);
   }
   return found;
 }
 
+/** A flow control in a valve's P line: the axis's share of a shared pump, by valve id. */
+export const pLineControls = (circuit: MachineCircuit) => pLinePartsOfKind(circuit, "flow-control");
+
 /** A reducing valve in a valve's P line, by valve id. */
-export function pLineReducers(circuit: MachineCircuit): Map<string, MachineCircuitComponent> {
-  const found = new Map<string, MachineCircuitComponent>();
-  for (const [dcv, parts] of pLineParts(circuit)) {
-    const reducer = parts.find((c) => c.kind === "reducing");
-    if (reducer) found.set(dcv, reducer);
-  }
-  return found;
-}
+export const pLineReducers = (circuit: MachineCircuit) => pLinePartsOfKind(circuit, "reducing");
 
 /** The components of one axis (or of the power unit, axis undefined) as a circuit of their own. */
 export function subCircuit(circuit: MachineCircuit, axis: string | undefined, leaveOut: Set<string> = new Set()): Circuit {

@@ -432,22 +432,30 @@ export function GaugeSymbol({ id, centre }: { id: string; centre: Point }) {
   );
 }
 
+/** The diamond of a fluid conditioner (ISO 1219-1: filter, strainer, cooler) across the flow at its centre. */
+function Diamond({ centre: { x, y } }: { centre: Point }) {
+  const d = DIAMOND;
+  return (
+    <polygon
+      points={pts([
+        { x, y: y - d },
+        { x: x + d, y },
+        { x, y: y + d },
+        { x: x - d, y },
+      ])}
+      {...outline}
+      fill="white"
+    />
+  );
+}
+
 /** Filter or strainer: a diamond across the flow with its element line (dashed or dotted). */
 export function FilterSymbol({ id, centre, kind }: { id: string; centre: Point; kind: "filter" | "strainer" }) {
   const { x, y } = centre;
   const d = DIAMOND;
   return (
     <g data-component={id} data-kind={kind}>
-      <polygon
-        points={pts([
-          { x, y: y - d },
-          { x: x + d, y },
-          { x, y: y + d },
-          { x: x - d, y },
-        ])}
-        {...outline}
-        fill="white"
-      />
+      <Diamond centre={centre} />
       <line
         x1={x - d}
         y1={y}
@@ -852,16 +860,7 @@ export function CoolerSymbol({ id, centre }: { id: string; centre: Point }) {
   const d = DIAMOND;
   return (
     <g data-component={id} data-kind="cooler">
-      <polygon
-        points={pts([
-          { x, y: y - d },
-          { x: x + d, y },
-          { x, y: y + d },
-          { x: x - d, y },
-        ])}
-        {...outline}
-        fill="white"
-      />
+      <Diamond centre={centre} />
       <line x1={x - d + 3} y1={y} x2={x + d - 3} y2={y} {...thin} />
       <ArrowHead from={{ x: x - 4, y }} to={{ x: x - d - 6, y }} length={7} half={3.5} />
       <ArrowHead from={{ x: x + 4, y }} to={{ x: x + d + 6, y }} length={7} half={3.5} />

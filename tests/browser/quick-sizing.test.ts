@@ -86,10 +86,10 @@ describe("quick sizing", () => {
       if (m.type() === "error" && !/status of 400/.test(m.text())) errors.push(m.text());
     });
     page.on("pageerror", (e) => errors.push(e.message));
-    // The server's HTML already holds the drawn chart (recharts 2.15 at a fixed size).
+    // The server's HTML already holds the drawn chart (plain SVG at a fixed size).
     const html = await (await page.request.get("/quick-sizing")).text();
     expect(html).toContain("data-cycle-chart");
-    expect(html).toContain('id="cycle-wide-pressure-clip"');
+    expect(html).toContain('<svg id="cycle-wide-pressure"');
     await page.goto("/quick-sizing");
     await hydrated(page);
     await page.getByText("More about the motion").click();
@@ -98,15 +98,15 @@ describe("quick sizing", () => {
     const chart = page.locator("[data-cycle-chart]");
     await expect.poll(() => chart.locator('tr[data-cycle-phase="pressing"]').count(), { timeout: 15_000 }).toBe(1);
     expect(errors).toEqual([]);
-    expect(await chart.locator('[data-cycle-size="wide"] svg.recharts-surface').first().isVisible()).toBe(true);
+    expect(await chart.locator('[data-cycle-size="wide"] svg[data-cycle-panel]').first().isVisible()).toBe(true);
     await chart.screenshot({ path: path.join(SCREENSHOTS, "cycle-chart-1280.png") });
     await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-cycle-1280.png"), fullPage: true });
     await page.setViewportSize({ width: 390, height: 844 });
-    expect(await chart.locator('[data-cycle-size="narrow"] svg.recharts-surface').first().isVisible()).toBe(true);
+    expect(await chart.locator('[data-cycle-size="narrow"] svg[data-cycle-panel]').first().isVisible()).toBe(true);
     await chart.screenshot({ path: path.join(SCREENSHOTS, "cycle-chart-390.png") });
     await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-390.png"), fullPage: true });
     await page.emulateMedia({ media: "print" });
-    expect(await chart.locator('[data-cycle-size="wide"] svg.recharts-surface').first().isVisible()).toBe(true);
+    expect(await chart.locator('[data-cycle-size="wide"] svg[data-cycle-panel]').first().isVisible()).toBe(true);
     await chart.screenshot({ path: path.join(SCREENSHOTS, "cycle-chart-print.png") });
     await page.context().close();
   });

@@ -21,16 +21,16 @@ describe("CycleChart", () => {
 
   it("draws pressure, flow and power on the server, once for phones and once for wider screens and print", () => {
     // three panels in each of the two sizes, each a complete SVG before any JavaScript runs
-    expect(count(html, /<svg[^>]*class="recharts-surface"/g)).toBe(6);
+    expect(count(html, /<svg[^>]*data-cycle-panel=""/g)).toBe(6);
     expect(html).toContain('class="hidden md:block print:block" data-cycle-size="wide"');
     expect(html).toContain('class="overflow-x-auto md:hidden print:hidden" data-cycle-size="narrow"');
     // four lines per size: pressure, pump delivery, cylinder demand (dashed), power
-    expect(count(html, /recharts-line-curve/g)).toBe(8);
-    expect(count(html, /stroke-dasharray="5 3"[^>]*recharts-line-curve/g)).toBe(2);
+    expect(count(html, /data-cycle-line=""/g)).toBe(8);
+    expect(count(html, /stroke-dasharray="5 3"[^>]*data-cycle-line=""/g)).toBe(2);
   });
 
   it("draws steps: each phase holds its value, so every segment is level or upright", () => {
-    const paths = [...html.matchAll(/recharts-line-curve" d="([^"]+)"/g)].map((m) => m[1]);
+    const paths = [...html.matchAll(/data-cycle-line="" d="([^"]+)"/g)].map((m) => m[1]);
     expect(paths.length).toBe(8);
     for (const d of paths) {
       const pts = pathPoints(d);

@@ -27,13 +27,24 @@ const envSchema = z.object({
   SESSION_MAX_DAYS: z.coerce.number().int().min(1).max(90).default(14),
   /** Live sizing sends a request per pause in typing; this allows brisk typing, not scraping. */
   SIZING_REQUESTS_PER_MINUTE: z.coerce.number().int().positive().default(240),
-  /** Folder for uploaded drawings and photos (local-disk storage); relative to the working directory. */
-  UPLOAD_DIR: z.string().min(1).default(".data/uploads"),
+  /** Uploaded files live in an S3-compatible object store; unset endpoint means AWS S3 itself. */
+  S3_ENDPOINT: z.url().optional(),
+  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, "must be a bucket name: 3 to 63 lower-case letters, digits, dots or hyphens"),
+  S3_REGION: z.string().min(1).default("us-east-1"),
+  /** Both or neither; without them the AWS SDK finds credentials itself (AWS_* variables, an instance role). */
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
   /** Stripe: a test or live secret key and the webhook endpoint's signing secret. */
   STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_\w+$/, "must be a Stripe secret key (sk_test_…)"),
   STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_\w+$/, "must be a Stripe webhook signing secret (whsec_…)"),
   /** Only for a local stand-in, e.g. http://127.0.0.1:12111; unset means Stripe itself. */
   STRIPE_API_URL: z.url().optional(),
+});
+
+// Settings that only make sense together.
+const checkedEnvSchema = envSchema.refine((e) => !e.S3_ACCESS_KEY_ID === !e.S3_SECRET_ACCESS_KEY, {
+  path: ["S3_SECRET_ACCESS_KEY"],
+  message: "set both S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY, or neither",
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -42,7 +53,7 @@ let cached: Env | undefined;
 
 export function env(): Env {
   if (cached) return cached;
-  const parsed = envSchema.safeParse(process.env);
+  const parsed = checkedEnvSchema.safeParse(process.env);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
     throw new Error(`Tenderflow cannot start: the environment is incomplete.\n${lines.join("\n")}`);

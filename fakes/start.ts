@@ -1,7 +1,7 @@
 // `npm start`: the whole local stack in one command. It starts the project's own PostgreSQL
-// cluster (data in .data/), migrates and seeds it, starts maildev for e-mail and the Stripe fake
-// for card payments, builds the app and serves it on http://127.0.0.1:3000, then stops
-// everything it started on Ctrl-C.
+// cluster (data in .data/), migrates and seeds it, starts maildev for e-mail, the Stripe fake
+// for card payments and the S3 fake for uploaded files, builds the app and serves it on
+// http://127.0.0.1:3000, then stops everything it started on Ctrl-C.
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import path from "node:path";
@@ -13,6 +13,7 @@ import { migrator } from "../db/migrator";
 import { DEMO_PASSWORD, DEMO_SIGN_INS, seedDemo } from "../db/seeds/demo";
 import { ROLE_LABELS } from "../app/auth/roles";
 import { run, serveBuild, stop } from "./processes";
+import { startS3Fake } from "./s3";
 import { startStripeFake } from "./stripe";
 
 const root = path.resolve(import.meta.dirname, "..");
@@ -22,6 +23,7 @@ const PG_PORT = Number(process.env.TENDERFLOW_PG_PORT ?? 54329);
 const SMTP_PORT = Number(process.env.TENDERFLOW_SMTP_PORT ?? 1025);
 const MAIL_WEB_PORT = Number(process.env.TENDERFLOW_MAIL_WEB_PORT ?? 1080);
 const STRIPE_PORT = Number(process.env.TENDERFLOW_STRIPE_PORT ?? 12111);
+const S3_PORT = Number(process.env.TENDERFLOW_S3_PORT ?? 4569);
 const step = (text: string) => console.log(`\n▸ ${text}`);
 
 /** A secret made once per checkout, so sessions survive restarts of the local stack. */
@@ -93,8 +95,12 @@ async function main() {
     });
   }
 
+  step(`Starting the S3 fake (files in .data/s3, http://127.0.0.1:${S3_PORT}, bucket tenderflow-files)`);
+  const s3Fake = await startS3Fake({ port: S3_PORT, directory: path.join(dataDir, "s3"), bucket: "tenderflow-files" });
+
   const env = {
     ...process.env,
+    ...s3Fake.env,
     NODE_ENV: "production",
     DATABASE_URL: databaseUrl,
     SESSION_SECRET: process.env.SESSION_SECRET ?? localSecret("session-secret"),
@@ -118,6 +124,7 @@ Tenderflow is running.
   App            http://127.0.0.1:${APP_PORT}
   Mail inbox     http://127.0.0.1:${MAIL_WEB_PORT}   (every e-mail the app sends lands here)
   Card payments  ${stripeFake.url}  (Stripe fake: card 4242 4242 4242 4242 pays, 4000 0000 0000 0002 is declined)
+  Stored files   ${s3Fake.url}  (S3 fake, bucket tenderflow-files; kept in .data/s3)
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD})
 ${DEMO_SIGN_INS.map((u) => `  ${ROLE_LABELS[u.role].padEnd(18)} ${u.email.padEnd(30)} ${u.name}, ${u.organisation}`).join("\n")}
@@ -131,6 +138,7 @@ Press Ctrl-C to stop.`);
     console.log("\nStopping…");
     await stop(app);
     await stripeFake.close();
+    await s3Fake.close();
     await maildev.stop();
     if (cluster) stopCluster(cluster);
     process.exit(0);

@@ -14,7 +14,7 @@ import type { User } from "~/models/index.server";
 import { notFound, requireId } from "./errors.server";
 import { ACCEPTED_KINDS_TEXT, FILE_KINDS, SNIFF_BYTES, checkFileType, extensionOf } from "./file-types";
 import { specForReader, specOfOwner } from "./spec-access.server";
-import { fileStorage, newStorageKey } from "./storage.server";
+import { STORAGE_DOWN, StorageUnavailableError, fileStorage, newStorageKey, readingStorage } from "./storage.server";
 
 // Drawings and photos of a spec. Files are checked while the request streams in, stored under
 // random keys, and recorded only when the whole upload is acceptable: a request either attaches
@@ -48,7 +48,7 @@ export interface FileProblem {
 }
 
 export interface AttachmentFormResult {
-  status: 200 | 400 | 409;
+  status: 200 | 400 | 409 | 503;
   attachments: AttachmentView[];
   errors: FileProblem[];
   /** One sentence saying what happened, for a status line or a toast. */
@@ -145,8 +145,15 @@ async function outcome(
   return { status, attachments: (await rowsOf(spec.id, transaction)).map(toView), errors, summary };
 }
 
+/** Deletes a stored file whose row is gone (or never made): a failure leaves litter in the store, never a broken link, so it is logged, not raised. */
+async function forget(storageKey: string) {
+  await fileStorage()
+    .remove(storageKey)
+    .catch((error) => console.error(`Could not delete stored file ${storageKey}:`, error));
+}
+
 async function discard(staged: StagedFile[]) {
-  await Promise.all(staged.map((f) => fileStorage().remove(f.storageKey)));
+  await Promise.all(staged.map((f) => forget(f.storageKey)));
 }
 
 /** What a refused parse means for the person who sent it. */
@@ -198,8 +205,11 @@ async function receiveForm(request: Request, freeSlots: number) {
     }
     if (errors.length > 0) return null;
     const storageKey = newStorageKey(STORAGE_PREFIX);
-    const { size } = await fileStorage().put(storageKey, file.stream());
-    staged.push({ fileName, contentType: FILE_KINDS[check.kind].mediaType, storageKey, sizeBytes: size });
+    // The parser holds a part in memory (at most maxFileBytes) until this handler returns; it
+    // streams on to the store with its length known.
+    const contentType = FILE_KINDS[check.kind].mediaType;
+    const { size } = await fileStorage().put(storageKey, file, contentType);
+    staged.push({ fileName, contentType, storageKey, sizeBytes: size });
     return null;
   };
 
@@ -207,12 +217,16 @@ async function receiveForm(request: Request, freeSlots: number) {
     // The parser stops reading as soon as a part passes the size limit. One file more than a spec
     // holds is let through so that it can be refused by name; beyond that the request is refused.
     const fields = await parseFormData(request, { maxFileSize: maxFileBytes, maxFiles: maxFilesPerSpec + 1, maxParts: maxFilesPerSpec + 20 }, handleFile);
-    return { fields, staged, errors };
+    return { fields, staged, errors, status: 400 as const };
   } catch (error) {
     await discard(staged);
-    // Anything else (a storage failure, say) is ours, not the sender's: it stays a 500.
+    if (error instanceof StorageUnavailableError) {
+      console.error(error);
+      return { fields: null, staged: [], errors: [{ fileName: null, message: `${STORAGE_DOWN} Nothing was attached.` }], status: 503 as const };
+    }
+    // Anything else is ours, not the sender's: it stays a 500.
     if (!(error instanceof FormDataParseError || error instanceof MultipartParseError)) throw error;
-    return { fields: null, staged: [], errors: [...errors, parseProblem(error)] };
+    return { fields: null, staged: [], errors: [...errors, parseProblem(error)], status: 400 as const };
   }
 }
 
@@ -263,10 +277,7 @@ async function detach(spec: Spec, attachmentId: string | undefined): Promise<Att
     return row;
   });
   if (!removed) return outcome(spec, 409, [{ fileName: null, message: NOT_DRAFT }], "Nothing was removed.");
-  // The row is gone, so the file is unreachable; a failed delete leaves litter, not a broken link.
-  await fileStorage()
-    .remove(removed.storageKey)
-    .catch((error) => console.error(`Could not delete stored file ${removed.storageKey}:`, error));
+  await forget(removed.storageKey);
   return outcome(spec, 200, [], `Removed ${removed.fileName}.`);
 }
 
@@ -279,11 +290,11 @@ export async function submitAttachmentForm(user: User, specId: string | undefine
   // Refused before the body is read: a published spec's files are fixed.
   if (spec.status !== "draft") return outcome(spec, 409, [{ fileName: null, message: NOT_DRAFT }], "Nothing was changed.");
   const held = await SpecAttachment.count({ where: { specId: spec.id } });
-  const { fields, staged, errors } = await receiveForm(request, ATTACHMENT_LIMITS.maxFilesPerSpec - held);
+  const { fields, staged, errors, status } = await receiveForm(request, ATTACHMENT_LIMITS.maxFilesPerSpec - held);
   const intent = fields?.get("intent");
   const refuse = async (problems: FileProblem[], summary: string) => {
     await discard(staged);
-    return outcome(spec, 400, problems, summary);
+    return outcome(spec, status, problems, summary);
   };
 
   if (errors.length > 0) return refuse(errors, "Nothing was attached.");
@@ -308,7 +319,7 @@ export async function openAttachment(user: User, specId: string | undefined, att
   const spec = await specForReader(user, specId);
   const row = await SpecAttachment.findOne({ where: { id: requireId(attachmentId), specId: spec.id } });
   if (!row) notFound("No such file.");
-  const body = await fileStorage().get(row.storageKey);
+  const body = await readingStorage(() => fileStorage().get(row.storageKey));
   if (!body) notFound("This file is no longer stored.");
   return { body, fileName: row.fileName, contentType: row.contentType, sizeBytes: row.sizeBytes };
 }
@@ -318,5 +329,5 @@ export async function removeAllAttachments(user: User, specId: string | undefine
   const spec = await specOfOwner(user, specId);
   const rows = await rowsOf(spec.id);
   await SpecAttachment.destroy({ where: { specId: spec.id } });
-  await Promise.all(rows.map((r) => fileStorage().remove(r.storageKey)));
+  await Promise.all(rows.map((r) => forget(r.storageKey)));
 }

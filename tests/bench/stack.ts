@@ -45,8 +45,8 @@ export async function withBenchStack<T>({ demo }: { demo: boolean }, measure: (s
       DATABASE_URL: cluster.url("bench"),
       SESSION_SECRET: "benchmark-secret-benchmark-secret-0123",
       SIZING_REQUESTS_PER_MINUTE: "1000000",
-      UPLOAD_DIR: path.join(root, "uploads"),
-      // Required at boot; no benched route calls the card service.
+      // Required at boot; no benched route calls the card service or stores a file.
+      S3_BUCKET: "tenderflow-bench",
       STRIPE_SECRET_KEY: "sk_test_benchmark",
       STRIPE_WEBHOOK_SECRET: "whsec_benchmark",
     };

@@ -1,6 +1,5 @@
-import { readFile, readdir, rm } from "node:fs/promises";
-import path from "node:path";
-import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { createHash } from "node:crypto";
+import { beforeEach, describe, expect, it } from "vitest";
 import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
 import { Spec, SpecAttachment, type User } from "~/models/index.server";
@@ -8,13 +7,12 @@ import { ATTACHMENT_LIMITS, cleanFileName, contentDisposition, removeAllAttachme
 import { makeMember } from "../support/factories";
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
-
-const UPLOAD_DIR = process.env.UPLOAD_DIR!;
-afterAll(() => rm(UPLOAD_DIR, { recursive: true, force: true }));
+import { storedKeys as storedFiles, storedObject } from "../support/stored-files";
 
 // Minimal real openings of the accepted formats; the rest of each file is filler.
 const PDF_BYTES = new TextEncoder().encode("%PDF-1.7\n1 0 obj\n<< /Type /Catalog >>\nendobj\n%%EOF\n");
 const PNG_BYTES = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 0x0d, 0x49, 0x48, 0x44, 0x52]);
+const sha256 = (bytes: Uint8Array) => createHash("sha256").update(bytes).digest("hex");
 const pdf = (name = "layout.pdf") => new File([PDF_BYTES], name, { type: "application/pdf" });
 const png = (name = "photo.png") => new File([PNG_BYTES], name, { type: "image/png" });
 
@@ -60,17 +58,8 @@ async function downloadedBytes(visitor: Visitor, specId: string, attachmentId: s
   return new Uint8Array(await response.arrayBuffer());
 }
 
-/** Every file under UPLOAD_DIR, so a test can tell that nothing was left behind. */
-async function storedFiles(): Promise<string[]> {
-  const entries = await readdir(UPLOAD_DIR, { recursive: true, withFileTypes: true }).catch(() => []);
-  return entries
-    .filter((e) => e.isFile())
-    .map((e) => path.join(e.parentPath, e.name))
-    .sort();
-}
-
 describe("uploading drawings and photos to a draft", () => {
-  it("stores each file under a random key, records it and lists it", async () => {
+  it("stores each file in the bucket under a random key, records it and lists it", async () => {
     const buyer = await makeMember("buyer");
     const visitor = await signedIn(buyer);
     const spec = await draftOf(buyer);
@@ -89,12 +78,10 @@ describe("uploading drawings and photos to a draft", () => {
       ["image/png", buyer.id],
     ]);
     const files = await storedFiles();
-    expect(files).toHaveLength(2);
-    for (const row of rows) {
-      expect(row.storageKey).not.toMatch(/press|photo|\.pdf|\.png/i);
-      expect(files).toContain(path.join(UPLOAD_DIR, ...row.storageKey.split("/")));
-    }
-    expect(await readFile(path.join(UPLOAD_DIR, ...rows[0].storageKey.split("/")))).toEqual(Buffer.from(PDF_BYTES));
+    for (const row of rows) expect(files).toContain(row.storageKey);
+    for (const row of rows) expect(row.storageKey).not.toMatch(/press|photo|\.pdf|\.png/i);
+    expect(await storedObject(rows[0].storageKey)).toEqual({ bytes: PDF_BYTES, contentType: "application/pdf" });
+    expect(await storedObject(rows[1].storageKey)).toEqual({ bytes: PNG_BYTES, contentType: "image/png" });
 
     const list = await call(attachments.loader, visitor.request(`/specs/${spec.id}/attachments`), { specId: spec.id });
     expect(list.data.attachments.map((a: { downloadUrl: string }) => a.downloadUrl)).toEqual(
@@ -171,6 +158,9 @@ describe("refused uploads store nothing", () => {
     const res = await post(visitor, spec.id, uploadForm(new File([limit], "limit.pdf")));
     expect(res.status).toBe(200);
     expect(res.data.attachments[0].sizeBytes).toBe(ATTACHMENT_LIMITS.maxFileBytes);
+    const row = await SpecAttachment.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
+    // Compared by digest: a deep equality of ten million bytes takes minutes.
+    expect(sha256((await storedObject(row.storageKey)).bytes)).toBe(sha256(limit));
   });
 
   it("refuses an empty file", async () => {
@@ -284,7 +274,9 @@ describe("removing files", () => {
     expect(res.data.summary).toBe("Removed drop.pdf.");
     expect(res.data.attachments.map((a: { fileName: string }) => a.fileName)).toEqual(["keep.pdf"]);
     expect(await SpecAttachment.findByPk(drop.id)).toBeNull();
-    expect(await storedFiles()).not.toContain(path.join(UPLOAD_DIR, ...dropRow.storageKey.split("/")));
+    const keepRow = await SpecAttachment.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
+    expect(await storedFiles()).not.toContain(dropRow.storageKey);
+    expect(await storedFiles()).toContain(keepRow.storageKey);
     expect((await fetchFile(owner, spec.id, drop.id)).status).toBe(404);
   });
 
@@ -322,8 +314,8 @@ describe("deleting a draft's files", () => {
     await removeAllAttachments(buyer, spec.id);
     expect(await SpecAttachment.count({ where: { specId: spec.id } })).toBe(0);
     const kept = await SpecAttachment.findOne({ where: { specId: other.id }, rejectOnEmpty: true });
-    expect(await storedFiles()).toContain(path.join(UPLOAD_DIR, ...kept.storageKey.split("/")));
-    expect(await storedFiles()).toHaveLength(await SpecAttachment.count());
+    expect(await storedFiles()).toEqual((await SpecAttachment.findAll()).map((r) => r.storageKey).sort());
+    expect(await storedFiles()).toContain(kept.storageKey);
   });
 });
 

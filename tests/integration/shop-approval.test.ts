@@ -1,8 +1,7 @@
 // A shop organisation reads no spec until an admin approves it: not the open-specs table, the
 // spec page, its files, its questions, the bid form or the bill workbook, and publishing does not
 // mail it. The admin approves or refuses (with a reason) and the shop is mailed either way.
-import { rm } from "node:fs/promises";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as openSpecs from "~/routes/open-specs";
 import * as specPage from "~/routes/spec";
 import * as attachmentsRoute from "~/routes/spec-attachments";
@@ -17,8 +16,6 @@ import { bomOf } from "~/services/bids.server";
 import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
-
-afterAll(() => rm(process.env.UPLOAD_DIR!, { recursive: true, force: true }));
 
 let buyer: User;
 let admin: User;

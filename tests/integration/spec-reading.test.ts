@@ -1,7 +1,6 @@
 // Reading a spec: what shops see of a published spec (quotation facts, drawings with working
 // download links) and who else may read it (the account's manager, admins for published specs).
-import { rm } from "node:fs/promises";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import * as specPage from "~/routes/spec";
 import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
@@ -10,8 +9,6 @@ import { createDraft, publish, saveStep } from "~/services/specs.server";
 import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
-
-afterAll(() => rm(process.env.UPLOAD_DIR!, { recursive: true, force: true }));
 
 const PDF_BYTES = new TextEncoder().encode("%PDF-1.7\n1 0 obj\n<< /Type /Catalog >>\nendobj\n%%EOF\n");
 

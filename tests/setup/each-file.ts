@@ -1,5 +1,5 @@
-// Runs before each test file: a fresh database cloned from the migrated template, and the
-// environment the app reads, set before any app module is imported.
+// Runs before each test file: a fresh database cloned from the migrated template, a bucket of
+// its own in the S3 fake, and the environment the app reads, set before any app module is imported.
 import { randomBytes } from "node:crypto";
 import pg from "pg";
 import { afterAll, inject } from "vitest";
@@ -11,6 +11,12 @@ const admin = new pg.Client({ connectionString: adminUrl });
 await admin.connect();
 await admin.query(`CREATE DATABASE ${dbName} TEMPLATE ${inject("templateDb")}`);
 await admin.end();
+
+// s3rver takes unsigned requests: a plain PUT makes the bucket without loading the AWS SDK in
+// every file (most never store a file).
+const s3Env = { ...inject("s3Env"), S3_BUCKET: `files-${dbName.replace(/_/g, "-")}` };
+const bucket = await fetch(`${s3Env.S3_ENDPOINT}/${s3Env.S3_BUCKET}`, { method: "PUT" });
+if (!bucket.ok) throw new Error(`The S3 fake did not create ${s3Env.S3_BUCKET}: ${bucket.status} ${await bucket.text()}`);
 
 const url = new URL(adminUrl);
 url.pathname = `/${dbName}`;
@@ -26,7 +32,7 @@ Object.assign(process.env, {
   STRIPE_SECRET_KEY: "sk_test_tenderflowTests",
   STRIPE_WEBHOOK_SECRET: inject("stripeWebhookSecret"),
   STRIPE_API_URL: inject("stripeUrl"),
-  UPLOAD_DIR: `${(await import("node:os")).tmpdir()}/tenderflow-uploads-${dbName}`,
+  ...s3Env,
 });
 
 afterAll(async () => {

@@ -1,6 +1,7 @@
 // Starts what every test file shares: a throwaway PostgreSQL cluster with a migrated template
-// database (each file clones its own database from it), a maildev inbox and the Stripe fake
-// (for API calls; a file that needs webhooks delivered starts its own fake pointed at its app).
+// database (each file clones its own database from it), a maildev inbox, the Stripe fake
+// (for API calls; a file that needs webhooks delivered starts its own fake pointed at its app)
+// and an S3 fake for uploaded files (each file makes its own bucket in it).
 import { execFileSync } from "node:child_process";
 import { existsSync, mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
@@ -11,6 +12,7 @@ import { Sequelize } from "sequelize";
 import type { TestProject } from "vitest/node";
 import { freePort, removeCluster, startCluster, stopCluster } from "../../db/cluster";
 import { migrator } from "../../db/migrator";
+import { startS3Fake, type S3FakeEnv } from "../../fakes/s3";
 import { startStripeFake } from "../../fakes/stripe";
 
 export const TEMPLATE_DB = "tenderflow_template";
@@ -23,6 +25,8 @@ declare module "vitest" {
     maildevUrl: string;
     stripeUrl: string;
     stripeWebhookSecret: string;
+    /** The S3 fake's settings; S3_BUCKET is each file's own. */
+    s3Env: S3FakeEnv;
     /** Where browser tests build the app, once per run (built by the first that needs it). */
     buildDir: string;
   }
@@ -72,9 +76,11 @@ export default async function setup(project: TestProject) {
 
   const stripeWebhookSecret = "whsec_tenderflowTests";
   const stripe = await startStripeFake({ webhookSecret: stripeWebhookSecret });
+  const s3 = await startS3Fake({ directory: path.join(root, "s3"), bucket: "tenderflow-tests" });
 
   project.provide("stripeUrl", stripe.url);
   project.provide("stripeWebhookSecret", stripeWebhookSecret);
+  project.provide("s3Env", s3.env);
   // Inside the project (git-ignored build/), so the server build resolves node_modules.
   const buildDir = path.resolve("build", `test-${path.basename(root)}`);
   project.provide("buildDir", buildDir);
@@ -85,6 +91,7 @@ export default async function setup(project: TestProject) {
 
   return async () => {
     await stripe.close();
+    await s3.close();
     await maildev.stop();
     stopCluster(cluster, "immediate");
     removeCluster(cluster);

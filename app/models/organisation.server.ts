@@ -18,6 +18,12 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
   declare approvalReason: CreationOptional<string | null>;
   declare approvalDecidedById: CreationOptional<ForeignKey<string> | null>;
   declare approvalDecidedAt: CreationOptional<Date | null>;
+  /** The company profile (settings): postal address, tax number and who answers about quotes. */
+  declare address: CreationOptional<string | null>;
+  declare taxNumber: CreationOptional<string | null>;
+  declare quoteContactName: CreationOptional<string | null>;
+  declare quoteContactEmail: CreationOptional<string | null>;
+  declare quoteContactPhone: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -39,6 +45,11 @@ Organisation.init(
     approvalReason: { type: DataTypes.TEXT, allowNull: true },
     approvalDecidedById: { type: DataTypes.UUID, allowNull: true },
     approvalDecidedAt: { type: DataTypes.DATE, allowNull: true },
+    address: { type: DataTypes.STRING(300), allowNull: true },
+    taxNumber: { type: DataTypes.STRING(40), allowNull: true },
+    quoteContactName: { type: DataTypes.STRING(120), allowNull: true },
+    quoteContactEmail: { type: DataTypes.STRING(254), allowNull: true },
+    quoteContactPhone: { type: DataTypes.STRING(40), allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

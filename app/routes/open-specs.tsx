@@ -9,6 +9,7 @@ import { OPEN_SPEC_SORTS, OPEN_SPEC_SORT_LABELS, readOpenSpecsQuery, type OpenSp
 import { listOpenSpecsForShop } from "~/services/open-specs.server";
 import { approvalStateOf, type ApprovalState } from "~/services/shop-approval.server";
 import { formatQuantity, unitLabel, type UnitSystem } from "~/units";
+import { profileLine } from "~/components/organisation-profile";
 
 export const meta: Route.MetaFunction = () => [{ title: "Open specs · Tenderflow" }];
 
@@ -230,7 +231,7 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
                     </td>
                     <td className="py-2 pr-3">
                       <span className="block">{s.deliveryRegion ?? "—"}</span>
-                      {s.buyerRegion ? <span className="block text-xs text-ink-600">Builder in {s.buyerRegion}</span> : null}
+                      {s.buyerRegion ? <span className="block text-xs text-ink-600">{profileLine({ kind: "buyer", region: s.buyerRegion })}</span> : null}
                     </td>
                     <td className="py-2 text-right tabular-nums">
                       {s.reliefSettingBar === null ? "—" : formatQuantity("pressure", s.reliefSettingBar, d.unitSystem)}

@@ -7,7 +7,10 @@ import { liveSessionsOf, redirectWithToast, signOutEverywhere, signOutRedirect }
 import { FieldErrors, TextField } from "~/components/form-field";
 import { Button, Card, PageHeader } from "~/components/ui";
 import { formatMoment } from "~/content/dates";
+import { ProfileForm } from "~/components/profile-form";
 import { settingsSchema } from "~/schemas/account";
+import { profileSchema } from "~/schemas/profile";
+import { ownProfile, saveProfile } from "~/services/organisation-profile.server";
 import { updateSettings } from "~/services/accounts.server";
 import { UNIT_SYSTEMS, UNIT_SYSTEM_LABELS } from "~/units";
 
@@ -15,8 +18,8 @@ export const meta: Route.MetaFunction = () => [{ title: "Your settings · Tender
 
 export async function loader({ request }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  const sessions = await liveSessionsOf(request, user.id);
-  return { name: user.name, email: user.email, unitSystem: user.unitSystem, sessions };
+  const [sessions, own] = await Promise.all([liveSessionsOf(request, user.id), ownProfile(user)]);
+  return { name: user.name, email: user.email, unitSystem: user.unitSystem, sessions, profile: own.canEdit ? own.profile : null };
 }
 
 export async function action({ request }: Route.ActionArgs) {
@@ -26,6 +29,12 @@ export async function action({ request }: Route.ActionArgs) {
     await signOutEverywhere(user.id);
     return signOutRedirect(request, "/sign-in", "You are signed out on every browser, this one included.");
   }
+  if (form.get("intent") === "profile") {
+    const profile = parseWithZod(form, { schema: profileSchema });
+    if (profile.status !== "success") return data({ profile: profile.reply() }, { status: 400 });
+    await saveProfile(user, profile.value);
+    return redirectWithToast(request, "/settings", "Company profile saved.");
+  }
   const submission = parseWithZod(form, { schema: settingsSchema });
   if (submission.status !== "success") return data(submission.reply(), { status: 400 });
   await updateSettings(user, submission.value);
@@ -34,7 +43,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function Settings({ loaderData, actionData }: Route.ComponentProps) {
   const [form, fields] = useForm({
-    lastResult: actionData,
+    lastResult: actionData && !("profile" in actionData) ? actionData : undefined,
     defaultValue: { name: loaderData.name, unitSystem: loaderData.unitSystem },
     onValidate: ({ formData }) => parseWithZod(formData, { schema: settingsSchema }),
     shouldValidate: "onBlur",
@@ -71,6 +80,9 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
           <Button type="submit">Save settings</Button>
         </Form>
       </Card>
+      {loaderData.profile ? (
+        <ProfileForm profile={loaderData.profile} lastResult={actionData && "profile" in actionData ? actionData.profile : undefined} />
+      ) : null}
       <Card className="mt-6 max-w-xl">
         <h2 className="font-semibold">Where you are signed in</h2>
         <ul className="mt-3 divide-y divide-ink-100 text-sm">

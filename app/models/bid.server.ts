@@ -2,6 +2,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import { sequelize } from "~/db.server";
 import { centsColumn } from "./columns.server";
 import { BID_STATUSES, type BidStatus } from "~/content/bid-status";
+import type { AlternativeCircuit, OfferExtra, OfferTerms, OwnLine } from "~/content/offer-terms";
 
 /** One priced line of a bid: a line of the spec's bill of materials, or an alternative to it. */
 export interface BidLine {
@@ -24,7 +25,12 @@ export interface BidOffer {
   currency: string;
   leadTimeWeeks: number | null;
   validUntil: string | null;
-  terms: string;
+  /** free-text terms of versions offered before structured terms (migration 0013) */
+  terms?: string;
+  extras?: OfferExtra[];
+  ownLines?: OwnLine[];
+  offerTerms?: OfferTerms | null;
+  alternativeCircuit?: AlternativeCircuit | null;
   notes: string;
 }
 
@@ -43,7 +49,12 @@ export class Bid extends Model<InferAttributes<Bid>, InferCreationAttributes<Bid
   declare totalCents: CreationOptional<number>;
   declare leadTimeWeeks: number | null;
   declare validUntil: string | null;
-  declare terms: CreationOptional<string>;
+  /** the work beyond the bill, one answer per kind (none before migration 0013: nothing offered) */
+  declare extras: CreationOptional<OfferExtra[]>;
+  /** the shop's own lines, each for the whole order */
+  declare ownLines: CreationOptional<OwnLine[]>;
+  declare offerTerms: CreationOptional<OfferTerms | null>;
+  declare alternativeCircuit: CreationOptional<AlternativeCircuit | null>;
   declare notes: CreationOptional<string>;
   declare submittedAt: Date | null;
   declare createdAt: CreationOptional<Date>;
@@ -66,7 +77,10 @@ Bid.init(
     totalCents: centsColumn("totalCents", 0),
     leadTimeWeeks: { type: DataTypes.INTEGER, allowNull: true },
     validUntil: { type: DataTypes.DATEONLY, allowNull: true },
-    terms: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+    extras: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+    ownLines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+    offerTerms: { type: DataTypes.JSONB, allowNull: true },
+    alternativeCircuit: { type: DataTypes.JSONB, allowNull: true },
     notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
     submittedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,
@@ -98,4 +112,30 @@ BidVersion.init(
     createdAt: DataTypes.DATE,
   },
   { sequelize, tableName: "bid_versions", updatedAt: false },
+);
+
+/** A document a shop attaches to its offer (quotation PDF, datasheet, drawing); the bytes are in file storage. */
+export class BidDocument extends Model<InferAttributes<BidDocument>, InferCreationAttributes<BidDocument>> {
+  declare id: CreationOptional<string>;
+  declare bidId: string;
+  declare fileName: string;
+  declare contentType: string;
+  declare sizeBytes: number;
+  declare storageKey: string;
+  declare uploadedById: string;
+  declare createdAt: CreationOptional<Date>;
+}
+
+BidDocument.init(
+  {
+    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+    bidId: { type: DataTypes.UUID, allowNull: false },
+    fileName: { type: DataTypes.STRING(200), allowNull: false },
+    contentType: { type: DataTypes.STRING(100), allowNull: false },
+    sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
+    storageKey: { type: DataTypes.STRING(200), allowNull: false, unique: true },
+    uploadedById: { type: DataTypes.UUID, allowNull: false },
+    createdAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: "bid_documents", updatedAt: false },
 );

@@ -8,13 +8,16 @@ import type { Route } from "./+types/spec-bid";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { FieldErrors as FieldErrorText, TextField } from "~/components/form-field";
+import { FieldErrors as FieldErrorText, TextAreaField } from "~/components/form-field";
 import { Badge, Button, Card, Notice, PageHeader, TableScroll } from "~/components/ui";
 import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/bid-status";
-import { bidTotals, centsToInput, formatMoney, parseMoney } from "~/content/money";
+import { centsToInput, formatMoney, parseMoney } from "~/content/money";
+import { offerDefaults, typedExtras, typedOwnLines } from "~/content/offer-form";
 import { bidSchema, linesMatchBill } from "~/schemas/bid";
 import { bidOfShop, billOfRevision, bomOf, historyOf, saveBid, withdrawBid } from "~/services/bids.server";
 import { servedBy } from "~/services/published-design";
+import { AlternativeCircuitFields, OfferExtrasFields, OfferTermsFields } from "~/components/offer-fields";
+import { offerTotals } from "~/content/offer-terms";
 import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
 import { specForReader } from "~/services/spec-access.server";
 
@@ -33,6 +36,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       revision: spec.currentRevision,
       currency: spec.currency,
       units: spec.unitsWanted ?? 1,
+      retainerPercent: spec.retainerPercent ?? null,
       deadline: spec.bidDeadline?.toISOString() ?? null,
       accepting: takesBids(spec),
       /** a machine's axes, in order; none for one axis */
@@ -65,7 +69,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       }),
       leadTimeWeeks: bid?.leadTimeWeeks != null ? String(bid.leadTimeWeeks) : "",
       validUntil: bid?.validUntil ?? "",
-      terms: bid?.terms ?? "",
+      validDays: "",
+      ...offerDefaults(bid),
       notes: bid?.notes ?? "",
     },
     history: history.map((v) => ({
@@ -138,9 +143,11 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
   // A preview only: the server prices the bid again from what is sent.
   const typed = (form.value?.lines ?? d.defaults.lines) as { unitPrice?: string; alternative?: string }[];
   const cents = d.bill.map((l, i) => ({ quantity: l.quantity, unitPriceCents: parseMoney(typed[i]?.unitPrice ?? "") }));
-  const preview = bidTotals(
+  const preview = offerTotals(
     cents.map((c) => ({ quantity: c.quantity, unitPriceCents: c.unitPriceCents ?? 0 })),
     d.spec.units,
+    typedExtras(form.value),
+    typedOwnLines(form.value),
   );
   const unpriced = cents.filter((c, i) => c.unitPriceCents === null && !(typed[i]?.unitPrice ?? "").trim()).length;
   const unreadable = cents.filter((c, i) => c.unitPriceCents === null && (typed[i]?.unitPrice ?? "").trim()).length;
@@ -296,10 +303,10 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
                   </tr>
                   <tr>
                     <td colSpan={3} className="py-2 pr-3 text-right">
-                      × {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}: your offer
+                      × {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}: the bill
                     </td>
                     <td className="py-2 pr-3 text-right text-base tabular-nums" data-testid="offer-total">
-                      {money(preview.totalCents)}
+                      {money(preview.billCents)}
                     </td>
                     <td className="py-2 text-xs font-normal text-ink-600">
                       {[
@@ -315,40 +322,21 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
             </TableScroll>
           </Card>
 
-          <Card className="grid gap-5 sm:grid-cols-2">
-            <TextField
-              meta={fields.leadTimeWeeks}
-              label="Lead time (weeks)"
-              hint="From the award to dispatch, e.g. 12; the job's milestones are planned over it."
-              inputMode="numeric"
-            />
-            <TextField meta={fields.validUntil} type="date" label="Offer valid until" hint="At least until the bid deadline." />
-            <div className="sm:col-span-2">
-              <label htmlFor={fields.terms.id} className="block text-sm font-semibold text-ink-800">
-                Terms
-              </label>
-              <textarea
-                {...getTextareaProps(fields.terms)}
-                key={fields.terms.key}
-                rows={3}
-                placeholder="Payment, delivery (e.g. ex works), warranty"
-                className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200"
-              />
-              <FieldErrorText id={fields.terms.errorId} errors={fields.terms.errors} />
-            </div>
-            <div className="sm:col-span-2">
-              <label htmlFor={fields.notes.id} className="block text-sm font-semibold text-ink-800">
-                Notes for the buyer
-              </label>
-              <textarea
-                {...getTextareaProps(fields.notes)}
-                key={fields.notes.key}
-                rows={3}
-                placeholder="Anything the buyer should know about your offer"
-                className="mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200"
-              />
-              <FieldErrorText id={fields.notes.errorId} errors={fields.notes.errors} />
-            </div>
+          <OfferExtrasFields form={form} fields={fields} currency={d.spec.currency} />
+          <OfferTermsFields fields={fields} retainerPercent={d.spec.retainerPercent} />
+          <AlternativeCircuitFields form={form} fields={fields} currency={d.spec.currency} units={d.spec.units} />
+          <Card>
+            <TextAreaField meta={fields.notes} label="Notes for the buyer" placeholder="Anything the buyer should know about your offer" maxLength={4000} />
+          </Card>
+
+          <Card className="flex flex-wrap items-baseline gap-x-6 gap-y-1" data-testid="offer-summary">
+            <span className="text-sm text-ink-600">
+              Bill {money(preview.billCents)} + work beyond it {money(preview.extrasCents)}
+              {preview.ownLinesCents ? ` + your own lines ${money(preview.ownLinesCents)}` : ""}
+            </span>
+            <span className="font-semibold">
+              Your offer: <span data-testid="offer-grand-total">{money(preview.totalCents)}</span>
+            </span>
           </Card>
 
           <div className="flex flex-wrap items-center gap-3">

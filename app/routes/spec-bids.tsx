@@ -18,6 +18,7 @@ import { COMPARISON_SORTS, type ComparisonSort } from "~/services/bid-comparison
 import { comparisonOf } from "~/services/bids.server";
 import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
 import { specOfOwner } from "~/services/spec-access.server";
+import { AlternativeCircuits, ExtraRows, OfferTermsRows } from "~/components/offer-comparison";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Bids · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
 
@@ -87,7 +88,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
     refusal.current.scrollIntoView({ block: "center" });
     refusal.current.focus();
   }, [actionData]);
-  const { columns, rows, subtotals, cheapestCompleteId } = d.comparison;
+  const { columns, rows, subtotals, extraRows, cheapestCompleteId } = d.comparison;
   const money = (c: number) => formatMoney(c, d.spec.currency);
   const cheapest = columns.find((c) => c.id === cheapestCompleteId);
   const { canAward } = d;
@@ -143,12 +144,13 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
         <>
           {cheapest ? (
             <div className="mb-4 rounded-lg bg-flow-50 p-4 ring-1 ring-flow-600" data-testid="cheapest-summary">
-              <p className="text-sm font-semibold uppercase tracking-wide text-flow-700">Cheapest complete offer</p>
+              <p className="text-sm font-semibold uppercase tracking-wide text-flow-700">Cheapest complete offer, like for like</p>
               <p className="text-xl font-semibold text-ink-900">
                 {cheapest.shop}: {money(cheapest.totalCents)}
               </p>
               <p className="text-sm text-ink-700">
-                Every line of the current bill priced · {cheapest.leadTimeWeeks ?? "?"} weeks · valid until{" "}
+                Every line of the current bill priced · {money(cheapest.likeForLikeCents)} for the bill and the work every offer covers
+                {cheapest.leavesOut.length ? ` · ${cheapest.leavesOut.join(", ")}` : ""} · {cheapest.leadTimeWeeks ?? "?"} weeks · valid until{" "}
                 {cheapest.validUntil ? day(cheapest.validUntil) : "—"}
                 {cheapest.alternatives ? ` · ${cheapest.alternatives} alternative part${cheapest.alternatives === 1 ? "" : "s"}` : ""}
                 {cheapest.olderRevision ? ` · made on revision ${cheapest.specRevision}` : ""}
@@ -273,6 +275,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                     ))}
                   </tr>
                 ))}
+                <ExtraRows rows={extraRows} columns={columns} money={money} />
               </tbody>
               <tfoot className="border-t-2 border-ink-300">
                 {/* A machine: what each offer asks for the power unit and for each axis (one set), so parts compare like for like. */}
@@ -290,15 +293,17 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 ))}
                 <tr>
                   <th scope="row" className="sticky left-0 bg-white p-3 text-left">
-                    Total for {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}
+                    Offer total, {d.spec.units} unit{d.spec.units === 1 ? "" : "s"}
+                    <span className="block text-xs font-normal text-ink-600">the bill and all the work offered</span>
                   </th>
                   {columns.map((c) => (
                     <td key={c.id} className={`p-3 text-right text-base font-semibold tabular-nums ${c.cheapestComplete ? "bg-flow-50 text-flow-700" : ""}`}>
                       {money(c.totalCents)}
-                      {d.spec.units > 1 ? <span className="block text-xs font-normal text-ink-600">{money(c.setTotalCents)} a set</span> : null}
-                      {cheapest && !c.cheapestComplete && c.totalCents > cheapest.totalCents ? (
+                      {d.spec.units > 1 ? <span className="block text-xs font-normal text-ink-600">bill {money(c.setTotalCents)} a set</span> : null}
+                      {cheapest && !c.cheapestComplete && c.likeForLikeCents > cheapest.likeForLikeCents ? (
                         <span className="block text-xs font-normal text-signal-700">
-                          {money(c.totalCents - cheapest.totalCents)} more ({(((c.totalCents - cheapest.totalCents) / cheapest.totalCents) * 100).toFixed(1)} %)
+                          {money(c.likeForLikeCents - cheapest.likeForLikeCents)} more like for like (
+                          {(((c.likeForLikeCents - cheapest.likeForLikeCents) / cheapest.likeForLikeCents) * 100).toFixed(1)} %)
                         </span>
                       ) : null}
                     </td>
@@ -326,16 +331,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                   ))}
                 </tr>
                 {/* What each price includes and on what terms, beside the prices, so nobody awards blind. */}
-                <tr className="border-t border-ink-100 align-top">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
-                    Terms
-                  </th>
-                  {columns.map((c) => (
-                    <td key={c.id} className="p-3 text-left text-xs whitespace-pre-line text-ink-800" data-terms={c.id}>
-                      {c.terms || <span className="text-ink-400">none stated</span>}
-                    </td>
-                  ))}
-                </tr>
+                <OfferTermsRows columns={columns} money={money} />
                 <tr className="border-t border-ink-100 align-top">
                   <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
                     Notes from the shop
@@ -371,6 +367,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
               </tfoot>
             </table>
           </TableScroll>
+          <AlternativeCircuits columns={columns} money={money} units={d.spec.units} />
         </>
       )}
     </>

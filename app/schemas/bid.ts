@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { MAX_UNIT_PRICE_CENTS, moneyProblem, parseMoney } from "~/content/money";
-import { isIsoDay, todayUtc as today } from "~/content/dates";
+import { addDays, isIsoDay, todayUtc as today } from "~/content/dates";
+import { EXTRA_ANSWERS, EXTRA_KEYS, INCOTERM_CODES, OFFER_LIMITS } from "~/content/offer-terms";
 
 // The bid form's schema, shared by the action and the Conform form. A draft may leave prices
 // and terms open; a submitted offer prices every line and states lead time and validity.
@@ -21,39 +22,125 @@ const lineSchema = z.object({
 
 const BID_INTENTS = ["save", "submit"] as const;
 
-export const bidSchema = z
-  .object({
-    intent: z.enum(BID_INTENTS),
-    lines: z.array(lineSchema).min(1, "The bid has no lines.").max(200),
-    leadTimeWeeks: z
-      .number({ error: "Enter the lead time in whole weeks." })
-      .int("Enter whole weeks.")
-      .min(1, "At least 1 week.")
-      .max(156, "At most 156 weeks.")
-      .optional(),
-    validUntil: z.string().refine(isIsoDay, "Enter a real date, e.g. 2026-09-30.").optional(),
-    terms: optionalText(4000),
-    notes: optionalText(4000),
-  })
-  .superRefine((bid, ctx) => {
-    const submitting = bid.intent === "submit";
-    bid.lines.forEach((line, i) => {
-      if (line.unitPrice) {
-        const cents = parseMoney(line.unitPrice);
-        if (cents === null) ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: moneyProblem(line.unitPrice)! });
-        else if (cents > MAX_UNIT_PRICE_CENTS)
-          ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: "That is more than a billion; check the amount." });
-      } else if (submitting) {
-        ctx.addIssue({ code: "custom", path: ["lines", i, "unitPrice"], message: "Price every line before you submit (0 if it is included elsewhere)." });
-      }
-      if (line.alternative && !line.alternativeDescription) {
-        ctx.addIssue({ code: "custom", path: ["lines", i, "alternativeDescription"], message: "Describe the part you offer instead." });
-      }
-    });
-    if (submitting && bid.leadTimeWeeks === undefined) ctx.addIssue({ code: "custom", path: ["leadTimeWeeks"], message: "Enter the lead time in weeks." });
-    if (submitting && !bid.validUntil) ctx.addIssue({ code: "custom", path: ["validUntil"], message: "Enter how long the offer is valid." });
-    if (bid.validUntil && bid.validUntil <= today()) ctx.addIssue({ code: "custom", path: ["validUntil"], message: "The offer must be valid beyond today." });
+const wholeNumber = (what: string, min: number, max: number) =>
+  z
+    .number({ error: `Enter ${what} as a whole number.` })
+    .int(`Enter ${what} as a whole number.`)
+    .min(min, `At least ${min}.`)
+    .max(max, `At most ${max}.`)
+    .optional();
+
+/** A money field: text, judged by the money rules in superRefine (so a typo keeps what was typed). */
+const moneyText = z.string().trim().max(30, "Enter an amount like 1250.00.").optional();
+
+const extraSchema = z.object({
+  kind: z.enum(EXTRA_KEYS),
+  answer: z.enum(EXTRA_ANSWERS, { error: "Choose priced, included or not offered." }),
+  price: moneyText,
+});
+
+const ownLineSchema = z.object({ name: optionalText(OFFER_LIMITS.ownLineName), price: moneyText });
+
+const alternativeLineSchema = z.object({
+  name: optionalText(OFFER_LIMITS.ownLineName),
+  quantity: wholeNumber("the quantity", 1, 999),
+  price: moneyText,
+});
+
+const INCOTERM_ERROR = `Choose one of the Incoterms 2020 rules: ${INCOTERM_CODES.join(", ")}.`;
+
+const bidFields = z.object({
+  intent: z.enum(BID_INTENTS),
+  lines: z.array(lineSchema).min(1, "The bid has no lines.").max(200),
+  leadTimeWeeks: z
+    .number({ error: "Enter the lead time in whole weeks." })
+    .int("Enter whole weeks.")
+    .min(1, "At least 1 week.")
+    .max(156, "At most 156 weeks.")
+    .optional(),
+  validUntil: z.string().refine(isIsoDay, "Enter a real date, e.g. 2026-09-30.").optional(),
+  validDays: wholeNumber("the days", 1, 365),
+  extras: z.array(extraSchema).max(EXTRA_KEYS.length).optional(),
+  ownLines: z.array(ownLineSchema).max(OFFER_LIMITS.ownLines, `At most ${OFFER_LIMITS.ownLines} lines of your own.`).optional(),
+  incoterm: z.enum(INCOTERM_CODES, { error: INCOTERM_ERROR }).optional(),
+  place: optionalText(OFFER_LIMITS.place),
+  retainerPercent: wholeNumber("the percentage", 0, 100),
+  onDeliveryPercent: wholeNumber("the percentage", 0, 100),
+  balanceDays: wholeNumber("the days", 0, 365),
+  warrantyMonths: wholeNumber("the months", 0, 120),
+  alternativeDescription: optionalText(OFFER_LIMITS.description),
+  alternativeLines: z
+    .array(alternativeLineSchema)
+    .max(OFFER_LIMITS.alternativeLines, `At most ${OFFER_LIMITS.alternativeLines} lines in the alternative circuit.`)
+    .optional(),
+  notes: optionalText(4000),
+});
+
+export const bidSchema = bidFields.superRefine((bid, ctx) => {
+  const submitting = bid.intent === "submit";
+  bid.lines.forEach((line, i) => {
+    checkPrice(ctx, ["lines", i, "unitPrice"], line.unitPrice, submitting ? "Price every line before you submit (0 if it is included elsewhere)." : null);
+    if (line.alternative && !line.alternativeDescription) {
+      ctx.addIssue({ code: "custom", path: ["lines", i, "alternativeDescription"], message: "Describe the part you offer instead." });
+    }
   });
+  if (submitting && bid.leadTimeWeeks === undefined) ctx.addIssue({ code: "custom", path: ["leadTimeWeeks"], message: "Enter the lead time in weeks." });
+  if (bid.validUntil && bid.validDays !== undefined)
+    ctx.addIssue({ code: "custom", path: ["validDays"], message: "Give a date or a number of days, not both." });
+  if (submitting && !bid.validUntil && bid.validDays === undefined)
+    ctx.addIssue({ code: "custom", path: ["validUntil"], message: "Enter how long the offer is valid: a date, or a number of days." });
+  if (bid.validUntil && bid.validUntil <= today()) ctx.addIssue({ code: "custom", path: ["validUntil"], message: "The offer must be valid beyond today." });
+  checkOfferExtras(bid, ctx, submitting);
+});
+
+const issue = (ctx: z.RefinementCtx, path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
+
+/** A typed price: readable, not negative, within a billion; `required` when it must be there. */
+function checkPrice(ctx: z.RefinementCtx, path: (string | number)[], text: string | undefined, required: string | null) {
+  if (!text) {
+    if (required) issue(ctx, path, required);
+    return;
+  }
+  const cents = parseMoney(text);
+  if (cents === null) issue(ctx, path, moneyProblem(text)!);
+  else if (cents > MAX_UNIT_PRICE_CENTS) issue(ctx, path, "That is more than a billion; check the amount.");
+}
+
+type BidFields = z.output<typeof bidFields>;
+
+/** The work beyond the bill, the structured terms and the alternative circuit. */
+function checkOfferExtras(bid: BidFields, ctx: z.RefinementCtx, submitting: boolean) {
+  const kinds = new Set<string>();
+  bid.extras?.forEach((extra, i) => {
+    if (kinds.has(extra.kind)) issue(ctx, ["extras", i, "kind"], "This kind of work is listed twice.");
+    kinds.add(extra.kind);
+    checkPrice(ctx, ["extras", i, "price"], extra.answer === "priced" ? extra.price : undefined, "Enter the price, or choose included or not offered.");
+  });
+  bid.ownLines?.forEach((line, i) => {
+    if (!line.name && !line.price) return; // an empty row of the form
+    if (!line.name) issue(ctx, ["ownLines", i, "name"], "Name the line.");
+    checkPrice(ctx, ["ownLines", i, "price"], line.price, "Enter the price (0 if included).");
+  });
+  if (bid.incoterm && !bid.place) issue(ctx, ["place"], `Name the place for ${bid.incoterm}, e.g. the town of your works.`);
+  if (submitting && !bid.incoterm) issue(ctx, ["incoterm"], "Choose the delivery terms (an Incoterms 2020 rule).");
+  const upFront = (bid.retainerPercent ?? 0) + (bid.onDeliveryPercent ?? 0);
+  if (upFront > 100) issue(ctx, ["onDeliveryPercent"], `With the order and on delivery add up to ${upFront} %; at most 100 %.`);
+  else if (submitting && upFront < 100 && bid.balanceDays === undefined)
+    issue(ctx, ["balanceDays"], `Say when the remaining ${100 - upFront} % is due: days after invoice (0 for on invoice).`);
+  if (submitting && bid.warrantyMonths === undefined) issue(ctx, ["warrantyMonths"], "Enter the warranty in months (0 for none).");
+  const altLines = (bid.alternativeLines ?? []).map((l, i) => [l, i] as const).filter(([l]) => l.name || l.price || l.quantity !== undefined);
+  if (altLines.length && !bid.alternativeDescription) issue(ctx, ["alternativeDescription"], "Describe the circuit you propose instead, and how it differs.");
+  if (bid.alternativeDescription && !altLines.length) issue(ctx, ["alternativeDescription"], "Price the alternative circuit: add at least one line.");
+  for (const [line, i] of altLines) {
+    if (!line.name) issue(ctx, ["alternativeLines", i, "name"], "Name the part.");
+    if (line.quantity === undefined) issue(ctx, ["alternativeLines", i, "quantity"], "Enter the quantity.");
+    checkPrice(ctx, ["alternativeLines", i, "price"], line.price, "Enter the unit price.");
+  }
+}
+
+/** The day an offer is valid until: the date given, or today plus the days given. */
+export const validUntilOf = (bid: Pick<BidInput, "validUntil" | "validDays">) =>
+  bid.validUntil ?? (bid.validDays !== undefined ? addDays(today(), bid.validDays) : undefined);
 
 export type BidInput = z.output<typeof bidSchema>;
 

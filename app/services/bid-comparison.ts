@@ -2,11 +2,29 @@
 // lines down (the current bill first, then lines only older revisions had), bids across,
 // the lowest price per line and the cheapest complete offer marked. A line priced 0 is
 // included elsewhere in that offer: it is shown as included, never as the lowest price.
+// Below the bill, the work beyond it lines up by kind across offers; "like for like" is the bill
+// plus the kinds of work every offer covers, so an offer that prices commissioning is not ranked
+// dearer than one that leaves it out, and what each leaves out is said in words. An alternative
+// circuit is shown beside its offer, never ranked against the like-for-like prices.
 import type { BomLine } from "~/hydraulics";
 import type { BidLine } from "~/models/bid.server";
 import type { BidStatus } from "~/content/bid-status";
 import { lineTotalCents } from "~/content/money";
 import { servedBy } from "./published-design";
+import {
+  EXTRA_KEYS,
+  deliveryText,
+  extrasInOrder,
+  leavesOut,
+  paymentText,
+  warrantyText,
+  type AlternativeCircuit,
+  type ExtraAnswer,
+  type ExtraKind,
+  type OfferExtra,
+  type OfferTerms,
+  type OwnLine,
+} from "~/content/offer-terms";
 
 export interface ComparedBid {
   id: string;
@@ -18,22 +36,43 @@ export interface ComparedBid {
   totalCents: number;
   leadTimeWeeks: number | null;
   validUntil: string | null;
-  /** the shop's delivery and payment terms, and its notes on the offer, as written */
-  terms: string;
+  extras: OfferExtra[];
+  ownLines: OwnLine[];
+  offerTerms: OfferTerms | null;
+  alternativeCircuit: AlternativeCircuit | null;
+  /** the shop's notes on the offer, as written */
   notes: string;
 }
 
 export const COMPARISON_SORTS = ["total", "lead", "valid", "shop"] as const;
 export type ComparisonSort = (typeof COMPARISON_SORTS)[number];
 
-export interface ComparisonColumn extends Omit<ComparedBid, "lines"> {
+export interface ComparisonColumn extends Omit<ComparedBid, "lines" | "extras"> {
   /** Made against an earlier revision of the spec than the current one. */
   olderRevision: boolean;
   /** Prices every line of the current bill. */
   complete: boolean;
   alternatives: number;
+  /** the cheapest like-for-like offer among those pricing every line of the bill */
   cheapestComplete: boolean;
   shortestLead: boolean;
+  /** the bill and the kinds of work every offer covers, the figure offers are ranked by */
+  likeForLikeCents: number;
+  /** what the work beyond the bill and the shop's own lines add to the total */
+  extrasCents: number;
+  leavesOut: string[];
+  delivery: string | null;
+  payment: string | null;
+  warranty: string | null;
+}
+
+/** One kind of work beyond the bill across the offers. */
+export interface ExtraRow {
+  kind: ExtraKind;
+  name: string;
+  /** every offer covers it (priced or included), so it counts in the like-for-like figure */
+  common: boolean;
+  cells: { answer: ExtraAnswer; priceCents: number | null; lowest: boolean }[];
 }
 
 export interface ComparisonCell {
@@ -112,19 +151,32 @@ export function compareBids(bom: BomLine[], currentRevision: number, bids: Compa
     },
   );
 
+  const extraRows = extraRowsOf(ordered);
+  const extrasCents = ordered.map(
+    (b) => b.extras.reduce((sum, e) => sum + (e.answer === "priced" ? (e.priceCents ?? 0) : 0), 0) + b.ownLines.reduce((sum, l) => sum + l.priceCents, 0),
+  );
+  const likeForLike = ordered.map(
+    (b, i) => b.totalCents - extrasCents[i] + extraRows.reduce((sum, row) => sum + (row.common ? (row.cells[i].priceCents ?? 0) : 0), 0),
+  );
   const complete = priced.map((lines) => bom.every((l) => lines.has(l.key)));
-  const completeTotals = ordered.filter((_, i) => complete[i]).map((b) => b.totalCents);
+  const completeTotals = likeForLike.filter((_, i) => complete[i]);
   const cheapest = completeTotals.length ? Math.min(...completeTotals) : null;
   const leads = ordered.map((b) => b.leadTimeWeeks).filter((w): w is number => w !== null);
   const shortest = leads.length ? Math.min(...leads) : null;
 
-  const columns: ComparisonColumn[] = ordered.map(({ lines, ...bid }, i) => ({
+  const columns: ComparisonColumn[] = ordered.map(({ lines, extras, ...bid }, i) => ({
     ...bid,
     olderRevision: bid.specRevision < currentRevision,
     complete: complete[i],
     alternatives: lines.filter((l) => l.alternative).length,
-    cheapestComplete: complete[i] && bid.totalCents === cheapest,
+    cheapestComplete: complete[i] && likeForLike[i] === cheapest,
     shortestLead: ordered.length > 1 && bid.leadTimeWeeks !== null && bid.leadTimeWeeks === shortest,
+    likeForLikeCents: likeForLike[i],
+    extrasCents: extrasCents[i],
+    leavesOut: leavesOut(extras),
+    delivery: bid.offerTerms ? deliveryText(bid.offerTerms) : null,
+    payment: bid.offerTerms ? paymentText(bid.offerTerms) : null,
+    warranty: bid.offerTerms ? warrantyText(bid.offerTerms.warrantyMonths) : null,
   }));
   // In the bill's order: the power unit, then each axis. Null where a bid prices none of a part's lines.
   const subtotals: ComparisonSubtotal[] = [];
@@ -135,5 +187,23 @@ export function compareBids(bom: BomLine[], currentRevision: number, bids: Compa
       if (cell) group.cents[i] = (group.cents[i] ?? 0) + cell.lineTotalCents;
     });
   }
-  return { columns, rows, subtotals, cheapestCompleteId: columns.find((c) => c.cheapestComplete)?.id ?? null };
+  return { columns, rows, subtotals, extraRows, cheapestCompleteId: columns.find((c) => c.cheapestComplete)?.id ?? null };
+}
+
+/** Each kind of work across the offers, the lowest price marked where two or more price it. */
+function extraRowsOf(bids: ComparedBid[]): ExtraRow[] {
+  const answered = bids.map((b) => extrasInOrder(b.extras));
+  return EXTRA_KEYS.map((kind, k) => {
+    const cells = answered.map((extras) => ({
+      answer: extras[k].answer,
+      priceCents: extras[k].answer === "priced" ? extras[k].priceCents : null,
+      lowest: false,
+    }));
+    const prices = cells.filter((c) => c.answer === "priced");
+    if (prices.length > 1) {
+      const min = Math.min(...prices.map((c) => c.priceCents ?? 0));
+      for (const c of prices) c.lowest = c.priceCents === min;
+    }
+    return { kind, name: answered[0]?.[k].name ?? kind, common: bids.length > 0 && cells.every((c) => c.answer !== "not_offered"), cells };
+  });
 }

@@ -2,8 +2,9 @@ import { Op, QueryTypes, type Transaction } from "sequelize";
 import type { BomLine } from "~/hydraulics";
 import { Bid, BidVersion, Organisation, Spec, SpecRevision, User, sequelize } from "~/models/index.server";
 import type { BidLine, BidOffer } from "~/models/bid.server";
-import type { BidInput } from "~/schemas/bid";
-import { bidTotals, parseMoney } from "~/content/money";
+import { validUntilOf, type BidInput } from "~/schemas/bid";
+import { parseMoney } from "~/content/money";
+import { alternativeTotals, offerTotals, type AlternativeCircuit, type OfferExtra, type OfferTerms, type OwnLine } from "~/content/offer-terms";
 import { compareBids, type ComparisonSort } from "./bid-comparison";
 import { axisNamesOf, publishedDesignOf } from "./published-design";
 import { FieldErrors, notFound } from "./errors.server";
@@ -49,7 +50,10 @@ const offerOf = (bid: Bid): BidOffer => ({
   currency: bid.currency,
   leadTimeWeeks: bid.leadTimeWeeks,
   validUntil: bid.validUntil,
-  terms: bid.terms,
+  extras: bid.extras,
+  ownLines: bid.ownLines,
+  offerTerms: bid.offerTerms,
+  alternativeCircuit: bid.alternativeCircuit,
   notes: bid.notes,
 });
 
@@ -86,6 +90,34 @@ function priceLines(bom: BomLine[], input: BidInput["lines"]): BidLine[] {
   });
 }
 
+const cents = (text: string | undefined) => (text ? (parseMoney(text) ?? 0) : 0);
+
+/** The parts of an offer beyond the bill, from the parsed form (blank rows dropped). */
+function offerPartsOf(input: BidInput, units: number) {
+  const extras: OfferExtra[] = (input.extras ?? []).map((e) => ({
+    kind: e.kind,
+    answer: e.answer,
+    priceCents: e.answer === "priced" ? cents(e.price) : null,
+  }));
+  const ownLines: OwnLine[] = (input.ownLines ?? []).filter((l) => l.name).map((l) => ({ name: l.name!, priceCents: cents(l.price) }));
+  const offerTerms: OfferTerms = {
+    incoterm: input.incoterm ?? null,
+    place: input.place ?? "",
+    retainerPercent: input.retainerPercent ?? null,
+    onDeliveryPercent: input.onDeliveryPercent ?? null,
+    balanceDays: input.balanceDays ?? null,
+    warrantyMonths: input.warrantyMonths ?? null,
+  };
+  const altLines = (input.alternativeLines ?? [])
+    .filter((l) => l.name)
+    .map((l) => ({ name: l.name!, quantity: l.quantity ?? 1, unitPriceCents: cents(l.price) }));
+  const alternativeCircuit: AlternativeCircuit | null =
+    input.alternativeDescription && altLines.length
+      ? { description: input.alternativeDescription, lines: altLines, ...alternativeTotals(altLines, units) }
+      : null;
+  return { extras, ownLines, offerTerms, alternativeCircuit };
+}
+
 /**
  * Saves a draft or submits the offer (a new version each time), before the deadline only.
  * Submitting prices the current revision's bill, so a bid made on an older revision is
@@ -94,19 +126,25 @@ function priceLines(bom: BomLine[], input: BidInput["lines"]): BidLine[] {
 export async function saveBid(user: User, specId: string | undefined, input: BidInput): Promise<Bid> {
   const submitting = input.intent === "submit";
   const spec = await specFor(user, specId, "spec.bid");
+  const validUntil = validUntilOf(input) ?? null;
   const bid = await sequelize.transaction(async (transaction) => {
     const locked = await lockOpenSpec(spec.id, transaction);
     const fresh = await Spec.findByPk(spec.id, { transaction, rejectOnEmpty: true });
-    if (input.validUntil && input.validUntil < isoDay(locked.deadline)) {
+    if (validUntil && validUntil < isoDay(locked.deadline)) {
       throw new FieldErrors({
-        validUntil: [`Keep the offer valid at least until the bid deadline (${formatDay(isoDay(locked.deadline))}), so the buyer can award it.`],
+        [input.validDays !== undefined ? "validDays" : "validUntil"]: [
+          `Keep the offer valid at least until the bid deadline (${formatDay(isoDay(locked.deadline))}), so the buyer can award it.`,
+        ],
       });
     }
     const lines = priceLines(await bomOf(fresh, fresh.currentRevision, transaction), input.lines);
     const units = fresh.unitsWanted ?? 1;
-    const totals = bidTotals(
+    const parts = offerPartsOf(input, units);
+    const { setTotalCents, totalCents } = offerTotals(
       lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })),
       units,
+      parts.extras,
+      parts.ownLines,
     );
 
     // One row per shop and spec: created on the first save, whoever of the shop's people races.
@@ -142,10 +180,11 @@ export async function saveBid(user: User, specId: string | undefined, input: Bid
         units,
         currency: fresh.currency,
         specRevision: fresh.currentRevision,
-        ...totals,
+        setTotalCents,
+        totalCents,
+        ...parts,
         leadTimeWeeks: input.leadTimeWeeks ?? null,
-        validUntil: input.validUntil ?? null,
-        terms: input.terms ?? "",
+        validUntil,
         notes: input.notes ?? "",
         ...(submitting ? { version: row.version + 1, submittedAt: new Date() } : {}),
       },
@@ -234,7 +273,10 @@ export async function comparisonOf(user: User, spec: Spec, sort: ComparisonSort 
       totalCents: b.totalCents,
       leadTimeWeeks: b.leadTimeWeeks,
       validUntil: b.validUntil,
-      terms: b.terms,
+      extras: b.extras,
+      ownLines: b.ownLines,
+      offerTerms: b.offerTerms,
+      alternativeCircuit: b.alternativeCircuit,
       notes: b.notes,
     })),
     sort,

@@ -14,9 +14,12 @@ import { makeMember, makePublishedSpec, inDays, uniqueEmail } from "../support/f
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
+/** Structured terms every submitted offer states: ex works Leeds, 30 days net, a year's warranty. */
+export const TERMS = { incoterm: "EXW", place: "Leeds works", balanceDays: "30", warrantyMonths: "12" };
+
 /** The bid form's fields: every line priced at `price(line, i)` unless it returns null. */
 function bidFields(bom: BomLine[], price: (line: BomLine, i: number) => string | null, extra: Record<string, string> = {}) {
-  const fields: Record<string, string> = { leadTimeWeeks: "12", validUntil: inDays(40), terms: "Ex works, 30 days net", notes: "", ...extra };
+  const fields: Record<string, string> = { leadTimeWeeks: "12", validUntil: inDays(40), ...TERMS, notes: "", ...extra };
   bom.forEach((line, i) => {
     fields[`lines[${i}].key`] = line.key;
     const p = price(line, i);

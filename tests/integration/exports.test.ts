@@ -44,6 +44,8 @@ let firstBom: BomLine[];
 let bom: BomLine[];
 let design: Design;
 
+const COMMISSIONING = { "extras[0].kind": "commissioning", "extras[0].answer": "priced", "extras[0].price": "150" };
+
 async function offer(
   visitor: Visitor,
   lines: BomLine[],
@@ -85,7 +87,7 @@ beforeAll(async () => {
     firstBom,
     (i) => String(200 + 10 * i),
     { line: 1, description: "Motor from stock, one frame size up" },
-    { leadTimeWeeks: "8", terms: "Delivered, 14 days net" },
+    { leadTimeWeeks: "8", incoterm: "DAP", place: "Derby", balanceDays: "14", warrantyMonths: "12" },
   );
 
   // Revision 2 turns the ram horizontal: no load to hold, so the counterbalance valve goes.
@@ -99,7 +101,8 @@ beforeAll(async () => {
     bom,
     (i) => (i === 0 ? "1,234.55" : String(20 + 5 * i)),
     { line: 3, description: "Welded tank, 160 L, powder-coated" },
-    { leadTimeWeeks: "12", terms: "Ex works, 30 days net" },
+    // Commissioning on site, 150.00 once for the order, on top of the bill.
+    { leadTimeWeeks: "12", incoterm: "EXW", place: "Leeds", balanceDays: "30", warrantyMonths: "12", ...COMMISSIONING },
   );
 
   const winningBid = await Bid.findOne({ where: { specId: spec.id, organisationId: people.winner.organisationId }, rejectOnEmpty: true });
@@ -396,10 +399,12 @@ describe("priced bill of the awarded bid", () => {
     expect(centsAt(sheet, `F${set}`)).toBe(bid.setTotalCents);
     const units = rowOf(sheet, "Units wanted");
     expect(sheet.getCell(units, 4).value).toBe(2);
+    const commissioning = rowOf(sheet, "Commissioning on site (whole order)");
+    expect(centsAt(sheet, `F${commissioning}`)).toBe(15_000);
     const total = rowOf(sheet, "Total for 2 units");
-    expect(formulaOf(sheet.getCell(total, 6))).toBe(`F${set}*D${units}`);
+    expect(formulaOf(sheet.getCell(total, 6))).toBe(`F${set}*D${units}+SUM(F${commissioning}:F${commissioning})`);
     expect(centsAt(sheet, `F${total}`)).toBe(job.totalCents);
-    expect(job.totalCents).toBe(bid.setTotalCents * 2);
+    expect(job.totalCents).toBe(bid.setTotalCents * 2 + 15_000);
     const share = rowOf(sheet, "Retainer share");
     expect(sheet.getCell(share, 5).value).toBe(0.125);
     expect(sheet.getCell(share, 5).numFmt).toBe("0.00%");
@@ -411,7 +416,9 @@ describe("priced bill of the awarded bid", () => {
     for (const r of [set, total, retainer, charged]) expect(sheet.getCell(r, 6).numFmt).toBe(GBP);
     // The stored results agree with the formulas, for viewers that never recalculate.
     for (const r of [set, total, retainer]) expect((sheet.getCell(r, 6).value as { result: number }).result).toBe(evaluate(sheet, `F${r}`));
-    expect(sheet.getCell(rowOf(sheet, "Terms"), 2).text).toBe("Ex works, 30 days net");
+    expect(sheet.getCell(rowOf(sheet, "Terms"), 2).text).toMatch(
+      /^Delivery: EXW Leeds \(Ex Works, Incoterms 2020\)\. Payment: 100 % 30 days after invoice\. 12 months warranty\./,
+    );
     expectSensibleWidths(sheet, 8);
     expectCautions(workbook.getWorksheet("Cautions")!, design.warnings);
   });
@@ -501,8 +508,18 @@ describe("comparison of the offers", () => {
       expect(formulaOf(sheet.getCell(`${L}${row("Set total, one of each line")}`))).toBe(`SUM(${L}${head + 1}:${L}${last})`);
       expect(centsAt(sheet, `${L}${row("Set total, one of each line")}`)).toBe(bid.setTotalCents);
       expect(sheet.getCell(`${L}${row("Units")}`).value).toBe(bid.units);
-      expect(formulaOf(sheet.getCell(`${L}${row("Offer total")}`))).toBe(`${L}${row("Set total, one of each line")}*${L}${row("Units")}`);
+      expect(formulaOf(sheet.getCell(`${L}${row("The bill for every unit")}`))).toBe(`${L}${row("Set total, one of each line")}*${L}${row("Units")}`);
+      // The offer total adds the work beyond the bill (each kind, then the shop's own lines) to the bill.
+      const extrasFrom = row("Assembly and manifold (whole order)");
+      expect(formulaOf(sheet.getCell(`${L}${row("Offer total")}`))).toBe(
+        `${L}${row("The bill for every unit")}+SUM(${L}${extrasFrom}:${L}${row("The shop's own lines (whole order)")})`,
+      );
       expect(centsAt(sheet, `${L}${row("Offer total")}`)).toBe(bid.totalCents);
+      expect(Math.round(Number(evaluate(sheet, `${L}${row("Offer total")}`)) * 100)).toBe(bid.totalCents);
+      const commissioning = sheet.getCell(`${L}${row("Commissioning on site (whole order)")}`);
+      if (bid.extras.length) expect(centsAt(sheet, commissioning.address)).toBe(15_000);
+      else expect(commissioning.value).toBe("Not offered");
+      expect(sheet.getCell(`${L}${row("Leaves out")}`).text).toContain(bid.extras.length ? "no training offered" : "no commissioning on site offered");
       expect(sheet.getCell(`${L}${row("Lead time (weeks)")}`).value).toBe(bid.leadTimeWeeks);
       expect(sheet.getCell(`${L}${row("Valid until")}`).value).toEqual(new Date(`${bid.validUntil}T00:00:00Z`));
       expect(sheet.getCell(`${L}${row("Valid until")}`).numFmt).toBe("d mmm yyyy");
@@ -511,17 +528,20 @@ describe("comparison of the offers", () => {
       const complete = bom.every((l) => bid.lines.some((x) => x.key === l.key));
       expect(sheet.getCell(`${L}${row("Every current line priced")}`).value).toBe(complete ? "Yes" : "No, lines missing");
       expect(sheet.getCell(`${L}${row("Alternative parts")}`).value).toBe(1);
-      const more = sheet.getCell(`${L}${row("More than the cheapest complete offer")}`);
+      // Like for like: commissioning is not in every offer, so it is left out of the comparison figure.
+      const like = row("Like for like: the bill and the work every offer covers");
+      expect(centsAt(sheet, `${L}${like}`)).toBe(bid.setTotalCents * bid.units);
+      const more = sheet.getCell(`${L}${row("More than the cheapest complete offer, like for like")}`);
       if (bid === cheapest) expect(more.value).toBeNull();
-      else expect(centsAt(sheet, more.address)).toBe(bid.totalCents - cheapest.totalCents);
+      else expect(centsAt(sheet, more.address)).toBe(bid.setTotalCents * bid.units - cheapest.setTotalCents * cheapest.units);
     });
     // The cheapest offer here prices the whole current bill, so it is the cheapest complete one.
     expect(cheapest.specRevision).toBe(2);
-    expect((sheet.getCell(`F${row("Offer total")}`).fill as ExcelJS.FillPattern).fgColor?.argb).toBe(GREEN);
+    expect((sheet.getCell(`F${row("Like for like: the bill and the work every offer covers")}`).fill as ExcelJS.FillPattern).fgColor?.argb).toBe(GREEN);
 
     const offers = workbook.getWorksheet("Offers")!;
     const oh = rowOf(offers, "Shop");
-    expect(rowValues(offers, oh, 10)).toEqual([
+    expect(rowValues(offers, oh, 14)).toEqual([
       "Shop",
       "Status",
       "Revision priced",
@@ -530,15 +550,20 @@ describe("comparison of the offers", () => {
       "Offer total",
       "Lead time (weeks)",
       "Valid until",
-      "Terms",
+      "Delivery (Incoterms 2020)",
+      "Payment",
+      "Warranty",
+      "Leaves out",
+      "Alternative circuit",
       "Notes",
     ]);
     bids.forEach((bid, i) => {
       const r = oh + 1 + i;
       expect(offers.getCell(r, 1).text).toBe(shopNames.get(bid.organisationId));
-      expect(formulaOf(offers.getCell(r, 6))).toBe(`D${r}*E${r}`);
       expect(centsAt(offers, `F${r}`)).toBe(bid.totalCents);
-      expect(offers.getCell(r, 9).text).toBe(bid.terms);
+      expect(offers.getCell(r, 9).text).toBe(
+        bid.offerTerms?.incoterm === "EXW" ? "EXW Leeds (Ex Works, Incoterms 2020)" : "DAP Derby (Delivered at Place, Incoterms 2020)",
+      );
     });
     expectCautions(workbook.getWorksheet("Cautions")!, design.warnings);
   });

@@ -27,7 +27,16 @@ const partOf = (key: string) => (key.includes(":") ? key.slice(key.indexOf(":") 
 const PARTS = [POWER_UNIT_LABEL, "Clamp", "Press"];
 
 function bidFields(bom: BomLine[], price: (i: number) => string) {
-  const fields: Record<string, string> = { intent: "submit", leadTimeWeeks: "14", validUntil: inDays(40), terms: "Ex works", notes: "" };
+  const fields: Record<string, string> = {
+    intent: "submit",
+    leadTimeWeeks: "14",
+    validUntil: inDays(40),
+    incoterm: "EXW",
+    place: "Works",
+    balanceDays: "30",
+    warrantyMonths: "12",
+    notes: "",
+  };
   bom.forEach((line, i) => {
     fields[`lines[${i}].key`] = line.key;
     fields[`lines[${i}].unitPrice`] = price(i);

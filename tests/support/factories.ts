@@ -149,7 +149,7 @@ export async function makeSubmittedBid(spec: Spec, shop: User, options: { totalC
     totalCents,
     leadTimeWeeks: options.leadTimeWeeks === undefined ? 12 : options.leadTimeWeeks,
     validUntil: inDays(30),
-    terms: "30 days net",
+    offerTerms: { incoterm: "EXW", place: "Works", retainerPercent: null, onDeliveryPercent: null, balanceDays: 30, warrantyMonths: 12 },
     notes: "",
     submittedAt: new Date(),
   });

@@ -23,7 +23,10 @@ const bid = (id: string, revision: number, lines: BidLine[]): ComparedBid => {
     totalCents: set,
     leadTimeWeeks: 10,
     validUntil: null,
-    terms: "",
+    extras: [],
+    ownLines: [],
+    offerTerms: null,
+    alternativeCircuit: null,
     notes: "",
   };
 };

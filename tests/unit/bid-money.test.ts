@@ -105,7 +105,10 @@ const bid = (id: string, prices: (number | null)[], extra: Partial<ComparedBid> 
     totalCents: set,
     leadTimeWeeks: 10,
     validUntil: "2030-01-01",
-    terms: "",
+    extras: [],
+    ownLines: [],
+    offerTerms: null,
+    alternativeCircuit: null,
     notes: "",
     ...extra,
   };
@@ -129,7 +132,10 @@ describe("compareBids", () => {
 
   it("shows a line priced 0 as included elsewhere, never as the lowest price, and carries each offer's terms and notes", () => {
     const result = compareBids(bom, 2, [
-      bid("bundled", [100, 0, 30], { terms: "Ex works, 30 days net.", notes: "Motor priced with the pump." }),
+      bid("bundled", [100, 0, 30], {
+        offerTerms: { incoterm: "EXW", place: "Leeds", retainerPercent: null, onDeliveryPercent: null, balanceDays: 30, warrantyMonths: 12 },
+        notes: "Motor priced with the pump.",
+      }),
       bid("itemised", [90, 60, 40]),
       bid("third", [95, 55, 35]),
     ]);
@@ -139,7 +145,9 @@ describe("compareBids", () => {
     // Among the charged prices (2 × 60 and 2 × 55) the lowest is the third shop's.
     expect([itemised.lowest, third.lowest]).toEqual([false, true]);
     expect(result.columns.find((c) => c.id === "bundled")).toMatchObject({
-      terms: "Ex works, 30 days net.",
+      delivery: "EXW Leeds (Ex Works, Incoterms 2020)",
+      payment: "100 % 30 days after invoice",
+      warranty: "12 months warranty",
       notes: "Motor priced with the pump.",
       complete: true,
     });

@@ -1,6 +1,7 @@
 import type ExcelJS from "exceljs";
 import type { Warning } from "~/hydraulics";
 import { BID_STATUS_LABELS } from "~/content/bid-status";
+import { formatMoney } from "~/content/money";
 import type { compareBids } from "../bid-comparison";
 import {
   DAY_FORMAT,
@@ -26,8 +27,10 @@ import {
 
 // The buyer's comparison as a workbook: the bill's lines down, each offer across (unit price, a
 // live line total and the alternative offered), the lowest of each line, then per offer the
-// set total (SUM), the total for every unit wanted, the difference to the cheapest complete
-// offer, lead time, validity and the flags the page shows. The marks are the comparison
+// set total (SUM), the bill for every unit wanted, the work beyond the bill by kind and the
+// shop's own lines, the offer total (a formula over them), the like-for-like figure and the
+// difference to the cheapest complete offer on it, lead time, validity, the terms, what each
+// leaves out and the flags the page shows. The marks are the comparison
 // service's, so the sheet and the page never disagree about what is lowest.
 
 export type Comparison = ReturnType<typeof compareBids>;
@@ -40,7 +43,7 @@ export interface ComparisonInput {
   currency: string;
   comparison: Comparison;
   /** Per bid id: what the comparison leaves out. */
-  offers: Record<string, { units: number; terms: string; notes: string }>;
+  offers: Record<string, { units: number; notes: string }>;
   warnings: Warning[];
   exportedAt: Date;
 }
@@ -169,18 +172,35 @@ function writeOfferFooter(
   at: { first: number; last: number; cheapestCompleteId: string | null; fmt: string; width: number },
 ) {
   const offers = input.comparison.columns;
-  const [set, units, total, more, lead, valid, status, revision, complete, alternatives] = Array.from({ length: 10 }, (_, i) => at.last + 1 + i);
+  const { extraRows } = input.comparison;
+  let next = at.last;
+  const row = () => ++next;
+  const [set, units, bill] = [row(), row(), row()];
+  const extras = extraRows.map(() => row());
+  const [own, total, like, more, lead, valid, delivery, payment, warranty, leaves, status, revision, complete, alternatives, circuit] = Array.from(
+    { length: 15 },
+    row,
+  );
   const labels: [number, string, boolean][] = [
     [set, "Set total, one of each line", true],
     [units, "Units", false],
+    [bill, "The bill for every unit", false],
+    ...extraRows.map((r, k): [number, string, boolean] => [extras[k], `${r.name} (whole order)`, false]),
+    [own, "The shop's own lines (whole order)", false],
     [total, "Offer total", true],
-    [more, "More than the cheapest complete offer", false],
+    [like, "Like for like: the bill and the work every offer covers", true],
+    [more, "More than the cheapest complete offer, like for like", false],
     [lead, "Lead time (weeks)", false],
     [valid, "Valid until", false],
+    [delivery, "Delivery (Incoterms 2020)", false],
+    [payment, "Payment", false],
+    [warranty, "Warranty", false],
+    [leaves, "Leaves out", false],
     [status, "Status", false],
     [revision, "Revision priced", false],
     [complete, "Every current line priced", false],
     [alternatives, "Alternative parts", false],
+    [circuit, "Alternative circuit, every unit (not like for like)", false],
   ];
   for (const [r, label, bold] of labels) labelCell(sheet, r, label, bold);
   for (let c = 1; c <= at.width; c++) topRule(sheet.getCell(set, c));
@@ -193,25 +213,42 @@ function writeOfferFooter(
     const cell = (r: number, value: ExcelJS.CellValue, numFmt?: string) => {
       const target = sheet.getCell(r, col);
       target.value = value;
-      target.alignment = { horizontal: "right" };
+      target.alignment = { horizontal: "right", wrapText: typeof value === "string" };
       if (numFmt) target.numFmt = numFmt;
       return target;
     };
     const units_ = input.offers[offer.id]?.units ?? 1;
     cell(set, { formula: `SUM(${L}${at.first}:${L}${at.last})`, result: money(offer.setTotalCents) }, at.fmt).font = font({ bold: true });
     cell(units, units_, "0");
-    const totalCell = cell(total, { formula: `${L}${set}*${L}${units}`, result: money(offer.totalCents) }, at.fmt);
+    cell(bill, { formula: `${L}${set}*${L}${units}`, result: money(offer.totalCents - offer.extrasCents) }, at.fmt);
+    extraRows.forEach((r, k) => {
+      const answer = r.cells[i];
+      const target =
+        answer.answer === "priced"
+          ? cell(extras[k], money(answer.priceCents ?? 0), at.fmt)
+          : cell(extras[k], answer.answer === "included" ? "Included" : "Not offered");
+      if (answer.lowest) target.fill = FILLS.good;
+      if (answer.answer === "not_offered") target.fill = FILLS.note;
+    });
+    cell(own, money(offer.ownLines.reduce((sum, l) => sum + l.priceCents, 0)), at.fmt);
+    const totalCell = cell(total, { formula: `${L}${bill}+SUM(${L}${extras[0] ?? own}:${L}${own})`, result: money(offer.totalCents) }, at.fmt);
     totalCell.font = font({ bold: true });
-    if (offer.cheapestComplete) totalCell.fill = FILLS.good;
+    const likeCell = cell(like, money(offer.likeForLikeCents), at.fmt);
+    likeCell.font = font({ bold: true });
+    if (offer.cheapestComplete) likeCell.fill = FILLS.good;
     if (cheapestIndex >= 0 && i !== cheapestIndex) {
       const cheapest = offers[cheapestIndex];
-      cell(more, { formula: `${L}${total}-$${letter(cheapestIndex)}$${total}`, result: money(offer.totalCents - cheapest.totalCents) }, at.fmt);
+      cell(more, { formula: `${L}${like}-$${letter(cheapestIndex)}$${like}`, result: money(offer.likeForLikeCents - cheapest.likeForLikeCents) }, at.fmt);
     }
     if (offer.leadTimeWeeks !== null) {
       const weeks = cell(lead, offer.leadTimeWeeks, "0");
       if (offer.shortestLead) weeks.fill = FILLS.good;
     }
     if (offer.validUntil) cell(valid, excelDay(offer.validUntil), DAY_FORMAT);
+    cell(delivery, offer.delivery ?? "not stated");
+    cell(payment, offer.payment ?? "not stated");
+    cell(warranty, offer.warranty ?? "not stated");
+    if (offer.leavesOut.length) cell(leaves, offer.leavesOut.join("; ")).fill = FILLS.note;
     cell(status, BID_STATUS_LABELS[offer.status]);
     const rev = cell(revision, offer.olderRevision ? `${offer.specRevision} (earlier)` : String(offer.specRevision));
     if (offer.olderRevision) rev.fill = FILLS.note;
@@ -219,8 +256,9 @@ function writeOfferFooter(
     if (!offer.complete) done.fill = FILLS.note;
     const alts = cell(alternatives, offer.alternatives, "0");
     if (offer.alternatives) alts.fill = FILLS.note;
+    if (offer.alternativeCircuit) cell(circuit, money(offer.alternativeCircuit.totalCents), at.fmt).fill = FILLS.note;
   });
-  return { set, units, total, more, lead, valid, status, revision, complete, alternatives };
+  return { set, units, total, more, lead, valid, status, revision, complete, alternatives: circuit };
 }
 
 /**
@@ -254,7 +292,11 @@ const OFFER_COLUMNS = (fmt: string): Column[] => [
   { header: "Offer total", width: 15, align: "right", numFmt: fmt },
   { header: "Lead time (weeks)", width: 10, align: "right", numFmt: "0", wrap: true },
   { header: "Valid until", width: 13, align: "right", numFmt: DAY_FORMAT },
-  { header: "Terms", width: 40, wrap: true, indent: 1 },
+  { header: "Delivery (Incoterms 2020)", width: 28, wrap: true, indent: 1 },
+  { header: "Payment", width: 30, wrap: true },
+  { header: "Warranty", width: 14, wrap: true },
+  { header: "Leaves out", width: 30, wrap: true },
+  { header: "Alternative circuit", width: 40, wrap: true },
   { header: "Notes", width: 40, wrap: true },
 ];
 
@@ -271,7 +313,8 @@ function addOffersSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) {
   freezeAt(sheet, head);
   input.comparison.columns.forEach((offer, i) => {
     const r = head + 1 + i;
-    const extra = input.offers[offer.id] ?? { units: 1, terms: "", notes: "" };
+    const extra = input.offers[offer.id] ?? { units: 1, notes: "" };
+    const circuit = offer.alternativeCircuit;
     const row = sheet.getRow(r);
     row.values = [
       offer.shop,
@@ -279,10 +322,14 @@ function addOffersSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) {
       offer.specRevision,
       money(offer.setTotalCents),
       extra.units,
-      { formula: `D${r}*E${r}`, result: money(offer.totalCents) },
+      money(offer.totalCents),
       offer.leadTimeWeeks ?? "",
       offer.validUntil ? excelDay(offer.validUntil) : "",
-      extra.terms,
+      offer.delivery ?? "",
+      offer.payment ?? "",
+      offer.warranty ?? "",
+      offer.leavesOut.join("; "),
+      circuit ? `${circuit.description} (${formatMoney(circuit.totalCents, input.currency)})` : "",
       extra.notes,
     ];
     styleBodyRow(row, columns);

@@ -3,6 +3,7 @@ import { quotationFacts } from "~/content/quotation-facts";
 import type { UnitSystem } from "~/units";
 import { COMPARISON_SORTS, type ComparisonSort } from "../bid-comparison";
 import { comparisonOf } from "../bids.server";
+import { offerSummary } from "../offer-summary";
 import { notFound } from "../errors.server";
 import { scopedJob } from "../job-reads.server";
 import { buyerNameFor, specFor, specForReader } from "../spec-access.server";
@@ -54,6 +55,7 @@ export async function pricedBillSource(user: User, jobId: string | undefined): P
   const job = await scopedJob(user, jobId);
   const [bid, spec] = await Promise.all([Bid.findByPk(job.bidId, { rejectOnEmpty: true }), Spec.findByPk(job.specId, { rejectOnEmpty: true })]);
   const revision = await SpecRevision.findOne({ where: { specId: spec.id, number: bid.specRevision }, rejectOnEmpty: true });
+  const summary = offerSummary(bid);
   return {
     title: spec.title,
     revision: bid.specRevision,
@@ -70,7 +72,11 @@ export async function pricedBillSource(user: User, jobId: string | undefined): P
     retainerCents: job.retainerCents,
     leadTimeWeeks: bid.leadTimeWeeks,
     validUntil: bid.validUntil,
-    terms: bid.terms,
+    terms: summary.termsText.join(" "),
+    beyondBill: [
+      ...summary.extras.filter((e) => e.answer === "priced").map((e) => ({ name: e.name, cents: e.priceCents ?? 0 })),
+      ...summary.ownLines.filter((l) => l.priceCents > 0).map((l) => ({ name: l.name, cents: l.priceCents })),
+    ],
     notes: bid.notes,
     axisNames: axisNamesOf(publishedDesignOf(revision)),
     warnings: publishedDesignOf(revision)?.design.warnings ?? [],
@@ -94,7 +100,7 @@ export async function comparisonSource(user: User, specId: string | undefined, s
     buyerName: await organisationName(spec.organisationId),
     currency: spec.currency,
     comparison,
-    offers: Object.fromEntries(bids.map((b) => [b.id, { units: b.units, terms: b.terms, notes: b.notes }])),
+    offers: Object.fromEntries(bids.map((b) => [b.id, { units: b.units, notes: b.notes }])),
     warnings: publishedDesignOf(revision)?.design.warnings ?? [],
     exportedAt: new Date(),
   };

@@ -48,6 +48,8 @@ export interface PricedBillInput {
   leadTimeWeeks: number | null;
   validUntil: string | null;
   terms: string;
+  /** The work beyond the bill and the shop's own lines the offer charges, each once for the order. */
+  beyondBill: { name: string; cents: number }[];
   notes: string;
   /** A machine's axes (none for one axis): each line then says what it serves, and each part has its subtotal. */
   axisNames: string[];
@@ -126,10 +128,11 @@ function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
   // Totals: each figure a formula over the cells above, with the portal's own figure as result.
   const set = last + 1;
   const units = set + 1;
-  const total = set + 2;
-  const share = set + 3;
-  const retainer = set + 4;
-  const charged = set + 5;
+  const extras = input.beyondBill.map((_, i) => units + 1 + i);
+  const total = units + 1 + extras.length;
+  const share = total + 1;
+  const retainer = total + 2;
+  const charged = total + 3;
   const put = (r: number, label: string, value: ExcelJS.CellValue, column = 6, bold = false) => {
     labelCell(sheet, r, label, bold);
     const cell = sheet.getCell(r, column);
@@ -141,10 +144,11 @@ function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
   put(set, "Set total, one of each line", { formula: `SUM(F${first}:F${last})`, result: money(input.setTotalCents) }).numFmt = fmt;
   for (let c = 1; c <= columns.length; c++) topRule(sheet.getCell(set, c));
   put(units, "Units wanted", input.units, 4).numFmt = "0";
+  input.beyondBill.forEach((extra, i) => (put(extras[i], `${extra.name} (whole order)`, money(extra.cents)).numFmt = fmt));
   const totalCell = put(
     total,
     `Total for ${input.units} unit${input.units === 1 ? "" : "s"}`,
-    { formula: `F${set}*D${units}`, result: money(input.totalCents) },
+    { formula: `F${set}*D${units}${extras.length ? `+SUM(F${extras[0]}:F${extras[extras.length - 1]})` : ""}`, result: money(input.totalCents) },
     6,
     true,
   );

@@ -6,15 +6,13 @@ import * as specNew from "~/routes/spec-new";
 import * as resume from "~/routes/spec-resume";
 import * as step from "~/routes/spec-step";
 import * as revise from "~/routes/spec-revise";
-import { Bid, Spec, SpecRevision } from "~/models/index.server";
+import { Spec, SpecRevision } from "~/models/index.server";
 import { checkRequestBounds } from "~/http/request-bounds.server";
 import { changeAxes } from "~/services/specs.server";
 import { comparisonOf } from "~/services/bids.server";
-import { makeMember, makePublishedSpec, SPEC_ANSWERS } from "../support/factories";
+import { inDays, makeMember, makePublishedSpec, makeSubmittedBid, SPEC_ANSWERS } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
-
-const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
 // An invented machine: a horizontal clamp holds the part, then a vertical ram presses it.
 const CLAMP = {
@@ -265,25 +263,7 @@ describe("publishing a machine", () => {
     const buyer = await makeMember("buyer");
     const shop = await makeMember("shop");
     const spec = await makePublishedSpec(buyer, { machine: { title: "Bending press" } });
-    await Bid.create({
-      specId: spec.id,
-      organisationId: shop.organisationId,
-      createdById: shop.id,
-      status: "submitted",
-      specRevision: 1,
-      currency: spec.currency,
-      lines: [
-        { key: "power-unit", item: "Power unit", quantity: 1, specification: "", unitPriceCents: 900_000, alternative: false, alternativeDescription: "" },
-      ],
-      units: 2,
-      setTotalCents: 900_000,
-      totalCents: 1_800_000,
-      leadTimeWeeks: 10,
-      validUntil: inDays(30),
-      terms: "",
-      notes: "",
-      submittedAt: new Date(),
-    });
+    await makeSubmittedBid(spec, shop, { totalCents: 900_000, leadTimeWeeks: 10 });
     const visitor = await signedIn(buyer);
     const id = spec.id;
     expect((await visitor.post(revise.action, "/x", {}, { specId: id })).location).toBe(`/specs/${id}/edit/machine`);

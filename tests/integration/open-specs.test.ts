@@ -3,22 +3,10 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as openSpecs from "~/routes/open-specs";
 import { Bid, Spec, SpecRevision, type User } from "~/models/index.server";
+import type { OpenSpecRow as Row } from "~/services/open-specs.server";
 import { inDays, makeMember, makePublishedSpec } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
-
-interface Row {
-  id: string;
-  title: string;
-  deliveryRegion: string | null;
-  buyerRegion: string | null;
-  reliefSettingBar: number | null;
-  pumpFlowLpm: number | null;
-  unitsWanted: number | null;
-  currency: string;
-  bidDeadline: string;
-  ownBidStatus: string | null;
-}
 
 let buyer: User;
 let shop: User;

@@ -10,57 +10,23 @@ import * as revise from "~/routes/spec-revise";
 import { OutboxMail, Spec, SpecRevision } from "~/models/index.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { waitForMail } from "../support/mailbox";
-import { makeMember } from "../support/factories";
+import { SPEC_ANSWERS, makeMember } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 import { REQUIREMENT_FIELDS, answerInWords, fieldApplies, requirementsInWords } from "~/content/requirement-fields";
 import { ENGINE_KEYS_BY_STEP, FORM_STEPS } from "~/content/spec-steps";
 
-const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
-
-// A new draft's one axis is `axis01` (FIRST_AXIS_ID) until the buyer adds others.
+// The factories' complete spec (a vertical press ram) as the form's steps take it. A new draft's
+// one axis is `axis01` (FIRST_AXIS_ID) until the buyer adds others. The quotation leaves the
+// currency at the form's default, as an older form stored none (see the last test below).
+const { title, purpose, orientation, rodDirection, mounting } = SPEC_ANSWERS.machine;
+const { currency: _currency, ...quotation } = SPEC_ANSWERS.quotation;
 const ANSWERS = {
-  machine: {
-    intent: "next",
-    title: "Bending press, main ram",
-    purpose: "Presses sheet over a die.",
-    "name-axis01": "Main ram",
-  },
-  "axis01-mounting": {
-    intent: "next",
-    orientation: "vertical",
-    rodDirection: "down",
-    mounting: "pinned-pinned",
-  },
-  "axis01-motion": {
-    intent: "next",
-    massKg: "800",
-    processForceN: "50000",
-    frictionCoefficient: "0.1",
-    strokeMm: "500",
-    extendSpeedMmS: "100",
-    retractSpeedMmS: "150",
-    accelTimeS: "0.2",
-  },
-  duty: {
-    intent: "next",
-    cyclesPerHour: "60",
-    hoursPerDay: "16",
-    ambientC: "25",
-    supplyHz: "50",
-    maxPressureBar: "160",
-    supplyVoltage: "400 V three-phase",
-    fluid: "ISO VG 46",
-  },
-  quotation: {
-    intent: "next",
-    unitsWanted: "2",
-    bidDeadline: inDays(21),
-    dateNeeded: inDays(90),
-    deliveryRegion: "UK — West Midlands",
-    retainerPercent: "20",
-    notes: "",
-  },
+  machine: { intent: "next", title, purpose, "name-axis01": "Main ram" },
+  "axis01-mounting": { intent: "next", orientation, rodDirection, mounting },
+  "axis01-motion": { intent: "next", ...SPEC_ANSWERS.motion },
+  duty: { intent: "next", ...SPEC_ANSWERS.duty },
+  quotation: { intent: "next", ...quotation },
 };
 
 /** The spec page's design of one axis (the page names it `published` since machines; `design` before). */

@@ -65,6 +65,16 @@ const POLICY = {
     forbid("Payments are the buyer's and Tenderflow's business."),
   ),
   "job.payRetainer": rule<JobParties>((v, job) => buyerOf(v, job.buyerOrganisationId), forbid("Only the buyer pays the retainer.")),
+  "job.acceptHandover": rule<JobParties>((v, job) => buyerOf(v, job.buyerOrganisationId), forbid("Only the buyer accepts the handover.")),
+  "job.exchangeFiles": rule<JobParties>(
+    (v, job) => buyerOf(v, job.buyerOrganisationId) || (v.role === "shop" && v.organisationId === job.shopOrganisationId),
+    forbid("Files are exchanged by the buyer and the shop of the job."),
+  ),
+  "job.payBalance": rule<JobParties>((v, job) => buyerOf(v, job.buyerOrganisationId), forbid("Only the buyer pays the balance.")),
+  "job.recordBankTransfer": rule<JobParties>(
+    (v, job) => staffOf(v, job.buyerOrganisationId),
+    forbid("Only account managers and administrators record a bank transfer."),
+  ),
   // Payments
   "payment.refund": rule<PaymentParties>(
     (v, payment) => staffOf(v, payment.buyerOrganisationId),
@@ -87,6 +97,8 @@ const POLICY = {
   // Organisations
   "shop.decide": rule<OrganisationFacts>((v, org) => v.role === "admin" && org.kind === "shop", forbid("Only administrators approve shops.")),
   "team.invite": rule<OrganisationFacts>((v, org) => v.organisationId === org.id && (org.kind !== "operator" || v.role === "admin"), forbid()),
+  // New buyer accounts nobody follows yet: every account manager sees them, so none is missed.
+  "account.seeUnassigned": rule<null>((v) => isOperator(v), forbid()),
   // A buyer account's notes: its account manager's and the admins'; others find no such account.
   "account.writeNote": rule<OrganisationFacts>((v, org) => org.kind === "buyer" && staffOf(v, org.id), { status: 404, message: "No such account." }),
   // The company profile: the organisation's own people (an operator's, its admins).

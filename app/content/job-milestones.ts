@@ -6,7 +6,7 @@ export const MILESTONES = [
   { key: "in_build", label: "In the workshop", hint: "The power unit and manifold are being built." },
   { key: "bench_tested", label: "Bench-tested", hint: "Run and pressure-tested on the shop's test bench." },
   { key: "dispatched", label: "Dispatched", hint: "On its way to the buyer." },
-  { key: "handed_over", label: "Handed over", hint: "Delivered and accepted; the job is closed." },
+  { key: "handed_over", label: "Handed over", hint: "Delivered; the buyer accepts it (which closes the job) or reports a problem." },
 ] as const;
 
 export type MilestoneKey = (typeof MILESTONES)[number]["key"];

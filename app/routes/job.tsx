@@ -20,13 +20,15 @@ import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
 import { RetainerPanel } from "~/components/retainer-panel";
 import { RetainerBadge } from "~/components/retainer-badge";
+import { FileList, HandoverPanel, JobFilesPanel } from "~/components/job-handover";
+import { handoverPanelOf } from "~/services/job-handover.server";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.job.specTitle || "Job"} · Tenderflow` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  const [job, retainer] = await Promise.all([jobFor(user, params.jobId), retainerPanelOf(user, params.jobId)]);
-  return { job, retainer, openable: await openableOrganisations(user, [job.buyerId, job.shopId]) };
+  const [job, retainer, handover] = await Promise.all([jobFor(user, params.jobId), retainerPanelOf(user, params.jobId), handoverPanelOf(user, params.jobId)]);
+  return { job, retainer, handover, openable: await openableOrganisations(user, [job.buyerId, job.shopId]) };
 }
 
 type ActionResult = { intent: JobActionIntent | null; result: SubmissionResult<string[]> };
@@ -77,7 +79,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 type Job = Route.ComponentProps["loaderData"]["job"];
 
 export default function JobPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { job, retainer } = loaderData;
+  const { job, retainer, handover } = loaderData;
   const result = (intent: JobActionIntent) => (actionData?.intent === intent ? actionData.result : undefined);
   return (
     <>
@@ -90,7 +92,11 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
         title={job.specTitle || "Untitled spec"}
         lead={
           <span className="flex flex-wrap items-center gap-2">
-            <Badge tone={job.overdue ? "bad" : "neutral"}>{job.overdue ? "Overdue" : JOB_STAGE_LABELS[job.stage]}</Badge>
+            {handover.state === "accepted" ? (
+              <Badge tone="good">Closed: handover accepted</Badge>
+            ) : (
+              <Badge tone={job.overdue ? "bad" : "neutral"}>{job.overdue ? "Overdue" : JOB_STAGE_LABELS[job.stage]}</Badge>
+            )}
             <span>
               For <OrganisationName id={job.buyerId} name={job.buyerName} linked={loaderData.openable.includes(job.buyerId)} /> · built by{" "}
               <OrganisationName id={job.shopId} name={job.shopName} linked={loaderData.openable.includes(job.shopId)} /> · awarded {formatDay(job.awardedAt)} (
@@ -122,11 +128,13 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
         <div className="space-y-6 lg:col-span-2">
           <Facts job={job} />
           <Timeline job={job} />
-          <History job={job} />
+          <JobFilesPanel jobId={job.id} files={handover.files} canUpload={handover.canExchangeFiles} />
+          <History job={job} photos={handover.photos} />
         </div>
         {/* Keyed by the history's length, so every saved change starts the forms afresh. On a phone the
             actions (pay, record progress) come first, not under the milestones and the history. */}
         <div key={job.events.length} className="order-first space-y-6 lg:order-none">
+          <HandoverPanel jobId={job.id} handover={handover} />
           {retainer.canPay || retainer.canRefund || retainer.payments.length ? (
             <RetainerPanel
               jobId={job.id}
@@ -137,7 +145,7 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
               payments={retainer.payments}
             />
           ) : null}
-          {job.canRecordProgress ? (
+          {job.canRecordProgress && handover.state !== "accepted" ? (
             <>
               {job.open.length ? <ReachForm open={job.open} lastResult={result("reach")} /> : null}
               {job.open.length ? <TargetForm open={job.open} lastResult={result("target")} /> : null}
@@ -237,10 +245,24 @@ function describe(e: JobEventView, job: Job) {
       return `Paid the retainer of ${money(e.detail.amountCents)} by card.`;
     case "retainer_refunded":
       return `Paid back ${money(e.detail.amountCents)} of the retainer.`;
+    case "handover_accepted":
+      return "Accepted the handover; the job is closed.";
+    case "handover_problem":
+      return "Reported a problem with the handover; it is back with the shop.";
+    case "file_added": {
+      const files = Array.isArray(e.detail.files) ? (e.detail.files as { fileName: string }[]).map((f) => f.fileName).join(", ") : "";
+      return `Uploaded ${e.detail.kind === "approved_drawing" ? "the approved drawing" : "a test certificate"}: ${files}.`;
+    }
+    case "balance_paid":
+      return e.detail.method === "bank_transfer"
+        ? `Recorded the balance of ${money(e.detail.amountCents)} as paid by bank transfer${typeof e.detail.reference === "string" && e.detail.reference ? ` (reference ${e.detail.reference})` : ""}.`
+        : `Paid the balance of ${money(e.detail.amountCents)} by card.`;
+    case "balance_refunded":
+      return `Paid back ${money(e.detail.amountCents)} of the balance.`;
   }
 }
 
-function History({ job }: { job: Job }) {
+function History({ job, photos }: { job: Job; photos: Route.ComponentProps["loaderData"]["handover"]["photos"] }) {
   return (
     <Card title="History">
       <ol className="divide-y divide-ink-100">
@@ -256,6 +278,7 @@ function History({ job }: { job: Job }) {
             </p>
             <p className="mt-1">{describe(e, job)}</p>
             {e.body ? <p className="mt-1 whitespace-pre-wrap rounded-md bg-ink-50 px-3 py-2 text-ink-800">{e.body}</p> : null}
+            {e.kind === "handover_problem" ? <FileList files={photos.filter((p) => p.eventId === e.id)} /> : null}
           </li>
         ))}
       </ol>

@@ -20,12 +20,21 @@ interface Locked {
   transaction: Transaction;
 }
 
-async function changeJob<T>(viewer: User, jobId: string | undefined, action: Action & `job.${string}`, change: (locked: Locked) => Promise<T>): Promise<T> {
+export async function changeJob<T>(
+  viewer: User,
+  jobId: string | undefined,
+  action: Action & `job.${string}`,
+  change: (locked: Locked) => Promise<T>,
+): Promise<T> {
   return sequelize.transaction(async (transaction) => {
     // Outside the viewer's jobs: 404; inside but not theirs to change: the policy's refusal.
     const access = await viewerOf(viewer, transaction);
     const job = await findInScope(Job, jobsWhere(access), jobId, { missing: "No such job.", transaction, lock: transaction.LOCK.UPDATE });
     authorize(access, action, job);
+    // The buyer's acceptance closes the job: its milestones and plan stay as they were.
+    if (job.acceptedAt && action === "job.recordProgress") {
+      throw new FieldErrors({ "": [`The buyer accepted the handover on ${formatDay(isoDay(job.acceptedAt))}; this job is closed.`] });
+    }
     const milestones = await JobMilestone.findAll({ where: { jobId: job.id }, order: [["position", "ASC"]], transaction });
     const result = await change({ job, milestones, transaction });
     const stage = stageOf(milestones);
@@ -34,7 +43,7 @@ async function changeJob<T>(viewer: User, jobId: string | undefined, action: Act
   });
 }
 
-async function record(
+export async function record(
   transaction: Transaction,
   job: Job,
   user: User,
@@ -162,7 +171,7 @@ export async function addManagerNote(viewer: User, jobId: string | undefined, { 
 }
 
 /** What a mail about the job names (its spec, its shop) and who gets it: every active person of buyer and shop. */
-async function partiesOf(transaction: Transaction, job: Job) {
+export async function partiesOf(transaction: Transaction, job: Job) {
   // One after the other: the queries share the transaction's one connection.
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });
   const shop = await Organisation.findByPk(job.shopOrganisationId, { transaction, rejectOnEmpty: true });

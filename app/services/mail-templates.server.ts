@@ -193,6 +193,31 @@ export function milestoneTakenBackMail(d: {
   };
 }
 
+/** The buyer accepted the handover: the job is closed (to buyer and shop). */
+export function handoverAcceptedMail(d: { name: string; toShop: boolean; buyerName: string; specTitle: string; jobId: string }): MailContent {
+  return {
+    subject: `Handover accepted: ${d.specTitle}`,
+    text: `Hello ${d.name},\n\n${d.toShop ? `${d.buyerName} has accepted the handover of "${d.specTitle}".` : `You accepted the handover of "${d.specTitle}" (${d.buyerName}).`} The job is closed; the balance is paid from the job page.\n\nThe job: ${jobLink(d.jobId)}\n`,
+  };
+}
+
+/** The buyer raised a problem with the handover: it is back with the shop (to buyer and shop). */
+export function handoverProblemMail(d: {
+  name: string;
+  toShop: boolean;
+  buyerName: string;
+  specTitle: string;
+  jobId: string;
+  note: string;
+  photos: number;
+}): MailContent {
+  const photos = d.photos ? ` with ${d.photos === 1 ? "a photo" : `${d.photos} photos`}` : "";
+  return {
+    subject: `Problem with the handover: ${d.specTitle}`,
+    text: `Hello ${d.name},\n\n${d.buyerName} has raised a problem with the handover of "${d.specTitle}"${photos}. ${d.toShop ? "The handover is back with your shop: put it right, then record the handover again." : "The shop has been told and will record the handover again once it is put right."}\n\nThe note: ${d.note}\n\nThe job: ${jobLink(d.jobId)}\n`,
+  };
+}
+
 // --- Payments -----------------------------------------------------------------------------------
 
 interface Retainer {

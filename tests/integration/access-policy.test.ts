@@ -62,6 +62,10 @@ const ACTS = `
     job.readInternalNotes   job                  .      .      .     .      .        Y        .      Y
     job.seePayments         job                  Y      .      .     .      .        Y        .      Y
     job.payRetainer         job                  Y      .      .     .      .        .        .      .
+    job.acceptHandover      job                  Y      .      .     .      .        .        .      .
+    job.exchangeFiles       job                  Y      .      Y     .      .        .        .      .
+    job.payBalance          job                  Y      .      .     .      .        .        .      .
+    job.recordBankTransfer  job                  .      .      .     .      .        Y        .      Y
     payment.refund          payment              .      .      .     .      .        Y        .      Y
     spec.edit               published-spec       Y      .      .     .      .        .        .      .
     spec.compareBids        published-spec       Y      .      .     .      .        .        .      .
@@ -76,6 +80,7 @@ const ACTS = `
     shop.decide             buyer-account        .      .      .     .      .        .        .      .
     team.invite             buyer-account        Y      .      .     .      .        .        .      .
     team.invite             operator             .      .      .     .      .        .        .      Y
+    account.seeUnassigned   none                 .      .      .     .      .        Y        Y      Y
     account.writeNote       buyer-account        .      .      .     .      .        Y        .      Y
     organisation.editProfile buyer-account       Y      .      .     .      .        .        .      .
     organisation.editProfile job-shop            .      .      Y     .      .        .        .      .

@@ -9,7 +9,9 @@ import { machineInput } from "~/content/machine-input";
 import { readDraft } from "~/content/spec-draft";
 import { headlineFigures } from "~/services/published-design";
 import { MILESTONES, TARGET_SHARES, type MilestoneKey } from "~/content/job-milestones";
-import { bidTotals, retainerCents } from "~/content/money";
+import { retainerCents } from "~/content/money";
+import { offerTotals } from "~/content/offer-terms";
+import { demoAlternativeCircuit, demoOfferParts } from "./demo-offers";
 
 export const DEMO_PASSWORD = "tenderflow-demo";
 
@@ -457,7 +459,9 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
         alternative: l.key === offer.alternativeOn,
         alternativeDescription: l.key === offer.alternativeOn ? "Internal gear pump of the same displacement, quieter at 1500 rpm" : "",
       }));
-      const totals = bidTotals(lines, units);
+      const parts = demoOfferParts(offer.shop, offer.factor);
+      const alternativeCircuit = offer.alternativeOn && flat.title === "Panel press, main ram" ? demoAlternativeCircuit(units) : null;
+      const totals = offerTotals(lines, units, parts.extras, parts.ownLines);
       const offered = offer.status !== "draft";
       const version = offered ? (offer.revised ? 2 : 1) : 0;
       const submittedAt = offered ? daysAgo(Math.max(1, (spec.publishedDaysAgo ?? 2) - 2)) : null;
@@ -465,8 +469,9 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
         sequelize,
         transaction,
         `INSERT INTO bids (spec_id, organisation_id, created_by_id, status, spec_revision, version, currency, lines, units, set_total_cents,
-           total_cents, lead_time_weeks, valid_until, terms, notes, submitted_at)
-         VALUES (:spec, :org, :author, :status, 1, :version, :currency, :lines, :units, :set, :total, :lead, :valid, :terms, :notes, :submittedAt) RETURNING id`,
+           total_cents, lead_time_weeks, valid_until, extras, own_lines, offer_terms, alternative_circuit, notes, submitted_at)
+         VALUES (:spec, :org, :author, :status, 1, :version, :currency, :lines, :units, :set, :total, :lead, :valid, :extras, :ownLines, :offerTerms,
+           :alternativeCircuit, :notes, :submittedAt) RETURNING id`,
         {
           spec: row.id,
           org: orgIds.get(offer.shop),
@@ -480,7 +485,10 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
           total: totals.totalCents,
           lead: offer.leadTimeWeeks,
           valid: inDays(45),
-          terms: "Ex works, 30 days net after delivery; 12 months warranty.",
+          extras: JSON.stringify(parts.extras),
+          ownLines: JSON.stringify(parts.ownLines),
+          offerTerms: parts.offerTerms && JSON.stringify(parts.offerTerms),
+          alternativeCircuit: alternativeCircuit && JSON.stringify(alternativeCircuit),
           notes: offer.alternativeOn ? "We offer a quieter pump; the catalogue part is available at the same price on request." : "",
           submittedAt,
         },
@@ -489,11 +497,13 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
         const offerRecord = {
           lines,
           units,
-          ...totals,
+          setTotalCents: totals.setTotalCents,
+          totalCents: totals.totalCents,
           currency: flat.currency,
           leadTimeWeeks: offer.leadTimeWeeks,
           validUntil: inDays(45),
-          terms: "",
+          ...parts,
+          alternativeCircuit,
           notes: "",
         };
         if (v < version) offerRecord.leadTimeWeeks += 2;

@@ -8,7 +8,8 @@ import * as paymentsRoute from "~/routes/payments";
 import { Bid, Job, JobEvent, Spec, SpecRevision, sequelize } from "~/models/index.server";
 import { readDraft, stepIdsOf } from "~/content/spec-draft";
 import { billOf } from "~/services/published-design";
-import { bidTotals, retainerCents } from "~/content/money";
+import { retainerCents } from "~/content/money";
+import { offerTotals } from "~/content/offer-terms";
 import { bomOf } from "~/services/bids.server";
 import { DEMO_PASSWORD, seedDemo } from "../../db/seeds/demo";
 import { signedIn } from "../support/sessions";
@@ -27,13 +28,19 @@ describe("the demo scenario", () => {
   it("prices every offer exactly as the app would, against the frozen bill", async () => {
     const bids = await Bid.findAll({ include: [{ model: Spec, as: "spec" }] });
     expect(bids.length).toBe(9);
+    // Every submitted demo offer states its terms; one proposes an alternative circuit.
+    expect(bids.filter((b) => b.offerTerms?.incoterm).length).toBe(9);
+    expect(bids.filter((b) => b.alternativeCircuit).length).toBe(1);
     for (const bid of bids) {
       const spec = (bid as Bid & { spec: Spec }).spec;
       const bom = await bomOf(spec);
       expect(bid.lines.map((l) => l.key)).toEqual(bom.map((l) => l.key));
-      const totals = bidTotals(
+      // The bill × units plus the work beyond it and the shop's own lines, as the bid service adds them.
+      const totals = offerTotals(
         bid.lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })),
         spec.unitsWanted ?? 1,
+        bid.extras,
+        bid.ownLines,
       );
       expect([bid.setTotalCents, bid.totalCents]).toEqual([totals.setTotalCents, totals.totalCents]);
     }

@@ -54,5 +54,6 @@ export default [
     route("users", "routes/admin.users.tsx"),
     route("organisations", "routes/admin.organisations.tsx"),
     route("mail", "routes/admin.mail.tsx"),
+    route("audit", "routes/admin.audit.tsx"),
   ]),
 ] satisfies RouteConfig;

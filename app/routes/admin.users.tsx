@@ -12,7 +12,9 @@ import { countOf } from "~/content/count";
 import { userActionSchema, userListQuerySchema } from "~/schemas/admin";
 import { LIST_SORTS } from "~/schemas/list-sort";
 import { confirmOwnPassword } from "~/services/accounts.server";
-import { changeRole, listUsers, roleChangeTarget, setActive } from "~/services/admin.server";
+import { assignAccountManager, changeRole, listAccountManagers, listUsers, roleChangeTarget, setActive } from "~/services/admin.server";
+import { unassignedAccounts } from "~/services/unassigned-accounts.server";
+import { UnassignedAccounts } from "~/components/unassigned-accounts";
 import { openableOrganisations } from "~/services/organisation-page.server";
 import { fieldErrorsOf } from "~/services/errors.server";
 import { Throttled, clientOf } from "~/services/throttle.server";
@@ -30,12 +32,18 @@ export const meta: Route.MetaFunction = () => [{ title: "Users · Tenderflow" }]
 export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, PAGE_ROLES.administration);
   const query = userListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
-  const { users, total, page, pageCount } = await listUsers(admin, query);
+  const [{ users, total, page, pageCount }, unassigned, managers] = await Promise.all([
+    listUsers(admin, query),
+    unassignedAccounts(admin),
+    listAccountManagers(admin),
+  ]);
   const openable = await openableOrganisations(
     admin,
     users.map((u) => u.organisationId),
   );
   return {
+    unassigned,
+    managers: managers.map((m) => ({ id: m.id, name: m.name })),
     adminId: admin.id,
     sort: query.sort,
     total,
@@ -60,7 +68,10 @@ export async function action(args: Route.ActionArgs) {
   const { request } = args;
   const admin = await requireRole(request, PAGE_ROLES.administration);
   const submission = parseWithZod(await request.formData(), { schema: userActionSchema });
-  if (submission.status !== "success") return data<ActionData>({ error: "That change was not understood." }, { status: 400 });
+  if (submission.status !== "success") {
+    const error = submission.error?.managerId?.[0] ?? "That change was not understood.";
+    return data<ActionData>({ error }, { status: 400 });
+  }
   const back = new URL(request.url);
   try {
     const change = submission.value;
@@ -84,6 +95,10 @@ export async function action(args: Route.ActionArgs) {
       const user = await changeRole(admin, change.userId, change.role);
       return redirectWithToast(request, `${back.pathname}${back.search}`, `${user.name} is now ${ROLE_LABELS[user.role].toLowerCase()}.`);
     }
+    if (change.intent === "assign-manager") {
+      await assignAccountManager(admin, change.organisationId, change);
+      return redirectWithToast(request, `${back.pathname}${back.search}`, "Account manager assigned; the account is theirs now.");
+    }
     const user = await setActive(admin, change.userId, change.active);
     return redirectWithToast(
       request,
@@ -102,6 +117,7 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
       <PageHeader title="Users" lead={`${countOf(loaderData.total, "user")} across all organisations.`} />
       <ErrorNotice error={actionData?.error} />
       {actionData?.confirm ? <ConfirmRoleChange confirm={actionData.confirm} /> : null}
+      <UnassignedAccounts {...loaderData.unassigned} managers={loaderData.managers} />
       <Card>
         <SearchBar label="Search users" placeholder="Name, e-mail or organisation" value={searchParams.get("q") ?? ""}>
           {/* A new search keeps the order chosen. */}

@@ -12,6 +12,9 @@ import { formatDay } from "~/content/dates";
 import { JOB_STAGES, JOB_STAGE_LABELS } from "~/content/job-milestones";
 import { jobListQuerySchema } from "~/schemas/jobs";
 import { listJobs } from "~/services/job-reads.server";
+import { can, viewerOf } from "~/auth/access-policy.server";
+import { unassignedAccounts } from "~/services/unassigned-accounts.server";
+import { UnassignedAccounts } from "~/components/unassigned-accounts";
 import { openableOrganisations } from "~/services/organisation-page.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data ? HEADINGS[data.role].title : "Jobs"} · Tenderflow` }];
@@ -48,6 +51,8 @@ export async function loader({ request }: Route.LoaderArgs) {
     list.jobs.flatMap((j) => [j.buyerId, j.shopId]),
   );
   return {
+    // New buyer accounts nobody follows, on every account manager's dashboard (operators only).
+    unassigned: can(await viewerOf(user), "account.seeUnassigned", null) ? await unassignedAccounts(user) : null,
     role: user.role,
     filtered: Boolean(query.q || query.stage || query.retainer || query.overdue || query.account || query.shop),
     ...list,
@@ -75,6 +80,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
   return (
     <>
       <PageHeader title={heading.title} lead={heading.lead} />
+      {d.unassigned ? <UnassignedAccounts {...d.unassigned} /> : null}
       {!anyJobs ? (
         <EmptyState title="No jobs yet">
           <p>{heading.empty}</p>

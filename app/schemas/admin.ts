@@ -29,6 +29,8 @@ export const userActionSchema = z.discriminatedUnion("intent", [
     currentPassword: z.string().max(200).optional(),
   }),
   z.object({ intent: z.literal("set-active"), userId: z.uuid(), active: z.enum(["true", "false"]).transform((v) => v === "true") }),
+  // From the unassigned machine builders on the admin's home: a choice is required there.
+  z.object({ intent: z.literal("assign-manager"), organisationId: z.uuid(), managerId: z.uuid({ error: "Choose an account manager." }) }),
 ]);
 
 export const assignManagerSchema = z.object({

@@ -6,7 +6,7 @@ import { Invitation, Organisation, PasswordReset, User, UserSession, sequelize }
 import { FieldErrors, notFound } from "./errors.server";
 import { authorize, viewerOf } from "~/auth/access-policy.server";
 import { enqueueMail } from "./mail.server";
-import { invitationMail, invitationToTakenAddressMail, passwordResetMail } from "./mail-templates.server";
+import { invitationMail, invitationToTakenAddressMail, newBuyerUnassignedMail, passwordResetMail } from "./mail-templates.server";
 import { throttleInvitations, mayMail, throttledPasswordCheck } from "./throttle.server";
 import { hashToken, newToken } from "./tokens.server";
 
@@ -61,10 +61,19 @@ export type NewAccount = Omit<SignUpInput, "password"> & { passwordHash: string 
 /** The organisation and its first user, inside the caller's transaction. */
 export async function createAccount(input: NewAccount, transaction: Transaction): Promise<User> {
   const organisation = await Organisation.create({ name: input.organisationName, kind: input.kind, region: null, accountManagerId: null }, { transaction });
-  return User.create(
+  const user = await User.create(
     { organisationId: organisation.id, email: input.email, name: input.name, passwordHash: input.passwordHash, role: input.kind, lastSignInAt: new Date() },
     { transaction },
   );
+  // A new machine builder has no account manager: the admins hear of it at once (shops are
+  // announced by their approval list instead).
+  if (organisation.kind === "buyer") {
+    for (const admin of await User.findAll({ where: { role: "admin", active: true }, order: [["email", "ASC"]], transaction })) {
+      const mail = newBuyerUnassignedMail({ name: admin.name, buyerName: organisation.name, personName: user.name, email: user.email });
+      await enqueueMail({ to: admin.email, ...mail }, transaction);
+    }
+  }
+  return user;
 }
 
 /**

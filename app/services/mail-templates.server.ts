@@ -73,6 +73,14 @@ export function shopRefusedMail(d: { name: string; shopName: string; reason: str
   };
 }
 
+/** To each admin: a machine builder signed up and has no account manager yet. */
+export function newBuyerUnassignedMail(d: { name: string; buyerName: string; personName: string; email: string }): MailContent {
+  return {
+    subject: `New machine builder without an account manager: ${d.buyerName}`,
+    text: `Hello ${d.name},\n\n${d.buyerName} has just signed up on Tenderflow (${d.personName}, ${d.email}). Nobody follows the account yet: it shows as unassigned on your users page and on every account manager's dashboard until you assign it.\n\nAssign an account manager: ${pageLink("/admin/users")}\n`,
+  };
+}
+
 // --- Specs, questions, bids ---------------------------------------------------------------------
 
 export function specPublishedMail(d: { shopName: string; specId: string; specTitle: string; deliveryRegion: string; bidDeadline: string }): MailContent {

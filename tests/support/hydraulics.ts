@@ -1,5 +1,6 @@
 // Single axes that several engine, component and bench tests size, each named for where it comes
 // from, so a check value worked by hand reads the same inputs everywhere it is checked.
+import fc from "fast-check";
 import { NotSizableError, sizeCircuit, type Design, type RequirementsInput } from "~/hydraulics";
 
 /**
@@ -135,3 +136,18 @@ export const AXIS_MIX: RequirementsInput[] = [
     supplyHz: 60,
   },
 ];
+
+/**
+ * A property over random axes (fast-check): `check` holds for the design of every axis `axes`
+ * yields that the series can size; axes nothing in the series meets are left out (fc.pre).
+ */
+export function forEveryDesign(axes: fc.Arbitrary<RequirementsInput>, check: (d: Design, req: RequirementsInput) => void, numRuns = 300): void {
+  fc.assert(
+    fc.property(axes, (req) => {
+      const d = sizedOrNull(req);
+      fc.pre(d !== null);
+      check(d!, req);
+    }),
+    { numRuns },
+  );
+}

@@ -5,11 +5,10 @@
  * phase) over random axes, and against the shared sources' two-speed press (100 mm bore, approach
  * 0.2 m/s, pressing 0.01 m/s) with its high-low pump check values, worked by hand.
  */
-import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { sizeCircuit, type Design } from "~/hydraulics";
 import { cycleOf, type CyclePhase, type CyclePumpPhases } from "~/hydraulics/cycle";
-import { REFERENCE_PRESS, sizedOrNull } from "../../support/hydraulics";
+import { REFERENCE_PRESS, forEveryDesign } from "../../support/hydraulics";
 import { pressAxisArb, requirementsArb } from "./arbitraries";
 
 const close = (a: number, b: number, rel = 1e-9) => Math.abs(a - b) <= rel * Math.max(1, Math.abs(a), Math.abs(b));
@@ -332,24 +331,10 @@ describe("duty edge cases", () => {
 
 describe("properties over random axes", () => {
   it("every axis: continuity, P = p·Q/600, the pump covers the demand, the motor covers the phases", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizedOrNull(req);
-        fc.pre(d !== null);
-        checkCycle(d!);
-      }),
-      { numRuns: 300 },
-    );
+    forEveryDesign(requirementsArb, checkCycle);
   });
 
   it("every pressing axis with any pump", () => {
-    fc.assert(
-      fc.property(pressAxisArb, (req) => {
-        const d = sizedOrNull(req);
-        fc.pre(d !== null);
-        checkCycle(d!);
-      }),
-      { numRuns: 300 },
-    );
+    forEveryDesign(pressAxisArb, checkCycle);
   });
 });

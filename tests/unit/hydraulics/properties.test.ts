@@ -7,7 +7,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Design, RequirementsInput } from "~/hydraulics";
 import { portNets } from "~/hydraulics/port-nets";
-import { sizedOrNull } from "../../support/hydraulics";
+import { forEveryDesign, sizedOrNull } from "../../support/hydraulics";
 import { pressAxisArb, requirementsArb } from "./arbitraries";
 
 const RUNS = { numRuns: 300 };
@@ -203,69 +203,57 @@ describe("a slower approach never a larger pump (sizing contract)", () => {
 
 describe("the motor covers every phase (IEC 60034-1 short overload, from memory [M]; RMS loading, trade-magazine article [S])", () => {
   it("each phase's shaft power within the rating, or 1.5 × the rating for a phase of at most 15 s where the RMS rule is used", () => {
-    fc.assert(
-      fc.property(fc.oneof(requirementsArb, pressAxisArb), (req) => {
-        const d = sizeCircuit(req);
-        fc.pre(!d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES"));
-        const m = d.motor;
-        // motor.phases lists a dwell or pressing phase of 0 s too (one that never happens); neutral is
-        // not in it, and all of its shaft power becomes heat, so heat.neutralLossKw is that power
-        const phases = [...m.phases.filter((ph) => ph.durationS > 0), { name: "neutral", kw: d.heat.neutralLossKw, durationS: Number.POSITIVE_INFINITY }];
-        for (const ph of phases) {
-          const short = m.rmsKw !== null && ph.durationS <= 15;
-          expect(ph.kw, ph.name).toBeLessThanOrEqual((short ? 1.5 : 1) * m.ratedKw + 1e-9);
-          expect(ph.kw, ph.name).toBeLessThanOrEqual(m.peakKw + 1e-9);
-        }
-      }),
-      RUNS,
-    );
+    forEveryDesign(fc.oneof(requirementsArb, pressAxisArb), (d) => {
+      fc.pre(!d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES"));
+      const m = d.motor;
+      // motor.phases lists a dwell or pressing phase of 0 s too (one that never happens); neutral is
+      // not in it, and all of its shaft power becomes heat, so heat.neutralLossKw is that power
+      const phases = [...m.phases.filter((ph) => ph.durationS > 0), { name: "neutral", kw: d.heat.neutralLossKw, durationS: Number.POSITIVE_INFINITY }];
+      for (const ph of phases) {
+        const short = m.rmsKw !== null && ph.durationS <= 15;
+        expect(ph.kw, ph.name).toBeLessThanOrEqual((short ? 1.5 : 1) * m.ratedKw + 1e-9);
+        expect(ph.kw, ph.name).toBeLessThanOrEqual(m.peakKw + 1e-9);
+      }
+    });
   });
 });
 
 describe("pressing speed and standby over random pressing axes", () => {
   it("a flow control exactly where the pump offers more than 1.1 × the pressing flow, with its bill lines (common practice)", () => {
-    fc.assert(
-      fc.property(pressAxisArb, (req) => {
-        const d = sizeCircuit(req);
-        const q = d.flowsLpm.press!;
-        // what the pump offers while pressing: its whole delivery, or a double pump's small section (Q = V·n·η_v [M])
-        const offers = d.pump.type === "double" ? (d.pump.displacementsCcRev[1] * d.pump.speedRpm * 0.95) / 1000 : d.flowsLpm.pump;
-        const pc = d.pressSpeedControl;
-        expect(pc !== null).toBe(offers > 1.1 * q + 1e-9);
-        for (const key of ["press-flow-control", "press-bypass-valve", "press-limit-switch"]) expect(d.bom.some((l) => l.key === key)).toBe(pc !== null);
-        if (!pc) return;
-        expect(pc.settingLpm).toBe(q);
-        // continuity [D]: what the pump offers less what the control passes crosses the relief, unless the pump destrokes
-        expect(pc.overReliefLpm).toBeCloseTo(d.pump.type === "compensated" ? 0 : offers - q, 9);
-        expect(d.warnings.some((w) => w.code === "PRESS_CONTROL_DROP_LOW")).toBe(pc.availableDropBar < pc.minDropBar - 1e-9);
-      }),
-      RUNS,
-    );
+    forEveryDesign(pressAxisArb, (d) => {
+      const q = d.flowsLpm.press!;
+      // what the pump offers while pressing: its whole delivery, or a double pump's small section (Q = V·n·η_v [M])
+      const offers = d.pump.type === "double" ? (d.pump.displacementsCcRev[1] * d.pump.speedRpm * 0.95) / 1000 : d.flowsLpm.pump;
+      const pc = d.pressSpeedControl;
+      expect(pc !== null).toBe(offers > 1.1 * q + 1e-9);
+      for (const key of ["press-flow-control", "press-bypass-valve", "press-limit-switch"]) expect(d.bom.some((l) => l.key === key)).toBe(pc !== null);
+      if (!pc) return;
+      expect(pc.settingLpm).toBe(q);
+      // continuity [D]: what the pump offers less what the control passes crosses the relief, unless the pump destrokes
+      expect(pc.overReliefLpm).toBeCloseTo(d.pump.type === "compensated" ? 0 : offers - q, 9);
+      expect(d.warnings.some((w) => w.code === "PRESS_CONTROL_DROP_LOW")).toBe(pc.availableDropBar < pc.minDropBar - 1e-9);
+    });
   });
 
   it("a compensated pump keeps P blocked at rest, without a vent valve, at p_c delivering only its leakage (shared sources' standby estimate [M])", () => {
-    fc.assert(
-      fc.property(
-        pressAxisArb.map((r) => ({ ...r, pumpType: "compensated" as const })),
-        (req) => {
-          const d = sizeCircuit(req);
-          fc.pre(d.pump.type === "compensated");
-          expect(["closed", "float"]).toContain(d.directionalValve.center);
-          expect(d.reliefVent).toBeNull();
-          expect(d.circuit.components.some((c) => c.kind === "vent")).toBe(false);
-          expect(d.heat.neutralPressureBar).toBe(d.pump.compensatorBar);
-          // P = p_c·Q_leak/600 with Q_leak = 0.05·Q_max [D]
-          expect(d.heat.neutralLossKw).toBeCloseTo((d.pump.compensatorBar! * 0.05 * d.flowsLpm.pump) / 600, 9);
-          // the relief sits above the compensator so it never opens in normal work: max(1.1·p_c, p_c + 10 bar)
-          // rounded up to 5 bar (10 % on a maker's page; p_c + 10…20 bar common practice), within the cylinder
-          // rating; where the rating caps it, the compensator came down, not the gap (engine 2.11)
-          const pc = d.pump.compensatorBar!;
-          expect(d.pressuresBar.reliefSetting).toBeGreaterThanOrEqual(Math.max(1.1 * pc, pc + 10) - 1e-9);
-          expect(d.pressuresBar.reliefSetting).toBeLessThanOrEqual(d.cylinder.ratedPressureBar);
-          expect(d.pressuresBar.reliefSetting % 5).toBe(0);
-        },
-      ),
-      RUNS,
+    forEveryDesign(
+      pressAxisArb.map((r) => ({ ...r, pumpType: "compensated" as const })),
+      (d) => {
+        fc.pre(d.pump.type === "compensated");
+        expect(["closed", "float"]).toContain(d.directionalValve.center);
+        expect(d.reliefVent).toBeNull();
+        expect(d.circuit.components.some((c) => c.kind === "vent")).toBe(false);
+        expect(d.heat.neutralPressureBar).toBe(d.pump.compensatorBar);
+        // P = p_c·Q_leak/600 with Q_leak = 0.05·Q_max [D]
+        expect(d.heat.neutralLossKw).toBeCloseTo((d.pump.compensatorBar! * 0.05 * d.flowsLpm.pump) / 600, 9);
+        // the relief sits above the compensator so it never opens in normal work: max(1.1·p_c, p_c + 10 bar)
+        // rounded up to 5 bar (10 % on a maker's page; p_c + 10…20 bar common practice), within the cylinder
+        // rating; where the rating caps it, the compensator came down, not the gap (engine 2.11)
+        const pc = d.pump.compensatorBar!;
+        expect(d.pressuresBar.reliefSetting).toBeGreaterThanOrEqual(Math.max(1.1 * pc, pc + 10) - 1e-9);
+        expect(d.pressuresBar.reliefSetting).toBeLessThanOrEqual(d.cylinder.ratedPressureBar);
+        expect(d.pressuresBar.reliefSetting % 5).toBe(0);
+      },
     );
   });
 });
@@ -289,171 +277,147 @@ describe("holding (sizing contract)", () => {
 
 describe("consistency of every design", () => {
   it("flows equal area × speed (continuity [D])", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizeCircuit(req);
-        const c = d.cylinder;
-        expect(rel(d.flowsLpm.extend, (c.capAreaMm2 * d.speedsMmS.extendRequested * 0.06) / 1000)).toBeLessThan(1e-9);
-        expect(rel(d.flowsLpm.retract, (c.annulusAreaMm2 * d.speedsMmS.retractRequested * 0.06) / 1000)).toBeLessThan(1e-9);
-        // the fixed pump serves the larger stroke flow (unless the series runs out); both strokes get all of it.
-        // A regenerative approach takes only A_rod·v from the pump (textbook regenerative circuit, v = Q_p / A_rod).
-        const approachArea = d.regenerative ? c.capAreaMm2 - c.annulusAreaMm2 : c.capAreaMm2;
-        const approachDraw = (approachArea * d.speedsMmS.extendRequested * 0.06) / 1000;
-        if (!d.warnings.some((w) => w.code === "PUMP_BEYOND_SERIES")) {
-          expect(d.flowsLpm.pump).toBeGreaterThanOrEqual(Math.max(approachDraw, d.flowsLpm.retract) * (1 - 1e-9));
-        }
-        expect(rel(d.flowsLpm.pump, (approachArea * d.speedsMmS.extendActual * 0.06) / 1000)).toBeLessThan(1e-9);
-        expect(rel(d.flowsLpm.pump, (c.annulusAreaMm2 * d.speedsMmS.retractActual * 0.06) / 1000)).toBeLessThan(1e-9);
-        expect(rel(d.flowsLpm.returnMax, d.flowsLpm.pump * c.areaRatio)).toBeLessThan(1e-9);
-        // pump: Q = V·n·η_v/1000 (Esposito [M])
-        expect(rel(d.flowsLpm.pump, (d.pump.displacementCcRev * d.pump.speedRpm * 0.95) / 1000)).toBeLessThan(1e-9);
-      }),
-      RUNS,
-    );
+    forEveryDesign(requirementsArb, (d) => {
+      const c = d.cylinder;
+      expect(rel(d.flowsLpm.extend, (c.capAreaMm2 * d.speedsMmS.extendRequested * 0.06) / 1000)).toBeLessThan(1e-9);
+      expect(rel(d.flowsLpm.retract, (c.annulusAreaMm2 * d.speedsMmS.retractRequested * 0.06) / 1000)).toBeLessThan(1e-9);
+      // the fixed pump serves the larger stroke flow (unless the series runs out); both strokes get all of it.
+      // A regenerative approach takes only A_rod·v from the pump (textbook regenerative circuit, v = Q_p / A_rod).
+      const approachArea = d.regenerative ? c.capAreaMm2 - c.annulusAreaMm2 : c.capAreaMm2;
+      const approachDraw = (approachArea * d.speedsMmS.extendRequested * 0.06) / 1000;
+      if (!d.warnings.some((w) => w.code === "PUMP_BEYOND_SERIES")) {
+        expect(d.flowsLpm.pump).toBeGreaterThanOrEqual(Math.max(approachDraw, d.flowsLpm.retract) * (1 - 1e-9));
+      }
+      expect(rel(d.flowsLpm.pump, (approachArea * d.speedsMmS.extendActual * 0.06) / 1000)).toBeLessThan(1e-9);
+      expect(rel(d.flowsLpm.pump, (c.annulusAreaMm2 * d.speedsMmS.retractActual * 0.06) / 1000)).toBeLessThan(1e-9);
+      expect(rel(d.flowsLpm.returnMax, d.flowsLpm.pump * c.areaRatio)).toBeLessThan(1e-9);
+      // pump: Q = V·n·η_v/1000 (Esposito [M])
+      expect(rel(d.flowsLpm.pump, (d.pump.displacementCcRev * d.pump.speedRpm * 0.95) / 1000)).toBeLessThan(1e-9);
+    });
   });
 
   it("forces equal pressure × area × efficiency (textbook F = η·p·A)", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const c = sizeCircuit(req).cylinder;
-        const D = c.boreMm,
-          dr = c.rodMm;
-        expect(rel(c.capAreaMm2, (Math.PI * D * D) / 4)).toBeLessThan(1e-12);
-        expect(rel(c.annulusAreaMm2, (Math.PI * (D * D - dr * dr)) / 4)).toBeLessThan(1e-12);
-        expect(rel(c.extendForceN, (c.workingPressureBar * c.capAreaMm2 * 0.95) / 10)).toBeLessThan(1e-9);
-        expect(rel(c.retractForceN, (c.workingPressureBar * c.annulusAreaMm2 * 0.95) / 10)).toBeLessThan(1e-9);
-      }),
-      RUNS,
-    );
+    forEveryDesign(requirementsArb, ({ cylinder: c }) => {
+      const D = c.boreMm,
+        dr = c.rodMm;
+      expect(rel(c.capAreaMm2, (Math.PI * D * D) / 4)).toBeLessThan(1e-12);
+      expect(rel(c.annulusAreaMm2, (Math.PI * (D * D - dr * dr)) / 4)).toBeLessThan(1e-12);
+      expect(rel(c.extendForceN, (c.workingPressureBar * c.capAreaMm2 * 0.95) / 10)).toBeLessThan(1e-9);
+      expect(rel(c.retractForceN, (c.workingPressureBar * c.annulusAreaMm2 * 0.95) / 10)).toBeLessThan(1e-9);
+    });
   });
 
   it("limits hold unless a warning says otherwise (relief +10 % [CP]; buckling SF 3.5 [CP])", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizeCircuit(req);
-        const codes = new Set(d.warnings.map((w) => w.code));
-        const working = Math.max(d.pressuresBar.extend, d.pressuresBar.retract);
-        if (!codes.has("PRESSURE_LIMIT_EXCEEDED")) {
-          expect(working).toBeLessThanOrEqual(d.pressuresBar.workingLimit + 1e-9);
-          expect(working).toBeLessThanOrEqual(d.requirements.maxPressureBar + 1e-9);
-          expect(d.pressuresBar.reliefSetting).toBeLessThanOrEqual(d.cylinder.ratedPressureBar);
-        }
-        if (!codes.has("BUCKLING_MARGIN")) expect(d.cylinder.bucklingSafetyFactor).toBeGreaterThanOrEqual(3.5);
-        expect(d.pressuresBar.reliefSetting).toBeGreaterThanOrEqual(1.1 * working - 1e-6);
-        expect(d.pressuresBar.reliefSetting).toBeLessThan(1.1 * working + 5 + 1e-9);
-        if (!codes.has("MOTOR_BEYOND_SERIES")) expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.requiredKw);
-        // hoses at or below their velocity limit, pressure ≤ 5, return ≤ 3, suction ≤ 1 m/s [CP]
-        if (d.lines.pressure.inRange) expect(d.lines.pressure.velocityMS).toBeLessThanOrEqual(5 + 1e-9);
-        if (d.lines.return.inRange) expect(d.lines.return.velocityMS).toBeLessThanOrEqual(3 + 1e-9);
-        if (d.lines.suction.inRange) expect(d.lines.suction.velocityMS).toBeLessThanOrEqual(1 + 1e-9);
-      }),
-      RUNS,
-    );
+    forEveryDesign(requirementsArb, (d) => {
+      const codes = new Set(d.warnings.map((w) => w.code));
+      const working = Math.max(d.pressuresBar.extend, d.pressuresBar.retract);
+      if (!codes.has("PRESSURE_LIMIT_EXCEEDED")) {
+        expect(working).toBeLessThanOrEqual(d.pressuresBar.workingLimit + 1e-9);
+        expect(working).toBeLessThanOrEqual(d.requirements.maxPressureBar + 1e-9);
+        expect(d.pressuresBar.reliefSetting).toBeLessThanOrEqual(d.cylinder.ratedPressureBar);
+      }
+      if (!codes.has("BUCKLING_MARGIN")) expect(d.cylinder.bucklingSafetyFactor).toBeGreaterThanOrEqual(3.5);
+      expect(d.pressuresBar.reliefSetting).toBeGreaterThanOrEqual(1.1 * working - 1e-6);
+      expect(d.pressuresBar.reliefSetting).toBeLessThan(1.1 * working + 5 + 1e-9);
+      if (!codes.has("MOTOR_BEYOND_SERIES")) expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.requiredKw);
+      // hoses at or below their velocity limit, pressure ≤ 5, return ≤ 3, suction ≤ 1 m/s [CP]
+      if (d.lines.pressure.inRange) expect(d.lines.pressure.velocityMS).toBeLessThanOrEqual(5 + 1e-9);
+      if (d.lines.return.inRange) expect(d.lines.return.velocityMS).toBeLessThanOrEqual(3 + 1e-9);
+      if (d.lines.suction.inRange) expect(d.lines.suction.velocityMS).toBeLessThanOrEqual(1 + 1e-9);
+    });
   });
 
   it("every overrunning case has a counterbalance on the side the load pressurises and a float centre (sizing contract)", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizeCircuit(req);
-        // No overrun where the weight along the axis does not beat the guide friction (statics [D]).
-        if (req.orientation === "horizontal" || d.loads.gravityAlongAxisN <= d.loads.frictionN) {
-          expect(d.counterbalance).toBeNull();
-          expect(d.directionalValve.center).not.toBe("float");
-          return;
-        }
-        expect(d.counterbalance).not.toBeNull();
-        expect(d.counterbalance!.side).toBe(req.rodDirection === "down" ? "rod" : "cap");
-        expect(d.directionalValve.center).toBe("float");
-        expect(d.bom.some((l) => l.key === "counterbalance-valve")).toBe(true);
-        // setting 1.3 × load-induced pressure at its port, and at least 20 bar [CP]
-        expect(d.counterbalance!.settingBar).toBeGreaterThanOrEqual(1.3 * d.counterbalance!.loadPressureBar - 1e-9);
-        expect(d.counterbalance!.settingBar).toBeGreaterThanOrEqual(20);
-        // and it covers the load braked from its actual lowering speed in decelTimeS (Newton [D])
-        const cb = d.counterbalance!;
-        expect(cb.brakingPressureBar).toBeGreaterThanOrEqual(cb.loadPressureBar);
-        expect(cb.settingBar).toBeGreaterThanOrEqual(1.3 * cb.brakingPressureBar - 1e-9);
-      }),
-      RUNS,
-    );
+    forEveryDesign(requirementsArb, (d, req) => {
+      // No overrun where the weight along the axis does not beat the guide friction (statics [D]).
+      if (req.orientation === "horizontal" || d.loads.gravityAlongAxisN <= d.loads.frictionN) {
+        expect(d.counterbalance).toBeNull();
+        expect(d.directionalValve.center).not.toBe("float");
+        return;
+      }
+      expect(d.counterbalance).not.toBeNull();
+      expect(d.counterbalance!.side).toBe(req.rodDirection === "down" ? "rod" : "cap");
+      expect(d.directionalValve.center).toBe("float");
+      expect(d.bom.some((l) => l.key === "counterbalance-valve")).toBe(true);
+      // setting 1.3 × load-induced pressure at its port, and at least 20 bar [CP]
+      expect(d.counterbalance!.settingBar).toBeGreaterThanOrEqual(1.3 * d.counterbalance!.loadPressureBar - 1e-9);
+      expect(d.counterbalance!.settingBar).toBeGreaterThanOrEqual(20);
+      // and it covers the load braked from its actual lowering speed in decelTimeS (Newton [D])
+      const cb = d.counterbalance!;
+      expect(cb.brakingPressureBar).toBeGreaterThanOrEqual(cb.loadPressureBar);
+      expect(cb.settingBar).toBeGreaterThanOrEqual(1.3 * cb.brakingPressureBar - 1e-9);
+    });
   });
 
   it("the tank holds the oil the cylinder draws, and a cooler is designed and billed exactly when the heat asks for one", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizeCircuit(req);
-        const c = d.cylinder;
-        // cap-end volume in minus rod-end volume back (continuity [D])
-        expect(d.reservoir.volumeL).toBeGreaterThanOrEqual(((c.capAreaMm2 - c.annulusAreaMm2) * c.strokeMm) / 1e6);
-        const warned = d.warnings.some((w) => w.code === "HEAT_COOLER_NEEDED");
-        expect(d.cooler !== null).toBe(warned);
-        expect(d.bom.some((l) => l.key === "cooler")).toBe(warned);
-        // the same for the decompression valve and the holding valve
-        expect(d.bom.some((l) => l.key === "decompression-valve")).toBe(d.warnings.some((w) => w.code === "DECOMPRESSION_NEEDED"));
-        expect(d.bom.some((l) => l.key === "holding-valve")).toBe(d.holding !== null);
-        if (d.counterbalance) expect(d.counterbalance.flowLpm).toBeGreaterThanOrEqual(d.flowsLpm.pump * (1 - 1e-12));
-        // a fixed pump that can stall at force sits at the relief: the motor covers p_relief·Q_p/(600·η)
-        if (d.motor.sizedAtRelief) expect(d.motor.peakKw).toBeGreaterThanOrEqual((d.pressuresBar.reliefSetting * d.flowsLpm.pump) / 600 / 0.85 - 1e-9);
-        // the motor covers every phase: its rating carries the RMS and any long phase, 1.5 × its rating the peak (IEC 60034-1 [M])
-        if (!d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES")) {
-          expect(1.5 * d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.peakKw - 1e-9);
-          if (d.motor.rmsKw !== null) expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.rmsKw - 1e-9);
-          else expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.peakKw - 1e-9);
-        }
-        // meter-out intensification is warned whenever φ × relief exceeds the rating and no rod-side CBV caps it
-        const intensifies = d.counterbalance?.side !== "rod" && c.areaRatio * d.pressuresBar.reliefSetting > c.ratedPressureBar + 1e-9;
-        expect(d.warnings.some((w) => w.code === "METER_OUT_INTENSIFICATION")).toBe(intensifies);
-      }),
-      RUNS,
-    );
+    forEveryDesign(requirementsArb, (d) => {
+      const c = d.cylinder;
+      // cap-end volume in minus rod-end volume back (continuity [D])
+      expect(d.reservoir.volumeL).toBeGreaterThanOrEqual(((c.capAreaMm2 - c.annulusAreaMm2) * c.strokeMm) / 1e6);
+      const warned = d.warnings.some((w) => w.code === "HEAT_COOLER_NEEDED");
+      expect(d.cooler !== null).toBe(warned);
+      expect(d.bom.some((l) => l.key === "cooler")).toBe(warned);
+      // the same for the decompression valve and the holding valve
+      expect(d.bom.some((l) => l.key === "decompression-valve")).toBe(d.warnings.some((w) => w.code === "DECOMPRESSION_NEEDED"));
+      expect(d.bom.some((l) => l.key === "holding-valve")).toBe(d.holding !== null);
+      if (d.counterbalance) expect(d.counterbalance.flowLpm).toBeGreaterThanOrEqual(d.flowsLpm.pump * (1 - 1e-12));
+      // a fixed pump that can stall at force sits at the relief: the motor covers p_relief·Q_p/(600·η)
+      if (d.motor.sizedAtRelief) expect(d.motor.peakKw).toBeGreaterThanOrEqual((d.pressuresBar.reliefSetting * d.flowsLpm.pump) / 600 / 0.85 - 1e-9);
+      // the motor covers every phase: its rating carries the RMS and any long phase, 1.5 × its rating the peak (IEC 60034-1 [M])
+      if (!d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES")) {
+        expect(1.5 * d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.peakKw - 1e-9);
+        if (d.motor.rmsKw !== null) expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.rmsKw - 1e-9);
+        else expect(d.motor.ratedKw).toBeGreaterThanOrEqual(d.motor.peakKw - 1e-9);
+      }
+      // meter-out intensification is warned whenever φ × relief exceeds the rating and no rod-side CBV caps it
+      const intensifies = d.counterbalance?.side !== "rod" && c.areaRatio * d.pressuresBar.reliefSetting > c.ratedPressureBar + 1e-9;
+      expect(d.warnings.some((w) => w.code === "METER_OUT_INTENSIFICATION")).toBe(intensifies);
+    });
   });
 
   it("every contract number is finite and every field is filled", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizeCircuit(req);
-        const numbers = [
-          d.cylinder.boreMm,
-          d.cylinder.rodMm,
-          d.cylinder.strokeMm,
-          d.cylinder.extendForceN,
-          d.cylinder.retractForceN,
-          d.pressuresBar.extend,
-          d.pressuresBar.retract,
-          d.pressuresBar.reliefSetting,
-          d.flowsLpm.extend,
-          d.flowsLpm.retract,
-          d.flowsLpm.pump,
-          d.flowsLpm.returnMax,
-          d.pump.displacementCcRev,
-          d.pump.speedRpm,
-          d.motor.requiredKw,
-          d.motor.ratedKw,
-          d.lines.pressure.innerDiameterMm,
-          d.lines.pressure.velocityMS,
-          d.lines.return.innerDiameterMm,
-          d.lines.return.velocityMS,
-          d.lines.suction.innerDiameterMm,
-          d.lines.suction.velocityMS,
-          d.reservoir.volumeL,
-          d.heat.averageLossKw,
-        ];
-        for (const n of numbers) expect(Number.isFinite(n)).toBe(true);
-        expect(d.cylinder.bucklingSafetyFactor).toBeGreaterThan(0);
-        if (d.counterbalance) {
-          for (const n of [d.counterbalance.settingBar, d.counterbalance.pilotRatio, d.counterbalance.pilotOpeningBar]) {
-            expect(Number.isFinite(n)).toBe(true);
-          }
+    forEveryDesign(requirementsArb, (d) => {
+      const numbers = [
+        d.cylinder.boreMm,
+        d.cylinder.rodMm,
+        d.cylinder.strokeMm,
+        d.cylinder.extendForceN,
+        d.cylinder.retractForceN,
+        d.pressuresBar.extend,
+        d.pressuresBar.retract,
+        d.pressuresBar.reliefSetting,
+        d.flowsLpm.extend,
+        d.flowsLpm.retract,
+        d.flowsLpm.pump,
+        d.flowsLpm.returnMax,
+        d.pump.displacementCcRev,
+        d.pump.speedRpm,
+        d.motor.requiredKw,
+        d.motor.ratedKw,
+        d.lines.pressure.innerDiameterMm,
+        d.lines.pressure.velocityMS,
+        d.lines.return.innerDiameterMm,
+        d.lines.return.velocityMS,
+        d.lines.suction.innerDiameterMm,
+        d.lines.suction.velocityMS,
+        d.reservoir.volumeL,
+        d.heat.averageLossKw,
+      ];
+      for (const n of numbers) expect(Number.isFinite(n)).toBe(true);
+      expect(d.cylinder.bucklingSafetyFactor).toBeGreaterThan(0);
+      if (d.counterbalance) {
+        for (const n of [d.counterbalance.settingBar, d.counterbalance.pilotRatio, d.counterbalance.pilotOpeningBar]) {
+          expect(Number.isFinite(n)).toBe(true);
         }
-        for (const t of d.trail) {
-          expect(t.quantity.length).toBeGreaterThan(0);
-          expect(t.formula.length).toBeGreaterThan(0);
-          expect(t.source.length).toBeGreaterThan(0);
-          if (typeof t.value === "number") expect(Number.isFinite(t.value) || t.value === Infinity).toBe(true);
-        }
-        expect(new Set(d.bom.map((l) => l.key)).size).toBe(d.bom.length);
-      }),
-      RUNS,
-    );
+      }
+      for (const t of d.trail) {
+        expect(t.quantity.length).toBeGreaterThan(0);
+        expect(t.formula.length).toBeGreaterThan(0);
+        expect(t.source.length).toBeGreaterThan(0);
+        if (typeof t.value === "number") expect(Number.isFinite(t.value) || t.value === Infinity).toBe(true);
+      }
+      expect(new Set(d.bom.map((l) => l.key)).size).toBe(d.bom.length);
+    });
   });
 });
 
@@ -468,84 +432,72 @@ describe("the circuit as data (trade facts, common practice)", () => {
   }
 
   it("connections reference existing components and ports", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizeCircuit(req);
-        const ports = new Map(d.circuit.components.map((c) => [c.id, new Set(c.ports)]));
-        const used = new Set<string>();
-        for (const conn of d.circuit.connections) {
-          for (const end of [conn.from, conn.to]) {
-            const [id, port] = end.split(".");
-            expect(ports.has(id), end).toBe(true);
-            expect(ports.get(id)!.has(port), end).toBe(true);
-            used.add(end);
-          }
+    forEveryDesign(requirementsArb, (d) => {
+      const ports = new Map(d.circuit.components.map((c) => [c.id, new Set(c.ports)]));
+      const used = new Set<string>();
+      for (const conn of d.circuit.connections) {
+        for (const end of [conn.from, conn.to]) {
+          const [id, port] = end.split(".");
+          expect(ports.has(id), end).toBe(true);
+          expect(ports.get(id)!.has(port), end).toBe(true);
+          used.add(end);
         }
-        // every port of every component is connected
-        for (const c of d.circuit.components) for (const p of c.ports) expect(used.has(`${c.id}.${p}`), `${c.id}.${p}`).toBe(true);
-        const kinds = d.circuit.components.map((c) => c.kind);
-        for (const k of ["pump", "motor", "relief", "dcv", "cylinder", "tank", "filter", "gauge"]) expect(kinds).toContain(k);
-        expect(kinds.includes("cbv")).toBe(d.counterbalance !== null);
-      }),
-      RUNS,
-    );
+      }
+      // every port of every component is connected
+      for (const c of d.circuit.components) for (const p of c.ports) expect(used.has(`${c.id}.${p}`), `${c.id}.${p}`).toBe(true);
+      const kinds = d.circuit.components.map((c) => c.kind);
+      for (const k of ["pump", "motor", "relief", "dcv", "cylinder", "tank", "filter", "gauge"]) expect(kinds).toContain(k);
+      expect(kinds.includes("cbv")).toBe(d.counterbalance !== null);
+    });
   });
 
   it("A feeds the cap end, B the rod end, and the CBV pilot (3) joins the opposite work line", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizeCircuit(req);
-        const find = nets(d);
-        const cb = d.counterbalance;
-        // with no CBV in a line, the valve port and cylinder port share a net
-        if (cb?.side !== "rod") expect(find("dcv.B")).toBe(find("cylinder.rod"));
-        if (cb?.side !== "cap") expect(find("dcv.A")).toBe(find("cylinder.cap"));
-        if (cb) {
-          const guarded = cb.side === "rod" ? "cylinder.rod" : "cylinder.cap";
-          const valvePort = cb.side === "rod" ? "dcv.B" : "dcv.A";
-          const opposite = cb.side === "rod" ? "cylinder.cap" : "cylinder.rod";
-          expect(find("cbv.1")).toBe(find(guarded)); // 1 to the actuator
-          expect(find("cbv.2")).toBe(find(valvePort)); // 2 to the valve
-          expect(find("cbv.1")).not.toBe(find("cbv.2")); // the valve itself separates them
-          const pilot = d.circuit.connections.find((c) => c.from === "cbv.3" || c.to === "cbv.3")!;
-          const other = pilot.from === "cbv.3" ? pilot.to : pilot.from;
-          expect(find(other)).toBe(find(opposite));
-        }
-        expect(find("pump.outlet")).toBe(find("dcv.P"));
-        expect(find("pump.outlet")).toBe(find("relief.1"));
-        expect(find("relief.2")).toBe(find("tank.return"));
-        // a centre that blocks P: the relief's vent port X is piloted to the vent valve, which returns to tank [CP]
-        const blocksP = !d.circuit.dcvPositions.center.some((pair) => pair.includes("P"));
-        const vent = d.circuit.components.find((c) => c.kind === "vent");
-        expect(vent !== undefined).toBe(blocksP);
-        if (vent) {
-          expect(d.circuit.connections).toContainEqual({ from: "relief.X", to: "vent.P", line: "pilot" });
-          expect(find("vent.T")).toBe(find("tank.return"));
-          expect(d.heat.neutralPressureBar).toBeLessThan(d.pressuresBar.reliefSetting);
-          expect(d.warnings.some((w) => w.code === "PUMP_ON_RELIEF_IN_NEUTRAL")).toBe(false);
-        }
-      }),
-      RUNS,
-    );
+    forEveryDesign(requirementsArb, (d) => {
+      const find = nets(d);
+      const cb = d.counterbalance;
+      // with no CBV in a line, the valve port and cylinder port share a net
+      if (cb?.side !== "rod") expect(find("dcv.B")).toBe(find("cylinder.rod"));
+      if (cb?.side !== "cap") expect(find("dcv.A")).toBe(find("cylinder.cap"));
+      if (cb) {
+        const guarded = cb.side === "rod" ? "cylinder.rod" : "cylinder.cap";
+        const valvePort = cb.side === "rod" ? "dcv.B" : "dcv.A";
+        const opposite = cb.side === "rod" ? "cylinder.cap" : "cylinder.rod";
+        expect(find("cbv.1")).toBe(find(guarded)); // 1 to the actuator
+        expect(find("cbv.2")).toBe(find(valvePort)); // 2 to the valve
+        expect(find("cbv.1")).not.toBe(find("cbv.2")); // the valve itself separates them
+        const pilot = d.circuit.connections.find((c) => c.from === "cbv.3" || c.to === "cbv.3")!;
+        const other = pilot.from === "cbv.3" ? pilot.to : pilot.from;
+        expect(find(other)).toBe(find(opposite));
+      }
+      expect(find("pump.outlet")).toBe(find("dcv.P"));
+      expect(find("pump.outlet")).toBe(find("relief.1"));
+      expect(find("relief.2")).toBe(find("tank.return"));
+      // a centre that blocks P: the relief's vent port X is piloted to the vent valve, which returns to tank [CP]
+      const blocksP = !d.circuit.dcvPositions.center.some((pair) => pair.includes("P"));
+      const vent = d.circuit.components.find((c) => c.kind === "vent");
+      expect(vent !== undefined).toBe(blocksP);
+      if (vent) {
+        expect(d.circuit.connections).toContainEqual({ from: "relief.X", to: "vent.P", line: "pilot" });
+        expect(find("vent.T")).toBe(find("tank.return"));
+        expect(d.heat.neutralPressureBar).toBeLessThan(d.pressuresBar.reliefSetting);
+        expect(d.warnings.some((w) => w.code === "PUMP_ON_RELIEF_IN_NEUTRAL")).toBe(false);
+      }
+    });
   });
 
   it("valve positions match the centre: float blocks P and joins A, B to T; tandem joins P to T", () => {
-    fc.assert(
-      fc.property(requirementsArb, (req) => {
-        const d = sizeCircuit(req);
-        const key = (pairs: [string, string][]) => pairs.map((p) => [...p].sort().join("-")).sort();
-        const pos = d.circuit.dcvPositions;
-        expect(key(pos.left)).toEqual(["A-P", "B-T"]); // extend: P→A, B→T
-        expect(key(pos.right)).toEqual(["A-T", "B-P"]); // retract: P→B, A→T
-        const centre = key(pos.center);
-        if (d.directionalValve.center === "float") {
-          expect(centre).toEqual(["A-T", "B-T"]);
-          expect(centre.some((p) => p.includes("P"))).toBe(false);
-        } else if (d.directionalValve.center === "tandem") {
-          expect(centre).toEqual(["P-T"]);
-        }
-      }),
-      RUNS,
-    );
+    forEveryDesign(requirementsArb, (d) => {
+      const key = (pairs: [string, string][]) => pairs.map((p) => [...p].sort().join("-")).sort();
+      const pos = d.circuit.dcvPositions;
+      expect(key(pos.left)).toEqual(["A-P", "B-T"]); // extend: P→A, B→T
+      expect(key(pos.right)).toEqual(["A-T", "B-P"]); // retract: P→B, A→T
+      const centre = key(pos.center);
+      if (d.directionalValve.center === "float") {
+        expect(centre).toEqual(["A-T", "B-T"]);
+        expect(centre.some((p) => p.includes("P"))).toBe(false);
+      } else if (d.directionalValve.center === "tandem") {
+        expect(centre).toEqual(["P-T"]);
+      }
+    });
   });
 });

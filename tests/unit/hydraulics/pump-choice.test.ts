@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import { sizeCircuit } from "~/hydraulics";
 import { choosePump, compensatedReliefBar, highLowPowerKw, pumpPhaseInNeutral, unloadingSettingBar, type PhaseDemand } from "~/hydraulics/pump-choice";
 import { hydraulicPowerKw, selectMotorKw } from "~/hydraulics/pump-motor";
-import { sizedOrNull } from "../../support/hydraulics";
+import { forEveryDesign, sizedOrNull } from "../../support/hydraulics";
 import { pressAxisArb } from "./arbitraries";
 
 const ETA = 0.85; // overall pump efficiency, Esposito from memory [M]
@@ -261,20 +261,20 @@ describe("the issue's 2 t platen hanging from the rod with 150 kN of pressing fo
 
 describe("properties over random pressing axes", () => {
   it("the motor covers every phase the chosen pump draws (IEC 60034-1 short overload [M])", () => {
-    fc.assert(
-      fc.property(pressAxisArb, (req) => {
-        const d = sizedOrNull(req);
+    forEveryDesign(
+      pressAxisArb,
+      (d) => {
         // Beyond the largest listed motor the design says so (MOTOR_BEYOND_SERIES) instead of covering the phase.
-        fc.pre(d !== null && !d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES"));
-        const m = d!.motor;
+        fc.pre(!d.warnings.some((w) => w.code === "MOTOR_BEYOND_SERIES"));
+        const m = d.motor;
         for (const ph of m.phases) {
           // every phase within the short-peak limit, and long phases within the rating
           expect(ph.kw).toBeLessThanOrEqual(m.peakKw + 1e-9);
           if (m.rmsKw === null || ph.durationS > 15) expect(ph.kw).toBeLessThanOrEqual(m.ratedKw + 1e-9);
           else expect(ph.kw).toBeLessThanOrEqual(1.5 * m.ratedKw + 1e-9);
         }
-      }),
-      { numRuns: 200 },
+      },
+      200,
     );
   });
 

@@ -9,6 +9,13 @@ import { JOB_STAGE_LABELS } from "~/content/job-milestones";
 import { APPROVAL_LABELS, APPROVAL_TONES } from "~/content/shop-approval";
 import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES } from "~/content/spec-status";
 import { organisationPageOf, type OrganisationPage } from "~/services/organisation-page.server";
+import { parseWithZod } from "@conform-to/zod/v4";
+import { data } from "react-router";
+import { redirectWithToast } from "~/auth/session.server";
+import { OrganisationProfileCard } from "~/components/organisation-profile";
+import { AccountNotes, AccountPayments, OpenSpecs } from "~/components/account-view";
+import { accountNoteSchema } from "~/schemas/account-notes";
+import { accountViewOf, addAccountNote, daysLate, editAccountNote } from "~/services/account-view.server";
 
 // The organisation page (accounts/:organisationId): a buyer account, a shop or the operator, as
 // operator staff may see it. Which organisations open, and what shows, is the access policy's.
@@ -20,11 +27,26 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const organisation = await organisationPageOf(viewer, params.organisationId);
   // Navigation only: where this person came from.
   const back = viewer.role === "admin" ? { to: "/admin/organisations", label: "Organisations" } : { to: "/accounts", label: "My accounts" };
-  return { organisation, back };
+  const account = organisation.kind === "buyer" ? await accountViewOf(viewer, organisation.id) : null;
+  const jobs = organisation.jobs ? { ...organisation.jobs, recent: organisation.jobs.recent.map((j) => ({ ...j, daysLate: daysLate(j) })) } : null;
+  return { organisation: { ...organisation, jobs }, account, back };
 }
 
-export default function OrganisationPageRoute({ loaderData }: Route.ComponentProps) {
-  const { organisation: o, back } = loaderData;
+/** Notes on the account: add one, or edit one (its text replaced, who edited it and when kept). */
+export async function action({ request, params }: Route.ActionArgs) {
+  const viewer = await requireRole(request, PAGE_ROLES.accounts);
+  const formData = await request.formData();
+  const submission = parseWithZod(formData, { schema: accountNoteSchema });
+  const noteId = String(formData.get("noteId") ?? "new").slice(0, 40);
+  if (submission.status !== "success") return data({ noteId, result: submission.reply() }, { status: 400 });
+  const note = submission.value;
+  if (note.intent === "add-note") await addAccountNote(viewer, params.organisationId, note);
+  else await editAccountNote(viewer, params.organisationId, note);
+  return redirectWithToast(request, `/accounts/${params.organisationId}`, note.intent === "add-note" ? "Note added." : "Note saved.");
+}
+
+export default function OrganisationPageRoute({ loaderData, actionData }: Route.ComponentProps) {
+  const { organisation: o, account, back } = loaderData;
   return (
     <>
       <p className="mb-2 text-sm">
@@ -36,10 +58,21 @@ export default function OrganisationPageRoute({ loaderData }: Route.ComponentPro
       <div className="grid gap-6 lg:grid-cols-3">
         <Facts organisation={o} />
         <div className="space-y-6 lg:col-span-2">
-          {o.specs ? <Specs specs={o.specs} /> : null}
+          {account ? <OpenSpecs specs={account.openSpecs} /> : o.specs ? <Specs specs={o.specs} /> : null}
           {o.jobs ? <Jobs jobs={o.jobs} kind={o.kind} /> : null}
+          {account ? <AccountPayments payments={account.payments} /> : null}
         </div>
       </div>
+      {account ? (
+        <div className="mt-6 grid gap-6 lg:grid-cols-3">
+          <Card title="Who to contact">
+            <OrganisationProfileCard profile={account.profile} />
+          </Card>
+          <div className="lg:col-span-2">
+            <AccountNotes notes={account.notes} answer={actionData} />
+          </div>
+        </div>
+      ) : null}
       <Card title="People" className="mt-6">
         {o.people.length === 0 ? (
           <p className="text-sm text-ink-600">Nobody has joined yet.</p>
@@ -129,7 +162,9 @@ function Specs({ specs }: { specs: NonNullable<OrganisationPage["specs"]> }) {
   );
 }
 
-function Jobs({ jobs, kind }: { jobs: NonNullable<OrganisationPage["jobs"]>; kind: OrganisationPage["kind"] }) {
+type JobsCard = NonNullable<Route.ComponentProps["loaderData"]["organisation"]["jobs"]>;
+
+function Jobs({ jobs, kind }: { jobs: JobsCard; kind: OrganisationPage["kind"] }) {
   return (
     <Card title="Jobs">
       {jobs.recent.length === 0 ? (
@@ -143,7 +178,7 @@ function Jobs({ jobs, kind }: { jobs: NonNullable<OrganisationPage["jobs"]>; kin
               <RecordRow key={j.id} to={`/jobs/${j.id}`} title={j.specTitle}>
                 {JOB_STAGE_LABELS[j.stage]} · {kind === "shop" ? j.buyerName : j.shopName}
                 {j.next?.targetDate ? ` · next: ${j.next.label} by ${formatDay(j.next.targetDate)}` : ""}
-                {j.overdue ? <Badge tone="bad">Overdue</Badge> : null}
+                {j.overdue ? <Badge tone="bad">{j.daysLate ? `${countOf(j.daysLate, "day")} late` : "Overdue"}</Badge> : null}
               </RecordRow>
             ))}
           </ul>

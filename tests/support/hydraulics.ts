@@ -56,6 +56,35 @@ export const HANGING_PRESS = {
   supplyHz: 50,
 } as const satisfies RequirementsInput;
 
+/** Worked example 1's axis (worked-examples.test.ts): a horizontal clamp feed, 38 kN at the end of a 300 mm stroke. */
+export const CLAMP_FEED = {
+  orientation: "horizontal",
+  massKg: 1000,
+  processForceN: 38000,
+  strokeMm: 300,
+  extendSpeedMmS: 100,
+  retractSpeedMmS: 150,
+  mounting: "fixed-fixed",
+  cyclesPerHour: 60,
+  hoursPerDay: 8,
+  supplyHz: 50,
+} as const satisfies RequirementsInput;
+
+/** Worked example 2's axis (worked-examples.test.ts): a vertical press, rod down, 1.5 t and 60 kN over a 400 mm stroke. */
+export const ROD_DOWN_PRESS = {
+  orientation: "vertical",
+  rodDirection: "down",
+  massKg: 1500,
+  processForceN: 60000,
+  strokeMm: 400,
+  extendSpeedMmS: 80,
+  retractSpeedMmS: 120,
+  mounting: "fixed-pinned",
+  cyclesPerHour: 30,
+  hoursPerDay: 8,
+  supplyHz: 50,
+} as const satisfies RequirementsInput;
+
 /** The design, or null where nothing in the series meets the pressures (NotSizableError says why). */
 export function sizedOrNull(req: RequirementsInput): Design | null {
   try {

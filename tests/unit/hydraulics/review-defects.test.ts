@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import { NotSizableError, RequirementsError, parseRequirements, sizeCircuit, type RequirementsInput } from "~/hydraulics";
 import { cylinderCandidates } from "~/hydraulics/cylinder";
 import { holdingFor } from "~/hydraulics/holding";
+import { CLAMP_FEED, ROD_DOWN_PRESS } from "../../support/hydraulics";
 
 const DUTY = { cyclesPerHour: 30, hoursPerDay: 8, supplyHz: 50 } as const;
 
@@ -137,17 +138,7 @@ describe("the cylinder series follows the pressure needed (ISO 6020-2 160 bar, I
 describe("a rod-side counterbalance valve is rated for the pump flow through its check (continuity)", () => {
   it("worked example 2's press: lifting sends the full 34.44 L/min through 2→1, more than the 27.46 L/min lowering", () => {
     // Q_p = 25 cm³/rev·1450·0.95 = 34.44 L/min; lowering 1→2 carries Q_p/φ = 34.44/1.2539 = 27.46 L/min.
-    const d = sizeCircuit({
-      orientation: "vertical",
-      rodDirection: "down",
-      massKg: 1500,
-      processForceN: 60000,
-      strokeMm: 400,
-      extendSpeedMmS: 80,
-      retractSpeedMmS: 120,
-      mounting: "fixed-pinned",
-      ...DUTY,
-    });
+    const d = sizeCircuit(ROD_DOWN_PRESS);
     expect(d.counterbalance!.flowLpm).toBeCloseTo(34.44, 2);
     expect(d.bom.find((l) => l.key === "counterbalance-valve")!.specification).toContain("at least 34.4 L/min");
   });
@@ -182,20 +173,9 @@ describe("the motor sits where the fixed pump sits, and dwell is heat (shared so
   // Sources' check value for a dwell over the relief: Q_p = 94.25 L/min at 140 bar is
   // 140·94.25/600 = 22.0 kW hydraulic, 25.9 kW at η 0.85, all of it heat.
   it("dwell heat is p_relief·Q_p/(600·η) and is averaged over the cycle", () => {
-    const base: RequirementsInput = {
-      orientation: "horizontal",
-      massKg: 1000,
-      processForceN: 38000,
-      strokeMm: 300,
-      extendSpeedMmS: 100,
-      retractSpeedMmS: 150,
-      mounting: "fixed-fixed",
-      cyclesPerHour: 60,
-      hoursPerDay: 8,
-      supplyHz: 50,
-    };
-    const none = sizeCircuit(base);
-    const dwell = sizeCircuit({ ...base, dwellS: 10 });
+    // worked example 1's axis (without its front flange)
+    const none = sizeCircuit(CLAMP_FEED);
+    const dwell = sizeCircuit({ ...CLAMP_FEED, dwellS: 10 });
     // worked example 1's pump: 27.55 L/min, relief 145 bar → 145·27.55/600/0.85 = 7.833 kW while dwelling
     expect(dwell.heat.dwellLossKw).toBeCloseTo(7.833, 2);
     expect(dwell.heat.dwellShare).toBeCloseTo((60 * 10) / 3600, 9);
@@ -203,17 +183,9 @@ describe("the motor sits where the fixed pump sits, and dwell is heat (shared so
     expect(dwell.heat.averageLossKw - none.heat.averageLossKw).toBeCloseTo(((10 * 60) / 3600) * (7.833 - none.heat.neutralLossKw), 2);
   });
   it("with no pressing force and no dwell the motor follows the working pressure (the valve shifts back at the stroke end)", () => {
-    const d = sizeCircuit({
-      orientation: "horizontal",
-      massKg: 1000,
-      strokeMm: 300,
-      extendSpeedMmS: 100,
-      retractSpeedMmS: 150,
-      mounting: "fixed-fixed",
-      cyclesPerHour: 60,
-      hoursPerDay: 8,
-      supplyHz: 50,
-    });
+    // worked example 1's axis without its process force
+    const { processForceN: _force, ...unloaded } = CLAMP_FEED;
+    const d = sizeCircuit(unloaded);
     expect(d.motor.sizedAtRelief).toBe(false);
     expect(d.motor.sizingPressureBar).toBeCloseTo(Math.max(d.pressuresBar.extend, d.pressuresBar.retract), 9);
   });

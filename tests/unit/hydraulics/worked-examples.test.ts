@@ -18,25 +18,14 @@
  */
 import { describe, expect, it } from "vitest";
 import { sizeCircuit } from "~/hydraulics";
+import { CLAMP_FEED, ROD_DOWN_PRESS } from "../../support/hydraulics";
 
 describe("worked example 1 — horizontal clamp feed, no counterbalance", () => {
   // Requirements: horizontal, m = 1000 kg, process force 38 kN at the end of the stroke,
   // μ = 0.1 (default), stroke 300 mm, extend 100 mm/s, retract 150 mm/s, t_acc = 0.2 s,
   // fixed-fixed rod end with a front flange (mountingStyle, since engine 2.3 an absent style
   // means the longest free length, a rear flange), 60 cycles/h, 50 Hz, maxPressureBar 160.
-  const d = sizeCircuit({
-    orientation: "horizontal",
-    massKg: 1000,
-    processForceN: 38000,
-    strokeMm: 300,
-    extendSpeedMmS: 100,
-    retractSpeedMmS: 150,
-    mounting: "fixed-fixed",
-    mountingStyle: "front-flange",
-    cyclesPerHour: 60,
-    hoursPerDay: 8,
-    supplyHz: 50,
-  });
+  const d = sizeCircuit({ ...CLAMP_FEED, mountingStyle: "front-flange" });
 
   it("sizes the bore on the pressing force (textbook F = η·p·A; ISO 3320 / ISO 6020-2 pairing)", () => {
     // Loads (statics [D]): G = 0 (horizontal); F_f = μ·m·g = 0.1·1000·9.80665 = 980.67 N.
@@ -134,20 +123,7 @@ describe("worked example 1 — horizontal clamp feed, no counterbalance", () => 
 describe("worked example 2 — vertical press, rod down, counterbalance on the rod side", () => {
   // Requirements: vertical, rod down, m = 1500 kg, process force 60 kN, stroke 400 mm,
   // extend 80 mm/s, retract 120 mm/s, fixed-pinned rod end with a front flange, 30 cycles/h, 50 Hz.
-  const d = sizeCircuit({
-    orientation: "vertical",
-    rodDirection: "down",
-    massKg: 1500,
-    processForceN: 60000,
-    strokeMm: 400,
-    extendSpeedMmS: 80,
-    retractSpeedMmS: 120,
-    mounting: "fixed-pinned",
-    mountingStyle: "front-flange",
-    cyclesPerHour: 30,
-    hoursPerDay: 8,
-    supplyHz: 50,
-  });
+  const d = sizeCircuit({ ...ROD_DOWN_PRESS, mountingStyle: "front-flange" });
 
   it("holds the load with a rod-side CBV and a float centre (sizing contract; sources §6 [CP])", () => {
     // Rod down: the load moves down while extending, so extension overruns; the load hangs

@@ -23,6 +23,10 @@ interface DemoOrganisation {
   managedBy?: string;
   /** A shop that signed up lately and waits for an admin (the demo's "waiting for approval"). */
   pending?: boolean;
+  /** A machine builder that signed up lately and has no account manager yet (the demo's "unassigned"). */
+  recent?: boolean;
+  /** The company profile (settings): address, tax number, who answers about quotes. */
+  profile?: { address: string; taxNumber: string; contact: [name: string, email: string, phone: string] };
 }
 
 export const DEMO_ORGANISATIONS: DemoOrganisation[] = [
@@ -40,6 +44,11 @@ export const DEMO_ORGANISATIONS: DemoOrganisation[] = [
     kind: "buyer",
     region: "UK — West Midlands",
     managedBy: "nadia@tenderflow.test",
+    profile: {
+      address: "Unit 7, Forge Lane Trading Estate\nCradley Heath B64 6AA",
+      taxNumber: "GB 204 7731 56",
+      contact: ["Priya Raman", "buying@kestrel-forming.test", "+44 1384 496 021"],
+    },
     users: [
       { name: "Priya Raman", email: "priya@kestrel-forming.test", role: "buyer" },
       { name: "Owen Talbot", email: "owen@kestrel-forming.test", role: "buyer" },
@@ -56,12 +65,22 @@ export const DEMO_ORGANISATIONS: DemoOrganisation[] = [
     name: "Ironbridge Fluid Power",
     kind: "shop",
     region: "UK — West Midlands",
+    profile: {
+      address: "3 Severn Wharf\nIronbridge TF8 7JP",
+      taxNumber: "GB 318 5520 04",
+      contact: ["Aled Morgan", "quotes@ironbridge-fluid.test", "+44 1952 496 310"],
+    },
     users: [{ name: "Aled Morgan", email: "aled@ironbridge-fluid.test", role: "shop" }],
   },
   {
     name: "Northgate Hydraulics",
     kind: "shop",
     region: "UK — North West",
+    profile: {
+      address: "Northgate Works, Dee Road\nChester CH1 4AB",
+      taxNumber: "GB 552 0194 77",
+      contact: ["Sofia Lindqvist", "sales@northgate-hyd.test", "+44 1244 496 118"],
+    },
     users: [{ name: "Sofia Lindqvist", email: "sofia@northgate-hyd.test", role: "shop" }],
   },
   {
@@ -69,6 +88,13 @@ export const DEMO_ORGANISATIONS: DemoOrganisation[] = [
     kind: "shop",
     region: "UK — South East",
     users: [{ name: "Ben Achebe", email: "ben@coldharbour-pu.test", role: "shop" }],
+  },
+  {
+    name: "Penhallow Packaging Lines",
+    kind: "buyer",
+    region: "UK — South West",
+    recent: true,
+    users: [{ name: "Morwenna Hicks", email: "morwenna@penhallow-pack.test", role: "buyer" }],
   },
   {
     name: "Saltmarsh Hydraulic Works",
@@ -697,12 +723,25 @@ export async function seedDemo(sequelize: Sequelize): Promise<boolean> {
       // Customers of long standing (the scenario's jobs go back months), their shops approved
       // long ago; a pending shop signed up yesterday.
       const approval = org.kind !== "shop" ? null : org.pending ? "pending" : "approved";
-      const since = org.pending ? daysAgo(1) : daysAgo(420);
+      const since = org.pending || org.recent ? daysAgo(1) : daysAgo(420);
       const [row] = await sequelize.query<{ id: string }>(
-        `INSERT INTO organisations (name, kind, region, approval, approval_decided_at, created_at, updated_at)
-         VALUES (:name, :kind, :region, :approval, :decidedAt, :since, :since) RETURNING id`,
+        `INSERT INTO organisations (name, kind, region, approval, approval_decided_at, created_at, updated_at,
+           address, tax_number, quote_contact_name, quote_contact_email, quote_contact_phone)
+         VALUES (:name, :kind, :region, :approval, :decidedAt, :since, :since, :address, :taxNumber, :contactName, :contactEmail, :contactPhone) RETURNING id`,
         {
-          replacements: { name: org.name, kind: org.kind, region: org.region, approval, decidedAt: approval === "approved" ? daysAgo(419) : null, since },
+          replacements: {
+            name: org.name,
+            kind: org.kind,
+            region: org.region,
+            approval,
+            decidedAt: approval === "approved" ? daysAgo(419) : null,
+            since,
+            address: org.profile?.address ?? null,
+            taxNumber: org.profile?.taxNumber ?? null,
+            contactName: org.profile?.contact[0] ?? null,
+            contactEmail: org.profile?.contact[1] ?? null,
+            contactPhone: org.profile?.contact[2] ?? null,
+          },
           transaction,
           type: QueryTypes.SELECT,
         },
@@ -724,6 +763,81 @@ export async function seedDemo(sequelize: Sequelize): Promise<boolean> {
       });
     }
     await seedSpecs(sequelize, transaction, userIds, orgIds);
+    await seedOperatorSide(sequelize, transaction, userIds, orgIds);
   });
   return true;
+}
+
+/**
+ * The operator's side: notes on Kestrel's account and an audit log with history in it (shops
+ * approved and accounts assigned when the scenario began, each award, a recent failed sign-in),
+ * written as the app writes them (audit.server.ts keeps names, not references).
+ */
+async function seedOperatorSide(sequelize: Sequelize, transaction: Transaction, userIds: Map<string, string>, orgIds: Map<string, string>) {
+  const nadia = userIds.get("nadia@tenderflow.test")!;
+  const notes: [string, number][] = [
+    ["Priya prefers a call before any quotation goes out; Owen signs off the budget.", 30],
+    ["Panel press is their first on Tenderflow: check in once the bids are in.", 3],
+  ];
+  for (const [body, days] of notes) {
+    await sequelize.query("INSERT INTO account_notes (organisation_id, body, author_id, created_at, updated_at) VALUES (:org, :body, :author, :at, :at)", {
+      replacements: { org: orgIds.get("Kestrel Forming Machines"), body, author: nadia, at: daysAgo(days) },
+      transaction,
+    });
+  }
+  const felix = { id: userIds.get("felix@tenderflow.test"), name: "Felix Ortmann", email: "felix@tenderflow.test" };
+  const entries: { at: Date; action: string; actor: typeof felix | null; email?: string; subject: [string, string, string] | null; details: object }[] = [];
+  for (const org of DEMO_ORGANISATIONS) {
+    const id = orgIds.get(org.name)!;
+    if (org.kind === "shop" && !org.pending)
+      entries.push({ at: daysAgo(419), action: "shop-approved", actor: felix, subject: ["organisation", id, org.name], details: {} });
+    if (org.managedBy) {
+      entries.push({
+        at: daysAgo(419),
+        action: "account-manager-assigned",
+        actor: felix,
+        subject: ["organisation", id, org.name],
+        details: { manager: "Nadia Brennan" },
+      });
+    }
+  }
+  const awards = await sequelize.query<{
+    specId: string;
+    title: string;
+    shop: string;
+    awardedAt: Date;
+    byId: string;
+    byName: string;
+    byEmail: string;
+    jobId: string;
+  }>(
+    `SELECT s.id AS "specId", s.title, o.name AS shop, j.awarded_at AS "awardedAt", u.id AS "byId", u.name AS "byName", u.email AS "byEmail", j.id AS "jobId"
+       FROM jobs j JOIN specs s ON s.id = j.spec_id JOIN organisations o ON o.id = j.shop_organisation_id JOIN users u ON u.id = j.awarded_by_id`,
+    { type: QueryTypes.SELECT, transaction },
+  );
+  for (const a of awards) {
+    const actor = { id: a.byId, name: a.byName, email: a.byEmail };
+    entries.push({ at: a.awardedAt, action: "bid-awarded", actor, subject: ["spec", a.specId, a.title], details: { shop: a.shop, jobId: a.jobId } });
+  }
+  entries.push({ at: daysAgo(1), action: "sign-in-failed", actor: null, email: "owen@kestrel-forming.test", subject: null, details: { reason: "invalid" } });
+  for (const e of entries) {
+    await sequelize.query(
+      `INSERT INTO audit_events (at, action, actor_id, actor_name, actor_email, subject_type, subject_id, subject_label, details)
+       VALUES (:at, :action, :actorId, :actorName, :actorEmail, :subjectType, :subjectId, :subjectLabel, :details)`,
+      {
+        replacements: {
+          at: e.at,
+          action: e.action,
+          actorId: e.actor?.id ?? null,
+          actorName: e.actor?.name ?? "Unknown visitor",
+          actorEmail: e.actor?.email ?? e.email ?? null,
+          subjectType: e.subject?.[0] ?? null,
+          subjectId: e.subject?.[1] ?? null,
+          subjectLabel: e.subject?.[2] ?? null,
+          details: JSON.stringify(e.details),
+        },
+        transaction,
+      },
+    );
+  }
 }

@@ -5,7 +5,10 @@ import * as bidsRoute from "~/routes/spec-bids";
 import * as jobsRoute from "~/routes/jobs";
 import * as specPage from "~/routes/spec";
 import * as paymentsRoute from "~/routes/payments";
-import { Bid, Job, JobEvent, Spec, SpecRevision, sequelize } from "~/models/index.server";
+import * as adminUsersRoute from "~/routes/admin.users";
+import * as adminAuditRoute from "~/routes/admin.audit";
+import * as accountRoute from "~/routes/account";
+import { Bid, Job, JobEvent, Organisation, Spec, SpecRevision, sequelize } from "~/models/index.server";
 import { readDraft, stepIdsOf } from "~/content/spec-draft";
 import { billOf } from "~/services/published-design";
 import { retainerCents } from "~/content/money";
@@ -114,5 +117,21 @@ describe("the demo scenario", () => {
     const job = await Job.findByPk(res.data.payments[0].jobId, { rejectOnEmpty: true });
     expect(job.retainerPaidAt).not.toBeNull();
     expect(res.data.payments[0].amountCents).toBe(job.retainerCents);
+  });
+
+  it("shows the operator's side: an unassigned new buyer, Kestrel's notes and profile, an audit log with history", async () => {
+    const felix = await signedInDemo("felix@tenderflow.test");
+    const home = await felix.get(adminUsersRoute.loader, "/admin/users");
+    expect(home.data.unassigned.accounts.map((a: { name: string }) => a.name)).toEqual(["Penhallow Packaging Lines"]);
+    const nadia = await signedInDemo("nadia@tenderflow.test");
+    expect((await nadia.get(jobsRoute.loader, "/jobs")).data.unassigned.total).toBe(1);
+    const kestrel = await Organisation.findOne({ where: { name: "Kestrel Forming Machines" }, rejectOnEmpty: true });
+    const view = (await nadia.get(accountRoute.loader, `/accounts/${kestrel.id}`, { organisationId: kestrel.id })).data.account;
+    expect(view.notes).toHaveLength(2);
+    expect(view.profile.quoteContact.email).toBe("buying@kestrel-forming.test");
+    expect(view.openSpecs.length).toBeGreaterThan(0);
+    const audit = await felix.get(adminAuditRoute.loader, "/admin/audit?action=bid-awarded");
+    expect(audit.data.total).toBe(await Job.count());
+    expect((await felix.get(adminAuditRoute.loader, "/admin/audit?action=shop-approved")).data.total).toBe(3);
   });
 });

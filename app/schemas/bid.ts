@@ -114,7 +114,7 @@ function checkOfferExtras(bid: BidFields, ctx: z.RefinementCtx, submitting: bool
   bid.extras?.forEach((extra, i) => {
     if (kinds.has(extra.kind)) issue(ctx, ["extras", i, "kind"], "This kind of work is listed twice.");
     kinds.add(extra.kind);
-    checkPrice(ctx, ["extras", i, "price"], extra.answer === "priced" ? extra.price : undefined, "Enter the price, or choose included or not offered.");
+    if (extra.answer === "priced") checkPrice(ctx, ["extras", i, "price"], extra.price, "Enter the price, or choose included or not offered.");
   });
   bid.ownLines?.forEach((line, i) => {
     if (!line.name && !line.price) return; // an empty row of the form

@@ -12,23 +12,10 @@ import { deliverDueMail } from "~/services/mail.server";
 import { waitForMail } from "../support/mailbox";
 import { makeMember, makePublishedSpec, inDays, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { bidFields, postBid } from "../support/bid-form";
 import { signedIn } from "../support/sessions";
 
-/** Structured terms every submitted offer states: ex works Leeds, 30 days net, a year's warranty. */
-export const TERMS = { incoterm: "EXW", place: "Leeds works", balanceDays: "30", warrantyMonths: "12" };
-
-/** The bid form's fields: every line priced at `price(line, i)` unless it returns null. */
-function bidFields(bom: BomLine[], price: (line: BomLine, i: number) => string | null, extra: Record<string, string> = {}) {
-  const fields: Record<string, string> = { leadTimeWeeks: "12", validUntil: inDays(40), ...TERMS, notes: "", ...extra };
-  bom.forEach((line, i) => {
-    fields[`lines[${i}].key`] = line.key;
-    const p = price(line, i);
-    if (p !== null) fields[`lines[${i}].unitPrice`] = p;
-  });
-  return fields;
-}
-
-const post = (visitor: Visitor, specId: string, fields: Record<string, string>) => visitor.post(bidRoute.action, `/specs/${specId}/bid`, fields, { specId });
+const post = postBid;
 
 async function setting() {
   const buyer = await makeMember("buyer");

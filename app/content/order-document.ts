@@ -1,34 +1,12 @@
-import { lineTotalCents } from "./money";
+import type { OrganisationProfile } from "~/components/organisation-profile";
+import type { OfferSummary } from "~/services/offer-summary";
 
 // The order confirmation's content: everything buyer and shop agreed to at the award, written
-// once and never changed (the screen, the print and the PDF all read this one record). Pure, so
-// the award's service and the demo seed build it the same way.
+// once and never changed (the screen, the print and the PDF all read this one record). Built from
+// the awarded offer's `offerSummary` and both parties' company profiles; pure, so the award's
+// service and the demo seed build it the same way.
 
-/** A bid's line as the bid model keeps it. */
-interface OfferedLine {
-  item: string;
-  specification: string;
-  quantity: number;
-  unitPriceCents: number | null;
-  alternative: boolean;
-  alternativeDescription: string;
-}
-
-export interface OrderParty {
-  name: string;
-  region: string | null;
-}
-
-export interface OrderLine {
-  item: string;
-  specification: string;
-  quantity: number;
-  unitPriceCents: number;
-  totalCents: number;
-  /** The shop offered something else than the bill asked for; `note` says what. */
-  alternative: boolean;
-  note: string;
-}
+export type OrderParty = OrganisationProfile;
 
 export interface OrderDocument {
   number: string;
@@ -39,7 +17,13 @@ export interface OrderDocument {
   awardedBy: string;
   currency: string;
   units: number;
-  lines: OrderLine[];
+  /** The bill's lines as priced (for one set). */
+  lines: OfferSummary["lines"];
+  /** Work beyond the bill the offer includes or prices (each once for the order). */
+  extras: { name: string; priceCents: number | null }[];
+  ownLines: OfferSummary["ownLines"];
+  /** What the offer leaves out ("no commissioning on site offered"). */
+  leavesOut: string[];
   setTotalCents: number;
   totalCents: number;
   retainerPercent: string;
@@ -49,7 +33,7 @@ export interface OrderDocument {
   /** The handover's target day at the award. */
   handoverBy: string | null;
   offerValidUntil: string | null;
-  /** The offer's terms as sentences. */
+  /** The offer's terms as sentences (delivery, payment, warranty, ...). */
   terms: string[];
   notes: string;
 }
@@ -64,22 +48,14 @@ export function buildOrderDocument(facts: {
   buyer: OrderParty;
   shop: OrderParty;
   awardedBy: string;
-  bid: {
-    lines: OfferedLine[];
-    units: number;
-    setTotalCents: number;
-    totalCents: number;
-    currency: string;
-    leadTimeWeeks: number | null;
-    validUntil: string | null;
-    notes: string;
-  };
-  terms: string[];
+  offer: OfferSummary;
+  /** The job's price (the award's figure) and its retainer. */
+  totalCents: number;
   retainerPercent: string;
   retainerCents: number;
   handoverBy: string | null;
 }): OrderDocument {
-  const { bid } = facts;
+  const { offer } = facts;
   return {
     number: facts.number,
     issuedAt: facts.issuedAt.toISOString(),
@@ -87,26 +63,21 @@ export function buildOrderDocument(facts: {
     buyer: facts.buyer,
     shop: facts.shop,
     awardedBy: facts.awardedBy,
-    currency: bid.currency,
-    units: bid.units,
-    lines: bid.lines.map((l) => ({
-      item: l.item,
-      specification: l.specification,
-      quantity: l.quantity,
-      unitPriceCents: l.unitPriceCents ?? 0,
-      totalCents: lineTotalCents({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 }),
-      alternative: l.alternative,
-      note: l.alternative ? l.alternativeDescription : "",
-    })),
-    setTotalCents: bid.setTotalCents,
-    totalCents: bid.totalCents,
+    currency: offer.currency,
+    units: offer.units,
+    lines: offer.lines,
+    extras: offer.extras.filter((e) => e.answer !== "not_offered").map((e) => ({ name: e.name, priceCents: e.answer === "priced" ? e.priceCents : null })),
+    ownLines: offer.ownLines,
+    leavesOut: offer.leavesOut,
+    setTotalCents: offer.totals.setTotalCents,
+    totalCents: facts.totalCents,
     retainerPercent: facts.retainerPercent,
     retainerCents: facts.retainerCents,
-    balanceCents: bid.totalCents - facts.retainerCents,
-    leadTimeWeeks: bid.leadTimeWeeks,
+    balanceCents: facts.totalCents - facts.retainerCents,
+    leadTimeWeeks: offer.terms.leadTimeWeeks,
     handoverBy: facts.handoverBy,
-    offerValidUntil: bid.validUntil,
-    terms: facts.terms,
-    notes: bid.notes,
+    offerValidUntil: offer.terms.validUntil,
+    terms: offer.termsText,
+    notes: offer.notes,
   };
 }

@@ -4,7 +4,8 @@ import { requireUser } from "~/auth/permissions.server";
 import { Button, ButtonLink, EmptyState } from "~/components/ui";
 import { formatDay } from "~/content/dates";
 import { formatMoney } from "~/content/money";
-import type { OrderDocument, OrderParty } from "~/content/order-document";
+import type { OrderDocument } from "~/content/order-document";
+import { OrganisationProfileCard } from "~/components/organisation-profile";
 import { orderConfirmationFor } from "~/services/order-confirmation.server";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.order ? `Order ${d.order.number}` : "Order confirmation"} · Tenderflow` }];
@@ -69,8 +70,8 @@ function OrderSheet({ order }: { order: OrderDocument }) {
         <p className="text-lg font-semibold tabular-nums">{order.number}</p>
       </header>
       <div className="mt-6 grid gap-6 sm:grid-cols-2 print:grid-cols-2">
-        <Party title="Buyer" party={order.buyer} />
-        <Party title="Supplier (shop)" party={order.shop} />
+        <OrganisationProfileCard title="Buyer" profile={order.buyer} className="print:bg-transparent print:p-0" />
+        <OrganisationProfileCard title="Supplier (shop)" profile={order.shop} className="print:bg-transparent print:p-0" />
       </div>
       <dl className="mt-6 grid gap-x-6 gap-y-2 text-sm sm:grid-cols-[12rem_1fr] print:grid-cols-[12rem_1fr]">
         <dt className="text-ink-600">Spec</dt>
@@ -110,13 +111,23 @@ function OrderSheet({ order }: { order: OrderDocument }) {
           </tbody>
         </table>
       </div>
+      {order.extras.length || order.ownLines.length ? (
+        <Facts
+          title="Work beyond the bill"
+          rows={[
+            ...order.extras.map((e) => [e.name, e.priceCents === null ? "Included" : money(e.priceCents)]),
+            ...order.ownLines.map((l) => [l.name, money(l.priceCents)]),
+          ]}
+        />
+      ) : null}
+      {order.leavesOut.length ? <p className="mt-2 text-sm text-ink-600">Not in this order: {order.leavesOut.join("; ")}.</p> : null}
       <div className="mt-6 grid gap-8 sm:grid-cols-2 print:grid-cols-2">
         <Facts
           title="Price"
           rows={[
             ...(order.units > 1
               ? [
-                  ["One set", money(order.setTotalCents)],
+                  ["Bill, one set", money(order.setTotalCents)],
                   ["Units", String(order.units)],
                 ]
               : []),
@@ -143,19 +154,9 @@ function OrderSheet({ order }: { order: OrderDocument }) {
   );
 }
 
-function Party({ title, party }: { title: string; party: OrderParty }) {
-  return (
-    <section>
-      <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-600">{title}</h2>
-      <p className="mt-1 text-lg font-semibold">{party.name}</p>
-      {party.region ? <p className="text-sm">{party.region}</p> : null}
-    </section>
-  );
-}
-
 function Facts({ title, rows }: { title: string; rows: string[][] }) {
   return (
-    <section className="break-inside-avoid">
+    <section className="mt-6 break-inside-avoid">
       <h2 className="font-semibold">{title}</h2>
       <dl className="mt-2 space-y-1 text-sm">
         {rows.map(([label, value]) => (

@@ -3,7 +3,8 @@ import path from "node:path";
 import PDFDocument from "pdfkit";
 import { formatDay } from "~/content/dates";
 import { formatMoney } from "~/content/money";
-import type { OrderDocument } from "~/content/order-document";
+import type { OrderDocument, OrderParty } from "~/content/order-document";
+import { profileLine } from "~/components/organisation-profile";
 
 // The order confirmation as a PDF, drawn with pdfkit on A4. The text is set in the app's own
 // Open Sans, embedded from the @fontsource files the pages use: pdfkit (through fontkit) reads
@@ -155,11 +156,14 @@ export async function orderPdf(order: OrderDocument, options: { compress?: boole
   y += 26;
 
   const half = CONTENT_WIDTH / 2 - 10;
-  const party = (x: number, title: string, p: OrderDocument["buyer"]) => {
+  const party = (x: number, title: string, p: OrderParty) => {
     write(doc, title, x, y, { width: half, size: 8.5, color: MUTED });
-    const used = write(doc, p.name, x, y + 12, { width: half, size: 11, weight: "bold" });
-    if (p.region) write(doc, p.region, x, y + 14 + used, { width: half });
-    return 14 + used + (p.region ? 14 : 0);
+    let used = 12 + write(doc, p.name, x, y + 12, { width: half, size: 11, weight: "bold" });
+    const contact = p.quoteContact ? [p.quoteContact.name, p.quoteContact.phone, p.quoteContact.email].filter(Boolean).join(", ") : "";
+    for (const line of [profileLine(p), p.address, p.taxNumber && `Tax number: ${p.taxNumber}`, contact && `Quotes: ${contact}`]) {
+      if (line) used += write(doc, line, x, y + used + 2, { width: half }) + 2;
+    }
+    return used;
   };
   y += Math.max(party(MARGIN, "Buyer", order.buyer), party(MARGIN + half + 20, "Supplier (shop)", order.shop)) + 14;
 
@@ -187,11 +191,21 @@ export async function orderPdf(order: OrderDocument, options: { compress?: boole
   }
   y += 10;
 
+  if (order.extras.length || order.ownLines.length) {
+    y = heading(doc, y, "Work beyond the bill");
+    y = facts(doc, y, [
+      ...order.extras.map((e): [string, string] => [e.name, e.priceCents === null ? "Included" : money(e.priceCents)]),
+      ...order.ownLines.map((l): [string, string] => [l.name, money(l.priceCents)]),
+    ]);
+  }
+  if (order.leavesOut.length) y = facts(doc, y, [["Not in this order", order.leavesOut.join("; ")]]);
+  y += 8;
+
   y = heading(doc, y, "Price");
   y = facts(doc, y, [
     ...(order.units > 1
       ? ([
-          ["One set", money(order.setTotalCents)],
+          ["Bill, one set", money(order.setTotalCents)],
           ["Units", String(order.units)],
         ] as [string, string][])
       : []),

@@ -25,6 +25,19 @@ beforeAll(async () => {
   shop = await makeMember("shop", { organisationName: "Ironbridge Fluid Power" });
   const spec = await makePublishedSpec(buyer, { machine: { title: "Scissor lift table, main cylinder" } });
   const bid = await makeSubmittedBid(spec, shop, { totalCents: 1_234_567, leadTimeWeeks: 10 });
+  // The whole job quoted: commissioning priced, training included, a line of the shop's own.
+  await bid.update({
+    extras: [
+      { kind: "commissioning", answer: "priced", priceCents: 150_000 },
+      { kind: "training", answer: "included", priceCents: null },
+    ],
+    ownLines: [{ name: "Spare seal kit", priceCents: 25_000 }],
+    totalCents: 1_234_567 + 150_000 + 25_000,
+  });
+  await Organisation.update(
+    { address: "Unit 4, Forge Lane\nWalsall WS2 8LT", region: "UK, West Midlands", taxNumber: "GB 123 4567 89", quoteContactName: "Aled Price" },
+    { where: { id: shop.organisationId } },
+  );
   const loser = await makeMember("shop");
   await makeSubmittedBid(spec, loser, { totalCents: 999_999 });
   job = await awardBid(buyer, spec.id, { bidId: bid.id });
@@ -36,15 +49,24 @@ describe("made at the award", () => {
     expect(order.number).toMatch(/^TF-\d{4}-\d{6}$/);
     expect(order.spec).toMatchObject({ title: "Scissor lift table, main cylinder", revision: 1 });
     expect(order.buyer.name).toBe("Kestrel Forming Ltd");
-    expect(order.shop.name).toBe("Ironbridge Fluid Power");
+    expect(order.shop).toMatchObject({ name: "Ironbridge Fluid Power", region: "UK, West Midlands", taxNumber: "GB 123 4567 89", kind: "shop" });
     expect(order.awardedBy).toBe(buyer.name);
     expect(order.lines).toEqual([
-      { item: "Power unit", specification: "7.5 kW, 40 l tank", quantity: 1, unitPriceCents: 1_234_567, totalCents: 1_234_567, alternative: false, note: "" },
+      expect.objectContaining({ item: "Power unit", specification: "7.5 kW, 40 l tank", quantity: 1, unitPriceCents: 1_234_567, totalCents: 1_234_567 }),
     ]);
-    expect(order.totalCents).toBe(1_234_567);
+    expect(order.extras).toEqual([
+      { name: "Commissioning on site", priceCents: 150_000 },
+      { name: "Training", priceCents: null },
+    ]);
+    expect(order.ownLines).toEqual([{ name: "Spare seal kit", priceCents: 25_000 }]);
+    expect(order.leavesOut).toContain("no wiring offered");
+    expect(order.terms).toEqual(
+      expect.arrayContaining([expect.stringMatching(/^Delivery: EXW Works/), expect.stringMatching(/^Payment: .*30 days after invoice/)]),
+    );
+    expect(order.totalCents).toBe(1_409_567);
     expect(order.retainerCents).toBe(job.retainerCents);
-    expect(order.retainerCents).toBe(retainerCents(1_234_567, job.retainerPercent));
-    expect(order.balanceCents).toBe(1_234_567 - job.retainerCents);
+    expect(order.retainerCents).toBe(retainerCents(1_409_567, job.retainerPercent));
+    expect(order.balanceCents).toBe(1_409_567 - job.retainerCents);
     expect(order.leadTimeWeeks).toBe(10);
     expect(order.handoverBy).toMatch(/^\d{4}-\d{2}-\d{2}$/);
   });
@@ -103,15 +125,15 @@ describe("on screen and as a PDF", () => {
   });
 
   it("writes the order number, the parties and the totals as text, in the app's font, with letters beyond Latin-1", async () => {
-    const text = pdfText(
-      await orderPdf({ ...order, buyer: { name: "Łódź Prasy Sp. z o.o.", region: "Łódzkie" }, terms: ["Payment: 30 days net."] }, { compress: false }),
-    );
+    const text = pdfText(await orderPdf({ ...order, buyer: { ...order.buyer, name: "Łódź Prasy Sp. z o.o." } }, { compress: false }));
     expect(text).toContain("Order confirmation");
     expect(text).toContain(order.number);
     expect(text).toContain("Ironbridge Fluid Power");
     expect(text.replace(/\n/g, "")).toContain("Łódź Prasy Sp. z o.o.");
     for (const cents of [order.totalCents, order.retainerCents, order.balanceCents]) expect(text).toContain(formatMoney(cents, order.currency));
-    expect(text).toContain("Payment: 30 days net.");
+    for (const term of order.terms) expect(text.replace(/\n/g, " ")).toContain(term.split(" ").slice(0, 3).join(" "));
+    expect(text).toContain("Spare seal kit");
+    expect(text).toContain("GB 123 4567 89");
     const raw = Buffer.from(await orderPdf(order, { compress: false })).toString("latin1");
     expect(raw).toMatch(/\/BaseFont \/[A-Z]{6}\+OpenSans/);
   });

@@ -25,7 +25,7 @@ function withUnit(value: number | string, unit: string): string {
 
 // ---- Key sizes ------------------------------------------------------------------------------
 
-export function KeySizes({ design, units = "metric" }: { design: Design; units?: UnitSystem }) {
+export function KeySizes({ design, units = "metric" }: { design: Omit<Design, "bom" | "trail">; units?: UnitSystem }) {
   const u = displayUnits(units);
   const { cylinder: c, pressuresBar: p, counterbalance: cb, directionalValve: dv } = design;
   const items: { label: string; value: string; detail?: string }[] = [

@@ -1,12 +1,37 @@
-import { useEffect, useRef } from "react";
+import { useEffect, useRef, useState } from "react";
+import { useFetcher } from "react-router";
 import { Card } from "./ui";
 
 /**
- * Long detail (the full bill, the calculation trail) folded under its heading: one click opens
- * it, a link to its id opens it too, and it prints open.
+ * Detail that is not in the page until opened: `href` is the page asked for it (its loader then
+ * returns `detail.html`), loaded by a fetcher when the section opens; `html` is set when the page
+ * was asked for it already (following the link, as without JavaScript).
  */
-export function FoldedSection({ id, title, summary, children }: { id: string; title: string; summary: string; children: React.ReactNode }) {
+export interface LazyDetail {
+  href: string;
+  html: string | null;
+}
+
+/**
+ * Long detail (the full bill, the calculation trail) folded under its heading: one click opens
+ * it, a link to its id opens it too, and it prints open. With `lazy`, its content loads when it
+ * first opens instead of coming with the page.
+ */
+export function FoldedSection({
+  id,
+  title,
+  summary,
+  children,
+  lazy,
+}: {
+  id: string;
+  title: string;
+  summary: string;
+  children?: React.ReactNode;
+  lazy?: LazyDetail;
+}) {
   const ref = useRef<HTMLDetailsElement>(null);
+  const [open, setOpen] = useState(Boolean(lazy?.html));
   useEffect(() => {
     const details = ref.current;
     if (!details) return;
@@ -33,7 +58,7 @@ export function FoldedSection({ id, title, summary, children }: { id: string; ti
   }, [id]);
   return (
     <Card>
-      <details ref={ref} id={id} className="group scroll-mt-4">
+      <details ref={ref} id={id} className="group scroll-mt-4" open={lazy?.html ? true : undefined} onToggle={() => setOpen(Boolean(ref.current?.open))}>
         <summary className="flex cursor-pointer list-none items-baseline justify-between gap-3 [&::-webkit-details-marker]:hidden">
           <h2 className="font-semibold">{title}</h2>
           <span className="text-sm font-semibold text-flow-700">
@@ -41,9 +66,31 @@ export function FoldedSection({ id, title, summary, children }: { id: string; ti
             <span className="hidden group-open:inline">Fold ▴</span>
           </span>
         </summary>
-        <div className="mt-3">{children}</div>
+        <div className="mt-3">{lazy ? <LazyBody id={id} title={title} lazy={lazy} open={open} /> : children}</div>
       </details>
     </Card>
+  );
+}
+
+/** A lazy section's content: fetched the first time the section is open. */
+function LazyBody({ id, title, lazy, open }: { id: string; title: string; lazy: LazyDetail; open: boolean }) {
+  const fetcher = useFetcher<{ detail?: { html: string } | null }>();
+  const html = lazy.html ?? fetcher.data?.detail?.html ?? null;
+  const { load, state } = fetcher;
+  // Asked once: should it fail, the link below stays for a retry instead of a loop of requests.
+  const asked = useRef(false);
+  useEffect(() => {
+    if (!open || html !== null || asked.current) return;
+    asked.current = true;
+    void load(lazy.href);
+  }, [open, html, load, lazy.href]);
+  // Our own server's rendering of a published design (escaped by React), never a person's HTML.
+  if (html !== null) return <div dangerouslySetInnerHTML={{ __html: html }} />;
+  if (state === "loading") return <p className="text-sm text-ink-600">Loading…</p>;
+  return (
+    <a href={`${lazy.href}#${id}`} className="text-sm font-semibold text-flow-700 hover:underline">
+      Show {title.toLowerCase()}
+    </a>
   );
 }
 

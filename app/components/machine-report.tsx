@@ -1,13 +1,13 @@
 import type { MachineAxis, MachineCyclePhase, MachineDesign } from "~/hydraulics";
-import type { ReportProps } from "./design-report";
+import { detailCounts, FoldedDetails, type ReportProps } from "./design-report";
 import { servedBy } from "~/services/published-design";
 import { formatQuantity } from "~/units";
 import { CircuitViewer } from "./circuit-viewer";
 import { centreName } from "./circuit-diagram/describe";
 import { displayUnits, type DisplayUnits } from "./circuit-diagram/format";
 import { CycleChart } from "./cycle-chart";
-import { CalculationTrail, CautionsPanel, ComponentTable, pumpInWords, WarningsList } from "./design-panels";
-import { DetailLinks, FoldedSection } from "./folded-section";
+import { CautionsPanel, ComponentTable, pumpInWords, WarningsList } from "./design-panels";
+import { DetailLinks } from "./folded-section";
 import { Card, Notice } from "./ui";
 
 /**
@@ -16,7 +16,8 @@ import { Card, Notice } from "./ui";
  * line serves, and the calculation trail. The single-axis DesignReport's sibling: same order,
  * same panels where they fit.
  */
-export function MachineReport({ design, units, updating = false, componentsTitle = "Components", cautions = true }: ReportProps<MachineDesign>) {
+export function MachineReport(report: ReportProps<MachineDesign>) {
+  const { design, units, updating = false, componentsTitle = "Components", cautions = true } = report;
   const u = displayUnits(units);
   const names = design.axes.map((a) => a.name);
   return (
@@ -27,7 +28,7 @@ export function MachineReport({ design, units, updating = false, componentsTitle
           <span className="text-xs text-ink-400">{updating ? "Updating…" : `Engine ${design.engineVersion}`}</span>
         </div>
         <CircuitViewer circuit={design.circuit} units={units} />
-        <DetailLinks componentsTitle={componentsTitle} bomLines={design.bom.length} />
+        <DetailLinks componentsTitle={componentsTitle} bomLines={detailCounts(report).bill} />
       </Card>
       <section aria-labelledby="machine-axes-title">
         <h2 id="machine-axes-title" className="mb-3 font-semibold text-ink-900">
@@ -43,12 +44,7 @@ export function MachineReport({ design, units, updating = false, componentsTitle
       <CycleChart cycle={design.cycle} units={units} phaseName={machinePhaseName} drawnBy="Axes draw" />
       <WarningsList warnings={design.warnings} />
       {cautions ? <CautionsPanel /> : null}
-      <FoldedSection id="bill" title={componentsTitle} summary={`Show all ${design.bom.length} lines`}>
-        <ComponentTable design={design} servedBy={(line) => servedBy(line.key, names)} />
-      </FoldedSection>
-      <FoldedSection id="calculation-trail" title="How every number was reached" summary={`Show ${design.trail.length} steps`}>
-        <CalculationTrail trail={design.trail} />
-      </FoldedSection>
+      <FoldedDetails report={report} bill={(d) => <ComponentTable design={d} servedBy={(line) => servedBy(line.key, names)} />} />
     </div>
   );
 }
@@ -155,7 +151,7 @@ function line(label: string, l: { innerDiameterMm: number; velocityMS: number },
 const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 /** The one power unit, sized over the machine's cycle. */
-function PowerUnit({ design: m, u }: { design: MachineDesign; u: DisplayUnits }) {
+function PowerUnit({ design: m, u }: { design: Omit<MachineDesign, "bom" | "trail">; u: DisplayUnits }) {
   const pump = m.pump;
   const items: Item[] = [
     { label: "Pump", value: u.flow(m.flowsLpm.pump), detail: `${pumpInWords(m, u)} at ${pump.speedRpm} rpm` },

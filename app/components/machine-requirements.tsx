@@ -11,7 +11,7 @@ const DUTY = new Set<string>(MACHINE_DUTY_FIELDS);
  * What a machine must do, as it was sized: the duty once, the cycle in words, then each axis's
  * own answers under its name, in the reader's units.
  */
-export function MachineRequirements({ design, units }: { design: MachineDesign; units: UnitSystem }) {
+export function MachineRequirements({ design, units }: { design: Omit<MachineDesign, "bom" | "trail">; units: UnitSystem }) {
   const duty = inFormOrder(requirementsInWords(design.requirements as Parameters<typeof requirementsInWords>[0], units).filter((r) => DUTY.has(r.key)));
   return (
     <Card>

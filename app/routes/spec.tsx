@@ -5,6 +5,7 @@ import { requireUser } from "~/auth/permissions.server";
 import { can, viewerOf } from "~/auth/access-policy.server";
 import { specBackLink } from "~/auth/navigation";
 import { PublishedReport } from "~/components/design-report";
+import type { LazyDetail } from "~/components/folded-section";
 import { Badge, Button, ButtonLink, Notice, PageHeader } from "~/components/ui";
 import { SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
 import { QuotationPanel } from "~/components/quotation-facts";
@@ -16,7 +17,8 @@ import { buyerNameFor, specForReader } from "~/services/spec-access.server";
 import { revisionsOf } from "~/services/specs.server";
 import { biddingPanelOf } from "~/services/bids.server";
 import { BidPanel } from "~/components/bid-panel";
-import { publishedDesignOf } from "~/services/published-design";
+import { DETAIL_PARTS, publishedDesignOf, summaryOf, type DetailPart } from "~/services/published-design";
+import { publishedDetailHtml } from "~/services/published-detail.server";
 import type { UnitSystem } from "~/units";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.title ?? "Spec"} · Tenderflow` }];
@@ -28,6 +30,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Earlier revisions stay viewable: ?revision=N, the newest by default.
   const asked = Number(new URL(request.url).searchParams.get("revision"));
   const current = revisions.find((r) => r.number === asked) ?? revisions[0];
+  const published = publishedDesignOf(current);
+  // The bill or the trail, asked for when the reader opens it (a fetcher, or the link without JavaScript).
+  const part = DETAIL_PARTS.find((p) => p === new URL(request.url).searchParams.get("detail"));
   // Files, quotation facts and questions: for every reader of a published spec.
   const [attachments, questions, bidding] = await Promise.all([
     listAttachments(user, spec.id),
@@ -50,14 +55,24 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     latestRevision: revisions[0]?.number ?? 0,
     revisions: revisions.map((r) => ({ number: r.number, createdAt: r.createdAt.toISOString() })),
     revising: spec.revising,
-    // One axis or a machine of several: publishedDesignOf decides which.
-    published: publishedDesignOf(current),
+    // One axis or a machine of several, without the long detail until it is opened.
+    published: published && summaryOf(published),
+    detail: current && published && part ? { part, html: publishedDetailHtml(current.id, part, published) } : null,
     unitSystem: (user.unitSystem ?? "metric") as UnitSystem,
     quotation: current ? quotationFacts(current.answers) : null,
     attachments,
     questions,
     back: specBackLink(user, spec),
   };
+}
+
+/** Where the folded bill and trail load from: this page asked for that part of the revision shown. */
+function lazyDetail(d: Route.ComponentProps["loaderData"]): Record<DetailPart, LazyDetail> {
+  const at = (part: DetailPart) => {
+    const query = new URLSearchParams({ ...(d.revision && d.revision.number < d.latestRevision ? { revision: String(d.revision.number) } : {}), detail: part });
+    return { href: `/specs/${d.id}?${query}`, html: d.detail?.part === part ? d.detail.html : null };
+  };
+  return { bill: at("bill"), trail: at("trail") };
 }
 
 export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
@@ -171,7 +186,7 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
       ) : null}
       {d.published ? (
         <div className="space-y-6">
-          <PublishedReport published={d.published} units={d.unitSystem} componentsTitle="Bill of materials" />
+          <PublishedReport published={d.published} units={d.unitSystem} componentsTitle="Bill of materials" lazy={lazyDetail(d)} />
         </div>
       ) : (
         <Notice>This draft has not been published yet, so it has no frozen design.</Notice>

@@ -18,6 +18,29 @@ export function publishedDesignOf(revision: RevisionDesigns | null | undefined):
   return design ? { kind: "axis", design } : null;
 }
 
+/** The long detail of a published design, folded on its page and loaded when opened. */
+export type DetailPart = "bill" | "trail";
+export const DETAIL_PARTS: readonly DetailPart[] = ["bill", "trail"];
+
+/** A design without its long detail: what a page sends before the reader opens the bill or the trail. */
+export type Summary<D extends { bom: unknown[]; trail: unknown[] }> = Omit<D, "bom" | "trail">;
+
+/**
+ * A published design as its page first shows it: everything but the bill's lines and the
+ * calculation trail (two thirds of a design's data), with how many of each there are.
+ */
+export type PublishedSummary = ({ kind: "axis"; design: Summary<Design> } | { kind: "machine"; design: Summary<MachineDesign> }) & {
+  counts: Record<DetailPart, number>;
+};
+
+export function summaryOf(published: PublishedDesign): PublishedSummary {
+  const { bom, trail, ...shown } = published.design;
+  const counts = { bill: bom.length, trail: trail.length };
+  return published.kind === "machine"
+    ? { kind: "machine", design: shown as Summary<MachineDesign>, counts }
+    : { kind: "axis", design: shown as Summary<Design>, counts };
+}
+
 /** The bill shops price: the machine's when there is one, else the axis's. */
 export const billOf = (revision: RevisionDesigns | null | undefined): BomLine[] => publishedDesignOf(revision)?.design.bom ?? [];
 

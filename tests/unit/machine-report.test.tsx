@@ -1,11 +1,12 @@
 import { renderToStaticMarkup } from "react-dom/server";
+import { createRoutesStub } from "react-router";
 import { describe, expect, it } from "vitest";
 import { MachineReport, machinePhaseName } from "~/components/machine-report";
 import { PublishedReport } from "~/components/design-report";
 import { stepInWords } from "~/content/machine-words";
 import { sizeCircuit } from "~/hydraulics";
 import { warningTitle } from "~/content/warning-titles";
-import { POWER_UNIT_LABEL, servedBy } from "~/services/published-design";
+import { POWER_UNIT_LABEL, servedBy, summaryOf, type PublishedDesign } from "~/services/published-design";
 import { formatQuantity } from "~/units";
 import { CLAMP_AND_PRESS, clampAndPress } from "../support/machines";
 
@@ -111,9 +112,16 @@ describe("servedBy", () => {
   });
 });
 
+/** A published report as the spec page renders it (its folded detail loads through a fetcher, so inside a router). */
+function publishedPage(published: PublishedDesign) {
+  const lazy = { bill: { href: "/specs/s1?detail=bill", html: null }, trail: { href: "/specs/s1?detail=trail", html: null } };
+  const Page = createRoutesStub([{ path: "/", Component: () => <PublishedReport published={summaryOf(published)} units="metric" lazy={lazy} /> }]);
+  return renderToStaticMarkup(<Page />);
+}
+
 describe("PublishedReport", () => {
   it("shows a machine's requirements (the duty once, the cycle, each axis's own answers) and its MachineReport", () => {
-    const page = renderToStaticMarkup(<PublishedReport published={{ kind: "machine", design: machine }} units="metric" />);
+    const page = publishedPage({ kind: "machine", design: machine });
     expect(page).toContain("data-machine-report");
     expect(page).toContain("What the machine must do");
     const duty = sectionOf(page, "data-machine-duty");
@@ -128,10 +136,22 @@ describe("PublishedReport", () => {
 
   it("shows one axis as before", () => {
     const axis = sizeCircuit({ ...CLAMP_AND_PRESS.axes[0], cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50 });
-    const page = renderToStaticMarkup(<PublishedReport published={{ kind: "axis", design: axis }} units="metric" />);
+    const page = publishedPage({ kind: "axis", design: axis });
     expect(page).not.toContain("data-machine-report");
     expect(page).toContain("What the axis must do");
     expect(page).toContain('data-key-size="Bore / rod"');
+  });
+
+  it("leaves the bill and the trail out of the page, counted, each behind a link that loads it", () => {
+    const axis = sizeCircuit({ ...CLAMP_AND_PRESS.axes[0], cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50 });
+    for (const page of [publishedPage({ kind: "axis", design: axis }), publishedPage({ kind: "machine", design: machine })]) {
+      expect(page).not.toContain("data-trail-row");
+      expect(page).not.toContain("data-bom-key");
+      expect(page).toContain('href="/specs/s1?detail=bill#bill"');
+      expect(page).toContain('href="/specs/s1?detail=trail#calculation-trail"');
+    }
+    expect(publishedPage({ kind: "axis", design: axis })).toContain(`Show ${axis.trail.length} steps`);
+    expect(publishedPage({ kind: "machine", design: machine })).toContain(`Show all ${machine.bom.length} lines`);
   });
 });
 

@@ -27,7 +27,6 @@ export const NAV_BY_ROLE: Record<Role, NavItem[]> = {
     { to: "/admin/users", label: "Users" },
     { to: "/admin/organisations", label: "Organisations" },
     { to: "/admin/mail", label: "Mail" },
-    { to: "/admin/audit", label: "Audit log" },
     { to: "/jobs", label: "Jobs" },
     { to: "/payments", label: "Payments" },
     { to: "/team", label: "Operator team" },

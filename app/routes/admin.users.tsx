@@ -5,7 +5,7 @@ import type { Route } from "./+types/admin.users";
 import { requireRole } from "~/auth/permissions.server";
 import { ROLES_BY_KIND, ROLE_LABELS, type Role, PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { ActiveBadge, Button, Card, ErrorNotice, ListTable, PageHeader, RowChoiceForm, SearchBar, SortChoice } from "~/components/ui";
+import { ActiveBadge, Button, ButtonLink, Card, ErrorNotice, ListTable, PageHeader, RowChoiceForm, SearchBar, SortChoice } from "~/components/ui";
 import { FieldErrors as FieldErrorText } from "~/components/form-field";
 import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
@@ -114,7 +114,16 @@ export default function AdminUsers({ loaderData, actionData }: Route.ComponentPr
   const [searchParams] = useSearchParams();
   return (
     <>
-      <PageHeader title="Users" lead={`${countOf(loaderData.total, "user")} across all organisations.`} />
+      <PageHeader
+        title="Users"
+        lead={`${countOf(loaderData.total, "user")} across all organisations.`}
+        // The audit log is linked from the admin's home: the main menu has no room left on a laptop.
+        actions={
+          <ButtonLink to="/admin/audit" tone="secondary">
+            Audit log
+          </ButtonLink>
+        }
+      />
       <ErrorNotice error={actionData?.error} />
       {actionData?.confirm ? <ConfirmRoleChange confirm={actionData.confirm} /> : null}
       <UnassignedAccounts {...loaderData.unassigned} managers={loaderData.managers} />

@@ -10,7 +10,7 @@ import { LIST_SORTS } from "~/schemas/list-sort";
 import { mailListQuerySchema, sendAgainSchema } from "~/schemas/outbox";
 import { fieldErrorsOf } from "~/services/errors.server";
 import { MAX_ATTEMPTS } from "~/services/mail.server";
-import { WAITING_LONG_MINUTES, mailNeedingAttention, sendAgain, type MailView } from "~/services/outbox-admin.server";
+import { WAITING_LONG_MINUTES, backgroundWorkOverview, mailNeedingAttention, sendAgain, type MailView } from "~/services/outbox-admin.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Mail · Tenderflow" }];
 
@@ -18,8 +18,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   const admin = await requireRole(request, PAGE_ROLES.administration);
   const query = mailListQuerySchema.parse(Object.fromEntries(new URL(request.url).searchParams));
   const view: MailView = query.show ?? "failed";
-  const mail = await mailNeedingAttention(admin, view, { page: query.page, sort: query.sort });
-  return { view, sort: query.sort, maxAttempts: MAX_ATTEMPTS, waitingMinutes: WAITING_LONG_MINUTES, ...mail };
+  const [mail, background] = await Promise.all([mailNeedingAttention(admin, view, { page: query.page, sort: query.sort }), backgroundWorkOverview(admin)]);
+  return { view, sort: query.sort, maxAttempts: MAX_ATTEMPTS, waitingMinutes: WAITING_LONG_MINUTES, background, ...mail };
 }
 
 export async function action({ request }: Route.ActionArgs) {
@@ -95,6 +95,38 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
         )}
         <Pager page={d.page} pageCount={d.pageCount} search={searchParams} />
       </Card>
+      <BackgroundWork {...d.background} />
     </>
+  );
+}
+
+/** The mail queued now and each scheduled job's last runs, so an admin sees the background work is alive. */
+function BackgroundWork({ queued, schedules }: Route.ComponentProps["loaderData"]["background"]) {
+  return (
+    <Card className="mt-6" title="Background work">
+      <p className="mb-3 text-sm text-ink-600">
+        {queued === 0
+          ? "No mail is queued: everything has gone out or failed."
+          : `${queued} mail${queued === 1 ? " is" : "s are"} queued to go out, most urgent first.`}
+      </p>
+      <ListTable label="Scheduled work" columns={["Work", "Runs", "Last finished", "Last failed"]}>
+        {schedules.map((s) => (
+          <tr key={s.label} className="border-t border-ink-100 align-top [&>td]:py-2">
+            <td>{s.label}</td>
+            <td>{s.every}</td>
+            <td className="whitespace-nowrap">{s.lastDoneAt ? formatMoment(s.lastDoneAt) : "Not in the last 12 hours"}</td>
+            <td className="max-w-xs break-words text-ink-600">
+              {s.lastFailedAt ? (
+                <>
+                  <Badge tone="bad">{formatMoment(s.lastFailedAt)}</Badge> {s.lastError}
+                </>
+              ) : (
+                "—"
+              )}
+            </td>
+          </tr>
+        ))}
+      </ListTable>
+    </Card>
   );
 }

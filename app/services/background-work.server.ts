@@ -12,6 +12,9 @@ import { QUEUES, workQueue, type QueueName } from "./work-queue.server";
 
 interface Scheduled {
   queue: QueueName;
+  /** What it does and how often, in words, for the admin's mail page. */
+  label: string;
+  every: string;
   /** When, as cron in UTC (pg-boss's schedules are to the minute). */
   cron: string;
   run: (now: Date) => Promise<unknown>;
@@ -19,11 +22,17 @@ interface Scheduled {
 
 export const SCHEDULES: Scheduled[] = [
   // Deadlines end at a moment (23:59:59 UTC of the day chosen): told within a minute.
-  { queue: QUEUES.bidDeadlines, cron: "* * * * *", run: remindOfPassedDeadlines },
+  { queue: QUEUES.bidDeadlines, label: "Bid deadlines passing", every: "every minute", cron: "* * * * *", run: remindOfPassedDeadlines },
   // Targets are whole days: a quarter of an hour after midnight UTC is soon enough.
-  { queue: QUEUES.milestoneReminders, cron: "*/15 * * * *", run: remindOfOverdueMilestones },
+  { queue: QUEUES.milestoneReminders, label: "Overdue milestones", every: "every 15 minutes", cron: "*/15 * * * *", run: remindOfOverdueMilestones },
   // A payment without its webhook is asked about after five minutes; each minute picks up the due ones.
-  { queue: QUEUES.paymentReconciliation, cron: "* * * * *", run: () => reconcileOpenPayments() },
+  {
+    queue: QUEUES.paymentReconciliation,
+    label: "Payments without their webhook",
+    every: "every minute",
+    cron: "* * * * *",
+    run: () => reconcileOpenPayments(),
+  },
 ];
 
 /** How long a stop waits for running jobs before handing them back for a retry elsewhere (within serve's own 3 s). */

@@ -1,10 +1,12 @@
 import { randomUUID } from "node:crypto";
-import { Op, type Order, type WhereOptions } from "sequelize";
+import { Op, QueryTypes, type Order, type WhereOptions } from "sequelize";
 import { OutboxMail, sequelize } from "~/models/index.server";
 import type { SortOf } from "~/schemas/list-sort";
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { pageCountOf, pageOf } from "./list-query.server";
 import { queueDelivery } from "./mail.server";
+import { SCHEDULES } from "./background-work.server";
+import { QUEUE_SCHEMA } from "./work-queue.server";
 import { authorize, viewerOf } from "~/auth/access-policy.server";
 import type { User } from "~/models/index.server";
 
@@ -84,6 +86,37 @@ export async function mailNeedingAttention(
     nextAttemptAt: m.status === "pending" ? m.nextAttemptAt.toISOString() : null,
   }));
   return { mails, counts: { failed, waiting }, total, page, pageCount };
+}
+
+export interface ScheduledWork {
+  label: string;
+  every: string;
+  lastDoneAt: string | null;
+  lastFailedAt: string | null;
+  lastError: string | null;
+}
+
+/**
+ * What the background work is doing: mail queued now, and each schedule's last finished and last
+ * failed run (the queue keeps finished jobs for 12 hours before archiving them).
+ */
+export async function backgroundWorkOverview(admin: User): Promise<{ queued: number; schedules: ScheduledWork[] }> {
+  authorize(await viewerOf(admin), "platform.administer", null);
+  const queued = await OutboxMail.count({ where: { status: "pending" } });
+  const runs = await sequelize.query<{ name: string; lastDoneAt: Date | null; lastFailedAt: Date | null; lastError: string | null }>(
+    `SELECT name,
+       max(completed_on) FILTER (WHERE state = 'completed') AS "lastDoneAt",
+       max(completed_on) FILTER (WHERE state = 'failed') AS "lastFailedAt",
+       (array_agg(output->>'message' ORDER BY completed_on DESC) FILTER (WHERE state = 'failed'))[1] AS "lastError"
+     FROM ${QUEUE_SCHEMA}.job WHERE name IN (:names) GROUP BY name`,
+    { replacements: { names: SCHEDULES.map((s) => s.queue) }, type: QueryTypes.SELECT },
+  );
+  const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
+  const schedules = SCHEDULES.map(({ queue, label, every }) => {
+    const run = runs.find((r) => r.name === queue);
+    return { label, every, lastDoneAt: iso(run?.lastDoneAt ?? null), lastFailedAt: iso(run?.lastFailedAt ?? null), lastError: run?.lastError ?? null };
+  });
+  return { queued, schedules };
 }
 
 /**

@@ -17,6 +17,7 @@ import * as adminMail from "~/routes/admin.mail";
 import { OutboxMail, sequelize } from "~/models/index.server";
 import { requestPasswordReset } from "~/services/accounts.server";
 import { MAIL_PRIORITIES, MAX_ATTEMPTS, deliverDueMail, enqueueMail, retryDelayMs } from "~/services/mail.server";
+import { QUEUES, workQueue } from "~/services/work-queue.server";
 import { makeJob, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
@@ -24,7 +25,7 @@ import { signedIn } from "../support/sessions";
 // Each test reads the whole queue, so each starts with an empty one.
 beforeEach(async () => {
   await OutboxMail.destroy({ where: {} });
-  await sequelize.query("DELETE FROM pgboss.job WHERE name = 'mail'");
+  await sequelize.query("DELETE FROM pgboss.job");
 });
 
 const jobState = async (id: string) => {
@@ -217,6 +218,26 @@ describe("the admin's mail page", () => {
     expect((await mail.reload()).attempts).toBe(1);
     expect(await jobState(firstJob)).toBe("completed");
     expect(await jobState(mail.jobId!)).toBe("retry");
+  });
+
+  it("shows the mail queued now and each schedule's last finished and failed run", async () => {
+    await enqueueMail({ to: "queued@example.test", subject: "Queued", text: "Body" });
+    const boss = workQueue();
+    // One scheduled run of each outcome, as the workers settle them.
+    await boss.send(QUEUES.bidDeadlines, {});
+    await boss.send(QUEUES.paymentReconciliation, {}, { retryLimit: 0 });
+    const [done] = await boss.fetch(QUEUES.bidDeadlines);
+    await boss.complete(QUEUES.bidDeadlines, done.id);
+    const [failed] = await boss.fetch(QUEUES.paymentReconciliation);
+    await boss.fail(QUEUES.paymentReconciliation, failed.id, { message: "The card service did not answer" });
+
+    const page = await (await signedIn(await makeOperatorUser("admin"))).get(adminMail.loader, "/admin/mail");
+    expect(page.data.background.queued).toBe(1);
+    const byLabel = Object.fromEntries(page.data.background.schedules.map((s: { label: string }) => [s.label, s]));
+    expect(byLabel["Bid deadlines passing"]).toEqual(expect.objectContaining({ every: "every minute", lastFailedAt: null, lastError: null }));
+    expect(byLabel["Bid deadlines passing"].lastDoneAt).toEqual(expect.any(String));
+    expect(byLabel["Payments without their webhook"]).toEqual(expect.objectContaining({ lastDoneAt: null, lastError: "The card service did not answer" }));
+    expect(byLabel["Overdue milestones"]).toEqual(expect.objectContaining({ every: "every 15 minutes", lastDoneAt: null, lastFailedAt: null }));
   });
 
   it("is the admin's only: others get 403 and change nothing", async () => {

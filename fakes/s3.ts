@@ -19,6 +19,9 @@ export interface S3Fake {
 
 /** Starts the store (port 0 picks a free one) and creates `bucket` in it unless it is there. */
 export async function startS3Fake({ port = 0, directory, bucket }: { port?: number; directory: string; bucket: string }): Promise<S3Fake> {
+  // The SDK is pinned to its last release for Node 20 on purpose; its notice about later releases
+  // would otherwise repeat in every process this one starts.
+  process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
   const server = new S3rver({ port, address: "127.0.0.1", silent: true, directory });
   const address = await server.run();
   const url = `http://127.0.0.1:${address.port}`;

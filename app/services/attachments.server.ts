@@ -222,7 +222,12 @@ async function receiveForm(request: Request, freeSlots: number) {
     await discard(staged);
     if (error instanceof StorageUnavailableError) {
       console.error(error);
-      return { fields: null, staged: [], errors: [{ fileName: null, message: `${STORAGE_DOWN} Nothing was attached.` }], status: 503 as const };
+      return {
+        fields: null,
+        staged: [],
+        errors: [{ fileName: null, message: `${STORAGE_DOWN} Nothing was attached; please try again in a few minutes.` }],
+        status: 503 as const,
+      };
     }
     // Anything else is ours, not the sender's: it stays a 500.
     if (!(error instanceof FormDataParseError || error instanceof MultipartParseError)) throw error;

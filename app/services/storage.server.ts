@@ -1,5 +1,4 @@
 import { randomUUID } from "node:crypto";
-import { data } from "react-router";
 import { env } from "~/env.server";
 import { ObjectStore, type ObjectStoreSettings, StorageUnavailableError } from "./object-store.server";
 
@@ -41,11 +40,13 @@ export function fileStorage(): FileStorage {
   return shared;
 }
 
-export const STORAGE_DOWN = "Tenderflow cannot reach its file store just now. Nothing was lost; please try again in a few minutes.";
+/** The first words of every message about a store that does not answer. */
+export const STORAGE_DOWN = "Tenderflow cannot reach its file store just now.";
 
 /**
- * Runs a read of stored files for a page or download; a store that does not answer becomes a
- * 503 with a plain message (the error itself goes to the server log) instead of a crash.
+ * Runs a read of stored files for a download; a store that does not answer becomes a 503 in
+ * plain words (people reach a download by following a link, so no JSON), and the error itself
+ * goes to the server log.
  */
 export async function readingStorage<T>(read: () => Promise<T>): Promise<T> {
   try {
@@ -53,6 +54,9 @@ export async function readingStorage<T>(read: () => Promise<T>): Promise<T> {
   } catch (error) {
     if (!(error instanceof StorageUnavailableError)) throw error;
     console.error(error);
-    throw data({ message: STORAGE_DOWN }, { status: 503, headers: { "Retry-After": "60" } });
+    throw new Response(`${STORAGE_DOWN} Please try again in a few minutes.`, {
+      status: 503,
+      headers: { "Content-Type": "text/plain; charset=utf-8", "X-Content-Type-Options": "nosniff", "Retry-After": "60" },
+    });
   }
 }

@@ -2,44 +2,15 @@ import { createHash } from "node:crypto";
 import { beforeEach, describe, expect, it } from "vitest";
 import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
-import { Spec, SpecAttachment, type User } from "~/models/index.server";
+import { type Spec, SpecAttachment } from "~/models/index.server";
 import { ATTACHMENT_LIMITS, cleanFileName, contentDisposition, removeAllAttachments } from "~/services/attachments.server";
+import { PDF_BYTES, PNG_BYTES, downloadedBytes, draftOf, pdf, png, removeForm, uploadForm } from "../support/attachment-files";
 import { makeMember } from "../support/factories";
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
 import { storedKeys as storedFiles, storedObject } from "../support/stored-files";
 
-// Minimal real openings of the accepted formats; the rest of each file is filler.
-const PDF_BYTES = new TextEncoder().encode("%PDF-1.7\n1 0 obj\n<< /Type /Catalog >>\nendobj\n%%EOF\n");
-const PNG_BYTES = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 0x0d, 0x49, 0x48, 0x44, 0x52]);
 const sha256 = (bytes: Uint8Array) => createHash("sha256").update(bytes).digest("hex");
-const pdf = (name = "layout.pdf") => new File([PDF_BYTES], name, { type: "application/pdf" });
-const png = (name = "photo.png") => new File([PNG_BYTES], name, { type: "image/png" });
-
-async function draftOf(buyer: User) {
-  return Spec.create({
-    organisationId: buyer.organisationId,
-    createdById: buyer.id,
-    bidDeadline: null,
-    retainerPercent: null,
-    deliveryRegion: null,
-    publishedAt: null,
-  });
-}
-
-const uploadForm = (...files: File[]) => {
-  const form = new FormData();
-  form.set("intent", "upload");
-  for (const file of files) form.append("files", file);
-  return form;
-};
-
-const removeForm = (attachmentId: string) => {
-  const form = new FormData();
-  form.set("intent", "remove");
-  form.set("attachmentId", attachmentId);
-  return form;
-};
 
 /** Posts the form the way the uploader's XMLHttpRequest does (asking for JSON). */
 function post(visitor: Visitor, specId: string, body: FormData, headers: Record<string, string> = { Accept: "application/json" }) {
@@ -49,13 +20,6 @@ function post(visitor: Visitor, specId: string, body: FormData, headers: Record<
 
 function fetchFile(visitor: Visitor, specId: string, attachmentId: string) {
   return call(download.loader, visitor.request(`/specs/${specId}/attachments/${attachmentId}`), { specId, attachmentId });
-}
-
-/** The download's bytes, read straight from the Response (the shared helper reads bodies as text). */
-async function downloadedBytes(visitor: Visitor, specId: string, attachmentId: string) {
-  const request = visitor.request(`/specs/${specId}/attachments/${attachmentId}`);
-  const response = await download.loader({ request, params: { specId, attachmentId }, context: {} } as Parameters<typeof download.loader>[0]);
-  return new Uint8Array(await response.arrayBuffer());
 }
 
 describe("uploading drawings and photos to a draft", () => {
@@ -237,7 +201,8 @@ describe("who may change and read a spec's files", () => {
     await spec.update({ status: "open", publishedAt: new Date() });
     const res = await fetchFile(shop, spec.id, attachmentId);
     expect(res.status).toBe(200);
-    expect(await downloadedBytes(shop, spec.id, attachmentId)).toEqual(PNG_BYTES);
+    const request = shop.request(`/specs/${spec.id}/attachments/${attachmentId}`);
+    expect(await downloadedBytes(download.loader, request, { specId: spec.id, attachmentId })).toEqual(PNG_BYTES);
     expect((await post(shop, spec.id, uploadForm(pdf()))).status).toBe(404);
   });
 

@@ -6,11 +6,10 @@ import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
 import { Organisation, Spec, type User } from "~/models/index.server";
 import { createDraft, publish, saveStep } from "~/services/specs.server";
+import { pdf, uploadForm } from "../support/attachment-files";
 import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser } from "../support/factories";
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
-
-const PDF_BYTES = new TextEncoder().encode("%PDF-1.7\n1 0 obj\n<< /Type /Catalog >>\nendobj\n%%EOF\n");
 
 const page = (who: Visitor, specId: string) => who.get(specPage.loader, `/specs/${specId}`, { specId });
 const fetchFile = (who: Visitor, specId: string, attachmentId: string) =>
@@ -31,9 +30,7 @@ beforeAll(async () => {
   const quotation = { ...SPEC_ANSWERS.quotation, dateNeeded: needed, notes: "Paint RAL 5015.\nAccess through a 2 m door." };
   for (const [step, answers] of Object.entries({ ...SPEC_ANSWERS, quotation }))
     await saveStep(buyer, published.id, { step: step as keyof typeof SPEC_ANSWERS, answers, complete: true });
-  const form = new FormData();
-  form.set("intent", "upload");
-  form.append("files", new File([PDF_BYTES], "Lift frame.pdf", { type: "application/pdf" }));
+  const form = uploadForm(pdf("Lift frame.pdf"));
   const uploaded = await call(
     attachments.action,
     owner.request(`/specs/${published.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }),

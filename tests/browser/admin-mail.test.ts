@@ -3,25 +3,15 @@
 // queue, which the server's sender delivers.
 import path from "node:path";
 import { randomUUID } from "node:crypto";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it, onTestFinished } from "vitest";
 import { OutboxMail } from "~/models/index.server";
 import { MAX_ATTEMPTS } from "~/services/mail.server";
 import { PASSWORD, makeOperatorUser, uniqueEmail } from "../support/factories";
-import { SCREENSHOTS, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { SCREENSHOTS, signInAs, startBrowserApp } from "../support/browser";
 import { waitForMail } from "../support/mailbox";
 
-let app: BrowserApp;
-
-beforeAll(async () => {
-  app = await startBrowserApp();
-}, 120_000);
-
-afterAll(async () => {
-  await app?.close();
-});
-
 describe("the admin's mail page", () => {
-  it("shows the scheduled work running and sends a failed mail again", { timeout: 90_000 }, async () => {
+  it("shows the scheduled work running and sends a failed mail again", { timeout: 200_000 }, async () => {
     const admin = await makeOperatorUser("admin");
     const to = uniqueEmail("lost");
     // A mail that failed for good while the mail server refused it.
@@ -37,6 +27,8 @@ describe("the admin's mail page", () => {
       jobId: randomUUID(),
     });
 
+    const app = await startBrowserApp();
+    onTestFinished(() => app.close());
     const page = await app.newPage();
     await page.setViewportSize({ width: 1366, height: 768 });
     await signInAs(page, admin.email, PASSWORD);

@@ -38,6 +38,30 @@ describe("two work queues on one database", () => {
   });
 });
 
+describe("two servers running the schedules", () => {
+  it("run a scheduled job that came twice (two cron ticks, one on each) and tell its event once", async () => {
+    const buyer = await makeMember("buyer");
+    const spec = await makePublishedSpec(buyer, { machine: { title: "Roll former" }, quotation: { bidDeadline: inDays(22) } });
+    await Spec.update({ bidDeadline: new Date(Date.now() - 60_000) }, { where: { id: spec.id } });
+    const deadlines = SCHEDULES.find((s) => s.queue === QUEUES.bidDeadlines)!;
+
+    const servers = [createWorkQueue({ schedule: false, supervise: false }), createWorkQueue({ schedule: false, supervise: false })];
+    try {
+      for (const boss of servers) {
+        await boss.start();
+        await boss.work(deadlines.queue, () => deadlines.run(new Date()));
+      }
+      const ids = await Promise.all(servers.map((boss) => boss.send(deadlines.queue, {})));
+      const finished = () =>
+        sequelize.query("SELECT id FROM pgboss.job WHERE id IN (:ids) AND state = 'completed'", { replacements: { ids }, type: QueryTypes.SELECT });
+      await expect.poll(async () => (await finished()).length, { timeout: 15_000, interval: 250 }).toBe(2);
+    } finally {
+      await Promise.all(servers.map((boss) => boss.stop({ graceful: true, timeout: 2_000 })));
+    }
+    expect(await OutboxMail.count({ where: { to: buyer.email, subject: "No bids on Roll former" } })).toBe(1);
+  });
+});
+
 describe("an app server's background work", () => {
   it("schedules each job by cron, runs a scheduled job's handler and sends the mail it queues, then stops", async () => {
     const buyer = await makeMember("buyer");

@@ -241,8 +241,13 @@ describe("services refuse the wrong person themselves", () => {
     ["addManagerNote: the shop", "shop", 403, () => addManagerNote(people.shop, id("job"), { body: "Internal" })],
     ["addManagerNote: another account's manager", "other mgr", 404, () => addManagerNote(people["other mgr"], id("job"), { body: "Internal" })],
     ["startRetainerPayment: the account's manager", "manager", 403, () => startRetainerPayment(people.manager, id("job"))],
-    ["requestRefund: the buyer", "buyer", 403, () => requestRefund(people.buyer, id("payment"), { reason: "Mine" })],
-    ["requestRefund: another account's manager", "other mgr", 404, () => requestRefund(people["other mgr"], id("payment"), { reason: "Not mine" })],
+    ["requestRefund: the buyer", "buyer", 403, () => requestRefund(people.buyer, id("payment"), { amountCents: 100, reason: "Mine" })],
+    [
+      "requestRefund: another account's manager",
+      "other mgr",
+      404,
+      () => requestRefund(people["other mgr"], id("payment"), { amountCents: 100, reason: "Not mine" }),
+    ],
     ["decideShop: an account manager", "manager", 403, () => decideShop(people.manager, id("pending-shop"), { decision: "approve" })],
     [
       "assignAccountManager: an account manager",

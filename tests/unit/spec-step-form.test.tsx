@@ -3,12 +3,12 @@
  * JavaScript (the page is then rendered from the action's reply alone), and a fresh step shows
  * the usual choices.
  */
-import type { SubmissionResult } from "@conform-to/react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { createRoutesStub } from "react-router";
 import { describe, expect, it } from "vitest";
 import { SpecStepForm, type SpecStepFormProps } from "~/components/spec-step-form";
 import { specSteps } from "~/content/spec-steps";
+import { refused } from "../support/conform";
 
 const SPEC = "7b0c8f5e-3d1a-4c59-9a39-0f6f4f1d2a11";
 const AXES = [
@@ -35,13 +35,6 @@ function render(props: Partial<Omit<SpecStepFormProps, "step">> & { step: string
   const Stub = createRoutesStub([{ path: "/specs/:specId/edit/:step", Component: () => <SpecStepForm {...all} /> }]);
   return renderToStaticMarkup(<Stub initialEntries={[`/specs/${SPEC}/edit/${props.step}`]} />);
 }
-
-/** What the action answers when a step is refused: Conform's reply, with what was posted. */
-const refused = (initialValue: Record<string, string>, error: Record<string, string[]>): SubmissionResult<string[]> => ({
-  status: "error",
-  initialValue,
-  error,
-});
 
 describe("SpecStepForm", () => {
   it("keeps a typed title and purpose after a refused machine step, with the error beside the field", () => {

@@ -16,6 +16,7 @@ export {
   bidsWhere,
   findInScope,
   jobsWhere,
+  offerDocumentsWhere,
   organisationsWhere,
   paymentsWhere,
   questionsWhere,

@@ -41,6 +41,22 @@ export function bidsWhere(viewer: Viewer): WhereOptions<Bid> {
   return NOTHING;
 }
 
+/**
+ * Bids whose documents (quotation, datasheets, drawings) the viewer may read: a shop its own, the
+ * buyer the offered bids on its specs, and, unlike the bids themselves, the buyer's account
+ * manager and admins the offered bids on the specs of the accounts they manage.
+ */
+export function offerDocumentsWhere(viewer: Viewer): WhereOptions<Bid> {
+  if (!isOperator(viewer)) return bidsWhere(viewer);
+  const specs =
+    viewer.accounts === "all"
+      ? sequelize.literal("(SELECT id FROM specs)")
+      : viewer.accounts.length
+        ? sequelize.literal(`(SELECT id FROM specs WHERE organisation_id IN (${viewer.accounts.map((id) => sequelize.escape(id)).join(", ")}))`)
+        : null;
+  return specs ? { status: [...OFFERED_BID_STATUSES], specId: { [Op.in]: specs } } : NOTHING;
+}
+
 /** Jobs: the buyer's and the shop's own, an account manager's accounts', an admin every one. */
 export function jobsWhere(viewer: Viewer): WhereOptions<Job> {
   if (viewer.role === "buyer") return { buyerOrganisationId: viewer.organisationId };

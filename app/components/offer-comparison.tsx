@@ -1,6 +1,8 @@
 import { Badge } from "./ui";
 import { EXTRA_ANSWER_LABELS } from "~/content/offer-terms";
 import type { ComparisonColumn, ExtraRow } from "~/services/bid-comparison";
+import type { AttachmentView } from "~/services/attachments.server";
+import { formatBytes } from "./attachment-uploader";
 
 // The comparison's rows beyond the bill: the work each offer covers lined up by kind, the shop's
 // own lines, what each leaves out, the terms side by side, its documents and an alternative
@@ -99,6 +101,37 @@ export function OfferTermsRows({ columns, money }: { columns: ComparisonColumn[]
         </tr>
       ))}
     </>
+  );
+}
+
+/** The shop's documents on each offer, each a download. */
+export function OfferDocumentsRow({ columns, documents }: { columns: ComparisonColumn[]; documents: Record<string, AttachmentView[]> }) {
+  return (
+    <tr className="border-t border-ink-100 align-top">
+      <th scope="row" className={rowHead}>
+        Documents
+      </th>
+      {columns.map((c) => (
+        <td key={c.id} className="p-3 text-left text-xs" data-documents={c.id}>
+          {documents[c.id]?.length ? (
+            <ul className="space-y-1">
+              {documents[c.id].map((doc) => (
+                <li key={doc.id}>
+                  <a href={doc.downloadUrl} download className="font-semibold text-flow-700 hover:underline">
+                    {doc.fileName}
+                  </a>
+                  <span className="block text-ink-600">
+                    {doc.kindLabel} · {formatBytes(doc.sizeBytes)}
+                  </span>
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <span className="text-ink-400">none</span>
+          )}
+        </td>
+      ))}
+    </tr>
   );
 }
 

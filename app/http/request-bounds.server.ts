@@ -18,7 +18,7 @@ export const REQUEST_LIMITS = {
 } as const;
 
 /** Routes whose action takes multipart uploads; everywhere else multipart is refused. */
-const UPLOAD_PATH = /^\/(?:specs\/[^/]+\/attachments|jobs\/[^/]+\/(?:files|handover))(\.data)?$/;
+const UPLOAD_PATH = /^\/(?:specs\/[^/]+\/(?:attachments|bid\/documents)|jobs\/[^/]+\/(?:files|handover))(\.data)?$/;
 
 export type BoundsProblem = { status: 400 | 413 | 415; message: string };
 

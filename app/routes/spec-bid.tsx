@@ -16,6 +16,8 @@ import { offerDefaults, typedExtras, typedOwnLines } from "~/content/offer-form"
 import { bidSchema, linesMatchBill } from "~/schemas/bid";
 import { bidOfShop, billOfRevision, bomOf, historyOf, saveBid, withdrawBid } from "~/services/bids.server";
 import { servedBy } from "~/services/published-design";
+import { ownOfferDocuments } from "~/services/offer-documents.server";
+import { OfferDocumentsCard } from "~/components/offer-documents";
 import { AlternativeCircuitFields, OfferExtrasFields, OfferTermsFields } from "~/components/offer-fields";
 import { offerTotals } from "~/content/offer-terms";
 import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
@@ -27,7 +29,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireRole(request, PAGE_ROLES.bidding);
   const spec = await specForReader(user, params.specId);
   const [{ bom, axisNames }, bid] = await Promise.all([billOfRevision(spec), bidOfShop(user, spec)]);
-  const history = bid ? await historyOf(bid) : [];
+  const [history, documents] = await Promise.all([bid ? historyOf(bid) : [], ownOfferDocuments(spec, bid)]);
   const offered = new Map((bid?.lines ?? []).map((l) => [l.key, l]));
   return {
     spec: {
@@ -73,6 +75,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       ...offerDefaults(bid),
       notes: bid?.notes ?? "",
     },
+    documents,
     history: history.map((v) => ({
       id: v.id,
       version: v.version,
@@ -370,6 +373,8 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
           </Button>
         </Form>
       ) : null}
+
+      <OfferDocumentsCard specId={d.spec.id} documents={d.documents} canChange={d.spec.accepting && d.bid !== null} saved={d.bid !== null} />
 
       {d.history.length ? (
         <Card className="mt-8">

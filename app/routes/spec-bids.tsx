@@ -18,7 +18,8 @@ import { COMPARISON_SORTS, type ComparisonSort } from "~/services/bid-comparison
 import { comparisonOf } from "~/services/bids.server";
 import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
 import { specOfOwner } from "~/services/spec-access.server";
-import { AlternativeCircuits, ExtraRows, OfferTermsRows } from "~/components/offer-comparison";
+import { AlternativeCircuits, ExtraRows, OfferDocumentsRow, OfferTermsRows } from "~/components/offer-comparison";
+import { documentsOfBids } from "~/services/offer-documents.server";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Bids · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
 
@@ -31,6 +32,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const sortParam = url.searchParams.get("sort") ?? "total";
   const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam) ? (sortParam as ComparisonSort) : "total";
   const [{ comparison }, job, canAward] = await Promise.all([comparisonOf(user, spec, sort), awardedJobOf(user, spec), canAwardNow(user, spec)]);
+  const documents = await documentsOfBids(
+    spec.id,
+    comparison.columns.map((c) => c.id),
+  );
   const choosing = comparison.columns.find((c) => c.id === url.searchParams.get("award") && c.status === "submitted") ?? null;
   return {
     spec: {
@@ -45,6 +50,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     },
     sort,
     comparison,
+    documents,
     jobId: job?.id ?? null,
     canAward,
     choosing: choosing && { ...choosing, retainerCents: retainerCents(choosing.totalCents, spec.retainerPercent ?? "0") },
@@ -332,6 +338,7 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 </tr>
                 {/* What each price includes and on what terms, beside the prices, so nobody awards blind. */}
                 <OfferTermsRows columns={columns} money={money} />
+                <OfferDocumentsRow columns={columns} documents={d.documents} />
                 <tr className="border-t border-ink-100 align-top">
                   <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
                     Notes from the shop

@@ -77,7 +77,7 @@ function parseProblem(error: unknown): string {
  * arrives and storing it, then holds every file to the kinds `allowed(fields)` permits. Any
  * problem (a file or the form) is a FieldErrors on "files", after what was stored is deleted.
  */
-export async function receiveJobUpload(request: Request, allowed: (fields: FormData) => readonly FileKind[]) {
+export async function receiveJobUpload(request: Request, allowed: (fields: FormData) => readonly FileKind[], prefix = STORAGE_PREFIX) {
   const staged: (StagedFile & { kind: FileKind })[] = [];
   const problems: string[] = [];
   const handleFile = async (file: FileUpload) => {
@@ -88,7 +88,7 @@ export async function receiveJobUpload(request: Request, allowed: (fields: FormD
     const check = file.size === 0 ? { ok: false as const, reason: "This file is empty (0 bytes)." } : checkFileType(fileName, head);
     if (!check.ok) problems.push(`${fileName}: ${check.reason}`);
     if (problems.length > 0 || !check.ok) return null;
-    const storageKey = newStorageKey(STORAGE_PREFIX);
+    const storageKey = newStorageKey(prefix);
     // Bytes in memory (the parser holds a part of at most 10 MB anyway): every storage adapter takes them.
     const { size } = await fileStorage().put(storageKey, new Uint8Array(await file.arrayBuffer()));
     staged.push({ fileName, contentType: FILE_KINDS[check.kind].mediaType, storageKey, sizeBytes: size, kind: check.kind });

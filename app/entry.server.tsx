@@ -6,20 +6,15 @@ import { isbot } from "isbot";
 import { renderToPipeableStream, type RenderToPipeableStreamOptions } from "react-dom/server";
 import { env } from "~/env.server";
 import { nonceContext } from "~/http/request-context.server";
-import { startBackgroundWork } from "~/services/background-work.server";
+import { keepStartingBackgroundWork } from "~/services/background-work.server";
 
 // Checked when the server starts, not on the first request: a bad setting stops it with a message.
 const settings = env();
 // Each app server process runs the background work (mail, schedules) on pg-boss, which runs each
 // job once across all of them. Kept on globalThis so the dev server's reloads start it once. Tests
 // run what they need themselves.
-const running = globalThis as unknown as { __tenderflowBackgroundWork?: Promise<(() => Promise<void>) | null> };
-if (settings.NODE_ENV !== "test") {
-  running.__tenderflowBackgroundWork ??= startBackgroundWork().catch((error) => {
-    console.error("Background work did not start:", error);
-    return null;
-  });
-}
+const running = globalThis as unknown as { __tenderflowBackgroundWork?: Promise<() => Promise<void>> };
+if (settings.NODE_ENV !== "test") running.__tenderflowBackgroundWork ??= keepStartingBackgroundWork();
 
 /** Stops the background work cleanly (app/serve.server.ts calls it on Ctrl-C or SIGTERM). */
 export async function stopBackgroundWork() {

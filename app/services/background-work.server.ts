@@ -38,10 +38,24 @@ export const SCHEDULES: Scheduled[] = [
 /** How long a stop waits for running jobs before handing them back for a retry elsewhere (within serve's own 3 s). */
 const STOP_TIMEOUT_MS = 2_500;
 
+/**
+ * Starts the background work, trying again every 30 s while it cannot (the database unreachable
+ * as the server boots), so a server that came up early still sends mail once the database is back.
+ */
+export async function keepStartingBackgroundWork(retryMs = 30_000): Promise<() => Promise<void>> {
+  for (;;) {
+    try {
+      return await startBackgroundWork();
+    } catch (error) {
+      console.error(`Background work did not start; trying again in ${retryMs / 1000} s:`, error);
+      await new Promise((resolve) => setTimeout(resolve, retryMs).unref());
+    }
+  }
+}
+
 /** Starts the work queue, the mail sender and the schedules; resolves to a function that stops them cleanly. */
 export async function startBackgroundWork(): Promise<() => Promise<void>> {
   const boss = workQueue();
-  boss.on("error", (error) => console.error("Background work:", error));
   await boss.start();
   // Migration 0016 made them; a queue added since is made here (a no-op for existing ones).
   for (const name of Object.values(QUEUES)) await boss.createQueue(name);

@@ -47,8 +47,12 @@ export function inTransaction(transaction: Transaction): PgBoss.Db {
 }
 
 /** A pg-boss on the app's database; `options` for a test's own second instance. */
-export const createWorkQueue = (options: Omit<PgBoss.ConstructorOptions, "db" | "schema"> = {}) =>
-  new PgBoss({ ...options, db: appConnections, schema: QUEUE_SCHEMA });
+export function createWorkQueue(options: Omit<PgBoss.ConstructorOptions, "db" | "schema"> = {}) {
+  const boss = new PgBoss({ ...options, db: appConnections, schema: QUEUE_SCHEMA });
+  // Errors in its background loops (a lost connection) are logged; the loops carry on.
+  boss.on("error", (error) => console.error("Background work:", error));
+  return boss;
+}
 
 let boss: PgBoss | undefined;
 

@@ -2,14 +2,15 @@
 // (two servers) deliver each mail once; the background work an app server starts runs the
 // schedules' jobs, and the mail they queue goes out through the sender; it stops cleanly.
 import { randomBytes } from "node:crypto";
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { Op, QueryTypes } from "sequelize";
 import { OutboxMail, Spec, sequelize } from "~/models/index.server";
 import { enqueueMail, startMailSender } from "~/services/mail.server";
-import { SCHEDULES, startBackgroundWork } from "~/services/background-work.server";
+import { SCHEDULES, keepStartingBackgroundWork, startBackgroundWork } from "~/services/background-work.server";
 import { QUEUES, createWorkQueue, workQueue } from "~/services/work-queue.server";
 import { inDays, makeMember, makePublishedSpec } from "../support/factories";
 import { mailsTo } from "../support/mailbox";
+import { expectConsoleError } from "../support/console-errors";
 
 describe("two work queues on one database", () => {
   it("deliver each mail exactly once", async () => {
@@ -86,5 +87,20 @@ describe("an app server's background work", () => {
     // Stopped cleanly: no job is left claimed by it.
     const held = await sequelize.query("SELECT id FROM pgboss.job WHERE state = 'active'", { type: QueryTypes.SELECT });
     expect(held).toEqual([]);
+  });
+});
+
+describe("a server that boots while the database cannot be reached", () => {
+  it("says so and starts its background work when it can", async () => {
+    expectConsoleError(/Background work did not start; trying again/);
+    const start = vi.spyOn(workQueue(), "start").mockRejectedValueOnce(new Error("connect ECONNREFUSED 127.0.0.1:5432"));
+    const stop = await keepStartingBackgroundWork(20);
+    try {
+      expect(start).toHaveBeenCalledTimes(2);
+      expect((await workQueue().getSchedules()).length).toBe(SCHEDULES.length);
+    } finally {
+      await stop();
+      start.mockRestore();
+    }
   });
 });

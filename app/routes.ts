@@ -42,6 +42,7 @@ export default [
   route("jobs/:jobId/handover", "routes/job-handover.tsx"),
   route("jobs/:jobId/files", "routes/job-files.tsx"),
   route("jobs/:jobId/files/:fileId", "routes/job-file-download.ts"),
+  route("jobs/:jobId/balance", "routes/job-balance.tsx"),
   route("payments", "routes/payments.tsx"),
   route("payments/:paymentId/refund", "routes/payment-refund.tsx"),
   route("webhooks/stripe", "routes/webhooks.stripe.ts"),

@@ -7,7 +7,7 @@ import { formatMoney } from "~/content/money";
 import { PAYMENT_STATUS_LABELS, type PaymentStatus } from "~/content/payment-status";
 import { paymentOfSession } from "~/services/payments.server";
 
-export const meta: Route.MetaFunction = () => [{ title: "Retainer payment · Tenderflow" }];
+export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.purpose === "balance" ? "Balance" : "Retainer"} payment · Tenderflow` }];
 
 // Where the card service sends the buyer back. The payment counts only once its signed webhook
 // has arrived, so until then this page says "processing" and looks again every two seconds.
@@ -16,6 +16,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const { job, payment } = await paymentOfSession(user, params.jobId, new URL(request.url).searchParams.get("session_id"));
   return {
     jobId: job.id,
+    purpose: payment.purpose,
     status: payment.status as PaymentStatus,
     amount: formatMoney(payment.amountCents, payment.currency),
     failure: payment.failureMessage,
@@ -29,6 +30,7 @@ const POLL_MS = 2_000;
 export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
   const revalidator = useRevalidator();
   const waiting = d.status === "pending" || d.status === "failed";
+  const what = d.purpose === "balance" ? "balance" : "retainer";
   useEffect(() => {
     if (!waiting) return;
     const timer = setInterval(() => revalidator.state === "idle" && revalidator.revalidate(), POLL_MS);
@@ -37,7 +39,10 @@ export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
 
   return (
     <>
-      <PageHeader title="Retainer payment" lead={`${d.amount} · ${waiting ? "Processing" : PAYMENT_STATUS_LABELS[d.status]}`} />
+      <PageHeader
+        title={d.purpose === "balance" ? "Balance payment" : "Retainer payment"}
+        lead={`${d.amount} · ${waiting ? "Processing" : PAYMENT_STATUS_LABELS[d.status]}`}
+      />
       <Card className="max-w-xl space-y-4">
         {waiting ? (
           <div role="status" aria-live="polite" className="space-y-2">
@@ -49,16 +54,18 @@ export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
           </div>
         ) : d.duplicate ? (
           <Notice tone="warn">
-            The retainer had already been paid, so this second payment of {d.amount} is being refunded to your card in full. You will get an e-mail about it;
+            The {what} had already been paid, so this second payment of {d.amount} is being refunded to your card in full. You will get an e-mail about it;
             nothing else is needed from you.
           </Notice>
         ) : d.status === "paid" || d.status === "partially_refunded" || d.status === "refunded" ? (
-          <Notice tone="good">Paid: the retainer of {d.amount} has been received. A receipt is on its way to you, and the shop has been told.</Notice>
+          <Notice tone="good">
+            Paid: the {what} of {d.amount} has been received. A receipt is on its way to you, and the shop has been told.
+          </Notice>
         ) : (
           <>
             <Notice tone="warn">This payment attempt lapsed before it was completed. Nothing was charged.</Notice>
-            <Form method="post" action={`/jobs/${d.jobId}/pay`}>
-              <Button type="submit">Pay the retainer</Button>
+            <Form method="post" action={`/jobs/${d.jobId}/pay${d.purpose === "balance" ? "?for=balance" : ""}`}>
+              <Button type="submit">Pay the {what}</Button>
             </Form>
           </>
         )}

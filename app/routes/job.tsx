@@ -22,13 +22,20 @@ import { RetainerPanel } from "~/components/retainer-panel";
 import { RetainerBadge } from "~/components/retainer-badge";
 import { FileList, HandoverPanel, JobFilesPanel } from "~/components/job-handover";
 import { handoverPanelOf } from "~/services/job-handover.server";
+import { balancePanelOf } from "~/services/balance.server";
+import { BalancePanel } from "~/components/balance-panel";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.job.specTitle || "Job"} · Tenderflow` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  const [job, retainer, handover] = await Promise.all([jobFor(user, params.jobId), retainerPanelOf(user, params.jobId), handoverPanelOf(user, params.jobId)]);
-  return { job, retainer, handover, openable: await openableOrganisations(user, [job.buyerId, job.shopId]) };
+  const [job, retainer, handover, balance] = await Promise.all([
+    jobFor(user, params.jobId),
+    retainerPanelOf(user, params.jobId),
+    handoverPanelOf(user, params.jobId),
+    balancePanelOf(user, params.jobId),
+  ]);
+  return { job, retainer, handover, balance, openable: await openableOrganisations(user, [job.buyerId, job.shopId]) };
 }
 
 type ActionResult = { intent: JobActionIntent | null; result: SubmissionResult<string[]> };
@@ -79,7 +86,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 type Job = Route.ComponentProps["loaderData"]["job"];
 
 export default function JobPage({ loaderData, actionData }: Route.ComponentProps) {
-  const { job, retainer, handover } = loaderData;
+  const { job, retainer, handover, balance } = loaderData;
   const result = (intent: JobActionIntent) => (actionData?.intent === intent ? actionData.result : undefined);
   return (
     <>
@@ -135,6 +142,7 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
             actions (pay, record progress) come first, not under the milestones and the history. */}
         <div key={job.events.length} className="order-first space-y-6 lg:order-none">
           <HandoverPanel jobId={job.id} handover={handover} />
+          {handover.state !== "not_yet" || balance.paidAt ? <BalancePanel jobId={job.id} balance={balance} /> : null}
           {retainer.canPay || retainer.canRefund || retainer.payments.length ? (
             <RetainerPanel
               jobId={job.id}

@@ -75,3 +75,9 @@ export const managerNoteSchema = z.object({
 export const jobActionSchema = z.discriminatedUnion("intent", [reachSchema, undoSchema, targetSchema, progressNoteSchema, managerNoteSchema]);
 export type JobAction = z.infer<typeof jobActionSchema>;
 export type JobActionIntent = JobAction["intent"];
+
+/** The account manager's record of a balance paid by bank transfer. */
+export const bankTransferSchema = z.object({
+  reference: text(200, "Enter the transfer's reference, as the bank statement shows it."),
+  paidOn: z.string({ error: "Enter the day the money arrived." }).trim().refine(isIsoDay, "Enter a date like 2026-09-30."),
+});

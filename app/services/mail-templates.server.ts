@@ -251,6 +251,34 @@ export function retainerReceivedMail(d: Retainer & { name: string; buyerName: st
   };
 }
 
+interface Balance extends Retainer {
+  buyerName: string;
+  shopName: string;
+  paidAt: Date;
+  method: "card" | "bank_transfer";
+  reference: string;
+}
+
+const howPaid = (d: Balance) => (d.method === "card" ? "by card" : "by bank transfer");
+
+/** The balance paid (by card, or a bank transfer recorded by Tenderflow): the buyer's receipt. */
+export function balanceReceiptMail(d: Balance & { name: string }): MailContent {
+  const amount = formatMoney(d.amountCents, d.currency);
+  return {
+    subject: `Receipt: balance of ${amount} for ${d.specTitle}`,
+    text: `Hello ${d.name},\n\nThank you: ${d.buyerName} has paid the balance of ${amount} for "${d.specTitle}" to ${d.shopName} ${howPaid(d)}, received on ${formatDay(d.paidAt)}.\n${d.reference ? `Reference: ${d.reference}\n` : ""}With the retainer, the job is paid in full.\n\nThe job: ${jobLink(d.jobId)}\n`,
+  };
+}
+
+/** To the shop's people: the balance is in. */
+export function balanceReceivedMail(d: Balance & { name: string }): MailContent {
+  const amount = formatMoney(d.amountCents, d.currency);
+  return {
+    subject: `Balance received: ${amount} for ${d.specTitle}`,
+    text: `Hello ${d.name},\n\n${d.buyerName} has paid the balance of ${amount} for "${d.specTitle}" ${howPaid(d)}, received on ${formatDay(d.paidAt)}. The job is paid in full: ${jobLink(d.jobId)}\n`,
+  };
+}
+
 /** To the buyer who paid a retainer twice; `refused` is the card service's refusal of the automatic refund. */
 export function secondChargeToPayerMail(d: Retainer & { name: string; reference: string; refused: string | null }): MailContent {
   const amount = formatMoney(d.amountCents, d.currency);

@@ -3,6 +3,7 @@ import { QueryTypes } from "sequelize";
 import { Job, Payment, sequelize } from "~/models/index.server";
 import { OPEN_PAYMENT_STATUSES } from "~/models/payment.server";
 import { settleCompletedSession } from "./retainer-settlement.server";
+import { isPaid } from "./balance.server";
 import { isMissingAtStripe, stripe } from "./stripe.server";
 
 // Asking Stripe, not the clock, what became of a payment's Checkout Session, and acting on the
@@ -111,7 +112,7 @@ async function reconcileOne(id: string): Promise<string> {
   if (state.kind === "open") {
     // The job was paid through another attempt: this session must not take a second charge.
     const job = await Job.findByPk(payment.jobId, { rejectOnEmpty: true });
-    if (!job.retainerPaidAt) return "still open";
+    if (!isPaid(job, payment.purpose)) return "still open";
     state = await retireCheckout(payment);
   }
   return state.kind === "completed" ? state.outcome : "expired";

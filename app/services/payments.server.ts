@@ -10,7 +10,8 @@ import { FieldErrors, notFound } from "./errors.server";
 import { scopedJob } from "./job-reads.server";
 import { pageCountOf, pageOf } from "./list-query.server";
 import { authorize, can, findInScope, paymentsWhere, viewerOf } from "~/auth/access-policy.server";
-import { OPEN_PAYMENT_STATUSES } from "~/models/payment.server";
+import { OPEN_PAYMENT_STATUSES, type PaymentPurpose } from "~/models/payment.server";
+import { balanceCentsOf, balanceRefusal, isPaid } from "./balance.server";
 import { retireCheckout, syncPayment } from "./payment-sync.server";
 import { isMissingAtStripe, stripe } from "./stripe.server";
 
@@ -46,22 +47,27 @@ async function customerOf(organisation: Organisation, payer: User): Promise<stri
   return customer.id;
 }
 
-/** The job's open attempt, or a new one; the job row lock makes two clicks share one. */
-async function openPaymentOf(job: Job, user: User): Promise<Payment> {
+/** The job's open attempt for `purpose`, or a new one; the job row lock makes two clicks share one. */
+async function openPaymentOf(job: Job, user: User, purpose: PaymentPurpose): Promise<Payment> {
   return sequelize.transaction(async (transaction) => {
     const locked = await Job.findByPk(job.id, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
-    if (locked.retainerPaidAt) throw new FieldErrors({ "": ["The retainer is already paid."] });
-    const open = await Payment.findOne({ where: { jobId: job.id, status: [...OPEN_PAYMENT_STATUSES] }, transaction });
-    return open ?? Payment.create(newAttempt(job, user.id), { transaction });
+    if (isPaid(locked, purpose)) throw new FieldErrors({ "": [`The ${purpose} is already paid.`] });
+    const open = await Payment.findOne({ where: { jobId: job.id, purpose, status: [...OPEN_PAYMENT_STATUSES] }, transaction });
+    return open ?? Payment.create(newAttempt(locked, user.id, purpose), { transaction });
   });
 }
 
-/** A new payment attempt for the job's retainer, before any session exists. */
-export const newAttempt = (job: Pick<Job, "id" | "buyerOrganisationId" | "retainerCents" | "currency">, createdById: string) => ({
+/** A new payment attempt for the job's retainer (or balance), before any session exists. */
+export const newAttempt = (
+  job: Pick<Job, "id" | "buyerOrganisationId" | "retainerCents" | "totalCents" | "currency">,
+  createdById: string,
+  purpose: PaymentPurpose = "retainer",
+) => ({
   jobId: job.id,
+  purpose,
   buyerOrganisationId: job.buyerOrganisationId,
   createdById,
-  amountCents: job.retainerCents,
+  amountCents: purpose === "balance" ? balanceCentsOf(job) : job.retainerCents,
   currency: job.currency,
   checkoutSessionId: null,
   checkoutUrl: null,
@@ -72,11 +78,11 @@ export const newAttempt = (job: Pick<Job, "id" | "buyerOrganisationId" | "retain
 });
 
 /** Whether an open session may be handed out again: same money, and time left to pay. */
-function stillUsable(session: Stripe.Checkout.Session, job: Job) {
+function stillUsable(session: Stripe.Checkout.Session, payment: Payment) {
   return (
     Boolean(session.url) &&
-    session.amount_total === job.retainerCents &&
-    session.currency === job.currency.toLowerCase() &&
+    session.amount_total === payment.amountCents &&
+    session.currency === payment.currency.toLowerCase() &&
     session.expires_at * 1000 > Date.now() + MIN_SESSION_LEFT_MS
   );
 }
@@ -90,6 +96,7 @@ async function newCheckout(payment: Payment, job: Job, user: User): Promise<stri
   const customer = await customerOf(organisation, user);
   const metadata = { payment_id: payment.id, job_id: job.id };
   const base = env().APP_URL;
+  const balance = payment.purpose === "balance";
   const session = await stripe().checkout.sessions.create(
     {
       mode: "payment",
@@ -100,17 +107,19 @@ async function newCheckout(payment: Payment, job: Job, user: User): Promise<stri
           quantity: 1,
           price_data: {
             currency: job.currency.toLowerCase(),
-            unit_amount: job.retainerCents,
-            product_data: { name: `Retainer: ${spec.title}`, description: `${Number(job.retainerPercent)} % of the awarded bid of ${shop.name}` },
+            unit_amount: payment.amountCents,
+            product_data: balance
+              ? { name: `Balance: ${spec.title}`, description: `The rest of the price of the awarded bid of ${shop.name}, after the retainer` }
+              : { name: `Retainer: ${spec.title}`, description: `${Number(job.retainerPercent)} % of the awarded bid of ${shop.name}` },
           },
         },
       ],
       metadata,
-      payment_intent_data: { metadata, description: `Tenderflow retainer for ${spec.title}` },
+      payment_intent_data: { metadata, description: `Tenderflow ${payment.purpose} for ${spec.title}` },
       success_url: `${base}/jobs/${job.id}/payment?session_id={CHECKOUT_SESSION_ID}`,
       cancel_url: `${base}/jobs/${job.id}?payment=cancelled`,
     },
-    { idempotencyKey: `retainer-${payment.id}` },
+    { idempotencyKey: `${payment.purpose}-${payment.id}` },
   );
   await payment.update({ checkoutSessionId: session.id, checkoutUrl: session.url, customerId: customer });
   if (!session.url) throw new FieldErrors({ "": [SERVICE_DOWN] });
@@ -121,26 +130,35 @@ async function newCheckout(payment: Payment, job: Job, user: User): Promise<stri
  * Starts (or resumes) paying a job's retainer and gives the hosted payment page to send the
  * buyer to. Only a buyer of the job's organisation pays; a paid job is refused.
  */
-export async function startRetainerPayment(user: User, jobId: string | undefined): Promise<string> {
+export const startRetainerPayment = (user: User, jobId: string | undefined) => startCardPayment(user, jobId, "retainer");
+
+/** The same for the balance, once the shop has handed over (balanceRefusal says when not). */
+export const startBalancePayment = (user: User, jobId: string | undefined) => startCardPayment(user, jobId, "balance");
+
+async function startCardPayment(user: User, jobId: string | undefined, purpose: PaymentPurpose): Promise<string> {
   const job = await scopedJob(user, jobId);
-  authorize(await viewerOf(user), "job.payRetainer", job);
-  if (job.retainerPaidAt) throw new FieldErrors({ "": ["The retainer is already paid."] });
-  if (job.retainerCents <= 0) throw new FieldErrors({ "": ["This job has no retainer to pay."] });
+  authorize(await viewerOf(user), purpose === "balance" ? "job.payBalance" : "job.payRetainer", job);
+  if (isPaid(job, purpose)) throw new FieldErrors({ "": [`The ${purpose} is already paid.`] });
+  if (purpose === "retainer" && job.retainerCents <= 0) throw new FieldErrors({ "": ["This job has no retainer to pay."] });
+  if (purpose === "balance") {
+    const refusal = await balanceRefusal(job);
+    if (refusal) throw new FieldErrors({ "": [refusal] });
+  }
 
   try {
     // At most a stale attempt and an unknown one end before a fresh session is made.
     for (let round = 0; round < 3; round++) {
-      const payment = await openPaymentOf(job, user);
+      const payment = await openPaymentOf(job, user, purpose);
       if (!payment.checkoutSessionId) return await newCheckout(payment, job, user);
       let state = await syncPayment(payment);
-      if (state.kind === "open" && !stillUsable(state.session, job)) state = await retireCheckout(payment);
+      if (state.kind === "open" && !stillUsable(state.session, payment)) state = await retireCheckout(payment);
       if (state.kind === "open") return state.session.url!;
       if (state.kind === "completed") {
-        const paid = (await Job.findByPk(job.id, { rejectOnEmpty: true })).retainerPaidAt;
+        const paid = isPaid(await Job.findByPk(job.id, { rejectOnEmpty: true }), purpose);
         throw new FieldErrors({
           "": [
             paid
-              ? "Your card payment has gone through: the retainer is paid."
+              ? `Your card payment has gone through: the ${purpose} is paid.`
               : "Your card payment went through; we are waiting for the card service to confirm it.",
           ],
         });
@@ -150,7 +168,7 @@ export async function startRetainerPayment(user: User, jobId: string | undefined
     throw new FieldErrors({ "": [SERVICE_DOWN] });
   } catch (error) {
     if (error instanceof Stripe.errors.StripeError) {
-      console.error("Stripe refused a retainer session:", error.message);
+      console.error(`Stripe refused a ${purpose} session:`, error.message);
       throw new FieldErrors({ "": [SERVICE_DOWN] });
     }
     throw error;
@@ -175,7 +193,7 @@ export async function retainerPanelOf(user: User, jobId: string | undefined) {
   const job = await scopedJob(user, jobId);
   const payments = can(viewer, "job.seePayments", job)
     ? await Payment.findAll({
-        where: { jobId: job.id },
+        where: { jobId: job.id, purpose: "retainer" },
         include: [{ model: Refund, as: "refunds", include: [{ model: User, as: "requestedBy", attributes: ["name"] }] }],
         order: [
           ["createdAt", "DESC"],

@@ -6,6 +6,7 @@ import { paymentSubject, recordAudit } from "./audit.server";
 import { enqueueMail } from "./mail.server";
 import { receiptMail, retainerReceivedMail, secondChargeToPayerMail, secondChargeToStaffMail } from "./mail-templates.server";
 import { recordRetainerReceived } from "./job-progress.server";
+import { isPaid, recordBalancePaid } from "./balance.server";
 import { stripe } from "./stripe.server";
 
 // The one path by which a payment becomes paid: the webhook's checkout.session.completed and the
@@ -58,9 +59,23 @@ export async function settleCompletedSession(transaction: Transaction, payment: 
     return `completed session: ${mismatch}; not applied`;
   }
   const job = await Job.findByPk(payment.jobId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
-  if (job.retainerPaidAt) return refundSecondCharge(transaction, payment, job, intentId!, paidAt);
+  if (isPaid(job, payment.purpose)) return refundSecondCharge(transaction, payment, job, intentId!, paidAt);
   await payment.update({ status: "paid", paidAt, paymentIntentId: intentId, failureMessage: null }, { transaction });
   await recordAudit({ actor: "system", action: "payment-paid", subject: paymentSubject(payment), details: { by: "card", reference: intentId } }, transaction);
+  if (payment.purpose === "balance") {
+    const payer = await User.findByPk(payment.createdById, { transaction });
+    await recordBalancePaid(transaction, {
+      jobId: job.id,
+      by: payer,
+      paidById: payment.createdById,
+      paidAt,
+      method: "card",
+      reference: intentId!,
+      amountCents: payment.amountCents,
+      paymentId: payment.id,
+    });
+    return "paid";
+  }
   await recordRetainerReceived(transaction, {
     jobId: payment.jobId,
     paidById: payment.createdById,

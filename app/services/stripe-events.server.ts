@@ -102,6 +102,20 @@ async function chargeRefunded(charge: z.infer<typeof chargeShape>, transaction: 
   }
   // A second charge paid back is not the job's retainer: the job and the shop are left alone.
   if (payment.duplicate) return `refunded ${newly} of a second charge`;
+  // A balance paid back is recorded in the job's history; the retainer's figures stay.
+  if (payment.purpose === "balance") {
+    await JobEvent.create(
+      {
+        jobId: payment.jobId,
+        userId: waiting[0]?.requestedById ?? payment.createdById,
+        kind: "balance_refunded",
+        milestone: null,
+        detail: { paymentId: payment.id, amountCents: newly, currency: payment.currency },
+      },
+      { transaction },
+    );
+    return `refunded ${newly} of a balance`;
+  }
   const job = await Job.findByPk(payment.jobId, { lock: transaction.LOCK.UPDATE, transaction, rejectOnEmpty: true });
   await job.update({ retainerRefundedCents: job.retainerRefundedCents + newly }, { transaction });
   const spec = await Spec.findByPk(job.specId, { transaction, rejectOnEmpty: true });

@@ -85,6 +85,8 @@ export function designPump(choice: PumpChoice, sized: { displacementCcRev: numbe
 }
 
 const hyd = (bar: number, lpm: number): number => (bar * lpm) / 600;
+/** A fixed or a double pump: no compensator to set, so no note on it and no power limiter. */
+const NO_COMPENSATOR = { compensatorBar: null, compensatorNote: null, powerLimitKw: null } as const;
 const step5 = (): number => A.reliefRoundingBar.value;
 const roundUp5 = (bar: number): number => Math.ceil(bar / step5() - 1e-9) * step5();
 const roundDown5 = (bar: number): number => Math.floor(bar / step5() + 1e-9) * step5();
@@ -126,10 +128,8 @@ function fixed(d: PhaseDemand, reason: string): PumpChoice {
     type: "fixed",
     displacementsCcRev: [d.displacementCc],
     unloadingBar: null,
-    compensatorBar: null,
     reliefBar: d.reliefBar,
-    compensatorNote: null,
-    powerLimitKw: null,
+    ...NO_COMPENSATOR,
     reason,
     phases: {
       approach: at(d.approachBar, q),
@@ -188,10 +188,8 @@ function double(d: PhaseDemand, reason: string): PumpChoice | null {
     type: "double",
     displacementsCcRev: [large, small],
     unloadingBar: pu,
-    compensatorBar: null,
     reliefBar: d.reliefBar,
-    compensatorNote: null,
-    powerLimitKw: null,
+    ...NO_COMPENSATOR,
     reason,
     phases: {
       // both sections deliver the whole flow (Q_L + Q_S = the pump's delivery)

@@ -120,10 +120,12 @@ export function AccountNotes({ notes, answer }: { notes: Note[]; answer: NoteAns
   return (
     <Card title="Notes on the account">
       <p className="mb-3 text-sm text-ink-600">For Tenderflow's staff only: the buyer never sees them.</p>
-      <NoteForm answer={answer} />
+      {/* Keyed by the count, so the box starts empty again once a note is added. */}
+      <NoteForm key={notes.length} answer={answer} />
       <ul className="mt-4 divide-y divide-ink-100 text-sm">
         {notes.map((n) => (
-          <li key={n.id} className="py-3">
+          // Keyed by the last edit too, so a saved note's editor closes.
+          <li key={`${n.id}-${n.updatedAt}`} className="py-3">
             <p className="break-words whitespace-pre-line">{n.body}</p>
             <p className="mt-1 text-xs text-ink-600">
               {n.author}, {formatMoment(n.createdAt)}

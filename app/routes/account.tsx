@@ -67,6 +67,9 @@ export default function OrganisationPageRoute({ loaderData, actionData }: Route.
         <div className="mt-6 grid gap-6 lg:grid-cols-3">
           <Card title="Who to contact">
             <OrganisationProfileCard profile={account.profile} />
+            {account.profile.quoteContact ? null : (
+              <p className="mt-2 text-sm text-ink-600">No contact for quotes given in their profile yet: the people below can all be reached.</p>
+            )}
           </Card>
           <div className="lg:col-span-2">
             <AccountNotes notes={account.notes} answer={actionData} />

@@ -28,22 +28,24 @@ const TONES: Partial<Record<AuditAction, "good" | "warn" | "bad">> = {
 };
 
 /** A text or date filter with its problem under it; what was typed stays in the field. */
-function FilterField({ name, label, type = "text", problem }: { name: AuditFilter; label: string; type?: string; problem?: string }) {
+function FilterField({ name, label, placeholder, problem }: { name: AuditFilter; label: string; placeholder?: string; problem?: string }) {
   const [params] = useSearchParams();
   const errorId = `${name}-error`;
   return (
-    <div>
+    <div className="max-w-56">
       <label htmlFor={name} className="block text-xs font-semibold text-ink-600">
         {label}
       </label>
       <input
         id={name}
         name={name}
-        type={type}
+        // Days are typed as text, not a date picker, so an impossible one comes back as it was typed.
+        type="text"
+        placeholder={placeholder}
         defaultValue={params.get(name) ?? ""}
         aria-invalid={problem ? true : undefined}
         aria-describedby={problem ? errorId : undefined}
-        className="mt-1 rounded-md px-2 py-1.5 text-sm ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
+        className="mt-1 w-full rounded-md px-2 py-1.5 text-sm ring-1 ring-ink-200 aria-[invalid=true]:ring-alarm-600"
       />
       <FieldErrorText id={errorId} errors={problem ? [problem] : undefined} />
     </div>
@@ -59,7 +61,7 @@ export default function AdminAudit({ loaderData: d }: Route.ComponentProps) {
         lead={`${countOf(d.total, "entry", "entries")}. Sign-ins, changes to people and shops, awards, payments and refunds, newest first; each entry keeps the names as they were.`}
       />
       <Card>
-        <Form method="get" className="mb-4 flex flex-wrap items-end gap-3" aria-label="Filter the audit log">
+        <Form method="get" className="mb-4 flex flex-wrap items-start gap-3" aria-label="Filter the audit log">
           <div>
             <label htmlFor="action" className="block text-xs font-semibold text-ink-600">
               What happened
@@ -81,9 +83,9 @@ export default function AdminAudit({ loaderData: d }: Route.ComponentProps) {
             <FieldErrorText id="action-error" errors={d.problems.action ? [d.problems.action] : undefined} />
           </div>
           <FilterField name="actor" label="Who (name or e-mail)" problem={d.problems.actor} />
-          <FilterField name="from" label="From (day, UTC)" type="date" problem={d.problems.from} />
-          <FilterField name="to" label="Until (day, UTC)" type="date" problem={d.problems.to} />
-          <Button type="submit" className="px-3 py-1.5">
+          <FilterField name="from" label="From (day, UTC)" placeholder="2026-03-01" problem={d.problems.from} />
+          <FilterField name="to" label="Until (day, UTC)" placeholder="2026-03-31" problem={d.problems.to} />
+          <Button type="submit" className="mt-5 px-3 py-1.5">
             Filter
           </Button>
         </Form>

@@ -39,6 +39,14 @@ const post = (visitor: Visitor, id: string, name: string, fields: Record<string,
 const load = (visitor: Visitor, id: string, name: string) => visitor.get(step.loader, `/specs/${id}/edit/${name}`, { specId: id, step: name });
 const reload = (id: string) => Spec.findByPk(id, { rejectOnEmpty: true });
 const axisIds = (spec: Spec) => spec.answers.machine.axes.split(" ");
+/** The cycle step's answers: for each axis, the step it extends in and the step it retracts in. */
+const cycleAnswers = (steps: Record<string, [extend: number, retract: number]>) =>
+  Object.fromEntries(
+    Object.entries(steps).flatMap(([axis, [out, back]]) => [
+      [`extend-${axis}`, String(out)],
+      [`retract-${axis}`, String(back)],
+    ]),
+  );
 
 async function newDraft(visitor: Visitor) {
   const created = await visitor.post(specNew.action, "/specs/new", {});
@@ -155,22 +163,10 @@ describe("the axes of a machine", () => {
     // A cycle that moves one axis both ways at once is refused with the axis's name.
     await answerAxis(visitor, id, "axis01", CLAMP);
     await answerAxis(visitor, id, ram, RAM);
-    const clash = await post(visitor, id, "cycle", {
-      intent: "next",
-      "extend-axis01": "1",
-      "retract-axis01": "1",
-      [`extend-${ram}`]: "2",
-      [`retract-${ram}`]: "3",
-    });
+    const clash = await post(visitor, id, "cycle", { intent: "next", ...cycleAnswers({ axis01: [1, 1], [ram]: [2, 3] }) });
     expect(clash.status).toBe(400);
     expect(clash.data.result.error["retract-axis01"][0]).toMatch(/“Clamp” cannot extend and retract in the same step/);
-    const past = await post(visitor, id, "cycle", {
-      intent: "next",
-      "extend-axis01": "9",
-      "retract-axis01": "2",
-      [`extend-${ram}`]: "3",
-      [`retract-${ram}`]: "4",
-    });
+    const past = await post(visitor, id, "cycle", { intent: "next", ...cycleAnswers({ axis01: [9, 2], [ram]: [3, 4] }) });
     expect(past.data.result.error["extend-axis01"][0]).toMatch(/from 1 to 4/);
 
     // An axis step's error is beside its field, on that axis's page, and the other axis keeps its answers.
@@ -224,9 +220,9 @@ describe("publishing a machine", () => {
 
     // The cycle starts as one after another, and the page sizes the machine beside it.
     const cyclePage = await load(visitor, id, "cycle");
-    expect(cyclePage.data.stepAnswers).toEqual({ "extend-axis01": "1", "retract-axis01": "2", [`extend-${ram}`]: "3", [`retract-${ram}`]: "4" });
+    expect(cyclePage.data.stepAnswers).toEqual(cycleAnswers({ axis01: [1, 2], [ram]: [3, 4] }));
     // The press: clamp, press, ram back, unclamp.
-    const cycle = { "extend-axis01": "1", [`extend-${ram}`]: "2", [`retract-${ram}`]: "3", "retract-axis01": "4" };
+    const cycle = cycleAnswers({ axis01: [1, 4], [ram]: [2, 3] });
     expect((await post(visitor, id, "cycle", { intent: "next", ...cycle })).location).toBe(`/specs/${id}/edit/duty`);
     expect((await post(visitor, id, "duty", { intent: "next", ...DUTY })).status).toBe(302);
     expect((await post(visitor, id, "quotation", { intent: "next", ...QUOTATION })).status).toBe(302);
@@ -280,17 +276,7 @@ describe("publishing a machine", () => {
     expect(early.status).toBe(400);
     expect(early.data.publishError).toMatch(/Ejector: Mounting, Ejector: Load and motion, Cycle/);
     await answerAxis(visitor, id, ejector, CLAMP);
-    expect(
-      (
-        await post(visitor, id, "cycle", {
-          intent: "next",
-          "extend-axis01": "1",
-          "retract-axis01": "2",
-          [`extend-${ejector}`]: "3",
-          [`retract-${ejector}`]: "4",
-        })
-      ).status,
-    ).toBe(302);
+    expect((await post(visitor, id, "cycle", { intent: "next", ...cycleAnswers({ axis01: [1, 2], [ejector]: [3, 4] }) })).status).toBe(302);
     expect((await post(visitor, id, "review", { intent: "publish", cautionsRead: "on" })).status).toBe(302);
 
     const revisions = await SpecRevision.findAll({ where: { specId: id }, order: [["number", "ASC"]] });

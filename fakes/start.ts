@@ -14,6 +14,7 @@ import { DEMO_PASSWORD, DEMO_SIGN_INS, seedDemo } from "../db/seeds/demo";
 import { ROLE_LABELS } from "../app/auth/roles";
 import { run, serveBuild, stop } from "./processes";
 import { startS3Fake } from "./s3";
+import { importLocalUploads } from "./s3-import";
 import { startStripeFake } from "./stripe";
 
 const root = path.resolve(import.meta.dirname, "..");
@@ -97,6 +98,8 @@ async function main() {
 
   step(`Starting the S3 fake (files in .data/s3, http://127.0.0.1:${S3_PORT}, bucket tenderflow-files)`);
   const s3Fake = await startS3Fake({ port: S3_PORT, directory: path.join(dataDir, "s3"), bucket: "tenderflow-files" });
+  const imported = await importLocalUploads(path.join(dataDir, "uploads"), s3Fake.settings);
+  if (imported) console.log(`  copied ${imported} files from .data/uploads (kept as .data/uploads-copied-to-s3)`);
 
   const env = {
     ...process.env,

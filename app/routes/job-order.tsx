@@ -162,7 +162,8 @@ function Facts({ title, rows }: { title: string; rows: string[][] }) {
         {rows.map(([label, value]) => (
           <div key={label} className="flex justify-between gap-4 border-b border-ink-100 py-1">
             <dt className="text-ink-600">{label}</dt>
-            <dd className="whitespace-pre-wrap text-right font-semibold tabular-nums">{value}</dd>
+            {/* Several lines (the terms) read as a list, not a right-aligned block. */}
+            <dd className={`font-semibold whitespace-pre-wrap tabular-nums ${value.includes("\n") ? "text-left" : "text-right"}`}>{value}</dd>
           </div>
         ))}
       </dl>

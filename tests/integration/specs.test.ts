@@ -40,15 +40,19 @@ async function newDraft(visitor: Visitor) {
   return id;
 }
 
+/** A buyer signed in on a new draft, and a shop that is told when it is published. */
+async function draftAndShop() {
+  const visitor = await signedIn(await makeMember("buyer"));
+  const shop = await makeMember("shop");
+  return { shop, visitor, id: await newDraft(visitor) };
+}
+
 const stepPost = (visitor: Visitor, id: string, name: string, fields: Record<string, string>) =>
   visitor.post(step.action, `/specs/${id}/edit/${name}`, fields, { specId: id, step: name });
 
 describe("the spec form", () => {
   it("saves each step, resumes where the buyer left, and publishes with mail to the shops", async () => {
-    const buyer = await makeMember("buyer");
-    const shop = await makeMember("shop");
-    const visitor = await signedIn(buyer);
-    const id = await newDraft(visitor);
+    const { shop, visitor, id } = await draftAndShop();
 
     for (const [name, fields] of Object.entries(ANSWERS).slice(0, 3)) {
       const res = await stepPost(visitor, id, name, fields);
@@ -198,10 +202,7 @@ describe("the spec form", () => {
 
 describe("revising a published spec", () => {
   it("makes revision 2 with a fresh design, keeps revision 1 viewable, and tells the shops", async () => {
-    const buyer = await makeMember("buyer");
-    const shop = await makeMember("shop");
-    const visitor = await signedIn(buyer);
-    const id = await newDraft(visitor);
+    const { shop, visitor, id } = await draftAndShop();
     for (const [name, fields] of Object.entries(ANSWERS)) await stepPost(visitor, id, name, fields);
     await stepPost(visitor, id, "review", { intent: "publish", cautionsRead: "on" });
 

@@ -4,6 +4,10 @@ import { parseMachine, REQUIREMENT_LIMITS, RequirementsError, sizeCircuit, sizeM
 
 const AXIS = { orientation: "horizontal", massKg: 200, strokeMm: 300, extendSpeedMmS: 100, retractSpeedMmS: 150, mounting: "fixed-pinned" };
 const DUTY = { cyclesPerHour: 60, hoursPerDay: 8, supplyHz: 50 };
+const LIFT_AND_TILT = [
+  { ...AXIS, name: "Lift" },
+  { ...AXIS, name: "Tilt" },
+];
 
 function errorsOf(input: unknown): Record<string, string[]> {
   try {
@@ -18,10 +22,7 @@ function errorsOf(input: unknown): Record<string, string[]> {
 describe("parseMachine", () => {
   it("fills the default cycle: each axis in order extends, then retracts, one at a time", () => {
     const m = parseMachine({
-      axes: [
-        { ...AXIS, name: "Lift" },
-        { ...AXIS, name: "Tilt" },
-      ],
+      axes: LIFT_AND_TILT,
       ...DUTY,
     });
     expect(m.defaultSequence).toBe(true);
@@ -67,10 +68,7 @@ describe("parseMachine", () => {
 
   it("asks every axis to move in the cycle, and each at most once per step", () => {
     const errors = errorsOf({
-      axes: [
-        { ...AXIS, name: "Lift" },
-        { ...AXIS, name: "Tilt" },
-      ],
+      axes: LIFT_AND_TILT,
       ...DUTY,
       sequence: [
         [

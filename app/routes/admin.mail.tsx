@@ -35,7 +35,12 @@ export async function action({ request }: Route.ActionArgs) {
   }
 }
 
-const VIEW_LABELS: Record<MailView, string> = { failed: "Failed", waiting: "Waiting too long" };
+const VIEW_LABELS: Record<MailView, string> = { failed: "Failed", waiting: "Waiting too long", queued: "Queued now" };
+const EMPTY: Record<MailView, string> = {
+  failed: "No failed mail: everything queued has gone out or is still being tried.",
+  waiting: "No mail has been waiting long.",
+  queued: "Nothing is queued: every mail has gone out or failed.",
+};
 
 export default function AdminMail({ loaderData: d, actionData }: Route.ComponentProps) {
   const [searchParams] = useSearchParams();
@@ -43,7 +48,7 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
     <>
       <PageHeader
         title="Mail"
-        lead={`Mail that did not go out: failed after ${d.maxAttempts} attempts, or queued more than ${d.waitingMinutes} minutes ago and still waiting. Sending again gives a mail ${d.maxAttempts} fresh attempts.`}
+        lead={`Mail that did not go out (failed after ${d.maxAttempts} attempts, or queued more than ${d.waitingMinutes} minutes ago and still waiting) and all mail queued now. Sending again gives a mail ${d.maxAttempts} fresh attempts.`}
       />
       <ErrorNotice error={actionData?.error} />
       <Card>
@@ -60,9 +65,7 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
           ))}
         </nav>
         {d.mails.length === 0 ? (
-          <p className="py-6 text-center text-ink-600">
-            {d.view === "failed" ? "No failed mail: everything queued has gone out or is still being tried." : "No mail has been waiting long."}
-          </p>
+          <p className="py-6 text-center text-ink-600">{EMPTY[d.view]}</p>
         ) : (
           <>
             <SortChoice options={LIST_SORTS.mail} current={d.sort} search={searchParams} />
@@ -77,6 +80,7 @@ export default function AdminMail({ loaderData: d, actionData }: Route.Component
                   <td className="max-w-xs break-words text-ink-600">
                     {m.lastError ? <span title={m.lastError}>{m.lastError.length > 160 ? `${m.lastError.slice(0, 160)}…` : m.lastError}</span> : "—"}
                     {m.lastTriedAt ? <span className="block text-xs">Last tried {formatMoment(m.lastTriedAt)}</span> : null}
+                    {m.nextAttemptAt && m.attempts > 0 ? <span className="block text-xs">Next try {formatMoment(m.nextAttemptAt)}</span> : null}
                   </td>
                   <td className="whitespace-nowrap">{formatMoment(m.queuedAt)}</td>
                   <td>
@@ -105,9 +109,16 @@ function BackgroundWork({ queued, schedules }: Route.ComponentProps["loaderData"
   return (
     <Card className="mt-6" title="Background work">
       <p className="mb-3 text-sm text-ink-600">
-        {queued === 0
-          ? "No mail is queued: everything has gone out or failed."
-          : `${queued} mail${queued === 1 ? " is" : "s are"} queued to go out, most urgent first.`}
+        {queued === 0 ? (
+          "No mail is queued: everything has gone out or failed."
+        ) : (
+          <>
+            <Link to="?show=queued" className="text-flow-700 hover:underline">
+              {queued} mail{queued === 1 ? " is" : "s are"} queued
+            </Link>{" "}
+            to go out, most urgent first.
+          </>
+        )}
       </p>
       <ListTable label="Scheduled work" columns={["Work", "Runs", "Last finished", "Last failed"]}>
         {schedules.map((s) => (

@@ -10,8 +10,9 @@ import { QUEUE_SCHEMA } from "./work-queue.server";
 import { authorize, viewerOf } from "~/auth/access-policy.server";
 import type { User } from "~/models/index.server";
 
-// The admin's view of mail that did not go out: failed for good after the last attempt, or
-// still waiting long after it was queued (the mail server refuses it, or no sender runs).
+// The admin's view of mail that did not go out: failed for good after the last attempt, still
+// waiting long after it was queued (the mail server refuses it, or no sender runs), or everything
+// queued now with when it is tried next.
 // "Send again" puts a mail back in the queue with a fresh set of attempts. The body is never
 // shown: it can hold a sign-in link meant for its recipient only.
 
@@ -19,11 +20,13 @@ const MAIL_PAGE_SIZE = 25;
 /** A pending mail queued longer ago than this is shown as waiting too long. */
 export const WAITING_LONG_MINUTES = 15;
 
-export const MAIL_VIEWS = ["failed", "waiting"] as const;
+export const MAIL_VIEWS = ["failed", "waiting", "queued"] as const;
 export type MailView = (typeof MAIL_VIEWS)[number];
 
 function whereOf(view: MailView, now: Date): WhereOptions<OutboxMail> {
-  return view === "failed" ? { status: "failed" } : { status: "pending", createdAt: { [Op.lt]: new Date(now.getTime() - WAITING_LONG_MINUTES * 60_000) } };
+  if (view === "failed") return { status: "failed" };
+  if (view === "queued") return { status: "pending" };
+  return { status: "pending", createdAt: { [Op.lt]: new Date(now.getTime() - WAITING_LONG_MINUTES * 60_000) } };
 }
 
 // Each order ends on the id, so a page boundary never shows a mail twice or skips one.
@@ -55,7 +58,7 @@ export interface StuckMail {
   nextAttemptAt: string | null;
 }
 
-/** One page of failed or long-waiting mail in the order asked (the most recently tried first by default), with both counts. */
+/** One page of failed, long-waiting or queued mail in the order asked (the most recently tried first by default), with each view's count. */
 export async function mailNeedingAttention(
   admin: User,
   view: MailView,
@@ -63,8 +66,9 @@ export async function mailNeedingAttention(
   now = new Date(),
 ) {
   authorize(await viewerOf(admin), "platform.administer", null);
-  const [failed, waiting] = await Promise.all([OutboxMail.count({ where: whereOf("failed", now) }), OutboxMail.count({ where: whereOf("waiting", now) })]);
-  const total = view === "failed" ? failed : waiting;
+  const [failed, waiting, queued] = await Promise.all(MAIL_VIEWS.map((v) => OutboxMail.count({ where: whereOf(v, now) })));
+  const counts: Record<MailView, number> = { failed, waiting, queued };
+  const total = counts[view];
   const pageCount = pageCountOf(total, MAIL_PAGE_SIZE);
   const { page, offset, limit } = pageOf(Math.min(requestedPage ?? 1, pageCount), MAIL_PAGE_SIZE);
   const rows = await OutboxMail.findAll({
@@ -85,7 +89,7 @@ export async function mailNeedingAttention(
     lastTriedAt: m.attempts > 0 ? m.updatedAt.toISOString() : null,
     nextAttemptAt: m.status === "pending" ? m.nextAttemptAt.toISOString() : null,
   }));
-  return { mails, counts: { failed, waiting }, total, page, pageCount };
+  return { mails, counts, total, page, pageCount };
 }
 
 export interface ScheduledWork {

@@ -168,7 +168,7 @@ describe("the admin's mail page", () => {
     const visitor = await signedIn(admin);
     const page = await visitor.get(adminMail.loader, "/admin/mail");
     expect(page.status).toBe(200);
-    expect(page.data.counts).toEqual({ failed: 1, waiting: 1 });
+    expect(page.data.counts).toEqual({ failed: 1, waiting: 1, queued: 2 });
     expect(page.data.mails).toEqual([
       expect.objectContaining({
         id: failed.id,
@@ -183,6 +183,8 @@ describe("the admin's mail page", () => {
     expect(JSON.stringify(page.data)).not.toContain("secret link");
     const slow = await visitor.get(adminMail.loader, "/admin/mail?show=waiting");
     expect(slow.data.mails.map((m: { to: string }) => m.to)).toEqual(["slow@example.test"]);
+    const queued = await visitor.get(adminMail.loader, "/admin/mail?show=queued&sort=longest-waiting");
+    expect(queued.data.mails.map((m: { to: string }) => m.to)).toEqual(["slow@example.test", "fresh@example.test"]);
 
     const again = await visitor.post(adminMail.action, "/admin/mail", { intent: "send-again", mailId: failed.id });
     expect(again.status).toBe(302);

@@ -12,6 +12,10 @@ import { MILESTONES, TARGET_SHARES, type MilestoneKey } from "~/content/job-mile
 import { retainerCents } from "~/content/money";
 import { offerTotals } from "~/content/offer-terms";
 import { demoAlternativeCircuit, demoOfferParts } from "./demo-offers";
+import { buildOrderDocument, orderNumber } from "~/content/order-document";
+import { offerSummary, type OfferSummary } from "~/services/offer-summary";
+import { targetDates } from "~/services/job-schedule";
+import type { OrganisationProfile } from "~/components/organisation-profile";
 
 export const DEMO_PASSWORD = "tenderflow-demo";
 
@@ -539,7 +543,17 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
         );
       }
       if (offer.status === "won")
-        await seedJob(sequelize, transaction, { specId: row.id, bidId: bid.id, spec, offer, totalCents: totals.totalCents, userIds, orgIds, flat });
+        await seedJob(sequelize, transaction, {
+          specId: row.id,
+          bidId: bid.id,
+          spec,
+          offer,
+          totalCents: totals.totalCents,
+          userIds,
+          orgIds,
+          flat,
+          summary: offerSummary({ lines, units, currency: flat.currency, leadTimeWeeks: offer.leadTimeWeeks, validUntil: inDays(45), notes: "", ...parts }),
+        });
     }
     if (flat.title === "Panel press, main ram") await seedQuestions(sequelize, transaction, row.id, userIds, orgIds);
   }
@@ -594,6 +608,7 @@ async function seedJob(
     userIds: Map<string, string>;
     orgIds: Map<string, string>;
     flat: Record<string, string>;
+    summary: OfferSummary;
   },
 ) {
   const awardedDaysAgo = (a.spec.publishedDaysAgo ?? 1) - 26;
@@ -636,6 +651,7 @@ async function seedJob(
     replacements: { job: job.id, by: buyerAuthor, detail: JSON.stringify(awarded), at: awardedAt },
     transaction,
   });
+  await seedOrderConfirmation(sequelize, transaction, { ...a, jobId: job.id, awardedAt, awardedBy: a.spec.author });
   if (underway) {
     // Paid by card in the scenario's past; `npm start` puts this payment back into the Stripe fake.
     const paidAt = daysAgo(awardedDaysAgo - 2);
@@ -704,6 +720,60 @@ async function seedJob(
       },
     );
   }
+}
+
+/** The order confirmation the award made, as job-opening's makeOrderConfirmation builds it. */
+async function seedOrderConfirmation(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  a: {
+    jobId: string;
+    specId: string;
+    awardedAt: Date;
+    awardedBy: string;
+    spec: DemoSpec;
+    offer: { shop: string };
+    totalCents: number;
+    orgIds: Map<string, string>;
+    flat: Record<string, string>;
+    summary: OfferSummary;
+  },
+) {
+  const profile = async (name: string): Promise<OrganisationProfile> => {
+    const o = await sequelize.query<Record<string, string | null>>(
+      `SELECT name, kind, address, region, tax_number, quote_contact_name, quote_contact_email, quote_contact_phone FROM organisations WHERE id = :id`,
+      { replacements: { id: a.orgIds.get(name) }, type: QueryTypes.SELECT, transaction, plain: true },
+    );
+    const contact = o!.quote_contact_name || o!.quote_contact_email || o!.quote_contact_phone;
+    return {
+      name: o!.name!,
+      kind: o!.kind as OrganisationProfile["kind"],
+      address: o!.address,
+      region: o!.region,
+      taxNumber: o!.tax_number,
+      quoteContact: contact ? { name: o!.quote_contact_name, email: o!.quote_contact_email, phone: o!.quote_contact_phone } : null,
+    };
+  };
+  const [{ serial }] = await sequelize.query<{ serial: string }>("SELECT nextval('order_number_seq') AS serial", { type: QueryTypes.SELECT, transaction });
+  const number = orderNumber(a.awardedAt.getUTCFullYear(), Number(serial));
+  const retainer = retainerCents(a.totalCents, a.flat.retainerPercent);
+  const document = buildOrderDocument({
+    number,
+    issuedAt: a.awardedAt,
+    spec: { id: a.specId, title: a.flat.title, revision: 1 },
+    buyer: await profile(a.spec.organisation),
+    shop: await profile(a.offer.shop),
+    awardedBy: DEMO_ORGANISATIONS.flatMap((o) => o.users).find((u) => u.email === a.awardedBy)?.name ?? a.awardedBy,
+    offer: a.summary,
+    totalCents: a.totalCents,
+    retainerPercent: a.flat.retainerPercent,
+    retainerCents: retainer,
+    handoverBy: targetDates(a.awardedAt.toISOString().slice(0, 10), a.summary.terms.leadTimeWeeks).handed_over,
+  });
+  await sequelize.query(`INSERT INTO order_confirmations (job_id, number, document, created_at) VALUES (:job, :number, :document, :at)`, {
+    replacements: { job: a.jobId, number, document: JSON.stringify(document), at: a.awardedAt },
+    transaction,
+  });
 }
 
 /** The demo sign-ins, one per role, as `npm start` prints them. */

@@ -8,7 +8,7 @@ import * as paymentsRoute from "~/routes/payments";
 import * as adminUsersRoute from "~/routes/admin.users";
 import * as adminAuditRoute from "~/routes/admin.audit";
 import * as accountRoute from "~/routes/account";
-import { Bid, Job, JobEvent, Organisation, Spec, SpecRevision, sequelize } from "~/models/index.server";
+import { Bid, Job, JobEvent, OrderConfirmation, Organisation, Spec, SpecRevision, sequelize } from "~/models/index.server";
 import { readDraft, stepIdsOf } from "~/content/spec-draft";
 import { billOf } from "~/services/published-design";
 import { retainerCents } from "~/content/money";
@@ -96,6 +96,21 @@ describe("the demo scenario", () => {
     const res = await visitor.get(specPage.loader, `/specs/${press.id}`, { specId: press.id });
     expect(JSON.stringify(res.data.questions)).toContain("120 mm of clearance");
     expect(JSON.stringify(res.data.questions)).not.toContain("Ironbridge");
+  });
+
+  it("keeps an order confirmation with each job, its money the job's and its shop the awarded one", async () => {
+    for (const job of await Job.findAll({
+      include: [
+        { model: OrderConfirmation, as: "order" },
+        { model: Organisation, as: "shopOrganisation" },
+      ],
+    })) {
+      const order = (job.get("order") as OrderConfirmation).document;
+      expect(order.number).toMatch(/^TF-\d{4}-\d{6}$/);
+      expect(order).toMatchObject({ totalCents: job.totalCents, retainerCents: job.retainerCents, balanceCents: job.totalCents - job.retainerCents });
+      expect(order.shop.name).toBe((job.get("shopOrganisation") as Organisation).name);
+      expect(order.terms.length).toBeGreaterThan(0);
+    }
   });
 
   it("gives Nadia both jobs of her accounts, the late lift table first", async () => {

@@ -36,6 +36,14 @@ describe("the operator's side", () => {
       password: PASSWORD,
     });
 
+    // Every account manager's dashboard shows it too, until an admin assigns it.
+    const managerPage = await app.newPage();
+    await managerPage.setViewportSize({ width: 1366, height: 768 });
+    await signInAs(managerPage, manager.email, PASSWORD);
+    await managerPage.waitForURL("**/jobs");
+    await expect.poll(() => managerPage.getByRole("listitem").filter({ hasText: "Trevose Cider Presses" }).textContent()).toContain("unassigned");
+    await shot(managerPage, "0-dashboard-unassigned");
+
     // The admin's home lists the newcomer as unassigned; choosing a manager takes it off the list.
     const adminPage = await app.newPage();
     await adminPage.setViewportSize({ width: 1366, height: 768 });
@@ -51,10 +59,6 @@ describe("the operator's side", () => {
     expect((await Organisation.findByPk(newcomer.organisationId, { rejectOnEmpty: true })).accountManagerId).toBe(manager.id);
 
     // The manager's account view: notes added and edited, with who and when.
-    const managerPage = await app.newPage();
-    await managerPage.setViewportSize({ width: 1366, height: 768 });
-    await signInAs(managerPage, manager.email, PASSWORD);
-    await managerPage.waitForURL("**/jobs");
     await managerPage.goto(`/accounts/${newcomer.organisationId}`);
     await hydrated(managerPage);
     await managerPage.getByLabel("Add a note").fill("Jory wants a press for the autumn harvest; call in August.");
@@ -88,6 +92,26 @@ describe("the operator's side", () => {
     // Going back keeps what was typed.
     await managerPage.getByRole("button", { name: "Change the amount" }).click();
     await expect.poll(() => managerPage.getByLabel(`Amount (${job.currency})`).inputValue()).toBe("1250");
+
+    // The newcomer fills in its company profile; its contact for quotes is on the manager's account view.
+    const buyerPage = await app.newPage();
+    await buyerPage.setViewportSize({ width: 1366, height: 768 });
+    await signInAs(buyerPage, newcomer.email, PASSWORD);
+    await buyerPage.waitForURL("**/specs");
+    await buyerPage.goto("/settings");
+    await hydrated(buyerPage);
+    await buyerPage.getByLabel("Region").fill("UK — Cornwall");
+    await buyerPage.getByLabel("Tax number (VAT)").fill("not a tax number!");
+    await buyerPage.getByRole("button", { name: "Save the profile" }).click();
+    await expect.poll(() => buyerPage.getByText(/A tax number has letters, digits/).count()).toBe(1);
+    await buyerPage.getByLabel("Tax number (VAT)").fill("GB 987 6543 21");
+    await buyerPage.getByRole("group", { name: "Contact for quotes" }).getByLabel("Name").fill("Jory Trevose");
+    await buyerPage.getByRole("group", { name: "Contact for quotes" }).getByLabel("E-mail address").fill("presses@trevose.test");
+    await buyerPage.getByRole("button", { name: "Save the profile" }).click();
+    await expect.poll(() => buyerPage.getByRole("status").textContent()).toContain("Company profile saved");
+    await shot(buyerPage, "6-settings-profile");
+    await managerPage.goto(`/accounts/${newcomer.organisationId}`);
+    await expect.poll(() => managerPage.getByRole("region", { name: "Trevose Cider Presses" }).textContent()).toContain("presses@trevose.test");
 
     // The audit log, filtered to assignments, names who assigned whom.
     await adminPage.goto("/admin/users");

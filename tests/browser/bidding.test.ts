@@ -4,7 +4,8 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Bid, Job, Organisation, type Spec, type User } from "~/models/index.server";
-import { PASSWORD, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { PASSWORD, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { fillOfferTerms } from "../support/bid-page";
 import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
 
 let app: BrowserApp;
@@ -45,9 +46,7 @@ async function bid(page: Page, first: string, price: string, leadWeeks: string, 
     await page.getByRole("checkbox", { name: "Alternative" }).nth(1).check();
     await page.getByPlaceholder("Make, model and why").fill(alternative);
   }
-  await page.getByLabel("Lead time (weeks)").fill(leadWeeks);
-  await page.getByLabel("Offer valid until").fill(inDays(45));
-  await page.getByLabel("Terms").fill("Ex works, 30 days net.");
+  await fillOfferTerms(page, leadWeeks);
   return count;
 }
 
@@ -110,7 +109,7 @@ describe("bidding", () => {
     expect(await comparison.getByText("Included", { exact: false }).count()).toBe(1);
     const includedRow = comparison.locator("tbody tr").nth(2);
     expect(await includedRow.getByText("lowest", { exact: true }).count()).toBe(0);
-    expect(await comparison.getByText("Ex works, 30 days net.").count()).toBe(2);
+    expect(await comparison.getByText("EXW Leeds works (Ex Works, Incoterms 2020)").count()).toBe(2);
     await shot(buyerPage, "3-comparison");
     // The decision is in view on a laptop screen without scrolling; on a phone the first offer's prices are in view beside the lines.
     await buyerPage.setViewportSize({ width: 1366, height: 768 });

@@ -5,7 +5,8 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Bid, Job, type Spec, type User } from "~/models/index.server";
-import { PASSWORD, inDays, makeMember, makePublishedMachineSpec } from "../support/factories";
+import { PASSWORD, makeMember, makePublishedMachineSpec } from "../support/factories";
+import { fillOfferTerms } from "../support/bid-page";
 import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
 import { clampAndPress } from "../support/machines";
 
@@ -39,9 +40,7 @@ async function priceMachine(page: Page, price: string, leadWeeks: string) {
   const prices = page.locator('input[name$=".unitPrice"]');
   await expect.poll(() => prices.count()).toBe(machine.bom.length);
   for (let i = 0; i < machine.bom.length; i++) await prices.nth(i).fill(price);
-  await page.getByLabel("Lead time (weeks)").fill(leadWeeks);
-  await page.getByLabel("Offer valid until").fill(inDays(45));
-  await page.getByLabel("Terms").fill("Ex works, 30 days net.");
+  await fillOfferTerms(page, leadWeeks);
 }
 
 describe("bidding on a machine", () => {

@@ -23,6 +23,8 @@ export default [
   route("specs/:specId/questions/:questionId/answer", "routes/spec-question-answer.tsx"),
   route("specs/:specId/bid", "routes/spec-bid.tsx"),
   route("specs/:specId/bids", "routes/spec-bids.tsx"),
+  route("specs/:specId/bid/documents", "routes/spec-bid-documents.tsx"),
+  route("specs/:specId/bids/:bidId/documents/:documentId", "routes/offer-document-download.ts"),
   // Workbooks (resource routes): each loader checks who may read it.
   route("specs/:specId/bill.xlsx", "routes/spec-bill.xlsx.ts"),
   route("specs/:specId/bids.xlsx", "routes/spec-bids.xlsx.ts"),

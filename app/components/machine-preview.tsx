@@ -1,5 +1,5 @@
-import { useDeferredValue, useMemo } from "react";
-import { NotSizableError, RequirementsError, sizeMachine, type MachineDesign, type MachineMotion } from "~/hydraulics";
+import { useDeferredValue, useEffect, useMemo, useState } from "react";
+import type { MachineDesign, MachineMotion } from "~/hydraulics";
 import { machineProblems } from "~/content/machine-input";
 import type { UnitSystem } from "~/units";
 import { displayUnits } from "./circuit-diagram/format";
@@ -17,11 +17,28 @@ export interface MachineSizing {
   problems: string[];
 }
 
+type Engine = typeof import("~/content/machine-sizing");
+
+/**
+ * The engine, loaded once a machine is to be sized: it is a third of the spec form's script and
+ * only this step runs it in the browser, so the other steps (and quick sizing, which asks the
+ * API) never load it. Null until it has arrived, also on the server's first render.
+ */
+function useEngine(wanted: boolean): Engine | null {
+  const [engine, setEngine] = useState<Engine | null>(null);
+  useEffect(() => {
+    if (wanted && !engine) void import("~/content/machine-sizing").then(setEngine);
+  }, [wanted, engine]);
+  return engine;
+}
+
 /** Sizes the machine of the saved axes and duty with the cycle being chosen. */
 export function useMachineSizing(base: Record<string, unknown> | null, sequence: MachineMotion[][], axes: { id: string; name: string }[]): MachineSizing {
   const deferred = useDeferredValue(sequence);
+  const engine = useEngine(base !== null);
   return useMemo(() => {
-    if (!base) return { machine: null, problems: [] };
+    if (!base || !engine) return { machine: null, problems: [] };
+    const { sizeMachine, RequirementsError, NotSizableError } = engine;
     try {
       return { machine: sizeMachine({ ...base, sequence: deferred }), problems: [] };
     } catch (error) {
@@ -30,7 +47,7 @@ export function useMachineSizing(base: Record<string, unknown> | null, sequence:
       if (error instanceof NotSizableError) return { machine: null, problems: [error.message] };
       throw error;
     }
-  }, [base, deferred, axes]);
+  }, [base, deferred, axes, engine]);
 }
 
 export function MachinePreview({ machine, problems, assumed, system }: MachineSizing & { assumed: string[]; system: UnitSystem }) {

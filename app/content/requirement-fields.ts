@@ -1,4 +1,4 @@
-import { REQUIREMENT_DEFAULTS, requirementsSchema, type RequirementsInput } from "~/hydraulics";
+import { REQUIREMENT_DEFAULTS, REQUIREMENT_LIMITS, type RequirementsInput } from "~/hydraulics";
 import { fromDisplay, parseWithUnit, roundForDisplay, toDisplay, unitLabel, UNITS, type Quantity, type UnitSystem } from "~/units";
 
 // The questions a person answers about one axis: wording, examples, units and defaults, in one
@@ -387,14 +387,13 @@ export function shownValues(typed: TypedAnswers, system: UnitSystem): FormValues
   return shown;
 }
 
-/** The engine schema's bounds of a numeric field, in the app's units. */
+/**
+ * The engine's bounds of a numeric field, in the app's units: the limits its schema is built
+ * from, read as plain numbers so the page does not carry the schema library to show them.
+ */
 function schemaBounds(key: RequirementKey): { min: number | null; max: number | null } | null {
-  // Zod 4 keeps the number checks on the innermost type, below .optional() and .default().
-  let type = (requirementsSchema.shape as Record<string, unknown>)[key] as
-    { _zod: { def: { innerType?: unknown } }; minValue?: number | null; maxValue?: number | null } | undefined;
-  while (type?._zod.def.innerType) type = type._zod.def.innerType as typeof type;
-  if (!type || !("minValue" in type)) return null;
-  return { min: type.minValue ?? null, max: type.maxValue ?? null };
+  const limit = (REQUIREMENT_LIMITS as Partial<Record<string, { min: number; max: number }>>)[key];
+  return limit ? { min: limit.min, max: limit.max } : null;
 }
 
 /**

@@ -8,6 +8,7 @@ import os from "node:os";
 import { freePort } from "../../db/cluster";
 import { run, serveBuild, stop } from "../../fakes/processes";
 import { REQUESTS } from "./mix";
+import { bundle } from "./bundle";
 import { pages } from "./pages";
 import { withBenchStack } from "./stack";
 
@@ -111,7 +112,7 @@ async function api() {
   });
 }
 
-// `npm run bench -- api` runs only the named sections (engine, api, pages, open-specs); none runs all.
-const SECTIONS = { engine, api, pages, "open-specs": openSpecs } as const;
+// `npm run bench -- api` runs only the named sections (engine, api, pages, bundle, open-specs); none runs all.
+const SECTIONS = { engine, api, pages, bundle, "open-specs": openSpecs } as const;
 const asked = process.argv.slice(2).filter((name): name is keyof typeof SECTIONS => name in SECTIONS);
 for (const [name, section] of Object.entries(SECTIONS)) if (asked.length === 0 || asked.includes(name as keyof typeof SECTIONS)) await section();

@@ -276,13 +276,10 @@ async function refundableCents(payment: Payment, transaction?: Transaction) {
   return payment.amountCents - payment.refundedCents - Number(pending);
 }
 
-/** What a payment paid for, read by name so it works whether or not the payment row has a purpose yet (a retainer then). */
-const purposeOf = (payment: Payment) => ((payment.get({ plain: true }) as { purpose?: string }).purpose === "balance" ? "balance" : "retainer");
-
 /** The amount checked against what is left of a paid payment; throws the field error a person reads. */
 async function checkRefundable(payment: Payment, amountCents: number, transaction?: Transaction) {
   if (!["paid", "partially_refunded"].includes(payment.status) || !payment.paymentIntentId) {
-    throw new FieldErrors({ amount: ["Only a paid retainer can be paid back."] });
+    throw new FieldErrors({ amount: ["Only a paid retainer or balance can be paid back."] });
   }
   const left = await refundableCents(payment, transaction);
   if (left <= 0) throw new FieldErrors({ amount: ["Nothing is left to pay back."] });
@@ -304,7 +301,7 @@ export async function refundQuestion(user: User, paymentId: string | undefined, 
   authorize(viewer, "payment.refund", payment);
   await checkRefundable(payment, amountCents);
   const buyer = (payment as Payment & { buyerOrganisation: Organisation }).buyerOrganisation;
-  return refundQuestionText({ amountCents, paidCents: payment.amountCents, currency: payment.currency, what: purposeOf(payment), to: buyer.name });
+  return refundQuestionText({ amountCents, paidCents: payment.amountCents, currency: payment.currency, what: payment.purpose, to: buyer.name });
 }
 
 /**

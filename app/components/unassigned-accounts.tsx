@@ -29,7 +29,7 @@ export function UnassignedAccounts({
       <p className="mb-3 text-sm text-ink-600">
         {managers
           ? `${countOf(total, "new buyer account")} without an account manager, oldest first. Choose who follows each.`
-          : "New buyer accounts nobody follows yet. An administrator assigns each to an account manager; say if one is yours."}
+          : "New buyer accounts nobody follows yet. An administrator assigns each to an account manager on the Users page; say if one should be yours."}
       </p>
       <ul className="divide-y divide-ink-100">
         {accounts.map((a) => (

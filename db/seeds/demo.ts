@@ -124,7 +124,7 @@ interface DemoSpec {
 
 /** The scenario's specs: a press and a two-axis hemming cell open for bids, two awarded jobs and a tilting deck in draft. */
 function demoSpecs(): DemoSpec[] {
-  return [
+  const specs: DemoSpec[] = [
     {
       organisation: "Kestrel Forming Machines",
       author: "priya@kestrel-forming.test",
@@ -332,6 +332,20 @@ function demoSpecs(): DemoSpec[] {
       },
     },
   ];
+  // After the award: a dock leveller handed over and waiting for Tom's acceptance, and a tail lift
+  // accepted, its balance paid by bank transfer. Same duty as the lift table, their own titles.
+  const lift = specs.find((x) => x.answers.machine.title.startsWith("Scissor"))!;
+  const after = (title: string, publishedDaysAgo: number): DemoSpec => ({
+    ...lift,
+    publishedDaysAgo,
+    answers: {
+      ...lift.answers,
+      machine: { ...lift.answers.machine, title },
+      quotation: { ...lift.answers.quotation, bidDeadline: inDays(-publishedDaysAgo + 25) },
+    },
+  });
+  specs.push(after("Dock leveller, lift cylinder", 130), after("Tail lift, platform cylinder", 170));
+  return specs;
 }
 
 /** Demo offers: per spec title, each shop's price level (a factor on a list price per line). */
@@ -368,6 +382,8 @@ const DEMO_BIDS: Record<
     { shop: "Coldharbour Power Units", author: "ben@coldharbour-pu.test", factor: 0.95, status: "won", leadTimeWeeks: 8 },
     { shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 1.05, status: "not_selected", leadTimeWeeks: 9 },
   ],
+  "Dock leveller, lift cylinder": [{ shop: "Northgate Hydraulics", author: "sofia@northgate-hyd.test", factor: 0.99, status: "won", leadTimeWeeks: 10 }],
+  "Tail lift, platform cylinder": [{ shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 1.01, status: "won", leadTimeWeeks: 12 }],
   "Scissor lift table, main cylinder": [
     { shop: "Ironbridge Fluid Power", author: "aled@ironbridge-fluid.test", factor: 0.97, status: "won", leadTimeWeeks: 10 },
     { shop: "Northgate Hydraulics", author: "sofia@northgate-hyd.test", factor: 1.02, status: "not_selected", leadTimeWeeks: 11 },
@@ -613,9 +629,12 @@ async function seedJob(
 ) {
   const awardedDaysAgo = (a.spec.publishedDaysAgo ?? 1) - 26;
   const awardedAt = daysAgo(awardedDaysAgo);
-  const underway = a.flat.title.startsWith("Scissor");
+  // The lift table is under way; the dock leveller and the tail lift are handed over (the tail lift accepted, its balance paid).
+  const handedOver = a.flat.title.startsWith("Dock") || a.flat.title.startsWith("Tail");
+  const closed = a.flat.title.startsWith("Tail");
+  const underway = a.flat.title.startsWith("Scissor") || handedOver;
   // Demo progress: the lift table has its retainer, drawings and build done; its test is overdue.
-  const reached: MilestoneKey[] = underway ? ["retainer_received", "drawings_agreed", "in_build"] : [];
+  const reached: MilestoneKey[] = handedOver ? MILESTONES.map((m) => m.key) : underway ? ["retainer_received", "drawings_agreed", "in_build"] : [];
   const buyerAuthor = a.userIds.get(a.spec.author)!;
   const shopAuthor = a.userIds.get(a.offer.author)!;
   const job = await insert<{ id: string }>(
@@ -706,7 +725,15 @@ async function seedJob(
       );
     }
   }
-  if (underway) {
+  if (closed)
+    await seedClosing(sequelize, transaction, {
+      jobId: job.id,
+      buyerAuthor,
+      manager: a.userIds.get("nadia@tenderflow.test")!,
+      totalCents: a.totalCents,
+      flat: a.flat,
+    });
+  if (underway && !handedOver) {
     await sequelize.query(
       `INSERT INTO job_events (job_id, user_id, kind, body, visibility, created_at) VALUES (:job, :by, 'manager_note', :body, 'operator', :at)`,
       {
@@ -720,6 +747,35 @@ async function seedJob(
       },
     );
   }
+}
+
+/** The buyer accepted the handover yesterday; Nadia recorded the balance's bank transfer today. */
+async function seedClosing(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  a: { jobId: string; buyerAuthor: string; manager: string; totalCents: number; flat: Record<string, string> },
+) {
+  const balance = a.totalCents - retainerCents(a.totalCents, a.flat.retainerPercent);
+  const reference = "BACS MARLOW 0412";
+  await sequelize.query(
+    `UPDATE jobs SET accepted_at = :accepted, accepted_by_id = :buyer, balance_paid_at = :paid, balance_method = 'bank_transfer', balance_reference = :reference WHERE id = :job`,
+    { replacements: { accepted: daysAgo(1), buyer: a.buyerAuthor, paid: daysAgo(0), reference, job: a.jobId }, transaction },
+  );
+  await sequelize.query(
+    `INSERT INTO job_events (job_id, user_id, kind, milestone, detail, created_at) VALUES (:job, :buyer, 'handover_accepted', 'handed_over', '{}', :accepted),
+       (:job, :manager, 'balance_paid', NULL, :detail, :paid)`,
+    {
+      replacements: {
+        job: a.jobId,
+        buyer: a.buyerAuthor,
+        manager: a.manager,
+        accepted: daysAgo(1),
+        paid: daysAgo(0),
+        detail: JSON.stringify({ method: "bank_transfer", reference, amountCents: balance, currency: a.flat.currency, paymentId: null }),
+      },
+      transaction,
+    },
+  );
 }
 
 /** The order confirmation the award made, as job-opening's makeOrderConfirmation builds it. */

@@ -8,7 +8,9 @@ import * as paymentsRoute from "~/routes/payments";
 import * as adminUsersRoute from "~/routes/admin.users";
 import * as adminAuditRoute from "~/routes/admin.audit";
 import * as accountRoute from "~/routes/account";
-import { Bid, Job, JobEvent, OrderConfirmation, Organisation, Spec, SpecRevision, sequelize } from "~/models/index.server";
+import { Bid, Job, JobEvent, OrderConfirmation, Organisation, Spec, SpecRevision, User, sequelize } from "~/models/index.server";
+import { handoverPanelOf } from "~/services/job-handover.server";
+import { balancePanelOf } from "~/services/balance.server";
 import { readDraft, stepIdsOf } from "~/content/spec-draft";
 import { billOf } from "~/services/published-design";
 import { retainerCents } from "~/content/money";
@@ -30,9 +32,9 @@ describe("the demo scenario", () => {
 
   it("prices every offer exactly as the app would, against the frozen bill", async () => {
     const bids = await Bid.findAll({ include: [{ model: Spec, as: "spec" }] });
-    expect(bids.length).toBe(9);
+    expect(bids.length).toBe(11);
     // Every submitted demo offer states its terms; one proposes an alternative circuit.
-    expect(bids.filter((b) => b.offerTerms?.incoterm).length).toBe(9);
+    expect(bids.filter((b) => b.offerTerms?.incoterm).length).toBe(11);
     expect(bids.filter((b) => b.alternativeCircuit).length).toBe(1);
     for (const bid of bids) {
       const spec = (bid as Bid & { spec: Spec }).spec;
@@ -98,6 +100,15 @@ describe("the demo scenario", () => {
     expect(JSON.stringify(res.data.questions)).not.toContain("Ironbridge");
   });
 
+  it("has a job handed over and waiting for Tom's acceptance, and one accepted with its balance paid by bank transfer", async () => {
+    const tom = await User.findOne({ where: { email: "tom@marlow-decks.test" }, rejectOnEmpty: true });
+    const byTitle = async (title: string) => (await Job.findOne({ include: [{ model: Spec, as: "spec", where: { title } }], rejectOnEmpty: true })).id;
+    expect(await handoverPanelOf(tom, await byTitle("Dock leveller, lift cylinder"))).toMatchObject({ state: "awaiting", canAnswer: true });
+    const closed = await byTitle("Tail lift, platform cylinder");
+    expect(await handoverPanelOf(tom, closed)).toMatchObject({ state: "accepted", acceptedBy: "Tom Hadley" });
+    expect(await balancePanelOf(tom, closed)).toMatchObject({ method: "bank_transfer", reference: "BACS MARLOW 0412", canPay: false });
+  });
+
   it("keeps an order confirmation with each job, its money the job's and its shop the awarded one", async () => {
     for (const job of await Job.findAll({
       include: [
@@ -113,13 +124,15 @@ describe("the demo scenario", () => {
     }
   });
 
-  it("gives Nadia both jobs of her accounts, the late lift table first", async () => {
+  it("gives Nadia the jobs of her accounts, the late lift table first", async () => {
     const visitor = await signedInDemo("nadia@tenderflow.test");
     const res = await visitor.get(jobsRoute.loader, "/jobs");
     expect(res.status).toBe(200);
     expect(res.data.jobs.map((j: { specTitle: string; overdue: boolean }) => [j.specTitle, j.overdue])).toEqual([
       ["Scissor lift table, main cylinder", true],
       ["Coil clamp, hold-down cylinder", false],
+      ["Dock leveller, lift cylinder", false],
+      ["Tail lift, platform cylinder", false],
     ]);
   });
 
@@ -128,6 +141,8 @@ describe("the demo scenario", () => {
     const res = await visitor.get(paymentsRoute.loader, "/payments");
     expect(res.data.payments.map((p: { specTitle: string; status: string }) => [p.specTitle, p.status])).toEqual([
       ["Scissor lift table, main cylinder", "paid"],
+      ["Dock leveller, lift cylinder", "paid"],
+      ["Tail lift, platform cylinder", "paid"],
     ]);
     const job = await Job.findByPk(res.data.payments[0].jobId, { rejectOnEmpty: true });
     expect(job.retainerPaidAt).not.toBeNull();

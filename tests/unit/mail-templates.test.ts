@@ -15,6 +15,14 @@ const overdue = {
   daysLate: 3,
 };
 const retainer = { specTitle: "Bending press", jobId: "job-1", amountCents: 123456, currency: "EUR" };
+const BALANCE = {
+  ...retainer,
+  buyerName: "Acme",
+  shopName: "Brenner",
+  paidAt: new Date("2026-03-14T09:12:00Z"),
+  method: "bank_transfer" as const,
+  reference: "BACS 77",
+};
 
 describe("mail templates", () => {
   const cases: [string, t.MailContent, RegExp | string, string][] = [
@@ -172,6 +180,20 @@ describe("mail templates", () => {
       `${APP}/specs/spec-1`,
     ],
     ["milestone overdue", t.milestoneOverdueMail({ ...overdue, name: "Bo", role: "shop" }), "Overdue: Bench-tested on Bending press", `${APP}/jobs/job-1`],
+    [
+      "handover accepted",
+      t.handoverAcceptedMail({ name: "Bo", toShop: true, buyerName: "Acme", specTitle: "Bending press", jobId: "job-1" }),
+      "Handover accepted: Bending press",
+      `${APP}/jobs/job-1`,
+    ],
+    [
+      "handover problem",
+      t.handoverProblemMail({ name: "Bo", toShop: true, buyerName: "Acme", specTitle: "Bending press", jobId: "job-1", note: "Leaks.", photos: 2 }),
+      "Problem with the handover: Bending press",
+      `${APP}/jobs/job-1`,
+    ],
+    ["balance receipt", t.balanceReceiptMail({ ...BALANCE, name: "Ann" }), "Receipt: balance of €1,234.56 for Bending press", `${APP}/jobs/job-1`],
+    ["balance received", t.balanceReceivedMail({ ...BALANCE, name: "Bo" }), "Balance received: €1,234.56 for Bending press", `${APP}/jobs/job-1`],
   ];
 
   it.each(cases)("%s: subject and the page it links to", (_name, mail, subject, link) => {
@@ -180,6 +202,11 @@ describe("mail templates", () => {
     // No mail names a day the machine way, and every mail greets.
     expect(mail.text).not.toMatch(/\d{4}-\d{2}-\d{2}/);
     expect(mail.text).toMatch(/^Hello/);
+  });
+
+  it("says how the balance was paid, when it arrived and its reference", () => {
+    expect(t.balanceReceiptMail({ ...BALANCE, name: "Ann" }).text).toContain("to Brenner by bank transfer, received on 14 Mar 2026.\nReference: BACS 77");
+    expect(t.balanceReceivedMail({ ...BALANCE, method: "card", name: "Bo" }).text).toContain("by card, received on 14 Mar 2026.");
   });
 
   it("says when a deadline passed and how late a milestone is, to each reader", () => {

@@ -20,6 +20,7 @@ import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
 import { specOfOwner } from "~/services/spec-access.server";
 import { AlternativeCircuits, ExtraRows, OfferDocumentsRow, OfferTermsRows } from "~/components/offer-comparison";
 import { documentsOfBids } from "~/services/offer-documents.server";
+import { OrganisationProfileCard } from "~/components/organisation-profile";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Bids · ${d?.spec.title ?? "Spec"} · Tenderflow` }];
 
@@ -31,7 +32,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const url = new URL(request.url);
   const sortParam = url.searchParams.get("sort") ?? "total";
   const sort: ComparisonSort = (COMPARISON_SORTS as readonly string[]).includes(sortParam) ? (sortParam as ComparisonSort) : "total";
-  const [{ comparison }, job, canAward] = await Promise.all([comparisonOf(user, spec, sort), awardedJobOf(user, spec), canAwardNow(user, spec)]);
+  const [{ comparison, profiles }, job, canAward] = await Promise.all([comparisonOf(user, spec, sort), awardedJobOf(user, spec), canAwardNow(user, spec)]);
   const documents = await documentsOfBids(
     spec.id,
     comparison.columns.map((c) => c.id),
@@ -51,6 +52,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     sort,
     comparison,
     documents,
+    profiles,
     jobId: job?.id ?? null,
     canAward,
     choosing: choosing && { ...choosing, retainerCents: retainerCents(choosing.totalCents, spec.retainerPercent ?? "0") },
@@ -339,6 +341,16 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                 {/* What each price includes and on what terms, beside the prices, so nobody awards blind. */}
                 <OfferTermsRows columns={columns} money={money} />
                 <OfferDocumentsRow columns={columns} documents={d.documents} />
+                <tr className="border-t border-ink-100 align-top">
+                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
+                    The shop
+                  </th>
+                  {columns.map((c) => (
+                    <td key={c.id} className="p-3 text-left text-xs" data-profile={c.id}>
+                      <OrganisationProfileCard profile={d.profiles[c.id]} />
+                    </td>
+                  ))}
+                </tr>
                 <tr className="border-t border-ink-100 align-top">
                   <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
                     Notes from the shop

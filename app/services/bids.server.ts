@@ -11,6 +11,7 @@ import { FieldErrors, notFound } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { bidOfferedMail, bidWithdrawnMail } from "./mail-templates.server";
 import { specFor } from "./spec-access.server";
+import { PROFILE_ATTRIBUTES, profileOf } from "./organisation-profile.server";
 import { authorize, bidsWhere, can, viewerOf } from "~/auth/access-policy.server";
 import { formatDay, isoDay } from "~/content/dates";
 import { takesBids, type SpecStatus } from "~/content/spec-status";
@@ -249,7 +250,7 @@ async function offeredBids(user: User, spec: Spec) {
   return Bid.findAll({
     // bidsWhere leaves the buyer the offered and decided bids only.
     where: { [Op.and]: [bidsWhere(viewer), { specId: spec.id }] },
-    include: [{ model: Organisation, as: "organisation", attributes: ["name", "region"] }],
+    include: [{ model: Organisation, as: "organisation", attributes: PROFILE_ATTRIBUTES }],
     order: [
       ["totalCents", "ASC"],
       ["id", "ASC"],
@@ -282,7 +283,9 @@ export async function comparisonOf(user: User, spec: Spec, sort: ComparisonSort 
     sort,
     axisNames,
   );
-  return { bids, comparison };
+  // Each shop's company profile beside its offer.
+  const profiles = Object.fromEntries(bids.map((b) => [b.id, profileOf((b as Bid & { organisation: Organisation }).organisation)]));
+  return { bids, comparison, profiles };
 }
 
 /**

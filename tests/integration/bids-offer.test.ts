@@ -107,6 +107,10 @@ describe("an offer beyond the bill", () => {
     expect(byShop["Fullscope Hydraulics"].leavesOut).not.toContain("no commissioning on site offered");
     expect(byShop["Fullscope Hydraulics"].delivery).toBe("DAP Porto (Delivered at Place, Incoterms 2020)");
     expect(byShop["Leanline Power"].delivery).toBe("EXW Leeds works (Ex Works, Incoterms 2020)");
+    // Each shop's company profile sits beside its offer.
+    const profiles = Object.values(compared.data.profiles as Record<string, { name: string; kind: string }>);
+    expect(profiles.map((p) => p.name).sort()).toEqual(["Fullscope Hydraulics", "Leanline Power"]);
+    expect(profiles.every((p) => p.kind === "shop")).toBe(true);
     const commissioning = compared.data.comparison.extraRows.find((r: { kind: string }) => r.kind === "commissioning");
     expect(commissioning.common).toBe(false);
   });

@@ -1,7 +1,9 @@
 // `npm run bench -- pages`: every main page under 50 concurrent users (autocannon on loopback,
 // the demo scenario, signed in with real session cookies), served twice in the same run:
-// "before" with the improvements switched off (one worker, no render cache) and "after" as
-// `npm start` serves. Prints requests/s, p97.5 and p97.5 ÷ the bare JSON route's; asserts nothing.
+// "before" with the switchable improvements off (one worker, no render cache) and "after" as
+// `npm start` serves, beside issue 16's figures from before the rest of the work (the SVG cycle
+// chart, the folded detail, the split script cannot be switched off). Prints requests/s, p97.5
+// and p97.5 ÷ the bare JSON route's; asserts nothing.
 import os from "node:os";
 import autocannon from "autocannon";
 import { QueryTypes, type Sequelize } from "sequelize";
@@ -18,6 +20,8 @@ interface BenchRoute {
   label: string;
   path: string;
   as: Role;
+  /** Issue 16's figures, measured before this work in another run: requests/s and p97.5 ÷ bare. */
+  issue: string;
 }
 
 const BUYER = "priya@kestrel-forming.test";
@@ -40,15 +44,15 @@ export async function benchRoutes(db: Sequelize): Promise<BenchRoute[]> {
     email: SHOP,
   });
   return [
-    { label: "bare JSON route", path: "/api/v1/health", as: null },
-    { label: "quick sizing (anonymous)", path: "/quick-sizing", as: null },
-    { label: "a spec with its design (buyer)", path: `/specs/${specId}`, as: "buyer" },
-    { label: "the bid comparison", path: `/specs/${specId}/bids`, as: "buyer" },
-    { label: "the buyer's list of specs", path: "/specs", as: "buyer" },
-    { label: "open specs (shop)", path: "/open-specs", as: "shop" },
-    { label: "jobs dashboard (shop)", path: "/jobs", as: "shop" },
-    { label: "a job (shop)", path: `/jobs/${jobId}`, as: "shop" },
-    { label: "the bill workbook (buyer)", path: `/specs/${specId}/bill.xlsx`, as: "buyer" },
+    { label: "bare JSON route", path: "/api/v1/health", as: null, issue: "650–900/s 1×" },
+    { label: "quick sizing (anonymous)", path: "/quick-sizing", as: null, issue: "23–24/s 36–45×" },
+    { label: "a spec with its design (buyer)", path: `/specs/${specId}`, as: "buyer", issue: "18/s 23–41×" },
+    { label: "the bid comparison", path: `/specs/${specId}/bids`, as: "buyer", issue: "40–47/s 13–16×" },
+    { label: "the buyer's list of specs", path: "/specs", as: "buyer", issue: "71–75/s 15–28×" },
+    { label: "open specs (shop)", path: "/open-specs", as: "shop", issue: "79–86/s 8.5–11×" },
+    { label: "jobs dashboard (shop)", path: "/jobs", as: "shop", issue: "35–48/s 10–20×" },
+    { label: "a job (shop)", path: `/jobs/${jobId}`, as: "shop", issue: "35–48/s 10–20×" },
+    { label: "the bill workbook (buyer)", path: `/specs/${specId}/bill.xlsx`, as: "buyer", issue: "18–19/s 22–36×" },
   ];
 }
 
@@ -111,9 +115,11 @@ export async function pages() {
     const before = await measure({ ...env, WEB_CONCURRENCY: "1", RENDER_CACHE: "off" }, buildDir, routes);
     const after = await measure({ ...env, WEB_CONCURRENCY: String(cores), RENDER_CACHE: "on" }, buildDir, routes);
     const [bareBefore, bareAfter] = [before.get(routes[0].path)!, after.get(routes[0].path)!];
-    console.log(`${"route".padEnd(32)} ${"before: req/s  p97.5  ÷bare".padEnd(30)} after: req/s  p97.5  ÷bare`);
+    console.log(`${"route".padEnd(32)} ${"before: req/s  p97.5  ÷bare".padEnd(30)} ${"after: req/s  p97.5  ÷bare".padEnd(30)} issue 16 (before this work)`);
     for (const route of routes) {
-      console.log(`${route.label.padEnd(32)} ${cell(before.get(route.path)!, bareBefore).padEnd(30)} ${cell(after.get(route.path)!, bareAfter)}`);
+      console.log(
+        `${route.label.padEnd(32)} ${cell(before.get(route.path)!, bareBefore).padEnd(30)} ${cell(after.get(route.path)!, bareAfter).padEnd(30)} ${route.issue}`,
+      );
     }
   });
 }

@@ -2,7 +2,7 @@ import { Badge } from "./ui";
 import { EXTRA_ANSWER_LABELS } from "~/content/offer-terms";
 import type { ComparisonColumn, ExtraRow } from "~/services/bid-comparison";
 import type { AttachmentView } from "~/services/attachments.server";
-import { formatBytes } from "./attachment-uploader";
+import { DocumentLink } from "./offer-documents";
 
 // The comparison's rows beyond the bill: the work each offer covers lined up by kind, the shop's
 // own lines, what each leaves out, the terms side by side, its documents and an alternative
@@ -117,12 +117,7 @@ export function OfferDocumentsRow({ columns, documents }: { columns: ComparisonC
             <ul className="space-y-1">
               {documents[c.id].map((doc) => (
                 <li key={doc.id}>
-                  <a href={doc.downloadUrl} download className="font-semibold text-flow-700 hover:underline">
-                    {doc.fileName}
-                  </a>
-                  <span className="block text-ink-600">
-                    {doc.kindLabel} · {formatBytes(doc.sizeBytes)}
-                  </span>
+                  <DocumentLink doc={doc} stacked />
                 </li>
               ))}
             </ul>

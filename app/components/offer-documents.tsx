@@ -4,6 +4,20 @@ import { ACCEPTED_KINDS_TEXT, ACCEPT_ATTRIBUTE } from "~/services/file-types";
 import { formatBytes } from "./attachment-uploader";
 import { Button, Card } from "./ui";
 
+/** A document as a download, with its kind and size. */
+export function DocumentLink({ doc, stacked = false }: { doc: AttachmentView; stacked?: boolean }) {
+  return (
+    <>
+      <a href={doc.downloadUrl} download className="font-semibold text-flow-700 hover:underline">
+        {doc.fileName}
+      </a>
+      <span className={`text-ink-600 ${stacked ? "block" : ""}`}>
+        {doc.kindLabel} · {formatBytes(doc.sizeBytes)}
+      </span>
+    </>
+  );
+}
+
 // The shop's own documents on its offer: a plain multipart form (it works without JavaScript),
 // each document a download and, while the spec takes bids, removable.
 export function OfferDocumentsCard({
@@ -30,12 +44,7 @@ export function OfferDocumentsCard({
         <ul className="mb-4 space-y-2 text-sm" data-testid="offer-documents">
           {documents.map((doc) => (
             <li key={doc.id} className="flex flex-wrap items-center gap-x-3 gap-y-1">
-              <a href={doc.downloadUrl} download className="font-semibold text-flow-700 hover:underline">
-                {doc.fileName}
-              </a>
-              <span className="text-ink-600">
-                {doc.kindLabel} · {formatBytes(doc.sizeBytes)}
-              </span>
+              <DocumentLink doc={doc} />
               {canChange ? (
                 <Form method="post" action={action} reloadDocument>
                   <input type="hidden" name="documentId" value={doc.id} />

@@ -279,20 +279,24 @@ export function balanceReceivedMail(d: Balance & { name: string }): MailContent 
   };
 }
 
-/** To the buyer who paid a retainer twice; `refused` is the card service's refusal of the automatic refund. */
-export function secondChargeToPayerMail(d: Retainer & { name: string; reference: string; refused: string | null }): MailContent {
+/** To the buyer who paid a retainer (or the balance, `what`) twice; `refused` is the card service's refusal of the automatic refund. */
+export function secondChargeToPayerMail(d: Retainer & { name: string; reference: string; refused: string | null; what?: "retainer" | "balance" }): MailContent {
   const amount = formatMoney(d.amountCents, d.currency);
+  const what = d.what ?? "retainer";
   return {
-    subject: `Charged twice for the retainer of ${d.specTitle}: ${d.refused ? "we are paying it back" : "refunded"}`,
-    text: `Hello ${d.name},\n\nThe retainer for "${d.specTitle}" had already been paid when a second card payment of ${amount} came through (reference ${d.reference}). ${d.refused ? "Your account manager will pay it back to your card and be in touch." : "We have asked the card service to pay it back in full; it can take a few days to appear on your statement."} Nothing else is needed from you.\n\nThe job: ${jobLink(d.jobId)}\n`,
+    subject: `Charged twice for the ${what} of ${d.specTitle}: ${d.refused ? "we are paying it back" : "refunded"}`,
+    text: `Hello ${d.name},\n\nThe ${what} for "${d.specTitle}" had already been paid when a second card payment of ${amount} came through (reference ${d.reference}). ${d.refused ? "Your account manager will pay it back to your card and be in touch." : "We have asked the card service to pay it back in full; it can take a few days to appear on your statement."} Nothing else is needed from you.\n\nThe job: ${jobLink(d.jobId)}\n`,
   };
 }
 
-export function secondChargeToStaffMail(d: Retainer & { name: string; buyerName: string; reference: string; refused: string | null }): MailContent {
+export function secondChargeToStaffMail(
+  d: Retainer & { name: string; buyerName: string; reference: string; refused: string | null; what?: "retainer" | "balance" },
+): MailContent {
   const amount = formatMoney(d.amountCents, d.currency);
+  const what = d.what ?? "retainer";
   return {
-    subject: `Check: retainer charged twice for ${d.specTitle} (${d.buyerName})`,
-    text: `Hello ${d.name},\n\n${d.buyerName} paid the retainer for "${d.specTitle}" a second time: ${amount}, reference ${d.reference}. ${d.refused ? `The automatic refund was refused by the card service (${d.refused}); please pay it back from the job page.` : "It has been refunded automatically."}\n\nThe job: ${jobLink(d.jobId)}\nFlagged payments: ${pageLink("/payments?flagged=1")}\n`,
+    subject: `Check: ${what} charged twice for ${d.specTitle} (${d.buyerName})`,
+    text: `Hello ${d.name},\n\n${d.buyerName} paid the ${what} for "${d.specTitle}" a second time: ${amount}, reference ${d.reference}. ${d.refused ? `The automatic refund was refused by the card service (${d.refused}); please pay it back from the job page.` : "It has been refunded automatically."}\n\nThe job: ${jobLink(d.jobId)}\nFlagged payments: ${pageLink("/payments?flagged=1")}\n`,
   };
 }
 

@@ -99,7 +99,7 @@ async function refundSecondCharge(transaction: Transaction, payment: Payment, jo
       paymentId: payment.id,
       requestedById: null,
       amountCents: payment.amountCents,
-      reason: "Automatic: the retainer had already been paid",
+      reason: `Automatic: the ${payment.purpose} had already been paid`,
       stripeRefundId: null,
       failureMessage: null,
       recordedAt: null,
@@ -123,8 +123,8 @@ async function refundSecondCharge(transaction: Transaction, payment: Payment, jo
     transaction,
     payment,
     refused
-      ? `Charged a second time (${amount}) after the retainer was paid. The automatic refund was refused (${refused}): pay it back by hand.`
-      : `Charged a second time (${amount}) after the retainer was paid; refunded automatically.`,
+      ? `Charged a second time (${amount}) after the ${payment.purpose} was paid. The automatic refund was refused (${refused}): pay it back by hand.`
+      : `Charged a second time (${amount}) after the ${payment.purpose} was paid; refunded automatically.`,
   );
   await tellOfSecondCharge(transaction, payment, job, refused);
   return refused ? "charged twice; automatic refund refused" : "charged twice; refund requested";
@@ -141,6 +141,7 @@ async function tellOfSecondCharge(transaction: Transaction, payment: Payment, jo
     currency: payment.currency,
     reference: payment.paymentIntentId ?? payment.id,
     refused,
+    what: payment.purpose,
   };
   if (payer?.active) {
     await enqueueMail({ to: payer.email, ...secondChargeToPayerMail({ ...charge, name: payer.name }) }, transaction);

@@ -138,5 +138,8 @@ describe("a bank transfer recorded by the account manager", () => {
     await payment.reload();
     expect(payment.duplicate).toBe(true);
     expect((await job.reload()).balanceMethod).toBe("bank_transfer");
+    expect(payment.flag).toMatch(/after the balance was paid; refunded automatically/);
+    await deliverDueMail();
+    expect((await mailsTo(buyer.email)).some((m) => m.subject.startsWith("Charged twice for the balance of") && m.text.includes(`/jobs/${job.id}`))).toBe(true);
   });
 });

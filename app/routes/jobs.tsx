@@ -128,7 +128,10 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                   <td className="pr-2">
                     <OrganisationName id={j.shopId} name={j.shopName} linked={d.openable.includes(j.shopId)} />
                   </td>
-                  <td className="pr-2">{JOB_STAGE_LABELS[j.stage]}</td>
+                  <td className="pr-2">
+                    {JOB_STAGE_LABELS[j.stage]}
+                    {j.acceptedAt ? <span className="block text-xs text-ink-600">Accepted{j.balancePaidAt ? ", paid in full" : ""}</span> : null}
+                  </td>
                   <td className="pl-3 text-right tabular-nums">{formatMoney(j.totalCents, j.currency)}</td>
                   <td className="whitespace-nowrap pl-3 text-right tabular-nums">
                     <span className="block">{formatMoney(j.retainerCents, j.currency)}</span>

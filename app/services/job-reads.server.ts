@@ -32,6 +32,9 @@ export interface JobSummary {
   retainerCents: number;
   retainerPaidAt: string | null;
   retainerRefundedCents: number;
+  /** The buyer accepted the handover: the job is closed. */
+  acceptedAt: string | null;
+  balancePaidAt: string | null;
   awardedAt: string;
   daysSinceAward: number;
   next: NextMilestone | null;
@@ -64,6 +67,8 @@ function summarise(job: JobWithParties, milestones: JobMilestone[], today: strin
     retainerCents: job.retainerCents,
     retainerPaidAt: job.retainerPaidAt?.toISOString() ?? null,
     retainerRefundedCents: job.retainerRefundedCents,
+    acceptedAt: job.acceptedAt?.toISOString() ?? null,
+    balancePaidAt: job.balancePaidAt?.toISOString() ?? null,
     awardedAt: job.awardedAt.toISOString(),
     daysSinceAward: Math.max(0, daysBetween(isoDay(job.awardedAt), today)),
     next: next ? { key: next.key, label: MILESTONE_LABELS[next.key], targetDate: next.targetDate } : null,

@@ -8,6 +8,7 @@ import * as fileDownload from "~/routes/job-file-download";
 import { Job, JobEvent, JobFile, JobMilestone, Organisation, type User } from "~/models/index.server";
 import { reachMilestones, undoLastMilestone } from "~/services/job-progress.server";
 import { acceptHandover, handoverPanelOf } from "~/services/job-handover.server";
+import { listJobs } from "~/services/job-reads.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { makeJob, makeMember, makeOperatorUser } from "../support/factories";
 import { mailsTo } from "../support/mailbox";
@@ -70,6 +71,8 @@ describe("accepting the handover", () => {
     expect(closed.acceptedById).toBe(buyer.id);
     expect(await JobEvent.count({ where: { jobId: job.id, kind: "handover_accepted" } })).toBe(1);
     expect(await handoverPanelOf(shop, job.id)).toMatchObject({ state: "accepted", acceptedBy: buyer.name });
+    // The job list says it is accepted, for the manager following the account.
+    expect((await listJobs(manager, {})).jobs.find((j) => j.id === job.id)?.acceptedAt).toBe(closed.acceptedAt!.toISOString());
     await expect(undoLastMilestone(shop, job.id, { milestone: "handed_over", reason: "Oops" })).rejects.toThrow(/closed/);
 
     await deliverDueMail();

@@ -21,6 +21,7 @@ let manager: User;
 let admin: User;
 let spec: Spec;
 const TITLE = "Bale press, main cylinder";
+const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 0x0d, 0x49, 0x48, 0x44, 0x52]);
 
 beforeAll(async () => {
   // This file's own card service, so its webhooks reach this file's app server.
@@ -131,9 +132,35 @@ describe("the whole deal", () => {
     await expect.poll(() => shopPage.getByText("Awaiting the buyer").count()).toBe(1);
     await shot(shopPage, "4-shop-handed-over");
 
+    // The buyer finds a problem and reports it with a photo; the shop sees it, puts it right, files
+    // the pressure test certificate and hands over again.
+    await buyerPage.goto(`/jobs/${job.id}`);
+    await hydrated(buyerPage);
+    await buyerPage.getByText("Something is wrong: report a problem").click();
+    await buyerPage.getByLabel("What is wrong").fill("The return filter's clogging indicator is missing.");
+    await buyerPage.getByLabel(/^Photos/).setInputFiles({ name: "filter.png", mimeType: "image/png", buffer: Buffer.from(PNG) });
+    await buyerPage.getByRole("button", { name: "Report the problem" }).click();
+    await expect.poll(() => buyerPage.getByText("Problem reported", { exact: true }).count()).toBe(1);
+    await shopPage.goto(`/jobs/${job.id}`);
+    await hydrated(shopPage);
+    await expect.poll(() => shopPage.getByText("The return filter's clogging indicator is missing.").count()).toBeGreaterThan(0);
+    expect(await shopPage.getByRole("link", { name: "filter.png" }).count()).toBeGreaterThan(0);
+    await shot(shopPage, "4b-shop-sees-problem");
+    await shopPage.getByLabel("Files (up to 6 of 10 MB each)").setInputFiles({
+      name: "pressure test 180 bar.pdf",
+      mimeType: "application/pdf",
+      buffer: Buffer.from("%PDF-1.4\n% pressure test certificate\n%%EOF\n"),
+    });
+    await shopPage.getByRole("button", { name: "Upload" }).click();
+    await expect.poll(() => shopPage.getByRole("link", { name: "pressure test 180 bar.pdf" }).count()).toBe(1);
+    await shopPage.getByLabel("Reached up to and including").selectOption("handed_over");
+    await shopPage.getByRole("button", { name: "Record as reached" }).click();
+    await expect.poll(() => shopPage.getByText("Awaiting the buyer").count()).toBe(1);
+
     // The buyer accepts, then pays the balance by card.
     await buyerPage.goto(`/jobs/${job.id}`);
     await hydrated(buyerPage);
+    expect(await buyerPage.getByRole("link", { name: "pressure test 180 bar.pdf" }).count()).toBe(1);
     await shot(buyerPage, "5-buyer-handover");
     await buyerPage.getByRole("button", { name: "Accept the handover" }).click();
     await expect.poll(() => buyerPage.getByText("Closed: handover accepted").count()).toBe(1);

@@ -51,18 +51,13 @@ export function OfferExtrasFields({ form, fields, currency }: { form: BidForm; f
         sees what yours leaves out.
       </p>
       <TableScroll label="Work beyond the bill">
-        <table className="w-full text-left text-sm sm:min-w-[36rem]">
+        <table className="w-full text-left text-sm">
           <thead className="text-ink-600">
             <tr>
               <th scope="col" className="py-2 pr-3">
                 Work
               </th>
-              <th scope="col" className="pr-3">
-                Your answer
-              </th>
-              <th scope="col" className="w-28 sm:w-40">
-                Price ({currency})
-              </th>
+              <th scope="col">Your answer and price ({currency})</th>
             </tr>
           </thead>
           <tbody>
@@ -75,18 +70,21 @@ export function OfferExtrasFields({ form, fields, currency }: { form: BidForm; f
                     <input {...getInputProps(f.kind, { type: "hidden" })} key={f.kind.key} />
                     <label htmlFor={f.answer.id}>{EXTRA_KINDS[kind]}</label>
                   </td>
-                  <td className="py-2 pr-3">
-                    <select {...getSelectProps(f.answer)} key={f.answer.key} className={cellInput}>
-                      {EXTRA_ANSWERS.map((a) => (
-                        <option key={a} value={a}>
-                          {EXTRA_ANSWER_LABELS[a]}
-                        </option>
-                      ))}
-                    </select>
-                    <FieldErrors id={f.answer.errorId} errors={f.answer.errors} />
-                  </td>
-                  <td className="py-2">
-                    <PriceInput meta={f.price} label={`Price of ${EXTRA_KINDS[kind].toLowerCase()}`} disabled={f.answer.value !== "priced"} />
+                  {/* On a phone the answer and its price stack, so neither is cut short. */}
+                  <td className="grid gap-2 py-2 sm:grid-cols-[minmax(9rem,1fr)_10rem]">
+                    <div>
+                      <select {...getSelectProps(f.answer)} key={f.answer.key} className={cellInput}>
+                        {EXTRA_ANSWERS.map((a) => (
+                          <option key={a} value={a}>
+                            {EXTRA_ANSWER_LABELS[a]}
+                          </option>
+                        ))}
+                      </select>
+                      <FieldErrors id={f.answer.errorId} errors={f.answer.errors} />
+                    </div>
+                    <div>
+                      <PriceInput meta={f.price} label={`Price of ${EXTRA_KINDS[kind].toLowerCase()}`} disabled={f.answer.value !== "priced"} />
+                    </div>
                   </td>
                 </tr>
               );
@@ -103,8 +101,8 @@ export function OfferExtrasFields({ form, fields, currency }: { form: BidForm; f
         {ownLines.map((line, i) => {
           const f = line.getFieldset();
           return (
-            <li key={line.key} className="grid grid-cols-[1fr_8rem_auto] items-start gap-2" data-own-line={i}>
-              <div>
+            <li key={line.key} className="grid grid-cols-[1fr_auto] items-start gap-2 sm:grid-cols-[1fr_8rem_auto]" data-own-line={i}>
+              <div className="col-span-2 sm:col-span-1">
                 <input
                   {...getInputProps(f.name, { type: "text" })}
                   key={f.name.key}
@@ -218,8 +216,8 @@ export function AlternativeCircuitFields({ form, fields, currency, units }: { fo
         {lines.map((line, i) => {
           const f = line.getFieldset();
           return (
-            <li key={line.key} className="grid grid-cols-[1fr_4.5rem_8rem_auto] items-start gap-2" data-alternative-line={i}>
-              <div>
+            <li key={line.key} className="grid grid-cols-[4.5rem_1fr_auto] items-start gap-2 sm:grid-cols-[1fr_4.5rem_8rem_auto]" data-alternative-line={i}>
+              <div className="col-span-3 sm:col-span-1">
                 <input
                   {...getInputProps(f.name, { type: "text" })}
                   key={f.name.key}

@@ -38,6 +38,11 @@ beforeAll(async () => {
     place: "Calder works",
     onDeliveryPercent: 100,
     warrantyMonths: 18,
+    alternativeDescription: "A servo-driven pump in place of the fixed pump and its motor: it runs only while the ram moves.",
+    alternativeLines: [
+      { name: "Servo motor and internal gear pump", quantity: 1, price: "5200" },
+      { name: "Servo drive", quantity: 1, price: "1900" },
+    ],
   });
   app = await startBrowserApp();
 }, 180_000);
@@ -93,6 +98,15 @@ describe("an offer beyond the bill", () => {
     await page.setViewportSize({ width: 390, height: 844 });
     await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     await shot(page, "2-shop-phone");
+    // The parts beyond the bill on a phone, each card on its own.
+    for (const [heading, name] of [
+      ["Work beyond the bill", "2b-extras-phone"],
+      ["Terms", "2c-terms-phone"],
+      ["An alternative circuit (optional)", "2d-alternative-phone"],
+    ]) {
+      const card = page.getByRole("heading", { name: heading, exact: true }).locator("xpath=..");
+      await card.screenshot({ path: path.join(SCREENSHOTS, `offer-extras-${name}.png`) });
+    }
 
     const bid = await Bid.findOne({ where: { specId: spec.id, organisationId: shop.organisationId }, rejectOnEmpty: true });
     expect(bid.status).toBe("submitted");
@@ -126,6 +140,12 @@ describe("an offer beyond the bill", () => {
     const download = await buyerPage.request.get((await link.getAttribute("href"))!);
     expect(download.status()).toBe(200);
     expect(Buffer.from(await download.body()).toString()).toBe(PDF.toString());
+    // The rival's alternative circuit stands beside the offers, labelled, and does not take the cheapest mark.
+    const alternative = buyerPage.locator("[data-alternative-circuit]");
+    expect(await alternative.getByText("Alternative circuit", { exact: true }).count()).toBe(1);
+    expect(await alternative.textContent()).toContain("Moorgate Fluid Power");
+    expect(await buyerPage.getByTestId("cheapest-summary").textContent()).toContain("Tarnside Hydraulics");
+    await alternative.screenshot({ path: path.join(SCREENSHOTS, "offer-extras-3b-alternative.png") });
     await shot(buyerPage, "3-buyer-desktop");
     await buyerPage.setViewportSize({ width: 390, height: 844 });
     await expect.poll(() => buyerPage.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);

@@ -10,6 +10,7 @@ import { startStripeFake, type StripeFake } from "../../fakes/stripe";
 import { PASSWORD, makeMember } from "../support/factories";
 import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
 import { awardedJob } from "../support/awards";
+import { fillCard } from "../support/card-page";
 
 let app: BrowserApp;
 let fake: StripeFake;
@@ -32,13 +33,6 @@ afterAll(async () => {
 });
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `payments-${name}.png`), fullPage: true });
-
-async function fillCard(page: Page, number: string) {
-  await page.getByLabel("Card number").fill(number);
-  await page.getByLabel("Expiry (MM / YY)").fill(`12 / ${(new Date().getFullYear() + 3) % 100}`);
-  await page.getByLabel("Security code").fill("123");
-  await page.getByRole("button", { name: /^Pay / }).click();
-}
 
 describe("paying the retainer", () => {
   it("a declined card is explained and retried, a good one pays, and replayed webhooks change nothing", { timeout: 180_000 }, async () => {

@@ -11,6 +11,7 @@ import { startStripeFake, type StripeFake } from "../../fakes/stripe";
 import { PASSWORD, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
 import { fillOfferTerms } from "../support/bid-page";
 import { formatMoney } from "~/content/money";
+import { fillCard } from "../support/card-page";
 import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
 
 let app: BrowserApp;
@@ -51,10 +52,7 @@ const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCR
 
 async function payOnCardPage(page: Page, returnPattern: string) {
   await page.waitForURL(`${fake.url}/checkout/**`);
-  await page.getByLabel("Card number").fill("4242 4242 4242 4242");
-  await page.getByLabel("Expiry (MM / YY)").fill(`12 / ${(new Date().getFullYear() + 3) % 100}`);
-  await page.getByLabel("Security code").fill("123");
-  await page.getByRole("button", { name: /^Pay / }).click();
+  await fillCard(page, "4242 4242 4242 4242");
   await page.waitForURL(returnPattern);
 }
 

@@ -98,7 +98,8 @@ export function contentDisposition(fileName: string): string {
   return `attachment; filename="${fallback}"; filename*=UTF-8''${encoded}`;
 }
 
-function toView(row: SpecAttachment): AttachmentView {
+/** A stored file as a page lists it (a spec's drawing, an offer's document), with where to download it. */
+export function storedFileView(row: Pick<SpecAttachment, "id" | "fileName" | "contentType" | "sizeBytes" | "createdAt">, downloadUrl: string): AttachmentView {
   const kind = Object.values(FILE_KINDS).find((k) => k.mediaType === row.contentType);
   return {
     id: row.id,
@@ -106,9 +107,11 @@ function toView(row: SpecAttachment): AttachmentView {
     kindLabel: kind?.label ?? "File",
     sizeBytes: row.sizeBytes,
     uploadedAt: row.createdAt.toISOString(),
-    downloadUrl: attachmentUrl(row.specId, row.id),
+    downloadUrl,
   };
 }
+
+const toView = (row: SpecAttachment) => storedFileView(row, attachmentUrl(row.specId, row.id));
 
 // Files of one upload can share a timestamp; their names order them then.
 const rowsOf = (specId: string, transaction?: Transaction) =>

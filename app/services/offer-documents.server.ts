@@ -2,7 +2,7 @@ import { Op } from "sequelize";
 import { Bid, sequelize, type User } from "~/models/index.server";
 import { BidDocument } from "~/models/bid.server";
 import { offerDocumentsWhere, viewerOf } from "~/auth/access-policy.server";
-import { ATTACHMENT_LIMITS, type AttachmentView } from "./attachments.server";
+import { ATTACHMENT_LIMITS, storedFileView, type AttachmentView } from "./attachments.server";
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { FILE_KINDS, type FileKind } from "./file-types";
 import { discardStaged, receiveJobUpload } from "./job-files.server";
@@ -22,17 +22,7 @@ const ALL_KINDS = Object.keys(FILE_KINDS) as FileKind[];
 
 const documentUrl = (specId: string, bidId: string, documentId: string) => `/specs/${specId}/bids/${bidId}/documents/${documentId}`;
 
-function toView(specId: string, row: BidDocument): OfferDocumentView {
-  const kind = Object.values(FILE_KINDS).find((k) => k.mediaType === row.contentType);
-  return {
-    id: row.id,
-    fileName: row.fileName,
-    kindLabel: kind?.label ?? "File",
-    sizeBytes: row.sizeBytes,
-    uploadedAt: row.createdAt.toISOString(),
-    downloadUrl: documentUrl(specId, row.bidId, row.id),
-  };
-}
+const toView = (specId: string, row: BidDocument): OfferDocumentView => storedFileView(row, documentUrl(specId, row.bidId, row.id));
 
 /** The documents of several bids of one spec, by bid id, oldest first. */
 export async function documentsOfBids(specId: string, bidIds: string[]): Promise<Record<string, OfferDocumentView[]>> {

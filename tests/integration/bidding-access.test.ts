@@ -8,7 +8,8 @@ import type { Role } from "~/auth/roles";
 import type { Spec, User } from "~/models/index.server";
 import { bomOf } from "~/services/bids.server";
 import { createDraft } from "~/services/specs.server";
-import { inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
+import { bidFields, postBid } from "../support/bid-form";
+import { makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
@@ -18,13 +19,11 @@ let spec: Spec;
 let draft: Spec;
 
 async function offer(visitor: Visitor, price: string) {
-  const bom = await bomOf(spec);
-  const fields: Record<string, string> = { intent: "submit", leadTimeWeeks: "9", validUntil: inDays(40) };
-  bom.forEach((l, i) => {
-    fields[`lines[${i}].key`] = l.key;
-    fields[`lines[${i}].unitPrice`] = price;
-  });
-  return visitor.post(bidRoute.action, `/specs/${spec.id}/bid`, fields, { specId: spec.id });
+  return postBid(
+    visitor,
+    spec.id,
+    bidFields(await bomOf(spec), () => price, { intent: "submit", leadTimeWeeks: "9" }),
+  );
 }
 
 beforeAll(async () => {

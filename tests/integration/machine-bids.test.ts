@@ -15,7 +15,8 @@ import type { BomLine, MachineDesign } from "~/hydraulics";
 import { Bid, Job, SpecRevision, type Spec, type User } from "~/models/index.server";
 import { bomOf } from "~/services/bids.server";
 import { POWER_UNIT_LABEL } from "~/services/published-design";
-import { makeMember, makePublishedMachineSpec, makePublishedSpec, inDays } from "../support/factories";
+import { bidFields, postBid } from "../support/bid-form";
+import { makeMember, makePublishedMachineSpec, makePublishedSpec } from "../support/factories";
 import { clampAndPress } from "../support/machines";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
@@ -25,24 +26,6 @@ const machine: MachineDesign = clampAndPress();
 /** The part a machine line serves, by hand: the axis after the key's colon, else the power unit. */
 const partOf = (key: string) => (key.includes(":") ? key.slice(key.indexOf(":") + 1) : POWER_UNIT_LABEL);
 const PARTS = [POWER_UNIT_LABEL, "Clamp", "Press"];
-
-function bidFields(bom: BomLine[], price: (i: number) => string) {
-  const fields: Record<string, string> = {
-    intent: "submit",
-    leadTimeWeeks: "14",
-    validUntil: inDays(40),
-    incoterm: "EXW",
-    place: "Works",
-    balanceDays: "30",
-    warrantyMonths: "12",
-    notes: "",
-  };
-  bom.forEach((line, i) => {
-    fields[`lines[${i}].key`] = line.key;
-    fields[`lines[${i}].unitPrice`] = price(i);
-  });
-  return fields;
-}
 
 let buyer: User;
 let spec: Spec;
@@ -91,7 +74,11 @@ describe("a machine's spec", () => {
 describe("bids, comparison and award on a machine", () => {
   beforeAll(async () => {
     for (const shop of shops) {
-      const sent = await shop.visitor.post(bidRoute.action, `/specs/${spec.id}/bid`, bidFields(bom, shop.price), { specId: spec.id });
+      const sent = await postBid(
+        shop.visitor,
+        spec.id,
+        bidFields(bom, (_, i) => shop.price(i), { intent: "submit" }),
+      );
       expect(sent.status).toBe(302);
     }
   });
@@ -247,11 +234,10 @@ describe("a one-axis spec revised into a machine", () => {
     const oneAxisBill = await bomOf(single);
     const shop = await makeMember("shop");
     const shopVisitor = await signedIn(shop);
-    const sent = await shopVisitor.post(
-      bidRoute.action,
-      `/specs/${single.id}/bid`,
-      bidFields(oneAxisBill, () => "100"),
-      { specId: single.id },
+    const sent = await postBid(
+      shopVisitor,
+      single.id,
+      bidFields(oneAxisBill, () => "100", { intent: "submit" }),
     );
     expect(sent.status).toBe(302);
 

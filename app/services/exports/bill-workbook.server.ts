@@ -7,16 +7,14 @@ import type { UnitSystem } from "~/units";
 import { addMachineSheet } from "./machine-sheet.server";
 import { addRequirementsSheet } from "./requirements-sheet.server";
 import {
+  addTableSheet,
+  engineFact,
   addCautionsSheet,
-  addSheet,
-  freezeAt,
   headerDay,
   newWorkbook,
   quantityFormat,
   shortNumber,
   styleBodyRow,
-  writeHeaderBlock,
-  writeTableHeader,
   type Column,
   type HeaderBlock,
 } from "./sheet-layout.server";
@@ -70,7 +68,7 @@ const TRAIL_COLUMNS: Column[] = [
 function billFacts(input: BillInput): [string, string][] {
   return [
     ["Revision", `${input.revision}, published ${headerDay(input.publishedAt)}`],
-    ["Sizing engine", `version ${input.engineVersion}`],
+    engineFact(input.engineVersion),
     ["Machine builder", input.buyerName ?? "Not named to shops before the award"],
     ["Exported", headerDay(input.exportedAt)],
   ];
@@ -95,20 +93,12 @@ function addBomSheet(workbook: ExcelJS.Workbook, input: BillInput) {
   const axes = axisNamesOf(input.published);
   const columns = axes.length ? [BOM_COLUMNS[0], SERVES_COLUMN, ...BOM_COLUMNS.slice(1)] : BOM_COLUMNS;
   const bom = input.published.design.bom;
-  const sheet = addSheet(workbook, BILL_SHEETS[0], columns);
   const block: HeaderBlock = {
     document: "Bill of materials",
     specTitle: input.title,
     facts: [...billFacts(input), ...quotationFacts(input.quotation), STATUS_FACT],
   };
-  const head = writeHeaderBlock(sheet, block);
-  writeTableHeader(
-    sheet,
-    head,
-    columns.map((c) => c.header),
-    columns,
-  );
-  freezeAt(sheet, head);
+  const { sheet, head } = addTableSheet(workbook, BILL_SHEETS[0], columns, block);
   bom.forEach((line, i) => {
     const row = sheet.getRow(head + 1 + i);
     const serves = servedBy(line.key, axes);
@@ -140,15 +130,8 @@ function inputsText(inputs: TrailEntry["inputs"]): string {
 }
 
 function addTrailSheet(workbook: ExcelJS.Workbook, input: BillInput) {
-  const sheet = addSheet(workbook, BILL_SHEETS[1], TRAIL_COLUMNS);
-  const head = writeHeaderBlock(sheet, { document: "Design values and how each was reached", specTitle: input.title, facts: billFacts(input) });
-  writeTableHeader(
-    sheet,
-    head,
-    TRAIL_COLUMNS.map((c) => c.header),
-    TRAIL_COLUMNS,
-  );
-  freezeAt(sheet, head);
+  const block = { document: "Design values and how each was reached", specTitle: input.title, facts: billFacts(input) };
+  const { sheet, head } = addTableSheet(workbook, BILL_SHEETS[1], TRAIL_COLUMNS, block);
   input.published.design.trail.forEach((entry, i) => {
     const row = sheet.getRow(head + 1 + i);
     row.values = [entry.quantity, entry.value, entry.unit === "-" ? "" : entry.unit, entry.formula, inputsText(entry.inputs), entry.source];

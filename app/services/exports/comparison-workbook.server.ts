@@ -4,6 +4,8 @@ import { BID_STATUS_LABELS } from "~/content/bid-status";
 import { formatMoney } from "~/content/money";
 import type { compareBids } from "../bid-comparison";
 import {
+  addTableSheet,
+  engineFact,
   DAY_FORMAT,
   FILLS,
   addCautionsSheet,
@@ -75,7 +77,7 @@ function comparisonColumns(shops: number, fmt: string, machine: boolean): Column
 function comparisonFacts(input: ComparisonInput): [string, string][] {
   return [
     ["Current revision", String(input.revision)],
-    ["Sizing engine", `version ${input.engineVersion}`],
+    engineFact(input.engineVersion),
     ["Machine builder", input.buyerName],
     ["Prices in", input.currency],
     ["Exported", headerDay(input.exportedAt)],
@@ -302,15 +304,8 @@ const OFFER_COLUMNS = (fmt: string): Column[] => [
 
 function addOffersSheet(workbook: ExcelJS.Workbook, input: ComparisonInput) {
   const columns = OFFER_COLUMNS(currencyFormat(input.currency));
-  const sheet = addSheet(workbook, COMPARISON_SHEETS[1], columns);
-  const head = writeHeaderBlock(sheet, { document: "The offers and their terms", specTitle: input.title, facts: comparisonFacts(input) });
-  writeTableHeader(
-    sheet,
-    head,
-    columns.map((c) => c.header),
-    columns,
-  );
-  freezeAt(sheet, head);
+  const block = { document: "The offers and their terms", specTitle: input.title, facts: comparisonFacts(input) };
+  const { sheet, head } = addTableSheet(workbook, COMPARISON_SHEETS[1], columns, block);
   input.comparison.columns.forEach((offer, i) => {
     const r = head + 1 + i;
     const extra = input.offers[offer.id] ?? { units: 1, notes: "" };

@@ -1,6 +1,6 @@
 import type ExcelJS from "exceljs";
 import type { MachineDesign } from "~/hydraulics";
-import { addSheet, freezeAt, quantityFormat, styleBodyRow, writeHeaderBlock, writeTableHeader, type Column, type HeaderBlock } from "./sheet-layout.server";
+import { addTableSheet, quantityFormat, styleBodyRow, writeTableHeader, type Column, type HeaderBlock } from "./sheet-layout.server";
 
 // A machine's key sizes at a glance, in SI as the engine gives them: one row per axis (what a
 // shop quotes a cylinder and a valve from), then the one power unit. Every figure is also in the
@@ -55,15 +55,7 @@ function powerUnitRows(m: MachineDesign): [string, number | string, string][] {
 }
 
 export function addMachineSheet(workbook: ExcelJS.Workbook, machine: MachineDesign, block: HeaderBlock) {
-  const sheet = addSheet(workbook, "Machine", AXIS_COLUMNS);
-  const head = writeHeaderBlock(sheet, block);
-  writeTableHeader(
-    sheet,
-    head,
-    AXIS_COLUMNS.map((c) => c.header),
-    AXIS_COLUMNS,
-  );
-  freezeAt(sheet, head);
+  const { sheet, head } = addTableSheet(workbook, "Machine", AXIS_COLUMNS, block);
   let at = head;
   for (const axis of machine.axes) {
     const row = sheet.getRow(++at);

@@ -4,12 +4,12 @@ import type { BidLine } from "~/models/bid.server";
 import { lineTotalCents } from "~/content/money";
 import { servedBy } from "../published-design";
 import {
+  addTableSheet,
+  engineFact,
   FILLS,
   addCautionsSheet,
-  addSheet,
   currencyFormat,
   font,
-  freezeAt,
   headerDay,
   labelCell,
   money,
@@ -17,8 +17,6 @@ import {
   ranges,
   styleBodyRow,
   topRule,
-  writeHeaderBlock,
-  writeTableHeader,
   writeTextRow,
   type Column,
 } from "./sheet-layout.server";
@@ -80,7 +78,7 @@ function pricedColumns(currency: string, machine: boolean): Column[] {
 function pricedFacts(input: PricedBillInput): [string, string][] {
   return [
     ["Revision priced", String(input.revision)],
-    ["Sizing engine", `version ${input.engineVersion}`],
+    engineFact(input.engineVersion),
     ["Machine builder", input.buyerName],
     ["Fluid-power shop", input.shopName],
     ["Awarded", headerDay(input.awardedAt)],
@@ -94,15 +92,8 @@ function pricedFacts(input: PricedBillInput): [string, string][] {
 function addPricedSheet(workbook: ExcelJS.Workbook, input: PricedBillInput) {
   const columns = pricedColumns(input.currency, input.axisNames.length > 0);
   const fmt = currencyFormat(input.currency);
-  const sheet = addSheet(workbook, PRICED_SHEETS[0], columns);
-  const head = writeHeaderBlock(sheet, { document: "Priced bill of the awarded bid", specTitle: input.title, facts: pricedFacts(input) });
-  writeTableHeader(
-    sheet,
-    head,
-    columns.map((c) => c.header),
-    columns,
-  );
-  freezeAt(sheet, head);
+  const block = { document: "Priced bill of the awarded bid", specTitle: input.title, facts: pricedFacts(input) };
+  const { sheet, head } = addTableSheet(workbook, PRICED_SHEETS[0], columns, block);
 
   const first = head + 1;
   input.lines.forEach((line, i) => {

@@ -4,18 +4,7 @@ import { MACHINE_DUTY_FIELDS, type Requirements } from "~/hydraulics";
 import { stepInWords } from "~/content/machine-words";
 import { UNITS, UNIT_SYSTEM_LABELS, roundForDisplay, toDisplay, unitLabel, type UnitSystem } from "~/units";
 import type { BillInput } from "./bill-workbook.server";
-import {
-  addSheet,
-  freezeAt,
-  headerDay,
-  quantityFormat,
-  styleBodyRow,
-  writeHeaderBlock,
-  writeTableHeader,
-  writeTextRow,
-  type Column,
-  type HeaderBlock,
-} from "./sheet-layout.server";
+import { addTableSheet, headerDay, quantityFormat, styleBodyRow, writeTableHeader, writeTextRow, type Column, type HeaderBlock } from "./sheet-layout.server";
 
 // The axis requirements twice over: as the buyer typed them (their unit system) and as the
 // engine sized them (the units its fields name), plus the reader's units when those differ,
@@ -137,18 +126,8 @@ export function addRequirementsSheet(workbook: ExcelJS.Workbook, input: BillInpu
         ]
       : []),
   ];
-  const sheet = addSheet(workbook, "Requirements", columns, false);
-  const head = writeHeaderBlock(sheet, {
-    ...block,
-    facts: [...block.facts, ["Entered in", `${UNIT_SYSTEM_LABELS[input.enteredIn]}; "(default)": left blank, sized with the default`]],
-  });
-  writeTableHeader(
-    sheet,
-    head,
-    columns.map((c) => c.header),
-    columns,
-  );
-  freezeAt(sheet, head);
+  const enteredIn: [string, string] = ["Entered in", `${UNIT_SYSTEM_LABELS[input.enteredIn]}; "(default)": left blank, sized with the default`];
+  const { sheet, head } = addTableSheet(workbook, "Requirements", columns, { ...block, facts: [...block.facts, enteredIn] }, false);
   let at = head;
   const write = (rows: RequirementRow[]) => {
     for (const r of rows) {

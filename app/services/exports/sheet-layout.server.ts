@@ -69,6 +69,9 @@ export function addSheet(workbook: ExcelJS.Workbook, name: string, columns: Colu
   return sheet;
 }
 
+/** The header fact naming the sizing engine's version a document's figures come from. */
+export const engineFact = (version: string): [string, string] => ["Sizing engine", `version ${version}`];
+
 /** Writes the header block from row 1; returns the row the table header goes on. */
 export function writeHeaderBlock(sheet: ExcelJS.Worksheet, block: HeaderBlock): number {
   sheet.getCell("A1").value = block.document;
@@ -150,6 +153,24 @@ export function freezeAt(sheet: ExcelJS.Worksheet, headerRow: number, options: {
   const topLeft = `${sheet.getColumn(columns + 1).letter}${headerRow + 1}`;
   sheet.views = [{ state: "frozen", xSplit: columns, ySplit: headerRow, topLeftCell: topLeft, showGridLines: false }];
   sheet.pageSetup.printTitlesRow = `${options.firstHeaderRow ?? headerRow}:${headerRow}`;
+}
+
+/**
+ * A sheet holding one table: its columns, the header block, and the table's header row (the
+ * columns' labels) frozen and repeated on printed pages. Returns the sheet and the number of that
+ * header row; the table's rows follow it.
+ */
+export function addTableSheet(workbook: ExcelJS.Workbook, name: string, columns: Column[], block: HeaderBlock, landscape = true) {
+  const sheet = addSheet(workbook, name, columns, landscape);
+  const head = writeHeaderBlock(sheet, block);
+  writeTableHeader(
+    sheet,
+    head,
+    columns.map((c) => c.header),
+    columns,
+  );
+  freezeAt(sheet, head);
+  return { sheet, head };
 }
 
 /** A label in the first column and a value further right, for footers and totals. */

@@ -74,7 +74,7 @@ export function machineMotor(
   const rmsValid = cycleS <= A.rmsCycleLimitS.value;
   const busyS = cycle.filter((p) => p.kind !== "neutral").reduce((s, p) => s + p.durationS, 0);
   const periodS = Math.max(cycleS, busyS);
-  const rmsKw = Math.sqrt(cycle.reduce((s, p) => s + (p.shaftKw ** 2 * p.durationS) / periodS, 0));
+  const rmsKw = Math.sqrt(cycle.reduce((s, p) => s + p.shaftKw ** 2 * (p.durationS / periodS), 0));
   // Neutral counts as long whenever there is any: the motor sits there until the next cycle.
   const longKw = Math.max(0, ...cycle.filter((p) => p.durationS > 0 && (p.kind === "neutral" || p.durationS > A.motorPeakSeconds.value)).map((p) => p.shaftKw));
   const requiredKw = rmsValid ? Math.max(rmsKw, peakKw / A.motorPeakRatio.value, longKw) : peakKw;

@@ -148,9 +148,11 @@ export function sizeMachineParsed(m: MachineRequirements): MachineDesign {
   const returnMaxLpm = Math.max(...timeline.map((p) => p.returnLpm));
   // From the accumulator the pressure line carries the peak the axes draw, not the pump's delivery.
   const lines = machineLines(designs, qp, returnMaxLpm, plan ? Math.max(qp, ...timeline.map((p) => p.demandLpm)) : qp);
-  // Heat: each phase's loss over the cycle; without cycles the pump sits in neutral.
+  // Heat: each phase's loss over the cycle; without cycles the pump sits in neutral. Weighted by
+  // each phase's share of the period (as the axis's duty shares), since kW × s overflows when the
+  // cycle is near the largest finite time (a tiny cycles-per-hour).
   const periodS = cycleS === null ? null : Math.max(cycleS, busyS);
-  const averageLossKw = periodS === null ? neutral.shaftKw : cycle.reduce((s, p) => s + p.heatKw * p.durationS, 0) / periodS;
+  const averageLossKw = periodS === null ? neutral.shaftKw : cycle.reduce((s, p) => s + p.heatKw * (p.durationS / periodS), 0);
   const coolerKw = Math.max(0, averageLossKw - reservoir.dissipationKw);
 
   // One relief vent for a fixed or double pump behind several P-blocking valves; one valve keeps its own arrangement.

@@ -81,13 +81,20 @@ export const SPEC_ANSWERS = {
 
 type SpecOverrides = Partial<{ [K in keyof typeof SPEC_ANSWERS]: Partial<(typeof SPEC_ANSWERS)[K]> }>;
 
-/** A spec published through the app's own services (revision 1, open for bids). */
-export async function makePublishedSpec(buyer: User, overrides: SpecOverrides = {}) {
-  const { createDraft, saveStep, publish } = await import("~/services/specs.server");
+/** A draft with every step answered and saved through the app's own services, ready to publish. */
+export async function makeCompleteDraft(buyer: User, overrides: SpecOverrides = {}) {
+  const { createDraft, saveStep } = await import("~/services/specs.server");
   const draft = await createDraft(buyer);
   for (const step of Object.keys(SPEC_ANSWERS) as (keyof typeof SPEC_ANSWERS)[]) {
     await saveStep(buyer, draft.id, { step, answers: { ...SPEC_ANSWERS[step], ...overrides[step] } as Record<string, string>, complete: true });
   }
+  return draft;
+}
+
+/** A spec published through the app's own services (revision 1, open for bids). */
+export async function makePublishedSpec(buyer: User, overrides: SpecOverrides = {}) {
+  const { publish } = await import("~/services/specs.server");
+  const draft = await makeCompleteDraft(buyer, overrides);
   return publish(buyer, draft.id, { cautionsRead: true });
 }
 

@@ -1,7 +1,8 @@
 // Two app servers on one database and one object store, behind a small round-robin proxy on
 // loopback: what a load balancer in front of several servers does, so a test can prove that no
 // request depends on which server answers it. APP_URL is the proxy's address for both servers
-// (links in mail, the origin check and the card service's way back all name the front door).
+// (links in mail, the origin check and the card service's way back all name the front door), and
+// both trust the proxy's X-Forwarded-For (TRUSTED_PROXIES), as the README asks of a balancer.
 import http from "node:http";
 import type { AddressInfo } from "node:net";
 import { freePort } from "../../db/cluster";
@@ -25,14 +26,17 @@ const MAX_BODY = 64 * 1024 * 1024;
 export async function startServerPair(env: NodeJS.ProcessEnv = {}): Promise<ServerPair> {
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
-  const servers = await Promise.all([0, 1].map(() => startHttpApp({ APP_URL: baseUrl, ...env })));
+  const servers = await Promise.all([0, 1].map(() => startHttpApp({ APP_URL: baseUrl, TRUSTED_PROXIES: "loopback", ...env })));
   const live = servers.map(() => true);
   const answered = servers.map(() => 0);
   let turn = 0;
 
   const forward = (index: number, req: http.IncomingMessage, body: Buffer, res: http.ServerResponse, tried: number) => {
     const target = new URL(servers[index].baseUrl);
-    const upstream = http.request({ host: target.hostname, port: target.port, method: req.method, path: req.url, headers: req.headers }, (answer) => {
+    // The balancer names the client, so rate limits count the browser, not the proxy.
+    const forwardedFor = [req.headers["x-forwarded-for"], req.socket.remoteAddress].filter(Boolean).join(", ");
+    const headers = { ...req.headers, "x-forwarded-for": forwardedFor };
+    const upstream = http.request({ host: target.hostname, port: target.port, method: req.method, path: req.url, headers }, (answer) => {
       answered[index] += 1;
       res.writeHead(answer.statusCode ?? 502, answer.headers);
       answer.pipe(res);

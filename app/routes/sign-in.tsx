@@ -11,6 +11,7 @@ import { FormErrors, TextField } from "~/components/form-field";
 import { Button } from "~/components/ui";
 import { signInSchema } from "~/schemas/account";
 import { SignInError } from "~/services/accounts.server";
+import { recordAudit } from "~/services/audit.server";
 import { Throttled, clientOf, throttledPasswordCheck } from "~/services/throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Tenderflow" }];
@@ -42,6 +43,8 @@ export async function action(args: Route.ActionArgs) {
     return signInRedirect(request, user.id, safeRedirect(submission.value.redirectTo, HOME_BY_ROLE[user.role]));
   } catch (error) {
     if (error instanceof Throttled) {
+      // Refused before any password is compared, yet an attempt the admins should see like any failed one.
+      await recordAudit({ actor: { typedEmail: submission.value.email }, action: "sign-in-failed", details: { reason: "throttled" } });
       const headers = { "Retry-After": String(error.retryAfterS) };
       return data(submission.reply({ formErrors: [error.message], hideFields: ["password"] }), { status: 429, headers });
     }

@@ -9,6 +9,7 @@ import * as adminUsers from "~/routes/admin.users";
 import * as adminOrgs from "~/routes/admin.organisations";
 import * as adminAudit from "~/routes/admin.audit";
 import { listAuditEvents } from "~/services/audit-log.server";
+import { SIGN_IN_LIMITS } from "~/services/throttle.server";
 import { awardedJob } from "../support/awards";
 import { PASSWORD, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
 import { Visitor } from "../support/routes";
@@ -73,6 +74,17 @@ describe("what the audit log records", () => {
     const failed = await AuditEvent.findOne({ where: { action: "sign-in-failed", actorEmail: buyer.email }, rejectOnEmpty: true });
     expect(failed.actorId).toBeNull();
     expect(JSON.stringify(failed.toJSON())).not.toContain("a-wrong-password-here");
+  });
+
+  it("a sign-in refused by the rate limit, like a failed one, the password neither compared nor kept", async () => {
+    const buyer = await makeMember("buyer");
+    const attempt = (password: string) => new Visitor().post(signIn.action, "/sign-in", { email: buyer.email, password });
+    for (let i = 0; i < SIGN_IN_LIMITS.perAccountClient; i++) expect((await attempt(`wrong-password-${i}`)).status).toBe(400);
+    expect((await attempt(PASSWORD)).status).toBe(429);
+    const refused = await AuditEvent.findAll({ where: { action: "sign-in-failed", actorEmail: buyer.email, details: { reason: "throttled" } } });
+    expect(refused).toHaveLength(1);
+    expect(refused[0].actorId).toBeNull();
+    expect(JSON.stringify(refused[0].toJSON())).not.toContain(PASSWORD);
   });
 
   it("role changes, deactivations, assignments and shop decisions, by the admin who made them", async () => {

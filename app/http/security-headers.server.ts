@@ -37,19 +37,23 @@ export function contentSecurityPolicy(nonce: string, dev = underDevServer()) {
 }
 
 /**
- * Adds the security headers to a response. Nothing answered to a request that carried a
- * cookie (a session) is kept by shared or browser caches; a route's own Cache-Control stands
- * only for anonymous requests.
+ * Adds the security headers to a response. A header the route set itself stands (a stored
+ * file's download carries its own stricter CSP, `default-src 'none'; sandbox`); ours fill in
+ * what it left out. Nothing answered to a request that carried a cookie (a session) is kept by
+ * shared or browser caches; a route's own Cache-Control stands only for anonymous requests.
  */
 export function applySecurityHeaders(response: Response, { nonce, withCookie }: { nonce: string; withCookie: boolean }) {
   const headers = response.headers;
-  headers.set("Content-Security-Policy", contentSecurityPolicy(nonce));
-  headers.set("X-Content-Type-Options", "nosniff");
-  headers.set("X-Frame-Options", "DENY");
-  headers.set("Referrer-Policy", "same-origin");
-  headers.set("Cross-Origin-Opener-Policy", "same-origin");
-  headers.set("Permissions-Policy", "camera=(), microphone=(), geolocation=(), payment=()");
+  const ours: [string, string][] = [
+    ["Content-Security-Policy", contentSecurityPolicy(nonce)],
+    ["X-Content-Type-Options", "nosniff"],
+    ["X-Frame-Options", "DENY"],
+    ["Referrer-Policy", "same-origin"],
+    ["Cross-Origin-Opener-Policy", "same-origin"],
+    ["Permissions-Policy", "camera=(), microphone=(), geolocation=(), payment=()"],
+  ];
+  if (env().APP_URL.startsWith("https://")) ours.push(["Strict-Transport-Security", "max-age=31536000; includeSubDomains"]);
+  for (const [name, value] of ours) if (!headers.has(name)) headers.set(name, value);
   if (withCookie || !headers.has("Cache-Control")) headers.set("Cache-Control", "private, no-store");
-  if (env().APP_URL.startsWith("https://")) headers.set("Strict-Transport-Security", "max-age=31536000; includeSubDomains");
   return response;
 }

@@ -1,7 +1,7 @@
 import type { Route } from "./+types/job-order.pdf";
 import { requireUser } from "~/auth/permissions.server";
 import { notFound } from "~/services/errors.server";
-import { contentDisposition } from "~/services/attachments.server";
+import { downloadResponse } from "~/services/file-download.server";
 import { safeFileStem } from "~/services/exports/file-name";
 import { orderConfirmationFor } from "~/services/order-confirmation.server";
 import { orderPdf } from "~/services/order-pdf.server";
@@ -12,13 +12,6 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const { order } = await orderConfirmationFor(user, params.jobId);
   if (!order) notFound("This job was awarded before order confirmations were made.");
   const bytes = await orderPdf(order);
-  return new Response(bytes, {
-    headers: {
-      "Content-Type": "application/pdf",
-      "Content-Length": String(bytes.byteLength),
-      "Content-Disposition": contentDisposition(`${order.number} - ${safeFileStem(order.spec.title)} - order confirmation.pdf`),
-      "X-Content-Type-Options": "nosniff",
-      "Cache-Control": "private, no-store",
-    },
-  });
+  const fileName = `${order.number} - ${safeFileStem(order.spec.title)} - order confirmation.pdf`;
+  return downloadResponse(bytes, { fileName, contentType: "application/pdf", sizeBytes: bytes.byteLength });
 }

@@ -1,6 +1,5 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "~/db.server";
-import { centsColumn } from "./columns.server";
+import { DataTypes, type CreationOptional } from "sequelize";
+import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns } from "./columns.server";
 import { BID_STATUSES, type BidStatus } from "~/content/bid-status";
 import type { AlternativeCircuit, OfferExtra, OfferTerms, OwnLine } from "~/content/offer-terms";
 
@@ -34,8 +33,7 @@ export interface BidOffer {
   notes: string;
 }
 
-export class Bid extends Model<InferAttributes<Bid>, InferCreationAttributes<Bid>> {
-  declare id: CreationOptional<string>;
+export class Bid extends ChangingRow<Bid> {
   declare specId: string;
   declare organisationId: string;
   declare createdById: string;
@@ -57,85 +55,51 @@ export class Bid extends Model<InferAttributes<Bid>, InferCreationAttributes<Bid
   declare alternativeCircuit: CreationOptional<AlternativeCircuit | null>;
   declare notes: CreationOptional<string>;
   declare submittedAt: Date | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
-Bid.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    specId: { type: DataTypes.UUID, allowNull: false },
-    organisationId: { type: DataTypes.UUID, allowNull: false },
-    createdById: { type: DataTypes.UUID, allowNull: false },
-    status: { type: DataTypes.ENUM(...BID_STATUSES), allowNull: false, defaultValue: "draft" },
-    specRevision: { type: DataTypes.INTEGER, allowNull: false },
-    version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-    currency: { type: DataTypes.STRING(3), allowNull: false },
-    lines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-    units: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
-    setTotalCents: centsColumn("setTotalCents", 0),
-    totalCents: centsColumn("totalCents", 0),
-    leadTimeWeeks: { type: DataTypes.INTEGER, allowNull: true },
-    validUntil: { type: DataTypes.DATEONLY, allowNull: true },
-    extras: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-    ownLines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-    offerTerms: { type: DataTypes.JSONB, allowNull: true },
-    alternativeCircuit: { type: DataTypes.JSONB, allowNull: true },
-    notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
-    submittedAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "bids" },
-);
+initRow(Bid, "bids", {
+  specId: { type: DataTypes.UUID, allowNull: false },
+  organisationId: { type: DataTypes.UUID, allowNull: false },
+  createdById: { type: DataTypes.UUID, allowNull: false },
+  status: { type: DataTypes.ENUM(...BID_STATUSES), allowNull: false, defaultValue: "draft" },
+  specRevision: { type: DataTypes.INTEGER, allowNull: false },
+  version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+  currency: { type: DataTypes.STRING(3), allowNull: false },
+  lines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+  units: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+  setTotalCents: centsColumn("setTotalCents", 0),
+  totalCents: centsColumn("totalCents", 0),
+  leadTimeWeeks: { type: DataTypes.INTEGER, allowNull: true },
+  validUntil: { type: DataTypes.DATEONLY, allowNull: true },
+  extras: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+  ownLines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+  offerTerms: { type: DataTypes.JSONB, allowNull: true },
+  alternativeCircuit: { type: DataTypes.JSONB, allowNull: true },
+  notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+  submittedAt: { type: DataTypes.DATE, allowNull: true },
+});
 
-export class BidVersion extends Model<InferAttributes<BidVersion>, InferCreationAttributes<BidVersion>> {
-  declare id: CreationOptional<string>;
+export class BidVersion extends Row<BidVersion> {
   declare bidId: string;
   declare version: number;
   declare event: "submitted" | "withdrawn";
   declare specRevision: number;
   declare offer: BidOffer;
   declare createdById: string;
-  declare createdAt: CreationOptional<Date>;
 }
 
-BidVersion.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    bidId: { type: DataTypes.UUID, allowNull: false },
-    version: { type: DataTypes.INTEGER, allowNull: false },
-    event: { type: DataTypes.ENUM("submitted", "withdrawn"), allowNull: false },
-    specRevision: { type: DataTypes.INTEGER, allowNull: false },
-    offer: { type: DataTypes.JSONB, allowNull: false },
-    createdById: { type: DataTypes.UUID, allowNull: false },
-    createdAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "bid_versions", updatedAt: false },
-);
+initRow(BidVersion, "bid_versions", {
+  bidId: { type: DataTypes.UUID, allowNull: false },
+  version: { type: DataTypes.INTEGER, allowNull: false },
+  event: { type: DataTypes.ENUM("submitted", "withdrawn"), allowNull: false },
+  specRevision: { type: DataTypes.INTEGER, allowNull: false },
+  offer: { type: DataTypes.JSONB, allowNull: false },
+  createdById: { type: DataTypes.UUID, allowNull: false },
+});
 
-/** A document a shop attaches to its offer (quotation PDF, datasheet, drawing); the bytes are in file storage. */
-export class BidDocument extends Model<InferAttributes<BidDocument>, InferCreationAttributes<BidDocument>> {
-  declare id: CreationOptional<string>;
+/** A document a shop attaches to its offer (quotation PDF, datasheet, drawing). */
+export class BidDocument extends StoredFileRow<BidDocument> {
   declare bidId: string;
-  declare fileName: string;
-  declare contentType: string;
-  declare sizeBytes: number;
-  declare storageKey: string;
-  declare uploadedById: string;
-  declare createdAt: CreationOptional<Date>;
 }
 
-BidDocument.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    bidId: { type: DataTypes.UUID, allowNull: false },
-    fileName: { type: DataTypes.STRING(200), allowNull: false },
-    contentType: { type: DataTypes.STRING(100), allowNull: false },
-    sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
-    storageKey: { type: DataTypes.STRING(200), allowNull: false, unique: true },
-    uploadedById: { type: DataTypes.UUID, allowNull: false },
-    createdAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "bid_documents", updatedAt: false },
-);
+initRow(BidDocument, "bid_documents", { bidId: { type: DataTypes.UUID, allowNull: false }, ...storedFileColumns() });

@@ -1,14 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "~/db.server";
-import { centsColumn } from "./columns.server";
+import { DataTypes, type CreationOptional } from "sequelize";
+import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns } from "./columns.server";
 import type { MilestoneKey } from "~/content/job-milestones";
 import type { OrderDocument } from "~/content/order-document";
 
 export type BalanceMethod = "card" | "bank_transfer";
 
 /** An awarded bid being built and delivered. */
-export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job>> {
-  declare id: CreationOptional<string>;
+export class Job extends ChangingRow<Job> {
   declare specId: string;
   declare bidId: string;
   declare buyerOrganisationId: string;
@@ -31,63 +29,46 @@ export class Job extends Model<InferAttributes<Job>, InferCreationAttributes<Job
   declare balancePaidAt: CreationOptional<Date | null>;
   declare balanceMethod: CreationOptional<BalanceMethod | null>;
   declare balanceReference: CreationOptional<string | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
-Job.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    specId: { type: DataTypes.UUID, allowNull: false, unique: true },
-    bidId: { type: DataTypes.UUID, allowNull: false, unique: true },
-    buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
-    shopOrganisationId: { type: DataTypes.UUID, allowNull: false },
-    awardedById: { type: DataTypes.UUID, allowNull: false },
-    awardedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
-    currency: { type: DataTypes.STRING(3), allowNull: false },
-    totalCents: centsColumn("totalCents"),
-    retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
-    retainerCents: centsColumn("retainerCents"),
-    retainerPaidAt: { type: DataTypes.DATE, allowNull: true },
-    retainerRefundedCents: centsColumn("retainerRefundedCents", 0),
-    stage: { type: DataTypes.STRING(30), allowNull: true },
-    acceptedAt: { type: DataTypes.DATE, allowNull: true },
-    acceptedById: { type: DataTypes.UUID, allowNull: true },
-    balancePaidAt: { type: DataTypes.DATE, allowNull: true },
-    balanceMethod: { type: DataTypes.STRING(20), allowNull: true },
-    balanceReference: { type: DataTypes.STRING(200), allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "jobs" },
-);
+initRow(Job, "jobs", {
+  specId: { type: DataTypes.UUID, allowNull: false, unique: true },
+  bidId: { type: DataTypes.UUID, allowNull: false, unique: true },
+  buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
+  shopOrganisationId: { type: DataTypes.UUID, allowNull: false },
+  awardedById: { type: DataTypes.UUID, allowNull: false },
+  awardedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+  currency: { type: DataTypes.STRING(3), allowNull: false },
+  totalCents: centsColumn("totalCents"),
+  retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
+  retainerCents: centsColumn("retainerCents"),
+  retainerPaidAt: { type: DataTypes.DATE, allowNull: true },
+  retainerRefundedCents: centsColumn("retainerRefundedCents", 0),
+  stage: { type: DataTypes.STRING(30), allowNull: true },
+  acceptedAt: { type: DataTypes.DATE, allowNull: true },
+  acceptedById: { type: DataTypes.UUID, allowNull: true },
+  balancePaidAt: { type: DataTypes.DATE, allowNull: true },
+  balanceMethod: { type: DataTypes.STRING(20), allowNull: true },
+  balanceReference: { type: DataTypes.STRING(200), allowNull: true },
+});
 
-export class JobMilestone extends Model<InferAttributes<JobMilestone>, InferCreationAttributes<JobMilestone>> {
-  declare id: CreationOptional<string>;
+export class JobMilestone extends ChangingRow<JobMilestone> {
   declare jobId: string;
   declare key: MilestoneKey;
   declare position: number;
   declare targetDate: string | null;
   declare reachedAt: Date | null;
   declare reachedById: string | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
-JobMilestone.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    jobId: { type: DataTypes.UUID, allowNull: false },
-    key: { type: DataTypes.STRING(30), allowNull: false },
-    position: { type: DataTypes.INTEGER, allowNull: false },
-    targetDate: { type: DataTypes.DATEONLY, allowNull: true },
-    reachedAt: { type: DataTypes.DATE, allowNull: true },
-    reachedById: { type: DataTypes.UUID, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "job_milestones" },
-);
+initRow(JobMilestone, "job_milestones", {
+  jobId: { type: DataTypes.UUID, allowNull: false },
+  key: { type: DataTypes.STRING(30), allowNull: false },
+  position: { type: DataTypes.INTEGER, allowNull: false },
+  targetDate: { type: DataTypes.DATEONLY, allowNull: true },
+  reachedAt: { type: DataTypes.DATE, allowNull: true },
+  reachedById: { type: DataTypes.UUID, allowNull: true },
+});
 
 export type JobEventKind =
   | "awarded"
@@ -105,8 +86,7 @@ export type JobEventKind =
   | "balance_refunded";
 
 /** One entry of a job's history: who did what, when. */
-export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttributes<JobEvent>> {
-  declare id: CreationOptional<string>;
+export class JobEvent extends Row<JobEvent> {
   declare jobId: string;
   declare userId: string;
   declare kind: JobEventKind;
@@ -115,73 +95,44 @@ export class JobEvent extends Model<InferAttributes<JobEvent>, InferCreationAttr
   declare body: CreationOptional<string>;
   /** "operator": an account manager's internal note, not shown to buyer or shop. */
   declare visibility: CreationOptional<"all" | "operator">;
-  declare createdAt: CreationOptional<Date>;
 }
 
-JobEvent.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    jobId: { type: DataTypes.UUID, allowNull: false },
-    userId: { type: DataTypes.UUID, allowNull: false },
-    kind: { type: DataTypes.STRING(30), allowNull: false },
-    milestone: { type: DataTypes.STRING(30), allowNull: true },
-    detail: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-    body: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
-    visibility: { type: DataTypes.ENUM("all", "operator"), allowNull: false, defaultValue: "all" },
-    createdAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "job_events", updatedAt: false },
-);
+initRow(JobEvent, "job_events", {
+  jobId: { type: DataTypes.UUID, allowNull: false },
+  userId: { type: DataTypes.UUID, allowNull: false },
+  kind: { type: DataTypes.STRING(30), allowNull: false },
+  milestone: { type: DataTypes.STRING(30), allowNull: true },
+  detail: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+  body: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+  visibility: { type: DataTypes.ENUM("all", "operator"), allowNull: false, defaultValue: "all" },
+});
 
 export type JobFileKind = "test_certificate" | "approved_drawing" | "problem_photo";
 
 /** A file exchanged on a job: who uploaded it and when are part of the record. */
-export class JobFile extends Model<InferAttributes<JobFile>, InferCreationAttributes<JobFile>> {
-  declare id: CreationOptional<string>;
+export class JobFile extends StoredFileRow<JobFile> {
   declare jobId: string;
   declare kind: JobFileKind;
-  declare fileName: string;
-  declare contentType: string;
-  declare sizeBytes: number;
-  declare storageKey: string;
-  declare uploadedById: string;
   /** The problem report a photo belongs to. */
   declare eventId: string | null;
-  declare createdAt: CreationOptional<Date>;
 }
 
-JobFile.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    jobId: { type: DataTypes.UUID, allowNull: false },
-    kind: { type: DataTypes.STRING(30), allowNull: false },
-    fileName: { type: DataTypes.STRING(200), allowNull: false },
-    contentType: { type: DataTypes.STRING(100), allowNull: false },
-    sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
-    storageKey: { type: DataTypes.STRING(200), allowNull: false },
-    uploadedById: { type: DataTypes.UUID, allowNull: false },
-    eventId: { type: DataTypes.UUID, allowNull: true },
-    createdAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "job_files", updatedAt: false },
-);
+initRow(JobFile, "job_files", {
+  jobId: { type: DataTypes.UUID, allowNull: false },
+  kind: { type: DataTypes.STRING(30), allowNull: false },
+  ...storedFileColumns(false),
+  eventId: { type: DataTypes.UUID, allowNull: true },
+});
 
 /** The order confirmation made at the award; the database refuses any update of it. */
-export class OrderConfirmation extends Model<InferAttributes<OrderConfirmation>, InferCreationAttributes<OrderConfirmation>> {
-  declare id: CreationOptional<string>;
+export class OrderConfirmation extends Row<OrderConfirmation> {
   declare jobId: string;
   declare number: string;
   declare document: OrderDocument;
-  declare createdAt: CreationOptional<Date>;
 }
 
-OrderConfirmation.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    jobId: { type: DataTypes.UUID, allowNull: false, unique: true },
-    number: { type: DataTypes.STRING(20), allowNull: false, unique: true },
-    document: { type: DataTypes.JSONB, allowNull: false },
-    createdAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "order_confirmations", updatedAt: false },
-);
+initRow(OrderConfirmation, "order_confirmations", {
+  jobId: { type: DataTypes.UUID, allowNull: false, unique: true },
+  number: { type: DataTypes.STRING(20), allowNull: false, unique: true },
+  document: { type: DataTypes.JSONB, allowNull: false },
+});

@@ -1,10 +1,9 @@
-import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "~/db.server";
+import { DataTypes, type CreationOptional, type ForeignKey } from "sequelize";
+import { ChangingRow, initRow } from "./columns.server";
 import { ORGANISATION_KINDS, type OrganisationKind } from "~/auth/roles";
 import { APPROVALS, type Approval } from "~/content/shop-approval";
 
-export class Organisation extends Model<InferAttributes<Organisation>, InferCreationAttributes<Organisation>> {
-  declare id: CreationOptional<string>;
+export class Organisation extends ChangingRow<Organisation> {
   declare name: string;
   declare kind: OrganisationKind;
   declare region: string | null;
@@ -24,8 +23,6 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
   declare quoteContactName: CreationOptional<string | null>;
   declare quoteContactEmail: CreationOptional<string | null>;
   declare quoteContactPhone: CreationOptional<string | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 function defaultApproval(organisation: Organisation) {
@@ -33,9 +30,10 @@ function defaultApproval(organisation: Organisation) {
   else organisation.approval = null;
 }
 
-Organisation.init(
+initRow(
+  Organisation,
+  "organisations",
   {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
     name: { type: DataTypes.STRING(120), allowNull: false },
     kind: { type: DataTypes.ENUM(...ORGANISATION_KINDS), allowNull: false },
     region: { type: DataTypes.STRING(80), allowNull: true },
@@ -50,12 +48,8 @@ Organisation.init(
     quoteContactName: { type: DataTypes.STRING(120), allowNull: true },
     quoteContactEmail: { type: DataTypes.STRING(254), allowNull: true },
     quoteContactPhone: { type: DataTypes.STRING(40), allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
   },
   {
-    sequelize,
-    tableName: "organisations",
     hooks: {
       // Safe by default: a shop made anywhere (sign-up, a script) waits for an admin, unless
       // whoever makes it decides otherwise; other kinds never carry an approval.

@@ -1,5 +1,5 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "~/db.server";
+import { DataTypes, type CreationOptional } from "sequelize";
+import { ChangingRow, initRow } from "./columns.server";
 
 const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
@@ -13,8 +13,7 @@ export const MAIL_PRIORITIES = { account: 0, activity: 1, announcement: 2 } as c
 export type MailPriority = keyof typeof MAIL_PRIORITIES;
 
 /** An e-mail and how its delivery went. Written in the same transaction as the change it reports, with the job that sends it. */
-export class OutboxMail extends Model<InferAttributes<OutboxMail>, InferCreationAttributes<OutboxMail>> {
-  declare id: CreationOptional<string>;
+export class OutboxMail extends ChangingRow<OutboxMail> {
   declare to: string;
   declare subject: string;
   declare text: string;
@@ -28,26 +27,18 @@ export class OutboxMail extends Model<InferAttributes<OutboxMail>, InferCreation
   /** The pg-boss job that delivers it (its latest, after "Send again"). */
   declare jobId: CreationOptional<string | null>;
   declare sentAt: Date | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
-OutboxMail.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    to: { type: DataTypes.STRING(254), allowNull: false },
-    subject: { type: DataTypes.STRING(200), allowNull: false },
-    text: { type: DataTypes.TEXT, allowNull: false },
-    html: { type: DataTypes.TEXT, allowNull: true },
-    status: { type: DataTypes.ENUM(...OUTBOX_STATUSES), allowNull: false, defaultValue: "pending" },
-    priority: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: MAIL_PRIORITIES.activity },
-    attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-    nextAttemptAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
-    lastError: { type: DataTypes.TEXT, allowNull: true },
-    jobId: { type: DataTypes.UUID, allowNull: true },
-    sentAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "outbox_mails" },
-);
+initRow(OutboxMail, "outbox_mails", {
+  to: { type: DataTypes.STRING(254), allowNull: false },
+  subject: { type: DataTypes.STRING(200), allowNull: false },
+  text: { type: DataTypes.TEXT, allowNull: false },
+  html: { type: DataTypes.TEXT, allowNull: true },
+  status: { type: DataTypes.ENUM(...OUTBOX_STATUSES), allowNull: false, defaultValue: "pending" },
+  priority: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: MAIL_PRIORITIES.activity },
+  attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+  nextAttemptAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+  lastError: { type: DataTypes.TEXT, allowNull: true },
+  jobId: { type: DataTypes.UUID, allowNull: true },
+  sentAt: { type: DataTypes.DATE, allowNull: true },
+});

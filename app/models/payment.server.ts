@@ -1,13 +1,12 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
+import { ChangingRow, centsColumn, initRow } from "./columns.server";
 import { sequelize } from "~/db.server";
-import { centsColumn } from "./columns.server";
 import { PAYMENT_STATUSES, type PaymentStatus } from "~/content/payment-status";
 
 export type PaymentPurpose = "retainer" | "balance";
 
 /** One attempt to pay a job's retainer or balance through a Stripe Checkout Session. */
-export class Payment extends Model<InferAttributes<Payment>, InferCreationAttributes<Payment>> {
-  declare id: CreationOptional<string>;
+export class Payment extends ChangingRow<Payment> {
   declare jobId: string;
   /** What of the job's price it pays: the retainer, or the balance after the handover. */
   declare purpose: CreationOptional<PaymentPurpose>;
@@ -30,42 +29,33 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare duplicate: CreationOptional<boolean>;
   /** When the reconciler last asked Stripe about it. */
   declare checkedAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
 /** Attempts that may still take a card; the database allows one per job and purpose (payments_one_open_per_job). */
 export const OPEN_PAYMENT_STATUSES = ["pending", "failed"] as const satisfies readonly PaymentStatus[];
 
-Payment.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    jobId: { type: DataTypes.UUID, allowNull: false },
-    purpose: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "retainer" },
-    buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
-    createdById: { type: DataTypes.UUID, allowNull: false },
-    status: { type: DataTypes.ENUM(...PAYMENT_STATUSES), allowNull: false, defaultValue: "pending" },
-    amountCents: centsColumn("amountCents"),
-    refundedCents: centsColumn("refundedCents", 0),
-    currency: { type: DataTypes.STRING(3), allowNull: false },
-    checkoutSessionId: { type: DataTypes.STRING(255), allowNull: true },
-    checkoutUrl: { type: DataTypes.TEXT, allowNull: true },
-    paymentIntentId: { type: DataTypes.STRING(255), allowNull: true },
-    customerId: { type: DataTypes.STRING(255), allowNull: true },
-    failureMessage: { type: DataTypes.TEXT, allowNull: true },
-    paidAt: { type: DataTypes.DATE, allowNull: true },
-    flag: { type: DataTypes.TEXT, allowNull: true },
-    flaggedAt: { type: DataTypes.DATE, allowNull: true },
-    duplicate: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-    checkedAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "payments" },
-);
+initRow(Payment, "payments", {
+  jobId: { type: DataTypes.UUID, allowNull: false },
+  purpose: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "retainer" },
+  buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
+  createdById: { type: DataTypes.UUID, allowNull: false },
+  status: { type: DataTypes.ENUM(...PAYMENT_STATUSES), allowNull: false, defaultValue: "pending" },
+  amountCents: centsColumn("amountCents"),
+  refundedCents: centsColumn("refundedCents", 0),
+  currency: { type: DataTypes.STRING(3), allowNull: false },
+  checkoutSessionId: { type: DataTypes.STRING(255), allowNull: true },
+  checkoutUrl: { type: DataTypes.TEXT, allowNull: true },
+  paymentIntentId: { type: DataTypes.STRING(255), allowNull: true },
+  customerId: { type: DataTypes.STRING(255), allowNull: true },
+  failureMessage: { type: DataTypes.TEXT, allowNull: true },
+  paidAt: { type: DataTypes.DATE, allowNull: true },
+  flag: { type: DataTypes.TEXT, allowNull: true },
+  flaggedAt: { type: DataTypes.DATE, allowNull: true },
+  duplicate: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+  checkedAt: { type: DataTypes.DATE, allowNull: true },
+});
 
-export class Refund extends Model<InferAttributes<Refund>, InferCreationAttributes<Refund>> {
-  declare id: CreationOptional<string>;
+export class Refund extends ChangingRow<Refund> {
   declare paymentId: string;
   /** Null for a refund Tenderflow made by itself (a second charge). */
   declare requestedById: string | null;
@@ -75,26 +65,18 @@ export class Refund extends Model<InferAttributes<Refund>, InferCreationAttribut
   declare stripeRefundId: string | null;
   declare failureMessage: string | null;
   declare recordedAt: Date | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
-Refund.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    paymentId: { type: DataTypes.UUID, allowNull: false },
-    requestedById: { type: DataTypes.UUID, allowNull: true },
-    amountCents: centsColumn("amountCents"),
-    reason: { type: DataTypes.TEXT, allowNull: false },
-    status: { type: DataTypes.ENUM("requested", "recorded", "failed"), allowNull: false, defaultValue: "requested" },
-    stripeRefundId: { type: DataTypes.STRING(255), allowNull: true },
-    failureMessage: { type: DataTypes.TEXT, allowNull: true },
-    recordedAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "refunds" },
-);
+initRow(Refund, "refunds", {
+  paymentId: { type: DataTypes.UUID, allowNull: false },
+  requestedById: { type: DataTypes.UUID, allowNull: true },
+  amountCents: centsColumn("amountCents"),
+  reason: { type: DataTypes.TEXT, allowNull: false },
+  status: { type: DataTypes.ENUM("requested", "recorded", "failed"), allowNull: false, defaultValue: "requested" },
+  stripeRefundId: { type: DataTypes.STRING(255), allowNull: true },
+  failureMessage: { type: DataTypes.TEXT, allowNull: true },
+  recordedAt: { type: DataTypes.DATE, allowNull: true },
+});
 
 /** A webhook event as received; its id is Stripe's, so each is handled once. */
 export class StripeEvent extends Model<InferAttributes<StripeEvent>, InferCreationAttributes<StripeEvent>> {

@@ -1,5 +1,5 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { sequelize } from "~/db.server";
+import { DataTypes, type CreationOptional } from "sequelize";
+import { ChangingRow, Row, StoredFileRow, initRow, storedFileColumns } from "./columns.server";
 import type { UnitSystem } from "~/units/systems";
 import type { MachineDesign } from "~/hydraulics/machine-design";
 
@@ -9,8 +9,7 @@ export { SPEC_STATUSES, type SpecStatus };
 
 export type SpecAnswers = Record<string, Record<string, string>>;
 
-export class Spec extends Model<InferAttributes<Spec>, InferCreationAttributes<Spec>> {
-  declare id: CreationOptional<string>;
+export class Spec extends ChangingRow<Spec> {
   declare organisationId: string;
   declare createdById: string;
   declare title: CreationOptional<string>;
@@ -31,35 +30,27 @@ export class Spec extends Model<InferAttributes<Spec>, InferCreationAttributes<S
   /** Copied from the current revision's design, for filtering open specs. */
   declare reliefSettingBar: number | null;
   declare pumpFlowLpm: number | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
-Spec.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    organisationId: { type: DataTypes.UUID, allowNull: false },
-    createdById: { type: DataTypes.UUID, allowNull: false },
-    title: { type: DataTypes.STRING(120), allowNull: false, defaultValue: "" },
-    status: { type: DataTypes.ENUM(...SPEC_STATUSES), allowNull: false, defaultValue: "draft" },
-    answers: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-    unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
-    completedSteps: { type: DataTypes.ARRAY(DataTypes.STRING(20)), allowNull: false, defaultValue: [] },
-    currentRevision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-    revising: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-    bidDeadline: { type: DataTypes.DATE, allowNull: true },
-    retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
-    deliveryRegion: { type: DataTypes.STRING(80), allowNull: true },
-    publishedAt: { type: DataTypes.DATE, allowNull: true },
-    currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: "EUR" },
-    unitsWanted: { type: DataTypes.INTEGER, allowNull: true },
-    reliefSettingBar: { type: DataTypes.REAL, allowNull: true },
-    pumpFlowLpm: { type: DataTypes.REAL, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "specs" },
-);
+initRow(Spec, "specs", {
+  organisationId: { type: DataTypes.UUID, allowNull: false },
+  createdById: { type: DataTypes.UUID, allowNull: false },
+  title: { type: DataTypes.STRING(120), allowNull: false, defaultValue: "" },
+  status: { type: DataTypes.ENUM(...SPEC_STATUSES), allowNull: false, defaultValue: "draft" },
+  answers: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+  unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
+  completedSteps: { type: DataTypes.ARRAY(DataTypes.STRING(20)), allowNull: false, defaultValue: [] },
+  currentRevision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+  revising: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+  bidDeadline: { type: DataTypes.DATE, allowNull: true },
+  retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
+  deliveryRegion: { type: DataTypes.STRING(80), allowNull: true },
+  publishedAt: { type: DataTypes.DATE, allowNull: true },
+  currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: "EUR" },
+  unitsWanted: { type: DataTypes.INTEGER, allowNull: true },
+  reliefSettingBar: { type: DataTypes.REAL, allowNull: true },
+  pumpFlowLpm: { type: DataTypes.REAL, allowNull: true },
+});
 
 export interface SpecAxis {
   name: string;
@@ -67,8 +58,7 @@ export interface SpecAxis {
   design: unknown;
 }
 
-export class SpecRevision extends Model<InferAttributes<SpecRevision>, InferCreationAttributes<SpecRevision>> {
-  declare id: CreationOptional<string>;
+export class SpecRevision extends Row<SpecRevision> {
   declare specId: string;
   declare number: number;
   declare axes: SpecAxis[];
@@ -78,46 +68,22 @@ export class SpecRevision extends Model<InferAttributes<SpecRevision>, InferCrea
   declare unitSystem: UnitSystem;
   declare engineVersion: string;
   declare createdById: string;
-  declare createdAt: CreationOptional<Date>;
 }
 
-SpecRevision.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    specId: { type: DataTypes.UUID, allowNull: false },
-    number: { type: DataTypes.INTEGER, allowNull: false },
-    axes: { type: DataTypes.JSONB, allowNull: false },
-    machine: { type: DataTypes.JSONB, allowNull: true },
-    answers: { type: DataTypes.JSONB, allowNull: false },
-    unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false },
-    engineVersion: { type: DataTypes.STRING(20), allowNull: false },
-    createdById: { type: DataTypes.UUID, allowNull: false },
-    createdAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "spec_revisions", updatedAt: false },
-);
+initRow(SpecRevision, "spec_revisions", {
+  specId: { type: DataTypes.UUID, allowNull: false },
+  number: { type: DataTypes.INTEGER, allowNull: false },
+  axes: { type: DataTypes.JSONB, allowNull: false },
+  machine: { type: DataTypes.JSONB, allowNull: true },
+  answers: { type: DataTypes.JSONB, allowNull: false },
+  unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false },
+  engineVersion: { type: DataTypes.STRING(20), allowNull: false },
+  createdById: { type: DataTypes.UUID, allowNull: false },
+});
 
-export class SpecAttachment extends Model<InferAttributes<SpecAttachment>, InferCreationAttributes<SpecAttachment>> {
-  declare id: CreationOptional<string>;
+/** A drawing or document a buyer attaches to a spec. */
+export class SpecAttachment extends StoredFileRow<SpecAttachment> {
   declare specId: string;
-  declare fileName: string;
-  declare contentType: string;
-  declare sizeBytes: number;
-  declare storageKey: string;
-  declare uploadedById: string;
-  declare createdAt: CreationOptional<Date>;
 }
 
-SpecAttachment.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    specId: { type: DataTypes.UUID, allowNull: false },
-    fileName: { type: DataTypes.STRING(200), allowNull: false },
-    contentType: { type: DataTypes.STRING(100), allowNull: false },
-    sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
-    storageKey: { type: DataTypes.STRING(200), allowNull: false, unique: true },
-    uploadedById: { type: DataTypes.UUID, allowNull: false },
-    createdAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "spec_attachments", updatedAt: false },
-);
+initRow(SpecAttachment, "spec_attachments", { specId: { type: DataTypes.UUID, allowNull: false }, ...storedFileColumns() });

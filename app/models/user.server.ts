@@ -1,11 +1,10 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute } from "sequelize";
-import { sequelize } from "~/db.server";
+import { DataTypes, type CreationOptional, type NonAttribute } from "sequelize";
+import { ChangingRow, initRow } from "./columns.server";
 import { ROLES, type Role } from "~/auth/roles";
 import { UNIT_SYSTEMS, type UnitSystem } from "~/units/systems";
 import type { Organisation } from "./organisation.server";
 
-export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
-  declare id: CreationOptional<string>;
+export class User extends ChangingRow<User> {
   declare organisationId: string;
   declare email: string;
   declare name: string;
@@ -14,24 +13,16 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare active: CreationOptional<boolean>;
   declare unitSystem: CreationOptional<UnitSystem>;
   declare lastSignInAt: Date | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare organisation?: NonAttribute<Organisation>;
 }
 
-User.init(
-  {
-    id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
-    organisationId: { type: DataTypes.UUID, allowNull: false },
-    email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
-    name: { type: DataTypes.STRING(120), allowNull: false },
-    passwordHash: { type: DataTypes.STRING(100), allowNull: false },
-    role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
-    active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
-    unitSystem: { type: DataTypes.ENUM(...UNIT_SYSTEMS), allowNull: false, defaultValue: "metric" },
-    lastSignInAt: { type: DataTypes.DATE, allowNull: true },
-    createdAt: DataTypes.DATE,
-    updatedAt: DataTypes.DATE,
-  },
-  { sequelize, tableName: "users" },
-);
+initRow(User, "users", {
+  organisationId: { type: DataTypes.UUID, allowNull: false },
+  email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
+  name: { type: DataTypes.STRING(120), allowNull: false },
+  passwordHash: { type: DataTypes.STRING(100), allowNull: false },
+  role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
+  active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+  unitSystem: { type: DataTypes.ENUM(...UNIT_SYSTEMS), allowNull: false, defaultValue: "metric" },
+  lastSignInAt: { type: DataTypes.DATE, allowNull: true },
+});

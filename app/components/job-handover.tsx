@@ -1,4 +1,4 @@
-import { useFetcher } from "react-router";
+import { useActionData, useFetcher, type FetcherWithComponents } from "react-router";
 import { Badge, Button, Card, Notice } from "./ui";
 import { FieldErrors, FormErrors } from "./form-field";
 import { formatMoment } from "~/content/dates";
@@ -8,9 +8,16 @@ import type { JobFileView } from "~/services/job-files.server";
 
 // The job page's handover (the buyer accepts, or raises a problem with a note and photos; the
 // shop reads the problem) and the files buyer and shop exchange on the job. Uploads post as
-// multipart through a fetcher, so a refusal shows beside the form and keeps the note typed.
+// multipart through a fetcher, so a refusal shows beside the form and keeps the note typed;
+// without JavaScript the upload route draws this page again with the reply as its action data.
 
 const INPUT = "mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200";
+
+/** The last reply to one of these forms: its fetcher's, or the page's action data when posted without JavaScript. */
+function useReply(fetcher: FetcherWithComponents<JobUploadReply>, form: JobUploadReply["form"]): JobUploadReply | undefined {
+  const page = useActionData() as Partial<JobUploadReply> | undefined;
+  return fetcher.data ?? (page?.form === form ? (page as JobUploadReply) : undefined);
+}
 
 export function FileList({ files }: { files: JobFileView[] }) {
   return (
@@ -70,12 +77,14 @@ export function HandoverPanel({ jobId, handover }: { jobId: string; handover: Pa
 function AnswerForms({ jobId }: { jobId: string }) {
   const accept = useFetcher<JobUploadReply>();
   const problem = useFetcher<JobUploadReply>();
-  const errors = problem.data?.errors ?? {};
+  const refused = useReply(accept, "accept");
+  const reply = useReply(problem, "problem");
+  const errors = reply?.errors ?? {};
   return (
     <>
       <p className="text-sm text-ink-600">The shop has recorded the handover. Accept it when the unit is delivered as ordered; this closes the job.</p>
       <accept.Form method="post" action={`/jobs/${jobId}/handover?intent=accept`}>
-        <FormErrors errors={accept.data?.errors[""]} />
+        <FormErrors errors={refused?.errors[""]} />
         <Button type="submit" disabled={accept.state !== "idle"}>
           Accept the handover
         </Button>
@@ -88,7 +97,16 @@ function AnswerForms({ jobId }: { jobId: string }) {
             <label htmlFor="problem-note" className="block text-sm font-semibold">
               What is wrong
             </label>
-            <textarea id="problem-note" name="note" rows={4} maxLength={4000} className={INPUT} aria-invalid={errors.note ? true : undefined} />
+            <textarea
+              id="problem-note"
+              name="note"
+              rows={4}
+              maxLength={4000}
+              defaultValue={reply?.typed.note}
+              className={INPUT}
+              aria-invalid={errors.note ? true : undefined}
+              aria-describedby={errors.note ? "problem-note-error" : undefined}
+            />
             <FieldErrors id="problem-note-error" errors={errors.note} />
           </div>
           <div>
@@ -103,6 +121,7 @@ function AnswerForms({ jobId }: { jobId: string }) {
               accept=".png,.jpg,.jpeg"
               className={INPUT}
               aria-invalid={errors.files ? true : undefined}
+              aria-describedby={errors.files ? "problem-photos-error" : undefined}
             />
             <FieldErrors id="problem-photos-error" errors={errors.files} />
           </div>
@@ -118,7 +137,8 @@ function AnswerForms({ jobId }: { jobId: string }) {
 /** Test certificates and the approved drawing: listed for every reader of the job, uploaded by buyer and shop. */
 export function JobFilesPanel({ jobId, files, canUpload }: { jobId: string; files: JobFileView[]; canUpload: boolean }) {
   const upload = useFetcher<JobUploadReply>();
-  const errors = upload.data?.errors ?? {};
+  const reply = useReply(upload, "files");
+  const errors = reply?.errors ?? {};
   if (!files.length && !canUpload) return null;
   return (
     <Card title="Certificates and drawings">
@@ -130,7 +150,7 @@ export function JobFilesPanel({ jobId, files, canUpload }: { jobId: string; file
             <label htmlFor="job-file-kind" className="block text-sm font-semibold">
               The file is
             </label>
-            <select id="job-file-kind" name="kind" className={INPUT} defaultValue="test_certificate">
+            <select id="job-file-kind" name="kind" className={INPUT} defaultValue={reply?.typed.kind ?? "test_certificate"}>
               <option value="test_certificate">A test certificate (PDF, PNG or JPEG)</option>
               <option value="approved_drawing">The approved drawing (PDF, PNG, JPEG, DXF or STEP)</option>
             </select>
@@ -140,7 +160,15 @@ export function JobFilesPanel({ jobId, files, canUpload }: { jobId: string; file
             <label htmlFor="job-files" className="block text-sm font-semibold">
               Files (up to 6 of 10 MB each)
             </label>
-            <input id="job-files" name="files" type="file" multiple className={INPUT} aria-invalid={errors.files ? true : undefined} />
+            <input
+              id="job-files"
+              name="files"
+              type="file"
+              multiple
+              className={INPUT}
+              aria-invalid={errors.files ? true : undefined}
+              aria-describedby={errors.files ? "job-files-error" : undefined}
+            />
             <FieldErrors id="job-files-error" errors={errors.files} />
           </div>
           <Button type="submit" tone="secondary" disabled={upload.state !== "idle"}>

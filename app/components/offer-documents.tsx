@@ -1,7 +1,9 @@
-import { Form } from "react-router";
+import { Form, useActionData } from "react-router";
+import type { OfferDocumentsReply } from "~/routes/spec-bid-documents";
 import type { AttachmentView } from "~/services/attachments.server";
 import { ACCEPTED_KINDS_TEXT, ACCEPT_ATTRIBUTE } from "~/services/file-types";
 import { formatBytes } from "./attachment-uploader";
+import { FieldErrors } from "./form-field";
 import { Button, Card } from "./ui";
 
 /** A document as a download, with its kind and size. */
@@ -19,7 +21,8 @@ export function DocumentLink({ doc, stacked = false }: { doc: AttachmentView; st
 }
 
 // The shop's own documents on its offer: a plain multipart form (it works without JavaScript),
-// each document a download and, while the spec takes bids, removable.
+// each document a download and, while the spec takes bids, removable. A refusal comes back as the
+// bid page drawn by the documents route, its message beside the upload field.
 export function OfferDocumentsCard({
   specId,
   documents,
@@ -32,6 +35,13 @@ export function OfferDocumentsCard({
   saved: boolean;
 }) {
   const action = `/specs/${specId}/bid/documents`;
+  const page = useActionData() as Partial<OfferDocumentsReply> | undefined;
+  const problems = page?.form === "offer-documents" ? Object.values(page.errors ?? {}).flat() : [];
+  const problem = problems.length ? (
+    <div role="alert" className="basis-full">
+      <FieldErrors id="offer-documents-error" errors={problems} />
+    </div>
+  ) : null;
   return (
     <Card className="mt-6">
       <h2 id="offer-documents" className="mb-1 scroll-mt-4 text-lg font-semibold">
@@ -59,15 +69,26 @@ export function OfferDocumentsCard({
       ) : (
         <p className="mb-4 text-sm text-ink-600">No documents yet.</p>
       )}
+      {canChange ? null : problem}
       {canChange ? (
-        <Form method="post" action={action} encType="multipart/form-data" reloadDocument className="flex flex-wrap items-center gap-3">
+        <Form method="post" action={`${action}#offer-documents`} encType="multipart/form-data" reloadDocument className="flex flex-wrap items-center gap-3">
           <label className="text-sm">
             <span className="sr-only">Files to attach to your offer</span>
-            <input type="file" name="files" multiple accept={ACCEPT_ATTRIBUTE} required className="text-sm" />
+            <input
+              type="file"
+              name="files"
+              multiple
+              accept={ACCEPT_ATTRIBUTE}
+              required
+              className="text-sm"
+              aria-invalid={problem ? true : undefined}
+              aria-describedby={problem ? "offer-documents-error" : undefined}
+            />
           </label>
           <Button type="submit" tone="secondary">
             Attach to the offer
           </Button>
+          {problem}
         </Form>
       ) : saved ? null : (
         <p className="text-sm text-ink-600">Save your bid (a draft will do) to attach documents.</p>

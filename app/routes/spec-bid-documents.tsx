@@ -2,12 +2,22 @@ import type { Route } from "./+types/spec-bid-documents";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { redirectWithToast } from "~/auth/session.server";
-import { fieldErrorsOf } from "~/services/errors.server";
+import { isPageForm, type PageFormAnswer, uploadRefusal, type UploadReply } from "~/http/page-forms.server";
 import { removeOfferDocument, uploadOfferDocuments } from "~/services/offer-documents.server";
+import { action as bidPageAction } from "./spec-bid";
 
-// The documents of a shop's offer: a multipart upload (files in "files") or, with
-// intent=remove and documentId, a removal. Either way back to the bid form, with what happened.
-export async function action({ request, params }: Route.ActionArgs) {
+/** What the documents card reads back when an upload or removal is refused. */
+export type OfferDocumentsReply = UploadReply<"offer-documents">;
+
+// The form posts as a plain page (with or without JavaScript): a refusal is answered with the bid
+// page itself, the problem beside the upload field.
+export { default, loader, meta } from "./spec-bid";
+
+// The documents of a shop's offer: a multipart upload (files in "files") or, with a documentId,
+// a removal. Done, back to the bid form with what happened.
+export async function action(args: Route.ActionArgs): PageFormAnswer<typeof bidPageAction> {
+  const { request, params } = args;
+  if (await isPageForm(request)) return bidPageAction(args as unknown as Parameters<typeof bidPageAction>[0]);
   const user = await requireRole(request, PAGE_ROLES.bidding);
   const back = `/specs/${params.specId}/bid#offer-documents`;
   try {
@@ -20,7 +30,6 @@ export async function action({ request, params }: Route.ActionArgs) {
     const name = await removeOfferDocument(user, params.specId, form.get("documentId")?.toString());
     return redirectWithToast(request, back, `Removed ${name} from your offer.`);
   } catch (error) {
-    const { fieldErrors, message } = fieldErrorsOf(error);
-    return redirectWithToast(request, back, (fieldErrors.files ?? [message]).join(" "));
+    return uploadRefusal("offer-documents", error);
   }
 }

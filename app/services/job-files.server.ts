@@ -16,7 +16,7 @@ import { scopedJob } from "./job-reads.server";
 import { FieldErrors, notFound, requireId } from "./errors.server";
 import { ATTACHMENT_LIMITS, cleanFileName } from "./attachments.server";
 import { ACCEPTED_KINDS_TEXT, FILE_KINDS, SNIFF_BYTES, checkFileType, type FileKind } from "./file-types";
-import { fileStorage, newStorageKey } from "./storage.server";
+import { STORAGE_DOWN, StorageUnavailableError, fileStorage, newStorageKey, readingStorage } from "./storage.server";
 
 // Files exchanged on a job: test certificates and the approved drawing (buyer or shop), and the
 // photos of a problem with the handover (buyer). The spec's drawings' rules hold: types known by
@@ -64,6 +64,25 @@ export async function discardStaged(staged: StagedFile[]) {
   );
 }
 
+/**
+ * A refused upload, with the text fields sent beside the files (the note, the kind), so a page
+ * drawn again without JavaScript shows what was typed. A store that does not answer while the
+ * files stream in is ours, not the sender's: a 503.
+ */
+export class UploadRefused extends FieldErrors {
+  constructor(
+    fieldErrors: Record<string, string[]>,
+    public readonly typed: Record<string, string> = {},
+    public readonly status: 400 | 503 = 400,
+  ) {
+    super(fieldErrors);
+    this.name = "UploadRefused";
+  }
+}
+
+/** The text fields of a parsed form: what the person typed or chose beside the files. */
+export const typedIn = (fields: FormData) => Object.fromEntries([...fields].filter((entry): entry is [string, string] => typeof entry[1] === "string"));
+
 function parseProblem(error: unknown): string {
   if (error instanceof MaxFileSizeExceededError) return `A file is larger than ${ATTACHMENT_LIMITS.maxFileBytes / 1024 / 1024} MB. Nothing was uploaded.`;
   if (error instanceof MaxFilesExceededError || error instanceof MaxPartsExceededError) {
@@ -75,7 +94,7 @@ function parseProblem(error: unknown): string {
 /**
  * Reads a multipart form, checking each file of the "files" field by its first bytes as it
  * arrives and storing it, then holds every file to the kinds `allowed(fields)` permits. Any
- * problem (a file or the form) is a FieldErrors on "files", after what was stored is deleted.
+ * problem (a file or the form) is an UploadRefused on "files", after what was stored is deleted.
  */
 export async function receiveJobUpload(request: Request, allowed: (fields: FormData) => readonly FileKind[], prefix = STORAGE_PREFIX) {
   const staged: (StagedFile & { kind: FileKind })[] = [];
@@ -100,8 +119,12 @@ export async function receiveJobUpload(request: Request, allowed: (fields: FormD
     fields = await parseFormData(request, limits, handleFile);
   } catch (error) {
     await discardStaged(staged);
+    if (error instanceof StorageUnavailableError) {
+      console.error(error);
+      throw new UploadRefused({ files: [`${STORAGE_DOWN} Nothing was uploaded; please try again in a few minutes.`] }, {}, 503);
+    }
     if (!(error instanceof FormDataParseError || error instanceof MultipartParseError)) throw error;
-    throw new FieldErrors({ files: [parseProblem(error)] });
+    throw new UploadRefused({ files: [parseProblem(error)] });
   }
   const kinds = allowed(fields);
   for (const f of staged) {
@@ -111,7 +134,7 @@ export async function receiveJobUpload(request: Request, allowed: (fields: FormD
   }
   if (problems.length > 0) {
     await discardStaged(staged);
-    throw new FieldErrors({ files: [...problems, "Nothing was uploaded."] });
+    throw new UploadRefused({ files: [...problems, "Nothing was uploaded."] }, typedIn(fields));
   }
   return { fields, staged };
 }
@@ -143,9 +166,9 @@ export async function uploadJobFiles(user: User, jobId: string | undefined, requ
   const kind = fields.get("kind");
   if (!isExchangedKind(kind)) {
     await discardStaged(staged);
-    throw new FieldErrors({ kind: ["Choose what the file is: a test certificate or the approved drawing."] });
+    throw new UploadRefused({ kind: ["Choose what the file is: a test certificate or the approved drawing."] }, typedIn(fields));
   }
-  if (staged.length === 0) throw new FieldErrors({ files: [`Choose at least one ${ACCEPTED_KINDS_TEXT} file.`] });
+  if (staged.length === 0) throw new UploadRefused({ files: [`Choose at least one ${ACCEPTED_KINDS_TEXT} file.`] }, typedIn(fields));
   let committed = false;
   try {
     await sequelize.transaction(async (transaction) => {
@@ -194,7 +217,7 @@ export async function openJobFile(user: User, jobId: string | undefined, fileId:
   const job = await scopedJob(user, jobId);
   const row = await JobFile.findOne({ where: { id: requireId(fileId), jobId: job.id } });
   if (!row) notFound("No such file.");
-  const body = await fileStorage().get(row.storageKey);
+  const body = await readingStorage(() => fileStorage().get(row.storageKey));
   if (!body) notFound("This file is no longer stored.");
   return { body, fileName: row.fileName, contentType: row.contentType, sizeBytes: row.sizeBytes };
 }

@@ -6,7 +6,7 @@ import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { handoverAcceptedMail, handoverProblemMail } from "./mail-templates.server";
 import { changeJob, partiesOf, record } from "./job-progress.server";
-import { JOB_FILE_KINDS, discardStaged, filesOfJob, receiveJobUpload, recordFiles, type JobFileView } from "./job-files.server";
+import { JOB_FILE_KINDS, UploadRefused, discardStaged, filesOfJob, receiveJobUpload, recordFiles, typedIn, type JobFileView } from "./job-files.server";
 import { scopedJob } from "./job-reads.server";
 
 // The buyer's answer to the shop's "handed over": accept it, which closes the job, or raise a
@@ -62,14 +62,14 @@ export async function raiseHandoverProblem(viewer: User, jobId: string | undefin
   const problem = note.length === 0 ? "Say what is wrong, so the shop can put it right." : note.length > 4000 ? "Keep the note under 4001 characters." : null;
   if (problem) {
     await discardStaged(staged);
-    throw new FieldErrors({ note: [problem] });
+    throw new UploadRefused({ note: [problem] }, typedIn(fields));
   }
   let committed = false;
   try {
     await changeJob(viewer, jobId, "job.acceptHandover", async ({ job, milestones, transaction }) => {
       // Another tab may have answered while the photos came in.
       const refusal = handoverRefusal(job, milestones);
-      if (refusal) throw new FieldErrors({ "": [refusal] });
+      if (refusal) throw new UploadRefused({ "": [refusal] }, typedIn(fields));
       const handover = milestones.find((m) => m.key === HANDOVER)!;
       const was = { reachedAt: handover.reachedAt!.toISOString(), reachedById: handover.reachedById };
       handover.reachedAt = null;

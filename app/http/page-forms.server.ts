@@ -1,0 +1,33 @@
+// Upload routes that answer as a page. With JavaScript their forms post through a fetcher and read
+// the reply as data; without it the browser posts the form itself and must get a page back, so
+// each upload route also exports its page's loader and component (the page is drawn at the upload's
+// address with the reply beside the form). Every other form of that page then posts to the same
+// address: those are handed to the page's own action.
+import { data } from "react-router";
+import { fieldErrorsOf } from "~/services/errors.server";
+import { UploadRefused } from "~/services/job-files.server";
+
+/** What an upload form reads back: its field problems and what was typed beside the files. */
+export type UploadReply<Form extends string> = { form: Form; errors: Record<string, string[]>; typed: Record<string, string> };
+type Refusal<Form extends string> = ReturnType<typeof data<UploadReply<Form>>>;
+
+const isMultipart = (request: Request) => (request.headers.get("Content-Type") ?? "").toLowerCase().startsWith("multipart/form-data");
+
+/**
+ * A form of the page itself (its forms name their `intent` in the body), posted to an upload's
+ * address because the page was drawn there. Uploads are multipart and carry no such field.
+ */
+export async function isPageForm(request: Request) {
+  if (isMultipart(request)) return false;
+  return (await request.clone().formData()).has("intent");
+}
+
+/** What an upload route answers: a redirect, its refusal, or the page's own action's answer (written out: the route's types are made from it). */
+export type PageFormAnswer<PageAction extends (...args: never[]) => unknown> = Promise<Response | Refusal<string> | Awaited<ReturnType<PageAction>>>;
+
+/** A refused upload as its form's reply: 503 when the file store did not answer, else 400. */
+export function uploadRefusal<Form extends string>(form: Form, error: unknown): Refusal<Form> {
+  const { fieldErrors } = fieldErrorsOf(error);
+  const refused = error instanceof UploadRefused ? error : null;
+  return data<UploadReply<Form>>({ form, errors: fieldErrors, typed: refused?.typed ?? {} }, { status: refused?.status ?? 400 });
+}

@@ -1,0 +1,195 @@
+// Stored files and their uploads through the app's real server (the production build, its root
+// middleware and React Router's document and data requests), from a server whose object store
+// answers and from one whose store does not. Downloads keep their own sandboxing CSP; a store
+// that is down is a 503 in words for job files, handover photos and offer documents alike; and an
+// upload refused while posted without JavaScript comes back as its page, the problem beside the
+// field and what was typed kept.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as filesRoute from "~/routes/job-files";
+import * as documentsRoute from "~/routes/spec-bid-documents";
+import * as attachmentsRoute from "~/routes/spec-attachments";
+import { JobEvent, JobFile, type Spec, type User } from "~/models/index.server";
+import { BidDocument } from "~/models/bid.server";
+import { reachMilestones } from "~/services/job-progress.server";
+import { freePort } from "../../db/cluster";
+import { PDF_BYTES, PNG_BYTES, draftOf, pdf, png, uploadForm } from "../support/attachment-files";
+import { makeJob, makeMember, makePublishedSpec, makeSubmittedBid } from "../support/factories";
+import { startHttpApp, type HttpApp } from "../support/http-app";
+import { call, type Visitor } from "../support/routes";
+import { signedIn } from "../support/sessions";
+
+const SANDBOX = "default-src 'none'; sandbox";
+const STORE_DOWN = "Tenderflow cannot reach its file store just now.";
+
+let buyer: User, shop: User;
+let buyerBrowser: Visitor, shopBrowser: Visitor;
+/** One server whose object store answers, one whose store does not. */
+let app: HttpApp, storeDown: HttpApp;
+
+beforeAll(async () => {
+  buyer = await makeMember("buyer");
+  shop = await makeMember("shop");
+  [buyerBrowser, shopBrowser] = await Promise.all([signedIn(buyer), signedIn(shop)]);
+  // Nothing listens on a port just found free: the store is "down" for that server.
+  const nowhere = `http://127.0.0.1:${await freePort()}`;
+  [app, storeDown] = await Promise.all([startHttpApp(), startHttpApp({ S3_ENDPOINT: nowhere })]);
+}, 240_000);
+
+afterAll(async () => {
+  await Promise.all([app?.close(), storeDown?.close()]);
+});
+
+/** A request to a served app as `visitor`'s browser sends it: its session cookie, our own origin. */
+function send(server: HttpApp, visitor: Visitor, path: string, init: RequestInit = {}) {
+  const headers = new Headers(init.headers);
+  headers.set("Cookie", visitor.request("/").headers.get("Cookie")!);
+  headers.set("Origin", server.baseUrl);
+  return fetch(`${server.baseUrl}${path}`, { ...init, headers, redirect: "manual" });
+}
+
+function form(fields: Record<string, string>, files: File[] = []) {
+  const body = new FormData();
+  for (const [k, v] of Object.entries(fields)) body.set(k, v);
+  for (const f of files) body.append("files", f);
+  return body;
+}
+
+/** A job with a test certificate stored through this process (whose store answers). */
+async function jobWithCertificate() {
+  const { job } = await makeJob(buyer, shop);
+  const request = shopBrowser.request(`/jobs/${job.id}/files`, { method: "POST", body: form({ kind: "test_certificate" }, [pdf("pressure test.pdf")]) });
+  expect((await call(filesRoute.action, request, { jobId: job.id })).status).toBe(302);
+  const file = await JobFile.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
+  return { job, file };
+}
+
+/** The shop's offer on a spec that takes bids, with its quotation stored. */
+async function offerWithDocument() {
+  const spec = await makePublishedSpec(buyer);
+  const bid = await makeSubmittedBid(spec, shop);
+  const request = shopBrowser.request(`/specs/${spec.id}/bid/documents`, { method: "POST", body: form({}, [pdf("quotation.pdf")]) });
+  expect((await call(documentsRoute.action, request, { specId: spec.id })).status).toBe(302);
+  return { spec, bid, document: await BidDocument.findOne({ where: { bidId: bid.id }, rejectOnEmpty: true }) };
+}
+
+async function attachmentOf(spec: Spec) {
+  const request = buyerBrowser.request(`/specs/${spec.id}/attachments`, {
+    method: "POST",
+    body: uploadForm(png("gauge panel.png")),
+    headers: { Accept: "application/json" },
+  });
+  const res = await call(attachmentsRoute.action, request, { specId: spec.id });
+  expect(res.status).toBe(200);
+  return res.data.attachments[0].id as string;
+}
+
+describe("downloads through the app's server", () => {
+  it("keep their own CSP (nothing allowed, sandboxed) where pages get the app's", async () => {
+    const { job, file } = await jobWithCertificate();
+    const { spec, bid, document } = await offerWithDocument();
+    const draft = await draftOf(buyer);
+    const attachmentId = await attachmentOf(draft);
+    const downloads: [Visitor, string][] = [
+      [buyerBrowser, `/jobs/${job.id}/files/${file.id}`],
+      [shopBrowser, `/specs/${spec.id}/bids/${bid.id}/documents/${document.id}`],
+      [buyerBrowser, `/specs/${draft.id}/attachments/${attachmentId}`],
+      [buyerBrowser, `/jobs/${job.id}/order.pdf`],
+      [buyerBrowser, `/jobs/${job.id}/priced-bill.xlsx`],
+    ];
+    for (const [visitor, path] of downloads) {
+      const res = await send(app, visitor, path);
+      expect(res.status, path).toBe(200);
+      expect(res.headers.get("Content-Security-Policy"), path).toBe(SANDBOX);
+      expect(res.headers.get("Content-Disposition"), path).toMatch(/^attachment; /);
+      // The rest of the app's headers still fill in what the download left out.
+      expect(res.headers.get("X-Frame-Options"), path).toBe("DENY");
+      expect(res.headers.get("Cache-Control"), path).toBe("private, no-store");
+      await res.arrayBuffer();
+    }
+    expect(new Uint8Array(await (await send(app, buyerBrowser, downloads[0][1])).arrayBuffer())).toEqual(PDF_BYTES);
+    const page = await send(app, buyerBrowser, `/jobs/${job.id}`);
+    expect(page.headers.get("Content-Security-Policy")).toMatch(/script-src 'self' 'nonce-/);
+  });
+});
+
+describe("a server whose object store does not answer", () => {
+  it("answers a job file's download with a 503 in words", async () => {
+    const { job, file } = await jobWithCertificate();
+    const res = await send(storeDown, buyerBrowser, `/jobs/${job.id}/files/${file.id}`);
+    expect(res.status).toBe(503);
+    expect(res.headers.get("Retry-After")).toBe("60");
+    expect(await res.text()).toBe(`${STORE_DOWN} Please try again in a few minutes.`);
+  });
+
+  it("refuses job files, handover photos and offer documents with a 503 saying nothing was uploaded, and keeps no row", async () => {
+    const { job } = await makeJob(buyer, shop);
+    // The fetcher's data request, as the page sends it with JavaScript.
+    const upload = await send(storeDown, shopBrowser, `/jobs/${job.id}/files.data`, { method: "POST", body: form({ kind: "test_certificate" }, [pdf()]) });
+    expect(upload.status).toBe(503);
+    expect(await upload.text()).toContain(`${STORE_DOWN} Nothing was uploaded; please try again in a few minutes.`);
+    expect(await JobFile.count({ where: { jobId: job.id } })).toBe(0);
+
+    await reachMilestones(shop, job.id, { milestone: "handed_over", note: "" });
+    const problem = await send(storeDown, buyerBrowser, `/jobs/${job.id}/handover.data?intent=problem`, {
+      method: "POST",
+      body: form({ note: "The tank leaks at the drain plug." }, [png("drain.png")]),
+    });
+    expect(problem.status).toBe(503);
+    expect(await problem.text()).toContain(STORE_DOWN);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "handover_problem" } })).toBe(0);
+
+    const { spec, bid } = await offerWithDocument();
+    const documents = await send(storeDown, shopBrowser, `/specs/${spec.id}/bid/documents`, { method: "POST", body: form({}, [pdf("datasheet.pdf")]) });
+    expect(documents.status).toBe(503);
+    expect(await documents.text()).toContain(`${STORE_DOWN} Nothing was uploaded`);
+    expect(await BidDocument.count({ where: { bidId: bid.id } })).toBe(1);
+  });
+});
+
+describe("an upload posted without JavaScript", () => {
+  /** The page the browser gets back for a plain form post. */
+  const postPlain = (visitor: Visitor, path: string, body: FormData | URLSearchParams) => send(app, visitor, path, { method: "POST", body });
+
+  it("comes back as the job page with the problem beside the field and the choice kept; the page's other forms still work there", async () => {
+    const { job } = await makeJob(buyer, shop);
+    const refused = await postPlain(shopBrowser, `/jobs/${job.id}/files`, form({ kind: "approved_drawing" }, [new File([PNG_BYTES], "drawing.pdf")]));
+    expect(refused.status).toBe(400);
+    expect(refused.headers.get("Content-Type")).toMatch(/^text\/html/);
+    const html = await refused.text();
+    expect(html).toMatch(/<p id="job-files-error"[^>]*>drawing\.pdf: The name ends in \.pdf but the file is a PNG image/);
+    expect(html).toMatch(/<option value="approved_drawing" selected="">/);
+    expect(html).toContain('aria-describedby="job-files-error"');
+
+    // The page was drawn at the upload's address, so its other forms post there: the page's own action answers.
+    const note = await postPlain(shopBrowser, `/jobs/${job.id}/files`, new URLSearchParams({ intent: "progress-note", body: "Manifold machined." }));
+    expect(note.status).toBe(302);
+    expect(note.headers.get("Location")).toBe(`/jobs/${job.id}`);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "progress_note" } })).toBe(1);
+  });
+
+  it("keeps the handover problem's note and says what is missing beside its field", async () => {
+    const { job } = await makeJob(buyer, shop);
+    await reachMilestones(shop, job.id, { milestone: "handed_over", note: "" });
+    const note = "Pump whines above 150 bar & the gauge <reads> high.";
+    const refused = await postPlain(buyerBrowser, `/jobs/${job.id}/handover?intent=problem`, form({ note }, [pdf("report.pdf")]));
+    expect(refused.status).toBe(400);
+    const html = await refused.text();
+    expect(html).toContain("Pump whines above 150 bar &amp; the gauge &lt;reads&gt; high.</textarea>");
+    expect(html).toMatch(/<p id="problem-photos-error"[^>]*>report\.pdf: a PDF can&#x27;t go here/);
+    expect(html).toMatch(/<details[^>]* open=""/);
+
+    const empty = await postPlain(buyerBrowser, `/jobs/${job.id}/handover?intent=problem`, form({ note: " " }));
+    expect(await empty.text()).toMatch(/<p id="problem-note-error"[^>]*>Say what is wrong/);
+    expect(await JobEvent.count({ where: { jobId: job.id, kind: "handover_problem" } })).toBe(0);
+  });
+
+  it("comes back as the bid page with an offer document's problem beside the upload field", async () => {
+    const { spec, bid } = await offerWithDocument();
+    const refused = await postPlain(shopBrowser, `/specs/${spec.id}/bid/documents`, form({}, [new File([PNG_BYTES], "datasheet.pdf")]));
+    expect(refused.status).toBe(400);
+    const html = await refused.text();
+    expect(html).toMatch(/<p id="offer-documents-error"[^>]*>datasheet\.pdf: The name ends in \.pdf but the file is a PNG image/);
+    expect(html).toContain('aria-describedby="offer-documents-error"');
+    expect(await BidDocument.count({ where: { bidId: bid.id } })).toBe(1);
+  });
+});

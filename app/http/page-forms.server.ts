@@ -11,15 +11,19 @@ import { UploadRefused } from "~/services/job-files.server";
 export type UploadReply<Form extends string> = { form: Form; errors: Record<string, string[]>; typed: Record<string, string> };
 type Refusal<Form extends string> = ReturnType<typeof data<UploadReply<Form>>>;
 
-const isMultipart = (request: Request) => (request.headers.get("Content-Type") ?? "").toLowerCase().startsWith("multipart/form-data");
-
 /**
- * A form of the page itself (its forms name their `intent` in the body), posted to an upload's
- * address because the page was drawn there. Uploads are multipart and carry no such field.
+ * A form of the page itself (its forms are URL-encoded and name their `intent` in the body),
+ * posted to an upload's address because the page was drawn there. Uploads are multipart and
+ * carry no such field; a body that is neither is the upload route's to refuse.
  */
 export async function isPageForm(request: Request) {
-  if (isMultipart(request)) return false;
-  return (await request.clone().formData()).has("intent");
+  const type = (request.headers.get("Content-Type") ?? "").split(";")[0].trim().toLowerCase();
+  if (type !== "application/x-www-form-urlencoded") return false;
+  const fields = await request
+    .clone()
+    .formData()
+    .catch(() => null);
+  return fields?.has("intent") ?? false;
 }
 
 /** What an upload route answers: a redirect, its refusal, or the page's own action's answer (written out: the route's types are made from it). */

@@ -124,6 +124,7 @@ describe("two servers behind one address", () => {
     await buyerPage.getByText(`I award this spec to ${SHOP_NAME}.`).click();
     await buyerPage.getByRole("button", { name: "Confirm the award" }).click();
     await buyerPage.waitForURL("**/jobs/*");
+    await hydrated(buyerPage);
     const job = await Job.findOne({ where: { specId: draft.id }, rejectOnEmpty: true });
     const chosen = await waitForMail(shop.email, `Your bid was chosen: ${TITLE}`, 30_000);
     expect(chosen.text).toContain(`${pair.baseUrl}/jobs/${job.id}`);

@@ -26,7 +26,15 @@ const MAX_BODY = 64 * 1024 * 1024;
 export async function startServerPair(env: NodeJS.ProcessEnv = {}): Promise<ServerPair> {
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
-  const servers = await Promise.all([0, 1].map(() => startHttpApp({ APP_URL: baseUrl, TRUSTED_PROXIES: "loopback", ...env })));
+  // One after the other: two servers booting at once on a loaded two-core machine can each
+  // outlast the wait for the first answer. One that started is stopped if the next does not.
+  const servers: HttpApp[] = [];
+  try {
+    for (let i = 0; i < 2; i++) servers.push(await startHttpApp({ APP_URL: baseUrl, TRUSTED_PROXIES: "loopback", ...env }));
+  } catch (error) {
+    await Promise.all(servers.map((s) => s.close()));
+    throw error;
+  }
   const live = servers.map(() => true);
   const answered = servers.map(() => 0);
   let turn = 0;
@@ -42,9 +50,13 @@ export async function startServerPair(env: NodeJS.ProcessEnv = {}): Promise<Serv
       answer.pipe(res);
     });
     upstream.on("error", (error: NodeJS.ErrnoException) => {
-      // A server that refuses the connection never saw the request: the other one may take it.
-      if (error.code === "ECONNREFUSED" && tried < servers.length) {
-        live[index] = false;
+      // Two failures where the server never saw the request, so another may take it: a refused
+      // connection (that server is down), and a reset of a kept-alive socket the server closed as
+      // idle just as the request went out (the race Node's docs describe under request.reusedSocket).
+      const refused = error.code === "ECONNREFUSED";
+      const closedIdle = upstream.reusedSocket && error.code === "ECONNRESET";
+      if ((refused || closedIdle) && tried <= servers.length && !res.headersSent) {
+        if (refused) live[index] = false;
         const other = nextLive();
         if (other !== undefined) return forward(other, req, body, res, tried + 1);
       }

@@ -1,22 +1,18 @@
-export const SPEC_STATUSES = ["draft", "open", "closed", "awarded", "withdrawn"] as const;
-export type SpecStatus = (typeof SPEC_STATUSES)[number];
+import { statusWords } from "./status-words";
 
 // Spec statuses in Tenderflow's own words, shown the same everywhere.
-export const SPEC_STATUS_LABELS: Record<SpecStatus, string> = {
-  draft: "Draft",
-  open: "Open for bids",
-  closed: "Bidding closed",
-  awarded: "Awarded",
-  withdrawn: "Withdrawn",
-};
+const SPEC = statusWords({
+  draft: ["Draft", "neutral"],
+  open: ["Open for bids", "good"],
+  closed: ["Bidding closed", "warn"],
+  awarded: ["Awarded", "good"],
+  withdrawn: ["Withdrawn", "bad"],
+});
 
-export const SPEC_STATUS_TONES: Record<SpecStatus, "neutral" | "good" | "warn" | "bad"> = {
-  draft: "neutral",
-  open: "good",
-  closed: "warn",
-  awarded: "good",
-  withdrawn: "bad",
-};
+export const SPEC_STATUSES = SPEC.statuses;
+export type SpecStatus = (typeof SPEC_STATUSES)[number];
+export const SPEC_STATUS_LABELS = SPEC.labels;
+export const SPEC_STATUS_TONES = SPEC.tones;
 
 /**
  * The one rule of "taking bids": published (open) and its deadline still ahead. Shops bid and

@@ -5,16 +5,16 @@ import { todayUtc } from "~/content/dates";
 // unit system (the service converts them); a value that does not parse is reported beside its
 // field and left out of the search, so the rest of the query still applies and nothing typed is lost.
 
-export const OPEN_SPEC_SORTS = ["deadline", "newest", "title", "pressure", "flow"] as const;
-export type OpenSpecSort = (typeof OPEN_SPEC_SORTS)[number];
-
-export const OPEN_SPEC_SORT_LABELS: Record<OpenSpecSort, string> = {
+/** The orders the table sorts in, each with the words its choice shows, in the order shown. */
+export const OPEN_SPEC_SORT_LABELS = {
   deadline: "Closing soonest",
   newest: "Newest first",
   title: "Title, A to Z",
   pressure: "Relief setting, lowest first",
   flow: "Pump flow, lowest first",
-};
+} as const;
+export type OpenSpecSort = keyof typeof OPEN_SPEC_SORT_LABELS;
+export const OPEN_SPEC_SORTS = Object.keys(OPEN_SPEC_SORT_LABELS) as [OpenSpecSort, ...OpenSpecSort[]];
 
 export const OPEN_SPECS_PAGE_SIZE = 25;
 

@@ -199,7 +199,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
         <fieldset disabled={!d.spec.accepting} className="min-w-0 space-y-6">
           {/* Enter in a field presses the form's first submit button: this one, so Enter saves (the
               draft, or the revised offer once offered), never "Add a line of your own" further down. */}
-          <button type="submit" name="intent" value={offered ? "submit" : "save"} hidden tabIndex={-1} aria-hidden="true" data-testid="enter-saves" />
+          <button type="submit" name="intent" value={offered ? "submit" : "save"} hidden tabIndex={-1} aria-hidden="true" />
           <Card>
             <h2 className="mb-1 text-lg font-semibold">Price each line of the bill</h2>
             <p className="mb-4 text-sm text-ink-600">

@@ -33,7 +33,7 @@ import { chooseDcvCenter, dcvPositions, selectIso4401 } from "./valves";
 import { Warnings } from "./warnings";
 import { num } from "./format";
 
-export const ENGINE_VERSION = "2.12.0";
+export const ENGINE_VERSION = "2.12.1";
 
 const COIL_VOLTAGE = `${A.coilVoltage.value} V DC`;
 const VENT_VALVE = "2/2 solenoid valve, normally open, on the relief valve's vent port X to tank";
@@ -139,7 +139,6 @@ export function sizeCircuitParsed(req: Requirements, options: SizingOptions = {}
   // Directional valve
   const regen = ev.regen;
   const holding = holdingFor(req, ctx.loads, cyl, qp, regen?.capInflowLpm);
-  const cushioning = cushioningFor(req.massKg, ctx.loads, cyl, ev.extendActualMmS, ev.retractActualMmS, ev.extendInletBar, ev.retractInletBar);
   // A regeneration valve sits in the valve stack on the same ISO 4401 interface, and its cap and
   // rod channels carry the cap inflow and rod outflow of the regenerative approach.
   const maxPathFlowLpm = valveStackFlowLpm(ev);
@@ -169,6 +168,11 @@ export function sizeCircuitParsed(req: Requirements, options: SizingOptions = {}
   // A regenerative approach joins the rod end's oil at the valve stack, upstream of the control in
   // the cap line, so the bypass carries the cap inflow, not Q_p (continuity).
   if (pressSpeedControl && regen) pressSpeedControl.bypassFlowLpm = Math.max(pressSpeedControl.bypassFlowLpm, regen.capInflowLpm);
+  // With a pressing stroke the rod reaches the extended end at the pressing speed (the control's
+  // setting, or what the pump alone offers within the speed tolerance), not the approach speed.
+  const pressOffersLpm = pressSpeedControl ? ev.flowPressLpm! : (smallSectionLpm ?? qp);
+  const extendArrivalMmS = ev.flowPressLpm === null ? ev.extendActualMmS : Math.min(ev.extendActualMmS, (pressOffersLpm * 1000) / (cyl.capAreaMm2 * 0.06));
+  const cushioning = cushioningFor(req.massKg, ctx.loads, cyl, extendArrivalMmS, ev.retractActualMmS, ev.extendInletBar, ev.retractInletBar);
 
   // The cap end at full stroke holds the highest extend pressure: where the pump stalls there,
   // the relief, or for a compensated pump its compensator setting (the pump choice's dwell pressure).

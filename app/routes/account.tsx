@@ -14,6 +14,7 @@ import { data } from "react-router";
 import { redirectWithToast } from "~/auth/session.server";
 import { OrganisationProfileCard } from "~/components/organisation-profile";
 import { AccountNotes, AccountPayments, OpenSpecs } from "~/components/account-view";
+import { AfterHandoverNote, OverdueBadge } from "~/components/job-state";
 import { accountNoteSchema } from "~/schemas/account-notes";
 import { accountViewOf, addAccountNote, daysLate, editAccountNote } from "~/services/account-view.server";
 
@@ -179,9 +180,12 @@ function Jobs({ jobs, kind }: { jobs: JobsCard; kind: OrganisationPage["kind"] }
           <ul className="divide-y divide-ink-100 text-sm">
             {jobs.recent.map((j) => (
               <RecordRow key={j.id} to={`/jobs/${j.id}`} title={j.specTitle}>
-                {JOB_STAGE_LABELS[j.stage]} · {kind === "shop" ? j.buyerName : j.shopName}
-                {j.next?.targetDate ? ` · next: ${j.next.label} by ${formatDay(j.next.targetDate)}` : ""}
-                {j.overdue ? <Badge tone="bad">{j.daysLate ? `${countOf(j.daysLate, "day")} late` : "Overdue"}</Badge> : null}
+                <span>
+                  {JOB_STAGE_LABELS[j.stage]} · {kind === "shop" ? j.buyerName : j.shopName}
+                  {j.next?.targetDate ? ` · next: ${j.next.label} by ${formatDay(j.next.targetDate)}` : ""}
+                  <AfterHandoverNote job={j} />
+                </span>
+                {j.overdue ? <OverdueBadge daysLate={j.daysLate} /> : null}
               </RecordRow>
             ))}
           </ul>

@@ -24,6 +24,7 @@ import { FileList, HandoverPanel, JobFilesPanel } from "~/components/job-handove
 import { handoverPanelOf } from "~/services/job-handover.server";
 import { balancePanelOf } from "~/services/balance.server";
 import { BalancePanel } from "~/components/balance-panel";
+import { AfterHandoverNote } from "~/components/job-state";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.job.specTitle || "Job"} · Tenderflow` }];
 
@@ -180,7 +181,15 @@ function Facts({ job }: { job: Job }) {
         </>
       ),
     },
-    { label: "Stage", value: JOB_STAGE_LABELS[job.stage] },
+    {
+      label: "Stage",
+      value: (
+        <>
+          {JOB_STAGE_LABELS[job.stage]}
+          <AfterHandoverNote job={job} />
+        </>
+      ),
+    },
     { label: "Lead time", value: job.leadTimeWeeks ? `${job.leadTimeWeeks} weeks` : "—" },
   ];
   return (

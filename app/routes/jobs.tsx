@@ -4,7 +4,7 @@ import { RetainerBadge } from "~/components/retainer-badge";
 import { requireUser } from "~/auth/permissions.server";
 import type { Role } from "~/auth/roles";
 import { JobsByStageChart } from "~/components/jobs-by-stage-chart";
-import { Badge, Card, EmptyState, FilterSelects, ListTable, type ListFilter, PageHeader, SearchBar } from "~/components/ui";
+import { Card, EmptyState, FilterSelects, ListTable, type ListFilter, PageHeader, SearchBar } from "~/components/ui";
 import { OrganisationName } from "~/components/organisation-link";
 import { countOf } from "~/content/count";
 import { formatMoney } from "~/content/money";
@@ -16,6 +16,8 @@ import { can, viewerOf } from "~/auth/access-policy.server";
 import { unassignedAccounts } from "~/services/unassigned-accounts.server";
 import { UnassignedAccounts } from "~/components/unassigned-accounts";
 import { openableOrganisations } from "~/services/organisation-page.server";
+import { daysLate } from "~/services/account-view.server";
+import { AfterHandoverNote, OverdueBadge } from "~/components/job-state";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data ? HEADINGS[data.role].title : "Jobs"} · Tenderflow` }];
 
@@ -56,6 +58,8 @@ export async function loader({ request }: Route.LoaderArgs) {
     role: user.role,
     filtered: Boolean(query.q || query.stage || query.retainer || query.overdue || query.account || query.shop),
     ...list,
+    // How late, in days, as on an account's page: the dashboard is where lateness is looked for.
+    jobs: list.jobs.map((j) => ({ ...j, daysLate: daysLate(j) })),
     openable,
   };
 }
@@ -130,7 +134,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                   </td>
                   <td className="pr-2">
                     {JOB_STAGE_LABELS[j.stage]}
-                    {j.acceptedAt ? <span className="block text-xs text-ink-600">Accepted{j.balancePaidAt ? ", paid in full" : ""}</span> : null}
+                    <AfterHandoverNote job={j} />
                   </td>
                   <td className="pl-3 text-right tabular-nums">{formatMoney(j.totalCents, j.currency)}</td>
                   <td className="whitespace-nowrap pl-3 text-right tabular-nums">
@@ -149,7 +153,7 @@ export default function Jobs({ loaderData: d }: Route.ComponentProps) {
                     )}
                     {j.overdue ? (
                       <span className="mt-1 block">
-                        <Badge tone="bad">Overdue</Badge>
+                        <OverdueBadge daysLate={j.daysLate} />
                       </span>
                     ) : null}
                   </td>

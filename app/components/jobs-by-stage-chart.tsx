@@ -3,7 +3,8 @@ import { JOB_STAGE_LABELS, type JobStage } from "~/content/job-milestones";
 
 // A fixed-size chart (no ResponsiveContainer), so the server renders the same SVG the browser
 // hydrates; the fixed id keeps recharts' clip-path id the same on both sides. Screen readers get
-// the table below it instead of the drawing.
+// the table below it instead of the drawing, and so does a phone, where the drawing is wider than
+// the screen: the counts in a short table rather than a chart to scroll sideways.
 
 const WIDTH = 560;
 const ROW = 30;
@@ -13,7 +14,7 @@ export function JobsByStageChart({ data, caption }: { data: { stage: JobStage; c
   return (
     <figure>
       <figcaption className="mb-2 text-sm font-semibold text-ink-800">{caption}</figcaption>
-      <div aria-hidden="true" className="overflow-x-auto">
+      <div aria-hidden="true" className="hidden overflow-x-auto sm:block">
         <BarChart
           id="jobs-by-stage"
           width={WIDTH}
@@ -30,9 +31,9 @@ export function JobsByStageChart({ data, caption }: { data: { stage: JobStage; c
           </Bar>
         </BarChart>
       </div>
-      <table className="sr-only">
-        <caption>{caption}</caption>
-        <thead>
+      <table className="w-full text-sm sm:sr-only">
+        <caption className="sr-only">{caption}</caption>
+        <thead className="sr-only">
           <tr>
             <th scope="col">Stage</th>
             <th scope="col">Jobs</th>
@@ -40,9 +41,11 @@ export function JobsByStageChart({ data, caption }: { data: { stage: JobStage; c
         </thead>
         <tbody>
           {rows.map((r) => (
-            <tr key={r.label}>
-              <th scope="row">{r.label}</th>
-              <td>{r.count}</td>
+            <tr key={r.label} className="border-t border-ink-100">
+              <th scope="row" className="py-1 text-left font-normal">
+                {r.label}
+              </th>
+              <td className="py-1 text-right font-semibold tabular-nums">{r.count}</td>
             </tr>
           ))}
         </tbody>

@@ -28,7 +28,8 @@ export function PageHeader({ title, lead, actions }: { title: string; lead?: Rea
         <h1 className="text-2xl font-bold text-ink-900">{title}</h1>
         {lead ? <p className="mt-1 max-w-2xl text-ink-600">{lead}</p> : null}
       </div>
-      {actions ? <div className="flex gap-2">{actions}</div> : null}
+      {/* On a phone the actions wrap to another row, each on one line, rather than squeezing into columns of words. */}
+      {actions ? <div className="flex flex-wrap gap-2 [&>*]:whitespace-nowrap">{actions}</div> : null}
     </div>
   );
 }

@@ -7,15 +7,18 @@ import { formatMoney } from "~/content/money";
 import { PAYMENT_STATUS_LABELS, type PaymentStatus } from "~/content/payment-status";
 import { paymentOfSession } from "~/services/payments.server";
 
-export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `${d?.purpose === "balance" ? "Balance" : "Retainer"} payment · Tenderflow` }];
+export const meta: Route.MetaFunction = ({ data: d }) => [
+  { title: `${d?.purpose === "balance" ? "Balance" : "Retainer"} payment · ${d?.title || "Job"} · Tenderflow` },
+];
 
 // Where the card service sends the buyer back. The payment counts only once its signed webhook
 // has arrived, so until then this page says "processing" and looks again every two seconds.
 export async function loader({ request, params }: Route.LoaderArgs) {
   const user = await requireUser(request);
-  const { job, payment } = await paymentOfSession(user, params.jobId, new URL(request.url).searchParams.get("session_id"));
+  const { job, payment, title } = await paymentOfSession(user, params.jobId, new URL(request.url).searchParams.get("session_id"));
   return {
     jobId: job.id,
+    title,
     purpose: payment.purpose,
     status: payment.status as PaymentStatus,
     amount: formatMoney(payment.amountCents, payment.currency),
@@ -41,7 +44,8 @@ export default function JobPayment({ loaderData: d }: Route.ComponentProps) {
     <>
       <PageHeader
         title={d.purpose === "balance" ? "Balance payment" : "Retainer payment"}
-        lead={`${d.amount} · ${waiting ? "Processing" : PAYMENT_STATUS_LABELS[d.status]}`}
+        // Which job it paid for: the card service's page is the last thing the buyer saw.
+        lead={`${d.title || "Untitled spec"} · ${d.amount} · ${waiting ? "Processing" : PAYMENT_STATUS_LABELS[d.status]}`}
       />
       <Card className="max-w-xl space-y-4">
         {waiting ? (

@@ -181,7 +181,9 @@ export async function paymentOfSession(user: User, jobId: string | undefined, se
   const scope = paymentsWhere(await viewerOf(user));
   const payment = sessionId ? await Payment.findOne({ where: { [Op.and]: [scope, { jobId: job.id, checkoutSessionId: sessionId }] } }) : null;
   if (!payment) notFound("No such payment.");
-  return { job, payment };
+  // The page names the job it paid for: whoever reads the job reads its spec's title.
+  const spec = await Spec.findByPk(job.specId, { attributes: ["title"] });
+  return { job, payment, title: spec?.title ?? "" };
 }
 
 /**

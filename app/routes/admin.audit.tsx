@@ -1,4 +1,4 @@
-import { Form, useSearchParams } from "react-router";
+import { Form, Link, useSearchParams } from "react-router";
 import type { Route } from "./+types/admin.audit";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
@@ -106,7 +106,15 @@ export default function AdminAudit({ loaderData: d }: Route.ComponentProps) {
                 {e.actorName}
                 {e.actorEmail ? <span className="block text-xs break-all text-ink-600">{e.actorEmail}</span> : null}
               </td>
-              <td className="py-2 pr-3 break-words">{e.subjectLabel ?? "—"}</td>
+              <td className="py-2 pr-3 break-words">
+                {e.jobId ? (
+                  <Link to={`/jobs/${e.jobId}`} className="text-flow-700 hover:underline">
+                    {e.subjectLabel ?? "The job"}
+                  </Link>
+                ) : (
+                  (e.subjectLabel ?? "—")
+                )}
+              </td>
               <td className="py-2 pr-3 text-xs text-ink-600">
                 {e.details.map((line) => (
                   <span key={line} className="block break-words">

@@ -6,6 +6,10 @@
  */
 import type { CircuitComponent, CircuitConnection, Design, SolenoidValvePositions } from "./design";
 
+/** Connections carrying one kind of line, each written [from, to] ("componentId.port"), in order. */
+export const connect = (line: CircuitConnection["line"], ...ends: [from: string, to: string][]): CircuitConnection[] =>
+  ends.map(([from, to]) => ({ from, to, line }));
+
 export interface CircuitPart {
   components: CircuitComponent[];
   connections: CircuitConnection[];
@@ -50,14 +54,12 @@ export function pumpParts(d: Design): CircuitPart {
         { id: "pump-check", kind: "check", ports: ["inlet", "outlet"], label: "Check valve, large pump section to system" },
       ],
       connections: [
-        { from: "pump.shaft", to: "pump-large.shaft", line: "shaft" },
-        { from: "strainer.outlet", to: "pump-large.inlet", line: "suction" },
-        { from: "pump-large.outlet", to: "pump-check.inlet", line: "pressure" },
-        { from: "pump-check.outlet", to: "dcv.P", line: "pressure" },
-        { from: "pump-large.outlet", to: "unloading.1", line: "pressure" },
-        { from: "unloading.2", to: "tank.return", line: "return" },
+        ...connect("shaft", ["pump.shaft", "pump-large.shaft"]),
+        ...connect("suction", ["strainer.outlet", "pump-large.inlet"]),
+        ...connect("pressure", ["pump-large.outlet", "pump-check.inlet"], ["pump-check.outlet", "dcv.P"], ["pump-large.outlet", "unloading.1"]),
+        ...connect("return", ["unloading.2", "tank.return"]),
         // the pilot senses the system line, past the check, so the small section's pressure unloads the large one
-        { from: "pump-check.outlet", to: "unloading.X", line: "pilot" },
+        ...connect("pilot", ["pump-check.outlet", "unloading.X"]),
       ],
     };
   }
@@ -244,10 +246,7 @@ export function returnLine(d: Design): CircuitPart {
     components: [
       { id: "cooler", kind: "cooler", ports: ["inlet", "outlet"], label: "Oil cooler (air blast), in the return line", values: { kw: d.cooler.kw } },
     ],
-    connections: [
-      { from: "filter.outlet", to: "cooler.inlet", line: "return" },
-      { from: "cooler.outlet", to: "tank.return", line: "return" },
-    ],
+    connections: [...connect("return", ["filter.outlet", "cooler.inlet"], ["cooler.outlet", "tank.return"])],
   };
 }
 

@@ -1,5 +1,5 @@
 import type { Circuit, CircuitComponent, CircuitConnection, DcvPositions, Design } from "./design";
-import { decompressionParts, pumpParts, returnLine, switchParts, workLines } from "./circuit-parts";
+import { connect, decompressionParts, pumpParts, returnLine, switchParts, workLines } from "./circuit-parts";
 import { dcvPositions } from "./valves";
 
 /**
@@ -45,14 +45,10 @@ export function buildCircuit(d: Design, gaugeRangeBar: number, positions: DcvPos
     },
   ];
   const connections: CircuitConnection[] = [
-    { from: "tank.suction", to: "strainer.inlet", line: "suction" },
-    { from: "strainer.outlet", to: "pump.inlet", line: "suction" },
-    { from: "motor.shaft", to: "pump.shaft", line: "shaft" },
-    { from: "pump.outlet", to: "dcv.P", line: "pressure" },
-    { from: "pump.outlet", to: "relief.1", line: "pressure" },
-    { from: "pump.outlet", to: "gauge.port", line: "pressure" },
-    { from: "relief.2", to: "tank.return", line: "return" },
-    { from: "dcv.T", to: "filter.inlet", line: "return" },
+    ...connect("suction", ["tank.suction", "strainer.inlet"], ["strainer.outlet", "pump.inlet"]),
+    ...connect("shaft", ["motor.shaft", "pump.shaft"]),
+    ...connect("pressure", ["pump.outlet", "dcv.P"], ["pump.outlet", "relief.1"], ["pump.outlet", "gauge.port"]),
+    ...connect("return", ["relief.2", "tank.return"], ["dcv.T", "filter.inlet"]),
     ...back.connections,
   ];
   components.push(...back.components, ...work.components, ...decompression.components);

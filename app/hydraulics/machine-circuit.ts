@@ -8,6 +8,7 @@
  * cylinder. The diagram drawing of a machine is not made here.
  */
 import { buildCircuit } from "./circuit";
+import { connect } from "./circuit-parts";
 import type { CircuitConnection, Design } from "./design";
 import type { MachineAccumulator, MachineCircuit, MachineCircuitComponent, MachineDesign } from "./machine-design";
 import { reducingSettingBar } from "./machine-bom";
@@ -148,13 +149,11 @@ export function accumulatorParts(
       },
     ],
     connections: [
-      { from: "pump.outlet", to: "pump-check.inlet", line: "pressure" },
-      { from: "pump.outlet", to: "charging-valve.1", line: "pressure" },
-      { from: "charging-valve.2", to: "tank.return", line: "return" },
-      { from: "pump-check.outlet", to: "charging-valve.X", line: "pilot" },
-      { from: "pump-check.outlet", to: "accumulator-block.P", line: "pressure" },
-      { from: "accumulator-block.A", to: "accumulator.P", line: "pressure" },
-      { from: "accumulator-block.T", to: "tank.return", line: "return" },
+      ...connect("pressure", ["pump.outlet", "pump-check.inlet"], ["pump.outlet", "charging-valve.1"]),
+      ...connect("return", ["charging-valve.2", "tank.return"]),
+      ...connect("pilot", ["pump-check.outlet", "charging-valve.X"]),
+      ...connect("pressure", ["pump-check.outlet", "accumulator-block.P"], ["accumulator-block.A", "accumulator.P"]),
+      ...connect("return", ["accumulator-block.T", "tank.return"]),
     ],
   };
 }

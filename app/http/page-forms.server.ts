@@ -12,18 +12,19 @@ export type UploadReply<Form extends string> = { form: Form; errors: Record<stri
 type Refusal<Form extends string> = ReturnType<typeof data<UploadReply<Form>>>;
 
 /**
- * A form of the page itself (its forms are URL-encoded and name their `intent` in the body),
- * posted to an upload's address because the page was drawn there. Uploads are multipart and
- * carry no such field; a body that is neither is the upload route's to refuse.
+ * A form of the page itself, posted to an upload's address because the page was drawn there:
+ * URL-encoded (uploads are multipart) with a field that is not one of the route's own (`own`: the
+ * offer documents' removal sends a documentId; the handover's acceptance sends nothing). A body
+ * that cannot be read is the upload route's to refuse.
  */
-export async function isPageForm(request: Request) {
+export async function isPageForm(request: Request, own: readonly string[] = []) {
   const type = (request.headers.get("Content-Type") ?? "").split(";")[0].trim().toLowerCase();
   if (type !== "application/x-www-form-urlencoded") return false;
   const fields = await request
     .clone()
     .formData()
     .catch(() => null);
-  return fields?.has("intent") ?? false;
+  return [...(fields?.keys() ?? [])].some((name) => !own.includes(name));
 }
 
 /** What an upload route answers: a redirect, its refusal, or the page's own action's answer (written out: the route's types are made from it). */

@@ -17,7 +17,7 @@ export { default, loader, meta } from "./spec-bid";
 // a removal. Done, back to the bid form with what happened.
 export async function action(args: Route.ActionArgs): PageFormAnswer<typeof bidPageAction> {
   const { request, params } = args;
-  if (await isPageForm(request)) return bidPageAction(args as unknown as Parameters<typeof bidPageAction>[0]);
+  if (await isPageForm(request, ["documentId"])) return bidPageAction(args as unknown as Parameters<typeof bidPageAction>[0]);
   const user = await requireRole(request, PAGE_ROLES.bidding);
   const back = `/specs/${params.specId}/bid#offer-documents`;
   try {

@@ -191,5 +191,11 @@ describe("an upload posted without JavaScript", () => {
     expect(html).toMatch(/<p id="offer-documents-error"[^>]*>datasheet\.pdf: The name ends in \.pdf but the file is a PNG image/);
     expect(html).toContain('aria-describedby="offer-documents-error"');
     expect(await BidDocument.count({ where: { bidId: bid.id } })).toBe(1);
+
+    // The bid form, drawn at this address, posts here too (also Conform's "add a line", which sends
+    // no intent of ours): the bid page's action answers, naming what is missing.
+    const bidForm = await postPlain(shopBrowser, `/specs/${spec.id}/bid/documents`, new URLSearchParams({ leadTimeWeeks: "eight" }));
+    expect(bidForm.status).toBe(400);
+    expect(await bidForm.text()).toContain("Your bid");
   });
 });

@@ -4,6 +4,7 @@ import type { BomLine, Design, TrailEntry, Warning } from "~/hydraulics/design";
 import type { TrailInput } from "~/hydraulics/trail";
 import type { UnitSystem } from "~/units";
 import { centreName } from "./circuit-diagram/describe";
+import { ColumnHeads } from "./column-heads";
 import { displayUnits, readable } from "./circuit-diagram/format";
 import { Badge, Card, Notice } from "./ui";
 
@@ -132,25 +133,7 @@ export function ComponentTable({ design, servedBy }: { design: { bom: BomLine[] 
       <table className="w-full text-left text-sm">
         <caption className="sr-only">Bill of materials: one line per component</caption>
         <thead className="border-b border-ink-200">
-          <tr>
-            <th scope="col" className={headCell}>
-              Item
-            </th>
-            {servedBy ? (
-              <th scope="col" className={headCell}>
-                Serves
-              </th>
-            ) : null}
-            <th scope="col" className={`${headCell} text-right`}>
-              Qty
-            </th>
-            <th scope="col" className={headCell}>
-              Specification
-            </th>
-            <th scope="col" className={headCell}>
-              Rating
-            </th>
-          </tr>
+          <ColumnHeads heads={["Item", !!servedBy && "Serves", ["Qty", "text-right"], "Specification", "Rating"]} className={headCell} />
         </thead>
         <tbody className="divide-y divide-ink-100">
           {design.bom.map((line) => (
@@ -204,23 +187,7 @@ export function CalculationTrail({ trail }: { trail: TrailEntry[] }) {
         <table className="w-full text-left text-sm">
           <caption className="sr-only">Calculation trail</caption>
           <thead className="border-b border-ink-200">
-            <tr>
-              <th scope="col" className={headCell}>
-                Quantity
-              </th>
-              <th scope="col" className={`${headCell} text-right`}>
-                Value
-              </th>
-              <th scope="col" className={headCell}>
-                Formula
-              </th>
-              <th scope="col" className={headCell}>
-                Inputs
-              </th>
-              <th scope="col" className={headCell}>
-                Source
-              </th>
-            </tr>
+            <ColumnHeads heads={["Quantity", ["Value", "text-right"], "Formula", "Inputs", "Source"]} className={headCell} />
           </thead>
           <tbody className="divide-y divide-ink-100">
             {trail.map((entry, i) => (

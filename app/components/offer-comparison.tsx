@@ -1,4 +1,6 @@
+import { Fragment, type ReactNode } from "react";
 import { Badge } from "./ui";
+import { ColumnHeads } from "./column-heads";
 import { EXTRA_ANSWER_LABELS } from "~/content/offer-terms";
 import type { ComparisonColumn, ExtraRow } from "~/services/bid-comparison";
 import type { AttachmentView } from "~/services/attachments.server";
@@ -9,6 +11,31 @@ import { DocumentLink } from "./offer-documents";
 // circuit. Rows of the same table as the bill, so every offer keeps its column.
 
 const rowHead = "sticky left-0 bg-white p-3 text-left font-normal";
+
+/** One row of the comparison: its heading in the sticky first column, then each offer's cell (a `<td>`). */
+export function OfferRow({
+  label,
+  columns,
+  cell,
+  className = "border-t border-ink-100 align-top",
+  ...data
+}: {
+  label: ReactNode;
+  columns: ComparisonColumn[];
+  cell: (c: ComparisonColumn) => ReactNode;
+  className?: string;
+} & Record<`data-${string}`, string>) {
+  return (
+    <tr className={className} {...data}>
+      <th scope="row" className={rowHead}>
+        {label}
+      </th>
+      {columns.map((c) => (
+        <Fragment key={c.id}>{cell(c)}</Fragment>
+      ))}
+    </tr>
+  );
+}
 
 /** The kinds of work beyond the bill, then the shop's own lines and the like-for-like figure. */
 export function ExtraRows({ rows, columns, money }: { rows: ExtraRow[]; columns: ComparisonColumn[]; money: (cents: number) => string }) {
@@ -39,12 +66,12 @@ export function ExtraRows({ rows, columns, money }: { rows: ExtraRow[]; columns:
           ))}
         </tr>
       ))}
-      <tr className="border-t border-ink-100 align-top" data-own-lines="">
-        <th scope="row" className={rowHead}>
-          The shop&apos;s own lines
-        </th>
-        {columns.map((c) => (
-          <td key={c.id} className="p-3 text-right text-xs">
+      <OfferRow
+        label="The shop's own lines"
+        columns={columns}
+        data-own-lines=""
+        cell={(c) => (
+          <td className="p-3 text-right text-xs">
             {c.ownLines.length ? (
               <ul className="space-y-1">
                 {c.ownLines.map((l, i) => (
@@ -57,8 +84,8 @@ export function ExtraRows({ rows, columns, money }: { rows: ExtraRow[]; columns:
               <span className="text-ink-400">none</span>
             )}
           </td>
-        ))}
-      </tr>
+        )}
+      />
     </>
   );
 }
@@ -89,16 +116,16 @@ export function OfferTermsRows({ columns, money }: { columns: ComparisonColumn[]
   return (
     <>
       {rows.map(([label, key, cell]) => (
-        <tr key={key} className="border-t border-ink-100 align-top">
-          <th scope="row" className={rowHead}>
-            {label}
-          </th>
-          {columns.map((c) => (
-            <td key={c.id} className="p-3 text-right text-xs text-ink-800" data-offer-term={key} data-bid={c.id}>
+        <OfferRow
+          key={key}
+          label={label}
+          columns={columns}
+          cell={(c) => (
+            <td className="p-3 text-right text-xs text-ink-800" data-offer-term={key} data-bid={c.id}>
               {cell(c)}
             </td>
-          ))}
-        </tr>
+          )}
+        />
       ))}
     </>
   );
@@ -107,12 +134,11 @@ export function OfferTermsRows({ columns, money }: { columns: ComparisonColumn[]
 /** The shop's documents on each offer, each a download. */
 export function OfferDocumentsRow({ columns, documents }: { columns: ComparisonColumn[]; documents: Record<string, AttachmentView[]> }) {
   return (
-    <tr className="border-t border-ink-100 align-top">
-      <th scope="row" className={rowHead}>
-        Documents
-      </th>
-      {columns.map((c) => (
-        <td key={c.id} className="p-3 text-left text-xs" data-documents={c.id}>
+    <OfferRow
+      label="Documents"
+      columns={columns}
+      cell={(c) => (
+        <td className="p-3 text-left text-xs" data-documents={c.id}>
           {documents[c.id]?.length ? (
             <ul className="space-y-1">
               {documents[c.id].map((doc) => (
@@ -125,8 +151,8 @@ export function OfferDocumentsRow({ columns, documents }: { columns: ComparisonC
             <span className="text-ink-400">none</span>
           )}
         </td>
-      ))}
-    </tr>
+      )}
+    />
   );
 }
 
@@ -156,17 +182,13 @@ export function AlternativeCircuits({ columns, money, units }: { columns: Compar
               <table className="mt-3 w-full text-sm">
                 <caption className="sr-only">The alternative circuit&apos;s bill from {c.shop}</caption>
                 <thead className="text-ink-600">
-                  <tr>
-                    <th scope="col" className="text-left">
-                      Part
-                    </th>
-                    <th scope="col" className="text-right">
-                      Qty
-                    </th>
-                    <th scope="col" className="text-right">
-                      Line total
-                    </th>
-                  </tr>
+                  <ColumnHeads
+                    heads={[
+                      ["Part", "text-left"],
+                      ["Qty", "text-right"],
+                      ["Line total", "text-right"],
+                    ]}
+                  />
                 </thead>
                 <tbody>
                   {alt.lines.map((l, i) => (

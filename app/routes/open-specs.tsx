@@ -4,6 +4,7 @@ import type { Route } from "./+types/open-specs";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { Badge, Button, Card, EmptyState, Notice, PageHeader, Pager, TableScroll } from "~/components/ui";
+import { ColumnHeads } from "~/components/column-heads";
 import { BID_STATUS_LABELS, BID_STATUS_TONES } from "~/content/bid-status";
 import { OPEN_SPEC_SORTS, OPEN_SPEC_SORT_LABELS, readOpenSpecsQuery, type OpenSpecParam } from "~/schemas/open-specs";
 import { listOpenSpecsForShop } from "~/services/open-specs.server";
@@ -197,28 +198,20 @@ export default function OpenSpecs({ loaderData: d }: Route.ComponentProps) {
           <TableScroll label="Open specs">
             <table className="w-full min-w-[40rem] text-left text-sm">
               <thead className="text-ink-600">
-                <tr>
-                  <th scope="col" className="py-2">
-                    Spec
-                  </th>
-                  <th scope="col">Region</th>
-                  <th scope="col" className="text-right">
-                    Relief setting
-                  </th>
-                  <th scope="col" className="text-right">
-                    Pump flow
-                  </th>
-                  <th scope="col" className="text-right">
-                    Units
-                  </th>
-                  <th scope="col" className="pl-4">
-                    Currency
-                  </th>
-                  <th scope="col">Bids until</th>
-                  <th scope="col">
-                    <span className="sr-only">Your bid</span>
-                  </th>
-                </tr>
+                <ColumnHeads
+                  heads={[
+                    ["Spec", "py-2"],
+                    "Region",
+                    ["Relief setting", "text-right"],
+                    ["Pump flow", "text-right"],
+                    ["Units", "text-right"],
+                    ["Currency", "pl-4"],
+                    "Bids until",
+                    <span key="bid" className="sr-only">
+                      Your bid
+                    </span>,
+                  ]}
+                />
               </thead>
               <tbody>
                 {d.specs.map((s) => (

@@ -18,7 +18,7 @@ import { COMPARISON_SORTS, type ComparisonSort } from "~/services/bid-comparison
 import { comparisonOf } from "~/services/bids.server";
 import { fieldErrorReply, fieldErrorsOf } from "~/services/errors.server";
 import { specOfOwner } from "~/services/spec-access.server";
-import { AlternativeCircuits, ExtraRows, OfferDocumentsRow, OfferTermsRows } from "~/components/offer-comparison";
+import { AlternativeCircuits, ExtraRows, OfferDocumentsRow, OfferRow, OfferTermsRows } from "~/components/offer-comparison";
 import { documentsOfBids } from "~/services/offer-documents.server";
 import { OrganisationProfileCard } from "~/components/organisation-profile";
 
@@ -317,57 +317,51 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                     </td>
                   ))}
                 </tr>
-                <tr className="border-t border-ink-100">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
-                    Lead time
-                  </th>
-                  {columns.map((c) => (
-                    <td key={c.id} className={`p-3 text-right ${c.shortestLead ? "font-semibold text-flow-700" : ""}`}>
+                <OfferRow
+                  label="Lead time"
+                  columns={columns}
+                  className="border-t border-ink-100"
+                  cell={(c) => (
+                    <td className={`p-3 text-right ${c.shortestLead ? "font-semibold text-flow-700" : ""}`}>
                       {c.leadTimeWeeks ? `${c.leadTimeWeeks} weeks` : "—"}
                       {c.shortestLead ? <span className="block text-xs">shortest</span> : null}
                     </td>
-                  ))}
-                </tr>
-                <tr className="border-t border-ink-100">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
-                    Valid until
-                  </th>
-                  {columns.map((c) => (
-                    <td key={c.id} className="p-3 text-right">
-                      {c.validUntil ? day(c.validUntil) : "—"}
-                    </td>
-                  ))}
-                </tr>
+                  )}
+                />
+                <OfferRow
+                  label="Valid until"
+                  columns={columns}
+                  className="border-t border-ink-100"
+                  cell={(c) => <td className="p-3 text-right">{c.validUntil ? day(c.validUntil) : "—"}</td>}
+                />
                 {/* What each price includes and on what terms, beside the prices, so nobody awards blind. */}
                 <OfferTermsRows columns={columns} money={money} />
                 <OfferDocumentsRow columns={columns} documents={d.documents} />
-                <tr className="border-t border-ink-100 align-top">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
-                    The shop
-                  </th>
-                  {columns.map((c) => (
-                    <td key={c.id} className="p-3 text-left text-xs" data-profile={c.id}>
+                <OfferRow
+                  label="The shop"
+                  columns={columns}
+                  cell={(c) => (
+                    <td className="p-3 text-left text-xs" data-profile={c.id}>
                       <OrganisationProfileCard profile={d.profiles[c.id]} />
                     </td>
-                  ))}
-                </tr>
-                <tr className="border-t border-ink-100 align-top">
-                  <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
-                    Notes from the shop
-                  </th>
-                  {columns.map((c) => (
-                    <td key={c.id} className="p-3 text-left text-xs whitespace-pre-line text-ink-800" data-notes={c.id}>
+                  )}
+                />
+                <OfferRow
+                  label="Notes from the shop"
+                  columns={columns}
+                  cell={(c) => (
+                    <td className="p-3 text-left text-xs whitespace-pre-line text-ink-800" data-notes={c.id}>
                       {c.notes || <span className="text-ink-400">none</span>}
                     </td>
-                  ))}
-                </tr>
+                  )}
+                />
                 {canAward ? (
-                  <tr className="border-t border-ink-100">
-                    <th scope="row" className="sticky left-0 bg-white p-3 text-left font-normal">
-                      Decision
-                    </th>
-                    {columns.map((c) => (
-                      <td key={c.id} className="p-3 text-right">
+                  <OfferRow
+                    label="Decision"
+                    columns={columns}
+                    className="border-t border-ink-100"
+                    cell={(c) => (
+                      <td className="p-3 text-right">
                         {c.status === "submitted" ? (
                           <span className="flex justify-end">
                             <ButtonLink
@@ -380,8 +374,8 @@ export default function SpecBids({ loaderData: d, actionData }: Route.ComponentP
                           </span>
                         ) : null}
                       </td>
-                    ))}
-                  </tr>
+                    )}
+                  />
                 ) : null}
               </tfoot>
             </table>

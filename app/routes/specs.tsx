@@ -6,6 +6,7 @@ import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { SPEC_STATUSES, SPEC_STATUS_LABELS, SPEC_STATUS_TONES, shownSpecStatus, type SpecStatus } from "~/content/spec-status";
 import { Badge, Button, Card, EmptyState, PageHeader, TableScroll } from "~/components/ui";
+import { ColumnHeads } from "~/components/column-heads";
 
 import { SPEC_SORTS, listSpecs } from "~/services/specs.server";
 import { offerCounts } from "~/services/bids.server";
@@ -99,17 +100,7 @@ export default function Specs({ loaderData }: Route.ComponentProps) {
             <TableScroll label="Specs">
               <table className="w-full min-w-[40rem] text-left text-sm">
                 <thead className="text-ink-600">
-                  <tr>
-                    <th scope="col" className="py-2">
-                      Spec
-                    </th>
-                    <th scope="col">Status</th>
-                    <th scope="col" className="text-right pr-4">
-                      Offers
-                    </th>
-                    <th scope="col">Bid deadline</th>
-                    <th scope="col">Last changed</th>
-                  </tr>
+                  <ColumnHeads heads={[["Spec", "py-2"], "Status", ["Offers", "text-right pr-4"], "Bid deadline", "Last changed"]} />
                 </thead>
                 <tbody>
                   {specs.map((s) => (

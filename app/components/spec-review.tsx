@@ -10,7 +10,7 @@ import { axisFormValues, type Draft } from "~/content/spec-draft";
 import type { FormStepKind, StepRef } from "~/content/spec-steps";
 import type { MachineMotion } from "~/hydraulics";
 import type { PublishedDesign } from "~/services/published-design";
-import { stepFieldNames } from "~/schemas/spec";
+import { stepFieldNames } from "~/schemas/spec-fields";
 import type { AttachmentView } from "~/services/attachments.server";
 import type { UnitSystem } from "~/units";
 

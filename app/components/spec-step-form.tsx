@@ -1,16 +1,13 @@
-import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
-import { parseWithZod } from "@conform-to/zod/v4";
-import { useEffect, useMemo, useRef } from "react";
+import { getFormProps, parse, useForm, type Submission, type SubmissionResult } from "@conform-to/react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { Form, Link, useBlocker } from "react-router";
-import { AttachmentUploader } from "~/components/attachment-uploader";
 import { SelectField, SubmitButton, TextAreaField, TextField } from "~/components/form-field";
 import { MoreQuestions } from "~/components/more-questions";
 import { RequirementInput } from "~/components/requirement-input";
-import { SpecLivePreview } from "~/components/spec-live-preview";
-import { MachineCyclePreview, MachinePreview, useMachineSizing } from "~/components/machine-preview";
+import { AttachmentUploader, AxesFields, CycleFields, MachineCyclePreview, MachinePreview, QuotationFields, SpecLivePreview } from "~/components/loaded-later";
+import { useMachineSizing } from "~/components/use-machine-sizing";
 import { sequenceOf } from "~/content/machine-input";
 import { Button, Card, Notice, STICKY_ACTION_BAR } from "~/components/ui";
-import { CURRENCIES } from "~/content/money";
 import {
   REQUIREMENT_FIELDS,
   differsFromDefault,
@@ -20,9 +17,8 @@ import {
   type FormValues,
   type RequirementKey,
 } from "~/content/requirement-fields";
-import { AXIS_LIMITS, axisNameField, cycleField, cycleInWords, cycleSteps } from "~/content/spec-draft";
 import { FORM_QUESTIONS, type FormStepKind, type StepRef } from "~/content/spec-steps";
-import { FLUIDS, STEP_DEFAULTS, SUPPLY_VOLTAGES, TEXT_MAX, stepFieldNames, stepSchema, type StepContext } from "~/schemas/spec";
+import { FLUIDS, STEP_DEFAULTS, SUPPLY_VOLTAGES, TEXT_MAX, stepFieldNames, type StepContext } from "~/schemas/spec-fields";
 import type { AttachmentLimits, AttachmentView } from "~/services/attachments.server";
 import { UNIT_SYSTEM_LABELS, type UnitSystem } from "~/units";
 
@@ -50,7 +46,6 @@ export interface SpecStepFormProps {
 }
 
 type Answers = Record<string, string | undefined>;
-type Fields = ReturnType<typeof useForm<Answers, Record<string, unknown>>>[1];
 
 export function SpecStepForm({
   specId,
@@ -71,13 +66,16 @@ export function SpecStepForm({
     const usual = Object.fromEntries(Object.entries(STEP_DEFAULTS).filter(([k]) => mine.includes(k)));
     return { ...usual, ...stepAnswers };
   }, [kind, context.axes, stepAnswers]);
+  const check = useStepCheck();
   const [form, fields] = useForm<Answers, Record<string, unknown>>({
     lastResult,
     defaultValue,
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: stepSchema(kind, system, context) }),
+    onValidate: ({ formData }) => check.validate(formData, (schemas) => schemas.stepSchema(kind, system, context)),
     shouldValidate: "onBlur",
     shouldRevalidate: "onInput",
   });
+  // A field left before the schema had arrived is checked as soon as it has.
+  useEffect(() => check.whenLoaded((name) => form.validate({ name })), [check, form]);
   const others = context.others[0] ?? {};
   const current = { ...others, ...(form.value as FormValues | undefined) } as FormValues;
   const leave = useUnsavedGuard(form.dirty);
@@ -230,122 +228,38 @@ export function SpecStepForm({
   );
 }
 
-/** The machine step's list of axes: each named here, moved, copied or removed by its buttons (which save what was typed). */
-function AxesFields({ fields, axes }: { fields: Fields; axes: StepContext["axes"] }) {
-  const full = axes.length >= AXIS_LIMITS.max;
-  return (
-    <Card className="space-y-4">
-      <div id="axes">
-        <h2 className="font-semibold">Axes</h2>
-        <p className="text-sm text-ink-600">
-          One axis for each cylinder the power unit moves, e.g. a clamp and a main ram. Each is asked about on its own steps; the duty and site are asked once
-          for the whole machine. From {AXIS_LIMITS.min} to {AXIS_LIMITS.max} axes.
-        </p>
-      </div>
-      <ol className="space-y-3">
-        {axes.map((axis, i) => {
-          const meta = fields[axisNameField(axis.id)];
-          return (
-            <li key={axis.id} className="rounded-md p-3 ring-1 ring-ink-100">
-              <TextField
-                meta={meta}
-                label={`Axis ${i + 1} name`}
-                hint={i === 0 ? "What the shop floor calls it: “Clamp”, “Main ram”, “Ejector”." : undefined}
-                maxLength={AXIS_LIMITS.nameMax}
-              />
-              <div className="mt-2 flex flex-wrap gap-2">
-                <Button
-                  type="submit"
-                  name="intent"
-                  value={`up:${axis.id}`}
-                  tone="secondary"
-                  formNoValidate
-                  disabled={i === 0}
-                  aria-label={`Move ${axis.name} up`}
-                >
-                  ↑ Up
-                </Button>
-                <Button
-                  type="submit"
-                  name="intent"
-                  value={`down:${axis.id}`}
-                  tone="secondary"
-                  formNoValidate
-                  disabled={i === axes.length - 1}
-                  aria-label={`Move ${axis.name} down`}
-                >
-                  ↓ Down
-                </Button>
-                <Button
-                  type="submit"
-                  name="intent"
-                  value={`duplicate:${axis.id}`}
-                  tone="secondary"
-                  formNoValidate
-                  disabled={full}
-                  aria-label={`Duplicate ${axis.name}`}
-                >
-                  Duplicate
-                </Button>
-                <Button
-                  type="submit"
-                  name="intent"
-                  value={`remove:${axis.id}`}
-                  tone="secondary"
-                  formNoValidate
-                  disabled={axes.length <= AXIS_LIMITS.min}
-                  aria-label={`Remove ${axis.name}`}
-                >
-                  Remove
-                </Button>
-              </div>
-            </li>
-          );
-        })}
-      </ol>
-      <div>
-        <Button type="submit" name="intent" value="add" tone="secondary" formNoValidate disabled={full}>
-          + Add an axis
-        </Button>
-        {full ? <p className="mt-1 text-xs text-ink-600">A machine has at most {AXIS_LIMITS.max} axes.</p> : null}
-      </div>
-    </Card>
-  );
-}
+type StepSchemas = typeof import("~/schemas/spec");
+type ZodParse = typeof import("@conform-to/zod/v4").parseWithZod;
 
-/** The cycle step: each axis's extension and retraction given a step; the same step means together. */
-function CycleFields({ fields, axes, values }: { fields: Fields; axes: StepContext["axes"]; values: Answers | undefined }) {
-  const count = 2 * axes.length;
-  const options = Array.from({ length: count }, (_, i) => ({ value: String(i + 1), label: `Step ${i + 1}` }));
-  const shown = Object.fromEntries(
-    axes.flatMap((a) =>
-      (["extend", "retract"] as const).map((m) => [
-        cycleField(a.id, m),
-        String(values?.[cycleField(a.id, m)] ?? fields[cycleField(a.id, m)].initialValue ?? ""),
-      ]),
-    ),
-  );
-  const words = cycleInWords(axes, cycleSteps(axes, shown));
-  return (
-    <>
-      <p className="text-sm text-ink-600">
-        Give each motion the step of the cycle it runs in. Motions in the same step move together; the pump is sized for what they draw at once. One after
-        another is the usual way and needs the smallest pump.
-      </p>
-      <div className="grid gap-4 sm:grid-cols-2">
-        {axes.map((axis) => (
-          <fieldset key={axis.id} className="space-y-3 rounded-md p-3 ring-1 ring-ink-100">
-            <legend className="px-1 text-sm font-semibold text-ink-900">{axis.name}</legend>
-            <SelectField meta={fields[cycleField(axis.id, "extend")]} label="Extends in" options={options} />
-            <SelectField meta={fields[cycleField(axis.id, "retract")]} label="Retracts in" options={options} />
-          </fieldset>
-        ))}
-      </div>
-      <div className="rounded-md bg-flow-50 p-3 text-sm" aria-live="polite">
-        <p className="text-xs font-semibold text-ink-600">The cycle in words</p>
-        <p className="font-semibold text-ink-900">{words}</p>
-      </div>
-    </>
+/**
+ * The step's schema and zod load just after the page (a sixth of its script), so the questions are
+ * ready sooner. Until they have arrived a field left is noted and checked once they are, and
+ * "Save and continue" posts to the server, which judges the step with the same schema.
+ */
+function useStepCheck() {
+  const [loaded, setLoaded] = useState<{ schemas: StepSchemas; parseWithZod: ZodParse } | null>(null);
+  const [waiting] = useState(() => new Set<string>());
+  useEffect(() => {
+    void Promise.all([import("~/schemas/spec"), import("@conform-to/zod/v4")]).then(([schemas, zod]) => setLoaded({ schemas, parseWithZod: zod.parseWithZod }));
+  }, []);
+  return useMemo(
+    () => ({
+      validate(formData: FormData, schemaOf: (schemas: StepSchemas) => ReturnType<StepSchemas["stepSchema"]>): Submission<Record<string, unknown>, string[]> {
+        if (loaded) return loaded.parseWithZod(formData, { schema: schemaOf(loaded.schemas) });
+        return parse(formData, {
+          resolve: (value, intent) => {
+            if (intent?.type === "validate" && intent.payload.name) waiting.add(intent.payload.name);
+            return { value };
+          },
+        });
+      },
+      whenLoaded(validate: (name: string) => void) {
+        if (!loaded) return;
+        for (const name of waiting) validate(name);
+        waiting.clear();
+      },
+    }),
+    [loaded, waiting],
   );
 }
 
@@ -374,38 +288,4 @@ function defaultFor(key: RequirementKey, system: UnitSystem): string | undefined
   const f = REQUIREMENT_FIELDS[key];
   if (f.defaultValue === undefined) return undefined;
   return f.kind === "number" ? displayValue(f, f.defaultValue, system) : f.defaultValue;
-}
-
-function QuotationFields({ fields }: { fields: ReturnType<typeof useForm<Answers, Record<string, unknown>>>[1] }) {
-  return (
-    <>
-      <TextField meta={fields.unitsWanted} label="Units wanted" hint="How many identical axes shops should quote for." inputMode="numeric" />
-      <TextField meta={fields.bidDeadline} label="Bid deadline" hint="The last day shops can bid. Example: three weeks from today." type="date" />
-      <TextField meta={fields.dateNeeded} label="Date needed" hint="When the units must be delivered." type="date" />
-      <TextField
-        meta={fields.deliveryRegion}
-        label="Delivery region"
-        hint={`Where the units go, e.g. “UK — West Midlands”. At most ${TEXT_MAX.deliveryRegion} characters.`}
-        maxLength={TEXT_MAX.deliveryRegion}
-      />
-      <SelectField
-        meta={fields.currency}
-        label="Currency of the bids"
-        hint="Every shop prices its bid in this currency, so bids compare directly."
-        options={CURRENCIES}
-      />
-      <TextField
-        meta={fields.retainerPercent}
-        label="Retainer for the chosen shop (%)"
-        hint="The share of the awarded price you pay up front by card when you award. 20 % is usual."
-        inputMode="decimal"
-      />
-      <TextAreaField
-        meta={fields.notes}
-        label="Notes for the shops"
-        hint={`Anything else: paint, standards your plant follows, access for installation. Optional. At most ${TEXT_MAX.notes} characters.`}
-        maxLength={TEXT_MAX.notes}
-      />
-    </>
-  );
 }

@@ -1,4 +1,4 @@
-// The engine's machine sizing for the browser, loaded by a dynamic import (machine-preview.tsx).
+// The engine's machine sizing for the browser, loaded by a dynamic import (use-machine-sizing.ts).
 // It names the engine's own modules rather than its index, which the pages import statically for
 // its tables and schemas: through the index, the whole engine would ride in every page's script.
 import { sizeMachineParsed } from "~/hydraulics/machine";

@@ -14,36 +14,19 @@ export {
   parseRequirements,
   RequirementsError,
   FORM_ERROR_KEY,
-  REQUIREMENT_LIMITS,
-  REQUIREMENT_DEFAULTS,
   REQUIREMENT_MESSAGES,
-  ORIENTATIONS,
-  ROD_DIRECTIONS,
-  MOUNTINGS,
-  MOUNTING_STYLES,
-  PUMP_TYPES,
-  SUPPLY_FREQUENCIES,
-  NAME_MAX,
   type Requirements,
   type RequirementsInput,
 } from "./requirements";
+// The plain tables come from modules without zod, so a page reading only them does not load it.
+export * from "./requirement-limits";
 export type * from "./design";
 export { WARNING_CODES, type WarningCode } from "./warnings";
 export { NotSizableError } from "./not-sizable";
 export { ASSUMPTIONS } from "./assumptions";
 export { sizeMachineParsed } from "./machine";
-export {
-  parseMachine,
-  defaultSequence,
-  MACHINE_LIMITS,
-  MACHINE_MESSAGES,
-  MACHINE_DUTY_FIELDS,
-  MOTIONS,
-  type MachineRequirements,
-  type MachineRequirementsInput,
-  type MachineMotion,
-  type Motion,
-} from "./machine-requirements";
+export { parseMachine, MACHINE_MESSAGES, type MachineRequirements, type MachineRequirementsInput, type MachineMotion } from "./machine-requirements";
+export { defaultSequence, MACHINE_LIMITS, MACHINE_DUTY_FIELDS, MOTIONS, type Motion } from "./machine-limits";
 export type * from "./machine-design";
 
 /** Validates the requirements (throwing RequirementsError) and sizes the circuit. */

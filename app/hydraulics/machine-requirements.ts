@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { FORM_ERROR_KEY, requirementsSchema, RequirementsError, type Requirements } from "./requirements";
+import { defaultSequence, MACHINE_DUTY_FIELDS, MACHINE_LIMITS, MOTIONS, type DutyField, type Motion } from "./machine-limits";
 
 /**
  * The one schema for a machine: one to eight named axes on one power unit, the machine cycle,
@@ -7,14 +8,6 @@ import { FORM_ERROR_KEY, requirementsSchema, RequirementsError, type Requirement
  * (requirements.ts), so an axis in a machine meets exactly the limits an axis alone meets; the
  * duty fields take their limits from the same schema.
  */
-
-export const MACHINE_LIMITS = { axes: { min: 1, max: 8 }, steps: { max: 64 } } as const;
-export const MOTIONS = ["extend", "retract"] as const;
-export type Motion = (typeof MOTIONS)[number];
-
-/** The fields a machine asks once, for its power unit; an axis inside a machine leaves them out. */
-export const MACHINE_DUTY_FIELDS = ["cyclesPerHour", "hoursPerDay", "ambientC", "supplyHz", "maxPressureBar", "pumpType"] as const;
-type DutyField = (typeof MACHINE_DUTY_FIELDS)[number];
 
 export const MACHINE_MESSAGES = {
   machine: "Send the machine as an object with its axes",
@@ -82,10 +75,6 @@ export interface MachineRequirements {
   pumpType?: Requirements["pumpType"];
 }
 export type MachineRequirementsInput = z.input<typeof machineFields> & { axes: Record<string, unknown>[] };
-
-/** Each axis in order extends, then retracts, one at a time. */
-export const defaultSequence = (names: string[]): MachineMotion[][] =>
-  names.flatMap((axis) => [[{ axis, motion: "extend" as const }], [{ axis, motion: "retract" as const }]]);
 
 const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === "object" && x !== null && !Array.isArray(x);
 

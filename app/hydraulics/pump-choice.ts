@@ -7,7 +7,7 @@ import { A } from "./assumptions";
 import type { Design } from "./design";
 import { pressNeedsControl } from "./press-speed";
 import { pumpDeliveryLpm, requiredDisplacementCc, selectDisplacementCc } from "./pump-motor";
-import type { PUMP_TYPES } from "./requirements";
+import type { PUMP_TYPES } from "./requirement-limits";
 import { ISO3662_DISPLACEMENTS_CC } from "./series";
 
 export type PumpType = (typeof PUMP_TYPES)[number];

@@ -4,7 +4,7 @@ import type { Route } from "./+types/spec-step";
 import { requireRole } from "~/auth/permissions.server";
 import { PAGE_ROLES } from "~/auth/roles";
 import { SpecProgress } from "~/components/spec-progress";
-import { SpecReview } from "~/components/spec-review";
+import { SpecReview } from "~/components/loaded-later";
 import { SpecStepForm } from "~/components/spec-step-form";
 import { Notice, PageHeader } from "~/components/ui";
 import { machineInput, machineSequence, withAssumedDuty } from "~/content/machine-input";

@@ -2,18 +2,18 @@ import { z } from "zod";
 import { NAME_MAX, parseRequirements, RequirementsError } from "~/hydraulics";
 import { fieldApplies, toRequirementsInput, type FormValues, type RequirementKey } from "~/content/requirement-fields";
 import { axisFormValues, axisNameField, cycleField, type Draft } from "~/content/spec-draft";
+import { FLUIDS, OWN_FIELD_NAMES, SUPPLY_VOLTAGES, TEXT_MAX, ownFieldNames, stepFieldNames, type StepContext } from "./spec-fields";
 import { ENGINE_KEYS_BY_STEP, type FormStepKind } from "~/content/spec-steps";
 import type { UnitSystem } from "~/units";
 import { CURRENCIES } from "~/content/money";
 import { isIsoDay, todayUtc as today } from "~/content/dates";
 
-// The spec form's schemas, one per step, shared by the server action and the Conform form.
+// The spec form's schemas, one per step, shared by the server action and the Conform form (which
+// loads them after the page; the fields' names, lengths and choices are in spec-fields.ts).
 // The engine's own requirement schema judges the axis fields: each step runs it over every
 // answer given so far and keeps the problems of its own fields, so cross-field rules (an
 // inclined axis needs its angle) hold without a second copy of them.
 
-/** The longest answer each free-text field takes; every other field holds a number or a choice. */
-export const TEXT_MAX = { title: 120, purpose: 2000, deliveryRegion: 80, notes: 4000 } as const;
 /** A number or a choice as typed ("1 250,5", "400 V three-phase"): never longer than this. */
 const SHORT_ANSWER_MAX = 40;
 const tooLong = (max: number) => `Keep it under ${max + 1} characters.`;
@@ -21,24 +21,8 @@ const tooLong = (max: number) => `Keep it under ${max + 1} characters.`;
 const text = (max: number, message: string) => z.string({ error: message }).trim().min(1, message).max(max, tooLong(max));
 const optionalText = (max: number) => z.string().trim().max(max, tooLong(max)).optional();
 
-export const SUPPLY_VOLTAGES = [
-  "230 V single-phase",
-  "400 V three-phase",
-  "415 V three-phase",
-  "480 V three-phase",
-  "575 V three-phase",
-  "690 V three-phase",
-] as const;
-export const FLUIDS = ["ISO VG 32", "ISO VG 46", "ISO VG 68"] as const;
-
-/** What a fresh step shows before the buyer answers: the usual choice, never a guess about the machine. */
-export const STEP_DEFAULTS: Record<string, string> = {
-  supplyVoltage: "400 V three-phase",
-  fluid: "ISO VG 46",
-  unitsWanted: "1",
-  currency: "EUR",
-  retainerPercent: "20",
-};
+// Read by server code beside the schemas.
+export { TEXT_MAX, type StepContext };
 
 // A real calendar day: 2099-13-45 and 2099-02-30 are refused here, not by the database later.
 const isoDate = (message: string) => z.string({ error: message }).refine(isIsoDay, message);
@@ -69,7 +53,7 @@ const OWN_FIELDS = {
     retainerPercent: z.coerce.number({ error: "Enter the retainer share in percent." }).min(0, "From 0 to 50 %.").max(50, "From 0 to 50 %."),
     notes: optionalText(TEXT_MAX.notes),
   },
-} satisfies Record<FormStepKind, z.ZodRawShape>;
+} satisfies { [K in FormStepKind]: Record<(typeof OWN_FIELD_NAMES)[K][number], z.ZodType> };
 
 /** The quotation's dates: a deadline still ahead, and delivery after it. */
 function checkDates(v: Record<string, unknown>, ctx: z.RefinementCtx) {
@@ -82,17 +66,6 @@ function checkDates(v: Record<string, unknown>, ctx: z.RefinementCtx) {
 }
 
 export const quotationSchema = z.object(OWN_FIELDS.quotation).superRefine(checkDates);
-
-/**
- * What a step is judged against besides its own answers: the axes (names, for the machine and
- * cycle steps), and the answers the engine needs with this step's to judge it: an axis step's
- * other answers of the same axis and the duty; for the duty step, each axis's answers.
- */
-export interface StepContext {
-  axes: { id: string; name: string }[];
-  /** per axis: the engine answers other than this step's */
-  others: FormValues[];
-}
 
 /** The context of a step of this draft: the axis of an axis step, every axis for the duty step. */
 export function stepContext(draft: Draft, kind: FormStepKind, axisId?: string): StepContext {
@@ -122,12 +95,10 @@ const cycleStepSchema = (count: number) =>
     .max(count, `Choose a step from 1 to ${count}.`);
 
 function ownShape(kind: FormStepKind, ctx: StepContext): z.ZodRawShape {
-  if (kind === "machine") return { ...OWN_FIELDS.machine, ...Object.fromEntries(ctx.axes.map((a) => [axisNameField(a.id), nameSchema])) };
-  if (kind === "cycle") {
-    const count = 2 * ctx.axes.length;
-    return Object.fromEntries(ctx.axes.flatMap((a) => [cycleField(a.id, "extend"), cycleField(a.id, "retract")].map((n) => [n, cycleStepSchema(count)])));
-  }
-  return OWN_FIELDS[kind];
+  const fixed: Partial<Record<string, z.ZodType>> = OWN_FIELDS[kind];
+  const count = 2 * ctx.axes.length;
+  // Besides the fixed fields: the machine step's axis names, the cycle step's motion steps.
+  return Object.fromEntries(ownFieldNames(kind, ctx.axes).map((n) => [n, fixed[n] ?? (kind === "cycle" ? cycleStepSchema(count) : nameSchema)]));
 }
 
 /** Two axes of one name, told at the later one (names are compared as shops read them: trimmed, any case). */
@@ -188,11 +159,6 @@ export function stepSchema(kind: FormStepKind, system: UnitSystem, ctx: StepCont
     // Run even when the step's own fields failed, so every problem shows at once.
     { when: (payload) => typeof payload.value === "object" && payload.value !== null },
   );
-}
-
-/** The names a step's form posts: its own fields and the engine fields it asks. */
-export function stepFieldNames(kind: FormStepKind, axes: StepContext["axes"] = []): string[] {
-  return [...Object.keys(ownShape(kind, { axes, others: [] })), ...ENGINE_KEYS_BY_STEP[kind]];
 }
 
 /**

@@ -5,7 +5,8 @@
  */
 import { renderToStaticMarkup } from "react-dom/server";
 import { createRoutesStub } from "react-router";
-import { describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
+import { loadEveryPart } from "~/components/loaded-later";
 import { SpecStepForm, type SpecStepFormProps } from "~/components/spec-step-form";
 import { specSteps } from "~/content/spec-steps";
 import { refused } from "../support/conform";
@@ -15,6 +16,9 @@ const AXES = [
   { id: "axis01", name: "Clamp" },
   { id: "ram001", name: "Main ram" },
 ];
+
+// The step-only questions and previews load as chunks of their own; the server has them at start.
+beforeAll(loadEveryPart);
 
 function render(props: Partial<Omit<SpecStepFormProps, "step">> & { step: string }) {
   const step = specSteps(AXES).find((s) => s.id === props.step)!;

@@ -125,6 +125,14 @@ describe("admin: organisations and account managers", () => {
 const names = (rows: { name: string }[]) => rows.map((r) => r.name);
 const hoursAgo = (h: number) => new Date(Date.now() - h * 3_600_000);
 
+/** A buyer organisation of each name, made that many hours ago (and given `fields`), for the order of a list. */
+async function buyersMade(hoursAgoByName: Record<string, number>, fields: { accountManagerId?: string } = {}) {
+  for (const [name, hours] of Object.entries(hoursAgoByName)) {
+    const member = await makeMember("buyer", { organisationName: name });
+    await Organisation.update({ ...fields, createdAt: hoursAgo(hours) }, { where: { id: member.organisationId }, silent: true });
+  }
+}
+
 describe("admin lists: a stated order the admin can change", () => {
   it("users: newest first by default, by name or last sign-in on asking; a bad sort is the default, never an error", async () => {
     const people = [
@@ -154,16 +162,7 @@ describe("admin lists: a stated order the admin can change", () => {
   });
 
   it("organisations: newest first by default, by name on asking", async () => {
-    const made = [];
-    for (const [name, hours] of [
-      ["Orderly Zephyr Hydraulics", 5],
-      ["orderly Aster Builders", 4],
-      ["Orderly Mistral Works", 6],
-    ] as const) {
-      const member = await makeMember("buyer", { organisationName: name });
-      await Organisation.update({ createdAt: hoursAgo(hours) }, { where: { id: member.organisationId }, silent: true });
-      made.push(member);
-    }
+    await buyersMade({ "Orderly Zephyr Hydraulics": 5, "orderly Aster Builders": 4, "Orderly Mistral Works": 6 });
     const list = async (query: string) => (await visitor.get(adminOrgs.loader, `/admin/organisations?q=orderly${query}`)).data;
     expect(names((await list("")).organisations)).toEqual(["orderly Aster Builders", "Orderly Zephyr Hydraulics", "Orderly Mistral Works"]);
     expect(names((await list("&sort=name")).organisations)).toEqual(["orderly Aster Builders", "Orderly Mistral Works", "Orderly Zephyr Hydraulics"]);
@@ -196,14 +195,7 @@ describe("admin lists: a stated order the admin can change", () => {
 
   it("an account manager's accounts: by name by default, newest customers first on asking", async () => {
     const manager = await makeOperatorUser("account_manager");
-    for (const [name, hours] of [
-      ["Wrenfield Balers", 2],
-      ["Ashgrove Presses", 1],
-      ["Marlow Forming", 3],
-    ] as const) {
-      const member = await makeMember("buyer", { organisationName: name });
-      await Organisation.update({ accountManagerId: manager.id, createdAt: hoursAgo(hours) }, { where: { id: member.organisationId }, silent: true });
-    }
+    await buyersMade({ "Wrenfield Balers": 2, "Ashgrove Presses": 1, "Marlow Forming": 3 }, { accountManagerId: manager.id });
     const managerVisitor = await signedIn(manager);
     const list = async (query: string) => names((await managerVisitor.get(accounts.loader, `/accounts${query}`)).data.accounts);
     expect(await list("")).toEqual(["Ashgrove Presses", "Marlow Forming", "Wrenfield Balers"]);

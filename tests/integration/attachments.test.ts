@@ -4,7 +4,7 @@ import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
 import { type Spec, SpecAttachment } from "~/models/index.server";
 import { ATTACHMENT_LIMITS, cleanFileName, contentDisposition, removeAllAttachments } from "~/services/attachments.server";
-import { PDF_BYTES, PNG_BYTES, downloadedBytes, draftOf, pdf, png, removeForm, uploadForm } from "../support/attachment-files";
+import { PDF_BYTES, PNG_BYTES, downloadedBytes, draftOf, pdf, png, ownDraft, postAttachments, removeForm, uploadForm } from "../support/attachment-files";
 import { makeMember } from "../support/factories";
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
@@ -12,23 +12,15 @@ import { storedKeys as storedFiles, storedObject } from "../support/stored-files
 
 const sha256 = (bytes: Uint8Array) => createHash("sha256").update(bytes).digest("hex");
 
-/** Posts the form the way the uploader's XMLHttpRequest does (asking for JSON). */
-function post(visitor: Visitor, specId: string, body: FormData, headers: Record<string, string> = { Accept: "application/json" }) {
-  const request = visitor.request(`/specs/${specId}/attachments`, { method: "POST", body, headers });
-  return call(attachments.action, request, { specId });
-}
-
 function fetchFile(visitor: Visitor, specId: string, attachmentId: string) {
   return call(download.loader, visitor.request(`/specs/${specId}/attachments/${attachmentId}`), { specId, attachmentId });
 }
 
 describe("uploading drawings and photos to a draft", () => {
   it("stores each file in the bucket under a random key, records it and lists it", async () => {
-    const buyer = await makeMember("buyer");
-    const visitor = await signedIn(buyer);
-    const spec = await draftOf(buyer);
+    const { buyer, owner: visitor, spec } = await ownDraft();
 
-    const res = await post(visitor, spec.id, uploadForm(pdf("Press frame.pdf"), png("site photo.png")));
+    const res = await postAttachments(visitor, spec.id, uploadForm(pdf("Press frame.pdf"), png("site photo.png")));
     expect(res.status).toBe(200);
     expect(res.data.errors).toEqual([]);
     expect(res.data.attachments.map((a: { fileName: string; kindLabel: string; sizeBytes: number }) => [a.fileName, a.kindLabel, a.sizeBytes])).toEqual([
@@ -54,10 +46,8 @@ describe("uploading drawings and photos to a draft", () => {
   });
 
   it("keeps the name readable but drops folders and invisible characters", async () => {
-    const buyer = await makeMember("buyer");
-    const visitor = await signedIn(buyer);
-    const spec = await draftOf(buyer);
-    const res = await post(visitor, spec.id, uploadForm(pdf("../../mount\u202Efdp.pdf")));
+    const { owner: visitor, spec } = await ownDraft();
+    const res = await postAttachments(visitor, spec.id, uploadForm(pdf("../../mount\u202Efdp.pdf")));
     expect(res.status).toBe(200);
     expect(res.data.attachments[0].fileName).toBe("mountfdp.pdf");
 
@@ -75,15 +65,13 @@ describe("refused uploads store nothing", () => {
   let visitor: Visitor;
   let spec: Spec;
   beforeEach(async () => {
-    const buyer = await makeMember("buyer");
-    visitor = await signedIn(buyer);
-    spec = await draftOf(buyer);
+    ({ owner: visitor, spec } = await ownDraft());
   });
 
   async function expectRefused(form: FormData, expected: { fileName: string | null; message: RegExp }[]) {
     const filesBefore = await storedFiles();
     const rowsBefore = await SpecAttachment.count();
-    const res = await post(visitor, spec.id, form);
+    const res = await postAttachments(visitor, spec.id, form);
     expect(res.status).toBe(400);
     expect(res.data.errors).toHaveLength(expected.length);
     expected.forEach((e, i) => {
@@ -119,7 +107,7 @@ describe("refused uploads store nothing", () => {
   it("accepts a file of exactly 10 MB", async () => {
     const limit = new Uint8Array(ATTACHMENT_LIMITS.maxFileBytes);
     limit.set(PDF_BYTES);
-    const res = await post(visitor, spec.id, uploadForm(new File([limit], "limit.pdf")));
+    const res = await postAttachments(visitor, spec.id, uploadForm(new File([limit], "limit.pdf")));
     expect(res.status).toBe(200);
     expect(res.data.attachments[0].sizeBytes).toBe(ATTACHMENT_LIMITS.maxFileBytes);
     const row = await SpecAttachment.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
@@ -163,7 +151,7 @@ describe("refused uploads store nothing", () => {
     const ten = Array.from({ length: ATTACHMENT_LIMITS.maxFilesPerSpec }, (_, i) => pdf(`sheet-${i + 1}.pdf`));
     await expectRefused(uploadForm(...ten, pdf("sheet-11.pdf")), [{ fileName: "sheet-11.pdf", message: /at most 10 files, so only 10 more fit/ }]);
 
-    expect((await post(visitor, spec.id, uploadForm(...ten))).status).toBe(200);
+    expect((await postAttachments(visitor, spec.id, uploadForm(...ten))).status).toBe(200);
     await expectRefused(uploadForm(pdf("sheet-11.pdf")), [{ fileName: "sheet-11.pdf", message: /at most 10 files and this one is full/ }]);
     expect(await SpecAttachment.count({ where: { specId: spec.id } })).toBe(10);
   });
@@ -171,10 +159,8 @@ describe("refused uploads store nothing", () => {
 
 describe("who may change and read a spec's files", () => {
   async function specWithPhoto() {
-    const buyer = await makeMember("buyer");
-    const owner = await signedIn(buyer);
-    const spec = await draftOf(buyer);
-    const res = await post(owner, spec.id, uploadForm(png("rig – Ø63 bore.png")));
+    const { owner, spec } = await ownDraft();
+    const res = await postAttachments(owner, spec.id, uploadForm(png("rig – Ø63 bore.png")));
     expect(res.status).toBe(200);
     return { owner, spec, attachmentId: res.data.attachments[0].id as string };
   }
@@ -184,8 +170,8 @@ describe("who may change and read a spec's files", () => {
     const stranger = await signedIn(await makeMember("buyer"));
     const filesBefore = await storedFiles();
 
-    expect((await post(stranger, spec.id, uploadForm(pdf()))).status).toBe(404);
-    expect((await post(stranger, spec.id, removeForm(attachmentId))).status).toBe(404);
+    expect((await postAttachments(stranger, spec.id, uploadForm(pdf()))).status).toBe(404);
+    expect((await postAttachments(stranger, spec.id, removeForm(attachmentId))).status).toBe(404);
     expect((await fetchFile(stranger, spec.id, attachmentId)).status).toBe(404);
     expect((await call(attachments.loader, stranger.request(`/specs/${spec.id}/attachments`), { specId: spec.id })).status).toBe(404);
 
@@ -203,7 +189,7 @@ describe("who may change and read a spec's files", () => {
     expect(res.status).toBe(200);
     const request = shop.request(`/specs/${spec.id}/attachments/${attachmentId}`);
     expect(await downloadedBytes(download.loader, request, { specId: spec.id, attachmentId })).toEqual(PNG_BYTES);
-    expect((await post(shop, spec.id, uploadForm(pdf()))).status).toBe(404);
+    expect((await postAttachments(shop, spec.id, uploadForm(pdf()))).status).toBe(404);
   });
 
   it("sends the sniffed type, nosniff and an attachment disposition with the exact name", async () => {
@@ -221,20 +207,18 @@ describe("who may change and read a spec's files", () => {
     const { owner, spec } = await specWithPhoto();
     expect((await fetchFile(owner, spec.id, "00000000-0000-4000-8000-000000000000")).status).toBe(404);
     expect((await fetchFile(owner, spec.id, "not-an-id")).status).toBe(404);
-    expect((await post(owner, spec.id, removeForm("not-an-id"))).status).toBe(404);
+    expect((await postAttachments(owner, spec.id, removeForm("not-an-id"))).status).toBe(404);
   });
 });
 
 describe("removing files", () => {
   it("removes a draft's file and its stored bytes", async () => {
-    const buyer = await makeMember("buyer");
-    const owner = await signedIn(buyer);
-    const spec = await draftOf(buyer);
-    const added = await post(owner, spec.id, uploadForm(pdf("keep.pdf"), pdf("drop.pdf")));
+    const { owner, spec } = await ownDraft();
+    const added = await postAttachments(owner, spec.id, uploadForm(pdf("keep.pdf"), pdf("drop.pdf")));
     const drop = added.data.attachments.find((a: { fileName: string }) => a.fileName === "drop.pdf");
     const dropRow = await SpecAttachment.findByPk(drop.id, { rejectOnEmpty: true });
 
-    const res = await post(owner, spec.id, removeForm(drop.id));
+    const res = await postAttachments(owner, spec.id, removeForm(drop.id));
     expect(res.status).toBe(200);
     expect(res.data.summary).toBe("Removed drop.pdf.");
     expect(res.data.attachments.map((a: { fileName: string }) => a.fileName)).toEqual(["keep.pdf"]);
@@ -246,18 +230,16 @@ describe("removing files", () => {
   });
 
   it("refuses removing and adding with a 409 once the spec is published, and keeps the file", async () => {
-    const buyer = await makeMember("buyer");
-    const owner = await signedIn(buyer);
-    const spec = await draftOf(buyer);
-    const added = await post(owner, spec.id, uploadForm(pdf()));
+    const { owner, spec } = await ownDraft();
+    const added = await postAttachments(owner, spec.id, uploadForm(pdf()));
     const id = added.data.attachments[0].id as string;
     await spec.update({ status: "open", publishedAt: new Date() });
     const filesBefore = await storedFiles();
 
-    const removal = await post(owner, spec.id, removeForm(id));
+    const removal = await postAttachments(owner, spec.id, removeForm(id));
     expect(removal.status).toBe(409);
     expect(removal.data.errors[0].message).toMatch(/only be added or removed while the spec is a draft/);
-    const upload = await post(owner, spec.id, uploadForm(pdf("late.pdf")));
+    const upload = await postAttachments(owner, spec.id, uploadForm(pdf("late.pdf")));
     expect(upload.status).toBe(409);
 
     expect(await SpecAttachment.count({ where: { specId: spec.id } })).toBe(1);
@@ -271,8 +253,8 @@ describe("deleting a draft's files", () => {
     const spec = await draftOf(buyer);
     const other = await draftOf(buyer);
     const owner = await signedIn(buyer);
-    await post(owner, spec.id, uploadForm(pdf("a.pdf"), png("b.png")));
-    await post(owner, other.id, uploadForm(pdf("kept.pdf")));
+    await postAttachments(owner, spec.id, uploadForm(pdf("a.pdf"), png("b.png")));
+    await postAttachments(owner, other.id, uploadForm(pdf("kept.pdf")));
     const stranger = await makeMember("buyer");
     await expect(removeAllAttachments(stranger, spec.id)).rejects.toMatchObject({ init: { status: 404 } });
 
@@ -286,18 +268,19 @@ describe("deleting a draft's files", () => {
 
 describe("a plain form post, without JavaScript", () => {
   it("redirects back to the page it came from, with what happened in the toast", async () => {
-    const buyer = await makeMember("buyer");
-    const owner = await signedIn(buyer);
-    const spec = await draftOf(buyer);
+    const { owner, spec } = await ownDraft();
     const page = `http://127.0.0.1:3000/specs/${spec.id}/edit/quotation?from=review`;
 
-    const ok = await post(owner, spec.id, uploadForm(pdf()), { Accept: "text/html", Referer: page });
+    const ok = await postAttachments(owner, spec.id, uploadForm(pdf()), { Accept: "text/html", Referer: page });
     expect(ok.status).toBe(302);
     expect(ok.location).toBe(`/specs/${spec.id}/edit/quotation?from=review`);
     expect(await SpecAttachment.count({ where: { specId: spec.id } })).toBe(1);
 
     // Without a usable Referer it goes to the step that holds the uploads.
-    const refused = await post(owner, spec.id, uploadForm(new File([], "blank.pdf")), { Accept: "text/html", Referer: "https://elsewhere.example/" });
+    const refused = await postAttachments(owner, spec.id, uploadForm(new File([], "blank.pdf")), {
+      Accept: "text/html",
+      Referer: "https://elsewhere.example/",
+    });
     expect(refused.status).toBe(302);
     expect(refused.location).toBe(`/specs/${spec.id}/edit/quotation`);
     expect(refused.setCookie).toBeTruthy();

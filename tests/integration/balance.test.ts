@@ -4,7 +4,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as pay from "~/routes/job-pay";
 import * as balanceRoute from "~/routes/job-balance";
-import { Job, JobEvent, Organisation, Payment, type User } from "~/models/index.server";
+import { Job, JobEvent, Payment, type User } from "~/models/index.server";
 import { AuditEvent } from "~/models/audit.server";
 import { addDays, todayUtc } from "~/content/dates";
 import { balancePanelOf, recordBankTransfer } from "~/services/balance.server";
@@ -12,6 +12,7 @@ import { reachMilestones } from "~/services/job-progress.server";
 import { retainerPanelOf, startBalancePayment } from "~/services/payments.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { makeMember, makeOperatorUser } from "../support/factories";
+import { makeDealParties } from "../support/parties";
 import { mailsTo } from "../support/mailbox";
 import type { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
@@ -24,10 +25,7 @@ let manager: User;
 let buyerBrowser: Visitor;
 
 beforeAll(async () => {
-  buyer = await makeMember("buyer");
-  shop = await makeMember("shop");
-  manager = await makeOperatorUser("account_manager");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  ({ buyer, shop, manager } = await makeDealParties());
   buyerBrowser = await signedIn(buyer);
 });
 

@@ -12,7 +12,7 @@ import * as pay from "~/routes/job-pay";
 import { popToast } from "~/auth/session.server";
 import { Payment, type Job, type User } from "~/models/index.server";
 import { expectConsoleError } from "../support/console-errors";
-import { makeMember } from "../support/factories";
+import { makeBuyerAndShop } from "../support/parties";
 import type { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 import { awardedJob as awardedJobOf } from "../support/awards";
@@ -30,8 +30,7 @@ let shop: User;
 let visitor: Visitor;
 
 beforeAll(async () => {
-  buyer = await makeMember("buyer");
-  shop = await makeMember("shop");
+  ({ buyer, shop } = await makeBuyerAndShop());
   visitor = await signedIn(buyer);
 });
 

@@ -5,12 +5,13 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as handoverRoute from "~/routes/job-handover";
 import * as filesRoute from "~/routes/job-files";
 import * as fileDownload from "~/routes/job-file-download";
-import { Job, JobEvent, JobFile, JobMilestone, Organisation, type User } from "~/models/index.server";
+import { Job, JobEvent, JobFile, JobMilestone, type User } from "~/models/index.server";
 import { reachMilestones, undoLastMilestone } from "~/services/job-progress.server";
 import { acceptHandover, handoverPanelOf } from "~/services/job-handover.server";
 import { listJobs } from "~/services/job-reads.server";
 import { deliverDueMail } from "~/services/mail.server";
-import { makeJob, makeMember, makeOperatorUser } from "../support/factories";
+import { makeJob, makeMember } from "../support/factories";
+import { makeDealParties } from "../support/parties";
 import { mailsTo } from "../support/mailbox";
 import { call, type Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
@@ -24,10 +25,7 @@ let shop: User;
 let manager: User;
 
 beforeAll(async () => {
-  buyer = await makeMember("buyer");
-  shop = await makeMember("shop");
-  manager = await makeOperatorUser("account_manager");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  ({ buyer, shop, manager } = await makeDealParties());
 });
 
 async function handedOverJob() {
@@ -45,6 +43,10 @@ function form(fields: Record<string, string>, files: File[] = []) {
 
 const post = (visitor: Visitor, fn: typeof handoverRoute.action | typeof filesRoute.action, path: string, jobId: string, body: FormData) =>
   call(fn, visitor.request(path, { method: "POST", body }), { jobId });
+
+/** The job's files form (a kind and the files) as `visitor` posts it. */
+const uploadToJob = (visitor: Visitor, jobId: string, fields: Record<string, string>, files: File[] = []) =>
+  post(visitor, filesRoute.action, `/jobs/${jobId}/files`, jobId, form(fields, files));
 
 async function downloaded(visitor: Visitor, jobId: string, fileId: string) {
   const request = visitor.request(`/jobs/${jobId}/files/${fileId}`);
@@ -150,22 +152,10 @@ describe("files exchanged on the job", () => {
   it("keeps who uploaded each file and when, for buyer, shop and the account's staff; others get a 404", async () => {
     const { job } = await makeJob(buyer, shop);
     const shopBrowser = await signedIn(shop);
-    const up = await post(
-      shopBrowser,
-      filesRoute.action,
-      `/jobs/${job.id}/files`,
-      job.id,
-      form({ kind: "test_certificate" }, [new File([PDF], "pressure test.pdf")]),
-    );
+    const up = await uploadToJob(shopBrowser, job.id, { kind: "test_certificate" }, [new File([PDF], "pressure test.pdf")]);
     expect(up.status).toBe(302);
     const buyerBrowser = await signedIn(buyer);
-    const drawing = await post(
-      buyerBrowser,
-      filesRoute.action,
-      `/jobs/${job.id}/files`,
-      job.id,
-      form({ kind: "approved_drawing" }, [new File([DXF], "unit rev C.dxf")]),
-    );
+    const drawing = await uploadToJob(buyerBrowser, job.id, { kind: "approved_drawing" }, [new File([DXF], "unit rev C.dxf")]);
     expect(drawing.status).toBe(302);
 
     const files = (await handoverPanelOf(manager, job.id)).files;
@@ -188,13 +178,7 @@ describe("files exchanged on the job", () => {
     });
     expect(crossed.status).toBe(404);
     const managerBrowser = await signedIn(manager);
-    const staffUpload = await post(
-      managerBrowser,
-      filesRoute.action,
-      `/jobs/${job.id}/files`,
-      job.id,
-      form({ kind: "test_certificate" }, [new File([PDF], "x.pdf")]),
-    );
+    const staffUpload = await uploadToJob(managerBrowser, job.id, { kind: "test_certificate" }, [new File([PDF], "x.pdf")]);
     expect(staffUpload.status).toBe(403);
   });
 

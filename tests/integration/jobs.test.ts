@@ -18,9 +18,13 @@ import { stageOf, targetDates } from "~/services/job-schedule";
 import { deliverDueMail } from "~/services/mail.server";
 import { FieldErrors } from "~/services/errors.server";
 import { inDays, makeJob, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
+import { makeBuyerAndShop } from "../support/parties";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
+
+/** A form of the job page (its `intent` and fields) as `visitor` posts it. */
+const postToJob = (visitor: Visitor, jobId: string, fields: Record<string, string>) => visitor.post(jobPage.action, `/jobs/${jobId}`, fields, { jobId });
 
 /** Moves a job's award (and its milestones' targets) `days` into the past, as if awarded then. */
 async function ageJob(jobId: string, days: number) {
@@ -157,8 +161,7 @@ describe("progress recorded by the shop", () => {
   let buyerVisitor: Visitor;
 
   beforeAll(async () => {
-    buyer = await makeMember("buyer", { organisationName: "Calder Lift Systems" });
-    shop = await makeMember("shop", { organisationName: "Brenner Fluidtechnik" });
+    ({ buyer, shop } = await makeBuyerAndShop({ buyer: "Calder Lift Systems", shop: "Brenner Fluidtechnik" }));
     shopVisitor = await signedIn(shop);
     buyerVisitor = await signedIn(buyer);
   });
@@ -209,20 +212,10 @@ describe("progress recorded by the shop", () => {
     expect(typeof undone.detail.reachedAt).toBe("string");
 
     // Through the page: a reason is required, and a good request redirects back with a message.
-    const noReason = await shopVisitor.post(
-      jobPage.action,
-      `/jobs/${job.id}`,
-      { intent: "undo", milestone: "drawings_agreed", reason: " " },
-      { jobId: job.id },
-    );
+    const noReason = await postToJob(shopVisitor, job.id, { intent: "undo", milestone: "drawings_agreed", reason: " " });
     expect(noReason.status).toBe(400);
     expect(noReason.data.result.error.reason).toEqual(["Say why the milestone is taken back."]);
-    const ok = await shopVisitor.post(
-      jobPage.action,
-      `/jobs/${job.id}`,
-      { intent: "undo", milestone: "drawings_agreed", reason: "Customer reopened the drawings." },
-      { jobId: job.id },
-    );
+    const ok = await postToJob(shopVisitor, job.id, { intent: "undo", milestone: "drawings_agreed", reason: "Customer reopened the drawings." });
     expect(ok.status).toBe(302);
     expect(ok.location).toBe(`/jobs/${job.id}`);
     expect((await Job.findByPk(job.id, { rejectOnEmpty: true })).stage).toBeNull();
@@ -232,12 +225,12 @@ describe("progress recorded by the shop", () => {
     const { job } = await makeJob(buyer, shop);
     const dispatched = await JobMilestone.findOne({ where: { jobId: job.id, key: "dispatched" }, rejectOnEmpty: true });
     const newDate = addDays(dispatched.targetDate!, 14);
-    const res = await shopVisitor.post(
-      jobPage.action,
-      `/jobs/${job.id}`,
-      { intent: "target", milestone: "dispatched", targetDate: newDate, reason: "Motor delivery slipped two weeks." },
-      { jobId: job.id },
-    );
+    const res = await postToJob(shopVisitor, job.id, {
+      intent: "target",
+      milestone: "dispatched",
+      targetDate: newDate,
+      reason: "Motor delivery slipped two weeks.",
+    });
     expect(res.status).toBe(302);
     await dispatched.reload();
     expect(dispatched.targetDate).toBe(newDate);
@@ -263,7 +256,7 @@ describe("progress recorded by the shop", () => {
       [{ milestone: "nozzle", targetDate: newDate }, "milestone", /Choose a milestone/],
     ] as const;
     for (const [fields, field, message] of bad) {
-      const r = await shopVisitor.post(jobPage.action, `/jobs/${job.id}`, { intent: "target", ...fields }, { jobId: job.id });
+      const r = await postToJob(shopVisitor, job.id, { intent: "target", ...fields });
       expect(r.status, JSON.stringify(fields)).toBe(400);
       expect(r.data.result.error[field].join(" ")).toMatch(message);
     }
@@ -283,8 +276,8 @@ describe("progress recorded by the shop", () => {
 
   it("shows the history with who and when, newest first", async () => {
     const { job } = await makeJob(buyer, shop);
-    await shopVisitor.post(jobPage.action, `/jobs/${job.id}`, { intent: "progress-note", body: "Tank welded, waiting for paint." }, { jobId: job.id });
-    await shopVisitor.post(jobPage.action, `/jobs/${job.id}`, { intent: "reach", milestone: "drawings_agreed", note: "" }, { jobId: job.id });
+    await postToJob(shopVisitor, job.id, { intent: "progress-note", body: "Tank welded, waiting for paint." });
+    await postToJob(shopVisitor, job.id, { intent: "reach", milestone: "drawings_agreed", note: "" });
     const res = await buyerVisitor.get(jobPage.loader, `/jobs/${job.id}`, { jobId: job.id });
     expect(res.status).toBe(200);
     const events = res.data.job.events as { kind: string; who: string; whoOrganisation: string; at: string; body: string }[];
@@ -299,10 +292,10 @@ describe("progress recorded by the shop", () => {
     expect(res.data.job.canRecordProgress).toBe(false);
     expect(res.data.job.canWriteManagerNote).toBe(false);
 
-    const empty = await shopVisitor.post(jobPage.action, `/jobs/${job.id}`, { intent: "progress-note", body: "   " }, { jobId: job.id });
+    const empty = await postToJob(shopVisitor, job.id, { intent: "progress-note", body: "   " });
     expect(empty.status).toBe(400);
     expect(empty.data.result.error.body).toEqual(["Write the note first."]);
-    const nonsense = await shopVisitor.post(jobPage.action, `/jobs/${job.id}`, { intent: "celebrate" }, { jobId: job.id });
+    const nonsense = await postToJob(shopVisitor, job.id, { intent: "celebrate" });
     expect(nonsense.status).toBe(400);
     expect(nonsense.data.intent).toBeNull();
     expect(await JobEvent.count({ where: { jobId: job.id } })).toBe(3);
@@ -311,12 +304,7 @@ describe("progress recorded by the shop", () => {
   it("e-mails buyer and shop when a milestone is reached", async () => {
     const stranger = await makeMember("buyer");
     const { job, spec } = await makeJob(buyer, shop, { title: "Tilting deck, main cylinders" });
-    const res = await shopVisitor.post(
-      jobPage.action,
-      `/jobs/${job.id}`,
-      { intent: "reach", milestone: "in_build", note: "Manifold machined." },
-      { jobId: job.id },
-    );
+    const res = await postToJob(shopVisitor, job.id, { intent: "reach", milestone: "in_build", note: "Manifold machined." });
     expect(res.status).toBe(302);
     // The action hands mail to the sender; flush whatever is left (publish mails to every shop too).
     while ((await deliverDueMail(100)) > 0);
@@ -351,9 +339,9 @@ describe("internal notes", () => {
     const [managerV, adminV, buyerV, shopV] = await Promise.all([manager, admin, buyer, shop].map((user) => signedIn(user)));
 
     const note = "Buyer hinted the retainer waits for their quarter-end.";
-    const res = await managerV.post(jobPage.action, `/jobs/${job.id}`, { intent: "manager-note", body: note }, { jobId: job.id });
+    const res = await postToJob(managerV, job.id, { intent: "manager-note", body: note });
     expect(res.status).toBe(302);
-    expect((await adminV.post(jobPage.action, `/jobs/${job.id}`, { intent: "manager-note", body: "Checked by admin." }, { jobId: job.id })).status).toBe(302);
+    expect((await postToJob(adminV, job.id, { intent: "manager-note", body: "Checked by admin." })).status).toBe(302);
     const stored = await JobEvent.findAll({ where: { jobId: job.id, kind: "manager_note" }, order: [["createdAt", "ASC"]] });
     expect(stored.map((e) => [e.userId, e.visibility, e.body])).toEqual([
       [manager.id, "operator", note],
@@ -370,7 +358,7 @@ describe("internal notes", () => {
       expect(page.status).toBe(200);
       expect(JSON.stringify(page.data)).not.toContain("quarter-end");
       expect(page.data.job.events.map((e: { kind: string }) => e.kind)).toEqual(["awarded"]);
-      const write = await party.post(jobPage.action, `/jobs/${job.id}`, { intent: "manager-note", body: "Let me in" }, { jobId: job.id });
+      const write = await postToJob(party, job.id, { intent: "manager-note", body: "Let me in" });
       expect(write.status).toBe(403);
     }
     expect(await JobEvent.count({ where: { jobId: job.id, kind: "manager_note" } })).toBe(2);
@@ -546,7 +534,7 @@ describe("who may see and change a job", () => {
   it.each(["not-a-uuid", "1; drop table jobs", "00000000-0000-0000-0000-000000000000", randomUUID()])("a forged id (%s) is not found", async (id) => {
     for (const who of ["buyer", "shop", "manager", "admin"] as const) {
       expect((await visitors[who].get(jobPage.loader, `/jobs/${id}`, { jobId: id })).status).toBe(404);
-      expect((await visitors[who].post(jobPage.action, `/jobs/${id}`, { intent: "progress-note", body: "x" }, { jobId: id })).status).toBe(404);
+      expect((await postToJob(visitors[who], id, { intent: "progress-note", body: "x" })).status).toBe(404);
     }
   });
 
@@ -556,7 +544,7 @@ describe("who may see and change a job", () => {
     expect(page.location).toBe(`/sign-in?redirectTo=${encodeURIComponent(`/jobs/${job.id}`)}`);
     const list = await new Visitor().get(jobsPage.loader, "/jobs?overdue=1");
     expect(list.location).toBe(`/sign-in?redirectTo=${encodeURIComponent("/jobs?overdue=1")}`);
-    const post = await new Visitor().post(jobPage.action, `/jobs/${job.id}`, { intent: "progress-note", body: "Anonymous" }, { jobId: job.id });
+    const post = await postToJob(new Visitor(), job.id, { intent: "progress-note", body: "Anonymous" });
     expect(post.status).toBe(302);
     expect(post.location).toMatch(/^\/sign-in/);
     expect(await JobEvent.count({ where: { jobId: job.id, body: "Anonymous" } })).toBe(0);
@@ -583,7 +571,7 @@ describe("who may see and change a job", () => {
       "manager-note": { intent, body: `Internal from ${who}` },
     };
     const before = await JobEvent.count({ where: { jobId: job.id } });
-    const res = await visitors[who].post(jobPage.action, `/jobs/${job.id}`, fields[intent], { jobId: job.id });
+    const res = await postToJob(visitors[who], job.id, fields[intent]);
     expect(res.status).toBe(status);
     expect(await JobEvent.count({ where: { jobId: job.id } })).toBe(before + (status === 302 ? 1 : 0));
     if (status === 302 && intent === "reach") await undoLastMilestone(people.shop, job.id, { milestone: "drawings_agreed", reason: "reset for the next case" });

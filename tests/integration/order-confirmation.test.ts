@@ -11,6 +11,7 @@ import { awardBid } from "~/services/award.server";
 import { FieldErrors } from "~/services/errors.server";
 import { orderPdf } from "~/services/order-pdf.server";
 import { makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
+import { makeBuyerAndShop, makeManagerOf } from "../support/parties";
 import { serverContext } from "../support/routes";
 import { signedIn } from "../support/sessions";
 import { pdfText } from "../support/pdf-text";
@@ -21,8 +22,7 @@ let job: Job;
 let order: OrderDocument;
 
 beforeAll(async () => {
-  buyer = await makeMember("buyer", { organisationName: "Kestrel Forming Ltd" });
-  shop = await makeMember("shop", { organisationName: "Ironbridge Fluid Power" });
+  ({ buyer, shop } = await makeBuyerAndShop({ buyer: "Kestrel Forming Ltd", shop: "Ironbridge Fluid Power" }));
   const spec = await makePublishedSpec(buyer, { machine: { title: "Scissor lift table, main cylinder" } });
   const bid = await makeSubmittedBid(spec, shop, { totalCents: 1_234_567, leadTimeWeeks: 10 });
   // The whole job quoted: commissioning priced, training included, a line of the shop's own.
@@ -93,8 +93,7 @@ describe("made at the award", () => {
 
 describe("on screen and as a PDF", () => {
   it("shows the order to the buyer, the shop, the account's manager and admins; anyone else gets a 404", async () => {
-    const manager = await makeOperatorUser("account_manager");
-    await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+    const manager = await makeManagerOf(buyer);
     for (const person of [buyer, shop, manager, await makeOperatorUser("admin")]) {
       const page = await (await signedIn(person)).get(orderPage.loader, `/jobs/${job.id}/order`, { jobId: job.id });
       expect(page.status, person.email).toBe(200);

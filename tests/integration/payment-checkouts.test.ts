@@ -10,7 +10,7 @@ import * as webhook from "~/routes/webhooks.stripe";
 import { Job, JobEvent, Organisation, OutboxMail, Payment, sequelize, type User } from "~/models/index.server";
 import { reconcileOpenPayments } from "~/services/payment-sync.server";
 import { startStripeFake, type StripeFake } from "../../fakes/stripe";
-import { makeMember, makeOperatorUser } from "../support/factories";
+import { makeDealParties } from "../support/parties";
 import { call } from "../support/routes";
 import { signedIn } from "../support/sessions";
 import { awardedJob as awardedJobOf } from "../support/awards";
@@ -46,10 +46,7 @@ async function restartFake() {
 
 beforeAll(async () => {
   await restartFake();
-  buyer = await makeMember("buyer");
-  shop = await makeMember("shop");
-  const manager = await makeOperatorUser("account_manager");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  ({ buyer, shop } = await makeDealParties());
 });
 
 afterAll(async () => {

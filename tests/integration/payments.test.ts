@@ -10,7 +10,6 @@ import * as jobPage from "~/routes/job";
 import * as jobsPage from "~/routes/jobs";
 import * as paymentsPage from "~/routes/payments";
 import * as refund from "~/routes/payment-refund";
-import * as webhook from "~/routes/webhooks.stripe";
 import { Job, JobEvent, JobMilestone, Organisation, OutboxMail, Payment, Refund, StripeEvent, type User } from "~/models/index.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { newAttempt } from "~/services/payments.server";
@@ -19,18 +18,13 @@ import { centsToInput } from "~/content/money";
 import { spelledMoney } from "~/content/refund";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { PASSWORD, makeMember, makeOperatorUser } from "../support/factories";
-import { Visitor, call } from "../support/routes";
+import { makeDealParties } from "../support/parties";
+import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 import { awardedJob as awardedJobOf } from "../support/awards";
+import { deliverEvent, eventAbout, fakeStripe, madeUpEvent, payOnPage, signatureOf } from "../support/card-payments";
 
-const stripe = new Stripe(
-  process.env.STRIPE_SECRET_KEY!,
-  (() => {
-    const url = new URL(process.env.STRIPE_API_URL!);
-    return { host: url.hostname, port: Number(url.port), protocol: "http" as const };
-  })(),
-);
-const SECRET = process.env.STRIPE_WEBHOOK_SECRET!;
+const stripe = fakeStripe();
 
 let buyer: User;
 let shop: User;
@@ -46,44 +40,13 @@ async function paidJob() {
   const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
   await payOnPage(url, "4242 4242 4242 4242");
   const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
-  await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
+  await deliverEvent(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
   await payment.reload();
   return { job, payment };
 }
 
-/** Posts an event to the webhook as Stripe would, signed with the endpoint's secret. */
-function deliver(event: unknown, signature?: string | null) {
-  const payload = JSON.stringify(event);
-  const headers = new Headers({ "Content-Type": "application/json" });
-  const header = signature === undefined ? stripe.webhooks.generateTestHeaderString({ payload, secret: SECRET }) : signature;
-  if (header) headers.set("Stripe-Signature", header);
-  return call(webhook.action, new Request("http://127.0.0.1:3000/webhooks/stripe", { method: "POST", body: payload, headers }));
-}
-
-/** The fake's event of `type` about `objectId`, as its API lists it. */
-async function eventAbout(type: string, objectId: string, match: (o: Record<string, unknown>) => boolean = (o) => o.id === objectId) {
-  for (let i = 0; i < 50; i++) {
-    const { data } = await stripe.events.list({ type, limit: 100 });
-    const found = data.find((e) => match(e.data.object as unknown as Record<string, unknown>));
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error(`No ${type} event for ${objectId}`);
-}
-
-/** Submits the fake's hosted page with a card, as the buyer's browser would. */
-const payOnPage = (url: string, card: string) =>
-  fetch(url, {
-    method: "POST",
-    body: new URLSearchParams({ card_number: card, expiry: `12 / ${(new Date().getFullYear() + 3) % 100}`, cvc: "123" }),
-    redirect: "manual",
-  });
-
 beforeAll(async () => {
-  buyer = await makeMember("buyer");
-  shop = await makeMember("shop");
-  manager = await makeOperatorUser("account_manager");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  ({ buyer, shop, manager } = await makeDealParties());
   visitors = { buyer: await signedIn(buyer), shop: await signedIn(shop), manager: await signedIn(manager) };
 });
 
@@ -117,16 +80,13 @@ describe("paying the retainer", () => {
 
     // A bad or missing signature: 400 and nothing changes.
     const completed = await eventAbout("checkout.session.completed", session.id);
-    expect((await deliver(completed, "t=1,v1=deadbeef")).status).toBe(400);
-    expect((await deliver(completed, null)).status).toBe(400);
-    expect(
-      (await deliver({ ...completed, id: "evt_forged" }, stripe.webhooks.generateTestHeaderString({ payload: JSON.stringify(completed), secret: SECRET })))
-        .status,
-    ).toBe(400);
+    expect((await deliverEvent(completed, "t=1,v1=deadbeef")).status).toBe(400);
+    expect((await deliverEvent(completed, null)).status).toBe(400);
+    expect((await deliverEvent({ ...completed, id: "evt_forged" }, signatureOf(JSON.stringify(completed)))).status).toBe(400);
     expect(await StripeEvent.count()).toBe(0);
     expect((await payment.reload()).status).toBe("pending");
 
-    const applied = await deliver(completed);
+    const applied = await deliverEvent(completed);
     expect(applied.status).toBe(200);
     expect(applied.data.outcome).toBe("paid");
     await payment.reload();
@@ -146,7 +106,7 @@ describe("paying the retainer", () => {
 
     // The same event again changes nothing: one payment, one history row, no more mail.
     const mailsBefore = (await mailsTo(buyer.email)).length;
-    const replayed = await deliver(completed);
+    const replayed = await deliverEvent(completed);
     expect(replayed.status).toBe(200);
     expect(replayed.data.outcome).toBe("replay");
     expect(await JobEvent.count({ where: { jobId: job.id, kind: "retainer_paid" } })).toBe(1);
@@ -163,18 +123,14 @@ describe("paying the retainer", () => {
   });
 
   it("logs an event for a session it doesn't know and carries on", async () => {
-    const event = {
-      id: `evt_unknown_${Date.now()}`,
-      object: "event",
-      type: "checkout.session.completed",
-      created: Math.floor(Date.now() / 1000),
-      api_version: "2026-10-28.endive",
-      livemode: false,
-      pending_webhooks: 1,
-      request: { id: null, idempotency_key: null },
-      data: { object: { id: "cs_test_nobody", object: "checkout.session", payment_status: "paid", amount_total: 100, metadata: {} } },
-    };
-    const res = await deliver(event);
+    const event = madeUpEvent(`evt_unknown_${Date.now()}`, "checkout.session.completed", {
+      id: "cs_test_nobody",
+      object: "checkout.session",
+      payment_status: "paid",
+      amount_total: 100,
+      metadata: {},
+    });
+    const res = await deliverEvent(event);
     expect(res.status).toBe(200);
     expect(res.data.outcome).toMatch(/no payment for session cs_test_nobody/);
     expect((await StripeEvent.findByPk(event.id, { rejectOnEmpty: true })).outcome).toMatch(/no payment/);
@@ -188,7 +144,7 @@ describe("paying the retainer", () => {
     expect(await declined.text()).toMatch(/declined/i);
     const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
     const failed = await eventAbout("payment_intent.payment_failed", "", (o) => (o.metadata as Record<string, string>)?.payment_id === payment.id);
-    expect((await deliver(failed)).data.outcome).toBe("declined");
+    expect((await deliverEvent(failed)).data.outcome).toBe("declined");
     await payment.reload();
     expect(payment.status).toBe("failed");
     expect(payment.failureMessage).toMatch(/declined/i);
@@ -198,7 +154,7 @@ describe("paying the retainer", () => {
     // Trying again goes back to the same open page, where another card can pay.
     expect((await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location).toBe(url);
     expect((await payOnPage(url, "4242 4242 4242 4242")).status).toBe(303);
-    expect((await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!))).data.outcome).toBe("paid");
+    expect((await deliverEvent(await eventAbout("checkout.session.completed", payment.checkoutSessionId!))).data.outcome).toBe("paid");
     expect((await payment.reload()).status).toBe("paid");
   });
 });
@@ -234,11 +190,11 @@ describe("refunds", () => {
     // Recorded only once the webhook says so.
     expect((await payment.reload()).refundedCents).toBe(0);
     const charge = await eventAbout("charge.refunded", "", (o) => o.payment_intent === payment.paymentIntentId && o.amount_refunded === 10_000);
-    expect((await deliver(charge)).data.outcome).toBe("refunded 10000");
+    expect((await deliverEvent(charge)).data.outcome).toBe("refunded 10000");
     await payment.reload();
     expect(payment).toMatchObject({ status: "partially_refunded", refundedCents: 10_000 });
     expect((await first.reload()).status).toBe("recorded");
-    expect((await deliver(charge)).data.outcome).toBe("replay");
+    expect((await deliverEvent(charge)).data.outcome).toBe("replay");
 
     // An empty amount is a mistake to point out, not "everything left".
     const empty = await post({ amount: "", reason: "Job cancelled by the buyer" });
@@ -247,7 +203,7 @@ describe("refunds", () => {
     const rest = await post({ amount: centsToInput(payment.amountCents - 10_000), reason: "Job cancelled by the buyer" });
     expect(rest.status).toBe(302);
     const all = await eventAbout("charge.refunded", "", (o) => o.payment_intent === payment.paymentIntentId && o.amount_refunded === payment.amountCents);
-    await deliver(all);
+    await deliverEvent(all);
     await payment.reload();
     expect(payment).toMatchObject({ status: "refunded", refundedCents: payment.amountCents });
     expect(await Refund.count({ where: { paymentId: payment.id, status: "recorded" } })).toBe(2);
@@ -288,7 +244,7 @@ describe("a refund's confirmation", () => {
     const done = await ask({ amount: "12.50", reason: "Paint left off the order", confirm: "yes", currentPassword: PASSWORD });
     expect(done.status).toBe(302);
     const charge = await eventAbout("charge.refunded", "", (o) => o.payment_intent === payment.paymentIntentId && o.amount_refunded === 1250);
-    await deliver(charge);
+    await deliverEvent(charge);
     const made = await Refund.findOne({ where: { paymentId: payment.id }, rejectOnEmpty: true });
     expect((await AuditEvent.findAll({ where: { subjectId: payment.id } })).map((e) => e.action)).toEqual(["payment-paid"]);
     const refundEntries = await AuditEvent.findAll({ where: { subjectId: made.id }, order: [["at", "ASC"]] });
@@ -328,7 +284,7 @@ describe("who may see and do what", () => {
     const url = (await visitors.buyer.post(pay.action, `/jobs/${job.id}/pay`, {}, { jobId: job.id })).location!;
     await payOnPage(url, "4242 4242 4242 4242");
     const payment = await Payment.findOne({ where: { jobId: job.id }, rejectOnEmpty: true });
-    await deliver(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
+    await deliverEvent(await eventAbout("checkout.session.completed", payment.checkoutSessionId!));
     const sessionPath = `/jobs/${job.id}/payment?session_id=${payment.checkoutSessionId}`;
     expect((await stranger.get(paymentPage.loader, sessionPath, { jobId: job.id })).status).toBe(404);
     expect((await visitors.buyer.get(paymentPage.loader, `/jobs/${job.id}/payment?session_id=cs_test_other`, { jobId: job.id })).status).toBe(404);
@@ -376,9 +332,9 @@ describe("one live checkout per job", () => {
     expect((await payOnPage(oldTab, "4242 4242 4242 4242")).status).toBe(303);
     expect((await payOnPage(newTab, "4242 4242 4242 4242")).status).toBe(303);
 
-    expect((await deliver(await eventAbout("checkout.session.completed", first.checkoutSessionId!))).data.outcome).toBe("paid");
+    expect((await deliverEvent(await eventAbout("checkout.session.completed", first.checkoutSessionId!))).data.outcome).toBe("paid");
     const completed = await eventAbout("checkout.session.completed", second.checkoutSessionId!);
-    const twice = await deliver(completed);
+    const twice = await deliverEvent(completed);
     expect(twice.status).toBe(200);
     expect(twice.data.outcome).toBe("charged twice; refund requested");
     await second.reload();
@@ -390,12 +346,12 @@ describe("one live checkout per job", () => {
     expect(asked.data[0]).toMatchObject({ amount: second.amountCents, reason: "duplicate", status: "succeeded" });
     const row = await Refund.findOne({ where: { paymentId: second.id }, rejectOnEmpty: true });
     expect(row).toMatchObject({ status: "requested", requestedById: null, stripeRefundId: asked.data[0].id, amountCents: second.amountCents });
-    expect((await deliver(completed)).data.outcome).toBe("replay");
+    expect((await deliverEvent(completed)).data.outcome).toBe("replay");
     expect((await stripe.refunds.list({ payment_intent: second.paymentIntentId! })).data).toHaveLength(1);
 
     // Its refund's webhook settles the second charge and leaves the job's retainer alone.
     const refunded = await eventAbout("charge.refunded", "", (o) => o.payment_intent === second.paymentIntentId);
-    expect((await deliver(refunded)).data.outcome).toBe(`refunded ${second.amountCents} of a second charge`);
+    expect((await deliverEvent(refunded)).data.outcome).toBe(`refunded ${second.amountCents} of a second charge`);
     expect(await second.reload()).toMatchObject({ status: "refunded", refundedCents: second.amountCents });
     expect((await row.reload()).status).toBe("recorded");
     await job.reload();
@@ -449,7 +405,7 @@ describe("webhook events that do not match the payment", () => {
     ];
     for (const [name, change, reason] of wrong) {
       const event = altered(real, name, change);
-      const answer = await deliver(event);
+      const answer = await deliverEvent(event);
       expect(answer.status).toBe(200);
       expect(answer.data.outcome).toMatch(reason);
       expect(answer.data.outcome).toMatch(/not applied/);
@@ -462,29 +418,19 @@ describe("webhook events that do not match the payment", () => {
     expect((await job.reload()).retainerPaidAt).toBeNull();
     // Signed but shapeless: recorded, answered, nothing breaks.
     const shapeless = { ...real, id: `evt_shapeless_${Date.now()}`, data: { object: null } };
-    const answer = await deliver(shapeless);
+    const answer = await deliverEvent(shapeless);
     expect(answer.status).toBe(200);
     expect(answer.data.outcome).toMatch(/^malformed checkout.session.completed/);
-    expect((await deliver({ ...real, id: 42 })).status).toBe(200);
+    expect((await deliverEvent({ ...real, id: 42 })).status).toBe(200);
     // The true event still pays it.
-    expect((await deliver(real)).data.outcome).toBe("paid");
+    expect((await deliverEvent(real)).data.outcome).toBe("paid");
     expect((await job.reload()).retainerPaidAt).not.toBeNull();
   });
 
   it("does not record a refund larger than the payment, in another currency, or without an amount", async () => {
     const { job, payment } = await paidJob();
     const [charge] = (await stripe.charges.list({ payment_intent: payment.paymentIntentId! })).data;
-    const refundEvent = {
-      id: "",
-      object: "event",
-      type: "charge.refunded",
-      created: Math.floor(Date.now() / 1000),
-      api_version: "2026-10-28.endive",
-      livemode: false,
-      pending_webhooks: 1,
-      request: { id: null, idempotency_key: null },
-      data: { object: charge },
-    } as unknown as Stripe.Event;
+    const refundEvent = madeUpEvent("", "charge.refunded", charge) as unknown as Stripe.Event;
     const wrong: [string, Record<string, unknown>, RegExp][] = [
       ["oversized", { amount_refunded: payment.amountCents + 1, refunded: true }, /more than the \d+ paid/],
       ["other_currency", { amount_refunded: 100, currency: "eur" }, /currency eur/],
@@ -493,7 +439,7 @@ describe("webhook events that do not match the payment", () => {
       ["negative", { amount_refunded: -5 }, /no refunded amount/],
     ];
     for (const [name, change, reason] of wrong) {
-      const answer = await deliver(altered(refundEvent, name, change));
+      const answer = await deliverEvent(altered(refundEvent, name, change));
       expect(answer.status).toBe(200);
       expect(answer.data.outcome).toMatch(reason);
       expect(answer.data.outcome).toMatch(/not applied/);
@@ -504,6 +450,6 @@ describe("webhook events that do not match the payment", () => {
     expect((await job.reload()).retainerRefundedCents).toBe(0);
     expect(await JobEvent.count({ where: { jobId: job.id, kind: "retainer_refunded" } })).toBe(0);
     // A refund within the payment is still recorded.
-    expect((await deliver(altered(refundEvent, "fine", { amount_refunded: 500 }))).data.outcome).toBe("refunded 500");
+    expect((await deliverEvent(altered(refundEvent, "fine", { amount_refunded: 500 }))).data.outcome).toBe("refunded 500");
   });
 });

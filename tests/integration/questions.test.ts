@@ -6,11 +6,12 @@ import * as root from "~/root";
 import * as specPage from "~/routes/spec";
 import * as ask from "~/routes/spec-questions";
 import * as answer from "~/routes/spec-question-answer";
-import { Bid, Organisation, OutboxMail, Spec, SpecQuestion, User } from "~/models/index.server";
+import { Bid, OutboxMail, Spec, SpecQuestion, User } from "~/models/index.server";
 import { hashPassword } from "~/services/accounts.server";
 import { deliverDueMail } from "~/services/mail.server";
 import { mailsTo, waitForMail } from "../support/mailbox";
 import { PASSWORD, makeMember, makeOperatorUser, makePublishedSpec, uniqueEmail } from "../support/factories";
+import { makeManagerOf } from "../support/parties";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
@@ -67,8 +68,7 @@ beforeAll(async () => {
   shopA = await makeMember("shop", { organisationName: shopAName });
   shopB = await makeMember("shop", { organisationName: "Brackwater Hydraulik" });
   shopC = await makeMember("shop", { organisationName: "Cinderford Power Units" });
-  manager = await makeOperatorUser("account_manager");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  manager = await makeManagerOf(buyer);
   spec = await makePublishedSpec(buyer, { machine: { title: "Coil car lift" } });
   v = {
     buyer: await signedIn(buyer),

@@ -8,6 +8,7 @@ import { JobMilestone, Organisation, OutboxMail, Spec, type User } from "~/model
 import { addDays } from "~/content/dates";
 import { remindOfOverdueMilestones, remindOfPassedDeadlines } from "~/services/reminders.server";
 import { inDays, makeJob, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
+import { makeManagerOf } from "../support/parties";
 
 const subjectsTo = async (user: User, since: Date) =>
   (await OutboxMail.findAll({ where: { to: user.email, createdAt: { [Op.gte]: since } }, order: [["createdAt", "ASC"]] })).map((m) => m.subject);
@@ -16,8 +17,7 @@ const minuteAfter = (moment: Date) => new Date(moment.getTime() + 60_000);
 
 async function managedBuyer() {
   const buyer = await makeMember("buyer");
-  const manager = await makeOperatorUser("account_manager");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  const manager = await makeManagerOf(buyer);
   return { buyer, manager };
 }
 

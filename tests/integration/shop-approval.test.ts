@@ -4,7 +4,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as openSpecs from "~/routes/open-specs";
 import * as specPage from "~/routes/spec";
-import * as attachmentsRoute from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
 import * as questionsRoute from "~/routes/spec-questions";
 import * as bidRoute from "~/routes/spec-bid";
@@ -14,7 +13,8 @@ import { Organisation, OutboxMail, Spec, SpecAttachment, User } from "~/models/i
 import { MAIL_PRIORITIES } from "~/services/mail.server";
 import { bomOf } from "~/services/bids.server";
 import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
-import { Visitor, call } from "../support/routes";
+import { postAttachments } from "../support/attachment-files";
+import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
 let buyer: User;
@@ -31,11 +31,7 @@ async function publishedWithDrawing(owner: User) {
   form.set("intent", "upload");
   form.append("files", new File([new TextEncoder().encode("%PDF-1.7\n%%EOF\n")], "layout.pdf", { type: "application/pdf" }));
   const visitor = await signedIn(owner);
-  const upload = await call(
-    attachmentsRoute.action,
-    visitor.request(`/specs/${draft.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }),
-    { specId: draft.id },
-  );
+  const upload = await postAttachments(visitor, draft.id, form);
   expect(upload.status).toBeLessThan(400);
   for (const step of Object.keys(SPEC_ANSWERS) as (keyof typeof SPEC_ANSWERS)[]) {
     await saveStep(owner, draft.id, { step, answers: SPEC_ANSWERS[step] as Record<string, string>, complete: true });

@@ -2,12 +2,12 @@
 // download links) and who else may read it (the account's manager, admins for published specs).
 import { beforeAll, describe, expect, it } from "vitest";
 import * as specPage from "~/routes/spec";
-import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
-import { Organisation, Spec, type User } from "~/models/index.server";
+import { Spec, type User } from "~/models/index.server";
 import { createDraft, publish, saveStep } from "~/services/specs.server";
-import { pdf, uploadForm } from "../support/attachment-files";
+import { pdf, postAttachments, uploadForm } from "../support/attachment-files";
 import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser } from "../support/factories";
+import { makeManagerOf } from "../support/parties";
 import { Visitor, call } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
@@ -31,11 +31,7 @@ beforeAll(async () => {
   for (const [step, answers] of Object.entries({ ...SPEC_ANSWERS, quotation }))
     await saveStep(buyer, published.id, { step: step as keyof typeof SPEC_ANSWERS, answers, complete: true });
   const form = uploadForm(pdf("Lift frame.pdf"));
-  const uploaded = await call(
-    attachments.action,
-    owner.request(`/specs/${published.id}/attachments`, { method: "POST", body: form, headers: { Accept: "application/json" } }),
-    { specId: published.id },
-  );
+  const uploaded = await postAttachments(owner, published.id, form);
   expect(uploaded.status).toBe(200);
   attachmentId = uploaded.data.attachments[0].id;
   published = await publish(buyer, published.id, { cautionsRead: true });
@@ -78,8 +74,7 @@ describe("a published spec as a shop reads it", () => {
 
 describe("operator staff reading specs", () => {
   it("lets an account manager read the published specs of the accounts assigned to them, not their drafts", async () => {
-    const manager = await makeOperatorUser("account_manager");
-    await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+    const manager = await makeManagerOf(buyer);
     const visitor = await signedIn(manager);
     const res = await page(visitor, published.id);
     expect(res.status).toBe(200);

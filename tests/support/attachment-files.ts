@@ -1,6 +1,10 @@
 // Files and forms for the tests of uploads: minimal real openings of accepted formats (the rest
-// of a file is filler), the uploader's two forms, and a draft to attach them to.
+// of a file is filler), the uploader's two forms, how it posts them, and a draft to attach them to.
 import { Spec, type User } from "~/models/index.server";
+import * as attachments from "~/routes/spec-attachments";
+import { makeMember } from "./factories";
+import { call, type Visitor } from "./routes";
+import { signedIn } from "./sessions";
 
 export const PDF_BYTES = new TextEncoder().encode("%PDF-1.7\n1 0 obj\n<< /Type /Catalog >>\nendobj\n%%EOF\n");
 export const PNG_BYTES = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 0x0d, 0x49, 0x48, 0x44, 0x52]);
@@ -22,6 +26,18 @@ export const removeForm = (attachmentId: string) => {
   form.set("attachmentId", attachmentId);
   return form;
 };
+
+/** Posts the form the way the uploader's XMLHttpRequest does (asking for JSON), to this process's route. */
+export function postAttachments(visitor: Visitor, specId: string, body: FormData, headers: Record<string, string> = { Accept: "application/json" }) {
+  const request = visitor.request(`/specs/${specId}/attachments`, { method: "POST", body, headers });
+  return call(attachments.action, request, { specId });
+}
+
+/** A new buyer, their signed-in browser and an empty draft of theirs. */
+export async function ownDraft() {
+  const buyer = await makeMember("buyer");
+  return { buyer, owner: await signedIn(buyer), spec: await draftOf(buyer) };
+}
 
 /** An empty draft of the buyer's organisation, to attach files to. */
 export const draftOf = (buyer: User) =>

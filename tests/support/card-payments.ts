@@ -17,22 +17,39 @@ export const payOnPage = (url: string, card = "4242 4242 4242 4242") =>
     redirect: "manual",
   });
 
-/** The fake's event of `type` about the object `objectId`. */
-export async function eventAbout(type: string, objectId: string) {
+/** The fake's event of `type` about the object `objectId` (or the first whose object `match`es), as its API lists it. */
+export async function eventAbout(type: string, objectId: string, match: (o: Record<string, unknown>) => boolean = (o) => o.id === objectId) {
   const stripe = fakeStripe();
   for (let i = 0; i < 50; i++) {
     const { data } = await stripe.events.list({ type, limit: 100 });
-    const found = data.find((e) => (e.data.object as { id?: string }).id === objectId);
+    const found = data.find((e) => match(e.data.object as unknown as Record<string, unknown>));
     if (found) return found;
     await new Promise((r) => setTimeout(r, 50));
   }
   throw new Error(`No ${type} event for ${objectId}`);
 }
 
-/** Posts an event to the app's webhook, signed with the endpoint's secret. */
-export function deliverEvent(event: unknown) {
+/** An event as Stripe sends it (test mode, one pending delivery) of `type` about `object`, made up by the test. */
+export const madeUpEvent = (id: string, type: string, object: unknown) => ({
+  id,
+  object: "event",
+  type,
+  created: Math.floor(Date.now() / 1000),
+  api_version: "2026-10-28.endive",
+  livemode: false,
+  pending_webhooks: 1,
+  request: { id: null, idempotency_key: null },
+  data: { object },
+});
+
+/** The `Stripe-Signature` header Stripe would send with `payload`, signed with the endpoint's secret. */
+export const signatureOf = (payload: string) => fakeStripe().webhooks.generateTestHeaderString({ payload, secret: process.env.STRIPE_WEBHOOK_SECRET! });
+
+/** Posts an event to the app's webhook as Stripe would, signed; or with the `signature` given (null: none). */
+export function deliverEvent(event: unknown, signature?: string | null) {
   const payload = JSON.stringify(event);
-  const header = fakeStripe().webhooks.generateTestHeaderString({ payload, secret: process.env.STRIPE_WEBHOOK_SECRET! });
-  const headers = new Headers({ "Content-Type": "application/json", "Stripe-Signature": header });
+  const header = signature === undefined ? signatureOf(payload) : signature;
+  const headers = new Headers({ "Content-Type": "application/json" });
+  if (header) headers.set("Stripe-Signature", header);
   return call(webhook.action, new Request("http://127.0.0.1:3000/webhooks/stripe", { method: "POST", body: payload, headers }));
 }

@@ -2,34 +2,17 @@
 // a subtotal per offer, and a bid made on the one-axis revision before the machine is shown
 // against the machine's bill without its old lines being taken for the power unit's.
 import { describe, expect, it } from "vitest";
-import { compareBids, type ComparedBid } from "~/services/bid-comparison";
+import { compareBids } from "~/services/bid-comparison";
 import type { BidLine } from "~/models/bid.server";
 import { POWER_UNIT_LABEL } from "~/services/published-design";
+import { comparedBid } from "../support/compared-bids";
 import { clampAndPress } from "../support/machines";
 
 const machine = clampAndPress();
 const names = machine.axes.map((a) => a.name);
 const priced = (keys: string[], cents: (i: number) => number): BidLine[] =>
   keys.map((key, i) => ({ key, item: key, quantity: 1, specification: "", unitPriceCents: cents(i), alternative: false, alternativeDescription: "" }));
-const bid = (id: string, revision: number, lines: BidLine[]): ComparedBid => {
-  const set = lines.reduce((s, l) => s + l.quantity * (l.unitPriceCents ?? 0), 0);
-  return {
-    id,
-    shop: id,
-    status: "submitted",
-    specRevision: revision,
-    lines,
-    setTotalCents: set,
-    totalCents: set,
-    leadTimeWeeks: 10,
-    validUntil: null,
-    extras: [],
-    ownLines: [],
-    offerTerms: null,
-    alternativeCircuit: null,
-    notes: "",
-  };
-};
+const bid = (id: string, revision: number, lines: BidLine[]) => comparedBid(id, lines, { specRevision: revision, validUntil: null });
 
 describe("comparing offers on a machine", () => {
   const keys = machine.bom.map((l) => l.key);

@@ -3,6 +3,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { bidTotals, centsToInput, moneyProblem, parseMoney, retainerCents } from "~/content/money";
 import { compareBids, type ComparedBid } from "~/services/bid-comparison";
+import { comparedBid } from "../support/compared-bids";
 import type { BomLine } from "~/hydraulics";
 
 describe("parseMoney", () => {
@@ -92,27 +93,7 @@ const priced = (prices: (number | null)[], alternative = -1) =>
     alternative: i === alternative,
     alternativeDescription: i === alternative ? "other" : "",
   }));
-const bid = (id: string, prices: (number | null)[], extra: Partial<ComparedBid> = {}): ComparedBid => {
-  const lines = priced(prices);
-  const set = lines.reduce((s, l) => s + l.quantity * (l.unitPriceCents ?? 0), 0);
-  return {
-    id,
-    shop: id,
-    status: "submitted",
-    specRevision: 2,
-    lines,
-    setTotalCents: set,
-    totalCents: set,
-    leadTimeWeeks: 10,
-    validUntil: "2030-01-01",
-    extras: [],
-    ownLines: [],
-    offerTerms: null,
-    alternativeCircuit: null,
-    notes: "",
-    ...extra,
-  };
-};
+const bid = (id: string, prices: (number | null)[], extra: Partial<ComparedBid> = {}) => comparedBid(id, priced(prices), { specRevision: 2, ...extra });
 
 describe("compareBids", () => {
   it("marks the lowest line totals, and the cheapest offer only among complete ones", () => {

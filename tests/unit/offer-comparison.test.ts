@@ -3,6 +3,7 @@
 import { describe, expect, it } from "vitest";
 import type { BomLine } from "~/hydraulics";
 import { compareBids, type ComparedBid } from "~/services/bid-comparison";
+import { comparedBid } from "../support/compared-bids";
 import { offerSummary } from "~/services/offer-summary";
 import { INCOTERM_CODES, leavesOut, paymentText, type ExtraKind, type OfferExtra } from "~/content/offer-terms";
 
@@ -18,26 +19,11 @@ const included = (kind: ExtraKind): OfferExtra => ({ kind, answer: "included", p
 function offer(id: string, pump: number, valve: number, extras: OfferExtra[] = [], more: Partial<ComparedBid> = {}): ComparedBid {
   const set = (pump + 2 * valve) * 100;
   const extrasCents = extras.reduce((s, e) => s + (e.priceCents ?? 0), 0) + (more.ownLines ?? []).reduce((s, l) => s + l.priceCents, 0);
-  return {
-    id,
-    shop: id,
-    status: "submitted",
-    specRevision: 1,
-    lines: [
-      { key: "pump", item: "Pump", quantity: 1, specification: "", unitPriceCents: pump * 100, alternative: false, alternativeDescription: "" },
-      { key: "valve", item: "Valve", quantity: 2, specification: "", unitPriceCents: valve * 100, alternative: false, alternativeDescription: "" },
-    ],
-    setTotalCents: set,
-    totalCents: set + extrasCents,
-    leadTimeWeeks: 10,
-    validUntil: "2030-01-01",
-    extras,
-    ownLines: [],
-    offerTerms: null,
-    alternativeCircuit: null,
-    notes: "",
-    ...more,
-  };
+  const lines = [
+    { key: "pump", item: "Pump", quantity: 1, specification: "", unitPriceCents: pump * 100, alternative: false, alternativeDescription: "" },
+    { key: "valve", item: "Valve", quantity: 2, specification: "", unitPriceCents: valve * 100, alternative: false, alternativeDescription: "" },
+  ];
+  return comparedBid(id, lines, { extras, totalCents: set + extrasCents, ...more });
 }
 
 describe("the work beyond the bill in the comparison", () => {

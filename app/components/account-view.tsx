@@ -40,6 +40,9 @@ interface PaymentRow {
   id: string;
   jobId: string;
   specTitle: string;
+  purpose: "retainer" | "balance";
+  /** A balance the account manager recorded as paid by bank transfer (no card payment). */
+  byTransfer: boolean;
   status: PaymentStatus;
   amountCents: number;
   refundedCents: number;
@@ -61,7 +64,10 @@ export function AccountPayments({ payments }: { payments: PaymentRow[] }) {
                 {p.specTitle}
               </Link>
               <span className="flex flex-wrap items-center gap-2 text-ink-600">
-                <span className="tabular-nums">{formatMoney(p.amountCents, p.currency)}</span>
+                <span>
+                  {p.purpose === "balance" ? "Balance" : "Retainer"} <span className="tabular-nums">{formatMoney(p.amountCents, p.currency)}</span>
+                  {p.byTransfer ? " by bank transfer" : ""}
+                </span>
                 {p.refundedCents ? <span>({formatMoney(p.refundedCents, p.currency)} paid back)</span> : null}
                 <span>{p.paidAt ? `paid ${formatDay(p.paidAt)}` : `started ${formatDay(p.createdAt)}`}</span>
                 <Badge tone={PAYMENT_STATUS_TONES[p.status]}>{PAYMENT_STATUS_LABELS[p.status]}</Badge>

@@ -1,11 +1,12 @@
 import { Op } from "sequelize";
-import { authorize, can, findInScope, organisationsWhere, paymentsWhere, specsWhere, viewerOf } from "~/auth/access-policy.server";
+import { authorize, can, findInScope, jobsWhere, organisationsWhere, paymentsWhere, specsWhere, viewerOf } from "~/auth/access-policy.server";
 import { daysBetween, isoDay, todayUtc } from "~/content/dates";
 import { AccountNote } from "~/models/account-note.server";
 import { Bid, Job, Organisation, Payment, Spec, type User } from "~/models/index.server";
 import { OFFERED_BID_STATUSES } from "~/auth/access-scopes.server";
 import { notFound } from "./errors.server";
 import { PROFILE_ATTRIBUTES, profileOf } from "./organisation-profile.server";
+import { balanceCentsOf } from "./balance.server";
 
 // What an account manager follows per buyer account, beyond the organisation page: its open
 // specs with the bids received and how long past the deadline, its payments, its company
@@ -19,7 +20,7 @@ export async function accountViewOf(viewer: User, organisationId: string) {
   const organisation = await Organisation.findByPk(organisationId, { attributes: PROFILE_ATTRIBUTES });
   if (!organisation || !can(policyViewer, "account.writeNote", organisation)) return null;
   const today = todayUtc();
-  const [openSpecs, payments, notes] = await Promise.all([
+  const [openSpecs, payments, transfers, notes] = await Promise.all([
     Spec.findAll({
       where: { [Op.and]: [specsWhere(policyViewer), { organisationId, status: "open" }] },
       attributes: ["id", "title", "bidDeadline"],
@@ -33,6 +34,17 @@ export async function accountViewOf(viewer: User, organisationId: string) {
       include: [{ model: Job, as: "job", attributes: ["id", "specId"], include: [{ model: Spec, as: "spec", attributes: ["title"] }] }],
       order: [
         ["createdAt", "DESC"],
+        ["id", "ASC"],
+      ],
+      limit: PAYMENTS_SHOWN,
+    }),
+    // A balance the manager recorded as paid by bank transfer is a payment too, with no card row.
+    Job.findAll({
+      where: { [Op.and]: [jobsWhere(policyViewer), { buyerOrganisationId: organisationId, balanceMethod: "bank_transfer" }] },
+      attributes: ["id", "totalCents", "retainerCents", "currency", "balancePaidAt"],
+      include: [{ model: Spec, as: "spec", attributes: ["title"] }],
+      order: [
+        ["balancePaidAt", "DESC"],
         ["id", "ASC"],
       ],
       limit: PAYMENTS_SHOWN,
@@ -66,20 +78,40 @@ export async function accountViewOf(viewer: User, organisationId: string) {
         daysLate: passed ? Math.max(1, daysBetween(isoDay(s.bidDeadline!), today)) : 0,
       };
     }),
-    payments: payments.map((p) => {
-      const job = (p as Payment & { job: Job & { spec: Spec } }).job;
-      return {
-        id: p.id,
-        jobId: p.jobId,
-        specTitle: job.spec.title,
-        status: p.status,
-        amountCents: p.amountCents,
-        refundedCents: p.refundedCents,
-        currency: p.currency,
-        paidAt: p.paidAt?.toISOString() ?? null,
-        createdAt: p.createdAt.toISOString(),
-      };
-    }),
+    payments: [
+      ...payments.map((p) => {
+        const job = (p as Payment & { job: Job & { spec: Spec } }).job;
+        return {
+          id: p.id,
+          jobId: p.jobId,
+          specTitle: job.spec.title,
+          purpose: p.purpose,
+          byTransfer: false,
+          status: p.status,
+          amountCents: p.amountCents,
+          refundedCents: p.refundedCents,
+          currency: p.currency,
+          paidAt: p.paidAt?.toISOString() ?? null,
+          createdAt: p.createdAt.toISOString(),
+        };
+      }),
+      ...transfers.map((j) => ({
+        id: `transfer-${j.id}`,
+        jobId: j.id,
+        specTitle: (j as Job & { spec: Spec }).spec.title,
+        purpose: "balance" as const,
+        byTransfer: true,
+        status: "paid" as const,
+        amountCents: balanceCentsOf(j),
+        refundedCents: 0,
+        currency: j.currency,
+        paidAt: j.balancePaidAt!.toISOString(),
+        createdAt: j.balancePaidAt!.toISOString(),
+      })),
+    ]
+      // Newest first, card payments and transfers together.
+      .sort((a, b) => (b.paidAt ?? b.createdAt).localeCompare(a.paidAt ?? a.createdAt))
+      .slice(0, PAYMENTS_SHOWN),
     notes: notes.map((n) => ({
       id: n.id,
       body: n.body,

@@ -6,6 +6,8 @@ import * as account from "~/routes/account";
 import { AccountNote } from "~/models/account-note.server";
 import { JobMilestone, Organisation, Payment, Spec, type User } from "~/models/index.server";
 import { newAttempt } from "~/services/payments.server";
+import { reachMilestones } from "~/services/job-progress.server";
+import { recordBankTransfer } from "~/services/balance.server";
 import { addDays, todayUtc } from "~/content/dates";
 import { makeJob, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
 import type { Visitor } from "../support/routes";
@@ -48,6 +50,22 @@ describe("the account view", () => {
     expect(res.data.organisation.jobs.recent.find((j: { id: string }) => j.id === job.id).daysLate).toBe(4);
     expect(view.payments).toEqual([expect.objectContaining({ jobId: job.id, status: "pending", specTitle: "Late baler" })]);
     expect(view.profile.quoteContact).toEqual({ name: "Lowenna Tremayne", email: "buying@tremayne.test", phone: null });
+  });
+
+  it("lists each payment as the retainer or the balance, and a balance recorded by bank transfer among them", async () => {
+    const shop = await makeMember("shop");
+    const { job } = await makeJob(buyer, shop, { title: "Baler paid by transfer" });
+    await Payment.create({ ...newAttempt(job, buyer.id), status: "paid", paidAt: new Date(Date.now() - 86_400_000) });
+    await job.update({ retainerPaidAt: new Date(Date.now() - 86_400_000) });
+    await reachMilestones(shop, job.id, { milestone: "handed_over", note: "" });
+    await recordBankTransfer(manager, job.id, { reference: "BACS TREMAYNE 0107", paidOn: todayUtc() });
+
+    const ofJob = (await page(managerVisitor)).data.account.payments.filter((p: { jobId: string }) => p.jobId === job.id);
+    // Newest first: the transfer, then the card's retainer.
+    expect(ofJob).toEqual([
+      expect.objectContaining({ purpose: "balance", byTransfer: true, status: "paid", amountCents: job.totalCents - job.retainerCents }),
+      expect.objectContaining({ purpose: "retainer", byTransfer: false, status: "paid", amountCents: job.retainerCents }),
+    ]);
   });
 
   it("keeps notes with who wrote and who edited them, refuses an empty one and keeps what was typed", async () => {

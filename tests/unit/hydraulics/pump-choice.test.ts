@@ -7,7 +7,15 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { sizeCircuit } from "~/hydraulics";
-import { choosePump, compensatedReliefBar, highLowPowerKw, pumpPhaseInNeutral, unloadingSettingBar, type PhaseDemand } from "~/hydraulics/pump-choice";
+import {
+  choosePump,
+  compensatedReliefBar,
+  doubleSectionsCc,
+  highLowPowerKw,
+  pumpPhaseInNeutral,
+  unloadingSettingBar,
+  type PhaseDemand,
+} from "~/hydraulics/pump-choice";
 import { hydraulicPowerKw, selectMotorKw } from "~/hydraulics/pump-motor";
 import { forEveryDesign, sizedOrNull } from "../../support/hydraulics";
 import { pressAxisArb } from "./arbitraries";
@@ -294,6 +302,11 @@ describe("properties over random pressing axes", () => {
         // takes the next whole ISO 3662 size, while the double's total is a sum of two sizes and
         // steps more finely (63 + 2 = 65 where one size is 80), so the totals of two kinds don't compare.
         fc.pre(a!.pump.type === b!.pump.type);
+        // A double pump's small section is sought from its pressing flow's fit up to two sizes above
+        // it (our convention, to keep the pressing surplus small); a slower press lowers that window,
+        // which can leave out the pair the faster press used (see "a slower press whose small section's
+        // window moves down" below). Open decision for a fluid-power engineer: heat against size.
+        fc.pre(a!.pump.type !== "double" || b!.pump.displacementsCcRev[1] >= a!.pump.displacementsCcRev[1]);
         expect(b!.pump.displacementCcRev).toBeLessThanOrEqual(a!.pump.displacementCcRev + 1e-9);
       }),
       { numRuns: 200 },
@@ -318,6 +331,30 @@ describe("properties over random pressing axes", () => {
     expect(slow.pump.type).toBe("compensated");
     expect(slow.pump.reason).toContain("too much pressure for an unloading valve");
     expect(slow.pump.displacementsCcRev).toEqual([80]);
+  });
+
+  it("a slower press whose small section's window moves down can get a larger double pump: 2 + 10 = 12 becomes 1 + 12.5 = 13.5", () => {
+    // The rule in round numbers (V = 1000·Q/(n·η_v) at 1450 rpm, η_v 0.95 [M]; ISO 3662 R10 sizes [M]), 11.7 cm³/rev in all.
+    // Pressing 1.5 L/min needs 1.089 → fit 1.25 (1.72 L/min, over 1.1 × 1.5, so a control anyway): 1.25, 1.6 or 2,
+    // and 2 + (9.7 → 10) = 12 is the smallest total. Pressing 1.2 L/min needs 0.871 → fit 1 (1.38 L/min, a control
+    // too): 1, 1.25 or 1.6, and 1 + (10.7 → 12.5) = 13.5, although 2 + 10 would work with its control just as well.
+    expect(doubleSectionsCc(11.7, 1.5, 1450)).toEqual({ large: 10, small: 2 });
+    expect(doubleSectionsCc(11.7, 1.2, 1450)).toEqual({ large: 12.5, small: 1 });
+    // fast-check's counterexample (seed 799364661), to the last digit: the return needs 11.6 cm³/rev (plus the
+    // engine's 1e-9), pressing at 1.87 mm/s on 125/56 fits 1.25 → 2 + 10; at a fifth of the speed 1 + 12.5.
+    const req = {
+      ...PRESS_CX,
+      processForceN: 43640.19105049125,
+      extendSpeedMmS: 7.69825897135243,
+      retractSpeedMmS: 27.150685519359776,
+      pressSpeedMmS: 1.8708133062683463,
+    };
+    const slowMmS = req.extendSpeedMmS * 0.20000000000000023;
+    const fast = sizedOrNull(req)!;
+    const slow = sizedOrNull({ ...req, extendSpeedMmS: slowMmS, pressSpeedMmS: slowMmS })!;
+    expect([fast.cylinder.boreMm, slow.cylinder.boreMm]).toEqual([125, 125]);
+    expect(fast.pump.displacementsCcRev).toEqual([10, 2]);
+    expect(slow.pump.displacementsCcRev).toEqual([12.5, 1]);
   });
 });
 

@@ -1,4 +1,4 @@
-import { Form, useFetcher } from "react-router";
+import { Form, useActionData, useFetcher } from "react-router";
 import type { SubmissionResult } from "@conform-to/react";
 import { Badge, Button, Card } from "./ui";
 import { FieldErrors, FormErrors } from "./form-field";
@@ -6,12 +6,19 @@ import { formatDay, formatMoment, todayUtc } from "~/content/dates";
 import { formatMoney } from "~/content/money";
 import { PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES } from "~/content/payment-status";
 import type { BalancePanel as Panel } from "~/services/balance.server";
+import type { TransferReply } from "~/routes/job-balance";
 
 // The balance on the job page: when it falls due, the buyer's "Pay the balance" (the card
 // service's page, as for the retainer), the account manager's record of a bank transfer, and
 // the card attempts for those who see payments.
 
 const INPUT = "mt-1 block w-full rounded-md bg-white px-3 py-2 text-sm ring-1 ring-ink-200";
+
+/** What was typed in a field of a refused form, to show it again. */
+const typedValue = (result: SubmissionResult<string[]> | undefined, name: string) => {
+  const value = (result?.initialValue as Record<string, unknown> | null | undefined)?.[name];
+  return typeof value === "string" ? value : undefined;
+};
 
 export function BalancePanel({ jobId, balance }: { jobId: string; balance: Panel }) {
   const amount = formatMoney(balance.amountCents, balance.currency);
@@ -58,8 +65,11 @@ export function BalancePanel({ jobId, balance }: { jobId: string; balance: Panel
 }
 
 function TransferForm({ jobId }: { jobId: string }) {
-  const fetcher = useFetcher<{ result?: SubmissionResult<string[]> }>();
-  const errors = fetcher.data?.result?.error ?? {};
+  const fetcher = useFetcher<TransferReply>();
+  // Without JavaScript the form's route draws the job page again, the reply as its action data.
+  const page = useActionData() as Partial<TransferReply> | undefined;
+  const result = fetcher.data?.result ?? (page?.form === "balance" ? page.result : undefined);
+  const errors = result?.error ?? {};
   return (
     <details className="rounded-md ring-1 ring-ink-200 open:p-3" open={Object.keys(errors).length > 0 || undefined}>
       <summary className="cursor-pointer px-3 py-2 text-sm font-semibold">Record a bank transfer</summary>
@@ -69,14 +79,28 @@ function TransferForm({ jobId }: { jobId: string }) {
           <label htmlFor="transfer-reference" className="block text-sm font-semibold">
             Reference on the bank statement
           </label>
-          <input id="transfer-reference" name="reference" maxLength={200} className={INPUT} aria-invalid={errors.reference ? true : undefined} />
+          <input
+            id="transfer-reference"
+            name="reference"
+            maxLength={200}
+            defaultValue={typedValue(result, "reference")}
+            className={INPUT}
+            aria-invalid={errors.reference ? true : undefined}
+          />
           <FieldErrors id="transfer-reference-error" errors={errors.reference ?? undefined} />
         </div>
         <div>
           <label htmlFor="transfer-day" className="block text-sm font-semibold">
             Arrived on
           </label>
-          <input id="transfer-day" name="paidOn" type="date" defaultValue={todayUtc()} className={INPUT} aria-invalid={errors.paidOn ? true : undefined} />
+          <input
+            id="transfer-day"
+            name="paidOn"
+            type="date"
+            defaultValue={typedValue(result, "paidOn") ?? todayUtc()}
+            className={INPUT}
+            aria-invalid={errors.paidOn ? true : undefined}
+          />
           <FieldErrors id="transfer-day-error" errors={errors.paidOn ?? undefined} />
         </div>
         <Button type="submit" tone="secondary" disabled={fetcher.state !== "idle"}>

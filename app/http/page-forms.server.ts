@@ -28,7 +28,9 @@ export async function isPageForm(request: Request, own: readonly string[] = []) 
 }
 
 /** What an upload route answers: a redirect, its refusal, or the page's own action's answer (written out: the route's types are made from it). */
-export type PageFormAnswer<PageAction extends (...args: never[]) => unknown> = Promise<Response | Refusal<string> | Awaited<ReturnType<PageAction>>>;
+export type PageFormAnswer<PageAction extends (...args: never[]) => unknown, Reply = UploadReply<string>> = Promise<
+  Response | ReturnType<typeof data<Reply>> | Awaited<ReturnType<PageAction>>
+>;
 
 /** A refused upload as its form's reply: 503 when the file store did not answer, else 400. */
 export function uploadRefusal<Form extends string>(form: Form, error: unknown): Refusal<Form> {

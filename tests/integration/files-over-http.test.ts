@@ -8,12 +8,12 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as filesRoute from "~/routes/job-files";
 import * as documentsRoute from "~/routes/spec-bid-documents";
 import * as attachmentsRoute from "~/routes/spec-attachments";
-import { JobEvent, JobFile, type Spec, type User } from "~/models/index.server";
+import { JobEvent, JobFile, Organisation, type Spec, type User } from "~/models/index.server";
 import { BidDocument } from "~/models/bid.server";
 import { reachMilestones } from "~/services/job-progress.server";
 import { freePort } from "../../db/cluster";
 import { PDF_BYTES, PNG_BYTES, draftOf, pdf, png, uploadForm } from "../support/attachment-files";
-import { makeJob, makeMember, makePublishedSpec, makeSubmittedBid } from "../support/factories";
+import { makeJob, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
 import { startHttpApp, type HttpApp } from "../support/http-app";
 import { call, type Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
@@ -32,7 +32,9 @@ beforeAll(async () => {
   [buyerBrowser, shopBrowser] = await Promise.all([signedIn(buyer), signedIn(shop)]);
   // Nothing listens on a port just found free: the store is "down" for that server.
   const nowhere = `http://127.0.0.1:${await freePort()}`;
-  [app, storeDown] = await Promise.all([startHttpApp(), startHttpApp({ S3_ENDPOINT: nowhere })]);
+  // One after the other: two builds booting at once on a loaded machine may miss the start-up wait.
+  app = await startHttpApp();
+  storeDown = await startHttpApp({ S3_ENDPOINT: nowhere });
 }, 240_000);
 
 afterAll(async () => {
@@ -146,7 +148,7 @@ describe("a server whose object store does not answer", () => {
   });
 });
 
-describe("an upload posted without JavaScript", () => {
+describe("an upload (or another form of the job page) posted without JavaScript", () => {
   /** The page the browser gets back for a plain form post. */
   const postPlain = (visitor: Visitor, path: string, body: FormData | URLSearchParams) => send(app, visitor, path, { method: "POST", body });
 
@@ -181,6 +183,24 @@ describe("an upload posted without JavaScript", () => {
     const empty = await postPlain(buyerBrowser, `/jobs/${job.id}/handover?intent=problem`, form({ note: " " }));
     expect(await empty.text()).toMatch(/<p id="problem-note-error"[^>]*>Say what is wrong/);
     expect(await JobEvent.count({ where: { jobId: job.id, kind: "handover_problem" } })).toBe(0);
+  });
+
+  it("the account manager's bank transfer, refused, comes back as the job page with what was typed", async () => {
+    const { job } = await makeJob(buyer, shop);
+    await job.update({ retainerPaidAt: new Date() });
+    await reachMilestones(shop, job.id, { milestone: "handed_over", note: "" });
+    const manager = await makeOperatorUser("account_manager");
+    await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+    const refused = await postPlain(
+      await signedIn(manager),
+      `/jobs/${job.id}/balance`,
+      new URLSearchParams({ reference: "BACS HOLLINS 0412", paidOn: "2026-02-30" }),
+    );
+    expect(refused.status).toBe(400);
+    const html = await refused.text();
+    expect(html).toMatch(/<p id="transfer-day-error"[^>]*>[^<]*like 2026-09-30/);
+    expect(html).toContain('value="BACS HOLLINS 0412"');
+    expect((await job.reload()).balancePaidAt).toBeNull();
   });
 
   it("comes back as the bid page with an offer document's problem beside the upload field", async () => {

@@ -37,6 +37,7 @@ export async function loader({ request }: Route.LoaderArgs) {
       specTitle: p.job.spec.title,
       buyer: { id: p.buyerOrganisationId, name: p.buyerOrganisation.name, linked: openable.includes(p.buyerOrganisationId) },
       shop: { id: p.job.shopOrganisationId, name: p.job.shopOrganisation.name, linked: openable.includes(p.job.shopOrganisationId) },
+      purpose: p.purpose,
       status: p.status as PaymentStatus,
       amountCents: p.amountCents,
       refundedCents: p.refundedCents,
@@ -57,10 +58,10 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
         title="Payments"
         lead={
           d.role === "buyer"
-            ? "Every retainer your organisation has paid or tried to pay by card."
+            ? "Every retainer and balance your organisation has paid or tried to pay by card."
             : d.role === "admin"
-              ? "Every retainer payment on Tenderflow."
-              : "Retainer payments of the buyer accounts you follow."
+              ? "Every card payment on Tenderflow: retainers and balances."
+              : "Card payments of the buyer accounts you follow: retainers and balances. A balance paid by bank transfer is on its job and account."
         }
       />
       <Card>
@@ -78,7 +79,7 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
           <EmptyState
             title={params.get("flagged") === "1" ? "No payment needs a check" : params.get("status") ? "No payment has that status" : "No payments yet"}
           >
-            <p>A retainer is paid by card after a bid is awarded; each attempt is listed here with its status.</p>
+            <p>The retainer is paid by card after a bid is awarded, the balance after the handover; each attempt is listed here with its status.</p>
           </EmptyState>
         ) : (
           <ListTable
@@ -88,6 +89,7 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
               "Job",
               "Buyer",
               "Shop",
+              "For",
               "Status",
               { label: "Amount", className: "text-right" },
               { label: "Paid back", className: "text-right" },
@@ -111,6 +113,7 @@ export default function Payments({ loaderData: d }: Route.ComponentProps) {
                 <td className="py-2 pr-3">
                   <OrganisationName {...p.shop} />
                 </td>
+                <td className="py-2 pr-3">{p.purpose === "balance" ? "Balance" : "Retainer"}</td>
                 <td className="py-2 pr-3">
                   <span className="flex flex-wrap gap-1">
                     <Badge tone={PAYMENT_STATUS_TONES[p.status]}>{PAYMENT_STATUS_LABELS[p.status]}</Badge>

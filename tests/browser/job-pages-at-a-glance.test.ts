@@ -36,6 +36,7 @@ beforeAll(async () => {
   await JobMilestone.update({ reachedAt: new Date() }, { where: { jobId: handedOver.id, key: "retainer_received" } });
   await reachMilestones(shop, handedOver.id, { milestone: "handed_over", note: "" });
   await Payment.create({ ...newAttempt(handedOver, buyer.id), status: "paid", paidAt: new Date(), checkoutSessionId: "cs_test_at_a_glance" });
+  await Payment.create({ ...newAttempt(handedOver, buyer.id, "balance"), checkoutSessionId: "cs_test_at_a_glance_balance" });
   // A job whose retainer was due five days ago.
   ({ job: late } = await makeJob(buyer, shop, { title: LATE }));
   await JobMilestone.update({ targetDate: addDays(todayUtc(), -5) }, { where: { jobId: late.id, key: "retainer_received" } });
@@ -80,6 +81,14 @@ describe("job pages at a glance", () => {
 
       await open(page, `/jobs/${handedOver.id}`);
       expect(await page.getByText("Awaiting the buyer's acceptance, balance due").count()).toBe(1);
+
+      // The payments list says what each card payment was for.
+      await open(page, "/payments");
+      const payments = page.getByRole("row").filter({ has: page.getByRole("link", { name: HANDED_OVER }) });
+      await expect.poll(() => payments.count()).toBe(2);
+      expect(await payments.getByRole("cell", { name: "Balance", exact: true }).count()).toBe(1);
+      expect(await payments.getByRole("cell", { name: "Retainer", exact: true }).count()).toBe(1);
+      await shot(page, "2b-payments");
       await page.context().close();
     },
   );

@@ -1,14 +1,14 @@
 // The bidding journey in a real browser: two shops price the same bill, the buyer compares the
 // offers side by side and awards the cheapest complete one, the account manager sees the job.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { Bid, Job, Organisation, type Spec, type User } from "~/models/index.server";
-import { PASSWORD, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
-import { fillOfferTerms } from "../support/bid-page";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { Bid, Job, type Spec, type User } from "~/models/index.server";
+import { makeMember, makePublishedSpec } from "../support/factories";
+import { makeManagerOf } from "../support/parties";
+import { fillOfferTerms, openComparison, priceEveryLine } from "../support/bid-page";
+import { SCREENSHOTS, hydrated, browserAppForFile, signedInPage } from "../support/browser";
 
-let app: BrowserApp;
 let buyer: User;
 let shops: User[];
 let manager: User;
@@ -17,14 +17,10 @@ let spec: Spec;
 beforeAll(async () => {
   buyer = await makeMember("buyer", { organisationName: "Harrow Press Works" });
   shops = [await makeMember("shop", { organisationName: "Quayside Hydraulics" }), await makeMember("shop", { organisationName: "Fenwick Power Units" })];
-  manager = await makeOperatorUser("account_manager");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  manager = await makeManagerOf(buyer);
   spec = await makePublishedSpec(buyer, { machine: { title: "Forming press, main ram" } });
-  app = await startBrowserApp();
-}, 180_000);
-afterAll(async () => {
-  await app?.close();
 });
+const app = browserAppForFile();
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `bidding-${name}.png`), fullPage: true });
 
@@ -36,12 +32,8 @@ async function bid(page: Page, first: string, price: string, leadWeeks: string, 
   await page.getByRole("link", { name: "Start a bid" }).click();
   await page.waitForURL(`**/specs/${spec.id}/bid`);
   await hydrated(page);
-  const prices = page.locator('input[name$=".unitPrice"]');
-  // The URL changes as the client-side navigation commits; the form renders just after.
-  await expect.poll(() => prices.count()).toBeGreaterThan(8);
-  const count = await prices.count();
   // A line priced 0 is included elsewhere in the offer.
-  for (let i = 0; i < count; i++) await prices.nth(i).fill(i === 0 ? first : i === includedLine ? "0" : price);
+  const count = await priceEveryLine(page, 8, (i) => (i === 0 ? first : i === includedLine ? "0" : price));
   if (alternative) {
     await page.getByRole("checkbox", { name: "Alternative" }).nth(1).check();
     await page.getByPlaceholder("Make, model and why").fill(alternative);
@@ -53,9 +45,7 @@ async function bid(page: Page, first: string, price: string, leadWeeks: string, 
 describe("bidding", () => {
   it("two shops bid, the buyer compares and awards, the account manager sees the job", { timeout: 180_000 }, async () => {
     // Shop 1: dearer overall. The live total follows the prices as they are typed.
-    const first = await app.newPage();
-    await signInAs(first, shops[0].email, PASSWORD);
-    await first.waitForURL("**/open-specs");
+    const first = await signedInPage(app, shops[0].email, "**/open-specs");
     const lines = await bid(first, "1500", "200", "12", undefined, 2);
     await expect.poll(() => first.getByTestId("offer-total").textContent()).not.toBe("£0.00");
     await shot(first, "1-shop-form");
@@ -80,9 +70,7 @@ describe("bidding", () => {
     await shot(first, "2-shop-sent");
 
     // Shop 2: cheaper, with one alternative part.
-    const second = await app.newPage();
-    await signInAs(second, shops[1].email, PASSWORD);
-    await second.waitForURL("**/open-specs");
+    const second = await signedInPage(app, shops[1].email, "**/open-specs");
     await bid(second, "1400", "150", "10", "Quieter internal gear pump, same displacement");
     await second.getByRole("button", { name: "Submit the offer" }).click();
     await expect.poll(() => second.getByText(/^Offer 1 sent/).count()).toBe(1);
@@ -93,13 +81,8 @@ describe("bidding", () => {
     expect(stored.every((b) => b.lines.length === lines && b.status === "submitted")).toBe(true);
 
     // The buyer: the cheapest complete offer stands out before reading a single number.
-    const buyerPage = await app.newPage();
-    await signInAs(buyerPage, buyer.email, PASSWORD);
-    await buyerPage.waitForURL("**/specs");
-    await buyerPage.goto(`/specs/${spec.id}`);
-    await buyerPage.getByRole("link", { name: "Compare and award" }).click();
-    await buyerPage.waitForURL(`**/specs/${spec.id}/bids`);
-    await hydrated(buyerPage);
+    const buyerPage = await signedInPage(app, buyer.email, "**/specs");
+    await openComparison(buyerPage, spec.id);
     const summary = buyerPage.getByTestId("cheapest-summary");
     await expect.poll(() => summary.textContent()).toContain("Fenwick Power Units");
     expect(await buyerPage.getByText("Cheapest complete", { exact: true }).count()).toBe(1);
@@ -152,9 +135,7 @@ describe("bidding", () => {
     await shot(buyerPage, "5-job");
 
     // The account manager finds it among their accounts' jobs.
-    const managerPage = await app.newPage();
-    await signInAs(managerPage, manager.email, PASSWORD);
-    await managerPage.waitForURL("**/jobs");
+    const managerPage = await signedInPage(app, manager.email, "**/jobs");
     await expect.poll(() => managerPage.getByRole("link", { name: "Forming press, main ram" }).count()).toBeGreaterThan(0);
     await shot(managerPage, "6-manager-jobs");
     await managerPage.getByRole("link", { name: "Forming press, main ram" }).first().click();

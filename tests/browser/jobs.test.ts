@@ -2,32 +2,25 @@
 // a mismatch; the shop records a milestone on the job page; the account manager's internal note
 // stays out of the shop's view.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Organisation, type User } from "~/models/index.server";
-import { PASSWORD, makeJob, makeMember, makeOperatorUser } from "../support/factories";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { User } from "~/models/index.server";
+import { PASSWORD, makeJob } from "../support/factories";
+import { makeDealParties } from "../support/parties";
+import { SCREENSHOTS, browserAppForFile, hydrated, signInAs, signedInPage } from "../support/browser";
 
-let app: BrowserApp;
 let buyer: User;
 let shop: User;
 let manager: User;
 let jobId: string;
 
 beforeAll(async () => {
-  buyer = await makeMember("buyer", { organisationName: "Marlow Clamp Systems" });
-  shop = await makeMember("shop", { organisationName: "Tamar Hydraulic Works" });
-  manager = await makeOperatorUser("account_manager");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+  ({ buyer, shop, manager } = await makeDealParties({ buyer: "Marlow Clamp Systems", shop: "Tamar Hydraulic Works" }));
   for (const title of ["Fixture clamp, twin cylinders", "Edge press, main ram"]) {
     const { job } = await makeJob(buyer, shop, { title, totalCents: 2_480_000, leadTimeWeeks: 10 });
     jobId ??= job.id;
   }
-  app = await startBrowserApp();
-}, 180_000);
-
-afterAll(async () => {
-  await app?.close();
 });
+const app = browserAppForFile();
 
 /** Console errors and uncaught page errors (a hydration mismatch shows up as one of them). */
 function collectErrors(page: import("playwright-core").Page) {
@@ -120,9 +113,7 @@ describe("jobs in the browser", () => {
     expect(errors).toEqual([]);
     await page.context().close();
 
-    const buyerPage = await app.newPage();
-    await signInAs(buyerPage, buyer.email, PASSWORD);
-    await buyerPage.waitForURL("**/specs");
+    const buyerPage = await signedInPage(app, buyer.email, "**/specs");
     await buyerPage.goto(`/jobs/${jobId}`);
     await expect.poll(() => buyerPage.getByText("Drawing rev C signed by both sides.").count()).toBe(1);
     expect(await buyerPage.getByText("call before the drawings").count()).toBe(0);

@@ -2,17 +2,16 @@
 // axis, the one power unit), prices its bill grouped by part, a second shop prices it too, and
 // the buyer compares the offers part by part and awards one.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Bid, Job, type Spec, type User } from "~/models/index.server";
-import { PASSWORD, makeMember, makePublishedMachineSpec } from "../support/factories";
-import { fillOfferTerms } from "../support/bid-page";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { makeMember, makePublishedMachineSpec } from "../support/factories";
+import { fillOfferTerms, openComparison } from "../support/bid-page";
+import { SCREENSHOTS, browserAppForFile, hydrated, openHydrated, signedInPage } from "../support/browser";
 import { clampAndPress } from "../support/machines";
 
 const TITLE = "Clamp and press cell";
 const machine = clampAndPress();
-let app: BrowserApp;
 let buyer: User;
 let shops: User[];
 let spec: Spec;
@@ -21,11 +20,8 @@ beforeAll(async () => {
   buyer = await makeMember("buyer", { organisationName: "Ridgeway Forming Ltd" });
   shops = [await makeMember("shop", { organisationName: "Tamar Fluid Power" }), await makeMember("shop", { organisationName: "Oakfield Hydraulic Units" })];
   spec = await makePublishedMachineSpec(buyer, machine, { machine: { title: TITLE } });
-  app = await startBrowserApp();
-}, 180_000);
-afterAll(async () => {
-  await app?.close();
 });
+const app = browserAppForFile();
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `machine-bidding-${name}.png`), fullPage: true });
 
@@ -45,11 +41,8 @@ async function priceMachine(page: Page, price: string, leadWeeks: string) {
 
 describe("bidding on a machine", () => {
   it("a shop reads and prices a two-axis machine, the buyer compares part by part and awards", { timeout: 240_000 }, async () => {
-    const first = await app.newPage();
-    await signInAs(first, shops[0].email, PASSWORD);
-    await first.waitForURL("**/open-specs");
-    await first.goto(`/specs/${spec.id}`);
-    await hydrated(first);
+    const first = await signedInPage(app, shops[0].email, "**/open-specs");
+    await openHydrated(first, `/specs/${spec.id}`);
     // The machine as a shop reads it: each axis under its name, the power unit once.
     for (const name of ["Clamp", "Press"]) expect(await first.locator(`[data-axis="${name}"]`).count()).toBe(1);
     expect(await first.locator("[data-power-unit]").count()).toBe(1);
@@ -74,9 +67,7 @@ describe("bidding on a machine", () => {
     await first.getByRole("button", { name: "Submit the offer" }).click();
     await expect.poll(() => first.getByText(/^Offer 1 sent/).count()).toBe(1);
 
-    const second = await app.newPage();
-    await signInAs(second, shops[1].email, PASSWORD);
-    await second.waitForURL("**/open-specs");
+    const second = await signedInPage(app, shops[1].email, "**/open-specs");
     await priceMachine(second, "200", "16");
     await second.getByRole("button", { name: "Submit the offer" }).click();
     await expect.poll(() => second.getByText(/^Offer 1 sent/).count()).toBe(1);
@@ -84,13 +75,8 @@ describe("bidding on a machine", () => {
     expect(stored.map((b) => b.lines.map((l) => l.key))).toEqual([machine.bom.map((l) => l.key), machine.bom.map((l) => l.key)]);
 
     // The buyer compares: each line says what it serves, and each part has its subtotal per offer.
-    const buyerPage = await app.newPage();
-    await signInAs(buyerPage, buyer.email, PASSWORD);
-    await buyerPage.waitForURL("**/specs");
-    await buyerPage.goto(`/specs/${spec.id}`);
-    await buyerPage.getByRole("link", { name: "Compare and award" }).click();
-    await buyerPage.waitForURL(`**/specs/${spec.id}/bids`);
-    await hydrated(buyerPage);
+    const buyerPage = await signedInPage(app, buyer.email, "**/specs");
+    await openComparison(buyerPage, spec.id);
     const comparison = buyerPage.getByTestId("comparison");
     // Under load the address can change before the comparison has rendered: wait for its lines.
     await expect.poll(() => comparison.locator("[data-serves]").count()).toBe(machine.bom.length);

@@ -1,22 +1,24 @@
 // A new buyer in a real browser writes a spec of two axes (a clamp and a hemming ram on one power
 // unit), chooses the cycle while the shared power unit is sized beside it, and publishes it.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Spec, SpecRevision } from "~/models/index.server";
-import { PASSWORD, makeMember } from "../support/factories";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { makeMember } from "../support/factories";
+import { PHONE, SCREENSHOTS, browserAppForFile, hydrated, signedInPage } from "../support/browser";
+import { fillQuotationStep } from "../support/spec-page";
 
-let app: BrowserApp;
-beforeAll(async () => {
-  app = await startBrowserApp();
-}, 180_000);
-afterAll(async () => {
-  await app?.close();
-});
+const app = browserAppForFile();
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `machine-spec-${name}.png`), fullPage: true });
-const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+
+/** On a phone the step stacks without a sideways scroll of the page (screenshot `name`); then back to the desktop. */
+async function fitsAPhone(page: Page, name: string) {
+  await page.setViewportSize(PHONE);
+  await shot(page, name);
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+  await page.setViewportSize({ width: 1280, height: 720 });
+}
 
 async function next(page: Page, expectedStep: string) {
   await page.getByRole("button", { name: "Save and continue →" }).click();
@@ -41,9 +43,7 @@ async function answerAxis(page: Page, axis: string, a: { mass: string; force: st
 describe("a machine of two axes", () => {
   it("a new buyer names two axes, answers each, chooses the cycle and publishes the machine", { timeout: 180_000 }, async () => {
     const buyer = await makeMember("buyer", { organisationName: "Wrenfield Door Systems" });
-    const page = await app.newPage();
-    await signInAs(page, buyer.email, PASSWORD);
-    await page.waitForURL("**/specs");
+    const page = await signedInPage(app, buyer.email, "**/specs");
     await page.getByRole("button", { name: "Start a new spec" }).first().click();
     await page.waitForURL("**/edit/machine");
     await hydrated(page);
@@ -63,10 +63,7 @@ describe("a machine of two axes", () => {
     await expect.poll(() => page.getByText("Another axis is already called “clamp”.").count()).toBe(1);
     await page.getByLabel("Axis 2 name").fill("Hemming ram");
     await shot(page, "1-machine");
-    await page.setViewportSize({ width: 390, height: 844 });
-    await shot(page, "1b-machine-phone");
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
-    await page.setViewportSize({ width: 1280, height: 720 });
+    await fitsAPhone(page, "1b-machine-phone");
     await next(page, "axis01-mounting");
 
     // The progress lists each axis with its steps.
@@ -106,20 +103,15 @@ describe("a machine of two axes", () => {
     await hemming.getByLabel("Extends in").selectOption("2");
     await expect.poll(() => table.innerText()).not.toMatch(/Clamp extends, Hemming ram/);
     await shot(page, "4-cycle");
-    // On a phone the steps, the choices and the power unit stack without a sideways scroll of the page.
-    await page.setViewportSize({ width: 390, height: 844 });
-    await shot(page, "4b-cycle-phone");
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
-    await page.setViewportSize({ width: 1280, height: 720 });
+    // On a phone the steps, the choices and the power unit stack too.
+    await fitsAPhone(page, "4b-cycle-phone");
     await next(page, "duty");
 
     await page.getByLabel("Cycles per hour").fill("120");
     await page.getByLabel("Hours of work per day").fill("16");
     await shot(page, "5-duty");
     await next(page, "quotation");
-    await page.getByLabel("Bid deadline").fill(inDays(14));
-    await page.getByLabel("Date needed").fill(inDays(70));
-    await page.getByLabel("Delivery region").fill("UK — West Midlands");
+    await fillQuotationStep(page, "UK — West Midlands");
     await next(page, "review");
 
     // The review shows the machine: both axes, the one power unit, the cycle, each axis's answers.

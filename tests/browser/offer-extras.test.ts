@@ -2,16 +2,15 @@
 // structured terms and its quotation as a PDF; the buyer sees them side by side with another
 // shop's offer, what each leaves out, and downloads the PDF. Screenshots at desktop and phone size.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Bid, type Spec, type User } from "~/models/index.server";
 import { BidDocument } from "~/models/bid.server";
 import { bomOf, saveBid } from "~/services/bids.server";
-import { PASSWORD, inDays, makeMember, makePublishedSpec } from "../support/factories";
-import { fillOfferTerms } from "../support/bid-page";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { inDays, makeMember, makePublishedSpec } from "../support/factories";
+import { fillOfferTerms, priceEveryLine } from "../support/bid-page";
+import { SCREENSHOTS, browserAppForFile, hydrated, openHydrated, signedInPage } from "../support/browser";
 
-let app: BrowserApp;
 let buyer: User;
 let shop: User;
 let spec: Spec;
@@ -44,24 +43,16 @@ beforeAll(async () => {
       { name: "Servo drive", quantity: 1, price: "1900" },
     ],
   });
-  app = await startBrowserApp();
-}, 180_000);
-afterAll(async () => {
-  await app?.close();
 });
+const app = browserAppForFile();
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `offer-extras-${name}.png`), fullPage: true });
 
 describe("an offer beyond the bill", () => {
   it("a shop quotes extras, terms and a PDF; the buyer sees them side by side", { timeout: 240_000 }, async () => {
-    const page = await app.newPage();
-    await signInAs(page, shop.email, PASSWORD);
-    await page.waitForURL("**/open-specs");
-    await page.goto(`/specs/${spec.id}/bid`);
-    await hydrated(page);
-    const prices = page.locator('input[name$=".unitPrice"]');
-    await expect.poll(() => prices.count()).toBeGreaterThan(8);
-    for (let i = 0; i < (await prices.count()); i++) await prices.nth(i).fill("200");
+    const page = await signedInPage(app, shop.email, "**/open-specs");
+    await openHydrated(page, `/specs/${spec.id}/bid`);
+    await priceEveryLine(page, 8, () => "200");
 
     // The work beyond the bill: assembly and commissioning priced, documentation included.
     const extra = (kind: string) => page.locator(`[data-extra="${kind}"]`);
@@ -115,11 +106,8 @@ describe("an offer beyond the bill", () => {
     expect(await BidDocument.count({ where: { bidId: bid.id } })).toBe(1);
 
     // The buyer compares.
-    const buyerPage = await app.newPage();
-    await signInAs(buyerPage, buyer.email, PASSWORD);
-    await buyerPage.waitForURL("**/specs");
-    await buyerPage.goto(`/specs/${spec.id}/bids`);
-    await hydrated(buyerPage);
+    const buyerPage = await signedInPage(app, buyer.email, "**/specs");
+    await openHydrated(buyerPage, `/specs/${spec.id}/bids`);
     const comparison = buyerPage.getByTestId("comparison");
     await expect.poll(() => comparison.locator('[data-extra-row="commissioning"]').textContent()).toContain("£1,200.00");
     const cell = (term: string, shopName: string) =>

@@ -2,23 +2,16 @@
 // assigns it; the account manager opens the account, keeps a note and edits it; a refund asks
 // with the amount spelled out before any money moves; the admin filters the audit log.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { Organisation, Payment } from "~/models/index.server";
 import { signUp } from "~/services/accounts.server";
 import { newAttempt } from "~/services/payments.server";
 import { spelledMoney } from "~/content/refund";
 import { PASSWORD, makeJob, makeMember, makeOperatorUser, uniqueEmail } from "../support/factories";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { SCREENSHOTS, browserAppForFile, hydrated, signedInPage, openHydrated } from "../support/browser";
 
-let app: BrowserApp;
-
-beforeAll(async () => {
-  app = await startBrowserApp();
-}, 120_000);
-
-afterAll(async () => {
-  await app?.close();
-});
+const app = browserAppForFile();
+const LAPTOP = { width: 1366, height: 768 };
 
 const shot = (page: { screenshot(o: { path: string; fullPage: boolean }): Promise<unknown> }, name: string) =>
   page.screenshot({ path: path.join(SCREENSHOTS, `operator-${name}.png`), fullPage: true });
@@ -37,18 +30,12 @@ describe("the operator's side", () => {
     });
 
     // Every account manager's dashboard shows it too, until an admin assigns it.
-    const managerPage = await app.newPage();
-    await managerPage.setViewportSize({ width: 1366, height: 768 });
-    await signInAs(managerPage, manager.email, PASSWORD);
-    await managerPage.waitForURL("**/jobs");
+    const managerPage = await signedInPage(app, manager.email, "**/jobs", { viewport: LAPTOP });
     await expect.poll(() => managerPage.getByRole("listitem").filter({ hasText: "Trevose Cider Presses" }).textContent()).toContain("unassigned");
     await shot(managerPage, "0-dashboard-unassigned");
 
     // The admin's home lists the newcomer as unassigned; choosing a manager takes it off the list.
-    const adminPage = await app.newPage();
-    await adminPage.setViewportSize({ width: 1366, height: 768 });
-    await signInAs(adminPage, admin.email, PASSWORD);
-    await adminPage.waitForURL("**/admin/users");
+    const adminPage = await signedInPage(app, admin.email, "**/admin/users", { viewport: LAPTOP });
     const card = adminPage.getByRole("listitem").filter({ hasText: "Trevose Cider Presses" });
     await expect.poll(() => card.textContent()).toContain("unassigned");
     await shot(adminPage, "1-unassigned");
@@ -59,8 +46,7 @@ describe("the operator's side", () => {
     expect((await Organisation.findByPk(newcomer.organisationId, { rejectOnEmpty: true })).accountManagerId).toBe(manager.id);
 
     // The manager's account view: notes added and edited, with who and when.
-    await managerPage.goto(`/accounts/${newcomer.organisationId}`);
-    await hydrated(managerPage);
+    await openHydrated(managerPage, `/accounts/${newcomer.organisationId}`);
     await managerPage.getByLabel("Add a note").fill("Jory wants a press for the autumn harvest; call in August.");
     await managerPage.getByRole("button", { name: "Add the note" }).click();
     await expect.poll(() => managerPage.getByRole("status").textContent()).toContain("Note added");
@@ -78,8 +64,7 @@ describe("the operator's side", () => {
     const { job } = await makeJob(buyer, await makeMember("shop"));
     const payment = await Payment.create(newAttempt(job, buyer.id));
     await payment.update({ status: "paid", paidAt: new Date(), paymentIntentId: "pi_operator_demo" });
-    await managerPage.goto(`/jobs/${job.id}`);
-    await hydrated(managerPage);
+    await openHydrated(managerPage, `/jobs/${job.id}`);
     // An empty amount is not "everything": the field is required (and the server says so too).
     expect(await managerPage.getByLabel(`Amount (${job.currency})`).getAttribute("required")).not.toBeNull();
     await managerPage.getByLabel(`Amount (${job.currency})`).fill("1250");
@@ -94,12 +79,8 @@ describe("the operator's side", () => {
     await expect.poll(() => managerPage.getByLabel(`Amount (${job.currency})`).inputValue()).toBe("1250");
 
     // The newcomer fills in its company profile; its contact for quotes is on the manager's account view.
-    const buyerPage = await app.newPage();
-    await buyerPage.setViewportSize({ width: 1366, height: 768 });
-    await signInAs(buyerPage, newcomer.email, PASSWORD);
-    await buyerPage.waitForURL("**/specs");
-    await buyerPage.goto("/settings");
-    await hydrated(buyerPage);
+    const buyerPage = await signedInPage(app, newcomer.email, "**/specs", { viewport: LAPTOP });
+    await openHydrated(buyerPage, "/settings");
     await buyerPage.getByLabel("Region").fill("UK — Cornwall");
     await buyerPage.getByLabel("Tax number (VAT)").fill("not a tax number!");
     await buyerPage.getByRole("button", { name: "Save the profile" }).click();

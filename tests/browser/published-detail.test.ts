@@ -2,34 +2,26 @@
 // until opened; one click loads each (a fetcher), and without JavaScript a link loads the page
 // with it open.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Spec, User } from "~/models/index.server";
 import { PASSWORD, makeMember, makePublishedSpec } from "../support/factories";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { SCREENSHOTS, browserAppForFile, openHydrated, signedInPage } from "../support/browser";
 
-let app: BrowserApp;
 let buyer: User;
 let spec: Spec;
 
 beforeAll(async () => {
   buyer = await makeMember("buyer", { organisationName: "Fernhill Presswork" });
   spec = await makePublishedSpec(buyer, { machine: { title: "Trim press, main ram" } });
-  app = await startBrowserApp();
-}, 180_000);
-
-afterAll(async () => {
-  await app?.close();
 });
+const app = browserAppForFile();
 
 const signedInHome = (url: URL) => !url.pathname.startsWith("/sign-in");
 
 describe("a published spec's long detail", () => {
   it("loads the trail and the bill when opened", { timeout: 120_000 }, async () => {
-    const page = await app.newPage();
-    await signInAs(page, buyer.email, PASSWORD);
-    await page.waitForURL(signedInHome);
-    await page.goto(`/specs/${spec.id}`);
-    await hydrated(page);
+    const page = await signedInPage(app, buyer.email, signedInHome);
+    await openHydrated(page, `/specs/${spec.id}`);
     await page.screenshot({ path: path.join(SCREENSHOTS, "published-detail-page.png"), fullPage: true });
     expect(await page.locator("[data-trail-row]").count()).toBe(0);
     expect(await page.locator("[data-bom-key]").count()).toBe(0);

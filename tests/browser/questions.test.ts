@@ -2,29 +2,24 @@
 // filters, reads what to quote, asks a question (an empty one is refused beside the box); the
 // buyer sees who asked and answers; the shop reads the answer. A screenshot of each page.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Organisation, type Spec, type User } from "~/models/index.server";
-import { PASSWORD, makeMember, makePublishedSpec } from "../support/factories";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { makePublishedSpec } from "../support/factories";
+import { makeBuyerAndShop } from "../support/parties";
+import { SCREENSHOTS, browserAppForFile, hydrated, openHydrated, signedInPage } from "../support/browser";
 
-let app: BrowserApp;
 let buyer: User;
 let shop: User;
 let spec: Spec;
 
 beforeAll(async () => {
-  buyer = await makeMember("buyer", { organisationName: "Larkspur Balers" });
-  shop = await makeMember("shop", { organisationName: "Quarry Lane Hydraulics" });
+  ({ buyer, shop } = await makeBuyerAndShop({ buyer: "Larkspur Balers", shop: "Quarry Lane Hydraulics" }));
   await Organisation.update({ region: "UK — Yorkshire" }, { where: { id: buyer.organisationId } });
   await makePublishedSpec(buyer, { machine: { title: "Baler ram, main stroke" }, quotation: { notes: "Paint RAL 7035." } });
   spec = await makePublishedSpec(buyer, { machine: { title: "Coil car lift" }, quotation: { deliveryRegion: "UK — Humber" } });
-  app = await startBrowserApp();
-}, 180_000);
-
-afterAll(async () => {
-  await app?.close();
 });
+const app = browserAppForFile();
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `questions-${name}.png`), fullPage: true });
 /** One card of the spec page, by its heading. */
@@ -37,9 +32,7 @@ const toast = (page: Page) => page.getByRole("status").filter({ hasText: /Questi
 
 describe("questions on a spec", () => {
   it("a shop filters, asks, the buyer answers and the shop reads the answer", { timeout: 120_000 }, async () => {
-    const shopPage = await app.newPage();
-    await signInAs(shopPage, shop.email, PASSWORD);
-    await shopPage.waitForURL("**/open-specs");
+    const shopPage = await signedInPage(app, shop.email, "**/open-specs");
     await hydrated(shopPage);
     await shopPage.getByLabel("Delivered to").fill("humber");
     await shopPage.getByRole("button", { name: "Apply" }).click();
@@ -57,8 +50,7 @@ describe("questions on a spec", () => {
 
     // On a phone the list starts on the first screen, below the filters.
     await shopPage.setViewportSize({ width: 390, height: 844 });
-    await shopPage.goto("/open-specs");
-    await hydrated(shopPage);
+    await openHydrated(shopPage, "/open-specs");
     const firstSpec = (await shopPage.getByRole("link", { name: "Coil car lift" }).boundingBox())!;
     expect(firstSpec.y + firstSpec.height).toBeLessThanOrEqual(844);
     await shopPage.setViewportSize({ width: 1280, height: 720 });
@@ -82,9 +74,7 @@ describe("questions on a spec", () => {
     await card(shopPage, "The machine and what to quote", "2a-what-to-quote");
     await card(shopPage, "Questions and answers", "2b-shop-panel");
 
-    const buyerPage = await app.newPage();
-    await signInAs(buyerPage, buyer.email, PASSWORD);
-    await buyerPage.waitForURL("**/specs");
+    const buyerPage = await signedInPage(app, buyer.email, "**/specs");
     // The waiting question shows where the buyer looks first: the list of specs, then the top of the spec.
     await buyerPage.getByRole("link", { name: "1 question waiting for your answer" }).click();
     await buyerPage.waitForURL(`**/specs/${spec.id}#questions`);

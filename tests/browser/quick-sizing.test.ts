@@ -1,24 +1,23 @@
 // The public quick-sizing page in a real browser: typing changes the circuit, units switch,
 // a bad answer is marked beside its field.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { SCREENSHOTS, hydrated, startBrowserApp, type BrowserApp } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import { SCREENSHOTS, browserAppForFile, openHydrated } from "../support/browser";
 
-let app: BrowserApp;
-beforeAll(async () => {
-  app = await startBrowserApp();
-}, 120_000);
-afterAll(async () => {
-  await app?.close();
-});
+const app = browserAppForFile();
 
 const diagram = (page: import("playwright-core").Page) => page.getByRole("img", { name: /circuit/i }).first();
 
+/** A new page on the quick-sizing form, hydrated, with its example axis. */
+async function quickSizing() {
+  const page = await app.newPage();
+  await openHydrated(page, "/quick-sizing");
+  return page;
+}
+
 describe("quick sizing", () => {
   it("opens with an example circuit and redraws it as the person types", async () => {
-    const page = await app.newPage();
-    await page.goto("/quick-sizing");
-    await hydrated(page);
+    const page = await quickSizing();
     const before = await diagram(page).innerHTML();
     expect(before).toContain(`data-kind="cbv"`); // the example press overruns on extension
     await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-example.png"), fullPage: true });
@@ -36,9 +35,7 @@ describe("quick sizing", () => {
   });
 
   it("switches to US customary units and keeps the same axis", async () => {
-    const page = await app.newPage();
-    await page.goto("/quick-sizing");
-    await hydrated(page);
+    const page = await quickSizing();
     await page.getByText("US customary (in, lb, psi)").click();
     await expect.poll(() => page.getByLabel("Stroke", { exact: true }).inputValue()).toBe("19.69");
     await expect.poll(() => page.getByLabel("Moving mass", { exact: true }).inputValue()).toBe("1764");
@@ -59,9 +56,7 @@ describe("quick sizing", () => {
   });
 
   it("asks about a slow pressing stroke behind 'More about the motion', the pressing speed only with one", async () => {
-    const page = await app.newPage();
-    await page.goto("/quick-sizing");
-    await hydrated(page);
+    const page = await quickSizing();
     expect(await page.getByLabel("Pressing stroke").isVisible()).toBe(false);
     await page.getByText("More about the motion").click();
     expect(await page.getByRole("textbox", { name: "Pressing speed" }).count()).toBe(0);
@@ -90,8 +85,7 @@ describe("quick sizing", () => {
     const html = await (await page.request.get("/quick-sizing")).text();
     expect(html).toContain("data-cycle-chart");
     expect(html).toContain('<svg id="cycle-wide-pressure"');
-    await page.goto("/quick-sizing");
-    await hydrated(page);
+    await openHydrated(page, "/quick-sizing");
     await page.getByText("More about the motion").click();
     await page.getByLabel("Pressing stroke").fill("30");
     await page.getByRole("textbox", { name: "Pressing speed" }).fill("10");
@@ -114,8 +108,7 @@ describe("quick sizing", () => {
   it("opens the diagram larger on a phone, zooms it and closes again", async () => {
     const page = await app.newPage();
     await page.setViewportSize({ width: 390, height: 844 });
-    await page.goto("/quick-sizing");
-    await hydrated(page);
+    await openHydrated(page, "/quick-sizing");
     await page.getByRole("button", { name: "Open the diagram larger" }).click();
     const viewer = page.getByRole("dialog", { name: "Circuit diagram, larger" });
     await expect.poll(() => viewer.isVisible()).toBe(true);
@@ -154,9 +147,7 @@ describe("quick sizing", () => {
   });
 
   it("marks a bad answer beside its field and keeps the last circuit", async () => {
-    const page = await app.newPage();
-    await page.goto("/quick-sizing");
-    await hydrated(page);
+    const page = await quickSizing();
     await page.getByLabel("Stroke", { exact: true }).fill("-5");
     const stroke = page.getByLabel("Stroke", { exact: true });
     await expect.poll(() => stroke.getAttribute("aria-invalid"), { timeout: 5_000 }).toBe("true");
@@ -167,9 +158,7 @@ describe("quick sizing", () => {
   });
 
   it("adds a second axis, names it, and shows both on one shared power unit with the machine's diagram; a bad answer is marked on its own axis", async () => {
-    const page = await app.newPage();
-    await page.goto("/quick-sizing");
-    await hydrated(page);
+    const page = await quickSizing();
     await page.getByRole("button", { name: /Add a second axis/ }).click();
     const first = page.locator('[data-quick-axis="1"]');
     const second = page.locator('[data-quick-axis="2"]');

@@ -1,20 +1,14 @@
 // Smoke test in a real browser: each demo role signs in and sees its own home and navigation.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { sequelize } from "~/db.server";
 import { DEMO_PASSWORD, seedDemo } from "../../db/seeds/demo";
-import { SCREENSHOTS, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
-
-let app: BrowserApp;
+import { PHONE, SCREENSHOTS, browserAppForFile, signInAs, signedInPage } from "../support/browser";
 
 beforeAll(async () => {
   await seedDemo(sequelize);
-  app = await startBrowserApp();
 }, 120_000);
-
-afterAll(async () => {
-  await app?.close();
-});
+const app = browserAppForFile();
 
 const ROLES = [
   { role: "buyer", email: "priya@kestrel-forming.test", path: "/specs", heading: "My specs", nav: ["My specs", "Jobs", "Payments", "Team", "Quick sizing"] },
@@ -37,10 +31,7 @@ const ROLES = [
 
 describe("each demo role signs in and sees its home", () => {
   it.each(ROLES)("$role", async ({ role, email, path: home, heading, nav }) => {
-    const page = await app.newPage();
-    await page.setViewportSize({ width: 1366, height: 768 });
-    await signInAs(page, email, DEMO_PASSWORD);
-    await page.waitForURL(`**${home}`);
+    const page = await signedInPage(app, email, `**${home}`, { password: DEMO_PASSWORD, viewport: { width: 1366, height: 768 } });
     await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe(heading);
     const links = await page.getByRole("navigation", { name: "Main" }).getByRole("link").allTextContents();
     expect(links).toEqual(nav);
@@ -55,10 +46,7 @@ describe("each demo role signs in and sees its home", () => {
   });
 
   it("on a phone the menu is one button that opens every page of the role, and closes on the way", { timeout: 60_000 }, async () => {
-    const page = await app.newPage();
-    await page.setViewportSize({ width: 390, height: 844 });
-    await signInAs(page, "felix@tenderflow.test", DEMO_PASSWORD);
-    await page.waitForURL("**/admin/users");
+    const page = await signedInPage(app, "felix@tenderflow.test", "**/admin/users", { password: DEMO_PASSWORD, viewport: PHONE });
     // The header is one row: logo and the Menu button, nothing wrapping.
     const header = await page.locator("header").boundingBox();
     expect(header!.height).toBeLessThan(80);
@@ -100,9 +88,7 @@ describe("each demo role signs in and sees its home", () => {
   });
 
   it("the demo scenario's published press is open for the shops, with its circuit", async () => {
-    const page = await app.newPage();
-    await signInAs(page, "sofia@northgate-hyd.test", DEMO_PASSWORD);
-    await page.waitForURL("**/open-specs");
+    const page = await signedInPage(app, "sofia@northgate-hyd.test", "**/open-specs", { password: DEMO_PASSWORD });
     await page.getByRole("link", { name: "Panel press, main ram" }).click();
     await page.waitForURL("**/specs/*");
     await expect.poll(() => page.getByRole("img", { name: /circuit/i }).count()).toBe(1);
@@ -111,10 +97,7 @@ describe("each demo role signs in and sees its home", () => {
   });
 
   it("on a phone a list's fixed first column leaves room for the others, and no page scrolls sideways", { timeout: 60_000 }, async () => {
-    const page = await app.newPage();
-    await page.setViewportSize({ width: 390, height: 844 });
-    await signInAs(page, "priya@kestrel-forming.test", DEMO_PASSWORD);
-    await page.waitForURL("**/specs");
+    const page = await signedInPage(app, "priya@kestrel-forming.test", "**/specs", { password: DEMO_PASSWORD, viewport: PHONE });
     const specs = page.getByRole("region", { name: "Specs" });
     const box = await specs.evaluate((el) => el.clientWidth);
     const firstCell = await specs.locator("tbody tr td").first().boundingBox();
@@ -126,9 +109,7 @@ describe("each demo role signs in and sees its home", () => {
   });
 
   it("an admin sorts the organisations by name in the URL and opens an organisation's page from its name", { timeout: 60_000 }, async () => {
-    const page = await app.newPage();
-    await signInAs(page, "felix@tenderflow.test", DEMO_PASSWORD);
-    await page.waitForURL("**/admin/users");
+    const page = await signedInPage(app, "felix@tenderflow.test", "**/admin/users", { password: DEMO_PASSWORD });
     await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Organisations" }).click();
     await page.waitForURL("**/admin/organisations");
     const sort = page.getByRole("navigation", { name: "Sort" });
@@ -159,10 +140,7 @@ describe("each demo role signs in and sees its home", () => {
   });
 
   it("on a phone an account manager goes from a job's buyer to the account's page and back to the account's jobs", { timeout: 60_000 }, async () => {
-    const page = await app.newPage();
-    await page.setViewportSize({ width: 390, height: 844 });
-    await signInAs(page, "nadia@tenderflow.test", DEMO_PASSWORD);
-    await page.waitForURL("**/jobs");
+    const page = await signedInPage(app, "nadia@tenderflow.test", "**/jobs", { password: DEMO_PASSWORD, viewport: PHONE });
     await page.getByRole("region", { name: "Jobs" }).getByRole("link", { name: "Kestrel Forming Machines" }).first().click();
     await page.waitForURL("**/accounts/*");
     await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Kestrel Forming Machines");
@@ -180,9 +158,7 @@ describe("each demo role signs in and sees its home", () => {
   });
 
   it("a shop opening the admin page sees the 403 page", async () => {
-    const page = await app.newPage();
-    await signInAs(page, "aled@ironbridge-fluid.test", DEMO_PASSWORD);
-    await page.waitForURL("**/open-specs");
+    const page = await signedInPage(app, "aled@ironbridge-fluid.test", "**/open-specs", { password: DEMO_PASSWORD });
     const response = await page.goto("/admin/users");
     expect(response?.status()).toBe(403);
     await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Not for your role");

@@ -1,22 +1,16 @@
 // A first-time buyer in a real browser: signs up, switches to US units, describes a lift axis
 // step by step while the live preview redraws, and publishes it. A screenshot of every step.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Spec, SpecAttachment, SpecRevision } from "~/models/index.server";
-import { SCREENSHOTS, hydrated, startBrowserApp, type BrowserApp } from "../support/browser";
+import { fillQuotationStep } from "../support/spec-page";
+import { SCREENSHOTS, browserAppForFile, hydrated, openHydrated } from "../support/browser";
 import { linkIn, waitForMail } from "../support/mailbox";
 
-let app: BrowserApp;
-beforeAll(async () => {
-  app = await startBrowserApp();
-}, 120_000);
-afterAll(async () => {
-  await app?.close();
-});
+const app = browserAppForFile();
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `intake-${name}.png`), fullPage: true });
-const inDays = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 
 async function next(page: Page, expectedStep: string) {
   await saveInView(page);
@@ -36,8 +30,7 @@ async function saveInView(page: Page) {
 describe("spec intake", () => {
   it("a new buyer describes an axis in US units and publishes it", { timeout: 120_000 }, async () => {
     const page = await app.newPage();
-    await page.goto("/sign-up");
-    await hydrated(page);
+    await openHydrated(page, "/sign-up");
     await page.getByText("We build machines").click();
     await page.getByLabel("Company name").fill("Tamsin Lift Works");
     await page.getByLabel("Your name").fill("Tamsin Hale");
@@ -47,14 +40,12 @@ describe("spec intake", () => {
     // The address is confirmed by the link mailed to it, which makes the account.
     await expect.poll(() => page.getByRole("heading", { name: "Check your inbox" }).count()).toBe(1);
     const link = new URL(linkIn(await waitForMail("tamsin@tamsin-lift.test", "Finish creating", 15_000), "/sign-up/"));
-    await page.goto(link.pathname);
-    await hydrated(page);
+    await openHydrated(page, link.pathname);
     await page.getByRole("button", { name: "Create my account" }).click();
     await page.waitForURL("**/specs");
     await shot(page, "0-empty");
 
-    await page.goto("/settings");
-    await hydrated(page);
+    await openHydrated(page, "/settings");
     await page.getByText("US customary (in, lb, psi)").click();
     await page.getByRole("button", { name: "Save settings" }).click();
     await page.waitForURL("**/settings");
@@ -124,9 +115,7 @@ describe("spec intake", () => {
     await shot(page, "3-duty");
     await next(page, "quotation");
 
-    await page.getByLabel("Bid deadline").fill(inDays(14));
-    await page.getByLabel("Date needed").fill(inDays(70));
-    await page.getByLabel("Delivery region").fill("US — Ohio");
+    await fillQuotationStep(page, "US — Ohio");
     // A drawing goes up on its own request, outside the step's form, with a progress bar.
     await page.getByLabel("Drawings and photos").setInputFiles({
       name: "lift-layout.pdf",

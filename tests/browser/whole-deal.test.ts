@@ -4,18 +4,16 @@
 // buyer accepts; the balance is paid by card; the account manager sees it all and the audit log
 // has the award and the payments.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { Job, Organisation, OrderConfirmation, type Spec, type User } from "~/models/index.server";
-import { startStripeFake, type StripeFake } from "../../fakes/stripe";
-import { PASSWORD, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
-import { fillOfferTerms } from "../support/bid-page";
+import { makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
+import { makeDealParties } from "../support/parties";
+import { fillOfferTerms, priceEveryLine } from "../support/bid-page";
 import { formatMoney } from "~/content/money";
-import { fillCard } from "../support/card-page";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
+import { fillCard, startBrowserAppWithCards } from "../support/card-page";
+import { SCREENSHOTS, browserAppForFile, openHydrated, signedInPage } from "../support/browser";
 
-let app: BrowserApp;
-let fake: StripeFake;
 let buyer: User;
 let shop: User;
 let manager: User;
@@ -25,14 +23,8 @@ const TITLE = "Bale press, main cylinder";
 const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 0x0d, 0x49, 0x48, 0x44, 0x52]);
 
 beforeAll(async () => {
-  // This file's own card service, so its webhooks reach this file's app server.
-  fake = await startStripeFake({ webhookSecret: process.env.STRIPE_WEBHOOK_SECRET! });
-  process.env.STRIPE_API_URL = fake.url;
-  buyer = await makeMember("buyer", { organisationName: "Brackenfield Balers" });
-  shop = await makeMember("shop", { organisationName: "Wyvern Fluid Power" });
-  manager = await makeOperatorUser("account_manager");
+  ({ buyer, shop, manager } = await makeDealParties({ buyer: "Brackenfield Balers", shop: "Wyvern Fluid Power" }));
   admin = await makeOperatorUser("admin");
-  await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
   await Organisation.update(
     { region: "UK, West Midlands", address: "Unit 7, Canal Side\nTipton DY4 0AB", taxNumber: "GB 987 6543 21" },
     { where: { id: shop.organisationId } },
@@ -40,18 +32,13 @@ beforeAll(async () => {
   spec = await makePublishedSpec(buyer, { machine: { title: TITLE } });
   // A second, dearer offer to compare against.
   await makeSubmittedBid(spec, await makeMember("shop", { organisationName: "Ferrybridge Hydraulics" }), { totalCents: 99_000_000 });
-  app = await startBrowserApp();
-  fake.setWebhookUrl(`${app.baseUrl}/webhooks/stripe`);
-}, 180_000);
-afterAll(async () => {
-  await app?.close();
-  await fake?.close();
 });
+const app = browserAppForFile(startBrowserAppWithCards);
 
 const shot = (page: Page, name: string) => page.screenshot({ path: path.join(SCREENSHOTS, `whole-deal-${name}.png`), fullPage: true });
 
 async function payOnCardPage(page: Page, returnPattern: string) {
-  await page.waitForURL(`${fake.url}/checkout/**`);
+  await page.waitForURL(`${app.cards.url}/checkout/**`);
   await fillCard(page, "4242 4242 4242 4242");
   await page.waitForURL(returnPattern);
 }
@@ -59,14 +46,9 @@ async function payOnCardPage(page: Page, returnPattern: string) {
 describe("the whole deal", () => {
   it("from a quote with extras, terms and a PDF to the balance paid and the audit log", { timeout: 300_000 }, async () => {
     // The shop quotes the whole job.
-    const shopPage = await app.newPage();
-    await signInAs(shopPage, shop.email, PASSWORD);
-    await shopPage.waitForURL("**/open-specs");
-    await shopPage.goto(`/specs/${spec.id}/bid`);
-    await hydrated(shopPage);
-    const prices = shopPage.locator('input[name$=".unitPrice"]');
-    await expect.poll(() => prices.count()).toBeGreaterThan(3);
-    for (let i = 0; i < (await prices.count()); i++) await prices.nth(i).fill(i === 0 ? "2400" : "150");
+    const shopPage = await signedInPage(app, shop.email, "**/open-specs");
+    await openHydrated(shopPage, `/specs/${spec.id}/bid`);
+    await priceEveryLine(shopPage, 3, (i) => (i === 0 ? "2400" : "150"));
     await shopPage.getByLabel("Commissioning on site", { exact: true }).selectOption("priced");
     await shopPage.getByLabel("Price of commissioning on site").fill("1200");
     await shopPage.getByLabel("Training", { exact: true }).selectOption("included");
@@ -83,11 +65,8 @@ describe("the whole deal", () => {
     await shot(shopPage, "1-shop-offer");
 
     // The buyer compares and awards.
-    const buyerPage = await app.newPage();
-    await signInAs(buyerPage, buyer.email, PASSWORD);
-    await buyerPage.waitForURL("**/specs");
-    await buyerPage.goto(`/specs/${spec.id}/bids`);
-    await hydrated(buyerPage);
+    const buyerPage = await signedInPage(app, buyer.email, "**/specs");
+    await openHydrated(buyerPage, `/specs/${spec.id}/bids`);
     const comparison = buyerPage.getByTestId("comparison");
     await expect.poll(() => comparison.textContent()).toContain("Wyvern Fluid Power");
     expect(await buyerPage.getByText("Wyvern quotation Q-2291.pdf").count()).toBeGreaterThan(0);
@@ -116,31 +95,27 @@ describe("the whole deal", () => {
     expect((await pdf.body()).subarray(0, 5).toString("latin1")).toBe("%PDF-");
 
     // The retainer, by card.
-    await buyerPage.goto(`/jobs/${job.id}`);
-    await hydrated(buyerPage);
+    await openHydrated(buyerPage, `/jobs/${job.id}`);
     await buyerPage.getByRole("button", { name: /^Pay the retainer of/ }).click();
     await payOnCardPage(buyerPage, `**/jobs/${job.id}/payment?session_id=*`);
     await expect.poll(() => buyerPage.getByText(/the retainer of .* has been received/).count(), { timeout: 20_000 }).toBe(1);
 
-    // The shop hands over.
-    await shopPage.goto(`/jobs/${job.id}`);
-    await hydrated(shopPage);
+    // The shop hands over: the handover panel's badge (the job's state line says "Awaiting the buyer's acceptance" too).
+    await openHydrated(shopPage, `/jobs/${job.id}`);
     await shopPage.getByLabel("Reached up to and including").selectOption("handed_over");
     await shopPage.getByRole("button", { name: "Record as reached" }).click();
-    await expect.poll(() => shopPage.getByText("Awaiting the buyer").count()).toBe(1);
+    await expect.poll(() => shopPage.getByText("Awaiting the buyer", { exact: true }).count()).toBe(1);
     await shot(shopPage, "4-shop-handed-over");
 
     // The buyer finds a problem and reports it with a photo; the shop sees it, puts it right, files
     // the pressure test certificate and hands over again.
-    await buyerPage.goto(`/jobs/${job.id}`);
-    await hydrated(buyerPage);
+    await openHydrated(buyerPage, `/jobs/${job.id}`);
     await buyerPage.getByText("Something is wrong: report a problem").click();
     await buyerPage.getByLabel("What is wrong").fill("The return filter's clogging indicator is missing.");
     await buyerPage.getByLabel(/^Photos/).setInputFiles({ name: "filter.png", mimeType: "image/png", buffer: Buffer.from(PNG) });
     await buyerPage.getByRole("button", { name: "Report the problem" }).click();
     await expect.poll(() => buyerPage.getByText("Problem reported", { exact: true }).count()).toBe(1);
-    await shopPage.goto(`/jobs/${job.id}`);
-    await hydrated(shopPage);
+    await openHydrated(shopPage, `/jobs/${job.id}`);
     await expect.poll(() => shopPage.getByText("The return filter's clogging indicator is missing.").count()).toBeGreaterThan(0);
     expect(await shopPage.getByRole("link", { name: "filter.png" }).count()).toBeGreaterThan(0);
     await shot(shopPage, "4b-shop-sees-problem");
@@ -153,11 +128,10 @@ describe("the whole deal", () => {
     await expect.poll(() => shopPage.getByRole("link", { name: "pressure test 180 bar.pdf" }).count()).toBe(1);
     await shopPage.getByLabel("Reached up to and including").selectOption("handed_over");
     await shopPage.getByRole("button", { name: "Record as reached" }).click();
-    await expect.poll(() => shopPage.getByText("Awaiting the buyer").count()).toBe(1);
+    await expect.poll(() => shopPage.getByText("Awaiting the buyer", { exact: true }).count()).toBe(1);
 
     // The buyer accepts, then pays the balance by card.
-    await buyerPage.goto(`/jobs/${job.id}`);
-    await hydrated(buyerPage);
+    await openHydrated(buyerPage, `/jobs/${job.id}`);
     expect(await buyerPage.getByRole("link", { name: "pressure test 180 bar.pdf" }).count()).toBe(1);
     await shot(buyerPage, "5-buyer-handover");
     await buyerPage.getByRole("button", { name: "Accept the handover" }).click();
@@ -170,11 +144,8 @@ describe("the whole deal", () => {
     await expect.poll(async () => (await job.reload()).balanceMethod).toBe("card");
 
     // The account manager sees the closed, fully paid job and both payments.
-    const managerPage = await app.newPage();
-    await signInAs(managerPage, manager.email, PASSWORD);
-    await managerPage.waitForURL("**/jobs");
-    await managerPage.goto(`/jobs/${job.id}`);
-    await hydrated(managerPage);
+    const managerPage = await signedInPage(app, manager.email, "**/jobs");
+    await openHydrated(managerPage, `/jobs/${job.id}`);
     await expect.poll(() => managerPage.getByText("Closed: handover accepted").count()).toBe(1);
     expect(await managerPage.getByText(/^Paid by card on/).count()).toBe(1);
     expect(await managerPage.getByText(`Balance ${formatMoney(balance, job.currency)}`).count()).toBe(1);
@@ -184,9 +155,7 @@ describe("the whole deal", () => {
     await shot(managerPage, "8-manager-payments");
 
     // The audit log has the award and both payments.
-    const adminPage = await app.newPage();
-    await signInAs(adminPage, admin.email, PASSWORD);
-    await adminPage.waitForURL("**/admin/**");
+    const adminPage = await signedInPage(app, admin.email, "**/admin/**");
     await adminPage.goto("/admin/audit");
     await expect.poll(() => adminPage.getByText("Bid awarded", { exact: true }).count()).toBeGreaterThan(0);
     expect(await adminPage.getByText("Payment received", { exact: true }).count()).toBeGreaterThanOrEqual(2);

@@ -2,7 +2,9 @@
 // playwright-core in Debian's chromium (installed by the test setup; never a browser download).
 import { existsSync, mkdirSync } from "node:fs";
 import path from "node:path";
+import { afterAll, beforeAll } from "vitest";
 import { chromium, type Browser, type Page } from "playwright-core";
+import { PASSWORD } from "./factories";
 import { startHttpApp } from "./http-app";
 
 const CHROMIUM = "/usr/bin/chromium";
@@ -49,6 +51,56 @@ export async function startBrowserApp(server?: { baseUrl: string; close(): Promi
       await server.close();
     },
   };
+}
+
+/**
+ * This test file's browser on the app, `start`ed before its tests (after the file's own
+ * `beforeAll` hooks written above the call, so data made there is in place) and closed after
+ * them. Until then every use of it throws.
+ */
+export function browserAppForFile<App extends BrowserApp = BrowserApp>(
+  start: () => Promise<App> = startBrowserApp as () => Promise<App>,
+  timeout = 180_000,
+): App {
+  let started: App | undefined;
+  beforeAll(async () => {
+    started = await start();
+  }, timeout);
+  afterAll(async () => {
+    await started?.close();
+  });
+  return new Proxy({} as App, {
+    get(_, key) {
+      if (!started) throw new Error("The browser app starts in beforeAll: use it inside a test");
+      return Reflect.get(started, key);
+    },
+  });
+}
+
+/** A phone's viewport (an iPhone 12–14's CSS pixels), where no page may scroll sideways. */
+export const PHONE = { width: 390, height: 844 };
+
+/**
+ * A new page signed in through the form as `email` (the factories' PASSWORD unless given), once
+ * the browser has landed on `home` (a URL glob or test: the role's first page). `viewport` is set first.
+ */
+export async function signedInPage(
+  app: BrowserApp,
+  email: string,
+  home: Parameters<Page["waitForURL"]>[0],
+  options: { password?: string; viewport?: { width: number; height: number } } = {},
+) {
+  const page = await app.newPage();
+  if (options.viewport) await page.setViewportSize(options.viewport);
+  await signInAs(page, email, options.password ?? PASSWORD);
+  await page.waitForURL(home);
+  return page;
+}
+
+/** Opens `url` and waits until React has hydrated it, so the test's first click reaches the app. */
+export async function openHydrated(page: Page, url: string) {
+  await page.goto(url);
+  await hydrated(page);
 }
 
 /** Waits until React has hydrated, so typing and clicking reach the app's handlers. */

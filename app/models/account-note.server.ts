@@ -1,5 +1,5 @@
 import { DataTypes, type NonAttribute } from "sequelize";
-import { ChangingRow, initRow } from "./columns.server";
+import { ChangingRow, initRow, uuidColumn } from "./columns.server";
 import { User } from "./user.server";
 
 /** A note operator staff keep on a buyer account, with who wrote it and who last edited it, and when. */
@@ -13,10 +13,10 @@ export class AccountNote extends ChangingRow<AccountNote> {
 }
 
 initRow(AccountNote, "account_notes", {
-  organisationId: { type: DataTypes.UUID, allowNull: false },
+  organisationId: uuidColumn(),
   body: { type: DataTypes.TEXT, allowNull: false },
-  authorId: { type: DataTypes.UUID, allowNull: true },
-  editedById: { type: DataTypes.UUID, allowNull: true },
+  authorId: uuidColumn({ allowNull: true }),
+  editedById: uuidColumn({ allowNull: true }),
 });
 
 // Kept here rather than in index.server.ts: nothing else joins to notes.

@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional } from "sequelize";
-import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns } from "./columns.server";
+import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns, uuidColumn } from "./columns.server";
 import { BID_STATUSES, type BidStatus } from "~/content/bid-status";
 import type { AlternativeCircuit, OfferExtra, OfferTerms, OwnLine } from "~/content/offer-terms";
 
@@ -58,9 +58,9 @@ export class Bid extends ChangingRow<Bid> {
 }
 
 initRow(Bid, "bids", {
-  specId: { type: DataTypes.UUID, allowNull: false },
-  organisationId: { type: DataTypes.UUID, allowNull: false },
-  createdById: { type: DataTypes.UUID, allowNull: false },
+  specId: uuidColumn(),
+  organisationId: uuidColumn(),
+  createdById: uuidColumn(),
   status: { type: DataTypes.ENUM(...BID_STATUSES), allowNull: false, defaultValue: "draft" },
   specRevision: { type: DataTypes.INTEGER, allowNull: false },
   version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
@@ -89,12 +89,12 @@ export class BidVersion extends Row<BidVersion> {
 }
 
 initRow(BidVersion, "bid_versions", {
-  bidId: { type: DataTypes.UUID, allowNull: false },
+  bidId: uuidColumn(),
   version: { type: DataTypes.INTEGER, allowNull: false },
   event: { type: DataTypes.ENUM("submitted", "withdrawn"), allowNull: false },
   specRevision: { type: DataTypes.INTEGER, allowNull: false },
   offer: { type: DataTypes.JSONB, allowNull: false },
-  createdById: { type: DataTypes.UUID, allowNull: false },
+  createdById: uuidColumn(),
 });
 
 /** A document a shop attaches to its offer (quotation PDF, datasheet, drawing). */
@@ -102,4 +102,4 @@ export class BidDocument extends StoredFileRow<BidDocument> {
   declare bidId: string;
 }
 
-initRow(BidDocument, "bid_documents", { bidId: { type: DataTypes.UUID, allowNull: false }, ...storedFileColumns() });
+initRow(BidDocument, "bid_documents", { bidId: uuidColumn(), ...storedFileColumns() });

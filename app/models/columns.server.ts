@@ -51,6 +51,9 @@ export function initRow<M extends Row<M>>(
   });
 }
 
+/** A uuid column: most often another row's id. A new object each time: Sequelize fills in a column's definition per model. */
+export const uuidColumn = (options: { allowNull?: boolean } = {}) => ({ type: DataTypes.UUID, allowNull: options.allowNull ?? false });
+
 /** A file whose bytes are in file storage (a spec's drawing, an offer's document, a job's file). */
 export abstract class StoredFileRow<M extends Model> extends Row<M> {
   declare fileName: string;
@@ -66,7 +69,7 @@ export const storedFileColumns = (uniqueKey = true) => ({
   contentType: { type: DataTypes.STRING(100), allowNull: false },
   sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
   storageKey: { type: DataTypes.STRING(200), allowNull: false, ...(uniqueKey ? { unique: true } : {}) },
-  uploadedById: { type: DataTypes.UUID, allowNull: false },
+  uploadedById: uuidColumn(),
 });
 
 /**

@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional } from "sequelize";
-import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns } from "./columns.server";
+import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns, uuidColumn } from "./columns.server";
 import type { MilestoneKey } from "~/content/job-milestones";
 import type { OrderDocument } from "~/content/order-document";
 
@@ -34,9 +34,9 @@ export class Job extends ChangingRow<Job> {
 initRow(Job, "jobs", {
   specId: { type: DataTypes.UUID, allowNull: false, unique: true },
   bidId: { type: DataTypes.UUID, allowNull: false, unique: true },
-  buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
-  shopOrganisationId: { type: DataTypes.UUID, allowNull: false },
-  awardedById: { type: DataTypes.UUID, allowNull: false },
+  buyerOrganisationId: uuidColumn(),
+  shopOrganisationId: uuidColumn(),
+  awardedById: uuidColumn(),
   awardedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
   currency: { type: DataTypes.STRING(3), allowNull: false },
   totalCents: centsColumn("totalCents"),
@@ -46,7 +46,7 @@ initRow(Job, "jobs", {
   retainerRefundedCents: centsColumn("retainerRefundedCents", 0),
   stage: { type: DataTypes.STRING(30), allowNull: true },
   acceptedAt: { type: DataTypes.DATE, allowNull: true },
-  acceptedById: { type: DataTypes.UUID, allowNull: true },
+  acceptedById: uuidColumn({ allowNull: true }),
   balancePaidAt: { type: DataTypes.DATE, allowNull: true },
   balanceMethod: { type: DataTypes.STRING(20), allowNull: true },
   balanceReference: { type: DataTypes.STRING(200), allowNull: true },
@@ -62,12 +62,12 @@ export class JobMilestone extends ChangingRow<JobMilestone> {
 }
 
 initRow(JobMilestone, "job_milestones", {
-  jobId: { type: DataTypes.UUID, allowNull: false },
+  jobId: uuidColumn(),
   key: { type: DataTypes.STRING(30), allowNull: false },
   position: { type: DataTypes.INTEGER, allowNull: false },
   targetDate: { type: DataTypes.DATEONLY, allowNull: true },
   reachedAt: { type: DataTypes.DATE, allowNull: true },
-  reachedById: { type: DataTypes.UUID, allowNull: true },
+  reachedById: uuidColumn({ allowNull: true }),
 });
 
 export type JobEventKind =
@@ -98,8 +98,8 @@ export class JobEvent extends Row<JobEvent> {
 }
 
 initRow(JobEvent, "job_events", {
-  jobId: { type: DataTypes.UUID, allowNull: false },
-  userId: { type: DataTypes.UUID, allowNull: false },
+  jobId: uuidColumn(),
+  userId: uuidColumn(),
   kind: { type: DataTypes.STRING(30), allowNull: false },
   milestone: { type: DataTypes.STRING(30), allowNull: true },
   detail: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
@@ -118,10 +118,10 @@ export class JobFile extends StoredFileRow<JobFile> {
 }
 
 initRow(JobFile, "job_files", {
-  jobId: { type: DataTypes.UUID, allowNull: false },
+  jobId: uuidColumn(),
   kind: { type: DataTypes.STRING(30), allowNull: false },
   ...storedFileColumns(false),
-  eventId: { type: DataTypes.UUID, allowNull: true },
+  eventId: uuidColumn({ allowNull: true }),
 });
 
 /** The order confirmation made at the award; the database refuses any update of it. */

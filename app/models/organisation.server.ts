@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional, type ForeignKey } from "sequelize";
-import { ChangingRow, initRow } from "./columns.server";
+import { ChangingRow, initRow, uuidColumn } from "./columns.server";
 import { ORGANISATION_KINDS, type OrganisationKind } from "~/auth/roles";
 import { APPROVALS, type Approval } from "~/content/shop-approval";
 
@@ -37,11 +37,11 @@ initRow(
     name: { type: DataTypes.STRING(120), allowNull: false },
     kind: { type: DataTypes.ENUM(...ORGANISATION_KINDS), allowNull: false },
     region: { type: DataTypes.STRING(80), allowNull: true },
-    accountManagerId: { type: DataTypes.UUID, allowNull: true },
+    accountManagerId: uuidColumn({ allowNull: true }),
     stripeCustomerId: { type: DataTypes.STRING(255), allowNull: true },
     approval: { type: DataTypes.ENUM(...APPROVALS), allowNull: true },
     approvalReason: { type: DataTypes.TEXT, allowNull: true },
-    approvalDecidedById: { type: DataTypes.UUID, allowNull: true },
+    approvalDecidedById: uuidColumn({ allowNull: true }),
     approvalDecidedAt: { type: DataTypes.DATE, allowNull: true },
     address: { type: DataTypes.STRING(300), allowNull: true },
     taxNumber: { type: DataTypes.STRING(40), allowNull: true },

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { ChangingRow, centsColumn, initRow } from "./columns.server";
+import { ChangingRow, centsColumn, initRow, uuidColumn } from "./columns.server";
 import { sequelize } from "~/db.server";
 import { PAYMENT_STATUSES, type PaymentStatus } from "~/content/payment-status";
 
@@ -35,10 +35,10 @@ export class Payment extends ChangingRow<Payment> {
 export const OPEN_PAYMENT_STATUSES = ["pending", "failed"] as const satisfies readonly PaymentStatus[];
 
 initRow(Payment, "payments", {
-  jobId: { type: DataTypes.UUID, allowNull: false },
+  jobId: uuidColumn(),
   purpose: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "retainer" },
-  buyerOrganisationId: { type: DataTypes.UUID, allowNull: false },
-  createdById: { type: DataTypes.UUID, allowNull: false },
+  buyerOrganisationId: uuidColumn(),
+  createdById: uuidColumn(),
   status: { type: DataTypes.ENUM(...PAYMENT_STATUSES), allowNull: false, defaultValue: "pending" },
   amountCents: centsColumn("amountCents"),
   refundedCents: centsColumn("refundedCents", 0),
@@ -68,8 +68,8 @@ export class Refund extends ChangingRow<Refund> {
 }
 
 initRow(Refund, "refunds", {
-  paymentId: { type: DataTypes.UUID, allowNull: false },
-  requestedById: { type: DataTypes.UUID, allowNull: true },
+  paymentId: uuidColumn(),
+  requestedById: uuidColumn({ allowNull: true }),
   amountCents: centsColumn("amountCents"),
   reason: { type: DataTypes.TEXT, allowNull: false },
   status: { type: DataTypes.ENUM("requested", "recorded", "failed"), allowNull: false, defaultValue: "requested" },

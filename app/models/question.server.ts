@@ -1,5 +1,5 @@
 import { DataTypes } from "sequelize";
-import { ChangingRow, initRow } from "./columns.server";
+import { ChangingRow, initRow, uuidColumn } from "./columns.server";
 
 /** A shop's question on a spec and the buyer's answer; the asker is never shown to other shops. */
 export class SpecQuestion extends ChangingRow<SpecQuestion> {
@@ -13,11 +13,11 @@ export class SpecQuestion extends ChangingRow<SpecQuestion> {
 }
 
 initRow(SpecQuestion, "spec_questions", {
-  specId: { type: DataTypes.UUID, allowNull: false },
-  organisationId: { type: DataTypes.UUID, allowNull: false },
-  askedById: { type: DataTypes.UUID, allowNull: false },
+  specId: uuidColumn(),
+  organisationId: uuidColumn(),
+  askedById: uuidColumn(),
   body: { type: DataTypes.TEXT, allowNull: false },
   answer: { type: DataTypes.TEXT, allowNull: true },
-  answeredById: { type: DataTypes.UUID, allowNull: true },
+  answeredById: uuidColumn({ allowNull: true }),
   answeredAt: { type: DataTypes.DATE, allowNull: true },
 });

@@ -1,5 +1,6 @@
 import { DataTypes, Model, Op, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
+import { uuidColumn } from "./columns.server";
 
 /**
  * A browser's session, kept here so it can be ended from anywhere: the cookie holds only a
@@ -31,7 +32,7 @@ export class UserSession extends Model<InferAttributes<UserSession>, InferCreati
 UserSession.init(
   {
     id: { type: DataTypes.STRING(64), primaryKey: true },
-    userId: { type: DataTypes.UUID, allowNull: true },
+    userId: uuidColumn({ allowNull: true }),
     data: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     userAgent: { type: DataTypes.STRING(300), allowNull: true },
     createdAt: DataTypes.DATE,

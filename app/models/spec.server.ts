@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional } from "sequelize";
-import { ChangingRow, Row, StoredFileRow, initRow, storedFileColumns } from "./columns.server";
+import { ChangingRow, Row, StoredFileRow, initRow, storedFileColumns, uuidColumn } from "./columns.server";
 import type { UnitSystem } from "~/units/systems";
 import type { MachineDesign } from "~/hydraulics/machine-design";
 
@@ -33,8 +33,8 @@ export class Spec extends ChangingRow<Spec> {
 }
 
 initRow(Spec, "specs", {
-  organisationId: { type: DataTypes.UUID, allowNull: false },
-  createdById: { type: DataTypes.UUID, allowNull: false },
+  organisationId: uuidColumn(),
+  createdById: uuidColumn(),
   title: { type: DataTypes.STRING(120), allowNull: false, defaultValue: "" },
   status: { type: DataTypes.ENUM(...SPEC_STATUSES), allowNull: false, defaultValue: "draft" },
   answers: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
@@ -71,14 +71,14 @@ export class SpecRevision extends Row<SpecRevision> {
 }
 
 initRow(SpecRevision, "spec_revisions", {
-  specId: { type: DataTypes.UUID, allowNull: false },
+  specId: uuidColumn(),
   number: { type: DataTypes.INTEGER, allowNull: false },
   axes: { type: DataTypes.JSONB, allowNull: false },
   machine: { type: DataTypes.JSONB, allowNull: true },
   answers: { type: DataTypes.JSONB, allowNull: false },
   unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false },
   engineVersion: { type: DataTypes.STRING(20), allowNull: false },
-  createdById: { type: DataTypes.UUID, allowNull: false },
+  createdById: uuidColumn(),
 });
 
 /** A drawing or document a buyer attaches to a spec. */
@@ -86,4 +86,4 @@ export class SpecAttachment extends StoredFileRow<SpecAttachment> {
   declare specId: string;
 }
 
-initRow(SpecAttachment, "spec_attachments", { specId: { type: DataTypes.UUID, allowNull: false }, ...storedFileColumns() });
+initRow(SpecAttachment, "spec_attachments", { specId: uuidColumn(), ...storedFileColumns() });

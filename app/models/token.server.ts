@@ -1,5 +1,5 @@
 import { DataTypes } from "sequelize";
-import { Row, initRow } from "./columns.server";
+import { Row, initRow, uuidColumn } from "./columns.server";
 import { ROLES, type Role } from "~/auth/roles";
 
 /** A password-reset link: only the SHA-256 of the token is stored; the link works once. */
@@ -11,7 +11,7 @@ export class PasswordReset extends Row<PasswordReset> {
 }
 
 initRow(PasswordReset, "password_resets", {
-  userId: { type: DataTypes.UUID, allowNull: false },
+  userId: uuidColumn(),
   tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
   expiresAt: { type: DataTypes.DATE, allowNull: false },
   usedAt: { type: DataTypes.DATE, allowNull: true },
@@ -30,8 +30,8 @@ export class Invitation extends Row<Invitation> {
 }
 
 initRow(Invitation, "invitations", {
-  organisationId: { type: DataTypes.UUID, allowNull: false },
-  invitedById: { type: DataTypes.UUID, allowNull: false },
+  organisationId: uuidColumn(),
+  invitedById: uuidColumn(),
   email: { type: DataTypes.STRING(254), allowNull: false },
   role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
   tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },

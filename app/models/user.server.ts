@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional, type NonAttribute } from "sequelize";
-import { ChangingRow, initRow } from "./columns.server";
+import { ChangingRow, initRow, uuidColumn } from "./columns.server";
 import { ROLES, type Role } from "~/auth/roles";
 import { UNIT_SYSTEMS, type UnitSystem } from "~/units/systems";
 import type { Organisation } from "./organisation.server";
@@ -17,7 +17,7 @@ export class User extends ChangingRow<User> {
 }
 
 initRow(User, "users", {
-  organisationId: { type: DataTypes.UUID, allowNull: false },
+  organisationId: uuidColumn(),
   email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
   name: { type: DataTypes.STRING(120), allowNull: false },
   passwordHash: { type: DataTypes.STRING(100), allowNull: false },

@@ -64,8 +64,10 @@ const count = (bidId: string) => BidDocument.count({ where: { bidId } });
 describe("documents on an offer", () => {
   it("are uploaded all or none, read by the right people only, shown beside the offer and removed while bids are taken", async () => {
     const visitor = await signedIn(shop);
-    // Nothing to attach to before the bid is saved.
-    expect((await upload(visitor, [new File([PDF], "quotation.pdf")])).status).toBe(302);
+    // Nothing to attach to before the bid is saved: the bid page says so beside the upload field.
+    const early = await upload(visitor, [new File([PDF], "quotation.pdf")]);
+    expect(early.status).toBe(400);
+    expect(early.data).toMatchObject({ form: "offer-documents", errors: { files: [expect.stringMatching(/Save your bid first/)] } });
     expect(await BidDocument.count()).toBe(0);
 
     expect((await postBid(visitor, spec.id, { intent: "save", ...bidFields(bom, () => "100") })).status).toBe(302);
@@ -73,7 +75,8 @@ describe("documents on an offer", () => {
 
     // A photo saved as .pdf spoils the whole upload.
     const mixed = await upload(visitor, [new File([PDF], "quotation.pdf"), new File([PNG], "datasheet.pdf")]);
-    expect(mixed.status).toBe(302);
+    expect(mixed.status).toBe(400);
+    expect(mixed.data.errors.files.join(" ")).toMatch(/datasheet\.pdf: .*Nothing was uploaded/);
     expect(await count(bid.id)).toBe(0);
 
     const sent = await upload(visitor, [new File([PDF], "Quotation Q-2291.pdf"), new File([DXF], "manifold.dxf")]);
@@ -115,11 +118,13 @@ describe("documents on an offer", () => {
     const nine = Array.from({ length: 9 }, (_, i) => new File([PDF], `sheet-${i}.pdf`));
     expect((await upload(visitor, nine.slice(0, 6))).status).toBe(302);
     expect(await count(bid.id)).toBe(8);
-    expect((await upload(visitor, nine.slice(6))).status).toBe(302);
+    const over = await upload(visitor, nine.slice(6));
+    expect(over.status).toBe(400);
+    expect(over.data.errors.files[0]).toMatch(/at most 10 documents; only 2 more fit/);
     expect(await count(bid.id)).toBe(8);
 
     // Another shop cannot remove the shop's document; the shop can.
-    expect((await removal(await signedIn(otherShop), quotation.id)).status).toBe(302);
+    expect((await removal(await signedIn(otherShop), quotation.id)).status).toBe(400);
     expect(await count(bid.id)).toBe(8);
     expect((await removal(visitor, quotation.id)).status).toBe(302);
     expect(await count(bid.id)).toBe(7);
@@ -127,8 +132,8 @@ describe("documents on an offer", () => {
 
     // After the deadline the documents are fixed.
     await sequelize.query("UPDATE specs SET bid_deadline = now() - interval '1 second' WHERE id = :id", { replacements: { id: spec.id } });
-    expect((await removal(visitor, drawing.id)).status).toBe(302);
-    expect((await upload(visitor, [new File([PDF], "late.pdf")])).status).toBe(302);
+    expect((await removal(visitor, drawing.id)).data.errors.files[0]).toMatch(/no longer takes bids/);
+    expect((await upload(visitor, [new File([PDF], "late.pdf")])).status).toBe(400);
     expect(await count(bid.id)).toBe(7);
   });
 });

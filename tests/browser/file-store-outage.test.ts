@@ -2,50 +2,33 @@
 // the uploader and keeps the files already attached; following a file's link shows a short
 // plain message, not an error page.
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import * as attachments from "~/routes/spec-attachments";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Spec, User } from "~/models/index.server";
 import { freePort } from "../../db/cluster";
-import { draftOf, pdf, uploadForm } from "../support/attachment-files";
-import { SCREENSHOTS, hydrated, signInAs, startBrowserApp, type BrowserApp } from "../support/browser";
-import { PASSWORD, makeMember } from "../support/factories";
+import { ownDraft, pdf, postAttachments, uploadForm } from "../support/attachment-files";
+import { SCREENSHOTS, browserAppForFile, openHydrated, signedInPage, startBrowserApp } from "../support/browser";
 import { startHttpApp } from "../support/http-app";
-import { call } from "../support/routes";
-import { signedIn } from "../support/sessions";
 
-let app: BrowserApp;
 let buyer: User;
 let spec: Spec;
 let fileUrl: string;
 
 beforeAll(async () => {
-  buyer = await makeMember("buyer");
-  spec = await draftOf(buyer);
+  const draft = await ownDraft();
+  buyer = draft.buyer;
+  spec = draft.spec;
   // One drawing stored while the store still answers (through this process).
-  const owner = await signedIn(buyer);
-  const request = owner.request(`/specs/${spec.id}/attachments`, {
-    method: "POST",
-    body: uploadForm(pdf("deck frame.pdf")),
-    headers: { Accept: "application/json" },
-  });
-  const stored = await call(attachments.action, request, { specId: spec.id });
+  const stored = await postAttachments(draft.owner, spec.id, uploadForm(pdf("deck frame.pdf")));
   expect(stored.status).toBe(200);
   fileUrl = stored.data.attachments[0].downloadUrl;
-  // The served app's store is an address where nothing listens.
-  app = await startBrowserApp(await startHttpApp({ S3_ENDPOINT: `http://127.0.0.1:${await freePort()}` }));
-}, 180_000);
-
-afterAll(async () => {
-  await app?.close();
 });
+// The served app's store is an address where nothing listens.
+const app = browserAppForFile(async () => startBrowserApp(await startHttpApp({ S3_ENDPOINT: `http://127.0.0.1:${await freePort()}` })));
 
 describe("the file store is down", () => {
   it("tells the buyer why a drawing was not attached, and what a file link cannot send", { timeout: 90_000 }, async () => {
-    const page = await app.newPage();
-    await signInAs(page, buyer.email, PASSWORD);
-    await page.waitForURL((url) => url.pathname !== "/sign-in");
-    await page.goto(`/specs/${spec.id}/edit/quotation`);
-    await hydrated(page);
+    const page = await signedInPage(app, buyer.email, (url) => url.pathname !== "/sign-in");
+    await openHydrated(page, `/specs/${spec.id}/edit/quotation`);
 
     await page.getByLabel("Drawings and photos").setInputFiles({ name: "layout.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-1.7\n%%EOF\n") });
     const problem = page.getByText(/cannot reach its file store just now/);

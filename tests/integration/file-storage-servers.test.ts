@@ -3,15 +3,14 @@
 // production build served in their own processes. They share nothing but the database and the
 // S3 fake: no disk, no memory.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import * as attachments from "~/routes/spec-attachments";
 import * as download from "~/routes/spec-attachment-download";
 import { popToast } from "~/auth/session.server";
 import { type Spec, SpecAttachment, type User } from "~/models/index.server";
 import { freePort } from "../../db/cluster";
-import { PDF_BYTES, PNG_BYTES, downloadedBytes, draftOf, pdf, removeForm, uploadForm } from "../support/attachment-files";
+import { PDF_BYTES, PNG_BYTES, downloadedBytes, draftOf, pdf, postAttachments, removeForm, uploadForm } from "../support/attachment-files";
 import { makeMember } from "../support/factories";
 import { startHttpApp, type HttpApp } from "../support/http-app";
-import { Visitor, call } from "../support/routes";
+import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 import { storedKeys } from "../support/stored-files";
 
@@ -53,8 +52,7 @@ function send(app: HttpApp, path: string, init: RequestInit = {}) {
 
 /** Uploads through this process, the first server. */
 async function uploadHere(spec: Spec, file: File) {
-  const request = owner.request(`/specs/${spec.id}/attachments`, { method: "POST", body: uploadForm(file), headers: { Accept: "application/json" } });
-  const res = await call(attachments.action, request, { specId: spec.id });
+  const res = await postAttachments(owner, spec.id, uploadForm(file));
   expect(res.status).toBe(200);
   return res.data.attachments.at(-1).id as string;
 }

@@ -201,11 +201,14 @@ export function milestoneTakenBackMail(d: {
   };
 }
 
-/** The buyer accepted the handover: the job is closed (to buyer and shop). */
+/**
+ * The buyer accepted the handover: the job is closed (to buyer and shop). `buyerName` is the person
+ * who accepted; every reader, their colleagues too, is told who it was (not "you").
+ */
 export function handoverAcceptedMail(d: { name: string; toShop: boolean; buyerName: string; specTitle: string; jobId: string }): MailContent {
   return {
     subject: `Handover accepted: ${d.specTitle}`,
-    text: `Hello ${d.name},\n\n${d.toShop ? `${d.buyerName} has accepted the handover of "${d.specTitle}".` : `You accepted the handover of "${d.specTitle}" (${d.buyerName}).`} The job is closed; the balance is paid from the job page.\n\nThe job: ${jobLink(d.jobId)}\n`,
+    text: `Hello ${d.name},\n\n${d.buyerName} has accepted the handover of "${d.specTitle}". The job is closed; the balance is paid from the job page.\n\nThe job: ${jobLink(d.jobId)}\n`,
   };
 }
 

@@ -209,6 +209,15 @@ describe("mail templates", () => {
     expect(t.balanceReceivedMail({ ...BALANCE, method: "card", name: "Bo" }).text).toContain("by card, received on 14 Mar 2026.");
   });
 
+  it("names who accepted a handover, to the buyer's colleagues as to the shop (no 'you' beside a name)", () => {
+    const accepted = (name: string, toShop: boolean) =>
+      t.handoverAcceptedMail({ name, toShop, buyerName: "Priya Raman", specTitle: "Panel press, main ram", jobId: "job-1" }).text;
+    for (const text of [accepted("Priya Raman", false), accepted("Tom Hale", false), accepted("Bo", true)]) {
+      expect(text).toContain('Priya Raman has accepted the handover of "Panel press, main ram". The job is closed');
+      expect(text).not.toMatch(/\bYou accepted|\(Priya Raman\)/);
+    }
+  });
+
   it("says when a deadline passed and how late a milestone is, to each reader", () => {
     const deadline = new Date("2026-03-14T23:59:59Z");
     expect(t.deadlinePassedMail({ ...spec, name: "Ann", deadline, bids: 3 }).text).toContain("passed on 14 Mar 2026 with 3 bids from shops.");

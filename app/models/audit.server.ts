@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
 import { sequelize } from "~/db.server";
+import { stringColumn, uuidColumn } from "./columns.server";
 import type { AuditAction, AuditSubjectType } from "~/content/audit-actions";
 
 /** Plain values only, so an entry reads the same whatever becomes of the records it names. */
@@ -26,13 +27,13 @@ AuditEvent.init(
   {
     id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
     at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
-    action: { type: DataTypes.STRING(40), allowNull: false },
-    actorId: { type: DataTypes.UUID, allowNull: true },
-    actorName: { type: DataTypes.STRING(120), allowNull: false },
-    actorEmail: { type: DataTypes.STRING(254), allowNull: true },
-    subjectType: { type: DataTypes.STRING(40), allowNull: true },
-    subjectId: { type: DataTypes.STRING(64), allowNull: true },
-    subjectLabel: { type: DataTypes.STRING(200), allowNull: true },
+    action: stringColumn(40),
+    actorId: uuidColumn({ allowNull: true }),
+    actorName: stringColumn(120),
+    actorEmail: stringColumn(254, { allowNull: true }),
+    subjectType: stringColumn(40, { allowNull: true }),
+    subjectId: stringColumn(64, { allowNull: true }),
+    subjectLabel: stringColumn(200, { allowNull: true }),
     details: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
   },
   { sequelize, tableName: "audit_events", timestamps: false },

@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional } from "sequelize";
-import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns, uuidColumn } from "./columns.server";
+import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns, stringColumn, uuidColumn } from "./columns.server";
 import { BID_STATUSES, type BidStatus } from "~/content/bid-status";
 import type { AlternativeCircuit, OfferExtra, OfferTerms, OwnLine } from "~/content/offer-terms";
 
@@ -64,7 +64,7 @@ initRow(Bid, "bids", {
   status: { type: DataTypes.ENUM(...BID_STATUSES), allowNull: false, defaultValue: "draft" },
   specRevision: { type: DataTypes.INTEGER, allowNull: false },
   version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-  currency: { type: DataTypes.STRING(3), allowNull: false },
+  currency: stringColumn(3),
   lines: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
   units: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
   setTotalCents: centsColumn("setTotalCents", 0),

@@ -8,6 +8,7 @@ import {
   type InitOptions,
   type ModelAttributes,
   type ModelStatic,
+  type DataType,
 } from "sequelize";
 import { sequelize } from "~/db.server";
 
@@ -51,8 +52,21 @@ export function initRow<M extends Row<M>>(
   });
 }
 
-/** A uuid column: most often another row's id. A new object each time: Sequelize fills in a column's definition per model. */
-export const uuidColumn = (options: { allowNull?: boolean } = {}) => ({ type: DataTypes.UUID, allowNull: options.allowNull ?? false });
+interface ColumnOptions {
+  /** false unless said: a column may be empty only where the schema allows it */
+  allowNull?: boolean;
+  unique?: boolean;
+  defaultValue?: string | number | boolean;
+}
+
+// Each call makes a new definition: Sequelize fills in a column's definition for its model.
+const column = (type: DataType, { allowNull = false, ...rest }: ColumnOptions) => ({ type, allowNull, ...rest });
+
+/** A uuid column: most often another row's id. */
+export const uuidColumn = (options: ColumnOptions = {}) => column(DataTypes.UUID, options);
+
+/** A text column of at most `length` characters (VARCHAR). */
+export const stringColumn = (length: number, options: ColumnOptions = {}) => column(DataTypes.STRING(length), options);
 
 /** A file whose bytes are in file storage (a spec's drawing, an offer's document, a job's file). */
 export abstract class StoredFileRow<M extends Model> extends Row<M> {
@@ -65,10 +79,10 @@ export abstract class StoredFileRow<M extends Model> extends Row<M> {
 
 /** StoredFileRow's columns; job files' storage key carries no unique constraint (migration 0014). */
 export const storedFileColumns = (uniqueKey = true) => ({
-  fileName: { type: DataTypes.STRING(200), allowNull: false },
-  contentType: { type: DataTypes.STRING(100), allowNull: false },
+  fileName: stringColumn(200),
+  contentType: stringColumn(100),
   sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
-  storageKey: { type: DataTypes.STRING(200), allowNull: false, ...(uniqueKey ? { unique: true } : {}) },
+  storageKey: stringColumn(200, uniqueKey ? { unique: true } : {}),
   uploadedById: uuidColumn(),
 });
 

@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional } from "sequelize";
-import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns, uuidColumn } from "./columns.server";
+import { ChangingRow, Row, StoredFileRow, centsColumn, initRow, storedFileColumns, stringColumn, uuidColumn } from "./columns.server";
 import type { MilestoneKey } from "~/content/job-milestones";
 import type { OrderDocument } from "~/content/order-document";
 
@@ -38,18 +38,18 @@ initRow(Job, "jobs", {
   shopOrganisationId: uuidColumn(),
   awardedById: uuidColumn(),
   awardedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
-  currency: { type: DataTypes.STRING(3), allowNull: false },
+  currency: stringColumn(3),
   totalCents: centsColumn("totalCents"),
   retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: false },
   retainerCents: centsColumn("retainerCents"),
   retainerPaidAt: { type: DataTypes.DATE, allowNull: true },
   retainerRefundedCents: centsColumn("retainerRefundedCents", 0),
-  stage: { type: DataTypes.STRING(30), allowNull: true },
+  stage: stringColumn(30, { allowNull: true }),
   acceptedAt: { type: DataTypes.DATE, allowNull: true },
   acceptedById: uuidColumn({ allowNull: true }),
   balancePaidAt: { type: DataTypes.DATE, allowNull: true },
-  balanceMethod: { type: DataTypes.STRING(20), allowNull: true },
-  balanceReference: { type: DataTypes.STRING(200), allowNull: true },
+  balanceMethod: stringColumn(20, { allowNull: true }),
+  balanceReference: stringColumn(200, { allowNull: true }),
 });
 
 export class JobMilestone extends ChangingRow<JobMilestone> {
@@ -63,7 +63,7 @@ export class JobMilestone extends ChangingRow<JobMilestone> {
 
 initRow(JobMilestone, "job_milestones", {
   jobId: uuidColumn(),
-  key: { type: DataTypes.STRING(30), allowNull: false },
+  key: stringColumn(30),
   position: { type: DataTypes.INTEGER, allowNull: false },
   targetDate: { type: DataTypes.DATEONLY, allowNull: true },
   reachedAt: { type: DataTypes.DATE, allowNull: true },
@@ -100,8 +100,8 @@ export class JobEvent extends Row<JobEvent> {
 initRow(JobEvent, "job_events", {
   jobId: uuidColumn(),
   userId: uuidColumn(),
-  kind: { type: DataTypes.STRING(30), allowNull: false },
-  milestone: { type: DataTypes.STRING(30), allowNull: true },
+  kind: stringColumn(30),
+  milestone: stringColumn(30, { allowNull: true }),
   detail: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
   body: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
   visibility: { type: DataTypes.ENUM("all", "operator"), allowNull: false, defaultValue: "all" },
@@ -119,7 +119,7 @@ export class JobFile extends StoredFileRow<JobFile> {
 
 initRow(JobFile, "job_files", {
   jobId: uuidColumn(),
-  kind: { type: DataTypes.STRING(30), allowNull: false },
+  kind: stringColumn(30),
   ...storedFileColumns(false),
   eventId: uuidColumn({ allowNull: true }),
 });
@@ -133,6 +133,6 @@ export class OrderConfirmation extends Row<OrderConfirmation> {
 
 initRow(OrderConfirmation, "order_confirmations", {
   jobId: { type: DataTypes.UUID, allowNull: false, unique: true },
-  number: { type: DataTypes.STRING(20), allowNull: false, unique: true },
+  number: stringColumn(20, { unique: true }),
   document: { type: DataTypes.JSONB, allowNull: false },
 });

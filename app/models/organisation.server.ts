@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional, type ForeignKey } from "sequelize";
-import { ChangingRow, initRow, uuidColumn } from "./columns.server";
+import { ChangingRow, initRow, stringColumn, uuidColumn } from "./columns.server";
 import { ORGANISATION_KINDS, type OrganisationKind } from "~/auth/roles";
 import { APPROVALS, type Approval } from "~/content/shop-approval";
 
@@ -34,20 +34,20 @@ initRow(
   Organisation,
   "organisations",
   {
-    name: { type: DataTypes.STRING(120), allowNull: false },
+    name: stringColumn(120),
     kind: { type: DataTypes.ENUM(...ORGANISATION_KINDS), allowNull: false },
-    region: { type: DataTypes.STRING(80), allowNull: true },
+    region: stringColumn(80, { allowNull: true }),
     accountManagerId: uuidColumn({ allowNull: true }),
-    stripeCustomerId: { type: DataTypes.STRING(255), allowNull: true },
+    stripeCustomerId: stringColumn(255, { allowNull: true }),
     approval: { type: DataTypes.ENUM(...APPROVALS), allowNull: true },
     approvalReason: { type: DataTypes.TEXT, allowNull: true },
     approvalDecidedById: uuidColumn({ allowNull: true }),
     approvalDecidedAt: { type: DataTypes.DATE, allowNull: true },
-    address: { type: DataTypes.STRING(300), allowNull: true },
-    taxNumber: { type: DataTypes.STRING(40), allowNull: true },
-    quoteContactName: { type: DataTypes.STRING(120), allowNull: true },
-    quoteContactEmail: { type: DataTypes.STRING(254), allowNull: true },
-    quoteContactPhone: { type: DataTypes.STRING(40), allowNull: true },
+    address: stringColumn(300, { allowNull: true }),
+    taxNumber: stringColumn(40, { allowNull: true }),
+    quoteContactName: stringColumn(120, { allowNull: true }),
+    quoteContactEmail: stringColumn(254, { allowNull: true }),
+    quoteContactPhone: stringColumn(40, { allowNull: true }),
   },
   {
     hooks: {

@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional } from "sequelize";
-import { ChangingRow, initRow } from "./columns.server";
+import { ChangingRow, initRow, stringColumn, uuidColumn } from "./columns.server";
 
 const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
 export type OutboxStatus = (typeof OUTBOX_STATUSES)[number];
@@ -30,8 +30,8 @@ export class OutboxMail extends ChangingRow<OutboxMail> {
 }
 
 initRow(OutboxMail, "outbox_mails", {
-  to: { type: DataTypes.STRING(254), allowNull: false },
-  subject: { type: DataTypes.STRING(200), allowNull: false },
+  to: stringColumn(254),
+  subject: stringColumn(200),
   text: { type: DataTypes.TEXT, allowNull: false },
   html: { type: DataTypes.TEXT, allowNull: true },
   status: { type: DataTypes.ENUM(...OUTBOX_STATUSES), allowNull: false, defaultValue: "pending" },
@@ -39,6 +39,6 @@ initRow(OutboxMail, "outbox_mails", {
   attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
   nextAttemptAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
   lastError: { type: DataTypes.TEXT, allowNull: true },
-  jobId: { type: DataTypes.UUID, allowNull: true },
+  jobId: uuidColumn({ allowNull: true }),
   sentAt: { type: DataTypes.DATE, allowNull: true },
 });

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from "sequelize";
-import { ChangingRow, centsColumn, initRow, uuidColumn } from "./columns.server";
+import { ChangingRow, centsColumn, initRow, stringColumn, uuidColumn } from "./columns.server";
 import { sequelize } from "~/db.server";
 import { PAYMENT_STATUSES, type PaymentStatus } from "~/content/payment-status";
 
@@ -36,17 +36,17 @@ export const OPEN_PAYMENT_STATUSES = ["pending", "failed"] as const satisfies re
 
 initRow(Payment, "payments", {
   jobId: uuidColumn(),
-  purpose: { type: DataTypes.STRING(10), allowNull: false, defaultValue: "retainer" },
+  purpose: stringColumn(10, { defaultValue: "retainer" }),
   buyerOrganisationId: uuidColumn(),
   createdById: uuidColumn(),
   status: { type: DataTypes.ENUM(...PAYMENT_STATUSES), allowNull: false, defaultValue: "pending" },
   amountCents: centsColumn("amountCents"),
   refundedCents: centsColumn("refundedCents", 0),
-  currency: { type: DataTypes.STRING(3), allowNull: false },
-  checkoutSessionId: { type: DataTypes.STRING(255), allowNull: true },
+  currency: stringColumn(3),
+  checkoutSessionId: stringColumn(255, { allowNull: true }),
   checkoutUrl: { type: DataTypes.TEXT, allowNull: true },
-  paymentIntentId: { type: DataTypes.STRING(255), allowNull: true },
-  customerId: { type: DataTypes.STRING(255), allowNull: true },
+  paymentIntentId: stringColumn(255, { allowNull: true }),
+  customerId: stringColumn(255, { allowNull: true }),
   failureMessage: { type: DataTypes.TEXT, allowNull: true },
   paidAt: { type: DataTypes.DATE, allowNull: true },
   flag: { type: DataTypes.TEXT, allowNull: true },
@@ -73,7 +73,7 @@ initRow(Refund, "refunds", {
   amountCents: centsColumn("amountCents"),
   reason: { type: DataTypes.TEXT, allowNull: false },
   status: { type: DataTypes.ENUM("requested", "recorded", "failed"), allowNull: false, defaultValue: "requested" },
-  stripeRefundId: { type: DataTypes.STRING(255), allowNull: true },
+  stripeRefundId: stringColumn(255, { allowNull: true }),
   failureMessage: { type: DataTypes.TEXT, allowNull: true },
   recordedAt: { type: DataTypes.DATE, allowNull: true },
 });
@@ -90,8 +90,8 @@ export class StripeEvent extends Model<InferAttributes<StripeEvent>, InferCreati
 StripeEvent.init(
   {
     id: { type: DataTypes.STRING(255), primaryKey: true },
-    type: { type: DataTypes.STRING(100), allowNull: false },
-    outcome: { type: DataTypes.STRING(200), allowNull: false },
+    type: stringColumn(100),
+    outcome: stringColumn(200),
     payload: { type: DataTypes.JSONB, allowNull: false },
     receivedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
   },

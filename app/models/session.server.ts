@@ -1,6 +1,6 @@
 import { DataTypes, Model, Op, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Transaction } from "sequelize";
 import { sequelize } from "~/db.server";
-import { uuidColumn } from "./columns.server";
+import { stringColumn, uuidColumn } from "./columns.server";
 
 /**
  * A browser's session, kept here so it can be ended from anywhere: the cookie holds only a
@@ -34,7 +34,7 @@ UserSession.init(
     id: { type: DataTypes.STRING(64), primaryKey: true },
     userId: uuidColumn({ allowNull: true }),
     data: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
-    userAgent: { type: DataTypes.STRING(300), allowNull: true },
+    userAgent: stringColumn(300, { allowNull: true }),
     createdAt: DataTypes.DATE,
     lastSeenAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
     expiresAt: { type: DataTypes.DATE, allowNull: false },

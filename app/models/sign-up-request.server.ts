@@ -1,5 +1,5 @@
 import { DataTypes } from "sequelize";
-import { Row, initRow } from "./columns.server";
+import { Row, initRow, stringColumn } from "./columns.server";
 
 /**
  * A sign-up waiting for its address to be confirmed: the account is made only when the link
@@ -17,12 +17,12 @@ export class SignUpRequest extends Row<SignUpRequest> {
 }
 
 initRow(SignUpRequest, "sign_up_requests", {
-  email: { type: DataTypes.STRING(254), allowNull: false },
+  email: stringColumn(254),
   kind: { type: DataTypes.ENUM("buyer", "shop"), allowNull: false },
-  organisationName: { type: DataTypes.STRING(120), allowNull: false },
-  name: { type: DataTypes.STRING(120), allowNull: false },
-  passwordHash: { type: DataTypes.STRING(100), allowNull: false },
-  tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+  organisationName: stringColumn(120),
+  name: stringColumn(120),
+  passwordHash: stringColumn(100),
+  tokenHash: stringColumn(64, { unique: true }),
   expiresAt: { type: DataTypes.DATE, allowNull: false },
   usedAt: { type: DataTypes.DATE, allowNull: true },
 });

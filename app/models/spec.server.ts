@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional } from "sequelize";
-import { ChangingRow, Row, StoredFileRow, initRow, storedFileColumns, uuidColumn } from "./columns.server";
+import { ChangingRow, Row, StoredFileRow, initRow, storedFileColumns, stringColumn, uuidColumn } from "./columns.server";
 import type { UnitSystem } from "~/units/systems";
 import type { MachineDesign } from "~/hydraulics/machine-design";
 
@@ -35,7 +35,7 @@ export class Spec extends ChangingRow<Spec> {
 initRow(Spec, "specs", {
   organisationId: uuidColumn(),
   createdById: uuidColumn(),
-  title: { type: DataTypes.STRING(120), allowNull: false, defaultValue: "" },
+  title: stringColumn(120, { defaultValue: "" }),
   status: { type: DataTypes.ENUM(...SPEC_STATUSES), allowNull: false, defaultValue: "draft" },
   answers: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
   unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false, defaultValue: "metric" },
@@ -44,9 +44,9 @@ initRow(Spec, "specs", {
   revising: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
   bidDeadline: { type: DataTypes.DATE, allowNull: true },
   retainerPercent: { type: DataTypes.DECIMAL(5, 2), allowNull: true },
-  deliveryRegion: { type: DataTypes.STRING(80), allowNull: true },
+  deliveryRegion: stringColumn(80, { allowNull: true }),
   publishedAt: { type: DataTypes.DATE, allowNull: true },
-  currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: "EUR" },
+  currency: stringColumn(3, { defaultValue: "EUR" }),
   unitsWanted: { type: DataTypes.INTEGER, allowNull: true },
   reliefSettingBar: { type: DataTypes.REAL, allowNull: true },
   pumpFlowLpm: { type: DataTypes.REAL, allowNull: true },
@@ -77,7 +77,7 @@ initRow(SpecRevision, "spec_revisions", {
   machine: { type: DataTypes.JSONB, allowNull: true },
   answers: { type: DataTypes.JSONB, allowNull: false },
   unitSystem: { type: DataTypes.ENUM("metric", "us"), allowNull: false },
-  engineVersion: { type: DataTypes.STRING(20), allowNull: false },
+  engineVersion: stringColumn(20),
   createdById: uuidColumn(),
 });
 

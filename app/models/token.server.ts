@@ -1,5 +1,5 @@
 import { DataTypes } from "sequelize";
-import { Row, initRow, uuidColumn } from "./columns.server";
+import { Row, initRow, stringColumn, uuidColumn } from "./columns.server";
 import { ROLES, type Role } from "~/auth/roles";
 
 /** A password-reset link: only the SHA-256 of the token is stored; the link works once. */
@@ -12,7 +12,7 @@ export class PasswordReset extends Row<PasswordReset> {
 
 initRow(PasswordReset, "password_resets", {
   userId: uuidColumn(),
-  tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+  tokenHash: stringColumn(64, { unique: true }),
   expiresAt: { type: DataTypes.DATE, allowNull: false },
   usedAt: { type: DataTypes.DATE, allowNull: true },
 });
@@ -32,9 +32,9 @@ export class Invitation extends Row<Invitation> {
 initRow(Invitation, "invitations", {
   organisationId: uuidColumn(),
   invitedById: uuidColumn(),
-  email: { type: DataTypes.STRING(254), allowNull: false },
+  email: stringColumn(254),
   role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
-  tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+  tokenHash: stringColumn(64, { unique: true }),
   expiresAt: { type: DataTypes.DATE, allowNull: false },
   acceptedAt: { type: DataTypes.DATE, allowNull: true },
   revokedAt: { type: DataTypes.DATE, allowNull: true },

@@ -1,5 +1,5 @@
 import { DataTypes, type CreationOptional, type NonAttribute } from "sequelize";
-import { ChangingRow, initRow, uuidColumn } from "./columns.server";
+import { ChangingRow, initRow, stringColumn, uuidColumn } from "./columns.server";
 import { ROLES, type Role } from "~/auth/roles";
 import { UNIT_SYSTEMS, type UnitSystem } from "~/units/systems";
 import type { Organisation } from "./organisation.server";
@@ -18,9 +18,9 @@ export class User extends ChangingRow<User> {
 
 initRow(User, "users", {
   organisationId: uuidColumn(),
-  email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
-  name: { type: DataTypes.STRING(120), allowNull: false },
-  passwordHash: { type: DataTypes.STRING(100), allowNull: false },
+  email: stringColumn(254, { unique: true }),
+  name: stringColumn(120),
+  passwordHash: stringColumn(100),
   role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
   active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
   unitSystem: { type: DataTypes.ENUM(...UNIT_SYSTEMS), allowNull: false, defaultValue: "metric" },

@@ -4,7 +4,7 @@ import { FieldErrors, FormErrors } from "./form-field";
 import { formatMoment } from "~/content/dates";
 import type { JobUploadReply } from "~/routes/job-files";
 import type { HandoverPanel as Panel } from "~/services/job-handover.server";
-import type { JobFileView } from "~/services/job-files.server";
+import type { ExchangedKind, JobFileView } from "~/services/job-files.server";
 
 // The job page's handover (the buyer accepts, or raises a problem with a note and photos; the
 // shop reads the problem) and the files buyer and shop exchange on the job. Uploads post as
@@ -134,11 +134,17 @@ function AnswerForms({ jobId }: { jobId: string }) {
   );
 }
 
+const KIND_OPTIONS: Record<ExchangedKind, string> = {
+  test_certificate: "A test certificate (PDF, PNG or JPEG)",
+  approved_drawing: "The approved drawing (PDF, PNG, JPEG, DXF or STEP)",
+};
+
 /** Test certificates and the approved drawing: listed for every reader of the job, uploaded by buyer and shop. */
-export function JobFilesPanel({ jobId, files, canUpload }: { jobId: string; files: JobFileView[]; canUpload: boolean }) {
+export function JobFilesPanel({ jobId, files, kinds }: { jobId: string; files: JobFileView[]; kinds: ExchangedKind[] }) {
   const upload = useFetcher<JobUploadReply>();
   const reply = useReply(upload, "files");
   const errors = reply?.errors ?? {};
+  const canUpload = kinds.length > 0;
   if (!files.length && !canUpload) return null;
   return (
     <Card title="Certificates and drawings">
@@ -150,9 +156,13 @@ export function JobFilesPanel({ jobId, files, canUpload }: { jobId: string; file
             <label htmlFor="job-file-kind" className="block text-sm font-semibold">
               The file is
             </label>
-            <select id="job-file-kind" name="kind" className={INPUT} defaultValue={reply?.typed.kind ?? "test_certificate"}>
-              <option value="test_certificate">A test certificate (PDF, PNG or JPEG)</option>
-              <option value="approved_drawing">The approved drawing (PDF, PNG, JPEG, DXF or STEP)</option>
+            {/* The viewer's side's usual kind comes first and is chosen at the start. */}
+            <select id="job-file-kind" name="kind" className={INPUT} defaultValue={reply?.typed.kind ?? kinds[0]}>
+              {kinds.map((kind) => (
+                <option key={kind} value={kind}>
+                  {KIND_OPTIONS[kind]}
+                </option>
+              ))}
             </select>
             <FieldErrors id="job-file-kind-error" errors={errors.kind} />
           </div>

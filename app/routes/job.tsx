@@ -136,7 +136,7 @@ export default function JobPage({ loaderData, actionData }: Route.ComponentProps
         <div className="space-y-6 lg:col-span-2">
           <Facts job={job} />
           <Timeline job={job} />
-          <JobFilesPanel jobId={job.id} files={handover.files} canUpload={handover.canExchangeFiles} />
+          <JobFilesPanel jobId={job.id} files={handover.files} kinds={handover.fileKinds} />
           <History job={job} photos={handover.photos} />
         </div>
         {/* Keyed by the history's length, so every saved change starts the forms afresh. On a phone the

@@ -154,7 +154,13 @@ export async function jobForAction(user: User, jobId: string | undefined, action
   return job;
 }
 
-const isExchangedKind = (kind: unknown): kind is "test_certificate" | "approved_drawing" => kind === "test_certificate" || kind === "approved_drawing";
+/** The kinds buyer and shop exchange (either may upload either). */
+export type ExchangedKind = "test_certificate" | "approved_drawing";
+const isExchangedKind = (kind: unknown): kind is ExchangedKind => kind === "test_certificate" || kind === "approved_drawing";
+
+/** The kinds in the order the upload form offers them, the first chosen at the start: the shop sends test certificates, the buyer the approved drawing. */
+export const exchangedKindsFor = (user: Pick<User, "role">): ExchangedKind[] =>
+  user.role === "shop" ? ["test_certificate", "approved_drawing"] : ["approved_drawing", "test_certificate"];
 
 /** A test certificate or the approved drawing, uploaded by the buyer or the shop. */
 export async function uploadJobFiles(user: User, jobId: string | undefined, request: Request) {

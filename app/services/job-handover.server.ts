@@ -6,7 +6,18 @@ import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { handoverAcceptedMail, handoverProblemMail } from "./mail-templates.server";
 import { changeJob, partiesOf, record } from "./job-progress.server";
-import { JOB_FILE_KINDS, UploadRefused, discardStaged, filesOfJob, receiveJobUpload, recordFiles, typedIn, type JobFileView } from "./job-files.server";
+import {
+  JOB_FILE_KINDS,
+  UploadRefused,
+  discardStaged,
+  exchangedKindsFor,
+  filesOfJob,
+  receiveJobUpload,
+  recordFiles,
+  typedIn,
+  type ExchangedKind,
+  type JobFileView,
+} from "./job-files.server";
 import { scopedJob } from "./job-reads.server";
 
 // The buyer's answer to the shop's "handed over": accept it, which closes the job, or raise a
@@ -94,7 +105,8 @@ export interface HandoverPanel {
   /** The last problem reported, while the handover is back with the shop. */
   problem: { note: string; at: string; by: string; photos: JobFileView[] } | null;
   canAnswer: boolean;
-  canExchangeFiles: boolean;
+  /** The kinds the viewer may upload, the likeliest for their side first (none when they may not). */
+  fileKinds: ExchangedKind[];
   /** Test certificates and approved drawings. */
   files: JobFileView[];
   /** Every photo sent with a problem report, for the history (by eventId). */
@@ -128,7 +140,7 @@ export async function handoverPanelOf(user: User, jobId: string | undefined): Pr
           }
         : null,
     canAnswer: state === "awaiting" && can(viewer, "job.acceptHandover", job),
-    canExchangeFiles: can(viewer, "job.exchangeFiles", job),
+    fileKinds: can(viewer, "job.exchangeFiles", job) ? exchangedKindsFor(user) : [],
     files: files.filter((f) => f.kind !== "problem_photo"),
     photos: files.filter((f) => f.kind === "problem_photo"),
   };

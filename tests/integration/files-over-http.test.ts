@@ -169,6 +169,16 @@ describe("an upload (or another form of the job page) posted without JavaScript"
     expect(await JobEvent.count({ where: { jobId: job.id, kind: "progress_note" } })).toBe(1);
   });
 
+  it("offers the buyer the approved drawing and the shop a test certificate first, chosen at the start", async () => {
+    const { job } = await makeJob(buyer, shop);
+    const chosen = async (visitor: Visitor) => {
+      const select = (await (await send(app, visitor, `/jobs/${job.id}`)).text()).match(/id="job-file-kind".*?<\/select>/s)?.[0];
+      return select?.match(/<option value="(\w+)" selected="">/)?.[1];
+    };
+    expect(await chosen(buyerBrowser)).toBe("approved_drawing");
+    expect(await chosen(shopBrowser)).toBe("test_certificate");
+  });
+
   it("keeps the handover problem's note and says what is missing beside its field", async () => {
     const { job } = await makeJob(buyer, shop);
     await reachMilestones(shop, job.id, { milestone: "handed_over", note: "" });

@@ -158,6 +158,11 @@ describe("files exchanged on the job", () => {
     const drawing = await uploadToJob(buyerBrowser, job.id, { kind: "approved_drawing" }, [new File([DXF], "unit rev C.dxf")]);
     expect(drawing.status).toBe(302);
 
+    // The upload form starts at each side's usual kind: the buyer's approved drawing, the shop's certificates; staff upload nothing.
+    expect((await handoverPanelOf(buyer, job.id)).fileKinds).toEqual(["approved_drawing", "test_certificate"]);
+    expect((await handoverPanelOf(shop, job.id)).fileKinds).toEqual(["test_certificate", "approved_drawing"]);
+    expect((await handoverPanelOf(manager, job.id)).fileKinds).toEqual([]);
+
     const files = (await handoverPanelOf(manager, job.id)).files;
     expect(files.map((f) => [f.kindLabel, f.fileName, f.uploadedBy])).toEqual([
       ["Test certificate", "pressure test.pdf", shop.name],

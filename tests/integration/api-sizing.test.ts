@@ -1,3 +1,4 @@
+import { gunzipSync } from "node:zlib";
 import { describe, expect, it, vi } from "vitest";
 
 // A small allowance so the limit can be reached in a test; set before the app reads its env.
@@ -89,6 +90,27 @@ describe("POST /api/v1/sizing", () => {
   ])("answers %s with 400", async (_label, body) => {
     const res = await post(body);
     expect(res.status).toBe(400);
+  });
+
+  it("sends the design gzipped to a client that takes gzip, and as plain JSON to one that does not", async () => {
+    const send = (acceptEncoding: string) => {
+      const init = { method: "POST", headers: { "Content-Type": "application/json", "Accept-Encoding": acceptEncoding }, body: JSON.stringify(GOOD) };
+      return sizing.action({
+        request: new Request("http://127.0.0.1:3000/api/v1/sizing", init),
+        params: {},
+        context: serverContext(`10.1.0.${++client}`),
+      } as never);
+    };
+    const plain = (await post(GOOD, undefined, { "Accept-Encoding": "identity" })) as { headers: Headers; data: unknown };
+    expect(plain.headers.get("Content-Encoding")).toBeNull();
+    const zipped = await send("br, gzip;q=0.8");
+    expect(zipped.status).toBe(200);
+    expect(zipped.headers.get("Content-Encoding")).toBe("gzip");
+    expect(zipped.headers.get("Vary")).toBe("Accept-Encoding");
+    expect(JSON.parse(gunzipSync(Buffer.from(await zipped.arrayBuffer())).toString("utf8"))).toEqual(plain.data);
+    expect((await send("*")).headers.get("Content-Encoding")).toBe("gzip");
+    expect((await send("gzip;q=0, *")).headers.get("Content-Encoding")).toBeNull();
+    expect((await send("deflate")).headers.get("Content-Encoding")).toBeNull();
   });
 
   it("answers GET with 405", async () => {

@@ -85,17 +85,7 @@ export function chooseMachinePump(designs: Design[], timeline: TimelinePhase[], 
   const pumpAt = (displacementCc: number, noDouble = false) => {
     const qp = pumpDeliveryLpm(displacementCc, speedRpm, etaV);
     const { demand, governing } = machinePhaseDemand(designs, timeline, { requiredCc: Math.max(needCc, drawnCc), displacementCc, noDouble }, qp, speedRpm);
-    const surplus = timeline.filter((p) => p.kind === "fast" && p.demandLpm < qp * (1 - A.speedTolerance.value));
-    let choice = choosePump(demand, asked);
-    if (asked === undefined && surplus.length > 0 && choice.type !== "compensated") {
-      const c = choosePump(demand, "compensated");
-      const who = [...new Set(surplus.flatMap((p) => p.axes))].join(", ");
-      choice = {
-        ...c,
-        reason: `a pressure-compensated pump with a power limiter: the axes draw different flows (${who} alone draw${surplus.length === 1 && !who.includes(",") ? "s" : ""} less than the ${Math.round(qp * 10) / 10} L/min the pump must deliver when the most flow is drawn), and a fixed pump would push the surplus over the relief as heat`,
-      };
-    }
-    return { qp, demand, governing, choice };
+    return { qp, demand, governing, choice: choosePump(demand, asked) };
   };
   // A double pump's two catalogue sections set its delivery (as for an axis, evaluate.ts).
   let sized = pumpAt(catalogueCc);
@@ -105,6 +95,20 @@ export function chooseMachinePump(designs: Design[], timeline: TimelinePhase[], 
       const atSections = pumpAt(totalCc);
       sized = atSections.choice.type === "double" ? atSections : pumpAt(catalogueCc, true);
     }
+  }
+  // The surplus is judged against the delivery of the pump chosen (a double pump's sections may
+  // total less than the catalogue size), so an axis that draws all of its own double pump keeps it.
+  const surplus = timeline.filter((p) => p.kind === "fast" && p.demandLpm < sized.qp * (1 - A.speedTolerance.value));
+  if (asked === undefined && surplus.length > 0 && sized.choice.type !== "compensated") {
+    const atCatalogue = pumpAt(catalogueCc);
+    const who = [...new Set(surplus.flatMap((p) => p.axes))].join(", ");
+    sized = {
+      ...atCatalogue,
+      choice: {
+        ...choosePump(atCatalogue.demand, "compensated"),
+        reason: `a pressure-compensated pump with a power limiter: the axes draw different flows (${who} alone draw${surplus.length === 1 && !who.includes(",") ? "s" : ""} less than the ${Math.round(atCatalogue.qp * 10) / 10} L/min the pump must deliver when the most flow is drawn), and a fixed pump would push the surplus over the relief as heat`,
+      },
+    };
   }
   const { qp, demand, governing, choice } = sized;
   const smallLpm = choice.type === "double" ? pumpDeliveryLpm(choice.displacementsCcRev[1], speedRpm, etaV) : null;

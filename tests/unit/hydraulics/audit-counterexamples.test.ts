@@ -37,3 +37,37 @@ describe("a machine with so few cycles per hour that the cycle time is the large
     expect(machine.motor.ratedKw).toBe(alone.motor.ratedKw);
   });
 });
+
+describe("a machine of one axis whose own pump is a double pump smaller than the next catalogue size", () => {
+  // Found by the same property (seed -604153425): the axis needs 6.3 cm³/rev (plus the engine's 1e-9) at
+  // 1750 rpm, so its double pump is 5 + 1.6 = 6.6 cm³/rev (sections of ISO 3662 [M]), below the next whole
+  // size, 8. The machine judged "an axis draws less than the pump delivers" at 8 cm³/rev (13.3 L/min) before
+  // trying the sections' total, and so gave its one axis a compensated 8 cm³/rev pump. A machine of one
+  // axis must size like that axis alone (sizing contract).
+  const axis = {
+    orientation: "horizontal",
+    massKg: 0,
+    processForceN: 1432.91071994201,
+    frictionCoefficient: 0,
+    strokeMm: 20,
+    extendSpeedMmS: 97.15314053505341,
+    retractSpeedMmS: 462.0787485719568,
+    accelTimeS: 0.05,
+    decelTimeS: 0.05,
+    mounting: "pinned-pinned",
+    dwellS: 0,
+    pressStrokeMm: 0.2,
+    pressSpeedMmS: 86.95206077887269,
+  } as const;
+  const duty = { cyclesPerHour: 0, hoursPerDay: 0, ambientC: 0, supplyHz: 60, maxPressureBar: 40 } as const;
+
+  it("keeps the axis's double pump, 5 + 1.6 cm³/rev, and its delivery 6.6 · 1750 · 0.95 / 1000 = 10.97 L/min", () => {
+    const alone = sizeCircuit({ ...axis, ...duty, name: "Only" });
+    const machine = sizeMachine({ axes: [{ ...axis, name: "Only" }], ...duty });
+    expect(alone.pump.type).toBe("double");
+    expect(alone.pump.displacementsCcRev).toEqual([5, 1.6]);
+    expect(machine.pump).toEqual(alone.pump);
+    expect(machine.flowsLpm.pump).toBeCloseTo(10.9725, 9);
+    expect(machine.flowsLpm.pump).toBe(alone.flowsLpm.pump);
+  });
+});

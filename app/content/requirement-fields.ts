@@ -1,4 +1,5 @@
 import { REQUIREMENT_DEFAULTS, REQUIREMENT_LIMITS, type RequirementsInput } from "~/hydraulics";
+import { formatNumber } from "./number-format";
 import { fromDisplay, parseWithUnit, roundForDisplay, toDisplay, unitLabel, UNITS, type Quantity, type UnitSystem } from "~/units";
 
 // The questions a person answers about one axis: wording, examples, units and defaults, in one
@@ -460,6 +461,18 @@ export function answerInWords(key: RequirementKey, raw: string | undefined, syst
   return unit && Number.isFinite(typedNumber(text)) ? `${text} ${unit}` : text;
 }
 
+/** Phases a zero leaves out: the reader sees "none", not "0 mm". */
+const NONE_WHEN_ZERO: ReadonlySet<RequirementKey> = new Set(["pressStrokeMm", "dwellS"]);
+
+/** A stored number for reading: in the reader's units, grouped ("400,000 N"), or "none" for a phase left out. */
+function numberInWords(field: NumberField, value: number, system: UnitSystem): string {
+  if (value === 0 && NONE_WHEN_ZERO.has(field.key)) return "none";
+  const decimals = field.quantity ? UNITS[field.quantity][system].decimals : 6;
+  const shown = formatNumber(Number(displayValue(field, value, system)), decimals);
+  const unit = fieldUnit(field, system);
+  return unit ? `${shown} ${unit}` : shown;
+}
+
 /**
  * The requirements an axis was sized with (app units, defaults filled in) in words and in the
  * reader's units. A blank optional choice is listed by its meaning only for a design sized
@@ -474,7 +487,7 @@ export function requirementsInWords(requirements: Partial<Record<RequirementKey,
     const value = requirements[field.key];
     let words: string | null;
     if (value === undefined || value === null) words = asked && field.kind === "choice" ? (field.emptyLabel ?? null) : null;
-    else if (field.kind === "number" && typeof value === "number") words = answerInWords(field.key, displayValue(field, value, system), system);
+    else if (field.kind === "number" && typeof value === "number") words = numberInWords(field, value, system);
     else words = answerInWords(field.key, String(value), system);
     if (words) rows.push({ key: field.key, label: field.label, value: words });
   }

@@ -286,6 +286,12 @@ describe("the axis questions of sizing contract 2", () => {
       "Mains frequency": "50 Hz",
       "How the cylinder is held": "Pivots at both ends",
     });
+    // Large figures grouped as the rest of the page writes them; a phase left out reads "none".
+    expect(words({ ...pageDesign(page.data).requirements, processForceN: 400000, pressStrokeMm: 0, dwellS: 0 })).toMatchObject({
+      "Pressing stroke": "none",
+      "Dwell at force": "none",
+    });
+    expect(Object.values(words({ ...pageDesign(page.data).requirements, processForceN: 400000 }))).toContain("400,000 N");
   });
 
   it("resumes, validates and publishes a draft saved before the new questions existed", async () => {

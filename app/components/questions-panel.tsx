@@ -1,7 +1,9 @@
 import { getFormProps, getTextareaProps, useForm, type SubmissionResult } from "@conform-to/react";
 import { formatDay } from "~/content/dates";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { useFetcher } from "react-router";
+import { useActionData, useFetcher } from "react-router";
+import type { QuestionReply } from "~/routes/spec-questions";
+import type { AnswerReply } from "~/routes/spec-question-answer";
 import { ANSWER_MAX, QUESTION_MAX, answerSchema, questionSchema } from "~/schemas/questions";
 import type { QuestionView, QuestionsPanel as PanelData } from "~/services/questions.server";
 import { FieldErrors } from "./form-field";
@@ -9,18 +11,26 @@ import { Badge, Button, Card, Notice } from "./ui";
 
 // Questions and answers on a spec. The forms post through fetchers: a refused question or answer
 // comes back with its message beside the text, which stays as typed; an accepted one redirects
-// back to the spec with a toast.
+// back to the spec with a toast. Without JavaScript the form's route draws the spec page again,
+// the reply as its action data.
 
 const textareaClass =
   "mt-1 block w-full rounded-md border-0 bg-white px-3 py-2 text-sm text-ink-900 shadow-sm ring-1 ring-ink-200 placeholder:text-ink-400 focus:ring-2 focus:ring-flow-600 aria-[invalid=true]:ring-alarm-600";
 
 const when = (iso: string) => formatDay(iso);
 
+/** The last reply to a form: its fetcher's, or (drawn again without JavaScript) the page's action data when it is this form's. */
+function useReply<Reply extends { result: SubmissionResult<string[]> }>(fetcher: { state: string; data?: Reply }, mine: (page: Partial<Reply>) => boolean) {
+  const page = useActionData() as Partial<Reply> | undefined;
+  if (fetcher.state !== "idle") return null;
+  return fetcher.data?.result ?? (page && mine(page) ? page.result : undefined);
+}
+
 function AskForm({ specId }: { specId: string }) {
-  const fetcher = useFetcher<SubmissionResult<string[]>>();
+  const fetcher = useFetcher<QuestionReply>();
   const [form, fields] = useForm({
     id: "ask-question",
-    lastResult: fetcher.state === "idle" ? fetcher.data : null,
+    lastResult: useReply(fetcher, (page) => page.form === "question"),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: questionSchema }),
     shouldValidate: "onSubmit",
     shouldRevalidate: "onInput",
@@ -52,11 +62,11 @@ function AskForm({ specId }: { specId: string }) {
 }
 
 function AnswerForm({ specId, question }: { specId: string; question: QuestionView }) {
-  const fetcher = useFetcher<SubmissionResult<string[]>>();
+  const fetcher = useFetcher<AnswerReply>();
   const [form, fields] = useForm({
     id: `answer-${question.id}`,
     defaultValue: { answer: question.answer ?? "" },
-    lastResult: fetcher.state === "idle" ? fetcher.data : null,
+    lastResult: useReply(fetcher, (page) => page.form === "answer" && page.questionId === question.id),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: answerSchema }),
     shouldValidate: "onSubmit",
     shouldRevalidate: "onInput",

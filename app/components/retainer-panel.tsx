@@ -1,10 +1,11 @@
 import { useEffect, useState } from "react";
-import { Form, useFetcher, useSearchParams } from "react-router";
+import { Form, useActionData, useFetcher, useSearchParams } from "react-router";
 import { Badge, Button, Card, Notice } from "./ui";
 import { FieldErrors as FieldErrorText } from "./form-field";
 import { formatMoney } from "~/content/money";
 import { formatMoment } from "~/content/dates";
 import { PAYMENT_STATUS_LABELS, PAYMENT_STATUS_TONES, type PaymentStatus } from "~/content/payment-status";
+import type { RefundReply } from "~/routes/payment-refund";
 
 export interface PaymentView {
   id: string;
@@ -92,23 +93,23 @@ export function RetainerPanel({
   );
 }
 
-interface RefundAnswer {
-  result?: { error?: Record<string, string[] | null> };
-  /** The question asked before the money moves, with what was typed to send again. */
-  confirm?: { question: string; amount: string; reason: string };
-}
-
 const FIELD_CLASS = "mt-1 w-full rounded-md bg-white px-2 py-1 ring-1 ring-ink-200";
 
 // Paying back in two steps: the amount and reason, then the question with the amount spelled
 // out, answered with the person's password. A wrong password keeps the question on screen; a
 // problem with the amount or reason goes back to the first step with what was typed.
 function RefundForm({ payment }: { payment: PaymentView }) {
-  const fetcher = useFetcher<RefundAnswer>();
-  const errors = fetcher.data?.result?.error ?? {};
+  const fetcher = useFetcher<RefundReply>();
+  // Without JavaScript the form's route draws the job page again, the reply as its action data.
+  const page = useActionData() as Partial<RefundReply> | undefined;
+  const drawnAgain = page?.form === "refund" && page.paymentId === payment.id ? page : undefined;
+  const errors = (fetcher.data ?? drawnAgain)?.result?.error ?? {};
   const id = `refund-${payment.id}`;
-  const [asked, setAsked] = useState<RefundAnswer["confirm"] | null>(null);
-  const [typed, setTyped] = useState({ amount: "", reason: "" });
+  const [asked, setAsked] = useState<RefundReply["confirm"] | null>(drawnAgain?.confirm ?? null);
+  const [typed, setTyped] = useState(() => {
+    const was = (drawnAgain?.confirm ?? drawnAgain?.result?.initialValue ?? {}) as Record<string, unknown>;
+    return { amount: typeof was.amount === "string" ? was.amount : "", reason: typeof was.reason === "string" ? was.reason : "" };
+  });
   // The password field starts empty again after every answer, right or wrong.
   const [round, setRound] = useState(0);
   useEffect(() => {

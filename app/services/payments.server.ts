@@ -294,6 +294,12 @@ async function checkRefundable(payment: Payment, amountCents: number, transactio
  * EUR 1,250.00 of the EUR 5,000.00 retainer to Rotherby Presses?". Checks the same things the
  * refund itself does, so a refund that would be refused is refused here already.
  */
+/** The job a payment is for, if the user may see the payment (a 404 otherwise). */
+export async function jobIdOfPayment(user: User, paymentId: string | undefined): Promise<string> {
+  const payment = await findInScope(Payment, paymentsWhere(await viewerOf(user)), paymentId, { missing: "No such payment.", attributes: ["id", "jobId"] });
+  return payment.jobId;
+}
+
 export async function refundQuestion(user: User, paymentId: string | undefined, amountCents: number): Promise<string> {
   const viewer = await viewerOf(user);
   const payment = await findInScope(Payment, paymentsWhere(viewer), paymentId, {

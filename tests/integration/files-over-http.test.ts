@@ -8,9 +8,11 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as filesRoute from "~/routes/job-files";
 import * as documentsRoute from "~/routes/spec-bid-documents";
 import * as attachmentsRoute from "~/routes/spec-attachments";
-import { JobEvent, JobFile, Organisation, type Spec, type User } from "~/models/index.server";
+import { JobEvent, JobFile, Organisation, Payment, Refund, type Spec, type User } from "~/models/index.server";
 import { BidDocument } from "~/models/bid.server";
 import { reachMilestones } from "~/services/job-progress.server";
+import { newAttempt } from "~/services/payments.server";
+import { askQuestion } from "~/services/questions.server";
 import { freePort } from "../../db/cluster";
 import { PDF_BYTES, PNG_BYTES, draftOf, pdf, png, uploadForm } from "../support/attachment-files";
 import { makeJob, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
@@ -211,6 +213,49 @@ describe("an upload (or another form of the job page) posted without JavaScript"
     expect(html).toMatch(/<p id="transfer-day-error"[^>]*>[^<]*like 2026-09-30/);
     expect(html).toContain('value="BACS HOLLINS 0412"');
     expect((await job.reload()).balancePaidAt).toBeNull();
+  });
+
+  it("a shop's question or the buyer's answer, refused, comes back as the spec page with the text kept", async () => {
+    const spec = await makePublishedSpec(buyer);
+    const asked = await postPlain(shopBrowser, `/specs/${spec.id}/questions`, new URLSearchParams({ body: "x".repeat(2001) }));
+    expect(asked.status).toBe(400);
+    expect(asked.headers.get("Content-Type")).toMatch(/^text\/html/);
+    const page = await asked.text();
+    expect(page).toMatch(/<p id="[^"]*body-error"[^>]*>[^<]*2000 characters or fewer/);
+    expect(page).toContain(`${"x".repeat(2001)}</textarea>`);
+
+    const question = await askQuestion(shop, spec.id, { body: "May the unit stand 8 m from the press?" });
+    const answered = await postPlain(buyerBrowser, `/specs/${spec.id}/questions/${question.id}/answer`, new URLSearchParams({ answer: "  " }));
+    expect(answered.status).toBe(400);
+    expect(await answered.text()).toMatch(/<p id="[^"]*answer-error"[^>]*>Write the answer first\./);
+    expect((await question.reload()).answer).toBeNull();
+  });
+
+  it("a refund's question, then a wrong password, come back as the job page with the amount and reason kept", async () => {
+    const { job } = await makeJob(buyer, shop);
+    const payment = await Payment.create({ ...newAttempt(job, buyer.id), status: "paid", paidAt: new Date(), paymentIntentId: `pi_plain_${job.id}` });
+    const manager = await makeOperatorUser("account_manager");
+    await Organisation.update({ accountManagerId: manager.id }, { where: { id: buyer.organisationId } });
+    const managerBrowser = await signedIn(manager);
+    const refund = (fields: Record<string, string>) => postPlain(managerBrowser, `/payments/${payment.id}/refund`, new URLSearchParams(fields));
+
+    const notAnAmount = await refund({ amount: "abc", reason: "Paint left off" });
+    expect(notAnAmount.status).toBe(400);
+    const refused = await notAnAmount.text();
+    expect(refused).toMatch(new RegExp(`<p id="refund-${payment.id}-amount-error"[^>]*>Enter an amount like 250`));
+    expect(refused).toContain('value="Paint left off"');
+
+    const asked = await refund({ amount: "12.50", reason: "Paint left off" });
+    expect(asked.status).toBe(200);
+    const question = await asked.text();
+    expect(question).toMatch(/Refund \S+ 12\.50 of the/);
+    expect(question).toContain('name="confirm" value="yes"');
+    const wrong = await refund({ amount: "12.50", reason: "Paint left off", confirm: "yes", currentPassword: "not it" });
+    expect(wrong.status).toBe(400);
+    const again = await wrong.text();
+    expect(again).toMatch(new RegExp(`<p id="refund-${payment.id}-password-error"[^>]*>[^<]+`));
+    expect(again).toMatch(/Refund \S+ 12\.50 of the/);
+    expect(await Refund.count({ where: { paymentId: payment.id } })).toBe(0);
   });
 
   it("comes back as the bid page with an offer document's problem beside the upload field", async () => {

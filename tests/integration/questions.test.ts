@@ -181,19 +181,19 @@ describe("refused questions and answers", () => {
     const before = await SpecQuestion.count();
     const empty = await asking(v.shopA, spec.id, "   ");
     expect(empty.status).toBe(400);
-    expect(empty.data.error.body).toEqual(["Write your question first."]);
+    expect(empty.data.result.error.body).toEqual(["Write your question first."]);
     const long = await asking(v.shopA, spec.id, "x".repeat(2001));
     expect(long.status).toBe(400);
-    expect(long.data.error.body[0]).toMatch(/2000 characters or fewer/);
+    expect(long.data.result.error.body[0]).toMatch(/2000 characters or fewer/);
     // What was typed comes back with the refusal, so nothing is lost.
-    expect(long.data.initialValue.body).toBe("x".repeat(2001));
+    expect(long.data.result.initialValue.body).toBe("x".repeat(2001));
     expect(await SpecQuestion.count()).toBe(before);
     expect((await asking(v.shopA, spec.id, "y".repeat(2000))).status).toBe(302);
 
     const question = await SpecQuestion.findOne({ where: { specId: spec.id, body: "y".repeat(2000) }, rejectOnEmpty: true });
     const blank = await answering(v.buyer, spec.id, question.id, "");
     expect(blank.status).toBe(400);
-    expect(blank.data.error.answer).toEqual(["Write the answer first."]);
+    expect(blank.data.result.error.answer).toEqual(["Write the answer first."]);
     expect((await question.reload()).answer).toBeNull();
   });
 
@@ -205,7 +205,7 @@ describe("refused questions and answers", () => {
 
     const late = await asking(v.shopC, closing.id, "And a pressure gauge?");
     expect(late.status).toBe(400);
-    expect(late.data.error.body[0]).toMatch(/Bidding closed on .*takes no new questions/);
+    expect(late.data.result.error.body[0]).toMatch(/Bidding closed on .*takes no new questions/);
     expect(await SpecQuestion.count({ where: { specId: closing.id } })).toBe(1);
     expect((await page(v.shopC, closing.id)).data.questions).toMatchObject({ canAsk: false, closedNote: expect.stringMatching(/takes no new questions/) });
 
@@ -213,9 +213,9 @@ describe("refused questions and answers", () => {
     await closing.update({ status: "closed" });
     const refused = await answering(v.buyer, closing.id, question.id, "Changed my mind.");
     expect(refused.status).toBe(400);
-    expect(refused.data.error.answer[0]).toMatch(/no longer open/);
+    expect(refused.data.result.error.answer[0]).toMatch(/no longer open/);
     expect((await question.reload()).answer).toBe("No, the plant has its own.");
-    expect((await asking(v.shopC, closing.id, "Still there?")).data.error.body[0]).toMatch(/no longer open for bids/);
+    expect((await asking(v.shopC, closing.id, "Still there?")).data.result.error.body[0]).toMatch(/no longer open for bids/);
     expect((await page(v.buyer, closing.id)).data.questions.canAnswer).toBe(false);
   });
 });

@@ -123,6 +123,11 @@ export default function SpecPage({ loaderData: d }: Route.ComponentProps) {
                 </Button>
               </Form>
             </>
+          ) : d.questions?.canAsk ? (
+            // The question box sits below the whole design: a shop reading from the top finds it here.
+            <ButtonLink to="#ask-question" tone="secondary">
+              Ask a question
+            </ButtonLink>
           ) : null
         }
       />

@@ -60,6 +60,17 @@ describe("questions on a spec", () => {
     await hydrated(shopPage);
     await expect.poll(() => shopPage.getByRole("heading", { name: "The machine and what to quote" }).count()).toBe(1);
 
+    // The page's header leads to the question box, below the whole design.
+    await shopPage.getByRole("link", { name: "Ask a question" }).click();
+    // Scrolled into the window (its box starts inside the 720 px height), not just on the page.
+    await expect
+      .poll(async () => {
+        const box = await shopPage.getByLabel("Ask the machine builder").boundingBox();
+        return box !== null && box.y >= 0 && box.y < 720;
+      })
+      .toBe(true);
+    await expect.poll(() => shopPage.evaluate(() => location.hash)).toBe("#ask-question");
+
     // An empty question is refused beside the box; a real one is sent.
     await shopPage.getByRole("button", { name: "Send the question" }).click();
     await expect.poll(() => shopPage.getByText("Write your question first.").count()).toBe(1);

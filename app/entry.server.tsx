@@ -48,6 +48,10 @@ export default function handleRequest(
     const nonce = loadContext.get(nonceContext) || undefined;
     const { pipe, abort } = renderToPipeableStream(<ServerRouter context={routerContext} url={request.url} nonce={nonce} />, {
       nonce,
+      // A finished Suspense boundary (a part loaded later, components/loaded-later.tsx) stays in
+      // place however large: React would otherwise send one over 12.8 kB after the shell, revealed
+      // by a script, and a browser without JavaScript would show its placeholder.
+      progressiveChunkSize: Number.POSITIVE_INFINITY,
       [readyOption]() {
         shellRendered = true;
         const body = new PassThrough({

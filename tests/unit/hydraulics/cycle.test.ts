@@ -110,8 +110,9 @@ function checkCycle(d: Design): void {
       }
     }
     if (d.pump.type === "compensated" && ph.pressureBar >= d.pump.compensatorBar!) {
-      // At its setting the pump destrokes to what is drawn, at dead-head to its leakage only.
-      if (ph.demandLpm > 0) expect(ph.pumpFlowLpm).toBe(ph.demandLpm);
+      // At its setting the pump destrokes to what is drawn, at dead-head to its leakage only
+      // (to rounding: fast-check's 688.75 against 688.7499999999999 L/min, 20 t on a 60° incline).
+      if (ph.demandLpm > 0) expect(close(ph.pumpFlowLpm, ph.demandLpm)).toBe(true);
       else expect(ph.pumpFlowLpm).toBeLessThan(qp);
     }
   }

@@ -39,7 +39,7 @@ function PriceInput({ meta, label, disabled }: { meta: Meta; label: string; disa
   );
 }
 
-/** Assembly, wiring, … each priced, included or not offered; then the shop's own lines. */
+/** Assembly, wiring, … each priced, included or not offered (open until the shop answers); then the shop's own lines. */
 export function OfferExtrasFields({ form, fields, currency }: { form: BidForm; fields: BidFields; currency: string }) {
   const extras = fields.extras.getFieldList();
   const ownLines = fields.ownLines.getFieldList();
@@ -74,6 +74,7 @@ export function OfferExtrasFields({ form, fields, currency }: { form: BidForm; f
                   <td className="grid gap-2 py-2 sm:grid-cols-[minmax(9rem,1fr)_10rem]">
                     <div>
                       <select {...getSelectProps(f.answer)} key={f.answer.key} className={cellInput}>
+                        <option value="">Choose an answer</option>
                         {EXTRA_ANSWERS.map((a) => (
                           <option key={a} value={a}>
                             {EXTRA_ANSWER_LABELS[a]}
@@ -92,6 +93,7 @@ export function OfferExtrasFields({ form, fields, currency }: { form: BidForm; f
           </tbody>
         </table>
       </TableScroll>
+      <FieldErrors id={fields.extras.errorId} errors={fields.extras.errors} />
 
       <h3 className="mb-1 mt-6 font-semibold">Lines of your own</h3>
       <p className="mb-2 text-sm text-ink-600">

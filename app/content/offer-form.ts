@@ -1,17 +1,7 @@
 // The bid form's values beyond the bill: what a saved offer fills in, and what the typed form
 // adds up to for the live preview (the server prices everything again from what is sent).
 import { centsToInput, parseMoney } from "./money";
-import {
-  EXTRA_ANSWERS,
-  EXTRA_KEYS,
-  NO_TERMS,
-  extrasInOrder,
-  type AlternativeCircuit,
-  type ExtraAnswer,
-  type OfferExtra,
-  type OfferTerms,
-  type OwnLine,
-} from "./offer-terms";
+import { EXTRA_ANSWERS, EXTRA_KEYS, NO_TERMS, type AlternativeCircuit, type ExtraAnswer, type OfferExtra, type OfferTerms, type OwnLine } from "./offer-terms";
 
 const numberText = (n: number | null) => (n === null ? "" : String(n));
 
@@ -22,7 +12,11 @@ export function offerDefaults(
   const terms = bid?.offerTerms ?? NO_TERMS;
   const alternative = bid?.alternativeCircuit;
   return {
-    extras: extrasInOrder(bid?.extras ?? []).map((e) => ({ kind: e.kind, answer: e.answer, price: e.priceCents === null ? "" : centsToInput(e.priceCents) })),
+    // A kind not answered yet starts open (""), never as "not offered": the shop must say.
+    extras: EXTRA_KEYS.map((kind) => {
+      const saved = bid?.extras.find((e) => e.kind === kind);
+      return { kind, answer: saved?.answer ?? "", price: saved?.priceCents == null ? "" : centsToInput(saved.priceCents) };
+    }),
     ownLines: (bid?.ownLines ?? []).map((l) => ({ name: l.name, price: centsToInput(l.priceCents) })),
     incoterm: terms.incoterm ?? "",
     place: terms.place,

@@ -35,7 +35,8 @@ const moneyText = z.string().trim().max(30, "Enter an amount like 1250.00.").opt
 
 const extraSchema = z.object({
   kind: z.enum(EXTRA_KEYS),
-  answer: z.enum(EXTRA_ANSWERS, { error: "Choose priced, included or not offered." }),
+  // Open until the shop answers: a draft may leave it so, a submitted offer may not.
+  answer: z.enum(EXTRA_ANSWERS, { error: "Choose priced, included or not offered." }).optional(),
   price: moneyText,
 });
 
@@ -93,6 +94,9 @@ export const bidSchema = bidFields.superRefine((bid, ctx) => {
   checkOfferExtras(bid, ctx, submitting);
 });
 
+const UNANSWERED = "Choose priced, included or not offered before you submit.";
+const UNANSWERED_KINDS = `Answer every kind of work beyond the bill (${EXTRA_KEYS.length}) before you submit: priced, included or not offered.`;
+
 const issue = (ctx: z.RefinementCtx, path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
 
 /** A typed price: readable, not negative, within a billion; `required` when it must be there. */
@@ -115,7 +119,10 @@ function checkOfferExtras(bid: BidFields, ctx: z.RefinementCtx, submitting: bool
     if (kinds.has(extra.kind)) issue(ctx, ["extras", i, "kind"], "This kind of work is listed twice.");
     kinds.add(extra.kind);
     if (extra.answer === "priced") checkPrice(ctx, ["extras", i, "price"], extra.price, "Enter the price, or choose included or not offered.");
+    if (submitting && !extra.answer) issue(ctx, ["extras", i, "answer"], UNANSWERED);
   });
+  // A kind left out of the post is as unanswered as one left open: the buyer must not read "not offered" into it.
+  if (submitting && EXTRA_KEYS.some((k) => !kinds.has(k))) issue(ctx, ["extras"], UNANSWERED_KINDS);
   bid.ownLines?.forEach((line, i) => {
     if (!line.name && !line.price) return; // an empty row of the form
     if (!line.name) issue(ctx, ["ownLines", i, "name"], "Name the line.");

@@ -95,11 +95,10 @@ const cents = (text: string | undefined) => (text ? (parseMoney(text) ?? 0) : 0)
 
 /** The parts of an offer beyond the bill, from the parsed form (blank rows dropped). */
 function offerPartsOf(input: BidInput, units: number) {
-  const extras: OfferExtra[] = (input.extras ?? []).map((e) => ({
-    kind: e.kind,
-    answer: e.answer,
-    priceCents: e.answer === "priced" ? cents(e.price) : null,
-  }));
+  // A draft keeps only the kinds answered so far; the form shows the others open again.
+  const extras: OfferExtra[] = (input.extras ?? []).flatMap(({ kind, answer, price }) =>
+    answer ? [{ kind, answer, priceCents: answer === "priced" ? cents(price) : null }] : [],
+  );
   const ownLines: OwnLine[] = (input.ownLines ?? []).filter((l) => l.name).map((l) => ({ name: l.name!, priceCents: cents(l.price) }));
   const offerTerms: OfferTerms = {
     incoterm: input.incoterm ?? null,

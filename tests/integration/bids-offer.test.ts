@@ -147,6 +147,37 @@ describe("an offer beyond the bill", () => {
     expect((await refused({ "ownLines[0].name": "Survey" })).error["ownLines[0].price"][0]).toBe("Enter the price (0 if included).");
   });
 
+  it("starts every kind of work open and will not submit one left open; a draft may leave them open", async () => {
+    const { spec, bom } = await setting();
+    const shop = await signedIn(await makeMember("shop"));
+    const fresh = await shop.get(bidRoute.loader, `/specs/${spec.id}/bid`, { specId: spec.id });
+    expect(fresh.data.defaults.extras.map((e: { answer: string }) => e.answer)).toEqual(EXTRA_KEYS.map(() => ""));
+
+    // The form posts every kind; assembly answered, the rest left open.
+    const open = { ...extrasFields({ assembly: "900" }) };
+    for (let i = 1; i < EXTRA_KEYS.length; i++) open[`extras[${i}].answer`] = "";
+    const submitted = await postBid(shop, spec.id, { intent: "submit", ...bidFields(bom, () => "10"), ...open });
+    expect(submitted.status).toBe(400);
+    const error = submitted.data.result.error as Record<string, string[]>;
+    for (let i = 1; i < EXTRA_KEYS.length; i++) expect(error[`extras[${i}].answer`]).toEqual(["Choose priced, included or not offered before you submit."]);
+    expect(error["extras[0].answer"]).toBeUndefined();
+    expect(await Bid.count({ where: { specId: spec.id } })).toBe(0);
+    // Kinds missing from the post altogether are refused too.
+    const withoutTraining = Object.fromEntries(
+      Object.entries(bidFields(bom, () => "10")).filter(([name]) => !name.startsWith(`extras[${EXTRA_KEYS.length - 1}]`)),
+    );
+    const partial = await postBid(shop, spec.id, { intent: "submit", ...withoutTraining });
+    expect(partial.status).toBe(400);
+    expect(partial.data.result.error.extras[0]).toMatch(/^Answer every kind of work beyond the bill \(7\) before you submit/);
+
+    const draft = await postBid(shop, spec.id, { intent: "save", ...bidFields(bom, () => "10"), ...open });
+    expect(draft.status).toBe(302);
+    const saved = await Bid.findOne({ where: { specId: spec.id }, rejectOnEmpty: true });
+    expect(saved.extras).toEqual([{ kind: "assembly", answer: "priced", priceCents: 90_000 }]);
+    const again = await shop.get(bidRoute.loader, `/specs/${spec.id}/bid`, { specId: spec.id });
+    expect(again.data.defaults.extras.map((e: { answer: string }) => e.answer)).toEqual(["priced", ...EXTRA_KEYS.slice(1).map(() => "")]);
+  });
+
   it("is refused before any route reads it when a field carries a NUL or comes twice", async () => {
     const { spec } = await setting();
     const send = (body: string) =>

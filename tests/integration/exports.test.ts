@@ -18,6 +18,7 @@ import * as specPage from "~/routes/spec";
 import { warningTitle } from "~/content/warning-titles";
 import { CIRCUIT_CAUTIONS } from "~/content/cautions";
 import { formatMoney } from "~/content/money";
+import { EXTRA_KEYS } from "~/content/offer-terms";
 import { ENGINE_VERSION, type BomLine, type Design } from "~/hydraulics";
 import { Bid, Job, Organisation, SpecRevision, User, type Spec } from "~/models/index.server";
 import { bomOf } from "~/services/bids.server";
@@ -25,6 +26,7 @@ import { safeFileStem, workbookFileName } from "~/services/exports/file-name";
 import { createDraft, publish, saveStep, startRevision } from "~/services/specs.server";
 import { SPEC_ANSWERS, inDays, makeMember, makeOperatorUser, makePublishedSpec } from "../support/factories";
 import { Visitor } from "../support/routes";
+import { NO_EXTRAS } from "../support/bid-form";
 import { signedIn } from "../support/sessions";
 import { centsAt, evaluate, factsOf, formulaOf, openWorkbook, parseCsv, rowOf, rowValues } from "../support/workbooks";
 
@@ -44,7 +46,8 @@ let firstBom: BomLine[];
 let bom: BomLine[];
 let design: Design;
 
-const COMMISSIONING = { "extras[0].kind": "commissioning", "extras[0].answer": "priced", "extras[0].price": "150" };
+const commissioning = EXTRA_KEYS.indexOf("commissioning");
+const COMMISSIONING = { [`extras[${commissioning}].answer`]: "priced", [`extras[${commissioning}].price`]: "150" };
 
 async function offer(
   visitor: Visitor,
@@ -53,7 +56,7 @@ async function offer(
   alternative: { line: number; description: string },
   extra: Record<string, string>,
 ) {
-  const fields: Record<string, string> = { intent: "submit", validUntil: inDays(60), ...extra };
+  const fields: Record<string, string> = { intent: "submit", validUntil: inDays(60), ...NO_EXTRAS, ...extra };
   lines.forEach((line, i) => {
     fields[`lines[${i}].key`] = line.key;
     fields[`lines[${i}].unitPrice`] = price(i);
@@ -517,9 +520,10 @@ describe("comparison of the offers", () => {
       expect(centsAt(sheet, `${L}${row("Offer total")}`)).toBe(bid.totalCents);
       expect(Math.round(Number(evaluate(sheet, `${L}${row("Offer total")}`)) * 100)).toBe(bid.totalCents);
       const commissioning = sheet.getCell(`${L}${row("Commissioning on site (whole order)")}`);
-      if (bid.extras.length) expect(centsAt(sheet, commissioning.address)).toBe(15_000);
+      const pricesCommissioning = bid.extras.some((e) => e.kind === "commissioning" && e.answer === "priced");
+      if (pricesCommissioning) expect(centsAt(sheet, commissioning.address)).toBe(15_000);
       else expect(commissioning.value).toBe("Not offered");
-      expect(sheet.getCell(`${L}${row("Leaves out")}`).text).toContain(bid.extras.length ? "no training offered" : "no commissioning on site offered");
+      expect(sheet.getCell(`${L}${row("Leaves out")}`).text).toContain(pricesCommissioning ? "no training offered" : "no commissioning on site offered");
       expect(sheet.getCell(`${L}${row("Lead time (weeks)")}`).value).toBe(bid.leadTimeWeeks);
       expect(sheet.getCell(`${L}${row("Valid until")}`).value).toEqual(new Date(`${bid.validUntil}T00:00:00Z`));
       expect(sheet.getCell(`${L}${row("Valid until")}`).numFmt).toBe("d mmm yyyy");

@@ -4,8 +4,13 @@ import type { Page } from "playwright-core";
 import { hydrated } from "./browser";
 import { inDays } from "./factories";
 
-/** Lead time, validity and the structured terms: ex works Leeds by default, 30 days net, a year's warranty. */
+/**
+ * Lead time, validity and the structured terms: ex works Leeds by default, 30 days net, a year's
+ * warranty; every kind of work beyond the bill not answered yet is answered "not offered".
+ */
 export async function fillOfferTerms(page: Page, leadWeeks: string, terms: { incoterm?: string; place?: string } = {}) {
+  const answers = page.locator("tr[data-extra] select");
+  for (let i = 0; i < (await answers.count()); i++) if ((await answers.nth(i).inputValue()) === "") await answers.nth(i).selectOption("not_offered");
   await page.getByLabel("Delivery terms (Incoterms 2020)").selectOption(terms.incoterm ?? "EXW");
   await page.getByLabel(/^Place: the named/).fill(terms.place ?? "Leeds works");
   await page.getByLabel("Rest: days after invoice").fill("30");

@@ -1,7 +1,16 @@
 import { getInputProps, getSelectProps, getTextareaProps, type FieldMetadata, type FormMetadata } from "@conform-to/react";
 import { FieldErrors, SelectField, TextField } from "./form-field";
 import { Button, Card, TableScroll } from "./ui";
-import { EXTRA_ANSWER_LABELS, EXTRA_ANSWERS, EXTRA_KINDS, INCOTERMS_2020, INCOTERM_CODES, OFFER_LIMITS, type ExtraKind } from "~/content/offer-terms";
+import {
+  EXTRA_ANSWER_LABELS,
+  EXTRA_ANSWERS,
+  EXTRA_KINDS,
+  INCOTERMS_2020,
+  INCOTERM_CODES,
+  OFFER_LIMITS,
+  retainerShareText,
+  type ExtraKind,
+} from "~/content/offer-terms";
 
 // The bid form's parts beyond the bill: the work a shop sells with a power unit and its own
 // lines, the delivery and payment terms, and an alternative circuit. Fields are Conform's, so
@@ -10,8 +19,7 @@ import { EXTRA_ANSWER_LABELS, EXTRA_ANSWERS, EXTRA_KINDS, INCOTERMS_2020, INCOTE
 // Typed by the form's values as the page starts them (text, as typed); the schema judges them.
 type BidForm = FormMetadata;
 type Meta = FieldMetadata<string | undefined>;
-type TermsField =
-  "incoterm" | "place" | "retainerPercent" | "onDeliveryPercent" | "balanceDays" | "warrantyMonths" | "leadTimeWeeks" | "validUntil" | "validDays";
+type TermsField = "incoterm" | "place" | "onDeliveryPercent" | "balanceDays" | "warrantyMonths" | "leadTimeWeeks" | "validUntil" | "validDays";
 interface BidFields extends Record<TermsField | "alternativeDescription", Meta> {
   extras: FieldMetadata<{ kind: string; answer: string; price: string }[]>;
   ownLines: FieldMetadata<{ name: string; price: string }[]>;
@@ -163,11 +171,13 @@ export function OfferTermsFields({ fields, retainerPercent }: { fields: BidField
         <fieldset className="sm:col-span-2">
           <legend className="text-sm font-semibold text-ink-800">Payment</legend>
           <p className="text-sm text-ink-600">
-            Percent of the price with the order and on delivery; the rest is due the days after invoice you state.
-            {retainerPercent && Number(retainerPercent) > 0 ? ` The buyer pays a retainer of ${Number(retainerPercent)} % through the portal on award.` : ""}
+            The share with the order is the spec's retainer, set by the buyer; state the share on delivery and the days after invoice for the rest.
           </p>
-          <div className="mt-2 grid gap-4 sm:grid-cols-3">
-            <TextField meta={fields.retainerPercent} label="With the order (%)" inputMode="numeric" />
+          {/* Read-only: the one share the portal collects, so the offer's terms and the job's retainer agree. */}
+          <p className="mt-2 text-sm font-semibold text-ink-800" data-retainer-share="">
+            {retainerShareText(Number(retainerPercent ?? 0))}
+          </p>
+          <div className="mt-2 grid gap-4 sm:grid-cols-2">
             <TextField meta={fields.onDeliveryPercent} label="On delivery (%)" inputMode="numeric" />
             <TextField meta={fields.balanceDays} label="Rest: days after invoice" inputMode="numeric" />
           </div>

@@ -20,7 +20,6 @@ export function offerDefaults(
     ownLines: (bid?.ownLines ?? []).map((l) => ({ name: l.name, price: centsToInput(l.priceCents) })),
     incoterm: terms.incoterm ?? "",
     place: terms.place,
-    retainerPercent: numberText(terms.retainerPercent),
     onDeliveryPercent: numberText(terms.onDeliveryPercent),
     balanceDays: numberText(terms.balanceDays),
     warrantyMonths: numberText(terms.warrantyMonths),

@@ -62,7 +62,10 @@ export const OFFER_LIMITS = { ownLines: 10, alternativeLines: 30, ownLineName: 1
 export interface OfferTerms {
   incoterm: Incoterm | null;
   place: string;
-  /** percent of the price with the order, on delivery; the rest is due `balanceDays` after invoice */
+  /**
+   * percent of the price with the order (the spec's retainer: see termsWithRetainer), on
+   * delivery; the rest is due `balanceDays` after invoice
+   */
   retainerPercent: number | null;
   onDeliveryPercent: number | null;
   balanceDays: number | null;
@@ -92,12 +95,33 @@ export function deliveryText(terms: Pick<OfferTerms, "incoterm" | "place">): str
   return `${terms.incoterm}${place ? ` ${place}` : ""} (${INCOTERMS_2020[terms.incoterm].name}, Incoterms 2020)`;
 }
 
-/** "30 % with the order, 60 % on delivery, 10 % 30 days after invoice"; null while not stated. */
+/**
+ * The payment terms beside the portal's retainer: the share with the order IS the spec's retainer
+ * (the buyer pays it by card through Tenderflow on award), whatever an offer stored before this
+ * rule said; an older offer's share on delivery gives way so the shares add up to at most 100 %.
+ */
+export function termsWithRetainer(terms: OfferTerms, retainerPercent: number | string | null): OfferTerms {
+  if (retainerPercent === null) return terms;
+  const retainer = Number(retainerPercent);
+  const onDelivery = terms.onDeliveryPercent === null ? null : Math.min(terms.onDeliveryPercent, 100 - retainer);
+  return { ...terms, retainerPercent: retainer, onDeliveryPercent: onDelivery };
+}
+
+/** The share with the order in words: "20 % with the order: the retainer, paid by card through Tenderflow". */
+export const retainerShareText = (percent: number) => `${percent} % with the order: the retainer, paid by card through Tenderflow`;
+
+/** Whether a shop's share on delivery fits beside the retainer; the problem in words if not. */
+export function onDeliveryProblem(retainerPercent: number, onDeliveryPercent: number | undefined): string | null {
+  const upFront = retainerPercent + (onDeliveryPercent ?? 0);
+  return upFront > 100 ? `The retainer (${retainerPercent} %) and on delivery add up to ${upFront} %; at most ${100 - retainerPercent} % on delivery.` : null;
+}
+
+/** "20 % with the order (the retainer, paid by card through Tenderflow), 70 % on delivery, 10 % 30 days after invoice"; null while not stated. */
 export function paymentText(terms: Pick<OfferTerms, "retainerPercent" | "onDeliveryPercent" | "balanceDays">): string | null {
   const { retainerPercent: first, onDeliveryPercent: delivery, balanceDays } = terms;
   if (first === null && delivery === null && balanceDays === null) return null;
   const rest = 100 - (first ?? 0) - (delivery ?? 0);
-  const parts = [first ? `${first} % with the order` : "", delivery ? `${delivery} % on delivery` : ""];
+  const parts = [first ? `${first} % with the order (the retainer, paid by card through Tenderflow)` : "", delivery ? `${delivery} % on delivery` : ""];
   if (rest > 0) parts.push(`${rest} % ${balanceDays ? `${balanceDays} days after invoice` : "on invoice"}`);
   return parts.filter(Boolean).join(", ");
 }

@@ -13,7 +13,7 @@ import { Badge, Button, Card, Notice, PageHeader, TableScroll } from "~/componen
 import { BID_STATUS_LABELS, BID_STATUS_TONES, type BidStatus } from "~/content/bid-status";
 import { centsToInput, formatMoney, parseMoney } from "~/content/money";
 import { offerDefaults, typedExtras, typedOwnLines } from "~/content/offer-form";
-import { bidSchema, linesMatchBill } from "~/schemas/bid";
+import { bidSchemaFor, linesMatchBill } from "~/schemas/bid";
 import { bidOfShop, billOfRevision, bomOf, historyOf, saveBid, withdrawBid } from "~/services/bids.server";
 import { servedBy } from "~/services/published-design";
 import { ownOfferDocuments } from "~/services/offer-documents.server";
@@ -102,7 +102,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     }
     return redirectWithToast(request, back, "Your offer has been taken back. You can offer again until the deadline.");
   }
-  const submission = parseWithZod(formData, { schema: bidSchema });
+  const submission = parseWithZod(formData, { schema: bidSchemaFor(Number(spec.retainerPercent ?? 0)) });
   const bom = await bomOf(spec);
   if (
     !linesMatchBill(
@@ -138,7 +138,7 @@ export default function SpecBid({ loaderData: d, actionData }: Route.ComponentPr
   const [form, fields] = useForm({
     lastResult: navigation.state === "idle" ? actionData?.result : null,
     defaultValue: d.defaults,
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: bidSchema }),
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: bidSchemaFor(Number(d.spec.retainerPercent ?? 0)) }),
     shouldValidate: "onBlur",
     shouldRevalidate: "onInput",
   });

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { MAX_UNIT_PRICE_CENTS, moneyProblem, parseMoney } from "~/content/money";
 import { addDays, isIsoDay, todayUtc as today } from "~/content/dates";
-import { EXTRA_ANSWERS, EXTRA_KEYS, INCOTERM_CODES, OFFER_LIMITS } from "~/content/offer-terms";
+import { EXTRA_ANSWERS, EXTRA_KEYS, INCOTERM_CODES, OFFER_LIMITS, onDeliveryProblem } from "~/content/offer-terms";
 
 // The bid form's schema, shared by the action and the Conform form. A draft may leave prices
 // and terms open; a submitted offer prices every line and states lead time and validity.
@@ -65,7 +65,6 @@ const bidFields = z.object({
   ownLines: z.array(ownLineSchema).max(OFFER_LIMITS.ownLines, `At most ${OFFER_LIMITS.ownLines} lines of your own.`).optional(),
   incoterm: z.enum(INCOTERM_CODES, { error: INCOTERM_ERROR }).optional(),
   place: optionalText(OFFER_LIMITS.place),
-  retainerPercent: wholeNumber("the percentage", 0, 100),
   onDeliveryPercent: wholeNumber("the percentage", 0, 100),
   balanceDays: wholeNumber("the days", 0, 365),
   warrantyMonths: wholeNumber("the months", 0, 120),
@@ -77,22 +76,28 @@ const bidFields = z.object({
   notes: optionalText(4000),
 });
 
-export const bidSchema = bidFields.superRefine((bid, ctx) => {
-  const submitting = bid.intent === "submit";
-  bid.lines.forEach((line, i) => {
-    checkPrice(ctx, ["lines", i, "unitPrice"], line.unitPrice, submitting ? "Price every line before you submit (0 if it is included elsewhere)." : null);
-    if (line.alternative && !line.alternativeDescription) {
-      ctx.addIssue({ code: "custom", path: ["lines", i, "alternativeDescription"], message: "Describe the part you offer instead." });
-    }
+/**
+ * The bid form's schema on a spec whose retainer is `retainerPercent`: the share with the order,
+ * paid through the portal, so the shop states only the share on delivery and when the rest is due.
+ */
+export const bidSchemaFor = (retainerPercent: number) =>
+  bidFields.superRefine((bid, ctx) => {
+    const submitting = bid.intent === "submit";
+    bid.lines.forEach((line, i) => {
+      checkPrice(ctx, ["lines", i, "unitPrice"], line.unitPrice, submitting ? "Price every line before you submit (0 if it is included elsewhere)." : null);
+      if (line.alternative && !line.alternativeDescription) {
+        ctx.addIssue({ code: "custom", path: ["lines", i, "alternativeDescription"], message: "Describe the part you offer instead." });
+      }
+    });
+    if (submitting && bid.leadTimeWeeks === undefined) ctx.addIssue({ code: "custom", path: ["leadTimeWeeks"], message: "Enter the lead time in weeks." });
+    if (bid.validUntil && bid.validDays !== undefined)
+      ctx.addIssue({ code: "custom", path: ["validDays"], message: "Give a date or a number of days, not both." });
+    if (submitting && !bid.validUntil && bid.validDays === undefined)
+      ctx.addIssue({ code: "custom", path: ["validUntil"], message: "Enter how long the offer is valid: a date, or a number of days." });
+    if (bid.validUntil && bid.validUntil <= today()) ctx.addIssue({ code: "custom", path: ["validUntil"], message: "The offer must be valid beyond today." });
+    checkOfferExtras(bid, ctx, submitting);
+    checkPayment(bid, ctx, submitting, retainerPercent);
   });
-  if (submitting && bid.leadTimeWeeks === undefined) ctx.addIssue({ code: "custom", path: ["leadTimeWeeks"], message: "Enter the lead time in weeks." });
-  if (bid.validUntil && bid.validDays !== undefined)
-    ctx.addIssue({ code: "custom", path: ["validDays"], message: "Give a date or a number of days, not both." });
-  if (submitting && !bid.validUntil && bid.validDays === undefined)
-    ctx.addIssue({ code: "custom", path: ["validUntil"], message: "Enter how long the offer is valid: a date, or a number of days." });
-  if (bid.validUntil && bid.validUntil <= today()) ctx.addIssue({ code: "custom", path: ["validUntil"], message: "The offer must be valid beyond today." });
-  checkOfferExtras(bid, ctx, submitting);
-});
 
 const UNANSWERED = "Choose priced, included or not offered before you submit.";
 const UNANSWERED_KINDS = `Answer every kind of work beyond the bill (${EXTRA_KEYS.length}) before you submit: priced, included or not offered.`;
@@ -130,10 +135,6 @@ function checkOfferExtras(bid: BidFields, ctx: z.RefinementCtx, submitting: bool
   });
   if (bid.incoterm && !bid.place) issue(ctx, ["place"], `Name the place for ${bid.incoterm}, e.g. the town of your works.`);
   if (submitting && !bid.incoterm) issue(ctx, ["incoterm"], "Choose the delivery terms (an Incoterms 2020 rule).");
-  const upFront = (bid.retainerPercent ?? 0) + (bid.onDeliveryPercent ?? 0);
-  if (upFront > 100) issue(ctx, ["onDeliveryPercent"], `With the order and on delivery add up to ${upFront} %; at most 100 %.`);
-  else if (submitting && upFront < 100 && bid.balanceDays === undefined)
-    issue(ctx, ["balanceDays"], `Say when the remaining ${100 - upFront} % is due: days after invoice (0 for on invoice).`);
   if (submitting && bid.warrantyMonths === undefined) issue(ctx, ["warrantyMonths"], "Enter the warranty in months (0 for none).");
   const altLines = (bid.alternativeLines ?? []).map((l, i) => [l, i] as const).filter(([l]) => l.name || l.price || l.quantity !== undefined);
   if (altLines.length && !bid.alternativeDescription) issue(ctx, ["alternativeDescription"], "Describe the circuit you propose instead, and how it differs.");
@@ -145,11 +146,20 @@ function checkOfferExtras(bid: BidFields, ctx: z.RefinementCtx, submitting: bool
   }
 }
 
+/** The share on delivery beside the retainer, and when the rest is due. */
+function checkPayment(bid: BidFields, ctx: z.RefinementCtx, submitting: boolean, retainerPercent: number) {
+  const problem = onDeliveryProblem(retainerPercent, bid.onDeliveryPercent);
+  const upFront = retainerPercent + (bid.onDeliveryPercent ?? 0);
+  if (problem) issue(ctx, ["onDeliveryPercent"], problem);
+  else if (submitting && upFront < 100 && bid.balanceDays === undefined)
+    issue(ctx, ["balanceDays"], `Say when the remaining ${100 - upFront} % is due: days after invoice (0 for on invoice).`);
+}
+
 /** The day an offer is valid until: the date given, or today plus the days given. */
 export const validUntilOf = (bid: Pick<BidInput, "validUntil" | "validDays">) =>
   bid.validUntil ?? (bid.validDays !== undefined ? addDays(today(), bid.validDays) : undefined);
 
-export type BidInput = z.output<typeof bidSchema>;
+export type BidInput = z.output<ReturnType<typeof bidSchemaFor>>;
 
 const LINE_FIELD = /^lines\[(\d+)\]\.(key|unitPrice|alternative|alternativeDescription)$/;
 

@@ -4,7 +4,15 @@ import { Bid, BidVersion, Organisation, Spec, SpecRevision, User, sequelize } fr
 import type { BidLine, BidOffer } from "~/models/bid.server";
 import { validUntilOf, type BidInput } from "~/schemas/bid";
 import { parseMoney } from "~/content/money";
-import { alternativeTotals, offerTotals, type AlternativeCircuit, type OfferExtra, type OfferTerms, type OwnLine } from "~/content/offer-terms";
+import {
+  alternativeTotals,
+  offerTotals,
+  termsWithRetainer,
+  type AlternativeCircuit,
+  type OfferExtra,
+  type OfferTerms,
+  type OwnLine,
+} from "~/content/offer-terms";
 import { compareBids, type ComparisonSort } from "./bid-comparison";
 import { axisNamesOf, publishedDesignOf } from "./published-design";
 import { FieldErrors, notFound } from "./errors.server";
@@ -94,7 +102,7 @@ function priceLines(bom: BomLine[], input: BidInput["lines"]): BidLine[] {
 const cents = (text: string | undefined) => (text ? (parseMoney(text) ?? 0) : 0);
 
 /** The parts of an offer beyond the bill, from the parsed form (blank rows dropped). */
-function offerPartsOf(input: BidInput, units: number) {
+function offerPartsOf(input: BidInput, units: number, spec: Pick<Spec, "retainerPercent">) {
   // A draft keeps only the kinds answered so far; the form shows the others open again.
   const extras: OfferExtra[] = (input.extras ?? []).flatMap(({ kind, answer, price }) =>
     answer ? [{ kind, answer, priceCents: answer === "priced" ? cents(price) : null }] : [],
@@ -103,7 +111,8 @@ function offerPartsOf(input: BidInput, units: number) {
   const offerTerms: OfferTerms = {
     incoterm: input.incoterm ?? null,
     place: input.place ?? "",
-    retainerPercent: input.retainerPercent ?? null,
+    // The share with the order is the spec's retainer, paid through the portal (not the shop's to set).
+    retainerPercent: spec.retainerPercent === null ? null : Number(spec.retainerPercent),
     onDeliveryPercent: input.onDeliveryPercent ?? null,
     balanceDays: input.balanceDays ?? null,
     warrantyMonths: input.warrantyMonths ?? null,
@@ -139,7 +148,7 @@ export async function saveBid(user: User, specId: string | undefined, input: Bid
     }
     const lines = priceLines(await bomOf(fresh, fresh.currentRevision, transaction), input.lines);
     const units = fresh.unitsWanted ?? 1;
-    const parts = offerPartsOf(input, units);
+    const parts = offerPartsOf(input, units, fresh);
     const { setTotalCents, totalCents } = offerTotals(
       lines.map((l) => ({ quantity: l.quantity, unitPriceCents: l.unitPriceCents ?? 0 })),
       units,
@@ -275,7 +284,7 @@ export async function comparisonOf(user: User, spec: Spec, sort: ComparisonSort 
       validUntil: b.validUntil,
       extras: b.extras,
       ownLines: b.ownLines,
-      offerTerms: b.offerTerms,
+      offerTerms: b.offerTerms && termsWithRetainer(b.offerTerms, spec.retainerPercent),
       alternativeCircuit: b.alternativeCircuit,
       notes: b.notes,
     })),

@@ -11,6 +11,7 @@ import {
   leavesOut,
   offerTotals,
   paymentText,
+  termsWithRetainer,
   warrantyText,
   type AlternativeCircuit,
   type OfferTerms,
@@ -54,8 +55,10 @@ export interface OfferSummary {
   notes: string;
 }
 
-export function offerSummary(offer: SummarisedOffer): OfferSummary {
-  const terms = offer.offerTerms ?? NO_TERMS;
+/** `retainerPercent`: the spec's (or job's) retainer, the share with the order whatever the offer stored. */
+export function offerSummary(offer: SummarisedOffer, retainerPercent: number | string | null): OfferSummary {
+  // An offer made before structured terms states none: no retainer share is put in its mouth.
+  const terms = offer.offerTerms ? termsWithRetainer(offer.offerTerms, retainerPercent) : NO_TERMS;
   const extras = extrasInOrder(offer.extras ?? []);
   const ownLines = offer.ownLines ?? [];
   const lines = offer.lines.map((l) => {

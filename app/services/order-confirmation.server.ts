@@ -28,7 +28,7 @@ export async function makeOrderConfirmation(
     buyer,
     shop,
     awardedBy: args.awardedBy.name,
-    offer: offerSummary(bid),
+    offer: offerSummary(bid, job.retainerPercent),
     totalCents: job.totalCents,
     retainerPercent: job.retainerPercent,
     retainerCents: job.retainerCents,

@@ -568,7 +568,10 @@ async function seedSpecs(sequelize: Sequelize, transaction: Transaction, userIds
           userIds,
           orgIds,
           flat,
-          summary: offerSummary({ lines, units, currency: flat.currency, leadTimeWeeks: offer.leadTimeWeeks, validUntil: inDays(45), notes: "", ...parts }),
+          summary: offerSummary(
+            { lines, units, currency: flat.currency, leadTimeWeeks: offer.leadTimeWeeks, validUntil: inDays(45), notes: "", ...parts },
+            flat.retainerPercent ?? null,
+          ),
         });
     }
     if (flat.title === "Panel press, main ram") await seedQuestions(sequelize, transaction, row.id, userIds, orgIds);

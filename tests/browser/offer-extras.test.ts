@@ -35,7 +35,8 @@ beforeAll(async () => {
     ],
     incoterm: "DAP",
     place: "Calder works",
-    onDeliveryPercent: 100,
+    // The rest of the 20 % retainer, paid through the portal.
+    onDeliveryPercent: 80,
     warrantyMonths: 18,
     alternativeDescription: "A servo-driven pump in place of the fixed pump and its motor: it runs only while the ram moves.",
     alternativeLines: [
@@ -121,7 +122,9 @@ describe("an offer beyond the bill", () => {
     expect(await cell("leaves-out", "Moorgate Fluid Power").textContent()).toContain("no commissioning on site offered");
     expect(await cell("delivery", "Tarnside Hydraulics").textContent()).toBe("FCA Tarnside works (Free Carrier, Incoterms 2020)");
     expect(await cell("delivery", "Moorgate Fluid Power").textContent()).toBe("DAP Calder works (Delivered at Place, Incoterms 2020)");
-    expect(await cell("payment", "Moorgate Fluid Power").textContent()).toBe("100 % on delivery");
+    expect(await cell("payment", "Moorgate Fluid Power").textContent()).toBe(
+      "20 % with the order (the retainer, paid by card through Tenderflow), 80 % on delivery",
+    );
     expect(await comparison.locator("[data-own-lines]").textContent()).toContain("Spare seal kit");
     const link = comparison.locator(`[data-documents="${bid.id}"] a`);
     expect(await link.textContent()).toBe("Quotation Q-3107.pdf");

@@ -41,7 +41,7 @@ describe("an offer beyond the bill", () => {
 
     const sent = await postBid(full, spec.id, {
       intent: "submit",
-      ...bidFields(bom, () => "100", { validUntil: "", validDays: "45", incoterm: "DAP", place: "Porto", retainerPercent: "30", onDeliveryPercent: "60" }),
+      ...bidFields(bom, () => "100", { validUntil: "", validDays: "45", incoterm: "DAP", place: "Porto", onDeliveryPercent: "60" }),
       ...extrasFields({ assembly: "1,200", wiring: "included", commissioning: "1500.50", training: "600" }),
       "ownLines[0].name": "Spare seal kit",
       "ownLines[0].price": "280",
@@ -56,7 +56,8 @@ describe("an offer beyond the bill", () => {
       where: { specId: spec.id, organisationId: (await Bid.findOne({ where: { specId: spec.id } }))!.organisationId },
       rejectOnEmpty: true,
     });
-    expect(bid.offerTerms).toEqual({ incoterm: "DAP", place: "Porto", retainerPercent: 30, onDeliveryPercent: 60, balanceDays: 30, warrantyMonths: 12 });
+    // The share with the order is the spec's retainer (20 %), not the shop's to set.
+    expect(bid.offerTerms).toEqual({ incoterm: "DAP", place: "Porto", retainerPercent: 20, onDeliveryPercent: 60, balanceDays: 30, warrantyMonths: 12 });
     expect(bid.validUntil).toBe(addDays(todayUtc(), 45));
     expect(bid.ownLines).toEqual([
       { name: "Spare seal kit", priceCents: 28_000 },
@@ -68,16 +69,18 @@ describe("an offer beyond the bill", () => {
     // 1200 + 1500.50 + 600 = 3300.50 and the own lines 280, each once for the order.
     const bill = bom.reduce((sum, l) => sum + l.quantity * 10_000, 0) * 2;
     expect(bid.totalCents).toBe(bill + 330_050 + 28_000);
-    const summary = offerSummary(bid);
+    const summary = offerSummary(bid, spec.retainerPercent);
     expect(summary.totals).toMatchObject({ billCents: bill, extrasCents: 330_050, ownLinesCents: 28_000, totalCents: bid.totalCents });
-    expect(summary.termsText[1]).toBe("Payment: 30 % with the order, 60 % on delivery, 10 % 30 days after invoice.");
+    expect(summary.termsText[1]).toBe(
+      "Payment: 20 % with the order (the retainer, paid by card through Tenderflow), 60 % on delivery, 20 % 30 days after invoice.",
+    );
     // The history keeps the whole offer, extras and terms included.
     const version = await BidVersion.findOne({ where: { bidId: bid.id }, rejectOnEmpty: true });
     expect(version.offer).toMatchObject({ extras: bid.extras, ownLines: bid.ownLines, offerTerms: bid.offerTerms, totalCents: bid.totalCents });
 
     // The form comes back as it was sent.
     const form = await full.get(bidRoute.loader, `/specs/${spec.id}/bid`, { specId: spec.id });
-    expect(form.data.defaults).toMatchObject({ incoterm: "DAP", place: "Porto", retainerPercent: "30", onDeliveryPercent: "60", balanceDays: "30" });
+    expect(form.data.defaults).toMatchObject({ incoterm: "DAP", place: "Porto", onDeliveryPercent: "60", balanceDays: "30" });
     expect(form.data.defaults.extras[5]).toEqual({ kind: "commissioning", answer: "priced", price: "1500.50" });
     expect(form.data.defaults.ownLines).toEqual([
       { name: "Spare seal kit", price: "280.00" },
@@ -135,8 +138,9 @@ describe("an offer beyond the bill", () => {
     expect((await refused({ ...extrasFields({}), "extras[6].answer": "priced" })).error["extras[6].price"][0]).toBe(
       "Enter the price, or choose included or not offered.",
     );
-    expect((await refused({ retainerPercent: "60", onDeliveryPercent: "50" })).error.onDeliveryPercent[0]).toBe(
-      "With the order and on delivery add up to 110 %; at most 100 %.",
+    // A share with the order posted anyway is not the shop's to set: the retainer counts.
+    expect((await refused({ retainerPercent: "0", onDeliveryPercent: "90" })).error.onDeliveryPercent[0]).toBe(
+      "The retainer (20 %) and on delivery add up to 110 %; at most 80 % on delivery.",
     );
     expect((await refused({ incoterm: "", place: "" })).error.incoterm[0]).toBe("Choose the delivery terms (an Incoterms 2020 rule).");
     expect((await refused({ warrantyMonths: "" })).error.warrantyMonths[0]).toMatch(/warranty in months/);
@@ -243,6 +247,6 @@ describe("an alternative circuit", () => {
     expect(otherway.alternativeCircuit).toMatchObject({ description: expect.stringMatching(/load-sensing/) });
     expect(otherway.likeForLikeCents).toBe(bid.setTotalCents * 2);
     expect(columns.find((c) => c.shop === "Plainline Hydraulics")!.cheapestComplete).toBe(true);
-    expect(offerSummary(bid).alternative).toEqual(bid.alternativeCircuit);
+    expect(offerSummary(bid, null).alternative).toEqual(bid.alternativeCircuit);
   });
 });

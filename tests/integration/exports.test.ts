@@ -419,8 +419,9 @@ describe("priced bill of the awarded bid", () => {
     for (const r of [set, total, retainer, charged]) expect(sheet.getCell(r, 6).numFmt).toBe(GBP);
     // The stored results agree with the formulas, for viewers that never recalculate.
     for (const r of [set, total, retainer]) expect((sheet.getCell(r, 6).value as { result: number }).result).toBe(evaluate(sheet, `F${r}`));
-    expect(sheet.getCell(rowOf(sheet, "Terms"), 2).text).toMatch(
-      /^Delivery: EXW Leeds \(Ex Works, Incoterms 2020\)\. Payment: 100 % 30 days after invoice\. 12 months warranty\./,
+    const retainerShare = Number(job.retainerPercent);
+    expect(sheet.getCell(rowOf(sheet, "Terms"), 2).text).toContain(
+      `Delivery: EXW Leeds (Ex Works, Incoterms 2020). Payment: ${retainerShare} % with the order (the retainer, paid by card through Tenderflow), ${100 - retainerShare} % 30 days after invoice. 12 months warranty.`,
     );
     expectSensibleWidths(sheet, 8);
     expectCautions(workbook.getWorksheet("Cautions")!, design.warnings);

@@ -63,6 +63,11 @@ describe("made at the award", () => {
     expect(order.terms).toEqual(
       expect.arrayContaining([expect.stringMatching(/^Delivery: EXW Works/), expect.stringMatching(/^Payment: .*30 days after invoice/)]),
     );
+    // The share with the order is the job's retainer, whatever the stored offer said: the two agree.
+    const share = Number(job.retainerPercent);
+    expect(order.terms).toContain(
+      `Payment: ${share} % with the order (the retainer, paid by card through Tenderflow), ${100 - share} % 30 days after invoice.`,
+    );
     expect(order.totalCents).toBe(1_409_567);
     expect(order.retainerCents).toBe(job.retainerCents);
     expect(order.retainerCents).toBe(retainerCents(1_409_567, job.retainerPercent));

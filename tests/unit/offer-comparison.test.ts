@@ -5,7 +5,7 @@ import type { BomLine } from "~/hydraulics";
 import { compareBids, type ComparedBid } from "~/services/bid-comparison";
 import { comparedBid } from "../support/compared-bids";
 import { offerSummary } from "~/services/offer-summary";
-import { INCOTERM_CODES, leavesOut, paymentText, type ExtraKind, type OfferExtra } from "~/content/offer-terms";
+import { INCOTERM_CODES, leavesOut, onDeliveryProblem, paymentText, termsWithRetainer, type ExtraKind, type OfferExtra } from "~/content/offer-terms";
 
 const bom = [
   { key: "pump", item: "Pump", quantity: 1, specification: "" },
@@ -87,25 +87,28 @@ describe("leavesOut", () => {
 
 describe("offerSummary", () => {
   it("gives the lines, the work beyond the bill, the terms in words and the totals", () => {
-    const summary = offerSummary({
-      lines: offer("x", 600, 200).lines,
-      units: 2,
-      currency: "EUR",
-      leadTimeWeeks: 12,
-      validUntil: "2030-03-01",
-      notes: "",
-      extras: [priced("commissioning", 1_500), included("documentation")],
-      ownLines: [{ name: "Site survey", priceCents: 40_000 }],
-      offerTerms: { incoterm: "DAP", place: "Porto", retainerPercent: 30, onDeliveryPercent: 60, balanceDays: 30, warrantyMonths: 24 },
-      alternativeCircuit: null,
-    });
+    const summary = offerSummary(
+      {
+        lines: offer("x", 600, 200).lines,
+        units: 2,
+        currency: "EUR",
+        leadTimeWeeks: 12,
+        validUntil: "2030-03-01",
+        notes: "",
+        extras: [priced("commissioning", 1_500), included("documentation")],
+        ownLines: [{ name: "Site survey", priceCents: 40_000 }],
+        offerTerms: { incoterm: "DAP", place: "Porto", retainerPercent: 30, onDeliveryPercent: 60, balanceDays: 30, warrantyMonths: 24 },
+        alternativeCircuit: null,
+      },
+      20,
+    );
     // The bill: (600 + 2 × 200) × 2 units = 2000.00; commissioning 1500 and the survey 400 once.
     expect(summary.totals).toEqual({ setTotalCents: 100_000, billCents: 200_000, extrasCents: 150_000, ownLinesCents: 40_000, totalCents: 390_000 });
     expect(summary.extras.map((e) => e.answer)).toEqual(["not_offered", "not_offered", "not_offered", "included", "not_offered", "priced", "not_offered"]);
     expect(summary.terms).toMatchObject({ incoterm: "DAP", incotermName: "Delivered at Place", place: "Porto", warrantyMonths: 24 });
     expect(summary.termsText).toEqual([
       "Delivery: DAP Porto (Delivered at Place, Incoterms 2020).",
-      "Payment: 30 % with the order, 60 % on delivery, 10 % 30 days after invoice.",
+      "Payment: 20 % with the order (the retainer, paid by card through Tenderflow), 60 % on delivery, 20 % 30 days after invoice.",
       "24 months warranty.",
       "Lead time: 12 weeks from the award.",
       "Offer valid until 1 Mar 2030.",
@@ -114,10 +117,23 @@ describe("offerSummary", () => {
   });
 
   it("reads an offer made before structured terms, its free text kept", () => {
-    const summary = offerSummary({ lines: [], units: 1, currency: "GBP", leadTimeWeeks: null, validUntil: null, notes: "", terms: "Ex works, 30 days net" });
+    const summary = offerSummary(
+      { lines: [], units: 1, currency: "GBP", leadTimeWeeks: null, validUntil: null, notes: "", terms: "Ex works, 30 days net" },
+      20,
+    );
     expect(summary.termsText).toEqual(["Terms as written: Ex works, 30 days net"]);
     expect(summary.leavesOut).toHaveLength(7);
     expect(summary.totals.totalCents).toBe(0);
+  });
+
+  it("puts the spec's retainer as the share with the order, an older offer's share on delivery giving way", () => {
+    // Stored before the rule: 10 % with the order, 90 % on delivery, beside a 20 % retainer.
+    const stored = { incoterm: "EXW" as const, place: "Leeds", retainerPercent: 10, onDeliveryPercent: 90, balanceDays: 30, warrantyMonths: 12 };
+    const summary = offerSummary({ lines: [], units: 1, currency: "GBP", leadTimeWeeks: null, validUntil: null, notes: "", offerTerms: stored }, "20.00");
+    expect(summary.terms.payment).toBe("20 % with the order (the retainer, paid by card through Tenderflow), 80 % on delivery");
+    expect(termsWithRetainer({ ...stored, onDeliveryPercent: 50 }, 20)).toMatchObject({ retainerPercent: 20, onDeliveryPercent: 50 });
+    expect(onDeliveryProblem(20, 80)).toBeNull();
+    expect(onDeliveryProblem(20, 90)).toBe("The retainer (20 %) and on delivery add up to 110 %; at most 80 % on delivery.");
   });
 });
 
@@ -126,8 +142,12 @@ describe("the terms' wording", () => {
     expect(INCOTERM_CODES).toEqual(["EXW", "FCA", "CPT", "CIP", "DAP", "DPU", "DDP", "FAS", "FOB", "CFR", "CIF"]);
   });
   it("says payment terms in words, the rest on invoice when no days are given", () => {
-    expect(paymentText({ retainerPercent: 100, onDeliveryPercent: null, balanceDays: null })).toBe("100 % with the order");
-    expect(paymentText({ retainerPercent: 20, onDeliveryPercent: null, balanceDays: 0 })).toBe("20 % with the order, 80 % on invoice");
+    expect(paymentText({ retainerPercent: 100, onDeliveryPercent: null, balanceDays: null })).toBe(
+      "100 % with the order (the retainer, paid by card through Tenderflow)",
+    );
+    expect(paymentText({ retainerPercent: 20, onDeliveryPercent: null, balanceDays: 0 })).toBe(
+      "20 % with the order (the retainer, paid by card through Tenderflow), 80 % on invoice",
+    );
     expect(paymentText({ retainerPercent: null, onDeliveryPercent: null, balanceDays: null })).toBeNull();
   });
 });

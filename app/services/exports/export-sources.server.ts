@@ -55,7 +55,7 @@ export async function pricedBillSource(user: User, jobId: string | undefined): P
   const job = await scopedJob(user, jobId);
   const [bid, spec] = await Promise.all([Bid.findByPk(job.bidId, { rejectOnEmpty: true }), Spec.findByPk(job.specId, { rejectOnEmpty: true })]);
   const revision = await SpecRevision.findOne({ where: { specId: spec.id, number: bid.specRevision }, rejectOnEmpty: true });
-  const summary = offerSummary(bid);
+  const summary = offerSummary(bid, job.retainerPercent);
   return {
     title: spec.title,
     revision: bid.specRevision,

@@ -1,10 +1,11 @@
 // Forms as a keyboard and a browser without JavaScript use them. Enter in a price of the bid form
 // saves the bid (the browser presses the form's first submit button, which once was "Add a line of
-// your own"); and the buyer's handover problem, refused and then sent, with scripts switched off.
+// your own"); and the buyer's handover problem and a shop's question, refused and then sent, with
+// scripts switched off.
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { Bid, JobEvent, JobFile, type Job, type Spec, type User } from "~/models/index.server";
+import { Bid, JobEvent, JobFile, SpecQuestion, type Job, type Spec, type User } from "~/models/index.server";
 import { reachMilestones } from "~/services/job-progress.server";
 import { PASSWORD, makeJob, makeMember, makePublishedSpec } from "../support/factories";
 import { fillOfferTerms } from "../support/bid-page";
@@ -80,6 +81,36 @@ describe("the handover problem without JavaScript", () => {
     expect(new URL(page.url()).pathname).toBe(`/jobs/${job.id}`);
     expect(await JobFile.count({ where: { jobId: job.id, kind: "problem_photo" } })).toBe(1);
     await shot(page, "handover-problem-sent");
+    await context.close();
+  });
+});
+
+describe("a shop's question without JavaScript", () => {
+  it("comes back as the spec page with the problem beside the question, then is sent", { timeout: 180_000 }, async () => {
+    const signIn = await app.newPage();
+    await signInAs(signIn, shop.email, PASSWORD);
+    await signIn.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+    const context = await app.browser.newContext({ baseURL: app.baseUrl, viewport: { width: 1280, height: 860 }, javaScriptEnabled: false });
+    await context.addCookies(await signIn.context().cookies());
+    const page = await context.newPage();
+
+    await page.goto(`/specs/${spec.id}`);
+    const box = page.getByLabel("Ask the machine builder");
+    await box.fill("   ");
+    await page.getByRole("button", { name: "Send the question" }).click();
+    await expect.poll(() => page.getByText("Write your question first.").count(), { timeout: 30_000 }).toBe(1);
+    expect(new URL(page.url()).pathname).toBe(`/specs/${spec.id}/questions`);
+    await page
+      .locator("#questions")
+      .locator("xpath=..")
+      .screenshot({ path: path.join(SCREENSHOTS, "plain-forms-question-refused.png") });
+
+    const question = "May the power unit stand 8 m from the press?";
+    await page.getByLabel("Ask the machine builder").fill(question);
+    await page.getByRole("button", { name: "Send the question" }).click();
+    await expect.poll(() => page.getByText("Question sent.", { exact: false }).count(), { timeout: 30_000 }).toBeGreaterThan(0);
+    expect(new URL(page.url()).pathname).toBe(`/specs/${spec.id}`);
+    expect(await SpecQuestion.count({ where: { specId: spec.id, body: question } })).toBe(1);
     await context.close();
   });
 });

@@ -129,7 +129,8 @@ export function AttachmentUploader({ specId, attachments, limits }: Props) {
   }
 
   return (
-    <div className="space-y-4">
+    // data-enhanced: files chosen from now on upload at once (before, the plain form waits for its button).
+    <div className="space-y-4" data-enhanced={enhanced || undefined}>
       <form
         method="post"
         action={url}

@@ -30,6 +30,7 @@ describe("the file store is down", () => {
     const page = await signedInPage(app, buyer.email, (url) => url.pathname !== "/sign-in");
     await openHydrated(page, `/specs/${spec.id}/edit/quotation`);
 
+    await page.locator("[data-enhanced]").waitFor(); // the uploader is a chunk of its own: hydrated once it is there
     await page.getByLabel("Drawings and photos").setInputFiles({ name: "layout.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-1.7\n%%EOF\n") });
     const problem = page.getByText(/cannot reach its file store just now/);
     await expect.poll(() => problem.count(), { timeout: 15_000 }).toBeGreaterThan(0);

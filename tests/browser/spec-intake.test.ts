@@ -117,6 +117,7 @@ describe("spec intake", () => {
 
     await fillQuotationStep(page, "US — Ohio");
     // A drawing goes up on its own request, outside the step's form, with a progress bar.
+    await page.locator("[data-enhanced]").waitFor(); // the uploader is a chunk of its own: hydrated once it is there
     await page.getByLabel("Drawings and photos").setInputFiles({
       name: "lift-layout.pdf",
       mimeType: "application/pdf",

@@ -72,6 +72,7 @@ describe("two servers behind one address", () => {
     await buyerPage.waitForURL("**/specs");
     await buyerPage.goto(`/specs/${draft.id}/edit/quotation`);
     await hydrated(buyerPage);
+    await buyerPage.locator("[data-enhanced]").waitFor(); // the uploader is a chunk of its own: hydrated once it is there
     await buyerPage.getByLabel("Drawings and photos").setInputFiles({ name: "ram mounting.pdf", mimeType: "application/pdf", buffer: DRAWING });
     await expect.poll(() => buyerPage.getByRole("link", { name: "ram mounting.pdf" }).count(), { timeout: 15_000 }).toBeGreaterThan(0);
     await buyerPage.getByRole("button", { name: "Save and continue →" }).click();

@@ -6,10 +6,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as download from "~/routes/spec-attachment-download";
 import { popToast } from "~/auth/session.server";
 import { type Spec, SpecAttachment, type User } from "~/models/index.server";
-import { freePort } from "../../db/cluster";
 import { PDF_BYTES, PNG_BYTES, downloadedBytes, draftOf, pdf, postAttachments, removeForm, uploadForm } from "../support/attachment-files";
 import { makeMember } from "../support/factories";
-import { startHttpApp, type HttpApp } from "../support/http-app";
+import { sendAs, startAppAndStoreDown, type HttpApp } from "../support/http-app";
 import { Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 import { storedKeys } from "../support/stored-files";
@@ -26,10 +25,7 @@ beforeAll(async () => {
   buyer = await makeMember("buyer");
   owner = await signedIn(buyer);
   cookie = owner.request("/").headers.get("Cookie")!;
-  // Nothing listens on a port just found free: the store is "down" for that server.
-  const nowhere = `http://127.0.0.1:${await freePort()}`;
-  other = await startHttpApp();
-  storeDown = await startHttpApp({ S3_ENDPOINT: nowhere });
+  ({ app: other, storeDown } = await startAppAndStoreDown());
 }, 240_000);
 
 afterAll(async () => {
@@ -43,12 +39,7 @@ const postForm = (app: HttpApp, spec: Spec, body: FormData, accept = "applicatio
   send(app, `/specs/${spec.id}/attachments`, { method: "POST", body, headers: { Accept: accept } });
 
 /** A request to one of the served apps, as the owner's browser sends it (cookie, same origin). */
-function send(app: HttpApp, path: string, init: RequestInit = {}) {
-  const headers = new Headers(init.headers);
-  headers.set("Cookie", cookie);
-  headers.set("Origin", app.baseUrl);
-  return fetch(`${app.baseUrl}${path}`, { ...init, headers, redirect: "manual" });
-}
+const send = (app: HttpApp, path: string, init: RequestInit = {}) => sendAs(app, cookie, path, init);
 
 /** Uploads through this process, the first server. */
 async function uploadHere(spec: Spec, file: File) {

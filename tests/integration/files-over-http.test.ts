@@ -13,10 +13,9 @@ import { BidDocument } from "~/models/bid.server";
 import { reachMilestones } from "~/services/job-progress.server";
 import { newAttempt } from "~/services/payments.server";
 import { askQuestion } from "~/services/questions.server";
-import { freePort } from "../../db/cluster";
 import { PDF_BYTES, PNG_BYTES, draftOf, pdf, png, uploadForm } from "../support/attachment-files";
 import { makeJob, makeMember, makeOperatorUser, makePublishedSpec, makeSubmittedBid } from "../support/factories";
-import { startHttpApp, type HttpApp } from "../support/http-app";
+import { sendAs, startAppAndStoreDown, type HttpApp } from "../support/http-app";
 import { call, type Visitor } from "../support/routes";
 import { signedIn } from "../support/sessions";
 
@@ -32,11 +31,7 @@ beforeAll(async () => {
   buyer = await makeMember("buyer");
   shop = await makeMember("shop");
   [buyerBrowser, shopBrowser] = await Promise.all([signedIn(buyer), signedIn(shop)]);
-  // Nothing listens on a port just found free: the store is "down" for that server.
-  const nowhere = `http://127.0.0.1:${await freePort()}`;
-  // One after the other: two builds booting at once on a loaded machine may miss the start-up wait.
-  app = await startHttpApp();
-  storeDown = await startHttpApp({ S3_ENDPOINT: nowhere });
+  ({ app, storeDown } = await startAppAndStoreDown());
 }, 240_000);
 
 afterAll(async () => {
@@ -45,10 +40,7 @@ afterAll(async () => {
 
 /** A request to a served app as `visitor`'s browser sends it: its session cookie, our own origin. */
 function send(server: HttpApp, visitor: Visitor, path: string, init: RequestInit = {}) {
-  const headers = new Headers(init.headers);
-  headers.set("Cookie", visitor.request("/").headers.get("Cookie")!);
-  headers.set("Origin", server.baseUrl);
-  return fetch(`${server.baseUrl}${path}`, { ...init, headers, redirect: "manual" });
+  return sendAs(server, visitor.request("/").headers.get("Cookie")!, path, init);
 }
 
 function form(fields: Record<string, string>, files: File[] = []) {

@@ -72,3 +72,19 @@ export async function startHttpApp(env: NodeJS.ProcessEnv = {}): Promise<HttpApp
     },
   };
 }
+
+/** A served app and one whose object store never answers (nothing listens on a port just found free). */
+export async function startAppAndStoreDown(): Promise<{ app: HttpApp; storeDown: HttpApp }> {
+  const nowhere = `http://127.0.0.1:${await freePort()}`;
+  // One after the other: two servers booting at once on a loaded machine may miss the start-up wait.
+  const app = await startHttpApp();
+  return { app, storeDown: await startHttpApp({ S3_ENDPOINT: nowhere }) };
+}
+
+/** A request to a served app as a signed-in browser sends it: its session cookie, the app's own origin, no redirects followed. */
+export function sendAs(server: HttpApp, cookie: string, path: string, init: RequestInit = {}) {
+  const headers = new Headers(init.headers);
+  headers.set("Cookie", cookie);
+  headers.set("Origin", server.baseUrl);
+  return fetch(`${server.baseUrl}${path}`, { ...init, headers, redirect: "manual" });
+}

@@ -10,7 +10,7 @@ export const sequelize =
   new Sequelize(env().DATABASE_URL, {
     dialect: "postgres",
     dialectModule: pg,
-    logging: false,
+    logging: env().LOG_SQL === "on" ? (sql: string) => console.log(sql) : false,
     pool: { max: 10, idle: 10_000 },
     define: { underscored: true },
   });

@@ -39,6 +39,8 @@ const envSchema = z.object({
   STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_\w+$/, "must be a Stripe webhook signing secret (whsec_…)"),
   /** Only for a local stand-in, e.g. http://127.0.0.1:12111; unset means Stripe itself. */
   STRIPE_API_URL: z.url().optional(),
+  /** `on` prints every SQL statement the app sends: what a page asks of the database. */
+  LOG_SQL: z.enum(["on", "off"]).default("off"),
 });
 
 // Settings that only make sense together.

@@ -12,6 +12,7 @@
 // process's memory (sessions, rate limits, mail and background jobs are in PostgreSQL, the jobs
 // claimed with SKIP LOCKED), so any worker answers any request.
 import cluster from "node:cluster";
+import { readdirSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
@@ -102,7 +103,15 @@ async function serve() {
   const clientDir = path.resolve(path.dirname(buildPath), "..", "client");
   // Hashed file names never change, so browsers keep them for a year.
   app.use("/assets", express.static(path.join(clientDir, "assets"), { immutable: true, maxAge: "1y", setHeaders: noSniff }));
-  app.use(express.static(clientDir, { maxAge: "1h", setHeaders: noSniff }));
+  // The rest of public/ (the icon) by name: a static handler asked about every page's path would
+  // look for it on disk, and miss, on each request.
+  const publicFiles = new Set(
+    readdirSync(clientDir)
+      .filter((name) => name !== "assets")
+      .map((name) => `/${name}`),
+  );
+  const publicStatic = express.static(clientDir, { maxAge: "1h", setHeaders: noSniff });
+  app.use((req, res, next) => (publicFiles.has(req.path.split("/", 2).join("/")) ? publicStatic(req, res, next) : next()));
   app.use(morgan("tiny"));
   app.all(
     "*",

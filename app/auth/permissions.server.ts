@@ -1,5 +1,6 @@
 import { redirect } from "react-router";
 import { Organisation, User } from "~/models/index.server";
+import { oncePerRequest } from "~/http/request-scope.server";
 import { forbidden } from "~/services/errors.server";
 import { HOME_BY_ROLE, type Role } from "./roles";
 import { getSessionUserId, hasSessionCookie, signOutRedirect } from "./session.server";
@@ -35,15 +36,10 @@ export function safeRedirect(to: FormDataEntryValue | string | null | undefined,
  */
 export function getOptionalUser(request: Request): Promise<SignedInUser | null> {
   // The root loader and the page's loaders ask for the same request's user: look it up once.
-  let user = usersOfRequests.get(request);
-  if (!user) {
-    user = lookUpUser(request);
-    usersOfRequests.set(request, user);
-  }
-  return user;
+  return oncePerRequest(SIGNED_IN_USER, request, () => lookUpUser(request));
 }
 
-const usersOfRequests = new WeakMap<Request, Promise<SignedInUser | null>>();
+const SIGNED_IN_USER = Symbol("signed-in user");
 
 async function lookUpUser(request: Request): Promise<SignedInUser | null> {
   const userId = await getSessionUserId(request);

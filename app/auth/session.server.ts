@@ -2,6 +2,7 @@ import { createCookie, createSessionStorage, redirect, type Session } from "reac
 import { Op, Sequelize } from "sequelize";
 import { env } from "~/env.server";
 import { UserSession } from "~/models/index.server";
+import { oncePerRequest } from "~/http/request-scope.server";
 import { hashToken, newToken } from "~/services/tokens.server";
 
 type SessionData = { userId: string; userAgent: string };
@@ -72,15 +73,10 @@ const storage = createSessionStorage<SessionData, SessionFlash>({
 });
 
 // The root loader and the page's loader ask for the same request's session: read it once.
-const read = new WeakMap<Request, Promise<AppSession>>();
+const SESSION = Symbol("session");
 
 function getSession(request: Request): Promise<AppSession> {
-  let session = read.get(request);
-  if (!session) {
-    session = storage.getSession(request.headers.get("Cookie"));
-    read.set(request, session);
-  }
-  return session;
+  return oncePerRequest(SESSION, request, () => storage.getSession(request.headers.get("Cookie")));
 }
 
 export async function getSessionUserId(request: Request): Promise<string | undefined> {

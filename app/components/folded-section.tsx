@@ -1,5 +1,6 @@
 import { useEffect, useRef, useState } from "react";
-import { useFetcher } from "react-router";
+import { flushSync } from "react-dom";
+import { useFetcher, useLocation } from "react-router";
 import { Card } from "./ui";
 
 /**
@@ -14,8 +15,9 @@ export interface LazyDetail {
 
 /**
  * Long detail (the full bill, the calculation trail) folded under its heading: one click opens
- * it, a link to its id opens it too, and it prints open. With `lazy`, its content loads when it
- * first opens instead of coming with the page.
+ * it, a link to its id opens it too, and it prints open. Its content is drawn when it first opens,
+ * not with the page (`?show=<id>` draws it open on the server, for a browser without JavaScript);
+ * with `lazy`, the content itself loads when it first opens instead of coming with the page.
  */
 export function FoldedSection({
   id,
@@ -31,7 +33,10 @@ export function FoldedSection({
   lazy?: LazyDetail;
 }) {
   const ref = useRef<HTMLDetailsElement>(null);
-  const [open, setOpen] = useState(Boolean(lazy?.html));
+  const location = useLocation();
+  const asked = new URLSearchParams(location.search).getAll("show").includes(id);
+  const startsOpen = Boolean(lazy?.html) || asked;
+  const [open, setOpen] = useState(startsOpen);
   useEffect(() => {
     const details = ref.current;
     if (!details) return;
@@ -42,6 +47,8 @@ export function FoldedSection({
     const beforePrint = () => {
       wasOpen = details.open;
       details.open = true;
+      // The page prints right after this handler: draw the content now, not on the toggle event.
+      flushSync(() => setOpen(true));
     };
     const afterPrint = () => {
       details.open = wasOpen;
@@ -58,7 +65,7 @@ export function FoldedSection({
   }, [id]);
   return (
     <Card>
-      <details ref={ref} id={id} className="group scroll-mt-4" open={lazy?.html ? true : undefined} onToggle={() => setOpen(Boolean(ref.current?.open))}>
+      <details ref={ref} id={id} className="group scroll-mt-4" open={startsOpen ? true : undefined} onToggle={() => ref.current?.open && setOpen(true)}>
         <summary className="flex cursor-pointer list-none items-baseline justify-between gap-3 [&::-webkit-details-marker]:hidden">
           <h2 className="font-semibold">{title}</h2>
           <span className="text-sm font-semibold text-flow-700">
@@ -66,9 +73,22 @@ export function FoldedSection({
             <span className="hidden group-open:inline">Fold ▴</span>
           </span>
         </summary>
-        <div className="mt-3">{lazy ? <LazyBody id={id} title={title} lazy={lazy} open={open} /> : children}</div>
+        <div className="mt-3">
+          {lazy ? <LazyBody id={id} title={title} lazy={lazy} open={open} /> : open ? children : <ShowLink id={id} title={title} search={location.search} />}
+        </div>
       </details>
     </Card>
+  );
+}
+
+/** Without JavaScript, a folded section's content is one link away: this page, drawn with it open. */
+function ShowLink({ id, title, search }: { id: string; title: string; search: string }) {
+  const query = new URLSearchParams(search);
+  query.append("show", id);
+  return (
+    <a href={`?${query}#${id}`} className="text-sm font-semibold text-flow-700 hover:underline">
+      Show {title.toLowerCase()}
+    </a>
   );
 }
 

@@ -3,6 +3,7 @@
 import { data, type MiddlewareFunction } from "react-router";
 import { checkRequestBounds } from "./request-bounds.server";
 import { nonceContext } from "./request-context.server";
+import { inRequestScope } from "./request-scope.server";
 import { checkSameOrigin } from "./same-origin.server";
 import { applySecurityHeaders, newNonce } from "./security-headers.server";
 
@@ -29,4 +30,7 @@ const guardRequest: MiddlewareFunction<Response> = async ({ request }, next) => 
   return next();
 };
 
-export const rootMiddleware = [securityHeaders, guardRequest];
+/** What a reading request works out once (its user, its session) is shared by all its loaders. */
+const requestScope: MiddlewareFunction<Response> = ({ request }, next) => inRequestScope(request, next);
+
+export const rootMiddleware = [requestScope, securityHeaders, guardRequest];

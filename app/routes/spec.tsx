@@ -14,10 +14,10 @@ import { quotationFacts } from "~/content/quotation-facts";
 import { listAttachments } from "~/services/attachments.server";
 import { questionsFor } from "~/services/questions.server";
 import { buyerNameFor, specForReader } from "~/services/spec-access.server";
-import { revisionsOf } from "~/services/specs.server";
+import { designOfRevision, revisionsOf } from "~/services/specs.server";
 import { biddingPanelOf } from "~/services/bids.server";
 import { BidPanel } from "~/components/bid-panel";
-import { DETAIL_PARTS, publishedDesignOf, summaryOf, type DetailPart } from "~/services/published-design";
+import { DETAIL_PARTS, summaryOf, type DetailPart } from "~/services/published-design";
 import { publishedDetailHtml } from "~/services/published-detail.server";
 import type { UnitSystem } from "~/units";
 
@@ -30,7 +30,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Earlier revisions stay viewable: ?revision=N, the newest by default.
   const asked = Number(new URL(request.url).searchParams.get("revision"));
   const current = revisions.find((r) => r.number === asked) ?? revisions[0];
-  const published = publishedDesignOf(current);
+  const published = await designOfRevision(current);
   // The bill or the trail, asked for when the reader opens it (a fetcher, or the link without JavaScript).
   const part = DETAIL_PARTS.find((p) => p === new URL(request.url).searchParams.get("detail"));
   // Files, quotation facts and questions: for every reader of a published spec.

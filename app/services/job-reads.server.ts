@@ -5,6 +5,7 @@ import { Bid, Job, JobEvent, JobMilestone, Organisation, Spec, User, sequelize }
 import { JOB_STAGES, MILESTONES, MILESTONE_KEYS, MILESTONE_LABELS, PAYMENT_MILESTONE, type JobStage, type MilestoneKey } from "~/content/job-milestones";
 import { daysBetween, isoDay, todayUtc } from "~/content/dates";
 import { can, findInScope, jobsWhere, viewerOf } from "~/auth/access-policy.server";
+import { readOncePerRequest } from "~/http/request-scope.server";
 import { isOverdue } from "./job-schedule";
 import { likePattern, pageCountOf, pageOf } from "./list-query.server";
 
@@ -197,7 +198,10 @@ export interface JobDetail extends JobSummary {
 
 /** A job the viewer may read (a 404 otherwise); locked for update inside a transaction. */
 export async function scopedJob(viewer: User, jobId: string | undefined, transaction?: Transaction) {
-  return findInScope(Job, jobsWhere(await viewerOf(viewer, transaction)), jobId, { missing: "No such job.", transaction, lock: transaction?.LOCK.UPDATE });
+  const load = async () =>
+    findInScope(Job, jobsWhere(await viewerOf(viewer, transaction)), jobId, { missing: "No such job.", transaction, lock: transaction?.LOCK.UPDATE });
+  // A job page's panels each check the same job: read once per page view (never inside a transaction).
+  return transaction ? load() : readOncePerRequest(`job ${jobId} for ${viewer.id}`, load);
 }
 
 /** One job of the viewer's, with its milestones and history; operator notes only for operator roles. */

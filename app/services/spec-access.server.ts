@@ -1,5 +1,6 @@
 import type { Transaction } from "sequelize";
 import { Organisation, Spec, User } from "~/models/index.server";
+import { readOncePerRequest } from "~/http/request-scope.server";
 import { authorize, can, findInScope, specsWhere, viewerOf, type Action, type Viewer } from "~/auth/access-policy.server";
 
 // Loading a spec for a reader or for an action. Who may read which spec, and who may act on it,
@@ -7,8 +8,12 @@ import { authorize, can, findInScope, specsWhere, viewerOf, type Action, type Vi
 
 type LoadOptions = { transaction?: Transaction; lock?: boolean };
 
-const loadSpec = (viewer: Viewer, specId: string | undefined, { transaction, lock }: LoadOptions) =>
-  findInScope(Spec, specsWhere(viewer), specId, { missing: "No such spec.", transaction, lock: lock ? transaction?.LOCK.UPDATE : undefined });
+function loadSpec(viewer: Viewer, specId: string | undefined, { transaction, lock }: LoadOptions) {
+  const load = () =>
+    findInScope(Spec, specsWhere(viewer), specId, { missing: "No such spec.", transaction, lock: lock ? transaction?.LOCK.UPDATE : undefined });
+  // A page's loaders each check the same spec: read once per page view (never inside a transaction).
+  return transaction ? load() : readOncePerRequest(`spec ${specId} for ${viewer.id}`, load);
+}
 
 /** A spec the user may read (a buyer its own, drafts too; see specsWhere), or a 404. */
 export async function specForReader(user: User, specId: string | undefined, options: LoadOptions = {}): Promise<Spec> {

@@ -27,7 +27,8 @@ import { FieldErrors } from "./errors.server";
 import { enqueueMail } from "./mail.server";
 import { specPublishedMail, specRevisedMail } from "./mail-templates.server";
 import { removeAllAttachments } from "./attachments.server";
-import { headlineFigures, type PublishedDesign } from "./published-design";
+import { headlineFigures, publishedDesignOf, type PublishedDesign } from "./published-design";
+import { readOnce } from "./render-cache.server";
 import { shopPeopleToTell, specOfOwner } from "./spec-access.server";
 
 // Specs of a buyer organisation: drafts saved step by step, then published as revisions.
@@ -267,6 +268,28 @@ export async function startRevision(user: User, specId: string | undefined): Pro
   return spec.revising ? spec : spec.update({ revising: true });
 }
 
+/** A spec's revisions, newest first, without their designs: a page lists them all but shows one (designOfRevision). */
 export async function revisionsOf(spec: Spec) {
-  return SpecRevision.findAll({ where: { specId: spec.id }, order: [["number", "DESC"]] });
+  return SpecRevision.findAll({ where: { specId: spec.id }, attributes: { exclude: ["axes", "machine"] }, order: [["number", "DESC"]] });
+}
+
+/**
+ * The design a revision was published with. A revision never changes once written, so each
+ * worker reads and parses it once (the render cache), not on every view of its page.
+ */
+export function designOfRevision(revision: Pick<SpecRevision, "id"> | null | undefined): Promise<PublishedDesign | null> {
+  if (!revision) return Promise.resolve(null);
+  return readOnce(`revision:${revision.id}:design`, async () => {
+    const row = await SpecRevision.findByPk(revision.id, { attributes: ["id", "axes", "machine"], rejectOnEmpty: true });
+    // Shared by every request this worker serves: frozen, so no reader can change it for the next.
+    return deepFreeze(publishedDesignOf(row));
+  });
+}
+
+function deepFreeze<T>(value: T): T {
+  if (value && typeof value === "object" && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const inner of Object.values(value)) deepFreeze(inner);
+  }
+  return value;
 }

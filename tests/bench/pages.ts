@@ -2,8 +2,11 @@
 // the demo scenario, signed in with real session cookies), served twice in the same run:
 // "before" with the switchable improvements off (one worker, no render cache) and "after" as
 // `npm start` serves, beside issue 16's figures from before the rest of the work (the SVG cycle
-// chart, the folded detail, the split script cannot be switched off). Prints requests/s, p97.5
-// and p97.5 ÷ the bare JSON route's; asserts nothing.
+// chart, the folded detail, the split script cannot be switched off). Prints requests/s, p97.5,
+// p97.5 ÷ the bare JSON route's, and the server's CPU time per view (from /proc: the figure that
+// moves least when other work shares the machine); asserts nothing.
+import { execFileSync } from "node:child_process";
+import { readFileSync } from "node:fs";
 import os from "node:os";
 import autocannon from "autocannon";
 import { QueryTypes, type Sequelize } from "sequelize";
@@ -14,6 +17,7 @@ import { withBenchStack } from "./stack";
 
 const CONNECTIONS = 50;
 const SECONDS = 7;
+const WARM_UP_SECONDS = 3;
 
 type Role = "buyer" | "shop" | null;
 interface BenchRoute {
@@ -73,13 +77,44 @@ interface Figures {
   perSecond: number;
   p975: number;
   failed: number;
+  /** Server CPU time per request, ms (the primary and its workers). */
+  cpuPerView: number;
 }
 
-function load(url: string, cookie: string | undefined, seconds: number): Promise<Figures> {
+const TICKS_PER_SECOND = Number(execFileSync("getconf", ["CLK_TCK"]).toString().trim()) || 100;
+
+/** CPU time (ms) the server has used so far: the process `serveBuild` started and its workers (Linux /proc). */
+function serverCpuMs(primary: number): number {
+  let children: number[] = [];
+  try {
+    children = execFileSync("pgrep", ["-P", String(primary)])
+      .toString()
+      .trim()
+      .split("\n")
+      .map(Number);
+  } catch {
+    // pgrep exits 1 when there are none: one worker serves in the primary itself.
+  }
+  let ticks = 0;
+  for (const pid of [primary, ...children]) {
+    // Fields after the command's closing parenthesis: utime and stime are the 12th and 13th.
+    const fields = readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1].split(" ");
+    ticks += Number(fields[11]) + Number(fields[12]);
+  }
+  return (ticks * 1000) / TICKS_PER_SECOND;
+}
+
+function load(url: string, cookie: string | undefined, seconds: number, server: number): Promise<Figures> {
+  const cpuBefore = serverCpuMs(server);
   return new Promise((resolve, reject) => {
     autocannon({ url, connections: CONNECTIONS, duration: seconds, headers: cookie ? { cookie } : {} }, (error, result) => {
       if (error) return reject(error);
-      resolve({ perSecond: result.requests.average, p975: result.latency.p97_5, failed: result.non2xx + result.errors + result.timeouts });
+      resolve({
+        perSecond: result.requests.average,
+        p975: result.latency.p97_5,
+        failed: result.non2xx + result.errors + result.timeouts,
+        cpuPerView: (serverCpuMs(server) - cpuBefore) / Math.max(1, result.requests.total),
+      });
     });
   });
 }
@@ -94,8 +129,10 @@ export async function measure(env: NodeJS.ProcessEnv, buildDir: string, routes: 
     const figures = new Map<string, Figures>();
     for (const route of routes) {
       const cookie = route.as ? cookies[route.as] : undefined;
-      await load(base + route.path, cookie, 1);
-      figures.set(route.path, await load(base + route.path, cookie, SECONDS));
+      // Warmed up until the JIT has compiled the route's code: a cold first second queues 50 users
+      // behind unoptimised renders and would show in p97.5 as a start-up cost, not a steady one.
+      await load(base + route.path, cookie, WARM_UP_SECONDS, server.pid!);
+      figures.set(route.path, await load(base + route.path, cookie, SECONDS, server.pid!));
     }
     return figures;
   } finally {
@@ -104,7 +141,7 @@ export async function measure(env: NodeJS.ProcessEnv, buildDir: string, routes: 
 }
 
 const cell = (f: Figures, bare: Figures) =>
-  `${f.perSecond.toFixed(0).padStart(6)}/s ${(f.p975 / 1000).toFixed(2).padStart(6)} s ${`${(f.p975 / bare.p975).toFixed(1)}×`.padStart(7)}${f.failed ? ` (${f.failed} failed)` : ""}`;
+  `${f.perSecond.toFixed(0).padStart(6)}/s ${(f.p975 / 1000).toFixed(2).padStart(6)} s ${`${(f.p975 / bare.p975).toFixed(1)}×`.padStart(7)} ${f.cpuPerView.toFixed(1).padStart(5)} ms${f.failed ? ` (${f.failed} failed)` : ""}`;
 
 export async function pages() {
   const cores = os.availableParallelism();
@@ -115,11 +152,17 @@ export async function pages() {
     const before = await measure({ ...env, WEB_CONCURRENCY: "1", RENDER_CACHE: "off" }, buildDir, routes);
     const after = await measure({ ...env, WEB_CONCURRENCY: String(cores), RENDER_CACHE: "on" }, buildDir, routes);
     const [bareBefore, bareAfter] = [before.get(routes[0].path)!, after.get(routes[0].path)!];
-    console.log(`${"route".padEnd(32)} ${"before: req/s  p97.5  ÷bare".padEnd(30)} ${"after: req/s  p97.5  ÷bare".padEnd(30)} issue 16 (before this work)`);
+    console.log(
+      `${"route".padEnd(32)} ${"before: req/s  p97.5  ÷bare  CPU/view".padEnd(39)} ${"after: req/s  p97.5  ÷bare  CPU/view".padEnd(39)} issue 16 (before this work)`,
+    );
     for (const route of routes) {
       console.log(
-        `${route.label.padEnd(32)} ${cell(before.get(route.path)!, bareBefore).padEnd(30)} ${cell(after.get(route.path)!, bareAfter).padEnd(30)} ${route.issue}`,
+        `${route.label.padEnd(32)} ${cell(before.get(route.path)!, bareBefore).padEnd(39)} ${cell(after.get(route.path)!, bareAfter).padEnd(39)} ${route.issue}`,
       );
     }
+    // With every user waiting in turn, a view's latency is about users × CPU per view ÷ cores: the
+    // CPU a page may spend and still answer within 5× the bare route's p97.5 at this load.
+    const budget = (5 * bareAfter.p975 * cores) / CONNECTIONS;
+    console.log(`5× the bare route's p97.5 at ${CONNECTIONS} users on ${cores} cores leaves a page about ${budget.toFixed(1)} ms of server CPU per view.`);
   });
 }

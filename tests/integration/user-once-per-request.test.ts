@@ -1,5 +1,7 @@
 // The root loader and the page's loaders each ask who is signed in; the user is looked up once
-// per request (app/auth/permissions.server.ts), not once per loader.
+// per request (app/auth/permissions.server.ts), not once per loader. Here the loaders are called
+// in this process with one Request; reads-per-page.test.ts counts the same through the served
+// app, where React Router hands each loader its own copy of the request.
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { getOptionalUser, requireUser } from "~/auth/permissions.server";
 import { User } from "~/models/index.server";

@@ -4,6 +4,7 @@ import { CycleChart, PHASE_NAMES } from "~/components/cycle-chart";
 import { DesignReport } from "~/components/design-report";
 import { sizeCircuit, type Design } from "~/hydraulics";
 import { formatQuantity } from "~/units";
+import { reportPage } from "../support/report-page";
 import { REFERENCE_PRESS } from "../support/hydraulics";
 
 // A two-speed press with a double pump and a dwell, 30 cycles an hour: every phase, a long idle.
@@ -86,13 +87,13 @@ describe("a design stored before the engine listed its cycle", () => {
   it("shows no chart and does not fail", () => {
     expect(renderToStaticMarkup(<CycleChart cycle={stored.cycle} />)).toBe("");
     expect(renderToStaticMarkup(<CycleChart cycle={[]} />)).toBe("");
-    const report = renderToStaticMarkup(<DesignReport design={stored} units="metric" />);
+    const report = reportPage(<DesignReport design={stored} units="metric" />);
     expect(report).not.toContain("data-cycle-chart");
     expect(report).toContain("Key sizes");
   });
 
   it("while a current design shows the chart beside the key sizes", () => {
-    const report = renderToStaticMarkup(<DesignReport design={press} units="metric" />);
+    const report = reportPage(<DesignReport design={press} units="metric" />);
     expect(report).toContain("data-cycle-chart");
     expect(report.indexOf("Key sizes")).toBeLessThan(report.indexOf("data-cycle-chart"));
   });

@@ -9,10 +9,11 @@ import { warningTitle } from "~/content/warning-titles";
 import { POWER_UNIT_LABEL, servedBy, summaryOf, type PublishedDesign } from "~/services/published-design";
 import { formatQuantity } from "~/units";
 import { CLAMP_AND_PRESS, clampAndPress } from "../support/machines";
+import { UNFOLDED, reportPage } from "../support/report-page";
 
 const machine = clampAndPress();
-const html = renderToStaticMarkup(<MachineReport design={machine} units="metric" componentsTitle="Bill of materials" />);
-const usHtml = renderToStaticMarkup(<MachineReport design={machine} units="us" />);
+const html = reportPage(<MachineReport design={machine} units="metric" componentsTitle="Bill of materials" />, UNFOLDED);
+const usHtml = reportPage(<MachineReport design={machine} units="us" />, UNFOLDED);
 
 const escaped = (s: string) => s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#x27;");
 /** The markup of the one element that carries `attribute`, up to the end of its section. */
@@ -99,6 +100,15 @@ describe("MachineReport", () => {
   it("folds the calculation trail with every step", () => {
     const trail = html.slice(html.indexOf('id="calculation-trail"'));
     expect(trail.split("data-trail-row=").length - 1).toBe(machine.trail.length);
+  });
+
+  it("draws the folded bill and trail only when opened: a link opens them without JavaScript", () => {
+    const folded = reportPage(<MachineReport design={machine} units="metric" />, "/quick-sizing?bore=80");
+    expect(folded).not.toContain("data-trail-row=");
+    expect(folded).not.toContain("data-bom-key=");
+    expect(folded).toContain('href="?bore=80&amp;show=calculation-trail#calculation-trail"');
+    expect(folded).toContain('href="?bore=80&amp;show=bill#bill"');
+    expect(folded).toContain(`Show ${machine.trail.length} steps`);
   });
 });
 

@@ -7,7 +7,7 @@ import { offerSummary } from "../offer-summary";
 import { notFound } from "../errors.server";
 import { scopedJob } from "../job-reads.server";
 import { buyerNameFor, specFor, specForReader } from "../spec-access.server";
-import { revisionsOf } from "../specs.server";
+import { designOfRevision, revisionsOf } from "../specs.server";
 import { axisNamesOf, publishedDesignOf } from "../published-design";
 import type { BillInput } from "./bill-workbook.server";
 import type { ComparisonInput } from "./comparison-workbook.server";
@@ -33,7 +33,7 @@ export async function billSource(user: User, specId: string | undefined, revisio
   const revisions = await revisionsOf(spec);
   const asked = Number(revisionParam);
   const revision = (revisionParam ? revisions.find((r) => r.number === asked) : revisions[0]) ?? null;
-  const published = publishedDesignOf(revision);
+  const published = await designOfRevision(revision);
   if (!revision || !published) notFound(revisionParam ? "No such revision." : "This spec has no published revision yet.");
   return {
     title: spec.title,

@@ -5,8 +5,8 @@ import { formatNumber } from "~/content/number-format";
 
 // Pressure, flow and power over one cycle, drawn as steps since the engine gives each phase
 // constant values. Plain SVG of a fixed size, drawn here rather than by a chart library: the
-// drawing is three step lines over bands, and recharts cost 38 ms of server time per page and
-// 97 kB of the page's script (it stays on the jobs page's bar chart). The server renders the
+// drawing is three step lines over bands, and a chart library cost 38 ms of server time per page
+// and 97 kB of the page's script. The server renders the
 // same SVG the browser hydrates; a narrow set for phones and a wide one from the md breakpoint
 // and in print, switched by CSS alone. The drawing is hidden from screen readers: the table
 // below it carries every number, and is what a printed page or a small screen reads best.

@@ -102,7 +102,7 @@ describe("job pages at a glance", () => {
       const counts = page.getByRole("table", { name: /Jobs by stage/ });
       await expect.poll(() => counts.isVisible()).toBe(true);
       expect(await counts.getByRole("row", { name: "Handed over 1" }).isVisible()).toBe(true);
-      expect(await page.locator(".recharts-wrapper").isVisible()).toBe(false);
+      expect(await page.locator("[data-jobs-chart]").isVisible()).toBe(false);
       await shot(page, "3-phone-dashboard");
 
       await open(page, `/jobs/${handedOver.id}`);

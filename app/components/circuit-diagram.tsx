@@ -72,7 +72,35 @@ export type CircuitDiagramProps = { units?: UnitSystem; className?: string } & D
 
 /** The drawing's width in its own units, so a viewer can zoom it to scale. */
 export function diagramWidth(circuit: Circuit | MachineCircuit): number {
-  return isMachineCircuit(circuit) ? layoutMachine(circuit).width : layoutCircuit(circuit).width;
+  return sheetOf(circuit).width;
+}
+
+// A circuit's layout and routes, worked out once per circuit object: the viewer asks for the
+// width and the diagram for the rest in the same render, and a published revision's design is
+// one object a server worker shares between every view of it (never changed once sized).
+const sheets = new WeakMap<Circuit | MachineCircuit, Sheet>();
+const descriptions = new WeakMap<Circuit | MachineCircuit, Map<UnitSystem, string>>();
+
+function sheetOf(circuit: Circuit | MachineCircuit): Sheet {
+  let sheet = sheets.get(circuit);
+  if (!sheet) {
+    sheet = isMachineCircuit(circuit) ? machineSheet(circuit) : axisSheet(circuit);
+    sheets.set(circuit, sheet);
+  }
+  return sheet;
+}
+
+/** The diagram's description for screen readers, in `units`. */
+function descriptionOf(circuit: Circuit | MachineCircuit, units: UnitSystem): string {
+  let byUnits = descriptions.get(circuit);
+  if (!byUnits) descriptions.set(circuit, (byUnits = new Map()));
+  let text = byUnits.get(units);
+  if (text === undefined) {
+    const u = displayUnits(units);
+    text = isMachineCircuit(circuit) ? machineCircuitDescription(circuit, u) : circuitDescription(circuit, u);
+    byUnits.set(units, text);
+  }
+  return text;
 }
 
 /**
@@ -89,7 +117,7 @@ export function CircuitDiagram({ units = "metric", className = "", ...props }: C
   const titleId = `${id}-title`;
   const descId = `${id}-desc`;
   const machine = isMachineCircuit(circuit);
-  const sheet = machine ? machineSheet(circuit) : axisSheet(circuit);
+  const sheet = sheetOf(circuit);
   return (
     <svg
       role="img"
@@ -102,7 +130,7 @@ export function CircuitDiagram({ units = "metric", className = "", ...props }: C
       data-machine-axes={machine ? sheet.columns.length : undefined}
     >
       <title id={titleId}>{machine ? machineCircuitTitle(circuit) : circuitTitle(circuit)}</title>
-      <desc id={descId}>{machine ? machineCircuitDescription(circuit, u) : circuitDescription(circuit, u)}</desc>
+      <desc id={descId}>{descriptionOf(circuit, units)}</desc>
       <rect x={0} y={0} width={sheet.width} height={sheet.height} fill="white" />
       <Legend />
       {sheet.columns.map((col) => (

@@ -1,6 +1,7 @@
 // Money, the one home of its rules, shared by server and client: prices are integer cents from
 // the first keystroke (so totals never carry floating-point error), typed money is parsed and
 // judged here, and the retainer is worked out here. The server always prices again.
+import { formatCurrency } from "./number-format";
 
 /** Currencies a spec can be quoted in (ISO 4217 codes); every bid on a spec uses the spec's. */
 export const CURRENCIES = ["EUR", "GBP", "USD", "CHF", "SEK", "DKK", "NOK", "PLN", "CZK", "CAD"] as const;
@@ -8,7 +9,7 @@ export type Currency = (typeof CURRENCIES)[number];
 
 /** Integer cents as money text in the currency, e.g. 123456 → "€1,234.56". */
 export function formatMoney(cents: number, currency: string) {
-  return new Intl.NumberFormat("en-GB", { style: "currency", currency }).format(cents / 100);
+  return formatCurrency(cents / 100, currency);
 }
 
 /** Largest unit price on one line: a billion in the currency. */

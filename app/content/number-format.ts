@@ -9,3 +9,17 @@ export function formatNumber(value: number, maximumFractionDigits: number): stri
   if (!format) formats.set(maximumFractionDigits, (format = new Intl.NumberFormat("en-GB", { maximumFractionDigits })));
   return format.format(value);
 }
+
+const moneyFormats = new Map<string, Intl.NumberFormat>();
+
+/**
+ * Money in `currency` by Intl's currency style ("€1,234.56", or "EUR 1,234.56" with `code`), one
+ * formatter per currency and style made once, for the same reason as above: a bid comparison
+ * writes hundreds of amounts.
+ */
+export function formatCurrency(amount: number, currency: string, display: "symbol" | "code" = "symbol"): string {
+  const key = `${currency} ${display}`;
+  let format = moneyFormats.get(key);
+  if (!format) moneyFormats.set(key, (format = new Intl.NumberFormat("en-GB", { style: "currency", currency, currencyDisplay: display })));
+  return format.format(amount);
+}

@@ -13,6 +13,7 @@ export {
   PUBLISHED_STATUSES,
   OFFERED_BID_STATUSES,
   accountsWhere,
+  admitsNothing,
   bidsWhere,
   findInScope,
   jobsWhere,

@@ -14,6 +14,9 @@ export const OFFERED_BID_STATUSES = ["submitted", "won", "not_selected"] as cons
 /** Matches no row. */
 const NOTHING = sequelize.literal("FALSE");
 
+/** A scope that admits no record: a caller can answer "none" without asking the database. */
+export const admitsNothing = (where: unknown) => where === NOTHING;
+
 /** Rows of the buyer accounts the viewer manages, by the column naming the buyer organisation. */
 const ofManagedAccounts = (viewer: Viewer, column: string) => (viewer.accounts === "all" ? {} : { [column]: [...viewer.accounts] });
 

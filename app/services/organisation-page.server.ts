@@ -1,6 +1,6 @@
 import { Op } from "sequelize";
 import { Organisation, Spec, User } from "~/models/index.server";
-import { can, findInScope, organisationsWhere, specsWhere, viewerOf } from "~/auth/access-policy.server";
+import { admitsNothing, can, findInScope, organisationsWhere, specsWhere, viewerOf } from "~/auth/access-policy.server";
 import type { OrganisationKind } from "~/auth/roles";
 import type { Approval } from "~/content/shop-approval";
 import { shownSpecStatus, type SpecStatus } from "~/content/spec-status";
@@ -81,9 +81,10 @@ export type OrganisationPage = Awaited<ReturnType<typeof organisationPageOf>>;
  */
 export async function openableOrganisations(viewer: User, ids: string[]): Promise<string[]> {
   const unique = [...new Set(ids)];
-  if (unique.length === 0) return [];
+  const scope = organisationsWhere(await viewerOf(viewer));
+  if (unique.length === 0 || admitsNothing(scope)) return [];
   const rows = await Organisation.findAll({
-    where: { [Op.and]: [organisationsWhere(await viewerOf(viewer)), { id: unique }] },
+    where: { [Op.and]: [scope, { id: unique }] },
     attributes: ["id"],
   });
   return rows.map((o) => o.id);

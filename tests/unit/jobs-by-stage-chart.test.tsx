@@ -33,7 +33,9 @@ describe("JobsByStageChart", () => {
   it("names each stage beside its bar, and gives the same counts in a table for screen readers and phones", () => {
     for (const { stage, count } of data) {
       expect(html).toContain(`>${JOB_STAGE_LABELS[stage]}</text>`);
-      expect(html).toContain(`<th scope="row" class="py-1 text-left font-normal">${JOB_STAGE_LABELS[stage]}</th><td class="py-1 text-right font-semibold tabular-nums">${count}</td>`);
+      expect(html).toContain(
+        `<th scope="row" class="py-1 text-left font-normal">${JOB_STAGE_LABELS[stage]}</th><td class="py-1 text-right font-semibold tabular-nums">${count}</td>`,
+      );
     }
     expect(html).toMatch(/<div aria-hidden="true"[^>]*><svg data-jobs-chart/);
   });

@@ -3,7 +3,7 @@
 // the root middleware opens a scope for the whole request instead, and the memo lives there.
 import { AsyncLocalStorage } from "node:async_hooks";
 
-const scope = new AsyncLocalStorage<Map<symbol, unknown>>();
+const scope = new AsyncLocalStorage<Map<symbol | string, unknown>>();
 
 /**
  * Runs a reading request (GET, HEAD) in a scope of its own. A state change gets none: its
@@ -14,7 +14,7 @@ export function inRequestScope<T>(request: Request, next: () => Promise<T>): Pro
 }
 
 // Outside a scope (an action, or a test calling a loader itself): one memo per Request object.
-const perRequestObject = new WeakMap<Request, Map<symbol, unknown>>();
+const perRequestObject = new WeakMap<Request, Map<symbol | string, unknown>>();
 
 /** `compute()` once for this request and `key`; every later ask gets the same value (a promise, say). */
 export function oncePerRequest<T>(key: symbol, request: Request, compute: () => T): T {
@@ -35,7 +35,7 @@ export function oncePerRequest<T>(key: symbol, request: Request, compute: () => 
 export function readOncePerRequest<T>(key: string, read: () => Promise<T>): Promise<T> {
   const memo = scope.getStore();
   if (!memo) return read();
-  const symbol = Symbol.for(`tenderflow read: ${key}`);
-  if (!memo.has(symbol)) memo.set(symbol, read());
-  return memo.get(symbol) as Promise<T>;
+  // A string key of its own kind: the symbols of oncePerRequest can never equal it.
+  if (!memo.has(key)) memo.set(key, read());
+  return memo.get(key) as Promise<T>;
 }

@@ -42,9 +42,8 @@ export default function handleRequest(
     // puts it on its inline scripts.
     const nonce = loadContext.get(nonceContext) || undefined;
     // Every reader gets the whole document in one piece: no page waits for data after its shell
-    // (the loaders have it all), a page renders in milliseconds, and under load one write per
-    // response costs far less than streaming React's small chunks through the web-stream layers
-    // (the page bench measured it: a spec page served half again as many views a second).
+    // (the loaders have it all), so streaming bought nothing but the work of passing React's 2 kB
+    // chunks through a Node stream, a web stream and Express (DEVELOPERS.md, "Pages are sent whole").
     const { pipe, abort } = renderToPipeableStream(<ServerRouter context={routerContext} url={request.url} nonce={nonce} />, {
       nonce,
       // A finished Suspense boundary (a part loaded later, components/loaded-later.tsx) stays in
@@ -56,7 +55,7 @@ export default function handleRequest(
       },
       onAllReady() {
         const chunks: Buffer[] = [];
-        const document = new Writable({
+        const html = new Writable({
           write(chunk: Buffer, _encoding, callback) {
             chunks.push(chunk);
             callback();
@@ -69,7 +68,7 @@ export default function handleRequest(
             callback();
           },
         });
-        pipe(document);
+        pipe(html);
       },
       onShellError(error: unknown) {
         reject(error);

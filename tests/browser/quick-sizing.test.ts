@@ -34,6 +34,25 @@ describe("quick sizing", () => {
     await page.context().close();
   });
 
+  it("draws the folded bill and calculation trail when they open, for the design as typed", async () => {
+    const page = await quickSizing();
+    const trail = page.locator("details#calculation-trail");
+    const bill = page.locator("details#bill");
+    // Not in the page until opened: the trail alone was 84 kB of its HTML.
+    expect(await trail.locator("[data-trail-row]").count()).toBe(0);
+    expect(await bill.locator("[data-bom-key]").count()).toBe(0);
+    await bill.locator("summary").click();
+    await expect.poll(() => bill.locator("[data-bom-key]").count()).toBeGreaterThan(5);
+    await page.getByRole("link", { name: "How every number was reached" }).click();
+    await expect.poll(() => trail.locator("[data-trail-row]").count()).toBeGreaterThan(20);
+    // An open trail follows the design as it changes.
+    const rows = await trail.locator("[data-trail-row]").allTextContents();
+    await page.getByLabel("Working force at the end of the stroke").fill("200000");
+    await expect.poll(async () => (await trail.locator("[data-trail-row]").allTextContents()).join("|"), { timeout: 5_000 }).not.toBe(rows.join("|"));
+    await page.screenshot({ path: path.join(SCREENSHOTS, "quick-sizing-trail-open.png") });
+    await page.context().close();
+  });
+
   it("switches to US customary units and keeps the same axis", async () => {
     const page = await quickSizing();
     await page.getByText("US customary (in, lb, psi)").click();

@@ -147,6 +147,8 @@ describe("spec intake", () => {
     expect(await trail.evaluate((d) => (d as HTMLDetailsElement).open)).toBe(false);
     await page.getByRole("link", { name: "How every number was reached" }).click();
     await expect.poll(() => trail.evaluate((d) => (d as HTMLDetailsElement).open)).toBe(true);
+    // Drawn when it opens, not sent with the page.
+    await expect.poll(() => trail.locator("[data-trail-row]").count()).toBeGreaterThan(20);
     await page.screenshot({ path: path.join(SCREENSHOTS, "intake-5b-review-1366.png") });
     await page.getByLabel(/I have read the cautions/).check();
     await page.getByRole("button", { name: "Publish for bids" }).click();

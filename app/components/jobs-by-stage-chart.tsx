@@ -21,16 +21,10 @@ const COLOURS = { bar: "#0b7f71", grid: "#e6eaef", label: "#1f2a37", tick: "#3f4
 /** Whole-number ticks from 0 to the first of 1, 2, 5 × 10ⁿ steps that reaches `max` in at most five steps. */
 export function countTicks(max: number): number[] {
   const top = Math.max(1, Math.ceil(max));
-  let step = 1;
   for (let decade = 1; ; decade *= 10) {
-    const found = [1, 2, 5].map((m) => m * decade).find((s) => top / s <= 5);
-    if (found) {
-      step = found;
-      break;
-    }
+    const step = [1, 2, 5].map((m) => m * decade).find((s) => top / s <= 5);
+    if (step) return Array.from({ length: Math.ceil(top / step) + 1 }, (_, i) => i * step);
   }
-  const last = Math.ceil(top / step) * step;
-  return Array.from({ length: last / step + 1 }, (_, i) => i * step);
 }
 
 export function JobsByStageChart({ data, caption }: { data: { stage: JobStage; count: number }[]; caption: string }) {

@@ -23,8 +23,7 @@ export function oncePerRequest<T>(key: symbol, request: Request, compute: () => 
     memo = perRequestObject.get(request) ?? new Map();
     perRequestObject.set(request, memo);
   }
-  if (!memo.has(key)) memo.set(key, compute());
-  return memo.get(key) as T;
+  return remembered(memo, key, compute);
 }
 
 /**
@@ -34,8 +33,11 @@ export function oncePerRequest<T>(key: symbol, request: Request, compute: () => 
  */
 export function readOncePerRequest<T>(key: string, read: () => Promise<T>): Promise<T> {
   const memo = scope.getStore();
-  if (!memo) return read();
   // A string key of its own kind: the symbols of oncePerRequest can never equal it.
-  if (!memo.has(key)) memo.set(key, read());
-  return memo.get(key) as Promise<T>;
+  return memo ? remembered(memo, key, read) : read();
+}
+
+function remembered<T>(memo: Map<symbol | string, unknown>, key: symbol | string, compute: () => T): T {
+  if (!memo.has(key)) memo.set(key, compute());
+  return memo.get(key) as T;
 }
